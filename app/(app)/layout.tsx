@@ -1,0 +1,43 @@
+import Link from 'next/link';
+import { redirect } from 'next/navigation';
+import { getActor, allRolesOf } from '@/lib/auth/actor';
+import { navFor } from '@/lib/navigation';
+import { BrandMark } from "@/components/brand-mark";
+import { SignOutButton } from '@/components/sign-out-button';
+
+export const dynamic = 'force-dynamic';
+
+// Coarse sign-in redirect for the signed-in area; each page and handler checks permissions itself.
+export default async function AppLayout({ children }: { children: React.ReactNode }) {
+  const actor = await getActor();
+  if (!actor) redirect('/sign-in');
+  const items = navFor(allRolesOf(actor));
+  return (
+    <div className="flex min-h-screen flex-col">
+      <header className="bg-tide-900 text-white">
+        <div className="mx-auto flex max-w-6xl flex-wrap items-center justify-between gap-3 px-4 py-3">
+          <Link href="/home" className="flex items-center gap-2 no-underline">
+            <BrandMark />
+            <span className="text-xl font-bold text-white">Boreline</span>
+          </Link>
+          <div className="flex items-center gap-3 text-sm">
+            <span className="hidden sm:inline" data-testid="signed-in-as">{actor.name ?? actor.email}</span>
+            <SignOutButton />
+          </div>
+        </div>
+        <nav aria-label="Main" className="mx-auto max-w-6xl overflow-x-auto px-2">
+          <ul className="flex gap-1" data-testid="main-nav">
+            {items.map((item) => (
+              <li key={item.href}>
+                <Link href={item.href} className="inline-flex min-h-touch items-center whitespace-nowrap rounded-t-lg px-4 font-bold text-white no-underline hover:bg-tide-700">
+                  {item.label}
+                </Link>
+              </li>
+            ))}
+          </ul>
+        </nav>
+      </header>
+      <main className="mx-auto w-full max-w-6xl flex-1 px-4 py-6">{children}</main>
+    </div>
+  );
+}

@@ -1,0 +1,62 @@
+import type { Metadata } from 'next';
+import { redirect } from 'next/navigation';
+import { format, parseISO } from 'date-fns';
+import { getActor, allRolesOf } from '@/lib/auth/actor';
+import { listOrganisedMeetings } from '@/lib/events/list-organised-meetings';
+import { InviteStaffForm } from './invite-staff-form';
+
+export const metadata: Metadata = { title: 'Organise' };
+
+const ROLE_LABEL: Record<string, string> = {
+  organiser: 'Organiser',
+  chief_scrutineer: 'Chief scrutineer',
+  scrutineer: 'Scrutineer',
+  steward: 'Steward',
+};
+
+export default async function OrganisePage() {
+  const actor = await getActor();
+  if (!actor) redirect('/sign-in');
+  const roles = allRolesOf(actor);
+  if (!roles.includes('organiser') && !roles.includes('admin')) redirect('/not-allowed');
+  const meetings = await listOrganisedMeetings(actor);
+  return (
+    <div className="space-y-6">
+      <h1 data-testid="organise-heading">Organise</h1>
+      {meetings.length === 0 && <p>You organise no meetings yet.</p>}
+      {meetings.map((m) => (
+        <section key={m.id} className="card space-y-4" aria-labelledby={`m-${m.id}`}>
+          <div>
+            <h2 id={`m-${m.id}`}>{m.name}</h2>
+            <p className="text-ink-soft">{m.venue} · from {format(parseISO(m.startsOn), 'd MMM yyyy')} · {m.status.replace('_', ' ')}</p>
+          </div>
+          <div>
+            <h3>Staff</h3>
+            <ul className="mt-2 divide-y divide-paper-line">
+              {m.staff.map((s) => (
+                <li key={`${s.userId}-${s.role}`} className="flex flex-wrap justify-between gap-2 py-2">
+                  <span>{s.name ?? s.email} <span className="text-ink-mute">{s.email}</span></span>
+                  <span className="font-bold">{ROLE_LABEL[s.role]}</span>
+                </li>
+              ))}
+            </ul>
+            {m.pendingInvitations.length > 0 && (
+              <>
+                <h3 className="mt-4">Invitations waiting</h3>
+                <ul className="mt-2 divide-y divide-paper-line">
+                  {m.pendingInvitations.map((i) => (
+                    <li key={`${i.email}-${i.role}`} className="flex flex-wrap justify-between gap-2 py-2">
+                      <span>{i.email}</span>
+                      <span>{ROLE_LABEL[i.role]} · until {format(parseISO(i.expiresAt), 'd MMM')}</span>
+                    </li>
+                  ))}
+                </ul>
+              </>
+            )}
+          </div>
+          <InviteStaffForm eventId={m.id} />
+        </section>
+      ))}
+    </div>
+  );
+}

@@ -1,0 +1,72 @@
+'use client';
+
+import { useState } from 'react';
+import { signIn } from 'next-auth/react';
+import { useRouter } from 'next/navigation';
+
+const MESSAGES: Record<string, string> = {
+  CredentialsSignin: 'That e-mail and password do not match an account.',
+  TooManyAttempts: 'Too many attempts for this account: wait 15 minutes, or sign in with an e-mailed link.',
+};
+
+export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string; initialError?: string }) {
+  const router = useRouter();
+  const [mode, setMode] = useState<'password' | 'link'>('password');
+  const [error, setError] = useState(initialError);
+  const [isBusy, setBusy] = useState(false);
+
+  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
+    e.preventDefault();
+    const form = new FormData(e.currentTarget);
+    const email = String(form.get('email') ?? '');
+    setBusy(true);
+    setError(undefined);
+    const res =
+      mode === 'password'
+        ? await signIn('password', { email, password: String(form.get('password') ?? ''), redirect: false, callbackUrl })
+        : await signIn('email', { email, redirect: false, callbackUrl });
+    setBusy(false);
+    if (!res || res.error) {
+      setError(MESSAGES[res?.error ?? ''] ?? 'Sign-in failed. Check the address and try again.');
+      return;
+    }
+    router.push(mode === 'password' ? callbackUrl : '/sign-in/check-email');
+    router.refresh();
+  }
+
+  return (
+    <form onSubmit={onSubmit} noValidate>
+      <fieldset disabled={isBusy} className="space-y-4">
+        <div role="group" aria-label="Sign-in method" className="grid grid-cols-2 gap-2">
+          {(['password', 'link'] as const).map((m) => (
+            <button
+              key={m}
+              type="button"
+              aria-pressed={mode === m}
+              onClick={() => setMode(m)}
+              className={mode === m ? 'btn-primary' : 'btn-secondary'}
+            >
+              {m === 'password' ? 'Password' : 'E-mail me a link'}
+            </button>
+          ))}
+        </div>
+        <div>
+          <label htmlFor="email" className="field-label">E-mail</label>
+          <input id="email" name="email" type="email" autoComplete="email" required className="field-input" />
+        </div>
+        {mode === 'password' && (
+          <div>
+            <label htmlFor="password" className="field-label">Password</label>
+            <input id="password" name="password" type="password" autoComplete="current-password" required className="field-input" />
+          </div>
+        )}
+        <div aria-live="polite">
+          {error && <p id="sign-in-error" className="field-error" data-testid="sign-in-error">{error}</p>}
+        </div>
+        <button type="submit" className="btn-primary w-full">
+          {isBusy ? 'Signing in…' : mode === 'password' ? 'Sign in' : 'Send the link'}
+        </button>
+      </fieldset>
+    </form>
+  );
+}

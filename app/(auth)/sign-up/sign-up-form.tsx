@@ -1,0 +1,62 @@
+'use client';
+
+import { useState } from 'react';
+import { signIn } from 'next-auth/react';
+import { useRouter } from 'next/navigation';
+import { SignUpInput } from '@/lib/validations/auth';
+import { fieldErrors } from '@/lib/http/errors';
+import { TextField } from '@/components/ui/text-field';
+
+type Errors = Partial<Record<'name' | 'email' | 'password' | 'form', string>>;
+
+export function SignUpForm() {
+  const router = useRouter();
+  const [errors, setErrors] = useState<Errors>({});
+  const [isBusy, setBusy] = useState(false);
+
+  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
+    e.preventDefault();
+    const raw = Object.fromEntries(new FormData(e.currentTarget));
+    const parsed = SignUpInput.safeParse(raw);
+    if (!parsed.success) {
+      setErrors(fieldErrors(parsed.error));
+      return;
+    }
+    setBusy(true);
+    setErrors({});
+    const res = await fetch('/api/accounts', {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify(parsed.data),
+    });
+    if (!res.ok) {
+      const body = await res.json().catch(() => null);
+      const next: Errors = {};
+      for (const d of body?.error?.details ?? []) next[d.field as keyof Errors] ??= d.message;
+      if (Object.keys(next).length === 0) next.form = body?.error?.message ?? 'Sign-up failed. Try again.';
+      setErrors(next);
+      setBusy(false);
+      return;
+    }
+    const signedIn = await signIn('password', { email: parsed.data.email, password: parsed.data.password, redirect: false });
+    setBusy(false);
+    if (signedIn?.error) {
+      setErrors({ form: 'Your account was created, but signing in failed: sign in by hand.' });
+      return;
+    }
+    router.push('/home');
+    router.refresh();
+  }
+
+  return (
+    <form onSubmit={onSubmit} noValidate>
+      <fieldset disabled={isBusy} className="space-y-4">
+        <TextField name="name" label="Your name" autoComplete="name" error={errors.name} />
+        <TextField name="email" label="E-mail" type="email" autoComplete="email" error={errors.email} />
+        <TextField name="password" label="Password" type="password" autoComplete="new-password" hint="At least 10 characters." error={errors.password} />
+        <div aria-live="polite">{errors.form && <p className="field-error">{errors.form}</p>}</div>
+        <button type="submit" className="btn-primary w-full">{isBusy ? 'Creating…' : 'Create account'}</button>
+      </fieldset>
+    </form>
+  );
+}

@@ -1,0 +1,43 @@
+import type { Metadata } from 'next';
+import { notFound } from 'next/navigation';
+import { format } from 'date-fns';
+
+export const metadata: Metadata = { title: 'Outbox (development)' };
+export const dynamic = 'force-dynamic';
+
+type Message = { id: string; receivedAt: string; to: string[]; subject: string; text: string };
+
+// Development only: shows what the local mail fake received, so a person can follow e-mailed links.
+export default async function OutboxPage() {
+  if (process.env.BORELINE_DEV_TOOLS !== '1') notFound();
+  const port = process.env.MAIL_FAKE_HTTP_PORT ?? '2526';
+  let messages: Message[] = [];
+  let error: string | undefined;
+  try {
+    const res = await fetch(`http://127.0.0.1:${port}/messages`, { cache: 'no-store' });
+    messages = (await res.json()).data;
+  } catch {
+    error = 'The local mail fake is not running (the start command starts it).';
+  }
+  return (
+    <main className="mx-auto max-w-3xl space-y-4 px-4 py-8">
+      <h1>Outbox</h1>
+      <p className="rounded-lg bg-doubt-100 p-3">Development only: every e-mail the app sent to the local mail fake, newest first.</p>
+      {error && <p className="field-error">{error}</p>}
+      {messages.length === 0 && !error && <p>No messages yet.</p>}
+      <ul className="space-y-3">
+        {messages.map((m) => (
+          <li key={m.id} className="card space-y-2">
+            <p className="text-sm text-ink-mute">{format(new Date(m.receivedAt), 'd MMM yyyy HH:mm:ss')} · to {m.to.join(', ')}</p>
+            <h2 className="text-lg">{m.subject}</h2>
+            <pre className="whitespace-pre-wrap break-words font-sans text-base">
+              {m.text.split(/(https?:\/\/\S+)/g).map((part, i) =>
+                /^https?:\/\//.test(part) ? <a key={i} href={part}>{part}</a> : part,
+              )}
+            </pre>
+          </li>
+        ))}
+      </ul>
+    </main>
+  );
+}

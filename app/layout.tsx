@@ -1,0 +1,38 @@
+import type { Metadata, Viewport } from 'next';
+import localFont from 'next/font/local';
+import './globals.css';
+
+// Atkinson Hyperlegible for reading in glare; IBM Plex Mono for figures that must line up.
+// Both shipped in app/fonts under the SIL Open Font License 1.1.
+const body = localFont({
+  src: [
+    { path: './fonts/atkinson-hyperlegible-latin-400-normal.woff2', weight: '400', style: 'normal' },
+    { path: './fonts/atkinson-hyperlegible-latin-400-italic.woff2', weight: '400', style: 'italic' },
+    { path: './fonts/atkinson-hyperlegible-latin-700-normal.woff2', weight: '700', style: 'normal' },
+  ],
+  variable: '--font-body',
+  display: 'swap',
+});
+const figures = localFont({
+  src: [
+    { path: './fonts/ibm-plex-mono-latin-400-normal.woff2', weight: '400', style: 'normal' },
+    { path: './fonts/ibm-plex-mono-latin-600-normal.woff2', weight: '600', style: 'normal' },
+  ],
+  variable: '--font-figures',
+  display: 'swap',
+});
+
+export const metadata: Metadata = {
+  title: { default: 'Boreline', template: '%s · Boreline' },
+  description: 'Technical inspection and class parity for water-jet boat race meetings.',
+};
+
+export const viewport: Viewport = { width: 'device-width', initialScale: 1, themeColor: '#103a57' };
+
+export default function RootLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <html lang="en" className={`${body.variable} ${figures.variable}`}>
+      <body>{children}</body>
+    </html>
+  );
+}

@@ -1,0 +1,90 @@
+import 'server-only';
+import { createHash, randomBytes } from 'node:crypto';
+import { Op } from 'sequelize';
+import { getDb } from '@/lib/db';
+import { AppError } from '@/lib/http/errors';
+import { assertCan, type Actor } from './actor';
+import { sendMail, linkMail } from '@/lib/mail/send';
+import type { EventStaffRole } from '@/lib/constants';
+import type { InviteStaffInput } from '@/lib/validations/auth';
+
+const INVITATION_DAYS = 14;
+const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
+
+const ROLE_WORDS: Record<EventStaffRole, string> = {
+  organiser: 'an organiser',
+  chief_scrutineer: 'the chief scrutineer',
+  scrutineer: 'a scrutineer',
+  steward: 'a steward',
+};
+
+/** An organiser invites a person to the event's staff; the e-mailed link signs them in with the role. */
+export async function inviteStaff(actor: Actor | null, eventId: string, input: InviteStaffInput) {
+  assertCan(actor, 'event.staff_manage', { eventId });
+  const { Event, StaffInvitation } = getDb().models;
+  const event = await Event.findByPk(eventId);
+  if (!event) throw new AppError('not_found', 404, 'No such event.');
+  const token = randomBytes(32).toString('base64url');
+  const invitation = await StaffInvitation.create({
+    eventId,
+    email: input.email,
+    role: input.role,
+    tokenHash: hashToken(token),
+    invitedById: actor.id,
+    expiresAt: new Date(Date.now() + INVITATION_DAYS * 86400_000),
+  });
+  const base = process.env.NEXTAUTH_URL ?? 'http://localhost:3000';
+  await sendMail(
+    linkMail({
+      to: input.email,
+      subject: `You are invited to ${event.name} as ${ROLE_WORDS[input.role]}`,
+      intro: `${actor.name ?? actor.email} has invited you to serve as ${ROLE_WORDS[input.role]} at ${event.name} (${event.venue}).`,
+      linkLabel: 'Accept the invitation and sign in',
+      url: `${base}/invite/${token}`,
+      outro: `The link expires in ${INVITATION_DAYS} days.`,
+    }),
+  );
+  return { id: invitation.id, email: invitation.email, role: invitation.role, expiresAt: invitation.expiresAt.toISOString() };
+}
+
+/** Looks an invitation up by its token without using it (for the acceptance page). */
+export async function findInvitation(token: string) {
+  if (!token) return null;
+  const { StaffInvitation, Event } = getDb().models;
+  const inv = await StaffInvitation.findOne({ where: { tokenHash: hashToken(token) }, include: [Event] });
+  if (!inv) return null;
+  const event = (inv as unknown as { event: { name: string; venue: string } }).event;
+  return {
+    email: inv.email,
+    role: inv.role,
+    eventName: event.name,
+    venue: event.venue,
+    isUsable: !inv.acceptedAt && inv.expiresAt > new Date(),
+  };
+}
+
+/** Uses an invitation once: creates the person if new, grants the role, returns the user. */
+export async function acceptInvitation(token: string) {
+  if (!token) return null;
+  const { sequelize, models } = getDb();
+  return sequelize.transaction(async (transaction) => {
+    const inv = await models.StaffInvitation.findOne({
+      where: { tokenHash: hashToken(token), acceptedAt: null, expiresAt: { [Op.gt]: new Date() } },
+      lock: transaction.LOCK.UPDATE,
+      transaction,
+    });
+    if (!inv) return null;
+    const [user] = await models.User.findOrCreate({
+      where: { email: inv.email },
+      defaults: { email: inv.email, name: null, emailVerified: new Date() },
+      transaction,
+    });
+    await models.EventStaff.findOrCreate({
+      where: { eventId: inv.eventId, userId: user.id, role: inv.role },
+      defaults: { eventId: inv.eventId, userId: user.id, role: inv.role },
+      transaction,
+    });
+    await inv.update({ acceptedAt: new Date() }, { transaction });
+    return { id: user.id, email: user.email, name: user.name };
+  });
+}

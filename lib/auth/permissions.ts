@@ -1,0 +1,49 @@
+// The one permission table: every server action and route handler asks it.
+// Roles are per event (organiser, chief_scrutineer, scrutineer, steward), per person
+// (entrant: anyone signed in) or site-wide (admin). Framework-free so tests can read it.
+
+export const ROLES = ['entrant', 'scrutineer', 'chief_scrutineer', 'steward', 'organiser', 'admin'] as const;
+export type Role = (typeof ROLES)[number];
+
+export const PERMISSIONS = {
+  // Own account and own boats
+  'account.view': ['entrant', 'scrutineer', 'chief_scrutineer', 'steward', 'organiser', 'admin'],
+  'boat.manage_own': ['entrant'],
+  'entry.submit_own': ['entrant'],
+  'protest.lodge': ['entrant'],
+  // Running a meeting
+  'event.create': ['organiser', 'admin'],
+  'event.edit': ['organiser'],
+  'event.staff_manage': ['organiser'],
+  'class.edit': ['organiser'],
+  'entry.view_all': ['organiser', 'chief_scrutineer', 'steward'],
+  'entry.cancel': ['organiser'],
+  'tags.print': ['organiser', 'chief_scrutineer'],
+  'report.publish': ['organiser'],
+  'results.publish': ['organiser'],
+  // At the dock
+  'inspection.record': ['scrutineer', 'chief_scrutineer'],
+  'inspection.board': ['scrutineer', 'chief_scrutineer', 'organiser'],
+  'inspection.assign_reinspection': ['chief_scrutineer', 'steward'],
+  // Protests
+  'protest.decide': ['steward'],
+  'protest.view_all': ['steward', 'organiser'],
+  'audit.read': ['steward', 'organiser'],
+  // Site
+  'admin.manage_users': ['admin'],
+  'dev.outbox': ['admin', 'organiser'],
+} as const satisfies Record<string, readonly Role[]>;
+
+export type Permission = keyof typeof PERMISSIONS;
+
+export function roleCan(role: Role, permission: Permission): boolean {
+  return (PERMISSIONS[permission] as readonly Role[]).includes(role);
+}
+
+export function rolesCan(roles: readonly Role[], permission: Permission): boolean {
+  return roles.some((r) => roleCan(r, permission));
+}
+
+export function permissionsOf(role: Role): Permission[] {
+  return (Object.keys(PERMISSIONS) as Permission[]).filter((p) => roleCan(role, p));
+}

@@ -1,0 +1,68 @@
+import { ZodError } from 'zod';
+
+// One error type for expected failures, with a safe message for people.
+export class AppError extends Error {
+  constructor(
+    public readonly code: string,
+    public readonly status: number,
+    message: string,
+    public readonly details?: unknown,
+  ) {
+    super(message);
+    this.name = 'AppError';
+  }
+}
+
+export type ErrorBody = { error: { code: string; message: string; details?: unknown } };
+
+export type FieldIssue = { field: string; message: string };
+
+/** Zod issues as { field, message } with dotted paths ("water.temperatureC", "readingsMm.2"). */
+export function fieldIssues(err: ZodError): FieldIssue[] {
+  return err.issues.map((i) => ({ field: i.path.map(String).join('.') || '(body)', message: i.message }));
+}
+
+/** Zod issues as a map field -> first message, for forms. */
+export function fieldErrors(err: ZodError): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const { field, message } of fieldIssues(err)) out[field] ??= message;
+  return out;
+}
+
+function isDatabaseDown(err: unknown): boolean {
+  const name = (err as { name?: string })?.name ?? '';
+  const code = (err as { parent?: { code?: string }; original?: { code?: string } })?.parent?.code;
+  return (
+    /^Sequelize(Connection\w*Error|HostNotReachableError|ConnectionAcquireTimeoutError)$/.test(name) ||
+    ['ECONNREFUSED', '57P01', '57P03', '08006', '08001'].includes(code ?? '')
+  );
+}
+
+/** Maps any thrown value to the one JSON error shape with an honest status. */
+export function toErrorResponse(err: unknown): Response {
+  let status = 500;
+  let body: ErrorBody;
+  const headers: Record<string, string> = {};
+  if (err instanceof AppError) {
+    status = err.status;
+    body = { error: { code: err.code, message: err.message, ...(err.details !== undefined && { details: err.details }) } };
+    if (err.status === 429 && typeof err.details === 'object' && err.details && 'retryAfterS' in err.details) {
+      headers['Retry-After'] = String((err.details as { retryAfterS: number }).retryAfterS);
+    }
+  } else if (err instanceof ZodError) {
+    status = 400;
+    const issues = fieldIssues(err);
+    body = { error: { code: 'invalid_input', message: issues.map((i) => `${i.field}: ${i.message}`).join('; '), details: issues } };
+  } else if (err instanceof SyntaxError) {
+    status = 400;
+    body = { error: { code: 'invalid_json', message: 'The request body is not valid JSON.' } };
+  } else if (isDatabaseDown(err)) {
+    status = 503;
+    headers['Retry-After'] = '5';
+    body = { error: { code: 'unavailable', message: 'The database is not answering; try again shortly.' } };
+  } else {
+    console.error('[boreline] unexpected error', err);
+    body = { error: { code: 'internal', message: 'Something went wrong on our side.' } };
+  }
+  return Response.json(body, { status, headers });
+}

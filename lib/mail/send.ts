@@ -1,0 +1,35 @@
+import 'server-only';
+import nodemailer, { type Transporter } from 'nodemailer';
+
+const globalForMail = globalThis as unknown as { __borelineMail?: Transporter };
+
+function transporter(): Transporter {
+  if (!globalForMail.__borelineMail) {
+    const url = process.env.SMTP_URL ?? 'smtp://127.0.0.1:2525';
+    globalForMail.__borelineMail = nodemailer.createTransport(url);
+  }
+  return globalForMail.__borelineMail;
+}
+
+export type OutgoingMail = { to: string; subject: string; text: string; html?: string };
+
+/** Sends one message through the configured SMTP relay (the local fake in development). */
+export async function sendMail(mail: OutgoingMail) {
+  await transporter().sendMail({
+    from: process.env.MAIL_FROM ?? 'Boreline <no-reply@boreline.invalid>',
+    ...mail,
+  });
+}
+
+export function escapeHtml(text: string) {
+  return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+}
+
+/** A plain, readable message with one action link, in text and HTML. */
+export function linkMail(opts: { to: string; subject: string; intro: string; linkLabel: string; url: string; outro?: string }): OutgoingMail {
+  const text = `${opts.intro}\n\n${opts.linkLabel}: ${opts.url}\n\n${opts.outro ?? ''}`.trim();
+  const html = `<p>${escapeHtml(opts.intro)}</p><p><a href="${escapeHtml(opts.url)}">${escapeHtml(opts.linkLabel)}</a></p>${
+    opts.outro ? `<p>${escapeHtml(opts.outro)}</p>` : ''
+  }`;
+  return { to: opts.to, subject: opts.subject, text, html };
+}

@@ -1,0 +1,2 @@
+const config = { plugins: { tailwindcss: {}, autoprefixer: {} } };
+export default config;

@@ -1,0 +1,59 @@
+# Shared helpers for scripts/start.sh and scripts/test.sh (sourced, not run).
+ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+cd "$ROOT"
+
+log() { printf '\033[1m[boreline]\033[0m %s\n' "$*"; }
+
+# Install npm packages when node_modules is missing or older than the lock file.
+ensure_node_modules() {
+  if [ ! -f node_modules/.package-lock.json ] || [ package-lock.json -nt node_modules/.package-lock.json ]; then
+    log "installing npm packages (npm ci)"
+    npm ci --no-audit --no-fund --loglevel=error
+  fi
+}
+
+# Kill a process recorded in a pid file (and its group), if it is still running.
+stop_pidfile() {
+  local f="$1"
+  if [ -f "$f" ]; then
+    local pid; pid="$(cat "$f")"
+    if [ -n "$pid" ] && kill -0 "$pid" 2>/dev/null; then
+      kill -- "-$pid" 2>/dev/null || kill "$pid" 2>/dev/null || true
+      for _ in $(seq 1 50); do kill -0 "$pid" 2>/dev/null || break; sleep 0.1; done
+      kill -9 "$pid" 2>/dev/null || true
+    fi
+    rm -f "$f"
+  fi
+}
+
+# Free a TCP port held by a leftover process from a killed run.
+free_port() {
+  local port="$1" pids
+  pids="$(ss -ltnpH "sport = :$port" 2>/dev/null | grep -o 'pid=[0-9]*' | cut -d= -f2 | sort -u || true)"
+  if [ -n "$pids" ]; then kill $pids 2>/dev/null || true; sleep 0.3; fi
+}
+
+# Start the fakes of hosted services in their own process group; pid kept in $1.
+start_fakes() {
+  local pidfile="$1" logfile="$2"
+  stop_pidfile "$pidfile"
+  free_port "$(node -e 'console.log(new URL(process.env.SMTP_URL).port)')"
+  free_port "$MAIL_FAKE_HTTP_PORT"
+  mkdir -p "$(dirname "$pidfile")"
+  setsid node_modules/.bin/tsx scripts/fakes/index.ts >"$logfile" 2>&1 &
+  echo $! >"$pidfile"
+  for _ in $(seq 1 100); do
+    curl -fsS "http://127.0.0.1:$MAIL_FAKE_HTTP_PORT/health" >/dev/null 2>&1 && return 0
+    sleep 0.1
+  done
+  log "the fakes did not start; see $logfile"; cat "$logfile"; return 1
+}
+
+wait_for_http() {
+  local url="$1" tries="${2:-300}"
+  for _ in $(seq 1 "$tries"); do
+    curl -fsS -o /dev/null "$url" 2>/dev/null && return 0
+    sleep 0.2
+  done
+  return 1
+}

@@ -1,0 +1,63 @@
+#!/usr/bin/env bash
+# Ensure a project-local PostgreSQL cluster on 127.0.0.1 is installed, initialised, running,
+# and has the boreline role and the databases named in $@ (default: boreline boreline_test).
+# Idempotent: safe to run repeatedly and after a killed run.
+set -euo pipefail
+ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+PGPORT="${PGPORT:-54329}"
+DBS=("$@"); [ ${#DBS[@]} -gt 0 ] || DBS=(boreline boreline_test)
+
+find_bin() { ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V | tail -n 1; }
+PGBIN="$(find_bin || true)"
+if [ -z "$PGBIN" ] || [ ! -x "$PGBIN/initdb" ]; then
+  if [ "$(id -u)" = 0 ] && command -v apt-get >/dev/null; then
+    echo "[pg] installing PostgreSQL from Debian's packages"
+    DEBIAN_FRONTEND=noninteractive apt-get install -y -qq postgresql >/dev/null 2>&1 || {
+      apt-get update -qq >/dev/null && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq postgresql >/dev/null; }
+    PGBIN="$(find_bin)"
+  else
+    echo "[pg] PostgreSQL server binaries are missing: install Debian's 'postgresql' package (sudo apt-get install postgresql)" >&2
+    exit 1
+  fi
+fi
+
+# Run server binaries as the postgres system user when we are root (initdb refuses root).
+as_pg() { if [ "$(id -u)" = 0 ]; then runuser -u postgres -- "$@"; else "$@"; fi; }
+
+# The data folder must be reachable by the postgres user; a clone under /root is not.
+DATA="$ROOT/.data/pg"
+if [ "$(id -u)" = 0 ] && ! runuser -u postgres -- test -x "$ROOT" 2>/dev/null; then
+  key="$(printf '%s' "$ROOT" | sha1sum | cut -c1-12)"
+  DATA="/var/tmp/boreline-pg-$key"
+fi
+export PGDATA="$DATA"
+mkdir -p "$(dirname "$DATA")"
+if [ ! -s "$DATA/PG_VERSION" ]; then
+  echo "[pg] initialising cluster in $DATA"
+  rm -rf "$DATA"; mkdir -p "$DATA"
+  [ "$(id -u)" = 0 ] && chown postgres:postgres "$DATA"
+  chmod 700 "$DATA"
+  as_pg "$PGBIN/initdb" -D "$DATA" --locale=C.UTF-8 -E UTF8 -A trust -U postgres >/dev/null
+fi
+
+if [ "${PG_ACTION:-start}" = stop ]; then
+  as_pg "$PGBIN/pg_ctl" -D "$DATA" -w -m fast stop >/dev/null 2>&1 || true
+  echo "[pg] stopped"; exit 0
+fi
+
+if ! as_pg "$PGBIN/pg_ctl" -D "$DATA" status >/dev/null 2>&1; then
+  rm -f "$DATA/postmaster.pid"
+  as_pg "$PGBIN/pg_ctl" -D "$DATA" -w -t 30 -l "$DATA/server.log" \
+    -o "-c listen_addresses=127.0.0.1 -p $PGPORT -k $DATA -c fsync=off -c max_connections=200" start >/dev/null
+fi
+
+psql_pg() { psql -h 127.0.0.1 -p "$PGPORT" -U postgres -v ON_ERROR_STOP=1 -qtA "$@"; }
+if [ "$(psql_pg -d postgres -c "select 1 from pg_roles where rolname='boreline'")" != 1 ]; then
+  psql_pg -d postgres -c "create role boreline login password 'boreline' createdb"
+fi
+for db in "${DBS[@]}"; do
+  if [ "$(psql_pg -d postgres -c "select 1 from pg_database where datname='$db'")" != 1 ]; then
+    psql_pg -d postgres -c "create database $db owner boreline"
+  fi
+done
+echo "[pg] ready on 127.0.0.1:$PGPORT (data $DATA)"

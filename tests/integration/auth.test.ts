@@ -1,0 +1,126 @@
+// Sign-in, sign-up and staff invitations through the real HTTP endpoints and the real database.
+import { test } from 'node:test';
+import assert from 'node:assert/strict';
+import { HttpSession } from '../support/http-session';
+import { DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
+import { waitForMail, firstLink } from '../support/mail';
+import { query } from '../support/db';
+
+test('password sign-in: the right password signs in, a wrong one does not', async () => {
+  const good = new HttpSession();
+  const res = await good.signInWithPassword(DEMO.organiser, DEMO_PASSWORD);
+  assert.equal(res.status, 200);
+  assert.ok(good.hasCookie(/next-auth\.session-token$/), 'session cookie set');
+  assert.equal((await good.session())?.user?.email, DEMO.organiser);
+
+  const bad = new HttpSession();
+  const badRes = await bad.signInWithPassword(DEMO.organiser, 'not-the-password');
+  assert.equal(badRes.status, 401);
+  assert.equal(bad.hasCookie(/next-auth\.session-token$/), false);
+  assert.equal(await bad.session(), null);
+});
+
+test('e-mail link sign-in: the link reaches the fake outbox and signs the person in', async () => {
+  const s = new HttpSession();
+  const csrfToken = await s.csrfToken();
+  const res = await s.fetch('/api/auth/signin/email', {
+    method: 'POST',
+    headers: { 'content-type': 'application/x-www-form-urlencoded' },
+    body: new URLSearchParams({ csrfToken, email: DEMO.steward, json: 'true' }),
+  });
+  assert.equal(res.status, 200);
+  const mail = await waitForMail(DEMO.steward, { subject: /sign-in link/ });
+  const link = firstLink(mail);
+  assert.match(link, /\/api\/auth\/callback\/email\?/);
+  const callback = await s.fetch(link);
+  assert.equal(callback.status, 302);
+  assert.equal((await s.session())?.user?.email, DEMO.steward);
+
+  const again = new HttpSession();
+  const reuse = await again.fetch(link);
+  assert.match(reuse.headers.get('location') ?? '', /error=Verification/, 'a used link does not work twice');
+});
+
+test('sign-up creates an entrant who can sign in', async () => {
+  const email = uniqueEmail('entrant');
+  const s = new HttpSession();
+  const { res, body } = await s.json('/api/accounts', { name: 'Tess Marram', email, password: 'long-enough-pw' });
+  assert.equal(res.status, 201, JSON.stringify(body));
+  assert.equal(body.data.email, email);
+  assert.equal((await s.signInWithPassword(email, 'long-enough-pw')).status, 200);
+});
+
+test('sign-up bad input: malformed e-mail, short password, existing e-mail each get a field message and create nothing', async () => {
+  const before = await query<{ n: string }>('select count(*) as n from users');
+  const s = new HttpSession();
+  const cases = [
+    { body: { name: 'A', email: 'not-an-email', password: 'long-enough-pw' }, field: 'email', status: 400 },
+    { body: { name: 'A', email: uniqueEmail(), password: 'short' }, field: 'password', status: 400 },
+    { body: { name: 'A', email: DEMO.entrant, password: 'long-enough-pw' }, field: 'email', status: 409 },
+    { body: { email: uniqueEmail(), password: 'long-enough-pw' }, field: 'name', status: 400 },
+  ];
+  for (const c of cases) {
+    const { res, body } = await s.json('/api/accounts', c.body);
+    assert.equal(res.status, c.status, JSON.stringify(body));
+    const detail = body.error.details.find((d: { field: string }) => d.field === c.field);
+    assert.ok(detail, `names the field ${c.field}: ${JSON.stringify(body)}`);
+    assert.ok(detail.message.length > 10, 'a readable message');
+  }
+  const after = await query<{ n: string }>('select count(*) as n from users');
+  assert.equal(after[0].n, before[0].n);
+});
+
+test('sign-up refuses a body that is not JSON, with a clear error', async () => {
+  const s = new HttpSession();
+  const res = await s.fetch('/api/accounts', { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{nope' });
+  assert.equal(res.status, 400);
+  assert.equal((await res.json()).error.code, 'invalid_json');
+});
+
+test('an organiser invites a scrutineer; the e-mailed link signs them in with the role at that event', async () => {
+  const organiser = new HttpSession();
+  await organiser.signInWithPassword(DEMO.organiser, DEMO_PASSWORD);
+  const email = uniqueEmail('scrut');
+  const { res, body } = await organiser.json(`/api/events/${DEMO.meetingId}/invitations`, { email, role: 'scrutineer' });
+  assert.equal(res.status, 201, JSON.stringify(body));
+
+  const mail = await waitForMail(email, { subject: /invited/ });
+  const link = firstLink(mail);
+  const token = new URL(link).pathname.split('/').pop()!;
+  const invitee = new HttpSession();
+  const csrfToken = await invitee.csrfToken();
+  const signIn = await invitee.fetch('/api/auth/callback/invitation', {
+    method: 'POST',
+    headers: { 'content-type': 'application/x-www-form-urlencoded' },
+    body: new URLSearchParams({ csrfToken, token, json: 'true' }),
+  });
+  assert.equal(signIn.status, 200);
+  assert.equal((await invitee.session())?.user?.email, email);
+  const roles = await query<{ role: string }>(
+    'select s.role from event_staff s join users u on u.id = s.user_id where u.email = $1 and s.event_id = $2',
+    [email, DEMO.meetingId],
+  );
+  assert.deepEqual(roles.map((r) => r.role), ['scrutineer']);
+
+  const reuse = new HttpSession();
+  const t2 = await reuse.csrfToken();
+  const second = await reuse.fetch('/api/auth/callback/invitation', {
+    method: 'POST',
+    headers: { 'content-type': 'application/x-www-form-urlencoded' },
+    body: new URLSearchParams({ csrfToken: t2, token, json: 'true' }),
+  });
+  assert.equal(second.status, 401, 'an invitation works once');
+});
+
+test('only the event organiser may invite staff: an entrant gets 403, anonymous 401, nothing stored', async () => {
+  const before = await query<{ n: string }>('select count(*) as n from staff_invitations');
+  const entrant = new HttpSession();
+  await entrant.signInWithPassword(DEMO.entrant, DEMO_PASSWORD);
+  const r1 = await entrant.json(`/api/events/${DEMO.meetingId}/invitations`, { email: uniqueEmail(), role: 'steward' });
+  assert.equal(r1.res.status, 403);
+  const anon = new HttpSession();
+  const r2 = await anon.json(`/api/events/${DEMO.meetingId}/invitations`, { email: uniqueEmail(), role: 'steward' });
+  assert.equal(r2.res.status, 401);
+  const after = await query<{ n: string }>('select count(*) as n from staff_invitations');
+  assert.equal(after[0].n, before[0].n);
+});

@@ -1,0 +1,16 @@
+import pg from 'pg';
+
+let pool: pg.Pool | undefined;
+
+/** Direct SQL against the test database, to check what the app stored. */
+export async function query<T = Record<string, unknown>>(sql: string, params: unknown[] = []): Promise<T[]> {
+  pool ??= new pg.Pool({ connectionString: process.env.DATABASE_URL, max: 2, allowExitOnIdle: true });
+  const res = await pool.query(sql, params);
+  return res.rows as T[];
+}
+
+export async function closeDb() {
+  await pool?.end();
+  pool = undefined;
+}
+

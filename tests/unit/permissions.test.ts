@@ -1,0 +1,49 @@
+// The one permission table: each role's allowed and denied permissions, written out here by
+// hand from the product's role descriptions (common practice at race meetings, no single source:
+// scrutineers inspect, stewards decide protests, organisers run the meeting and publish).
+import { test } from 'node:test';
+import assert from 'node:assert/strict';
+import { PERMISSIONS, ROLES, permissionsOf, roleCan, rolesCan, type Permission, type Role } from '../../lib/auth/permissions';
+import { navFor } from '../../lib/navigation';
+
+const EXPECTED: Record<Role, Permission[]> = {
+  entrant: ['account.view', 'boat.manage_own', 'entry.submit_own', 'protest.lodge'],
+  scrutineer: ['account.view', 'inspection.record', 'inspection.board'],
+  chief_scrutineer: ['account.view', 'entry.view_all', 'tags.print', 'inspection.record', 'inspection.board', 'inspection.assign_reinspection'],
+  steward: ['account.view', 'entry.view_all', 'inspection.assign_reinspection', 'protest.decide', 'protest.view_all', 'audit.read'],
+  organiser: [
+    'account.view', 'event.create', 'event.edit', 'event.staff_manage', 'class.edit', 'entry.view_all', 'entry.cancel',
+    'tags.print', 'report.publish', 'results.publish', 'inspection.board', 'protest.view_all', 'audit.read', 'dev.outbox',
+  ],
+  admin: ['account.view', 'event.create', 'admin.manage_users', 'dev.outbox'],
+};
+
+for (const role of ROLES) {
+  test(`${role}: allowed exactly the expected permissions`, () => {
+    assert.deepEqual(new Set(permissionsOf(role)), new Set(EXPECTED[role]));
+  });
+  test(`${role}: denied every other permission`, () => {
+    for (const p of Object.keys(PERMISSIONS) as Permission[]) {
+      if (!EXPECTED[role].includes(p)) assert.equal(roleCan(role, p), false, `${role} must not have ${p}`);
+    }
+  });
+}
+
+test('separation of duties: no one decides a protest and records an inspection with one role', () => {
+  for (const role of ROLES) assert.ok(!(roleCan(role, 'protest.decide') && roleCan(role, 'inspection.record')), role);
+});
+
+test('an entrant cannot record inspections or decide protests; a combination of roles adds up', () => {
+  assert.equal(rolesCan(['entrant'], 'inspection.record'), false);
+  assert.equal(rolesCan(['entrant'], 'protest.decide'), false);
+  assert.equal(rolesCan(['entrant', 'scrutineer'], 'inspection.record'), true);
+});
+
+test('navigation shows each role only its areas', () => {
+  const hrefs = (roles: Role[]) => navFor(roles).map((i) => i.href);
+  assert.deepEqual(hrefs(['entrant']), ['/home', '/calculator', '/account']);
+  assert.ok(hrefs(['entrant', 'organiser']).includes('/organise'));
+  assert.ok(!hrefs(['entrant', 'scrutineer']).includes('/organise'));
+  assert.ok(hrefs(['entrant', 'admin']).includes('/admin'));
+  assert.ok(!hrefs(['entrant', 'organiser']).includes('/admin'));
+});
