@@ -18,6 +18,12 @@ export MAIL_FROM="Boreline <no-reply@boreline.invalid>"
 export FAKES_DIR="$ROOT/.data/test-fakes"
 export NEXT_DIST_DIR=".next-test"
 export TEST_ARTIFACTS="$ROOT/test-results"
+export STRIPE_SECRET_KEY="sk_test_boreline_local_fake"
+export STRIPE_WEBHOOK_SECRET="whsec_boreline_test_fake"
+export STRIPE_API_URL="http://127.0.0.1:${TEST_PAYMENTS_PORT:-12211}"
+export PAYMENTS_WEBHOOK_URL="http://127.0.0.1:$PORT/api/payments/webhook"
+export S3_ENDPOINT="http://127.0.0.1:${TEST_S3_PORT:-9850}"
+export S3_REGION="us-east-1" S3_BUCKET="boreline-test" S3_ACCESS_KEY_ID="boreline-local" S3_SECRET_ACCESS_KEY="boreline-local-secret"
 export PUBLIC_API_RATE_LIMIT_PER_MINUTE="${PUBLIC_API_RATE_LIMIT_PER_MINUTE:-100000}"
 
 ensure_node_modules
