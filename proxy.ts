@@ -5,5 +5,5 @@ import { withAuth } from 'next-auth/middleware';
 export default withAuth({ pages: { signIn: '/sign-in' } });
 
 export const config = {
-  matcher: ['/home/:path*', '/account/:path*', '/organise/:path*', '/admin/:path*'],
+  matcher: ['/home/:path*', '/account/:path*', '/organise/:path*', '/admin/:path*', '/boats/:path*', '/entries/:path*'],
 };

@@ -6,6 +6,8 @@ export type NavItem = { href: string; label: string; roles: readonly Role[] };
 
 export const NAV_ITEMS: readonly NavItem[] = [
   { href: '/home', label: 'Home', roles: ['entrant'] },
+  { href: '/boats', label: 'My boats', roles: ['entrant'] },
+  { href: '/entries', label: 'My entries', roles: ['entrant'] },
   { href: '/calculator', label: 'Jet calculator', roles: ['entrant'] },
   { href: '/organise', label: 'Organise', roles: ['organiser', 'admin'] },
   { href: '/admin', label: 'Administration', roles: ['admin'] },

@@ -14,6 +14,13 @@ export class Event extends Model<InferAttributes<Event>, InferCreationAttributes
   declare endsOn: string;
   declare timeZone: string;
   declare status: CreationOptional<EventStatus>;
+  declare waterKind: CreationOptional<'fresh' | 'sea'>;
+  declare waterTemperatureC: CreationOptional<number>;
+  declare waterDensityKgM3: CreationOptional<number | null>;
+  declare protestWindowMinutes: CreationOptional<number>;
+  declare currency: CreationOptional<string>;
+  declare entryFeeMinor: CreationOptional<number>;
+  declare protestFeeMinor: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -55,6 +62,13 @@ export function initEvents(sequelize: Sequelize) {
       endsOn: { type: DataTypes.DATEONLY, allowNull: false },
       timeZone: { type: DataTypes.STRING, allowNull: false },
       status: { type: DataTypes.STRING, allowNull: false, defaultValue: 'draft' },
+      waterKind: { type: DataTypes.STRING, allowNull: false, defaultValue: 'fresh' },
+      waterTemperatureC: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 15 },
+      waterDensityKgM3: { type: DataTypes.DOUBLE },
+      protestWindowMinutes: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 30 },
+      currency: { type: DataTypes.STRING(3), allowNull: false, defaultValue: 'NZD' },
+      entryFeeMinor: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+      protestFeeMinor: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

@@ -3,6 +3,9 @@ import { User } from './user';
 import { Account, Session, VerificationToken, initAuthRecords } from './auth-records';
 import { Organisation, OrganisationMember, initOrganisations } from './organisation';
 import { Event, EventStaff, StaffInvitation, initEvents } from './event';
+import { RaceClass, ClassRuleVersion, initRaceClasses } from './race-class';
+import { Boat, BoatDocument, BoatTag, initBoats } from './boat';
+import { Entry, PaymentEvent, initEntries } from './entry';
 
 // Defines every model and association on one Sequelize instance. Tables come from migrations/.
 export function initModels(sequelize: Sequelize) {
@@ -10,6 +13,9 @@ export function initModels(sequelize: Sequelize) {
   initAuthRecords(sequelize);
   initOrganisations(sequelize);
   initEvents(sequelize);
+  initRaceClasses(sequelize);
+  initBoats(sequelize);
+  initEntries(sequelize);
 
   Account.belongsTo(User, { foreignKey: 'userId' });
   Session.belongsTo(User, { foreignKey: 'userId' });
@@ -21,9 +27,27 @@ export function initModels(sequelize: Sequelize) {
   EventStaff.belongsTo(Event, { foreignKey: 'eventId' });
   EventStaff.belongsTo(User, { foreignKey: 'userId' });
   StaffInvitation.belongsTo(Event, { foreignKey: 'eventId' });
+  Event.hasMany(RaceClass, { foreignKey: 'eventId', as: 'classes' });
+  RaceClass.belongsTo(Event, { foreignKey: 'eventId' });
+  RaceClass.hasMany(ClassRuleVersion, { foreignKey: 'classId', as: 'versions' });
+  ClassRuleVersion.belongsTo(RaceClass, { foreignKey: 'classId' });
+  Boat.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
+  Boat.hasMany(BoatDocument, { foreignKey: 'boatId', as: 'documents' });
+  Boat.hasMany(BoatTag, { foreignKey: 'boatId', as: 'tags' });
+  BoatTag.belongsTo(Boat, { foreignKey: 'boatId' });
+  Entry.belongsTo(Event, { foreignKey: 'eventId' });
+  Entry.belongsTo(RaceClass, { foreignKey: 'classId' });
+  Entry.belongsTo(Boat, { foreignKey: 'boatId' });
+  Entry.belongsTo(User, { foreignKey: 'entrantId', as: 'entrant' });
 
-  return { User, Account, Session, VerificationToken, Organisation, OrganisationMember, Event, EventStaff, StaffInvitation };
+  return {
+    User, Account, Session, VerificationToken, Organisation, OrganisationMember, Event, EventStaff, StaffInvitation,
+    RaceClass, ClassRuleVersion, Boat, BoatDocument, BoatTag, Entry, PaymentEvent,
+  };
 }
 
 export type Models = ReturnType<typeof initModels>;
-export { User, Account, Session, VerificationToken, Organisation, OrganisationMember, Event, EventStaff, StaffInvitation };
+export {
+  User, Account, Session, VerificationToken, Organisation, OrganisationMember, Event, EventStaff, StaffInvitation,
+  RaceClass, ClassRuleVersion, Boat, BoatDocument, BoatTag, Entry, PaymentEvent,
+};

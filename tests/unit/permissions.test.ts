@@ -41,7 +41,7 @@ test('an entrant cannot record inspections or decide protests; a combination of 
 
 test('navigation shows each role only its areas', () => {
   const hrefs = (roles: Role[]) => navFor(roles).map((i) => i.href);
-  assert.deepEqual(hrefs(['entrant']), ['/home', '/calculator', '/account']);
+  assert.deepEqual(hrefs(['entrant']), ['/home', '/boats', '/entries', '/calculator', '/account']);
   assert.ok(hrefs(['entrant', 'organiser']).includes('/organise'));
   assert.ok(!hrefs(['entrant', 'scrutineer']).includes('/organise'));
   assert.ok(hrefs(['entrant', 'admin']).includes('/admin'));
