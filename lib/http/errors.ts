@@ -1,4 +1,5 @@
 import { ZodError } from 'zod';
+import { EngineInputError } from '@/lib/engine/engine-input-error';
 
 // One error type for expected failures, with a safe message for people.
 export class AppError extends Error {
@@ -53,6 +54,9 @@ export function toErrorResponse(err: unknown): Response {
     status = 400;
     const issues = fieldIssues(err);
     body = { error: { code: 'invalid_input', message: issues.map((i) => `${i.field}: ${i.message}`).join('; '), details: issues } };
+  } else if (err instanceof EngineInputError) {
+    status = 400;
+    body = { error: { code: 'invalid_input', message: `${err.field}: ${err.message}`, details: [{ field: err.field, message: err.message }] } };
   } else if (err instanceof SyntaxError) {
     status = 400;
     body = { error: { code: 'invalid_json', message: 'The request body is not valid JSON.' } };

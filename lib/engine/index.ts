@@ -1,0 +1,11 @@
+// Public surface of the calculation engine: plain TypeScript, no framework imports.
+export * from './engine-input-error';
+export * from './units';
+export * from './water';
+export * from './jet';
+export * from './jet-crossover';
+export * from './jet-uncertainty';
+export * from './measurement';
+export * from './conformity';
+export * from './parity';
+export * from './calculation-api';
