@@ -40,7 +40,7 @@ start_fakes() {
   free_port "$(node -e 'console.log(new URL(process.env.SMTP_URL).port)')"
   free_port "$MAIL_FAKE_HTTP_PORT"
   mkdir -p "$(dirname "$pidfile")"
-  setsid node_modules/.bin/tsx scripts/fakes/index.ts >"$logfile" 2>&1 &
+  setsid node_modules/.bin/tsx scripts/fakes/index.ts >"$logfile" 2>&1 9>&- &
   echo $! >"$pidfile"
   for _ in $(seq 1 100); do
     curl -fsS "http://127.0.0.1:$MAIL_FAKE_HTTP_PORT/health" >/dev/null 2>&1 && return 0

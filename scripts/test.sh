@@ -6,6 +6,10 @@
 set -euo pipefail
 source "$(dirname "$0")/lib.sh"
 
+# One test run at a time per checkout: runs share the test database, ports and build folder.
+exec 9>"$ROOT/.data/test.lock" 2>/dev/null || { mkdir -p "$ROOT/.data"; exec 9>"$ROOT/.data/test.lock"; }
+if ! flock -n 9; then log "another test run is in progress here; waiting for it"; flock 9; fi
+
 export NODE_ENV=test TZ=UTC NEXT_TELEMETRY_DISABLED=1 BORELINE_DEV_TOOLS=1
 export PGPORT="${TEST_PGPORT:-54329}"
 export PORT="${TEST_PORT:-3100}"
@@ -57,7 +61,7 @@ if [ $needs_app = 1 ]; then
   log "building the app (without DATABASE_URL, proving nothing touches the database at build time)"
   env -u DATABASE_URL npx next build >"$RUN/build.log" 2>&1 || { cat "$RUN/build.log"; exit 1; }
   stop_pidfile "$RUN/app.pid"; free_port "$PORT"
-  setsid npx next start -p "$PORT" >"$RUN/app.log" 2>&1 &
+  setsid npx next start -p "$PORT" >"$RUN/app.log" 2>&1 9>&- &
   echo $! >"$RUN/app.pid"
   wait_for_http "http://127.0.0.1:$PORT/api/health" || { log "the app did not start"; cat "$RUN/app.log"; exit 1; }
 fi
