@@ -6,6 +6,7 @@ import { Event, EventStaff, StaffInvitation, initEvents } from './event';
 import { RaceClass, ClassRuleVersion, initRaceClasses } from './race-class';
 import { Boat, BoatDocument, BoatTag, initBoats } from './boat';
 import { Entry, PaymentEvent, initEntries } from './entry';
+import { Instrument, Inspection, InspectionPhoto, Reinspection, initInspections } from './inspection';
 
 // Defines every model and association on one Sequelize instance. Tables come from migrations/.
 export function initModels(sequelize: Sequelize) {
@@ -16,6 +17,7 @@ export function initModels(sequelize: Sequelize) {
   initRaceClasses(sequelize);
   initBoats(sequelize);
   initEntries(sequelize);
+  initInspections(sequelize);
 
   Account.belongsTo(User, { foreignKey: 'userId' });
   Session.belongsTo(User, { foreignKey: 'userId' });
@@ -39,10 +41,18 @@ export function initModels(sequelize: Sequelize) {
   Entry.belongsTo(RaceClass, { foreignKey: 'classId' });
   Entry.belongsTo(Boat, { foreignKey: 'boatId' });
   Entry.belongsTo(User, { foreignKey: 'entrantId', as: 'entrant' });
+  Instrument.belongsTo(Event, { foreignKey: 'eventId' });
+  Inspection.belongsTo(Entry, { foreignKey: 'entryId' });
+  Inspection.belongsTo(User, { foreignKey: 'recordedById', as: 'recordedBy' });
+  Inspection.belongsTo(ClassRuleVersion, { foreignKey: 'ruleVersionId', as: 'ruleVersion' });
+  Inspection.hasMany(InspectionPhoto, { foreignKey: 'inspectionId', as: 'photos' });
+  Entry.hasMany(Inspection, { foreignKey: 'entryId', as: 'inspections' });
+  Reinspection.belongsTo(Entry, { foreignKey: 'entryId' });
 
   return {
     User, Account, Session, VerificationToken, Organisation, OrganisationMember, Event, EventStaff, StaffInvitation,
     RaceClass, ClassRuleVersion, Boat, BoatDocument, BoatTag, Entry, PaymentEvent,
+    Instrument, Inspection, InspectionPhoto, Reinspection,
   };
 }
 
@@ -50,4 +60,5 @@ export type Models = ReturnType<typeof initModels>;
 export {
   User, Account, Session, VerificationToken, Organisation, OrganisationMember, Event, EventStaff, StaffInvitation,
   RaceClass, ClassRuleVersion, Boat, BoatDocument, BoatTag, Entry, PaymentEvent,
+  Instrument, Inspection, InspectionPhoto, Reinspection,
 };
