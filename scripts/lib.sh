@@ -37,13 +37,18 @@ free_port() {
 start_fakes() {
   local pidfile="$1" logfile="$2"
   stop_pidfile "$pidfile"
+  local payments_port storage_port
+  payments_port="$(node -e 'console.log(new URL(process.env.STRIPE_API_URL).port)')"
+  storage_port="$(node -e 'console.log(new URL(process.env.S3_ENDPOINT).port)')"
   free_port "$(node -e 'console.log(new URL(process.env.SMTP_URL).port)')"
-  free_port "$MAIL_FAKE_HTTP_PORT"
+  free_port "$MAIL_FAKE_HTTP_PORT"; free_port "$payments_port"; free_port "$storage_port"
   mkdir -p "$(dirname "$pidfile")"
   setsid node_modules/.bin/tsx scripts/fakes/index.ts >"$logfile" 2>&1 9>&- &
   echo $! >"$pidfile"
-  for _ in $(seq 1 100); do
-    curl -fsS "http://127.0.0.1:$MAIL_FAKE_HTTP_PORT/health" >/dev/null 2>&1 && return 0
+  for _ in $(seq 1 150); do
+    if curl -fsS "http://127.0.0.1:$MAIL_FAKE_HTTP_PORT/health" >/dev/null 2>&1 \
+      && curl -fsS "http://127.0.0.1:$payments_port/_fake/health" >/dev/null 2>&1 \
+      && curl -fsS "http://127.0.0.1:$storage_port/_fake/health" >/dev/null 2>&1; then return 0; fi
     sleep 0.1
   done
   log "the fakes did not start; see $logfile"; cat "$logfile"; return 1
