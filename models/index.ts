@@ -7,6 +7,7 @@ import { RaceClass, ClassRuleVersion, initRaceClasses } from './race-class';
 import { Boat, BoatDocument, BoatTag, initBoats } from './boat';
 import { Entry, PaymentEvent, initEntries } from './entry';
 import { Instrument, Inspection, InspectionPhoto, Reinspection, initInspections } from './inspection';
+import { ParityReport, initParityReports } from './parity-report';
 
 // Defines every model and association on one Sequelize instance. Tables come from migrations/.
 export function initModels(sequelize: Sequelize) {
@@ -18,6 +19,7 @@ export function initModels(sequelize: Sequelize) {
   initBoats(sequelize);
   initEntries(sequelize);
   initInspections(sequelize);
+  initParityReports(sequelize);
 
   Account.belongsTo(User, { foreignKey: 'userId' });
   Session.belongsTo(User, { foreignKey: 'userId' });
@@ -48,11 +50,13 @@ export function initModels(sequelize: Sequelize) {
   Inspection.hasMany(InspectionPhoto, { foreignKey: 'inspectionId', as: 'photos' });
   Entry.hasMany(Inspection, { foreignKey: 'entryId', as: 'inspections' });
   Reinspection.belongsTo(Entry, { foreignKey: 'entryId' });
+  ParityReport.belongsTo(RaceClass, { foreignKey: 'classId' });
+  ParityReport.belongsTo(Event, { foreignKey: 'eventId' });
 
   return {
     User, Account, Session, VerificationToken, Organisation, OrganisationMember, Event, EventStaff, StaffInvitation,
     RaceClass, ClassRuleVersion, Boat, BoatDocument, BoatTag, Entry, PaymentEvent,
-    Instrument, Inspection, InspectionPhoto, Reinspection,
+    Instrument, Inspection, InspectionPhoto, Reinspection, ParityReport,
   };
 }
 
@@ -60,5 +64,5 @@ export type Models = ReturnType<typeof initModels>;
 export {
   User, Account, Session, VerificationToken, Organisation, OrganisationMember, Event, EventStaff, StaffInvitation,
   RaceClass, ClassRuleVersion, Boat, BoatDocument, BoatTag, Entry, PaymentEvent,
-  Instrument, Inspection, InspectionPhoto, Reinspection,
+  Instrument, Inspection, InspectionPhoto, Reinspection, ParityReport,
 };

@@ -28,7 +28,7 @@ export function InviteStaffForm({ eventId }: { eventId: string }) {
     if (!parsed.success) return setErrors(fieldErrors(parsed.error));
     setBusy(true);
     setErrors({});
-    const res = await fetch(`/api/events/${eventId}/invitations`, {
+    const res = await fetch(`/api/events/${eventId}/staff`, {
       method: 'POST',
       headers: { 'content-type': 'application/json' },
       body: JSON.stringify(parsed.data),
@@ -43,14 +43,18 @@ export function InviteStaffForm({ eventId }: { eventId: string }) {
       return;
     }
     formEl.reset();
-    setMessage(`Invitation sent to ${body.data.email}.`);
+    setMessage(
+      body.data.outcome === 'assigned'
+        ? `${parsed.data.email} already has an account and now has the role (they were told by e-mail).`
+        : `Invitation sent to ${parsed.data.email}: the link in it signs them in with the role.`,
+    );
     router.refresh();
   }
 
   return (
     <form onSubmit={onSubmit} noValidate className="rounded-lg bg-paper-deep p-4">
       <fieldset disabled={isBusy} className="grid gap-3 sm:grid-cols-[1fr_12rem_auto] sm:items-end">
-        <legend className="mb-2 font-bold">Invite staff by e-mail</legend>
+        <legend className="mb-2 font-bold">Add staff: a registered person gets the role at once, anyone else an e-mailed invitation</legend>
         <TextField id={`invite-email-${eventId}`} name="email" label="E-mail" type="email" error={errors.email} />
         <div>
           <label htmlFor={`invite-role-${eventId}`} className="field-label">Role</label>

@@ -3,6 +3,7 @@ import { redirect } from 'next/navigation';
 import { format, parseISO } from 'date-fns';
 import { getActor, allRolesOf } from '@/lib/auth/actor';
 import { listOrganisedMeetings } from '@/lib/events/list-organised-meetings';
+import Link from 'next/link';
 import { InviteStaffForm } from './invite-staff-form';
 
 export const metadata: Metadata = { title: 'Organise' };
@@ -22,12 +23,15 @@ export default async function OrganisePage() {
   const meetings = await listOrganisedMeetings(actor);
   return (
     <div className="space-y-6">
-      <h1 data-testid="organise-heading">Organise</h1>
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <h1 data-testid="organise-heading">Organise</h1>
+        {actor.organiserOf.length > 0 && <Link href="/organise/events/new" className="btn-primary">New meeting</Link>}
+      </div>
       {meetings.length === 0 && <p>You organise no meetings yet.</p>}
       {meetings.map((m) => (
         <section key={m.id} className="card space-y-4" aria-labelledby={`m-${m.id}`}>
           <div>
-            <h2 id={`m-${m.id}`}>{m.name}</h2>
+            <h2 id={`m-${m.id}`}><Link href={`/organise/events/${m.id}`}>{m.name}</Link></h2>
             <p className="text-ink-soft">{m.venue} · from {format(parseISO(m.startsOn), 'd MMM yyyy')} · {m.status.replace('_', ' ')}</p>
           </div>
           <div>
@@ -53,6 +57,10 @@ export default async function OrganisePage() {
                 </ul>
               </>
             )}
+          </div>
+          <div className="flex flex-wrap gap-2">
+            <Link href={`/organise/events/${m.id}`} className="btn-primary">Meeting, classes and rules</Link>
+            <Link href={`/organise/events/${m.id}/entries`} className="btn-secondary">Entries</Link>
           </div>
           <InviteStaffForm eventId={m.id} />
         </section>

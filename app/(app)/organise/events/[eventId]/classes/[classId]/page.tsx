@@ -1,0 +1,87 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound, redirect } from 'next/navigation';
+import { format } from 'date-fns';
+import { getActor, can } from '@/lib/auth/actor';
+import { getClassWithVersions } from '@/lib/classes/manage-classes';
+import { diffRules, ruleLabel } from '@/lib/classes/diff-rules';
+import { parseId } from '@/lib/http/ids';
+import { AppError } from '@/lib/http/errors';
+import { SafetyNote } from '@/components/safety-note';
+import { RulesForm } from './rules-form';
+import { PublishForm } from './publish-form';
+
+export const metadata: Metadata = { title: 'Class rules' };
+
+const show = (v: unknown) => (v === null || v === undefined ? '—' : Array.isArray(v) ? v.join(', ') : String(v));
+
+export default async function ClassPage({ params }: { params: Promise<{ eventId: string; classId: string }> }) {
+  const actor = await getActor();
+  if (!actor) redirect('/sign-in');
+  const p = await params;
+  let eventId: string, classId: string;
+  try {
+    eventId = parseId(p.eventId);
+    classId = parseId(p.classId);
+  } catch {
+    notFound();
+  }
+  if (!can(actor, 'class.edit', { eventId })) redirect('/not-allowed');
+  let data;
+  try {
+    data = await getClassWithVersions(actor, eventId, classId);
+  } catch (err) {
+    if (err instanceof AppError && err.status === 404) notFound();
+    throw err;
+  }
+  const { raceClass, versions } = data;
+  const latest = versions[0];
+  const isDraft = latest.status === 'draft';
+  return (
+    <div className="space-y-6">
+      <nav aria-label="Breadcrumb" className="text-sm">
+        <Link href="/organise">Organise</Link> / <Link href={`/organise/events/${eventId}`}>Meeting</Link> / {raceClass.code}
+      </nav>
+      <h1>{raceClass.code} · {raceClass.name}</h1>
+      {raceClass.description && <p className="text-ink-soft">{raceClass.description}</p>}
+      <SafetyNote />
+      <section className="card space-y-4" aria-labelledby="edit">
+        <h2 id="edit">{isDraft ? `Draft rules, version ${latest.version}` : `Rules (version ${latest.version} is published and frozen)`}</h2>
+        {!isDraft && <p>Saving opens draft version {latest.version + 1}; version {latest.version} stays exactly as published.</p>}
+        <RulesForm eventId={eventId} classId={classId} rules={latest.rules} editingVersion={latest.version} isDraft={isDraft} />
+        {isDraft && <PublishForm eventId={eventId} classId={classId} version={latest.version} />}
+      </section>
+      <section className="card space-y-4" aria-labelledby="history">
+        <h2 id="history">Version history</h2>
+        <ol className="space-y-4" data-testid="version-history">
+          {versions.map((v, i) => {
+            const previous = versions[i + 1];
+            const changes = previous ? diffRules(previous.rules, v.rules) : [];
+            return (
+              <li key={v.id} className="rounded-lg border border-paper-line p-4">
+                <p className="font-bold">
+                  Version {v.version} · {v.status === 'published' ? `published ${format(new Date(v.publishedAt!), 'd MMM yyyy HH:mm')}, in force from ${format(new Date(v.effectiveFrom!), 'd MMM yyyy HH:mm')}` : 'draft'}
+                </p>
+                {v.changeNote && <p className="text-ink-soft">{v.changeNote}</p>}
+                {previous && (changes.length === 0 ? <p className="text-sm">No change from version {previous.version}.</p> : (
+                  <table className="mt-2 w-full text-left text-sm">
+                    <thead><tr><th className="py-1 pr-2">Rule</th><th className="py-1 pr-2">v{previous.version}</th><th className="py-1">v{v.version}</th></tr></thead>
+                    <tbody>
+                      {changes.map((c) => (
+                        <tr key={c.path} className="border-t border-paper-line">
+                          <td className="py-1 pr-2">{ruleLabel(c.path)}</td>
+                          <td className="figure py-1 pr-2 text-fail-600 line-through">{show(c.before)}</td>
+                          <td className="figure py-1 font-bold text-pass-600">{show(c.after)}</td>
+                        </tr>
+                      ))}
+                    </tbody>
+                  </table>
+                ))}
+              </li>
+            );
+          })}
+        </ol>
+      </section>
+    </div>
+  );
+}

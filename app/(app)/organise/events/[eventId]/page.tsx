@@ -1,0 +1,73 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound, redirect } from 'next/navigation';
+import { getActor, can } from '@/lib/auth/actor';
+import { getEventForOrganiser } from '@/lib/events/save-event';
+import { listEventClasses, listCopyableClasses } from '@/lib/classes/manage-classes';
+import { parseId } from '@/lib/http/ids';
+import { EventForm } from '../event-form';
+import { NewClassForm } from './new-class-form';
+import { InviteStaffForm } from '../../invite-staff-form';
+
+export const metadata: Metadata = { title: 'Meeting' };
+
+export default async function EventPage({ params }: { params: Promise<{ eventId: string }> }) {
+  const actor = await getActor();
+  if (!actor) redirect('/sign-in');
+  let eventId: string;
+  try {
+    eventId = parseId((await params).eventId, 'event');
+  } catch {
+    notFound();
+  }
+  if (!can(actor, 'event.edit', { eventId })) redirect('/not-allowed');
+  const [event, classes, copyable] = await Promise.all([
+    getEventForOrganiser(actor, eventId),
+    listEventClasses(actor, eventId),
+    listCopyableClasses(actor, eventId),
+  ]);
+  return (
+    <div className="space-y-6">
+      <nav aria-label="Breadcrumb" className="text-sm"><Link href="/organise">Organise</Link> / {event.name}</nav>
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <h1>{event.name}</h1>
+        <div className="flex flex-wrap gap-2">
+          <Link href={`/organise/events/${event.id}/entries`} className="btn-primary">Entries</Link>
+          <a href={`/api/events/${event.id}/tag-sheet?sheet=a4-2x7`} className="btn-secondary">Tag sheet (A4)</a>
+          <a href={`/api/events/${event.id}/tag-sheet?sheet=letter-2x5`} className="btn-secondary">Tag sheet (Letter)</a>
+        </div>
+      </div>
+
+      <section aria-labelledby="classes" className="card space-y-4">
+        <h2 id="classes">Classes and rules</h2>
+        {classes.length === 0 ? <p>No classes yet.</p> : (
+          <ul className="divide-y divide-paper-line">
+            {classes.map((c) => (
+              <li key={c.id} className="flex flex-wrap items-center justify-between gap-2 py-3">
+                <Link href={`/organise/events/${event.id}/classes/${c.id}`} className="text-lg font-bold">
+                  {c.code} · {c.name}
+                </Link>
+                <span className="text-sm">
+                  {c.publishedVersion ? `rules v${c.publishedVersion} published` : 'rules not published'}
+                  {c.latestStatus === 'draft' && ` · draft v${c.latestVersion} open`}
+                </span>
+              </li>
+            ))}
+          </ul>
+        )}
+        <NewClassForm eventId={event.id} copyable={copyable} />
+      </section>
+
+      <section aria-labelledby="details" className="card space-y-4">
+        <h2 id="details">Meeting details</h2>
+        <EventForm event={event} />
+      </section>
+
+      <section aria-labelledby="staff" className="card space-y-3">
+        <h2 id="staff">Staff</h2>
+        <p>The staff list is on the <Link href="/organise">Organise</Link> page.</p>
+        <InviteStaffForm eventId={event.id} />
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,154 @@
+// Figures of a class parity report from its stored inputs (framework-free: runs on the server,
+// in the browser for what-if sandboxes, and in tests). The physics is the engine's; this module
+// adds the class-level views people read: curves for the chart, jet-velocity spread, and the
+// uncertainty of the class figures.
+//
+// Uncertainties are standard (k = 1), first-order (JCGM 100:2008, 5.1.2). For the class figures:
+// u(min) and u(max) are those of the boats at the extremes; u(median) is that of the median boat
+// (odd count) or half the root-sum-square of the middle two (even count); u(spread %) propagates
+// u(max) and u(min) with the median held exact: 100·sqrt(u_max² + u_min²)/median.
+
+import { computeParity, computeMedian, type ParityReport } from '../engine/parity';
+import { prepareJetSetup, withPowerAndDiameter, evaluateThrustN } from '../engine/jet';
+
+export type ReportAssumptions = {
+  pumpEfficiency: number;
+  nozzleLossCoefficient: number;
+  inletLossCoefficient: number;
+  wakeFraction: number;
+  referenceSpeedsMs: number[];
+};
+
+export type ReportBoatInput = {
+  entryId: string;
+  raceNumber: number;
+  boatName: string;
+  powerKw: number;
+  uPowerKw: number;
+  powerSource: 'declared' | 'verified';
+  nozzleDiameterMm: number;
+  uNozzleDiameterMm: number;
+  inspectionId: string | null;
+  inspectedAt: string | null;
+};
+
+export type ReportExcluded = { entryId: string; raceNumber: number; boatName: string; reason: string };
+
+export type ReportInputs = {
+  eventName: string;
+  classCode: string;
+  className: string;
+  ruleVersion: { id: string; version: number };
+  assumptions: ReportAssumptions;
+  density: { densityKgM3: number; description: string };
+  boats: ReportBoatInput[];
+  excluded: ReportExcluded[];
+  computedAt: string;
+};
+
+export type ClassFigure = { value: number; u: number };
+
+export type ReportResults = {
+  parity: ParityReport | null;
+  classFigures: {
+    medianStaticThrustN: ClassFigure;
+    minStaticThrustN: ClassFigure;
+    maxStaticThrustN: ClassFigure;
+    spreadPercent: ClassFigure;
+    jetVelocityMinMs: number;
+    jetVelocityMedianMs: number;
+    jetVelocityMaxMs: number;
+    jetVelocitySpreadPercent: number;
+  } | null;
+  curves: { speedsMs: number[]; reference: number[]; byEntry: Record<string, number[]> } | null;
+};
+
+export const CHART_SPEED_STEP_MS = 1;
+
+export function computeReportResults(inputs: ReportInputs): ReportResults {
+  if (inputs.boats.length === 0) return { parity: null, classFigures: null, curves: null };
+  const a = inputs.assumptions;
+  const model = {
+    densityKgM3: inputs.density.densityKgM3,
+    pumpEfficiency: a.pumpEfficiency,
+    nozzleLossCoefficient: a.nozzleLossCoefficient,
+    inletLossCoefficient: a.inletLossCoefficient,
+    wakeFraction: a.wakeFraction,
+  };
+  const parity = computeParity(
+    inputs.boats.map((b) => ({
+      id: b.entryId,
+      label: `#${b.raceNumber} ${b.boatName}`,
+      powerKw: b.powerKw,
+      nozzleDiameterMm: b.nozzleDiameterMm,
+      uPowerKw: b.uPowerKw,
+      uNozzleDiameterMm: b.uNozzleDiameterMm,
+    })),
+    { ...model, referenceSpeedsMs: a.referenceSpeedsMs },
+  );
+
+  const byThrust = [...parity.boats].sort((x, y) => x.staticThrustN - y.staticThrustN);
+  const n = byThrust.length;
+  const lo = byThrust[0];
+  const hi = byThrust[n - 1];
+  const uMedian = n % 2 === 1 ? byThrust[n >> 1].uStaticThrustN : 0.5 * Math.hypot(byThrust[n / 2 - 1].uStaticThrustN, byThrust[n / 2].uStaticThrustN);
+  const median = parity.summary.medianStaticThrustN;
+  const jets = parity.boats.map((b) => b.staticJetVelocityMs);
+  const jetMedian = computeMedian(jets);
+
+  // Curves for the chart: 0 m/s to 10 m/s past the highest reference speed (at most 60).
+  const top = Math.min(60, Math.max(...a.referenceSpeedsMs, 20) + 10);
+  const speedsMs = Array.from({ length: Math.floor(top / CHART_SPEED_STEP_MS) + 1 }, (_, i) => i * CHART_SPEED_STEP_MS);
+  const base = prepareJetSetup({ ...model, powerKw: inputs.boats[0].powerKw, nozzleDiameterMm: inputs.boats[0].nozzleDiameterMm });
+  const ref = withPowerAndDiameter(base, parity.referenceSetup.powerKw, parity.referenceSetup.nozzleDiameterMm);
+  const byEntry: Record<string, number[]> = {};
+  for (const b of inputs.boats) {
+    const s = withPowerAndDiameter(base, b.powerKw, b.nozzleDiameterMm);
+    byEntry[b.entryId] = speedsMs.map((v) => evaluateThrustN(s, v));
+  }
+
+  return {
+    parity,
+    classFigures: {
+      medianStaticThrustN: { value: median, u: uMedian },
+      minStaticThrustN: { value: lo.staticThrustN, u: lo.uStaticThrustN },
+      maxStaticThrustN: { value: hi.staticThrustN, u: hi.uStaticThrustN },
+      spreadPercent: { value: parity.summary.spreadPercent, u: (100 * Math.hypot(hi.uStaticThrustN, lo.uStaticThrustN)) / median },
+      jetVelocityMinMs: Math.min(...jets),
+      jetVelocityMedianMs: jetMedian,
+      jetVelocityMaxMs: Math.max(...jets),
+      jetVelocitySpreadPercent: ((Math.max(...jets) - Math.min(...jets)) / jetMedian) * 100,
+    },
+    curves: { speedsMs, reference: speedsMs.map((v) => evaluateThrustN(ref, v)), byEntry },
+  };
+}
+
+/** What-if: the same inputs with some boats' nozzles or powers replaced (nothing is saved). */
+export function applyWhatIf(inputs: ReportInputs, changes: { nozzleByEntry?: Record<string, number>; powerByEntry?: Record<string, number> }): ReportInputs {
+  return {
+    ...inputs,
+    boats: inputs.boats.map((b) => ({
+      ...b,
+      nozzleDiameterMm: changes.nozzleByEntry?.[b.entryId] ?? b.nozzleDiameterMm,
+      powerKw: changes.powerByEntry?.[b.entryId] ?? b.powerKw,
+    })),
+  };
+}
+
+export type RuleWhatIf = { nozzleMaxMm?: number | null; nozzleMinMm?: number | null; powerMaxKw?: number | null; powerMinKw?: number | null };
+
+/**
+ * What-if for a rule change: each boat is projected to the nearest set-up the new limits allow
+ * (a nozzle above a new maximum is taken down to it; a power above a new cap is detuned to it).
+ */
+export function applyRuleWhatIf(inputs: ReportInputs, rule: RuleWhatIf): ReportInputs {
+  const clamp = (x: number, min?: number | null, max?: number | null) => Math.min(max ?? Infinity, Math.max(min ?? -Infinity, x));
+  return {
+    ...inputs,
+    boats: inputs.boats.map((b) => ({
+      ...b,
+      nozzleDiameterMm: clamp(b.nozzleDiameterMm, rule.nozzleMinMm, rule.nozzleMaxMm),
+      powerKw: clamp(b.powerKw, rule.powerMinKw, rule.powerMaxKw),
+    })),
+  };
+}
