@@ -1,0 +1,144 @@
+'use client';
+
+import { useMemo, useState } from 'react';
+import { format, parseISO } from 'date-fns';
+import { checkDeclaration, formatFigure, DECLARATION_STATUS_WORDS, type DeclarationStatus } from '@/lib/entries/check-declaration';
+import { SubmitEntryInput, formatMoney } from '@/lib/validations/entries';
+import { fieldErrors } from '@/lib/http/errors';
+import { SafetyNote } from '@/components/safety-note';
+import { TextField } from '@/components/ui/text-field';
+import type { BoatView } from '@/lib/boats/boat-view';
+import type { OpenEvent } from '@/lib/entries/list-open-events';
+import type { MyEntry } from '@/lib/entries/list-my-entries';
+import { PayEntryButton } from '../../../entries/pay-entry-button';
+
+// Colour is never alone: each row also carries a mark and the word (tailwind.config.ts verdict colours).
+const STATUS_STYLE: Record<DeclarationStatus, { box: string; mark: string }> = {
+  within: { box: 'border-pass-600 bg-pass-100 text-pass-800', mark: '✓' },
+  too_close: { box: 'border-doubt-600 bg-doubt-100 text-doubt-800', mark: '?' },
+  outside: { box: 'border-fail-600 bg-fail-100 text-fail-800', mark: '✗' },
+};
+
+type Submitted = { entry: MyEntry; gotRequestedNumber: boolean };
+
+export function EnterForm({ boat, events, enteredEventIds }: { boat: BoatView; events: OpenEvent[]; enteredEventIds: string[] }) {
+  const [eventId, setEventId] = useState(events[0].id);
+  const event = events.find((e) => e.id === eventId) ?? events[0];
+  const [classId, setClassId] = useState(event.classes[0]?.id ?? '');
+  const raceClass = event.classes.find((c) => c.id === classId);
+  const check = useMemo(() => (raceClass ? checkDeclaration(boat, raceClass.rules) : null), [boat, raceClass]);
+  const [errors, setErrors] = useState<Record<string, string>>({});
+  const [message, setMessage] = useState<string>();
+  const [isBusy, setBusy] = useState(false);
+  const [done, setDone] = useState<Submitted>();
+  const isAlreadyEntered = enteredEventIds.includes(event.id);
+
+  function chooseEvent(id: string) {
+    setEventId(id);
+    setClassId(events.find((e) => e.id === id)?.classes[0]?.id ?? '');
+    setMessage(undefined);
+  }
+
+  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
+    e.preventDefault();
+    setMessage(undefined);
+    const requested = (e.currentTarget.elements.namedItem('requestedRaceNumber') as HTMLInputElement).valueAsNumber;
+    const body = { boatId: boat.id, eventId: event.id, classId, requestedRaceNumber: Number.isNaN(requested) ? null : requested };
+    const parsed = SubmitEntryInput.safeParse(body);
+    if (!parsed.success) return setErrors(fieldErrors(parsed.error));
+    setErrors({});
+    setBusy(true);
+    const res = await fetch('/api/entries', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(parsed.data) });
+    const json = await res.json().catch(() => null);
+    setBusy(false);
+    if (!res.ok) {
+      const next: Record<string, string> = {};
+      for (const d of json?.error?.details ?? []) next[d.field] ??= d.message;
+      setErrors(next);
+      return setMessage(json?.error?.message ?? 'The entry could not be made. Try again.');
+    }
+    setDone({ entry: json.data.entry, gotRequestedNumber: json.data.gotRequestedNumber });
+  }
+
+  if (done) {
+    const { entry } = done;
+    return (
+      <section className="card space-y-3" aria-labelledby="entry-made" data-testid="entry-made">
+        <h2 id="entry-made" className="text-xl">Entry made: race number <span className="figure">{entry.raceNumber}</span></h2>
+        <p>
+          {entry.boatName} in {entry.classCode} {entry.className} at {entry.eventName}.{' '}
+          {!done.gotRequestedNumber && 'The number you asked for was taken, so you have the next free one. '}
+          {entry.feeMinor > 0 ? <>The entry fee is <strong>{formatMoney(entry.feeMinor, entry.currency)}</strong>; the entry counts once it is paid.</> : 'This meeting charges no entry fee.'}
+        </p>
+        <PayEntryButton entryId={entry.id} label={entry.feeMinor > 0 ? 'Pay entry fee' : 'Confirm the entry'} />
+        <p className="text-sm text-ink-mute">You can also pay later from <a href="/entries">My entries</a>.</p>
+      </section>
+    );
+  }
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-5" aria-label="Enter a meeting">
+      <fieldset disabled={isBusy} className="card space-y-4">
+        <div>
+          <label htmlFor="eventId" className="field-label">Meeting</label>
+          <select id="eventId" name="eventId" value={event.id} onChange={(e) => chooseEvent(e.target.value)} className="field-input">
+            {events.map((ev) => (
+              <option key={ev.id} value={ev.id}>{ev.name} · {format(parseISO(ev.startsOn), 'd MMM yyyy')}</option>
+            ))}
+          </select>
+          <p className="field-hint">{event.venue} · entry fee {event.entryFeeMinor > 0 ? formatMoney(event.entryFeeMinor, event.currency) : 'none'}</p>
+          {errors.eventId && <p className="field-error">{errors.eventId}</p>}
+        </div>
+        {event.classes.length === 0 ? (
+          <p className="field-error">This meeting has no class with published rules yet.</p>
+        ) : (
+          <div>
+            <label htmlFor="classId" className="field-label">Class</label>
+            <select id="classId" name="classId" value={classId} onChange={(e) => setClassId(e.target.value)} className="field-input">
+              {event.classes.map((c) => <option key={c.id} value={c.id}>{c.code} · {c.name}</option>)}
+            </select>
+            {raceClass && <p className="field-hint">Rules version {raceClass.rulesVersion}{raceClass.description ? ` · ${raceClass.description}` : ''}</p>}
+            {errors.classId && <p className="field-error">{errors.classId}</p>}
+          </div>
+        )}
+        <TextField name="requestedRaceNumber" label="Race number you would like" type="number" inputMode="numeric" min={1} max={9999} step={1}
+          defaultValue={/^\d{1,4}$/.test(boat.hullNumber) && Number(boat.hullNumber) > 0 ? Number(boat.hullNumber) : undefined}
+          hint="Optional. If it is taken at this meeting you get the next free number." error={errors.requestedRaceNumber} />
+      </fieldset>
+
+      {check && (
+        <section className="card space-y-3" aria-labelledby="declaration-check" data-testid="declaration-check">
+          <h2 id="declaration-check" className="text-xl">Your declaration against the class rules</h2>
+          <p className="text-ink-soft">
+            A warning before you enter, not a verdict: scrutineers measure the boat at inspection and the officials decide.
+            “Too close to call” means the figure is within its uncertainty of a limit.
+          </p>
+          {check.rows.length === 0 && <p>This class sets no limit on what you declared.</p>}
+          <ul className="space-y-2">
+            {check.rows.map((r) => (
+              <li key={r.key} className={`rounded-lg border-l-8 p-3 ${STATUS_STYLE[r.status].box}`} data-status={r.status}>
+                <p className="flex flex-wrap items-baseline justify-between gap-2">
+                  <span className="font-bold">{r.label}</span>
+                  <span className="font-bold uppercase tracking-wide"><span aria-hidden="true">{STATUS_STYLE[r.status].mark} </span>{DECLARATION_STATUS_WORDS[r.status]}</span>
+                </p>
+                <p className="figure text-sm">declared {formatFigure(r.declared, r.unit === 'mm' ? 2 : 0)} {r.unit} · limit {formatFigure(r.limit, r.unit === 'mm' ? 2 : 0)} {r.unit} · U {formatFigure(r.uncertainty, r.unit === 'mm' ? 2 : 0)} {r.unit}</p>
+                <p className="mt-1">{r.explanation}</p>
+              </li>
+            ))}
+          </ul>
+          {check.notes.map((n) => <p key={n} className="text-ink-soft">{n}</p>)}
+          <SafetyNote />
+        </section>
+      )}
+
+      <div aria-live="polite">{message && <p className="field-error" data-testid="enter-message">{message}</p>}</div>
+      {isAlreadyEntered ? (
+        <p className="font-bold">{boat.name} is already entered at this meeting: see <a href="/entries">My entries</a>.</p>
+      ) : (
+        <button type="submit" className="btn-primary w-full sm:w-auto" disabled={isBusy || !raceClass}>
+          {isBusy ? 'Entering…' : raceClass ? `Enter ${boat.name} in ${raceClass.code}` : 'Enter'}
+        </button>
+      )}
+    </form>
+  );
+}

@@ -1,0 +1,105 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { redirect } from 'next/navigation';
+import { format, parseISO } from 'date-fns';
+import { getActor } from '@/lib/auth/actor';
+import { listMyEntries, type MyEntry } from '@/lib/entries/list-my-entries';
+import { formatMoney } from '@/lib/validations/entries';
+import { PayEntryButton } from './pay-entry-button';
+import { WithdrawEntryButton } from './withdraw-entry-button';
+import { PaymentWaiter } from './payment-waiter';
+
+export const metadata: Metadata = { title: 'My entries' };
+export const dynamic = 'force-dynamic';
+
+// Badge colours pair with the words (never colour alone).
+function badgeClass(e: MyEntry) {
+  if (e.inspectionResult === 'conforms') return 'bg-pass-100 text-pass-800';
+  if (e.inspectionResult === 'does_not_conform') return 'bg-fail-100 text-fail-800';
+  if (e.inspectionResult === 'inconclusive' || e.status === 'awaiting_payment') return 'bg-doubt-100 text-doubt-800';
+  if (e.status === 'entered') return 'bg-tide-100 text-tide-700';
+  return 'bg-paper-deep text-ink-soft';
+}
+
+function PaymentBanner({ entry }: { entry: MyEntry }) {
+  if (entry.paidAt) {
+    return (
+      <div role="status" className="rounded-lg border-l-8 border-pass-600 bg-pass-100 p-4 text-pass-800" data-testid="payment-banner">
+        <p className="text-lg font-bold">Payment received — thank you</p>
+        <p>{entry.boatName} is entered in {entry.classCode} {entry.className} at {entry.eventName} as number {entry.raceNumber}. A receipt is on its way by e-mail.</p>
+      </div>
+    );
+  }
+  if (entry.status === 'entered') {
+    return (
+      <div role="status" className="rounded-lg border-l-8 border-pass-600 bg-pass-100 p-4 text-pass-800" data-testid="payment-banner">
+        <p className="text-lg font-bold">You are entered</p>
+        <p>This meeting charges no entry fee.</p>
+      </div>
+    );
+  }
+  if (entry.status !== 'awaiting_payment') return null;
+  return (
+    <div role="status" className="space-y-2 rounded-lg border-l-8 border-doubt-600 bg-doubt-100 p-4 text-doubt-800" data-testid="payment-banner">
+      <p className="text-lg font-bold">Waiting for payment confirmation…</p>
+      <p>The payment provider tells us directly when your payment has gone through; this usually takes a few seconds.</p>
+      <PaymentWaiter />
+    </div>
+  );
+}
+
+export default async function MyEntriesPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  const actor = await getActor();
+  if (!actor) redirect('/sign-in');
+  const sp = await searchParams;
+  const entries = await listMyEntries(actor);
+  const paidFor = entries.find((e) => e.id === sp.paid);
+  const cancelledFor = entries.find((e) => e.id === sp.cancelled);
+  return (
+    <div className="space-y-6">
+      <h1>My entries</h1>
+      {paidFor && <PaymentBanner entry={paidFor} />}
+      {cancelledFor && !cancelledFor.paidAt && cancelledFor.status === 'awaiting_payment' && (
+        <div role="status" className="rounded-lg border-l-8 border-doubt-600 bg-doubt-100 p-4 text-doubt-800">
+          <p className="font-bold">Payment cancelled</p>
+          <p>Nothing was charged. Your entry is kept, awaiting payment: pay when you are ready.</p>
+        </div>
+      )}
+      {entries.length === 0 ? (
+        <p className="card text-ink-soft">No entries yet. Open <Link href="/boats">My boats</Link> and enter a boat at a meeting.</p>
+      ) : (
+        <ul className="space-y-3" data-testid="my-entries">
+          {entries.map((e) => (
+            <li key={e.id} className="card space-y-2" data-entry-id={e.id}>
+              <div className="flex flex-wrap items-start justify-between gap-2">
+                <div>
+                  <h2 className="text-xl">{e.eventName}</h2>
+                  <p className="text-ink-soft">{e.venue} · {format(parseISO(e.startsOn), 'd MMM yyyy')}</p>
+                </div>
+                <span className={`rounded-full px-3 py-1 font-bold ${badgeClass(e)}`} data-testid="entry-status">{e.statusLabel}</span>
+              </div>
+              <dl className="grid grid-cols-[8rem_1fr] gap-y-1">
+                <dt className="text-ink-soft">Boat</dt><dd><Link href={`/boats/${e.boatId}`}>{e.boatName}</Link></dd>
+                <dt className="text-ink-soft">Class</dt><dd>{e.classCode} {e.className}</dd>
+                <dt className="text-ink-soft">Race number</dt><dd className="figure font-bold">{e.raceNumber}</dd>
+                <dt className="text-ink-soft">Entry fee</dt>
+                <dd>
+                  {e.feeMinor > 0 ? formatMoney(e.feeMinor, e.currency) : 'none'}
+                  {e.paidAt && <span className="ml-2 text-pass-800">paid {format(parseISO(e.paidAt), 'd MMM yyyy')}</span>}
+                  {e.refundedAt && <span className="ml-2">refunded {format(parseISO(e.refundedAt), 'd MMM yyyy')}</span>}
+                </dd>
+                {e.cancelledReason && <><dt className="text-ink-soft">Reason</dt><dd>{e.cancelledReason}</dd></>}
+              </dl>
+              {e.status === 'awaiting_payment' && (
+                <div className="flex flex-wrap items-start gap-3 pt-1">
+                  <PayEntryButton entryId={e.id} label={e.feeMinor > 0 ? 'Pay entry fee' : 'Confirm the entry'} />
+                  <WithdrawEntryButton entryId={e.id} />
+                </div>
+              )}
+            </li>
+          ))}
+        </ul>
+      )}
+    </div>
+  );
+}

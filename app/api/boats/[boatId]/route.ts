@@ -1,0 +1,14 @@
+// GET|PATCH /api/boats/:boatId: one of the person's own boats (404 for anyone else's), read or edited.
+import { actorHandler, readJson } from '@/lib/http/handler';
+import { getMyBoat } from '@/lib/boats/get-my-boat';
+import { updateBoat } from '@/lib/boats/update-boat';
+
+type P = { boatId: string };
+
+export const GET = actorHandler<P>(async (_req, { actor, params }) => {
+  return Response.json({ data: await getMyBoat(actor, params.boatId) });
+});
+
+export const PATCH = actorHandler<P>(async (req, { actor, params }) => {
+  return Response.json({ data: await updateBoat(actor, params.boatId, await readJson(req)) });
+});

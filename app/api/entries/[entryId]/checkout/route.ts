@@ -1,0 +1,7 @@
+// POST /api/entries/:entryId/checkout: open (or reopen) the payment page for the person's unpaid entry.
+import { actorHandler } from '@/lib/http/handler';
+import { startEntryPayment } from '@/lib/entries/start-entry-payment';
+
+export const POST = actorHandler<{ entryId: string }>(async (_req, { actor, params }) => {
+  return Response.json({ data: await startEntryPayment(actor, params.entryId) });
+});

@@ -1,0 +1,9 @@
+// GET /api/events/open: meetings taking entries, with their classes and published rules, for the entry form.
+import { actorHandler } from '@/lib/http/handler';
+import { listOpenEvents } from '@/lib/entries/list-open-events';
+
+export const dynamic = 'force-dynamic';
+
+export const GET = actorHandler(async (_req, { actor }) => {
+  return Response.json({ data: await listOpenEvents(actor) });
+});
