@@ -1,0 +1,64 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound } from 'next/navigation';
+import { format } from 'date-fns';
+import { findPublishedReport, findPreviousReport } from '@/lib/reports/manage-reports';
+import { diffReports } from '@/lib/reports/report-diff';
+import { ParityCharts } from '@/components/parity-charts';
+import { ParityTables, ModelAssumptions } from '@/components/parity-tables';
+import { SafetyNote } from '@/components/safety-note';
+
+export const dynamic = 'force-dynamic';
+
+export async function generateMetadata({ params }: { params: Promise<{ publicId: string }> }): Promise<Metadata> {
+  const report = await findPublishedReport((await params).publicId);
+  return { title: report ? `${report.inputs.classCode} parity v${report.number}` : 'Report not found' };
+}
+
+// Public, shareable page of one published parity report version (no sign-in).
+export default async function PublicReportPage({ params }: { params: Promise<{ publicId: string }> }) {
+  const report = await findPublishedReport((await params).publicId);
+  if (!report) notFound();
+  const previous = await findPreviousReport(report);
+  const diff = previous ? diffReports(previous, report) : null;
+  return (
+    <article className="space-y-6">
+      <header className="space-y-2">
+        <p className="text-sm font-bold uppercase tracking-widest text-flare-600">Class parity report · version {report.number}</p>
+        <h1 data-testid="report-title">{report.inputs.className} ({report.inputs.classCode})</h1>
+        <p className="text-ink-soft">
+          {report.inputs.eventName} · published {format(new Date(report.publishedAt), 'd MMM yyyy HH:mm')} · class rules version {report.inputs.ruleVersion.version}
+        </p>
+        {report.note && <p className="rounded-lg bg-tide-50 p-3">{report.note}</p>}
+        <div className="flex flex-wrap gap-2">
+          <a href={`/api/reports/${report.publicId}/pdf`} className="btn-primary" data-testid="report-pdf">Download PDF</a>
+          <a href={`/api/reports/${report.publicId}/csv`} className="btn-secondary" data-testid="report-csv">Download CSV</a>
+        </div>
+        {report.versions.length > 1 && (
+          <p className="text-sm">Versions: {report.versions.map((v) => (
+            <span key={v.number} className="mr-2">{v.number === report.number ? <strong>v{v.number}</strong> : <Link href={`/reports/${v.publicId}`}>v{v.number}</Link>}</span>
+          ))}</p>
+        )}
+      </header>
+      <SafetyNote />
+      {diff && (
+        <section className="card" aria-labelledby="changes">
+          <h2 id="changes" className="text-xl">Since version {previous!.number}</h2>
+          <p className="mt-1">Spread {diff.spreadBeforePercent?.toFixed(2) ?? '—'} % → <strong>{diff.spreadAfterPercent?.toFixed(2) ?? '—'} %</strong>{diff.ruleVersionChanged && ' · class rules changed'}</p>
+          {diff.boats.length === 0 ? <p>No boat&apos;s figures changed.</p> : (
+            <ul className="mt-2 space-y-1 text-sm" data-testid="report-changes">
+              {diff.boats.map((b) => (
+                <li key={b.entryId}>
+                  {b.label}: {b.change === 'added' ? 'now included' : b.change === 'removed' ? 'no longer included' : `static thrust ${b.staticThrustBeforeN?.toFixed(0)} → ${b.staticThrustAfterN?.toFixed(0)} N (nozzle ${b.nozzleBeforeMm?.toFixed(2)} → ${b.nozzleAfterMm?.toFixed(2)} mm)`}
+                </li>
+              ))}
+            </ul>
+          )}
+        </section>
+      )}
+      <ParityCharts inputs={report.inputs} results={report.results} />
+      <ParityTables inputs={report.inputs} results={report.results} />
+      <ModelAssumptions inputs={report.inputs} />
+    </article>
+  );
+}

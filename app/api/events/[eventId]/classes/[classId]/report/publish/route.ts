@@ -1,0 +1,12 @@
+// POST /api/events/:eventId/classes/:classId/report/publish: freeze the draft as the next numbered version.
+import { actorHandler, readJson } from '@/lib/http/handler';
+import { parseId } from '@/lib/http/ids';
+import { publishReport } from '@/lib/reports/manage-reports';
+
+type P = { eventId: string; classId: string };
+
+export const POST = actorHandler<P>(async (req, { actor, params }) => {
+  const body = req.headers.get('content-length') === '0' ? {} : await readJson(req);
+  const report = await publishReport(actor, parseId(params.eventId, 'event'), parseId(params.classId, 'class'), body);
+  return Response.json({ data: { id: report.id, publicId: report.publicId, number: report.number } }, { status: 201 });
+});

@@ -1,0 +1,13 @@
+// GET /api/events/:eventId/classes/:classId/report: the live draft parity report (organiser), plus published versions.
+import { actorHandler } from '@/lib/http/handler';
+import { parseId } from '@/lib/http/ids';
+import { computeDraftReport, listReportVersions } from '@/lib/reports/manage-reports';
+
+type P = { eventId: string; classId: string };
+
+export const GET = actorHandler<P>(async (_req, { actor, params }) => {
+  const eventId = parseId(params.eventId, 'event');
+  const classId = parseId(params.classId, 'class');
+  const [draft, versions] = await Promise.all([computeDraftReport(actor, eventId, classId), listReportVersions(actor, eventId, classId)]);
+  return Response.json({ data: { draft, versions } });
+});

@@ -1,0 +1,122 @@
+'use client';
+
+import { useMemo, useState } from 'react';
+import {
+  Bar, BarChart, CartesianGrid, ErrorBar, Line, LineChart, ReferenceDot, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis,
+} from 'recharts';
+import { convertForce, convertSpeed, type ForceUnit, type SpeedUnit } from '@/lib/engine/units';
+import type { ReportInputs, ReportResults } from '@/lib/reports/parity-figures';
+
+const FORCE_UNITS: ForceUnit[] = ['N', 'kgf', 'lbf'];
+const SPEED_UNITS: SpeedUnit[] = ['km/h', 'm/s', 'kn', 'mph'];
+const BOAT_COLOURS = ['#1f5f8b', '#2a3a48', '#51606d', '#103a57', '#3d7aa8', '#5b6b78'];
+
+/** The report's three charts: thrust curves, static thrust deviation with whiskers, jet velocity spread. */
+export function ParityCharts({ inputs, results }: { inputs: ReportInputs; results: ReportResults }) {
+  const [forceUnit, setForceUnit] = useState<ForceUnit>('N');
+  const [speedUnit, setSpeedUnit] = useState<SpeedUnit>('km/h');
+  const f = (n: number) => convertForce(n, 'N', forceUnit);
+  const s = (ms: number) => convertSpeed(ms, 'm/s', speedUnit);
+  const parity = results.parity;
+  const curves = results.curves;
+
+  const lineData = useMemo(() => {
+    if (!curves) return [];
+    return curves.speedsMs.map((v, i) => {
+      const row: Record<string, number> = { speed: +s(v).toFixed(2), median: +f(curves.reference[i]).toFixed(1) };
+      for (const [id, ys] of Object.entries(curves.byEntry)) row[id] = +f(ys[i]).toFixed(1);
+      return row;
+    });
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [curves, forceUnit, speedUnit]);
+
+  if (!parity || !curves) return <p>No boat has a conforming inspection yet: there is nothing to chart.</p>;
+  const labels = new Map(inputs.boats.map((b) => [b.entryId, `#${b.raceNumber} ${b.boatName}`]));
+  const crossovers = parity.boats.filter((b) => b.crossoverWithMedianMs !== null && b.crossoverWithMedianMs <= curves.speedsMs[curves.speedsMs.length - 1]);
+  const refAt = (ms: number) => {
+    const i = Math.min(curves.speedsMs.length - 1, Math.round(ms));
+    return f(curves.reference[i]);
+  };
+  const devData = parity.boats.map((b) => ({ name: labels.get(b.id) ?? b.label, dev: +b.deviationFromMedianPercent.toFixed(2), err: +(2 * b.uDeviationFromMedianPercent).toFixed(2) }));
+  const jetData = parity.boats.map((b) => ({ name: labels.get(b.id) ?? b.label, vj: +s(b.staticJetVelocityMs).toFixed(2), err: +(2 * s(b.uStaticJetVelocityMs)).toFixed(2) }));
+
+  return (
+    <div className="space-y-6">
+      <div className="flex flex-wrap gap-4">
+        <label className="flex items-center gap-2 font-bold">Force
+          <select className="field-input w-auto" value={forceUnit} onChange={(e) => setForceUnit(e.target.value as ForceUnit)} aria-label="Force unit">
+            {FORCE_UNITS.map((u) => <option key={u}>{u}</option>)}
+          </select>
+        </label>
+        <label className="flex items-center gap-2 font-bold">Speed
+          <select className="field-input w-auto" value={speedUnit} onChange={(e) => setSpeedUnit(e.target.value as SpeedUnit)} aria-label="Speed unit">
+            {SPEED_UNITS.map((u) => <option key={u}>{u}</option>)}
+          </select>
+        </label>
+      </div>
+
+      <figure className="card" data-testid="chart-thrust-curves">
+        <figcaption className="mb-2 font-bold">Thrust against boat speed ({forceUnit} vs {speedUnit}); the median boat in orange, crossovers marked</figcaption>
+        <div className="h-72 sm:h-96">
+          <ResponsiveContainer width="100%" height="100%">
+            <LineChart data={lineData} margin={{ top: 8, right: 12, bottom: 20, left: 8 }}>
+              <CartesianGrid stroke="#d5d0c2" strokeDasharray="3 3" />
+              <XAxis dataKey="speed" type="number" domain={[0, 'dataMax']} label={{ value: speedUnit, position: 'insideBottom', offset: -10 }} />
+              <YAxis width={60} />
+              <Tooltip formatter={(v, name) => [`${v} ${forceUnit}`, name === 'median' ? 'Median boat' : labels.get(String(name)) ?? String(name)]} labelFormatter={(v) => `${v} ${speedUnit}`} />
+              {inputs.boats.map((b, i) => (
+                <Line key={b.entryId} dataKey={b.entryId} dot={false} stroke={BOAT_COLOURS[i % BOAT_COLOURS.length]} strokeWidth={1} isAnimationActive={false} />
+              ))}
+              <Line dataKey="median" dot={false} stroke="#e86a10" strokeWidth={3} isAnimationActive={false} />
+              {crossovers.map((b) => (
+                <ReferenceDot key={b.id} x={+s(b.crossoverWithMedianMs!).toFixed(2)} y={+refAt(b.crossoverWithMedianMs!).toFixed(1)} r={5} fill="#fbfaf6" stroke="#0b1620" />
+              ))}
+            </LineChart>
+          </ResponsiveContainer>
+        </div>
+        {crossovers.length > 0 && (
+          <ul className="mt-2 text-sm">
+            {crossovers.slice(0, 12).map((b) => (
+              <li key={b.id}>{labels.get(b.id)} crosses the median boat at {s(b.crossoverWithMedianMs!).toFixed(1)} {speedUnit}</li>
+            ))}
+          </ul>
+        )}
+      </figure>
+
+      <figure className="card" data-testid="chart-deviation">
+        <figcaption className="mb-2 font-bold">Static thrust deviation from the class median (%), whiskers ±2u (about 95 %)</figcaption>
+        <div style={{ height: Math.max(180, devData.length * 26) }}>
+          <ResponsiveContainer width="100%" height="100%">
+            <BarChart data={devData} layout="vertical" margin={{ left: 8, right: 16 }}>
+              <CartesianGrid stroke="#d5d0c2" strokeDasharray="3 3" />
+              <XAxis type="number" unit=" %" />
+              <YAxis type="category" dataKey="name" width={130} tick={{ fontSize: 12 }} />
+              <ReferenceLine x={0} stroke="#0b1620" />
+              <Tooltip formatter={(v) => [`${v} %`, 'Deviation']} />
+              <Bar dataKey="dev" fill="#1f5f8b" isAnimationActive={false}>
+                <ErrorBar dataKey="err" width={6} stroke="#0b1620" direction="x" />
+              </Bar>
+            </BarChart>
+          </ResponsiveContainer>
+        </div>
+      </figure>
+
+      <figure className="card" data-testid="chart-jet-velocity">
+        <figcaption className="mb-2 font-bold">Static jet velocity per boat ({speedUnit}), whiskers ±2u</figcaption>
+        <div style={{ height: Math.max(180, jetData.length * 26) }}>
+          <ResponsiveContainer width="100%" height="100%">
+            <BarChart data={jetData} layout="vertical" margin={{ left: 8, right: 16 }}>
+              <CartesianGrid stroke="#d5d0c2" strokeDasharray="3 3" />
+              <XAxis type="number" domain={['dataMin - 2', 'dataMax + 2']} tickFormatter={(v: number) => v.toFixed(0)} />
+              <YAxis type="category" dataKey="name" width={130} tick={{ fontSize: 12 }} />
+              <Tooltip formatter={(v) => [`${v} ${speedUnit}`, 'Jet velocity']} />
+              <Bar dataKey="vj" fill="#2a3a48" isAnimationActive={false}>
+                <ErrorBar dataKey="err" width={6} stroke="#e86a10" direction="x" />
+              </Bar>
+            </BarChart>
+          </ResponsiveContainer>
+        </div>
+      </figure>
+    </div>
+  );
+}
