@@ -1,0 +1,164 @@
+// The calculator's set-ups as typed (text in the units the person chose), turned into public API
+// bodies in SI, and the API's field errors mapped back to the fields they came from.
+// Plain TypeScript: no React, so the rules stay readable in one place.
+
+import { convertForce, convertLength, convertPower, convertSpeed, formatQuantity } from '@/lib/engine/units';
+import type { ForceUnit, PowerUnit, SpeedUnit } from '@/lib/engine/units';
+
+export const MAX_SETUPS = 4;
+/** Chart and curve speeds: 0 to 35 m/s (126 km/h) in 0.5 m/s steps, covering sprint boats. */
+export const CURVE_SPEEDS_MS = Array.from({ length: 71 }, (_, i) => i * 0.5);
+
+export type InputPowerUnit = Extract<PowerUnit, 'kW' | 'hp' | 'PS'>;
+export type InputLengthUnit = 'mm' | 'in';
+
+export interface SetupDraft {
+  id: string;
+  label: string;
+  power: string;
+  powerUnit: InputPowerUnit;
+  nozzle: string;
+  nozzleUnit: InputLengthUnit;
+  pumpEfficiency: string;
+  nozzleLoss: string;
+  inletLoss: string;
+  waterKind: 'fresh' | 'sea';
+  temperatureC: string;
+  /** Blank: the density comes from water kind and temperature. */
+  densityKgM3: string;
+}
+
+export type SetupField = 'power' | 'nozzle' | 'pumpEfficiency' | 'nozzleLoss' | 'inletLoss' | 'waterKind' | 'temperatureC' | 'densityKgM3';
+export type FieldErrors = Partial<Record<SetupField, string>>;
+
+export interface DisplayUnits {
+  power: PowerUnit;
+  speed: SpeedUnit;
+  force: ForceUnit;
+}
+
+/** Typical values (DOMAIN.md: efficiency 0.85–0.92, K_i 0.1–0.3, K_n 0.01–0.05) so the page opens with a real curve. */
+export function createExampleSetup(id: string, label: string): SetupDraft {
+  return {
+    id, label, power: '250', powerUnit: 'kW', nozzle: '95', nozzleUnit: 'mm',
+    pumpEfficiency: '0.88', nozzleLoss: '0.03', inletLoss: '0.2', waterKind: 'fresh', temperatureC: '15', densityKgM3: '',
+  };
+}
+
+/** The next unused letter, A to D. */
+export function nextLabel(setups: readonly SetupDraft[]): string {
+  return ['A', 'B', 'C', 'D', 'E'].find((l) => !setups.some((s) => s.label === l)) ?? `Set-up ${setups.length + 1}`;
+}
+
+/**
+ * Text to number. Blank gives undefined (the API default applies, or the API names the missing
+ * field); a decimal comma is accepted; anything else that is not a number stays NaN, which JSON
+ * sends as null, so the API reports it beside the field instead of us guessing.
+ */
+function parseNumber(text: string): number | undefined {
+  const t = text.trim().replace(',', '.');
+  return t === '' ? undefined : Number(t);
+}
+
+const finiteOr = <T>(x: number | undefined, f: (v: number) => T): T | number | undefined =>
+  x !== undefined && Number.isFinite(x) ? f(x) : x;
+
+/** The jet model part of an API body (everything but the nozzle diameter and the speeds). */
+export function toModelBody(s: SetupDraft) {
+  const densityKgM3 = parseNumber(s.densityKgM3);
+  return {
+    powerKw: finiteOr(parseNumber(s.power), (v) => convertPower(v, s.powerUnit, 'kW')),
+    pumpEfficiency: parseNumber(s.pumpEfficiency),
+    nozzleLossCoefficient: parseNumber(s.nozzleLoss),
+    inletLossCoefficient: parseNumber(s.inletLoss),
+    // A density override replaces the water entirely, so a blank temperature is then no error.
+    ...(densityKgM3 !== undefined
+      ? { densityKgM3 }
+      : { water: { kind: s.waterKind, temperatureC: parseNumber(s.temperatureC) ?? Number.NaN } }),
+  };
+}
+
+export function toNozzleDiameterMm(s: SetupDraft): number | undefined {
+  return finiteOr(parseNumber(s.nozzle), (v) => convertLength(v, s.nozzleUnit, 'mm')) as number | undefined;
+}
+
+export type ModelBody = ReturnType<typeof toModelBody>;
+
+/** Same power, water and losses: only then can the crossover API compare the two nozzles. */
+export function hasSameModel(a: ModelBody, b: ModelBody): boolean {
+  return JSON.stringify(a) === JSON.stringify(b);
+}
+
+const API_FIELDS: Record<string, SetupField> = {
+  powerKw: 'power',
+  nozzleDiameterMm: 'nozzle',
+  'nozzleDiametersMm.0': 'nozzle',
+  'nozzleDiametersMm.1': 'nozzle',
+  pumpEfficiency: 'pumpEfficiency',
+  nozzleLossCoefficient: 'nozzleLoss',
+  inletLossCoefficient: 'inletLoss',
+  water: 'waterKind',
+  'water.kind': 'waterKind',
+  'water.temperatureC': 'temperatureC',
+  densityKgM3: 'densityKgM3',
+};
+
+/** The API's details [{ field, message }] as messages per set-up field (first message wins). */
+export function toFieldErrors(details: unknown): FieldErrors {
+  const out: FieldErrors = {};
+  if (!Array.isArray(details)) return out;
+  for (const d of details as { field?: unknown; message?: unknown }[]) {
+    const field = API_FIELDS[String(d?.field)];
+    if (field && typeof d.message === 'string') out[field] ??= d.message;
+  }
+  return out;
+}
+
+// Display: fixed decimals suited to each unit, so the figures do not jump while typing.
+const FORCE_DIGITS: Record<ForceUnit, number> = { N: 0, kgf: 1, lbf: 0 };
+
+export const formatForce = (n: number, unit: ForceUnit) => formatQuantity(convertForce(n, 'N', unit), unit, { fractionDigits: FORCE_DIGITS[unit] });
+export const formatSpeed = (ms: number, unit: SpeedUnit) => formatQuantity(convertSpeed(ms, 'm/s', unit), unit, { fractionDigits: 1 });
+export const formatPower = (kw: number, unit: PowerUnit) => formatQuantity(convertPower(kw, 'kW', unit), unit, { fractionDigits: unit === 'W' ? 0 : 1 });
+
+/** "33.5 m/s (120.6 km/h)": the chosen unit first, then m/s (or km/h when m/s is chosen). */
+export function formatSpeedPair(ms: number, unit: SpeedUnit): string {
+  const other: SpeedUnit = unit === 'm/s' ? 'km/h' : 'm/s';
+  return `${formatSpeed(ms, unit)} (${formatSpeed(ms, other)})`;
+}
+
+export interface CurvePoint {
+  speedMs: number;
+  thrustN: number;
+}
+
+/** Thrust at a speed between sampled points (linear), for placing a marker on the chart. */
+export function interpolateThrustN(points: readonly CurvePoint[], speedMs: number): number | undefined {
+  for (let i = 1; i < points.length; i++) {
+    const a = points[i - 1];
+    const b = points[i];
+    if (speedMs >= a.speedMs && speedMs <= b.speedMs) {
+      const f = b.speedMs === a.speedMs ? 0 : (speedMs - a.speedMs) / (b.speedMs - a.speedMs);
+      return a.thrustN + f * (b.thrustN - a.thrustN);
+    }
+  }
+  return undefined;
+}
+
+/**
+ * Where two sampled curves first change order (linear interpolation of the difference), or null.
+ * Used only for set-ups the crossover API cannot compare (different power, water or losses).
+ */
+export function findCurveCrossingMs(a: readonly CurvePoint[], b: readonly CurvePoint[]): number | null {
+  const n = Math.min(a.length, b.length);
+  let prev = a[0].thrustN - b[0].thrustN;
+  for (let i = 1; i < n; i++) {
+    const d = a[i].thrustN - b[i].thrustN;
+    if (prev !== 0 && Math.sign(d) !== Math.sign(prev)) {
+      const f = prev / (prev - d);
+      return a[i - 1].speedMs + f * (a[i].speedMs - a[i - 1].speedMs);
+    }
+    prev = d;
+  }
+  return null;
+}
