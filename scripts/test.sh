@@ -3,6 +3,7 @@
 # the fakes, a production build of the app on its own port) and run every test file:
 # unit (tests/unit), integration through HTTP and the database (tests/integration) and
 # browser journeys in Chromium (tests/browser). Extra arguments narrow the file list.
+# `scripts/test.sh --run SCRIPT` starts the same stack and runs one script instead (benchmarks).
 set -euo pipefail
 source "$(dirname "$0")/lib.sh"
 
@@ -36,8 +37,11 @@ if [ ! -x /usr/bin/chromium ] && [ "$(id -u)" = 0 ]; then
   (apt-get install -y -qq chromium >/dev/null 2>&1 || { apt-get update -qq && apt-get install -y -qq chromium >/dev/null; })
 fi
 
+run_script=""
+if [ "${1:-}" = "--run" ]; then run_script="${2:?--run needs a script}"; shift 2; fi
+
 files=()
-if [ $# -gt 0 ]; then files=("$@"); else
+if [ -n "$run_script" ]; then files=("$run_script"); elif [ $# -gt 0 ]; then files=("$@"); else
   while IFS= read -r f; do files+=("$f"); done < <(find tests -name '*.test.ts' -not -path '*/node_modules/*' | sort)
 fi
 [ ${#files[@]} -gt 0 ] || { log "no test files found"; exit 1; }
@@ -66,5 +70,11 @@ if [ $needs_app = 1 ]; then
   wait_for_http "http://127.0.0.1:$PORT/api/health" || { log "the app did not start"; cat "$RUN/app.log"; exit 1; }
 fi
 
+export BASE_URL="http://localhost:$PORT"
+if [ -n "$run_script" ]; then
+  log "running $run_script against $BASE_URL"
+  node_modules/.bin/tsx --conditions=react-server "$run_script"
+  exit $?
+fi
 log "running ${#files[@]} test files"
 node_modules/.bin/tsx --test --test-concurrency=1 "${files[@]}"
