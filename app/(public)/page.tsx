@@ -22,6 +22,7 @@ export default function LandingPage() {
         <div className="flex flex-wrap gap-3">
           <Link href="/sign-up" className="btn-primary">Create an entrant account</Link>
           <Link href="/sign-in" className="btn-secondary">Sign in</Link>
+          <Link href="/calculator" className="btn-secondary">Try the jet calculator</Link>
         </div>
       </section>
       <section aria-labelledby="how" className="space-y-4">
