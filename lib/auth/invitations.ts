@@ -6,7 +6,7 @@ import { AppError } from '@/lib/http/errors';
 import { assertCan, type Actor } from './actor';
 import { sendMail, linkMail } from '@/lib/mail/send';
 import type { EventStaffRole } from '@/lib/constants';
-import type { InviteStaffInput } from '@/lib/validations/auth';
+import { InviteStaffInput } from '@/lib/validations/auth';
 
 const INVITATION_DAYS = 14;
 const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
@@ -19,8 +19,9 @@ const ROLE_WORDS: Record<EventStaffRole, string> = {
 };
 
 /** An organiser invites a person to the event's staff; the e-mailed link signs them in with the role. */
-export async function inviteStaff(actor: Actor | null, eventId: string, input: InviteStaffInput) {
+export async function inviteStaff(actor: Actor | null, eventId: string, raw: unknown) {
   assertCan(actor, 'event.staff_manage', { eventId });
+  const input = InviteStaffInput.parse(raw);
   const { Event, StaffInvitation } = getDb().models;
   const event = await Event.findByPk(eventId);
   if (!event) throw new AppError('not_found', 404, 'No such event.');
