@@ -3,6 +3,7 @@ import { actorHandler } from '@/lib/http/handler';
 import { AppError } from '@/lib/http/errors';
 import { uploadBoatDocument } from '@/lib/boats/upload-boat-document';
 import { BOAT_DOCUMENT_MAX_BYTES } from '@/lib/validations/boats';
+import { findOwnBoat } from '@/lib/boats/boat-view';
 
 // Room for the multipart boundaries and the "kind" field around a file at the limit.
 const MAX_BODY_BYTES = BOAT_DOCUMENT_MAX_BYTES + 64 * 1024;
@@ -31,6 +32,8 @@ async function readCapped(req: Request, maxBytes: number): Promise<Uint8Array> {
 }
 
 export const POST = actorHandler<{ boatId: string }>(async (req, { actor, params }) => {
+  // Ownership first: nobody learns anything about another person's boat from how an upload fails.
+  await findOwnBoat(actor, params.boatId);
   const type = req.headers.get('content-type') ?? '';
   if (!/^multipart\/form-data\s*;/i.test(type)) {
     throw new AppError('unsupported_media_type', 415, 'Send the document as multipart/form-data with the file in the field "file".', [

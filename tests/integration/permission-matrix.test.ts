@@ -1,0 +1,153 @@
+// The permission matrix: every route handler, generated from the one permission table
+// (lib/auth/permissions.ts). For each actor — anonymous, entrant (own and other's data), scrutineer
+// assigned and not assigned to the meeting, steward, organiser of this and of another meeting, site
+// administrator — each endpoint must allow or deny as the table says. Allowed means the answer is
+// not 401/403 (bodies here are empty, so a 400 is an allowed request refused for its input);
+// denied means 401 for anonymous and 403 (or 404 where the resource is hidden) for the rest.
+// A route file or method that is not listed below fails the test.
+import { test, before } from 'node:test';
+import assert from 'node:assert/strict';
+import fs from 'node:fs';
+import path from 'node:path';
+import { randomUUID } from 'node:crypto';
+import { HttpSession } from '../support/http-session';
+import { DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
+import { query } from '../support/db';
+import { rolesCan, type Permission, type Role } from '../../lib/auth/permissions';
+import { ROUTES, type Access, type Ids } from './permission-routes';
+
+const ACTORS = ['anonymous', 'entrantOwn', 'entrantOther', 'scrutineer', 'scrutineerElsewhere', 'steward', 'organiser', 'organiserElsewhere', 'admin'] as const;
+type ActorKey = (typeof ACTORS)[number];
+
+// Roles each actor holds at the demo meeting (what the permission table is asked about).
+const ROLES_AT_MEETING: Record<Exclude<ActorKey, 'anonymous'>, Role[]> = {
+  entrantOwn: ['entrant'],
+  entrantOther: ['entrant'],
+  scrutineer: ['entrant', 'scrutineer'],
+  scrutineerElsewhere: ['entrant'],
+  steward: ['entrant', 'steward'],
+  organiser: ['entrant', 'organiser'],
+  organiserElsewhere: ['entrant'],
+  admin: ['entrant', 'admin'],
+};
+
+const sessions = new Map<ActorKey, HttpSession>();
+let ids: Ids;
+
+async function signUpAndIn(prefix: string) {
+  const s = new HttpSession();
+  const email = uniqueEmail(prefix);
+  await s.json('/api/accounts', { name: `Matrix ${prefix}`, email, password: 'matrix-password-1' });
+  await s.signInWithPassword(email, 'matrix-password-1');
+  const [{ id }] = await query<{ id: string }>('select id from users where email = $1', [email]);
+  return { s, id };
+}
+
+before(async () => {
+  sessions.set('anonymous', new HttpSession());
+  for (const [key, email] of [['entrantOwn', DEMO.entrant], ['scrutineer', DEMO.scrutineer], ['steward', DEMO.steward], ['organiser', DEMO.organiser], ['admin', DEMO.admin]] as const) {
+    const s = new HttpSession();
+    assert.equal((await s.signInWithPassword(email, DEMO_PASSWORD)).status, 200, email);
+    sessions.set(key, s);
+  }
+  sessions.set('entrantOther', (await signUpAndIn('other')).s);
+  // Staff of a different meeting of a different club.
+  const [{ id: clubId }] = await query<{ id: string }>(`insert into organisations (name, slug) values ('Matrix Club', $1) returning id`, [`matrix-${randomUUID().slice(0, 8)}`]);
+  const [{ id: otherEvent }] = await query<{ id: string }>(
+    `insert into events (organisation_id, name, slug, venue, starts_on, ends_on, time_zone) values ($1, 'Matrix Meeting', $2, 'Elsewhere', '2027-06-01', '2027-06-01', 'UTC') returning id`,
+    [clubId, `matrix-${randomUUID().slice(0, 8)}`],
+  );
+  const scr = await signUpAndIn('scr-elsewhere');
+  await query(`insert into event_staff (event_id, user_id, role) values ($1, $2, 'scrutineer')`, [otherEvent, scr.id]);
+  sessions.set('scrutineerElsewhere', scr.s);
+  const org = await signUpAndIn('org-elsewhere');
+  await query(`insert into event_staff (event_id, user_id, role) values ($1, $2, 'organiser')`, [otherEvent, org.id]);
+  await query(`insert into organisation_members (organisation_id, user_id, role) values ($1, $2, 'organiser')`, [clubId, org.id]);
+  sessions.set('organiserElsewhere', org.s);
+
+  const [own] = await query<{ entry_id: string; boat_id: string; class_id: string }>(
+    `select e.id as entry_id, e.boat_id, e.class_id from entries e join users u on u.id = e.entrant_id where u.email = $1 and e.event_id = $2 limit 1`,
+    [DEMO.entrant, DEMO.meetingId],
+  );
+  const [tag] = await query<{ token: string }>('select token from boat_tags where boat_id = $1 and retired_at is null', [own.boat_id]);
+  const [race] = await query<{ race_number: number }>('select race_number from entries where id = $1', [own.entry_id]);
+  // A document of the demo entrant's boat, uploaded through the real route.
+  const form = new FormData();
+  form.append('kind', 'dyno_sheet');
+  form.append('file', new Blob([Buffer.from('%PDF-1.4\n%matrix\n1 0 obj<<>>endobj\ntrailer<<>>\n%%EOF\n')], { type: 'application/pdf' }), 'dyno.pdf');
+  const up = await sessions.get('entrantOwn')!.fetch(`/api/boats/${own.boat_id}/documents`, { method: 'POST', body: form });
+  const upBody = await up.json();
+  assert.equal(up.status, 201, JSON.stringify(upBody));
+  // A scratch class and a spare unpaid entry, so that allowed calls (publish, withdraw) touch nothing other tests use.
+  const [{ id: classId }] = await query<{ id: string }>(`insert into race_classes (event_id, name, code) values ($1, 'Matrix Scratch', $2) returning id`, [DEMO.meetingId, `MX${Math.floor(Math.random() * 9000 + 1000)}`]);
+  const [{ id: entrantId }] = await query<{ id: string }>('select id from users where email = $1', [DEMO.entrant]);
+  const [{ id: spareBoat }] = await query<{ id: string }>(`insert into boats (owner_id, name, declared_nozzle_mm, declared_power_kw) values ($1, 'Matrix Spare', 100, 200) returning id`, [entrantId]);
+  const [{ id: spareEntryId }] = await query<{ id: string }>(
+    `insert into entries (event_id, class_id, boat_id, entrant_id, race_number, status, fee_minor, currency)
+     values ($1, $2, $3, $4, (select coalesce(max(race_number), 0) + 1 from entries where event_id = $1), 'awaiting_payment', 15000, 'NZD') returning id`,
+    [DEMO.meetingId, own.class_id, spareBoat, entrantId],
+  );
+  ids = {
+    eventId: DEMO.meetingId, classId, entryId: own.entry_id, spareEntryId, boatId: own.boat_id, tagToken: tag.token,
+    raceNumber: race.race_number, documentId: upBody.data.id, missingId: randomUUID(),
+  };
+});
+
+function expectedAllowed(access: Access, actor: ActorKey): boolean | 'hidden' {
+  if (access === 'public' || access === 'webhook' || access === 'method-not-allowed' || access === 'skip') return true;
+  if (actor === 'anonymous') return false;
+  if (access === 'signed-in') return true;
+  if (access === 'owner') return actor === 'entrantOwn' ? true : 'hidden';
+  if (access === 'owner-or-view-all') return actor === 'entrantOwn' || rolesCan(ROLES_AT_MEETING[actor], 'entry.view_all') ? true : 'hidden';
+  if ('custom' in access) return (access.custom as readonly string[]).includes(actor);
+  return access.anyOf.some((p: Permission) => rolesCan(ROLES_AT_MEETING[actor], p));
+}
+
+function listRouteMethods(): string[] {
+  const out: string[] = [];
+  const walk = (dir: string) => {
+    for (const e of fs.readdirSync(dir, { withFileTypes: true })) {
+      const p = path.join(dir, e.name);
+      if (e.isDirectory()) walk(p);
+      else if (e.name === 'route.ts') {
+        const src = fs.readFileSync(p, 'utf8');
+        const methods = new Set([...src.matchAll(/export const (GET|POST|PUT|PATCH|DELETE)\b/g), ...src.matchAll(/as (GET|POST|PUT|PATCH|DELETE)\b/g)].map((m) => m[1]));
+        for (const m of methods) out.push(`${m} ${p.split(path.sep).join('/')}`);
+      }
+    }
+  };
+  walk('app');
+  return out.sort();
+}
+
+test('every route handler and method is in the matrix', () => {
+  const listed = new Set(ROUTES.map((r) => `${r.method} ${r.file}`));
+  const missing = listRouteMethods().filter((k) => !listed.has(k));
+  assert.deepEqual(missing, [], 'add these to tests/integration/permission-routes.ts');
+  const stale = [...listed].filter((k) => !listRouteMethods().includes(k));
+  assert.deepEqual(stale, [], 'these matrix rows name routes that no longer exist');
+});
+
+test('each endpoint allows or denies each actor as the permission table says', async () => {
+  const failures: string[] = [];
+  for (const r of ROUTES) {
+    if (r.access === 'skip') continue;
+    for (const actor of ACTORS) {
+      const expected = expectedAllowed(r.access, actor);
+      const init: RequestInit = { method: r.method };
+      if (r.method !== 'GET') Object.assign(init, { headers: { 'content-type': 'application/json' }, body: '{}' });
+      const res = await sessions.get(actor)!.fetch(r.path(ids), init);
+      await res.arrayBuffer();
+      const s = res.status;
+      const ok =
+        r.access === 'method-not-allowed' ? s === 405
+        : s >= 500 ? false
+          : expected === true ? s !== 401 && s !== 403
+            : actor === 'anonymous' ? s === 401
+              : expected === 'hidden' ? s === 403 || s === 404
+                : s === 403;
+      if (!ok) failures.push(`${r.method} ${r.path(ids)} as ${actor}: got ${s}, expected ${expected === true ? 'allowed' : 'denied'}`);
+    }
+  }
+  assert.deepEqual(failures, []);
+});

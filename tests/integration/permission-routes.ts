@@ -1,0 +1,87 @@
+// Every route handler and method, with who may call it. Event-scoped rows name permissions from
+// lib/auth/permissions.ts, so the expectations follow the one table. Paths use the ids the matrix
+// test prepares (the demo meeting, the demo entrant's boat and entry, a scratch class).
+import type { Permission } from '../../lib/auth/permissions';
+
+export type Ids = {
+  eventId: string; classId: string; entryId: string; spareEntryId: string; boatId: string; tagToken: string;
+  raceNumber: number; documentId: string; missingId: string;
+};
+export type Access =
+  | 'public' // anyone, signed in or not
+  | 'signed-in' // anyone signed in
+  | 'owner' // the demo entrant's own boat or entry; others get 403/404
+  | 'owner-or-view-all' // the owner, or officials with entry.view_all at a meeting the boat is entered in
+  | 'webhook' // signature-checked, no session: refused for its signature, never 401/403
+  | 'method-not-allowed' // append-only records: 405 for everyone
+  | 'skip' // next-auth's own endpoints, covered by tests/integration/auth.test.ts
+  | { anyOf: Permission[] } // any of these permissions at the demo meeting
+  | { custom: readonly string[] }; // the listed actors only
+
+type Row = { method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE'; file: string; path: (i: Ids) => string; access: Access };
+
+const E = 'app/api/events/[eventId]';
+const ev = (i: Ids) => `/api/events/${i.eventId}`;
+
+export const ROUTES: Row[] = [
+  { method: 'GET', file: 'app/api/auth/[...nextauth]/route.ts', path: () => '/api/auth/session', access: 'skip' },
+  { method: 'POST', file: 'app/api/auth/[...nextauth]/route.ts', path: () => '/api/auth/signout', access: 'skip' },
+  { method: 'GET', file: 'app/api/health/route.ts', path: () => '/api/health', access: 'public' },
+  { method: 'POST', file: 'app/api/accounts/route.ts', path: () => '/api/accounts', access: 'public' },
+  { method: 'POST', file: 'app/api/payments/webhook/route.ts', path: () => '/api/payments/webhook', access: 'webhook' },
+  // Public calculation API and published reports
+  { method: 'POST', file: 'app/api/v1/jet-performance/route.ts', path: () => '/api/v1/jet-performance', access: 'public' },
+  { method: 'POST', file: 'app/api/v1/jet-performance/crossover/route.ts', path: () => '/api/v1/jet-performance/crossover', access: 'public' },
+  { method: 'POST', file: 'app/api/v1/conformity/route.ts', path: () => '/api/v1/conformity', access: 'public' },
+  { method: 'GET', file: 'app/api/v1/openapi.json/route.ts', path: () => '/api/v1/openapi.json', access: 'public' },
+  { method: 'GET', file: 'app/api/reports/[publicId]/route.ts', path: () => '/api/reports/unknownreport1', access: 'public' },
+  { method: 'GET', file: 'app/api/reports/[publicId]/pdf/route.ts', path: () => '/api/reports/unknownreport1/pdf', access: 'public' },
+  { method: 'GET', file: 'app/api/reports/[publicId]/csv/route.ts', path: () => '/api/reports/unknownreport1/csv', access: 'public' },
+  // Entrant: own boats, documents, entries
+  { method: 'GET', file: 'app/api/boats/route.ts', path: () => '/api/boats', access: 'signed-in' },
+  { method: 'POST', file: 'app/api/boats/route.ts', path: () => '/api/boats', access: 'signed-in' },
+  { method: 'GET', file: 'app/api/boats/[boatId]/route.ts', path: (i) => `/api/boats/${i.boatId}`, access: 'owner' },
+  { method: 'PATCH', file: 'app/api/boats/[boatId]/route.ts', path: (i) => `/api/boats/${i.boatId}`, access: 'owner' },
+  { method: 'POST', file: 'app/api/boats/[boatId]/documents/route.ts', path: (i) => `/api/boats/${i.boatId}/documents`, access: 'owner' },
+  { method: 'GET', file: 'app/api/boats/[boatId]/tag-pdf/route.ts', path: (i) => `/api/boats/${i.boatId}/tag-pdf`, access: 'owner' },
+  { method: 'POST', file: 'app/api/boats/[boatId]/tag/route.ts', path: (i) => `/api/boats/${i.boatId}/tag`, access: 'owner' },
+  { method: 'GET', file: 'app/api/documents/[documentId]/route.ts', path: (i) => `/api/documents/${i.documentId}`, access: 'owner-or-view-all' },
+  { method: 'GET', file: 'app/api/entries/route.ts', path: () => '/api/entries', access: 'signed-in' },
+  { method: 'POST', file: 'app/api/entries/route.ts', path: () => '/api/entries', access: 'signed-in' },
+  { method: 'POST', file: 'app/api/entries/[entryId]/checkout/route.ts', path: (i) => `/api/entries/${i.spareEntryId}/checkout`, access: 'owner' },
+  { method: 'POST', file: 'app/api/entries/[entryId]/withdraw/route.ts', path: (i) => `/api/entries/${i.spareEntryId}/withdraw`, access: 'owner' },
+  { method: 'GET', file: 'app/api/events/open/route.ts', path: () => '/api/events/open', access: 'signed-in' },
+  // Organiser
+  { method: 'POST', file: 'app/api/events/route.ts', path: () => '/api/events', access: { custom: ['organiser', 'organiserElsewhere', 'admin'] } },
+  { method: 'GET', file: `${E}/route.ts`, path: ev, access: { anyOf: ['event.edit'] } },
+  { method: 'PATCH', file: `${E}/route.ts`, path: ev, access: { anyOf: ['event.edit'] } },
+  { method: 'GET', file: `${E}/classes/route.ts`, path: (i) => `${ev(i)}/classes`, access: { anyOf: ['class.edit'] } },
+  { method: 'POST', file: `${E}/classes/route.ts`, path: (i) => `${ev(i)}/classes`, access: { anyOf: ['class.edit'] } },
+  { method: 'GET', file: `${E}/classes/[classId]/rules/route.ts`, path: (i) => `${ev(i)}/classes/${i.classId}/rules`, access: { anyOf: ['class.edit'] } },
+  { method: 'PUT', file: `${E}/classes/[classId]/rules/route.ts`, path: (i) => `${ev(i)}/classes/${i.classId}/rules`, access: { anyOf: ['class.edit'] } },
+  { method: 'POST', file: `${E}/classes/[classId]/rules/publish/route.ts`, path: (i) => `${ev(i)}/classes/${i.classId}/rules/publish`, access: { anyOf: ['class.edit'] } },
+  { method: 'GET', file: `${E}/classes/[classId]/report/route.ts`, path: (i) => `${ev(i)}/classes/${i.classId}/report`, access: { anyOf: ['report.publish'] } },
+  { method: 'POST', file: `${E}/classes/[classId]/report/publish/route.ts`, path: (i) => `${ev(i)}/classes/${i.classId}/report/publish`, access: { anyOf: ['report.publish'] } },
+  { method: 'POST', file: `${E}/staff/route.ts`, path: (i) => `${ev(i)}/staff`, access: { anyOf: ['event.staff_manage'] } },
+  { method: 'POST', file: `${E}/invitations/route.ts`, path: (i) => `${ev(i)}/invitations`, access: { anyOf: ['event.staff_manage'] } },
+  { method: 'GET', file: `${E}/entries/route.ts`, path: (i) => `${ev(i)}/entries`, access: { anyOf: ['entry.view_all'] } },
+  { method: 'GET', file: `${E}/entries/export/route.ts`, path: (i) => `${ev(i)}/entries/export`, access: { anyOf: ['entry.view_all'] } },
+  { method: 'POST', file: `${E}/entries/[entryId]/cancel/route.ts`, path: (i) => `${ev(i)}/entries/${i.entryId}/cancel`, access: { anyOf: ['entry.cancel'] } },
+  { method: 'GET', file: `${E}/tag-sheet/route.ts`, path: (i) => `${ev(i)}/tag-sheet`, access: { anyOf: ['tags.print'] } },
+  { method: 'GET', file: `${E}/instruments/route.ts`, path: (i) => `${ev(i)}/instruments`, access: { anyOf: ['inspection.board'] } },
+  { method: 'POST', file: `${E}/instruments/route.ts`, path: (i) => `${ev(i)}/instruments`, access: { anyOf: ['event.edit'] } },
+  // At the dock
+  { method: 'POST', file: `${E}/inspections/route.ts`, path: (i) => `${ev(i)}/inspections`, access: { anyOf: ['inspection.record'] } },
+  { method: 'GET', file: `${E}/inspections/route.ts`, path: (i) => `${ev(i)}/inspections`, access: { anyOf: ['inspection.board'] } },
+  { method: 'PUT', file: `${E}/inspections/route.ts`, path: (i) => `${ev(i)}/inspections`, access: 'method-not-allowed' },
+  { method: 'PATCH', file: `${E}/inspections/route.ts`, path: (i) => `${ev(i)}/inspections`, access: 'method-not-allowed' },
+  { method: 'DELETE', file: `${E}/inspections/route.ts`, path: (i) => `${ev(i)}/inspections`, access: 'method-not-allowed' },
+  { method: 'POST', file: `${E}/inspections/[inspectionId]/photos/route.ts`, path: (i) => `${ev(i)}/inspections/${i.missingId}/photos`, access: { anyOf: ['inspection.record'] } },
+  { method: 'PUT', file: `${E}/inspections/[inspectionId]/photos/route.ts`, path: (i) => `${ev(i)}/inspections/${i.missingId}/photos`, access: 'method-not-allowed' },
+  { method: 'PATCH', file: `${E}/inspections/[inspectionId]/photos/route.ts`, path: (i) => `${ev(i)}/inspections/${i.missingId}/photos`, access: 'method-not-allowed' },
+  { method: 'DELETE', file: `${E}/inspections/[inspectionId]/photos/route.ts`, path: (i) => `${ev(i)}/inspections/${i.missingId}/photos`, access: 'method-not-allowed' },
+  { method: 'GET', file: `${E}/tags/[token]/route.ts`, path: (i) => `${ev(i)}/tags/${i.tagToken}`, access: { anyOf: ['inspection.record'] } },
+  { method: 'GET', file: `${E}/race-numbers/[raceNumber]/route.ts`, path: (i) => `${ev(i)}/race-numbers/${i.raceNumber}`, access: { anyOf: ['inspection.record'] } },
+  { method: 'POST', file: `${E}/reinspections/route.ts`, path: (i) => `${ev(i)}/reinspections`, access: { anyOf: ['inspection.assign_reinspection'] } },
+  { method: 'GET', file: `${E}/reinspections/route.ts`, path: (i) => `${ev(i)}/reinspections`, access: { anyOf: ['inspection.board', 'inspection.assign_reinspection'] } },
+];
