@@ -1,9 +1,23 @@
-// Coarse redirect to sign-in for the signed-in areas. Never the only check: every page,
+// Runs before routing. 1) An address whose percent-encoding is not valid UTF-8 cannot name
+// anything: answer 400 in the one error shape (Next would otherwise fail decoding it with a 500).
+// 2) Coarse redirect to sign-in for the signed-in areas. Never the only check: every page,
 // action and handler asks the permission table itself.
-import { withAuth } from 'next-auth/middleware';
+import { NextResponse, type NextFetchEvent, type NextRequest } from 'next/server';
+import { withAuth, type NextRequestWithAuth } from 'next-auth/middleware';
 
-export default withAuth({ pages: { signIn: '/sign-in' } });
+const SIGNED_IN_AREAS = /^\/(home|account|organise|admin|boats|entries|inspect|protests|stewards)(\/|$)/;
+const requireSignIn = withAuth({ pages: { signIn: '/sign-in' } });
+
+export default function proxy(req: NextRequest, event: NextFetchEvent) {
+  try {
+    decodeURIComponent(req.nextUrl.pathname);
+  } catch {
+    return NextResponse.json({ error: { code: 'bad_path', message: 'The address is not valid: it contains broken character encoding.' } }, { status: 400 });
+  }
+  if (SIGNED_IN_AREAS.test(req.nextUrl.pathname)) return requireSignIn(req as NextRequestWithAuth, event);
+  return NextResponse.next();
+}
 
 export const config = {
-  matcher: ['/home/:path*', '/account/:path*', '/organise/:path*', '/admin/:path*', '/boats/:path*', '/entries/:path*'],
+  matcher: ['/((?!_next/static|_next/image|fonts/|favicon.ico).*)'],
 };

@@ -1,0 +1,123 @@
+// Hostile input against every JSON route handler: property-based bodies (fast-check), wrong
+// content types, oversized bodies, SQL and script injection strings, Unicode edge cases, and odd
+// path parameters. Every answer must be a 4xx JSON error in the one error shape or a success —
+// never a 5xx — and a refused request must leave the database exactly as it was.
+import { test, before } from 'node:test';
+import assert from 'node:assert/strict';
+import fc from 'fast-check';
+import { HttpSession } from '../support/http-session';
+import { DEMO, DEMO_PASSWORD } from '../support/env';
+import { query } from '../support/db';
+import { ROUTES, type Ids } from './permission-routes';
+
+const organiser = new HttpSession();
+const entrant = new HttpSession();
+let ids: Ids;
+let tables: string[] = [];
+
+// Strings known to break naive code: SQL and script injection, path tricks, Unicode edge cases.
+const NASTY = [
+  "' OR 1=1 --", "'; drop table users; --", '<script>alert(1)</script>', '"><img src=x onerror=alert(1)>', '../../etc/passwd',
+  '%00', '\u0000', '\u202e\u0041\u0042', '😀'.repeat(50), 'e\u0301\u0301\u0301', '\ud800', 'x'.repeat(10_000), '{{7*7}}', '${7*7}', 'NaN', '-0', '1e309',
+];
+const nasty = fc.constantFrom(...NASTY);
+const value = fc.oneof(fc.string({ maxLength: 40 }), nasty, fc.integer(), fc.double(), fc.boolean(), fc.constant(null), fc.array(nasty, { maxLength: 3 }));
+const body = fc.oneof(
+  fc.dictionary(fc.oneof(fc.string({ maxLength: 12 }), fc.constantFrom('powerKw', 'nozzleDiameterMm', 'name', 'email', 'rules', 'readingsMm', 'entryId', 'reason', '__proto__', 'constructor')), value, { maxKeys: 6 }),
+  fc.array(value, { maxLength: 4 }),
+  value,
+);
+
+async function fingerprint(): Promise<string> {
+  const sql = tables.map((t) => `select '${t}' as t, count(*)::int as n from ${t}`).join(' union all ');
+  const rows = await query<{ t: string; n: number }>(sql);
+  return rows.map((r) => `${r.t}=${r.n}`).join(',');
+}
+
+function checkErrorShape(status: number, text: string, label: string) {
+  assert.ok(status < 500, `${label}: ${status} ${text.slice(0, 200)}`);
+  if (status >= 400 && status !== 405) {
+    const parsed = JSON.parse(text);
+    assert.equal(typeof parsed.error?.code, 'string', `${label}: error code`);
+    assert.equal(typeof parsed.error?.message, 'string', `${label}: error message`);
+  }
+}
+
+before(async () => {
+  await organiser.signInWithPassword(DEMO.organiser, DEMO_PASSWORD);
+  await entrant.signInWithPassword(DEMO.entrant, DEMO_PASSWORD);
+  tables = (await query<{ table_name: string }>(`select table_name from information_schema.tables where table_schema = 'public' and table_type = 'BASE TABLE' and table_name not in ('auth_throttles', 'sessions', 'verification_tokens') order by 1`)).map((r) => r.table_name);
+  const [own] = await query<{ entry_id: string; boat_id: string; class_id: string }>(
+    `select e.id as entry_id, e.boat_id, e.class_id from entries e join users u on u.id = e.entrant_id where u.email = $1 and e.event_id = $2 limit 1`,
+    [DEMO.entrant, DEMO.meetingId],
+  );
+  ids = { eventId: DEMO.meetingId, classId: own.class_id, entryId: own.entry_id, spareEntryId: own.entry_id, boatId: own.boat_id, tagToken: 'x', raceNumber: 1, documentId: own.boat_id, missingId: '00000000-0000-4000-8000-000000000000' };
+});
+
+// JSON-bodied writes; multipart uploads and body-less actions (withdraw, checkout, reissue, publish) are covered elsewhere.
+const JSON_WRITES = ROUTES.filter((r) => r.method !== 'GET' && r.access !== 'skip' && r.access !== 'method-not-allowed' && r.access !== 'webhook' && !/documents|photos|evidence|withdraw|checkout|\/tag\/|publish/.test(r.file));
+
+test('random and hostile JSON bodies: never a 5xx, errors in the one shape, nothing stored when refused', async () => {
+  for (const r of JSON_WRITES) {
+    const s = r.access === 'owner' ? entrant : organiser;
+    await fc.assert(
+      fc.asyncProperty(body, async (b) => {
+        const before = await fingerprint();
+        const res = await s.fetch(r.path(ids), { method: r.method, headers: { 'content-type': 'application/json' }, body: JSON.stringify(b) });
+        const text = await res.text();
+        checkErrorShape(res.status, text, `${r.method} ${r.path(ids)} ${JSON.stringify(b).slice(0, 120)}`);
+        if (res.status >= 400) assert.equal(await fingerprint(), before, `${r.method} ${r.path(ids)} changed the database while refusing`);
+      }),
+      { numRuns: 12, seed: 20261201 },
+    );
+  }
+});
+
+test('wrong content types, broken JSON and oversized bodies are refused cleanly', async () => {
+  for (const r of JSON_WRITES) {
+    const s = r.access === 'owner' ? entrant : organiser;
+    const before = await fingerprint();
+    for (const init of [
+      { headers: { 'content-type': 'text/plain' }, body: 'hello' },
+      { headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: 'a=1&b=2' },
+      { headers: { 'content-type': 'application/json' }, body: '{"unterminated": ' },
+      { headers: { 'content-type': 'application/json' }, body: JSON.stringify({ pad: 'x'.repeat(300 * 1024) }) },
+    ]) {
+      const res = await s.fetch(r.path(ids), { method: r.method, ...init });
+      const text = await res.text();
+      checkErrorShape(res.status, text, `${r.method} ${r.path(ids)} ${init.headers['content-type']}`);
+      assert.ok(res.status >= 400, `${r.method} ${r.path(ids)} accepted ${init.headers['content-type']} (${res.status})`);
+    }
+    assert.equal(await fingerprint(), before);
+  }
+});
+
+test('odd path parameters never reach a 5xx', async () => {
+  const gets = ROUTES.filter((r) => r.method === 'GET' && r.access !== 'skip');
+  const segment = fc.oneof(nasty, fc.string({ minLength: 1, maxLength: 30 }), fc.uuid(), fc.constantFrom('0', '-1', '99999999999999999999', 'null', 'undefined'));
+  await fc.assert(
+    fc.asyncProperty(fc.constantFrom(...gets), segment, async (r, seg) => {
+      // A lone surrogate cannot be percent-encoded as UTF-8; send the bytes a broken client would.
+      let enc: string;
+      try { enc = encodeURIComponent(seg); } catch { enc = '%ED%A0%80'; }
+      const path = r.path({ ...ids, eventId: enc, classId: enc, boatId: enc, entryId: enc, tagToken: enc, raceNumber: enc as unknown as number, documentId: enc });
+      const res = await organiser.fetch(path);
+      checkErrorShape(res.status, await res.text(), `GET ${path}`);
+    }),
+    { numRuns: 150, seed: 42 },
+  );
+});
+
+test('HTML output escapes user text', async () => {
+  const name = '<script>window.pwned=1</script><img src=x onerror=alert(1)>';
+  const { res, body: created } = await entrant.json('/api/boats', {
+    name, hullNumber: '', hullDescription: '', pumpDescription: name, impellerDescription: '', nozzleDiameter: 100, nozzleUnit: 'mm',
+    nozzleToleranceMm: 0.1, engineDescription: '', power: 200, powerUnit: 'kW', powerEvidence: 'none', displacementL: null, declaredWeightKg: null,
+  });
+  assert.equal(res.status, 201, JSON.stringify(created));
+  const page = await entrant.fetch(`/boats/${created.data.id}`);
+  const html = await page.text();
+  assert.ok(!html.includes('<script>window.pwned=1</script>'), 'the script tag is not rendered as markup');
+  assert.ok(!html.includes('<img src=x onerror=alert(1)>'));
+  assert.match(html, /&lt;script&gt;window\.pwned=1&lt;\/script&gt;/);
+});
