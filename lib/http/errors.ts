@@ -33,9 +33,12 @@ export function fieldErrors(err: ZodError): Record<string, string> {
 function isDatabaseDown(err: unknown): boolean {
   const name = (err as { name?: string })?.name ?? '';
   const code = (err as { parent?: { code?: string }; original?: { code?: string } })?.parent?.code;
+  const message = String((err as { message?: string })?.message ?? '');
   return (
     /^Sequelize(Connection\w*Error|HostNotReachableError|ConnectionAcquireTimeoutError)$/.test(name) ||
-    ['ECONNREFUSED', '57P01', '57P03', '08006', '08001'].includes(code ?? '')
+    ['ECONNREFUSED', 'ECONNRESET', '57P01', '57P02', '57P03', '08000', '08003', '08006', '08001'].includes(code ?? '') ||
+    // A pooled connection that died with the server surfaces as a plain error with one of these texts.
+    /Connection terminated|connection is closed|Client has encountered a connection error|the database system is (starting up|shutting down)/i.test(message)
   );
 }
 
