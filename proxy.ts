@@ -18,6 +18,11 @@ export default function proxy(req: NextRequest, event: NextFetchEvent) {
   return NextResponse.next();
 }
 
+// API requests that carry a body skip the proxy: passing through it would make Next buffer the
+// whole body before the route handler can refuse an oversized upload by its Content-Length.
 export const config = {
-  matcher: ['/((?!_next/static|_next/image|fonts/|favicon.ico).*)'],
+  matcher: [
+    '/((?!api/|_next/static|_next/image|fonts/|favicon.ico).*)',
+    { source: '/api/:path*', missing: [{ type: 'header', key: 'content-length' }, { type: 'header', key: 'transfer-encoding' }] },
+  ],
 };

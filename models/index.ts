@@ -8,6 +8,9 @@ import { Boat, BoatDocument, BoatTag, initBoats } from './boat';
 import { Entry, PaymentEvent, initEntries } from './entry';
 import { Instrument, Inspection, InspectionPhoto, Reinspection, initInspections } from './inspection';
 import { ParityReport, initParityReports } from './parity-report';
+import { ProvisionalResults, initProvisionalResults } from './provisional-results';
+import { Protest, ProtestEvidence, initProtests } from './protest';
+import { AuditEvent, initAuditEvents } from './audit-event';
 
 // Defines every model and association on one Sequelize instance. Tables come from migrations/.
 export function initModels(sequelize: Sequelize) {
@@ -20,6 +23,9 @@ export function initModels(sequelize: Sequelize) {
   initEntries(sequelize);
   initInspections(sequelize);
   initParityReports(sequelize);
+  initProvisionalResults(sequelize);
+  initProtests(sequelize);
+  initAuditEvents(sequelize);
 
   Account.belongsTo(User, { foreignKey: 'userId' });
   Session.belongsTo(User, { foreignKey: 'userId' });
@@ -52,11 +58,21 @@ export function initModels(sequelize: Sequelize) {
   Reinspection.belongsTo(Entry, { foreignKey: 'entryId' });
   ParityReport.belongsTo(RaceClass, { foreignKey: 'classId' });
   ParityReport.belongsTo(Event, { foreignKey: 'eventId' });
+  ProvisionalResults.belongsTo(RaceClass, { foreignKey: 'classId' });
+  ProvisionalResults.belongsTo(Event, { foreignKey: 'eventId' });
+  Protest.belongsTo(Event, { foreignKey: 'eventId' });
+  Protest.belongsTo(User, { foreignKey: 'lodgedById', as: 'lodgedBy' });
+  Protest.belongsTo(Entry, { foreignKey: 'againstEntryId', as: 'againstEntry' });
+  Protest.belongsTo(ProvisionalResults, { foreignKey: 'againstResultId', as: 'againstResult' });
+  Protest.hasMany(ProtestEvidence, { foreignKey: 'protestId', as: 'evidence' });
+  ProtestEvidence.belongsTo(Protest, { foreignKey: 'protestId' });
+  AuditEvent.belongsTo(Event, { foreignKey: 'eventId' });
 
   return {
     User, Account, Session, VerificationToken, Organisation, OrganisationMember, Event, EventStaff, StaffInvitation,
     RaceClass, ClassRuleVersion, Boat, BoatDocument, BoatTag, Entry, PaymentEvent,
     Instrument, Inspection, InspectionPhoto, Reinspection, ParityReport,
+    ProvisionalResults, Protest, ProtestEvidence, AuditEvent,
   };
 }
 
@@ -65,4 +81,5 @@ export {
   User, Account, Session, VerificationToken, Organisation, OrganisationMember, Event, EventStaff, StaffInvitation,
   RaceClass, ClassRuleVersion, Boat, BoatDocument, BoatTag, Entry, PaymentEvent,
   Instrument, Inspection, InspectionPhoto, Reinspection, ParityReport,
+  ProvisionalResults, Protest, ProtestEvidence, AuditEvent,
 };

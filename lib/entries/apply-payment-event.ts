@@ -6,11 +6,13 @@ import { parseId } from '@/lib/http/ids';
 import { refundPayment } from '@/lib/payments/stripe';
 import { sendMail } from '@/lib/mail/send';
 import { formatMoney } from '@/lib/validations/entries';
+import { applyProtestPayment, finishProtestPayment, type ProtestPaymentOutcome } from '@/lib/protests/apply-protest-payment';
 
 type Outcome =
   | { kind: 'replay' | 'ignored' | 'unmatched' | 'mismatch' | 'already_recorded' }
   | { kind: 'paid'; entryId: string }
-  | { kind: 'refund'; entryId: string; paymentIntentId: string };
+  | { kind: 'refund'; entryId: string; paymentIntentId: string }
+  | ProtestPaymentOutcome;
 
 const PAID_TYPES = new Set(['checkout.session.completed', 'checkout.session.async_payment_succeeded']);
 
@@ -32,6 +34,8 @@ export async function applyPaymentEvent(event: Stripe.Event): Promise<Outcome> {
     if (!PAID_TYPES.has(event.type)) return { kind: 'ignored' };
     const session = event.data.object as Stripe.Checkout.Session;
     if (session.payment_status !== 'paid') return { kind: 'ignored' };
+    // Protest fees share the webhook (and its replay protection); metadata.kind says which it is.
+    if (session.metadata?.kind === 'protest') return applyProtestPayment(session, transaction);
 
     let entry = await models.Entry.findOne({ where: { checkoutSessionId: session.id }, lock: transaction.LOCK.UPDATE, transaction });
     if (!entry && session.metadata?.entryId) {
@@ -55,6 +59,7 @@ export async function applyPaymentEvent(event: Stripe.Event): Promise<Outcome> {
     return { kind: 'already_recorded' };
   });
 
+  if (outcome.kind === 'protest_paid' || outcome.kind === 'protest_refund') await finishProtestPayment(outcome);
   if (outcome.kind === 'paid') await sendReceipt(outcome.entryId).catch((err) => console.error('[boreline] receipt not sent', outcome.entryId, err));
   if (outcome.kind === 'refund') {
     // The key makes a repeated refund for the same payment a no-op at the provider.

@@ -111,7 +111,9 @@ function listRouteMethods(): string[] {
       if (e.isDirectory()) walk(p);
       else if (e.name === 'route.ts') {
         const src = fs.readFileSync(p, 'utf8');
-        const methods = new Set([...src.matchAll(/export const (GET|POST|PUT|PATCH|DELETE)\b/g), ...src.matchAll(/as (GET|POST|PUT|PATCH|DELETE)\b/g)].map((m) => m[1]));
+        const methods = new Set(
+          [...src.matchAll(/export (?:const|async function|function) (GET|POST|PUT|PATCH|DELETE)\b/g), ...src.matchAll(/as (GET|POST|PUT|PATCH|DELETE)\b/g)].map((m) => m[1]),
+        );
         for (const m of methods) out.push(`${m} ${p.split(path.sep).join('/')}`);
       }
     }

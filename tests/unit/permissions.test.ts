@@ -41,9 +41,11 @@ test('an entrant cannot record inspections or decide protests; a combination of 
 
 test('navigation shows each role only its areas', () => {
   const hrefs = (roles: Role[]) => navFor(roles).map((i) => i.href);
-  assert.deepEqual(hrefs(['entrant']), ['/home', '/boats', '/entries', '/calculator', '/account']);
+  assert.deepEqual(hrefs(['entrant']), ['/home', '/boats', '/entries', '/protests', '/calculator', '/account']);
   assert.ok(hrefs(['entrant', 'organiser']).includes('/organise'));
   assert.ok(!hrefs(['entrant', 'scrutineer']).includes('/organise'));
   assert.ok(hrefs(['entrant', 'admin']).includes('/admin'));
   assert.ok(!hrefs(['entrant', 'organiser']).includes('/admin'));
+  for (const staff of ['scrutineer', 'chief_scrutineer', 'organiser'] as const) assert.ok(hrefs(['entrant', staff]).includes('/inspect'), staff);
+  assert.ok(!hrefs(['entrant', 'steward']).includes('/inspect'));
 });

@@ -1,0 +1,48 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound, redirect } from 'next/navigation';
+import { getActor, can } from '@/lib/auth/actor';
+import { parseId } from '@/lib/http/ids';
+import { listStewardQueue } from '@/lib/protests/list-steward-queue';
+import { formatMoney } from '@/lib/validations/entries';
+import { DecisionCaution, ProtestStatusBadge } from '../../protests/protest-badges';
+
+export const metadata: Metadata = { title: 'Protest queue' };
+export const dynamic = 'force-dynamic';
+
+export default async function StewardQueuePage({ params }: { params: Promise<{ eventId: string }> }) {
+  const actor = await getActor();
+  if (!actor) redirect('/sign-in');
+  let eventId: string;
+  try { eventId = parseId((await params).eventId, 'event'); } catch { notFound(); }
+  if (!can(actor, 'protest.view_all', { eventId })) redirect('/not-allowed');
+  const q = await listStewardQueue(actor, eventId);
+  return (
+    <div className="space-y-6">
+      <nav aria-label="Breadcrumb" className="text-sm"><Link href="/stewards">Stewards</Link> / {q.event.name}</nav>
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <h1>Protests at {q.event.name}</h1>
+        <Link href={`/stewards/${eventId}/audit`} className="btn-secondary">Audit trail</Link>
+      </div>
+      <p className="text-ink-soft">Window {q.event.protestWindowMinutes} minutes after the results concerned · fee {q.event.protestFeeMinor > 0 ? formatMoney(q.event.protestFeeMinor, q.event.currency) : 'none'} · times in {q.event.timeZone}</p>
+      {q.total === 0 && <p className="card">No protests at this meeting.</p>}
+      {q.groups.map((g) => (
+        <section key={g.status} aria-labelledby={`group-${g.status}`} className="space-y-2" data-testid={`queue-${g.status}`}>
+          <h2 id={`group-${g.status}`}>{g.label} ({g.items.length})</h2>
+          <ul className="space-y-2">
+            {g.items.map((p) => (
+              <li key={p.id} className="card flex flex-wrap items-start justify-between gap-2" data-protest-id={p.id}>
+                <div>
+                  <Link href={`/stewards/${eventId}/protests/${p.id}`} className="text-lg font-bold">{p.targetLabel}: {p.ruleReference}</Link>
+                  <p className="text-sm text-ink-soft">by {p.lodgedByName} · submitted {p.lodgedAtLabel}{p.paidAt && p.paidAt > p.windowDeadline ? ' · fee paid after the window closed' : ''}</p>
+                </div>
+                <ProtestStatusBadge status={p.status} />
+              </li>
+            ))}
+          </ul>
+        </section>
+      ))}
+      <DecisionCaution />
+    </div>
+  );
+}

@@ -1,0 +1,57 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound, redirect } from 'next/navigation';
+import { getActor, can } from '@/lib/auth/actor';
+import { AppError } from '@/lib/http/errors';
+import { parseId } from '@/lib/http/ids';
+import { getProtest } from '@/lib/protests/get-protest';
+import { DecisionCaution, ProtestStatusBadge } from '../../../../protests/protest-badges';
+import { EvidenceList } from '../../../../protests/evidence-list';
+import { ProtestFacts } from '../../../../protests/protest-facts';
+import { EvidenceForm } from '../../../../protests/[protestId]/evidence-form';
+import { StewardActions } from './steward-actions';
+
+export const metadata: Metadata = { title: 'Protest (stewards)' };
+export const dynamic = 'force-dynamic';
+
+export default async function StewardProtestPage({ params }: { params: Promise<{ eventId: string; protestId: string }> }) {
+  const actor = await getActor();
+  if (!actor) redirect('/sign-in');
+  const raw = await params;
+  let eventId: string;
+  try { eventId = parseId(raw.eventId, 'event'); } catch { notFound(); }
+  if (!can(actor, 'protest.view_all', { eventId })) redirect('/not-allowed');
+  const p = await getProtest(actor, raw.protestId).catch((err) => {
+    if (err instanceof AppError && err.status === 404) notFound();
+    throw err;
+  });
+  if (p.eventId !== eventId) notFound();
+  return (
+    <div className="space-y-6">
+      <nav aria-label="Breadcrumb" className="text-sm"><Link href="/stewards">Stewards</Link> / <Link href={`/stewards/${eventId}`}>{p.eventName}</Link> / {p.targetLabel}</nav>
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <h1>Protest against {p.targetLabel}</h1>
+        <ProtestStatusBadge status={p.status} />
+      </div>
+      {p.paidAt && p.paidAt > p.windowDeadline && <p role="note" className="rounded-lg bg-doubt-100 p-3 text-doubt-800">The fee was paid after the window closed ({p.windowDeadlineLabel}).</p>}
+      <StewardActions p={p} />
+      <ProtestFacts p={p} />
+      <section aria-labelledby="evidence" className="card space-y-4">
+        <h2 id="evidence">Evidence</h2>
+        <EvidenceList evidence={p.evidence} timeZone={p.timeZone} />
+        {p.can.addEvidence && <EvidenceForm protestId={p.id} />}
+      </section>
+      <section aria-labelledby="reinspections" className="card space-y-2">
+        <h2 id="reinspections">Re-inspections ordered</h2>
+        {p.reinspections.length === 0 ? <p>None.</p> : (
+          <ul data-testid="reinspections">
+            {p.reinspections.map((t) => (
+              <li key={t.id} data-reinspection-id={t.id}>{t.reason} — {t.inspectionId ? `recorded (inspection ${t.inspectionId.slice(0, 8)}: ${t.verdict?.replace(/_/g, ' ') ?? '—'})` : 'waiting for the scrutineers'}</li>
+            ))}
+          </ul>
+        )}
+      </section>
+      <DecisionCaution />
+    </div>
+  );
+}

@@ -1,0 +1,98 @@
+'use client';
+
+import { useRouter } from 'next/navigation';
+import { useJsonSubmit, FormMessage } from '@/components/ui/use-json-submit';
+import { REJECTION_LABELS } from '@/lib/protests/protest-states';
+import type { ProtestDetail } from '@/lib/protests/get-protest';
+
+type Field = { name: string; label: string; kind: 'text' | 'textarea' | 'datetime' | 'select' | 'radio'; options?: Record<string, string>; hint?: string };
+
+/** One steward step as a small form: fields, the server's error beside each, the fieldset disabled while sending. */
+function ActionForm({ title, url, fields, button, danger }: { title: string; url: string; fields: Field[]; button: string; danger?: boolean }) {
+  const router = useRouter();
+  const { submit, isBusy, fieldErrors, message, setMessage } = useJsonSubmit<ProtestDetail>();
+  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
+    e.preventDefault();
+    const data = new FormData(e.currentTarget);
+    const body = Object.fromEntries(fields.map((f) => [f.name, String(data.get(f.name) ?? '')]));
+    const res = await submit(url, body);
+    if (res.ok) {
+      setMessage({ tone: 'ok', text: `${title}: done.` });
+      router.refresh();
+    }
+  }
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-3 rounded-lg bg-paper-deep p-4" aria-label={title}>
+      <h3>{title}</h3>
+      <fieldset disabled={isBusy} className="space-y-3">
+        {fields.map((f) => {
+          const id = `${url.split('/').pop()}-${f.name}`;
+          const err = fieldErrors[f.name];
+          const aria = { 'aria-invalid': err ? true : undefined, 'aria-describedby': err ? `${id}-error` : undefined };
+          return (
+            <div key={f.name}>
+              {f.kind === 'radio' ? (
+                <fieldset {...aria}>
+                  <legend className="field-label">{f.label}</legend>
+                  <div className="flex flex-wrap gap-4">
+                    {Object.entries(f.options ?? {}).map(([v, l]) => <label key={v} className="flex min-h-touch items-center gap-2"><input type="radio" name={f.name} value={v} className="h-5 w-5" />{l}</label>)}
+                  </div>
+                </fieldset>
+              ) : (
+                <>
+                  <label htmlFor={id} className="field-label">{f.label}</label>
+                  {f.kind === 'textarea' && <textarea id={id} name={f.name} rows={4} className="field-input" {...aria} />}
+                  {f.kind === 'text' && <input id={id} name={f.name} className="field-input" {...aria} />}
+                  {f.kind === 'datetime' && <input id={id} name={f.name} type="datetime-local" className="field-input" {...aria} />}
+                  {f.kind === 'select' && (
+                    <select id={id} name={f.name} className="field-input" {...aria}>
+                      {Object.entries(f.options ?? {}).map(([v, l]) => <option key={v} value={v}>{l}</option>)}
+                    </select>
+                  )}
+                </>
+              )}
+              {f.hint && <p className="field-hint">{f.hint}</p>}
+              {err && <p id={`${id}-error`} className="field-error" data-field-error={f.name}>{err}</p>}
+            </div>
+          );
+        })}
+        <button type="submit" className={danger ? 'btn-danger' : 'btn-primary'}>{button}</button>
+      </fieldset>
+      <FormMessage message={message} />
+    </form>
+  );
+}
+
+export function StewardActions({ p }: { p: ProtestDetail }) {
+  const base = `/api/protests/${p.id}`;
+  const anyAction = p.can.accept || p.can.reject || p.can.orderReinspection || p.can.scheduleHearing || p.can.decide;
+  if (!anyAction) return null;
+  return (
+    <section aria-labelledby="steward-actions" className="card space-y-4">
+      <h2 id="steward-actions">Stewards&apos; steps</h2>
+      <div className="grid gap-4 lg:grid-cols-2">
+        {p.can.accept && <ActionForm title="Accept for a hearing" url={`${base}/accept`} fields={[{ name: 'note', label: 'Note (optional)', kind: 'text' }]} button="Accept the protest" />}
+        {p.can.reject && (
+          <ActionForm title="Reject as invalid" url={`${base}/reject`} danger button="Reject the protest"
+            fields={[{ name: 'code', label: 'Why it is invalid', kind: 'select', options: REJECTION_LABELS }, { name: 'reasons', label: 'Reasons', kind: 'textarea' }]} />
+        )}
+        {p.can.orderReinspection && (
+          <ActionForm title="Order a re-inspection" url={`${base}/reinspection`} button="Order the re-inspection"
+            fields={[{ name: 'reason', label: 'What the scrutineers should check', kind: 'textarea', hint: 'The boat appears on the scrutineers’ re-inspection list; their record is linked here.' }]} />
+        )}
+        {p.can.scheduleHearing && (
+          <ActionForm title="Schedule the hearing" url={`${base}/hearing`} button="Schedule and tell the parties"
+            fields={[{ name: 'hearingAt', label: `Date and time (${p.timeZone})`, kind: 'datetime' }, { name: 'place', label: 'Place', kind: 'text' }]} />
+        )}
+        {p.can.decide && (
+          <ActionForm title="Decide" url={`${base}/decision`} button="Record the decision"
+            fields={[
+              { name: 'outcome', label: 'Decision', kind: 'radio', options: p.status === 'lodged' ? { withdrawn: 'Withdrawn' } : { upheld: 'Upheld (fee refunded)', dismissed: 'Dismissed (fee kept)', withdrawn: 'Withdrawn (fee kept)' } },
+              { name: 'reasons', label: 'Reasons', kind: 'textarea' },
+              { name: 'penalty', label: 'Penalty (upheld only)', kind: 'text', hint: 'Change the results by publishing a new provisional version.' },
+            ]} />
+        )}
+      </div>
+    </section>
+  );
+}

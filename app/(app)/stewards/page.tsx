@@ -1,0 +1,34 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { redirect } from 'next/navigation';
+import { getActor } from '@/lib/auth/actor';
+import { listStewardMeetings } from '@/lib/protests/list-steward-meetings';
+
+export const metadata: Metadata = { title: 'Stewards' };
+export const dynamic = 'force-dynamic';
+
+// The meetings where the person sees protests (stewards and organisers), with their desks.
+export default async function StewardsPage() {
+  const actor = await getActor();
+  if (!actor) redirect('/sign-in');
+  const events = await listStewardMeetings(actor);
+  return (
+    <div className="space-y-6">
+      <h1>Stewards</h1>
+      {events.length === 0 ? <p className="card">You are not a steward or organiser at any meeting.</p> : (
+        <ul className="space-y-3">
+          {events.map((e) => (
+            <li key={e.id} className="card flex flex-wrap items-center justify-between gap-3">
+              <div><h2 className="text-xl">{e.name}</h2><p className="text-ink-soft">{e.venue} · {e.startsOn}</p></div>
+              <div className="flex flex-wrap gap-2">
+                <Link href={`/stewards/${e.id}`} className="btn-primary">Protests</Link>
+                <Link href={`/stewards/${e.id}/audit`} className="btn-secondary">Audit trail</Link>
+                {e.canPublishResults && <Link href={`/organise/events/${e.id}/results`} className="btn-secondary">Provisional results</Link>}
+              </div>
+            </li>
+          ))}
+        </ul>
+      )}
+    </div>
+  );
+}

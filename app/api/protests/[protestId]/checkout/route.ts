@@ -1,0 +1,7 @@
+// POST /api/protests/:protestId/checkout: open (or reopen) the payment page for the protester's fee.
+import { actorHandler } from '@/lib/http/handler';
+import { startProtestPayment } from '@/lib/protests/start-protest-payment';
+
+export const POST = actorHandler<{ protestId: string }>(async (_req, { actor, params }) => {
+  return Response.json({ data: await startProtestPayment(actor, params.protestId) });
+});

@@ -1,0 +1,35 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+
+export type ResultRow = { position: number; raceNumber: number; entryId: string };
+
+// One published version of a class's provisional results. Append-only: a correction is a new version.
+export class ProvisionalResults extends Model<InferAttributes<ProvisionalResults>, InferCreationAttributes<ProvisionalResults>> {
+  declare id: CreationOptional<string>;
+  declare eventId: string;
+  declare classId: string;
+  declare version: number;
+  declare publishedAt: CreationOptional<Date>;
+  declare publishedById: string;
+  declare rows: ResultRow[];
+  declare changedEntryIds: CreationOptional<string[]>;
+  declare source: 'form' | 'csv';
+  declare note: CreationOptional<string>;
+}
+
+export function initProvisionalResults(sequelize: Sequelize) {
+  ProvisionalResults.init(
+    {
+      id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+      eventId: { type: DataTypes.UUID, allowNull: false },
+      classId: { type: DataTypes.UUID, allowNull: false },
+      version: { type: DataTypes.INTEGER, allowNull: false },
+      publishedAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
+      publishedById: { type: DataTypes.UUID, allowNull: false },
+      rows: { type: DataTypes.JSONB, allowNull: false },
+      changedEntryIds: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+      source: { type: DataTypes.STRING, allowNull: false },
+      note: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+    },
+    { sequelize, tableName: 'provisional_results', modelName: 'provisionalResults', underscored: true, timestamps: false },
+  );
+}
