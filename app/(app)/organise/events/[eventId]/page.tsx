@@ -33,6 +33,9 @@ export default async function EventPage({ params }: { params: Promise<{ eventId:
         <h1>{event.name}</h1>
         <div className="flex flex-wrap gap-2">
           <Link href={`/organise/events/${event.id}/entries`} className="btn-primary">Entries</Link>
+          <Link href={`/inspect/${event.id}/board`} className="btn-secondary">Inspection board</Link>
+          <Link href={`/organise/events/${event.id}/results`} className="btn-secondary">Provisional results</Link>
+          <Link href={`/stewards/${event.id}/audit`} className="btn-secondary">Audit trail</Link>
           <a href={`/api/events/${event.id}/tag-sheet?sheet=a4-2x7`} className="btn-secondary">Tag sheet (A4)</a>
           <a href={`/api/events/${event.id}/tag-sheet?sheet=letter-2x5`} className="btn-secondary">Tag sheet (Letter)</a>
         </div>
@@ -48,6 +51,7 @@ export default async function EventPage({ params }: { params: Promise<{ eventId:
                   {c.code} · {c.name}
                 </Link>
                 <span className="text-sm">
+                  {c.publishedVersion && <Link href={`/organise/events/${event.id}/classes/${c.id}/report`} className="mr-2 font-bold">Parity report</Link>}
                   {c.publishedVersion ? `rules v${c.publishedVersion} published` : 'rules not published'}
                   {c.latestStatus === 'draft' && ` · draft v${c.latestVersion} open`}
                 </span>

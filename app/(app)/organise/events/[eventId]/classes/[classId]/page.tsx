@@ -42,7 +42,12 @@ export default async function ClassPage({ params }: { params: Promise<{ eventId:
       <nav aria-label="Breadcrumb" className="text-sm">
         <Link href="/organise">Organise</Link> / <Link href={`/organise/events/${eventId}`}>Meeting</Link> / {raceClass.code}
       </nav>
-      <h1>{raceClass.code} · {raceClass.name}</h1>
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <h1>{raceClass.code} · {raceClass.name}</h1>
+        {versions.some((v) => v.status === 'published') && (
+          <Link href={`/organise/events/${eventId}/classes/${classId}/report`} className="btn-primary">Parity report</Link>
+        )}
+      </div>
       {raceClass.description && <p className="text-ink-soft">{raceClass.description}</p>}
       <SafetyNote />
       <section className="card space-y-4" aria-labelledby="edit">
