@@ -1,0 +1,41 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { Suspense } from 'react';
+import { notFound, redirect } from 'next/navigation';
+import { can, getActor } from '@/lib/auth/actor';
+import { getDb } from '@/lib/db';
+import { parseId } from '@/lib/http/ids';
+import { BoardView } from './board-view';
+
+export const metadata: Metadata = { title: 'Inspection board' };
+export const dynamic = 'force-dynamic';
+
+// The chief scrutineer's and organiser's view of the whole meeting's inspections, refreshing itself.
+export default async function BoardPage({ params }: { params: Promise<{ eventId: string }> }) {
+  const actor = await getActor();
+  if (!actor) redirect('/sign-in');
+  let eventId: string;
+  try {
+    eventId = parseId((await params).eventId);
+  } catch {
+    notFound();
+  }
+  if (!can(actor, 'inspection.board', { eventId })) redirect('/not-allowed');
+  const event = await getDb().models.Event.findByPk(eventId, { attributes: ['id', 'name'] });
+  if (!event) notFound();
+  const canRecord = can(actor, 'inspection.record', { eventId });
+  return (
+    <div className="space-y-4 text-lg">
+      <nav aria-label="Breadcrumb" className="text-lg">
+        <Link href="/inspect">Inspect</Link> / {event.name} / Board
+      </nav>
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <h1>Inspection board</h1>
+        {canRecord && <Link href={`/inspect/${eventId}`} className="btn-secondary text-lg">Dock screen</Link>}
+      </div>
+      <Suspense fallback={<p>Loading the board…</p>}>
+        <BoardView eventId={eventId} canAssign={can(actor, 'inspection.assign_reinspection', { eventId })} canRecord={canRecord} />
+      </Suspense>
+    </div>
+  );
+}

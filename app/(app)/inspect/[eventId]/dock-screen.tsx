@@ -1,0 +1,192 @@
+'use client';
+
+import { useCallback, useEffect, useState } from 'react';
+import { parseTagScan } from '@/lib/inspections/parse-tag-scan';
+import { loadSnapshot, putQueued, saveSnapshot, sendQueued, type EventSnapshot, type QueuedRecord } from '@/lib/inspections/offline-queue';
+import type { InspectionView } from '@/lib/inspections/inspection-view';
+import type { InstrumentView } from '@/lib/inspections/list-instruments';
+import { BoatCardView } from './boat-card-view';
+import { FindBoat, type FindQuery } from './find-boat';
+import { formFromDraft, initialFormState, targetFromBoardRow, targetFromCard, type DockTarget, type FormState } from './form-model';
+import { InspectionForm, type FormSubmission } from './inspection-form';
+import { QueuePanel } from './queue-panel';
+import { registerInspectServiceWorker, useDockQueue } from './use-dock-queue';
+import { VerdictPanel, type ShownVerdict } from './verdict-panel';
+
+/** A record key made on the phone (crypto.randomUUID needs a secure context; fall back to random bytes). */
+function newKey(): string {
+  if (typeof crypto.randomUUID === 'function') return crypto.randomUUID();
+  const b = crypto.getRandomValues(new Uint8Array(16));
+  b[6] = (b[6] & 0x0f) | 0x40;
+  b[8] = (b[8] & 0x3f) | 0x80;
+  const h = Array.from(b, (x) => x.toString(16).padStart(2, '0')).join('');
+  return `${h.slice(0, 8)}-${h.slice(8, 12)}-${h.slice(12, 16)}-${h.slice(16, 20)}-${h.slice(20)}`;
+}
+
+/** A short, stable name for this phone, so the record says which device captured it. */
+function deviceName(): string {
+  const saved = localStorage.getItem('boreline-device');
+  if (saved) return saved;
+  const ua = navigator.userAgent;
+  const name = `${/iPhone|iPad/.test(ua) ? 'iPhone' : /Android/.test(ua) ? 'Android phone' : 'Browser'} ${newKey().slice(0, 4)}`;
+  localStorage.setItem('boreline-device', name);
+  return name;
+}
+
+type Notice = { tone: 'error' | 'info'; text: string; code?: string };
+type Answer = { status: number; ok: boolean; fromCache: boolean; body: { data?: unknown; error?: { code?: string; message?: string } } | null } | null;
+
+async function get(url: string): Promise<Answer> {
+  try {
+    const res = await fetch(url, { credentials: 'same-origin' });
+    const body = await res.json().catch(() => null);
+    if (res.status === 503 && body?.error?.code === 'offline') return null; // the service worker had no copy
+    return { status: res.status, ok: res.ok, fromCache: res.headers.get('X-Served-From') === 'cache', body };
+  } catch {
+    return null;
+  }
+}
+
+/** The dock: find the boat, see its card, record, see the verdict; the phone's outbox beside it. */
+export function DockScreen({ eventId, actorId, instruments }: { eventId: string; actorId: string; instruments: InstrumentView[] }) {
+  const queue = useDockQueue(eventId, actorId);
+  const [snapshot, setSnapshot] = useState<EventSnapshot | null>(null);
+  const [target, setTarget] = useState<DockTarget | null>(null);
+  const [form, setForm] = useState<{ key: string; initial: FormState; revision: number } | null>(null);
+  const [serverErrors, setServerErrors] = useState<Record<string, string>>({});
+  const [notice, setNotice] = useState<Notice | null>(null);
+  const [verdict, setVerdict] = useState<ShownVerdict | null>(null);
+  const [isLooking, setLooking] = useState(false);
+  const [device, setDevice] = useState('');
+  const defaultLength = instruments.find((i) => i.quantity === 'length')?.id ?? null;
+  const defaultScale = instruments.find((i) => i.quantity === 'mass')?.id ?? null;
+
+  // Keep the phone's copy of the entries (and class rules) fresh whenever there is a signal.
+  const refreshSnapshot = useCallback(async () => {
+    const answer = await get(`/api/events/${eventId}/inspections`);
+    if (answer?.ok && !answer.fromCache) {
+      const snap: EventSnapshot = { eventId, savedAt: new Date().toISOString(), board: answer.body?.data as EventSnapshot['board'], instruments };
+      await saveSnapshot(snap);
+      setSnapshot(snap);
+    } else {
+      setSnapshot((await loadSnapshot(eventId)) ?? null);
+    }
+  }, [eventId, instruments]);
+
+  useEffect(() => {
+    setDevice(deviceName());
+    registerInspectServiceWorker();
+  }, []);
+  useEffect(() => void refreshSnapshot(), [refreshSnapshot, queue.isOnline]);
+
+  function open(t: DockTarget, initial?: FormState, key?: string) {
+    setTarget(t);
+    setVerdict(null);
+    setServerErrors({});
+    setForm((f) => ({ key: key ?? newKey(), initial: initial ?? initialFormState(t, defaultLength, defaultScale), revision: (f?.revision ?? 0) + 1 }));
+  }
+
+  async function find(q: FindQuery) {
+    setNotice(null);
+    setVerdict(null);
+    const text = q.text.trim();
+    const isRaceNumber = q.kind === 'typed' && /^\d{1,4}$/.test(text);
+    const token = isRaceNumber ? null : parseTagScan(text);
+    if (!isRaceNumber && !token) {
+      setTarget(null);
+      return setNotice({ tone: 'error', code: 'unknown_tag', text: 'That is not a Boreline tag: the code is unreadable or from another system. Type the race number instead.' });
+    }
+    setLooking(true);
+    const answer = await get(isRaceNumber ? `/api/events/${eventId}/race-numbers/${text}` : `/api/events/${eventId}/tags/${encodeURIComponent(token!)}`);
+    setLooking(false);
+    if (answer?.ok) return open(targetFromCard(answer.body?.data as never, answer.fromCache));
+    if (answer && answer.status < 500) {
+      setTarget(null);
+      return setNotice({ tone: 'error', code: answer.body?.error?.code, text: answer.body?.error?.message ?? `The lookup was refused (${answer.status}).` });
+    }
+    // No signal (or the server is down): the phone's copy of the entries.
+    const snap = snapshot ?? (await loadSnapshot(eventId)) ?? null;
+    const row = snap?.board.rows.find((r) => (isRaceNumber ? r.raceNumber === Number(text) : r.tagToken === token));
+    if (snap && row) return open(targetFromBoardRow(row, snap.board));
+    setTarget(null);
+    setNotice({
+      tone: 'error',
+      code: 'offline_unknown',
+      text: snap ? `No signal, and ${isRaceNumber ? `race number ${text}` : 'this tag'} is not in this phone’s copy of the entries.` : 'No signal, and this phone has no copy of the entries yet: open the dock screen once with a signal.',
+    });
+  }
+
+  async function record({ draft, photos, provisional }: FormSubmission) {
+    if (!target) return;
+    const label = `No. ${target.raceNumber} ${target.boatName}`;
+    const queued: QueuedRecord = {
+      idempotencyKey: draft.idempotencyKey, eventId, recordedById: actorId, label, payload: draft, photos: photos.map((p) => ({ name: p.name, type: p.type, blob: p })),
+      state: 'waiting', attempts: 0, createdAt: new Date().toISOString(), lastTriedAt: null, message: null, fieldErrors: {},
+      inspectionId: null, overallResult: null, serverRules: null, sentAt: null,
+    };
+    await putQueued(queued); // on the phone first, whatever happens next
+    const after = navigator.onLine ? await sendQueued(queued) : queued;
+    await queue.refresh();
+    if (after.state === 'needs_fix' && !after.inspectionId) {
+      // Refused: the form stays open with the server's messages beside the fields, and the same key.
+      setServerErrors(after.fieldErrors);
+      setNotice({ tone: 'error', text: `Not recorded: ${after.message ?? 'the server refused it'}. It is kept on this phone under “Needs a fix”.` });
+      return;
+    }
+    setVerdict({
+      label,
+      rules: after.serverRules ?? provisional?.rules ?? [],
+      overall: after.overallResult ?? provisional?.overall ?? 'pending',
+      provisional: !after.serverRules,
+      inspectionId: after.inspectionId,
+    });
+    setNotice(after.state === 'sent' ? { tone: 'info', text: `Recorded and sent: ${label}.` } : { tone: 'info', text: `Kept on this phone: ${label}. Waiting to send.` });
+    setTarget(null);
+    setForm(null);
+    if (after.state === 'sent') void refreshSnapshot();
+  }
+
+  async function fix(r: QueuedRecord) {
+    const snap = snapshot ?? (await loadSnapshot(eventId)) ?? null;
+    const row = snap?.board.rows.find((x) => x.entryId === r.payload.entryId);
+    const answer = row ? await get(`/api/events/${eventId}/race-numbers/${row.raceNumber}`) : null;
+    const t = answer?.ok ? targetFromCard(answer.body?.data as never, answer.fromCache) : row && snap ? targetFromBoardRow(row, snap.board) : null;
+    if (!t) return setNotice({ tone: 'error', text: 'This boat is not in the phone’s copy of the entries: open the dock screen with a signal first.' });
+    open(t, formFromDraft(r.payload, initialFormState(t, defaultLength, defaultScale)), r.idempotencyKey);
+    setServerErrors(r.fieldErrors);
+    setNotice({ tone: 'error', text: `Fix and send again: ${r.message ?? ''}` });
+  }
+
+  function correct(original: InspectionView) {
+    if (!target || !form) return;
+    setForm({ ...form, initial: { ...form.initial, supersedesId: original.id, correctionReason: '' }, revision: form.revision + 1 });
+    setNotice({ tone: 'info', text: `Correcting the record of ${new Date(original.capturedAt).toLocaleString()}: measure or re-enter, then say why.` });
+  }
+
+  useEffect(() => {
+    // From the board's re-inspection list: /inspect/<event>?race=42 opens that boat.
+    const race = new URLSearchParams(window.location.search).get('race');
+    if (race) void find({ kind: 'typed', text: race });
+  }, []);
+
+  return (
+    <div className="grid gap-4 lg:grid-cols-[2fr_1fr]">
+      <div className="space-y-4">
+        <FindBoat onFind={(q) => void find(q)} isBusy={isLooking} />
+        {isLooking && <p role="status" className="text-lg">Looking up…</p>}
+        {notice && (
+          <p role="status" aria-live="polite" data-testid="dock-notice" data-code={notice.code ?? ''}
+            className={`rounded-lg p-3 text-lg font-bold ${notice.tone === 'error' ? 'bg-fail-100 text-fail-800' : 'bg-tide-50 text-tide-700'}`}>
+            {notice.text}
+          </p>
+        )}
+        {verdict && <VerdictPanel verdict={verdict} onNext={() => { setVerdict(null); setNotice(null); }} />}
+        {target && <BoatCardView target={target} onCorrect={correct} />}
+        {target && form && !target.isOwnBoat && (
+          <InspectionForm key={`${form.key}-${form.revision}`} target={target} instruments={instruments} initial={form.initial} idempotencyKey={form.key} device={device} serverErrors={serverErrors} onSubmit={record} />
+        )}
+      </div>
+      <QueuePanel records={queue.records} actorId={actorId} isOnline={queue.isOnline} onSendNow={() => void queue.flush()} onFix={(r) => void fix(r)} onRemove={(r) => void queue.remove(r)} />
+    </div>
+  );
+}

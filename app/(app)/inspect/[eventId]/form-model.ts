@@ -1,0 +1,150 @@
+// The dock form's state (strings, as typed) and its conversion to the inspection input, both ways,
+// so a queued record that needs a fix can be loaded back into the form. Plain TypeScript.
+import type { Material } from '@/lib/engine/measurement';
+import type { ClassRules } from '@/lib/validations/class-rules';
+import type { InspectionKind, RecordInspectionDraft } from '@/lib/validations/inspections';
+import type { BoardRow, InspectionBoard } from '@/lib/inspections/list-inspection-board';
+import type { BoatCard } from '@/lib/inspections/load-boat-card';
+
+/** The boat being inspected, from the server's card or, offline, from the phone's copy of the board. */
+export type DockTarget = {
+  source: 'server' | 'server-cache' | 'phone-copy';
+  entryId: string;
+  raceNumber: number;
+  boatName: string;
+  classCode: string;
+  className: string;
+  status: string;
+  isPaid: boolean;
+  declaredPowerKw: number;
+  powerEvidence: string;
+  rules: ClassRules | null;
+  ruleVersion: number | null;
+  card: BoatCard | null;
+  isOwnBoat: boolean;
+};
+
+export function targetFromCard(card: BoatCard, fromCache: boolean): DockTarget {
+  return {
+    source: fromCache ? 'server-cache' : 'server', entryId: card.entry.id, raceNumber: card.entry.raceNumber, boatName: card.boat.name,
+    classCode: card.raceClass.code, className: card.raceClass.name, status: card.entry.status, isPaid: card.entry.isPaid,
+    declaredPowerKw: card.boat.declaredPowerKw, powerEvidence: card.boat.powerEvidence, rules: card.ruleVersion?.rules ?? null,
+    ruleVersion: card.ruleVersion?.version ?? null, card, isOwnBoat: card.isOwnBoat,
+  };
+}
+
+export function targetFromBoardRow(row: BoardRow, board: InspectionBoard): DockTarget {
+  const cls = board.classes.find((c) => c.id === row.classId);
+  return {
+    source: 'phone-copy', entryId: row.entryId, raceNumber: row.raceNumber, boatName: row.boatName, classCode: row.classCode,
+    className: row.className, status: row.status, isPaid: row.isPaid, declaredPowerKw: row.declaredPowerKw, powerEvidence: row.powerEvidence,
+    rules: cls?.ruleVersion?.rules ?? null, ruleVersion: cls?.ruleVersion?.version ?? null, card: null, isOwnBoat: false,
+  };
+}
+
+export type UncertaintySource = 'instrument' | 'typed' | 'class';
+
+export type FormState = {
+  kind: InspectionKind;
+  readings: { diameter: string; angle: string }[];
+  uncertaintySource: UncertaintySource;
+  instrumentId: string;
+  typedU: string;
+  temperature: string;
+  material: '' | Material;
+  weighings: string[];
+  scaleId: string;
+  powerKw: string;
+  evidenceSeen: boolean;
+  powerNote: string;
+  seals: { number: string; location: string }[];
+  safety: Record<string, boolean>;
+  notes: string;
+  supersedesId: string | null;
+  correctionReason: string;
+  reinspectionId: string;
+};
+
+/** Default angles spread evenly over half a turn: three readings at 0, 60 and 120° (common practice). */
+const angleFor = (i: number, n: number) => String(Math.round((180 / n) * i));
+
+export function initialFormState(target: DockTarget, lengthInstrumentId: string | null, scaleId: string | null): FormState {
+  const n = Math.max(target.rules?.nozzle.minReadings ?? 3, 1);
+  return {
+    kind: target.card?.openReinspections.length ? 'post_race' : 'pre_race',
+    readings: Array.from({ length: n }, (_, i) => ({ diameter: '', angle: angleFor(i, n) })),
+    uncertaintySource: lengthInstrumentId ? 'instrument' : 'class',
+    instrumentId: lengthInstrumentId ?? '',
+    typedU: '',
+    temperature: '',
+    material: '',
+    weighings: ['', ''],
+    scaleId: scaleId ?? '',
+    powerKw: String(target.declaredPowerKw),
+    evidenceSeen: false,
+    powerNote: '',
+    seals: [],
+    safety: {},
+    notes: '',
+    supersedesId: null,
+    correctionReason: '',
+    reinspectionId: target.card?.openReinspections[0]?.id ?? '',
+  };
+}
+
+/** A typed number: empty is "not given" (the schema says so), a comma is a decimal point, text stays NaN. */
+const toNumber = (s: string): number | undefined => (s.trim() === '' ? undefined : Number(s.trim().replace(',', '.')));
+const toOptionalNumber = (s: string): number | null => (s.trim() === '' ? null : Number(s.trim().replace(',', '.')));
+
+export function draftFromForm(f: FormState, target: DockTarget, meta: { idempotencyKey: string; capturedAt: string; device: string }): RecordInspectionDraft {
+  const weighings = f.weighings.filter((w) => w.trim() !== '');
+  return {
+    idempotencyKey: meta.idempotencyKey,
+    entryId: target.entryId,
+    kind: f.kind,
+    capturedAt: meta.capturedAt,
+    device: meta.device,
+    nozzle: {
+      readings: f.readings.map((r) => ({ diameterMm: toNumber(r.diameter) as number, angleDeg: toNumber(r.angle) as number })),
+      instrumentId: f.uncertaintySource === 'instrument' ? f.instrumentId || null : null,
+      expandedUncertaintyMm: f.uncertaintySource === 'typed' ? (toNumber(f.typedU) as number) : null,
+      temperatureC: toOptionalNumber(f.temperature),
+      material: f.material || null,
+    },
+    weight: weighings.length ? { readingsKg: weighings.map((w) => toNumber(w) as number), instrumentId: f.scaleId || null } : null,
+    power: { declaredKw: toNumber(f.powerKw) as number, evidenceSeen: f.evidenceSeen, note: f.powerNote },
+    seals: f.seals.filter((s) => s.number.trim() || s.location.trim()),
+    safety: Object.fromEntries((target.rules?.safetyItems ?? []).map((k) => [k, f.safety[k] === true])),
+    notes: f.notes,
+    supersedesId: f.supersedesId,
+    correctionReason: f.supersedesId ? f.correctionReason : null,
+    reinspectionId: f.reinspectionId || null,
+  };
+}
+
+const str = (v: unknown) => (typeof v === 'number' && Number.isFinite(v) ? String(v) : '');
+
+/** A queued draft back into the form (for "Fix and send again", with the same record key). */
+export function formFromDraft(d: RecordInspectionDraft, base: FormState): FormState {
+  return {
+    ...base,
+    kind: d.kind ?? base.kind,
+    readings: d.nozzle.readings.map((r) => ({ diameter: str(r.diameterMm), angle: str(r.angleDeg) })),
+    uncertaintySource: d.nozzle.instrumentId ? 'instrument' : d.nozzle.expandedUncertaintyMm != null ? 'typed' : 'class',
+    instrumentId: d.nozzle.instrumentId ?? base.instrumentId,
+    typedU: str(d.nozzle.expandedUncertaintyMm),
+    temperature: str(d.nozzle.temperatureC),
+    material: d.nozzle.material ?? '',
+    weighings: d.weight?.readingsKg.map(str) ?? base.weighings,
+    scaleId: d.weight?.instrumentId ?? base.scaleId,
+    powerKw: str(d.power.declaredKw),
+    evidenceSeen: d.power.evidenceSeen,
+    powerNote: d.power.note ?? '',
+    seals: d.seals ?? [],
+    safety: Object.fromEntries(Object.entries(d.safety ?? {}).map(([k, v]) => [k, v === true])),
+    notes: d.notes ?? '',
+    supersedesId: d.supersedesId ?? null,
+    correctionReason: d.correctionReason ?? '',
+    reinspectionId: d.reinspectionId ?? '',
+  };
+}

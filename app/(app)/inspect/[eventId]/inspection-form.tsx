@@ -1,0 +1,225 @@
+'use client';
+
+import { useState } from 'react';
+import { SAFETY_ITEMS, type SafetyItem } from '@/lib/constants';
+import { MATERIAL_OPTIONS } from '@/lib/engine/measurement';
+import { EngineInputError } from '@/lib/engine/engine-input-error';
+import { INSPECTION_KINDS, INSPECTION_KIND_LABELS, RecordInspectionInput, type RecordInspectionDraft } from '@/lib/validations/inspections';
+import { decideInspection, type InspectionDecision } from '@/lib/inspections/decide-inspection';
+import type { InstrumentView } from '@/lib/inspections/list-instruments';
+import { SafetyNote } from '@/components/safety-note';
+import { DockField } from './dock-field';
+import { draftFromForm, type DockTarget, type FormState } from './form-model';
+
+export type FormSubmission = { draft: RecordInspectionDraft; photos: File[]; provisional: InspectionDecision | null };
+type Props = {
+  target: DockTarget;
+  instruments: InstrumentView[];
+  initial: FormState;
+  idempotencyKey: string;
+  device: string;
+  serverErrors: Record<string, string>;
+  onSubmit: (s: FormSubmission) => Promise<void>;
+};
+
+const id = (path: string) => `f-${path.replace(/\./g, '-')}`;
+const select = 'field-input min-h-touch text-xl';
+const check = 'h-7 w-7 shrink-0 accent-tide-600';
+
+/** The record form for one boat. Checks the input with the shared schema before anything is queued. */
+export function InspectionForm({ target, instruments, initial, idempotencyKey, device, serverErrors, onSubmit }: Props) {
+  const [f, setF] = useState<FormState>(initial);
+  const [photos, setPhotos] = useState<File[]>([]);
+  const [errors, setErrors] = useState<Record<string, string>>({});
+  const [isBusy, setBusy] = useState(false);
+  const set = <K extends keyof FormState>(k: K, v: FormState[K]) => setF((s) => ({ ...s, [k]: v }));
+  const err = (path: string) => errors[path] ?? serverErrors[path];
+  const lengthInstruments = instruments.filter((i) => i.quantity === 'length');
+  const scales = instruments.filter((i) => i.quantity === 'mass');
+  const rules = target.rules;
+
+  async function submit(e: React.FormEvent) {
+    e.preventDefault();
+    if (isBusy) return; // a second tap while the first is on its way does nothing
+    const draft = draftFromForm(f, target, { idempotencyKey, capturedAt: new Date().toISOString(), device });
+    const parsed = RecordInspectionInput.safeParse(draft);
+    if (!parsed.success) {
+      const out: Record<string, string> = {};
+      for (const i of parsed.error.issues) out[i.path.map(String).join('.')] ??= i.message;
+      setErrors(out);
+      return;
+    }
+    let provisional: InspectionDecision | null = null;
+    if (rules) {
+      try {
+        const pick = (iid: string | null) => instruments.find((i) => i.id === iid) ?? null;
+        provisional = decideInspection({ input: parsed.data, rules, nozzleInstrument: pick(parsed.data.nozzle.instrumentId), weightInstrument: pick(parsed.data.weight?.instrumentId ?? null) });
+      } catch (x) {
+        if (x instanceof EngineInputError) return setErrors({ [x.field]: x.message });
+        throw x;
+      }
+    }
+    setErrors({});
+    setBusy(true);
+    try {
+      await onSubmit({ draft, photos, provisional });
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  const readingsError = err('nozzle.readings');
+  return (
+    <form onSubmit={submit} noValidate className="space-y-6 text-lg" data-testid="inspection-form" aria-label={`Inspection of ${target.boatName}`}>
+      <fieldset disabled={isBusy} className="space-y-6">
+        {f.supersedesId && (
+          <div className="rounded-lg border-2 border-flare-500 bg-flare-100 p-4">
+            <p className="font-bold">Correcting an earlier record. The original is kept; this one supersedes it.</p>
+            <label htmlFor={id('correctionReason')} className="field-label mt-2 text-lg">Why is it corrected?</label>
+            <textarea id={id('correctionReason')} className="field-input text-xl" rows={2} value={f.correctionReason} onChange={(e) => set('correctionReason', e.target.value)} aria-invalid={err('correctionReason') ? true : undefined} />
+            {err('correctionReason') && <p className="field-error text-lg">{err('correctionReason')}</p>}
+            <button type="button" className="btn-secondary mt-2 text-lg" onClick={() => setF((s) => ({ ...s, supersedesId: null, correctionReason: '' }))}>Not a correction</button>
+          </div>
+        )}
+        <div>
+          <label htmlFor={id('kind')} className="field-label text-lg">Kind of inspection</label>
+          <select id={id('kind')} className={select} value={f.kind} onChange={(e) => set('kind', e.target.value as FormState['kind'])}>
+            {INSPECTION_KINDS.map((k) => <option key={k} value={k}>{INSPECTION_KIND_LABELS[k]}</option>)}
+          </select>
+        </div>
+
+        <fieldset className="space-y-3" aria-describedby={readingsError ? id('nozzle.readings') : undefined}>
+          <legend className="text-xl font-bold">Nozzle exit: two-point diameters</legend>
+          <p className="text-ink-soft">{rules ? `At least ${rules.nozzle.minReadings} readings, spread around the exit.` : 'Spread the readings around the exit.'}</p>
+          {f.readings.map((r, i) => (
+            <div key={i} className="grid grid-cols-[2fr_1fr] items-end gap-3">
+              <DockField id={id(`nozzle.readings.${i}.diameterMm`)} label={`Reading ${i + 1} diameter`} unit="mm" inputMode="decimal" autoComplete="off" value={r.diameter}
+                error={err(`nozzle.readings.${i}.diameterMm`)} onChange={(e) => set('readings', f.readings.map((x, j) => (j === i ? { ...x, diameter: e.target.value } : x)))} />
+              <DockField id={id(`nozzle.readings.${i}.angleDeg`)} label={`Reading ${i + 1} angle`} unit="°" inputMode="numeric" autoComplete="off" value={r.angle}
+                error={err(`nozzle.readings.${i}.angleDeg`)} onChange={(e) => set('readings', f.readings.map((x, j) => (j === i ? { ...x, angle: e.target.value } : x)))} />
+            </div>
+          ))}
+          {readingsError && <p id={id('nozzle.readings')} className="field-error text-lg" data-field-error="nozzle.readings">{readingsError}</p>}
+          <div className="flex flex-wrap gap-3">
+            <button type="button" className="btn-secondary text-lg" onClick={() => set('readings', [...f.readings, { diameter: '', angle: '' }])}>Add a reading</button>
+            {f.readings.length > 1 && <button type="button" className="btn-secondary text-lg" onClick={() => set('readings', f.readings.slice(0, -1))}>Remove the last reading</button>}
+          </div>
+
+          <div role="radiogroup" aria-label="Uncertainty of the readings" className="space-y-2">
+            <p className="font-bold">Uncertainty of the readings</p>
+            {(['instrument', 'typed', 'class'] as const).map((src) => (
+              <label key={src} className="flex min-h-touch items-center gap-3">
+                <input type="radio" name="uncertaintySource" className={check} checked={f.uncertaintySource === src} onChange={() => set('uncertaintySource', src)} disabled={src === 'instrument' && lengthInstruments.length === 0} />
+                {src === 'instrument' ? 'From the instrument used' : src === 'typed' ? 'I know U (type it)' : `Class default${rules ? ` (U ${rules.nozzle.defaultUncertaintyMm} mm)` : ''}`}
+              </label>
+            ))}
+          </div>
+          {f.uncertaintySource === 'instrument' && (
+            <div>
+              <label htmlFor={id('nozzle.instrumentId')} className="field-label text-lg">Instrument used</label>
+              <select id={id('nozzle.instrumentId')} className={select} value={f.instrumentId} onChange={(e) => set('instrumentId', e.target.value)} aria-invalid={err('nozzle.instrumentId') ? true : undefined}>
+                <option value="">Choose…</option>
+                {lengthInstruments.map((i) => <option key={i.id} value={i.id}>{i.name} (U {i.appliedExpandedUncertainty.toFixed(3)} mm)</option>)}
+              </select>
+              {err('nozzle.instrumentId') && <p className="field-error text-lg" data-field-error="nozzle.instrumentId">{err('nozzle.instrumentId')}</p>}
+            </div>
+          )}
+          {f.uncertaintySource === 'typed' && (
+            <DockField id={id('nozzle.expandedUncertaintyMm')} label="Expanded uncertainty U (k = 2)" unit="mm" inputMode="decimal" value={f.typedU} error={err('nozzle.expandedUncertaintyMm')} onChange={(e) => set('typedU', e.target.value)} />
+          )}
+          <div className="grid grid-cols-2 items-end gap-3">
+            <DockField id={id('nozzle.temperatureC')} label="Nozzle temperature" unit="°C" inputMode="decimal" value={f.temperature} error={err('nozzle.temperatureC')} onChange={(e) => set('temperature', e.target.value)} />
+            <div>
+              <label htmlFor={id('nozzle.material')} className="field-label text-lg">Nozzle material</label>
+              <select id={id('nozzle.material')} className={select} value={f.material} onChange={(e) => set('material', e.target.value as FormState['material'])}>
+                <option value="">Not known</option>
+                {MATERIAL_OPTIONS.map((m) => <option key={m.value} value={m.value}>{m.label}</option>)}
+              </select>
+            </div>
+          </div>
+          <p className="text-ink-soft">With both, the readings are corrected to 20 °C (ISO 1:2022).</p>
+        </fieldset>
+
+        {(!rules || rules.weight.minKg != null) && (
+          <fieldset className="space-y-3">
+            <legend className="text-xl font-bold">Weight{rules?.weight.minKg != null ? ` (minimum ${rules.weight.minKg} kg, ${rules.weight.includesDriver ? 'with' : 'without'} driver)` : ''}</legend>
+            <div className="grid grid-cols-2 items-end gap-3">
+              {f.weighings.map((w, i) => (
+                <DockField key={i} id={id(`weight.readingsKg.${i}`)} label={`Weighing ${i + 1}`} unit="kg" inputMode="decimal" value={w} error={err(`weight.readingsKg.${i}`)}
+                  onChange={(e) => set('weighings', f.weighings.map((x, j) => (j === i ? e.target.value : x)))} />
+              ))}
+            </div>
+            <div>
+              <label htmlFor={id('weight.instrumentId')} className="field-label text-lg">Scale used</label>
+              <select id={id('weight.instrumentId')} className={select} value={f.scaleId} onChange={(e) => set('scaleId', e.target.value)}>
+                <option value="">Class default uncertainty</option>
+                {scales.map((i) => <option key={i.id} value={i.id}>{i.name}</option>)}
+              </select>
+              {err('weight.instrumentId') && <p className="field-error text-lg">{err('weight.instrumentId')}</p>}
+            </div>
+          </fieldset>
+        )}
+
+        <fieldset className="space-y-3">
+          <legend className="text-xl font-bold">Engine power</legend>
+          <DockField id={id('power.declaredKw')} label="Power, as declared or as the evidence shows" unit="kW" inputMode="decimal" value={f.powerKw} error={err('power.declaredKw')} onChange={(e) => set('powerKw', e.target.value)}
+            hint={`Declared by the entrant: ${target.declaredPowerKw} kW (${target.powerEvidence.replace('_', ' ')}).`} />
+          <label className="flex min-h-touch items-center gap-3 font-bold">
+            <input type="checkbox" className={check} checked={f.evidenceSeen} onChange={(e) => set('evidenceSeen', e.target.checked)} />
+            I saw the evidence (dyno sheet or maker’s rating)
+          </label>
+          <DockField id={id('power.note')} label="Power note" value={f.powerNote} error={err('power.note')} onChange={(e) => set('powerNote', e.target.value)} />
+        </fieldset>
+
+        {rules && rules.safetyItems.length > 0 && (
+          <fieldset className="space-y-2">
+            <legend className="text-xl font-bold">Safety items required by the class</legend>
+            {rules.safetyItems.map((k) => (
+              <label key={k} className="flex min-h-touch items-center gap-3 rounded-lg border-2 border-paper-line bg-white px-3">
+                <input type="checkbox" className={check} checked={f.safety[k] === true} onChange={(e) => set('safety', { ...f.safety, [k]: e.target.checked })} />
+                {SAFETY_ITEMS[k as SafetyItem] ?? k} — present and working
+              </label>
+            ))}
+            <SafetyNote className="text-lg" />
+          </fieldset>
+        )}
+
+        <fieldset className="space-y-3">
+          <legend className="text-xl font-bold">Seals applied</legend>
+          {f.seals.map((s, i) => (
+            <div key={i} className="grid grid-cols-2 gap-3">
+              <DockField id={id(`seals.${i}.number`)} label={`Seal ${i + 1} number`} value={s.number} error={err(`seals.${i}.number`)} onChange={(e) => set('seals', f.seals.map((x, j) => (j === i ? { ...x, number: e.target.value } : x)))} />
+              <DockField id={id(`seals.${i}.location`)} label={`Seal ${i + 1} location`} value={s.location} error={err(`seals.${i}.location`)} onChange={(e) => set('seals', f.seals.map((x, j) => (j === i ? { ...x, location: e.target.value } : x)))} />
+            </div>
+          ))}
+          <button type="button" className="btn-secondary text-lg" onClick={() => set('seals', [...f.seals, { number: '', location: '' }])}>Add a seal</button>
+        </fieldset>
+
+        {target.card && target.card.openReinspections.length > 0 && (
+          <div>
+            <label htmlFor={id('reinspectionId')} className="field-label text-lg">Re-inspection task this completes</label>
+            <select id={id('reinspectionId')} className={select} value={f.reinspectionId} onChange={(e) => set('reinspectionId', e.target.value)}>
+              <option value="">None</option>
+              {target.card.openReinspections.map((t) => <option key={t.id} value={t.id}>{t.reason}</option>)}
+            </select>
+          </div>
+        )}
+
+        <div>
+          <label htmlFor={id('photo')} className="field-label text-lg">Photos (optional, up to 4, 8 MB each)</label>
+          <input id={id('photo')} type="file" accept="image/*" capture="environment" multiple className="block min-h-touch w-full text-lg" onChange={(e) => setPhotos(Array.from(e.target.files ?? []).slice(0, 4))} />
+          {err('photo') && <p className="field-error text-lg">{err('photo')}</p>}
+        </div>
+        <div>
+          <label htmlFor={id('notes')} className="field-label text-lg">Notes</label>
+          <textarea id={id('notes')} className="field-input text-xl" rows={3} value={f.notes} onChange={(e) => set('notes', e.target.value)} />
+          {err('notes') && <p className="field-error text-lg">{err('notes')}</p>}
+        </div>
+        {Object.keys(errors).length + Object.keys(serverErrors).length > 0 && (
+          <p role="alert" className="field-error text-lg" data-testid="form-errors">Check the fields marked above: nothing was recorded yet.</p>
+        )}
+        <button type="submit" className="btn-primary min-h-[3.5rem] w-full text-xl" data-testid="record-inspection">{isBusy ? 'Recording…' : 'Record inspection'}</button>
+      </fieldset>
+    </form>
+  );
+}

@@ -1,0 +1,59 @@
+'use client';
+
+import type { RuleResult } from '@/lib/inspections/decide-inspection';
+import { SafetyNote } from '@/components/safety-note';
+import { VerdictBadge } from '@/components/verdict-badge';
+
+export type ShownVerdict = { label: string; rules: RuleResult[]; overall: string; provisional: boolean; inspectionId: string | null };
+
+const fmt = (v: number | null, unit: string | null) => (v == null ? '—' : `${unit === 'mm' ? v.toFixed(3).replace(/0$/, '') : v.toFixed(unit === 'kg' ? 1 : 0)} ${unit ?? ''}`);
+
+/** Every rule's verdict and the overall result, at once, with the caution that officials decide. */
+export function VerdictPanel({ verdict, onNext }: { verdict: ShownVerdict; onNext: () => void }) {
+  const { rules, overall } = verdict;
+  const inconclusive = rules.some((r) => r.verdict === 'inconclusive' && r.measured);
+  return (
+    <section aria-labelledby="verdict-heading" className="card space-y-4 text-lg" data-testid="verdict" data-overall={overall} data-provisional={verdict.provisional}>
+      <h2 id="verdict-heading" className="text-2xl">Result for {verdict.label}</h2>
+      <div className="flex flex-wrap items-center gap-3" data-testid="overall-verdict">
+        <span className="font-bold">Overall:</span> <VerdictBadge verdict={overall} large />
+      </div>
+      {rules.length === 0 ? (
+        <p className="rounded-lg bg-doubt-100 p-3 font-bold text-doubt-800" data-testid="provisional-note">
+          Kept on this phone. This phone has no copy of the class rules, so the server decides when the record is sent.
+        </p>
+      ) : verdict.provisional ? (
+        <p className="rounded-lg bg-doubt-100 p-3 font-bold text-doubt-800" data-testid="provisional-note">
+          Worked out on this phone while offline, from its copy of the class rules. The server decides when the record is sent.
+        </p>
+      ) : (
+        <p className="text-ink-soft">Decided by the server against the class rules in force when you measured; stored and never changed.</p>
+      )}
+      {inconclusive && (
+        <p className="rounded-lg border-2 border-doubt-600 bg-doubt-100 p-3 text-xl font-bold text-doubt-800" data-testid="measure-again">
+          ? Measure again with a better instrument: the reading is too close to the limit for this one to decide.
+        </p>
+      )}
+      <ul className="divide-y divide-paper-line" data-testid="rule-verdicts">
+        {rules.map((r) => (
+          <li key={r.rule} className="space-y-1 py-3" data-rule={r.rule} data-verdict={r.verdict}>
+            <div className="flex flex-wrap items-center justify-between gap-2">
+              <span className="font-bold">{r.label}</span>
+              <VerdictBadge verdict={r.verdict} />
+            </div>
+            {r.unit && (
+              <p className="figure text-lg">
+                {r.measured ? `measured ${fmt(r.decisiveValue, r.unit)} · ` : ''}limit {fmt(r.limit, r.unit)}
+                {r.acceptanceLimit != null && r.acceptanceLimit !== r.limit ? ` · accepted to ${fmt(r.acceptanceLimit, r.unit)}` : ''}
+                {r.expandedUncertainty != null ? ` · U ${fmt(r.expandedUncertainty, r.unit)}` : ''}
+              </p>
+            )}
+            <p className="text-ink-soft">{r.explanation}</p>
+          </li>
+        ))}
+      </ul>
+      <SafetyNote className="text-lg" />
+      <button type="button" className="btn-primary min-h-[3.5rem] w-full text-xl" onClick={onNext}>Next boat</button>
+    </section>
+  );
+}

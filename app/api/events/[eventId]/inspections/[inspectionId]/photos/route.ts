@@ -1,0 +1,20 @@
+// POST /api/events/:eventId/inspections/:inspectionId/photos: attach photos (multipart "photo", up to 8 MB each; the dock sends one per request).
+import { withPermission } from '@/lib/http/handler';
+import { parseId } from '@/lib/http/ids';
+import { readPhotoUpload } from '@/lib/inspections/read-photo-upload';
+import { addInspectionPhotos } from '@/lib/inspections/add-inspection-photos';
+import { refuseChange } from '@/lib/inspections/refuse-change';
+
+type P = { eventId: string; inspectionId: string };
+
+// Permission first, so nobody else's upload is read at all; then size before any byte is read.
+export const POST = withPermission<P>('inspection.record', async (req, { actor, params }) => {
+  const eventId = parseId(params.eventId, 'event');
+  const inspectionId = parseId(params.inspectionId, 'inspection');
+  const photos = await addInspectionPhotos(actor, eventId, inspectionId, await readPhotoUpload(req));
+  return Response.json({ data: photos }, { status: 201 });
+});
+
+export const PUT = refuseChange('POST');
+export const PATCH = refuseChange('POST');
+export const DELETE = refuseChange('POST');

@@ -1,0 +1,23 @@
+// POST|GET /api/events/:eventId/inspections: record an inspection (201, or 200 for a repeated key); the board (?class=&result=).
+import { actorHandler, readJson } from '@/lib/http/handler';
+import { parseId } from '@/lib/http/ids';
+import { recordInspection } from '@/lib/inspections/record-inspection';
+import { listInspectionBoard } from '@/lib/inspections/list-inspection-board';
+import { refuseChange } from '@/lib/inspections/refuse-change';
+
+type P = { eventId: string };
+
+export const POST = actorHandler<P>(async (req, { actor, params }) => {
+  const { inspection, created } = await recordInspection(actor, parseId(params.eventId, 'event'), await readJson(req));
+  return Response.json({ data: inspection, created }, { status: created ? 201 : 200 });
+});
+
+export const GET = actorHandler<P>(async (req, { actor, params }) => {
+  const q = req.nextUrl.searchParams;
+  const board = await listInspectionBoard(actor, parseId(params.eventId, 'event'), { classFilter: q.get('class'), result: q.get('result') });
+  return Response.json({ data: board }, { headers: { 'Cache-Control': 'private, no-cache' } });
+});
+
+export const PUT = refuseChange('GET, POST');
+export const PATCH = refuseChange('GET, POST');
+export const DELETE = refuseChange('GET, POST');

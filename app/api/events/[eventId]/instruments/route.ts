@@ -1,0 +1,15 @@
+// GET|POST /api/events/:eventId/instruments: the meeting's instruments with the U each brings; the organiser adds one.
+import { actorHandler, readJson } from '@/lib/http/handler';
+import { parseId } from '@/lib/http/ids';
+import { listInstruments } from '@/lib/inspections/list-instruments';
+import { addInstrument } from '@/lib/inspections/add-instrument';
+
+type P = { eventId: string };
+
+export const GET = actorHandler<P>(async (_req, { actor, params }) => {
+  return Response.json({ data: await listInstruments(actor, parseId(params.eventId, 'event')) });
+});
+
+export const POST = actorHandler<P>(async (req, { actor, params }) => {
+  return Response.json({ data: await addInstrument(actor, parseId(params.eventId, 'event'), await readJson(req)) }, { status: 201 });
+});

@@ -1,0 +1,16 @@
+// POST|GET /api/events/:eventId/reinspections: ask for entries to be inspected again; list the tasks (?open=1 for open only).
+import { actorHandler, readJson } from '@/lib/http/handler';
+import { parseId } from '@/lib/http/ids';
+import { requestReinspection } from '@/lib/inspections/request-reinspection';
+import { listReinspections } from '@/lib/inspections/list-reinspections';
+
+type P = { eventId: string };
+
+export const POST = actorHandler<P>(async (req, { actor, params }) => {
+  return Response.json({ data: await requestReinspection(actor, parseId(params.eventId, 'event'), await readJson(req)) }, { status: 201 });
+});
+
+export const GET = actorHandler<P>(async (req, { actor, params }) => {
+  const openOnly = req.nextUrl.searchParams.get('open') === '1';
+  return Response.json({ data: await listReinspections(actor, parseId(params.eventId, 'event'), { openOnly }) });
+});

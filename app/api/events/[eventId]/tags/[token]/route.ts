@@ -1,0 +1,8 @@
+// GET /api/events/:eventId/tags/:token: the boat card for a scanned tag (404 unknown, 410 replaced, 404 not entered here).
+import { actorHandler } from '@/lib/http/handler';
+import { parseId } from '@/lib/http/ids';
+import { findBoatByTag } from '@/lib/inspections/find-boat-by-tag';
+
+export const GET = actorHandler<{ eventId: string; token: string }>(async (_req, { actor, params }) => {
+  return Response.json({ data: await findBoatByTag(actor, parseId(params.eventId, 'event'), decodeURIComponent(params.token)) });
+});

@@ -1,0 +1,30 @@
+import 'server-only';
+import { getDb } from '@/lib/db';
+import { assertCan, type Actor } from '@/lib/auth/actor';
+import type { Instrument } from '@/models';
+import { instrumentUncertainty } from './decide-inspection';
+
+export type InstrumentView = {
+  id: string;
+  name: string;
+  quantity: 'length' | 'mass';
+  errorLimit: number | null;
+  resolution: number | null;
+  expandedUncertainty: number | null;
+  /** U the verdicts will use (k = 2), from the certificate or the budget of a and δ. */
+  appliedExpandedUncertainty: number;
+  basis: string;
+};
+
+/** The meeting's instruments in service, with the U each brings to a decision. */
+export async function listInstruments(actor: Actor | null, eventId: string): Promise<InstrumentView[]> {
+  assertCan(actor, 'inspection.board', { eventId });
+  const rows = await getDb().models.Instrument.findAll({ where: { eventId, retiredAt: null }, order: [['quantity', 'ASC'], ['name', 'ASC']] });
+  return rows.map(toInstrumentView);
+}
+
+export function toInstrumentView(i: Instrument): InstrumentView {
+  const figures = { id: i.id, name: i.name, quantity: i.quantity, errorLimit: i.errorLimit ?? null, resolution: i.resolution ?? null, expandedUncertainty: i.expandedUncertainty ?? null };
+  const u = instrumentUncertainty(figures, i.quantity === 'length' ? 'mm' : 'kg');
+  return { ...figures, appliedExpandedUncertainty: u.expandedUncertainty, basis: u.basis };
+}

@@ -1,0 +1,180 @@
+import 'server-only';
+import { z } from 'zod';
+import { QueryTypes } from 'sequelize';
+import { after } from 'next/server';
+import { getDb } from '@/lib/db';
+import { assertCan, type Actor } from '@/lib/auth/actor';
+import { AppError } from '@/lib/http/errors';
+import { findRulesInForce } from '@/lib/classes/rule-versions';
+import { sendMail } from '@/lib/mail/send';
+import { RecordInspectionInput } from '@/lib/validations/inspections';
+import { decideInspection, VERDICT_WORDS, type InstrumentFigures, type InspectionDecision } from './decide-inspection';
+import { currentInspectionCte, loadInspectionViews, type InspectionView } from './inspection-view';
+
+type EntryRow = {
+  id: string; entrantId: string; raceNumber: number; status: string; classId: string; boatId: string; ownerId: string;
+  boatName: string; boatDeclaredKw: number; boatPowerEvidence: string; className: string; eventName: string;
+};
+
+const fieldError = (field: string, message: string, status = 400) => new AppError('invalid_input', status, `${field}: ${message}`, [{ field, message }]);
+
+async function findInstrument(eventId: string, id: string | null, quantity: 'length' | 'mass', field: string): Promise<InstrumentFigures | null> {
+  if (!id) return null;
+  const i = await getDb().models.Instrument.findOne({ where: { id, eventId, retiredAt: null } });
+  if (!i) throw fieldError(field, 'This instrument is not on this meeting’s list.');
+  if (i.quantity !== quantity) throw fieldError(field, quantity === 'length' ? `${i.name} is a scale: choose a length instrument.` : `${i.name} measures length: choose a scale.`);
+  return { id: i.id, name: i.name, quantity: i.quantity, errorLimit: i.errorLimit ?? null, resolution: i.resolution ?? null, expandedUncertainty: i.expandedUncertainty ?? null };
+}
+
+/** The stored record for a key; a key used at another meeting is a conflict, never a leak. */
+async function findByKey(eventId: string, key: string): Promise<InspectionView | null> {
+  const [found] = await loadInspectionViews('i.idempotency_key = :key', { key });
+  if (found && found.eventId !== eventId) throw new AppError('key_in_use', 409, 'This record key was already used for another meeting’s record; make a new record.');
+  return found ?? null;
+}
+
+async function mailEntrant(entrantId: string, boatName: string, raceNumber: number, eventName: string, decision: InspectionDecision) {
+  const user = await getDb().models.User.findByPk(entrantId, { attributes: ['email', 'name'] });
+  if (!user) return;
+  const lines = decision.rules.map((r) => `- ${r.label}: ${VERDICT_WORDS[r.verdict].toLowerCase()}. ${r.explanation}`);
+  try {
+    await sendMail({
+      to: user.email,
+      subject: `${boatName} (no. ${raceNumber}): inspection result ${VERDICT_WORDS[decision.overall].toLowerCase()}`,
+      text: [
+        `${boatName} was inspected at ${eventName}. Overall: ${VERDICT_WORDS[decision.overall].toLowerCase()}.`,
+        '',
+        ...lines,
+        '',
+        'Safety first: Boreline supports the checks; it never replaces them. The governing body’s rules, local regulations and the judgement of licensed officials decide every verdict and every safety matter. Ask the chief scrutineer about this result.',
+      ].join('\n'),
+    });
+  } catch (err) {
+    // The record is stored whatever the mail relay does; the entrant also sees the result on their entries page.
+    console.error('[boreline] inspection result mail failed', err);
+  }
+}
+
+/**
+ * Records one inspection of an entry at the event, decided against the class rule version in force
+ * when it was captured. Idempotent by the device-made key: the same key again returns the stored
+ * record (created: false). Records are append-only; a correction is a new record that supersedes.
+ */
+export async function recordInspection(actor: Actor | null, eventId: string, raw: unknown): Promise<{ inspection: InspectionView; created: boolean }> {
+  assertCan(actor, 'inspection.record', { eventId });
+  // A retry (the answer was lost, or the phone sent twice) gets the stored record back at once.
+  const key = z.uuid().safeParse((raw as { idempotencyKey?: unknown } | null)?.idempotencyKey);
+  if (key.success) {
+    const existing = await findByKey(eventId, key.data.toLowerCase());
+    if (existing) return { inspection: existing, created: false };
+  }
+  const input = RecordInspectionInput.parse(raw);
+  const idempotencyKey = input.idempotencyKey.toLowerCase();
+  const { models, sequelize } = getDb();
+  // The entry with its boat, class and meeting in one round trip (this runs for every record sent).
+  const [entry] = await sequelize.query<EntryRow>(
+    `select e.id, e.entrant_id as "entrantId", e.race_number as "raceNumber", e.status, e.class_id as "classId", e.boat_id as "boatId",
+            b.owner_id as "ownerId", b.name as "boatName", b.declared_power_kw as "boatDeclaredKw", b.power_evidence as "boatPowerEvidence",
+            c.name as "className", ev.name as "eventName"
+       from entries e join boats b on b.id = e.boat_id join race_classes c on c.id = e.class_id join events ev on ev.id = e.event_id
+      where e.id = :entryId and e.event_id = :eventId`,
+    { replacements: { entryId: input.entryId, eventId }, type: QueryTypes.SELECT },
+  );
+  if (!entry) throw fieldError('entryId', 'No such entry at this meeting.');
+  // Separation of duties: nobody inspects a boat they entered or own, whatever their staff roles.
+  if (entry.entrantId === actor.id || entry.ownerId === actor.id) {
+    throw new AppError('own_boat', 403, 'You cannot inspect a boat you entered or own: ask another scrutineer.');
+  }
+  if (entry.status === 'withdrawn' || entry.status === 'cancelled') {
+    throw new AppError('entry_not_live', 409, `Race number ${entry.raceNumber} is ${entry.status}: it is not inspected.`);
+  }
+
+  let measuredAt = new Date(input.capturedAt);
+  if (input.supersedesId) {
+    const original = await models.Inspection.findOne({ where: { id: input.supersedesId, entryId: entry.id } });
+    if (!original) throw fieldError('supersedesId', 'Only an earlier record of the same entry can be corrected.');
+    // A correction restates that inspection, so it is decided under the rules in force then.
+    measuredAt = original.capturedAt;
+  }
+  if (input.reinspectionId) {
+    const task = await models.Reinspection.findOne({ where: { id: input.reinspectionId, eventId, entryId: entry.id } });
+    if (!task) throw fieldError('reinspectionId', 'This re-inspection task is not for this entry.');
+  }
+  const ruleVersion = await findRulesInForce(entry.classId, measuredAt);
+  if (!ruleVersion) {
+    throw new AppError('no_rules_in_force', 409, `No published rules of ${entry.className} were in force at ${measuredAt.toISOString()}: the organiser must publish the class rules before boats are inspected.`);
+  }
+  const [nozzleInstrument, weightInstrument] = await Promise.all([
+    findInstrument(eventId, input.nozzle.instrumentId, 'length', 'nozzle.instrumentId'),
+    findInstrument(eventId, input.weight?.instrumentId ?? null, 'mass', 'weight.instrumentId'),
+  ]);
+  // Throws EngineInputError naming the field (too few readings for this class): 400.
+  const decision = decideInspection({ input, rules: ruleVersion.rules, nozzleInstrument, weightInstrument });
+
+  const measurements = {
+    nozzle: {
+      readings: input.nozzle.readings, instrumentId: input.nozzle.instrumentId, instrumentName: nozzleInstrument?.name ?? null,
+      typedExpandedUncertaintyMm: input.nozzle.expandedUncertaintyMm, temperatureC: input.nozzle.temperatureC, material: input.nozzle.material,
+      correctedReadingsMm: decision.nozzle.correctedReadingsMm, temperatureCorrected: decision.nozzle.temperatureCorrected,
+      appliedExpandedUncertaintyMm: decision.nozzle.expandedUncertaintyMm, uncertaintyBasis: decision.nozzle.uncertaintyBasis,
+    },
+    weight: input.weight ? { ...input.weight, instrumentName: weightInstrument?.name ?? null, ...decision.weight } : null,
+    power: { ...input.power, boatDeclaredKw: entry.boatDeclaredKw, boatPowerEvidence: entry.boatPowerEvidence },
+    seals: input.seals,
+    safety: input.safety,
+  };
+  const results = { rules: decision.rules, decisionRule: ruleVersion.rules.decisionRule, ruleVersion: ruleVersion.version };
+
+  const inserted = await sequelize.transaction(async (transaction) => {
+    // One writer per entry at a time, so the entry's result always reflects every committed record.
+    await models.Entry.findByPk(entry.id, { lock: transaction.LOCK.UPDATE, transaction, attributes: ['id'] });
+    const rows = await sequelize.query<{ id: string; receivedAt: Date }>(
+      `insert into inspections (event_id, entry_id, boat_id, class_id, rule_version_id, kind, recorded_by_id, device, idempotency_key,
+                                captured_at, supersedes_id, correction_reason, reinspection_id, measurements, results, overall_result, notes)
+       values (:eventId, :entryId, :boatId, :classId, :ruleVersionId, :kind, :recordedById, :device, :idempotencyKey,
+               :capturedAt, :supersedesId, :correctionReason, :reinspectionId, :measurements::jsonb, :results::jsonb, :overall, :notes)
+       on conflict (idempotency_key) do nothing
+       returning id, received_at as "receivedAt"`,
+      {
+        replacements: {
+          eventId, entryId: entry.id, boatId: entry.boatId, classId: entry.classId, ruleVersionId: ruleVersion.id, kind: input.kind,
+          recordedById: actor.id, device: input.device, idempotencyKey, capturedAt: new Date(input.capturedAt),
+          supersedesId: input.supersedesId, correctionReason: input.correctionReason, reinspectionId: input.reinspectionId,
+          measurements: JSON.stringify(measurements), results: JSON.stringify(results), overall: decision.overall, notes: input.notes,
+        },
+        type: QueryTypes.SELECT,
+        transaction,
+      },
+    );
+    if (rows.length === 0) return null; // the same key committed a moment ago by a parallel request
+    const { id } = rows[0];
+    // inspections are never updated; the entry carries the current record's result for quick reading.
+    await sequelize.query(
+      `with ${currentInspectionCte('entry')}
+       update entries set inspection_result = (select i.overall_result from inspections i join current_inspection c on c.id = i.id), updated_at = now()
+        where id = :entryId`,
+      { replacements: { entryId: entry.id }, transaction },
+    );
+    if (input.reinspectionId) {
+      await models.Reinspection.update({ inspectionId: id, doneAt: new Date() }, { where: { id: input.reinspectionId, doneAt: null }, transaction });
+    }
+    return rows[0];
+  });
+
+  if (!inserted) {
+    const existing = await findByKey(eventId, idempotencyKey);
+    if (!existing) throw new AppError('conflict', 409, 'The record could not be stored; send it again.');
+    return { inspection: existing, created: false };
+  }
+  // The entrant's e-mail goes out after the answer: the scrutineer at the dock never waits for SMTP.
+  after(() => mailEntrant(entry.entrantId, entry.boatName, entry.raceNumber, entry.eventName, decision));
+  // The new record as loadInspectionViews would read it, from what was just written (one query fewer per record).
+  const view: InspectionView = {
+    id: inserted.id, eventId, entryId: entry.id, boatId: entry.boatId, classId: entry.classId, ruleVersionId: ruleVersion.id,
+    ruleVersion: ruleVersion.version, kind: input.kind, recordedBy: { id: actor.id, name: actor.name ?? actor.email }, device: input.device,
+    idempotencyKey, capturedAt: new Date(input.capturedAt).toISOString(), receivedAt: new Date(inserted.receivedAt).toISOString(),
+    supersedesId: input.supersedesId, supersededById: null, correctionReason: input.correctionReason, reinspectionId: input.reinspectionId,
+    measurements, rules: decision.rules, overallResult: decision.overall, notes: input.notes, photoCount: 0,
+  };
+  return { inspection: view, created: true };
+}
