@@ -17,6 +17,7 @@ bash scripts/pg.sh boreline
 log "migrating and seeding the demo"
 npx sequelize-cli db:migrate >/dev/null
 npx sequelize-cli db:seed:all >/dev/null
+node_modules/.bin/tsx scripts/seed-demo-inspections.ts
 
 start_fakes .data/run/fakes.pid .data/run/fakes.log
 trap 'stop_pidfile .data/run/fakes.pid' EXIT

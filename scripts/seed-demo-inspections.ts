@@ -1,0 +1,65 @@
+// Demo scenario (invented), part three: dock inspections of the paid entries in the Kelda Reach
+// SS and GP classes, decided by the product's own decision code against the rules in force, so the
+// inspection board and the parity report have something to show. Run by the start command after the
+// sequelize seeders; fixed idempotency keys make running it twice harmless.
+import { createHash } from 'node:crypto';
+import pg from 'pg';
+import { decideInspection } from '../lib/inspections/decide-inspection';
+import type { ClassRules } from '../lib/validations/class-rules';
+
+const MEETING = '0b0e0000-0000-4000-8000-000000000101';
+const CALIPER = '0b0e0000-0000-4000-8501-000000000001';
+const SCALE = '0b0e0000-0000-4000-8501-000000000004';
+
+// A UUID-shaped key derived from the entry id, so re-running finds the same record.
+const keyFor = (entryId: string) => {
+  const h = createHash('sha256').update(`demo-inspection:${entryId}`).digest('hex');
+  return `${h.slice(0, 8)}-${h.slice(8, 12)}-4${h.slice(13, 16)}-8${h.slice(17, 20)}-${h.slice(20, 32)}`;
+};
+
+async function main() {
+  const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+  await db.connect();
+  const [scrutineer] = (await db.query(`select id from users where email = 'scrutineer@tarnwater.example'`)).rows;
+  const instruments = (await db.query('select id, name, quantity, error_limit, resolution, expanded_uncertainty from instruments where id = any($1)', [[CALIPER, SCALE]])).rows;
+  const figures = (id: string) => {
+    const i = instruments.find((x) => x.id === id)!;
+    return { id: i.id, name: i.name, quantity: i.quantity, errorLimit: i.error_limit, resolution: i.resolution, expandedUncertainty: i.expanded_uncertainty };
+  };
+  const entries = (await db.query(
+    `select e.id, e.boat_id, e.class_id, b.declared_nozzle_mm, b.declared_power_kw, b.declared_weight_kg, v.id as rule_version_id, v.rules
+       from entries e join boats b on b.id = e.boat_id join race_classes c on c.id = e.class_id
+       join lateral (select * from class_rule_versions v where v.class_id = c.id and v.status = 'published' and v.effective_from <= now()
+                     order by v.effective_from desc limit 1) v on true
+      where e.event_id = $1 and e.status = 'entered' and c.code in ('SS', 'GP') order by e.race_number`,
+    [MEETING],
+  )).rows;
+  let added = 0;
+  for (const [n, e] of entries.entries()) {
+    const rules = e.rules as ClassRules;
+    const d = Number(e.declared_nozzle_mm);
+    const offsets = [-0.03, 0.02, 0.01, -0.01].slice(0, Math.max(3, rules.nozzle.minReadings));
+    const input = {
+      nozzle: { readings: offsets.map((o, i) => ({ diameterMm: +(d + o).toFixed(2), angleDeg: i * 60 })), instrumentId: CALIPER, expandedUncertaintyMm: null, temperatureC: null, material: null },
+      weight: { readingsKg: [Number(e.declared_weight_kg), Number(e.declared_weight_kg) + 1], instrumentId: SCALE },
+      power: { declaredKw: Number(e.declared_power_kw), evidenceSeen: n % 3 !== 0, note: '' },
+      safety: Object.fromEntries(rules.safetyItems.map((s) => [s, true])),
+    };
+    const decision = decideInspection({ input: input as never, rules, nozzleInstrument: figures(CALIPER) as never, weightInstrument: figures(SCALE) as never });
+    const measurements = { nozzle: { ...input.nozzle, instrumentName: figures(CALIPER).name, correctedReadingsMm: decision.nozzle.correctedReadingsMm, appliedExpandedUncertaintyMm: decision.nozzle.expandedUncertaintyMm, uncertaintyBasis: decision.nozzle.uncertaintyBasis }, weight: { ...input.weight, ...decision.weight }, power: input.power, seals: [{ number: `KR-${1000 + n}`, location: 'pump to transom' }], safety: input.safety };
+    const results = { rules: decision.rules, decisionRule: rules.decisionRule };
+    const res = await db.query(
+      `insert into inspections (event_id, entry_id, boat_id, class_id, rule_version_id, kind, recorded_by_id, device, idempotency_key, captured_at, measurements, results, overall_result, notes)
+       values ($1, $2, $3, $4, $5, 'pre_race', $6, 'demo seed', $7, now() - interval '1 hour', $8, $9, $10, 'Demo record') on conflict (idempotency_key) do nothing`,
+      [MEETING, e.id, e.boat_id, e.class_id, e.rule_version_id, scrutineer.id, keyFor(e.id), JSON.stringify(measurements), JSON.stringify(results), decision.overall],
+    );
+    if (res.rowCount) {
+      added++;
+      await db.query('update entries set inspection_result = $2 where id = $1', [e.id, decision.overall]);
+    }
+  }
+  console.log(`[seed] demo inspections: ${added} added, ${entries.length - added} already there`);
+  await db.end();
+}
+
+main().catch((e) => { console.error(e); process.exit(1); });
