@@ -3,6 +3,7 @@ import { getDb } from '@/lib/db';
 import { AppError } from '@/lib/http/errors';
 import { findRulesInForce } from '@/lib/classes/rule-versions';
 import { computeAreaEquivalentDiameterFromReadingsMm, correctLengthToReferenceTemperatureMm, type Material } from '@/lib/engine/measurement';
+import { currentInspectionCte } from '@/lib/inspections/inspection-view';
 import { resolveEventDensity } from './event-density';
 import type { ReportBoatInput, ReportExcluded, ReportInputs } from './parity-figures';
 
@@ -25,7 +26,7 @@ function recordedNozzleU(results: unknown): number | null {
 }
 
 /**
- * Inputs of a class's parity report: every entered boat with its latest inspection. A boat is used
+ * Inputs of a class's parity report: every entered boat with its current inspection record. A boat is used
  * only when its latest record conforms; the others are listed with the reason. Four queries,
  * whatever the number of boats.
  */
@@ -39,14 +40,16 @@ export async function gatherReportInputs(eventId: string, classId: string, at = 
   const rules = await findRulesInForce(classId, at);
   if (!rules) throw new AppError('conflict', 409, 'This class has no published rules in force, so there is nothing to report against.');
   const [rows] = await sequelize.query(
-    `select e.id as "entryId", e.race_number as "raceNumber", b.name as "boatName", b.declared_power_kw as "declaredPowerKw",
+    // The current record of each entry: corrections replace what they supersede, and a record that
+    // waited offline does not overtake a newer capture (the same rule the dock and the board use).
+    `with ${currentInspectionCte('event')}
+     select e.id as "entryId", e.race_number as "raceNumber", b.name as "boatName", b.declared_power_kw as "declaredPowerKw",
             b.declared_nozzle_mm as "declaredNozzleMm", i.id as "inspectionId", i.received_at as "receivedAt",
             i.overall_result as "overallResult", i.measurements, i.results
        from entries e
        join boats b on b.id = e.boat_id
-       left join lateral (
-         select * from inspections x where x.entry_id = e.id order by x.received_at desc, x.id desc limit 1
-       ) i on true
+       left join current_inspection ci on ci.entry_id = e.id
+       left join inspections i on i.id = ci.id
       where e.event_id = :eventId and e.class_id = :classId and e.status = 'entered'
       order by e.race_number`,
     { replacements: { eventId, classId } },
