@@ -9,42 +9,10 @@
 // Prints figures and their ratio to the baseline; asserts nothing (exit 0 unless setup fails).
 import { randomUUID } from 'node:crypto';
 
-const BASE = process.env.BASE_URL ?? 'http://localhost:3000';
+import { BASE, Client } from './bench-support';
 const CLIENTS = Number(process.env.BENCH_CLIENTS ?? 20);
 const REQUESTS = Number(process.env.BENCH_REQUESTS ?? 400);
-const PASSWORD = 'tarnwater-demo';
 
-class Client {
-  private cookies = new Map<string, string>();
-  async fetch(path: string, init: RequestInit = {}) {
-    const headers = new Headers(init.headers);
-    if (this.cookies.size) headers.set('cookie', [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; '));
-    const res = await fetch(`${BASE}${path}`, { ...init, headers, redirect: 'manual' });
-    for (const line of res.headers.getSetCookie()) {
-      const [pair] = line.split(';');
-      const eq = pair.indexOf('=');
-      this.cookies.set(pair.slice(0, eq).trim(), pair.slice(eq + 1).trim());
-    }
-    return res;
-  }
-  async json(path: string, body: unknown, method = 'POST') {
-    const res = await this.fetch(path, { method, headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) });
-    const json = await res.json().catch(() => null);
-    if (!res.ok) throw new Error(`${method} ${path}: ${res.status} ${JSON.stringify(json)}`);
-    return json.data;
-  }
-  async signIn(email: string) {
-    const { csrfToken } = await (await this.fetch('/api/auth/csrf')).json();
-    await this.fetch('/api/auth/callback/password', {
-      method: 'POST',
-      headers: { 'content-type': 'application/x-www-form-urlencoded' },
-      body: new URLSearchParams({ csrfToken, email, password: PASSWORD, json: 'true' }),
-    });
-    const session = await (await this.fetch('/api/auth/session')).json();
-    if (!session?.user) throw new Error(`could not sign in as ${email}`);
-    return this;
-  }
-}
 
 async function setUp() {
   const organiser = await new Client().signIn('organiser@tarnwater.example');
