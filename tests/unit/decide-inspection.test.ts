@@ -166,7 +166,7 @@ test('weight: the mean of the weighings decides, with their spread in U (JCGM 10
   assert.match(none.explanation, /Weigh the boat/);
 });
 
-test('power band with the class power uncertainty; without evidence seen conformity is not shown', () => {
+test('power band with the class power uncertainty (ISO 14253-1:2017); without evidence seen conformity is not shown (Boreline’s own rule, no source)', () => {
   const r = rules({ power: { minKw: 180, maxKw: 260, defaultUncertaintyKw: 5 }, decisionRule: 'iso14253' });
   const at = (kw: number, evidenceSeen = true) => rule(decideInspection({ input: input([101.5, 101.5, 101.5], { power: { declaredKw: kw, evidenceSeen, note: '' } }), rules: r }), 'power_band');
   assert.equal(at(220).verdict, 'conforms');
