@@ -22,6 +22,7 @@ const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 export async function runFaultLoad(opts: { clients: number; perClient: number; faultAfter: number; downS: number; log?: boolean }) {
   const { eventId, entryIds } = await setUpScratchMeeting(Math.min(opts.clients, 25));
   const clients = await Promise.all(Array.from({ length: opts.clients }, () => new Client().signIn('scrutineer@tarnwater.example')));
+  if (opts.log) console.log(`  ${clients.length} clients signed in`);
   const acked = new Set<string>();
   const latencies: number[] = [];
   const stats = { requests: 0, s503: 0, s5xx: 0, networkErrors: 0 };
