@@ -27,13 +27,14 @@ export class Client {
   }
   async signIn(email: string) {
     const { csrfToken } = await (await this.fetch('/api/auth/csrf')).json();
-    await this.fetch('/api/auth/callback/password', {
+    const res = await this.fetch('/api/auth/callback/password', {
       method: 'POST',
       headers: { 'content-type': 'application/x-www-form-urlencoded' },
       body: new URLSearchParams({ csrfToken, email, password: PASSWORD, json: 'true' }),
     });
+    const answer = await res.text();
     const session = await (await this.fetch('/api/auth/session')).json();
-    if (!session?.user) throw new Error(`could not sign in as ${email}`);
+    if (!session?.user) throw new Error(`could not sign in as ${email}: ${res.status} ${answer.slice(0, 200)}`);
     return this;
   }
 }

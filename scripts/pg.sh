@@ -48,7 +48,7 @@ fi
 if ! as_pg "$PGBIN/pg_ctl" -D "$DATA" status >/dev/null 2>&1; then
   rm -f "$DATA/postmaster.pid"
   as_pg "$PGBIN/pg_ctl" -D "$DATA" -w -t 30 -l "$DATA/server.log" \
-    -o "-c listen_addresses=127.0.0.1 -p $PGPORT -k $DATA -c fsync=off -c max_connections=200" start >/dev/null
+    -o "-c listen_addresses=127.0.0.1 -p $PGPORT -k $DATA -c fsync=off -c max_connections=200" start >/dev/null 9>&-
 fi
 
 psql_pg() { psql -h 127.0.0.1 -p "$PGPORT" -U postgres -v ON_ERROR_STOP=1 -qtA "$@"; }

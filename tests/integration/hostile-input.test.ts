@@ -51,7 +51,8 @@ before(async () => {
     `select e.id as entry_id, e.boat_id, e.class_id from entries e join users u on u.id = e.entrant_id where u.email = $1 and e.event_id = $2 limit 1`,
     [DEMO.entrant, DEMO.meetingId],
   );
-  ids = { eventId: DEMO.meetingId, classId: own.class_id, entryId: own.entry_id, spareEntryId: own.entry_id, boatId: own.boat_id, tagToken: 'x', raceNumber: 1, documentId: own.boat_id, missingId: '00000000-0000-4000-8000-000000000000' };
+  ids = { eventId: DEMO.meetingId, classId: own.class_id, entryId: own.entry_id, spareEntryId: own.entry_id, boatId: own.boat_id, tagToken: 'x', raceNumber: 1, documentId: own.boat_id, missingId: '00000000-0000-4000-8000-000000000000',
+    protestId: '00000000-0000-4000-8000-000000000000', evidenceId: '00000000-0000-4000-8000-000000000000' };
 });
 
 // JSON-bodied writes; multipart uploads and body-less actions (withdraw, checkout, reissue, publish) are covered elsewhere.

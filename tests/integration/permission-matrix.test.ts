@@ -50,7 +50,8 @@ before(async () => {
     assert.equal((await s.signInWithPassword(email, DEMO_PASSWORD)).status, 200, email);
     sessions.set(key, s);
   }
-  sessions.set('entrantOther', (await signUpAndIn('other')).s);
+  const other = await signUpAndIn('other');
+  sessions.set('entrantOther', other.s);
   // Staff of a different meeting of a different club.
   const [{ id: clubId }] = await query<{ id: string }>(`insert into organisations (name, slug) values ('Matrix Club', $1) returning id`, [`matrix-${randomUUID().slice(0, 8)}`]);
   const [{ id: otherEvent }] = await query<{ id: string }>(
@@ -87,19 +88,49 @@ before(async () => {
      values ($1, $2, $3, $4, (select coalesce(max(race_number), 0) + 1 from entries where event_id = $1), 'awaiting_payment', 15000, 'NZD') returning id`,
     [DEMO.meetingId, own.class_id, spareBoat, entrantId],
   );
+  // The other entrant's boat in the scratch class, and a lodged (fee paid) protest by the demo
+  // entrant against it, with a file of evidence uploaded by the protester through the real route.
+  const [{ id: otherBoat }] = await query<{ id: string }>(`insert into boats (owner_id, name, declared_nozzle_mm, declared_power_kw) values ($1, 'Matrix Other', 100, 200) returning id`, [other.id]);
+  const [{ id: otherEntryId }] = await query<{ id: string }>(
+    `insert into entries (event_id, class_id, boat_id, entrant_id, race_number, status, fee_minor, currency)
+     values ($1, $2, $3, $4, (select coalesce(max(race_number), 0) + 1 from entries where event_id = $1), 'awaiting_payment', 15000, 'NZD') returning id`,
+    [DEMO.meetingId, classId, otherBoat, other.id],
+  );
+  const [{ id: protestId }] = await query<{ id: string }>(
+    `insert into protests (event_id, lodged_by_id, against_entry_id, matter_key, rule_reference, grounds, status, fee_minor, currency, paid_at, window_deadline)
+     values ($1, $2, $3, $4, 'Matrix rule 1', 'Matrix grounds', 'lodged', 3000, 'NZD', now(), now() + interval '1 hour') returning id`,
+    [DEMO.meetingId, entrantId, otherEntryId, `matrix:${randomUUID()}`],
+  );
+  const evidenceForm = new FormData();
+  evidenceForm.append('file', new Blob([Buffer.from('%PDF-1.4\n%matrix evidence\n1 0 obj<<>>endobj\ntrailer<<>>\n%%EOF\n')], { type: 'application/pdf' }), 'statement.pdf');
+  const ev = await sessions.get('entrantOwn')!.fetch(`/api/protests/${protestId}/evidence`, { method: 'POST', body: evidenceForm });
+  const evBody = await ev.json();
+  assert.equal(ev.status, 201, JSON.stringify(evBody));
   ids = {
     eventId: DEMO.meetingId, classId, entryId: own.entry_id, spareEntryId, boatId: own.boat_id, tagToken: tag.token,
-    raceNumber: race.race_number, documentId: upBody.data.id, missingId: randomUUID(),
+    raceNumber: race.race_number, documentId: upBody.data.id, missingId: randomUUID(), protestId, evidenceId: evBody.data.id,
   };
 });
 
-function expectedAllowed(access: Access, actor: ActorKey): boolean | 'hidden' {
+// 'hidden': 403 or 404; 'unseen': exactly 404 (the caller must not learn the thing exists).
+function expectedAllowed(access: Access, actor: ActorKey): boolean | 'hidden' | 'unseen' {
   if (access === 'public' || access === 'webhook' || access === 'method-not-allowed' || access === 'skip') return true;
   if (actor === 'anonymous') return false;
   if (access === 'signed-in') return true;
   if (access === 'owner') return actor === 'entrantOwn' ? true : 'hidden';
   if (access === 'owner-or-view-all') return actor === 'entrantOwn' || rolesCan(ROLES_AT_MEETING[actor], 'entry.view_all') ? true : 'hidden';
   if ('custom' in access) return (access.custom as readonly string[]).includes(actor);
+  if ('protest' in access) {
+    const roles = ROLES_AT_MEETING[actor];
+    const party = actor === 'entrantOwn' || actor === 'entrantOther'; // the protester and the protested entrant
+    const sees = party || rolesCan(roles, 'protest.view_all');
+    const may =
+      access.protest === 'view' ? sees
+      : access.protest === 'add-evidence' ? party || rolesCan(roles, 'protest.decide')
+        : access.protest === 'decide' ? rolesCan(roles, 'protest.decide')
+          : actor === 'entrantOwn';
+    return may ? true : sees ? false : 'unseen';
+  }
   return access.anyOf.some((p: Permission) => rolesCan(ROLES_AT_MEETING[actor], p));
 }
 
@@ -147,9 +178,20 @@ test('each endpoint allows or denies each actor as the permission table says', a
           : expected === true ? s !== 401 && s !== 403
             : actor === 'anonymous' ? s === 401
               : expected === 'hidden' ? s === 403 || s === 404
+                : expected === 'unseen' ? s === 404
                 : s === 403;
       if (!ok) failures.push(`${r.method} ${r.path(ids)} as ${actor}: got ${s}, expected ${expected === true ? 'allowed' : 'denied'}`);
     }
   }
   assert.deepEqual(failures, []);
+});
+
+test('a protest or evidence id that does not exist is 404 for everyone signed in, 401 for anyone else', async () => {
+  for (const actor of ACTORS) {
+    for (const p of [`/api/protests/${ids.missingId}`, `/api/protests/${ids.missingId}/evidence`, `/api/evidence/${ids.missingId}`]) {
+      const res = await sessions.get(actor)!.fetch(p);
+      await res.arrayBuffer();
+      assert.equal(res.status, actor === 'anonymous' ? 401 : 404, `${p} as ${actor}`);
+    }
+  }
 });

@@ -6,6 +6,7 @@ import type { Permission } from '../../lib/auth/permissions';
 export type Ids = {
   eventId: string; classId: string; entryId: string; spareEntryId: string; boatId: string; tagToken: string;
   raceNumber: number; documentId: string; missingId: string;
+  protestId: string; evidenceId: string; // lodged by the demo entrant against the other entrant's entry
 };
 export type Access =
   | 'public' // anyone, signed in or not
@@ -16,7 +17,11 @@ export type Access =
   | 'method-not-allowed' // append-only records: 405 for everyone
   | 'skip' // next-auth's own endpoints, covered by tests/integration/auth.test.ts
   | { anyOf: Permission[] } // any of these permissions at the demo meeting
-  | { custom: readonly string[] }; // the listed actors only
+  | { custom: readonly string[] } // the listed actors only
+  // A protest: 'view' for its parties (lodger, protested entrant) and protest.view_all; 'add-evidence'
+  // for the parties and protest.decide; 'decide' for protest.decide; 'pay' for the lodger. Those who
+  // may see the protest but not take the step get 403; everyone else 404, as for a missing id.
+  | { protest: 'view' | 'add-evidence' | 'decide' | 'pay' };
 
 type Row = { method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE'; file: string; path: (i: Ids) => string; access: Access };
 
@@ -84,7 +89,7 @@ export const ROUTES: Row[] = [
   { method: 'GET', file: `${E}/race-numbers/[raceNumber]/route.ts`, path: (i) => `${ev(i)}/race-numbers/${i.raceNumber}`, access: { anyOf: ['inspection.record'] } },
   { method: 'POST', file: `${E}/reinspections/route.ts`, path: (i) => `${ev(i)}/reinspections`, access: { anyOf: ['inspection.assign_reinspection'] } },
   { method: 'GET', file: `${E}/reinspections/route.ts`, path: (i) => `${ev(i)}/reinspections`, access: { anyOf: ['inspection.board', 'inspection.assign_reinspection'] } },
-  // Results, protests and the audit trail (missing protest and evidence ids: 404 for everyone signed in)
+  // Results, protests and the audit trail
   { method: 'GET', file: `${E}/results/route.ts`, path: (i) => `${ev(i)}/results`, access: 'signed-in' },
   { method: 'POST', file: `${E}/results/route.ts`, path: (i) => `${ev(i)}/results`, access: { anyOf: ['results.publish'] } },
   { method: 'GET', file: `${E}/protests/route.ts`, path: (i) => `${ev(i)}/protests`, access: 'signed-in' },
@@ -94,15 +99,15 @@ export const ROUTES: Row[] = [
   { method: 'PUT', file: `${E}/audit/route.ts`, path: (i) => `${ev(i)}/audit`, access: 'method-not-allowed' },
   { method: 'PATCH', file: `${E}/audit/route.ts`, path: (i) => `${ev(i)}/audit`, access: 'method-not-allowed' },
   { method: 'DELETE', file: `${E}/audit/route.ts`, path: (i) => `${ev(i)}/audit`, access: 'method-not-allowed' },
-  { method: 'GET', file: 'app/api/protests/[protestId]/route.ts', path: (i) => `/api/protests/${i.missingId}`, access: 'owner' },
-  { method: 'POST', file: 'app/api/protests/[protestId]/checkout/route.ts', path: (i) => `/api/protests/${i.missingId}/checkout`, access: 'owner' },
-  { method: 'POST', file: 'app/api/protests/[protestId]/evidence/route.ts', path: (i) => `/api/protests/${i.missingId}/evidence`, access: 'owner' },
-  { method: 'GET', file: 'app/api/protests/[protestId]/evidence/route.ts', path: (i) => `/api/protests/${i.missingId}/evidence`, access: 'owner' },
-  { method: 'POST', file: 'app/api/protests/[protestId]/accept/route.ts', path: (i) => `/api/protests/${i.missingId}/accept`, access: 'owner' },
-  { method: 'POST', file: 'app/api/protests/[protestId]/reject/route.ts', path: (i) => `/api/protests/${i.missingId}/reject`, access: 'owner' },
-  { method: 'POST', file: 'app/api/protests/[protestId]/reinspection/route.ts', path: (i) => `/api/protests/${i.missingId}/reinspection`, access: 'owner' },
-  { method: 'POST', file: 'app/api/protests/[protestId]/hearing/route.ts', path: (i) => `/api/protests/${i.missingId}/hearing`, access: 'owner' },
-  { method: 'POST', file: 'app/api/protests/[protestId]/decision/route.ts', path: (i) => `/api/protests/${i.missingId}/decision`, access: 'owner' },
-  { method: 'GET', file: 'app/api/protests/[protestId]/decision.pdf/route.ts', path: (i) => `/api/protests/${i.missingId}/decision.pdf`, access: 'owner' },
-  { method: 'GET', file: 'app/api/evidence/[evidenceId]/route.ts', path: (i) => `/api/evidence/${i.missingId}`, access: 'owner' },
+  { method: 'GET', file: 'app/api/protests/[protestId]/route.ts', path: (i) => `/api/protests/${i.protestId}`, access: { protest: 'view' } },
+  { method: 'POST', file: 'app/api/protests/[protestId]/checkout/route.ts', path: (i) => `/api/protests/${i.protestId}/checkout`, access: { protest: 'pay' } },
+  { method: 'POST', file: 'app/api/protests/[protestId]/evidence/route.ts', path: (i) => `/api/protests/${i.protestId}/evidence`, access: { protest: 'add-evidence' } },
+  { method: 'GET', file: 'app/api/protests/[protestId]/evidence/route.ts', path: (i) => `/api/protests/${i.protestId}/evidence`, access: { protest: 'view' } },
+  { method: 'POST', file: 'app/api/protests/[protestId]/accept/route.ts', path: (i) => `/api/protests/${i.protestId}/accept`, access: { protest: 'decide' } },
+  { method: 'POST', file: 'app/api/protests/[protestId]/reject/route.ts', path: (i) => `/api/protests/${i.protestId}/reject`, access: { protest: 'decide' } },
+  { method: 'POST', file: 'app/api/protests/[protestId]/reinspection/route.ts', path: (i) => `/api/protests/${i.protestId}/reinspection`, access: { protest: 'decide' } },
+  { method: 'POST', file: 'app/api/protests/[protestId]/hearing/route.ts', path: (i) => `/api/protests/${i.protestId}/hearing`, access: { protest: 'decide' } },
+  { method: 'POST', file: 'app/api/protests/[protestId]/decision/route.ts', path: (i) => `/api/protests/${i.protestId}/decision`, access: { protest: 'decide' } },
+  { method: 'GET', file: 'app/api/protests/[protestId]/decision.pdf/route.ts', path: (i) => `/api/protests/${i.protestId}/decision.pdf`, access: { protest: 'view' } },
+  { method: 'GET', file: 'app/api/evidence/[evidenceId]/route.ts', path: (i) => `/api/evidence/${i.evidenceId}`, access: { protest: 'view' } },
 ];
