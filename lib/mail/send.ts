@@ -5,8 +5,12 @@ const globalForMail = globalThis as unknown as { __borelineMail?: Transporter };
 
 function transporter(): Transporter {
   if (!globalForMail.__borelineMail) {
-    const url = process.env.SMTP_URL ?? 'smtp://127.0.0.1:2525';
-    globalForMail.__borelineMail = nodemailer.createTransport(url);
+    // Pooled (nodemailer reads its options from the URL's query): a few SMTP connections kept open
+    // and reused, not a new handshake for every message. SMTP_URL may set its own pool options.
+    const url = new URL(process.env.SMTP_URL ?? 'smtp://127.0.0.1:2525');
+    if (!url.searchParams.has('pool')) url.searchParams.set('pool', 'true');
+    if (!url.searchParams.has('maxConnections')) url.searchParams.set('maxConnections', '3');
+    globalForMail.__borelineMail = nodemailer.createTransport(url.toString());
   }
   return globalForMail.__borelineMail;
 }

@@ -21,10 +21,27 @@ export function startMailFake(opts: { smtpPort: number; httpPort: number; storeF
   const messages: StoredMessage[] = fs.existsSync(opts.storeFile)
     ? (JSON.parse(fs.readFileSync(opts.storeFile, 'utf8')) as StoredMessage[])
     : [];
-  const persist = () => {
+  // Written at most every 200 ms (and on exit), not on every message: under load the whole file
+  // rewritten per message cost this fake more CPU than the app spent recording the inspection.
+  const write = () => {
     fs.mkdirSync(path.dirname(opts.storeFile), { recursive: true });
-    fs.writeFileSync(opts.storeFile, JSON.stringify(messages.slice(-500), null, 1));
+    fs.writeFileSync(`${opts.storeFile}.tmp`, JSON.stringify(messages.slice(-500), null, 1));
+    fs.renameSync(`${opts.storeFile}.tmp`, opts.storeFile);
   };
+  let pending: NodeJS.Timeout | undefined;
+  const persist = () => {
+    pending ??= setTimeout(() => {
+      pending = undefined;
+      write();
+    }, 200);
+  };
+  const flush = () => {
+    if (!pending) return;
+    clearTimeout(pending);
+    pending = undefined;
+    write();
+  };
+  process.on('exit', flush);
 
   const smtp = new SMTPServer({
     authOptional: true,
@@ -44,6 +61,7 @@ export function startMailFake(opts: { smtpPort: number; httpPort: number; storeF
             text: mail.text ?? '',
             html: typeof mail.html === 'string' ? mail.html : '',
           });
+          if (messages.length > 5000) messages.splice(0, messages.length - 5000);
           persist();
           callback();
         })
@@ -73,6 +91,6 @@ export function startMailFake(opts: { smtpPort: number; httpPort: number; storeF
   });
   inbox.listen(opts.httpPort, '127.0.0.1');
   return {
-    close: () => Promise.all([new Promise((r) => smtp.close(() => r(null))), new Promise((r) => inbox.close(() => r(null)))]),
+    close: () => Promise.all([flush(),new Promise((r) => smtp.close(() => r(null))), new Promise((r) => inbox.close(() => r(null)))]),
   };
 }
