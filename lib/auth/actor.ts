@@ -1,7 +1,9 @@
 import 'server-only';
-import { getServerSession } from 'next-auth';
+import { cookies } from 'next/headers';
+import { getToken } from 'next-auth/jwt';
 import { getAuthOptions } from './options';
-import { db } from '@/lib/db';
+import { QueryTypes } from 'sequelize';
+import { getDb } from '@/lib/db';
 import { rolesCan, type Permission, type Role } from './permissions';
 import { AppError } from '@/lib/http/errors';
 
@@ -17,28 +19,35 @@ export type Actor = {
 };
 
 export async function loadActor(userId: string): Promise<Actor | null> {
-  const { User, EventStaff, OrganisationMember } = db();
-  const user = await User.findByPk(userId);
-  if (!user) return null;
-  const [staff, memberships] = await Promise.all([
-    EventStaff.findAll({ where: { userId }, attributes: ['eventId', 'role'] }),
-    OrganisationMember.findAll({ where: { userId, role: 'organiser' }, attributes: ['organisationId'] }),
-  ]);
+  // One round trip: this runs for every signed-in request.
+  const [row] = await getDb().sequelize.query<{
+    id: string; email: string; name: string | null; isAdmin: boolean; staff: { eventId: string; role: Role }[]; organiserOf: string[];
+  }>(
+    `select u.id, u.email, u.name, u.is_admin as "isAdmin",
+            coalesce((select json_agg(json_build_object('eventId', s.event_id, 'role', s.role)) from event_staff s where s.user_id = u.id), '[]') as staff,
+            coalesce((select json_agg(m.organisation_id) from organisation_members m where m.user_id = u.id and m.role = 'organiser'), '[]') as "organiserOf"
+       from users u where u.id = :userId`,
+    { replacements: { userId }, type: QueryTypes.SELECT },
+  );
+  if (!row) return null;
   const eventRoles: Record<string, Role[]> = {};
-  for (const s of staff) (eventRoles[s.eventId] ??= []).push(s.role as Role);
-  return {
-    id: user.id,
-    email: user.email,
-    name: user.name,
-    isAdmin: user.isAdmin,
-    eventRoles,
-    organiserOf: memberships.map((m) => m.organisationId),
-  };
+  for (const s of row.staff) (eventRoles[s.eventId] ??= []).push(s.role);
+  return { id: row.id, email: row.email, name: row.name, isAdmin: row.isAdmin, eventRoles, organiserOf: row.organiserOf };
 }
 
+/**
+ * The person behind this request's session cookie. Only the cookie is read (next-auth's getToken
+ * decrypts and checks its expiry): getServerSession would also re-sign a fresh token on every call,
+ * which a server component or route handler cannot even send back, at a key derivation and an
+ * encryption per request. A Bearer header is not accepted: sessions are cookies only.
+ */
 export async function getActor(): Promise<Actor | null> {
-  const session = await getServerSession(getAuthOptions());
-  const id = session?.user?.id;
+  const jar = await cookies();
+  const token = await getToken({
+    req: { cookies: Object.fromEntries(jar.getAll().map((c) => [c.name, c.value])), headers: {} } as never,
+    secret: getAuthOptions().secret,
+  });
+  const id = typeof token?.uid === 'string' ? token.uid : null;
   return id ? loadActor(id) : null;
 }
 
