@@ -14,6 +14,7 @@ import { currentInspectionCte, loadInspectionViews, type InspectionView } from '
 type EntryRow = {
   id: string; entrantId: string; raceNumber: number; status: string; classId: string; boatId: string; ownerId: string;
   boatName: string; boatDeclaredKw: number; boatPowerEvidence: string; className: string; eventName: string;
+  entrantEmail: string; entrantName: string | null;
 };
 
 const fieldError = (field: string, message: string, status = 400) => new AppError('invalid_input', status, `${field}: ${message}`, [{ field, message }]);
@@ -33,13 +34,12 @@ async function findByKey(eventId: string, key: string): Promise<InspectionView |
   return found ?? null;
 }
 
-async function mailEntrant(entrantId: string, boatName: string, raceNumber: number, eventName: string, decision: InspectionDecision) {
-  const user = await getDb().models.User.findByPk(entrantId, { attributes: ['email', 'name'] });
-  if (!user) return;
+async function mailEntrant(entry: EntryRow, decision: InspectionDecision) {
+  const { entrantEmail, boatName, raceNumber, eventName } = entry;
   const lines = decision.rules.map((r) => `- ${r.label}: ${VERDICT_WORDS[r.verdict].toLowerCase()}. ${r.explanation}`);
   try {
     await sendMail({
-      to: user.email,
+      to: entrantEmail,
       subject: `${boatName} (no. ${raceNumber}): inspection result ${VERDICT_WORDS[decision.overall].toLowerCase()}`,
       text: [
         `${boatName} was inspected at ${eventName}. Overall: ${VERDICT_WORDS[decision.overall].toLowerCase()}.`,
@@ -75,8 +75,9 @@ export async function recordInspection(actor: Actor | null, eventId: string, raw
   const [entry] = await sequelize.query<EntryRow>(
     `select e.id, e.entrant_id as "entrantId", e.race_number as "raceNumber", e.status, e.class_id as "classId", e.boat_id as "boatId",
             b.owner_id as "ownerId", b.name as "boatName", b.declared_power_kw as "boatDeclaredKw", b.power_evidence as "boatPowerEvidence",
-            c.name as "className", ev.name as "eventName"
+            c.name as "className", ev.name as "eventName", u.email as "entrantEmail", u.name as "entrantName"
        from entries e join boats b on b.id = e.boat_id join race_classes c on c.id = e.class_id join events ev on ev.id = e.event_id
+            join users u on u.id = e.entrant_id
       where e.id = :entryId and e.event_id = :eventId`,
     { replacements: { entryId: input.entryId, eventId }, type: QueryTypes.SELECT },
   );
@@ -126,13 +127,16 @@ export async function recordInspection(actor: Actor | null, eventId: string, raw
   const results = { rules: decision.rules, decisionRule: ruleVersion.rules.decisionRule, ruleVersion: ruleVersion.version };
 
   const inserted = await sequelize.transaction(async (transaction) => {
-    // One writer per entry at a time, so the entry's result always reflects every committed record.
-    await models.Entry.findByPk(entry.id, { lock: transaction.LOCK.UPDATE, transaction, attributes: ['id'] });
+    // One writer per entry at a time, so the entry's result always reflects every committed record:
+    // the insert first takes the entry's row lock (in the same statement, one round trip fewer), and
+    // the update below starts after it, so it sees every record committed before the lock was granted.
     const rows = await sequelize.query<{ id: string; receivedAt: Date }>(
-      `insert into inspections (event_id, entry_id, boat_id, class_id, rule_version_id, kind, recorded_by_id, device, idempotency_key,
+      `with locked as (select id from entries where id = :entryId for update)
+       insert into inspections (event_id, entry_id, boat_id, class_id, rule_version_id, kind, recorded_by_id, device, idempotency_key,
                                 captured_at, supersedes_id, correction_reason, reinspection_id, measurements, results, overall_result, notes)
-       values (:eventId, :entryId, :boatId, :classId, :ruleVersionId, :kind, :recordedById, :device, :idempotencyKey,
-               :capturedAt, :supersedesId, :correctionReason, :reinspectionId, :measurements::jsonb, :results::jsonb, :overall, :notes)
+       select :eventId, locked.id, :boatId, :classId, :ruleVersionId, :kind, :recordedById, :device, :idempotencyKey,
+              :capturedAt, :supersedesId, :correctionReason, :reinspectionId, :measurements::jsonb, :results::jsonb, :overall, :notes
+         from locked
        on conflict (idempotency_key) do nothing
        returning id, received_at as "receivedAt"`,
       {
@@ -167,7 +171,7 @@ export async function recordInspection(actor: Actor | null, eventId: string, raw
     return { inspection: existing, created: false };
   }
   // The entrant's e-mail goes out after the answer: the scrutineer at the dock never waits for SMTP.
-  after(() => mailEntrant(entry.entrantId, entry.boatName, entry.raceNumber, entry.eventName, decision));
+  after(() => mailEntrant(entry, decision));
   // The new record as loadInspectionViews would read it, from what was just written (one query fewer per record).
   const view: InspectionView = {
     id: inserted.id, eventId, entryId: entry.id, boatId: entry.boatId, classId: entry.classId, ruleVersionId: ruleVersion.id,
