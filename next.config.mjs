@@ -38,6 +38,9 @@ const nextConfig = {
   // Tests build into their own folder so they never collide with a running `npm start`.
   distDir: process.env.NEXT_DIST_DIR || '.next',
   poweredByHeader: false,
+  // Compression is the reverse proxy's job (it terminates TLS in front of every app server; see
+  // README, "Scaling past one machine"): gzip in Node costs the app CPU on every answer.
+  compress: false,
   reactStrictMode: true,
   async headers() {
     return [{ source: '/:path*', headers: securityHeaders }];
