@@ -89,6 +89,25 @@ test('the same key sent three times makes one record (201 then 200, 200); two ke
   assert.equal((await countByKey(a.idempotencyKey)) + (await countByKey(b.idempotencyKey)), 2);
 });
 
+test('records for one entry sent at once: the entry ends with the result of the latest capture', async () => {
+  // The entry's stored result must follow the record that counts (the latest capture time) however
+  // the requests interleave: each writer takes the entry's lock before it recomputes. Alternating
+  // conforming and non-conforming readings (DOMAIN.md worked decisions, ISO 14253-1:2017) make a
+  // wrong winner visible. Five rounds of eight.
+  for (let round = 0; round < 5; round++) {
+    const e = await meeting.addEntry(classes.iso14253);
+    const base = Date.now() - 60_000;
+    const bodies = Array.from({ length: 8 }, (_, i) =>
+      inspectionBody(e.id, i % 2 ? 102.06 : 101.93, { capturedAt: new Date(base + ((i * 5 + round) % 8) * 1000).toISOString() }));
+    const answers = await Promise.all(bodies.map((b) => post(scrutineer, b)));
+    assert.deepEqual(answers.map((a) => a.res.status), Array(8).fill(201));
+    const latest = bodies.reduce((a, b) => (a.capturedAt > b.capturedAt ? a : b));
+    const expected = latest.nozzle.readings[1].diameterMm === 102.06 ? 'does_not_conform' : 'conforms';
+    const [en] = await query<{ inspection_result: string }>('select inspection_result from entries where id = $1', [e.id]);
+    assert.equal(en.inspection_result, expected, `round ${round}`);
+  }
+});
+
 test('a correction supersedes and keeps the original; both are in the history; the entry takes the correction', async () => {
   const e = await meeting.addEntry(classes.iso14253);
   const original = await post(scrutineer, inspectionBody(e.id, 102.06));
