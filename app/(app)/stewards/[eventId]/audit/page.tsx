@@ -4,7 +4,7 @@ import { notFound, redirect } from 'next/navigation';
 import { getActor, can } from '@/lib/auth/actor';
 import { getDb } from '@/lib/db';
 import { parseId } from '@/lib/http/ids';
-import { listAuditEvents } from '@/lib/audit/list-audit-events';
+import { AuditQuery, listAuditEvents } from '@/lib/audit/list-audit-events';
 import { formatInZone } from '@/lib/protests/protest-window';
 
 export const metadata: Metadata = { title: 'Audit trail' };
@@ -18,13 +18,16 @@ export default async function AuditPage({ params, searchParams }: { params: Prom
   try { eventId = parseId((await params).eventId, 'event'); } catch { notFound(); }
   if (!can(actor, 'audit.read', { eventId })) redirect('/not-allowed');
   const sp = await searchParams;
-  const [event, page] = await Promise.all([getDb().models.Event.findByPk(eventId), listAuditEvents(actor, eventId, { before: sp.before })]);
+  // A hand-edited or stale "?before=" shows the newest page with a note, never an error page.
+  const before = AuditQuery.shape.before.safeParse(sp.before);
+  const [event, page] = await Promise.all([getDb().models.Event.findByPk(eventId), listAuditEvents(actor, eventId, { before: before.success ? before.data : undefined })]);
   if (!event) notFound();
   return (
     <div className="space-y-6">
       <nav aria-label="Breadcrumb" className="text-sm"><Link href="/stewards">Stewards</Link> / <Link href={`/stewards/${eventId}`}>{event.name}</Link> / Audit trail</nav>
       <h1>Audit trail</h1>
       <p className="text-ink-soft">Every change to protests and results at this meeting, newest first. Nothing here can be edited or deleted.</p>
+      {!before.success && <p role="status" className="rounded-lg border-l-8 border-doubt-600 bg-doubt-100 p-4 text-doubt-800">The address asked for a page of the trail that does not exist; this is the newest page.</p>}
       <div className="card overflow-x-auto p-0">
         <table className="w-full min-w-[40rem] text-left text-sm" data-testid="audit-table">
           <thead className="bg-paper-deep"><tr><th className="p-2">When ({event.timeZone})</th><th className="p-2">Who</th><th className="p-2">What</th><th className="p-2">Subject</th><th className="p-2">Details</th></tr></thead>
