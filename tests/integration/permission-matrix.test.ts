@@ -14,7 +14,7 @@ import { HttpSession } from '../support/http-session';
 import { DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
 import { query } from '../support/db';
 import { rolesCan, type Permission, type Role } from '../../lib/auth/permissions';
-import { ROUTES, type Access, type Ids } from './permission-routes';
+import { ROUTES, SERVER_ACTIONS, type Access, type Ids } from './permission-routes';
 
 const ACTORS = ['anonymous', 'entrantOwn', 'entrantOther', 'scrutineer', 'scrutineerElsewhere', 'steward', 'organiser', 'organiserElsewhere', 'admin'] as const;
 type ActorKey = (typeof ACTORS)[number];
@@ -193,5 +193,69 @@ test('a protest or evidence id that does not exist is 404 for everyone signed in
       await res.arrayBuffer();
       assert.equal(res.status, actor === 'anonymous' ? 401 : 404, `${p} as ${actor}`);
     }
+  }
+});
+
+// Server actions: found in the source ('use server' files) and in the build's manifest, which gives
+// each its id. Posted as React's client would (Next-Action header, the arguments [previous state,
+// form] encoded as multipart). Anonymous callers are sent to sign-in by the proxy; a session whose
+// account no longer exists gets past the proxy and must be refused by the action itself.
+function listServerActions(): string[] {
+  const out: string[] = [];
+  const walk = (dir: string) => {
+    for (const e of fs.readdirSync(dir, { withFileTypes: true })) {
+      const p = path.join(dir, e.name);
+      if (e.isDirectory()) walk(p);
+      else if (/\.tsx?$/.test(e.name)) {
+        const src = fs.readFileSync(p, 'utf8');
+        if (!/^\s*['"]use server['"]/.test(src)) continue;
+        for (const m of src.matchAll(/export (?:async function|const) (\w+)/g)) out.push(`${p.split(path.sep).join('/')}#${m[1]}`);
+      }
+    }
+  };
+  walk('app');
+  return out.sort();
+}
+
+function actionId(file: string, exportedName: string): string {
+  const manifest = JSON.parse(fs.readFileSync(path.join(process.env.NEXT_DIST_DIR ?? '.next', 'server', 'server-reference-manifest.json'), 'utf8'));
+  const found = Object.entries(manifest.node as Record<string, { filename: string; exportedName: string }>).find(([, v]) => v.filename === file && v.exportedName === exportedName);
+  assert.ok(found, `${file}#${exportedName} is not in the build's server action manifest`);
+  return found[0];
+}
+
+async function postAction(s: HttpSession, a: (typeof SERVER_ACTIONS)[number]) {
+  const form = new FormData();
+  for (const [k, v] of Object.entries(a.fields)) form.append(`1_${k}`, v);
+  form.append('0', JSON.stringify([null, '$K1']));
+  const res = await s.fetch(a.page, { method: 'POST', headers: { 'next-action': actionId(a.file, a.exportedName), accept: 'text/x-component' }, body: form });
+  return { res, text: await res.text() };
+}
+
+test('every server action is in the matrix', () => {
+  const listed = SERVER_ACTIONS.map((a) => `${a.file}#${a.exportedName}`).sort();
+  assert.deepEqual(listServerActions(), listed, 'add server actions to SERVER_ACTIONS in tests/integration/permission-routes.ts');
+});
+
+test('each server action runs for those allowed and refuses everyone else, in the action itself', async () => {
+  // A signed-in session for an account that is then removed: the proxy lets it through, the action must not.
+  const gone = await signUpAndIn('gone');
+  await query('delete from users where id = $1', [gone.id]);
+  for (const a of SERVER_ACTIONS) {
+    for (const actor of ACTORS) {
+      const { res, text } = await postAction(sessions.get(actor)!, a);
+      if (actor === 'anonymous') {
+        assert.equal(res.status, 307, `${a.exportedName} as anonymous`);
+        assert.match(res.headers.get('location') ?? '', /^\/sign-in/);
+        continue;
+      }
+      // Allowed: the action ran and answered about the input ("ok":false with field errors), not about who is asking.
+      assert.equal(res.status, 200, `${a.exportedName} as ${actor}: ${text.slice(0, 200)}`);
+      assert.match(text, /"ok":false/, `${a.exportedName} as ${actor}`);
+      assert.match(text, /"fieldErrors"/, `${a.exportedName} as ${actor}: refused for its input`);
+    }
+    const { res, text } = await postAction(gone.s, a);
+    assert.equal(res.status, 200, text.slice(0, 200));
+    assert.match(text, /"ok":false,"message":"Sign in to do this\."/, `${a.exportedName} with the session of a removed account`);
   }
 });

@@ -111,3 +111,10 @@ export const ROUTES: Row[] = [
   { method: 'GET', file: 'app/api/protests/[protestId]/decision.pdf/route.ts', path: (i) => `/api/protests/${i.protestId}/decision.pdf`, access: { protest: 'view' } },
   { method: 'GET', file: 'app/api/evidence/[evidenceId]/route.ts', path: (i) => `/api/evidence/${i.evidenceId}`, access: { protest: 'view' } },
 ];
+
+// Every server action (each export of a 'use server' file), the page it is posted to, and who may
+// run it. Bodies are refused input, so an allowed call changes nothing.
+export type ActionRow = { file: string; exportedName: string; page: string; access: 'signed-in'; fields: Record<string, string> };
+export const SERVER_ACTIONS: ActionRow[] = [
+  { file: 'app/(app)/account/actions.ts', exportedName: 'changePasswordAction', page: '/account', access: 'signed-in', fields: { password: '' } },
+];
