@@ -1,11 +1,14 @@
 // Journey on a phone: a new entrant signs up, registers a boat (a missing figure first), enters a
 // class of the demo meeting, reads the declaration check with the safety caution, pays on the
-// payment fake's page, lands on My entries with the entry paid, and gets the receipt by e-mail.
+// payment fake's page, lands on My entries with the entry paid, and gets the receipt by e-mail;
+// once the boat is inspected, My entries says what the result means, with the safety caution.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import type { Browser } from 'playwright-core';
 import { launchBrowser, newContext, screenshot, PHONE } from '../support/browser';
-import { DEMO, uniqueEmail } from '../support/env';
+import { DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
+import { HttpSession } from '../support/http-session';
+import { inspectionBody } from '../support/inspection-meeting';
 import { query } from '../support/db';
 import { waitForMail } from '../support/mail';
 
@@ -108,5 +111,22 @@ test('entrant: sign up → register a boat → enter the demo meeting → declar
 
   const receipt = await waitForMail(email, { subject: /Receipt/ });
   assert.match(receipt.text, /Gorge Raven/);
+
+  // At the dock the scrutineer measures 101.97 mm against the 102.00 mm limit with U = 0.05 mm
+  // (DOMAIN.md worked decision); My entries then says what the result asks of the entrant, with the caution.
+  const [{ rules }] = await query<{ rules: { safetyItems: string[] } }>(
+    `select rules from class_rule_versions where class_id = $1 and status = 'published' order by version desc limit 1`, [cls.id]);
+  const scrutineer = new HttpSession();
+  await scrutineer.signInWithPassword(DEMO.scrutineer, DEMO_PASSWORD);
+  const recorded = await scrutineer.json(`/api/events/${DEMO.meetingId}/inspections`, inspectionBody(entryId, 101.97, {
+    weight: { readingsKg: [700, 701] }, safety: Object.fromEntries(rules.safetyItems.map((i) => [i, true])),
+  }));
+  assert.equal(recorded.res.status, 201, JSON.stringify(recorded.body));
+  const meaning: Record<string, RegExp> = { conforms: /within the class rules/, does_not_conform: /see the chief scrutineer/, inconclusive: /too close to a limit/ };
+  await page.reload();
+  const card = page.locator(`[data-entry-id="${entryId}"]`);
+  assert.match(await card.getByTestId('result-meaning').innerText(), meaning[recorded.body.data.overallResult]);
+  assert.match(await page.getByRole('note').innerText(), /licensed officials/);
+  await screenshot(page, 'entrant-07-entries-inspected');
   await context.close();
 });

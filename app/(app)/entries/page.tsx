@@ -8,9 +8,17 @@ import { formatMoney } from '@/lib/validations/entries';
 import { PayEntryButton } from './pay-entry-button';
 import { WithdrawEntryButton } from './withdraw-entry-button';
 import { PaymentWaiter } from './payment-waiter';
+import { SafetyNote } from '@/components/safety-note';
 
 export const metadata: Metadata = { title: 'My entries' };
 export const dynamic = 'force-dynamic';
+
+// What an inspection result asks of the entrant, beside the badge.
+const RESULT_MEANING: Record<NonNullable<MyEntry['inspectionResult']>, string> = {
+  conforms: 'The scrutineers found the boat within the class rules at its latest inspection.',
+  does_not_conform: 'A class rule is not met at the latest inspection: see the chief scrutineer before the boat goes on the water.',
+  inconclusive: 'A measurement is too close to a limit to decide, given its uncertainty: the chief scrutineer decides what happens next, often a measurement with a finer instrument.',
+};
 
 // Badge colours pair with the words (never colour alone).
 function badgeClass(e: MyEntry) {
@@ -90,6 +98,7 @@ export default async function MyEntriesPage({ searchParams }: { searchParams: Pr
                 </dd>
                 {e.cancelledReason && <><dt className="text-ink-soft">Reason</dt><dd>{e.cancelledReason}</dd></>}
               </dl>
+              {e.status === 'entered' && e.inspectionResult && <p className="text-ink-soft" data-testid="result-meaning">{RESULT_MEANING[e.inspectionResult]}</p>}
               {e.status === 'awaiting_payment' && (
                 <div className="flex flex-wrap items-start gap-3 pt-1">
                   <PayEntryButton entryId={e.id} label={e.feeMinor > 0 ? 'Pay entry fee' : 'Confirm the entry'} />
@@ -100,6 +109,7 @@ export default async function MyEntriesPage({ searchParams }: { searchParams: Pr
           ))}
         </ul>
       )}
+      {entries.some((e) => e.inspectionResult) && <SafetyNote />}
     </div>
   );
 }

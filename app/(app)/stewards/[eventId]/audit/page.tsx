@@ -28,6 +28,9 @@ export default async function AuditPage({ params, searchParams }: { params: Prom
       <h1>Audit trail</h1>
       <p className="text-ink-soft">Every change to protests and results at this meeting, newest first. Nothing here can be edited or deleted.</p>
       {!before.success && <p role="status" className="rounded-lg border-l-8 border-doubt-600 bg-doubt-100 p-4 text-doubt-800">The address asked for a page of the trail that does not exist; this is the newest page.</p>}
+      {page.items.length === 0 ? (
+        <p className="card text-ink-soft" data-testid="audit-empty">Nothing has been recorded at this meeting yet: protests, decisions and published results appear here as they happen.</p>
+      ) : (
       <div className="card overflow-x-auto p-0">
         <table className="w-full min-w-[40rem] text-left text-sm" data-testid="audit-table">
           <thead className="bg-paper-deep"><tr><th className="p-2">When ({event.timeZone})</th><th className="p-2">Who</th><th className="p-2">What</th><th className="p-2">Subject</th><th className="p-2">Details</th></tr></thead>
@@ -44,6 +47,7 @@ export default async function AuditPage({ params, searchParams }: { params: Prom
           </tbody>
         </table>
       </div>
+      )}
       {page.nextBefore && <Link href={`?before=${page.nextBefore}`} className="btn-secondary">Older</Link>}
     </div>
   );
