@@ -18,6 +18,7 @@ export class Event extends Model<InferAttributes<Event>, InferCreationAttributes
   declare waterTemperatureC: CreationOptional<number>;
   declare waterDensityKgM3: CreationOptional<number | null>;
   declare protestWindowMinutes: CreationOptional<number>;
+  declare appealNoticeMinutes: CreationOptional<number>;
   declare currency: CreationOptional<string>;
   declare entryFeeMinor: CreationOptional<number>;
   declare protestFeeMinor: CreationOptional<number>;
@@ -66,6 +67,7 @@ export function initEvents(sequelize: Sequelize) {
       waterTemperatureC: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 15 },
       waterDensityKgM3: { type: DataTypes.DOUBLE },
       protestWindowMinutes: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 30 },
+      appealNoticeMinutes: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 60 },
       currency: { type: DataTypes.STRING(3), allowNull: false, defaultValue: 'NZD' },
       entryFeeMinor: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       protestFeeMinor: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },

@@ -18,6 +18,7 @@ export function toEventDto(e: Event): EventDto {
     waterTemperatureC: e.waterTemperatureC,
     waterDensityKgM3: e.waterDensityKgM3 ?? null,
     protestWindowMinutes: e.protestWindowMinutes,
+    appealNoticeMinutes: e.appealNoticeMinutes,
     currency: e.currency as EventDto['currency'],
     entryFeeMinor: e.entryFeeMinor,
     protestFeeMinor: e.protestFeeMinor,

@@ -6,7 +6,7 @@ import { AppError } from '@/lib/http/errors';
 import { recordAuditEvent } from '@/lib/audit/record-audit-event';
 import { findProtestForSteward } from './find-protest-for-actor';
 import { AcceptProtestInput, RejectProtestInput } from './protest-inputs';
-import { APPEAL_NOTICE_MINUTES, REJECTION_LABELS } from './protest-states';
+import { REJECTION_LABELS } from './protest-states';
 import { formatInZone } from './protest-window';
 import { notifyParties } from './notify-parties';
 import { getProtest, type ProtestDetail } from './get-protest';
@@ -32,7 +32,7 @@ export async function acceptOrRejectProtest(actor: Actor | null, protestId: stri
       const decidedAt = new Date();
       await protest.update({
         status: 'rejected', rejectionCode: input.code, decisionReasons: input.reasons, decidedAt, decidedByIds: [actor!.id],
-        appealDeadline: addMinutes(decidedAt, APPEAL_NOTICE_MINUTES),
+        appealDeadline: addMinutes(decidedAt, event.appealNoticeMinutes),
       }, { transaction });
       await recordAuditEvent({ eventId: protest.eventId, actorId: actor!.id, subjectType: 'protest', subjectId: protest.id, action: 'protest.rejected', details: { code: input.code, reasons: input.reasons } }, transaction);
     }

@@ -9,7 +9,7 @@ import { recordAuditEvent } from '@/lib/audit/record-audit-event';
 import { formatMoney } from '@/lib/validations/entries';
 import { findProtestForSteward } from './find-protest-for-actor';
 import { DecideProtestInput } from './protest-inputs';
-import { APPEAL_NOTICE_MINUTES, DECIDABLE_STATUSES, PROTEST_STATUS_LABELS, type ProtestStatus } from './protest-states';
+import { DECIDABLE_STATUSES, PROTEST_STATUS_LABELS, type ProtestStatus } from './protest-states';
 import { formatInZone } from './protest-window';
 import { notifyParties } from './notify-parties';
 import { getProtest, type ProtestDetail } from './get-protest';
@@ -19,8 +19,8 @@ import { getProtest, type ProtestDetail } from './get-protest';
  * penalty. Upheld refunds the fee (kept when dismissed or withdrawn: common practice, no single
  * source). The refund is asked for inside the transaction with a key made from the protest id, so
  * a retry after a failure reaches the provider as the same request and the fee is never refunded
- * twice; a decided protest cannot be decided again (409). Notice of appeal is due
- * APPEAL_NOTICE_MINUTES after the decision.
+ * twice; a decided protest cannot be decided again (409). Notice of appeal is due the meeting's
+ * appeal notice after the decision.
  */
 export async function decideProtest(actor: Actor | null, protestId: string, raw: unknown): Promise<ProtestDetail> {
   const { sequelize, models } = getDb();
@@ -46,10 +46,11 @@ export async function decideProtest(actor: Actor | null, protestId: string, raw:
           throw new AppError('refund_failed', 502, 'The payment provider did not confirm the refund, so the decision was not recorded. Try again.');
         });
     }
+    const event = (await models.Event.findByPk(protest.eventId, { attributes: ['appealNoticeMinutes'], transaction }))!;
     const decidedAt = new Date();
     await protest.update({
       status: input.outcome, decisionReasons: input.reasons, penalty: input.penalty || null, decidedAt, decidedByIds: [actor!.id, ...panel],
-      appealDeadline: addMinutes(decidedAt, APPEAL_NOTICE_MINUTES), ...(refund && { refundId: refund.id, refundedAt: decidedAt }),
+      appealDeadline: addMinutes(decidedAt, event.appealNoticeMinutes), ...(refund && { refundId: refund.id, refundedAt: decidedAt }),
     }, { transaction });
     await recordAuditEvent({
       eventId: protest.eventId, actorId: actor!.id, subjectType: 'protest', subjectId: protest.id, action: `protest.${input.outcome}`,

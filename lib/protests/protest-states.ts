@@ -40,11 +40,11 @@ export const DECIDED_STATUSES: readonly ProtestStatus[] = ['upheld', 'dismissed'
 export const DECIDABLE_STATUSES: readonly ProtestStatus[] = ['accepted', 'hearing_scheduled'];
 
 /**
- * Notice of appeal: one hour after the decision is published, unless the meeting says otherwise
- * (common practice, no single source; the FIA International Sporting Code gives one hour to notify
- * an intention to appeal [memory]). One constant until events get their own setting.
+ * Notice of appeal: each meeting sets it (events.appeal_notice_minutes, from the governing body's
+ * rules); new meetings start at one hour (common practice, no single source; the FIA International
+ * Sporting Code gives one hour to notify an intention to appeal [memory]).
  */
-export const APPEAL_NOTICE_MINUTES = 60;
+export const DEFAULT_APPEAL_NOTICE_MINUTES = 60;
 
 /** Evidence files: photos, PDFs and short phone videos (the storage fake holds up to 50 MB). */
 export const EVIDENCE_MAX_BYTES = 40 * 1024 * 1024;

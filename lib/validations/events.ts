@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { EVENT_STATUSES, CURRENCIES } from '@/lib/constants';
+import { DEFAULT_APPEAL_NOTICE_MINUTES } from '@/lib/protests/protest-states';
 
 // One schema for creating and editing a race meeting, shared by the form and the handler.
 const isTimeZone = (tz: string) => {
@@ -26,6 +27,8 @@ export const EventInput = z
     waterTemperatureC: z.number({ error: 'Enter the expected water temperature.' }).min(0, 'Water below 0 °C is ice.').max(40, 'Water above 40 °C is outside the density tables.'),
     waterDensityKgM3: z.number({ error: 'Enter the density as a number.' }).min(900, 'A density below 900 kg/m³ is not water.').max(1100, 'A density above 1100 kg/m³ is not water.').nullable(),
     protestWindowMinutes: z.number({ error: 'Enter the protest window in minutes.' }).int('Whole minutes, please.').min(0, 'The window cannot be negative.').max(1440, 'Keep the window within a day (1440 minutes).'),
+    // Omitted by older clients: then the default (see protest-states.ts).
+    appealNoticeMinutes: z.number({ error: 'Enter the appeal notice in minutes.' }).int('Whole minutes, please.').min(0, 'The notice cannot be negative.').max(10080, 'Keep the notice within a week (10080 minutes).').default(DEFAULT_APPEAL_NOTICE_MINUTES),
     currency: z.enum(CURRENCIES, { error: 'Choose a currency.' }),
     entryFeeMinor: money('entry fee'),
     protestFeeMinor: money('protest fee'),

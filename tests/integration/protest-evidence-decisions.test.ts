@@ -115,11 +115,21 @@ test('upheld refunds the fee exactly once and the decision PDF says so; dismisse
   assert.match(text, /Notice of appeal is due by/);
   assert.match(text, /licensed officials/);
 
+  // The meeting's organiser sets the appeal notice as the governing body's rules give it: 30 minutes here.
+  const { id: _id, organisationId: _org, slug: _slug, ...meeting } = (await (await organiser.fetch(`/api/events/${EVENT}`)).json()).data;
+  assert.equal(meeting.appealNoticeMinutes, 60);
+  const tooLong = await organiser.json(`/api/events/${EVENT}`, { ...meeting, appealNoticeMinutes: 20_000 }, 'PATCH');
+  assert.equal(tooLong.res.status, 400);
+  assert.equal(tooLong.body.error.details[0].field, 'appealNoticeMinutes');
+  assert.equal((await organiser.json(`/api/events/${EVENT}`, { ...meeting, appealNoticeMinutes: 30 }, 'PATCH')).res.status, 200);
   const down = await lodgedProtest(L, T, 'TP 7.2 hull markings');
   assert.equal((await steward.json(`/api/protests/${down.id}/accept`, {})).res.status, 200);
   const dismissed = await steward.json(`/api/protests/${down.id}/decision`, { outcome: 'dismissed', reasons: 'The hull markings meet the rule as written.' });
   assert.equal(dismissed.res.status, 200);
-  assert.equal((await protestRow(down.id)).refund_id, null);
+  const downRow = await protestRow(down.id);
+  assert.equal((new Date(downRow.appeal_deadline as string).getTime() - new Date(downRow.decided_at as string).getTime()) / 60_000, 30, 'the meeting\'s own appeal notice');
+  assert.equal((await organiser.json(`/api/events/${EVENT}`, { ...meeting, appealNoticeMinutes: 60 }, 'PATCH')).res.status, 200);
+  assert.equal(downRow.refund_id, null);
   await sleep(500);
   assert.equal((await refundEventsFor(down.paymentIntentId)).length, 0, 'a dismissed protest keeps its fee');
   assert.equal((await O.s.fetch(`/api/protests/${down.id}/decision.pdf`)).status, 404);

@@ -43,6 +43,7 @@ export function EventForm({ event, organisations = [] }: Props) {
       waterTemperatureC: numberOrNull(f.get('waterTemperatureC')) ?? NaN,
       waterDensityKgM3: numberOrNull(f.get('waterDensityKgM3')),
       protestWindowMinutes: numberOrNull(f.get('protestWindowMinutes')) ?? NaN,
+      appealNoticeMinutes: numberOrNull(f.get('appealNoticeMinutes')) ?? NaN,
       currency: f.get('currency'),
       entryFeeMinor: fee('entryFee'),
       protestFeeMinor: fee('protestFee'),
@@ -102,6 +103,7 @@ export function EventForm({ event, organisations = [] }: Props) {
         <TextField name="waterTemperatureC" label="Expected water temperature" unit="°C" inputMode="decimal" defaultValue={event?.waterTemperatureC ?? 15} error={err('waterTemperatureC')} />
         <TextField name="waterDensityKgM3" label="Water density override" unit="kg/m³" inputMode="decimal" hint="Leave empty to use the published table for the water and temperature." defaultValue={event?.waterDensityKgM3 ?? ''} error={err('waterDensityKgM3')} />
         <TextField name="protestWindowMinutes" label="Protest window after provisional results" unit="minutes" inputMode="numeric" defaultValue={event?.protestWindowMinutes ?? 30} error={err('protestWindowMinutes')} />
+        <TextField name="appealNoticeMinutes" label="Notice of appeal after a stewards' decision" unit="minutes" inputMode="numeric" hint="As the governing body's rules set it." defaultValue={event?.appealNoticeMinutes ?? 60} error={err('appealNoticeMinutes')} />
         <div>
           <label htmlFor="currency" className="field-label">Currency</label>
           <select id="currency" name="currency" className="field-input" defaultValue={event?.currency ?? 'NZD'}>

@@ -24,7 +24,7 @@ export default async function StewardQueuePage({ params }: { params: Promise<{ e
         <h1>Protests at {q.event.name}</h1>
         <Link href={`/stewards/${eventId}/audit`} className="btn-secondary">Audit trail</Link>
       </div>
-      <p className="text-ink-soft">Window {q.event.protestWindowMinutes} minutes after the results concerned · fee {q.event.protestFeeMinor > 0 ? formatMoney(q.event.protestFeeMinor, q.event.currency) : 'none'} · times in {q.event.timeZone}</p>
+      <p className="text-ink-soft">Window {q.event.protestWindowMinutes} minutes after the results concerned · notice of appeal {q.event.appealNoticeMinutes} minutes after a decision · fee {q.event.protestFeeMinor > 0 ? formatMoney(q.event.protestFeeMinor, q.event.currency) : 'none'} · times in {q.event.timeZone}</p>
       {q.total === 0 && <p className="card">No protests at this meeting.</p>}
       {q.groups.map((g) => (
         <section key={g.status} aria-labelledby={`group-${g.status}`} className="space-y-2" data-testid={`queue-${g.status}`}>
