@@ -1,6 +1,7 @@
 import 'server-only';
 import { recordAttempt } from '@/lib/auth/throttle';
 import { AppError } from './errors';
+import { getClientAddress } from './client-address';
 
 // Per-client request limit for the public routes, counted in PostgreSQL (lib/auth/throttle.ts) so
 // that it holds across any number of app servers. Fixed one-minute windows.
@@ -36,18 +37,6 @@ export function readLimitPerMinute(bucket: RateLimitBucket): number {
     console.warn(`[boreline] ${env}=${raw} is not a positive integer; using ${defaultPerMinute}`);
   }
   return defaultPerMinute;
-}
-
-/**
- * The client's address: the first x-forwarded-for hop (the client as the load balancer saw it),
- * else x-real-ip, else 'local'. Only trustworthy behind a proxy that overwrites these headers;
- * deployments must put one in front of the app. Capped in length so a forged header cannot
- * bloat the key.
- */
-export function getClientAddress(headers: Headers): string {
-  const forwarded = headers.get('x-forwarded-for')?.split(',')[0]?.trim();
-  const real = headers.get('x-real-ip')?.trim();
-  return (forwarded || real || 'local').toLowerCase().slice(0, 64);
 }
 
 /** Counts this request against the client's bucket; over the limit throws a 429 AppError. */

@@ -235,8 +235,8 @@ test('rate limit: past the per-minute limit a client gets 429 with Retry-After; 
   const limit = Number(process.env.PUBLIC_API_RATE_LIMIT_PER_MINUTE ?? 600);
   const address = clientAddress();
   const body = { readingsMm: [101.93], maxMm: 102, expandedUncertaintyMm: 0.05, rule: 'simple' };
-  // The first x-forwarded-for hop is the client; later hops are proxies.
-  const asClient = { 'x-forwarded-for': `${address}, 10.0.0.7` };
+  // One trusted proxy (TRUSTED_PROXY_HOPS default): the entry it appended, the last, is the client.
+  const asClient = { 'x-forwarded-for': `${address}` };
 
   const first = await post('/api/v1/conformity', body, asClient);
   assert.equal(first.res.status, 200);
@@ -258,6 +258,10 @@ test('rate limit: past the per-minute limit a client gets 429 with Retry-After; 
 
   const openapi = await fetch(`${BASE_URL}/api/v1/openapi.json`, { headers: asClient });
   assert.equal(openapi.status, 429, 'every public route shares the bucket');
+
+  // Forging entries in front of the proxy's own does not buy a fresh bucket.
+  const forged = await post('/api/v1/conformity', body, { 'x-forwarded-for': `${clientAddress()}, ${address}` });
+  assert.equal(forged.res.status, 429, 'a forged first X-Forwarded-For entry is not the client');
 
   const other = await post('/api/v1/conformity', body);
   assert.equal(other.res.status, 200, 'another client is not limited');
