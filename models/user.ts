@@ -9,6 +9,9 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare image: CreationOptional<string | null>;
   declare passwordHash: CreationOptional<string | null>;
   declare isAdmin: CreationOptional<boolean>;
+  declare suspendedAt: CreationOptional<Date | null>;
+  declare suspendedReason: CreationOptional<string | null>;
+  declare suspendedById: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -22,6 +25,9 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         image: { type: DataTypes.STRING },
         passwordHash: { type: DataTypes.STRING },
         isAdmin: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+        suspendedAt: { type: DataTypes.DATE },
+        suspendedReason: { type: DataTypes.TEXT },
+        suspendedById: { type: DataTypes.UUID },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

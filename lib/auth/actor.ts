@@ -19,14 +19,15 @@ export type Actor = {
 };
 
 export async function loadActor(userId: string): Promise<Actor | null> {
-  // One round trip: this runs for every signed-in request.
+  // One round trip: this runs for every signed-in request. A suspended account has no actor, so its
+  // open sessions stop working at once (lib/admin/set-suspension.ts).
   const [row] = await getDb().sequelize.query<{
     id: string; email: string; name: string | null; isAdmin: boolean; staff: { eventId: string; role: Role }[]; organiserOf: string[];
   }>(
     `select u.id, u.email, u.name, u.is_admin as "isAdmin",
             coalesce((select json_agg(json_build_object('eventId', s.event_id, 'role', s.role)) from event_staff s where s.user_id = u.id), '[]') as staff,
             coalesce((select json_agg(m.organisation_id) from organisation_members m where m.user_id = u.id and m.role = 'organiser'), '[]') as "organiserOf"
-       from users u where u.id = :userId`,
+       from users u where u.id = :userId and u.suspended_at is null`,
     { replacements: { userId }, type: QueryTypes.SELECT },
   );
   if (!row) return null;

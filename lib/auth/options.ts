@@ -75,6 +75,14 @@ export function getAuthOptions(): NextAuthOptions {
       }),
     ],
     callbacks: {
+      // Every way in (password, e-mailed link, invitation) ends here: a suspended account is refused,
+      // only after the password (if any) was right, so the answer tells a stranger nothing.
+      async signIn({ user }) {
+        if (!user?.email) return true;
+        const found = await models.User.findOne({ where: { email: user.email.toLowerCase() }, attributes: ['suspendedAt'] });
+        // Absolute: next-auth's client reads the error with new URL(), which needs one.
+        return found?.suspendedAt ? new URL('/sign-in?error=AccountSuspended', process.env.NEXTAUTH_URL ?? 'http://localhost:3000').toString() : true;
+      },
       async jwt({ token, user }) {
         if (user) token.uid = user.id;
         return token;

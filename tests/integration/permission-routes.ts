@@ -109,6 +109,9 @@ export const ROUTES: Row[] = [
   { method: 'POST', file: 'app/api/protests/[protestId]/hearing/route.ts', path: (i) => `/api/protests/${i.protestId}/hearing`, access: { protest: 'decide' } },
   { method: 'POST', file: 'app/api/protests/[protestId]/decision/route.ts', path: (i) => `/api/protests/${i.protestId}/decision`, access: { protest: 'decide' } },
   { method: 'GET', file: 'app/api/protests/[protestId]/decision.pdf/route.ts', path: (i) => `/api/protests/${i.protestId}/decision.pdf`, access: { protest: 'view' } },
+  // Site administration (a missing person: 400 or 404 for the administrator, 403 for everyone else)
+  { method: 'PUT', file: 'app/api/admin/people/[userId]/suspension/route.ts', path: (i) => `/api/admin/people/${i.missingId}/suspension`, access: { anyOf: ['admin.manage_users'] } },
+  { method: 'DELETE', file: 'app/api/admin/people/[userId]/suspension/route.ts', path: (i) => `/api/admin/people/${i.missingId}/suspension`, access: { anyOf: ['admin.manage_users'] } },
   { method: 'GET', file: 'app/api/evidence/[evidenceId]/route.ts', path: (i) => `/api/evidence/${i.evidenceId}`, access: { protest: 'view' } },
 ];
 

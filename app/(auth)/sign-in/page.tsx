@@ -7,6 +7,7 @@ export const metadata: Metadata = { title: 'Sign in' };
 const MESSAGES: Record<string, string> = {
   CredentialsSignin: 'That e-mail and password do not match an account.',
   TooManyAttempts: 'Too many attempts for this account: wait 15 minutes, or sign in with an e-mailed link.',
+  AccountSuspended: 'This account is suspended. Ask the site administrator why, and to lift it.',
   Verification: 'That sign-in link has expired or was already used. Ask for a new one.',
   SessionRequired: 'Sign in to see that page.',
 };

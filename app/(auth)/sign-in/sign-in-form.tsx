@@ -7,6 +7,7 @@ import { useRouter } from 'next/navigation';
 const MESSAGES: Record<string, string> = {
   CredentialsSignin: 'That e-mail and password do not match an account.',
   TooManyAttempts: 'Too many attempts for this account: wait 15 minutes, or sign in with an e-mailed link.',
+  AccountSuspended: 'This account is suspended. Ask the site administrator why, and to lift it.',
 };
 
 export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string; initialError?: string }) {
