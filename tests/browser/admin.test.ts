@@ -25,6 +25,8 @@ test('admin: suspend an account with a reason, the person is refused, then lift 
   await signInWithPassword(page, DEMO.admin, DEMO_PASSWORD);
   await page.getByTestId('main-nav').getByRole('link', { name: 'Administration' }).click();
   await page.waitForURL('**/admin');
+  await page.getByLabel('Find a person').fill('wren halloway');
+  assert.equal(await page.getByTestId('people-count').innerText().then((t) => /^Showing 1 of \d+$/.test(t)), true, 'the search narrows the list to one');
   const row = page.locator(`[data-person="${email}"]`);
   await row.getByRole('button', { name: 'Suspend…' }).click();
   await row.getByRole('button', { name: 'Suspend the account' }).click();
@@ -34,6 +36,9 @@ test('admin: suspend an account with a reason, the person is refused, then lift 
   await row.getByRole('button', { name: 'Suspend the account' }).click();
   await row.getByTestId('suspended').waitFor();
   assert.match(await row.getByTestId('suspended').innerText(), /Login shared with a crew member/);
+  await page.getByLabel('Find a person').fill('');
+  await page.getByLabel('Suspended only').check();
+  assert.ok(await row.isVisible(), 'the suspended account is among the suspended');
   await screenshot(page, 'admin-01-suspended');
 
   // The person's open page: the next navigation finds no session and lands on sign-in.
@@ -46,6 +51,7 @@ test('admin: suspend an account with a reason, the person is refused, then lift 
   assert.match(await person.getByTestId('sign-in-error').innerText(), /suspended/);
   await screenshot(person, 'admin-02-person-refused');
 
+  await page.getByLabel('Suspended only').uncheck();
   await row.getByRole('button', { name: 'Lift suspension' }).click();
   await row.getByRole('button', { name: 'Suspend…' }).waitFor();
   assert.equal(await row.getByTestId('suspended').count(), 0);
