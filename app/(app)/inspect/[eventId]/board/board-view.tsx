@@ -6,6 +6,7 @@ import { usePathname, useRouter, useSearchParams } from 'next/navigation';
 import type { InspectionBoard } from '@/lib/inspections/list-inspection-board';
 import { SafetyNote } from '@/components/safety-note';
 import { VerdictBadge } from '@/components/verdict-badge';
+import { TopFinishersPicker } from './top-finishers-picker';
 
 const REFRESH_MS = 10_000;
 const RESULTS = [
@@ -142,6 +143,10 @@ export function BoardView({ eventId, canAssign, canRecord }: { eventId: string; 
       {canAssign && (
         <section className="card space-y-3" aria-labelledby="request-heading">
           <h2 id="request-heading" className="text-xl">Ask for re-inspection ({chosen.size} chosen)</h2>
+          <TopFinishersPicker eventId={eventId} onPick={(ids, why) => {
+            setChosen((prev) => new Set([...prev, ...ids]));
+            setReason((r) => r || why);
+          }} />
           <label htmlFor="reinspect-reason" className="field-label text-lg">Why (for example “top three, final”)</label>
           <input id="reinspect-reason" className="field-input min-h-touch text-xl" value={reason} onChange={(e) => setReason(e.target.value)} />
           <button type="button" className="btn-primary text-lg" disabled={chosen.size === 0} onClick={() => void requestReinspection()}>Ask for re-inspection</button>
