@@ -11,6 +11,7 @@ import { ParityReport, initParityReports } from './parity-report';
 import { ProvisionalResults, initProvisionalResults } from './provisional-results';
 import { Protest, ProtestEvidence, initProtests } from './protest';
 import { AuditEvent, initAuditEvents } from './audit-event';
+import { CustodyItem, CustodyRelease, initCustody } from './custody';
 
 // Defines every model and association on one Sequelize instance. Tables come from migrations/.
 export function initModels(sequelize: Sequelize) {
@@ -26,6 +27,7 @@ export function initModels(sequelize: Sequelize) {
   initProvisionalResults(sequelize);
   initProtests(sequelize);
   initAuditEvents(sequelize);
+  initCustody(sequelize);
 
   Account.belongsTo(User, { foreignKey: 'userId' });
   Session.belongsTo(User, { foreignKey: 'userId' });
@@ -67,12 +69,14 @@ export function initModels(sequelize: Sequelize) {
   Protest.hasMany(ProtestEvidence, { foreignKey: 'protestId', as: 'evidence' });
   ProtestEvidence.belongsTo(Protest, { foreignKey: 'protestId' });
   AuditEvent.belongsTo(Event, { foreignKey: 'eventId' });
+  CustodyItem.belongsTo(Entry, { foreignKey: 'entryId' });
+  CustodyItem.hasOne(CustodyRelease, { foreignKey: 'itemId', as: 'release' });
 
   return {
     User, Account, Session, VerificationToken, Organisation, OrganisationMember, Event, EventStaff, StaffInvitation,
     RaceClass, ClassRuleVersion, Boat, BoatDocument, BoatTag, Entry, PaymentEvent,
     Instrument, Inspection, InspectionPhoto, Reinspection, ParityReport,
-    ProvisionalResults, Protest, ProtestEvidence, AuditEvent,
+    ProvisionalResults, Protest, ProtestEvidence, AuditEvent, CustodyItem, CustodyRelease,
   };
 }
 
@@ -81,5 +85,5 @@ export {
   User, Account, Session, VerificationToken, Organisation, OrganisationMember, Event, EventStaff, StaffInvitation,
   RaceClass, ClassRuleVersion, Boat, BoatDocument, BoatTag, Entry, PaymentEvent,
   Instrument, Inspection, InspectionPhoto, Reinspection, ParityReport,
-  ProvisionalResults, Protest, ProtestEvidence, AuditEvent,
+  ProvisionalResults, Protest, ProtestEvidence, AuditEvent, CustodyItem, CustodyRelease,
 };

@@ -25,6 +25,10 @@ export const PERMISSIONS = {
   'inspection.record': ['scrutineer', 'chief_scrutineer'],
   'inspection.board': ['scrutineer', 'chief_scrutineer', 'organiser'],
   'inspection.assign_reinspection': ['chief_scrutineer', 'steward'],
+  // Parts held by the officials
+  'custody.take': ['scrutineer', 'chief_scrutineer', 'steward'],
+  'custody.release': ['chief_scrutineer', 'steward'],
+  'custody.view': ['scrutineer', 'chief_scrutineer', 'steward', 'organiser'],
   // Protests
   'protest.decide': ['steward'],
   'protest.view_all': ['steward', 'organiser'],

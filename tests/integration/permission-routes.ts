@@ -89,6 +89,10 @@ export const ROUTES: Row[] = [
   { method: 'GET', file: `${E}/race-numbers/[raceNumber]/route.ts`, path: (i) => `${ev(i)}/race-numbers/${i.raceNumber}`, access: { anyOf: ['inspection.record'] } },
   { method: 'POST', file: `${E}/reinspections/route.ts`, path: (i) => `${ev(i)}/reinspections`, access: { anyOf: ['inspection.assign_reinspection'] } },
   { method: 'GET', file: `${E}/reinspections/route.ts`, path: (i) => `${ev(i)}/reinspections`, access: { anyOf: ['inspection.board', 'inspection.assign_reinspection'] } },
+  // Parts held by the officials
+  { method: 'GET', file: `${E}/custody/route.ts`, path: (i) => `${ev(i)}/custody`, access: { anyOf: ['custody.view'] } },
+  { method: 'POST', file: `${E}/custody/route.ts`, path: (i) => `${ev(i)}/custody`, access: { anyOf: ['custody.take'] } },
+  { method: 'POST', file: `${E}/custody/[itemId]/release/route.ts`, path: (i) => `${ev(i)}/custody/${i.missingId}/release`, access: { anyOf: ['custody.release'] } },
   // Results, protests and the audit trail
   { method: 'GET', file: `${E}/results/route.ts`, path: (i) => `${ev(i)}/results`, access: 'signed-in' },
   { method: 'POST', file: `${E}/results/route.ts`, path: (i) => `${ev(i)}/results`, access: { anyOf: ['results.publish'] } },

@@ -1,6 +1,7 @@
 // The one permission table: each role's allowed and denied permissions, written out here by
 // hand from the product's role descriptions (common practice at race meetings, no single source:
-// scrutineers inspect, stewards decide protests, organisers run the meeting and publish).
+// scrutineers inspect, stewards decide protests, organisers run the meeting and publish; parts taken
+// into custody at the dock are released by the chief scrutineer or the stewards).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { PERMISSIONS, ROLES, permissionsOf, roleCan, rolesCan, type Permission, type Role } from '../../lib/auth/permissions';
@@ -8,12 +9,12 @@ import { navFor } from '../../lib/navigation';
 
 const EXPECTED: Record<Role, Permission[]> = {
   entrant: ['account.view', 'boat.manage_own', 'entry.submit_own', 'protest.lodge'],
-  scrutineer: ['account.view', 'inspection.record', 'inspection.board'],
-  chief_scrutineer: ['account.view', 'entry.view_all', 'tags.print', 'inspection.record', 'inspection.board', 'inspection.assign_reinspection'],
-  steward: ['account.view', 'entry.view_all', 'inspection.assign_reinspection', 'protest.decide', 'protest.view_all', 'audit.read'],
+  scrutineer: ['account.view', 'inspection.record', 'inspection.board', 'custody.take', 'custody.view'],
+  chief_scrutineer: ['account.view', 'entry.view_all', 'tags.print', 'inspection.record', 'inspection.board', 'inspection.assign_reinspection', 'custody.take', 'custody.release', 'custody.view'],
+  steward: ['account.view', 'entry.view_all', 'inspection.assign_reinspection', 'protest.decide', 'protest.view_all', 'audit.read', 'custody.take', 'custody.release', 'custody.view'],
   organiser: [
     'account.view', 'event.create', 'event.edit', 'event.staff_manage', 'class.edit', 'entry.view_all', 'entry.cancel',
-    'tags.print', 'report.publish', 'results.publish', 'inspection.board', 'protest.view_all', 'audit.read', 'dev.outbox',
+    'tags.print', 'report.publish', 'results.publish', 'inspection.board', 'protest.view_all', 'audit.read', 'dev.outbox', 'custody.view',
   ],
   admin: ['account.view', 'event.create', 'admin.manage_users', 'dev.outbox'],
 };

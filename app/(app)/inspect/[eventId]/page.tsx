@@ -31,7 +31,10 @@ export default async function DockPage({ params }: { params: Promise<{ eventId: 
       </nav>
       <div className="flex flex-wrap items-center justify-between gap-3">
         <h1>Dock inspection</h1>
-        <Link href={`/inspect/${eventId}/board`} className="btn-secondary text-lg">Inspection board</Link>
+        <div className="flex flex-wrap gap-2">
+          <Link href={`/inspect/${eventId}/board`} className="btn-secondary text-lg">Inspection board</Link>
+          <Link href={`/inspect/${eventId}/custody`} className="btn-secondary text-lg">Parts in custody</Link>
+        </div>
       </div>
       <DockScreen eventId={eventId} actorId={actor.id} instruments={instruments} />
     </div>

@@ -22,7 +22,10 @@ export default async function StewardQueuePage({ params }: { params: Promise<{ e
       <nav aria-label="Breadcrumb" className="text-sm"><Link href="/stewards">Stewards</Link> / {q.event.name}</nav>
       <div className="flex flex-wrap items-center justify-between gap-3">
         <h1>Protests at {q.event.name}</h1>
-        <Link href={`/stewards/${eventId}/audit`} className="btn-secondary">Audit trail</Link>
+        <div className="flex flex-wrap gap-2">
+          <Link href={`/inspect/${eventId}/custody`} className="btn-secondary">Parts in custody</Link>
+          <Link href={`/stewards/${eventId}/audit`} className="btn-secondary">Audit trail</Link>
+        </div>
       </div>
       <p className="text-ink-soft">Window {q.event.protestWindowMinutes} minutes after the results concerned · notice of appeal {q.event.appealNoticeMinutes} minutes after a decision · fee {q.event.protestFeeMinor > 0 ? formatMoney(q.event.protestFeeMinor, q.event.currency) : 'none'} · times in {q.event.timeZone}</p>
       {q.total === 0 && <p className="card">No protests at this meeting.</p>}

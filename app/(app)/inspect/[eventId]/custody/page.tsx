@@ -1,0 +1,63 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound, redirect } from 'next/navigation';
+import { can, getActor } from '@/lib/auth/actor';
+import { getDb } from '@/lib/db';
+import { parseId } from '@/lib/http/ids';
+import { listCustody } from '@/lib/custody/manage-custody';
+import { formatInZone } from '@/lib/protests/protest-window';
+import { PROTEST_STATUS_LABELS, OPEN_STATUSES, type ProtestStatus } from '@/lib/protests/protest-states';
+import { SafetyNote } from '@/components/safety-note';
+import { ReleaseForm, TakeIntoCustodyForm } from './custody-forms';
+
+export const metadata: Metadata = { title: 'Parts in custody' };
+export const dynamic = 'force-dynamic';
+
+// Parts the officials hold at the meeting: taken at the dock, released once nothing is pending.
+export default async function CustodyPage({ params }: { params: Promise<{ eventId: string }> }) {
+  const actor = await getActor();
+  if (!actor) redirect('/sign-in');
+  let eventId: string;
+  try { eventId = parseId((await params).eventId); } catch { notFound(); }
+  if (!can(actor, 'custody.view', { eventId })) redirect('/not-allowed');
+  const { models } = getDb();
+  const event = await models.Event.findByPk(eventId, { attributes: ['id', 'name', 'timeZone'] });
+  if (!event) notFound();
+  const items = await listCustody(actor, eventId);
+  const canTake = can(actor, 'custody.take', { eventId });
+  const canRelease = can(actor, 'custody.release', { eventId });
+  // Stewards and organisers see the meeting's open protests, so they can say which one a part is kept for.
+  const protests = can(actor, 'protest.view_all', { eventId })
+    ? (await models.Protest.findAll({ where: { eventId, status: [...OPEN_STATUSES] }, attributes: ['id', 'ruleReference', 'status'], order: [['createdAt', 'ASC']] }))
+      .map((p) => ({ id: p.id, label: `${p.ruleReference} (${PROTEST_STATUS_LABELS[p.status as ProtestStatus].toLowerCase()})` }))
+    : [];
+  const held = items.filter((i) => !i.release);
+  return (
+    <div className="space-y-5 text-lg">
+      <nav aria-label="Breadcrumb" className="text-lg"><Link href="/inspect">Inspect</Link> / {event.name} / Parts in custody</nav>
+      <h1>Parts in custody</h1>
+      <p className="text-ink-soft">Parts removed from boats and held by the officials, usually in a sealed bag, until nothing is pending. Records are never edited: a release is a second record.</p>
+      {canTake && <TakeIntoCustodyForm eventId={eventId} protests={protests} />}
+      <section aria-labelledby="held-heading" className="space-y-3">
+        <h2 id="held-heading" className="text-xl">Held now ({held.length})</h2>
+        {items.length === 0 && <p className="card text-ink-soft">No parts have been taken into custody at this meeting.</p>}
+        <ul className="space-y-3" data-testid="custody-list">
+          {items.map((i) => (
+            <li key={i.id} className={`card space-y-1 ${i.release ? 'opacity-80' : ''}`} data-item={i.id} data-held={i.release ? 'no' : 'yes'}>
+              <p className="font-bold"><span className="figure">no. {i.raceNumber}</span> {i.boatName} · {i.classCode}</p>
+              <p>{i.description}{i.sealNumber && <> · seal/bag <span className="figure">{i.sealNumber}</span></>}</p>
+              <p className="text-base text-ink-soft">Taken by {i.takenBy}, {formatInZone(i.takenAt, event.timeZone)}</p>
+              {i.protest && <p className="text-base">Kept for the protest under {i.protest.ruleReference} ({PROTEST_STATUS_LABELS[i.protest.status as ProtestStatus].toLowerCase()})</p>}
+              {i.release ? (
+                <p className="rounded-lg bg-paper-deep px-3 py-2 text-base" data-testid="released">
+                  Released to {i.release.releasedTo} by {i.release.releasedBy}, {formatInZone(i.release.releasedAt, event.timeZone)}{i.release.note && `: ${i.release.note}`}
+                </p>
+              ) : canRelease && <ReleaseForm eventId={eventId} itemId={i.id} pendingProtest={Boolean(i.protest && OPEN_STATUSES.includes(i.protest.status as ProtestStatus))} />}
+            </li>
+          ))}
+        </ul>
+      </section>
+      <SafetyNote />
+    </div>
+  );
+}

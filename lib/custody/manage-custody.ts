@@ -1,0 +1,65 @@
+import 'server-only';
+import { UniqueConstraintError } from 'sequelize';
+import { getDb } from '@/lib/db';
+import { assertCan, type Actor } from '@/lib/auth/actor';
+import { AppError } from '@/lib/http/errors';
+import { parseId } from '@/lib/http/ids';
+import { OPEN_STATUSES, type ProtestStatus } from '@/lib/protests/protest-states';
+import { ReleaseFromCustodyInput, TakeIntoCustodyInput } from '@/lib/validations/custody';
+import { loadCustodyViews, type CustodyItemView } from './custody-view';
+
+const fieldError = (field: string, message: string, status = 400) => new AppError('invalid_input', status, `${field}: ${message}`, [{ field, message }]);
+
+/** The meeting's parts in custody (held first), for the officials who work with them. */
+export async function listCustody(actor: Actor | null, eventId: string): Promise<CustodyItemView[]> {
+  assertCan(actor, 'custody.view', { eventId });
+  return loadCustodyViews({ eventId });
+}
+
+/**
+ * A scrutineer (or steward) takes a part into custody: which boat, what it is, the seal or bag
+ * number, and the protest it is kept for, if any. Append-only: a wrong record is released with a note.
+ */
+export async function takeIntoCustody(actor: Actor | null, eventId: string, raw: unknown): Promise<CustodyItemView> {
+  assertCan(actor, 'custody.take', { eventId });
+  const input = TakeIntoCustodyInput.parse(raw);
+  const { models } = getDb();
+  const entry = await models.Entry.findOne({ where: { eventId, raceNumber: input.raceNumber }, attributes: ['id', 'status'] });
+  if (!entry) throw fieldError('raceNumber', `No boat has race number ${input.raceNumber} at this meeting.`);
+  if (input.protestId) {
+    const protest = await models.Protest.findOne({ where: { id: input.protestId, eventId }, attributes: ['id'] });
+    if (!protest) throw fieldError('protestId', 'Choose a protest of this meeting.');
+  }
+  const item = await models.CustodyItem.create({
+    eventId, entryId: entry.id, protestId: input.protestId, description: input.description, sealNumber: input.sealNumber, takenById: actor.id,
+  });
+  return (await loadCustodyViews({ eventId, itemId: item.id }))[0];
+}
+
+/**
+ * The chief scrutineer or a steward releases a part, to whom and why. Refused while a protest it
+ * is kept for is still open (parts are held pending protests: common practice), and only once.
+ */
+export async function releaseFromCustody(actor: Actor | null, eventId: string, itemId: string, raw: unknown): Promise<CustodyItemView> {
+  assertCan(actor, 'custody.release', { eventId });
+  const id = parseId(itemId, 'item');
+  const input = ReleaseFromCustodyInput.parse(raw);
+  const { models, sequelize } = getDb();
+  return sequelize.transaction(async (transaction) => {
+    const item = await models.CustodyItem.findOne({ where: { id, eventId }, transaction, lock: transaction.LOCK.UPDATE });
+    if (!item) throw new AppError('not_found', 404, 'No such item in custody.');
+    if (item.protestId) {
+      const protest = await models.Protest.findByPk(item.protestId, { attributes: ['status', 'ruleReference'], transaction });
+      if (protest && OPEN_STATUSES.includes(protest.status as ProtestStatus)) {
+        throw new AppError('protest_pending', 409, `This part is kept for the protest under ${protest.ruleReference}, which is not decided yet.`);
+      }
+    }
+    try {
+      await models.CustodyRelease.create({ itemId: item.id, releasedById: actor.id, releasedTo: input.releasedTo, note: input.note }, { transaction });
+    } catch (err) {
+      if (err instanceof UniqueConstraintError) throw new AppError('already_released', 409, 'This part has already been released.');
+      throw err;
+    }
+    return (await loadCustodyViews({ eventId, itemId: item.id, transaction }))[0];
+  });
+}

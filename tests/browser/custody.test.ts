@@ -1,0 +1,59 @@
+// Journey on a phone: at the dock the scrutineer opens "Parts in custody", types a race number that
+// does not exist (refused beside the field), then bags an impeller; the steward, on another phone,
+// releases it to the crew with a note, and the list shows who had it and when.
+import { test, before, after } from 'node:test';
+import assert from 'node:assert/strict';
+import type { Browser } from 'playwright-core';
+import { launchBrowser, newContext, screenshot, signInWithPassword, PHONE } from '../support/browser';
+import { DEMO, DEMO_PASSWORD } from '../support/env';
+import { InspectionMeeting, rulesWith } from '../support/inspection-meeting';
+
+let browser: Browser;
+before(async () => { browser = await launchBrowser(); });
+after(async () => { await browser?.close(); });
+
+test('custody: scrutineer bags a part at the dock, steward releases it', async () => {
+  const meeting = new InspectionMeeting();
+  await meeting.create(`Custody Journey ${Date.now()}`, [{ email: DEMO.scrutineer, role: 'scrutineer' }, { email: DEMO.steward, role: 'steward' }]);
+  const entry = await meeting.addEntry(await meeting.addClass('CJ', rulesWith()));
+
+  const dock = await newContext(browser, PHONE);
+  const page = await dock.newPage();
+  await signInWithPassword(page, DEMO.scrutineer, DEMO_PASSWORD);
+  await page.goto(`/inspect/${meeting.eventId}`);
+  await page.getByRole('link', { name: 'Parts in custody' }).click();
+  await page.waitForURL('**/custody');
+  await page.getByLabel('Race number').fill('9999');
+  await page.getByLabel('Part', { exact: true }).fill('Impeller, bent leading edge');
+  await page.getByRole('button', { name: 'Take into custody' }).click();
+  await page.locator('[data-field-error="raceNumber"]').waitFor();
+  assert.match(await page.locator('[data-field-error="raceNumber"]').innerText(), /No boat has race number 9999/);
+  await page.getByLabel('Race number').fill(String(entry.raceNumber));
+  await page.getByLabel('Part', { exact: true }).fill('Impeller, bent leading edge');
+  await page.getByLabel('Seal or bag number').fill('BAG-0520');
+  await page.getByRole('button', { name: 'Take into custody' }).click();
+  const item = page.locator('[data-held="yes"]').first();
+  await item.waitFor();
+  assert.match(await item.innerText(), new RegExp(`no\\. ${entry.raceNumber}[\\s\\S]*Impeller, bent leading edge · seal/bag BAG-0520`));
+  assert.equal(await item.getByRole('button', { name: 'Release…' }).count(), 0, 'a scrutineer cannot release');
+  assert.match(await page.getByRole('note').innerText(), /licensed officials/);
+  await screenshot(page, 'custody-01-taken');
+  await dock.close();
+
+  const office = await newContext(browser, PHONE);
+  const sp = await office.newPage();
+  await signInWithPassword(sp, DEMO.steward, DEMO_PASSWORD);
+  await sp.goto(`/stewards/${meeting.eventId}`);
+  await sp.getByRole('link', { name: 'Parts in custody' }).click();
+  await sp.waitForURL('**/custody');
+  const held = sp.locator('[data-held="yes"]').first();
+  await held.getByRole('button', { name: 'Release…' }).click();
+  await held.getByLabel('Released to').fill('Crew chief of no. ' + entry.raceNumber);
+  await held.getByLabel('Note').fill('Photographed and measured; nothing pending.');
+  await held.getByRole('button', { name: 'Release the part' }).click();
+  const released = sp.getByTestId('released').first();
+  await released.waitFor();
+  assert.match(await released.innerText(), /Released to Crew chief of no\. \d+ by .*: Photographed and measured; nothing pending\./);
+  await screenshot(sp, 'custody-02-released');
+  await office.close();
+});
