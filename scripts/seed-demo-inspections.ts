@@ -1,6 +1,6 @@
 // Demo scenario (invented), part three: dock inspections of the paid entries in the Kelda Reach
 // SS and GP classes, decided by the product's own decision code against the rules in force, so the
-// inspection board and the parity report have something to show. Run by the start command after the
+// inspection board and the parity report have something to show; and one part in custody. Run by the start command after the
 // sequelize seeders; fixed idempotency keys make running it twice harmless.
 import { createHash } from 'node:crypto';
 import pg from 'pg';
@@ -59,6 +59,16 @@ async function main() {
     }
   }
   console.log(`[seed] demo inspections: ${added} added, ${entries.length - added} already there`);
+  // One part in the officials' custody, so the custody list has something to show.
+  if (entries.length) {
+    const held = await db.query(
+      `insert into custody_items (id, event_id, entry_id, description, seal_number, taken_by_id, taken_at)
+       values ('0b0e0000-0000-4000-8601-000000000001', $1, $2, 'Ride plate, cracked at the rear fixing', 'KR-BAG-01', $3, now() - interval '40 minutes')
+       on conflict (id) do nothing`,
+      [MEETING, entries[0].id, scrutineer.id],
+    );
+    console.log(`[seed] demo custody: ${held.rowCount ? 'one part taken' : 'already there'}`);
+  }
   await db.end();
 }
 

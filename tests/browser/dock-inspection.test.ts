@@ -80,7 +80,7 @@ test('dock: scan a tag from a photo, record, see the verdict; offline two record
   await signInWithPassword(page, DEMO.scrutineer, DEMO_PASSWORD);
   await page.getByTestId('main-nav').getByRole('link', { name: 'Inspect' }).click();
   await page.waitForURL('**/inspect');
-  await page.getByTestId('inspect-meetings').getByRole('link', { name: 'Dock screen' }).first().click();
+  await page.getByTestId('inspect-meetings').locator(`[data-event-id="${DEMO.meetingId}"]`).getByRole('link', { name: 'Dock screen' }).click();
   await page.waitForURL(`**/inspect/${DEMO.meetingId}`);
 
   // The tag's QR code encodes the tag URL as tagUrl() in lib/tags/tokens.ts writes it (that module is

@@ -94,7 +94,8 @@ test('results published → entrant lodges and pays → photo evidence intact �
   const sp = await desk.newPage();
   await signInWithPassword(sp, DEMO.steward, DEMO_PASSWORD);
   await sp.getByTestId('main-nav').getByRole('link', { name: 'Stewards' }).click();
-  await sp.getByRole('link', { name: 'Protests', exact: true }).first().click();
+  // The steward may sit at several meetings (other tests add some): open the demo meeting's queue.
+  await sp.locator(`[data-event-id="${DEMO.meetingId}"]`).getByRole('link', { name: 'Protests', exact: true }).click();
   await sp.getByTestId('queue-lodged').locator(`[data-protest-id="${protestId}"]`).getByRole('link').click();
   await sp.waitForURL(`**/stewards/${DEMO.meetingId}/protests/${protestId}`);
   assert.match(await sp.getByRole('note').first().innerText(), /licensed officials/);

@@ -106,7 +106,10 @@ test('odd path parameters never reach a 5xx, with or without a body', async () =
       // A body (with its Content-Length) takes another way through Next than a bare GET does.
       const init: RequestInit = r.method === 'GET' ? {} : { method: r.method, headers: { 'content-type': 'application/json' }, body: '{}' };
       const res = await organiser.fetch(path, init);
-      checkErrorShape(res.status, await res.text(), `${r.method} ${path}`);
+      const text = await res.text();
+      // Node's HTTP parser refuses a request head over 16 KB with 431 before the app sees it.
+      if (res.status === 431) return assert.ok(path.length > 8000, `431 for a ${path.length}-character path`);
+      checkErrorShape(res.status, text, `${r.method} ${path}`);
       if (r.method !== 'GET' && res.status >= 400) assert.equal(await fingerprint(), before, `${r.method} ${path} changed the database while refusing`);
     }),
     { numRuns: 300, seed: 42 },

@@ -21,7 +21,7 @@ export default async function InspectPage() {
       ) : (
         <ul className="grid gap-3 sm:grid-cols-2" data-testid="inspect-meetings">
           {meetings.map((m) => (
-            <li key={m.id} className="card space-y-3">
+            <li key={m.id} className="card space-y-3" data-event-id={m.id}>
               <h2 className="text-xl">{m.name}</h2>
               <p className="text-ink-soft">{m.venue} · {format(parseISO(m.startsOn), 'd MMM yyyy')}–{format(parseISO(m.endsOn), 'd MMM yyyy')}</p>
               <div className="flex flex-wrap gap-3">

@@ -18,7 +18,7 @@ export default async function StewardsPage() {
       {events.length === 0 ? <p className="card">You are not a steward or organiser at any meeting.</p> : (
         <ul className="space-y-3">
           {events.map((e) => (
-            <li key={e.id} className="card flex flex-wrap items-center justify-between gap-3">
+            <li key={e.id} className="card flex flex-wrap items-center justify-between gap-3" data-event-id={e.id}>
               <div><h2 className="text-xl">{e.name}</h2><p className="text-ink-soft">{e.venue} · {e.startsOn}</p></div>
               <div className="flex flex-wrap gap-2">
                 <Link href={`/stewards/${e.id}`} className="btn-primary">Protests</Link>
