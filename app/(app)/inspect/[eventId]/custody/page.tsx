@@ -34,7 +34,11 @@ export default async function CustodyPage({ params }: { params: Promise<{ eventI
   const held = items.filter((i) => !i.release);
   return (
     <div className="space-y-5 text-lg">
-      <nav aria-label="Breadcrumb" className="text-lg"><Link href="/inspect">Inspect</Link> / {event.name} / Parts in custody</nav>
+      <nav aria-label="Breadcrumb" className="text-lg">
+        {can(actor, 'inspection.board', { eventId }) || can(actor, 'inspection.record', { eventId })
+          ? <><Link href="/inspect">Inspect</Link> / <Link href={`/inspect/${eventId}/board`}>{event.name}</Link></>
+          : <><Link href="/stewards">Stewards</Link> / <Link href={`/stewards/${eventId}`}>{event.name}</Link></>} / Parts in custody
+      </nav>
       <h1>Parts in custody</h1>
       <p className="text-ink-soft">Parts removed from boats and held by the officials, usually in a sealed bag, until nothing is pending. Records are never edited: a release is a second record.</p>
       {canTake && <TakeIntoCustodyForm eventId={eventId} protests={protests} />}

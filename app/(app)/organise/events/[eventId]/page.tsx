@@ -36,6 +36,7 @@ export default async function EventPage({ params }: { params: Promise<{ eventId:
           <Link href={`/inspect/${event.id}/board`} className="btn-secondary">Inspection board</Link>
           <Link href={`/organise/events/${event.id}/results`} className="btn-secondary">Provisional results</Link>
           <Link href={`/stewards/${event.id}/audit`} className="btn-secondary">Audit trail</Link>
+          <Link href={`/inspect/${event.id}/custody`} className="btn-secondary">Parts in custody</Link>
           <a href={`/api/events/${event.id}/tag-sheet?sheet=a4-2x7`} className="btn-secondary">Tag sheet (A4)</a>
           <a href={`/api/events/${event.id}/tag-sheet?sheet=letter-2x5`} className="btn-secondary">Tag sheet (Letter)</a>
         </div>
