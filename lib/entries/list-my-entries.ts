@@ -10,6 +10,7 @@ export type MyEntry = {
   eventId: string;
   eventName: string;
   venue: string;
+  timeZone: string;
   startsOn: string;
   classId: string;
   classCode: string;
@@ -27,9 +28,12 @@ export type MyEntry = {
   refundedAt: string | null;
   cancelledReason: string | null;
   createdAt: string;
+  /** Parts of this boat the officials hold now (taken into custody, not yet released). */
+  partsHeld: { description: string; sealNumber: string | null; takenAt: string }[];
 };
 
-type Row = Omit<MyEntry, 'statusLabel' | 'startsOn' | 'paidAt' | 'refundedAt' | 'createdAt'> & {
+type Row = Omit<MyEntry, 'statusLabel' | 'startsOn' | 'paidAt' | 'refundedAt' | 'createdAt' | 'partsHeld'> & {
+  partsHeld: { description: string; sealNumber: string | null; takenAt: string }[] | null;
   startsOn: string | Date;
   paidAt: Date | null;
   refundedAt: Date | null;
@@ -45,11 +49,13 @@ export function entryStatusLabel(status: EntryStatus, inspectionResult: Inspecti
 export async function listMyEntries(actor: Actor | null, opts: { entryId?: string } = {}): Promise<MyEntry[]> {
   assertCan(actor, 'entry.submit_own');
   const rows = await getDb().sequelize.query<Row>(
-    `select e.id, e.event_id as "eventId", ev.name as "eventName", ev.venue, ev.starts_on as "startsOn",
+    `select e.id, e.event_id as "eventId", ev.name as "eventName", ev.venue, ev.time_zone as "timeZone", ev.starts_on as "startsOn",
             c.id as "classId", c.code as "classCode", c.name as "className", b.id as "boatId", b.name as "boatName",
             e.race_number as "raceNumber", e.status, e.inspection_result as "inspectionResult",
             e.fee_minor as "feeMinor", e.currency, e.paid_at as "paidAt", e.refunded_at as "refundedAt",
-            e.cancelled_reason as "cancelledReason", e.created_at as "createdAt"
+            e.cancelled_reason as "cancelledReason", e.created_at as "createdAt",
+            (select json_agg(json_build_object('description', ci.description, 'sealNumber', ci.seal_number, 'takenAt', ci.taken_at) order by ci.taken_at)
+               from custody_items ci where ci.entry_id = e.id and not exists (select 1 from custody_releases cr where cr.item_id = ci.id)) as "partsHeld"
        from entries e
        join events ev on ev.id = e.event_id
        join race_classes c on c.id = e.class_id
@@ -65,5 +71,6 @@ export async function listMyEntries(actor: Actor | null, opts: { entryId?: strin
     paidAt: r.paidAt ? new Date(r.paidAt).toISOString() : null,
     refundedAt: r.refundedAt ? new Date(r.refundedAt).toISOString() : null,
     createdAt: new Date(r.createdAt).toISOString(),
+    partsHeld: r.partsHeld ?? [],
   }));
 }

@@ -1,6 +1,7 @@
 // Journey on a phone: at the dock the scrutineer opens "Parts in custody", types a race number that
 // does not exist (refused beside the field), then bags an impeller; the steward, on another phone,
-// releases it to the crew with a note, and the list shows who had it and when.
+// releases it to the crew with a note, and the list shows who had it and when. The entrant sees the
+// part as held on My entries until it is released.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import type { Browser } from 'playwright-core';
@@ -40,6 +41,15 @@ test('custody: scrutineer bags a part at the dock, steward releases it', async (
   await screenshot(page, 'custody-01-taken');
   await dock.close();
 
+  // The entrant sees on My entries that the part is held, and by whom to ask.
+  const pits = await newContext(browser, PHONE);
+  const ep = await pits.newPage();
+  await signInWithPassword(ep, DEMO.entrant, DEMO_PASSWORD);
+  await ep.goto('/entries');
+  const held0 = ep.locator(`[data-entry-id="${entry.id}"]`).getByTestId('parts-held');
+  assert.match(await held0.innerText(), /Impeller, bent leading edge \(seal\/bag BAG-0520\), since .*\(Pacific\/Auckland\)/);
+  await screenshot(ep, 'custody-02-entrant-sees');
+
   const office = await newContext(browser, PHONE);
   const sp = await office.newPage();
   await signInWithPassword(sp, DEMO.steward, DEMO_PASSWORD);
@@ -54,6 +64,9 @@ test('custody: scrutineer bags a part at the dock, steward releases it', async (
   const released = sp.getByTestId('released').first();
   await released.waitFor();
   assert.match(await released.innerText(), /Released to Crew chief of no\. \d+ by .*: Photographed and measured; nothing pending\./);
-  await screenshot(sp, 'custody-02-released');
+  await screenshot(sp, 'custody-03-released');
   await office.close();
+  await ep.reload();
+  assert.equal(await ep.locator(`[data-entry-id="${entry.id}"]`).getByTestId('parts-held').count(), 0, 'released: no longer listed as held');
+  await pits.close();
 });

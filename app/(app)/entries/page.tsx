@@ -9,6 +9,7 @@ import { PayEntryButton } from './pay-entry-button';
 import { WithdrawEntryButton } from './withdraw-entry-button';
 import { PaymentWaiter } from './payment-waiter';
 import { SafetyNote } from '@/components/safety-note';
+import { formatInZone } from '@/lib/protests/protest-window';
 
 export const metadata: Metadata = { title: 'My entries' };
 export const dynamic = 'force-dynamic';
@@ -99,6 +100,15 @@ export default async function MyEntriesPage({ searchParams }: { searchParams: Pr
                 {e.cancelledReason && <><dt className="text-ink-soft">Reason</dt><dd>{e.cancelledReason}</dd></>}
               </dl>
               {e.status === 'entered' && e.inspectionResult && <p className="text-ink-soft" data-testid="result-meaning">{RESULT_MEANING[e.inspectionResult]}</p>}
+              {e.partsHeld.length > 0 && (
+                <div className="rounded-lg border-l-8 border-doubt-600 bg-doubt-100 px-3 py-2 text-doubt-800" data-testid="parts-held">
+                  <p className="font-bold">Held by the officials</p>
+                  <ul className="list-disc pl-5">
+                    {e.partsHeld.map((p, i) => <li key={i}>{p.description}{p.sealNumber ? ` (seal/bag ${p.sealNumber})` : ''}, since {formatInZone(p.takenAt, e.timeZone)}</li>)}
+                  </ul>
+                  <p className="text-sm">Ask the chief scrutineer when it will be released.</p>
+                </div>
+              )}
               {e.status === 'awaiting_payment' && (
                 <div className="flex flex-wrap items-start gap-3 pt-1">
                   <PayEntryButton entryId={e.id} label={e.feeMinor > 0 ? 'Pay entry fee' : 'Confirm the entry'} />
