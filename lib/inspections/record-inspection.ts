@@ -5,7 +5,7 @@ import { after } from 'next/server';
 import { getDb } from '@/lib/db';
 import { assertCan, type Actor } from '@/lib/auth/actor';
 import { AppError } from '@/lib/http/errors';
-import { findRulesInForce } from '@/lib/classes/rule-versions';
+import type { ClassRules } from '@/lib/validations/class-rules';
 import { sendMail } from '@/lib/mail/send';
 import { RecordInspectionInput } from '@/lib/validations/inspections';
 import { decideInspection, VERDICT_WORDS, type InstrumentFigures, type InspectionDecision } from './decide-inspection';
@@ -15,6 +15,8 @@ type EntryRow = {
   id: string; entrantId: string; raceNumber: number; status: string; classId: string; boatId: string; ownerId: string;
   boatName: string; boatDeclaredKw: number; boatPowerEvidence: string; className: string; eventName: string;
   entrantEmail: string; entrantName: string | null;
+  /** The class's published rule versions, newest first; effectiveFromMs rounded up to the millisecond. */
+  publishedVersions: { id: string; version: number; effectiveFromMs: number; rules: ClassRules }[] | null;
 };
 
 const fieldError = (field: string, message: string, status = 400) => new AppError('invalid_input', status, `${field}: ${message}`, [{ field, message }]);
@@ -70,7 +72,11 @@ export async function recordInspection(actor: Actor | null, eventId: string, raw
       `select e.id, e.entrant_id as "entrantId", e.race_number as "raceNumber", e.status, e.class_id as "classId", e.boat_id as "boatId",
               b.owner_id as "ownerId", b.name as "boatName", b.declared_power_kw as "boatDeclaredKw", b.power_evidence as "boatPowerEvidence",
               c.name as "className", ev.name as "eventName", u.email as "entrantEmail", u.name as "entrantName",
-              (select i.event_id from inspections i where i.idempotency_key = :key) as "keyEventId"
+              (select i.event_id from inspections i where i.idempotency_key = :key) as "keyEventId",
+              (select json_agg(json_build_object('id', v.id, 'version', v.version, 'rules', v.rules,
+                                                 'effectiveFromMs', ceil(extract(epoch from v.effective_from) * 1000))
+                               order by v.effective_from desc, v.version desc)
+                 from class_rule_versions v where v.class_id = e.class_id and v.status = 'published' and v.effective_from is not null) as "publishedVersions"
          from entries e join boats b on b.id = e.boat_id join race_classes c on c.id = e.class_id join events ev on ev.id = e.event_id
               join users u on u.id = e.entrant_id
         where e.id = :entryId and e.event_id = :eventId`,
@@ -108,7 +114,9 @@ export async function recordInspection(actor: Actor | null, eventId: string, raw
     const task = await models.Reinspection.findOne({ where: { id: input.reinspectionId, eventId, entryId: entry.id } });
     if (!task) throw fieldError('reinspectionId', 'This re-inspection task is not for this entry.');
   }
-  const ruleVersion = await findRulesInForce(entry.classId, measuredAt);
+  // The version in force when the boat was measured (as findRulesInForce picks it), from the versions
+  // that came with the entry: one query fewer per record. Published versions are frozen.
+  const ruleVersion = (entry.publishedVersions ?? []).find((v) => v.effectiveFromMs <= measuredAt.getTime()) ?? null;
   if (!ruleVersion) {
     throw new AppError('no_rules_in_force', 409, `No published rules of ${entry.className} were in force at ${measuredAt.toISOString()}: the organiser must publish the class rules before boats are inspected.`);
   }

@@ -178,6 +178,28 @@ test('an entrant who is also a scrutineer here cannot record for their own boat,
   assert.equal((await post(person, inspectionBody(entry.id, 101.9))).res.status, 201, 'another boat is fine');
 });
 
+test('a record is decided under the rule version in force when it was captured, not the newest', async () => {
+  // Decision rules are fixed before measuring (ISO/IEC 17025:2017, 7.1.3): v1 caps the nozzle at
+  // 102.00 mm; v2, in force from an hour ago, at 101.00 mm. Readings up to 101.93 mm with U 0.05 mm:
+  // conformity proven under v1, non-conformity proven under v2 (ISO 14253-1:2017).
+  const cls = await meeting.addClass('VER', rulesWith());
+  const o = meeting.organiser;
+  const draft = await o.json(`/api/events/${meeting.eventId}/classes/${cls}/rules`, { powerUnit: 'kW', rules: rulesWith({ nozzle: { maxMm: 101, minMm: null, minReadings: 3, defaultUncertaintyMm: 0.05 } }) }, 'PUT');
+  assert.equal(draft.res.status, 200, JSON.stringify(draft.body));
+  const v2 = await o.json(`/api/events/${meeting.eventId}/classes/${cls}/rules/publish`, { changeNote: 'smaller nozzle', effectiveFrom: new Date(Date.now() - 3_600_000).toISOString() });
+  assert.equal(v2.res.status, 201, JSON.stringify(v2.body));
+  const e = await meeting.addEntry(cls);
+  const earlier = await post(scrutineer, inspectionBody(e.id, 101.93, { capturedAt: new Date(Date.now() - 2 * 3_600_000).toISOString() }));
+  assert.equal(earlier.res.status, 201, JSON.stringify(earlier.body));
+  assert.equal(earlier.body.data.ruleVersion, 1);
+  assert.equal(earlier.body.data.overallResult, 'conforms');
+  const now = await post(scrutineer, inspectionBody(e.id, 101.93));
+  assert.equal(now.body.data.ruleVersion, 2);
+  assert.equal(now.body.data.overallResult, 'does_not_conform');
+  const stored = await query<{ v: number }>('select v.version as v from inspections i join class_rule_versions v on v.id = i.rule_version_id where i.id = any($1) order by i.captured_at', [[earlier.body.data.id, now.body.data.id]]);
+  assert.deepEqual(stored.map((r) => r.v), [1, 2]);
+});
+
 test('no rules in force at the time of capture: 409 with a clear message, nothing stored', async () => {
   const drafted = await meeting.addClass('DRF', rulesWith(), { publish: false });
   const e = await meeting.addEntry(drafted);
