@@ -17,7 +17,7 @@ type Row = {
 };
 
 /** Items of a meeting (or one item), held first, then released, newest first within each. */
-export async function loadCustodyViews(opts: { eventId: string; itemId?: string; transaction?: Transaction }): Promise<CustodyItemView[]> {
+export async function loadCustodyViews(opts: { eventId: string; itemId?: string; protestId?: string; transaction?: Transaction }): Promise<CustodyItemView[]> {
   const rows = await getDb().sequelize.query<Row>(
     `select i.id, i.entry_id as "entryId", e.race_number as "raceNumber", b.name as "boatName", c.code as "classCode",
             i.description, i.seal_number as "sealNumber", coalesce(tu.name, tu.email) as "takenBy", i.taken_at as "takenAt",
@@ -28,9 +28,9 @@ export async function loadCustodyViews(opts: { eventId: string; itemId?: string;
        join users tu on tu.id = i.taken_by_id
        left join protests p on p.id = i.protest_id
        left join custody_releases r on r.item_id = i.id left join users ru on ru.id = r.released_by_id
-      where i.event_id = :eventId ${opts.itemId ? 'and i.id = :itemId' : ''}
+      where i.event_id = :eventId ${opts.itemId ? 'and i.id = :itemId' : ''} ${opts.protestId ? 'and i.protest_id = :protestId' : ''}
       order by r.id is not null, i.taken_at desc`,
-    { replacements: { eventId: opts.eventId, itemId: opts.itemId ?? null }, type: QueryTypes.SELECT, transaction: opts.transaction },
+    { replacements: { eventId: opts.eventId, itemId: opts.itemId ?? null, protestId: opts.protestId ?? null }, type: QueryTypes.SELECT, transaction: opts.transaction },
   );
   return rows.map((r) => ({
     id: r.id, entryId: r.entryId, raceNumber: r.raceNumber, boatName: r.boatName, classCode: r.classCode, description: r.description,

@@ -16,6 +16,12 @@ export async function listCustody(actor: Actor | null, eventId: string): Promise
   return loadCustodyViews({ eventId });
 }
 
+/** Parts kept for one protest, for the meeting's officials who hear it. */
+export async function listCustodyForProtest(actor: Actor | null, eventId: string, protestId: string): Promise<CustodyItemView[]> {
+  assertCan(actor, 'custody.view', { eventId });
+  return loadCustodyViews({ eventId, protestId: parseId(protestId, 'protest') });
+}
+
 /**
  * A scrutineer (or steward) takes a part into custody: which boat, what it is, the seal or bag
  * number, and the protest it is kept for, if any. Append-only: a wrong record is released with a note.

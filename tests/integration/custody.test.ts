@@ -55,6 +55,9 @@ test('take, refuse, release once; held pending an open protest; append-only', as
   const kept = await steward.json(url(), { raceNumber: entry.raceNumber, description: 'Nozzle insert', sealNumber: 'BAG-0413', protestId });
   assert.equal(kept.res.status, 201, JSON.stringify(kept.body));
   assert.equal(kept.body.data.protest.id, protestId);
+  const protestPage = (await (await steward.fetch(`/stewards/${meeting.eventId}/protests/${protestId}`)).text()).replace(/<!-- -->/g, '');
+  assert.match(protestPage, /Parts kept for this protest/);
+  assert.match(protestPage, /Nozzle insert \(seal\/bag BAG-0413\)/, 'the stewards see the part on the protest');
   const early = await steward.json(`${url()}/${kept.body.data.id}/release`, { releasedTo: 'the entrant' });
   assert.equal(early.res.status, 409);
   assert.equal(early.body.error.code, 'protest_pending');

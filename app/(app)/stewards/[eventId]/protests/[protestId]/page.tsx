@@ -10,6 +10,8 @@ import { EvidenceList } from '../../../../protests/evidence-list';
 import { ProtestFacts } from '../../../../protests/protest-facts';
 import { EvidenceForm } from '../../../../protests/[protestId]/evidence-form';
 import { StewardActions } from './steward-actions';
+import { listCustodyForProtest } from '@/lib/custody/manage-custody';
+import { formatInZone } from '@/lib/protests/protest-window';
 
 export const metadata: Metadata = { title: 'Protest (stewards)' };
 export const dynamic = 'force-dynamic';
@@ -26,6 +28,7 @@ export default async function StewardProtestPage({ params }: { params: Promise<{
     throw err;
   });
   if (p.eventId !== eventId) notFound();
+  const parts = can(actor, 'custody.view', { eventId }) ? await listCustodyForProtest(actor, eventId, p.id) : [];
   return (
     <div className="space-y-6">
       <nav aria-label="Breadcrumb" className="text-sm"><Link href="/stewards">Stewards</Link> / <Link href={`/stewards/${eventId}`}>{p.eventName}</Link> / {p.targetLabel}</nav>
@@ -47,6 +50,19 @@ export default async function StewardProtestPage({ params }: { params: Promise<{
           <ul data-testid="reinspections">
             {p.reinspections.map((t) => (
               <li key={t.id} data-reinspection-id={t.id}>{t.reason} — {t.inspectionId ? `recorded (inspection ${t.inspectionId.slice(0, 8)}: ${t.verdict?.replace(/_/g, ' ') ?? '—'})` : 'waiting for the scrutineers'}</li>
+            ))}
+          </ul>
+        )}
+      </section>
+      <section aria-labelledby="custody" className="card space-y-2">
+        <h2 id="custody">Parts kept for this protest</h2>
+        {parts.length === 0 ? <p>None. Parts are taken into custody on the <Link href={`/inspect/${eventId}/custody`}>custody page</Link>.</p> : (
+          <ul className="space-y-1" data-testid="protest-custody">
+            {parts.map((i) => (
+              <li key={i.id}>
+                {i.description}{i.sealNumber && ` (seal/bag ${i.sealNumber})`}, no. {i.raceNumber}, taken by {i.takenBy} {formatInZone(i.takenAt, p.timeZone)}
+                {i.release ? ` — released to ${i.release.releasedTo}` : ' — held'}
+              </li>
             ))}
           </ul>
         )}
