@@ -24,6 +24,8 @@ export type BoatCard = {
   inspections: InspectionView[];
   currentInspectionId: string | null;
   openReinspections: ReinspectionView[];
+  /** Parts of this boat the officials hold now (taken into custody, not released). */
+  partsHeld: { description: string; sealNumber: string | null }[];
   /** The person asking entered or owns this boat: they may look, never record. */
   isOwnBoat: boolean;
 };
@@ -33,7 +35,7 @@ export async function loadBoatCard(actor: Actor, eventId: string, entryId: strin
   const { models, sequelize } = getDb();
   const entry = await models.Entry.findOne({ where: { id: entryId, eventId } });
   if (!entry) throw new Error(`entry ${entryId} not at event ${eventId}`);
-  const [boat, raceClass, event, ruleVersion, inspections, openReinspections, current] = await Promise.all([
+  const [boat, raceClass, event, ruleVersion, inspections, openReinspections, current, partsHeld] = await Promise.all([
     models.Boat.findByPk(entry.boatId),
     models.RaceClass.findByPk(entry.classId),
     models.Event.findByPk(eventId, { attributes: ['id', 'name'] }),
@@ -41,6 +43,11 @@ export async function loadBoatCard(actor: Actor, eventId: string, entryId: strin
     loadInspectionViews('i.entry_id = :entryId', { entryId }),
     listReinspectionViews({ eventId, entryId, openOnly: true }),
     sequelize.query<{ id: string }>(`with ${currentInspectionCte('entry')} select id from current_inspection`, { replacements: { entryId }, type: QueryTypes.SELECT }),
+    sequelize.query<{ description: string; sealNumber: string | null }>(
+      `select ci.description, ci.seal_number as "sealNumber" from custody_items ci
+        where ci.entry_id = :entryId and not exists (select 1 from custody_releases r where r.item_id = ci.id) order by ci.taken_at`,
+      { replacements: { entryId }, type: QueryTypes.SELECT },
+    ),
   ]);
   if (!boat || !raceClass || !event) throw new Error(`entry ${entryId} has a missing boat, class or event`);
   return {
@@ -63,6 +70,7 @@ export async function loadBoatCard(actor: Actor, eventId: string, entryId: strin
     inspections,
     currentInspectionId: current[0]?.id ?? null,
     openReinspections,
+    partsHeld,
     isOwnBoat: entry.entrantId === actor.id || boat.ownerId === actor.id,
   };
 }

@@ -39,6 +39,12 @@ test('custody: scrutineer bags a part at the dock, steward releases it', async (
   assert.equal(await item.getByRole('button', { name: 'Release…' }).count(), 0, 'a scrutineer cannot release');
   assert.match(await page.getByRole('note').innerText(), /licensed officials/);
   await screenshot(page, 'custody-01-taken');
+  // Back at the dock, the boat's card says what is held.
+  await page.goto(`/inspect/${meeting.eventId}`);
+  await page.getByLabel('Race number or tag code').fill(String(entry.raceNumber));
+  await page.getByRole('button', { name: 'Find', exact: true }).click();
+  await page.getByTestId('parts-held').waitFor();
+  assert.match(await page.getByTestId('parts-held').innerText(), /Held by the officials: Impeller, bent leading edge \(seal\/bag BAG-0520\)/);
   await dock.close();
 
   // The entrant sees on My entries that the part is held, and by whom to ask.

@@ -53,6 +53,11 @@ export function BoatCardView({ target, onCorrect }: { target: DockTarget; onCorr
               Re-inspection asked for: {card.openReinspections.map((t) => t.reason).join('; ')}
             </p>
           )}
+          {card.partsHeld?.length > 0 && (
+            <p className="rounded-lg border-2 border-doubt-600 bg-doubt-100 p-3 text-doubt-800" data-testid="parts-held">
+              Held by the officials: {card.partsHeld.map((p) => `${p.description}${p.sealNumber ? ` (seal/bag ${p.sealNumber})` : ''}`).join('; ')}
+            </p>
+          )}
           <div>
             <h3 className="text-xl">Earlier records at this meeting ({card.inspections.length})</h3>
             {card.inspections.length === 0 ? <p>None yet.</p> : (
