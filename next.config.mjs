@@ -1,29 +1,11 @@
 /** @type {import('next').NextConfig} */
 
-const isDev = process.env.NODE_ENV === 'development';
-
-// Content Security Policy the app passes: everything from our own origin. Next's App Router
-// streams its payload through inline scripts, so script-src needs 'unsafe-inline' (no nonce on
-// prerendered pages); 'unsafe-eval' only for next dev. Camera scanning uses getUserMedia and
-// blob: frames; uploads preview as blob: images.
-const csp = [
-  "default-src 'self'",
-  `script-src 'self' 'unsafe-inline'${isDev ? " 'unsafe-eval'" : ''}`,
-  "style-src 'self' 'unsafe-inline'",
-  "img-src 'self' data: blob:",
-  "font-src 'self'",
-  "connect-src 'self'",
-  "media-src 'self' blob:",
-  "worker-src 'self' blob:",
-  "manifest-src 'self'",
-  "object-src 'none'",
-  "base-uri 'self'",
-  "form-action 'self'",
-  "frame-ancestors 'none'",
-].join('; ');
+// Pages get their Content Security Policy, with a fresh nonce, from proxy.ts
+// (lib/http/content-security-policy.ts). Everything else (API answers, files) gets this one: it
+// runs no scripts at all.
+const staticCsp = "default-src 'none'; img-src 'self'; font-src 'self'; style-src 'self'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'";
 
 const securityHeaders = [
-  { key: 'Content-Security-Policy', value: csp },
   { key: 'X-Frame-Options', value: 'DENY' },
   { key: 'X-Content-Type-Options', value: 'nosniff' },
   { key: 'Referrer-Policy', value: 'strict-origin-when-cross-origin' },
@@ -45,7 +27,12 @@ const nextConfig = {
   compress: false,
   reactStrictMode: true,
   async headers() {
-    return [{ source: '/:path*', headers: securityHeaders }];
+    return [
+      { source: '/:path*', headers: securityHeaders },
+      // Files and API answers (pages get theirs from proxy.ts).
+      { source: '/api/:path*', headers: [{ key: 'Content-Security-Policy', value: staticCsp }] },
+      { source: '/_next/static/:path*', headers: [{ key: 'Content-Security-Policy', value: staticCsp }] },
+    ];
   },
 };
 

@@ -1,12 +1,26 @@
 // Runs before routing. 1) An address whose percent-encoding is not valid UTF-8 cannot name
 // anything: answer 400 in the one error shape (Next would otherwise fail decoding it with a 500).
-// 2) Coarse redirect to sign-in for the signed-in areas. Never the only check: every page,
+// 2) Every page gets a fresh CSP nonce (lib/http/content-security-policy.ts): the policy goes on the
+// request, where Next reads the nonce for its own scripts, and on the response.
+// 3) Coarse redirect to sign-in for the signed-in areas. Never the only check: every page,
 // action and handler asks the permission table itself.
 import { NextResponse, type NextFetchEvent, type NextRequest } from 'next/server';
 import { withAuth, type NextRequestWithAuth } from 'next-auth/middleware';
+import { newNonce, pageCsp } from '@/lib/http/content-security-policy';
 
 const SIGNED_IN_AREAS = /^\/(home|account|organise|admin|boats|entries|inspect|protests|stewards)(\/|$)/;
-const requireSignIn = withAuth({ pages: { signIn: '/sign-in' } });
+
+function withNonce(req: NextRequest): NextResponse {
+  if (req.nextUrl.pathname.startsWith('/api/')) return NextResponse.next(); // JSON: next.config.mjs sets its policy
+  const csp = pageCsp(newNonce());
+  const headers = new Headers(req.headers);
+  headers.set('content-security-policy', csp);
+  const res = NextResponse.next({ request: { headers } });
+  res.headers.set('content-security-policy', csp);
+  return res;
+}
+
+const requireSignIn = withAuth((req) => withNonce(req), { pages: { signIn: '/sign-in' } });
 
 export default function proxy(req: NextRequest, event: NextFetchEvent) {
   try {
@@ -15,7 +29,7 @@ export default function proxy(req: NextRequest, event: NextFetchEvent) {
     return NextResponse.json({ error: { code: 'bad_path', message: 'The address is not valid: it contains broken character encoding.' } }, { status: 400 });
   }
   if (SIGNED_IN_AREAS.test(req.nextUrl.pathname)) return requireSignIn(req as NextRequestWithAuth, event);
-  return NextResponse.next();
+  return withNonce(req);
 }
 
 // API requests that carry a body skip the proxy: passing through it would make Next buffer the

@@ -1,5 +1,6 @@
 import type { Metadata, Viewport } from 'next';
 import localFont from 'next/font/local';
+import { connection } from 'next/server';
 import './globals.css';
 
 // Atkinson Hyperlegible for reading in glare; IBM Plex Mono for figures that must line up.
@@ -29,7 +30,10 @@ export const metadata: Metadata = {
 
 export const viewport: Viewport = { width: 'device-width', initialScale: 1, themeColor: '#103a57' };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+// Every page is rendered per request: its scripts carry the nonce of that response's CSP (proxy.ts),
+// which a page prerendered at build time could not.
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  await connection();
   return (
     <html lang="en" className={`${body.variable} ${figures.variable}`}>
       <body>{children}</body>

@@ -1,5 +1,7 @@
 // The Content Security Policy is one the app passes: visiting the main screens (signed out and
-// signed in) logs no CSP violation in Chromium's console.
+// signed in) logs no CSP violation in Chromium's console. Pages allow scripts only by a fresh nonce
+// per response (CSP Level 3 'nonce-…' with 'strict-dynamic'), never 'unsafe-inline'; an injected
+// inline script without the nonce does not run.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import type { Browser } from 'playwright-core';
@@ -25,5 +27,18 @@ test('no CSP violations on the main screens', async () => {
     await page.waitForLoadState('networkidle');
   }
   assert.deepEqual(violations, []);
+
+  const first = (await page.goto('/calculator'))!.headers()['content-security-policy'];
+  const second = (await page.goto('/calculator'))!.headers()['content-security-policy'];
+  const scriptSrc = first.split(';').find((d) => d.trim().startsWith('script-src'))!;
+  assert.match(scriptSrc, /'nonce-[A-Za-z0-9+/=]{22,}'/);
+  assert.match(scriptSrc, /'strict-dynamic'/);
+  assert.doesNotMatch(scriptSrc, /unsafe-inline/);
+  assert.notEqual(first, second, 'a fresh nonce for every response');
+  // Markup that slipped into the page (an XSS) cannot run its inline handler: that would need
+  // 'unsafe-inline', which the old policy had.
+  await page.evaluate(() => document.body.insertAdjacentHTML('beforeend', '<img src="/no-such-image.png" onerror="window.__injected = true">'));
+  await page.waitForTimeout(500);
+  assert.equal(await page.evaluate(() => (window as unknown as { __injected?: boolean }).__injected ?? false), false);
   await context.close();
 });

@@ -1,4 +1,5 @@
-// Browser-facing protections: security headers (OWASP Secure Headers Project recommendations),
+// Browser-facing protections: security headers (OWASP Secure Headers Project recommendations; CSP
+// Level 3 nonces with 'strict-dynamic' for pages),
 // session cookie flags (RFC 6265bis: HttpOnly, SameSite), the cross-site origin check on
 // state-changing route handlers, next-auth's own CSRF token, and sign-in throttling stored in
 // PostgreSQL (so it holds across app servers).
@@ -12,9 +13,16 @@ test('pages and API answers carry the security headers', async () => {
   for (const path of ['/', '/sign-in', '/api/health']) {
     const res = await fetch(`${BASE_URL}${path}`);
     const csp = res.headers.get('content-security-policy') ?? '';
-    assert.match(csp, /default-src 'self'/, path);
+    if (path.startsWith('/api/')) {
+      assert.match(csp, /default-src 'none'/, `${path}: an API answer runs nothing`);
+    } else {
+      assert.match(csp, /default-src 'self'/, path);
+      assert.match(csp, /script-src 'self' 'nonce-[^']+' 'strict-dynamic'/, `${path}: scripts by nonce only`);
+      assert.doesNotMatch(csp, /script-src[^;]*unsafe-inline/, path);
+      assert.match(csp, /object-src 'none'/, path);
+    }
+    assert.equal(csp.split(', ').length, 1, `${path}: one policy, not two`);
     assert.match(csp, /frame-ancestors 'none'/, path);
-    assert.match(csp, /object-src 'none'/, path);
     assert.equal(res.headers.get('x-content-type-options'), 'nosniff', path);
     assert.equal(res.headers.get('referrer-policy'), 'strict-origin-when-cross-origin', path);
     assert.equal(res.headers.get('x-frame-options'), 'DENY', path);
