@@ -80,6 +80,9 @@ export async function acceptInvitation(token: string) {
       defaults: { email: inv.email, name: null, emailVerified: new Date() },
       transaction,
     });
+    // A suspended account takes no new role: the invitation stays unused (the transaction rolls
+    // back) and next-auth turns the error into the sign-in page's message.
+    if (user.suspendedAt) throw new Error('AccountSuspended');
     await models.EventStaff.findOrCreate({
       where: { eventId: inv.eventId, userId: user.id, role: inv.role },
       defaults: { eventId: inv.eventId, userId: user.id, role: inv.role },

@@ -1,5 +1,5 @@
-// Suspending an account (site administrator only): the person cannot sign in by password or
-// e-mailed link, an open session stops working on its next request, a wrong password still gets the
+// Suspending an account (site administrator only): the person cannot sign in by password,
+// e-mailed link or staff invitation, an open session stops working on its next request, a wrong password still gets the
 // ordinary refusal (a stranger learns nothing), and lifting the suspension restores access.
 // Common practice for account administration, no single source.
 import { test } from 'node:test';
@@ -7,6 +7,7 @@ import assert from 'node:assert/strict';
 import { HttpSession } from '../support/http-session';
 import { DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
 import { query } from '../support/db';
+import { firstLink, waitForMail } from '../support/mail';
 
 const PASSWORD = 'suspension-test-pw-1';
 
@@ -55,6 +56,20 @@ test('suspend: refused sign-in and a dead open session; lift: access again; only
     method: 'POST', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: new URLSearchParams({ csrfToken, email, json: 'true' }),
   });
   assert.match(String((await linkRes.json()).url), /error=AccountSuspended/, 'no sign-in link for a suspended account');
+
+  // An invitation to a meeting's staff does not get a suspended person in, nor give them the role.
+  const invite = await organiser.json(`/api/events/${DEMO.meetingId}/invitations`, { email, role: 'scrutineer' });
+  assert.equal(invite.res.status, 201, JSON.stringify(invite.body));
+  const token = new URL(firstLink(await waitForMail(email, { subject: /invited/ }))).pathname.split('/').pop()!;
+  const invited = new HttpSession();
+  const invitedCsrf = await invited.csrfToken();
+  const viaInvitation = await invited.fetch('/api/auth/callback/invitation', {
+    method: 'POST', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: new URLSearchParams({ csrfToken: invitedCsrf, token, json: 'true' }),
+  });
+  assert.match(String((await viaInvitation.json()).url), /error=AccountSuspended/);
+  assert.equal(await invited.session(), null);
+  assert.equal((await query('select 1 from event_staff where user_id = $1', [id])).length, 0, 'no role for a suspended account');
+  assert.equal((await query('select 1 from staff_invitations where email = $1 and accepted_at is null', [email])).length, 1, 'the invitation stays unused');
 
   const [{ id: adminId }] = await query<{ id: string }>('select id from users where email = $1', [DEMO.admin]);
   assert.equal((await admin.json(`/api/admin/people/${adminId}/suspension`, { reason: 'testing myself' }, 'PUT')).res.status, 409, 'not one\'s own account');
