@@ -2,13 +2,11 @@ import 'server-only';
 import { UniqueConstraintError } from 'sequelize';
 import { getDb } from '@/lib/db';
 import { assertCan, type Actor } from '@/lib/auth/actor';
-import { AppError } from '@/lib/http/errors';
+import { AppError, fieldError } from '@/lib/http/errors';
 import { parseId } from '@/lib/http/ids';
 import { OPEN_STATUSES, type ProtestStatus } from '@/lib/protests/protest-states';
 import { ReleaseFromCustodyInput, TakeIntoCustodyInput } from '@/lib/validations/custody';
 import { loadCustodyViews, type CustodyItemView } from './custody-view';
-
-const fieldError = (field: string, message: string, status = 400) => new AppError('invalid_input', status, `${field}: ${message}`, [{ field, message }]);
 
 /** The meeting's parts in custody (held first), for the officials who work with them. */
 export async function listCustody(actor: Actor | null, eventId: string): Promise<CustodyItemView[]> {

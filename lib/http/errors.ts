@@ -18,6 +18,9 @@ export type ErrorBody = { error: { code: string; message: string; details?: unkn
 
 export type FieldIssue = { field: string; message: string };
 
+/** A refusal about one field of the input, shown beside that field (400 unless said otherwise). */
+export const fieldError = (field: string, message: string, status = 400) => new AppError('invalid_input', status, `${field}: ${message}`, [{ field, message }]);
+
 /** Zod issues as { field, message } with dotted paths ("water.temperatureC", "readingsMm.2"). */
 export function fieldIssues(err: ZodError): FieldIssue[] {
   return err.issues.map((i) => ({ field: i.path.map(String).join('.') || '(body)', message: i.message }));

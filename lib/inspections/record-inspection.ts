@@ -4,7 +4,7 @@ import { QueryTypes } from 'sequelize';
 import { after } from 'next/server';
 import { getDb } from '@/lib/db';
 import { assertCan, type Actor } from '@/lib/auth/actor';
-import { AppError } from '@/lib/http/errors';
+import { AppError, fieldError } from '@/lib/http/errors';
 import type { ClassRules } from '@/lib/validations/class-rules';
 import { sendMail } from '@/lib/mail/send';
 import { RecordInspectionInput } from '@/lib/validations/inspections';
@@ -18,8 +18,6 @@ type EntryRow = {
   /** The class's published rule versions, newest first; effectiveFromMs rounded up to the millisecond. */
   publishedVersions: { id: string; version: number; effectiveFromMs: number; rules: ClassRules }[] | null;
 };
-
-const fieldError = (field: string, message: string, status = 400) => new AppError('invalid_input', status, `${field}: ${message}`, [{ field, message }]);
 
 async function findInstrument(eventId: string, id: string | null, quantity: 'length' | 'mass', field: string): Promise<InstrumentFigures | null> {
   if (!id) return null;

@@ -1,7 +1,7 @@
 import 'server-only';
 import { getDb } from '@/lib/db';
 import type { Actor } from '@/lib/auth/actor';
-import { AppError } from '@/lib/http/errors';
+import { AppError, fieldError } from '@/lib/http/errors';
 import { recordAuditEvent } from '@/lib/audit/record-audit-event';
 import { findProtestForSteward } from './find-protest-for-actor';
 import { ScheduleHearingInput } from './protest-inputs';
@@ -9,8 +9,6 @@ import { DECIDABLE_STATUSES } from './protest-states';
 import { formatInZone, instantFromWallClock } from './protest-window';
 import { notifyParties } from './notify-parties';
 import { getProtest, type ProtestDetail } from './get-protest';
-
-const fieldError = (field: string, message: string) => new AppError('invalid_input', 400, `${field}: ${message}`, [{ field, message }]);
 
 /** Sets (or moves) the hearing's time, read in the meeting's time zone, and place; both parties are e-mailed. */
 export async function scheduleHearing(actor: Actor | null, protestId: string, raw: unknown, now = new Date()): Promise<ProtestDetail> {
