@@ -10,6 +10,16 @@ export type CustodyItemView = {
   release: { releasedTo: string; note: string; releasedBy: string; releasedAt: string } | null;
 };
 
+export type HeldPart = { description: string; sealNumber: string | null; takenAt: string };
+
+/**
+ * SQL for the parts of one entry the officials hold now (taken, not released), as a JSON array
+ * (null when none), oldest first; `entryIdSql` names the entry (a column or a replacement).
+ */
+export const heldPartsJsonSql = (entryIdSql: string) =>
+  `(select json_agg(json_build_object('description', ci.description, 'sealNumber', ci.seal_number, 'takenAt', ci.taken_at) order by ci.taken_at)
+      from custody_items ci where ci.entry_id = ${entryIdSql} and not exists (select 1 from custody_releases cr where cr.item_id = ci.id))`;
+
 type Row = {
   id: string; entryId: string; raceNumber: number; boatName: string; classCode: string; description: string; sealNumber: string | null;
   takenBy: string; takenAt: Date; protestId: string | null; ruleReference: string | null; protestStatus: string | null;

@@ -1,10 +1,10 @@
 import 'server-only';
 import { UniqueConstraintError } from 'sequelize';
 import { getDb } from '@/lib/db';
-import { assertCan, type Actor } from '@/lib/auth/actor';
+import { assertCan, can, type Actor } from '@/lib/auth/actor';
 import { AppError, fieldError } from '@/lib/http/errors';
 import { parseId } from '@/lib/http/ids';
-import { OPEN_STATUSES, type ProtestStatus } from '@/lib/protests/protest-states';
+import { OPEN_STATUSES, PROTEST_STATUS_LABELS, type ProtestStatus } from '@/lib/protests/protest-states';
 import { ReleaseFromCustodyInput, TakeIntoCustodyInput } from '@/lib/validations/custody';
 import { loadCustodyViews, type CustodyItemView } from './custody-view';
 
@@ -12,6 +12,16 @@ import { loadCustodyViews, type CustodyItemView } from './custody-view';
 export async function listCustody(actor: Actor | null, eventId: string): Promise<CustodyItemView[]> {
   assertCan(actor, 'custody.view', { eventId });
   return loadCustodyViews({ eventId });
+}
+
+/**
+ * The meeting's open protests a part can be kept for, worded for a list; empty for those who may
+ * not see the meeting's protests (scrutineers take parts without naming one).
+ */
+export async function listProtestsToKeepPartsFor(actor: Actor | null, eventId: string): Promise<{ id: string; label: string }[]> {
+  if (!can(actor, 'protest.view_all', { eventId })) return [];
+  const protests = await getDb().models.Protest.findAll({ where: { eventId, status: [...OPEN_STATUSES] }, attributes: ['id', 'ruleReference', 'status'], order: [['createdAt', 'ASC']] });
+  return protests.map((p) => ({ id: p.id, label: `${p.ruleReference} (${PROTEST_STATUS_LABELS[p.status as ProtestStatus].toLowerCase()})` }));
 }
 
 /** Parts kept for one protest, for the meeting's officials who hear it. */

@@ -4,6 +4,7 @@ import { getDb } from '@/lib/db';
 import { assertCan, type Actor } from '@/lib/auth/actor';
 import { ENTRY_STATUS_LABELS, INSPECTION_RESULT_LABELS } from '@/lib/validations/entries';
 import type { EntryStatus, InspectionResult } from '@/models/entry';
+import { heldPartsJsonSql, type HeldPart } from '@/lib/custody/custody-view';
 
 export type MyEntry = {
   id: string;
@@ -29,11 +30,11 @@ export type MyEntry = {
   cancelledReason: string | null;
   createdAt: string;
   /** Parts of this boat the officials hold now (taken into custody, not yet released). */
-  partsHeld: { description: string; sealNumber: string | null; takenAt: string }[];
+  partsHeld: HeldPart[];
 };
 
 type Row = Omit<MyEntry, 'statusLabel' | 'startsOn' | 'paidAt' | 'refundedAt' | 'createdAt' | 'partsHeld'> & {
-  partsHeld: { description: string; sealNumber: string | null; takenAt: string }[] | null;
+  partsHeld: HeldPart[] | null;
   startsOn: string | Date;
   paidAt: Date | null;
   refundedAt: Date | null;
@@ -54,8 +55,7 @@ export async function listMyEntries(actor: Actor | null, opts: { entryId?: strin
             e.race_number as "raceNumber", e.status, e.inspection_result as "inspectionResult",
             e.fee_minor as "feeMinor", e.currency, e.paid_at as "paidAt", e.refunded_at as "refundedAt",
             e.cancelled_reason as "cancelledReason", e.created_at as "createdAt",
-            (select json_agg(json_build_object('description', ci.description, 'sealNumber', ci.seal_number, 'takenAt', ci.taken_at) order by ci.taken_at)
-               from custody_items ci where ci.entry_id = e.id and not exists (select 1 from custody_releases cr where cr.item_id = ci.id)) as "partsHeld"
+            ${heldPartsJsonSql('e.id')} as "partsHeld"
        from entries e
        join events ev on ev.id = e.event_id
        join race_classes c on c.id = e.class_id

@@ -7,6 +7,7 @@ import { checkDeclaration, type DeclarationCheck } from '@/lib/entries/check-dec
 import type { ClassRules } from '@/lib/validations/class-rules';
 import { currentInspectionCte, loadInspectionViews, type InspectionView } from './inspection-view';
 import { listReinspectionViews, type ReinspectionView } from './reinspection-view';
+import { heldPartsJsonSql, type HeldPart } from '@/lib/custody/custody-view';
 
 // What a scrutineer sees at the dock before measuring: the boat, its declaration against the rules
 // in force now, its entry and payment, every earlier record at this meeting and open tasks.
@@ -25,7 +26,7 @@ export type BoatCard = {
   currentInspectionId: string | null;
   openReinspections: ReinspectionView[];
   /** Parts of this boat the officials hold now (taken into custody, not released). */
-  partsHeld: { description: string; sealNumber: string | null }[];
+  partsHeld: HeldPart[];
   /** The person asking entered or owns this boat: they may look, never record. */
   isOwnBoat: boolean;
 };
@@ -43,11 +44,7 @@ export async function loadBoatCard(actor: Actor, eventId: string, entryId: strin
     loadInspectionViews('i.entry_id = :entryId', { entryId }),
     listReinspectionViews({ eventId, entryId, openOnly: true }),
     sequelize.query<{ id: string }>(`with ${currentInspectionCte('entry')} select id from current_inspection`, { replacements: { entryId }, type: QueryTypes.SELECT }),
-    sequelize.query<{ description: string; sealNumber: string | null }>(
-      `select ci.description, ci.seal_number as "sealNumber" from custody_items ci
-        where ci.entry_id = :entryId and not exists (select 1 from custody_releases r where r.item_id = ci.id) order by ci.taken_at`,
-      { replacements: { entryId }, type: QueryTypes.SELECT },
-    ),
+    sequelize.query<{ parts: HeldPart[] | null }>(`select ${heldPartsJsonSql(':entryId')} as parts`, { replacements: { entryId }, type: QueryTypes.SELECT }),
   ]);
   if (!boat || !raceClass || !event) throw new Error(`entry ${entryId} has a missing boat, class or event`);
   return {
@@ -70,7 +67,7 @@ export async function loadBoatCard(actor: Actor, eventId: string, entryId: strin
     inspections,
     currentInspectionId: current[0]?.id ?? null,
     openReinspections,
-    partsHeld,
+    partsHeld: partsHeld[0]?.parts ?? [],
     isOwnBoat: entry.entrantId === actor.id || boat.ownerId === actor.id,
   };
 }

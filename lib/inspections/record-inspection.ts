@@ -14,7 +14,7 @@ import { currentInspectionCte, loadInspectionViews, type InspectionView } from '
 type EntryRow = {
   id: string; entrantId: string; raceNumber: number; status: string; classId: string; boatId: string; ownerId: string;
   boatName: string; boatDeclaredKw: number; boatPowerEvidence: string; className: string; eventName: string;
-  entrantEmail: string; entrantName: string | null;
+  entrantEmail: string;
   /** The class's published rule versions, newest first; effectiveFromMs rounded up to the millisecond. */
   publishedVersions: { id: string; version: number; effectiveFromMs: number; rules: ClassRules }[] | null;
 };
@@ -32,6 +32,26 @@ async function findByKey(eventId: string, key: string): Promise<InspectionView |
   const [found] = await loadInspectionViews('i.idempotency_key = :key', { key });
   if (found && found.eventId !== eventId) throw new AppError('key_in_use', 409, 'This record key was already used for another meeting’s record; make a new record.');
   return found ?? null;
+}
+
+// The entry with its boat, class, meeting and entrant in one round trip (this runs for every record
+// sent), and whether the record's key is already stored, so a new record costs no extra query.
+async function loadEntry(eventId: string, entryId: string, key: string | null) {
+  const [row] = await getDb().sequelize.query<EntryRow & { keyEventId: string | null }>(
+    `select e.id, e.entrant_id as "entrantId", e.race_number as "raceNumber", e.status, e.class_id as "classId", e.boat_id as "boatId",
+            b.owner_id as "ownerId", b.name as "boatName", b.declared_power_kw as "boatDeclaredKw", b.power_evidence as "boatPowerEvidence",
+            c.name as "className", ev.name as "eventName", u.email as "entrantEmail",
+            (select i.event_id from inspections i where i.idempotency_key = :key) as "keyEventId",
+            (select json_agg(json_build_object('id', v.id, 'version', v.version, 'rules', v.rules,
+                                               'effectiveFromMs', ceil(extract(epoch from v.effective_from) * 1000))
+                             order by v.effective_from desc, v.version desc)
+               from class_rule_versions v where v.class_id = e.class_id and v.status = 'published' and v.effective_from is not null) as "publishedVersions"
+       from entries e join boats b on b.id = e.boat_id join race_classes c on c.id = e.class_id join events ev on ev.id = e.event_id
+            join users u on u.id = e.entrant_id
+      where e.id = :entryId and e.event_id = :eventId`,
+    { replacements: { entryId, eventId, key }, type: QueryTypes.SELECT },
+  );
+  return row as (EntryRow & { keyEventId: string | null }) | undefined;
 }
 
 async function mailEntrant(entry: EntryRow, decision: InspectionDecision) {
@@ -63,35 +83,18 @@ async function mailEntrant(entry: EntryRow, decision: InspectionDecision) {
 export async function recordInspection(actor: Actor | null, eventId: string, raw: unknown): Promise<{ inspection: InspectionView; created: boolean }> {
   assertCan(actor, 'inspection.record', { eventId });
   const { models, sequelize } = getDb();
-  // The entry with its boat, class, meeting and entrant in one round trip (this runs for every record
-  // sent), and whether the record's key is already stored, so a new record costs no extra query.
-  const loadEntry = async (entryId: string, key: string | null) =>
-    (await sequelize.query<EntryRow & { keyEventId: string | null }>(
-      `select e.id, e.entrant_id as "entrantId", e.race_number as "raceNumber", e.status, e.class_id as "classId", e.boat_id as "boatId",
-              b.owner_id as "ownerId", b.name as "boatName", b.declared_power_kw as "boatDeclaredKw", b.power_evidence as "boatPowerEvidence",
-              c.name as "className", ev.name as "eventName", u.email as "entrantEmail", u.name as "entrantName",
-              (select i.event_id from inspections i where i.idempotency_key = :key) as "keyEventId",
-              (select json_agg(json_build_object('id', v.id, 'version', v.version, 'rules', v.rules,
-                                                 'effectiveFromMs', ceil(extract(epoch from v.effective_from) * 1000))
-                               order by v.effective_from desc, v.version desc)
-                 from class_rule_versions v where v.class_id = e.class_id and v.status = 'published' and v.effective_from is not null) as "publishedVersions"
-         from entries e join boats b on b.id = e.boat_id join race_classes c on c.id = e.class_id join events ev on ev.id = e.event_id
-              join users u on u.id = e.entrant_id
-        where e.id = :entryId and e.event_id = :eventId`,
-      { replacements: { entryId, eventId, key }, type: QueryTypes.SELECT },
-    ))[0];
   // A retry (the answer was lost, or the phone sent twice) gets the stored record back at once,
   // before the input is checked again (an offline record may be older than a new one may be).
   const key = z.uuid().safeParse((raw as { idempotencyKey?: unknown } | null)?.idempotencyKey);
   const entryGuess = z.uuid().safeParse((raw as { entryId?: unknown } | null)?.entryId);
-  let entry = entryGuess.success ? await loadEntry(entryGuess.data.toLowerCase(), key.success ? key.data.toLowerCase() : null) : undefined;
+  let entry = entryGuess.success ? await loadEntry(eventId, entryGuess.data.toLowerCase(), key.success ? key.data.toLowerCase() : null) : undefined;
   if (key.success && (!entry || entry.keyEventId)) {
     const existing = await findByKey(eventId, key.data.toLowerCase());
     if (existing) return { inspection: existing, created: false };
   }
   const input = RecordInspectionInput.parse(raw);
   const idempotencyKey = input.idempotencyKey.toLowerCase();
-  if (entry && entry.id !== input.entryId.toLowerCase()) entry = await loadEntry(input.entryId.toLowerCase(), null);
+  if (entry && entry.id !== input.entryId.toLowerCase()) entry = await loadEntry(eventId, input.entryId.toLowerCase(), null);
   if (!entry) throw fieldError('entryId', 'No such entry at this meeting.');
   // Separation of duties: nobody inspects a boat they entered or own, whatever their staff roles.
   if (entry.entrantId === actor.id || entry.ownerId === actor.id) {

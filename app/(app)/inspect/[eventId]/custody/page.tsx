@@ -4,7 +4,7 @@ import { notFound, redirect } from 'next/navigation';
 import { can, getActor } from '@/lib/auth/actor';
 import { getDb } from '@/lib/db';
 import { parseId } from '@/lib/http/ids';
-import { listCustody } from '@/lib/custody/manage-custody';
+import { listCustody, listProtestsToKeepPartsFor } from '@/lib/custody/manage-custody';
 import { formatInZone } from '@/lib/protests/protest-window';
 import { PROTEST_STATUS_LABELS, OPEN_STATUSES, type ProtestStatus } from '@/lib/protests/protest-states';
 import { SafetyNote } from '@/components/safety-note';
@@ -20,17 +20,11 @@ export default async function CustodyPage({ params }: { params: Promise<{ eventI
   let eventId: string;
   try { eventId = parseId((await params).eventId); } catch { notFound(); }
   if (!can(actor, 'custody.view', { eventId })) redirect('/not-allowed');
-  const { models } = getDb();
-  const event = await models.Event.findByPk(eventId, { attributes: ['id', 'name', 'timeZone'] });
+  const event = await getDb().models.Event.findByPk(eventId, { attributes: ['id', 'name', 'timeZone'] });
   if (!event) notFound();
-  const items = await listCustody(actor, eventId);
+  const [items, protests] = await Promise.all([listCustody(actor, eventId), listProtestsToKeepPartsFor(actor, eventId)]);
   const canTake = can(actor, 'custody.take', { eventId });
   const canRelease = can(actor, 'custody.release', { eventId });
-  // Stewards and organisers see the meeting's open protests, so they can say which one a part is kept for.
-  const protests = can(actor, 'protest.view_all', { eventId })
-    ? (await models.Protest.findAll({ where: { eventId, status: [...OPEN_STATUSES] }, attributes: ['id', 'ruleReference', 'status'], order: [['createdAt', 'ASC']] }))
-      .map((p) => ({ id: p.id, label: `${p.ruleReference} (${PROTEST_STATUS_LABELS[p.status as ProtestStatus].toLowerCase()})` }))
-    : [];
   const held = items.filter((i) => !i.release);
   return (
     <div className="space-y-5 text-lg">
