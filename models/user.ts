@@ -12,6 +12,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare suspendedAt: CreationOptional<Date | null>;
   declare suspendedReason: CreationOptional<string | null>;
   declare suspendedById: CreationOptional<string | null>;
+  declare sessionVersion: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -28,6 +29,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         suspendedAt: { type: DataTypes.DATE },
         suspendedReason: { type: DataTypes.TEXT },
         suspendedById: { type: DataTypes.UUID },
+        sessionVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

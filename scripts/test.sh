@@ -30,6 +30,11 @@ export PAYMENTS_WEBHOOK_URL="http://127.0.0.1:$PORT/api/payments/webhook"
 export S3_ENDPOINT="http://127.0.0.1:${TEST_S3_PORT:-9850}"
 export S3_REGION="us-east-1" S3_BUCKET="boreline-test" S3_ACCESS_KEY_ID="boreline-local" S3_SECRET_ACCESS_KEY="boreline-local-secret"
 export PUBLIC_API_RATE_LIMIT_PER_MINUTE="${PUBLIC_API_RATE_LIMIT_PER_MINUTE:-100000}"
+# The suite signs up many people from one loopback address: its own per-address quota. The throttle
+# tests fill a counter to this same limit, so they check the real code path against the real store.
+export SIGN_UP_LIMIT_PER_HOUR="${SIGN_UP_LIMIT_PER_HOUR:-1000}"
+# Expired throttle counters are purged at most this often (60 s in production); short here so a test can see it.
+export THROTTLE_PURGE_INTERVAL_S=1
 
 ensure_node_modules
 if [ ! -x /usr/bin/chromium ] && [ "$(id -u)" = 0 ]; then

@@ -4,6 +4,7 @@ import { assertCan, type Actor } from '@/lib/auth/actor';
 import { AppError } from '@/lib/http/errors';
 import { parseId } from '@/lib/http/ids';
 import { SuspendPersonInput } from '@/lib/validations/admin';
+import { endAllSessions } from '@/lib/auth/sessions';
 import { toPersonView, type PersonView } from './person-view';
 
 async function findPerson(id: string) {
@@ -15,7 +16,8 @@ async function findPerson(id: string) {
 /**
  * The site administrator suspends an account: the person cannot sign in (by password, link or
  * invitation), and a session already open stops working on its next request, because roles are
- * read from the database per request (lib/auth/actor.ts). Their records stay as they are.
+ * read from the database per request and its session version is raised (lib/auth/actor.ts). Their
+ * records stay as they are.
  */
 export async function suspendPerson(actor: Actor | null, userId: string, raw: unknown): Promise<PersonView> {
   assertCan(actor, 'admin.manage_users');
@@ -25,10 +27,12 @@ export async function suspendPerson(actor: Actor | null, userId: string, raw: un
   const user = await findPerson(id);
   if (user.suspendedAt) throw new AppError('already_suspended', 409, `${user.name ?? user.email} is already suspended.`);
   await user.update({ suspendedAt: new Date(), suspendedReason: reason, suspendedById: actor.id });
+  // Sessions end for good: lifting the suspension later does not bring them back.
+  await endAllSessions(user.id);
   return toPersonView(user);
 }
 
-/** Lifts a suspension: the person can sign in again (old sessions work again until they expire). */
+/** Lifts a suspension: the person can sign in again (sessions ended by the suspension stay ended). */
 export async function reinstatePerson(actor: Actor | null, userId: string): Promise<PersonView> {
   assertCan(actor, 'admin.manage_users');
   const user = await findPerson(parseId(userId, 'person'));

@@ -14,26 +14,28 @@ export type Actor = {
   email: string;
   name: string | null;
   isAdmin: boolean;
+  isAddressProven: boolean; // the owner followed a link sent to the address (lib/accounts/prove-address.ts)
   eventRoles: Record<string, Role[]>;
   organiserOf: string[]; // organisation ids where the person may create events
 };
 
-export async function loadActor(userId: string): Promise<Actor | null> {
-  // One round trip: this runs for every signed-in request. A suspended account has no actor, so its
-  // open sessions stop working at once (lib/admin/set-suspension.ts).
+export async function loadActor(userId: string, sessionVersion: number): Promise<Actor | null> {
+  // One round trip: this runs for every signed-in request. A suspended account has no actor, and a
+  // session issued under an earlier session version is over (lib/auth/sessions.ts), so sign-out,
+  // a password change or a suspension stop every open session at once.
   const [row] = await getDb().sequelize.query<{
-    id: string; email: string; name: string | null; isAdmin: boolean; staff: { eventId: string; role: Role }[]; organiserOf: string[];
+    id: string; email: string; name: string | null; isAdmin: boolean; isAddressProven: boolean; staff: { eventId: string; role: Role }[]; organiserOf: string[];
   }>(
-    `select u.id, u.email, u.name, u.is_admin as "isAdmin",
+    `select u.id, u.email, u.name, u.is_admin as "isAdmin", u.email_verified is not null as "isAddressProven",
             coalesce((select json_agg(json_build_object('eventId', s.event_id, 'role', s.role)) from event_staff s where s.user_id = u.id), '[]') as staff,
             coalesce((select json_agg(m.organisation_id) from organisation_members m where m.user_id = u.id and m.role = 'organiser'), '[]') as "organiserOf"
-       from users u where u.id = :userId and u.suspended_at is null`,
-    { replacements: { userId }, type: QueryTypes.SELECT },
+       from users u where u.id = :userId and u.suspended_at is null and u.session_version = :sessionVersion`,
+    { replacements: { userId, sessionVersion }, type: QueryTypes.SELECT },
   );
   if (!row) return null;
   const eventRoles: Record<string, Role[]> = {};
   for (const s of row.staff) (eventRoles[s.eventId] ??= []).push(s.role);
-  return { id: row.id, email: row.email, name: row.name, isAdmin: row.isAdmin, eventRoles, organiserOf: row.organiserOf };
+  return { id: row.id, email: row.email, name: row.name, isAdmin: row.isAdmin, isAddressProven: row.isAddressProven, eventRoles, organiserOf: row.organiserOf };
 }
 
 /**
@@ -49,7 +51,9 @@ export async function getActor(): Promise<Actor | null> {
     secret: getAuthOptions().secret,
   });
   const id = typeof token?.uid === 'string' ? token.uid : null;
-  return id ? loadActor(id) : null;
+  // A token from before session versions counts as version 0.
+  const version = typeof token?.sv === 'number' && Number.isInteger(token.sv) ? token.sv : 0;
+  return id ? loadActor(id, version) : null;
 }
 
 /** Roles a person holds in a scope: everyone signed in is an entrant; staff roles are per event. */

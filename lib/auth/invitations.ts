@@ -7,6 +7,7 @@ import { assertCan, type Actor } from './actor';
 import { sendMail, linkMail } from '@/lib/mail/send';
 import type { EventStaffRole } from '@/lib/constants';
 import { InviteStaffInput } from '@/lib/validations/auth';
+import { wipeUnprovenPassword } from './sessions';
 
 const INVITATION_DAYS = 14;
 const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
@@ -83,6 +84,12 @@ export async function acceptInvitation(token: string) {
     // A suspended account takes no new role: the invitation stays unused (the transaction rolls
     // back) and next-auth turns the error into the sign-in page's message.
     if (user.suspendedAt) throw new Error('AccountSuspended');
+    // Following the invitation proves the mailbox. An account made earlier under this address but
+    // never proven may belong to somebody else: its password and sessions end here.
+    if (!user.emailVerified) {
+      await wipeUnprovenPassword(user.email, transaction);
+      await user.update({ emailVerified: new Date() }, { transaction });
+    }
     await models.EventStaff.findOrCreate({
       where: { eventId: inv.eventId, userId: user.id, role: inv.role },
       defaults: { eventId: inv.eventId, userId: user.id, role: inv.role },

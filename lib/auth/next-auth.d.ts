@@ -8,5 +8,6 @@ declare module 'next-auth' {
 declare module 'next-auth/jwt' {
   interface JWT {
     uid?: string;
+    sv?: number; // the session version it was issued under (lib/auth/sessions.ts)
   }
 }

@@ -3,13 +3,19 @@ import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
 import EmailProvider from 'next-auth/providers/email';
 import SequelizeAdapter from '@next-auth/sequelize-adapter';
-import bcrypt from 'bcryptjs';
+import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/db';
 import { sendMail, linkMail } from '@/lib/mail/send';
-import { recordAttempt, clearAttempts } from './throttle';
+import { getClientAddress } from '@/lib/http/client-address';
+import { safeRedirectPath } from '@/lib/http/safe-redirect';
+import { recordAttempt } from './throttle';
 import { acceptInvitation } from './invitations';
+import { checkPasswordSignIn } from './password-sign-in';
+import { endAllSessions, wipeUnprovenPassword } from './sessions';
+import { proveAddress } from '@/lib/accounts/prove-address';
 
-const SIGN_IN_LIMIT = Number(process.env.SIGN_IN_LIMIT_PER_15_MIN ?? 10);
+// E-mailed sign-in links per address asked for: a few an hour, so nobody can flood a mailbox.
+const LINKS_PER_ADDRESS_PER_HOUR = 5;
 
 let cached: NextAuthOptions | undefined;
 
@@ -35,16 +41,9 @@ export function getAuthOptions(): NextAuthOptions {
         id: 'password',
         name: 'E-mail and password',
         credentials: { email: { label: 'E-mail', type: 'email' }, password: { label: 'Password', type: 'password' } },
-        async authorize(credentials) {
-          const email = String(credentials?.email ?? '').trim().toLowerCase();
-          const password = String(credentials?.password ?? '');
-          if (!email || !password) return null;
-          const throttle = await recordAttempt(`signin:${email}`, { limit: SIGN_IN_LIMIT, windowS: 15 * 60 });
-          if (!throttle.allowed) throw new Error('TooManyAttempts');
-          const user = await models.User.findOne({ where: { email } });
-          if (!user?.passwordHash || !(await bcrypt.compare(password, user.passwordHash))) return null;
-          await clearAttempts(`signin:${email}`);
-          return { id: user.id, email: user.email, name: user.name };
+        async authorize(credentials, req) {
+          const address = getClientAddress(new Headers((req?.headers ?? {}) as Record<string, string>));
+          return checkPasswordSignIn(String(credentials?.email ?? ''), String(credentials?.password ?? ''), address);
         },
       }),
       CredentialsProvider({
@@ -56,11 +55,22 @@ export function getAuthOptions(): NextAuthOptions {
           return user ? { id: user.id, email: user.email, name: user.name } : null;
         },
       }),
+      CredentialsProvider({
+        id: 'address-proof',
+        name: 'Address confirmation',
+        credentials: { token: { label: 'Link', type: 'text' }, password: { label: 'Password', type: 'password' } },
+        async authorize(credentials) {
+          return proveAddress(String(credentials?.token ?? ''), String(credentials?.password ?? ''));
+        },
+      }),
       EmailProvider({
         server: process.env.SMTP_URL ?? 'smtp://127.0.0.1:2525',
         from: process.env.MAIL_FROM ?? 'Boreline <no-reply@boreline.invalid>',
         maxAge: 30 * 60,
         async sendVerificationRequest({ identifier, url }) {
+          // Past the limit nothing is sent, and the answer stays the same (no hint to a stranger).
+          const perAddress = await recordAttempt(`link:${identifier.toLowerCase()}`, { limit: LINKS_PER_ADDRESS_PER_HOUR, windowS: 3600 });
+          if (!perAddress.allowed) return;
           await sendMail(
             linkMail({
               to: identifier,
@@ -74,18 +84,40 @@ export function getAuthOptions(): NextAuthOptions {
         },
       }),
     ],
+    events: {
+      // Signing out ends every session of the person, not only this browser's cookie.
+      async signOut({ token }) {
+        if (typeof token?.uid === 'string') await endAllSessions(token.uid);
+      },
+    },
     callbacks: {
       // Every way in (password, e-mailed link, invitation) ends here: a suspended account is refused,
       // only after the password (if any) was right, so the answer tells a stranger nothing.
-      async signIn({ user }) {
+      async signIn({ user, account, email }) {
         if (!user?.email) return true;
         const found = await models.User.findOne({ where: { email: user.email.toLowerCase() }, attributes: ['suspendedAt'] });
         // Absolute: next-auth's client reads the error with new URL(), which needs one.
-        return found?.suspendedAt ? new URL('/sign-in?error=AccountSuspended', process.env.NEXTAUTH_URL ?? 'http://localhost:3000').toString() : true;
+        if (found?.suspendedAt) return new URL('/sign-in?error=AccountSuspended', process.env.NEXTAUTH_URL ?? 'http://localhost:3000').toString();
+        // Following an e-mailed link proves the mailbox. On an account whose address was never
+        // proven, a password was chosen by whoever signed up, perhaps not the mailbox's owner: it
+        // goes, with every session it opened (the adapter then marks the address proven).
+        if (account?.provider === 'email' && !email?.verificationRequest) await wipeUnprovenPassword(user.email);
+        return true;
       },
       async jwt({ token, user }) {
-        if (user) token.uid = user.id;
+        if (user) {
+          // Each session carries the person's session version; raising it ends every session.
+          const [row] = await sequelize.query<{ v: number }>('select session_version as v from users where id = :id', {
+            replacements: { id: user.id },
+            type: QueryTypes.SELECT,
+          });
+          token.uid = user.id;
+          token.sv = row?.v ?? 0;
+        }
         return token;
+      },
+      async redirect({ url, baseUrl }) {
+        return new URL(safeRedirectPath(url, baseUrl, '/home'), baseUrl).toString();
       },
       async session({ session, token }) {
         if (session.user && typeof token.uid === 'string') session.user.id = token.uid;

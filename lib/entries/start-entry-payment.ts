@@ -1,6 +1,7 @@
 import 'server-only';
 import { getDb } from '@/lib/db';
 import { assertCan, type Actor } from '@/lib/auth/actor';
+import { assertAddressProven } from '@/lib/accounts/prove-address';
 import { AppError } from '@/lib/http/errors';
 import { parseId } from '@/lib/http/ids';
 import { createCheckoutSession, getCheckoutSession, type CheckoutInput } from '@/lib/payments/stripe';
@@ -24,6 +25,7 @@ export async function startEntryPayment(actor: Actor | null, entryId: string): P
     include: [{ model: models.Event }, { model: models.RaceClass }, { model: models.Boat }],
   });
   if (!entry) throw new AppError('not_found', 404, 'No such entry among yours.');
+  assertAddressProven(actor); // no fee is tied to an unproven address
   if (entry.status === 'entered') throw new AppError('already_paid', 409, 'This entry is already paid and entered.');
   if (entry.status !== 'awaiting_payment') throw new AppError('conflict', 409, 'This entry was withdrawn or cancelled, so there is nothing to pay.');
   const done = `${appUrl()}/entries?paid=${entry.id}`;

@@ -7,8 +7,10 @@ import { inviteStaff } from '@/lib/auth/invitations';
 import { sendMail } from '@/lib/mail/send';
 
 /**
- * Gives a person a staff role at the event: a registered user gets it at once (and an e-mail);
- * anyone else gets an invitation whose link signs them in with the role.
+ * Gives a person a staff role at the event: a registered user whose address is proven gets it at
+ * once (and an e-mail); anyone else, an unproven account included, gets an invitation whose link,
+ * followed from that mailbox, signs them in with the role. So nobody can pre-register an official's
+ * address and catch the role.
  */
 export async function assignStaff(actor: Actor | null, eventId: string, raw: unknown) {
   assertCan(actor, 'event.staff_manage', { eventId });
@@ -17,7 +19,7 @@ export async function assignStaff(actor: Actor | null, eventId: string, raw: unk
   const event = await models.Event.findByPk(eventId);
   if (!event) throw new AppError('not_found', 404, 'No such event.');
   const user = await models.User.findOne({ where: { email: input.email } });
-  if (!user) return { outcome: 'invited' as const, invitation: await inviteStaff(actor, eventId, input) };
+  if (!user?.emailVerified) return { outcome: 'invited' as const, invitation: await inviteStaff(actor, eventId, input) };
   const [, created] = await models.EventStaff.findOrCreate({
     where: { eventId, userId: user.id, role: input.role },
     defaults: { eventId, userId: user.id, role: input.role },

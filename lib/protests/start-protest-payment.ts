@@ -1,6 +1,7 @@
 import 'server-only';
 import { getDb } from '@/lib/db';
 import { assertCan, type Actor } from '@/lib/auth/actor';
+import { assertAddressProven } from '@/lib/accounts/prove-address';
 import { AppError } from '@/lib/http/errors';
 import { createCheckoutSession, getCheckoutSession, type CheckoutInput } from '@/lib/payments/stripe';
 import { recordAuditEvent } from '@/lib/audit/record-audit-event';
@@ -18,6 +19,7 @@ export async function startProtestPayment(actor: Actor | null, protestId: string
   const { protest, isLodger } = await findProtestForActor(actor, protestId);
   if (!isLodger) throw new AppError('forbidden', 403, 'Only the protester pays the protest fee.');
   assertCan(actor, 'protest.lodge', { eventId: protest.eventId });
+  assertAddressProven(actor); // no fee is tied to an unproven address
   if (protest.paidAt) throw new AppError('already_paid', 409, 'The protest fee is already paid.');
   if (protest.status !== 'awaiting_fee') throw new AppError('conflict', 409, 'This protest is not waiting for its fee.');
   const { models } = getDb();

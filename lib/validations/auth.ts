@@ -26,5 +26,7 @@ export const InviteStaffInput = z.object({
 export type InviteStaffInput = z.infer<typeof InviteStaffInput>;
 
 export const ChangePasswordInput = z.object({
+  // Required when the account has a password (people invited by e-mail may have none yet).
+  currentPassword: z.string().max(1000, 'That is not your current password.').optional().default(''),
   password: SignUpInput.shape.password,
 });

@@ -15,7 +15,7 @@ after(async () => { await browser?.close(); });
 test('admin: suspend an account with a reason, the person is refused, then lift it', async () => {
   const email = uniqueEmail('admin-journey');
   const signup = await new HttpSession().json('/api/accounts', { name: 'Wren Halloway', email, password: 'wren-long-password' });
-  assert.equal(signup.res.status, 201);
+  assert.equal(signup.res.status, 202);
 
   const person = await (await newContext(browser, PHONE)).newPage();
   await signInWithPassword(person, email, 'wren-long-password');

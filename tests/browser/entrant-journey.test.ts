@@ -10,7 +10,7 @@ import { DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
 import { HttpSession } from '../support/http-session';
 import { inspectionBody } from '../support/inspection-meeting';
 import { query } from '../support/db';
-import { waitForMail } from '../support/mail';
+import { waitForMail, firstLink } from '../support/mail';
 
 let browser: Browser;
 before(async () => { browser = await launchBrowser(); });
@@ -33,7 +33,15 @@ test('entrant: sign up → register a boat → enter the demo meeting → declar
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill('a-good-long-password');
   await page.getByRole('button', { name: 'Create account' }).click();
-  await page.waitForURL('**/home');
+  await page.getByTestId('sign-up-sent').waitFor();
+  // The address is confirmed from the mailed link with the password chosen at sign-up.
+  const confirmMail = await waitForMail(email, { subject: /Confirm your e-mail address/ });
+  await page.goto(firstLink(confirmMail));
+  await page.getByLabel('Your password').fill('a-good-long-password');
+  await page.getByRole('button', { name: 'Confirm and sign in' }).click();
+  await page.waitForURL('**/account?confirmed=1');
+  assert.equal(await page.getByTestId('address-state').innerText(), 'confirmed');
+  await page.goto('/home');
 
   await page.getByTestId('main-nav').getByRole('link', { name: 'My boats' }).click();
   await page.waitForURL('**/boats');

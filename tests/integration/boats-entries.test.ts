@@ -55,9 +55,7 @@ before(async () => {
 async function newEntrant(name: string) {
   const s = new HttpSession();
   const email = uniqueEmail('boats');
-  const { res } = await s.json('/api/accounts', { name, email, password: 'long-enough-pw' });
-  assert.equal(res.status, 201);
-  assert.equal((await s.signInWithPassword(email, 'long-enough-pw')).status, 200);
+  await s.signUpAndConfirm({ name, email, password: 'long-enough-pw' });
   return Object.assign(s, { email });
 }
 

@@ -37,8 +37,7 @@ before(async () => {
 async function enteredEntrant() {
   const s = new HttpSession();
   const email = uniqueEmail('payer');
-  await s.json('/api/accounts', { name: 'Nia Stanway', email, password: 'long-enough-pw' });
-  assert.equal((await s.signInWithPassword(email, 'long-enough-pw')).status, 200);
+  await s.signUpAndConfirm({ name: 'Nia Stanway', email, password: 'long-enough-pw' });
   const boat = await s.json('/api/boats', { name: 'Cascade Hawk', nozzleDiameter: 101.2, power: 220 });
   assert.equal(boat.res.status, 201, JSON.stringify(boat.body));
   const entry = await s.json('/api/entries', { boatId: boat.body.data.id, eventId: PAID_EVENT, classId: PAID_CLASS });

@@ -34,8 +34,7 @@ export type Competitor = Person & { entryId: string; raceNumber: number };
 export async function person(prefix: string): Promise<Person> {
   const s = new HttpSession();
   const email = uniqueEmail(prefix);
-  await s.json('/api/accounts', { name: `${prefix} Tester`, email, password: PW });
-  assert.equal((await s.signInWithPassword(email, PW)).status, 200);
+  await s.signUpAndConfirm({ name: `${prefix} Tester`, email, password: PW });
   const [{ id }] = await query<{ id: string }>('select id from users where email = $1', [email]);
   return { s, id, email };
 }

@@ -17,10 +17,10 @@ async function signInAnswer(s: HttpSession, email: string, password: string) {
   return { status: res.status, url: String(body?.url ?? res.headers.get('location') ?? '') };
 }
 
-test('suspend: refused sign-in and a dead open session; lift: access again; only the administrator may', async () => {
+test('suspend: refused sign-in and a dead open session; lift: signing in works again, the old session stays ended; only the administrator may', async () => {
   const email = uniqueEmail('suspended');
   const person = new HttpSession();
-  assert.equal((await person.json('/api/accounts', { name: 'Orrin Vale', email, password: PASSWORD })).res.status, 201);
+  assert.equal((await person.json('/api/accounts', { name: 'Orrin Vale', email, password: PASSWORD })).res.status, 202);
   await person.signInWithPassword(email, PASSWORD);
   assert.equal((await person.fetch('/api/boats')).status, 200, 'signed in');
   const [{ id }] = await query<{ id: string }>('select id from users where email = $1', [email]);
@@ -78,8 +78,9 @@ test('suspend: refused sign-in and a dead open session; lift: access again; only
   assert.equal(lifted.status, 200);
   assert.equal((await lifted.json()).data.suspendedAt, null);
   assert.equal((await admin.fetch(url, { method: 'DELETE' })).status, 409, 'not suspended any more');
-  assert.equal((await person.fetch('/api/boats')).status, 200, 'the session works again');
+  assert.equal((await person.fetch('/api/boats')).status, 401, 'a session ended by the suspension stays ended');
   const again = new HttpSession();
   await again.signInWithPassword(email, PASSWORD);
   assert.equal((await again.session())?.user?.email, email);
+  assert.equal((await again.fetch('/api/boats')).status, 200, 'a new sign-in works again');
 });

@@ -1,12 +1,13 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { SignInForm } from './sign-in-form';
+import { appOrigin, safeRedirectPath } from '@/lib/http/safe-redirect';
 
 export const metadata: Metadata = { title: 'Sign in' };
 
 const MESSAGES: Record<string, string> = {
   CredentialsSignin: 'That e-mail and password do not match an account.',
-  TooManyAttempts: 'Too many attempts for this account: wait 15 minutes, or sign in with an e-mailed link.',
+  TooManyAttempts: 'Too many failed attempts: wait 15 minutes, or sign in with an e-mailed link.',
   AccountSuspended: 'This account is suspended. Ask the site administrator why, and to lift it.',
   Verification: 'That sign-in link has expired or was already used. Ask for a new one.',
   SessionRequired: 'Sign in to see that page.',
@@ -14,7 +15,7 @@ const MESSAGES: Record<string, string> = {
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<{ error?: string; callbackUrl?: string }> }) {
   const { error, callbackUrl } = await searchParams;
-  const safeCallback = callbackUrl?.startsWith('/') && !callbackUrl.startsWith('//') ? callbackUrl : '/home';
+  const safeCallback = safeRedirectPath(callbackUrl, appOrigin());
   return (
     <div className="space-y-5">
       <h1 className="text-2xl">Sign in</h1>

@@ -6,8 +6,10 @@ import { useRouter } from 'next/navigation';
 
 const MESSAGES: Record<string, string> = {
   CredentialsSignin: 'That e-mail and password do not match an account.',
-  TooManyAttempts: 'Too many attempts for this account: wait 15 minutes, or sign in with an e-mailed link.',
+  TooManyAttempts: 'Too many failed attempts: wait 15 minutes, or sign in with an e-mailed link.',
   AccountSuspended: 'This account is suspended. Ask the site administrator why, and to lift it.',
+  TooManyLinks: 'Too many sign-in links were asked for from here: wait a while, then try again.',
+  Unavailable: 'Boreline could not be reached: check the connection and try again.',
 };
 
 export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string; initialError?: string }) {
@@ -22,10 +24,11 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
     const email = String(form.get('email') ?? '');
     setBusy(true);
     setError(undefined);
-    const res =
-      mode === 'password'
-        ? await signIn('password', { email, password: String(form.get('password') ?? ''), redirect: false, callbackUrl })
-        : await signIn('email', { email, redirect: false, callbackUrl });
+    // A refused link request (too many from this address) makes next-auth's client throw.
+    const res = await (mode === 'password'
+      ? signIn('password', { email, password: String(form.get('password') ?? ''), redirect: false, callbackUrl })
+      : signIn('email', { email, redirect: false, callbackUrl })
+    ).catch(() => ({ error: mode === 'link' ? 'TooManyLinks' : 'Unavailable' }));
     setBusy(false);
     if (!res || res.error) {
       setError(MESSAGES[res?.error ?? ''] ?? 'Sign-in failed. Check the address and try again.');

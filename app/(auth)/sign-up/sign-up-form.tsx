@@ -1,8 +1,6 @@
 'use client';
 
 import { useState } from 'react';
-import { signIn } from 'next-auth/react';
-import { useRouter } from 'next/navigation';
 import { SignUpInput } from '@/lib/validations/auth';
 import { fieldErrors } from '@/lib/http/errors';
 import { TextField } from '@/components/ui/text-field';
@@ -10,9 +8,9 @@ import { TextField } from '@/components/ui/text-field';
 type Errors = Partial<Record<'name' | 'email' | 'password' | 'form', string>>;
 
 export function SignUpForm() {
-  const router = useRouter();
   const [errors, setErrors] = useState<Errors>({});
   const [isBusy, setBusy] = useState(false);
+  const [sentTo, setSentTo] = useState<string | null>(null);
 
   async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
     e.preventDefault();
@@ -38,14 +36,22 @@ export function SignUpForm() {
       setBusy(false);
       return;
     }
-    const signedIn = await signIn('password', { email: parsed.data.email, password: parsed.data.password, redirect: false });
     setBusy(false);
-    if (signedIn?.error) {
-      setErrors({ form: 'Your account was created, but signing in failed: sign in by hand.' });
-      return;
-    }
-    router.push('/home');
-    router.refresh();
+    setSentTo(parsed.data.email);
+  }
+
+  if (sentTo) {
+    // The same answer whether or not the address already had an account (nothing to learn here).
+    return (
+      <div role="status" className="card space-y-2" data-testid="sign-up-sent">
+        <h2 className="text-xl">Check your mailbox</h2>
+        <p>
+          We sent a message to <strong>{sentTo}</strong>. Follow its link and give your password to confirm the address: you
+          need a confirmed address to enter classes, pay fees or serve on a meeting&apos;s staff.
+        </p>
+        <p className="text-ink-soft">Nothing arrived after a few minutes? Check the spam folder, or sign in and ask for a new link on My account.</p>
+      </div>
+    );
   }
 
   return (

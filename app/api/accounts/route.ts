@@ -1,8 +1,9 @@
-// POST /api/accounts: an entrant signs up with name, e-mail and password.
+// POST /api/accounts: an entrant signs up with name, e-mail and password; 202 and a link to confirm the address.
 import { publicHandler, readJson } from '@/lib/http/handler';
+import { getClientAddress } from '@/lib/http/client-address';
 import { createAccount } from '@/lib/accounts/create-account';
 
 export const POST = publicHandler(async (req) => {
-  const account = await createAccount(await readJson(req));
-  return Response.json({ data: account }, { status: 201 });
+  const answer = await createAccount(await readJson(req), getClientAddress(req.headers));
+  return Response.json({ data: answer }, { status: 202 });
 });
