@@ -1,4 +1,3 @@
-import 'server-only';
 import { randomBytes, scrypt as scryptCb, timingSafeEqual, type ScryptOptions } from 'node:crypto';
 import bcrypt from 'bcryptjs';
 
