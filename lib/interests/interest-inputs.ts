@@ -7,6 +7,7 @@ export const INTEREST_KIND_LABELS = {
   team: 'A team, club or sponsor (name it)',
 } as const;
 export type InterestKind = keyof typeof INTEREST_KIND_LABELS;
+export const INTEREST_KIND_SHORT: Record<InterestKind, string> = { boat: 'Boat', entrant: 'Entrant', team: 'Team' };
 
 const text = (min: number, max: number, tooShort: string) =>
   z.string({ error: tooShort }).trim().min(min, tooShort).max(max, `Keep this under ${max} characters.`);

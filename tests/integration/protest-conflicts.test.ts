@@ -87,6 +87,16 @@ test('a steward who declared an interest in the protested boat is refused, and w
   const decided = await step(S2.s, 'decision', { outcome: 'dismissed', reasons: 'The nozzle exit measured within the maximum.' });
   assert.equal(decided.res.status, 403, 'withdrawn after the protest came in: still an interest in it');
 
+  // The protested entrant, were they a steward of the meeting, is refused too.
+  await query(`insert into event_staff (event_id, user_id, role) values ($1, $2, 'steward')`, [EVENT, T.id]);
+  try {
+    const own = await step(T.s, 'hearing', { hearingAt: '2030-01-01T10:00', place: 'Race office' });
+    assert.equal(own.res.status, 403);
+    assert.match(own.body.error.message, /you entered or own the protested boat/);
+  } finally {
+    await query(`delete from event_staff where event_id = $1 and user_id = $2 and role = 'steward'`, [EVENT, T.id]);
+  }
+
   const panel = await step(steward, 'decision', { outcome: 'dismissed', reasons: 'The nozzle exit measured within the maximum.', panelIds: [S2.id] });
   assert.equal(panel.res.status, 400);
   assert.equal(panel.body.error.details[0].field, 'panelIds');

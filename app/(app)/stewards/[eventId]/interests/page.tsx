@@ -4,7 +4,7 @@ import { notFound, redirect } from 'next/navigation';
 import { getActor, can } from '@/lib/auth/actor';
 import { parseId } from '@/lib/http/ids';
 import { listInterestRegister } from '@/lib/interests/list-interest-register';
-import { INTEREST_KIND_LABELS } from '@/lib/interests/interest-inputs';
+import { INTEREST_KIND_SHORT } from '@/lib/interests/interest-inputs';
 import { DeclareInterestForm } from './declare-interest-form';
 import { WithdrawInterestForm } from './withdraw-interest-form';
 
@@ -45,7 +45,7 @@ export default async function InterestRegisterPage({ params }: { params: Promise
                 {r.items.map((i) => (
                   <tr key={i.id} className="border-t border-paper-line align-top" data-interest-id={i.id} data-standing={i.withdrawal ? 'no' : 'yes'}>
                     <td className="p-2">{i.officialName}<br /><span className="text-ink-soft">{i.officialRoles.join(', ').replace(/_/g, ' ')}</span></td>
-                    <td className="p-2"><span className="text-ink-soft">{INTEREST_KIND_LABELS[i.kind].split(' (')[0]}:</span> <strong>{i.subjectLabel}</strong></td>
+                    <td className="p-2"><span className="text-ink-soft">{INTEREST_KIND_SHORT[i.kind]}:</span> <strong>{i.subjectLabel}</strong></td>
                     <td className="p-2 whitespace-pre-wrap">{i.statement}</td>
                     <td className="p-2">{i.declaredAtLabel}</td>
                     <td className="p-2">
