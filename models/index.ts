@@ -12,6 +12,7 @@ import { ProvisionalResults, initProvisionalResults } from './provisional-result
 import { Protest, ProtestEvidence, initProtests } from './protest';
 import { AuditEvent, initAuditEvents } from './audit-event';
 import { CustodyItem, CustodyRelease, initCustody } from './custody';
+import { OfficialInterest, OfficialInterestWithdrawal, initOfficialInterests } from './official-interest';
 
 // Defines every model and association on one Sequelize instance. Tables come from migrations/.
 export function initModels(sequelize: Sequelize) {
@@ -28,6 +29,7 @@ export function initModels(sequelize: Sequelize) {
   initProtests(sequelize);
   initAuditEvents(sequelize);
   initCustody(sequelize);
+  initOfficialInterests(sequelize);
 
   Account.belongsTo(User, { foreignKey: 'userId' });
   Session.belongsTo(User, { foreignKey: 'userId' });
@@ -71,12 +73,14 @@ export function initModels(sequelize: Sequelize) {
   AuditEvent.belongsTo(Event, { foreignKey: 'eventId' });
   CustodyItem.belongsTo(Entry, { foreignKey: 'entryId' });
   CustodyItem.hasOne(CustodyRelease, { foreignKey: 'itemId', as: 'release' });
+  OfficialInterest.hasOne(OfficialInterestWithdrawal, { foreignKey: 'interestId', as: 'withdrawal' });
 
   return {
     User, Account, Session, VerificationToken, Organisation, OrganisationMember, Event, EventStaff, StaffInvitation,
     RaceClass, ClassRuleVersion, Boat, BoatDocument, BoatTag, Entry, PaymentEvent,
     Instrument, Inspection, InspectionPhoto, Reinspection, ParityReport,
     ProvisionalResults, Protest, ProtestEvidence, AuditEvent, CustodyItem, CustodyRelease,
+    OfficialInterest, OfficialInterestWithdrawal,
   };
 }
 
@@ -86,4 +90,5 @@ export {
   RaceClass, ClassRuleVersion, Boat, BoatDocument, BoatTag, Entry, PaymentEvent,
   Instrument, Inspection, InspectionPhoto, Reinspection, ParityReport,
   ProvisionalResults, Protest, ProtestEvidence, AuditEvent, CustodyItem, CustodyRelease,
+  OfficialInterest, OfficialInterestWithdrawal,
 };

@@ -32,6 +32,7 @@ export class Protest extends Model<InferAttributes<Protest>, InferCreationAttrib
   declare penalty: CreationOptional<string | null>;
   declare decidedAt: CreationOptional<Date | null>;
   declare decidedByIds: CreationOptional<string[]>;
+  declare decidedByNames: CreationOptional<string[]>; // as they were named when they decided
   declare appealDeadline: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -82,6 +83,7 @@ export function initProtests(sequelize: Sequelize) {
       penalty: { type: DataTypes.TEXT },
       decidedAt: { type: DataTypes.DATE },
       decidedByIds: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+      decidedByNames: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
       appealDeadline: { type: DataTypes.DATE },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,

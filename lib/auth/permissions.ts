@@ -33,6 +33,9 @@ export const PERMISSIONS = {
   'protest.decide': ['steward'],
   'protest.view_all': ['steward', 'organiser'],
   'audit.read': ['steward', 'organiser'],
+  // Conflicts of interest: every official declares their own; stewards and the organiser read the whole register
+  'interest.declare': ['scrutineer', 'chief_scrutineer', 'steward', 'organiser'],
+  'interest.view_register': ['steward', 'organiser'],
   // Site
   'admin.manage_users': ['admin'],
   'dev.outbox': ['admin', 'organiser'],

@@ -10,6 +10,7 @@ import { REJECTION_LABELS } from './protest-states';
 import { formatInZone } from './protest-window';
 import { notifyParties } from './notify-parties';
 import { getProtest, type ProtestDetail } from './get-protest';
+import { namesOfOfficials } from './names-of-officials';
 
 /**
  * The stewards' first look: accept a lodged protest for a hearing, or reject it as invalid (out of
@@ -31,7 +32,7 @@ export async function acceptOrRejectProtest(actor: Actor | null, protestId: stri
       if (protest.status !== 'lodged' && protest.status !== 'awaiting_fee') throw new AppError('conflict', 409, 'Only a protest not yet accepted can be rejected as invalid.');
       const decidedAt = new Date();
       await protest.update({
-        status: 'rejected', rejectionCode: input.code, decisionReasons: input.reasons, decidedAt, decidedByIds: [actor!.id],
+        status: 'rejected', rejectionCode: input.code, decisionReasons: input.reasons, decidedAt, decidedByIds: [actor!.id], decidedByNames: await namesOfOfficials([actor!.id], transaction),
         appealDeadline: addMinutes(decidedAt, event.appealNoticeMinutes),
       }, { transaction });
       await recordAuditEvent({ eventId: protest.eventId, actorId: actor!.id, subjectType: 'protest', subjectId: protest.id, action: 'protest.rejected', details: { code: input.code, reasons: input.reasons } }, transaction);

@@ -13,6 +13,8 @@ import { DECIDABLE_STATUSES, PROTEST_STATUS_LABELS, type ProtestStatus } from '.
 import { formatInZone } from './protest-window';
 import { notifyParties } from './notify-parties';
 import { getProtest, type ProtestDetail } from './get-protest';
+import { namesOfOfficials } from './names-of-officials';
+import { findProtestConflicts } from '@/lib/interests/find-protest-conflicts';
 
 /**
  * The stewards' decision: upheld, dismissed or withdrawn, with reasons and, when upheld, any
@@ -36,7 +38,16 @@ export async function decideProtest(actor: Actor | null, protestId: string, raw:
     if (panel.length) {
       const stewards = await models.EventStaff.count({ where: { eventId: protest.eventId, role: 'steward', userId: { [Op.in]: panel } }, transaction });
       if (stewards !== panel.length) throw new AppError('invalid_input', 400, 'panelIds: name only stewards of this meeting.', [{ field: 'panelIds', message: 'Name only stewards of this meeting.' }]);
+      // A steward with an interest cannot sit on the panel either (the deciding steward was checked above).
+      const conflicted = await findProtestConflicts(protest.id, panel, transaction);
+      if (conflicted.length) {
+        const names = await namesOfOfficials(conflicted.map((c) => c.officialId), transaction);
+        const message = `${names.join(', ')} ${names.length === 1 ? 'has' : 'have'} an interest in this protest and cannot sit on the panel.`;
+        throw new AppError('invalid_input', 400, `panelIds: ${message}`, [{ field: 'panelIds', message }]);
+      }
     }
+    const decidedByIds = [actor!.id, ...panel];
+    const decidedByNames = await namesOfOfficials(decidedByIds, transaction);
     let refund: { id: string } | null = null;
     if (input.outcome === 'upheld' && protest.paymentIntentId && !protest.refundId) {
       refund = await refundPayment({ paymentIntentId: protest.paymentIntentId, idempotencyKey: `protest-fee-refund-${protest.id}`, metadata: { kind: 'protest', protestId: protest.id } })
@@ -49,12 +60,12 @@ export async function decideProtest(actor: Actor | null, protestId: string, raw:
     const event = (await models.Event.findByPk(protest.eventId, { attributes: ['appealNoticeMinutes'], transaction }))!;
     const decidedAt = new Date();
     await protest.update({
-      status: input.outcome, decisionReasons: input.reasons, penalty: input.penalty || null, decidedAt, decidedByIds: [actor!.id, ...panel],
+      status: input.outcome, decisionReasons: input.reasons, penalty: input.penalty || null, decidedAt, decidedByIds, decidedByNames,
       appealDeadline: addMinutes(decidedAt, event.appealNoticeMinutes), ...(refund && { refundId: refund.id, refundedAt: decidedAt }),
     }, { transaction });
     await recordAuditEvent({
       eventId: protest.eventId, actorId: actor!.id, subjectType: 'protest', subjectId: protest.id, action: `protest.${input.outcome}`,
-      details: { reasons: input.reasons, penalty: input.penalty || null, decidedByIds: [actor!.id, ...panel], refundId: refund?.id ?? null },
+      details: { reasons: input.reasons, penalty: input.penalty || null, decidedByIds, decidedByNames, refundId: refund?.id ?? null },
     }, transaction);
     return { input, refunded: Boolean(refund), feeMinor: protest.feeMinor, currency: protest.currency };
   });

@@ -5,6 +5,7 @@ import { can, type Actor } from '@/lib/auth/actor';
 import { AppError } from '@/lib/http/errors';
 import { parseId } from '@/lib/http/ids';
 import type { Protest } from '@/models';
+import { describeConflict, findProtestConflicts } from '@/lib/interests/find-protest-conflicts';
 
 export type ProtestAccess = {
   protest: Protest;
@@ -39,9 +40,18 @@ export async function findProtestForActor(actor: Actor | null, protestId: string
   return { protest, isLodger, isProtested, isOfficial, canDecide: can(actor, 'protest.decide', scope) };
 }
 
-/** For steps only the meeting's stewards take: a party or the organiser who can see it gets 403. */
+/**
+ * For steps only the meeting's stewards take (accept, reject, re-inspection, hearing, decision): a
+ * party or the organiser who can see it gets 403, and so does a steward with an interest in it
+ * (lib/interests/find-protest-conflicts.ts): the role alone is not enough.
+ */
 export async function findProtestForSteward(actor: Actor | null, protestId: string, transaction: Transaction): Promise<ProtestAccess> {
   const access = await findProtestForActor(actor, protestId, { transaction, lock: true });
   if (!access.canDecide) throw new AppError('forbidden', 403, 'Only the stewards of this meeting can do this.');
+  const [conflict] = await findProtestConflicts(access.protest.id, [actor!.id], transaction);
+  if (conflict) {
+    const why = conflict.reasons.map((r) => describeConflict(r)).join('; ');
+    throw new AppError('conflict_of_interest', 403, `You have an interest in this protest (${why}): another steward of this meeting must accept, hear and decide it.`);
+  }
   return access;
 }

@@ -58,8 +58,10 @@ export async function queryProtestSummaries(where: string, replacements: Record<
             p.fee_minor as "feeMinor", p.currency, p.paid_at as "paidAt", p.refund_id as "refundId", p.refunded_at as "refundedAt",
             p.rejection_code as "rejectionCode", p.hearing_at as "hearingAt", p.hearing_place as "hearingPlace",
             p.decision_reasons as "decisionReasons", p.penalty, p.decided_at as "decidedAt", p.appeal_deadline as "appealDeadline",
+            -- The names kept on the decision; older decisions read the current names.
+            case when jsonb_array_length(p.decided_by_names) > 0 then p.decided_by_names::json else
             (select coalesce(json_agg(coalesce(s.name, s.email) order by s.name), '[]'::json) from users s
-              where s.id::text in (select jsonb_array_elements_text(p.decided_by_ids))) as "decidedByNames"
+              where s.id::text in (select jsonb_array_elements_text(p.decided_by_ids))) end as "decidedByNames"
        from protests p
        join events ev on ev.id = p.event_id
        join users u on u.id = p.lodged_by_id

@@ -93,6 +93,13 @@ export const ROUTES: Row[] = [
   { method: 'GET', file: `${E}/custody/route.ts`, path: (i) => `${ev(i)}/custody`, access: { anyOf: ['custody.view'] } },
   { method: 'POST', file: `${E}/custody/route.ts`, path: (i) => `${ev(i)}/custody`, access: { anyOf: ['custody.take'] } },
   { method: 'POST', file: `${E}/custody/[itemId]/release/route.ts`, path: (i) => `${ev(i)}/custody/${i.missingId}/release`, access: { anyOf: ['custody.release'] } },
+  // The register of declared interests (officials of the meeting; the whole register for stewards and organiser)
+  { method: 'GET', file: `${E}/interests/route.ts`, path: (i) => `${ev(i)}/interests`, access: { anyOf: ['interest.declare'] } },
+  { method: 'POST', file: `${E}/interests/route.ts`, path: (i) => `${ev(i)}/interests`, access: { anyOf: ['interest.declare'] } },
+  { method: 'PUT', file: `${E}/interests/route.ts`, path: (i) => `${ev(i)}/interests`, access: 'method-not-allowed' },
+  { method: 'PATCH', file: `${E}/interests/route.ts`, path: (i) => `${ev(i)}/interests`, access: 'method-not-allowed' },
+  { method: 'DELETE', file: `${E}/interests/route.ts`, path: (i) => `${ev(i)}/interests`, access: 'method-not-allowed' },
+  { method: 'POST', file: `${E}/interests/[interestId]/withdraw/route.ts`, path: (i) => `${ev(i)}/interests/${i.missingId}/withdraw`, access: { anyOf: ['interest.declare'] } },
   // Results, protests and the audit trail
   { method: 'GET', file: `${E}/results/route.ts`, path: (i) => `${ev(i)}/results`, access: 'signed-in' },
   { method: 'POST', file: `${E}/results/route.ts`, path: (i) => `${ev(i)}/results`, access: { anyOf: ['results.publish'] } },

@@ -9,12 +9,13 @@ import { navFor } from '../../lib/navigation';
 
 const EXPECTED: Record<Role, Permission[]> = {
   entrant: ['account.view', 'boat.manage_own', 'entry.submit_own', 'protest.lodge'],
-  scrutineer: ['account.view', 'inspection.record', 'inspection.board', 'custody.take', 'custody.view'],
-  chief_scrutineer: ['account.view', 'entry.view_all', 'tags.print', 'inspection.record', 'inspection.board', 'inspection.assign_reinspection', 'custody.take', 'custody.release', 'custody.view'],
-  steward: ['account.view', 'entry.view_all', 'inspection.assign_reinspection', 'protest.decide', 'protest.view_all', 'audit.read', 'custody.take', 'custody.release', 'custody.view'],
+  scrutineer: ['account.view', 'inspection.record', 'inspection.board', 'custody.take', 'custody.view', 'interest.declare'],
+  chief_scrutineer: ['account.view', 'entry.view_all', 'tags.print', 'inspection.record', 'inspection.board', 'inspection.assign_reinspection', 'custody.take', 'custody.release', 'custody.view', 'interest.declare'],
+  steward: ['account.view', 'entry.view_all', 'inspection.assign_reinspection', 'protest.decide', 'protest.view_all', 'audit.read', 'custody.take', 'custody.release', 'custody.view', 'interest.declare', 'interest.view_register'],
   organiser: [
     'account.view', 'event.create', 'event.edit', 'event.staff_manage', 'class.edit', 'entry.view_all', 'entry.cancel',
     'tags.print', 'report.publish', 'results.publish', 'inspection.board', 'protest.view_all', 'audit.read', 'dev.outbox', 'custody.view',
+    'interest.declare', 'interest.view_register',
   ],
   admin: ['account.view', 'event.create', 'admin.manage_users', 'dev.outbox'],
 };
@@ -32,6 +33,12 @@ for (const role of ROLES) {
 
 test('separation of duties: no one decides a protest and records an inspection with one role', () => {
   for (const role of ROLES) assert.ok(!(roleCan(role, 'protest.decide') && roleCan(role, 'inspection.record')), role);
+});
+
+test('conflicts of interest: every official of a meeting declares; only stewards and the organiser read the whole register; an entrant neither', () => {
+  for (const role of ['scrutineer', 'chief_scrutineer', 'steward', 'organiser'] as const) assert.equal(roleCan(role, 'interest.declare'), true, role);
+  assert.deepEqual(ROLES.filter((r) => roleCan(r, 'interest.view_register')), ['steward', 'organiser']);
+  assert.equal(rolesCan(['entrant', 'admin'], 'interest.declare'), false);
 });
 
 test('an entrant cannot record inspections or decide protests; a combination of roles adds up', () => {

@@ -25,6 +25,7 @@ export default async function StewardQueuePage({ params }: { params: Promise<{ e
         <div className="flex flex-wrap gap-2">
           <Link href={`/inspect/${eventId}/custody`} className="btn-secondary">Parts in custody</Link>
           <Link href={`/stewards/${eventId}/audit`} className="btn-secondary">Audit trail</Link>
+          <Link href={`/stewards/${eventId}/interests`} className="btn-secondary">Declared interests</Link>
         </div>
       </div>
       <p className="text-ink-soft">Window {q.event.protestWindowMinutes} minutes after the results concerned · notice of appeal {q.event.appealNoticeMinutes} minutes after a decision · fee {q.event.protestFeeMinor > 0 ? formatMoney(q.event.protestFeeMinor, q.event.currency) : 'none'} · times in {q.event.timeZone}</p>

@@ -10,6 +10,7 @@ import { EvidenceList } from '../../../../protests/evidence-list';
 import { ProtestFacts } from '../../../../protests/protest-facts';
 import { EvidenceForm } from '../../../../protests/[protestId]/evidence-form';
 import { StewardActions } from './steward-actions';
+import { ConflictNotice } from './conflict-notice';
 import { listCustodyForProtest } from '@/lib/custody/manage-custody';
 import { formatInZone } from '@/lib/protests/protest-window';
 
@@ -37,6 +38,7 @@ export default async function StewardProtestPage({ params }: { params: Promise<{
         <ProtestStatusBadge status={p.status} />
       </div>
       {p.paidAt && p.paidAt > p.windowDeadline && <p role="note" className="rounded-lg bg-doubt-100 p-3 text-doubt-800">The fee was paid after the window closed ({p.windowDeadlineLabel}).</p>}
+      <ConflictNotice p={p} />
       <StewardActions p={p} />
       <ProtestFacts p={p} />
       <section aria-labelledby="evidence" className="card space-y-4">
