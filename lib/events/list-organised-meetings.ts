@@ -9,7 +9,7 @@ export type OrganisedMeeting = {
   venue: string;
   startsOn: string;
   status: EventStatus;
-  staff: { userId: string; name: string | null; email: string; role: EventStaffRole }[];
+  staff: { userId: string; name: string | null; email: string; role: EventStaffRole; isAddressProven: boolean }[];
   pendingInvitations: { email: string; role: EventStaffRole; expiresAt: string }[];
 };
 
@@ -26,7 +26,7 @@ export async function listOrganisedMeetings(actor: Actor): Promise<OrganisedMeet
   if (list.length === 0) return [];
   const ids = list.map((e) => e.id);
   const [staff] = await sequelize.query(
-    `select s.event_id as "eventId", u.id as "userId", u.name, u.email, s.role
+    `select s.event_id as "eventId", u.id as "userId", u.name, u.email, s.role, u.email_verified is not null as "isAddressProven"
        from event_staff s join users u on u.id = s.user_id where s.event_id in (:ids) order by s.role, u.name`,
     { replacements: { ids } },
   );

@@ -31,7 +31,7 @@ export async function signOutEverywhereAction(_prev: ActionResult | null, form: 
   try {
     const actor = await getActor();
     if (!actor) throw new AppError('unauthenticated', 401, 'Sign in to do this.');
-    if (form.get('confirm') !== 'everywhere') return { ok: false, message: 'Confirm that every session should end.' };
+    if (form.get('confirm') !== 'everywhere') return { ok: false, message: 'Confirm that every session should end.', fieldErrors: { confirm: 'Confirm that every session should end.' } };
     await signOutEverywhere(actor);
     return { ok: true, message: 'Every session has ended, this one too.' };
   } catch (err) {
@@ -43,7 +43,7 @@ export async function resendAddressProofAction(_prev: ActionResult | null, form:
   try {
     const actor = await getActor();
     if (!actor) throw new AppError('unauthenticated', 401, 'Sign in to do this.');
-    if (form.get('confirm') !== 'send') return { ok: false, message: 'Confirm that a new link should be sent.' };
+    if (form.get('confirm') !== 'send') return { ok: false, message: 'Confirm that a new link should be sent.', fieldErrors: { confirm: 'Confirm that a new link should be sent.' } };
     const { email } = await resendAddressProof(actor);
     return { ok: true, message: `A new link is on its way to ${email}.` };
   } catch (err) {

@@ -46,7 +46,7 @@ export function InviteStaffForm({ eventId }: { eventId: string }) {
     setMessage(
       body.data.outcome === 'assigned'
         ? `${parsed.data.email} already has an account and now has the role (they were told by e-mail).`
-        : `Invitation sent to ${parsed.data.email}: the link in it signs them in with the role.`,
+        : `Invitation sent to ${parsed.data.email}: the role is given only when the link in it is followed from that mailbox.`,
     );
     router.refresh();
   }

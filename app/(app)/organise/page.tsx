@@ -39,7 +39,12 @@ export default async function OrganisePage() {
             <ul className="mt-2 divide-y divide-paper-line">
               {m.staff.map((s) => (
                 <li key={`${s.userId}-${s.role}`} className="flex flex-wrap justify-between gap-2 py-2">
-                  <span>{s.name ?? s.email} <span className="text-ink-mute">{s.email}</span></span>
+                  <span>
+                    {s.name ?? s.email} <span className="text-ink-mute">{s.email}</span>{' '}
+                    <span data-testid="staff-address-state" className={s.isAddressProven ? 'text-sm text-pass-800' : 'text-sm font-bold text-doubt-800'}>
+                      {s.isAddressProven ? '· address confirmed' : '· address not confirmed'}
+                    </span>
+                  </span>
                   <span className="font-bold">{ROLE_LABEL[s.role]}</span>
                 </li>
               ))}
@@ -50,7 +55,7 @@ export default async function OrganisePage() {
                 <ul className="mt-2 divide-y divide-paper-line">
                   {m.pendingInvitations.map((i) => (
                     <li key={`${i.email}-${i.role}`} className="flex flex-wrap justify-between gap-2 py-2">
-                      <span>{i.email}</span>
+                      <span>{i.email} <span className="text-sm text-ink-mute">· the role waits for whoever holds this mailbox</span></span>
                       <span>{ROLE_LABEL[i.role]} · until {format(parseISO(i.expiresAt), 'd MMM')}</span>
                     </li>
                   ))}
