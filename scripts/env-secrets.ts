@@ -48,7 +48,8 @@ export function fillSecrets(envText: string): { text: string; filled: string[] }
 
 function main() {
   const root = path.resolve(path.dirname(new URL(import.meta.url).pathname), '..');
-  const envFile = path.join(root, '.env');
+  // BORELINE_ENV_FILE lets a test work on a scratch copy instead of the install's own .env.
+  const envFile = path.resolve(process.env.BORELINE_ENV_FILE || path.join(root, '.env'));
   const created = !fs.existsSync(envFile);
   const before = created ? fs.readFileSync(path.join(root, '.env.example'), 'utf8') : fs.readFileSync(envFile, 'utf8');
   const { text, filled } = fillSecrets(before);
@@ -57,8 +58,8 @@ function main() {
     fs.renameSync(`${envFile}.tmp`, envFile);
   }
   fs.chmodSync(envFile, 0o600);
-  if (created) console.log(`[boreline] created .env from .env.example with fresh ${filled.join(', ')}`);
-  else if (filled.length) console.log(`[boreline] .env: replaced ${filled.join(', ')} (empty or a value published in the repository) with fresh values`);
+  if (created) console.log(`[boreline] created ${path.basename(envFile)} from .env.example with fresh ${filled.join(', ')}`);
+  else if (filled.length) console.log(`[boreline] ${path.basename(envFile)}: replaced ${filled.join(', ')} (empty or a value published in the repository) with fresh values`);
 }
 
 if (process.argv[1] && path.resolve(process.argv[1]) === path.resolve(new URL(import.meta.url).pathname)) main();
