@@ -95,6 +95,9 @@ test('the serve check refuses every value once published, the fakes\' generated 
   assert.ok(checkServeConfig({ ...REAL, NEXTAUTH_SECRET: 'short' }, example).some((p) => p.startsWith('NEXTAUTH_SECRET ')));
 });
 
+/** Only what a person's shell would have: the scratch .env decides everything else. */
+const cleanEnv = (envFile: string) => ({ PATH: process.env.PATH, HOME: process.env.HOME, BORELINE_ENV_FILE: envFile }) as unknown as NodeJS.ProcessEnv;
+
 test('the real serve script, on a fresh copy of .env.example: secrets generated, then it refuses to start and names what is left', () => {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'boreline-serve-'));
   const envFile = path.join(dir, '.env');
@@ -102,7 +105,7 @@ test('the real serve script, on a fresh copy of .env.example: secrets generated,
     fs.copyFileSync('.env.example', envFile);
     const run = spawnSync('bash', ['scripts/serve.sh', '--check'], {
       encoding: 'utf8',
-      env: { PATH: process.env.PATH, HOME: process.env.HOME, BORELINE_ENV_FILE: envFile },
+      env: cleanEnv(envFile),
       timeout: 60_000,
     });
     assert.notEqual(run.status, 0, 'it must not start');
@@ -117,7 +120,7 @@ test('the real serve script, on a fresh copy of .env.example: secrets generated,
     // Filled in as a club would: the check passes (and --check stops before starting anything).
     fs.writeFileSync(envFile, Object.entries(REAL).map(([k, v]) => `${k}="${v}"`).join('\n') + '\n');
     const ok = spawnSync('bash', ['scripts/serve.sh', '--check'], {
-      encoding: 'utf8', env: { PATH: process.env.PATH, HOME: process.env.HOME, BORELINE_ENV_FILE: envFile }, timeout: 60_000,
+      encoding: 'utf8', env: cleanEnv(envFile), timeout: 60_000,
     });
     assert.equal(ok.status, 0, ok.stderr);
     assert.match(ok.stdout, /configuration checked/);
