@@ -101,7 +101,8 @@ function describeSecondServer() {
   let app: ChildProcess;
   before(async () => {
     app = spawn('node', ['scripts/server.mjs'], {
-      env: { ...process.env, PORT: String(port), BORELINE_DEV_TOOLS: '', STRIPE_WEBHOOK_SECRET: PUBLISHED_SECRETS.STRIPE_WEBHOOK_SECRET[0] },
+      // Declared behind one proxy, so it leaves compression to the proxy.
+      env: { ...process.env, PORT: String(port), TRUSTED_PROXY_HOPS: '1', BORELINE_DEV_TOOLS: '', STRIPE_WEBHOOK_SECRET: PUBLISHED_SECRETS.STRIPE_WEBHOOK_SECRET[0] },
       stdio: 'ignore',
       detached: true,
     });
@@ -115,6 +116,12 @@ function describeSecondServer() {
   });
   after(() => {
     if (app.pid) process.kill(-app.pid, 'SIGTERM');
+  });
+
+  test('compression: on with no proxy declared, off behind one (the proxy compresses)', async () => {
+    const gz = { 'accept-encoding': 'gzip' };
+    assert.equal((await fetch(`${BASE_URL}/calculator`, { headers: gz })).headers.get('content-encoding'), 'gzip', 'the demo app compresses');
+    assert.equal((await fetch(`http://127.0.0.1:${port}/calculator`, { headers: gz })).headers.get('content-encoding'), null, 'behind a proxy it does not');
   });
 
   test('outside the demo the outbox is 404, even for the site administrator', async () => {
