@@ -29,7 +29,8 @@ export function fillSecrets(envText: string): { text: string; filled: string[] }
   for (const name of SECRET_NAMES) {
     if (!isPublishedSecret(name, current.get(name))) continue;
     const line = `${name}=${generateSecret(name)}`;
-    const pattern = new RegExp(`^\\s*(?:export\\s+)?${name}\\s*=.*$`, 'm');
+    // Every line that sets it (a shell reads the last one), so no stale copy survives.
+    const pattern = new RegExp(`^\\s*(?:export\\s+)?${name}\\s*=.*$`, 'gm');
     text = pattern.test(text) ? text.replace(pattern, line) : `${text.replace(/\n?$/, '\n')}${line}\n`;
     filled.push(name);
   }
@@ -39,7 +40,7 @@ export function fillSecrets(envText: string): { text: string; filled: string[] }
     const u = new URL(db);
     if (u.password === '' || decodeURIComponent(u.password) === 'boreline') {
       u.password = hex(24);
-      text = text.replace(/^\s*(?:export\s+)?DATABASE_URL\s*=.*$/m, `DATABASE_URL=${u.toString()}`);
+      text = text.replace(/^\s*(?:export\s+)?DATABASE_URL\s*=.*$/gm, `DATABASE_URL=${u.toString()}`);
       filled.push('the DATABASE_URL password');
     }
   }

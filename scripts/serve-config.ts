@@ -3,6 +3,7 @@
 // checkServeConfig() is the rule (unit-tested); run as a script it reads the environment and
 // .env.example, prints each problem naming its variable, and exits 1 when there is any.
 import fs from 'node:fs';
+import net from 'node:net';
 import path from 'node:path';
 import { LOCAL_FAKE_MARK, SECRET_NAMES, isPublishedSecret, parseDotenv } from '../lib/config/published-values';
 
@@ -58,10 +59,39 @@ export function checkServeConfig(env: Env, example: Map<string, string>): string
   return problems;
 }
 
-function main() {
+/** Whatever its port, a running fake says so: the payments and storage fakes answer /_fake/health, the mail fake's greeting names it. */
+export async function probeFakes(env: Env): Promise<string[]> {
+  const problems: string[] = [];
+  for (const name of ['STRIPE_API_URL', 'S3_ENDPOINT'] as const) {
+    const v = env[name]?.trim();
+    if (!v || !URL.canParse(v)) continue;
+    const answer = await fetch(new URL('/_fake/health', v), { signal: AbortSignal.timeout(2000) }).then((r) => r.ok).catch(() => false);
+    if (answer) problems.push(`${name} answers as one of Boreline's local fakes: set the real service`);
+  }
+  const smtp = env.SMTP_URL?.trim();
+  if (smtp && URL.canParse(smtp)) {
+    const u = new URL(smtp);
+    const greeting = await new Promise<string>((resolve) => {
+      const socket = net.connect({ host: u.hostname.replace(/^\[|\]$/g, ''), port: Number(u.port || 25) });
+      let text = '';
+      const done = () => { socket.destroy(); resolve(text); };
+      socket.setTimeout(2000, done);
+      socket.on('data', (d) => { text += d.toString('latin1'); if (text.includes('\n')) done(); });
+      socket.on('error', done);
+      socket.on('close', done);
+    });
+    if (greeting.includes('boreline mail fake')) problems.push('SMTP_URL answers as Boreline\'s local mail fake: set your mail provider\'s relay');
+  }
+  return problems;
+}
+
+async function main() {
   const root = path.resolve(path.dirname(new URL(import.meta.url).pathname), '..');
   const example = parseDotenv(fs.readFileSync(path.join(root, '.env.example'), 'utf8'));
-  const problems = checkServeConfig(process.env, example);
+  const found = checkServeConfig(process.env, example);
+  // A fake on a port of its own is still a fake: ask each address what answers there.
+  const named = (p: string) => found.some((f) => f.split(' ')[0] === p.split(' ')[0]);
+  const problems = [...found, ...(await probeFakes(process.env)).filter((p) => !named(p))];
   if (problems.length) {
     console.error('[boreline] not starting: this is a real install (npm run serve), and .env still holds demo values:');
     for (const p of problems) console.error(`  - ${p}`);
@@ -71,4 +101,4 @@ function main() {
   console.log('[boreline] configuration checked: no demo secrets, keys or fake addresses');
 }
 
-if (process.argv[1] && path.resolve(process.argv[1]) === path.resolve(new URL(import.meta.url).pathname)) main();
+if (process.argv[1] && path.resolve(process.argv[1]) === path.resolve(new URL(import.meta.url).pathname)) void main();

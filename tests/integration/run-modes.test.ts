@@ -141,3 +141,33 @@ function describeSecondServer() {
     assert.equal((await query('select 1 from payment_events where id = $1', [JSON.parse(payload).id])).length, 0);
   });
 }
+
+test('the serve check recognises the local fakes on any port by asking them', async () => {
+  const { probeFakes } = await import('../../scripts/serve-config');
+  const { startPaymentsFake } = await import('../../scripts/fakes/payments');
+  const { startStorageFake } = await import('../../scripts/fakes/storage');
+  const { startMailFake } = await import('../../scripts/fakes/mail');
+  const { mkdtempSync, rmSync } = await import('node:fs');
+  const net = await import('node:net');
+  const dir = mkdtempSync(`${os.tmpdir()}/boreline-probe-`);
+  const freePort = () => new Promise<number>((resolve) => { const s = net.createServer().listen(0, '127.0.0.1', () => { const p = (s.address() as { port: number }).port; s.close(() => resolve(p)); }); });
+  const payments = startPaymentsFake({ port: 0, secretKey: 'sk_test_probe', webhookSecret: 'whsec_probe', webhookUrl: 'http://127.0.0.1:9/none', storeFile: `${dir}/p.json` });
+  const storage = startStorageFake({ port: 0, rootDir: `${dir}/s`, accessKeyId: 'probe' });
+  const [smtpPort, httpPort] = [await freePort(), await freePort()];
+  const mail = startMailFake({ smtpPort, httpPort, storeFile: `${dir}/m.json` });
+  try {
+    await Promise.all([payments.server, storage.server].map((s) => (s.listening ? null : new Promise((r) => s.once('listening', r)))));
+    const port = (s: { address(): unknown }) => (s.address() as { port: number }).port;
+    const problems = await probeFakes({
+      STRIPE_API_URL: `http://127.0.0.1:${port(payments.server)}`, S3_ENDPOINT: `http://127.0.0.1:${port(storage.server)}`, SMTP_URL: `smtp://127.0.0.1:${smtpPort}`,
+    });
+    for (const name of ['STRIPE_API_URL', 'S3_ENDPOINT', 'SMTP_URL']) assert.ok(problems.some((p) => p.startsWith(`${name} `)), `${name}: ${JSON.stringify(problems)}`);
+    // Something else on loopback (here the app itself) is not taken for a fake.
+    assert.deepEqual(await probeFakes({ STRIPE_API_URL: BASE_URL, S3_ENDPOINT: '', SMTP_URL: `smtp://127.0.0.1:${await freePort()}` }), []);
+  } finally {
+    payments.server.close();
+    storage.server.close();
+    await mail.close();
+    rmSync(dir, { recursive: true, force: true });
+  }
+});

@@ -61,6 +61,8 @@ test('an .env from an earlier install with the old committed defaults is upgrade
   for (const name of SECRET_NAMES) assert.ok(!PUBLISHED_SECRETS[name].includes(env.get(name)!), name);
   assert.equal(env.get('SMTP_URL'), 'smtp://127.0.0.1:2525');
   assert.ok(text.startsWith('# mine\nPORT=3000\n'));
+  const twice = fillSecrets('NEXTAUTH_SECRET=\nNEXTAUTH_SECRET=replace-me\n').text;
+  assert.equal(twice.match(/replace-me/g), null, 'a repeated line (the shell reads the last) is replaced too');
   const own = fillSecrets('NEXTAUTH_SECRET=my-own-long-secret-value-0123456789\n');
   assert.equal(parseDotenv(own.text).get('NEXTAUTH_SECRET'), 'my-own-long-secret-value-0123456789', 'a person\'s own value is kept');
 });
