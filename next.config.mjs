@@ -22,9 +22,10 @@ const nextConfig = {
   // Tests build into their own folder so they never collide with a running `npm start`.
   distDir: process.env.NEXT_DIST_DIR || '.next',
   poweredByHeader: false,
-  // Compression is the reverse proxy's job (it terminates TLS in front of every app server; see
-  // README, "Scaling past one machine"): gzip in Node costs the app CPU on every answer.
-  compress: false,
+  // Read when the server starts (scripts/server.mjs). Behind a declared reverse proxy
+  // (TRUSTED_PROXY_HOPS >= 1) compression is the proxy's job and gzip in Node would cost the app CPU
+  // on every answer; on one machine with no proxy (0 or unset) nobody else compresses, so the app does.
+  compress: !(Number(process.env.TRUSTED_PROXY_HOPS) >= 1),
   reactStrictMode: true,
   async headers() {
     return [

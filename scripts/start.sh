@@ -1,18 +1,19 @@
 #!/usr/bin/env bash
-# `npm start`: install what is missing, start PostgreSQL and the fakes, migrate, seed the demo,
-# build and serve Boreline on http://localhost:$PORT. Safe to run twice and after a killed run.
+# `npm start`: the demo. Install what is missing, start PostgreSQL and the fakes, migrate, seed the
+# invented scenario, build and serve Boreline on http://127.0.0.1:$PORT (loopback only; set
+# BORELINE_HOST=0.0.0.0 to reach it from the network, with a warning). Safe to run twice and after
+# a killed run. A real install is `npm run serve` (scripts/serve.sh).
 set -euo pipefail
 source "$(dirname "$0")/lib.sh"
 
-if [ ! -f .env ]; then
-  log "creating .env from .env.example with a fresh NEXTAUTH_SECRET"
-  secret="$(node -e 'console.log(require("crypto").randomBytes(32).toString("base64url"))')"
-  sed "s|^NEXTAUTH_SECRET=.*|NEXTAUTH_SECRET=$secret|" .env.example >.env
-fi
-set -a; source .env; set +a
-export NEXT_TELEMETRY_DISABLED=1 BORELINE_DEV_TOOLS=1
-
 ensure_node_modules
+# Every secret is made here, per install, into the ignored .env (none is read from a committed file).
+node_modules/.bin/tsx scripts/env-secrets.ts
+asked_host="${BORELINE_HOST:-}"
+set -a; source .env; set +a
+export BORELINE_HOST="${asked_host:-${BORELINE_HOST:-}}"
+export NEXT_TELEMETRY_DISABLED=1 BORELINE_DEV_TOOLS=1 BORELINE_MODE=demo
+
 bash scripts/pg.sh boreline
 log "migrating and seeding the demo"
 npx sequelize-cli db:migrate >/dev/null
@@ -28,7 +29,7 @@ env -u DATABASE_URL npx next build >.data/run/build.log 2>&1 || { cat .data/run/
 free_port "$PORT"
 cat <<MSG
 
-  Boreline is starting on $NEXTAUTH_URL
+  Boreline (demo) is starting on $NEXTAUTH_URL
 
   Demo sign-ins (password for all: tarnwater-demo)
     organiser         organiser@tarnwater.example
@@ -38,8 +39,8 @@ cat <<MSG
     entrant           entrant@tarnwater.example
     site admin        admin@boreline.example
 
-  E-mail goes to the local fake: ${NEXTAUTH_URL}/dev/outbox
+  E-mail goes to the local fake; the site admin reads it at ${NEXTAUTH_URL}/dev/outbox
   Stop with Ctrl-C.
 
 MSG
-npx next start -p "$PORT"
+node scripts/server.mjs

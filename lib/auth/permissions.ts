@@ -38,7 +38,7 @@ export const PERMISSIONS = {
   'interest.view_register': ['steward', 'organiser'],
   // Site
   'admin.manage_users': ['admin'],
-  'dev.outbox': ['admin', 'organiser'],
+  'dev.outbox': ['admin'], // the demo's outbox holds everyone's sign-in links
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Permission = keyof typeof PERMISSIONS;

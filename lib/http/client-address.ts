@@ -1,21 +1,27 @@
 // The client's address for per-client limits, from the X-Forwarded-For chain. Framework-free.
 //
 // Each proxy appends the address it received the request from (MDN, "X-Forwarded-For"; nginx
-// $proxy_add_x_forwarded_for), so only the entries added by our own proxies can be trusted: the
-// client can put anything in front of them. With TRUSTED_PROXY_HOPS proxies in front of the app
-// (default 1: one load balancer), the client is the entry that many places from the right. Without
-// the header, x-real-ip, else 'local'. Without any proxy the headers are the client's own words:
-// deployments put one in front of the app (README, "Scaling past one machine").
+// $proxy_add_x_forwarded_for), so only entries added by our own side can be trusted: the client can
+// put anything in front of them. Boreline's own server (scripts/server.mjs) appends the socket's
+// address last, as a proxy would, so the chain always ends with the app's own entry. With
+// TRUSTED_PROXY_HOPS proxies declared in front of the app, the client is the entry that many places
+// left of the app's own; with none (0, the default: one machine, no proxy) it is the socket itself,
+// and nothing a client writes in a header counts. X-Real-IP is never read: no proxy of ours sets it.
 
+export const MAX_TRUSTED_PROXY_HOPS = 10;
+
+/** TRUSTED_PROXY_HOPS as a whole number from 0 to 10; unset or malformed is 0 (the socket decides). */
 export function readTrustedProxyHops(raw = process.env.TRUSTED_PROXY_HOPS): number {
-  const n = Number(raw?.trim() || 1);
-  return Number.isInteger(n) && n >= 1 && n <= 10 ? n : 1;
+  const text = raw?.trim() ?? '';
+  if (!/^\d+$/.test(text)) return 0;
+  const n = Number(text);
+  return n <= MAX_TRUSTED_PROXY_HOPS ? n : 0;
 }
 
 /** Capped in length so a forged header cannot bloat the counter's key. */
 export function getClientAddress(headers: Headers, hops = readTrustedProxyHops()): string {
   const chain = (headers.get('x-forwarded-for') ?? '').split(',').map((s) => s.trim()).filter(Boolean);
-  const fromChain = chain.length ? chain[Math.max(0, chain.length - hops)] : '';
-  const real = headers.get('x-real-ip')?.trim();
-  return (fromChain || real || 'local').toLowerCase().slice(0, 64);
+  // chain[length - 1] is the app's own entry (the socket); each declared proxy moves one further left.
+  const fromChain = chain.length ? chain[Math.max(0, chain.length - 1 - hops)] : '';
+  return (fromChain || 'local').toLowerCase().slice(0, 64);
 }

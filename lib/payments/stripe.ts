@@ -1,6 +1,7 @@
 import 'server-only';
 import Stripe from 'stripe';
 import { AppError } from '../http/errors';
+import { isPublishedSecret } from '../config/published-values';
 
 // The card-payment provider behind one small module: a lazily created stripe client (nothing is
 // read at build time), Checkout Sessions, refunds and webhook verification. Development and tests
@@ -20,7 +21,8 @@ export function stripeConnection(apiUrl = process.env.STRIPE_API_URL, nodeEnv = 
 function stripe(): Stripe {
   if (!globalForStripe.__borelineStripe) {
     const key = process.env.STRIPE_SECRET_KEY;
-    if (!key) throw new AppError('payments_unavailable', 503, 'Payments are not configured on this server.');
+    // A key published in this repository authenticates nobody (lib/config/published-values.ts).
+    if (!key || isPublishedSecret('STRIPE_SECRET_KEY', key)) throw new AppError('payments_unavailable', 503, 'Payments are not configured on this server.');
     globalForStripe.__borelineStripe = new Stripe(key, {
       ...stripeConnection(),
       maxNetworkRetries: 2, // POSTs carry an idempotency key, so retrying is safe
@@ -124,7 +126,8 @@ export async function refundPayment(input: { paymentIntentId: string; amountMino
  */
 export function verifyWebhook(rawBody: string, signatureHeader: string | null): Stripe.Event {
   const secret = process.env.STRIPE_WEBHOOK_SECRET;
-  if (!secret) throw new AppError('payments_unavailable', 503, 'Payment webhooks are not configured on this server.');
+  // Anyone can sign with a secret published in this repository: such a value verifies nothing.
+  if (!secret || isPublishedSecret('STRIPE_WEBHOOK_SECRET', secret)) throw new AppError('payments_unavailable', 503, 'Payment webhooks are not configured on this server.');
   if (!signatureHeader) throw new AppError('bad_signature', 400, 'The webhook has no Stripe-Signature header.');
   try {
     // The SDK's static verifier: checking a signature needs the webhook secret, not the API key.

@@ -5,6 +5,7 @@ import {
   S3ServiceException, NoSuchKey,
 } from '@aws-sdk/client-s3';
 import { AppError } from '../http/errors';
+import { isPublishedSecret } from '../config/published-values';
 
 // Object storage (documents, photos, evidence) behind one module. Keys are always made here by
 // newObjectKey(), never taken from a request, so no upload can choose or overwrite another's key.
@@ -16,6 +17,10 @@ function s3(): S3Client {
   if (!globalForS3.__borelineS3) {
     const endpoint = process.env.S3_ENDPOINT || undefined;
     const { S3_ACCESS_KEY_ID: accessKeyId, S3_SECRET_ACCESS_KEY: secretAccessKey } = process.env;
+    // A key pair published in this repository is nobody's: refuse it rather than use it.
+    if (accessKeyId && (isPublishedSecret('S3_ACCESS_KEY_ID', accessKeyId) || isPublishedSecret('S3_SECRET_ACCESS_KEY', secretAccessKey))) {
+      throw new AppError('storage_unavailable', 503, 'File storage is not configured on this server.');
+    }
     globalForS3.__borelineS3 = new S3Client({
       region: process.env.S3_REGION || 'us-east-1',
       endpoint,

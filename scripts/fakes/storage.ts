@@ -1,7 +1,8 @@
 // A local stand-in for S3-type object storage: the handful of path-style calls Boreline makes with
 // @aws-sdk/client-s3 (CreateBucket, HeadBucket, PutObject, GetObject, HeadObject, DeleteObject,
-// ListObjectsV2), on loopback, with objects on disk. Signatures are not checked (any
-// Authorization header is accepted) because the point is to exercise the app, not SigV4.
+// ListObjectsV2), on loopback, with objects on disk. The access key id named in the SigV4 credential
+// (header or presigned URL) must be the one this fake was started with; the signature itself is not
+// recomputed, because the point is to exercise the app, not SigV4.
 import http from 'node:http';
 import fs from 'node:fs';
 import path from 'node:path';
@@ -65,7 +66,8 @@ export function decodeAwsChunked(raw: Buffer): { body: Buffer; trailers: Record<
   return { body: Buffer.concat(parts), trailers };
 }
 
-export function startStorageFake(opts: { port: number; rootDir: string; maxObjectBytes?: number }) {
+export function startStorageFake(opts: { port: number; rootDir: string; accessKeyId: string; maxObjectBytes?: number }) {
+  if (!opts.accessKeyId) throw new Error('the storage fake needs the access key id it should accept');
   const maxBytes = opts.maxObjectBytes ?? 50 * 1024 * 1024;
   const bucketDir = (bucket: string) => path.join(opts.rootDir, bucket);
   // Objects are stored under the SHA-256 of their key, so no key can reach outside the folder.
@@ -202,6 +204,11 @@ export function startStorageFake(opts: { port: number; rootDir: string; maxObjec
     // Signed headers or a presigned URL: either way something claiming to be a signature.
     if (!req.headers.authorization && !url.searchParams.has('X-Amz-Signature')) {
       throw new S3Failure(403, 'AccessDenied', 'Access Denied (no Authorization header).');
+    }
+    // "Credential=<access key id>/<date>/<region>/s3/aws4_request" (AWS SigV4, header or query form).
+    const credential = /Credential=([^/,\s]+)\//.exec(req.headers.authorization ?? '')?.[1] ?? url.searchParams.get('X-Amz-Credential')?.split('/')[0];
+    if (credential !== opts.accessKeyId) {
+      throw new S3Failure(403, 'InvalidAccessKeyId', 'The AWS Access Key Id you provided does not exist in our records.');
     }
     const [, bucket = '', ...rest] = url.pathname.split('/');
     let key: string;

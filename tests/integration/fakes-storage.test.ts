@@ -110,7 +110,7 @@ test('a request without an Authorization header is AccessDenied', async () => {
 test('an object over the size limit is EntityTooLarge, plain or streamed', async () => {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'boreline-storage-'));
   after(() => fs.rmSync(dir, { recursive: true, force: true }));
-  const fake = startStorageFake({ port: 0, rootDir: dir, maxObjectBytes: 64 * 1024 });
+  const fake = startStorageFake({ port: 0, rootDir: dir, accessKeyId: credentials.accessKeyId, maxObjectBytes: 64 * 1024 });
   await new Promise((r) => fake.server.once('listening', r));
   const small = client(`http://127.0.0.1:${(fake.server.address() as AddressInfo).port}`);
   try {
@@ -126,4 +126,13 @@ test('an object over the size limit is EntityTooLarge, plain or streamed', async
     small.destroy();
     await fake.close();
   }
+});
+
+test('a signed request with another access key id is InvalidAccessKeyId (the fake checks the key it was started with)', async () => {
+  const stranger = new S3Client({
+    endpoint: ENDPOINT, region: process.env.S3_REGION ?? 'us-east-1', forcePathStyle: true,
+    credentials: { accessKeyId: 'boreline-local', secretAccessKey: 'boreline-local-secret' }, // the values .env.example once held
+  });
+  await assert.rejects(stranger.send(new ListObjectsV2Command({ Bucket: BUCKET })), (err: unknown) =>
+    err instanceof S3ServiceException && err.name === 'InvalidAccessKeyId');
 });

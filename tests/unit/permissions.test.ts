@@ -14,7 +14,7 @@ const EXPECTED: Record<Role, Permission[]> = {
   steward: ['account.view', 'entry.view_all', 'inspection.assign_reinspection', 'protest.decide', 'protest.view_all', 'audit.read', 'custody.take', 'custody.release', 'custody.view', 'interest.declare', 'interest.view_register'],
   organiser: [
     'account.view', 'event.create', 'event.edit', 'event.staff_manage', 'class.edit', 'entry.view_all', 'entry.cancel',
-    'tags.print', 'report.publish', 'results.publish', 'inspection.board', 'protest.view_all', 'audit.read', 'dev.outbox', 'custody.view',
+    'tags.print', 'report.publish', 'results.publish', 'inspection.board', 'protest.view_all', 'audit.read', 'custody.view',
     'interest.declare', 'interest.view_register',
   ],
   admin: ['account.view', 'event.create', 'admin.manage_users', 'dev.outbox'],
@@ -56,4 +56,9 @@ test('navigation shows each role only its areas', () => {
   assert.ok(!hrefs(['entrant', 'organiser']).includes('/admin'));
   for (const staff of ['scrutineer', 'chief_scrutineer', 'organiser'] as const) assert.ok(hrefs(['entrant', staff]).includes('/inspect'), staff);
   assert.ok(!hrefs(['entrant', 'steward']).includes('/inspect'));
+});
+
+test('the demo outbox (everyone\'s sign-in links) is the site administrator\'s alone', () => {
+  for (const role of ROLES) assert.equal(roleCan(role, 'dev.outbox'), role === 'admin', role);
+  assert.equal(rolesCan(ROLES.filter((r) => r !== 'admin'), 'dev.outbox'), false, 'no combination of other roles adds up to it');
 });

@@ -1,15 +1,20 @@
 import type { Metadata } from 'next';
-import { notFound } from 'next/navigation';
+import { notFound, redirect } from 'next/navigation';
 import { format } from 'date-fns';
+import { getActor, can } from '@/lib/auth/actor';
 
-export const metadata: Metadata = { title: 'Outbox (development)' };
+export const metadata: Metadata = { title: 'Outbox (demo)' };
 export const dynamic = 'force-dynamic';
 
 type Message = { id: string; receivedAt: string; to: string[]; subject: string; text: string };
 
-// Development only: shows what the local mail fake received, so a person can follow e-mailed links.
+// Demo only: shows what the local mail fake received, so a person can follow e-mailed links. The
+// messages hold everyone's sign-in and invitation links, so only the site administrator sees them.
 export default async function OutboxPage() {
-  if (process.env.BORELINE_DEV_TOOLS !== '1') notFound();
+  if (process.env.BORELINE_DEV_TOOLS !== '1' || process.env.BORELINE_MODE === 'serve') notFound();
+  const actor = await getActor();
+  if (!actor) redirect(`/sign-in?callbackUrl=${encodeURIComponent('/dev/outbox')}`);
+  if (!can(actor, 'dev.outbox')) redirect('/not-allowed');
   const port = process.env.MAIL_FAKE_HTTP_PORT ?? '2526';
   let messages: Message[] = [];
   let error: string | undefined;
@@ -22,7 +27,7 @@ export default async function OutboxPage() {
   return (
     <main className="mx-auto max-w-3xl space-y-4 px-4 py-8">
       <h1>Outbox</h1>
-      <p className="rounded-lg bg-doubt-100 p-3">Development only: every e-mail the app sent to the local mail fake, newest first.</p>
+      <p className="rounded-lg bg-doubt-100 p-3">Demo only, for the site administrator: every e-mail the app sent to the local mail fake, newest first.</p>
       {error && <p className="field-error">{error}</p>}
       {messages.length === 0 && !error && <p>No messages yet.</p>}
       <ul className="space-y-3">
