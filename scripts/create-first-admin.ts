@@ -4,7 +4,7 @@
 // terminal (the password is not echoed) or, for scripted installs, as three lines on stdin.
 // Refuses a database that holds the demo's accounts (their password is public).
 import readline from 'node:readline';
-import bcrypt from 'bcryptjs';
+import { hashPassword } from '../lib/auth/passwords';
 import pg from 'pg';
 import { SignUpInput } from '../lib/validations/auth';
 
@@ -35,7 +35,7 @@ async function main() {
       process.exit(1);
     }
     const { name, email, password } = parsed.data;
-    const hash = await bcrypt.hash(password, 10);
+    const hash = await hashPassword(password);
     await client.query('begin');
     // One at a time: two consoles answering at once must not make two "first" administrators.
     await client.query("select pg_advisory_xact_lock(hashtext('boreline:first-admin'))");

@@ -114,8 +114,9 @@ test('a registered and an unknown address cost about the same time, at sign-up a
   const known: number[] = [];
   const unknown: number[] = [];
   for (let i = 0; i < 6; i++) {
-    const k = (await timed(() => new HttpSession().signInWithPassword(registered, `wrong-password-${i}`)))[1];
-    const u = (await timed(() => new HttpSession().signInWithPassword(uniqueEmail('nobody'), `wrong-password-${i}`)))[1];
+    // From an address of its own, so these failures do not count against the rest of the suite's.
+    const k = (await timed(() => new HttpSession('127.0.0.71').signInWithPassword(registered, `wrong-password-${i}`)))[1];
+    const u = (await timed(() => new HttpSession('127.0.0.71').signInWithPassword(uniqueEmail('nobody'), `wrong-password-${i}`)))[1];
     if (i === 0) continue;
     known.push(k);
     unknown.push(u);

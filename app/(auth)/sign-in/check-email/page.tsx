@@ -12,7 +12,8 @@ export default function CheckEmailPage() {
       <p>We sent a sign-in link. It works once and expires in 30 minutes.</p>
       {showOutbox && (
         <p className="rounded-lg bg-tide-50 p-3">
-          Development: messages go to the local mail fake. <Link href="/dev/outbox">Open the outbox</Link>.
+          Demo: e-mail goes to a local mail fake. Only the site administrator can read it, in the{' '}
+          <Link href="/dev/outbox">outbox</Link>: it holds everybody&apos;s sign-in links.
         </p>
       )}
     </div>
