@@ -110,6 +110,15 @@ test('a chunked 200 MB multipart upload is refused with 413 on the file field at
   assert.deepEqual(await query('select count(*)::int as n from boat_documents'), before, 'nothing was stored');
 });
 
+test('a chunked 200 MB form to next-auth\'s sign-in callback is refused with 413 at 64 KB (next-auth itself would read it whole)', async () => {
+  const out = await postChunked('/api/auth/callback/password', { 'content-type': 'application/x-www-form-urlencoded' }, 'email=a%40example.org&password=', 0x61);
+  assertRefusedEarly('POST /api/auth/callback/password', out);
+  // Signing in still works through the same path (the body is handed on intact).
+  const s = new HttpSession();
+  await s.signInWithPassword(DEMO.entrant, DEMO_PASSWORD);
+  assert.equal((await s.session())?.user?.email, DEMO.entrant);
+});
+
 test('a chunked body under the cap is still read whole (the reader does not refuse honest chunked requests)', async () => {
   // A small chunked JSON body to the public calculation API: answered 200 with figures.
   const res = await new Promise<{ status: number; text: string }>((resolve, reject) => {
