@@ -53,9 +53,11 @@ export function toErrorResponse(err: unknown): Response {
   if (err instanceof AppError) {
     status = err.status;
     body = { error: { code: err.code, message: err.message, ...(err.details !== undefined && { details: err.details }) } };
-    // A body over the cap is left unread: close the connection after the answer rather than keep
-    // reading (RFC 9110 section 15.5.14 lets the server close it after a 413).
-    if (err.status === 413) headers.Connection = 'close';
+    // Node closes a connection at once when it answers before the request body has arrived, and a
+    // client still sending then gets a reset that can destroy this 413 before it reads it. Keeping
+    // the connection open lets the body reader close it after a short linger instead
+    // (lib/http/read-body.ts, LINGER); a refusal by Content-Length lets Node discard the body.
+    if (err.status === 413) headers.Connection = 'keep-alive';
     if (err.status === 429 && typeof err.details === 'object' && err.details && 'retryAfterS' in err.details) {
       headers['Retry-After'] = String((err.details as { retryAfterS: number }).retryAfterS);
     }

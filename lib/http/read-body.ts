@@ -1,18 +1,44 @@
 // The one reader for request bodies (JSON, forms, signed webhooks). A body is refused by its
-// declared Content-Length before a byte is read, then counted while it streams, and the stream is
-// cancelled the moment the count passes the cap, so a chunked body with no length (or any body)
-// never costs the server more than the cap. Framework-free: runs in route handlers and unit tests.
+// declared Content-Length before a byte is read, then counted while it streams and refused the
+// moment the count passes the cap, so a chunked body with no length never costs the server more
+// than the cap in memory. Framework-free: runs in route handlers and unit tests.
 import { AppError } from './errors';
 
 export const DEFAULT_JSON_MAX_BYTES = 256 * 1024;
 
 const bodyTooLarge = (maxBytes: number) => new AppError('too_large', 413, `The body is larger than ${maxBytes} bytes.`);
 
+// After a refusal the connection stays open for a moment before it is closed ("lingering close", as
+// web servers do): closing at once, while the client is still sending, resets the connection, and
+// the reset can destroy the 413 before the client reads it. Meanwhile at most LINGER.bytes more are
+// read and thrown away (a body only a little over the cap then ends normally); past that nothing is
+// read, TCP flow control holds the client back, and after LINGER.ms the connection is closed.
+export const LINGER = { bytes: 1024 * 1024, ms: 2000 };
+
+function lingerThenCancel(reader: ReadableStreamDefaultReader<Uint8Array>, budget: { bytes: number; ms: number }) {
+  const timer = setTimeout(() => void reader.cancel().catch(() => undefined), budget.ms);
+  void (async () => {
+    let drained = 0;
+    try {
+      while (drained <= budget.bytes) {
+        const { done, value } = await reader.read();
+        if (done) return clearTimeout(timer); // the body ended within the budget: nothing to cut
+        drained += value.byteLength;
+      }
+    } catch {
+      clearTimeout(timer);
+    }
+  })();
+}
+
 /**
  * The body's bytes, at most maxBytes of them; more (declared or sent) throws tooLarge() (a 413 by
- * default). A request without a body reads as no bytes.
+ * default). A request without a body reads as no bytes. A declared length over the cap is refused
+ * before a byte is read (Node then discards that body as it arrives, holding none of it); a body
+ * that passes the cap while streaming is refused at once, and the connection is closed after a
+ * short linger (LINGER), so the rest of a 200 MB chunked body is never read.
  */
-export async function readCappedBytes(req: Request, maxBytes: number, tooLarge: () => AppError = () => bodyTooLarge(maxBytes)): Promise<Uint8Array> {
+export async function readCappedBytes(req: Request, maxBytes: number, tooLarge: () => AppError = () => bodyTooLarge(maxBytes), linger = LINGER): Promise<Uint8Array> {
   const declared = req.headers.get('content-length');
   if (declared !== null && Number(declared) > maxBytes) throw tooLarge();
   if (!req.body) return new Uint8Array();
@@ -24,10 +50,8 @@ export async function readCappedBytes(req: Request, maxBytes: number, tooLarge: 
     if (done) break;
     total += value.byteLength;
     if (total > maxBytes) {
-      // Stop reading now: nothing more is pulled from the connection, which backs up, and the 413
-      // goes out with Connection: close (toErrorResponse), after which the server closes it.
-      // Cancelling the stream here would destroy the socket before the 413 could be sent.
-      reader.releaseLock();
+      chunks.length = 0;
+      lingerThenCancel(reader, linger);
       throw tooLarge();
     }
     chunks.push(value);

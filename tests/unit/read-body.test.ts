@@ -10,19 +10,29 @@ import { readCappedBytes, readJsonBody, readRawText, readFormBody, type FormRefu
 
 const KB = 1024;
 
-/** A stream of `count` chunks of `size` bytes, made only when pulled; `pulled()` says how many bytes left it. */
-function countingStream(count: number, size: number, fill = 0x61) {
+/**
+ * A stream of `count` chunks of `size` bytes, made only when pulled; `pulled()` says how many bytes
+ * left it, `cancelled` settles when the reader cancels it. With `stallAfter`, it stops producing
+ * (a client that went quiet) once that many bytes have left it.
+ */
+function countingStream(count: number, size: number, fill = 0x61, stallAfter = Infinity) {
   let made = 0;
   let bytes = 0;
+  let onCancel: () => void = () => undefined;
+  const cancelled = new Promise<void>((resolve) => (onCancel = resolve));
   const stream = new ReadableStream<Uint8Array>({
     pull(controller) {
       if (made === count) return controller.close();
+      if (bytes >= stallAfter) return new Promise<void>(() => undefined);
       made++;
       bytes += size;
       controller.enqueue(new Uint8Array(size).fill(fill));
     },
+    cancel() {
+      onCancel();
+    },
   }, { highWaterMark: 0 });
-  return { stream, pulled: () => bytes };
+  return { stream, pulled: () => bytes, cancelled };
 }
 
 function post(body: ReadableStream<Uint8Array> | string | Uint8Array | null, headers: Record<string, string> = {}) {
@@ -45,16 +55,33 @@ test('a body under the cap is read whole, byte for byte', async () => {
   assert.ok(bytes.every((b) => b === 0x61));
 });
 
-test('a stream with no length is refused with 413 as soon as it passes the cap; the rest is never pulled', async () => {
-  const { stream, pulled } = countingStream(10_000, KB); // 10 MB on offer
-  await assert.rejects(readCappedBytes(post(stream), 8 * KB), isAppError(413, 'too_large', /8192 bytes/));
-  // The cap plus the chunk that crossed it, and at most a chunk or two the Request pulled ahead.
-  assert.ok(pulled() <= 8 * KB + 3 * KB, `pulled ${pulled()} bytes for an 8 KB cap`);
+test('a stream with no length is refused with 413 as soon as it passes the cap; at most the linger budget more is read, then it is cancelled', async () => {
+  const { stream, pulled, cancelled } = countingStream(1000, 64 * KB); // 64 MB on offer
+  let pulledAtRefusal = -1;
+  const refuse = () => ((pulledAtRefusal = pulled()), new AppError('too_large', 413, 'The body is larger than 8192 bytes.'));
+  const t = Date.now();
+  await assert.rejects(readCappedBytes(post(stream), 8 * KB, refuse, { bytes: 256 * KB, ms: 150 }), isAppError(413, 'too_large', /8192 bytes/));
+  // Refused on the chunk that crossed the cap (plus at most one the Request pulled ahead).
+  assert.ok(pulledAtRefusal > 8 * KB && pulledAtRefusal <= 2 * 64 * KB, `refused after ${pulledAtRefusal} bytes for an 8 KB cap`);
+  // Then at most the linger budget is read and thrown away, nothing more is pulled, and the stream is
+  // cancelled when the linger time is up; the rest is never pulled.
+  await cancelled;
+  assert.ok(Date.now() - t >= 140, `cancelled after ${Date.now() - t} ms, before the linger time`);
+  assert.ok(pulled() <= 8 * KB + 256 * KB + 3 * 64 * KB, `pulled ${pulled()} bytes before the cancel`);
+});
+
+test('a client that goes quiet after the cap is cut off when the linger time runs out', async () => {
+  const { stream, cancelled } = countingStream(1000, KB, 0x61, 16 * KB);
+  const t = Date.now();
+  await assert.rejects(readCappedBytes(post(stream), 8 * KB, undefined, { bytes: 1024 * KB, ms: 150 }), isAppError(413, 'too_large'));
+  await cancelled;
+  assert.ok(Date.now() - t >= 140 && Date.now() - t < 2000, `cancelled after ${Date.now() - t} ms`);
 });
 
 test('a declared Content-Length over the cap is refused before a byte is pulled', async () => {
   const { stream, pulled } = countingStream(100, KB);
   await assert.rejects(readCappedBytes(post(stream, { 'content-length': String(100 * KB) }), 8 * KB), isAppError(413, 'too_large'));
+  await new Promise((r) => setTimeout(r, 20));
   assert.equal(pulled(), 0);
 });
 
