@@ -12,7 +12,9 @@ const bodyTooLarge = (maxBytes: number) => new AppError('too_large', 413, `The b
 // web servers do): closing at once, while the client is still sending, resets the connection, and
 // the reset can destroy the 413 before the client reads it. Meanwhile at most LINGER.bytes more are
 // read and thrown away (a body only a little over the cap then ends normally); past that nothing is
-// read, TCP flow control holds the client back, and after LINGER.ms the connection is closed.
+// read and TCP flow control holds the client back. The stream is cancelled after LINGER.ms; in
+// Node the socket closes then or, at the latest, when the idle connection meets the server's
+// keep-alive timeout (about 5 s after the answer in the tests).
 export const LINGER = { bytes: 1024 * 1024, ms: 2000 };
 
 function lingerThenCancel(reader: ReadableStreamDefaultReader<Uint8Array>, budget: { bytes: number; ms: number }) {
