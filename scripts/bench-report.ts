@@ -5,6 +5,8 @@
 //   PDF:          buildReportPdf for 200 boats (target under 2 s)
 //   page render:  GET /reports/:id of a 500-boat report vs GET /not-allowed (a static page), when
 //                 BASE_URL answers; skipped otherwise
+//   PDF route:    20 clients GET /api/reports/:id/pdf of the 500-boat report for 5 s, with one client
+//                 timing GET /api/health alongside, against /api/health alone (when BASE_URL answers)
 //   queries:      SQL statements issued by gatherReportInputs for 50 and for 500 boats (constant = no N+1)
 import { performance } from 'node:perf_hooks';
 import { randomUUID, randomBytes } from 'node:crypto';
@@ -99,6 +101,38 @@ async function timePageRender(c: pg.Client, eventId: string, classId: string, in
   const empty = await median('/not-allowed');
   const report = await median(`/reports/${publicId}`);
   console.log(`page render: empty page ${empty.toFixed(1)} ms (baseline), 500-boat report page ${report.toFixed(1)} ms, ratio ${(report / empty).toFixed(1)}x`);
+  await timePdfRoute(base, publicId);
+}
+
+// The public PDF of the same report under 20 concurrent clients, and what that does to the rest of
+// the site (GET /api/health timed by one more client), against /api/health on an idle server.
+async function timePdfRoute(base: string, publicId: string) {
+  const pct = (xs: number[], p: number) => [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor(xs.length * p))] ?? NaN;
+  const statuses = new Map<string, number>();
+  const timed = async (path: string) => {
+    const t = performance.now();
+    const status = await fetch(`${base}${path}`).then(async (r) => { await r.arrayBuffer(); return String(r.status); }, (e: Error) => e.message);
+    if (status !== '200') statuses.set(`${path.replace(publicId, ':id')} ${status}`, (statuses.get(`${path.replace(publicId, ':id')} ${status}`) ?? 0) + 1);
+    return performance.now() - t;
+  };
+  const first = await timed(`/api/reports/${publicId}/pdf`);
+  for (let i = 0; i < 3; i++) await timed(`/api/reports/${publicId}/pdf`);
+  const idle: number[] = [];
+  for (let i = 0; i < 50; i++) idle.push(await timed('/api/health'));
+  const durationMs = 5000;
+  const start = performance.now();
+  const end = start + durationMs;
+  const pdfTimes: number[] = [];
+  const healthTimes: number[] = [];
+  const client = async () => { while (performance.now() < end) pdfTimes.push(await timed(`/api/reports/${publicId}/pdf`)); };
+  const prober = async () => { while (performance.now() < end) { healthTimes.push(await timed('/api/health')); await new Promise((r) => setTimeout(r, 20)); } };
+  await Promise.all([...Array.from({ length: 20 }, client), prober()]);
+  // Requests started in the window finish after it: divide by the time until the last one ended.
+  const elapsedS = (performance.now() - start) / 1000;
+  console.log(`PDF route, 500 boats, first request          ${first.toFixed(0)} ms`);
+  console.log(`PDF route, 20 clients for ${durationMs / 1000} s                ${(pdfTimes.length / elapsedS).toFixed(1)} answers/s (${pdfTimes.length} in ${elapsedS.toFixed(1)} s), p50 ${pct(pdfTimes, 0.5).toFixed(0)} ms, p95 ${pct(pdfTimes, 0.95).toFixed(0)} ms`);
+  console.log(`  GET /api/health meanwhile (${healthTimes.length} requests): p50 ${pct(healthTimes, 0.5).toFixed(1)} ms, p95 ${pct(healthTimes, 0.95).toFixed(1)} ms (idle baseline p50 ${pct(idle, 0.5).toFixed(1)} ms, p95 ${pct(idle, 0.95).toFixed(1)} ms)`);
+  console.log(`  answers other than 200: ${statuses.size ? [...statuses].map(([k, n]) => `${k} x${n}`).join('; ') : 'none'}`);
 }
 
 async function makeScratchClass(c: pg.Client, n: number) {

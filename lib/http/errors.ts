@@ -53,6 +53,11 @@ export function toErrorResponse(err: unknown): Response {
   if (err instanceof AppError) {
     status = err.status;
     body = { error: { code: err.code, message: err.message, ...(err.details !== undefined && { details: err.details }) } };
+    // Node closes a connection at once when it answers before the request body has arrived, and a
+    // client still sending then gets a reset that can destroy this 413 before it reads it. Keeping
+    // the connection open lets the body reader close it after a short linger instead
+    // (lib/http/read-body.ts, LINGER); a refusal by Content-Length lets Node discard the body.
+    if (err.status === 413) headers.Connection = 'keep-alive';
     if (err.status === 429 && typeof err.details === 'object' && err.details && 'retryAfterS' in err.details) {
       headers['Retry-After'] = String((err.details as { retryAfterS: number }).retryAfterS);
     }

@@ -161,6 +161,42 @@ test('broken percent-encoding in the address: 400 in the one error shape for eve
   }
 });
 
+test('percent-encoded percent signs (valid UTF-8 addresses whose segments decode to broken escapes) are a 4xx in the one shape, never a 5xx', async () => {
+  // "%25E0%25A4zzzz" is a valid address (RFC 3986 section 2.4: %25 is "%"), so it passes the proxy; the
+  // route receives the segment "%E0%A4zzzz", which must never be percent-decoded a second time.
+  const scrutineer = new HttpSession();
+  await scrutineer.signInWithPassword(DEMO.scrutineer, DEMO_PASSWORD);
+  for (const seg of ['%25E0%25A4zzzz', '%25ED%25A0%2580', '%25ZZ', '%2525', 'abc%25']) {
+    const tag = await scrutineer.fetch(`/api/events/${ids.eventId}/tags/${seg}`);
+    const tagText = await tag.text();
+    assert.equal(tag.status, 404, `GET tags/${seg}: ${tag.status} ${tagText.slice(0, 160)}`);
+    assert.equal(JSON.parse(tagText).error.code, 'unknown_tag');
+    for (const r of ROUTES.filter((x) => x.access !== 'skip' && x.access !== 'webhook' && /\[/.test(x.file))) {
+      const path = r.path({ ...ids, eventId: seg, classId: seg, boatId: seg, entryId: seg, spareEntryId: seg, documentId: seg, protestId: seg, evidenceId: seg, tagToken: seg, raceNumber: seg as unknown as number });
+      if (!path.includes(seg)) continue;
+      const init: RequestInit = r.method === 'GET' ? {} : { method: r.method, headers: { 'content-type': 'application/json' }, body: '{}' };
+      for (const s of [organiser, scrutineer]) {
+        const res = await s.fetch(path, init);
+        const text = await res.text();
+        checkErrorShape(res.status, text, `${r.method} ${path}`);
+        assert.ok(res.status >= 400, `${r.method} ${path}: ${res.status}`);
+      }
+    }
+    for (const path of [`/api/reports/${seg}`, `/api/reports/${seg}/pdf`, `/api/reports/${seg}/csv`]) {
+      const res = await organiser.fetch(path);
+      const text = await res.text();
+      assert.equal(res.status, 404, `GET ${path}: ${res.status} ${text.slice(0, 160)}`);
+      checkErrorShape(res.status, text, `GET ${path}`);
+    }
+    // The pages that take a token or id in the address.
+    for (const page of [`/t/${seg}`, `/invite/${seg}`, `/reports/${seg}`]) {
+      const res = await organiser.fetch(page);
+      await res.text();
+      assert.ok(res.status < 500, `GET ${page}: ${res.status}`);
+    }
+  }
+});
+
 test('HTML output escapes user text', async () => {
   const name = '<script>window.pwned=1</script><img src=x onerror=alert(1)>';
   const { res, body: created } = await entrant.json('/api/boats', {

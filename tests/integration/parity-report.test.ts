@@ -4,7 +4,9 @@
 // reports are public.
 import { test, before } from 'node:test';
 import assert from 'node:assert/strict';
-import { randomUUID } from 'node:crypto';
+import { randomUUID, createHash } from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
 import * as ss from 'simple-statistics';
 import { parse } from 'csv-parse/sync';
 import { PDFDocument } from 'pdf-lib';
@@ -155,6 +157,61 @@ test('the PDF opens with pdf-lib and carries the class, the rule version and one
     assert.equal(Number(row.deviation_from_median_percent), figures.deviationFromMedianPercent);
     assert.equal(Number(row.thrust_at_20_ms_n), figures.thrustAtReferenceSpeeds[1].thrustN);
   }
+});
+
+// Where the storage fake keeps an object: <bucket>/<sha256 of the key> (scripts/fakes/storage.ts).
+const storedObject = (key: string) => path.join(process.env.FAKES_DIR ?? '.data/test-fakes', 'storage', process.env.S3_BUCKET ?? 'boreline-test', createHash('sha256').update(key).digest('hex'));
+const sha256 = (b: Uint8Array) => createHash('sha256').update(b).digest('hex');
+
+test('a version\'s PDF is rendered once, stored with its SHA-256, served from storage with a strong ETag and a year-long immutable lifetime, and 304 to If-None-Match', async () => {
+  const pub = await organiser.json(`/api/events/${eventId}/classes/${classId}/report/publish`, { note: 'PDF caching' });
+  assert.equal(pub.res.status, 201, JSON.stringify(pub.body));
+  const url = `${BASE_URL}/api/reports/${pub.body.data.publicId}/pdf`;
+  // Five first requests at once: one rendering is stored (the unique index on report and kind), and all five get it.
+  const first = await Promise.all(Array.from({ length: 5 }, async () => {
+    const res = await fetch(url);
+    return { res, bytes: new Uint8Array(await res.arrayBuffer()) };
+  }));
+  const rows = await query<{ object_key: string; sha256: string; size_bytes: number }>(`select object_key, sha256, size_bytes from parity_report_files where report_id = $1 and kind = 'pdf'`, [pub.body.data.id]);
+  assert.equal(rows.length, 1, 'one stored PDF per version');
+  const [row] = rows;
+  for (const { res, bytes } of first) {
+    assert.equal(res.status, 200);
+    assert.equal(res.headers.get('content-type'), 'application/pdf');
+    // RFC 9110 section 8.8.3: a strong entity tag is a quoted opaque string without W/.
+    assert.equal(res.headers.get('etag'), `"${row.sha256}"`);
+    // RFC 9111 section 5.2.2.1 (max-age) and RFC 8246 (immutable).
+    assert.equal(res.headers.get('cache-control'), 'public, max-age=31536000, immutable');
+    assert.equal(sha256(bytes), row.sha256, 'the bytes are the stored ones (node:crypto SHA-256)');
+    assert.equal(bytes.byteLength, row.size_bytes);
+  }
+  // The object is in storage, byte for byte.
+  assert.equal(sha256(fs.readFileSync(storedObject(row.object_key))), row.sha256);
+  assert.match(row.object_key, /^reports\/pdf\/\d{4}\/\d{2}\/[0-9a-f-]{36}$/);
+  await assert.rejects(query(`update parity_report_files set sha256 = repeat('0', 64) where report_id = $1`, [pub.body.data.id]), /append-only/);
+
+  // Later requests are not rendered again: pdf-lib stamps each rendering with its creation time to the
+  // second, so after a pause a new rendering would differ; the stored one is served unchanged.
+  await new Promise((r) => setTimeout(r, 1100));
+  const again = await fetch(url);
+  assert.equal(sha256(new Uint8Array(await again.arrayBuffer())), row.sha256);
+  assert.equal((await query(`select 1 from parity_report_files where report_id = $1`, [pub.body.data.id])).length, 1);
+
+  // RFC 9110 section 13.1.2: If-None-Match compares weakly, "*" matches any, and a hit is 304 with no body.
+  for (const inm of [`"${row.sha256}"`, `W/"${row.sha256}"`, `"nope", "${row.sha256}"`, '*']) {
+    const res = await fetch(url, { headers: { 'if-none-match': inm } });
+    assert.equal(res.status, 304, inm);
+    assert.equal(res.headers.get('etag'), `"${row.sha256}"`);
+    assert.equal((await res.arrayBuffer()).byteLength, 0);
+  }
+  assert.equal((await fetch(url, { headers: { 'if-none-match': '"0000"' } })).status, 200);
+
+  // The CSV is cheap and made per request, but carries a strong ETag of its bytes and answers 304 too.
+  const csvUrl = `${BASE_URL}/api/reports/${pub.body.data.publicId}/csv`;
+  const csv = await fetch(csvUrl);
+  const csvText = await csv.text();
+  assert.equal(csv.headers.get('etag'), `"${sha256(new TextEncoder().encode(csvText))}"`);
+  assert.equal((await fetch(csvUrl, { headers: { 'if-none-match': csv.headers.get('etag')! } })).status, 304);
 });
 
 test('only published reports are public: drafts need the organiser, unknown ids are 404', async () => {

@@ -1,18 +1,23 @@
-// GET /api/reports/:publicId/pdf: the published report as a PDF.
+// GET /api/reports/:publicId/pdf: the published report as a PDF, rendered once and then served from storage.
 import { publicHandler } from '@/lib/http/handler';
 import { AppError } from '@/lib/http/errors';
-import { findPublishedReport } from '@/lib/reports/manage-reports';
-import { buildReportPdf } from '@/lib/reports/report-pdf';
+import { IMMUTABLE_CACHE_CONTROL, notModified, strongEtag } from '@/lib/http/immutable-file';
+import { ensureReportPdf, findReportPdfHead, readReportPdf } from '@/lib/reports/report-pdf-file';
 
-export const GET = publicHandler<{ publicId: string }>(async (_req, { params }) => {
-  const report = await findPublishedReport(params.publicId);
-  if (!report) throw new AppError('not_found', 404, 'No published report at this address.');
-  const pdf = await buildReportPdf(report);
-  return new Response(Buffer.from(pdf), {
+export const GET = publicHandler<{ publicId: string }>(async (req, { params }) => {
+  const head = await findReportPdfHead(params.publicId);
+  if (!head) throw new AppError('not_found', 404, 'No published report at this address.');
+  const pdf = head.pdf ?? (await ensureReportPdf(params.publicId, head.reportId));
+  const etag = strongEtag(pdf.sha256);
+  const unchanged = notModified(req, etag);
+  if (unchanged) return unchanged;
+  const bytes = await readReportPdf(pdf);
+  return new Response(new Uint8Array(bytes), {
     headers: {
       'content-type': 'application/pdf',
-      'content-disposition': `attachment; filename="parity-${report.inputs.classCode}-v${report.number}.pdf"`,
-      'cache-control': 'public, max-age=300',
+      'content-disposition': `attachment; filename="parity-${head.classCode}-v${head.number}.pdf"`,
+      etag,
+      'cache-control': IMMUTABLE_CACHE_CONTROL,
       'x-content-type-options': 'nosniff',
     },
   });

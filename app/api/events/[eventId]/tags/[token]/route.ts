@@ -4,5 +4,7 @@ import { parseId } from '@/lib/http/ids';
 import { findBoatByTag } from '@/lib/inspections/find-boat-by-tag';
 
 export const GET = actorHandler<{ eventId: string; token: string }>(async (_req, { actor, params }) => {
-  return Response.json({ data: await findBoatByTag(actor, parseId(params.eventId, 'event'), decodeURIComponent(params.token)) });
+  // Next has already percent-decoded the segment once; decoding it again turned "%25E0%25A4" into a
+  // URIError (a 500). Whatever arrives is only ever matched against the token pattern (404 otherwise).
+  return Response.json({ data: await findBoatByTag(actor, parseId(params.eventId, 'event'), params.token) });
 });
