@@ -19,7 +19,7 @@ export default async function AccountPage() {
         <dt className="font-bold">Name</dt>
         <dd>{actor.name ?? '—'}</dd>
         <dt className="font-bold">E-mail</dt>
-        <dd>
+        <dd className="break-all">
           {actor.email}{' '}
           <span data-testid="address-state" className={actor.isAddressProven ? 'inline-block rounded-full bg-pass-100 px-3 py-1 text-sm font-bold text-pass-800' : 'inline-block rounded-full bg-doubt-100 px-3 py-1 text-sm font-bold text-doubt-800'}>
             {actor.isAddressProven ? 'confirmed' : 'not confirmed'}

@@ -54,7 +54,7 @@ export function InviteStaffForm({ eventId }: { eventId: string }) {
   return (
     <form onSubmit={onSubmit} noValidate className="rounded-lg bg-paper-deep p-4">
       <fieldset disabled={isBusy} className="grid gap-3 sm:grid-cols-[1fr_12rem_auto] sm:items-end">
-        <legend className="mb-2 font-bold">Add staff: a registered person gets the role at once, anyone else an e-mailed invitation</legend>
+        <legend className="mb-2 font-bold">Add staff: a person whose address is confirmed gets the role at once, anyone else an e-mailed invitation</legend>
         <TextField id={`invite-email-${eventId}`} name="email" label="E-mail" type="email" error={errors.email} />
         <div>
           <label htmlFor={`invite-role-${eventId}`} className="field-label">Role</label>
