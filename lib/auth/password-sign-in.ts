@@ -51,6 +51,8 @@ export async function checkPasswordSignIn(rawEmail: string, password: string, ad
   }
   const check = await verifyPassword(password, user.passwordHash);
   if (!check.isMatch) {
+    // An old bcrypt hash is quicker to refuse than scrypt: top it up to the same work.
+    if (check.needsRehash) await spendPasswordCheck(password);
     await recordAttempts(limits);
     return null;
   }
