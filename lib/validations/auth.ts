@@ -9,8 +9,11 @@ export const email = z
   .max(254, 'That e-mail address is too long.')
   .pipe(z.email({ error: 'Enter a valid e-mail address, like name@example.org.' }));
 
+/** A person's name as others see it (greetings, staff lists, records): 1–120 characters, trimmed. */
+export const personName = z.string({ error: 'Enter your name.' }).trim().min(1, 'Enter your name.').max(120, 'Keep the name under 120 characters.');
+
 export const SignUpInput = z.object({
-  name: z.string({ error: 'Enter your name.' }).trim().min(1, 'Enter your name.').max(120, 'Keep the name under 120 characters.'),
+  name: personName,
   email,
   password: z
     .string({ error: 'Choose a password.' })
@@ -29,4 +32,13 @@ export const ChangePasswordInput = z.object({
   // Required when the account has a password (people invited by e-mail may have none yet).
   currentPassword: z.string().max(1000, 'That is not your current password.').optional().default(''),
   password: SignUpInput.shape.password,
+});
+
+/** My account: the name others see. */
+export const ChangeNameInput = z.object({ name: personName });
+
+/** Accepting a staff invitation: the name is asked for only when the account has none yet. */
+export const AcceptInvitationInput = z.object({
+  token: z.string().min(1).max(200),
+  name: personName.optional(),
 });

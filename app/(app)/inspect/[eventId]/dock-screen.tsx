@@ -164,9 +164,13 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
   }
 
   useEffect(() => {
-    // From the board's re-inspection list: /inspect/<event>?race=42 opens that boat.
-    const race = new URLSearchParams(window.location.search).get('race');
+    // From the board's re-inspection list: /inspect/<event>?race=42 opens that boat; from a tag
+    // scanned with the phone's own camera (/t/<token> sends scrutineers here): ?tag=<token>.
+    const query = new URLSearchParams(window.location.search);
+    const race = query.get('race');
+    const tag = query.get('tag');
     if (race) void find({ kind: 'typed', text: race });
+    else if (tag) void find({ kind: 'scan', text: tag });
   }, []);
 
   return (
