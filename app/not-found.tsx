@@ -21,7 +21,7 @@ export default function NotFound() {
         </p>
         <ul className="flex flex-wrap gap-3">
           <li><Link href="/home" className="btn-primary">Your home page</Link></li>
-          <li><Link href="/" className="btn-secondary">Boreline&apos;s front page</Link></li>
+          <li><Link href="/" className="btn-secondary">Boreline’s front page</Link></li>
         </ul>
       </main>
     </div>

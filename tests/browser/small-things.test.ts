@@ -70,8 +70,8 @@ test('small things: 404 page, favicon, an entrant’s first step, hull −7 refu
   );
   const [cls] = await query<{ id: string; code: string }>(`select id, code from race_classes where event_id = $1 and code = 'SS'`, [DEMO.meetingId]);
   await page.goto(`${new URL(page.url()).pathname}/enter`);
-  await page.getByLabel('Meeting').selectOption(DEMO.meetingId);
-  await page.getByLabel('Class').selectOption(cls.id);
+  await page.getByLabel('Meeting', { exact: true }).selectOption(DEMO.meetingId);
+  await page.getByLabel('Class', { exact: true }).selectOption(cls.id);
   await page.getByLabel('Race number you would like').fill(String(taken.n));
   await page.getByRole('button', { name: `Enter Minus Heron in ${cls.code}` }).click();
   const note = page.getByTestId('race-number-note');

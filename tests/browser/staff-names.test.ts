@@ -25,7 +25,7 @@ test('names: an invited dock hand gives a name on accepting, is greeted by it, a
   const context = await newContext(browser, PHONE);
   const page = await context.newPage();
   await page.goto(link.pathname);
-  const name = page.getByLabel('Your name');
+  const name = page.getByLabel('Your name', { exact: true });
   await name.waitFor();
   await page.getByRole('button', { name: 'Accept and sign in' }).click();
   const error = page.locator('[data-field-error="name"]');
@@ -41,14 +41,14 @@ test('names: an invited dock hand gives a name on accepting, is greeted by it, a
 
   await page.goto('/account');
   assert.equal(await page.getByTestId('account-name').innerText(), 'Wren Halloway');
-  const field = page.getByLabel('Your name');
+  const field = page.getByLabel('Your name', { exact: true });
   await field.fill('   ');
   await page.getByRole('button', { name: 'Save name' }).click();
   const refused = page.locator('[data-field-error="name"]');
   await refused.waitFor();
   assert.equal(await refused.innerText(), 'Enter your name.');
   assert.deepEqual(await query('select name from users where email = $1', [email]), [{ name: 'Wren Halloway' }], 'a blank name changes nothing');
-  await page.getByLabel('Your name').fill('Wren A. Halloway');
+  await page.getByLabel('Your name', { exact: true }).fill('Wren A. Halloway');
   await page.getByRole('button', { name: 'Save name' }).click();
   await page.getByTestId('name-result').filter({ hasText: 'Saved' }).waitFor();
   await page.getByTestId('account-name').filter({ hasText: 'Wren A. Halloway' }).waitFor();

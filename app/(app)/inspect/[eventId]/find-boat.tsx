@@ -116,7 +116,7 @@ export function FindBoat({ onFind, isBusy }: Props) {
             autoComplete="off" autoCapitalize="off" value={typed} onChange={(e) => setTyped(e.target.value)} />
         </div>
         <button type="submit" className="btn-primary min-h-touch text-xl" disabled={isBusy}>Find</button>
-        <button type="button" className="min-h-touch text-base font-bold text-tide-700 underline" aria-pressed={isTypingCode} onClick={() => setTypingCode((on) => !on)}>
+        <button type="button" className="min-h-touch basis-full text-left text-base font-bold text-tide-700 underline" aria-pressed={isTypingCode} onClick={() => setTypingCode((on) => !on)}>
           {isTypingCode ? 'Type a race number instead' : 'Type a tag code instead'}
         </button>
       </form>
