@@ -176,9 +176,11 @@ test('accepting an invitation sets the name given (trimmed, at most 120 characte
   const token = await invitationToken(email);
   const page = await new HttpSession().fetch(`/invite/${token}`);
   assert.match(await page.text(), /Your name/, 'the acceptance page asks for a name');
-  const tooLong = await accept(token, 'x'.repeat(121));
-  assert.match(String(tooLong.body?.url), /error=NameInvalid/);
-  assert.equal(await tooLong.s.session(), null);
+  for (const bad of ['x'.repeat(121), 'Rowan\u202Eyawollah', 'Rowan\nBcc: someone']) {
+    const refused = await accept(token, bad);
+    assert.match(String(refused.body?.url), /error=NameInvalid/, JSON.stringify(bad));
+    assert.equal(await refused.s.session(), null);
+  }
   assert.equal((await query('select 1 from staff_invitations where email = $1 and accepted_at is null', [email])).length, 1, 'the invitation stays unused');
   const ok = await accept(token, '  Rowan Tidewell  ');
   assert.equal(ok.res.status, 200);

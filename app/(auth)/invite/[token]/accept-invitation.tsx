@@ -26,7 +26,7 @@ export function AcceptInvitation({ token, needsName }: { token: string; needsNam
     setBusy(true);
     const res = await signIn('invitation', { token, ...(name && { name }), redirect: false });
     setBusy(false);
-    if (res?.error === 'NameInvalid') return setNameError('Enter your name, in at most 120 characters.');
+    if (res?.error === 'NameInvalid') return setNameError('Enter your name: at most 120 characters, letters, spaces and punctuation.');
     if (!res || res.error) return setError('The invitation could not be accepted: it may have just expired or been used.');
     router.push('/home');
     router.refresh();
