@@ -47,7 +47,9 @@ export default async function HomePage() {
   const racing = (
     <section className="space-y-3" aria-labelledby="racing" key="racing" data-testid="home-racing">
       <h2 id="racing">Racing your boat</h2>
-      {boats.length === 0 ? (
+      {boats.length === 0 && isStaff ? (
+        <p>Racing a boat as well? <Link href="/boats/new">Register it</Link> to get its tag and enter meetings.</p>
+      ) : boats.length === 0 ? (
         <div className="card space-y-3" data-testid="first-step">
           <p className="text-lg font-bold">Your first step: register your boat.</p>
           <p>
