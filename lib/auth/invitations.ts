@@ -6,7 +6,7 @@ import { AppError } from '@/lib/http/errors';
 import { assertCan, type Actor } from './actor';
 import { sendMail, linkMail } from '@/lib/mail/send';
 import type { EventStaffRole } from '@/lib/constants';
-import { InviteStaffInput } from '@/lib/validations/auth';
+import { InviteStaffInput, personName } from '@/lib/validations/auth';
 import { wipeUnprovenPassword } from './sessions';
 
 const INVITATION_DAYS = 14;
@@ -52,22 +52,35 @@ export async function inviteStaff(actor: Actor | null, eventId: string, raw: unk
 /** Looks an invitation up by its token without using it (for the acceptance page). */
 export async function findInvitation(token: string) {
   if (!token) return null;
-  const { StaffInvitation, Event } = getDb().models;
+  const { StaffInvitation, Event, User } = getDb().models;
   const inv = await StaffInvitation.findOne({ where: { tokenHash: hashToken(token) }, include: [Event] });
   if (!inv) return null;
   const event = (inv as unknown as { event: { name: string; venue: string } }).event;
+  const user = await User.findOne({ where: { email: inv.email }, attributes: ['name', 'emailVerified'] });
   return {
     email: inv.email,
     role: inv.role,
     eventName: event.name,
     venue: event.venue,
     isUsable: !inv.acceptedAt && inv.expiresAt > new Date(),
+    // Staff are seen by name in lists and records: a new account, one without a name, or one whose
+    // address was never proven (its name was chosen by whoever signed up) is given one here.
+    needsName: !user?.name?.trim() || !user.emailVerified,
   };
 }
 
-/** Uses an invitation once: creates the person if new, grants the role, returns the user. */
-export async function acceptInvitation(token: string) {
+/**
+ * Uses an invitation once: creates the person if new, grants the role, returns the user. A name
+ * given on the acceptance page is set on an account that has none, or whose address was never
+ * proven (its name was chosen by whoever signed up, perhaps not the mailbox's owner); a name the
+ * owner chose is never overwritten. A name that fails validation refuses the acceptance
+ * ('NameInvalid'), leaving the invitation unused.
+ */
+export async function acceptInvitation(token: string, rawName?: unknown) {
   if (!token) return null;
+  const parsedName = rawName == null || rawName === '' ? null : personName.safeParse(rawName);
+  if (parsedName && !parsedName.success) throw new Error('NameInvalid');
+  const name = parsedName?.data ?? null;
   const { sequelize, models } = getDb();
   return sequelize.transaction(async (transaction) => {
     const inv = await models.StaffInvitation.findOne({
@@ -84,12 +97,14 @@ export async function acceptInvitation(token: string) {
     // A suspended account takes no new role: the invitation stays unused (the transaction rolls
     // back) and next-auth turns the error into the sign-in page's message.
     if (user.suspendedAt) throw new Error('AccountSuspended');
+    const needsName = !user.name?.trim() || !user.emailVerified;
     // Following the invitation proves the mailbox. An account made earlier under this address but
     // never proven may belong to somebody else: its password and sessions end here.
     if (!user.emailVerified) {
       await wipeUnprovenPassword(user.email, transaction);
       await user.update({ emailVerified: new Date() }, { transaction });
     }
+    if (needsName && name) await user.update({ name }, { transaction });
     await models.EventStaff.findOrCreate({
       where: { eventId: inv.eventId, userId: user.id, role: inv.role },
       defaults: { eventId: inv.eventId, userId: user.id, role: inv.role },

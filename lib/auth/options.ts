@@ -49,9 +49,9 @@ export function getAuthOptions(): NextAuthOptions {
       CredentialsProvider({
         id: 'invitation',
         name: 'Staff invitation',
-        credentials: { token: { label: 'Invitation', type: 'text' } },
+        credentials: { token: { label: 'Invitation', type: 'text' }, name: { label: 'Name', type: 'text' } },
         async authorize(credentials) {
-          const user = await acceptInvitation(String(credentials?.token ?? ''));
+          const user = await acceptInvitation(String(credentials?.token ?? ''), credentials?.name);
           return user ? { id: user.id, email: user.email, name: user.name } : null;
         },
       }),

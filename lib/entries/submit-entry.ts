@@ -25,11 +25,21 @@ function numberFromHull(hull: string): number | null {
  * locked for the transaction, so concurrent entries take race numbers one at a time (the unique
  * index on entries(event_id, race_number) stays the last guard) and entries cannot close midway.
  */
-export async function submitEntry(actor: Actor | null, raw: unknown): Promise<{ entry: MyEntry; gotRequestedNumber: boolean; declarationCheck: DeclarationCheck }> {
+export type SubmittedEntry = {
+  entry: MyEntry;
+  /** The number asked for (typed, or the boat's plain hull number); null when none was. */
+  requestedRaceNumber: number | null;
+  gotRequestedNumber: boolean;
+  /** What happened to the number, in words the form shows as it is. */
+  raceNumberNote: string;
+  declarationCheck: DeclarationCheck;
+};
+
+export async function submitEntry(actor: Actor | null, raw: unknown): Promise<SubmittedEntry> {
   const input = SubmitEntryInput.parse(raw);
   assertCan(actor, 'entry.submit_own', { eventId: input.eventId });
   const { sequelize, models } = getDb();
-  let result: { entryId: string; gotRequestedNumber: boolean; declarationCheck: DeclarationCheck };
+  let result: { entryId: string; requested: number | null; raceNumber: number; gotRequestedNumber: boolean; declarationCheck: DeclarationCheck };
   try {
     result = await sequelize.transaction(async (transaction) => {
       const boat = await models.Boat.findOne({ where: { id: input.boatId, ownerId: actor.id }, transaction });
@@ -56,10 +66,13 @@ export async function submitEntry(actor: Actor | null, raw: unknown): Promise<{ 
       let raceNumber = requested != null && !(await taken(requested)) ? requested : null;
       const gotRequestedNumber = raceNumber != null;
       if (raceNumber == null) {
+        // "The next free one": the first free number after the one asked for (wrapping round to
+        // the lowest free number past 9999); with nothing asked for, the lowest free number.
         const [free] = await sequelize.query<{ n: number }>(
           `select n from generate_series(1, 9999) n
-            where not exists (select 1 from entries e where e.event_id = :eventId and e.race_number = n) order by n limit 1`,
-          { replacements: { eventId: event.id }, type: QueryTypes.SELECT, transaction },
+            where not exists (select 1 from entries e where e.event_id = :eventId and e.race_number = n)
+            order by (n <= :after), n limit 1`,
+          { replacements: { eventId: event.id, after: requested ?? 0 }, type: QueryTypes.SELECT, transaction },
         );
         if (!free) throw new AppError('no_race_numbers', 409, 'Every race number at this meeting is taken.');
         raceNumber = free.n;
@@ -68,7 +81,7 @@ export async function submitEntry(actor: Actor | null, raw: unknown): Promise<{ 
         { eventId: event.id, classId: raceClass.id, boatId: boat.id, entrantId: actor.id, raceNumber, feeMinor: event.entryFeeMinor, currency: event.currency },
         { transaction },
       );
-      return { entryId: entry.id, gotRequestedNumber, declarationCheck: checkDeclaration(boat, rules.rules) };
+      return { entryId: entry.id, requested, raceNumber, gotRequestedNumber: requested != null && gotRequestedNumber, declarationCheck: checkDeclaration(boat, rules.rules) };
     });
   } catch (err) {
     // Only reachable if the lock were bypassed: the unique indexes still refuse a double entry.
@@ -76,5 +89,12 @@ export async function submitEntry(actor: Actor | null, raw: unknown): Promise<{ 
     throw err;
   }
   const [entry] = await listMyEntries(actor, { entryId: result.entryId });
-  return { entry, gotRequestedNumber: result.gotRequestedNumber, declarationCheck: result.declarationCheck };
+  const { requested, raceNumber } = result;
+  const raceNumberNote =
+    requested == null
+      ? `You did not ask for a number, so you have ${raceNumber}, the lowest free one.`
+      : result.gotRequestedNumber
+        ? `You have the number you asked for: ${raceNumber}.`
+        : `Race number ${requested} is already taken at this meeting, so you have ${raceNumber}, the next free number${raceNumber < requested ? ' (none was free above it)' : ''}.`;
+  return { entry, requestedRaceNumber: requested, gotRequestedNumber: result.gotRequestedNumber, raceNumberNote, declarationCheck: result.declarationCheck };
 }

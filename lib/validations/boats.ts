@@ -39,7 +39,12 @@ const BoatFields = z.strictObject({
     .trim()
     .min(1, 'Enter the boat’s name.')
     .max(80, 'Keep the boat’s name under 80 characters.'),
-  hullNumber: text('the hull or sail number', 20),
+  // As painted on the hull: letters and digits, with spaces, hyphens, dots or slashes between them.
+  // It is an identifier, not a quantity: "-7" or "−7" is refused rather than read as a number.
+  hullNumber: text('the hull or sail number', 20).refine(
+    (v) => v === '' || /^[\p{L}\p{N}](?:[\p{L}\p{N} ./-]*[\p{L}\p{N}])?$/u.test(v),
+    'Type the hull or sail number as it is painted on the hull: letters and digits (like 42 or NZ-42), no minus sign.',
+  ),
   hullDescription: text('the hull description', 500),
   pumpDescription: text('the pump description', 500),
   impellerDescription: text('the impeller description', 500),

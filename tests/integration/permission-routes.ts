@@ -130,6 +130,7 @@ export const ROUTES: Row[] = [
 // run it. Bodies are refused input, so an allowed call changes nothing.
 export type ActionRow = { file: string; exportedName: string; page: string; access: 'signed-in'; fields: Record<string, string> };
 export const SERVER_ACTIONS: ActionRow[] = [
+  { file: 'app/(app)/account/actions.ts', exportedName: 'changeNameAction', page: '/account', access: 'signed-in', fields: { name: '   ' } },
   { file: 'app/(app)/account/actions.ts', exportedName: 'changePasswordAction', page: '/account', access: 'signed-in', fields: { password: '' } },
   { file: 'app/(app)/account/actions.ts', exportedName: 'signOutEverywhereAction', page: '/account', access: 'signed-in', fields: { confirm: 'not-everywhere' } },
   { file: 'app/(app)/account/actions.ts', exportedName: 'resendAddressProofAction', page: '/account', access: 'signed-in', fields: { confirm: 'not-send' } },

@@ -2,6 +2,7 @@
 
 import { ZodError } from 'zod';
 import { getActor } from '@/lib/auth/actor';
+import { changeName } from '@/lib/accounts/change-name';
 import { changePassword, signOutEverywhere } from '@/lib/accounts/change-password';
 import { resendAddressProof } from '@/lib/accounts/prove-address';
 import { AppError, fieldErrors } from '@/lib/http/errors';
@@ -15,6 +16,15 @@ function toResult(err: unknown): ActionResult {
     return { ok: false, message: err.message, ...(details.length > 0 && { fieldErrors: Object.fromEntries(details.map((d) => [d.field, d.message])) }) };
   }
   throw err;
+}
+
+export async function changeNameAction(_prev: ActionResult | null, form: FormData): Promise<ActionResult> {
+  try {
+    const { name } = await changeName(await getActor(), { name: form.get('name') });
+    return { ok: true, message: `Saved: you are ${name}.` };
+  } catch (err) {
+    return toResult(err);
+  }
 }
 
 export async function changePasswordAction(_prev: ActionResult | null, form: FormData): Promise<ActionResult> {

@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import { redirect } from 'next/navigation';
 import { getActor, allRolesOf } from '@/lib/auth/actor';
 import { getAccountSummary } from '@/lib/accounts/account-summary';
+import { NameForm } from './name-form';
 import { PasswordForm } from './password-form';
 import { ResendProofForm, SignOutEverywhereForm } from './session-controls';
 
@@ -17,7 +18,7 @@ export default async function AccountPage() {
       <h1>My account</h1>
       <dl className="card grid grid-cols-[8rem_1fr] gap-y-2">
         <dt className="font-bold">Name</dt>
-        <dd>{actor.name ?? '—'}</dd>
+        <dd data-testid="account-name">{actor.name ?? 'not given yet'}</dd>
         <dt className="font-bold">E-mail</dt>
         <dd className="break-all">
           {actor.email}{' '}
@@ -38,6 +39,10 @@ export default async function AccountPage() {
           <ResendProofForm />
         </section>
       )}
+      <section className="card space-y-3" aria-labelledby="name-heading">
+        <h2 id="name-heading" className="text-xl">{actor.name ? 'Change your name' : 'Give your name'}</h2>
+        <NameForm name={actor.name} />
+      </section>
       <section className="card space-y-3">
         <h2 className="text-xl">{summary.hasPassword ? 'Change your password' : 'Set a password'}</h2>
         <PasswordForm email={actor.email} hasPassword={summary.hasPassword} />

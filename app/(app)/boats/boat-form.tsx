@@ -105,7 +105,7 @@ export function BoatForm({ boat }: { boat?: BoatView }) {
       <fieldset disabled={isBusy} className="space-y-4">
         <TextField name="name" label="Boat name" defaultValue={boat?.name} autoComplete="off" error={errors.name} />
         <TextField name="hullNumber" label="Hull or sail number" defaultValue={boat?.hullNumber} autoComplete="off"
-          hint="A plain number (1–9999) is asked for as your race number when you enter." error={errors.hullNumber} />
+          hint="As painted on the hull, like 42 or NZ-42. A plain number (1–9999) is asked for as your race number when you enter." error={errors.hullNumber} />
         <TextArea name="hullDescription" label="Hull" defaultValue={boat?.hullDescription} hint="Builder, model, length: as you would describe it." error={errors.hullDescription} />
         <TextArea name="pumpDescription" label="Jet pump" defaultValue={boat?.pumpDescription} hint="Maker and model as written on the pump." error={errors.pumpDescription} />
         <TextArea name="impellerDescription" label="Impeller" defaultValue={boat?.impellerDescription} error={errors.impellerDescription} />

@@ -1,16 +1,24 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { format, parseISO } from 'date-fns';
+import { redirect } from 'next/navigation';
 import { BrandMark, BrandName } from '@/components/brand-mark';
+import { getActor } from '@/lib/auth/actor';
 import { describeTag } from '@/lib/boats/describe-tag';
+import { findTagDestination, type OfficialMeeting } from '@/lib/tags/tag-destination';
 
-// The page a boat's QR tag opens, for anyone who scans it: the boat's name and race numbers only.
-// Officials sign in for the declaration and inspection record.
+// The page a boat's QR tag opens (a phone's own camera lands here). Signed in, the owner goes to
+// their boat and a scrutineer of a meeting where the boat is entered to its card at the dock;
+// everyone else sees the public card: the boat's name and race numbers only.
 export const metadata: Metadata = { title: 'Boat tag', robots: { index: false, follow: false } };
 export const dynamic = 'force-dynamic';
 
 export default async function TagLandingPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
+  const actor = await getActor();
+  const destination = actor ? await findTagDestination(actor, token) : null;
+  if (destination?.redirectTo) redirect(destination.redirectTo);
+  const officialAt: OfficialMeeting[] = destination && 'officialAt' in destination ? destination.officialAt : [];
   const tag = await describeTag(token);
   return (
     <div className="flex min-h-screen flex-col items-center bg-paper-deep px-4 py-8">
@@ -38,10 +46,27 @@ export default async function TagLandingPage({ params }: { params: Promise<{ tok
                 ))}
               </ul>
             )}
-            <p className="rounded-lg bg-tide-50 p-3">
-              <strong>Scrutineers and officials:</strong> <Link href={`/sign-in?callbackUrl=${encodeURIComponent(`/t/${token}`)}`}>sign in</Link> to
-              see this boat&apos;s declaration and record an inspection.
-            </p>
+            {officialAt.map((m) => (
+              <section key={m.eventId} className="space-y-2 rounded-lg bg-tide-50 p-3" data-testid="tag-official-links">
+                <p><strong>You are an official at {m.eventName}</strong>, where this boat races as number {m.raceNumber}:</p>
+                <ul className="flex flex-wrap gap-2">
+                  {m.links.map((l) => <li key={l.href}><Link href={l.href} className="btn-secondary">{l.label}</Link></li>)}
+                </ul>
+              </section>
+            ))}
+            {!actor ? (
+              <p className="rounded-lg bg-tide-50 p-3">
+                <strong>Scrutineers and officials:</strong> <Link href={`/sign-in?callbackUrl=${encodeURIComponent(`/t/${token}`)}`}>sign in</Link> to
+                see this boat&apos;s declaration and record an inspection.
+              </p>
+            ) : (
+              officialAt.length === 0 && (
+                <p className="rounded-lg bg-paper-deep p-3" data-testid="tag-signed-in-note">
+                  You are signed in as {actor.name ?? actor.email}. This boat is not entered at a meeting still to come where you
+                  inspect boats, so this card is all the tag shows you. <Link href="/home">Your home page</Link>
+                </p>
+              )
+            )}
           </>
         )}
         {tag.state === 'retired' && (

@@ -1,6 +1,6 @@
 'use client';
 
-import { useCallback, useEffect, useState } from 'react';
+import { useCallback, useEffect, useRef, useState } from 'react';
 import { parseTagScan } from '@/lib/inspections/parse-tag-scan';
 import { loadSnapshot, putQueued, saveSnapshot, sendQueued, type EventSnapshot, type QueuedRecord } from '@/lib/inspections/offline-queue';
 import type { InspectionView } from '@/lib/inspections/inspection-view';
@@ -163,10 +163,23 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
     setNotice({ tone: 'info', text: `Correcting the record of ${new Date(original.capturedAt).toLocaleString()}: measure or re-enter, then say why.` });
   }
 
+  // Opened from a link (board or tag): on a phone the card sits below the finder, so bring it into view.
+  const isOpenedFromLink = useRef(false);
   useEffect(() => {
-    // From the board's re-inspection list: /inspect/<event>?race=42 opens that boat.
-    const race = new URLSearchParams(window.location.search).get('race');
+    if (!target || !isOpenedFromLink.current) return;
+    isOpenedFromLink.current = false;
+    document.getElementById('boat-heading')?.scrollIntoView({ block: 'start' });
+  }, [target]);
+
+  useEffect(() => {
+    // From the board's re-inspection list: /inspect/<event>?race=42 opens that boat; from a tag
+    // scanned with the phone's own camera (/t/<token> sends scrutineers here): ?tag=<token>.
+    const query = new URLSearchParams(window.location.search);
+    const race = query.get('race');
+    const tag = query.get('tag');
+    isOpenedFromLink.current = Boolean(race || tag);
     if (race) void find({ kind: 'typed', text: race });
+    else if (tag) void find({ kind: 'scan', text: tag });
   }, []);
 
   return (

@@ -50,6 +50,8 @@ export function FindBoat({ onFind, isBusy }: Props) {
   const [cameraError, setCameraError] = useState<string | null>(null);
   const [fileError, setFileError] = useState<string | null>(null);
   const [typed, setTyped] = useState('');
+  // Race numbers are digits: the phone's number pad by default; a tag code (letters) on request.
+  const [isTypingCode, setTypingCode] = useState(false);
   const onFindRef = useRef(onFind);
   onFindRef.current = onFind;
 
@@ -107,12 +109,16 @@ export function FindBoat({ onFind, isBusy }: Props) {
       <div id="dock-file-scan" className="hidden" aria-hidden="true" />
       {cameraError && <p className="field-error text-lg" role="alert">{cameraError}</p>}
       {fileError && <p className="field-error text-lg" role="alert" data-testid="scan-photo-error">{fileError}</p>}
-      <form className="flex flex-wrap items-end gap-3" onSubmit={(e) => { e.preventDefault(); if (typed.trim()) onFind({ kind: 'typed', text: typed }); }}>
+      <form className="flex flex-wrap items-end gap-3" noValidate onSubmit={(e) => { e.preventDefault(); if (typed.trim()) onFind({ kind: 'typed', text: typed }); }}>
         <div className="min-w-0 flex-1">
           <label htmlFor="find-typed" className="field-label text-lg">Race number or tag code</label>
-          <input id="find-typed" className="field-input min-h-touch text-xl" inputMode="text" autoComplete="off" autoCapitalize="off" value={typed} onChange={(e) => setTyped(e.target.value)} />
+          <input id="find-typed" className="field-input min-h-touch text-xl" inputMode={isTypingCode ? 'text' : 'numeric'} pattern={isTypingCode ? undefined : '[0-9]*'}
+            autoComplete="off" autoCapitalize="off" value={typed} onChange={(e) => setTyped(e.target.value)} />
         </div>
         <button type="submit" className="btn-primary min-h-touch text-xl" disabled={isBusy}>Find</button>
+        <button type="button" className="min-h-touch basis-full text-left text-base font-bold text-tide-700 underline" aria-pressed={isTypingCode} onClick={() => setTypingCode((on) => !on)}>
+          {isTypingCode ? 'Type a race number instead' : 'Type a tag code instead'}
+        </button>
       </form>
     </section>
   );

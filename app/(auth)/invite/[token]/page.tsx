@@ -31,7 +31,7 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
         You are invited as <strong>{ROLE_LABEL[inv.role] ?? inv.role}</strong> at {inv.eventName}, {inv.venue}, signing in as{' '}
         <strong>{inv.email}</strong>.
       </p>
-      <AcceptInvitation token={token} />
+      <AcceptInvitation token={token} needsName={inv.needsName} />
     </div>
   );
 }

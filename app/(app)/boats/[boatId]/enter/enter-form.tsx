@@ -19,7 +19,7 @@ const STATUS_STYLE: Record<DeclarationStatus, { box: string; mark: string }> = {
   outside: { box: 'border-fail-600 bg-fail-100 text-fail-800', mark: '✗' },
 };
 
-type Submitted = { entry: MyEntry; gotRequestedNumber: boolean };
+type Submitted = { entry: MyEntry; gotRequestedNumber: boolean; raceNumberNote: string };
 
 export function EnterForm({ boat, events, enteredEventIds }: { boat: BoatView; events: OpenEvent[]; enteredEventIds: string[] }) {
   const [eventId, setEventId] = useState(events[0].id);
@@ -57,7 +57,7 @@ export function EnterForm({ boat, events, enteredEventIds }: { boat: BoatView; e
       setErrors(next);
       return setMessage(json?.error?.message ?? 'The entry could not be made. Try again.');
     }
-    setDone({ entry: json.data.entry, gotRequestedNumber: json.data.gotRequestedNumber });
+    setDone({ entry: json.data.entry, gotRequestedNumber: json.data.gotRequestedNumber, raceNumberNote: json.data.raceNumberNote });
   }
 
   if (done) {
@@ -65,9 +65,11 @@ export function EnterForm({ boat, events, enteredEventIds }: { boat: BoatView; e
     return (
       <section className="card space-y-3" aria-labelledby="entry-made" data-testid="entry-made">
         <h2 id="entry-made" className="text-xl">Entry made: race number <span className="figure">{entry.raceNumber}</span></h2>
+        <p data-testid="race-number-note" data-got-requested={done.gotRequestedNumber} className={done.gotRequestedNumber ? '' : 'rounded-lg bg-doubt-100 p-3 font-bold text-doubt-800'}>
+          {done.raceNumberNote}
+        </p>
         <p>
           {entry.boatName} in {entry.classCode} {entry.className} at {entry.eventName}.{' '}
-          {!done.gotRequestedNumber && 'The number you asked for was taken, so you have the next free one. '}
           {entry.feeMinor > 0 ? <>The entry fee is <strong>{formatMoney(entry.feeMinor, entry.currency)}</strong>; the entry counts once it is paid.</> : 'This meeting charges no entry fee.'}
         </p>
         <PayEntryButton entryId={entry.id} label={entry.feeMinor > 0 ? 'Pay entry fee' : 'Confirm the entry'} />
@@ -103,7 +105,7 @@ export function EnterForm({ boat, events, enteredEventIds }: { boat: BoatView; e
         )}
         <TextField name="requestedRaceNumber" label="Race number you would like" type="number" inputMode="numeric" min={1} max={9999} step={1}
           defaultValue={/^\d{1,4}$/.test(boat.hullNumber) && Number(boat.hullNumber) > 0 ? Number(boat.hullNumber) : undefined}
-          hint="Optional. If it is taken at this meeting you get the next free number." error={errors.requestedRaceNumber} />
+          hint="Optional. If it is taken at this meeting you get the next free number after it, and we say which." error={errors.requestedRaceNumber} />
       </fieldset>
 
       {check && (
