@@ -102,6 +102,7 @@ export async function acceptInvitation(token: string, rawName?: unknown) {
     // never proven may belong to somebody else: its password and sessions end here.
     if (!user.emailVerified) {
       await wipeUnprovenPassword(user.email, transaction);
+      await user.reload({ transaction });
       await user.update({ emailVerified: new Date() }, { transaction });
     }
     if (needsName && name) await user.update({ name }, { transaction });

@@ -71,6 +71,10 @@ export function getAuthOptions(): NextAuthOptions {
           // Past the limit nothing is sent, and the answer stays the same (no hint to a stranger).
           const perAddress = await recordAttempt(`link:${identifier.toLowerCase()}`, { limit: LINKS_PER_ADDRESS_PER_HOUR, windowS: 3600 });
           if (!perAddress.allowed) return;
+          // A suspended account gets no link; the answer is the same as for anyone (the refusal
+          // itself happens where a link is used, in the signIn callback).
+          const target = await models.User.findOne({ where: { email: identifier.toLowerCase() }, attributes: ['suspendedAt'] });
+          if (target?.suspendedAt) return;
           await sendMail(
             linkMail({
               to: identifier,
@@ -95,6 +99,8 @@ export function getAuthOptions(): NextAuthOptions {
       // only after the password (if any) was right, so the answer tells a stranger nothing.
       async signIn({ user, account, email }) {
         if (!user?.email) return true;
+        // Asking for an e-mailed link proves nothing yet: the same answer for every address.
+        if (email?.verificationRequest) return true;
         const found = await models.User.findOne({ where: { email: user.email.toLowerCase() }, attributes: ['suspendedAt'] });
         // Absolute: next-auth's client reads the error with new URL(), which needs one.
         if (found?.suspendedAt) return new URL('/sign-in?error=AccountSuspended', process.env.NEXTAUTH_URL ?? 'http://localhost:3000').toString();
@@ -113,6 +119,14 @@ export function getAuthOptions(): NextAuthOptions {
           });
           token.uid = user.id;
           token.sv = row?.v ?? 0;
+        } else if (typeof token.uid === 'string') {
+          // Reading the session (GET /api/auth/session): an ended or suspended session is refused;
+          // next-auth then answers an empty session and clears the cookie.
+          const [live] = await sequelize.query(
+            'select 1 from users where id = :id and session_version = :sv and suspended_at is null',
+            { replacements: { id: token.uid, sv: typeof token.sv === 'number' ? token.sv : 0 }, type: QueryTypes.SELECT },
+          );
+          if (!live) throw new Error('SessionEnded');
         }
         return token;
       },

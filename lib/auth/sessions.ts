@@ -15,11 +15,12 @@ export async function endAllSessions(userId: string, transaction?: unknown) {
 /**
  * The mailbox behind an unproven address has just shown itself (an e-mailed link or invitation was
  * followed): a password chosen at sign-up by somebody else must not keep working, nor any session
- * it opened. A proven address, or an account without a password, is left alone.
+ * it opened, nor the name they gave (the owner is asked for theirs). A proven address, or an account
+ * without a password, is left alone.
  */
 export async function wipeUnprovenPassword(email: string, transaction?: unknown) {
   await getDb().sequelize.query(
-    `update users set password_hash = null, session_version = session_version + 1
+    `update users set password_hash = null, name = null, session_version = session_version + 1
       where email = :email and email_verified is null and password_hash is not null`,
     { replacements: { email: email.toLowerCase() }, ...(transaction ? { transaction: transaction as never } : {}) },
   );

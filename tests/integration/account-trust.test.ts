@@ -68,8 +68,9 @@ test('an e-mailed sign-in link on an unproven account removes the password someb
   assert.equal((await owner.session())?.user?.email, address);
   assert.equal((await attacker.fetch('/api/boats')).status, 401);
   assert.equal((await new HttpSession().signInWithPassword(address, PW)).status, 401);
-  const [row] = await query<{ verified: Date | null }>('select email_verified as verified from users where email = $1', [address]);
+  const [row] = await query<{ verified: Date | null; name: string | null }>('select email_verified as verified, name from users where email = $1', [address]);
   assert.ok(row.verified, 'the address is proven by the link');
+  assert.equal(row.name, null, 'the name the squatter chose is gone too');
 });
 
 test('no fee is tied to an unproven address: paying an entry is refused until the address is confirmed', async () => {
@@ -164,6 +165,7 @@ test('a session ends on sign-out, on "sign out everywhere" and for good on suspe
   });
   assert.equal(out.status, 200);
   assert.equal((await stolen.fetch('/api/boats')).status, 401, 'the copied cookie no longer works after sign-out');
+  assert.equal(await stolen.session(), null, 'next-auth\'s own session endpoint refuses it too');
 
   // Suspension ends sessions for good: lifting it does not bring an old session back.
   const again = new HttpSession();
