@@ -5,6 +5,7 @@ import type { ClassRules } from '@/lib/validations/class-rules';
 import type { InspectionKind, RecordInspectionDraft } from '@/lib/validations/inspections';
 import type { BoardRow, InspectionBoard } from '@/lib/inspections/list-inspection-board';
 import type { BoatCard } from '@/lib/inspections/load-boat-card';
+import { figureValue } from '@/lib/format/figures';
 
 /** The boat being inspected, from the server's card or, offline, from the phone's copy of the board. */
 export type DockTarget = {
@@ -80,7 +81,8 @@ export function initialFormState(target: DockTarget, lengthInstrumentId: string 
     material: '',
     weighings: ['', ''],
     scaleId: scaleId ?? '',
-    powerKw: String(target.declaredPowerKw),
+    // Pre-filled as shown on the card (0.1 kW); the stored declaration keeps its full precision.
+    powerKw: figureValue(target.declaredPowerKw, 'powerKw'),
     evidenceSeen: false,
     powerNote: '',
     seals: [],

@@ -8,6 +8,7 @@ import { INSPECTION_KINDS, INSPECTION_KIND_LABELS, RecordInspectionInput, type R
 import { decideInspection, type InspectionDecision } from '@/lib/inspections/decide-inspection';
 import type { InstrumentView } from '@/lib/inspections/list-instruments';
 import { SafetyNote } from '@/components/safety-note';
+import { formatFigure } from '@/lib/format/figures';
 import { DockField } from './dock-field';
 import { draftFromForm, type DockTarget, type FormState } from './form-model';
 
@@ -119,7 +120,7 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
               <label htmlFor={id('nozzle.instrumentId')} className="field-label text-lg">Instrument used</label>
               <select id={id('nozzle.instrumentId')} className={select} value={f.instrumentId} onChange={(e) => set('instrumentId', e.target.value)} aria-invalid={err('nozzle.instrumentId') ? true : undefined}>
                 <option value="">Choose…</option>
-                {lengthInstruments.map((i) => <option key={i.id} value={i.id}>{i.name} (U {i.appliedExpandedUncertainty.toFixed(3)} mm)</option>)}
+                {lengthInstruments.map((i) => <option key={i.id} value={i.id}>{i.name} (U {formatFigure(i.appliedExpandedUncertainty, i.quantity === 'length' ? 'uncertaintyMm' : 'massKg')})</option>)}
               </select>
               {err('nozzle.instrumentId') && <p className="field-error text-lg" data-field-error="nozzle.instrumentId">{err('nozzle.instrumentId')}</p>}
             </div>
@@ -163,7 +164,7 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
         <fieldset className="space-y-3">
           <legend className="text-xl font-bold">Engine power</legend>
           <DockField id={id('power.declaredKw')} label="Power, as declared or as the evidence shows" unit="kW" inputMode="decimal" value={f.powerKw} error={err('power.declaredKw')} onChange={(e) => set('powerKw', e.target.value)}
-            hint={`Declared by the entrant: ${target.declaredPowerKw} kW (${target.powerEvidence.replace('_', ' ')}).`} />
+            hint={`Declared by the entrant: ${formatFigure(target.declaredPowerKw, 'powerKw')} (${target.powerEvidence.replace('_', ' ')}).`} />
           <label className="flex min-h-touch items-center gap-3 font-bold">
             <input type="checkbox" className={check} checked={f.evidenceSeen} onChange={(e) => set('evidenceSeen', e.target.checked)} />
             I saw the evidence (dyno sheet or maker’s rating)

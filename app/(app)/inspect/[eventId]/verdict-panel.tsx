@@ -3,10 +3,14 @@
 import type { RuleResult } from '@/lib/inspections/decide-inspection';
 import { SafetyNote } from '@/components/safety-note';
 import { VerdictBadge } from '@/components/verdict-badge';
+import { formatFigure } from '@/lib/format/figures';
 
 export type ShownVerdict = { label: string; rules: RuleResult[]; overall: string; provisional: boolean; inspectionId: string | null };
 
-const fmt = (v: number | null, unit: string | null) => (v == null ? '—' : `${unit === 'mm' ? v.toFixed(3).replace(/0$/, '') : v.toFixed(unit === 'kg' ? 1 : 0)} ${unit ?? ''}`);
+const KIND_OF_UNIT = { mm: 'nozzleMm', kg: 'massKg', kW: 'powerKw' } as const;
+const fmt = (v: number | null, unit: RuleResult['unit']) => (unit ? formatFigure(v, KIND_OF_UNIT[unit]) : '—');
+// U is a small figure: one more digit than the readings in mm (lib/format/figures.ts).
+const fmtU = (v: number | null, unit: RuleResult['unit']) => (unit === 'mm' ? formatFigure(v, 'uncertaintyMm') : fmt(v, unit));
 
 /** Every rule's verdict and the overall result, at once, with the caution that officials decide. */
 export function VerdictPanel({ verdict, onNext }: { verdict: ShownVerdict; onNext: () => void }) {
@@ -45,7 +49,7 @@ export function VerdictPanel({ verdict, onNext }: { verdict: ShownVerdict; onNex
               <p className="figure text-lg">
                 {r.measured ? `measured ${fmt(r.decisiveValue, r.unit)} · ` : ''}limit {fmt(r.limit, r.unit)}
                 {r.acceptanceLimit != null && r.acceptanceLimit !== r.limit ? ` · accepted to ${fmt(r.acceptanceLimit, r.unit)}` : ''}
-                {r.expandedUncertainty != null ? ` · U ${fmt(r.expandedUncertainty, r.unit)}` : ''}
+                {r.expandedUncertainty != null ? ` · U ${fmtU(r.expandedUncertainty, r.unit)}` : ''}
               </p>
             )}
             <p className="text-ink-soft">{r.explanation}</p>
