@@ -115,6 +115,9 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
               </label>
             ))}
           </div>
+          {lengthInstruments.length === 0 && (
+            <p className="text-ink-soft" data-testid="no-instruments">No length instrument is on this meeting’s list yet: the chief scrutineer adds them under Instruments.</p>
+          )}
           {f.uncertaintySource === 'instrument' && (
             <div>
               <label htmlFor={id('nozzle.instrumentId')} className="field-label text-lg">Instrument used</label>
