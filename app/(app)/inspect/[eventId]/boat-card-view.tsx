@@ -6,6 +6,7 @@ import { INSPECTION_KIND_LABELS, type InspectionKind } from '@/lib/validations/i
 import { DECLARATION_STATUS_WORDS } from '@/lib/entries/check-declaration';
 import type { InspectionView } from '@/lib/inspections/inspection-view';
 import { formatFigure } from '@/lib/format/figures';
+import { CHECK_AREA_LABELS } from '@/lib/inspections/decide-inspection';
 import type { DockTarget } from './form-model';
 
 const when = (iso: string) => new Date(iso).toLocaleString([], { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
@@ -51,7 +52,7 @@ export function BoatCardView({ target, onCorrect }: { target: DockTarget; onCorr
           )}
           {card.openReinspections.length > 0 && (
             <p className="rounded-lg border-2 border-flare-500 bg-flare-100 p-3 font-bold" data-testid="open-reinspection">
-              Re-inspection asked for: {card.openReinspections.map((t) => t.reason).join('; ')}
+              Re-inspection asked for: {card.openReinspections.map((t) => `${t.reason}${t.checks ? ` (checks the ${t.checks.map((c) => CHECK_AREA_LABELS[c]).join(', ')} only)` : ''}`).join('; ')}
             </p>
           )}
           {card.partsHeld?.length > 0 && (

@@ -5,12 +5,12 @@ import { SAFETY_ITEMS, type SafetyItem } from '@/lib/constants';
 import { MATERIAL_OPTIONS } from '@/lib/engine/measurement';
 import { EngineInputError } from '@/lib/engine/engine-input-error';
 import { INSPECTION_KINDS, INSPECTION_KIND_LABELS, RecordInspectionInput, type RecordInspectionDraft } from '@/lib/validations/inspections';
-import { decideInspection, type InspectionDecision } from '@/lib/inspections/decide-inspection';
+import { CHECK_AREA_LABELS, decideInspection, describeScope, type InspectionDecision } from '@/lib/inspections/decide-inspection';
 import type { InstrumentView } from '@/lib/inspections/list-instruments';
 import { SafetyNote } from '@/components/safety-note';
 import { formatFigure } from '@/lib/format/figures';
 import { DockField } from './dock-field';
-import { draftFromForm, type DockTarget, type FormState } from './form-model';
+import { draftFromForm, resizeReadings, type DockTarget, type FormState } from './form-model';
 
 export type FormSubmission = { draft: RecordInspectionDraft; photos: File[]; provisional: InspectionDecision | null };
 type Props = {
@@ -38,6 +38,10 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
   const lengthInstruments = instruments.filter((i) => i.quantity === 'length');
   const scales = instruments.filter((i) => i.quantity === 'mass');
   const rules = target.rules;
+  // A protest's re-inspection decides only what it was ordered to check.
+  const task = target.card?.openReinspections.find((t) => t.id === f.reinspectionId) ?? null;
+  const scope = task?.checks ?? null;
+  const scopeWords = describeScope(scope);
 
   async function submit(e: React.FormEvent) {
     e.preventDefault();
@@ -54,7 +58,7 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
     if (rules) {
       try {
         const pick = (iid: string | null) => instruments.find((i) => i.id === iid) ?? null;
-        provisional = decideInspection({ input: parsed.data, rules, nozzleInstrument: pick(parsed.data.nozzle.instrumentId), weightInstrument: pick(parsed.data.weight?.instrumentId ?? null) });
+        provisional = decideInspection({ input: parsed.data, rules, nozzleInstrument: pick(parsed.data.nozzle.instrumentId), weightInstrument: pick(parsed.data.weight?.instrumentId ?? null), scope });
       } catch (x) {
         if (x instanceof EngineInputError) return setErrors({ [x.field]: x.message });
         throw x;
@@ -89,9 +93,12 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
           </select>
         </div>
 
+        {scopeWords && (
+          <p className="rounded-lg border-2 border-flare-500 bg-flare-100 p-3 font-bold" data-testid="reinspection-scope">{scopeWords}</p>
+        )}
         <fieldset className="space-y-3" aria-describedby={readingsError ? id('nozzle.readings') : undefined}>
           <legend className="text-xl font-bold">Nozzle exit: two-point diameters</legend>
-          <p className="text-ink-soft">{rules ? `At least ${rules.nozzle.minReadings} readings, spread around the exit.` : 'Spread the readings around the exit.'}</p>
+          <p className="text-ink-soft">{rules ? `At least ${rules.nozzle.minReadings} readings, spread around the exit.` : 'Spread the readings around the exit.'} Angles start spread evenly over half a turn, 180°/n apart for n readings ({Math.round((180 / f.readings.length) * 10) / 10}° now); change them if you measured elsewhere.</p>
           {f.readings.map((r, i) => (
             <div key={i} className="grid grid-cols-[2fr_1fr] items-end gap-3">
               <DockField id={id(`nozzle.readings.${i}.diameterMm`)} label={`Reading ${i + 1} diameter`} unit="mm" inputMode="decimal" autoComplete="off" value={r.diameter}
@@ -102,8 +109,8 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
           ))}
           {readingsError && <p id={id('nozzle.readings')} className="field-error text-lg" data-field-error="nozzle.readings">{readingsError}</p>}
           <div className="flex flex-wrap gap-3">
-            <button type="button" className="btn-secondary text-lg" onClick={() => set('readings', [...f.readings, { diameter: '', angle: '' }])}>Add a reading</button>
-            {f.readings.length > 1 && <button type="button" className="btn-secondary text-lg" onClick={() => set('readings', f.readings.slice(0, -1))}>Remove the last reading</button>}
+            <button type="button" className="btn-secondary text-lg" onClick={() => set('readings', resizeReadings(f.readings, f.readings.length + 1))}>Add a reading</button>
+            {f.readings.length > 1 && <button type="button" className="btn-secondary text-lg" onClick={() => set('readings', resizeReadings(f.readings, f.readings.length - 1))}>Remove the last reading</button>}
           </div>
 
           <div role="radiogroup" aria-label="Uncertainty of the readings" className="space-y-2">
@@ -204,7 +211,7 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
             <label htmlFor={id('reinspectionId')} className="field-label text-lg">Re-inspection task this completes</label>
             <select id={id('reinspectionId')} className={select} value={f.reinspectionId} onChange={(e) => set('reinspectionId', e.target.value)}>
               <option value="">None</option>
-              {target.card.openReinspections.map((t) => <option key={t.id} value={t.id}>{t.reason}</option>)}
+              {target.card.openReinspections.map((t) => <option key={t.id} value={t.id}>{t.reason}{t.checks ? ` (checks the ${t.checks.map((c) => CHECK_AREA_LABELS[c]).join(', ')} only)` : ''}</option>)}
             </select>
           </div>
         )}
