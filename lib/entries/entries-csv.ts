@@ -1,6 +1,11 @@
 // CSV of an event's entries (RFC 4180 quoting), with spreadsheet formula injection neutralised
 // (cells starting with = + - @ are prefixed with an apostrophe, as OWASP advises for CSV export).
 import type { EventEntryRow } from './list-event-entries';
+import { roundFigure, type FigureKind } from '../format/figures';
+
+// Figures leave rounded as on the screens (lib/format/figures.ts), still as numbers so a
+// spreadsheet reads them as numbers; the database keeps the full precision.
+const ROUNDED: Partial<Record<keyof EventEntryRow, FigureKind>> = { declaredNozzleMm: 'nozzleMm', declaredPowerKw: 'powerKw' };
 
 const COLUMNS: [keyof EventEntryRow, string][] = [
   ['raceNumber', 'race_number'],
@@ -28,6 +33,12 @@ export function csvCell(value: unknown): string {
 
 export function entriesToCsv(rows: EventEntryRow[]): string {
   const lines = [COLUMNS.map(([, h]) => h).join(',')];
-  for (const r of rows) lines.push(COLUMNS.map(([k]) => csvCell(r[k])).join(','));
+  for (const r of rows) {
+    lines.push(COLUMNS.map(([k]) => {
+      const kind = ROUNDED[k];
+      const v = r[k];
+      return csvCell(kind && typeof v === 'number' ? roundFigure(v, kind) : v);
+    }).join(','));
+  }
   return lines.join('\r\n') + '\r\n';
 }

@@ -1,13 +1,14 @@
 import 'server-only';
 import { getDb } from '@/lib/db';
-import { assertCan, type Actor } from '@/lib/auth/actor';
+import { type Actor } from '@/lib/auth/actor';
 import { AppError } from '@/lib/http/errors';
 import { AddInstrumentInput } from '@/lib/validations/inspections';
 import { toInstrumentView, type InstrumentView } from './list-instruments';
+import { assertCanManageInstruments } from './manage-instruments-access';
 
-/** The organiser puts an instrument on the meeting's list (error limit and resolution, or a certificate's U). */
+/** The organiser or chief scrutineer puts an instrument on the meeting's list (error limit and resolution, or a certificate's U). */
 export async function addInstrument(actor: Actor | null, eventId: string, raw: unknown): Promise<InstrumentView> {
-  assertCan(actor, 'event.edit', { eventId });
+  assertCanManageInstruments(actor, eventId);
   const input = AddInstrumentInput.parse(raw);
   const { models } = getDb();
   if (!(await models.Event.findByPk(eventId, { attributes: ['id'] }))) throw new AppError('not_found', 404, 'No such meeting.');

@@ -16,6 +16,10 @@
 //             band with the class's power uncertainty; without evidence seen, conformity is not shown.
 //   safety  — each item the class requires must be ticked as present; an unticked one does not conform.
 // The overall result is the worst: does_not_conform > inconclusive > conforms.
+// A targeted re-inspection (a protest's re-check of the nozzle, say) decides only the checks it
+// was ordered to make: the others are left out, not called inconclusive (`scope`).
+// Each value says what kind it is: measured at the dock, confirmed against evidence seen, or
+// only declared by the entrant (`valueKind`).
 
 import { evaluateConformity, formatMm, type DecisionRule, type Verdict } from '../engine/conformity';
 import { computeUncertaintyBudget, correctLengthToReferenceTemperatureMm } from '../engine/measurement';
@@ -24,6 +28,29 @@ import { SAFETY_ITEMS, type SafetyItem } from '../constants';
 import { formatFigure } from '../entries/check-declaration';
 import type { ClassRules } from '../validations/class-rules';
 import type { RecordInspectionInput } from '../validations/inspections';
+
+/** What a re-inspection can be ordered to check; null scope means everything. */
+export const CHECK_AREAS = ['nozzle', 'weight', 'power', 'safety'] as const;
+export type CheckArea = (typeof CHECK_AREAS)[number];
+export const CHECK_AREA_LABELS: Record<CheckArea, string> = {
+  nozzle: 'nozzle exit diameter',
+  weight: 'minimum weight',
+  power: 'engine power',
+  safety: 'safety equipment',
+};
+
+/**
+ * The checks a protest asked for, as decision areas. Seals decide nothing here; "something else"
+ * (or nothing named) cannot be narrowed, so the re-inspection decides everything (null).
+ */
+export function scopeFromRequestedChecks(requested: readonly string[] | null | undefined): CheckArea[] | null {
+  if (!requested || requested.length === 0 || requested.includes('other')) return null;
+  const map: Record<string, CheckArea> = { nozzle_diameter: 'nozzle', weight: 'weight', engine_power: 'power', safety_items: 'safety' };
+  const areas = CHECK_AREAS.filter((a) => requested.some((r) => map[r] === a));
+  return areas.length ? areas : null;
+}
+
+export type ValueKind = 'measured' | 'confirmed' | 'declared';
 
 export type RuleKey = 'nozzle_max' | 'nozzle_min' | 'weight_min' | 'power_band' | `safety:${SafetyItem}`;
 
@@ -42,6 +69,8 @@ export type RuleResult = {
   verdict: Verdict;
   explanation: string;
   measured: boolean;
+  /** measured at the dock, confirmed against evidence seen, or declared only (null: nothing to weigh, or a safety tick). */
+  valueKind?: ValueKind | null;
 };
 
 export type InstrumentFigures = {
@@ -58,6 +87,8 @@ export type InspectionDecision = {
   overall: Verdict;
   nozzle: { correctedReadingsMm: number[]; temperatureCorrected: boolean; expandedUncertaintyMm: number; uncertaintyBasis: string };
   weight: { meanKg: number; expandedUncertaintyKg: number; uncertaintyBasis: string } | null;
+  /** The checks decided (null: all of them). */
+  scope: CheckArea[] | null;
 };
 
 export type DecideInput = {
@@ -65,6 +96,8 @@ export type DecideInput = {
   rules: ClassRules;
   nozzleInstrument?: InstrumentFigures | null;
   weightInstrument?: InstrumentFigures | null;
+  /** A targeted re-inspection: decide only these checks (null or absent: all). */
+  scope?: readonly CheckArea[] | null;
 };
 
 const RANK: Record<Verdict, number> = { conforms: 0, inconclusive: 1, does_not_conform: 2 };
@@ -102,10 +135,10 @@ function explainLimit(o: { what: string; value: number; unit: string; side: 'max
   return `${value} is within U ${f(o.u)} of ${limit}: neither conformity nor non-conformity proven (ISO 14253-1).`;
 }
 
-function decideNozzle(d: DecideInput): { results: RuleResult[]; nozzle: InspectionDecision['nozzle'] } {
+function decideNozzle(d: DecideInput, isDecided = true): { results: RuleResult[]; nozzle: InspectionDecision['nozzle'] } {
   const { nozzle } = d.input;
   const { rules } = d;
-  if (nozzle.readings.length < rules.nozzle.minReadings) {
+  if (isDecided && nozzle.readings.length < rules.nozzle.minReadings) {
     throw new EngineInputError('nozzle.readings', `The class rules ask for at least ${rules.nozzle.minReadings} readings around the exit; ${nozzle.readings.length} given.`);
   }
   const temperatureCorrected = nozzle.temperatureC != null && nozzle.material != null;
@@ -144,6 +177,7 @@ function decideNozzle(d: DecideInput): { results: RuleResult[]; nozzle: Inspecti
       verdict: check.verdict,
       explanation: withAsk(`${check.explanation}${note} Uncertainty: ${u.basis}.`, check.verdict),
       measured: true,
+      valueKind: 'measured',
     });
   }
   return { results, nozzle: { correctedReadingsMm, temperatureCorrected, expandedUncertaintyMm: u.expandedUncertainty, uncertaintyBasis: u.basis } };
@@ -162,7 +196,7 @@ function decideWeight(d: DecideInput): { result: RuleResult | null; weight: Insp
   const w = d.input.weight;
   if (!w || w.readingsKg.length === 0) {
     const explanation = `Not weighed: the class minimum is ${formatFigure(minKg, 1)} kg (${basisWords}). Weigh the boat to decide.`;
-    return { result: { rule: 'weight_min', label, decisiveValue: null, unit: 'kg', limit: minKg, acceptanceLimit: null, rejectionLimit: null, expandedUncertainty: null, verdict: 'inconclusive', explanation, measured: false }, weight: null };
+    return { result: { rule: 'weight_min', label, decisiveValue: null, unit: 'kg', limit: minKg, acceptanceLimit: null, rejectionLimit: null, expandedUncertainty: null, verdict: 'inconclusive', explanation, measured: false, valueKind: null }, weight: null };
   }
   let scale: { expandedUncertainty: number; basis: string };
   if (d.weightInstrument) {
@@ -183,7 +217,7 @@ function decideWeight(d: DecideInput): { result: RuleResult | null; weight: Insp
   return {
     result: {
       rule: 'weight_min', label, decisiveValue: meanKg, unit: 'kg', limit: minKg, acceptanceLimit: check.acceptanceLimitMm, rejectionLimit: check.rejectionLimitMm,
-      expandedUncertainty: expandedUncertaintyKg, verdict: check.verdict, explanation: withAsk(explanation, check.verdict), measured: true,
+      expandedUncertainty: expandedUncertaintyKg, verdict: check.verdict, explanation: withAsk(explanation, check.verdict), measured: true, valueKind: 'measured',
     },
     weight: { meanKg, expandedUncertaintyKg, uncertaintyBasis: basis },
   };
@@ -205,10 +239,12 @@ function decidePower(d: DecideInput): RuleResult | null {
     verdict = 'inconclusive';
     explanation = `${explanation} No evidence was seen (dyno sheet or maker’s rating), so conformity is not shown: ask for the evidence or measure again with a better instrument (a dyno run).`;
   }
+  // Power is not measured at the dock: the figure is confirmed against the evidence seen, or only declared.
+  const valueKind: ValueKind = evidenceSeen ? 'confirmed' : 'declared';
   return {
     rule: 'power_band', label: 'Engine power', decisiveValue: declaredKw, unit: 'kW', limit: governing.limit,
     acceptanceLimit: governing.check.acceptanceLimitMm, rejectionLimit: governing.check.rejectionLimitMm, expandedUncertainty: u,
-    verdict, explanation: withAsk(explanation, verdict), measured: true,
+    verdict, explanation: withAsk(explanation, verdict), measured: true, valueKind,
   };
 }
 
@@ -225,17 +261,34 @@ function decideSafety(d: DecideInput): RuleResult[] {
         ? `${SAFETY_ITEMS[key]}: checked as present and working.`
         : `${SAFETY_ITEMS[key]}: not ticked as present and working. The class requires it; the boat does not conform until it is fitted and checked.`,
       measured: ok,
+      valueKind: null,
     } satisfies RuleResult;
   });
 }
 
 /** Every rule's verdict and the overall result. Throws EngineInputError (field named) on input the class refuses. */
 export function decideInspection(d: DecideInput): InspectionDecision {
-  const { results: nozzleResults, nozzle } = decideNozzle(d);
+  const scope = d.scope && d.scope.length ? [...d.scope] : null;
+  const decides = (area: CheckArea) => !scope || scope.includes(area);
+  const { results: nozzleResults, nozzle } = decideNozzle(d, decides('nozzle'));
   const { result: weightResult, weight } = decideWeight(d);
   const power = decidePower(d);
-  const rules = [...nozzleResults, ...(weightResult ? [weightResult] : []), ...(power ? [power] : []), ...decideSafety(d)];
-  return { rules, overall: worstVerdict(rules.map((r) => r.verdict)), nozzle, weight };
+  // The same maths for every check; a targeted re-inspection keeps only the checks it was ordered to make.
+  const rules = [
+    ...(decides('nozzle') ? nozzleResults : []),
+    ...(weightResult && decides('weight') ? [weightResult] : []),
+    ...(power && decides('power') ? [power] : []),
+    ...(decides('safety') ? decideSafety(d) : []),
+  ];
+  return { rules, overall: worstVerdict(rules.map((r) => r.verdict)), nozzle, weight: decides('weight') ? weight : null, scope };
+}
+
+/** "Re-inspection of the nozzle exit diameter only" — the words for a scope, or null for a full inspection. */
+export function describeScope(scope: readonly CheckArea[] | null | undefined): string | null {
+  if (!scope || scope.length === 0) return null;
+  const names = scope.map((a) => CHECK_AREA_LABELS[a]);
+  const list = names.length === 1 ? names[0] : `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}`;
+  return `This re-inspection was ordered to check the ${list} only; nothing else is decided by it (earlier records stand for the rest).`;
 }
 
 /** Words for a verdict, the same everywhere (never colour alone). */

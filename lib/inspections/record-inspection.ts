@@ -8,7 +8,7 @@ import { AppError, fieldError } from '@/lib/http/errors';
 import type { ClassRules } from '@/lib/validations/class-rules';
 import { sendMail } from '@/lib/mail/send';
 import { RecordInspectionInput } from '@/lib/validations/inspections';
-import { decideInspection, VERDICT_WORDS, type InstrumentFigures, type InspectionDecision } from './decide-inspection';
+import { decideInspection, describeScope, scopeFromRequestedChecks, VERDICT_WORDS, type CheckArea, type InstrumentFigures, type InspectionDecision } from './decide-inspection';
 import { currentInspectionCte, loadInspectionViews, type InspectionView } from './inspection-view';
 
 type EntryRow = {
@@ -63,6 +63,7 @@ async function mailEntrant(entry: EntryRow, decision: InspectionDecision) {
       subject: `${boatName} (no. ${raceNumber}): inspection result ${VERDICT_WORDS[decision.overall].toLowerCase()}`,
       text: [
         `${boatName} was inspected at ${eventName}. Overall: ${VERDICT_WORDS[decision.overall].toLowerCase()}.`,
+        ...(describeScope(decision.scope) ? [describeScope(decision.scope)!] : []),
         '',
         ...lines,
         '',
@@ -111,9 +112,15 @@ export async function recordInspection(actor: Actor | null, eventId: string, raw
     // A correction restates that inspection, so it is decided under the rules in force then.
     measuredAt = original.capturedAt;
   }
+  let scope: CheckArea[] | null = null;
   if (input.reinspectionId) {
     const task = await models.Reinspection.findOne({ where: { id: input.reinspectionId, eventId, entryId: entry.id } });
     if (!task) throw fieldError('reinspectionId', 'This re-inspection task is not for this entry.');
+    // A protest's re-inspection decides only the checks the protest asked for.
+    if (task.protestId) {
+      const protest = await models.Protest.findByPk(task.protestId, { attributes: ['id', 'requestedChecks'] });
+      scope = scopeFromRequestedChecks(protest?.requestedChecks);
+    }
   }
   // The version in force when the boat was measured (as findRulesInForce picks it), from the versions
   // that came with the entry: one query fewer per record. Published versions are frozen.
@@ -126,7 +133,7 @@ export async function recordInspection(actor: Actor | null, eventId: string, raw
     findInstrument(eventId, input.weight?.instrumentId ?? null, 'mass', 'weight.instrumentId'),
   ]);
   // Throws EngineInputError naming the field (too few readings for this class): 400.
-  const decision = decideInspection({ input, rules: ruleVersion.rules, nozzleInstrument, weightInstrument });
+  const decision = decideInspection({ input, rules: ruleVersion.rules, nozzleInstrument, weightInstrument, scope });
 
   const measurements = {
     nozzle: {
@@ -140,7 +147,7 @@ export async function recordInspection(actor: Actor | null, eventId: string, raw
     seals: input.seals,
     safety: input.safety,
   };
-  const results = { rules: decision.rules, decisionRule: ruleVersion.rules.decisionRule, ruleVersion: ruleVersion.version };
+  const results = { rules: decision.rules, decisionRule: ruleVersion.rules.decisionRule, ruleVersion: ruleVersion.version, scope: decision.scope };
 
   const inserted = await sequelize.transaction(async (transaction) => {
     // One writer per entry at a time, so the entry's result always reflects every committed record:

@@ -7,7 +7,7 @@
 // - mean of repeat observations and its standard deviation s/√n (JCGM 100:2008, 4.2.1–4.2.3).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { decideInspection, worstVerdict, type DecideInput, type InstrumentFigures } from '../../lib/inspections/decide-inspection';
+import { decideInspection, describeScope, scopeFromRequestedChecks, worstVerdict, type DecideInput, type InstrumentFigures } from '../../lib/inspections/decide-inspection';
 import { EngineInputError } from '../../lib/engine/engine-input-error';
 import type { ClassRules } from '../../lib/validations/class-rules';
 import type { DecisionRule, Verdict } from '../../lib/engine/conformity';
@@ -191,4 +191,39 @@ test('overall is the worst of all rules: does not conform > inconclusive > confo
   // Nozzle inconclusive, all else conforming: inconclusive overall.
   const d2 = decideInspection({ input: input([101.97, 101.9, 101.9], { safety: { helmet: true } }), rules: rules({ safetyItems: ['helmet'] }) });
   assert.equal(d2.overall, 'inconclusive');
+});
+
+test('a targeted re-inspection decides only what it was ordered to check, with the same maths', () => {
+  // Weight minimum 650 kg, power band 180–260 kW, helmet required; the boat is not weighed and no power evidence is seen.
+  const r = rules({ weight: { minKg: 650, includesDriver: true, defaultUncertaintyKg: 1 }, power: { minKw: 180, maxKw: 260, defaultUncertaintyKw: 5 }, safetyItems: ['helmet'] });
+  const i = input([101.93, 101.9, 101.9], { power: { declaredKw: 220, evidenceSeen: false, note: '' }, safety: {} });
+  const full = decideInspection({ input: i, rules: r });
+  assert.equal(full.overall, 'does_not_conform', 'a full inspection: the helmet is not ticked');
+  const nozzleOnly = decideInspection({ input: i, rules: r, scope: scopeFromRequestedChecks(['nozzle_diameter']) });
+  assert.deepEqual(nozzleOnly.rules.map((x) => x.rule), ['nozzle_max'], 'weight, power and safety are not decided');
+  assert.equal(nozzleOnly.overall, 'conforms', '101.93 mm under U 0.05 mm: conformity proven (DOMAIN.md worked decision, ISO 14253-1:2017)');
+  assert.deepEqual(nozzleOnly.scope, ['nozzle']);
+  // The nozzle verdict is the very one the full inspection gives.
+  assert.deepEqual(rule(nozzleOnly, 'nozzle_max'), rule(full, 'nozzle_max'));
+  assert.match(describeScope(nozzleOnly.scope)!, /ordered to check the nozzle exit diameter only/);
+  assert.equal(describeScope(full.scope), null);
+});
+
+test('protest checks map to decision areas; "something else" or none cannot be narrowed', () => {
+  assert.deepEqual(scopeFromRequestedChecks(['engine_power', 'nozzle_diameter']), ['nozzle', 'power']);
+  assert.deepEqual(scopeFromRequestedChecks(['weight', 'safety_items', 'seals']), ['weight', 'safety']);
+  assert.equal(scopeFromRequestedChecks(['nozzle_diameter', 'other']), null);
+  assert.equal(scopeFromRequestedChecks([]), null);
+  assert.equal(scopeFromRequestedChecks(['seals']), null, 'seals decide nothing: the whole inspection is decided');
+});
+
+test('each value names its kind: readings measured, power confirmed with evidence seen or declared without', () => {
+  const r = rules({ weight: { minKg: 650, includesDriver: true, defaultUncertaintyKg: 1 }, power: { minKw: 180, maxKw: 260, defaultUncertaintyKw: 5 } });
+  const seen = decideInspection({ input: input([101.5, 101.5, 101.5], { weight: { readingsKg: [690, 691] } as never }), rules: r });
+  assert.equal(rule(seen, 'nozzle_max').valueKind, 'measured');
+  assert.equal(rule(seen, 'weight_min').valueKind, 'measured');
+  assert.equal(rule(seen, 'power_band').valueKind, 'confirmed');
+  const unseen = decideInspection({ input: input([101.5, 101.5, 101.5], { power: { declaredKw: 220, evidenceSeen: false, note: '' } }), rules: r });
+  assert.equal(rule(unseen, 'power_band').valueKind, 'declared');
+  assert.equal(rule(unseen, 'weight_min').valueKind, null, 'not weighed: no value');
 });

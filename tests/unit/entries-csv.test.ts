@@ -27,3 +27,11 @@ test('cells that a spreadsheet would run as a formula are neutralised', () => {
   assert.equal(csvCell('@SUM(A1)'), "'@SUM(A1)");
   assert.equal(csvCell(-5), '-5', 'numbers are not strings and stay as they are');
 });
+
+test('declared figures leave rounded as on the screens, still as numbers (power to 0.1 kW, nozzle to 0.01 mm)', () => {
+  // 530 hp × 745.69987158227022 W/hp (NIST SP 811 Appendix B.8) = 395.22093193860326 kW, stored at full precision.
+  const csv = entriesToCsv([row({ declaredPowerKw: (530 * 745.69987158227022) / 1000, declaredNozzleMm: 101.4987 })]);
+  const [record] = parse(csv, { columns: true }) as Record<string, string>[];
+  assert.equal(record.declared_power_kw, '395.2');
+  assert.equal(record.declared_nozzle_mm, '101.5');
+});

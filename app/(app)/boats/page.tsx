@@ -5,6 +5,7 @@ import { getActor } from '@/lib/auth/actor';
 import { listMyBoats } from '@/lib/boats/list-my-boats';
 import { convertPower } from '@/lib/engine/units';
 import { formatFigure } from '@/lib/entries/check-declaration';
+import { formatFigure as formatPowerFigure } from '@/lib/format/figures';
 
 export const metadata: Metadata = { title: 'My boats' };
 export const dynamic = 'force-dynamic';
@@ -33,7 +34,7 @@ export default async function MyBoatsPage() {
                 <dt className="text-ink-soft">Nozzle exit</dt>
                 <dd className="figure">{formatFigure(b.declaredNozzleMm, 2)} mm ± {formatFigure(b.declaredNozzleToleranceMm, 2)} mm</dd>
                 <dt className="text-ink-soft">Power</dt>
-                <dd className="figure">{formatFigure(Math.round(b.declaredPowerKw * 10) / 10, 0)} kW ({Math.round(convertPower(b.declaredPowerKw, 'kW', 'hp'))} hp)</dd>
+                <dd className="figure">{formatPowerFigure(b.declaredPowerKw, 'powerKw')} ({formatPowerFigure(convertPower(b.declaredPowerKw, 'kW', 'hp'), 'powerHp')})</dd>
               </dl>
               <div className="flex flex-wrap gap-2 pt-1">
                 <Link href={`/boats/${b.id}`} className="btn-secondary">Declaration and tag</Link>

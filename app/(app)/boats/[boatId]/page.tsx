@@ -8,6 +8,7 @@ import { AppError } from '@/lib/http/errors';
 import { getMyBoat } from '@/lib/boats/get-my-boat';
 import { convertPower } from '@/lib/engine/units';
 import { formatFigure } from '@/lib/entries/check-declaration';
+import { formatFigure as formatPowerFigure } from '@/lib/format/figures';
 import { POWER_EVIDENCE } from '@/lib/constants';
 import { DOCUMENT_KINDS } from '@/lib/validations/boats';
 import { BoatForm } from '../boat-form';
@@ -68,7 +69,7 @@ export default async function BoatPage({ params }: { params: Promise<{ boatId: s
           {row('Impeller', boat.impellerDescription)}
           {row('Nozzle exit diameter', <span className="figure">{formatFigure(boat.declaredNozzleMm, 2)} mm ± {formatFigure(boat.declaredNozzleToleranceMm, 2)} mm ({formatFigure(Math.round((boat.declaredNozzleMm / 25.4) * 1000) / 1000, 3)} in)</span>)}
           {row('Engine', boat.engineDescription)}
-          {row('Declared power', <span className="figure">{formatFigure(Math.round(boat.declaredPowerKw * 100) / 100, 0)} kW ({formatFigure(Math.round(convertPower(boat.declaredPowerKw, 'kW', 'hp') * 10) / 10, 0)} hp)</span>)}
+          {row('Declared power', <span className="figure">{formatPowerFigure(boat.declaredPowerKw, 'powerKw')} ({formatPowerFigure(convertPower(boat.declaredPowerKw, 'kW', 'hp'), 'powerHp')})</span>)}
           {row('Power backed by', POWER_EVIDENCE[boat.powerEvidence])}
           {row('Displacement', boat.displacementL != null && <span className="figure">{formatFigure(boat.displacementL, 1)} L</span>)}
           {row('Weight', boat.declaredWeightKg != null && <span className="figure">{formatFigure(boat.declaredWeightKg, 0)} kg</span>)}

@@ -5,6 +5,8 @@ import { VerdictBadge } from '@/components/verdict-badge';
 import { INSPECTION_KIND_LABELS, type InspectionKind } from '@/lib/validations/inspections';
 import { DECLARATION_STATUS_WORDS } from '@/lib/entries/check-declaration';
 import type { InspectionView } from '@/lib/inspections/inspection-view';
+import { formatFigure } from '@/lib/format/figures';
+import { CHECK_AREA_LABELS } from '@/lib/inspections/decide-inspection';
 import type { DockTarget } from './form-model';
 
 const when = (iso: string) => new Date(iso).toLocaleString([], { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
@@ -36,9 +38,9 @@ export function BoatCardView({ target, onCorrect }: { target: DockTarget; onCorr
           <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-1">
             <dt className="font-bold">Pump</dt><dd>{card.boat.pumpDescription || '—'}</dd>
             <dt className="font-bold">Engine</dt><dd>{card.boat.engineDescription || '—'}</dd>
-            <dt className="font-bold">Nozzle</dt><dd className="figure">{card.boat.declaredNozzleMm.toFixed(2)} mm declared</dd>
-            <dt className="font-bold">Power</dt><dd className="figure">{card.boat.declaredPowerKw} kW declared</dd>
-            <dt className="font-bold">Weight</dt><dd className="figure">{card.boat.declaredWeightKg != null ? `${card.boat.declaredWeightKg} kg declared` : 'not declared'}</dd>
+            <dt className="font-bold">Nozzle</dt><dd className="figure" data-testid="card-nozzle">{formatFigure(card.boat.declaredNozzleMm, 'nozzleMm')} declared</dd>
+            <dt className="font-bold">Power</dt><dd className="figure" data-testid="card-power">{formatFigure(card.boat.declaredPowerKw, 'powerKw')} declared</dd>
+            <dt className="font-bold">Weight</dt><dd className="figure">{card.boat.declaredWeightKg != null ? `${formatFigure(card.boat.declaredWeightKg, 'massKg')} declared` : 'not declared'}</dd>
           </dl>
           {card.declaration && card.declaration.rows.length > 0 && (
             <details>
@@ -50,7 +52,7 @@ export function BoatCardView({ target, onCorrect }: { target: DockTarget; onCorr
           )}
           {card.openReinspections.length > 0 && (
             <p className="rounded-lg border-2 border-flare-500 bg-flare-100 p-3 font-bold" data-testid="open-reinspection">
-              Re-inspection asked for: {card.openReinspections.map((t) => t.reason).join('; ')}
+              Re-inspection asked for: {card.openReinspections.map((t) => `${t.reason}${t.checks ? ` (checks the ${t.checks.map((c) => CHECK_AREA_LABELS[c]).join(', ')} only)` : ''}`).join('; ')}
             </p>
           )}
           {card.partsHeld?.length > 0 && (

@@ -5,6 +5,7 @@ import { parseTagScan } from '@/lib/inspections/parse-tag-scan';
 import { loadSnapshot, putQueued, saveSnapshot, sendQueued, type EventSnapshot, type QueuedRecord } from '@/lib/inspections/offline-queue';
 import type { InspectionView } from '@/lib/inspections/inspection-view';
 import type { InstrumentView } from '@/lib/inspections/list-instruments';
+import { describeScope } from '@/lib/inspections/decide-inspection';
 import { BoatCardView } from './boat-card-view';
 import { FindBoat, type FindQuery } from './find-boat';
 import { formFromDraft, initialFormState, targetFromBoardRow, targetFromCard, type DockTarget, type FormState } from './form-model';
@@ -139,6 +140,7 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
       overall: after.overallResult ?? provisional?.overall ?? 'pending',
       provisional: !after.serverRules,
       inspectionId: after.inspectionId,
+      scopeWords: describeScope(target.card?.openReinspections.find((t) => t.id === draft.reinspectionId)?.checks),
     });
     setNotice(after.state === 'sent' ? { tone: 'info', text: `Recorded and sent: ${label}.` } : { tone: 'info', text: `Kept on this phone: ${label}. Waiting to send.` });
     setTarget(null);

@@ -5,6 +5,7 @@ import type { ClassRules } from '@/lib/validations/class-rules';
 import type { InspectionKind, RecordInspectionDraft } from '@/lib/validations/inspections';
 import type { BoardRow, InspectionBoard } from '@/lib/inspections/list-inspection-board';
 import type { BoatCard } from '@/lib/inspections/load-boat-card';
+import { figureValue } from '@/lib/format/figures';
 
 /** The boat being inspected, from the server's card or, offline, from the phone's copy of the board. */
 export type DockTarget = {
@@ -65,8 +66,27 @@ export type FormState = {
   reinspectionId: string;
 };
 
-/** Default angles spread evenly over half a turn: three readings at 0, 60 and 120° (common practice). */
+/**
+ * Default angles spread evenly over half a turn, 180°/n apart for n readings: three at 0, 60 and
+ * 120° (common practice, no source); a two-point diameter at θ also covers θ + 180°.
+ */
 const angleFor = (i: number, n: number) => String(Math.round((180 / n) * i));
+
+/**
+ * The readings with one added or the last removed. Angles still at the even spread (or blank) are
+ * spread again for the new count; angles the scrutineer typed are kept, and an added reading then
+ * goes halfway between the last angle and 180°.
+ */
+export function resizeReadings(readings: FormState['readings'], n: number): FormState['readings'] {
+  const next = n > readings.length ? [...readings, ...Array.from({ length: n - readings.length }, () => ({ diameter: '', angle: '' }))] : readings.slice(0, n);
+  const isEvenSpread = readings.every((r, i) => r.angle.trim() === '' || r.angle.trim() === angleFor(i, readings.length));
+  if (isEvenSpread) return next.map((r, i) => ({ ...r, angle: angleFor(i, n) }));
+  return next.map((r, i) => {
+    if (i < readings.length || r.angle !== '') return r;
+    const last = Number(next[i - 1]?.angle);
+    return { ...r, angle: String(Math.round(Number.isFinite(last) ? (last + 180) / 2 : (180 / n) * i)) };
+  });
+}
 
 export function initialFormState(target: DockTarget, lengthInstrumentId: string | null, scaleId: string | null): FormState {
   const n = Math.max(target.rules?.nozzle.minReadings ?? 3, 1);
@@ -80,7 +100,8 @@ export function initialFormState(target: DockTarget, lengthInstrumentId: string 
     material: '',
     weighings: ['', ''],
     scaleId: scaleId ?? '',
-    powerKw: String(target.declaredPowerKw),
+    // Pre-filled as shown on the card (0.1 kW); the stored declaration keeps its full precision.
+    powerKw: figureValue(target.declaredPowerKw, 'powerKw'),
     evidenceSeen: false,
     powerNote: '',
     seals: [],

@@ -5,11 +5,12 @@ import { SAFETY_ITEMS, type SafetyItem } from '@/lib/constants';
 import { MATERIAL_OPTIONS } from '@/lib/engine/measurement';
 import { EngineInputError } from '@/lib/engine/engine-input-error';
 import { INSPECTION_KINDS, INSPECTION_KIND_LABELS, RecordInspectionInput, type RecordInspectionDraft } from '@/lib/validations/inspections';
-import { decideInspection, type InspectionDecision } from '@/lib/inspections/decide-inspection';
+import { CHECK_AREA_LABELS, decideInspection, describeScope, type InspectionDecision } from '@/lib/inspections/decide-inspection';
 import type { InstrumentView } from '@/lib/inspections/list-instruments';
 import { SafetyNote } from '@/components/safety-note';
+import { formatFigure } from '@/lib/format/figures';
 import { DockField } from './dock-field';
-import { draftFromForm, type DockTarget, type FormState } from './form-model';
+import { draftFromForm, resizeReadings, type DockTarget, type FormState } from './form-model';
 
 export type FormSubmission = { draft: RecordInspectionDraft; photos: File[]; provisional: InspectionDecision | null };
 type Props = {
@@ -37,6 +38,10 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
   const lengthInstruments = instruments.filter((i) => i.quantity === 'length');
   const scales = instruments.filter((i) => i.quantity === 'mass');
   const rules = target.rules;
+  // A protest's re-inspection decides only what it was ordered to check.
+  const task = target.card?.openReinspections.find((t) => t.id === f.reinspectionId) ?? null;
+  const scope = task?.checks ?? null;
+  const scopeWords = describeScope(scope);
 
   async function submit(e: React.FormEvent) {
     e.preventDefault();
@@ -53,7 +58,7 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
     if (rules) {
       try {
         const pick = (iid: string | null) => instruments.find((i) => i.id === iid) ?? null;
-        provisional = decideInspection({ input: parsed.data, rules, nozzleInstrument: pick(parsed.data.nozzle.instrumentId), weightInstrument: pick(parsed.data.weight?.instrumentId ?? null) });
+        provisional = decideInspection({ input: parsed.data, rules, nozzleInstrument: pick(parsed.data.nozzle.instrumentId), weightInstrument: pick(parsed.data.weight?.instrumentId ?? null), scope });
       } catch (x) {
         if (x instanceof EngineInputError) return setErrors({ [x.field]: x.message });
         throw x;
@@ -88,9 +93,12 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
           </select>
         </div>
 
+        {scopeWords && (
+          <p className="rounded-lg border-2 border-flare-500 bg-flare-100 p-3 font-bold" data-testid="reinspection-scope">{scopeWords}</p>
+        )}
         <fieldset className="space-y-3" aria-describedby={readingsError ? id('nozzle.readings') : undefined}>
           <legend className="text-xl font-bold">Nozzle exit: two-point diameters</legend>
-          <p className="text-ink-soft">{rules ? `At least ${rules.nozzle.minReadings} readings, spread around the exit.` : 'Spread the readings around the exit.'}</p>
+          <p className="text-ink-soft">{rules ? `At least ${rules.nozzle.minReadings} readings, spread around the exit.` : 'Spread the readings around the exit.'} Angles start spread evenly over half a turn, 180°/n apart for n readings ({Math.round((180 / f.readings.length) * 10) / 10}° now); change them if you measured elsewhere.</p>
           {f.readings.map((r, i) => (
             <div key={i} className="grid grid-cols-[2fr_1fr] items-end gap-3">
               <DockField id={id(`nozzle.readings.${i}.diameterMm`)} label={`Reading ${i + 1} diameter`} unit="mm" inputMode="decimal" autoComplete="off" value={r.diameter}
@@ -101,8 +109,8 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
           ))}
           {readingsError && <p id={id('nozzle.readings')} className="field-error text-lg" data-field-error="nozzle.readings">{readingsError}</p>}
           <div className="flex flex-wrap gap-3">
-            <button type="button" className="btn-secondary text-lg" onClick={() => set('readings', [...f.readings, { diameter: '', angle: '' }])}>Add a reading</button>
-            {f.readings.length > 1 && <button type="button" className="btn-secondary text-lg" onClick={() => set('readings', f.readings.slice(0, -1))}>Remove the last reading</button>}
+            <button type="button" className="btn-secondary text-lg" onClick={() => set('readings', resizeReadings(f.readings, f.readings.length + 1))}>Add a reading</button>
+            {f.readings.length > 1 && <button type="button" className="btn-secondary text-lg" onClick={() => set('readings', resizeReadings(f.readings, f.readings.length - 1))}>Remove the last reading</button>}
           </div>
 
           <div role="radiogroup" aria-label="Uncertainty of the readings" className="space-y-2">
@@ -114,12 +122,15 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
               </label>
             ))}
           </div>
+          {lengthInstruments.length === 0 && (
+            <p className="text-ink-soft" data-testid="no-instruments">No length instrument is on this meeting’s list yet: the chief scrutineer adds them under Instruments.</p>
+          )}
           {f.uncertaintySource === 'instrument' && (
             <div>
               <label htmlFor={id('nozzle.instrumentId')} className="field-label text-lg">Instrument used</label>
               <select id={id('nozzle.instrumentId')} className={select} value={f.instrumentId} onChange={(e) => set('instrumentId', e.target.value)} aria-invalid={err('nozzle.instrumentId') ? true : undefined}>
                 <option value="">Choose…</option>
-                {lengthInstruments.map((i) => <option key={i.id} value={i.id}>{i.name} (U {i.appliedExpandedUncertainty.toFixed(3)} mm)</option>)}
+                {lengthInstruments.map((i) => <option key={i.id} value={i.id}>{i.name} (U {formatFigure(i.appliedExpandedUncertainty, i.quantity === 'length' ? 'uncertaintyMm' : 'massKg')})</option>)}
               </select>
               {err('nozzle.instrumentId') && <p className="field-error text-lg" data-field-error="nozzle.instrumentId">{err('nozzle.instrumentId')}</p>}
             </div>
@@ -163,7 +174,7 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
         <fieldset className="space-y-3">
           <legend className="text-xl font-bold">Engine power</legend>
           <DockField id={id('power.declaredKw')} label="Power, as declared or as the evidence shows" unit="kW" inputMode="decimal" value={f.powerKw} error={err('power.declaredKw')} onChange={(e) => set('powerKw', e.target.value)}
-            hint={`Declared by the entrant: ${target.declaredPowerKw} kW (${target.powerEvidence.replace('_', ' ')}).`} />
+            hint={`Declared by the entrant: ${formatFigure(target.declaredPowerKw, 'powerKw')} (${target.powerEvidence.replace('_', ' ')}).`} />
           <label className="flex min-h-touch items-center gap-3 font-bold">
             <input type="checkbox" className={check} checked={f.evidenceSeen} onChange={(e) => set('evidenceSeen', e.target.checked)} />
             I saw the evidence (dyno sheet or maker’s rating)
@@ -200,7 +211,7 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
             <label htmlFor={id('reinspectionId')} className="field-label text-lg">Re-inspection task this completes</label>
             <select id={id('reinspectionId')} className={select} value={f.reinspectionId} onChange={(e) => set('reinspectionId', e.target.value)}>
               <option value="">None</option>
-              {target.card.openReinspections.map((t) => <option key={t.id} value={t.id}>{t.reason}</option>)}
+              {target.card.openReinspections.map((t) => <option key={t.id} value={t.id}>{t.reason}{t.checks ? ` (checks the ${t.checks.map((c) => CHECK_AREA_LABELS[c]).join(', ')} only)` : ''}</option>)}
             </select>
           </div>
         )}

@@ -3,21 +3,31 @@
 import type { RuleResult } from '@/lib/inspections/decide-inspection';
 import { SafetyNote } from '@/components/safety-note';
 import { VerdictBadge } from '@/components/verdict-badge';
+import { formatFigure } from '@/lib/format/figures';
 
-export type ShownVerdict = { label: string; rules: RuleResult[]; overall: string; provisional: boolean; inspectionId: string | null };
+export type ShownVerdict = { label: string; rules: RuleResult[]; overall: string; provisional: boolean; inspectionId: string | null; scopeWords?: string | null };
 
-const fmt = (v: number | null, unit: string | null) => (v == null ? '—' : `${unit === 'mm' ? v.toFixed(3).replace(/0$/, '') : v.toFixed(unit === 'kg' ? 1 : 0)} ${unit ?? ''}`);
+/** The kind of each value: measured at the dock, confirmed against evidence, or declared only (older records: measured). */
+const kindOf = (r: RuleResult) => r.valueKind !== undefined ? r.valueKind : r.measured ? 'measured' : null;
+
+const KIND_OF_UNIT = { mm: 'nozzleMm', kg: 'massKg', kW: 'powerKw' } as const;
+const fmt = (v: number | null, unit: RuleResult['unit']) => (unit ? formatFigure(v, KIND_OF_UNIT[unit]) : '—');
+// U is a small figure: one more digit than the readings in mm (lib/format/figures.ts).
+const fmtU = (v: number | null, unit: RuleResult['unit']) => (unit === 'mm' ? formatFigure(v, 'uncertaintyMm') : fmt(v, unit));
 
 /** Every rule's verdict and the overall result, at once, with the caution that officials decide. */
 export function VerdictPanel({ verdict, onNext }: { verdict: ShownVerdict; onNext: () => void }) {
   const { rules, overall } = verdict;
-  const inconclusive = rules.some((r) => r.verdict === 'inconclusive' && r.measured);
+  // "Measure again" only when a measured value leaves the overall result open: under "Does not
+  // conform" another reading changes nothing, and a declared figure is not re-measured with an instrument.
+  const inconclusive = overall === 'inconclusive' && rules.some((r) => r.verdict === 'inconclusive' && kindOf(r) === 'measured');
   return (
     <section aria-labelledby="verdict-heading" className="card space-y-4 text-lg" data-testid="verdict" data-overall={overall} data-provisional={verdict.provisional}>
       <h2 id="verdict-heading" className="text-2xl">Result for {verdict.label}</h2>
       <div className="flex flex-wrap items-center gap-3" data-testid="overall-verdict">
         <span className="font-bold">Overall:</span> <VerdictBadge verdict={overall} large />
       </div>
+      {verdict.scopeWords && <p className="rounded-lg border-2 border-flare-500 bg-flare-100 p-3 font-bold" data-testid="verdict-scope">{verdict.scopeWords}</p>}
       {rules.length === 0 ? (
         <p className="rounded-lg bg-doubt-100 p-3 font-bold text-doubt-800" data-testid="provisional-note">
           Kept on this phone. This phone has no copy of the class rules, so the server decides when the record is sent.
@@ -43,9 +53,9 @@ export function VerdictPanel({ verdict, onNext }: { verdict: ShownVerdict; onNex
             </div>
             {r.unit && (
               <p className="figure text-lg">
-                {r.measured ? `measured ${fmt(r.decisiveValue, r.unit)} · ` : ''}limit {fmt(r.limit, r.unit)}
+                {kindOf(r) && r.decisiveValue != null ? <span data-value-kind={kindOf(r)}>{kindOf(r)} {fmt(r.decisiveValue, r.unit)} · </span> : ''}limit {fmt(r.limit, r.unit)}
                 {r.acceptanceLimit != null && r.acceptanceLimit !== r.limit ? ` · accepted to ${fmt(r.acceptanceLimit, r.unit)}` : ''}
-                {r.expandedUncertainty != null ? ` · U ${fmt(r.expandedUncertainty, r.unit)}` : ''}
+                {r.expandedUncertainty != null ? ` · U ${fmtU(r.expandedUncertainty, r.unit)}` : ''}
               </p>
             )}
             <p className="text-ink-soft">{r.explanation}</p>

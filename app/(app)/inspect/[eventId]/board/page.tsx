@@ -34,6 +34,7 @@ export default async function BoardPage({ params }: { params: Promise<{ eventId:
         <div className="flex flex-wrap gap-2">
           {canRecord && <Link href={`/inspect/${eventId}`} className="btn-secondary text-lg">Dock screen</Link>}
           {can(actor, 'custody.view', { eventId }) && <Link href={`/inspect/${eventId}/custody`} className="btn-secondary text-lg">Parts in custody</Link>}
+          <Link href={`/inspect/${eventId}/instruments`} className="btn-secondary text-lg">Instruments</Link>
         </div>
       </div>
       <Suspense fallback={<p>Loading the board…</p>}>

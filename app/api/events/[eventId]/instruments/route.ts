@@ -1,4 +1,4 @@
-// GET|POST /api/events/:eventId/instruments: the meeting's instruments with the U each brings; the organiser adds one.
+// GET|POST /api/events/:eventId/instruments: the meeting’s instruments in service with the U each brings; the organiser or chief scrutineer adds one.
 import { actorHandler, readJson } from '@/lib/http/handler';
 import { parseId } from '@/lib/http/ids';
 import { listInstruments } from '@/lib/inspections/list-instruments';

@@ -7,6 +7,7 @@ import {
   useReactTable, type SortingState,
 } from '@tanstack/react-table';
 import type { EventEntryRow } from '@/lib/entries/list-event-entries';
+import { figureValue } from '@/lib/format/figures';
 import { StatusBadge } from '@/components/status-badge';
 import { CancelEntryButton } from './cancel-entry-button';
 
@@ -44,8 +45,8 @@ export function EntriesTable({ rows, classes, canCancel, eventId }: { rows: Even
       col.accessor((r) => `${r.classCode}`, { id: 'classCode', header: 'Class' }),
       col.accessor((r) => r.entrantName ?? r.entrantEmail, { id: 'entrant', header: 'Entrant' }),
       col.accessor('status', { header: 'Status', cell: (c) => <StatusBadge status={c.getValue()} inspection={c.row.original.inspectionResult} /> }),
-      col.accessor('declaredNozzleMm', { header: 'Nozzle (mm)', cell: (c) => <span className="figure">{c.getValue().toFixed(2)}</span> }),
-      col.accessor('declaredPowerKw', { header: 'Power (kW)', cell: (c) => <span className="figure">{c.getValue().toFixed(0)}</span> }),
+      col.accessor('declaredNozzleMm', { header: 'Nozzle (mm)', cell: (c) => <span className="figure">{figureValue(c.getValue(), 'nozzleMm')}</span> }),
+      col.accessor('declaredPowerKw', { header: 'Power (kW)', cell: (c) => <span className="figure">{figureValue(c.getValue(), 'powerKw')}</span> }),
       ...(canCancel ? [col.display({ id: 'actions', header: '', cell: (c) => <CancelEntryButton eventId={eventId} entry={c.row.original} /> })] : []),
     ],
     [canCancel, eventId],

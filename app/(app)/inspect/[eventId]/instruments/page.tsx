@@ -1,0 +1,71 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound, redirect } from 'next/navigation';
+import { can, getActor } from '@/lib/auth/actor';
+import { getDb } from '@/lib/db';
+import { parseId } from '@/lib/http/ids';
+import { listAllInstruments } from '@/lib/inspections/list-instruments';
+import { canManageInstruments } from '@/lib/inspections/manage-instruments-access';
+import { formatFigure } from '@/lib/format/figures';
+import { AddInstrumentForm, RetireInstrumentButton } from './instrument-forms';
+
+export const metadata: Metadata = { title: 'Measuring instruments' };
+export const dynamic = 'force-dynamic';
+
+const U_KIND = { length: 'uncertaintyMm', mass: 'massKg' } as const;
+
+// The meeting's measuring instruments: the chief scrutineer (or organiser) adds and retires them; scrutineers see the list.
+export default async function InstrumentsPage({ params }: { params: Promise<{ eventId: string }> }) {
+  const actor = await getActor();
+  if (!actor) redirect('/sign-in');
+  let eventId: string;
+  try { eventId = parseId((await params).eventId); } catch { notFound(); }
+  if (!can(actor, 'inspection.board', { eventId })) redirect('/not-allowed');
+  const event = await getDb().models.Event.findByPk(eventId, { attributes: ['id', 'name', 'timeZone'] });
+  if (!event) notFound();
+  const instruments = await listAllInstruments(actor, eventId);
+  const canManage = canManageInstruments(actor, eventId);
+  const inService = instruments.filter((i) => !i.retiredAt);
+  const retired = instruments.filter((i) => i.retiredAt);
+  return (
+    <div className="space-y-5 text-lg">
+      <nav aria-label="Breadcrumb" className="text-lg">
+        <Link href="/inspect">Inspect</Link> / <Link href={`/inspect/${eventId}/board`}>{event.name}</Link> / Instruments
+      </nav>
+      <h1>Measuring instruments</h1>
+      <p className="text-ink-soft">The instruments the scrutineers may choose at the dock. Each brings its expanded uncertainty U (k = 2) to the verdicts: from its certificate, or from its error limit a and resolution δ as U = 2·√(a²/3 + δ²/12) (JCGM 100:2008).</p>
+      {canManage ? <AddInstrumentForm eventId={eventId} /> : <p>Only the chief scrutineer or the organiser adds and retires instruments.</p>}
+      <section aria-labelledby="in-service-heading" className="space-y-3">
+        <h2 id="in-service-heading" className="text-xl">In service ({inService.length})</h2>
+        {inService.length === 0 ? <p>None yet: the dock falls back on a typed U or the class default.</p> : (
+          <ul className="space-y-3" data-testid="instruments-in-service">
+            {inService.map((i) => (
+              <li key={i.id} className="card space-y-2" data-instrument-id={i.id}>
+                <div className="flex flex-wrap items-start justify-between gap-2">
+                  <div>
+                    <p className="font-bold">{i.name}</p>
+                    <p className="text-ink-soft">{i.quantity === 'length' ? 'Length (mm)' : 'Mass (kg)'} · U <span className="figure">{formatFigure(i.appliedExpandedUncertainty, U_KIND[i.quantity])}</span></p>
+                    <p className="text-base text-ink-soft">{i.basis}</p>
+                  </div>
+                  {canManage && <RetireInstrumentButton eventId={eventId} instrumentId={i.id} name={i.name} />}
+                </div>
+              </li>
+            ))}
+          </ul>
+        )}
+      </section>
+      {retired.length > 0 && (
+        <section aria-labelledby="retired-heading" className="space-y-2">
+          <h2 id="retired-heading" className="text-xl">Retired ({retired.length})</h2>
+          <ul className="divide-y divide-paper-line" data-testid="instruments-retired">
+            {retired.map((i) => (
+              <li key={i.id} className="py-2" data-instrument-id={i.id}>
+                <span className="font-bold">{i.name}</span> · retired {new Date(i.retiredAt!).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: event.timeZone })} ({event.timeZone}); records made with it keep it.
+              </li>
+            ))}
+          </ul>
+        </section>
+      )}
+    </div>
+  );
+}
