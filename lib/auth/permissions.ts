@@ -25,6 +25,7 @@ export const PERMISSIONS = {
   'inspection.record': ['scrutineer', 'chief_scrutineer'],
   'inspection.board': ['scrutineer', 'chief_scrutineer', 'organiser'],
   'inspection.assign_reinspection': ['chief_scrutineer', 'steward'],
+  'instrument.manage': ['chief_scrutineer', 'organiser'],
   // Parts held by the officials
   'custody.take': ['scrutineer', 'chief_scrutineer', 'steward'],
   'custody.release': ['chief_scrutineer', 'steward'],

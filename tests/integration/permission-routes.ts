@@ -74,8 +74,8 @@ export const ROUTES: Row[] = [
   { method: 'POST', file: `${E}/entries/[entryId]/cancel/route.ts`, path: (i) => `${ev(i)}/entries/${i.entryId}/cancel`, access: { anyOf: ['entry.cancel'] } },
   { method: 'GET', file: `${E}/tag-sheet/route.ts`, path: (i) => `${ev(i)}/tag-sheet`, access: { anyOf: ['tags.print'] } },
   { method: 'GET', file: `${E}/instruments/route.ts`, path: (i) => `${ev(i)}/instruments`, access: { anyOf: ['inspection.board'] } },
-  { method: 'POST', file: `${E}/instruments/route.ts`, path: (i) => `${ev(i)}/instruments`, access: { anyOf: ['event.edit', 'tags.print'] } },
-  { method: 'POST', file: `${E}/instruments/[instrumentId]/retire/route.ts`, path: (i) => `${ev(i)}/instruments/${i.missingId}/retire`, access: { anyOf: ['event.edit', 'tags.print'] } },
+  { method: 'POST', file: `${E}/instruments/route.ts`, path: (i) => `${ev(i)}/instruments`, access: { anyOf: ['instrument.manage'] } },
+  { method: 'POST', file: `${E}/instruments/[instrumentId]/retire/route.ts`, path: (i) => `${ev(i)}/instruments/${i.missingId}/retire`, access: { anyOf: ['instrument.manage'] } },
   // At the dock
   { method: 'POST', file: `${E}/inspections/route.ts`, path: (i) => `${ev(i)}/inspections`, access: { anyOf: ['inspection.record'] } },
   { method: 'GET', file: `${E}/inspections/route.ts`, path: (i) => `${ev(i)}/inspections`, access: { anyOf: ['inspection.board'] } },

@@ -10,11 +10,11 @@ import { navFor } from '../../lib/navigation';
 const EXPECTED: Record<Role, Permission[]> = {
   entrant: ['account.view', 'boat.manage_own', 'entry.submit_own', 'protest.lodge'],
   scrutineer: ['account.view', 'inspection.record', 'inspection.board', 'custody.take', 'custody.view', 'interest.declare'],
-  chief_scrutineer: ['account.view', 'entry.view_all', 'tags.print', 'inspection.record', 'inspection.board', 'inspection.assign_reinspection', 'custody.take', 'custody.release', 'custody.view', 'interest.declare'],
+  chief_scrutineer: ['account.view', 'entry.view_all', 'tags.print', 'inspection.record', 'inspection.board', 'inspection.assign_reinspection', 'instrument.manage', 'custody.take', 'custody.release', 'custody.view', 'interest.declare'],
   steward: ['account.view', 'entry.view_all', 'inspection.assign_reinspection', 'protest.decide', 'protest.view_all', 'audit.read', 'custody.take', 'custody.release', 'custody.view', 'interest.declare', 'interest.view_register'],
   organiser: [
     'account.view', 'event.create', 'event.edit', 'event.staff_manage', 'class.edit', 'entry.view_all', 'entry.cancel',
-    'tags.print', 'report.publish', 'results.publish', 'inspection.board', 'protest.view_all', 'audit.read', 'custody.view',
+    'tags.print', 'report.publish', 'results.publish', 'inspection.board', 'instrument.manage', 'protest.view_all', 'audit.read', 'custody.view',
     'interest.declare', 'interest.view_register',
   ],
   admin: ['account.view', 'event.create', 'admin.manage_users', 'dev.outbox'],
