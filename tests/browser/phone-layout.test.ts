@@ -29,6 +29,12 @@ before(async () => {
     safetyItems: ['helmet', 'kill_switch', 'fire_extinguisher'],
   }));
   entry = await meeting.addEntry(classId);
+  // Provisional results, so the demo entrant (who owns the entry) can open the protest form at this meeting.
+  const other = await meeting.addEntry(classId, { ownerEmail: DEMO.chief });
+  const { res, body } = await meeting.organiser.json(`/api/events/${meeting.eventId}/results`, {
+    classId, rows: [{ position: 1, raceNumber: other.raceNumber }, { position: 2, raceNumber: entry.raceNumber }],
+  });
+  assert.equal(res.status, 201, JSON.stringify(body));
 });
 after(async () => { await browser?.close(); });
 
@@ -68,8 +74,10 @@ test('phone navigation: the organiser and the scrutineer see every destination t
   await screenshot(org, 'phone-01-organiser-nav');
   // The last destination is reachable with a tap, without scrolling sideways.
   const names = (await org.getByTestId('main-nav').getByRole('link').allInnerTexts()).map((t) => t.trim());
-  await org.getByTestId('main-nav').getByRole('link', { name: names[names.length - 1], exact: true }).click();
-  await org.waitForLoadState('load');
+  const last = org.getByTestId('main-nav').getByRole('link', { name: names[names.length - 1], exact: true });
+  const href = (await last.getAttribute('href')) ?? '';
+  await last.click();
+  await org.waitForURL((u) => u.pathname === href);
   assert.equal(await org.getByTestId('main-nav').getByRole('link', { name: names[names.length - 1], exact: true }).getAttribute('aria-current'), 'page');
   await org.context().close();
 
@@ -142,7 +150,7 @@ test('dock on a phone: Record stays on screen while the top of the form is read,
 test('touch targets: protest checkboxes and breadcrumbs are at least 44 px; buttons and fields on role screens too', async () => {
   const ent = await phonePage(DEMO.entrant);
   await ent.goto('/protests');
-  await ent.getByLabel('Meeting', { exact: true }).selectOption(DEMO.meetingId);
+  await ent.getByLabel('Meeting', { exact: true }).selectOption(meeting.eventId);
   const checks = ent.locator('input[name="requestedChecks"]');
   assert.ok((await checks.count()) >= 1);
   for (let i = 0; i < (await checks.count()); i++) {
@@ -150,7 +158,7 @@ test('touch targets: protest checkboxes and breadcrumbs are at least 44 px; butt
     const b = await box(cb);
     assert.ok(b.width >= WCAG_MIN_PX && b.height >= WCAG_MIN_PX, `the box itself is ${b.width.toFixed(1)} x ${b.height.toFixed(1)} px (WCAG 2.2 SC 2.5.8: 24)`);
     // The hit area is the whole label row; a tap at its far edge ticks the box.
-    const label = ent.locator('label').filter({ has: cb });
+    const label = cb.locator('xpath=ancestor::label');
     const lb = await box(label);
     assert.ok(lb.height >= TOUCH_PX && lb.width >= TOUCH_PX, `the label row is ${lb.width.toFixed(0)} x ${lb.height.toFixed(0)} px`);
     if (await cb.isEnabled()) {
