@@ -22,7 +22,7 @@ export function MainNav({ items }: { items: MainNavItem[] }) {
               <Link
                 href={item.href}
                 aria-current={current ? 'page' : undefined}
-                className={`flex min-h-touch items-center rounded-lg px-3 font-bold no-underline sm:whitespace-nowrap sm:rounded-b-none sm:rounded-t-lg sm:px-4 ${
+                className={`flex min-h-[44px] items-center rounded-lg px-3 font-bold sm:min-h-touch no-underline sm:whitespace-nowrap sm:rounded-b-none sm:rounded-t-lg sm:px-4 ${
                   current ? 'bg-paper text-tide-900' : 'bg-tide-700 text-white hover:bg-tide-500 sm:bg-transparent sm:hover:bg-tide-700'
                 }`}
               >

@@ -9,7 +9,7 @@ import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import type { Browser, Locator, Page } from 'playwright-core';
 import { launchBrowser, newContext, screenshot, signInWithPassword, PHONE } from '../support/browser';
-import { DEMO, DEMO_PASSWORD } from '../support/env';
+import { ARTIFACTS, DEMO, DEMO_PASSWORD } from '../support/env';
 import { InspectionMeeting, rulesWith, type TestEntry } from '../support/inspection-meeting';
 
 const WCAG_MIN_PX = 24; // WCAG 2.2 SC 2.5.8
@@ -72,6 +72,7 @@ test('phone navigation: the organiser and the scrutineer see every destination t
   const org = await phonePage(DEMO.organiser);
   await assertNavFits(org, ['Inspect', 'Stewards', 'Organise']);
   await screenshot(org, 'phone-01-organiser-nav');
+  await org.screenshot({ path: `${ARTIFACTS}/phone-01-organiser-nav-viewport.png` });
   // The last destination is reachable with a tap, without scrolling sideways.
   const names = (await org.getByTestId('main-nav').getByRole('link').allInnerTexts()).map((t) => t.trim());
   const last = org.getByTestId('main-nav').getByRole('link', { name: names[names.length - 1], exact: true });
@@ -107,6 +108,7 @@ test('dock on a phone: Record stays on screen while the top of the form is read,
   assert.ok(r.y >= 0 && r.y + r.height <= VIEWPORT.height, `Record is inside the screen (top ${r.y.toFixed(0)} px of ${VIEWPORT.height})`);
   assert.ok(r.height >= TOUCH_PX);
   await screenshot(page, 'phone-03-dock-form-top');
+  await page.screenshot({ path: `${ARTIFACTS}/phone-03-dock-form-top-viewport.png` });
 
   // The section index: every section one tap away.
   const index = page.getByRole('navigation', { name: 'Sections of the form' });
@@ -122,6 +124,7 @@ test('dock on a phone: Record stays on screen while the top of the form is read,
   const r2 = await box(record);
   assert.ok(r2.y + r2.height <= VIEWPORT.height, 'Record still on screen after the jump');
   await screenshot(page, 'phone-04-dock-seals');
+  await page.screenshot({ path: `${ARTIFACTS}/phone-04-dock-seals-viewport.png` });
 
   // One compact safety caution on the dock screen.
   const notes = page.getByRole('note');
@@ -159,6 +162,7 @@ test('touch targets: protest checkboxes and breadcrumbs are at least 44 px; butt
     assert.ok(b.width >= WCAG_MIN_PX && b.height >= WCAG_MIN_PX, `the box itself is ${b.width.toFixed(1)} x ${b.height.toFixed(1)} px (WCAG 2.2 SC 2.5.8: 24)`);
     // The hit area is the whole label row; a tap at its far edge ticks the box.
     const label = cb.locator('xpath=ancestor::label');
+    await label.scrollIntoViewIfNeeded();
     const lb = await box(label);
     assert.ok(lb.height >= TOUCH_PX && lb.width >= TOUCH_PX, `the label row is ${lb.width.toFixed(0)} x ${lb.height.toFixed(0)} px`);
     if (await cb.isEnabled()) {
