@@ -1,20 +1,29 @@
 'use client';
 
-import { useMemo, useState } from 'react';
+import { useMemo } from 'react';
 import {
   Bar, BarChart, CartesianGrid, ErrorBar, Line, LineChart, ReferenceDot, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis,
 } from 'recharts';
 import { convertForce, convertSpeed, type ForceUnit, type SpeedUnit } from '@/lib/engine/units';
 import type { ReportInputs, ReportResults } from '@/lib/reports/parity-figures';
 
-const FORCE_UNITS: ForceUnit[] = ['N', 'kgf', 'lbf'];
-const SPEED_UNITS: SpeedUnit[] = ['km/h', 'm/s', 'kn', 'mph'];
+export const FORCE_UNITS: ForceUnit[] = ['N', 'kgf', 'lbf'];
+export const SPEED_UNITS: SpeedUnit[] = ['km/h', 'm/s', 'kn', 'mph'];
 const BOAT_COLOURS = ['#1f5f8b', '#2a3a48', '#51606d', '#103a57', '#3d7aa8', '#5b6b78'];
+// Colour and dash together tell 24 boats apart; the legend below the chart names each line.
+const BOAT_DASHES = ['', '6 3', '2 3', '10 3 2 3'];
+const boatStyle = (i: number) => ({ stroke: BOAT_COLOURS[i % BOAT_COLOURS.length], dash: BOAT_DASHES[Math.floor(i / BOAT_COLOURS.length) % BOAT_DASHES.length] });
 
-/** The report's three charts: thrust curves, static thrust deviation with whiskers, jet velocity spread. */
-export function ParityCharts({ inputs, results }: { inputs: ReportInputs; results: ReportResults }) {
-  const [forceUnit, setForceUnit] = useState<ForceUnit>('N');
-  const [speedUnit, setSpeedUnit] = useState<SpeedUnit>('km/h');
+function LineSample({ stroke, dash, width }: { stroke: string; dash: string; width: number }) {
+  return (
+    <svg width="32" height="10" aria-hidden="true" className="shrink-0">
+      <line x1="1" y1="5" x2="31" y2="5" stroke={stroke} strokeWidth={width} strokeDasharray={dash || undefined} />
+    </svg>
+  );
+}
+
+/** The report's charts: thrust curves, static thrust deviation with whiskers, jet velocity spread, in the units chosen above them. */
+export function ParityCharts({ inputs, results, forceUnit, speedUnit }: { inputs: ReportInputs; results: ReportResults; forceUnit: ForceUnit; speedUnit: SpeedUnit }) {
   const f = (n: number) => convertForce(n, 'N', forceUnit);
   const s = (ms: number) => convertSpeed(ms, 'm/s', speedUnit);
   const parity = results.parity;
@@ -42,19 +51,6 @@ export function ParityCharts({ inputs, results }: { inputs: ReportInputs; result
 
   return (
     <div className="space-y-6">
-      <div className="flex flex-wrap gap-4">
-        <label className="flex items-center gap-2 font-bold">Force
-          <select className="field-input w-auto" value={forceUnit} onChange={(e) => setForceUnit(e.target.value as ForceUnit)} aria-label="Force unit">
-            {FORCE_UNITS.map((u) => <option key={u}>{u}</option>)}
-          </select>
-        </label>
-        <label className="flex items-center gap-2 font-bold">Speed
-          <select className="field-input w-auto" value={speedUnit} onChange={(e) => setSpeedUnit(e.target.value as SpeedUnit)} aria-label="Speed unit">
-            {SPEED_UNITS.map((u) => <option key={u}>{u}</option>)}
-          </select>
-        </label>
-      </div>
-
       <figure className="card" data-testid="chart-thrust-curves">
         <figcaption className="mb-2 font-bold">Thrust against boat speed ({forceUnit} vs {speedUnit}); the median boat in orange, crossovers marked</figcaption>
         <div className="h-72 sm:h-96">
@@ -65,7 +61,7 @@ export function ParityCharts({ inputs, results }: { inputs: ReportInputs; result
               <YAxis width={60} />
               <Tooltip formatter={(v, name) => [`${v} ${forceUnit}`, name === 'median' ? 'Median boat' : labels.get(String(name)) ?? String(name)]} labelFormatter={(v) => `${v} ${speedUnit}`} />
               {inputs.boats.map((b, i) => (
-                <Line key={b.entryId} dataKey={b.entryId} dot={false} stroke={BOAT_COLOURS[i % BOAT_COLOURS.length]} strokeWidth={1} isAnimationActive={false} />
+                <Line key={b.entryId} dataKey={b.entryId} name={labels.get(b.entryId)} dot={false} stroke={boatStyle(i).stroke} strokeDasharray={boatStyle(i).dash || undefined} strokeWidth={1.5} isAnimationActive={false} />
               ))}
               <Line dataKey="median" dot={false} stroke="#e86a10" strokeWidth={3} isAnimationActive={false} />
               {crossovers.map((b) => (
@@ -74,6 +70,12 @@ export function ParityCharts({ inputs, results }: { inputs: ReportInputs; result
             </LineChart>
           </ResponsiveContainer>
         </div>
+        <ul className="mt-3 grid gap-x-4 gap-y-1 text-sm sm:grid-cols-2 lg:grid-cols-3" aria-label="Lines on the chart" data-testid="thrust-legend">
+          <li className="flex items-center gap-2 font-bold"><LineSample stroke="#e86a10" dash="" width={3} />Median boat</li>
+          {inputs.boats.map((b, i) => (
+            <li key={b.entryId} className="flex items-center gap-2"><LineSample stroke={boatStyle(i).stroke} dash={boatStyle(i).dash} width={1.5} />{labels.get(b.entryId)}</li>
+          ))}
+        </ul>
         {crossovers.length > 0 && (
           <ul className="mt-2 text-sm">
             {crossovers.slice(0, 12).map((b) => (
@@ -83,6 +85,12 @@ export function ParityCharts({ inputs, results }: { inputs: ReportInputs; result
         )}
       </figure>
 
+      {devData.length < 2 ? (
+        <section className="card" data-testid="deviation-single">
+          <h3 className="font-bold">Static thrust deviation from the class median</h3>
+          <p className="mt-1">Only one boat is in the figures, so it is the median itself: there is no deviation to chart until a second boat has a conforming inspection.</p>
+        </section>
+      ) : (
       <figure className="card" data-testid="chart-deviation">
         <figcaption className="mb-2 font-bold">Static thrust deviation from the class median (%), whiskers ±2u (about 95 %)</figcaption>
         <div style={{ height: Math.max(180, devData.length * 26) }}>
@@ -100,6 +108,7 @@ export function ParityCharts({ inputs, results }: { inputs: ReportInputs; result
           </ResponsiveContainer>
         </div>
       </figure>
+      )}
 
       <figure className="card" data-testid="chart-jet-velocity">
         <figcaption className="mb-2 font-bold">Static jet velocity per boat ({speedUnit}), whiskers ±2u</figcaption>

@@ -4,6 +4,7 @@ import { getActor, allRolesOf } from '@/lib/auth/actor';
 import { navFor } from '@/lib/navigation';
 import { BrandMark } from "@/components/brand-mark";
 import { SignOutButton } from '@/components/sign-out-button';
+import { MainNav } from '@/components/main-nav';
 
 export const dynamic = 'force-dynamic';
 
@@ -25,17 +26,7 @@ export default async function AppLayout({ children }: { children: React.ReactNod
             <SignOutButton />
           </div>
         </div>
-        <nav aria-label="Main" className="mx-auto max-w-6xl overflow-x-auto px-2">
-          <ul className="flex gap-1" data-testid="main-nav">
-            {items.map((item) => (
-              <li key={item.href}>
-                <Link href={item.href} className="inline-flex min-h-touch items-center whitespace-nowrap rounded-t-lg px-4 font-bold text-white no-underline hover:bg-tide-700">
-                  {item.label}
-                </Link>
-              </li>
-            ))}
-          </ul>
-        </nav>
+        <MainNav items={items.map(({ href, label }) => ({ href, label }))} />
       </header>
       <main className="mx-auto w-full max-w-6xl flex-1 px-4 py-6">{children}</main>
     </div>

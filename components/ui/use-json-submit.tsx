@@ -25,7 +25,7 @@ export function useJsonSubmit<T = unknown>() {
       for (const d of json?.error?.details ?? []) if (d?.field) errors[d.field] ??= d.message;
       const text = json?.error?.message ?? `The request failed (${res.status}).`;
       setFieldErrors(errors);
-      setMessage({ tone: 'error', text: Object.keys(errors).length ? 'Check the fields marked below.' : text });
+      setMessage({ tone: 'error', text: Object.keys(errors).length ? 'Check the fields that show a message: nothing was saved yet.' : text });
       return { ok: false, message: text, fieldErrors: errors };
     } catch {
       const text = 'No connection to the server: nothing was saved. Try again.';

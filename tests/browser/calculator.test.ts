@@ -122,7 +122,7 @@ test('calculator: two nozzles at 300 kW, static figures, curves crossing near 33
   await waitForSettled(page);
 
   await power.fill('-300');
-  await waitForText(page.locator(`[data-field-error="${await power.getAttribute('id')}"]`), /powerKw must be greater than 0/);
+  await waitForText(page.locator(`[data-field-error="${await power.getAttribute('id')}"]`), /^Shaft power must be greater than 0\.$/);
   assert.equal(await power.getAttribute('aria-invalid'), 'true');
   const describedBy = (await power.getAttribute('aria-describedby')) ?? '';
   const errorId = `${await power.getAttribute('id')}-error`;

@@ -84,7 +84,7 @@ export function LodgeProtestForm({ events }: { events: ProtestableEvent[] }) {
           <legend className="field-label">What to check</legend>
           <div className="grid gap-2 sm:grid-cols-2">
             {Object.entries(REQUESTED_CHECKS).map(([k, label]) => (
-              <label key={k} className="flex min-h-touch items-center gap-2"><input type="checkbox" name="requestedChecks" value={k} className="h-5 w-5" />{label}</label>
+              <label key={k} className="flex min-h-touch cursor-pointer items-center gap-3 rounded-lg border-2 border-paper-line bg-white px-3" data-testid="requested-check"><input type="checkbox" name="requestedChecks" value={k} className="h-7 w-7 shrink-0 accent-tide-600" />{label}</label>
             ))}
           </div>
         </fieldset>

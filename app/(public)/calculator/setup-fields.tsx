@@ -6,7 +6,7 @@ import type { ReactNode } from 'react';
 import { POWER_UNIT_OPTIONS, UNIT_LABELS } from '@/lib/engine/units';
 import type { UnitOption } from '@/lib/engine/units';
 import type { JetPerformanceData } from '@/lib/engine/calculation-api';
-import { formatForce, formatPower, formatSpeed, toModelBody } from './setup-model';
+import { formatForce, formatPower, formatSpeed, toModelBody, WATER_TEMPERATURE_HINT } from './setup-model';
 import type { DisplayUnits, FieldErrors, InputLengthUnit, InputPowerUnit, SetupDraft, SetupField } from './setup-model';
 import { SERIES_STYLES } from './thrust-chart';
 
@@ -124,7 +124,7 @@ export function SetupFields({ index, setup, errors, data, units, canRemove, onCh
           </select>
           {errors.waterKind && <p className="field-error" data-field-error={id('waterKind')}>{errors.waterKind}</p>}
         </div>
-        {!hasDensity && number('temperatureC', 'Water temperature', <FixedUnit>°C</FixedUnit>, '10–25 °C (ITTC table); outside it, enter a density.')}
+        {!hasDensity && number('temperatureC', 'Water temperature', <FixedUnit>°C</FixedUnit>, WATER_TEMPERATURE_HINT)}
         {number('densityKgM3', 'Density override', <FixedUnit>kg/m³</FixedUnit>, 'Blank: from water and temperature.')}
       </div>
     </fieldset>

@@ -4,6 +4,7 @@
 
 import { convertForce, convertLength, convertPower, convertSpeed, formatQuantity } from '@/lib/engine/units';
 import type { ForceUnit, PowerUnit, SpeedUnit } from '@/lib/engine/units';
+import { ITTC_TEMPERATURE_RANGE_C } from '@/lib/engine/water';
 
 export const MAX_SETUPS = 4;
 /** Chart and curve speeds: 0 to 35 m/s (126 km/h) in 0.5 m/s steps, covering sprint boats. */
@@ -103,13 +104,51 @@ const API_FIELDS: Record<string, SetupField> = {
   densityKgM3: 'densityKgM3',
 };
 
-/** The API's details [{ field, message }] as messages per set-up field (first message wins). */
+/** Each field as the form labels it, so a message names what the person sees. */
+export const FIELD_LABELS: Record<SetupField, string> = {
+  power: 'Shaft power',
+  nozzle: 'Nozzle exit diameter',
+  pumpEfficiency: 'Pump efficiency',
+  nozzleLoss: 'Nozzle loss coefficient Kₙ',
+  inletLoss: 'Inlet loss coefficient Kᵢ',
+  waterKind: 'Water',
+  temperatureC: 'Water temperature',
+  densityKgM3: 'Density override',
+};
+
+const FIELD_EXAMPLES: Partial<Record<SetupField, string>> = {
+  power: '250', nozzle: '95', pumpEfficiency: '0.88', nozzleLoss: '0.03', inletLoss: '0.2', temperatureC: '15', densityKgM3: '1000',
+};
+
+/** The water temperatures the ITTC table covers (the same range the API enforces): the hint and the message use it. */
+export const WATER_TEMPERATURE_HINT = `${ITTC_TEMPERATURE_RANGE_C.min}–${ITTC_TEMPERATURE_RANGE_C.max} °C (ITTC table); outside it, enter a density.`;
+
+/**
+ * The API speaks to programs ("powerKw must be greater than 0", "expected a number"); the form
+ * speaks to people: the field's label, what is wrong, and what to type instead.
+ */
+export function humanMessage(field: SetupField, apiMessage: string): string {
+  const label = FIELD_LABELS[field];
+  if (/must be a number|expected number|received/i.test(apiMessage)) {
+    return `${label} must be a number${FIELD_EXAMPLES[field] ? `, for example ${FIELD_EXAMPLES[field]}` : ''}.`;
+  }
+  if (field === 'temperatureC') {
+    const { min, max } = ITTC_TEMPERATURE_RANGE_C;
+    return `Water temperature must be between ${min} and ${max} °C (the ITTC water table); for colder or warmer water, enter a density override.`;
+  }
+  if (/greater than 0|above 0/.test(apiMessage)) return `${label} must be greater than 0.`;
+  // Other limits: keep the API's wording but name the field as the form does.
+  const rest = apiMessage.replace(/^[A-Za-z.]+(?: \([^)]*\))? /, '');
+  return `${label} ${rest}${/[.!]$/.test(rest) ? '' : '.'}`;
+}
+
+/** The API's details [{ field, message }] as messages per set-up field (first message wins), in the form's words. */
 export function toFieldErrors(details: unknown): FieldErrors {
   const out: FieldErrors = {};
   if (!Array.isArray(details)) return out;
   for (const d of details as { field?: unknown; message?: unknown }[]) {
     const field = API_FIELDS[String(d?.field)];
-    if (field && typeof d.message === 'string') out[field] ??= d.message;
+    if (field && typeof d.message === 'string') out[field] ??= humanMessage(field, d.message);
   }
   return out;
 }

@@ -59,6 +59,7 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
   const [verdict, setVerdict] = useState<ShownVerdict | null>(null);
   const [isLooking, setLooking] = useState(false);
   const [device, setDevice] = useState('');
+  const verdictRef = useRef<HTMLDivElement>(null);
   const defaultLength = instruments.find((i) => i.quantity === 'length')?.id ?? null;
   const defaultScale = instruments.find((i) => i.quantity === 'mass')?.id ?? null;
 
@@ -165,6 +166,13 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
     setNotice({ tone: 'info', text: `Correcting the record of ${new Date(original.capturedAt).toLocaleString()}: measure or re-enter, then say why.` });
   }
 
+  // Recording is tapped at the bottom of a long form: bring the verdict into view (and focus) when it arrives.
+  useEffect(() => {
+    if (!verdict || !verdictRef.current) return;
+    verdictRef.current.scrollIntoView({ block: 'start' });
+    verdictRef.current.focus({ preventScroll: true });
+  }, [verdict]);
+
   // Opened from a link (board or tag): on a phone the card sits below the finder, so bring it into view.
   const isOpenedFromLink = useRef(false);
   useEffect(() => {
@@ -189,6 +197,7 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
       <div className="space-y-4">
         <FindBoat onFind={(q) => void find(q)} isBusy={isLooking} />
         {isLooking && <p role="status" className="text-lg">Looking up…</p>}
+        <div ref={verdictRef} tabIndex={-1} id="dock-verdict" className="scroll-mt-4 space-y-4 outline-none">
         {notice && (
           <p role="status" aria-live="polite" data-testid="dock-notice" data-code={notice.code ?? ''}
             className={`rounded-lg p-3 text-lg font-bold ${notice.tone === 'error' ? 'bg-fail-100 text-fail-800' : 'bg-tide-50 text-tide-700'}`}>
@@ -196,6 +205,7 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
           </p>
         )}
         {verdict && <VerdictPanel verdict={verdict} onNext={() => { setVerdict(null); setNotice(null); }} />}
+        </div>
         {target && <BoatCardView target={target} onCorrect={correct} />}
         {target && form && !target.isOwnBoat && (
           <InspectionForm key={`${form.key}-${form.revision}`} target={target} instruments={instruments} initial={form.initial} idempotencyKey={form.key} device={device} serverErrors={serverErrors} onSubmit={record} />

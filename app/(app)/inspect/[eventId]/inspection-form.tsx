@@ -74,6 +74,18 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
   }
 
   const readingsError = err('nozzle.readings');
+  const hasWeight = !rules || rules.weight.minKg != null;
+  const hasSafety = !!rules && rules.safetyItems.length > 0;
+  // The in-page index: the form is long on a phone, so each section is one tap away.
+  const sections = [
+    { id: 'dock-nozzle', label: 'Nozzle' },
+    ...(hasWeight ? [{ id: 'dock-weight', label: 'Weight' }] : []),
+    { id: 'dock-power', label: 'Power' },
+    ...(hasSafety ? [{ id: 'dock-safety', label: 'Safety items' }] : []),
+    { id: 'dock-seals', label: 'Seals' },
+    { id: 'dock-notes', label: 'Photos and notes' },
+  ];
+  const section = 'scroll-mt-4 space-y-3';
   return (
     <form onSubmit={submit} noValidate className="space-y-6 text-lg" data-testid="inspection-form" aria-label={`Inspection of ${target.boatName}`}>
       <fieldset disabled={isBusy} className="space-y-6">
@@ -86,6 +98,13 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
             <button type="button" className="btn-secondary mt-2 text-lg" onClick={() => setF((s) => ({ ...s, supersedesId: null, correctionReason: '' }))}>Not a correction</button>
           </div>
         )}
+        <nav aria-label="Sections of the form" id="dock-sections" className="scroll-mt-4" data-testid="dock-sections">
+          <ul className="flex flex-wrap gap-2">
+            {sections.map((x) => (
+              <li key={x.id}><a href={`#${x.id}`} className="btn-secondary px-3 text-base">{x.label}</a></li>
+            ))}
+          </ul>
+        </nav>
         <div>
           <label htmlFor={id('kind')} className="field-label text-lg">Kind of inspection</label>
           <select id={id('kind')} className={select} value={f.kind} onChange={(e) => set('kind', e.target.value as FormState['kind'])}>
@@ -96,7 +115,7 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
         {scopeWords && (
           <p className="rounded-lg border-2 border-flare-500 bg-flare-100 p-3 font-bold" data-testid="reinspection-scope">{scopeWords}</p>
         )}
-        <fieldset className="space-y-3" aria-describedby={readingsError ? id('nozzle.readings') : undefined}>
+        <fieldset id="dock-nozzle" className={section} aria-describedby={readingsError ? id('nozzle.readings') : undefined}>
           <legend className="text-xl font-bold">Nozzle exit: two-point diameters</legend>
           <p className="text-ink-soft">{rules ? `At least ${rules.nozzle.minReadings} readings, spread around the exit.` : 'Spread the readings around the exit.'} Angles start spread evenly over half a turn, 180°/n apart for n readings ({Math.round((180 / f.readings.length) * 10) / 10}° now); change them if you measured elsewhere.</p>
           {f.readings.map((r, i) => (
@@ -151,8 +170,8 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
           <p className="text-ink-soft">With both, the readings are corrected to 20 °C (ISO 1:2022).</p>
         </fieldset>
 
-        {(!rules || rules.weight.minKg != null) && (
-          <fieldset className="space-y-3">
+        {hasWeight && (
+          <fieldset id="dock-weight" className={section}>
             <legend className="text-xl font-bold">Weight{rules?.weight.minKg != null ? ` (minimum ${rules.weight.minKg} kg, ${rules.weight.includesDriver ? 'with' : 'without'} driver)` : ''}</legend>
             <div className="grid grid-cols-2 items-end gap-3">
               {f.weighings.map((w, i) => (
@@ -171,7 +190,7 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
           </fieldset>
         )}
 
-        <fieldset className="space-y-3">
+        <fieldset id="dock-power" className={section}>
           <legend className="text-xl font-bold">Engine power</legend>
           <DockField id={id('power.declaredKw')} label="Power, as declared or as the evidence shows" unit="kW" inputMode="decimal" value={f.powerKw} error={err('power.declaredKw')} onChange={(e) => set('powerKw', e.target.value)}
             hint={`Declared by the entrant: ${formatFigure(target.declaredPowerKw, 'powerKw')} (${target.powerEvidence.replace('_', ' ')}).`} />
@@ -182,8 +201,8 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
           <DockField id={id('power.note')} label="Power note" value={f.powerNote} error={err('power.note')} onChange={(e) => set('powerNote', e.target.value)} />
         </fieldset>
 
-        {rules && rules.safetyItems.length > 0 && (
-          <fieldset className="space-y-2">
+        {rules && hasSafety && (
+          <fieldset id="dock-safety" className="scroll-mt-4 space-y-2">
             <legend className="text-xl font-bold">Safety items required by the class</legend>
             {rules.safetyItems.map((k) => (
               <label key={k} className="flex min-h-touch items-center gap-3 rounded-lg border-2 border-paper-line bg-white px-3">
@@ -195,7 +214,7 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
           </fieldset>
         )}
 
-        <fieldset className="space-y-3">
+        <fieldset id="dock-seals" className={section}>
           <legend className="text-xl font-bold">Seals applied</legend>
           {f.seals.map((s, i) => (
             <div key={i} className="grid grid-cols-2 gap-3">
@@ -206,6 +225,7 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
           <button type="button" className="btn-secondary text-lg" onClick={() => set('seals', [...f.seals, { number: '', location: '' }])}>Add a seal</button>
         </fieldset>
 
+        <div id="dock-notes" className="scroll-mt-4 space-y-6">
         {target.card && target.card.openReinspections.length > 0 && (
           <div>
             <label htmlFor={id('reinspectionId')} className="field-label text-lg">Re-inspection task this completes</label>
@@ -226,10 +246,15 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
           <textarea id={id('notes')} className="field-input text-xl" rows={3} value={f.notes} onChange={(e) => set('notes', e.target.value)} />
           {err('notes') && <p className="field-error text-lg">{err('notes')}</p>}
         </div>
+        </div>
         {Object.keys(errors).length + Object.keys(serverErrors).length > 0 && (
           <p role="alert" className="field-error text-lg" data-testid="form-errors">Check the fields marked above: nothing was recorded yet.</p>
         )}
-        <button type="submit" className="btn-primary min-h-[3.5rem] w-full text-xl" data-testid="record-inspection">{isBusy ? 'Recording…' : 'Record inspection'}</button>
+        {/* The record action stays in reach on a phone: a bar stuck to the bottom of the screen while the form is in view. */}
+        <div className="sticky bottom-0 z-10 -mx-4 flex gap-2 border-t-2 border-paper-line bg-paper/95 px-4 py-2 lg:static lg:mx-0 lg:border-0 lg:bg-transparent lg:p-0" data-testid="record-bar">
+          <a href="#dock-sections" className="btn-secondary shrink-0 px-3 text-base lg:hidden">Sections</a>
+          <button type="submit" className="btn-primary min-h-[3.5rem] w-full text-xl" data-testid="record-inspection">{isBusy ? 'Recording…' : 'Record inspection'}</button>
+        </div>
       </fieldset>
     </form>
   );

@@ -51,7 +51,7 @@ export function EventForm({ event, organisations = [] }: Props) {
     const local = EventInput.safeParse(body);
     if (!local.success) {
       setFieldErrors(toFieldErrors(local.error));
-      setMessage({ tone: 'error', text: 'Check the fields marked below.' });
+      setMessage({ tone: 'error', text: 'Check the fields marked above: nothing was saved yet.' });
       return;
     }
     const res = await submit(event ? `/api/events/${event.id}` : '/api/events', body, event ? 'PATCH' : 'POST');

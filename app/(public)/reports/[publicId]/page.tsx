@@ -4,8 +4,8 @@ import { notFound } from 'next/navigation';
 import { format } from 'date-fns';
 import { findPublishedReport, findPreviousReport } from '@/lib/reports/manage-reports';
 import { diffReports } from '@/lib/reports/report-diff';
-import { ParityCharts } from '@/components/parity-charts';
-import { ParityTables, ModelAssumptions } from '@/components/parity-tables';
+import { ParityReport } from '@/components/parity-report';
+import { ModelAssumptions } from '@/components/parity-tables';
 import { SafetyNote } from '@/components/safety-note';
 
 export const dynamic = 'force-dynamic';
@@ -56,8 +56,7 @@ export default async function PublicReportPage({ params }: { params: Promise<{ p
           )}
         </section>
       )}
-      <ParityCharts inputs={report.inputs} results={report.results} />
-      <ParityTables inputs={report.inputs} results={report.results} />
+      <ParityReport inputs={report.inputs} results={report.results} />
       <ModelAssumptions inputs={report.inputs} />
     </article>
   );

@@ -110,7 +110,7 @@ export function EntriesTable({ rows, classes, canCancel, eventId }: { rows: Even
                 {hg.headers.map((h) => (
                   <th key={h.id} className="p-3" aria-sort={h.column.getIsSorted() ? (h.column.getIsSorted() === 'desc' ? 'descending' : 'ascending') : undefined}>
                     {h.column.getCanSort() ? (
-                      <button type="button" className="font-bold" onClick={h.column.getToggleSortingHandler()}>
+                      <button type="button" className="inline-flex min-h-[44px] min-w-[44px] items-center font-bold" onClick={h.column.getToggleSortingHandler()}>
                         {flexRender(h.column.columnDef.header, h.getContext())}
                         {{ asc: ' ▲', desc: ' ▼' }[h.column.getIsSorted() as string] ?? ''}
                       </button>

@@ -7,8 +7,8 @@ import { parseId } from '@/lib/http/ids';
 import { AppError } from '@/lib/http/errors';
 import { computeDraftReport, listReportVersions } from '@/lib/reports/manage-reports';
 import { getClassWithVersions } from '@/lib/classes/manage-classes';
-import { ParityCharts } from '@/components/parity-charts';
-import { ParityTables, ModelAssumptions } from '@/components/parity-tables';
+import { ParityReport } from '@/components/parity-report';
+import { ModelAssumptions } from '@/components/parity-tables';
 import { SafetyNote } from '@/components/safety-note';
 import { PublishReportForm } from './publish-report-form';
 import { WhatIfSandbox } from './what-if-sandbox';
@@ -48,8 +48,7 @@ export default async function DraftReportPage({ params }: { params: Promise<{ ev
       <h1 data-testid="draft-heading">Parity report draft · {draft.inputs.classCode} {draft.inputs.className}</h1>
       <p className="rounded-lg bg-doubt-100 p-3">This draft is computed from the latest inspections each time the page loads. Nothing is public until you publish a version.</p>
       <SafetyNote />
-      <ParityCharts inputs={draft.inputs} results={draft.results} />
-      <ParityTables inputs={draft.inputs} results={draft.results} />
+      <ParityReport inputs={draft.inputs} results={draft.results} />
       <ModelAssumptions inputs={draft.inputs} />
       <WhatIfSandbox eventId={eventId} classId={classId} inputs={draft.inputs} rules={inForce.rules} />
       <section className="card space-y-3" aria-labelledby="publish">
