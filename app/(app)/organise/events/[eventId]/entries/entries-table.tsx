@@ -78,10 +78,14 @@ export function EntriesTable({ rows, classes, canCancel, eventId }: { rows: Even
     [canCancel, eventId],
   );
 
-  const sorting: SortingState = [{ id: sort, desc }];
+  // Stable between renders: a new sorting array each render re-sorts the rows, which made the table
+  // reset its page, re-render and sort again without end (the page froze after the first key typed).
+  const sorting: SortingState = useMemo(() => [{ id: sort, desc }], [sort, desc]);
   const table = useReactTable({
     data: filtered,
     columns,
+    // The page lives in the URL; changing a filter drops it there (setParam), never through the table.
+    autoResetPageIndex: false,
     state: { globalFilter: q, sorting, pagination: { pageIndex: page, pageSize: PAGE_SIZE } },
     onSortingChange: (updater) => {
       const s = typeof updater === 'function' ? updater(sorting) : updater;
