@@ -66,7 +66,7 @@ export function ResultsForm({ eventId, classes }: { eventId: string; classes: Cl
           {fieldErrors.rows && <p className="field-error" data-field-error="rows">{fieldErrors.rows}</p>}
           <p className="text-sm text-ink-soft">Rows without a race number are left out, whatever their position.</p>
           {rows.map((row, i) => (
-            <div key={row.key} className="grid grid-cols-[1fr_1fr_auto] items-start gap-2" data-row={i}>
+            <div key={row.key} className="grid grid-cols-[1fr_1fr_auto] items-end gap-2" data-row={i}>
               <div>
                 <label htmlFor={`position-${row.key}`} className="field-label">Position {i + 1}</label>
                 <input id={`position-${row.key}`} inputMode="numeric" value={row.position ?? String(i + 1)} onChange={(e) => update(i, { position: e.target.value })} className="field-input" aria-invalid={fieldErrors[`rows.${i}.position`] ? true : undefined} />
@@ -77,7 +77,7 @@ export function ResultsForm({ eventId, classes }: { eventId: string; classes: Cl
                 <input id={`raceNumber-${row.key}`} inputMode="numeric" value={row.raceNumber} onChange={(e) => update(i, { raceNumber: e.target.value })} className="field-input" aria-invalid={fieldErrors[`rows.${i}.raceNumber`] ? true : undefined} />
                 {fieldErrors[`rows.${i}.raceNumber`] && <p className="field-error" data-field-error={`rows.${i}.raceNumber`}>{fieldErrors[`rows.${i}.raceNumber`]}</p>}
               </div>
-              <button type="button" className="btn-secondary mt-7 min-h-touch" aria-label={`Remove row ${i + 1}`} onClick={() => removeRow(i)} disabled={rows.length === 1}>Remove</button>
+              <button type="button" className="btn-secondary min-h-touch" aria-label={`Remove row ${i + 1}`} onClick={() => removeRow(i)} disabled={rows.length === 1}>Remove</button>
             </div>
           ))}
           <button type="button" className="btn-secondary" onClick={addRow}>Add a row</button>
