@@ -1,6 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
-export type AuditSubjectType = 'protest' | 'inspection' | 'rules' | 'results' | 'entry';
+export type AuditSubjectType = 'protest' | 'inspection' | 'rules' | 'results' | 'entry' | 'staff';
 
 // One line of a meeting's audit trail. Append-only: the database refuses updates and deletes.
 export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreationAttributes<AuditEvent>> {

@@ -80,11 +80,12 @@ export async function listCopyableClasses(actor: Actor, exceptEventId: string) {
 }
 
 /** One class with every version of its rules, newest first. */
-export async function getClassWithVersions(actor: Actor | null, eventId: string, classId: string): Promise<{ raceClass: ClassDto; versions: RuleVersionDto[] }> {
+export async function getClassWithVersions(actor: Actor | null, eventId: string, classId: string): Promise<{ raceClass: ClassDto; versions: RuleVersionDto[]; timeZone: string }> {
   assertCan(actor, 'class.edit', { eventId });
   const { models } = getDb();
-  const c = await models.RaceClass.findOne({ where: { id: classId, eventId } });
+  const c = await models.RaceClass.findOne({ where: { id: classId, eventId }, include: [{ model: models.Event, attributes: ['timeZone'] }] });
   if (!c) throw new AppError('not_found', 404, 'No such class at this meeting.');
   const versions = await models.ClassRuleVersion.findAll({ where: { classId }, order: [['version', 'DESC']] });
-  return { raceClass: toClassDto(c), versions: versions.map(toRuleVersionDto) };
+  const timeZone = (c as unknown as { event?: { timeZone: string } }).event?.timeZone ?? 'UTC';
+  return { raceClass: toClassDto(c), versions: versions.map(toRuleVersionDto), timeZone };
 }

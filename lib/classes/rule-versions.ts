@@ -3,8 +3,10 @@ import { Op } from 'sequelize';
 import { getDb } from '@/lib/db';
 import { assertCan, type Actor } from '@/lib/auth/actor';
 import { AppError } from '@/lib/http/errors';
-import { ClassRulesForm, PublishRulesInput } from '@/lib/validations/class-rules';
+import { ClassRules, ClassRulesForm, PublishRulesInput } from '@/lib/validations/class-rules';
+import { formatTime } from '@/lib/format/time';
 import { toRuleVersionDto, type RuleVersionDto } from './class-dto';
+import { changeNoteRequiredMessage, limitsNothing, limitsNothingMessage } from './rule-limits';
 
 async function findClass(eventId: string, classId: string) {
   const c = await getDb().models.RaceClass.findOne({ where: { id: classId, eventId } });
@@ -32,15 +34,37 @@ export async function saveDraftRules(actor: Actor | null, eventId: string, class
   });
 }
 
+/**
+ * Refuses a draft that cannot become a frozen version: rules that limit nothing (see rule-limits.ts),
+ * rules the form's schema would refuse (a draft created with defaults was never through it), or a
+ * version 2+ without a change note. Every problem at once, each under the field it concerns.
+ */
+function checkPublishable(draft: { version: number; rules: unknown; changeNote: string }, changeNote: string) {
+  const details: { field: string; message: string }[] = [];
+  if (limitsNothing(draft.rules as never)) {
+    details.push({ field: 'rules', message: limitsNothingMessage(draft.version) });
+  } else {
+    const parsed = ClassRules.safeParse(draft.rules);
+    if (!parsed.success) for (const i of parsed.error.issues) details.push({ field: ['rules', ...i.path.map(String)].join('.'), message: i.message });
+  }
+  if (draft.version >= 2 && !(changeNote || draft.changeNote).trim()) details.push({ field: 'changeNote', message: changeNoteRequiredMessage(draft.version) });
+  if (details.length === 0) return;
+  const rulesIssue = details.find((d) => d.field.startsWith('rules'));
+  // 422: the request is well formed but the draft it names cannot be published as it stands.
+  throw new AppError('invalid_input', rulesIssue ? 422 : 400, rulesIssue?.message ?? details[0].message, details);
+}
+
 /** Publishes the draft: it becomes a frozen, numbered version in force from its effective time. */
 export async function publishRules(actor: Actor | null, eventId: string, classId: string, raw: unknown): Promise<RuleVersionDto> {
   assertCan(actor, 'class.edit', { eventId });
   const input = PublishRulesInput.parse(raw ?? {});
-  await findClass(eventId, classId);
+  const raceClass = await findClass(eventId, classId);
   const { sequelize, models } = getDb();
+  const event = await models.Event.findByPk(raceClass.eventId, { attributes: ['timeZone'] });
   return sequelize.transaction(async (transaction) => {
     const draft = await models.ClassRuleVersion.findOne({ where: { classId, status: 'draft' }, lock: transaction.LOCK.UPDATE, transaction });
     if (!draft) throw new AppError('conflict', 409, 'There is no draft to publish: edit the rules first.');
+    checkPublishable(draft, input.changeNote);
     const now = new Date();
     const effectiveFrom = input.effectiveFrom ? new Date(input.effectiveFrom) : now;
     const previous = await models.ClassRuleVersion.findOne({
@@ -50,7 +74,7 @@ export async function publishRules(actor: Actor | null, eventId: string, classId
     });
     if (previous?.effectiveFrom && effectiveFrom < previous.effectiveFrom) {
       throw new AppError('invalid_input', 400, 'A new version cannot take effect before the version it replaces.', [
-        { field: 'effectiveFrom', message: `Choose a time after ${previous.effectiveFrom.toISOString()} (version ${previous.version}).` },
+        { field: 'effectiveFrom', message: `Choose a time after ${formatTime(previous.effectiveFrom, event?.timeZone ?? 'UTC')} (version ${previous.version}).` },
       ]);
     }
     await draft.update(

@@ -1,4 +1,5 @@
 import 'server-only';
+import { formatTime } from '@/lib/format/time';
 import type Stripe from 'stripe';
 import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/db';
@@ -73,10 +74,10 @@ export async function applyPaymentEvent(event: Stripe.Event): Promise<Outcome> {
 async function sendReceipt(entryId: string) {
   const [row] = await getDb().sequelize.query<{
     email: string; name: string | null; eventName: string; venue: string; className: string; classCode: string;
-    boatName: string; raceNumber: number; feeMinor: number; currency: string; paidAt: Date; paymentIntentId: string | null;
+    boatName: string; raceNumber: number; feeMinor: number; currency: string; paidAt: Date; paymentIntentId: string | null; timeZone: string;
   }>(
     `select u.email, u.name, ev.name as "eventName", ev.venue, c.name as "className", c.code as "classCode", b.name as "boatName",
-            e.race_number as "raceNumber", e.fee_minor as "feeMinor", e.currency, e.paid_at as "paidAt", e.payment_intent_id as "paymentIntentId"
+            e.race_number as "raceNumber", e.fee_minor as "feeMinor", e.currency, e.paid_at as "paidAt", e.payment_intent_id as "paymentIntentId", ev.time_zone as "timeZone"
        from entries e join users u on u.id = e.entrant_id join events ev on ev.id = e.event_id
        join race_classes c on c.id = e.class_id join boats b on b.id = e.boat_id
       where e.id = :entryId`,
@@ -94,7 +95,7 @@ async function sendReceipt(entryId: string) {
     `Boat: ${row.boatName}`,
     `Race number: ${row.raceNumber}`,
     `Amount paid: ${amount}`,
-    `Paid at: ${new Date(row.paidAt).toISOString().replace('T', ' ').slice(0, 16)} UTC`,
+    `Paid at: ${formatTime(row.paidAt, row.timeZone)}`,
     `Payment reference: ${row.paymentIntentId ?? '—'}`,
     `Entry reference: ${entryId}`,
     '',

@@ -5,6 +5,7 @@ import { AppError } from '@/lib/http/errors';
 import { AssignStaffInput } from '@/lib/validations/events';
 import { inviteStaff } from '@/lib/auth/invitations';
 import { sendMail } from '@/lib/mail/send';
+import { recordAuditEvent } from '@/lib/audit/record-audit-event';
 
 /**
  * Gives a person a staff role at the event: a registered user whose address is proven gets it at
@@ -20,9 +21,14 @@ export async function assignStaff(actor: Actor | null, eventId: string, raw: unk
   if (!event) throw new AppError('not_found', 404, 'No such event.');
   const user = await models.User.findOne({ where: { email: input.email } });
   if (!user?.emailVerified) return { outcome: 'invited' as const, invitation: await inviteStaff(actor, eventId, input) };
-  const [, created] = await models.EventStaff.findOrCreate({
-    where: { eventId, userId: user.id, role: input.role },
-    defaults: { eventId, userId: user.id, role: input.role },
+  const created = await getDb().sequelize.transaction(async (transaction) => {
+    const [, isNew] = await models.EventStaff.findOrCreate({
+      where: { eventId, userId: user.id, role: input.role },
+      defaults: { eventId, userId: user.id, role: input.role },
+      transaction,
+    });
+    if (isNew) await recordAuditEvent({ eventId, actorId: actor.id, subjectType: 'staff', subjectId: user.id, action: 'staff.added', details: { role: input.role, email: user.email } }, transaction);
+    return isNew;
   });
   if (!created) throw new AppError('conflict', 409, 'This person already has that role at this meeting.', [{ field: 'email', message: 'Already on the staff in that role.' }]);
   const base = process.env.NEXTAUTH_URL ?? 'http://localhost:3000';
@@ -38,6 +44,10 @@ export async function assignStaff(actor: Actor | null, eventId: string, raw: unk
 export async function removeStaff(actor: Actor | null, eventId: string, userId: string, role: string) {
   assertCan(actor, 'event.staff_manage', { eventId });
   if (userId === actor.id && role === 'organiser') throw new AppError('conflict', 409, 'You cannot remove your own organiser role.');
-  const n = await getDb().models.EventStaff.destroy({ where: { eventId, userId, role } });
-  if (n === 0) throw new AppError('not_found', 404, 'No such staff role.');
+  const { sequelize, models } = getDb();
+  await sequelize.transaction(async (transaction) => {
+    const n = await models.EventStaff.destroy({ where: { eventId, userId, role }, transaction });
+    if (n === 0) throw new AppError('not_found', 404, 'No such staff role.');
+    await recordAuditEvent({ eventId, actorId: actor.id, subjectType: 'staff', subjectId: userId, action: 'staff.removed', details: { role } }, transaction);
+  });
 }

@@ -5,6 +5,7 @@
 // time zone. Framework-free: runs on the server, in the browser (live countdown) and in unit tests.
 import { addMinutes, differenceInSeconds, format } from 'date-fns';
 import { TZDate } from '@date-fns/tz';
+import { formatTime } from '../format/time';
 
 /** The last instant at which a protest is in time: published_at + window (elapsed minutes). */
 export function protestDeadline(publishedAt: Date, windowMinutes: number): Date {
@@ -18,8 +19,12 @@ export function isWithinWindow(deadline: Date, at: Date): boolean {
 
 /** "Sun 4 Apr 2027, 02:15 UTC+13:00 (Pacific/Auckland)": the wall clock with its offset, never ambiguous. */
 export function formatInZone(instant: Date | string, timeZone: string): string {
-  const local = new TZDate(new Date(instant).getTime(), timeZone);
-  return `${format(local, 'EEE d MMM yyyy, HH:mm')} UTC${format(local, 'xxx')} (${timeZone})`;
+  return formatTime(instant, timeZone);
+}
+
+/** "Window closes" before the deadline, "Window closed" from just after it: computed from now, never assumed. */
+export function windowDeadlineTerm(deadline: Date | string, now: Date = new Date()): 'Window closes' | 'Window closed' {
+  return isWithinWindow(new Date(deadline), now) ? 'Window closes' : 'Window closed';
 }
 
 /** Wall-clock parts of an instant in a zone (for checks and for datetime-local inputs). */

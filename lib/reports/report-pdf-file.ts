@@ -57,7 +57,9 @@ async function renderAndStore(publicId: string, reportId: string): Promise<Store
   if (existing) return existing;
   const report = await findPublishedReport(publicId);
   if (!report || report.id !== reportId) throw new Error(`report ${reportId} vanished while its PDF was made`);
-  const bytes = await buildReportPdf(report);
+  // Times in the PDF are printed in the meeting's own zone, named.
+  const timeZone = (await getDb().models.Event.findByPk(report.eventId, { attributes: ['timeZone'] }))?.timeZone ?? 'UTC';
+  const bytes = await buildReportPdf(report, timeZone);
   const sha256 = createHash('sha256').update(bytes).digest('hex');
   const key = newObjectKey('reports/pdf');
   await putObject({ key, bytes, contentType: 'application/pdf', sha256Hex: sha256, metadata: { report: reportId } });

@@ -3,6 +3,7 @@
 // per boat (paged), the boats left out with the reason, and the safety and official-decision caution.
 import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage } from 'pdf-lib';
 import type { PublishedReportDto } from './report-dto';
+import { formatTime } from '../format/time';
 
 const A4: [number, number] = [595.28, 841.89];
 const M = 40;
@@ -128,7 +129,8 @@ function drawTable(ctx: Ctx, r: PublishedReportDto) {
   ctx.y -= 6;
 }
 
-export async function buildReportPdf(r: PublishedReportDto): Promise<Uint8Array> {
+/** `timeZone`: the meeting's zone, in which the publication time is printed (named, as on every screen). */
+export async function buildReportPdf(r: PublishedReportDto, timeZone = 'UTC'): Promise<Uint8Array> {
   const doc = await PDFDocument.create();
   const ctx: Ctx = { doc, page: doc.addPage(A4), y: A4[1] - M, font: await doc.embedFont(StandardFonts.Helvetica), bold: await doc.embedFont(StandardFonts.HelveticaBold) };
   doc.setTitle(`${r.inputs.eventName} — ${r.inputs.classCode} parity report v${r.number}`);
@@ -137,7 +139,7 @@ export async function buildReportPdf(r: PublishedReportDto): Promise<Uint8Array>
   doc.setCreator('Boreline');
   const a = r.inputs.assumptions;
   text(ctx, `${r.inputs.className} (${r.inputs.classCode}) — class parity report, version ${r.number}`, { size: 15, bold: true });
-  text(ctx, `${r.inputs.eventName} · published ${r.publishedAt.slice(0, 16).replace('T', ' ')} UTC · class rules version ${r.inputs.ruleVersion.version}`, { size: 9, color: MUTE });
+  text(ctx, `${r.inputs.eventName} · published ${formatTime(r.publishedAt, timeZone)} · class rules version ${r.inputs.ruleVersion.version}`, { size: 9, color: MUTE });
   if (r.note) wrap(ctx, `Organiser's note: ${r.note}`);
   ctx.y -= 4;
   wrap(ctx, `Model: momentum theory of a water jet at fixed shaft power with pump efficiency ${a.pumpEfficiency}, nozzle loss ${a.nozzleLossCoefficient}, inlet loss ${a.inletLossCoefficient}, wake fraction ${a.wakeFraction} (Allison, Marine Waterjet Propulsion, SNAME Trans. 101, 1993; Faltinsen, Hydrodynamics of High-Speed Marine Vehicles, 2005, s. 2.11; MIT 2.611 course notes, 2006). Water: ${r.inputs.density.description}, ${f1(r.inputs.density.densityKgM3, 4)} kg/m3. Nozzle: area-equivalent diameter of the two-point readings at 20 C (ISO 1:2022); uncertainties are standard (k = 1) by first-order propagation (JCGM 100:2008).`);

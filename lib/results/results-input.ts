@@ -27,3 +27,23 @@ export const PublishResultsInput = z
     });
   });
 export type PublishResultsInput = z.infer<typeof PublishResultsInput>;
+
+/** One row of the results form as typed: position null means "the row's place" (not edited). */
+export type ResultsFormRow = { key: number; position: string | null; raceNumber: string };
+
+const numberOrNull = (v: string) => (v.trim() === '' ? null : Number(v.trim().replace(',', '.')));
+
+/**
+ * The rows the form sends: a row without a race number is left out (a pre-filled position alone is not
+ * a finisher), so two finishers in a three-row form publish. `screenIndex[i]` is the screen row of sent row i.
+ */
+export function rowsToSend(rows: ResultsFormRow[]): { send: { position: number | null; raceNumber: number | null }[]; screenIndex: number[] } {
+  const send: { position: number | null; raceNumber: number | null }[] = [];
+  const screenIndex: number[] = [];
+  rows.forEach((r, i) => {
+    if (r.raceNumber.trim() === '') return;
+    send.push({ position: r.position === null ? i + 1 : numberOrNull(r.position), raceNumber: numberOrNull(r.raceNumber) });
+    screenIndex.push(i);
+  });
+  return { send, screenIndex };
+}

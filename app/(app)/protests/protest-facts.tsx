@@ -1,6 +1,7 @@
 import { formatMoney } from '@/lib/validations/entries';
 import { REQUESTED_CHECKS, type RequestedCheck } from '@/lib/protests/protest-states';
 import type { ProtestDetail } from '@/lib/protests/get-protest';
+import { windowDeadlineTerm } from '@/lib/protests/protest-window';
 
 /** The matter, the fee and, once there is one, the decision with its reasons, penalty, refund and appeal deadline. */
 export function ProtestFacts({ p }: { p: ProtestDetail }) {
@@ -15,7 +16,7 @@ export function ProtestFacts({ p }: { p: ProtestDetail }) {
         <dt className="text-ink-soft">Grounds</dt><dd className="whitespace-pre-wrap">{p.grounds}</dd>
         {p.requestedChecks.length > 0 && <><dt className="text-ink-soft">Checks asked for</dt><dd>{p.requestedChecks.map((c) => REQUESTED_CHECKS[c as RequestedCheck] ?? c).join(', ')}</dd></>}
         <dt className="text-ink-soft">Submitted</dt><dd>{p.lodgedAtLabel}</dd>
-        <dt className="text-ink-soft">Window closed</dt><dd>{p.windowDeadlineLabel}</dd>
+        <dt className="text-ink-soft" data-testid="window-term">{windowDeadlineTerm(p.windowDeadline)}</dt><dd>{p.windowDeadlineLabel}</dd>
         <dt className="text-ink-soft">Fee</dt>
         <dd data-testid="protest-fee">{fee ? `${fee}${p.paidAt ? ' — paid' : ' — not paid yet'}` : 'none'}{p.refundedAt && <strong className="ml-2 text-pass-800" data-testid="refund">refunded (refund {p.refundId})</strong>}</dd>
         {p.hearingAtLabel && <><dt className="text-ink-soft">Hearing</dt><dd data-testid="hearing">{p.hearingAtLabel}, {p.hearingPlace}</dd></>}

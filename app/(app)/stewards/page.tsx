@@ -4,6 +4,7 @@ import { redirect } from 'next/navigation';
 import { getActor } from '@/lib/auth/actor';
 import { listStewardMeetings } from '@/lib/protests/list-steward-meetings';
 import { listOfficialMeetings } from '@/lib/interests/list-official-meetings';
+import { formatCalendarDate } from '@/lib/format/time';
 
 export const metadata: Metadata = { title: 'Stewards' };
 export const dynamic = 'force-dynamic';
@@ -20,7 +21,7 @@ export default async function StewardsPage() {
         <ul className="space-y-3">
           {events.map((e) => (
             <li key={e.id} className="card flex flex-wrap items-center justify-between gap-3" data-event-id={e.id}>
-              <div><h2 className="text-xl">{e.name}</h2><p className="text-ink-soft">{e.venue} · {e.startsOn}</p></div>
+              <div><h2 className="text-xl">{e.name}</h2><p className="text-ink-soft">{e.venue} · {formatCalendarDate(e.startsOn)}</p></div>
               <div className="flex flex-wrap gap-2">
                 <Link href={`/stewards/${e.id}`} className="btn-primary">Protests</Link>
                 <Link href={`/stewards/${e.id}/audit`} className="btn-secondary">Audit trail</Link>
@@ -38,7 +39,7 @@ export default async function StewardsPage() {
           <ul className="space-y-3">
             {officiating.map((e) => (
               <li key={e.id} className="card flex flex-wrap items-center justify-between gap-3" data-event-id={e.id}>
-                <div><h3 className="text-xl">{e.name}</h3><p className="text-ink-soft">{e.venue} · {e.startsOn}</p></div>
+                <div><h3 className="text-xl">{e.name}</h3><p className="text-ink-soft">{e.venue} · {formatCalendarDate(e.startsOn)}</p></div>
                 <Link href={`/stewards/${e.id}/interests`} className="btn-secondary">Declared interests</Link>
               </li>
             ))}

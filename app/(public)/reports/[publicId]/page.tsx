@@ -1,7 +1,8 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
-import { format } from 'date-fns';
+import { formatTime } from '@/lib/format/time';
+import { getDb } from '@/lib/db';
 import { findPublishedReport, findPreviousReport } from '@/lib/reports/manage-reports';
 import { diffReports } from '@/lib/reports/report-diff';
 import { ParityReport } from '@/components/parity-report';
@@ -20,6 +21,7 @@ export default async function PublicReportPage({ params }: { params: Promise<{ p
   const report = await findPublishedReport((await params).publicId);
   if (!report) notFound();
   const previous = await findPreviousReport(report);
+  const timeZone = (await getDb().models.Event.findByPk(report.eventId, { attributes: ['timeZone'] }))?.timeZone ?? 'UTC';
   const diff = previous ? diffReports(previous, report) : null;
   return (
     <article className="space-y-6">
@@ -27,7 +29,7 @@ export default async function PublicReportPage({ params }: { params: Promise<{ p
         <p className="text-sm font-bold uppercase tracking-widest text-flare-600">Class parity report · version {report.number}</p>
         <h1 data-testid="report-title">{report.inputs.className} ({report.inputs.classCode})</h1>
         <p className="text-ink-soft">
-          {report.inputs.eventName} · published {format(new Date(report.publishedAt), 'd MMM yyyy HH:mm')} · class rules version {report.inputs.ruleVersion.version}
+          {report.inputs.eventName} · published <span data-testid="report-published">{formatTime(report.publishedAt, timeZone)}</span> · class rules version {report.inputs.ruleVersion.version}
         </p>
         {report.note && <p className="rounded-lg bg-tide-50 p-3">{report.note}</p>}
         <div className="flex flex-wrap gap-2">

@@ -1,6 +1,6 @@
 'use client';
 
-import { useMemo } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { usePathname, useRouter, useSearchParams } from 'next/navigation';
 import {
   createColumnHelper, flexRender, getCoreRowModel, getFilteredRowModel, getPaginationRowModel, getSortedRowModel,
@@ -13,6 +13,8 @@ import { CancelEntryButton } from './cancel-entry-button';
 
 const col = createColumnHelper<EventEntryRow>();
 const PAGE_SIZE = 20;
+// Typing waits this long after the last key before the search goes into the URL, so the whole word counts.
+const SEARCH_DEBOUNCE_MS = 300;
 
 /** Entries with search, class and status filters, sorting and paging, all kept in the URL. */
 export function EntriesTable({ rows, classes, canCancel, eventId }: { rows: EventEntryRow[]; classes: { id: string; label: string }[]; canCancel: boolean; eventId: string }) {
@@ -27,10 +29,35 @@ export function EntriesTable({ rows, classes, canCancel, eventId }: { rows: Even
   const page = Math.max(0, Number(params.get('page') ?? '1') - 1);
 
   const setParam = (changes: Record<string, string | null>) => {
-    const next = new URLSearchParams(params);
+    // Read the address as it is now (not as it was at the last render), so a debounced search and a
+    // filter change never undo each other.
+    const next = new URLSearchParams(typeof window === 'undefined' ? params : window.location.search);
     for (const [k, v] of Object.entries(changes)) (v ? next.set(k, v) : next.delete(k));
     if (!('page' in changes)) next.delete('page');
     router.replace(`${pathname}?${next.toString()}`, { scroll: false });
+  };
+
+  // The search box is controlled by what the person types; the URL follows it after a pause (or at
+  // once on Enter). The box only takes the URL's value when the URL changed by other means (back,
+  // a link), never while someone is typing, so no keystroke is lost while the URL updates.
+  const [text, setText] = useState(q);
+  const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
+  const sentQ = useRef(q);
+  useEffect(() => {
+    if (q !== sentQ.current) { sentQ.current = q; if (!timer.current) setText(q); }
+  }, [q]);
+  useEffect(() => () => { if (timer.current) clearTimeout(timer.current); }, []);
+  const applySearch = (value: string) => {
+    if (timer.current) { clearTimeout(timer.current); timer.current = null; }
+    const v = value.trim();
+    if (v === (sentQ.current ?? '')) return;
+    sentQ.current = v;
+    setParam({ q: v || null });
+  };
+  const onSearchInput = (value: string) => {
+    setText(value);
+    if (timer.current) clearTimeout(timer.current);
+    timer.current = setTimeout(() => { timer.current = null; applySearch(value); }, SEARCH_DEBOUNCE_MS);
   };
 
   const filtered = useMemo(
@@ -52,10 +79,14 @@ export function EntriesTable({ rows, classes, canCancel, eventId }: { rows: Even
     [canCancel, eventId],
   );
 
-  const sorting: SortingState = [{ id: sort, desc }];
+  // Stable between renders: a new sorting array each render re-sorts the rows, which made the table
+  // reset its page, re-render and sort again without end (the page froze after the first key typed).
+  const sorting: SortingState = useMemo(() => [{ id: sort, desc }], [sort, desc]);
   const table = useReactTable({
     data: filtered,
     columns,
+    // The page lives in the URL; changing a filter drops it there (setParam), never through the table.
+    autoResetPageIndex: false,
     state: { globalFilter: q, sorting, pagination: { pageIndex: page, pageSize: PAGE_SIZE } },
     onSortingChange: (updater) => {
       const s = typeof updater === 'function' ? updater(sorting) : updater;
@@ -78,7 +109,11 @@ export function EntriesTable({ rows, classes, canCancel, eventId }: { rows: Even
       <div className="grid gap-3 sm:grid-cols-3">
         <div>
           <label htmlFor="q" className="field-label">Search</label>
-          <input id="q" type="search" className="field-input" defaultValue={q} placeholder="Boat, number, entrant" onChange={(e) => setParam({ q: e.target.value || null })} />
+          <input
+            id="q" type="search" className="field-input" value={text} placeholder="Boat, number, entrant" enterKeyHint="search" autoComplete="off"
+            onChange={(e) => onSearchInput(e.target.value)}
+            onKeyDown={(e) => { if (e.key === 'Enter') { e.preventDefault(); applySearch(e.currentTarget.value); } }}
+          />
         </div>
         <div>
           <label htmlFor="class-filter" className="field-label">Class</label>

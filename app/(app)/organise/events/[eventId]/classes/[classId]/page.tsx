@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound, redirect } from 'next/navigation';
-import { format } from 'date-fns';
+import { formatTime } from '@/lib/format/time';
 import { getActor, can } from '@/lib/auth/actor';
 import { getClassWithVersions } from '@/lib/classes/manage-classes';
 import { diffRules, ruleLabel } from '@/lib/classes/diff-rules';
@@ -34,7 +34,7 @@ export default async function ClassPage({ params }: { params: Promise<{ eventId:
     if (err instanceof AppError && err.status === 404) notFound();
     throw err;
   }
-  const { raceClass, versions } = data;
+  const { raceClass, versions, timeZone } = data;
   const latest = versions[0];
   const isDraft = latest.status === 'draft';
   return (
@@ -54,7 +54,7 @@ export default async function ClassPage({ params }: { params: Promise<{ eventId:
         <h2 id="edit">{isDraft ? `Draft rules, version ${latest.version}` : `Rules (version ${latest.version} is published and frozen)`}</h2>
         {!isDraft && <p>Saving opens draft version {latest.version + 1}; version {latest.version} stays exactly as published.</p>}
         <RulesForm eventId={eventId} classId={classId} rules={latest.rules} editingVersion={latest.version} isDraft={isDraft} />
-        {isDraft && <PublishForm eventId={eventId} classId={classId} version={latest.version} />}
+        {isDraft && <PublishForm eventId={eventId} classId={classId} version={latest.version} timeZone={timeZone} />}
       </section>
       <section className="card space-y-4" aria-labelledby="history">
         <h2 id="history">Version history</h2>
@@ -65,7 +65,7 @@ export default async function ClassPage({ params }: { params: Promise<{ eventId:
             return (
               <li key={v.id} className="rounded-lg border border-paper-line p-4">
                 <p className="font-bold">
-                  Version {v.version} · {v.status === 'published' ? `published ${format(new Date(v.publishedAt!), 'd MMM yyyy HH:mm')}, in force from ${format(new Date(v.effectiveFrom!), 'd MMM yyyy HH:mm')}` : 'draft'}
+                  Version {v.version} · {v.status === 'published' ? `published ${formatTime(v.publishedAt!, timeZone)}, in force from ${formatTime(v.effectiveFrom!, timeZone)}` : 'draft'}
                 </p>
                 {v.changeNote && <p className="text-ink-soft">{v.changeNote}</p>}
                 {previous && (changes.length === 0 ? <p className="text-sm">No change from version {previous.version}.</p> : (

@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound, redirect } from 'next/navigation';
-import { format } from 'date-fns';
+import { formatTime } from '@/lib/format/time';
 import { getActor, can } from '@/lib/auth/actor';
 import { parseId } from '@/lib/http/ids';
 import { AppError } from '@/lib/http/errors';
@@ -58,7 +58,7 @@ export default async function DraftReportPage({ params }: { params: Promise<{ ev
           <ul className="space-y-1" data-testid="published-versions">
             {versions.map((v) => (
               <li key={v.id}>
-                <Link href={`/reports/${v.publicId}`}>Version {v.number}</Link> · {format(new Date(v.publishedAt), 'd MMM yyyy HH:mm')}{v.note && ` · ${v.note}`}
+                <Link href={`/reports/${v.publicId}`}>Version {v.number}</Link> · {formatTime(v.publishedAt, cls.timeZone)}{v.note && ` · ${v.note}`}
               </li>
             ))}
           </ul>
