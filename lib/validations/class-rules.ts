@@ -14,7 +14,7 @@ const ParityAssumptions = z.object({
   inletLossCoefficient: z.number({ error: 'Enter the inlet loss coefficient.' }).min(0, 'Loss coefficients cannot be negative.').lt(1, 'Loss coefficients must be below 1.'),
   wakeFraction: z.number({ error: 'Enter the wake fraction.' }).min(0, 'The wake fraction cannot be negative.').lt(1, 'The wake fraction must be below 1.'),
   referenceSpeedsMs: z
-    .array(z.number().min(0, 'Speeds cannot be negative.').max(60, 'Keep reference speeds at or below 60 m/s.'), { error: 'List the reference speeds.' })
+    .array(z.number({ error: 'Type each reference speed as a number in m/s, for example 10, 20, 30.' }).min(0, 'Speeds cannot be negative.').max(60, 'Keep reference speeds at or below 60 m/s.'), { error: 'List the reference speeds.' })
     .min(1, 'Give at least one reference speed.')
     .max(8, 'Give at most 8 reference speeds.'),
 });

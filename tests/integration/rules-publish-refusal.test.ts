@@ -96,3 +96,14 @@ test('the refusal comes after the permission check: a scrutineer gets 403, not t
   const res = await other.json(`/api/events/${eventId}/classes/${body.data.id}/rules/publish`, {});
   assert.equal(res.res.status, 403);
 });
+
+test('reference speeds typed as text (sent as null by the form) get a message that says what to type, and nothing is saved', async () => {
+  const { body } = await organiser.json(`/api/events/${eventId}/classes`, { name: 'Speed Text', code: 'SPDTXT' });
+  const classId = body.data.id;
+  const put = await organiser.json(`/api/events/${eventId}/classes/${classId}/rules`, { powerUnit: 'kW', rules: rules({ parity: { ...rules().parity, referenceSpeedsMs: [10, null] } }) }, 'PUT');
+  assert.equal(put.res.status, 400, JSON.stringify(put.body));
+  const detail = put.body.error.details.find((d: { field: string }) => d.field.startsWith('rules.parity.referenceSpeedsMs'));
+  assert.ok(detail, JSON.stringify(put.body));
+  assert.match(detail.message, /reference speed as a number in m\/s/);
+  assert.doesNotMatch(detail.message, /received null/);
+});

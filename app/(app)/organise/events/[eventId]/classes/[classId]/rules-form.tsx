@@ -107,7 +107,7 @@ export function RulesForm({ eventId, classId, rules, editingVersion, isDraft }: 
           <TextField name="parity.nozzleLossCoefficient" label="Nozzle loss coefficient Kn" unit="–" inputMode="decimal" defaultValue={rules.parity.nozzleLossCoefficient} error={err('parity.nozzleLossCoefficient')} />
           <TextField name="parity.inletLossCoefficient" label="Inlet loss coefficient Ki" unit="–" inputMode="decimal" defaultValue={rules.parity.inletLossCoefficient} error={err('parity.inletLossCoefficient')} />
           <TextField name="parity.wakeFraction" label="Wake fraction w" unit="–" inputMode="decimal" defaultValue={rules.parity.wakeFraction} error={err('parity.wakeFraction')} />
-          <TextField name="parity.referenceSpeedsMs" label="Reference speeds" unit="m/s, comma-separated" defaultValue={rules.parity.referenceSpeedsMs.join(', ')} error={err('parity.referenceSpeedsMs') ?? fieldErrors['rules.parity.referenceSpeedsMs.0']} className="sm:col-span-2" />
+          <TextField name="parity.referenceSpeedsMs" label="Reference speeds" unit="m/s, comma-separated" defaultValue={rules.parity.referenceSpeedsMs.join(', ')} error={err('parity.referenceSpeedsMs') ?? Object.entries(fieldErrors).find(([k]) => k.startsWith('rules.parity.referenceSpeedsMs.'))?.[1]} className="sm:col-span-2" />
         </fieldset>
         <FormMessage message={message} />
         <button type="submit" className="btn-primary">{isBusy ? 'Saving…' : isDraft ? `Save draft v${editingVersion}` : `Save as new draft v${editingVersion + 1}`}</button>
