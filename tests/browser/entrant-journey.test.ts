@@ -5,12 +5,12 @@
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import type { Browser } from 'playwright-core';
-import { launchBrowser, newContext, screenshot, PHONE } from '../support/browser';
+import { confirmAddressInBrowser, launchBrowser, newContext, screenshot, PHONE } from '../support/browser';
 import { DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
 import { HttpSession } from '../support/http-session';
 import { inspectionBody } from '../support/inspection-meeting';
 import { query } from '../support/db';
-import { waitForMail, firstLink } from '../support/mail';
+import { waitForMail } from '../support/mail';
 
 let browser: Browser;
 before(async () => { browser = await launchBrowser(); });
@@ -33,13 +33,8 @@ test('entrant: sign up → register a boat → enter the demo meeting → declar
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill('a-good-long-password');
   await page.getByRole('button', { name: 'Create account' }).click();
-  await page.getByTestId('sign-up-sent').waitFor();
   // The address is confirmed from the mailed link with the password chosen at sign-up.
-  const confirmMail = await waitForMail(email, { subject: /Confirm your e-mail address/ });
-  await page.goto(firstLink(confirmMail));
-  await page.getByLabel('Your password').fill('a-good-long-password');
-  await page.getByRole('button', { name: 'Confirm and sign in' }).click();
-  await page.waitForURL('**/account?confirmed=1');
+  await confirmAddressInBrowser(page, email, 'a-good-long-password');
   assert.equal(await page.getByTestId('address-state').innerText(), 'confirmed');
   await page.goto('/home');
 

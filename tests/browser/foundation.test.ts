@@ -3,9 +3,8 @@
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import type { Browser } from 'playwright-core';
-import { launchBrowser, newContext, screenshot, signInWithPassword, signOut, PHONE } from '../support/browser';
+import { confirmAddressInBrowser, launchBrowser, newContext, screenshot, signInWithPassword, signOut, PHONE } from '../support/browser';
 import { DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
-import { waitForMail, firstLink } from '../support/mail';
 
 let browser: Browser;
 before(async () => { browser = await launchBrowser(); });
@@ -34,13 +33,8 @@ test('landing → sign up as entrant → sign out → organiser → entrant refu
 
   await page.getByLabel('Password').fill('a-good-long-password');
   await page.getByRole('button', { name: 'Create account' }).click();
-  await page.getByTestId('sign-up-sent').waitFor();
   // The address is confirmed from the mailed link with the password chosen at sign-up.
-  const confirmMail = await waitForMail(email, { subject: /Confirm your e-mail address/ });
-  await page.goto(firstLink(confirmMail));
-  await page.getByLabel('Your password').fill('a-good-long-password');
-  await page.getByRole('button', { name: 'Confirm and sign in' }).click();
-  await page.waitForURL('**/account?confirmed=1');
+  await confirmAddressInBrowser(page, email, 'a-good-long-password');
   assert.equal(await page.getByTestId('address-state').innerText(), 'confirmed');
   await page.goto('/home');
   const navText = await page.getByTestId('main-nav').innerText();

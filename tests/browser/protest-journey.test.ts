@@ -106,10 +106,21 @@ test('results published → entrant lodges and pays → photo evidence intact �
   const [task] = await query<{ entry_id: string }>('select entry_id from reinspections where protest_id = $1', [protestId]);
   assert.equal(task.entry_id, target.id, 'the task is for the protested boat and names the protest');
   await screenshot(sp, 'protest-05-steward-accepted');
+  // A hearing set for tomorrow: deciding before it asks once for confirmation.
+  const tomorrow = new Date(Date.now() + 86_400_000).toISOString().slice(0, 10);
+  await sp.getByLabel(/^Date and time/).fill(`${tomorrow}T10:00`);
+  await sp.getByLabel('Place').fill('Clubhouse meeting room');
+  await sp.getByRole('button', { name: 'Schedule and tell the parties' }).click();
+  await sp.getByRole('form', { name: 'Schedule the hearing' }).getByText('Schedule the hearing: done.').waitFor();
   await sp.getByLabel('Upheld (fee refunded)').check();
   await sp.locator('#decision-reasons').fill('The re-inspection found the largest two-point diameter above the class maximum.');
   await sp.locator('#decision-penalty').fill('Excluded from the results of heat 1.');
   await sp.getByRole('button', { name: 'Record the decision' }).click();
+  const confirm = sp.getByTestId('confirm-first');
+  await confirm.waitFor();
+  assert.match(await confirm.innerText(), /has not come yet/);
+  assert.equal(await sp.getByTestId('decision').count(), 0, 'nothing recorded before the steward confirms');
+  await sp.getByRole('button', { name: 'Record it before the hearing time' }).click();
   await sp.getByTestId('decision').waitFor();
   assert.match(await sp.getByTestId('decision').innerText(), /Decision: Upheld/);
   await screenshot(sp, 'protest-06-steward-decided');

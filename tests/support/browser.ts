@@ -2,6 +2,7 @@ import { chromium, type Browser, type BrowserContext, type Page } from 'playwrig
 import fs from 'node:fs';
 import path from 'node:path';
 import { ARTIFACTS, BASE_URL } from './env';
+import { waitForMail, firstLink } from './mail';
 
 // Debian's Chromium driven by playwright-core (no downloaded browser).
 export async function launchBrowser(): Promise<Browser> {
@@ -36,4 +37,14 @@ export async function signInWithPassword(page: Page, email: string, password: st
 export async function signOut(page: Page) {
   await page.getByRole('button', { name: 'Sign out' }).click();
   await page.waitForURL((u) => u.pathname === '/');
+}
+
+/** Confirms a new account's address as its owner does: the mailed link, then the sign-up password. */
+export async function confirmAddressInBrowser(page: Page, email: string, password: string) {
+  await page.getByTestId('sign-up-sent').waitFor();
+  const mail = await waitForMail(email, { subject: /Confirm your e-mail address/ });
+  await page.goto(firstLink(mail));
+  await page.getByLabel('Your password').fill(password);
+  await page.getByRole('button', { name: 'Confirm and sign in' }).click();
+  await page.waitForURL('**/account?confirmed=1');
 }

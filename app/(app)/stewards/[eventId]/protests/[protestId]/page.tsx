@@ -51,7 +51,12 @@ export default async function StewardProtestPage({ params }: { params: Promise<{
         {p.reinspections.length === 0 ? <p>None.</p> : (
           <ul data-testid="reinspections">
             {p.reinspections.map((t) => (
-              <li key={t.id} data-reinspection-id={t.id}>{t.reason} — {t.inspectionId ? `recorded (inspection ${t.inspectionId.slice(0, 8)}: ${t.verdict?.replace(/_/g, ' ') ?? '—'})` : 'waiting for the scrutineers'}</li>
+              <li key={t.id} data-reinspection-id={t.id}>{t.reason} — {t.inspectionId ? (
+                    <>
+                      recorded: <strong>{t.verdict?.replace(/_/g, ' ') ?? 'no verdict'}</strong>{t.doneAt ? ` (${formatInZone(new Date(t.doneAt), p.timeZone)})` : ''} —{' '}
+                      <Link href={`/stewards/${p.eventId}/audit?kind=inspection`}>see it in the audit trail</Link>
+                    </>
+                  ) : 'waiting for the scrutineers'}</li>
             ))}
           </ul>
         )}

@@ -1,5 +1,6 @@
 'use client';
 
+import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { useJsonSubmit, FormMessage } from '@/components/ui/use-json-submit';
 import { REJECTION_LABELS } from '@/lib/protests/protest-states';
@@ -8,11 +9,20 @@ import type { ProtestDetail } from '@/lib/protests/get-protest';
 type Field = { name: string; label: string; kind: 'text' | 'textarea' | 'datetime' | 'select' | 'radio'; options?: Record<string, string>; hint?: string };
 
 /** One steward step as a small form: fields, the server's error beside each, the fieldset disabled while sending. */
-function ActionForm({ title, url, fields, button, danger }: { title: string; url: string; fields: Field[]; button: string; danger?: boolean }) {
+function ActionForm({ title, url, fields, button, danger, confirmFirst }: {
+  title: string; url: string; fields: Field[]; button: string; danger?: boolean;
+  confirmFirst?: { when: () => boolean; text: string; button: string }; // asked once before sending
+}) {
   const router = useRouter();
   const { submit, isBusy, fieldErrors, message, setMessage } = useJsonSubmit<ProtestDetail>();
+  const [isConfirming, setConfirming] = useState(false);
   async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
     e.preventDefault();
+    if (confirmFirst && !isConfirming && confirmFirst.when()) {
+      setConfirming(true);
+      return;
+    }
+    setConfirming(false);
     const data = new FormData(e.currentTarget);
     const body = Object.fromEntries(fields.map((f) => [f.name, String(data.get(f.name) ?? '')]));
     const res = await submit(url, body);
@@ -56,7 +66,11 @@ function ActionForm({ title, url, fields, button, danger }: { title: string; url
             </div>
           );
         })}
-        <button type="submit" className={danger ? 'btn-danger' : 'btn-primary'}>{button}</button>
+        {isConfirming && confirmFirst && (
+          <p role="alert" className="rounded-lg border-2 border-doubt-600 bg-doubt-100 p-3 font-bold text-doubt-800" data-testid="confirm-first">{confirmFirst.text}</p>
+        )}
+        <button type="submit" className={danger ? 'btn-danger' : 'btn-primary'}>{isConfirming && confirmFirst ? confirmFirst.button : button}</button>
+        {isConfirming && <button type="button" className="btn-secondary ml-2" onClick={() => setConfirming(false)}>Not yet</button>}
       </fieldset>
       <FormMessage message={message} />
     </form>
@@ -86,6 +100,11 @@ export function StewardActions({ p }: { p: ProtestDetail }) {
         )}
         {p.can.decide && (
           <ActionForm title="Decide" url={`${base}/decision`} button="Record the decision"
+            confirmFirst={p.hearingAt ? {
+              when: () => Date.now() < Date.parse(p.hearingAt!),
+              text: `The hearing is set for ${p.hearingAtLabel ?? p.hearingAt}, which has not come yet. Record the decision before it only if the hearing has really taken place or the parties agreed.`,
+              button: 'Record it before the hearing time',
+            } : undefined}
             fields={[
               { name: 'outcome', label: 'Decision', kind: 'radio', options: p.status === 'lodged' ? { withdrawn: 'Withdrawn' } : { upheld: 'Upheld (fee refunded)', dismissed: 'Dismissed (fee kept)', withdrawn: 'Withdrawn (fee kept)' } },
               { name: 'reasons', label: 'Reasons', kind: 'textarea' },
