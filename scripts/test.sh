@@ -8,7 +8,8 @@ set -euo pipefail
 source "$(dirname "$0")/lib.sh"
 
 # One test run at a time per checkout: runs share the test database, ports and build folder.
-exec 9>"$ROOT/.data/test.lock" 2>/dev/null || { mkdir -p "$ROOT/.data"; exec 9>"$ROOT/.data/test.lock"; }
+# (The braces keep the 2>/dev/null to this one line: on exec itself it would silence every later error.)
+mkdir -p "$ROOT/.data"; { exec 9>"$ROOT/.data/test.lock"; } 2>/dev/null
 if ! flock -n 9; then log "another test run is in progress here; waiting for it"; flock 9; fi
 
 export NODE_ENV=test TZ=UTC NEXT_TELEMETRY_DISABLED=1 BORELINE_DEV_TOOLS=1
