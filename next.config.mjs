@@ -1,7 +1,7 @@
 /** @type {import('next').NextConfig} */
 
 // Pages get their Content Security Policy, with a fresh nonce, from proxy.ts
-// (lib/http/content-security-policy.ts). Everything else (API answers, files) gets this one: it
+// (lib/server/http/content-security-policy.ts). Everything else (API answers, files) gets this one: it
 // runs no scripts at all.
 const staticCsp = "default-src 'none'; img-src 'self'; font-src 'self'; style-src 'self'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'";
 

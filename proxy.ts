@@ -1,12 +1,12 @@
 // Runs before routing. 1) An address whose percent-encoding is not valid UTF-8 cannot name
 // anything: answer 400 in the one error shape (Next would otherwise fail decoding it with a 500).
-// 2) Every page gets a fresh CSP nonce (lib/http/content-security-policy.ts): the policy goes on the
+// 2) Every page gets a fresh CSP nonce (lib/server/http/content-security-policy.ts): the policy goes on the
 // request, where Next reads the nonce for its own scripts, and on the response.
 // 3) Coarse redirect to sign-in for the signed-in areas. Never the only check: every page,
 // action and handler asks the permission table itself.
 import { NextResponse, type NextFetchEvent, type NextRequest } from 'next/server';
 import { withAuth, type NextRequestWithAuth } from 'next-auth/middleware';
-import { newNonce, pageCsp } from '@/lib/http/content-security-policy';
+import { newNonce, pageCsp } from '@/lib/server/http/content-security-policy';
 
 const SIGNED_IN_AREAS = /^\/(home|account|organise|admin|boats|entries|inspect|protests|stewards)(\/|$)/;
 

@@ -4,8 +4,8 @@ import { useMemo } from 'react';
 import {
   Bar, BarChart, CartesianGrid, ErrorBar, Line, LineChart, ReferenceDot, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis,
 } from 'recharts';
-import { convertForce, convertSpeed, type ForceUnit, type SpeedUnit } from '@/lib/engine/units';
-import type { ReportInputs, ReportResults } from '@/lib/reports/parity-figures';
+import { convertForce, convertSpeed, type ForceUnit, type SpeedUnit } from '@/lib/core/engine/units';
+import type { ReportInputs, ReportResults } from '@/lib/core/reports/parity-figures';
 
 export const FORCE_UNITS: ForceUnit[] = ['N', 'kgf', 'lbf'];
 export const SPEED_UNITS: SpeedUnit[] = ['km/h', 'm/s', 'kn', 'mph'];

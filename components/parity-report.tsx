@@ -1,8 +1,8 @@
 'use client';
 
 import { useState } from 'react';
-import type { ForceUnit, SpeedUnit } from '@/lib/engine/units';
-import type { ReportInputs, ReportResults } from '@/lib/reports/parity-figures';
+import type { ForceUnit, SpeedUnit } from '@/lib/core/engine/units';
+import type { ReportInputs, ReportResults } from '@/lib/core/reports/parity-figures';
 import { FORCE_UNITS, ParityCharts, SPEED_UNITS } from './parity-charts';
 import { ParityTables } from './parity-tables';
 

@@ -1,5 +1,5 @@
-import type { ReportInputs, ReportResults } from '@/lib/reports/parity-figures';
-import { convertForce, convertSpeed, type ForceUnit, type SpeedUnit } from '@/lib/engine/units';
+import type { ReportInputs, ReportResults } from '@/lib/core/reports/parity-figures';
+import { convertForce, convertSpeed, type ForceUnit, type SpeedUnit } from '@/lib/core/engine/units';
 
 const f = (x: number | null | undefined, d = 1) => (x === null || x === undefined || !Number.isFinite(x) ? '—' : x.toFixed(d));
 // Decimals that keep each unit's figure at about the same resolution as the SI one (N to 1 N, speeds to 0.1).

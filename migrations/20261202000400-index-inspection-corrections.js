@@ -1,5 +1,5 @@
 'use strict';
-// Which record counts for an entry (currentInspectionCte in lib/inspections/inspection-view.ts)
+// Which record counts for an entry (currentInspectionCte in lib/server/inspections/inspection-view.ts)
 // follows corrections by supersedes_id and asks of every record whether something supersedes it.
 // Without an index each of those lookups scanned the entry's records, so recording slowed down as an
 // entry's history grew (seen in bench:inspections); with it they are index lookups.

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
-import type { ReportInputs, ReportResults } from '@/lib/reports/parity-figures';
+import type { ReportInputs, ReportResults } from '@/lib/core/reports/parity-figures';
 
 // A published parity report version; append-only (a trigger refuses updates and deletes).
 export class ParityReport extends Model<InferAttributes<ParityReport>, InferCreationAttributes<ParityReport>> {

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
-import type { ClassRules } from '@/lib/validations/class-rules';
+import type { ClassRules } from '@/lib/core/inputs/class-rules';
 
 // A class at one event. Its rules live in numbered versions (ClassRuleVersion).
 export class RaceClass extends Model<InferAttributes<RaceClass>, InferCreationAttributes<RaceClass>> {

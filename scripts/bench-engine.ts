@@ -5,8 +5,8 @@
 // 3. Class parity for 1,000 boats with uncertainties.
 // Prints figures only; never asserts timing (exit 0). Checksums are printed so no loop is dead code.
 
-import { computeParity, fillThrustCurve, prepareJetSetup } from '../lib/engine/index';
-import type { ParityBoatInput, PreparedJetSetup } from '../lib/engine/index';
+import { computeParity, fillThrustCurve, prepareJetSetup } from '../lib/core/engine/index';
+import type { ParityBoatInput, PreparedJetSetup } from '../lib/core/engine/index';
 
 const BOATS = 10_000;
 const SPEEDS = 200;

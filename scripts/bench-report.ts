@@ -11,10 +11,10 @@
 import { performance } from 'node:perf_hooks';
 import { randomUUID, randomBytes } from 'node:crypto';
 import pg from 'pg';
-import { computeParity } from '../lib/engine/parity';
-import { computeReportResults, type ReportInputs } from '../lib/reports/parity-figures';
-import { buildReportPdf } from '../lib/reports/report-pdf';
-import type { PublishedReportDto } from '../lib/reports/report-dto';
+import { computeParity } from '../lib/core/engine/parity';
+import { computeReportResults, type ReportInputs } from '../lib/core/reports/parity-figures';
+import { buildReportPdf } from '../lib/core/reports/report-pdf';
+import type { PublishedReportDto } from '../lib/core/reports/report-dto';
 
 function syntheticInputs(n: number): ReportInputs {
   let s = 12345;
@@ -62,8 +62,8 @@ async function main() {
   // Query count through the real data layer (needs --conditions=react-server for server-only modules).
   const url = process.env.DATABASE_URL;
   if (!url) return console.log('queries: skipped (DATABASE_URL not set)');
-  const { getDb } = await import('../lib/db');
-  const { gatherReportInputs } = await import('../lib/reports/gather-report-inputs');
+  const { getDb } = await import('../lib/server/db');
+  const { gatherReportInputs } = await import('../lib/server/reports/gather-report-inputs');
   const client = new pg.Client({ connectionString: url });
   await client.connect();
   const counts: Record<number, number> = {};

@@ -4,9 +4,9 @@
 // terminal (the password is not echoed) or, for scripted installs, as three lines on stdin.
 // Refuses a database that holds the demo's accounts (their password is public).
 import readline from 'node:readline';
-import { hashPassword } from '../lib/auth/passwords';
+import { hashPassword } from '../lib/server/auth/passwords';
 import pg from 'pg';
-import { SignUpInput } from '../lib/validations/auth';
+import { SignUpInput } from '../lib/core/inputs/auth';
 
 const DEMO_ACCOUNTS = "email like '%@tarnwater.example' or email = 'admin@boreline.example'";
 

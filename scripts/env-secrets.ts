@@ -1,11 +1,11 @@
 // Every install makes its own secrets: creates .env from .env.example when missing, then fills each
-// secret (lib/config/published-values.ts, SECRET_NAMES) that is empty or still holds a value once
+// secret (lib/server/config/published-values.ts, SECRET_NAMES) that is empty or still holds a value once
 // published in this repository with a fresh random one. Run by scripts/start.sh and scripts/serve.sh;
 // safe to run twice (a generated value is kept). Prints the names it filled, never the values.
 import fs from 'node:fs';
 import path from 'node:path';
 import { randomBytes } from 'node:crypto';
-import { LOCAL_FAKE_MARK, SECRET_NAMES, isPublishedSecret, parseDotenv, type SecretName } from '../lib/config/published-values';
+import { LOCAL_FAKE_MARK, SECRET_NAMES, isPublishedSecret, parseDotenv, type SecretName } from '../lib/server/config/published-values';
 
 const random = (bytes: number) => randomBytes(bytes).toString('base64url');
 const hex = (bytes: number) => randomBytes(bytes).toString('hex');

@@ -1,6 +1,6 @@
 // How Boreline's own server (scripts/server.mjs) passes the client's address to the app, as a
 // proxy would: the socket's address is appended to X-Forwarded-For (MDN, "X-Forwarded-For"; the
-// model of RFC 7239, section 5.2). lib/http/client-address.ts reads the chain back. Plain
+// model of RFC 7239, section 5.2). lib/server/http/client-address.ts reads the chain back. Plain
 // JavaScript so that node runs it without a build step; the unit test imports it.
 
 /** The socket's address as an address, not an IPv4-mapped IPv6 form ("::ffff:127.0.0.1"). */

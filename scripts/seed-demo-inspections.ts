@@ -4,8 +4,8 @@
 // sequelize seeders; fixed idempotency keys make running it twice harmless.
 import { createHash } from 'node:crypto';
 import pg from 'pg';
-import { decideInspection } from '../lib/inspections/decide-inspection';
-import type { ClassRules } from '../lib/validations/class-rules';
+import { decideInspection } from '../lib/core/inspections/decide-inspection';
+import type { ClassRules } from '../lib/core/inputs/class-rules';
 
 const MEETING = '0b0e0000-0000-4000-8000-000000000101';
 const CALIPER = '0b0e0000-0000-4000-8501-000000000001';

@@ -5,7 +5,7 @@
 import fs from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
-import { LOCAL_FAKE_MARK, SECRET_NAMES, isPublishedSecret, parseDotenv } from '../lib/config/published-values';
+import { LOCAL_FAKE_MARK, SECRET_NAMES, isPublishedSecret, parseDotenv } from '../lib/server/config/published-values';
 
 export type Env = Record<string, string | undefined>;
 

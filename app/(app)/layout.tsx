@@ -1,7 +1,7 @@
 import Link from 'next/link';
 import { redirect } from 'next/navigation';
-import { getActor, allRolesOf } from '@/lib/auth/actor';
-import { navFor } from '@/lib/navigation';
+import { getActor, allRolesOf } from '@/lib/server/auth/actor';
+import { navFor } from '@/lib/core/navigation';
 import { BrandMark } from "@/components/brand-mark";
 import { SignOutButton } from '@/components/sign-out-button';
 import { MainNav } from '@/components/main-nav';

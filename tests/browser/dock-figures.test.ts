@@ -1,7 +1,7 @@
 // Issue 13, item 8: figures are rounded to what their measurement supports, on the phone at the
 // dock (boat card, pre-filled power field) and in the organiser's entries CSV. A power declared as
 // 530 hp is stored in kW at full precision: 530 × 745.69987158227022 W (NIST SP 811 Appendix B.8)
-// = 395.22093193860326 kW, shown as 395.2 kW (0.1 kW, lib/format/figures.ts).
+// = 395.22093193860326 kW, shown as 395.2 kW (0.1 kW, lib/core/format/figures.ts).
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import type { Browser } from 'playwright-core';

@@ -14,7 +14,7 @@ import type { Browser, Page } from 'playwright-core';
 import { launchBrowser, newContext, screenshot, signInWithPassword, PHONE } from '../support/browser';
 import { ARTIFACTS, BASE_URL, DEMO, DEMO_PASSWORD } from '../support/env';
 import { query } from '../support/db';
-import { SAFETY_ITEMS, type SafetyItem } from '../../lib/constants';
+import { SAFETY_ITEMS, type SafetyItem } from '../../lib/core/constants';
 
 let browser: Browser;
 before(async () => { browser = await launchBrowser(); });
@@ -83,8 +83,8 @@ test('dock: scan a tag from a photo, record, see the verdict; offline two record
   await page.getByTestId('inspect-meetings').locator(`[data-event-id="${DEMO.meetingId}"]`).getByRole('link', { name: 'Dock screen' }).click();
   await page.waitForURL(`**/inspect/${DEMO.meetingId}`);
 
-  // The tag's QR code encodes the tag URL as tagUrl() in lib/tags/tokens.ts writes it (that module is
-  // server-only), at the error-correction level the printed tag sheet uses (Q, lib/tags/tag-sheet.ts).
+  // The tag's QR code encodes the tag URL as tagUrl() in lib/server/tags/tokens.ts writes it (that module is
+  // server-only), at the error-correction level the printed tag sheet uses (Q, lib/core/tags/tag-sheet.ts).
   const [{ token }] = await query<{ token: string }>('select token from boat_tags where boat_id = $1 and retired_at is null', [scanned.boatId]);
   const pngPath = path.join(ARTIFACTS, 'dock-tag.png');
   fs.mkdirSync(ARTIFACTS, { recursive: true });

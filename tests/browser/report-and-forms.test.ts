@@ -124,7 +124,7 @@ test('calculator: messages name the field as the form labels it; temperature ran
   await temperature.fill('40');
   const tError = errorOf(await temperature.getAttribute('id'));
   await tError.waitFor();
-  // The ITTC fresh-water table (ITTC procedure 7.5-02-01-03, 2011 [memory]) is held for 10–25 °C in lib/engine/water.ts (ITTC_TEMPERATURE_RANGE_C).
+  // The ITTC fresh-water table (ITTC procedure 7.5-02-01-03, 2011 [memory]) is held for 10–25 °C in lib/core/engine/water.ts (ITTC_TEMPERATURE_RANGE_C).
   assert.equal(await tError.innerText(), 'Water temperature must be between 10 and 25 °C (the ITTC water table); for colder or warmer water, enter a density override.');
   await temperature.fill('25');
   await page.waitForFunction((id) => !document.querySelector(`[data-field-error="${id}"]`), await temperature.getAttribute('id'));

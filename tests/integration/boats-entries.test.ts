@@ -10,7 +10,7 @@ import { PDFDocument, StandardFonts } from 'pdf-lib';
 import { HttpSession } from '../support/http-session';
 import { BASE_URL, DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
 import { query } from '../support/db';
-import { DEFAULT_CLASS_RULES } from '../../lib/validations/class-rules';
+import { DEFAULT_CLASS_RULES } from '../../lib/core/inputs/class-rules';
 
 // Test-owned meetings (fixed ids; the demo club organises them). The demo meeting itself is never altered.
 const CLUB = '0b0e0000-0000-4000-8000-000000000001';

@@ -21,7 +21,7 @@ const credentials = { accessKeyId: process.env.S3_ACCESS_KEY_ID ?? 'boreline-loc
 const client = (endpoint = ENDPOINT, appSettings = false) =>
   new S3Client({
     endpoint, region: process.env.S3_REGION ?? 'us-east-1', forcePathStyle: true, credentials,
-    // The app's client (lib/storage/objects.ts) sends checksums only when required; the SDK's
+    // The app's client (lib/server/storage/objects.ts) sends checksums only when required; the SDK's
     // default sends CRC32 on every upload and aws-chunked bodies for streams. Both must work.
     ...(appSettings && { requestChecksumCalculation: 'WHEN_REQUIRED', responseChecksumValidation: 'WHEN_REQUIRED' }),
   });

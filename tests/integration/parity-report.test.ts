@@ -14,9 +14,9 @@ import { HttpSession } from '../support/http-session';
 import { DEMO, DEMO_PASSWORD, BASE_URL } from '../support/env';
 import { query } from '../support/db';
 import { extractPdfText } from '../support/pdf-text';
-import { computeParity } from '../../lib/engine/parity';
-import { computeAreaEquivalentDiameterFromReadingsMm } from '../../lib/engine/measurement';
-import { interpolateDensityIttc } from '../../lib/engine/water';
+import { computeParity } from '../../lib/core/engine/parity';
+import { computeAreaEquivalentDiameterFromReadingsMm } from '../../lib/core/engine/measurement';
+import { interpolateDensityIttc } from '../../lib/core/engine/water';
 
 const organiser = new HttpSession();
 let eventId: string;

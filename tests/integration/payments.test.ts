@@ -7,7 +7,7 @@ import { HttpSession } from '../support/http-session';
 import { BASE_URL, MAIL_INBOX, uniqueEmail } from '../support/env';
 import { query } from '../support/db';
 import { waitForMail } from '../support/mail';
-import { DEFAULT_CLASS_RULES } from '../../lib/validations/class-rules';
+import { DEFAULT_CLASS_RULES } from '../../lib/core/inputs/class-rules';
 
 const CLUB = '0b0e0000-0000-4000-8000-000000000001';
 const PAID_EVENT = '7e570000-0000-4000-8000-000000000103';

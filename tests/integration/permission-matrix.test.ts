@@ -1,5 +1,5 @@
 // The permission matrix: every route handler, generated from the one permission table
-// (lib/auth/permissions.ts). For each actor — anonymous, entrant (own and other's data), scrutineer
+// (lib/core/auth/permissions.ts). For each actor — anonymous, entrant (own and other's data), scrutineer
 // assigned and not assigned to the meeting, steward, organiser of this and of another meeting, site
 // administrator — each endpoint must allow or deny as the table says. Allowed means the answer is
 // not 401/403 (bodies here are empty, so a 400 is an allowed request refused for its input);
@@ -13,7 +13,7 @@ import { randomUUID } from 'node:crypto';
 import { HttpSession } from '../support/http-session';
 import { DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
 import { query } from '../support/db';
-import { rolesCan, type Permission, type Role } from '../../lib/auth/permissions';
+import { rolesCan, type Permission, type Role } from '../../lib/core/auth/permissions';
 import { ROUTES, SERVER_ACTIONS, type Access, type Ids } from './permission-routes';
 
 const ACTORS = ['anonymous', 'entrantOwn', 'entrantOther', 'scrutineer', 'scrutineerElsewhere', 'steward', 'organiser', 'organiserElsewhere', 'admin'] as const;

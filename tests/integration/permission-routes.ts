@@ -1,7 +1,7 @@
 // Every route handler and method, with who may call it. Event-scoped rows name permissions from
-// lib/auth/permissions.ts, so the expectations follow the one table. Paths use the ids the matrix
+// lib/core/auth/permissions.ts, so the expectations follow the one table. Paths use the ids the matrix
 // test prepares (the demo meeting, the demo entrant's boat and entry, a scratch class).
-import type { Permission } from '../../lib/auth/permissions';
+import type { Permission } from '../../lib/core/auth/permissions';
 
 export type Ids = {
   eventId: string; classId: string; entryId: string; spareEntryId: string; boatId: string; tagToken: string;

@@ -9,7 +9,7 @@ import assert from 'node:assert/strict';
 import { PDFDocument } from 'pdf-lib';
 import { GetObjectCommand, PutObjectCommand } from '@aws-sdk/client-s3';
 import type { HttpSession } from '../support/http-session';
-import { EVIDENCE_MAX_BYTES } from '../../lib/protests/protest-states';
+import { EVIDENCE_MAX_BYTES } from '../../lib/core/protests/protest-states';
 import { query } from '../support/db';
 import { extractPdfText } from '../support/pdf-text';
 import {

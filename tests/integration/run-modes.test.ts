@@ -13,7 +13,7 @@ import { BASE_URL, DEMO, DEMO_PASSWORD } from '../support/env';
 import { HttpSession } from '../support/http-session';
 import { query } from '../support/db';
 import { fromAddress, randomLoopback } from '../support/from-address';
-import { parseDotenv, PUBLISHED_SECRETS } from '../../lib/config/published-values';
+import { parseDotenv, PUBLISHED_SECRETS } from '../../lib/server/config/published-values';
 
 const PORT = Number(process.env.PORT ?? 3100);
 const example = parseDotenv(fs.readFileSync('.env.example', 'utf8'));

@@ -1,10 +1,10 @@
 // The pre-entry declaration check against the ISO 14253-1:2017 worked decisions (DOMAIN.md table:
 // upper limit 102.00 mm, U = 0.05 mm) and the power band and weight edges, with boundary values
-// classed as documented in lib/engine/conformity.ts (the limit itself is inclusive).
+// classed as documented in lib/core/engine/conformity.ts (the limit itself is inclusive).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { checkDeclaration, formatFigure, type DeclaredFigures } from '../../lib/entries/check-declaration';
-import { DEFAULT_CLASS_RULES, type ClassRules } from '../../lib/validations/class-rules';
+import { checkDeclaration, formatFigure, type DeclaredFigures } from '../../lib/core/entries/check-declaration';
+import { DEFAULT_CLASS_RULES, type ClassRules } from '../../lib/core/inputs/class-rules';
 
 const rules = (over: { nozzle?: Partial<ClassRules['nozzle']>; power?: Partial<ClassRules['power']>; weight?: Partial<ClassRules['weight']> }): ClassRules => ({
   ...DEFAULT_CLASS_RULES,
@@ -68,7 +68,7 @@ test('nozzle minimum mirrors the maximum (ISO 14253-1:2017, lower limit)', () =>
   for (const [declared, status] of cases) assert.equal(row(boat({ declaredNozzleMm: declared }), r, 'nozzle_min').status, status, `${declared} mm`);
 });
 
-test('power band edges with the class power uncertainty (boundaries per lib/engine/conformity.ts)', () => {
+test('power band edges with the class power uncertainty (boundaries per lib/core/engine/conformity.ts)', () => {
   // ISO 14253-1:2017 zones; band 200–300 kW, U 5 kW (invented class figures, not a reference)
   const r = rules({ nozzle: { maxMm: 102 }, power: { minKw: 200, maxKw: 300, defaultUncertaintyKw: 5 } });
   const cases: [number, string, string][] = [

@@ -7,7 +7,7 @@
 // Cheat Sheet": do not key limits on client-controlled headers).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { getClientAddress, readTrustedProxyHops } from '../../lib/http/client-address';
+import { getClientAddress, readTrustedProxyHops } from '../../lib/server/http/client-address';
 import { forwardHeaders, isLoopbackHost, parseProxyHops, readListenHost, socketAddress } from '../../scripts/forwarding.mjs';
 
 const h = (init: Record<string, string>) => new Headers(init);

@@ -7,10 +7,10 @@
 // - mean of repeat observations and its standard deviation s/√n (JCGM 100:2008, 4.2.1–4.2.3).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { decideInspection, describeScope, scopeFromRequestedChecks, worstVerdict, type DecideInput, type InstrumentFigures } from '../../lib/inspections/decide-inspection';
-import { EngineInputError } from '../../lib/engine/engine-input-error';
-import type { ClassRules } from '../../lib/validations/class-rules';
-import type { DecisionRule, Verdict } from '../../lib/engine/conformity';
+import { decideInspection, describeScope, scopeFromRequestedChecks, worstVerdict, type DecideInput, type InstrumentFigures } from '../../lib/core/inspections/decide-inspection';
+import { EngineInputError } from '../../lib/core/engine/engine-input-error';
+import type { ClassRules } from '../../lib/core/inputs/class-rules';
+import type { DecisionRule, Verdict } from '../../lib/core/engine/conformity';
 
 const rules = (over: Partial<ClassRules> = {}): ClassRules => ({
   nozzle: { maxMm: 102, minMm: null, minReadings: 3, defaultUncertaintyMm: 0.05 },

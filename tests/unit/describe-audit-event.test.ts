@@ -1,9 +1,9 @@
-// The audit trail's sentences (lib/audit/describe-audit-event.ts): money as money, times in the meeting's
+// The audit trail's sentences (lib/core/audit/describe-audit-event.ts): money as money, times in the meeting's
 // zone with the zone named (Pacific/Auckland is UTC+13 in December: IANA time zone database), links
 // only where the reader may follow them, and no codes or minor units in the sentence.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { describeAuditEvent, sentenceText, type AuditContext, type AuditLine } from '../../lib/audit/describe-audit-event';
+import { describeAuditEvent, sentenceText, type AuditContext, type AuditLine } from '../../lib/core/audit/describe-audit-event';
 
 const EVENT = '0b0e0000-0000-4000-8000-0000000000aa';
 const PROTEST = '0b0e0000-0000-4000-8000-0000000000bb';

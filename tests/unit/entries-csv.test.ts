@@ -3,8 +3,8 @@
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { parse } from 'csv-parse/sync';
-import { entriesToCsv, csvCell } from '../../lib/entries/entries-csv';
-import type { EventEntryRow } from '../../lib/entries/list-event-entries';
+import { entriesToCsv, csvCell } from '../../lib/core/entries/entries-csv';
+import type { EventEntryRow } from '../../lib/server/entries/list-event-entries';
 
 const row = (over: Partial<EventEntryRow>): EventEntryRow => ({
   id: 'x', raceNumber: 7, boatId: 'b', boatName: 'Plain', hullNumber: 'H1', classId: 'c', classCode: 'SS', className: 'Sprint',

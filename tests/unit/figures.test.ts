@@ -1,12 +1,12 @@
-// Display precision of figures (lib/format/figures.ts). Rounding reference: ECMA-262
+// Display precision of figures (lib/core/format/figures.ts). Rounding reference: ECMA-262
 // Number.prototype.toFixed (ties go to the larger n, on the exact binary value) — the "larger
 // multiple" rule of ISO 80000-1:2009 Annex B [memory for the annex's lettering]. Conversions
 // against NIST SP 811 (2008) Appendix B.8: 1 hp (550 ft·lbf/s) = 745.69987158227022 W,
 // 1 PS (metric horsepower) = 735.49875 W.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { FIGURES, figureValue, formatFigure, roundFigure } from '../../lib/format/figures';
-import { convertPower } from '../../lib/engine/units';
+import { FIGURES, figureValue, formatFigure, roundFigure } from '../../lib/core/format/figures';
+import { convertPower } from '../../lib/core/engine/units';
 
 const HP_W = 745.69987158227022; // NIST SP 811 Appendix B.8
 const PS_W = 735.49875; // NIST SP 811 Appendix B.8

@@ -1,12 +1,12 @@
-// The one time formatter (lib/format/time.ts): a moment shown in the meeting's zone with the offset and
+// The one time formatter (lib/core/format/time.ts): a moment shown in the meeting's zone with the offset and
 // the zone named. Offsets and switch instants are those of the IANA time zone database (tzdata,
 // zones Pacific/Auckland and Europe/London); the European switch rule (last Sunday of March and of
 // October at 01:00 UTC) is Directive 2000/84/EC of the European Parliament and of the Council,
 // Articles 2 and 3 (the UK kept the same rule: Summer Time Order 2002 [memory]).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { formatCalendarDate, formatDay, formatTime, safeTimeZone, zoneOffsetMinutes } from '../../lib/format/time';
-import { windowDeadlineTerm } from '../../lib/protests/protest-window';
+import { formatCalendarDate, formatDay, formatTime, safeTimeZone, zoneOffsetMinutes } from '../../lib/core/format/time';
+import { windowDeadlineTerm } from '../../lib/core/protests/protest-window';
 
 test('New Zealand in December is on NZDT, UTC+13 (IANA tz database, Pacific/Auckland)', () => {
   const at = new Date('2026-12-05T01:30:00Z');

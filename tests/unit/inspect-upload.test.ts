@@ -6,8 +6,8 @@ import assert from 'node:assert/strict';
 import crypto from 'node:crypto';
 import { PNG } from 'pngjs';
 import { PDFDocument } from 'pdf-lib';
-import { AppError } from '../../lib/http/errors';
-import { inspectUpload, safeFileName, DOCUMENT_TYPES, PHOTO_TYPES, EVIDENCE_TYPES } from '../../lib/storage/inspect-upload';
+import { AppError } from '../../lib/core/errors';
+import { inspectUpload, safeFileName, DOCUMENT_TYPES, PHOTO_TYPES, EVIDENCE_TYPES } from '../../lib/server/storage/inspect-upload';
 
 const MB = 1024 * 1024;
 

@@ -2,7 +2,7 @@
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import bcrypt from 'bcryptjs';
-import { hashPassword, verifyPassword } from '../../lib/auth/passwords';
+import { hashPassword, verifyPassword } from '../../lib/server/auth/passwords';
 
 const b64url = (hex: string) => Buffer.from(hex, 'hex').toString('base64url');
 

@@ -4,8 +4,8 @@
 // into custody at the dock are released by the chief scrutineer or the stewards).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { PERMISSIONS, ROLES, permissionsOf, roleCan, rolesCan, type Permission, type Role } from '../../lib/auth/permissions';
-import { navFor } from '../../lib/navigation';
+import { PERMISSIONS, ROLES, permissionsOf, roleCan, rolesCan, type Permission, type Role } from '../../lib/core/auth/permissions';
+import { navFor } from '../../lib/core/navigation';
 
 const EXPECTED: Record<Role, Permission[]> = {
   entrant: ['account.view', 'boat.manage_own', 'entry.submit_own', 'protest.lodge'],

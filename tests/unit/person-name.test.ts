@@ -6,7 +6,7 @@
 // as needed to spell words in scripts such as Persian and the Indic scripts ([memory] for the section number).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { ChangeNameInput, personName } from '../../lib/validations/auth';
+import { ChangeNameInput, personName } from '../../lib/core/inputs/auth';
 
 const refused = (v: unknown) => {
   const r = personName.safeParse(v);

@@ -1,4 +1,4 @@
-// The protest window (lib/protests/protest-window.ts) across New Zealand's daylight-saving changes.
+// The protest window (lib/core/protests/protest-window.ts) across New Zealand's daylight-saving changes.
 // Reference: New Zealand daylight time ends on the first Sunday in April at 03:00 NZDT (clocks go
 // back to 02:00 NZST) and starts on the last Sunday in September at 02:00 NZST (clocks go forward
 // to 03:00 NZDT), per the New Zealand Daylight Time Order 2007 under the Time Act 1974 [memory].
@@ -7,9 +7,9 @@
 // The 30-minute window is common practice (FIA International Sporting Code), no single source.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { describeWindow, formatInZone, instantFromWallClock, isWithinWindow, protestDeadline, relevantVersionForEntry } from '../../lib/protests/protest-window';
-import { diffResultsRows } from '../../lib/results/diff-results-rows';
-import { parseResultsCsv, readCsvRecords } from '../../lib/results/parse-results-csv';
+import { describeWindow, formatInZone, instantFromWallClock, isWithinWindow, protestDeadline, relevantVersionForEntry } from '../../lib/core/protests/protest-window';
+import { diffResultsRows } from '../../lib/core/results/diff-results-rows';
+import { parseResultsCsv, readCsvRecords } from '../../lib/core/results/parse-results-csv';
 
 const NZ = 'Pacific/Auckland';
 const at = (iso: string) => new Date(iso);

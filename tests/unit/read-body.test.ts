@@ -5,8 +5,8 @@
 // of "é" are C3 A9 (RFC 3629 section 3).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { AppError } from '../../lib/http/errors';
-import { readCappedBytes, readJsonBody, readRawText, readFormBody, type FormRefusals } from '../../lib/http/read-body';
+import { AppError } from '../../lib/core/errors';
+import { readCappedBytes, readJsonBody, readRawText, readFormBody, type FormRefusals } from '../../lib/server/http/read-body';
 
 const KB = 1024;
 

@@ -1,8 +1,8 @@
-// Which rows the results form sends (lib/results/results-input.ts): a pre-filled position alone is not a
+// Which rows the results form sends (lib/core/inputs/results.ts): a pre-filled position alone is not a
 // finisher; untouched positions follow the row's place; the server's row numbers map back to the screen.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { PublishResultsInput, rowsToSend } from '../../lib/results/results-input';
+import { PublishResultsInput, rowsToSend } from '../../lib/core/inputs/results';
 
 const CLASS = '0b0e0000-0000-4000-8000-000000000301';
 

@@ -7,7 +7,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { spawnSync } from 'node:child_process';
-import { PUBLISHED_SECRETS, SECRET_NAMES, parseDotenv } from '../../lib/config/published-values';
+import { PUBLISHED_SECRETS, SECRET_NAMES, parseDotenv } from '../../lib/server/config/published-values';
 import { fillSecrets } from '../../scripts/env-secrets';
 import { checkServeConfig } from '../../scripts/serve-config';
 

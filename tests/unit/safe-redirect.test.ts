@@ -4,7 +4,7 @@
 // URL implements too.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { safeRedirectPath } from '../../lib/http/safe-redirect';
+import { safeRedirectPath } from '../../lib/core/safe-redirect';
 
 const APP = 'http://localhost:3100';
 

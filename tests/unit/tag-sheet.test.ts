@@ -9,7 +9,7 @@ import assert from 'node:assert/strict';
 import zlib from 'node:zlib';
 import jsQR from 'jsqr';
 import { PDFArray, PDFDocument, PDFName, PDFRawStream, type PDFPage } from 'pdf-lib';
-import { buildSingleTagPdf, buildTagSheetPdf, type TagLabel } from '../../lib/tags/tag-sheet';
+import { buildSingleTagPdf, buildTagSheetPdf, type TagLabel } from '../../lib/core/tags/tag-sheet';
 
 const mm = (v: number) => (v * 72) / 25.4;
 // Label sheet dimensions (common practice, no single source): A4 2 x 7 of 99.1 x 38.1 mm, top

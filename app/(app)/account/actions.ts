@@ -1,11 +1,11 @@
 'use server';
 
 import { ZodError } from 'zod';
-import { getActor } from '@/lib/auth/actor';
-import { changeName } from '@/lib/accounts/change-name';
-import { changePassword, signOutEverywhere } from '@/lib/accounts/change-password';
-import { resendAddressProof } from '@/lib/accounts/prove-address';
-import { AppError, fieldErrors } from '@/lib/http/errors';
+import { getActor } from '@/lib/server/auth/actor';
+import { changeName } from '@/lib/server/accounts/change-name';
+import { changePassword, signOutEverywhere } from '@/lib/server/accounts/change-password';
+import { resendAddressProof } from '@/lib/server/accounts/prove-address';
+import { AppError, fieldErrors } from '@/lib/core/errors';
 
 export type ActionResult = { ok: boolean; message?: string; fieldErrors?: Record<string, string> };
 

@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import { redirect } from 'next/navigation';
-import { getActor, allRolesOf } from '@/lib/auth/actor';
-import { getAccountSummary } from '@/lib/accounts/account-summary';
+import { getActor, allRolesOf } from '@/lib/server/auth/actor';
+import { getAccountSummary } from '@/lib/server/accounts/account-summary';
 import { NameForm } from './name-form';
 import { PasswordForm } from './password-form';
 import { ResendProofForm, SignOutEverywhereForm } from './session-controls';

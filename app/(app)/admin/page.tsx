@@ -1,9 +1,9 @@
 import type { Metadata } from 'next';
 import { redirect } from 'next/navigation';
 import { format } from 'date-fns';
-import { getActor, can } from '@/lib/auth/actor';
-import { listPeople } from '@/lib/admin/list-people';
-import { formatInZone } from '@/lib/protests/protest-window';
+import { getActor, can } from '@/lib/server/auth/actor';
+import { listPeople } from '@/lib/server/admin/list-people';
+import { formatInZone } from '@/lib/core/protests/protest-window';
 import { PeopleList } from './people-list';
 
 export const metadata: Metadata = { title: 'Administration' };

@@ -1,7 +1,7 @@
 'use client';
 
 import { useMemo, useState } from 'react';
-import type { PersonView } from '@/lib/admin/person-view';
+import type { PersonView } from '@/lib/server/admin/person-view';
 import { SuspensionControl } from './suspension-control';
 
 /** Everyone with an account, narrowed as the administrator types (name or e-mail) or to the suspended. */

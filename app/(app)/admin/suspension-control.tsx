@@ -3,7 +3,7 @@
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { FormMessage, useJsonSubmit } from '@/components/ui/use-json-submit';
-import type { PersonView } from '@/lib/admin/person-view';
+import type { PersonView } from '@/lib/server/admin/person-view';
 
 /** Suspend (with a reason the other administrators read) or reinstate one account, in its row. */
 export function SuspensionControl({ person, isSelf }: { person: PersonView; isSelf: boolean }) {

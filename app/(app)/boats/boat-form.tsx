@@ -2,11 +2,11 @@
 
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
-import { CreateBoatInput, UpdateBoatInput, NOZZLE_UNITS, POWER_UNITS } from '@/lib/validations/boats';
-import { POWER_EVIDENCE } from '@/lib/constants';
-import { fieldErrors } from '@/lib/http/errors';
+import { CreateBoatInput, UpdateBoatInput, NOZZLE_UNITS, POWER_UNITS } from '@/lib/core/inputs/boats';
+import { POWER_EVIDENCE } from '@/lib/core/constants';
+import { fieldErrors } from '@/lib/core/errors';
 import { TextField } from '@/components/ui/text-field';
-import type { BoatView } from '@/lib/boats/boat-view';
+import type { BoatView } from '@/lib/server/boats/boat-view';
 
 type Errors = Record<string, string>;
 

@@ -1,11 +1,11 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { redirect } from 'next/navigation';
-import { getActor } from '@/lib/auth/actor';
-import { listMyBoats } from '@/lib/boats/list-my-boats';
-import { convertPower } from '@/lib/engine/units';
-import { formatFigure } from '@/lib/entries/check-declaration';
-import { formatFigure as formatPowerFigure } from '@/lib/format/figures';
+import { getActor } from '@/lib/server/auth/actor';
+import { listMyBoats } from '@/lib/server/boats/list-my-boats';
+import { convertPower } from '@/lib/core/engine/units';
+import { formatFigure } from '@/lib/core/entries/check-declaration';
+import { formatFigure as formatPowerFigure } from '@/lib/core/format/figures';
 
 export const metadata: Metadata = { title: 'My boats' };
 export const dynamic = 'force-dynamic';

@@ -2,14 +2,14 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { redirect } from 'next/navigation';
 import { format, parseISO } from 'date-fns';
-import { getActor } from '@/lib/auth/actor';
-import { listMyEntries, type MyEntry } from '@/lib/entries/list-my-entries';
-import { formatMoney } from '@/lib/validations/entries';
+import { getActor } from '@/lib/server/auth/actor';
+import { listMyEntries, type MyEntry } from '@/lib/server/entries/list-my-entries';
+import { formatMoney } from '@/lib/core/inputs/entries';
 import { PayEntryButton } from './pay-entry-button';
 import { WithdrawEntryButton } from './withdraw-entry-button';
 import { PaymentWaiter } from './payment-waiter';
 import { SafetyNote } from '@/components/safety-note';
-import { formatInZone } from '@/lib/protests/protest-window';
+import { formatInZone } from '@/lib/core/protests/protest-window';
 
 export const metadata: Metadata = { title: 'My entries' };
 export const dynamic = 'force-dynamic';

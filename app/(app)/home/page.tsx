@@ -1,9 +1,9 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { format, parseISO } from 'date-fns';
-import { getActor } from '@/lib/auth/actor';
-import { listMyBoats } from '@/lib/boats/list-my-boats';
-import { listMyMeetings } from '@/lib/events/list-my-meetings';
+import { getActor } from '@/lib/server/auth/actor';
+import { listMyBoats } from '@/lib/server/boats/list-my-boats';
+import { listMyMeetings } from '@/lib/server/events/list-my-meetings';
 import { redirect } from 'next/navigation';
 
 export const metadata: Metadata = { title: 'Home' };

@@ -2,8 +2,8 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { redirect } from 'next/navigation';
 import { format, parseISO } from 'date-fns';
-import { can, getActor } from '@/lib/auth/actor';
-import { listMyMeetings } from '@/lib/events/list-my-meetings';
+import { can, getActor } from '@/lib/server/auth/actor';
+import { listMyMeetings } from '@/lib/server/events/list-my-meetings';
 
 export const metadata: Metadata = { title: 'Inspect' };
 export const dynamic = 'force-dynamic';

@@ -2,9 +2,9 @@
 
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
-import { InviteStaffInput } from '@/lib/validations/auth';
-import { fieldErrors } from '@/lib/http/errors';
-import { EVENT_STAFF_ROLES } from '@/lib/constants';
+import { InviteStaffInput } from '@/lib/core/inputs/auth';
+import { fieldErrors } from '@/lib/core/errors';
+import { EVENT_STAFF_ROLES } from '@/lib/core/constants';
 import { TextField } from '@/components/ui/text-field';
 
 const ROLE_LABEL: Record<string, string> = {

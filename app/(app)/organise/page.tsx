@@ -1,8 +1,8 @@
 import type { Metadata } from 'next';
 import { redirect } from 'next/navigation';
 import { format, parseISO } from 'date-fns';
-import { getActor, allRolesOf } from '@/lib/auth/actor';
-import { listOrganisedMeetings } from '@/lib/events/list-organised-meetings';
+import { getActor, allRolesOf } from '@/lib/server/auth/actor';
+import { listOrganisedMeetings } from '@/lib/server/events/list-organised-meetings';
 import Link from 'next/link';
 import { InviteStaffForm } from './invite-staff-form';
 

@@ -1,5 +1,5 @@
-import type { EvidenceView } from '@/lib/protests/list-evidence';
-import { formatInZone } from '@/lib/protests/protest-window';
+import type { EvidenceView } from '@/lib/server/protests/list-evidence';
+import { formatInZone } from '@/lib/core/protests/protest-window';
 import { IntegrityBadge } from './protest-badges';
 
 /** Evidence in the order it was added, each file with its SHA-256 and a fresh integrity check. */

@@ -3,10 +3,10 @@
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { useJsonSubmit, FormMessage } from '@/components/ui/use-json-submit';
-import { formatMoney } from '@/lib/validations/entries';
-import { REQUESTED_CHECKS } from '@/lib/protests/protest-states';
-import type { ProtestableEvent } from '@/lib/protests/list-protestable-entries';
-import type { ProtestDetail } from '@/lib/protests/get-protest';
+import { formatMoney } from '@/lib/core/inputs/entries';
+import { REQUESTED_CHECKS } from '@/lib/core/protests/protest-states';
+import type { ProtestableEvent } from '@/lib/server/protests/list-protestable-entries';
+import type { ProtestDetail } from '@/lib/server/protests/get-protest';
 import { DeadlineCountdown } from './deadline-countdown';
 
 const FieldError = ({ name, error }: { name: string; error?: string }) =>

@@ -1,9 +1,9 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { redirect } from 'next/navigation';
-import { getActor } from '@/lib/auth/actor';
-import { listMyProtests } from '@/lib/protests/list-my-protests';
-import { listProtestableEntries } from '@/lib/protests/list-protestable-entries';
+import { getActor } from '@/lib/server/auth/actor';
+import { listMyProtests } from '@/lib/server/protests/list-my-protests';
+import { listProtestableEntries } from '@/lib/server/protests/list-protestable-entries';
 
 import { DecisionCaution, ProtestStatusBadge } from './protest-badges';
 import { LodgeProtestForm } from './lodge-protest-form';

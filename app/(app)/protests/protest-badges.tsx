@@ -1,7 +1,7 @@
 import { SafetyNote } from '@/components/safety-note';
-import type { ProtestStatus } from '@/lib/protests/protest-states';
-import { PROTEST_STATUS_LABELS } from '@/lib/protests/protest-states';
-import type { Integrity } from '@/lib/protests/list-evidence';
+import type { ProtestStatus } from '@/lib/core/protests/protest-states';
+import { PROTEST_STATUS_LABELS } from '@/lib/core/protests/protest-states';
+import type { Integrity } from '@/lib/server/protests/list-evidence';
 
 // Protest states and evidence integrity in words, colour and icon together (never colour alone).
 const STATUS_STYLE: Record<ProtestStatus, string> = {

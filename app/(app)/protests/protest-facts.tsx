@@ -1,7 +1,7 @@
-import { formatMoney } from '@/lib/validations/entries';
-import { REQUESTED_CHECKS, type RequestedCheck } from '@/lib/protests/protest-states';
-import type { ProtestDetail } from '@/lib/protests/get-protest';
-import { windowDeadlineTerm } from '@/lib/protests/protest-window';
+import { formatMoney } from '@/lib/core/inputs/entries';
+import { REQUESTED_CHECKS, type RequestedCheck } from '@/lib/core/protests/protest-states';
+import type { ProtestDetail } from '@/lib/server/protests/get-protest';
+import { windowDeadlineTerm } from '@/lib/core/protests/protest-window';
 
 /** The matter, the fee and, once there is one, the decision with its reasons, penalty, refund and appeal deadline. */
 export function ProtestFacts({ p }: { p: ProtestDetail }) {

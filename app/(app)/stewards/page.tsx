@@ -1,10 +1,10 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { redirect } from 'next/navigation';
-import { getActor } from '@/lib/auth/actor';
-import { listStewardMeetings } from '@/lib/protests/list-steward-meetings';
-import { listOfficialMeetings } from '@/lib/interests/list-official-meetings';
-import { formatCalendarDate } from '@/lib/format/time';
+import { getActor } from '@/lib/server/auth/actor';
+import { listStewardMeetings } from '@/lib/server/protests/list-steward-meetings';
+import { listOfficialMeetings } from '@/lib/server/interests/list-official-meetings';
+import { formatCalendarDate } from '@/lib/core/format/time';
 
 export const metadata: Metadata = { title: 'Stewards' };
 export const dynamic = 'force-dynamic';

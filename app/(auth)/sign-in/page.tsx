@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { SignInForm } from './sign-in-form';
-import { appOrigin, safeRedirectPath } from '@/lib/http/safe-redirect';
+import { appOrigin, safeRedirectPath } from '@/lib/core/safe-redirect';
 
 export const metadata: Metadata = { title: 'Sign in' };
 

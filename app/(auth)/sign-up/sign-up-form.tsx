@@ -1,8 +1,8 @@
 'use client';
 
 import { useState } from 'react';
-import { SignUpInput } from '@/lib/validations/auth';
-import { fieldErrors } from '@/lib/http/errors';
+import { SignUpInput } from '@/lib/core/inputs/auth';
+import { fieldErrors } from '@/lib/core/errors';
 import { TextField } from '@/components/ui/text-field';
 
 type Errors = Partial<Record<'name' | 'email' | 'password' | 'form', string>>;

@@ -4,8 +4,8 @@
 // Every figure comes from the public API (use-jet-results.ts); this file only arranges them.
 
 import { useRef, useState } from 'react';
-import { FORCE_UNIT_OPTIONS, SPEED_UNIT_OPTIONS, POWER_UNIT_OPTIONS } from '@/lib/engine/units';
-import type { ForceUnit, PowerUnit, SpeedUnit } from '@/lib/engine/units';
+import { FORCE_UNIT_OPTIONS, SPEED_UNIT_OPTIONS, POWER_UNIT_OPTIONS } from '@/lib/core/engine/units';
+import type { ForceUnit, PowerUnit, SpeedUnit } from '@/lib/core/engine/units';
 import { SafetyNote } from '@/components/safety-note';
 import { MAX_SETUPS, createExampleSetup, formatSpeedPair, interpolateThrustN, nextLabel } from './setup-model';
 import type { DisplayUnits, SetupDraft } from './setup-model';

@@ -3,9 +3,9 @@
 // One set-up's inputs, each with its unit and the API's error beside it, and its static figures.
 
 import type { ReactNode } from 'react';
-import { POWER_UNIT_OPTIONS, UNIT_LABELS } from '@/lib/engine/units';
-import type { UnitOption } from '@/lib/engine/units';
-import type { JetPerformanceData } from '@/lib/engine/calculation-api';
+import { POWER_UNIT_OPTIONS, UNIT_LABELS } from '@/lib/core/engine/units';
+import type { UnitOption } from '@/lib/core/engine/units';
+import type { JetPerformanceData } from '@/lib/core/engine/calculation-api';
 import { formatForce, formatPower, formatSpeed, toModelBody, WATER_TEMPERATURE_HINT } from './setup-model';
 import type { DisplayUnits, FieldErrors, InputLengthUnit, InputPowerUnit, SetupDraft, SetupField } from './setup-model';
 import { SERIES_STYLES } from './thrust-chart';

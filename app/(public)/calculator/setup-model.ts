@@ -2,9 +2,9 @@
 // bodies in SI, and the API's field errors mapped back to the fields they came from.
 // Plain TypeScript: no React, so the rules stay readable in one place.
 
-import { convertForce, convertLength, convertPower, convertSpeed, formatQuantity } from '@/lib/engine/units';
-import type { ForceUnit, PowerUnit, SpeedUnit } from '@/lib/engine/units';
-import { ITTC_TEMPERATURE_RANGE_C } from '@/lib/engine/water';
+import { convertForce, convertLength, convertPower, convertSpeed, formatQuantity } from '@/lib/core/engine/units';
+import type { ForceUnit, PowerUnit, SpeedUnit } from '@/lib/core/engine/units';
+import { ITTC_TEMPERATURE_RANGE_C } from '@/lib/core/engine/water';
 
 export const MAX_SETUPS = 4;
 /** Chart and curve speeds: 0 to 35 m/s (126 km/h) in 0.5 m/s steps, covering sprint boats. */

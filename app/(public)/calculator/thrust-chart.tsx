@@ -5,8 +5,8 @@
 // colour-vision deficiencies; the same crossovers are listed in words beside the chart.
 
 import { CartesianGrid, Legend, Line, LineChart, ReferenceDot, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
-import { convertForce, convertSpeed, UNIT_LABELS } from '@/lib/engine/units';
-import type { ForceUnit, SpeedUnit } from '@/lib/engine/units';
+import { convertForce, convertSpeed, UNIT_LABELS } from '@/lib/core/engine/units';
+import type { ForceUnit, SpeedUnit } from '@/lib/core/engine/units';
 import { CURVE_SPEEDS_MS } from './setup-model';
 import type { CurvePoint } from './setup-model';
 

@@ -5,7 +5,7 @@
 // while new ones load, so the chart never blanks between keystrokes.
 
 import { useEffect, useMemo, useState } from 'react';
-import type { CrossoverData, JetPerformanceData } from '@/lib/engine/calculation-api';
+import type { CrossoverData, JetPerformanceData } from '@/lib/core/engine/calculation-api';
 import {
   CURVE_SPEEDS_MS, findCurveCrossingMs, hasSameModel, toFieldErrors, toModelBody, toNozzleDiameterMm,
 } from './setup-model';

@@ -1,7 +1,7 @@
 // GET|POST /api/boats: the signed-in person's boats, or register a new one with its declaration.
-import { actorHandler, readJson } from '@/lib/http/handler';
-import { listMyBoats } from '@/lib/boats/list-my-boats';
-import { createBoat } from '@/lib/boats/create-boat';
+import { actorHandler, readJson } from '@/lib/server/http/handler';
+import { listMyBoats } from '@/lib/server/boats/list-my-boats';
+import { createBoat } from '@/lib/server/boats/create-boat';
 
 export const GET = actorHandler(async (_req, { actor }) => {
   return Response.json({ data: await listMyBoats(actor) });

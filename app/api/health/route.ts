@@ -1,5 +1,5 @@
 // GET /api/health: the app's version and whether the database answers (503 when it does not).
-import { getDb } from '@/lib/db';
+import { getDb } from '@/lib/server/db';
 import pkg from '@/package.json';
 
 export const dynamic = 'force-dynamic';

@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import { notFound, redirect } from 'next/navigation';
 import { format } from 'date-fns';
-import { getActor, can } from '@/lib/auth/actor';
+import { getActor, can } from '@/lib/server/auth/actor';
 
 export const metadata: Metadata = { title: 'Outbox (demo)' };
 export const dynamic = 'force-dynamic';

@@ -3,9 +3,9 @@ import Link from 'next/link';
 import { format, parseISO } from 'date-fns';
 import { redirect } from 'next/navigation';
 import { CardPage } from '@/components/card-page';
-import { getActor } from '@/lib/auth/actor';
-import { describeTag } from '@/lib/boats/describe-tag';
-import { findTagDestination, type OfficialMeeting } from '@/lib/tags/tag-destination';
+import { getActor } from '@/lib/server/auth/actor';
+import { describeTag } from '@/lib/server/boats/describe-tag';
+import { findTagDestination, type OfficialMeeting } from '@/lib/server/tags/tag-destination';
 
 // The page a boat's QR tag opens (a phone's own camera lands here). Signed in, the owner goes to
 // their boat and a scrutineer of a meeting where the boat is entered to its card at the dock;

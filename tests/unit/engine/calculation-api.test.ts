@@ -1,4 +1,4 @@
-// Public API bodies: zod schemas (lib/validations/calculation.ts) and the one-line engine
+// Public API bodies: zod schemas (lib/core/inputs/calculation.ts) and the one-line engine
 // functions that return each response's data object.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
@@ -7,13 +7,13 @@ import {
   computeCrossover,
   computeJetPerformance,
   decideConformity,
-} from '../../../lib/engine/index';
+} from '../../../lib/core/engine/index';
 import {
   conformityInputSchema,
   crossoverInputSchema,
   jetPerformanceInputSchema,
   parityInputSchema,
-} from '../../../lib/validations/calculation';
+} from '../../../lib/core/inputs/calculation';
 
 const close = (actual: number, expected: number, tol: number, what: string) =>
   assert.ok(Math.abs(actual - expected) <= tol, `${what}: ${actual} vs ${expected} (tol ${tol})`);

@@ -1,5 +1,5 @@
 // Decision rules against the worked decisions in DOMAIN.md (ILAC-G8:09/2019; ISO 14253-1:2017)
-// and the boundary classing documented in lib/engine/conformity.ts.
+// and the boundary classing documented in lib/core/engine/conformity.ts.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import fc from 'fast-check';
@@ -8,7 +8,7 @@ import {
   evaluateConformity,
   type DecisionRule,
   type Verdict,
-} from '../../../lib/engine/index';
+} from '../../../lib/core/engine/index';
 
 const decide = (readingsMm: number[], rule: DecisionRule, extra: { maxMm?: number; minMm?: number; U?: number } = { maxMm: 102 }) =>
   evaluateConformity({ readingsMm, rule, maxMm: extra.maxMm, minMm: extra.minMm, expandedUncertaintyMm: extra.U ?? 0.05 });

@@ -14,7 +14,7 @@ import {
   fillThrustCurve,
   prepareJetSetup,
   type JetSetupInput,
-} from '../../../lib/engine/index';
+} from '../../../lib/core/engine/index';
 
 const good: JetSetupInput = {
   powerKw: 300, nozzleDiameterMm: 100, densityKgM3: 999.1026,

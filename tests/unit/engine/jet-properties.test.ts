@@ -14,7 +14,7 @@ import {
   prepareJetSetup,
   solveJetCubic,
   type JetSetupInput,
-} from '../../../lib/engine/index';
+} from '../../../lib/core/engine/index';
 
 const RUNS = { numRuns: 300 };
 const setupArb: fc.Arbitrary<JetSetupInput> = fc.record({

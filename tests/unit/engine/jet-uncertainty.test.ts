@@ -12,7 +12,7 @@ import {
   computeStaticUncertainty,
   computeThrustUncertaintyAtSpeed,
   createThrustSensitivity,
-} from '../../../lib/engine/index';
+} from '../../../lib/core/engine/index';
 
 const relClose = (actual: number, expected: number, rel: number, what: string) =>
   assert.ok(Math.abs(actual - expected) <= rel * Math.abs(expected), `${what}: ${actual} vs ${expected} (rel ${rel})`);

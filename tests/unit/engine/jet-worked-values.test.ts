@@ -12,7 +12,7 @@ import {
   evaluateJetVelocityMs,
   evaluateThrustN,
   prepareJetSetup,
-} from '../../../lib/engine/index';
+} from '../../../lib/core/engine/index';
 
 const close = (actual: number, expected: number, tol: number, what: string) =>
   assert.ok(Math.abs(actual - expected) <= tol, `${what}: ${actual} vs ${expected} (tol ${tol})`);

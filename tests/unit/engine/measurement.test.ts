@@ -9,7 +9,7 @@ import {
   computeAreaEquivalentDiameterMm,
   computeUncertaintyBudget,
   correctLengthToReferenceTemperatureMm,
-} from '../../../lib/engine/index';
+} from '../../../lib/core/engine/index';
 import { sampleStandardDeviation } from 'simple-statistics';
 
 const close = (actual: number, expected: number, tol: number, what: string) =>

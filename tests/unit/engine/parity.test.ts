@@ -10,7 +10,7 @@ import {
   computeParity,
   computeStaticPerformance,
   type ParityBoatInput,
-} from '../../../lib/engine/index';
+} from '../../../lib/core/engine/index';
 
 const relClose = (actual: number, expected: number, rel: number, what: string) =>
   assert.ok(Math.abs(actual - expected) <= rel * Math.abs(expected), `${what}: ${actual} vs ${expected}`);

@@ -2,7 +2,7 @@
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import fc from 'fast-check';
-import { EngineInputError } from '../../../lib/engine/engine-input-error';
+import { EngineInputError } from '../../../lib/core/engine/engine-input-error';
 import {
   FORCE_UNIT_OPTIONS,
   LENGTH_UNIT_OPTIONS,
@@ -21,7 +21,7 @@ import {
   formatQuantity,
   getQuantityOfUnit,
   type AnyUnit,
-} from '../../../lib/engine/units';
+} from '../../../lib/core/engine/units';
 
 const close = (actual: number, expected: number, tol: number, what: string) =>
   assert.ok(Math.abs(actual - expected) <= tol, `${what}: ${actual} vs ${expected} (tol ${tol})`);

@@ -2,13 +2,13 @@
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import fc from 'fast-check';
-import { EngineInputError } from '../../../lib/engine/engine-input-error';
+import { EngineInputError } from '../../../lib/core/engine/engine-input-error';
 import {
   DEFAULT_DENSITY_KG_M3,
   computeDensityEos80,
   interpolateDensityIttc,
   resolveDensity,
-} from '../../../lib/engine/water';
+} from '../../../lib/core/engine/water';
 
 const close = (actual: number, expected: number, tol: number, what: string) =>
   assert.ok(Math.abs(actual - expected) <= tol, `${what}: ${actual} vs ${expected} (tol ${tol})`);

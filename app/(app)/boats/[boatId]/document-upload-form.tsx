@@ -2,7 +2,7 @@
 
 import { useRef, useState } from 'react';
 import { useRouter } from 'next/navigation';
-import { BOAT_DOCUMENT_MAX_BYTES, DOCUMENT_KINDS } from '@/lib/validations/boats';
+import { BOAT_DOCUMENT_MAX_BYTES, DOCUMENT_KINDS } from '@/lib/core/inputs/boats';
 
 /** Upload one document; a too-large (413) or wrong-type (415) file gets its reason beside the file field. */
 export function DocumentUploadForm({ boatId }: { boatId: string }) {

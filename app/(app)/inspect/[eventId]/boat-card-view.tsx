@@ -2,11 +2,11 @@
 
 import { StatusBadge } from '@/components/status-badge';
 import { VerdictBadge } from '@/components/verdict-badge';
-import { INSPECTION_KIND_LABELS, type InspectionKind } from '@/lib/validations/inspections';
-import { DECLARATION_STATUS_WORDS } from '@/lib/entries/check-declaration';
-import type { InspectionView } from '@/lib/inspections/inspection-view';
-import { formatFigure } from '@/lib/format/figures';
-import { CHECK_AREA_LABELS } from '@/lib/inspections/decide-inspection';
+import { INSPECTION_KIND_LABELS, type InspectionKind } from '@/lib/core/inputs/inspections';
+import { DECLARATION_STATUS_WORDS } from '@/lib/core/entries/check-declaration';
+import type { InspectionView } from '@/lib/server/inspections/inspection-view';
+import { formatFigure } from '@/lib/core/format/figures';
+import { CHECK_AREA_LABELS } from '@/lib/core/inspections/decide-inspection';
 import type { DockTarget } from './form-model';
 
 const when = (iso: string) => new Date(iso).toLocaleString([], { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });

@@ -1,11 +1,11 @@
 'use client';
 
 import { useCallback, useEffect, useRef, useState } from 'react';
-import { parseTagScan } from '@/lib/inspections/parse-tag-scan';
-import { loadSnapshot, putQueued, saveSnapshot, sendQueued, type EventSnapshot, type QueuedRecord } from '@/lib/inspections/offline-queue';
-import type { InspectionView } from '@/lib/inspections/inspection-view';
-import type { InstrumentView } from '@/lib/inspections/list-instruments';
-import { describeScope } from '@/lib/inspections/decide-inspection';
+import { parseTagScan } from '@/lib/core/tags/parse-tag-scan';
+import { loadSnapshot, putQueued, saveSnapshot, sendQueued, type EventSnapshot, type QueuedRecord } from '@/app/(app)/inspect/[eventId]/offline-queue';
+import type { InspectionView } from '@/lib/server/inspections/inspection-view';
+import type { InstrumentView } from '@/lib/server/inspections/list-instruments';
+import { describeScope } from '@/lib/core/inspections/decide-inspection';
 import { BoatCardView } from './boat-card-view';
 import { FindBoat, type FindQuery } from './find-boat';
 import { formFromDraft, initialFormState, targetFromBoardRow, targetFromCard, type DockTarget, type FormState } from './form-model';

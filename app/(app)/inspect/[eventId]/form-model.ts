@@ -1,11 +1,11 @@
 // The dock form's state (strings, as typed) and its conversion to the inspection input, both ways,
 // so a queued record that needs a fix can be loaded back into the form. Plain TypeScript.
-import type { Material } from '@/lib/engine/measurement';
-import type { ClassRules } from '@/lib/validations/class-rules';
-import type { InspectionKind, RecordInspectionDraft } from '@/lib/validations/inspections';
-import type { BoardRow, InspectionBoard } from '@/lib/inspections/list-inspection-board';
-import type { BoatCard } from '@/lib/inspections/load-boat-card';
-import { figureValue } from '@/lib/format/figures';
+import type { Material } from '@/lib/core/engine/measurement';
+import type { ClassRules } from '@/lib/core/inputs/class-rules';
+import type { InspectionKind, RecordInspectionDraft } from '@/lib/core/inputs/inspections';
+import type { BoardRow, InspectionBoard } from '@/lib/server/inspections/list-inspection-board';
+import type { BoatCard } from '@/lib/server/inspections/load-boat-card';
+import { figureValue } from '@/lib/core/format/figures';
 
 /** The boat being inspected, from the server's card or, offline, from the phone's copy of the board. */
 export type DockTarget = {

@@ -1,14 +1,14 @@
 'use client';
 
 import { useState } from 'react';
-import { SAFETY_ITEMS, type SafetyItem } from '@/lib/constants';
-import { MATERIAL_OPTIONS } from '@/lib/engine/measurement';
-import { EngineInputError } from '@/lib/engine/engine-input-error';
-import { INSPECTION_KINDS, INSPECTION_KIND_LABELS, RecordInspectionInput, type RecordInspectionDraft } from '@/lib/validations/inspections';
-import { CHECK_AREA_LABELS, decideInspection, describeScope, type InspectionDecision } from '@/lib/inspections/decide-inspection';
-import type { InstrumentView } from '@/lib/inspections/list-instruments';
+import { SAFETY_ITEMS, type SafetyItem } from '@/lib/core/constants';
+import { MATERIAL_OPTIONS } from '@/lib/core/engine/measurement';
+import { EngineInputError } from '@/lib/core/engine/engine-input-error';
+import { INSPECTION_KINDS, INSPECTION_KIND_LABELS, RecordInspectionInput, type RecordInspectionDraft } from '@/lib/core/inputs/inspections';
+import { CHECK_AREA_LABELS, decideInspection, describeScope, type InspectionDecision } from '@/lib/core/inspections/decide-inspection';
+import type { InstrumentView } from '@/lib/server/inspections/list-instruments';
 import { SafetyNote } from '@/components/safety-note';
-import { formatFigure } from '@/lib/format/figures';
+import { formatFigure } from '@/lib/core/format/figures';
 import { DockField } from './dock-field';
 import { draftFromForm, resizeReadings, type DockTarget, type FormState } from './form-model';
 

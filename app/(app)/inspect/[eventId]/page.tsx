@@ -1,10 +1,10 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound, redirect } from 'next/navigation';
-import { can, getActor } from '@/lib/auth/actor';
-import { getDb } from '@/lib/db';
-import { parseId } from '@/lib/http/ids';
-import { listInstruments } from '@/lib/inspections/list-instruments';
+import { can, getActor } from '@/lib/server/auth/actor';
+import { getDb } from '@/lib/server/db';
+import { parseId } from '@/lib/server/http/ids';
+import { listInstruments } from '@/lib/server/inspections/list-instruments';
 import { DockScreen } from './dock-screen';
 
 export const metadata: Metadata = { title: 'Dock inspection' };

@@ -1,6 +1,6 @@
 'use client';
 
-import type { QueuedRecord } from '@/lib/inspections/offline-queue';
+import type { QueuedRecord } from '@/app/(app)/inspect/[eventId]/offline-queue';
 import { VerdictBadge } from '@/components/verdict-badge';
 
 const time = (iso: string | null) => (iso ? new Date(iso).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' }) : '');

@@ -1,7 +1,7 @@
 'use client';
 
 import { useCallback, useEffect, useState } from 'react';
-import { listQueued, removeQueued, sendWaiting, type QueuedRecord } from '@/lib/inspections/offline-queue';
+import { listQueued, removeQueued, sendWaiting, type QueuedRecord } from '@/app/(app)/inspect/[eventId]/offline-queue';
 
 const RETRY_MS = 15_000;
 

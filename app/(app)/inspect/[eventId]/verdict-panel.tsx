@@ -1,9 +1,9 @@
 'use client';
 
-import type { RuleResult } from '@/lib/inspections/decide-inspection';
+import type { RuleResult } from '@/lib/core/inspections/decide-inspection';
 import { SafetyNote } from '@/components/safety-note';
 import { VerdictBadge } from '@/components/verdict-badge';
-import { formatFigure } from '@/lib/format/figures';
+import { formatFigure } from '@/lib/core/format/figures';
 
 export type ShownVerdict = { label: string; rules: RuleResult[]; overall: string; provisional: boolean; inspectionId: string | null; scopeWords?: string | null };
 
@@ -12,7 +12,7 @@ const kindOf = (r: RuleResult) => r.valueKind !== undefined ? r.valueKind : r.me
 
 const KIND_OF_UNIT = { mm: 'nozzleMm', kg: 'massKg', kW: 'powerKw' } as const;
 const fmt = (v: number | null, unit: RuleResult['unit']) => (unit ? formatFigure(v, KIND_OF_UNIT[unit]) : '—');
-// U is a small figure: one more digit than the readings in mm (lib/format/figures.ts).
+// U is a small figure: one more digit than the readings in mm (lib/core/format/figures.ts).
 const fmtU = (v: number | null, unit: RuleResult['unit']) => (unit === 'mm' ? formatFigure(v, 'uncertaintyMm') : fmt(v, unit));
 
 /** Every rule's verdict and the overall result, at once, with the caution that officials decide. */

@@ -1,12 +1,12 @@
 'use client';
 
 import { useRouter } from 'next/navigation';
-import { EventInput } from '@/lib/validations/events';
-import { fieldErrors as toFieldErrors } from '@/lib/http/errors';
-import { CURRENCIES, EVENT_STATUSES } from '@/lib/constants';
+import { EventInput } from '@/lib/core/inputs/events';
+import { fieldErrors as toFieldErrors } from '@/lib/core/errors';
+import { CURRENCIES, EVENT_STATUSES } from '@/lib/core/constants';
 import { TextField } from '@/components/ui/text-field';
 import { useJsonSubmit, numberOrNull, FormMessage } from '@/components/ui/use-json-submit';
-import type { EventDto } from '@/lib/events/event-dto';
+import type { EventDto } from '@/lib/server/events/event-dto';
 
 const STATUS_LABEL: Record<string, string> = {
   draft: 'Draft (not visible to entrants)',

@@ -2,7 +2,7 @@
 
 import { useRef, useState } from 'react';
 import { useRouter } from 'next/navigation';
-import { EVIDENCE_MAX_BYTES } from '@/lib/protests/protest-states';
+import { EVIDENCE_MAX_BYTES } from '@/lib/core/protests/protest-states';
 
 /** Add a file (photo, PDF, video) or a written note; a refused file gets its reason beside the file field. */
 export function EvidenceForm({ protestId }: { protestId: string }) {

@@ -1,10 +1,10 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound, redirect } from 'next/navigation';
-import { getActor } from '@/lib/auth/actor';
-import { AppError } from '@/lib/http/errors';
-import { getProtest } from '@/lib/protests/get-protest';
-import { formatMoney } from '@/lib/validations/entries';
+import { getActor } from '@/lib/server/auth/actor';
+import { AppError } from '@/lib/core/errors';
+import { getProtest } from '@/lib/server/protests/get-protest';
+import { formatMoney } from '@/lib/core/inputs/entries';
 
 import { PaymentWaiter } from '../../entries/payment-waiter';
 import { DecisionCaution, ProtestStatusBadge } from '../protest-badges';

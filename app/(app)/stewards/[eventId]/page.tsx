@@ -1,10 +1,10 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound, redirect } from 'next/navigation';
-import { getActor, can } from '@/lib/auth/actor';
-import { parseId } from '@/lib/http/ids';
-import { listStewardQueue } from '@/lib/protests/list-steward-queue';
-import { formatMoney } from '@/lib/validations/entries';
+import { getActor, can } from '@/lib/server/auth/actor';
+import { parseId } from '@/lib/server/http/ids';
+import { listStewardQueue } from '@/lib/server/protests/list-steward-queue';
+import { formatMoney } from '@/lib/core/inputs/entries';
 import { DecisionCaution, ProtestStatusBadge } from '../../protests/protest-badges';
 
 export const metadata: Metadata = { title: 'Protest queue' };

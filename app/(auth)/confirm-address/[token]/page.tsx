@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { findAddressProof } from '@/lib/accounts/prove-address';
+import { findAddressProof } from '@/lib/server/accounts/prove-address';
 import { ConfirmAddressForm } from './confirm-address-form';
 
 export const metadata: Metadata = { title: 'Confirm your address' };

@@ -3,7 +3,7 @@
 import { useState } from 'react';
 import { signIn } from 'next-auth/react';
 import { useRouter } from 'next/navigation';
-import { personName } from '@/lib/validations/auth';
+import { personName } from '@/lib/core/inputs/auth';
 import { TextField } from '@/components/ui/text-field';
 
 // Accepting signs the person in. A new account (or one without a name of its owner's choosing)

@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { findInvitation } from '@/lib/auth/invitations';
+import { findInvitation } from '@/lib/server/auth/invitations';
 import { AcceptInvitation } from './accept-invitation';
 
 export const metadata: Metadata = { title: 'Staff invitation' };

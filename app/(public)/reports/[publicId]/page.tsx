@@ -1,10 +1,10 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
-import { formatTime } from '@/lib/format/time';
-import { getDb } from '@/lib/db';
-import { findPublishedReport, findPreviousReport } from '@/lib/reports/manage-reports';
-import { diffReports } from '@/lib/reports/report-diff';
+import { formatTime } from '@/lib/core/format/time';
+import { getDb } from '@/lib/server/db';
+import { findPublishedReport, findPreviousReport } from '@/lib/server/reports/manage-reports';
+import { diffReports } from '@/lib/core/reports/report-diff';
 import { ParityReport } from '@/components/parity-report';
 import { ModelAssumptions } from '@/components/parity-tables';
 import { SafetyNote } from '@/components/safety-note';

@@ -1,18 +1,18 @@
 // GET|POST /api/auth/*: next-auth's own endpoints (sign-in, callbacks, session, sign-out).
 import NextAuth from 'next-auth';
 import type { NextRequest } from 'next/server';
-import { getAuthOptions } from '@/lib/auth/options';
-import { getClientAddress } from '@/lib/http/client-address';
-import { recordAttempt } from '@/lib/auth/throttle';
-import { AppError, toErrorResponse } from '@/lib/http/errors';
-import { withCappedBody } from '@/lib/http/capped-request';
+import { getAuthOptions } from '@/lib/server/auth/options';
+import { getClientAddress } from '@/lib/server/http/client-address';
+import { recordAttempt } from '@/lib/server/auth/throttle';
+import { AppError, toErrorResponse } from '@/lib/core/errors';
+import { withCappedBody } from '@/lib/server/http/capped-request';
 
 type Ctx = { params: Promise<{ nextauth: string[] }> };
 
 // next-auth reads a POST body whole; it gets a copy read through the capped reader instead.
 const AUTH_MAX_BODY_BYTES = 64 * 1024;
 // E-mailed sign-in links asked for from one client address, per hour (each target address has its
-// own smaller limit in lib/auth/options.ts).
+// own smaller limit in lib/server/auth/options.ts).
 const LINK_REQUESTS_PER_ADDRESS_PER_HOUR = 30;
 
 async function throttleLinkRequests(req: NextRequest) {

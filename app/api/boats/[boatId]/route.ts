@@ -1,7 +1,7 @@
 // GET|PATCH /api/boats/:boatId: one of the person's own boats (404 for anyone else's), read or edited.
-import { actorHandler, readJson } from '@/lib/http/handler';
-import { getMyBoat } from '@/lib/boats/get-my-boat';
-import { updateBoat } from '@/lib/boats/update-boat';
+import { actorHandler, readJson } from '@/lib/server/http/handler';
+import { getMyBoat } from '@/lib/server/boats/get-my-boat';
+import { updateBoat } from '@/lib/server/boats/update-boat';
 
 type P = { boatId: string };
 

@@ -1,6 +1,6 @@
 // GET /api/documents/:documentId: download a boat document (its owner, or officials of a meeting the boat is entered at).
-import { actorHandler } from '@/lib/http/handler';
-import { getDocumentForDownload } from '@/lib/boats/get-document-for-download';
+import { actorHandler } from '@/lib/server/http/handler';
+import { getDocumentForDownload } from '@/lib/server/boats/get-document-for-download';
 
 export const GET = actorHandler<{ documentId: string }>(async (_req, { actor, params }) => {
   const doc = await getDocumentForDownload(actor, params.documentId);

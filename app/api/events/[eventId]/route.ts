@@ -1,7 +1,7 @@
 // GET|PATCH /api/events/:eventId: the meeting's details, read or edited by its organiser.
-import { actorHandler, readJson } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
-import { getEventForOrganiser, updateEvent } from '@/lib/events/save-event';
+import { actorHandler, readJson } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
+import { getEventForOrganiser, updateEvent } from '@/lib/server/events/save-event';
 
 type P = { eventId: string };
 

@@ -1,6 +1,6 @@
 // GET /api/events/open: meetings taking entries, with their classes and published rules, for the entry form.
-import { actorHandler } from '@/lib/http/handler';
-import { listOpenEvents } from '@/lib/entries/list-open-events';
+import { actorHandler } from '@/lib/server/http/handler';
+import { listOpenEvents } from '@/lib/server/entries/list-open-events';
 
 export const dynamic = 'force-dynamic';
 

@@ -1,6 +1,6 @@
 // GET /api/evidence/:evidenceId: download an evidence file, hashed again on the way out (X-Boreline-Integrity: intact|altered).
-import { actorHandler } from '@/lib/http/handler';
-import { openEvidence } from '@/lib/protests/open-evidence';
+import { actorHandler } from '@/lib/server/http/handler';
+import { openEvidence } from '@/lib/server/protests/open-evidence';
 
 export const GET = actorHandler<{ evidenceId: string }>(async (_req, { actor, params }) => {
   const e = await openEvidence(actor, params.evidenceId);

@@ -1,9 +1,9 @@
 // POST /api/payments/webhook: signed events from the payment provider; verified before anything changes.
-import { publicHandler } from '@/lib/http/handler';
-import { AppError } from '@/lib/http/errors';
-import { readRawText } from '@/lib/http/read-body';
-import { verifyWebhook } from '@/lib/payments/stripe';
-import { applyPaymentEvent } from '@/lib/entries/apply-payment-event';
+import { publicHandler } from '@/lib/server/http/handler';
+import { AppError } from '@/lib/core/errors';
+import { readRawText } from '@/lib/server/http/read-body';
+import { verifyWebhook } from '@/lib/server/payments/stripe';
+import { applyPaymentEvent } from '@/lib/server/payments/apply-payment-event';
 
 const MAX_WEBHOOK_BYTES = 512 * 1024;
 

@@ -1,7 +1,7 @@
 // GET /api/reports/:publicId: a published parity report (public; drafts are never reachable here).
-import { publicHandler } from '@/lib/http/handler';
-import { AppError } from '@/lib/http/errors';
-import { findPublishedReport } from '@/lib/reports/manage-reports';
+import { publicHandler } from '@/lib/server/http/handler';
+import { AppError } from '@/lib/core/errors';
+import { findPublishedReport } from '@/lib/server/reports/manage-reports';
 
 export const GET = publicHandler<{ publicId: string }>(async (_req, { params }) => {
   const report = await findPublishedReport(params.publicId);

@@ -1,9 +1,9 @@
 // POST /api/v1/conformity: decide measured readings against a limit under a decision rule (public, rate-limited).
-import { publicHandler, readJson } from '@/lib/http/handler';
-import { enforceRateLimit } from '@/lib/http/rate-limit';
-import { PUBLIC_API_MAX_BODY_BYTES } from '@/lib/api/openapi';
-import { conformityInputSchema } from '@/lib/validations/calculation';
-import { decideConformity } from '@/lib/engine/calculation-api';
+import { publicHandler, readJson } from '@/lib/server/http/handler';
+import { enforceRateLimit } from '@/lib/server/http/rate-limit';
+import { PUBLIC_API_MAX_BODY_BYTES } from '@/lib/core/api/openapi';
+import { conformityInputSchema } from '@/lib/core/inputs/calculation';
+import { decideConformity } from '@/lib/core/engine/calculation-api';
 
 export const POST = publicHandler(async (req) => {
   await enforceRateLimit(req, 'public-api');

@@ -1,9 +1,9 @@
 // POST /api/v1/jet-performance: jet velocity, mass flow and thrust at given boat speeds (public, rate-limited).
-import { publicHandler, readJson } from '@/lib/http/handler';
-import { enforceRateLimit } from '@/lib/http/rate-limit';
-import { PUBLIC_API_MAX_BODY_BYTES } from '@/lib/api/openapi';
-import { jetPerformanceInputSchema } from '@/lib/validations/calculation';
-import { computeJetPerformance } from '@/lib/engine/calculation-api';
+import { publicHandler, readJson } from '@/lib/server/http/handler';
+import { enforceRateLimit } from '@/lib/server/http/rate-limit';
+import { PUBLIC_API_MAX_BODY_BYTES } from '@/lib/core/api/openapi';
+import { jetPerformanceInputSchema } from '@/lib/core/inputs/calculation';
+import { computeJetPerformance } from '@/lib/core/engine/calculation-api';
 
 export const POST = publicHandler(async (req) => {
   await enforceRateLimit(req, 'public-api');

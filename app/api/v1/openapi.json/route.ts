@@ -1,7 +1,7 @@
 // GET /api/v1/openapi.json: the public API's OpenAPI 3.1 document, generated from the zod schemas (public, rate-limited).
-import { publicHandler } from '@/lib/http/handler';
-import { enforceRateLimit } from '@/lib/http/rate-limit';
-import { buildOpenApiDocument } from '@/lib/api/openapi';
+import { publicHandler } from '@/lib/server/http/handler';
+import { enforceRateLimit } from '@/lib/server/http/rate-limit';
+import { buildOpenApiDocument } from '@/lib/core/api/openapi';
 import pkg from '@/package.json';
 
 // Counted per request, so never prerendered at build time (the counter lives in the database).

@@ -2,14 +2,14 @@
 
 import { useMemo, useState } from 'react';
 import { format, parseISO } from 'date-fns';
-import { checkDeclaration, formatFigure, DECLARATION_STATUS_WORDS, type DeclarationStatus } from '@/lib/entries/check-declaration';
-import { SubmitEntryInput, formatMoney } from '@/lib/validations/entries';
-import { fieldErrors } from '@/lib/http/errors';
+import { checkDeclaration, formatFigure, DECLARATION_STATUS_WORDS, type DeclarationStatus } from '@/lib/core/entries/check-declaration';
+import { SubmitEntryInput, formatMoney } from '@/lib/core/inputs/entries';
+import { fieldErrors } from '@/lib/core/errors';
 import { SafetyNote } from '@/components/safety-note';
 import { TextField } from '@/components/ui/text-field';
-import type { BoatView } from '@/lib/boats/boat-view';
-import type { OpenEvent } from '@/lib/entries/list-open-events';
-import type { MyEntry } from '@/lib/entries/list-my-entries';
+import type { BoatView } from '@/lib/server/boats/boat-view';
+import type { OpenEvent } from '@/lib/server/entries/list-open-events';
+import type { MyEntry } from '@/lib/server/entries/list-my-entries';
 import { PayEntryButton } from '../../../entries/pay-entry-button';
 
 // Colour is never alone: each row also carries a mark and the word (tailwind.config.ts verdict colours).

@@ -1,10 +1,10 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound, redirect } from 'next/navigation';
-import { getActor } from '@/lib/auth/actor';
-import { AppError } from '@/lib/http/errors';
-import { getMyBoat } from '@/lib/boats/get-my-boat';
-import { listOpenEvents } from '@/lib/entries/list-open-events';
+import { getActor } from '@/lib/server/auth/actor';
+import { AppError } from '@/lib/core/errors';
+import { getMyBoat } from '@/lib/server/boats/get-my-boat';
+import { listOpenEvents } from '@/lib/server/entries/list-open-events';
 import { EnterForm } from './enter-form';
 
 export const metadata: Metadata = { title: 'Enter a meeting' };

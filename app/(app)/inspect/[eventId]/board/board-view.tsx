@@ -3,7 +3,7 @@
 import Link from 'next/link';
 import { useCallback, useEffect, useState } from 'react';
 import { usePathname, useRouter, useSearchParams } from 'next/navigation';
-import type { InspectionBoard } from '@/lib/inspections/list-inspection-board';
+import type { InspectionBoard } from '@/lib/server/inspections/list-inspection-board';
 import { SafetyNote } from '@/components/safety-note';
 import { VerdictBadge } from '@/components/verdict-badge';
 import { TopFinishersPicker } from './top-finishers-picker';

@@ -2,9 +2,9 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { Suspense } from 'react';
 import { notFound, redirect } from 'next/navigation';
-import { can, getActor } from '@/lib/auth/actor';
-import { getDb } from '@/lib/db';
-import { parseId } from '@/lib/http/ids';
+import { can, getActor } from '@/lib/server/auth/actor';
+import { getDb } from '@/lib/server/db';
+import { parseId } from '@/lib/server/http/ids';
 import { BoardView } from './board-view';
 
 export const metadata: Metadata = { title: 'Inspection board' };

@@ -1,7 +1,7 @@
 'use client';
 
 import { useEffect, useState } from 'react';
-import type { ClassResultsView } from '@/lib/results/list-provisional-results';
+import type { ClassResultsView } from '@/lib/server/results/list-provisional-results';
 
 /**
  * Post-race checks of the top finishers (common practice: the first few of each class are

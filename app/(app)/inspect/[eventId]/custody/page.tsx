@@ -1,12 +1,12 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound, redirect } from 'next/navigation';
-import { can, getActor } from '@/lib/auth/actor';
-import { getDb } from '@/lib/db';
-import { parseId } from '@/lib/http/ids';
-import { listCustody, listProtestsToKeepPartsFor } from '@/lib/custody/manage-custody';
-import { formatInZone } from '@/lib/protests/protest-window';
-import { PROTEST_STATUS_LABELS, OPEN_STATUSES, type ProtestStatus } from '@/lib/protests/protest-states';
+import { can, getActor } from '@/lib/server/auth/actor';
+import { getDb } from '@/lib/server/db';
+import { parseId } from '@/lib/server/http/ids';
+import { listCustody, listProtestsToKeepPartsFor } from '@/lib/server/custody/manage-custody';
+import { formatInZone } from '@/lib/core/protests/protest-window';
+import { PROTEST_STATUS_LABELS, OPEN_STATUSES, type ProtestStatus } from '@/lib/core/protests/protest-states';
 import { SafetyNote } from '@/components/safety-note';
 import { ReleaseForm, TakeIntoCustodyForm } from './custody-forms';
 

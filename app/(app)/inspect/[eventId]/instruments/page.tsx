@@ -1,12 +1,12 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound, redirect } from 'next/navigation';
-import { can, getActor } from '@/lib/auth/actor';
-import { getDb } from '@/lib/db';
-import { parseId } from '@/lib/http/ids';
-import { listAllInstruments } from '@/lib/inspections/list-instruments';
-import { canManageInstruments } from '@/lib/inspections/manage-instruments-access';
-import { formatFigure } from '@/lib/format/figures';
+import { can, getActor } from '@/lib/server/auth/actor';
+import { getDb } from '@/lib/server/db';
+import { parseId } from '@/lib/server/http/ids';
+import { listAllInstruments } from '@/lib/server/inspections/list-instruments';
+import { canManageInstruments } from '@/lib/server/inspections/manage-instruments-access';
+import { formatFigure } from '@/lib/core/format/figures';
 import { AddInstrumentForm, RetireInstrumentButton } from './instrument-forms';
 
 export const metadata: Metadata = { title: 'Measuring instruments' };

@@ -1,10 +1,10 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound, redirect } from 'next/navigation';
-import { getActor, can } from '@/lib/auth/actor';
-import { getEventForOrganiser } from '@/lib/events/save-event';
-import { listEventClasses, listCopyableClasses } from '@/lib/classes/manage-classes';
-import { parseId } from '@/lib/http/ids';
+import { getActor, can } from '@/lib/server/auth/actor';
+import { getEventForOrganiser } from '@/lib/server/events/save-event';
+import { listEventClasses, listCopyableClasses } from '@/lib/server/classes/manage-classes';
+import { parseId } from '@/lib/server/http/ids';
 import { EventForm } from '../event-form';
 import { NewClassForm } from './new-class-form';
 import { InviteStaffForm } from '../../invite-staff-form';

@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import { redirect } from 'next/navigation';
-import { getActor } from '@/lib/auth/actor';
-import { listOrganisingClubs } from '@/lib/events/organiser-context';
+import { getActor } from '@/lib/server/auth/actor';
+import { listOrganisingClubs } from '@/lib/server/events/organiser-context';
 import { EventForm } from '../event-form';
 
 export const metadata: Metadata = { title: 'New meeting' };

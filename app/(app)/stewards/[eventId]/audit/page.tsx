@@ -1,12 +1,12 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound, redirect } from 'next/navigation';
-import { getActor, can } from '@/lib/auth/actor';
-import { getDb } from '@/lib/db';
-import { parseId } from '@/lib/http/ids';
-import { AuditQuery, listAuditEvents } from '@/lib/audit/list-audit-events';
-import { AUDIT_KINDS, AUDIT_KIND_LABELS, type AuditKind } from '@/lib/audit/describe-audit-event';
-import { formatTime } from '@/lib/format/time';
+import { getActor, can } from '@/lib/server/auth/actor';
+import { getDb } from '@/lib/server/db';
+import { parseId } from '@/lib/server/http/ids';
+import { AuditQuery, listAuditEvents } from '@/lib/server/audit/list-audit-events';
+import { AUDIT_KINDS, AUDIT_KIND_LABELS, type AuditKind } from '@/lib/core/audit/describe-audit-event';
+import { formatTime } from '@/lib/core/format/time';
 import { SafetyNote } from '@/components/safety-note';
 
 export const metadata: Metadata = { title: 'Audit trail' };

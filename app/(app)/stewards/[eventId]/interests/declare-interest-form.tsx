@@ -3,8 +3,8 @@
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { useJsonSubmit, FormMessage } from '@/components/ui/use-json-submit';
-import { INTEREST_KIND_LABELS, type InterestKind } from '@/lib/interests/interest-inputs';
-import type { InterestView } from '@/lib/interests/interest-view';
+import { INTEREST_KIND_LABELS, type InterestKind } from '@/lib/core/inputs/interests';
+import type { InterestView } from '@/lib/server/interests/interest-view';
 
 type Choice = { id: string; label: string };
 

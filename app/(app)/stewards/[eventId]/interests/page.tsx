@@ -1,10 +1,10 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound, redirect } from 'next/navigation';
-import { getActor, can } from '@/lib/auth/actor';
-import { parseId } from '@/lib/http/ids';
-import { listInterestRegister } from '@/lib/interests/list-interest-register';
-import { INTEREST_KIND_SHORT } from '@/lib/interests/interest-inputs';
+import { getActor, can } from '@/lib/server/auth/actor';
+import { parseId } from '@/lib/server/http/ids';
+import { listInterestRegister } from '@/lib/server/interests/list-interest-register';
+import { INTEREST_KIND_SHORT } from '@/lib/core/inputs/interests';
 import { DeclareInterestForm } from './declare-interest-form';
 import { WithdrawInterestForm } from './withdraw-interest-form';
 

@@ -1,10 +1,10 @@
 // POST /api/boats/:boatId/documents: the owner uploads a document (multipart fields "file" and "kind", up to 10 MB).
-import { actorHandler } from '@/lib/http/handler';
-import { AppError } from '@/lib/http/errors';
-import { readFormBody } from '@/lib/http/read-body';
-import { uploadBoatDocument } from '@/lib/boats/upload-boat-document';
-import { BOAT_DOCUMENT_MAX_BYTES } from '@/lib/validations/boats';
-import { findOwnBoat } from '@/lib/boats/boat-view';
+import { actorHandler } from '@/lib/server/http/handler';
+import { AppError } from '@/lib/core/errors';
+import { readFormBody } from '@/lib/server/http/read-body';
+import { uploadBoatDocument } from '@/lib/server/boats/upload-boat-document';
+import { BOAT_DOCUMENT_MAX_BYTES } from '@/lib/core/inputs/boats';
+import { findOwnBoat } from '@/lib/server/boats/boat-view';
 
 // Room for the multipart boundaries and the "kind" field around a file at the limit.
 const MAX_BODY_BYTES = BOAT_DOCUMENT_MAX_BYTES + 64 * 1024;

@@ -1,7 +1,7 @@
 // GET /api/events/:eventId/audit: the meeting's audit trail, read-only (no method writes it: 405).
-import { actorHandler } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
-import { listAuditEvents } from '@/lib/audit/list-audit-events';
+import { actorHandler } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
+import { listAuditEvents } from '@/lib/server/audit/list-audit-events';
 
 export const GET = actorHandler<{ eventId: string }>(async (req, { actor, params }) => {
   const query = Object.fromEntries(req.nextUrl.searchParams);

@@ -1,7 +1,7 @@
 // GET|POST /api/events/:eventId/classes: list the meeting's classes, or create one (optionally a copy).
-import { actorHandler, readJson } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
-import { createClass, listEventClasses } from '@/lib/classes/manage-classes';
+import { actorHandler, readJson } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
+import { createClass, listEventClasses } from '@/lib/server/classes/manage-classes';
 
 type P = { eventId: string };
 

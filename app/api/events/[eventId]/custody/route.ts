@@ -1,7 +1,7 @@
 // GET|POST /api/events/:eventId/custody: the parts the officials hold at the meeting; take a part into custody.
-import { actorHandler, readJson } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
-import { listCustody, takeIntoCustody } from '@/lib/custody/manage-custody';
+import { actorHandler, readJson } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
+import { listCustody, takeIntoCustody } from '@/lib/server/custody/manage-custody';
 
 type P = { eventId: string };
 

@@ -1,9 +1,9 @@
 // POST|GET /api/events/:eventId/inspections: record an inspection (201, or 200 for a repeated key); the board (?class=&result=).
-import { actorHandler, readJson } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
-import { recordInspection } from '@/lib/inspections/record-inspection';
-import { listInspectionBoard } from '@/lib/inspections/list-inspection-board';
-import { refuseChange } from '@/lib/inspections/refuse-change';
+import { actorHandler, readJson } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
+import { recordInspection } from '@/lib/server/inspections/record-inspection';
+import { listInspectionBoard } from '@/lib/server/inspections/list-inspection-board';
+import { refuseChange } from '@/lib/server/inspections/refuse-change';
 
 type P = { eventId: string };
 

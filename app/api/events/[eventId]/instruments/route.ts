@@ -1,8 +1,8 @@
 // GET|POST /api/events/:eventId/instruments: the meeting’s instruments in service with the U each brings; the organiser or chief scrutineer adds one.
-import { actorHandler, readJson } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
-import { listInstruments } from '@/lib/inspections/list-instruments';
-import { addInstrument } from '@/lib/inspections/add-instrument';
+import { actorHandler, readJson } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
+import { listInstruments } from '@/lib/server/inspections/list-instruments';
+import { addInstrument } from '@/lib/server/inspections/add-instrument';
 
 type P = { eventId: string };
 

@@ -1,8 +1,8 @@
 // GET, POST /api/events/:eventId/interests: the meeting's register of declared interests (an official's own; stewards and organiser see all) and a new declaration; append-only (PUT, PATCH, DELETE: 405).
-import { withPermission, readJson } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
-import { listInterestRegister } from '@/lib/interests/list-interest-register';
-import { declareInterest } from '@/lib/interests/declare-interest';
+import { withPermission, readJson } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
+import { listInterestRegister } from '@/lib/server/interests/list-interest-register';
+import { declareInterest } from '@/lib/server/interests/declare-interest';
 
 export const GET = withPermission<{ eventId: string }>('interest.declare', async (_req, { actor, params }) => {
   return Response.json({ data: await listInterestRegister(actor, parseId(params.eventId, 'meeting')) });

@@ -1,8 +1,8 @@
 // GET|POST /api/events/:eventId/protests: the meeting's protests (all for stewards and organiser, else the caller's own); lodge one.
-import { actorHandler, readJson } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
-import { listEventProtests } from '@/lib/protests/list-event-protests';
-import { lodgeProtest } from '@/lib/protests/lodge-protest';
+import { actorHandler, readJson } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
+import { listEventProtests } from '@/lib/server/protests/list-event-protests';
+import { lodgeProtest } from '@/lib/server/protests/lodge-protest';
 
 type P = { eventId: string };
 

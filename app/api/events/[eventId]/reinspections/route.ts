@@ -1,8 +1,8 @@
 // POST|GET /api/events/:eventId/reinspections: ask for entries to be inspected again; list the tasks (?open=1 for open only).
-import { actorHandler, readJson } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
-import { requestReinspection } from '@/lib/inspections/request-reinspection';
-import { listReinspections } from '@/lib/inspections/list-reinspections';
+import { actorHandler, readJson } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
+import { requestReinspection } from '@/lib/server/inspections/request-reinspection';
+import { listReinspections } from '@/lib/server/inspections/list-reinspections';
 
 type P = { eventId: string };
 

@@ -1,13 +1,13 @@
 // GET|POST /api/events/:eventId/results: read the provisional results per class; publish a new version (JSON from the form, or a CSV file).
-import { actorHandler, readJson } from '@/lib/http/handler';
-import { AppError } from '@/lib/http/errors';
-import { parseId } from '@/lib/http/ids';
-import { assertCan } from '@/lib/auth/actor';
-import { listProvisionalResults } from '@/lib/results/list-provisional-results';
-import { publishProvisionalResults } from '@/lib/results/publish-provisional-results';
-import { parseResultsCsv } from '@/lib/results/parse-results-csv';
-import { RESULTS_CSV_MAX_BYTES } from '@/lib/results/results-input';
-import { readMultipartUpload } from '@/lib/protests/read-multipart-upload';
+import { actorHandler, readJson } from '@/lib/server/http/handler';
+import { AppError } from '@/lib/core/errors';
+import { parseId } from '@/lib/server/http/ids';
+import { assertCan } from '@/lib/server/auth/actor';
+import { listProvisionalResults } from '@/lib/server/results/list-provisional-results';
+import { publishProvisionalResults } from '@/lib/server/results/publish-provisional-results';
+import { parseResultsCsv } from '@/lib/core/results/parse-results-csv';
+import { RESULTS_CSV_MAX_BYTES } from '@/lib/core/inputs/results';
+import { readMultipartUpload } from '@/lib/server/http/read-multipart-upload';
 
 type P = { eventId: string };
 

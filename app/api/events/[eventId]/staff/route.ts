@@ -1,7 +1,7 @@
 // POST /api/events/:eventId/staff: give a registered person a staff role, or invite them by e-mail.
-import { actorHandler, readJson } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
-import { assignStaff } from '@/lib/events/assign-staff';
+import { actorHandler, readJson } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
+import { assignStaff } from '@/lib/server/events/assign-staff';
 
 export const POST = actorHandler<{ eventId: string }>(async (req, { actor, params }) => {
   const result = await assignStaff(actor, parseId(params.eventId, 'event'), await readJson(req));

@@ -1,8 +1,8 @@
 // GET /api/events/:eventId/tag-sheet?sheet=a4-2x7|letter-2x5&classId=: the PDF of QR tag labels.
-import { actorHandler } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
-import { AppError } from '@/lib/http/errors';
-import { printTagSheet, type SheetFormat } from '@/lib/tags/print-tag-sheet';
+import { actorHandler } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
+import { AppError } from '@/lib/core/errors';
+import { printTagSheet, type SheetFormat } from '@/lib/server/tags/print-tag-sheet';
 
 const SHEETS: SheetFormat[] = ['a4-2x7', 'letter-2x5'];
 

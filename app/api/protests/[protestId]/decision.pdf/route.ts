@@ -1,6 +1,6 @@
 // GET /api/protests/:protestId/decision.pdf: the written decision as a PDF, for the parties and the meeting's officials.
-import { actorHandler } from '@/lib/http/handler';
-import { buildDecisionPdf } from '@/lib/protests/build-decision-pdf';
+import { actorHandler } from '@/lib/server/http/handler';
+import { buildDecisionPdf } from '@/lib/server/protests/build-decision-pdf';
 
 export const GET = actorHandler<{ protestId: string }>(async (_req, { actor, params }) => {
   const pdf = await buildDecisionPdf(actor, params.protestId);

@@ -1,11 +1,11 @@
 // POST|GET /api/protests/:protestId/evidence: add evidence (multipart "file", or JSON note / inspection link); list it with integrity.
-import { actorHandler, readJson } from '@/lib/http/handler';
-import { AppError } from '@/lib/http/errors';
-import { addEvidence } from '@/lib/protests/add-evidence';
-import { listEvidence } from '@/lib/protests/list-evidence';
-import { findProtestForActor } from '@/lib/protests/find-protest-for-actor';
-import { readMultipartUpload } from '@/lib/protests/read-multipart-upload';
-import { EVIDENCE_MAX_BYTES } from '@/lib/protests/protest-states';
+import { actorHandler, readJson } from '@/lib/server/http/handler';
+import { AppError } from '@/lib/core/errors';
+import { addEvidence } from '@/lib/server/protests/add-evidence';
+import { listEvidence } from '@/lib/server/protests/list-evidence';
+import { findProtestForActor } from '@/lib/server/protests/find-protest-for-actor';
+import { readMultipartUpload } from '@/lib/server/http/read-multipart-upload';
+import { EVIDENCE_MAX_BYTES } from '@/lib/core/protests/protest-states';
 
 type P = { protestId: string };
 

@@ -1,10 +1,10 @@
 // GET /api/reports/:publicId/csv: the published report's per-boat figures as CSV (strong ETag, 304 when unchanged).
 import { createHash } from 'node:crypto';
-import { publicHandler } from '@/lib/http/handler';
-import { AppError } from '@/lib/http/errors';
-import { notModified, strongEtag } from '@/lib/http/immutable-file';
-import { findPublishedReport } from '@/lib/reports/manage-reports';
-import { reportToCsv } from '@/lib/reports/report-csv';
+import { publicHandler } from '@/lib/server/http/handler';
+import { AppError } from '@/lib/core/errors';
+import { notModified, strongEtag } from '@/lib/server/http/immutable-file';
+import { findPublishedReport } from '@/lib/server/reports/manage-reports';
+import { reportToCsv } from '@/lib/core/reports/report-csv';
 
 const CSV_CACHE_CONTROL = 'public, max-age=3600';
 

@@ -1,8 +1,8 @@
 // GET /api/reports/:publicId/pdf: the published report as a PDF, rendered once and then served from storage.
-import { publicHandler } from '@/lib/http/handler';
-import { AppError } from '@/lib/http/errors';
-import { IMMUTABLE_CACHE_CONTROL, notModified, strongEtag } from '@/lib/http/immutable-file';
-import { ensureReportPdf, findReportPdfHead, readReportPdf } from '@/lib/reports/report-pdf-file';
+import { publicHandler } from '@/lib/server/http/handler';
+import { AppError } from '@/lib/core/errors';
+import { IMMUTABLE_CACHE_CONTROL, notModified, strongEtag } from '@/lib/server/http/immutable-file';
+import { ensureReportPdf, findReportPdfHead, readReportPdf } from '@/lib/server/reports/report-pdf-file';
 
 export const GET = publicHandler<{ publicId: string }>(async (req, { params }) => {
   const head = await findReportPdfHead(params.publicId);

@@ -2,7 +2,7 @@
 
 import { useRouter } from 'next/navigation';
 import { useJsonSubmit } from '@/components/ui/use-json-submit';
-import type { EventEntryRow } from '@/lib/entries/list-event-entries';
+import type { EventEntryRow } from '@/lib/server/entries/list-event-entries';
 
 export function CancelEntryButton({ eventId, entry }: { eventId: string; entry: EventEntryRow }) {
   const router = useRouter();

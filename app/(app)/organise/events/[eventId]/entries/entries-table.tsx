@@ -6,8 +6,8 @@ import {
   createColumnHelper, flexRender, getCoreRowModel, getFilteredRowModel, getPaginationRowModel, getSortedRowModel,
   useReactTable, type SortingState,
 } from '@tanstack/react-table';
-import type { EventEntryRow } from '@/lib/entries/list-event-entries';
-import { figureValue } from '@/lib/format/figures';
+import type { EventEntryRow } from '@/lib/server/entries/list-event-entries';
+import { figureValue } from '@/lib/core/format/figures';
 import { StatusBadge } from '@/components/status-badge';
 import { CancelEntryButton } from './cancel-entry-button';
 

@@ -2,10 +2,10 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { Suspense } from 'react';
 import { notFound, redirect } from 'next/navigation';
-import { getActor, can } from '@/lib/auth/actor';
-import { listEventEntries } from '@/lib/entries/list-event-entries';
-import { getDb } from '@/lib/db';
-import { parseId } from '@/lib/http/ids';
+import { getActor, can } from '@/lib/server/auth/actor';
+import { listEventEntries } from '@/lib/server/entries/list-event-entries';
+import { getDb } from '@/lib/server/db';
+import { parseId } from '@/lib/server/http/ids';
 import { EntriesTable } from './entries-table';
 
 export const metadata: Metadata = { title: 'Entries' };

@@ -1,9 +1,9 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound, redirect } from 'next/navigation';
-import { getActor, can } from '@/lib/auth/actor';
-import { parseId } from '@/lib/http/ids';
-import { listProvisionalResults } from '@/lib/results/list-provisional-results';
+import { getActor, can } from '@/lib/server/auth/actor';
+import { parseId } from '@/lib/server/http/ids';
+import { listProvisionalResults } from '@/lib/server/results/list-provisional-results';
 import { SafetyNote } from '@/components/safety-note';
 import { ResultsForm } from './results-form';
 

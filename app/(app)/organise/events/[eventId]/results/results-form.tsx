@@ -3,7 +3,7 @@
 import { useRef, useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { useJsonSubmit, FormMessage } from '@/components/ui/use-json-submit';
-import { rowsToSend, type ResultsFormRow } from '@/lib/results/results-input';
+import { rowsToSend, type ResultsFormRow } from '@/lib/core/inputs/results';
 
 type ClassOption = { classId: string; label: string };
 

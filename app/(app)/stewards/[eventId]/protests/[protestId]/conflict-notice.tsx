@@ -1,5 +1,5 @@
 import Link from 'next/link';
-import type { ProtestDetail } from '@/lib/protests/get-protest';
+import type { ProtestDetail } from '@/lib/server/protests/get-protest';
 
 /**
  * Who may not act on this protest: the viewer's own interest (the steps are then not offered, and

@@ -1,18 +1,18 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound, redirect } from 'next/navigation';
-import { getActor, can } from '@/lib/auth/actor';
-import { AppError } from '@/lib/http/errors';
-import { parseId } from '@/lib/http/ids';
-import { getProtest } from '@/lib/protests/get-protest';
+import { getActor, can } from '@/lib/server/auth/actor';
+import { AppError } from '@/lib/core/errors';
+import { parseId } from '@/lib/server/http/ids';
+import { getProtest } from '@/lib/server/protests/get-protest';
 import { DecisionCaution, ProtestStatusBadge } from '../../../../protests/protest-badges';
 import { EvidenceList } from '../../../../protests/evidence-list';
 import { ProtestFacts } from '../../../../protests/protest-facts';
 import { EvidenceForm } from '../../../../protests/[protestId]/evidence-form';
 import { StewardActions } from './steward-actions';
 import { ConflictNotice } from './conflict-notice';
-import { listCustodyForProtest } from '@/lib/custody/manage-custody';
-import { formatInZone } from '@/lib/protests/protest-window';
+import { listCustodyForProtest } from '@/lib/server/custody/manage-custody';
+import { formatInZone } from '@/lib/core/protests/protest-window';
 
 export const metadata: Metadata = { title: 'Protest (stewards)' };
 export const dynamic = 'force-dynamic';

@@ -3,8 +3,8 @@
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { useJsonSubmit, FormMessage } from '@/components/ui/use-json-submit';
-import { REJECTION_LABELS } from '@/lib/protests/protest-states';
-import type { ProtestDetail } from '@/lib/protests/get-protest';
+import { REJECTION_LABELS } from '@/lib/core/protests/protest-states';
+import type { ProtestDetail } from '@/lib/server/protests/get-protest';
 
 type Field = { name: string; label: string; kind: 'text' | 'textarea' | 'datetime' | 'select' | 'radio'; options?: Record<string, string>; hint?: string };
 

@@ -1,6 +1,6 @@
 // PUT|DELETE /api/admin/people/:userId/suspension: the site administrator suspends an account (with a reason) or lifts the suspension.
-import { actorHandler, readJson } from '@/lib/http/handler';
-import { reinstatePerson, suspendPerson } from '@/lib/admin/set-suspension';
+import { actorHandler, readJson } from '@/lib/server/http/handler';
+import { reinstatePerson, suspendPerson } from '@/lib/server/admin/set-suspension';
 
 type P = { userId: string };
 

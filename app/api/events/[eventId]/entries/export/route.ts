@@ -1,8 +1,8 @@
 // GET /api/events/:eventId/entries/export: the entries as CSV, for officials.
-import { actorHandler } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
-import { listEventEntries } from '@/lib/entries/list-event-entries';
-import { entriesToCsv } from '@/lib/entries/entries-csv';
+import { actorHandler } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
+import { listEventEntries } from '@/lib/server/entries/list-event-entries';
+import { entriesToCsv } from '@/lib/core/entries/entries-csv';
 
 export const GET = actorHandler<{ eventId: string }>(async (_req, { actor, params }) => {
   const rows = await listEventEntries(actor, parseId(params.eventId, 'event'));

@@ -1,7 +1,7 @@
 // GET /api/events/:eventId/tags/:token: the boat card for a scanned tag (404 unknown, 410 replaced, 404 not entered here).
-import { actorHandler } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
-import { findBoatByTag } from '@/lib/inspections/find-boat-by-tag';
+import { actorHandler } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
+import { findBoatByTag } from '@/lib/server/inspections/find-boat-by-tag';
 
 export const GET = actorHandler<{ eventId: string; token: string }>(async (_req, { actor, params }) => {
   // Next has already percent-decoded the segment once; decoding it again turned "%25E0%25A4" into a

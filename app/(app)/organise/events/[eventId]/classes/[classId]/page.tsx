@@ -1,12 +1,12 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound, redirect } from 'next/navigation';
-import { formatTime } from '@/lib/format/time';
-import { getActor, can } from '@/lib/auth/actor';
-import { getClassWithVersions } from '@/lib/classes/manage-classes';
-import { diffRules, ruleLabel } from '@/lib/classes/diff-rules';
-import { parseId } from '@/lib/http/ids';
-import { AppError } from '@/lib/http/errors';
+import { formatTime } from '@/lib/core/format/time';
+import { getActor, can } from '@/lib/server/auth/actor';
+import { getClassWithVersions } from '@/lib/server/classes/manage-classes';
+import { diffRules, ruleLabel } from '@/lib/core/classes/diff-rules';
+import { parseId } from '@/lib/server/http/ids';
+import { AppError } from '@/lib/core/errors';
 import { SafetyNote } from '@/components/safety-note';
 import { RulesForm } from './rules-form';
 import { PublishForm } from './publish-form';

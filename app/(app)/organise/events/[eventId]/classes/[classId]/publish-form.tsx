@@ -3,7 +3,7 @@
 import { useRouter } from 'next/navigation';
 import { TextField } from '@/components/ui/text-field';
 import { useJsonSubmit, FormMessage } from '@/components/ui/use-json-submit';
-import { instantFromWallClock } from '@/lib/protests/protest-window';
+import { instantFromWallClock } from '@/lib/core/protests/protest-window';
 
 type Props = { eventId: string; classId: string; version: number; timeZone: string };
 

@@ -2,11 +2,11 @@
 
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
-import { SAFETY_ITEMS, SAFETY_ITEM_KEYS } from '@/lib/constants';
-import type { ClassRules } from '@/lib/validations/class-rules';
+import { SAFETY_ITEMS, SAFETY_ITEM_KEYS } from '@/lib/core/constants';
+import type { ClassRules } from '@/lib/core/inputs/class-rules';
 import { TextField } from '@/components/ui/text-field';
 import { useJsonSubmit, numberOrNull, FormMessage } from '@/components/ui/use-json-submit';
-import { convertPower, type PowerUnit } from '@/lib/engine/units';
+import { convertPower, type PowerUnit } from '@/lib/core/engine/units';
 
 const RULE_TEXT = {
   simple: 'Simple acceptance: the reading itself is compared with the limit (no guard band).',

@@ -1,7 +1,7 @@
 // GET /api/events/:eventId/classes/:classId/report: the live draft parity report (organiser), plus published versions.
-import { actorHandler } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
-import { computeDraftReport, listReportVersions } from '@/lib/reports/manage-reports';
+import { actorHandler } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
+import { computeDraftReport, listReportVersions } from '@/lib/server/reports/manage-reports';
 
 type P = { eventId: string; classId: string };
 

@@ -1,9 +1,9 @@
 // GET|PUT /api/events/:eventId/classes/:classId/rules: versions (or the one in force ?at=ISO time); save the draft.
-import { actorHandler, readJson } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
-import { AppError } from '@/lib/http/errors';
-import { getClassWithVersions } from '@/lib/classes/manage-classes';
-import { findRulesInForce, saveDraftRules } from '@/lib/classes/rule-versions';
+import { actorHandler, readJson } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
+import { AppError } from '@/lib/core/errors';
+import { getClassWithVersions } from '@/lib/server/classes/manage-classes';
+import { findRulesInForce, saveDraftRules } from '@/lib/server/classes/rule-versions';
 
 type P = { eventId: string; classId: string };
 

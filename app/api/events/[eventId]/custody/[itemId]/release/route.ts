@@ -1,7 +1,7 @@
 // POST /api/events/:eventId/custody/:itemId/release: hand a held part back (to whom, with a note), once.
-import { actorHandler, readJson } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
-import { releaseFromCustody } from '@/lib/custody/manage-custody';
+import { actorHandler, readJson } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
+import { releaseFromCustody } from '@/lib/server/custody/manage-custody';
 
 type P = { eventId: string; itemId: string };
 

@@ -1,7 +1,7 @@
 // POST /api/events/:eventId/entries/:entryId/cancel: the organiser cancels an entry (refunding a paid fee).
-import { actorHandler, readJson } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
-import { cancelEntry } from '@/lib/entries/cancel-entry';
+import { actorHandler, readJson } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
+import { cancelEntry } from '@/lib/server/entries/cancel-entry';
 
 export const POST = actorHandler<{ eventId: string; entryId: string }>(async (req, { actor, params }) => {
   const result = await cancelEntry(actor, parseId(params.eventId, 'event'), parseId(params.entryId, 'entry'), await readJson(req));

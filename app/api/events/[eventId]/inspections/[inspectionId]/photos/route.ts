@@ -1,9 +1,9 @@
 // POST /api/events/:eventId/inspections/:inspectionId/photos: attach photos (multipart "photo", up to 8 MB each; the dock sends one per request).
-import { withPermission } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
-import { readPhotoUpload } from '@/lib/inspections/read-photo-upload';
-import { addInspectionPhotos } from '@/lib/inspections/add-inspection-photos';
-import { refuseChange } from '@/lib/inspections/refuse-change';
+import { withPermission } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
+import { readPhotoUpload } from '@/lib/server/inspections/read-photo-upload';
+import { addInspectionPhotos } from '@/lib/server/inspections/add-inspection-photos';
+import { refuseChange } from '@/lib/server/inspections/refuse-change';
 
 type P = { eventId: string; inspectionId: string };
 

@@ -1,7 +1,7 @@
 // POST /api/events/:eventId/instruments/:instrumentId/retire: takes an instrument out of service (kept in the list as retired).
-import { actorHandler } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
-import { retireInstrument } from '@/lib/inspections/retire-instrument';
+import { actorHandler } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
+import { retireInstrument } from '@/lib/server/inspections/retire-instrument';
 
 type P = { eventId: string; instrumentId: string };
 

@@ -1,12 +1,12 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound, redirect } from 'next/navigation';
-import { formatTime } from '@/lib/format/time';
-import { getActor, can } from '@/lib/auth/actor';
-import { parseId } from '@/lib/http/ids';
-import { AppError } from '@/lib/http/errors';
-import { computeDraftReport, listReportVersions } from '@/lib/reports/manage-reports';
-import { getClassWithVersions } from '@/lib/classes/manage-classes';
+import { formatTime } from '@/lib/core/format/time';
+import { getActor, can } from '@/lib/server/auth/actor';
+import { parseId } from '@/lib/server/http/ids';
+import { AppError } from '@/lib/core/errors';
+import { computeDraftReport, listReportVersions } from '@/lib/server/reports/manage-reports';
+import { getClassWithVersions } from '@/lib/server/classes/manage-classes';
 import { ParityReport } from '@/components/parity-report';
 import { ModelAssumptions } from '@/components/parity-tables';
 import { SafetyNote } from '@/components/safety-note';

@@ -2,8 +2,8 @@
 
 import { useMemo, useState } from 'react';
 import { useRouter } from 'next/navigation';
-import { applyRuleWhatIf, applyWhatIf, computeReportResults, type ReportInputs } from '@/lib/reports/parity-figures';
-import type { ClassRules } from '@/lib/validations/class-rules';
+import { applyRuleWhatIf, applyWhatIf, computeReportResults, type ReportInputs } from '@/lib/core/reports/parity-figures';
+import type { ClassRules } from '@/lib/core/inputs/class-rules';
 import { useJsonSubmit, FormMessage } from '@/components/ui/use-json-submit';
 
 const num = (s: string) => (s.trim() === '' ? null : Number(s));

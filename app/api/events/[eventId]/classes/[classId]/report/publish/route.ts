@@ -1,9 +1,9 @@
 // POST /api/events/:eventId/classes/:classId/report/publish: freeze the draft as the next numbered version.
-import { actorHandler, readJson } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
+import { actorHandler, readJson } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
 import { after } from 'next/server';
-import { publishReport } from '@/lib/reports/manage-reports';
-import { ensureReportPdf } from '@/lib/reports/report-pdf-file';
+import { publishReport } from '@/lib/server/reports/manage-reports';
+import { ensureReportPdf } from '@/lib/server/reports/report-pdf-file';
 
 type P = { eventId: string; classId: string };
 

@@ -1,7 +1,7 @@
 // POST /api/events/:eventId/classes/:classId/rules/publish: freeze the draft as a numbered version.
-import { actorHandler, readJson } from '@/lib/http/handler';
-import { parseId } from '@/lib/http/ids';
-import { publishRules } from '@/lib/classes/rule-versions';
+import { actorHandler, readJson } from '@/lib/server/http/handler';
+import { parseId } from '@/lib/server/http/ids';
+import { publishRules } from '@/lib/server/classes/rule-versions';
 
 type P = { eventId: string; classId: string };
 

@@ -1,0 +1,143 @@
+// One function per public API body: each takes the parsed body (lib/core/inputs/calculation.ts)
+// and returns exactly the response's `data` object, so a route handler is one line.
+// Water: densityKgM3 wins over water; with neither, fresh water at 15 C on the ITTC basis.
+
+import { evaluateConformity } from './conformity';
+import type { DecisionRule, Verdict } from './conformity';
+import { computeThrustCurve } from './jet';
+import type { JetModelAssumptions } from './jet';
+import { computeCrossoverSpeedMs } from './jet-crossover';
+import { computeParity } from './parity';
+import type { ParityBoatInput, ParityReport } from './parity';
+import { DEFAULT_WATER, resolveDensity } from './water';
+import type { DensityBasis, WaterKind } from './water';
+import { EngineInputError } from './engine-input-error';
+
+export interface WaterInput {
+  kind: WaterKind;
+  temperatureC: number;
+  /** Default 'ittc' (10–25 C); 'eos80' covers 0–40 C. */
+  basis?: DensityBasis;
+}
+
+export interface JetModelBody {
+  water?: WaterInput;
+  densityKgM3?: number;
+  pumpEfficiency?: number;
+  nozzleLossCoefficient?: number;
+  inletLossCoefficient?: number;
+  wakeFraction?: number;
+}
+
+export interface JetPerformanceInput extends JetModelBody {
+  powerKw: number;
+  nozzleDiameterMm: number;
+  speedsMs: readonly number[];
+}
+
+export interface JetPerformancePoint {
+  speedMs: number;
+  jetVelocityMs: number;
+  massFlowKgS: number;
+  /** As computed; may be negative at high speed with losses (see isThrustPositive). */
+  thrustN: number;
+  isThrustPositive: boolean;
+}
+
+export interface JetPerformanceData {
+  densityKgM3: number;
+  points: JetPerformancePoint[];
+}
+
+export interface CrossoverInput extends JetModelBody {
+  powerKw: number;
+  nozzleDiametersMm: readonly [number, number];
+}
+
+export interface CrossoverData {
+  /** null when the curves do not cross below 100 m/s. */
+  crossoverSpeedMs: number | null;
+}
+
+export interface ConformityBody {
+  readingsMm: readonly number[];
+  maxMm?: number;
+  minMm?: number;
+  expandedUncertaintyMm: number;
+  rule: DecisionRule;
+}
+
+export interface ConformityData {
+  decisiveValueMm: number;
+  verdict: Verdict;
+  explanation: string;
+  acceptanceLimitsMm: { maxMm: number | null; minMm: number | null };
+}
+
+export interface ParityBody extends JetModelBody {
+  boats: readonly ParityBoatInput[];
+  referenceSpeedsMs?: readonly number[];
+}
+
+export type ParityData = ParityReport & { densityKgM3: number };
+
+function resolveModel(body: JetModelBody): JetModelAssumptions {
+  if (body === null || typeof body !== 'object') throw new EngineInputError('body', 'A request body object is required');
+  const { densityKgM3 } = resolveDensity(
+    body.densityKgM3 !== undefined ? { densityKgM3: body.densityKgM3 } : (body.water ?? DEFAULT_WATER),
+  );
+  return {
+    densityKgM3,
+    pumpEfficiency: body.pumpEfficiency ?? 1,
+    nozzleLossCoefficient: body.nozzleLossCoefficient ?? 0,
+    inletLossCoefficient: body.inletLossCoefficient ?? 0,
+    wakeFraction: body.wakeFraction ?? 0,
+  };
+}
+
+/** POST /api/v1/jet-performance */
+export function computeJetPerformance(input: JetPerformanceInput): JetPerformanceData {
+  const model = resolveModel(input);
+  const points = computeThrustCurve(
+    { ...model, powerKw: input.powerKw, nozzleDiameterMm: input.nozzleDiameterMm },
+    input.speedsMs,
+  ).map((p) => ({
+    speedMs: p.speedMs,
+    jetVelocityMs: p.jetVelocityMs,
+    massFlowKgS: p.massFlowKgS,
+    thrustN: p.thrustN,
+    isThrustPositive: p.isThrustPositive,
+  }));
+  return { densityKgM3: model.densityKgM3, points };
+}
+
+/** POST /api/v1/jet-performance/crossover */
+export function computeCrossover(input: CrossoverInput): CrossoverData {
+  const model = resolveModel(input);
+  const diameters = input.nozzleDiametersMm;
+  if (!Array.isArray(diameters) || diameters.length !== 2) {
+    throw new EngineInputError('nozzleDiametersMm', 'Give exactly two nozzle diameters');
+  }
+  const [a, b] = diameters.map((d, i) => {
+    if (typeof d !== 'number') throw new EngineInputError(`nozzleDiametersMm[${i}]`, 'Nozzle diameter must be a number');
+    return { ...model, powerKw: input.powerKw, nozzleDiameterMm: d };
+  });
+  return { crossoverSpeedMs: computeCrossoverSpeedMs(a, b) };
+}
+
+/** POST /api/v1/conformity */
+export function decideConformity(input: ConformityBody): ConformityData {
+  const r = evaluateConformity(input);
+  return {
+    decisiveValueMm: r.decisiveValueMm,
+    verdict: r.verdict,
+    explanation: r.explanation,
+    acceptanceLimitsMm: r.acceptanceLimitsMm,
+  };
+}
+
+/** Class parity report (no route fixed yet). */
+export function computeClassParity(input: ParityBody): ParityData {
+  const model = resolveModel(input);
+  return { densityKgM3: model.densityKgM3, ...computeParity(input.boats, { ...model, referenceSpeedsMs: input.referenceSpeedsMs }) };
+}

@@ -1,0 +1,134 @@
+import { z } from 'zod';
+import { SAFETY_ITEM_KEYS, type SafetyItem } from '../constants';
+import { MATERIAL_OPTIONS, type Material } from '../engine/measurement';
+
+// Inspection input, shared by the dock form (also offline, before queuing) and the server.
+// Figures arrive as JSON numbers in mm, degrees, °C, kg and kW; a string for a number is refused.
+// What depends on the class (how many readings, which safety items) is checked against the rule
+// version in force by lib/core/inspections/decide-inspection.ts, which names the same fields.
+
+export const INSPECTION_KINDS = ['pre_race', 'post_race', 'protest', 'spot_check'] as const;
+export type InspectionKind = (typeof INSPECTION_KINDS)[number];
+export const INSPECTION_KIND_LABELS: Record<InspectionKind, string> = {
+  pre_race: 'Pre-race',
+  post_race: 'Post-race',
+  protest: 'Protest',
+  spot_check: 'Spot check',
+};
+
+/** A record may be captured offline and sent later, but not from the future or from long ago. */
+export const MAX_FUTURE_MS = 5 * 60 * 1000;
+export const MAX_AGE_MS = 14 * 24 * 60 * 60 * 1000;
+/** One photo of an inspection (bytes); how many one upload may carry (small ones; the dock sends one each). */
+export const INSPECTION_PHOTO_MAX_BYTES = 8 * 1024 * 1024;
+export const INSPECTION_PHOTOS_PER_UPLOAD = 4;
+
+const num = (what: string, unit: string) =>
+  z.number({ error: (iss) => (iss.input === undefined || iss.input === null ? `Enter ${what} (${unit}).` : `Enter ${what} as a number (${unit}).`) });
+const optionalNum = (what: string, unit: string) =>
+  z.number({ error: `Enter ${what} as a number (${unit}), or leave it empty.` }).nullable().optional().transform((v) => v ?? null);
+const uuid = (what: string) => z.uuid({ error: `Choose ${what}.` });
+const optionalUuid = (what: string) => uuid(what).nullable().optional().transform((v) => v ?? null);
+const text = (what: string, max: number) => z.string({ error: `Enter ${what} as text.` }).trim().max(max, `Keep ${what} under ${max} characters.`);
+
+const MATERIALS = MATERIAL_OPTIONS.map((m) => m.value) as [Material, ...Material[]];
+
+export const NozzleReading = z.object({
+  // Exclusive bounds: a diameter of 0 or below, or a metre and more, is a typing slip, not a nozzle.
+  diameterMm: num('the diameter', 'mm').gt(0, 'A diameter must be above 0 mm.').lt(1000, 'A diameter must be below 1000 mm.'),
+  angleDeg: num('the angle', '°').min(0, 'Angles run from 0 to 359°.').max(359, 'Angles run from 0 to 359°.'),
+});
+
+export const RecordInspectionInput = z
+  .object({
+    idempotencyKey: z.uuid({ error: 'The record key must be a UUID made on the device.' }),
+    entryId: uuid('the boat’s entry'),
+    kind: z.enum(INSPECTION_KINDS, { error: 'Choose the kind of inspection.' }).default('pre_race'),
+    capturedAt: z.iso.datetime({ offset: true, error: 'Give the time of the inspection as an ISO date and time.' }),
+    device: text('the device name', 80).default(''),
+    nozzle: z.object({
+      readings: z.array(NozzleReading, { error: 'List the nozzle readings.' }).min(1, 'Enter at least one reading.').max(24, 'Enter at most 24 readings.'),
+      instrumentId: optionalUuid('an instrument'),
+      expandedUncertaintyMm: optionalNum('the expanded uncertainty U', 'mm').pipe(
+        z.number().min(0, 'Uncertainty cannot be negative.').max(5, 'An uncertainty above 5 mm is not credible.').nullable(),
+      ),
+      temperatureC: optionalNum('the nozzle temperature', '°C').pipe(
+        z.number().min(-30, 'Temperatures run from -30 to 70 °C.').max(70, 'Temperatures run from -30 to 70 °C.').nullable(),
+      ),
+      material: z.enum(MATERIALS, { error: 'Choose the nozzle material.' }).nullable().optional().transform((v) => v ?? null),
+    }),
+    weight: z
+      .object({
+        readingsKg: z
+          .array(num('the weighing', 'kg').gt(0, 'A weighing must be above 0 kg.').lt(20000, 'A weighing must be below 20000 kg.'))
+          .max(6, 'Enter at most 6 weighings.'),
+        instrumentId: optionalUuid('a scale'),
+      })
+      .nullable()
+      .optional()
+      .transform((v) => (v && v.readingsKg.length ? v : null)),
+    power: z.object({
+      declaredKw: num('the power', 'kW').gt(0, 'Power must be above 0 kW.').lt(10000, 'Power must be below 10000 kW.'),
+      evidenceSeen: z.boolean({ error: 'Say whether the power evidence was seen.' }),
+      note: text('the power note', 500).default(''),
+    }),
+    seals: z
+      .array(z.object({ number: text('the seal number', 40).min(1, 'Enter the seal number.'), location: text('where the seal is', 80).min(1, 'Say where the seal is.') }))
+      .max(20, 'Record at most 20 seals.')
+      .default([]),
+    safety: z.partialRecord(z.enum(SAFETY_ITEM_KEYS as [SafetyItem, ...SafetyItem[]]), z.boolean({ error: 'Tick or untick each safety item.' })).default({}),
+    notes: text('the notes', 2000).default(''),
+    supersedesId: optionalUuid('the record to correct'),
+    correctionReason: text('the reason for the correction', 1000).nullable().optional().transform((v) => v || null),
+    reinspectionId: optionalUuid('the re-inspection task'),
+  })
+  .superRefine((v, ctx) => {
+    if (v.nozzle.instrumentId && v.nozzle.expandedUncertaintyMm != null) {
+      ctx.addIssue({ code: 'custom', path: ['nozzle', 'expandedUncertaintyMm'], message: 'Choose an instrument or type U, not both.' });
+    }
+    const when = checkCapturedAt(v.capturedAt);
+    if (when) ctx.addIssue({ code: 'custom', path: ['capturedAt'], message: when });
+    if (v.supersedesId && !v.correctionReason) {
+      ctx.addIssue({ code: 'custom', path: ['correctionReason'], message: 'Say why the earlier record is being corrected.' });
+    }
+  });
+export type RecordInspectionInput = z.infer<typeof RecordInspectionInput>;
+/** What the form builds before parsing (defaults not yet applied). */
+export type RecordInspectionDraft = z.input<typeof RecordInspectionInput>;
+
+/**
+ * The capture time must lie between 14 days ago and 5 minutes ahead of the checking clock (a
+ * record may wait offline, but not for weeks). A retry of a stored record is answered from its
+ * key before this check runs, so it is never refused for its age.
+ */
+export function checkCapturedAt(capturedAtIso: string, now = Date.now()): string | null {
+  const t = Date.parse(capturedAtIso);
+  if (Number.isNaN(t)) return 'Give the time of the inspection as an ISO date and time.';
+  if (t > now + MAX_FUTURE_MS) return 'The time is more than 5 minutes in the future: check the phone’s clock.';
+  if (t < now - MAX_AGE_MS) return 'The time is more than 14 days ago: such a record cannot be sent now.';
+  return null;
+}
+
+export const RequestReinspectionInput = z.object({
+  entryIds: z.array(uuid('an entry'), { error: 'Choose the entries to re-inspect.' }).min(1, 'Choose at least one entry.').max(60, 'Choose at most 60 entries at once.'),
+  reason: text('the reason', 500).min(3, 'Say why (for example “top three, heat 2”).'),
+});
+export type RequestReinspectionInput = z.infer<typeof RequestReinspectionInput>;
+
+export const AddInstrumentInput = z
+  .object({
+    name: text('the instrument’s name', 120).min(2, 'Name the instrument (at least 2 characters).'),
+    quantity: z.enum(['length', 'mass'], { error: 'Choose what it measures: length (mm) or mass (kg).' }),
+    errorLimit: optionalNum('the error limit', 'mm or kg').pipe(z.number().min(0, 'The error limit cannot be negative.').max(100, 'Keep the error limit at or below 100.').nullable()),
+    resolution: optionalNum('the resolution', 'mm or kg').pipe(z.number().min(0, 'The resolution cannot be negative.').max(100, 'Keep the resolution at or below 100.').nullable()),
+    expandedUncertainty: optionalNum('the expanded uncertainty U', 'mm or kg').pipe(z.number().min(0, 'U cannot be negative.').max(100, 'Keep U at or below 100.').nullable()),
+  })
+  .superRefine((v, ctx) => {
+    if (v.errorLimit == null && v.resolution == null && v.expandedUncertainty == null) {
+      ctx.addIssue({ code: 'custom', path: ['errorLimit'], message: 'Give the error limit and resolution, or the certificate’s U.' });
+    }
+  });
+export type AddInstrumentInput = z.infer<typeof AddInstrumentInput>;
+
+export const BOARD_RESULT_FILTERS = ['waiting', 'conforms', 'does_not_conform', 'inconclusive', 'reinspection'] as const;
+export type BoardResultFilter = (typeof BOARD_RESULT_FILTERS)[number];

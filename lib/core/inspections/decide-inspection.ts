@@ -1,0 +1,299 @@
+// The verdict of one inspection, rule by rule, against the class rules in force. Framework-free
+// (relative imports, no server-only): the server decides with it, the dock screen uses it for a
+// provisional verdict while offline, and unit tests call it directly.
+//
+// Decisive values and uncertainties:
+//   nozzle  — each two-point reading, corrected to the 20 °C reference temperature (ISO 1:2022)
+//             when the temperature and material are given; the largest counts against a maximum,
+//             the smallest against a minimum (ISO 14405-1:2016, via evaluateConformity).
+//             U from the instrument's budget (a/√3 and δ/√12 in quadrature, k = 2; JCGM 100:2008
+//             4.3.7, F.2.2.1, 6.2.1), else the U typed on the form, else the class default.
+//   weight  — the MEAN of the weighings. A boat's mass is one quantity, unlike the local sizes of
+//             a nozzle exit, so repeated weighings are repeat observations of it and their mean is
+//             the best estimate (JCGM 100:2008, 4.2.1). Their spread is counted: U = 2·√((U_scale/2)²
+//             + s²/n) with s the sample standard deviation (4.2.2, 4.2.3). Not weighed: inconclusive.
+//   power   — the figure the scrutineer confirmed (declared, or from the evidence seen) against the
+//             band with the class's power uncertainty; without evidence seen, conformity is not shown.
+//   safety  — each item the class requires must be ticked as present; an unticked one does not conform.
+// The overall result is the worst: does_not_conform > inconclusive > conforms.
+// A targeted re-inspection (a protest's re-check of the nozzle, say) decides only the checks it
+// was ordered to make: the others are left out, not called inconclusive (`scope`).
+// Each value says what kind it is: measured at the dock, confirmed against evidence seen, or
+// only declared by the entrant (`valueKind`).
+
+import { evaluateConformity, formatMm, type DecisionRule, type Verdict } from '../engine/conformity';
+import { computeUncertaintyBudget, correctLengthToReferenceTemperatureMm } from '../engine/measurement';
+import { EngineInputError } from '../engine/engine-input-error';
+import { SAFETY_ITEMS, type SafetyItem } from '../constants';
+import { formatFigure } from '../entries/check-declaration';
+import type { ClassRules } from '../inputs/class-rules';
+import type { RecordInspectionInput } from '../inputs/inspections';
+
+/** What a re-inspection can be ordered to check; null scope means everything. */
+export const CHECK_AREAS = ['nozzle', 'weight', 'power', 'safety'] as const;
+export type CheckArea = (typeof CHECK_AREAS)[number];
+export const CHECK_AREA_LABELS: Record<CheckArea, string> = {
+  nozzle: 'nozzle exit diameter',
+  weight: 'minimum weight',
+  power: 'engine power',
+  safety: 'safety equipment',
+};
+
+/**
+ * The checks a protest asked for, as decision areas. Seals decide nothing here; "something else"
+ * (or nothing named) cannot be narrowed, so the re-inspection decides everything (null).
+ */
+export function scopeFromRequestedChecks(requested: readonly string[] | null | undefined): CheckArea[] | null {
+  if (!requested || requested.length === 0 || requested.includes('other')) return null;
+  const map: Record<string, CheckArea> = { nozzle_diameter: 'nozzle', weight: 'weight', engine_power: 'power', safety_items: 'safety' };
+  const areas = CHECK_AREAS.filter((a) => requested.some((r) => map[r] === a));
+  return areas.length ? areas : null;
+}
+
+export type ValueKind = 'measured' | 'confirmed' | 'declared';
+
+export type RuleKey = 'nozzle_max' | 'nozzle_min' | 'weight_min' | 'power_band' | `safety:${SafetyItem}`;
+
+export type RuleResult = {
+  rule: RuleKey;
+  label: string;
+  /** The value the verdict was decided on (null for safety items and for what was not measured). */
+  decisiveValue: number | null;
+  unit: 'mm' | 'kg' | 'kW' | null;
+  /** The specification limit that governs (for the power band, the side that decided). */
+  limit: number | null;
+  acceptanceLimit: number | null;
+  /** ISO 14253-1 only: beyond it non-conformity is proven. */
+  rejectionLimit: number | null;
+  expandedUncertainty: number | null;
+  verdict: Verdict;
+  explanation: string;
+  measured: boolean;
+  /** measured at the dock, confirmed against evidence seen, or declared only (null: nothing to weigh, or a safety tick). */
+  valueKind?: ValueKind | null;
+};
+
+export type InstrumentFigures = {
+  id: string;
+  name: string;
+  quantity: 'length' | 'mass';
+  errorLimit: number | null;
+  resolution: number | null;
+  expandedUncertainty: number | null;
+};
+
+export type InspectionDecision = {
+  rules: RuleResult[];
+  overall: Verdict;
+  nozzle: { correctedReadingsMm: number[]; temperatureCorrected: boolean; expandedUncertaintyMm: number; uncertaintyBasis: string };
+  weight: { meanKg: number; expandedUncertaintyKg: number; uncertaintyBasis: string } | null;
+  /** The checks decided (null: all of them). */
+  scope: CheckArea[] | null;
+};
+
+export type DecideInput = {
+  input: Pick<RecordInspectionInput, 'nozzle' | 'weight' | 'power' | 'safety'>;
+  rules: ClassRules;
+  nozzleInstrument?: InstrumentFigures | null;
+  weightInstrument?: InstrumentFigures | null;
+  /** A targeted re-inspection: decide only these checks (null or absent: all). */
+  scope?: readonly CheckArea[] | null;
+};
+
+const RANK: Record<Verdict, number> = { conforms: 0, inconclusive: 1, does_not_conform: 2 };
+export const worstVerdict = (verdicts: Verdict[]): Verdict =>
+  verdicts.reduce<Verdict>((w, v) => (RANK[v] > RANK[w] ? v : w), 'conforms');
+
+export const MEASURE_AGAIN = 'Measure again with a better instrument (a smaller U) to decide.';
+
+/** U of an instrument: its certificate's U, or its budget from a and δ (JCGM 100:2008, k = 2). */
+export function instrumentUncertainty(i: InstrumentFigures, unit: 'mm' | 'kg'): { expandedUncertainty: number; basis: string } {
+  if (i.expandedUncertainty != null) return { expandedUncertainty: i.expandedUncertainty, basis: `${i.name}: certificate U ${formatFigure(i.expandedUncertainty, 2)} ${unit}` };
+  const b = computeUncertaintyBudget({ errorLimitMm: i.errorLimit ?? 0, resolutionMm: i.resolution ?? 0 });
+  const parts = [i.errorLimit != null && `a ${formatFigure(i.errorLimit, 2)}`, i.resolution != null && `δ ${formatFigure(i.resolution, 2)}`].filter(Boolean).join(', ');
+  return { expandedUncertainty: b.expandedUncertaintyMm, basis: `${i.name} (${parts} ${unit}): U = 2·√(a²/3 + δ²/12) = ${b.expandedUncertaintyMm.toFixed(4)} ${unit}` };
+}
+
+function withAsk(explanation: string, verdict: Verdict): string {
+  return verdict === 'inconclusive' && !/measure again with a better instrument/i.test(explanation) ? `${explanation} ${MEASURE_AGAIN}` : explanation;
+}
+
+/** Wording for a limit on kg or kW (the engine's own wording speaks of mm readings). */
+function explainLimit(o: { what: string; value: number; unit: string; side: 'max' | 'min'; limit: number; u: number; rule: DecisionRule; verdict: Verdict }): string {
+  const f = (x: number) => `${formatFigure(x, o.unit === 'kW' ? 0 : 1)} ${o.unit}`;
+  const limit = `the ${o.side === 'max' ? 'maximum' : 'minimum'} ${f(o.limit)}`;
+  const beyond = o.side === 'max' ? 'is above' : 'is below';
+  const notBeyond = o.side === 'max' ? 'is not above' : 'is not below';
+  const value = `${o.what} ${f(o.value)}`;
+  if (o.rule === 'simple') return `${value} ${o.verdict === 'conforms' ? notBeyond : beyond} ${limit} (simple acceptance): ${o.verdict === 'conforms' ? 'conforms' : 'does not conform'}.`;
+  if (o.rule === 'guarded') {
+    const acc = f(o.side === 'max' ? o.limit - o.u : o.limit + o.u);
+    return `${value} ${o.verdict === 'conforms' ? notBeyond : beyond} the acceptance limit ${acc} (${limit} ${o.side === 'max' ? 'less' : 'plus'} U ${f(o.u)}, guarded acceptance): ${o.verdict === 'conforms' ? 'conforms' : 'does not conform'}.`;
+  }
+  if (o.verdict === 'conforms') return `${value} is inside ${limit} by at least U ${f(o.u)}: conformity proven (ISO 14253-1).`;
+  if (o.verdict === 'does_not_conform') return `${value} ${beyond} ${limit} by more than U ${f(o.u)}: non-conformity proven (ISO 14253-1).`;
+  return `${value} is within U ${f(o.u)} of ${limit}: neither conformity nor non-conformity proven (ISO 14253-1).`;
+}
+
+function decideNozzle(d: DecideInput, isDecided = true): { results: RuleResult[]; nozzle: InspectionDecision['nozzle'] } {
+  const { nozzle } = d.input;
+  const { rules } = d;
+  if (isDecided && nozzle.readings.length < rules.nozzle.minReadings) {
+    throw new EngineInputError('nozzle.readings', `The class rules ask for at least ${rules.nozzle.minReadings} readings around the exit; ${nozzle.readings.length} given.`);
+  }
+  const temperatureCorrected = nozzle.temperatureC != null && nozzle.material != null;
+  const correctedReadingsMm = nozzle.readings.map((r) =>
+    temperatureCorrected ? correctLengthToReferenceTemperatureMm({ lengthMm: r.diameterMm, temperatureC: nozzle.temperatureC!, material: nozzle.material! }) : r.diameterMm,
+  );
+  let u: { expandedUncertainty: number; basis: string };
+  if (d.nozzleInstrument) {
+    if (d.nozzleInstrument.quantity !== 'length') throw new EngineInputError('nozzle.instrumentId', `${d.nozzleInstrument.name} weighs; choose an instrument that measures length.`);
+    u = instrumentUncertainty(d.nozzleInstrument, 'mm');
+  } else if (nozzle.expandedUncertaintyMm != null) {
+    u = { expandedUncertainty: nozzle.expandedUncertaintyMm, basis: `U ${formatMm(nozzle.expandedUncertaintyMm)} mm as entered` };
+  } else {
+    u = { expandedUncertainty: rules.nozzle.defaultUncertaintyMm, basis: `the class default U ${formatMm(rules.nozzle.defaultUncertaintyMm)} mm (no instrument chosen)` };
+  }
+  const note = temperatureCorrected
+    ? ` Readings corrected from ${nozzle.temperatureC} °C to 20 °C (${nozzle.material?.replace('_', ' ')}, ISO 1:2022).`
+    : nozzle.temperatureC != null
+      ? ' Not corrected for temperature: the nozzle material was not given.'
+      : '';
+  const results: RuleResult[] = [];
+  for (const side of ['max', 'min'] as const) {
+    const limit = side === 'max' ? rules.nozzle.maxMm : rules.nozzle.minMm;
+    if (limit == null) continue;
+    const r = evaluateConformity({ readingsMm: correctedReadingsMm, ...(side === 'max' ? { maxMm: limit } : { minMm: limit }), expandedUncertaintyMm: u.expandedUncertainty, rule: rules.decisionRule });
+    const check = r.checks[0];
+    results.push({
+      rule: side === 'max' ? 'nozzle_max' : 'nozzle_min',
+      label: side === 'max' ? 'Nozzle exit diameter, maximum' : 'Nozzle exit diameter, minimum',
+      decisiveValue: check.decisiveValueMm,
+      unit: 'mm',
+      limit,
+      acceptanceLimit: check.acceptanceLimitMm,
+      rejectionLimit: check.rejectionLimitMm,
+      expandedUncertainty: u.expandedUncertainty,
+      verdict: check.verdict,
+      explanation: withAsk(`${check.explanation}${note} Uncertainty: ${u.basis}.`, check.verdict),
+      measured: true,
+      valueKind: 'measured',
+    });
+  }
+  return { results, nozzle: { correctedReadingsMm, temperatureCorrected, expandedUncertaintyMm: u.expandedUncertainty, uncertaintyBasis: u.basis } };
+}
+
+function sideCheck(value: number, side: 'max' | 'min', limit: number, u: number, rule: DecisionRule) {
+  return evaluateConformity({ readingsMm: [value], ...(side === 'max' ? { maxMm: limit } : { minMm: limit }), expandedUncertaintyMm: u, rule }).checks[0];
+}
+
+function decideWeight(d: DecideInput): { result: RuleResult | null; weight: InspectionDecision['weight'] } {
+  const { rules } = d;
+  const minKg = rules.weight.minKg;
+  if (minKg == null) return { result: null, weight: null };
+  const basisWords = rules.weight.includesDriver ? 'with driver' : 'without driver';
+  const label = `Weight (${basisWords}), minimum`;
+  const w = d.input.weight;
+  if (!w || w.readingsKg.length === 0) {
+    const explanation = `Not weighed: the class minimum is ${formatFigure(minKg, 1)} kg (${basisWords}). Weigh the boat to decide.`;
+    return { result: { rule: 'weight_min', label, decisiveValue: null, unit: 'kg', limit: minKg, acceptanceLimit: null, rejectionLimit: null, expandedUncertainty: null, verdict: 'inconclusive', explanation, measured: false, valueKind: null }, weight: null };
+  }
+  let scale: { expandedUncertainty: number; basis: string };
+  if (d.weightInstrument) {
+    if (d.weightInstrument.quantity !== 'mass') throw new EngineInputError('weight.instrumentId', `${d.weightInstrument.name} measures length; choose a scale.`);
+    scale = instrumentUncertainty(d.weightInstrument, 'kg');
+  } else {
+    scale = { expandedUncertainty: rules.weight.defaultUncertaintyKg, basis: `the class default U ${formatFigure(rules.weight.defaultUncertaintyKg, 1)} kg (no scale chosen)` };
+  }
+  const n = w.readingsKg.length;
+  const meanKg = w.readingsKg.reduce((a, b) => a + b, 0) / n;
+  const s = n > 1 ? Math.sqrt(w.readingsKg.reduce((a, x) => a + (x - meanKg) ** 2, 0) / (n - 1)) : 0;
+  // JCGM 100:2008: u = U/k for the scale (k = 2), s/√n for the mean of n weighings, in quadrature, then k = 2.
+  const expandedUncertaintyKg = 2 * Math.hypot(scale.expandedUncertainty / 2, n > 1 ? s / Math.sqrt(n) : 0);
+  const basis = n > 1 ? `${scale.basis}, with the spread of ${n} weighings (s ${s.toFixed(2)} kg): U ${expandedUncertaintyKg.toFixed(2)} kg` : scale.basis;
+  const check = sideCheck(meanKg, 'min', minKg, expandedUncertaintyKg, rules.decisionRule);
+  const what = n > 1 ? `Mean of ${n} weighings` : 'Weighing';
+  const explanation = `${explainLimit({ what, value: meanKg, unit: 'kg', side: 'min', limit: minKg, u: expandedUncertaintyKg, rule: rules.decisionRule, verdict: check.verdict })} Uncertainty: ${basis}.`;
+  return {
+    result: {
+      rule: 'weight_min', label, decisiveValue: meanKg, unit: 'kg', limit: minKg, acceptanceLimit: check.acceptanceLimitMm, rejectionLimit: check.rejectionLimitMm,
+      expandedUncertainty: expandedUncertaintyKg, verdict: check.verdict, explanation: withAsk(explanation, check.verdict), measured: true, valueKind: 'measured',
+    },
+    weight: { meanKg, expandedUncertaintyKg, uncertaintyBasis: basis },
+  };
+}
+
+function decidePower(d: DecideInput): RuleResult | null {
+  const { rules } = d;
+  const { declaredKw, evidenceSeen } = d.input.power;
+  const u = rules.power.defaultUncertaintyKw;
+  const sides = ([['min', rules.power.minKw], ['max', rules.power.maxKw]] as const).filter((s): s is readonly ['min' | 'max', number] => s[1] != null);
+  if (sides.length === 0) return null;
+  const checks = sides.map(([side, limit]) => ({ side, limit, check: sideCheck(declaredKw, side, limit, u, rules.decisionRule) }));
+  // The side that decides: the worst verdict (on a tie, the maximum, as evaluateConformity does).
+  const governing = checks.reduce((g, c) => (RANK[c.check.verdict] > RANK[g.check.verdict] || (RANK[c.check.verdict] === RANK[g.check.verdict] && c.side === 'max') ? c : g));
+  const band = sides.length === 2 ? `band ${formatFigure(rules.power.minKw!)}–${formatFigure(rules.power.maxKw!)} kW` : `${sides[0][0] === 'max' ? 'maximum' : 'minimum'} ${formatFigure(sides[0][1])} kW`;
+  let verdict = governing.check.verdict;
+  let explanation = `${explainLimit({ what: 'Power', value: declaredKw, unit: 'kW', side: governing.side, limit: governing.limit, u, rule: rules.decisionRule, verdict })} Class ${band}, U ${formatFigure(u)} kW.`;
+  if (!evidenceSeen && verdict !== 'does_not_conform') {
+    verdict = 'inconclusive';
+    explanation = `${explanation} No evidence was seen (dyno sheet or maker’s rating), so conformity is not shown: ask for the evidence or measure again with a better instrument (a dyno run).`;
+  }
+  // Power is not measured at the dock: the figure is confirmed against the evidence seen, or only declared.
+  const valueKind: ValueKind = evidenceSeen ? 'confirmed' : 'declared';
+  return {
+    rule: 'power_band', label: 'Engine power', decisiveValue: declaredKw, unit: 'kW', limit: governing.limit,
+    acceptanceLimit: governing.check.acceptanceLimitMm, rejectionLimit: governing.check.rejectionLimitMm, expandedUncertainty: u,
+    verdict, explanation: withAsk(explanation, verdict), measured: true, valueKind,
+  };
+}
+
+function decideSafety(d: DecideInput): RuleResult[] {
+  return d.rules.safetyItems.map((item) => {
+    const key = item as SafetyItem;
+    const ok = d.input.safety?.[key] === true;
+    return {
+      rule: `safety:${key}` as RuleKey,
+      label: SAFETY_ITEMS[key] ?? key,
+      decisiveValue: null, unit: null, limit: null, acceptanceLimit: null, rejectionLimit: null, expandedUncertainty: null,
+      verdict: ok ? 'conforms' : 'does_not_conform',
+      explanation: ok
+        ? `${SAFETY_ITEMS[key]}: checked as present and working.`
+        : `${SAFETY_ITEMS[key]}: not ticked as present and working. The class requires it; the boat does not conform until it is fitted and checked.`,
+      measured: ok,
+      valueKind: null,
+    } satisfies RuleResult;
+  });
+}
+
+/** Every rule's verdict and the overall result. Throws EngineInputError (field named) on input the class refuses. */
+export function decideInspection(d: DecideInput): InspectionDecision {
+  const scope = d.scope && d.scope.length ? [...d.scope] : null;
+  const decides = (area: CheckArea) => !scope || scope.includes(area);
+  const { results: nozzleResults, nozzle } = decideNozzle(d, decides('nozzle'));
+  const { result: weightResult, weight } = decideWeight(d);
+  const power = decidePower(d);
+  // The same maths for every check; a targeted re-inspection keeps only the checks it was ordered to make.
+  const rules = [
+    ...(decides('nozzle') ? nozzleResults : []),
+    ...(weightResult && decides('weight') ? [weightResult] : []),
+    ...(power && decides('power') ? [power] : []),
+    ...(decides('safety') ? decideSafety(d) : []),
+  ];
+  return { rules, overall: worstVerdict(rules.map((r) => r.verdict)), nozzle, weight: decides('weight') ? weight : null, scope };
+}
+
+/** "Re-inspection of the nozzle exit diameter only" — the words for a scope, or null for a full inspection. */
+export function describeScope(scope: readonly CheckArea[] | null | undefined): string | null {
+  if (!scope || scope.length === 0) return null;
+  const names = scope.map((a) => CHECK_AREA_LABELS[a]);
+  const list = names.length === 1 ? names[0] : `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}`;
+  return `This re-inspection was ordered to check the ${list} only; nothing else is decided by it (earlier records stand for the rest).`;
+}
+
+/** Words for a verdict, the same everywhere (never colour alone). */
+export const VERDICT_WORDS: Record<Verdict, string> = {
+  conforms: 'Conforms',
+  does_not_conform: 'Does not conform',
+  inconclusive: 'Inconclusive',
+};

@@ -1,0 +1,83 @@
+import 'server-only';
+import { cookies } from 'next/headers';
+import { getToken } from 'next-auth/jwt';
+import { getAuthOptions } from './options';
+import { QueryTypes } from 'sequelize';
+import { getDb } from '@/lib/server/db';
+import { rolesCan, type Permission, type Role } from '../../core/auth/permissions';
+import { AppError } from '@/lib/core/errors';
+
+// The signed-in person as every data-access function sees them: roles are read fresh from
+// the database on each request, so a revoked staff role stops working at once.
+export type Actor = {
+  id: string;
+  email: string;
+  name: string | null;
+  isAdmin: boolean;
+  isAddressProven: boolean; // the owner followed a link sent to the address (lib/server/accounts/prove-address.ts)
+  eventRoles: Record<string, Role[]>;
+  organiserOf: string[]; // organisation ids where the person may create events
+};
+
+export async function loadActor(userId: string, sessionVersion: number): Promise<Actor | null> {
+  // One round trip: this runs for every signed-in request. A suspended account has no actor, and a
+  // session issued under an earlier session version is over (lib/server/auth/sessions.ts), so sign-out,
+  // a password change or a suspension stop every open session at once.
+  const [row] = await getDb().sequelize.query<{
+    id: string; email: string; name: string | null; isAdmin: boolean; isAddressProven: boolean; staff: { eventId: string; role: Role }[]; organiserOf: string[];
+  }>(
+    `select u.id, u.email, u.name, u.is_admin as "isAdmin", u.email_verified is not null as "isAddressProven",
+            coalesce((select json_agg(json_build_object('eventId', s.event_id, 'role', s.role)) from event_staff s where s.user_id = u.id), '[]') as staff,
+            coalesce((select json_agg(m.organisation_id) from organisation_members m where m.user_id = u.id and m.role = 'organiser'), '[]') as "organiserOf"
+       from users u where u.id = :userId and u.suspended_at is null and u.session_version = :sessionVersion`,
+    { replacements: { userId, sessionVersion }, type: QueryTypes.SELECT },
+  );
+  if (!row) return null;
+  const eventRoles: Record<string, Role[]> = {};
+  for (const s of row.staff) (eventRoles[s.eventId] ??= []).push(s.role);
+  return { id: row.id, email: row.email, name: row.name, isAdmin: row.isAdmin, isAddressProven: row.isAddressProven, eventRoles, organiserOf: row.organiserOf };
+}
+
+/**
+ * The person behind this request's session cookie. Only the cookie is read (next-auth's getToken
+ * decrypts and checks its expiry): getServerSession would also re-sign a fresh token on every call,
+ * which a server component or route handler cannot even send back, at a key derivation and an
+ * encryption per request. A Bearer header is not accepted: sessions are cookies only.
+ */
+export async function getActor(): Promise<Actor | null> {
+  const jar = await cookies();
+  const token = await getToken({
+    req: { cookies: Object.fromEntries(jar.getAll().map((c) => [c.name, c.value])), headers: {} } as never,
+    secret: getAuthOptions().secret,
+  });
+  const id = typeof token?.uid === 'string' ? token.uid : null;
+  // A token from before session versions counts as version 0.
+  const version = typeof token?.sv === 'number' && Number.isInteger(token.sv) ? token.sv : 0;
+  return id ? loadActor(id, version) : null;
+}
+
+/** Roles a person holds in a scope: everyone signed in is an entrant; staff roles are per event. */
+export function rolesOf(actor: Actor, scope: { eventId?: string; organisationId?: string } = {}): Role[] {
+  const roles: Role[] = ['entrant'];
+  if (actor.isAdmin) roles.push('admin');
+  if (scope.eventId) roles.push(...(actor.eventRoles[scope.eventId] ?? []));
+  if (scope.organisationId && actor.organiserOf.includes(scope.organisationId)) roles.push('organiser');
+  return roles;
+}
+
+/** Every role the person holds anywhere (for navigation only; never for a permission check). */
+export function allRolesOf(actor: Actor): Role[] {
+  const set = new Set<Role>(rolesOf(actor));
+  for (const roles of Object.values(actor.eventRoles)) roles.forEach((r) => set.add(r));
+  if (actor.organiserOf.length) set.add('organiser');
+  return [...set];
+}
+
+export function can(actor: Actor | null, permission: Permission, scope: { eventId?: string; organisationId?: string } = {}) {
+  return !!actor && rolesCan(rolesOf(actor, scope), permission);
+}
+
+export function assertCan(actor: Actor | null, permission: Permission, scope: { eventId?: string; organisationId?: string } = {}): asserts actor is Actor {
+  if (!actor) throw new AppError('unauthenticated', 401, 'Sign in to do this.');
+  if (!can(actor, permission, scope)) throw new AppError('forbidden', 403, 'You are not allowed to do this.');
+}

@@ -1,0 +1,47 @@
+import 'server-only';
+import { randomBytes } from 'node:crypto';
+import { getDb } from '@/lib/server/db';
+import { assertCan, type Actor } from '@/lib/server/auth/actor';
+import { AppError } from '@/lib/core/errors';
+import { CreateEventInput, EventInput } from '@/lib/core/inputs/events';
+import { toEventDto } from './event-dto';
+
+const slugify = (name: string) =>
+  name.toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 60) || 'meeting';
+
+/** An organiser of a club creates a meeting and becomes its organiser. */
+export async function createEvent(actor: Actor | null, raw: unknown) {
+  // Refuse people who organise nowhere before reading their input; then check the named club.
+  if (!actor) throw new AppError('unauthenticated', 401, 'Sign in to do this.');
+  if (!actor.isAdmin && actor.organiserOf.length === 0) throw new AppError('forbidden', 403, 'You are not allowed to do this.');
+  const input = CreateEventInput.parse(raw);
+  assertCan(actor, 'event.create', { organisationId: input.organisationId });
+  const { sequelize, models } = getDb();
+  return sequelize.transaction(async (transaction) => {
+    const { organisationId, ...fields } = input;
+    const event = await models.Event.create(
+      { ...fields, organisationId, slug: `${slugify(input.name)}-${randomBytes(3).toString('hex')}` },
+      { transaction },
+    );
+    await models.EventStaff.create({ eventId: event.id, userId: actor.id, role: 'organiser' }, { transaction });
+    return toEventDto(event);
+  });
+}
+
+/** The event's organiser edits its details. */
+export async function updateEvent(actor: Actor | null, eventId: string, raw: unknown) {
+  assertCan(actor, 'event.edit', { eventId });
+  const input = EventInput.parse(raw);
+  const event = await getDb().models.Event.findByPk(eventId);
+  if (!event) throw new AppError('not_found', 404, 'No such event.');
+  await event.update(input);
+  return toEventDto(event);
+}
+
+/** One event for its organiser (403 for anyone else, 404 if it does not exist). */
+export async function getEventForOrganiser(actor: Actor | null, eventId: string) {
+  assertCan(actor, 'event.edit', { eventId });
+  const event = await getDb().models.Event.findByPk(eventId);
+  if (!event) throw new AppError('not_found', 404, 'No such event.');
+  return toEventDto(event);
+}

@@ -1,0 +1,207 @@
+import 'server-only';
+import { z } from 'zod';
+import { QueryTypes } from 'sequelize';
+import { after } from 'next/server';
+import { getDb } from '@/lib/server/db';
+import { assertCan, type Actor } from '@/lib/server/auth/actor';
+import { AppError, fieldError } from '@/lib/core/errors';
+import type { ClassRules } from '@/lib/core/inputs/class-rules';
+import { sendMail } from '@/lib/server/mail/send';
+import { RecordInspectionInput } from '@/lib/core/inputs/inspections';
+import { decideInspection, describeScope, scopeFromRequestedChecks, VERDICT_WORDS, type CheckArea, type InstrumentFigures, type InspectionDecision } from '../../core/inspections/decide-inspection';
+import { currentInspectionCte, loadInspectionViews, type InspectionView } from './inspection-view';
+
+type EntryRow = {
+  id: string; entrantId: string; raceNumber: number; status: string; classId: string; boatId: string; ownerId: string;
+  boatName: string; boatDeclaredKw: number; boatPowerEvidence: string; className: string; eventName: string;
+  entrantEmail: string;
+  /** The class's published rule versions, newest first; effectiveFromMs rounded up to the millisecond. */
+  publishedVersions: { id: string; version: number; effectiveFromMs: number; rules: ClassRules }[] | null;
+};
+
+async function findInstrument(eventId: string, id: string | null, quantity: 'length' | 'mass', field: string): Promise<InstrumentFigures | null> {
+  if (!id) return null;
+  const i = await getDb().models.Instrument.findOne({ where: { id, eventId, retiredAt: null } });
+  if (!i) throw fieldError(field, 'This instrument is not on this meeting’s list.');
+  if (i.quantity !== quantity) throw fieldError(field, quantity === 'length' ? `${i.name} is a scale: choose a length instrument.` : `${i.name} measures length: choose a scale.`);
+  return { id: i.id, name: i.name, quantity: i.quantity, errorLimit: i.errorLimit ?? null, resolution: i.resolution ?? null, expandedUncertainty: i.expandedUncertainty ?? null };
+}
+
+/** The stored record for a key; a key used at another meeting is a conflict, never a leak. */
+async function findByKey(eventId: string, key: string): Promise<InspectionView | null> {
+  const [found] = await loadInspectionViews('i.idempotency_key = :key', { key });
+  if (found && found.eventId !== eventId) throw new AppError('key_in_use', 409, 'This record key was already used for another meeting’s record; make a new record.');
+  return found ?? null;
+}
+
+// The entry with its boat, class, meeting and entrant in one round trip (this runs for every record
+// sent), and whether the record's key is already stored, so a new record costs no extra query.
+async function loadEntry(eventId: string, entryId: string, key: string | null) {
+  const [row] = await getDb().sequelize.query<EntryRow & { keyEventId: string | null }>(
+    `select e.id, e.entrant_id as "entrantId", e.race_number as "raceNumber", e.status, e.class_id as "classId", e.boat_id as "boatId",
+            b.owner_id as "ownerId", b.name as "boatName", b.declared_power_kw as "boatDeclaredKw", b.power_evidence as "boatPowerEvidence",
+            c.name as "className", ev.name as "eventName", u.email as "entrantEmail",
+            (select i.event_id from inspections i where i.idempotency_key = :key) as "keyEventId",
+            (select json_agg(json_build_object('id', v.id, 'version', v.version, 'rules', v.rules,
+                                               'effectiveFromMs', ceil(extract(epoch from v.effective_from) * 1000))
+                             order by v.effective_from desc, v.version desc)
+               from class_rule_versions v where v.class_id = e.class_id and v.status = 'published' and v.effective_from is not null) as "publishedVersions"
+       from entries e join boats b on b.id = e.boat_id join race_classes c on c.id = e.class_id join events ev on ev.id = e.event_id
+            join users u on u.id = e.entrant_id
+      where e.id = :entryId and e.event_id = :eventId`,
+    { replacements: { entryId, eventId, key }, type: QueryTypes.SELECT },
+  );
+  return row as (EntryRow & { keyEventId: string | null }) | undefined;
+}
+
+async function mailEntrant(entry: EntryRow, decision: InspectionDecision) {
+  const { entrantEmail, boatName, raceNumber, eventName } = entry;
+  const lines = decision.rules.map((r) => `- ${r.label}: ${VERDICT_WORDS[r.verdict].toLowerCase()}. ${r.explanation}`);
+  try {
+    await sendMail({
+      to: entrantEmail,
+      subject: `${boatName} (no. ${raceNumber}): inspection result ${VERDICT_WORDS[decision.overall].toLowerCase()}`,
+      text: [
+        `${boatName} was inspected at ${eventName}. Overall: ${VERDICT_WORDS[decision.overall].toLowerCase()}.`,
+        ...(describeScope(decision.scope) ? [describeScope(decision.scope)!] : []),
+        '',
+        ...lines,
+        '',
+        'Safety first: Boreline supports the checks; it never replaces them. The governing body’s rules, local regulations and the judgement of licensed officials decide every verdict and every safety matter. Ask the chief scrutineer about this result.',
+      ].join('\n'),
+    });
+  } catch (err) {
+    // The record is stored whatever the mail relay does; the entrant also sees the result on their entries page.
+    console.error('[boreline] inspection result mail failed', err);
+  }
+}
+
+/**
+ * Records one inspection of an entry at the event, decided against the class rule version in force
+ * when it was captured. Idempotent by the device-made key: the same key again returns the stored
+ * record (created: false). Records are append-only; a correction is a new record that supersedes.
+ */
+export async function recordInspection(actor: Actor | null, eventId: string, raw: unknown): Promise<{ inspection: InspectionView; created: boolean }> {
+  assertCan(actor, 'inspection.record', { eventId });
+  const { models, sequelize } = getDb();
+  // A retry (the answer was lost, or the phone sent twice) gets the stored record back at once,
+  // before the input is checked again (an offline record may be older than a new one may be).
+  const key = z.uuid().safeParse((raw as { idempotencyKey?: unknown } | null)?.idempotencyKey);
+  const entryGuess = z.uuid().safeParse((raw as { entryId?: unknown } | null)?.entryId);
+  let entry = entryGuess.success ? await loadEntry(eventId, entryGuess.data.toLowerCase(), key.success ? key.data.toLowerCase() : null) : undefined;
+  if (key.success && (!entry || entry.keyEventId)) {
+    const existing = await findByKey(eventId, key.data.toLowerCase());
+    if (existing) return { inspection: existing, created: false };
+  }
+  const input = RecordInspectionInput.parse(raw);
+  const idempotencyKey = input.idempotencyKey.toLowerCase();
+  if (entry && entry.id !== input.entryId.toLowerCase()) entry = await loadEntry(eventId, input.entryId.toLowerCase(), null);
+  if (!entry) throw fieldError('entryId', 'No such entry at this meeting.');
+  // Separation of duties: nobody inspects a boat they entered or own, whatever their staff roles.
+  if (entry.entrantId === actor.id || entry.ownerId === actor.id) {
+    throw new AppError('own_boat', 403, 'You cannot inspect a boat you entered or own: ask another scrutineer.');
+  }
+  if (entry.status === 'withdrawn' || entry.status === 'cancelled') {
+    throw new AppError('entry_not_live', 409, `Race number ${entry.raceNumber} is ${entry.status}: it is not inspected.`);
+  }
+
+  let measuredAt = new Date(input.capturedAt);
+  if (input.supersedesId) {
+    const original = await models.Inspection.findOne({ where: { id: input.supersedesId, entryId: entry.id } });
+    if (!original) throw fieldError('supersedesId', 'Only an earlier record of the same entry can be corrected.');
+    // A correction restates that inspection, so it is decided under the rules in force then.
+    measuredAt = original.capturedAt;
+  }
+  let scope: CheckArea[] | null = null;
+  if (input.reinspectionId) {
+    const task = await models.Reinspection.findOne({ where: { id: input.reinspectionId, eventId, entryId: entry.id } });
+    if (!task) throw fieldError('reinspectionId', 'This re-inspection task is not for this entry.');
+    // A protest's re-inspection decides only the checks the protest asked for.
+    if (task.protestId) {
+      const protest = await models.Protest.findByPk(task.protestId, { attributes: ['id', 'requestedChecks'] });
+      scope = scopeFromRequestedChecks(protest?.requestedChecks);
+    }
+  }
+  // The version in force when the boat was measured (as findRulesInForce picks it), from the versions
+  // that came with the entry: one query fewer per record. Published versions are frozen.
+  const ruleVersion = (entry.publishedVersions ?? []).find((v) => v.effectiveFromMs <= measuredAt.getTime()) ?? null;
+  if (!ruleVersion) {
+    throw new AppError('no_rules_in_force', 409, `No published rules of ${entry.className} were in force at ${measuredAt.toISOString()}: the organiser must publish the class rules before boats are inspected.`);
+  }
+  const [nozzleInstrument, weightInstrument] = await Promise.all([
+    findInstrument(eventId, input.nozzle.instrumentId, 'length', 'nozzle.instrumentId'),
+    findInstrument(eventId, input.weight?.instrumentId ?? null, 'mass', 'weight.instrumentId'),
+  ]);
+  // Throws EngineInputError naming the field (too few readings for this class): 400.
+  const decision = decideInspection({ input, rules: ruleVersion.rules, nozzleInstrument, weightInstrument, scope });
+
+  const measurements = {
+    nozzle: {
+      readings: input.nozzle.readings, instrumentId: input.nozzle.instrumentId, instrumentName: nozzleInstrument?.name ?? null,
+      typedExpandedUncertaintyMm: input.nozzle.expandedUncertaintyMm, temperatureC: input.nozzle.temperatureC, material: input.nozzle.material,
+      correctedReadingsMm: decision.nozzle.correctedReadingsMm, temperatureCorrected: decision.nozzle.temperatureCorrected,
+      appliedExpandedUncertaintyMm: decision.nozzle.expandedUncertaintyMm, uncertaintyBasis: decision.nozzle.uncertaintyBasis,
+    },
+    weight: input.weight ? { ...input.weight, instrumentName: weightInstrument?.name ?? null, ...decision.weight } : null,
+    power: { ...input.power, boatDeclaredKw: entry.boatDeclaredKw, boatPowerEvidence: entry.boatPowerEvidence },
+    seals: input.seals,
+    safety: input.safety,
+  };
+  const results = { rules: decision.rules, decisionRule: ruleVersion.rules.decisionRule, ruleVersion: ruleVersion.version, scope: decision.scope };
+
+  const inserted = await sequelize.transaction(async (transaction) => {
+    // One writer per entry at a time, so the entry's result always reflects every committed record:
+    // the insert first takes the entry's row lock (in the same statement, one round trip fewer), and
+    // the update below starts after it, so it sees every record committed before the lock was granted.
+    const rows = await sequelize.query<{ id: string; receivedAt: Date }>(
+      `with locked as (select id from entries where id = :entryId for update)
+       insert into inspections (event_id, entry_id, boat_id, class_id, rule_version_id, kind, recorded_by_id, device, idempotency_key,
+                                captured_at, supersedes_id, correction_reason, reinspection_id, measurements, results, overall_result, notes)
+       select :eventId, locked.id, :boatId, :classId, :ruleVersionId, :kind, :recordedById, :device, :idempotencyKey,
+              :capturedAt, :supersedesId, :correctionReason, :reinspectionId, :measurements::jsonb, :results::jsonb, :overall, :notes
+         from locked
+       on conflict (idempotency_key) do nothing
+       returning id, received_at as "receivedAt"`,
+      {
+        replacements: {
+          eventId, entryId: entry.id, boatId: entry.boatId, classId: entry.classId, ruleVersionId: ruleVersion.id, kind: input.kind,
+          recordedById: actor.id, device: input.device, idempotencyKey, capturedAt: new Date(input.capturedAt),
+          supersedesId: input.supersedesId, correctionReason: input.correctionReason, reinspectionId: input.reinspectionId,
+          measurements: JSON.stringify(measurements), results: JSON.stringify(results), overall: decision.overall, notes: input.notes,
+        },
+        type: QueryTypes.SELECT,
+        transaction,
+      },
+    );
+    if (rows.length === 0) return null; // the same key committed a moment ago by a parallel request
+    const { id } = rows[0];
+    // inspections are never updated; the entry carries the current record's result for quick reading.
+    await sequelize.query(
+      `with ${currentInspectionCte('entry')}
+       update entries set inspection_result = (select i.overall_result from inspections i join current_inspection c on c.id = i.id), updated_at = now()
+        where id = :entryId`,
+      { replacements: { entryId: entry.id }, transaction },
+    );
+    if (input.reinspectionId) {
+      await models.Reinspection.update({ inspectionId: id, doneAt: new Date() }, { where: { id: input.reinspectionId, doneAt: null }, transaction });
+    }
+    return rows[0];
+  });
+
+  if (!inserted) {
+    const existing = await findByKey(eventId, idempotencyKey);
+    if (!existing) throw new AppError('conflict', 409, 'The record could not be stored; send it again.');
+    return { inspection: existing, created: false };
+  }
+  // The entrant's e-mail goes out after the answer: the scrutineer at the dock never waits for SMTP.
+  after(() => mailEntrant(entry, decision));
+  // The new record as loadInspectionViews would read it, from what was just written (one query fewer per record).
+  const view: InspectionView = {
+    id: inserted.id, eventId, entryId: entry.id, boatId: entry.boatId, classId: entry.classId, ruleVersionId: ruleVersion.id,
+    ruleVersion: ruleVersion.version, kind: input.kind, recordedBy: { id: actor.id, name: actor.name ?? actor.email }, device: input.device,
+    idempotencyKey, capturedAt: new Date(input.capturedAt).toISOString(), receivedAt: new Date(inserted.receivedAt).toISOString(),
+    supersedesId: input.supersedesId, supersededById: null, correctionReason: input.correctionReason, reinspectionId: input.reinspectionId,
+    measurements, rules: decision.rules, overallResult: decision.overall, notes: input.notes, photoCount: 0,
+  };
+  return { inspection: view, created: true };
+}

@@ -1,0 +1,111 @@
+import 'server-only';
+import { getDb } from '@/lib/server/db';
+import { AppError } from '@/lib/core/errors';
+import { findRulesInForce } from '@/lib/server/classes/rule-versions';
+import { computeAreaEquivalentDiameterFromReadingsMm, correctLengthToReferenceTemperatureMm, type Material } from '@/lib/core/engine/measurement';
+import { currentInspectionCte } from '@/lib/server/inspections/inspection-view';
+import { resolveEventDensity } from '../../core/reports/event-density';
+import type { ReportBoatInput, ReportExcluded, ReportInputs } from '../../core/reports/parity-figures';
+
+type Row = {
+  entryId: string; raceNumber: number; boatName: string; declaredPowerKw: number; declaredNozzleMm: number;
+  inspectionId: string | null; receivedAt: Date | null; overallResult: string | null;
+  measurements: { nozzle?: { readings?: { diameterMm: number }[]; temperatureC?: number | null; material?: string | null }; power?: { evidenceSeen?: boolean } } | null;
+  results: unknown;
+};
+
+const RESULT_WORDS: Record<string, string> = { does_not_conform: 'does not conform', inconclusive: 'inconclusive' };
+
+/** The nozzle expanded uncertainty U the inspection decided with, if it recorded one. */
+function recordedNozzleU(results: unknown): number | null {
+  const list = Array.isArray(results) ? results : Array.isArray((results as { rules?: unknown[] })?.rules) ? (results as { rules: unknown[] }).rules : [];
+  for (const r of list as { rule?: string; expandedUncertainty?: number }[]) {
+    if (typeof r?.rule === 'string' && r.rule.startsWith('nozzle') && typeof r.expandedUncertainty === 'number') return r.expandedUncertainty;
+  }
+  return null;
+}
+
+/**
+ * Inputs of a class's parity report: every entered boat with its current inspection record. A boat is used
+ * only when its latest record conforms; the others are listed with the reason. Four queries,
+ * whatever the number of boats.
+ */
+export async function gatherReportInputs(eventId: string, classId: string, at = new Date()): Promise<ReportInputs> {
+  const { sequelize, models } = getDb();
+  const [event, raceClass] = await Promise.all([
+    models.Event.findByPk(eventId),
+    models.RaceClass.findOne({ where: { id: classId, eventId } }),
+  ]);
+  if (!event || !raceClass) throw new AppError('not_found', 404, 'No such class at this meeting.');
+  const rules = await findRulesInForce(classId, at);
+  if (!rules) throw new AppError('conflict', 409, 'This class has no published rules in force, so there is nothing to report against.');
+  const [rows] = await sequelize.query(
+    // The current record of each entry: corrections replace what they supersede, and a record that
+    // waited offline does not overtake a newer capture (the same rule the dock and the board use).
+    `with ${currentInspectionCte('event')}
+     select e.id as "entryId", e.race_number as "raceNumber", b.name as "boatName", b.declared_power_kw as "declaredPowerKw",
+            b.declared_nozzle_mm as "declaredNozzleMm", i.id as "inspectionId", i.received_at as "receivedAt",
+            i.overall_result as "overallResult", i.measurements, i.results
+       from entries e
+       join boats b on b.id = e.boat_id
+       left join current_inspection ci on ci.entry_id = e.id
+       left join inspections i on i.id = ci.id
+      where e.event_id = :eventId and e.class_id = :classId and e.status = 'entered'
+      order by e.race_number`,
+    { replacements: { eventId, classId } },
+  );
+  const r = rules.rules;
+  // Class defaults are expanded uncertainties (k = 2); the engine takes standard ones (U / 2).
+  const uPowerKw = r.power.defaultUncertaintyKw / 2;
+  const boats: ReportBoatInput[] = [];
+  const excluded: ReportExcluded[] = [];
+  for (const row of rows as Row[]) {
+    const base = { entryId: row.entryId, raceNumber: row.raceNumber, boatName: row.boatName };
+    if (!row.inspectionId) {
+      excluded.push({ ...base, reason: 'Not inspected yet' });
+      continue;
+    }
+    if (row.overallResult !== 'conforms') {
+      excluded.push({ ...base, reason: `Latest inspection ${RESULT_WORDS[row.overallResult ?? ''] ?? row.overallResult}` });
+      continue;
+    }
+    const n = row.measurements?.nozzle;
+    const readings = (n?.readings ?? []).map((x) => x.diameterMm).filter((x) => typeof x === 'number' && x > 0);
+    if (readings.length === 0) {
+      excluded.push({ ...base, reason: 'Latest inspection has no nozzle readings' });
+      continue;
+    }
+    const corrected = n?.temperatureC != null && n?.material
+      ? readings.map((d) => correctLengthToReferenceTemperatureMm({ lengthMm: d, temperatureC: n.temperatureC!, material: n.material as Material }))
+      : readings;
+    const U = recordedNozzleU(row.results) ?? r.nozzle.defaultUncertaintyMm;
+    boats.push({
+      ...base,
+      powerKw: row.declaredPowerKw,
+      uPowerKw,
+      powerSource: row.measurements?.power?.evidenceSeen ? 'verified' : 'declared',
+      nozzleDiameterMm: computeAreaEquivalentDiameterFromReadingsMm(corrected),
+      uNozzleDiameterMm: U / 2,
+      inspectionId: row.inspectionId,
+      inspectedAt: row.receivedAt ? new Date(row.receivedAt).toISOString() : null,
+    });
+  }
+  const density = resolveEventDensity(event);
+  return {
+    eventName: event.name,
+    classCode: raceClass.code,
+    className: raceClass.name,
+    ruleVersion: { id: rules.id, version: rules.version },
+    assumptions: {
+      pumpEfficiency: r.parity.pumpEfficiency,
+      nozzleLossCoefficient: r.parity.nozzleLossCoefficient,
+      inletLossCoefficient: r.parity.inletLossCoefficient,
+      wakeFraction: r.parity.wakeFraction,
+      referenceSpeedsMs: r.parity.referenceSpeedsMs,
+    },
+    density: { densityKgM3: density.densityKgM3, description: density.description },
+    boats,
+    excluded,
+    computedAt: at.toISOString(),
+  };
+}

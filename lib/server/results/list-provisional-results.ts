@@ -1,0 +1,64 @@
+import 'server-only';
+import { QueryTypes } from 'sequelize';
+import { getDb } from '@/lib/server/db';
+import type { Actor } from '@/lib/server/auth/actor';
+import { AppError } from '@/lib/core/errors';
+import { describeWindow, formatInZone, type WindowView } from '@/lib/core/protests/protest-window';
+import { loadResultsVersions } from './load-results-versions';
+
+export type ResultsRowView = { position: number; raceNumber: number; entryId: string; boatName: string; isChanged: boolean; window: WindowView };
+export type ClassResultsView = {
+  classId: string;
+  classCode: string;
+  className: string;
+  latest: null | {
+    id: string;
+    version: number;
+    publishedAt: string;
+    publishedAtLabel: string;
+    source: 'form' | 'csv';
+    note: string;
+    window: WindowView; // the window this version opened (for the rows it changed)
+    rows: ResultsRowView[];
+  };
+  versionCount: number;
+};
+
+/**
+ * A meeting's provisional results, per class: the latest version with each row's own protest
+ * window (a row keeps the deadline of the version that last changed it). Published results are
+ * public at a meeting, so anyone signed in may read them.
+ */
+export async function listProvisionalResults(actor: Actor | null, eventId: string, now = new Date()): Promise<ClassResultsView[]> {
+  if (!actor) throw new AppError('unauthenticated', 401, 'Sign in to do this.');
+  const { models, sequelize } = getDb();
+  const event = await models.Event.findByPk(eventId);
+  if (!event) throw new AppError('not_found', 404, 'No such meeting.');
+  const [classes, versions, boats] = await Promise.all([
+    models.RaceClass.findAll({ where: { eventId }, order: [['code', 'ASC']] }),
+    loadResultsVersions(eventId),
+    sequelize.query<{ id: string; boatName: string }>(
+      'select e.id, b.name as "boatName" from entries e join boats b on b.id = e.boat_id where e.event_id = :eventId',
+      { replacements: { eventId }, type: QueryTypes.SELECT },
+    ),
+  ]);
+  const boatName = new Map(boats.map((b) => [b.id, b.boatName]));
+  const win = (publishedAt: Date) => describeWindow({ publishedAt, windowMinutes: event.protestWindowMinutes, timeZone: event.timeZone, now });
+  return classes.map((c) => {
+    const mine = versions.filter((v) => v.classId === c.id);
+    const latest = mine[mine.length - 1];
+    if (!latest) return { classId: c.id, classCode: c.code, className: c.name, latest: null, versionCount: 0 };
+    const lastChange = (entryId: string) => [...mine].reverse().find((v) => v.changedEntryIds.includes(entryId)) ?? mine[0];
+    return {
+      classId: c.id, classCode: c.code, className: c.name, versionCount: mine.length,
+      latest: {
+        id: latest.id, version: latest.version, publishedAt: latest.publishedAt.toISOString(),
+        publishedAtLabel: formatInZone(latest.publishedAt, event.timeZone), source: latest.source, note: latest.note,
+        window: win(latest.publishedAt),
+        rows: latest.rows.map((r) => ({
+          ...r, boatName: boatName.get(r.entryId) ?? '?', isChanged: latest.changedEntryIds.includes(r.entryId), window: win(lastChange(r.entryId).publishedAt),
+        })),
+      },
+    };
+  });
+}
