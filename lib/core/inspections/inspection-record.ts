@@ -1,32 +1,16 @@
 // One builder for the stored inspection record (recording and the demo seed both call it) and one
 // reader of what the parity report takes from it. The shape itself lives in
-// models/shapes/inspection-record.ts (pure zod), so the model's JSONB columns are typed from it.
+// models/shapes/inspection-record.ts (pure zod), so the model's JSONB columns are typed from it;
+// lib/core/stored-shapes.ts checks it against the decision's own types.
 import { z } from 'zod';
 import {
   StoredInspectionRecord, StoredMeasurements, StoredNozzleMeasurement, StoredPowerMeasurement, StoredResults, StoredRuleResult,
-  STORED_CHECK_AREAS, STORED_DECISION_RULES, STORED_MATERIALS, STORED_VERDICTS,
 } from '../../../models/shapes/inspection-record';
-import type { DecisionRule, Verdict } from '../engine/conformity';
-import type { Material } from '../engine/measurement';
 import type { ClassRules } from '../inputs/class-rules';
 import type { RecordInspectionInput } from '../inputs/inspections';
-import type { CheckArea, InspectionDecision, InstrumentFigures, RuleResult } from './decide-inspection';
+import type { InspectionDecision, InstrumentFigures } from './decide-inspection';
 
 export { StoredInspectionRecord, StoredMeasurements, StoredResults, StoredRuleResult };
-
-// The stored enumerations are the engine's own: typecheck fails here if either side drifts.
-type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
-const sameShapes: [
-  Same<(typeof STORED_VERDICTS)[number], Verdict>,
-  Same<(typeof STORED_DECISION_RULES)[number], DecisionRule>,
-  Same<(typeof STORED_CHECK_AREAS)[number], CheckArea>,
-  Same<(typeof STORED_MATERIALS)[number], Material>,
-  Same<StoredRuleResult['unit'], RuleResult['unit']>,
-] = [true, true, true, true, true];
-void sameShapes;
-// Every decided rule fits the stored rule shape.
-const ruleFits = (r: RuleResult): StoredRuleResult => r;
-void ruleFits;
 
 export type BuildInspectionRecordInput = {
   input: Pick<RecordInspectionInput, 'nozzle' | 'weight' | 'power' | 'seals' | 'safety'>;
