@@ -1,6 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
-import type { EventStatus, EventStaffRole } from '@/lib/core/constants';
+import type { EventStatus, EventStaffRole } from './shapes/event';
 export type { EventStatus, EventStaffRole };
 
 // A race meeting run by an organisation.

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import type { StoredMeasurements, StoredResults } from './shapes/inspection-record';
 
 export type InspectionVerdict = 'conforms' | 'does_not_conform' | 'inconclusive';
 export type InspectionKind = 'pre_race' | 'post_race' | 'protest' | 'spot_check';
@@ -34,8 +35,9 @@ export class Inspection extends Model<InferAttributes<Inspection>, InferCreation
   declare supersedesId: CreationOptional<string | null>;
   declare correctionReason: CreationOptional<string | null>;
   declare reinspectionId: CreationOptional<string | null>;
-  declare measurements: Record<string, unknown>;
-  declare results: Record<string, unknown>;
+  /** The stored record (models/shapes/inspection-record.ts): built by buildInspectionRecord, never edited. */
+  declare measurements: StoredMeasurements;
+  declare results: StoredResults;
   declare overallResult: InspectionVerdict;
   declare notes: CreationOptional<string>;
 }

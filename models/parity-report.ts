@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
-import type { ReportInputs, ReportResults } from '@/lib/core/reports/parity-figures';
+import type { StoredReportInputs, StoredReportResults } from './shapes/parity-report';
 
 // A published parity report version; append-only (a trigger refuses updates and deletes).
 export class ParityReport extends Model<InferAttributes<ParityReport>, InferCreationAttributes<ParityReport>> {
@@ -10,8 +10,8 @@ export class ParityReport extends Model<InferAttributes<ParityReport>, InferCrea
   declare publicId: string;
   declare ruleVersionId: string;
   declare note: CreationOptional<string>;
-  declare inputs: ReportInputs;
-  declare results: ReportResults;
+  declare inputs: StoredReportInputs;
+  declare results: StoredReportResults;
   declare publishedById: string;
   declare publishedAt: CreationOptional<Date>;
 }

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
-import type { ClassRules } from '@/lib/core/inputs/class-rules';
+import type { StoredClassRules } from './shapes/class-rules';
 
 // A class at one event. Its rules live in numbered versions (ClassRuleVersion).
 export class RaceClass extends Model<InferAttributes<RaceClass>, InferCreationAttributes<RaceClass>> {
@@ -19,7 +19,7 @@ export class ClassRuleVersion extends Model<InferAttributes<ClassRuleVersion>, I
   declare classId: string;
   declare version: number;
   declare status: CreationOptional<'draft' | 'published'>;
-  declare rules: ClassRules;
+  declare rules: StoredClassRules;
   declare changeNote: CreationOptional<string>;
   declare effectiveFrom: CreationOptional<Date | null>;
   declare publishedAt: CreationOptional<Date | null>;

@@ -5,6 +5,9 @@
 import { createHash } from 'node:crypto';
 import pg from 'pg';
 import { decideInspection } from '../lib/core/inspections/decide-inspection';
+import { buildInspectionRecord } from '../lib/core/inspections/inspection-record';
+import { toInstrumentFigures } from '../lib/core/inspections/instrument-figures';
+import { RecordInspectionInput } from '../lib/core/inputs/inspections';
 import type { ClassRules } from '../lib/core/inputs/class-rules';
 
 const MEETING = '0b0e0000-0000-4000-8000-000000000101';
@@ -21,13 +24,14 @@ async function main() {
   const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
   await db.connect();
   const [scrutineer] = (await db.query(`select id from users where email = 'scrutineer@tarnwater.example'`)).rows;
-  const instruments = (await db.query('select id, name, quantity, error_limit, resolution, expanded_uncertainty from instruments where id = any($1)', [[CALIPER, SCALE]])).rows;
-  const figures = (id: string) => {
-    const i = instruments.find((x) => x.id === id)!;
-    return { id: i.id, name: i.name, quantity: i.quantity, errorLimit: i.error_limit, resolution: i.resolution, expandedUncertainty: i.expanded_uncertainty };
-  };
+  const instruments = (await db.query(
+    `select id, name, quantity, error_limit as "errorLimit", resolution, expanded_uncertainty as "expandedUncertainty" from instruments where id = any($1)`,
+    [[CALIPER, SCALE]],
+  )).rows;
+  const figures = (id: string) => toInstrumentFigures(instruments.find((x) => x.id === id)!);
   const entries = (await db.query(
-    `select e.id, e.boat_id, e.class_id, b.declared_nozzle_mm, b.declared_power_kw, b.declared_weight_kg, v.id as rule_version_id, v.rules
+    `select e.id, e.boat_id, e.class_id, b.declared_nozzle_mm, b.declared_power_kw, b.declared_weight_kg, b.power_evidence,
+            v.id as rule_version_id, v.version as rule_version, v.rules
        from entries e join boats b on b.id = e.boat_id join race_classes c on c.id = e.class_id
        join lateral (select * from class_rule_versions v where v.class_id = c.id and v.status = 'published' and v.effective_from <= now()
                      order by v.effective_from desc limit 1) v on true
@@ -39,15 +43,22 @@ async function main() {
     const rules = e.rules as ClassRules;
     const d = Number(e.declared_nozzle_mm);
     const offsets = [-0.03, 0.02, 0.01, -0.01].slice(0, Math.max(3, rules.nozzle.minReadings));
-    const input = {
+    // The same input the dock form sends, parsed by the same schema, so the seed records what recording would.
+    const input = RecordInspectionInput.parse({
+      idempotencyKey: keyFor(e.id), entryId: e.id, capturedAt: new Date().toISOString(), device: 'demo seed',
       nozzle: { readings: offsets.map((o, i) => ({ diameterMm: +(d + o).toFixed(2), angleDeg: i * 60 })), instrumentId: CALIPER, expandedUncertaintyMm: null, temperatureC: null, material: null },
       weight: { readingsKg: [Number(e.declared_weight_kg), Number(e.declared_weight_kg) + 1], instrumentId: SCALE },
       power: { declaredKw: Number(e.declared_power_kw), evidenceSeen: n % 3 !== 0, note: '' },
+      seals: [{ number: `KR-${1000 + n}`, location: 'pump to transom' }],
       safety: Object.fromEntries(rules.safetyItems.map((s) => [s, true])),
-    };
-    const decision = decideInspection({ input: input as never, rules, nozzleInstrument: figures(CALIPER) as never, weightInstrument: figures(SCALE) as never });
-    const measurements = { nozzle: { ...input.nozzle, instrumentName: figures(CALIPER).name, correctedReadingsMm: decision.nozzle.correctedReadingsMm, appliedExpandedUncertaintyMm: decision.nozzle.expandedUncertaintyMm, uncertaintyBasis: decision.nozzle.uncertaintyBasis }, weight: { ...input.weight, ...decision.weight }, power: input.power, seals: [{ number: `KR-${1000 + n}`, location: 'pump to transom' }], safety: input.safety };
-    const results = { rules: decision.rules, decisionRule: rules.decisionRule };
+    });
+    const nozzleInstrument = figures(CALIPER);
+    const weightInstrument = figures(SCALE);
+    const decision = decideInspection({ input, rules, nozzleInstrument, weightInstrument });
+    const { measurements, results } = buildInspectionRecord({
+      input, decision, rules, ruleVersion: e.rule_version, nozzleInstrument, weightInstrument,
+      boat: { declaredKw: Number(e.declared_power_kw), powerEvidence: e.power_evidence },
+    });
     const res = await db.query(
       `insert into inspections (event_id, entry_id, boat_id, class_id, rule_version_id, kind, recorded_by_id, device, idempotency_key, captured_at, measurements, results, overall_result, notes)
        values ($1, $2, $3, $4, $5, 'pre_race', $6, 'demo seed', $7, now() - interval '1 hour', $8, $9, $10, 'Demo record') on conflict (idempotency_key) do nothing`,

@@ -1,9 +1,6 @@
 // Enumerations shared by models, validations and screens (no framework imports).
-export const EVENT_STATUSES = ['draft', 'entries_open', 'entries_closed', 'racing', 'finished'] as const;
-export type EventStatus = (typeof EVENT_STATUSES)[number];
-
-export const EVENT_STAFF_ROLES = ['organiser', 'chief_scrutineer', 'scrutineer', 'steward'] as const;
-export type EventStaffRole = (typeof EVENT_STAFF_ROLES)[number];
+// Column enumerations live with the models (models/shapes/, which import nothing from lib/).
+export { EVENT_STATUSES, EVENT_STAFF_ROLES, type EventStatus, type EventStaffRole } from '../../models/shapes/event';
 
 // Safety items commonly checked on jet boats (common practice; the local rulebook governs).
 export const SAFETY_ITEMS = {

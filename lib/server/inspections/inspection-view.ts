@@ -3,6 +3,7 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import type { Verdict } from '@/lib/core/engine/conformity';
 import type { RuleResult } from '../../core/inspections/decide-inspection';
+import type { StoredMeasurements } from '../../core/inspections/inspection-record';
 
 // One inspection record as screens and the API see it (plain object), and the one query that
 // reads records with who recorded them, under which rule version, and what superseded them.
@@ -25,7 +26,8 @@ export type InspectionView = {
   supersededById: string | null;
   correctionReason: string | null;
   reinspectionId: string | null;
-  measurements: Record<string, unknown>;
+  /** The stored record's measurements (one shape: lib/core/inspections/inspection-record.ts). */
+  measurements: StoredMeasurements;
   rules: RuleResult[];
   overallResult: Verdict;
   notes: string;

@@ -4,6 +4,7 @@ import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import type { Instrument } from '@/models';
 import { instrumentUncertainty } from '../../core/inspections/decide-inspection';
+import { toInstrumentFigures } from '../../core/inspections/instrument-figures';
 
 export type InstrumentView = {
   id: string;
@@ -34,7 +35,7 @@ export async function listAllInstruments(actor: Actor | null, eventId: string): 
 }
 
 export function toInstrumentView(i: Instrument): InstrumentView {
-  const figures = { id: i.id, name: i.name, quantity: i.quantity, errorLimit: i.errorLimit ?? null, resolution: i.resolution ?? null, expandedUncertainty: i.expandedUncertainty ?? null };
+  const figures = toInstrumentFigures(i);
   const u = instrumentUncertainty(figures, i.quantity === 'length' ? 'mm' : 'kg');
   return { ...figures, appliedExpandedUncertainty: u.expandedUncertainty, basis: u.basis, retiredAt: i.retiredAt ? new Date(i.retiredAt).toISOString() : null };
 }

@@ -9,6 +9,8 @@ import type { ClassRules } from '@/lib/core/inputs/class-rules';
 import { sendMail } from '@/lib/server/mail/send';
 import { RecordInspectionInput } from '@/lib/core/inputs/inspections';
 import { decideInspection, describeScope, scopeFromRequestedChecks, VERDICT_WORDS, type CheckArea, type InstrumentFigures, type InspectionDecision } from '../../core/inspections/decide-inspection';
+import { buildInspectionRecord } from '../../core/inspections/inspection-record';
+import { toInstrumentFigures } from '../../core/inspections/instrument-figures';
 import { currentInspectionCte, loadInspectionViews, type InspectionView } from './inspection-view';
 
 type EntryRow = {
@@ -24,7 +26,7 @@ async function findInstrument(eventId: string, id: string | null, quantity: 'len
   const i = await getDb().models.Instrument.findOne({ where: { id, eventId, retiredAt: null } });
   if (!i) throw fieldError(field, 'This instrument is not on this meeting’s list.');
   if (i.quantity !== quantity) throw fieldError(field, quantity === 'length' ? `${i.name} is a scale: choose a length instrument.` : `${i.name} measures length: choose a scale.`);
-  return { id: i.id, name: i.name, quantity: i.quantity, errorLimit: i.errorLimit ?? null, resolution: i.resolution ?? null, expandedUncertainty: i.expandedUncertainty ?? null };
+  return toInstrumentFigures(i);
 }
 
 /** The stored record for a key; a key used at another meeting is a conflict, never a leak. */
@@ -135,19 +137,10 @@ export async function recordInspection(actor: Actor | null, eventId: string, raw
   // Throws EngineInputError naming the field (too few readings for this class): 400.
   const decision = decideInspection({ input, rules: ruleVersion.rules, nozzleInstrument, weightInstrument, scope });
 
-  const measurements = {
-    nozzle: {
-      readings: input.nozzle.readings, instrumentId: input.nozzle.instrumentId, instrumentName: nozzleInstrument?.name ?? null,
-      typedExpandedUncertaintyMm: input.nozzle.expandedUncertaintyMm, temperatureC: input.nozzle.temperatureC, material: input.nozzle.material,
-      correctedReadingsMm: decision.nozzle.correctedReadingsMm, temperatureCorrected: decision.nozzle.temperatureCorrected,
-      appliedExpandedUncertaintyMm: decision.nozzle.expandedUncertaintyMm, uncertaintyBasis: decision.nozzle.uncertaintyBasis,
-    },
-    weight: input.weight ? { ...input.weight, instrumentName: weightInstrument?.name ?? null, ...decision.weight } : null,
-    power: { ...input.power, boatDeclaredKw: entry.boatDeclaredKw, boatPowerEvidence: entry.boatPowerEvidence },
-    seals: input.seals,
-    safety: input.safety,
-  };
-  const results = { rules: decision.rules, decisionRule: ruleVersion.rules.decisionRule, ruleVersion: ruleVersion.version, scope: decision.scope };
+  const { measurements, results } = buildInspectionRecord({
+    input, decision, rules: ruleVersion.rules, ruleVersion: ruleVersion.version, nozzleInstrument, weightInstrument,
+    boat: { declaredKw: entry.boatDeclaredKw, powerEvidence: entry.boatPowerEvidence },
+  });
 
   const inserted = await sequelize.transaction(async (transaction) => {
     // One writer per entry at a time, so the entry's result always reflects every committed record:

@@ -2,7 +2,8 @@ import 'server-only';
 import { getDb } from '@/lib/server/db';
 import { AppError } from '@/lib/core/errors';
 import { findRulesInForce } from '@/lib/server/classes/rule-versions';
-import { computeAreaEquivalentDiameterFromReadingsMm, correctLengthToReferenceTemperatureMm, type Material } from '@/lib/core/engine/measurement';
+import { computeAreaEquivalentDiameterFromReadingsMm } from '@/lib/core/engine/measurement';
+import { readRecordForReport } from '@/lib/core/inspections/inspection-record';
 import { currentInspectionCte } from '@/lib/server/inspections/inspection-view';
 import { resolveEventDensity } from '../../core/reports/event-density';
 import type { ReportBoatInput, ReportExcluded, ReportInputs } from '../../core/reports/parity-figures';
@@ -10,20 +11,12 @@ import type { ReportBoatInput, ReportExcluded, ReportInputs } from '../../core/r
 type Row = {
   entryId: string; raceNumber: number; boatName: string; declaredPowerKw: number; declaredNozzleMm: number;
   inspectionId: string | null; receivedAt: Date | null; overallResult: string | null;
-  measurements: { nozzle?: { readings?: { diameterMm: number }[]; temperatureC?: number | null; material?: string | null }; power?: { evidenceSeen?: boolean } } | null;
+  // The stored record's documents (models/shapes/inspection-record.ts), read through readRecordForReport.
+  measurements: unknown;
   results: unknown;
 };
 
 const RESULT_WORDS: Record<string, string> = { does_not_conform: 'does not conform', inconclusive: 'inconclusive' };
-
-/** The nozzle expanded uncertainty U the inspection decided with, if it recorded one. */
-function recordedNozzleU(results: unknown): number | null {
-  const list = Array.isArray(results) ? results : Array.isArray((results as { rules?: unknown[] })?.rules) ? (results as { rules: unknown[] }).rules : [];
-  for (const r of list as { rule?: string; expandedUncertainty?: number }[]) {
-    if (typeof r?.rule === 'string' && r.rule.startsWith('nozzle') && typeof r.expandedUncertainty === 'number') return r.expandedUncertainty;
-  }
-  return null;
-}
 
 /**
  * Inputs of a class's parity report: every entered boat with its current inspection record. A boat is used
@@ -69,21 +62,23 @@ export async function gatherReportInputs(eventId: string, classId: string, at = 
       excluded.push({ ...base, reason: `Latest inspection ${RESULT_WORDS[row.overallResult ?? ''] ?? row.overallResult}` });
       continue;
     }
-    const n = row.measurements?.nozzle;
-    const readings = (n?.readings ?? []).map((x) => x.diameterMm).filter((x) => typeof x === 'number' && x > 0);
-    if (readings.length === 0) {
+    const record = readRecordForReport(row.measurements, row.results);
+    if (record.correctedReadingsMm === null) {
+      excluded.push({ ...base, reason: 'Latest inspection does not store its temperature-corrected readings' });
+      continue;
+    }
+    if (record.correctedReadingsMm.length === 0) {
       excluded.push({ ...base, reason: 'Latest inspection has no nozzle readings' });
       continue;
     }
-    const corrected = n?.temperatureC != null && n?.material
-      ? readings.map((d) => correctLengthToReferenceTemperatureMm({ lengthMm: d, temperatureC: n.temperatureC!, material: n.material as Material }))
-      : readings;
-    const U = recordedNozzleU(row.results) ?? r.nozzle.defaultUncertaintyMm;
+    // The readings the verdict used, as the record stores them (corrected to 20 °C when a temperature was given).
+    const corrected = record.correctedReadingsMm;
+    const U = record.nozzleExpandedUncertaintyMm ?? r.nozzle.defaultUncertaintyMm;
     boats.push({
       ...base,
       powerKw: row.declaredPowerKw,
       uPowerKw,
-      powerSource: row.measurements?.power?.evidenceSeen ? 'verified' : 'declared',
+      powerSource: record.evidenceSeen ? 'verified' : 'declared',
       nozzleDiameterMm: computeAreaEquivalentDiameterFromReadingsMm(corrected),
       uNozzleDiameterMm: U / 2,
       inspectionId: row.inspectionId,

@@ -1,0 +1,98 @@
+// One builder for the stored inspection record (recording and the demo seed both call it) and one
+// reader of what the parity report takes from it. The shape itself lives in
+// models/shapes/inspection-record.ts (pure zod), so the model's JSONB columns are typed from it;
+// lib/core/stored-shapes.ts checks it against the decision's own types.
+import { z } from 'zod';
+import {
+  StoredInspectionRecord, StoredMeasurements, StoredNozzleMeasurement, StoredPowerMeasurement, StoredResults, StoredRuleResult,
+} from '../../../models/shapes/inspection-record';
+import type { ClassRules } from '../inputs/class-rules';
+import type { RecordInspectionInput } from '../inputs/inspections';
+import type { InspectionDecision, InstrumentFigures } from './decide-inspection';
+
+export { StoredInspectionRecord, StoredMeasurements, StoredResults, StoredRuleResult };
+
+export type BuildInspectionRecordInput = {
+  input: Pick<RecordInspectionInput, 'nozzle' | 'weight' | 'power' | 'seals' | 'safety'>;
+  decision: InspectionDecision;
+  rules: Pick<ClassRules, 'decisionRule'>;
+  ruleVersion: number;
+  nozzleInstrument: InstrumentFigures | null;
+  weightInstrument: InstrumentFigures | null;
+  /** The boat's declared power and its evidence at the time of the inspection. */
+  boat: { declaredKw: number; powerEvidence: string };
+};
+
+/** The record's two documents, checked against the stored shape (a mismatch is a programming error: 500, not 400). */
+export function buildInspectionRecord(b: BuildInspectionRecordInput): StoredInspectionRecord {
+  const { input, decision } = b;
+  const record: StoredInspectionRecord = {
+    measurements: {
+      nozzle: {
+        readings: input.nozzle.readings.map((r) => ({ diameterMm: r.diameterMm, angleDeg: r.angleDeg })),
+        instrumentId: input.nozzle.instrumentId,
+        instrumentName: b.nozzleInstrument?.name ?? null,
+        typedExpandedUncertaintyMm: input.nozzle.expandedUncertaintyMm,
+        temperatureC: input.nozzle.temperatureC,
+        material: input.nozzle.material,
+        correctedReadingsMm: decision.nozzle.correctedReadingsMm,
+        temperatureCorrected: decision.nozzle.temperatureCorrected,
+        appliedExpandedUncertaintyMm: decision.nozzle.expandedUncertaintyMm,
+        uncertaintyBasis: decision.nozzle.uncertaintyBasis,
+      },
+      weight: input.weight
+        ? {
+            readingsKg: input.weight.readingsKg,
+            instrumentId: input.weight.instrumentId,
+            instrumentName: b.weightInstrument?.name ?? null,
+            meanKg: decision.weight?.meanKg ?? null,
+            expandedUncertaintyKg: decision.weight?.expandedUncertaintyKg ?? null,
+            uncertaintyBasis: decision.weight?.uncertaintyBasis ?? null,
+          }
+        : null,
+      power: { ...input.power, boatDeclaredKw: b.boat.declaredKw, boatPowerEvidence: b.boat.powerEvidence },
+      seals: input.seals,
+      safety: input.safety as Record<string, boolean>,
+    },
+    results: { rules: decision.rules, decisionRule: b.rules.decisionRule, ruleVersion: b.ruleVersion, scope: decision.scope },
+  };
+  const checked = StoredInspectionRecord.safeParse(record);
+  if (!checked.success) throw new Error(`The inspection record does not match its stored shape: ${z.prettifyError(checked.error)}`);
+  return checked.data;
+}
+
+// What the report takes from a record, as slices of the stored shape: rows brought to the one
+// shape carry every field; a hand-written row (tests, benchmarks) may carry only these.
+const ReportMeasurements = z.object({
+  nozzle: StoredNozzleMeasurement.pick({ correctedReadingsMm: true, temperatureC: true, material: true })
+    .extend({ readings: z.array(StoredNozzleMeasurement.shape.readings.element.pick({ diameterMm: true })) })
+    .partial()
+    .nullish(),
+  power: StoredPowerMeasurement.pick({ evidenceSeen: true }).partial().nullish(),
+});
+const ReportResults = z.object({ rules: z.array(StoredRuleResult.pick({ rule: true, expandedUncertainty: true })) });
+
+export type RecordForReport = {
+  /** The readings the verdict used (corrected to 20 °C when it recorded a temperature and material); null if the record lacks them. */
+  correctedReadingsMm: number[] | null;
+  /** The nozzle U the verdict decided with, or null when the record has no nozzle verdict. */
+  nozzleExpandedUncertaintyMm: number | null;
+  evidenceSeen: boolean;
+};
+
+/** Reads a stored record for the parity report: the stored corrected readings, never a recomputation. */
+export function readRecordForReport(measurements: unknown, results: unknown): RecordForReport {
+  const m = ReportMeasurements.safeParse(measurements ?? {});
+  const r = ReportResults.safeParse(results);
+  const nozzle = m.success ? m.data.nozzle : null;
+  const readings = (nozzle?.readings ?? []).map((x) => x.diameterMm);
+  // Without a temperature and material no correction applies, so a row lacking the stored list used its readings as read.
+  const hadCorrection = nozzle?.temperatureC != null && nozzle?.material != null;
+  const corrected = nozzle?.correctedReadingsMm ?? (hadCorrection ? null : readings);
+  const nozzleRule = r.success ? r.data.rules.find((x) => x.rule.startsWith('nozzle') && x.expandedUncertainty != null) : undefined;
+  return {
+    correctedReadingsMm: corrected ? corrected.filter((x) => x > 0) : null,
+    nozzleExpandedUncertaintyMm: nozzleRule?.expandedUncertainty ?? null,
+    evidenceSeen: (m.success && m.data.power?.evidenceSeen) === true,
+  };
+}

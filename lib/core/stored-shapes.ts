@@ -1,0 +1,30 @@
+// The stored document shapes of models/shapes/ against the names lib/ uses for the same documents.
+// models/ imports nothing from lib/, so the two are written apart; these checks make typecheck fail
+// when either side changes without the other. Type-only: nothing here runs.
+import type { StoredClassRules } from '../../models/shapes/class-rules';
+import type { StoredParity, StoredReportInputs, StoredReportResults } from '../../models/shapes/parity-report';
+import type { StoredRuleResult, STORED_CHECK_AREAS, STORED_DECISION_RULES, STORED_MATERIALS, STORED_VERDICTS } from '../../models/shapes/inspection-record';
+import type { ClassRules } from './inputs/class-rules';
+import type { DecisionRule, Verdict } from './engine/conformity';
+import type { Material } from './engine/measurement';
+import type { ParityReport } from './engine/parity';
+import type { CheckArea, RuleResult } from './inspections/decide-inspection';
+import type { ReportInputs, ReportResults } from './reports/parity-figures';
+
+/** true only when A and B are mutually assignable (the same shape for stored data). */
+type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
+type Check<T extends true> = T;
+/** true when every A fits B (a decided value is storable as it stands). */
+type Fits<A, B> = [A] extends [B] ? true : false;
+
+export type StoredShapesMatch = [
+  Check<Same<ClassRules, StoredClassRules>>,
+  Check<Same<ReportInputs, StoredReportInputs>>,
+  Check<Same<ReportResults, StoredReportResults>>,
+  Check<Same<ParityReport, StoredParity>>,
+  Check<Same<(typeof STORED_VERDICTS)[number], Verdict>>,
+  Check<Same<(typeof STORED_DECISION_RULES)[number], DecisionRule>>,
+  Check<Same<(typeof STORED_CHECK_AREAS)[number], CheckArea>>,
+  Check<Same<(typeof STORED_MATERIALS)[number], Material>>,
+  Check<Fits<RuleResult, StoredRuleResult>>,
+];

@@ -1,0 +1,89 @@
+// The stored inspection record: the two JSONB documents (measurements, results) an inspection's
+// verdict writes and the board, the boat card and the parity report read. One shape, checked by
+// zod; lib/core/inspections/inspection-record.ts builds it, and migrations bring older rows to it.
+// Pure (zod only, nothing from lib/), so models/ can type its columns from it.
+import { z } from 'zod';
+
+export const STORED_VERDICTS = ['conforms', 'does_not_conform', 'inconclusive'] as const;
+export const STORED_DECISION_RULES = ['simple', 'guarded', 'iso14253'] as const;
+export const STORED_CHECK_AREAS = ['nozzle', 'weight', 'power', 'safety'] as const;
+export const STORED_VALUE_KINDS = ['measured', 'confirmed', 'declared'] as const;
+/** Nozzle materials with a thermal expansion coefficient for the 20 °C correction. */
+export const STORED_MATERIALS = ['aluminium', 'stainless_steel', 'steel', 'bronze'] as const;
+
+const figure = z.number().nullable();
+
+/** The nozzle as measured, with what the verdict used: readings corrected to 20 °C and the applied U. */
+export const StoredNozzleMeasurement = z.object({
+  readings: z.array(z.object({ diameterMm: z.number(), angleDeg: z.number() })),
+  instrumentId: z.string().nullable(),
+  instrumentName: z.string().nullable(),
+  /** U typed on the form (only without an instrument). */
+  typedExpandedUncertaintyMm: figure,
+  temperatureC: figure,
+  material: z.enum(STORED_MATERIALS).nullable(),
+  /** The readings the verdict used: corrected to the 20 °C reference temperature when temperatureCorrected. */
+  correctedReadingsMm: z.array(z.number()),
+  temperatureCorrected: z.boolean(),
+  appliedExpandedUncertaintyMm: z.number(),
+  uncertaintyBasis: z.string(),
+});
+
+/** The weighings and, when the class has a minimum and the check was decided, their mean and U. */
+export const StoredWeightMeasurement = z.object({
+  readingsKg: z.array(z.number()),
+  instrumentId: z.string().nullable(),
+  instrumentName: z.string().nullable(),
+  meanKg: figure,
+  expandedUncertaintyKg: figure,
+  uncertaintyBasis: z.string().nullable(),
+});
+
+export const StoredPowerMeasurement = z.object({
+  declaredKw: z.number(),
+  evidenceSeen: z.boolean(),
+  note: z.string(),
+  /** The boat's declared figure and evidence when it was inspected. */
+  boatDeclaredKw: z.number(),
+  boatPowerEvidence: z.string(),
+});
+
+export const StoredMeasurements = z.object({
+  nozzle: StoredNozzleMeasurement,
+  weight: StoredWeightMeasurement.nullable(),
+  power: StoredPowerMeasurement,
+  seals: z.array(z.object({ number: z.string(), location: z.string() })),
+  safety: z.record(z.string(), z.boolean()),
+});
+export type StoredMeasurements = z.infer<typeof StoredMeasurements>;
+
+/** One rule's verdict as decided. */
+export const StoredRuleResult = z.object({
+  rule: z.string(),
+  label: z.string(),
+  decisiveValue: figure,
+  unit: z.enum(['mm', 'kg', 'kW']).nullable(),
+  limit: figure,
+  acceptanceLimit: figure,
+  rejectionLimit: figure,
+  expandedUncertainty: figure,
+  verdict: z.enum(STORED_VERDICTS),
+  explanation: z.string(),
+  measured: z.boolean(),
+  valueKind: z.enum(STORED_VALUE_KINDS).nullable().optional(),
+});
+export type StoredRuleResult = z.infer<typeof StoredRuleResult>;
+
+export const StoredResults = z.object({
+  rules: z.array(StoredRuleResult),
+  decisionRule: z.enum(STORED_DECISION_RULES),
+  /** The class rule version's number the record was decided under. */
+  ruleVersion: z.number().int().positive(),
+  /** A targeted re-inspection's checks (null: all). */
+  scope: z.array(z.enum(STORED_CHECK_AREAS)).nullable(),
+});
+export type StoredResults = z.infer<typeof StoredResults>;
+
+/** Both documents of one record, as written together. */
+export const StoredInspectionRecord = z.object({ measurements: StoredMeasurements, results: StoredResults });
+export type StoredInspectionRecord = z.infer<typeof StoredInspectionRecord>;
