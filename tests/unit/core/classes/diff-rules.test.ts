@@ -4,8 +4,9 @@
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { diffRules, ruleLabel } from '../../../../lib/core/classes/diff-rules';
+import type { ClassRules } from '../../../../lib/core/inputs/class-rules';
 
-const RULES = {
+const RULES: ClassRules = {
   nozzle: { maxMm: 102, minMm: null, minReadings: 3, defaultUncertaintyMm: 0.05 },
   power: { minKw: 150, maxKw: 300, defaultUncertaintyKw: 6 },
   weight: { minKg: null, includesDriver: true, defaultUncertaintyKg: 1 },
@@ -41,15 +42,14 @@ test('lists are compared whole, order included', () => {
 });
 
 test('a setting that appears or disappears reads as null on the other side; null and missing are the same', () => {
-  const withMin = structuredClone(RULES) as typeof RULES & { weight: { minKg: number | null } };
+  const withMin = structuredClone(RULES);
   withMin.weight.minKg = 450;
   assert.deepEqual(diffRules(RULES, withMin), [{ path: 'weight.minKg', before: null, after: 450 }]);
   const { parity: _parity, ...withoutParity } = RULES;
   const rows = diffRules(RULES, withoutParity);
   assert.deepEqual(rows.map((c) => c.path), ['parity.inletLossCoefficient', 'parity.nozzleLossCoefficient', 'parity.pumpEfficiency', 'parity.referenceSpeedsMs', 'parity.wakeFraction']);
   assert.ok(rows.every((c) => c.after === null));
-  const noMin = structuredClone(RULES) as Record<string, Record<string, unknown>>;
-  delete noMin.nozzle.minMm; // was null: no change
+  const noMin = { ...RULES, nozzle: { maxMm: 102, minReadings: 3, defaultUncertaintyMm: 0.05 } }; // minMm was null: no change
   assert.deepEqual(diffRules(RULES, noMin), []);
 });
 
