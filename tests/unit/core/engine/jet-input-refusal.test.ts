@@ -52,7 +52,7 @@ test('each bad set-up field is refused by name', () => {
 });
 
 test('boundary values that are meaningful are accepted', () => {
-  // Efficiency 1 (ideal pump), zero losses and zero wake are the lossless case (DOMAIN.md).
+  // Efficiency 1 (ideal pump), zero losses and zero wake are the lossless case of momentum theory (Allison 1993).
   const p = computeJetPoint({ ...good, pumpEfficiency: 1, nozzleLossCoefficient: 0, inletLossCoefficient: 0, wakeFraction: 0 }, 0);
   assert.ok(p.thrustN > 0);
   // A nozzle loss just below 1 is extreme but meaningful: finite, with thrust turned negative at 50 m/s.

@@ -28,7 +28,7 @@ const setupArb: fc.Arbitrary<JetSetupInput> = fc.record({
 });
 const speedArb = fc.double({ min: 0, max: 100, noNaN: true });
 
-/** Residual of the power-balance cubic from the raw inputs (DOMAIN.md; Allison 1993). */
+/** Residual of the power-balance cubic from the raw inputs (Allison 1993; MIT 2.611 loss form). */
 function relativeResidual(s: JetSetupInput, speedMs: number, v: number): number {
   const kn = s.nozzleLossCoefficient ?? 0;
   const ki = s.inletLossCoefficient ?? 0;
@@ -55,7 +55,7 @@ test('solver root satisfies v^3 - p v - q = 0 over extreme p and q (property)', 
 });
 
 test('thrust falls with speed (property)', () => {
-  // Momentum theory (DOMAIN.md): at fixed power the jet's thrust falls as the boat speeds up.
+  // Momentum theory (Allison 1993): at fixed power the jet's thrust falls as the boat speeds up.
   fc.assert(
     fc.property(setupArb, speedArb, fc.double({ min: 0.01, max: 20, noNaN: true }), (s, v, dv) => {
       const p = prepareJetSetup(s);
@@ -66,7 +66,7 @@ test('thrust falls with speed (property)', () => {
 });
 
 test('static thrust rises with diameter and with power (property)', () => {
-  // T0 = (2 eta P / (1 + K_n))^(2/3) (rho A)^(1/3) (DOMAIN.md).
+  // T0 = (2 eta P / (1 + K_n))^(2/3) (rho A)^(1/3) (static momentum theory, Allison 1993; MIT 2.611 loss form).
   fc.assert(
     fc.property(setupArb, fc.double({ min: 1.001, max: 2, noNaN: true }), (s, f) => {
       const t0 = computeStaticPerformance(s).thrustN;
@@ -80,7 +80,7 @@ test('static thrust rises with diameter and with power (property)', () => {
 });
 
 test('lossless identity T = 2P/(v_j + V) at every speed (property)', () => {
-  // DOMAIN.md lossless check identity (eta_p = 1, K = 0, w = 0).
+  // Lossless identity (eta_p = 1, K = 0, w = 0) from thrust and power balance (momentum theory, Allison 1993).
   fc.assert(
     fc.property(
       fc.double({ min: 10, max: 2000, noNaN: true }),
@@ -98,7 +98,7 @@ test('lossless identity T = 2P/(v_j + V) at every speed (property)', () => {
 });
 
 test('target-thrust nozzle reproduces the target (property)', () => {
-  // Inversion of T0 for D (DOMAIN.md, parity section).
+  // The static relation T0(D) above solved for D.
   fc.assert(
     fc.property(setupArb, fc.double({ min: 500, max: 50000, noNaN: true }), (s, target) => {
       const d = computeNozzleDiameterForStaticThrustMm({ ...s, targetStaticThrustN: target });

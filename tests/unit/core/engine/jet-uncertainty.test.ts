@@ -23,7 +23,7 @@ const lossy = {
 };
 
 test('diameter only: u(T0)/T0 = (2/3) u(D)/D', () => {
-  // DOMAIN.md sensitivity (JCGM 100:2008 first-order propagation).
+  // T0 ∝ D^(2/3) at fixed power (momentum theory, Allison 1993); JCGM 100:2008 5.1.2 first-order propagation.
   const u = computeStaticUncertainty(lossy, { uNozzleDiameterMm: 0.5 });
   relClose(u.relativeUStaticThrust, (2 / 3) * (0.5 / 100), 1e-12, 'relative u(T0)');
   relClose(u.uStaticThrustN, (2 / 3) * 0.005 * computeStaticPerformance(lossy).thrustN, 1e-12, 'u(T0)');
@@ -48,7 +48,8 @@ test('static uncertainty equals JCGM 5.1.2 with finite-difference sensitivity co
 });
 
 test('numerical sensitivities at V = 0 agree with the closed form (2/3 T0/P, 2/3 T0/D)', () => {
-  // T0 ∝ P^(2/3) D^(2/3) (DOMAIN.md), so dT0/dP = (2/3) T0/P and dT0/dD = (2/3) T0/D.
+  // T0 = (2 eta P / (1 + K_n))^(2/3) (rho pi D^2/4)^(1/3) ∝ P^(2/3) D^(2/3) (static momentum theory, Allison 1993),
+  // so dT0/dP = (2/3) T0/P and dT0/dD = (2/3) T0/D.
   const t0 = computeStaticPerformance(lossy).thrustN;
   const c = createThrustSensitivity(lossy).atSpeed(0);
   relClose(c.thrustPerPowerNPerKw, ((2 / 3) * t0) / 300, 1e-7, 'dT/dP');
@@ -112,7 +113,7 @@ test('crossover uncertainty matches a finite difference of the crossover speed i
 });
 
 test('equalising diameter uncertainty: u(D_eq)/D_eq = u(P)/P', () => {
-  // D_eq ∝ P^(-1) at fixed target thrust (inversion of T0, DOMAIN.md); checked by finite difference.
+  // D_eq ∝ P^(-1) at fixed target thrust (the static relation above solved for D); checked by finite difference.
   const target = 12000;
   const dAt = (p: number) => computeNozzleDiameterForStaticThrustMm({ ...lossy, powerKw: p, targetStaticThrustN: target });
   const d = dAt(300);

@@ -34,7 +34,7 @@ test('repeatability: standard deviation of a single reading (JCGM 100:2008, 4.2.
 });
 
 test('aluminium nozzle: about 0.023 mm per 10 K at 100 mm, corrected back to 20 C', () => {
-  // DOMAIN.md (alpha ≈ 23e-6/K [memory]); reference temperature 20 C per ISO 1:2022.
+  // Linear expansion dL = alpha L dT, alpha ≈ 23e-6/K for aluminium [memory]; reference temperature 20 C per ISO 1:2022.
   assert.equal(THERMAL_EXPANSION_PER_K.aluminium, 23e-6);
   const at30 = 100 + 0.023;
   close(correctLengthToReferenceTemperatureMm({ lengthMm: at30, temperatureC: 30, material: 'aluminium' }), 100, 1e-6, '30 C');

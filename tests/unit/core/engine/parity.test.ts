@@ -1,5 +1,5 @@
 // Class parity statistics, checked against simple-statistics on the same numbers and against
-// the momentum-theory relations in DOMAIN.md.
+// the momentum-theory relations (Allison 1993; MIT 2.611 loss form).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { max, mean, median, min, sampleStandardDeviation } from 'simple-statistics';
@@ -88,7 +88,7 @@ test('even count: synthetic reference with median power and the median static th
 });
 
 test('equalising nozzle brings each boat to the class median static thrust', () => {
-  // Inversion of T0 for D (DOMAIN.md parity section).
+  // The static relation T0 ∝ D^(2/3) (momentum theory, Allison 1993) solved for D.
   const r = computeParity(boats, model);
   for (const b of r.boats) {
     const t0 = computeStaticPerformance({ ...model, powerKw: b.powerKw, nozzleDiameterMm: b.equalisingNozzleDiameterMm }).thrustN;
@@ -97,7 +97,7 @@ test('equalising nozzle brings each boat to the class median static thrust', () 
 });
 
 test('uncertainties: propagated where given, zero where not', () => {
-  // JCGM 100:2008 5.1.2; static: u(T0)/T0 = sqrt((2/3 u_D/D)^2 + (2/3 u_P/P)^2) (DOMAIN.md).
+  // JCGM 100:2008 5.1.2 with T0 ∝ P^(2/3) D^(2/3) (static momentum theory): u(T0)/T0 = sqrt((2/3 u_D/D)^2 + (2/3 u_P/P)^2).
   const r = computeParity(boats, model);
   const a = r.boats[0];
   relClose(a.uStaticThrustN / a.staticThrustN, Math.hypot((2 / 3) * (0.03 / 100), (2 / 3) * (6 / 300)), 1e-12, 'u(T0) a');

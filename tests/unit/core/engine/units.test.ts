@@ -27,7 +27,7 @@ const close = (actual: number, expected: number, tol: number, what: string) =>
   assert.ok(Math.abs(actual - expected) <= tol, `${what}: ${actual} vs ${expected} (tol ${tol})`);
 
 test('300 kW = 402.3066 hp = 407.8865 PS', () => {
-  // NIST SP 811 (2008) appendix B: 1 hp = 745.69987158227022 W, 1 PS = 735.49875 W; check from DOMAIN.md.
+  // NIST SP 811 (2008) appendix B: 1 hp = 745.69987158227022 W, 1 PS = 735.49875 W; 300 000 W divided by each.
   close(convertPower(300, 'kW', 'hp'), 402.3066, 5e-5, 'hp');
   close(convertPower(300, 'kW', 'PS'), 407.8865, 5e-5, 'PS');
   close(convert(402.3066, 'hp', 'kW'), 300, 1e-4, 'back to kW');
@@ -72,7 +72,7 @@ test('temperature', () => {
 });
 
 test('handbook: fresh water about 62.4 lb/ft^3 and 8.34 lb per US gallon', () => {
-  // DOMAIN.md handbook conversions (common practice, no source); 1 ft = 12 in, 1 US gal = 231 in^3 [memory].
+  // Handbook conversions (common practice, no source); 1 ft = 12 in, 1 US gal = 231 in^3 [memory].
   const rho = 999.1026; // ITTC 7.5-02-01-03, fresh water 15 C
   const m3PerIn3 = convertLength(1, 'in', 'm') ** 3;
   const lbPerFt3 = convertMass(rho * m3PerIn3 * 12 ** 3, 'kg', 'lb');

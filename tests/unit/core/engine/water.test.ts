@@ -16,7 +16,7 @@ const refusesField = (fn: () => unknown, field: string) =>
   assert.throws(fn, (e: unknown) => e instanceof EngineInputError && e.field === field && e.message.length > 0);
 
 test('ITTC table points are reproduced exactly', () => {
-  // ITTC Recommended Procedure 7.5-02-01-03, values as quoted in DOMAIN.md.
+  // ITTC Recommended Procedure 7.5-02-01-03 (Fresh Water and Seawater Properties), table values.
   const fresh: [number, number][] = [[10, 999.7026], [15, 999.1026], [20, 998.2071], [25, 997.0479]];
   const sea: [number, number][] = [[10, 1027.0], [15, 1026.021], [20, 1024.8103], [25, 1023.3873]];
   for (const [t, rho] of fresh) close(interpolateDensityIttc('fresh', t), rho, 1e-9, `fresh ${t} C`);
@@ -30,7 +30,7 @@ test('ITTC basis interpolates linearly between table points', () => {
 });
 
 test('EOS-80 check values', () => {
-  // UNESCO 1981 EOS-80 (Fofonoff & Millard 1983, UNESCO Tech. Paper 44), values quoted in DOMAIN.md.
+  // UNESCO 1981 EOS-80 (Fofonoff & Millard 1983, UNESCO Technical Papers in Marine Science 44), check values.
   close(computeDensityEos80({ salinityPsu: 0, temperatureC: 25 }), 997.04796, 1e-5, 'S=0, 25 C');
   close(computeDensityEos80({ salinityPsu: 35, temperatureC: 25 }), 1023.34306, 1e-5, 'S=35, 25 C');
 });
@@ -58,7 +58,7 @@ test('the two bases agree for fresh water but are kept apart', () => {
 });
 
 test('product default is fresh water at 15 C on the ITTC basis', () => {
-  // ITTC 7.5-02-01-03: fresh water at 15 C = 999.1026 kg/m^3 (DOMAIN.md).
+  // ITTC 7.5-02-01-03: fresh water at 15 C = 999.1026 kg/m^3.
   assert.equal(DEFAULT_DENSITY_KG_M3, 999.1026);
   const r = resolveDensity();
   close(r.densityKgM3, 999.1026, 1e-9, 'default');

@@ -1,5 +1,5 @@
-// The pre-entry declaration check against the ISO 14253-1:2017 worked decisions (DOMAIN.md table:
-// upper limit 102.00 mm, U = 0.05 mm) and the power band and weight edges, with boundary values
+// The pre-entry declaration check against worked decisions read off the ISO 14253-1:2017 zones (an
+// upper limit of 102.00 mm and U = 0.05 mm chosen for the test) and the power band and weight edges, with boundary values
 // classed as documented in lib/core/engine/conformity.ts (the limit itself is inclusive).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
@@ -25,9 +25,9 @@ const row = (b: DeclaredFigures, r: ClassRules, key: string) => {
   return found;
 };
 
-test('nozzle maximum: the four worked decisions (ISO 14253-1:2017 / DOMAIN.md table)', () => {
+test('nozzle maximum: the four worked decisions (ISO 14253-1:2017 zones)', () => {
   const r = rules({ nozzle: { maxMm: 102 } });
-  // source: ISO 14253-1:2017 / DOMAIN.md worked decisions, upper limit 102.00 mm, U 0.05 mm
+  // source: ISO 14253-1:2017 zones applied by hand, upper limit 102.00 mm, U 0.05 mm
   const cases: [number, string][] = [
     [101.93, 'within'], // conformity proven
     [101.97, 'too_close'], // undecided
@@ -63,7 +63,7 @@ test('the declared tolerance is the uncertainty: a wider tolerance turns "within
 
 test('nozzle minimum mirrors the maximum (ISO 14253-1:2017, lower limit)', () => {
   const r = rules({ nozzle: { minMm: 98 } });
-  // lower limit 98.00 mm, U 0.05 mm: the DOMAIN.md table reflected about the limit
+  // lower limit 98.00 mm, U 0.05 mm: the same zones (ISO 14253-1:2017) reflected about the limit
   const cases: [number, string][] = [[98.07, 'within'], [98.03, 'too_close'], [97.98, 'too_close'], [97.94, 'outside']];
   for (const [declared, status] of cases) assert.equal(row(boat({ declaredNozzleMm: declared }), r, 'nozzle_min').status, status, `${declared} mm`);
 });

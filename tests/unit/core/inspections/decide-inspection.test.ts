@@ -1,9 +1,9 @@
 // decideInspection against outside references:
-// - the four worked decisions of DOMAIN.md (upper limit 102.00 mm, U 0.05 mm) under simple and
+// - four worked decisions (upper limit 102.00 mm, U 0.05 mm, chosen for the test) under simple and
 //   guarded acceptance (ILAC-G8:09/2019) and ISO 14253-1:2017;
 // - instrument budgets: rectangular a/√3 (JCGM 100:2008, 4.3.7), resolution δ/√12 (F.2.2.1), k = 2 (6.2.1);
 // - reference temperature 20 °C (ISO 1:2022): aluminium grows about 0.023 mm per 10 K at 100 mm
-//   (DOMAIN.md, alpha about 23e-6/K [memory for the coefficient]);
+//   (dL = alpha L dT, alpha about 23e-6/K [memory for the coefficient]);
 // - mean of repeat observations and its standard deviation s/√n (JCGM 100:2008, 4.2.1–4.2.3).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
@@ -36,7 +36,7 @@ const rule = (d: ReturnType<typeof decideInspection>, key: string) => {
   return r;
 };
 
-// DOMAIN.md worked decisions (upper limit 102.00 mm, U = 0.05 mm); sources ILAC-G8:09/2019, ISO 14253-1:2017.
+// Worked decisions (upper limit 102.00 mm, U = 0.05 mm), read off the zones of ILAC-G8:09/2019 and ISO 14253-1:2017.
 const WORKED: [number, Record<DecisionRule, Verdict>][] = [
   [101.93, { simple: 'conforms', guarded: 'conforms', iso14253: 'conforms' }],
   [101.97, { simple: 'conforms', guarded: 'does_not_conform', iso14253: 'inconclusive' }],
@@ -44,7 +44,7 @@ const WORKED: [number, Record<DecisionRule, Verdict>][] = [
   [102.06, { simple: 'does_not_conform', guarded: 'does_not_conform', iso14253: 'does_not_conform' }],
 ];
 
-test('the four worked decisions under each decision rule (DOMAIN.md; ILAC-G8:09/2019, ISO 14253-1:2017)', () => {
+test('the four worked decisions under each decision rule (ILAC-G8:09/2019, ISO 14253-1:2017)', () => {
   for (const [largest, expected] of WORKED) {
     for (const decisionRule of ['simple', 'guarded', 'iso14253'] as const) {
       // The largest of three readings decides against a maximum (ISO 14405-1:2016).
@@ -102,7 +102,7 @@ test('with no instrument and no U typed, the class default U applies; a scale fo
 });
 
 test('temperature correction to 20 °C (ISO 1:2022): aluminium at 30 °C reading 100.023 mm is 100.000 mm', () => {
-  // DOMAIN.md: an aluminium nozzle grows about 0.023 mm per 10 K at 100 mm.
+  // dL = alpha L dT = 23e-6/K x 100 mm x 10 K = 0.023 mm (alpha for aluminium [memory]).
   const base = input([100.023, 99.9, 99.95]);
   const d = decideInspection({ input: { ...base, nozzle: { ...base.nozzle, temperatureC: 30, material: 'aluminium' } }, rules: rules({ nozzle: { maxMm: 100, minMm: null, minReadings: 3, defaultUncertaintyMm: 0.05 } }) });
   assert.ok(Math.abs(d.nozzle.correctedReadingsMm[0] - 100.0) < 1e-4, `corrected ${d.nozzle.correctedReadingsMm[0]}`);
@@ -201,7 +201,7 @@ test('a targeted re-inspection decides only what it was ordered to check, with t
   assert.equal(full.overall, 'does_not_conform', 'a full inspection: the helmet is not ticked');
   const nozzleOnly = decideInspection({ input: i, rules: r, scope: scopeFromRequestedChecks(['nozzle_diameter']) });
   assert.deepEqual(nozzleOnly.rules.map((x) => x.rule), ['nozzle_max'], 'weight, power and safety are not decided');
-  assert.equal(nozzleOnly.overall, 'conforms', '101.93 mm under U 0.05 mm: conformity proven (DOMAIN.md worked decision, ISO 14253-1:2017)');
+  assert.equal(nozzleOnly.overall, 'conforms', '101.93 mm under U 0.05 mm: conformity proven (ISO 14253-1:2017: inside the limit reduced by U)');
   assert.deepEqual(nozzleOnly.scope, ['nozzle']);
   // The nozzle verdict is the very one the full inspection gives.
   assert.deepEqual(rule(nozzleOnly, 'nozzle_max'), rule(full, 'nozzle_max'));
