@@ -87,7 +87,7 @@ test('draft figures equal the engine on the same numbers; class statistics equal
   const { draft } = (await res.json()).data;
   assert.equal(draft.inputs.boats.length, 5);
   assert.deepEqual(draft.inputs.excluded.map((e: { reason: string }) => e.reason).sort(), ['Latest inspection does not conform', 'Not inspected yet']);
-  // ITTC 7.5-02-01-03: fresh water at 20 °C is 998.2071 kg/m³ (DOMAIN.md water table).
+  // ITTC Recommended Procedure 7.5-02-01-03: fresh water at 20 °C is 998.2071 kg/m³.
   assert.equal(draft.inputs.density.densityKgM3, 998.2071);
 
   const expected = computeParity(

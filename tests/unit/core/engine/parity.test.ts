@@ -35,7 +35,9 @@ test('summary statistics match simple-statistics', () => {
   relClose(s.maxStaticThrustN, max(t0), 1e-14, 'max');
   relClose(s.meanStaticThrustN, mean(t0), 1e-12, 'mean');
   relClose(s.sampleStandardDeviationN as number, sampleStandardDeviation(t0), 1e-9, 'sample SD');
-  // Definitions documented in parity.ts: spread = (max - min)/median, CV = sample SD / mean.
+  // Sample standard deviation and coefficient of variation CV = s / mean as in the NIST/SEMATECH e-Handbook of
+  // Statistical Methods (section 1.3.5.6, measures of scale [memory for the section]); spread = range / median, in
+  // per cent, is the report's own measure (common practice, no source).
   relClose(s.spreadPercent, ((max(t0) - min(t0)) / median(t0)) * 100, 1e-9, 'spread %');
   relClose(s.coefficientOfVariationPercent as number, (sampleStandardDeviation(t0) / mean(t0)) * 100, 1e-9, 'CV %');
   relClose(s.maxMinRatio, max(t0) / min(t0), 1e-14, 'max/min');

@@ -7,7 +7,7 @@
 // - first-order propagation of standard uncertainties for uncorrelated inputs, JCGM 100:2008 (GUM)
 //   5.1.2, eq. (10): u_c^2(y) = sum (df/dx_i)^2 u^2(x_i);
 // - median and range as defined in the NIST/SEMATECH e-Handbook of Statistical Methods, 1.3.5.1
-//   (measures of location) and 1.3.5.6 (measures of scale).
+//   (measures of location) and 1.3.5.6 (measures of scale) [memory for the section numbers].
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import {
