@@ -70,10 +70,12 @@ test('a password change asks for the current password, keeps this device signed 
 
   await phone.getByLabel('Current password').fill('first-long-password');
   await phone.getByLabel('New password').fill('second-long-password');
+  // The form signs this device back in with the new password: wait for that sign-in's answer, not a fixed pause.
+  const signedBackIn = phone.waitForResponse((r) => r.request().method() === 'POST' && new URL(r.url()).pathname === '/api/auth/callback/password', { timeout: 15_000 });
   await phone.getByRole('button', { name: 'Save password' }).click();
   await phone.getByTestId('password-result').filter({ hasText: 'Password changed' }).waitFor();
   await screenshot(phone, 'account-01-password-changed');
-  await phone.waitForTimeout(1500); // the form signs this device back in with the new password
+  await (await signedBackIn).finished();
   await phone.goto('/boats');
   assert.equal(new URL(phone.url()).pathname, '/boats', 'this device is still signed in');
 

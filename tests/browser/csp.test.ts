@@ -37,8 +37,14 @@ test('no CSP violations on the main screens', async () => {
   assert.notEqual(first, second, 'a fresh nonce for every response');
   // Markup that slipped into the page (an XSS) cannot run its inline handler: that would need
   // 'unsafe-inline', which the old policy had.
-  await page.evaluate(() => document.body.insertAdjacentHTML('beforeend', '<img src="/no-such-image.png" onerror="window.__injected = true">'));
-  await page.waitForTimeout(500);
+  // Instead of waiting a while, wait for the image's own error event: listeners run in the order they were
+  // added (DOM Standard, "inner invoke"), so the inline handler, set when the markup was parsed, would have run first.
+  const errored = await page.evaluate(() => new Promise<boolean>((resolve) => {
+    document.body.insertAdjacentHTML('beforeend', '<img id="csp-probe" src="/no-such-image.png" onerror="window.__injected = true">');
+    document.getElementById('csp-probe')!.addEventListener('error', () => resolve(true), { once: true });
+    setTimeout(() => resolve(false), 10_000);
+  }));
+  assert.equal(errored, true, 'the injected image failed to load (its error event fired)');
   assert.equal(await page.evaluate(() => (window as unknown as { __injected?: boolean }).__injected ?? false), false);
   await context.close();
 });

@@ -3,7 +3,7 @@
 // by race number (one after reloading the page from the phone's copy), sees them waiting, and when
 // the signal returns exactly two records arrive, once each. Last, a record the server refuses stays
 // on the phone as "Needs a fix".
-// Reference decisions: DOMAIN.md worked decisions (limit 102.00 mm, U 0.05 mm) under ISO 14253-1:2017:
+// Reference decisions: the zones of ISO 14253-1:2017 applied to a 102.00 mm limit with U 0.05 mm:
 // 101.93 mm conformity proven, 101.97 mm undecided (inconclusive).
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
@@ -35,7 +35,7 @@ async function ssBoats(): Promise<{ boats: Boat[]; safety: SafetyItem[] }> {
       where c.event_id = $1 and c.code = 'SS' and v.status = 'published' and v.effective_from <= now() order by v.effective_from desc limit 1`,
     [DEMO.meetingId],
   );
-  assert.equal(v.rules.nozzle.maxMm, 102, 'the check below uses the DOMAIN.md limit of 102.00 mm');
+  assert.equal(v.rules.nozzle.maxMm, 102, 'the check below is worked for a limit of 102.00 mm');
   return { boats, safety: v.rules.safetyItems };
 }
 

@@ -86,7 +86,7 @@ test('entrant: sign up → register a boat → enter the demo meeting → declar
   await page.getByLabel('Class', { exact: true }).selectOption(cls.id);
   const check = page.getByTestId('declaration-check');
   await check.waitFor();
-  // ISO 14253-1:2017 / DOMAIN.md worked decisions: 101.97 mm against a 102.00 mm maximum with U 0.05 mm is undecided.
+  // ISO 14253-1:2017 zones: 101.97 mm against a 102.00 mm maximum with U 0.05 mm is undecided (within U of the limit).
   const nozzleRow = check.locator('li[data-status]').filter({ hasText: 'Nozzle exit diameter, maximum' });
   assert.equal(await nozzleRow.getAttribute('data-status'), 'too_close');
   assert.match(await nozzleRow.innerText(), /too close to call/i);
@@ -116,7 +116,7 @@ test('entrant: sign up → register a boat → enter the demo meeting → declar
   assert.match(receipt.text, /Gorge Raven/);
 
   // At the dock the scrutineer measures 101.97 mm against the 102.00 mm limit with U = 0.05 mm
-  // (DOMAIN.md worked decision); My entries then says what the result asks of the entrant, with the caution.
+  // (undecided under ISO 14253-1:2017); My entries then says what the result asks of the entrant, with the caution.
   const [{ rules }] = await query<{ rules: { safetyItems: string[] } }>(
     `select rules from class_rule_versions where class_id = $1 and status = 'published' order by version desc limit 1`, [cls.id]);
   const scrutineer = new HttpSession();

@@ -3,7 +3,7 @@
 // weight, the unconfirmed power and the unticked helmet are not called inconclusive); each value
 // names its kind; a fourth reading gets an angle (180°/n spread); and a full inspection that does
 // not conform shows no "measure again" banner under it.
-// Reference decisions: DOMAIN.md worked decisions (limit 102.00 mm, U 0.05 mm) under ISO 14253-1:2017:
+// Reference decisions: the zones of ISO 14253-1:2017 applied to a 102.00 mm limit with U 0.05 mm:
 // 101.93 mm conformity proven, 101.97 mm neither proven (inconclusive).
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';

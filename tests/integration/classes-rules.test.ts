@@ -78,7 +78,7 @@ test('power entered in hp is stored in kW (NIST SP 811: 1 hp = 745.6998715822702
     powerUnit: 'hp', rules: rules({ power: { minKw: 300, maxKw: 402.3066, defaultUncertaintyKw: 0 } }),
   }, 'PUT');
   assert.equal(save.res.status, 200, JSON.stringify(save.body));
-  assert.ok(Math.abs(save.body.data.rules.power.maxKw - 300) < 1e-3, `402.3066 hp is 300 kW (DOMAIN.md check), got ${save.body.data.rules.power.maxKw}`);
+  assert.ok(Math.abs(save.body.data.rules.power.maxKw - 300) < 1e-3, `402.3066 hp is 300 kW (1 hp = 745.69987158227022 W, NIST SP 811 appendix B), got ${save.body.data.rules.power.maxKw}`);
   assert.ok(Math.abs(save.body.data.rules.power.minKw - 223.71) < 0.01);
 });
 

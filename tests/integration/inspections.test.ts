@@ -1,6 +1,6 @@
 // Inspection records through the real HTTP API and database: verdicts against the worked decisions,
 // idempotency, corrections, append-only storage and who may record.
-// Reference decisions: DOMAIN.md worked decisions (upper limit 102.00 mm, U 0.05 mm) under
+// Reference decisions: worked by hand for an upper limit of 102.00 mm and U 0.05 mm under
 // simple and guarded acceptance (ILAC-G8:09/2019) and ISO 14253-1:2017.
 import { test, before } from 'node:test';
 import assert from 'node:assert/strict';
@@ -26,7 +26,7 @@ before(async () => {
   await scrutineer.signInWithPassword(DEMO.scrutineer, DEMO_PASSWORD);
 });
 
-// DOMAIN.md worked decisions; sources ILAC-G8:09/2019 (simple, guarded w = U) and ISO 14253-1:2017.
+// Worked decisions read off the zones of ILAC-G8:09/2019 (simple, guarded w = U) and ISO 14253-1:2017.
 const WORKED: [number, { simple: string; guarded: string; iso14253: string }][] = [
   [101.93, { simple: 'conforms', guarded: 'conforms', iso14253: 'conforms' }],
   [101.97, { simple: 'conforms', guarded: 'does_not_conform', iso14253: 'inconclusive' }],
@@ -92,7 +92,7 @@ test('the same key sent three times makes one record (201 then 200, 200); two ke
 test('records for one entry sent at once: the entry ends with the result of the latest capture', async () => {
   // The entry's stored result must follow the record that counts (the latest capture time) however
   // the requests interleave: each writer takes the entry's lock before it recomputes. Alternating
-  // conforming and non-conforming readings (DOMAIN.md worked decisions, ISO 14253-1:2017) make a
+  // conforming and non-conforming readings (the worked decisions above, ISO 14253-1:2017) make a
   // wrong winner visible. Five rounds of eight.
   for (let round = 0; round < 5; round++) {
     const e = await meeting.addEntry(classes.iso14253);

@@ -87,7 +87,7 @@ test('draft figures equal the engine on the same numbers; class statistics equal
   const { draft } = (await res.json()).data;
   assert.equal(draft.inputs.boats.length, 5);
   assert.deepEqual(draft.inputs.excluded.map((e: { reason: string }) => e.reason).sort(), ['Latest inspection does not conform', 'Not inspected yet']);
-  // ITTC 7.5-02-01-03: fresh water at 20 °C is 998.2071 kg/m³ (DOMAIN.md water table).
+  // ITTC Recommended Procedure 7.5-02-01-03: fresh water at 20 °C is 998.2071 kg/m³.
   assert.equal(draft.inputs.density.densityKgM3, 998.2071);
 
   const expected = computeParity(
@@ -132,8 +132,12 @@ test('a published version never changes after later inspections; a new version s
 });
 
 test('the PDF opens with pdf-lib and carries the class, the rule version and one row per boat; the CSV parses to the page figures', async () => {
+  // Its own published version (not one left by an earlier test), read back from the class's list of versions.
+  const pub = await organiser.json(`/api/events/${eventId}/classes/${classId}/report/publish`, { note: 'PDF and CSV' });
+  assert.equal(pub.res.status, 201, JSON.stringify(pub.body));
   const versions = (await (await organiser.fetch(`/api/events/${eventId}/classes/${classId}/report`)).json()).data.versions;
   const latest = versions[0];
+  assert.equal(latest.publicId, pub.body.data.publicId, 'the newest version is the one just published');
   const pdfRes = await fetch(`${BASE_URL}/api/reports/${latest.publicId}/pdf`);
   assert.equal(pdfRes.headers.get('content-type'), 'application/pdf');
   const bytes = new Uint8Array(await pdfRes.arrayBuffer());

@@ -13,7 +13,7 @@ import { EVIDENCE_MAX_BYTES } from '../../lib/core/protests/protest-states';
 import { query } from '../support/db';
 import { extractPdfText } from '../support/pdf-text';
 import {
-  EVENT, DECISION_CLASS, BUCKET, s3, sha256, sleep, competitor, waitFor, protestRow, lodgedProtest, refundEventsFor, png, upload, setUpMeeting, publishResults, type Competitor,
+  EVENT, DECISION_CLASS, BUCKET, FAKE, s3, sha256, competitor, waitFor, protestRow, lodgedProtest, refundEventsFor, png, upload, setUpMeeting, publishResults, type Competitor,
 } from './protest-fixtures';
 
 let steward: HttpSession;
@@ -98,7 +98,12 @@ test('upheld refunds the fee exactly once and the decision PDF says so; dismisse
   const again = await steward.json(`/api/protests/${up.id}/decision`, { outcome: 'upheld', reasons: 'Deciding a second time must not refund again.' });
   assert.equal(again.res.status, 409);
   const refunds = await waitFor('the refund event', async () => { const r = await refundEventsFor(up.paymentIntentId); return r.length ? r : null; });
-  await sleep(500);
+  // Instead of a pause: wait until the fake has delivered that refund's webhook and the app has answered it, so
+  // anything the app does on hearing of the refund has been done; then there is still exactly one.
+  await waitFor('the refund webhook to be answered', async () => {
+    const events = (await (await fetch(`${FAKE}/_fake/events?type=charge.refunded`)).json()).data as { payload: string; delivered: boolean }[];
+    return events.some((e) => e.delivered && JSON.parse(e.payload).data.object.payment_intent === up.paymentIntentId);
+  });
   assert.equal((await refundEventsFor(up.paymentIntentId)).length, 1, 'one refund for the protest');
   assert.equal(refunds[0].amount_refunded, 5000);
 
@@ -130,7 +135,8 @@ test('upheld refunds the fee exactly once and the decision PDF says so; dismisse
   assert.equal((new Date(downRow.appeal_deadline as string).getTime() - new Date(downRow.decided_at as string).getTime()) / 60_000, 30, 'the meeting\'s own appeal notice');
   assert.equal((await organiser.json(`/api/events/${EVENT}`, { ...meeting, appealNoticeMinutes: 60 }, 'PATCH')).res.status, 200);
   assert.equal(downRow.refund_id, null);
-  await sleep(500);
+  // No pause needed: a refund is asked for inside the deciding request (the upheld protest above had its
+  // refund id on its row when its answer came), and the fake records a refund before it answers.
   assert.equal((await refundEventsFor(down.paymentIntentId)).length, 0, 'a dismissed protest keeps its fee');
   assert.equal((await O.s.fetch(`/api/protests/${down.id}/decision.pdf`)).status, 404);
 });

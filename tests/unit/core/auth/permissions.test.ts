@@ -1,0 +1,64 @@
+// The one permission table: each role's allowed and denied permissions, written out here by
+// hand from the product's role descriptions (common practice at race meetings, no single source:
+// scrutineers inspect, stewards decide protests, organisers run the meeting and publish; parts taken
+// into custody at the dock are released by the chief scrutineer or the stewards).
+import { test } from 'node:test';
+import assert from 'node:assert/strict';
+import { PERMISSIONS, ROLES, permissionsOf, roleCan, rolesCan, type Permission, type Role } from '../../../../lib/core/auth/permissions';
+import { navFor } from '../../../../lib/core/navigation';
+
+const EXPECTED: Record<Role, Permission[]> = {
+  entrant: ['account.view', 'boat.manage_own', 'entry.submit_own', 'protest.lodge'],
+  scrutineer: ['account.view', 'inspection.record', 'inspection.board', 'custody.take', 'custody.view', 'interest.declare'],
+  chief_scrutineer: ['account.view', 'entry.view_all', 'tags.print', 'inspection.record', 'inspection.board', 'inspection.assign_reinspection', 'instrument.manage', 'custody.take', 'custody.release', 'custody.view', 'interest.declare'],
+  steward: ['account.view', 'entry.view_all', 'inspection.assign_reinspection', 'protest.decide', 'protest.view_all', 'audit.read', 'custody.take', 'custody.release', 'custody.view', 'interest.declare', 'interest.view_register'],
+  organiser: [
+    'account.view', 'event.create', 'event.edit', 'event.staff_manage', 'class.edit', 'entry.view_all', 'entry.cancel',
+    'tags.print', 'report.publish', 'results.publish', 'inspection.board', 'instrument.manage', 'protest.view_all', 'audit.read', 'custody.view',
+    'interest.declare', 'interest.view_register',
+  ],
+  admin: ['account.view', 'event.create', 'admin.manage_users', 'dev.outbox'],
+};
+
+for (const role of ROLES) {
+  test(`${role}: allowed exactly the expected permissions`, () => {
+    assert.deepEqual(new Set(permissionsOf(role)), new Set(EXPECTED[role]));
+  });
+  test(`${role}: denied every other permission`, () => {
+    for (const p of Object.keys(PERMISSIONS) as Permission[]) {
+      if (!EXPECTED[role].includes(p)) assert.equal(roleCan(role, p), false, `${role} must not have ${p}`);
+    }
+  });
+}
+
+test('separation of duties: no one decides a protest and records an inspection with one role', () => {
+  for (const role of ROLES) assert.ok(!(roleCan(role, 'protest.decide') && roleCan(role, 'inspection.record')), role);
+});
+
+test('conflicts of interest: every official of a meeting declares; only stewards and the organiser read the whole register; an entrant neither', () => {
+  for (const role of ['scrutineer', 'chief_scrutineer', 'steward', 'organiser'] as const) assert.equal(roleCan(role, 'interest.declare'), true, role);
+  assert.deepEqual(ROLES.filter((r) => roleCan(r, 'interest.view_register')), ['steward', 'organiser']);
+  assert.equal(rolesCan(['entrant', 'admin'], 'interest.declare'), false);
+});
+
+test('an entrant cannot record inspections or decide protests; a combination of roles adds up', () => {
+  assert.equal(rolesCan(['entrant'], 'inspection.record'), false);
+  assert.equal(rolesCan(['entrant'], 'protest.decide'), false);
+  assert.equal(rolesCan(['entrant', 'scrutineer'], 'inspection.record'), true);
+});
+
+test('navigation shows each role only its areas', () => {
+  const hrefs = (roles: Role[]) => navFor(roles).map((i) => i.href);
+  assert.deepEqual(hrefs(['entrant']), ['/home', '/boats', '/entries', '/protests', '/calculator', '/account']);
+  assert.ok(hrefs(['entrant', 'organiser']).includes('/organise'));
+  assert.ok(!hrefs(['entrant', 'scrutineer']).includes('/organise'));
+  assert.ok(hrefs(['entrant', 'admin']).includes('/admin'));
+  assert.ok(!hrefs(['entrant', 'organiser']).includes('/admin'));
+  for (const staff of ['scrutineer', 'chief_scrutineer', 'organiser'] as const) assert.ok(hrefs(['entrant', staff]).includes('/inspect'), staff);
+  assert.ok(!hrefs(['entrant', 'steward']).includes('/inspect'));
+});
+
+test('the demo outbox (everyone\'s sign-in links) is the site administrator\'s alone', () => {
+  for (const role of ROLES) assert.equal(roleCan(role, 'dev.outbox'), role === 'admin', role);
+  assert.equal(rolesCan(ROLES.filter((r) => r !== 'admin'), 'dev.outbox'), false, 'no combination of other roles adds up to it');
+});
