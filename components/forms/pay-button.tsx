@@ -1,0 +1,16 @@
+'use client';
+
+import { useFormAction } from './use-form-action';
+import { openCheckout } from './checkout';
+
+/** Pays a fee on the provider's hosted page; stays busy while the browser leaves for it. */
+export function PayButton({ checkoutUrl, label }: { checkoutUrl: string; label: string }) {
+  const { state, isPending, form } = useFormAction(async () => openCheckout(checkoutUrl), null);
+  const isLeaving = isPending || state?.ok === true;
+  return (
+    <form {...form} className="space-y-1">
+      <button type="submit" className="btn-primary" disabled={isLeaving}>{isLeaving ? 'Opening the payment page…' : label}</button>
+      <p aria-live="polite" className="field-error">{state?.ok ? null : state?.message}</p>
+    </form>
+  );
+}
