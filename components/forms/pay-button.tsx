@@ -2,6 +2,7 @@
 
 import { useFormAction } from './use-form-action';
 import { openCheckout } from './checkout';
+import { FormMessage } from './form-message';
 
 /** Pays a fee on the provider's hosted page; stays busy while the browser leaves for it. */
 export function PayButton({ checkoutUrl, label }: { checkoutUrl: string; label: string }) {
@@ -9,8 +10,8 @@ export function PayButton({ checkoutUrl, label }: { checkoutUrl: string; label: 
   const isLeaving = isPending || state?.ok === true;
   return (
     <form {...form} className="space-y-1">
+      <FormMessage state={state} testId="pay-message" />
       <button type="submit" className="btn-primary" disabled={isLeaving}>{isLeaving ? 'Opening the payment page…' : label}</button>
-      <p aria-live="polite" className="field-error">{state?.ok ? null : state?.message}</p>
     </form>
   );
 }
