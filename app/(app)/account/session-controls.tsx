@@ -1,30 +1,32 @@
 'use client';
 
-import { useActionState, useEffect } from 'react';
+import { useEffect } from 'react';
 import { signOut } from 'next-auth/react';
 import { resendAddressProofAction, signOutEverywhereAction } from './actions';
+import { FormMessage } from '@/components/forms/form-message';
+import { useFormAction } from '@/components/forms/use-form-action';
 
 export function SignOutEverywhereForm() {
-  const [state, action, isPending] = useActionState(signOutEverywhereAction, null);
+  const { state, isPending, form } = useFormAction(signOutEverywhereAction, null);
   useEffect(() => {
     if (state?.ok) void signOut({ callbackUrl: '/sign-in' });
   }, [state]);
   return (
-    <form action={action} className="space-y-2">
+    <form {...form} className="space-y-2">
       <input type="hidden" name="confirm" value="everywhere" />
+      <FormMessage state={state} testId="sign-out-everywhere-result" />
       <button type="submit" className="btn-secondary" disabled={isPending}>{isPending ? 'Signing out…' : 'Sign out everywhere'}</button>
-      <p aria-live="polite" className={state?.ok ? 'font-bold text-pass-600' : 'field-error'}>{state?.message}</p>
     </form>
   );
 }
 
 export function ResendProofForm() {
-  const [state, action, isPending] = useActionState(resendAddressProofAction, null);
+  const { state, isPending, form } = useFormAction(resendAddressProofAction, null);
   return (
-    <form action={action} className="space-y-2">
+    <form {...form} className="space-y-2">
       <input type="hidden" name="confirm" value="send" />
+      <FormMessage state={state} testId="resend-result" />
       <button type="submit" className="btn-secondary" disabled={isPending}>{isPending ? 'Sending…' : 'Send the link again'}</button>
-      <p aria-live="polite" data-testid="resend-result" className={state?.ok ? 'font-bold text-pass-600' : 'field-error'}>{state?.message}</p>
     </form>
   );
 }

@@ -1,14 +1,14 @@
 'use client';
 
-import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { CreateBoatInput, UpdateBoatInput, NOZZLE_UNITS, POWER_UNITS } from '@/lib/core/inputs/boats';
 import { POWER_EVIDENCE } from '@/lib/core/constants';
 import { fieldErrors } from '@/lib/core/errors';
 import { TextField } from '@/components/ui/text-field';
+import { FieldError, FormMessage } from '@/components/forms/form-message';
+import { CHECK_FIELDS_MESSAGE, refusalState, requestJson, type FormState } from '@/components/forms/request-json';
+import { useFormAction } from '@/components/forms/use-form-action';
 import type { BoatView } from '@/lib/server/boats/boat-view';
-
-type Errors = Record<string, string>;
 
 /** A number field with its unit picker beside it; the error sits under both. */
 function NumberWithUnit(props: {
@@ -47,11 +47,13 @@ const REQUIRED_NUMBERS = ['nozzleDiameter', 'nozzleToleranceMm', 'power'];
 const OPTIONAL_NUMBERS = ['displacementL', 'declaredWeightKg'];
 
 /** Reads the form as the API wants it: numbers as numbers, an empty required one left out ("Enter …"). */
-function readForm(form: HTMLFormElement): Record<string, unknown> {
+function readForm(form: FormData): Record<string, unknown> {
   const out: Record<string, unknown> = {};
-  for (const [k, v] of new FormData(form)) if (typeof v === 'string') out[k] = v;
+  for (const [k, v] of form) if (typeof v === 'string') out[k] = v;
   for (const k of [...REQUIRED_NUMBERS, ...OPTIONAL_NUMBERS]) {
-    const n = (form.elements.namedItem(k) as HTMLInputElement).valueAsNumber;
+    // A number field's value is '' when empty or not a number (the browser's own reading), as valueAsNumber's NaN.
+    const typed = String(form.get(k) ?? '');
+    const n = typed.trim() === '' ? NaN : Number(typed);
     if (Number.isNaN(n)) {
       if (OPTIONAL_NUMBERS.includes(k)) out[k] = null;
       else delete out[k];
@@ -62,47 +64,28 @@ function readForm(form: HTMLFormElement): Record<string, unknown> {
 
 export function BoatForm({ boat }: { boat?: BoatView }) {
   const router = useRouter();
-  const [errors, setErrors] = useState<Errors>({});
-  const [message, setMessage] = useState<{ ok: boolean; text: string }>();
-  const [isBusy, setBusy] = useState(false);
-
-  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    setMessage(undefined);
-    const body = readForm(e.currentTarget);
+  const { state, isPending, form } = useFormAction(async (_prev: FormState, data: FormData): Promise<FormState> => {
+    const body = readForm(data);
     const parsed = (boat ? UpdateBoatInput : CreateBoatInput).safeParse(body);
-    if (!parsed.success) {
-      setErrors(fieldErrors(parsed.error));
-      setMessage({ ok: false, text: 'Check the fields marked below.' });
-      return;
-    }
-    setBusy(true);
-    setErrors({});
-    const res = await fetch(boat ? `/api/boats/${boat.id}` : '/api/boats', {
+    if (!parsed.success) return { ok: false, fieldErrors: fieldErrors(parsed.error), message: CHECK_FIELDS_MESSAGE };
+    const answer = await requestJson<{ id: string }>(boat ? `/api/boats/${boat.id}` : '/api/boats', {
       method: boat ? 'PATCH' : 'POST',
-      headers: { 'content-type': 'application/json' },
-      body: JSON.stringify(body),
+      body,
+      fallbackMessage: 'The boat could not be saved. Try again.',
     });
-    const json = await res.json().catch(() => null);
-    setBusy(false);
-    if (!res.ok) {
-      const next: Errors = {};
-      for (const d of json?.error?.details ?? []) next[d.field] ??= d.message;
-      setErrors(next);
-      setMessage({ ok: false, text: json?.error?.message ?? 'The boat could not be saved. Try again.' });
-      return;
-    }
+    if (!answer.ok) return refusalState(answer);
     if (!boat) {
-      router.push(`/boats/${json.data.id}`);
-      return;
+      router.push(`/boats/${answer.data.id}`);
+      return { ok: true };
     }
-    setMessage({ ok: true, text: 'Declaration saved.' });
     router.refresh();
-  }
+    return { ok: true, message: 'Declaration saved.' };
+  }, { ok: false });
+  const errors = state.fieldErrors ?? {};
 
   return (
-    <form onSubmit={onSubmit} noValidate aria-label={boat ? 'Edit the declaration' : 'Register a boat'}>
-      <fieldset disabled={isBusy} className="space-y-4">
+    <form {...form} aria-label={boat ? 'Edit the declaration' : 'Register a boat'}>
+      <fieldset disabled={isPending} className="space-y-4">
         <TextField name="name" label="Boat name" defaultValue={boat?.name} autoComplete="off" error={errors.name} />
         <TextField name="hullNumber" label="Hull or sail number" defaultValue={boat?.hullNumber} autoComplete="off"
           hint="As painted on the hull, like 42 or NZ-42. A plain number (1–9999) is asked for as your race number when you enter." error={errors.hullNumber} />
@@ -121,17 +104,15 @@ export function BoatForm({ boat }: { boat?: BoatView }) {
           <select id="powerEvidence" name="powerEvidence" defaultValue={boat?.powerEvidence ?? 'none'} className="field-input">
             {Object.entries(POWER_EVIDENCE).map(([v, label]) => <option key={v} value={v}>{label}</option>)}
           </select>
-          {errors.powerEvidence && <p className="field-error" data-field-error="powerEvidence">{errors.powerEvidence}</p>}
+          <FieldError name="powerEvidence" error={errors.powerEvidence} />
         </div>
         <TextField name="displacementL" label="Engine displacement" unit="L" type="number" inputMode="decimal" step="any"
           defaultValue={boat?.displacementL ?? undefined} hint="Optional." error={errors.displacementL} />
         <TextField name="declaredWeightKg" label="Weight" unit="kg" type="number" inputMode="decimal" step="any"
           defaultValue={boat?.declaredWeightKg ?? undefined} hint="Optional; say with or without driver as your class counts it." error={errors.declaredWeightKg} />
-        <div aria-live="polite">
-          {message && <p className={message.ok ? 'font-bold text-pass-600' : 'field-error'} data-testid="boat-form-message">{message.text}</p>}
-        </div>
+        <FormMessage state={state} testId="boat-form-message" />
         <button type="submit" className="btn-primary w-full sm:w-auto">
-          {isBusy ? 'Saving…' : boat ? 'Save the declaration' : 'Register the boat'}
+          {isPending ? 'Saving…' : boat ? 'Save the declaration' : 'Register the boat'}
         </button>
       </fieldset>
     </form>

@@ -1,11 +1,13 @@
 'use client';
 
-import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { InviteStaffInput } from '@/lib/core/inputs/auth';
 import { fieldErrors } from '@/lib/core/errors';
 import { EVENT_STAFF_ROLES } from '@/lib/core/constants';
 import { TextField } from '@/components/ui/text-field';
+import { FieldError, FormMessage } from '@/components/forms/form-message';
+import { CHECK_FIELDS_MESSAGE, refusalState, requestJson, type FormState } from '@/components/forms/request-json';
+import { useFormAction } from '@/components/forms/use-form-action';
 
 const ROLE_LABEL: Record<string, string> = {
   organiser: 'Organiser',
@@ -16,44 +18,24 @@ const ROLE_LABEL: Record<string, string> = {
 
 export function InviteStaffForm({ eventId }: { eventId: string }) {
   const router = useRouter();
-  const [errors, setErrors] = useState<Record<string, string>>({});
-  const [message, setMessage] = useState<string>();
-  const [isBusy, setBusy] = useState(false);
-
-  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    const formEl = e.currentTarget;
-    const parsed = InviteStaffInput.safeParse(Object.fromEntries(new FormData(formEl)));
-    setMessage(undefined);
-    if (!parsed.success) return setErrors(fieldErrors(parsed.error));
-    setBusy(true);
-    setErrors({});
-    const res = await fetch(`/api/events/${eventId}/staff`, {
-      method: 'POST',
-      headers: { 'content-type': 'application/json' },
-      body: JSON.stringify(parsed.data),
-    });
-    const body = await res.json().catch(() => null);
-    setBusy(false);
-    if (!res.ok) {
-      const next: Record<string, string> = {};
-      for (const d of body?.error?.details ?? []) next[d.field] ??= d.message;
-      setErrors(next);
-      setMessage(body?.error?.message ?? 'The invitation could not be sent.');
-      return;
-    }
-    formEl.reset();
-    setMessage(
-      body.data.outcome === 'assigned'
+  const { state, isPending, form } = useFormAction(async (_prev: FormState, data: FormData): Promise<FormState> => {
+    const parsed = InviteStaffInput.safeParse(Object.fromEntries(data));
+    if (!parsed.success) return { ok: false, fieldErrors: fieldErrors(parsed.error), message: CHECK_FIELDS_MESSAGE };
+    const answer = await requestJson<{ outcome: string }>(`/api/events/${eventId}/staff`, { body: parsed.data, fallbackMessage: 'The invitation could not be sent.' });
+    if (!answer.ok) return refusalState(answer);
+    router.refresh();
+    return {
+      ok: true,
+      message: answer.data.outcome === 'assigned'
         ? `${parsed.data.email} already has an account and now has the role (they were told by e-mail).`
         : `Invitation sent to ${parsed.data.email}: the role is given only when the link in it is followed from that mailbox.`,
-    );
-    router.refresh();
-  }
+    };
+  }, { ok: false }, { resetOnSuccess: true });
+  const errors = state.fieldErrors ?? {};
 
   return (
-    <form onSubmit={onSubmit} noValidate className="rounded-lg bg-paper-deep p-4">
-      <fieldset disabled={isBusy} className="grid gap-3 sm:grid-cols-[1fr_12rem_auto] sm:items-end">
+    <form {...form} className="rounded-lg bg-paper-deep p-4">
+      <fieldset disabled={isPending} className="grid gap-3 sm:grid-cols-[1fr_12rem_auto] sm:items-end">
         <legend className="mb-2 font-bold">Add staff: a person whose address is confirmed gets the role at once, anyone else an e-mailed invitation</legend>
         <TextField id={`invite-email-${eventId}`} name="email" label="E-mail" type="email" error={errors.email} />
         <div>
@@ -61,11 +43,11 @@ export function InviteStaffForm({ eventId }: { eventId: string }) {
           <select id={`invite-role-${eventId}`} name="role" className="field-input" defaultValue="scrutineer">
             {EVENT_STAFF_ROLES.map((r) => <option key={r} value={r}>{ROLE_LABEL[r]}</option>)}
           </select>
-          {errors.role && <p className="field-error">{errors.role}</p>}
+          <FieldError name="role" error={errors.role} />
         </div>
-        <button type="submit" className="btn-primary">{isBusy ? 'Sending…' : 'Send invitation'}</button>
+        <FormMessage state={state} testId="invite-message" className="sm:col-span-3" />
+        <button type="submit" className="btn-primary justify-self-start">{isPending ? 'Sending…' : 'Send invitation'}</button>
       </fieldset>
-      <p aria-live="polite" className="mt-2 font-bold">{message}</p>
     </form>
   );
 }

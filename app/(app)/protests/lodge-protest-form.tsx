@@ -2,55 +2,53 @@
 
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
-import { useJsonSubmit, FormMessage } from '@/components/ui/use-json-submit';
+import { openCheckout } from '@/components/forms/checkout';
+import { FieldError, FormMessage } from '@/components/forms/form-message';
+import { refusalState, requestJson, type FormState } from '@/components/forms/request-json';
+import { useFormAction } from '@/components/forms/use-form-action';
 import { formatMoney } from '@/lib/core/inputs/entries';
 import { REQUESTED_CHECKS } from '@/lib/core/protests/protest-states';
 import type { ProtestableEvent } from '@/lib/server/protests/list-protestable-entries';
 import type { ProtestDetail } from '@/lib/server/protests/get-protest';
 import { DeadlineCountdown } from './deadline-countdown';
 
-const FieldError = ({ name, error }: { name: string; error?: string }) =>
-  error ? <p id={`${name}-error`} className="field-error" data-field-error={name}>{error}</p> : null;
+type LodgeState = FormState & { isPaying?: boolean };
 
 /** Lodge a protest against another entry of a meeting with published results, then pay the fee on the provider's page. */
 export function LodgeProtestForm({ events }: { events: ProtestableEvent[] }) {
   const router = useRouter();
-  const { submit, isBusy, fieldErrors, message, setMessage } = useJsonSubmit<ProtestDetail>();
   const [eventId, setEventId] = useState(events[0]?.eventId ?? '');
   const [entryId, setEntryId] = useState('');
-  const [isPaying, setPaying] = useState(false);
   const event = events.find((e) => e.eventId === eventId);
   const entry = event?.entries.find((e) => e.entryId === entryId);
 
-  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    const data = new FormData(e.currentTarget);
+  const { state, isPending, form } = useFormAction(async (_prev: LodgeState, data: FormData): Promise<LodgeState> => {
     const body = {
       againstEntryId: entryId || undefined,
       ruleReference: String(data.get('ruleReference') ?? ''),
       grounds: String(data.get('grounds') ?? ''),
       requestedChecks: data.getAll('requestedChecks').map(String),
     };
-    const res = await submit(`/api/events/${eventId}/protests`, body);
-    if (!res.ok) return;
-    if (res.data.status !== 'awaiting_fee') return router.push(`/protests/${res.data.id}`);
-    setPaying(true);
-    const pay = await fetch(`/api/protests/${res.data.id}/checkout`, { method: 'POST' });
-    const json = await pay.json().catch(() => null);
-    if (!pay.ok || !json?.data?.url) {
-      setPaying(false);
-      setMessage({ tone: 'error', text: `Your protest is saved, but the payment page did not open: ${json?.error?.message ?? 'try again from the protest page.'}` });
-      return router.push(`/protests/${res.data.id}`);
+    const answer = await requestJson<ProtestDetail>(`/api/events/${eventId}/protests`, { body });
+    if (!answer.ok) return refusalState(answer);
+    const protest = answer.data;
+    if (protest.status !== 'awaiting_fee') {
+      router.push(`/protests/${protest.id}`);
+      return { ok: true };
     }
-    window.location.assign(json.data.url);
-  }
+    const paying = await openCheckout(`/api/protests/${protest.id}/checkout`, 'try again from the protest page.');
+    if (paying.ok) return { ok: true, isPaying: true };
+    router.push(`/protests/${protest.id}`);
+    return { ok: false, message: `Your protest is saved, but the payment page did not open: ${paying.message}` };
+  }, { ok: false });
+  const fieldErrors = state.fieldErrors ?? {};
 
   const err = (f: string) => fieldErrors[f];
   const describedBy = (f: string) => (err(f) ? `${f}-error` : undefined);
   return (
-    <form onSubmit={onSubmit} noValidate className="card space-y-4" aria-label="Lodge a protest">
+    <form {...form} className="card space-y-4" aria-label="Lodge a protest">
       <h2>Lodge a protest</h2>
-      <fieldset disabled={isBusy || isPaying} className="space-y-4">
+      <fieldset disabled={isPending || state.isPaying} className="space-y-4">
         <div>
           <label htmlFor="protest-event" className="field-label">Meeting</label>
           <select id="protest-event" className="field-input" value={eventId} onChange={(e) => { setEventId(e.target.value); setEntryId(''); }}>
@@ -88,11 +86,11 @@ export function LodgeProtestForm({ events }: { events: ProtestableEvent[] }) {
             ))}
           </div>
         </fieldset>
+        <FormMessage state={state} />
         <button type="submit" className="btn-primary" disabled={!entry || !entry.window.isOpen}>
-          {isPaying ? 'Opening the payment page…' : event && event.feeMinor > 0 ? 'Lodge and pay the fee' : 'Lodge the protest'}
+          {state.isPaying ? 'Opening the payment page…' : event && event.feeMinor > 0 ? 'Lodge and pay the fee' : 'Lodge the protest'}
         </button>
       </fieldset>
-      <FormMessage message={message} />
     </form>
   );
 }

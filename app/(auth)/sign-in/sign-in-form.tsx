@@ -3,6 +3,8 @@
 import { useState } from 'react';
 import { signIn } from 'next-auth/react';
 import { useRouter } from 'next/navigation';
+import type { FormState } from '@/components/forms/request-json';
+import { useFormAction } from '@/components/forms/use-form-action';
 
 const MESSAGES: Record<string, string> = {
   CredentialsSignin: 'That e-mail and password do not match an account.',
@@ -15,32 +17,24 @@ const MESSAGES: Record<string, string> = {
 export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string; initialError?: string }) {
   const router = useRouter();
   const [mode, setMode] = useState<'password' | 'link'>('password');
-  const [error, setError] = useState(initialError);
-  const [isBusy, setBusy] = useState(false);
 
-  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    const form = new FormData(e.currentTarget);
-    const email = String(form.get('email') ?? '');
-    setBusy(true);
-    setError(undefined);
+  const { state, isPending, form } = useFormAction(async (_prev: FormState, data: FormData): Promise<FormState> => {
+    const email = String(data.get('email') ?? '');
     // A refused link request (too many from this address) makes next-auth's client throw.
     const res = await (mode === 'password'
-      ? signIn('password', { email, password: String(form.get('password') ?? ''), redirect: false, callbackUrl })
+      ? signIn('password', { email, password: String(data.get('password') ?? ''), redirect: false, callbackUrl })
       : signIn('email', { email, redirect: false, callbackUrl })
     ).catch(() => ({ error: mode === 'link' ? 'TooManyLinks' : 'Unavailable' }));
-    setBusy(false);
-    if (!res || res.error) {
-      setError(MESSAGES[res?.error ?? ''] ?? 'Sign-in failed. Check the address and try again.');
-      return;
-    }
+    if (!res || res.error) return { ok: false, message: MESSAGES[res?.error ?? ''] ?? 'Sign-in failed. Check the address and try again.' };
     router.push(mode === 'password' ? callbackUrl : '/sign-in/check-email');
     router.refresh();
-  }
+    return { ok: true };
+  }, { ok: false, message: initialError });
 
+  const error = state.ok ? undefined : state.message;
   return (
-    <form onSubmit={onSubmit} noValidate>
-      <fieldset disabled={isBusy} className="space-y-4">
+    <form {...form}>
+      <fieldset disabled={isPending} className="space-y-4">
         <div role="group" aria-label="Sign-in method" className="grid grid-cols-2 gap-2">
           {(['password', 'link'] as const).map((m) => (
             <button
@@ -68,7 +62,7 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
           {error && <p id="sign-in-error" className="field-error" data-testid="sign-in-error">{error}</p>}
         </div>
         <button type="submit" className="btn-primary w-full">
-          {isBusy ? 'Signing in…' : mode === 'password' ? 'Sign in' : 'Send the link'}
+          {isPending ? 'Signing in…' : mode === 'password' ? 'Sign in' : 'Send the link'}
         </button>
       </fieldset>
     </form>

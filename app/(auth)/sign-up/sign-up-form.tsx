@@ -1,52 +1,32 @@
 'use client';
 
-import { useState } from 'react';
 import { SignUpInput } from '@/lib/core/inputs/auth';
 import { fieldErrors } from '@/lib/core/errors';
 import { TextField } from '@/components/ui/text-field';
+import { FormMessage } from '@/components/forms/form-message';
+import { refusalState, requestJson, type FormState } from '@/components/forms/request-json';
+import { useFormAction } from '@/components/forms/use-form-action';
 
-type Errors = Partial<Record<'name' | 'email' | 'password' | 'form', string>>;
+type State = FormState & { sentTo?: string };
+
+async function signUp(_prev: State, form: FormData): Promise<State> {
+  const parsed = SignUpInput.safeParse(Object.fromEntries(form));
+  if (!parsed.success) return { ok: false, fieldErrors: fieldErrors(parsed.error) };
+  const answer = await requestJson('/api/accounts', { body: parsed.data, fallbackMessage: 'Sign-up failed. Try again.' });
+  if (!answer.ok) return refusalState(answer);
+  return { ok: true, sentTo: parsed.data.email };
+}
 
 export function SignUpForm() {
-  const [errors, setErrors] = useState<Errors>({});
-  const [isBusy, setBusy] = useState(false);
-  const [sentTo, setSentTo] = useState<string | null>(null);
+  const { state, isPending, form } = useFormAction(signUp, { ok: false });
 
-  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    const raw = Object.fromEntries(new FormData(e.currentTarget));
-    const parsed = SignUpInput.safeParse(raw);
-    if (!parsed.success) {
-      setErrors(fieldErrors(parsed.error));
-      return;
-    }
-    setBusy(true);
-    setErrors({});
-    const res = await fetch('/api/accounts', {
-      method: 'POST',
-      headers: { 'content-type': 'application/json' },
-      body: JSON.stringify(parsed.data),
-    });
-    if (!res.ok) {
-      const body = await res.json().catch(() => null);
-      const next: Errors = {};
-      for (const d of body?.error?.details ?? []) next[d.field as keyof Errors] ??= d.message;
-      if (Object.keys(next).length === 0) next.form = body?.error?.message ?? 'Sign-up failed. Try again.';
-      setErrors(next);
-      setBusy(false);
-      return;
-    }
-    setBusy(false);
-    setSentTo(parsed.data.email);
-  }
-
-  if (sentTo) {
+  if (state.ok && state.sentTo) {
     // The same answer whether or not the address already had an account (nothing to learn here).
     return (
       <div role="status" className="card space-y-2" data-testid="sign-up-sent">
         <h2 className="text-xl">Check your mailbox</h2>
         <p>
-          We sent a message to <strong>{sentTo}</strong>. Follow its link and give your password to confirm the address: you
+          We sent a message to <strong>{state.sentTo}</strong>. Follow its link and give your password to confirm the address: you
           need a confirmed address to enter classes, pay fees or serve on a meeting&apos;s staff.
         </p>
         <p className="text-ink-soft">Nothing arrived after a few minutes? Check the spam folder, or sign in and ask for a new link on My account.</p>
@@ -54,14 +34,15 @@ export function SignUpForm() {
     );
   }
 
+  const errors = state.fieldErrors ?? {};
   return (
-    <form onSubmit={onSubmit} noValidate>
-      <fieldset disabled={isBusy} className="space-y-4">
+    <form {...form}>
+      <fieldset disabled={isPending} className="space-y-4">
         <TextField name="name" label="Your name" autoComplete="name" error={errors.name} />
         <TextField name="email" label="E-mail" type="email" autoComplete="email" error={errors.email} />
         <TextField name="password" label="Password" type="password" autoComplete="new-password" hint="At least 10 characters." error={errors.password} />
-        <div aria-live="polite">{errors.form && <p className="field-error">{errors.form}</p>}</div>
-        <button type="submit" className="btn-primary w-full">{isBusy ? 'Creating…' : 'Create account'}</button>
+        <FormMessage state={state} />
+        <button type="submit" className="btn-primary w-full">{isPending ? 'Creating…' : 'Create account'}</button>
       </fieldset>
     </form>
   );

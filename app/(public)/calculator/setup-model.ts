@@ -142,13 +142,12 @@ export function humanMessage(field: SetupField, apiMessage: string): string {
   return `${label} ${rest}${/[.!]$/.test(rest) ? '' : '.'}`;
 }
 
-/** The API's details [{ field, message }] as messages per set-up field (first message wins), in the form's words. */
-export function toFieldErrors(details: unknown): FieldErrors {
+/** The API's field errors (its dotted field -> message, from requestJson) per set-up field (first message wins), in the form's words. */
+export function toFieldErrors(apiErrors: Record<string, string>): FieldErrors {
   const out: FieldErrors = {};
-  if (!Array.isArray(details)) return out;
-  for (const d of details as { field?: unknown; message?: unknown }[]) {
-    const field = API_FIELDS[String(d?.field)];
-    if (field && typeof d.message === 'string') out[field] ??= humanMessage(field, d.message);
+  for (const [apiField, message] of Object.entries(apiErrors)) {
+    const field = API_FIELDS[apiField];
+    if (field) out[field] ??= humanMessage(field, message);
   }
   return out;
 }

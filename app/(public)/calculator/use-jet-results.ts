@@ -10,6 +10,7 @@ import {
   CURVE_SPEEDS_MS, findCurveCrossingMs, hasSameModel, toFieldErrors, toModelBody, toNozzleDiameterMm,
 } from './setup-model';
 import type { FieldErrors, ModelBody, SetupDraft } from './setup-model';
+import { requestJson } from '@/components/forms/request-json';
 
 const DEBOUNCE_MS = 300;
 
@@ -38,18 +39,23 @@ interface SetupRequest {
 
 class ServiceProblem extends Error {}
 
-type ApiAnswer<T> = { ok: true; data: T } | { ok: false; details: unknown; message: string };
+type ApiAnswer<T> = { ok: true; data: T } | { ok: false; fieldErrors: Record<string, string>; message: string };
 
-/** One POST; a 400 comes back as field details, anything else unexpected is a ServiceProblem. */
+/** One POST; a 400 comes back as the API's field errors, anything else unexpected is a ServiceProblem. */
 async function postJson<T>(url: string, body: unknown, signal: AbortSignal): Promise<ApiAnswer<T>> {
-  const res = await fetch(url, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body), signal });
-  const json = await res.json().catch(() => null);
-  if (res.ok) return { ok: true, data: json?.data as T };
-  if (res.status === 400) return { ok: false, details: json?.error?.details, message: json?.error?.message ?? 'Bad input.' };
-  if (res.status === 429) {
-    throw new ServiceProblem(`Too many calculations from this connection; the figures update again in ${res.headers.get('Retry-After') ?? 'a few'} s.`);
+  const answer = await requestJson<T>(url, {
+    body,
+    signal,
+    fallbackMessage: (status) => (status === 400 ? 'Bad input.' : `The calculation service answered ${status}.`),
+  });
+  if (answer.ok) return { ok: true, data: answer.data };
+  // No answer at all: not a ServiceProblem, so the screen says the connection is gone.
+  if (answer.status === 0) throw new Error(answer.message);
+  if (answer.status === 400) return { ok: false, fieldErrors: answer.fieldErrors, message: answer.message };
+  if (answer.status === 429) {
+    throw new ServiceProblem(`Too many calculations from this connection; the figures update again in ${answer.headers?.get('Retry-After') ?? 'a few'} s.`);
   }
-  throw new ServiceProblem(json?.error?.message ?? `The calculation service answered ${res.status}.`);
+  throw new ServiceProblem(answer.message);
 }
 
 type Post = <T>(url: string, body: unknown, signal: AbortSignal) => Promise<ApiAnswer<T>>;
@@ -80,7 +86,7 @@ async function fetchResults(requests: SetupRequest[], post: Post, signal: AbortS
   const curves: Record<string, CurveResult> = {};
   requests.forEach((r, i) => {
     const a = answers[i];
-    curves[r.id] = a.ok ? a : { ok: false, fieldErrors: toFieldErrors(a.details), message: a.message };
+    curves[r.id] = a.ok ? a : { ok: false, fieldErrors: toFieldErrors(a.fieldErrors), message: a.message };
   });
 
   const pairs: Promise<PairCrossover>[] = [];

@@ -31,7 +31,7 @@ export type PublishResultsInput = z.infer<typeof PublishResultsInput>;
 /** One row of the results form as typed: position null means "the row's place" (not edited). */
 export type ResultsFormRow = { key: number; position: string | null; raceNumber: string };
 
-const numberOrNull = (v: string) => (v.trim() === '' ? null : Number(v.trim().replace(',', '.')));
+import { numberOrNull } from './form-values';
 
 /**
  * The rows the form sends: a row without a race number is left out (a pre-filled position alone is not

@@ -1,10 +1,10 @@
 import 'server-only';
 import { QueryTypes } from 'sequelize';
-import { z } from 'zod';
 import { getDb } from '@/lib/server/db';
 import { assertCan, can, type Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
-import { AUDIT_KINDS, describeAuditEvent, sentenceText, type AuditContext, type AuditRefs, type Segment } from '../../core/audit/describe-audit-event';
+import { AUDIT_CURSOR as CURSOR, AuditQuery } from '@/lib/core/inputs/audit';
+import { describeAuditEvent, sentenceText, type AuditContext, type AuditRefs, type Segment } from '../../core/audit/describe-audit-event';
 
 export type AuditEventView = {
   id: string; // a cursor key: 'a:<audit id>' for lines of audit_events, '<letter>:<uuid>' for lines read from their own tables
@@ -19,16 +19,8 @@ export type AuditEventView = {
   segments: Segment[];
 };
 
-// Cursor of the last line shown: its instant in microseconds since 1970 and its key.
-const CURSOR = /^(\d{1,19})~([a-z]:[0-9a-f-]{1,40})$/;
-
-export const AuditQuery = z.object({
-  kind: z.enum(AUDIT_KINDS, { error: `kind is one of ${AUDIT_KINDS.join(', ')}.` }).optional(),
-  subjectType: z.enum([...AUDIT_KINDS, 'entry'] as [string, ...string[]], { error: 'Unknown subjectType.' }).optional(),
-  subjectId: z.uuid({ error: 'subjectId must be an id.' }).optional(),
-  before: z.string().regex(CURSOR, 'before must be a cursor from an earlier page (nextBefore).').optional(), // page back from
-  limit: z.coerce.number().int().min(1).max(500).default(100),
-});
+// The query's schema lives with every other input; re-exported for the readers that import it from here.
+export { AuditQuery };
 
 /*
  * The trail is one ordered list read from several append-only sources:

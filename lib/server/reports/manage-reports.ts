@@ -1,15 +1,13 @@
 import 'server-only';
 import { randomBytes } from 'node:crypto';
-import { z } from 'zod';
 import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
+import { PublishReportInput } from '@/lib/core/inputs/reports';
 import { sendMail } from '@/lib/server/mail/send';
 import { gatherReportInputs } from './gather-report-inputs';
 import { computeReportResults } from '../../core/reports/parity-figures';
 import { toPublishedReportDto, type PublishedReportDto } from '../../core/reports/report-dto';
-
-export const PublishReportInput = z.object({ note: z.string().trim().max(4000, 'Keep the note under 4000 characters.').default('') });
 
 /** The live draft of a class's report: current inspections, not stored. */
 export async function computeDraftReport(actor: Actor | null, eventId: string, classId: string) {

@@ -2,6 +2,7 @@
 
 import { useCallback, useEffect, useRef, useState } from 'react';
 import { parseTagScan } from '@/lib/core/tags/parse-tag-scan';
+import { requestJson } from '@/components/forms/request-json';
 import { loadSnapshot, putQueued, saveSnapshot, sendQueued, type EventSnapshot, type QueuedRecord } from '@/app/(app)/inspect/[eventId]/offline-queue';
 import type { InspectionView } from '@/lib/server/inspections/inspection-view';
 import type { InstrumentView } from '@/lib/server/inspections/list-instruments';
@@ -35,17 +36,16 @@ function deviceName(): string {
 }
 
 type Notice = { tone: 'error' | 'info'; text: string; code?: string };
-type Answer = { status: number; ok: boolean; fromCache: boolean; body: { data?: unknown; error?: { code?: string; message?: string } } | null } | null;
+type Answer = { status: number; ok: boolean; fromCache: boolean; data: unknown; code?: string; message?: string } | null;
 
+/** A GET of the dock's data; null when there is no answer at all (no signal, and the service worker had no copy). */
 async function get(url: string): Promise<Answer> {
-  try {
-    const res = await fetch(url, { credentials: 'same-origin' });
-    const body = await res.json().catch(() => null);
-    if (res.status === 503 && body?.error?.code === 'offline') return null; // the service worker had no copy
-    return { status: res.status, ok: res.ok, fromCache: res.headers.get('X-Served-From') === 'cache', body };
-  } catch {
-    return null;
-  }
+  const answer = await requestJson(url, { method: 'GET', fallbackMessage: (status) => `The lookup was refused (${status}).` });
+  if (answer.status === 0 || (!answer.ok && answer.status === 503 && answer.code === 'offline')) return null;
+  const fromCache = answer.headers?.get('X-Served-From') === 'cache';
+  return answer.ok
+    ? { status: answer.status, ok: true, fromCache, data: answer.data }
+    : { status: answer.status, ok: false, fromCache, data: undefined, code: answer.code, message: answer.message };
 }
 
 /** The dock: find the boat, see its card, record, see the verdict; the phone's outbox beside it. */
@@ -67,7 +67,7 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
   const refreshSnapshot = useCallback(async () => {
     const answer = await get(`/api/events/${eventId}/inspections`);
     if (answer?.ok && !answer.fromCache) {
-      const snap: EventSnapshot = { eventId, savedAt: new Date().toISOString(), board: answer.body?.data as EventSnapshot['board'], instruments };
+      const snap: EventSnapshot = { eventId, savedAt: new Date().toISOString(), board: answer.data as EventSnapshot['board'], instruments };
       await saveSnapshot(snap);
       setSnapshot(snap);
     } else {
@@ -101,10 +101,10 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
     setLooking(true);
     const answer = await get(isRaceNumber ? `/api/events/${eventId}/race-numbers/${text}` : `/api/events/${eventId}/tags/${encodeURIComponent(token!)}`);
     setLooking(false);
-    if (answer?.ok) return open(targetFromCard(answer.body?.data as never, answer.fromCache));
+    if (answer?.ok) return open(targetFromCard(answer.data as never, answer.fromCache));
     if (answer && answer.status < 500) {
       setTarget(null);
-      return setNotice({ tone: 'error', code: answer.body?.error?.code, text: answer.body?.error?.message ?? `The lookup was refused (${answer.status}).` });
+      return setNotice({ tone: 'error', code: answer.code, text: answer.message ?? `The lookup was refused (${answer.status}).` });
     }
     // No signal (or the server is down): the phone's copy of the entries.
     const snap = snapshot ?? (await loadSnapshot(eventId)) ?? null;
@@ -153,7 +153,7 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
     const snap = snapshot ?? (await loadSnapshot(eventId)) ?? null;
     const row = snap?.board.rows.find((x) => x.entryId === r.payload.entryId);
     const answer = row ? await get(`/api/events/${eventId}/race-numbers/${row.raceNumber}`) : null;
-    const t = answer?.ok ? targetFromCard(answer.body?.data as never, answer.fromCache) : row && snap ? targetFromBoardRow(row, snap.board) : null;
+    const t = answer?.ok ? targetFromCard(answer.data as never, answer.fromCache) : row && snap ? targetFromBoardRow(row, snap.board) : null;
     if (!t) return setNotice({ tone: 'error', text: 'This boat is not in the phone’s copy of the entries: open the dock screen with a signal first.' });
     open(t, formFromDraft(r.payload, initialFormState(t, defaultLength, defaultScale)), r.idempotencyKey);
     setServerErrors(r.fieldErrors);

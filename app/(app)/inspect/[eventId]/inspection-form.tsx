@@ -9,6 +9,8 @@ import { CHECK_AREA_LABELS, decideInspection, describeScope, type InspectionDeci
 import type { InstrumentView } from '@/lib/server/inspections/list-instruments';
 import { SafetyNote } from '@/components/safety-note';
 import { formatFigure } from '@/lib/core/format/figures';
+import type { FormState as ActionState } from '@/components/forms/request-json';
+import { useFormAction } from '@/components/forms/use-form-action';
 import { DockField } from './dock-field';
 import { draftFromForm, resizeReadings, type DockTarget, type FormState } from './form-model';
 
@@ -31,10 +33,7 @@ const check = 'h-7 w-7 shrink-0 accent-tide-600';
 export function InspectionForm({ target, instruments, initial, idempotencyKey, device, serverErrors, onSubmit }: Props) {
   const [f, setF] = useState<FormState>(initial);
   const [photos, setPhotos] = useState<File[]>([]);
-  const [errors, setErrors] = useState<Record<string, string>>({});
-  const [isBusy, setBusy] = useState(false);
   const set = <K extends keyof FormState>(k: K, v: FormState[K]) => setF((s) => ({ ...s, [k]: v }));
-  const err = (path: string) => errors[path] ?? serverErrors[path];
   const lengthInstruments = instruments.filter((i) => i.quantity === 'length');
   const scales = instruments.filter((i) => i.quantity === 'mass');
   const rules = target.rules;
@@ -43,16 +42,14 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
   const scope = task?.checks ?? null;
   const scopeWords = describeScope(scope);
 
-  async function submit(e: React.FormEvent) {
-    e.preventDefault();
-    if (isBusy) return; // a second tap while the first is on its way does nothing
+  // The record is checked with the shared schema here, then handed to the dock (saved on the phone first, then sent).
+  const { state, isPending, form } = useFormAction(async (): Promise<ActionState> => {
     const draft = draftFromForm(f, target, { idempotencyKey, capturedAt: new Date().toISOString(), device });
     const parsed = RecordInspectionInput.safeParse(draft);
     if (!parsed.success) {
       const out: Record<string, string> = {};
       for (const i of parsed.error.issues) out[i.path.map(String).join('.')] ??= i.message;
-      setErrors(out);
-      return;
+      return { ok: false, fieldErrors: out };
     }
     let provisional: InspectionDecision | null = null;
     if (rules) {
@@ -60,18 +57,15 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
         const pick = (iid: string | null) => instruments.find((i) => i.id === iid) ?? null;
         provisional = decideInspection({ input: parsed.data, rules, nozzleInstrument: pick(parsed.data.nozzle.instrumentId), weightInstrument: pick(parsed.data.weight?.instrumentId ?? null), scope });
       } catch (x) {
-        if (x instanceof EngineInputError) return setErrors({ [x.field]: x.message });
+        if (x instanceof EngineInputError) return { ok: false, fieldErrors: { [x.field]: x.message } };
         throw x;
       }
     }
-    setErrors({});
-    setBusy(true);
-    try {
-      await onSubmit({ draft, photos, provisional });
-    } finally {
-      setBusy(false);
-    }
-  }
+    await onSubmit({ draft, photos, provisional });
+    return { ok: true };
+  }, { ok: false });
+  const errors = state.fieldErrors ?? {};
+  const err = (path: string) => errors[path] ?? serverErrors[path];
 
   const readingsError = err('nozzle.readings');
   const hasWeight = !rules || rules.weight.minKg != null;
@@ -87,8 +81,8 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
   ];
   const section = 'scroll-mt-4 space-y-3';
   return (
-    <form onSubmit={submit} noValidate className="space-y-6 text-lg" data-testid="inspection-form" aria-label={`Inspection of ${target.boatName}`}>
-      <fieldset disabled={isBusy} className="space-y-6">
+    <form {...form} className="space-y-6 text-lg" data-testid="inspection-form" aria-label={`Inspection of ${target.boatName}`}>
+      <fieldset disabled={isPending} className="space-y-6">
         {f.supersedesId && (
           <div className="rounded-lg border-2 border-flare-500 bg-flare-100 p-4">
             <p className="font-bold">Correcting an earlier record. The original is kept; this one supersedes it.</p>
@@ -253,7 +247,7 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
         {/* The record action stays in reach on a phone: a bar stuck to the bottom of the screen while the form is in view. */}
         <div className="sticky bottom-0 z-10 -mx-4 flex gap-2 border-t-2 border-paper-line bg-paper/95 px-4 py-2 lg:static lg:mx-0 lg:border-0 lg:bg-transparent lg:p-0" data-testid="record-bar">
           <a href="#dock-sections" className="btn-secondary shrink-0 px-3 text-base lg:hidden">Sections</a>
-          <button type="submit" className="btn-primary min-h-[3.5rem] w-full text-xl" data-testid="record-inspection">{isBusy ? 'Recording…' : 'Record inspection'}</button>
+          <button type="submit" className="btn-primary min-h-[3.5rem] w-full text-xl" data-testid="record-inspection">{isPending ? 'Recording…' : 'Record inspection'}</button>
         </div>
       </fieldset>
     </form>

@@ -11,6 +11,7 @@ import type { RecordInspectionDraft } from '../../../../lib/core/inputs/inspecti
 import type { RuleResult } from '../../../../lib/core/inspections/decide-inspection';
 import type { InspectionBoard } from '../../../../lib/server/inspections/list-inspection-board';
 import type { InstrumentView } from '../../../../lib/server/inspections/list-instruments';
+import { requestJson, type JsonAnswer } from '../../../../components/forms/request-json';
 
 export type QueuedPhoto = { name: string; type: string; blob: Blob };
 export type QueueState = 'waiting' | 'needs_fix' | 'sent';
@@ -78,25 +79,13 @@ export async function loadSnapshot(eventId: string): Promise<EventSnapshot | und
   return (await db()).get('snapshots', eventId);
 }
 
-type Answer = { status: number; body: { data?: unknown; error?: { code?: string; message?: string; details?: unknown } } | null } | null;
-
 /** null when there is no answer at all (offline, or the service worker had nothing to give). */
-async function ask(url: string, init: RequestInit): Promise<Answer> {
-  try {
-    const res = await fetch(url, { credentials: 'same-origin', ...init });
-    const body = await res.json().catch(() => null);
-    if (res.status === 503 && body?.error?.code === 'offline') return null;
-    return { status: res.status, body };
-  } catch {
-    return null;
-  }
+async function ask(url: string, body: unknown, fallbackMessage: (status: number) => string): Promise<JsonAnswer<unknown> | null> {
+  const answer = await requestJson(url, { method: 'POST', body, fallbackMessage });
+  if (answer.status === 0 || (!answer.ok && answer.status === 503 && answer.code === 'offline')) return null;
+  return answer;
 }
 
-const fieldErrorsOf = (details: unknown): Record<string, string> => {
-  const out: Record<string, string> = {};
-  if (Array.isArray(details)) for (const d of details) if (d && typeof d.field === 'string') out[d.field] ??= String(d.message);
-  return out;
-};
 // Worth waiting for: no answer, our side failing, too many requests, signed out (signing in again cures it).
 const isTransient = (status: number) => status >= 500 || status === 429 || status === 408 || status === 401;
 
@@ -105,11 +94,7 @@ export async function sendQueued(record: QueuedRecord): Promise<QueuedRecord> {
   const now = new Date().toISOString();
   let r: QueuedRecord = { ...record, attempts: record.attempts + 1, lastTriedAt: now };
   if (!r.inspectionId) {
-    const answer = await ask(`/api/events/${r.eventId}/inspections`, {
-      method: 'POST',
-      headers: { 'content-type': 'application/json' },
-      body: JSON.stringify(r.payload),
-    });
+    const answer = await ask(`/api/events/${r.eventId}/inspections`, r.payload, (status) => `Refused (${status}).`);
     if (!answer || isTransient(answer.status)) {
       r.message = !answer ? 'No connection: it will be sent when the signal returns.' : answer.status === 401 ? 'Signed out: sign in again and it will be sent.' : `The server did not take it (${answer.status}); trying again shortly.`;
       await putQueued(r);
@@ -117,13 +102,13 @@ export async function sendQueued(record: QueuedRecord): Promise<QueuedRecord> {
     }
     if (answer.status !== 200 && answer.status !== 201) {
       // The per-field messages read as sentences; the overall message names the fields by path.
-      const fieldErrors = fieldErrorsOf(answer.body?.error?.details);
-      const message = Object.values(fieldErrors).join(' ') || answer.body?.error?.message || `Refused (${answer.status}).`;
+      const fieldErrors = answer.ok ? {} : answer.fieldErrors;
+      const message = Object.values(fieldErrors).join(' ') || (answer.ok ? `Refused (${answer.status}).` : answer.message);
       r = { ...r, state: 'needs_fix', message, fieldErrors };
       await putQueued(r);
       return r;
     }
-    const data = answer.body?.data as { id: string; overallResult: string; rules: RuleResult[] };
+    const data = (answer.ok ? answer.data : undefined) as { id: string; overallResult: string; rules: RuleResult[] };
     r = { ...r, inspectionId: data.id, overallResult: data.overallResult, serverRules: data.rules, message: null, fieldErrors: {} };
     await putQueued(r);
   }
@@ -132,14 +117,15 @@ export async function sendQueued(record: QueuedRecord): Promise<QueuedRecord> {
     const [p, ...rest] = r.photos;
     const form = new FormData();
     form.append('photo', new File([p.blob], p.name, { type: p.type }));
-    const answer = await ask(`/api/events/${r.eventId}/inspections/${r.inspectionId}/photos`, { method: 'POST', body: form });
+    const answer = await ask(`/api/events/${r.eventId}/inspections/${r.inspectionId}/photos`, form, (status) => String(status));
     if (!answer || isTransient(answer.status)) {
       r.message = 'Record stored; photos will follow when the signal returns.';
       await putQueued(r);
       return r;
     }
     if (answer.status !== 201) {
-      r = { ...r, state: 'needs_fix', message: `The record is stored, but the photo ${p.name} was refused: ${answer.body?.error?.message ?? answer.status}`, fieldErrors: fieldErrorsOf(answer.body?.error?.details) };
+      const refusal = answer.ok ? { message: String(answer.status), fieldErrors: {} } : answer;
+      r = { ...r, state: 'needs_fix', message: `The record is stored, but the photo ${p.name} was refused: ${refusal.message}`, fieldErrors: refusal.fieldErrors };
       await putQueued(r);
       return r;
     }

@@ -5,7 +5,10 @@ import { EventInput } from '@/lib/core/inputs/events';
 import { fieldErrors as toFieldErrors } from '@/lib/core/errors';
 import { CURRENCIES, EVENT_STATUSES } from '@/lib/core/constants';
 import { TextField } from '@/components/ui/text-field';
-import { useJsonSubmit, numberOrNull, FormMessage } from '@/components/ui/use-json-submit';
+import { FieldError, FormMessage } from '@/components/forms/form-message';
+import { CHECK_FIELDS_MESSAGE, refusalState, requestJson, type FormState } from '@/components/forms/request-json';
+import { useFormAction } from '@/components/forms/use-form-action';
+import { numberOrNull } from '@/lib/core/inputs/form-values';
 import type { EventDto } from '@/lib/server/events/event-dto';
 
 const STATUS_LABEL: Record<string, string> = {
@@ -22,11 +25,7 @@ type Props = { event?: EventDto; organisations?: { id: string; name: string }[] 
 /** Create or edit a meeting. Fees are typed in currency units and sent in cents. */
 export function EventForm({ event, organisations = [] }: Props) {
   const router = useRouter();
-  const { submit, isBusy, fieldErrors, setFieldErrors, message, setMessage } = useJsonSubmit<EventDto>();
-
-  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    const f = new FormData(e.currentTarget);
+  const { state, isPending, form } = useFormAction(async (_prev: FormState, f: FormData): Promise<FormState> => {
     const fee = (name: string) => {
       const v = numberOrNull(f.get(name));
       return v === null ? NaN : Math.round(v * 100);
@@ -49,25 +48,22 @@ export function EventForm({ event, organisations = [] }: Props) {
       protestFeeMinor: fee('protestFee'),
     };
     const local = EventInput.safeParse(body);
-    if (!local.success) {
-      setFieldErrors(toFieldErrors(local.error));
-      setMessage({ tone: 'error', text: 'Check the fields marked above: nothing was saved yet.' });
-      return;
+    if (!local.success) return { ok: false, fieldErrors: toFieldErrors(local.error), message: CHECK_FIELDS_MESSAGE };
+    const answer = await requestJson<EventDto>(event ? `/api/events/${event.id}` : '/api/events', { method: event ? 'PATCH' : 'POST', body });
+    if (!answer.ok) return refusalState(answer);
+    if (!event) {
+      router.push(`/organise/events/${answer.data.id}`);
+      return { ok: true };
     }
-    const res = await submit(event ? `/api/events/${event.id}` : '/api/events', body, event ? 'PATCH' : 'POST');
-    if (!res.ok) return;
-    if (event) {
-      setMessage({ tone: 'ok', text: 'Meeting saved.' });
-      router.refresh();
-    } else {
-      router.push(`/organise/events/${res.data.id}`);
-    }
-  }
+    router.refresh();
+    return { ok: true, message: 'Meeting saved.' };
+  }, { ok: false });
+  const fieldErrors = state.fieldErrors ?? {};
 
   const err = (k: string) => fieldErrors[k];
   return (
-    <form onSubmit={onSubmit} noValidate>
-      <fieldset disabled={isBusy} className="grid gap-4 sm:grid-cols-2">
+    <form {...form}>
+      <fieldset disabled={isPending} className="grid gap-4 sm:grid-cols-2">
         {!event && (
           <div className="sm:col-span-2">
             <label htmlFor="organisationId" className="field-label">Organising club</label>
@@ -85,7 +81,7 @@ export function EventForm({ event, organisations = [] }: Props) {
           <select id="timeZone" name="timeZone" className="field-input" defaultValue={event?.timeZone ?? 'Pacific/Auckland'}>
             {TIME_ZONES.map((tz) => <option key={tz} value={tz}>{tz}</option>)}
           </select>
-          {err('timeZone') && <p className="field-error">{err('timeZone')}</p>}
+          <FieldError name="timeZone" error={err('timeZone')} />
         </div>
         <div>
           <label htmlFor="status" className="field-label">Status</label>
@@ -113,8 +109,8 @@ export function EventForm({ event, organisations = [] }: Props) {
         <TextField name="entryFee" label="Entry fee" unit={event?.currency ?? 'currency units'} inputMode="decimal" defaultValue={event ? (event.entryFeeMinor / 100).toFixed(2) : '0.00'} error={err('entryFeeMinor')} />
         <TextField name="protestFee" label="Protest fee" unit={event?.currency ?? 'currency units'} inputMode="decimal" defaultValue={event ? (event.protestFeeMinor / 100).toFixed(2) : '0.00'} error={err('protestFeeMinor')} />
         <div className="sm:col-span-2 space-y-2">
-          <FormMessage message={message} />
-          <button type="submit" className="btn-primary">{isBusy ? 'Saving…' : event ? 'Save meeting' : 'Create meeting'}</button>
+          <FormMessage state={state} />
+          <button type="submit" className="btn-primary">{isPending ? 'Saving…' : event ? 'Save meeting' : 'Create meeting'}</button>
         </div>
       </fieldset>
     </form>

@@ -1,31 +1,27 @@
 'use client';
 
-import { useState } from 'react';
 import { signIn } from 'next-auth/react';
 import { useRouter } from 'next/navigation';
 import { TextField } from '@/components/ui/text-field';
+import type { FormState } from '@/components/forms/request-json';
+import { useFormAction } from '@/components/forms/use-form-action';
 
 export function ConfirmAddressForm({ token }: { token: string }) {
   const router = useRouter();
-  const [isBusy, setBusy] = useState(false);
-  const [error, setError] = useState<string>();
-  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    const password = String(new FormData(e.currentTarget).get('password') ?? '');
-    if (!password) return setError('Enter the password you chose at sign-up.');
-    setBusy(true);
-    setError(undefined);
+  const { state, isPending, form } = useFormAction(async (_prev: FormState, data: FormData): Promise<FormState> => {
+    const password = String(data.get('password') ?? '');
+    if (!password) return { ok: false, fieldErrors: { password: 'Enter the password you chose at sign-up.' } };
     const res = await signIn('address-proof', { token, password, redirect: false }).catch(() => null);
-    setBusy(false);
-    if (!res || res.error) return setError('That did not work: check the password, or the link may have expired (My account sends a new one).');
+    if (!res || res.error) return { ok: false, fieldErrors: { password: 'That did not work: check the password, or the link may have expired (My account sends a new one).' } };
     router.push('/account?confirmed=1');
     router.refresh();
-  }
+    return { ok: true };
+  }, { ok: false });
   return (
-    <form onSubmit={onSubmit} noValidate>
-      <fieldset disabled={isBusy} className="space-y-3">
-        <TextField name="password" label="Your password" type="password" autoComplete="current-password" error={error} />
-        <button type="submit" className="btn-primary w-full">{isBusy ? 'Confirming…' : 'Confirm and sign in'}</button>
+    <form {...form}>
+      <fieldset disabled={isPending} className="space-y-3">
+        <TextField name="password" label="Your password" type="password" autoComplete="current-password" error={state.fieldErrors?.password} />
+        <button type="submit" className="btn-primary w-full">{isPending ? 'Confirming…' : 'Confirm and sign in'}</button>
       </fieldset>
     </form>
   );

@@ -7,10 +7,14 @@ import { SubmitEntryInput, formatMoney } from '@/lib/core/inputs/entries';
 import { fieldErrors } from '@/lib/core/errors';
 import { SafetyNote } from '@/components/safety-note';
 import { TextField } from '@/components/ui/text-field';
+import { FieldError, FormMessage } from '@/components/forms/form-message';
+import { CHECK_FIELDS_MESSAGE, refusalState, requestJson, type FormState } from '@/components/forms/request-json';
+import { useFormAction } from '@/components/forms/use-form-action';
+import { numberOrNull } from '@/lib/core/inputs/form-values';
 import type { BoatView } from '@/lib/server/boats/boat-view';
 import type { OpenEvent } from '@/lib/server/entries/list-open-events';
 import type { MyEntry } from '@/lib/server/entries/list-my-entries';
-import { PayEntryButton } from '../../../entries/pay-entry-button';
+import { PayButton } from '@/components/forms/pay-button';
 
 // Colour is never alone: each row also carries a mark and the word (tailwind.config.ts verdict colours).
 const STATUS_STYLE: Record<DeclarationStatus, { box: string; mark: string }> = {
@@ -20,6 +24,7 @@ const STATUS_STYLE: Record<DeclarationStatus, { box: string; mark: string }> = {
 };
 
 type Submitted = { entry: MyEntry; gotRequestedNumber: boolean; raceNumberNote: string };
+type EnterState = FormState & { done?: Submitted };
 
 export function EnterForm({ boat, events, enteredEventIds }: { boat: BoatView; events: OpenEvent[]; enteredEventIds: string[] }) {
   const [eventId, setEventId] = useState(events[0].id);
@@ -27,37 +32,26 @@ export function EnterForm({ boat, events, enteredEventIds }: { boat: BoatView; e
   const [classId, setClassId] = useState(event.classes[0]?.id ?? '');
   const raceClass = event.classes.find((c) => c.id === classId);
   const check = useMemo(() => (raceClass ? checkDeclaration(boat, raceClass.rules) : null), [boat, raceClass]);
-  const [errors, setErrors] = useState<Record<string, string>>({});
-  const [message, setMessage] = useState<string>();
-  const [isBusy, setBusy] = useState(false);
-  const [done, setDone] = useState<Submitted>();
+  const { state, isPending, form } = useFormAction(async (_prev: EnterState, data: FormData): Promise<EnterState> => {
+    const requested = numberOrNull(data.get('requestedRaceNumber'));
+    const body = { boatId: boat.id, eventId: event.id, classId, requestedRaceNumber: requested === null || Number.isNaN(requested) ? null : requested };
+    const parsed = SubmitEntryInput.safeParse(body);
+    if (!parsed.success) return { ok: false, fieldErrors: fieldErrors(parsed.error), message: CHECK_FIELDS_MESSAGE };
+    const answer = await requestJson<Submitted>('/api/entries', { body: parsed.data, fallbackMessage: 'The entry could not be made. Try again.' });
+    if (!answer.ok) return refusalState(answer);
+    const { entry, gotRequestedNumber, raceNumberNote } = answer.data;
+    return { ok: true, done: { entry, gotRequestedNumber, raceNumberNote } };
+  }, { ok: false });
+  // The general message was about the meeting it was sent for: choosing another meeting hides it.
+  const [dismissed, setDismissed] = useState<EnterState | null>(null);
+  const errors = state.fieldErrors ?? {};
+  const done = state.done;
   const isAlreadyEntered = enteredEventIds.includes(event.id);
 
   function chooseEvent(id: string) {
     setEventId(id);
     setClassId(events.find((e) => e.id === id)?.classes[0]?.id ?? '');
-    setMessage(undefined);
-  }
-
-  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    setMessage(undefined);
-    const requested = (e.currentTarget.elements.namedItem('requestedRaceNumber') as HTMLInputElement).valueAsNumber;
-    const body = { boatId: boat.id, eventId: event.id, classId, requestedRaceNumber: Number.isNaN(requested) ? null : requested };
-    const parsed = SubmitEntryInput.safeParse(body);
-    if (!parsed.success) return setErrors(fieldErrors(parsed.error));
-    setErrors({});
-    setBusy(true);
-    const res = await fetch('/api/entries', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(parsed.data) });
-    const json = await res.json().catch(() => null);
-    setBusy(false);
-    if (!res.ok) {
-      const next: Record<string, string> = {};
-      for (const d of json?.error?.details ?? []) next[d.field] ??= d.message;
-      setErrors(next);
-      return setMessage(json?.error?.message ?? 'The entry could not be made. Try again.');
-    }
-    setDone({ entry: json.data.entry, gotRequestedNumber: json.data.gotRequestedNumber, raceNumberNote: json.data.raceNumberNote });
+    setDismissed(state);
   }
 
   if (done) {
@@ -72,15 +66,15 @@ export function EnterForm({ boat, events, enteredEventIds }: { boat: BoatView; e
           {entry.boatName} in {entry.classCode} {entry.className} at {entry.eventName}.{' '}
           {entry.feeMinor > 0 ? <>The entry fee is <strong>{formatMoney(entry.feeMinor, entry.currency)}</strong>; the entry counts once it is paid.</> : 'This meeting charges no entry fee.'}
         </p>
-        <PayEntryButton entryId={entry.id} label={entry.feeMinor > 0 ? 'Pay entry fee' : 'Confirm the entry'} />
+        <PayButton checkoutUrl={`/api/entries/${entry.id}/checkout`} label={entry.feeMinor > 0 ? 'Pay entry fee' : 'Confirm the entry'} />
         <p className="text-sm text-ink-mute">You can also pay later from <a href="/entries">My entries</a>.</p>
       </section>
     );
   }
 
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-5" aria-label="Enter a meeting">
-      <fieldset disabled={isBusy} className="card space-y-4">
+    <form {...form} className="space-y-5" aria-label="Enter a meeting">
+      <fieldset disabled={isPending} className="card space-y-4">
         <div>
           <label htmlFor="eventId" className="field-label">Meeting</label>
           <select id="eventId" name="eventId" value={event.id} onChange={(e) => chooseEvent(e.target.value)} className="field-input">
@@ -89,7 +83,7 @@ export function EnterForm({ boat, events, enteredEventIds }: { boat: BoatView; e
             ))}
           </select>
           <p className="field-hint">{event.venue} · entry fee {event.entryFeeMinor > 0 ? formatMoney(event.entryFeeMinor, event.currency) : 'none'}</p>
-          {errors.eventId && <p className="field-error">{errors.eventId}</p>}
+          <FieldError name="eventId" error={errors.eventId} />
         </div>
         {event.classes.length === 0 ? (
           <p className="field-error">This meeting has no class with published rules yet.</p>
@@ -100,7 +94,7 @@ export function EnterForm({ boat, events, enteredEventIds }: { boat: BoatView; e
               {event.classes.map((c) => <option key={c.id} value={c.id}>{c.code} · {c.name}</option>)}
             </select>
             {raceClass && <p className="field-hint">Rules version {raceClass.rulesVersion}{raceClass.description ? ` · ${raceClass.description}` : ''}</p>}
-            {errors.classId && <p className="field-error">{errors.classId}</p>}
+            <FieldError name="classId" error={errors.classId} />
           </div>
         )}
         <TextField name="requestedRaceNumber" label="Race number you would like" type="number" inputMode="numeric" min={1} max={9999} step={1}
@@ -133,12 +127,12 @@ export function EnterForm({ boat, events, enteredEventIds }: { boat: BoatView; e
         </section>
       )}
 
-      <div aria-live="polite">{message && <p className="field-error" data-testid="enter-message">{message}</p>}</div>
+      <FormMessage state={dismissed === state ? null : state} testId="enter-message" />
       {isAlreadyEntered ? (
         <p className="font-bold">{boat.name} is already entered at this meeting: see <a href="/entries">My entries</a>.</p>
       ) : (
-        <button type="submit" className="btn-primary w-full sm:w-auto" disabled={isBusy || !raceClass}>
-          {isBusy ? 'Entering…' : raceClass ? `Enter ${boat.name} in ${raceClass.code}` : 'Enter'}
+        <button type="submit" className="btn-primary w-full sm:w-auto" disabled={isPending || !raceClass}>
+          {isPending ? 'Entering…' : raceClass ? `Enter ${boat.name} in ${raceClass.code}` : 'Enter'}
         </button>
       )}
     </form>

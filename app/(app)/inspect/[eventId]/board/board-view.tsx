@@ -6,6 +6,9 @@ import { usePathname, useRouter, useSearchParams } from 'next/navigation';
 import type { InspectionBoard } from '@/lib/server/inspections/list-inspection-board';
 import { SafetyNote } from '@/components/safety-note';
 import { VerdictBadge } from '@/components/verdict-badge';
+import { FormMessage } from '@/components/forms/form-message';
+import { requestJson, type FormState } from '@/components/forms/request-json';
+import { useFormAction } from '@/components/forms/use-form-action';
 import { TopFinishersPicker } from './top-finishers-picker';
 
 const REFRESH_MS = 10_000;
@@ -25,7 +28,6 @@ export function BoardView({ eventId, canAssign, canRecord }: { eventId: string; 
   const [error, setError] = useState<string | null>(null);
   const [chosen, setChosen] = useState<Set<string>>(new Set());
   const [reason, setReason] = useState('');
-  const [requestMessage, setRequestMessage] = useState<string | null>(null);
 
   const setParam = (k: string, v: string) => {
     const next = new URLSearchParams(params);
@@ -38,15 +40,11 @@ export function BoardView({ eventId, canAssign, canRecord }: { eventId: string; 
     const q = new URLSearchParams();
     if (classFilter) q.set('class', classFilter);
     if (result) q.set('result', result);
-    try {
-      const res = await fetch(`/api/events/${eventId}/inspections?${q}`, { cache: 'no-store' });
-      const body = await res.json();
-      if (!res.ok) return setError(body?.error?.message ?? `The board could not be loaded (${res.status}).`);
-      setBoard(body.data);
-      setError(res.headers.get('X-Served-From') === 'cache' ? 'No signal: showing the last board this phone saw.' : null);
-    } catch {
-      setError('No connection: the board will refresh when the signal returns.');
-    }
+    const answer = await requestJson<InspectionBoard>(`/api/events/${eventId}/inspections?${q}`, { method: 'GET', cache: 'no-store', fallbackMessage: (status) => `The board could not be loaded (${status}).` });
+    if (answer.status === 0) return setError('No connection: the board will refresh when the signal returns.');
+    if (!answer.ok) return setError(answer.message);
+    setBoard(answer.data);
+    setError(answer.headers.get('X-Served-From') === 'cache' ? 'No signal: showing the last board this phone saw.' : null);
   }, [eventId, classFilter, result]);
 
   useEffect(() => {
@@ -55,16 +53,16 @@ export function BoardView({ eventId, canAssign, canRecord }: { eventId: string; 
     return () => window.clearInterval(timer);
   }, [load]);
 
-  async function requestReinspection() {
-    setRequestMessage(null);
-    const res = await fetch(`/api/events/${eventId}/reinspections`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ entryIds: [...chosen], reason }) });
-    const body = await res.json().catch(() => null);
-    if (!res.ok) return setRequestMessage(body?.error?.details?.[0]?.message ?? body?.error?.message ?? 'The request failed.');
-    setRequestMessage(`Re-inspection asked for ${chosen.size} boat${chosen.size === 1 ? '' : 's'}.`);
+  const request = useFormAction(async (): Promise<FormState> => {
+    const answer = await requestJson(`/api/events/${eventId}/reinspections`, { body: { entryIds: [...chosen], reason }, fallbackMessage: 'The request failed.' });
+    // The request's fields are the boats chosen and the reason: the first refusal says which.
+    if (!answer.ok) return { ok: false, message: Object.values(answer.fieldErrors)[0] ?? answer.message };
+    const message = `Re-inspection asked for ${chosen.size} boat${chosen.size === 1 ? '' : 's'}.`;
     setChosen(new Set());
     setReason('');
     void load();
-  }
+    return { ok: true, message };
+  }, { ok: false });
 
   const c = board?.counts;
   const countButton = (value: string, label: string, n: number | undefined, tone: string) => (
@@ -147,10 +145,12 @@ export function BoardView({ eventId, canAssign, canRecord }: { eventId: string; 
             setChosen((prev) => new Set([...prev, ...ids]));
             setReason((r) => r || why);
           }} />
-          <label htmlFor="reinspect-reason" className="field-label text-lg">Why (for example “top three, final”)</label>
-          <input id="reinspect-reason" className="field-input min-h-touch text-xl" value={reason} onChange={(e) => setReason(e.target.value)} />
-          <button type="button" className="btn-primary text-lg" disabled={chosen.size === 0} onClick={() => void requestReinspection()}>Ask for re-inspection</button>
-          {requestMessage && <p role="status" className="font-bold">{requestMessage}</p>}
+          <form {...request.form} className="space-y-3">
+            <label htmlFor="reinspect-reason" className="field-label text-lg">Why (for example “top three, final”)</label>
+            <input id="reinspect-reason" className="field-input min-h-touch text-xl" value={reason} onChange={(e) => setReason(e.target.value)} />
+            <FormMessage state={request.state} testId="reinspection-request-message" />
+            <button type="submit" className="btn-primary text-lg" disabled={chosen.size === 0 || request.isPending}>Ask for re-inspection</button>
+          </form>
         </section>
       )}
       <SafetyNote className="text-lg" />

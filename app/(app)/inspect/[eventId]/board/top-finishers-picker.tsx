@@ -1,6 +1,7 @@
 'use client';
 
 import { useEffect, useState } from 'react';
+import { requestJson } from '@/components/forms/request-json';
 import type { ClassResultsView } from '@/lib/server/results/list-provisional-results';
 
 /**
@@ -14,15 +15,12 @@ export function TopFinishersPicker({ eventId, onPick }: { eventId: string; onPic
   const [note, setNote] = useState<string | null>(null);
 
   useEffect(() => {
-    fetch(`/api/events/${eventId}/results`, { cache: 'no-store' })
-      .then(async (res) => {
-        const body = await res.json().catch(() => null);
-        if (!res.ok) throw new Error(body?.error?.message ?? `Results could not be loaded (${res.status}).`);
-        const withResults = (body.data as ClassResultsView[]).filter((c) => c.latest && c.latest.rows.length > 0);
-        setClasses(withResults);
-        setClassId((id) => id || withResults[0]?.classId || '');
-      })
-      .catch((err: Error) => setNote(err.message));
+    void requestJson<ClassResultsView[]>(`/api/events/${eventId}/results`, { method: 'GET', cache: 'no-store', fallbackMessage: (status) => `Results could not be loaded (${status}).` }).then((answer) => {
+      if (!answer.ok) return setNote(answer.message);
+      const withResults = answer.data.filter((c) => c.latest && c.latest.rows.length > 0);
+      setClasses(withResults);
+      setClassId((id) => id || withResults[0]?.classId || '');
+    });
   }, [eventId]);
 
   if (note && !classes) return <p className="text-base text-ink-soft">{note}</p>;

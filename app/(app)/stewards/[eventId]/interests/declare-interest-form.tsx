@@ -2,7 +2,9 @@
 
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
-import { useJsonSubmit, FormMessage } from '@/components/ui/use-json-submit';
+import { FieldError, FormMessage } from '@/components/forms/form-message';
+import { refusalState, requestJson, type FormState } from '@/components/forms/request-json';
+import { useFormAction } from '@/components/forms/use-form-action';
 import { INTEREST_KIND_LABELS, type InterestKind } from '@/lib/core/inputs/interests';
 import type { InterestView } from '@/lib/server/interests/interest-view';
 
@@ -12,25 +14,22 @@ type Choice = { id: string; label: string };
 export function DeclareInterestForm({ eventId, boats, entrants }: { eventId: string; boats: Choice[]; entrants: Choice[] }) {
   const router = useRouter();
   const [kind, setKind] = useState<InterestKind>('boat');
-  const { submit, isBusy, fieldErrors, message, setMessage } = useJsonSubmit<InterestView>();
-  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    const form = e.currentTarget;
-    const data = new FormData(form);
+  const { state, isPending, form } = useFormAction(async (_prev: FormState, data: FormData): Promise<FormState> => {
     const subjectField = kind === 'boat' ? 'boatId' : kind === 'entrant' ? 'entrantId' : 'teamName';
-    const res = await submit(`/api/events/${eventId}/interests`, { kind, [subjectField]: String(data.get(subjectField) ?? ''), statement: String(data.get('statement') ?? '') });
-    if (res.ok) {
-      setMessage({ tone: 'ok', text: `Declared: ${res.data.subjectLabel}.` });
-      form.reset();
-      router.refresh();
-    }
-  }
+    const answer = await requestJson<InterestView>(`/api/events/${eventId}/interests`, {
+      body: { kind, [subjectField]: String(data.get(subjectField) ?? ''), statement: String(data.get('statement') ?? '') },
+    });
+    if (!answer.ok) return refusalState(answer);
+    router.refresh();
+    return { ok: true, message: `Declared: ${answer.data.subjectLabel}.` };
+  }, { ok: false }, { resetOnSuccess: true });
+  const fieldErrors = state.fieldErrors ?? {};
   const err = (name: string) => (fieldErrors[name] ? { 'aria-invalid': true as const, 'aria-describedby': `interest-${name}-error` } : {});
-  const errText = (name: string) => fieldErrors[name] && <p id={`interest-${name}-error`} className="field-error" data-field-error={name}>{fieldErrors[name]}</p>;
+  const errText = (name: string) => <FieldError id={`interest-${name}-error`} name={name} error={fieldErrors[name]} />;
   return (
-    <form onSubmit={onSubmit} noValidate className="card space-y-4" aria-label="Declare an interest">
+    <form {...form} className="card space-y-4" aria-label="Declare an interest">
       <h2>Declare an interest</h2>
-      <fieldset disabled={isBusy} className="space-y-4">
+      <fieldset disabled={isPending} className="space-y-4">
         <fieldset {...err('kind')}>
           <legend className="field-label">The interest is in</legend>
           <div className="flex flex-wrap gap-4">
@@ -75,9 +74,9 @@ export function DeclareInterestForm({ eventId, boats, entrants }: { eventId: str
           <p className="field-hint">One sentence, for example “I am the crew chief of this boat”.</p>
           {errText('statement')}
         </div>
+        <FormMessage state={state} />
         <button type="submit" className="btn-primary">Declare the interest</button>
       </fieldset>
-      <FormMessage message={message} />
     </form>
   );
 }

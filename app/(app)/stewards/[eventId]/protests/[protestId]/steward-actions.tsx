@@ -2,7 +2,9 @@
 
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
-import { useJsonSubmit, FormMessage } from '@/components/ui/use-json-submit';
+import { FieldError, FormMessage } from '@/components/forms/form-message';
+import { refusalState, requestJson, type FormState } from '@/components/forms/request-json';
+import { useFormAction } from '@/components/forms/use-form-action';
 import { REJECTION_LABELS } from '@/lib/core/protests/protest-states';
 import type { ProtestDetail } from '@/lib/server/protests/get-protest';
 
@@ -14,27 +16,24 @@ function ActionForm({ title, url, fields, button, danger, confirmFirst }: {
   confirmFirst?: { when: () => boolean; text: string; button: string }; // asked once before sending
 }) {
   const router = useRouter();
-  const { submit, isBusy, fieldErrors, message, setMessage } = useJsonSubmit<ProtestDetail>();
   const [isConfirming, setConfirming] = useState(false);
-  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
-    e.preventDefault();
+  const { state, isPending, form } = useFormAction(async (prev: FormState, data: FormData): Promise<FormState> => {
     if (confirmFirst && !isConfirming && confirmFirst.when()) {
       setConfirming(true);
-      return;
+      return prev;
     }
     setConfirming(false);
-    const data = new FormData(e.currentTarget);
     const body = Object.fromEntries(fields.map((f) => [f.name, String(data.get(f.name) ?? '')]));
-    const res = await submit(url, body);
-    if (res.ok) {
-      setMessage({ tone: 'ok', text: `${title}: done.` });
-      router.refresh();
-    }
-  }
+    const answer = await requestJson<ProtestDetail>(url, { body });
+    if (!answer.ok) return refusalState(answer);
+    router.refresh();
+    return { ok: true, message: `${title}: done.` };
+  }, { ok: false });
+  const fieldErrors = state.fieldErrors ?? {};
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-3 rounded-lg bg-paper-deep p-4" aria-label={title}>
+    <form {...form} className="space-y-3 rounded-lg bg-paper-deep p-4" aria-label={title}>
       <h3>{title}</h3>
-      <fieldset disabled={isBusy} className="space-y-3">
+      <fieldset disabled={isPending} className="space-y-3">
         {fields.map((f) => {
           const id = `${url.split('/').pop()}-${f.name}`;
           const err = fieldErrors[f.name];
@@ -62,17 +61,17 @@ function ActionForm({ title, url, fields, button, danger, confirmFirst }: {
                 </>
               )}
               {f.hint && <p className="field-hint">{f.hint}</p>}
-              {err && <p id={`${id}-error`} className="field-error" data-field-error={f.name}>{err}</p>}
+              <FieldError id={`${id}-error`} name={f.name} error={err} />
             </div>
           );
         })}
         {isConfirming && confirmFirst && (
           <p role="alert" className="rounded-lg border-2 border-doubt-600 bg-doubt-100 p-3 font-bold text-doubt-800" data-testid="confirm-first">{confirmFirst.text}</p>
         )}
+        <FormMessage state={state} />
         <button type="submit" className={danger ? 'btn-danger' : 'btn-primary'}>{isConfirming && confirmFirst ? confirmFirst.button : button}</button>
         {isConfirming && <button type="button" className="btn-secondary ml-2" onClick={() => setConfirming(false)}>Not yet</button>}
       </fieldset>
-      <FormMessage message={message} />
     </form>
   );
 }

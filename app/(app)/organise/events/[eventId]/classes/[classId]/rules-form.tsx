@@ -5,7 +5,10 @@ import { useState } from 'react';
 import { SAFETY_ITEMS, SAFETY_ITEM_KEYS } from '@/lib/core/constants';
 import type { ClassRules } from '@/lib/core/inputs/class-rules';
 import { TextField } from '@/components/ui/text-field';
-import { useJsonSubmit, numberOrNull, FormMessage } from '@/components/ui/use-json-submit';
+import { FieldError, FormMessage } from '@/components/forms/form-message';
+import { refusalState, requestJson, type FormState } from '@/components/forms/request-json';
+import { useFormAction } from '@/components/forms/use-form-action';
+import { numberOrNull } from '@/lib/core/inputs/form-values';
 import { convertPower, type PowerUnit } from '@/lib/core/engine/units';
 
 const RULE_TEXT = {
@@ -19,12 +22,9 @@ type Props = { eventId: string; classId: string; rules: ClassRules; editingVersi
 export function RulesForm({ eventId, classId, rules, editingVersion, isDraft }: Props) {
   const router = useRouter();
   const [powerUnit, setPowerUnit] = useState<PowerUnit>('kW');
-  const { submit, isBusy, fieldErrors, message, setMessage } = useJsonSubmit();
   const shown = (kw: number | null) => (kw == null ? '' : +convertPower(kw, 'kW', powerUnit).toFixed(2));
 
-  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    const f = new FormData(e.currentTarget);
+  const { state, isPending, form } = useFormAction(async (_prev: FormState, f: FormData): Promise<FormState> => {
     const n = (k: string) => numberOrNull(f.get(k));
     const body = {
       powerUnit,
@@ -43,17 +43,17 @@ export function RulesForm({ eventId, classId, rules, editingVersion, isDraft }: 
         },
       },
     };
-    const res = await submit(`/api/events/${eventId}/classes/${classId}/rules`, body, 'PUT');
-    if (res.ok) {
-      setMessage({ tone: 'ok', text: isDraft ? `Draft v${editingVersion} saved.` : `Saved as draft v${editingVersion + 1}; the published version is unchanged.` });
-      router.refresh();
-    }
-  }
+    const answer = await requestJson(`/api/events/${eventId}/classes/${classId}/rules`, { method: 'PUT', body });
+    if (!answer.ok) return refusalState(answer);
+    router.refresh();
+    return { ok: true, message: isDraft ? `Draft v${editingVersion} saved.` : `Saved as draft v${editingVersion + 1}; the published version is unchanged.` };
+  }, { ok: false });
+  const fieldErrors = state.fieldErrors ?? {};
 
   const err = (path: string) => fieldErrors[`rules.${path}`];
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-6">
-      <fieldset disabled={isBusy} className="space-y-6">
+    <form {...form} className="space-y-6">
+      <fieldset disabled={isPending} className="space-y-6">
         <fieldset className="grid gap-3 sm:grid-cols-2">
           <legend className="mb-2 text-lg font-bold">Nozzle exit diameter</legend>
           <TextField name="nozzle.maxMm" label="Maximum" unit="mm" inputMode="decimal" defaultValue={rules.nozzle.maxMm ?? ''} error={err('nozzle.maxMm')} />
@@ -90,7 +90,7 @@ export function RulesForm({ eventId, classId, rules, editingVersion, isDraft }: 
               <span>{RULE_TEXT[r]}</span>
             </label>
           ))}
-          {err('decisionRule') && <p className="field-error">{err('decisionRule')}</p>}
+          <FieldError name="rules.decisionRule" id="decisionRule-error" error={err('decisionRule')} />
         </fieldset>
         <fieldset className="grid gap-2 sm:grid-cols-2">
           <legend className="mb-2 text-lg font-bold">Required safety items</legend>
@@ -109,8 +109,8 @@ export function RulesForm({ eventId, classId, rules, editingVersion, isDraft }: 
           <TextField name="parity.wakeFraction" label="Wake fraction w" unit="–" inputMode="decimal" defaultValue={rules.parity.wakeFraction} error={err('parity.wakeFraction')} />
           <TextField name="parity.referenceSpeedsMs" label="Reference speeds" unit="m/s, comma-separated" defaultValue={rules.parity.referenceSpeedsMs.join(', ')} error={err('parity.referenceSpeedsMs') ?? Object.entries(fieldErrors).find(([k]) => k.startsWith('rules.parity.referenceSpeedsMs.'))?.[1]} className="sm:col-span-2" />
         </fieldset>
-        <FormMessage message={message} />
-        <button type="submit" className="btn-primary">{isBusy ? 'Saving…' : isDraft ? `Save draft v${editingVersion}` : `Save as new draft v${editingVersion + 1}`}</button>
+        <FormMessage state={state} />
+        <button type="submit" className="btn-primary">{isPending ? 'Saving…' : isDraft ? `Save draft v${editingVersion}` : `Save as new draft v${editingVersion + 1}`}</button>
       </fieldset>
     </form>
   );

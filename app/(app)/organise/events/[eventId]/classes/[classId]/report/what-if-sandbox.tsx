@@ -4,7 +4,9 @@ import { useMemo, useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { applyRuleWhatIf, applyWhatIf, computeReportResults, type ReportInputs } from '@/lib/core/reports/parity-figures';
 import type { ClassRules } from '@/lib/core/inputs/class-rules';
-import { useJsonSubmit, FormMessage } from '@/components/ui/use-json-submit';
+import { FormMessage } from '@/components/forms/form-message';
+import { requestJson, type FormState } from '@/components/forms/request-json';
+import { useFormAction } from '@/components/forms/use-form-action';
 
 const num = (s: string) => (s.trim() === '' ? null : Number(s));
 
@@ -20,7 +22,6 @@ export function WhatIfSandbox({ eventId, classId, inputs, rules }: { eventId: st
   const [powerMax, setPowerMax] = useState(String(rules.power.maxKw ?? ''));
   const [boatId, setBoatId] = useState(inputs.boats[0]?.entryId ?? '');
   const [boatNozzle, setBoatNozzle] = useState('');
-  const { submit, isBusy, message, setMessage } = useJsonSubmit();
 
   const projected = useMemo(() => {
     try {
@@ -38,19 +39,20 @@ export function WhatIfSandbox({ eventId, classId, inputs, rules }: { eventId: st
     }
   }, [inputs, nozzleMax, nozzleMin, powerMax, boatId, boatNozzle]);
 
-  if (inputs.boats.length === 0) return null;
-
-  async function proposeRules() {
+  // Saving is the one thing here that reaches the server: a small form of its own (Enter in a limit field saves nothing).
+  const { state, isPending, form } = useFormAction(async (): Promise<FormState> => {
     const body = {
       powerUnit: 'kW',
       rules: { ...rules, nozzle: { ...rules.nozzle, maxMm: num(nozzleMax), minMm: num(nozzleMin) }, power: { ...rules.power, maxKw: num(powerMax) } },
     };
-    const res = await submit(`/api/events/${eventId}/classes/${classId}/rules`, body, 'PUT');
-    if (res.ok) {
-      setMessage({ tone: 'ok', text: 'Saved as a draft rule version: review and publish it on the class page.' });
-      router.refresh();
-    }
-  }
+    const answer = await requestJson(`/api/events/${eventId}/classes/${classId}/rules`, { method: 'PUT', body });
+    // The limits here have no fields of the rules form to point to: the server's message names them.
+    if (!answer.ok) return { ok: false, message: answer.message };
+    router.refresh();
+    return { ok: true, message: 'Saved as a draft rule version: review and publish it on the class page.' };
+  }, { ok: false });
+
+  if (inputs.boats.length === 0) return null;
 
   const spread = (r?: ReturnType<typeof computeReportResults>) => r?.parity?.summary.spreadPercent;
   return (
@@ -92,8 +94,10 @@ export function WhatIfSandbox({ eventId, classId, inputs, rules }: { eventId: st
           </div>
         </>
       )}
-      <FormMessage message={message} />
-      <button type="button" className="btn-secondary" disabled={isBusy} onClick={proposeRules}>Turn these limits into a new draft rule version</button>
+      <form {...form} className="space-y-2">
+        <FormMessage state={state} />
+        <button type="submit" className="btn-secondary" disabled={isPending}>Turn these limits into a new draft rule version</button>
+      </form>
     </section>
   );
 }
