@@ -6,6 +6,7 @@ import { AssignStaffInput } from '@/lib/core/inputs/events';
 import { inviteStaff } from '@/lib/server/auth/invitations';
 import { sendMail } from '@/lib/server/mail/send';
 import { recordAuditEvent } from '@/lib/server/audit/record-audit-event';
+import { appUrl } from '@/lib/server/config/env';
 
 /**
  * Gives a person a staff role at the event: a registered user whose address is proven gets it at
@@ -31,7 +32,7 @@ export async function assignStaff(actor: Actor | null, eventId: string, raw: unk
     return isNew;
   });
   if (!created) throw new AppError('conflict', 409, 'This person already has that role at this meeting.', [{ field: 'email', message: 'Already on the staff in that role.' }]);
-  const base = process.env.NEXTAUTH_URL ?? 'http://localhost:3000';
+  const base = appUrl();
   await sendMail({
     to: user.email,
     subject: `You are on the staff of ${event.name}`,

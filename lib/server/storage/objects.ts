@@ -6,23 +6,23 @@ import {
 } from '@aws-sdk/client-s3';
 import { AppError } from '../../core/errors';
 import { isPublishedSecret } from '../config/published-values';
+import { serverEnv } from '../config/env';
 
 // Object storage (documents, photos, evidence) behind one module. Keys are always made here by
 // newObjectKey(), never taken from a request, so no upload can choose or overwrite another's key.
 const globalForS3 = globalThis as unknown as { __borelineS3?: S3Client; __borelineBucket?: Promise<void> };
 
-const bucket = () => process.env.S3_BUCKET || 'boreline';
+const bucket = () => serverEnv().S3_BUCKET;
 
 function s3(): S3Client {
   if (!globalForS3.__borelineS3) {
-    const endpoint = process.env.S3_ENDPOINT || undefined;
-    const { S3_ACCESS_KEY_ID: accessKeyId, S3_SECRET_ACCESS_KEY: secretAccessKey } = process.env;
+    const { S3_ENDPOINT: endpoint, S3_ACCESS_KEY_ID: accessKeyId, S3_SECRET_ACCESS_KEY: secretAccessKey, S3_REGION: region } = serverEnv();
     // A key pair published in this repository is nobody's: refuse it rather than use it.
     if (accessKeyId && (isPublishedSecret('S3_ACCESS_KEY_ID', accessKeyId) || isPublishedSecret('S3_SECRET_ACCESS_KEY', secretAccessKey))) {
       throw new AppError('storage_unavailable', 503, 'File storage is not configured on this server.');
     }
     globalForS3.__borelineS3 = new S3Client({
-      region: process.env.S3_REGION || 'us-east-1',
+      region,
       endpoint,
       // S3-compatible services (and the local fake) address buckets by path; AWS itself by host.
       forcePathStyle: Boolean(endpoint),
