@@ -23,5 +23,3 @@ export function getDb(): DbCache {
   globalForDb.__borelineDb = { sequelize, models };
   return globalForDb.__borelineDb;
 }
-
-export const db = () => getDb().models;

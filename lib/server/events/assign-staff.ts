@@ -40,15 +40,3 @@ export async function assignStaff(actor: Actor | null, eventId: string, raw: unk
   });
   return { outcome: 'assigned' as const, userId: user.id, role: input.role };
 }
-
-/** Removes one staff role (an organiser cannot remove their own organiser role). */
-export async function removeStaff(actor: Actor | null, eventId: string, userId: string, role: string) {
-  assertCan(actor, 'event.staff_manage', { eventId });
-  if (userId === actor.id && role === 'organiser') throw new AppError('conflict', 409, 'You cannot remove your own organiser role.');
-  const { sequelize, models } = getDb();
-  await sequelize.transaction(async (transaction) => {
-    const n = await models.EventStaff.destroy({ where: { eventId, userId, role }, transaction });
-    if (n === 0) throw new AppError('not_found', 404, 'No such staff role.');
-    await recordAuditEvent({ eventId, actorId: actor.id, subjectType: 'staff', subjectId: userId, action: 'staff.removed', details: { role } }, transaction);
-  });
-}

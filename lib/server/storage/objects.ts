@@ -1,7 +1,7 @@
 import 'server-only';
 import { randomUUID } from 'node:crypto';
 import {
-  S3Client, HeadBucketCommand, CreateBucketCommand, PutObjectCommand, GetObjectCommand, HeadObjectCommand,
+  S3Client, HeadBucketCommand, CreateBucketCommand, PutObjectCommand, GetObjectCommand,
   S3ServiceException, NoSuchKey,
 } from '@aws-sdk/client-s3';
 import { AppError } from '../../core/errors';
@@ -68,19 +68,9 @@ export function newObjectKey(prefix: string, now = new Date()): string {
   return `${prefix}/${yyyy}/${mm}/${randomUUID()}`;
 }
 
-// Metadata travels as HTTP headers (ASCII only): values are percent-encoded on the way in and
-// decoded on the way out, so a person's name or a file name survives the round trip.
+// Metadata travels as HTTP headers (ASCII only): values are percent-encoded on the way in, so a
+// person's name or a file name survives (decodeURIComponent reads one back).
 const encodeMeta = (m: Record<string, string> = {}) => Object.fromEntries(Object.entries(m).map(([k, v]) => [k.toLowerCase(), encodeURIComponent(v)]));
-const decodeMeta = (m: Record<string, string> = {}) =>
-  Object.fromEntries(Object.entries(m).map(([k, v]) => {
-    try {
-      return [k, decodeURIComponent(v)];
-    } catch {
-      return [k, v];
-    }
-  }));
-
-export type StoredObject = { key: string; sizeBytes: number; contentType: string; etag: string; metadata: Record<string, string>; lastModified: Date | null };
 
 /**
  * Stores bytes under an app-made key. With sha256Hex (from inspectUpload) the storage service
@@ -109,24 +99,6 @@ export async function getObjectBytes(key: string): Promise<Buffer> {
     return Buffer.from(await res.Body!.transformToByteArray());
   } catch (err) {
     if (err instanceof NoSuchKey || isStatus(err, 404)) throw new AppError('not_found', 404, 'The stored file was not found.');
-    throw err;
-  }
-}
-
-/** Size, type and metadata without the body; null when there is no such object. */
-export async function headObject(key: string): Promise<StoredObject | null> {
-  try {
-    const res = await s3().send(new HeadObjectCommand({ Bucket: bucket(), Key: key }));
-    return {
-      key,
-      sizeBytes: res.ContentLength ?? 0,
-      contentType: res.ContentType ?? 'application/octet-stream',
-      etag: res.ETag ?? '',
-      metadata: decodeMeta(res.Metadata),
-      lastModified: res.LastModified ?? null,
-    };
-  } catch (err) {
-    if (isStatus(err, 404)) return null;
     throw err;
   }
 }
