@@ -5,7 +5,7 @@ import { getAuthOptions } from '@/lib/server/auth/options';
 import { getClientAddress } from '@/lib/server/http/client-address';
 import { recordAttempt } from '@/lib/server/auth/throttle';
 import { AppError, toErrorResponse } from '@/lib/core/errors';
-import { withCappedBody } from '@/lib/server/http/capped-request';
+import { withCappedBody } from '@/lib/server/http/read-body';
 import { serverEnv } from '@/lib/server/config/env';
 
 type Ctx = { params: Promise<{ nextauth: string[] }> };
