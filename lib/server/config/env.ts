@@ -21,7 +21,7 @@ const unsetIfEmpty = (v: unknown) => (typeof v === 'string' && v.trim() === '' ?
 const text = () => z.preprocess(unsetIfEmpty, z.string().trim().optional());
 const address = (message: string) => z.preprocess(unsetIfEmpty, z.string().trim().refine((v) => URL.canParse(v), message).optional());
 const positiveInt = (fallback: number) =>
-  z.preprocess(unsetIfEmpty, z.coerce.number().int('must be a whole number').positive('must be above 0').default(fallback));
+  z.preprocess(unsetIfEmpty, z.coerce.number({ error: 'must be a whole number' }).int('must be a whole number').positive('must be above 0').default(fallback));
 
 export const DEFAULT_APP_URL = 'http://localhost:3000';
 export const DEFAULT_SMTP_URL = 'smtp://127.0.0.1:2525';
@@ -61,7 +61,7 @@ export const EnvSchema = z.object({
   // Run mode (scripts/server.mjs): anything but "serve" runs as the demo, as the server itself decides.
   BORELINE_MODE: z.string().optional().transform((v) => (v === 'serve' ? 'serve' : 'demo') as 'serve' | 'demo'),
   BORELINE_DEV_TOOLS: z.string().optional().transform((v) => v === '1'),
-  MAIL_FAKE_HTTP_PORT: z.preprocess(unsetIfEmpty, z.coerce.number().int().min(1).max(65535).default(2526)),
+  MAIL_FAKE_HTTP_PORT: z.preprocess(unsetIfEmpty, z.coerce.number({ error: 'must be a port number' }).int('must be a port number').min(1, 'must be a port number').max(65535, 'must be a port number').default(2526)),
 });
 
 export type ServerEnv = z.infer<typeof EnvSchema>;

@@ -63,6 +63,8 @@ test('bad configuration is refused, naming every bad variable', () => {
     assert.match(message, new RegExp(`^  - ${name} `, 'm'), name);
   }
   assert.throws(() => parseServerEnv({ DATABASE_URL: DB, DB_POOL_MAX: '1.5' }), /DB_POOL_MAX must be a whole number/);
+  assert.throws(() => parseServerEnv({ DATABASE_URL: DB, SIGN_UP_LIMIT_PER_HOUR: 'many' }), /SIGN_UP_LIMIT_PER_HOUR must be a whole number/);
+  assert.throws(() => parseServerEnv({ DATABASE_URL: DB, MAIL_FAKE_HTTP_PORT: '70000' }), /MAIL_FAKE_HTTP_PORT must be a port number/);
   assert.throws(() => parseServerEnv({ DATABASE_URL: DB, NODE_ENV: 'staging' }), /NODE_ENV /);
 });
 
