@@ -1,22 +1,24 @@
-import type { Role } from '@/lib/core/auth/permissions';
+import { rolesCan, type Permission, type Role } from '@/lib/core/auth/permissions';
 
-// Which areas of the signed-in shell each role sees. Navigation only: every page and
-// handler still asks the permission table for itself.
-export type NavItem = { href: string; label: string; roles: readonly Role[] };
+// Which areas of the signed-in shell a person sees, each behind the permission its landing page
+// needs, read from the one permission table (lib/core/auth/permissions.ts). Navigation only: every
+// page and handler still asks the table for itself.
+export type NavItem = { href: string; label: string; permission: Permission };
 
 export const NAV_ITEMS: readonly NavItem[] = [
-  { href: '/home', label: 'Home', roles: ['entrant'] },
-  { href: '/boats', label: 'My boats', roles: ['entrant'] },
-  { href: '/entries', label: 'My entries', roles: ['entrant'] },
-  { href: '/protests', label: 'My protests', roles: ['entrant'] },
-  { href: '/calculator', label: 'Jet calculator', roles: ['entrant'] },
-  { href: '/inspect', label: 'Inspect', roles: ['scrutineer', 'chief_scrutineer', 'organiser'] },
-  { href: '/stewards', label: 'Stewards', roles: ['steward', 'organiser'] },
-  { href: '/organise', label: 'Organise', roles: ['organiser', 'admin'] },
-  { href: '/admin', label: 'Administration', roles: ['admin'] },
-  { href: '/account', label: 'My account', roles: ['entrant'] },
+  { href: '/home', label: 'Home', permission: 'account.view' },
+  { href: '/boats', label: 'My boats', permission: 'boat.manage_own' },
+  { href: '/entries', label: 'My entries', permission: 'entry.submit_own' },
+  { href: '/protests', label: 'My protests', permission: 'protest.lodge' },
+  { href: '/calculator', label: 'Jet calculator', permission: 'account.view' },
+  { href: '/inspect', label: 'Inspect', permission: 'inspection.board' },
+  { href: '/stewards', label: 'Stewards', permission: 'protest.view_all' },
+  { href: '/organise', label: 'Organise', permission: 'event.create' },
+  { href: '/admin', label: 'Administration', permission: 'admin.manage_users' },
+  { href: '/account', label: 'My account', permission: 'account.view' },
 ];
 
+/** The areas for every role a person holds anywhere (allRolesOf: everyone signed in is an entrant). */
 export function navFor(roles: readonly Role[]): NavItem[] {
-  return NAV_ITEMS.filter((item) => item.roles.some((r) => roles.includes(r)));
+  return NAV_ITEMS.filter((item) => rolesCan(roles, item.permission));
 }

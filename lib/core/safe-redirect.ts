@@ -21,8 +21,3 @@ export function safeRedirectPath(raw: unknown, appOrigin: string, fallback = '/h
   if (!path.startsWith('/') || path.startsWith('//') || path.startsWith('/\\')) return fallback;
   return path;
 }
-
-/** The app's own origin from NEXTAUTH_URL (the address people reach it by). */
-export function appOrigin(): string {
-  return new URL(process.env.NEXTAUTH_URL ?? 'http://localhost:3000').origin;
-}

@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import { redirect } from 'next/navigation';
 import { format, parseISO } from 'date-fns';
 import { getActor, allRolesOf } from '@/lib/server/auth/actor';
+import { rolesCan } from '@/lib/core/auth/permissions';
 import { listOrganisedMeetings } from '@/lib/server/events/list-organised-meetings';
 import Link from 'next/link';
 import { InviteStaffForm } from './invite-staff-form';
@@ -18,8 +19,8 @@ const ROLE_LABEL: Record<string, string> = {
 export default async function OrganisePage() {
   const actor = await getActor();
   if (!actor) redirect('/sign-in');
-  const roles = allRolesOf(actor);
-  if (!roles.includes('organiser') && !roles.includes('admin')) redirect('/not-allowed');
+  // The area the navigation shows for the same permission (lib/core/navigation.ts).
+  if (!rolesCan(allRolesOf(actor), 'event.create')) redirect('/not-allowed');
   const meetings = await listOrganisedMeetings(actor);
   return (
     <div className="space-y-6">

@@ -1,7 +1,8 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { SignInForm } from './sign-in-form';
-import { appOrigin, safeRedirectPath } from '@/lib/core/safe-redirect';
+import { safeRedirectPath } from '@/lib/core/safe-redirect';
+import { appOrigin } from '@/lib/server/config/env';
 
 export const metadata: Metadata = { title: 'Sign in' };
 

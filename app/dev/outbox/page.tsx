@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import { notFound, redirect } from 'next/navigation';
 import { format } from 'date-fns';
 import { getActor, can } from '@/lib/server/auth/actor';
+import { serverEnv } from '@/lib/server/config/env';
 
 export const metadata: Metadata = { title: 'Outbox (demo)' };
 export const dynamic = 'force-dynamic';
@@ -11,11 +12,12 @@ type Message = { id: string; receivedAt: string; to: string[]; subject: string; 
 // Demo only: shows what the local mail fake received, so a person can follow e-mailed links. The
 // messages hold everyone's sign-in and invitation links, so only the site administrator sees them.
 export default async function OutboxPage() {
-  if (process.env.BORELINE_DEV_TOOLS !== '1' || process.env.BORELINE_MODE === 'serve') notFound();
+  const env = serverEnv();
+  if (!env.BORELINE_DEV_TOOLS || env.BORELINE_MODE === 'serve') notFound();
   const actor = await getActor();
   if (!actor) redirect(`/sign-in?callbackUrl=${encodeURIComponent('/dev/outbox')}`);
   if (!can(actor, 'dev.outbox')) redirect('/not-allowed');
-  const port = process.env.MAIL_FAKE_HTTP_PORT ?? '2526';
+  const port = env.MAIL_FAKE_HTTP_PORT;
   let messages: Message[] = [];
   let error: string | undefined;
   try {

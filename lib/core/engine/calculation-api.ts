@@ -7,8 +7,7 @@ import type { DecisionRule, Verdict } from './conformity';
 import { computeThrustCurve } from './jet';
 import type { JetModelAssumptions } from './jet';
 import { computeCrossoverSpeedMs } from './jet-crossover';
-import { computeParity } from './parity';
-import type { ParityBoatInput, ParityReport } from './parity';
+import type { ParityBoatInput } from './parity';
 import { DEFAULT_WATER, resolveDensity } from './water';
 import type { DensityBasis, WaterKind } from './water';
 import { EngineInputError } from './engine-input-error';
@@ -79,8 +78,6 @@ export interface ParityBody extends JetModelBody {
   referenceSpeedsMs?: readonly number[];
 }
 
-export type ParityData = ParityReport & { densityKgM3: number };
-
 function resolveModel(body: JetModelBody): JetModelAssumptions {
   if (body === null || typeof body !== 'object') throw new EngineInputError('body', 'A request body object is required');
   const { densityKgM3 } = resolveDensity(
@@ -134,10 +131,4 @@ export function decideConformity(input: ConformityBody): ConformityData {
     explanation: r.explanation,
     acceptanceLimitsMm: r.acceptanceLimitsMm,
   };
-}
-
-/** Class parity report (no route fixed yet). */
-export function computeClassParity(input: ParityBody): ParityData {
-  const model = resolveModel(input);
-  return { densityKgM3: model.densityKgM3, ...computeParity(input.boats, { ...model, referenceSpeedsMs: input.referenceSpeedsMs }) };
 }

@@ -49,4 +49,3 @@ export const DEFAULT_APPEAL_NOTICE_MINUTES = 60;
 /** Evidence files: photos, PDFs and short phone videos (the storage fake holds up to 50 MB). */
 export const EVIDENCE_MAX_BYTES = 40 * 1024 * 1024;
 
-export const isOpenStatus = (s: ProtestStatus) => OPEN_STATUSES.includes(s);

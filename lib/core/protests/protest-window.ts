@@ -3,7 +3,7 @@
 // International Sporting Code; no single source). The deadline is an instant, so a daylight-saving
 // change inside the window neither stretches nor shortens it; it is only shown in the meeting's
 // time zone. Framework-free: runs on the server, in the browser (live countdown) and in unit tests.
-import { addMinutes, differenceInSeconds, format } from 'date-fns';
+import { addMinutes, differenceInSeconds } from 'date-fns';
 import { TZDate } from '@date-fns/tz';
 import { formatTime } from '../format/time';
 
@@ -25,11 +25,6 @@ export function formatInZone(instant: Date | string, timeZone: string): string {
 /** "Window closes" before the deadline, "Window closed" from just after it: computed from now, never assumed. */
 export function windowDeadlineTerm(deadline: Date | string, now: Date = new Date()): 'Window closes' | 'Window closed' {
   return isWithinWindow(new Date(deadline), now) ? 'Window closes' : 'Window closed';
-}
-
-/** Wall-clock parts of an instant in a zone (for checks and for datetime-local inputs). */
-export function wallClockInZone(instant: Date | string, timeZone: string): string {
-  return format(new TZDate(new Date(instant).getTime(), timeZone), "yyyy-MM-dd'T'HH:mm");
 }
 
 /** A datetime-local value ("2027-03-13T14:30") read as wall-clock time in the meeting's zone. */

@@ -8,21 +8,17 @@ import { hashPassword } from '@/lib/server/auth/passwords';
 import { recordAttempt } from '@/lib/server/auth/throttle';
 import { sendMail } from '@/lib/server/mail/send';
 import { sendAddressProof } from './prove-address';
+import { appUrl, serverEnv } from '@/lib/server/config/env';
 
 // Self sign-up for entrants. The answer is the same whether or not the address already has an
 // account (OWASP Authentication Cheat Sheet, "Authentication and Error Messages"): a new account is
 // made with an unproven address and a confirmation link; the owner of an existing one is told by
 // e-mail instead. The password is hashed in both cases, so the time taken tells nothing either.
 
-const envLimit = (name: string, fallback: number) => {
-  const n = Number(process.env[name]);
-  return Number.isInteger(n) && n > 0 ? n : fallback;
-};
-
 export type SignUpAnswer = { email: string; next: 'confirm-address' };
 
 export async function createAccount(raw: unknown, clientAddress: string): Promise<SignUpAnswer> {
-  const perAddress = await recordAttempt(`signup:addr:${clientAddress}`, { limit: envLimit('SIGN_UP_LIMIT_PER_HOUR', 20), windowS: 3600 });
+  const perAddress = await recordAttempt(`signup:addr:${clientAddress}`, { limit: serverEnv().SIGN_UP_LIMIT_PER_HOUR, windowS: 3600 });
   if (!perAddress.allowed) {
     throw new AppError('rate_limited', 429, `Too many new accounts from this address: try again in ${Math.ceil(perAddress.retryAfterS / 60)} minutes.`, {
       retryAfterS: perAddress.retryAfterS,
@@ -49,7 +45,7 @@ export async function createAccount(raw: unknown, clientAddress: string): Promis
 }
 
 function tellOwner(email: string) {
-  const base = process.env.NEXTAUTH_URL ?? 'http://localhost:3000';
+  const base = appUrl();
   return sendMail({
     to: email,
     subject: 'Someone tried to create a Boreline account with your address',

@@ -7,6 +7,7 @@ import { sendMail, linkMail } from '@/lib/server/mail/send';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { verifyPassword } from '@/lib/server/auth/passwords';
 import { recordAttempt } from '@/lib/server/auth/throttle';
+import { appUrl } from '@/lib/server/config/env';
 
 // A new account's address is unproven until its owner follows a one-time link sent to it and gives
 // the password chosen at sign-up: the link shows the mailbox, the password shows it is the same
@@ -23,7 +24,7 @@ export async function sendAddressProof(user: { id: string; email: string; name: 
     `insert into address_proofs (user_id, email, token_hash, expires_at) values (:userId, :email, :tokenHash, now() + make_interval(hours => :hours))`,
     { replacements: { userId: user.id, email: user.email, tokenHash: hashToken(token), hours: PROOF_HOURS } },
   );
-  const base = process.env.NEXTAUTH_URL ?? 'http://localhost:3000';
+  const base = appUrl();
   await sendMail(
     linkMail({
       to: user.email,

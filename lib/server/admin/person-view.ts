@@ -1,3 +1,4 @@
+import 'server-only';
 import type { User } from '@/models';
 
 export type PersonView = {

@@ -1,7 +1,7 @@
 import 'server-only';
 import { cookies } from 'next/headers';
 import { getToken } from 'next-auth/jwt';
-import { getAuthOptions } from './options';
+import { serverEnv } from '@/lib/server/config/env';
 import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { rolesCan, type Permission, type Role } from '../../core/auth/permissions';
@@ -48,7 +48,7 @@ export async function getActor(): Promise<Actor | null> {
   const jar = await cookies();
   const token = await getToken({
     req: { cookies: Object.fromEntries(jar.getAll().map((c) => [c.name, c.value])), headers: {} } as never,
-    secret: getAuthOptions().secret,
+    secret: serverEnv().NEXTAUTH_SECRET, // the secret next-auth signs with (lib/server/auth/options.ts)
   });
   const id = typeof token?.uid === 'string' ? token.uid : null;
   // A token from before session versions counts as version 0.

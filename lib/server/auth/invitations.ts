@@ -8,6 +8,7 @@ import { sendMail, linkMail } from '@/lib/server/mail/send';
 import type { EventStaffRole } from '@/lib/core/constants';
 import { InviteStaffInput, personName } from '@/lib/core/inputs/auth';
 import { wipeUnprovenPassword } from './sessions';
+import { appUrl } from '@/lib/server/config/env';
 
 const INVITATION_DAYS = 14;
 const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
@@ -35,7 +36,7 @@ export async function inviteStaff(actor: Actor | null, eventId: string, raw: unk
     invitedById: actor.id,
     expiresAt: new Date(Date.now() + INVITATION_DAYS * 86400_000),
   });
-  const base = process.env.NEXTAUTH_URL ?? 'http://localhost:3000';
+  const base = appUrl();
   await sendMail(
     linkMail({
       to: input.email,

@@ -13,6 +13,7 @@ import { acceptInvitation } from './invitations';
 import { checkPasswordSignIn } from './password-sign-in';
 import { endAllSessions, wipeUnprovenPassword } from './sessions';
 import { proveAddress } from '@/lib/server/accounts/prove-address';
+import { appUrl, serverEnv } from '@/lib/server/config/env';
 
 // E-mailed sign-in links per address asked for: a few an hour, so nobody can flood a mailbox.
 const LINKS_PER_ADDRESS_PER_HOUR = 5;
@@ -24,7 +25,7 @@ export function getAuthOptions(): NextAuthOptions {
   if (cached) return cached;
   const { sequelize, models } = getDb();
   cached = {
-    secret: process.env.NEXTAUTH_SECRET,
+    secret: serverEnv().NEXTAUTH_SECRET,
     session: { strategy: 'jwt', maxAge: 12 * 60 * 60 },
     adapter: SequelizeAdapter(sequelize, {
       synchronize: false,
@@ -64,8 +65,8 @@ export function getAuthOptions(): NextAuthOptions {
         },
       }),
       EmailProvider({
-        server: process.env.SMTP_URL ?? 'smtp://127.0.0.1:2525',
-        from: process.env.MAIL_FROM ?? 'Boreline <no-reply@boreline.invalid>',
+        server: serverEnv().SMTP_URL,
+        from: serverEnv().MAIL_FROM,
         maxAge: 30 * 60,
         async sendVerificationRequest({ identifier, url }) {
           // Past the limit nothing is sent, and the answer stays the same (no hint to a stranger).
@@ -103,7 +104,7 @@ export function getAuthOptions(): NextAuthOptions {
         if (email?.verificationRequest) return true;
         const found = await models.User.findOne({ where: { email: user.email.toLowerCase() }, attributes: ['suspendedAt'] });
         // Absolute: next-auth's client reads the error with new URL(), which needs one.
-        if (found?.suspendedAt) return new URL('/sign-in?error=AccountSuspended', process.env.NEXTAUTH_URL ?? 'http://localhost:3000').toString();
+        if (found?.suspendedAt) return new URL('/sign-in?error=AccountSuspended', appUrl()).toString();
         // Following an e-mailed link proves the mailbox. On an account whose address was never
         // proven, a password was chosen by whoever signed up, perhaps not the mailbox's owner: it
         // goes, with every session it opened (the adapter then marks the address proven).

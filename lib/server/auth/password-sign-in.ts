@@ -3,6 +3,7 @@ import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { hashPassword, spendPasswordCheck, verifyPassword } from './passwords';
 import { isOverAnyLimit, recordAttempts, clearAttempts } from './throttle';
+import { serverEnv } from '@/lib/server/config/env';
 
 // Password sign-in with throttles that stop an attacker without locking the owner out (OWASP
 // Authentication Cheat Sheet, "Protect Against Automated Attacks"): failures are counted per account
@@ -11,16 +12,11 @@ import { isOverAnyLimit, recordAttempts, clearAttempts } from './throttle';
 // at another; the e-mailed link is never throttled by password failures.
 
 const FIFTEEN_MIN = 15 * 60;
-const env = (name: string, fallback: number) => {
-  const n = Number(process.env[name]);
-  return Number.isInteger(n) && n > 0 ? n : fallback;
-};
-
 export function signInLimits(email: string, address: string) {
   return [
-    { key: `signin-fail:pair:${email}|${address}`, limit: env('SIGN_IN_LIMIT_PER_15_MIN', 10), windowS: FIFTEEN_MIN },
-    { key: `signin-fail:addr:${address}`, limit: env('SIGN_IN_ADDRESS_LIMIT_PER_15_MIN', 100), windowS: FIFTEEN_MIN },
-    { key: `signin-fail:acct:${email}`, limit: env('SIGN_IN_ACCOUNT_LIMIT_PER_HOUR', 300), windowS: 60 * 60 },
+    { key: `signin-fail:pair:${email}|${address}`, limit: serverEnv().SIGN_IN_LIMIT_PER_15_MIN, windowS: FIFTEEN_MIN },
+    { key: `signin-fail:addr:${address}`, limit: serverEnv().SIGN_IN_ADDRESS_LIMIT_PER_15_MIN, windowS: FIFTEEN_MIN },
+    { key: `signin-fail:acct:${email}`, limit: serverEnv().SIGN_IN_ACCOUNT_LIMIT_PER_HOUR, windowS: 60 * 60 },
   ];
 }
 

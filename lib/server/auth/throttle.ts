@@ -1,5 +1,6 @@
 import 'server-only';
 import { getDb } from '@/lib/server/db';
+import { serverEnv } from '@/lib/server/config/env';
 
 // Attempt counters in PostgreSQL (table auth_throttles), so a limit holds across every app server.
 // Fixed windows; each row expires with its window and is purged (at most once a minute per process,
@@ -8,7 +9,7 @@ import { getDb } from '@/lib/server/db';
 type Limit = { key: string; limit: number; windowS: number };
 
 let lastPurgeMs = 0;
-const purgeIntervalMs = () => (Number(process.env.THROTTLE_PURGE_INTERVAL_S) || 60) * 1000;
+const purgeIntervalMs = () => serverEnv().THROTTLE_PURGE_INTERVAL_S * 1000;
 function purgeExpiredSometimes() {
   const now = Date.now();
   if (now - lastPurgeMs < purgeIntervalMs()) return;

@@ -1,3 +1,4 @@
+import 'server-only';
 import type { ClassRuleVersion, RaceClass } from '@/models';
 import type { ClassRules } from '@/lib/core/inputs/class-rules';
 

@@ -6,6 +6,7 @@ import { AssignStaffInput } from '@/lib/core/inputs/events';
 import { inviteStaff } from '@/lib/server/auth/invitations';
 import { sendMail } from '@/lib/server/mail/send';
 import { recordAuditEvent } from '@/lib/server/audit/record-audit-event';
+import { appUrl } from '@/lib/server/config/env';
 
 /**
  * Gives a person a staff role at the event: a registered user whose address is proven gets it at
@@ -31,23 +32,11 @@ export async function assignStaff(actor: Actor | null, eventId: string, raw: unk
     return isNew;
   });
   if (!created) throw new AppError('conflict', 409, 'This person already has that role at this meeting.', [{ field: 'email', message: 'Already on the staff in that role.' }]);
-  const base = process.env.NEXTAUTH_URL ?? 'http://localhost:3000';
+  const base = appUrl();
   await sendMail({
     to: user.email,
     subject: `You are on the staff of ${event.name}`,
     text: `${actor.name ?? actor.email} added you to ${event.name} (${event.venue}) as ${input.role.replace('_', ' ')}.\n\nSign in: ${base}/sign-in`,
   });
   return { outcome: 'assigned' as const, userId: user.id, role: input.role };
-}
-
-/** Removes one staff role (an organiser cannot remove their own organiser role). */
-export async function removeStaff(actor: Actor | null, eventId: string, userId: string, role: string) {
-  assertCan(actor, 'event.staff_manage', { eventId });
-  if (userId === actor.id && role === 'organiser') throw new AppError('conflict', 409, 'You cannot remove your own organiser role.');
-  const { sequelize, models } = getDb();
-  await sequelize.transaction(async (transaction) => {
-    const n = await models.EventStaff.destroy({ where: { eventId, userId, role }, transaction });
-    if (n === 0) throw new AppError('not_found', 404, 'No such staff role.');
-    await recordAuditEvent({ eventId, actorId: actor.id, subjectType: 'staff', subjectId: userId, action: 'staff.removed', details: { role } }, transaction);
-  });
 }

@@ -1,3 +1,4 @@
+import 'server-only';
 import type { Event } from '@/models';
 import type { EventInput } from '@/lib/core/inputs/events';
 

@@ -7,19 +7,13 @@
 // TRUSTED_PROXY_HOPS proxies declared in front of the app, the client is the entry that many places
 // left of the app's own; with none (0, the default: one machine, no proxy) it is the socket itself,
 // and nothing a client writes in a header counts. X-Real-IP is never read: no proxy of ours sets it.
+import { serverEnv } from '../config/env';
 
-export const MAX_TRUSTED_PROXY_HOPS = 10;
-
-/** TRUSTED_PROXY_HOPS as a whole number from 0 to 10; unset or malformed is 0 (the socket decides). */
-export function readTrustedProxyHops(raw = process.env.TRUSTED_PROXY_HOPS): number {
-  const text = raw?.trim() ?? '';
-  if (!/^\d+$/.test(text)) return 0;
-  const n = Number(text);
-  return n <= MAX_TRUSTED_PROXY_HOPS ? n : 0;
-}
+// TRUSTED_PROXY_HOPS is read with the rest of the environment (lib/server/config/env.ts).
+export { readTrustedProxyHops } from '../config/env';
 
 /** Capped in length so a forged header cannot bloat the counter's key. */
-export function getClientAddress(headers: Headers, hops = readTrustedProxyHops()): string {
+export function getClientAddress(headers: Headers, hops = serverEnv().TRUSTED_PROXY_HOPS): string {
   const chain = (headers.get('x-forwarded-for') ?? '').split(',').map((s) => s.trim()).filter(Boolean);
   // chain[length - 1] is the app's own entry (the socket); each declared proxy moves one further left.
   const fromChain = chain.length ? chain[Math.max(0, chain.length - 1 - hops)] : '';

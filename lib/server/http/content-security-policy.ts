@@ -2,8 +2,9 @@
 // own inline scripts when the request carries the policy) and what they load ('strict-dynamic',
 // CSP Level 3); no 'unsafe-inline' for scripts. Styles keep 'unsafe-inline' (React style attributes).
 // Framework-free: used by proxy.ts and by the tests.
+import { serverEnv } from '../config/env';
 
-export function pageCsp(nonce: string, dev = process.env.NODE_ENV === 'development'): string {
+export function pageCsp(nonce: string, dev = serverEnv().NODE_ENV === 'development'): string {
   return [
     "default-src 'self'",
     `script-src 'self' 'nonce-${nonce}' 'strict-dynamic'${dev ? " 'unsafe-eval'" : ''}`,

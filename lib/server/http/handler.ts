@@ -3,7 +3,7 @@ import type { NextRequest } from 'next/server';
 import { getActor, assertCan, type Actor } from '@/lib/server/auth/actor';
 import type { Permission } from '@/lib/core/auth/permissions';
 import { AppError, toErrorResponse } from '../../core/errors';
-import { readJsonBody } from './read-body';
+import { readJsonBody, readOptionalJsonBody } from './read-body';
 
 type Params = Record<string, string | string[]>;
 type Ctx<P> = { params: Promise<P> };
@@ -60,3 +60,5 @@ export function withPermission<P extends Params = Params>(
 
 /** Reads a JSON body with a size cap (lib/server/http/read-body.ts: refused past the cap, with or without Content-Length). */
 export const readJson = readJsonBody;
+/** readJson for a body that may be left out (Content-Length 0 reads as {}). */
+export const readOptionalJson = readOptionalJsonBody;

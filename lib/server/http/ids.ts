@@ -1,3 +1,4 @@
+import 'server-only';
 import { AppError } from '../../core/errors';
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[1-8][0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}$/i;

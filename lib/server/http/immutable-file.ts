@@ -1,6 +1,7 @@
 // Answers for files that never change once made (a published report's PDF; its CSV revalidates): a strong ETag
 // from the content's SHA-256, a year-long immutable cache lifetime, and 304 to a matching
 // If-None-Match. Framework-free.
+import 'server-only';
 
 /** A year, the longest lifetime RFC 9111 section 5.2.2.1 recommends ("immutable": RFC 8246). */
 export const IMMUTABLE_CACHE_CONTROL = 'public, max-age=31536000, immutable';

@@ -2,6 +2,7 @@ import 'server-only';
 import { recordAttempt } from '@/lib/server/auth/throttle';
 import { AppError } from '../../core/errors';
 import { getClientAddress } from './client-address';
+import { serverEnv } from '@/lib/server/config/env';
 
 // Per-client request limit for the public routes, counted in PostgreSQL (lib/server/auth/throttle.ts) so
 // that it holds across any number of app servers. Fixed one-minute windows.
@@ -16,27 +17,16 @@ import { getClientAddress } from './client-address';
 
 const WINDOW_S = 60;
 
-/** Each bucket reads its own limit from the environment, per minute per client. */
+/** Each bucket's limit per minute per client, from the environment (lib/server/config/env.ts). */
 const BUCKETS = {
-  'public-api': { env: 'PUBLIC_API_RATE_LIMIT_PER_MINUTE', defaultPerMinute: 600 },
-} as const satisfies Record<string, { env: string; defaultPerMinute: number }>;
+  'public-api': () => serverEnv().PUBLIC_API_RATE_LIMIT_PER_MINUTE,
+} as const satisfies Record<string, () => number>;
 
 export type RateLimitBucket = keyof typeof BUCKETS;
 
-const warnedAbout = new Set<string>();
-
-/** The bucket's limit; a missing or malformed value falls back to the default (warned once). */
+/** The bucket's limit (unset: the default; malformed: the app refuses to start). */
 export function readLimitPerMinute(bucket: RateLimitBucket): number {
-  const { env, defaultPerMinute } = BUCKETS[bucket];
-  const raw = process.env[env]?.trim();
-  if (!raw) return defaultPerMinute;
-  const limit = Number(raw);
-  if (Number.isInteger(limit) && limit > 0) return limit;
-  if (!warnedAbout.has(env)) {
-    warnedAbout.add(env);
-    console.warn(`[boreline] ${env}=${raw} is not a positive integer; using ${defaultPerMinute}`);
-  }
-  return defaultPerMinute;
+  return BUCKETS[bucket]();
 }
 
 /** Counts this request against the client's bucket; over the limit throws a 429 AppError. */

@@ -1,4 +1,5 @@
-// The one reader for request bodies (JSON, forms, signed webhooks). A body is refused by its
+// The one reader for request bodies (JSON, forms, uploads, signed webhooks, next-auth's POSTs):
+// nothing else in the app reads or counts a request's bytes. A body is refused by its
 // declared Content-Length before a byte is read, then counted while it streams and refused the
 // moment the count passes the cap, so a chunked body with no length never costs the server more
 // than the cap in memory. Framework-free: runs in route handlers and unit tests.
@@ -76,6 +77,22 @@ export async function readJsonBody(req: Request, maxBytes = DEFAULT_JSON_MAX_BYT
   return JSON.parse(await readRawText(req, maxBytes));
 }
 
+/** A JSON body that may be left out: a request that declares Content-Length 0 reads as {}. */
+export async function readOptionalJsonBody(req: Request, maxBytes = DEFAULT_JSON_MAX_BYTES): Promise<unknown> {
+  return req.headers.get('content-length') === '0' ? {} : readJsonBody(req, maxBytes);
+}
+
+/**
+ * The same request with its body already read through the capped reader, for code we do not own
+ * that reads a body whole (next-auth's POST endpoints call req.text() / req.json()). Built with the
+ * request's own class (a NextRequest stays one). Throws the reader's 413 past maxBytes.
+ */
+export async function withCappedBody<R extends Request>(req: R, maxBytes: number): Promise<R> {
+  if (req.method !== 'POST' || !req.body) return req;
+  const body = (await readCappedBytes(req, maxBytes)) as BodyInit;
+  return new (req.constructor as new (url: string, init: RequestInit) => R)(req.url, { method: req.method, headers: req.headers, body });
+}
+
 /** What a form upload's refusals say, and which field they are shown beside. */
 export type FormRefusals = {
   field: string;
@@ -101,4 +118,15 @@ export async function readFormBody(req: Request, maxBytes: number, say: FormRefu
   } catch {
     throw new AppError('invalid_input', 400, say.unreadable, [{ field: say.field, message: 'The upload could not be read; try again.' }]);
   }
+}
+
+/** A multipart upload with its file in the field "file": 415 unless multipart, 413 past maxBodyBytes, 400 when it does not parse. */
+export function readMultipartUpload(req: Request, maxBodyBytes: number, limitLabel: string): Promise<FormData> {
+  return readFormBody(req, maxBodyBytes, {
+    field: 'file',
+    wrongType: 'Send the upload as multipart/form-data with the file in the field "file".',
+    tooLarge: `The upload is larger than ${limitLabel}.`,
+    tooLargeField: `The file is larger than ${limitLabel}.`,
+    unreadable: 'The upload could not be read as a form.',
+  });
 }

@@ -1,3 +1,4 @@
+import 'server-only';
 import { AppError, toErrorResponse } from '@/lib/core/errors';
 
 /**

@@ -1,5 +1,6 @@
 import 'server-only';
 import nodemailer, { type Transporter } from 'nodemailer';
+import { serverEnv } from '@/lib/server/config/env';
 
 const globalForMail = globalThis as unknown as { __borelineMail?: Transporter };
 
@@ -7,7 +8,7 @@ function transporter(): Transporter {
   if (!globalForMail.__borelineMail) {
     // Pooled (nodemailer reads its options from the URL's query): a few SMTP connections kept open
     // and reused, not a new handshake for every message. SMTP_URL may set its own pool options.
-    const url = new URL(process.env.SMTP_URL ?? 'smtp://127.0.0.1:2525');
+    const url = new URL(serverEnv().SMTP_URL);
     if (!url.searchParams.has('pool')) url.searchParams.set('pool', 'true');
     if (!url.searchParams.has('maxConnections')) url.searchParams.set('maxConnections', '3');
     globalForMail.__borelineMail = nodemailer.createTransport(url.toString());
@@ -20,7 +21,7 @@ export type OutgoingMail = { to: string; subject: string; text: string; html?: s
 /** Sends one message through the configured SMTP relay (the local fake in development). */
 export async function sendMail(mail: OutgoingMail) {
   await transporter().sendMail({
-    from: process.env.MAIL_FROM ?? 'Boreline <no-reply@boreline.invalid>',
+    from: serverEnv().MAIL_FROM,
     ...mail,
   });
 }

@@ -6,8 +6,7 @@ import { AppError } from '@/lib/core/errors';
 import { parseId } from '@/lib/server/http/ids';
 import { createCheckoutSession, getCheckoutSession, type CheckoutInput } from '@/lib/server/payments/stripe';
 import type { Boat, Event, RaceClass } from '@/models';
-
-const appUrl = () => process.env.NEXTAUTH_URL ?? 'http://localhost:3000';
+import { appUrl } from '@/lib/server/config/env';
 
 /**
  * Opens the payment page for the actor's unpaid entry and returns its URL. The idempotency key is

@@ -6,8 +6,7 @@ import { AppError } from '@/lib/core/errors';
 import { createCheckoutSession, getCheckoutSession, type CheckoutInput } from '@/lib/server/payments/stripe';
 import { recordAuditEvent } from '@/lib/server/audit/record-audit-event';
 import { findProtestForActor } from '../protests/find-protest-for-actor';
-
-const appUrl = () => process.env.NEXTAUTH_URL ?? 'http://localhost:3000';
+import { appUrl } from '@/lib/server/config/env';
 
 /**
  * Opens the payment page for the protester's fee. As for entry fees, the idempotency key comes

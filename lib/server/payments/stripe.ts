@@ -2,6 +2,7 @@ import 'server-only';
 import Stripe from 'stripe';
 import { AppError } from '../../core/errors';
 import { isPublishedSecret } from '../config/published-values';
+import { serverEnv } from '../config/env';
 
 // The card-payment provider behind one small module: a lazily created stripe client (nothing is
 // read at build time), Checkout Sessions, refunds and webhook verification. Development and tests
@@ -9,7 +10,7 @@ import { isPublishedSecret } from '../config/published-values';
 const globalForStripe = globalThis as unknown as { __borelineStripe?: Stripe };
 
 /** host/port/protocol for the SDK from STRIPE_API_URL; {} means Stripe's own API. */
-export function stripeConnection(apiUrl = process.env.STRIPE_API_URL, nodeEnv = process.env.NODE_ENV) {
+export function stripeConnection(apiUrl = serverEnv().STRIPE_API_URL, nodeEnv: string = serverEnv().NODE_ENV) {
   // Outside production an unset URL still means the local fake, never the real service by accident.
   const url = apiUrl || (nodeEnv === 'production' ? '' : 'http://127.0.0.1:12111');
   if (!url) return {};
@@ -20,7 +21,7 @@ export function stripeConnection(apiUrl = process.env.STRIPE_API_URL, nodeEnv = 
 
 function stripe(): Stripe {
   if (!globalForStripe.__borelineStripe) {
-    const key = process.env.STRIPE_SECRET_KEY;
+    const key = serverEnv().STRIPE_SECRET_KEY;
     // A key published in this repository authenticates nobody (lib/server/config/published-values.ts).
     if (!key || isPublishedSecret('STRIPE_SECRET_KEY', key)) throw new AppError('payments_unavailable', 503, 'Payments are not configured on this server.');
     globalForStripe.__borelineStripe = new Stripe(key, {
@@ -125,7 +126,7 @@ export async function refundPayment(input: { paymentIntentId: string; amountMino
  * rawBody must be the exact bytes received (`await req.text()`), never re-serialised JSON.
  */
 export function verifyWebhook(rawBody: string, signatureHeader: string | null): Stripe.Event {
-  const secret = process.env.STRIPE_WEBHOOK_SECRET;
+  const secret = serverEnv().STRIPE_WEBHOOK_SECRET;
   // Anyone can sign with a secret published in this repository: such a value verifies nothing.
   if (!secret || isPublishedSecret('STRIPE_WEBHOOK_SECRET', secret)) throw new AppError('payments_unavailable', 503, 'Payment webhooks are not configured on this server.');
   if (!signatureHeader) throw new AppError('bad_signature', 400, 'The webhook has no Stripe-Signature header.');

@@ -15,6 +15,7 @@ import { notifyParties } from './notify-parties';
 import { getProtest, type ProtestDetail } from './get-protest';
 import { namesOfOfficials } from './names-of-officials';
 import { findProtestConflicts } from '@/lib/server/interests/find-protest-conflicts';
+import { appUrl } from '@/lib/server/config/env';
 
 /**
  * The stewards' decision: upheld, dismissed or withdrawn, with reasons and, when upheld, any
@@ -77,7 +78,7 @@ export async function decideProtest(actor: Actor | null, protestId: string, raw:
     ...(input.penalty ? [`Penalty: ${input.penalty}`] : []),
     ...(fee ? [outcome.refunded ? `The protest fee of ${fee} is refunded to the card that paid it.` : `The protest fee of ${fee} is kept.`] : []),
     `Notice of appeal is due by ${formatInZone(detail.appealDeadline!, detail.timeZone)}.`,
-    `The written decision (PDF): ${process.env.NEXTAUTH_URL ?? 'http://localhost:3000'}/api/protests/${detail.id}/decision.pdf`,
+    `The written decision (PDF): ${appUrl()}/api/protests/${detail.id}/decision.pdf`,
   ]);
   return detail;
 }

@@ -2,8 +2,7 @@ import 'server-only';
 import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { sendMail } from '@/lib/server/mail/send';
-
-const appUrl = () => process.env.NEXTAUTH_URL ?? 'http://localhost:3000';
+import { appUrl } from '@/lib/server/config/env';
 
 /**
  * E-mails both parties of a protest (the protester and, once lodged, the protested entrant) with a

@@ -8,6 +8,7 @@ import { sendMail } from '@/lib/server/mail/send';
 import { gatherReportInputs } from './gather-report-inputs';
 import { computeReportResults } from '../../core/reports/parity-figures';
 import { toPublishedReportDto, type PublishedReportDto } from '../../core/reports/report-dto';
+import { appUrl } from '@/lib/server/config/env';
 
 /** The live draft of a class's report: current inspections, not stored. */
 export async function computeDraftReport(actor: Actor | null, eventId: string, classId: string) {
@@ -40,7 +41,7 @@ export async function publishReport(actor: Actor | null, eventId: string, classI
     `select distinct u.email from entries e join users u on u.id = e.entrant_id where e.class_id = :classId and e.status = 'entered'`,
     { replacements: { classId } },
   );
-  const base = process.env.NEXTAUTH_URL ?? 'http://localhost:3000';
+  const base = appUrl();
   await Promise.all(
     (recipients as { email: string }[]).map((r) =>
       sendMail({

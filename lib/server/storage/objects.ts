@@ -1,28 +1,28 @@
 import 'server-only';
 import { randomUUID } from 'node:crypto';
 import {
-  S3Client, HeadBucketCommand, CreateBucketCommand, PutObjectCommand, GetObjectCommand, HeadObjectCommand,
+  S3Client, HeadBucketCommand, CreateBucketCommand, PutObjectCommand, GetObjectCommand,
   S3ServiceException, NoSuchKey,
 } from '@aws-sdk/client-s3';
 import { AppError } from '../../core/errors';
 import { isPublishedSecret } from '../config/published-values';
+import { serverEnv } from '../config/env';
 
 // Object storage (documents, photos, evidence) behind one module. Keys are always made here by
 // newObjectKey(), never taken from a request, so no upload can choose or overwrite another's key.
 const globalForS3 = globalThis as unknown as { __borelineS3?: S3Client; __borelineBucket?: Promise<void> };
 
-const bucket = () => process.env.S3_BUCKET || 'boreline';
+const bucket = () => serverEnv().S3_BUCKET;
 
 function s3(): S3Client {
   if (!globalForS3.__borelineS3) {
-    const endpoint = process.env.S3_ENDPOINT || undefined;
-    const { S3_ACCESS_KEY_ID: accessKeyId, S3_SECRET_ACCESS_KEY: secretAccessKey } = process.env;
+    const { S3_ENDPOINT: endpoint, S3_ACCESS_KEY_ID: accessKeyId, S3_SECRET_ACCESS_KEY: secretAccessKey, S3_REGION: region } = serverEnv();
     // A key pair published in this repository is nobody's: refuse it rather than use it.
     if (accessKeyId && (isPublishedSecret('S3_ACCESS_KEY_ID', accessKeyId) || isPublishedSecret('S3_SECRET_ACCESS_KEY', secretAccessKey))) {
       throw new AppError('storage_unavailable', 503, 'File storage is not configured on this server.');
     }
     globalForS3.__borelineS3 = new S3Client({
-      region: process.env.S3_REGION || 'us-east-1',
+      region,
       endpoint,
       // S3-compatible services (and the local fake) address buckets by path; AWS itself by host.
       forcePathStyle: Boolean(endpoint),
@@ -68,19 +68,9 @@ export function newObjectKey(prefix: string, now = new Date()): string {
   return `${prefix}/${yyyy}/${mm}/${randomUUID()}`;
 }
 
-// Metadata travels as HTTP headers (ASCII only): values are percent-encoded on the way in and
-// decoded on the way out, so a person's name or a file name survives the round trip.
+// Metadata travels as HTTP headers (ASCII only): values are percent-encoded on the way in, so a
+// person's name or a file name survives (decodeURIComponent reads one back).
 const encodeMeta = (m: Record<string, string> = {}) => Object.fromEntries(Object.entries(m).map(([k, v]) => [k.toLowerCase(), encodeURIComponent(v)]));
-const decodeMeta = (m: Record<string, string> = {}) =>
-  Object.fromEntries(Object.entries(m).map(([k, v]) => {
-    try {
-      return [k, decodeURIComponent(v)];
-    } catch {
-      return [k, v];
-    }
-  }));
-
-export type StoredObject = { key: string; sizeBytes: number; contentType: string; etag: string; metadata: Record<string, string>; lastModified: Date | null };
 
 /**
  * Stores bytes under an app-made key. With sha256Hex (from inspectUpload) the storage service
@@ -109,24 +99,6 @@ export async function getObjectBytes(key: string): Promise<Buffer> {
     return Buffer.from(await res.Body!.transformToByteArray());
   } catch (err) {
     if (err instanceof NoSuchKey || isStatus(err, 404)) throw new AppError('not_found', 404, 'The stored file was not found.');
-    throw err;
-  }
-}
-
-/** Size, type and metadata without the body; null when there is no such object. */
-export async function headObject(key: string): Promise<StoredObject | null> {
-  try {
-    const res = await s3().send(new HeadObjectCommand({ Bucket: bucket(), Key: key }));
-    return {
-      key,
-      sizeBytes: res.ContentLength ?? 0,
-      contentType: res.ContentType ?? 'application/octet-stream',
-      etag: res.ETag ?? '',
-      metadata: decodeMeta(res.Metadata),
-      lastModified: res.LastModified ?? null,
-    };
-  } catch (err) {
-    if (isStatus(err, 404)) return null;
     throw err;
   }
 }

@@ -2,13 +2,13 @@ import 'server-only';
 import { randomBytes } from 'node:crypto';
 import { Op, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/server/db';
+import { appUrl } from '@/lib/server/config/env';
 
 // QR tags carry an unguessable token (144 random bits), never a database id.
 export const newTagToken = () => randomBytes(18).toString('base64url');
 
 export function tagUrl(token: string) {
-  const base = process.env.NEXTAUTH_URL ?? 'http://localhost:3000';
-  return `${base}/t/${token}`;
+  return `${appUrl()}/t/${token}`;
 }
 
 /** The boat's current tag token, issuing one if it has none. */

@@ -1,9 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound, redirect } from 'next/navigation';
-import { can, getActor } from '@/lib/server/auth/actor';
-import { getDb } from '@/lib/server/db';
-import { parseId } from '@/lib/server/http/ids';
+import { can } from '@/lib/server/auth/actor';
+import { openEventPageWithHeading } from '@/lib/server/auth/page-access';
 import { listInstruments } from '@/lib/server/inspections/list-instruments';
 import { DockScreen } from './dock-screen';
 
@@ -12,17 +10,10 @@ export const dynamic = 'force-dynamic';
 
 // The dock screen for scrutineers of this meeting; it keeps working offline once visited.
 export default async function DockPage({ params }: { params: Promise<{ eventId: string }> }) {
-  const actor = await getActor();
-  if (!actor) redirect('/sign-in');
-  let eventId: string;
-  try {
-    eventId = parseId((await params).eventId);
-  } catch {
-    notFound();
-  }
-  if (!can(actor, 'inspection.record', { eventId })) redirect(can(actor, 'inspection.board', { eventId }) ? `/inspect/${eventId}/board` : '/not-allowed');
-  const event = await getDb().models.Event.findByPk(eventId, { attributes: ['id', 'name', 'venue'] });
-  if (!event) notFound();
+  // A board-only official who opens the dock lands on the board instead.
+  const { actor, eventId, event } = await openEventPageWithHeading(params, 'inspection.record', {
+    deniedTo: (a, id) => (can(a, 'inspection.board', { eventId: id }) ? `/inspect/${id}/board` : '/not-allowed'),
+  });
   const instruments = await listInstruments(actor, eventId);
   return (
     <div className="space-y-4 text-lg">

@@ -1,8 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound, redirect } from 'next/navigation';
-import { getActor, can } from '@/lib/server/auth/actor';
-import { parseId } from '@/lib/server/http/ids';
+import { openEventPage } from '@/lib/server/auth/page-access';
 import { listStewardQueue } from '@/lib/server/protests/list-steward-queue';
 import { formatMoney } from '@/lib/core/inputs/entries';
 import { DecisionCaution, ProtestStatusBadge } from '../../protests/protest-badges';
@@ -11,11 +9,7 @@ export const metadata: Metadata = { title: 'Protest queue' };
 export const dynamic = 'force-dynamic';
 
 export default async function StewardQueuePage({ params }: { params: Promise<{ eventId: string }> }) {
-  const actor = await getActor();
-  if (!actor) redirect('/sign-in');
-  let eventId: string;
-  try { eventId = parseId((await params).eventId, 'event'); } catch { notFound(); }
-  if (!can(actor, 'protest.view_all', { eventId })) redirect('/not-allowed');
+  const { actor, eventId } = await openEventPage(params, 'protest.view_all');
   const q = await listStewardQueue(actor, eventId);
   return (
     <div className="space-y-6">

@@ -1,11 +1,12 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
+import { serverEnv } from '@/lib/server/config/env';
 
 export const metadata: Metadata = { title: 'Check your e-mail' };
 export const dynamic = 'force-dynamic';
 
 export default function CheckEmailPage() {
-  const showOutbox = process.env.BORELINE_DEV_TOOLS === '1';
+  const showOutbox = serverEnv().BORELINE_DEV_TOOLS;
   return (
     <div className="space-y-4">
       <h1 className="text-2xl">Check your e-mail</h1>

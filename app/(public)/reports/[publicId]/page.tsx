@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { formatTime } from '@/lib/core/format/time';
-import { getDb } from '@/lib/server/db';
+import { getEventTimeZone } from '@/lib/server/events/event-heading';
 import { findPublishedReport, findPreviousReport } from '@/lib/server/reports/manage-reports';
 import { diffReports } from '@/lib/core/reports/report-diff';
 import { ParityReport } from '@/components/parity-report';
@@ -21,7 +21,7 @@ export default async function PublicReportPage({ params }: { params: Promise<{ p
   const report = await findPublishedReport((await params).publicId);
   if (!report) notFound();
   const previous = await findPreviousReport(report);
-  const timeZone = (await getDb().models.Event.findByPk(report.eventId, { attributes: ['timeZone'] }))?.timeZone ?? 'UTC';
+  const timeZone = await getEventTimeZone(report.eventId);
   const diff = previous ? diffReports(previous, report) : null;
   return (
     <article className="space-y-6">

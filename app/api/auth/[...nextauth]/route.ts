@@ -5,19 +5,19 @@ import { getAuthOptions } from '@/lib/server/auth/options';
 import { getClientAddress } from '@/lib/server/http/client-address';
 import { recordAttempt } from '@/lib/server/auth/throttle';
 import { AppError, toErrorResponse } from '@/lib/core/errors';
-import { withCappedBody } from '@/lib/server/http/capped-request';
+import { withCappedBody } from '@/lib/server/http/read-body';
+import { serverEnv } from '@/lib/server/config/env';
 
 type Ctx = { params: Promise<{ nextauth: string[] }> };
 
 // next-auth reads a POST body whole; it gets a copy read through the capped reader instead.
 const AUTH_MAX_BODY_BYTES = 64 * 1024;
-// E-mailed sign-in links asked for from one client address, per hour (each target address has its
-// own smaller limit in lib/server/auth/options.ts).
-const LINK_REQUESTS_PER_ADDRESS_PER_HOUR = 30;
+// E-mailed sign-in links asked for from one client address, per hour: SIGN_IN_LINK_LIMIT_PER_HOUR,
+// 30 by default (each target address has its own smaller limit in lib/server/auth/options.ts).
 
 async function throttleLinkRequests(req: NextRequest) {
   const throttle = await recordAttempt(`link-request:${getClientAddress(req.headers)}`, {
-    limit: Number(process.env.SIGN_IN_LINK_LIMIT_PER_HOUR) || LINK_REQUESTS_PER_ADDRESS_PER_HOUR,
+    limit: serverEnv().SIGN_IN_LINK_LIMIT_PER_HOUR,
     windowS: 3600,
   });
   if (!throttle.allowed) {

@@ -3,10 +3,11 @@
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import {
-  computeClassParity,
   computeCrossover,
   computeJetPerformance,
+  computeParity,
   decideConformity,
+  resolveDensity,
 } from '../../../../lib/core/engine/index';
 import {
   conformityInputSchema,
@@ -130,8 +131,10 @@ test('parity schema and API', () => {
     ],
   });
   assert.deepEqual(body.referenceSpeedsMs, [10, 20, 30]);
-  const data = computeClassParity(body);
-  close(data.densityKgM3, 999.1026, 1e-9, 'default density');
+  // The parity report computes through computeParity with the density resolved from the water (lib/core/reports/parity-figures.ts).
+  const { densityKgM3 } = resolveDensity(body.water);
+  const data = computeParity(body.boats, { densityKgM3, referenceSpeedsMs: body.referenceSpeedsMs });
+  close(densityKgM3, 999.1026, 1e-9, 'default density');
   assert.equal(data.boats.length, 2);
   assert.equal(data.referenceSetup.kind, 'synthetic');
   const dup = parityInputSchema.safeParse({ boats: [{ id: 'a', label: 'A', powerKw: 300, nozzleDiameterMm: 100 }, { id: 'a', label: 'B', powerKw: 300, nozzleDiameterMm: 90 }] });

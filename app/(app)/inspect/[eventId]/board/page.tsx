@@ -1,10 +1,8 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { Suspense } from 'react';
-import { notFound, redirect } from 'next/navigation';
-import { can, getActor } from '@/lib/server/auth/actor';
-import { getDb } from '@/lib/server/db';
-import { parseId } from '@/lib/server/http/ids';
+import { can } from '@/lib/server/auth/actor';
+import { openEventPageWithHeading } from '@/lib/server/auth/page-access';
 import { BoardView } from './board-view';
 
 export const metadata: Metadata = { title: 'Inspection board' };
@@ -12,17 +10,7 @@ export const dynamic = 'force-dynamic';
 
 // The chief scrutineer's and organiser's view of the whole meeting's inspections, refreshing itself.
 export default async function BoardPage({ params }: { params: Promise<{ eventId: string }> }) {
-  const actor = await getActor();
-  if (!actor) redirect('/sign-in');
-  let eventId: string;
-  try {
-    eventId = parseId((await params).eventId);
-  } catch {
-    notFound();
-  }
-  if (!can(actor, 'inspection.board', { eventId })) redirect('/not-allowed');
-  const event = await getDb().models.Event.findByPk(eventId, { attributes: ['id', 'name'] });
-  if (!event) notFound();
+  const { actor, eventId, event } = await openEventPageWithHeading(params, 'inspection.board');
   const canRecord = can(actor, 'inspection.record', { eventId });
   return (
     <div className="space-y-4 text-lg">

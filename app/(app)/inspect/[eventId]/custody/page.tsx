@@ -1,9 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound, redirect } from 'next/navigation';
-import { can, getActor } from '@/lib/server/auth/actor';
-import { getDb } from '@/lib/server/db';
-import { parseId } from '@/lib/server/http/ids';
+import { can } from '@/lib/server/auth/actor';
+import { openEventPageWithHeading } from '@/lib/server/auth/page-access';
 import { listCustody, listProtestsToKeepPartsFor } from '@/lib/server/custody/manage-custody';
 import { formatInZone } from '@/lib/core/protests/protest-window';
 import { PROTEST_STATUS_LABELS, OPEN_STATUSES, type ProtestStatus } from '@/lib/core/protests/protest-states';
@@ -15,13 +13,7 @@ export const dynamic = 'force-dynamic';
 
 // Parts the officials hold at the meeting: taken at the dock, released once nothing is pending.
 export default async function CustodyPage({ params }: { params: Promise<{ eventId: string }> }) {
-  const actor = await getActor();
-  if (!actor) redirect('/sign-in');
-  let eventId: string;
-  try { eventId = parseId((await params).eventId); } catch { notFound(); }
-  if (!can(actor, 'custody.view', { eventId })) redirect('/not-allowed');
-  const event = await getDb().models.Event.findByPk(eventId, { attributes: ['id', 'name', 'timeZone'] });
-  if (!event) notFound();
+  const { actor, eventId, event } = await openEventPageWithHeading(params, 'custody.view');
   const [items, protests] = await Promise.all([listCustody(actor, eventId), listProtestsToKeepPartsFor(actor, eventId)]);
   const canTake = can(actor, 'custody.take', { eventId });
   const canRelease = can(actor, 'custody.release', { eventId });

@@ -1,9 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound, redirect } from 'next/navigation';
-import { can, getActor } from '@/lib/server/auth/actor';
-import { getDb } from '@/lib/server/db';
-import { parseId } from '@/lib/server/http/ids';
+import { openEventPageWithHeading } from '@/lib/server/auth/page-access';
 import { listAllInstruments } from '@/lib/server/inspections/list-instruments';
 import { canManageInstruments } from '@/lib/server/inspections/manage-instruments-access';
 import { formatFigure } from '@/lib/core/format/figures';
@@ -16,13 +13,7 @@ const U_KIND = { length: 'uncertaintyMm', mass: 'massKg' } as const;
 
 // The meeting's measuring instruments: the chief scrutineer (or organiser) adds and retires them; scrutineers see the list.
 export default async function InstrumentsPage({ params }: { params: Promise<{ eventId: string }> }) {
-  const actor = await getActor();
-  if (!actor) redirect('/sign-in');
-  let eventId: string;
-  try { eventId = parseId((await params).eventId); } catch { notFound(); }
-  if (!can(actor, 'inspection.board', { eventId })) redirect('/not-allowed');
-  const event = await getDb().models.Event.findByPk(eventId, { attributes: ['id', 'name', 'timeZone'] });
-  if (!event) notFound();
+  const { actor, eventId, event } = await openEventPageWithHeading(params, 'inspection.board');
   const instruments = await listAllInstruments(actor, eventId);
   const canManage = canManageInstruments(actor, eventId);
   const inService = instruments.filter((i) => !i.retiredAt);

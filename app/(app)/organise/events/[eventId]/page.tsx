@@ -1,10 +1,8 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound, redirect } from 'next/navigation';
-import { getActor, can } from '@/lib/server/auth/actor';
+import { openEventPage } from '@/lib/server/auth/page-access';
 import { getEventForOrganiser } from '@/lib/server/events/save-event';
 import { listEventClasses, listCopyableClasses } from '@/lib/server/classes/manage-classes';
-import { parseId } from '@/lib/server/http/ids';
 import { EventForm } from '../event-form';
 import { NewClassForm } from './new-class-form';
 import { InviteStaffForm } from '../../invite-staff-form';
@@ -12,15 +10,7 @@ import { InviteStaffForm } from '../../invite-staff-form';
 export const metadata: Metadata = { title: 'Meeting' };
 
 export default async function EventPage({ params }: { params: Promise<{ eventId: string }> }) {
-  const actor = await getActor();
-  if (!actor) redirect('/sign-in');
-  let eventId: string;
-  try {
-    eventId = parseId((await params).eventId, 'event');
-  } catch {
-    notFound();
-  }
-  if (!can(actor, 'event.edit', { eventId })) redirect('/not-allowed');
+  const { actor, eventId } = await openEventPage(params, 'event.edit');
   const [event, classes, copyable] = await Promise.all([
     getEventForOrganiser(actor, eventId),
     listEventClasses(actor, eventId),

@@ -1,9 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound, redirect } from 'next/navigation';
-import { getActor, can } from '@/lib/server/auth/actor';
-import { getDb } from '@/lib/server/db';
-import { parseId } from '@/lib/server/http/ids';
+import { openEventPageWithHeading } from '@/lib/server/auth/page-access';
 import { AuditQuery, listAuditEvents } from '@/lib/server/audit/list-audit-events';
 import { AUDIT_KINDS, AUDIT_KIND_LABELS, type AuditKind } from '@/lib/core/audit/describe-audit-event';
 import { formatTime } from '@/lib/core/format/time';
@@ -14,19 +11,13 @@ export const dynamic = 'force-dynamic';
 
 // Read-only: the trail is written by the changes it records and the database refuses edits.
 export default async function AuditPage({ params, searchParams }: { params: Promise<{ eventId: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
-  const actor = await getActor();
-  if (!actor) redirect('/sign-in');
-  let eventId: string;
-  try { eventId = parseId((await params).eventId, 'event'); } catch { notFound(); }
-  if (!can(actor, 'audit.read', { eventId })) redirect('/not-allowed');
+  const { actor, eventId, event } = await openEventPageWithHeading(params, 'audit.read');
   const sp = await searchParams;
   const one = (v: string | string[] | undefined) => (Array.isArray(v) ? v[0] : v);
   // A hand-edited or stale "?before=" or "?kind=" shows the newest page of everything with a note, never an error page.
   const before = AuditQuery.shape.before.safeParse(one(sp.before));
   const kindParsed = AuditQuery.shape.kind.safeParse(one(sp.kind) || undefined);
   const kind: AuditKind | undefined = kindParsed.success ? kindParsed.data : undefined;
-  const event = await getDb().models.Event.findByPk(eventId);
-  if (!event) notFound();
   const page = await listAuditEvents(actor, eventId, { before: before.success ? before.data : undefined, kind });
   const href = (k?: AuditKind, cursor?: string) => {
     const q = new URLSearchParams();

@@ -1,8 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound, redirect } from 'next/navigation';
-import { getActor, can } from '@/lib/server/auth/actor';
-import { parseId } from '@/lib/server/http/ids';
+import { can } from '@/lib/server/auth/actor';
+import { openEventPage } from '@/lib/server/auth/page-access';
 import { listInterestRegister } from '@/lib/server/interests/list-interest-register';
 import { INTEREST_KIND_SHORT } from '@/lib/core/inputs/interests';
 import { DeclareInterestForm } from './declare-interest-form';
@@ -13,11 +12,7 @@ export const dynamic = 'force-dynamic';
 
 // The meeting's register: every official declares their own interests; stewards and the organiser read all of it.
 export default async function InterestRegisterPage({ params }: { params: Promise<{ eventId: string }> }) {
-  const actor = await getActor();
-  if (!actor) redirect('/sign-in');
-  let eventId: string;
-  try { eventId = parseId((await params).eventId, 'event'); } catch { notFound(); }
-  if (!can(actor, 'interest.declare', { eventId })) redirect('/not-allowed');
+  const { actor, eventId } = await openEventPage(params, 'interest.declare');
   const r = await listInterestRegister(actor, eventId);
   const isSteward = can(actor, 'protest.view_all', { eventId });
   return (

@@ -7,7 +7,7 @@ import { listProvisionalResults } from '@/lib/server/results/list-provisional-re
 import { publishProvisionalResults } from '@/lib/server/results/publish-provisional-results';
 import { parseResultsCsv } from '@/lib/core/results/parse-results-csv';
 import { RESULTS_CSV_MAX_BYTES } from '@/lib/core/inputs/results';
-import { readMultipartUpload } from '@/lib/server/http/read-multipart-upload';
+import { readMultipartUpload } from '@/lib/server/http/read-body';
 
 type P = { eventId: string };
 

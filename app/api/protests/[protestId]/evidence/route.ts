@@ -4,7 +4,7 @@ import { AppError } from '@/lib/core/errors';
 import { addEvidence } from '@/lib/server/protests/add-evidence';
 import { listEvidence } from '@/lib/server/protests/list-evidence';
 import { findProtestForActor } from '@/lib/server/protests/find-protest-for-actor';
-import { readMultipartUpload } from '@/lib/server/http/read-multipart-upload';
+import { readMultipartUpload } from '@/lib/server/http/read-body';
 import { EVIDENCE_MAX_BYTES } from '@/lib/core/protests/protest-states';
 
 type P = { protestId: string };

@@ -1,27 +1,15 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { Suspense } from 'react';
-import { notFound, redirect } from 'next/navigation';
-import { getActor, can } from '@/lib/server/auth/actor';
+import { can } from '@/lib/server/auth/actor';
+import { openEventPageWithHeading } from '@/lib/server/auth/page-access';
 import { listEventEntries } from '@/lib/server/entries/list-event-entries';
-import { getDb } from '@/lib/server/db';
-import { parseId } from '@/lib/server/http/ids';
 import { EntriesTable } from './entries-table';
 
 export const metadata: Metadata = { title: 'Entries' };
 
 export default async function EntriesPage({ params }: { params: Promise<{ eventId: string }> }) {
-  const actor = await getActor();
-  if (!actor) redirect('/sign-in');
-  let eventId: string;
-  try {
-    eventId = parseId((await params).eventId);
-  } catch {
-    notFound();
-  }
-  if (!can(actor, 'entry.view_all', { eventId })) redirect('/not-allowed');
-  const event = await getDb().models.Event.findByPk(eventId, { attributes: ['name'] });
-  if (!event) notFound();
+  const { actor, eventId, event } = await openEventPageWithHeading(params, 'entry.view_all');
   const rows = await listEventEntries(actor, eventId);
   const classes = [...new Map(rows.map((r) => [r.classId, { id: r.classId, label: `${r.classCode} ${r.className}` }])).values()];
   return (

@@ -1,8 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound, redirect } from 'next/navigation';
-import { getActor, can } from '@/lib/server/auth/actor';
-import { parseId } from '@/lib/server/http/ids';
+import { openEventPage } from '@/lib/server/auth/page-access';
 import { listProvisionalResults } from '@/lib/server/results/list-provisional-results';
 import { SafetyNote } from '@/components/safety-note';
 import { ResultsForm } from './results-form';
@@ -11,11 +9,7 @@ export const metadata: Metadata = { title: 'Provisional results' };
 export const dynamic = 'force-dynamic';
 
 export default async function ResultsPage({ params }: { params: Promise<{ eventId: string }> }) {
-  const actor = await getActor();
-  if (!actor) redirect('/sign-in');
-  let eventId: string;
-  try { eventId = parseId((await params).eventId, 'event'); } catch { notFound(); }
-  if (!can(actor, 'results.publish', { eventId })) redirect('/not-allowed');
+  const { actor, eventId } = await openEventPage(params, 'results.publish');
   const classes = await listProvisionalResults(actor, eventId);
   return (
     <div className="space-y-6">

@@ -1,9 +1,9 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound, redirect } from 'next/navigation';
-import { getActor, can } from '@/lib/server/auth/actor';
+import { notFound } from 'next/navigation';
+import { can } from '@/lib/server/auth/actor';
+import { openEventPage } from '@/lib/server/auth/page-access';
 import { AppError } from '@/lib/core/errors';
-import { parseId } from '@/lib/server/http/ids';
 import { getProtest } from '@/lib/server/protests/get-protest';
 import { DecisionCaution, ProtestStatusBadge } from '../../../../protests/protest-badges';
 import { EvidenceList } from '../../../../protests/evidence-list';
@@ -18,13 +18,8 @@ export const metadata: Metadata = { title: 'Protest (stewards)' };
 export const dynamic = 'force-dynamic';
 
 export default async function StewardProtestPage({ params }: { params: Promise<{ eventId: string; protestId: string }> }) {
-  const actor = await getActor();
-  if (!actor) redirect('/sign-in');
-  const raw = await params;
-  let eventId: string;
-  try { eventId = parseId(raw.eventId, 'event'); } catch { notFound(); }
-  if (!can(actor, 'protest.view_all', { eventId })) redirect('/not-allowed');
-  const p = await getProtest(actor, raw.protestId).catch((err) => {
+  const { actor, eventId } = await openEventPage(params, 'protest.view_all');
+  const p = await getProtest(actor, (await params).protestId).catch((err) => {
     if (err instanceof AppError && err.status === 404) notFound();
     throw err;
   });

@@ -1,11 +1,10 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound, redirect } from 'next/navigation';
+import { notFound } from 'next/navigation';
 import { formatTime } from '@/lib/core/format/time';
-import { getActor, can } from '@/lib/server/auth/actor';
+import { openEventPage } from '@/lib/server/auth/page-access';
 import { getClassWithVersions } from '@/lib/server/classes/manage-classes';
 import { diffRules, ruleLabel } from '@/lib/core/classes/diff-rules';
-import { parseId } from '@/lib/server/http/ids';
 import { AppError } from '@/lib/core/errors';
 import { SafetyNote } from '@/components/safety-note';
 import { RulesForm } from './rules-form';
@@ -16,17 +15,7 @@ export const metadata: Metadata = { title: 'Class rules' };
 const show = (v: unknown) => (v === null || v === undefined ? '—' : Array.isArray(v) ? v.join(', ') : String(v));
 
 export default async function ClassPage({ params }: { params: Promise<{ eventId: string; classId: string }> }) {
-  const actor = await getActor();
-  if (!actor) redirect('/sign-in');
-  const p = await params;
-  let eventId: string, classId: string;
-  try {
-    eventId = parseId(p.eventId);
-    classId = parseId(p.classId);
-  } catch {
-    notFound();
-  }
-  if (!can(actor, 'class.edit', { eventId })) redirect('/not-allowed');
+  const { actor, eventId, ids: { classId } } = await openEventPage(params, 'class.edit', { ids: ['classId'] });
   let data;
   try {
     data = await getClassWithVersions(actor, eventId, classId);

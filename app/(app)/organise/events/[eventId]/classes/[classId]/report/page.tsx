@@ -1,9 +1,8 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound, redirect } from 'next/navigation';
+import { notFound } from 'next/navigation';
 import { formatTime } from '@/lib/core/format/time';
-import { getActor, can } from '@/lib/server/auth/actor';
-import { parseId } from '@/lib/server/http/ids';
+import { openEventPage } from '@/lib/server/auth/page-access';
 import { AppError } from '@/lib/core/errors';
 import { computeDraftReport, listReportVersions } from '@/lib/server/reports/manage-reports';
 import { getClassWithVersions } from '@/lib/server/classes/manage-classes';
@@ -16,17 +15,7 @@ import { WhatIfSandbox } from './what-if-sandbox';
 export const metadata: Metadata = { title: 'Parity report (draft)' };
 
 export default async function DraftReportPage({ params }: { params: Promise<{ eventId: string; classId: string }> }) {
-  const actor = await getActor();
-  if (!actor) redirect('/sign-in');
-  const p = await params;
-  let eventId: string, classId: string;
-  try {
-    eventId = parseId(p.eventId);
-    classId = parseId(p.classId);
-  } catch {
-    notFound();
-  }
-  if (!can(actor, 'report.publish', { eventId })) redirect('/not-allowed');
+  const { actor, eventId, ids: { classId } } = await openEventPage(params, 'report.publish', { ids: ['classId'] });
   let draft;
   try {
     draft = await computeDraftReport(actor, eventId, classId);

@@ -1,0 +1,13 @@
+// Runs once when the server starts (Next.js instrumentation hook; Next.js skips it during `next build`):
+// the environment is parsed here, so bad configuration stops the app at start, naming each variable,
+// instead of failing on the first request that reads it.
+export async function register() {
+  if (process.env.NEXT_RUNTIME !== 'nodejs') return;
+  const { serverEnv } = await import('./lib/server/config/env');
+  try {
+    serverEnv();
+  } catch (err) {
+    console.error(`[boreline] not starting: ${(err as Error).message}`);
+    process.exit(1);
+  }
+}

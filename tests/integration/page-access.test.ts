@@ -1,0 +1,87 @@
+// How a meeting's pages open (lib/server/auth/page-access.ts), page by page: anonymous visitors go
+// to sign in, a malformed id is a 404, someone without the permission at that meeting is sent to
+// /not-allowed (a board-only official who opens the dock lands on the board), and the meeting's
+// staff see the page with the meeting's name.
+import { test } from 'node:test';
+import assert from 'node:assert/strict';
+import { randomUUID } from 'node:crypto';
+import { HttpSession } from '../support/http-session';
+import { DEMO, DEMO_PASSWORD } from '../support/env';
+import { query, closeDb } from '../support/db';
+
+const M = DEMO.meetingId;
+const sessions = new Map<string, HttpSession>();
+async function as(email: string) {
+  if (!sessions.has(email)) {
+    const s = new HttpSession();
+    const res = await s.signInWithPassword(email, DEMO_PASSWORD);
+    assert.ok(res.status < 400 && s.hasCookie(/session-token/), `${email} signs in (${res.status})`);
+    sessions.set(email, s);
+  }
+  return sessions.get(email)!;
+}
+
+// Each page with the permission it asks and one of the demo meeting's staff who holds it.
+const PAGES = (eventId: string, classId: string) => [
+  { path: `/organise/events/${eventId}`, allowed: DEMO.organiser },
+  { path: `/organise/events/${eventId}/entries`, allowed: DEMO.organiser },
+  { path: `/organise/events/${eventId}/results`, allowed: DEMO.organiser },
+  { path: `/organise/events/${eventId}/classes/${classId}`, allowed: DEMO.organiser },
+  { path: `/organise/events/${eventId}/classes/${classId}/report`, allowed: DEMO.organiser },
+  { path: `/stewards/${eventId}`, allowed: DEMO.steward },
+  { path: `/stewards/${eventId}/audit`, allowed: DEMO.steward },
+  { path: `/stewards/${eventId}/interests`, allowed: DEMO.scrutineer },
+  { path: `/inspect/${eventId}`, allowed: DEMO.scrutineer },
+  { path: `/inspect/${eventId}/board`, allowed: DEMO.chief },
+  { path: `/inspect/${eventId}/custody`, allowed: DEMO.steward },
+  { path: `/inspect/${eventId}/instruments`, allowed: DEMO.chief },
+];
+
+const isRedirectTo = (res: Response, target: RegExp) => [303, 307].includes(res.status) && target.test(new URL(res.headers.get('location') ?? '', 'http://x').pathname);
+
+test.after(closeDb);
+
+test('anonymous visitors are sent to sign in from every meeting page', async () => {
+  for (const { path } of PAGES(M, randomUUID())) {
+    const res = await new HttpSession().fetch(path);
+    assert.ok(isRedirectTo(res, /^\/sign-in$/), `${path}: ${res.status} ${res.headers.get('location')}`);
+  }
+});
+
+test('a malformed meeting or class id is a 404, even for the meeting\'s staff', async () => {
+  const [cls] = await query<{ id: string }>('select id from race_classes where event_id = $1 limit 1', [M]);
+  for (const { path, allowed } of [...PAGES('not-a-meeting', cls.id), ...PAGES(M, 'not-a-class').filter((p) => p.path.includes('not-a-class'))]) {
+    const res = await (await as(allowed)).fetch(path);
+    assert.equal(res.status, 404, path);
+  }
+});
+
+test('without the permission at that meeting: /not-allowed (an entrant; staff of the meeting at another meeting\'s id)', async () => {
+  const [cls] = await query<{ id: string }>('select id from race_classes where event_id = $1 limit 1', [M]);
+  for (const { path } of PAGES(M, cls.id)) {
+    const res = await (await as(DEMO.entrant)).fetch(path);
+    assert.ok(isRedirectTo(res, /^\/not-allowed$/), `entrant ${path}: ${res.status} ${res.headers.get('location')}`);
+  }
+  for (const { path, allowed } of PAGES(randomUUID(), randomUUID())) {
+    const res = await (await as(allowed)).fetch(path);
+    assert.ok(isRedirectTo(res, /^\/not-allowed$/), `${allowed} at an unknown meeting ${path}: ${res.status}`);
+  }
+});
+
+test('the dock sends a board-only official to the board and anyone else without it to /not-allowed', async () => {
+  const organiser = await (await as(DEMO.organiser)).fetch(`/inspect/${M}`);
+  assert.ok(isRedirectTo(organiser, new RegExp(`^/inspect/${M}/board$`)), `organiser: ${organiser.status} ${organiser.headers.get('location')}`);
+  const steward = await (await as(DEMO.steward)).fetch(`/inspect/${M}`);
+  assert.ok(isRedirectTo(steward, /^\/not-allowed$/), `steward: ${steward.status}`);
+});
+
+test('the meeting\'s staff open each page and see the meeting\'s name where the page shows it', async () => {
+  const [event] = await query<{ name: string }>('select name from events where id = $1', [M]);
+  const [cls] = await query<{ id: string }>('select id from race_classes where event_id = $1 order by code limit 1', [M]);
+  for (const { path, allowed } of PAGES(M, cls.id)) {
+    const res = await (await as(allowed)).fetch(path);
+    const html = await res.text();
+    assert.ok(res.status === 200, `${allowed} ${path}: ${res.status}`);
+    if (/\/(entries|audit|board|custody|instruments)$|\/inspect\/[^/]+$/.test(path)) assert.ok(html.includes(event.name.replace(/&/g, '&amp;')), `${path} names the meeting`);
+  }
+});
