@@ -57,6 +57,23 @@ if [ -n "$run_script" ]; then files=("$run_script"); elif [ $# -gt 0 ]; then fil
 fi
 [ ${#files[@]} -gt 0 ] || { log "no test files found"; exit 1; }
 
+# The whole suite starts with the static checks, before anything is started or built, and a
+# failing one fails the run (CI runs the whole suite). Chosen files skip them to stay quick.
+if [ -z "$run_script" ] && [ $# -eq 0 ]; then
+  failed=()
+  check() { # check SCRIPT HOW-TO-FIX: run one package.json script, remember how to fix it when it fails
+    log "npm run $1"
+    npm run --silent "$1" || failed+=("'npm run $1' failed: $2")
+  }
+  check format:check "run 'npm run format' (Prettier rewrites the files listed above) and commit the result"
+  check lint "fix each problem 'npm run lint' lists above (a warning fails too: --max-warnings=0)"
+  check typecheck "fix each error 'npm run typecheck' (tsc --noEmit) lists above"
+  if [ ${#failed[@]} -gt 0 ]; then
+    for f in "${failed[@]}"; do log "$f"; done
+    exit 1
+  fi
+fi
+
 needs_app=0
 for f in "${files[@]}"; do case "$f" in tests/unit/*) ;; *) needs_app=1 ;; esac; done
 
