@@ -6,9 +6,14 @@ import { useEffect, useState } from 'react';
 export function DeadlineCountdown({ deadline, label }: { deadline: string; label: string }) {
   const [now, setNow] = useState<number | null>(null);
   useEffect(() => {
-    setNow(Date.now());
-    const t = setInterval(() => setNow(Date.now()), 1000);
-    return () => clearInterval(t);
+    // The clock is read after mount (the server's time would not match the phone's at hydration).
+    const tick = () => setNow(Date.now());
+    const first = setTimeout(tick, 0);
+    const t = setInterval(tick, 1000);
+    return () => {
+      clearTimeout(first);
+      clearInterval(t);
+    };
   }, []);
   const left = now === null ? null : Math.floor((new Date(deadline).getTime() - now) / 1000);
   const isClosed = left !== null && left < 0;

@@ -121,13 +121,14 @@ export function useJetResults(setups: readonly SetupDraft[]) {
     [setups],
   );
   const [results, setResults] = useState<JetResults>();
-  const [isUpdating, setUpdating] = useState(true);
+  // Updating until the answer for the current request has settled (derived, not set in the effect).
+  const [settledKey, setSettledKey] = useState<string>();
+  const isUpdating = settledKey !== requestKey;
   const [problem, setProblem] = useState<string>();
   const [post] = useState(() => createCachedPost(new Map()));
 
   useEffect(() => {
     const controller = new AbortController();
-    setUpdating(true);
     const timer = setTimeout(() => {
       fetchResults(JSON.parse(requestKey) as SetupRequest[], post, controller.signal)
         .then((r) => {
@@ -139,7 +140,7 @@ export function useJetResults(setups: readonly SetupDraft[]) {
           setProblem(err instanceof ServiceProblem ? err.message : 'No connection to the calculation service: the figures shown are from the last answer.');
         })
         .finally(() => {
-          if (!controller.signal.aborted) setUpdating(false);
+          if (!controller.signal.aborted) setSettledKey(requestKey);
         });
     }, DEBOUNCE_MS);
     return () => {

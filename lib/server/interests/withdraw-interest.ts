@@ -15,7 +15,7 @@ import { queryInterests, type InterestView } from './interest-view';
 export async function withdrawInterest(actor: Actor | null, eventId: string, interestId: string, readBody: () => Promise<unknown>): Promise<InterestView> {
   assertCan(actor, 'interest.declare', { eventId });
   const id = parseId(interestId, 'declaration');
-  const { models, sequelize } = getDb();
+  const { models } = getDb();
   const interest = await models.OfficialInterest.findOne({ where: { id, eventId, officialId: actor.id } });
   if (!interest) throw new AppError('not_found', 404, 'No such declaration of yours at this meeting.');
   // The body is read only once the declaration is known to be the caller's.

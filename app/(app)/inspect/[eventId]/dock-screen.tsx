@@ -1,6 +1,6 @@
 'use client';
 
-import { useCallback, useEffect, useRef, useState } from 'react';
+import { useCallback, useEffect, useEffectEvent, useRef, useState, useSyncExternalStore } from 'react';
 import { parseTagScan } from '@/lib/core/tags/parse-tag-scan';
 import { requestJson } from '@/components/forms/request-json';
 import { loadSnapshot, putQueued, saveSnapshot, sendQueued, type EventSnapshot, type QueuedRecord } from '@/app/(app)/inspect/[eventId]/offline-queue';
@@ -23,6 +23,10 @@ function newKey(): string {
   b[8] = (b[8] & 0x3f) | 0x80;
   const h = Array.from(b, (x) => x.toString(16).padStart(2, '0')).join('');
   return `${h.slice(0, 8)}-${h.slice(8, 12)}-${h.slice(12, 16)}-${h.slice(16, 20)}-${h.slice(20)}`;
+}
+
+function subscribeToNothing() {
+  return () => {};
 }
 
 /** A short, stable name for this phone, so the record says which device captured it. */
@@ -58,7 +62,8 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
   const [notice, setNotice] = useState<Notice | null>(null);
   const [verdict, setVerdict] = useState<ShownVerdict | null>(null);
   const [isLooking, setLooking] = useState(false);
-  const [device, setDevice] = useState('');
+  // Read after hydration: the server has no phone name (an empty name until then).
+  const device = useSyncExternalStore(subscribeToNothing, deviceName, () => '');
   const verdictRef = useRef<HTMLDivElement>(null);
   const defaultLength = instruments.find((i) => i.quantity === 'length')?.id ?? null;
   const defaultScale = instruments.find((i) => i.quantity === 'mass')?.id ?? null;
@@ -75,11 +80,12 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
     }
   }, [eventId, instruments]);
 
+  useEffect(() => registerInspectServiceWorker(), []);
   useEffect(() => {
-    setDevice(deviceName());
-    registerInspectServiceWorker();
-  }, []);
-  useEffect(() => void refreshSnapshot(), [refreshSnapshot, queue.isOnline]);
+    // On opening and whenever the signal comes back (the update lands after the request answers).
+    const t = window.setTimeout(() => void refreshSnapshot(), 0);
+    return () => window.clearTimeout(t);
+  }, [refreshSnapshot, queue.isOnline]);
 
   function open(t: DockTarget, initial?: FormState, key?: string) {
     setTarget(t);
@@ -181,7 +187,7 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
     document.getElementById('boat-heading')?.scrollIntoView({ block: 'start' });
   }, [target]);
 
-  useEffect(() => {
+  const openFromLink = useEffectEvent(() => {
     // From the board's re-inspection list: /inspect/<event>?race=42 opens that boat; from a tag
     // scanned with the phone's own camera (/t/<token> sends scrutineers here): ?tag=<token>.
     const query = new URLSearchParams(window.location.search);
@@ -190,6 +196,10 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
     isOpenedFromLink.current = Boolean(race || tag);
     if (race) void find({ kind: 'typed', text: race });
     else if (tag) void find({ kind: 'scan', text: tag });
+  });
+  useEffect(() => {
+    const t = window.setTimeout(openFromLink, 0);
+    return () => window.clearTimeout(t);
   }, []);
 
   return (

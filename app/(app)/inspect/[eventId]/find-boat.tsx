@@ -1,6 +1,6 @@
 'use client';
 
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useEffectEvent, useState } from 'react';
 
 /** html5-qrcode's own file scan (its bundled ZXing decoder). */
 async function decodeWithHtml5Qrcode(file: File): Promise<string | null> {
@@ -52,8 +52,8 @@ export function FindBoat({ onFind, isBusy }: Props) {
   const [typed, setTyped] = useState('');
   // Race numbers are digits: the phone's number pad by default; a tag code (letters) on request.
   const [isTypingCode, setTypingCode] = useState(false);
-  const onFindRef = useRef(onFind);
-  onFindRef.current = onFind;
+  // The camera's callback always calls the latest onFind without restarting the camera.
+  const onScan = useEffectEvent(onFind);
 
   useEffect(() => {
     if (!isCameraOn) return;
@@ -70,7 +70,7 @@ export function FindBoat({ onFind, isBusy }: Props) {
           if (cancelled) return;
           cancelled = true;
           setCameraOn(false);
-          onFindRef.current({ kind: 'scan', text });
+          onScan({ kind: 'scan', text });
         }, () => undefined)
         .catch(() => {
           if (!cancelled) setCameraError('The camera could not start. Allow the camera, use “Scan from a photo”, or type the race number.');

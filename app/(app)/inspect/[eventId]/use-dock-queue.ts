@@ -1,9 +1,18 @@
 'use client';
 
-import { useCallback, useEffect, useState } from 'react';
+import { useCallback, useEffect, useState, useSyncExternalStore } from 'react';
 import { listQueued, removeQueued, sendWaiting, type QueuedRecord } from '@/app/(app)/inspect/[eventId]/offline-queue';
 
 const RETRY_MS = 15_000;
+
+function subscribeToConnection(onChange: () => void) {
+  window.addEventListener('online', onChange);
+  window.addEventListener('offline', onChange);
+  return () => {
+    window.removeEventListener('online', onChange);
+    window.removeEventListener('offline', onChange);
+  };
+}
 
 /**
  * The phone's outbox for one meeting, kept in step with IndexedDB. Sends when the browser says it
@@ -11,7 +20,7 @@ const RETRY_MS = 15_000;
  */
 export function useDockQueue(eventId: string, actorId: string) {
   const [records, setRecords] = useState<QueuedRecord[]>([]);
-  const [isOnline, setOnline] = useState(true);
+  const isOnline = useSyncExternalStore(subscribeToConnection, () => navigator.onLine, () => true);
   const refresh = useCallback(async () => setRecords(await listQueued(eventId)), [eventId]);
   const flush = useCallback(async () => {
     if (!navigator.onLine) return;
@@ -20,19 +29,13 @@ export function useDockQueue(eventId: string, actorId: string) {
   }, [eventId, actorId, refresh]);
 
   useEffect(() => {
-    setOnline(navigator.onLine);
-    void refresh().then(flush);
-    const up = () => {
-      setOnline(true);
-      void flush();
-    };
-    const down = () => setOnline(false);
+    const first = window.setTimeout(() => void refresh().then(flush), 0);
+    const up = () => void flush();
     window.addEventListener('online', up);
-    window.addEventListener('offline', down);
     const timer = window.setInterval(() => void flush(), RETRY_MS);
     return () => {
+      window.clearTimeout(first);
       window.removeEventListener('online', up);
-      window.removeEventListener('offline', down);
       window.clearInterval(timer);
     };
   }, [refresh, flush]);

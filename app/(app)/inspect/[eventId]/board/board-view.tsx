@@ -48,9 +48,13 @@ export function BoardView({ eventId, canAssign, canRecord }: { eventId: string; 
   }, [eventId, classFilter, result]);
 
   useEffect(() => {
-    void load();
-    const timer = window.setInterval(() => void load(), REFRESH_MS);
-    return () => window.clearInterval(timer);
+    const run = () => void load();
+    const first = window.setTimeout(run, 0);
+    const timer = window.setInterval(run, REFRESH_MS);
+    return () => {
+      window.clearTimeout(first);
+      window.clearInterval(timer);
+    };
   }, [load]);
 
   const request = useFormAction(async (): Promise<FormState> => {

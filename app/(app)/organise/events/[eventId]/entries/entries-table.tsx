@@ -32,7 +32,10 @@ export function EntriesTable({ rows, classes, canCancel, eventId }: { rows: Even
     // Read the address as it is now (not as it was at the last render), so a debounced search and a
     // filter change never undo each other.
     const next = new URLSearchParams(typeof window === 'undefined' ? params : window.location.search);
-    for (const [k, v] of Object.entries(changes)) (v ? next.set(k, v) : next.delete(k));
+    for (const [k, v] of Object.entries(changes)) {
+      if (v) next.set(k, v);
+      else next.delete(k);
+    }
     if (!('page' in changes)) next.delete('page');
     router.replace(`${pathname}?${next.toString()}`, { scroll: false });
   };
@@ -82,6 +85,8 @@ export function EntriesTable({ rows, classes, canCancel, eventId }: { rows: Even
   // Stable between renders: a new sorting array each render re-sorts the rows, which made the table
   // reset its page, re-render and sort again without end (the page froze after the first key typed).
   const sorting: SortingState = useMemo(() => [{ id: sort, desc }], [sort, desc]);
+  // TanStack Table returns functions the React Compiler cannot memoise; this app does not use the compiler.
+  // eslint-disable-next-line react-hooks/incompatible-library
   const table = useReactTable({
     data: filtered,
     columns,
