@@ -38,7 +38,11 @@ export interface DisplayUnits {
   force: ForceUnit;
 }
 
-/** Typical values (DOMAIN.md: efficiency 0.85–0.92, K_i 0.1–0.3, K_n 0.01–0.05) so the page opens with a real curve. */
+/**
+ * Typical values so the page opens with a real curve: pump efficiency about 0.85–0.92, flush inlet loss
+ * K_i about 0.1–0.3, nozzle loss K_n about 0.01–0.05 (MIT 2.611 course notes use K_i = 0.2, eta_p = 0.9;
+ * the ranges are common practice [partly memory]).
+ */
 export function createExampleSetup(id: string, label: string): SetupDraft {
   return {
     id, label, power: '250', powerUnit: 'kW', nozzle: '95', nozzleUnit: 'mm',

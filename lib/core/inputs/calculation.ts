@@ -1,6 +1,6 @@
 // zod 4 schemas for the calculation API bodies, shared by forms and route handlers.
 // Parsed output feeds lib/core/engine's computeJetPerformance / computeCrossover / decideConformity /
-// computeClassParity directly. Numbers must be JSON numbers (strings are rejected, and zod 4's
+// computeParity directly. Numbers must be JSON numbers (strings are rejected, and zod 4's
 // z.number() also rejects NaN and Infinity). Objects are strict: an unknown key (a typo such as
 // "pumpEfficency") is an error rather than a silently applied default.
 // Upper bounds on power, diameter and lengths are sanity limits, not physics.

@@ -72,7 +72,10 @@ export const ClassRulesForm = z
     return parsed.data;
   });
 
-/** Sensible starting rules for a new class (defaults from DOMAIN references; the organiser edits them). */
+/**
+ * Sensible starting rules for a new class; the organiser edits them. Three readings and the
+ * uncertainties are common practice (no source); the decision rule is ISO 14253-1:2017 conformity.
+ */
 export const DEFAULT_CLASS_RULES: ClassRules = {
   nozzle: { maxMm: null, minMm: null, minReadings: 3, defaultUncertaintyMm: 0.05 },
   power: { minKw: null, maxKw: null, defaultUncertaintyKw: 5 },
