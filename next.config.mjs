@@ -3,7 +3,8 @@
 // Pages get their Content Security Policy, with a fresh nonce, from proxy.ts
 // (lib/server/http/content-security-policy.ts). Everything else (API answers, files) gets this one: it
 // runs no scripts at all.
-const staticCsp = "default-src 'none'; img-src 'self'; font-src 'self'; style-src 'self'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'";
+const staticCsp =
+  "default-src 'none'; img-src 'self'; font-src 'self'; style-src 'self'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'";
 
 const securityHeaders = [
   { key: 'X-Frame-Options', value: 'DENY' },

@@ -26,7 +26,10 @@ export default function proxy(req: NextRequest, event: NextFetchEvent) {
   try {
     decodeURIComponent(req.nextUrl.pathname);
   } catch {
-    return NextResponse.json({ error: { code: 'bad_path', message: 'The address is not valid: it contains broken character encoding.' } }, { status: 400 });
+    return NextResponse.json(
+      { error: { code: 'bad_path', message: 'The address is not valid: it contains broken character encoding.' } },
+      { status: 400 },
+    );
   }
   if (SIGNED_IN_AREAS.test(req.nextUrl.pathname)) return requireSignIn(req as NextRequestWithAuth, event);
   return withNonce(req);
@@ -39,7 +42,13 @@ export default function proxy(req: NextRequest, event: NextFetchEvent) {
 export const config = {
   matcher: [
     '/((?!api/|_next/static|_next/image|fonts/|favicon.ico).*)',
-    { source: '/api/:path*', missing: [{ type: 'header', key: 'content-length' }, { type: 'header', key: 'transfer-encoding' }] },
+    {
+      source: '/api/:path*',
+      missing: [
+        { type: 'header', key: 'content-length' },
+        { type: 'header', key: 'transfer-encoding' },
+      ],
+    },
     '/api/:path(.*%.*)',
   ],
 };

@@ -15,8 +15,16 @@ export default function NotFound() {
         been replaced: ask the boat&apos;s team or the chief scrutineer.
       </p>
       <ul className="flex flex-wrap gap-3">
-        <li><Link href="/home" className="btn-primary">Your home page</Link></li>
-        <li><Link href="/" className="btn-secondary">Boreline’s front page</Link></li>
+        <li>
+          <Link href="/home" className="btn-primary">
+            Your home page
+          </Link>
+        </li>
+        <li>
+          <Link href="/" className="btn-secondary">
+            Boreline’s front page
+          </Link>
+        </li>
       </ul>
     </CardPage>
   );

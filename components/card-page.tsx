@@ -12,7 +12,9 @@ export function CardPage({ children, className = '', ...main }: React.ComponentP
         <BrandMark className="h-10 w-10" />
         <BrandName />
       </Link>
-      <main className={`card w-full max-w-md ${className}`.trim()} {...main}>{children}</main>
+      <main className={`card w-full max-w-md ${className}`.trim()} {...main}>
+        {children}
+      </main>
     </div>
   );
 }

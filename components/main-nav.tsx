@@ -23,7 +23,9 @@ export function MainNav({ items }: { items: MainNavItem[] }) {
                 href={item.href}
                 aria-current={current ? 'page' : undefined}
                 className={`flex min-h-[44px] items-center rounded-lg px-3 font-bold sm:min-h-touch no-underline sm:whitespace-nowrap sm:rounded-b-none sm:rounded-t-lg sm:px-4 ${
-                  current ? 'bg-paper text-tide-900' : 'bg-tide-700 text-white hover:bg-tide-500 sm:bg-transparent sm:hover:bg-tide-700'
+                  current
+                    ? 'bg-paper text-tide-900'
+                    : 'bg-tide-700 text-white hover:bg-tide-500 sm:bg-transparent sm:hover:bg-tide-700'
                 }`}
               >
                 {item.label}

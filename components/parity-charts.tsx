@@ -2,7 +2,18 @@
 
 import { useMemo } from 'react';
 import {
-  Bar, BarChart, CartesianGrid, ErrorBar, Line, LineChart, ReferenceDot, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis,
+  Bar,
+  BarChart,
+  CartesianGrid,
+  ErrorBar,
+  Line,
+  LineChart,
+  ReferenceDot,
+  ReferenceLine,
+  ResponsiveContainer,
+  Tooltip,
+  XAxis,
+  YAxis,
 } from 'recharts';
 import { convertForce, convertSpeed, type ForceUnit, type SpeedUnit } from '@/lib/core/engine/units';
 import type { ReportInputs, ReportResults } from '@/lib/core/reports/parity-figures';
@@ -12,7 +23,10 @@ export const SPEED_UNITS: SpeedUnit[] = ['km/h', 'm/s', 'kn', 'mph'];
 const BOAT_COLOURS = ['#1f5f8b', '#2a3a48', '#51606d', '#103a57', '#3d7aa8', '#5b6b78'];
 // Colour and dash together tell 24 boats apart; the legend below the chart names each line.
 const BOAT_DASHES = ['', '6 3', '2 3', '10 3 2 3'];
-const boatStyle = (i: number) => ({ stroke: BOAT_COLOURS[i % BOAT_COLOURS.length], dash: BOAT_DASHES[Math.floor(i / BOAT_COLOURS.length) % BOAT_DASHES.length] });
+const boatStyle = (i: number) => ({
+  stroke: BOAT_COLOURS[i % BOAT_COLOURS.length],
+  dash: BOAT_DASHES[Math.floor(i / BOAT_COLOURS.length) % BOAT_DASHES.length],
+});
 
 function LineSample({ stroke, dash, width }: { stroke: string; dash: string; width: number }) {
   return (
@@ -23,7 +37,17 @@ function LineSample({ stroke, dash, width }: { stroke: string; dash: string; wid
 }
 
 /** The report's charts: thrust curves, static thrust deviation with whiskers, jet velocity spread, in the units chosen above them. */
-export function ParityCharts({ inputs, results, forceUnit, speedUnit }: { inputs: ReportInputs; results: ReportResults; forceUnit: ForceUnit; speedUnit: SpeedUnit }) {
+export function ParityCharts({
+  inputs,
+  results,
+  forceUnit,
+  speedUnit,
+}: {
+  inputs: ReportInputs;
+  results: ReportResults;
+  forceUnit: ForceUnit;
+  speedUnit: SpeedUnit;
+}) {
   const f = (n: number) => convertForce(n, 'N', forceUnit);
   const s = (ms: number) => convertSpeed(ms, 'm/s', speedUnit);
   const parity = results.parity;
@@ -41,45 +65,96 @@ export function ParityCharts({ inputs, results, forceUnit, speedUnit }: { inputs
 
   if (!parity || !curves) return <p>No boat has a conforming inspection yet: there is nothing to chart.</p>;
   const labels = new Map(inputs.boats.map((b) => [b.entryId, `#${b.raceNumber} ${b.boatName}`]));
-  const crossovers = parity.boats.filter((b) => b.crossoverWithMedianMs !== null && b.crossoverWithMedianMs <= curves.speedsMs[curves.speedsMs.length - 1]);
+  const crossovers = parity.boats.filter(
+    (b) => b.crossoverWithMedianMs !== null && b.crossoverWithMedianMs <= curves.speedsMs[curves.speedsMs.length - 1],
+  );
   const refAt = (ms: number) => {
     const i = Math.min(curves.speedsMs.length - 1, Math.round(ms));
     return f(curves.reference[i]);
   };
-  const devData = parity.boats.map((b) => ({ name: labels.get(b.id) ?? b.label, dev: +b.deviationFromMedianPercent.toFixed(2), err: +(2 * b.uDeviationFromMedianPercent).toFixed(2) }));
-  const jetData = parity.boats.map((b) => ({ name: labels.get(b.id) ?? b.label, vj: +s(b.staticJetVelocityMs).toFixed(2), err: +(2 * s(b.uStaticJetVelocityMs)).toFixed(2) }));
+  const devData = parity.boats.map((b) => ({
+    name: labels.get(b.id) ?? b.label,
+    dev: +b.deviationFromMedianPercent.toFixed(2),
+    err: +(2 * b.uDeviationFromMedianPercent).toFixed(2),
+  }));
+  const jetData = parity.boats.map((b) => ({
+    name: labels.get(b.id) ?? b.label,
+    vj: +s(b.staticJetVelocityMs).toFixed(2),
+    err: +(2 * s(b.uStaticJetVelocityMs)).toFixed(2),
+  }));
 
   return (
     <div className="space-y-6">
       <figure className="card" data-testid="chart-thrust-curves">
-        <figcaption className="mb-2 font-bold">Thrust against boat speed ({forceUnit} vs {speedUnit}); the median boat in orange, crossovers marked</figcaption>
+        <figcaption className="mb-2 font-bold">
+          Thrust against boat speed ({forceUnit} vs {speedUnit}); the median boat in orange, crossovers marked
+        </figcaption>
         <div className="h-72 sm:h-96">
           <ResponsiveContainer width="100%" height="100%">
             <LineChart data={lineData} margin={{ top: 8, right: 12, bottom: 20, left: 8 }}>
               <CartesianGrid stroke="#d5d0c2" strokeDasharray="3 3" />
-              <XAxis dataKey="speed" type="number" domain={[0, 'dataMax']} label={{ value: speedUnit, position: 'insideBottom', offset: -10 }} />
+              <XAxis
+                dataKey="speed"
+                type="number"
+                domain={[0, 'dataMax']}
+                label={{ value: speedUnit, position: 'insideBottom', offset: -10 }}
+              />
               <YAxis width={60} />
-              <Tooltip formatter={(v, name) => [`${v} ${forceUnit}`, name === 'median' ? 'Median boat' : labels.get(String(name)) ?? String(name)]} labelFormatter={(v) => `${v} ${speedUnit}`} />
+              <Tooltip
+                formatter={(v, name) => [
+                  `${v} ${forceUnit}`,
+                  name === 'median' ? 'Median boat' : (labels.get(String(name)) ?? String(name)),
+                ]}
+                labelFormatter={(v) => `${v} ${speedUnit}`}
+              />
               {inputs.boats.map((b, i) => (
-                <Line key={b.entryId} dataKey={b.entryId} name={labels.get(b.entryId)} dot={false} stroke={boatStyle(i).stroke} strokeDasharray={boatStyle(i).dash || undefined} strokeWidth={1.5} isAnimationActive={false} />
+                <Line
+                  key={b.entryId}
+                  dataKey={b.entryId}
+                  name={labels.get(b.entryId)}
+                  dot={false}
+                  stroke={boatStyle(i).stroke}
+                  strokeDasharray={boatStyle(i).dash || undefined}
+                  strokeWidth={1.5}
+                  isAnimationActive={false}
+                />
               ))}
               <Line dataKey="median" dot={false} stroke="#e86a10" strokeWidth={3} isAnimationActive={false} />
               {crossovers.map((b) => (
-                <ReferenceDot key={b.id} x={+s(b.crossoverWithMedianMs!).toFixed(2)} y={+refAt(b.crossoverWithMedianMs!).toFixed(1)} r={5} fill="#fbfaf6" stroke="#0b1620" />
+                <ReferenceDot
+                  key={b.id}
+                  x={+s(b.crossoverWithMedianMs!).toFixed(2)}
+                  y={+refAt(b.crossoverWithMedianMs!).toFixed(1)}
+                  r={5}
+                  fill="#fbfaf6"
+                  stroke="#0b1620"
+                />
               ))}
             </LineChart>
           </ResponsiveContainer>
         </div>
-        <ul className="mt-3 grid gap-x-4 gap-y-1 text-sm sm:grid-cols-2 lg:grid-cols-3" aria-label="Lines on the chart" data-testid="thrust-legend">
-          <li className="flex items-center gap-2 font-bold"><LineSample stroke="#e86a10" dash="" width={3} />Median boat</li>
+        <ul
+          className="mt-3 grid gap-x-4 gap-y-1 text-sm sm:grid-cols-2 lg:grid-cols-3"
+          aria-label="Lines on the chart"
+          data-testid="thrust-legend"
+        >
+          <li className="flex items-center gap-2 font-bold">
+            <LineSample stroke="#e86a10" dash="" width={3} />
+            Median boat
+          </li>
           {inputs.boats.map((b, i) => (
-            <li key={b.entryId} className="flex items-center gap-2"><LineSample stroke={boatStyle(i).stroke} dash={boatStyle(i).dash} width={1.5} />{labels.get(b.entryId)}</li>
+            <li key={b.entryId} className="flex items-center gap-2">
+              <LineSample stroke={boatStyle(i).stroke} dash={boatStyle(i).dash} width={1.5} />
+              {labels.get(b.entryId)}
+            </li>
           ))}
         </ul>
         {crossovers.length > 0 && (
           <ul className="mt-2 text-sm">
             {crossovers.slice(0, 12).map((b) => (
-              <li key={b.id}>{labels.get(b.id)} crosses the median boat at {s(b.crossoverWithMedianMs!).toFixed(1)} {speedUnit}</li>
+              <li key={b.id}>
+                {labels.get(b.id)} crosses the median boat at {s(b.crossoverWithMedianMs!).toFixed(1)} {speedUnit}
+              </li>
             ))}
           </ul>
         )}
@@ -88,26 +163,31 @@ export function ParityCharts({ inputs, results, forceUnit, speedUnit }: { inputs
       {devData.length < 2 ? (
         <section className="card" data-testid="deviation-single">
           <h3 className="font-bold">Static thrust deviation from the class median</h3>
-          <p className="mt-1">Only one boat is in the figures, so it is the median itself: there is no deviation to chart until a second boat has a conforming inspection.</p>
+          <p className="mt-1">
+            Only one boat is in the figures, so it is the median itself: there is no deviation to chart until a second
+            boat has a conforming inspection.
+          </p>
         </section>
       ) : (
-      <figure className="card" data-testid="chart-deviation">
-        <figcaption className="mb-2 font-bold">Static thrust deviation from the class median (%), whiskers ±2u (about 95 %)</figcaption>
-        <div style={{ height: Math.max(180, devData.length * 26) }}>
-          <ResponsiveContainer width="100%" height="100%">
-            <BarChart data={devData} layout="vertical" margin={{ left: 8, right: 16 }}>
-              <CartesianGrid stroke="#d5d0c2" strokeDasharray="3 3" />
-              <XAxis type="number" unit=" %" />
-              <YAxis type="category" dataKey="name" width={130} tick={{ fontSize: 12 }} />
-              <ReferenceLine x={0} stroke="#0b1620" />
-              <Tooltip formatter={(v) => [`${v} %`, 'Deviation']} />
-              <Bar dataKey="dev" fill="#1f5f8b" isAnimationActive={false}>
-                <ErrorBar dataKey="err" width={6} stroke="#0b1620" direction="x" />
-              </Bar>
-            </BarChart>
-          </ResponsiveContainer>
-        </div>
-      </figure>
+        <figure className="card" data-testid="chart-deviation">
+          <figcaption className="mb-2 font-bold">
+            Static thrust deviation from the class median (%), whiskers ±2u (about 95 %)
+          </figcaption>
+          <div style={{ height: Math.max(180, devData.length * 26) }}>
+            <ResponsiveContainer width="100%" height="100%">
+              <BarChart data={devData} layout="vertical" margin={{ left: 8, right: 16 }}>
+                <CartesianGrid stroke="#d5d0c2" strokeDasharray="3 3" />
+                <XAxis type="number" unit=" %" />
+                <YAxis type="category" dataKey="name" width={130} tick={{ fontSize: 12 }} />
+                <ReferenceLine x={0} stroke="#0b1620" />
+                <Tooltip formatter={(v) => [`${v} %`, 'Deviation']} />
+                <Bar dataKey="dev" fill="#1f5f8b" isAnimationActive={false}>
+                  <ErrorBar dataKey="err" width={6} stroke="#0b1620" direction="x" />
+                </Bar>
+              </BarChart>
+            </ResponsiveContainer>
+          </div>
+        </figure>
       )}
 
       <figure className="card" data-testid="chart-jet-velocity">
@@ -116,7 +196,11 @@ export function ParityCharts({ inputs, results, forceUnit, speedUnit }: { inputs
           <ResponsiveContainer width="100%" height="100%">
             <BarChart data={jetData} layout="vertical" margin={{ left: 8, right: 16 }}>
               <CartesianGrid stroke="#d5d0c2" strokeDasharray="3 3" />
-              <XAxis type="number" domain={['dataMin - 2', 'dataMax + 2']} tickFormatter={(v: number) => v.toFixed(0)} />
+              <XAxis
+                type="number"
+                domain={['dataMin - 2', 'dataMax + 2']}
+                tickFormatter={(v: number) => v.toFixed(0)}
+              />
               <YAxis type="category" dataKey="name" width={130} tick={{ fontSize: 12 }} />
               <Tooltip formatter={(v) => [`${v} ${speedUnit}`, 'Jet velocity']} />
               <Bar dataKey="vj" fill="#2a3a48" isAnimationActive={false}>

@@ -13,14 +13,30 @@ export function ParityReport({ inputs, results }: { inputs: ReportInputs; result
   return (
     <div className="space-y-6">
       <div className="flex flex-wrap gap-4" data-testid="unit-switch">
-        <label className="flex items-center gap-2 font-bold">Force
-          <select className="field-input w-auto" value={forceUnit} onChange={(e) => setForceUnit(e.target.value as ForceUnit)} aria-label="Force unit">
-            {FORCE_UNITS.map((u) => <option key={u}>{u}</option>)}
+        <label className="flex items-center gap-2 font-bold">
+          Force
+          <select
+            className="field-input w-auto"
+            value={forceUnit}
+            onChange={(e) => setForceUnit(e.target.value as ForceUnit)}
+            aria-label="Force unit"
+          >
+            {FORCE_UNITS.map((u) => (
+              <option key={u}>{u}</option>
+            ))}
           </select>
         </label>
-        <label className="flex items-center gap-2 font-bold">Speed
-          <select className="field-input w-auto" value={speedUnit} onChange={(e) => setSpeedUnit(e.target.value as SpeedUnit)} aria-label="Speed unit">
-            {SPEED_UNITS.map((u) => <option key={u}>{u}</option>)}
+        <label className="flex items-center gap-2 font-bold">
+          Speed
+          <select
+            className="field-input w-auto"
+            value={speedUnit}
+            onChange={(e) => setSpeedUnit(e.target.value as SpeedUnit)}
+            aria-label="Speed unit"
+          >
+            {SPEED_UNITS.map((u) => (
+              <option key={u}>{u}</option>
+            ))}
           </select>
         </label>
       </div>

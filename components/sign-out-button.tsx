@@ -13,7 +13,14 @@ async function clearOfflineCaches() {
 
 export function SignOutButton() {
   return (
-    <button type="button" onClick={async () => { await clearOfflineCaches().catch(() => undefined); await signOut({ callbackUrl: '/' }); }} className="btn min-h-touch border-2 border-white/60 bg-transparent px-3 text-white hover:bg-tide-700">
+    <button
+      type="button"
+      onClick={async () => {
+        await clearOfflineCaches().catch(() => undefined);
+        await signOut({ callbackUrl: '/' });
+      }}
+      className="btn min-h-touch border-2 border-white/60 bg-transparent px-3 text-white hover:bg-tide-700"
+    >
       Sign out
     </button>
   );

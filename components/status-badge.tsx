@@ -13,5 +13,9 @@ const INSPECTION: Record<string, { label: string; className: string }> = {
 
 export function StatusBadge({ status, inspection }: { status: string; inspection?: string | null }) {
   const s = status === 'entered' && inspection ? INSPECTION[inspection] : STATUS[status];
-  return <span className={`inline-block rounded-full px-3 py-1 text-sm font-bold ${s?.className ?? ''}`}>{s?.label ?? status}</span>;
+  return (
+    <span className={`inline-block rounded-full px-3 py-1 text-sm font-bold ${s?.className ?? ''}`}>
+      {s?.label ?? status}
+    </span>
+  );
 }

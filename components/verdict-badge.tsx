@@ -14,7 +14,12 @@ export function VerdictBadge({ verdict, large = false }: { verdict: string; larg
       data-verdict={verdict}
       className={`inline-flex items-center gap-2 whitespace-nowrap rounded-full border-2 font-bold ${large ? 'px-4 py-2 text-2xl' : 'px-3 py-1 text-lg'} ${s.className}`}
     >
-      <span aria-hidden="true" className="inline-flex h-[1.4em] w-[1.4em] items-center justify-center rounded-full bg-white/70">{s.icon}</span>
+      <span
+        aria-hidden="true"
+        className="inline-flex h-[1.4em] w-[1.4em] items-center justify-center rounded-full bg-white/70"
+      >
+        {s.icon}
+      </span>
       {s.words}
     </span>
   );

@@ -1,4 +1,11 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 
 // The tables next-auth's Sequelize adapter reads and writes (columns as the adapter defines them).
 export class Account extends Model<InferAttributes<Account>, InferCreationAttributes<Account>> {
@@ -23,7 +30,10 @@ export class Session extends Model<InferAttributes<Session>, InferCreationAttrib
   declare userId: string;
 }
 
-export class VerificationToken extends Model<InferAttributes<VerificationToken>, InferCreationAttributes<VerificationToken>> {
+export class VerificationToken extends Model<
+  InferAttributes<VerificationToken>,
+  InferCreationAttributes<VerificationToken>
+> {
   declare token: string;
   declare identifier: string;
   declare expires: Date;

@@ -1,4 +1,11 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 
 export type PowerEvidence = 'dyno_sheet' | 'maker_rating' | 'none';
 
@@ -76,7 +83,13 @@ export function initBoats(sequelize: Sequelize) {
       objectKey: { type: DataTypes.STRING, allowNull: false, unique: true },
       fileName: { type: DataTypes.STRING, allowNull: false },
       contentType: { type: DataTypes.STRING, allowNull: false },
-      sizeBytes: { type: DataTypes.BIGINT, allowNull: false, get() { return Number(this.getDataValue('sizeBytes')); } },
+      sizeBytes: {
+        type: DataTypes.BIGINT,
+        allowNull: false,
+        get() {
+          return Number(this.getDataValue('sizeBytes'));
+        },
+      },
       sha256: { type: DataTypes.STRING(64), allowNull: false },
       createdAt: DataTypes.DATE,
     },

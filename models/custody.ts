@@ -1,4 +1,11 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 
 // A part held by the officials (append-only), and its release (append-only, at most one per item).
 export class CustodyItem extends Model<InferAttributes<CustodyItem>, InferCreationAttributes<CustodyItem>> {

@@ -1,4 +1,11 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 
 export type EntryStatus = 'awaiting_payment' | 'entered' | 'withdrawn' | 'cancelled';
 export type InspectionResult = 'conforms' | 'does_not_conform' | 'inconclusive';

@@ -1,4 +1,11 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 
 import type { EventStatus, EventStaffRole } from './shapes/event';
 export type { EventStatus, EventStaffRole };
@@ -25,7 +32,6 @@ export class Event extends Model<InferAttributes<Event>, InferCreationAttributes
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
-
 
 // A person's staff role at one event (a scrutineer here may be an entrant elsewhere).
 export class EventStaff extends Model<InferAttributes<EventStaff>, InferCreationAttributes<EventStaff>> {

@@ -1,4 +1,11 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 import type { StoredMeasurements, StoredResults } from './shapes/inspection-record';
 
 export type InspectionVerdict = 'conforms' | 'does_not_conform' | 'inconclusive';
@@ -112,7 +119,13 @@ export function initInspections(sequelize: Sequelize) {
       inspectionId: { type: DataTypes.UUID, allowNull: false },
       objectKey: { type: DataTypes.STRING, allowNull: false, unique: true },
       contentType: { type: DataTypes.STRING, allowNull: false },
-      sizeBytes: { type: DataTypes.BIGINT, allowNull: false, get() { return Number(this.getDataValue('sizeBytes')); } },
+      sizeBytes: {
+        type: DataTypes.BIGINT,
+        allowNull: false,
+        get() {
+          return Number(this.getDataValue('sizeBytes'));
+        },
+      },
       sha256: { type: DataTypes.STRING(64), allowNull: false },
       createdAt: DataTypes.DATE,
     },

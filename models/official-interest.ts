@@ -1,9 +1,19 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 
 export type InterestSubjectKind = 'boat' | 'entrant' | 'team';
 
 // An official's declared interest at one meeting (append-only), and its withdrawal (append-only, at most one).
-export class OfficialInterest extends Model<InferAttributes<OfficialInterest>, InferCreationAttributes<OfficialInterest>> {
+export class OfficialInterest extends Model<
+  InferAttributes<OfficialInterest>,
+  InferCreationAttributes<OfficialInterest>
+> {
   declare id: CreationOptional<string>;
   declare eventId: string;
   declare officialId: string;
@@ -15,7 +25,10 @@ export class OfficialInterest extends Model<InferAttributes<OfficialInterest>, I
   declare declaredAt: CreationOptional<Date>;
 }
 
-export class OfficialInterestWithdrawal extends Model<InferAttributes<OfficialInterestWithdrawal>, InferCreationAttributes<OfficialInterestWithdrawal>> {
+export class OfficialInterestWithdrawal extends Model<
+  InferAttributes<OfficialInterestWithdrawal>,
+  InferCreationAttributes<OfficialInterestWithdrawal>
+> {
   declare id: CreationOptional<string>;
   declare interestId: string;
   declare withdrawnById: string;
@@ -46,6 +59,12 @@ export function initOfficialInterests(sequelize: Sequelize) {
       reason: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       withdrawnAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
     },
-    { sequelize, tableName: 'official_interest_withdrawals', modelName: 'officialInterestWithdrawal', underscored: true, timestamps: false },
+    {
+      sequelize,
+      tableName: 'official_interest_withdrawals',
+      modelName: 'officialInterestWithdrawal',
+      underscored: true,
+      timestamps: false,
+    },
   );
 }

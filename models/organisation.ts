@@ -1,4 +1,11 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 
 // A club or body that runs race meetings.
 export class Organisation extends Model<InferAttributes<Organisation>, InferCreationAttributes<Organisation>> {
@@ -12,7 +19,10 @@ export class Organisation extends Model<InferAttributes<Organisation>, InferCrea
 export type OrganisationRole = 'organiser' | 'member';
 
 // Membership of a person in a club; 'organiser' members may create the club's events.
-export class OrganisationMember extends Model<InferAttributes<OrganisationMember>, InferCreationAttributes<OrganisationMember>> {
+export class OrganisationMember extends Model<
+  InferAttributes<OrganisationMember>,
+  InferCreationAttributes<OrganisationMember>
+> {
   declare id: CreationOptional<string>;
   declare organisationId: string;
   declare userId: string;

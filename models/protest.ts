@@ -1,6 +1,14 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 
-export type ProtestStatus = 'awaiting_fee' | 'lodged' | 'accepted' | 'rejected' | 'hearing_scheduled' | 'upheld' | 'dismissed' | 'withdrawn';
+export type ProtestStatus =
+  'awaiting_fee' | 'lodged' | 'accepted' | 'rejected' | 'hearing_scheduled' | 'upheld' | 'dismissed' | 'withdrawn';
 export type RejectionCode = 'out_of_time' | 'no_fee' | 'wrong_form';
 export type EvidenceKind = 'file' | 'inspection_link' | 'note';
 
@@ -99,7 +107,13 @@ export function initProtests(sequelize: Sequelize) {
       objectKey: { type: DataTypes.STRING, unique: true },
       fileName: { type: DataTypes.STRING },
       contentType: { type: DataTypes.STRING },
-      sizeBytes: { type: DataTypes.BIGINT, get() { const v = this.getDataValue('sizeBytes'); return v === null || v === undefined ? null : Number(v); } },
+      sizeBytes: {
+        type: DataTypes.BIGINT,
+        get() {
+          const v = this.getDataValue('sizeBytes');
+          return v === null || v === undefined ? null : Number(v);
+        },
+      },
       sha256: { type: DataTypes.STRING(64) },
       inspectionId: { type: DataTypes.UUID },
       note: { type: DataTypes.TEXT },

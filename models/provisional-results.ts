@@ -1,9 +1,19 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 
 export type ResultRow = { position: number; raceNumber: number; entryId: string };
 
 // One published version of a class's provisional results. Append-only: a correction is a new version.
-export class ProvisionalResults extends Model<InferAttributes<ProvisionalResults>, InferCreationAttributes<ProvisionalResults>> {
+export class ProvisionalResults extends Model<
+  InferAttributes<ProvisionalResults>,
+  InferCreationAttributes<ProvisionalResults>
+> {
   declare id: CreationOptional<string>;
   declare eventId: string;
   declare classId: string;
@@ -30,6 +40,12 @@ export function initProvisionalResults(sequelize: Sequelize) {
       source: { type: DataTypes.STRING, allowNull: false },
       note: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
     },
-    { sequelize, tableName: 'provisional_results', modelName: 'provisionalResults', underscored: true, timestamps: false },
+    {
+      sequelize,
+      tableName: 'provisional_results',
+      modelName: 'provisionalResults',
+      underscored: true,
+      timestamps: false,
+    },
   );
 }

@@ -1,4 +1,11 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 import type { StoredClassRules } from './shapes/class-rules';
 
 // A class at one event. Its rules live in numbered versions (ClassRuleVersion).
@@ -14,7 +21,10 @@ export class RaceClass extends Model<InferAttributes<RaceClass>, InferCreationAt
 }
 
 // One version of a class's rules. A published version is frozen (a database trigger refuses changes).
-export class ClassRuleVersion extends Model<InferAttributes<ClassRuleVersion>, InferCreationAttributes<ClassRuleVersion>> {
+export class ClassRuleVersion extends Model<
+  InferAttributes<ClassRuleVersion>,
+  InferCreationAttributes<ClassRuleVersion>
+> {
   declare id: CreationOptional<string>;
   declare classId: string;
   declare version: number;

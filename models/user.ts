@@ -1,4 +1,11 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 
 // A person who can sign in. Staff roles are per event (see EventStaff); isAdmin is site-wide.
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {

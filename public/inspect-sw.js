@@ -17,7 +17,9 @@ self.addEventListener('activate', (event) => {
   event.waitUntil(
     (async () => {
       const keys = await caches.keys();
-      await Promise.all(keys.filter((k) => k.startsWith('boreline-inspect-') && k !== SHELL && k !== DATA).map((k) => caches.delete(k)));
+      await Promise.all(
+        keys.filter((k) => k.startsWith('boreline-inspect-') && k !== SHELL && k !== DATA).map((k) => caches.delete(k)),
+      );
       await self.clients.claim();
     })(),
   );
@@ -46,10 +48,13 @@ self.addEventListener('message', (event) => {
 });
 
 function offlineAnswer() {
-  return new Response(JSON.stringify({ error: { code: 'offline', message: 'No connection, and no copy of this on the phone yet.' } }), {
-    status: 503,
-    headers: { 'content-type': 'application/json', 'X-Served-From': 'service-worker' },
-  });
+  return new Response(
+    JSON.stringify({ error: { code: 'offline', message: 'No connection, and no copy of this on the phone yet.' } }),
+    {
+      status: 503,
+      headers: { 'content-type': 'application/json', 'X-Served-From': 'service-worker' },
+    },
+  );
 }
 
 async function cacheFirst(request) {
@@ -69,8 +74,16 @@ async function networkFirst(request, cacheName, isPage) {
     if (res.ok && res.type === 'basic' && !res.redirected) await cache.put(request.url, res.clone());
     return res;
   } catch {
-    const hit = (await cache.match(request.url, { ignoreVary: true })) ?? (isPage ? await cache.match(request.url, { ignoreVary: true, ignoreSearch: true }) : undefined);
-    if (!hit) return isPage ? new Response('<!doctype html><title>Offline</title><p style="font:20px sans-serif;padding:1rem">No connection, and this page was not saved on the phone yet. Open it once with a signal.</p>', { status: 503, headers: { 'content-type': 'text/html; charset=utf-8' } }) : offlineAnswer();
+    const hit =
+      (await cache.match(request.url, { ignoreVary: true })) ??
+      (isPage ? await cache.match(request.url, { ignoreVary: true, ignoreSearch: true }) : undefined);
+    if (!hit)
+      return isPage
+        ? new Response(
+            '<!doctype html><title>Offline</title><p style="font:20px sans-serif;padding:1rem">No connection, and this page was not saved on the phone yet. Open it once with a signal.</p>',
+            { status: 503, headers: { 'content-type': 'text/html; charset=utf-8' } },
+          )
+        : offlineAnswer();
     const headers = new Headers(hit.headers);
     headers.set('X-Served-From', 'cache');
     return new Response(await hit.blob(), { status: hit.status, statusText: hit.statusText, headers });

@@ -12,7 +12,13 @@ const BOATS = 10_000;
 const SPEEDS = 200;
 const POINTS = BOATS * SPEEDS;
 const RUNS = 7;
-const model = { densityKgM3: 999.1026, pumpEfficiency: 0.9, inletLossCoefficient: 0.2, nozzleLossCoefficient: 0.02, wakeFraction: 0.03 };
+const model = {
+  densityKgM3: 999.1026,
+  pumpEfficiency: 0.9,
+  inletLossCoefficient: 0.2,
+  nozzleLossCoefficient: 0.02,
+  wakeFraction: 0.03,
+};
 
 const setups: PreparedJetSetup[] = Array.from({ length: BOATS }, (_, i) =>
   prepareJetSetup({ ...model, powerKw: 150 + (i % 500), nozzleDiameterMm: 80 + ((i * 7) % 600) / 10 }),
@@ -58,15 +64,19 @@ function measure(name: string, fn: () => number): number {
   const median = ms[RUNS >> 1];
   console.log(
     `${name.padEnd(34)} median ${median.toFixed(1).padStart(7)} ms  best ${ms[0].toFixed(1).padStart(7)} ms  ` +
-      `${((POINTS / median) * 1e3 / 1e6).toFixed(1).padStart(6)} M points/s  (checksum ${samples[0].checksum.toExponential(6)})`,
+      `${(((POINTS / median) * 1e3) / 1e6).toFixed(1).padStart(6)} M points/s  (checksum ${samples[0].checksum.toExponential(6)})`,
   );
   return median;
 }
 
-console.log(`Boreline engine benchmark: ${BOATS} boats x ${SPEEDS} speeds = ${POINTS.toLocaleString('en')} points, node ${process.version}`);
+console.log(
+  `Boreline engine benchmark: ${BOATS} boats x ${SPEEDS} speeds = ${POINTS.toLocaleString('en')} points, node ${process.version}`,
+);
 const curveMs = measure('thrust curves (fillThrustCurve)', runCurves);
 const baselineMs = measure('baseline (closed-form static)', runBaseline);
-console.log(`ratio curve / baseline: ${(curveMs / baselineMs).toFixed(2)}x (target <= 4x); curve target >= 5 M points/s`);
+console.log(
+  `ratio curve / baseline: ${(curveMs / baselineMs).toFixed(2)}x (target <= 4x); curve target >= 5 M points/s`,
+);
 
 const fleet: ParityBoatInput[] = Array.from({ length: 1000 }, (_, i) => ({
   id: `boat-${i}`,

@@ -15,7 +15,6 @@ const CLIENTS = Number(process.env.BENCH_CLIENTS ?? 20);
 const REQUESTS = Number(process.env.BENCH_REQUESTS ?? 400);
 const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 3);
 
-
 // The scratch meeting comes from bench-support (records are append-only: the demo meeting is left alone).
 async function setUp() {
   const { eventId, entryIds } = await setUpScratchMeeting(CLIENTS);
@@ -32,15 +31,17 @@ async function run(name: string, send: (worker: number, i: number) => Promise<Re
   let next = 0;
   let errors = 0;
   const started = performance.now();
-  await Promise.all(Array.from({ length: CLIENTS }, async (_, worker) => {
-    for (let i = next++; i < REQUESTS; i = next++) {
-      const t = performance.now();
-      const res = await send(worker, i);
-      await res.arrayBuffer();
-      latenciesMs.push(performance.now() - t);
-      if (!res.ok) errors++;
-    }
-  }));
+  await Promise.all(
+    Array.from({ length: CLIENTS }, async (_, worker) => {
+      for (let i = next++; i < REQUESTS; i = next++) {
+        const t = performance.now();
+        const res = await send(worker, i);
+        await res.arrayBuffer();
+        latenciesMs.push(performance.now() - t);
+        if (!res.ok) errors++;
+      }
+    }),
+  );
   return { name, seconds: (performance.now() - started) / 1000, latenciesMs, errors };
 }
 
@@ -49,7 +50,8 @@ const pct = percentile;
 async function main() {
   const { eventId, entryIds, scrutineer } = await setUp();
   const url = `/api/events/${eventId}/inspections`;
-  const post = (b: unknown) => scrutineer.fetch(url, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(b) });
+  const post = (b: unknown) =>
+    scrutineer.fetch(url, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(b) });
   // Warm-up: compile paths, fill pools.
   // Both paths get JIT-compiled and their pools filled before anything is measured: in early runs the
   // baseline kept getting faster round after round.
@@ -63,26 +65,41 @@ async function main() {
   const rounds: { health: Result; record: Result }[] = [];
   for (let i = 0; i < ROUNDS; i++) {
     const health = await run('GET /api/health (baseline)', () => fetch(`${BASE}/api/health`));
-    const record = await run('POST inspections (new record)', (w) => { const key = randomUUID(); keys.push([entryIds[w], key]); return post(body(entryIds[w], key)); });
+    const record = await run('POST inspections (new record)', (w) => {
+      const key = randomUUID();
+      keys.push([entryIds[w], key]);
+      return post(body(entryIds[w], key));
+    });
     rounds.push({ health, record });
   }
-  const replay = await run('POST inspections (repeated key)', (_w, i) => post(body(keys[i % keys.length][0], keys[i % keys.length][1])));
+  const replay = await run('POST inspections (repeated key)', (_w, i) =>
+    post(body(keys[i % keys.length][0], keys[i % keys.length][1])),
+  );
 
   const rps = (r: Result) => r.latenciesMs.length / r.seconds;
   const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
-  console.log(`\nInspection benchmark at ${BASE}: ${CLIENTS} concurrent clients, ${REQUESTS} requests per run, ${ROUNDS} rounds (meeting ${eventId})\n`);
-  console.log('round  run                               req/s   p50 ms   p95 ms  errors   req/s vs baseline   p50 vs baseline');
+  console.log(
+    `\nInspection benchmark at ${BASE}: ${CLIENTS} concurrent clients, ${REQUESTS} requests per run, ${ROUNDS} rounds (meeting ${eventId})\n`,
+  );
+  console.log(
+    'round  run                               req/s   p50 ms   p95 ms  errors   req/s vs baseline   p50 vs baseline',
+  );
   const line = (label: string, r: Result, base: Result) =>
     console.log(
       `${label.padEnd(6)} ${r.name.padEnd(32)} ${rps(r).toFixed(0).padStart(6)} ${pct(r.latenciesMs, 50).toFixed(1).padStart(8)} ${pct(r.latenciesMs, 95).toFixed(1).padStart(8)} ${String(r.errors).padStart(7)}` +
         `   ${(rps(r) / rps(base)).toFixed(2).padStart(17)}   ${(pct(r.latenciesMs, 50) / pct(base.latenciesMs, 50)).toFixed(2).padStart(15)}`,
     );
-  rounds.forEach((r, i) => { line(String(i + 1), r.health, r.health); line(String(i + 1), r.record, r.health); });
+  rounds.forEach((r, i) => {
+    line(String(i + 1), r.health, r.health);
+    line(String(i + 1), r.record, r.health);
+  });
   line('last', replay, rounds[rounds.length - 1].health);
   const all = (k: 'health' | 'record') => rounds.flatMap((r) => r[k].latenciesMs);
-  console.log(`\nmedian over rounds: new records ${median(rounds.map((r) => rps(r.record))).toFixed(0)} req/s, ` +
-    `${median(rounds.map((r) => rps(r.record) / rps(r.health))).toFixed(2)}x the baseline's throughput (target at least 0.33x); ` +
-    `p95 ${pct(all('record'), 95).toFixed(1)} ms over all rounds (target under 100 ms), baseline p95 ${pct(all('health'), 95).toFixed(1)} ms`);
+  console.log(
+    `\nmedian over rounds: new records ${median(rounds.map((r) => rps(r.record))).toFixed(0)} req/s, ` +
+      `${median(rounds.map((r) => rps(r.record) / rps(r.health))).toFixed(2)}x the baseline's throughput (target at least 0.33x); ` +
+      `p95 ${pct(all('record'), 95).toFixed(1)} ms over all rounds (target under 100 ms), baseline p95 ${pct(all('health'), 95).toFixed(1)} ms`,
+  );
 }
 
 main().catch((err) => {

@@ -16,17 +16,28 @@ const FAULT_AFTER = Number(process.env.BENCH_FAULT_AFTER ?? Math.floor((CLIENTS 
 const DOWN_S = Number(process.env.BENCH_DOWN_S ?? 3);
 
 const pgCtl = (action: 'start' | 'stop') =>
-  execFileSync('bash', ['scripts/pg.sh', 'boreline_test'], { env: { ...process.env, PG_ACTION: action }, stdio: 'pipe' });
+  execFileSync('bash', ['scripts/pg.sh', 'boreline_test'], {
+    env: { ...process.env, PG_ACTION: action },
+    stdio: 'pipe',
+  });
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
-export async function runFaultLoad(opts: { clients: number; perClient: number; faultAfter: number; downS: number; log?: boolean }) {
+export async function runFaultLoad(opts: {
+  clients: number;
+  perClient: number;
+  faultAfter: number;
+  downS: number;
+  log?: boolean;
+}) {
   const { eventId, entryIds } = await setUpScratchMeeting(Math.min(opts.clients, 25));
   // Sign in a few at a time: a burst of simultaneous sign-ins for one address is exactly what the
   // sign-in throttle refuses, and the load is about recording inspections, not signing in.
   const clients: Client[] = [];
   for (let i = 0; i < opts.clients; i += 5) {
     const batch = Math.min(5, opts.clients - i);
-    clients.push(...(await Promise.all(Array.from({ length: batch }, () => new Client().signIn('scrutineer@tarnwater.example')))));
+    clients.push(
+      ...(await Promise.all(Array.from({ length: batch }, () => new Client().signIn('scrutineer@tarnwater.example')))),
+    );
   }
   if (opts.log) console.log(`  ${clients.length} clients signed in`);
   const acked = new Set<string>();
@@ -52,33 +63,39 @@ export async function runFaultLoad(opts: { clients: number; perClient: number; f
     if (opts.log) console.log(`  ${acked.size} acknowledged, ${stats.requests} requests, ${stats.s503} answered 503`);
   }, 5000);
   try {
-    await Promise.all(clients.map(async (c, w) => {
-      for (let i = 0; i < opts.perClient; i++) {
-        const key = randomUUID();
-        const body = JSON.stringify(inspectionBody(entryIds[(w + i) % entryIds.length], key));
-        for (let attempt = 0; attempt < 200; attempt++) {
-          const t = performance.now();
-          stats.requests++;
-          try {
-            const res = await c.fetch(`/api/events/${eventId}/inspections`, { method: 'POST', headers: { 'content-type': 'application/json' }, body });
-            await res.arrayBuffer();
-            latencies.push(performance.now() - t);
-            if (res.ok) {
-              acked.add(key);
-              if (dbBackAt && !firstAckAfterBack) firstAckAfterBack = Date.now();
-              break;
+    await Promise.all(
+      clients.map(async (c, w) => {
+        for (let i = 0; i < opts.perClient; i++) {
+          const key = randomUUID();
+          const body = JSON.stringify(inspectionBody(entryIds[(w + i) % entryIds.length], key));
+          for (let attempt = 0; attempt < 200; attempt++) {
+            const t = performance.now();
+            stats.requests++;
+            try {
+              const res = await c.fetch(`/api/events/${eventId}/inspections`, {
+                method: 'POST',
+                headers: { 'content-type': 'application/json' },
+                body,
+              });
+              await res.arrayBuffer();
+              latencies.push(performance.now() - t);
+              if (res.ok) {
+                acked.add(key);
+                if (dbBackAt && !firstAckAfterBack) firstAckAfterBack = Date.now();
+                break;
+              }
+              if (res.status === 503) stats.s503++;
+              else if (res.status >= 500) stats.s5xx++;
+              else throw new Error(`refused ${res.status}: ${await res.text()}`);
+            } catch (err) {
+              if (String(err).startsWith('Error: refused')) throw err;
+              stats.networkErrors++;
             }
-            if (res.status === 503) stats.s503++;
-            else if (res.status >= 500) stats.s5xx++;
-            else throw new Error(`refused ${res.status}: ${await res.text()}`);
-          } catch (err) {
-            if (String(err).startsWith('Error: refused')) throw err;
-            stats.networkErrors++;
+            await sleep(Math.min(2000, 50 * 2 ** Math.min(attempt, 5)));
           }
-          await sleep(Math.min(2000, 50 * 2 ** Math.min(attempt, 5)));
         }
-      }
-    }));
+      }),
+    );
     await fault;
   } finally {
     clearInterval(progress);
@@ -86,25 +103,45 @@ export async function runFaultLoad(opts: { clients: number; perClient: number; f
 
   const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
   await db.connect();
-  const rows = (await db.query('select idempotency_key, count(*)::int as n from inspections where event_id = $1 group by 1', [eventId])).rows as { idempotency_key: string; n: number }[];
+  const rows = (
+    await db.query('select idempotency_key, count(*)::int as n from inspections where event_id = $1 group by 1', [
+      eventId,
+    ])
+  ).rows as { idempotency_key: string; n: number }[];
   await db.end();
   const stored = new Map(rows.map((r) => [r.idempotency_key, r.n]));
   const lost = [...acked].filter((k) => !stored.has(k)).length;
   const duplicated = rows.filter((r) => r.n > 1).length;
   return {
-    ...stats, acknowledged: acked.size, expected: opts.clients * opts.perClient, lost, duplicated, storedRows: rows.length,
-    p50Ms: percentile(latencies, 50), p95Ms: percentile(latencies, 95),
+    ...stats,
+    acknowledged: acked.size,
+    expected: opts.clients * opts.perClient,
+    lost,
+    duplicated,
+    storedRows: rows.length,
+    p50Ms: percentile(latencies, 50),
+    p95Ms: percentile(latencies, 95),
     secondsToRecover: firstAckAfterBack && dbBackAt ? (firstAckAfterBack - dbBackAt) / 1000 : null,
     secondsDown: dbBackAt && faultStarted ? (dbBackAt - faultStarted) / 1000 : null,
   };
 }
 
 async function main() {
-  console.log(`reliability: ${CLIENTS} clients x ${PER_CLIENT} inspections, PostgreSQL down ${DOWN_S} s after ${FAULT_AFTER} acknowledged`);
+  console.log(
+    `reliability: ${CLIENTS} clients x ${PER_CLIENT} inspections, PostgreSQL down ${DOWN_S} s after ${FAULT_AFTER} acknowledged`,
+  );
   const started = Date.now();
-  const r = await runFaultLoad({ clients: CLIENTS, perClient: PER_CLIENT, faultAfter: FAULT_AFTER, downS: DOWN_S, log: true });
+  const r = await runFaultLoad({
+    clients: CLIENTS,
+    perClient: PER_CLIENT,
+    faultAfter: FAULT_AFTER,
+    downS: DOWN_S,
+    log: true,
+  });
   const seconds = (Date.now() - started) / 1000;
-  console.log(`requests sent            ${r.requests} (${(r.requests / seconds).toFixed(0)}/s over ${seconds.toFixed(1)} s)`);
+  console.log(
+    `requests sent            ${r.requests} (${(r.requests / seconds).toFixed(0)}/s over ${seconds.toFixed(1)} s)`,
+  );
   console.log(`records acknowledged     ${r.acknowledged} of ${r.expected}`);
   console.log(`records lost             ${r.lost}`);
   console.log(`records duplicated       ${r.duplicated}`);
@@ -113,7 +150,13 @@ async function main() {
   console.log(`other 5xx answers        ${r.s5xx}`);
   console.log(`network errors           ${r.networkErrors}`);
   console.log(`latency p50 / p95        ${r.p50Ms.toFixed(1)} / ${r.p95Ms.toFixed(1)} ms`);
-  console.log(`database down            ${r.secondsDown?.toFixed(1)} s; first record accepted ${r.secondsToRecover?.toFixed(2)} s after it returned`);
+  console.log(
+    `database down            ${r.secondsDown?.toFixed(1)} s; first record accepted ${r.secondsToRecover?.toFixed(2)} s after it returned`,
+  );
 }
 
-if (process.argv[1]?.endsWith('bench-reliability.ts')) main().catch((e) => { console.error(e); process.exit(1); });
+if (process.argv[1]?.endsWith('bench-reliability.ts'))
+  main().catch((e) => {
+    console.error(e);
+    process.exit(1);
+  });

@@ -11,7 +11,12 @@ export class Client {
   async fetch(path: string, init: RequestInit = {}) {
     const headers = new Headers(init.headers);
     if (this.cookies.size) headers.set('cookie', [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; '));
-    const res = await fetch(`${BASE}${path}`, { ...init, headers, redirect: 'manual', signal: init.signal ?? AbortSignal.timeout(15_000) });
+    const res = await fetch(`${BASE}${path}`, {
+      ...init,
+      headers,
+      redirect: 'manual',
+      signal: init.signal ?? AbortSignal.timeout(15_000),
+    });
     for (const line of res.headers.getSetCookie()) {
       const [pair] = line.split(';');
       const eq = pair.indexOf('=');
@@ -20,7 +25,11 @@ export class Client {
     return res;
   }
   async json(path: string, body: unknown, method = 'POST') {
-    const res = await this.fetch(path, { method, headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) });
+    const res = await this.fetch(path, {
+      method,
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify(body),
+    });
     const json = await res.json().catch(() => null);
     if (!res.ok) throw new Error(`${method} ${path}: ${res.status} ${JSON.stringify(json)}`);
     return json.data;
@@ -42,26 +51,59 @@ export class Client {
 export async function setUpScratchMeeting(boats: number) {
   const organiser = await new Client().signIn('organiser@tarnwater.example');
   const event = await organiser.json('/api/events', {
-    organisationId: '0b0e0000-0000-4000-8000-000000000001', name: `Load meeting ${new Date().toISOString()}`, venue: 'Load Reach',
-    startsOn: '2027-06-01', endsOn: '2027-06-02', timeZone: 'Pacific/Auckland', status: 'entries_open', waterKind: 'fresh', waterTemperatureC: 15,
-    waterDensityKgM3: null, protestWindowMinutes: 30, currency: 'NZD', entryFeeMinor: 10000, protestFeeMinor: 3000,
+    organisationId: '0b0e0000-0000-4000-8000-000000000001',
+    name: `Load meeting ${new Date().toISOString()}`,
+    venue: 'Load Reach',
+    startsOn: '2027-06-01',
+    endsOn: '2027-06-02',
+    timeZone: 'Pacific/Auckland',
+    status: 'entries_open',
+    waterKind: 'fresh',
+    waterTemperatureC: 15,
+    waterDensityKgM3: null,
+    protestWindowMinutes: 30,
+    currency: 'NZD',
+    entryFeeMinor: 10000,
+    protestFeeMinor: 3000,
   });
   await organiser.json(`/api/events/${event.id}/staff`, { email: 'scrutineer@tarnwater.example', role: 'scrutineer' });
   const cls = await organiser.json(`/api/events/${event.id}/classes`, { name: 'Load Class', code: 'LOAD' });
-  await organiser.json(`/api/events/${event.id}/classes/${cls.id}/rules`, {
-    powerUnit: 'kW',
-    rules: {
-      nozzle: { maxMm: 102, minMm: null, minReadings: 3, defaultUncertaintyMm: 0.05 }, power: { minKw: 180, maxKw: 260, defaultUncertaintyKw: 5 },
-      weight: { minKg: 650, includesDriver: true, defaultUncertaintyKg: 1 }, decisionRule: 'iso14253', safetyItems: ['kill_switch', 'helmet'],
-      parity: { pumpEfficiency: 0.9, nozzleLossCoefficient: 0.02, inletLossCoefficient: 0.2, wakeFraction: 0, referenceSpeedsMs: [10] },
+  await organiser.json(
+    `/api/events/${event.id}/classes/${cls.id}/rules`,
+    {
+      powerUnit: 'kW',
+      rules: {
+        nozzle: { maxMm: 102, minMm: null, minReadings: 3, defaultUncertaintyMm: 0.05 },
+        power: { minKw: 180, maxKw: 260, defaultUncertaintyKw: 5 },
+        weight: { minKg: 650, includesDriver: true, defaultUncertaintyKg: 1 },
+        decisionRule: 'iso14253',
+        safetyItems: ['kill_switch', 'helmet'],
+        parity: {
+          pumpEfficiency: 0.9,
+          nozzleLossCoefficient: 0.02,
+          inletLossCoefficient: 0.2,
+          wakeFraction: 0,
+          referenceSpeedsMs: [10],
+        },
+      },
     },
-  }, 'PUT');
-  await organiser.json(`/api/events/${event.id}/classes/${cls.id}/rules/publish`, { changeNote: 'load', effectiveFrom: new Date(Date.now() - 3600_000).toISOString() });
+    'PUT',
+  );
+  await organiser.json(`/api/events/${event.id}/classes/${cls.id}/rules/publish`, {
+    changeNote: 'load',
+    effectiveFrom: new Date(Date.now() - 3600_000).toISOString(),
+  });
   const entrant = await new Client().signIn('entrant@tarnwater.example');
   const entryIds: string[] = [];
   for (let i = 0; i < boats; i++) {
     const boat = await entrant.json('/api/boats', {
-      name: `Load boat ${i + 1}`, nozzleDiameter: 101.5, nozzleUnit: 'mm', nozzleToleranceMm: 0.1, power: 220, powerUnit: 'kW', powerEvidence: 'dyno_sheet',
+      name: `Load boat ${i + 1}`,
+      nozzleDiameter: 101.5,
+      nozzleUnit: 'mm',
+      nozzleToleranceMm: 0.1,
+      power: 220,
+      powerUnit: 'kW',
+      powerEvidence: 'dyno_sheet',
     });
     const entered = await entrant.json('/api/entries', { eventId: event.id, classId: cls.id, boatId: boat.id });
     entryIds.push(entered.entry.id);
@@ -70,9 +112,23 @@ export async function setUpScratchMeeting(boats: number) {
 }
 
 export const inspectionBody = (entryId: string, key: string = randomUUID()) => ({
-  idempotencyKey: key, entryId, kind: 'pre_race', capturedAt: new Date().toISOString(), device: 'load',
-  nozzle: { readings: [{ diameterMm: 101.5, angleDeg: 0 }, { diameterMm: 101.93, angleDeg: 60 }, { diameterMm: 101.7, angleDeg: 120 }], expandedUncertaintyMm: 0.05 },
-  weight: { readingsKg: [690, 691] }, power: { declaredKw: 220, evidenceSeen: true }, seals: [], safety: { kill_switch: true, helmet: true },
+  idempotencyKey: key,
+  entryId,
+  kind: 'pre_race',
+  capturedAt: new Date().toISOString(),
+  device: 'load',
+  nozzle: {
+    readings: [
+      { diameterMm: 101.5, angleDeg: 0 },
+      { diameterMm: 101.93, angleDeg: 60 },
+      { diameterMm: 101.7, angleDeg: 120 },
+    ],
+    expandedUncertaintyMm: 0.05,
+  },
+  weight: { readingsKg: [690, 691] },
+  power: { declaredKw: 220, evidenceSeen: true },
+  seals: [],
+  safety: { kill_switch: true, helmet: true },
 });
 
 export const percentile = (xs: number[], p: number) => {

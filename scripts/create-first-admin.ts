@@ -16,7 +16,9 @@ async function main() {
   try {
     const demo = await client.query(`select count(*)::int as n from users where ${DEMO_ACCOUNTS}`);
     if (demo.rows[0].n > 0) {
-      console.error('[boreline] this database holds the demo accounts, whose password is public: a real install needs its own database (npm run serve makes one in .data/pg-serve).');
+      console.error(
+        '[boreline] this database holds the demo accounts, whose password is public: a real install needs its own database (npm run serve makes one in .data/pg-serve).',
+      );
       process.exit(1);
     }
     if ((await client.query('select 1 from users where is_admin limit 1')).rowCount) return;
@@ -25,7 +27,9 @@ async function main() {
     console.log('\n[boreline] No site administrator yet. Create the first one here (only this console can).');
     const input = await prompt(['Name: ', 'E-mail: ', 'Password (at least 10 characters, not shown): '], interactive);
     if (!input) {
-      console.error('[boreline] no administrator was created (no answers on the console): run npm run serve in a terminal once.');
+      console.error(
+        '[boreline] no administrator was created (no answers on the console): run npm run serve in a terminal once.',
+      );
       process.exit(1);
     }
     const parsed = SignUpInput.safeParse({ name: input[0], email: input[1], password: input[2] });
@@ -47,7 +51,9 @@ async function main() {
     const taken = await client.query('select 1 from users where email = $1', [email]);
     if (taken.rowCount) {
       await client.query('rollback');
-      console.error(`[boreline] ${email} already has an account; no administrator was created. Choose another address.`);
+      console.error(
+        `[boreline] ${email} already has an account; no administrator was created. Choose another address.`,
+      );
       process.exit(1);
     }
     await client.query(
@@ -68,14 +74,19 @@ async function prompt(questions: string[], interactive: boolean): Promise<string
   let muted = false;
   if (interactive) {
     const out = rl as unknown as { _writeToOutput: (s: string) => void; output: NodeJS.WriteStream };
-    out._writeToOutput = (s: string) => { if (!muted || s.includes('\n')) out.output.write(muted ? '\n' : s); };
+    out._writeToOutput = (s: string) => {
+      if (!muted || s.includes('\n')) out.output.write(muted ? '\n' : s);
+    };
   }
   const lines = rl[Symbol.asyncIterator]();
   for (const [i, q] of questions.entries()) {
     process.stdout.write(q);
     muted = interactive && i === questions.length - 1;
     const next = await lines.next();
-    if (next.done) { rl.close(); return null; }
+    if (next.done) {
+      rl.close();
+      return null;
+    }
     answers.push(String(next.value));
   }
   rl.close();

@@ -5,7 +5,13 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { randomBytes } from 'node:crypto';
-import { LOCAL_FAKE_MARK, SECRET_NAMES, isPublishedSecret, parseDotenv, type SecretName } from '../lib/server/config/published-values';
+import {
+  LOCAL_FAKE_MARK,
+  SECRET_NAMES,
+  isPublishedSecret,
+  parseDotenv,
+  type SecretName,
+} from '../lib/server/config/published-values';
 
 const random = (bytes: number) => randomBytes(bytes).toString('base64url');
 const hex = (bytes: number) => randomBytes(bytes).toString('hex');
@@ -13,11 +19,16 @@ const hex = (bytes: number) => randomBytes(bytes).toString('hex');
 /** A fresh value per secret; the keys shared with the local fakes are marked as theirs. */
 export function generateSecret(name: SecretName): string {
   switch (name) {
-    case 'NEXTAUTH_SECRET': return random(32);
-    case 'STRIPE_SECRET_KEY': return `sk_test_${LOCAL_FAKE_MARK}_${hex(24)}`;
-    case 'STRIPE_WEBHOOK_SECRET': return `whsec_${LOCAL_FAKE_MARK}_${random(32)}`;
-    case 'S3_ACCESS_KEY_ID': return `${LOCAL_FAKE_MARK}${hex(8)}`;
-    case 'S3_SECRET_ACCESS_KEY': return random(30);
+    case 'NEXTAUTH_SECRET':
+      return random(32);
+    case 'STRIPE_SECRET_KEY':
+      return `sk_test_${LOCAL_FAKE_MARK}_${hex(24)}`;
+    case 'STRIPE_WEBHOOK_SECRET':
+      return `whsec_${LOCAL_FAKE_MARK}_${random(32)}`;
+    case 'S3_ACCESS_KEY_ID':
+      return `${LOCAL_FAKE_MARK}${hex(8)}`;
+    case 'S3_SECRET_ACCESS_KEY':
+      return random(30);
   }
 }
 
@@ -59,8 +70,12 @@ function main() {
     fs.renameSync(`${envFile}.tmp`, envFile);
   }
   fs.chmodSync(envFile, 0o600);
-  if (created) console.log(`[boreline] created ${path.basename(envFile)} from .env.example with fresh ${filled.join(', ')}`);
-  else if (filled.length) console.log(`[boreline] ${path.basename(envFile)}: replaced ${filled.join(', ')} (empty or a value published in the repository) with fresh values`);
+  if (created)
+    console.log(`[boreline] created ${path.basename(envFile)} from .env.example with fresh ${filled.join(', ')}`);
+  else if (filled.length)
+    console.log(
+      `[boreline] ${path.basename(envFile)}: replaced ${filled.join(', ')} (empty or a value published in the repository) with fresh values`,
+    );
 }
 
 if (process.argv[1] && path.resolve(process.argv[1]) === path.resolve(new URL(import.meta.url).pathname)) main();

@@ -5,7 +5,9 @@
 
 /** The socket's address as an address, not an IPv4-mapped IPv6 form ("::ffff:127.0.0.1"). */
 export function socketAddress(remoteAddress) {
-  const a = String(remoteAddress ?? '').trim().toLowerCase();
+  const a = String(remoteAddress ?? '')
+    .trim()
+    .toLowerCase();
   return a.startsWith('::ffff:') && a.includes('.') ? a.slice(7) : a || 'unknown';
 }
 
@@ -19,7 +21,8 @@ export function socketAddress(remoteAddress) {
  */
 export function forwardHeaders(headers, remoteAddress, hops) {
   if (hops === 0) {
-    for (const name of ['x-forwarded-host', 'x-forwarded-proto', 'x-forwarded-port', 'forwarded', 'x-real-ip']) delete headers[name];
+    for (const name of ['x-forwarded-host', 'x-forwarded-proto', 'x-forwarded-port', 'forwarded', 'x-real-ip'])
+      delete headers[name];
   }
   delete headers['x-real-ip'];
   const received = [headers['x-forwarded-for']].flat().filter(Boolean).join(', ');
@@ -31,7 +34,8 @@ export function forwardHeaders(headers, remoteAddress, hops) {
 export function parseProxyHops(raw) {
   const text = String(raw ?? '').trim();
   if (text === '') return 0;
-  if (!/^\d+$/.test(text) || Number(text) > 10) throw new Error(`TRUSTED_PROXY_HOPS=${text} is not a whole number from 0 to 10`);
+  if (!/^\d+$/.test(text) || Number(text) > 10)
+    throw new Error(`TRUSTED_PROXY_HOPS=${text} is not a whole number from 0 to 10`);
   return Number(text);
 }
 

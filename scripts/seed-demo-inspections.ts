@@ -24,20 +24,24 @@ async function main() {
   const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
   await db.connect();
   const [scrutineer] = (await db.query(`select id from users where email = 'scrutineer@tarnwater.example'`)).rows;
-  const instruments = (await db.query(
-    `select id, name, quantity, error_limit as "errorLimit", resolution, expanded_uncertainty as "expandedUncertainty" from instruments where id = any($1)`,
-    [[CALIPER, SCALE]],
-  )).rows;
+  const instruments = (
+    await db.query(
+      `select id, name, quantity, error_limit as "errorLimit", resolution, expanded_uncertainty as "expandedUncertainty" from instruments where id = any($1)`,
+      [[CALIPER, SCALE]],
+    )
+  ).rows;
   const figures = (id: string) => toInstrumentFigures(instruments.find((x) => x.id === id)!);
-  const entries = (await db.query(
-    `select e.id, e.boat_id, e.class_id, b.declared_nozzle_mm, b.declared_power_kw, b.declared_weight_kg, b.power_evidence,
+  const entries = (
+    await db.query(
+      `select e.id, e.boat_id, e.class_id, b.declared_nozzle_mm, b.declared_power_kw, b.declared_weight_kg, b.power_evidence,
             v.id as rule_version_id, v.version as rule_version, v.rules
        from entries e join boats b on b.id = e.boat_id join race_classes c on c.id = e.class_id
        join lateral (select * from class_rule_versions v where v.class_id = c.id and v.status = 'published' and v.effective_from <= now()
                      order by v.effective_from desc limit 1) v on true
       where e.event_id = $1 and e.status = 'entered' and c.code in ('SS', 'GP') order by e.race_number`,
-    [MEETING],
-  )).rows;
+      [MEETING],
+    )
+  ).rows;
   let added = 0;
   for (const [n, e] of entries.entries()) {
     const rules = e.rules as ClassRules;
@@ -45,8 +49,17 @@ async function main() {
     const offsets = [-0.03, 0.02, 0.01, -0.01].slice(0, Math.max(3, rules.nozzle.minReadings));
     // The same input the dock form sends, parsed by the same schema, so the seed records what recording would.
     const input = RecordInspectionInput.parse({
-      idempotencyKey: keyFor(e.id), entryId: e.id, capturedAt: new Date().toISOString(), device: 'demo seed',
-      nozzle: { readings: offsets.map((o, i) => ({ diameterMm: +(d + o).toFixed(2), angleDeg: i * 60 })), instrumentId: CALIPER, expandedUncertaintyMm: null, temperatureC: null, material: null },
+      idempotencyKey: keyFor(e.id),
+      entryId: e.id,
+      capturedAt: new Date().toISOString(),
+      device: 'demo seed',
+      nozzle: {
+        readings: offsets.map((o, i) => ({ diameterMm: +(d + o).toFixed(2), angleDeg: i * 60 })),
+        instrumentId: CALIPER,
+        expandedUncertaintyMm: null,
+        temperatureC: null,
+        material: null,
+      },
       weight: { readingsKg: [Number(e.declared_weight_kg), Number(e.declared_weight_kg) + 1], instrumentId: SCALE },
       power: { declaredKw: Number(e.declared_power_kw), evidenceSeen: n % 3 !== 0, note: '' },
       seals: [{ number: `KR-${1000 + n}`, location: 'pump to transom' }],
@@ -56,13 +69,29 @@ async function main() {
     const weightInstrument = figures(SCALE);
     const decision = decideInspection({ input, rules, nozzleInstrument, weightInstrument });
     const { measurements, results } = buildInspectionRecord({
-      input, decision, rules, ruleVersion: e.rule_version, nozzleInstrument, weightInstrument,
+      input,
+      decision,
+      rules,
+      ruleVersion: e.rule_version,
+      nozzleInstrument,
+      weightInstrument,
       boat: { declaredKw: Number(e.declared_power_kw), powerEvidence: e.power_evidence },
     });
     const res = await db.query(
       `insert into inspections (event_id, entry_id, boat_id, class_id, rule_version_id, kind, recorded_by_id, device, idempotency_key, captured_at, measurements, results, overall_result, notes)
        values ($1, $2, $3, $4, $5, 'pre_race', $6, 'demo seed', $7, now() - interval '1 hour', $8, $9, $10, 'Demo record') on conflict (idempotency_key) do nothing`,
-      [MEETING, e.id, e.boat_id, e.class_id, e.rule_version_id, scrutineer.id, keyFor(e.id), JSON.stringify(measurements), JSON.stringify(results), decision.overall],
+      [
+        MEETING,
+        e.id,
+        e.boat_id,
+        e.class_id,
+        e.rule_version_id,
+        scrutineer.id,
+        keyFor(e.id),
+        JSON.stringify(measurements),
+        JSON.stringify(results),
+        decision.overall,
+      ],
     );
     if (res.rowCount) {
       added++;
@@ -83,4 +112,7 @@ async function main() {
   await db.end();
 }
 
-main().catch((e) => { console.error(e); process.exit(1); });
+main().catch((e) => {
+  console.error(e);
+  process.exit(1);
+});

@@ -34,7 +34,9 @@ if (mode === 'demo' && !isLoopbackHost(host)) {
 `);
 }
 if (hops > 0 && !isLoopbackHost(host)) {
-  console.warn(`[boreline] TRUSTED_PROXY_HOPS=${hops} but listening on ${host}: clients that reach the app directly can forge their address. Listen on 127.0.0.1 behind the proxy.`);
+  console.warn(
+    `[boreline] TRUSTED_PROXY_HOPS=${hops} but listening on ${host}: clients that reach the app directly can forge their address. Listen on 127.0.0.1 behind the proxy.`,
+  );
 }
 
 const app = next({ dev: false, hostname: host, port });
@@ -53,6 +55,10 @@ server.on('error', (err) => {
   console.error(`[boreline] could not listen on ${host}:${port}: ${err.message}`);
   process.exit(1);
 });
-server.listen(port, host, () => say(`listening on http://${host.includes(':') ? `[${host}]` : host}:${port} (${mode}; ${hops ? `${hops} trusted proxy hop(s), compression left to the proxy` : 'no proxy declared: client address from the socket, compression on'})`));
+server.listen(port, host, () =>
+  say(
+    `listening on http://${host.includes(':') ? `[${host}]` : host}:${port} (${mode}; ${hops ? `${hops} trusted proxy hop(s), compression left to the proxy` : 'no proxy declared: client address from the socket, compression on'})`,
+  ),
+);
 
 for (const sig of ['SIGTERM', 'SIGINT']) process.on(sig, () => process.exit(0));

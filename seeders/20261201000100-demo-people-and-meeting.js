@@ -39,21 +39,50 @@ module.exports = {
   insertIgnore,
   async up(queryInterface) {
     const hash = bcrypt.hashSync(DEMO_PASSWORD, 10);
-    await insertIgnore(queryInterface, 'users', people.map((p) => ({ ...p, password_hash: hash, email_verified: new Date() })));
-    await insertIgnore(queryInterface, 'organisations', [{ id: ids.club, name: 'Tarnwater Jet Sprint Club', slug: 'tarnwater-jsc' }]);
-    await insertIgnore(queryInterface, 'organisation_members', [
-      { id: '0b0e0000-0000-4000-8000-000000002001', organisation_id: ids.club, user_id: ids.organiser, role: 'organiser' },
+    await insertIgnore(
+      queryInterface,
+      'users',
+      people.map((p) => ({ ...p, password_hash: hash, email_verified: new Date() })),
+    );
+    await insertIgnore(queryInterface, 'organisations', [
+      { id: ids.club, name: 'Tarnwater Jet Sprint Club', slug: 'tarnwater-jsc' },
     ]);
-    await insertIgnore(queryInterface, 'events', [{
-      id: ids.meeting, organisation_id: ids.club, name: 'Kelda Reach Spring Sprint', slug: 'kelda-reach-spring-sprint',
-      venue: 'Kelda Reach, Harrowdale', starts_on: '2027-03-13', ends_on: '2027-03-14',
-      time_zone: 'Pacific/Auckland', status: 'entries_open',
-    }]);
+    await insertIgnore(queryInterface, 'organisation_members', [
+      {
+        id: '0b0e0000-0000-4000-8000-000000002001',
+        organisation_id: ids.club,
+        user_id: ids.organiser,
+        role: 'organiser',
+      },
+    ]);
+    await insertIgnore(queryInterface, 'events', [
+      {
+        id: ids.meeting,
+        organisation_id: ids.club,
+        name: 'Kelda Reach Spring Sprint',
+        slug: 'kelda-reach-spring-sprint',
+        venue: 'Kelda Reach, Harrowdale',
+        starts_on: '2027-03-13',
+        ends_on: '2027-03-14',
+        time_zone: 'Pacific/Auckland',
+        status: 'entries_open',
+      },
+    ]);
     await insertIgnore(queryInterface, 'event_staff', [
       { id: '0b0e0000-0000-4000-8000-000000003001', event_id: ids.meeting, user_id: ids.organiser, role: 'organiser' },
-      { id: '0b0e0000-0000-4000-8000-000000003002', event_id: ids.meeting, user_id: ids.chief, role: 'chief_scrutineer' },
+      {
+        id: '0b0e0000-0000-4000-8000-000000003002',
+        event_id: ids.meeting,
+        user_id: ids.chief,
+        role: 'chief_scrutineer',
+      },
       { id: '0b0e0000-0000-4000-8000-000000003003', event_id: ids.meeting, user_id: ids.chief, role: 'scrutineer' },
-      { id: '0b0e0000-0000-4000-8000-000000003004', event_id: ids.meeting, user_id: ids.scrutineer, role: 'scrutineer' },
+      {
+        id: '0b0e0000-0000-4000-8000-000000003004',
+        event_id: ids.meeting,
+        user_id: ids.scrutineer,
+        role: 'scrutineer',
+      },
       { id: '0b0e0000-0000-4000-8000-000000003005', event_id: ids.meeting, user_id: ids.steward, role: 'steward' },
     ]);
   },

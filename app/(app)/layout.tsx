@@ -2,7 +2,7 @@ import Link from 'next/link';
 import { redirect } from 'next/navigation';
 import { getActor, allRolesOf } from '@/lib/server/auth/actor';
 import { navFor } from '@/lib/core/navigation';
-import { BrandMark } from "@/components/brand-mark";
+import { BrandMark } from '@/components/brand-mark';
 import { SignOutButton } from '@/components/sign-out-button';
 import { MainNav } from '@/components/main-nav';
 
@@ -22,7 +22,9 @@ export default async function AppLayout({ children }: { children: React.ReactNod
             <span className="text-xl font-bold text-white">Boreline</span>
           </Link>
           <div className="flex items-center gap-3 text-sm">
-            <span className="hidden sm:inline" data-testid="signed-in-as">{actor.name ?? actor.email}</span>
+            <span className="hidden sm:inline" data-testid="signed-in-as">
+              {actor.name ?? actor.email}
+            </span>
             <SignOutButton />
           </div>
         </div>

@@ -11,9 +11,15 @@ export default function PublicLayout({ children }: { children: React.ReactNode }
             <BrandName />
           </Link>
           <nav className="flex items-center gap-2" aria-label="Site">
-            <Link href="/calculator" className="hidden font-bold sm:inline">Jet calculator</Link>
-            <Link href="/sign-in" className="btn-secondary">Sign in</Link>
-            <Link href="/sign-up" className="btn-primary">Sign up</Link>
+            <Link href="/calculator" className="hidden font-bold sm:inline">
+              Jet calculator
+            </Link>
+            <Link href="/sign-in" className="btn-secondary">
+              Sign in
+            </Link>
+            <Link href="/sign-up" className="btn-primary">
+              Sign up
+            </Link>
           </nav>
         </div>
       </header>

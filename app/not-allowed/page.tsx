@@ -10,12 +10,16 @@ export default function NotAllowedPage() {
       <BrandMark className="h-12 w-12" />
       <h1 data-testid="not-allowed">Not allowed</h1>
       <p className="text-lg">
-        Your account does not have the role this page needs. Staff roles are given per meeting by its organiser; if
-        you should have access, ask them to invite you.
+        Your account does not have the role this page needs. Staff roles are given per meeting by its organiser; if you
+        should have access, ask them to invite you.
       </p>
       <div className="flex gap-3">
-        <Link href="/home" className="btn-primary">Go to your home page</Link>
-        <Link href="/sign-in" className="btn-secondary">Sign in as someone else</Link>
+        <Link href="/home" className="btn-primary">
+          Go to your home page
+        </Link>
+        <Link href="/sign-in" className="btn-secondary">
+          Sign in as someone else
+        </Link>
       </div>
     </main>
   );

@@ -11,7 +11,9 @@ export function PayButton({ checkoutUrl, label }: { checkoutUrl: string; label: 
   return (
     <form {...form} className="space-y-1">
       <FormMessage state={state} testId="pay-message" />
-      <button type="submit" className="btn-primary" disabled={isLeaving}>{isLeaving ? 'Opening the payment page…' : label}</button>
+      <button type="submit" className="btn-primary" disabled={isLeaving}>
+        {isLeaving ? 'Opening the payment page…' : label}
+      </button>
     </form>
   );
 }

@@ -41,12 +41,17 @@ type Options = {
  * Sends one request and reads the JSON answer. Never throws for a refusal or a lost connection
  * (status 0); an abort asked for by the caller is thrown as fetch throws it.
  */
-export async function requestJson<T = unknown>(url: string, { method = 'POST', body, signal, cache, fallbackMessage }: Options = {}): Promise<JsonAnswer<T>> {
+export async function requestJson<T = unknown>(
+  url: string,
+  { method = 'POST', body, signal, cache, fallbackMessage }: Options = {},
+): Promise<JsonAnswer<T>> {
   const fallback = (status: number) =>
     typeof fallbackMessage === 'function'
       ? fallbackMessage(status)
       : status === 0
-        ? method === 'GET' ? NO_CONNECTION_READING : NO_CONNECTION_MESSAGE
+        ? method === 'GET'
+          ? NO_CONNECTION_READING
+          : NO_CONNECTION_MESSAGE
         : (fallbackMessage ?? `The request failed (${status}).`);
   const init: RequestInit = { method, signal, ...(cache && { cache }) };
   if (body instanceof FormData) init.body = body;
@@ -82,8 +87,15 @@ export const CHECK_FIELDS_MESSAGE = 'Check the fields marked above: nothing was 
  * pointer to them (the fields' own messages read better than the server's summary of them); a
  * refusal that names no field (or only the body as a whole, "(body)") shows its message there.
  */
-export function refusalState(answer: { message: string; fieldErrors: FieldErrors }, checkFieldsMessage = CHECK_FIELDS_MESSAGE): FormState {
+export function refusalState(
+  answer: { message: string; fieldErrors: FieldErrors },
+  checkFieldsMessage = CHECK_FIELDS_MESSAGE,
+): FormState {
   const { '(body)': aboutBody, ...perField } = answer.fieldErrors;
   const hasFieldErrors = Object.keys(perField).length > 0;
-  return { ok: false, message: hasFieldErrors ? checkFieldsMessage : (aboutBody ?? answer.message), fieldErrors: answer.fieldErrors };
+  return {
+    ok: false,
+    message: hasFieldErrors ? checkFieldsMessage : (aboutBody ?? answer.message),
+    fieldErrors: answer.fieldErrors,
+  };
 }

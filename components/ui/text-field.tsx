@@ -18,9 +18,24 @@ export function TextField({ name, label, hint, error, unit, id, className = '', 
         {label}
         {unit && <span className="ml-1 font-normal text-ink-mute">({unit})</span>}
       </label>
-      <input id={inputId} name={name} aria-invalid={error ? true : undefined} aria-describedby={describedBy} className="field-input" {...rest} />
-      {hint && <p id={`${inputId}-hint`} className="field-hint">{hint}</p>}
-      {error && <p id={`${inputId}-error`} className="field-error" data-field-error={name}>{error}</p>}
+      <input
+        id={inputId}
+        name={name}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy}
+        className="field-input"
+        {...rest}
+      />
+      {hint && (
+        <p id={`${inputId}-hint`} className="field-hint">
+          {hint}
+        </p>
+      )}
+      {error && (
+        <p id={`${inputId}-error`} className="field-error" data-field-error={name}>
+          {error}
+        </p>
+      )}
     </div>
   );
 }

@@ -19,7 +19,8 @@ export type ErrorBody = { error: { code: string; message: string; details?: unkn
 export type FieldIssue = { field: string; message: string };
 
 /** A refusal about one field of the input, shown beside that field (400 unless said otherwise). */
-export const fieldError = (field: string, message: string, status = 400) => new AppError('invalid_input', status, `${field}: ${message}`, [{ field, message }]);
+export const fieldError = (field: string, message: string, status = 400) =>
+  new AppError('invalid_input', status, `${field}: ${message}`, [{ field, message }]);
 
 /** Zod issues as { field, message } with dotted paths ("water.temperatureC", "readingsMm.2"). */
 export function fieldIssues(err: ZodError): FieldIssue[] {
@@ -39,9 +40,13 @@ function isDatabaseDown(err: unknown): boolean {
   const message = String((err as { message?: string })?.message ?? '');
   return (
     /^Sequelize(Connection\w*Error|HostNotReachableError|ConnectionAcquireTimeoutError)$/.test(name) ||
-    ['ECONNREFUSED', 'ECONNRESET', '57P01', '57P02', '57P03', '08000', '08003', '08006', '08001'].includes(code ?? '') ||
+    ['ECONNREFUSED', 'ECONNRESET', '57P01', '57P02', '57P03', '08000', '08003', '08006', '08001'].includes(
+      code ?? '',
+    ) ||
     // A pooled connection that died with the server surfaces as a plain error with one of these texts.
-    /Connection terminated|connection is closed|Client has encountered a connection error|the database system is (starting up|shutting down)/i.test(message)
+    /Connection terminated|connection is closed|Client has encountered a connection error|the database system is (starting up|shutting down)/i.test(
+      message,
+    )
   );
 }
 
@@ -52,7 +57,9 @@ export function toErrorResponse(err: unknown): Response {
   const headers: Record<string, string> = {};
   if (err instanceof AppError) {
     status = err.status;
-    body = { error: { code: err.code, message: err.message, ...(err.details !== undefined && { details: err.details }) } };
+    body = {
+      error: { code: err.code, message: err.message, ...(err.details !== undefined && { details: err.details }) },
+    };
     // Node closes a connection at once when it answers before the request body has arrived, and a
     // client still sending then gets a reset that can destroy this 413 before it reads it. Keeping
     // the connection open lets the body reader close it after a short linger instead
@@ -64,10 +71,22 @@ export function toErrorResponse(err: unknown): Response {
   } else if (err instanceof ZodError) {
     status = 400;
     const issues = fieldIssues(err);
-    body = { error: { code: 'invalid_input', message: issues.map((i) => `${i.field}: ${i.message}`).join('; '), details: issues } };
+    body = {
+      error: {
+        code: 'invalid_input',
+        message: issues.map((i) => `${i.field}: ${i.message}`).join('; '),
+        details: issues,
+      },
+    };
   } else if (err instanceof EngineInputError) {
     status = 400;
-    body = { error: { code: 'invalid_input', message: `${err.field}: ${err.message}`, details: [{ field: err.field, message: err.message }] } };
+    body = {
+      error: {
+        code: 'invalid_input',
+        message: `${err.field}: ${err.message}`,
+        details: [{ field: err.field, message: err.message }],
+      },
+    };
   } else if (err instanceof SyntaxError) {
     status = 400;
     body = { error: { code: 'invalid_json', message: 'The request body is not valid JSON.' } };

@@ -3,7 +3,13 @@
 // when either side changes without the other. Type-only: nothing here runs.
 import type { StoredClassRules } from '../../models/shapes/class-rules';
 import type { StoredParity, StoredReportInputs, StoredReportResults } from '../../models/shapes/parity-report';
-import type { StoredRuleResult, STORED_CHECK_AREAS, STORED_DECISION_RULES, STORED_MATERIALS, STORED_VERDICTS } from '../../models/shapes/inspection-record';
+import type {
+  StoredRuleResult,
+  STORED_CHECK_AREAS,
+  STORED_DECISION_RULES,
+  STORED_MATERIALS,
+  STORED_VERDICTS,
+} from '../../models/shapes/inspection-record';
 import type { ClassRules } from './inputs/class-rules';
 import type { DecisionRule, Verdict } from './engine/conformity';
 import type { Material } from './engine/measurement';

@@ -11,5 +11,11 @@ export type StoredClassRules = {
   decisionRule: (typeof STORED_RULE_DECISION_RULES)[number];
   /** Safety item keys the class requires (lib/core/constants.ts SAFETY_ITEMS). */
   safetyItems: string[];
-  parity: { pumpEfficiency: number; nozzleLossCoefficient: number; inletLossCoefficient: number; wakeFraction: number; referenceSpeedsMs: number[] };
+  parity: {
+    pumpEfficiency: number;
+    nozzleLossCoefficient: number;
+    inletLossCoefficient: number;
+    wakeFraction: number;
+    referenceSpeedsMs: number[];
+  };
 };

@@ -21,7 +21,13 @@ export type StoredReportInputs = {
   classCode: string;
   className: string;
   ruleVersion: { id: string; version: number };
-  assumptions: { pumpEfficiency: number; nozzleLossCoefficient: number; inletLossCoefficient: number; wakeFraction: number; referenceSpeedsMs: number[] };
+  assumptions: {
+    pumpEfficiency: number;
+    nozzleLossCoefficient: number;
+    inletLossCoefficient: number;
+    wakeFraction: number;
+    referenceSpeedsMs: number[];
+  };
   density: { densityKgM3: number; description: string };
   boats: StoredReportBoatInput[];
   excluded: { entryId: string; raceNumber: number; boatName: string; reason: string }[];
@@ -61,7 +67,13 @@ export type StoredParity = {
     spreadPercent: number;
     coefficientOfVariationPercent: number | null;
   };
-  referenceSetup: { kind: 'boat' | 'synthetic'; boatId: string | null; powerKw: number; nozzleDiameterMm: number; staticThrustN: number };
+  referenceSetup: {
+    kind: 'boat' | 'synthetic';
+    boatId: string | null;
+    powerKw: number;
+    nozzleDiameterMm: number;
+    staticThrustN: number;
+  };
   boats: StoredParityBoatResult[];
 };
 

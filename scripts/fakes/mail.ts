@@ -76,7 +76,10 @@ export function startMailFake(opts: { smtpPort: number; httpPort: number; storeF
     res.setHeader('content-type', 'application/json');
     if (url.pathname === '/messages' && req.method === 'GET') {
       const to = url.searchParams.get('to')?.toLowerCase();
-      const list = messages.filter((m) => !to || m.to.includes(to)).slice().reverse();
+      const list = messages
+        .filter((m) => !to || m.to.includes(to))
+        .slice()
+        .reverse();
       res.end(JSON.stringify({ data: list }));
     } else if (url.pathname === '/messages' && req.method === 'DELETE') {
       messages.length = 0;
@@ -91,6 +94,11 @@ export function startMailFake(opts: { smtpPort: number; httpPort: number; storeF
   });
   inbox.listen(opts.httpPort, '127.0.0.1');
   return {
-    close: () => Promise.all([flush(),new Promise((r) => smtp.close(() => r(null))), new Promise((r) => inbox.close(() => r(null)))]),
+    close: () =>
+      Promise.all([
+        flush(),
+        new Promise((r) => smtp.close(() => r(null))),
+        new Promise((r) => inbox.close(() => r(null))),
+      ]),
   };
 }

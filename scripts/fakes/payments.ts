@@ -8,18 +8,58 @@ import { createHash, randomBytes } from 'node:crypto';
 import Stripe from 'stripe';
 
 type Obj = Record<string, unknown>;
-type Session = Obj & { id: string; amount_total: number; currency: string; status: string; payment_status: string; metadata: Obj; success_url: string; cancel_url: string | null; payment_intent: string | null };
-type Intent = { id: string; chargeId: string; sessionId: string; amount: number; amountRefunded: number; currency: string; metadata: Obj; created: number };
+type Session = Obj & {
+  id: string;
+  amount_total: number;
+  currency: string;
+  status: string;
+  payment_status: string;
+  metadata: Obj;
+  success_url: string;
+  cancel_url: string | null;
+  payment_intent: string | null;
+};
+type Intent = {
+  id: string;
+  chargeId: string;
+  sessionId: string;
+  amount: number;
+  amountRefunded: number;
+  currency: string;
+  metadata: Obj;
+  created: number;
+};
 type Attempt = { at: string; status: number | null; error?: string };
-type EventRecord = { id: string; type: string; created: number; payload: string; signatureHeader: string; webhookUrl: string; delivered: boolean; attempts: Attempt[] };
-type State = { sessions: Record<string, Session>; descriptions: Record<string, string>; intents: Record<string, Intent>; refunds: Record<string, Obj>; events: EventRecord[]; idempotency: Record<string, { fingerprint: string; status: number; body: string }> };
+type EventRecord = {
+  id: string;
+  type: string;
+  created: number;
+  payload: string;
+  signatureHeader: string;
+  webhookUrl: string;
+  delivered: boolean;
+  attempts: Attempt[];
+};
+type State = {
+  sessions: Record<string, Session>;
+  descriptions: Record<string, string>;
+  intents: Record<string, Intent>;
+  refunds: Record<string, Obj>;
+  events: EventRecord[];
+  idempotency: Record<string, { fingerprint: string; status: number; body: string }>;
+};
 
 class ApiFailure extends Error {
-  constructor(public status: number, public body: Obj, public saveIdempotent = false) {
+  constructor(
+    public status: number,
+    public body: Obj,
+    public saveIdempotent = false,
+  ) {
     super(String(body.message));
   }
 }
-const invalid = (message: string, extra: Obj = {}, status = 400) => new ApiFailure(status, { type: 'invalid_request_error', message, ...extra });
+const invalid = (message: string, extra: Obj = {}, status = 400) =>
+  new ApiFailure(status, { type: 'invalid_request_error', message, ...extra });
 
 const newId = (prefix: string) => `${prefix}_${randomBytes(12).toString('base64url').replace(/[-_]/g, 'x')}`;
 const now = () => Math.floor(Date.now() / 1000);
@@ -27,7 +67,9 @@ const escapeHtml = (t: string) => t.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt
 // Currencies whose amounts have no minor unit (Stripe's published list of zero-decimal currencies).
 const ZERO_DECIMAL = new Set('bif clp djf gnf jpy kmf krw mga pyg rwf ugx vnd vuv xaf xof xpf'.split(' '));
 const formatAmount = (minor: number, currency: string) =>
-  new Intl.NumberFormat('en-GB', { style: 'currency', currency: currency.toUpperCase() }).format(ZERO_DECIMAL.has(currency) ? minor : minor / 100);
+  new Intl.NumberFormat('en-GB', { style: 'currency', currency: currency.toUpperCase() }).format(
+    ZERO_DECIMAL.has(currency) ? minor : minor / 100,
+  );
 
 /** Form-encoded keys as the SDK writes them (`a[b][0][c]=v`) into nested objects and arrays. */
 export function parseForm(body: string): Obj {
@@ -43,26 +85,46 @@ export function parseForm(body: string): Obj {
   const arrayify = (v: unknown): unknown => {
     if (!v || typeof v !== 'object') return v;
     const entries = Object.entries(v as Obj).map(([k, x]) => [k, arrayify(x)] as const);
-    return entries.length && entries.every(([k]) => /^\d+$/.test(k)) ? entries.sort((a, b) => +a[0] - +b[0]).map(([, x]) => x) : Object.fromEntries(entries);
+    return entries.length && entries.every(([k]) => /^\d+$/.test(k))
+      ? entries.sort((a, b) => +a[0] - +b[0]).map(([, x]) => x)
+      : Object.fromEntries(entries);
   };
   return arrayify(root) as Obj;
 }
 
 const int = (v: unknown, param: string, min: number) => {
   const n = Number(v);
-  if (v === undefined || v === '' || !Number.isInteger(n) || n < min) throw invalid(`Invalid integer: ${String(v)}`, { param, code: 'parameter_invalid_integer' });
+  if (v === undefined || v === '' || !Number.isInteger(n) || n < min)
+    throw invalid(`Invalid integer: ${String(v)}`, { param, code: 'parameter_invalid_integer' });
   return n;
 };
 const required = (v: unknown, param: string) => {
-  if (v === undefined || v === '') throw invalid(`Missing required param: ${param}.`, { param, code: 'parameter_missing' });
+  if (v === undefined || v === '')
+    throw invalid(`Missing required param: ${param}.`, { param, code: 'parameter_missing' });
   return String(v);
 };
 
-export function startPaymentsFake(opts: { port: number; secretKey: string; webhookSecret: string; webhookUrl: string; storeFile: string; publicUrl?: string }) {
+export function startPaymentsFake(opts: {
+  port: number;
+  secretKey: string;
+  webhookSecret: string;
+  webhookUrl: string;
+  storeFile: string;
+  publicUrl?: string;
+}) {
   // Port 0 (tests) means "any free port": the page address is known only once listening.
   const publicUrl = () => opts.publicUrl ?? `http://127.0.0.1:${(server.address() as { port: number }).port}`;
-  const empty = (): State => ({ sessions: {}, descriptions: {}, intents: {}, refunds: {}, events: [], idempotency: {} });
-  const state: State = fs.existsSync(opts.storeFile) ? { ...empty(), ...JSON.parse(fs.readFileSync(opts.storeFile, 'utf8')) } : empty();
+  const empty = (): State => ({
+    sessions: {},
+    descriptions: {},
+    intents: {},
+    refunds: {},
+    events: [],
+    idempotency: {},
+  });
+  const state: State = fs.existsSync(opts.storeFile)
+    ? { ...empty(), ...JSON.parse(fs.readFileSync(opts.storeFile, 'utf8')) }
+    : empty();
   const persist = () => {
     state.events = state.events.slice(-500);
     const keys = Object.keys(state.idempotency);
@@ -80,7 +142,11 @@ export function startPaymentsFake(opts: { port: number; secretKey: string; webho
     try {
       const res = await fetch(ev.webhookUrl, {
         method: 'POST',
-        headers: { 'content-type': 'application/json; charset=utf-8', 'stripe-signature': ev.signatureHeader, 'user-agent': 'boreline-payments-fake' },
+        headers: {
+          'content-type': 'application/json; charset=utf-8',
+          'stripe-signature': ev.signatureHeader,
+          'user-agent': 'boreline-payments-fake',
+        },
         body: ev.payload,
         signal: AbortSignal.timeout(5000),
       });
@@ -103,15 +169,40 @@ export function startPaymentsFake(opts: { port: number; secretKey: string; webho
         await new Promise((r) => setTimeout(r, delayMs));
         if (await deliver(ev)) return;
       }
-      console.log(`[fakes] payments: ${ev.type} ${ev.id} not accepted by ${ev.webhookUrl} after ${ev.attempts.length} attempts`);
+      console.log(
+        `[fakes] payments: ${ev.type} ${ev.id} not accepted by ${ev.webhookUrl} after ${ev.attempts.length} attempts`,
+      );
     })();
   }
 
   function emit(type: string, object: Obj, webhookUrl = opts.webhookUrl) {
     const id = newId('evt');
     const created = now();
-    const payload = JSON.stringify({ id, object: 'event', api_version: Stripe.API_VERSION, created, data: { object }, livemode: false, pending_webhooks: 1, request: { id: null, idempotency_key: null }, type }, null, 2);
-    const ev: EventRecord = { id, type, created, payload, signatureHeader: '', webhookUrl, delivered: false, attempts: [] };
+    const payload = JSON.stringify(
+      {
+        id,
+        object: 'event',
+        api_version: Stripe.API_VERSION,
+        created,
+        data: { object },
+        livemode: false,
+        pending_webhooks: 1,
+        request: { id: null, idempotency_key: null },
+        type,
+      },
+      null,
+      2,
+    );
+    const ev: EventRecord = {
+      id,
+      type,
+      created,
+      payload,
+      signatureHeader: '',
+      webhookUrl,
+      delivered: false,
+      attempts: [],
+    };
     state.events.push(ev);
     persist();
     return ev;
@@ -120,26 +211,45 @@ export function startPaymentsFake(opts: { port: number; secretKey: string; webho
   function createSession(p: Obj): Session {
     if (p.mode !== 'payment') throw invalid('This fake supports mode=payment only.', { param: 'mode' });
     const items = p.line_items as Obj[] | undefined;
-    if (!Array.isArray(items) || items.length === 0) throw invalid('Missing required param: line_items.', { param: 'line_items', code: 'parameter_missing' });
+    if (!Array.isArray(items) || items.length === 0)
+      throw invalid('Missing required param: line_items.', { param: 'line_items', code: 'parameter_missing' });
     let total = 0;
     let currency = '';
     items.forEach((item, i) => {
       const pd = (item.price_data ?? {}) as Obj;
       const cur = required(pd.currency, `line_items[${i}][price_data][currency]`).toLowerCase();
-      if (!/^[a-z]{3}$/.test(cur) || (currency && cur !== currency)) throw invalid('Invalid currency.', { param: `line_items[${i}][price_data][currency]` });
+      if (!/^[a-z]{3}$/.test(cur) || (currency && cur !== currency))
+        throw invalid('Invalid currency.', { param: `line_items[${i}][price_data][currency]` });
       currency = cur;
       required((pd.product_data as Obj | undefined)?.name, `line_items[${i}][price_data][product_data][name]`);
-      total += int(pd.unit_amount, `line_items[${i}][price_data][unit_amount]`, 0) * int(item.quantity, `line_items[${i}][quantity]`, 1);
+      total +=
+        int(pd.unit_amount, `line_items[${i}][price_data][unit_amount]`, 0) *
+        int(item.quantity, `line_items[${i}][quantity]`, 1);
     });
     if (total < 1) throw invalid('The Checkout Session total must be at least 1 minor unit.', { param: 'line_items' });
     const id = newId('cs_test');
     const created = now();
     const session: Session = {
-      id, object: 'checkout.session', amount_subtotal: total, amount_total: total, cancel_url: (p.cancel_url as string) ?? null,
-      client_reference_id: (p.client_reference_id as string) ?? null, created, currency, customer: null,
-      customer_details: p.customer_email ? { email: p.customer_email } : null, customer_email: (p.customer_email as string) ?? null,
-      expires_at: created + 24 * 3600, livemode: false, metadata: (p.metadata as Obj) ?? {}, mode: 'payment', payment_intent: null,
-      payment_status: 'unpaid', status: 'open', success_url: required(p.success_url, 'success_url'), url: `${publicUrl()}/pay/${id}`,
+      id,
+      object: 'checkout.session',
+      amount_subtotal: total,
+      amount_total: total,
+      cancel_url: (p.cancel_url as string) ?? null,
+      client_reference_id: (p.client_reference_id as string) ?? null,
+      created,
+      currency,
+      customer: null,
+      customer_details: p.customer_email ? { email: p.customer_email } : null,
+      customer_email: (p.customer_email as string) ?? null,
+      expires_at: created + 24 * 3600,
+      livemode: false,
+      metadata: (p.metadata as Obj) ?? {},
+      mode: 'payment',
+      payment_intent: null,
+      payment_status: 'unpaid',
+      status: 'open',
+      success_url: required(p.success_url, 'success_url'),
+      url: `${publicUrl()}/pay/${id}`,
     };
     state.sessions[id] = session;
     // Kept for the payment page only: Stripe lists line items through a separate call.
@@ -158,8 +268,18 @@ export function startPaymentsFake(opts: { port: number; secretKey: string; webho
   async function paySession(id: string, webhookUrl?: string) {
     const s = findSession(id);
     if (s.status === 'complete') return { session: s, event: null };
-    if (s.status !== 'open') throw invalid('This Checkout Session is no longer open.', { code: 'checkout_session_expired' });
-    const pi: Intent = { id: newId('pi'), chargeId: newId('ch'), sessionId: id, amount: s.amount_total, amountRefunded: 0, currency: s.currency, metadata: s.metadata, created: now() };
+    if (s.status !== 'open')
+      throw invalid('This Checkout Session is no longer open.', { code: 'checkout_session_expired' });
+    const pi: Intent = {
+      id: newId('pi'),
+      chargeId: newId('ch'),
+      sessionId: id,
+      amount: s.amount_total,
+      amountRefunded: 0,
+      currency: s.currency,
+      metadata: s.metadata,
+      created: now(),
+    };
     state.intents[pi.id] = pi;
     Object.assign(s, { status: 'complete', payment_status: 'paid', payment_intent: pi.id, url: null });
     const event = emit('checkout.session.completed', s, webhookUrl);
@@ -168,23 +288,67 @@ export function startPaymentsFake(opts: { port: number; secretKey: string; webho
   }
 
   function refund(p: Obj) {
-    const piId = p.payment_intent ? String(p.payment_intent) : Object.values(state.intents).find((i) => i.chargeId === p.charge)?.id;
-    if (!piId) throw invalid('Missing required param: payment_intent.', { param: 'payment_intent', code: 'parameter_missing' });
+    const piId = p.payment_intent
+      ? String(p.payment_intent)
+      : Object.values(state.intents).find((i) => i.chargeId === p.charge)?.id;
+    if (!piId)
+      throw invalid('Missing required param: payment_intent.', { param: 'payment_intent', code: 'parameter_missing' });
     const pi = state.intents[piId];
     if (!pi) throw invalid(`No such payment_intent: '${piId}'`, { code: 'resource_missing', param: 'payment_intent' });
     const remaining = pi.amount - pi.amountRefunded;
-    if (remaining === 0) throw new ApiFailure(400, { type: 'invalid_request_error', code: 'charge_already_refunded', message: `Charge ${pi.chargeId} has already been refunded.` }, true);
+    if (remaining === 0)
+      throw new ApiFailure(
+        400,
+        {
+          type: 'invalid_request_error',
+          code: 'charge_already_refunded',
+          message: `Charge ${pi.chargeId} has already been refunded.`,
+        },
+        true,
+      );
     const amount = p.amount === undefined ? remaining : int(p.amount, 'amount', 1);
     if (amount > remaining) {
       const fmt = (n: number) => formatAmount(n, pi.currency);
-      throw new ApiFailure(400, { type: 'invalid_request_error', code: 'amount_too_large', param: 'amount', message: `Refund amount (${fmt(amount)}) is greater than unrefunded amount on charge (${fmt(remaining)})` }, true);
+      throw new ApiFailure(
+        400,
+        {
+          type: 'invalid_request_error',
+          code: 'amount_too_large',
+          param: 'amount',
+          message: `Refund amount (${fmt(amount)}) is greater than unrefunded amount on charge (${fmt(remaining)})`,
+        },
+        true,
+      );
     }
     pi.amountRefunded += amount;
-    const re = { id: newId('re'), object: 'refund', amount, charge: pi.chargeId, created: now(), currency: pi.currency, metadata: (p.metadata as Obj) ?? {}, payment_intent: pi.id, reason: p.reason ?? null, status: 'succeeded' };
+    const re = {
+      id: newId('re'),
+      object: 'refund',
+      amount,
+      charge: pi.chargeId,
+      created: now(),
+      currency: pi.currency,
+      metadata: (p.metadata as Obj) ?? {},
+      payment_intent: pi.id,
+      reason: p.reason ?? null,
+      status: 'succeeded',
+    };
     state.refunds[re.id] = re;
     const charge = {
-      id: pi.chargeId, object: 'charge', amount: pi.amount, amount_captured: pi.amount, amount_refunded: pi.amountRefunded, captured: true, created: pi.created,
-      currency: pi.currency, livemode: false, metadata: pi.metadata, paid: true, payment_intent: pi.id, refunded: pi.amountRefunded === pi.amount, status: 'succeeded',
+      id: pi.chargeId,
+      object: 'charge',
+      amount: pi.amount,
+      amount_captured: pi.amount,
+      amount_refunded: pi.amountRefunded,
+      captured: true,
+      created: pi.created,
+      currency: pi.currency,
+      livemode: false,
+      metadata: pi.metadata,
+      paid: true,
+      payment_intent: pi.id,
+      refunded: pi.amountRefunded === pi.amount,
+      status: 'succeeded',
     };
     void deliverWithRetries(emit('charge.refunded', charge));
     return re;
@@ -225,14 +389,17 @@ button{font:inherit;padding:.6rem 1.2rem;margin:.5rem .5rem 0 0;border:2px solid
     const body = JSON.parse(raw) as { webhookUrl?: string };
     if (!body.webhookUrl) return undefined;
     const host = URL.canParse(body.webhookUrl) ? new URL(body.webhookUrl).hostname : '';
-    if (!['127.0.0.1', 'localhost', '[::1]'].includes(host)) throw invalid('webhookUrl must be a loopback http address.');
+    if (!['127.0.0.1', 'localhost', '[::1]'].includes(host))
+      throw invalid('webhookUrl must be a loopback http address.');
     return body.webhookUrl;
   };
 
   async function apiRoute(req: http.IncomingMessage, url: URL, raw: string): Promise<[number, unknown]> {
     const auth = req.headers.authorization ?? '';
-    if (!auth) throw invalid('You did not provide an API key. Provide it in the Authorization header as Bearer <key>.', {}, 401);
-    if (auth !== `Bearer ${opts.secretKey}`) throw invalid(`Invalid API Key provided: ${auth.replace(/^Bearer /, '').slice(0, 8)}****`, {}, 401);
+    if (!auth)
+      throw invalid('You did not provide an API key. Provide it in the Authorization header as Bearer <key>.', {}, 401);
+    if (auth !== `Bearer ${opts.secretKey}`)
+      throw invalid(`Invalid API Key provided: ${auth.replace(/^Bearer /, '').slice(0, 8)}****`, {}, 401);
     const p = parseForm(req.method === 'GET' ? url.search.slice(1) : raw);
     const one = /^\/v1\/checkout\/sessions\/([\w-]+)$/.exec(url.pathname);
     if (req.method === 'POST' && url.pathname === '/v1/checkout/sessions') return [200, createSession(p)];
@@ -248,9 +415,16 @@ button{font:inherit;padding:.6rem 1.2rem;margin:.5rem .5rem 0 0;border:2px solid
     const saved = key ? state.idempotency[key] : undefined;
     if (saved) {
       if (saved.fingerprint !== fingerprint) {
-        throw new ApiFailure(400, { type: 'idempotency_error', message: `Keys for idempotent requests can only be used with the same parameters they were first used with. Try using a key other than '${key}' if you meant to execute a different request.` });
+        throw new ApiFailure(400, {
+          type: 'idempotency_error',
+          message: `Keys for idempotent requests can only be used with the same parameters they were first used with. Try using a key other than '${key}' if you meant to execute a different request.`,
+        });
       }
-      res.writeHead(saved.status, { 'content-type': 'application/json', 'idempotent-replayed': 'true', 'idempotency-key': key });
+      res.writeHead(saved.status, {
+        'content-type': 'application/json',
+        'idempotent-replayed': 'true',
+        'idempotency-key': key,
+      });
       return res.end(saved.body);
     }
     let status: number;
@@ -287,19 +461,29 @@ button{font:inherit;padding:.6rem 1.2rem;margin:.5rem .5rem 0 0;border:2px solid
       res.writeHead(200, { 'content-type': 'text/html; charset=utf-8' });
       return res.end(paymentPage(findSession(m[1])));
     }
-    if (req.method === 'POST' && (m = /^\/pay\/([\w-]+)\/pay$/.exec(url.pathname))) return redirect(successUrl((await paySession(m[1])).session));
+    if (req.method === 'POST' && (m = /^\/pay\/([\w-]+)\/pay$/.exec(url.pathname)))
+      return redirect(successUrl((await paySession(m[1])).session));
     if (req.method === 'POST' && (m = /^\/pay\/([\w-]+)\/cancel$/.exec(url.pathname))) {
       const s = findSession(m[1]);
       if (s.cancel_url) return redirect(s.cancel_url);
       res.writeHead(200, { 'content-type': 'text/html; charset=utf-8' });
-      return res.end('<!doctype html><html lang="en"><title>Cancelled</title><p>Payment cancelled. You can close this page.</p></html>');
+      return res.end(
+        '<!doctype html><html lang="en"><title>Cancelled</title><p>Payment cancelled. You can close this page.</p></html>',
+      );
     }
     if (req.method === 'GET' && url.pathname === '/_fake/health') return json(200, { ok: true });
     if (req.method === 'GET' && url.pathname === '/_fake/events') {
       const type = url.searchParams.get('type');
-      return json(200, state.events.filter((e) => !type || e.type === type).slice().reverse());
+      return json(
+        200,
+        state.events
+          .filter((e) => !type || e.type === type)
+          .slice()
+          .reverse(),
+      );
     }
-    if (req.method === 'POST' && (m = /^\/_fake\/sessions\/([\w-]+)\/pay$/.exec(url.pathname))) return json(200, await paySession(m[1], overrideUrl(raw)));
+    if (req.method === 'POST' && (m = /^\/_fake\/sessions\/([\w-]+)\/pay$/.exec(url.pathname)))
+      return json(200, await paySession(m[1], overrideUrl(raw)));
     if (req.method === 'POST' && (m = /^\/_fake\/events\/([\w-]+)\/resend$/.exec(url.pathname))) {
       const ev = state.events.find((e) => e.id === m![1]);
       if (!ev) throw invalid(`No such event: '${m[1]}'`, { code: 'resource_missing' }, 404);
@@ -313,7 +497,12 @@ button{font:inherit;padding:.6rem 1.2rem;margin:.5rem .5rem 0 0;border:2px solid
   const server = http.createServer((req, res) => {
     res.setHeader('request-id', newId('req'));
     route(req, res).catch((err: unknown) => {
-      const f = err instanceof ApiFailure ? err : err instanceof SyntaxError ? invalid('Invalid JSON body.') : new ApiFailure(500, { type: 'api_error', message: 'The payments fake failed.' });
+      const f =
+        err instanceof ApiFailure
+          ? err
+          : err instanceof SyntaxError
+            ? invalid('Invalid JSON body.')
+            : new ApiFailure(500, { type: 'api_error', message: 'The payments fake failed.' });
       if (!(err instanceof ApiFailure || err instanceof SyntaxError)) console.error('[fakes] payments error', err);
       if (res.headersSent) return res.destroy();
       res.writeHead(f.status, { 'content-type': 'application/json' });

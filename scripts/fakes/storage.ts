@@ -20,7 +20,12 @@ type ObjectMeta = {
 };
 
 class S3Failure extends Error {
-  constructor(public status: number, public code: string, message: string, public extra: Record<string, string> = {}) {
+  constructor(
+    public status: number,
+    public code: string,
+    message: string,
+    public extra: Record<string, string> = {},
+  ) {
     super(message);
   }
 }
@@ -66,12 +71,18 @@ export function decodeAwsChunked(raw: Buffer): { body: Buffer; trailers: Record<
   return { body: Buffer.concat(parts), trailers };
 }
 
-export function startStorageFake(opts: { port: number; rootDir: string; accessKeyId: string; maxObjectBytes?: number }) {
+export function startStorageFake(opts: {
+  port: number;
+  rootDir: string;
+  accessKeyId: string;
+  maxObjectBytes?: number;
+}) {
   if (!opts.accessKeyId) throw new Error('the storage fake needs the access key id it should accept');
   const maxBytes = opts.maxObjectBytes ?? 50 * 1024 * 1024;
   const bucketDir = (bucket: string) => path.join(opts.rootDir, bucket);
   // Objects are stored under the SHA-256 of their key, so no key can reach outside the folder.
-  const objectPath = (bucket: string, key: string) => path.join(bucketDir(bucket), createHash('sha256').update(key).digest('hex'));
+  const objectPath = (bucket: string, key: string) =>
+    path.join(bucketDir(bucket), createHash('sha256').update(key).digest('hex'));
 
   const requireBucket = (bucket: string) => {
     if (!fs.existsSync(bucketDir(bucket))) {
@@ -94,7 +105,11 @@ export function startStorageFake(opts: { port: number; rootDir: string; accessKe
         if (total > limit) {
           req.removeAllListeners('data');
           req.resume();
-          reject(new S3Failure(400, 'EntityTooLarge', 'Your proposed upload exceeds the maximum allowed size.', { MaxSizeAllowed: String(maxBytes) }));
+          reject(
+            new S3Failure(400, 'EntityTooLarge', 'Your proposed upload exceeds the maximum allowed size.', {
+              MaxSizeAllowed: String(maxBytes),
+            }),
+          );
         } else chunks.push(c);
       });
       req.on('end', () => resolve(Buffer.concat(chunks)));
@@ -116,23 +131,35 @@ export function startStorageFake(opts: { port: number; rootDir: string; accessKe
 
   async function putObject(req: http.IncomingMessage, res: http.ServerResponse, bucket: string, key: string) {
     requireBucket(bucket);
-    if (req.headers['x-amz-copy-source']) throw new S3Failure(501, 'NotImplemented', 'CopyObject is not supported by this fake.');
+    if (req.headers['x-amz-copy-source'])
+      throw new S3Failure(501, 'NotImplemented', 'CopyObject is not supported by this fake.');
     const declared = Number(req.headers['x-amz-decoded-content-length'] ?? req.headers['content-length'] ?? 0);
     if (declared > maxBytes) {
       req.resume();
-      throw new S3Failure(400, 'EntityTooLarge', 'Your proposed upload exceeds the maximum allowed size.', { MaxSizeAllowed: String(maxBytes) });
+      throw new S3Failure(400, 'EntityTooLarge', 'Your proposed upload exceeds the maximum allowed size.', {
+        MaxSizeAllowed: String(maxBytes),
+      });
     }
     const sha256Header = String(req.headers['x-amz-content-sha256'] ?? '');
-    const chunked = /aws-chunked/.test(String(req.headers['content-encoding'] ?? '')) || sha256Header.startsWith('STREAMING-');
+    const chunked =
+      /aws-chunked/.test(String(req.headers['content-encoding'] ?? '')) || sha256Header.startsWith('STREAMING-');
     // Chunk framing adds a little; the decoded size is checked again below.
     const raw = await readBody(req, chunked ? maxBytes + 64 * 1024 + 1024 : maxBytes);
     const { body, trailers } = chunked ? decodeAwsChunked(raw) : { body: raw, trailers: {} as Record<string, string> };
-    if (body.length > maxBytes) throw new S3Failure(400, 'EntityTooLarge', 'Your proposed upload exceeds the maximum allowed size.');
-    if (req.headers['x-amz-decoded-content-length'] && Number(req.headers['x-amz-decoded-content-length']) !== body.length) {
+    if (body.length > maxBytes)
+      throw new S3Failure(400, 'EntityTooLarge', 'Your proposed upload exceeds the maximum allowed size.');
+    if (
+      req.headers['x-amz-decoded-content-length'] &&
+      Number(req.headers['x-amz-decoded-content-length']) !== body.length
+    ) {
       throw new S3Failure(400, 'IncompleteBody', 'The body is not the declared length.');
     }
     if (/^[0-9a-f]{64}$/.test(sha256Header) && createHash('sha256').update(body).digest('hex') !== sha256Header) {
-      throw new S3Failure(400, 'XAmzContentSHA256Mismatch', "The provided 'x-amz-content-sha256' header does not match what was computed.");
+      throw new S3Failure(
+        400,
+        'XAmzContentSHA256Mismatch',
+        "The provided 'x-amz-content-sha256' header does not match what was computed.",
+      );
     }
     const md5 = createHash('md5').update(body);
     const md5Hex = md5.copy().digest('hex');
@@ -145,12 +172,17 @@ export function startStorageFake(opts: { port: number; rootDir: string; accessKe
       const alg = /^x-amz-checksum-(crc32|crc32c|crc64nvme|sha1|sha256)$/.exec(name)?.[1];
       if (!alg) continue;
       if (CHECKERS[alg] && CHECKERS[alg](body) !== value) {
-        throw new S3Failure(400, 'BadDigest', `The ${alg.toUpperCase()} you specified did not match the calculated checksum.`);
+        throw new S3Failure(
+          400,
+          'BadDigest',
+          `The ${alg.toUpperCase()} you specified did not match the calculated checksum.`,
+        );
       }
       checksums[alg] = value;
     }
     const metadata: Record<string, string> = {};
-    for (const [k, v] of Object.entries(req.headers)) if (k.startsWith('x-amz-meta-')) metadata[k.slice(11)] = String(v);
+    for (const [k, v] of Object.entries(req.headers))
+      if (k.startsWith('x-amz-meta-')) metadata[k.slice(11)] = String(v);
     const meta: ObjectMeta = {
       key,
       sizeBytes: body.length,
@@ -165,7 +197,10 @@ export function startStorageFake(opts: { port: number; rootDir: string; accessKe
     fs.writeFileSync(`${file}.tmp`, body);
     fs.renameSync(`${file}.tmp`, file);
     fs.writeFileSync(`${file}.json`, JSON.stringify(meta));
-    res.writeHead(200, { ETag: meta.etag, ...Object.fromEntries(Object.entries(checksums).map(([a, v]) => [`x-amz-checksum-${a}`, v])) });
+    res.writeHead(200, {
+      ETag: meta.etag,
+      ...Object.fromEntries(Object.entries(checksums).map(([a, v]) => [`x-amz-checksum-${a}`, v])),
+    });
     res.end();
   }
 
@@ -174,7 +209,9 @@ export function startStorageFake(opts: { port: number; rootDir: string; accessKe
     const prefix = url.searchParams.get('prefix') ?? '';
     const maxKeys = Math.min(1000, Number(url.searchParams.get('max-keys') ?? 1000));
     const token = url.searchParams.get('continuation-token');
-    const after = token ? Buffer.from(token, 'base64url').toString('utf8') : (url.searchParams.get('start-after') ?? '');
+    const after = token
+      ? Buffer.from(token, 'base64url').toString('utf8')
+      : (url.searchParams.get('start-after') ?? '');
     const all = fs
       .readdirSync(bucketDir(bucket))
       .filter((f) => f.endsWith('.json'))
@@ -184,10 +221,19 @@ export function startStorageFake(opts: { port: number; rootDir: string; accessKe
     const page = all.slice(0, maxKeys);
     const truncated = all.length > page.length;
     const contents = page
-      .map((m) => `<Contents><Key>${xmlEscape(m.key)}</Key><LastModified>${m.lastModified}</LastModified><ETag>${xmlEscape(m.etag)}</ETag><Size>${m.sizeBytes}</Size><StorageClass>STANDARD</StorageClass></Contents>`)
+      .map(
+        (m) =>
+          `<Contents><Key>${xmlEscape(m.key)}</Key><LastModified>${m.lastModified}</LastModified><ETag>${xmlEscape(m.etag)}</ETag><Size>${m.sizeBytes}</Size><StorageClass>STANDARD</StorageClass></Contents>`,
+      )
       .join('');
-    const next = truncated ? `<NextContinuationToken>${Buffer.from(page[page.length - 1].key).toString('base64url')}</NextContinuationToken>` : '';
-    sendXml(res, 200, `<ListBucketResult xmlns="http://s3.amazonaws.com/doc/2006-03-01/"><Name>${xmlEscape(bucket)}</Name><Prefix>${xmlEscape(prefix)}</Prefix><KeyCount>${page.length}</KeyCount><MaxKeys>${maxKeys}</MaxKeys><IsTruncated>${truncated}</IsTruncated>${contents}${next}</ListBucketResult>`);
+    const next = truncated
+      ? `<NextContinuationToken>${Buffer.from(page[page.length - 1].key).toString('base64url')}</NextContinuationToken>`
+      : '';
+    sendXml(
+      res,
+      200,
+      `<ListBucketResult xmlns="http://s3.amazonaws.com/doc/2006-03-01/"><Name>${xmlEscape(bucket)}</Name><Prefix>${xmlEscape(prefix)}</Prefix><KeyCount>${page.length}</KeyCount><MaxKeys>${maxKeys}</MaxKeys><IsTruncated>${truncated}</IsTruncated>${contents}${next}</ListBucketResult>`,
+    );
   }
 
   function sendXml(res: http.ServerResponse, status: number, xml: string) {
@@ -206,9 +252,15 @@ export function startStorageFake(opts: { port: number; rootDir: string; accessKe
       throw new S3Failure(403, 'AccessDenied', 'Access Denied (no Authorization header).');
     }
     // "Credential=<access key id>/<date>/<region>/s3/aws4_request" (AWS SigV4, header or query form).
-    const credential = /Credential=([^/,\s]+)\//.exec(req.headers.authorization ?? '')?.[1] ?? url.searchParams.get('X-Amz-Credential')?.split('/')[0];
+    const credential =
+      /Credential=([^/,\s]+)\//.exec(req.headers.authorization ?? '')?.[1] ??
+      url.searchParams.get('X-Amz-Credential')?.split('/')[0];
     if (credential !== opts.accessKeyId) {
-      throw new S3Failure(403, 'InvalidAccessKeyId', 'The AWS Access Key Id you provided does not exist in our records.');
+      throw new S3Failure(
+        403,
+        'InvalidAccessKeyId',
+        'The AWS Access Key Id you provided does not exist in our records.',
+      );
     }
     const [, bucket = '', ...rest] = url.pathname.split('/');
     let key: string;
@@ -218,7 +270,8 @@ export function startStorageFake(opts: { port: number; rootDir: string; accessKe
       throw new S3Failure(400, 'InvalidURI', "Couldn't parse the specified URI.");
     }
     if (!bucket) throw new S3Failure(501, 'NotImplemented', 'ListBuckets is not supported by this fake.');
-    if (!BUCKET_NAME.test(bucket)) throw new S3Failure(400, 'InvalidBucketName', 'The specified bucket is not valid.', { BucketName: bucket });
+    if (!BUCKET_NAME.test(bucket))
+      throw new S3Failure(400, 'InvalidBucketName', 'The specified bucket is not valid.', { BucketName: bucket });
     const method = req.method ?? 'GET';
 
     if (!key) {
@@ -257,15 +310,22 @@ export function startStorageFake(opts: { port: number; rootDir: string; accessKe
     const requestId = randomBytes(8).toString('hex').toUpperCase();
     res.setHeader('x-amz-request-id', requestId);
     route(req, res).catch((err: unknown) => {
-      const f = err instanceof S3Failure ? err : new S3Failure(500, 'InternalError', 'We encountered an internal error.');
+      const f =
+        err instanceof S3Failure ? err : new S3Failure(500, 'InternalError', 'We encountered an internal error.');
       if (!(err instanceof S3Failure)) console.error('[fakes] storage error', err);
       if (res.headersSent) return res.destroy();
       if (req.method === 'HEAD') {
         res.writeHead(f.status); // HEAD answers carry no body; the SDK names the error from the status
         return res.end();
       }
-      const extra = Object.entries(f.extra).map(([k, v]) => `<${k}>${xmlEscape(v)}</${k}>`).join('');
-      sendXml(res, f.status, `<Error><Code>${f.code}</Code><Message>${xmlEscape(f.message)}</Message>${extra}<RequestId>${requestId}</RequestId></Error>`);
+      const extra = Object.entries(f.extra)
+        .map(([k, v]) => `<${k}>${xmlEscape(v)}</${k}>`)
+        .join('');
+      sendXml(
+        res,
+        f.status,
+        `<Error><Code>${f.code}</Code><Message>${xmlEscape(f.message)}</Message>${extra}<RequestId>${requestId}</RequestId></Error>`,
+      );
     });
   });
   server.listen(opts.port, '127.0.0.1');

@@ -30,10 +30,13 @@ test('after signing in, every callbackUrl evasion stays on the site', async () =
   for (const [name, raw] of Object.entries(EVASIONS)) {
     const context = await newContext(browser, PHONE);
     const left: string[] = [];
-    await context.route((url) => url.hostname.endsWith('attacker.invalid'), (route) => {
-      left.push(route.request().url());
-      return route.abort();
-    });
+    await context.route(
+      (url) => url.hostname.endsWith('attacker.invalid'),
+      (route) => {
+        left.push(route.request().url());
+        return route.abort();
+      },
+    );
     const page = await context.newPage();
     await page.goto(`/sign-in?callbackUrl=${raw}`);
     await page.getByLabel('E-mail').fill(DEMO.entrant);
@@ -71,7 +74,10 @@ test('a password change asks for the current password, keeps this device signed 
   await phone.getByLabel('Current password').fill('first-long-password');
   await phone.getByLabel('New password').fill('second-long-password');
   // The form signs this device back in with the new password: wait for that sign-in's answer, not a fixed pause.
-  const signedBackIn = phone.waitForResponse((r) => r.request().method() === 'POST' && new URL(r.url()).pathname === '/api/auth/callback/password', { timeout: 15_000 });
+  const signedBackIn = phone.waitForResponse(
+    (r) => r.request().method() === 'POST' && new URL(r.url()).pathname === '/api/auth/callback/password',
+    { timeout: 15_000 },
+  );
   await phone.getByRole('button', { name: 'Save password' }).click();
   await phone.getByTestId('password-result').filter({ hasText: 'Password changed' }).waitFor();
   await screenshot(phone, 'account-01-password-changed');

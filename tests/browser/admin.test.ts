@@ -9,12 +9,20 @@ import { DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
 import { HttpSession } from '../support/http-session';
 
 let browser: Browser;
-before(async () => { browser = await launchBrowser(); });
-after(async () => { await browser?.close(); });
+before(async () => {
+  browser = await launchBrowser();
+});
+after(async () => {
+  await browser?.close();
+});
 
 test('admin: suspend an account with a reason, the person is refused, then lift it', async () => {
   const email = uniqueEmail('admin-journey');
-  const signup = await new HttpSession().json('/api/accounts', { name: 'Wren Halloway', email, password: 'wren-long-password' });
+  const signup = await new HttpSession().json('/api/accounts', {
+    name: 'Wren Halloway',
+    email,
+    password: 'wren-long-password',
+  });
   assert.equal(signup.res.status, 202);
 
   const person = await (await newContext(browser, PHONE)).newPage();
@@ -26,7 +34,14 @@ test('admin: suspend an account with a reason, the person is refused, then lift 
   await page.getByTestId('main-nav').getByRole('link', { name: 'Administration' }).click();
   await page.waitForURL('**/admin');
   await page.getByLabel('Find a person').fill('wren halloway');
-  assert.equal(await page.getByTestId('people-count').innerText().then((t) => /^Showing 1 of \d+$/.test(t)), true, 'the search narrows the list to one');
+  assert.equal(
+    await page
+      .getByTestId('people-count')
+      .innerText()
+      .then((t) => /^Showing 1 of \d+$/.test(t)),
+    true,
+    'the search narrows the list to one',
+  );
   const row = page.locator(`[data-person="${email}"]`);
   await row.getByRole('button', { name: 'Suspend…' }).click();
   await row.getByRole('button', { name: 'Suspend the account' }).click();

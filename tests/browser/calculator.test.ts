@@ -7,8 +7,12 @@ import type { Browser, Locator, Page } from 'playwright-core';
 import { launchBrowser, newContext, screenshot, PHONE } from '../support/browser';
 
 let browser: Browser;
-before(async () => { browser = await launchBrowser(); });
-after(async () => { await browser?.close(); });
+before(async () => {
+  browser = await launchBrowser();
+});
+after(async () => {
+  await browser?.close();
+});
 
 /** Polls a locator's text until it matches, and returns the match. */
 async function waitForText(locator: Locator, pattern: RegExp, timeoutMs = 15_000): Promise<RegExpMatchArray> {
@@ -27,7 +31,8 @@ async function waitForSettled(page: Page) {
   await waitForText(page.getByTestId('calc-status'), /^$/);
 }
 
-const figure = async (group: Locator, testId: string) => Number((await group.getByTestId(testId).innerText()).split(' ')[0]);
+const figure = async (group: Locator, testId: string) =>
+  Number((await group.getByTestId(testId).innerText()).split(' ')[0]);
 
 async function fillSetup(group: Locator, s: { label: string; powerKw: string; nozzleMm: string }) {
   await group.getByLabel('Label', { exact: true }).fill(s.label);
@@ -74,12 +79,19 @@ test('calculator: two nozzles at 300 kW, static figures, curves crossing near 33
   // At equal power static thrust scales as D^(2/3) and jet velocity as D^(-2/3) (static momentum theory, Allison 1993).
   const ratio = 90 / 100;
   assert.ok(Math.abs((await figure(b, 'static-thrust')) - 13004.56 * ratio ** (2 / 3)) <= 1, 'static thrust of B');
-  assert.ok(Math.abs((await figure(b, 'static-jet-velocity')) - 40.7097 * ratio ** (-2 / 3)) <= 0.06, 'static jet velocity of B');
+  assert.ok(
+    Math.abs((await figure(b, 'static-jet-velocity')) - 40.7097 * ratio ** (-2 / 3)) <= 0.06,
+    'static jet velocity of B',
+  );
   // 300 kW as set, shown in kW.
   assert.equal(await a.getByTestId('shaft-power').innerText(), '300.0 kW');
 
   const chart = page.getByTestId('thrust-chart');
-  assert.equal(await chart.locator('.recharts-wrapper > svg.recharts-surface').count(), 1, 'one chart (legend icons aside)');
+  assert.equal(
+    await chart.locator('.recharts-wrapper > svg.recharts-surface').count(),
+    1,
+    'one chart (legend icons aside)',
+  );
   assert.equal(await chart.locator('path.recharts-line-curve').count(), 2, 'two curves');
   assert.equal(await chart.locator('.recharts-reference-dot').count(), 1, 'the crossover is marked');
 
@@ -87,7 +99,10 @@ test('calculator: two nozzles at 300 kW, static figures, curves crossing near 33
   const boxA = await a.boundingBox();
   const boxB = await b.boundingBox();
   assert.ok(boxA && boxB && boxB.y >= boxA.y + boxA.height - 1, 'set-ups stacked in one column');
-  assert.ok(await page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth), 'no sideways scrolling');
+  assert.ok(
+    await page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth),
+    'no sideways scrolling',
+  );
   const power = a.getByLabel('Shaft power', { exact: true });
   assert.equal(await power.getAttribute('inputmode'), 'decimal');
   // Target size at least 44 x 44 CSS px (WCAG 2.1 success criterion 2.5.5).
@@ -123,7 +138,10 @@ test('calculator: two nozzles at 300 kW, static figures, curves crossing near 33
   await waitForSettled(page);
 
   await power.fill('-300');
-  await waitForText(page.locator(`[data-field-error="${await power.getAttribute('id')}"]`), /^Shaft power must be greater than 0\.$/);
+  await waitForText(
+    page.locator(`[data-field-error="${await power.getAttribute('id')}"]`),
+    /^Shaft power must be greater than 0\.$/,
+  );
   assert.equal(await power.getAttribute('aria-invalid'), 'true');
   const describedBy = (await power.getAttribute('aria-describedby')) ?? '';
   const errorId = `${await power.getAttribute('id')}-error`;

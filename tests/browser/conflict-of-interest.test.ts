@@ -12,8 +12,12 @@ import { query } from '../support/db';
 import { InspectionMeeting, rulesWith } from '../support/inspection-meeting';
 
 let browser: Browser;
-before(async () => { browser = await launchBrowser(); });
-after(async () => { await browser?.close(); });
+before(async () => {
+  browser = await launchBrowser();
+});
+after(async () => {
+  await browser?.close();
+});
 
 test('conflict of interest: the steward declares an interest in a boat and the protest against it offers them no step', async () => {
   const meeting = new InspectionMeeting();
@@ -36,7 +40,9 @@ test('conflict of interest: the steward declares an interest in a boat and the p
   await page.getByRole('link', { name: 'Declared interests' }).click();
   await page.waitForURL('**/interests');
   // No statement: refused beside the field, nothing stored.
-  await page.getByLabel('Boat', { exact: true }).selectOption({ label: `#${target.raceNumber} ${target.boatName} (CI)` });
+  await page
+    .getByLabel('Boat', { exact: true })
+    .selectOption({ label: `#${target.raceNumber} ${target.boatName} (CI)` });
   await page.getByRole('button', { name: 'Declare the interest' }).click();
   await page.locator('[data-field-error="statement"]').waitFor();
   assert.equal((await query('select 1 from official_interests where event_id = $1', [meeting.eventId])).length, 0);
@@ -50,7 +56,10 @@ test('conflict of interest: the steward declares an interest in a boat and the p
   await page.goto(`/stewards/${meeting.eventId}/protests/${protestId}`);
   const notice = page.getByTestId('viewer-conflict');
   await notice.waitFor();
-  assert.match(await notice.innerText(), /You have an interest in this protest: another steward of this meeting must accept, hear and decide it\.[\s\S]*You declared an interest in boat .*I am the crew chief of this boat\./);
+  assert.match(
+    await notice.innerText(),
+    /You have an interest in this protest: another steward of this meeting must accept, hear and decide it\.[\s\S]*You declared an interest in boat .*I am the crew chief of this boat\./,
+  );
   assert.equal(await page.getByRole('button', { name: 'Accept the protest' }).count(), 0);
   assert.equal(await page.getByRole('button', { name: 'Record the decision' }).count(), 0);
   await screenshot(page, 'interest-02-protest-refused');

@@ -10,12 +10,19 @@ import { DEMO, DEMO_PASSWORD } from '../support/env';
 import { InspectionMeeting, rulesWith } from '../support/inspection-meeting';
 
 let browser: Browser;
-before(async () => { browser = await launchBrowser(); });
-after(async () => { await browser?.close(); });
+before(async () => {
+  browser = await launchBrowser();
+});
+after(async () => {
+  await browser?.close();
+});
 
 test('custody: scrutineer bags a part at the dock, steward releases it', async () => {
   const meeting = new InspectionMeeting();
-  await meeting.create(`Custody Journey ${Date.now()}`, [{ email: DEMO.scrutineer, role: 'scrutineer' }, { email: DEMO.steward, role: 'steward' }]);
+  await meeting.create(`Custody Journey ${Date.now()}`, [
+    { email: DEMO.scrutineer, role: 'scrutineer' },
+    { email: DEMO.steward, role: 'steward' },
+  ]);
   const entry = await meeting.addEntry(await meeting.addClass('CJ', rulesWith()));
 
   const dock = await newContext(browser, PHONE);
@@ -35,7 +42,10 @@ test('custody: scrutineer bags a part at the dock, steward releases it', async (
   await page.getByRole('button', { name: 'Take into custody' }).click();
   const item = page.locator('[data-held="yes"]').first();
   await item.waitFor();
-  assert.match(await item.innerText(), new RegExp(`no\\. ${entry.raceNumber}[\\s\\S]*Impeller, bent leading edge · seal/bag BAG-0520`));
+  assert.match(
+    await item.innerText(),
+    new RegExp(`no\\. ${entry.raceNumber}[\\s\\S]*Impeller, bent leading edge · seal/bag BAG-0520`),
+  );
   assert.equal(await item.getByRole('button', { name: 'Release…' }).count(), 0, 'a scrutineer cannot release');
   assert.match(await page.getByRole('note').innerText(), /licensed officials/);
   await screenshot(page, 'custody-01-taken');
@@ -44,7 +54,10 @@ test('custody: scrutineer bags a part at the dock, steward releases it', async (
   await page.getByLabel('Race number or tag code').fill(String(entry.raceNumber));
   await page.getByRole('button', { name: 'Find', exact: true }).click();
   await page.getByTestId('parts-held').waitFor();
-  assert.match(await page.getByTestId('parts-held').innerText(), /Held by the officials: Impeller, bent leading edge \(seal\/bag BAG-0520\)/);
+  assert.match(
+    await page.getByTestId('parts-held').innerText(),
+    /Held by the officials: Impeller, bent leading edge \(seal\/bag BAG-0520\)/,
+  );
   await dock.close();
 
   // The entrant sees on My entries that the part is held, and by whom to ask.
@@ -53,7 +66,10 @@ test('custody: scrutineer bags a part at the dock, steward releases it', async (
   await signInWithPassword(ep, DEMO.entrant, DEMO_PASSWORD);
   await ep.goto('/entries');
   const held0 = ep.locator(`[data-entry-id="${entry.id}"]`).getByTestId('parts-held');
-  assert.match(await held0.innerText(), /Impeller, bent leading edge \(seal\/bag BAG-0520\), since .*\(Pacific\/Auckland\)/);
+  assert.match(
+    await held0.innerText(),
+    /Impeller, bent leading edge \(seal\/bag BAG-0520\), since .*\(Pacific\/Auckland\)/,
+  );
   await screenshot(ep, 'custody-02-entrant-sees');
 
   const office = await newContext(browser, PHONE);
@@ -69,10 +85,17 @@ test('custody: scrutineer bags a part at the dock, steward releases it', async (
   await held.getByRole('button', { name: 'Release the part' }).click();
   const released = sp.getByTestId('released').first();
   await released.waitFor();
-  assert.match(await released.innerText(), /Released to Crew chief of no\. \d+ by .*: Photographed and measured; nothing pending\./);
+  assert.match(
+    await released.innerText(),
+    /Released to Crew chief of no\. \d+ by .*: Photographed and measured; nothing pending\./,
+  );
   await screenshot(sp, 'custody-03-released');
   await office.close();
   await ep.reload();
-  assert.equal(await ep.locator(`[data-entry-id="${entry.id}"]`).getByTestId('parts-held').count(), 0, 'released: no longer listed as held');
+  assert.equal(
+    await ep.locator(`[data-entry-id="${entry.id}"]`).getByTestId('parts-held').count(),
+    0,
+    'released: no longer listed as held',
+  );
   await pits.close();
 });

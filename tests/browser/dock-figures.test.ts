@@ -10,13 +10,19 @@ import { DEMO, DEMO_PASSWORD } from '../support/env';
 import { InspectionMeeting, rulesWith } from '../support/inspection-meeting';
 
 let browser: Browser;
-before(async () => { browser = await launchBrowser(); });
-after(async () => { await browser?.close(); });
+before(async () => {
+  browser = await launchBrowser();
+});
+after(async () => {
+  await browser?.close();
+});
 
 const HP_530_KW = (530 * 745.69987158227022) / 1000; // NIST SP 811 Appendix B.8
 
 test('dock on a phone: a power declared in hp shows and pre-fills as 395.2 kW; the CSV carries 395.2', async () => {
-  const meeting = await new InspectionMeeting().create(`Figures ${Date.now()}`, [{ email: DEMO.scrutineer, role: 'scrutineer' }]);
+  const meeting = await new InspectionMeeting().create(`Figures ${Date.now()}`, [
+    { email: DEMO.scrutineer, role: 'scrutineer' },
+  ]);
   const classId = await meeting.addClass('FG', rulesWith());
   const entry = await meeting.addEntry(classId, { declaredPowerKw: HP_530_KW });
 

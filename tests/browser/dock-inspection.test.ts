@@ -17,8 +17,12 @@ import { query } from '../support/db';
 import { SAFETY_ITEMS, type SafetyItem } from '../../lib/core/constants';
 
 let browser: Browser;
-before(async () => { browser = await launchBrowser(); });
-after(async () => { await browser?.close(); });
+before(async () => {
+  browser = await launchBrowser();
+});
+after(async () => {
+  await browser?.close();
+});
 
 type Boat = { entryId: string; raceNumber: number; name: string; boatId: string };
 
@@ -43,7 +47,8 @@ async function ssBoats(): Promise<{ boats: Boat[]; safety: SafetyItem[] }> {
 async function fillRecord(page: Page, largestMm: number, safety: SafetyItem[], instrumentId?: string) {
   const form = page.getByTestId('inspection-form');
   await form.waitFor();
-  for (const [i, d] of [101.5, largestMm, 101.8].entries()) await page.getByLabel(`Reading ${i + 1} diameter`).fill(String(d));
+  for (const [i, d] of [101.5, largestMm, 101.8].entries())
+    await page.getByLabel(`Reading ${i + 1} diameter`).fill(String(d));
   if (instrumentId) {
     await page.getByLabel('From the instrument used').check();
     await page.getByLabel('Instrument used', { exact: true }).selectOption(instrumentId);
@@ -61,8 +66,15 @@ async function fillRecord(page: Page, largestMm: number, safety: SafetyItem[], i
 
 const idbKeys = (page: Page, state: string) =>
   page.evaluate(async (wanted) => {
-    const db = await new Promise<IDBDatabase>((ok, no) => { const r = indexedDB.open('boreline-inspect'); r.onsuccess = () => ok(r.result); r.onerror = () => no(r.error); });
-    const all = await new Promise<{ idempotencyKey: string; state: string }[]>((ok) => { const r = db.transaction('outbox').objectStore('outbox').getAll(); r.onsuccess = () => ok(r.result); });
+    const db = await new Promise<IDBDatabase>((ok, no) => {
+      const r = indexedDB.open('boreline-inspect');
+      r.onsuccess = () => ok(r.result);
+      r.onerror = () => no(r.error);
+    });
+    const all = await new Promise<{ idempotencyKey: string; state: string }[]>((ok) => {
+      const r = db.transaction('outbox').objectStore('outbox').getAll();
+      r.onsuccess = () => ok(r.result);
+    });
     return all.filter((x) => x.state === wanted).map((x) => x.idempotencyKey);
   }, state);
 
@@ -80,15 +92,27 @@ test('dock: scan a tag from a photo, record, see the verdict; offline two record
   await signInWithPassword(page, DEMO.scrutineer, DEMO_PASSWORD);
   await page.getByTestId('main-nav').getByRole('link', { name: 'Inspect' }).click();
   await page.waitForURL('**/inspect');
-  await page.getByTestId('inspect-meetings').locator(`[data-event-id="${DEMO.meetingId}"]`).getByRole('link', { name: 'Dock screen' }).click();
+  await page
+    .getByTestId('inspect-meetings')
+    .locator(`[data-event-id="${DEMO.meetingId}"]`)
+    .getByRole('link', { name: 'Dock screen' })
+    .click();
   await page.waitForURL(`**/inspect/${DEMO.meetingId}`);
 
   // The tag's QR code encodes the tag URL as tagUrl() in lib/server/tags/tokens.ts writes it (that module is
   // server-only), at the error-correction level the printed tag sheet uses (Q, lib/core/tags/tag-sheet.ts).
-  const [{ token }] = await query<{ token: string }>('select token from boat_tags where boat_id = $1 and retired_at is null', [scanned.boatId]);
+  const [{ token }] = await query<{ token: string }>(
+    'select token from boat_tags where boat_id = $1 and retired_at is null',
+    [scanned.boatId],
+  );
   const pngPath = path.join(ARTIFACTS, 'dock-tag.png');
   fs.mkdirSync(ARTIFACTS, { recursive: true });
-  await QRCode.toFile(pngPath, `${process.env.NEXTAUTH_URL ?? BASE_URL}/t/${token}`, { type: 'png', width: 480, margin: 4, errorCorrectionLevel: 'Q' });
+  await QRCode.toFile(pngPath, `${process.env.NEXTAUTH_URL ?? BASE_URL}/t/${token}`, {
+    type: 'png',
+    width: 480,
+    margin: 4,
+    errorCorrectionLevel: 'Q',
+  });
   await page.getByTestId('scan-photo').setInputFiles(pngPath);
   await page.getByTestId('boat-name').filter({ hasText: scanned.name }).waitFor();
   assert.equal(await page.getByTestId('boat-card').getAttribute('data-entry-id'), scanned.entryId);
@@ -96,23 +120,40 @@ test('dock: scan a tag from a photo, record, see the verdict; offline two record
 
   // Phone-first: text at least 18 px and touch targets at least 48 px where the scrutineer works.
   const measure = (selector: string) =>
-    page.locator(selector).first().evaluate((el) => ({ fontPx: parseFloat(getComputedStyle(el).fontSize), heightPx: el.getBoundingClientRect().height, inputMode: el.getAttribute('inputmode') }));
+    page
+      .locator(selector)
+      .first()
+      .evaluate((el) => ({
+        fontPx: parseFloat(getComputedStyle(el).fontSize),
+        heightPx: el.getBoundingClientRect().height,
+        inputMode: el.getAttribute('inputmode'),
+      }));
   const label = await measure('label[for="f-nozzle-readings-0-diameterMm"]');
   const input = await measure('#f-nozzle-readings-0-diameterMm');
   const submit = await measure('[data-testid="record-inspection"]');
   const safetyRow = await measure('[data-testid="inspection-form"] fieldset label:has(input[type="checkbox"])');
   assert.ok(label.fontPx >= 18 && input.fontPx >= 18, `text ${label.fontPx} / ${input.fontPx} px`);
-  assert.ok(input.heightPx >= 48 && submit.heightPx >= 48 && safetyRow.heightPx >= 48, `targets ${input.heightPx} / ${submit.heightPx} / ${safetyRow.heightPx} px`);
+  assert.ok(
+    input.heightPx >= 48 && submit.heightPx >= 48 && safetyRow.heightPx >= 48,
+    `targets ${input.heightPx} / ${submit.heightPx} / ${safetyRow.heightPx} px`,
+  );
   assert.equal(input.inputMode, 'decimal');
 
   await fillRecord(page, 101.93, safety);
   const verdict = page.getByTestId('verdict');
   await verdict.waitFor();
   assert.equal(await verdict.getAttribute('data-provisional'), 'false', 'decided by the server');
-  assert.equal(await verdict.locator('[data-rule="nozzle_max"]').getAttribute('data-verdict'), 'conforms', '101.93 mm: conformity proven (ISO 14253-1:2017)');
+  assert.equal(
+    await verdict.locator('[data-rule="nozzle_max"]').getAttribute('data-verdict'),
+    'conforms',
+    '101.93 mm: conformity proven (ISO 14253-1:2017)',
+  );
   assert.equal(await verdict.getAttribute('data-overall'), 'conforms');
   assert.ok(await verdict.getByRole('note').isVisible(), 'the safety caution is shown with the verdict');
-  const [stored] = await query<{ overall_result: string; results: { rules: unknown[] } }>('select overall_result, results from inspections where entry_id = $1 order by received_at desc limit 1', [scanned.entryId]);
+  const [stored] = await query<{ overall_result: string; results: { rules: unknown[] } }>(
+    'select overall_result, results from inspections where entry_id = $1 order by received_at desc limit 1',
+    [scanned.entryId],
+  );
   assert.equal(stored.overall_result, 'conforms');
   assert.equal(await verdict.locator('[data-rule]').count(), stored.results.rules.length, 'every rule is shown');
   await screenshot(page, 'dock-02-verdict');
@@ -130,8 +171,14 @@ test('dock: scan a tag from a photo, record, see the verdict; offline two record
 
   // The phone keeps a copy of the entries for offline use.
   await page.waitForFunction(async (eventId) => {
-    const db = await new Promise<IDBDatabase>((ok) => { const r = indexedDB.open('boreline-inspect'); r.onsuccess = () => ok(r.result); });
-    return new Promise<boolean>((ok) => { const r = db.transaction('snapshots').objectStore('snapshots').get(eventId); r.onsuccess = () => ok(!!r.result); });
+    const db = await new Promise<IDBDatabase>((ok) => {
+      const r = indexedDB.open('boreline-inspect');
+      r.onsuccess = () => ok(r.result);
+    });
+    return new Promise<boolean>((ok) => {
+      const r = db.transaction('snapshots').objectStore('snapshots').get(eventId);
+      r.onsuccess = () => ok(!!r.result);
+    });
   }, DEMO.meetingId);
   // …and its service worker has kept the dock screen itself (we came by a link, so it may not control this page yet).
   await page.waitForFunction(async () => (await caches.match(location.href)) !== undefined);
@@ -159,7 +206,9 @@ test('dock: scan a tag from a photo, record, see the verdict; offline two record
   await screenshot(page, 'dock-04-offline-waiting');
   const keys = await idbKeys(page, 'waiting');
   assert.equal(keys.length, 2);
-  const stored0 = await query<{ n: string }>('select count(*) as n from inspections where idempotency_key = any($1)', [keys]);
+  const stored0 = await query<{ n: string }>('select count(*) as n from inspections where idempotency_key = any($1)', [
+    keys,
+  ]);
   assert.equal(stored0[0].n, '0', 'nothing reached the server while offline');
 
   await context.setOffline(false);
@@ -170,10 +219,14 @@ test('dock: scan a tag from a photo, record, see the verdict; offline two record
   await page.reload();
   await page.getByTestId('waiting-heading').filter({ hasText: 'Waiting to send (0)' }).waitFor();
   const rows = await query<{ idempotency_key: string; entry_id: string; n: string }>(
-    'select idempotency_key, entry_id, count(*) over (partition by idempotency_key) as n from inspections where idempotency_key = any($1)', [keys],
+    'select idempotency_key, entry_id, count(*) over (partition by idempotency_key) as n from inspections where idempotency_key = any($1)',
+    [keys],
   );
   assert.equal(rows.length, 2, 'exactly two records arrived');
-  assert.ok(rows.every((r) => r.n === '1'), 'each once');
+  assert.ok(
+    rows.every((r) => r.n === '1'),
+    'each once',
+  );
   assert.deepEqual(new Set(rows.map((r) => r.entry_id)), new Set([offlineA.entryId, offlineB.entryId]));
 
   // A record the server refuses (its instrument was withdrawn while the phone was offline) stays on
@@ -189,7 +242,10 @@ test('dock: scan a tag from a photo, record, see the verdict; offline two record
   await page.getByTestId('needs-fix-heading').filter({ hasText: 'Needs a fix (1)' }).waitFor({ timeout: 30_000 });
   assert.match(await page.getByTestId('needs-fix-list').innerText(), /not on this meeting’s list/);
   assert.deepEqual(await idbKeys(page, 'needs_fix'), [refusedKey]);
-  assert.equal((await query<{ n: string }>('select count(*) as n from inspections where idempotency_key = $1', [refusedKey]))[0].n, '0');
+  assert.equal(
+    (await query<{ n: string }>('select count(*) as n from inspections where idempotency_key = $1', [refusedKey]))[0].n,
+    '0',
+  );
   await screenshot(page, 'dock-06-needs-fix');
   await context.close();
 });

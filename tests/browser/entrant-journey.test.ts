@@ -13,8 +13,12 @@ import { query } from '../support/db';
 import { waitForMail } from '../support/mail';
 
 let browser: Browser;
-before(async () => { browser = await launchBrowser(); });
-after(async () => { await browser?.close(); });
+before(async () => {
+  browser = await launchBrowser();
+});
+after(async () => {
+  await browser?.close();
+});
 
 test('entrant: sign up → register a boat → enter the demo meeting → declaration check → pay → entry paid → receipt', async () => {
   // The demo seeder's class capped at 102.00 mm: the case of the ISO 14253-1 worked decisions.
@@ -23,7 +27,10 @@ test('entrant: sign up → register a boat → enter the demo meeting → declar
       where c.event_id = $1 and (v.rules->'nozzle'->>'maxMm')::float = 102 order by v.version desc limit 1`,
     [DEMO.meetingId],
   );
-  assert.ok(cls, 'the demo meeting has a class with a 102 mm nozzle maximum (seeders/20261201000200-demo-classes-boats-entries.js)');
+  assert.ok(
+    cls,
+    'the demo meeting has a class with a 102 mm nozzle maximum (seeders/20261201000200-demo-classes-boats-entries.js)',
+  );
 
   const context = await newContext(browser, PHONE);
   const page = await context.newPage();
@@ -62,14 +69,18 @@ test('entrant: sign up → register a boat → enter the demo meeting → declar
   await screenshot(page, 'entrant-02-boat');
 
   // A text file named .pdf is refused with its reason beside the file field; a real PDF is listed.
-  await page.getByLabel('File', { exact: true }).setInputFiles({ name: 'dyno.pdf', mimeType: 'application/pdf', buffer: Buffer.from('only words, not a PDF\n') });
+  await page
+    .getByLabel('File', { exact: true })
+    .setInputFiles({ name: 'dyno.pdf', mimeType: 'application/pdf', buffer: Buffer.from('only words, not a PDF\n') });
   await page.getByRole('button', { name: 'Upload', exact: true }).click();
   const fileError = page.locator('[data-field-error="file"]');
   await fileError.waitFor();
   assert.match(await fileError.innerText(), /plain text.*Allowed: PDF/);
   await screenshot(page, 'entrant-03-upload-refused');
   const pdf = Buffer.from('%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n');
-  await page.getByLabel('File', { exact: true }).setInputFiles({ name: 'dyno-sheet.pdf', mimeType: 'application/pdf', buffer: pdf });
+  await page
+    .getByLabel('File', { exact: true })
+    .setInputFiles({ name: 'dyno-sheet.pdf', mimeType: 'application/pdf', buffer: pdf });
   await page.getByRole('button', { name: 'Upload', exact: true }).click();
   await page.getByTestId('documents').getByRole('link', { name: 'dyno-sheet.pdf' }).waitFor();
 
@@ -108,7 +119,10 @@ test('entrant: sign up → register a boat → enter the demo meeting → declar
   const entryId = new URL(page.url()).searchParams.get('paid')!;
   assert.equal(await page.locator(`[data-entry-id="${entryId}"]`).getByTestId('entry-status').innerText(), 'Entered');
   await screenshot(page, 'entrant-06-entries-paid');
-  const [row] = await query<{ status: string; paid_at: Date | null }>('select status, paid_at from entries where id = $1', [entryId]);
+  const [row] = await query<{ status: string; paid_at: Date | null }>(
+    'select status, paid_at from entries where id = $1',
+    [entryId],
+  );
   assert.equal(row.status, 'entered');
   assert.ok(row.paid_at);
 
@@ -118,14 +132,24 @@ test('entrant: sign up → register a boat → enter the demo meeting → declar
   // At the dock the scrutineer measures 101.97 mm against the 102.00 mm limit with U = 0.05 mm
   // (undecided under ISO 14253-1:2017); My entries then says what the result asks of the entrant, with the caution.
   const [{ rules }] = await query<{ rules: { safetyItems: string[] } }>(
-    `select rules from class_rule_versions where class_id = $1 and status = 'published' order by version desc limit 1`, [cls.id]);
+    `select rules from class_rule_versions where class_id = $1 and status = 'published' order by version desc limit 1`,
+    [cls.id],
+  );
   const scrutineer = new HttpSession();
   await scrutineer.signInWithPassword(DEMO.scrutineer, DEMO_PASSWORD);
-  const recorded = await scrutineer.json(`/api/events/${DEMO.meetingId}/inspections`, inspectionBody(entryId, 101.97, {
-    weight: { readingsKg: [700, 701] }, safety: Object.fromEntries(rules.safetyItems.map((i) => [i, true])),
-  }));
+  const recorded = await scrutineer.json(
+    `/api/events/${DEMO.meetingId}/inspections`,
+    inspectionBody(entryId, 101.97, {
+      weight: { readingsKg: [700, 701] },
+      safety: Object.fromEntries(rules.safetyItems.map((i) => [i, true])),
+    }),
+  );
   assert.equal(recorded.res.status, 201, JSON.stringify(recorded.body));
-  const meaning: Record<string, RegExp> = { conforms: /within the class rules/, does_not_conform: /see the chief scrutineer/, inconclusive: /too close to a limit/ };
+  const meaning: Record<string, RegExp> = {
+    conforms: /within the class rules/,
+    does_not_conform: /see the chief scrutineer/,
+    inconclusive: /too close to a limit/,
+  };
   await page.reload();
   const card = page.locator(`[data-entry-id="${entryId}"]`);
   assert.match(await card.getByTestId('result-meaning').innerText(), meaning[recorded.body.data.overallResult]);

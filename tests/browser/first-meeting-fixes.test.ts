@@ -31,16 +31,26 @@ before(async () => {
   browser = await launchBrowser();
   // A meeting of its own (Pacific/Auckland): the demo steward and scrutineer on its staff, one class
   // with published rules, the demo entrant's boat and another entrant's boat.
-  await meeting.create(`Issue 13 Reach ${Date.now()}`, [{ email: DEMO.steward, role: 'steward' }, { email: DEMO.scrutineer, role: 'scrutineer' }]);
+  await meeting.create(`Issue 13 Reach ${Date.now()}`, [
+    { email: DEMO.steward, role: 'steward' },
+    { email: DEMO.scrutineer, role: 'scrutineer' },
+  ]);
   classId = await meeting.addClass('IX', rulesWith());
   own = await meeting.addEntry(classId);
-  const [someone] = await query<{ email: string }>(`select email from users where email like '%@entrants.example' order by email limit 1`);
+  const [someone] = await query<{ email: string }>(
+    `select email from users where email like '%@entrants.example' order by email limit 1`,
+  );
   other = await meeting.addEntry(classId, { ownerEmail: someone.email });
 });
-after(async () => { await browser?.close(); });
+after(async () => {
+  await browser?.close();
+});
 
 test('item 3: a class with no limits cannot be published; version 2 needs a change note; nothing is stored on refusal', async () => {
-  const created = await meeting.organiser.json(`/api/events/${meeting.eventId}/classes`, { name: 'Blank Rules', code: 'BLANK' });
+  const created = await meeting.organiser.json(`/api/events/${meeting.eventId}/classes`, {
+    name: 'Blank Rules',
+    code: 'BLANK',
+  });
   const blankId = created.body.data.id as string;
   const context = await newContext(browser, DESKTOP);
   const page = await context.newPage();
@@ -50,14 +60,24 @@ test('item 3: a class with no limits cannot be published; version 2 needs a chan
   await page.getByRole('button', { name: 'Publish version 1' }).click();
   const rulesError = page.getByTestId('publish-form').locator('[data-field-error="rules"]');
   await rulesError.waitFor();
-  assert.match(await rulesError.innerText(), /Version 1 limits nothing.*no nozzle exit diameter limit.*no power limit.*no minimum weight/s);
+  assert.match(
+    await rulesError.innerText(),
+    /Version 1 limits nothing.*no nozzle exit diameter limit.*no power limit.*no minimum weight/s,
+  );
   assert.match(await page.getByTestId('publish-form').getByTestId('form-message').innerText(), /Nothing was published/);
   await screenshot(page, 'i13-03-empty-rules-refused');
   const rows = await query<{ status: string }>('select status from class_rule_versions where class_id = $1', [blankId]);
-  assert.deepEqual(rows.map((r) => r.status), ['draft'], 'still one draft, nothing published');
+  assert.deepEqual(
+    rows.map((r) => r.status),
+    ['draft'],
+    'still one draft, nothing published',
+  );
 
   // Set a nozzle limit, save, publish v1; then v2 without a note is refused beside the field.
-  await page.getByLabel(/^Maximum/).first().fill('104');
+  await page
+    .getByLabel(/^Maximum/)
+    .first()
+    .fill('104');
   await page.getByRole('button', { name: 'Save draft v1' }).click();
   await page.getByText('Draft v1 saved.').waitFor();
   await page.getByRole('button', { name: 'Publish version 1' }).click();
@@ -72,11 +92,21 @@ test('item 3: a class with no limits cannot be published; version 2 needs a chan
   assert.match(await noteError.innerText(), /Say what changed from version 1 and why/);
   assert.equal(await page.getByLabel(/What changed and why/).getAttribute('aria-invalid'), 'true');
   await screenshot(page, 'i13-03-change-note-required');
-  assert.deepEqual((await query<{ status: string }>('select status from class_rule_versions where class_id = $1 order by version', [blankId])).map((r) => r.status), ['published', 'draft']);
+  assert.deepEqual(
+    (
+      await query<{ status: string }>('select status from class_rule_versions where class_id = $1 order by version', [
+        blankId,
+      ])
+    ).map((r) => r.status),
+    ['published', 'draft'],
+  );
   await page.getByLabel(/What changed and why/).fill('Minimum weight 600 kg');
   assert.equal(await noteError.count(), 0, 'the field error clears once the note is written');
   await page.getByRole('button', { name: 'Publish version 2' }).click();
-  await page.getByTestId('version-history').getByText(/Version 2 · published/).waitFor();
+  await page
+    .getByTestId('version-history')
+    .getByText(/Version 2 · published/)
+    .waitFor();
 
   // Item 9 on the same screen: the history names the meeting's zone.
   const history = await page.getByTestId('version-history').innerText();
@@ -86,12 +116,19 @@ test('item 3: a class with no limits cannot be published; version 2 needs a chan
 });
 
 test('item 4: typing "Shoal" key by key on a phone searches for the whole word; Enter applies at once; nothing typed is lost', async () => {
-  const [{ n: total }] = await query<{ n: string }>('select count(*) as n from entries where event_id = $1', [DEMO.meetingId]);
-  const matches = async (word: string) => Number((await query<{ n: string }>(
-    `select count(*) as n from entries e join boats b on b.id = e.boat_id join users u on u.id = e.entrant_id
+  const [{ n: total }] = await query<{ n: string }>('select count(*) as n from entries where event_id = $1', [
+    DEMO.meetingId,
+  ]);
+  const matches = async (word: string) =>
+    Number(
+      (
+        await query<{ n: string }>(
+          `select count(*) as n from entries e join boats b on b.id = e.boat_id join users u on u.id = e.entrant_id
       where e.event_id = $1 and (b.name ilike $2 or b.hull_number ilike $2 or coalesce(u.name, '') ilike $2 or u.email ilike $2 or e.race_number::text like $2)`,
-    [DEMO.meetingId, `%${word}%`],
-  ))[0].n);
+          [DEMO.meetingId, `%${word}%`],
+        )
+      )[0].n,
+    );
   const expected = await matches('Shoal');
   assert.ok(expected >= 1 && expected < Number(total), `the demo has boats named Shoal… (${expected} of ${total})`);
 
@@ -105,7 +142,10 @@ test('item 4: typing "Shoal" key by key on a phone searches for the whole word; 
   await page.keyboard.type('Shoal', { delay: 120 });
   assert.equal(await box.inputValue(), 'Shoal', 'every key is kept while the URL updates');
   await page.waitForURL((u) => u.searchParams.get('q') === 'Shoal');
-  await page.waitForFunction((n) => document.querySelector('[data-testid="entries-count"]')?.textContent?.startsWith(`${n} of`), expected);
+  await page.waitForFunction(
+    (n) => document.querySelector('[data-testid="entries-count"]')?.textContent?.startsWith(`${n} of`),
+    expected,
+  );
   assert.equal(await box.inputValue(), 'Shoal');
   await screenshot(page, 'i13-04-search-whole-word');
 
@@ -115,7 +155,10 @@ test('item 4: typing "Shoal" key by key on a phone searches for the whole word; 
   await box.pressSequentially('Sho', { delay: 20 });
   await box.press('Enter');
   await page.waitForURL((u) => u.searchParams.get('q') === 'Sho', { timeout: 250 });
-  await page.waitForFunction((n) => document.querySelector('[data-testid="entries-count"]')?.textContent?.startsWith(`${n} of`), await matches('Sho'));
+  await page.waitForFunction(
+    (n) => document.querySelector('[data-testid="entries-count"]')?.textContent?.startsWith(`${n} of`),
+    await matches('Sho'),
+  );
   // The search survives a reload because it lives in the URL.
   await page.reload();
   assert.equal(await page.getByLabel('Search').inputValue(), 'Sho');
@@ -142,8 +185,17 @@ test('item 6: the results form adds and removes rows; two finishers publish with
   const windowNote = page.locator('section[data-class="IX"]').getByTestId('results-window');
   await windowNote.waitFor();
   assert.match(await windowNote.innerText(), new RegExp(`Protest window open until ${NZ_TIME.source}`));
-  const [row] = await query<{ rows: { position: number; raceNumber: number }[] }>('select rows from provisional_results where class_id = $1 order by version desc limit 1', [classId]);
-  assert.deepEqual(row.rows.map((r) => [r.position, r.raceNumber]), [[1, other.raceNumber], [2, own.raceNumber]]);
+  const [row] = await query<{ rows: { position: number; raceNumber: number }[] }>(
+    'select rows from provisional_results where class_id = $1 order by version desc limit 1',
+    [classId],
+  );
+  assert.deepEqual(
+    row.rows.map((r) => [r.position, r.raceNumber]),
+    [
+      [1, other.raceNumber],
+      [2, own.raceNumber],
+    ],
+  );
 
   // Removing a middle row renumbers the untouched positions below it.
   await page.reload();
@@ -158,8 +210,10 @@ test('item 9: the protest page says "Window closes" for a future deadline and sh
   const entrant = new HttpSession();
   await entrant.signInWithPassword(DEMO.entrant, DEMO_PASSWORD);
   const made = await entrant.json(`/api/events/${meeting.eventId}/protests`, {
-    againstEntryId: other.id, ruleReference: 'IX 2.1 nozzle exit diameter maximum',
-    grounds: 'The nozzle exit looked larger than the class maximum at the dock.', requestedChecks: ['nozzle_diameter'],
+    againstEntryId: other.id,
+    ruleReference: 'IX 2.1 nozzle exit diameter maximum',
+    grounds: 'The nozzle exit looked larger than the class maximum at the dock.',
+    requestedChecks: ['nozzle_diameter'],
   });
   assert.equal(made.res.status, 201, JSON.stringify(made.body));
   protestId = made.body.data.id;
@@ -177,14 +231,16 @@ test('item 9: the protest page says "Window closes" for a future deadline and sh
   await context.close();
 });
 
-test('item 9: the public parity report and its PDF print the publication time in the meeting\'s zone, named', async () => {
+test("item 9: the public parity report and its PDF print the publication time in the meeting's zone, named", async () => {
   // A report needs a conforming boat: readings up to 101.9 mm with U 0.05 mm against a 102 mm maximum
   // conform under ISO 14253-1 (101.9 + 0.05 < 102).
   const scrutineer = new HttpSession();
   await scrutineer.signInWithPassword(DEMO.scrutineer, DEMO_PASSWORD);
   const rec = await scrutineer.json(`/api/events/${meeting.eventId}/inspections`, inspectionBody(own.id, 101.9));
   assert.equal(rec.res.status, 201, JSON.stringify(rec.body));
-  const pub = await meeting.organiser.json(`/api/events/${meeting.eventId}/classes/${classId}/report/publish`, { note: 'issue 13 times' });
+  const pub = await meeting.organiser.json(`/api/events/${meeting.eventId}/classes/${classId}/report/publish`, {
+    note: 'issue 13 times',
+  });
   assert.equal(pub.res.status, 201, JSON.stringify(pub.body));
   const publicId = pub.body.data.publicId as string;
   const context = await newContext(browser, DESKTOP);
@@ -204,11 +260,26 @@ test('item 5: the audit trail reads as sentences with links, money and zoned tim
   // and protest lines come from the tests above and from the setup).
   const steward = new HttpSession();
   await steward.signInWithPassword(DEMO.steward, DEMO_PASSWORD);
-  const taken = await steward.json(`/api/events/${meeting.eventId}/custody`, { raceNumber: own.raceNumber, description: 'Impeller', sealNumber: 'BAG-1313' });
+  const taken = await steward.json(`/api/events/${meeting.eventId}/custody`, {
+    raceNumber: own.raceNumber,
+    description: 'Impeller',
+    sealNumber: 'BAG-1313',
+  });
   assert.equal(taken.res.status, 201, JSON.stringify(taken.body));
-  assert.equal((await steward.json(`/api/events/${meeting.eventId}/custody/${taken.body.data.id}/release`, { releasedTo: 'the entrant' })).res.status, 200);
+  assert.equal(
+    (
+      await steward.json(`/api/events/${meeting.eventId}/custody/${taken.body.data.id}/release`, {
+        releasedTo: 'the entrant',
+      })
+    ).res.status,
+    200,
+  );
   const invited = uniqueEmail('i13-invite');
-  assert.equal((await meeting.organiser.json(`/api/events/${meeting.eventId}/staff`, { email: invited, role: 'scrutineer' })).res.status, 201);
+  assert.equal(
+    (await meeting.organiser.json(`/api/events/${meeting.eventId}/staff`, { email: invited, role: 'scrutineer' })).res
+      .status,
+    201,
+  );
   assert.ok(protestId, 'the protest lodged in the item 9 test');
 
   const context = await newContext(browser, PHONE);
@@ -217,8 +288,11 @@ test('item 5: the audit trail reads as sentences with links, money and zoned tim
   await page.goto(`/stewards/${meeting.eventId}/audit`);
   const trail = page.getByTestId('audit-trail');
   await trail.waitFor();
-  const kinds = new Set(await trail.locator('li[data-kind]').evaluateAll((els) => els.map((e) => e.getAttribute('data-kind'))));
-  for (const k of ['protest', 'results', 'inspection', 'rules', 'custody', 'staff']) assert.ok(kinds.has(k), `the trail covers ${k}`);
+  const kinds = new Set(
+    await trail.locator('li[data-kind]').evaluateAll((els) => els.map((e) => e.getAttribute('data-kind'))),
+  );
+  for (const k of ['protest', 'results', 'inspection', 'rules', 'custody', 'staff'])
+    assert.ok(kinds.has(k), `the trail covers ${k}`);
 
   const text = await trail.innerText();
   // Codes, ids and minor units stay inside the closed disclosures.
@@ -226,20 +300,54 @@ test('item 5: the audit trail reads as sentences with links, money and zoned tim
   const submitted = trail.locator('li[data-action="protest.submitted"]');
   const sentence = await submitted.getByTestId('audit-sentence').innerText();
   assert.match(sentence, /submitted the protest against boat #\d+ .* under IX 2\.1/);
-  assert.match(sentence, /fee of 30\.00 NZD/, 'money as money in the meeting\'s currency');
+  assert.match(sentence, /fee of 30\.00 NZD/, "money as money in the meeting's currency");
   assert.match(sentence, new RegExp(`window closes ${NZ_TIME.source}`));
-  assert.equal(await submitted.getByRole('link', { name: 'the protest' }).getAttribute('href'), `/stewards/${meeting.eventId}/protests/${protestId}`);
-  assert.equal(await submitted.getByRole('link', { name: new RegExp(`boat #${other.raceNumber}`) }).getAttribute('href'), `/organise/events/${meeting.eventId}/entries?q=${other.raceNumber}`);
-  assert.match(await submitted.locator('p').first().innerText(), NZ_TIME, 'each line\'s time names the zone');
+  assert.equal(
+    await submitted.getByRole('link', { name: 'the protest' }).getAttribute('href'),
+    `/stewards/${meeting.eventId}/protests/${protestId}`,
+  );
+  assert.equal(
+    await submitted.getByRole('link', { name: new RegExp(`boat #${other.raceNumber}`) }).getAttribute('href'),
+    `/organise/events/${meeting.eventId}/entries?q=${other.raceNumber}`,
+  );
+  assert.match(await submitted.locator('p').first().innerText(), NZ_TIME, "each line's time names the zone");
 
-  const inspection = await trail.locator('li[data-kind="inspection"]').first().getByTestId('audit-sentence').innerText();
-  assert.match(inspection, new RegExp(`recorded an inspection of boat #${own.raceNumber} .* under the IX rules version 1: (conforms|does not conform|inconclusive)`));
-  assert.match(await trail.locator('li[data-action="rules.published"]').filter({ hasText: 'IX class' }).innerText(), /published version 1 of the rules of the IX class, in force from/);
-  assert.match(await trail.locator('li[data-action="custody.released"]').first().innerText(), /released Impeller \(seal or bag BAG-1313\) of boat #\d+ .* to the entrant/);
-  assert.match(await trail.locator('li[data-action="staff.invited"]').first().innerText(), new RegExp(`invited ${invited.replace(/[.]/g, '\\.')} to the meeting's staff as scrutineer`));
-  assert.match(await trail.locator('li[data-action="staff.added"]').first().innerText(), /added .*(steward|scrutineer)@tarnwater\.example.* to the meeting's staff as (steward|scrutineer)\./);
-  assert.match(await trail.locator('li[data-action="results.published"]').first().innerText(), /published version 1 of the provisional results of the IX class \(2 finishers, typed in\)/);
-  assert.match(await page.locator('aside[role="note"]').filter({ hasText: 'Safety first' }).innerText(), /licensed officials decide/i, 'the safety caution sits beside verdicts');
+  const inspection = await trail
+    .locator('li[data-kind="inspection"]')
+    .first()
+    .getByTestId('audit-sentence')
+    .innerText();
+  assert.match(
+    inspection,
+    new RegExp(
+      `recorded an inspection of boat #${own.raceNumber} .* under the IX rules version 1: (conforms|does not conform|inconclusive)`,
+    ),
+  );
+  assert.match(
+    await trail.locator('li[data-action="rules.published"]').filter({ hasText: 'IX class' }).innerText(),
+    /published version 1 of the rules of the IX class, in force from/,
+  );
+  assert.match(
+    await trail.locator('li[data-action="custody.released"]').first().innerText(),
+    /released Impeller \(seal or bag BAG-1313\) of boat #\d+ .* to the entrant/,
+  );
+  assert.match(
+    await trail.locator('li[data-action="staff.invited"]').first().innerText(),
+    new RegExp(`invited ${invited.replace(/[.]/g, '\\.')} to the meeting's staff as scrutineer`),
+  );
+  assert.match(
+    await trail.locator('li[data-action="staff.added"]').first().innerText(),
+    /added .*(steward|scrutineer)@tarnwater\.example.* to the meeting's staff as (steward|scrutineer)\./,
+  );
+  assert.match(
+    await trail.locator('li[data-action="results.published"]').first().innerText(),
+    /published version 1 of the provisional results of the IX class \(2 finishers, typed in\)/,
+  );
+  assert.match(
+    await page.locator('aside[role="note"]').filter({ hasText: 'Safety first' }).innerText(),
+    /licensed officials decide/i,
+    'the safety caution sits beside verdicts',
+  );
   await screenshot(page, 'i13-05-audit-sentences');
 
   // The raw detail is one tap away.
@@ -250,7 +358,9 @@ test('item 5: the audit trail reads as sentences with links, money and zoned tim
   await page.getByTestId('audit-kinds').getByRole('link', { name: 'Inspections' }).click();
   await page.waitForURL((u) => u.searchParams.get('kind') === 'inspection');
   await trail.waitFor();
-  const filtered = await trail.locator('li[data-kind]').evaluateAll((els) => els.map((e) => e.getAttribute('data-kind')));
+  const filtered = await trail
+    .locator('li[data-kind]')
+    .evaluateAll((els) => els.map((e) => e.getAttribute('data-kind')));
   assert.ok(filtered.length >= 1 && filtered.every((k) => k === 'inspection'), filtered.join(','));
   await screenshot(page, 'i13-05-audit-filtered');
   await context.close();

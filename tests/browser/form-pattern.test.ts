@@ -19,7 +19,9 @@ before(async () => {
   browser = await launchBrowser();
   await meeting.create(`Form Pattern Meeting ${Date.now()}`, []);
 });
-after(async () => { await browser?.close(); });
+after(async () => {
+  await browser?.close();
+});
 
 async function organiserOnMeeting(): Promise<Page> {
   const page = await (await newContext(browser, PHONE)).newPage();
@@ -28,7 +30,10 @@ async function organiserOnMeeting(): Promise<Page> {
   return page;
 }
 
-const classCount = async () => Number((await query<{ n: string }>('select count(*) as n from race_classes where event_id = $1', [meeting.eventId]))[0].n);
+const classCount = async () =>
+  Number(
+    (await query<{ n: string }>('select count(*) as n from race_classes where event_id = $1', [meeting.eventId]))[0].n,
+  );
 
 test('a route handler refuses the new-class form: the error sits beside its field, the summary above the button, nothing typed is lost', async () => {
   const page = await organiserOnMeeting();
@@ -46,7 +51,11 @@ test('a route handler refuses the new-class form: the error sits beside its fiel
   const message = form.getByTestId('form-message');
   assert.match(await message.innerText(), /Check the fields marked above: nothing was saved yet/);
   assert.equal(await message.getAttribute('aria-live'), 'polite');
-  const [m, b, e] = [await message.boundingBox(), await page.getByRole('button', { name: 'Add class' }).boundingBox(), await nameError.boundingBox()];
+  const [m, b, e] = [
+    await message.boundingBox(),
+    await page.getByRole('button', { name: 'Add class' }).boundingBox(),
+    await nameError.boundingBox(),
+  ];
   assert.ok(m && b && e && e.y < m.y && m.y < b.y, 'field error, then the summary, then the button');
   assert.equal(await page.getByLabel('Short code').inputValue(), 'FP-1', 'what was typed stays');
   assert.equal(await page.getByLabel('Description').inputValue(), 'Written once, kept through a refusal');
@@ -63,14 +72,22 @@ test('the button is disabled while the action runs, and a lost connection is sai
   await page.getByLabel('Short code').fill('FP-2');
   // Hold the request so the pending state can be read, then drop it as a lost signal would.
   let release: () => void = () => {};
-  const held = new Promise<void>((r) => { release = r; });
-  await page.route(`**/api/events/${meeting.eventId}/classes`, async (route) => { await held; await route.abort('internetdisconnected'); });
+  const held = new Promise<void>((r) => {
+    release = r;
+  });
+  await page.route(`**/api/events/${meeting.eventId}/classes`, async (route) => {
+    await held;
+    await route.abort('internetdisconnected');
+  });
   await page.getByRole('button', { name: 'Add class' }).click();
   const busy = page.getByRole('button', { name: 'Adding…' });
   await busy.waitFor();
   assert.ok(await busy.isDisabled(), 'disabled while pending');
   release();
-  const message = page.locator('form').filter({ has: page.getByRole('button', { name: 'Add class' }) }).getByTestId('form-message');
+  const message = page
+    .locator('form')
+    .filter({ has: page.getByRole('button', { name: 'Add class' }) })
+    .getByTestId('form-message');
   await message.filter({ hasText: /\S/ }).waitFor();
   assert.equal(await message.innerText(), 'No connection to the server: nothing was saved. Try again.');
   assert.equal(await page.getByLabel('Class name').inputValue(), 'Held Class');
@@ -89,15 +106,26 @@ test('the button is disabled while the action runs, and a lost connection is sai
 test('confirm-step buttons are forms too: the entrant withdraws an unpaid entry; the organiser cancels one with a reason', async () => {
   const classId = await meeting.addClass('FPW', rulesWith());
   const [toWithdraw, toCancel] = [await meeting.addEntry(classId), await meeting.addEntry(classId)];
-  await query(`update entries set status = 'awaiting_payment', paid_at = null where id = any($1::uuid[])`, [[toWithdraw.id, toCancel.id]]);
-  const statusOf = async (id: string) => (await query<{ status: string; cancelled_reason: string | null }>('select status, cancelled_reason from entries where id = $1', [id]))[0];
+  await query(`update entries set status = 'awaiting_payment', paid_at = null where id = any($1::uuid[])`, [
+    [toWithdraw.id, toCancel.id],
+  ]);
+  const statusOf = async (id: string) =>
+    (
+      await query<{ status: string; cancelled_reason: string | null }>(
+        'select status, cancelled_reason from entries where id = $1',
+        [id],
+      )
+    )[0];
 
   const entrant = await (await newContext(browser, PHONE)).newPage();
   await signInWithPassword(entrant, DEMO.entrant, DEMO_PASSWORD);
   await entrant.goto('/entries');
   const card = entrant.locator(`li[data-entry-id="${toWithdraw.id}"]`);
   await card.getByRole('button', { name: 'Withdraw' }).click();
-  await card.getByRole('alertdialog', { name: 'Withdraw this entry?' }).getByRole('button', { name: 'Yes, withdraw' }).click();
+  await card
+    .getByRole('alertdialog', { name: 'Withdraw this entry?' })
+    .getByRole('button', { name: 'Yes, withdraw' })
+    .click();
   await card.getByTestId('entry-status').filter({ hasText: 'Withdrawn' }).waitFor();
   assert.equal((await statusOf(toWithdraw.id)).status, 'withdrawn');
   await entrant.context().close();
@@ -109,6 +137,9 @@ test('confirm-step buttons are forms too: the entrant withdraws an unpaid entry;
   organiser.once('dialog', (d) => void d.accept('Hull does not match the declaration'));
   await row.getByRole('button', { name: 'Cancel' }).click();
   await row.filter({ hasText: 'Cancelled' }).waitFor();
-  assert.deepEqual(await statusOf(toCancel.id), { status: 'cancelled', cancelled_reason: 'Hull does not match the declaration' });
+  assert.deepEqual(await statusOf(toCancel.id), {
+    status: 'cancelled',
+    cancelled_reason: 'Hull does not match the declaration',
+  });
   await organiser.context().close();
 });

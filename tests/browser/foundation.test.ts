@@ -3,12 +3,24 @@
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import type { Browser } from 'playwright-core';
-import { confirmAddressInBrowser, launchBrowser, newContext, screenshot, signInWithPassword, signOut, PHONE } from '../support/browser';
+import {
+  confirmAddressInBrowser,
+  launchBrowser,
+  newContext,
+  screenshot,
+  signInWithPassword,
+  signOut,
+  PHONE,
+} from '../support/browser';
 import { DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
 
 let browser: Browser;
-before(async () => { browser = await launchBrowser(); });
-after(async () => { await browser?.close(); });
+before(async () => {
+  browser = await launchBrowser();
+});
+after(async () => {
+  await browser?.close();
+});
 
 test('landing → sign up as entrant → sign out → organiser → entrant refused an organiser page', async () => {
   const context = await newContext(browser, PHONE);

@@ -9,12 +9,17 @@ import { DEMO, DEMO_PASSWORD } from '../support/env';
 import { InspectionMeeting, rulesWith } from '../support/inspection-meeting';
 
 let browser: Browser;
-before(async () => { browser = await launchBrowser(); });
-after(async () => { await browser?.close(); });
+before(async () => {
+  browser = await launchBrowser();
+});
+after(async () => {
+  await browser?.close();
+});
 
 test('chief scrutineer on a phone lists, adds and retires instruments; the dock follows', async () => {
   const meeting = await new InspectionMeeting().create(`Instrument screen ${Date.now()}`, [
-    { email: DEMO.chief, role: 'chief_scrutineer' }, { email: DEMO.scrutineer, role: 'scrutineer' },
+    { email: DEMO.chief, role: 'chief_scrutineer' },
+    { email: DEMO.scrutineer, role: 'scrutineer' },
   ]);
   const classId = await meeting.addClass('IS', rulesWith());
   const entry = await meeting.addEntry(classId);
@@ -51,7 +56,11 @@ test('chief scrutineer on a phone lists, adds and retires instruments; the dock 
   await dock.getByRole('button', { name: 'Find', exact: true }).click();
   await dock.getByTestId('inspection-form').waitFor();
   assert.equal(await dock.getByLabel('From the instrument used').isEnabled(), true);
-  assert.ok((await dock.getByLabel('Instrument used', { exact: true }).locator('option').allInnerTexts()).some((t) => t.startsWith(name)));
+  assert.ok(
+    (await dock.getByLabel('Instrument used', { exact: true }).locator('option').allInnerTexts()).some((t) =>
+      t.startsWith(name),
+    ),
+  );
 
   // Retired: kept in the list as retired, no longer offered at the dock.
   await listed.getByRole('button', { name: 'Retire…' }).click();
@@ -64,7 +73,11 @@ test('chief scrutineer on a phone lists, adds and retires instruments; the dock 
   await dock.getByLabel('Race number or tag code').fill(String(entry.raceNumber));
   await dock.getByRole('button', { name: 'Find', exact: true }).click();
   await dock.getByTestId('inspection-form').waitFor();
-  assert.equal(await dock.getByLabel('From the instrument used').isEnabled(), false, 'a retired instrument is not offered');
+  assert.equal(
+    await dock.getByLabel('From the instrument used').isEnabled(),
+    false,
+    'a retired instrument is not offered',
+  );
   await dock.getByTestId('no-instruments').waitFor();
   await chiefCtx.close();
   await dockCtx.close();

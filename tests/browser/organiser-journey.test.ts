@@ -9,8 +9,12 @@ import { DEMO, DEMO_PASSWORD } from '../support/env';
 import { query } from '../support/db';
 
 let browser: Browser;
-before(async () => { browser = await launchBrowser(); });
-after(async () => { await browser?.close(); });
+before(async () => {
+  browser = await launchBrowser();
+});
+after(async () => {
+  await browser?.close();
+});
 
 test('organiser: entries table filtered by class, and the tag sheet downloads as a PDF', async () => {
   const context = await newContext(browser, { ...PHONE, acceptDownloads: true });
@@ -18,7 +22,9 @@ test('organiser: entries table filtered by class, and the tag sheet downloads as
   await signInWithPassword(page, DEMO.organiser, DEMO_PASSWORD);
   await page.goto(`/organise/events/${DEMO.meetingId}/entries`);
   await page.getByTestId('entries-table').waitFor();
-  const [{ n: total }] = await query<{ n: string }>('select count(*) as n from entries where event_id = $1', [DEMO.meetingId]);
+  const [{ n: total }] = await query<{ n: string }>('select count(*) as n from entries where event_id = $1', [
+    DEMO.meetingId,
+  ]);
   assert.match(await page.getByTestId('entries-count').innerText(), new RegExp(`of ${total} entries`));
 
   const [{ id: rrId, n: rrCount }] = await query<{ id: string; n: string }>(
@@ -41,7 +47,10 @@ test('organiser: entries table filtered by class, and the tag sheet downloads as
   const path = await download.path();
   const bytes = await (await import('node:fs/promises')).readFile(path!);
   const pdf = await PDFDocument.load(bytes);
-  const [{ n: live }] = await query<{ n: string }>(`select count(*) as n from entries where event_id = $1 and status in ('awaiting_payment','entered')`, [DEMO.meetingId]);
+  const [{ n: live }] = await query<{ n: string }>(
+    `select count(*) as n from entries where event_id = $1 and status in ('awaiting_payment','entered')`,
+    [DEMO.meetingId],
+  );
   assert.equal(pdf.getPageCount(), Math.ceil(Number(live) / 14), '14 labels per A4 sheet');
   await context.close();
 });
@@ -50,7 +59,10 @@ test('organiser: saving rules after publication opens a new draft and the histor
   const context = await newContext(browser);
   const page = await context.newPage();
   await signInWithPassword(page, DEMO.organiser, DEMO_PASSWORD);
-  const [{ id: ssId }] = await query<{ id: string }>(`select id from race_classes where event_id = $1 and code = 'SS'`, [DEMO.meetingId]);
+  const [{ id: ssId }] = await query<{ id: string }>(
+    `select id from race_classes where event_id = $1 and code = 'SS'`,
+    [DEMO.meetingId],
+  );
   await page.goto(`/organise/events/${DEMO.meetingId}/classes/${ssId}`);
   await page.getByLabel('Minimum all-up weight').fill('660');
   await page.getByRole('button', { name: /Save as new draft v2|Save draft v\d/ }).click();

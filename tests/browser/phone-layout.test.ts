@@ -24,19 +24,28 @@ before(async () => {
   browser = await launchBrowser();
   // A meeting of this test's own: a class with a weight minimum and three safety items, so the dock form is at its longest.
   await meeting.create(`Phone Layout Meeting ${Date.now()}`, [{ email: DEMO.scrutineer, role: 'scrutineer' }]);
-  const classId = await meeting.addClass('PHN', rulesWith({
-    weight: { minKg: 680, includesDriver: true, defaultUncertaintyKg: 1 },
-    safetyItems: ['helmet', 'kill_switch', 'fire_extinguisher'],
-  }));
+  const classId = await meeting.addClass(
+    'PHN',
+    rulesWith({
+      weight: { minKg: 680, includesDriver: true, defaultUncertaintyKg: 1 },
+      safetyItems: ['helmet', 'kill_switch', 'fire_extinguisher'],
+    }),
+  );
   entry = await meeting.addEntry(classId);
   // Provisional results, so the demo entrant (who owns the entry) can open the protest form at this meeting.
   const other = await meeting.addEntry(classId, { ownerEmail: DEMO.chief });
   const { res, body } = await meeting.organiser.json(`/api/events/${meeting.eventId}/results`, {
-    classId, rows: [{ position: 1, raceNumber: other.raceNumber }, { position: 2, raceNumber: entry.raceNumber }],
+    classId,
+    rows: [
+      { position: 1, raceNumber: other.raceNumber },
+      { position: 2, raceNumber: entry.raceNumber },
+    ],
   });
   assert.equal(res.status, 201, JSON.stringify(body));
 });
-after(async () => { await browser?.close(); });
+after(async () => {
+  await browser?.close();
+});
 
 async function box(locator: Locator) {
   const b = await locator.boundingBox();
@@ -56,12 +65,16 @@ async function assertNavFits(page: Page, expected: string[]) {
   const nav = page.getByTestId('main-nav');
   const links = nav.getByRole('link');
   const labels = (await links.allInnerTexts()).map((t) => t.trim());
-  for (const name of expected) assert.ok(labels.includes(name), `"${name}" is in the navigation (${labels.join(', ')})`);
+  for (const name of expected)
+    assert.ok(labels.includes(name), `"${name}" is in the navigation (${labels.join(', ')})`);
   for (let i = 0; i < (await links.count()); i++) {
     const link = links.nth(i);
     assert.ok(await link.isVisible(), `${labels[i]} is visible`);
     const b = await box(link);
-    assert.ok(b.x >= 0 && b.x + b.width <= VIEWPORT.width + 0.5, `${labels[i]} lies inside the 390 px screen (x ${b.x.toFixed(0)}, width ${b.width.toFixed(0)})`);
+    assert.ok(
+      b.x >= 0 && b.x + b.width <= VIEWPORT.width + 0.5,
+      `${labels[i]} lies inside the 390 px screen (x ${b.x.toFixed(0)}, width ${b.width.toFixed(0)})`,
+    );
     assert.ok(b.height >= TOUCH_PX, `${labels[i]} is ${b.height.toFixed(0)} px tall`);
   }
   const overflow = await page.locator('nav[aria-label="Main"]').evaluate((el) => el.scrollWidth - el.clientWidth);
@@ -79,7 +92,13 @@ test('phone navigation: the organiser and the scrutineer see every destination t
   const href = (await last.getAttribute('href')) ?? '';
   await last.click();
   await org.waitForURL((u) => u.pathname === href);
-  assert.equal(await org.getByTestId('main-nav').getByRole('link', { name: names[names.length - 1], exact: true }).getAttribute('aria-current'), 'page');
+  assert.equal(
+    await org
+      .getByTestId('main-nav')
+      .getByRole('link', { name: names[names.length - 1], exact: true })
+      .getAttribute('aria-current'),
+    'page',
+  );
   await org.context().close();
 
   const scr = await phonePage(DEMO.scrutineer);
@@ -105,7 +124,10 @@ test('dock on a phone: Record stays on screen while the top of the form is read,
   assert.ok(formHeight > VIEWPORT.height * 2, `the form is long (${formHeight.toFixed(0)} px), so this matters`);
   const record = page.getByTestId('record-inspection');
   const r = await box(record);
-  assert.ok(r.y >= 0 && r.y + r.height <= VIEWPORT.height, `Record is inside the screen (top ${r.y.toFixed(0)} px of ${VIEWPORT.height})`);
+  assert.ok(
+    r.y >= 0 && r.y + r.height <= VIEWPORT.height,
+    `Record is inside the screen (top ${r.y.toFixed(0)} px of ${VIEWPORT.height})`,
+  );
   assert.ok(r.height >= TOUCH_PX);
   await screenshot(page, 'phone-03-dock-form-top');
   await page.screenshot({ path: `${ARTIFACTS}/phone-03-dock-form-top-viewport.png` });
@@ -120,7 +142,10 @@ test('dock on a phone: Record stays on screen while the top of the form is read,
   await index.getByRole('link', { name: 'Seals', exact: true }).click();
   await page.waitForFunction(() => location.hash === '#dock-seals');
   const seals = await box(page.getByRole('group', { name: 'Seals applied' }));
-  assert.ok(seals.y >= -1 && seals.y < VIEWPORT.height / 2, `the Seals section is at the top of the screen (y ${seals.y.toFixed(0)})`);
+  assert.ok(
+    seals.y >= -1 && seals.y < VIEWPORT.height / 2,
+    `the Seals section is at the top of the screen (y ${seals.y.toFixed(0)})`,
+  );
   const r2 = await box(record);
   assert.ok(r2.y + r2.height <= VIEWPORT.height, 'Record still on screen after the jump');
   await screenshot(page, 'phone-04-dock-seals');
@@ -131,7 +156,8 @@ test('dock on a phone: Record stays on screen while the top of the form is read,
   assert.equal(await notes.count(), 1, 'one safety caution on the dock screen');
 
   // Record from the bar; the verdict is brought into view.
-  for (const [i, d] of [101.5, 101.6, 101.7].entries()) await page.getByLabel(`Reading ${i + 1} diameter`).fill(String(d));
+  for (const [i, d] of [101.5, 101.6, 101.7].entries())
+    await page.getByLabel(`Reading ${i + 1} diameter`).fill(String(d));
   await page.getByLabel('I know U (type it)').check();
   await page.getByLabel('Expanded uncertainty U (k = 2)').fill('0.05');
   await page.getByLabel('Weighing 1').fill('690');
@@ -159,12 +185,18 @@ test('touch targets: protest checkboxes and breadcrumbs are at least 44 px; butt
   for (let i = 0; i < (await checks.count()); i++) {
     const cb = checks.nth(i);
     const b = await box(cb);
-    assert.ok(b.width >= WCAG_MIN_PX && b.height >= WCAG_MIN_PX, `the box itself is ${b.width.toFixed(1)} x ${b.height.toFixed(1)} px (WCAG 2.2 SC 2.5.8: 24)`);
+    assert.ok(
+      b.width >= WCAG_MIN_PX && b.height >= WCAG_MIN_PX,
+      `the box itself is ${b.width.toFixed(1)} x ${b.height.toFixed(1)} px (WCAG 2.2 SC 2.5.8: 24)`,
+    );
     // The hit area is the whole label row; a tap at its far edge ticks the box.
     const label = cb.locator('xpath=ancestor::label');
     await label.scrollIntoViewIfNeeded();
     const lb = await box(label);
-    assert.ok(lb.height >= TOUCH_PX && lb.width >= TOUCH_PX, `the label row is ${lb.width.toFixed(0)} x ${lb.height.toFixed(0)} px`);
+    assert.ok(
+      lb.height >= TOUCH_PX && lb.width >= TOUCH_PX,
+      `the label row is ${lb.width.toFixed(0)} x ${lb.height.toFixed(0)} px`,
+    );
     if (await cb.isEnabled()) {
       const before = await cb.isChecked();
       await ent.mouse.click(lb.x + lb.width - 4, lb.y + lb.height / 2);
@@ -189,15 +221,23 @@ test('touch targets: protest checkboxes and breadcrumbs are at least 44 px; butt
     const crumbs = org.getByRole('navigation', { name: 'Breadcrumb' }).getByRole('link');
     for (let i = 0; i < (await crumbs.count()); i++) {
       const b = await box(crumbs.nth(i));
-      if (b.height < TOUCH_PX || b.width < TOUCH_PX) small.push(`${url}: breadcrumb "${await crumbs.nth(i).innerText()}" ${b.width.toFixed(0)} x ${b.height.toFixed(0)}`);
+      if (b.height < TOUCH_PX || b.width < TOUCH_PX)
+        small.push(
+          `${url}: breadcrumb "${await crumbs.nth(i).innerText()}" ${b.width.toFixed(0)} x ${b.height.toFixed(0)}`,
+        );
     }
     // Buttons, selects and text fields: the controls people tap (inline links in running text are exempt under SC 2.5.8).
     const found = await org.locator('main').evaluate((main) => {
       const out: string[] = [];
-      for (const el of main.querySelectorAll<HTMLElement>('button, select, input:not([type="hidden"]):not([type="checkbox"]):not([type="radio"]), textarea')) {
+      for (const el of main.querySelectorAll<HTMLElement>(
+        'button, select, input:not([type="hidden"]):not([type="checkbox"]):not([type="radio"]), textarea',
+      )) {
         const r = el.getBoundingClientRect();
         if (r.width === 0 || r.height === 0) continue; // not shown
-        if (r.height < 44) out.push(`${el.tagName.toLowerCase()} "${(el.textContent || el.getAttribute('aria-label') || el.getAttribute('name') || '').trim().slice(0, 30)}" ${r.width.toFixed(0)} x ${r.height.toFixed(0)}`);
+        if (r.height < 44)
+          out.push(
+            `${el.tagName.toLowerCase()} "${(el.textContent || el.getAttribute('aria-label') || el.getAttribute('name') || '').trim().slice(0, 30)}" ${r.width.toFixed(0)} x ${r.height.toFixed(0)}`,
+          );
       }
       return out;
     });

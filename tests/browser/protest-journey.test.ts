@@ -17,8 +17,12 @@ import { query } from '../support/db';
 import { extractPdfText } from '../support/pdf-text';
 
 let browser: Browser;
-before(async () => { browser = await launchBrowser(); });
-after(async () => { await browser?.close(); });
+before(async () => {
+  browser = await launchBrowser();
+});
+after(async () => {
+  await browser?.close();
+});
 
 test('results published → entrant lodges and pays → photo evidence intact → steward accepts, orders a re-inspection, upholds → entrant sees the refund and the PDF', async () => {
   // Confirmed entries of one class at the demo meeting: the entrant's own boat and two others.
@@ -41,9 +45,13 @@ test('results published → entrant lodges and pays → photo evidence intact �
   await office.goto(`/organise/events/${DEMO.meetingId}/results`);
   await office.locator('#results-class').selectOption(own.class_id);
   const numbers = [target.race_number, own.race_number, others[1].race_number];
-  for (const [i, n] of numbers.entries()) await office.getByLabel(`Race number ${i + 1}`, { exact: true }).fill(String(n));
+  for (const [i, n] of numbers.entries())
+    await office.getByLabel(`Race number ${i + 1}`, { exact: true }).fill(String(n));
   await office.getByRole('button', { name: 'Publish provisional results' }).click();
-  const windowNote = office.locator(`section[data-class]`).filter({ has: office.getByTestId('results-table') }).getByTestId('results-window');
+  const windowNote = office
+    .locator(`section[data-class]`)
+    .filter({ has: office.getByTestId('results-table') })
+    .getByTestId('results-window');
   await windowNote.waitFor();
   assert.match(await windowNote.innerText(), /Protest window open until .* UTC\+1[23]:00 \(Pacific\/Auckland\)/);
   await screenshot(office, 'protest-01-results-published');
@@ -66,9 +74,15 @@ test('results published → entrant lodges and pays → photo evidence intact �
   const groundsError = page.locator('[data-field-error="grounds"]');
   await groundsError.waitFor();
   assert.match(await groundsError.innerText(), /Write the grounds/);
-  assert.equal((await query('select 1 from protests where against_entry_id = $1', [target.id])).length, 0, 'nothing stored for the refused form');
+  assert.equal(
+    (await query('select 1 from protests where against_entry_id = $1', [target.id])).length,
+    0,
+    'nothing stored for the refused form',
+  );
   await screenshot(page, 'protest-02-lodge-form-error');
-  await page.getByLabel('Grounds', { exact: true }).fill(`Boat #${target.race_number} looked over the nozzle limit at the dock after heat 1.`);
+  await page
+    .getByLabel('Grounds', { exact: true })
+    .fill(`Boat #${target.race_number} looked over the nozzle limit at the dock after heat 1.`);
   await page.getByRole('button', { name: 'Lodge and pay the fee' }).click();
   await page.waitForURL(/\/pay\/cs_/);
   assert.match(await page.locator('body').innerText(), /50\.00/);
@@ -76,18 +90,27 @@ test('results published → entrant lodges and pays → photo evidence intact �
   await page.getByRole('button', { name: 'Pay now' }).click();
   await page.waitForURL(/\/protests\/[0-9a-f-]{36}\?paid=1/);
   const protestId = new URL(page.url()).pathname.split('/').pop()!;
-  await page.getByTestId('payment-banner').filter({ hasText: 'Fee received — your protest is lodged' }).waitFor({ timeout: 20_000 });
+  await page
+    .getByTestId('payment-banner')
+    .filter({ hasText: 'Fee received — your protest is lodged' })
+    .waitFor({ timeout: 20_000 });
   assert.equal(await page.getByTestId('protest-status').getAttribute('data-status'), 'lodged');
 
   const img = new PNG({ width: 16, height: 12 });
   for (let i = 0; i < img.data.length; i += 4) img.data.set([200, (i / 4) % 255, 40, 255], i);
   const photo = PNG.sync.write(img);
-  await page.getByLabel('Photo, PDF or video').setInputFiles({ name: 'nozzle-dock.png', mimeType: 'image/png', buffer: photo });
+  await page
+    .getByLabel('Photo, PDF or video')
+    .setInputFiles({ name: 'nozzle-dock.png', mimeType: 'image/png', buffer: photo });
   await page.getByRole('button', { name: 'Add the file' }).click();
   const item = page.getByTestId('evidence-list').locator('li[data-kind="file"]');
   await item.waitFor();
   assert.equal(await item.getByTestId('integrity').getAttribute('data-integrity'), 'intact');
-  assert.equal(await item.getByTestId('evidence-sha256').innerText(), createHash('sha256').update(photo).digest('hex'), 'SHA-256 by node:crypto');
+  assert.equal(
+    await item.getByTestId('evidence-sha256').innerText(),
+    createHash('sha256').update(photo).digest('hex'),
+    'SHA-256 by node:crypto',
+  );
   await screenshot(page, 'protest-04-lodged-with-evidence');
 
   const desk = await newContext(browser);
@@ -103,7 +126,9 @@ test('results published → entrant lodges and pays → photo evidence intact �
   await sp.locator('#reinspection-reason').fill('Measure the nozzle exit diameter at four points, 45 degrees apart.');
   await sp.getByRole('button', { name: 'Order the re-inspection' }).click();
   await sp.getByTestId('reinspections').locator('li').waitFor();
-  const [task] = await query<{ entry_id: string }>('select entry_id from reinspections where protest_id = $1', [protestId]);
+  const [task] = await query<{ entry_id: string }>('select entry_id from reinspections where protest_id = $1', [
+    protestId,
+  ]);
   assert.equal(task.entry_id, target.id, 'the task is for the protested boat and names the protest');
   await screenshot(sp, 'protest-05-steward-accepted');
   // A hearing set for tomorrow: deciding before it asks once for confirmation.
@@ -113,7 +138,9 @@ test('results published → entrant lodges and pays → photo evidence intact �
   await sp.getByRole('button', { name: 'Schedule and tell the parties' }).click();
   await sp.getByRole('form', { name: 'Schedule the hearing' }).getByText('Schedule the hearing: done.').waitFor();
   await sp.getByLabel('Upheld (fee refunded)').check();
-  await sp.locator('#decision-reasons').fill('The re-inspection found the largest two-point diameter above the class maximum.');
+  await sp
+    .locator('#decision-reasons')
+    .fill('The re-inspection found the largest two-point diameter above the class maximum.');
   await sp.locator('#decision-penalty').fill('Excluded from the results of heat 1.');
   await sp.getByRole('button', { name: 'Record the decision' }).click();
   const confirm = sp.getByTestId('confirm-first');
@@ -132,7 +159,10 @@ test('results published → entrant lodges and pays → photo evidence intact �
   assert.match(await decision.innerText(), /Excluded from the results of heat 1\./);
   assert.match(await page.getByTestId('fee-outcome').innerText(), /50\.00 NZD is refunded/);
   assert.match(await page.getByTestId('refund').innerText(), /refunded \(refund re_/);
-  assert.match(await page.getByTestId('appeal-deadline').innerText(), /Notice of appeal is due by .* \(Pacific\/Auckland\)/);
+  assert.match(
+    await page.getByTestId('appeal-deadline').innerText(),
+    /Notice of appeal is due by .* \(Pacific\/Auckland\)/,
+  );
   assert.match(await page.getByTestId('decision-caution').innerText(), /appealed/);
   await screenshot(page, 'protest-07-entrant-sees-decision');
   const pdf = await page.request.get(`/api/protests/${protestId}/decision.pdf`);
@@ -144,7 +174,10 @@ test('results published → entrant lodges and pays → photo evidence intact �
   const text = (await extractPdfText(bytes)).join('\n');
   assert.match(text, /UPHELD/);
   assert.ok(text.includes(createHash('sha256').update(photo).digest('hex')), 'the evidence hash is in the PDF');
-  const [row] = await query<{ status: string; refund_id: string | null }>('select status, refund_id from protests where id = $1', [protestId]);
+  const [row] = await query<{ status: string; refund_id: string | null }>(
+    'select status, refund_id from protests where id = $1',
+    [protestId],
+  );
   assert.equal(row.status, 'upheld');
   assert.match(row.refund_id ?? '', /^re_/);
   await phone.close();

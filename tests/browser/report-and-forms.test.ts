@@ -26,12 +26,21 @@ before(async () => {
   const scrutineer = new HttpSession();
   await scrutineer.signInWithPassword(DEMO.scrutineer, DEMO_PASSWORD);
   // Conforming inspections through the real API (101.9 mm against a 102 mm maximum, U 0.05 mm).
-  for (const [e, largest] of [[pair[0], 101.9], [pair[1], 101.6], [solo, 101.9]] as const) {
-    const { res, body } = await scrutineer.json(`/api/events/${meeting.eventId}/inspections`, inspectionBody(e.id, largest));
+  for (const [e, largest] of [
+    [pair[0], 101.9],
+    [pair[1], 101.6],
+    [solo, 101.9],
+  ] as const) {
+    const { res, body } = await scrutineer.json(
+      `/api/events/${meeting.eventId}/inspections`,
+      inspectionBody(e.id, largest),
+    );
     assert.equal(res.status, 201, JSON.stringify(body));
   }
 });
-after(async () => { await browser?.close(); });
+after(async () => {
+  await browser?.close();
+});
 
 async function organiserPage(opts = {}): Promise<Page> {
   const page = await (await newContext(browser, opts)).newPage();
@@ -51,7 +60,9 @@ test('parity report: the unit switch changes the tables as well as the charts; e
   const inN = await valueOf(pair[0]);
   assert.match(await page.getByTestId('static-thrust-heading').innerText(), /Static thrust N/);
   await page.getByLabel('Force unit').selectOption('kgf');
-  await page.waitForFunction(() => /kgf/.test(document.querySelector('[data-testid="static-thrust-heading"]')?.textContent ?? ''));
+  await page.waitForFunction(() =>
+    /kgf/.test(document.querySelector('[data-testid="static-thrust-heading"]')?.textContent ?? ''),
+  );
   const inKgf = await valueOf(pair[0]);
   // 1 kgf = 9.80665 N exactly (standard gravity; NIST SP 811, 2008, appendix B).
   // Shown to 0.1 kgf from a figure rounded to 1 N: within 0.05 + 0.5 / 9.80665 kgf.
@@ -88,14 +99,20 @@ test('publishing a report shows progress, disables the button and announces the 
   const page = await organiserPage(PHONE);
   await page.goto(`/organise/events/${meeting.eventId}/classes/${pairClassId}/report`);
   // Hold the request for a moment so the pending state can be read reliably (the real one takes seconds).
-  await page.route('**/report/publish', async (route) => { await new Promise((r) => setTimeout(r, 1_500)); await route.continue(); });
+  await page.route('**/report/publish', async (route) => {
+    await new Promise((r) => setTimeout(r, 1_500));
+    await route.continue();
+  });
   const button = page.getByRole('button', { name: /Publish as version 1/ });
   await button.click();
   const progress = page.getByTestId('publish-progress');
   await progress.getByRole('progressbar').waitFor();
   assert.match(await progress.innerText(), /Publishing version 1/);
   assert.equal(await progress.getAttribute('aria-live'), 'polite');
-  assert.ok(await page.getByRole('button', { name: 'Publishing…' }).isDisabled(), 'the button is disabled while publishing');
+  assert.ok(
+    await page.getByRole('button', { name: 'Publishing…' }).isDisabled(),
+    'the button is disabled while publishing',
+  );
   await screenshot(page, 'report-publishing');
   // The page has other forms with their own messages: read the publish form's.
   const message = page.locator('form').filter({ has: progress }).getByTestId('form-message');
@@ -113,9 +130,13 @@ test('calculator: messages name the field as the form labels it; temperature ran
   const power = a.getByLabel('Shaft power', { exact: true });
   const errorOf = (id: string | null) => page.locator(`[data-field-error="${id}"]`);
   await power.fill('-5');
-  await errorOf(await power.getAttribute('id')).filter({ hasText: 'Shaft power must be greater than 0.' }).waitFor();
+  await errorOf(await power.getAttribute('id'))
+    .filter({ hasText: 'Shaft power must be greater than 0.' })
+    .waitFor();
   await power.fill('abc');
-  await errorOf(await power.getAttribute('id')).filter({ hasText: 'Shaft power must be a number, for example 250.' }).waitFor();
+  await errorOf(await power.getAttribute('id'))
+    .filter({ hasText: 'Shaft power must be a number, for example 250.' })
+    .waitFor();
   await power.fill('250');
 
   const temperature = a.getByLabel('Water temperature', { exact: true });
@@ -125,9 +146,15 @@ test('calculator: messages name the field as the form labels it; temperature ran
   const tError = errorOf(await temperature.getAttribute('id'));
   await tError.waitFor();
   // The ITTC fresh-water table (ITTC procedure 7.5-02-01-03, 2011 [memory]) is held for 10–25 °C in lib/core/engine/water.ts (ITTC_TEMPERATURE_RANGE_C).
-  assert.equal(await tError.innerText(), 'Water temperature must be between 10 and 25 °C (the ITTC water table); for colder or warmer water, enter a density override.');
+  assert.equal(
+    await tError.innerText(),
+    'Water temperature must be between 10 and 25 °C (the ITTC water table); for colder or warmer water, enter a density override.',
+  );
   await temperature.fill('25');
-  await page.waitForFunction((id) => !document.querySelector(`[data-field-error="${id}"]`), await temperature.getAttribute('id'));
+  await page.waitForFunction(
+    (id) => !document.querySelector(`[data-field-error="${id}"]`),
+    await temperature.getAttribute('id'),
+  );
   await screenshot(page, 'calculator-messages');
   await page.context().close();
 });

@@ -23,7 +23,9 @@ before(async () => {
     [DEMO.meetingId],
   );
   classId = cls.id;
-  const [{ id: scrutineerId }] = await query<{ id: string }>('select id from users where email = $1', [DEMO.scrutineer]);
+  const [{ id: scrutineerId }] = await query<{ id: string }>('select id from users where email = $1', [
+    DEMO.scrutineer,
+  ]);
   const entries = await query<{ id: string; boat_id: string; declared_nozzle_mm: number }>(
     `select e.id, e.boat_id, b.declared_nozzle_mm from entries e join boats b on b.id = e.boat_id where e.class_id = $1 and e.status = 'entered'`,
     [classId],
@@ -33,13 +35,27 @@ before(async () => {
     await query(
       `insert into inspections (event_id, entry_id, boat_id, class_id, rule_version_id, recorded_by_id, idempotency_key, captured_at, measurements, results, overall_result)
        values ($1, $2, $3, $4, $5, $6, $7, now(), $8, $9, 'conforms')`,
-      [DEMO.meetingId, e.id, e.boat_id, classId, cls.rule_version_id, scrutineerId, randomUUID(),
-        JSON.stringify({ nozzle: { readings: [d, d + 0.04, d - 0.03].map((x, i) => ({ diameterMm: +x.toFixed(2), angleDeg: i * 60 })) } }),
-        JSON.stringify({ rules: [{ rule: 'nozzle_max', expandedUncertainty: 0.08, verdict: 'conforms' }] })],
+      [
+        DEMO.meetingId,
+        e.id,
+        e.boat_id,
+        classId,
+        cls.rule_version_id,
+        scrutineerId,
+        randomUUID(),
+        JSON.stringify({
+          nozzle: {
+            readings: [d, d + 0.04, d - 0.03].map((x, i) => ({ diameterMm: +x.toFixed(2), angleDeg: i * 60 })),
+          },
+        }),
+        JSON.stringify({ rules: [{ rule: 'nozzle_max', expandedUncertainty: 0.08, verdict: 'conforms' }] }),
+      ],
     );
   }
 });
-after(async () => { await browser?.close(); });
+after(async () => {
+  await browser?.close();
+});
 
 test('organiser publishes the RR parity report; the public page, PDF and CSV work signed out on a phone', async () => {
   const org = await newContext(browser);
@@ -50,7 +66,10 @@ test('organiser publishes the RR parity report; the public page, PDF and CSV wor
   // The thrust chart draws one line per boat plus the median boat.
   const lines = page.getByTestId('chart-thrust-curves').locator('path.recharts-line-curve');
   await lines.first().waitFor();
-  const [{ n }] = await query<{ n: string }>(`select count(*) as n from entries where class_id = $1 and status = 'entered'`, [classId]);
+  const [{ n }] = await query<{ n: string }>(
+    `select count(*) as n from entries where class_id = $1 and status = 'entered'`,
+    [classId],
+  );
   assert.equal(await lines.count(), Number(n) + 1);
   assert.ok((await page.getByTestId('chart-deviation').locator('.recharts-bar-rectangle').count()) >= Number(n) - 1);
   await screenshot(page, 'report-01-draft');
@@ -80,7 +99,10 @@ test('organiser publishes the RR parity report; the public page, PDF and CSV wor
 
   const csvDownload = pub.waitForEvent('download');
   await pub.getByTestId('report-csv').click();
-  const rows = parse(await fs.readFile((await (await csvDownload).path())!, 'utf8'), { columns: true }) as Record<string, string>[];
+  const rows = parse(await fs.readFile((await (await csvDownload).path())!, 'utf8'), { columns: true }) as Record<
+    string,
+    string
+  >[];
   assert.equal(rows.length, Number(n));
   await phone.close();
 });

@@ -12,8 +12,12 @@ import { HttpSession } from '../support/http-session';
 import { query } from '../support/db';
 
 let browser: Browser;
-before(async () => { browser = await launchBrowser(); });
-after(async () => { await browser?.close(); });
+before(async () => {
+  browser = await launchBrowser();
+});
+after(async () => {
+  await browser?.close();
+});
 
 test('small things: 404 page, favicon, an entrant’s first step, hull −7 refused, a taken race number answered honestly, numeric race-number field', async () => {
   const context = await newContext(browser, PHONE);
@@ -28,7 +32,9 @@ test('small things: 404 page, favicon, an entrant’s first step, hull −7 refu
   await screenshot(page, 'not-found-phone');
 
   // The favicon the page names (or the browser's default address when it names none) is an image.
-  const iconHref = await page.evaluate(() => document.querySelector<HTMLLinkElement>('link[rel~="icon"]')?.getAttribute('href') ?? '/favicon.ico');
+  const iconHref = await page.evaluate(
+    () => document.querySelector<HTMLLinkElement>('link[rel~="icon"]')?.getAttribute('href') ?? '/favicon.ico',
+  );
   const icon = await page.request.get(iconHref);
   assert.equal(icon.status(), 200, `${iconHref} answers`);
   assert.match(icon.headers()['content-type'] ?? '', /^image\//);
@@ -57,18 +63,28 @@ test('small things: 404 page, favicon, an entrant’s first step, hull −7 refu
   await page.getByLabel('Hull or sail number').fill('-7');
   await page.getByRole('button', { name: 'Register the boat' }).click();
   await page.locator('[data-field-error="hullNumber"]').waitFor();
-  assert.equal((await query(`select 1 from boats b join users u on u.id = b.owner_id where u.email = $1`, [email])).length, 0, 'no boat stored');
+  assert.equal(
+    (await query(`select 1 from boats b join users u on u.id = b.owner_id where u.email = $1`, [email])).length,
+    0,
+    'no boat stored',
+  );
   await page.getByLabel('Hull or sail number').fill('');
   await page.getByRole('button', { name: 'Register the boat' }).click();
   await page.waitForURL((u) => /^\/boats\/[0-9a-f-]{36}$/.test(u.pathname));
 
   // A race number that is taken: the next free one after it, and the page says both.
-  const [taken] = await query<{ n: number }>(`select race_number as n from entries where event_id = $1 order by race_number limit 1`, [DEMO.meetingId]);
+  const [taken] = await query<{ n: number }>(
+    `select race_number as n from entries where event_id = $1 order by race_number limit 1`,
+    [DEMO.meetingId],
+  );
   const [next] = await query<{ n: number }>(
     `select n from generate_series($2::int + 1, 9999) n where not exists (select 1 from entries where event_id = $1 and race_number = n) order by n limit 1`,
     [DEMO.meetingId, taken.n],
   );
-  const [cls] = await query<{ id: string; code: string }>(`select id, code from race_classes where event_id = $1 and code = 'SS'`, [DEMO.meetingId]);
+  const [cls] = await query<{ id: string; code: string }>(
+    `select id, code from race_classes where event_id = $1 and code = 'SS'`,
+    [DEMO.meetingId],
+  );
   await page.goto(`${new URL(page.url()).pathname}/enter`);
   await page.getByLabel('Meeting', { exact: true }).selectOption(DEMO.meetingId);
   await page.getByLabel('Class', { exact: true }).selectOption(cls.id);
@@ -76,7 +92,10 @@ test('small things: 404 page, favicon, an entrant’s first step, hull −7 refu
   await page.getByRole('button', { name: `Enter Minus Heron in ${cls.code}` }).click();
   const note = page.getByTestId('race-number-note');
   await note.waitFor();
-  assert.equal(await note.innerText(), `Race number ${taken.n} is already taken at this meeting, so you have ${next.n}, the next free number.`);
+  assert.equal(
+    await note.innerText(),
+    `Race number ${taken.n} is already taken at this meeting, so you have ${next.n}, the next free number.`,
+  );
   assert.match(await page.getByTestId('entry-made').locator('h2').innerText(), new RegExp(`race number ${next.n}$`));
   await screenshot(page, 'entry-taken-number-phone');
   await context.close();

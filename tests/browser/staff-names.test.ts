@@ -11,8 +11,12 @@ import { firstLink, waitForMail } from '../support/mail';
 import { query } from '../support/db';
 
 let browser: Browser;
-before(async () => { browser = await launchBrowser(); });
-after(async () => { await browser?.close(); });
+before(async () => {
+  browser = await launchBrowser();
+});
+after(async () => {
+  await browser?.close();
+});
 
 test('names: an invited dock hand gives a name on accepting, is greeted by it, and changes it on My account', async () => {
   const organiser = new HttpSession();
@@ -31,7 +35,11 @@ test('names: an invited dock hand gives a name on accepting, is greeted by it, a
   const error = page.locator('[data-field-error="name"]');
   await error.waitFor();
   assert.equal(await error.innerText(), 'Enter your name.');
-  assert.equal((await query('select 1 from staff_invitations where email = $1 and accepted_at is null', [email])).length, 1, 'not accepted without a name');
+  assert.equal(
+    (await query('select 1 from staff_invitations where email = $1 and accepted_at is null', [email])).length,
+    1,
+    'not accepted without a name',
+  );
   await screenshot(page, 'invite-name-refused-phone');
   await name.fill('  Wren Halloway ');
   await page.getByRole('button', { name: 'Accept and sign in' }).click();
@@ -47,7 +55,11 @@ test('names: an invited dock hand gives a name on accepting, is greeted by it, a
   const refused = page.locator('[data-field-error="name"]');
   await refused.waitFor();
   assert.equal(await refused.innerText(), 'Enter your name.');
-  assert.deepEqual(await query('select name from users where email = $1', [email]), [{ name: 'Wren Halloway' }], 'a blank name changes nothing');
+  assert.deepEqual(
+    await query('select name from users where email = $1', [email]),
+    [{ name: 'Wren Halloway' }],
+    'a blank name changes nothing',
+  );
   await page.getByLabel('Your name', { exact: true }).fill('Wren A. Halloway');
   await page.getByRole('button', { name: 'Save name' }).click();
   await page.getByTestId('name-result').filter({ hasText: 'Saved' }).waitFor();

@@ -9,8 +9,12 @@ import { DEMO, DEMO_PASSWORD } from '../support/env';
 import { query } from '../support/db';
 
 let browser: Browser;
-before(async () => { browser = await launchBrowser(); });
-after(async () => { await browser?.close(); });
+before(async () => {
+  browser = await launchBrowser();
+});
+after(async () => {
+  await browser?.close();
+});
 
 /** A boat entered at the demo meeting and its current tag; owned by the demo entrant or by someone else. */
 async function taggedBoat(ownedByEntrant: boolean) {

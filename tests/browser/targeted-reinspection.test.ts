@@ -15,8 +15,12 @@ import { query } from '../support/db';
 import { InspectionMeeting, rulesWith } from '../support/inspection-meeting';
 
 let browser: Browser;
-before(async () => { browser = await launchBrowser(); });
-after(async () => { await browser?.close(); });
+before(async () => {
+  browser = await launchBrowser();
+});
+after(async () => {
+  await browser?.close();
+});
 
 async function find(page: Page, raceNumber: number) {
   await page.getByLabel('Race number or tag code').fill(String(raceNumber));
@@ -26,13 +30,17 @@ async function find(page: Page, raceNumber: number) {
 
 test('a nozzle-only protest re-check decides the nozzle only and says so; value kinds; no contradictory banner', async () => {
   const meeting = await new InspectionMeeting().create(`Targeted re-check ${Date.now()}`, [
-    { email: DEMO.scrutineer, role: 'scrutineer' }, { email: DEMO.steward, role: 'steward' },
+    { email: DEMO.scrutineer, role: 'scrutineer' },
+    { email: DEMO.steward, role: 'steward' },
   ]);
   // Weight minimum, power band and a helmet, so that a nozzle-only re-check has other checks to leave alone.
-  const classId = await meeting.addClass('RC', rulesWith({
-    weight: { minKg: 650, includesDriver: true, defaultUncertaintyKg: 1 },
-    power: { minKw: 180, maxKw: 260, defaultUncertaintyKw: 5 },
-  }));
+  const classId = await meeting.addClass(
+    'RC',
+    rulesWith({
+      weight: { minKg: 650, includesDriver: true, defaultUncertaintyKg: 1 },
+      power: { minKw: 180, maxKw: 260, defaultUncertaintyKw: 5 },
+    }),
+  );
   const protested = await meeting.addEntry(classId);
   const other = await meeting.addEntry(classId);
 
@@ -47,7 +55,9 @@ test('a nozzle-only protest re-check decides the nozzle only and says so; value 
   );
   const steward = new HttpSession();
   await steward.signInWithPassword(DEMO.steward, DEMO_PASSWORD);
-  const ordered = await steward.json(`/api/protests/${protest.id}/reinspection`, { reason: 'Measure the nozzle exit.' });
+  const ordered = await steward.json(`/api/protests/${protest.id}/reinspection`, {
+    reason: 'Measure the nozzle exit.',
+  });
   assert.equal(ordered.res.status, 201, JSON.stringify(ordered.body));
 
   const context = await newContext(browser, PHONE);
@@ -55,14 +65,18 @@ test('a nozzle-only protest re-check decides the nozzle only and says so; value 
   await signInWithPassword(page, DEMO.scrutineer, DEMO_PASSWORD);
   await page.goto(`/inspect/${meeting.eventId}`);
   await find(page, protested.raceNumber);
-  assert.match(await page.getByTestId('reinspection-scope').innerText(), /ordered to check the nozzle exit diameter only/);
+  assert.match(
+    await page.getByTestId('reinspection-scope').innerText(),
+    /ordered to check the nozzle exit diameter only/,
+  );
 
   // A fourth reading gets an angle: the spread becomes 180°/4 = 45° (common practice, no source).
   await page.getByRole('button', { name: 'Add a reading' }).click();
   const angles = [];
   for (let i = 1; i <= 4; i++) angles.push(await page.getByLabel(`Reading ${i} angle`).inputValue());
   assert.deepEqual(angles, ['0', '45', '90', '135']);
-  for (const [i, d] of [101.5, 101.93, 101.8, 101.7].entries()) await page.getByLabel(`Reading ${i + 1} diameter`).fill(String(d));
+  for (const [i, d] of [101.5, 101.93, 101.8, 101.7].entries())
+    await page.getByLabel(`Reading ${i + 1} diameter`).fill(String(d));
   await page.getByLabel('I know U (type it)').check();
   await page.getByLabel('Expanded uncertainty U (k = 2)').fill('0.05');
   await screenshot(page, 'reinspection-01-form');
@@ -71,19 +85,37 @@ test('a nozzle-only protest re-check decides the nozzle only and says so; value 
   const verdict = page.getByTestId('verdict');
   await verdict.waitFor();
   assert.equal(await verdict.getAttribute('data-provisional'), 'false', 'decided by the server');
-  assert.deepEqual(await verdict.locator('[data-rule]').evaluateAll((els) => els.map((e) => e.getAttribute('data-rule'))), ['nozzle_max']);
-  assert.equal(await verdict.getAttribute('data-overall'), 'conforms', '101.93 mm: conformity proven (ISO 14253-1:2017)');
+  assert.deepEqual(
+    await verdict.locator('[data-rule]').evaluateAll((els) => els.map((e) => e.getAttribute('data-rule'))),
+    ['nozzle_max'],
+  );
+  assert.equal(
+    await verdict.getAttribute('data-overall'),
+    'conforms',
+    '101.93 mm: conformity proven (ISO 14253-1:2017)',
+  );
   assert.match(await page.getByTestId('verdict-scope').innerText(), /nozzle exit diameter only/);
-  assert.equal(await verdict.locator('[data-rule="nozzle_max"] [data-value-kind]').innerText(), 'measured 101.93 mm · ');
+  assert.equal(
+    await verdict.locator('[data-rule="nozzle_max"] [data-value-kind]').innerText(),
+    'measured 101.93 mm · ',
+  );
   assert.equal(await page.getByTestId('measure-again').count(), 0);
   assert.ok(await verdict.getByRole('note').isVisible(), 'the safety caution is shown with the verdict');
   await screenshot(page, 'reinspection-02-verdict');
-  const [stored] = await query<{ overall_result: string; results: { scope: string[] | null; rules: { rule: string }[] }; done: Date | null }>(
-    `select i.overall_result, i.results, r.done_at as done from inspections i join reinspections r on r.inspection_id = i.id where r.protest_id = $1`, [protest.id],
+  const [stored] = await query<{
+    overall_result: string;
+    results: { scope: string[] | null; rules: { rule: string }[] };
+    done: Date | null;
+  }>(
+    `select i.overall_result, i.results, r.done_at as done from inspections i join reinspections r on r.inspection_id = i.id where r.protest_id = $1`,
+    [protest.id],
   );
   assert.equal(stored.overall_result, 'conforms');
   assert.deepEqual(stored.results.scope, ['nozzle']);
-  assert.deepEqual(stored.results.rules.map((r) => r.rule), ['nozzle_max']);
+  assert.deepEqual(
+    stored.results.rules.map((r) => r.rule),
+    ['nozzle_max'],
+  );
   assert.ok(stored.done, 'the task is done');
 
   // A full inspection: nozzle within U of the limit (inconclusive), helmet not ticked (does not
@@ -92,7 +124,8 @@ test('a nozzle-only protest re-check decides the nozzle only and says so; value 
   await page.getByRole('button', { name: 'Next boat' }).click();
   await find(page, other.raceNumber);
   assert.equal(await page.getByTestId('reinspection-scope').count(), 0);
-  for (const [i, d] of [101.5, 101.97, 101.8].entries()) await page.getByLabel(`Reading ${i + 1} diameter`).fill(String(d));
+  for (const [i, d] of [101.5, 101.97, 101.8].entries())
+    await page.getByLabel(`Reading ${i + 1} diameter`).fill(String(d));
   await page.getByLabel('I know U (type it)').check();
   await page.getByLabel('Expanded uncertainty U (k = 2)').fill('0.05');
   await page.getByLabel('Weighing 1').fill('690');
@@ -102,9 +135,15 @@ test('a nozzle-only protest re-check decides the nozzle only and says so; value 
   assert.equal(await verdict.getAttribute('data-overall'), 'does_not_conform');
   assert.equal(await verdict.locator('[data-rule="nozzle_max"]').getAttribute('data-verdict'), 'inconclusive');
   assert.equal(await page.getByTestId('measure-again').count(), 0, 'no "measure again" under "Does not conform"');
-  assert.equal(await verdict.locator('[data-rule="power_band"] [data-value-kind]').getAttribute('data-value-kind'), 'declared');
+  assert.equal(
+    await verdict.locator('[data-rule="power_band"] [data-value-kind]').getAttribute('data-value-kind'),
+    'declared',
+  );
   assert.match(await verdict.locator('[data-rule="power_band"]').innerText(), /declared 220\.0 kW/);
-  assert.equal(await verdict.locator('[data-rule="weight_min"] [data-value-kind]').getAttribute('data-value-kind'), 'measured');
+  assert.equal(
+    await verdict.locator('[data-rule="weight_min"] [data-value-kind]').getAttribute('data-value-kind'),
+    'measured',
+  );
   await screenshot(page, 'reinspection-03-full-does-not-conform');
   await context.close();
 });

@@ -11,8 +11,12 @@ import { query } from '../support/db';
 import { InspectionMeeting, rulesWith } from '../support/inspection-meeting';
 
 let browser: Browser;
-before(async () => { browser = await launchBrowser(); });
-after(async () => { await browser?.close(); });
+before(async () => {
+  browser = await launchBrowser();
+});
+after(async () => {
+  await browser?.close();
+});
 
 test('chief scrutineer: top finishers from the provisional results → one post-race task each', async () => {
   const meeting = new InspectionMeeting();
@@ -23,7 +27,9 @@ test('chief scrutineer: top finishers from the provisional results → one post-
   // Finishing order: the third boat won, then the first, then the fourth, then the second.
   const order = [entries[2], entries[0], entries[3], entries[1]];
   const published = await meeting.organiser.json(`/api/events/${meeting.eventId}/results`, {
-    classId, rows: order.map((e, i) => ({ position: i + 1, raceNumber: e.raceNumber })), note: 'heat 1',
+    classId,
+    rows: order.map((e, i) => ({ position: i + 1, raceNumber: e.raceNumber })),
+    note: 'heat 1',
   });
   assert.equal(published.res.status, 201, JSON.stringify(published.body));
 
@@ -34,14 +40,23 @@ test('chief scrutineer: top finishers from the provisional results → one post-
   await page.getByLabel('Results of class').selectOption(classId);
   await page.getByLabel('How many').fill('2');
   await page.getByRole('button', { name: 'Choose them' }).click();
-  assert.equal(await page.getByTestId('top-finishers-note').innerText(), `Chosen: no. ${order[0].raceNumber}, no. ${order[1].raceNumber}.`);
-  assert.match(await page.getByLabel(/^Why/).inputValue(), /^Post-race check: top 2 in TF \(provisional results, version 1\)$/);
+  assert.equal(
+    await page.getByTestId('top-finishers-note').innerText(),
+    `Chosen: no. ${order[0].raceNumber}, no. ${order[1].raceNumber}.`,
+  );
+  assert.match(
+    await page.getByLabel(/^Why/).inputValue(),
+    /^Post-race check: top 2 in TF \(provisional results, version 1\)$/,
+  );
   assert.match(await page.getByRole('heading', { name: /Ask for re-inspection/ }).innerText(), /2 chosen/);
   await screenshot(page, 'top-finishers-01-chosen');
   await page.getByRole('button', { name: 'Ask for re-inspection' }).click();
   await page.getByText('Re-inspection asked for 2 boats.').waitFor();
 
-  const tasks = await query<{ entry_id: string; reason: string }>('select entry_id, reason from reinspections where event_id = $1 and done_at is null order by entry_id', [meeting.eventId]);
+  const tasks = await query<{ entry_id: string; reason: string }>(
+    'select entry_id, reason from reinspections where event_id = $1 and done_at is null order by entry_id',
+    [meeting.eventId],
+  );
   assert.deepEqual(tasks.map((t) => t.entry_id).sort(), [order[0].id, order[1].id].sort());
   assert.ok(tasks.every((t) => t.reason === 'Post-race check: top 2 in TF (provisional results, version 1)'));
 
@@ -50,7 +65,10 @@ test('chief scrutineer: top finishers from the provisional results → one post-
   await page.getByRole('button', { name: 'Choose them' }).click();
   await page.getByRole('button', { name: 'Ask for re-inspection' }).click();
   await page.getByText('Re-inspection asked for 3 boats.').waitFor();
-  const after3 = await query<{ entry_id: string }>('select entry_id from reinspections where event_id = $1 and done_at is null', [meeting.eventId]);
+  const after3 = await query<{ entry_id: string }>(
+    'select entry_id from reinspections where event_id = $1 and done_at is null',
+    [meeting.eventId],
+  );
   assert.equal(after3.length, 3);
   await page.getByTestId('reinspection-list').waitFor();
   await screenshot(page, 'top-finishers-02-asked');

@@ -47,7 +47,10 @@ test('sign-up creates an entrant with an unproven address; the mailed link and t
   const { res, body } = await s.signUp({ name: 'Tess Marram', email, password: 'long-enough-pw' });
   assert.equal(res.status, 202, JSON.stringify(body));
   assert.deepEqual(body.data, { email, next: 'confirm-address' });
-  const [row] = await query<{ verified: Date | null }>('select email_verified as verified from users where email = $1', [email]);
+  const [row] = await query<{ verified: Date | null }>(
+    'select email_verified as verified from users where email = $1',
+    [email],
+  );
   assert.equal(row.verified, null, 'unproven until the link is followed');
   assert.equal((await s.signInWithPassword(email, 'long-enough-pw')).status, 200, 'an unproven account can sign in');
 
@@ -56,7 +59,10 @@ test('sign-up creates an entrant with an unproven address; the mailed link and t
   const owner = new HttpSession();
   assert.equal((await owner.confirmAddress(email, 'long-enough-pw')).status, 200);
   assert.equal((await owner.session())?.user?.email, email, 'confirming signs the owner in');
-  const [after] = await query<{ verified: Date | null }>('select email_verified as verified from users where email = $1', [email]);
+  const [after] = await query<{ verified: Date | null }>(
+    'select email_verified as verified from users where email = $1',
+    [email],
+  );
   assert.ok(after.verified, 'proven');
   assert.equal((await new HttpSession().confirmAddress(email, 'long-enough-pw')).status, 401, 'a link works once');
 });
@@ -82,7 +88,11 @@ test('sign-up bad input: malformed e-mail, short password, missing name each get
 
 test('sign-up refuses a body that is not JSON, with a clear error', async () => {
   const s = new HttpSession();
-  const res = await s.fetch('/api/accounts', { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{nope' });
+  const res = await s.fetch('/api/accounts', {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: '{nope',
+  });
   assert.equal(res.status, 400);
   assert.equal((await res.json()).error.code, 'invalid_json');
 });
@@ -91,7 +101,10 @@ test('an organiser invites a scrutineer; the e-mailed link signs them in with th
   const organiser = new HttpSession();
   await organiser.signInWithPassword(DEMO.organiser, DEMO_PASSWORD);
   const email = uniqueEmail('scrut');
-  const { res, body } = await organiser.json(`/api/events/${DEMO.meetingId}/invitations`, { email, role: 'scrutineer' });
+  const { res, body } = await organiser.json(`/api/events/${DEMO.meetingId}/invitations`, {
+    email,
+    role: 'scrutineer',
+  });
   assert.equal(res.status, 201, JSON.stringify(body));
 
   const mail = await waitForMail(email, { subject: /invited/ });
@@ -110,7 +123,10 @@ test('an organiser invites a scrutineer; the e-mailed link signs them in with th
     'select s.role from event_staff s join users u on u.id = s.user_id where u.email = $1 and s.event_id = $2',
     [email, DEMO.meetingId],
   );
-  assert.deepEqual(roles.map((r) => r.role), ['scrutineer']);
+  assert.deepEqual(
+    roles.map((r) => r.role),
+    ['scrutineer'],
+  );
 
   const reuse = new HttpSession();
   const t2 = await reuse.csrfToken();

@@ -14,14 +14,25 @@ const target = `boreline_restore_${process.pid}`;
 const targetUrl = sourceUrl.replace(/\/[^/]+$/, `/${target}`);
 const adminUrl = sourceUrl.replace(/\/[^/]+$/, '/postgres');
 const dump = path.join(os.tmpdir(), `boreline-${process.pid}.dump`);
-const TABLES = ['users', 'events', 'race_classes', 'class_rule_versions', 'boats', 'entries', 'boat_tags', 'instruments'];
+const TABLES = [
+  'users',
+  'events',
+  'race_classes',
+  'class_rule_versions',
+  'boats',
+  'entries',
+  'boat_tags',
+  'instruments',
+];
 
 async function fingerprint(url: string) {
   const c = new pg.Client({ connectionString: url });
   await c.connect();
   const out: Record<string, { n: number; md5: string }> = {};
   for (const t of TABLES) {
-    const r = await c.query(`select count(*)::int as n, coalesce(md5(string_agg(md5(x::text), '' order by x::text)), '') as md5 from ${t} x`);
+    const r = await c.query(
+      `select count(*)::int as n, coalesce(md5(string_agg(md5(x::text), '' order by x::text)), '') as md5 from ${t} x`,
+    );
     out[t] = r.rows[0];
   }
   await c.end();
@@ -47,10 +58,16 @@ test('a backup restored into an empty database has the same records', async () =
 
   const c = new pg.Client({ connectionString: targetUrl });
   await c.connect();
-  await assert.rejects(c.query(`update class_rule_versions set change_note = 'x' where status = 'published'`), /frozen/);
+  await assert.rejects(
+    c.query(`update class_rule_versions set change_note = 'x' where status = 'published'`),
+    /frozen/,
+  );
   await c.end();
 });
 
 test('restoring over a database that already has tables is refused', () => {
-  assert.throws(() => execFileSync('bash', ['scripts/db-restore.sh', dump, target], { env: process.env, stdio: 'pipe' }), /already has/);
+  assert.throws(
+    () => execFileSync('bash', ['scripts/db-restore.sh', dump, target], { env: process.env, stdio: 'pipe' }),
+    /already has/,
+  );
 });

@@ -32,7 +32,11 @@ function assertClose(actual: number, expected: number, tolerance: number, what: 
 const LOSSES = { pumpEfficiency: 0.9, inletLossCoefficient: 0.2, nozzleLossCoefficient: 0.02 };
 
 test('jet performance, lossless: the worked values at 0 and 20 m/s', async () => {
-  const { res, body } = await post('/api/v1/jet-performance', { powerKw: 300, nozzleDiameterMm: 100, speedsMs: [0, 20] });
+  const { res, body } = await post('/api/v1/jet-performance', {
+    powerKw: 300,
+    nozzleDiameterMm: 100,
+    speedsMs: [0, 20],
+  });
   assert.equal(res.status, 200, JSON.stringify(body));
   const [rest, at20] = body.data.points;
   // Default water: fresh at 15 C, 999.1026 kg/m^3 (ITTC Recommended Procedure 7.5-02-01-03).
@@ -46,11 +50,21 @@ test('jet performance, lossless: the worked values at 0 and 20 m/s', async () =>
   // Lossless identity T = 2P/(v_j + V) (momentum theory, Allison 1993), on the API's own v_j.
   assertClose(at20.thrustN, (2 * 300_000) / (at20.jetVelocityMs + 20), 1e-6 * at20.thrustN, 'T = 2P/(v_j + V)');
   // Definition m_dot = rho A v_j with A = pi D^2 / 4 (mass flow through the nozzle exit).
-  assertClose(rest.massFlowKgS, 999.1026 * (Math.PI * 0.1 ** 2) / 4 * rest.jetVelocityMs, 1e-6 * rest.massFlowKgS, 'm_dot = rho A v_j');
+  assertClose(
+    rest.massFlowKgS,
+    ((999.1026 * (Math.PI * 0.1 ** 2)) / 4) * rest.jetVelocityMs,
+    1e-6 * rest.massFlowKgS,
+    'm_dot = rho A v_j',
+  );
 });
 
 test('jet performance with losses (eta 0.9, K_i 0.2, K_n 0.02): the worked values', async () => {
-  const { res, body } = await post('/api/v1/jet-performance', { powerKw: 300, nozzleDiameterMm: 100, speedsMs: [0, 20], ...LOSSES });
+  const { res, body } = await post('/api/v1/jet-performance', {
+    powerKw: 300,
+    nozzleDiameterMm: 100,
+    speedsMs: [0, 20],
+    ...LOSSES,
+  });
   assert.equal(res.status, 200, JSON.stringify(body));
   const [rest, at20] = body.data.points;
   // Worked check values, momentum theory per Allison 1993 / MIT 2.611 loss form, computed independently.
@@ -60,13 +74,22 @@ test('jet performance with losses (eta 0.9, K_i 0.2, K_n 0.02): the worked value
 });
 
 test('jet performance water: sea water at 20 C uses the ITTC density; densityKgM3 wins over water', async () => {
-  const sea = await post('/api/v1/jet-performance', { powerKw: 300, nozzleDiameterMm: 100, speedsMs: [0], water: { kind: 'sea', temperatureC: 20 } });
+  const sea = await post('/api/v1/jet-performance', {
+    powerKw: 300,
+    nozzleDiameterMm: 100,
+    speedsMs: [0],
+    water: { kind: 'sea', temperatureC: 20 },
+  });
   assert.equal(sea.res.status, 200, JSON.stringify(sea.body));
   // Sea water, absolute salinity 35.16504 g/kg, 20 C (ITTC Recommended Procedure 7.5-02-01-03 table).
   assertClose(sea.body.data.densityKgM3, 1024.8103, 1e-4, 'sea water at 20 C');
 
   const override = await post('/api/v1/jet-performance', {
-    powerKw: 300, nozzleDiameterMm: 100, speedsMs: [0], water: { kind: 'sea', temperatureC: 20 }, densityKgM3: 999.1026,
+    powerKw: 300,
+    nozzleDiameterMm: 100,
+    speedsMs: [0],
+    water: { kind: 'sea', temperatureC: 20 },
+    densityKgM3: 999.1026,
   });
   assert.equal(override.res.status, 200, JSON.stringify(override.body));
   assertClose(override.body.data.densityKgM3, 999.1026, 0, 'the given density is used');
@@ -75,7 +98,11 @@ test('jet performance water: sea water at 20 C uses the ITTC density; densityKgM
 });
 
 test('crossover: 100 mm against 90 mm cross at 33.49 m/s with losses and never without', async () => {
-  const lossy = await post('/api/v1/jet-performance/crossover', { powerKw: 300, nozzleDiametersMm: [100, 90], ...LOSSES });
+  const lossy = await post('/api/v1/jet-performance/crossover', {
+    powerKw: 300,
+    nozzleDiametersMm: [100, 90],
+    ...LOSSES,
+  });
   assert.equal(lossy.res.status, 200, JSON.stringify(lossy.body));
   // Curves cross at V = 33.49 m/s (2 decimals given): momentum theory with the MIT 2.611 loss form, found by bisection
   // outside this project's code.
@@ -100,11 +127,20 @@ test('conformity: the four worked decisions at limit 102.00 mm, U 0.05 mm under 
     for (const rule of ['simple', 'guarded', 'iso14253'] as const) {
       // Smaller readings beside the decisive one: against a maximum the largest local size counts (ISO 14405-1:2016).
       const readingsMm = [101.5, row.measuredMm, 101.6];
-      const { res, body } = await post('/api/v1/conformity', { readingsMm, maxMm: 102.0, expandedUncertaintyMm: 0.05, rule });
+      const { res, body } = await post('/api/v1/conformity', {
+        readingsMm,
+        maxMm: 102.0,
+        expandedUncertaintyMm: 0.05,
+        rule,
+      });
       assert.equal(res.status, 200, JSON.stringify(body));
       assert.equal(body.data.verdict, row[rule], `${row.measuredMm} mm under ${rule}`);
       assert.equal(body.data.decisiveValueMm, row.measuredMm, 'the largest reading decides');
-      assert.match(body.data.explanation, new RegExp(row.measuredMm.toFixed(2).replace('.', '\\.')), 'the explanation names the reading');
+      assert.match(
+        body.data.explanation,
+        new RegExp(row.measuredMm.toFixed(2).replace('.', '\\.')),
+        'the explanation names the reading',
+      );
     }
   }
 });
@@ -112,16 +148,61 @@ test('conformity: the four worked decisions at limit 102.00 mm, U 0.05 mm under 
 test('bad bodies get 400 with the field named in details, never a 500', async () => {
   const jet = { powerKw: 300, nozzleDiameterMm: 100, speedsMs: [0, 20] };
   const cases: { what: string; path: string; body: unknown; field: string }[] = [
-    { what: 'missing power', path: '/api/v1/jet-performance', body: { nozzleDiameterMm: 100, speedsMs: [0] }, field: 'powerKw' },
-    { what: 'string for a number', path: '/api/v1/jet-performance', body: { ...jet, powerKw: '300' }, field: 'powerKw' },
+    {
+      what: 'missing power',
+      path: '/api/v1/jet-performance',
+      body: { nozzleDiameterMm: 100, speedsMs: [0] },
+      field: 'powerKw',
+    },
+    {
+      what: 'string for a number',
+      path: '/api/v1/jet-performance',
+      body: { ...jet, powerKw: '300' },
+      field: 'powerKw',
+    },
     { what: 'negative power', path: '/api/v1/jet-performance', body: { ...jet, powerKw: -300 }, field: 'powerKw' },
-    { what: 'efficiency 1.5', path: '/api/v1/jet-performance', body: { ...jet, pumpEfficiency: 1.5 }, field: 'pumpEfficiency' },
-    { what: 'temperature outside the ITTC table', path: '/api/v1/jet-performance', body: { ...jet, water: { kind: 'fresh', temperatureC: 30 } }, field: 'water.temperatureC' },
-    { what: 'one nozzle for a crossover', path: '/api/v1/jet-performance/crossover', body: { powerKw: 300, nozzleDiametersMm: [100] }, field: 'nozzleDiametersMm' },
-    { what: 'negative second nozzle', path: '/api/v1/jet-performance/crossover', body: { powerKw: 300, nozzleDiametersMm: [100, -90] }, field: 'nozzleDiametersMm.1' },
-    { what: 'empty readings', path: '/api/v1/conformity', body: { readingsMm: [], maxMm: 102, expandedUncertaintyMm: 0.05, rule: 'simple' }, field: 'readingsMm' },
-    { what: 'unknown rule', path: '/api/v1/conformity', body: { readingsMm: [101.9], maxMm: 102, expandedUncertaintyMm: 0.05, rule: 'lenient' }, field: 'rule' },
-    { what: 'no limit at all', path: '/api/v1/conformity', body: { readingsMm: [101.9], expandedUncertaintyMm: 0.05, rule: 'simple' }, field: 'maxMm' },
+    {
+      what: 'efficiency 1.5',
+      path: '/api/v1/jet-performance',
+      body: { ...jet, pumpEfficiency: 1.5 },
+      field: 'pumpEfficiency',
+    },
+    {
+      what: 'temperature outside the ITTC table',
+      path: '/api/v1/jet-performance',
+      body: { ...jet, water: { kind: 'fresh', temperatureC: 30 } },
+      field: 'water.temperatureC',
+    },
+    {
+      what: 'one nozzle for a crossover',
+      path: '/api/v1/jet-performance/crossover',
+      body: { powerKw: 300, nozzleDiametersMm: [100] },
+      field: 'nozzleDiametersMm',
+    },
+    {
+      what: 'negative second nozzle',
+      path: '/api/v1/jet-performance/crossover',
+      body: { powerKw: 300, nozzleDiametersMm: [100, -90] },
+      field: 'nozzleDiametersMm.1',
+    },
+    {
+      what: 'empty readings',
+      path: '/api/v1/conformity',
+      body: { readingsMm: [], maxMm: 102, expandedUncertaintyMm: 0.05, rule: 'simple' },
+      field: 'readingsMm',
+    },
+    {
+      what: 'unknown rule',
+      path: '/api/v1/conformity',
+      body: { readingsMm: [101.9], maxMm: 102, expandedUncertaintyMm: 0.05, rule: 'lenient' },
+      field: 'rule',
+    },
+    {
+      what: 'no limit at all',
+      path: '/api/v1/conformity',
+      body: { readingsMm: [101.9], expandedUncertaintyMm: 0.05, rule: 'simple' },
+      field: 'maxMm',
+    },
   ];
   for (const c of cases) {
     const { res, body } = await post(c.path, c.body);
@@ -143,7 +224,8 @@ test('not JSON -> 400, wrong content type -> 415, over 64 KB -> 413; a body just
   assert.equal(wrongType.res.status, 415);
   assert.equal(wrongType.body.error.code, 'unsupported_media_type');
 
-  const pad = (bytes: number) => JSON.stringify({ powerKw: 300, nozzleDiameterMm: 100, speedsMs: [0], padding: 'x'.repeat(bytes) });
+  const pad = (bytes: number) =>
+    JSON.stringify({ powerKw: 300, nozzleDiameterMm: 100, speedsMs: [0], padding: 'x'.repeat(bytes) });
   const tooLarge = await post('/api/v1/jet-performance', pad(70 * 1024));
   assert.equal(tooLarge.res.status, 413);
   assert.equal(tooLarge.body.error.code, 'too_large');
@@ -160,7 +242,14 @@ type Schema = Record<string, any>; // eslint-disable-line @typescript-eslint/no-
 function assertFitsSchema(value: unknown, schema: Schema, components: Record<string, Schema>, at: string) {
   if (schema.$ref) return assertFitsSchema(value, components[String(schema.$ref).split('/').pop()!], components, at);
   if (schema.anyOf) {
-    const fits = schema.anyOf.some((s: Schema) => { try { assertFitsSchema(value, s, components, at); return true; } catch { return false; } });
+    const fits = schema.anyOf.some((s: Schema) => {
+      try {
+        assertFitsSchema(value, s, components, at);
+        return true;
+      } catch {
+        return false;
+      }
+    });
     assert.ok(fits, `${at}: fits one of anyOf`);
     return;
   }
@@ -172,13 +261,16 @@ function assertFitsSchema(value: unknown, schema: Schema, components: Record<str
   if (type === 'boolean') assert.equal(typeof value, 'boolean', at);
   if (type === 'array') {
     assert.ok(Array.isArray(value), `${at} is an array`);
-    (value as unknown[]).forEach((v, i) => schema.items && assertFitsSchema(v, schema.items, components, `${at}[${i}]`));
+    (value as unknown[]).forEach(
+      (v, i) => schema.items && assertFitsSchema(v, schema.items, components, `${at}[${i}]`),
+    );
   }
   if (type === 'object') {
     assert.ok(value && typeof value === 'object', `${at} is an object`);
     for (const key of schema.required ?? []) assert.ok(key in (value as object), `${at}.${key} is present`);
     for (const [key, sub] of Object.entries(schema.properties ?? {})) {
-      if (key in (value as object)) assertFitsSchema((value as Record<string, unknown>)[key], sub as Schema, components, `${at}.${key}`);
+      if (key in (value as object))
+        assertFitsSchema((value as Record<string, unknown>)[key], sub as Schema, components, `${at}.${key}`);
     }
   }
 }
@@ -194,7 +286,8 @@ test('OpenAPI document: version 3.1, the three operations, required numeric inpu
     const op = doc.paths[path]?.post;
     assert.ok(op, `POST ${path} is listed`);
     assert.equal(op.requestBody.required, true);
-    for (const status of ['200', '400', '413', '415', '429']) assert.ok(op.responses[status], `${path} documents ${status}`);
+    for (const status of ['200', '400', '413', '415', '429'])
+      assert.ok(op.responses[status], `${path} documents ${status}`);
     assert.ok(op.responses['429'].headers['Retry-After'], `${path} documents Retry-After`);
     assert.equal(op.responses['400'].content['application/json'].schema.$ref, '#/components/schemas/ErrorBody');
     return schemas[op.requestBody.content['application/json'].schema.$ref.split('/').pop()];
@@ -222,7 +315,10 @@ test('OpenAPI document: version 3.1, the three operations, required numeric inpu
   const answers = [
     { path: '/api/v1/jet-performance', body: { powerKw: 300, nozzleDiameterMm: 100, speedsMs: [0, 20] } },
     { path: '/api/v1/jet-performance/crossover', body: { powerKw: 300, nozzleDiametersMm: [100, 90], ...LOSSES } },
-    { path: '/api/v1/conformity', body: { readingsMm: [101.97], maxMm: 102, expandedUncertaintyMm: 0.05, rule: 'iso14253' } },
+    {
+      path: '/api/v1/conformity',
+      body: { readingsMm: [101.97], maxMm: 102, expandedUncertaintyMm: 0.05, rule: 'iso14253' },
+    },
     { path: '/api/v1/conformity', body: { readingsMm: [], maxMm: 102, expandedUncertaintyMm: 0.05, rule: 'iso14253' } },
   ];
   for (const a of answers) {
@@ -240,25 +336,41 @@ test('rate limit: past the per-minute limit a client gets 429 with Retry-After; 
   const address = randomLoopback();
   const body = JSON.stringify({ readingsMm: [101.93], maxMm: 102, expandedUncertaintyMm: 0.05, rule: 'simple' });
   const send = (path: string, payload: string, headers: Record<string, string> = {}, from = address) =>
-    fromAddress(from, path, { method: 'POST', headers: { 'content-type': 'application/json', ...headers }, body: payload });
+    fromAddress(from, path, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', ...headers },
+      body: payload,
+    });
 
   const first = await send('/api/v1/conformity', body);
   assert.equal(first.status, 200);
-  const rows = await query<{ key: string; attempts: number }>('select key, attempts from auth_throttles where key = $1', [`rate:public-api:${address}`]);
+  const rows = await query<{ key: string; attempts: number }>(
+    'select key, attempts from auth_throttles where key = $1',
+    [`rate:public-api:${address}`],
+  );
   assert.equal(rows.length, 1, 'one counter for this client, kept in PostgreSQL (so it holds across app servers)');
   assert.equal(rows[0].attempts, 1);
 
   // As if this client had sent limit - 1 requests this minute: the next is the last one allowed.
-  await query('update auth_throttles set attempts = $2, window_started_at = now() where key = $1', [rows[0].key, limit - 1]);
+  await query('update auth_throttles set attempts = $2, window_started_at = now() where key = $1', [
+    rows[0].key,
+    limit - 1,
+  ]);
   const last = await send('/api/v1/conformity', body);
   assert.equal(last.status, 200, 'the limit itself is allowed');
 
-  const over = await send('/api/v1/jet-performance', JSON.stringify({ powerKw: 300, nozzleDiameterMm: 100, speedsMs: [0] }));
+  const over = await send(
+    '/api/v1/jet-performance',
+    JSON.stringify({ powerKw: 300, nozzleDiameterMm: 100, speedsMs: [0] }),
+  );
   assert.equal(over.status, 429, over.body);
   const overBody = JSON.parse(over.body);
   assert.equal(overBody.error.code, 'rate_limited');
   const retryAfter = Number(over.headers['retry-after']);
-  assert.ok(Number.isInteger(retryAfter) && retryAfter >= 1 && retryAfter <= 60, `Retry-After within the one-minute window: ${retryAfter}`);
+  assert.ok(
+    Number.isInteger(retryAfter) && retryAfter >= 1 && retryAfter <= 60,
+    `Retry-After within the one-minute window: ${retryAfter}`,
+  );
   assert.equal(overBody.error.details.retryAfterS, retryAfter);
 
   const openapi = await fromAddress(address, '/api/v1/openapi.json');

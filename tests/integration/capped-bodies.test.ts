@@ -21,7 +21,13 @@ const TOTAL = 200 * MB; // the body the issue reported (a chunked 200 MB POST to
 // Far below TOTAL either way.
 const MAX_PULLED = 40 * MB;
 
-type Outcome = { status: number | null; body: string; pulledAtAnswer: number; pulledAtClose: number; socketClosed: boolean };
+type Outcome = {
+  status: number | null;
+  body: string;
+  pulledAtAnswer: number;
+  pulledAtClose: number;
+  socketClosed: boolean;
+};
 
 /** POSTs TOTAL bytes of `fill` in 64 KB chunks with no Content-Length; resolves once the connection closes (or after 15 s). */
 function postChunked(path: string, headers: Record<string, string>, prefix = '', fill = 0x20): Promise<Outcome> {
@@ -57,13 +63,17 @@ function postChunked(path: string, headers: Record<string, string>, prefix = '',
     // A server that stopped reading but kept the connection open would leave us waiting here.
     const giveUp = setTimeout(() => finish(false), 15_000);
     // agent: false, so the socket is this request's alone and its closing is visible here.
-    const req = http.request(url, { method: 'POST', agent: false, headers: { ...headers, 'transfer-encoding': 'chunked' } }, (res) => {
-      status = res.statusCode ?? null;
-      pulledAtAnswer = pulled;
-      res.setEncoding('utf8');
-      res.on('data', (d) => (text += d));
-      res.on('error', () => undefined);
-    });
+    const req = http.request(
+      url,
+      { method: 'POST', agent: false, headers: { ...headers, 'transfer-encoding': 'chunked' } },
+      (res) => {
+        status = res.statusCode ?? null;
+        pulledAtAnswer = pulled;
+        res.setEncoding('utf8');
+        res.on('data', (d) => (text += d));
+        res.on('error', () => undefined);
+      },
+    );
     req.on('error', () => undefined); // EPIPE / ECONNRESET once the server closes while we still write
     req.on('socket', (socket) => socket.on('close', () => setImmediate(() => finish(true))));
     body.pipe(req);
@@ -85,8 +95,14 @@ function assertRefusedEarly(label: string, out: Outcome) {
   const parsed = JSON.parse(out.body);
   assert.equal(parsed.error.code, 'too_large', label);
   assert.ok(out.socketClosed, `${label}: the connection was still open 15 s after the 413`);
-  assert.ok(out.pulledAtAnswer >= 0 && out.pulledAtAnswer < MAX_PULLED, `${label}: the 413 came after ${(out.pulledAtAnswer / MB).toFixed(1)} MB`);
-  assert.ok(out.pulledAtClose < MAX_PULLED, `${label}: the client had sent ${(out.pulledAtClose / MB).toFixed(1)} MB when the connection ended (limit ${MAX_PULLED / MB} MB)`);
+  assert.ok(
+    out.pulledAtAnswer >= 0 && out.pulledAtAnswer < MAX_PULLED,
+    `${label}: the 413 came after ${(out.pulledAtAnswer / MB).toFixed(1)} MB`,
+  );
+  assert.ok(
+    out.pulledAtClose < MAX_PULLED,
+    `${label}: the client had sent ${(out.pulledAtClose / MB).toFixed(1)} MB when the connection ended (limit ${MAX_PULLED / MB} MB)`,
+  );
   return parsed;
 }
 
@@ -95,19 +111,31 @@ let boatId: string;
 
 before(async () => {
   await entrant.signInWithPassword(DEMO.entrant, DEMO_PASSWORD);
-  const [own] = await query<{ id: string }>(`select b.id from boats b join users u on u.id = b.owner_id where u.email = $1 order by b.created_at limit 1`, [DEMO.entrant]);
+  const [own] = await query<{ id: string }>(
+    `select b.id from boats b join users u on u.id = b.owner_id where u.email = $1 order by b.created_at limit 1`,
+    [DEMO.entrant],
+  );
   boatId = own.id;
 });
 
 test('a chunked 200 MB JSON body to /api/accounts is refused with 413 at the 256 KB cap, not read whole', async () => {
   const before = await query<{ n: number }>('select count(*)::int as n from users');
-  const parsed = await refusedEveryTime('POST /api/accounts', () => postChunked('/api/accounts', { 'content-type': 'application/json' }, '{"name":"Chunk Sender","email":"chunk@example.org","password":"', 0x61));
+  const parsed = await refusedEveryTime('POST /api/accounts', () =>
+    postChunked(
+      '/api/accounts',
+      { 'content-type': 'application/json' },
+      '{"name":"Chunk Sender","email":"chunk@example.org","password":"',
+      0x61,
+    ),
+  );
   assert.match(parsed.error.message, /262144 bytes/);
   assert.deepEqual(await query('select count(*)::int as n from users'), before, 'no account was made');
 });
 
 test('a chunked 200 MB webhook body is refused with 413 at the 512 KB cap, before any signature check', async () => {
-  const parsed = await refusedEveryTime('POST /api/payments/webhook', () => postChunked('/api/payments/webhook', { 'content-type': 'application/json', 'stripe-signature': 't=1,v1=00' }));
+  const parsed = await refusedEveryTime('POST /api/payments/webhook', () =>
+    postChunked('/api/payments/webhook', { 'content-type': 'application/json', 'stripe-signature': 't=1,v1=00' }),
+  );
   assert.match(parsed.error.message, /too large/);
 });
 
@@ -116,13 +144,25 @@ test('a chunked 200 MB multipart upload is refused with 413 on the file field at
   const boundary = 'capped-body-test-boundary';
   const prefix = `--${boundary}\r\ncontent-disposition: form-data; name="file"; filename="big.pdf"\r\ncontent-type: application/pdf\r\n\r\n%PDF-1.7\n`;
   const parsed = await refusedEveryTime(`POST /api/boats/${boatId}/documents`, () =>
-    postChunked(`/api/boats/${boatId}/documents`, { 'content-type': `multipart/form-data; boundary=${boundary}`, cookie: entrant.cookieHeader() }, prefix));
+    postChunked(
+      `/api/boats/${boatId}/documents`,
+      { 'content-type': `multipart/form-data; boundary=${boundary}`, cookie: entrant.cookieHeader() },
+      prefix,
+    ),
+  );
   assert.deepEqual(parsed.error.details, [{ field: 'file', message: 'The file is larger than 10 MB.' }]);
   assert.deepEqual(await query('select count(*)::int as n from boat_documents'), before, 'nothing was stored');
 });
 
-test('a chunked 200 MB form to next-auth\'s sign-in callback is refused with 413 at 64 KB (next-auth itself would read it whole)', async () => {
-  await refusedEveryTime('POST /api/auth/callback/password', () => postChunked('/api/auth/callback/password', { 'content-type': 'application/x-www-form-urlencoded' }, 'email=a%40example.org&password=', 0x61));
+test("a chunked 200 MB form to next-auth's sign-in callback is refused with 413 at 64 KB (next-auth itself would read it whole)", async () => {
+  await refusedEveryTime('POST /api/auth/callback/password', () =>
+    postChunked(
+      '/api/auth/callback/password',
+      { 'content-type': 'application/x-www-form-urlencoded' },
+      'email=a%40example.org&password=',
+      0x61,
+    ),
+  );
   // Signing in still works through the same path (the body is handed on intact).
   const s = new HttpSession();
   await s.signInWithPassword(DEMO.entrant, DEMO_PASSWORD);
@@ -132,12 +172,16 @@ test('a chunked 200 MB form to next-auth\'s sign-in callback is refused with 413
 test('a chunked body under the cap is still read whole (the reader does not refuse honest chunked requests)', async () => {
   // A small chunked JSON body to the public calculation API: answered 200 with figures.
   const res = await new Promise<{ status: number; text: string }>((resolve, reject) => {
-    const req = http.request(new URL('/api/v1/jet-performance/crossover', BASE_URL), { method: 'POST', agent: false, headers: { 'content-type': 'application/json', 'transfer-encoding': 'chunked' } }, (r) => {
-      let text = '';
-      r.setEncoding('utf8');
-      r.on('data', (d) => (text += d));
-      r.on('end', () => resolve({ status: r.statusCode ?? 0, text }));
-    });
+    const req = http.request(
+      new URL('/api/v1/jet-performance/crossover', BASE_URL),
+      { method: 'POST', agent: false, headers: { 'content-type': 'application/json', 'transfer-encoding': 'chunked' } },
+      (r) => {
+        let text = '';
+        r.setEncoding('utf8');
+        r.on('data', (d) => (text += d));
+        r.on('end', () => resolve({ status: r.statusCode ?? 0, text }));
+      },
+    );
     req.on('error', reject);
     req.write('{"powerKw": 200,');
     req.write(' "nozzleDiametersMm": [95, 105]}');

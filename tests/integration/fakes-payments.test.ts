@@ -19,7 +19,14 @@ const sdk = (key = KEY, url = API_URL) =>
   new Stripe(key, { host: url.hostname, port: Number(url.port), protocol: 'http', maxNetworkRetries: 0 });
 const stripe = sdk();
 
-type FakeEvent = { id: string; type: string; payload: string; signatureHeader: string; delivered: boolean; attempts: { status: number | null }[] };
+type FakeEvent = {
+  id: string;
+  type: string;
+  payload: string;
+  signatureHeader: string;
+  delivered: boolean;
+  attempts: { status: number | null }[];
+};
 
 async function fakeJson<T>(p: string, init?: RequestInit): Promise<T> {
   const res = await fetch(new URL(p, API_URL), init);
@@ -31,7 +38,16 @@ const events = () => fakeJson<FakeEvent[]>('/_fake/events');
 function newSession(amountMinor = 4500, extra: Partial<Stripe.Checkout.SessionCreateParams> = {}) {
   return stripe.checkout.sessions.create({
     mode: 'payment',
-    line_items: [{ quantity: 2, price_data: { currency: 'gbp', unit_amount: amountMinor / 2, product_data: { name: 'Entry fee — Class J2 (invented)' } } }],
+    line_items: [
+      {
+        quantity: 2,
+        price_data: {
+          currency: 'gbp',
+          unit_amount: amountMinor / 2,
+          product_data: { name: 'Entry fee — Class J2 (invented)' },
+        },
+      },
+    ],
     success_url: 'http://localhost:3100/pay/done?session={CHECKOUT_SESSION_ID}',
     cancel_url: 'http://localhost:3100/pay/cancelled',
     client_reference_id: 'entry-test-1',
@@ -61,7 +77,10 @@ async function flakyReceiver() {
     const deadline = Date.now() + 8000;
     while (received.length < n) {
       assert.ok(Date.now() < deadline, `expected ${n} deliveries, got ${received.length}`);
-      await new Promise<void>((r) => { waiters.push(r); setTimeout(r, 200); });
+      await new Promise<void>((r) => {
+        waiters.push(r);
+        setTimeout(r, 200);
+      });
     }
   };
   return { url, received, waitFor, close: () => new Promise((r) => server.close(r)) };
@@ -70,7 +89,10 @@ async function flakyReceiver() {
 test('the fake answers its health check', async () => {
   const deadline = Date.now() + 5000;
   for (;;) {
-    const ok = await fetch(new URL('/_fake/health', API_URL)).then((r) => r.ok, () => false);
+    const ok = await fetch(new URL('/_fake/health', API_URL)).then(
+      (r) => r.ok,
+      () => false,
+    );
     if (ok) break;
     assert.ok(Date.now() < deadline, 'payments fake not reachable');
     await new Promise((r) => setTimeout(r, 100));
@@ -107,7 +129,9 @@ test('the same Idempotency-Key returns the same session; other parameters under 
   const params = (unitAmount: number): Stripe.Checkout.SessionCreateParams => ({
     mode: 'payment',
     success_url: 'http://localhost/ok',
-    line_items: [{ quantity: 1, price_data: { currency: 'eur', unit_amount: unitAmount, product_data: { name: 'Protest fee' } } }],
+    line_items: [
+      { quantity: 1, price_data: { currency: 'eur', unit_amount: unitAmount, product_data: { name: 'Protest fee' } } },
+    ],
   });
   const a = await stripe.checkout.sessions.create(params(3000), { idempotencyKey: key });
   const b = await stripe.checkout.sessions.create(params(3000), { idempotencyKey: key });
@@ -115,17 +139,24 @@ test('the same Idempotency-Key returns the same session; other parameters under 
   assert.equal(b.lastResponse.headers['idempotent-replayed'], 'true');
   const c = await stripe.checkout.sessions.create(params(3000), { idempotencyKey: `${key}-other` });
   assert.notEqual(c.id, a.id);
-  await assert.rejects(stripe.checkout.sessions.create(params(9999), { idempotencyKey: key }), (err: unknown) =>
-    err instanceof Stripe.errors.StripeIdempotencyError);
+  await assert.rejects(
+    stripe.checkout.sessions.create(params(9999), { idempotencyKey: key }),
+    (err: unknown) => err instanceof Stripe.errors.StripeIdempotencyError,
+  );
 });
 
 test('paying delivers a signed checkout.session.completed, retried until accepted, verifiable with constructEvent', async () => {
   const s = await newSession(5000);
   const hook = await flakyReceiver();
   try {
-    const paid = await fakeJson<{ session: Stripe.Checkout.Session; event: { id: string } }>(`/_fake/sessions/${s.id}/pay`, {
-      method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ webhookUrl: hook.url }),
-    });
+    const paid = await fakeJson<{ session: Stripe.Checkout.Session; event: { id: string } }>(
+      `/_fake/sessions/${s.id}/pay`,
+      {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ webhookUrl: hook.url }),
+      },
+    );
     await hook.waitFor(2); // the first answer was 500; the fake must try again
     for (const d of hook.received) {
       const ev = stripe.webhooks.constructEvent(d.body, d.signature, WHSEC);
@@ -147,13 +178,21 @@ test('paying delivers a signed checkout.session.completed, retried until accepte
     assert.equal(stripe.webhooks.constructEvent(recorded.payload, recorded.signatureHeader, WHSEC).id, recorded.id);
     const tampered = recorded.payload.replace('"amount_total": 5000', '"amount_total": 1');
     assert.notEqual(tampered, recorded.payload);
-    assert.throws(() => stripe.webhooks.constructEvent(tampered, recorded.signatureHeader, WHSEC), Stripe.errors.StripeSignatureVerificationError);
-    assert.throws(() => stripe.webhooks.constructEvent(recorded.payload, recorded.signatureHeader, 'whsec_wrong'), Stripe.errors.StripeSignatureVerificationError);
+    assert.throws(
+      () => stripe.webhooks.constructEvent(tampered, recorded.signatureHeader, WHSEC),
+      Stripe.errors.StripeSignatureVerificationError,
+    );
+    assert.throws(
+      () => stripe.webhooks.constructEvent(recorded.payload, recorded.signatureHeader, 'whsec_wrong'),
+      Stripe.errors.StripeSignatureVerificationError,
+    );
 
     // A replay: the same event id and body again, freshly signed.
     const before = hook.received.length;
     const resent = await fakeJson<FakeEvent>(`/_fake/events/${recorded.id}/resend`, {
-      method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ webhookUrl: hook.url }),
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify({ webhookUrl: hook.url }),
     });
     await hook.waitFor(before + 1);
     const replay = hook.received[before];
@@ -187,16 +226,31 @@ test('a refund succeeds once; a second full refund and an over-refund are Stripe
   const s = await newSession(6000);
   await fakeJson(`/_fake/sessions/${s.id}/pay`, { method: 'POST' });
   const pi = String((await stripe.checkout.sessions.retrieve(s.id)).payment_intent);
-  const part = await stripe.refunds.create({ payment_intent: pi, amount: 1000, metadata: { reason: 'test' } }, { idempotencyKey: `r-${randomUUID()}` });
+  const part = await stripe.refunds.create(
+    { payment_intent: pi, amount: 1000, metadata: { reason: 'test' } },
+    { idempotencyKey: `r-${randomUUID()}` },
+  );
   assert.match(part.id, /^re_/);
   assert.equal(part.status, 'succeeded');
   assert.equal(part.amount, 1000);
-  await assert.rejects(stripe.refunds.create({ payment_intent: pi, amount: 5001 }), (err: unknown) =>
-    err instanceof Stripe.errors.StripeInvalidRequestError && err.type === 'StripeInvalidRequestError' && err.statusCode === 400 && err.code === 'amount_too_large');
+  await assert.rejects(
+    stripe.refunds.create({ payment_intent: pi, amount: 5001 }),
+    (err: unknown) =>
+      err instanceof Stripe.errors.StripeInvalidRequestError &&
+      err.type === 'StripeInvalidRequestError' &&
+      err.statusCode === 400 &&
+      err.code === 'amount_too_large',
+  );
   const rest = await stripe.refunds.create({ payment_intent: pi });
   assert.equal(rest.amount, 5000);
-  await assert.rejects(stripe.refunds.create({ payment_intent: pi }), (err: unknown) =>
-    err instanceof Stripe.errors.StripeInvalidRequestError && err.statusCode === 400 && err.code === 'charge_already_refunded' && err.rawType === 'invalid_request_error');
+  await assert.rejects(
+    stripe.refunds.create({ payment_intent: pi }),
+    (err: unknown) =>
+      err instanceof Stripe.errors.StripeInvalidRequestError &&
+      err.statusCode === 400 &&
+      err.code === 'charge_already_refunded' &&
+      err.rawType === 'invalid_request_error',
+  );
 
   const refunded = (await events()).filter((e) => e.type === 'charge.refunded' && e.payload.includes(pi));
   assert.equal(refunded.length, 2);
@@ -207,25 +261,47 @@ test('a refund succeeds once; a second full refund and an over-refund are Stripe
 });
 
 test('a wrong API key is StripeAuthenticationError; an unknown session is resource_missing', async () => {
-  await assert.rejects(sdk('sk_test_wrong').checkout.sessions.retrieve('cs_test_x'), (err: unknown) =>
-    err instanceof Stripe.errors.StripeAuthenticationError && err.statusCode === 401);
-  await assert.rejects(stripe.checkout.sessions.retrieve('cs_test_doesnotexist'), (err: unknown) =>
-    err instanceof Stripe.errors.StripeInvalidRequestError && err.statusCode === 404 && err.code === 'resource_missing');
-  await assert.rejects(stripe.checkout.sessions.create({ mode: 'payment', line_items: [] } as Stripe.Checkout.SessionCreateParams), (err: unknown) =>
-    err instanceof Stripe.errors.StripeInvalidRequestError && err.param === 'line_items');
+  await assert.rejects(
+    sdk('sk_test_wrong').checkout.sessions.retrieve('cs_test_x'),
+    (err: unknown) => err instanceof Stripe.errors.StripeAuthenticationError && err.statusCode === 401,
+  );
+  await assert.rejects(
+    stripe.checkout.sessions.retrieve('cs_test_doesnotexist'),
+    (err: unknown) =>
+      err instanceof Stripe.errors.StripeInvalidRequestError &&
+      err.statusCode === 404 &&
+      err.code === 'resource_missing',
+  );
+  await assert.rejects(
+    stripe.checkout.sessions.create({ mode: 'payment', line_items: [] } as Stripe.Checkout.SessionCreateParams),
+    (err: unknown) => err instanceof Stripe.errors.StripeInvalidRequestError && err.param === 'line_items',
+  );
 });
 
 test('sessions survive a restart of the fake (state file)', async () => {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'boreline-payments-'));
   after(() => fs.rmSync(dir, { recursive: true, force: true }));
-  const conf = { port: 0, secretKey: 'sk_test_restart', webhookSecret: 'whsec_restart', webhookUrl: 'http://127.0.0.1:9/none', storeFile: path.join(dir, 'p.json') };
+  const conf = {
+    port: 0,
+    secretKey: 'sk_test_restart',
+    webhookSecret: 'whsec_restart',
+    webhookUrl: 'http://127.0.0.1:9/none',
+    storeFile: path.join(dir, 'p.json'),
+  };
   const start = async () => {
     const f = startPaymentsFake(conf);
     await new Promise((r) => f.server.once('listening', r));
-    return { f, client: sdk('sk_test_restart', new URL(`http://127.0.0.1:${(f.server.address() as AddressInfo).port}`)) };
+    return {
+      f,
+      client: sdk('sk_test_restart', new URL(`http://127.0.0.1:${(f.server.address() as AddressInfo).port}`)),
+    };
   };
   const first = await start();
-  const s = await first.client.checkout.sessions.create({ mode: 'payment', success_url: 'http://localhost/ok', line_items: [{ quantity: 1, price_data: { currency: 'nzd', unit_amount: 2500, product_data: { name: 'Entry' } } }] });
+  const s = await first.client.checkout.sessions.create({
+    mode: 'payment',
+    success_url: 'http://localhost/ok',
+    line_items: [{ quantity: 1, price_data: { currency: 'nzd', unit_amount: 2500, product_data: { name: 'Entry' } } }],
+  });
   await first.f.close();
   const second = await start();
   try {

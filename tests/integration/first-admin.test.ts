@@ -11,22 +11,37 @@ import { query } from '../support/db';
 
 const scratch = `boreline_setup_${Date.now().toString(36)}`;
 const base = new URL(process.env.DATABASE_URL!);
-const scratchUrl = (() => { const u = new URL(base); u.pathname = `/${scratch}`; return u.toString(); })();
+const scratchUrl = (() => {
+  const u = new URL(base);
+  u.pathname = `/${scratch}`;
+  return u.toString();
+})();
 
 function createAdmin(databaseUrl: string, input: string) {
   return spawnSync('node_modules/.bin/tsx', ['scripts/create-first-admin.ts'], {
-    input, encoding: 'utf8', timeout: 60_000, env: { ...process.env, DATABASE_URL: databaseUrl },
+    input,
+    encoding: 'utf8',
+    timeout: 60_000,
+    env: { ...process.env, DATABASE_URL: databaseUrl },
   });
 }
 async function inScratch<T>(sql: string, params: unknown[] = []): Promise<T[]> {
   const c = new pg.Client({ connectionString: scratchUrl });
   await c.connect();
-  try { return (await c.query(sql, params)).rows as T[]; } finally { await c.end(); }
+  try {
+    return (await c.query(sql, params)).rows as T[];
+  } finally {
+    await c.end();
+  }
 }
 
 before(async () => {
   await query(`create database ${scratch}`);
-  const migrated = spawnSync('npx', ['sequelize-cli', 'db:migrate'], { encoding: 'utf8', env: { ...process.env, DATABASE_URL: scratchUrl }, timeout: 120_000 });
+  const migrated = spawnSync('npx', ['sequelize-cli', 'db:migrate'], {
+    encoding: 'utf8',
+    env: { ...process.env, DATABASE_URL: scratchUrl },
+    timeout: 120_000,
+  });
   assert.equal(migrated.status, 0, migrated.stderr);
 });
 after(async () => {
@@ -51,7 +66,13 @@ test('the first answers make the site administrator, once; a second run changes 
   assert.equal(run.status, 0, run.stderr);
   assert.match(run.stdout, /site administrator ana@club\.example created/);
   assert.doesNotMatch(run.stdout + run.stderr, /river-gauge-4471/, 'the password is never printed');
-  const rows = await inScratch<{ name: string; email: string; is_admin: boolean; password_hash: string; email_verified: Date | null }>('select * from users');
+  const rows = await inScratch<{
+    name: string;
+    email: string;
+    is_admin: boolean;
+    password_hash: string;
+    email_verified: Date | null;
+  }>('select * from users');
   assert.equal(rows.length, 1);
   assert.equal(rows[0].email, 'ana@club.example');
   assert.equal(rows[0].name, 'Ana Reyes');
@@ -60,7 +81,12 @@ test('the first answers make the site administrator, once; a second run changes 
   // Checked with node:crypto's scrypt directly, not with the app's own verifier.
   const [kind, N, r, p, salt, key] = rows[0].password_hash.split('$');
   assert.equal(kind, 'scrypt', 'a scrypt hash');
-  const derived = scryptSync('river-gauge-4471', Buffer.from(salt, 'base64url'), 32, { N: Number(N), r: Number(r), p: Number(p), maxmem: 64 * 1024 * 1024 });
+  const derived = scryptSync('river-gauge-4471', Buffer.from(salt, 'base64url'), 32, {
+    N: Number(N),
+    r: Number(r),
+    p: Number(p),
+    maxmem: 64 * 1024 * 1024,
+  });
   assert.ok(timingSafeEqual(derived, Buffer.from(key, 'base64url')), 'the password verifies');
 
   const again = createAdmin(scratchUrl, 'Mallory\nmallory@evil.example\nmallory-password-1\n');

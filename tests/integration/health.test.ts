@@ -6,7 +6,10 @@ import { BASE_URL } from '../support/env';
 import pkg from '../../package.json';
 
 const pgCtl = (action: 'start' | 'stop') =>
-  execFileSync('bash', ['scripts/pg.sh', 'boreline_test'], { env: { ...process.env, PG_ACTION: action }, stdio: 'pipe' });
+  execFileSync('bash', ['scripts/pg.sh', 'boreline_test'], {
+    env: { ...process.env, PG_ACTION: action },
+    stdio: 'pipe',
+  });
 
 test('health is 200 with the version when the database answers', async () => {
   const res = await fetch(`${BASE_URL}/api/health`);

@@ -17,13 +17,54 @@ let tables: string[] = [];
 
 // Strings known to break naive code: SQL and script injection, path tricks, Unicode edge cases.
 const NASTY = [
-  "' OR 1=1 --", "'; drop table users; --", '<script>alert(1)</script>', '"><img src=x onerror=alert(1)>', '../../etc/passwd',
-  '%00', '\u0000', '\u202e\u0041\u0042', '😀'.repeat(50), 'e\u0301\u0301\u0301', '\ud800', 'x'.repeat(10_000), '{{7*7}}', '${7*7}', 'NaN', '-0', '1e309',
+  "' OR 1=1 --",
+  "'; drop table users; --",
+  '<script>alert(1)</script>',
+  '"><img src=x onerror=alert(1)>',
+  '../../etc/passwd',
+  '%00',
+  '\u0000',
+  '\u202e\u0041\u0042',
+  '😀'.repeat(50),
+  'e\u0301\u0301\u0301',
+  '\ud800',
+  'x'.repeat(10_000),
+  '{{7*7}}',
+  '${7*7}',
+  'NaN',
+  '-0',
+  '1e309',
 ];
 const nasty = fc.constantFrom(...NASTY);
-const value = fc.oneof(fc.string({ maxLength: 40 }), nasty, fc.integer(), fc.double(), fc.boolean(), fc.constant(null), fc.array(nasty, { maxLength: 3 }));
+const value = fc.oneof(
+  fc.string({ maxLength: 40 }),
+  nasty,
+  fc.integer(),
+  fc.double(),
+  fc.boolean(),
+  fc.constant(null),
+  fc.array(nasty, { maxLength: 3 }),
+);
 const body = fc.oneof(
-  fc.dictionary(fc.oneof(fc.string({ maxLength: 12 }), fc.constantFrom('powerKw', 'nozzleDiameterMm', 'name', 'email', 'rules', 'readingsMm', 'entryId', 'reason', '__proto__', 'constructor')), value, { maxKeys: 6 }),
+  fc.dictionary(
+    fc.oneof(
+      fc.string({ maxLength: 12 }),
+      fc.constantFrom(
+        'powerKw',
+        'nozzleDiameterMm',
+        'name',
+        'email',
+        'rules',
+        'readingsMm',
+        'entryId',
+        'reason',
+        '__proto__',
+        'constructor',
+      ),
+    ),
+    value,
+    { maxKeys: 6 },
+  ),
   fc.array(value, { maxLength: 4 }),
   value,
 );
@@ -46,17 +87,39 @@ function checkErrorShape(status: number, text: string, label: string) {
 before(async () => {
   await organiser.signInWithPassword(DEMO.organiser, DEMO_PASSWORD);
   await entrant.signInWithPassword(DEMO.entrant, DEMO_PASSWORD);
-  tables = (await query<{ table_name: string }>(`select table_name from information_schema.tables where table_schema = 'public' and table_type = 'BASE TABLE' and table_name not in ('auth_throttles', 'sessions', 'verification_tokens') order by 1`)).map((r) => r.table_name);
+  tables = (
+    await query<{ table_name: string }>(
+      `select table_name from information_schema.tables where table_schema = 'public' and table_type = 'BASE TABLE' and table_name not in ('auth_throttles', 'sessions', 'verification_tokens') order by 1`,
+    )
+  ).map((r) => r.table_name);
   const [own] = await query<{ entry_id: string; boat_id: string; class_id: string }>(
     `select e.id as entry_id, e.boat_id, e.class_id from entries e join users u on u.id = e.entrant_id where u.email = $1 and e.event_id = $2 limit 1`,
     [DEMO.entrant, DEMO.meetingId],
   );
-  ids = { eventId: DEMO.meetingId, classId: own.class_id, entryId: own.entry_id, spareEntryId: own.entry_id, boatId: own.boat_id, tagToken: 'x', raceNumber: 1, documentId: own.boat_id, missingId: '00000000-0000-4000-8000-000000000000',
-    protestId: '00000000-0000-4000-8000-000000000000', evidenceId: '00000000-0000-4000-8000-000000000000' };
+  ids = {
+    eventId: DEMO.meetingId,
+    classId: own.class_id,
+    entryId: own.entry_id,
+    spareEntryId: own.entry_id,
+    boatId: own.boat_id,
+    tagToken: 'x',
+    raceNumber: 1,
+    documentId: own.boat_id,
+    missingId: '00000000-0000-4000-8000-000000000000',
+    protestId: '00000000-0000-4000-8000-000000000000',
+    evidenceId: '00000000-0000-4000-8000-000000000000',
+  };
 });
 
 // JSON-bodied writes; multipart uploads and body-less actions (withdraw, checkout, reissue, publish) are covered elsewhere.
-const JSON_WRITES = ROUTES.filter((r) => r.method !== 'GET' && r.access !== 'skip' && r.access !== 'method-not-allowed' && r.access !== 'webhook' && !/documents|photos|evidence|withdraw|checkout|\/tag\/|publish/.test(r.file));
+const JSON_WRITES = ROUTES.filter(
+  (r) =>
+    r.method !== 'GET' &&
+    r.access !== 'skip' &&
+    r.access !== 'method-not-allowed' &&
+    r.access !== 'webhook' &&
+    !/documents|photos|evidence|withdraw|checkout|\/tag\/|publish/.test(r.file),
+);
 
 test('random and hostile JSON bodies: never a 5xx, errors in the one shape, nothing stored when refused', async () => {
   for (const r of JSON_WRITES) {
@@ -64,10 +127,15 @@ test('random and hostile JSON bodies: never a 5xx, errors in the one shape, noth
     await fc.assert(
       fc.asyncProperty(body, async (b) => {
         const before = await fingerprint();
-        const res = await s.fetch(r.path(ids), { method: r.method, headers: { 'content-type': 'application/json' }, body: JSON.stringify(b) });
+        const res = await s.fetch(r.path(ids), {
+          method: r.method,
+          headers: { 'content-type': 'application/json' },
+          body: JSON.stringify(b),
+        });
         const text = await res.text();
         checkErrorShape(res.status, text, `${r.method} ${r.path(ids)} ${JSON.stringify(b).slice(0, 120)}`);
-        if (res.status >= 400) assert.equal(await fingerprint(), before, `${r.method} ${r.path(ids)} changed the database while refusing`);
+        if (res.status >= 400)
+          assert.equal(await fingerprint(), before, `${r.method} ${r.path(ids)} changed the database while refusing`);
       }),
       { numRuns: 12, seed: 20261201 },
     );
@@ -87,7 +155,10 @@ test('wrong content types, broken JSON and oversized bodies are refused cleanly'
       const res = await s.fetch(r.path(ids), { method: r.method, ...init });
       const text = await res.text();
       checkErrorShape(res.status, text, `${r.method} ${r.path(ids)} ${init.headers['content-type']}`);
-      assert.ok(res.status >= 400, `${r.method} ${r.path(ids)} accepted ${init.headers['content-type']} (${res.status})`);
+      assert.ok(
+        res.status >= 400,
+        `${r.method} ${r.path(ids)} accepted ${init.headers['content-type']} (${res.status})`,
+      );
     }
     assert.equal(await fingerprint(), before);
   }
@@ -95,48 +166,104 @@ test('wrong content types, broken JSON and oversized bodies are refused cleanly'
 
 test('odd path parameters never reach a 5xx, with or without a body', async () => {
   const gets = ROUTES.filter((r) => r.access !== 'skip' && r.access !== 'webhook');
-  const segment = fc.oneof(nasty, fc.string({ minLength: 1, maxLength: 30 }), fc.uuid(), fc.constantFrom('0', '-1', '99999999999999999999', 'null', 'undefined'));
+  const segment = fc.oneof(
+    nasty,
+    fc.string({ minLength: 1, maxLength: 30 }),
+    fc.uuid(),
+    fc.constantFrom('0', '-1', '99999999999999999999', 'null', 'undefined'),
+  );
   await fc.assert(
     fc.asyncProperty(fc.constantFrom(...gets), segment, async (r, seg) => {
       // A lone surrogate cannot be percent-encoded as UTF-8; send the bytes a broken client would.
       let enc: string;
-      try { enc = encodeURIComponent(seg); } catch { enc = '%ED%A0%80'; }
-      const path = r.path({ ...ids, eventId: enc, classId: enc, boatId: enc, entryId: enc, spareEntryId: enc, tagToken: enc, raceNumber: enc as unknown as number, documentId: enc, protestId: enc, evidenceId: enc });
+      try {
+        enc = encodeURIComponent(seg);
+      } catch {
+        enc = '%ED%A0%80';
+      }
+      const path = r.path({
+        ...ids,
+        eventId: enc,
+        classId: enc,
+        boatId: enc,
+        entryId: enc,
+        spareEntryId: enc,
+        tagToken: enc,
+        raceNumber: enc as unknown as number,
+        documentId: enc,
+        protestId: enc,
+        evidenceId: enc,
+      });
       const before = r.method === 'GET' ? '' : await fingerprint();
       // A body (with its Content-Length) takes another way through Next than a bare GET does.
-      const init: RequestInit = r.method === 'GET' ? {} : { method: r.method, headers: { 'content-type': 'application/json' }, body: '{}' };
+      const init: RequestInit =
+        r.method === 'GET' ? {} : { method: r.method, headers: { 'content-type': 'application/json' }, body: '{}' };
       const res = await organiser.fetch(path, init);
       const text = await res.text();
       // Node's HTTP parser refuses a request head over 16 KB with 431 before the app sees it.
       if (res.status === 431) return assert.ok(path.length > 8000, `431 for a ${path.length}-character path`);
       checkErrorShape(res.status, text, `${r.method} ${path}`);
-      if (r.method !== 'GET' && res.status >= 400) assert.equal(await fingerprint(), before, `${r.method} ${path} changed the database while refusing`);
+      if (r.method !== 'GET' && res.status >= 400)
+        assert.equal(await fingerprint(), before, `${r.method} ${path} changed the database while refusing`);
     }),
     { numRuns: 300, seed: 42 },
   );
 });
 
 test('random and hostile query strings on every GET route and the pages that read them: never a 5xx', async () => {
-  const gets = ROUTES.filter((r) => r.method === 'GET' && r.access !== 'skip').map((r) => ({ label: r.file, path: r.path(ids), api: true }));
+  const gets = ROUTES.filter((r) => r.method === 'GET' && r.access !== 'skip').map((r) => ({
+    label: r.file,
+    path: r.path(ids),
+    api: true,
+  }));
   // Pages whose server components read searchParams.
-  const pages = ['/sign-in', `/stewards/${ids.eventId}/audit`, '/entries', `/protests/${ids.protestId}`].map((p) => ({ label: p, path: p, api: false }));
+  const pages = ['/sign-in', `/stewards/${ids.eventId}/audit`, '/entries', `/protests/${ids.protestId}`].map((p) => ({
+    label: p,
+    path: p,
+    api: false,
+  }));
   // The keys the app reads (tag sheet, re-inspections, audit paging, rules in force, board filters,
   // sign-in errors, payment returns), duplicated or alone, and random ones.
   const key = fc.oneof(
-    fc.constantFrom('sheet', 'classId', 'open', 'at', 'class', 'result', 'subjectType', 'subjectId', 'before', 'limit', 'error', 'callbackUrl', 'paid', 'session_id', '__proto__'),
+    fc.constantFrom(
+      'sheet',
+      'classId',
+      'open',
+      'at',
+      'class',
+      'result',
+      'subjectType',
+      'subjectId',
+      'before',
+      'limit',
+      'error',
+      'callbackUrl',
+      'paid',
+      'session_id',
+      '__proto__',
+    ),
     fc.string({ minLength: 1, maxLength: 10 }),
   );
-  const qvalue = fc.oneof(nasty, fc.string({ maxLength: 30 }), fc.integer().map(String), fc.constantFrom('', '-1', '0', '1e309', '99999999999999999999', 'https://evil.example/', '//evil.example'));
+  const qvalue = fc.oneof(
+    nasty,
+    fc.string({ maxLength: 30 }),
+    fc.integer().map(String),
+    fc.constantFrom('', '-1', '0', '1e309', '99999999999999999999', 'https://evil.example/', '//evil.example'),
+  );
   await fc.assert(
-    fc.asyncProperty(fc.constantFrom(...gets, ...pages), fc.array(fc.tuple(key, qvalue), { minLength: 1, maxLength: 4 }), async (target, pairs) => {
-      const qs = new URLSearchParams(pairs).toString();
-      const res = await organiser.fetch(`${target.path}?${qs}`);
-      const text = await res.text();
-      // Node's HTTP parser refuses a request head over 16 KB with 431 before the app sees it.
-      if (res.status === 431) return assert.ok(qs.length > 8000, `431 for a ${qs.length}-character query`);
-      if (target.api) checkErrorShape(res.status, text, `GET ${target.path}?${qs.slice(0, 120)}`);
-      else assert.ok(res.status < 500, `GET ${target.path}?${qs.slice(0, 120)}: ${res.status}`);
-    }),
+    fc.asyncProperty(
+      fc.constantFrom(...gets, ...pages),
+      fc.array(fc.tuple(key, qvalue), { minLength: 1, maxLength: 4 }),
+      async (target, pairs) => {
+        const qs = new URLSearchParams(pairs).toString();
+        const res = await organiser.fetch(`${target.path}?${qs}`);
+        const text = await res.text();
+        // Node's HTTP parser refuses a request head over 16 KB with 431 before the app sees it.
+        if (res.status === 431) return assert.ok(qs.length > 8000, `431 for a ${qs.length}-character query`);
+        if (target.api) checkErrorShape(res.status, text, `GET ${target.path}?${qs.slice(0, 120)}`);
+        else assert.ok(res.status < 500, `GET ${target.path}?${qs.slice(0, 120)}: ${res.status}`);
+      },
+    ),
     { numRuns: 300, seed: 7 },
   );
   // Broken percent-encoding in the query itself is read leniently (U+FFFD), never a 5xx.
@@ -150,9 +277,20 @@ test('broken percent-encoding in the address: 400 in the one error shape for eve
   // Bytes that are not UTF-8 (a lone surrogate, a truncated sequence) and an escape that is not hex.
   for (const bad of ['%ED%A0%80', '%E0%A4%A', '%ZZ']) {
     for (const r of ROUTES.filter((x) => x.access !== 'skip' && /\[/.test(x.file))) {
-      const path = r.path({ ...ids, eventId: bad, boatId: bad, entryId: bad, spareEntryId: bad, documentId: bad, protestId: bad, evidenceId: bad, tagToken: bad });
+      const path = r.path({
+        ...ids,
+        eventId: bad,
+        boatId: bad,
+        entryId: bad,
+        spareEntryId: bad,
+        documentId: bad,
+        protestId: bad,
+        evidenceId: bad,
+        tagToken: bad,
+      });
       if (!path.includes(bad)) continue;
-      const init: RequestInit = r.method === 'GET' ? {} : { method: r.method, headers: { 'content-type': 'application/json' }, body: '{}' };
+      const init: RequestInit =
+        r.method === 'GET' ? {} : { method: r.method, headers: { 'content-type': 'application/json' }, body: '{}' };
       const res = await organiser.fetch(path, init);
       const text = await res.text();
       assert.equal(res.status, 400, `${r.method} ${path}: ${res.status} ${text.slice(0, 120)}`);
@@ -172,9 +310,22 @@ test('percent-encoded percent signs (valid UTF-8 addresses whose segments decode
     assert.equal(tag.status, 404, `GET tags/${seg}: ${tag.status} ${tagText.slice(0, 160)}`);
     assert.equal(JSON.parse(tagText).error.code, 'unknown_tag');
     for (const r of ROUTES.filter((x) => x.access !== 'skip' && x.access !== 'webhook' && /\[/.test(x.file))) {
-      const path = r.path({ ...ids, eventId: seg, classId: seg, boatId: seg, entryId: seg, spareEntryId: seg, documentId: seg, protestId: seg, evidenceId: seg, tagToken: seg, raceNumber: seg as unknown as number });
+      const path = r.path({
+        ...ids,
+        eventId: seg,
+        classId: seg,
+        boatId: seg,
+        entryId: seg,
+        spareEntryId: seg,
+        documentId: seg,
+        protestId: seg,
+        evidenceId: seg,
+        tagToken: seg,
+        raceNumber: seg as unknown as number,
+      });
       if (!path.includes(seg)) continue;
-      const init: RequestInit = r.method === 'GET' ? {} : { method: r.method, headers: { 'content-type': 'application/json' }, body: '{}' };
+      const init: RequestInit =
+        r.method === 'GET' ? {} : { method: r.method, headers: { 'content-type': 'application/json' }, body: '{}' };
       for (const s of [organiser, scrutineer]) {
         const res = await s.fetch(path, init);
         const text = await res.text();
@@ -200,8 +351,20 @@ test('percent-encoded percent signs (valid UTF-8 addresses whose segments decode
 test('HTML output escapes user text', async () => {
   const name = '<script>window.pwned=1</script><img src=x onerror=alert(1)>';
   const { res, body: created } = await entrant.json('/api/boats', {
-    name, hullNumber: '', hullDescription: '', pumpDescription: name, impellerDescription: '', nozzleDiameter: 100, nozzleUnit: 'mm',
-    nozzleToleranceMm: 0.1, engineDescription: '', power: 200, powerUnit: 'kW', powerEvidence: 'none', displacementL: null, declaredWeightKg: null,
+    name,
+    hullNumber: '',
+    hullDescription: '',
+    pumpDescription: name,
+    impellerDescription: '',
+    nozzleDiameter: 100,
+    nozzleUnit: 'mm',
+    nozzleToleranceMm: 0.1,
+    engineDescription: '',
+    power: 200,
+    powerUnit: 'kW',
+    powerEvidence: 'none',
+    displacementL: null,
+    declaredWeightKg: null,
   });
   assert.equal(res.status, 201, JSON.stringify(created));
   const page = await entrant.fetch(`/boats/${created.data.id}`);

@@ -15,7 +15,8 @@ const scrutineer = new HttpSession();
 const classes: Record<'simple' | 'guarded' | 'iso14253', string> = { simple: '', guarded: '', iso14253: '' };
 let entry: TestEntry;
 const post = (s: HttpSession, body: unknown) => s.json(`/api/events/${meeting.eventId}/inspections`, body);
-const countByKey = async (key: string) => Number((await query<{ n: string }>('select count(*) as n from inspections where idempotency_key = $1', [key]))[0].n);
+const countByKey = async (key: string) =>
+  Number((await query<{ n: string }>('select count(*) as n from inspections where idempotency_key = $1', [key]))[0].n);
 
 before(async () => {
   await meeting.create(`Inspection Test Meeting ${Date.now()}`, [{ email: DEMO.scrutineer, role: 'scrutineer' }]);
@@ -40,19 +41,35 @@ test('stored verdicts match the four worked decisions under each decision rule (
       const e = await meeting.addEntry(classes[rule]);
       const { res, body } = await post(scrutineer, inspectionBody(e.id, largest));
       assert.equal(res.status, 201, JSON.stringify(body));
-      const [row] = await query<{ results: { rules: { rule: string; verdict: string; decisiveValue: number; limit: number; acceptanceLimit: number; expandedUncertainty: number }[]; decisionRule: string }; overall_result: string }>(
-        'select results, overall_result from inspections where id = $1', [body.data.id],
-      );
+      const [row] = await query<{
+        results: {
+          rules: {
+            rule: string;
+            verdict: string;
+            decisiveValue: number;
+            limit: number;
+            acceptanceLimit: number;
+            expandedUncertainty: number;
+          }[];
+          decisionRule: string;
+        };
+        overall_result: string;
+      }>('select results, overall_result from inspections where id = $1', [body.data.id]);
       const nozzle = row.results.rules.find((r) => r.rule === 'nozzle_max')!;
       assert.equal(nozzle.verdict, expected[rule], `${largest} mm under ${rule}`);
       assert.equal(nozzle.decisiveValue, largest, 'the largest two-point size decides (ISO 14405-1:2016)');
       assert.equal(nozzle.limit, 102);
       assert.equal(nozzle.expandedUncertainty, 0.05);
-      assert.ok(Math.abs(nozzle.acceptanceLimit - (rule === 'simple' ? 102 : 101.95)) < 1e-9, 'guard band w = U except for simple acceptance');
+      assert.ok(
+        Math.abs(nozzle.acceptanceLimit - (rule === 'simple' ? 102 : 101.95)) < 1e-9,
+        'guard band w = U except for simple acceptance',
+      );
       assert.equal(row.results.decisionRule, rule);
       assert.equal(row.overall_result, expected[rule], 'the helmet is ticked, so the nozzle decides overall');
       assert.equal(body.data.overallResult, expected[rule]);
-      const [en] = await query<{ inspection_result: string }>('select inspection_result from entries where id = $1', [e.id]);
+      const [en] = await query<{ inspection_result: string }>('select inspection_result from entries where id = $1', [
+        e.id,
+      ]);
       assert.equal(en.inspection_result, expected[rule], 'the entry carries its newest result');
     }
   }
@@ -78,7 +95,11 @@ test('the same key sent three times makes one record (201 then 200, 200); two ke
   assert.equal(await countByKey(body.idempotencyKey), 1);
   // Sent at the same moment (a double tap on two connections): still one record.
   const parallel = inspectionBody(entry.id, 101.9);
-  const answers = await Promise.all([post(scrutineer, parallel), post(scrutineer, parallel), post(scrutineer, parallel)]);
+  const answers = await Promise.all([
+    post(scrutineer, parallel),
+    post(scrutineer, parallel),
+    post(scrutineer, parallel),
+  ]);
   assert.deepEqual(answers.map((a) => a.res.status).sort(), [200, 200, 201]);
   assert.equal(new Set(answers.map((a) => a.body.data.id)).size, 1);
   assert.equal(await countByKey(parallel.idempotencyKey), 1);
@@ -98,12 +119,20 @@ test('records for one entry sent at once: the entry ends with the result of the 
     const e = await meeting.addEntry(classes.iso14253);
     const base = Date.now() - 60_000;
     const bodies = Array.from({ length: 8 }, (_, i) =>
-      inspectionBody(e.id, i % 2 ? 102.06 : 101.93, { capturedAt: new Date(base + ((i * 5 + round) % 8) * 1000).toISOString() }));
+      inspectionBody(e.id, i % 2 ? 102.06 : 101.93, {
+        capturedAt: new Date(base + ((i * 5 + round) % 8) * 1000).toISOString(),
+      }),
+    );
     const answers = await Promise.all(bodies.map((b) => post(scrutineer, b)));
-    assert.deepEqual(answers.map((a) => a.res.status), Array(8).fill(201));
+    assert.deepEqual(
+      answers.map((a) => a.res.status),
+      Array(8).fill(201),
+    );
     const latest = bodies.reduce((a, b) => (a.capturedAt > b.capturedAt ? a : b));
     const expected = latest.nozzle.readings[1].diameterMm === 102.06 ? 'does_not_conform' : 'conforms';
-    const [en] = await query<{ inspection_result: string }>('select inspection_result from entries where id = $1', [e.id]);
+    const [en] = await query<{ inspection_result: string }>('select inspection_result from entries where id = $1', [
+      e.id,
+    ]);
     assert.equal(en.inspection_result, expected, `round ${round}`);
   }
 });
@@ -115,20 +144,38 @@ test('a correction supersedes and keeps the original; both are in the history; t
   const noReason = await post(scrutineer, inspectionBody(e.id, 101.93, { supersedesId: original.body.data.id }));
   assert.equal(noReason.res.status, 400);
   assert.ok(noReason.body.error.details.some((d: { field: string }) => d.field === 'correctionReason'));
-  const otherEntry = await post(scrutineer, inspectionBody(entry.id, 101.93, { supersedesId: original.body.data.id, correctionReason: 'wrong boat' }));
+  const otherEntry = await post(
+    scrutineer,
+    inspectionBody(entry.id, 101.93, { supersedesId: original.body.data.id, correctionReason: 'wrong boat' }),
+  );
   assert.equal(otherEntry.res.status, 400);
   assert.ok(otherEntry.body.error.details.some((d: { field: string }) => d.field === 'supersedesId'));
 
-  const fix = await post(scrutineer, inspectionBody(e.id, 101.93, { supersedesId: original.body.data.id, correctionReason: 'reading 2 was typed as 102.06; the gauge showed 101.93' }));
+  const fix = await post(
+    scrutineer,
+    inspectionBody(e.id, 101.93, {
+      supersedesId: original.body.data.id,
+      correctionReason: 'reading 2 was typed as 102.06; the gauge showed 101.93',
+    }),
+  );
   assert.equal(fix.res.status, 201, JSON.stringify(fix.body));
   assert.equal(fix.body.data.supersedesId, original.body.data.id);
-  const rows = await query<{ id: string; overall_result: string; supersedes_id: string | null }>('select id, overall_result, supersedes_id from inspections where entry_id = $1 order by captured_at', [e.id]);
+  const rows = await query<{ id: string; overall_result: string; supersedes_id: string | null }>(
+    'select id, overall_result, supersedes_id from inspections where entry_id = $1 order by captured_at',
+    [e.id],
+  );
   assert.equal(rows.length, 2, 'the original is kept');
   assert.equal(rows[0].overall_result, 'does_not_conform');
-  const [en] = await query<{ inspection_result: string }>('select inspection_result from entries where id = $1', [e.id]);
+  const [en] = await query<{ inspection_result: string }>('select inspection_result from entries where id = $1', [
+    e.id,
+  ]);
   assert.equal(en.inspection_result, 'conforms');
   const card = await scrutineer.fetch(`/api/events/${meeting.eventId}/race-numbers/${e.raceNumber}`);
-  const history = (await card.json()).data.inspections as { id: string; supersededById: string | null; supersedesId: string | null }[];
+  const history = (await card.json()).data.inspections as {
+    id: string;
+    supersededById: string | null;
+    supersedesId: string | null;
+  }[];
   assert.equal(history.length, 2);
   assert.equal(history.find((h) => h.id === original.body.data.id)?.supersededById, fix.body.data.id);
   assert.equal(history.find((h) => h.id === fix.body.data.id)?.supersedesId, original.body.data.id);
@@ -138,13 +185,23 @@ test('no API path edits or deletes a record (405), and the database refuses an u
   const { body } = await post(scrutineer, inspectionBody(entry.id, 101.9));
   const id = body.data.id;
   for (const method of ['PUT', 'PATCH', 'DELETE']) {
-    for (const path of [`/api/events/${meeting.eventId}/inspections`, `/api/events/${meeting.eventId}/inspections/${id}/photos`]) {
-      const res = await scrutineer.fetch(path, { method, headers: { 'content-type': 'application/json' }, body: method === 'DELETE' ? undefined : JSON.stringify({ id, overallResult: 'conforms' }) });
+    for (const path of [
+      `/api/events/${meeting.eventId}/inspections`,
+      `/api/events/${meeting.eventId}/inspections/${id}/photos`,
+    ]) {
+      const res = await scrutineer.fetch(path, {
+        method,
+        headers: { 'content-type': 'application/json' },
+        body: method === 'DELETE' ? undefined : JSON.stringify({ id, overallResult: 'conforms' }),
+      });
       assert.equal(res.status, 405, `${method} ${path}`);
       assert.match(res.headers.get('allow') ?? '', /POST/);
     }
   }
-  await assert.rejects(query(`update inspections set overall_result = 'conforms', notes = 'edited' where id = $1`, [id]), /append-only/);
+  await assert.rejects(
+    query(`update inspections set overall_result = 'conforms', notes = 'edited' where id = $1`, [id]),
+    /append-only/,
+  );
   await assert.rejects(query('delete from inspections where id = $1', [id]), /append-only/);
   const [row] = await query<{ notes: string }>('select notes from inspections where id = $1', [id]);
   assert.equal(row.notes, '');
@@ -175,7 +232,10 @@ test('an entrant who is also a scrutineer here cannot record for their own boat,
   const refused = await post(person, inspectionBody(own.id, 101.9));
   assert.equal(refused.res.status, 403);
   assert.equal(refused.body.error.code, 'own_boat');
-  assert.equal(Number((await query<{ n: string }>('select count(*) as n from inspections where entry_id = $1', [own.id]))[0].n), 0);
+  assert.equal(
+    Number((await query<{ n: string }>('select count(*) as n from inspections where entry_id = $1', [own.id]))[0].n),
+    0,
+  );
   assert.equal((await post(person, inspectionBody(entry.id, 101.9))).res.status, 201, 'another boat is fine');
 });
 
@@ -185,20 +245,39 @@ test('a record is decided under the rule version in force when it was captured, 
   // conformity proven under v1, non-conformity proven under v2 (ISO 14253-1:2017).
   const cls = await meeting.addClass('VER', rulesWith());
   const o = meeting.organiser;
-  const draft = await o.json(`/api/events/${meeting.eventId}/classes/${cls}/rules`, { powerUnit: 'kW', rules: rulesWith({ nozzle: { maxMm: 101, minMm: null, minReadings: 3, defaultUncertaintyMm: 0.05 } }) }, 'PUT');
+  const draft = await o.json(
+    `/api/events/${meeting.eventId}/classes/${cls}/rules`,
+    {
+      powerUnit: 'kW',
+      rules: rulesWith({ nozzle: { maxMm: 101, minMm: null, minReadings: 3, defaultUncertaintyMm: 0.05 } }),
+    },
+    'PUT',
+  );
   assert.equal(draft.res.status, 200, JSON.stringify(draft.body));
-  const v2 = await o.json(`/api/events/${meeting.eventId}/classes/${cls}/rules/publish`, { changeNote: 'smaller nozzle', effectiveFrom: new Date(Date.now() - 3_600_000).toISOString() });
+  const v2 = await o.json(`/api/events/${meeting.eventId}/classes/${cls}/rules/publish`, {
+    changeNote: 'smaller nozzle',
+    effectiveFrom: new Date(Date.now() - 3_600_000).toISOString(),
+  });
   assert.equal(v2.res.status, 201, JSON.stringify(v2.body));
   const e = await meeting.addEntry(cls);
-  const earlier = await post(scrutineer, inspectionBody(e.id, 101.93, { capturedAt: new Date(Date.now() - 2 * 3_600_000).toISOString() }));
+  const earlier = await post(
+    scrutineer,
+    inspectionBody(e.id, 101.93, { capturedAt: new Date(Date.now() - 2 * 3_600_000).toISOString() }),
+  );
   assert.equal(earlier.res.status, 201, JSON.stringify(earlier.body));
   assert.equal(earlier.body.data.ruleVersion, 1);
   assert.equal(earlier.body.data.overallResult, 'conforms');
   const now = await post(scrutineer, inspectionBody(e.id, 101.93));
   assert.equal(now.body.data.ruleVersion, 2);
   assert.equal(now.body.data.overallResult, 'does_not_conform');
-  const stored = await query<{ v: number }>('select v.version as v from inspections i join class_rule_versions v on v.id = i.rule_version_id where i.id = any($1) order by i.captured_at', [[earlier.body.data.id, now.body.data.id]]);
-  assert.deepEqual(stored.map((r) => r.v), [1, 2]);
+  const stored = await query<{ v: number }>(
+    'select v.version as v from inspections i join class_rule_versions v on v.id = i.rule_version_id where i.id = any($1) order by i.captured_at',
+    [[earlier.body.data.id, now.body.data.id]],
+  );
+  assert.deepEqual(
+    stored.map((r) => r.v),
+    [1, 2],
+  );
 });
 
 test('no rules in force at the time of capture: 409 with a clear message, nothing stored', async () => {
@@ -209,6 +288,9 @@ test('no rules in force at the time of capture: 409 with a clear message, nothin
   assert.equal(res.status, 409);
   assert.equal(body.error.code, 'no_rules_in_force');
   assert.match(body.error.message, /publish the class rules/);
-  assert.equal(Number((await query<{ n: string }>('select count(*) as n from inspections where entry_id = $1', [e.id]))[0].n), 0);
+  assert.equal(
+    Number((await query<{ n: string }>('select count(*) as n from inspections where entry_id = $1', [e.id]))[0].n),
+    0,
+  );
   assert.equal(await countByKey(sent.idempotencyKey), 0);
 });

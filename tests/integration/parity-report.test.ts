@@ -27,8 +27,15 @@ const RULES = {
   nozzle: { maxMm: 102, minMm: null, minReadings: 3, defaultUncertaintyMm: 0.05 },
   power: { minKw: 150, maxKw: 300, defaultUncertaintyKw: 6 },
   weight: { minKg: null, includesDriver: true, defaultUncertaintyKg: 1 },
-  decisionRule: 'iso14253', safetyItems: [],
-  parity: { pumpEfficiency: 0.9, nozzleLossCoefficient: 0.02, inletLossCoefficient: 0.2, wakeFraction: 0, referenceSpeedsMs: [10, 20, 30] },
+  decisionRule: 'iso14253',
+  safetyItems: [],
+  parity: {
+    pumpEfficiency: 0.9,
+    nozzleLossCoefficient: 0.02,
+    inletLossCoefficient: 0.2,
+    wakeFraction: 0,
+    referenceSpeedsMs: [10, 20, 30],
+  },
 };
 
 async function addInspection(entryId: string, boatId: string, readings: number[], result = 'conforms', U = 0.05) {
@@ -36,23 +43,48 @@ async function addInspection(entryId: string, boatId: string, readings: number[]
   await query(
     `insert into inspections (event_id, entry_id, boat_id, class_id, rule_version_id, recorded_by_id, idempotency_key, captured_at, measurements, results, overall_result)
      values ($1, $2, $3, $4, $5, $6, $7, now(), $8, $9, $10)`,
-    [eventId, entryId, boatId, classId, ruleVersionId, organiserId, randomUUID(),
-      JSON.stringify({ nozzle: { readings: readings.map((d, i) => ({ diameterMm: d, angleDeg: i * 60 })) }, power: { evidenceSeen: true } }),
-      JSON.stringify([{ rule: 'nozzle_max', expandedUncertainty: U, verdict: result }]), result],
+    [
+      eventId,
+      entryId,
+      boatId,
+      classId,
+      ruleVersionId,
+      organiserId,
+      randomUUID(),
+      JSON.stringify({
+        nozzle: { readings: readings.map((d, i) => ({ diameterMm: d, angleDeg: i * 60 })) },
+        power: { evidenceSeen: true },
+      }),
+      JSON.stringify([{ rule: 'nozzle_max', expandedUncertainty: U, verdict: result }]),
+      result,
+    ],
   );
 }
 
 before(async () => {
   await organiser.signInWithPassword(DEMO.organiser, DEMO_PASSWORD);
   const ev = await organiser.json('/api/events', {
-    organisationId: '0b0e0000-0000-4000-8000-000000000001', name: 'Parity Test Sprint', venue: 'Test Water', startsOn: '2027-05-01', endsOn: '2027-05-01',
-    timeZone: 'UTC', status: 'racing', waterKind: 'fresh', waterTemperatureC: 20, waterDensityKgM3: null, protestWindowMinutes: 30,
-    currency: 'NZD', entryFeeMinor: 0, protestFeeMinor: 0,
+    organisationId: '0b0e0000-0000-4000-8000-000000000001',
+    name: 'Parity Test Sprint',
+    venue: 'Test Water',
+    startsOn: '2027-05-01',
+    endsOn: '2027-05-01',
+    timeZone: 'UTC',
+    status: 'racing',
+    waterKind: 'fresh',
+    waterTemperatureC: 20,
+    waterDensityKgM3: null,
+    protestWindowMinutes: 30,
+    currency: 'NZD',
+    entryFeeMinor: 0,
+    protestFeeMinor: 0,
   });
   eventId = ev.body.data.id;
   classId = (await organiser.json(`/api/events/${eventId}/classes`, { name: 'Parity Test', code: 'PT' })).body.data.id;
   await organiser.json(`/api/events/${eventId}/classes/${classId}/rules`, { powerUnit: 'kW', rules: RULES }, 'PUT');
-  ruleVersionId = (await organiser.json(`/api/events/${eventId}/classes/${classId}/rules/publish`, { changeNote: 'test' })).body.data.id;
+  ruleVersionId = (
+    await organiser.json(`/api/events/${eventId}/classes/${classId}/rules/publish`, { changeNote: 'test' })
+  ).body.data.id;
   const entrantId = (await query<{ id: string }>('select id from users where email = $1', [DEMO.entrant]))[0].id;
   const specs = [
     { powerKw: 240, readings: [101.2, 101.35, 101.28] },
@@ -62,7 +94,10 @@ before(async () => {
     { powerKw: 248, readings: [100.4, 100.5, 100.45] },
   ];
   for (const [i, s] of specs.entries()) {
-    const [{ id: boatId }] = await query<{ id: string }>(`insert into boats (owner_id, name, declared_nozzle_mm, declared_power_kw) values ($1, $2, 101, $3) returning id`, [entrantId, `Parity Boat ${i + 1}`, s.powerKw]);
+    const [{ id: boatId }] = await query<{ id: string }>(
+      `insert into boats (owner_id, name, declared_nozzle_mm, declared_power_kw) values ($1, $2, 101, $3) returning id`,
+      [entrantId, `Parity Boat ${i + 1}`, s.powerKw],
+    );
     const [{ id: entryId }] = await query<{ id: string }>(
       `insert into entries (event_id, class_id, boat_id, entrant_id, race_number, status, fee_minor, currency) values ($1, $2, $3, $4, $5, 'entered', 0, 'NZD') returning id`,
       [eventId, classId, boatId, entrantId, 100 + i],
@@ -72,7 +107,10 @@ before(async () => {
   }
   // Two boats that must be listed, not silently left out: one failed, one never inspected.
   for (const [i, name] of ['Failed Boat', 'Uninspected Boat'].entries()) {
-    const [{ id: boatId }] = await query<{ id: string }>(`insert into boats (owner_id, name, declared_nozzle_mm, declared_power_kw) values ($1, $2, 103, 250) returning id`, [entrantId, name]);
+    const [{ id: boatId }] = await query<{ id: string }>(
+      `insert into boats (owner_id, name, declared_nozzle_mm, declared_power_kw) values ($1, $2, 103, 250) returning id`,
+      [entrantId, name],
+    );
     const [{ id: entryId }] = await query<{ id: string }>(
       `insert into entries (event_id, class_id, boat_id, entrant_id, race_number, status, fee_minor, currency) values ($1, $2, $3, $4, $5, 'entered', 0, 'NZD') returning id`,
       [eventId, classId, boatId, entrantId, 200 + i],
@@ -86,20 +124,40 @@ test('draft figures equal the engine on the same numbers; class statistics equal
   assert.equal(res.status, 200);
   const { draft } = (await res.json()).data;
   assert.equal(draft.inputs.boats.length, 5);
-  assert.deepEqual(draft.inputs.excluded.map((e: { reason: string }) => e.reason).sort(), ['Latest inspection does not conform', 'Not inspected yet']);
+  assert.deepEqual(draft.inputs.excluded.map((e: { reason: string }) => e.reason).sort(), [
+    'Latest inspection does not conform',
+    'Not inspected yet',
+  ]);
   // ITTC Recommended Procedure 7.5-02-01-03: fresh water at 20 °C is 998.2071 kg/m³.
   assert.equal(draft.inputs.density.densityKgM3, 998.2071);
 
   const expected = computeParity(
-    boats.map((b) => ({ id: b.entryId, label: '', powerKw: b.powerKw, nozzleDiameterMm: computeAreaEquivalentDiameterFromReadingsMm(b.readings), uPowerKw: 3, uNozzleDiameterMm: 0.025 })),
-    { densityKgM3: interpolateDensityIttc('fresh', 20), pumpEfficiency: 0.9, nozzleLossCoefficient: 0.02, inletLossCoefficient: 0.2, wakeFraction: 0, referenceSpeedsMs: [10, 20, 30] },
+    boats.map((b) => ({
+      id: b.entryId,
+      label: '',
+      powerKw: b.powerKw,
+      nozzleDiameterMm: computeAreaEquivalentDiameterFromReadingsMm(b.readings),
+      uPowerKw: 3,
+      uNozzleDiameterMm: 0.025,
+    })),
+    {
+      densityKgM3: interpolateDensityIttc('fresh', 20),
+      pumpEfficiency: 0.9,
+      nozzleLossCoefficient: 0.02,
+      inletLossCoefficient: 0.2,
+      wakeFraction: 0,
+      referenceSpeedsMs: [10, 20, 30],
+    },
   );
   for (const e of expected.boats) {
     const got = draft.results.parity.boats.find((b: { id: string }) => b.id === e.id);
     assert.ok(Math.abs(got.staticThrustN - e.staticThrustN) < 1e-6);
     assert.ok(Math.abs(got.uStaticThrustN - e.uStaticThrustN) < 1e-6);
     assert.ok(Math.abs(got.equalisingNozzleDiameterMm - e.equalisingNozzleDiameterMm) < 1e-9);
-    assert.deepEqual(got.thrustAtReferenceSpeeds.map((t: { thrustN: number }) => +t.thrustN.toFixed(6)), e.thrustAtReferenceSpeeds.map((t) => +t.thrustN.toFixed(6)));
+    assert.deepEqual(
+      got.thrustAtReferenceSpeeds.map((t: { thrustN: number }) => +t.thrustN.toFixed(6)),
+      e.thrustAtReferenceSpeeds.map((t) => +t.thrustN.toFixed(6)),
+    );
   }
   const t0 = expected.boats.map((b) => b.staticThrustN);
   const s = draft.results.parity.summary;
@@ -118,9 +176,14 @@ test('a published version never changes after later inspections; a new version s
   await addInspection(boats[0].entryId, boats[0].boatId, [100.1, 100.2, 100.15]);
   const v1Again = await (await fetch(`${BASE_URL}/api/reports/${pub1.body.data.publicId}`)).json();
   assert.deepEqual(v1Again.data.results, v1.data.results);
-  await assert.rejects(query(`update parity_reports set note = 'x' where public_id = $1`, [pub1.body.data.publicId]), /append-only/);
+  await assert.rejects(
+    query(`update parity_reports set note = 'x' where public_id = $1`, [pub1.body.data.publicId]),
+    /append-only/,
+  );
 
-  const pub2 = await organiser.json(`/api/events/${eventId}/classes/${classId}/report/publish`, { note: 'after re-inspection' });
+  const pub2 = await organiser.json(`/api/events/${eventId}/classes/${classId}/report/publish`, {
+    note: 'after re-inspection',
+  });
   assert.equal(pub2.body.data.number, 2);
   const v2 = await (await fetch(`${BASE_URL}/api/reports/${pub2.body.data.publicId}`)).json();
   const before = v1.data.results.parity.boats.find((b: { id: string }) => b.id === boats[0].entryId);
@@ -135,7 +198,8 @@ test('the PDF opens with pdf-lib and carries the class, the rule version and one
   // Its own published version (not one left by an earlier test), read back from the class's list of versions.
   const pub = await organiser.json(`/api/events/${eventId}/classes/${classId}/report/publish`, { note: 'PDF and CSV' });
   assert.equal(pub.res.status, 201, JSON.stringify(pub.body));
-  const versions = (await (await organiser.fetch(`/api/events/${eventId}/classes/${classId}/report`)).json()).data.versions;
+  const versions = (await (await organiser.fetch(`/api/events/${eventId}/classes/${classId}/report`)).json()).data
+    .versions;
   const latest = versions[0];
   assert.equal(latest.publicId, pub.body.data.publicId, 'the newest version is the one just published');
   const pdfRes = await fetch(`${BASE_URL}/api/reports/${latest.publicId}/pdf`);
@@ -146,7 +210,8 @@ test('the PDF opens with pdf-lib and carries the class, the rule version and one
   const textAll = (await extractPdfText(bytes)).join('\n');
   assert.match(textAll, /Parity Test \(PT\)/);
   assert.match(textAll, /class rules version 1/);
-  for (let i = 0; i < 5; i++) assert.match(textAll, new RegExp(`\\n${100 + i}\\nParity Boat ${i + 1}\\n`), `row for boat ${i + 1}`);
+  for (let i = 0; i < 5; i++)
+    assert.match(textAll, new RegExp(`\\n${100 + i}\\nParity Boat ${i + 1}\\n`), `row for boat ${i + 1}`);
   assert.match(textAll, /Failed Boat: Latest inspection does not conform/);
   assert.match(textAll, /licensed officials/);
 
@@ -164,19 +229,30 @@ test('the PDF opens with pdf-lib and carries the class, the rule version and one
 });
 
 // Where the storage fake keeps an object: <bucket>/<sha256 of the key> (scripts/fakes/storage.ts).
-const storedObject = (key: string) => path.join(process.env.FAKES_DIR ?? '.data/test-fakes', 'storage', process.env.S3_BUCKET ?? 'boreline-test', createHash('sha256').update(key).digest('hex'));
+const storedObject = (key: string) =>
+  path.join(
+    process.env.FAKES_DIR ?? '.data/test-fakes',
+    'storage',
+    process.env.S3_BUCKET ?? 'boreline-test',
+    createHash('sha256').update(key).digest('hex'),
+  );
 const sha256 = (b: Uint8Array) => createHash('sha256').update(b).digest('hex');
 
-test('a version\'s PDF is rendered once, stored with its SHA-256, served from storage with a strong ETag and a year-long immutable lifetime, and 304 to If-None-Match', async () => {
+test("a version's PDF is rendered once, stored with its SHA-256, served from storage with a strong ETag and a year-long immutable lifetime, and 304 to If-None-Match", async () => {
   const pub = await organiser.json(`/api/events/${eventId}/classes/${classId}/report/publish`, { note: 'PDF caching' });
   assert.equal(pub.res.status, 201, JSON.stringify(pub.body));
   const url = `${BASE_URL}/api/reports/${pub.body.data.publicId}/pdf`;
   // Five first requests at once: one rendering is stored (the unique index on report and kind), and all five get it.
-  const first = await Promise.all(Array.from({ length: 5 }, async () => {
-    const res = await fetch(url);
-    return { res, bytes: new Uint8Array(await res.arrayBuffer()) };
-  }));
-  const rows = await query<{ object_key: string; sha256: string; size_bytes: number }>(`select object_key, sha256, size_bytes from parity_report_files where report_id = $1 and kind = 'pdf'`, [pub.body.data.id]);
+  const first = await Promise.all(
+    Array.from({ length: 5 }, async () => {
+      const res = await fetch(url);
+      return { res, bytes: new Uint8Array(await res.arrayBuffer()) };
+    }),
+  );
+  const rows = await query<{ object_key: string; sha256: string; size_bytes: number }>(
+    `select object_key, sha256, size_bytes from parity_report_files where report_id = $1 and kind = 'pdf'`,
+    [pub.body.data.id],
+  );
   assert.equal(rows.length, 1, 'one stored PDF per version');
   const [row] = rows;
   for (const { res, bytes } of first) {
@@ -192,7 +268,10 @@ test('a version\'s PDF is rendered once, stored with its SHA-256, served from st
   // The object is in storage, byte for byte.
   assert.equal(sha256(fs.readFileSync(storedObject(row.object_key))), row.sha256);
   assert.match(row.object_key, /^reports\/pdf\/\d{4}\/\d{2}\/[0-9a-f-]{36}$/);
-  await assert.rejects(query(`update parity_report_files set sha256 = repeat('0', 64) where report_id = $1`, [pub.body.data.id]), /append-only/);
+  await assert.rejects(
+    query(`update parity_report_files set sha256 = repeat('0', 64) where report_id = $1`, [pub.body.data.id]),
+    /append-only/,
+  );
 
   // Later requests are not rendered again: pdf-lib stamps each rendering with its creation time to the
   // second, so after a pause a new rendering would differ; the stored one is served unchanged.

@@ -15,7 +15,13 @@ const PAID_CLASS = '7e570000-0000-4000-8000-000000000203';
 const FAKE = process.env.STRIPE_API_URL ?? 'http://127.0.0.1:12211';
 const WEBHOOK_SECRET = process.env.STRIPE_WEBHOOK_SECRET ?? 'whsec_boreline_test_fake';
 
-type EntryRow = { status: string; paid_at: Date | null; payment_intent_id: string | null; checkout_session_id: string | null; race_number: number };
+type EntryRow = {
+  status: string;
+  paid_at: Date | null;
+  payment_intent_id: string | null;
+  checkout_session_id: string | null;
+  race_number: number;
+};
 const entryRow = async (id: string) => (await query<EntryRow>('select * from entries where id = $1', [id]))[0];
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
@@ -26,7 +32,10 @@ before(async () => {
      on conflict do nothing`,
     [PAID_EVENT, CLUB],
   );
-  await query(`insert into race_classes (id, event_id, name, code) values ($1, $2, 'Test Sprint', 'TS') on conflict do nothing`, [PAID_CLASS, PAID_EVENT]);
+  await query(
+    `insert into race_classes (id, event_id, name, code) values ($1, $2, 'Test Sprint', 'TS') on conflict do nothing`,
+    [PAID_CLASS, PAID_EVENT],
+  );
   await query(
     `insert into class_rule_versions (class_id, version, status, rules, effective_from, published_at)
      values ($1, 1, 'published', $2::jsonb, now(), now()) on conflict do nothing`,
@@ -42,10 +51,19 @@ async function enteredEntrant() {
   assert.equal(boat.res.status, 201, JSON.stringify(boat.body));
   const entry = await s.json('/api/entries', { boatId: boat.body.data.id, eventId: PAID_EVENT, classId: PAID_CLASS });
   assert.equal(entry.res.status, 201, JSON.stringify(entry.body));
-  return { s, email, entryId: entry.body.data.entry.id as string, raceNumber: entry.body.data.entry.raceNumber as number };
+  return {
+    s,
+    email,
+    entryId: entry.body.data.entry.id as string,
+    raceNumber: entry.body.data.entry.raceNumber as number,
+  };
 }
 
-async function waitFor<T>(what: string, fn: () => Promise<T | null | undefined | false>, timeoutMs = 10_000): Promise<T> {
+async function waitFor<T>(
+  what: string,
+  fn: () => Promise<T | null | undefined | false>,
+  timeoutMs = 10_000,
+): Promise<T> {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
     const v = await fn();
@@ -75,15 +93,24 @@ test('checkout through the fake: the webhook marks the entry entered with paid_a
   });
   assert.match(row.payment_intent_id ?? '', /^pi_/);
 
-  const events = (await (await fetch(`${FAKE}/_fake/events?type=checkout.session.completed`)).json()).data as { id: string; payload: string }[];
-  const event = events.find((e) => (JSON.parse(e.payload) as Stripe.Event & { data: { object: { id: string } } }).data.object.id === sessionId);
+  const events = (await (await fetch(`${FAKE}/_fake/events?type=checkout.session.completed`)).json()).data as {
+    id: string;
+    payload: string;
+  }[];
+  const event = events.find(
+    (e) => (JSON.parse(e.payload) as Stripe.Event & { data: { object: { id: string } } }).data.object.id === sessionId,
+  );
   assert.ok(event, 'the fake sent a checkout.session.completed event for this session');
   assert.equal((await query('select 1 from payment_events where id = $1', [event.id])).length, 1);
   const resend = await fetch(`${FAKE}/_fake/events/${event.id}/resend`, { method: 'POST' });
   assert.equal(resend.status, 200);
   const delivered = (await resend.json()).data as { attempts: { status: number | null }[] };
   assert.equal(delivered.attempts.at(-1)?.status, 200, 'the replay is acknowledged');
-  assert.equal((await query('select 1 from payment_events where id = $1', [event.id])).length, 1, 'still one payment_events row');
+  assert.equal(
+    (await query('select 1 from payment_events where id = $1', [event.id])).length,
+    1,
+    'still one payment_events row',
+  );
   const after = await entryRow(entryId);
   assert.equal(after.paid_at?.getTime(), row.paid_at?.getTime(), 'paid_at unchanged by the replay');
   assert.equal(after.status, 'entered');
@@ -94,15 +121,29 @@ test('checkout through the fake: the webhook marks the entry entered with paid_a
   assert.match(mail.text, /TS Test Sprint/);
   assert.match(mail.text, /Cascade Hawk/);
   assert.match(mail.text, new RegExp(`Race number: ${raceNumber}\\b`));
-  const receipts = (await (await fetch(`${MAIL_INBOX}?to=${encodeURIComponent(email)}`)).json()).data as { subject: string }[];
+  const receipts = (await (await fetch(`${MAIL_INBOX}?to=${encodeURIComponent(email)}`)).json()).data as {
+    subject: string;
+  }[];
   assert.equal(receipts.filter((m) => /Receipt/.test(m.subject)).length, 1, 'one receipt, not one per delivery');
 
-  const list = (await (await s.fetch('/api/entries')).json()).data as { id: string; statusLabel: string; paidAt: string | null }[];
+  const list = (await (await s.fetch('/api/entries')).json()).data as {
+    id: string;
+    statusLabel: string;
+    paidAt: string | null;
+  }[];
   const mine = list.find((e) => e.id === entryId);
   assert.equal(mine?.statusLabel, 'Entered');
   assert.ok(mine?.paidAt);
-  assert.equal((await s.fetch(`/api/entries/${entryId}/checkout`, { method: 'POST' })).status, 409, 'a paid entry cannot be paid again');
-  assert.equal((await s.fetch(`/api/entries/${entryId}/withdraw`, { method: 'POST' })).status, 409, 'a paid entry is the organiser’s to cancel');
+  assert.equal(
+    (await s.fetch(`/api/entries/${entryId}/checkout`, { method: 'POST' })).status,
+    409,
+    'a paid entry cannot be paid again',
+  );
+  assert.equal(
+    (await s.fetch(`/api/entries/${entryId}/withdraw`, { method: 'POST' })).status,
+    409,
+    'a paid entry is the organiser’s to cancel',
+  );
 });
 
 test('a webhook with a bad or missing signature gets 400 and changes nothing', async () => {
@@ -110,13 +151,38 @@ test('a webhook with a bad or missing signature gets 400 and changes nothing', a
   await s.fetch(`/api/entries/${entryId}/checkout`, { method: 'POST' });
   const sessionId = (await entryRow(entryId)).checkout_session_id!;
   const forged = JSON.stringify({
-    id: 'evt_forged_0001', object: 'event', type: 'checkout.session.completed', created: Math.floor(Date.now() / 1000),
-    data: { object: { id: sessionId, object: 'checkout.session', payment_status: 'paid', status: 'complete', amount_total: 4500, currency: 'nzd', payment_intent: 'pi_forged', metadata: { entryId } } },
+    id: 'evt_forged_0001',
+    object: 'event',
+    type: 'checkout.session.completed',
+    created: Math.floor(Date.now() / 1000),
+    data: {
+      object: {
+        id: sessionId,
+        object: 'checkout.session',
+        payment_status: 'paid',
+        status: 'complete',
+        amount_total: 4500,
+        currency: 'nzd',
+        payment_intent: 'pi_forged',
+        metadata: { entryId },
+      },
+    },
   });
-  const wrongSecret = Stripe.webhooks.generateTestHeaderString({ payload: forged, secret: 'whsec_not_the_real_secret' });
-  const signatures: Record<string, string>[] = [{ 'stripe-signature': wrongSecret }, { 'stripe-signature': 't=1,v1=deadbeef' }, {}];
+  const wrongSecret = Stripe.webhooks.generateTestHeaderString({
+    payload: forged,
+    secret: 'whsec_not_the_real_secret',
+  });
+  const signatures: Record<string, string>[] = [
+    { 'stripe-signature': wrongSecret },
+    { 'stripe-signature': 't=1,v1=deadbeef' },
+    {},
+  ];
   for (const headers of signatures) {
-    const res = await fetch(`${BASE_URL}/api/payments/webhook`, { method: 'POST', headers: { 'content-type': 'application/json', ...headers }, body: forged });
+    const res = await fetch(`${BASE_URL}/api/payments/webhook`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', ...headers },
+      body: forged,
+    });
     assert.equal(res.status, 400);
     assert.equal((await res.json()).error.code, 'bad_signature');
   }
@@ -127,9 +193,19 @@ test('a webhook with a bad or missing signature gets 400 and changes nothing', a
 });
 
 test('a correctly signed event of a type the app does not use is acknowledged (200) and recorded once', async () => {
-  const payload = JSON.stringify({ id: `evt_other_${Date.now()}`, object: 'event', type: 'customer.created', created: Math.floor(Date.now() / 1000), data: { object: { id: 'cus_1', object: 'customer' } } });
+  const payload = JSON.stringify({
+    id: `evt_other_${Date.now()}`,
+    object: 'event',
+    type: 'customer.created',
+    created: Math.floor(Date.now() / 1000),
+    data: { object: { id: 'cus_1', object: 'customer' } },
+  });
   const header = Stripe.webhooks.generateTestHeaderString({ payload, secret: WEBHOOK_SECRET });
-  const res = await fetch(`${BASE_URL}/api/payments/webhook`, { method: 'POST', headers: { 'content-type': 'application/json', 'stripe-signature': header }, body: payload });
+  const res = await fetch(`${BASE_URL}/api/payments/webhook`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', 'stripe-signature': header },
+    body: payload,
+  });
   assert.equal(res.status, 200);
   assert.equal((await res.json()).data.outcome, 'ignored');
   assert.equal((await query('select 1 from payment_events where id = $1', [JSON.parse(payload).id])).length, 1);
@@ -152,8 +228,12 @@ test('a payment that arrives for an entry withdrawn meanwhile is refunded, and t
   assert.equal(paid.status, 200);
   const paymentIntent = ((await paid.json()).data as { session: { payment_intent: string } }).session.payment_intent;
   const refund = await waitFor('the refund of the unwanted payment', async () => {
-    const events = (await (await fetch(`${FAKE}/_fake/events?type=charge.refunded`)).json()).data as { payload: string }[];
-    return events.map((e) => JSON.parse(e.payload).data.object as { payment_intent: string; refunded: boolean }).find((c) => c.payment_intent === paymentIntent);
+    const events = (await (await fetch(`${FAKE}/_fake/events?type=charge.refunded`)).json()).data as {
+      payload: string;
+    }[];
+    return events
+      .map((e) => JSON.parse(e.payload).data.object as { payment_intent: string; refunded: boolean })
+      .find((c) => c.payment_intent === paymentIntent);
   });
   assert.equal(refund.refunded, true);
   const row = await entryRow(entryId);

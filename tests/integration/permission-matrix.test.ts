@@ -16,7 +16,17 @@ import { query } from '../support/db';
 import { rolesCan, type Permission, type Role } from '../../lib/core/auth/permissions';
 import { ROUTES, SERVER_ACTIONS, type Access, type Ids } from './permission-routes';
 
-const ACTORS = ['anonymous', 'entrantOwn', 'entrantOther', 'scrutineer', 'scrutineerElsewhere', 'steward', 'organiser', 'organiserElsewhere', 'admin'] as const;
+const ACTORS = [
+  'anonymous',
+  'entrantOwn',
+  'entrantOther',
+  'scrutineer',
+  'scrutineerElsewhere',
+  'steward',
+  'organiser',
+  'organiserElsewhere',
+  'admin',
+] as const;
 type ActorKey = (typeof ACTORS)[number];
 
 // Roles each actor holds at the demo meeting (what the permission table is asked about).
@@ -45,7 +55,13 @@ async function signUpAndIn(prefix: string) {
 
 before(async () => {
   sessions.set('anonymous', new HttpSession());
-  for (const [key, email] of [['entrantOwn', DEMO.entrant], ['scrutineer', DEMO.scrutineer], ['steward', DEMO.steward], ['organiser', DEMO.organiser], ['admin', DEMO.admin]] as const) {
+  for (const [key, email] of [
+    ['entrantOwn', DEMO.entrant],
+    ['scrutineer', DEMO.scrutineer],
+    ['steward', DEMO.steward],
+    ['organiser', DEMO.organiser],
+    ['admin', DEMO.admin],
+  ] as const) {
     const s = new HttpSession();
     assert.equal((await s.signInWithPassword(email, DEMO_PASSWORD)).status, 200, email);
     sessions.set(key, s);
@@ -53,7 +69,10 @@ before(async () => {
   const other = await signUpAndIn('other');
   sessions.set('entrantOther', other.s);
   // Staff of a different meeting of a different club.
-  const [{ id: clubId }] = await query<{ id: string }>(`insert into organisations (name, slug) values ('Matrix Club', $1) returning id`, [`matrix-${randomUUID().slice(0, 8)}`]);
+  const [{ id: clubId }] = await query<{ id: string }>(
+    `insert into organisations (name, slug) values ('Matrix Club', $1) returning id`,
+    [`matrix-${randomUUID().slice(0, 8)}`],
+  );
   const [{ id: otherEvent }] = await query<{ id: string }>(
     `insert into events (organisation_id, name, slug, venue, starts_on, ends_on, time_zone) values ($1, 'Matrix Meeting', $2, 'Elsewhere', '2027-06-01', '2027-06-01', 'UTC') returning id`,
     [clubId, `matrix-${randomUUID().slice(0, 8)}`],
@@ -63,26 +82,44 @@ before(async () => {
   sessions.set('scrutineerElsewhere', scr.s);
   const org = await signUpAndIn('org-elsewhere');
   await query(`insert into event_staff (event_id, user_id, role) values ($1, $2, 'organiser')`, [otherEvent, org.id]);
-  await query(`insert into organisation_members (organisation_id, user_id, role) values ($1, $2, 'organiser')`, [clubId, org.id]);
+  await query(`insert into organisation_members (organisation_id, user_id, role) values ($1, $2, 'organiser')`, [
+    clubId,
+    org.id,
+  ]);
   sessions.set('organiserElsewhere', org.s);
 
   const [own] = await query<{ entry_id: string; boat_id: string; class_id: string }>(
     `select e.id as entry_id, e.boat_id, e.class_id from entries e join users u on u.id = e.entrant_id where u.email = $1 and e.event_id = $2 limit 1`,
     [DEMO.entrant, DEMO.meetingId],
   );
-  const [tag] = await query<{ token: string }>('select token from boat_tags where boat_id = $1 and retired_at is null', [own.boat_id]);
+  const [tag] = await query<{ token: string }>(
+    'select token from boat_tags where boat_id = $1 and retired_at is null',
+    [own.boat_id],
+  );
   const [race] = await query<{ race_number: number }>('select race_number from entries where id = $1', [own.entry_id]);
   // A document of the demo entrant's boat, uploaded through the real route.
   const form = new FormData();
   form.append('kind', 'dyno_sheet');
-  form.append('file', new Blob([Buffer.from('%PDF-1.4\n%matrix\n1 0 obj<<>>endobj\ntrailer<<>>\n%%EOF\n')], { type: 'application/pdf' }), 'dyno.pdf');
-  const up = await sessions.get('entrantOwn')!.fetch(`/api/boats/${own.boat_id}/documents`, { method: 'POST', body: form });
+  form.append(
+    'file',
+    new Blob([Buffer.from('%PDF-1.4\n%matrix\n1 0 obj<<>>endobj\ntrailer<<>>\n%%EOF\n')], { type: 'application/pdf' }),
+    'dyno.pdf',
+  );
+  const up = await sessions
+    .get('entrantOwn')!
+    .fetch(`/api/boats/${own.boat_id}/documents`, { method: 'POST', body: form });
   const upBody = await up.json();
   assert.equal(up.status, 201, JSON.stringify(upBody));
   // A scratch class and a spare unpaid entry, so that allowed calls (publish, withdraw) touch nothing other tests use.
-  const [{ id: classId }] = await query<{ id: string }>(`insert into race_classes (event_id, name, code) values ($1, 'Matrix Scratch', $2) returning id`, [DEMO.meetingId, `MX${Math.floor(Math.random() * 9000 + 1000)}`]);
+  const [{ id: classId }] = await query<{ id: string }>(
+    `insert into race_classes (event_id, name, code) values ($1, 'Matrix Scratch', $2) returning id`,
+    [DEMO.meetingId, `MX${Math.floor(Math.random() * 9000 + 1000)}`],
+  );
   const [{ id: entrantId }] = await query<{ id: string }>('select id from users where email = $1', [DEMO.entrant]);
-  const [{ id: spareBoat }] = await query<{ id: string }>(`insert into boats (owner_id, name, declared_nozzle_mm, declared_power_kw) values ($1, 'Matrix Spare', 100, 200) returning id`, [entrantId]);
+  const [{ id: spareBoat }] = await query<{ id: string }>(
+    `insert into boats (owner_id, name, declared_nozzle_mm, declared_power_kw) values ($1, 'Matrix Spare', 100, 200) returning id`,
+    [entrantId],
+  );
   const [{ id: spareEntryId }] = await query<{ id: string }>(
     `insert into entries (event_id, class_id, boat_id, entrant_id, race_number, status, fee_minor, currency)
      values ($1, $2, $3, $4, (select coalesce(max(race_number), 0) + 1 from entries where event_id = $1), 'awaiting_payment', 15000, 'NZD') returning id`,
@@ -90,7 +127,10 @@ before(async () => {
   );
   // The other entrant's boat in the scratch class, and a lodged (fee paid) protest by the demo
   // entrant against it, with a file of evidence uploaded by the protester through the real route.
-  const [{ id: otherBoat }] = await query<{ id: string }>(`insert into boats (owner_id, name, declared_nozzle_mm, declared_power_kw) values ($1, 'Matrix Other', 100, 200) returning id`, [other.id]);
+  const [{ id: otherBoat }] = await query<{ id: string }>(
+    `insert into boats (owner_id, name, declared_nozzle_mm, declared_power_kw) values ($1, 'Matrix Other', 100, 200) returning id`,
+    [other.id],
+  );
   const [{ id: otherEntryId }] = await query<{ id: string }>(
     `insert into entries (event_id, class_id, boat_id, entrant_id, race_number, status, fee_minor, currency)
      values ($1, $2, $3, $4, (select coalesce(max(race_number), 0) + 1 from entries where event_id = $1), 'awaiting_payment', 15000, 'NZD') returning id`,
@@ -102,13 +142,30 @@ before(async () => {
     [DEMO.meetingId, entrantId, otherEntryId, `matrix:${randomUUID()}`],
   );
   const evidenceForm = new FormData();
-  evidenceForm.append('file', new Blob([Buffer.from('%PDF-1.4\n%matrix evidence\n1 0 obj<<>>endobj\ntrailer<<>>\n%%EOF\n')], { type: 'application/pdf' }), 'statement.pdf');
-  const ev = await sessions.get('entrantOwn')!.fetch(`/api/protests/${protestId}/evidence`, { method: 'POST', body: evidenceForm });
+  evidenceForm.append(
+    'file',
+    new Blob([Buffer.from('%PDF-1.4\n%matrix evidence\n1 0 obj<<>>endobj\ntrailer<<>>\n%%EOF\n')], {
+      type: 'application/pdf',
+    }),
+    'statement.pdf',
+  );
+  const ev = await sessions
+    .get('entrantOwn')!
+    .fetch(`/api/protests/${protestId}/evidence`, { method: 'POST', body: evidenceForm });
   const evBody = await ev.json();
   assert.equal(ev.status, 201, JSON.stringify(evBody));
   ids = {
-    eventId: DEMO.meetingId, classId, entryId: own.entry_id, spareEntryId, boatId: own.boat_id, tagToken: tag.token,
-    raceNumber: race.race_number, documentId: upBody.data.id, missingId: randomUUID(), protestId, evidenceId: evBody.data.id,
+    eventId: DEMO.meetingId,
+    classId,
+    entryId: own.entry_id,
+    spareEntryId,
+    boatId: own.boat_id,
+    tagToken: tag.token,
+    raceNumber: race.race_number,
+    documentId: upBody.data.id,
+    missingId: randomUUID(),
+    protestId,
+    evidenceId: evBody.data.id,
   };
 });
 
@@ -118,17 +175,21 @@ function expectedAllowed(access: Access, actor: ActorKey): boolean | 'hidden' | 
   if (actor === 'anonymous') return false;
   if (access === 'signed-in') return true;
   if (access === 'owner') return actor === 'entrantOwn' ? true : 'hidden';
-  if (access === 'owner-or-view-all') return actor === 'entrantOwn' || rolesCan(ROLES_AT_MEETING[actor], 'entry.view_all') ? true : 'hidden';
+  if (access === 'owner-or-view-all')
+    return actor === 'entrantOwn' || rolesCan(ROLES_AT_MEETING[actor], 'entry.view_all') ? true : 'hidden';
   if ('custom' in access) return (access.custom as readonly string[]).includes(actor);
   if ('protest' in access) {
     const roles = ROLES_AT_MEETING[actor];
     const party = actor === 'entrantOwn' || actor === 'entrantOther'; // the protester and the protested entrant
     const sees = party || rolesCan(roles, 'protest.view_all');
     const may =
-      access.protest === 'view' ? sees
-      : access.protest === 'add-evidence' ? party || rolesCan(roles, 'protest.decide')
-        : access.protest === 'decide' ? rolesCan(roles, 'protest.decide')
-          : actor === 'entrantOwn';
+      access.protest === 'view'
+        ? sees
+        : access.protest === 'add-evidence'
+          ? party || rolesCan(roles, 'protest.decide')
+          : access.protest === 'decide'
+            ? rolesCan(roles, 'protest.decide')
+            : actor === 'entrantOwn';
     return may ? true : sees ? false : 'unseen';
   }
   return access.anyOf.some((p: Permission) => rolesCan(ROLES_AT_MEETING[actor], p));
@@ -143,7 +204,10 @@ function listRouteMethods(): string[] {
       else if (e.name === 'route.ts') {
         const src = fs.readFileSync(p, 'utf8');
         const methods = new Set(
-          [...src.matchAll(/export (?:const|async function|function) (GET|POST|PUT|PATCH|DELETE)\b/g), ...src.matchAll(/as (GET|POST|PUT|PATCH|DELETE)\b/g)].map((m) => m[1]),
+          [
+            ...src.matchAll(/export (?:const|async function|function) (GET|POST|PUT|PATCH|DELETE)\b/g),
+            ...src.matchAll(/as (GET|POST|PUT|PATCH|DELETE)\b/g),
+          ].map((m) => m[1]),
         );
         for (const m of methods) out.push(`${m} ${p.split(path.sep).join('/')}`);
       }
@@ -173,14 +237,23 @@ test('each endpoint allows or denies each actor as the permission table says', a
       await res.arrayBuffer();
       const s = res.status;
       const ok =
-        r.access === 'method-not-allowed' ? s === 405
-        : s >= 500 ? false
-          : expected === true ? s !== 401 && s !== 403
-            : actor === 'anonymous' ? s === 401
-              : expected === 'hidden' ? s === 403 || s === 404
-                : expected === 'unseen' ? s === 404
-                : s === 403;
-      if (!ok) failures.push(`${r.method} ${r.path(ids)} as ${actor}: got ${s}, expected ${expected === true ? 'allowed' : 'denied'}`);
+        r.access === 'method-not-allowed'
+          ? s === 405
+          : s >= 500
+            ? false
+            : expected === true
+              ? s !== 401 && s !== 403
+              : actor === 'anonymous'
+                ? s === 401
+                : expected === 'hidden'
+                  ? s === 403 || s === 404
+                  : expected === 'unseen'
+                    ? s === 404
+                    : s === 403;
+      if (!ok)
+        failures.push(
+          `${r.method} ${r.path(ids)} as ${actor}: got ${s}, expected ${expected === true ? 'allowed' : 'denied'}`,
+        );
     }
   }
   assert.deepEqual(failures, []);
@@ -188,7 +261,11 @@ test('each endpoint allows or denies each actor as the permission table says', a
 
 test('a protest or evidence id that does not exist is 404 for everyone signed in, 401 for anyone else', async () => {
   for (const actor of ACTORS) {
-    for (const p of [`/api/protests/${ids.missingId}`, `/api/protests/${ids.missingId}/evidence`, `/api/evidence/${ids.missingId}`]) {
+    for (const p of [
+      `/api/protests/${ids.missingId}`,
+      `/api/protests/${ids.missingId}/evidence`,
+      `/api/evidence/${ids.missingId}`,
+    ]) {
       const res = await sessions.get(actor)!.fetch(p);
       await res.arrayBuffer();
       assert.equal(res.status, actor === 'anonymous' ? 401 : 404, `${p} as ${actor}`);
@@ -209,7 +286,8 @@ function listServerActions(): string[] {
       else if (/\.tsx?$/.test(e.name)) {
         const src = fs.readFileSync(p, 'utf8');
         if (!/^\s*['"]use server['"]/.test(src)) continue;
-        for (const m of src.matchAll(/export (?:async function|const) (\w+)/g)) out.push(`${p.split(path.sep).join('/')}#${m[1]}`);
+        for (const m of src.matchAll(/export (?:async function|const) (\w+)/g))
+          out.push(`${p.split(path.sep).join('/')}#${m[1]}`);
       }
     }
   };
@@ -218,8 +296,15 @@ function listServerActions(): string[] {
 }
 
 function actionId(file: string, exportedName: string): string {
-  const manifest = JSON.parse(fs.readFileSync(path.join(process.env.NEXT_DIST_DIR ?? '.next', 'server', 'server-reference-manifest.json'), 'utf8'));
-  const found = Object.entries(manifest.node as Record<string, { filename: string; exportedName: string }>).find(([, v]) => v.filename === file && v.exportedName === exportedName);
+  const manifest = JSON.parse(
+    fs.readFileSync(
+      path.join(process.env.NEXT_DIST_DIR ?? '.next', 'server', 'server-reference-manifest.json'),
+      'utf8',
+    ),
+  );
+  const found = Object.entries(manifest.node as Record<string, { filename: string; exportedName: string }>).find(
+    ([, v]) => v.filename === file && v.exportedName === exportedName,
+  );
   assert.ok(found, `${file}#${exportedName} is not in the build's server action manifest`);
   return found[0];
 }
@@ -228,13 +313,21 @@ async function postAction(s: HttpSession, a: (typeof SERVER_ACTIONS)[number]) {
   const form = new FormData();
   for (const [k, v] of Object.entries(a.fields)) form.append(`1_${k}`, v);
   form.append('0', JSON.stringify([null, '$K1']));
-  const res = await s.fetch(a.page, { method: 'POST', headers: { 'next-action': actionId(a.file, a.exportedName), accept: 'text/x-component' }, body: form });
+  const res = await s.fetch(a.page, {
+    method: 'POST',
+    headers: { 'next-action': actionId(a.file, a.exportedName), accept: 'text/x-component' },
+    body: form,
+  });
   return { res, text: await res.text() };
 }
 
 test('every server action is in the matrix', () => {
   const listed = SERVER_ACTIONS.map((a) => `${a.file}#${a.exportedName}`).sort();
-  assert.deepEqual(listServerActions(), listed, 'add server actions to SERVER_ACTIONS in tests/integration/permission-routes.ts');
+  assert.deepEqual(
+    listServerActions(),
+    listed,
+    'add server actions to SERVER_ACTIONS in tests/integration/permission-routes.ts',
+  );
 });
 
 test('each server action runs for those allowed and refuses everyone else, in the action itself', async () => {
@@ -256,6 +349,10 @@ test('each server action runs for those allowed and refuses everyone else, in th
     }
     const { res, text } = await postAction(gone.s, a);
     assert.equal(res.status, 200, text.slice(0, 200));
-    assert.match(text, /"ok":false,"message":"Sign in to do this\."/, `${a.exportedName} with the session of a removed account`);
+    assert.match(
+      text,
+      /"ok":false,"message":"Sign in to do this\."/,
+      `${a.exportedName} with the session of a removed account`,
+    );
   }
 });

@@ -4,9 +4,17 @@
 import type { Permission } from '../../lib/core/auth/permissions';
 
 export type Ids = {
-  eventId: string; classId: string; entryId: string; spareEntryId: string; boatId: string; tagToken: string;
-  raceNumber: number; documentId: string; missingId: string;
-  protestId: string; evidenceId: string; // lodged by the demo entrant against the other entrant's entry
+  eventId: string;
+  classId: string;
+  entryId: string;
+  spareEntryId: string;
+  boatId: string;
+  tagToken: string;
+  raceNumber: number;
+  documentId: string;
+  missingId: string;
+  protestId: string;
+  evidenceId: string; // lodged by the demo entrant against the other entrant's entry
 };
 export type Access =
   | 'public' // anyone, signed in or not
@@ -23,7 +31,12 @@ export type Access =
   // may see the protest but not take the step get 403; everyone else 404, as for a missing id.
   | { protest: 'view' | 'add-evidence' | 'decide' | 'pay' };
 
-type Row = { method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE'; file: string; path: (i: Ids) => string; access: Access };
+type Row = {
+  method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
+  file: string;
+  path: (i: Ids) => string;
+  access: Access;
+};
 
 const E = 'app/api/events/[eventId]';
 const ev = (i: Ids) => `/api/events/${i.eventId}`;
@@ -35,104 +48,439 @@ export const ROUTES: Row[] = [
   { method: 'POST', file: 'app/api/accounts/route.ts', path: () => '/api/accounts', access: 'public' },
   { method: 'POST', file: 'app/api/payments/webhook/route.ts', path: () => '/api/payments/webhook', access: 'webhook' },
   // Public calculation API and published reports
-  { method: 'POST', file: 'app/api/v1/jet-performance/route.ts', path: () => '/api/v1/jet-performance', access: 'public' },
-  { method: 'POST', file: 'app/api/v1/jet-performance/crossover/route.ts', path: () => '/api/v1/jet-performance/crossover', access: 'public' },
+  {
+    method: 'POST',
+    file: 'app/api/v1/jet-performance/route.ts',
+    path: () => '/api/v1/jet-performance',
+    access: 'public',
+  },
+  {
+    method: 'POST',
+    file: 'app/api/v1/jet-performance/crossover/route.ts',
+    path: () => '/api/v1/jet-performance/crossover',
+    access: 'public',
+  },
   { method: 'POST', file: 'app/api/v1/conformity/route.ts', path: () => '/api/v1/conformity', access: 'public' },
   { method: 'GET', file: 'app/api/v1/openapi.json/route.ts', path: () => '/api/v1/openapi.json', access: 'public' },
-  { method: 'GET', file: 'app/api/reports/[publicId]/route.ts', path: () => '/api/reports/unknownreport1', access: 'public' },
-  { method: 'GET', file: 'app/api/reports/[publicId]/pdf/route.ts', path: () => '/api/reports/unknownreport1/pdf', access: 'public' },
-  { method: 'GET', file: 'app/api/reports/[publicId]/csv/route.ts', path: () => '/api/reports/unknownreport1/csv', access: 'public' },
+  {
+    method: 'GET',
+    file: 'app/api/reports/[publicId]/route.ts',
+    path: () => '/api/reports/unknownreport1',
+    access: 'public',
+  },
+  {
+    method: 'GET',
+    file: 'app/api/reports/[publicId]/pdf/route.ts',
+    path: () => '/api/reports/unknownreport1/pdf',
+    access: 'public',
+  },
+  {
+    method: 'GET',
+    file: 'app/api/reports/[publicId]/csv/route.ts',
+    path: () => '/api/reports/unknownreport1/csv',
+    access: 'public',
+  },
   // Entrant: own boats, documents, entries
   { method: 'GET', file: 'app/api/boats/route.ts', path: () => '/api/boats', access: 'signed-in' },
   { method: 'POST', file: 'app/api/boats/route.ts', path: () => '/api/boats', access: 'signed-in' },
   { method: 'GET', file: 'app/api/boats/[boatId]/route.ts', path: (i) => `/api/boats/${i.boatId}`, access: 'owner' },
   { method: 'PATCH', file: 'app/api/boats/[boatId]/route.ts', path: (i) => `/api/boats/${i.boatId}`, access: 'owner' },
-  { method: 'POST', file: 'app/api/boats/[boatId]/documents/route.ts', path: (i) => `/api/boats/${i.boatId}/documents`, access: 'owner' },
-  { method: 'GET', file: 'app/api/boats/[boatId]/tag-pdf/route.ts', path: (i) => `/api/boats/${i.boatId}/tag-pdf`, access: 'owner' },
-  { method: 'POST', file: 'app/api/boats/[boatId]/tag/route.ts', path: (i) => `/api/boats/${i.boatId}/tag`, access: 'owner' },
-  { method: 'GET', file: 'app/api/documents/[documentId]/route.ts', path: (i) => `/api/documents/${i.documentId}`, access: 'owner-or-view-all' },
+  {
+    method: 'POST',
+    file: 'app/api/boats/[boatId]/documents/route.ts',
+    path: (i) => `/api/boats/${i.boatId}/documents`,
+    access: 'owner',
+  },
+  {
+    method: 'GET',
+    file: 'app/api/boats/[boatId]/tag-pdf/route.ts',
+    path: (i) => `/api/boats/${i.boatId}/tag-pdf`,
+    access: 'owner',
+  },
+  {
+    method: 'POST',
+    file: 'app/api/boats/[boatId]/tag/route.ts',
+    path: (i) => `/api/boats/${i.boatId}/tag`,
+    access: 'owner',
+  },
+  {
+    method: 'GET',
+    file: 'app/api/documents/[documentId]/route.ts',
+    path: (i) => `/api/documents/${i.documentId}`,
+    access: 'owner-or-view-all',
+  },
   { method: 'GET', file: 'app/api/entries/route.ts', path: () => '/api/entries', access: 'signed-in' },
   { method: 'POST', file: 'app/api/entries/route.ts', path: () => '/api/entries', access: 'signed-in' },
-  { method: 'POST', file: 'app/api/entries/[entryId]/checkout/route.ts', path: (i) => `/api/entries/${i.spareEntryId}/checkout`, access: 'owner' },
-  { method: 'POST', file: 'app/api/entries/[entryId]/withdraw/route.ts', path: (i) => `/api/entries/${i.spareEntryId}/withdraw`, access: 'owner' },
+  {
+    method: 'POST',
+    file: 'app/api/entries/[entryId]/checkout/route.ts',
+    path: (i) => `/api/entries/${i.spareEntryId}/checkout`,
+    access: 'owner',
+  },
+  {
+    method: 'POST',
+    file: 'app/api/entries/[entryId]/withdraw/route.ts',
+    path: (i) => `/api/entries/${i.spareEntryId}/withdraw`,
+    access: 'owner',
+  },
   { method: 'GET', file: 'app/api/events/open/route.ts', path: () => '/api/events/open', access: 'signed-in' },
   // Organiser
-  { method: 'POST', file: 'app/api/events/route.ts', path: () => '/api/events', access: { custom: ['organiser', 'organiserElsewhere', 'admin'] } },
+  {
+    method: 'POST',
+    file: 'app/api/events/route.ts',
+    path: () => '/api/events',
+    access: { custom: ['organiser', 'organiserElsewhere', 'admin'] },
+  },
   { method: 'GET', file: `${E}/route.ts`, path: ev, access: { anyOf: ['event.edit'] } },
   { method: 'PATCH', file: `${E}/route.ts`, path: ev, access: { anyOf: ['event.edit'] } },
   { method: 'GET', file: `${E}/classes/route.ts`, path: (i) => `${ev(i)}/classes`, access: { anyOf: ['class.edit'] } },
   { method: 'POST', file: `${E}/classes/route.ts`, path: (i) => `${ev(i)}/classes`, access: { anyOf: ['class.edit'] } },
-  { method: 'GET', file: `${E}/classes/[classId]/rules/route.ts`, path: (i) => `${ev(i)}/classes/${i.classId}/rules`, access: { anyOf: ['class.edit'] } },
-  { method: 'PUT', file: `${E}/classes/[classId]/rules/route.ts`, path: (i) => `${ev(i)}/classes/${i.classId}/rules`, access: { anyOf: ['class.edit'] } },
-  { method: 'POST', file: `${E}/classes/[classId]/rules/publish/route.ts`, path: (i) => `${ev(i)}/classes/${i.classId}/rules/publish`, access: { anyOf: ['class.edit'] } },
-  { method: 'GET', file: `${E}/classes/[classId]/report/route.ts`, path: (i) => `${ev(i)}/classes/${i.classId}/report`, access: { anyOf: ['report.publish'] } },
-  { method: 'POST', file: `${E}/classes/[classId]/report/publish/route.ts`, path: (i) => `${ev(i)}/classes/${i.classId}/report/publish`, access: { anyOf: ['report.publish'] } },
-  { method: 'POST', file: `${E}/staff/route.ts`, path: (i) => `${ev(i)}/staff`, access: { anyOf: ['event.staff_manage'] } },
-  { method: 'POST', file: `${E}/invitations/route.ts`, path: (i) => `${ev(i)}/invitations`, access: { anyOf: ['event.staff_manage'] } },
-  { method: 'GET', file: `${E}/entries/route.ts`, path: (i) => `${ev(i)}/entries`, access: { anyOf: ['entry.view_all'] } },
-  { method: 'GET', file: `${E}/entries/export/route.ts`, path: (i) => `${ev(i)}/entries/export`, access: { anyOf: ['entry.view_all'] } },
-  { method: 'POST', file: `${E}/entries/[entryId]/cancel/route.ts`, path: (i) => `${ev(i)}/entries/${i.entryId}/cancel`, access: { anyOf: ['entry.cancel'] } },
-  { method: 'GET', file: `${E}/tag-sheet/route.ts`, path: (i) => `${ev(i)}/tag-sheet`, access: { anyOf: ['tags.print'] } },
-  { method: 'GET', file: `${E}/instruments/route.ts`, path: (i) => `${ev(i)}/instruments`, access: { anyOf: ['inspection.board'] } },
-  { method: 'POST', file: `${E}/instruments/route.ts`, path: (i) => `${ev(i)}/instruments`, access: { anyOf: ['instrument.manage'] } },
-  { method: 'POST', file: `${E}/instruments/[instrumentId]/retire/route.ts`, path: (i) => `${ev(i)}/instruments/${i.missingId}/retire`, access: { anyOf: ['instrument.manage'] } },
+  {
+    method: 'GET',
+    file: `${E}/classes/[classId]/rules/route.ts`,
+    path: (i) => `${ev(i)}/classes/${i.classId}/rules`,
+    access: { anyOf: ['class.edit'] },
+  },
+  {
+    method: 'PUT',
+    file: `${E}/classes/[classId]/rules/route.ts`,
+    path: (i) => `${ev(i)}/classes/${i.classId}/rules`,
+    access: { anyOf: ['class.edit'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/classes/[classId]/rules/publish/route.ts`,
+    path: (i) => `${ev(i)}/classes/${i.classId}/rules/publish`,
+    access: { anyOf: ['class.edit'] },
+  },
+  {
+    method: 'GET',
+    file: `${E}/classes/[classId]/report/route.ts`,
+    path: (i) => `${ev(i)}/classes/${i.classId}/report`,
+    access: { anyOf: ['report.publish'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/classes/[classId]/report/publish/route.ts`,
+    path: (i) => `${ev(i)}/classes/${i.classId}/report/publish`,
+    access: { anyOf: ['report.publish'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/staff/route.ts`,
+    path: (i) => `${ev(i)}/staff`,
+    access: { anyOf: ['event.staff_manage'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/invitations/route.ts`,
+    path: (i) => `${ev(i)}/invitations`,
+    access: { anyOf: ['event.staff_manage'] },
+  },
+  {
+    method: 'GET',
+    file: `${E}/entries/route.ts`,
+    path: (i) => `${ev(i)}/entries`,
+    access: { anyOf: ['entry.view_all'] },
+  },
+  {
+    method: 'GET',
+    file: `${E}/entries/export/route.ts`,
+    path: (i) => `${ev(i)}/entries/export`,
+    access: { anyOf: ['entry.view_all'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/entries/[entryId]/cancel/route.ts`,
+    path: (i) => `${ev(i)}/entries/${i.entryId}/cancel`,
+    access: { anyOf: ['entry.cancel'] },
+  },
+  {
+    method: 'GET',
+    file: `${E}/tag-sheet/route.ts`,
+    path: (i) => `${ev(i)}/tag-sheet`,
+    access: { anyOf: ['tags.print'] },
+  },
+  {
+    method: 'GET',
+    file: `${E}/instruments/route.ts`,
+    path: (i) => `${ev(i)}/instruments`,
+    access: { anyOf: ['inspection.board'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/instruments/route.ts`,
+    path: (i) => `${ev(i)}/instruments`,
+    access: { anyOf: ['instrument.manage'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/instruments/[instrumentId]/retire/route.ts`,
+    path: (i) => `${ev(i)}/instruments/${i.missingId}/retire`,
+    access: { anyOf: ['instrument.manage'] },
+  },
   // At the dock
-  { method: 'POST', file: `${E}/inspections/route.ts`, path: (i) => `${ev(i)}/inspections`, access: { anyOf: ['inspection.record'] } },
-  { method: 'GET', file: `${E}/inspections/route.ts`, path: (i) => `${ev(i)}/inspections`, access: { anyOf: ['inspection.board'] } },
-  { method: 'PUT', file: `${E}/inspections/route.ts`, path: (i) => `${ev(i)}/inspections`, access: 'method-not-allowed' },
-  { method: 'PATCH', file: `${E}/inspections/route.ts`, path: (i) => `${ev(i)}/inspections`, access: 'method-not-allowed' },
-  { method: 'DELETE', file: `${E}/inspections/route.ts`, path: (i) => `${ev(i)}/inspections`, access: 'method-not-allowed' },
-  { method: 'POST', file: `${E}/inspections/[inspectionId]/photos/route.ts`, path: (i) => `${ev(i)}/inspections/${i.missingId}/photos`, access: { anyOf: ['inspection.record'] } },
-  { method: 'PUT', file: `${E}/inspections/[inspectionId]/photos/route.ts`, path: (i) => `${ev(i)}/inspections/${i.missingId}/photos`, access: 'method-not-allowed' },
-  { method: 'PATCH', file: `${E}/inspections/[inspectionId]/photos/route.ts`, path: (i) => `${ev(i)}/inspections/${i.missingId}/photos`, access: 'method-not-allowed' },
-  { method: 'DELETE', file: `${E}/inspections/[inspectionId]/photos/route.ts`, path: (i) => `${ev(i)}/inspections/${i.missingId}/photos`, access: 'method-not-allowed' },
-  { method: 'GET', file: `${E}/tags/[token]/route.ts`, path: (i) => `${ev(i)}/tags/${i.tagToken}`, access: { anyOf: ['inspection.record'] } },
-  { method: 'GET', file: `${E}/race-numbers/[raceNumber]/route.ts`, path: (i) => `${ev(i)}/race-numbers/${i.raceNumber}`, access: { anyOf: ['inspection.record'] } },
-  { method: 'POST', file: `${E}/reinspections/route.ts`, path: (i) => `${ev(i)}/reinspections`, access: { anyOf: ['inspection.assign_reinspection'] } },
-  { method: 'GET', file: `${E}/reinspections/route.ts`, path: (i) => `${ev(i)}/reinspections`, access: { anyOf: ['inspection.board', 'inspection.assign_reinspection'] } },
+  {
+    method: 'POST',
+    file: `${E}/inspections/route.ts`,
+    path: (i) => `${ev(i)}/inspections`,
+    access: { anyOf: ['inspection.record'] },
+  },
+  {
+    method: 'GET',
+    file: `${E}/inspections/route.ts`,
+    path: (i) => `${ev(i)}/inspections`,
+    access: { anyOf: ['inspection.board'] },
+  },
+  {
+    method: 'PUT',
+    file: `${E}/inspections/route.ts`,
+    path: (i) => `${ev(i)}/inspections`,
+    access: 'method-not-allowed',
+  },
+  {
+    method: 'PATCH',
+    file: `${E}/inspections/route.ts`,
+    path: (i) => `${ev(i)}/inspections`,
+    access: 'method-not-allowed',
+  },
+  {
+    method: 'DELETE',
+    file: `${E}/inspections/route.ts`,
+    path: (i) => `${ev(i)}/inspections`,
+    access: 'method-not-allowed',
+  },
+  {
+    method: 'POST',
+    file: `${E}/inspections/[inspectionId]/photos/route.ts`,
+    path: (i) => `${ev(i)}/inspections/${i.missingId}/photos`,
+    access: { anyOf: ['inspection.record'] },
+  },
+  {
+    method: 'PUT',
+    file: `${E}/inspections/[inspectionId]/photos/route.ts`,
+    path: (i) => `${ev(i)}/inspections/${i.missingId}/photos`,
+    access: 'method-not-allowed',
+  },
+  {
+    method: 'PATCH',
+    file: `${E}/inspections/[inspectionId]/photos/route.ts`,
+    path: (i) => `${ev(i)}/inspections/${i.missingId}/photos`,
+    access: 'method-not-allowed',
+  },
+  {
+    method: 'DELETE',
+    file: `${E}/inspections/[inspectionId]/photos/route.ts`,
+    path: (i) => `${ev(i)}/inspections/${i.missingId}/photos`,
+    access: 'method-not-allowed',
+  },
+  {
+    method: 'GET',
+    file: `${E}/tags/[token]/route.ts`,
+    path: (i) => `${ev(i)}/tags/${i.tagToken}`,
+    access: { anyOf: ['inspection.record'] },
+  },
+  {
+    method: 'GET',
+    file: `${E}/race-numbers/[raceNumber]/route.ts`,
+    path: (i) => `${ev(i)}/race-numbers/${i.raceNumber}`,
+    access: { anyOf: ['inspection.record'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/reinspections/route.ts`,
+    path: (i) => `${ev(i)}/reinspections`,
+    access: { anyOf: ['inspection.assign_reinspection'] },
+  },
+  {
+    method: 'GET',
+    file: `${E}/reinspections/route.ts`,
+    path: (i) => `${ev(i)}/reinspections`,
+    access: { anyOf: ['inspection.board', 'inspection.assign_reinspection'] },
+  },
   // Parts held by the officials
-  { method: 'GET', file: `${E}/custody/route.ts`, path: (i) => `${ev(i)}/custody`, access: { anyOf: ['custody.view'] } },
-  { method: 'POST', file: `${E}/custody/route.ts`, path: (i) => `${ev(i)}/custody`, access: { anyOf: ['custody.take'] } },
-  { method: 'POST', file: `${E}/custody/[itemId]/release/route.ts`, path: (i) => `${ev(i)}/custody/${i.missingId}/release`, access: { anyOf: ['custody.release'] } },
+  {
+    method: 'GET',
+    file: `${E}/custody/route.ts`,
+    path: (i) => `${ev(i)}/custody`,
+    access: { anyOf: ['custody.view'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/custody/route.ts`,
+    path: (i) => `${ev(i)}/custody`,
+    access: { anyOf: ['custody.take'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/custody/[itemId]/release/route.ts`,
+    path: (i) => `${ev(i)}/custody/${i.missingId}/release`,
+    access: { anyOf: ['custody.release'] },
+  },
   // The register of declared interests (officials of the meeting; the whole register for stewards and organiser)
-  { method: 'GET', file: `${E}/interests/route.ts`, path: (i) => `${ev(i)}/interests`, access: { anyOf: ['interest.declare'] } },
-  { method: 'POST', file: `${E}/interests/route.ts`, path: (i) => `${ev(i)}/interests`, access: { anyOf: ['interest.declare'] } },
+  {
+    method: 'GET',
+    file: `${E}/interests/route.ts`,
+    path: (i) => `${ev(i)}/interests`,
+    access: { anyOf: ['interest.declare'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/interests/route.ts`,
+    path: (i) => `${ev(i)}/interests`,
+    access: { anyOf: ['interest.declare'] },
+  },
   { method: 'PUT', file: `${E}/interests/route.ts`, path: (i) => `${ev(i)}/interests`, access: 'method-not-allowed' },
   { method: 'PATCH', file: `${E}/interests/route.ts`, path: (i) => `${ev(i)}/interests`, access: 'method-not-allowed' },
-  { method: 'DELETE', file: `${E}/interests/route.ts`, path: (i) => `${ev(i)}/interests`, access: 'method-not-allowed' },
-  { method: 'POST', file: `${E}/interests/[interestId]/withdraw/route.ts`, path: (i) => `${ev(i)}/interests/${i.missingId}/withdraw`, access: { anyOf: ['interest.declare'] } },
+  {
+    method: 'DELETE',
+    file: `${E}/interests/route.ts`,
+    path: (i) => `${ev(i)}/interests`,
+    access: 'method-not-allowed',
+  },
+  {
+    method: 'POST',
+    file: `${E}/interests/[interestId]/withdraw/route.ts`,
+    path: (i) => `${ev(i)}/interests/${i.missingId}/withdraw`,
+    access: { anyOf: ['interest.declare'] },
+  },
   // Results, protests and the audit trail
   { method: 'GET', file: `${E}/results/route.ts`, path: (i) => `${ev(i)}/results`, access: 'signed-in' },
-  { method: 'POST', file: `${E}/results/route.ts`, path: (i) => `${ev(i)}/results`, access: { anyOf: ['results.publish'] } },
+  {
+    method: 'POST',
+    file: `${E}/results/route.ts`,
+    path: (i) => `${ev(i)}/results`,
+    access: { anyOf: ['results.publish'] },
+  },
   { method: 'GET', file: `${E}/protests/route.ts`, path: (i) => `${ev(i)}/protests`, access: 'signed-in' },
-  { method: 'POST', file: `${E}/protests/route.ts`, path: (i) => `${ev(i)}/protests`, access: { anyOf: ['protest.lodge'] } },
+  {
+    method: 'POST',
+    file: `${E}/protests/route.ts`,
+    path: (i) => `${ev(i)}/protests`,
+    access: { anyOf: ['protest.lodge'] },
+  },
   { method: 'GET', file: `${E}/audit/route.ts`, path: (i) => `${ev(i)}/audit`, access: { anyOf: ['audit.read'] } },
   { method: 'POST', file: `${E}/audit/route.ts`, path: (i) => `${ev(i)}/audit`, access: 'method-not-allowed' },
   { method: 'PUT', file: `${E}/audit/route.ts`, path: (i) => `${ev(i)}/audit`, access: 'method-not-allowed' },
   { method: 'PATCH', file: `${E}/audit/route.ts`, path: (i) => `${ev(i)}/audit`, access: 'method-not-allowed' },
   { method: 'DELETE', file: `${E}/audit/route.ts`, path: (i) => `${ev(i)}/audit`, access: 'method-not-allowed' },
-  { method: 'GET', file: 'app/api/protests/[protestId]/route.ts', path: (i) => `/api/protests/${i.protestId}`, access: { protest: 'view' } },
-  { method: 'POST', file: 'app/api/protests/[protestId]/checkout/route.ts', path: (i) => `/api/protests/${i.protestId}/checkout`, access: { protest: 'pay' } },
-  { method: 'POST', file: 'app/api/protests/[protestId]/evidence/route.ts', path: (i) => `/api/protests/${i.protestId}/evidence`, access: { protest: 'add-evidence' } },
-  { method: 'GET', file: 'app/api/protests/[protestId]/evidence/route.ts', path: (i) => `/api/protests/${i.protestId}/evidence`, access: { protest: 'view' } },
-  { method: 'POST', file: 'app/api/protests/[protestId]/accept/route.ts', path: (i) => `/api/protests/${i.protestId}/accept`, access: { protest: 'decide' } },
-  { method: 'POST', file: 'app/api/protests/[protestId]/reject/route.ts', path: (i) => `/api/protests/${i.protestId}/reject`, access: { protest: 'decide' } },
-  { method: 'POST', file: 'app/api/protests/[protestId]/reinspection/route.ts', path: (i) => `/api/protests/${i.protestId}/reinspection`, access: { protest: 'decide' } },
-  { method: 'POST', file: 'app/api/protests/[protestId]/hearing/route.ts', path: (i) => `/api/protests/${i.protestId}/hearing`, access: { protest: 'decide' } },
-  { method: 'POST', file: 'app/api/protests/[protestId]/decision/route.ts', path: (i) => `/api/protests/${i.protestId}/decision`, access: { protest: 'decide' } },
-  { method: 'GET', file: 'app/api/protests/[protestId]/decision.pdf/route.ts', path: (i) => `/api/protests/${i.protestId}/decision.pdf`, access: { protest: 'view' } },
+  {
+    method: 'GET',
+    file: 'app/api/protests/[protestId]/route.ts',
+    path: (i) => `/api/protests/${i.protestId}`,
+    access: { protest: 'view' },
+  },
+  {
+    method: 'POST',
+    file: 'app/api/protests/[protestId]/checkout/route.ts',
+    path: (i) => `/api/protests/${i.protestId}/checkout`,
+    access: { protest: 'pay' },
+  },
+  {
+    method: 'POST',
+    file: 'app/api/protests/[protestId]/evidence/route.ts',
+    path: (i) => `/api/protests/${i.protestId}/evidence`,
+    access: { protest: 'add-evidence' },
+  },
+  {
+    method: 'GET',
+    file: 'app/api/protests/[protestId]/evidence/route.ts',
+    path: (i) => `/api/protests/${i.protestId}/evidence`,
+    access: { protest: 'view' },
+  },
+  {
+    method: 'POST',
+    file: 'app/api/protests/[protestId]/accept/route.ts',
+    path: (i) => `/api/protests/${i.protestId}/accept`,
+    access: { protest: 'decide' },
+  },
+  {
+    method: 'POST',
+    file: 'app/api/protests/[protestId]/reject/route.ts',
+    path: (i) => `/api/protests/${i.protestId}/reject`,
+    access: { protest: 'decide' },
+  },
+  {
+    method: 'POST',
+    file: 'app/api/protests/[protestId]/reinspection/route.ts',
+    path: (i) => `/api/protests/${i.protestId}/reinspection`,
+    access: { protest: 'decide' },
+  },
+  {
+    method: 'POST',
+    file: 'app/api/protests/[protestId]/hearing/route.ts',
+    path: (i) => `/api/protests/${i.protestId}/hearing`,
+    access: { protest: 'decide' },
+  },
+  {
+    method: 'POST',
+    file: 'app/api/protests/[protestId]/decision/route.ts',
+    path: (i) => `/api/protests/${i.protestId}/decision`,
+    access: { protest: 'decide' },
+  },
+  {
+    method: 'GET',
+    file: 'app/api/protests/[protestId]/decision.pdf/route.ts',
+    path: (i) => `/api/protests/${i.protestId}/decision.pdf`,
+    access: { protest: 'view' },
+  },
   // Site administration (a missing person: 400 or 404 for the administrator, 403 for everyone else)
-  { method: 'PUT', file: 'app/api/admin/people/[userId]/suspension/route.ts', path: (i) => `/api/admin/people/${i.missingId}/suspension`, access: { anyOf: ['admin.manage_users'] } },
-  { method: 'DELETE', file: 'app/api/admin/people/[userId]/suspension/route.ts', path: (i) => `/api/admin/people/${i.missingId}/suspension`, access: { anyOf: ['admin.manage_users'] } },
-  { method: 'GET', file: 'app/api/evidence/[evidenceId]/route.ts', path: (i) => `/api/evidence/${i.evidenceId}`, access: { protest: 'view' } },
+  {
+    method: 'PUT',
+    file: 'app/api/admin/people/[userId]/suspension/route.ts',
+    path: (i) => `/api/admin/people/${i.missingId}/suspension`,
+    access: { anyOf: ['admin.manage_users'] },
+  },
+  {
+    method: 'DELETE',
+    file: 'app/api/admin/people/[userId]/suspension/route.ts',
+    path: (i) => `/api/admin/people/${i.missingId}/suspension`,
+    access: { anyOf: ['admin.manage_users'] },
+  },
+  {
+    method: 'GET',
+    file: 'app/api/evidence/[evidenceId]/route.ts',
+    path: (i) => `/api/evidence/${i.evidenceId}`,
+    access: { protest: 'view' },
+  },
 ];
 
 // Every server action (each export of a 'use server' file), the page it is posted to, and who may
 // run it. Bodies are refused input, so an allowed call changes nothing.
-export type ActionRow = { file: string; exportedName: string; page: string; access: 'signed-in'; fields: Record<string, string> };
+export type ActionRow = {
+  file: string;
+  exportedName: string;
+  page: string;
+  access: 'signed-in';
+  fields: Record<string, string>;
+};
 export const SERVER_ACTIONS: ActionRow[] = [
-  { file: 'app/(app)/account/actions.ts', exportedName: 'changeNameAction', page: '/account', access: 'signed-in', fields: { name: '   ' } },
-  { file: 'app/(app)/account/actions.ts', exportedName: 'changePasswordAction', page: '/account', access: 'signed-in', fields: { password: '' } },
-  { file: 'app/(app)/account/actions.ts', exportedName: 'signOutEverywhereAction', page: '/account', access: 'signed-in', fields: { confirm: 'not-everywhere' } },
-  { file: 'app/(app)/account/actions.ts', exportedName: 'resendAddressProofAction', page: '/account', access: 'signed-in', fields: { confirm: 'not-send' } },
+  {
+    file: 'app/(app)/account/actions.ts',
+    exportedName: 'changeNameAction',
+    page: '/account',
+    access: 'signed-in',
+    fields: { name: '   ' },
+  },
+  {
+    file: 'app/(app)/account/actions.ts',
+    exportedName: 'changePasswordAction',
+    page: '/account',
+    access: 'signed-in',
+    fields: { password: '' },
+  },
+  {
+    file: 'app/(app)/account/actions.ts',
+    exportedName: 'signOutEverywhereAction',
+    page: '/account',
+    access: 'signed-in',
+    fields: { confirm: 'not-everywhere' },
+  },
+  {
+    file: 'app/(app)/account/actions.ts',
+    exportedName: 'resendAddressProofAction',
+    page: '/account',
+    access: 'signed-in',
+    fields: { confirm: 'not-send' },
+  },
 ];

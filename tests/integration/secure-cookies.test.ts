@@ -21,7 +21,9 @@ before(async () => {
   for (let i = 0; i < 150; i++) {
     try {
       if ((await fetch(`${BASE}/api/health`)).ok) return;
-    } catch { /* not up yet */ }
+    } catch {
+      /* not up yet */
+    }
     await new Promise((r) => setTimeout(r, 200));
   }
   throw new Error('the https-configured app server did not start');
@@ -46,7 +48,13 @@ test('behind TLS the session and CSRF cookies are Secure, HttpOnly and prefixed;
     body: new URLSearchParams({ csrfToken, email: DEMO.organiser, password: DEMO_PASSWORD, json: 'true' }),
   });
   const session = res.headers.getSetCookie().find((c) => c.startsWith('__Secure-next-auth.session-token='));
-  assert.ok(session, `a __Secure- session cookie is set (got ${res.status}: ${res.headers.getSetCookie().map((c) => c.split('=')[0]).join(', ')})`);
+  assert.ok(
+    session,
+    `a __Secure- session cookie is set (got ${res.status}: ${res.headers
+      .getSetCookie()
+      .map((c) => c.split('=')[0])
+      .join(', ')})`,
+  );
   assert.match(session!, /;\s*Secure/i);
   assert.match(session!, /;\s*HttpOnly/i);
   assert.match(session!, /;\s*SameSite=Lax/i);
@@ -54,5 +62,8 @@ test('behind TLS the session and CSRF cookies are Secure, HttpOnly and prefixed;
   // The session works on that server (the proxy would forward the cookie over http).
   const me = await fetch(`${BASE}/api/boats`, { headers: { cookie: session!.split(';')[0] } });
   assert.equal(me.status, 200);
-  assert.equal((await fetch(`${BASE}/sign-in`)).headers.get('strict-transport-security'), 'max-age=31536000; includeSubDomains');
+  assert.equal(
+    (await fetch(`${BASE}/sign-in`)).headers.get('strict-transport-security'),
+    'max-age=31536000; includeSubDomains',
+  );
 });

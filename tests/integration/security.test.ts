@@ -79,6 +79,8 @@ test('sign-in is throttled per account at one address after 10 failures, with th
   const body = await res.json();
   assert.match(body.url ?? '', /error=TooManyAttempts/, 'even the right password waits');
   assert.equal(await blocked.session(), null);
-  const [row] = await query<{ attempts: number }>('select attempts from auth_throttles where key like $1', [`signin-fail:pair:${email}|%`]);
+  const [row] = await query<{ attempts: number }>('select attempts from auth_throttles where key like $1', [
+    `signin-fail:pair:${email}|%`,
+  ]);
   assert.ok(row.attempts >= 10, 'failures counted for the account at this address');
 });

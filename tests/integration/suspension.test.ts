@@ -35,7 +35,11 @@ test('suspend: refused sign-in and a dead open session; lift: signing in works a
   const noReason = await admin.json(url, { reason: ' ' }, 'PUT');
   assert.equal(noReason.res.status, 400);
   assert.equal(noReason.body.error.details[0].field, 'reason');
-  assert.equal((await query('select suspended_at from users where id = $1', [id]))[0].suspended_at, null, 'nothing changed on a refused request');
+  assert.equal(
+    (await query('select suspended_at from users where id = $1', [id]))[0].suspended_at,
+    null,
+    'nothing changed on a refused request',
+  );
 
   const done = await admin.json(url, { reason: 'Left the club; login reported shared.' }, 'PUT');
   assert.equal(done.res.status, 200, JSON.stringify(done.body));
@@ -53,10 +57,16 @@ test('suspend: refused sign-in and a dead open session; lift: signing in works a
   const link = new HttpSession();
   const csrfToken = await link.csrfToken();
   const linkRes = await link.fetch('/api/auth/signin/email', {
-    method: 'POST', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: new URLSearchParams({ csrfToken, email, json: 'true' }),
+    method: 'POST',
+    headers: { 'content-type': 'application/x-www-form-urlencoded' },
+    body: new URLSearchParams({ csrfToken, email, json: 'true' }),
   });
   // The same answer as for any address (nothing to learn about the account), and no link is sent.
-  assert.match(String((await linkRes.json()).url), /verify-request/, 'the answer does not say the account is suspended');
+  assert.match(
+    String((await linkRes.json()).url),
+    /verify-request/,
+    'the answer does not say the account is suspended',
+  );
 
   // An invitation to a meeting's staff does not get a suspended person in, nor give them the role.
   const invite = await organiser.json(`/api/events/${DEMO.meetingId}/invitations`, { email, role: 'scrutineer' });
@@ -65,19 +75,37 @@ test('suspend: refused sign-in and a dead open session; lift: signing in works a
   // next-auth answers a link request only once its sendVerificationRequest has finished, so a link would have
   // reached the mailbox before the invitation asked for after it; the invitation is there, the link is not.
   const links = await (await fetch(`${MAIL_INBOX}?to=${encodeURIComponent(email)}`)).json();
-  assert.equal(links.data.filter((m: { subject: string }) => /sign-in link/.test(m.subject)).length, 0, 'no sign-in link for a suspended account');
+  assert.equal(
+    links.data.filter((m: { subject: string }) => /sign-in link/.test(m.subject)).length,
+    0,
+    'no sign-in link for a suspended account',
+  );
   const invited = new HttpSession();
   const invitedCsrf = await invited.csrfToken();
   const viaInvitation = await invited.fetch('/api/auth/callback/invitation', {
-    method: 'POST', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: new URLSearchParams({ csrfToken: invitedCsrf, token, json: 'true' }),
+    method: 'POST',
+    headers: { 'content-type': 'application/x-www-form-urlencoded' },
+    body: new URLSearchParams({ csrfToken: invitedCsrf, token, json: 'true' }),
   });
   assert.match(String((await viaInvitation.json()).url), /error=AccountSuspended/);
   assert.equal(await invited.session(), null);
-  assert.equal((await query('select 1 from event_staff where user_id = $1', [id])).length, 0, 'no role for a suspended account');
-  assert.equal((await query('select 1 from staff_invitations where email = $1 and accepted_at is null', [email])).length, 1, 'the invitation stays unused');
+  assert.equal(
+    (await query('select 1 from event_staff where user_id = $1', [id])).length,
+    0,
+    'no role for a suspended account',
+  );
+  assert.equal(
+    (await query('select 1 from staff_invitations where email = $1 and accepted_at is null', [email])).length,
+    1,
+    'the invitation stays unused',
+  );
 
   const [{ id: adminId }] = await query<{ id: string }>('select id from users where email = $1', [DEMO.admin]);
-  assert.equal((await admin.json(`/api/admin/people/${adminId}/suspension`, { reason: 'testing myself' }, 'PUT')).res.status, 409, 'not one\'s own account');
+  assert.equal(
+    (await admin.json(`/api/admin/people/${adminId}/suspension`, { reason: 'testing myself' }, 'PUT')).res.status,
+    409,
+    "not one's own account",
+  );
 
   const lifted = await admin.fetch(url, { method: 'DELETE' });
   assert.equal(lifted.status, 200);

@@ -51,7 +51,10 @@ before(async () => {
     organiser: await signedIn(DEMO.organiser),
     entrant: await signedIn(DEMO.entrant),
   };
-  [{ id: demoClassId }] = await query<{ id: string }>(`select id from race_classes where event_id = $1 and code = 'SS'`, [DEMO.meetingId]);
+  [{ id: demoClassId }] = await query<{ id: string }>(
+    `select id from race_classes where event_id = $1 and code = 'SS'`,
+    [DEMO.meetingId],
+  );
 });
 
 test('a tag sends the scrutineer and the chief scrutineer of the boat’s meeting to its card at the dock', async () => {
@@ -86,7 +89,10 @@ test('a tag sends the owner to their own boat; anyone else, signed in or not, se
 
   const anon = await new HttpSession().fetch(`/t/${other.token}`);
   assert.equal(anon.status, 200);
-  assert.ok((await anon.text()).includes(`href="/sign-in?callbackUrl=${encodeURIComponent(`/t/${other.token}`)}"`), 'the sign-in link comes back to this tag');
+  assert.ok(
+    (await anon.text()).includes(`href="/sign-in?callbackUrl=${encodeURIComponent(`/t/${other.token}`)}"`),
+    'the sign-in link comes back to this tag',
+  );
 });
 
 test('a steward and the organiser of the meeting stay on the public card with links to the pages their role opens', async () => {
@@ -96,11 +102,17 @@ test('a steward and the organiser of the meeting stay on the public card with li
   const sHtml = await steward.text();
   assert.match(sHtml, /data-testid="tag-official-links"/);
   assert.ok(sHtml.includes(`/stewards/${DEMO.meetingId}`), 'the protest queue');
-  assert.ok(sHtml.includes(`/organise/events/${DEMO.meetingId}/entries?q=${boat.raceNumber}`), 'the entries list at this boat');
+  assert.ok(
+    sHtml.includes(`/organise/events/${DEMO.meetingId}/entries?q=${boat.raceNumber}`),
+    'the entries list at this boat',
+  );
   assert.doesNotMatch(sHtml, /callbackUrl=/);
   const organiser = await sessions.organiser.fetch(`/t/${boat.token}`);
   assert.equal(organiser.status, 200);
-  assert.ok((await organiser.text()).includes(`/inspect/${DEMO.meetingId}/board`), 'the organiser reads the inspection board');
+  assert.ok(
+    (await organiser.text()).includes(`/inspect/${DEMO.meetingId}/board`),
+    'the organiser reads the inspection board',
+  );
 });
 
 test('a boat entered at several meetings: the scrutineer goes to the one on next where they inspect; a past meeting or one they do not staff never counts', async () => {
@@ -113,29 +125,50 @@ test('a boat entered at several meetings: the scrutineer goes to the one on next
       `insert into events (id, organisation_id, name, slug, venue, starts_on, ends_on, time_zone, status) values ($1, $2, $3, $4, 'Test Reach', $5, $6, 'Pacific/Auckland', 'entries_open') on conflict do nothing`,
       [id, CLUB, name, name.toLowerCase().replaceAll(' ', '-'), starts, ends],
     );
-    await query(`insert into race_classes (id, event_id, name, code) values ($1, $2, 'Tag test', 'TT') on conflict do nothing`, [cls, id]);
+    await query(
+      `insert into race_classes (id, event_id, name, code) values ($1, $2, 'Tag test', 'TT') on conflict do nothing`,
+      [cls, id],
+    );
   }
   const boat = await demoBoat([DEMO.scrutineer, DEMO.entrant], 1);
   // Entered at the demo meeting (staffed), the past meeting (staffed) and the sooner one (not yet staffed).
-  for (const [ev, cls, n] of [[PAST, PAST_CLASS, 801], [SOONER, SOONER_CLASS, 802]] as const) {
+  for (const [ev, cls, n] of [
+    [PAST, PAST_CLASS, 801],
+    [SOONER, SOONER_CLASS, 802],
+  ] as const) {
     await query(
       `insert into entries (event_id, class_id, boat_id, entrant_id, race_number, status, fee_minor, currency) values ($1, $2, $3, $4, $5, 'entered', 0, 'NZD') on conflict do nothing`,
       [ev, cls, boat.boatId, boat.ownerId, n],
     );
   }
-  await query(`insert into event_staff (event_id, user_id, role) values ($1, $2, 'scrutineer') on conflict do nothing`, [PAST, scrutineer.id]);
+  await query(
+    `insert into event_staff (event_id, user_id, role) values ($1, $2, 'scrutineer') on conflict do nothing`,
+    [PAST, scrutineer.id],
+  );
   const before = await sessions.scrutineer.fetch(`/t/${boat.token}`);
-  assert.equal(before.headers.get('location'), `/inspect/${DEMO.meetingId}?tag=${boat.token}`, 'not the past meeting; not the sooner one, where they are not staff');
-  await query(`insert into event_staff (event_id, user_id, role) values ($1, $2, 'scrutineer') on conflict do nothing`, [SOONER, scrutineer.id]);
+  assert.equal(
+    before.headers.get('location'),
+    `/inspect/${DEMO.meetingId}?tag=${boat.token}`,
+    'not the past meeting; not the sooner one, where they are not staff',
+  );
+  await query(
+    `insert into event_staff (event_id, user_id, role) values ($1, $2, 'scrutineer') on conflict do nothing`,
+    [SOONER, scrutineer.id],
+  );
   const after = await sessions.scrutineer.fetch(`/t/${boat.token}`);
-  assert.equal(after.headers.get('location'), `/inspect/${SOONER}?tag=${boat.token}`, 'the meeting on next, now they inspect there');
+  assert.equal(
+    after.headers.get('location'),
+    `/inspect/${SOONER}?tag=${boat.token}`,
+    'the meeting on next, now they inspect there',
+  );
   await query(`delete from event_staff where user_id = $1 and event_id in ($2, $3)`, [scrutineer.id, SOONER, PAST]);
 });
 
 test('a scrutineer scanning a boat not entered where they inspect, or a replaced tag, sees the public card', async () => {
   const [owner] = await query<{ id: string }>('select id from users where email = $1', [DEMO.entrant]);
   const [boat] = await query<{ id: string }>(
-    `insert into boats (owner_id, name, declared_nozzle_mm, declared_power_kw) values ($1, 'Unentered Tern', 101.5, 220) returning id`, [owner.id],
+    `insert into boats (owner_id, name, declared_nozzle_mm, declared_power_kw) values ($1, 'Unentered Tern', 101.5, 220) returning id`,
+    [owner.id],
   );
   const token = randomBytes(18).toString('base64url');
   await query(`insert into boat_tags (boat_id, token) values ($1, $2)`, [boat.id, token]);
@@ -148,7 +181,10 @@ test('a scrutineer scanning a boat not entered where they inspect, or a replaced
   // A demo boat's old tag, replaced: the old token names the boat but leads nowhere.
   const demo = await demoBoat([DEMO.scrutineer, DEMO.entrant], 2);
   const oldToken = randomBytes(18).toString('base64url');
-  await query(`insert into boat_tags (boat_id, token, issued_at, retired_at) values ($1, $2, now() - interval '2 days', now() - interval '1 day')`, [demo.boatId, oldToken]);
+  await query(
+    `insert into boat_tags (boat_id, token, issued_at, retired_at) values ($1, $2, now() - interval '2 days', now() - interval '1 day')`,
+    [demo.boatId, oldToken],
+  );
   const retired = await sessions.scrutineer.fetch(`/t/${oldToken}`);
   assert.equal(retired.status, 200, 'a replaced tag never leads to a card');
   assert.match(await retired.text(), /data-testid="tag-retired"/);
@@ -156,7 +192,10 @@ test('a scrutineer scanning a boat not entered where they inspect, or a replaced
 });
 
 async function invitationToken(email: string) {
-  const { res, body } = await sessions.organiser.json(`/api/events/${DEMO.meetingId}/invitations`, { email, role: 'scrutineer' });
+  const { res, body } = await sessions.organiser.json(`/api/events/${DEMO.meetingId}/invitations`, {
+    email,
+    role: 'scrutineer',
+  });
   assert.equal(res.status, 201, JSON.stringify(body));
   return new URL(firstLink(await waitForMail(email, { subject: /invited/ }))).pathname.split('/').pop()!;
 }
@@ -181,7 +220,11 @@ test('accepting an invitation sets the name given (trimmed, at most 120 characte
     assert.match(String(refused.body?.url), /error=NameInvalid/, JSON.stringify(bad));
     assert.equal(await refused.s.session(), null);
   }
-  assert.equal((await query('select 1 from staff_invitations where email = $1 and accepted_at is null', [email])).length, 1, 'the invitation stays unused');
+  assert.equal(
+    (await query('select 1 from staff_invitations where email = $1 and accepted_at is null', [email])).length,
+    1,
+    'the invitation stays unused',
+  );
   const ok = await accept(token, '  Rowan Tidewell  ');
   assert.equal(ok.res.status, 200);
   assert.equal((await ok.s.session())?.user?.email, email);
@@ -191,7 +234,11 @@ test('accepting an invitation sets the name given (trimmed, at most 120 characte
   const named = uniqueEmail('keeps');
   await new HttpSession().signUpAndConfirm({ name: 'Ada Quayle', email: named, password: PW });
   const t2 = await invitationToken(named);
-  assert.doesNotMatch(await (await new HttpSession().fetch(`/invite/${t2}`)).text(), /Your name/, 'no name asked of a named account');
+  assert.doesNotMatch(
+    await (await new HttpSession().fetch(`/invite/${t2}`)).text(),
+    /Your name/,
+    'no name asked of a named account',
+  );
   assert.equal((await accept(t2, 'Somebody Else')).res.status, 200);
   assert.deepEqual(await query('select name from users where email = $1', [named]), [{ name: 'Ada Quayle' }]);
 });
@@ -199,12 +246,23 @@ test('accepting an invitation sets the name given (trimmed, at most 120 characte
 test('a hull number with a minus sign is refused with a field error and stores nothing; hull numbers as painted are kept', async () => {
   const entrant = new HttpSession();
   await entrant.signUpAndConfirm({ name: 'Hull Tester', email: uniqueEmail('hull'), password: PW });
-  const boat = (hullNumber: string) => ({ name: `Hull ${hullNumber || 'blank'}`, hullNumber, nozzleDiameter: 101.5, nozzleUnit: 'mm', power: 220, powerUnit: 'kW' });
+  const boat = (hullNumber: string) => ({
+    name: `Hull ${hullNumber || 'blank'}`,
+    hullNumber,
+    nozzleDiameter: 101.5,
+    nozzleUnit: 'mm',
+    power: 220,
+    powerUnit: 'kW',
+  });
   const [{ n: before }] = await query<{ n: string }>('select count(*) as n from boats');
   for (const bad of ['-7', '−7', '- 7', '#7']) {
     const { res, body } = await entrant.json('/api/boats', boat(bad));
     assert.equal(res.status, 400, bad);
-    assert.deepEqual(body.error.details.map((d: { field: string }) => d.field), ['hullNumber'], bad);
+    assert.deepEqual(
+      body.error.details.map((d: { field: string }) => d.field),
+      ['hullNumber'],
+      bad,
+    );
     assert.match(body.error.details[0].message, /hull or sail number/);
   }
   assert.deepEqual(await query('select count(*) as n from boats'), [{ n: before }]);
@@ -217,23 +275,45 @@ test('a hull number with a minus sign is refused with a field error and stores n
 test('a race number that is taken gives the next free number after it, and the answer says which of each', async () => {
   const entrant = new HttpSession();
   await entrant.signUpAndConfirm({ name: 'Number Tester', email: uniqueEmail('number'), password: PW });
-  const [taken] = await query<{ n: number }>(`select race_number as n from entries where event_id = $1 order by race_number limit 1`, [DEMO.meetingId]);
+  const [taken] = await query<{ n: number }>(
+    `select race_number as n from entries where event_id = $1 order by race_number limit 1`,
+    [DEMO.meetingId],
+  );
   const [next] = await query<{ n: number }>(
     `select n from generate_series($2::int + 1, 9999) n where not exists (select 1 from entries where event_id = $1 and race_number = n) order by n limit 1`,
     [DEMO.meetingId, taken.n],
   );
-  const { body: boat } = await entrant.json('/api/boats', { name: 'Numbered Petrel', nozzleDiameter: 101.5, power: 220 });
-  const { res, body } = await entrant.json('/api/entries', { boatId: boat.data.id, eventId: DEMO.meetingId, classId: demoClassId, requestedRaceNumber: taken.n });
+  const { body: boat } = await entrant.json('/api/boats', {
+    name: 'Numbered Petrel',
+    nozzleDiameter: 101.5,
+    power: 220,
+  });
+  const { res, body } = await entrant.json('/api/entries', {
+    boatId: boat.data.id,
+    eventId: DEMO.meetingId,
+    classId: demoClassId,
+    requestedRaceNumber: taken.n,
+  });
   assert.equal(res.status, 201, JSON.stringify(body));
-  assert.equal(body.data.entry.raceNumber, next.n, 'the next free number after the one asked for, not the lowest free one');
+  assert.equal(
+    body.data.entry.raceNumber,
+    next.n,
+    'the next free number after the one asked for, not the lowest free one',
+  );
   assert.equal(body.data.requestedRaceNumber, taken.n);
   assert.equal(body.data.gotRequestedNumber, false);
-  assert.equal(body.data.raceNumberNote, `Race number ${taken.n} is already taken at this meeting, so you have ${next.n}, the next free number.`);
+  assert.equal(
+    body.data.raceNumberNote,
+    `Race number ${taken.n} is already taken at this meeting, so you have ${next.n}, the next free number.`,
+  );
 });
 
 test('protest e-mails name the protested boat, to the protested entrant above all', async () => {
   const { organiser } = await setUpMeeting();
-  await query(`insert into race_classes (id, event_id, name, code) values ($1, $2, 'Test TM', 'TM') on conflict do nothing`, [MAIL_CLASS, EVENT]);
+  await query(
+    `insert into race_classes (id, event_id, name, code) values ($1, $2, 'Test TM', 'TM') on conflict do nothing`,
+    [MAIL_CLASS, EVENT],
+  );
   const lodger = await competitor('mail-lodger', MAIL_CLASS);
   const target = await competitor('mail-target', MAIL_CLASS);
   await publishResults(organiser, MAIL_CLASS, [target, lodger]);

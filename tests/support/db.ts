@@ -13,4 +13,3 @@ export async function closeDb() {
   await pool?.end();
   pool = undefined;
 }
-

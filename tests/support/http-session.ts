@@ -7,13 +7,21 @@ function requestFrom(localAddress: string, url: string, init: RequestInit, heade
   const u = new URL(url);
   return new Promise((resolve, reject) => {
     const req = http.request(
-      { host: '127.0.0.1', port: u.port, path: `${u.pathname}${u.search}`, method: init.method ?? 'GET', localAddress, headers: { ...Object.fromEntries(headers), host: u.host } },
+      {
+        host: '127.0.0.1',
+        port: u.port,
+        path: `${u.pathname}${u.search}`,
+        method: init.method ?? 'GET',
+        localAddress,
+        headers: { ...Object.fromEntries(headers), host: u.host },
+      },
       (res) => {
         const chunks: Buffer[] = [];
         res.on('data', (c: Buffer) => chunks.push(c));
         res.on('end', () => {
           const h = new Headers();
-          for (const [k, v] of Object.entries(res.headers)) for (const one of Array.isArray(v) ? v : [v ?? '']) h.append(k, one);
+          for (const [k, v] of Object.entries(res.headers))
+            for (const one of Array.isArray(v) ? v : [v ?? '']) h.append(k, one);
           const status = res.statusCode ?? 0;
           const body = status === 204 || status === 304 ? null : Buffer.concat(chunks);
           resolve(new Response(body, { status, headers: h }));
@@ -22,7 +30,8 @@ function requestFrom(localAddress: string, url: string, init: RequestInit, heade
       },
     );
     req.on('error', reject);
-    if (init.body !== undefined && init.body !== null) req.write(typeof init.body === 'string' ? init.body : String(init.body));
+    if (init.body !== undefined && init.body !== null)
+      req.write(typeof init.body === 'string' ? init.body : String(init.body));
     req.end();
   });
 }
@@ -67,13 +76,19 @@ export class HttpSession {
     const url = path.startsWith('http') ? path : `${BASE_URL}${path}`;
     const headers = new Headers(init.headers);
     if (this.cookies.size) headers.set('cookie', this.cookieHeader());
-    const res = this.localAddress ? await requestFrom(this.localAddress, url, init, headers) : await fetch(url, { ...init, headers, redirect: 'manual' });
+    const res = this.localAddress
+      ? await requestFrom(this.localAddress, url, init, headers)
+      : await fetch(url, { ...init, headers, redirect: 'manual' });
     this.store(res);
     return res;
   }
 
   async json(path: string, body: unknown, method = 'POST') {
-    const res = await this.fetch(path, { method, headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) });
+    const res = await this.fetch(path, {
+      method,
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify(body),
+    });
     return { res, body: await res.json().catch(() => null) };
   }
 

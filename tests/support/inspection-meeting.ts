@@ -14,7 +14,13 @@ export const rulesWith = (over: Record<string, unknown> = {}) => ({
   weight: { minKg: null, includesDriver: true, defaultUncertaintyKg: 1 },
   decisionRule: 'iso14253',
   safetyItems: ['helmet'],
-  parity: { pumpEfficiency: 0.9, nozzleLossCoefficient: 0.02, inletLossCoefficient: 0.2, wakeFraction: 0, referenceSpeedsMs: [10] },
+  parity: {
+    pumpEfficiency: 0.9,
+    nozzleLossCoefficient: 0.02,
+    inletLossCoefficient: 0.2,
+    wakeFraction: 0,
+    referenceSpeedsMs: [10],
+  },
   ...over,
 });
 
@@ -30,8 +36,19 @@ export class InspectionMeeting {
     await this.organiser.signInWithPassword(DEMO.organiser, DEMO_PASSWORD);
     const { res, body } = await this.organiser.json('/api/events', {
       organisationId: '0b0e0000-0000-4000-8000-000000000001',
-      name, venue: 'Test Reach', startsOn: '2027-05-01', endsOn: '2027-05-02', timeZone: 'Pacific/Auckland', status: 'entries_open',
-      waterKind: 'fresh', waterTemperatureC: 15, waterDensityKgM3: null, protestWindowMinutes: 30, currency: 'NZD', entryFeeMinor: 10000, protestFeeMinor: 3000,
+      name,
+      venue: 'Test Reach',
+      startsOn: '2027-05-01',
+      endsOn: '2027-05-02',
+      timeZone: 'Pacific/Auckland',
+      status: 'entries_open',
+      waterKind: 'fresh',
+      waterTemperatureC: 15,
+      waterDensityKgM3: null,
+      protestWindowMinutes: 30,
+      currency: 'NZD',
+      entryFeeMinor: 10000,
+      protestFeeMinor: 3000,
     });
     assert.equal(res.status, 201, JSON.stringify(body));
     this.eventId = body.data.id;
@@ -46,10 +63,17 @@ export class InspectionMeeting {
   async addClass(code: string, rules: Record<string, unknown>, opts: { publish?: boolean } = {}): Promise<string> {
     const c = await this.organiser.json(`/api/events/${this.eventId}/classes`, { name: `Class ${code}`, code });
     assert.equal(c.res.status, 201, JSON.stringify(c.body));
-    const saved = await this.organiser.json(`/api/events/${this.eventId}/classes/${c.body.data.id}/rules`, { powerUnit: 'kW', rules }, 'PUT');
+    const saved = await this.organiser.json(
+      `/api/events/${this.eventId}/classes/${c.body.data.id}/rules`,
+      { powerUnit: 'kW', rules },
+      'PUT',
+    );
     assert.equal(saved.res.status, 200, JSON.stringify(saved.body));
     if (opts.publish !== false) {
-      const p = await this.organiser.json(`/api/events/${this.eventId}/classes/${c.body.data.id}/rules/publish`, { changeNote: 'test', effectiveFrom: new Date(Date.now() - 86_400_000).toISOString() });
+      const p = await this.organiser.json(`/api/events/${this.eventId}/classes/${c.body.data.id}/rules/publish`, {
+        changeNote: 'test',
+        effectiveFrom: new Date(Date.now() - 86_400_000).toISOString(),
+      });
       assert.equal(p.res.status, 201, JSON.stringify(p.body));
     }
     return c.body.data.id;
@@ -57,7 +81,9 @@ export class InspectionMeeting {
 
   /** A boat owned by `ownerEmail` (the demo entrant by default), entered in the class, with a current tag. */
   async addEntry(classId: string, opts: { ownerEmail?: string; declaredPowerKw?: number } = {}): Promise<TestEntry> {
-    const [owner] = await query<{ id: string }>('select id from users where email = $1', [opts.ownerEmail ?? DEMO.entrant]);
+    const [owner] = await query<{ id: string }>('select id from users where email = $1', [
+      opts.ownerEmail ?? DEMO.entrant,
+    ]);
     const raceNumber = this.nextNumber++;
     const boatName = `Test Boat ${raceNumber} ${randomBytes(2).toString('hex')}`;
     const [boat] = await query<{ id: string }>(
@@ -84,7 +110,14 @@ export function inspectionBody(entryId: string, largestMm: number, over: Record<
     kind: 'pre_race',
     capturedAt: new Date().toISOString(),
     device: 'integration test',
-    nozzle: { readings: [{ diameterMm: 101.5, angleDeg: 0 }, { diameterMm: largestMm, angleDeg: 60 }, { diameterMm: 101.8, angleDeg: 120 }], expandedUncertaintyMm: 0.05 },
+    nozzle: {
+      readings: [
+        { diameterMm: 101.5, angleDeg: 0 },
+        { diameterMm: largestMm, angleDeg: 60 },
+        { diameterMm: 101.8, angleDeg: 120 },
+      ],
+      expandedUncertaintyMm: 0.05,
+    },
     power: { declaredKw: 220, evidenceSeen: true },
     seals: [{ number: 'S-0001', location: 'pump housing' }],
     safety: { helmet: true },

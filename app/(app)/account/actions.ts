@@ -13,7 +13,11 @@ function toResult(err: unknown): ActionResult {
   if (err instanceof ZodError) return { ok: false, fieldErrors: fieldErrors(err) };
   if (err instanceof AppError) {
     const details = Array.isArray(err.details) ? (err.details as { field: string; message: string }[]) : [];
-    return { ok: false, message: err.message, ...(details.length > 0 && { fieldErrors: Object.fromEntries(details.map((d) => [d.field, d.message])) }) };
+    return {
+      ok: false,
+      message: err.message,
+      ...(details.length > 0 && { fieldErrors: Object.fromEntries(details.map((d) => [d.field, d.message])) }),
+    };
   }
   throw err;
 }
@@ -29,7 +33,10 @@ export async function changeNameAction(_prev: ActionResult | null, form: FormDat
 
 export async function changePasswordAction(_prev: ActionResult | null, form: FormData): Promise<ActionResult> {
   try {
-    await changePassword(await getActor(), { currentPassword: form.get('currentPassword') ?? '', password: form.get('password') });
+    await changePassword(await getActor(), {
+      currentPassword: form.get('currentPassword') ?? '',
+      password: form.get('password'),
+    });
     return { ok: true, message: 'Password changed. Every session on every device has ended.' };
   } catch (err) {
     return toResult(err);
@@ -41,7 +48,12 @@ export async function signOutEverywhereAction(_prev: ActionResult | null, form: 
   try {
     const actor = await getActor();
     if (!actor) throw new AppError('unauthenticated', 401, 'Sign in to do this.');
-    if (form.get('confirm') !== 'everywhere') return { ok: false, message: 'Confirm that every session should end.', fieldErrors: { confirm: 'Confirm that every session should end.' } };
+    if (form.get('confirm') !== 'everywhere')
+      return {
+        ok: false,
+        message: 'Confirm that every session should end.',
+        fieldErrors: { confirm: 'Confirm that every session should end.' },
+      };
     await signOutEverywhere(actor);
     return { ok: true, message: 'Every session has ended, this one too.' };
   } catch (err) {
@@ -53,7 +65,12 @@ export async function resendAddressProofAction(_prev: ActionResult | null, form:
   try {
     const actor = await getActor();
     if (!actor) throw new AppError('unauthenticated', 401, 'Sign in to do this.');
-    if (form.get('confirm') !== 'send') return { ok: false, message: 'Confirm that a new link should be sent.', fieldErrors: { confirm: 'Confirm that a new link should be sent.' } };
+    if (form.get('confirm') !== 'send')
+      return {
+        ok: false,
+        message: 'Confirm that a new link should be sent.',
+        fieldErrors: { confirm: 'Confirm that a new link should be sent.' },
+      };
     const { email } = await resendAddressProof(actor);
     return { ok: true, message: `A new link is on its way to ${email}.` };
   } catch (err) {

@@ -17,10 +17,19 @@ export function NameForm({ name }: { name: string | null }) {
   return (
     <form {...form}>
       <fieldset disabled={isPending} className="space-y-3">
-        <TextField name="name" label="Your name" defaultValue={name ?? ''} autoComplete="name" maxLength={120}
-          hint="As officials, stewards and the records show it." error={state?.fieldErrors?.name} />
+        <TextField
+          name="name"
+          label="Your name"
+          defaultValue={name ?? ''}
+          autoComplete="name"
+          maxLength={120}
+          hint="As officials, stewards and the records show it."
+          error={state?.fieldErrors?.name}
+        />
         <FormMessage state={state} testId="name-result" />
-        <button type="submit" className="btn-primary">{isPending ? 'Saving…' : 'Save name'}</button>
+        <button type="submit" className="btn-primary">
+          {isPending ? 'Saving…' : 'Save name'}
+        </button>
       </fieldset>
     </form>
   );

@@ -22,7 +22,14 @@ export default async function AccountPage() {
         <dt className="font-bold">E-mail</dt>
         <dd className="break-all">
           {actor.email}{' '}
-          <span data-testid="address-state" className={actor.isAddressProven ? 'inline-block rounded-full bg-pass-100 px-3 py-1 text-sm font-bold text-pass-800' : 'inline-block rounded-full bg-doubt-100 px-3 py-1 text-sm font-bold text-doubt-800'}>
+          <span
+            data-testid="address-state"
+            className={
+              actor.isAddressProven
+                ? 'inline-block rounded-full bg-pass-100 px-3 py-1 text-sm font-bold text-pass-800'
+                : 'inline-block rounded-full bg-doubt-100 px-3 py-1 text-sm font-bold text-doubt-800'
+            }
+          >
             {actor.isAddressProven ? 'confirmed' : 'not confirmed'}
           </span>
         </dd>
@@ -31,16 +38,20 @@ export default async function AccountPage() {
       </dl>
       {!actor.isAddressProven && (
         <section className="card space-y-3" aria-labelledby="confirm-heading">
-          <h2 id="confirm-heading" className="text-xl">Confirm your address</h2>
+          <h2 id="confirm-heading" className="text-xl">
+            Confirm your address
+          </h2>
           <p>
-            Follow the link we sent to {actor.email} to confirm it is yours. Until then you cannot pay entry or protest fees, and
-            organisers can only invite you to a meeting&apos;s staff through that mailbox.
+            Follow the link we sent to {actor.email} to confirm it is yours. Until then you cannot pay entry or protest
+            fees, and organisers can only invite you to a meeting&apos;s staff through that mailbox.
           </p>
           <ResendProofForm />
         </section>
       )}
       <section className="card space-y-3" aria-labelledby="name-heading">
-        <h2 id="name-heading" className="text-xl">{actor.name ? 'Change your name' : 'Give your name'}</h2>
+        <h2 id="name-heading" className="text-xl">
+          {actor.name ? 'Change your name' : 'Give your name'}
+        </h2>
         <NameForm name={actor.name} />
       </section>
       <section className="card space-y-3">
@@ -48,7 +59,9 @@ export default async function AccountPage() {
         <PasswordForm email={actor.email} hasPassword={summary.hasPassword} />
       </section>
       <section className="card space-y-3" aria-labelledby="sessions-heading">
-        <h2 id="sessions-heading" className="text-xl">Sessions</h2>
+        <h2 id="sessions-heading" className="text-xl">
+          Sessions
+        </h2>
         <p>Lost a phone, or signed in on a shared computer? End every session of this account on every device.</p>
         <SignOutEverywhereForm />
       </section>

@@ -13,10 +13,14 @@ import { useFormAction } from '@/components/forms/use-form-action';
 export function PasswordForm({ email, hasPassword }: { email: string; hasPassword: boolean }) {
   const router = useRouter();
   const newPassword = useRef('');
-  const { state, isPending, form } = useFormAction(async (prev: ActionResult | null, data: FormData) => {
-    newPassword.current = String(data.get('password') ?? '');
-    return changePasswordAction(prev, data);
-  }, null, { resetOnSuccess: true });
+  const { state, isPending, form } = useFormAction(
+    async (prev: ActionResult | null, data: FormData) => {
+      newPassword.current = String(data.get('password') ?? '');
+      return changePasswordAction(prev, data);
+    },
+    null,
+    { resetOnSuccess: true },
+  );
   useEffect(() => {
     if (!state?.ok) return;
     void signIn('password', { email, password: newPassword.current, redirect: false }).then(() => router.refresh());
@@ -26,11 +30,26 @@ export function PasswordForm({ email, hasPassword }: { email: string; hasPasswor
     <form {...form}>
       <fieldset disabled={isPending} className="space-y-3">
         {hasPassword && (
-          <TextField name="currentPassword" label="Current password" type="password" autoComplete="current-password" error={state?.fieldErrors?.currentPassword} />
+          <TextField
+            name="currentPassword"
+            label="Current password"
+            type="password"
+            autoComplete="current-password"
+            error={state?.fieldErrors?.currentPassword}
+          />
         )}
-        <TextField name="password" label="New password" type="password" autoComplete="new-password" hint="At least 10 characters." error={state?.fieldErrors?.password} />
+        <TextField
+          name="password"
+          label="New password"
+          type="password"
+          autoComplete="new-password"
+          hint="At least 10 characters."
+          error={state?.fieldErrors?.password}
+        />
         <FormMessage state={state} testId="password-result" />
-        <button type="submit" className="btn-primary">{isPending ? 'Saving…' : 'Save password'}</button>
+        <button type="submit" className="btn-primary">
+          {isPending ? 'Saving…' : 'Save password'}
+        </button>
       </fieldset>
     </form>
   );

@@ -15,7 +15,9 @@ export function SignOutEverywhereForm() {
     <form {...form} className="space-y-2">
       <input type="hidden" name="confirm" value="everywhere" />
       <FormMessage state={state} testId="sign-out-everywhere-result" />
-      <button type="submit" className="btn-secondary" disabled={isPending}>{isPending ? 'Signing out…' : 'Sign out everywhere'}</button>
+      <button type="submit" className="btn-secondary" disabled={isPending}>
+        {isPending ? 'Signing out…' : 'Sign out everywhere'}
+      </button>
     </form>
   );
 }
@@ -26,7 +28,9 @@ export function ResendProofForm() {
     <form {...form} className="space-y-2">
       <input type="hidden" name="confirm" value="send" />
       <FormMessage state={state} testId="resend-result" />
-      <button type="submit" className="btn-secondary" disabled={isPending}>{isPending ? 'Sending…' : 'Send the link again'}</button>
+      <button type="submit" className="btn-secondary" disabled={isPending}>
+        {isPending ? 'Sending…' : 'Send the link again'}
+      </button>
     </form>
   );
 }

@@ -18,10 +18,14 @@ export default async function MyBoatsPage() {
     <div className="space-y-6">
       <div className="flex flex-wrap items-center justify-between gap-3">
         <h1>My boats</h1>
-        <Link href="/boats/new" className="btn-primary">Register a boat</Link>
+        <Link href="/boats/new" className="btn-primary">
+          Register a boat
+        </Link>
       </div>
       {boats.length === 0 ? (
-        <p className="card text-ink-soft">No boats yet. Register one with its pump, nozzle and engine, then enter it at a meeting.</p>
+        <p className="card text-ink-soft">
+          No boats yet. Register one with its pump, nozzle and engine, then enter it at a meeting.
+        </p>
       ) : (
         <ul className="grid gap-3 sm:grid-cols-2" data-testid="my-boats">
           {boats.map((b) => (
@@ -32,13 +36,22 @@ export default async function MyBoatsPage() {
               </h2>
               <dl className="grid grid-cols-[9rem_1fr] gap-y-1 text-base">
                 <dt className="text-ink-soft">Nozzle exit</dt>
-                <dd className="figure">{formatFigure(b.declaredNozzleMm, 2)} mm ± {formatFigure(b.declaredNozzleToleranceMm, 2)} mm</dd>
+                <dd className="figure">
+                  {formatFigure(b.declaredNozzleMm, 2)} mm ± {formatFigure(b.declaredNozzleToleranceMm, 2)} mm
+                </dd>
                 <dt className="text-ink-soft">Power</dt>
-                <dd className="figure">{formatPowerFigure(b.declaredPowerKw, 'powerKw')} ({formatPowerFigure(convertPower(b.declaredPowerKw, 'kW', 'hp'), 'powerHp')})</dd>
+                <dd className="figure">
+                  {formatPowerFigure(b.declaredPowerKw, 'powerKw')} (
+                  {formatPowerFigure(convertPower(b.declaredPowerKw, 'kW', 'hp'), 'powerHp')})
+                </dd>
               </dl>
               <div className="flex flex-wrap gap-2 pt-1">
-                <Link href={`/boats/${b.id}`} className="btn-secondary">Declaration and tag</Link>
-                <Link href={`/boats/${b.id}/enter`} className="btn-primary">Enter a meeting</Link>
+                <Link href={`/boats/${b.id}`} className="btn-secondary">
+                  Declaration and tag
+                </Link>
+                <Link href={`/boats/${b.id}/enter`} className="btn-primary">
+                  Enter a meeting
+                </Link>
               </div>
             </li>
           ))}

@@ -6,7 +6,9 @@ export default function EntriesError({ reset }: { error: Error; reset: () => voi
     <div role="alert" className="card space-y-3">
       <h1 className="text-2xl">Your entries could not be loaded</h1>
       <p>Something went wrong on our side or the connection dropped. Nothing you saved is lost.</p>
-      <button type="button" className="btn-primary" onClick={reset}>Try again</button>
+      <button type="button" className="btn-primary" onClick={reset}>
+        Try again
+      </button>
     </div>
   );
 }

@@ -5,7 +5,9 @@ export default function EntriesLoading() {
       <p className="sr-only">Loading your entries…</p>
       <div className="h-9 w-48 animate-pulse rounded-lg bg-paper-deep" />
       <div className="grid gap-3 sm:grid-cols-2">
-        {[0, 1].map((i) => <div key={i} className="card h-40 animate-pulse bg-paper-deep" />)}
+        {[0, 1].map((i) => (
+          <div key={i} className="card h-40 animate-pulse bg-paper-deep" />
+        ))}
       </div>
     </div>
   );

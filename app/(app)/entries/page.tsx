@@ -17,8 +17,10 @@ export const dynamic = 'force-dynamic';
 // What an inspection result asks of the entrant, beside the badge.
 const RESULT_MEANING: Record<NonNullable<MyEntry['inspectionResult']>, string> = {
   conforms: 'The scrutineers found the boat within the class rules at its latest inspection.',
-  does_not_conform: 'A class rule is not met at the latest inspection: see the chief scrutineer before the boat goes on the water.',
-  inconclusive: 'A measurement is too close to a limit to decide, given its uncertainty: the chief scrutineer decides what happens next, often a measurement with a finer instrument.',
+  does_not_conform:
+    'A class rule is not met at the latest inspection: see the chief scrutineer before the boat goes on the water.',
+  inconclusive:
+    'A measurement is too close to a limit to decide, given its uncertainty: the chief scrutineer decides what happens next, often a measurement with a finer instrument.',
 };
 
 // Badge colours pair with the words (never colour alone).
@@ -33,15 +35,26 @@ function badgeClass(e: MyEntry) {
 function PaymentBanner({ entry }: { entry: MyEntry }) {
   if (entry.paidAt) {
     return (
-      <div role="status" className="rounded-lg border-l-8 border-pass-600 bg-pass-100 p-4 text-pass-800" data-testid="payment-banner">
+      <div
+        role="status"
+        className="rounded-lg border-l-8 border-pass-600 bg-pass-100 p-4 text-pass-800"
+        data-testid="payment-banner"
+      >
         <p className="text-lg font-bold">Payment received — thank you</p>
-        <p>{entry.boatName} is entered in {entry.classCode} {entry.className} at {entry.eventName} as number {entry.raceNumber}. A receipt is on its way by e-mail.</p>
+        <p>
+          {entry.boatName} is entered in {entry.classCode} {entry.className} at {entry.eventName} as number{' '}
+          {entry.raceNumber}. A receipt is on its way by e-mail.
+        </p>
       </div>
     );
   }
   if (entry.status === 'entered') {
     return (
-      <div role="status" className="rounded-lg border-l-8 border-pass-600 bg-pass-100 p-4 text-pass-800" data-testid="payment-banner">
+      <div
+        role="status"
+        className="rounded-lg border-l-8 border-pass-600 bg-pass-100 p-4 text-pass-800"
+        data-testid="payment-banner"
+      >
         <p className="text-lg font-bold">You are entered</p>
         <p>This meeting charges no entry fee.</p>
       </div>
@@ -49,15 +62,25 @@ function PaymentBanner({ entry }: { entry: MyEntry }) {
   }
   if (entry.status !== 'awaiting_payment') return null;
   return (
-    <div role="status" className="space-y-2 rounded-lg border-l-8 border-doubt-600 bg-doubt-100 p-4 text-doubt-800" data-testid="payment-banner">
+    <div
+      role="status"
+      className="space-y-2 rounded-lg border-l-8 border-doubt-600 bg-doubt-100 p-4 text-doubt-800"
+      data-testid="payment-banner"
+    >
       <p className="text-lg font-bold">Waiting for payment confirmation…</p>
-      <p>The payment provider tells us directly when your payment has gone through; this usually takes a few seconds.</p>
+      <p>
+        The payment provider tells us directly when your payment has gone through; this usually takes a few seconds.
+      </p>
       <PaymentWaiter />
     </div>
   );
 }
 
-export default async function MyEntriesPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function MyEntriesPage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const actor = await getActor();
   if (!actor) redirect('/sign-in');
   const sp = await searchParams;
@@ -75,7 +98,9 @@ export default async function MyEntriesPage({ searchParams }: { searchParams: Pr
         </div>
       )}
       {entries.length === 0 ? (
-        <p className="card text-ink-soft">No entries yet. Open <Link href="/boats">My boats</Link> and enter a boat at a meeting.</p>
+        <p className="card text-ink-soft">
+          No entries yet. Open <Link href="/boats">My boats</Link> and enter a boat at a meeting.
+        </p>
       ) : (
         <ul className="space-y-3" data-testid="my-entries">
           {entries.map((e) => (
@@ -83,28 +108,60 @@ export default async function MyEntriesPage({ searchParams }: { searchParams: Pr
               <div className="flex flex-wrap items-start justify-between gap-2">
                 <div>
                   <h2 className="text-xl">{e.eventName}</h2>
-                  <p className="text-ink-soft">{e.venue} · {format(parseISO(e.startsOn), 'd MMM yyyy')}</p>
+                  <p className="text-ink-soft">
+                    {e.venue} · {format(parseISO(e.startsOn), 'd MMM yyyy')}
+                  </p>
                 </div>
-                <span className={`rounded-full px-3 py-1 font-bold ${badgeClass(e)}`} data-testid="entry-status">{e.statusLabel}</span>
+                <span className={`rounded-full px-3 py-1 font-bold ${badgeClass(e)}`} data-testid="entry-status">
+                  {e.statusLabel}
+                </span>
               </div>
               <dl className="grid grid-cols-[8rem_1fr] gap-y-1">
-                <dt className="text-ink-soft">Boat</dt><dd><Link href={`/boats/${e.boatId}`}>{e.boatName}</Link></dd>
-                <dt className="text-ink-soft">Class</dt><dd>{e.classCode} {e.className}</dd>
-                <dt className="text-ink-soft">Race number</dt><dd className="figure font-bold">{e.raceNumber}</dd>
+                <dt className="text-ink-soft">Boat</dt>
+                <dd>
+                  <Link href={`/boats/${e.boatId}`}>{e.boatName}</Link>
+                </dd>
+                <dt className="text-ink-soft">Class</dt>
+                <dd>
+                  {e.classCode} {e.className}
+                </dd>
+                <dt className="text-ink-soft">Race number</dt>
+                <dd className="figure font-bold">{e.raceNumber}</dd>
                 <dt className="text-ink-soft">Entry fee</dt>
                 <dd>
                   {e.feeMinor > 0 ? formatMoney(e.feeMinor, e.currency) : 'none'}
-                  {e.paidAt && <span className="ml-2 text-pass-800">paid {format(parseISO(e.paidAt), 'd MMM yyyy')}</span>}
-                  {e.refundedAt && <span className="ml-2">refunded {format(parseISO(e.refundedAt), 'd MMM yyyy')}</span>}
+                  {e.paidAt && (
+                    <span className="ml-2 text-pass-800">paid {format(parseISO(e.paidAt), 'd MMM yyyy')}</span>
+                  )}
+                  {e.refundedAt && (
+                    <span className="ml-2">refunded {format(parseISO(e.refundedAt), 'd MMM yyyy')}</span>
+                  )}
                 </dd>
-                {e.cancelledReason && <><dt className="text-ink-soft">Reason</dt><dd>{e.cancelledReason}</dd></>}
+                {e.cancelledReason && (
+                  <>
+                    <dt className="text-ink-soft">Reason</dt>
+                    <dd>{e.cancelledReason}</dd>
+                  </>
+                )}
               </dl>
-              {e.status === 'entered' && e.inspectionResult && <p className="text-ink-soft" data-testid="result-meaning">{RESULT_MEANING[e.inspectionResult]}</p>}
+              {e.status === 'entered' && e.inspectionResult && (
+                <p className="text-ink-soft" data-testid="result-meaning">
+                  {RESULT_MEANING[e.inspectionResult]}
+                </p>
+              )}
               {e.partsHeld.length > 0 && (
-                <div className="rounded-lg border-l-8 border-doubt-600 bg-doubt-100 px-3 py-2 text-doubt-800" data-testid="parts-held">
+                <div
+                  className="rounded-lg border-l-8 border-doubt-600 bg-doubt-100 px-3 py-2 text-doubt-800"
+                  data-testid="parts-held"
+                >
                   <p className="font-bold">Held by the officials</p>
                   <ul className="list-disc pl-5">
-                    {e.partsHeld.map((p, i) => <li key={i}>{p.description}{p.sealNumber ? ` (seal/bag ${p.sealNumber})` : ''}, since {formatInZone(p.takenAt, e.timeZone)}</li>)}
+                    {e.partsHeld.map((p, i) => (
+                      <li key={i}>
+                        {p.description}
+                        {p.sealNumber ? ` (seal/bag ${p.sealNumber})` : ''}, since {formatInZone(p.takenAt, e.timeZone)}
+                      </li>
+                    ))}
                   </ul>
                   <p className="text-sm">Ask the chief scrutineer when it will be released.</p>
                 </div>

@@ -25,8 +25,14 @@ export function PaymentWaiter() {
   }, [router]);
   return (
     <div className="flex flex-wrap items-center gap-3">
-      <button type="button" className="btn-secondary" onClick={() => router.refresh()}>Refresh</button>
-      <span className="text-sm text-ink-mute">{isPolling ? 'Checking again every few seconds…' : 'Still nothing: refresh in a minute, or check your e-mail for the receipt.'}</span>
+      <button type="button" className="btn-secondary" onClick={() => router.refresh()}>
+        Refresh
+      </button>
+      <span className="text-sm text-ink-mute">
+        {isPolling
+          ? 'Checking again every few seconds…'
+          : 'Still nothing: refresh in a minute, or check your e-mail for the receipt.'}
+      </span>
     </div>
   );
 }

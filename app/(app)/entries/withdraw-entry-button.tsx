@@ -11,21 +11,32 @@ export function WithdrawEntryButton({ entryId }: { entryId: string }) {
   const router = useRouter();
   const [isAsking, setAsking] = useState(false);
   const { state, isPending, form } = useFormAction(async (): Promise<FormState> => {
-    const answer = await requestJson(`/api/entries/${entryId}/withdraw`, { fallbackMessage: 'The entry could not be withdrawn. Try again.' });
+    const answer = await requestJson(`/api/entries/${entryId}/withdraw`, {
+      fallbackMessage: 'The entry could not be withdrawn. Try again.',
+    });
     if (!answer.ok) return { ok: false, message: answer.message };
     setAsking(false);
     router.refresh();
     return { ok: true };
   }, null);
 
-  if (!isAsking) return <button type="button" className="btn-secondary" onClick={() => setAsking(true)}>Withdraw</button>;
+  if (!isAsking)
+    return (
+      <button type="button" className="btn-secondary" onClick={() => setAsking(true)}>
+        Withdraw
+      </button>
+    );
   return (
     <div role="alertdialog" aria-label="Withdraw this entry?" className="w-full space-y-2 rounded-lg bg-paper-deep p-3">
       <p>Withdraw this entry? You can enter again while entries are open, with a new race number.</p>
       <FormMessage state={state} testId="withdraw-message" />
       <form {...form} className="flex flex-wrap gap-2">
-        <button type="submit" className="btn-danger" disabled={isPending}>{isPending ? 'Withdrawing…' : 'Yes, withdraw'}</button>
-        <button type="button" className="btn-secondary" onClick={() => setAsking(false)} disabled={isPending}>Keep the entry</button>
+        <button type="submit" className="btn-danger" disabled={isPending}>
+          {isPending ? 'Withdrawing…' : 'Yes, withdraw'}
+        </button>
+        <button type="button" className="btn-secondary" onClick={() => setAsking(false)} disabled={isPending}>
+          Keep the entry
+        </button>
       </form>
     </div>
   );

@@ -35,7 +35,9 @@ export default async function HomePage() {
               </p>
               <p className="mt-2 flex flex-wrap gap-2">
                 {m.myRoles.map((r) => (
-                  <span key={r} className="rounded-full bg-tide-100 px-3 py-1 text-sm font-bold text-tide-700">{ROLE_LABEL[r]}</span>
+                  <span key={r} className="rounded-full bg-tide-100 px-3 py-1 text-sm font-bold text-tide-700">
+                    {ROLE_LABEL[r]}
+                  </span>
                 ))}
               </p>
             </li>
@@ -48,24 +50,39 @@ export default async function HomePage() {
     <section className="space-y-3" aria-labelledby="racing" key="racing" data-testid="home-racing">
       <h2 id="racing">Racing your boat</h2>
       {boats.length === 0 && isStaff ? (
-        <p>Racing a boat as well? <Link href="/boats/new">Register it</Link> to get its tag and enter meetings.</p>
+        <p>
+          Racing a boat as well? <Link href="/boats/new">Register it</Link> to get its tag and enter meetings.
+        </p>
       ) : boats.length === 0 ? (
         <div className="card space-y-3" data-testid="first-step">
           <p className="text-lg font-bold">Your first step: register your boat.</p>
           <p>
             Give its name, nozzle, engine power and weight as you declare them. You then get the boat&apos;s QR tag for
-            the scrutineers, can check your figures against a class&apos;s rules, and enter a meeting that is taking entries.
+            the scrutineers, can check your figures against a class&apos;s rules, and enter a meeting that is taking
+            entries.
           </p>
-          <Link href="/boats/new" className="btn-primary">Register a boat</Link>
+          <Link href="/boats/new" className="btn-primary">
+            Register a boat
+          </Link>
         </div>
       ) : (
         <div className="card flex flex-wrap items-center justify-between gap-3">
           <p>
-            {boats.length === 1 ? <>Your boat: <strong>{boats[0].name}</strong>.</> : <>You have {boats.length} boats registered.</>}
+            {boats.length === 1 ? (
+              <>
+                Your boat: <strong>{boats[0].name}</strong>.
+              </>
+            ) : (
+              <>You have {boats.length} boats registered.</>
+            )}
           </p>
           <p className="flex flex-wrap gap-2">
-            <Link href="/boats" className="btn-secondary">My boats</Link>
-            <Link href="/entries" className="btn-secondary">My entries</Link>
+            <Link href="/boats" className="btn-secondary">
+              My boats
+            </Link>
+            <Link href="/entries" className="btn-secondary">
+              My entries
+            </Link>
           </p>
         </div>
       )}

@@ -16,7 +16,15 @@ const STATUS_STYLE: Record<ProtestStatus, string> = {
 };
 
 export function ProtestStatusBadge({ status }: { status: ProtestStatus }) {
-  return <span className={`inline-block rounded-full px-3 py-1 font-bold ${STATUS_STYLE[status]}`} data-testid="protest-status" data-status={status}>{PROTEST_STATUS_LABELS[status]}</span>;
+  return (
+    <span
+      className={`inline-block rounded-full px-3 py-1 font-bold ${STATUS_STYLE[status]}`}
+      data-testid="protest-status"
+      data-status={status}
+    >
+      {PROTEST_STATUS_LABELS[status]}
+    </span>
+  );
 }
 
 const INTEGRITY: Record<Integrity, { icon: string; words: string; className: string }> = {
@@ -28,8 +36,13 @@ const INTEGRITY: Record<Integrity, { icon: string; words: string; className: str
 export function IntegrityBadge({ integrity }: { integrity: Integrity }) {
   const s = INTEGRITY[integrity];
   return (
-    <span className={`inline-flex items-center gap-1 rounded-full border-2 px-2 py-0.5 text-sm font-bold ${s.className}`} data-testid="integrity" data-integrity={integrity}>
-      <span aria-hidden="true">{s.icon}</span>{s.words}
+    <span
+      className={`inline-flex items-center gap-1 rounded-full border-2 px-2 py-0.5 text-sm font-bold ${s.className}`}
+      data-testid="integrity"
+      data-integrity={integrity}
+    >
+      <span aria-hidden="true">{s.icon}</span>
+      {s.words}
     </span>
   );
 }
@@ -39,7 +52,10 @@ export function DecisionCaution() {
   return (
     <div className="space-y-2" data-testid="decision-caution">
       <SafetyNote />
-      <p className="text-sm text-ink-soft">Every stewards&apos; decision can be appealed as the governing body&apos;s rules provide; the notice-of-appeal deadline is shown with the decision.</p>
+      <p className="text-sm text-ink-soft">
+        Every stewards&apos; decision can be appealed as the governing body&apos;s rules provide; the notice-of-appeal
+        deadline is shown with the decision.
+      </p>
     </div>
   );
 }

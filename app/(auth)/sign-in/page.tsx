@@ -14,13 +14,20 @@ const MESSAGES: Record<string, string> = {
   SessionRequired: 'Sign in to see that page.',
 };
 
-export default async function SignInPage({ searchParams }: { searchParams: Promise<{ error?: string; callbackUrl?: string }> }) {
+export default async function SignInPage({
+  searchParams,
+}: {
+  searchParams: Promise<{ error?: string; callbackUrl?: string }>;
+}) {
   const { error, callbackUrl } = await searchParams;
   const safeCallback = safeRedirectPath(callbackUrl, appOrigin());
   return (
     <div className="space-y-5">
       <h1 className="text-2xl">Sign in</h1>
-      <SignInForm callbackUrl={safeCallback} initialError={error ? MESSAGES[error] ?? 'Sign-in failed. Try again.' : undefined} />
+      <SignInForm
+        callbackUrl={safeCallback}
+        initialError={error ? (MESSAGES[error] ?? 'Sign-in failed. Try again.') : undefined}
+      />
       <p className="text-base">
         New entrant? <Link href="/sign-up">Create an account</Link>
       </p>

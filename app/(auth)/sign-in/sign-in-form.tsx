@@ -18,18 +18,23 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
   const router = useRouter();
   const [mode, setMode] = useState<'password' | 'link'>('password');
 
-  const { state, isPending, form } = useFormAction(async (_prev: FormState, data: FormData): Promise<FormState> => {
-    const email = String(data.get('email') ?? '');
-    // A refused link request (too many from this address) makes next-auth's client throw.
-    const res = await (mode === 'password'
-      ? signIn('password', { email, password: String(data.get('password') ?? ''), redirect: false, callbackUrl })
-      : signIn('email', { email, redirect: false, callbackUrl })
-    ).catch(() => ({ error: mode === 'link' ? 'TooManyLinks' : 'Unavailable' }));
-    if (!res || res.error) return { ok: false, message: MESSAGES[res?.error ?? ''] ?? 'Sign-in failed. Check the address and try again.' };
-    router.push(mode === 'password' ? callbackUrl : '/sign-in/check-email');
-    router.refresh();
-    return { ok: true };
-  }, { ok: false, message: initialError });
+  const { state, isPending, form } = useFormAction(
+    async (_prev: FormState, data: FormData): Promise<FormState> => {
+      const email = String(data.get('email') ?? '');
+      // A refused link request (too many from this address) makes next-auth's client throw.
+      const res = await (
+        mode === 'password'
+          ? signIn('password', { email, password: String(data.get('password') ?? ''), redirect: false, callbackUrl })
+          : signIn('email', { email, redirect: false, callbackUrl })
+      ).catch(() => ({ error: mode === 'link' ? 'TooManyLinks' : 'Unavailable' }));
+      if (!res || res.error)
+        return { ok: false, message: MESSAGES[res?.error ?? ''] ?? 'Sign-in failed. Check the address and try again.' };
+      router.push(mode === 'password' ? callbackUrl : '/sign-in/check-email');
+      router.refresh();
+      return { ok: true };
+    },
+    { ok: false, message: initialError },
+  );
 
   const error = state.ok ? undefined : state.message;
   return (
@@ -49,17 +54,32 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
           ))}
         </div>
         <div>
-          <label htmlFor="email" className="field-label">E-mail</label>
+          <label htmlFor="email" className="field-label">
+            E-mail
+          </label>
           <input id="email" name="email" type="email" autoComplete="email" required className="field-input" />
         </div>
         {mode === 'password' && (
           <div>
-            <label htmlFor="password" className="field-label">Password</label>
-            <input id="password" name="password" type="password" autoComplete="current-password" required className="field-input" />
+            <label htmlFor="password" className="field-label">
+              Password
+            </label>
+            <input
+              id="password"
+              name="password"
+              type="password"
+              autoComplete="current-password"
+              required
+              className="field-input"
+            />
           </div>
         )}
         <div aria-live="polite">
-          {error && <p id="sign-in-error" className="field-error" data-testid="sign-in-error">{error}</p>}
+          {error && (
+            <p id="sign-in-error" className="field-error" data-testid="sign-in-error">
+              {error}
+            </p>
+          )}
         </div>
         <button type="submit" className="btn-primary w-full">
           {isPending ? 'Signing in…' : mode === 'password' ? 'Sign in' : 'Send the link'}

@@ -8,7 +8,9 @@ export default function SignUpPage() {
   return (
     <div className="space-y-5">
       <h1 className="text-2xl">Create an entrant account</h1>
-      <p className="text-ink-soft">Register your boats, enter classes and follow your inspections. Officials are invited by their organiser.</p>
+      <p className="text-ink-soft">
+        Register your boats, enter classes and follow your inspections. Officials are invited by their organiser.
+      </p>
       <SignUpForm />
       <p>
         Already have an account? <Link href="/sign-in">Sign in</Link>

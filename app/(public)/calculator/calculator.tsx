@@ -23,7 +23,8 @@ export function Calculator() {
   const [units, setUnits] = useState<DisplayUnits>({ power: 'kW', speed: 'km/h', force: 'N' });
   const { results, isUpdating, problem } = useJetResults(setups);
 
-  const update = (id: string, patch: Partial<SetupDraft>) => setSetups((all) => all.map((s) => (s.id === id ? { ...s, ...patch } : s)));
+  const update = (id: string, patch: Partial<SetupDraft>) =>
+    setSetups((all) => all.map((s) => (s.id === id ? { ...s, ...patch } : s)));
   // A new set-up starts as a copy of the last one: comparing usually means changing one thing.
   const add = () =>
     setSetups((all) => {
@@ -36,16 +37,35 @@ export function Calculator() {
   const series: ChartSeries[] = [];
   setups.forEach((s, i) => {
     const curve = results?.curves[s.id];
-    if (curve?.ok) series.push({ id: s.id, label: s.label || `Set-up ${i + 1}`, styleIndex: i, points: curve.data.points });
+    if (curve?.ok)
+      series.push({ id: s.id, label: s.label || `Set-up ${i + 1}`, styleIndex: i, points: curve.data.points });
   });
   const sentences = describeCrossovers(setups, results, units.speed);
 
   return (
     <div className="space-y-6">
       <section aria-label="Display units" className="card grid gap-4 sm:grid-cols-3">
-        <UnitSelect id="display-power" label="Show power in" value={units.power} options={DISPLAY_POWER_UNITS} onChange={(power: PowerUnit) => setUnits((u) => ({ ...u, power }))} />
-        <UnitSelect id="display-speed" label="Show speed in" value={units.speed} options={SPEED_UNIT_OPTIONS} onChange={(speed: SpeedUnit) => setUnits((u) => ({ ...u, speed }))} />
-        <UnitSelect id="display-force" label="Show thrust in" value={units.force} options={FORCE_UNIT_OPTIONS} onChange={(force: ForceUnit) => setUnits((u) => ({ ...u, force }))} />
+        <UnitSelect
+          id="display-power"
+          label="Show power in"
+          value={units.power}
+          options={DISPLAY_POWER_UNITS}
+          onChange={(power: PowerUnit) => setUnits((u) => ({ ...u, power }))}
+        />
+        <UnitSelect
+          id="display-speed"
+          label="Show speed in"
+          value={units.speed}
+          options={SPEED_UNIT_OPTIONS}
+          onChange={(speed: SpeedUnit) => setUnits((u) => ({ ...u, speed }))}
+        />
+        <UnitSelect
+          id="display-force"
+          label="Show thrust in"
+          value={units.force}
+          options={FORCE_UNIT_OPTIONS}
+          onChange={(force: ForceUnit) => setUnits((u) => ({ ...u, force }))}
+        />
       </section>
 
       <div className="grid gap-4 lg:grid-cols-2">
@@ -80,11 +100,22 @@ export function Calculator() {
             {isUpdating ? 'Updating…' : ''}
           </p>
         </div>
-        {problem && <p className="field-error" data-testid="calc-problem">{problem}</p>}
+        {problem && (
+          <p className="field-error" data-testid="calc-problem">
+            {problem}
+          </p>
+        )}
         {series.length > 0 ? (
           <figure className={isUpdating ? 'opacity-70 transition-opacity' : 'transition-opacity'}>
-            <ThrustChart series={series} crossings={sentences.flatMap((c) => (c.marker ? [c.marker] : []))} speedUnit={units.speed} forceUnit={units.force} />
-            <figcaption className="sr-only">Thrust of each set-up from rest to 35 m/s; crossovers are listed below.</figcaption>
+            <ThrustChart
+              series={series}
+              crossings={sentences.flatMap((c) => (c.marker ? [c.marker] : []))}
+              speedUnit={units.speed}
+              forceUnit={units.force}
+            />
+            <figcaption className="sr-only">
+              Thrust of each set-up from rest to 35 m/s; crossovers are listed below.
+            </figcaption>
           </figure>
         ) : (
           <p className="text-ink-soft">{results ? 'Correct the marked fields to see the curves.' : 'Calculating…'}</p>
@@ -93,7 +124,9 @@ export function Calculator() {
           <div>
             <h3>Where the curves cross</h3>
             <ul className="mt-2 space-y-1" data-testid="crossovers">
-              {sentences.map((c) => <li key={c.key}>{c.text}</li>)}
+              {sentences.map((c) => (
+                <li key={c.key}>{c.text}</li>
+              ))}
             </ul>
           </div>
         )}
@@ -103,14 +136,30 @@ export function Calculator() {
   );
 }
 
-function UnitSelect<U extends string>({ id, label, value, options, onChange }: {
-  id: string; label: string; value: U; options: readonly { value: U; label: string }[]; onChange: (u: U) => void;
+function UnitSelect<U extends string>({
+  id,
+  label,
+  value,
+  options,
+  onChange,
+}: {
+  id: string;
+  label: string;
+  value: U;
+  options: readonly { value: U; label: string }[];
+  onChange: (u: U) => void;
 }) {
   return (
     <div>
-      <label htmlFor={id} className="field-label">{label}</label>
+      <label htmlFor={id} className="field-label">
+        {label}
+      </label>
       <select id={id} value={value} onChange={(e) => onChange(e.target.value as U)} className="field-input">
-        {options.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+        {options.map((o) => (
+          <option key={o.value} value={o.value}>
+            {o.label}
+          </option>
+        ))}
       </select>
     </div>
   );
@@ -123,7 +172,11 @@ interface CrossoverSentence {
 }
 
 /** "B passes A at 33.5 m/s (120.6 km/h)": above the crossing, the set-up weaker at rest has more thrust. */
-function describeCrossovers(setups: readonly SetupDraft[], results: JetResults | undefined, speedUnit: SpeedUnit): CrossoverSentence[] {
+function describeCrossovers(
+  setups: readonly SetupDraft[],
+  results: JetResults | undefined,
+  speedUnit: SpeedUnit,
+): CrossoverSentence[] {
   if (!results) return [];
   const byId = new Map(setups.map((s, i) => [s.id, s.label.trim() || `Set-up ${i + 1}`]));
   const out: CrossoverSentence[] = [];
@@ -139,16 +192,19 @@ function describeCrossovers(setups: readonly SetupDraft[], results: JetResults |
     const key = `${c.aId}-${c.bId}`;
     if (c.speedMs === null) {
       const range = c.isFromApi ? 'below 100 m/s' : 'between 0 and 35 m/s';
-      const text = t0A === t0B
-        ? `${nameA} and ${nameB} give the same thrust and do not cross ${range}.`
-        : `${stronger} has more thrust than ${weaker} at every speed ${range}: the curves do not cross.`;
+      const text =
+        t0A === t0B
+          ? `${nameA} and ${nameB} give the same thrust and do not cross ${range}.`
+          : `${stronger} has more thrust than ${weaker} at every speed ${range}: the curves do not cross.`;
       out.push({ key, text });
       continue;
     }
     const thrustN = interpolateThrustN(a.data.points, c.speedMs);
     const note = !c.isFromApi
       ? ' (read from the curves: these set-ups differ in more than the nozzle)'
-      : thrustN === undefined ? ' (beyond the chart)' : '';
+      : thrustN === undefined
+        ? ' (beyond the chart)'
+        : '';
     out.push({
       key,
       text: `${weaker} passes ${stronger} at ${formatSpeedPair(c.speedMs, speedUnit)}${note}.`,

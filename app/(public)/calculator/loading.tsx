@@ -6,7 +6,9 @@ export default function CalculatorLoading() {
       <div className="h-9 w-64 animate-pulse rounded bg-paper-line" />
       <div className="card h-24 animate-pulse bg-paper-deep" />
       <div className="card h-96 animate-pulse bg-paper-deep" />
-      <p className="sr-only" role="status">Loading the calculator…</p>
+      <p className="sr-only" role="status">
+        Loading the calculator…
+      </p>
     </div>
   );
 }

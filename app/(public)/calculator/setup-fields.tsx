@@ -29,7 +29,9 @@ function NumberField({ id, label, value, onChange, unit, hint, error }: FieldPro
   const describedBy = [hint && `${id}-hint`, error && `${id}-error`].filter(Boolean).join(' ') || undefined;
   return (
     <div>
-      <label htmlFor={id} className="field-label">{label}</label>
+      <label htmlFor={id} className="field-label">
+        {label}
+      </label>
       <div className="flex items-stretch gap-2">
         <input
           id={id}
@@ -44,22 +46,52 @@ function NumberField({ id, label, value, onChange, unit, hint, error }: FieldPro
         />
         {unit}
       </div>
-      {hint && <p id={`${id}-hint`} className="field-hint">{hint}</p>}
-      {error && <p id={`${id}-error`} className="field-error" data-field-error={id}>{error}</p>}
+      {hint && (
+        <p id={`${id}-hint`} className="field-hint">
+          {hint}
+        </p>
+      )}
+      {error && (
+        <p id={`${id}-error`} className="field-error" data-field-error={id}>
+          {error}
+        </p>
+      )}
     </div>
   );
 }
 
 const FixedUnit = ({ children }: { children: ReactNode }) => (
-  <span className="inline-flex min-h-touch w-24 shrink-0 items-center justify-center rounded-lg bg-paper-deep px-2 text-base text-ink-soft">{children}</span>
+  <span className="inline-flex min-h-touch w-24 shrink-0 items-center justify-center rounded-lg bg-paper-deep px-2 text-base text-ink-soft">
+    {children}
+  </span>
 );
 
-function UnitPicker<U extends string>({ id, label, value, options, onChange }: {
-  id: string; label: string; value: U; options: readonly { value: U; label: string }[]; onChange: (u: U) => void;
+function UnitPicker<U extends string>({
+  id,
+  label,
+  value,
+  options,
+  onChange,
+}: {
+  id: string;
+  label: string;
+  value: U;
+  options: readonly { value: U; label: string }[];
+  onChange: (u: U) => void;
 }) {
   return (
-    <select id={id} aria-label={label} value={value} onChange={(e) => onChange(e.target.value as U)} className="field-input w-24 shrink-0">
-      {options.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+    <select
+      id={id}
+      aria-label={label}
+      value={value}
+      onChange={(e) => onChange(e.target.value as U)}
+      className="field-input w-24 shrink-0"
+    >
+      {options.map((o) => (
+        <option key={o.value} value={o.value}>
+          {o.label}
+        </option>
+      ))}
     </select>
   );
 }
@@ -78,7 +110,15 @@ interface Props {
 export function SetupFields({ index, setup, errors, data, units, canRemove, onChange, onRemove }: Props) {
   const id = (f: SetupField | 'label') => `${setup.id}-${f}`;
   const number = (field: SetupField & keyof SetupDraft, label: string, unit: ReactNode, hint?: string) => (
-    <NumberField id={id(field)} label={label} value={setup[field]} onChange={(v) => onChange({ [field]: v })} unit={unit} hint={hint} error={errors[field]} />
+    <NumberField
+      id={id(field)}
+      label={label}
+      value={setup[field]}
+      onChange={(v) => onChange({ [field]: v })}
+      unit={unit}
+      hint={hint}
+      error={errors[field]}
+    />
   );
   const style = SERIES_STYLES[index % SERIES_STYLES.length];
   const hasDensity = setup.densityKgM3.trim() !== '';
@@ -94,35 +134,100 @@ export function SetupFields({ index, setup, errors, data, units, canRemove, onCh
           </svg>
           Set-up {index + 1}
         </h3>
-        {canRemove && <button type="button" className="btn-secondary" onClick={onRemove} aria-label={`Remove set-up ${index + 1}`}>Remove</button>}
+        {canRemove && (
+          <button type="button" className="btn-secondary" onClick={onRemove} aria-label={`Remove set-up ${index + 1}`}>
+            Remove
+          </button>
+        )}
       </div>
       <dl className="grid grid-cols-2 gap-3 rounded-lg bg-tide-50 p-3" aria-live="polite">
-        <Figure label="Static thrust" testId="static-thrust" value={staticPoint && formatForce(staticPoint.thrustN, units.force)} />
-        <Figure label="Static jet velocity" testId="static-jet-velocity" value={staticPoint && formatSpeed(staticPoint.jetVelocityMs, units.speed)} />
-        <Figure label="Shaft power" testId="shaft-power" value={typeof powerKw === 'number' && Number.isFinite(powerKw) ? formatPower(powerKw, units.power) : undefined} />
+        <Figure
+          label="Static thrust"
+          testId="static-thrust"
+          value={staticPoint && formatForce(staticPoint.thrustN, units.force)}
+        />
+        <Figure
+          label="Static jet velocity"
+          testId="static-jet-velocity"
+          value={staticPoint && formatSpeed(staticPoint.jetVelocityMs, units.speed)}
+        />
+        <Figure
+          label="Shaft power"
+          testId="shaft-power"
+          value={
+            typeof powerKw === 'number' && Number.isFinite(powerKw) ? formatPower(powerKw, units.power) : undefined
+          }
+        />
         <Figure label="Water density" testId="density" value={data && `${data.densityKgM3.toFixed(1)} kg/m³`} />
       </dl>
       <div>
-        <label htmlFor={id('label')} className="field-label">Label</label>
-        <input id={id('label')} value={setup.label} maxLength={40} onChange={(e) => onChange({ label: e.target.value })} className="field-input" />
+        <label htmlFor={id('label')} className="field-label">
+          Label
+        </label>
+        <input
+          id={id('label')}
+          value={setup.label}
+          maxLength={40}
+          onChange={(e) => onChange({ label: e.target.value })}
+          className="field-input"
+        />
       </div>
       <div className="grid gap-4 sm:grid-cols-2">
-        {number('power', 'Shaft power',
-          <UnitPicker id={id('power') + '-unit'} label="Power unit" value={setup.powerUnit} options={INPUT_POWER_UNITS} onChange={(u: InputPowerUnit) => onChange({ powerUnit: u })} />)}
-        {number('nozzle', 'Nozzle exit diameter',
-          <UnitPicker id={id('nozzle') + '-unit'} label="Nozzle diameter unit" value={setup.nozzleUnit}
-            options={INPUT_LENGTH_UNITS.map((u) => ({ value: u, label: UNIT_LABELS[u] }))} onChange={(u: InputLengthUnit) => onChange({ nozzleUnit: u })} />)}
-        {number('pumpEfficiency', 'Pump efficiency', <FixedUnit>0–1</FixedUnit>, 'Blank: 1 (a perfect pump). Typical 0.85–0.92.')}
-        {number('inletLoss', 'Inlet loss coefficient Kᵢ', <FixedUnit>–</FixedUnit>, 'Blank: 0. A flush inlet is about 0.1–0.3.')}
+        {number(
+          'power',
+          'Shaft power',
+          <UnitPicker
+            id={id('power') + '-unit'}
+            label="Power unit"
+            value={setup.powerUnit}
+            options={INPUT_POWER_UNITS}
+            onChange={(u: InputPowerUnit) => onChange({ powerUnit: u })}
+          />,
+        )}
+        {number(
+          'nozzle',
+          'Nozzle exit diameter',
+          <UnitPicker
+            id={id('nozzle') + '-unit'}
+            label="Nozzle diameter unit"
+            value={setup.nozzleUnit}
+            options={INPUT_LENGTH_UNITS.map((u) => ({ value: u, label: UNIT_LABELS[u] }))}
+            onChange={(u: InputLengthUnit) => onChange({ nozzleUnit: u })}
+          />,
+        )}
+        {number(
+          'pumpEfficiency',
+          'Pump efficiency',
+          <FixedUnit>0–1</FixedUnit>,
+          'Blank: 1 (a perfect pump). Typical 0.85–0.92.',
+        )}
+        {number(
+          'inletLoss',
+          'Inlet loss coefficient Kᵢ',
+          <FixedUnit>–</FixedUnit>,
+          'Blank: 0. A flush inlet is about 0.1–0.3.',
+        )}
         {number('nozzleLoss', 'Nozzle loss coefficient Kₙ', <FixedUnit>–</FixedUnit>, 'Blank: 0. Typically 0.01–0.05.')}
         <div>
-          <label htmlFor={id('waterKind')} className="field-label">Water</label>
-          <select id={id('waterKind')} value={setup.waterKind} disabled={hasDensity} onChange={(e) => onChange({ waterKind: e.target.value as SetupDraft['waterKind'] })}
-            aria-invalid={errors.waterKind ? true : undefined} className="field-input">
+          <label htmlFor={id('waterKind')} className="field-label">
+            Water
+          </label>
+          <select
+            id={id('waterKind')}
+            value={setup.waterKind}
+            disabled={hasDensity}
+            onChange={(e) => onChange({ waterKind: e.target.value as SetupDraft['waterKind'] })}
+            aria-invalid={errors.waterKind ? true : undefined}
+            className="field-input"
+          >
             <option value="fresh">Fresh water</option>
             <option value="sea">Sea water</option>
           </select>
-          {errors.waterKind && <p className="field-error" data-field-error={id('waterKind')}>{errors.waterKind}</p>}
+          {errors.waterKind && (
+            <p className="field-error" data-field-error={id('waterKind')}>
+              {errors.waterKind}
+            </p>
+          )}
         </div>
         {!hasDensity && number('temperatureC', 'Water temperature', <FixedUnit>°C</FixedUnit>, WATER_TEMPERATURE_HINT)}
         {number('densityKgM3', 'Density override', <FixedUnit>kg/m³</FixedUnit>, 'Blank: from water and temperature.')}
@@ -135,7 +240,9 @@ function Figure({ label, value, testId }: { label: string; value?: string; testI
   return (
     <div>
       <dt className="text-sm text-ink-soft">{label}</dt>
-      <dd className="figure text-lg font-semibold" data-testid={testId}>{value ?? '—'}</dd>
+      <dd className="figure text-lg font-semibold" data-testid={testId}>
+        {value ?? '—'}
+      </dd>
     </div>
   );
 }

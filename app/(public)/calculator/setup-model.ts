@@ -29,7 +29,8 @@ export interface SetupDraft {
   densityKgM3: string;
 }
 
-export type SetupField = 'power' | 'nozzle' | 'pumpEfficiency' | 'nozzleLoss' | 'inletLoss' | 'waterKind' | 'temperatureC' | 'densityKgM3';
+export type SetupField =
+  'power' | 'nozzle' | 'pumpEfficiency' | 'nozzleLoss' | 'inletLoss' | 'waterKind' | 'temperatureC' | 'densityKgM3';
 export type FieldErrors = Partial<Record<SetupField, string>>;
 
 export interface DisplayUnits {
@@ -45,8 +46,18 @@ export interface DisplayUnits {
  */
 export function createExampleSetup(id: string, label: string): SetupDraft {
   return {
-    id, label, power: '250', powerUnit: 'kW', nozzle: '95', nozzleUnit: 'mm',
-    pumpEfficiency: '0.88', nozzleLoss: '0.03', inletLoss: '0.2', waterKind: 'fresh', temperatureC: '15', densityKgM3: '',
+    id,
+    label,
+    power: '250',
+    powerUnit: 'kW',
+    nozzle: '95',
+    nozzleUnit: 'mm',
+    pumpEfficiency: '0.88',
+    nozzleLoss: '0.03',
+    inletLoss: '0.2',
+    waterKind: 'fresh',
+    temperatureC: '15',
+    densityKgM3: '',
   };
 }
 
@@ -121,7 +132,13 @@ export const FIELD_LABELS: Record<SetupField, string> = {
 };
 
 const FIELD_EXAMPLES: Partial<Record<SetupField, string>> = {
-  power: '250', nozzle: '95', pumpEfficiency: '0.88', nozzleLoss: '0.03', inletLoss: '0.2', temperatureC: '15', densityKgM3: '1000',
+  power: '250',
+  nozzle: '95',
+  pumpEfficiency: '0.88',
+  nozzleLoss: '0.03',
+  inletLoss: '0.2',
+  temperatureC: '15',
+  densityKgM3: '1000',
 };
 
 /** The water temperatures the ITTC table covers (the same range the API enforces): the hint and the message use it. */
@@ -159,9 +176,12 @@ export function toFieldErrors(apiErrors: Record<string, string>): FieldErrors {
 // Display: fixed decimals suited to each unit, so the figures do not jump while typing.
 const FORCE_DIGITS: Record<ForceUnit, number> = { N: 0, kgf: 1, lbf: 0 };
 
-export const formatForce = (n: number, unit: ForceUnit) => formatQuantity(convertForce(n, 'N', unit), unit, { fractionDigits: FORCE_DIGITS[unit] });
-export const formatSpeed = (ms: number, unit: SpeedUnit) => formatQuantity(convertSpeed(ms, 'm/s', unit), unit, { fractionDigits: 1 });
-export const formatPower = (kw: number, unit: PowerUnit) => formatQuantity(convertPower(kw, 'kW', unit), unit, { fractionDigits: unit === 'W' ? 0 : 1 });
+export const formatForce = (n: number, unit: ForceUnit) =>
+  formatQuantity(convertForce(n, 'N', unit), unit, { fractionDigits: FORCE_DIGITS[unit] });
+export const formatSpeed = (ms: number, unit: SpeedUnit) =>
+  formatQuantity(convertSpeed(ms, 'm/s', unit), unit, { fractionDigits: 1 });
+export const formatPower = (kw: number, unit: PowerUnit) =>
+  formatQuantity(convertPower(kw, 'kW', unit), unit, { fractionDigits: unit === 'W' ? 0 : 1 });
 
 /** "33.5 m/s (120.6 km/h)": the chosen unit first, then m/s (or km/h when m/s is chosen). */
 export function formatSpeedPair(ms: number, unit: SpeedUnit): string {

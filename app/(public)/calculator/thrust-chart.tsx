@@ -4,7 +4,18 @@
 // marked. Lines differ by dash pattern as well as colour, so they stay apart in sunlight and for
 // colour-vision deficiencies; the same crossovers are listed in words beside the chart.
 
-import { CartesianGrid, Legend, Line, LineChart, ReferenceDot, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
+import {
+  CartesianGrid,
+  Legend,
+  Line,
+  LineChart,
+  ReferenceDot,
+  ReferenceLine,
+  ResponsiveContainer,
+  Tooltip,
+  XAxis,
+  YAxis,
+} from 'recharts';
 import { convertForce, convertSpeed, UNIT_LABELS } from '@/lib/core/engine/units';
 import type { ForceUnit, SpeedUnit } from '@/lib/core/engine/units';
 import { CURVE_SPEEDS_MS } from './setup-model';

@@ -7,7 +7,12 @@
 import { useEffect, useMemo, useState } from 'react';
 import type { CrossoverData, JetPerformanceData } from '@/lib/core/engine/calculation-api';
 import {
-  CURVE_SPEEDS_MS, findCurveCrossingMs, hasSameModel, toFieldErrors, toModelBody, toNozzleDiameterMm,
+  CURVE_SPEEDS_MS,
+  findCurveCrossingMs,
+  hasSameModel,
+  toFieldErrors,
+  toModelBody,
+  toNozzleDiameterMm,
 } from './setup-model';
 import type { FieldErrors, ModelBody, SetupDraft } from './setup-model';
 import { requestJson } from '@/components/forms/request-json';
@@ -15,8 +20,7 @@ import { requestJson } from '@/components/forms/request-json';
 const DEBOUNCE_MS = 300;
 
 export type CurveResult =
-  | { ok: true; data: JetPerformanceData }
-  | { ok: false; fieldErrors: FieldErrors; message: string };
+  { ok: true; data: JetPerformanceData } | { ok: false; fieldErrors: FieldErrors; message: string };
 
 export interface PairCrossover {
   aId: string;
@@ -53,7 +57,9 @@ async function postJson<T>(url: string, body: unknown, signal: AbortSignal): Pro
   if (answer.status === 0) throw new Error(answer.message);
   if (answer.status === 400) return { ok: false, fieldErrors: answer.fieldErrors, message: answer.message };
   if (answer.status === 429) {
-    throw new ServiceProblem(`Too many calculations from this connection; the figures update again in ${answer.headers?.get('Retry-After') ?? 'a few'} s.`);
+    throw new ServiceProblem(
+      `Too many calculations from this connection; the figures update again in ${answer.headers?.get('Retry-After') ?? 'a few'} s.`,
+    );
   }
   throw new ServiceProblem(answer.message);
 }
@@ -80,7 +86,11 @@ function createCachedPost(cache: Map<string, ApiAnswer<unknown>>): Post {
 async function fetchResults(requests: SetupRequest[], post: Post, signal: AbortSignal): Promise<JetResults> {
   const answers = await Promise.all(
     requests.map((r) =>
-      post<JetPerformanceData>('/api/v1/jet-performance', { ...r.model, nozzleDiameterMm: r.nozzleDiameterMm, speedsMs: CURVE_SPEEDS_MS }, signal),
+      post<JetPerformanceData>(
+        '/api/v1/jet-performance',
+        { ...r.model, nozzleDiameterMm: r.nozzleDiameterMm, speedsMs: CURVE_SPEEDS_MS },
+        signal,
+      ),
     ),
   );
   const curves: Record<string, CurveResult> = {};
@@ -117,7 +127,10 @@ async function fetchResults(requests: SetupRequest[], post: Post, signal: AbortS
 export function useJetResults(setups: readonly SetupDraft[]) {
   // Labels are not part of a request: renaming a set-up does not refetch.
   const requestKey = useMemo(
-    () => JSON.stringify(setups.map((s): SetupRequest => ({ id: s.id, model: toModelBody(s), nozzleDiameterMm: toNozzleDiameterMm(s) }))),
+    () =>
+      JSON.stringify(
+        setups.map((s): SetupRequest => ({ id: s.id, model: toModelBody(s), nozzleDiameterMm: toNozzleDiameterMm(s) })),
+      ),
     [setups],
   );
   const [results, setResults] = useState<JetResults>();
@@ -137,7 +150,11 @@ export function useJetResults(setups: readonly SetupDraft[]) {
         })
         .catch((err: unknown) => {
           if (controller.signal.aborted) return;
-          setProblem(err instanceof ServiceProblem ? err.message : 'No connection to the calculation service: the figures shown are from the last answer.');
+          setProblem(
+            err instanceof ServiceProblem
+              ? err.message
+              : 'No connection to the calculation service: the figures shown are from the last answer.',
+          );
         })
         .finally(() => {
           if (!controller.signal.aborted) setSettledKey(requestKey);

@@ -29,17 +29,27 @@ export default async function OutboxPage() {
   return (
     <main className="mx-auto max-w-3xl space-y-4 px-4 py-8">
       <h1>Outbox</h1>
-      <p className="rounded-lg bg-doubt-100 p-3">Demo only, for the site administrator: every e-mail the app sent to the local mail fake, newest first.</p>
+      <p className="rounded-lg bg-doubt-100 p-3">
+        Demo only, for the site administrator: every e-mail the app sent to the local mail fake, newest first.
+      </p>
       {error && <p className="field-error">{error}</p>}
       {messages.length === 0 && !error && <p>No messages yet.</p>}
       <ul className="space-y-3">
         {messages.map((m) => (
           <li key={m.id} className="card space-y-2">
-            <p className="text-sm text-ink-mute">{format(new Date(m.receivedAt), 'd MMM yyyy HH:mm:ss')} · to {m.to.join(', ')}</p>
+            <p className="text-sm text-ink-mute">
+              {format(new Date(m.receivedAt), 'd MMM yyyy HH:mm:ss')} · to {m.to.join(', ')}
+            </p>
             <h2 className="text-lg">{m.subject}</h2>
             <pre className="whitespace-pre-wrap break-words font-sans text-base">
               {m.text.split(/(https?:\/\/\S+)/g).map((part, i) =>
-                /^https?:\/\//.test(part) ? <a key={i} href={part}>{part}</a> : part,
+                /^https?:\/\//.test(part) ? (
+                  <a key={i} href={part}>
+                    {part}
+                  </a>
+                ) : (
+                  part
+                ),
               )}
             </pre>
           </li>

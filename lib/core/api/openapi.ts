@@ -27,11 +27,16 @@ export const jetPerformanceDataSchema = z.object({
 });
 
 export const crossoverDataSchema = z.object({
-  crossoverSpeedMs: z.number().nullable().describe('Lowest boat speed where the thrust curves cross, m/s; null if none below 100 m/s'),
+  crossoverSpeedMs: z
+    .number()
+    .nullable()
+    .describe('Lowest boat speed where the thrust curves cross, m/s; null if none below 100 m/s'),
 });
 
 export const conformityDataSchema = z.object({
-  decisiveValueMm: z.number().describe('The reading that decides: the largest against a maximum, the smallest against a minimum'),
+  decisiveValueMm: z
+    .number()
+    .describe('The reading that decides: the largest against a maximum, the smallest against a minimum'),
   verdict: z.enum(['conforms', 'does_not_conform', 'inconclusive']),
   explanation: z.string(),
   acceptanceLimitsMm: z.object({ maxMm: z.number().nullable(), minMm: z.number().nullable() }),
@@ -39,11 +44,18 @@ export const conformityDataSchema = z.object({
 
 export const errorBodySchema = z.object({
   error: z.object({
-    code: z.string().describe('Stable machine-readable code, e.g. invalid_input, invalid_json, too_large, rate_limited'),
+    code: z
+      .string()
+      .describe('Stable machine-readable code, e.g. invalid_input, invalid_json, too_large, rate_limited'),
     message: z.string().describe('A safe message for people'),
     details: z
       .union([
-        z.array(z.object({ field: z.string().describe('Dotted path, e.g. water.temperatureC or readingsMm.0'), message: z.string() })),
+        z.array(
+          z.object({
+            field: z.string().describe('Dotted path, e.g. water.temperatureC or readingsMm.0'),
+            message: z.string(),
+          }),
+        ),
         z.object({ retryAfterS: z.int().min(1) }),
       ])
       .optional(),
@@ -84,12 +96,16 @@ const errorResponse = (description: string) => ({ description, content: json(ref
 
 const RATE_LIMITED = {
   description: 'Too many requests from this client in the current minute.',
-  headers: { 'Retry-After': { description: 'Seconds until the window resets', schema: { type: 'integer', minimum: 1 } } },
+  headers: {
+    'Retry-After': { description: 'Seconds until the window resets', schema: { type: 'integer', minimum: 1 } },
+  },
   content: json(ref('ErrorBody')),
 };
 
 const BODY_ERRORS = {
-  '400': errorResponse('Bad input: details name each field (a dotted path) with a message; or the body is not valid JSON.'),
+  '400': errorResponse(
+    'Bad input: details name each field (a dotted path) with a message; or the body is not valid JSON.',
+  ),
   '413': errorResponse(`The body is larger than ${PUBLIC_API_MAX_BODY_BYTES} bytes.`),
   '415': errorResponse('The body is not sent as application/json.'),
   '429': RATE_LIMITED,
@@ -152,12 +168,32 @@ export function buildOpenApiDocument(version = '1.0.0') {
     },
     components: {
       schemas: {
-        JetPerformanceInput: toComponent(jetPerformanceInputSchema, 'input', 'Power, nozzle exit diameter, boat speeds and the jet model assumptions.'),
-        CrossoverInput: toComponent(crossoverInputSchema, 'input', 'Power, two nozzle exit diameters and the shared jet model assumptions.'),
-        ConformityInput: toComponent(conformityInputSchema, 'input', 'Two-point readings, the limit(s), the expanded uncertainty U (k = 2) and the rule.'),
-        JetPerformanceData: toComponent(jetPerformanceDataSchema, 'output', 'One point per requested speed, in the order given.'),
+        JetPerformanceInput: toComponent(
+          jetPerformanceInputSchema,
+          'input',
+          'Power, nozzle exit diameter, boat speeds and the jet model assumptions.',
+        ),
+        CrossoverInput: toComponent(
+          crossoverInputSchema,
+          'input',
+          'Power, two nozzle exit diameters and the shared jet model assumptions.',
+        ),
+        ConformityInput: toComponent(
+          conformityInputSchema,
+          'input',
+          'Two-point readings, the limit(s), the expanded uncertainty U (k = 2) and the rule.',
+        ),
+        JetPerformanceData: toComponent(
+          jetPerformanceDataSchema,
+          'output',
+          'One point per requested speed, in the order given.',
+        ),
         CrossoverData: toComponent(crossoverDataSchema, 'output', 'The crossover speed, or null.'),
-        ConformityData: toComponent(conformityDataSchema, 'output', 'The verdict with its decisive value and a plain explanation.'),
+        ConformityData: toComponent(
+          conformityDataSchema,
+          'output',
+          'The verdict with its decisive value and a plain explanation.',
+        ),
         ErrorBody: toComponent(errorBodySchema, 'output', 'The one error shape of every Boreline route.'),
       },
     },

@@ -5,7 +5,14 @@
 // start with all of them ticked), not a limit on the boat, so they cannot make empty rules publishable.
 import type { ClassRules } from '@/lib/core/inputs/class-rules';
 
-type RulesLike = { nozzle?: Partial<ClassRules['nozzle']>; power?: Partial<ClassRules['power']>; weight?: Partial<ClassRules['weight']> } | null | undefined;
+type RulesLike =
+  | {
+      nozzle?: Partial<ClassRules['nozzle']>;
+      power?: Partial<ClassRules['power']>;
+      weight?: Partial<ClassRules['weight']>;
+    }
+  | null
+  | undefined;
 
 const isSet = (v: unknown) => typeof v === 'number' && Number.isFinite(v);
 

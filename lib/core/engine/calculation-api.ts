@@ -79,7 +79,8 @@ export interface ParityBody extends JetModelBody {
 }
 
 function resolveModel(body: JetModelBody): JetModelAssumptions {
-  if (body === null || typeof body !== 'object') throw new EngineInputError('body', 'A request body object is required');
+  if (body === null || typeof body !== 'object')
+    throw new EngineInputError('body', 'A request body object is required');
   const { densityKgM3 } = resolveDensity(
     body.densityKgM3 !== undefined ? { densityKgM3: body.densityKgM3 } : (body.water ?? DEFAULT_WATER),
   );
@@ -116,7 +117,8 @@ export function computeCrossover(input: CrossoverInput): CrossoverData {
     throw new EngineInputError('nozzleDiametersMm', 'Give exactly two nozzle diameters');
   }
   const [a, b] = diameters.map((d, i) => {
-    if (typeof d !== 'number') throw new EngineInputError(`nozzleDiametersMm[${i}]`, 'Nozzle diameter must be a number');
+    if (typeof d !== 'number')
+      throw new EngineInputError(`nozzleDiametersMm[${i}]`, 'Nozzle diameter must be a number');
     return { ...model, powerKw: input.powerKw, nozzleDiameterMm: d };
   });
   return { crossoverSpeedMs: computeCrossoverSpeedMs(a, b) };

@@ -98,7 +98,13 @@ function resolveExpandedUncertaintyMm(input: ConformityInput): number {
   return assertNonNegative('expandedUncertaintyMm', input.expandedUncertaintyMm);
 }
 
-function checkLimit(side: 'max' | 'min', limitMm: number, valueMm: number, uMm: number, rule: DecisionRule): LimitCheck {
+function checkLimit(
+  side: 'max' | 'min',
+  limitMm: number,
+  valueMm: number,
+  uMm: number,
+  rule: DecisionRule,
+): LimitCheck {
   // s = +1 for a maximum, -1 for a minimum: "excess" e = s (value - limit) is positive beyond it.
   const s = side === 'max' ? 1 : -1;
   const excess = s * (valueMm - limitMm);
@@ -157,7 +163,8 @@ function explainCheck(
 }
 
 export function evaluateConformity(input: ConformityInput): ConformityResult {
-  if (input === null || typeof input !== 'object') throw new EngineInputError('input', 'A conformity input is required');
+  if (input === null || typeof input !== 'object')
+    throw new EngineInputError('input', 'A conformity input is required');
   const rule = assertRule(input.rule);
   const readings = input.readingsMm;
   if (!Array.isArray(readings) || readings.length === 0) {
@@ -187,9 +194,10 @@ export function evaluateConformity(input: ConformityInput): ConformityResult {
   const maxCheck = checks.find((c) => c.side === 'max');
   const minCheck = checks.find((c) => c.side === 'min');
   const allConform = checks.length === 2 && checks.every((c) => c.verdict === 'conforms');
-  const explanation = allConform && maxCheck && minCheck
-    ? `Readings ${formatMm(smallest)}–${formatMm(largest)} mm lie within the acceptance limits ${formatMm(minCheck.acceptanceLimitMm)}–${formatMm(maxCheck.acceptanceLimitMm)} mm (${RULE_NAMES[rule]}, U ${formatMm(uMm)} mm): conforms.`
-    : governing.explanation;
+  const explanation =
+    allConform && maxCheck && minCheck
+      ? `Readings ${formatMm(smallest)}–${formatMm(largest)} mm lie within the acceptance limits ${formatMm(minCheck.acceptanceLimitMm)}–${formatMm(maxCheck.acceptanceLimitMm)} mm (${RULE_NAMES[rule]}, U ${formatMm(uMm)} mm): conforms.`
+      : governing.explanation;
   return {
     rule,
     verdict: governing.verdict,

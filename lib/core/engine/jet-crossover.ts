@@ -65,7 +65,14 @@ function signOfDifference(thrustA: number, thrustB: number): number {
 }
 
 /** Illinois regula falsi on d(V) = T_a(V) - T_b(V), given d(lo) and d(hi) of opposite sign. */
-function refineCrossover(a: PreparedJetSetup, b: PreparedJetSetup, loMs: number, hiMs: number, dLo: number, dHi: number): number {
+function refineCrossover(
+  a: PreparedJetSetup,
+  b: PreparedJetSetup,
+  loMs: number,
+  hiMs: number,
+  dLo: number,
+  dHi: number,
+): number {
   let lo = loMs;
   let hi = hiMs;
   let fLo = dLo;
@@ -78,7 +85,7 @@ function refineCrossover(a: PreparedJetSetup, b: PreparedJetSetup, loMs: number,
     const tB = thrustAt(b, x);
     const f = tA - tB;
     if (signOfDifference(tA, tB) === 0) return x;
-    if ((f > 0) === (fLo > 0)) {
+    if (f > 0 === fLo > 0) {
       lo = x;
       fLo = f;
       if (side === -1) fHi *= 0.5; // same end kept twice: halve it so the bracket closes from both sides
@@ -108,7 +115,9 @@ function scanForCrossover(a: PreparedJetSetup, b: PreparedJetSetup, grid: Crosso
     }
     const diff = tA - referenceThrustN[i];
     if (prevSign !== 0 && s !== prevSign) {
-      return zeroIndex >= 0 ? speedsMs[zeroIndex] : refineCrossover(a, b, speedsMs[prevIndex], speedsMs[i], prevDiff, diff);
+      return zeroIndex >= 0
+        ? speedsMs[zeroIndex]
+        : refineCrossover(a, b, speedsMs[prevIndex], speedsMs[i], prevDiff, diff);
     }
     prevSign = s;
     prevIndex = i;

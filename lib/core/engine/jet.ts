@@ -13,12 +13,7 @@
 // real pumps would not reach without cavitating) and set isThrustPositive = false on the point.
 // Nothing is clamped, so curves stay continuous and honest.
 
-import {
-  EngineInputError,
-  assertFiniteNumber,
-  assertInHalfOpenRange,
-  assertPositive,
-} from './engine-input-error';
+import { EngineInputError, assertFiniteNumber, assertInHalfOpenRange, assertPositive } from './engine-input-error';
 
 /** Highest boat speed accepted (m/s): far above any boat, keeps the cubic in floating range. */
 export const MAX_SPEED_MS = 1000;
@@ -104,10 +99,14 @@ class PreparedSetup implements PreparedJetSetup {
     this.nozzleAreaM2 = (Math.PI * d * d) / 4;
     this.rhoAreaKgM = densityKgM3 * this.nozzleAreaM2;
     this.inflowFactor = 1 - wakeFraction;
-    this.pSpeedFactor = ((1 - inletLossCoefficient) * this.inflowFactor * this.inflowFactor) / (1 + nozzleLossCoefficient);
+    this.pSpeedFactor =
+      ((1 - inletLossCoefficient) * this.inflowFactor * this.inflowFactor) / (1 + nozzleLossCoefficient);
     this.q = (2 * pumpEfficiency * powerKw * 1000) / ((1 + nozzleLossCoefficient) * this.rhoAreaKgM);
     // Keeps q^2 and T0 far from overflow so no result can become Infinity or NaN.
-    if (!(this.q >= MIN_CUBIC_Q && this.q <= MAX_CUBIC_Q) || !Number.isFinite(this.rhoAreaKgM * Math.cbrt(this.q * this.q))) {
+    if (
+      !(this.q >= MIN_CUBIC_Q && this.q <= MAX_CUBIC_Q) ||
+      !Number.isFinite(this.rhoAreaKgM * Math.cbrt(this.q * this.q))
+    ) {
       throw new EngineInputError('powerKw', 'Power and nozzle size give a jet velocity the model cannot represent');
     }
   }
@@ -123,7 +122,10 @@ export function prepareJetSetup(input: JetSetupInput | PreparedJetSetup): Prepar
   const densityKgM3 = assertPositive('densityKgM3', input.densityKgM3);
   const pumpEfficiency = assertFiniteNumber('pumpEfficiency', input.pumpEfficiency ?? 1);
   if (pumpEfficiency <= 0 || pumpEfficiency > 1) {
-    throw new EngineInputError('pumpEfficiency', `pumpEfficiency must be above 0 and at most 1 (got ${pumpEfficiency})`);
+    throw new EngineInputError(
+      'pumpEfficiency',
+      `pumpEfficiency must be above 0 and at most 1 (got ${pumpEfficiency})`,
+    );
   }
   const kn = assertInHalfOpenRange('nozzleLossCoefficient', input.nozzleLossCoefficient ?? 0, 0, 1);
   const ki = assertInHalfOpenRange('inletLossCoefficient', input.inletLossCoefficient ?? 0, 0, 1);
@@ -132,7 +134,11 @@ export function prepareJetSetup(input: JetSetupInput | PreparedJetSetup): Prepar
 }
 
 /** The same water and loss model with another power and nozzle (for parity and sensitivities). */
-export function withPowerAndDiameter(setup: PreparedJetSetup, powerKw: number, nozzleDiameterMm: number): PreparedJetSetup {
+export function withPowerAndDiameter(
+  setup: PreparedJetSetup,
+  powerKw: number,
+  nozzleDiameterMm: number,
+): PreparedJetSetup {
   const s = prepareJetSetup(setup);
   return new PreparedSetup(
     assertPositive('powerKw', powerKw),

@@ -1,7 +1,13 @@
 // Measurement helpers for nozzle inspection: an instrument uncertainty budget, correction of a
 // length to the 20 C reference temperature, and the area-equivalent diameter.
 
-import { EngineInputError, assertFiniteNumber, assertInRange, assertNonNegative, assertPositive } from './engine-input-error';
+import {
+  EngineInputError,
+  assertFiniteNumber,
+  assertInRange,
+  assertNonNegative,
+  assertPositive,
+} from './engine-input-error';
 
 export interface InstrumentUncertaintyInput {
   /** Rectangular error limit ±a of the instrument, mm: contributes a/sqrt(3) (JCGM 100:2008, 4.3.7). */
@@ -121,7 +127,8 @@ export function correctLengthToReferenceTemperatureMm(input: ThermalCorrectionIn
   const lengthMm = assertPositive('lengthMm', input.lengthMm);
   const t = assertInRange('temperatureC', input.temperatureC, -30, 70, 'C');
   const alphaPart = expansionOf('material', input.material);
-  const alphaInstrument = input.instrumentMaterial === undefined ? 0 : expansionOf('instrumentMaterial', input.instrumentMaterial);
+  const alphaInstrument =
+    input.instrumentMaterial === undefined ? 0 : expansionOf('instrumentMaterial', input.instrumentMaterial);
   const dt = t - REFERENCE_TEMPERATURE_C;
   return (lengthMm * (1 + alphaInstrument * dt)) / (1 + alphaPart * dt);
 }

@@ -13,7 +13,13 @@
 //   5.1.2, see jet-uncertainty.ts); the class median and the reference set-up are held exact.
 
 import { EngineInputError, assertNonNegative, assertPositive } from './engine-input-error';
-import { MAX_SPEED_MS, computeNozzleDiameterForStaticThrustMm, evaluateThrustN, prepareJetSetup, withPowerAndDiameter } from './jet';
+import {
+  MAX_SPEED_MS,
+  computeNozzleDiameterForStaticThrustMm,
+  evaluateThrustN,
+  prepareJetSetup,
+  withPowerAndDiameter,
+} from './jet';
 import type { JetModelAssumptions, PreparedJetSetup } from './jet';
 import { createCrossoverFinder } from './jet-crossover';
 import {
@@ -169,7 +175,10 @@ export function computeParity(boats: readonly ParityBoatInput[], assumptions: Pa
   const prepared: PreparedJetSetup[] = boats.map((b) => withPowerAndDiameter(base, b.powerKw, b.nozzleDiameterMm));
   speeds.forEach((v, j) => {
     if (!(typeof v === 'number' && v >= 0 && v <= MAX_SPEED_MS)) {
-      throw new EngineInputError(`referenceSpeedsMs[${j}]`, `Reference speeds must be 0 to ${MAX_SPEED_MS} m/s (got ${String(v)})`);
+      throw new EngineInputError(
+        `referenceSpeedsMs[${j}]`,
+        `Reference speeds must be 0 to ${MAX_SPEED_MS} m/s (got ${String(v)})`,
+      );
     }
   });
   const t0 = new Float64Array(n);
@@ -185,15 +194,26 @@ export function computeParity(boats: readonly ParityBoatInput[], assumptions: Pa
   if (n % 2 === 1) {
     referenceIndex = t0.indexOf(medianN);
     const b = boats[referenceIndex];
-    reference = { kind: 'boat', boatId: b.id, powerKw: b.powerKw, nozzleDiameterMm: b.nozzleDiameterMm, staticThrustN: medianN };
+    reference = {
+      kind: 'boat',
+      boatId: b.id,
+      powerKw: b.powerKw,
+      nozzleDiameterMm: b.nozzleDiameterMm,
+      staticThrustN: medianN,
+    };
   } else {
     const powerKw = computeMedian(boats.map((b) => b.powerKw));
-    const nozzleDiameterMm = computeNozzleDiameterForStaticThrustMm({ ...model, targetStaticThrustN: medianN, powerKw });
+    const nozzleDiameterMm = computeNozzleDiameterForStaticThrustMm({
+      ...model,
+      targetStaticThrustN: medianN,
+      powerKw,
+    });
     reference = { kind: 'synthetic', boatId: null, powerKw, nozzleDiameterMm, staticThrustN: medianN };
   }
-  const referenceSetup = referenceIndex >= 0
-    ? prepared[referenceIndex]
-    : withPowerAndDiameter(base, reference.powerKw, reference.nozzleDiameterMm);
+  const referenceSetup =
+    referenceIndex >= 0
+      ? prepared[referenceIndex]
+      : withPowerAndDiameter(base, reference.powerKw, reference.nozzleDiameterMm);
   const findCrossover = createCrossoverFinder(referenceSetup);
 
   const results: ParityBoatResult[] = boats.map((b, i) => {

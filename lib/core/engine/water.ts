@@ -68,10 +68,7 @@ export function interpolateDensityIttc(kind: WaterKind, temperatureC: number): n
 
 /** Density of pure water, EOS-80 (SMOW polynomial, Bigg 1967 as adopted in EOS-80). */
 function computePureWaterDensityEos80(t: number): number {
-  return (
-    999.842594 +
-    t * (6.793952e-2 + t * (-9.09529e-3 + t * (1.001685e-4 + t * (-1.120083e-6 + t * 6.536332e-9))))
-  );
+  return 999.842594 + t * (6.793952e-2 + t * (-9.09529e-3 + t * (1.001685e-4 + t * (-1.120083e-6 + t * 6.536332e-9))));
 }
 
 /**
@@ -94,8 +91,7 @@ export function computeDensityEos80(input: { salinityPsu: number; temperatureC: 
 }
 
 export type ResolveDensityInput =
-  | { kind: WaterKind; temperatureC: number; basis?: DensityBasis; salinityPsu?: number }
-  | { densityKgM3: number };
+  { kind: WaterKind; temperatureC: number; basis?: DensityBasis; salinityPsu?: number } | { densityKgM3: number };
 
 export interface ResolvedDensity {
   densityKgM3: number;

@@ -89,7 +89,16 @@ function decide(l: Limit): DeclarationRow {
       : status === 'outside'
         ? `${what} is ${l.side === 'max' ? 'above' : 'below'} ${limit} by more than ${u}: as declared, the boat would not conform.`
         : `${what} is within ${u} of ${limit}: too close to call; inspection will decide.`;
-  return { key: l.key, label: l.label, unit: l.unit, declared: l.declared, limit: l.limit, uncertainty: l.uncertainty, status, explanation };
+  return {
+    key: l.key,
+    label: l.label,
+    unit: l.unit,
+    declared: l.declared,
+    limit: l.limit,
+    uncertainty: l.uncertainty,
+    status,
+    explanation,
+  };
 }
 
 /** Compares a declaration with the class rules, limit by limit. A warning, not a verdict. */
@@ -102,8 +111,22 @@ export function checkDeclaration(boat: DeclaredFigures, rules: ClassRules): Decl
     uncertaintyName: 'your declared tolerance',
     digits: 2,
   };
-  if (rules.nozzle.maxMm != null) limits.push({ ...nozzle, key: 'nozzle_max', label: 'Nozzle exit diameter, maximum', side: 'max', limit: rules.nozzle.maxMm });
-  if (rules.nozzle.minMm != null) limits.push({ ...nozzle, key: 'nozzle_min', label: 'Nozzle exit diameter, minimum', side: 'min', limit: rules.nozzle.minMm });
+  if (rules.nozzle.maxMm != null)
+    limits.push({
+      ...nozzle,
+      key: 'nozzle_max',
+      label: 'Nozzle exit diameter, maximum',
+      side: 'max',
+      limit: rules.nozzle.maxMm,
+    });
+  if (rules.nozzle.minMm != null)
+    limits.push({
+      ...nozzle,
+      key: 'nozzle_min',
+      label: 'Nozzle exit diameter, minimum',
+      side: 'min',
+      limit: rules.nozzle.minMm,
+    });
 
   const power = {
     unit: 'kW' as const,
@@ -112,8 +135,10 @@ export function checkDeclaration(boat: DeclaredFigures, rules: ClassRules): Decl
     uncertaintyName: 'the class’s power uncertainty',
     digits: 0,
   };
-  if (rules.power.minKw != null) limits.push({ ...power, key: 'power_min', label: 'Engine power, minimum', side: 'min', limit: rules.power.minKw });
-  if (rules.power.maxKw != null) limits.push({ ...power, key: 'power_max', label: 'Engine power, maximum', side: 'max', limit: rules.power.maxKw });
+  if (rules.power.minKw != null)
+    limits.push({ ...power, key: 'power_min', label: 'Engine power, minimum', side: 'min', limit: rules.power.minKw });
+  if (rules.power.maxKw != null)
+    limits.push({ ...power, key: 'power_max', label: 'Engine power, maximum', side: 'max', limit: rules.power.maxKw });
 
   const notes: string[] = [];
   if (rules.weight.minKg != null) {
@@ -131,11 +156,16 @@ export function checkDeclaration(boat: DeclaredFigures, rules: ClassRules): Decl
         digits: 0,
       });
     } else {
-      notes.push(`No weight declared: the class minimum is ${formatFigure(rules.weight.minKg)} kg (${basis}); the boat is weighed at inspection.`);
+      notes.push(
+        `No weight declared: the class minimum is ${formatFigure(rules.weight.minKg)} kg (${basis}); the boat is weighed at inspection.`,
+      );
     }
   }
 
   const rows = limits.map(decide);
-  const worst = rows.reduce<DeclarationStatus | null>((w, r) => (w === null || RANK[r.status] > RANK[w] ? r.status : w), null);
+  const worst = rows.reduce<DeclarationStatus | null>(
+    (w, r) => (w === null || RANK[r.status] > RANK[w] ? r.status : w),
+    null,
+  );
   return { rows, notes, worst };
 }

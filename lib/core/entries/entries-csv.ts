@@ -5,7 +5,10 @@ import { roundFigure, type FigureKind } from '../format/figures';
 
 // Figures leave rounded as on the screens (lib/core/format/figures.ts), still as numbers so a
 // spreadsheet reads them as numbers; the database keeps the full precision.
-const ROUNDED: Partial<Record<keyof EventEntryRow, FigureKind>> = { declaredNozzleMm: 'nozzleMm', declaredPowerKw: 'powerKw' };
+const ROUNDED: Partial<Record<keyof EventEntryRow, FigureKind>> = {
+  declaredNozzleMm: 'nozzleMm',
+  declaredPowerKw: 'powerKw',
+};
 
 const COLUMNS: [keyof EventEntryRow, string][] = [
   ['raceNumber', 'race_number'],
@@ -34,11 +37,13 @@ export function csvCell(value: unknown): string {
 export function entriesToCsv(rows: EventEntryRow[]): string {
   const lines = [COLUMNS.map(([, h]) => h).join(',')];
   for (const r of rows) {
-    lines.push(COLUMNS.map(([k]) => {
-      const kind = ROUNDED[k];
-      const v = r[k];
-      return csvCell(kind && typeof v === 'number' ? roundFigure(v, kind) : v);
-    }).join(','));
+    lines.push(
+      COLUMNS.map(([k]) => {
+        const kind = ROUNDED[k];
+        const v = r[k];
+        return csvCell(kind && typeof v === 'number' ? roundFigure(v, kind) : v);
+      }).join(','),
+    );
   }
   return lines.join('\r\n') + '\r\n';
 }

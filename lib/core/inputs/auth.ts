@@ -20,7 +20,10 @@ export const personName = z
   .trim()
   .min(1, 'Enter your name.')
   .max(120, 'Keep the name under 120 characters.')
-  .refine((v) => !/[\p{Cc}\u202A-\u202E\u2066-\u2069\u2028\u2029]/u.test(v), 'Use letters, spaces and punctuation only in the name.');
+  .refine(
+    (v) => !/[\p{Cc}\u202A-\u202E\u2066-\u2069\u2028\u2029]/u.test(v),
+    'Use letters, spaces and punctuation only in the name.',
+  );
 
 export const SignUpInput = z.object({
   name: personName,

@@ -22,16 +22,23 @@ export const DOCUMENT_KIND_VALUES = Object.keys(DOCUMENT_KINDS) as [DocumentKind
 /** Maximum size of one boat document (bytes). */
 export const BOAT_DOCUMENT_MAX_BYTES = 10 * 1024 * 1024;
 
-
 /** A required number: "Enter …" when missing, "… as a number" when it is text or anything else. */
 export const requiredNumber = (what: string) =>
-  z.number({ error: (iss) => (iss.input === undefined || iss.input === null ? `Enter ${what}.` : `Enter ${what} as a number.`) });
+  z.number({
+    error: (iss) => (iss.input === undefined || iss.input === null ? `Enter ${what}.` : `Enter ${what} as a number.`),
+  });
 /** An optional number: missing or null means "not declared". */
 const optionalNumber = (what: string) =>
-  z.number({ error: `Enter ${what} as a number, or leave it empty.` }).nullable().optional();
+  z
+    .number({ error: `Enter ${what} as a number, or leave it empty.` })
+    .nullable()
+    .optional();
 
 const text = (what: string, max: number) =>
-  z.string({ error: `Enter ${what} as text.` }).trim().max(max, `Keep ${what} under ${max} characters.`);
+  z
+    .string({ error: `Enter ${what} as text.` })
+    .trim()
+    .max(max, `Keep ${what} under ${max} characters.`);
 
 const BoatFields = z.strictObject({
   name: z
@@ -50,15 +57,21 @@ const BoatFields = z.strictObject({
   impellerDescription: text('the impeller description', 500),
   nozzleDiameter: requiredNumber('the nozzle exit diameter').positive('The nozzle exit diameter must be above zero.'),
   nozzleUnit: z.enum(NOZZLE_UNITS, { error: 'Choose mm or in for the nozzle diameter.' }),
-  nozzleToleranceMm: requiredNumber('the nozzle tolerance').min(0, 'The tolerance cannot be negative.').max(5, 'A tolerance above 5 mm is not credible.'),
+  nozzleToleranceMm: requiredNumber('the nozzle tolerance')
+    .min(0, 'The tolerance cannot be negative.')
+    .max(5, 'A tolerance above 5 mm is not credible.'),
   engineDescription: text('the engine description', 500),
   power: requiredNumber('the declared power').positive('The declared power must be above zero.'),
   powerUnit: z.enum(POWER_UNITS, { error: 'Choose kW, hp or PS for the power.' }),
   powerEvidence: z.enum(POWER_EVIDENCE_VALUES, { error: 'Choose what backs the power figure.' }),
-  displacementL: optionalNumber('the engine displacement')
-    .refine((v) => v == null || (v > 0 && v <= 50), 'The displacement must be above 0 and at most 50 litres.'),
-  declaredWeightKg: optionalNumber('the declared weight')
-    .refine((v) => v == null || (v > 0 && v <= 20000), 'The weight must be above 0 and at most 20000 kg.'),
+  displacementL: optionalNumber('the engine displacement').refine(
+    (v) => v == null || (v > 0 && v <= 50),
+    'The displacement must be above 0 and at most 50 litres.',
+  ),
+  declaredWeightKg: optionalNumber('the declared weight').refine(
+    (v) => v == null || (v > 0 && v <= 20000),
+    'The weight must be above 0 and at most 20000 kg.',
+  ),
 });
 
 type Fields = z.infer<typeof BoatFields>;
@@ -83,22 +96,42 @@ export type BoatDeclaration = {
 function checkRanges(v: Partial<Fields>, ctx: z.RefinementCtx) {
   if (v.nozzleDiameter !== undefined) {
     const mm = convertLength(v.nozzleDiameter, v.nozzleUnit ?? 'mm', 'mm');
-    if (!(mm > 0)) ctx.addIssue({ code: 'custom', path: ['nozzleDiameter'], message: 'The nozzle exit diameter must be above zero.' });
-    else if (!(mm < 1000)) ctx.addIssue({ code: 'custom', path: ['nozzleDiameter'], message: 'The nozzle exit diameter must be below 1000 mm (39.37 in).' });
+    if (!(mm > 0))
+      ctx.addIssue({
+        code: 'custom',
+        path: ['nozzleDiameter'],
+        message: 'The nozzle exit diameter must be above zero.',
+      });
+    else if (!(mm < 1000))
+      ctx.addIssue({
+        code: 'custom',
+        path: ['nozzleDiameter'],
+        message: 'The nozzle exit diameter must be below 1000 mm (39.37 in).',
+      });
   }
   if (v.power !== undefined) {
     const kw = convertPower(v.power, v.powerUnit ?? 'kW', 'kW');
     if (!(kw > 0)) ctx.addIssue({ code: 'custom', path: ['power'], message: 'The declared power must be above zero.' });
-    else if (!(kw < 10000)) ctx.addIssue({ code: 'custom', path: ['power'], message: 'The declared power must be below 10000 kW.' });
+    else if (!(kw < 10000))
+      ctx.addIssue({ code: 'custom', path: ['power'], message: 'The declared power must be below 10000 kW.' });
   }
 }
 
 function toStored(v: Partial<Fields>): Partial<BoatDeclaration> {
   const out: Partial<BoatDeclaration> = {};
-  for (const k of ['name', 'hullNumber', 'hullDescription', 'pumpDescription', 'impellerDescription', 'engineDescription', 'powerEvidence'] as const) {
+  for (const k of [
+    'name',
+    'hullNumber',
+    'hullDescription',
+    'pumpDescription',
+    'impellerDescription',
+    'engineDescription',
+    'powerEvidence',
+  ] as const) {
     if (v[k] !== undefined) (out as Record<string, unknown>)[k] = v[k];
   }
-  if (v.nozzleDiameter !== undefined) out.declaredNozzleMm = convertLength(v.nozzleDiameter, v.nozzleUnit ?? 'mm', 'mm');
+  if (v.nozzleDiameter !== undefined)
+    out.declaredNozzleMm = convertLength(v.nozzleDiameter, v.nozzleUnit ?? 'mm', 'mm');
   if (v.nozzleToleranceMm !== undefined) out.declaredNozzleToleranceMm = v.nozzleToleranceMm;
   if (v.power !== undefined) out.declaredPowerKw = convertPower(v.power, v.powerUnit ?? 'kW', 'kW');
   if (v.displacementL !== undefined) out.displacementL = v.displacementL ?? null;
@@ -125,7 +158,8 @@ export type CreateBoatInput = z.input<typeof CreateBoatInput>;
 /** PATCH /api/boats/:id: any subset; a figure without its unit is taken as mm or kW. */
 export const UpdateBoatInput = BoatFields.partial()
   .superRefine((v, ctx) => {
-    if (Object.keys(v).length === 0) ctx.addIssue({ code: 'custom', path: [], message: 'Send at least one field to change.' });
+    if (Object.keys(v).length === 0)
+      ctx.addIssue({ code: 'custom', path: [], message: 'Send at least one field to change.' });
     checkRanges(v, ctx);
   })
   .transform(toStored);

@@ -6,12 +6,7 @@
 // Upper bounds on power, diameter and lengths are sanity limits, not physics.
 
 import { z } from 'zod';
-import type {
-  ConformityBody,
-  CrossoverInput,
-  JetPerformanceInput,
-  ParityBody,
-} from '../engine/calculation-api';
+import type { ConformityBody, CrossoverInput, JetPerformanceInput, ParityBody } from '../engine/calculation-api';
 
 const num = (what: string) => z.number({ error: `${what} must be a number` });
 
@@ -118,7 +113,9 @@ const parityBoatSchema = z.strictObject({
   powerKw,
   nozzleDiameterMm,
   uPowerKw: num('uPowerKw (kW)').min(0, { error: 'uPowerKw must not be negative' }).optional(),
-  uNozzleDiameterMm: num('uNozzleDiameterMm (mm)').min(0, { error: 'uNozzleDiameterMm must not be negative' }).optional(),
+  uNozzleDiameterMm: num('uNozzleDiameterMm (mm)')
+    .min(0, { error: 'uNozzleDiameterMm must not be negative' })
+    .optional(),
 });
 
 /** Class parity report body (route not fixed yet). Boat ids must be unique. */

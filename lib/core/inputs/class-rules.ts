@@ -5,16 +5,41 @@ import { DECISION_RULES } from '@/lib/core/engine/conformity';
 
 // Class rules: fixed before measuring (ISO/IEC 17025:2017, 7.1.3), stored as a versioned document.
 const positive = (what: string, max: number) =>
-  z.number({ error: `Enter ${what} as a number.` }).positive(`${what} must be above zero.`).max(max, `${what} must be at most ${max}.`);
-const optionalPositive = (what: string, max: number) => positive(what, max).nullable().optional().transform((v) => v ?? null);
+  z
+    .number({ error: `Enter ${what} as a number.` })
+    .positive(`${what} must be above zero.`)
+    .max(max, `${what} must be at most ${max}.`);
+const optionalPositive = (what: string, max: number) =>
+  positive(what, max)
+    .nullable()
+    .optional()
+    .transform((v) => v ?? null);
 
 const ParityAssumptions = z.object({
-  pumpEfficiency: z.number({ error: 'Enter the pump efficiency.' }).gt(0, 'Pump efficiency must be above 0.').max(1, 'Pump efficiency cannot exceed 1.'),
-  nozzleLossCoefficient: z.number({ error: 'Enter the nozzle loss coefficient.' }).min(0, 'Loss coefficients cannot be negative.').lt(1, 'Loss coefficients must be below 1.'),
-  inletLossCoefficient: z.number({ error: 'Enter the inlet loss coefficient.' }).min(0, 'Loss coefficients cannot be negative.').lt(1, 'Loss coefficients must be below 1.'),
-  wakeFraction: z.number({ error: 'Enter the wake fraction.' }).min(0, 'The wake fraction cannot be negative.').lt(1, 'The wake fraction must be below 1.'),
+  pumpEfficiency: z
+    .number({ error: 'Enter the pump efficiency.' })
+    .gt(0, 'Pump efficiency must be above 0.')
+    .max(1, 'Pump efficiency cannot exceed 1.'),
+  nozzleLossCoefficient: z
+    .number({ error: 'Enter the nozzle loss coefficient.' })
+    .min(0, 'Loss coefficients cannot be negative.')
+    .lt(1, 'Loss coefficients must be below 1.'),
+  inletLossCoefficient: z
+    .number({ error: 'Enter the inlet loss coefficient.' })
+    .min(0, 'Loss coefficients cannot be negative.')
+    .lt(1, 'Loss coefficients must be below 1.'),
+  wakeFraction: z
+    .number({ error: 'Enter the wake fraction.' })
+    .min(0, 'The wake fraction cannot be negative.')
+    .lt(1, 'The wake fraction must be below 1.'),
   referenceSpeedsMs: z
-    .array(z.number({ error: 'Type each reference speed as a number in m/s, for example 10, 20, 30.' }).min(0, 'Speeds cannot be negative.').max(60, 'Keep reference speeds at or below 60 m/s.'), { error: 'List the reference speeds.' })
+    .array(
+      z
+        .number({ error: 'Type each reference speed as a number in m/s, for example 10, 20, 30.' })
+        .min(0, 'Speeds cannot be negative.')
+        .max(60, 'Keep reference speeds at or below 60 m/s.'),
+      { error: 'List the reference speeds.' },
+    )
     .min(1, 'Give at least one reference speed.')
     .max(8, 'Give at most 8 reference speeds.'),
 });
@@ -25,8 +50,15 @@ export const ClassRules = z
     nozzle: z.object({
       maxMm: optionalPositive('The maximum nozzle diameter', 1000),
       minMm: optionalPositive('The minimum nozzle diameter', 1000),
-      minReadings: z.number().int('Readings must be a whole number.').min(1, 'Ask for at least one reading.').max(12, 'Ask for at most 12 readings.'),
-      defaultUncertaintyMm: z.number({ error: 'Enter the nozzle measurement uncertainty.' }).min(0, 'Uncertainty cannot be negative.').max(5, 'An uncertainty above 5 mm is not credible.'),
+      minReadings: z
+        .number()
+        .int('Readings must be a whole number.')
+        .min(1, 'Ask for at least one reading.')
+        .max(12, 'Ask for at most 12 readings.'),
+      defaultUncertaintyMm: z
+        .number({ error: 'Enter the nozzle measurement uncertainty.' })
+        .min(0, 'Uncertainty cannot be negative.')
+        .max(5, 'An uncertainty above 5 mm is not credible.'),
     }),
     power: z.object({
       minKw: optionalPositive('The minimum power', 10000),
@@ -44,11 +76,19 @@ export const ClassRules = z
   })
   .superRefine((r, ctx) => {
     if (r.nozzle.maxMm != null && r.nozzle.minMm != null && r.nozzle.minMm > r.nozzle.maxMm)
-      ctx.addIssue({ code: 'custom', path: ['nozzle', 'minMm'], message: 'The minimum nozzle diameter is above the maximum.' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['nozzle', 'minMm'],
+        message: 'The minimum nozzle diameter is above the maximum.',
+      });
     if (r.power.maxKw != null && r.power.minKw != null && r.power.minKw > r.power.maxKw)
       ctx.addIssue({ code: 'custom', path: ['power', 'minKw'], message: 'The minimum power is above the maximum.' });
     if (r.nozzle.maxMm == null && r.nozzle.minMm == null)
-      ctx.addIssue({ code: 'custom', path: ['nozzle', 'maxMm'], message: 'Set a maximum or a minimum nozzle diameter (or both).' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['nozzle', 'maxMm'],
+        message: 'Set a maximum or a minimum nozzle diameter (or both).',
+      });
   });
 export type ClassRules = z.infer<typeof ClassRules>;
 
@@ -59,11 +99,21 @@ export const ClassRulesForm = z
     rules: z.unknown(),
   })
   .transform((v, ctx) => {
-    const raw = v.rules as { power?: { minKw?: number | null; maxKw?: number | null; defaultUncertaintyKw?: number } } | undefined;
+    const raw = v.rules as
+      { power?: { minKw?: number | null; maxKw?: number | null; defaultUncertaintyKw?: number } } | undefined;
     const toKw = (x: number | null | undefined) => (typeof x === 'number' ? convertPower(x, v.powerUnit, 'kW') : x);
-    const rules = raw && typeof raw === 'object' && raw.power
-      ? { ...raw, power: { ...raw.power, minKw: toKw(raw.power.minKw), maxKw: toKw(raw.power.maxKw), defaultUncertaintyKw: toKw(raw.power.defaultUncertaintyKw) } }
-      : raw;
+    const rules =
+      raw && typeof raw === 'object' && raw.power
+        ? {
+            ...raw,
+            power: {
+              ...raw.power,
+              minKw: toKw(raw.power.minKw),
+              maxKw: toKw(raw.power.maxKw),
+              defaultUncertaintyKw: toKw(raw.power.defaultUncertaintyKw),
+            },
+          }
+        : raw;
     const parsed = ClassRules.safeParse(rules);
     if (!parsed.success) {
       for (const issue of parsed.error.issues) ctx.addIssue({ ...issue, path: ['rules', ...issue.path] } as never);
@@ -83,11 +133,21 @@ export const DEFAULT_CLASS_RULES: ClassRules = {
   decisionRule: 'iso14253',
   safetyItems: ['kill_switch', 'helmet', 'life_jacket', 'harness', 'fire_extinguisher', 'tow_point'],
   // MIT 2.611 course notes use eta_p = 0.9 and K_i = 0.2; K_n = 0.02 is a typical nozzle loss [partly memory].
-  parity: { pumpEfficiency: 0.9, nozzleLossCoefficient: 0.02, inletLossCoefficient: 0.2, wakeFraction: 0, referenceSpeedsMs: [10, 20, 30] },
+  parity: {
+    pumpEfficiency: 0.9,
+    nozzleLossCoefficient: 0.02,
+    inletLossCoefficient: 0.2,
+    wakeFraction: 0,
+    referenceSpeedsMs: [10, 20, 30],
+  },
 };
 
 export const CreateClassInput = z.object({
-  name: z.string({ error: 'Name the class.' }).trim().min(2, 'Name the class (at least 2 characters).').max(80, 'Keep the class name under 80 characters.'),
+  name: z
+    .string({ error: 'Name the class.' })
+    .trim()
+    .min(2, 'Name the class (at least 2 characters).')
+    .max(80, 'Keep the class name under 80 characters.'),
   code: z
     .string({ error: 'Give the class a short code.' })
     .trim()
@@ -100,5 +160,8 @@ export type CreateClassInput = z.infer<typeof CreateClassInput>;
 
 export const PublishRulesInput = z.object({
   changeNote: z.string().trim().max(2000, 'Keep the note under 2000 characters.').default(''),
-  effectiveFrom: z.iso.datetime({ offset: true, error: 'Give the effective time as a date and time.' }).nullable().optional(),
+  effectiveFrom: z.iso
+    .datetime({ offset: true, error: 'Give the effective time as a date and time.' })
+    .nullable()
+    .optional(),
 });

@@ -24,18 +24,37 @@ export const INSPECTION_PHOTO_MAX_BYTES = 8 * 1024 * 1024;
 export const INSPECTION_PHOTOS_PER_UPLOAD = 4;
 
 const num = (what: string, unit: string) =>
-  z.number({ error: (iss) => (iss.input === undefined || iss.input === null ? `Enter ${what} (${unit}).` : `Enter ${what} as a number (${unit}).`) });
+  z.number({
+    error: (iss) =>
+      iss.input === undefined || iss.input === null
+        ? `Enter ${what} (${unit}).`
+        : `Enter ${what} as a number (${unit}).`,
+  });
 const optionalNum = (what: string, unit: string) =>
-  z.number({ error: `Enter ${what} as a number (${unit}), or leave it empty.` }).nullable().optional().transform((v) => v ?? null);
+  z
+    .number({ error: `Enter ${what} as a number (${unit}), or leave it empty.` })
+    .nullable()
+    .optional()
+    .transform((v) => v ?? null);
 const uuid = (what: string) => z.uuid({ error: `Choose ${what}.` });
-const optionalUuid = (what: string) => uuid(what).nullable().optional().transform((v) => v ?? null);
-const text = (what: string, max: number) => z.string({ error: `Enter ${what} as text.` }).trim().max(max, `Keep ${what} under ${max} characters.`);
+const optionalUuid = (what: string) =>
+  uuid(what)
+    .nullable()
+    .optional()
+    .transform((v) => v ?? null);
+const text = (what: string, max: number) =>
+  z
+    .string({ error: `Enter ${what} as text.` })
+    .trim()
+    .max(max, `Keep ${what} under ${max} characters.`);
 
 const MATERIALS = MATERIAL_OPTIONS.map((m) => m.value) as [Material, ...Material[]];
 
 export const NozzleReading = z.object({
   // Exclusive bounds: a diameter of 0 or below, or a metre and more, is a typing slip, not a nozzle.
-  diameterMm: num('the diameter', 'mm').gt(0, 'A diameter must be above 0 mm.').lt(1000, 'A diameter must be below 1000 mm.'),
+  diameterMm: num('the diameter', 'mm')
+    .gt(0, 'A diameter must be above 0 mm.')
+    .lt(1000, 'A diameter must be below 1000 mm.'),
   angleDeg: num('the angle', '°').min(0, 'Angles run from 0 to 359°.').max(359, 'Angles run from 0 to 359°.'),
 });
 
@@ -47,20 +66,39 @@ export const RecordInspectionInput = z
     capturedAt: z.iso.datetime({ offset: true, error: 'Give the time of the inspection as an ISO date and time.' }),
     device: text('the device name', 80).default(''),
     nozzle: z.object({
-      readings: z.array(NozzleReading, { error: 'List the nozzle readings.' }).min(1, 'Enter at least one reading.').max(24, 'Enter at most 24 readings.'),
+      readings: z
+        .array(NozzleReading, { error: 'List the nozzle readings.' })
+        .min(1, 'Enter at least one reading.')
+        .max(24, 'Enter at most 24 readings.'),
       instrumentId: optionalUuid('an instrument'),
       expandedUncertaintyMm: optionalNum('the expanded uncertainty U', 'mm').pipe(
-        z.number().min(0, 'Uncertainty cannot be negative.').max(5, 'An uncertainty above 5 mm is not credible.').nullable(),
+        z
+          .number()
+          .min(0, 'Uncertainty cannot be negative.')
+          .max(5, 'An uncertainty above 5 mm is not credible.')
+          .nullable(),
       ),
       temperatureC: optionalNum('the nozzle temperature', '°C').pipe(
-        z.number().min(-30, 'Temperatures run from -30 to 70 °C.').max(70, 'Temperatures run from -30 to 70 °C.').nullable(),
+        z
+          .number()
+          .min(-30, 'Temperatures run from -30 to 70 °C.')
+          .max(70, 'Temperatures run from -30 to 70 °C.')
+          .nullable(),
       ),
-      material: z.enum(MATERIALS, { error: 'Choose the nozzle material.' }).nullable().optional().transform((v) => v ?? null),
+      material: z
+        .enum(MATERIALS, { error: 'Choose the nozzle material.' })
+        .nullable()
+        .optional()
+        .transform((v) => v ?? null),
     }),
     weight: z
       .object({
         readingsKg: z
-          .array(num('the weighing', 'kg').gt(0, 'A weighing must be above 0 kg.').lt(20000, 'A weighing must be below 20000 kg.'))
+          .array(
+            num('the weighing', 'kg')
+              .gt(0, 'A weighing must be above 0 kg.')
+              .lt(20000, 'A weighing must be below 20000 kg.'),
+          )
           .max(6, 'Enter at most 6 weighings.'),
         instrumentId: optionalUuid('a scale'),
       })
@@ -73,23 +111,44 @@ export const RecordInspectionInput = z
       note: text('the power note', 500).default(''),
     }),
     seals: z
-      .array(z.object({ number: text('the seal number', 40).min(1, 'Enter the seal number.'), location: text('where the seal is', 80).min(1, 'Say where the seal is.') }))
+      .array(
+        z.object({
+          number: text('the seal number', 40).min(1, 'Enter the seal number.'),
+          location: text('where the seal is', 80).min(1, 'Say where the seal is.'),
+        }),
+      )
       .max(20, 'Record at most 20 seals.')
       .default([]),
-    safety: z.partialRecord(z.enum(SAFETY_ITEM_KEYS as [SafetyItem, ...SafetyItem[]]), z.boolean({ error: 'Tick or untick each safety item.' })).default({}),
+    safety: z
+      .partialRecord(
+        z.enum(SAFETY_ITEM_KEYS as [SafetyItem, ...SafetyItem[]]),
+        z.boolean({ error: 'Tick or untick each safety item.' }),
+      )
+      .default({}),
     notes: text('the notes', 2000).default(''),
     supersedesId: optionalUuid('the record to correct'),
-    correctionReason: text('the reason for the correction', 1000).nullable().optional().transform((v) => v || null),
+    correctionReason: text('the reason for the correction', 1000)
+      .nullable()
+      .optional()
+      .transform((v) => v || null),
     reinspectionId: optionalUuid('the re-inspection task'),
   })
   .superRefine((v, ctx) => {
     if (v.nozzle.instrumentId && v.nozzle.expandedUncertaintyMm != null) {
-      ctx.addIssue({ code: 'custom', path: ['nozzle', 'expandedUncertaintyMm'], message: 'Choose an instrument or type U, not both.' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['nozzle', 'expandedUncertaintyMm'],
+        message: 'Choose an instrument or type U, not both.',
+      });
     }
     const when = checkCapturedAt(v.capturedAt);
     if (when) ctx.addIssue({ code: 'custom', path: ['capturedAt'], message: when });
     if (v.supersedesId && !v.correctionReason) {
-      ctx.addIssue({ code: 'custom', path: ['correctionReason'], message: 'Say why the earlier record is being corrected.' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['correctionReason'],
+        message: 'Say why the earlier record is being corrected.',
+      });
     }
   });
 export type RecordInspectionInput = z.infer<typeof RecordInspectionInput>;
@@ -110,7 +169,10 @@ export function checkCapturedAt(capturedAtIso: string, now = Date.now()): string
 }
 
 export const RequestReinspectionInput = z.object({
-  entryIds: z.array(uuid('an entry'), { error: 'Choose the entries to re-inspect.' }).min(1, 'Choose at least one entry.').max(60, 'Choose at most 60 entries at once.'),
+  entryIds: z
+    .array(uuid('an entry'), { error: 'Choose the entries to re-inspect.' })
+    .min(1, 'Choose at least one entry.')
+    .max(60, 'Choose at most 60 entries at once.'),
   reason: text('the reason', 500).min(3, 'Say why (for example “top three, heat 2”).'),
 });
 export type RequestReinspectionInput = z.infer<typeof RequestReinspectionInput>;
@@ -119,16 +181,40 @@ export const AddInstrumentInput = z
   .object({
     name: text('the instrument’s name', 120).min(2, 'Name the instrument (at least 2 characters).'),
     quantity: z.enum(['length', 'mass'], { error: 'Choose what it measures: length (mm) or mass (kg).' }),
-    errorLimit: optionalNum('the error limit', 'mm or kg').pipe(z.number().min(0, 'The error limit cannot be negative.').max(100, 'Keep the error limit at or below 100.').nullable()),
-    resolution: optionalNum('the resolution', 'mm or kg').pipe(z.number().min(0, 'The resolution cannot be negative.').max(100, 'Keep the resolution at or below 100.').nullable()),
-    expandedUncertainty: optionalNum('the expanded uncertainty U', 'mm or kg').pipe(z.number().min(0, 'U cannot be negative.').max(100, 'Keep U at or below 100.').nullable()),
+    errorLimit: optionalNum('the error limit', 'mm or kg').pipe(
+      z
+        .number()
+        .min(0, 'The error limit cannot be negative.')
+        .max(100, 'Keep the error limit at or below 100.')
+        .nullable(),
+    ),
+    resolution: optionalNum('the resolution', 'mm or kg').pipe(
+      z
+        .number()
+        .min(0, 'The resolution cannot be negative.')
+        .max(100, 'Keep the resolution at or below 100.')
+        .nullable(),
+    ),
+    expandedUncertainty: optionalNum('the expanded uncertainty U', 'mm or kg').pipe(
+      z.number().min(0, 'U cannot be negative.').max(100, 'Keep U at or below 100.').nullable(),
+    ),
   })
   .superRefine((v, ctx) => {
     if (v.errorLimit == null && v.resolution == null && v.expandedUncertainty == null) {
-      ctx.addIssue({ code: 'custom', path: ['errorLimit'], message: 'Give the error limit and resolution, or the certificate’s U.' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['errorLimit'],
+        message: 'Give the error limit and resolution, or the certificate’s U.',
+      });
     }
   });
 export type AddInstrumentInput = z.infer<typeof AddInstrumentInput>;
 
-export const BOARD_RESULT_FILTERS = ['waiting', 'conforms', 'does_not_conform', 'inconclusive', 'reinspection'] as const;
+export const BOARD_RESULT_FILTERS = [
+  'waiting',
+  'conforms',
+  'does_not_conform',
+  'inconclusive',
+  'reinspection',
+] as const;
 export type BoardResultFilter = (typeof BOARD_RESULT_FILTERS)[number];

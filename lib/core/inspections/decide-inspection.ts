@@ -45,7 +45,12 @@ export const CHECK_AREA_LABELS: Record<CheckArea, string> = {
  */
 export function scopeFromRequestedChecks(requested: readonly string[] | null | undefined): CheckArea[] | null {
   if (!requested || requested.length === 0 || requested.includes('other')) return null;
-  const map: Record<string, CheckArea> = { nozzle_diameter: 'nozzle', weight: 'weight', engine_power: 'power', safety_items: 'safety' };
+  const map: Record<string, CheckArea> = {
+    nozzle_diameter: 'nozzle',
+    weight: 'weight',
+    engine_power: 'power',
+    safety_items: 'safety',
+  };
   const areas = CHECK_AREAS.filter((a) => requested.some((r) => map[r] === a));
   return areas.length ? areas : null;
 }
@@ -85,7 +90,12 @@ export type InstrumentFigures = {
 export type InspectionDecision = {
   rules: RuleResult[];
   overall: Verdict;
-  nozzle: { correctedReadingsMm: number[]; temperatureCorrected: boolean; expandedUncertaintyMm: number; uncertaintyBasis: string };
+  nozzle: {
+    correctedReadingsMm: number[];
+    temperatureCorrected: boolean;
+    expandedUncertaintyMm: number;
+    uncertaintyBasis: string;
+  };
   weight: { meanKg: number; expandedUncertaintyKg: number; uncertaintyBasis: string } | null;
   /** The checks decided (null: all of them). */
   scope: CheckArea[] | null;
@@ -107,52 +117,103 @@ export const worstVerdict = (verdicts: Verdict[]): Verdict =>
 export const MEASURE_AGAIN = 'Measure again with a better instrument (a smaller U) to decide.';
 
 /** U of an instrument: its certificate's U, or its budget from a and δ (JCGM 100:2008, k = 2). */
-export function instrumentUncertainty(i: InstrumentFigures, unit: 'mm' | 'kg'): { expandedUncertainty: number; basis: string } {
-  if (i.expandedUncertainty != null) return { expandedUncertainty: i.expandedUncertainty, basis: `${i.name}: certificate U ${formatFigure(i.expandedUncertainty, 2)} ${unit}` };
+export function instrumentUncertainty(
+  i: InstrumentFigures,
+  unit: 'mm' | 'kg',
+): { expandedUncertainty: number; basis: string } {
+  if (i.expandedUncertainty != null)
+    return {
+      expandedUncertainty: i.expandedUncertainty,
+      basis: `${i.name}: certificate U ${formatFigure(i.expandedUncertainty, 2)} ${unit}`,
+    };
   const b = computeUncertaintyBudget({ errorLimitMm: i.errorLimit ?? 0, resolutionMm: i.resolution ?? 0 });
-  const parts = [i.errorLimit != null && `a ${formatFigure(i.errorLimit, 2)}`, i.resolution != null && `δ ${formatFigure(i.resolution, 2)}`].filter(Boolean).join(', ');
-  return { expandedUncertainty: b.expandedUncertaintyMm, basis: `${i.name} (${parts} ${unit}): U = 2·√(a²/3 + δ²/12) = ${b.expandedUncertaintyMm.toFixed(4)} ${unit}` };
+  const parts = [
+    i.errorLimit != null && `a ${formatFigure(i.errorLimit, 2)}`,
+    i.resolution != null && `δ ${formatFigure(i.resolution, 2)}`,
+  ]
+    .filter(Boolean)
+    .join(', ');
+  return {
+    expandedUncertainty: b.expandedUncertaintyMm,
+    basis: `${i.name} (${parts} ${unit}): U = 2·√(a²/3 + δ²/12) = ${b.expandedUncertaintyMm.toFixed(4)} ${unit}`,
+  };
 }
 
 function withAsk(explanation: string, verdict: Verdict): string {
-  return verdict === 'inconclusive' && !/measure again with a better instrument/i.test(explanation) ? `${explanation} ${MEASURE_AGAIN}` : explanation;
+  return verdict === 'inconclusive' && !/measure again with a better instrument/i.test(explanation)
+    ? `${explanation} ${MEASURE_AGAIN}`
+    : explanation;
 }
 
 /** Wording for a limit on kg or kW (the engine's own wording speaks of mm readings). */
-function explainLimit(o: { what: string; value: number; unit: string; side: 'max' | 'min'; limit: number; u: number; rule: DecisionRule; verdict: Verdict }): string {
+function explainLimit(o: {
+  what: string;
+  value: number;
+  unit: string;
+  side: 'max' | 'min';
+  limit: number;
+  u: number;
+  rule: DecisionRule;
+  verdict: Verdict;
+}): string {
   const f = (x: number) => `${formatFigure(x, o.unit === 'kW' ? 0 : 1)} ${o.unit}`;
   const limit = `the ${o.side === 'max' ? 'maximum' : 'minimum'} ${f(o.limit)}`;
   const beyond = o.side === 'max' ? 'is above' : 'is below';
   const notBeyond = o.side === 'max' ? 'is not above' : 'is not below';
   const value = `${o.what} ${f(o.value)}`;
-  if (o.rule === 'simple') return `${value} ${o.verdict === 'conforms' ? notBeyond : beyond} ${limit} (simple acceptance): ${o.verdict === 'conforms' ? 'conforms' : 'does not conform'}.`;
+  if (o.rule === 'simple')
+    return `${value} ${o.verdict === 'conforms' ? notBeyond : beyond} ${limit} (simple acceptance): ${o.verdict === 'conforms' ? 'conforms' : 'does not conform'}.`;
   if (o.rule === 'guarded') {
     const acc = f(o.side === 'max' ? o.limit - o.u : o.limit + o.u);
     return `${value} ${o.verdict === 'conforms' ? notBeyond : beyond} the acceptance limit ${acc} (${limit} ${o.side === 'max' ? 'less' : 'plus'} U ${f(o.u)}, guarded acceptance): ${o.verdict === 'conforms' ? 'conforms' : 'does not conform'}.`;
   }
-  if (o.verdict === 'conforms') return `${value} is inside ${limit} by at least U ${f(o.u)}: conformity proven (ISO 14253-1).`;
-  if (o.verdict === 'does_not_conform') return `${value} ${beyond} ${limit} by more than U ${f(o.u)}: non-conformity proven (ISO 14253-1).`;
+  if (o.verdict === 'conforms')
+    return `${value} is inside ${limit} by at least U ${f(o.u)}: conformity proven (ISO 14253-1).`;
+  if (o.verdict === 'does_not_conform')
+    return `${value} ${beyond} ${limit} by more than U ${f(o.u)}: non-conformity proven (ISO 14253-1).`;
   return `${value} is within U ${f(o.u)} of ${limit}: neither conformity nor non-conformity proven (ISO 14253-1).`;
 }
 
-function decideNozzle(d: DecideInput, isDecided = true): { results: RuleResult[]; nozzle: InspectionDecision['nozzle'] } {
+function decideNozzle(
+  d: DecideInput,
+  isDecided = true,
+): { results: RuleResult[]; nozzle: InspectionDecision['nozzle'] } {
   const { nozzle } = d.input;
   const { rules } = d;
   if (isDecided && nozzle.readings.length < rules.nozzle.minReadings) {
-    throw new EngineInputError('nozzle.readings', `The class rules ask for at least ${rules.nozzle.minReadings} readings around the exit; ${nozzle.readings.length} given.`);
+    throw new EngineInputError(
+      'nozzle.readings',
+      `The class rules ask for at least ${rules.nozzle.minReadings} readings around the exit; ${nozzle.readings.length} given.`,
+    );
   }
   const temperatureCorrected = nozzle.temperatureC != null && nozzle.material != null;
   const correctedReadingsMm = nozzle.readings.map((r) =>
-    temperatureCorrected ? correctLengthToReferenceTemperatureMm({ lengthMm: r.diameterMm, temperatureC: nozzle.temperatureC!, material: nozzle.material! }) : r.diameterMm,
+    temperatureCorrected
+      ? correctLengthToReferenceTemperatureMm({
+          lengthMm: r.diameterMm,
+          temperatureC: nozzle.temperatureC!,
+          material: nozzle.material!,
+        })
+      : r.diameterMm,
   );
   let u: { expandedUncertainty: number; basis: string };
   if (d.nozzleInstrument) {
-    if (d.nozzleInstrument.quantity !== 'length') throw new EngineInputError('nozzle.instrumentId', `${d.nozzleInstrument.name} weighs; choose an instrument that measures length.`);
+    if (d.nozzleInstrument.quantity !== 'length')
+      throw new EngineInputError(
+        'nozzle.instrumentId',
+        `${d.nozzleInstrument.name} weighs; choose an instrument that measures length.`,
+      );
     u = instrumentUncertainty(d.nozzleInstrument, 'mm');
   } else if (nozzle.expandedUncertaintyMm != null) {
-    u = { expandedUncertainty: nozzle.expandedUncertaintyMm, basis: `U ${formatMm(nozzle.expandedUncertaintyMm)} mm as entered` };
+    u = {
+      expandedUncertainty: nozzle.expandedUncertaintyMm,
+      basis: `U ${formatMm(nozzle.expandedUncertaintyMm)} mm as entered`,
+    };
   } else {
-    u = { expandedUncertainty: rules.nozzle.defaultUncertaintyMm, basis: `the class default U ${formatMm(rules.nozzle.defaultUncertaintyMm)} mm (no instrument chosen)` };
+    u = {
+      expandedUncertainty: rules.nozzle.defaultUncertaintyMm,
+      basis: `the class default U ${formatMm(rules.nozzle.defaultUncertaintyMm)} mm (no instrument chosen)`,
+    };
   }
   const note = temperatureCorrected
     ? ` Readings corrected from ${nozzle.temperatureC} °C to 20 °C (${nozzle.material?.replace('_', ' ')}, ISO 1:2022).`
@@ -163,7 +224,12 @@ function decideNozzle(d: DecideInput, isDecided = true): { results: RuleResult[]
   for (const side of ['max', 'min'] as const) {
     const limit = side === 'max' ? rules.nozzle.maxMm : rules.nozzle.minMm;
     if (limit == null) continue;
-    const r = evaluateConformity({ readingsMm: correctedReadingsMm, ...(side === 'max' ? { maxMm: limit } : { minMm: limit }), expandedUncertaintyMm: u.expandedUncertainty, rule: rules.decisionRule });
+    const r = evaluateConformity({
+      readingsMm: correctedReadingsMm,
+      ...(side === 'max' ? { maxMm: limit } : { minMm: limit }),
+      expandedUncertaintyMm: u.expandedUncertainty,
+      rule: rules.decisionRule,
+    });
     const check = r.checks[0];
     results.push({
       rule: side === 'max' ? 'nozzle_max' : 'nozzle_min',
@@ -180,11 +246,24 @@ function decideNozzle(d: DecideInput, isDecided = true): { results: RuleResult[]
       valueKind: 'measured',
     });
   }
-  return { results, nozzle: { correctedReadingsMm, temperatureCorrected, expandedUncertaintyMm: u.expandedUncertainty, uncertaintyBasis: u.basis } };
+  return {
+    results,
+    nozzle: {
+      correctedReadingsMm,
+      temperatureCorrected,
+      expandedUncertaintyMm: u.expandedUncertainty,
+      uncertaintyBasis: u.basis,
+    },
+  };
 }
 
 function sideCheck(value: number, side: 'max' | 'min', limit: number, u: number, rule: DecisionRule) {
-  return evaluateConformity({ readingsMm: [value], ...(side === 'max' ? { maxMm: limit } : { minMm: limit }), expandedUncertaintyMm: u, rule }).checks[0];
+  return evaluateConformity({
+    readingsMm: [value],
+    ...(side === 'max' ? { maxMm: limit } : { minMm: limit }),
+    expandedUncertaintyMm: u,
+    rule,
+  }).checks[0];
 }
 
 function decideWeight(d: DecideInput): { result: RuleResult | null; weight: InspectionDecision['weight'] } {
@@ -196,28 +275,61 @@ function decideWeight(d: DecideInput): { result: RuleResult | null; weight: Insp
   const w = d.input.weight;
   if (!w || w.readingsKg.length === 0) {
     const explanation = `Not weighed: the class minimum is ${formatFigure(minKg, 1)} kg (${basisWords}). Weigh the boat to decide.`;
-    return { result: { rule: 'weight_min', label, decisiveValue: null, unit: 'kg', limit: minKg, acceptanceLimit: null, rejectionLimit: null, expandedUncertainty: null, verdict: 'inconclusive', explanation, measured: false, valueKind: null }, weight: null };
+    return {
+      result: {
+        rule: 'weight_min',
+        label,
+        decisiveValue: null,
+        unit: 'kg',
+        limit: minKg,
+        acceptanceLimit: null,
+        rejectionLimit: null,
+        expandedUncertainty: null,
+        verdict: 'inconclusive',
+        explanation,
+        measured: false,
+        valueKind: null,
+      },
+      weight: null,
+    };
   }
   let scale: { expandedUncertainty: number; basis: string };
   if (d.weightInstrument) {
-    if (d.weightInstrument.quantity !== 'mass') throw new EngineInputError('weight.instrumentId', `${d.weightInstrument.name} measures length; choose a scale.`);
+    if (d.weightInstrument.quantity !== 'mass')
+      throw new EngineInputError('weight.instrumentId', `${d.weightInstrument.name} measures length; choose a scale.`);
     scale = instrumentUncertainty(d.weightInstrument, 'kg');
   } else {
-    scale = { expandedUncertainty: rules.weight.defaultUncertaintyKg, basis: `the class default U ${formatFigure(rules.weight.defaultUncertaintyKg, 1)} kg (no scale chosen)` };
+    scale = {
+      expandedUncertainty: rules.weight.defaultUncertaintyKg,
+      basis: `the class default U ${formatFigure(rules.weight.defaultUncertaintyKg, 1)} kg (no scale chosen)`,
+    };
   }
   const n = w.readingsKg.length;
   const meanKg = w.readingsKg.reduce((a, b) => a + b, 0) / n;
   const s = n > 1 ? Math.sqrt(w.readingsKg.reduce((a, x) => a + (x - meanKg) ** 2, 0) / (n - 1)) : 0;
   // JCGM 100:2008: u = U/k for the scale (k = 2), s/√n for the mean of n weighings, in quadrature, then k = 2.
   const expandedUncertaintyKg = 2 * Math.hypot(scale.expandedUncertainty / 2, n > 1 ? s / Math.sqrt(n) : 0);
-  const basis = n > 1 ? `${scale.basis}, with the spread of ${n} weighings (s ${s.toFixed(2)} kg): U ${expandedUncertaintyKg.toFixed(2)} kg` : scale.basis;
+  const basis =
+    n > 1
+      ? `${scale.basis}, with the spread of ${n} weighings (s ${s.toFixed(2)} kg): U ${expandedUncertaintyKg.toFixed(2)} kg`
+      : scale.basis;
   const check = sideCheck(meanKg, 'min', minKg, expandedUncertaintyKg, rules.decisionRule);
   const what = n > 1 ? `Mean of ${n} weighings` : 'Weighing';
   const explanation = `${explainLimit({ what, value: meanKg, unit: 'kg', side: 'min', limit: minKg, u: expandedUncertaintyKg, rule: rules.decisionRule, verdict: check.verdict })} Uncertainty: ${basis}.`;
   return {
     result: {
-      rule: 'weight_min', label, decisiveValue: meanKg, unit: 'kg', limit: minKg, acceptanceLimit: check.acceptanceLimitMm, rejectionLimit: check.rejectionLimitMm,
-      expandedUncertainty: expandedUncertaintyKg, verdict: check.verdict, explanation: withAsk(explanation, check.verdict), measured: true, valueKind: 'measured',
+      rule: 'weight_min',
+      label,
+      decisiveValue: meanKg,
+      unit: 'kg',
+      limit: minKg,
+      acceptanceLimit: check.acceptanceLimitMm,
+      rejectionLimit: check.rejectionLimitMm,
+      expandedUncertainty: expandedUncertaintyKg,
+      verdict: check.verdict,
+      explanation: withAsk(explanation, check.verdict),
+      measured: true,
+      valueKind: 'measured',
     },
     weight: { meanKg, expandedUncertaintyKg, uncertaintyBasis: basis },
   };
@@ -227,12 +339,29 @@ function decidePower(d: DecideInput): RuleResult | null {
   const { rules } = d;
   const { declaredKw, evidenceSeen } = d.input.power;
   const u = rules.power.defaultUncertaintyKw;
-  const sides = ([['min', rules.power.minKw], ['max', rules.power.maxKw]] as const).filter((s): s is readonly ['min' | 'max', number] => s[1] != null);
+  const sides = (
+    [
+      ['min', rules.power.minKw],
+      ['max', rules.power.maxKw],
+    ] as const
+  ).filter((s): s is readonly ['min' | 'max', number] => s[1] != null);
   if (sides.length === 0) return null;
-  const checks = sides.map(([side, limit]) => ({ side, limit, check: sideCheck(declaredKw, side, limit, u, rules.decisionRule) }));
+  const checks = sides.map(([side, limit]) => ({
+    side,
+    limit,
+    check: sideCheck(declaredKw, side, limit, u, rules.decisionRule),
+  }));
   // The side that decides: the worst verdict (on a tie, the maximum, as evaluateConformity does).
-  const governing = checks.reduce((g, c) => (RANK[c.check.verdict] > RANK[g.check.verdict] || (RANK[c.check.verdict] === RANK[g.check.verdict] && c.side === 'max') ? c : g));
-  const band = sides.length === 2 ? `band ${formatFigure(rules.power.minKw!)}–${formatFigure(rules.power.maxKw!)} kW` : `${sides[0][0] === 'max' ? 'maximum' : 'minimum'} ${formatFigure(sides[0][1])} kW`;
+  const governing = checks.reduce((g, c) =>
+    RANK[c.check.verdict] > RANK[g.check.verdict] ||
+    (RANK[c.check.verdict] === RANK[g.check.verdict] && c.side === 'max')
+      ? c
+      : g,
+  );
+  const band =
+    sides.length === 2
+      ? `band ${formatFigure(rules.power.minKw!)}–${formatFigure(rules.power.maxKw!)} kW`
+      : `${sides[0][0] === 'max' ? 'maximum' : 'minimum'} ${formatFigure(sides[0][1])} kW`;
   let verdict = governing.check.verdict;
   let explanation = `${explainLimit({ what: 'Power', value: declaredKw, unit: 'kW', side: governing.side, limit: governing.limit, u, rule: rules.decisionRule, verdict })} Class ${band}, U ${formatFigure(u)} kW.`;
   if (!evidenceSeen && verdict !== 'does_not_conform') {
@@ -242,9 +371,18 @@ function decidePower(d: DecideInput): RuleResult | null {
   // Power is not measured at the dock: the figure is confirmed against the evidence seen, or only declared.
   const valueKind: ValueKind = evidenceSeen ? 'confirmed' : 'declared';
   return {
-    rule: 'power_band', label: 'Engine power', decisiveValue: declaredKw, unit: 'kW', limit: governing.limit,
-    acceptanceLimit: governing.check.acceptanceLimitMm, rejectionLimit: governing.check.rejectionLimitMm, expandedUncertainty: u,
-    verdict, explanation: withAsk(explanation, verdict), measured: true, valueKind,
+    rule: 'power_band',
+    label: 'Engine power',
+    decisiveValue: declaredKw,
+    unit: 'kW',
+    limit: governing.limit,
+    acceptanceLimit: governing.check.acceptanceLimitMm,
+    rejectionLimit: governing.check.rejectionLimitMm,
+    expandedUncertainty: u,
+    verdict,
+    explanation: withAsk(explanation, verdict),
+    measured: true,
+    valueKind,
   };
 }
 
@@ -255,7 +393,12 @@ function decideSafety(d: DecideInput): RuleResult[] {
     return {
       rule: `safety:${key}` as RuleKey,
       label: SAFETY_ITEMS[key] ?? key,
-      decisiveValue: null, unit: null, limit: null, acceptanceLimit: null, rejectionLimit: null, expandedUncertainty: null,
+      decisiveValue: null,
+      unit: null,
+      limit: null,
+      acceptanceLimit: null,
+      rejectionLimit: null,
+      expandedUncertainty: null,
       verdict: ok ? 'conforms' : 'does_not_conform',
       explanation: ok
         ? `${SAFETY_ITEMS[key]}: checked as present and working.`
@@ -280,7 +423,13 @@ export function decideInspection(d: DecideInput): InspectionDecision {
     ...(power && decides('power') ? [power] : []),
     ...(decides('safety') ? decideSafety(d) : []),
   ];
-  return { rules, overall: worstVerdict(rules.map((r) => r.verdict)), nozzle, weight: decides('weight') ? weight : null, scope };
+  return {
+    rules,
+    overall: worstVerdict(rules.map((r) => r.verdict)),
+    nozzle,
+    weight: decides('weight') ? weight : null,
+    scope,
+  };
 }
 
 /** "Re-inspection of the nozzle exit diameter only" — the words for a scope, or null for a full inspection. */

@@ -4,7 +4,12 @@
 // lib/core/stored-shapes.ts checks it against the decision's own types.
 import { z } from 'zod';
 import {
-  StoredInspectionRecord, StoredMeasurements, StoredNozzleMeasurement, StoredPowerMeasurement, StoredResults, StoredRuleResult,
+  StoredInspectionRecord,
+  StoredMeasurements,
+  StoredNozzleMeasurement,
+  StoredPowerMeasurement,
+  StoredResults,
+  StoredRuleResult,
 } from '../../../models/shapes/inspection-record';
 import type { ClassRules } from '../inputs/class-rules';
 import type { RecordInspectionInput } from '../inputs/inspections';
@@ -54,10 +59,16 @@ export function buildInspectionRecord(b: BuildInspectionRecordInput): StoredInsp
       seals: input.seals,
       safety: input.safety as Record<string, boolean>,
     },
-    results: { rules: decision.rules, decisionRule: b.rules.decisionRule, ruleVersion: b.ruleVersion, scope: decision.scope },
+    results: {
+      rules: decision.rules,
+      decisionRule: b.rules.decisionRule,
+      ruleVersion: b.ruleVersion,
+      scope: decision.scope,
+    },
   };
   const checked = StoredInspectionRecord.safeParse(record);
-  if (!checked.success) throw new Error(`The inspection record does not match its stored shape: ${z.prettifyError(checked.error)}`);
+  if (!checked.success)
+    throw new Error(`The inspection record does not match its stored shape: ${z.prettifyError(checked.error)}`);
   return checked.data;
 }
 
@@ -89,7 +100,9 @@ export function readRecordForReport(measurements: unknown, results: unknown): Re
   // Without a temperature and material no correction applies, so a row lacking the stored list used its readings as read.
   const hadCorrection = nozzle?.temperatureC != null && nozzle?.material != null;
   const corrected = nozzle?.correctedReadingsMm ?? (hadCorrection ? null : readings);
-  const nozzleRule = r.success ? r.data.rules.find((x) => x.rule.startsWith('nozzle') && x.expandedUncertainty != null) : undefined;
+  const nozzleRule = r.success
+    ? r.data.rules.find((x) => x.rule.startsWith('nozzle') && x.expandedUncertainty != null)
+    : undefined;
   return {
     correctedReadingsMm: corrected ? corrected.filter((x) => x > 0) : null,
     nozzleExpandedUncertaintyMm: nozzleRule?.expandedUncertainty ?? null,

@@ -21,7 +21,8 @@ function toFigure(x: number | string | null | undefined): number | null {
 
 /** The figures of one instrument; a quantity other than length or mass is refused (a schema drift, not input). */
 export function toInstrumentFigures(row: InstrumentRow): InstrumentFigures {
-  if (row.quantity !== 'length' && row.quantity !== 'mass') throw new Error(`Instrument ${row.id} measures "${row.quantity}", neither length nor mass.`);
+  if (row.quantity !== 'length' && row.quantity !== 'mass')
+    throw new Error(`Instrument ${row.id} measures "${row.quantity}", neither length nor mass.`);
   return {
     id: row.id,
     name: row.name,

@@ -31,7 +31,16 @@ export const REQUESTED_CHECKS = {
 export type RequestedCheck = keyof typeof REQUESTED_CHECKS;
 
 /** The queue's order: what needs the stewards first. */
-export const QUEUE_ORDER: ProtestStatus[] = ['lodged', 'accepted', 'hearing_scheduled', 'awaiting_fee', 'upheld', 'dismissed', 'withdrawn', 'rejected'];
+export const QUEUE_ORDER: ProtestStatus[] = [
+  'lodged',
+  'accepted',
+  'hearing_scheduled',
+  'awaiting_fee',
+  'upheld',
+  'dismissed',
+  'withdrawn',
+  'rejected',
+];
 
 /** Statuses in which the matter is still open: evidence may be added, a decision is still to come. */
 export const OPEN_STATUSES: readonly ProtestStatus[] = ['awaiting_fee', 'lodged', 'accepted', 'hearing_scheduled'];
@@ -48,4 +57,3 @@ export const DEFAULT_APPEAL_NOTICE_MINUTES = 60;
 
 /** Evidence files: photos, PDFs and short phone videos (the storage fake holds up to 50 MB). */
 export const EVIDENCE_MAX_BYTES = 40 * 1024 * 1024;
-

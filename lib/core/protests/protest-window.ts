@@ -45,7 +45,12 @@ export type WindowView = {
   secondsLeft: number; // 0 once closed
 };
 
-export function describeWindow(opts: { publishedAt: Date; windowMinutes: number; timeZone: string; now?: Date }): WindowView {
+export function describeWindow(opts: {
+  publishedAt: Date;
+  windowMinutes: number;
+  timeZone: string;
+  now?: Date;
+}): WindowView {
   const now = opts.now ?? new Date();
   const deadline = protestDeadline(opts.publishedAt, opts.windowMinutes);
   const isOpen = isWithinWindow(deadline, now);

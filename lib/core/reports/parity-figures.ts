@@ -91,7 +91,10 @@ export function computeReportResults(inputs: ReportInputs): ReportResults {
   const n = byThrust.length;
   const lo = byThrust[0];
   const hi = byThrust[n - 1];
-  const uMedian = n % 2 === 1 ? byThrust[n >> 1].uStaticThrustN : 0.5 * Math.hypot(byThrust[n / 2 - 1].uStaticThrustN, byThrust[n / 2].uStaticThrustN);
+  const uMedian =
+    n % 2 === 1
+      ? byThrust[n >> 1].uStaticThrustN
+      : 0.5 * Math.hypot(byThrust[n / 2 - 1].uStaticThrustN, byThrust[n / 2].uStaticThrustN);
   const median = parity.summary.medianStaticThrustN;
   const jets = parity.boats.map((b) => b.staticJetVelocityMs);
   const jetMedian = computeMedian(jets);
@@ -99,7 +102,11 @@ export function computeReportResults(inputs: ReportInputs): ReportResults {
   // Curves for the chart: 0 m/s to 10 m/s past the highest reference speed (at most 60).
   const top = Math.min(60, Math.max(...a.referenceSpeedsMs, 20) + 10);
   const speedsMs = Array.from({ length: Math.floor(top / CHART_SPEED_STEP_MS) + 1 }, (_, i) => i * CHART_SPEED_STEP_MS);
-  const base = prepareJetSetup({ ...model, powerKw: inputs.boats[0].powerKw, nozzleDiameterMm: inputs.boats[0].nozzleDiameterMm });
+  const base = prepareJetSetup({
+    ...model,
+    powerKw: inputs.boats[0].powerKw,
+    nozzleDiameterMm: inputs.boats[0].nozzleDiameterMm,
+  });
   const ref = withPowerAndDiameter(base, parity.referenceSetup.powerKw, parity.referenceSetup.nozzleDiameterMm);
   const byEntry: Record<string, number[]> = {};
   for (const b of inputs.boats) {
@@ -113,7 +120,10 @@ export function computeReportResults(inputs: ReportInputs): ReportResults {
       medianStaticThrustN: { value: median, u: uMedian },
       minStaticThrustN: { value: lo.staticThrustN, u: lo.uStaticThrustN },
       maxStaticThrustN: { value: hi.staticThrustN, u: hi.uStaticThrustN },
-      spreadPercent: { value: parity.summary.spreadPercent, u: (100 * Math.hypot(hi.uStaticThrustN, lo.uStaticThrustN)) / median },
+      spreadPercent: {
+        value: parity.summary.spreadPercent,
+        u: (100 * Math.hypot(hi.uStaticThrustN, lo.uStaticThrustN)) / median,
+      },
       jetVelocityMinMs: Math.min(...jets),
       jetVelocityMedianMs: jetMedian,
       jetVelocityMaxMs: Math.max(...jets),
@@ -124,7 +134,10 @@ export function computeReportResults(inputs: ReportInputs): ReportResults {
 }
 
 /** What-if: the same inputs with some boats' nozzles or powers replaced (nothing is saved). */
-export function applyWhatIf(inputs: ReportInputs, changes: { nozzleByEntry?: Record<string, number>; powerByEntry?: Record<string, number> }): ReportInputs {
+export function applyWhatIf(
+  inputs: ReportInputs,
+  changes: { nozzleByEntry?: Record<string, number>; powerByEntry?: Record<string, number> },
+): ReportInputs {
   return {
     ...inputs,
     boats: inputs.boats.map((b) => ({
@@ -135,14 +148,20 @@ export function applyWhatIf(inputs: ReportInputs, changes: { nozzleByEntry?: Rec
   };
 }
 
-export type RuleWhatIf = { nozzleMaxMm?: number | null; nozzleMinMm?: number | null; powerMaxKw?: number | null; powerMinKw?: number | null };
+export type RuleWhatIf = {
+  nozzleMaxMm?: number | null;
+  nozzleMinMm?: number | null;
+  powerMaxKw?: number | null;
+  powerMinKw?: number | null;
+};
 
 /**
  * What-if for a rule change: each boat is projected to the nearest set-up the new limits allow
  * (a nozzle above a new maximum is taken down to it; a power above a new cap is detuned to it).
  */
 export function applyRuleWhatIf(inputs: ReportInputs, rule: RuleWhatIf): ReportInputs {
-  const clamp = (x: number, min?: number | null, max?: number | null) => Math.min(max ?? Infinity, Math.max(min ?? -Infinity, x));
+  const clamp = (x: number, min?: number | null, max?: number | null) =>
+    Math.min(max ?? Infinity, Math.max(min ?? -Infinity, x));
   return {
     ...inputs,
     boats: inputs.boats.map((b) => ({

@@ -3,9 +3,20 @@ import { csvCell } from '../entries/entries-csv';
 import type { PublishedReportDto } from './report-dto';
 
 export const REPORT_CSV_COLUMNS = [
-  'race_number', 'boat', 'power_kw', 'u_power_kw', 'nozzle_mm', 'u_nozzle_mm', 'static_thrust_n', 'u_static_thrust_n',
-  'static_jet_velocity_ms', 'u_static_jet_velocity_ms', 'deviation_from_median_percent', 'u_deviation_percent',
-  'crossover_with_median_ms', 'equalising_nozzle_mm',
+  'race_number',
+  'boat',
+  'power_kw',
+  'u_power_kw',
+  'nozzle_mm',
+  'u_nozzle_mm',
+  'static_thrust_n',
+  'u_static_thrust_n',
+  'static_jet_velocity_ms',
+  'u_static_jet_velocity_ms',
+  'deviation_from_median_percent',
+  'u_deviation_percent',
+  'crossover_with_median_ms',
+  'equalising_nozzle_mm',
 ] as const;
 
 export function reportToCsv(report: PublishedReportDto): string {
@@ -17,9 +28,20 @@ export function reportToCsv(report: PublishedReportDto): string {
   for (const b of boats) {
     const i = inputs.get(b.id)!;
     const cells: unknown[] = [
-      i.raceNumber, i.boatName, b.powerKw, i.uPowerKw, b.nozzleDiameterMm, i.uNozzleDiameterMm, b.staticThrustN, b.uStaticThrustN,
-      b.staticJetVelocityMs, b.uStaticJetVelocityMs, b.deviationFromMedianPercent, b.uDeviationFromMedianPercent,
-      b.crossoverWithMedianMs ?? '', b.equalisingNozzleDiameterMm,
+      i.raceNumber,
+      i.boatName,
+      b.powerKw,
+      i.uPowerKw,
+      b.nozzleDiameterMm,
+      i.uNozzleDiameterMm,
+      b.staticThrustN,
+      b.uStaticThrustN,
+      b.staticJetVelocityMs,
+      b.uStaticJetVelocityMs,
+      b.deviationFromMedianPercent,
+      b.uDeviationFromMedianPercent,
+      b.crossoverWithMedianMs ?? '',
+      b.equalisingNozzleDiameterMm,
       ...b.thrustAtReferenceSpeeds.flatMap((t) => [t.thrustN, t.uThrustN]),
     ];
     lines.push(cells.map(csvCell).join(','));

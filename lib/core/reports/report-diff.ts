@@ -20,7 +20,13 @@ export function diffReports(before: Version, after: Version) {
   const boats: BoatChange[] = ids.map((id) => {
     const x = b.get(id);
     const y = a.get(id);
-    const change = !x ? 'added' : !y ? 'removed' : Math.abs(x.staticThrustN - y.staticThrustN) > 1e-6 || x.nozzleDiameterMm !== y.nozzleDiameterMm ? 'changed' : 'same';
+    const change = !x
+      ? 'added'
+      : !y
+        ? 'removed'
+        : Math.abs(x.staticThrustN - y.staticThrustN) > 1e-6 || x.nozzleDiameterMm !== y.nozzleDiameterMm
+          ? 'changed'
+          : 'same';
     return {
       entryId: id,
       label: (y ?? x)!.label,

@@ -15,7 +15,16 @@ const LINE = rgb(0.84, 0.82, 0.76);
 
 // Standard PDF fonts speak WinAnsi only: replace anything else so odd names never crash.
 const safe = (font: PDFFont, text: string) =>
-  [...text.normalize('NFKD').replace(/[\u0300-\u036f]/g, '')].map((ch) => { try { font.encodeText(ch); return ch; } catch { return '?'; } }).join('');
+  [...text.normalize('NFKD').replace(/[\u0300-\u036f]/g, '')]
+    .map((ch) => {
+      try {
+        font.encodeText(ch);
+        return ch;
+      } catch {
+        return '?';
+      }
+    })
+    .join('');
 
 const f1 = (x: number, d = 1) => (Number.isFinite(x) ? x.toFixed(d) : '—');
 
@@ -28,10 +37,20 @@ function newPage(ctx: Ctx) {
 function ensure(ctx: Ctx, h: number) {
   if (ctx.y - h < M) newPage(ctx);
 }
-function text(ctx: Ctx, s: string, opts: { size?: number; bold?: boolean; color?: ReturnType<typeof rgb>; x?: number } = {}) {
+function text(
+  ctx: Ctx,
+  s: string,
+  opts: { size?: number; bold?: boolean; color?: ReturnType<typeof rgb>; x?: number } = {},
+) {
   const size = opts.size ?? 10;
   ensure(ctx, size + 4);
-  ctx.page.drawText(safe(opts.bold ? ctx.bold : ctx.font, s), { x: opts.x ?? M, y: ctx.y - size, size, font: opts.bold ? ctx.bold : ctx.font, color: opts.color ?? INK });
+  ctx.page.drawText(safe(opts.bold ? ctx.bold : ctx.font, s), {
+    x: opts.x ?? M,
+    y: ctx.y - size,
+    size,
+    font: opts.bold ? ctx.bold : ctx.font,
+    color: opts.color ?? INK,
+  });
   ctx.y -= size + 4;
 }
 function wrap(ctx: Ctx, s: string, size = 9, width = A4[0] - 2 * M) {
@@ -39,7 +58,10 @@ function wrap(ctx: Ctx, s: string, size = 9, width = A4[0] - 2 * M) {
   let line = '';
   for (const w of words) {
     const next = line ? `${line} ${w}` : w;
-    if (ctx.font.widthOfTextAtSize(safe(ctx.font, next), size) > width) { text(ctx, line, { size }); line = w; } else line = next;
+    if (ctx.font.widthOfTextAtSize(safe(ctx.font, next), size) > width) {
+      text(ctx, line, { size });
+      line = w;
+    } else line = next;
   }
   if (line) text(ctx, line, { size });
 }
@@ -47,10 +69,12 @@ function wrap(ctx: Ctx, s: string, size = 9, width = A4[0] - 2 * M) {
 function drawCurves(ctx: Ctx, r: PublishedReportDto) {
   const curves = r.results.curves;
   if (!curves) return;
-  const h = 180, w = A4[0] - 2 * M - 30;
+  const h = 180,
+    w = A4[0] - 2 * M - 30;
   ensure(ctx, h + 40);
   text(ctx, 'Thrust against boat speed (N); the median boat in orange', { bold: true });
-  const x0 = M + 30, y0 = ctx.y - h;
+  const x0 = M + 30,
+    y0 = ctx.y - h;
   const all = [...Object.values(curves.byEntry).flat(), ...curves.reference];
   const tMax = Math.max(...all) * 1.05;
   const vMax = curves.speedsMs[curves.speedsMs.length - 1];
@@ -61,10 +85,16 @@ function drawCurves(ctx: Ctx, r: PublishedReportDto) {
     const t = (tMax * i) / 4;
     ctx.page.drawText(f1(t / 1000, 1) + 'k', { x: M, y: py(t) - 3, size: 6, font: ctx.font, color: MUTE });
   }
-  for (let v = 0; v <= vMax; v += 10) ctx.page.drawText(`${v}`, { x: px(v) - 3, y: y0 - 9, size: 6, font: ctx.font, color: MUTE });
+  for (let v = 0; v <= vMax; v += 10)
+    ctx.page.drawText(`${v}`, { x: px(v) - 3, y: y0 - 9, size: 6, font: ctx.font, color: MUTE });
   const poly = (ys: number[], color: ReturnType<typeof rgb>, thickness: number) => {
     for (let i = 1; i < ys.length; i++) {
-      ctx.page.drawLine({ start: { x: px(curves.speedsMs[i - 1]), y: py(ys[i - 1]) }, end: { x: px(curves.speedsMs[i]), y: py(ys[i]) }, color, thickness });
+      ctx.page.drawLine({
+        start: { x: px(curves.speedsMs[i - 1]), y: py(ys[i - 1]) },
+        end: { x: px(curves.speedsMs[i]), y: py(ys[i]) },
+        color,
+        thickness,
+      });
     }
   };
   for (const ys of Object.values(curves.byEntry)) poly(ys, TIDE, 0.4);
@@ -80,24 +110,56 @@ function drawDeviationBars(ctx: Ctx, r: PublishedReportDto) {
   const h = rowH * boats.length;
   ensure(ctx, Math.min(h, 700) + 30);
   text(ctx, 'Static thrust deviation from the class median (%), whiskers = ±2u', { bold: true });
-  const maxDev = Math.max(1, ...boats.map((b) => Math.abs(b.deviationFromMedianPercent) + 2 * b.uDeviationFromMedianPercent));
-  const cx = M + 270, half = 200;
+  const maxDev = Math.max(
+    1,
+    ...boats.map((b) => Math.abs(b.deviationFromMedianPercent) + 2 * b.uDeviationFromMedianPercent),
+  );
+  const cx = M + 270,
+    half = 200;
   const top = ctx.y;
-  ctx.page.drawLine({ start: { x: cx, y: top }, end: { x: cx, y: top - Math.min(h, top - M) }, color: INK, thickness: 0.5 });
+  ctx.page.drawLine({
+    start: { x: cx, y: top },
+    end: { x: cx, y: top - Math.min(h, top - M) },
+    color: INK,
+    thickness: 0.5,
+  });
   for (const b of boats) {
     ensure(ctx, rowH);
     const y = ctx.y - rowH / 2;
     const dx = (b.deviationFromMedianPercent / maxDev) * half;
-    ctx.page.drawRectangle({ x: Math.min(cx, cx + dx), y: y - rowH * 0.35, width: Math.abs(dx), height: rowH * 0.7, color: b.deviationFromMedianPercent >= 0 ? TIDE : FLARE });
-    const u = (2 * b.uDeviationFromMedianPercent / maxDev) * half;
+    ctx.page.drawRectangle({
+      x: Math.min(cx, cx + dx),
+      y: y - rowH * 0.35,
+      width: Math.abs(dx),
+      height: rowH * 0.7,
+      color: b.deviationFromMedianPercent >= 0 ? TIDE : FLARE,
+    });
+    const u = ((2 * b.uDeviationFromMedianPercent) / maxDev) * half;
     ctx.page.drawLine({ start: { x: cx + dx - u, y }, end: { x: cx + dx + u, y }, color: INK, thickness: 0.6 });
-    if (rowH >= 7) ctx.page.drawText(safe(ctx.font, b.label).slice(0, 40), { x: M, y: y - 3, size: Math.min(7, rowH - 1), font: ctx.font, color: INK });
+    if (rowH >= 7)
+      ctx.page.drawText(safe(ctx.font, b.label).slice(0, 40), {
+        x: M,
+        y: y - 3,
+        size: Math.min(7, rowH - 1),
+        font: ctx.font,
+        color: INK,
+      });
     ctx.y -= rowH;
   }
   ctx.y -= 8;
 }
 
-const COLS: [string, number][] = [['No.', 28], ['Boat', 110], ['kW', 36], ['Nozzle mm', 52], ['T0 N ± u', 72], ['vj0 m/s', 44], ['Dev %', 50], ['Cross m/s', 50], ['Eq. nozzle', 52]];
+const COLS: [string, number][] = [
+  ['No.', 28],
+  ['Boat', 110],
+  ['kW', 36],
+  ['Nozzle mm', 52],
+  ['T0 N ± u', 72],
+  ['vj0 m/s', 44],
+  ['Dev %', 50],
+  ['Cross m/s', 50],
+  ['Eq. nozzle', 52],
+];
 
 function drawTable(ctx: Ctx, r: PublishedReportDto) {
   const boats = r.results.parity?.boats ?? [];
@@ -105,23 +167,46 @@ function drawTable(ctx: Ctx, r: PublishedReportDto) {
   const header = () => {
     ensure(ctx, 30);
     let x = M;
-    for (const [h, w] of COLS) { ctx.page.drawText(h, { x, y: ctx.y - 9, size: 8, font: ctx.bold, color: INK }); x += w; }
+    for (const [h, w] of COLS) {
+      ctx.page.drawText(h, { x, y: ctx.y - 9, size: 8, font: ctx.bold, color: INK });
+      x += w;
+    }
     ctx.y -= 13;
-    ctx.page.drawLine({ start: { x: M, y: ctx.y + 2 }, end: { x: A4[0] - M, y: ctx.y + 2 }, color: LINE, thickness: 0.5 });
+    ctx.page.drawLine({
+      start: { x: M, y: ctx.y + 2 },
+      end: { x: A4[0] - M, y: ctx.y + 2 },
+      color: LINE,
+      thickness: 0.5,
+    });
   };
   text(ctx, 'Per boat', { bold: true, size: 11 });
   header();
   for (const b of boats) {
-    if (ctx.y - 11 < M) { newPage(ctx); header(); }
+    if (ctx.y - 11 < M) {
+      newPage(ctx);
+      header();
+    }
     const i = inputs.get(b.id)!;
     const cells = [
-      String(i.raceNumber), i.boatName, f1(b.powerKw, 0), f1(b.nozzleDiameterMm, 2), `${f1(b.staticThrustN, 0)} ± ${f1(b.uStaticThrustN, 0)}`,
-      f1(b.staticJetVelocityMs, 2), `${b.deviationFromMedianPercent >= 0 ? '+' : ''}${f1(b.deviationFromMedianPercent, 2)}`,
-      b.crossoverWithMedianMs === null ? (b.isReferenceBoat ? 'median' : '—') : f1(b.crossoverWithMedianMs, 1), f1(b.equalisingNozzleDiameterMm, 2),
+      String(i.raceNumber),
+      i.boatName,
+      f1(b.powerKw, 0),
+      f1(b.nozzleDiameterMm, 2),
+      `${f1(b.staticThrustN, 0)} ± ${f1(b.uStaticThrustN, 0)}`,
+      f1(b.staticJetVelocityMs, 2),
+      `${b.deviationFromMedianPercent >= 0 ? '+' : ''}${f1(b.deviationFromMedianPercent, 2)}`,
+      b.crossoverWithMedianMs === null ? (b.isReferenceBoat ? 'median' : '—') : f1(b.crossoverWithMedianMs, 1),
+      f1(b.equalisingNozzleDiameterMm, 2),
     ];
     let x = M;
     cells.forEach((c, k) => {
-      ctx.page.drawText(safe(ctx.font, c).slice(0, k === 1 ? 22 : 20), { x, y: ctx.y - 8, size: 7.5, font: ctx.font, color: INK });
+      ctx.page.drawText(safe(ctx.font, c).slice(0, k === 1 ? 22 : 20), {
+        x,
+        y: ctx.y - 8,
+        size: 7.5,
+        font: ctx.font,
+        color: INK,
+      });
       x += COLS[k][1];
     });
     ctx.y -= 11;
@@ -132,23 +217,42 @@ function drawTable(ctx: Ctx, r: PublishedReportDto) {
 /** `timeZone`: the meeting's zone, in which the publication time is printed (named, as on every screen). */
 export async function buildReportPdf(r: PublishedReportDto, timeZone = 'UTC'): Promise<Uint8Array> {
   const doc = await PDFDocument.create();
-  const ctx: Ctx = { doc, page: doc.addPage(A4), y: A4[1] - M, font: await doc.embedFont(StandardFonts.Helvetica), bold: await doc.embedFont(StandardFonts.HelveticaBold) };
+  const ctx: Ctx = {
+    doc,
+    page: doc.addPage(A4),
+    y: A4[1] - M,
+    font: await doc.embedFont(StandardFonts.Helvetica),
+    bold: await doc.embedFont(StandardFonts.HelveticaBold),
+  };
   doc.setTitle(`${r.inputs.eventName} — ${r.inputs.classCode} parity report v${r.number}`);
   doc.setSubject(`Class parity report, ${r.inputs.className}`);
   doc.setProducer('Boreline');
   doc.setCreator('Boreline');
   const a = r.inputs.assumptions;
-  text(ctx, `${r.inputs.className} (${r.inputs.classCode}) — class parity report, version ${r.number}`, { size: 15, bold: true });
-  text(ctx, `${r.inputs.eventName} · published ${formatTime(r.publishedAt, timeZone)} · class rules version ${r.inputs.ruleVersion.version}`, { size: 9, color: MUTE });
+  text(ctx, `${r.inputs.className} (${r.inputs.classCode}) — class parity report, version ${r.number}`, {
+    size: 15,
+    bold: true,
+  });
+  text(
+    ctx,
+    `${r.inputs.eventName} · published ${formatTime(r.publishedAt, timeZone)} · class rules version ${r.inputs.ruleVersion.version}`,
+    { size: 9, color: MUTE },
+  );
   if (r.note) wrap(ctx, `Organiser's note: ${r.note}`);
   ctx.y -= 4;
-  wrap(ctx, `Model: momentum theory of a water jet at fixed shaft power with pump efficiency ${a.pumpEfficiency}, nozzle loss ${a.nozzleLossCoefficient}, inlet loss ${a.inletLossCoefficient}, wake fraction ${a.wakeFraction} (Allison, Marine Waterjet Propulsion, SNAME Trans. 101, 1993; Faltinsen, Hydrodynamics of High-Speed Marine Vehicles, 2005, s. 2.11; MIT 2.611 course notes, 2006). Water: ${r.inputs.density.description}, ${f1(r.inputs.density.densityKgM3, 4)} kg/m3. Nozzle: area-equivalent diameter of the two-point readings at 20 C (ISO 1:2022); uncertainties are standard (k = 1) by first-order propagation (JCGM 100:2008).`);
+  wrap(
+    ctx,
+    `Model: momentum theory of a water jet at fixed shaft power with pump efficiency ${a.pumpEfficiency}, nozzle loss ${a.nozzleLossCoefficient}, inlet loss ${a.inletLossCoefficient}, wake fraction ${a.wakeFraction} (Allison, Marine Waterjet Propulsion, SNAME Trans. 101, 1993; Faltinsen, Hydrodynamics of High-Speed Marine Vehicles, 2005, s. 2.11; MIT 2.611 course notes, 2006). Water: ${r.inputs.density.description}, ${f1(r.inputs.density.densityKgM3, 4)} kg/m3. Nozzle: area-equivalent diameter of the two-point readings at 20 C (ISO 1:2022); uncertainties are standard (k = 1) by first-order propagation (JCGM 100:2008).`,
+  );
   const c = r.results.classFigures;
   if (c) {
     ctx.y -= 4;
     text(ctx, 'Class figures', { bold: true, size: 11 });
     const s = r.results.parity!.summary;
-    wrap(ctx, `${s.boatCount} boats. Static thrust median ${f1(c.medianStaticThrustN.value, 0)} ± ${f1(c.medianStaticThrustN.u, 0)} N, min ${f1(c.minStaticThrustN.value, 0)} ± ${f1(c.minStaticThrustN.u, 0)} N, max ${f1(c.maxStaticThrustN.value, 0)} ± ${f1(c.maxStaticThrustN.u, 0)} N; max/min ${f1(s.maxMinRatio, 4)}; spread ${f1(c.spreadPercent.value, 2)} ± ${f1(c.spreadPercent.u, 2)} %; coefficient of variation ${s.coefficientOfVariationPercent === null ? '—' : f1(s.coefficientOfVariationPercent, 2) + ' %'}. Static jet velocity ${f1(c.jetVelocityMinMs, 2)} to ${f1(c.jetVelocityMaxMs, 2)} m/s (median ${f1(c.jetVelocityMedianMs, 2)}, spread ${f1(c.jetVelocitySpreadPercent, 2)} %).`);
+    wrap(
+      ctx,
+      `${s.boatCount} boats. Static thrust median ${f1(c.medianStaticThrustN.value, 0)} ± ${f1(c.medianStaticThrustN.u, 0)} N, min ${f1(c.minStaticThrustN.value, 0)} ± ${f1(c.minStaticThrustN.u, 0)} N, max ${f1(c.maxStaticThrustN.value, 0)} ± ${f1(c.maxStaticThrustN.u, 0)} N; max/min ${f1(s.maxMinRatio, 4)}; spread ${f1(c.spreadPercent.value, 2)} ± ${f1(c.spreadPercent.u, 2)} %; coefficient of variation ${s.coefficientOfVariationPercent === null ? '—' : f1(s.coefficientOfVariationPercent, 2) + ' %'}. Static jet velocity ${f1(c.jetVelocityMinMs, 2)} to ${f1(c.jetVelocityMaxMs, 2)} m/s (median ${f1(c.jetVelocityMedianMs, 2)}, spread ${f1(c.jetVelocitySpreadPercent, 2)} %).`,
+    );
   }
   ctx.y -= 6;
   drawCurves(ctx, r);
@@ -159,6 +263,10 @@ export async function buildReportPdf(r: PublishedReportDto, timeZone = 'UTC'): P
     for (const e of r.inputs.excluded) text(ctx, `#${e.raceNumber} ${e.boatName}: ${e.reason}`, { size: 8 });
   }
   ctx.y -= 6;
-  wrap(ctx, 'Caution: jet boat racing can injure and kill. These figures are a model of relative performance and support the officials; they are not a verdict. The governing body\'s rules, local regulations and the judgement of licensed officials decide every question of conformity and safety.', 8.5);
+  wrap(
+    ctx,
+    "Caution: jet boat racing can injure and kill. These figures are a model of relative performance and support the officials; they are not a verdict. The governing body's rules, local regulations and the judgement of licensed officials decide every question of conformity and safety.",
+    8.5,
+  );
   return doc.save();
 }

@@ -13,21 +13,47 @@ export function readCsvRecords(text: string): string[][] {
   while (i < src.length) {
     const c = src[i];
     if (quoted) {
-      if (c === '"' && src[i + 1] === '"') { field += '"'; i += 2; continue; }
-      if (c === '"') { quoted = false; i++; continue; }
-      field += c; i++; continue;
+      if (c === '"' && src[i + 1] === '"') {
+        field += '"';
+        i += 2;
+        continue;
+      }
+      if (c === '"') {
+        quoted = false;
+        i++;
+        continue;
+      }
+      field += c;
+      i++;
+      continue;
     }
-    if (c === '"' && field === '') { quoted = true; i++; continue; }
-    if (c === ',') { record.push(field); field = ''; i++; continue; }
+    if (c === '"' && field === '') {
+      quoted = true;
+      i++;
+      continue;
+    }
+    if (c === ',') {
+      record.push(field);
+      field = '';
+      i++;
+      continue;
+    }
     if (c === '\r' || c === '\n') {
-      record.push(field); records.push(record); record = []; field = '';
+      record.push(field);
+      records.push(record);
+      record = [];
+      field = '';
       i += c === '\r' && src[i + 1] === '\n' ? 2 : 1;
       continue;
     }
-    field += c; i++;
+    field += c;
+    i++;
   }
   if (quoted) throw new Error('a quoted field is not closed');
-  if (field !== '' || record.length) { record.push(field); records.push(record); }
+  if (field !== '' || record.length) {
+    record.push(field);
+    records.push(record);
+  }
   return records.filter((r) => !(r.length === 1 && r[0].trim() === ''));
 }
 
@@ -52,8 +78,10 @@ export function parseResultsCsv(text: string): { position: number; raceNumber: n
     const line = k + 2;
     const position = Number((r[pi] ?? '').trim());
     const raceNumber = Number((r[ni] ?? '').trim());
-    if (!Number.isInteger(position) || position < 1) throw bad(`Line ${line}: the position "${r[pi] ?? ''}" is not a whole number from 1.`);
-    if (!Number.isInteger(raceNumber) || raceNumber < 1) throw bad(`Line ${line}: the race number "${r[ni] ?? ''}" is not a whole number from 1.`);
+    if (!Number.isInteger(position) || position < 1)
+      throw bad(`Line ${line}: the position "${r[pi] ?? ''}" is not a whole number from 1.`);
+    if (!Number.isInteger(raceNumber) || raceNumber < 1)
+      throw bad(`Line ${line}: the race number "${r[ni] ?? ''}" is not a whole number from 1.`);
     return { position, raceNumber };
   });
 }

@@ -1,7 +1,17 @@
 // Printable boat tags: a QR code (the boat's tag URL) with race number, boat and class, laid out on
 // common self-adhesive label sheets, or one tag on its own small page. Framework-free (pdf-lib and
 // qrcode only), so it runs in a route handler, a script or a unit test.
-import { PDFDocument, StandardFonts, fill, popGraphicsState, pushGraphicsState, rectangle, setFillingGrayscaleColor, type PDFFont, type PDFPage } from 'pdf-lib';
+import {
+  PDFDocument,
+  StandardFonts,
+  fill,
+  popGraphicsState,
+  pushGraphicsState,
+  rectangle,
+  setFillingGrayscaleColor,
+  type PDFFont,
+  type PDFPage,
+} from 'pdf-lib';
 import QRCode from 'qrcode';
 import { AppError } from '../errors';
 
@@ -11,15 +21,45 @@ export type TagSheetFormat = 'a4-2x7' | 'letter-2x5';
 const mm = (v: number) => (v * 72) / 25.4; // PDF user space is 1/72 inch (ISO 32000-1 §8.3.2.3)
 const inch = (v: number) => v * 72;
 
-type SheetGeometry = { pageW: number; pageH: number; labelW: number; labelH: number; cols: number; rows: number; top: number; side: number; colGap: number };
+type SheetGeometry = {
+  pageW: number;
+  pageH: number;
+  labelW: number;
+  labelH: number;
+  cols: number;
+  rows: number;
+  top: number;
+  side: number;
+  colGap: number;
+};
 
 // Both are widely sold label formats; the dimensions are the commonly published ones for each
 // (common practice, no single source). They add up exactly to the page: 4.65 + 99.1 + 2.5 + 99.1
 // + 4.65 = 210 mm and 15.15 + 7 x 38.1 + 15.15 = 297 mm; 0.156 + 4 + 0.188 + 4 + 0.156 = 8.5 in
 // and 0.5 + 5 x 2 + 0.5 = 11 in.
 export const TAG_SHEETS: Record<TagSheetFormat, SheetGeometry> = {
-  'a4-2x7': { pageW: mm(210), pageH: mm(297), labelW: mm(99.1), labelH: mm(38.1), cols: 2, rows: 7, top: mm(15.15), side: mm(4.65), colGap: mm(2.5) },
-  'letter-2x5': { pageW: inch(8.5), pageH: inch(11), labelW: inch(4), labelH: inch(2), cols: 2, rows: 5, top: inch(0.5), side: inch(0.156), colGap: inch(0.188) },
+  'a4-2x7': {
+    pageW: mm(210),
+    pageH: mm(297),
+    labelW: mm(99.1),
+    labelH: mm(38.1),
+    cols: 2,
+    rows: 7,
+    top: mm(15.15),
+    side: mm(4.65),
+    colGap: mm(2.5),
+  },
+  'letter-2x5': {
+    pageW: inch(8.5),
+    pageH: inch(11),
+    labelW: inch(4),
+    labelH: inch(2),
+    cols: 2,
+    rows: 5,
+    top: inch(0.5),
+    side: inch(0.156),
+    colGap: inch(0.188),
+  },
 };
 
 // ISO/IEC 18004 asks for a quiet zone of 4 modules around a QR symbol.
@@ -44,7 +84,9 @@ export function toFontText(font: PDFFont, text: string): string {
   if (!ok) charsets.set(font, (ok = new Set(font.getCharacterSet())));
   let out = '';
   // Whitespace becomes one space; invisible controls and format marks (bidi overrides) go.
-  for (const ch of String(text).replace(/\s+/g, ' ').replace(/[\p{Cc}\p{Cf}]/gu, '')) {
+  for (const ch of String(text)
+    .replace(/\s+/g, ' ')
+    .replace(/[\p{Cc}\p{Cf}]/gu, '')) {
     if (ok.has(ch.codePointAt(0)!)) {
       out += ch;
       continue;
@@ -73,14 +115,22 @@ function drawQr(page: PDFPage, text: string, x: number, y: number, size: number)
   const { modules } = QRCode.create(text, { errorCorrectionLevel: QR_LEVEL });
   const n = modules.size;
   const m = size / (n + 2 * QUIET_MODULES);
-  const ops = [pushGraphicsState(), setFillingGrayscaleColor(1), rectangle(x, y, size, size), fill(), setFillingGrayscaleColor(0)];
+  const ops = [
+    pushGraphicsState(),
+    setFillingGrayscaleColor(1),
+    rectangle(x, y, size, size),
+    fill(),
+    setFillingGrayscaleColor(0),
+  ];
   for (let row = 0; row < n; row++) {
     for (let col = 0; col < n; col++) {
       if (!modules.get(row, col)) continue;
       const start = col;
       while (col + 1 < n && modules.get(row, col + 1)) col++;
       // PDF y grows upwards; QR row 0 is the top row.
-      ops.push(rectangle(x + (QUIET_MODULES + start) * m, y + size - (QUIET_MODULES + row + 1) * m, (col - start + 1) * m, m));
+      ops.push(
+        rectangle(x + (QUIET_MODULES + start) * m, y + size - (QUIET_MODULES + row + 1) * m, (col - start + 1) * m, m),
+      );
     }
   }
   ops.push(fill(), popGraphicsState());
@@ -117,12 +167,19 @@ async function newDocument(title: string) {
   pdf.setProducer('Boreline');
   pdf.setCreator('Boreline');
   pdf.setCreationDate(new Date());
-  const fonts: Fonts = { regular: await pdf.embedFont(StandardFonts.Helvetica), bold: await pdf.embedFont(StandardFonts.HelveticaBold) };
+  const fonts: Fonts = {
+    regular: await pdf.embedFont(StandardFonts.Helvetica),
+    bold: await pdf.embedFont(StandardFonts.HelveticaBold),
+  };
   return { pdf, fonts };
 }
 
 /** Label sheets filled left to right, top to bottom; labels past one sheet go on further pages. */
-export async function buildTagSheetPdf(input: { title: string; labels: TagLabel[]; sheet: TagSheetFormat }): Promise<Uint8Array> {
+export async function buildTagSheetPdf(input: {
+  title: string;
+  labels: TagLabel[];
+  sheet: TagSheetFormat;
+}): Promise<Uint8Array> {
   if (!input.labels.length) throw new AppError('no_labels', 400, 'There are no tags to print.');
   const g = TAG_SHEETS[input.sheet];
   const perPage = g.cols * g.rows;
@@ -131,8 +188,19 @@ export async function buildTagSheetPdf(input: { title: string; labels: TagLabel[
   for (let p = 0; p < pages; p++) {
     const page = pdf.addPage([g.pageW, g.pageH]);
     // In the sheet's top margin, off the labels: which print run and page this is.
-    const heading = fitText(fonts.regular, `${toFontText(fonts.regular, input.title)} — sheet ${p + 1} of ${pages}`, g.pageW - 2 * g.side, 7, 5);
-    page.drawText(heading.text, { x: g.side + mm(2), y: g.pageH - g.top / 2 - 2, size: heading.size, font: fonts.regular });
+    const heading = fitText(
+      fonts.regular,
+      `${toFontText(fonts.regular, input.title)} — sheet ${p + 1} of ${pages}`,
+      g.pageW - 2 * g.side,
+      7,
+      5,
+    );
+    page.drawText(heading.text, {
+      x: g.side + mm(2),
+      y: g.pageH - g.top / 2 - 2,
+      size: heading.size,
+      font: fonts.regular,
+    });
     input.labels.slice(p * perPage, (p + 1) * perPage).forEach((label, i) => {
       const col = i % g.cols;
       const row = Math.floor(i / g.cols);

@@ -10,5 +10,8 @@ export async function getAccountSummary(actor: Actor | null) {
     `select password_hash is not null as "hasPassword", email_verified as "addressProvenAt" from users where id = :id`,
     { replacements: { id: actor.id }, type: QueryTypes.SELECT },
   );
-  return { hasPassword: !!row?.hasPassword, addressProvenAt: row?.addressProvenAt ? new Date(row.addressProvenAt).toISOString() : null };
+  return {
+    hasPassword: !!row?.hasPassword,
+    addressProvenAt: row?.addressProvenAt ? new Date(row.addressProvenAt).toISOString() : null,
+  };
 }

@@ -17,15 +17,23 @@ export async function changePassword(actor: Actor | null, raw: unknown) {
   assertCan(actor, 'account.view');
   const { currentPassword, password } = ChangePasswordInput.parse(raw);
   const { sequelize } = getDb();
-  const [row] = await sequelize.query<{ passwordHash: string | null }>(`select password_hash as "passwordHash" from users where id = :id`, {
-    replacements: { id: actor.id },
-    type: QueryTypes.SELECT,
-  });
+  const [row] = await sequelize.query<{ passwordHash: string | null }>(
+    `select password_hash as "passwordHash" from users where id = :id`,
+    {
+      replacements: { id: actor.id },
+      type: QueryTypes.SELECT,
+    },
+  );
   if (row?.passwordHash) {
     const throttle = await recordAttempt(`password-change:${actor.id}`, { limit: 10, windowS: 15 * 60 });
-    if (!throttle.allowed) throw new AppError('rate_limited', 429, 'Too many attempts: wait 15 minutes.', { retryAfterS: throttle.retryAfterS });
+    if (!throttle.allowed)
+      throw new AppError('rate_limited', 429, 'Too many attempts: wait 15 minutes.', {
+        retryAfterS: throttle.retryAfterS,
+      });
     if (!(await verifyPassword(currentPassword, row.passwordHash)).isMatch) {
-      throw new AppError('wrong_password', 400, 'That is not your current password.', [{ field: 'currentPassword', message: 'That is not your current password.' }]);
+      throw new AppError('wrong_password', 400, 'That is not your current password.', [
+        { field: 'currentPassword', message: 'That is not your current password.' },
+      ]);
     }
   }
   await sequelize.transaction(async (transaction) => {

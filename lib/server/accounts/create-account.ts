@@ -18,11 +18,19 @@ import { appUrl, serverEnv } from '@/lib/server/config/env';
 export type SignUpAnswer = { email: string; next: 'confirm-address' };
 
 export async function createAccount(raw: unknown, clientAddress: string): Promise<SignUpAnswer> {
-  const perAddress = await recordAttempt(`signup:addr:${clientAddress}`, { limit: serverEnv().SIGN_UP_LIMIT_PER_HOUR, windowS: 3600 });
+  const perAddress = await recordAttempt(`signup:addr:${clientAddress}`, {
+    limit: serverEnv().SIGN_UP_LIMIT_PER_HOUR,
+    windowS: 3600,
+  });
   if (!perAddress.allowed) {
-    throw new AppError('rate_limited', 429, `Too many new accounts from this address: try again in ${Math.ceil(perAddress.retryAfterS / 60)} minutes.`, {
-      retryAfterS: perAddress.retryAfterS,
-    });
+    throw new AppError(
+      'rate_limited',
+      429,
+      `Too many new accounts from this address: try again in ${Math.ceil(perAddress.retryAfterS / 60)} minutes.`,
+      {
+        retryAfterS: perAddress.retryAfterS,
+      },
+    );
   }
   const input = SignUpInput.parse(raw);
   const passwordHash = await hashPassword(input.password);
@@ -36,9 +44,10 @@ export async function createAccount(raw: unknown, clientAddress: string): Promis
   const perMailbox = await recordAttempt(`signup:mail:${input.email}`, { limit: 3, windowS: 3600 });
   if (perMailbox.allowed) {
     after(() =>
-      (created ? sendAddressProof({ id: created.id, email: input.email, name: input.name }) : tellOwner(input.email)).catch((err) =>
-        console.error('[sign-up] mail not sent', err),
-      ),
+      (created
+        ? sendAddressProof({ id: created.id, email: input.email, name: input.name })
+        : tellOwner(input.email)
+      ).catch((err) => console.error('[sign-up] mail not sent', err)),
     );
   }
   return { email: input.email, next: 'confirm-address' };

@@ -60,7 +60,13 @@ export async function proveAddress(token: string, password: string) {
   if (!attempts.allowed) return null;
   const { sequelize } = getDb();
   return sequelize.transaction(async (transaction) => {
-    const [row] = await sequelize.query<{ proofId: string; id: string; email: string; name: string | null; passwordHash: string | null }>(
+    const [row] = await sequelize.query<{
+      proofId: string;
+      id: string;
+      email: string;
+      name: string | null;
+      passwordHash: string | null;
+    }>(
       `select p.id as "proofId", u.id, u.email, u.name, u.password_hash as "passwordHash"
          from address_proofs p join users u on u.id = p.user_id
         where p.token_hash = :tokenHash and p.used_at is null and p.expires_at > now() and u.email = p.email and u.suspended_at is null
@@ -68,8 +74,14 @@ export async function proveAddress(token: string, password: string) {
       { replacements: { tokenHash }, type: QueryTypes.SELECT, transaction },
     );
     if (!row || !(await verifyPassword(password, row.passwordHash)).isMatch) return null;
-    await sequelize.query(`update address_proofs set used_at = now() where id = :id`, { replacements: { id: row.proofId }, transaction });
-    await sequelize.query(`update users set email_verified = coalesce(email_verified, now()) where id = :id`, { replacements: { id: row.id }, transaction });
+    await sequelize.query(`update address_proofs set used_at = now() where id = :id`, {
+      replacements: { id: row.proofId },
+      transaction,
+    });
+    await sequelize.query(`update users set email_verified = coalesce(email_verified, now()) where id = :id`, {
+      replacements: { id: row.id },
+      transaction,
+    });
     return { id: row.id, email: row.email, name: row.name };
   });
 }
@@ -79,7 +91,12 @@ export async function resendAddressProof(actor: Actor | null) {
   assertCan(actor, 'account.view');
   if (actor.isAddressProven) throw new AppError('already_proven', 409, 'Your address is already confirmed.');
   const throttle = await recordAttempt(`proof-resend:${actor.id}`, { limit: RESENDS_PER_HOUR, windowS: 3600 });
-  if (!throttle.allowed) throw new AppError('too_many_requests', 429, `We have sent several links in the last hour: wait ${Math.ceil(throttle.retryAfterS / 60)} minutes, and check your spam folder.`);
+  if (!throttle.allowed)
+    throw new AppError(
+      'too_many_requests',
+      429,
+      `We have sent several links in the last hour: wait ${Math.ceil(throttle.retryAfterS / 60)} minutes, and check your spam folder.`,
+    );
   await sendAddressProof({ id: actor.id, email: actor.email, name: actor.name });
   return { email: actor.email };
 }
@@ -87,6 +104,10 @@ export async function resendAddressProof(actor: Actor | null) {
 /** Fees and staff roles need a proven address. */
 export function assertAddressProven(actor: Actor) {
   if (!actor.isAddressProven) {
-    throw new AppError('address_unproven', 403, 'Confirm your e-mail address first: follow the link we sent you (My account sends a new one).');
+    throw new AppError(
+      'address_unproven',
+      403,
+      'Confirm your e-mail address first: follow the link we sent you (My account sends a new one).',
+    );
   }
 }

@@ -7,7 +7,8 @@ import { toPersonView, type PersonView } from './person-view';
 export async function listPeople(actor: Actor | null): Promise<PersonView[]> {
   assertCan(actor, 'admin.manage_users');
   const users = await getDb().models.User.findAll({
-    order: [['createdAt', 'ASC']], attributes: ['id', 'name', 'email', 'isAdmin', 'createdAt', 'suspendedAt', 'suspendedReason'],
+    order: [['createdAt', 'ASC']],
+    attributes: ['id', 'name', 'email', 'isAdmin', 'createdAt', 'suspendedAt', 'suspendedReason'],
   });
   return users.map(toPersonView);
 }

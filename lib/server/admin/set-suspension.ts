@@ -23,9 +23,11 @@ export async function suspendPerson(actor: Actor | null, userId: string, raw: un
   assertCan(actor, 'admin.manage_users');
   const id = parseId(userId, 'person');
   const { reason } = SuspendPersonInput.parse(raw);
-  if (id === actor.id) throw new AppError('own_account', 409, 'You cannot suspend your own account: ask another administrator.');
+  if (id === actor.id)
+    throw new AppError('own_account', 409, 'You cannot suspend your own account: ask another administrator.');
   const user = await findPerson(id);
-  if (user.suspendedAt) throw new AppError('already_suspended', 409, `${user.name ?? user.email} is already suspended.`);
+  if (user.suspendedAt)
+    throw new AppError('already_suspended', 409, `${user.name ?? user.email} is already suspended.`);
   await user.update({ suspendedAt: new Date(), suspendedReason: reason, suspendedById: actor.id });
   // Sessions end for good: lifting the suspension later does not bring them back.
   await endAllSessions(user.id);

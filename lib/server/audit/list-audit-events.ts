@@ -4,7 +4,13 @@ import { getDb } from '@/lib/server/db';
 import { assertCan, can, type Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
 import { AUDIT_CURSOR as CURSOR, AuditQuery } from '@/lib/core/inputs/audit';
-import { describeAuditEvent, sentenceText, type AuditContext, type AuditRefs, type Segment } from '../../core/audit/describe-audit-event';
+import {
+  describeAuditEvent,
+  sentenceText,
+  type AuditContext,
+  type AuditRefs,
+  type Segment,
+} from '../../core/audit/describe-audit-event';
 
 export type AuditEventView = {
   id: string; // a cursor key: 'a:<audit id>' for lines of audit_events, '<letter>:<uuid>' for lines read from their own tables
@@ -104,10 +110,24 @@ select at, key, kind, action, actor_name as "actorName", subject_id as "subjectI
  order by floor(extract(epoch from at) * 1000000)::bigint desc, key desc
  limit :limit`;
 
-type TrailRow = { at: Date; key: string; kind: string; action: string; actorName: string | null; subjectId: string; details: Record<string, unknown>; refs: AuditRefs; atMicros: string };
+type TrailRow = {
+  at: Date;
+  key: string;
+  kind: string;
+  action: string;
+  actorName: string | null;
+  subjectId: string;
+  details: Record<string, unknown>;
+  refs: AuditRefs;
+  atMicros: string;
+};
 
 /** A meeting's audit trail, newest first, for those with 'audit.read' at that meeting. Read-only. */
-export async function listAuditEvents(actor: Actor | null, eventId: string, raw: unknown = {}): Promise<{ items: AuditEventView[]; nextBefore: string | null; timeZone: string; currency: string }> {
+export async function listAuditEvents(
+  actor: Actor | null,
+  eventId: string,
+  raw: unknown = {},
+): Promise<{ items: AuditEventView[]; nextBefore: string | null; timeZone: string; currency: string }> {
   assertCan(actor, 'audit.read', { eventId });
   const q = AuditQuery.parse(raw);
   const { sequelize, models } = getDb();
@@ -116,22 +136,61 @@ export async function listAuditEvents(actor: Actor | null, eventId: string, raw:
   const kind = q.kind ?? (q.subjectType === 'entry' ? 'entry' : q.subjectType) ?? null;
   const cursor = q.before ? CURSOR.exec(q.before) : null;
   const rows = await sequelize.query<TrailRow>(TRAIL_SQL, {
-    replacements: { eventId, kind, subjectId: q.subjectId ?? null, beforeMicros: cursor?.[1] ?? null, beforeKey: cursor?.[2] ?? null, limit: q.limit + 1 },
+    replacements: {
+      eventId,
+      kind,
+      subjectId: q.subjectId ?? null,
+      beforeMicros: cursor?.[1] ?? null,
+      beforeKey: cursor?.[2] ?? null,
+      limit: q.limit + 1,
+    },
     type: QueryTypes.SELECT,
   });
   const ctx: AuditContext = {
-    eventId, timeZone: event.timeZone, currency: event.currency,
+    eventId,
+    timeZone: event.timeZone,
+    currency: event.currency,
     can: {
-      protests: can(actor, 'protest.view_all', { eventId }), entries: can(actor, 'entry.view_all', { eventId }),
-      board: can(actor, 'inspection.board', { eventId }), classes: can(actor, 'class.edit', { eventId }), custody: can(actor, 'custody.view', { eventId }),
+      protests: can(actor, 'protest.view_all', { eventId }),
+      entries: can(actor, 'entry.view_all', { eventId }),
+      board: can(actor, 'inspection.board', { eventId }),
+      classes: can(actor, 'class.edit', { eventId }),
+      custody: can(actor, 'custody.view', { eventId }),
     },
   };
   const shown = rows.slice(0, q.limit);
   const items = shown.map((r) => {
     const at = new Date(r.at).toISOString();
-    const segments = describeAuditEvent({ at, kind: r.kind, action: r.action, actorName: r.actorName, subjectId: r.subjectId, details: r.details ?? {}, refs: r.refs ?? {} }, ctx);
-    return { id: r.key, at, actorName: r.actorName, kind: r.kind, subjectType: r.kind, subjectId: r.subjectId, action: r.action, details: r.details ?? {}, sentence: sentenceText(segments), segments };
+    const segments = describeAuditEvent(
+      {
+        at,
+        kind: r.kind,
+        action: r.action,
+        actorName: r.actorName,
+        subjectId: r.subjectId,
+        details: r.details ?? {},
+        refs: r.refs ?? {},
+      },
+      ctx,
+    );
+    return {
+      id: r.key,
+      at,
+      actorName: r.actorName,
+      kind: r.kind,
+      subjectType: r.kind,
+      subjectId: r.subjectId,
+      action: r.action,
+      details: r.details ?? {},
+      sentence: sentenceText(segments),
+      segments,
+    };
   });
   const last = shown[shown.length - 1];
-  return { items, nextBefore: rows.length > q.limit && last ? `${last.atMicros}~${last.key}` : null, timeZone: event.timeZone, currency: event.currency };
+  return {
+    items,
+    nextBefore: rows.length > q.limit && last ? `${last.atMicros}~${last.key}` : null,
+    timeZone: event.timeZone,
+    currency: event.currency,
+  };
 }

@@ -19,7 +19,14 @@ export type AuditInput = {
  */
 export async function recordAuditEvent(input: AuditInput, transaction?: Transaction): Promise<void> {
   await getDb().models.AuditEvent.create(
-    { eventId: input.eventId, actorId: input.actorId, subjectType: input.subjectType, subjectId: input.subjectId, action: input.action, details: input.details ?? {} },
+    {
+      eventId: input.eventId,
+      actorId: input.actorId,
+      subjectType: input.subjectType,
+      subjectId: input.subjectId,
+      action: input.action,
+      details: input.details ?? {},
+    },
     { transaction },
   );
 }

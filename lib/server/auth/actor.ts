@@ -24,7 +24,13 @@ export async function loadActor(userId: string, sessionVersion: number): Promise
   // session issued under an earlier session version is over (lib/server/auth/sessions.ts), so sign-out,
   // a password change or a suspension stop every open session at once.
   const [row] = await getDb().sequelize.query<{
-    id: string; email: string; name: string | null; isAdmin: boolean; isAddressProven: boolean; staff: { eventId: string; role: Role }[]; organiserOf: string[];
+    id: string;
+    email: string;
+    name: string | null;
+    isAdmin: boolean;
+    isAddressProven: boolean;
+    staff: { eventId: string; role: Role }[];
+    organiserOf: string[];
   }>(
     `select u.id, u.email, u.name, u.is_admin as "isAdmin", u.email_verified is not null as "isAddressProven",
             coalesce((select json_agg(json_build_object('eventId', s.event_id, 'role', s.role)) from event_staff s where s.user_id = u.id), '[]') as staff,
@@ -35,7 +41,15 @@ export async function loadActor(userId: string, sessionVersion: number): Promise
   if (!row) return null;
   const eventRoles: Record<string, Role[]> = {};
   for (const s of row.staff) (eventRoles[s.eventId] ??= []).push(s.role);
-  return { id: row.id, email: row.email, name: row.name, isAdmin: row.isAdmin, isAddressProven: row.isAddressProven, eventRoles, organiserOf: row.organiserOf };
+  return {
+    id: row.id,
+    email: row.email,
+    name: row.name,
+    isAdmin: row.isAdmin,
+    isAddressProven: row.isAddressProven,
+    eventRoles,
+    organiserOf: row.organiserOf,
+  };
 }
 
 /**
@@ -73,11 +87,19 @@ export function allRolesOf(actor: Actor): Role[] {
   return [...set];
 }
 
-export function can(actor: Actor | null, permission: Permission, scope: { eventId?: string; organisationId?: string } = {}) {
+export function can(
+  actor: Actor | null,
+  permission: Permission,
+  scope: { eventId?: string; organisationId?: string } = {},
+) {
   return !!actor && rolesCan(rolesOf(actor, scope), permission);
 }
 
-export function assertCan(actor: Actor | null, permission: Permission, scope: { eventId?: string; organisationId?: string } = {}): asserts actor is Actor {
+export function assertCan(
+  actor: Actor | null,
+  permission: Permission,
+  scope: { eventId?: string; organisationId?: string } = {},
+): asserts actor is Actor {
   if (!actor) throw new AppError('unauthenticated', 401, 'Sign in to do this.');
   if (!can(actor, permission, scope)) throw new AppError('forbidden', 403, 'You are not allowed to do this.');
 }

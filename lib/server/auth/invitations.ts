@@ -47,7 +47,12 @@ export async function inviteStaff(actor: Actor | null, eventId: string, raw: unk
       outro: `The link expires in ${INVITATION_DAYS} days.`,
     }),
   );
-  return { id: invitation.id, email: invitation.email, role: invitation.role, expiresAt: invitation.expiresAt.toISOString() };
+  return {
+    id: invitation.id,
+    email: invitation.email,
+    role: invitation.role,
+    expiresAt: invitation.expiresAt.toISOString(),
+  };
 }
 
 /** Looks an invitation up by its token without using it (for the acceptance page). */

@@ -70,11 +70,17 @@ export function getAuthOptions(): NextAuthOptions {
         maxAge: 30 * 60,
         async sendVerificationRequest({ identifier, url }) {
           // Past the limit nothing is sent, and the answer stays the same (no hint to a stranger).
-          const perAddress = await recordAttempt(`link:${identifier.toLowerCase()}`, { limit: LINKS_PER_ADDRESS_PER_HOUR, windowS: 3600 });
+          const perAddress = await recordAttempt(`link:${identifier.toLowerCase()}`, {
+            limit: LINKS_PER_ADDRESS_PER_HOUR,
+            windowS: 3600,
+          });
           if (!perAddress.allowed) return;
           // A suspended account gets no link; the answer is the same as for anyone (the refusal
           // itself happens where a link is used, in the signIn callback).
-          const target = await models.User.findOne({ where: { email: identifier.toLowerCase() }, attributes: ['suspendedAt'] });
+          const target = await models.User.findOne({
+            where: { email: identifier.toLowerCase() },
+            attributes: ['suspendedAt'],
+          });
           if (target?.suspendedAt) return;
           await sendMail(
             linkMail({
@@ -102,7 +108,10 @@ export function getAuthOptions(): NextAuthOptions {
         if (!user?.email) return true;
         // Asking for an e-mailed link proves nothing yet: the same answer for every address.
         if (email?.verificationRequest) return true;
-        const found = await models.User.findOne({ where: { email: user.email.toLowerCase() }, attributes: ['suspendedAt'] });
+        const found = await models.User.findOne({
+          where: { email: user.email.toLowerCase() },
+          attributes: ['suspendedAt'],
+        });
         // Absolute: next-auth's client reads the error with new URL(), which needs one.
         if (found?.suspendedAt) return new URL('/sign-in?error=AccountSuspended', appUrl()).toString();
         // Following an e-mailed link proves the mailbox. On an account whose address was never
@@ -125,7 +134,10 @@ export function getAuthOptions(): NextAuthOptions {
           // next-auth then answers an empty session and clears the cookie.
           const [live] = await sequelize.query(
             'select 1 from users where id = :id and session_version = :sv and suspended_at is null',
-            { replacements: { id: token.uid, sv: typeof token.sv === 'number' ? token.sv : 0 }, type: QueryTypes.SELECT },
+            {
+              replacements: { id: token.uid, sv: typeof token.sv === 'number' ? token.sv : 0 },
+              type: QueryTypes.SELECT,
+            },
           );
           if (!live) throw new Error('SessionEnded');
         }

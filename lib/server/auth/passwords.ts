@@ -13,7 +13,9 @@ const SALT_BYTES = 16;
 
 function scrypt(password: string, salt: Buffer, params: { N: number; r: number; p: number }): Promise<Buffer> {
   const options: ScryptOptions = { ...params, maxmem: 256 * params.N * params.r + 1024 * 1024 };
-  return new Promise((resolve, reject) => scryptCb(password.normalize('NFKC'), salt, KEY_BYTES, options, (err, key) => (err ? reject(err) : resolve(key))));
+  return new Promise((resolve, reject) =>
+    scryptCb(password.normalize('NFKC'), salt, KEY_BYTES, options, (err, key) => (err ? reject(err) : resolve(key))),
+  );
 }
 
 export async function hashPassword(password: string): Promise<string> {
@@ -31,7 +33,8 @@ export async function verifyPassword(password: string, stored: string | null | u
   const parts = stored.split('$');
   if (parts.length !== 6 || parts[0] !== 'scrypt') return { isMatch: false, needsRehash: false };
   const [N, r, p] = parts.slice(1, 4).map(Number);
-  if (![N, r, p].every((n) => Number.isInteger(n) && n > 0) || N > 2 ** 20) return { isMatch: false, needsRehash: false };
+  if (![N, r, p].every((n) => Number.isInteger(n) && n > 0) || N > 2 ** 20)
+    return { isMatch: false, needsRehash: false };
   const expected = Buffer.from(parts[5], 'base64url');
   const actual = await scrypt(password, Buffer.from(parts[4], 'base64url'), { N, r, p });
   const isMatch = expected.length === actual.length && timingSafeEqual(expected, actual);

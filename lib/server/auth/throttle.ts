@@ -15,7 +15,9 @@ function purgeExpiredSometimes() {
   if (now - lastPurgeMs < purgeIntervalMs()) return;
   lastPurgeMs = now;
   void getDb()
-    .sequelize.query(`delete from auth_throttles where ctid in (select ctid from auth_throttles where expires_at < now() limit 10000)`)
+    .sequelize.query(
+      `delete from auth_throttles where ctid in (select ctid from auth_throttles where expires_at < now() limit 10000)`,
+    )
     .catch(() => undefined);
 }
 
@@ -38,15 +40,20 @@ export async function recordAttempt(key: string, opts: { limit: number; windowS:
 /** Counts one attempt against each key (a failed sign-in counts for the pair, the address and the account). */
 export async function recordAttempts(limits: Limit[]) {
   purgeExpiredSometimes();
-  await Promise.all(limits.map((l) => getDb().sequelize.query(UPSERT, { replacements: { key: l.key, windowS: l.windowS } })));
+  await Promise.all(
+    limits.map((l) => getDb().sequelize.query(UPSERT, { replacements: { key: l.key, windowS: l.windowS } })),
+  );
 }
 
 /** True when any key has already reached its limit in its current window (nothing is counted). */
 export async function isOverAnyLimit(limits: Limit[]): Promise<boolean> {
   if (limits.length === 0) return false;
-  const [rows] = await getDb().sequelize.query(`select key, attempts from auth_throttles where key in (:keys) and expires_at > now()`, {
-    replacements: { keys: limits.map((l) => l.key) },
-  });
+  const [rows] = await getDb().sequelize.query(
+    `select key, attempts from auth_throttles where key in (:keys) and expires_at > now()`,
+    {
+      replacements: { keys: limits.map((l) => l.key) },
+    },
+  );
   const seen = new Map((rows as { key: string; attempts: number }[]).map((r) => [r.key, r.attempts]));
   return limits.some((l) => (seen.get(l.key) ?? 0) >= l.limit);
 }

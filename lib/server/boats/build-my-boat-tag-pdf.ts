@@ -4,7 +4,10 @@ import { buildSingleTagPdf } from '@/lib/core/tags/tag-sheet';
 import { getMyBoat } from './get-my-boat';
 
 /** One printable tag for the owner's boat: the current token, with the next live entry's number and class. */
-export async function buildMyBoatTagPdf(actor: Actor | null, boatId: string): Promise<{ pdf: Uint8Array; fileName: string }> {
+export async function buildMyBoatTagPdf(
+  actor: Actor | null,
+  boatId: string,
+): Promise<{ pdf: Uint8Array; fileName: string }> {
   assertCan(actor, 'boat.manage_own');
   const { boat, tag, entries } = await getMyBoat(actor, boatId);
   const next = entries[0];
@@ -14,6 +17,10 @@ export async function buildMyBoatTagPdf(actor: Actor | null, boatId: string): Pr
     boatName: boat.name,
     className: next ? `${next.classCode} ${next.className}` : '',
   });
-  const slug = boat.name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'boat';
+  const slug =
+    boat.name
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, '-')
+      .replace(/^-|-$/g, '') || 'boat';
   return { pdf, fileName: `${slug}-tag.pdf` };
 }

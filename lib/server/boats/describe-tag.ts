@@ -4,7 +4,12 @@ import { getDb } from '@/lib/server/db';
 import { lookUpTag } from '@/lib/server/tags/tokens';
 
 export type TagDescription =
-  | { state: 'current'; boatName: string; hullNumber: string; upcoming: { eventName: string; venue: string; startsOn: string; className: string; raceNumber: number }[] }
+  | {
+      state: 'current';
+      boatName: string;
+      hullNumber: string;
+      upcoming: { eventName: string; venue: string; startsOn: string; className: string; raceNumber: number }[];
+    }
   | { state: 'retired'; boatName: string; retiredAt: string }
   | { state: 'unknown' };
 
@@ -18,8 +23,15 @@ export async function describeTag(token: string): Promise<TagDescription> {
   const { models, sequelize } = getDb();
   const boat = await models.Boat.findByPk(found.boatId, { attributes: ['id', 'name', 'hullNumber'] });
   if (!boat) return { state: 'unknown' };
-  if (found.state === 'retired') return { state: 'retired', boatName: boat.name, retiredAt: found.retiredAt.toISOString() };
-  const upcoming = await sequelize.query<{ eventName: string; venue: string; startsOn: string | Date; className: string; raceNumber: number }>(
+  if (found.state === 'retired')
+    return { state: 'retired', boatName: boat.name, retiredAt: found.retiredAt.toISOString() };
+  const upcoming = await sequelize.query<{
+    eventName: string;
+    venue: string;
+    startsOn: string | Date;
+    className: string;
+    raceNumber: number;
+  }>(
     `select ev.name as "eventName", ev.venue, ev.starts_on as "startsOn", c.name as "className", e.race_number as "raceNumber"
        from entries e join events ev on ev.id = e.event_id join race_classes c on c.id = e.class_id
       where e.boat_id = :boatId and e.status in ('awaiting_payment', 'entered') and ev.ends_on >= current_date
@@ -30,6 +42,9 @@ export async function describeTag(token: string): Promise<TagDescription> {
     state: 'current',
     boatName: boat.name,
     hullNumber: boat.hullNumber,
-    upcoming: upcoming.map((u) => ({ ...u, startsOn: typeof u.startsOn === 'string' ? u.startsOn : u.startsOn.toISOString().slice(0, 10) })),
+    upcoming: upcoming.map((u) => ({
+      ...u,
+      startsOn: typeof u.startsOn === 'string' ? u.startsOn : u.startsOn.toISOString().slice(0, 10),
+    })),
   };
 }

@@ -8,7 +8,13 @@ import { AppError } from '@/lib/core/errors';
 import { parseId } from '@/lib/server/http/ids';
 import { getObjectBytes } from '@/lib/server/storage/objects';
 
-export type DocumentDownload = { fileName: string; contentType: string; sizeBytes: number; sha256: string; bytes: Uint8Array };
+export type DocumentDownload = {
+  fileName: string;
+  contentType: string;
+  sizeBytes: number;
+  sha256: string;
+  bytes: Uint8Array;
+};
 
 const notFound = () => new AppError('not_found', 404, 'No such document.');
 
@@ -27,14 +33,23 @@ export async function getDocumentForDownload(actor: Actor | null, documentId: st
   const staffEventIds = Object.entries(actor.eventRoles)
     .filter(([, roles]) => rolesCan(roles as Role[], 'entry.view_all'))
     .map(([eventId]) => eventId);
-  const rows = await getDb().sequelize.query<{ objectKey: string; fileName: string; contentType: string; sizeBytes: string; sha256: string }>(
+  const rows = await getDb().sequelize.query<{
+    objectKey: string;
+    fileName: string;
+    contentType: string;
+    sizeBytes: string;
+    sha256: string;
+  }>(
     `select d.object_key as "objectKey", d.file_name as "fileName", d.content_type as "contentType",
             d.size_bytes as "sizeBytes", d.sha256
        from boat_documents d join boats b on b.id = d.boat_id
       where d.id = :id
         and (b.owner_id = :uid
              or exists (select 1 from entries e where e.boat_id = b.id and e.event_id = any(array[:events]::uuid[])))`,
-    { replacements: { id, uid: actor.id, events: staffEventIds.length ? staffEventIds : [null] }, type: QueryTypes.SELECT },
+    {
+      replacements: { id, uid: actor.id, events: staffEventIds.length ? staffEventIds : [null] },
+      type: QueryTypes.SELECT,
+    },
   );
   const doc = rows[0];
   if (!doc) throw notFound();
@@ -42,7 +57,17 @@ export async function getDocumentForDownload(actor: Actor | null, documentId: st
   // Hash-checked on the way out: a changed object is never served as the uploaded document.
   if (createHash('sha256').update(bytes).digest('hex') !== doc.sha256) {
     console.error('[boreline] boat document hash mismatch', id);
-    throw new AppError('integrity_failed', 500, 'This document no longer matches what was uploaded; tell the organiser.');
+    throw new AppError(
+      'integrity_failed',
+      500,
+      'This document no longer matches what was uploaded; tell the organiser.',
+    );
   }
-  return { fileName: doc.fileName, contentType: doc.contentType, sizeBytes: Number(doc.sizeBytes), sha256: doc.sha256, bytes };
+  return {
+    fileName: doc.fileName,
+    contentType: doc.contentType,
+    sizeBytes: Number(doc.sizeBytes),
+    sha256: doc.sha256,
+    bytes,
+  };
 }

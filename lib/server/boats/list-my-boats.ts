@@ -6,6 +6,12 @@ import { toBoatView, type BoatView } from './boat-view';
 /** The actor's boats, by name. */
 export async function listMyBoats(actor: Actor | null): Promise<BoatView[]> {
   assertCan(actor, 'boat.manage_own');
-  const boats = await getDb().models.Boat.findAll({ where: { ownerId: actor.id }, order: [['name', 'ASC'], ['createdAt', 'ASC']] });
+  const boats = await getDb().models.Boat.findAll({
+    where: { ownerId: actor.id },
+    order: [
+      ['name', 'ASC'],
+      ['createdAt', 'ASC'],
+    ],
+  });
   return boats.map(toBoatView);
 }

@@ -13,11 +13,20 @@ export type DocumentUpload = { bytes: Uint8Array; declaredName: string; kind: un
  * .pdf is refused with 415) and the size capped (413), both before anything is stored. The bytes
  * go to object storage first, so a database row never points at a missing object.
  */
-export async function uploadBoatDocument(actor: Actor | null, boatId: string, upload: DocumentUpload): Promise<BoatDocumentView> {
+export async function uploadBoatDocument(
+  actor: Actor | null,
+  boatId: string,
+  upload: DocumentUpload,
+): Promise<BoatDocumentView> {
   assertCan(actor, 'boat.manage_own');
   const boat = await findOwnBoat(actor, boatId);
   const { kind } = UploadDocumentFields.parse({ kind: upload.kind });
-  const file = await inspectUpload({ bytes: upload.bytes, declaredName: upload.declaredName, allowed: DOCUMENT_TYPES, maxBytes: BOAT_DOCUMENT_MAX_BYTES });
+  const file = await inspectUpload({
+    bytes: upload.bytes,
+    declaredName: upload.declaredName,
+    allowed: DOCUMENT_TYPES,
+    maxBytes: BOAT_DOCUMENT_MAX_BYTES,
+  });
   const objectKey = newObjectKey('boat-documents');
   await putObject({
     key: objectKey,

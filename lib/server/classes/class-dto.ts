@@ -13,7 +13,14 @@ export type RuleVersionDto = {
   publishedAt: string | null;
 };
 
-export type ClassDto = { id: string; eventId: string; name: string; code: string; description: string; copiedFromId: string | null };
+export type ClassDto = {
+  id: string;
+  eventId: string;
+  name: string;
+  code: string;
+  description: string;
+  copiedFromId: string | null;
+};
 
 export const toRuleVersionDto = (v: ClassRuleVersion): RuleVersionDto => ({
   id: v.id,

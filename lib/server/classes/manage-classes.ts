@@ -17,9 +17,14 @@ export async function createClass(actor: Actor | null, eventId: string, raw: unk
     const source = await models.RaceClass.findByPk(input.copyFromClassId);
     // Copy only from a class whose event this person also organises.
     if (!source || !can(actor, 'class.edit', { eventId: source.eventId })) {
-      throw new AppError('not_found', 404, 'No class to copy from that you organise.', [{ field: 'copyFromClassId', message: 'Choose a class from a meeting you organise.' }]);
+      throw new AppError('not_found', 404, 'No class to copy from that you organise.', [
+        { field: 'copyFromClassId', message: 'Choose a class from a meeting you organise.' },
+      ]);
     }
-    const latest = await models.ClassRuleVersion.findOne({ where: { classId: source.id }, order: [['version', 'DESC']] });
+    const latest = await models.ClassRuleVersion.findOne({
+      where: { classId: source.id },
+      order: [['version', 'DESC']],
+    });
     if (latest) rules = latest.rules;
     description ||= source.description;
   }
@@ -37,13 +42,19 @@ export async function createClass(actor: Actor | null, eventId: string, raw: unk
     });
   } catch (err) {
     if (err instanceof UniqueConstraintError) {
-      throw new AppError('conflict', 409, 'This meeting already has a class with that code.', [{ field: 'code', message: 'This meeting already has a class with that code.' }]);
+      throw new AppError('conflict', 409, 'This meeting already has a class with that code.', [
+        { field: 'code', message: 'This meeting already has a class with that code.' },
+      ]);
     }
     throw err;
   }
 }
 
-export type ClassSummary = ClassDto & { latestVersion: number; latestStatus: 'draft' | 'published'; publishedVersion: number | null };
+export type ClassSummary = ClassDto & {
+  latestVersion: number;
+  latestStatus: 'draft' | 'published';
+  publishedVersion: number | null;
+};
 
 /** Classes of an event with their newest version's state (for the organiser). */
 export async function listEventClasses(actor: Actor | null, eventId: string): Promise<ClassSummary[]> {
@@ -75,15 +86,28 @@ export async function listCopyableClasses(actor: Actor, exceptEventId: string) {
     .map(([id]) => id);
   if (eventIds.length === 0) return [];
   const { models } = getDb();
-  const classes = await models.RaceClass.findAll({ where: { eventId: { [Op.in]: eventIds } }, include: [{ model: models.Event, attributes: ['name'] }] });
-  return classes.map((c) => ({ id: c.id, label: `${(c as unknown as { event: { name: string } }).event.name} — ${c.code} ${c.name}` }));
+  const classes = await models.RaceClass.findAll({
+    where: { eventId: { [Op.in]: eventIds } },
+    include: [{ model: models.Event, attributes: ['name'] }],
+  });
+  return classes.map((c) => ({
+    id: c.id,
+    label: `${(c as unknown as { event: { name: string } }).event.name} — ${c.code} ${c.name}`,
+  }));
 }
 
 /** One class with every version of its rules, newest first. */
-export async function getClassWithVersions(actor: Actor | null, eventId: string, classId: string): Promise<{ raceClass: ClassDto; versions: RuleVersionDto[]; timeZone: string }> {
+export async function getClassWithVersions(
+  actor: Actor | null,
+  eventId: string,
+  classId: string,
+): Promise<{ raceClass: ClassDto; versions: RuleVersionDto[]; timeZone: string }> {
   assertCan(actor, 'class.edit', { eventId });
   const { models } = getDb();
-  const c = await models.RaceClass.findOne({ where: { id: classId, eventId }, include: [{ model: models.Event, attributes: ['timeZone'] }] });
+  const c = await models.RaceClass.findOne({
+    where: { id: classId, eventId },
+    include: [{ model: models.Event, attributes: ['timeZone'] }],
+  });
   if (!c) throw new AppError('not_found', 404, 'No such class at this meeting.');
   const versions = await models.ClassRuleVersion.findAll({ where: { classId }, order: [['version', 'DESC']] });
   const timeZone = (c as unknown as { event?: { timeZone: string } }).event?.timeZone ?? 'UTC';

@@ -18,18 +18,31 @@ async function findClass(eventId: string, classId: string) {
  * Saves the class's draft rules. Published versions are frozen, so editing after publication
  * opens a new draft version (the previous number + 1) and leaves the old one untouched.
  */
-export async function saveDraftRules(actor: Actor | null, eventId: string, classId: string, raw: unknown): Promise<RuleVersionDto> {
+export async function saveDraftRules(
+  actor: Actor | null,
+  eventId: string,
+  classId: string,
+  raw: unknown,
+): Promise<RuleVersionDto> {
   assertCan(actor, 'class.edit', { eventId });
   const rules = ClassRulesForm.parse(raw);
   await findClass(eventId, classId);
   const { sequelize, models } = getDb();
   return sequelize.transaction(async (transaction) => {
-    const latest = await models.ClassRuleVersion.findOne({ where: { classId }, order: [['version', 'DESC']], lock: transaction.LOCK.UPDATE, transaction });
+    const latest = await models.ClassRuleVersion.findOne({
+      where: { classId },
+      order: [['version', 'DESC']],
+      lock: transaction.LOCK.UPDATE,
+      transaction,
+    });
     if (latest && latest.status === 'draft') {
       await latest.update({ rules }, { transaction });
       return toRuleVersionDto(latest);
     }
-    const draft = await models.ClassRuleVersion.create({ classId, version: (latest?.version ?? 0) + 1, rules }, { transaction });
+    const draft = await models.ClassRuleVersion.create(
+      { classId, version: (latest?.version ?? 0) + 1, rules },
+      { transaction },
+    );
     return toRuleVersionDto(draft);
   });
 }
@@ -45,9 +58,12 @@ function checkPublishable(draft: { version: number; rules: unknown; changeNote: 
     details.push({ field: 'rules', message: limitsNothingMessage(draft.version) });
   } else {
     const parsed = ClassRules.safeParse(draft.rules);
-    if (!parsed.success) for (const i of parsed.error.issues) details.push({ field: ['rules', ...i.path.map(String)].join('.'), message: i.message });
+    if (!parsed.success)
+      for (const i of parsed.error.issues)
+        details.push({ field: ['rules', ...i.path.map(String)].join('.'), message: i.message });
   }
-  if (draft.version >= 2 && !(changeNote || draft.changeNote).trim()) details.push({ field: 'changeNote', message: changeNoteRequiredMessage(draft.version) });
+  if (draft.version >= 2 && !(changeNote || draft.changeNote).trim())
+    details.push({ field: 'changeNote', message: changeNoteRequiredMessage(draft.version) });
   if (details.length === 0) return;
   const rulesIssue = details.find((d) => d.field.startsWith('rules'));
   // 422: the request is well formed but the draft it names cannot be published as it stands.
@@ -55,14 +71,23 @@ function checkPublishable(draft: { version: number; rules: unknown; changeNote: 
 }
 
 /** Publishes the draft: it becomes a frozen, numbered version in force from its effective time. */
-export async function publishRules(actor: Actor | null, eventId: string, classId: string, raw: unknown): Promise<RuleVersionDto> {
+export async function publishRules(
+  actor: Actor | null,
+  eventId: string,
+  classId: string,
+  raw: unknown,
+): Promise<RuleVersionDto> {
   assertCan(actor, 'class.edit', { eventId });
   const input = PublishRulesInput.parse(raw ?? {});
   const raceClass = await findClass(eventId, classId);
   const { sequelize, models } = getDb();
   const event = await models.Event.findByPk(raceClass.eventId, { attributes: ['timeZone'] });
   return sequelize.transaction(async (transaction) => {
-    const draft = await models.ClassRuleVersion.findOne({ where: { classId, status: 'draft' }, lock: transaction.LOCK.UPDATE, transaction });
+    const draft = await models.ClassRuleVersion.findOne({
+      where: { classId, status: 'draft' },
+      lock: transaction.LOCK.UPDATE,
+      transaction,
+    });
     if (!draft) throw new AppError('conflict', 409, 'There is no draft to publish: edit the rules first.');
     checkPublishable(draft, input.changeNote);
     const now = new Date();
@@ -74,11 +99,20 @@ export async function publishRules(actor: Actor | null, eventId: string, classId
     });
     if (previous?.effectiveFrom && effectiveFrom < previous.effectiveFrom) {
       throw new AppError('invalid_input', 400, 'A new version cannot take effect before the version it replaces.', [
-        { field: 'effectiveFrom', message: `Choose a time after ${formatTime(previous.effectiveFrom, event?.timeZone ?? 'UTC')} (version ${previous.version}).` },
+        {
+          field: 'effectiveFrom',
+          message: `Choose a time after ${formatTime(previous.effectiveFrom, event?.timeZone ?? 'UTC')} (version ${previous.version}).`,
+        },
       ]);
     }
     await draft.update(
-      { status: 'published', effectiveFrom, publishedAt: now, publishedById: actor.id, changeNote: input.changeNote || draft.changeNote },
+      {
+        status: 'published',
+        effectiveFrom,
+        publishedAt: now,
+        publishedById: actor.id,
+        changeNote: input.changeNote || draft.changeNote,
+      },
       { transaction },
     );
     return toRuleVersionDto(draft);
@@ -89,7 +123,10 @@ export async function publishRules(actor: Actor | null, eventId: string, classId
 export async function findRulesInForce(classId: string, at: Date = new Date()): Promise<RuleVersionDto | null> {
   const v = await getDb().models.ClassRuleVersion.findOne({
     where: { classId, status: 'published', effectiveFrom: { [Op.lte]: at } },
-    order: [['effectiveFrom', 'DESC'], ['version', 'DESC']],
+    order: [
+      ['effectiveFrom', 'DESC'],
+      ['version', 'DESC'],
+    ],
   });
   return v ? toRuleVersionDto(v) : null;
 }

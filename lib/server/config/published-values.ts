@@ -4,7 +4,13 @@
 // payment webhook check (lib/server/payments/stripe.ts).
 
 /** Every secret the app and the fakes use; each install generates its own into the ignored .env. */
-export const SECRET_NAMES = ['NEXTAUTH_SECRET', 'STRIPE_SECRET_KEY', 'STRIPE_WEBHOOK_SECRET', 'S3_ACCESS_KEY_ID', 'S3_SECRET_ACCESS_KEY'] as const;
+export const SECRET_NAMES = [
+  'NEXTAUTH_SECRET',
+  'STRIPE_SECRET_KEY',
+  'STRIPE_WEBHOOK_SECRET',
+  'S3_ACCESS_KEY_ID',
+  'S3_SECRET_ACCESS_KEY',
+] as const;
 export type SecretName = (typeof SECRET_NAMES)[number];
 
 /** What .env.example and scripts/test.sh held before secrets were generated per install. */

@@ -18,14 +18,28 @@ export async function listCustody(actor: Actor | null, eventId: string): Promise
  * The meeting's open protests a part can be kept for, worded for a list; empty for those who may
  * not see the meeting's protests (scrutineers take parts without naming one).
  */
-export async function listProtestsToKeepPartsFor(actor: Actor | null, eventId: string): Promise<{ id: string; label: string }[]> {
+export async function listProtestsToKeepPartsFor(
+  actor: Actor | null,
+  eventId: string,
+): Promise<{ id: string; label: string }[]> {
   if (!can(actor, 'protest.view_all', { eventId })) return [];
-  const protests = await getDb().models.Protest.findAll({ where: { eventId, status: [...OPEN_STATUSES] }, attributes: ['id', 'ruleReference', 'status'], order: [['createdAt', 'ASC']] });
-  return protests.map((p) => ({ id: p.id, label: `${p.ruleReference} (${PROTEST_STATUS_LABELS[p.status as ProtestStatus].toLowerCase()})` }));
+  const protests = await getDb().models.Protest.findAll({
+    where: { eventId, status: [...OPEN_STATUSES] },
+    attributes: ['id', 'ruleReference', 'status'],
+    order: [['createdAt', 'ASC']],
+  });
+  return protests.map((p) => ({
+    id: p.id,
+    label: `${p.ruleReference} (${PROTEST_STATUS_LABELS[p.status as ProtestStatus].toLowerCase()})`,
+  }));
 }
 
 /** Parts kept for one protest, for the meeting's officials who hear it. */
-export async function listCustodyForProtest(actor: Actor | null, eventId: string, protestId: string): Promise<CustodyItemView[]> {
+export async function listCustodyForProtest(
+  actor: Actor | null,
+  eventId: string,
+  protestId: string,
+): Promise<CustodyItemView[]> {
   assertCan(actor, 'custody.view', { eventId });
   return loadCustodyViews({ eventId, protestId: parseId(protestId, 'protest') });
 }
@@ -38,14 +52,22 @@ export async function takeIntoCustody(actor: Actor | null, eventId: string, raw:
   assertCan(actor, 'custody.take', { eventId });
   const input = TakeIntoCustodyInput.parse(raw);
   const { models } = getDb();
-  const entry = await models.Entry.findOne({ where: { eventId, raceNumber: input.raceNumber }, attributes: ['id', 'status'] });
+  const entry = await models.Entry.findOne({
+    where: { eventId, raceNumber: input.raceNumber },
+    attributes: ['id', 'status'],
+  });
   if (!entry) throw fieldError('raceNumber', `No boat has race number ${input.raceNumber} at this meeting.`);
   if (input.protestId) {
     const protest = await models.Protest.findOne({ where: { id: input.protestId, eventId }, attributes: ['id'] });
     if (!protest) throw fieldError('protestId', 'Choose a protest of this meeting.');
   }
   const item = await models.CustodyItem.create({
-    eventId, entryId: entry.id, protestId: input.protestId, description: input.description, sealNumber: input.sealNumber, takenById: actor.id,
+    eventId,
+    entryId: entry.id,
+    protestId: input.protestId,
+    description: input.description,
+    sealNumber: input.sealNumber,
+    takenById: actor.id,
   });
   return (await loadCustodyViews({ eventId, itemId: item.id }))[0];
 }
@@ -54,24 +76,44 @@ export async function takeIntoCustody(actor: Actor | null, eventId: string, raw:
  * The chief scrutineer or a steward releases a part, to whom and why. Refused while a protest it
  * is kept for is still open (parts are held pending protests: common practice), and only once.
  */
-export async function releaseFromCustody(actor: Actor | null, eventId: string, itemId: string, raw: unknown): Promise<CustodyItemView> {
+export async function releaseFromCustody(
+  actor: Actor | null,
+  eventId: string,
+  itemId: string,
+  raw: unknown,
+): Promise<CustodyItemView> {
   assertCan(actor, 'custody.release', { eventId });
   const id = parseId(itemId, 'item');
   const input = ReleaseFromCustodyInput.parse(raw);
   const { models, sequelize } = getDb();
   return sequelize.transaction(async (transaction) => {
-    const item = await models.CustodyItem.findOne({ where: { id, eventId }, transaction, lock: transaction.LOCK.UPDATE });
+    const item = await models.CustodyItem.findOne({
+      where: { id, eventId },
+      transaction,
+      lock: transaction.LOCK.UPDATE,
+    });
     if (!item) throw new AppError('not_found', 404, 'No such item in custody.');
     if (item.protestId) {
-      const protest = await models.Protest.findByPk(item.protestId, { attributes: ['status', 'ruleReference'], transaction });
+      const protest = await models.Protest.findByPk(item.protestId, {
+        attributes: ['status', 'ruleReference'],
+        transaction,
+      });
       if (protest && OPEN_STATUSES.includes(protest.status as ProtestStatus)) {
-        throw new AppError('protest_pending', 409, `This part is kept for the protest under ${protest.ruleReference}, which is not decided yet.`);
+        throw new AppError(
+          'protest_pending',
+          409,
+          `This part is kept for the protest under ${protest.ruleReference}, which is not decided yet.`,
+        );
       }
     }
     try {
-      await models.CustodyRelease.create({ itemId: item.id, releasedById: actor.id, releasedTo: input.releasedTo, note: input.note }, { transaction });
+      await models.CustodyRelease.create(
+        { itemId: item.id, releasedById: actor.id, releasedTo: input.releasedTo, note: input.note },
+        { transaction },
+      );
     } catch (err) {
-      if (err instanceof UniqueConstraintError) throw new AppError('already_released', 409, 'This part has already been released.');
+      if (err instanceof UniqueConstraintError)
+        throw new AppError('already_released', 409, 'This part has already been released.');
       throw err;
     }
     return (await loadCustodyViews({ eventId, itemId: item.id, transaction }))[0];

@@ -11,16 +11,27 @@ export async function cancelEntry(actor: Actor | null, eventId: string, entryId:
   assertCan(actor, 'entry.cancel', { eventId });
   const { reason } = CancelEntryInput.parse(raw);
   const { models } = getDb();
-  const entry = await models.Entry.findOne({ where: { id: entryId, eventId }, include: [{ model: models.User, as: 'entrant' }, { model: models.Boat }] });
+  const entry = await models.Entry.findOne({
+    where: { id: entryId, eventId },
+    include: [{ model: models.User, as: 'entrant' }, { model: models.Boat }],
+  });
   if (!entry) throw new AppError('not_found', 404, 'No such entry at this meeting.');
-  if (entry.status === 'cancelled' || entry.status === 'withdrawn') throw new AppError('conflict', 409, 'This entry is already cancelled or withdrawn.');
+  if (entry.status === 'cancelled' || entry.status === 'withdrawn')
+    throw new AppError('conflict', 409, 'This entry is already cancelled or withdrawn.');
   let refundId: string | null = null;
   if (entry.paidAt && entry.paymentIntentId && !entry.refundedAt) {
     // The idempotency key makes a retried cancellation refund once only.
-    const refund = await refundPayment({ paymentIntentId: entry.paymentIntentId, idempotencyKey: `entry-refund-${entry.id}` });
+    const refund = await refundPayment({
+      paymentIntentId: entry.paymentIntentId,
+      idempotencyKey: `entry-refund-${entry.id}`,
+    });
     refundId = refund.id;
   }
-  await entry.update({ status: 'cancelled', cancelledReason: reason, ...(refundId && { refundId, refundedAt: new Date() }) });
+  await entry.update({
+    status: 'cancelled',
+    cancelledReason: reason,
+    ...(refundId && { refundId, refundedAt: new Date() }),
+  });
   const entrant = (entry as unknown as { entrant: { email: string } }).entrant;
   const boat = (entry as unknown as { boat: { name: string } }).boat;
   await sendMail({

@@ -4,7 +4,14 @@ import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import type { ClassRules } from '@/lib/core/inputs/class-rules';
 
-export type OpenClass = { id: string; name: string; code: string; description: string; rulesVersion: number; rules: ClassRules };
+export type OpenClass = {
+  id: string;
+  name: string;
+  code: string;
+  description: string;
+  rulesVersion: number;
+  rules: ClassRules;
+};
 export type OpenEvent = {
   id: string;
   name: string;
@@ -25,7 +32,9 @@ const day = (v: string | Date) => (typeof v === 'string' ? v : v.toISOString().s
 export async function listOpenEvents(actor: Actor | null): Promise<OpenEvent[]> {
   assertCan(actor, 'entry.submit_own');
   const { sequelize } = getDb();
-  const events = await sequelize.query<Omit<OpenEvent, 'classes' | 'startsOn' | 'endsOn'> & { startsOn: string | Date; endsOn: string | Date }>(
+  const events = await sequelize.query<
+    Omit<OpenEvent, 'classes' | 'startsOn' | 'endsOn'> & { startsOn: string | Date; endsOn: string | Date }
+  >(
     `select id, name, venue, starts_on as "startsOn", ends_on as "endsOn", entry_fee_minor as "entryFeeMinor", currency
        from events where status = 'entries_open' order by starts_on, name`,
     { type: QueryTypes.SELECT },

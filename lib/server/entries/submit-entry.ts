@@ -39,7 +39,13 @@ export async function submitEntry(actor: Actor | null, raw: unknown): Promise<Su
   const input = SubmitEntryInput.parse(raw);
   assertCan(actor, 'entry.submit_own', { eventId: input.eventId });
   const { sequelize, models } = getDb();
-  let result: { entryId: string; requested: number | null; raceNumber: number; gotRequestedNumber: boolean; declarationCheck: DeclarationCheck };
+  let result: {
+    entryId: string;
+    requested: number | null;
+    raceNumber: number;
+    gotRequestedNumber: boolean;
+    declarationCheck: DeclarationCheck;
+  };
   try {
     result = await sequelize.transaction(async (transaction) => {
       const boat = await models.Boat.findOne({ where: { id: input.boatId, ownerId: actor.id }, transaction });
@@ -47,22 +53,51 @@ export async function submitEntry(actor: Actor | null, raw: unknown): Promise<Su
       const event = await models.Event.findByPk(input.eventId, { lock: transaction.LOCK.UPDATE, transaction });
       if (!event) throw new AppError('not_found', 404, 'No such meeting.');
       if (event.status !== 'entries_open') {
-        throw new AppError('entries_not_open', 409, `${event.name} is ${STATUS_WORDS[event.status] ?? 'not taking entries'}: no entry was made.`);
+        throw new AppError(
+          'entries_not_open',
+          409,
+          `${event.name} is ${STATUS_WORDS[event.status] ?? 'not taking entries'}: no entry was made.`,
+        );
       }
-      const raceClass = await models.RaceClass.findOne({ where: { id: input.classId, eventId: event.id }, transaction });
+      const raceClass = await models.RaceClass.findOne({
+        where: { id: input.classId, eventId: event.id },
+        transaction,
+      });
       if (!raceClass) throw new AppError('not_found', 404, 'No such class at this meeting.');
       const rules = await models.ClassRuleVersion.findOne({
         where: { classId: raceClass.id, status: 'published' },
-        order: [['effectiveFrom', 'DESC'], ['version', 'DESC']],
+        order: [
+          ['effectiveFrom', 'DESC'],
+          ['version', 'DESC'],
+        ],
         transaction,
       });
-      if (!rules) throw new AppError('no_published_rules', 409, `${raceClass.name} has no published rules yet, so it cannot be entered.`);
-      const live = await models.Entry.findOne({ where: { eventId: event.id, boatId: boat.id, status: ['awaiting_payment', 'entered'] }, transaction });
-      if (live) throw new AppError('already_entered', 409, `${boat.name} is already entered at ${event.name} (race number ${live.raceNumber}).`);
+      if (!rules)
+        throw new AppError(
+          'no_published_rules',
+          409,
+          `${raceClass.name} has no published rules yet, so it cannot be entered.`,
+        );
+      const live = await models.Entry.findOne({
+        where: { eventId: event.id, boatId: boat.id, status: ['awaiting_payment', 'entered'] },
+        transaction,
+      });
+      if (live)
+        throw new AppError(
+          'already_entered',
+          409,
+          `${boat.name} is already entered at ${event.name} (race number ${live.raceNumber}).`,
+        );
 
       const requested = input.requestedRaceNumber ?? numberFromHull(boat.hullNumber);
       const taken = async (n: number) =>
-        (await sequelize.query('select 1 from entries where event_id = :eventId and race_number = :n', { replacements: { eventId: event.id, n }, type: QueryTypes.SELECT, transaction })).length > 0;
+        (
+          await sequelize.query('select 1 from entries where event_id = :eventId and race_number = :n', {
+            replacements: { eventId: event.id, n },
+            type: QueryTypes.SELECT,
+            transaction,
+          })
+        ).length > 0;
       let raceNumber = requested != null && !(await taken(requested)) ? requested : null;
       const gotRequestedNumber = raceNumber != null;
       if (raceNumber == null) {
@@ -78,14 +113,29 @@ export async function submitEntry(actor: Actor | null, raw: unknown): Promise<Su
         raceNumber = free.n;
       }
       const entry = await models.Entry.create(
-        { eventId: event.id, classId: raceClass.id, boatId: boat.id, entrantId: actor.id, raceNumber, feeMinor: event.entryFeeMinor, currency: event.currency },
+        {
+          eventId: event.id,
+          classId: raceClass.id,
+          boatId: boat.id,
+          entrantId: actor.id,
+          raceNumber,
+          feeMinor: event.entryFeeMinor,
+          currency: event.currency,
+        },
         { transaction },
       );
-      return { entryId: entry.id, requested, raceNumber, gotRequestedNumber: requested != null && gotRequestedNumber, declarationCheck: checkDeclaration(boat, rules.rules) };
+      return {
+        entryId: entry.id,
+        requested,
+        raceNumber,
+        gotRequestedNumber: requested != null && gotRequestedNumber,
+        declarationCheck: checkDeclaration(boat, rules.rules),
+      };
     });
   } catch (err) {
     // Only reachable if the lock were bypassed: the unique indexes still refuse a double entry.
-    if (err instanceof UniqueConstraintError) throw new AppError('conflict', 409, 'This boat or race number was just taken at this meeting; try again.');
+    if (err instanceof UniqueConstraintError)
+      throw new AppError('conflict', 409, 'This boat or race number was just taken at this meeting; try again.');
     throw err;
   }
   const [entry] = await listMyEntries(actor, { entryId: result.entryId });
@@ -96,5 +146,11 @@ export async function submitEntry(actor: Actor | null, raw: unknown): Promise<Su
       : result.gotRequestedNumber
         ? `You have the number you asked for: ${raceNumber}.`
         : `Race number ${requested} is already taken at this meeting, so you have ${raceNumber}, the next free number${raceNumber < requested ? ' (none was free above it)' : ''}.`;
-  return { entry, requestedRaceNumber: requested, gotRequestedNumber: result.gotRequestedNumber, raceNumberNote, declarationCheck: result.declarationCheck };
+  return {
+    entry,
+    requestedRaceNumber: requested,
+    gotRequestedNumber: result.gotRequestedNumber,
+    raceNumberNote,
+    declarationCheck: result.declarationCheck,
+  };
 }

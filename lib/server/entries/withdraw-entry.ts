@@ -14,11 +14,20 @@ export async function withdrawEntry(actor: Actor | null, entryId: string): Promi
   const id = parseId(entryId, 'entry');
   const { sequelize, models } = getDb();
   await sequelize.transaction(async (transaction) => {
-    const entry = await models.Entry.findOne({ where: { id, entrantId: actor.id }, lock: transaction.LOCK.UPDATE, transaction });
+    const entry = await models.Entry.findOne({
+      where: { id, entrantId: actor.id },
+      lock: transaction.LOCK.UPDATE,
+      transaction,
+    });
     if (!entry) throw new AppError('not_found', 404, 'No such entry among yours.');
-    if (entry.status === 'withdrawn' || entry.status === 'cancelled') throw new AppError('conflict', 409, 'This entry is already withdrawn or cancelled.');
+    if (entry.status === 'withdrawn' || entry.status === 'cancelled')
+      throw new AppError('conflict', 409, 'This entry is already withdrawn or cancelled.');
     if (entry.paidAt || (entry.status === 'entered' && entry.feeMinor > 0)) {
-      throw new AppError('conflict', 409, 'This entry is paid: ask the organiser to cancel it, and they will arrange the refund.');
+      throw new AppError(
+        'conflict',
+        409,
+        'This entry is paid: ask the organiser to cancel it, and they will arrange the refund.',
+      );
     }
     await entry.update({ status: 'withdrawn' }, { transaction });
   });

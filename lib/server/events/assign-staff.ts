@@ -21,17 +21,32 @@ export async function assignStaff(actor: Actor | null, eventId: string, raw: unk
   const event = await models.Event.findByPk(eventId);
   if (!event) throw new AppError('not_found', 404, 'No such event.');
   const user = await models.User.findOne({ where: { email: input.email } });
-  if (!user?.emailVerified) return { outcome: 'invited' as const, invitation: await inviteStaff(actor, eventId, input) };
+  if (!user?.emailVerified)
+    return { outcome: 'invited' as const, invitation: await inviteStaff(actor, eventId, input) };
   const created = await getDb().sequelize.transaction(async (transaction) => {
     const [, isNew] = await models.EventStaff.findOrCreate({
       where: { eventId, userId: user.id, role: input.role },
       defaults: { eventId, userId: user.id, role: input.role },
       transaction,
     });
-    if (isNew) await recordAuditEvent({ eventId, actorId: actor.id, subjectType: 'staff', subjectId: user.id, action: 'staff.added', details: { role: input.role, email: user.email } }, transaction);
+    if (isNew)
+      await recordAuditEvent(
+        {
+          eventId,
+          actorId: actor.id,
+          subjectType: 'staff',
+          subjectId: user.id,
+          action: 'staff.added',
+          details: { role: input.role, email: user.email },
+        },
+        transaction,
+      );
     return isNew;
   });
-  if (!created) throw new AppError('conflict', 409, 'This person already has that role at this meeting.', [{ field: 'email', message: 'Already on the staff in that role.' }]);
+  if (!created)
+    throw new AppError('conflict', 409, 'This person already has that role at this meeting.', [
+      { field: 'email', message: 'Already on the staff in that role.' },
+    ]);
   const base = appUrl();
   await sendMail({
     to: user.email,

@@ -12,8 +12,12 @@ export type EventHeading = { id: string; name: string; venue: string; timeZone: 
  */
 export async function getEventHeading(actor: Actor, eventId: string): Promise<EventHeading | null> {
   if (!actor.eventRoles[eventId]?.length) throw new AppError('forbidden', 403, 'You are not allowed to do this.');
-  const event = await getDb().models.Event.findByPk(eventId, { attributes: ['id', 'name', 'venue', 'timeZone', 'currency'] });
-  return event && { id: event.id, name: event.name, venue: event.venue, timeZone: event.timeZone, currency: event.currency };
+  const event = await getDb().models.Event.findByPk(eventId, {
+    attributes: ['id', 'name', 'venue', 'timeZone', 'currency'],
+  });
+  return (
+    event && { id: event.id, name: event.name, venue: event.venue, timeZone: event.timeZone, currency: event.currency }
+  );
 }
 
 /** A meeting's time zone, for its public pages (published reports); UTC when the meeting is gone. */

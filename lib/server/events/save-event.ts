@@ -7,13 +7,19 @@ import { CreateEventInput, EventInput } from '@/lib/core/inputs/events';
 import { toEventDto } from './event-dto';
 
 const slugify = (name: string) =>
-  name.toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 60) || 'meeting';
+  name
+    .toLowerCase()
+    .normalize('NFKD')
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-|-$/g, '')
+    .slice(0, 60) || 'meeting';
 
 /** An organiser of a club creates a meeting and becomes its organiser. */
 export async function createEvent(actor: Actor | null, raw: unknown) {
   // Refuse people who organise nowhere before reading their input; then check the named club.
   if (!actor) throw new AppError('unauthenticated', 401, 'Sign in to do this.');
-  if (!actor.isAdmin && actor.organiserOf.length === 0) throw new AppError('forbidden', 403, 'You are not allowed to do this.');
+  if (!actor.isAdmin && actor.organiserOf.length === 0)
+    throw new AppError('forbidden', 403, 'You are not allowed to do this.');
   const input = CreateEventInput.parse(raw);
   assertCan(actor, 'event.create', { organisationId: input.organisationId });
   const { sequelize, models } = getDb();

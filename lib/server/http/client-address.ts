@@ -14,7 +14,10 @@ export { readTrustedProxyHops } from '../config/env';
 
 /** Capped in length so a forged header cannot bloat the counter's key. */
 export function getClientAddress(headers: Headers, hops = serverEnv().TRUSTED_PROXY_HOPS): string {
-  const chain = (headers.get('x-forwarded-for') ?? '').split(',').map((s) => s.trim()).filter(Boolean);
+  const chain = (headers.get('x-forwarded-for') ?? '')
+    .split(',')
+    .map((s) => s.trim())
+    .filter(Boolean);
   // chain[length - 1] is the app's own entry (the socket); each declared proxy moves one further left.
   const fromChain = chain.length ? chain[Math.max(0, chain.length - 1 - hops)] : '';
   return (fromChain || 'local').toLowerCase().slice(0, 64);

@@ -26,7 +26,9 @@ export function checkOrigin(req: Request) {
 }
 
 /** Wraps a public route handler: origin check and the one error shape. */
-export function publicHandler<P extends Params = Params>(fn: (req: NextRequest, ctx: { params: P }) => Promise<Response>) {
+export function publicHandler<P extends Params = Params>(
+  fn: (req: NextRequest, ctx: { params: P }) => Promise<Response>,
+) {
   return async (req: NextRequest, ctx: Ctx<P>) => {
     try {
       checkOrigin(req);
@@ -38,7 +40,9 @@ export function publicHandler<P extends Params = Params>(fn: (req: NextRequest, 
 }
 
 /** Wraps a signed-in route handler; the permission check runs with the scope the handler names. */
-export function actorHandler<P extends Params = Params>(fn: (req: NextRequest, ctx: { params: P; actor: Actor }) => Promise<Response>) {
+export function actorHandler<P extends Params = Params>(
+  fn: (req: NextRequest, ctx: { params: P; actor: Actor }) => Promise<Response>,
+) {
   return publicHandler<P>(async (req, { params }) => {
     const actor = await getActor();
     if (!actor) throw new AppError('unauthenticated', 401, 'Sign in to do this.');

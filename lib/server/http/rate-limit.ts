@@ -36,8 +36,13 @@ export async function enforceRateLimit(req: Request, bucket: RateLimitBucket = '
   const { allowed, retryAfterS } = await recordAttempt(key, { limit, windowS: WINDOW_S });
   if (!allowed) {
     // toErrorResponse turns details.retryAfterS into the Retry-After header.
-    throw new AppError('rate_limited', 429, `Too many requests from this address: at most ${limit} a minute. Try again in ${retryAfterS} s.`, {
-      retryAfterS,
-    });
+    throw new AppError(
+      'rate_limited',
+      429,
+      `Too many requests from this address: at most ${limit} a minute. Try again in ${retryAfterS} s.`,
+      {
+        retryAfterS,
+      },
+    );
   }
 }

@@ -41,7 +41,12 @@ function lingerThenCancel(reader: ReadableStreamDefaultReader<Uint8Array>, budge
  * that passes the cap while streaming is refused at once, and the connection is closed after a
  * short linger (LINGER), so the rest of a 200 MB chunked body is never read.
  */
-export async function readCappedBytes(req: Request, maxBytes: number, tooLarge: () => AppError = () => bodyTooLarge(maxBytes), linger = LINGER): Promise<Uint8Array> {
+export async function readCappedBytes(
+  req: Request,
+  maxBytes: number,
+  tooLarge: () => AppError = () => bodyTooLarge(maxBytes),
+  linger = LINGER,
+): Promise<Uint8Array> {
   const declared = req.headers.get('content-length');
   if (declared !== null && Number(declared) > maxBytes) throw tooLarge();
   if (!req.body) return new Uint8Array();
@@ -90,7 +95,11 @@ export async function readOptionalJsonBody(req: Request, maxBytes = DEFAULT_JSON
 export async function withCappedBody<R extends Request>(req: R, maxBytes: number): Promise<R> {
   if (req.method !== 'POST' || !req.body) return req;
   const body = (await readCappedBytes(req, maxBytes)) as BodyInit;
-  return new (req.constructor as new (url: string, init: RequestInit) => R)(req.url, { method: req.method, headers: req.headers, body });
+  return new (req.constructor as new (url: string, init: RequestInit) => R)(req.url, {
+    method: req.method,
+    headers: req.headers,
+    body,
+  });
 }
 
 /** What a form upload's refusals say, and which field they are shown beside. */
@@ -110,13 +119,21 @@ export type FormRefusals = {
 export async function readFormBody(req: Request, maxBytes: number, say: FormRefusals): Promise<FormData> {
   const type = req.headers.get('content-type') ?? '';
   if (!/^multipart\/form-data\s*;/i.test(type)) {
-    throw new AppError('unsupported_media_type', 415, say.wrongType, [{ field: say.field, message: say.wrongTypeField ?? 'Send the file as a form upload.' }]);
+    throw new AppError('unsupported_media_type', 415, say.wrongType, [
+      { field: say.field, message: say.wrongTypeField ?? 'Send the file as a form upload.' },
+    ]);
   }
-  const bytes = await readCappedBytes(req, maxBytes, () => new AppError('too_large', 413, say.tooLarge, [{ field: say.field, message: say.tooLargeField }]));
+  const bytes = await readCappedBytes(
+    req,
+    maxBytes,
+    () => new AppError('too_large', 413, say.tooLarge, [{ field: say.field, message: say.tooLargeField }]),
+  );
   try {
     return await new Response(bytes as BodyInit, { headers: { 'content-type': type } }).formData();
   } catch {
-    throw new AppError('invalid_input', 400, say.unreadable, [{ field: say.field, message: 'The upload could not be read; try again.' }]);
+    throw new AppError('invalid_input', 400, say.unreadable, [
+      { field: say.field, message: 'The upload could not be read; try again.' },
+    ]);
   }
 }
 

@@ -11,6 +11,7 @@ export async function addInstrument(actor: Actor | null, eventId: string, raw: u
   assertCanManageInstruments(actor, eventId);
   const input = AddInstrumentInput.parse(raw);
   const { models } = getDb();
-  if (!(await models.Event.findByPk(eventId, { attributes: ['id'] }))) throw new AppError('not_found', 404, 'No such meeting.');
+  if (!(await models.Event.findByPk(eventId, { attributes: ['id'] })))
+    throw new AppError('not_found', 404, 'No such meeting.');
   return toInstrumentView(await models.Instrument.create({ eventId, ...input }));
 }

@@ -16,21 +16,33 @@ export async function findBoatByTag(actor: Actor | null, eventId: string, scanne
   const token = parseTagScan(scanned);
   const found = token ? await lookUpTag(token) : ({ state: 'unknown' } as const);
   if (found.state === 'unknown') {
-    throw new AppError('unknown_tag', 404, 'This is not a Boreline tag we know. Type the race number instead, and tell the chief scrutineer.');
+    throw new AppError(
+      'unknown_tag',
+      404,
+      'This is not a Boreline tag we know. Type the race number instead, and tell the chief scrutineer.',
+    );
   }
   const { Boat, Entry } = getDb().models;
   const boat = await Boat.findByPk(found.boatId, { attributes: ['id', 'name'] });
-  if (!boat) throw new AppError('unknown_tag', 404, 'This is not a Boreline tag we know. Type the race number instead.');
+  if (!boat)
+    throw new AppError('unknown_tag', 404, 'This is not a Boreline tag we know. Type the race number instead.');
   if (found.state === 'retired') {
-    throw new AppError('retired_tag', 410, `This tag was replaced on ${found.retiredAt.toISOString().slice(0, 10)} and is no longer valid (it belonged to ${boat.name}). Scan the boat’s new tag or type its race number.`, {
-      boatName: boat.name,
-      retiredAt: found.retiredAt.toISOString(),
-    });
+    throw new AppError(
+      'retired_tag',
+      410,
+      `This tag was replaced on ${found.retiredAt.toISOString().slice(0, 10)} and is no longer valid (it belonged to ${boat.name}). Scan the boat’s new tag or type its race number.`,
+      {
+        boatName: boat.name,
+        retiredAt: found.retiredAt.toISOString(),
+      },
+    );
   }
   // A live entry if there is one, else the latest (a withdrawn boat still shows, marked so).
   const entry =
-    (await Entry.findOne({ where: { eventId, boatId: boat.id, status: { [Op.in]: ['awaiting_payment', 'entered'] } } })) ??
-    (await Entry.findOne({ where: { eventId, boatId: boat.id }, order: [['createdAt', 'DESC']] }));
-  if (!entry) throw new AppError('not_entered', 404, `${boat.name} is not entered at this meeting.`, { boatName: boat.name });
+    (await Entry.findOne({
+      where: { eventId, boatId: boat.id, status: { [Op.in]: ['awaiting_payment', 'entered'] } },
+    })) ?? (await Entry.findOne({ where: { eventId, boatId: boat.id }, order: [['createdAt', 'DESC']] }));
+  if (!entry)
+    throw new AppError('not_entered', 404, `${boat.name} is not entered at this meeting.`, { boatName: boat.name });
   return loadBoatCard(actor, eventId, entry.id);
 }

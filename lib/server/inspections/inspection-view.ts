@@ -48,7 +48,11 @@ type Row = Omit<InspectionView, 'recordedBy' | 'rules' | 'capturedAt' | 'receive
  * Records matching a condition on `i` (the inspections table), newest capture first. The
  * condition is written by callers in this folder only, with values passed as replacements.
  */
-export async function loadInspectionViews(condition: string, replacements: Record<string, unknown>, transaction?: Transaction): Promise<InspectionView[]> {
+export async function loadInspectionViews(
+  condition: string,
+  replacements: Record<string, unknown>,
+  transaction?: Transaction,
+): Promise<InspectionView[]> {
   const rows = await getDb().sequelize.query<Row>(
     `select i.id, i.event_id as "eventId", i.entry_id as "entryId", i.boat_id as "boatId", i.class_id as "classId",
             i.rule_version_id as "ruleVersionId", v.version as "ruleVersion", i.kind, i.recorded_by_id as "recordedById",

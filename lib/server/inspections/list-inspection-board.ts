@@ -29,7 +29,14 @@ export type BoardRow = {
   powerEvidence: string;
   declaredWeightKg: number | null;
   state: BoardState;
-  latest: { id: string; overallResult: string; kind: string; capturedAt: string; recordedBy: string; device: string } | null;
+  latest: {
+    id: string;
+    overallResult: string;
+    kind: string;
+    capturedAt: string;
+    recordedBy: string;
+    device: string;
+  } | null;
   inspectionCount: number;
   openReinspectionCount: number;
 };
@@ -39,14 +46,32 @@ export type InspectionBoard = {
   eventName: string;
   generatedAt: string;
   rows: BoardRow[];
-  counts: { total: number; waiting: number; conforms: number; doesNotConform: number; inconclusive: number; openReinspections: number };
-  classes: { id: string; code: string; name: string; ruleVersion: { id: string; version: number; rules: ClassRules } | null }[];
+  counts: {
+    total: number;
+    waiting: number;
+    conforms: number;
+    doesNotConform: number;
+    inconclusive: number;
+    openReinspections: number;
+  };
+  classes: {
+    id: string;
+    code: string;
+    name: string;
+    ruleVersion: { id: string; version: number; rules: ClassRules } | null;
+  }[];
   reinspections: ReinspectionView[];
 };
 
 type Row = Omit<BoardRow, 'latest' | 'state' | 'inspectionCount' | 'openReinspectionCount'> & {
-  latestId: string | null; latestResult: string | null; latestKind: string | null; latestCapturedAt: Date | null;
-  latestBy: string | null; latestDevice: string | null; inspectionCount: string; openReinspectionCount: string;
+  latestId: string | null;
+  latestResult: string | null;
+  latestKind: string | null;
+  latestCapturedAt: Date | null;
+  latestBy: string | null;
+  latestDevice: string | null;
+  inspectionCount: string;
+  openReinspectionCount: string;
 };
 
 /**
@@ -55,19 +80,30 @@ type Row = Omit<BoardRow, 'latest' | 'state' | 'inspectionCount' | 'openReinspec
  * result (waiting, conforms, does_not_conform, inconclusive, reinspection). Counts are for the class
  * filter only, so the board shows how much is left whatever result is being looked at.
  */
-export async function listInspectionBoard(actor: Actor | null, eventId: string, filters: { classFilter?: string | null; result?: string | null } = {}): Promise<InspectionBoard> {
+export async function listInspectionBoard(
+  actor: Actor | null,
+  eventId: string,
+  filters: { classFilter?: string | null; result?: string | null } = {},
+): Promise<InspectionBoard> {
   assertCan(actor, 'inspection.board', { eventId });
   const result = filters.result || null;
   if (result && !BOARD_RESULT_FILTERS.includes(result as BoardResultFilter)) {
-    throw new AppError('invalid_input', 400, `result: choose one of ${BOARD_RESULT_FILTERS.join(', ')}.`, [{ field: 'result', message: 'Choose a result to filter by.' }]);
+    throw new AppError('invalid_input', 400, `result: choose one of ${BOARD_RESULT_FILTERS.join(', ')}.`, [
+      { field: 'result', message: 'Choose a result to filter by.' },
+    ]);
   }
   const { models, sequelize } = getDb();
   const event = await models.Event.findByPk(eventId, { attributes: ['id', 'name'] });
   if (!event) throw new AppError('not_found', 404, 'No such meeting.');
   const classRows = await models.RaceClass.findAll({ where: { eventId }, order: [['code', 'ASC']] });
   const wanted = filters.classFilter?.trim() || null;
-  const chosen = wanted ? classRows.find((c) => c.id === wanted.toLowerCase() || c.code === wanted.toUpperCase()) : null;
-  if (wanted && !chosen) throw new AppError('invalid_input', 400, 'class: no such class at this meeting.', [{ field: 'class', message: 'No such class at this meeting.' }]);
+  const chosen = wanted
+    ? classRows.find((c) => c.id === wanted.toLowerCase() || c.code === wanted.toUpperCase())
+    : null;
+  if (wanted && !chosen)
+    throw new AppError('invalid_input', 400, 'class: no such class at this meeting.', [
+      { field: 'class', message: 'No such class at this meeting.' },
+    ]);
 
   const rows = await sequelize.query<Row>(
     `with ${currentInspectionCte('event')}
@@ -93,23 +129,53 @@ export async function listInspectionBoard(actor: Actor | null, eventId: string, 
     { replacements: { eventId, classId: chosen?.id ?? null }, type: QueryTypes.SELECT },
   );
   const all: BoardRow[] = rows.map((r) => ({
-    entryId: r.entryId, raceNumber: r.raceNumber, status: r.status, isPaid: r.isPaid, boatId: r.boatId, boatName: r.boatName,
-    hullNumber: r.hullNumber, tagToken: r.tagToken, classId: r.classId, classCode: r.classCode, className: r.className,
-    declaredNozzleMm: r.declaredNozzleMm, declaredPowerKw: r.declaredPowerKw, powerEvidence: r.powerEvidence, declaredWeightKg: r.declaredWeightKg,
+    entryId: r.entryId,
+    raceNumber: r.raceNumber,
+    status: r.status,
+    isPaid: r.isPaid,
+    boatId: r.boatId,
+    boatName: r.boatName,
+    hullNumber: r.hullNumber,
+    tagToken: r.tagToken,
+    classId: r.classId,
+    classCode: r.classCode,
+    className: r.className,
+    declaredNozzleMm: r.declaredNozzleMm,
+    declaredPowerKw: r.declaredPowerKw,
+    powerEvidence: r.powerEvidence,
+    declaredWeightKg: r.declaredWeightKg,
     state: (r.latestResult ?? 'waiting') as BoardState,
     latest: r.latestId
-      ? { id: r.latestId, overallResult: r.latestResult!, kind: r.latestKind!, capturedAt: new Date(r.latestCapturedAt!).toISOString(), recordedBy: r.latestBy ?? '', device: r.latestDevice ?? '' }
+      ? {
+          id: r.latestId,
+          overallResult: r.latestResult!,
+          kind: r.latestKind!,
+          capturedAt: new Date(r.latestCapturedAt!).toISOString(),
+          recordedBy: r.latestBy ?? '',
+          device: r.latestDevice ?? '',
+        }
       : null,
     inspectionCount: Number(r.inspectionCount),
     openReinspectionCount: Number(r.openReinspectionCount),
   }));
   const count = (s: BoardState) => all.filter((r) => r.state === s).length;
-  const reinspections = (await listReinspectionViews({ eventId, openOnly: true })).filter((t) => !chosen || all.some((r) => r.entryId === t.entryId));
-  const shown = !result ? all : result === 'reinspection' ? all.filter((r) => r.openReinspectionCount > 0) : all.filter((r) => r.state === result);
+  const reinspections = (await listReinspectionViews({ eventId, openOnly: true })).filter(
+    (t) => !chosen || all.some((r) => r.entryId === t.entryId),
+  );
+  const shown = !result
+    ? all
+    : result === 'reinspection'
+      ? all.filter((r) => r.openReinspectionCount > 0)
+      : all.filter((r) => r.state === result);
   const classes = await Promise.all(
     classRows.map(async (c) => {
       const v = await findRulesInForce(c.id, new Date());
-      return { id: c.id, code: c.code, name: c.name, ruleVersion: v ? { id: v.id, version: v.version, rules: v.rules } : null };
+      return {
+        id: c.id,
+        code: c.code,
+        name: c.name,
+        ruleVersion: v ? { id: v.id, version: v.version, rules: v.rules } : null,
+      };
     }),
   );
   return {
@@ -117,7 +183,14 @@ export async function listInspectionBoard(actor: Actor | null, eventId: string, 
     eventName: event.name,
     generatedAt: new Date().toISOString(),
     rows: shown,
-    counts: { total: all.length, waiting: count('waiting'), conforms: count('conforms'), doesNotConform: count('does_not_conform'), inconclusive: count('inconclusive'), openReinspections: reinspections.length },
+    counts: {
+      total: all.length,
+      waiting: count('waiting'),
+      conforms: count('conforms'),
+      doesNotConform: count('does_not_conform'),
+      inconclusive: count('inconclusive'),
+      openReinspections: reinspections.length,
+    },
     classes,
     reinspections,
   };

@@ -23,19 +23,37 @@ export type InstrumentView = {
 /** The meeting's instruments in service, with the U each brings to a decision. */
 export async function listInstruments(actor: Actor | null, eventId: string): Promise<InstrumentView[]> {
   assertCan(actor, 'inspection.board', { eventId });
-  const rows = await getDb().models.Instrument.findAll({ where: { eventId, retiredAt: null }, order: [['quantity', 'ASC'], ['name', 'ASC']] });
+  const rows = await getDb().models.Instrument.findAll({
+    where: { eventId, retiredAt: null },
+    order: [
+      ['quantity', 'ASC'],
+      ['name', 'ASC'],
+    ],
+  });
   return rows.map(toInstrumentView);
 }
 
 /** All of the meeting's instruments, retired ones too (in service first), for the screen that manages them. */
 export async function listAllInstruments(actor: Actor | null, eventId: string): Promise<InstrumentView[]> {
   assertCan(actor, 'inspection.board', { eventId });
-  const rows = await getDb().models.Instrument.findAll({ where: { eventId }, order: [[literal('retired_at is not null'), 'ASC'], ['quantity', 'ASC'], ['name', 'ASC']] });
+  const rows = await getDb().models.Instrument.findAll({
+    where: { eventId },
+    order: [
+      [literal('retired_at is not null'), 'ASC'],
+      ['quantity', 'ASC'],
+      ['name', 'ASC'],
+    ],
+  });
   return rows.map(toInstrumentView);
 }
 
 export function toInstrumentView(i: Instrument): InstrumentView {
   const figures = toInstrumentFigures(i);
   const u = instrumentUncertainty(figures, i.quantity === 'length' ? 'mm' : 'kg');
-  return { ...figures, appliedExpandedUncertainty: u.expandedUncertainty, basis: u.basis, retiredAt: i.retiredAt ? new Date(i.retiredAt).toISOString() : null };
+  return {
+    ...figures,
+    appliedExpandedUncertainty: u.expandedUncertainty,
+    basis: u.basis,
+    retiredAt: i.retiredAt ? new Date(i.retiredAt).toISOString() : null,
+  };
 }

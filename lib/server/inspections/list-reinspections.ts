@@ -4,7 +4,11 @@ import { AppError } from '@/lib/core/errors';
 import { listReinspectionViews, type ReinspectionView } from './reinspection-view';
 
 /** The meeting's re-inspection tasks (open first), for those who work through them or set them. */
-export async function listReinspections(actor: Actor | null, eventId: string, opts: { openOnly?: boolean } = {}): Promise<ReinspectionView[]> {
+export async function listReinspections(
+  actor: Actor | null,
+  eventId: string,
+  opts: { openOnly?: boolean } = {},
+): Promise<ReinspectionView[]> {
   if (!actor) throw new AppError('unauthenticated', 401, 'Sign in to do this.');
   // Scrutineers and organisers see them on the board; stewards set them without seeing the board.
   if (!can(actor, 'inspection.board', { eventId }) && !can(actor, 'inspection.assign_reinspection', { eventId })) {

@@ -13,11 +13,27 @@ import { heldPartsJsonSql, type HeldPart } from '@/lib/server/custody/custody-vi
 // in force now, its entry and payment, every earlier record at this meeting and open tasks.
 export type BoatCard = {
   event: { id: string; name: string };
-  entry: { id: string; raceNumber: number; status: string; isPaid: boolean; paidAt: string | null; inspectionResult: string | null };
+  entry: {
+    id: string;
+    raceNumber: number;
+    status: string;
+    isPaid: boolean;
+    paidAt: string | null;
+    inspectionResult: string | null;
+  };
   boat: {
-    id: string; name: string; hullNumber: string; hullDescription: string; pumpDescription: string; impellerDescription: string;
-    engineDescription: string; declaredNozzleMm: number; declaredNozzleToleranceMm: number; declaredPowerKw: number;
-    powerEvidence: string; declaredWeightKg: number | null;
+    id: string;
+    name: string;
+    hullNumber: string;
+    hullDescription: string;
+    pumpDescription: string;
+    impellerDescription: string;
+    engineDescription: string;
+    declaredNozzleMm: number;
+    declaredNozzleToleranceMm: number;
+    declaredPowerKw: number;
+    powerEvidence: string;
+    declaredWeightKg: number | null;
   };
   raceClass: { id: string; code: string; name: string };
   ruleVersion: { id: string; version: number; effectiveFrom: string | null; rules: ClassRules } | null;
@@ -43,26 +59,59 @@ export async function loadBoatCard(actor: Actor, eventId: string, entryId: strin
     findRulesInForce(entry.classId, new Date()),
     loadInspectionViews('i.entry_id = :entryId', { entryId }),
     listReinspectionViews({ eventId, entryId, openOnly: true }),
-    sequelize.query<{ id: string }>(`with ${currentInspectionCte('entry')} select id from current_inspection`, { replacements: { entryId }, type: QueryTypes.SELECT }),
-    sequelize.query<{ parts: HeldPart[] | null }>(`select ${heldPartsJsonSql(':entryId')} as parts`, { replacements: { entryId }, type: QueryTypes.SELECT }),
+    sequelize.query<{ id: string }>(`with ${currentInspectionCte('entry')} select id from current_inspection`, {
+      replacements: { entryId },
+      type: QueryTypes.SELECT,
+    }),
+    sequelize.query<{ parts: HeldPart[] | null }>(`select ${heldPartsJsonSql(':entryId')} as parts`, {
+      replacements: { entryId },
+      type: QueryTypes.SELECT,
+    }),
   ]);
   if (!boat || !raceClass || !event) throw new Error(`entry ${entryId} has a missing boat, class or event`);
   return {
     event: { id: event.id, name: event.name },
     entry: {
-      id: entry.id, raceNumber: entry.raceNumber, status: entry.status, isPaid: entry.paidAt != null && entry.refundedAt == null,
-      paidAt: entry.paidAt ? entry.paidAt.toISOString() : null, inspectionResult: entry.inspectionResult ?? null,
+      id: entry.id,
+      raceNumber: entry.raceNumber,
+      status: entry.status,
+      isPaid: entry.paidAt != null && entry.refundedAt == null,
+      paidAt: entry.paidAt ? entry.paidAt.toISOString() : null,
+      inspectionResult: entry.inspectionResult ?? null,
     },
     boat: {
-      id: boat.id, name: boat.name, hullNumber: boat.hullNumber, hullDescription: boat.hullDescription, pumpDescription: boat.pumpDescription,
-      impellerDescription: boat.impellerDescription, engineDescription: boat.engineDescription, declaredNozzleMm: boat.declaredNozzleMm,
-      declaredNozzleToleranceMm: boat.declaredNozzleToleranceMm, declaredPowerKw: boat.declaredPowerKw, powerEvidence: boat.powerEvidence,
+      id: boat.id,
+      name: boat.name,
+      hullNumber: boat.hullNumber,
+      hullDescription: boat.hullDescription,
+      pumpDescription: boat.pumpDescription,
+      impellerDescription: boat.impellerDescription,
+      engineDescription: boat.engineDescription,
+      declaredNozzleMm: boat.declaredNozzleMm,
+      declaredNozzleToleranceMm: boat.declaredNozzleToleranceMm,
+      declaredPowerKw: boat.declaredPowerKw,
+      powerEvidence: boat.powerEvidence,
       declaredWeightKg: boat.declaredWeightKg ?? null,
     },
     raceClass: { id: raceClass.id, code: raceClass.code, name: raceClass.name },
-    ruleVersion: ruleVersion ? { id: ruleVersion.id, version: ruleVersion.version, effectiveFrom: ruleVersion.effectiveFrom, rules: ruleVersion.rules } : null,
+    ruleVersion: ruleVersion
+      ? {
+          id: ruleVersion.id,
+          version: ruleVersion.version,
+          effectiveFrom: ruleVersion.effectiveFrom,
+          rules: ruleVersion.rules,
+        }
+      : null,
     declaration: ruleVersion
-      ? checkDeclaration({ declaredNozzleMm: boat.declaredNozzleMm, declaredNozzleToleranceMm: boat.declaredNozzleToleranceMm, declaredPowerKw: boat.declaredPowerKw, declaredWeightKg: boat.declaredWeightKg ?? null }, ruleVersion.rules)
+      ? checkDeclaration(
+          {
+            declaredNozzleMm: boat.declaredNozzleMm,
+            declaredNozzleToleranceMm: boat.declaredNozzleToleranceMm,
+            declaredPowerKw: boat.declaredPowerKw,
+            declaredWeightKg: boat.declaredWeightKg ?? null,
+          },
+          ruleVersion.rules,
+        )
       : null,
     inspections,
     currentInspectionId: current[0]?.id ?? null,

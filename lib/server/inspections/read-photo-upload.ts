@@ -24,9 +24,14 @@ export async function readPhotoUpload(req: Request): Promise<{ bytes: Uint8Array
     unreadable: 'photo: the upload could not be read as a form.',
   });
   const files = form.getAll('photo').filter((f): f is File => f instanceof File && f.size > 0);
-  if (files.length === 0) throw new AppError('invalid_input', 400, 'photo: choose a photo to upload.', [{ field: 'photo', message: 'Choose a photo to upload.' }]);
+  if (files.length === 0)
+    throw new AppError('invalid_input', 400, 'photo: choose a photo to upload.', [
+      { field: 'photo', message: 'Choose a photo to upload.' },
+    ]);
   if (files.length > INSPECTION_PHOTOS_PER_UPLOAD) {
-    throw new AppError('invalid_input', 400, `photo: send at most ${INSPECTION_PHOTOS_PER_UPLOAD} photos at once.`, [{ field: 'photo', message: `Send at most ${INSPECTION_PHOTOS_PER_UPLOAD} photos at once.` }]);
+    throw new AppError('invalid_input', 400, `photo: send at most ${INSPECTION_PHOTOS_PER_UPLOAD} photos at once.`, [
+      { field: 'photo', message: `Send at most ${INSPECTION_PHOTOS_PER_UPLOAD} photos at once.` },
+    ]);
   }
   return Promise.all(files.map(async (f) => ({ bytes: new Uint8Array(await f.arrayBuffer()), declaredName: f.name })));
 }

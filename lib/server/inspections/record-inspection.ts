@@ -8,31 +8,65 @@ import { AppError, fieldError } from '@/lib/core/errors';
 import type { ClassRules } from '@/lib/core/inputs/class-rules';
 import { sendMail } from '@/lib/server/mail/send';
 import { RecordInspectionInput } from '@/lib/core/inputs/inspections';
-import { decideInspection, describeScope, scopeFromRequestedChecks, VERDICT_WORDS, type CheckArea, type InstrumentFigures, type InspectionDecision } from '../../core/inspections/decide-inspection';
+import {
+  decideInspection,
+  describeScope,
+  scopeFromRequestedChecks,
+  VERDICT_WORDS,
+  type CheckArea,
+  type InstrumentFigures,
+  type InspectionDecision,
+} from '../../core/inspections/decide-inspection';
 import { buildInspectionRecord } from '../../core/inspections/inspection-record';
 import { toInstrumentFigures } from '../../core/inspections/instrument-figures';
 import { currentInspectionCte, loadInspectionViews, type InspectionView } from './inspection-view';
 
 type EntryRow = {
-  id: string; entrantId: string; raceNumber: number; status: string; classId: string; boatId: string; ownerId: string;
-  boatName: string; boatDeclaredKw: number; boatPowerEvidence: string; className: string; eventName: string;
+  id: string;
+  entrantId: string;
+  raceNumber: number;
+  status: string;
+  classId: string;
+  boatId: string;
+  ownerId: string;
+  boatName: string;
+  boatDeclaredKw: number;
+  boatPowerEvidence: string;
+  className: string;
+  eventName: string;
   entrantEmail: string;
   /** The class's published rule versions, newest first; effectiveFromMs rounded up to the millisecond. */
   publishedVersions: { id: string; version: number; effectiveFromMs: number; rules: ClassRules }[] | null;
 };
 
-async function findInstrument(eventId: string, id: string | null, quantity: 'length' | 'mass', field: string): Promise<InstrumentFigures | null> {
+async function findInstrument(
+  eventId: string,
+  id: string | null,
+  quantity: 'length' | 'mass',
+  field: string,
+): Promise<InstrumentFigures | null> {
   if (!id) return null;
   const i = await getDb().models.Instrument.findOne({ where: { id, eventId, retiredAt: null } });
   if (!i) throw fieldError(field, 'This instrument is not on this meeting’s list.');
-  if (i.quantity !== quantity) throw fieldError(field, quantity === 'length' ? `${i.name} is a scale: choose a length instrument.` : `${i.name} measures length: choose a scale.`);
+  if (i.quantity !== quantity)
+    throw fieldError(
+      field,
+      quantity === 'length'
+        ? `${i.name} is a scale: choose a length instrument.`
+        : `${i.name} measures length: choose a scale.`,
+    );
   return toInstrumentFigures(i);
 }
 
 /** The stored record for a key; a key used at another meeting is a conflict, never a leak. */
 async function findByKey(eventId: string, key: string): Promise<InspectionView | null> {
   const [found] = await loadInspectionViews('i.idempotency_key = :key', { key });
-  if (found && found.eventId !== eventId) throw new AppError('key_in_use', 409, 'This record key was already used for another meeting’s record; make a new record.');
+  if (found && found.eventId !== eventId)
+    throw new AppError(
+      'key_in_use',
+      409,
+      'This record key was already used for another meeting’s record; make a new record.',
+    );
   return found ?? null;
 }
 
@@ -83,28 +117,39 @@ async function mailEntrant(entry: EntryRow, decision: InspectionDecision) {
  * when it was captured. Idempotent by the device-made key: the same key again returns the stored
  * record (created: false). Records are append-only; a correction is a new record that supersedes.
  */
-export async function recordInspection(actor: Actor | null, eventId: string, raw: unknown): Promise<{ inspection: InspectionView; created: boolean }> {
+export async function recordInspection(
+  actor: Actor | null,
+  eventId: string,
+  raw: unknown,
+): Promise<{ inspection: InspectionView; created: boolean }> {
   assertCan(actor, 'inspection.record', { eventId });
   const { models, sequelize } = getDb();
   // A retry (the answer was lost, or the phone sent twice) gets the stored record back at once,
   // before the input is checked again (an offline record may be older than a new one may be).
   const key = z.uuid().safeParse((raw as { idempotencyKey?: unknown } | null)?.idempotencyKey);
   const entryGuess = z.uuid().safeParse((raw as { entryId?: unknown } | null)?.entryId);
-  let entry = entryGuess.success ? await loadEntry(eventId, entryGuess.data.toLowerCase(), key.success ? key.data.toLowerCase() : null) : undefined;
+  let entry = entryGuess.success
+    ? await loadEntry(eventId, entryGuess.data.toLowerCase(), key.success ? key.data.toLowerCase() : null)
+    : undefined;
   if (key.success && (!entry || entry.keyEventId)) {
     const existing = await findByKey(eventId, key.data.toLowerCase());
     if (existing) return { inspection: existing, created: false };
   }
   const input = RecordInspectionInput.parse(raw);
   const idempotencyKey = input.idempotencyKey.toLowerCase();
-  if (entry && entry.id !== input.entryId.toLowerCase()) entry = await loadEntry(eventId, input.entryId.toLowerCase(), null);
+  if (entry && entry.id !== input.entryId.toLowerCase())
+    entry = await loadEntry(eventId, input.entryId.toLowerCase(), null);
   if (!entry) throw fieldError('entryId', 'No such entry at this meeting.');
   // Separation of duties: nobody inspects a boat they entered or own, whatever their staff roles.
   if (entry.entrantId === actor.id || entry.ownerId === actor.id) {
     throw new AppError('own_boat', 403, 'You cannot inspect a boat you entered or own: ask another scrutineer.');
   }
   if (entry.status === 'withdrawn' || entry.status === 'cancelled') {
-    throw new AppError('entry_not_live', 409, `Race number ${entry.raceNumber} is ${entry.status}: it is not inspected.`);
+    throw new AppError(
+      'entry_not_live',
+      409,
+      `Race number ${entry.raceNumber} is ${entry.status}: it is not inspected.`,
+    );
   }
 
   let measuredAt = new Date(input.capturedAt);
@@ -128,7 +173,11 @@ export async function recordInspection(actor: Actor | null, eventId: string, raw
   // that came with the entry: one query fewer per record. Published versions are frozen.
   const ruleVersion = (entry.publishedVersions ?? []).find((v) => v.effectiveFromMs <= measuredAt.getTime()) ?? null;
   if (!ruleVersion) {
-    throw new AppError('no_rules_in_force', 409, `No published rules of ${entry.className} were in force at ${measuredAt.toISOString()}: the organiser must publish the class rules before boats are inspected.`);
+    throw new AppError(
+      'no_rules_in_force',
+      409,
+      `No published rules of ${entry.className} were in force at ${measuredAt.toISOString()}: the organiser must publish the class rules before boats are inspected.`,
+    );
   }
   const [nozzleInstrument, weightInstrument] = await Promise.all([
     findInstrument(eventId, input.nozzle.instrumentId, 'length', 'nozzle.instrumentId'),
@@ -138,7 +187,12 @@ export async function recordInspection(actor: Actor | null, eventId: string, raw
   const decision = decideInspection({ input, rules: ruleVersion.rules, nozzleInstrument, weightInstrument, scope });
 
   const { measurements, results } = buildInspectionRecord({
-    input, decision, rules: ruleVersion.rules, ruleVersion: ruleVersion.version, nozzleInstrument, weightInstrument,
+    input,
+    decision,
+    rules: ruleVersion.rules,
+    ruleVersion: ruleVersion.version,
+    nozzleInstrument,
+    weightInstrument,
     boat: { declaredKw: entry.boatDeclaredKw, powerEvidence: entry.boatPowerEvidence },
   });
 
@@ -157,10 +211,23 @@ export async function recordInspection(actor: Actor | null, eventId: string, raw
        returning id, received_at as "receivedAt"`,
       {
         replacements: {
-          eventId, entryId: entry.id, boatId: entry.boatId, classId: entry.classId, ruleVersionId: ruleVersion.id, kind: input.kind,
-          recordedById: actor.id, device: input.device, idempotencyKey, capturedAt: new Date(input.capturedAt),
-          supersedesId: input.supersedesId, correctionReason: input.correctionReason, reinspectionId: input.reinspectionId,
-          measurements: JSON.stringify(measurements), results: JSON.stringify(results), overall: decision.overall, notes: input.notes,
+          eventId,
+          entryId: entry.id,
+          boatId: entry.boatId,
+          classId: entry.classId,
+          ruleVersionId: ruleVersion.id,
+          kind: input.kind,
+          recordedById: actor.id,
+          device: input.device,
+          idempotencyKey,
+          capturedAt: new Date(input.capturedAt),
+          supersedesId: input.supersedesId,
+          correctionReason: input.correctionReason,
+          reinspectionId: input.reinspectionId,
+          measurements: JSON.stringify(measurements),
+          results: JSON.stringify(results),
+          overall: decision.overall,
+          notes: input.notes,
         },
         type: QueryTypes.SELECT,
         transaction,
@@ -176,7 +243,10 @@ export async function recordInspection(actor: Actor | null, eventId: string, raw
       { replacements: { entryId: entry.id }, transaction },
     );
     if (input.reinspectionId) {
-      await models.Reinspection.update({ inspectionId: id, doneAt: new Date() }, { where: { id: input.reinspectionId, doneAt: null }, transaction });
+      await models.Reinspection.update(
+        { inspectionId: id, doneAt: new Date() },
+        { where: { id: input.reinspectionId, doneAt: null }, transaction },
+      );
     }
     return rows[0];
   });
@@ -190,11 +260,28 @@ export async function recordInspection(actor: Actor | null, eventId: string, raw
   after(() => mailEntrant(entry, decision));
   // The new record as loadInspectionViews would read it, from what was just written (one query fewer per record).
   const view: InspectionView = {
-    id: inserted.id, eventId, entryId: entry.id, boatId: entry.boatId, classId: entry.classId, ruleVersionId: ruleVersion.id,
-    ruleVersion: ruleVersion.version, kind: input.kind, recordedBy: { id: actor.id, name: actor.name ?? actor.email }, device: input.device,
-    idempotencyKey, capturedAt: new Date(input.capturedAt).toISOString(), receivedAt: new Date(inserted.receivedAt).toISOString(),
-    supersedesId: input.supersedesId, supersededById: null, correctionReason: input.correctionReason, reinspectionId: input.reinspectionId,
-    measurements, rules: decision.rules, overallResult: decision.overall, notes: input.notes, photoCount: 0,
+    id: inserted.id,
+    eventId,
+    entryId: entry.id,
+    boatId: entry.boatId,
+    classId: entry.classId,
+    ruleVersionId: ruleVersion.id,
+    ruleVersion: ruleVersion.version,
+    kind: input.kind,
+    recordedBy: { id: actor.id, name: actor.name ?? actor.email },
+    device: input.device,
+    idempotencyKey,
+    capturedAt: new Date(input.capturedAt).toISOString(),
+    receivedAt: new Date(inserted.receivedAt).toISOString(),
+    supersedesId: input.supersedesId,
+    supersededById: null,
+    correctionReason: input.correctionReason,
+    reinspectionId: input.reinspectionId,
+    measurements,
+    rules: decision.rules,
+    overallResult: decision.overall,
+    notes: input.notes,
+    photoCount: 0,
   };
   return { inspection: view, created: true };
 }

@@ -7,7 +7,13 @@ import { AppError, toErrorResponse } from '@/lib/core/errors';
  */
 export function refuseChange(allow: string) {
   return async () => {
-    const res = toErrorResponse(new AppError('method_not_allowed', 405, 'Inspection records are never edited or deleted: record a correction that supersedes the record instead.'));
+    const res = toErrorResponse(
+      new AppError(
+        'method_not_allowed',
+        405,
+        'Inspection records are never edited or deleted: record a correction that supersedes the record instead.',
+      ),
+    );
     res.headers.set('Allow', allow);
     return res;
   };

@@ -21,10 +21,18 @@ export type ReinspectionView = {
   checks: CheckArea[] | null;
 };
 
-type Row = Omit<ReinspectionView, 'createdAt' | 'doneAt' | 'checks'> & { createdAt: Date; doneAt: Date | null; requestedChecks: string[] | null };
+type Row = Omit<ReinspectionView, 'createdAt' | 'doneAt' | 'checks'> & {
+  createdAt: Date;
+  doneAt: Date | null;
+  requestedChecks: string[] | null;
+};
 
 /** Tasks of an event (optionally of one entry, optionally only open ones), oldest first: the order to work through. */
-export async function listReinspectionViews(opts: { eventId: string; entryId?: string; openOnly?: boolean }): Promise<ReinspectionView[]> {
+export async function listReinspectionViews(opts: {
+  eventId: string;
+  entryId?: string;
+  openOnly?: boolean;
+}): Promise<ReinspectionView[]> {
   const rows = await getDb().sequelize.query<Row>(
     `select r.id, r.entry_id as "entryId", e.race_number as "raceNumber", b.name as "boatName", c.code as "classCode", r.reason,
             coalesce(u.name, u.email) as "requestedBy", r.created_at as "createdAt", r.done_at as "doneAt", r.inspection_id as "inspectionId",
@@ -42,6 +50,9 @@ export async function listReinspectionViews(opts: { eventId: string; entryId?: s
     { replacements: { eventId: opts.eventId, entryId: opts.entryId ?? null }, type: QueryTypes.SELECT },
   );
   return rows.map(({ requestedChecks, ...r }) => ({
-    ...r, checks: scopeFromRequestedChecks(requestedChecks), createdAt: new Date(r.createdAt).toISOString(), doneAt: r.doneAt ? new Date(r.doneAt).toISOString() : null,
+    ...r,
+    checks: scopeFromRequestedChecks(requestedChecks),
+    createdAt: new Date(r.createdAt).toISOString(),
+    doneAt: r.doneAt ? new Date(r.doneAt).toISOString() : null,
   }));
 }

@@ -10,11 +10,18 @@ import { assertCanManageInstruments } from './manage-instruments-access';
  * It stays in the list as retired, so records made with it keep their name and U; the dock no
  * longer offers it and the server refuses new records that name it.
  */
-export async function retireInstrument(actor: Actor | null, eventId: string, instrumentId: string): Promise<InstrumentView> {
+export async function retireInstrument(
+  actor: Actor | null,
+  eventId: string,
+  instrumentId: string,
+): Promise<InstrumentView> {
   assertCanManageInstruments(actor, eventId);
   const { models } = getDb();
   // Only an instrument of this meeting: another meeting's id is "not found", as for a missing one.
-  const [count, rows] = await models.Instrument.update({ retiredAt: new Date() }, { where: { id: instrumentId, eventId, retiredAt: null }, returning: true });
+  const [count, rows] = await models.Instrument.update(
+    { retiredAt: new Date() },
+    { where: { id: instrumentId, eventId, retiredAt: null }, returning: true },
+  );
   if (count === 1) return toInstrumentView(rows[0]);
   const existing = await models.Instrument.findOne({ where: { id: instrumentId, eventId } });
   if (!existing) throw new AppError('not_found', 404, 'No such instrument at this meeting.');

@@ -16,7 +16,11 @@ export async function declareInterest(actor: Actor | null, eventId: string, raw:
   const input = DeclareInterestInput.parse(raw);
   const { models, sequelize } = getDb();
   return sequelize.transaction(async (transaction) => {
-    const subject = { boatId: null as string | null, entrantId: null as string | null, teamName: null as string | null };
+    const subject = {
+      boatId: null as string | null,
+      entrantId: null as string | null,
+      teamName: null as string | null,
+    };
     if (input.kind === 'boat') {
       subject.boatId = input.boatId.toLowerCase();
       const entered = await models.Entry.count({ where: { eventId, boatId: subject.boatId }, transaction });
@@ -29,16 +33,37 @@ export async function declareInterest(actor: Actor | null, eventId: string, raw:
       subject.teamName = input.teamName;
     }
     // One standing declaration per subject: serialise this official's declarations at this meeting.
-    await sequelize.query('select pg_advisory_xact_lock(hashtext(:key))', { replacements: { key: `interest:${eventId}:${actor.id}` }, transaction });
+    await sequelize.query('select pg_advisory_xact_lock(hashtext(:key))', {
+      replacements: { key: `interest:${eventId}:${actor.id}` },
+      transaction,
+    });
     const [{ n }] = await sequelize.query<{ n: number }>(
       `select count(*)::int as n from official_interests i
         where i.event_id = :eventId and i.official_id = :officialId and i.subject_kind = :kind
           and (i.boat_id = :boatId or i.entrant_id = :entrantId or lower(i.team_name) = lower(:teamName))
           and not exists (select 1 from official_interest_withdrawals w where w.interest_id = i.id)`,
-      { replacements: { eventId, officialId: actor.id, kind: input.kind, ...subject }, type: QueryTypes.SELECT, transaction },
+      {
+        replacements: { eventId, officialId: actor.id, kind: input.kind, ...subject },
+        type: QueryTypes.SELECT,
+        transaction,
+      },
     );
-    if (n > 0) throw new AppError('already_declared', 409, 'You have already declared a standing interest in this: withdraw it first if the statement should change.', [{ field: input.kind === 'boat' ? 'boatId' : input.kind === 'entrant' ? 'entrantId' : 'teamName', message: 'Already declared.' }]);
-    const made = await models.OfficialInterest.create({ eventId, officialId: actor.id, subjectKind: input.kind, ...subject, statement: input.statement }, { transaction });
+    if (n > 0)
+      throw new AppError(
+        'already_declared',
+        409,
+        'You have already declared a standing interest in this: withdraw it first if the statement should change.',
+        [
+          {
+            field: input.kind === 'boat' ? 'boatId' : input.kind === 'entrant' ? 'entrantId' : 'teamName',
+            message: 'Already declared.',
+          },
+        ],
+      );
+    const made = await models.OfficialInterest.create(
+      { eventId, officialId: actor.id, subjectKind: input.kind, ...subject, statement: input.statement },
+      { transaction },
+    );
     const [view] = await queryInterests(eventId, { interestId: made.id, transaction });
     return view;
   });

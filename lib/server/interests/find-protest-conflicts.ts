@@ -20,9 +20,20 @@ export type OfficialConflict = { officialId: string; reasons: ConflictReason[] }
  * The one query behind every steward step and the protest page (common practice for
  * sports officials, no single source).
  */
-export async function findProtestConflicts(protestId: string, officialIds: string[], transaction?: Transaction): Promise<OfficialConflict[]> {
+export async function findProtestConflicts(
+  protestId: string,
+  officialIds: string[],
+  transaction?: Transaction,
+): Promise<OfficialConflict[]> {
   if (officialIds.length === 0) return [];
-  const rows = await getDb().sequelize.query<{ officialId: string; kind: string; side: string | null; against: string; subject: string | null; statement: string | null }>(
+  const rows = await getDb().sequelize.query<{
+    officialId: string;
+    kind: string;
+    side: string | null;
+    against: string;
+    subject: string | null;
+    statement: string | null;
+  }>(
     `with p as (
        select id, event_id, lodged_by_id, against_entry_id, against_result_id, created_at,
               case when against_entry_id is not null then 'entry' else 'results' end as against
@@ -62,9 +73,11 @@ export async function findProtestConflicts(protestId: string, officialIds: strin
   const byOfficial = new Map<string, ConflictReason[]>();
   for (const r of rows) {
     const reason: ConflictReason =
-      r.kind === 'lodged' ? { kind: 'lodged' }
-      : r.kind === 'party_boat' ? { kind: 'party_boat', side: r.side as 'lodger' | 'protested', against: r.against as 'entry' | 'results' }
-        : { kind: 'interest', subject: r.subject ?? '', statement: r.statement ?? '' };
+      r.kind === 'lodged'
+        ? { kind: 'lodged' }
+        : r.kind === 'party_boat'
+          ? { kind: 'party_boat', side: r.side as 'lodger' | 'protested', against: r.against as 'entry' | 'results' }
+          : { kind: 'interest', subject: r.subject ?? '', statement: r.statement ?? '' };
     const list = byOfficial.get(r.officialId) ?? [];
     if (!list.some((x) => JSON.stringify(x) === JSON.stringify(reason))) list.push(reason);
     byOfficial.set(r.officialId, list);
@@ -78,7 +91,9 @@ export function describeConflict(r: ConflictReason, who = 'you'): string {
   if (r.kind === 'lodged') return `${who} lodged this protest`;
   if (r.kind === 'party_boat') {
     if (r.side === 'lodger') return `${who} entered or ${own} a boat of the protester at this meeting`;
-    return r.against === 'entry' ? `${who} entered or ${own} the protested boat` : `${who} entered or ${own} a boat in the class whose results are protested`;
+    return r.against === 'entry'
+      ? `${who} entered or ${own} the protested boat`
+      : `${who} entered or ${own} a boat in the class whose results are protested`;
   }
   return `${who} declared an interest in ${r.subject} ("${r.statement}")`;
 }

@@ -19,11 +19,18 @@ export type InterestView = {
 };
 
 type Row = Omit<InterestView, 'declaredAtLabel' | 'withdrawal' | 'declaredAt'> & {
-  declaredAt: Date; timeZone: string; withdrawnAt: Date | null; withdrawalReason: string | null; withdrawnByName: string | null;
+  declaredAt: Date;
+  timeZone: string;
+  withdrawnAt: Date | null;
+  withdrawalReason: string | null;
+  withdrawnByName: string | null;
 };
 
 /** Declarations of one meeting, oldest first; only one official's when officialId is given. */
-export async function queryInterests(eventId: string, opts: { officialId?: string; interestId?: string; transaction?: Transaction } = {}): Promise<InterestView[]> {
+export async function queryInterests(
+  eventId: string,
+  opts: { officialId?: string; interestId?: string; transaction?: Transaction } = {},
+): Promise<InterestView[]> {
   const rows = await getDb().sequelize.query<Row>(
     `select i.id::text as id, i.official_id::text as "officialId", coalesce(o.name, o.email) as "officialName",
             coalesce((select json_agg(distinct s.role) from event_staff s where s.event_id = i.event_id and s.user_id = i.official_id), '[]') as "officialRoles",
@@ -46,12 +53,23 @@ export async function queryInterests(eventId: string, opts: { officialId?: strin
         ${opts.officialId ? 'and i.official_id = :officialId' : ''}
         ${opts.interestId ? 'and i.id = :interestId' : ''}
       order by i.declared_at, i.id`,
-    { replacements: { eventId, officialId: opts.officialId ?? null, interestId: opts.interestId ?? null }, type: QueryTypes.SELECT, transaction: opts.transaction },
+    {
+      replacements: { eventId, officialId: opts.officialId ?? null, interestId: opts.interestId ?? null },
+      type: QueryTypes.SELECT,
+      transaction: opts.transaction,
+    },
   );
   return rows.map(({ timeZone, withdrawnAt, withdrawalReason, withdrawnByName, declaredAt, ...r }) => ({
     ...r,
     declaredAt: new Date(declaredAt).toISOString(),
     declaredAtLabel: formatInZone(declaredAt, timeZone),
-    withdrawal: withdrawnAt ? { at: new Date(withdrawnAt).toISOString(), atLabel: formatInZone(withdrawnAt, timeZone), reason: withdrawalReason ?? '', byName: withdrawnByName ?? '' } : null,
+    withdrawal: withdrawnAt
+      ? {
+          at: new Date(withdrawnAt).toISOString(),
+          atLabel: formatInZone(withdrawnAt, timeZone),
+          reason: withdrawalReason ?? '',
+          byName: withdrawnByName ?? '',
+        }
+      : null,
   }));
 }

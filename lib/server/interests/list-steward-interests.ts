@@ -20,7 +20,10 @@ export async function listStewardInterests(protestId: string, eventId: string): 
   );
   const names = new Map(stewards.map((s) => [s.id, s.name]));
   const [conflicts, teamInterests] = await Promise.all([
-    findProtestConflicts(protestId, stewards.map((s) => s.id)),
+    findProtestConflicts(
+      protestId,
+      stewards.map((s) => s.id),
+    ),
     sequelize.query<{ officialName: string; teamName: string; statement: string }>(
       `select coalesce(u.name, u.email) as "officialName", i.team_name as "teamName", i.statement
          from official_interests i join users u on u.id = i.official_id
@@ -34,7 +37,12 @@ export async function listStewardInterests(protestId: string, eventId: string): 
   return {
     conflicts: conflicts.map((c) => {
       const name = names.get(c.officialId) ?? 'A steward';
-      return { officialId: c.officialId, name, reasons: c.reasons.map((r) => describeConflict(r)), reasonsAsOthers: c.reasons.map((r) => describeConflict(r, name)) };
+      return {
+        officialId: c.officialId,
+        name,
+        reasons: c.reasons.map((r) => describeConflict(r)),
+        reasonsAsOthers: c.reasons.map((r) => describeConflict(r, name)),
+      };
     }),
     teamInterests,
   };

@@ -12,7 +12,12 @@ import { queryInterests, type InterestView } from './interest-view';
  * edit. Someone else's declaration is 404, as for a missing id. A withdrawal does not clear a
  * conflict for a protest lodged while the interest stood (lib/server/interests/find-protest-conflicts.ts).
  */
-export async function withdrawInterest(actor: Actor | null, eventId: string, interestId: string, readBody: () => Promise<unknown>): Promise<InterestView> {
+export async function withdrawInterest(
+  actor: Actor | null,
+  eventId: string,
+  interestId: string,
+  readBody: () => Promise<unknown>,
+): Promise<InterestView> {
   assertCan(actor, 'interest.declare', { eventId });
   const id = parseId(interestId, 'declaration');
   const { models } = getDb();
@@ -23,7 +28,8 @@ export async function withdrawInterest(actor: Actor | null, eventId: string, int
   try {
     await models.OfficialInterestWithdrawal.create({ interestId: id, withdrawnById: actor.id, reason: input.reason });
   } catch (err) {
-    if (err instanceof UniqueConstraintError) throw new AppError('already_withdrawn', 409, 'This declaration is already withdrawn.');
+    if (err instanceof UniqueConstraintError)
+      throw new AppError('already_withdrawn', 409, 'This declaration is already withdrawn.');
     throw err;
   }
   const [view] = await queryInterests(eventId, { interestId: id });

@@ -31,7 +31,14 @@ export function escapeHtml(text: string) {
 }
 
 /** A plain, readable message with one action link, in text and HTML. */
-export function linkMail(opts: { to: string; subject: string; intro: string; linkLabel: string; url: string; outro?: string }): OutgoingMail {
+export function linkMail(opts: {
+  to: string;
+  subject: string;
+  intro: string;
+  linkLabel: string;
+  url: string;
+  outro?: string;
+}): OutgoingMail {
   const text = `${opts.intro}\n\n${opts.linkLabel}: ${opts.url}\n\n${opts.outro ?? ''}`.trim();
   const html = `<p>${escapeHtml(opts.intro)}</p><p><a href="${escapeHtml(opts.url)}">${escapeHtml(opts.linkLabel)}</a></p>${
     opts.outro ? `<p>${escapeHtml(opts.outro)}</p>` : ''

@@ -7,7 +7,11 @@ import { parseId } from '@/lib/server/http/ids';
 import { refundPayment } from '@/lib/server/payments/stripe';
 import { sendMail } from '@/lib/server/mail/send';
 import { formatMoney } from '@/lib/core/inputs/entries';
-import { applyProtestPayment, finishProtestPayment, type ProtestPaymentOutcome } from '@/lib/server/payments/apply-protest-payment';
+import {
+  applyProtestPayment,
+  finishProtestPayment,
+  type ProtestPaymentOutcome,
+} from '@/lib/server/payments/apply-protest-payment';
 
 type Outcome =
   | { kind: 'replay' | 'ignored' | 'unmatched' | 'mismatch' | 'already_recorded' }
@@ -38,43 +42,89 @@ export async function applyPaymentEvent(event: Stripe.Event): Promise<Outcome> {
     // Protest fees share the webhook (and its replay protection); metadata.kind says which it is.
     if (session.metadata?.kind === 'protest') return applyProtestPayment(session, transaction);
 
-    let entry = await models.Entry.findOne({ where: { checkoutSessionId: session.id }, lock: transaction.LOCK.UPDATE, transaction });
+    let entry = await models.Entry.findOne({
+      where: { checkoutSessionId: session.id },
+      lock: transaction.LOCK.UPDATE,
+      transaction,
+    });
     if (!entry && session.metadata?.entryId) {
-      const byId = (() => { try { return parseId(session.metadata!.entryId, 'entry'); } catch { return null; } })();
+      const byId = (() => {
+        try {
+          return parseId(session.metadata!.entryId, 'entry');
+        } catch {
+          return null;
+        }
+      })();
       if (byId) entry = await models.Entry.findByPk(byId, { lock: transaction.LOCK.UPDATE, transaction });
     }
     if (!entry) {
       console.error('[boreline] paid checkout session matches no entry', session.id);
       return { kind: 'unmatched' };
     }
-    if (session.amount_total !== entry.feeMinor || (session.currency ?? '').toLowerCase() !== entry.currency.toLowerCase()) {
+    if (
+      session.amount_total !== entry.feeMinor ||
+      (session.currency ?? '').toLowerCase() !== entry.currency.toLowerCase()
+    ) {
       console.error('[boreline] paid amount differs from the entry fee; left for the organiser', session.id, entry.id);
       return { kind: 'mismatch' };
     }
-    const paymentIntentId = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
+    const paymentIntentId =
+      typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
     if (entry.status === 'awaiting_payment') {
-      await entry.update({ status: 'entered', paidAt: new Date(), paymentIntentId, checkoutSessionId: entry.checkoutSessionId ?? session.id }, { transaction });
+      await entry.update(
+        {
+          status: 'entered',
+          paidAt: new Date(),
+          paymentIntentId,
+          checkoutSessionId: entry.checkoutSessionId ?? session.id,
+        },
+        { transaction },
+      );
       return { kind: 'paid', entryId: entry.id };
     }
-    if (paymentIntentId && entry.paymentIntentId !== paymentIntentId) return { kind: 'refund', entryId: entry.id, paymentIntentId };
+    if (paymentIntentId && entry.paymentIntentId !== paymentIntentId)
+      return { kind: 'refund', entryId: entry.id, paymentIntentId };
     return { kind: 'already_recorded' };
   });
 
   if (outcome.kind === 'protest_paid' || outcome.kind === 'protest_refund') await finishProtestPayment(outcome);
-  if (outcome.kind === 'paid') await sendReceipt(outcome.entryId).catch((err) => console.error('[boreline] receipt not sent', outcome.entryId, err));
+  if (outcome.kind === 'paid')
+    await sendReceipt(outcome.entryId).catch((err) =>
+      console.error('[boreline] receipt not sent', outcome.entryId, err),
+    );
   if (outcome.kind === 'refund') {
     // The key makes a repeated refund for the same payment a no-op at the provider.
-    await refundPayment({ paymentIntentId: outcome.paymentIntentId, idempotencyKey: `entry-unwanted-payment-${outcome.paymentIntentId}` })
+    await refundPayment({
+      paymentIntentId: outcome.paymentIntentId,
+      idempotencyKey: `entry-unwanted-payment-${outcome.paymentIntentId}`,
+    })
       .then(() => console.warn('[boreline] refunded a payment for an entry that no longer wanted one', outcome.entryId))
-      .catch((err) => console.error('[boreline] REFUND NEEDED by hand: payment for an entry that no longer wanted one', outcome.entryId, err));
+      .catch((err) =>
+        console.error(
+          '[boreline] REFUND NEEDED by hand: payment for an entry that no longer wanted one',
+          outcome.entryId,
+          err,
+        ),
+      );
   }
   return outcome;
 }
 
 async function sendReceipt(entryId: string) {
   const [row] = await getDb().sequelize.query<{
-    email: string; name: string | null; eventName: string; venue: string; className: string; classCode: string;
-    boatName: string; raceNumber: number; feeMinor: number; currency: string; paidAt: Date; paymentIntentId: string | null; timeZone: string;
+    email: string;
+    name: string | null;
+    eventName: string;
+    venue: string;
+    className: string;
+    classCode: string;
+    boatName: string;
+    raceNumber: number;
+    feeMinor: number;
+    currency: string;
+    paidAt: Date;
+    paymentIntentId: string | null;
+    timeZone: string;
   }>(
     `select u.email, u.name, ev.name as "eventName", ev.venue, c.name as "className", c.code as "classCode", b.name as "boatName",
             e.race_number as "raceNumber", e.fee_minor as "feeMinor", e.currency, e.paid_at as "paidAt", e.payment_intent_id as "paymentIntentId", ev.time_zone as "timeZone"
@@ -101,5 +151,9 @@ async function sendReceipt(entryId: string) {
     '',
     'Bring the boat to technical inspection with its QR tag fixed where scrutineers can scan it.',
   ];
-  await sendMail({ to: row.email, subject: `Receipt: entry fee for ${row.boatName} (#${row.raceNumber}) at ${row.eventName}`, text: lines.join('\n') });
+  await sendMail({
+    to: row.email,
+    subject: `Receipt: entry fee for ${row.boatName} (#${row.raceNumber}) at ${row.eventName}`,
+    text: lines.join('\n'),
+  });
 }

@@ -19,30 +19,53 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[1-8][0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-
  * recorded the event id, so a replay never gets here). A protest awaiting its fee becomes lodged;
  * a payment it no longer wants (a second session paid, or a protest rejected meanwhile) is refunded.
  */
-export async function applyProtestPayment(session: Stripe.Checkout.Session, transaction: Transaction): Promise<ProtestPaymentOutcome> {
+export async function applyProtestPayment(
+  session: Stripe.Checkout.Session,
+  transaction: Transaction,
+): Promise<ProtestPaymentOutcome> {
   const { models } = getDb();
-  let protest = await models.Protest.findOne({ where: { checkoutSessionId: session.id }, lock: transaction.LOCK.UPDATE, transaction });
+  let protest = await models.Protest.findOne({
+    where: { checkoutSessionId: session.id },
+    lock: transaction.LOCK.UPDATE,
+    transaction,
+  });
   const byId = session.metadata?.protestId;
-  if (!protest && byId && UUID.test(byId)) protest = await models.Protest.findByPk(byId.toLowerCase(), { lock: transaction.LOCK.UPDATE, transaction });
+  if (!protest && byId && UUID.test(byId))
+    protest = await models.Protest.findByPk(byId.toLowerCase(), { lock: transaction.LOCK.UPDATE, transaction });
   if (!protest) {
     console.error('[boreline] paid checkout session matches no protest', session.id);
     return { kind: 'unmatched' };
   }
-  if (session.amount_total !== protest.feeMinor || (session.currency ?? '').toLowerCase() !== protest.currency.toLowerCase()) {
+  if (
+    session.amount_total !== protest.feeMinor ||
+    (session.currency ?? '').toLowerCase() !== protest.currency.toLowerCase()
+  ) {
     console.error('[boreline] paid amount differs from the protest fee; left for the stewards', session.id, protest.id);
     return { kind: 'mismatch' };
   }
-  const paymentIntentId = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
+  const paymentIntentId =
+    typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
   if (protest.status === 'awaiting_fee') {
     const paidAt = new Date();
-    await protest.update({ status: 'lodged', paidAt, paymentIntentId, checkoutSessionId: protest.checkoutSessionId ?? session.id }, { transaction });
-    await recordAuditEvent({
-      eventId: protest.eventId, actorId: null, subjectType: 'protest', subjectId: protest.id, action: 'protest.lodged',
-      details: { paymentIntentId, checkoutSessionId: session.id, paidAfterWindow: paidAt > protest.windowDeadline },
-    }, transaction);
+    await protest.update(
+      { status: 'lodged', paidAt, paymentIntentId, checkoutSessionId: protest.checkoutSessionId ?? session.id },
+      { transaction },
+    );
+    await recordAuditEvent(
+      {
+        eventId: protest.eventId,
+        actorId: null,
+        subjectType: 'protest',
+        subjectId: protest.id,
+        action: 'protest.lodged',
+        details: { paymentIntentId, checkoutSessionId: session.id, paidAfterWindow: paidAt > protest.windowDeadline },
+      },
+      transaction,
+    );
     return { kind: 'protest_paid', protestId: protest.id };
   }
-  if (paymentIntentId && protest.paymentIntentId !== paymentIntentId) return { kind: 'protest_refund', protestId: protest.id, paymentIntentId };
+  if (paymentIntentId && protest.paymentIntentId !== paymentIntentId)
+    return { kind: 'protest_refund', protestId: protest.id, paymentIntentId };
   return { kind: 'already_recorded' };
 }
 
@@ -51,16 +74,26 @@ export async function finishProtestPayment(outcome: ProtestPaymentOutcome) {
   if (outcome.kind === 'protest_paid') {
     const p = await getDb().models.Protest.findByPk(outcome.protestId);
     if (!p) return;
-    await notifyParties(p.id, 'Protest lodged', [
-      `A protest has been lodged under ${p.ruleReference}; the fee of ${formatMoney(p.feeMinor, p.currency)} is paid.`,
-      'The fee is refunded if the protest is upheld and kept if it is dismissed.',
-      'The stewards will decide whether to accept it for a hearing.',
-    ], { includeStewards: true });
+    await notifyParties(
+      p.id,
+      'Protest lodged',
+      [
+        `A protest has been lodged under ${p.ruleReference}; the fee of ${formatMoney(p.feeMinor, p.currency)} is paid.`,
+        'The fee is refunded if the protest is upheld and kept if it is dismissed.',
+        'The stewards will decide whether to accept it for a hearing.',
+      ],
+      { includeStewards: true },
+    );
   }
   if (outcome.kind === 'protest_refund') {
     // The key makes a repeated refund of the same payment a no-op at the provider.
-    await refundPayment({ paymentIntentId: outcome.paymentIntentId, idempotencyKey: `protest-unwanted-payment-${outcome.paymentIntentId}` })
+    await refundPayment({
+      paymentIntentId: outcome.paymentIntentId,
+      idempotencyKey: `protest-unwanted-payment-${outcome.paymentIntentId}`,
+    })
       .then(() => console.warn('[boreline] refunded a protest payment that was not wanted', outcome.protestId))
-      .catch((err) => console.error('[boreline] REFUND NEEDED by hand: unwanted protest payment', outcome.protestId, err));
+      .catch((err) =>
+        console.error('[boreline] REFUND NEEDED by hand: unwanted protest payment', outcome.protestId, err),
+      );
   }
 }

@@ -15,7 +15,10 @@ import { appUrl } from '@/lib/server/config/env';
  * session instead of creating a second one. A free entry is entered at once, with no payment.
  * Payment itself is recorded only by the verified webhook (applyPaymentEvent), never here.
  */
-export async function startEntryPayment(actor: Actor | null, entryId: string): Promise<{ url: string; isFree: boolean }> {
+export async function startEntryPayment(
+  actor: Actor | null,
+  entryId: string,
+): Promise<{ url: string; isFree: boolean }> {
   assertCan(actor, 'entry.submit_own');
   const id = parseId(entryId, 'entry');
   const { models } = getDb();
@@ -26,7 +29,8 @@ export async function startEntryPayment(actor: Actor | null, entryId: string): P
   if (!entry) throw new AppError('not_found', 404, 'No such entry among yours.');
   assertAddressProven(actor); // no fee is tied to an unproven address
   if (entry.status === 'entered') throw new AppError('already_paid', 409, 'This entry is already paid and entered.');
-  if (entry.status !== 'awaiting_payment') throw new AppError('conflict', 409, 'This entry was withdrawn or cancelled, so there is nothing to pay.');
+  if (entry.status !== 'awaiting_payment')
+    throw new AppError('conflict', 409, 'This entry was withdrawn or cancelled, so there is nothing to pay.');
   const done = `${appUrl()}/entries?paid=${entry.id}`;
 
   if (entry.feeMinor === 0) {
@@ -53,7 +57,8 @@ export async function startEntryPayment(actor: Actor | null, entryId: string): P
       if (err instanceof AppError && err.status === 404) return null;
       throw err;
     });
-    if (existing?.status === 'complete') throw new AppError('payment_pending', 409, 'This entry has been paid; the confirmation is on its way.');
+    if (existing?.status === 'complete')
+      throw new AppError('payment_pending', 409, 'This entry has been paid; the confirmation is on its way.');
     if (existing?.status === 'open' && existing.metadata.checkoutKey) {
       // Same key and parameters: the provider answers with the session it already made, page URL included.
       const again = await createCheckoutSession(params(existing.metadata.checkoutKey)).catch(() => null);

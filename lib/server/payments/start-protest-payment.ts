@@ -20,7 +20,8 @@ export async function startProtestPayment(actor: Actor | null, protestId: string
   assertCan(actor, 'protest.lodge', { eventId: protest.eventId });
   assertAddressProven(actor); // no fee is tied to an unproven address
   if (protest.paidAt) throw new AppError('already_paid', 409, 'The protest fee is already paid.');
-  if (protest.status !== 'awaiting_fee') throw new AppError('conflict', 409, 'This protest is not waiting for its fee.');
+  if (protest.status !== 'awaiting_fee')
+    throw new AppError('conflict', 409, 'This protest is not waiting for its fee.');
   const { models } = getDb();
   const event = (await models.Event.findByPk(protest.eventId))!;
   const done = `${appUrl()}/protests/${protest.id}?paid=1`;
@@ -42,7 +43,8 @@ export async function startProtestPayment(actor: Actor | null, protestId: string
       if (err instanceof AppError && err.status === 404) return null;
       throw err;
     });
-    if (existing?.status === 'complete') throw new AppError('payment_pending', 409, 'The fee has been paid; the confirmation is on its way.');
+    if (existing?.status === 'complete')
+      throw new AppError('payment_pending', 409, 'The fee has been paid; the confirmation is on its way.');
     if (existing?.status === 'open' && existing.metadata.checkoutKey) {
       // Same key and parameters: the provider answers with the session it already made.
       const again = await createCheckoutSession(params(existing.metadata.checkoutKey)).catch(() => null);
@@ -52,8 +54,21 @@ export async function startProtestPayment(actor: Actor | null, protestId: string
   }
   const session = await createCheckoutSession(params(`protest-checkout-${protest.id}-${basis}`));
   await getDb().sequelize.transaction(async (transaction) => {
-    await models.Protest.update({ checkoutSessionId: session.id }, { where: { id: protest.id, status: 'awaiting_fee' }, transaction });
-    await recordAuditEvent({ eventId: protest.eventId, actorId: actor!.id, subjectType: 'protest', subjectId: protest.id, action: 'protest.checkout_opened', details: { checkoutSessionId: session.id } }, transaction);
+    await models.Protest.update(
+      { checkoutSessionId: session.id },
+      { where: { id: protest.id, status: 'awaiting_fee' }, transaction },
+    );
+    await recordAuditEvent(
+      {
+        eventId: protest.eventId,
+        actorId: actor!.id,
+        subjectType: 'protest',
+        subjectId: protest.id,
+        action: 'protest.checkout_opened',
+        details: { checkoutSessionId: session.id },
+      },
+      transaction,
+    );
   });
   return { url: session.url };
 }

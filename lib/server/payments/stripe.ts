@@ -23,7 +23,8 @@ function stripe(): Stripe {
   if (!globalForStripe.__borelineStripe) {
     const key = serverEnv().STRIPE_SECRET_KEY;
     // A key published in this repository authenticates nobody (lib/server/config/published-values.ts).
-    if (!key || isPublishedSecret('STRIPE_SECRET_KEY', key)) throw new AppError('payments_unavailable', 503, 'Payments are not configured on this server.');
+    if (!key || isPublishedSecret('STRIPE_SECRET_KEY', key))
+      throw new AppError('payments_unavailable', 503, 'Payments are not configured on this server.');
     globalForStripe.__borelineStripe = new Stripe(key, {
       ...stripeConnection(),
       maxNetworkRetries: 2, // POSTs carry an idempotency key, so retrying is safe
@@ -48,12 +49,23 @@ export type CheckoutInput = {
 
 /** Opens a hosted payment page for one amount; returns where to send the payer. */
 export async function createCheckoutSession(input: CheckoutInput): Promise<{ id: string; url: string }> {
-  if (!Number.isInteger(input.amountMinor) || input.amountMinor < 1) throw new AppError('invalid_amount', 400, 'The amount must be a whole number of minor units above zero.');
-  if (!/^[a-z]{3}$/i.test(input.currency)) throw new AppError('invalid_currency', 400, 'The currency must be a three-letter ISO 4217 code.');
+  if (!Number.isInteger(input.amountMinor) || input.amountMinor < 1)
+    throw new AppError('invalid_amount', 400, 'The amount must be a whole number of minor units above zero.');
+  if (!/^[a-z]{3}$/i.test(input.currency))
+    throw new AppError('invalid_currency', 400, 'The currency must be a three-letter ISO 4217 code.');
   const session = await stripe().checkout.sessions.create(
     {
       mode: 'payment',
-      line_items: [{ quantity: 1, price_data: { currency: input.currency.toLowerCase(), unit_amount: input.amountMinor, product_data: { name: input.description } } }],
+      line_items: [
+        {
+          quantity: 1,
+          price_data: {
+            currency: input.currency.toLowerCase(),
+            unit_amount: input.amountMinor,
+            product_data: { name: input.description },
+          },
+        },
+      ],
       success_url: input.successUrl,
       cancel_url: input.cancelUrl,
       client_reference_id: input.reference,
@@ -62,7 +74,8 @@ export async function createCheckoutSession(input: CheckoutInput): Promise<{ id:
     },
     { idempotencyKey: input.idempotencyKey },
   );
-  if (!session.url) throw new AppError('payments_unavailable', 502, 'The payment provider did not return a payment page.');
+  if (!session.url)
+    throw new AppError('payments_unavailable', 502, 'The payment provider did not return a payment page.');
   return { id: session.id, url: session.url };
 }
 
@@ -106,16 +119,32 @@ export async function getCheckoutSession(id: string): Promise<CheckoutSummary> {
 }
 
 /** Refunds all (amountMinor omitted) or part of a payment; refunding past what was paid is a 409. */
-export async function refundPayment(input: { paymentIntentId: string; amountMinor?: number; idempotencyKey: string; metadata?: Record<string, string> }): Promise<{ id: string; status: string | null }> {
+export async function refundPayment(input: {
+  paymentIntentId: string;
+  amountMinor?: number;
+  idempotencyKey: string;
+  metadata?: Record<string, string>;
+}): Promise<{ id: string; status: string | null }> {
   try {
     const refund = await stripe().refunds.create(
-      { payment_intent: input.paymentIntentId, ...(input.amountMinor !== undefined && { amount: input.amountMinor }), ...(input.metadata && { metadata: input.metadata }) },
+      {
+        payment_intent: input.paymentIntentId,
+        ...(input.amountMinor !== undefined && { amount: input.amountMinor }),
+        ...(input.metadata && { metadata: input.metadata }),
+      },
       { idempotencyKey: input.idempotencyKey },
     );
     return { id: refund.id, status: refund.status };
   } catch (err) {
-    if (err instanceof Stripe.errors.StripeInvalidRequestError && (err.code === 'charge_already_refunded' || err.code === 'amount_too_large')) {
-      throw new AppError('refund_exceeds_payment', 409, 'This payment has already been refunded, or the refund is larger than what is left of it.');
+    if (
+      err instanceof Stripe.errors.StripeInvalidRequestError &&
+      (err.code === 'charge_already_refunded' || err.code === 'amount_too_large')
+    ) {
+      throw new AppError(
+        'refund_exceeds_payment',
+        409,
+        'This payment has already been refunded, or the refund is larger than what is left of it.',
+      );
     }
     throw err;
   }
@@ -128,7 +157,8 @@ export async function refundPayment(input: { paymentIntentId: string; amountMino
 export function verifyWebhook(rawBody: string, signatureHeader: string | null): Stripe.Event {
   const secret = serverEnv().STRIPE_WEBHOOK_SECRET;
   // Anyone can sign with a secret published in this repository: such a value verifies nothing.
-  if (!secret || isPublishedSecret('STRIPE_WEBHOOK_SECRET', secret)) throw new AppError('payments_unavailable', 503, 'Payment webhooks are not configured on this server.');
+  if (!secret || isPublishedSecret('STRIPE_WEBHOOK_SECRET', secret))
+    throw new AppError('payments_unavailable', 503, 'Payment webhooks are not configured on this server.');
   if (!signatureHeader) throw new AppError('bad_signature', 400, 'The webhook has no Stripe-Signature header.');
   try {
     // The SDK's static verifier: checking a signature needs the webhook secret, not the API key.

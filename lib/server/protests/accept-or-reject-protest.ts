@@ -17,34 +17,82 @@ import { namesOfOfficials } from './names-of-officials';
  * time, fee not paid, not in the required form) with reasons. A rejection is a decision: it gets
  * an appeal deadline, and the fee, if paid, is kept (common practice, no single source).
  */
-export async function acceptOrRejectProtest(actor: Actor | null, protestId: string, action: 'accept' | 'reject', raw: unknown): Promise<ProtestDetail> {
+export async function acceptOrRejectProtest(
+  actor: Actor | null,
+  protestId: string,
+  action: 'accept' | 'reject',
+  raw: unknown,
+): Promise<ProtestDetail> {
   const { sequelize } = getDb();
   const { timeZone, rule, input } = await sequelize.transaction(async (transaction) => {
     // Who may act comes first (404/403), then the input (400).
     const { protest } = await findProtestForSteward(actor, protestId, transaction);
-    const input = action === 'accept' ? { ...AcceptProtestInput.parse(raw ?? {}), code: null, reasons: '' } : { note: '', ...RejectProtestInput.parse(raw) };
+    const input =
+      action === 'accept'
+        ? { ...AcceptProtestInput.parse(raw ?? {}), code: null, reasons: '' }
+        : { note: '', ...RejectProtestInput.parse(raw) };
     const event = (await getDb().models.Event.findByPk(protest.eventId, { transaction }))!;
     if (action === 'accept') {
-      if (protest.status !== 'lodged') throw new AppError('conflict', 409, protest.status === 'awaiting_fee' ? 'The fee is not paid yet: the protest is not lodged.' : 'Only a lodged protest can be accepted.');
+      if (protest.status !== 'lodged')
+        throw new AppError(
+          'conflict',
+          409,
+          protest.status === 'awaiting_fee'
+            ? 'The fee is not paid yet: the protest is not lodged.'
+            : 'Only a lodged protest can be accepted.',
+        );
       await protest.update({ status: 'accepted' }, { transaction });
-      await recordAuditEvent({ eventId: protest.eventId, actorId: actor!.id, subjectType: 'protest', subjectId: protest.id, action: 'protest.accepted', details: { note: input.note } }, transaction);
+      await recordAuditEvent(
+        {
+          eventId: protest.eventId,
+          actorId: actor!.id,
+          subjectType: 'protest',
+          subjectId: protest.id,
+          action: 'protest.accepted',
+          details: { note: input.note },
+        },
+        transaction,
+      );
     } else {
-      if (protest.status !== 'lodged' && protest.status !== 'awaiting_fee') throw new AppError('conflict', 409, 'Only a protest not yet accepted can be rejected as invalid.');
+      if (protest.status !== 'lodged' && protest.status !== 'awaiting_fee')
+        throw new AppError('conflict', 409, 'Only a protest not yet accepted can be rejected as invalid.');
       const decidedAt = new Date();
-      await protest.update({
-        status: 'rejected', rejectionCode: input.code, decisionReasons: input.reasons, decidedAt, decidedByIds: [actor!.id], decidedByNames: await namesOfOfficials([actor!.id], transaction),
-        appealDeadline: addMinutes(decidedAt, event.appealNoticeMinutes),
-      }, { transaction });
-      await recordAuditEvent({ eventId: protest.eventId, actorId: actor!.id, subjectType: 'protest', subjectId: protest.id, action: 'protest.rejected', details: { code: input.code, reasons: input.reasons } }, transaction);
+      await protest.update(
+        {
+          status: 'rejected',
+          rejectionCode: input.code,
+          decisionReasons: input.reasons,
+          decidedAt,
+          decidedByIds: [actor!.id],
+          decidedByNames: await namesOfOfficials([actor!.id], transaction),
+          appealDeadline: addMinutes(decidedAt, event.appealNoticeMinutes),
+        },
+        { transaction },
+      );
+      await recordAuditEvent(
+        {
+          eventId: protest.eventId,
+          actorId: actor!.id,
+          subjectType: 'protest',
+          subjectId: protest.id,
+          action: 'protest.rejected',
+          details: { code: input.code, reasons: input.reasons },
+        },
+        transaction,
+      );
     }
     return { timeZone: event.timeZone, rule: protest.ruleReference, input };
   });
   const detail = await getProtest(actor, protestId, { verifyEvidence: false });
   if (action === 'accept') {
-    await notifyParties(detail.id, 'Protest accepted for a hearing', [`The stewards have accepted the protest under ${rule}.`, 'They will tell you the time and place of the hearing.']);
+    await notifyParties(detail.id, 'Protest accepted for a hearing', [
+      `The stewards have accepted the protest under ${rule}.`,
+      'They will tell you the time and place of the hearing.',
+    ]);
   } else {
     await notifyParties(detail.id, 'Protest rejected as invalid', [
-      `The stewards have rejected the protest under ${rule} as invalid: ${REJECTION_LABELS[input.code!]}.`, `Reasons: ${input.reasons}`,
+      `The stewards have rejected the protest under ${rule} as invalid: ${REJECTION_LABELS[input.code!]}.`,
+      `Reasons: ${input.reasons}`,
       `Notice of appeal is due by ${formatInZone(detail.appealDeadline!, timeZone)}.`,
     ]);
   }

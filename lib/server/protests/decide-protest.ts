@@ -33,16 +33,29 @@ export async function decideProtest(actor: Actor | null, protestId: string, raw:
     const input = DecideProtestInput.parse(raw);
     const mayWithdraw = input.outcome === 'withdrawn' && protest.status === 'lodged';
     if (!DECIDABLE_STATUSES.includes(protest.status) && !mayWithdraw) {
-      throw new AppError('conflict', 409, `This protest is ${PROTEST_STATUS_LABELS[protest.status as ProtestStatus].toLowerCase()}: it cannot be decided now.`);
+      throw new AppError(
+        'conflict',
+        409,
+        `This protest is ${PROTEST_STATUS_LABELS[protest.status as ProtestStatus].toLowerCase()}: it cannot be decided now.`,
+      );
     }
     const panel = [...new Set(input.panelIds.map((x) => x.toLowerCase()))].filter((x) => x !== actor!.id);
     if (panel.length) {
-      const stewards = await models.EventStaff.count({ where: { eventId: protest.eventId, role: 'steward', userId: { [Op.in]: panel } }, transaction });
-      if (stewards !== panel.length) throw new AppError('invalid_input', 400, 'panelIds: name only stewards of this meeting.', [{ field: 'panelIds', message: 'Name only stewards of this meeting.' }]);
+      const stewards = await models.EventStaff.count({
+        where: { eventId: protest.eventId, role: 'steward', userId: { [Op.in]: panel } },
+        transaction,
+      });
+      if (stewards !== panel.length)
+        throw new AppError('invalid_input', 400, 'panelIds: name only stewards of this meeting.', [
+          { field: 'panelIds', message: 'Name only stewards of this meeting.' },
+        ]);
       // A steward with an interest cannot sit on the panel either (the deciding steward was checked above).
       const conflicted = await findProtestConflicts(protest.id, panel, transaction);
       if (conflicted.length) {
-        const names = await namesOfOfficials(conflicted.map((c) => c.officialId), transaction);
+        const names = await namesOfOfficials(
+          conflicted.map((c) => c.officialId),
+          transaction,
+        );
         const message = `${names.join(', ')} ${names.length === 1 ? 'has' : 'have'} an interest in this protest and cannot sit on the panel.`;
         throw new AppError('invalid_input', 400, `panelIds: ${message}`, [{ field: 'panelIds', message }]);
       }
@@ -51,23 +64,52 @@ export async function decideProtest(actor: Actor | null, protestId: string, raw:
     const decidedByNames = await namesOfOfficials(decidedByIds, transaction);
     let refund: { id: string } | null = null;
     if (input.outcome === 'upheld' && protest.paymentIntentId && !protest.refundId) {
-      refund = await refundPayment({ paymentIntentId: protest.paymentIntentId, idempotencyKey: `protest-fee-refund-${protest.id}`, metadata: { kind: 'protest', protestId: protest.id } })
-        .catch((err) => {
-          if (err instanceof AppError) throw err;
-          console.error('[boreline] protest fee refund failed; decision not recorded', protest.id, err);
-          throw new AppError('refund_failed', 502, 'The payment provider did not confirm the refund, so the decision was not recorded. Try again.');
-        });
+      refund = await refundPayment({
+        paymentIntentId: protest.paymentIntentId,
+        idempotencyKey: `protest-fee-refund-${protest.id}`,
+        metadata: { kind: 'protest', protestId: protest.id },
+      }).catch((err) => {
+        if (err instanceof AppError) throw err;
+        console.error('[boreline] protest fee refund failed; decision not recorded', protest.id, err);
+        throw new AppError(
+          'refund_failed',
+          502,
+          'The payment provider did not confirm the refund, so the decision was not recorded. Try again.',
+        );
+      });
     }
     const event = (await models.Event.findByPk(protest.eventId, { attributes: ['appealNoticeMinutes'], transaction }))!;
     const decidedAt = new Date();
-    await protest.update({
-      status: input.outcome, decisionReasons: input.reasons, penalty: input.penalty || null, decidedAt, decidedByIds, decidedByNames,
-      appealDeadline: addMinutes(decidedAt, event.appealNoticeMinutes), ...(refund && { refundId: refund.id, refundedAt: decidedAt }),
-    }, { transaction });
-    await recordAuditEvent({
-      eventId: protest.eventId, actorId: actor!.id, subjectType: 'protest', subjectId: protest.id, action: `protest.${input.outcome}`,
-      details: { reasons: input.reasons, penalty: input.penalty || null, decidedByIds, decidedByNames, refundId: refund?.id ?? null },
-    }, transaction);
+    await protest.update(
+      {
+        status: input.outcome,
+        decisionReasons: input.reasons,
+        penalty: input.penalty || null,
+        decidedAt,
+        decidedByIds,
+        decidedByNames,
+        appealDeadline: addMinutes(decidedAt, event.appealNoticeMinutes),
+        ...(refund && { refundId: refund.id, refundedAt: decidedAt }),
+      },
+      { transaction },
+    );
+    await recordAuditEvent(
+      {
+        eventId: protest.eventId,
+        actorId: actor!.id,
+        subjectType: 'protest',
+        subjectId: protest.id,
+        action: `protest.${input.outcome}`,
+        details: {
+          reasons: input.reasons,
+          penalty: input.penalty || null,
+          decidedByIds,
+          decidedByNames,
+          refundId: refund?.id ?? null,
+        },
+      },
+      transaction,
+    );
     return { input, refunded: Boolean(refund), feeMinor: protest.feeMinor, currency: protest.currency };
   });
   const detail = await getProtest(actor, protestId, { verifyEvidence: false });
@@ -76,7 +118,13 @@ export async function decideProtest(actor: Actor | null, protestId: string, raw:
     `The stewards have decided the protest under ${detail.ruleReference} against ${detail.targetLabel}: ${detail.statusLabel.toUpperCase()}.`,
     `Reasons: ${input.reasons}`,
     ...(input.penalty ? [`Penalty: ${input.penalty}`] : []),
-    ...(fee ? [outcome.refunded ? `The protest fee of ${fee} is refunded to the card that paid it.` : `The protest fee of ${fee} is kept.`] : []),
+    ...(fee
+      ? [
+          outcome.refunded
+            ? `The protest fee of ${fee} is refunded to the card that paid it.`
+            : `The protest fee of ${fee} is kept.`,
+        ]
+      : []),
     `Notice of appeal is due by ${formatInZone(detail.appealDeadline!, detail.timeZone)}.`,
     `The written decision (PDF): ${appUrl()}/api/protests/${detail.id}/decision.pdf`,
   ]);

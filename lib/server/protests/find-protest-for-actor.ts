@@ -22,17 +22,27 @@ const notFound = () => new AppError('not_found', 404, 'No such protest.');
  * learn that it exists: anyone else gets 404, as for a missing id. The protested entrant is a
  * party only once the fee is paid (until then nothing has been lodged against them).
  */
-export async function findProtestForActor(actor: Actor | null, protestId: string, opts: { transaction?: Transaction; lock?: boolean } = {}): Promise<ProtestAccess> {
+export async function findProtestForActor(
+  actor: Actor | null,
+  protestId: string,
+  opts: { transaction?: Transaction; lock?: boolean } = {},
+): Promise<ProtestAccess> {
   if (!actor) throw new AppError('unauthenticated', 401, 'Sign in to do this.');
   const id = parseId(protestId, 'protest');
   const { models } = getDb();
-  const protest = await models.Protest.findByPk(id, { transaction: opts.transaction, ...(opts.lock && opts.transaction && { lock: opts.transaction.LOCK.UPDATE }) });
+  const protest = await models.Protest.findByPk(id, {
+    transaction: opts.transaction,
+    ...(opts.lock && opts.transaction && { lock: opts.transaction.LOCK.UPDATE }),
+  });
   if (!protest) throw notFound();
   const scope = { eventId: protest.eventId };
   const isLodger = protest.lodgedById === actor.id;
   let isProtested = false;
   if (protest.againstEntryId && protest.status !== 'awaiting_fee') {
-    const entry = await models.Entry.findByPk(protest.againstEntryId, { attributes: ['entrantId'], transaction: opts.transaction });
+    const entry = await models.Entry.findByPk(protest.againstEntryId, {
+      attributes: ['entrantId'],
+      transaction: opts.transaction,
+    });
     isProtested = entry?.entrantId === actor.id;
   }
   const isOfficial = can(actor, 'protest.view_all', scope);
@@ -45,13 +55,21 @@ export async function findProtestForActor(actor: Actor | null, protestId: string
  * party or the organiser who can see it gets 403, and so does a steward with an interest in it
  * (lib/server/interests/find-protest-conflicts.ts): the role alone is not enough.
  */
-export async function findProtestForSteward(actor: Actor | null, protestId: string, transaction: Transaction): Promise<ProtestAccess> {
+export async function findProtestForSteward(
+  actor: Actor | null,
+  protestId: string,
+  transaction: Transaction,
+): Promise<ProtestAccess> {
   const access = await findProtestForActor(actor, protestId, { transaction, lock: true });
   if (!access.canDecide) throw new AppError('forbidden', 403, 'Only the stewards of this meeting can do this.');
   const [conflict] = await findProtestConflicts(access.protest.id, [actor!.id], transaction);
   if (conflict) {
     const why = conflict.reasons.map((r) => describeConflict(r)).join('; ');
-    throw new AppError('conflict_of_interest', 403, `You have an interest in this protest (${why}): another steward of this meeting must accept, hear and decide it.`);
+    throw new AppError(
+      'conflict_of_interest',
+      403,
+      `You have an interest in this protest (${why}): another steward of this meeting must accept, hear and decide it.`,
+    );
   }
   return access;
 }

@@ -8,11 +8,28 @@ import { listEvidence, type EvidenceView } from './list-evidence';
 import { DECIDABLE_STATUSES, DECIDED_STATUSES, OPEN_STATUSES } from '../../core/protests/protest-states';
 import { listStewardInterests } from '@/lib/server/interests/list-steward-interests';
 
-export type ReinspectionLink = { id: string; reason: string; createdAt: string; doneAt: string | null; inspectionId: string | null; verdict: string | null };
+export type ReinspectionLink = {
+  id: string;
+  reason: string;
+  createdAt: string;
+  doneAt: string | null;
+  inspectionId: string | null;
+  verdict: string | null;
+};
 export type ProtestDetail = ProtestSummary & {
   evidence: EvidenceView[];
   reinspections: ReinspectionLink[];
-  can: { pay: boolean; addEvidence: boolean; linkInspection: boolean; accept: boolean; reject: boolean; orderReinspection: boolean; scheduleHearing: boolean; decide: boolean; downloadDecision: boolean };
+  can: {
+    pay: boolean;
+    addEvidence: boolean;
+    linkInspection: boolean;
+    accept: boolean;
+    reject: boolean;
+    orderReinspection: boolean;
+    scheduleHearing: boolean;
+    decide: boolean;
+    downloadDecision: boolean;
+  };
   viewerRole: 'lodger' | 'protested' | 'official';
   // Officials only (empty for the parties): the viewer's own interest, which takes away every
   // steward step; the meeting's stewards who have one; and the stewards' team interests, which
@@ -23,7 +40,11 @@ export type ProtestDetail = ProtestSummary & {
 };
 
 /** One protest for its parties and the meeting's officials, with evidence (hash-checked) and what the viewer may do next. */
-export async function getProtest(actor: Actor | null, protestId: string, opts: { verifyEvidence?: boolean } = {}): Promise<ProtestDetail> {
+export async function getProtest(
+  actor: Actor | null,
+  protestId: string,
+  opts: { verifyEvidence?: boolean } = {},
+): Promise<ProtestDetail> {
   const access = await findProtestForActor(actor, protestId);
   const { protest } = access;
   const [summary] = await queryProtestSummaries('p.id = :id', { id: protest.id });
@@ -34,20 +55,38 @@ export async function getProtest(actor: Actor | null, protestId: string, opts: {
   ]);
   // The inspection a task produced (recorded by the scrutineers), with its verdict.
   const done = tasks.map((t) => t.inspectionId).filter((x): x is string => Boolean(x));
-  const verdicts = new Map((done.length ? await getDb().models.Inspection.findAll({ where: { id: done }, attributes: ['id', 'overallResult'] }) : []).map((i) => [i.id, i.overallResult]));
+  const verdicts = new Map(
+    (done.length
+      ? await getDb().models.Inspection.findAll({ where: { id: done }, attributes: ['id', 'overallResult'] })
+      : []
+    ).map((i) => [i.id, i.overallResult]),
+  );
   const s = summary.status;
   const isParty = access.isLodger || access.isProtested;
-  const interests = access.isOfficial ? await listStewardInterests(protest.id, protest.eventId) : { conflicts: [], teamInterests: [] };
+  const interests = access.isOfficial
+    ? await listStewardInterests(protest.id, protest.eventId)
+    : { conflicts: [], teamInterests: [] };
   const viewerConflict = interests.conflicts.find((c) => c.officialId === actor!.id)?.reasons ?? [];
   // A steward with an interest takes no steward step (the server refuses them too).
   const decides = access.canDecide && viewerConflict.length === 0;
   return {
     ...summary,
     evidence,
-    reinspections: tasks.map((t) => ({ id: t.id, reason: t.reason, createdAt: t.createdAt.toISOString(), doneAt: t.doneAt?.toISOString() ?? null, inspectionId: t.inspectionId ?? null, verdict: t.inspectionId ? verdicts.get(t.inspectionId) ?? null : null })),
+    reinspections: tasks.map((t) => ({
+      id: t.id,
+      reason: t.reason,
+      createdAt: t.createdAt.toISOString(),
+      doneAt: t.doneAt?.toISOString() ?? null,
+      inspectionId: t.inspectionId ?? null,
+      verdict: t.inspectionId ? (verdicts.get(t.inspectionId) ?? null) : null,
+    })),
     viewerRole: access.isLodger ? 'lodger' : access.isProtested ? 'protested' : 'official',
     viewerConflict,
-    stewardConflicts: interests.conflicts.map((c) => ({ officialId: c.officialId, name: c.name, reasons: c.reasonsAsOthers })),
+    stewardConflicts: interests.conflicts.map((c) => ({
+      officialId: c.officialId,
+      name: c.name,
+      reasons: c.reasonsAsOthers,
+    })),
     stewardTeamInterests: interests.teamInterests,
     can: {
       pay: access.isLodger && s === 'awaiting_fee',
@@ -56,7 +95,8 @@ export async function getProtest(actor: Actor | null, protestId: string, opts: {
       accept: decides && s === 'lodged',
       reject: decides && (s === 'lodged' || s === 'awaiting_fee'),
       // One open task per protest: the form comes back once the scrutineers have recorded it.
-      orderReinspection: decides && DECIDABLE_STATUSES.includes(s) && Boolean(summary.againstEntryId) && !tasks.some((t) => !t.doneAt),
+      orderReinspection:
+        decides && DECIDABLE_STATUSES.includes(s) && Boolean(summary.againstEntryId) && !tasks.some((t) => !t.doneAt),
       scheduleHearing: decides && DECIDABLE_STATUSES.includes(s),
       decide: decides && (DECIDABLE_STATUSES.includes(s) || s === 'lodged'),
       downloadDecision: DECIDED_STATUSES.includes(s),

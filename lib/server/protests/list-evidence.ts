@@ -24,7 +24,10 @@ export type EvidenceView = {
 };
 
 /** Recomputes a stored object's SHA-256 and compares it with the one recorded at upload. */
-export async function checkStoredHash(objectKey: string, sha256: string): Promise<{ integrity: Integrity; bytes: Buffer | null; sha256Now: string | null }> {
+export async function checkStoredHash(
+  objectKey: string,
+  sha256: string,
+): Promise<{ integrity: Integrity; bytes: Buffer | null; sha256Now: string | null }> {
   try {
     const bytes = await getObjectBytes(objectKey);
     const sha256Now = createHash('sha256').update(bytes).digest('hex');
@@ -35,10 +38,18 @@ export async function checkStoredHash(objectKey: string, sha256: string): Promis
   }
 }
 
-type Row = Omit<EvidenceView, 'integrity' | 'createdAt' | 'sizeBytes'> & { createdAt: Date; sizeBytes: string | null; objectKey: string | null };
+type Row = Omit<EvidenceView, 'integrity' | 'createdAt' | 'sizeBytes'> & {
+  createdAt: Date;
+  sizeBytes: string | null;
+  objectKey: string | null;
+};
 
 /** A protest's evidence, oldest first, each file's hash checked against the stored bytes. */
-export async function listEvidence(actor: Actor | null, protestId: string, opts: { verify?: boolean } = {}): Promise<EvidenceView[]> {
+export async function listEvidence(
+  actor: Actor | null,
+  protestId: string,
+  opts: { verify?: boolean } = {},
+): Promise<EvidenceView[]> {
   const { protest } = await findProtestForActor(actor, protestId);
   const rows = await getDb().sequelize.query<Row>(
     `select x.id, x.kind, coalesce(u.name, u.email) as "addedByName", x.created_at as "createdAt", x.file_name as "fileName",
@@ -50,10 +61,15 @@ export async function listEvidence(actor: Actor | null, protestId: string, opts:
       where x.protest_id = :protestId order by x.created_at, x.id`,
     { replacements: { protestId: protest.id }, type: QueryTypes.SELECT },
   );
-  return Promise.all(rows.map(async ({ objectKey, ...r }) => ({
-    ...r,
-    createdAt: new Date(r.createdAt).toISOString(),
-    sizeBytes: r.sizeBytes === null ? null : Number(r.sizeBytes),
-    integrity: r.kind === 'file' && opts.verify !== false && objectKey && r.sha256 ? (await checkStoredHash(objectKey, r.sha256)).integrity : null,
-  })));
+  return Promise.all(
+    rows.map(async ({ objectKey, ...r }) => ({
+      ...r,
+      createdAt: new Date(r.createdAt).toISOString(),
+      sizeBytes: r.sizeBytes === null ? null : Number(r.sizeBytes),
+      integrity:
+        r.kind === 'file' && opts.verify !== false && objectKey && r.sha256
+          ? (await checkStoredHash(objectKey, r.sha256)).integrity
+          : null,
+    })),
+  );
 }

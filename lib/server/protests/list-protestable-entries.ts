@@ -24,7 +24,14 @@ export type ProtestableEvent = {
 export async function listProtestableEntries(actor: Actor | null, now = new Date()): Promise<ProtestableEvent[]> {
   if (!actor) throw new AppError('unauthenticated', 401, 'Sign in to do this.');
   const { sequelize, models } = getDb();
-  const events = await sequelize.query<{ id: string; name: string; timeZone: string; feeMinor: number; currency: string; windowMinutes: number }>(
+  const events = await sequelize.query<{
+    id: string;
+    name: string;
+    timeZone: string;
+    feeMinor: number;
+    currency: string;
+    windowMinutes: number;
+  }>(
     `select ev.id, ev.name, ev.time_zone as "timeZone", ev.protest_fee_minor as "feeMinor", ev.currency, ev.protest_window_minutes as "windowMinutes"
        from events ev
       where exists (select 1 from entries e where e.event_id = ev.id and e.entrant_id = :uid and e.status = 'entered')
@@ -32,29 +39,50 @@ export async function listProtestableEntries(actor: Actor | null, now = new Date
       order by ev.starts_on desc`,
     { replacements: { uid: actor.id }, type: QueryTypes.SELECT },
   );
-  return Promise.all(events.map(async (ev) => {
-    const versions = await loadResultsVersions(ev.id);
-    const classIds = [...new Set(versions.map((v) => v.classId))];
-    const [entries, classes] = await Promise.all([
-      sequelize.query<{ id: string; raceNumber: number; boatName: string; classCode: string; classId: string }>(
-        `select e.id, e.race_number as "raceNumber", b.name as "boatName", c.code as "classCode", c.id as "classId"
+  return Promise.all(
+    events.map(async (ev) => {
+      const versions = await loadResultsVersions(ev.id);
+      const classIds = [...new Set(versions.map((v) => v.classId))];
+      const [entries, classes] = await Promise.all([
+        sequelize.query<{ id: string; raceNumber: number; boatName: string; classCode: string; classId: string }>(
+          `select e.id, e.race_number as "raceNumber", b.name as "boatName", c.code as "classCode", c.id as "classId"
            from entries e join boats b on b.id = e.boat_id join race_classes c on c.id = e.class_id
           where e.event_id = :eventId and e.entrant_id <> :uid and e.status = 'entered' and e.class_id = any(array[:classIds]::uuid[])
           order by c.code, e.race_number`,
-        { replacements: { eventId: ev.id, uid: actor.id, classIds }, type: QueryTypes.SELECT },
-      ),
-      models.RaceClass.findAll({ where: { eventId: ev.id }, attributes: ['id', 'code'] }),
-    ]);
-    const code = new Map(classes.map((c) => [c.id, c.code]));
-    const win = (publishedAt: Date) => describeWindow({ publishedAt, windowMinutes: ev.windowMinutes, timeZone: ev.timeZone, now });
-    const latestPerClass = classIds.map((cid) => versions.filter((v) => v.classId === cid).at(-1)!);
-    return {
-      eventId: ev.id, eventName: ev.name, timeZone: ev.timeZone, feeMinor: ev.feeMinor, currency: ev.currency, windowMinutes: ev.windowMinutes,
-      entries: entries.map((e) => ({
-        entryId: e.id, raceNumber: e.raceNumber, boatName: e.boatName, classCode: e.classCode,
-        window: win(relevantVersionForEntry(versions.filter((v) => v.classId === e.classId), e.id)!.publishedAt),
-      })),
-      results: latestPerClass.map((v) => ({ resultId: v.id, classCode: code.get(v.classId) ?? '?', version: v.version, window: win(v.publishedAt) })),
-    };
-  }));
+          { replacements: { eventId: ev.id, uid: actor.id, classIds }, type: QueryTypes.SELECT },
+        ),
+        models.RaceClass.findAll({ where: { eventId: ev.id }, attributes: ['id', 'code'] }),
+      ]);
+      const code = new Map(classes.map((c) => [c.id, c.code]));
+      const win = (publishedAt: Date) =>
+        describeWindow({ publishedAt, windowMinutes: ev.windowMinutes, timeZone: ev.timeZone, now });
+      const latestPerClass = classIds.map((cid) => versions.filter((v) => v.classId === cid).at(-1)!);
+      return {
+        eventId: ev.id,
+        eventName: ev.name,
+        timeZone: ev.timeZone,
+        feeMinor: ev.feeMinor,
+        currency: ev.currency,
+        windowMinutes: ev.windowMinutes,
+        entries: entries.map((e) => ({
+          entryId: e.id,
+          raceNumber: e.raceNumber,
+          boatName: e.boatName,
+          classCode: e.classCode,
+          window: win(
+            relevantVersionForEntry(
+              versions.filter((v) => v.classId === e.classId),
+              e.id,
+            )!.publishedAt,
+          ),
+        })),
+        results: latestPerClass.map((v) => ({
+          resultId: v.id,
+          classCode: code.get(v.classId) ?? '?',
+          version: v.version,
+          window: win(v.publishedAt),
+        })),
+      };
+    }),
+  );
 }

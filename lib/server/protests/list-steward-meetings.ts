@@ -12,5 +12,11 @@ export async function listStewardMeetings(actor: Actor | null): Promise<StewardM
   const ids = Object.keys(actor.eventRoles).filter((eventId) => can(actor, 'protest.view_all', { eventId }));
   if (ids.length === 0) return [];
   const events = await getDb().models.Event.findAll({ where: { id: { [Op.in]: ids } }, order: [['startsOn', 'DESC']] });
-  return events.map((e) => ({ id: e.id, name: e.name, venue: e.venue, startsOn: e.startsOn, canPublishResults: can(actor, 'results.publish', { eventId: e.id }) }));
+  return events.map((e) => ({
+    id: e.id,
+    name: e.name,
+    venue: e.venue,
+    startsOn: e.startsOn,
+    canPublishResults: can(actor, 'results.publish', { eventId: e.id }),
+  }));
 }

@@ -6,7 +6,15 @@ import { queryProtestSummaries, type ProtestSummary } from './protest-view';
 import { PROTEST_STATUS_LABELS, QUEUE_ORDER, type ProtestStatus } from '../../core/protests/protest-states';
 
 export type StewardQueue = {
-  event: { id: string; name: string; timeZone: string; protestWindowMinutes: number; appealNoticeMinutes: number; protestFeeMinor: number; currency: string };
+  event: {
+    id: string;
+    name: string;
+    timeZone: string;
+    protestWindowMinutes: number;
+    appealNoticeMinutes: number;
+    protestFeeMinor: number;
+    currency: string;
+  };
   groups: { status: ProtestStatus; label: string; items: ProtestSummary[] }[];
   total: number;
 };
@@ -19,10 +27,20 @@ export async function listStewardQueue(actor: Actor | null, eventId: string): Pr
   const items = await queryProtestSummaries('p.event_id = :eventId', { eventId });
   // Oldest first within a state: the first lodged is the first heard.
   const groups = QUEUE_ORDER.map((status) => ({
-    status, label: PROTEST_STATUS_LABELS[status], items: items.filter((p) => p.status === status).sort((a, b) => a.lodgedAt.localeCompare(b.lodgedAt)),
+    status,
+    label: PROTEST_STATUS_LABELS[status],
+    items: items.filter((p) => p.status === status).sort((a, b) => a.lodgedAt.localeCompare(b.lodgedAt)),
   })).filter((g) => g.items.length > 0);
   return {
-    event: { id: event.id, name: event.name, timeZone: event.timeZone, protestWindowMinutes: event.protestWindowMinutes, appealNoticeMinutes: event.appealNoticeMinutes, protestFeeMinor: event.protestFeeMinor, currency: event.currency },
+    event: {
+      id: event.id,
+      name: event.name,
+      timeZone: event.timeZone,
+      protestWindowMinutes: event.protestWindowMinutes,
+      appealNoticeMinutes: event.appealNoticeMinutes,
+      protestFeeMinor: event.protestFeeMinor,
+      currency: event.currency,
+    },
     groups,
     total: items.length,
   };

@@ -9,10 +9,20 @@ import { appUrl } from '@/lib/server/config/env';
  * link to the protest page; stewards too when asked. Sent after the change is committed; a mail
  * failure is logged and never undoes the change.
  */
-export async function notifyParties(protestId: string, subject: string, lines: string[], opts: { includeProtested?: boolean; includeStewards?: boolean } = {}) {
+export async function notifyParties(
+  protestId: string,
+  subject: string,
+  lines: string[],
+  opts: { includeProtested?: boolean; includeStewards?: boolean } = {},
+) {
   try {
     const [p] = await getDb().sequelize.query<{
-      eventId: string; eventName: string; lodgerEmail: string; protestedEmail: string | null; boatName: string | null; raceNumber: number | null;
+      eventId: string;
+      eventName: string;
+      lodgerEmail: string;
+      protestedEmail: string | null;
+      boatName: string | null;
+      raceNumber: number | null;
     }>(
       `select p.event_id as "eventId", ev.name as "eventName", lu.email as "lodgerEmail", pu.email as "protestedEmail",
               b.name as "boatName", e.race_number as "raceNumber"
@@ -25,8 +35,15 @@ export async function notifyParties(protestId: string, subject: string, lines: s
     if (!p) return;
     // Both parties read which boat the protest is about; the protested entrant may race several.
     const boat = p.boatName ? `No. ${p.raceNumber} ${p.boatName}` : null;
-    const text = (opening: string[]) => [...opening, ...lines, '', `The protest: ${appUrl()}/protests/${protestId}`, '',
-      "The governing body's rules, local regulations and licensed officials decide; every decision has a route to appeal."].join('\n');
+    const text = (opening: string[]) =>
+      [
+        ...opening,
+        ...lines,
+        '',
+        `The protest: ${appUrl()}/protests/${protestId}`,
+        '',
+        "The governing body's rules, local regulations and licensed officials decide; every decision has a route to appeal.",
+      ].join('\n');
     const sent = new Set<string>();
     if (opts.includeProtested !== false && p.protestedEmail && boat) {
       sent.add(p.protestedEmail);
@@ -37,15 +54,29 @@ export async function notifyParties(protestId: string, subject: string, lines: s
       });
     }
     if (!sent.has(p.lodgerEmail)) {
-      await sendMail({ to: p.lodgerEmail, subject: `${subject}${boat ? `: ${boat}` : ''} — ${p.eventName}`, text: text(boat ? [`The protested boat: ${boat}.`, ''] : []) });
+      await sendMail({
+        to: p.lodgerEmail,
+        subject: `${subject}${boat ? `: ${boat}` : ''} — ${p.eventName}`,
+        text: text(boat ? [`The protested boat: ${boat}.`, ''] : []),
+      });
     }
     if (opts.includeStewards) {
       const stewards = await getDb().sequelize.query<{ email: string }>(
         `select distinct u.email from event_staff s join users u on u.id = s.user_id where s.event_id = :eventId and s.role = 'steward'`,
         { replacements: { eventId: p.eventId }, type: QueryTypes.SELECT },
       );
-      const stewardText = [...(boat ? [`The protested boat: ${boat}.`, ''] : []), ...lines, '', `The stewards' page: ${appUrl()}/stewards/${p.eventId}/protests/${protestId}`].join('\n');
-      for (const s of stewards) await sendMail({ to: s.email, subject: `Stewards: ${subject}${boat ? `: ${boat}` : ''} — ${p.eventName}`, text: stewardText });
+      const stewardText = [
+        ...(boat ? [`The protested boat: ${boat}.`, ''] : []),
+        ...lines,
+        '',
+        `The stewards' page: ${appUrl()}/stewards/${p.eventId}/protests/${protestId}`,
+      ].join('\n');
+      for (const s of stewards)
+        await sendMail({
+          to: s.email,
+          subject: `Stewards: ${subject}${boat ? `: ${boat}` : ''} — ${p.eventName}`,
+          text: stewardText,
+        });
     }
   } catch (err) {
     console.error('[boreline] protest e-mail not sent', protestId, subject, err);

@@ -7,7 +7,14 @@ import { recordAuditEvent } from '@/lib/server/audit/record-audit-event';
 import { findProtestForActor } from './find-protest-for-actor';
 import { checkStoredHash } from './list-evidence';
 
-export type OpenedEvidence = { fileName: string; contentType: string; bytes: Buffer; sha256Stored: string; sha256Now: string; integrity: 'intact' | 'altered' };
+export type OpenedEvidence = {
+  fileName: string;
+  contentType: string;
+  bytes: Buffer;
+  sha256Stored: string;
+  sha256Now: string;
+  integrity: 'intact' | 'altered';
+};
 
 /**
  * Reads an evidence file back from storage and hashes it again: 'intact' when the SHA-256 equals
@@ -23,18 +30,28 @@ export async function openEvidence(actor: Actor | null, evidenceId: string): Pro
     if (err instanceof AppError && err.status === 404) throw new AppError('not_found', 404, 'No such evidence.');
     throw err;
   });
-  if (evidence.kind !== 'file' || !evidence.objectKey || !evidence.sha256) throw new AppError('not_found', 404, 'This evidence is not a file.');
+  if (evidence.kind !== 'file' || !evidence.objectKey || !evidence.sha256)
+    throw new AppError('not_found', 404, 'This evidence is not a file.');
   const checked = await checkStoredHash(evidence.objectKey, evidence.sha256);
-  if (checked.integrity === 'missing' || !checked.bytes) throw new AppError('not_found', 404, 'The stored file is missing; tell the stewards.');
+  if (checked.integrity === 'missing' || !checked.bytes)
+    throw new AppError('not_found', 404, 'The stored file is missing; tell the stewards.');
   if (checked.integrity === 'altered') {
     console.error('[boreline] evidence hash mismatch', evidence.id);
     await recordAuditEvent({
-      eventId: protest.eventId, actorId: actor.id, subjectType: 'protest', subjectId: protest.id, action: 'protest.evidence_altered_detected',
+      eventId: protest.eventId,
+      actorId: actor.id,
+      subjectType: 'protest',
+      subjectId: protest.id,
+      action: 'protest.evidence_altered_detected',
       details: { evidenceId: evidence.id, sha256Stored: evidence.sha256, sha256Now: checked.sha256Now },
     });
   }
   return {
-    fileName: evidence.fileName ?? 'evidence', contentType: evidence.contentType ?? 'application/octet-stream', bytes: checked.bytes,
-    sha256Stored: evidence.sha256, sha256Now: checked.sha256Now!, integrity: checked.integrity,
+    fileName: evidence.fileName ?? 'evidence',
+    contentType: evidence.contentType ?? 'application/octet-stream',
+    bytes: checked.bytes,
+    sha256Stored: evidence.sha256,
+    sha256Now: checked.sha256Now!,
+    integrity: checked.integrity,
   };
 }

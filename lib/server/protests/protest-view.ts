@@ -2,7 +2,12 @@ import 'server-only';
 import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { formatInZone } from '../../core/protests/protest-window';
-import { PROTEST_STATUS_LABELS, REJECTION_LABELS, type ProtestStatus, type RejectionCode } from '../../core/protests/protest-states';
+import {
+  PROTEST_STATUS_LABELS,
+  REJECTION_LABELS,
+  type ProtestStatus,
+  type RejectionCode,
+} from '../../core/protests/protest-states';
 
 // A protest as screens, e-mails and the API see it (plain object), and the one query that reads it.
 export type ProtestSummary = {
@@ -48,7 +53,10 @@ export type ProtestSummary = {
 type Row = Record<string, unknown> & { timeZone: string };
 const iso = (d: unknown) => (d ? new Date(d as string).toISOString() : null);
 
-export async function queryProtestSummaries(where: string, replacements: Record<string, unknown>): Promise<ProtestSummary[]> {
+export async function queryProtestSummaries(
+  where: string,
+  replacements: Record<string, unknown>,
+): Promise<ProtestSummary[]> {
   const rows = await getDb().sequelize.query<Row>(
     `select p.id, p.event_id as "eventId", ev.name as "eventName", ev.time_zone as "timeZone", p.status,
             p.against_entry_id as "againstEntryId", p.against_result_id as "againstResultId", e.entrant_id as "protestedEntrantId",
@@ -79,19 +87,45 @@ export async function queryProtestSummaries(where: string, replacements: Record<
     const label = (d: unknown) => (d ? formatInZone(d as string, tz) : null);
     const status = r.status as ProtestStatus;
     return {
-      id: r.id as string, eventId: r.eventId as string, eventName: r.eventName as string, timeZone: tz, status, statusLabel: PROTEST_STATUS_LABELS[status],
-      targetLabel: r.againstEntryId ? `#${r.raceNumber} ${r.boatName} (${r.classCode})` : `${r.classCode} provisional results v${r.resultVersion}`,
-      againstEntryId: (r.againstEntryId as string) ?? null, againstResultId: (r.againstResultId as string) ?? null,
-      protestedEntrantId: (r.protestedEntrantId as string) ?? null, raceNumber: (r.raceNumber as number) ?? null,
-      ruleReference: r.ruleReference as string, grounds: r.grounds as string, requestedChecks: (r.requestedChecks as string[]) ?? [],
-      lodgedById: r.lodgedById as string, lodgedByName: r.lodgedByName as string,
-      lodgedAt: iso(r.lodgedAt)!, lodgedAtLabel: label(r.lodgedAt)!, windowDeadline: iso(r.windowDeadline)!, windowDeadlineLabel: label(r.windowDeadline)!,
-      feeMinor: r.feeMinor as number, currency: r.currency as string, paidAt: iso(r.paidAt), refundId: (r.refundId as string) ?? null, refundedAt: iso(r.refundedAt),
-      rejectionCode: (r.rejectionCode as RejectionCode) ?? null, rejectionLabel: r.rejectionCode ? REJECTION_LABELS[r.rejectionCode as RejectionCode] : null,
-      hearingAt: iso(r.hearingAt), hearingAtLabel: label(r.hearingAt), hearingPlace: (r.hearingPlace as string) ?? null,
-      decisionReasons: (r.decisionReasons as string) ?? null, penalty: (r.penalty as string) || null,
-      decidedAt: iso(r.decidedAt), decidedAtLabel: label(r.decidedAt), decidedByNames: (r.decidedByNames as string[]) ?? [],
-      appealDeadline: iso(r.appealDeadline), appealDeadlineLabel: label(r.appealDeadline),
+      id: r.id as string,
+      eventId: r.eventId as string,
+      eventName: r.eventName as string,
+      timeZone: tz,
+      status,
+      statusLabel: PROTEST_STATUS_LABELS[status],
+      targetLabel: r.againstEntryId
+        ? `#${r.raceNumber} ${r.boatName} (${r.classCode})`
+        : `${r.classCode} provisional results v${r.resultVersion}`,
+      againstEntryId: (r.againstEntryId as string) ?? null,
+      againstResultId: (r.againstResultId as string) ?? null,
+      protestedEntrantId: (r.protestedEntrantId as string) ?? null,
+      raceNumber: (r.raceNumber as number) ?? null,
+      ruleReference: r.ruleReference as string,
+      grounds: r.grounds as string,
+      requestedChecks: (r.requestedChecks as string[]) ?? [],
+      lodgedById: r.lodgedById as string,
+      lodgedByName: r.lodgedByName as string,
+      lodgedAt: iso(r.lodgedAt)!,
+      lodgedAtLabel: label(r.lodgedAt)!,
+      windowDeadline: iso(r.windowDeadline)!,
+      windowDeadlineLabel: label(r.windowDeadline)!,
+      feeMinor: r.feeMinor as number,
+      currency: r.currency as string,
+      paidAt: iso(r.paidAt),
+      refundId: (r.refundId as string) ?? null,
+      refundedAt: iso(r.refundedAt),
+      rejectionCode: (r.rejectionCode as RejectionCode) ?? null,
+      rejectionLabel: r.rejectionCode ? REJECTION_LABELS[r.rejectionCode as RejectionCode] : null,
+      hearingAt: iso(r.hearingAt),
+      hearingAtLabel: label(r.hearingAt),
+      hearingPlace: (r.hearingPlace as string) ?? null,
+      decisionReasons: (r.decisionReasons as string) ?? null,
+      penalty: (r.penalty as string) || null,
+      decidedAt: iso(r.decidedAt),
+      decidedAtLabel: label(r.decidedAt),
+      decidedByNames: (r.decidedByNames as string[]) ?? [],
+      appealDeadline: iso(r.appealDeadline),
+      appealDeadlineLabel: label(r.appealDeadline),
     };
   });
 }

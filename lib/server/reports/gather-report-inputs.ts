@@ -9,8 +9,14 @@ import { resolveEventDensity } from '../../core/reports/event-density';
 import type { ReportBoatInput, ReportExcluded, ReportInputs } from '../../core/reports/parity-figures';
 
 type Row = {
-  entryId: string; raceNumber: number; boatName: string; declaredPowerKw: number; declaredNozzleMm: number;
-  inspectionId: string | null; receivedAt: Date | null; overallResult: string | null;
+  entryId: string;
+  raceNumber: number;
+  boatName: string;
+  declaredPowerKw: number;
+  declaredNozzleMm: number;
+  inspectionId: string | null;
+  receivedAt: Date | null;
+  overallResult: string | null;
   // The stored record's documents (models/shapes/inspection-record.ts), read through readRecordForReport.
   measurements: unknown;
   results: unknown;
@@ -31,7 +37,12 @@ export async function gatherReportInputs(eventId: string, classId: string, at = 
   ]);
   if (!event || !raceClass) throw new AppError('not_found', 404, 'No such class at this meeting.');
   const rules = await findRulesInForce(classId, at);
-  if (!rules) throw new AppError('conflict', 409, 'This class has no published rules in force, so there is nothing to report against.');
+  if (!rules)
+    throw new AppError(
+      'conflict',
+      409,
+      'This class has no published rules in force, so there is nothing to report against.',
+    );
   const [rows] = await sequelize.query(
     // The current record of each entry: corrections replace what they supersede, and a record that
     // waited offline does not overtake a newer capture (the same rule the dock and the board use).
@@ -59,7 +70,10 @@ export async function gatherReportInputs(eventId: string, classId: string, at = 
       continue;
     }
     if (row.overallResult !== 'conforms') {
-      excluded.push({ ...base, reason: `Latest inspection ${RESULT_WORDS[row.overallResult ?? ''] ?? row.overallResult}` });
+      excluded.push({
+        ...base,
+        reason: `Latest inspection ${RESULT_WORDS[row.overallResult ?? ''] ?? row.overallResult}`,
+      });
       continue;
     }
     const record = readRecordForReport(row.measurements, row.results);

@@ -18,21 +18,37 @@ export async function computeDraftReport(actor: Actor | null, eventId: string, c
 }
 
 /** Publishes the draft as the next numbered, immutable version and e-mails the class's entrants a link. */
-export async function publishReport(actor: Actor | null, eventId: string, classId: string, raw: unknown): Promise<PublishedReportDto> {
+export async function publishReport(
+  actor: Actor | null,
+  eventId: string,
+  classId: string,
+  raw: unknown,
+): Promise<PublishedReportDto> {
   assertCan(actor, 'report.publish', { eventId });
   const { note } = PublishReportInput.parse(raw ?? {});
   const inputs = await gatherReportInputs(eventId, classId);
-  if (inputs.boats.length === 0) throw new AppError('conflict', 409, 'No boat has a conforming inspection yet, so there is nothing to publish.');
+  if (inputs.boats.length === 0)
+    throw new AppError('conflict', 409, 'No boat has a conforming inspection yet, so there is nothing to publish.');
   const results = computeReportResults(inputs);
   const { sequelize, models } = getDb();
   const report = await sequelize.transaction(async (transaction) => {
     // Serialise publications per class so numbers never collide.
-    await sequelize.query('select pg_advisory_xact_lock(hashtext(:k))', { replacements: { k: `parity:${classId}` }, transaction });
+    await sequelize.query('select pg_advisory_xact_lock(hashtext(:k))', {
+      replacements: { k: `parity:${classId}` },
+      transaction,
+    });
     const last = (await models.ParityReport.max('number', { where: { classId }, transaction })) as number | null;
     return models.ParityReport.create(
       {
-        eventId, classId, number: (last ?? 0) + 1, publicId: randomBytes(12).toString('base64url'),
-        ruleVersionId: inputs.ruleVersion.id, note, inputs, results, publishedById: actor.id,
+        eventId,
+        classId,
+        number: (last ?? 0) + 1,
+        publicId: randomBytes(12).toString('base64url'),
+        ruleVersionId: inputs.ruleVersion.id,
+        note,
+        inputs,
+        results,
+        publishedById: actor.id,
       },
       { transaction },
     );
@@ -57,22 +73,43 @@ export async function publishReport(actor: Actor | null, eventId: string, classI
 /** Published versions of a class's report, newest first (for the organiser). */
 export async function listReportVersions(actor: Actor | null, eventId: string, classId: string) {
   assertCan(actor, 'report.publish', { eventId });
-  const rows = await getDb().models.ParityReport.findAll({ where: { eventId, classId }, order: [['number', 'DESC']], attributes: ['id', 'publicId', 'number', 'note', 'publishedAt'] });
-  return rows.map((r) => ({ id: r.id, publicId: r.publicId, number: r.number, note: r.note, publishedAt: r.publishedAt.toISOString() }));
+  const rows = await getDb().models.ParityReport.findAll({
+    where: { eventId, classId },
+    order: [['number', 'DESC']],
+    attributes: ['id', 'publicId', 'number', 'note', 'publishedAt'],
+  });
+  return rows.map((r) => ({
+    id: r.id,
+    publicId: r.publicId,
+    number: r.number,
+    note: r.note,
+    publishedAt: r.publishedAt.toISOString(),
+  }));
 }
 
 /** A published report by its public id: anyone may read it; drafts have no public id. */
-export async function findPublishedReport(publicId: string): Promise<(PublishedReportDto & { versions: { number: number; publicId: string }[] }) | null> {
+export async function findPublishedReport(
+  publicId: string,
+): Promise<(PublishedReportDto & { versions: { number: number; publicId: string }[] }) | null> {
   if (!/^[A-Za-z0-9_-]{8,40}$/.test(publicId)) return null;
   const { models } = getDb();
   const report = await models.ParityReport.findOne({ where: { publicId } });
   if (!report) return null;
-  const versions = await models.ParityReport.findAll({ where: { classId: report.classId }, attributes: ['number', 'publicId'], order: [['number', 'ASC']] });
-  return { ...toPublishedReportDto(report), versions: versions.map((v) => ({ number: v.number, publicId: v.publicId })) };
+  const versions = await models.ParityReport.findAll({
+    where: { classId: report.classId },
+    attributes: ['number', 'publicId'],
+    order: [['number', 'ASC']],
+  });
+  return {
+    ...toPublishedReportDto(report),
+    versions: versions.map((v) => ({ number: v.number, publicId: v.publicId })),
+  };
 }
 
 /** The previous published version of the same class, to show what changed. */
 export async function findPreviousReport(report: { classId: string; number: number }) {
-  const prev = await getDb().models.ParityReport.findOne({ where: { classId: report.classId, number: report.number - 1 } });
+  const prev = await getDb().models.ParityReport.findOne({
+    where: { classId: report.classId, number: report.number - 1 },
+  });
   return prev ? toPublishedReportDto(prev) : null;
 }

@@ -13,7 +13,14 @@ import { findPublishedReport } from './manage-reports';
 export type StoredReportPdf = { key: string; sha256: string; sizeBytes: number };
 export type ReportPdfHead = { reportId: string; classCode: string; number: number; pdf: StoredReportPdf | null };
 
-type Row = { reportId: string; classCode: string; number: number; key: string | null; sha256: string | null; sizeBytes: number | null };
+type Row = {
+  reportId: string;
+  classCode: string;
+  number: number;
+  key: string | null;
+  sha256: string | null;
+  sizeBytes: number | null;
+};
 
 /** What the PDF route needs before any bytes: the report's name parts and its stored PDF, if rendered yet (one query). */
 export async function findReportPdfHead(publicId: string): Promise<ReportPdfHead | null> {
@@ -58,7 +65,8 @@ async function renderAndStore(publicId: string, reportId: string): Promise<Store
   const report = await findPublishedReport(publicId);
   if (!report || report.id !== reportId) throw new Error(`report ${reportId} vanished while its PDF was made`);
   // Times in the PDF are printed in the meeting's own zone, named.
-  const timeZone = (await getDb().models.Event.findByPk(report.eventId, { attributes: ['timeZone'] }))?.timeZone ?? 'UTC';
+  const timeZone =
+    (await getDb().models.Event.findByPk(report.eventId, { attributes: ['timeZone'] }))?.timeZone ?? 'UTC';
   const bytes = await buildReportPdf(report, timeZone);
   const sha256 = createHash('sha256').update(bytes).digest('hex');
   const key = newObjectKey('reports/pdf');
@@ -79,6 +87,7 @@ async function renderAndStore(publicId: string, reportId: string): Promise<Store
 export async function readReportPdf(pdf: StoredReportPdf): Promise<Buffer> {
   const bytes = await getObjectBytes(pdf.key);
   const actual = createHash('sha256').update(bytes).digest('hex');
-  if (actual !== pdf.sha256) throw new Error(`stored report PDF ${pdf.key} does not match its SHA-256 (${actual} != ${pdf.sha256})`);
+  if (actual !== pdf.sha256)
+    throw new Error(`stored report PDF ${pdf.key} does not match its SHA-256 (${actual} != ${pdf.sha256})`);
   return bytes;
 }

@@ -6,7 +6,14 @@ import { AppError } from '@/lib/core/errors';
 import { describeWindow, formatInZone, type WindowView } from '@/lib/core/protests/protest-window';
 import { loadResultsVersions } from './load-results-versions';
 
-export type ResultsRowView = { position: number; raceNumber: number; entryId: string; boatName: string; isChanged: boolean; window: WindowView };
+export type ResultsRowView = {
+  position: number;
+  raceNumber: number;
+  entryId: string;
+  boatName: string;
+  isChanged: boolean;
+  window: WindowView;
+};
 export type ClassResultsView = {
   classId: string;
   classCode: string;
@@ -29,7 +36,11 @@ export type ClassResultsView = {
  * window (a row keeps the deadline of the version that last changed it). Published results are
  * public at a meeting, so anyone signed in may read them.
  */
-export async function listProvisionalResults(actor: Actor | null, eventId: string, now = new Date()): Promise<ClassResultsView[]> {
+export async function listProvisionalResults(
+  actor: Actor | null,
+  eventId: string,
+  now = new Date(),
+): Promise<ClassResultsView[]> {
   if (!actor) throw new AppError('unauthenticated', 401, 'Sign in to do this.');
   const { models, sequelize } = getDb();
   const event = await models.Event.findByPk(eventId);
@@ -43,20 +54,32 @@ export async function listProvisionalResults(actor: Actor | null, eventId: strin
     ),
   ]);
   const boatName = new Map(boats.map((b) => [b.id, b.boatName]));
-  const win = (publishedAt: Date) => describeWindow({ publishedAt, windowMinutes: event.protestWindowMinutes, timeZone: event.timeZone, now });
+  const win = (publishedAt: Date) =>
+    describeWindow({ publishedAt, windowMinutes: event.protestWindowMinutes, timeZone: event.timeZone, now });
   return classes.map((c) => {
     const mine = versions.filter((v) => v.classId === c.id);
     const latest = mine[mine.length - 1];
     if (!latest) return { classId: c.id, classCode: c.code, className: c.name, latest: null, versionCount: 0 };
-    const lastChange = (entryId: string) => [...mine].reverse().find((v) => v.changedEntryIds.includes(entryId)) ?? mine[0];
+    const lastChange = (entryId: string) =>
+      [...mine].reverse().find((v) => v.changedEntryIds.includes(entryId)) ?? mine[0];
     return {
-      classId: c.id, classCode: c.code, className: c.name, versionCount: mine.length,
+      classId: c.id,
+      classCode: c.code,
+      className: c.name,
+      versionCount: mine.length,
       latest: {
-        id: latest.id, version: latest.version, publishedAt: latest.publishedAt.toISOString(),
-        publishedAtLabel: formatInZone(latest.publishedAt, event.timeZone), source: latest.source, note: latest.note,
+        id: latest.id,
+        version: latest.version,
+        publishedAt: latest.publishedAt.toISOString(),
+        publishedAtLabel: formatInZone(latest.publishedAt, event.timeZone),
+        source: latest.source,
+        note: latest.note,
         window: win(latest.publishedAt),
         rows: latest.rows.map((r) => ({
-          ...r, boatName: boatName.get(r.entryId) ?? '?', isChanged: latest.changedEntryIds.includes(r.entryId), window: win(lastChange(r.entryId).publishedAt),
+          ...r,
+          boatName: boatName.get(r.entryId) ?? '?',
+          isChanged: latest.changedEntryIds.includes(r.entryId),
+          window: win(lastChange(r.entryId).publishedAt),
         })),
       },
     };

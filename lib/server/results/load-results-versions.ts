@@ -16,14 +16,27 @@ export type ResultsVersion = {
 };
 
 /** Every published results version of a meeting (optionally of one class), oldest first. */
-export async function loadResultsVersions(eventId: string, opts: { classId?: string; transaction?: Transaction } = {}): Promise<ResultsVersion[]> {
+export async function loadResultsVersions(
+  eventId: string,
+  opts: { classId?: string; transaction?: Transaction } = {},
+): Promise<ResultsVersion[]> {
   const rows = await getDb().models.ProvisionalResults.findAll({
     where: { eventId, ...(opts.classId && { classId: opts.classId }) },
-    order: [['classId', 'ASC'], ['version', 'ASC']],
+    order: [
+      ['classId', 'ASC'],
+      ['version', 'ASC'],
+    ],
     transaction: opts.transaction,
   });
   return rows.map((r) => ({
-    id: r.id, classId: r.classId, version: r.version, publishedAt: r.publishedAt, publishedById: r.publishedById,
-    rows: r.rows, changedEntryIds: r.changedEntryIds ?? [], source: r.source, note: r.note,
+    id: r.id,
+    classId: r.classId,
+    version: r.version,
+    publishedAt: r.publishedAt,
+    publishedById: r.publishedById,
+    rows: r.rows,
+    changedEntryIds: r.changedEntryIds ?? [],
+    source: r.source,
+    note: r.note,
   }));
 }

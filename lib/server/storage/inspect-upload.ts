@@ -5,11 +5,29 @@ import crypto from 'node:crypto';
 import { AppError } from '../../core/errors';
 
 export type DetectedType =
-  | 'application/pdf' | 'image/png' | 'image/jpeg' | 'image/webp' | 'image/heic' | 'image/heif' | 'video/mp4' | 'video/quicktime';
+  | 'application/pdf'
+  | 'image/png'
+  | 'image/jpeg'
+  | 'image/webp'
+  | 'image/heic'
+  | 'image/heif'
+  | 'video/mp4'
+  | 'video/quicktime';
 
 export const DOCUMENT_TYPES: readonly DetectedType[] = ['application/pdf', 'image/png', 'image/jpeg', 'image/webp'];
-export const PHOTO_TYPES: readonly DetectedType[] = ['image/png', 'image/jpeg', 'image/webp', 'image/heic', 'image/heif'];
-export const EVIDENCE_TYPES: readonly DetectedType[] = [...PHOTO_TYPES, 'application/pdf', 'video/mp4', 'video/quicktime'];
+export const PHOTO_TYPES: readonly DetectedType[] = [
+  'image/png',
+  'image/jpeg',
+  'image/webp',
+  'image/heic',
+  'image/heif',
+];
+export const EVIDENCE_TYPES: readonly DetectedType[] = [
+  ...PHOTO_TYPES,
+  'application/pdf',
+  'video/mp4',
+  'video/quicktime',
+];
 
 // Extension to write, other extensions accepted from the person's own file name, and a label.
 const TYPE_INFO: Record<DetectedType, { ext: string; aliases: string[]; label: string }> = {
@@ -23,7 +41,8 @@ const TYPE_INFO: Record<DetectedType, { ext: string; aliases: string[]; label: s
   'video/quicktime': { ext: 'mov', aliases: ['qt'], label: 'QuickTime video' },
 };
 
-const ascii = (b: Uint8Array, start: number, end: number) => String.fromCharCode(...b.subarray(start, Math.min(end, b.length)));
+const ascii = (b: Uint8Array, start: number, end: number) =>
+  String.fromCharCode(...b.subarray(start, Math.min(end, b.length)));
 const startsWith = (b: Uint8Array, sig: number[], at = 0) => sig.every((v, i) => b[at + i] === v);
 
 // ISO base media file format brands (the `ftyp` box). HEIF brands: ISO/IEC 23008-12 (heic, heix,
@@ -33,7 +52,23 @@ const HEIF_BRANDS = new Set(['mif1', 'msf1']);
 const AVIF_BRANDS = new Set(['avif', 'avis']);
 // MP4 brands: ISO/IEC 14496-12 (isom, iso2..iso9) and 14496-14 (mp41, mp42), plus avc1 and the
 // widely written dash, mmp4 and 'M4V ' (common practice, no single source).
-const MP4_BRANDS = new Set(['isom', 'iso2', 'iso3', 'iso4', 'iso5', 'iso6', 'iso7', 'iso8', 'iso9', 'mp41', 'mp42', 'avc1', 'dash', 'mmp4', 'M4V ']);
+const MP4_BRANDS = new Set([
+  'isom',
+  'iso2',
+  'iso3',
+  'iso4',
+  'iso5',
+  'iso6',
+  'iso7',
+  'iso8',
+  'iso9',
+  'mp41',
+  'mp42',
+  'avc1',
+  'dash',
+  'mmp4',
+  'M4V ',
+]);
 // Apple QuickTime File Format: 'qt  ' brand, or old files that open with a moov/mdat/wide atom.
 const QT_FIRST_ATOMS = new Set(['moov', 'mdat', 'wide', 'free', 'skip', 'pnot']);
 
@@ -63,9 +98,11 @@ export function detectType(b: Uint8Array): { type: DetectedType } | { type: null
   if (b.length >= 8 && QT_FIRST_ATOMS.has(ascii(b, 4, 8))) return { type: 'video/quicktime' };
   // A few common refusals, named so the message can say what was received.
   if (ascii(b, 0, 6) === 'GIF87a' || ascii(b, 0, 6) === 'GIF89a') return { type: null, looksLike: 'a GIF image' };
-  if (startsWith(b, [0x50, 0x4b, 0x03, 0x04])) return { type: null, looksLike: 'a ZIP archive (or an Office document)' };
+  if (startsWith(b, [0x50, 0x4b, 0x03, 0x04]))
+    return { type: null, looksLike: 'a ZIP archive (or an Office document)' };
   const head = b.subarray(0, 512);
-  if (head.length && head.every((c) => c === 0x09 || c === 0x0a || c === 0x0d || (c >= 0x20 && c !== 0x7f))) return { type: null, looksLike: 'plain text' };
+  if (head.length && head.every((c) => c === 0x09 || c === 0x0a || c === 0x0d || (c >= 0x20 && c !== 0x7f)))
+    return { type: null, looksLike: 'plain text' };
   return { type: null, looksLike: 'an unrecognised binary file' };
 }
 
@@ -88,31 +125,63 @@ export function safeFileName(declaredName: string | null | undefined, type: Dete
   if (!base) base = 'upload';
   const ext = declaredExt === info.ext || info.aliases.includes(declaredExt) ? declaredExt : info.ext;
   const chars = Array.from(base); // by code point, so a surrogate pair is never cut in half
-  if (chars.length + ext.length + 1 > MAX_NAME_CHARS) base = chars.slice(0, MAX_NAME_CHARS - ext.length - 1).join('').replace(/[\s.]+$/, '');
+  if (chars.length + ext.length + 1 > MAX_NAME_CHARS)
+    base = chars
+      .slice(0, MAX_NAME_CHARS - ext.length - 1)
+      .join('')
+      .replace(/[\s.]+$/, '');
   return `${base}.${ext}`;
 }
 
 // extension is the type's usual one (jpg, mov); safeName may keep the person's own alias (.jpeg).
-export type InspectedUpload = { detectedType: DetectedType; extension: string; sizeBytes: number; sha256Hex: string; safeName: string };
+export type InspectedUpload = {
+  detectedType: DetectedType;
+  extension: string;
+  sizeBytes: number;
+  sha256Hex: string;
+  safeName: string;
+};
 
 /**
  * Checks an upload before it is stored: size first (413 before any hashing), then the type from
  * the content (415 naming what was found and what is allowed), then SHA-256 and a safe name.
  */
-export function inspectUpload(input: { bytes: Uint8Array; declaredName?: string | null; allowed: readonly DetectedType[]; maxBytes: number }): InspectedUpload {
+export function inspectUpload(input: {
+  bytes: Uint8Array;
+  declaredName?: string | null;
+  allowed: readonly DetectedType[];
+  maxBytes: number;
+}): InspectedUpload {
   const sizeBytes = input.bytes.byteLength;
   if (sizeBytes > input.maxBytes) {
-    throw new AppError('too_large', 413, `The file is ${formatBytes(sizeBytes)}; the limit is ${formatBytes(input.maxBytes)}.`, { sizeBytes, maxBytes: input.maxBytes });
+    throw new AppError(
+      'too_large',
+      413,
+      `The file is ${formatBytes(sizeBytes)}; the limit is ${formatBytes(input.maxBytes)}.`,
+      { sizeBytes, maxBytes: input.maxBytes },
+    );
   }
-  const allowedLabels = input.allowed.map((t) => TYPE_INFO[t].label).filter((l, i, all) => all.indexOf(l) === i).join(', ');
-  if (sizeBytes === 0) throw new AppError('unsupported_type', 415, `The file is empty. Allowed: ${allowedLabels}.`, { detected: 'empty', allowed: input.allowed });
+  const allowedLabels = input.allowed
+    .map((t) => TYPE_INFO[t].label)
+    .filter((l, i, all) => all.indexOf(l) === i)
+    .join(', ');
+  if (sizeBytes === 0)
+    throw new AppError('unsupported_type', 415, `The file is empty. Allowed: ${allowedLabels}.`, {
+      detected: 'empty',
+      allowed: input.allowed,
+    });
   const found = detectType(input.bytes);
   if (found.type === null || !input.allowed.includes(found.type)) {
     const what = found.type === null ? found.looksLike : `a ${TYPE_INFO[found.type].label} file`;
-    throw new AppError('unsupported_type', 415, `This file is ${what}, whatever its name says. Allowed: ${allowedLabels}.`, {
-      detected: found.type ?? found.looksLike,
-      allowed: input.allowed,
-    });
+    throw new AppError(
+      'unsupported_type',
+      415,
+      `This file is ${what}, whatever its name says. Allowed: ${allowedLabels}.`,
+      {
+        detected: found.type ?? found.looksLike,
+        allowed: input.allowed,
+      },
+    );
   }
   const sha256Hex = crypto.createHash('sha256').update(input.bytes).digest('hex');
   const safeName = safeFileName(input.declaredName, found.type);

@@ -1,8 +1,13 @@
 import 'server-only';
 import { randomUUID } from 'node:crypto';
 import {
-  S3Client, HeadBucketCommand, CreateBucketCommand, PutObjectCommand, GetObjectCommand,
-  S3ServiceException, NoSuchKey,
+  S3Client,
+  HeadBucketCommand,
+  CreateBucketCommand,
+  PutObjectCommand,
+  GetObjectCommand,
+  S3ServiceException,
+  NoSuchKey,
 } from '@aws-sdk/client-s3';
 import { AppError } from '../../core/errors';
 import { isPublishedSecret } from '../config/published-values';
@@ -16,9 +21,17 @@ const bucket = () => serverEnv().S3_BUCKET;
 
 function s3(): S3Client {
   if (!globalForS3.__borelineS3) {
-    const { S3_ENDPOINT: endpoint, S3_ACCESS_KEY_ID: accessKeyId, S3_SECRET_ACCESS_KEY: secretAccessKey, S3_REGION: region } = serverEnv();
+    const {
+      S3_ENDPOINT: endpoint,
+      S3_ACCESS_KEY_ID: accessKeyId,
+      S3_SECRET_ACCESS_KEY: secretAccessKey,
+      S3_REGION: region,
+    } = serverEnv();
     // A key pair published in this repository is nobody's: refuse it rather than use it.
-    if (accessKeyId && (isPublishedSecret('S3_ACCESS_KEY_ID', accessKeyId) || isPublishedSecret('S3_SECRET_ACCESS_KEY', secretAccessKey))) {
+    if (
+      accessKeyId &&
+      (isPublishedSecret('S3_ACCESS_KEY_ID', accessKeyId) || isPublishedSecret('S3_SECRET_ACCESS_KEY', secretAccessKey))
+    ) {
       throw new AppError('storage_unavailable', 503, 'File storage is not configured on this server.');
     }
     globalForS3.__borelineS3 = new S3Client({
@@ -37,7 +50,8 @@ function s3(): S3Client {
   return globalForS3.__borelineS3;
 }
 
-const isStatus = (err: unknown, status: number) => err instanceof S3ServiceException && err.$metadata.httpStatusCode === status;
+const isStatus = (err: unknown, status: number) =>
+  err instanceof S3ServiceException && err.$metadata.httpStatusCode === status;
 
 /** Makes sure the bucket exists, once per process (a failure is retried on the next call). */
 export function ensureBucket(): Promise<void> {
@@ -62,7 +76,8 @@ export function ensureBucket(): Promise<void> {
 
 /** `${prefix}/${yyyy}/${mm}/${uuid}` (UTC); the prefix is a fixed app value such as 'evidence'. */
 export function newObjectKey(prefix: string, now = new Date()): string {
-  if (!/^[a-z0-9]+(?:[-/][a-z0-9]+)*$/.test(prefix)) throw new Error(`object key prefix "${prefix}" must be lower-case words joined by - or /`);
+  if (!/^[a-z0-9]+(?:[-/][a-z0-9]+)*$/.test(prefix))
+    throw new Error(`object key prefix "${prefix}" must be lower-case words joined by - or /`);
   const yyyy = String(now.getUTCFullYear());
   const mm = String(now.getUTCMonth() + 1).padStart(2, '0');
   return `${prefix}/${yyyy}/${mm}/${randomUUID()}`;
@@ -70,13 +85,20 @@ export function newObjectKey(prefix: string, now = new Date()): string {
 
 // Metadata travels as HTTP headers (ASCII only): values are percent-encoded on the way in, so a
 // person's name or a file name survives (decodeURIComponent reads one back).
-const encodeMeta = (m: Record<string, string> = {}) => Object.fromEntries(Object.entries(m).map(([k, v]) => [k.toLowerCase(), encodeURIComponent(v)]));
+const encodeMeta = (m: Record<string, string> = {}) =>
+  Object.fromEntries(Object.entries(m).map(([k, v]) => [k.toLowerCase(), encodeURIComponent(v)]));
 
 /**
  * Stores bytes under an app-made key. With sha256Hex (from inspectUpload) the storage service
  * checks the upload against it and refuses a body damaged on the way.
  */
-export async function putObject(input: { key: string; bytes: Uint8Array; contentType: string; metadata?: Record<string, string>; sha256Hex?: string }) {
+export async function putObject(input: {
+  key: string;
+  bytes: Uint8Array;
+  contentType: string;
+  metadata?: Record<string, string>;
+  sha256Hex?: string;
+}) {
   await ensureBucket();
   const res = await s3().send(
     new PutObjectCommand({
@@ -98,7 +120,8 @@ export async function getObjectBytes(key: string): Promise<Buffer> {
     const res = await s3().send(new GetObjectCommand({ Bucket: bucket(), Key: key }));
     return Buffer.from(await res.Body!.transformToByteArray());
   } catch (err) {
-    if (err instanceof NoSuchKey || isStatus(err, 404)) throw new AppError('not_found', 404, 'The stored file was not found.');
+    if (err instanceof NoSuchKey || isStatus(err, 404))
+      throw new AppError('not_found', 404, 'The stored file was not found.');
     throw err;
   }
 }

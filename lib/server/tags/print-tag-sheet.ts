@@ -8,7 +8,11 @@ import { buildTagSheetPdf } from '../../core/tags/tag-sheet';
 export type SheetFormat = 'a4-2x7' | 'letter-2x5';
 
 /** A printable sheet of QR tags, one label per live entry of the event (optionally one class). */
-export async function printTagSheet(actor: Actor | null, eventId: string, opts: { classId?: string; sheet: SheetFormat }) {
+export async function printTagSheet(
+  actor: Actor | null,
+  eventId: string,
+  opts: { classId?: string; sheet: SheetFormat },
+) {
   assertCan(actor, 'tags.print', { eventId });
   const { sequelize, models } = getDb();
   const event = await models.Event.findByPk(eventId);

@@ -44,10 +44,15 @@ export async function findTagDestination(
     .map((r) => {
       const links: OfficialLink[] = [];
       if (can(actor, 'entry.view_all', { eventId: r.eventId })) {
-        links.push({ label: `Entries list, race number ${r.raceNumber}`, href: `/organise/events/${r.eventId}/entries?q=${r.raceNumber}` });
+        links.push({
+          label: `Entries list, race number ${r.raceNumber}`,
+          href: `/organise/events/${r.eventId}/entries?q=${r.raceNumber}`,
+        });
       }
-      if (can(actor, 'inspection.board', { eventId: r.eventId })) links.push({ label: 'Inspection board', href: `/inspect/${r.eventId}/board` });
-      if (can(actor, 'protest.view_all', { eventId: r.eventId })) links.push({ label: 'Protests at this meeting', href: `/stewards/${r.eventId}` });
+      if (can(actor, 'inspection.board', { eventId: r.eventId }))
+        links.push({ label: 'Inspection board', href: `/inspect/${r.eventId}/board` });
+      if (can(actor, 'protest.view_all', { eventId: r.eventId }))
+        links.push({ label: 'Protests at this meeting', href: `/stewards/${r.eventId}` });
       return { ...r, links };
     })
     .filter((r) => r.links.length > 0);

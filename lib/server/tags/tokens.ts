@@ -31,7 +31,10 @@ export async function ensureCurrentTags(boatIds: string[]): Promise<Map<string, 
   const map = new Map(found.map((t) => [t.boatId, t.token]));
   const missing = boatIds.filter((id) => !map.has(id));
   if (missing.length) {
-    const created = await BoatTag.bulkCreate(missing.map((boatId) => ({ boatId, token: newTagToken() })), { ignoreDuplicates: true });
+    const created = await BoatTag.bulkCreate(
+      missing.map((boatId) => ({ boatId, token: newTagToken() })),
+      { ignoreDuplicates: true },
+    );
     for (const t of created) map.set(t.boatId, t.token);
     if (created.length < missing.length) return ensureCurrentTags(boatIds); // a concurrent issue won: read again
   }
@@ -48,12 +51,15 @@ export async function reissueTag(boatId: string): Promise<string> {
   });
 }
 
-export type TagLookup = { state: 'current'; boatId: string } | { state: 'retired'; boatId: string; retiredAt: Date } | { state: 'unknown' };
+export type TagLookup =
+  { state: 'current'; boatId: string } | { state: 'retired'; boatId: string; retiredAt: Date } | { state: 'unknown' };
 
 /** What a scanned token refers to: a current tag, a retired one, or nothing. */
 export async function lookUpTag(token: string): Promise<TagLookup> {
   if (!/^[A-Za-z0-9_-]{8,64}$/.test(token)) return { state: 'unknown' };
   const tag = await getDb().models.BoatTag.findOne({ where: { token } });
   if (!tag) return { state: 'unknown' };
-  return tag.retiredAt ? { state: 'retired', boatId: tag.boatId, retiredAt: tag.retiredAt } : { state: 'current', boatId: tag.boatId };
+  return tag.retiredAt
+    ? { state: 'retired', boatId: tag.boatId, retiredAt: tag.retiredAt }
+    : { state: 'current', boatId: tag.boatId };
 }

@@ -12,7 +12,11 @@ test('same-origin paths are kept, re-serialised', () => {
   assert.equal(safeRedirectPath('/inspect/abc?x=1#top', APP), '/inspect/abc?x=1#top');
   assert.equal(safeRedirectPath('/t/AbC_12', APP), '/t/AbC_12');
   assert.equal(safeRedirectPath('http://localhost:3100/boats', APP), '/boats', 'an absolute URL on our own origin');
-  assert.equal(safeRedirectPath('/%2F%2Fevil.example', APP), '/%2F%2Fevil.example', 'encoded slashes stay one path segment');
+  assert.equal(
+    safeRedirectPath('/%2F%2Fevil.example', APP),
+    '/%2F%2Fevil.example',
+    'encoded slashes stay one path segment',
+  );
 });
 
 test('every way out to another host falls back to home', () => {

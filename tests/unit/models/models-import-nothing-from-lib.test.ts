@@ -10,9 +10,15 @@ const ROOT = path.resolve(__dirname, '../../..');
 const MODELS = path.join(ROOT, 'models');
 
 function sourceFiles(dir: string): string[] {
-  return fs.readdirSync(dir, { withFileTypes: true }).flatMap((d) =>
-    d.isDirectory() ? sourceFiles(path.join(dir, d.name)) : /\.(ts|tsx|js|cjs|mjs)$/.test(d.name) ? [path.join(dir, d.name)] : [],
-  );
+  return fs
+    .readdirSync(dir, { withFileTypes: true })
+    .flatMap((d) =>
+      d.isDirectory()
+        ? sourceFiles(path.join(dir, d.name))
+        : /\.(ts|tsx|js|cjs|mjs)$/.test(d.name)
+          ? [path.join(dir, d.name)]
+          : [],
+    );
 }
 
 /** Every module a file names: static imports and re-exports, dynamic import() and require(). */
@@ -35,7 +41,9 @@ test('the reader of imports sees every form a model could use', () => {
 test('no file in models/ imports from lib/', () => {
   const lib = path.join(ROOT, 'lib') + path.sep;
   const offending = sourceFiles(MODELS).flatMap((f) =>
-    specifiers(f).filter((s) => (target(f, s) ?? '').startsWith(lib)).map((s) => `${path.relative(ROOT, f)} -> ${s}`),
+    specifiers(f)
+      .filter((s) => (target(f, s) ?? '').startsWith(lib))
+      .map((s) => `${path.relative(ROOT, f)} -> ${s}`),
   );
   assert.deepEqual(offending, []);
 });
@@ -43,7 +51,12 @@ test('no file in models/ imports from lib/', () => {
 test('models/shapes/ imports only zod and its own files', () => {
   const shapes = path.join(MODELS, 'shapes') + path.sep;
   const offending = sourceFiles(shapes).flatMap((f) =>
-    specifiers(f).filter((s) => { const t = target(f, s); return t === null ? s !== 'zod' : !t.startsWith(shapes); }).map((s) => `${path.relative(ROOT, f)} -> ${s}`),
+    specifiers(f)
+      .filter((s) => {
+        const t = target(f, s);
+        return t === null ? s !== 'zod' : !t.startsWith(shapes);
+      })
+      .map((s) => `${path.relative(ROOT, f)} -> ${s}`),
   );
   assert.deepEqual(offending, []);
 });

@@ -31,7 +31,13 @@ function listSources(dir: string): string[] {
 
 /** Every import, re-export and dynamic import() of a file, with whether it is erased at compile time. */
 function readImports(file: string, source: string): Import[] {
-  const sf = ts.createSourceFile(file, source, ts.ScriptTarget.Latest, true, file.endsWith('.tsx') ? ts.ScriptKind.TSX : ts.ScriptKind.TS);
+  const sf = ts.createSourceFile(
+    file,
+    source,
+    ts.ScriptTarget.Latest,
+    true,
+    file.endsWith('.tsx') ? ts.ScriptKind.TSX : ts.ScriptKind.TS,
+  );
   const imports: Import[] = [];
   const add = (node: ts.Node, specifier: ts.Expression, isTypeOnly: boolean) => {
     if (!ts.isStringLiteralLike(specifier)) return;
@@ -42,13 +48,18 @@ function readImports(file: string, source: string): Import[] {
     if (ts.isImportDeclaration(node)) {
       const clause = node.importClause;
       // `import { type A, type B } from 'x'` is erased too (no verbatimModuleSyntax in tsconfig.json).
-      const named = clause?.namedBindings && ts.isNamedImports(clause.namedBindings) ? clause.namedBindings.elements : undefined;
+      const named =
+        clause?.namedBindings && ts.isNamedImports(clause.namedBindings) ? clause.namedBindings.elements : undefined;
       const allNamedAreTypes = !!named && named.length > 0 && named.every((e) => e.isTypeOnly);
       const isTypeOnly = !!clause && (clause.isTypeOnly || (!clause.name && allNamedAreTypes));
       add(node, node.moduleSpecifier, isTypeOnly);
     } else if (ts.isExportDeclaration(node) && node.moduleSpecifier) {
       const named = node.exportClause && ts.isNamedExports(node.exportClause) ? node.exportClause.elements : undefined;
-      add(node, node.moduleSpecifier, node.isTypeOnly || (!!named && named.length > 0 && named.every((e) => e.isTypeOnly)));
+      add(
+        node,
+        node.moduleSpecifier,
+        node.isTypeOnly || (!!named && named.length > 0 && named.every((e) => e.isTypeOnly)),
+      );
     } else if (ts.isCallExpression(node) && node.expression.kind === ts.SyntaxKind.ImportKeyword && node.arguments[0]) {
       add(node, node.arguments[0], false);
     } else if (ts.isImportTypeNode(node) && ts.isLiteralTypeNode(node.argument)) {
@@ -64,9 +75,17 @@ function readImports(file: string, source: string): Import[] {
 function resolveImport(fromFile: string, specifier: string): string | null {
   let base: string;
   if (specifier.startsWith('@/')) base = specifier.slice(2);
-  else if (specifier.startsWith('.')) base = path.posix.normalize(path.posix.join(path.posix.dirname(fromFile), specifier));
+  else if (specifier.startsWith('.'))
+    base = path.posix.normalize(path.posix.join(path.posix.dirname(fromFile), specifier));
   else return null;
-  for (const candidate of [base, `${base}.ts`, `${base}.tsx`, `${base}/index.ts`, `${base}/index.tsx`, `${base}.d.ts`]) {
+  for (const candidate of [
+    base,
+    `${base}.ts`,
+    `${base}.tsx`,
+    `${base}/index.ts`,
+    `${base}/index.tsx`,
+    `${base}.d.ts`,
+  ]) {
     const full = path.join(ROOT, candidate);
     if (fs.existsSync(full) && fs.statSync(full).isFile()) return candidate;
   }
@@ -129,13 +148,24 @@ function findCycles(graph: Map<string, string[]>): string[][] {
   });
 }
 
-const sources: SourceFile[] = SCANNED.flatMap(listSources).map((file) => ({ file, imports: readImports(file, fs.readFileSync(path.join(ROOT, file), 'utf8')) }));
+const sources: SourceFile[] = SCANNED.flatMap(listSources).map((file) => ({
+  file,
+  imports: readImports(file, fs.readFileSync(path.join(ROOT, file), 'utf8')),
+}));
 const byFile = new Map(sources.map((s) => [s.file, s]));
 
 // Packages and modules lib/core may not load at run time (a type import of any of them is fine).
 const CORE_FORBIDDEN = [
-  /^server-only$/, /^next(\/|$)/, /^react(-dom)?(\/|$)/, /^sequelize(\/|$)/, /^pg(\/|$)/, /^pg-hstore$/, /^nodemailer(\/|$)/,
-  /^stripe(\/|$)/, /^@aws-sdk\//, /^(node:)?(fs|fs\/promises|net|http|https|http2|child_process)$/,
+  /^server-only$/,
+  /^next(\/|$)/,
+  /^react(-dom)?(\/|$)/,
+  /^sequelize(\/|$)/,
+  /^pg(\/|$)/,
+  /^pg-hstore$/,
+  /^nodemailer(\/|$)/,
+  /^stripe(\/|$)/,
+  /^@aws-sdk\//,
+  /^(node:)?(fs|fs\/promises|net|http|https|http2|child_process)$/,
 ];
 
 // Files in lib/server without `import 'server-only'`: each is loaded somewhere the react-server
@@ -143,53 +173,96 @@ const CORE_FORBIDDEN = [
 // instrumentation.ts). The test checks that something there really imports each one, so an entry
 // cannot outlive its reason.
 const SERVER_ONLY_EXEMPT: Record<string, string> = {
-  'lib/server/config/env.ts': 'parsed at server start by instrumentation.ts (outside the react-server layer), read by the proxy through the CSP module, unit-tested',
-  'lib/server/config/published-values.ts': 'read by the npm run serve checks (scripts/serve-config.ts) and the secret generator (scripts/env-secrets.ts), plain tsx scripts',
-  'lib/server/auth/passwords.ts': "hashes the first administrator's password in scripts/create-first-admin.ts, a plain tsx script; unit-tested",
-  'lib/server/http/content-security-policy.ts': "builds each page's policy in proxy.ts, which is not bundled for the react-server layer",
+  'lib/server/config/env.ts':
+    'parsed at server start by instrumentation.ts (outside the react-server layer), read by the proxy through the CSP module, unit-tested',
+  'lib/server/config/published-values.ts':
+    'read by the npm run serve checks (scripts/serve-config.ts) and the secret generator (scripts/env-secrets.ts), plain tsx scripts',
+  'lib/server/auth/passwords.ts':
+    "hashes the first administrator's password in scripts/create-first-admin.ts, a plain tsx script; unit-tested",
+  'lib/server/http/content-security-policy.ts':
+    "builds each page's policy in proxy.ts, which is not bundled for the react-server layer",
   'lib/server/http/client-address.ts': 'unit-tested without the react-server condition',
   'lib/server/http/read-body.ts': 'unit-tested without the react-server condition',
   'lib/server/storage/inspect-upload.ts': 'unit-tested without the react-server condition',
 };
 const OUTSIDE_REACT_SERVER = ['proxy.ts', 'instrumentation.ts', ...['scripts', 'tests'].flatMap(listSources)];
 
-
 test('the scan reads the whole source tree', () => {
-  for (const dir of SCANNED) assert.ok(sources.filter((s) => s.file.startsWith(`${dir}/`)).length >= 5, `${dir}/ has source files`);
+  for (const dir of SCANNED)
+    assert.ok(sources.filter((s) => s.file.startsWith(`${dir}/`)).length >= 5, `${dir}/ has source files`);
   assert.ok(sources.reduce((n, s) => n + s.imports.length, 0) > 500, 'imports were found');
 });
 
 test('the cycle finder finds a cycle and prints it as a path, and finds none in a tree', () => {
-  const knot = new Map([['a', ['b']], ['b', ['c']], ['c', ['a', 'd']], ['d', []], ['e', ['e']]]);
-  const printed = findCycles(knot).map((c) => c.join(' -> ')).sort();
+  const knot = new Map([
+    ['a', ['b']],
+    ['b', ['c']],
+    ['c', ['a', 'd']],
+    ['d', []],
+    ['e', ['e']],
+  ]);
+  const printed = findCycles(knot)
+    .map((c) => c.join(' -> '))
+    .sort();
   assert.deepEqual(printed, ['a -> b -> c -> a', 'e -> e']);
-  assert.deepEqual(findCycles(new Map([['a', ['b', 'c']], ['b', ['c']], ['c', []]])), []);
+  assert.deepEqual(
+    findCycles(
+      new Map([
+        ['a', ['b', 'c']],
+        ['b', ['c']],
+        ['c', []],
+      ]),
+    ),
+    [],
+  );
 });
 
 test('the import reader tells type-only imports from value imports', () => {
-  const imports = readImports('x.ts', [
-    "import type { A } from './a';",
-    "import { type B, type C } from './b';",
-    "import { type D, e } from './d';",
-    "import f from './f';",
-    "import 'server-only';",
-    "export type { G } from './g';",
-    "export { h } from './h';",
-    "const i = () => import('./i');",
-    "type J = import('./j').J;",
-  ].join('\n'));
-  assert.deepEqual(imports.map((i) => [i.specifier, i.isTypeOnly]), [
-    ['./a', true], ['./b', true], ['./d', false], ['./f', false], ['server-only', false], ['./g', true], ['./h', false], ['./i', false], ['./j', true],
-  ]);
+  const imports = readImports(
+    'x.ts',
+    [
+      "import type { A } from './a';",
+      "import { type B, type C } from './b';",
+      "import { type D, e } from './d';",
+      "import f from './f';",
+      "import 'server-only';",
+      "export type { G } from './g';",
+      "export { h } from './h';",
+      "const i = () => import('./i');",
+      "type J = import('./j').J;",
+    ].join('\n'),
+  );
+  assert.deepEqual(
+    imports.map((i) => [i.specifier, i.isTypeOnly]),
+    [
+      ['./a', true],
+      ['./b', true],
+      ['./d', false],
+      ['./f', false],
+      ['server-only', false],
+      ['./g', true],
+      ['./h', false],
+      ['./i', false],
+      ['./j', true],
+    ],
+  );
 });
 
 test('no import cycles in lib/, models/, app/ or components/ (type imports included)', () => {
   const graph = new Map<string, string[]>();
   for (const s of sources) {
-    graph.set(s.file, [...new Set(s.imports.map((i) => resolveImport(s.file, i.specifier)).filter((f): f is string => !!f && byFile.has(f)))]);
+    graph.set(s.file, [
+      ...new Set(
+        s.imports.map((i) => resolveImport(s.file, i.specifier)).filter((f): f is string => !!f && byFile.has(f)),
+      ),
+    ]);
   }
   const cycles = findCycles(graph);
-  assert.deepEqual(cycles.map((c) => c.join(' -> ')), [], `import cycles:\n${cycles.map((c) => `  ${c.join(' -> ')}`).join('\n')}`);
+  assert.deepEqual(
+    cycles.map((c) => c.join(' -> ')),
+    [],
+    `import cycles:\n${cycles.map((c) => `  ${c.join(' -> ')}`).join('\n')}`,
+  );
 });
 
 test('lib/core loads nothing with I/O, a framework or server-only code (type imports allowed)', () => {
@@ -199,7 +272,9 @@ test('lib/core loads nothing with I/O, a framework or server-only code (type imp
       if (i.isTypeOnly) continue;
       const target = resolveImport(s.file, i.specifier);
       // models/shapes/ holds the stored documents' zod shapes, pure by its own test (zod and its own files only).
-      const isForbiddenFile = !!target && ((target.startsWith('models/') && !target.startsWith('models/shapes/')) || target.startsWith('lib/server/'));
+      const isForbiddenFile =
+        !!target &&
+        ((target.startsWith('models/') && !target.startsWith('models/shapes/')) || target.startsWith('lib/server/'));
       const isForbiddenPackage = !target && CORE_FORBIDDEN.some((re) => re.test(i.specifier));
       if (isForbiddenFile || isForbiddenPackage) problems.push(`${s.file}:${i.line}: ${i.text}`);
     }
@@ -218,8 +293,15 @@ test("every lib/server file imports 'server-only', except the listed few, each f
   assert.deepEqual(missing, [], `add import 'server-only' (or list the file with its reason):\n${missing.join('\n')}`);
   for (const [file, reason] of Object.entries(SERVER_ONLY_EXEMPT)) {
     assert.ok(reason.length > 10, file);
-    const loaders = OUTSIDE_REACT_SERVER.filter((f) => readImports(f, fs.readFileSync(path.join(ROOT, f), 'utf8')).some((i) => !i.isTypeOnly && resolveImport(f, i.specifier) === file));
-    assert.ok(loaders.length > 0, `nothing outside the react-server layer imports ${file}: mark it import 'server-only' instead`);
+    const loaders = OUTSIDE_REACT_SERVER.filter((f) =>
+      readImports(f, fs.readFileSync(path.join(ROOT, f), 'utf8')).some(
+        (i) => !i.isTypeOnly && resolveImport(f, i.specifier) === file,
+      ),
+    );
+    assert.ok(
+      loaders.length > 0,
+      `nothing outside the react-server layer imports ${file}: mark it import 'server-only' instead`,
+    );
   }
 });
 

@@ -6,7 +6,9 @@ export default function BoatNotFound() {
     <div className="card space-y-3">
       <h1 className="text-2xl">No such boat among yours</h1>
       <p>The link may be mistyped, or the boat belongs to someone else.</p>
-      <Link href="/boats" className="btn-primary">My boats</Link>
+      <Link href="/boats" className="btn-primary">
+        My boats
+      </Link>
     </div>
   );
 }

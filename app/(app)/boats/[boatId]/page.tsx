@@ -18,7 +18,8 @@ import { ReissueTagButton } from './reissue-tag-button';
 export const metadata: Metadata = { title: 'Boat' };
 export const dynamic = 'force-dynamic';
 
-const sizeText = (n: number) => (n >= 1024 * 1024 ? `${(n / 1024 / 1024).toFixed(1)} MB` : `${Math.max(1, Math.round(n / 1024))} KB`);
+const sizeText = (n: number) =>
+  n >= 1024 * 1024 ? `${(n / 1024 / 1024).toFixed(1)} MB` : `${Math.max(1, Math.round(n / 1024))} KB`;
 
 export default async function BoatPage({ params }: { params: Promise<{ boatId: string }> }) {
   const actor = await getActor();
@@ -40,20 +41,33 @@ export default async function BoatPage({ params }: { params: Promise<{ boatId: s
 
   return (
     <div className="space-y-6">
-      <p><Link href="/boats">← My boats</Link></p>
+      <p>
+        <Link href="/boats">← My boats</Link>
+      </p>
       <div className="flex flex-wrap items-center justify-between gap-3">
-        <h1 data-testid="boat-name">{boat.name}{boat.hullNumber && <span className="figure ml-2 text-2xl text-ink-mute">#{boat.hullNumber}</span>}</h1>
-        <Link href={`/boats/${boat.id}/enter`} className="btn-primary">Enter a meeting</Link>
+        <h1 data-testid="boat-name">
+          {boat.name}
+          {boat.hullNumber && <span className="figure ml-2 text-2xl text-ink-mute">#{boat.hullNumber}</span>}
+        </h1>
+        <Link href={`/boats/${boat.id}/enter`} className="btn-primary">
+          Enter a meeting
+        </Link>
       </div>
 
       {entries.length > 0 && (
         <section className="card space-y-2" aria-labelledby="entered-at">
-          <h2 id="entered-at" className="text-xl">Entered at</h2>
+          <h2 id="entered-at" className="text-xl">
+            Entered at
+          </h2>
           <ul className="divide-y divide-paper-line">
             {entries.map((e) => (
               <li key={e.id} className="flex flex-wrap justify-between gap-2 py-2">
-                <span>{e.eventName} · {e.classCode} {e.className} · {format(parseISO(e.startsOn), 'd MMM yyyy')}</span>
-                <span className="figure font-bold">#{e.raceNumber} · {e.status === 'entered' ? 'entered' : 'awaiting payment'}</span>
+                <span>
+                  {e.eventName} · {e.classCode} {e.className} · {format(parseISO(e.startsOn), 'd MMM yyyy')}
+                </span>
+                <span className="figure font-bold">
+                  #{e.raceNumber} · {e.status === 'entered' ? 'entered' : 'awaiting payment'}
+                </span>
               </li>
             ))}
           </ul>
@@ -62,36 +76,72 @@ export default async function BoatPage({ params }: { params: Promise<{ boatId: s
       )}
 
       <section className="card space-y-3" aria-labelledby="declaration">
-        <h2 id="declaration" className="text-xl">Declaration</h2>
+        <h2 id="declaration" className="text-xl">
+          Declaration
+        </h2>
         <dl className="grid gap-x-4 sm:grid-cols-[14rem_1fr] sm:gap-y-2" data-testid="declaration">
           {row('Hull', boat.hullDescription)}
           {row('Jet pump', boat.pumpDescription)}
           {row('Impeller', boat.impellerDescription)}
-          {row('Nozzle exit diameter', <span className="figure">{formatFigure(boat.declaredNozzleMm, 2)} mm ± {formatFigure(boat.declaredNozzleToleranceMm, 2)} mm ({formatFigure(Math.round((boat.declaredNozzleMm / 25.4) * 1000) / 1000, 3)} in)</span>)}
+          {row(
+            'Nozzle exit diameter',
+            <span className="figure">
+              {formatFigure(boat.declaredNozzleMm, 2)} mm ± {formatFigure(boat.declaredNozzleToleranceMm, 2)} mm (
+              {formatFigure(Math.round((boat.declaredNozzleMm / 25.4) * 1000) / 1000, 3)} in)
+            </span>,
+          )}
           {row('Engine', boat.engineDescription)}
-          {row('Declared power', <span className="figure">{formatPowerFigure(boat.declaredPowerKw, 'powerKw')} ({formatPowerFigure(convertPower(boat.declaredPowerKw, 'kW', 'hp'), 'powerHp')})</span>)}
+          {row(
+            'Declared power',
+            <span className="figure">
+              {formatPowerFigure(boat.declaredPowerKw, 'powerKw')} (
+              {formatPowerFigure(convertPower(boat.declaredPowerKw, 'kW', 'hp'), 'powerHp')})
+            </span>,
+          )}
           {row('Power backed by', POWER_EVIDENCE[boat.powerEvidence])}
-          {row('Displacement', boat.displacementL != null && <span className="figure">{formatFigure(boat.displacementL, 1)} L</span>)}
-          {row('Weight', boat.declaredWeightKg != null && <span className="figure">{formatFigure(boat.declaredWeightKg, 0)} kg</span>)}
+          {row(
+            'Displacement',
+            boat.displacementL != null && <span className="figure">{formatFigure(boat.displacementL, 1)} L</span>,
+          )}
+          {row(
+            'Weight',
+            boat.declaredWeightKg != null && (
+              <span className="figure">{formatFigure(boat.declaredWeightKg, 0)} kg</span>
+            ),
+          )}
         </dl>
         <details className="rounded-lg bg-paper-deep p-4">
           <summary className="min-h-touch cursor-pointer py-2 font-bold text-tide-700">Edit the declaration</summary>
-          <div className="mt-3"><BoatForm boat={boat} /></div>
+          <div className="mt-3">
+            <BoatForm boat={boat} />
+          </div>
         </details>
       </section>
 
       <section className="card space-y-3" aria-labelledby="documents">
-        <h2 id="documents" className="text-xl">Documents</h2>
-        <p className="text-ink-soft">Dyno sheets, pump or engine specifications, certificates: PDF, PNG, JPEG or WebP, up to 10 MB each. Officials of the meetings you enter can read them.</p>
-        {documents.length === 0 ? <p className="text-ink-mute">No documents yet.</p> : (
+        <h2 id="documents" className="text-xl">
+          Documents
+        </h2>
+        <p className="text-ink-soft">
+          Dyno sheets, pump or engine specifications, certificates: PDF, PNG, JPEG or WebP, up to 10 MB each. Officials
+          of the meetings you enter can read them.
+        </p>
+        {documents.length === 0 ? (
+          <p className="text-ink-mute">No documents yet.</p>
+        ) : (
           <ul className="divide-y divide-paper-line" data-testid="documents">
             {documents.map((d) => (
               <li key={d.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
                 <span>
                   <a href={`/api/documents/${d.id}`}>{d.fileName}</a>
-                  <span className="ml-2 text-sm text-ink-mute">{DOCUMENT_KINDS[d.kind as keyof typeof DOCUMENT_KINDS] ?? d.kind} · {sizeText(d.sizeBytes)} · {format(parseISO(d.createdAt), 'd MMM yyyy')}</span>
+                  <span className="ml-2 text-sm text-ink-mute">
+                    {DOCUMENT_KINDS[d.kind as keyof typeof DOCUMENT_KINDS] ?? d.kind} · {sizeText(d.sizeBytes)} ·{' '}
+                    {format(parseISO(d.createdAt), 'd MMM yyyy')}
+                  </span>
                 </span>
-                <span className="figure text-xs text-ink-mute" title="SHA-256 of the stored file">SHA-256 {d.sha256.slice(0, 12)}…</span>
+                <span className="figure text-xs text-ink-mute" title="SHA-256 of the stored file">
+                  SHA-256 {d.sha256.slice(0, 12)}…
+                </span>
               </li>
             ))}
           </ul>
@@ -100,15 +150,31 @@ export default async function BoatPage({ params }: { params: Promise<{ boatId: s
       </section>
 
       <section className="card space-y-3" aria-labelledby="tag">
-        <h2 id="tag" className="text-xl">QR tag</h2>
-        <p className="text-ink-soft">Print the tag and fix it where scrutineers can scan it at the dock. It opens this boat&apos;s record for officials; anyone else sees only its name and race number.</p>
+        <h2 id="tag" className="text-xl">
+          QR tag
+        </h2>
+        <p className="text-ink-soft">
+          Print the tag and fix it where scrutineers can scan it at the dock. It opens this boat&apos;s record for
+          officials; anyone else sees only its name and race number.
+        </p>
         <div className="grid gap-4 sm:grid-cols-[auto_1fr] sm:items-start">
           {/* eslint-disable-next-line @next/next/no-img-element -- a data URL made on the server */}
-          <img src={qr} alt={`QR tag for ${boat.name}`} width={200} height={200} className="rounded-lg border border-paper-line bg-white" data-testid="tag-qr" />
+          <img
+            src={qr}
+            alt={`QR tag for ${boat.name}`}
+            width={200}
+            height={200}
+            className="rounded-lg border border-paper-line bg-white"
+            data-testid="tag-qr"
+          />
           <div className="min-w-0 space-y-2">
-            <p className="break-all text-sm"><span className="font-bold">Tag link:</span> <span data-testid="tag-url">{tag.url}</span></p>
+            <p className="break-all text-sm">
+              <span className="font-bold">Tag link:</span> <span data-testid="tag-url">{tag.url}</span>
+            </p>
             <p className="text-sm text-ink-mute">Issued {format(parseISO(tag.issuedAt), 'd MMM yyyy, HH:mm')}</p>
-            <a href={`/api/boats/${boat.id}/tag-pdf`} className="btn-secondary" download>Download tag (PDF)</a>
+            <a href={`/api/boats/${boat.id}/tag-pdf`} className="btn-secondary" download>
+              Download tag (PDF)
+            </a>
           </div>
         </div>
         <ReissueTagButton boatId={boat.id} />

@@ -3,13 +3,27 @@
 import { useCallback, useEffect, useEffectEvent, useRef, useState, useSyncExternalStore } from 'react';
 import { parseTagScan } from '@/lib/core/tags/parse-tag-scan';
 import { requestJson } from '@/components/forms/request-json';
-import { loadSnapshot, putQueued, saveSnapshot, sendQueued, type EventSnapshot, type QueuedRecord } from '@/app/(app)/inspect/[eventId]/offline-queue';
+import {
+  loadSnapshot,
+  putQueued,
+  saveSnapshot,
+  sendQueued,
+  type EventSnapshot,
+  type QueuedRecord,
+} from '@/app/(app)/inspect/[eventId]/offline-queue';
 import type { InspectionView } from '@/lib/server/inspections/inspection-view';
 import type { InstrumentView } from '@/lib/server/inspections/list-instruments';
 import { describeScope } from '@/lib/core/inspections/decide-inspection';
 import { BoatCardView } from './boat-card-view';
 import { FindBoat, type FindQuery } from './find-boat';
-import { formFromDraft, initialFormState, targetFromBoardRow, targetFromCard, type DockTarget, type FormState } from './form-model';
+import {
+  formFromDraft,
+  initialFormState,
+  targetFromBoardRow,
+  targetFromCard,
+  type DockTarget,
+  type FormState,
+} from './form-model';
 import { InspectionForm, type FormSubmission } from './inspection-form';
 import { QueuePanel } from './queue-panel';
 import { registerInspectServiceWorker, useDockQueue } from './use-dock-queue';
@@ -40,11 +54,21 @@ function deviceName(): string {
 }
 
 type Notice = { tone: 'error' | 'info'; text: string; code?: string };
-type Answer = { status: number; ok: boolean; fromCache: boolean; data: unknown; code?: string; message?: string } | null;
+type Answer = {
+  status: number;
+  ok: boolean;
+  fromCache: boolean;
+  data: unknown;
+  code?: string;
+  message?: string;
+} | null;
 
 /** A GET of the dock's data; null when there is no answer at all (no signal, and the service worker had no copy). */
 async function get(url: string): Promise<Answer> {
-  const answer = await requestJson(url, { method: 'GET', fallbackMessage: (status) => `The lookup was refused (${status}).` });
+  const answer = await requestJson(url, {
+    method: 'GET',
+    fallbackMessage: (status) => `The lookup was refused (${status}).`,
+  });
   if (answer.status === 0 || (!answer.ok && answer.status === 503 && answer.code === 'offline')) return null;
   const fromCache = answer.headers?.get('X-Served-From') === 'cache';
   return answer.ok
@@ -53,7 +77,15 @@ async function get(url: string): Promise<Answer> {
 }
 
 /** The dock: find the boat, see its card, record, see the verdict; the phone's outbox beside it. */
-export function DockScreen({ eventId, actorId, instruments }: { eventId: string; actorId: string; instruments: InstrumentView[] }) {
+export function DockScreen({
+  eventId,
+  actorId,
+  instruments,
+}: {
+  eventId: string;
+  actorId: string;
+  instruments: InstrumentView[];
+}) {
   const queue = useDockQueue(eventId, actorId);
   const [snapshot, setSnapshot] = useState<EventSnapshot | null>(null);
   const [target, setTarget] = useState<DockTarget | null>(null);
@@ -72,7 +104,12 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
   const refreshSnapshot = useCallback(async () => {
     const answer = await get(`/api/events/${eventId}/inspections`);
     if (answer?.ok && !answer.fromCache) {
-      const snap: EventSnapshot = { eventId, savedAt: new Date().toISOString(), board: answer.data as EventSnapshot['board'], instruments };
+      const snap: EventSnapshot = {
+        eventId,
+        savedAt: new Date().toISOString(),
+        board: answer.data as EventSnapshot['board'],
+        instruments,
+      };
       await saveSnapshot(snap);
       setSnapshot(snap);
     } else {
@@ -91,7 +128,11 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
     setTarget(t);
     setVerdict(null);
     setServerErrors({});
-    setForm((f) => ({ key: key ?? newKey(), initial: initial ?? initialFormState(t, defaultLength, defaultScale), revision: (f?.revision ?? 0) + 1 }));
+    setForm((f) => ({
+      key: key ?? newKey(),
+      initial: initial ?? initialFormState(t, defaultLength, defaultScale),
+      revision: (f?.revision ?? 0) + 1,
+    }));
   }
 
   async function find(q: FindQuery) {
@@ -102,15 +143,27 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
     const token = isRaceNumber ? null : parseTagScan(text);
     if (!isRaceNumber && !token) {
       setTarget(null);
-      return setNotice({ tone: 'error', code: 'unknown_tag', text: 'That is not a Boreline tag: the code is unreadable or from another system. Type the race number instead.' });
+      return setNotice({
+        tone: 'error',
+        code: 'unknown_tag',
+        text: 'That is not a Boreline tag: the code is unreadable or from another system. Type the race number instead.',
+      });
     }
     setLooking(true);
-    const answer = await get(isRaceNumber ? `/api/events/${eventId}/race-numbers/${text}` : `/api/events/${eventId}/tags/${encodeURIComponent(token!)}`);
+    const answer = await get(
+      isRaceNumber
+        ? `/api/events/${eventId}/race-numbers/${text}`
+        : `/api/events/${eventId}/tags/${encodeURIComponent(token!)}`,
+    );
     setLooking(false);
     if (answer?.ok) return open(targetFromCard(answer.data as never, answer.fromCache));
     if (answer && answer.status < 500) {
       setTarget(null);
-      return setNotice({ tone: 'error', code: answer.code, text: answer.message ?? `The lookup was refused (${answer.status}).` });
+      return setNotice({
+        tone: 'error',
+        code: answer.code,
+        text: answer.message ?? `The lookup was refused (${answer.status}).`,
+      });
     }
     // No signal (or the server is down): the phone's copy of the entries.
     const snap = snapshot ?? (await loadSnapshot(eventId)) ?? null;
@@ -120,7 +173,9 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
     setNotice({
       tone: 'error',
       code: 'offline_unknown',
-      text: snap ? `No signal, and ${isRaceNumber ? `race number ${text}` : 'this tag'} is not in this phone’s copy of the entries.` : 'No signal, and this phone has no copy of the entries yet: open the dock screen once with a signal.',
+      text: snap
+        ? `No signal, and ${isRaceNumber ? `race number ${text}` : 'this tag'} is not in this phone’s copy of the entries.`
+        : 'No signal, and this phone has no copy of the entries yet: open the dock screen once with a signal.',
     });
   }
 
@@ -128,9 +183,22 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
     if (!target) return;
     const label = `No. ${target.raceNumber} ${target.boatName}`;
     const queued: QueuedRecord = {
-      idempotencyKey: draft.idempotencyKey, eventId, recordedById: actorId, label, payload: draft, photos: photos.map((p) => ({ name: p.name, type: p.type, blob: p })),
-      state: 'waiting', attempts: 0, createdAt: new Date().toISOString(), lastTriedAt: null, message: null, fieldErrors: {},
-      inspectionId: null, overallResult: null, serverRules: null, sentAt: null,
+      idempotencyKey: draft.idempotencyKey,
+      eventId,
+      recordedById: actorId,
+      label,
+      payload: draft,
+      photos: photos.map((p) => ({ name: p.name, type: p.type, blob: p })),
+      state: 'waiting',
+      attempts: 0,
+      createdAt: new Date().toISOString(),
+      lastTriedAt: null,
+      message: null,
+      fieldErrors: {},
+      inspectionId: null,
+      overallResult: null,
+      serverRules: null,
+      sentAt: null,
     };
     await putQueued(queued); // on the phone first, whatever happens next
     const after = navigator.onLine ? await sendQueued(queued) : queued;
@@ -138,7 +206,10 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
     if (after.state === 'needs_fix' && !after.inspectionId) {
       // Refused: the form stays open with the server's messages beside the fields, and the same key.
       setServerErrors(after.fieldErrors);
-      setNotice({ tone: 'error', text: `Not recorded: ${after.message ?? 'the server refused it'}. It is kept on this phone under “Needs a fix”.` });
+      setNotice({
+        tone: 'error',
+        text: `Not recorded: ${after.message ?? 'the server refused it'}. It is kept on this phone under “Needs a fix”.`,
+      });
       return;
     }
     setVerdict({
@@ -149,7 +220,11 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
       inspectionId: after.inspectionId,
       scopeWords: describeScope(target.card?.openReinspections.find((t) => t.id === draft.reinspectionId)?.checks),
     });
-    setNotice(after.state === 'sent' ? { tone: 'info', text: `Recorded and sent: ${label}.` } : { tone: 'info', text: `Kept on this phone: ${label}. Waiting to send.` });
+    setNotice(
+      after.state === 'sent'
+        ? { tone: 'info', text: `Recorded and sent: ${label}.` }
+        : { tone: 'info', text: `Kept on this phone: ${label}. Waiting to send.` },
+    );
     setTarget(null);
     setForm(null);
     if (after.state === 'sent') void refreshSnapshot();
@@ -159,8 +234,16 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
     const snap = snapshot ?? (await loadSnapshot(eventId)) ?? null;
     const row = snap?.board.rows.find((x) => x.entryId === r.payload.entryId);
     const answer = row ? await get(`/api/events/${eventId}/race-numbers/${row.raceNumber}`) : null;
-    const t = answer?.ok ? targetFromCard(answer.data as never, answer.fromCache) : row && snap ? targetFromBoardRow(row, snap.board) : null;
-    if (!t) return setNotice({ tone: 'error', text: 'This boat is not in the phone’s copy of the entries: open the dock screen with a signal first.' });
+    const t = answer?.ok
+      ? targetFromCard(answer.data as never, answer.fromCache)
+      : row && snap
+        ? targetFromBoardRow(row, snap.board)
+        : null;
+    if (!t)
+      return setNotice({
+        tone: 'error',
+        text: 'This boat is not in the phone’s copy of the entries: open the dock screen with a signal first.',
+      });
     open(t, formFromDraft(r.payload, initialFormState(t, defaultLength, defaultScale)), r.idempotencyKey);
     setServerErrors(r.fieldErrors);
     setNotice({ tone: 'error', text: `Fix and send again: ${r.message ?? ''}` });
@@ -168,8 +251,15 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
 
   function correct(original: InspectionView) {
     if (!target || !form) return;
-    setForm({ ...form, initial: { ...form.initial, supersedesId: original.id, correctionReason: '' }, revision: form.revision + 1 });
-    setNotice({ tone: 'info', text: `Correcting the record of ${new Date(original.capturedAt).toLocaleString()}: measure or re-enter, then say why.` });
+    setForm({
+      ...form,
+      initial: { ...form.initial, supersedesId: original.id, correctionReason: '' },
+      revision: form.revision + 1,
+    });
+    setNotice({
+      tone: 'info',
+      text: `Correcting the record of ${new Date(original.capturedAt).toLocaleString()}: measure or re-enter, then say why.`,
+    });
   }
 
   // Recording is tapped at the bottom of a long form: bring the verdict into view (and focus) when it arrives.
@@ -206,22 +296,55 @@ export function DockScreen({ eventId, actorId, instruments }: { eventId: string;
     <div className="grid gap-4 lg:grid-cols-[2fr_1fr]">
       <div className="space-y-4">
         <FindBoat onFind={(q) => void find(q)} isBusy={isLooking} />
-        {isLooking && <p role="status" className="text-lg">Looking up…</p>}
-        <div ref={verdictRef} tabIndex={-1} id="dock-verdict" className="scroll-mt-4 space-y-4 outline-none">
-        {notice && (
-          <p role="status" aria-live="polite" data-testid="dock-notice" data-code={notice.code ?? ''}
-            className={`rounded-lg p-3 text-lg font-bold ${notice.tone === 'error' ? 'bg-fail-100 text-fail-800' : 'bg-tide-50 text-tide-700'}`}>
-            {notice.text}
+        {isLooking && (
+          <p role="status" className="text-lg">
+            Looking up…
           </p>
         )}
-        {verdict && <VerdictPanel verdict={verdict} onNext={() => { setVerdict(null); setNotice(null); }} />}
+        <div ref={verdictRef} tabIndex={-1} id="dock-verdict" className="scroll-mt-4 space-y-4 outline-none">
+          {notice && (
+            <p
+              role="status"
+              aria-live="polite"
+              data-testid="dock-notice"
+              data-code={notice.code ?? ''}
+              className={`rounded-lg p-3 text-lg font-bold ${notice.tone === 'error' ? 'bg-fail-100 text-fail-800' : 'bg-tide-50 text-tide-700'}`}
+            >
+              {notice.text}
+            </p>
+          )}
+          {verdict && (
+            <VerdictPanel
+              verdict={verdict}
+              onNext={() => {
+                setVerdict(null);
+                setNotice(null);
+              }}
+            />
+          )}
         </div>
         {target && <BoatCardView target={target} onCorrect={correct} />}
         {target && form && !target.isOwnBoat && (
-          <InspectionForm key={`${form.key}-${form.revision}`} target={target} instruments={instruments} initial={form.initial} idempotencyKey={form.key} device={device} serverErrors={serverErrors} onSubmit={record} />
+          <InspectionForm
+            key={`${form.key}-${form.revision}`}
+            target={target}
+            instruments={instruments}
+            initial={form.initial}
+            idempotencyKey={form.key}
+            device={device}
+            serverErrors={serverErrors}
+            onSubmit={record}
+          />
         )}
       </div>
-      <QueuePanel records={queue.records} actorId={actorId} isOnline={queue.isOnline} onSendNow={() => void queue.flush()} onFix={(r) => void fix(r)} onRemove={(r) => void queue.remove(r)} />
+      <QueuePanel
+        records={queue.records}
+        actorId={actorId}
+        isOnline={queue.isOnline}
+        onSendNow={() => void queue.flush()}
+        onFix={(r) => void fix(r)}
+        onRemove={(r) => void queue.remove(r)}
+      />
     </div>
   );
 }

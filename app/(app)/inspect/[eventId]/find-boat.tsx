@@ -66,21 +66,33 @@ export function FindBoat({ onFind, isBusy }: Props) {
       if (cancelled) return;
       scanner = new Html5Qrcode('dock-camera', { verbose: false });
       started = scanner
-        .start({ facingMode: 'environment' }, { fps: 10, qrbox: { width: 240, height: 240 } }, (text) => {
-          if (cancelled) return;
-          cancelled = true;
-          setCameraOn(false);
-          onScan({ kind: 'scan', text });
-        }, () => undefined)
+        .start(
+          { facingMode: 'environment' },
+          { fps: 10, qrbox: { width: 240, height: 240 } },
+          (text) => {
+            if (cancelled) return;
+            cancelled = true;
+            setCameraOn(false);
+            onScan({ kind: 'scan', text });
+          },
+          () => undefined,
+        )
         .catch(() => {
-          if (!cancelled) setCameraError('The camera could not start. Allow the camera, use “Scan from a photo”, or type the race number.');
+          if (!cancelled)
+            setCameraError(
+              'The camera could not start. Allow the camera, use “Scan from a photo”, or type the race number.',
+            );
           setCameraOn(false);
         });
     })();
     return () => {
       cancelled = true;
       const s = scanner;
-      if (s) void started.then(() => (s.isScanning ? s.stop() : undefined)).then(() => s.clear()).catch(() => undefined);
+      if (s)
+        void started
+          .then(() => (s.isScanning ? s.stop() : undefined))
+          .then(() => s.clear())
+          .catch(() => undefined);
     };
   }, [isCameraOn]);
 
@@ -94,29 +106,83 @@ export function FindBoat({ onFind, isBusy }: Props) {
 
   return (
     <section aria-labelledby="find-heading" className="card space-y-4 text-lg">
-      <h2 id="find-heading" className="text-2xl">Find the boat</h2>
+      <h2 id="find-heading" className="text-2xl">
+        Find the boat
+      </h2>
       <div className="grid gap-3 sm:grid-cols-2">
-        <button type="button" className="btn-primary min-h-[3.5rem] text-xl" onClick={() => { setCameraError(null); setCameraOn((on) => !on); }} disabled={isBusy} aria-pressed={isCameraOn}>
+        <button
+          type="button"
+          className="btn-primary min-h-[3.5rem] text-xl"
+          onClick={() => {
+            setCameraError(null);
+            setCameraOn((on) => !on);
+          }}
+          disabled={isBusy}
+          aria-pressed={isCameraOn}
+        >
           {isCameraOn ? 'Stop the camera' : 'Scan tag'}
         </button>
         <label className="btn-secondary min-h-[3.5rem] cursor-pointer text-xl">
           Scan from a photo
-          <input type="file" accept="image/*" capture="environment" className="sr-only" data-testid="scan-photo" aria-label="Scan from a photo" disabled={isBusy}
-            onChange={(e) => { void scanPhoto(e.target.files?.[0]); e.target.value = ''; }} />
+          <input
+            type="file"
+            accept="image/*"
+            capture="environment"
+            className="sr-only"
+            data-testid="scan-photo"
+            aria-label="Scan from a photo"
+            disabled={isBusy}
+            onChange={(e) => {
+              void scanPhoto(e.target.files?.[0]);
+              e.target.value = '';
+            }}
+          />
         </label>
       </div>
       <div id="dock-camera" className={isCameraOn ? 'overflow-hidden rounded-lg' : 'hidden'} />
       <div id="dock-file-scan" className="hidden" aria-hidden="true" />
-      {cameraError && <p className="field-error text-lg" role="alert">{cameraError}</p>}
-      {fileError && <p className="field-error text-lg" role="alert" data-testid="scan-photo-error">{fileError}</p>}
-      <form className="flex flex-wrap items-end gap-3" noValidate onSubmit={(e) => { e.preventDefault(); if (typed.trim()) onFind({ kind: 'typed', text: typed }); }}>
+      {cameraError && (
+        <p className="field-error text-lg" role="alert">
+          {cameraError}
+        </p>
+      )}
+      {fileError && (
+        <p className="field-error text-lg" role="alert" data-testid="scan-photo-error">
+          {fileError}
+        </p>
+      )}
+      <form
+        className="flex flex-wrap items-end gap-3"
+        noValidate
+        onSubmit={(e) => {
+          e.preventDefault();
+          if (typed.trim()) onFind({ kind: 'typed', text: typed });
+        }}
+      >
         <div className="min-w-0 flex-1">
-          <label htmlFor="find-typed" className="field-label text-lg">Race number or tag code</label>
-          <input id="find-typed" className="field-input min-h-touch text-xl" inputMode={isTypingCode ? 'text' : 'numeric'} pattern={isTypingCode ? undefined : '[0-9]*'}
-            autoComplete="off" autoCapitalize="off" value={typed} onChange={(e) => setTyped(e.target.value)} />
+          <label htmlFor="find-typed" className="field-label text-lg">
+            Race number or tag code
+          </label>
+          <input
+            id="find-typed"
+            className="field-input min-h-touch text-xl"
+            inputMode={isTypingCode ? 'text' : 'numeric'}
+            pattern={isTypingCode ? undefined : '[0-9]*'}
+            autoComplete="off"
+            autoCapitalize="off"
+            value={typed}
+            onChange={(e) => setTyped(e.target.value)}
+          />
         </div>
-        <button type="submit" className="btn-primary min-h-touch text-xl" disabled={isBusy}>Find</button>
-        <button type="button" className="min-h-touch basis-full text-left text-base font-bold text-tide-700 underline" aria-pressed={isTypingCode} onClick={() => setTypingCode((on) => !on)}>
+        <button type="submit" className="btn-primary min-h-touch text-xl" disabled={isBusy}>
+          Find
+        </button>
+        <button
+          type="button"
+          className="min-h-touch basis-full text-left text-base font-bold text-tide-700 underline"
+          aria-pressed={isTypingCode}
+          onClick={() => setTypingCode((on) => !on)}
+        >
           {isTypingCode ? 'Type a race number instead' : 'Type a tag code instead'}
         </button>
       </form>

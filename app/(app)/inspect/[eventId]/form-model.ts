@@ -27,19 +27,40 @@ export type DockTarget = {
 
 export function targetFromCard(card: BoatCard, fromCache: boolean): DockTarget {
   return {
-    source: fromCache ? 'server-cache' : 'server', entryId: card.entry.id, raceNumber: card.entry.raceNumber, boatName: card.boat.name,
-    classCode: card.raceClass.code, className: card.raceClass.name, status: card.entry.status, isPaid: card.entry.isPaid,
-    declaredPowerKw: card.boat.declaredPowerKw, powerEvidence: card.boat.powerEvidence, rules: card.ruleVersion?.rules ?? null,
-    ruleVersion: card.ruleVersion?.version ?? null, card, isOwnBoat: card.isOwnBoat,
+    source: fromCache ? 'server-cache' : 'server',
+    entryId: card.entry.id,
+    raceNumber: card.entry.raceNumber,
+    boatName: card.boat.name,
+    classCode: card.raceClass.code,
+    className: card.raceClass.name,
+    status: card.entry.status,
+    isPaid: card.entry.isPaid,
+    declaredPowerKw: card.boat.declaredPowerKw,
+    powerEvidence: card.boat.powerEvidence,
+    rules: card.ruleVersion?.rules ?? null,
+    ruleVersion: card.ruleVersion?.version ?? null,
+    card,
+    isOwnBoat: card.isOwnBoat,
   };
 }
 
 export function targetFromBoardRow(row: BoardRow, board: InspectionBoard): DockTarget {
   const cls = board.classes.find((c) => c.id === row.classId);
   return {
-    source: 'phone-copy', entryId: row.entryId, raceNumber: row.raceNumber, boatName: row.boatName, classCode: row.classCode,
-    className: row.className, status: row.status, isPaid: row.isPaid, declaredPowerKw: row.declaredPowerKw, powerEvidence: row.powerEvidence,
-    rules: cls?.ruleVersion?.rules ?? null, ruleVersion: cls?.ruleVersion?.version ?? null, card: null, isOwnBoat: false,
+    source: 'phone-copy',
+    entryId: row.entryId,
+    raceNumber: row.raceNumber,
+    boatName: row.boatName,
+    classCode: row.classCode,
+    className: row.className,
+    status: row.status,
+    isPaid: row.isPaid,
+    declaredPowerKw: row.declaredPowerKw,
+    powerEvidence: row.powerEvidence,
+    rules: cls?.ruleVersion?.rules ?? null,
+    ruleVersion: cls?.ruleVersion?.version ?? null,
+    card: null,
+    isOwnBoat: false,
   };
 }
 
@@ -78,8 +99,13 @@ const angleFor = (i: number, n: number) => String(Math.round((180 / n) * i));
  * goes halfway between the last angle and 180°.
  */
 export function resizeReadings(readings: FormState['readings'], n: number): FormState['readings'] {
-  const next = n > readings.length ? [...readings, ...Array.from({ length: n - readings.length }, () => ({ diameter: '', angle: '' }))] : readings.slice(0, n);
-  const isEvenSpread = readings.every((r, i) => r.angle.trim() === '' || r.angle.trim() === angleFor(i, readings.length));
+  const next =
+    n > readings.length
+      ? [...readings, ...Array.from({ length: n - readings.length }, () => ({ diameter: '', angle: '' }))]
+      : readings.slice(0, n);
+  const isEvenSpread = readings.every(
+    (r, i) => r.angle.trim() === '' || r.angle.trim() === angleFor(i, readings.length),
+  );
   if (isEvenSpread) return next.map((r, i) => ({ ...r, angle: angleFor(i, n) }));
   return next.map((r, i) => {
     if (i < readings.length || r.angle !== '') return r;
@@ -88,7 +114,11 @@ export function resizeReadings(readings: FormState['readings'], n: number): Form
   });
 }
 
-export function initialFormState(target: DockTarget, lengthInstrumentId: string | null, scaleId: string | null): FormState {
+export function initialFormState(
+  target: DockTarget,
+  lengthInstrumentId: string | null,
+  scaleId: string | null,
+): FormState {
   const n = Math.max(target.rules?.nozzle.minReadings ?? 3, 1);
   return {
     kind: target.card?.openReinspections.length ? 'post_race' : 'pre_race',
@@ -117,7 +147,11 @@ export function initialFormState(target: DockTarget, lengthInstrumentId: string 
 const toNumber = (s: string): number | undefined => (s.trim() === '' ? undefined : Number(s.trim().replace(',', '.')));
 const toOptionalNumber = (s: string): number | null => (s.trim() === '' ? null : Number(s.trim().replace(',', '.')));
 
-export function draftFromForm(f: FormState, target: DockTarget, meta: { idempotencyKey: string; capturedAt: string; device: string }): RecordInspectionDraft {
+export function draftFromForm(
+  f: FormState,
+  target: DockTarget,
+  meta: { idempotencyKey: string; capturedAt: string; device: string },
+): RecordInspectionDraft {
   const weighings = f.weighings.filter((w) => w.trim() !== '');
   return {
     idempotencyKey: meta.idempotencyKey,
@@ -126,13 +160,18 @@ export function draftFromForm(f: FormState, target: DockTarget, meta: { idempote
     capturedAt: meta.capturedAt,
     device: meta.device,
     nozzle: {
-      readings: f.readings.map((r) => ({ diameterMm: toNumber(r.diameter) as number, angleDeg: toNumber(r.angle) as number })),
+      readings: f.readings.map((r) => ({
+        diameterMm: toNumber(r.diameter) as number,
+        angleDeg: toNumber(r.angle) as number,
+      })),
       instrumentId: f.uncertaintySource === 'instrument' ? f.instrumentId || null : null,
       expandedUncertaintyMm: f.uncertaintySource === 'typed' ? (toNumber(f.typedU) as number) : null,
       temperatureC: toOptionalNumber(f.temperature),
       material: f.material || null,
     },
-    weight: weighings.length ? { readingsKg: weighings.map((w) => toNumber(w) as number), instrumentId: f.scaleId || null } : null,
+    weight: weighings.length
+      ? { readingsKg: weighings.map((w) => toNumber(w) as number), instrumentId: f.scaleId || null }
+      : null,
     power: { declaredKw: toNumber(f.powerKw) as number, evidenceSeen: f.evidenceSeen, note: f.powerNote },
     seals: f.seals.filter((s) => s.number.trim() || s.location.trim()),
     safety: Object.fromEntries((target.rules?.safetyItems ?? []).map((k) => [k, f.safety[k] === true])),
@@ -151,7 +190,11 @@ export function formFromDraft(d: RecordInspectionDraft, base: FormState): FormSt
     ...base,
     kind: d.kind ?? base.kind,
     readings: d.nozzle.readings.map((r) => ({ diameter: str(r.diameterMm), angle: str(r.angleDeg) })),
-    uncertaintySource: d.nozzle.instrumentId ? 'instrument' : d.nozzle.expandedUncertaintyMm != null ? 'typed' : 'class',
+    uncertaintySource: d.nozzle.instrumentId
+      ? 'instrument'
+      : d.nozzle.expandedUncertaintyMm != null
+        ? 'typed'
+        : 'class',
     instrumentId: d.nozzle.instrumentId ?? base.instrumentId,
     typedU: str(d.nozzle.expandedUncertaintyMm),
     temperature: str(d.nozzle.temperatureC),

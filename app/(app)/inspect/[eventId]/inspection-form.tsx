@@ -4,8 +4,18 @@ import { useState } from 'react';
 import { SAFETY_ITEMS, type SafetyItem } from '@/lib/core/constants';
 import { MATERIAL_OPTIONS } from '@/lib/core/engine/measurement';
 import { EngineInputError } from '@/lib/core/engine/engine-input-error';
-import { INSPECTION_KINDS, INSPECTION_KIND_LABELS, RecordInspectionInput, type RecordInspectionDraft } from '@/lib/core/inputs/inspections';
-import { CHECK_AREA_LABELS, decideInspection, describeScope, type InspectionDecision } from '@/lib/core/inspections/decide-inspection';
+import {
+  INSPECTION_KINDS,
+  INSPECTION_KIND_LABELS,
+  RecordInspectionInput,
+  type RecordInspectionDraft,
+} from '@/lib/core/inputs/inspections';
+import {
+  CHECK_AREA_LABELS,
+  decideInspection,
+  describeScope,
+  type InspectionDecision,
+} from '@/lib/core/inspections/decide-inspection';
 import type { InstrumentView } from '@/lib/server/inspections/list-instruments';
 import { SafetyNote } from '@/components/safety-note';
 import { formatFigure } from '@/lib/core/format/figures';
@@ -30,7 +40,15 @@ const select = 'field-input min-h-touch text-xl';
 const check = 'h-7 w-7 shrink-0 accent-tide-600';
 
 /** The record form for one boat. Checks the input with the shared schema before anything is queued. */
-export function InspectionForm({ target, instruments, initial, idempotencyKey, device, serverErrors, onSubmit }: Props) {
+export function InspectionForm({
+  target,
+  instruments,
+  initial,
+  idempotencyKey,
+  device,
+  serverErrors,
+  onSubmit,
+}: Props) {
   const [f, setF] = useState<FormState>(initial);
   const [photos, setPhotos] = useState<File[]>([]);
   const set = <K extends keyof FormState>(k: K, v: FormState[K]) => setF((s) => ({ ...s, [k]: v }));
@@ -43,27 +61,36 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
   const scopeWords = describeScope(scope);
 
   // The record is checked with the shared schema here, then handed to the dock (saved on the phone first, then sent).
-  const { state, isPending, form } = useFormAction(async (): Promise<ActionState> => {
-    const draft = draftFromForm(f, target, { idempotencyKey, capturedAt: new Date().toISOString(), device });
-    const parsed = RecordInspectionInput.safeParse(draft);
-    if (!parsed.success) {
-      const out: Record<string, string> = {};
-      for (const i of parsed.error.issues) out[i.path.map(String).join('.')] ??= i.message;
-      return { ok: false, fieldErrors: out };
-    }
-    let provisional: InspectionDecision | null = null;
-    if (rules) {
-      try {
-        const pick = (iid: string | null) => instruments.find((i) => i.id === iid) ?? null;
-        provisional = decideInspection({ input: parsed.data, rules, nozzleInstrument: pick(parsed.data.nozzle.instrumentId), weightInstrument: pick(parsed.data.weight?.instrumentId ?? null), scope });
-      } catch (x) {
-        if (x instanceof EngineInputError) return { ok: false, fieldErrors: { [x.field]: x.message } };
-        throw x;
+  const { state, isPending, form } = useFormAction(
+    async (): Promise<ActionState> => {
+      const draft = draftFromForm(f, target, { idempotencyKey, capturedAt: new Date().toISOString(), device });
+      const parsed = RecordInspectionInput.safeParse(draft);
+      if (!parsed.success) {
+        const out: Record<string, string> = {};
+        for (const i of parsed.error.issues) out[i.path.map(String).join('.')] ??= i.message;
+        return { ok: false, fieldErrors: out };
       }
-    }
-    await onSubmit({ draft, photos, provisional });
-    return { ok: true };
-  }, { ok: false });
+      let provisional: InspectionDecision | null = null;
+      if (rules) {
+        try {
+          const pick = (iid: string | null) => instruments.find((i) => i.id === iid) ?? null;
+          provisional = decideInspection({
+            input: parsed.data,
+            rules,
+            nozzleInstrument: pick(parsed.data.nozzle.instrumentId),
+            weightInstrument: pick(parsed.data.weight?.instrumentId ?? null),
+            scope,
+          });
+        } catch (x) {
+          if (x instanceof EngineInputError) return { ok: false, fieldErrors: { [x.field]: x.message } };
+          throw x;
+        }
+      }
+      await onSubmit({ draft, photos, provisional });
+      return { ok: true };
+    },
+    { ok: false },
+  );
   const errors = state.fieldErrors ?? {};
   const err = (path: string) => errors[path] ?? serverErrors[path];
 
@@ -81,83 +108,234 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
   ];
   const section = 'scroll-mt-4 space-y-3';
   return (
-    <form {...form} className="space-y-6 text-lg" data-testid="inspection-form" aria-label={`Inspection of ${target.boatName}`}>
+    <form
+      {...form}
+      className="space-y-6 text-lg"
+      data-testid="inspection-form"
+      aria-label={`Inspection of ${target.boatName}`}
+    >
       <fieldset disabled={isPending} className="space-y-6">
         {f.supersedesId && (
           <div className="rounded-lg border-2 border-flare-500 bg-flare-100 p-4">
             <p className="font-bold">Correcting an earlier record. The original is kept; this one supersedes it.</p>
-            <label htmlFor={id('correctionReason')} className="field-label mt-2 text-lg">Why is it corrected?</label>
-            <textarea id={id('correctionReason')} className="field-input text-xl" rows={2} value={f.correctionReason} onChange={(e) => set('correctionReason', e.target.value)} aria-invalid={err('correctionReason') ? true : undefined} />
+            <label htmlFor={id('correctionReason')} className="field-label mt-2 text-lg">
+              Why is it corrected?
+            </label>
+            <textarea
+              id={id('correctionReason')}
+              className="field-input text-xl"
+              rows={2}
+              value={f.correctionReason}
+              onChange={(e) => set('correctionReason', e.target.value)}
+              aria-invalid={err('correctionReason') ? true : undefined}
+            />
             {err('correctionReason') && <p className="field-error text-lg">{err('correctionReason')}</p>}
-            <button type="button" className="btn-secondary mt-2 text-lg" onClick={() => setF((s) => ({ ...s, supersedesId: null, correctionReason: '' }))}>Not a correction</button>
+            <button
+              type="button"
+              className="btn-secondary mt-2 text-lg"
+              onClick={() => setF((s) => ({ ...s, supersedesId: null, correctionReason: '' }))}
+            >
+              Not a correction
+            </button>
           </div>
         )}
         <nav aria-label="Sections of the form" id="dock-sections" className="scroll-mt-4" data-testid="dock-sections">
           <ul className="flex flex-wrap gap-2">
             {sections.map((x) => (
-              <li key={x.id}><a href={`#${x.id}`} className="btn-secondary px-3 text-base">{x.label}</a></li>
+              <li key={x.id}>
+                <a href={`#${x.id}`} className="btn-secondary px-3 text-base">
+                  {x.label}
+                </a>
+              </li>
             ))}
           </ul>
         </nav>
         <div>
-          <label htmlFor={id('kind')} className="field-label text-lg">Kind of inspection</label>
-          <select id={id('kind')} className={select} value={f.kind} onChange={(e) => set('kind', e.target.value as FormState['kind'])}>
-            {INSPECTION_KINDS.map((k) => <option key={k} value={k}>{INSPECTION_KIND_LABELS[k]}</option>)}
+          <label htmlFor={id('kind')} className="field-label text-lg">
+            Kind of inspection
+          </label>
+          <select
+            id={id('kind')}
+            className={select}
+            value={f.kind}
+            onChange={(e) => set('kind', e.target.value as FormState['kind'])}
+          >
+            {INSPECTION_KINDS.map((k) => (
+              <option key={k} value={k}>
+                {INSPECTION_KIND_LABELS[k]}
+              </option>
+            ))}
           </select>
         </div>
 
         {scopeWords && (
-          <p className="rounded-lg border-2 border-flare-500 bg-flare-100 p-3 font-bold" data-testid="reinspection-scope">{scopeWords}</p>
+          <p
+            className="rounded-lg border-2 border-flare-500 bg-flare-100 p-3 font-bold"
+            data-testid="reinspection-scope"
+          >
+            {scopeWords}
+          </p>
         )}
-        <fieldset id="dock-nozzle" className={section} aria-describedby={readingsError ? id('nozzle.readings') : undefined}>
+        <fieldset
+          id="dock-nozzle"
+          className={section}
+          aria-describedby={readingsError ? id('nozzle.readings') : undefined}
+        >
           <legend className="text-xl font-bold">Nozzle exit: two-point diameters</legend>
-          <p className="text-ink-soft">{rules ? `At least ${rules.nozzle.minReadings} readings, spread around the exit.` : 'Spread the readings around the exit.'} Angles start spread evenly over half a turn, 180°/n apart for n readings ({Math.round((180 / f.readings.length) * 10) / 10}° now); change them if you measured elsewhere.</p>
+          <p className="text-ink-soft">
+            {rules
+              ? `At least ${rules.nozzle.minReadings} readings, spread around the exit.`
+              : 'Spread the readings around the exit.'}{' '}
+            Angles start spread evenly over half a turn, 180°/n apart for n readings (
+            {Math.round((180 / f.readings.length) * 10) / 10}° now); change them if you measured elsewhere.
+          </p>
           {f.readings.map((r, i) => (
             <div key={i} className="grid grid-cols-[2fr_1fr] items-end gap-3">
-              <DockField id={id(`nozzle.readings.${i}.diameterMm`)} label={`Reading ${i + 1} diameter`} unit="mm" inputMode="decimal" autoComplete="off" value={r.diameter}
-                error={err(`nozzle.readings.${i}.diameterMm`)} onChange={(e) => set('readings', f.readings.map((x, j) => (j === i ? { ...x, diameter: e.target.value } : x)))} />
-              <DockField id={id(`nozzle.readings.${i}.angleDeg`)} label={`Reading ${i + 1} angle`} unit="°" inputMode="numeric" autoComplete="off" value={r.angle}
-                error={err(`nozzle.readings.${i}.angleDeg`)} onChange={(e) => set('readings', f.readings.map((x, j) => (j === i ? { ...x, angle: e.target.value } : x)))} />
+              <DockField
+                id={id(`nozzle.readings.${i}.diameterMm`)}
+                label={`Reading ${i + 1} diameter`}
+                unit="mm"
+                inputMode="decimal"
+                autoComplete="off"
+                value={r.diameter}
+                error={err(`nozzle.readings.${i}.diameterMm`)}
+                onChange={(e) =>
+                  set(
+                    'readings',
+                    f.readings.map((x, j) => (j === i ? { ...x, diameter: e.target.value } : x)),
+                  )
+                }
+              />
+              <DockField
+                id={id(`nozzle.readings.${i}.angleDeg`)}
+                label={`Reading ${i + 1} angle`}
+                unit="°"
+                inputMode="numeric"
+                autoComplete="off"
+                value={r.angle}
+                error={err(`nozzle.readings.${i}.angleDeg`)}
+                onChange={(e) =>
+                  set(
+                    'readings',
+                    f.readings.map((x, j) => (j === i ? { ...x, angle: e.target.value } : x)),
+                  )
+                }
+              />
             </div>
           ))}
-          {readingsError && <p id={id('nozzle.readings')} className="field-error text-lg" data-field-error="nozzle.readings">{readingsError}</p>}
+          {readingsError && (
+            <p id={id('nozzle.readings')} className="field-error text-lg" data-field-error="nozzle.readings">
+              {readingsError}
+            </p>
+          )}
           <div className="flex flex-wrap gap-3">
-            <button type="button" className="btn-secondary text-lg" onClick={() => set('readings', resizeReadings(f.readings, f.readings.length + 1))}>Add a reading</button>
-            {f.readings.length > 1 && <button type="button" className="btn-secondary text-lg" onClick={() => set('readings', resizeReadings(f.readings, f.readings.length - 1))}>Remove the last reading</button>}
+            <button
+              type="button"
+              className="btn-secondary text-lg"
+              onClick={() => set('readings', resizeReadings(f.readings, f.readings.length + 1))}
+            >
+              Add a reading
+            </button>
+            {f.readings.length > 1 && (
+              <button
+                type="button"
+                className="btn-secondary text-lg"
+                onClick={() => set('readings', resizeReadings(f.readings, f.readings.length - 1))}
+              >
+                Remove the last reading
+              </button>
+            )}
           </div>
 
           <div role="radiogroup" aria-label="Uncertainty of the readings" className="space-y-2">
             <p className="font-bold">Uncertainty of the readings</p>
             {(['instrument', 'typed', 'class'] as const).map((src) => (
               <label key={src} className="flex min-h-touch items-center gap-3">
-                <input type="radio" name="uncertaintySource" className={check} checked={f.uncertaintySource === src} onChange={() => set('uncertaintySource', src)} disabled={src === 'instrument' && lengthInstruments.length === 0} />
-                {src === 'instrument' ? 'From the instrument used' : src === 'typed' ? 'I know U (type it)' : `Class default${rules ? ` (U ${rules.nozzle.defaultUncertaintyMm} mm)` : ''}`}
+                <input
+                  type="radio"
+                  name="uncertaintySource"
+                  className={check}
+                  checked={f.uncertaintySource === src}
+                  onChange={() => set('uncertaintySource', src)}
+                  disabled={src === 'instrument' && lengthInstruments.length === 0}
+                />
+                {src === 'instrument'
+                  ? 'From the instrument used'
+                  : src === 'typed'
+                    ? 'I know U (type it)'
+                    : `Class default${rules ? ` (U ${rules.nozzle.defaultUncertaintyMm} mm)` : ''}`}
               </label>
             ))}
           </div>
           {lengthInstruments.length === 0 && (
-            <p className="text-ink-soft" data-testid="no-instruments">No length instrument is on this meeting’s list yet: the chief scrutineer adds them under Instruments.</p>
+            <p className="text-ink-soft" data-testid="no-instruments">
+              No length instrument is on this meeting’s list yet: the chief scrutineer adds them under Instruments.
+            </p>
           )}
           {f.uncertaintySource === 'instrument' && (
             <div>
-              <label htmlFor={id('nozzle.instrumentId')} className="field-label text-lg">Instrument used</label>
-              <select id={id('nozzle.instrumentId')} className={select} value={f.instrumentId} onChange={(e) => set('instrumentId', e.target.value)} aria-invalid={err('nozzle.instrumentId') ? true : undefined}>
+              <label htmlFor={id('nozzle.instrumentId')} className="field-label text-lg">
+                Instrument used
+              </label>
+              <select
+                id={id('nozzle.instrumentId')}
+                className={select}
+                value={f.instrumentId}
+                onChange={(e) => set('instrumentId', e.target.value)}
+                aria-invalid={err('nozzle.instrumentId') ? true : undefined}
+              >
                 <option value="">Choose…</option>
-                {lengthInstruments.map((i) => <option key={i.id} value={i.id}>{i.name} (U {formatFigure(i.appliedExpandedUncertainty, i.quantity === 'length' ? 'uncertaintyMm' : 'massKg')})</option>)}
+                {lengthInstruments.map((i) => (
+                  <option key={i.id} value={i.id}>
+                    {i.name} (U{' '}
+                    {formatFigure(i.appliedExpandedUncertainty, i.quantity === 'length' ? 'uncertaintyMm' : 'massKg')})
+                  </option>
+                ))}
               </select>
-              {err('nozzle.instrumentId') && <p className="field-error text-lg" data-field-error="nozzle.instrumentId">{err('nozzle.instrumentId')}</p>}
+              {err('nozzle.instrumentId') && (
+                <p className="field-error text-lg" data-field-error="nozzle.instrumentId">
+                  {err('nozzle.instrumentId')}
+                </p>
+              )}
             </div>
           )}
           {f.uncertaintySource === 'typed' && (
-            <DockField id={id('nozzle.expandedUncertaintyMm')} label="Expanded uncertainty U (k = 2)" unit="mm" inputMode="decimal" value={f.typedU} error={err('nozzle.expandedUncertaintyMm')} onChange={(e) => set('typedU', e.target.value)} />
+            <DockField
+              id={id('nozzle.expandedUncertaintyMm')}
+              label="Expanded uncertainty U (k = 2)"
+              unit="mm"
+              inputMode="decimal"
+              value={f.typedU}
+              error={err('nozzle.expandedUncertaintyMm')}
+              onChange={(e) => set('typedU', e.target.value)}
+            />
           )}
           <div className="grid grid-cols-2 items-end gap-3">
-            <DockField id={id('nozzle.temperatureC')} label="Nozzle temperature" unit="°C" inputMode="decimal" value={f.temperature} error={err('nozzle.temperatureC')} onChange={(e) => set('temperature', e.target.value)} />
+            <DockField
+              id={id('nozzle.temperatureC')}
+              label="Nozzle temperature"
+              unit="°C"
+              inputMode="decimal"
+              value={f.temperature}
+              error={err('nozzle.temperatureC')}
+              onChange={(e) => set('temperature', e.target.value)}
+            />
             <div>
-              <label htmlFor={id('nozzle.material')} className="field-label text-lg">Nozzle material</label>
-              <select id={id('nozzle.material')} className={select} value={f.material} onChange={(e) => set('material', e.target.value as FormState['material'])}>
+              <label htmlFor={id('nozzle.material')} className="field-label text-lg">
+                Nozzle material
+              </label>
+              <select
+                id={id('nozzle.material')}
+                className={select}
+                value={f.material}
+                onChange={(e) => set('material', e.target.value as FormState['material'])}
+              >
                 <option value="">Not known</option>
-                {MATERIAL_OPTIONS.map((m) => <option key={m.value} value={m.value}>{m.label}</option>)}
+                {MATERIAL_OPTIONS.map((m) => (
+                  <option key={m.value} value={m.value}>
+                    {m.label}
+                  </option>
+                ))}
               </select>
             </div>
           </div>
@@ -166,18 +344,47 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
 
         {hasWeight && (
           <fieldset id="dock-weight" className={section}>
-            <legend className="text-xl font-bold">Weight{rules?.weight.minKg != null ? ` (minimum ${rules.weight.minKg} kg, ${rules.weight.includesDriver ? 'with' : 'without'} driver)` : ''}</legend>
+            <legend className="text-xl font-bold">
+              Weight
+              {rules?.weight.minKg != null
+                ? ` (minimum ${rules.weight.minKg} kg, ${rules.weight.includesDriver ? 'with' : 'without'} driver)`
+                : ''}
+            </legend>
             <div className="grid grid-cols-2 items-end gap-3">
               {f.weighings.map((w, i) => (
-                <DockField key={i} id={id(`weight.readingsKg.${i}`)} label={`Weighing ${i + 1}`} unit="kg" inputMode="decimal" value={w} error={err(`weight.readingsKg.${i}`)}
-                  onChange={(e) => set('weighings', f.weighings.map((x, j) => (j === i ? e.target.value : x)))} />
+                <DockField
+                  key={i}
+                  id={id(`weight.readingsKg.${i}`)}
+                  label={`Weighing ${i + 1}`}
+                  unit="kg"
+                  inputMode="decimal"
+                  value={w}
+                  error={err(`weight.readingsKg.${i}`)}
+                  onChange={(e) =>
+                    set(
+                      'weighings',
+                      f.weighings.map((x, j) => (j === i ? e.target.value : x)),
+                    )
+                  }
+                />
               ))}
             </div>
             <div>
-              <label htmlFor={id('weight.instrumentId')} className="field-label text-lg">Scale used</label>
-              <select id={id('weight.instrumentId')} className={select} value={f.scaleId} onChange={(e) => set('scaleId', e.target.value)}>
+              <label htmlFor={id('weight.instrumentId')} className="field-label text-lg">
+                Scale used
+              </label>
+              <select
+                id={id('weight.instrumentId')}
+                className={select}
+                value={f.scaleId}
+                onChange={(e) => set('scaleId', e.target.value)}
+              >
                 <option value="">Class default uncertainty</option>
-                {scales.map((i) => <option key={i.id} value={i.id}>{i.name}</option>)}
+                {scales.map((i) => (
+                  <option key={i.id} value={i.id}>
+                    {i.name}
+                  </option>
+                ))}
               </select>
               {err('weight.instrumentId') && <p className="field-error text-lg">{err('weight.instrumentId')}</p>}
             </div>
@@ -186,21 +393,48 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
 
         <fieldset id="dock-power" className={section}>
           <legend className="text-xl font-bold">Engine power</legend>
-          <DockField id={id('power.declaredKw')} label="Power, as declared or as the evidence shows" unit="kW" inputMode="decimal" value={f.powerKw} error={err('power.declaredKw')} onChange={(e) => set('powerKw', e.target.value)}
-            hint={`Declared by the entrant: ${formatFigure(target.declaredPowerKw, 'powerKw')} (${target.powerEvidence.replace('_', ' ')}).`} />
+          <DockField
+            id={id('power.declaredKw')}
+            label="Power, as declared or as the evidence shows"
+            unit="kW"
+            inputMode="decimal"
+            value={f.powerKw}
+            error={err('power.declaredKw')}
+            onChange={(e) => set('powerKw', e.target.value)}
+            hint={`Declared by the entrant: ${formatFigure(target.declaredPowerKw, 'powerKw')} (${target.powerEvidence.replace('_', ' ')}).`}
+          />
           <label className="flex min-h-touch items-center gap-3 font-bold">
-            <input type="checkbox" className={check} checked={f.evidenceSeen} onChange={(e) => set('evidenceSeen', e.target.checked)} />
+            <input
+              type="checkbox"
+              className={check}
+              checked={f.evidenceSeen}
+              onChange={(e) => set('evidenceSeen', e.target.checked)}
+            />
             I saw the evidence (dyno sheet or maker’s rating)
           </label>
-          <DockField id={id('power.note')} label="Power note" value={f.powerNote} error={err('power.note')} onChange={(e) => set('powerNote', e.target.value)} />
+          <DockField
+            id={id('power.note')}
+            label="Power note"
+            value={f.powerNote}
+            error={err('power.note')}
+            onChange={(e) => set('powerNote', e.target.value)}
+          />
         </fieldset>
 
         {rules && hasSafety && (
           <fieldset id="dock-safety" className="scroll-mt-4 space-y-2">
             <legend className="text-xl font-bold">Safety items required by the class</legend>
             {rules.safetyItems.map((k) => (
-              <label key={k} className="flex min-h-touch items-center gap-3 rounded-lg border-2 border-paper-line bg-white px-3">
-                <input type="checkbox" className={check} checked={f.safety[k] === true} onChange={(e) => set('safety', { ...f.safety, [k]: e.target.checked })} />
+              <label
+                key={k}
+                className="flex min-h-touch items-center gap-3 rounded-lg border-2 border-paper-line bg-white px-3"
+              >
+                <input
+                  type="checkbox"
+                  className={check}
+                  checked={f.safety[k] === true}
+                  onChange={(e) => set('safety', { ...f.safety, [k]: e.target.checked })}
+                />
                 {SAFETY_ITEMS[k as SafetyItem] ?? k} — present and working
               </label>
             ))}
@@ -212,42 +446,109 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, d
           <legend className="text-xl font-bold">Seals applied</legend>
           {f.seals.map((s, i) => (
             <div key={i} className="grid grid-cols-2 gap-3">
-              <DockField id={id(`seals.${i}.number`)} label={`Seal ${i + 1} number`} value={s.number} error={err(`seals.${i}.number`)} onChange={(e) => set('seals', f.seals.map((x, j) => (j === i ? { ...x, number: e.target.value } : x)))} />
-              <DockField id={id(`seals.${i}.location`)} label={`Seal ${i + 1} location`} value={s.location} error={err(`seals.${i}.location`)} onChange={(e) => set('seals', f.seals.map((x, j) => (j === i ? { ...x, location: e.target.value } : x)))} />
+              <DockField
+                id={id(`seals.${i}.number`)}
+                label={`Seal ${i + 1} number`}
+                value={s.number}
+                error={err(`seals.${i}.number`)}
+                onChange={(e) =>
+                  set(
+                    'seals',
+                    f.seals.map((x, j) => (j === i ? { ...x, number: e.target.value } : x)),
+                  )
+                }
+              />
+              <DockField
+                id={id(`seals.${i}.location`)}
+                label={`Seal ${i + 1} location`}
+                value={s.location}
+                error={err(`seals.${i}.location`)}
+                onChange={(e) =>
+                  set(
+                    'seals',
+                    f.seals.map((x, j) => (j === i ? { ...x, location: e.target.value } : x)),
+                  )
+                }
+              />
             </div>
           ))}
-          <button type="button" className="btn-secondary text-lg" onClick={() => set('seals', [...f.seals, { number: '', location: '' }])}>Add a seal</button>
+          <button
+            type="button"
+            className="btn-secondary text-lg"
+            onClick={() => set('seals', [...f.seals, { number: '', location: '' }])}
+          >
+            Add a seal
+          </button>
         </fieldset>
 
         <div id="dock-notes" className="scroll-mt-4 space-y-6">
-        {target.card && target.card.openReinspections.length > 0 && (
-          <div>
-            <label htmlFor={id('reinspectionId')} className="field-label text-lg">Re-inspection task this completes</label>
-            <select id={id('reinspectionId')} className={select} value={f.reinspectionId} onChange={(e) => set('reinspectionId', e.target.value)}>
-              <option value="">None</option>
-              {target.card.openReinspections.map((t) => <option key={t.id} value={t.id}>{t.reason}{t.checks ? ` (checks the ${t.checks.map((c) => CHECK_AREA_LABELS[c]).join(', ')} only)` : ''}</option>)}
-            </select>
-          </div>
-        )}
+          {target.card && target.card.openReinspections.length > 0 && (
+            <div>
+              <label htmlFor={id('reinspectionId')} className="field-label text-lg">
+                Re-inspection task this completes
+              </label>
+              <select
+                id={id('reinspectionId')}
+                className={select}
+                value={f.reinspectionId}
+                onChange={(e) => set('reinspectionId', e.target.value)}
+              >
+                <option value="">None</option>
+                {target.card.openReinspections.map((t) => (
+                  <option key={t.id} value={t.id}>
+                    {t.reason}
+                    {t.checks ? ` (checks the ${t.checks.map((c) => CHECK_AREA_LABELS[c]).join(', ')} only)` : ''}
+                  </option>
+                ))}
+              </select>
+            </div>
+          )}
 
-        <div>
-          <label htmlFor={id('photo')} className="field-label text-lg">Photos (optional, up to 4, 8 MB each)</label>
-          <input id={id('photo')} type="file" accept="image/*" capture="environment" multiple className="block min-h-touch w-full text-lg" onChange={(e) => setPhotos(Array.from(e.target.files ?? []).slice(0, 4))} />
-          {err('photo') && <p className="field-error text-lg">{err('photo')}</p>}
-        </div>
-        <div>
-          <label htmlFor={id('notes')} className="field-label text-lg">Notes</label>
-          <textarea id={id('notes')} className="field-input text-xl" rows={3} value={f.notes} onChange={(e) => set('notes', e.target.value)} />
-          {err('notes') && <p className="field-error text-lg">{err('notes')}</p>}
-        </div>
+          <div>
+            <label htmlFor={id('photo')} className="field-label text-lg">
+              Photos (optional, up to 4, 8 MB each)
+            </label>
+            <input
+              id={id('photo')}
+              type="file"
+              accept="image/*"
+              capture="environment"
+              multiple
+              className="block min-h-touch w-full text-lg"
+              onChange={(e) => setPhotos(Array.from(e.target.files ?? []).slice(0, 4))}
+            />
+            {err('photo') && <p className="field-error text-lg">{err('photo')}</p>}
+          </div>
+          <div>
+            <label htmlFor={id('notes')} className="field-label text-lg">
+              Notes
+            </label>
+            <textarea
+              id={id('notes')}
+              className="field-input text-xl"
+              rows={3}
+              value={f.notes}
+              onChange={(e) => set('notes', e.target.value)}
+            />
+            {err('notes') && <p className="field-error text-lg">{err('notes')}</p>}
+          </div>
         </div>
         {Object.keys(errors).length + Object.keys(serverErrors).length > 0 && (
-          <p role="alert" className="field-error text-lg" data-testid="form-errors">Check the fields marked above: nothing was recorded yet.</p>
+          <p role="alert" className="field-error text-lg" data-testid="form-errors">
+            Check the fields marked above: nothing was recorded yet.
+          </p>
         )}
         {/* The record action stays in reach on a phone: a bar stuck to the bottom of the screen while the form is in view. */}
-        <div className="sticky bottom-0 z-10 -mx-4 flex gap-2 border-t-2 border-paper-line bg-paper/95 px-4 py-2 lg:static lg:mx-0 lg:border-0 lg:bg-transparent lg:p-0" data-testid="record-bar">
-          <a href="#dock-sections" className="btn-secondary shrink-0 px-3 text-base lg:hidden">Sections</a>
-          <button type="submit" className="btn-primary min-h-[3.5rem] w-full text-xl" data-testid="record-inspection">{isPending ? 'Recording…' : 'Record inspection'}</button>
+        <div
+          className="sticky bottom-0 z-10 -mx-4 flex gap-2 border-t-2 border-paper-line bg-paper/95 px-4 py-2 lg:static lg:mx-0 lg:border-0 lg:bg-transparent lg:p-0"
+          data-testid="record-bar"
+        >
+          <a href="#dock-sections" className="btn-secondary shrink-0 px-3 text-base lg:hidden">
+            Sections
+          </a>
+          <button type="submit" className="btn-primary min-h-[3.5rem] w-full text-xl" data-testid="record-inspection">
+            {isPending ? 'Recording…' : 'Record inspection'}
+          </button>
         </div>
       </fieldset>
     </form>

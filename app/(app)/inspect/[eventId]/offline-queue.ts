@@ -80,7 +80,11 @@ export async function loadSnapshot(eventId: string): Promise<EventSnapshot | und
 }
 
 /** null when there is no answer at all (offline, or the service worker had nothing to give). */
-async function ask(url: string, body: unknown, fallbackMessage: (status: number) => string): Promise<JsonAnswer<unknown> | null> {
+async function ask(
+  url: string,
+  body: unknown,
+  fallbackMessage: (status: number) => string,
+): Promise<JsonAnswer<unknown> | null> {
   const answer = await requestJson(url, { method: 'POST', body, fallbackMessage });
   if (answer.status === 0 || (!answer.ok && answer.status === 503 && answer.code === 'offline')) return null;
   return answer;
@@ -96,20 +100,32 @@ export async function sendQueued(record: QueuedRecord): Promise<QueuedRecord> {
   if (!r.inspectionId) {
     const answer = await ask(`/api/events/${r.eventId}/inspections`, r.payload, (status) => `Refused (${status}).`);
     if (!answer || isTransient(answer.status)) {
-      r.message = !answer ? 'No connection: it will be sent when the signal returns.' : answer.status === 401 ? 'Signed out: sign in again and it will be sent.' : `The server did not take it (${answer.status}); trying again shortly.`;
+      r.message = !answer
+        ? 'No connection: it will be sent when the signal returns.'
+        : answer.status === 401
+          ? 'Signed out: sign in again and it will be sent.'
+          : `The server did not take it (${answer.status}); trying again shortly.`;
       await putQueued(r);
       return r;
     }
     if (answer.status !== 200 && answer.status !== 201) {
       // The per-field messages read as sentences; the overall message names the fields by path.
       const fieldErrors = answer.ok ? {} : answer.fieldErrors;
-      const message = Object.values(fieldErrors).join(' ') || (answer.ok ? `Refused (${answer.status}).` : answer.message);
+      const message =
+        Object.values(fieldErrors).join(' ') || (answer.ok ? `Refused (${answer.status}).` : answer.message);
       r = { ...r, state: 'needs_fix', message, fieldErrors };
       await putQueued(r);
       return r;
     }
     const data = (answer.ok ? answer.data : undefined) as { id: string; overallResult: string; rules: RuleResult[] };
-    r = { ...r, inspectionId: data.id, overallResult: data.overallResult, serverRules: data.rules, message: null, fieldErrors: {} };
+    r = {
+      ...r,
+      inspectionId: data.id,
+      overallResult: data.overallResult,
+      serverRules: data.rules,
+      message: null,
+      fieldErrors: {},
+    };
     await putQueued(r);
   }
   // Photos one per request (each within the upload limit); each sent one leaves the phone's copy.
@@ -117,7 +133,9 @@ export async function sendQueued(record: QueuedRecord): Promise<QueuedRecord> {
     const [p, ...rest] = r.photos;
     const form = new FormData();
     form.append('photo', new File([p.blob], p.name, { type: p.type }));
-    const answer = await ask(`/api/events/${r.eventId}/inspections/${r.inspectionId}/photos`, form, (status) => String(status));
+    const answer = await ask(`/api/events/${r.eventId}/inspections/${r.inspectionId}/photos`, form, (status) =>
+      String(status),
+    );
     if (!answer || isTransient(answer.status)) {
       r.message = 'Record stored; photos will follow when the signal returns.';
       await putQueued(r);
@@ -125,7 +143,12 @@ export async function sendQueued(record: QueuedRecord): Promise<QueuedRecord> {
     }
     if (answer.status !== 201) {
       const refusal = answer.ok ? { message: String(answer.status), fieldErrors: {} } : answer;
-      r = { ...r, state: 'needs_fix', message: `The record is stored, but the photo ${p.name} was refused: ${refusal.message}`, fieldErrors: refusal.fieldErrors };
+      r = {
+        ...r,
+        state: 'needs_fix',
+        message: `The record is stored, but the photo ${p.name} was refused: ${refusal.message}`,
+        fieldErrors: refusal.fieldErrors,
+      };
       await putQueued(r);
       return r;
     }

@@ -3,9 +3,17 @@
 import type { QueuedRecord } from '@/app/(app)/inspect/[eventId]/offline-queue';
 import { VerdictBadge } from '@/components/verdict-badge';
 
-const time = (iso: string | null) => (iso ? new Date(iso).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' }) : '');
+const time = (iso: string | null) =>
+  iso ? new Date(iso).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' }) : '';
 
-type Props = { records: QueuedRecord[]; actorId: string; isOnline: boolean; onSendNow: () => void; onFix: (r: QueuedRecord) => void; onRemove: (r: QueuedRecord) => void };
+type Props = {
+  records: QueuedRecord[];
+  actorId: string;
+  isOnline: boolean;
+  onSendNow: () => void;
+  onFix: (r: QueuedRecord) => void;
+  onRemove: (r: QueuedRecord) => void;
+};
 
 /** What this phone still has to send, what the server refused, and what arrived. */
 export function QueuePanel({ records, actorId, isOnline, onSendNow, onFix, onRemove }: Props) {
@@ -19,31 +27,56 @@ export function QueuePanel({ records, actorId, isOnline, onSendNow, onFix, onRem
         {isOnline ? '● Online' : '○ Offline: records are kept on this phone and sent when the signal returns.'}
       </p>
       <div>
-        <h2 className="text-xl" data-testid="waiting-heading">Waiting to send ({waiting.length})</h2>
+        <h2 className="text-xl" data-testid="waiting-heading">
+          Waiting to send ({waiting.length})
+        </h2>
         {waiting.length > 0 && (
           <>
             <ul className="mt-2 space-y-1" data-testid="waiting-list">
               {waiting.map((r) => (
-                <li key={r.idempotencyKey}>{r.label} · {time(r.createdAt)}{r.inspectionId ? ' · photos pending' : ''}
-                  {r.recordedById !== actorId && <span className="block font-bold">Recorded by another person on this phone: it is sent when they sign in here.</span>}
-                  {r.message ? <span className="block text-ink-soft">{r.message}</span> : null}</li>
+                <li key={r.idempotencyKey}>
+                  {r.label} · {time(r.createdAt)}
+                  {r.inspectionId ? ' · photos pending' : ''}
+                  {r.recordedById !== actorId && (
+                    <span className="block font-bold">
+                      Recorded by another person on this phone: it is sent when they sign in here.
+                    </span>
+                  )}
+                  {r.message ? <span className="block text-ink-soft">{r.message}</span> : null}
+                </li>
               ))}
             </ul>
-            <button type="button" className="btn-secondary mt-2 text-lg" onClick={onSendNow} disabled={!isOnline}>Send now</button>
+            <button type="button" className="btn-secondary mt-2 text-lg" onClick={onSendNow} disabled={!isOnline}>
+              Send now
+            </button>
           </>
         )}
       </div>
       {needsFix.length > 0 && (
         <div className="rounded-lg border-2 border-fail-600 bg-fail-100 p-3">
-          <h2 className="text-xl text-fail-800" data-testid="needs-fix-heading">Needs a fix ({needsFix.length})</h2>
+          <h2 className="text-xl text-fail-800" data-testid="needs-fix-heading">
+            Needs a fix ({needsFix.length})
+          </h2>
           <ul className="mt-2 space-y-3" data-testid="needs-fix-list">
             {needsFix.map((r) => (
               <li key={r.idempotencyKey}>
                 <span className="font-bold">{r.label}</span>
                 <span className="block">{r.message}</span>
                 <span className="mt-1 flex flex-wrap gap-2">
-                  {!r.inspectionId && <button type="button" className="btn-primary text-lg" onClick={() => onFix(r)}>Fix and send again</button>}
-                  <button type="button" className="btn-secondary text-lg" onClick={() => { if (window.confirm(`Remove ${r.label} from this phone? It was not recorded.`)) onRemove(r); }}>Remove from this phone</button>
+                  {!r.inspectionId && (
+                    <button type="button" className="btn-primary text-lg" onClick={() => onFix(r)}>
+                      Fix and send again
+                    </button>
+                  )}
+                  <button
+                    type="button"
+                    className="btn-secondary text-lg"
+                    onClick={() => {
+                      if (window.confirm(`Remove ${r.label} from this phone? It was not recorded.`)) onRemove(r);
+                    }}
+                  >
+                    Remove from this phone
+                  </button>
                 </span>
               </li>
             ))}
@@ -51,11 +84,19 @@ export function QueuePanel({ records, actorId, isOnline, onSendNow, onFix, onRem
         </div>
       )}
       <div>
-        <h2 className="text-xl" data-testid="sent-heading">Sent ({sentAll.length})</h2>
+        <h2 className="text-xl" data-testid="sent-heading">
+          Sent ({sentAll.length})
+        </h2>
         <ul className="mt-2 space-y-2" data-testid="sent-list">
           {sent.map((r) => (
-            <li key={r.idempotencyKey} className="flex flex-wrap items-center justify-between gap-2" data-key={r.idempotencyKey}>
-              <span>{r.label} · {time(r.sentAt)}</span>
+            <li
+              key={r.idempotencyKey}
+              className="flex flex-wrap items-center justify-between gap-2"
+              data-key={r.idempotencyKey}
+            >
+              <span>
+                {r.label} · {time(r.sentAt)}
+              </span>
               {r.overallResult && <VerdictBadge verdict={r.overallResult} />}
             </li>
           ))}

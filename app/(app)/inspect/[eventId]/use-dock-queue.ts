@@ -20,7 +20,11 @@ function subscribeToConnection(onChange: () => void) {
  */
 export function useDockQueue(eventId: string, actorId: string) {
   const [records, setRecords] = useState<QueuedRecord[]>([]);
-  const isOnline = useSyncExternalStore(subscribeToConnection, () => navigator.onLine, () => true);
+  const isOnline = useSyncExternalStore(
+    subscribeToConnection,
+    () => navigator.onLine,
+    () => true,
+  );
   const refresh = useCallback(async () => setRecords(await listQueued(eventId)), [eventId]);
   const flush = useCallback(async () => {
     if (!navigator.onLine) return;
@@ -40,10 +44,13 @@ export function useDockQueue(eventId: string, actorId: string) {
     };
   }, [refresh, flush]);
 
-  const remove = useCallback(async (r: QueuedRecord) => {
-    await removeQueued(r.idempotencyKey);
-    await refresh();
-  }, [refresh]);
+  const remove = useCallback(
+    async (r: QueuedRecord) => {
+      await removeQueued(r.idempotencyKey);
+      await refresh();
+    },
+    [refresh],
+  );
 
   return { records, isOnline, refresh, flush, remove };
 }
@@ -65,9 +72,14 @@ export function registerInspectServiceWorker() {
         (await new Promise<ServiceWorker | null>((resolve) => {
           const w = reg.installing ?? reg.waiting;
           if (!w) return resolve(null);
-          w.addEventListener('statechange', () => (w.state === 'activated' ? resolve(w) : w.state === 'redundant' ? resolve(null) : undefined));
+          w.addEventListener('statechange', () =>
+            w.state === 'activated' ? resolve(w) : w.state === 'redundant' ? resolve(null) : undefined,
+          );
         }));
-      const files = performance.getEntriesByType('resource').map((e) => e.name).filter((u) => u.includes('/_next/static/'));
+      const files = performance
+        .getEntriesByType('resource')
+        .map((e) => e.name)
+        .filter((u) => u.includes('/_next/static/'));
       worker?.postMessage({ type: 'warm', urls: [location.href, ...files] });
     })
     .catch(() => undefined); // without a service worker the screen still works online, and the outbox offline

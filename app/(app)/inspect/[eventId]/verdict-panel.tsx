@@ -5,42 +5,69 @@ import { SafetyNote } from '@/components/safety-note';
 import { VerdictBadge } from '@/components/verdict-badge';
 import { formatFigure } from '@/lib/core/format/figures';
 
-export type ShownVerdict = { label: string; rules: RuleResult[]; overall: string; provisional: boolean; inspectionId: string | null; scopeWords?: string | null };
+export type ShownVerdict = {
+  label: string;
+  rules: RuleResult[];
+  overall: string;
+  provisional: boolean;
+  inspectionId: string | null;
+  scopeWords?: string | null;
+};
 
 /** The kind of each value: measured at the dock, confirmed against evidence, or declared only (older records: measured). */
-const kindOf = (r: RuleResult) => r.valueKind !== undefined ? r.valueKind : r.measured ? 'measured' : null;
+const kindOf = (r: RuleResult) => (r.valueKind !== undefined ? r.valueKind : r.measured ? 'measured' : null);
 
 const KIND_OF_UNIT = { mm: 'nozzleMm', kg: 'massKg', kW: 'powerKw' } as const;
 const fmt = (v: number | null, unit: RuleResult['unit']) => (unit ? formatFigure(v, KIND_OF_UNIT[unit]) : '—');
 // U is a small figure: one more digit than the readings in mm (lib/core/format/figures.ts).
-const fmtU = (v: number | null, unit: RuleResult['unit']) => (unit === 'mm' ? formatFigure(v, 'uncertaintyMm') : fmt(v, unit));
+const fmtU = (v: number | null, unit: RuleResult['unit']) =>
+  unit === 'mm' ? formatFigure(v, 'uncertaintyMm') : fmt(v, unit);
 
 /** Every rule's verdict and the overall result, at once, with the caution that officials decide. */
 export function VerdictPanel({ verdict, onNext }: { verdict: ShownVerdict; onNext: () => void }) {
   const { rules, overall } = verdict;
   // "Measure again" only when a measured value leaves the overall result open: under "Does not
   // conform" another reading changes nothing, and a declared figure is not re-measured with an instrument.
-  const inconclusive = overall === 'inconclusive' && rules.some((r) => r.verdict === 'inconclusive' && kindOf(r) === 'measured');
+  const inconclusive =
+    overall === 'inconclusive' && rules.some((r) => r.verdict === 'inconclusive' && kindOf(r) === 'measured');
   return (
-    <section aria-labelledby="verdict-heading" className="card space-y-4 text-lg" data-testid="verdict" data-overall={overall} data-provisional={verdict.provisional}>
-      <h2 id="verdict-heading" className="text-2xl">Result for {verdict.label}</h2>
+    <section
+      aria-labelledby="verdict-heading"
+      className="card space-y-4 text-lg"
+      data-testid="verdict"
+      data-overall={overall}
+      data-provisional={verdict.provisional}
+    >
+      <h2 id="verdict-heading" className="text-2xl">
+        Result for {verdict.label}
+      </h2>
       <div className="flex flex-wrap items-center gap-3" data-testid="overall-verdict">
         <span className="font-bold">Overall:</span> <VerdictBadge verdict={overall} large />
       </div>
-      {verdict.scopeWords && <p className="rounded-lg border-2 border-flare-500 bg-flare-100 p-3 font-bold" data-testid="verdict-scope">{verdict.scopeWords}</p>}
+      {verdict.scopeWords && (
+        <p className="rounded-lg border-2 border-flare-500 bg-flare-100 p-3 font-bold" data-testid="verdict-scope">
+          {verdict.scopeWords}
+        </p>
+      )}
       {rules.length === 0 ? (
         <p className="rounded-lg bg-doubt-100 p-3 font-bold text-doubt-800" data-testid="provisional-note">
           Kept on this phone. This phone has no copy of the class rules, so the server decides when the record is sent.
         </p>
       ) : verdict.provisional ? (
         <p className="rounded-lg bg-doubt-100 p-3 font-bold text-doubt-800" data-testid="provisional-note">
-          Worked out on this phone while offline, from its copy of the class rules. The server decides when the record is sent.
+          Worked out on this phone while offline, from its copy of the class rules. The server decides when the record
+          is sent.
         </p>
       ) : (
-        <p className="text-ink-soft">Decided by the server against the class rules in force when you measured; stored and never changed.</p>
+        <p className="text-ink-soft">
+          Decided by the server against the class rules in force when you measured; stored and never changed.
+        </p>
       )}
       {inconclusive && (
-        <p className="rounded-lg border-2 border-doubt-600 bg-doubt-100 p-3 text-xl font-bold text-doubt-800" data-testid="measure-again">
+        <p
+          className="rounded-lg border-2 border-doubt-600 bg-doubt-100 p-3 text-xl font-bold text-doubt-800"
+          data-testid="measure-again"
+        >
           ? Measure again with a better instrument: the reading is too close to the limit for this one to decide.
         </p>
       )}
@@ -53,8 +80,17 @@ export function VerdictPanel({ verdict, onNext }: { verdict: ShownVerdict; onNex
             </div>
             {r.unit && (
               <p className="figure text-lg">
-                {kindOf(r) && r.decisiveValue != null ? <span data-value-kind={kindOf(r)}>{kindOf(r)} {fmt(r.decisiveValue, r.unit)} · </span> : ''}limit {fmt(r.limit, r.unit)}
-                {r.acceptanceLimit != null && r.acceptanceLimit !== r.limit ? ` · accepted to ${fmt(r.acceptanceLimit, r.unit)}` : ''}
+                {kindOf(r) && r.decisiveValue != null ? (
+                  <span data-value-kind={kindOf(r)}>
+                    {kindOf(r)} {fmt(r.decisiveValue, r.unit)} ·{' '}
+                  </span>
+                ) : (
+                  ''
+                )}
+                limit {fmt(r.limit, r.unit)}
+                {r.acceptanceLimit != null && r.acceptanceLimit !== r.limit
+                  ? ` · accepted to ${fmt(r.acceptanceLimit, r.unit)}`
+                  : ''}
                 {r.expandedUncertainty != null ? ` · U ${fmtU(r.expandedUncertainty, r.unit)}` : ''}
               </p>
             )}
@@ -63,7 +99,9 @@ export function VerdictPanel({ verdict, onNext }: { verdict: ShownVerdict; onNex
         ))}
       </ul>
       <SafetyNote className="text-lg" />
-      <button type="button" className="btn-primary min-h-[3.5rem] w-full text-xl" onClick={onNext}>Next boat</button>
+      <button type="button" className="btn-primary min-h-[3.5rem] w-full text-xl" onClick={onNext}>
+        Next boat
+      </button>
     </section>
   );
 }

@@ -16,8 +16,9 @@ export default async function ConfirmAddressPage({ params }: { params: Promise<{
       <div className="space-y-4">
         <h1 className="text-2xl">This link cannot be used</h1>
         <p>
-          It may have expired, been used already, or the address is already confirmed. <Link href="/sign-in">Sign in</Link> and ask for a
-          new link on My account if your address still shows as not confirmed.
+          It may have expired, been used already, or the address is already confirmed.{' '}
+          <Link href="/sign-in">Sign in</Link> and ask for a new link on My account if your address still shows as not
+          confirmed.
         </p>
       </div>
     );
@@ -26,12 +27,13 @@ export default async function ConfirmAddressPage({ params }: { params: Promise<{
     <div className="space-y-4">
       <h1 className="text-2xl">Confirm your address</h1>
       <p>
-        Confirm that <strong>{proof.email}</strong> is yours by giving the password you chose when you created the account.
+        Confirm that <strong>{proof.email}</strong> is yours by giving the password you chose when you created the
+        account.
       </p>
       <ConfirmAddressForm token={token} />
       <p className="text-ink-soft">
-        Did not create this account? Do not confirm: <Link href="/sign-in">sign in with an e-mailed link</Link> instead, which makes
-        the account yours and removes the password somebody else chose.
+        Did not create this account? Do not confirm: <Link href="/sign-in">sign in with an e-mailed link</Link> instead,
+        which makes the account yours and removes the password somebody else chose.
       </p>
     </div>
   );

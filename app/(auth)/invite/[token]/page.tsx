@@ -20,7 +20,10 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
     return (
       <div className="space-y-4">
         <h1 className="text-2xl">This invitation cannot be used</h1>
-        <p>It may have expired or already been accepted. Ask the organiser to send a new one, or <Link href="/sign-in">sign in</Link>.</p>
+        <p>
+          It may have expired or already been accepted. Ask the organiser to send a new one, or{' '}
+          <Link href="/sign-in">sign in</Link>.
+        </p>
       </div>
     );
   }
@@ -28,8 +31,8 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
     <div className="space-y-4">
       <h1 className="text-2xl">Join {inv.eventName}</h1>
       <p>
-        You are invited as <strong>{ROLE_LABEL[inv.role] ?? inv.role}</strong> at {inv.eventName}, {inv.venue}, signing in as{' '}
-        <strong>{inv.email}</strong>.
+        You are invited as <strong>{ROLE_LABEL[inv.role] ?? inv.role}</strong> at {inv.eventName}, {inv.venue}, signing
+        in as <strong>{inv.email}</strong>.
       </p>
       <AcceptInvitation token={token} needsName={inv.needsName} />
     </div>

@@ -21,9 +21,14 @@ async function throttleLinkRequests(req: NextRequest) {
     windowS: 3600,
   });
   if (!throttle.allowed) {
-    throw new AppError('rate_limited', 429, `Too many sign-in links asked for from this address: try again in ${Math.ceil(throttle.retryAfterS / 60)} minutes.`, {
-      retryAfterS: throttle.retryAfterS,
-    });
+    throw new AppError(
+      'rate_limited',
+      429,
+      `Too many sign-in links asked for from this address: try again in ${Math.ceil(throttle.retryAfterS / 60)} minutes.`,
+      {
+        retryAfterS: throttle.retryAfterS,
+      },
+    );
   }
 }
 

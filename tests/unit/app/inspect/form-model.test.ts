@@ -27,26 +27,58 @@ test('an untouched spread is spread again for the new count', () => {
   assert.deepEqual(anglesOf(resizeReadings(spread(['0', '60', '120']), 4)), ['0', '45', '90', '135']);
   assert.deepEqual(anglesOf(resizeReadings(spread(['0', '45', '90', '135']), 3)), ['0', '60', '120']);
   assert.deepEqual(anglesOf(resizeReadings(spread(['0', '60', '120']), 6)), ['0', '30', '60', '90', '120', '150']);
-  assert.deepEqual(anglesOf(resizeReadings(spread(['0', '60', '120']), 7)), ['0', '26', '51', '77', '103', '129', '154'], '180/7 = 25.7°, rounded to whole degrees');
+  assert.deepEqual(
+    anglesOf(resizeReadings(spread(['0', '60', '120']), 7)),
+    ['0', '26', '51', '77', '103', '129', '154'],
+    '180/7 = 25.7°, rounded to whole degrees',
+  );
 });
 
 test('typed angles are kept; an added reading goes halfway between the last angle and 180°', () => {
-  const typed = [{ diameter: '101.5', angle: '10' }, { diameter: '101.6', angle: '70' }, { diameter: '101.7', angle: '130' }];
+  const typed = [
+    { diameter: '101.5', angle: '10' },
+    { diameter: '101.6', angle: '70' },
+    { diameter: '101.7', angle: '130' },
+  ];
   const four = resizeReadings(typed, 4);
   assert.deepEqual(anglesOf(four), ['10', '70', '130', '155']);
   assert.equal(four[0].diameter, '101.5', 'diameters are kept');
-  assert.ok(four.every((r) => r.angle !== ''), 'no reading is left without an angle');
+  assert.ok(
+    four.every((r) => r.angle !== ''),
+    'no reading is left without an angle',
+  );
 });
 
 // Invented boats and meetings (not reference values).
-const RULES: ClassRules = { ...DEFAULT_CLASS_RULES, nozzle: { ...DEFAULT_CLASS_RULES.nozzle, maxMm: 102, minReadings: 4 }, safetyItems: ['kill_switch', 'helmet'] };
+const RULES: ClassRules = {
+  ...DEFAULT_CLASS_RULES,
+  nozzle: { ...DEFAULT_CLASS_RULES.nozzle, maxMm: 102, minReadings: 4 },
+  safetyItems: ['kill_switch', 'helmet'],
+};
 const ENTRY_ID = randomUUID();
 const card = (over: Partial<BoatCard> = {}): BoatCard => ({
   event: { id: randomUUID(), name: 'Test meeting' },
-  entry: { id: ENTRY_ID, raceNumber: 42, status: 'confirmed', isPaid: true, paidAt: '2026-01-01T00:00:00.000Z', inspectionResult: null },
+  entry: {
+    id: ENTRY_ID,
+    raceNumber: 42,
+    status: 'confirmed',
+    isPaid: true,
+    paidAt: '2026-01-01T00:00:00.000Z',
+    inspectionResult: null,
+  },
   boat: {
-    id: randomUUID(), name: 'Test Boat', hullNumber: 'H-1', hullDescription: '', pumpDescription: '', impellerDescription: '', engineDescription: '',
-    declaredNozzleMm: 101.5, declaredNozzleToleranceMm: 0.05, declaredPowerKw: 239.96, powerEvidence: 'dyno sheet', declaredWeightKg: null,
+    id: randomUUID(),
+    name: 'Test Boat',
+    hullNumber: 'H-1',
+    hullDescription: '',
+    pumpDescription: '',
+    impellerDescription: '',
+    engineDescription: '',
+    declaredNozzleMm: 101.5,
+    declaredNozzleToleranceMm: 0.05,
+    declaredPowerKw: 239.96,
+    powerEvidence: 'dyno sheet',
+    declaredWeightKg: null,
   },
   raceClass: { id: randomUUID(), code: 'TC', name: 'Test class' },
   ruleVersion: { id: randomUUID(), version: 3, effectiveFrom: null, rules: RULES },
@@ -59,12 +91,24 @@ const card = (over: Partial<BoatCard> = {}): BoatCard => ({
   ...over,
 });
 
-test('a target from the server\'s card carries the entry, boat, class and rules in force', () => {
+test("a target from the server's card carries the entry, boat, class and rules in force", () => {
   const t = targetFromCard(card(), false);
   assert.equal(t.source, 'server');
   assert.equal(targetFromCard(card(), true).source, 'server-cache', 'a card from the saved answer says so');
   assert.deepEqual(
-    [t.entryId, t.raceNumber, t.boatName, t.classCode, t.className, t.status, t.isPaid, t.declaredPowerKw, t.powerEvidence, t.ruleVersion, t.isOwnBoat],
+    [
+      t.entryId,
+      t.raceNumber,
+      t.boatName,
+      t.classCode,
+      t.className,
+      t.status,
+      t.isPaid,
+      t.declaredPowerKw,
+      t.powerEvidence,
+      t.ruleVersion,
+      t.isOwnBoat,
+    ],
     [ENTRY_ID, 42, 'Test Boat', 'TC', 'Test class', 'confirmed', true, 239.96, 'dyno sheet', 3, false],
   );
   assert.equal(t.rules, RULES);
@@ -75,21 +119,46 @@ test('a target from the server\'s card carries the entry, boat, class and rules 
   assert.equal(noRules.isOwnBoat, true);
 });
 
-test('a target from the phone\'s copy of the board takes the rules of the row\'s class, and no card', () => {
+test("a target from the phone's copy of the board takes the rules of the row's class, and no card", () => {
   const classId = randomUUID();
   const row = {
-    entryId: ENTRY_ID, raceNumber: 7, status: 'confirmed', isPaid: false, boatId: randomUUID(), boatName: 'Row Boat', hullNumber: 'H-7', tagToken: null,
-    classId, classCode: 'TC', className: 'Test class', declaredNozzleMm: 100, declaredPowerKw: 250, powerEvidence: 'invoice', declaredWeightKg: null,
-    state: 'waiting', latest: null, inspectionCount: 0, openReinspectionCount: 0,
+    entryId: ENTRY_ID,
+    raceNumber: 7,
+    status: 'confirmed',
+    isPaid: false,
+    boatId: randomUUID(),
+    boatName: 'Row Boat',
+    hullNumber: 'H-7',
+    tagToken: null,
+    classId,
+    classCode: 'TC',
+    className: 'Test class',
+    declaredNozzleMm: 100,
+    declaredPowerKw: 250,
+    powerEvidence: 'invoice',
+    declaredWeightKg: null,
+    state: 'waiting',
+    latest: null,
+    inspectionCount: 0,
+    openReinspectionCount: 0,
   } as BoardRow;
   const board = {
-    eventId: randomUUID(), eventName: 'Test meeting', generatedAt: '2026-01-01T00:00:00.000Z', rows: [row],
+    eventId: randomUUID(),
+    eventName: 'Test meeting',
+    generatedAt: '2026-01-01T00:00:00.000Z',
+    rows: [row],
     counts: { total: 1, waiting: 1, conforms: 0, doesNotConform: 0, inconclusive: 0, openReinspections: 0 },
-    classes: [{ id: classId, code: 'TC', name: 'Test class', ruleVersion: { id: randomUUID(), version: 5, rules: RULES } }], reinspections: [],
+    classes: [
+      { id: classId, code: 'TC', name: 'Test class', ruleVersion: { id: randomUUID(), version: 5, rules: RULES } },
+    ],
+    reinspections: [],
   } as InspectionBoard;
   const t = targetFromBoardRow(row, board);
   assert.equal(t.source, 'phone-copy');
-  assert.deepEqual([t.entryId, t.raceNumber, t.boatName, t.isPaid, t.declaredPowerKw, t.powerEvidence, t.ruleVersion], [ENTRY_ID, 7, 'Row Boat', false, 250, 'invoice', 5]);
+  assert.deepEqual(
+    [t.entryId, t.raceNumber, t.boatName, t.isPaid, t.declaredPowerKw, t.powerEvidence, t.ruleVersion],
+    [ENTRY_ID, 7, 'Row Boat', false, 250, 'invoice', 5],
+  );
   assert.equal(t.rules, RULES);
   assert.equal(t.card, null);
   assert.equal(t.isOwnBoat, false);
@@ -98,7 +167,7 @@ test('a target from the phone\'s copy of the board takes the rules of the row\'s
   assert.equal(orphan.ruleVersion, null);
 });
 
-test('the form starts with the class\'s number of readings at the even spread, the declared power as shown, the open re-inspection', () => {
+test("the form starts with the class's number of readings at the even spread, the declared power as shown, the open re-inspection", () => {
   const t = targetFromCard(card(), false);
   const f = initialFormState(t, 'inst-1', 'scale-1');
   assert.deepEqual(anglesOf(f.readings), ['0', '45', '90', '135'], 'four readings required: 180°/4 apart');
@@ -111,13 +180,17 @@ test('the form starts with the class\'s number of readings at the even spread, t
   assert.deepEqual(f.weighings, ['', '']);
   assert.equal(f.reinspectionId, '');
   const noInstrument = initialFormState(t, null, null);
-  assert.equal(noInstrument.uncertaintySource, 'class', 'no caliper registered: the class\'s default U');
+  assert.equal(noInstrument.uncertaintySource, 'class', "no caliper registered: the class's default U");
   assert.equal(noInstrument.instrumentId, '');
   assert.equal(noInstrument.scaleId, '');
   const noRules = initialFormState(targetFromCard(card({ ruleVersion: null }), false), null, null);
   assert.deepEqual(anglesOf(noRules.readings), ['0', '60', '120'], 'no rules: three readings');
   const reinspectionId = randomUUID();
-  const ordered = initialFormState(targetFromCard(card({ openReinspections: [{ id: reinspectionId }] as BoatCard['openReinspections'] }), false), null, null);
+  const ordered = initialFormState(
+    targetFromCard(card({ openReinspections: [{ id: reinspectionId }] as BoatCard['openReinspections'] }), false),
+    null,
+    null,
+  );
   assert.equal(ordered.kind, 'post_race', 'an open re-inspection makes it a post-race record');
   assert.equal(ordered.reinspectionId, reinspectionId);
 });
@@ -125,10 +198,24 @@ test('the form starts with the class\'s number of readings at the even spread, t
 const META = { idempotencyKey: randomUUID(), capturedAt: new Date().toISOString(), device: 'test phone' };
 const filled = (t: DockTarget): FormState => ({
   ...initialFormState(t, null, null),
-  readings: [{ diameter: '101,93', angle: '0' }, { diameter: ' 101.95 ', angle: '45' }, { diameter: '101.9', angle: '90' }, { diameter: '101.92', angle: '135' }],
-  uncertaintySource: 'typed', typedU: '0,05', temperature: '', material: 'aluminium',
-  weighings: ['512.5', '', '513'], powerKw: '240', evidenceSeen: true, powerNote: 'dyno sheet seen',
-  seals: [{ number: 'S-1', location: 'pump' }, { number: ' ', location: '' }],
+  readings: [
+    { diameter: '101,93', angle: '0' },
+    { diameter: ' 101.95 ', angle: '45' },
+    { diameter: '101.9', angle: '90' },
+    { diameter: '101.92', angle: '135' },
+  ],
+  uncertaintySource: 'typed',
+  typedU: '0,05',
+  temperature: '',
+  material: 'aluminium',
+  weighings: ['512.5', '', '513'],
+  powerKw: '240',
+  evidenceSeen: true,
+  powerNote: 'dyno sheet seen',
+  seals: [
+    { number: 'S-1', location: 'pump' },
+    { number: ' ', location: '' },
+  ],
   safety: { kill_switch: true, helmet: false, harness: true },
   notes: 'dry day',
 });
@@ -138,7 +225,12 @@ test('the form becomes the inspection input: numbers from typed text (a comma is
   const d = draftFromForm(filled(t), t, META);
   assert.equal(d.entryId, ENTRY_ID);
   assert.equal(d.idempotencyKey, META.idempotencyKey);
-  assert.deepEqual(d.nozzle.readings, [{ diameterMm: 101.93, angleDeg: 0 }, { diameterMm: 101.95, angleDeg: 45 }, { diameterMm: 101.9, angleDeg: 90 }, { diameterMm: 101.92, angleDeg: 135 }]);
+  assert.deepEqual(d.nozzle.readings, [
+    { diameterMm: 101.93, angleDeg: 0 },
+    { diameterMm: 101.95, angleDeg: 45 },
+    { diameterMm: 101.9, angleDeg: 90 },
+    { diameterMm: 101.92, angleDeg: 135 },
+  ]);
   assert.equal(d.nozzle.expandedUncertaintyMm, 0.05);
   assert.equal(d.nozzle.instrumentId, null, 'typed U: no instrument');
   assert.equal(d.nozzle.temperatureC, null, 'an empty temperature is "not given"');
@@ -146,7 +238,7 @@ test('the form becomes the inspection input: numbers from typed text (a comma is
   assert.deepEqual(d.weight, { readingsKg: [512.5, 513], instrumentId: null });
   assert.deepEqual(d.power, { declaredKw: 240, evidenceSeen: true, note: 'dyno sheet seen' });
   assert.deepEqual(d.seals, [{ number: 'S-1', location: 'pump' }]);
-  assert.deepEqual(d.safety, { kill_switch: true, helmet: false }, 'only the class\'s items, each ticked or not');
+  assert.deepEqual(d.safety, { kill_switch: true, helmet: false }, "only the class's items, each ticked or not");
   assert.equal(d.supersedesId, null);
   assert.equal(d.correctionReason, null, 'no correction: no reason sent');
   assert.equal(d.reinspectionId, null);
@@ -157,12 +249,19 @@ test('the form becomes the inspection input: numbers from typed text (a comma is
 test('text in a number field stays NaN so the schema refuses it by field; an empty one is "not given"', () => {
   const t = targetFromCard(card(), false);
   const f = filled(t);
-  const d = draftFromForm({ ...f, readings: [{ diameter: 'abc', angle: '0' }, ...f.readings.slice(1)], weighings: ['', ''] }, t, META);
+  const d = draftFromForm(
+    { ...f, readings: [{ diameter: 'abc', angle: '0' }, ...f.readings.slice(1)], weighings: ['', ''] },
+    t,
+    META,
+  );
   assert.ok(Number.isNaN(d.nozzle.readings[0].diameterMm));
   assert.equal(d.weight, null, 'no weighings: no weight');
   const parsed = RecordInspectionInput.safeParse(d);
   assert.equal(parsed.success, false);
-  assert.deepEqual(parsed.error!.issues.map((i) => i.path.join('.')), ['nozzle.readings.0.diameterMm']);
+  assert.deepEqual(
+    parsed.error!.issues.map((i) => i.path.join('.')),
+    ['nozzle.readings.0.diameterMm'],
+  );
   const empty = draftFromForm({ ...f, readings: [{ diameter: '', angle: '' }] }, t, META);
   assert.equal(empty.nozzle.readings[0].diameterMm, undefined);
   assert.match(RecordInspectionInput.safeParse(empty).error!.issues[0].message, /^Enter the diameter \(mm\)\.$/);
@@ -182,13 +281,29 @@ test('a correction sends its reason; a queued draft loads back into the same for
   const t = targetFromCard(card(), false);
   const supersedesId = randomUUID();
   const scaleId = randomUUID();
-  const f: FormState = { ...filled(t), supersedesId, correctionReason: 'wrong boat', scaleId, temperature: '35', kind: 'spot_check' };
+  const f: FormState = {
+    ...filled(t),
+    supersedesId,
+    correctionReason: 'wrong boat',
+    scaleId,
+    temperature: '35',
+    kind: 'spot_check',
+  };
   const d = draftFromForm(f, t, META);
   assert.equal(d.correctionReason, 'wrong boat');
   assert.equal(d.kind, 'spot_check');
   assert.equal(d.nozzle.temperatureC, 35);
   const back = formFromDraft(d, initialFormState(t, null, null));
-  assert.deepEqual(back.readings, [{ diameter: '101.93', angle: '0' }, { diameter: '101.95', angle: '45' }, { diameter: '101.9', angle: '90' }, { diameter: '101.92', angle: '135' }], 'numbers written back plainly');
+  assert.deepEqual(
+    back.readings,
+    [
+      { diameter: '101.93', angle: '0' },
+      { diameter: '101.95', angle: '45' },
+      { diameter: '101.9', angle: '90' },
+      { diameter: '101.92', angle: '135' },
+    ],
+    'numbers written back plainly',
+  );
   assert.equal(back.uncertaintySource, 'typed');
   assert.equal(back.typedU, '0.05');
   assert.equal(back.temperature, '35');
@@ -206,12 +321,18 @@ test('a correction sends its reason; a queued draft loads back into the same for
   assert.deepEqual(draftFromForm(back, t, META), d);
   // A draft with an instrument loads as "instrument"; no weight keeps the form's empty weighings.
   const instrument = randomUUID();
-  const viaInstrument = formFromDraft({ ...d, nozzle: { ...d.nozzle, instrumentId: instrument, expandedUncertaintyMm: null }, weight: null }, initialFormState(t, null, null));
+  const viaInstrument = formFromDraft(
+    { ...d, nozzle: { ...d.nozzle, instrumentId: instrument, expandedUncertaintyMm: null }, weight: null },
+    initialFormState(t, null, null),
+  );
   assert.equal(viaInstrument.uncertaintySource, 'instrument');
   assert.equal(viaInstrument.instrumentId, instrument);
   assert.equal(viaInstrument.typedU, '');
   assert.deepEqual(viaInstrument.weighings, ['', '']);
   // A NaN that slipped into a queued draft comes back as an empty field, not "NaN".
-  const nan = formFromDraft({ ...d, nozzle: { ...d.nozzle, readings: [{ diameterMm: Number.NaN, angleDeg: 0 }] } }, initialFormState(t, null, null));
+  const nan = formFromDraft(
+    { ...d, nozzle: { ...d.nozzle, readings: [{ diameterMm: Number.NaN, angleDeg: 0 }] } },
+    initialFormState(t, null, null),
+  );
   assert.deepEqual(nan.readings, [{ diameter: '', angle: '0' }]);
 });

@@ -4,18 +4,71 @@
 // into custody at the dock are released by the chief scrutineer or the stewards).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { PERMISSIONS, ROLES, permissionsOf, roleCan, rolesCan, type Permission, type Role } from '../../../../lib/core/auth/permissions';
+import {
+  PERMISSIONS,
+  ROLES,
+  permissionsOf,
+  roleCan,
+  rolesCan,
+  type Permission,
+  type Role,
+} from '../../../../lib/core/auth/permissions';
 import { navFor } from '../../../../lib/core/navigation';
 
 const EXPECTED: Record<Role, Permission[]> = {
   entrant: ['account.view', 'boat.manage_own', 'entry.submit_own', 'protest.lodge'],
-  scrutineer: ['account.view', 'inspection.record', 'inspection.board', 'custody.take', 'custody.view', 'interest.declare'],
-  chief_scrutineer: ['account.view', 'entry.view_all', 'tags.print', 'inspection.record', 'inspection.board', 'inspection.assign_reinspection', 'instrument.manage', 'custody.take', 'custody.release', 'custody.view', 'interest.declare'],
-  steward: ['account.view', 'entry.view_all', 'inspection.assign_reinspection', 'protest.decide', 'protest.view_all', 'audit.read', 'custody.take', 'custody.release', 'custody.view', 'interest.declare', 'interest.view_register'],
+  scrutineer: [
+    'account.view',
+    'inspection.record',
+    'inspection.board',
+    'custody.take',
+    'custody.view',
+    'interest.declare',
+  ],
+  chief_scrutineer: [
+    'account.view',
+    'entry.view_all',
+    'tags.print',
+    'inspection.record',
+    'inspection.board',
+    'inspection.assign_reinspection',
+    'instrument.manage',
+    'custody.take',
+    'custody.release',
+    'custody.view',
+    'interest.declare',
+  ],
+  steward: [
+    'account.view',
+    'entry.view_all',
+    'inspection.assign_reinspection',
+    'protest.decide',
+    'protest.view_all',
+    'audit.read',
+    'custody.take',
+    'custody.release',
+    'custody.view',
+    'interest.declare',
+    'interest.view_register',
+  ],
   organiser: [
-    'account.view', 'event.create', 'event.edit', 'event.staff_manage', 'class.edit', 'entry.view_all', 'entry.cancel',
-    'tags.print', 'report.publish', 'results.publish', 'inspection.board', 'instrument.manage', 'protest.view_all', 'audit.read', 'custody.view',
-    'interest.declare', 'interest.view_register',
+    'account.view',
+    'event.create',
+    'event.edit',
+    'event.staff_manage',
+    'class.edit',
+    'entry.view_all',
+    'entry.cancel',
+    'tags.print',
+    'report.publish',
+    'results.publish',
+    'inspection.board',
+    'instrument.manage',
+    'protest.view_all',
+    'audit.read',
+    'custody.view',
+    'interest.declare',
+    'interest.view_register',
   ],
   admin: ['account.view', 'event.create', 'admin.manage_users', 'dev.outbox'],
 };
@@ -36,8 +89,12 @@ test('separation of duties: no one decides a protest and records an inspection w
 });
 
 test('conflicts of interest: every official of a meeting declares; only stewards and the organiser read the whole register; an entrant neither', () => {
-  for (const role of ['scrutineer', 'chief_scrutineer', 'steward', 'organiser'] as const) assert.equal(roleCan(role, 'interest.declare'), true, role);
-  assert.deepEqual(ROLES.filter((r) => roleCan(r, 'interest.view_register')), ['steward', 'organiser']);
+  for (const role of ['scrutineer', 'chief_scrutineer', 'steward', 'organiser'] as const)
+    assert.equal(roleCan(role, 'interest.declare'), true, role);
+  assert.deepEqual(
+    ROLES.filter((r) => roleCan(r, 'interest.view_register')),
+    ['steward', 'organiser'],
+  );
   assert.equal(rolesCan(['entrant', 'admin'], 'interest.declare'), false);
 });
 
@@ -54,11 +111,19 @@ test('navigation shows each role only its areas', () => {
   assert.ok(!hrefs(['entrant', 'scrutineer']).includes('/organise'));
   assert.ok(hrefs(['entrant', 'admin']).includes('/admin'));
   assert.ok(!hrefs(['entrant', 'organiser']).includes('/admin'));
-  for (const staff of ['scrutineer', 'chief_scrutineer', 'organiser'] as const) assert.ok(hrefs(['entrant', staff]).includes('/inspect'), staff);
+  for (const staff of ['scrutineer', 'chief_scrutineer', 'organiser'] as const)
+    assert.ok(hrefs(['entrant', staff]).includes('/inspect'), staff);
   assert.ok(!hrefs(['entrant', 'steward']).includes('/inspect'));
 });
 
-test('the demo outbox (everyone\'s sign-in links) is the site administrator\'s alone', () => {
+test("the demo outbox (everyone's sign-in links) is the site administrator's alone", () => {
   for (const role of ROLES) assert.equal(roleCan(role, 'dev.outbox'), role === 'admin', role);
-  assert.equal(rolesCan(ROLES.filter((r) => r !== 'admin'), 'dev.outbox'), false, 'no combination of other roles adds up to it');
+  assert.equal(
+    rolesCan(
+      ROLES.filter((r) => r !== 'admin'),
+      'dev.outbox',
+    ),
+    false,
+    'no combination of other roles adds up to it',
+  );
 });

@@ -12,7 +12,13 @@ const RULES: ClassRules = {
   weight: { minKg: null, includesDriver: true, defaultUncertaintyKg: 1 },
   decisionRule: 'iso14253',
   safetyItems: ['kill_switch', 'helmet'],
-  parity: { pumpEfficiency: 0.9, nozzleLossCoefficient: 0.02, inletLossCoefficient: 0.2, wakeFraction: 0, referenceSpeedsMs: [10, 20, 30] },
+  parity: {
+    pumpEfficiency: 0.9,
+    nozzleLossCoefficient: 0.02,
+    inletLossCoefficient: 0.2,
+    wakeFraction: 0,
+    referenceSpeedsMs: [10, 20, 30],
+  },
 };
 
 test('identical rules: no rows', () => {
@@ -33,12 +39,17 @@ test('changed leaves are listed by their dotted path with before and after, sort
 
 test('lists are compared whole, order included', () => {
   const added = { ...RULES, safetyItems: ['kill_switch', 'helmet', 'fire_extinguisher'] };
-  assert.deepEqual(diffRules(RULES, added), [{ path: 'safetyItems', before: ['kill_switch', 'helmet'], after: ['kill_switch', 'helmet', 'fire_extinguisher'] }]);
+  assert.deepEqual(diffRules(RULES, added), [
+    { path: 'safetyItems', before: ['kill_switch', 'helmet'], after: ['kill_switch', 'helmet', 'fire_extinguisher'] },
+  ]);
   const reordered = { ...RULES, safetyItems: ['helmet', 'kill_switch'] };
   assert.equal(diffRules(RULES, reordered).length, 1);
   const speeds = structuredClone(RULES);
   speeds.parity.referenceSpeedsMs = [10, 25, 30];
-  assert.deepEqual(diffRules(RULES, speeds).map((c) => c.path), ['parity.referenceSpeedsMs']);
+  assert.deepEqual(
+    diffRules(RULES, speeds).map((c) => c.path),
+    ['parity.referenceSpeedsMs'],
+  );
 });
 
 test('a setting that appears or disappears reads as null on the other side; null and missing are the same', () => {
@@ -47,7 +58,16 @@ test('a setting that appears or disappears reads as null on the other side; null
   assert.deepEqual(diffRules(RULES, withMin), [{ path: 'weight.minKg', before: null, after: 450 }]);
   const { parity: _parity, ...withoutParity } = RULES;
   const rows = diffRules(RULES, withoutParity);
-  assert.deepEqual(rows.map((c) => c.path), ['parity.inletLossCoefficient', 'parity.nozzleLossCoefficient', 'parity.pumpEfficiency', 'parity.referenceSpeedsMs', 'parity.wakeFraction']);
+  assert.deepEqual(
+    rows.map((c) => c.path),
+    [
+      'parity.inletLossCoefficient',
+      'parity.nozzleLossCoefficient',
+      'parity.pumpEfficiency',
+      'parity.referenceSpeedsMs',
+      'parity.wakeFraction',
+    ],
+  );
   assert.ok(rows.every((c) => c.after === null));
   const noMin = { ...RULES, nozzle: { maxMm: 102, minReadings: 3, defaultUncertaintyMm: 0.05 } }; // minMm was null: no change
   assert.deepEqual(diffRules(RULES, noMin), []);
@@ -57,7 +77,10 @@ test('a first version (nothing before) lists every set leaf; null or undefined o
   const rows = diffRules(null, RULES);
   // 17 leaves (4 nozzle, 3 power, 3 weight, decision rule, safety items, 5 parity) less the two null ones.
   assert.equal(rows.length, 15);
-  assert.ok(!rows.some((c) => c.path === 'nozzle.minMm' || c.path === 'weight.minKg'), 'a null leaf is no change from nothing');
+  assert.ok(
+    !rows.some((c) => c.path === 'nozzle.minMm' || c.path === 'weight.minKg'),
+    'a null leaf is no change from nothing',
+  );
   assert.ok(rows.every((c) => c.before === null && c.after !== null));
   assert.deepEqual(diffRules(undefined, null), []);
   assert.equal(diffRules(RULES, undefined).length, 15);

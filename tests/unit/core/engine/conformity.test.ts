@@ -10,8 +10,18 @@ import {
   type Verdict,
 } from '../../../../lib/core/engine/index';
 
-const decide = (readingsMm: number[], rule: DecisionRule, extra: { maxMm?: number; minMm?: number; U?: number } = { maxMm: 102 }) =>
-  evaluateConformity({ readingsMm, rule, maxMm: extra.maxMm, minMm: extra.minMm, expandedUncertaintyMm: extra.U ?? 0.05 });
+const decide = (
+  readingsMm: number[],
+  rule: DecisionRule,
+  extra: { maxMm?: number; minMm?: number; U?: number } = { maxMm: 102 },
+) =>
+  evaluateConformity({
+    readingsMm,
+    rule,
+    maxMm: extra.maxMm,
+    minMm: extra.minMm,
+    expandedUncertaintyMm: extra.U ?? 0.05,
+  });
 
 // Worked decisions: upper limit 102.00 mm, U = 0.05 mm (limit and readings chosen for the test), each
 // verdict read off the zones of ILAC-G8:09/2019 (simple w = 0, guarded w = U) and ISO 14253-1:2017.
@@ -110,7 +120,9 @@ test('zero uncertainty: the three rules agree (property)', () => {
   // With U = 0 the guard band and the zone of doubt vanish (ILAC-G8:09/2019; ISO 14253-1:2017).
   fc.assert(
     fc.property(fc.array(fc.double({ min: 95, max: 105, noNaN: true }), { minLength: 1, maxLength: 8 }), (readings) => {
-      const verdicts = (['simple', 'guarded', 'iso14253'] as const).map((rule) => decide(readings, rule, { maxMm: 102, U: 0 }).verdict);
+      const verdicts = (['simple', 'guarded', 'iso14253'] as const).map(
+        (rule) => decide(readings, rule, { maxMm: 102, U: 0 }).verdict,
+      );
       return verdicts.every((v) => v === verdicts[0]);
     }),
     { numRuns: 200 },
@@ -120,12 +132,20 @@ test('zero uncertainty: the three rules agree (property)', () => {
 test('guarded is never more lenient than simple; iso conformity implies guarded conformity (property)', () => {
   const rank = { conforms: 0, inconclusive: 1, does_not_conform: 2 };
   fc.assert(
-    fc.property(fc.double({ min: 101, max: 103, noNaN: true }), fc.double({ min: 0, max: 0.5, noNaN: true }), (x, U) => {
-      const s = decide([x], 'simple', { maxMm: 102, U }).verdict;
-      const g = decide([x], 'guarded', { maxMm: 102, U }).verdict;
-      const i = decide([x], 'iso14253', { maxMm: 102, U }).verdict;
-      return rank[g] >= rank[s] && (i !== 'conforms' || g === 'conforms') && (i !== 'does_not_conform' || s === 'does_not_conform');
-    }),
+    fc.property(
+      fc.double({ min: 101, max: 103, noNaN: true }),
+      fc.double({ min: 0, max: 0.5, noNaN: true }),
+      (x, U) => {
+        const s = decide([x], 'simple', { maxMm: 102, U }).verdict;
+        const g = decide([x], 'guarded', { maxMm: 102, U }).verdict;
+        const i = decide([x], 'iso14253', { maxMm: 102, U }).verdict;
+        return (
+          rank[g] >= rank[s] &&
+          (i !== 'conforms' || g === 'conforms') &&
+          (i !== 'does_not_conform' || s === 'does_not_conform')
+        );
+      },
+    ),
     { numRuns: 300 },
   );
 });
@@ -133,17 +153,30 @@ test('guarded is never more lenient than simple; iso conformity implies guarded 
 test('an instrument budget can stand in for U', () => {
   // JCGM 100:2008 4.3.7 (a/sqrt(3)) and F.2.2.1 (delta/sqrt(12)), k = 2 (6.2.1, 6.3.3);
   // digital caliper ±0.02 mm, resolution 0.01 mm (typical values, common practice, no source [memory]).
-  const r = evaluateConformity({ readingsMm: [101.97], maxMm: 102, rule: 'guarded', instrument: { errorLimitMm: 0.02, resolutionMm: 0.01 } });
+  const r = evaluateConformity({
+    readingsMm: [101.97],
+    maxMm: 102,
+    rule: 'guarded',
+    instrument: { errorLimitMm: 0.02, resolutionMm: 0.01 },
+  });
   const expectedU = 2 * Math.hypot(0.02 / Math.sqrt(3), 0.01 / Math.sqrt(12));
   assert.ok(Math.abs(r.expandedUncertaintyMm - expectedU) < 1e-12);
   assert.equal(r.verdict, 'conforms'); // 101.97 <= 102 - 0.0238
-  const worse = evaluateConformity({ readingsMm: [101.98], maxMm: 102, rule: 'guarded', instrument: { errorLimitMm: 0.02, resolutionMm: 0.01 } });
+  const worse = evaluateConformity({
+    readingsMm: [101.98],
+    maxMm: 102,
+    rule: 'guarded',
+    instrument: { errorLimitMm: 0.02, resolutionMm: 0.01 },
+  });
   assert.equal(worse.verdict, 'does_not_conform'); // 101.98 > 101.976
 });
 
 test('refuses meaningless conformity input by field', () => {
   const refuses = (input: object, field: string) =>
-    assert.throws(() => evaluateConformity(input as never), (e: unknown) => e instanceof EngineInputError && e.field === field);
+    assert.throws(
+      () => evaluateConformity(input as never),
+      (e: unknown) => e instanceof EngineInputError && e.field === field,
+    );
   const base = { readingsMm: [101.9], maxMm: 102, expandedUncertaintyMm: 0.05, rule: 'simple' };
   refuses({ ...base, readingsMm: [] }, 'readingsMm');
   refuses({ ...base, readingsMm: [101.9, Number.NaN] }, 'readingsMm[1]');

@@ -17,8 +17,13 @@ import {
 } from '../../../../lib/core/engine/index';
 
 const good: JetSetupInput = {
-  powerKw: 300, nozzleDiameterMm: 100, densityKgM3: 999.1026,
-  pumpEfficiency: 0.9, nozzleLossCoefficient: 0.02, inletLossCoefficient: 0.2, wakeFraction: 0.05,
+  powerKw: 300,
+  nozzleDiameterMm: 100,
+  densityKgM3: 999.1026,
+  pumpEfficiency: 0.9,
+  nozzleLossCoefficient: 0.02,
+  inletLossCoefficient: 0.2,
+  wakeFraction: 0.05,
 };
 
 function refuses(fn: () => unknown, field: string) {
@@ -53,7 +58,10 @@ test('each bad set-up field is refused by name', () => {
 
 test('boundary values that are meaningful are accepted', () => {
   // Efficiency 1 (ideal pump), zero losses and zero wake are the lossless case of momentum theory (Allison 1993).
-  const p = computeJetPoint({ ...good, pumpEfficiency: 1, nozzleLossCoefficient: 0, inletLossCoefficient: 0, wakeFraction: 0 }, 0);
+  const p = computeJetPoint(
+    { ...good, pumpEfficiency: 1, nozzleLossCoefficient: 0, inletLossCoefficient: 0, wakeFraction: 0 },
+    0,
+  );
   assert.ok(p.thrustN > 0);
   // A nozzle loss just below 1 is extreme but meaningful: finite, with thrust turned negative at 50 m/s.
   const extreme = computeJetPoint({ ...good, nozzleLossCoefficient: 0.999 }, 50);
@@ -74,7 +82,10 @@ test('bad speeds are refused by name', () => {
 
 test('inversion, crossover and uncertainty inputs are refused by name', () => {
   refuses(() => computeNozzleDiameterForStaticThrustMm({ ...good, targetStaticThrustN: 0 }), 'targetStaticThrustN');
-  refuses(() => computeNozzleDiameterForStaticThrustMm({ ...good, targetStaticThrustN: Number.NaN }), 'targetStaticThrustN');
+  refuses(
+    () => computeNozzleDiameterForStaticThrustMm({ ...good, targetStaticThrustN: Number.NaN }),
+    'targetStaticThrustN',
+  );
   refuses(() => computeNozzleDiameterForStaticThrustMm({ ...good, targetStaticThrustN: 1000, powerKw: -3 }), 'powerKw');
   refuses(() => computeCrossoverSpeedMs(good, { ...good, nozzleDiameterMm: 0 }), 'nozzleDiameterMm');
   refuses(() => computeCrossoverSpeedMs(good, good, { maxSpeedMs: 5000 }), 'maxSpeedMs');
@@ -93,15 +104,35 @@ test('absurd magnitudes are refused rather than overflowing to NaN', () => {
 test('never NaN: any finite input either gives finite output or a typed refusal (property)', () => {
   const anyNumber = fc.oneof(fc.double(), fc.constantFrom(0, -1, 1, 1e-300, 1e300));
   fc.assert(
-    fc.property(anyNumber, anyNumber, anyNumber, anyNumber, anyNumber, anyNumber, anyNumber, anyNumber,
+    fc.property(
+      anyNumber,
+      anyNumber,
+      anyNumber,
+      anyNumber,
+      anyNumber,
+      anyNumber,
+      anyNumber,
+      anyNumber,
       (powerKw, nozzleDiameterMm, densityKgM3, pumpEfficiency, kn, ki, w, speed) => {
         try {
-          const p = computeJetPoint({ powerKw, nozzleDiameterMm, densityKgM3, pumpEfficiency, nozzleLossCoefficient: kn, inletLossCoefficient: ki, wakeFraction: w }, speed);
+          const p = computeJetPoint(
+            {
+              powerKw,
+              nozzleDiameterMm,
+              densityKgM3,
+              pumpEfficiency,
+              nozzleLossCoefficient: kn,
+              inletLossCoefficient: ki,
+              wakeFraction: w,
+            },
+            speed,
+          );
           return [p.jetVelocityMs, p.massFlowKgS, p.thrustN].every(Number.isFinite);
         } catch (e) {
           return e instanceof EngineInputError;
         }
-      }),
+      },
+    ),
     { numRuns: 2000 },
   );
 });
@@ -118,9 +149,21 @@ test('never NaN across wide valid magnitudes (property)', () => {
       fc.double({ min: 0, max: 0.999, noNaN: true }),
       fc.double({ min: 0, max: 1000, noNaN: true }),
       (powerKw, nozzleDiameterMm, densityKgM3, pumpEfficiency, kn, ki, w, speed) => {
-        const p = computeJetPoint({ powerKw, nozzleDiameterMm, densityKgM3, pumpEfficiency, nozzleLossCoefficient: kn, inletLossCoefficient: ki, wakeFraction: w }, speed);
+        const p = computeJetPoint(
+          {
+            powerKw,
+            nozzleDiameterMm,
+            densityKgM3,
+            pumpEfficiency,
+            nozzleLossCoefficient: kn,
+            inletLossCoefficient: ki,
+            wakeFraction: w,
+          },
+          speed,
+        );
         return [p.jetVelocityMs, p.massFlowKgS, p.thrustN].every(Number.isFinite) && p.jetVelocityMs > 0;
-      }),
+      },
+    ),
     { numRuns: 2000 },
   );
 });

@@ -40,16 +40,27 @@ function relativeResidual(s: JetSetupInput, speedMs: number, v: number): number 
 }
 
 test('computed v_j satisfies the cubic to 1e-9 relative (property)', () => {
-  fc.assert(fc.property(setupArb, speedArb, (s, v) => relativeResidual(s, v, evaluateJetVelocityMs(prepareJetSetup(s), v)) <= 1e-9), RUNS);
+  fc.assert(
+    fc.property(
+      setupArb,
+      speedArb,
+      (s, v) => relativeResidual(s, v, evaluateJetVelocityMs(prepareJetSetup(s), v)) <= 1e-9,
+    ),
+    RUNS,
+  );
 });
 
 test('solver root satisfies v^3 - p v - q = 0 over extreme p and q (property)', () => {
   fc.assert(
-    fc.property(fc.double({ min: 0, max: 1e6, noNaN: true }), fc.double({ min: 1e-6, max: 1e9, noNaN: true }), (p, q) => {
-      const v = solveJetCubic(p, q);
-      const scale = Math.max(v ** 3, p * v, q);
-      return v > Math.sqrt(p) && Math.abs(v ** 3 - p * v - q) / scale <= 1e-12;
-    }),
+    fc.property(
+      fc.double({ min: 0, max: 1e6, noNaN: true }),
+      fc.double({ min: 1e-6, max: 1e9, noNaN: true }),
+      (p, q) => {
+        const v = solveJetCubic(p, q);
+        const scale = Math.max(v ** 3, p * v, q);
+        return v > Math.sqrt(p) && Math.abs(v ** 3 - p * v - q) / scale <= 1e-12;
+      },
+    ),
     { numRuns: 1000 },
   );
 });
@@ -146,7 +157,14 @@ test('cubic solver matches mathjs polynomialRoot over a grid of cases', () => {
       for (const kn of [0, 0.02, 0.05])
         for (const ki of [0, 0.2])
           for (const v of [0, 5, 20, 40, 80]) {
-            const s = { powerKw, nozzleDiameterMm: d, densityKgM3: 999.1026, pumpEfficiency: 0.9, nozzleLossCoefficient: kn, inletLossCoefficient: ki };
+            const s = {
+              powerKw,
+              nozzleDiameterMm: d,
+              densityKgM3: 999.1026,
+              pumpEfficiency: 0.9,
+              nozzleLossCoefficient: kn,
+              inletLossCoefficient: ki,
+            };
             const area = (Math.PI * (d / 1000) ** 2) / 4;
             const c0 = (-2 * 0.9 * powerKw * 1000) / (999.1026 * area);
             const c1 = -(1 - ki) * v * v;

@@ -18,8 +18,12 @@ const relClose = (actual: number, expected: number, rel: number, what: string) =
   assert.ok(Math.abs(actual - expected) <= rel * Math.abs(expected), `${what}: ${actual} vs ${expected} (rel ${rel})`);
 
 const lossy = {
-  powerKw: 300, nozzleDiameterMm: 100, densityKgM3: 999.1026,
-  pumpEfficiency: 0.9, inletLossCoefficient: 0.2, nozzleLossCoefficient: 0.02,
+  powerKw: 300,
+  nozzleDiameterMm: 100,
+  densityKgM3: 999.1026,
+  pumpEfficiency: 0.9,
+  inletLossCoefficient: 0.2,
+  nozzleLossCoefficient: 0.02,
 };
 
 test('diameter only: u(T0)/T0 = (2/3) u(D)/D', () => {
@@ -89,7 +93,10 @@ test('first-order u(T) agrees with a Monte Carlo propagation for small input unc
   let sum = 0;
   let sumSq = 0;
   for (let i = 0; i < n; i++) {
-    const t = computeJetPoint({ ...lossy, powerKw: 300 + uP * normal(), nozzleDiameterMm: 100 + uD * normal() }, 20).thrustN;
+    const t = computeJetPoint(
+      { ...lossy, powerKw: 300 + uP * normal(), nozzleDiameterMm: 100 + uD * normal() },
+      20,
+    ).thrustN;
     sum += t;
     sumSq += t * t;
   }
@@ -115,7 +122,8 @@ test('crossover uncertainty matches a finite difference of the crossover speed i
 test('equalising diameter uncertainty: u(D_eq)/D_eq = u(P)/P', () => {
   // D_eq ∝ P^(-1) at fixed target thrust (the static relation above solved for D); checked by finite difference.
   const target = 12000;
-  const dAt = (p: number) => computeNozzleDiameterForStaticThrustMm({ ...lossy, powerKw: p, targetStaticThrustN: target });
+  const dAt = (p: number) =>
+    computeNozzleDiameterForStaticThrustMm({ ...lossy, powerKw: p, targetStaticThrustN: target });
   const d = dAt(300);
   const slope = centralDifference(dAt, 300);
   relClose(computeEqualisingDiameterUncertaintyMm(d, 300, 6), Math.abs(slope) * 6, 1e-6, 'u(D_eq)');

@@ -78,7 +78,8 @@ test('thrust-best nozzle at one speed has velocity ratio NVR* (scan of diameters
   // With losses the thrust-best jet-to-boat velocity ratio is NVR* (derived as above from the MIT 2.611 loss form).
   const speedMs = 20;
   let best = { thrustN: -Infinity, ratio: 0 };
-  for (let d = 50; d <= 3000; d *= 1.0005) { // optimum near 1.1 m at 300 kW, 20 m/s
+  for (let d = 50; d <= 3000; d *= 1.0005) {
+    // optimum near 1.1 m at 300 kW, 20 m/s
     const s = prepareJetSetup({ ...lossy, nozzleDiameterMm: d });
     const t = evaluateThrustN(s, speedMs);
     if (t > best.thrustN) best = { thrustN: t, ratio: evaluateJetVelocityMs(s, speedMs) / speedMs };

@@ -37,19 +37,43 @@ test('aluminium nozzle: about 0.023 mm per 10 K at 100 mm, corrected back to 20 
   // Linear expansion dL = alpha L dT, alpha ≈ 23e-6/K for aluminium [memory]; reference temperature 20 C per ISO 1:2022.
   assert.equal(THERMAL_EXPANSION_PER_K.aluminium, 23e-6);
   const at30 = 100 + 0.023;
-  close(correctLengthToReferenceTemperatureMm({ lengthMm: at30, temperatureC: 30, material: 'aluminium' }), 100, 1e-6, '30 C');
-  close(correctLengthToReferenceTemperatureMm({ lengthMm: 100, temperatureC: 20, material: 'aluminium' }), 100, 0, '20 C');
+  close(
+    correctLengthToReferenceTemperatureMm({ lengthMm: at30, temperatureC: 30, material: 'aluminium' }),
+    100,
+    1e-6,
+    '30 C',
+  );
+  close(
+    correctLengthToReferenceTemperatureMm({ lengthMm: 100, temperatureC: 20, material: 'aluminium' }),
+    100,
+    0,
+    '20 C',
+  );
   const cold = correctLengthToReferenceTemperatureMm({ lengthMm: 100, temperatureC: 10, material: 'aluminium' });
   close(cold, 100 + 0.023, 1e-5, '10 C reading is small');
 });
 
 test('stainless steel and an instrument at the same temperature', () => {
   // alpha stainless ≈ 17e-6/K, steel ≈ 11.5e-6/K [memory]; a steel scale at 30 C under-reads by (1 + alpha dt).
-  const partOnly = correctLengthToReferenceTemperatureMm({ lengthMm: 100, temperatureC: 30, material: 'stainless_steel' });
+  const partOnly = correctLengthToReferenceTemperatureMm({
+    lengthMm: 100,
+    temperatureC: 30,
+    material: 'stainless_steel',
+  });
   close(partOnly, 100 / (1 + 17e-5), 1e-12, 'stainless');
-  const withCaliper = correctLengthToReferenceTemperatureMm({ lengthMm: 100, temperatureC: 30, material: 'aluminium', instrumentMaterial: 'steel' });
+  const withCaliper = correctLengthToReferenceTemperatureMm({
+    lengthMm: 100,
+    temperatureC: 30,
+    material: 'aluminium',
+    instrumentMaterial: 'steel',
+  });
   close(withCaliper, (100 * (1 + 11.5e-5)) / (1 + 23e-5), 1e-12, 'differential');
-  const same = correctLengthToReferenceTemperatureMm({ lengthMm: 100, temperatureC: 35, material: 'steel', instrumentMaterial: 'steel' });
+  const same = correctLengthToReferenceTemperatureMm({
+    lengthMm: 100,
+    temperatureC: 35,
+    material: 'steel',
+    instrumentMaterial: 'steel',
+  });
   close(same, 100, 1e-12, 'same material cancels');
 });
 
@@ -67,9 +91,18 @@ test('refuses meaningless measurement input by field', () => {
   refuses(() => computeUncertaintyBudget({ errorLimitMm: -0.01 }), 'errorLimitMm');
   refuses(() => computeUncertaintyBudget({ resolutionMm: Number.NaN }), 'resolutionMm');
   refuses(() => computeUncertaintyBudget({ coverageFactor: 0 }), 'coverageFactor');
-  refuses(() => correctLengthToReferenceTemperatureMm({ lengthMm: 100, temperatureC: 200, material: 'aluminium' }), 'temperatureC');
-  refuses(() => correctLengthToReferenceTemperatureMm({ lengthMm: 100, temperatureC: 25, material: 'cheese' as never }), 'material');
-  refuses(() => correctLengthToReferenceTemperatureMm({ lengthMm: 0, temperatureC: 25, material: 'steel' }), 'lengthMm');
+  refuses(
+    () => correctLengthToReferenceTemperatureMm({ lengthMm: 100, temperatureC: 200, material: 'aluminium' }),
+    'temperatureC',
+  );
+  refuses(
+    () => correctLengthToReferenceTemperatureMm({ lengthMm: 100, temperatureC: 25, material: 'cheese' as never }),
+    'material',
+  );
+  refuses(
+    () => correctLengthToReferenceTemperatureMm({ lengthMm: 0, temperatureC: 25, material: 'steel' }),
+    'lengthMm',
+  );
   refuses(() => computeAreaEquivalentDiameterMm(99, 101), 'dMinMm');
   refuses(() => computeAreaEquivalentDiameterFromReadingsMm([]), 'readingsMm');
 });

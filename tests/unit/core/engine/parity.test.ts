@@ -68,7 +68,10 @@ test('odd count: the median boat is a real boat, with no crossover against itsel
   assert.ok(ref && ref.id === r.referenceSetup.boatId);
   assert.equal(ref.deviationFromMedianN, 0);
   assert.equal(ref.crossoverWithMedianMs, null);
-  assert.ok(r.boats.some((b) => b.crossoverWithMedianMs !== null), 'with losses some curves cross the median');
+  assert.ok(
+    r.boats.some((b) => b.crossoverWithMedianMs !== null),
+    'with losses some curves cross the median',
+  );
   const refInput = boats.find((b) => b.id === ref.id) as ParityBoatInput;
   for (const b of r.boats.filter((x) => !x.isReferenceBoat)) {
     const own = boats.find((x) => x.id === b.id) as ParityBoatInput;
@@ -84,7 +87,11 @@ test('even count: synthetic reference with median power and the median static th
   assert.equal(r.referenceSetup.kind, 'synthetic');
   assert.equal(r.referenceSetup.boatId, null);
   assert.equal(r.referenceSetup.powerKw, median(four.map((b) => b.powerKw)));
-  const t0 = computeStaticPerformance({ ...model, powerKw: r.referenceSetup.powerKw, nozzleDiameterMm: r.referenceSetup.nozzleDiameterMm }).thrustN;
+  const t0 = computeStaticPerformance({
+    ...model,
+    powerKw: r.referenceSetup.powerKw,
+    nozzleDiameterMm: r.referenceSetup.nozzleDiameterMm,
+  }).thrustN;
   relClose(t0, median(four.map(staticThrust)), 1e-12, 'synthetic T0');
   assert.ok(r.boats.every((b) => !b.isReferenceBoat));
 });
@@ -93,7 +100,11 @@ test('equalising nozzle brings each boat to the class median static thrust', () 
   // The static relation T0 ∝ D^(2/3) (momentum theory, Allison 1993) solved for D.
   const r = computeParity(boats, model);
   for (const b of r.boats) {
-    const t0 = computeStaticPerformance({ ...model, powerKw: b.powerKw, nozzleDiameterMm: b.equalisingNozzleDiameterMm }).thrustN;
+    const t0 = computeStaticPerformance({
+      ...model,
+      powerKw: b.powerKw,
+      nozzleDiameterMm: b.equalisingNozzleDiameterMm,
+    }).thrustN;
     relClose(t0, r.summary.medianStaticThrustN, 1e-12, `equalised ${b.id}`);
   }
 });
@@ -102,7 +113,12 @@ test('uncertainties: propagated where given, zero where not', () => {
   // JCGM 100:2008 5.1.2 with T0 ∝ P^(2/3) D^(2/3) (static momentum theory): u(T0)/T0 = sqrt((2/3 u_D/D)^2 + (2/3 u_P/P)^2).
   const r = computeParity(boats, model);
   const a = r.boats[0];
-  relClose(a.uStaticThrustN / a.staticThrustN, Math.hypot((2 / 3) * (0.03 / 100), (2 / 3) * (6 / 300)), 1e-12, 'u(T0) a');
+  relClose(
+    a.uStaticThrustN / a.staticThrustN,
+    Math.hypot((2 / 3) * (0.03 / 100), (2 / 3) * (6 / 300)),
+    1e-12,
+    'u(T0) a',
+  );
   relClose(a.uEqualisingNozzleDiameterMm, (a.equalisingNozzleDiameterMm * 6) / 300, 1e-12, 'u(D_eq) a');
   assert.ok(a.thrustAtReferenceSpeeds.every((p) => p.uThrustN > 0));
   const b = r.boats[1];
@@ -125,7 +141,12 @@ test('one boat: defined output', () => {
 
 test('1,000 boats: every figure finite or an explicit null', () => {
   const many: ParityBoatInput[] = Array.from({ length: 1000 }, (_, i) => ({
-    id: `boat-${i}`, label: `Boat ${i}`, powerKw: 250 + ((i * 37) % 100), nozzleDiameterMm: 90 + ((i * 53) % 200) / 10, uPowerKw: 5, uNozzleDiameterMm: 0.05,
+    id: `boat-${i}`,
+    label: `Boat ${i}`,
+    powerKw: 250 + ((i * 37) % 100),
+    nozzleDiameterMm: 90 + ((i * 53) % 200) / 10,
+    uPowerKw: 5,
+    uNozzleDiameterMm: 0.05,
   }));
   const r = computeParity(many, { ...model, referenceSpeedsMs: [0, 10, 20, 30, 40] });
   assert.equal(r.boats.length, 1000);

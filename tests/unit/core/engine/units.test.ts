@@ -79,17 +79,23 @@ test('handbook: fresh water about 62.4 lb/ft^3 and 8.34 lb per US gallon', () =>
   const lbPerGal = convertMass(rho * m3PerIn3 * 231, 'kg', 'lb');
   close(lbPerFt3, 62.4, 0.05, 'lb/ft^3');
   close(lbPerGal, 8.34, 0.005, 'lb/gal');
-  close((12 ** 3) / 231, 7.48, 0.005, 'US gallons per ft^3');
+  close(12 ** 3 / 231, 7.48, 0.005, 'US gallons per ft^3');
 });
 
 test('round trip within every quantity (property)', () => {
   const groups: AnyUnit[][] = [
-    ['W', 'kW', 'hp', 'PS'], ['mm', 'm', 'in'], ['kg', 'lb'], ['N', 'lbf', 'kgf'], ['m/s', 'km/h', 'kn', 'mph'], ['C', 'F'],
+    ['W', 'kW', 'hp', 'PS'],
+    ['mm', 'm', 'in'],
+    ['kg', 'lb'],
+    ['N', 'lbf', 'kgf'],
+    ['m/s', 'km/h', 'kn', 'mph'],
+    ['C', 'F'],
   ];
   fc.assert(
     fc.property(
       fc.integer({ min: 0, max: groups.length - 1 }),
-      fc.nat(), fc.nat(),
+      fc.nat(),
+      fc.nat(),
       fc.double({ min: -1e6, max: 1e6, noNaN: true }),
       (g, i, j, x) => {
         const units = groups[g];
@@ -105,8 +111,14 @@ test('round trip within every quantity (property)', () => {
 });
 
 test('refuses cross-quantity and non-finite conversions', () => {
-  assert.throws(() => convert(1, 'kW', 'mm' as never), (e: unknown) => e instanceof EngineInputError && e.field === 'to');
-  assert.throws(() => convert(Number.NaN, 'kW', 'hp'), (e: unknown) => e instanceof EngineInputError && e.field === 'value');
+  assert.throws(
+    () => convert(1, 'kW', 'mm' as never),
+    (e: unknown) => e instanceof EngineInputError && e.field === 'to',
+  );
+  assert.throws(
+    () => convert(Number.NaN, 'kW', 'hp'),
+    (e: unknown) => e instanceof EngineInputError && e.field === 'value',
+  );
   assert.throws(() => convert(Infinity, 'm', 'mm'), EngineInputError);
   assert.throws(() => getQuantityOfUnit('furlong' as never), EngineInputError);
 });
@@ -120,8 +132,12 @@ test('formatQuantity prints labels and never NaN', () => {
 
 test('picker option lists hold units of their own quantity, product default first', () => {
   const lists = [
-    [POWER_UNIT_OPTIONS, 'power', 'kW'], [LENGTH_UNIT_OPTIONS, 'length', 'mm'], [MASS_UNIT_OPTIONS, 'mass', 'kg'],
-    [FORCE_UNIT_OPTIONS, 'force', 'N'], [SPEED_UNIT_OPTIONS, 'speed', 'km/h'], [TEMPERATURE_UNIT_OPTIONS, 'temperature', 'C'],
+    [POWER_UNIT_OPTIONS, 'power', 'kW'],
+    [LENGTH_UNIT_OPTIONS, 'length', 'mm'],
+    [MASS_UNIT_OPTIONS, 'mass', 'kg'],
+    [FORCE_UNIT_OPTIONS, 'force', 'N'],
+    [SPEED_UNIT_OPTIONS, 'speed', 'km/h'],
+    [TEMPERATURE_UNIT_OPTIONS, 'temperature', 'C'],
   ] as const;
   for (const [options, quantity, first] of lists) {
     assert.equal(options[0].value, first);

@@ -17,8 +17,18 @@ const refusesField = (fn: () => unknown, field: string) =>
 
 test('ITTC table points are reproduced exactly', () => {
   // ITTC Recommended Procedure 7.5-02-01-03 (Fresh Water and Seawater Properties), table values.
-  const fresh: [number, number][] = [[10, 999.7026], [15, 999.1026], [20, 998.2071], [25, 997.0479]];
-  const sea: [number, number][] = [[10, 1027.0], [15, 1026.021], [20, 1024.8103], [25, 1023.3873]];
+  const fresh: [number, number][] = [
+    [10, 999.7026],
+    [15, 999.1026],
+    [20, 998.2071],
+    [25, 997.0479],
+  ];
+  const sea: [number, number][] = [
+    [10, 1027.0],
+    [15, 1026.021],
+    [20, 1024.8103],
+    [25, 1023.3873],
+  ];
   for (const [t, rho] of fresh) close(interpolateDensityIttc('fresh', t), rho, 1e-9, `fresh ${t} C`);
   for (const [t, rho] of sea) close(interpolateDensityIttc('sea', t), rho, 1e-9, `sea ${t} C`);
 });
@@ -45,12 +55,22 @@ test('EOS-80 fresh water has its density maximum near 4 C', () => {
 test('the two bases agree for fresh water but are kept apart', () => {
   // ITTC 7.5-02-01-03 vs EOS-80 (two published sources): fresh water within 0.005 kg/m^3 at 15-25 C.
   for (const t of [15, 20, 25]) {
-    close(computeDensityEos80({ salinityPsu: 0, temperatureC: t }), interpolateDensityIttc('fresh', t), 0.005, `${t} C`);
+    close(
+      computeDensityEos80({ salinityPsu: 0, temperatureC: t }),
+      interpolateDensityIttc('fresh', t),
+      0.005,
+      `${t} C`,
+    );
   }
   // Sea water: ITTC uses absolute salinity 35.16504 g/kg, EOS-80 practical salinity 35; a loose
   // 0.1 kg/m^3 consistency bound, chosen by us (no source).
   for (const t of [10, 15, 20, 25]) {
-    close(computeDensityEos80({ salinityPsu: 35, temperatureC: t }), interpolateDensityIttc('sea', t), 0.1, `sea ${t} C`);
+    close(
+      computeDensityEos80({ salinityPsu: 35, temperatureC: t }),
+      interpolateDensityIttc('sea', t),
+      0.1,
+      `sea ${t} C`,
+    );
   }
   // resolveDensity reports the basis it used; the same request on the two bases names each.
   assert.equal(resolveDensity({ kind: 'sea', temperatureC: 20 }).basis, 'ittc');

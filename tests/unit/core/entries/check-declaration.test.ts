@@ -6,7 +6,11 @@ import assert from 'node:assert/strict';
 import { checkDeclaration, formatFigure, type DeclaredFigures } from '../../../../lib/core/entries/check-declaration';
 import { DEFAULT_CLASS_RULES, type ClassRules } from '../../../../lib/core/inputs/class-rules';
 
-const rules = (over: { nozzle?: Partial<ClassRules['nozzle']>; power?: Partial<ClassRules['power']>; weight?: Partial<ClassRules['weight']> }): ClassRules => ({
+const rules = (over: {
+  nozzle?: Partial<ClassRules['nozzle']>;
+  power?: Partial<ClassRules['power']>;
+  weight?: Partial<ClassRules['weight']>;
+}): ClassRules => ({
   ...DEFAULT_CLASS_RULES,
   nozzle: { ...DEFAULT_CLASS_RULES.nozzle, ...over.nozzle },
   power: { ...DEFAULT_CLASS_RULES.power, ...over.power },
@@ -46,26 +50,47 @@ test('nozzle maximum: the four worked decisions (ISO 14253-1:2017 zones)', () =>
 test('each row explains itself in one line, with the figures and units', () => {
   const r = rules({ nozzle: { maxMm: 102 } });
   const within = row(boat({ declaredNozzleMm: 101.93 }), r, 'nozzle_max');
-  assert.equal(within.explanation, 'Declared 101.93 mm clears the maximum 102.00 mm by at least your declared tolerance 0.05 mm.');
+  assert.equal(
+    within.explanation,
+    'Declared 101.93 mm clears the maximum 102.00 mm by at least your declared tolerance 0.05 mm.',
+  );
   const close = row(boat({ declaredNozzleMm: 102.02 }), r, 'nozzle_max');
-  assert.match(close.explanation, /^Declared 102\.02 mm is within your declared tolerance 0\.05 mm of the maximum 102\.00 mm: too close to call/);
+  assert.match(
+    close.explanation,
+    /^Declared 102\.02 mm is within your declared tolerance 0\.05 mm of the maximum 102\.00 mm: too close to call/,
+  );
   const out = row(boat({ declaredNozzleMm: 102.06 }), r, 'nozzle_max');
-  assert.match(out.explanation, /above the maximum 102\.00 mm by more than your declared tolerance 0\.05 mm: as declared, the boat would not conform\./);
+  assert.match(
+    out.explanation,
+    /above the maximum 102\.00 mm by more than your declared tolerance 0\.05 mm: as declared, the boat would not conform\./,
+  );
   for (const x of [within, close, out]) assert.doesNotMatch(x.explanation, /\n/);
 });
 
 test('the declared tolerance is the uncertainty: a wider tolerance turns "within" into "too close to call"', () => {
   // ISO 14253-1:2017: conformity is proven only inside the limit reduced by U.
   const r = rules({ nozzle: { maxMm: 102 } });
-  assert.equal(row(boat({ declaredNozzleMm: 101.93, declaredNozzleToleranceMm: 0.05 }), r, 'nozzle_max').status, 'within');
-  assert.equal(row(boat({ declaredNozzleMm: 101.93, declaredNozzleToleranceMm: 0.1 }), r, 'nozzle_max').status, 'too_close');
+  assert.equal(
+    row(boat({ declaredNozzleMm: 101.93, declaredNozzleToleranceMm: 0.05 }), r, 'nozzle_max').status,
+    'within',
+  );
+  assert.equal(
+    row(boat({ declaredNozzleMm: 101.93, declaredNozzleToleranceMm: 0.1 }), r, 'nozzle_max').status,
+    'too_close',
+  );
 });
 
 test('nozzle minimum mirrors the maximum (ISO 14253-1:2017, lower limit)', () => {
   const r = rules({ nozzle: { minMm: 98 } });
   // lower limit 98.00 mm, U 0.05 mm: the same zones (ISO 14253-1:2017) reflected about the limit
-  const cases: [number, string][] = [[98.07, 'within'], [98.03, 'too_close'], [97.98, 'too_close'], [97.94, 'outside']];
-  for (const [declared, status] of cases) assert.equal(row(boat({ declaredNozzleMm: declared }), r, 'nozzle_min').status, status, `${declared} mm`);
+  const cases: [number, string][] = [
+    [98.07, 'within'],
+    [98.03, 'too_close'],
+    [97.98, 'too_close'],
+    [97.94, 'outside'],
+  ];
+  for (const [declared, status] of cases)
+    assert.equal(row(boat({ declaredNozzleMm: declared }), r, 'nozzle_min').status, status, `${declared} mm`);
 });
 
 test('power band edges with the class power uncertainty (boundaries per lib/core/engine/conformity.ts)', () => {
@@ -88,12 +113,22 @@ test('power band edges with the class power uncertainty (boundaries per lib/core
     assert.equal(x.unit, 'kW');
   }
   const mid = checkDeclaration(boat({ declaredPowerKw: 250 }), r);
-  assert.deepEqual(mid.rows.map((x) => [x.key, x.status]), [['nozzle_max', 'within'], ['power_min', 'within'], ['power_max', 'within']]);
+  assert.deepEqual(
+    mid.rows.map((x) => [x.key, x.status]),
+    [
+      ['nozzle_max', 'within'],
+      ['power_min', 'within'],
+      ['power_max', 'within'],
+    ],
+  );
 });
 
 test('no power limits, no power rows; with zero uncertainty the limit itself is within (common practice, no source: "not exceeding")', () => {
   const r0 = rules({ nozzle: { maxMm: 102 } });
-  assert.deepEqual(checkDeclaration(boat({}), r0).rows.map((x) => x.key), ['nozzle_max']);
+  assert.deepEqual(
+    checkDeclaration(boat({}), r0).rows.map((x) => x.key),
+    ['nozzle_max'],
+  );
   const r = rules({ nozzle: { maxMm: 102 }, power: { maxKw: 300, defaultUncertaintyKw: 0 } });
   assert.equal(row(boat({ declaredPowerKw: 300 }), r, 'power_max').status, 'within');
   assert.equal(row(boat({ declaredPowerKw: 300.1 }), r, 'power_max').status, 'outside');
@@ -102,7 +137,10 @@ test('no power limits, no power rows; with zero uncertainty the limit itself is 
 test('minimum weight is checked only when declared; otherwise a note says it is weighed at inspection', () => {
   const r = rules({ nozzle: { maxMm: 102 }, weight: { minKg: 450, includesDriver: true, defaultUncertaintyKg: 1 } });
   const none = checkDeclaration(boat({ declaredWeightKg: null }), r);
-  assert.equal(none.rows.some((x) => x.key === 'weight_min'), false);
+  assert.equal(
+    none.rows.some((x) => x.key === 'weight_min'),
+    false,
+  );
   assert.equal(none.notes.length, 1);
   assert.match(none.notes[0], /450 kg \(with driver\)/);
   // ISO 14253-1:2017 zones, U 1 kg

@@ -7,9 +7,25 @@ import { entriesToCsv, csvCell } from '../../../../lib/core/entries/entries-csv'
 import type { EventEntryRow } from '../../../../lib/server/entries/list-event-entries';
 
 const row = (over: Partial<EventEntryRow>): EventEntryRow => ({
-  id: 'x', raceNumber: 7, boatId: 'b', boatName: 'Plain', hullNumber: 'H1', classId: 'c', classCode: 'SS', className: 'Sprint',
-  entrantName: 'A Person', entrantEmail: 'a@example.org', status: 'entered', inspectionResult: null, declaredNozzleMm: 101.5,
-  declaredPowerKw: 240, feeMinor: 15000, currency: 'NZD', paidAt: null, createdAt: '2026-11-01T00:00:00.000Z', ...over,
+  id: 'x',
+  raceNumber: 7,
+  boatId: 'b',
+  boatName: 'Plain',
+  hullNumber: 'H1',
+  classId: 'c',
+  classCode: 'SS',
+  className: 'Sprint',
+  entrantName: 'A Person',
+  entrantEmail: 'a@example.org',
+  status: 'entered',
+  inspectionResult: null,
+  declaredNozzleMm: 101.5,
+  declaredPowerKw: 240,
+  feeMinor: 15000,
+  currency: 'NZD',
+  paidAt: null,
+  createdAt: '2026-11-01T00:00:00.000Z',
+  ...over,
 });
 
 test('quotes commas, quotes and line breaks so a CSV parser reads the same values back', () => {

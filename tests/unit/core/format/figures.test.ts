@@ -44,7 +44,8 @@ test('each quantity keeps the precision its measurement supports', () => {
   assert.equal(formatFigure(44.6, 'angleDeg'), '45°');
   assert.equal(formatFigure(1234.4, 'lengthMm'), '1234 mm');
   assert.equal(formatFigure(18.25, 'temperatureC'), '18.3 °C');
-  for (const [kind, f] of Object.entries(FIGURES)) assert.ok(f.digits >= 0 && f.digits <= 3, `${kind} has a sensible number of digits`);
+  for (const [kind, f] of Object.entries(FIGURES))
+    assert.ok(f.digits >= 0 && f.digits <= 3, `${kind} has a sensible number of digits`);
 });
 
 test('missing and non-finite values show a dash, never NaN', () => {

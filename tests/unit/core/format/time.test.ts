@@ -5,7 +5,13 @@
 // Articles 2 and 3 (the UK kept the same rule: Summer Time Order 2002 [memory]).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { formatCalendarDate, formatDay, formatTime, safeTimeZone, zoneOffsetMinutes } from '../../../../lib/core/format/time';
+import {
+  formatCalendarDate,
+  formatDay,
+  formatTime,
+  safeTimeZone,
+  zoneOffsetMinutes,
+} from '../../../../lib/core/format/time';
 import { windowDeadlineTerm } from '../../../../lib/core/protests/protest-window';
 
 test('New Zealand in December is on NZDT, UTC+13 (IANA tz database, Pacific/Auckland)', () => {

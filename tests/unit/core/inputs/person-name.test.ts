@@ -30,7 +30,15 @@ test('blank, missing, too long or not text: a message that says what to do', () 
 });
 
 test('control characters, line separators and bidirectional overrides are refused', () => {
-  for (const bad of ['Wren\nFake line', 'Wren\r\nBcc: x', 'Wren\u0000', 'Wren\u0085', 'Wren\u202Eyawollah', 'Wren\u2066x\u2069', 'Wren\u2028x']) {
+  for (const bad of [
+    'Wren\nFake line',
+    'Wren\r\nBcc: x',
+    'Wren\u0000',
+    'Wren\u0085',
+    'Wren\u202Eyawollah',
+    'Wren\u2066x\u2069',
+    'Wren\u2028x',
+  ]) {
     assert.equal(refused(bad), 'Use letters, spaces and punctuation only in the name.', JSON.stringify(bad));
   }
 });

@@ -12,7 +12,10 @@ test('two finishers in a three-row form: the blank pre-filled third row is left 
     { key: 1, position: null, raceNumber: '12' },
     { key: 2, position: null, raceNumber: '' },
   ]);
-  assert.deepEqual(send, [{ position: 1, raceNumber: 7 }, { position: 2, raceNumber: 12 }]);
+  assert.deepEqual(send, [
+    { position: 1, raceNumber: 7 },
+    { position: 2, raceNumber: 12 },
+  ]);
   assert.deepEqual(screenIndex, [0, 1]);
   assert.equal(PublishResultsInput.safeParse({ classId: CLASS, rows: send }).success, true);
 });
@@ -23,9 +26,15 @@ test('an edited position is kept as typed (and a gap is still refused by the sch
     { key: 5, position: '3', raceNumber: '9' },
     { key: 6, position: null, raceNumber: '4' },
   ]);
-  assert.deepEqual(send, [{ position: 3, raceNumber: 9 }, { position: 3, raceNumber: 4 }]);
+  assert.deepEqual(send, [
+    { position: 3, raceNumber: 9 },
+    { position: 3, raceNumber: 4 },
+  ]);
   assert.deepEqual(screenIndex, [1, 2]);
   const parsed = PublishResultsInput.safeParse({ classId: CLASS, rows: send });
   assert.equal(parsed.success, false);
-  assert.ok(parsed.error!.issues.some((i) => i.path.join('.') === 'rows.1.position'), 'sent row 1 is screen row 2');
+  assert.ok(
+    parsed.error!.issues.some((i) => i.path.join('.') === 'rows.1.position'),
+    'sent row 1 is screen row 2',
+  );
 });

@@ -12,12 +12,31 @@
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { decideInspection, type InstrumentFigures } from '../../../../lib/core/inspections/decide-inspection';
-import { buildInspectionRecord, readRecordForReport, StoredInspectionRecord, type BuildInspectionRecordInput } from '../../../../lib/core/inspections/inspection-record';
+import {
+  buildInspectionRecord,
+  readRecordForReport,
+  StoredInspectionRecord,
+  type BuildInspectionRecordInput,
+} from '../../../../lib/core/inspections/inspection-record';
 import type { ClassRules } from '../../../../lib/core/inputs/class-rules';
 import { RecordInspectionInput } from '../../../../lib/core/inputs/inspections';
 
-const CALIPER: InstrumentFigures = { id: '00000000-0000-4000-8000-00000000c001', name: 'Test caliper', quantity: 'length', errorLimit: 0.03, resolution: 0.01, expandedUncertainty: null };
-const SCALE: InstrumentFigures = { id: '00000000-0000-4000-8000-00000000c002', name: 'Test scale', quantity: 'mass', errorLimit: null, resolution: null, expandedUncertainty: 1 };
+const CALIPER: InstrumentFigures = {
+  id: '00000000-0000-4000-8000-00000000c001',
+  name: 'Test caliper',
+  quantity: 'length',
+  errorLimit: 0.03,
+  resolution: 0.01,
+  expandedUncertainty: null,
+};
+const SCALE: InstrumentFigures = {
+  id: '00000000-0000-4000-8000-00000000c002',
+  name: 'Test scale',
+  quantity: 'mass',
+  errorLimit: null,
+  resolution: null,
+  expandedUncertainty: 1,
+};
 
 const rules = (over: Partial<ClassRules> = {}): ClassRules => ({
   nozzle: { maxMm: 102, minMm: null, minReadings: 3, defaultUncertaintyMm: 0.05 },
@@ -25,14 +44,29 @@ const rules = (over: Partial<ClassRules> = {}): ClassRules => ({
   weight: { minKg: 400, includesDriver: true, defaultUncertaintyKg: 1 },
   decisionRule: 'iso14253',
   safetyItems: ['helmet'],
-  parity: { pumpEfficiency: 0.9, nozzleLossCoefficient: 0.02, inletLossCoefficient: 0.2, wakeFraction: 0, referenceSpeedsMs: [10] },
+  parity: {
+    pumpEfficiency: 0.9,
+    nozzleLossCoefficient: 0.02,
+    inletLossCoefficient: 0.2,
+    wakeFraction: 0,
+    referenceSpeedsMs: [10],
+  },
   ...over,
 });
 
 const parseInput = (nozzle: Record<string, unknown>, over: Record<string, unknown> = {}) =>
   RecordInspectionInput.parse({
-    idempotencyKey: '00000000-0000-4000-8000-0000000000a1', entryId: '00000000-0000-4000-8000-0000000000e1', capturedAt: new Date().toISOString(),
-    nozzle: { readings: [{ diameterMm: 100, angleDeg: 0 }, { diameterMm: 100.02, angleDeg: 60 }, { diameterMm: 99.98, angleDeg: 120 }], ...nozzle },
+    idempotencyKey: '00000000-0000-4000-8000-0000000000a1',
+    entryId: '00000000-0000-4000-8000-0000000000e1',
+    capturedAt: new Date().toISOString(),
+    nozzle: {
+      readings: [
+        { diameterMm: 100, angleDeg: 0 },
+        { diameterMm: 100.02, angleDeg: 60 },
+        { diameterMm: 99.98, angleDeg: 120 },
+      ],
+      ...nozzle,
+    },
     weight: { readingsKg: [405, 406], instrumentId: SCALE.id },
     power: { declaredKw: 250, evidenceSeen: true },
     seals: [{ number: 'S-1', location: 'pump housing' }],
@@ -40,12 +74,30 @@ const parseInput = (nozzle: Record<string, unknown>, over: Record<string, unknow
     ...over,
   });
 
-function build(over: Partial<BuildInspectionRecordInput> & { nozzle?: Record<string, unknown>; classRules?: ClassRules; inputOver?: Record<string, unknown> } = {}) {
+function build(
+  over: Partial<BuildInspectionRecordInput> & {
+    nozzle?: Record<string, unknown>;
+    classRules?: ClassRules;
+    inputOver?: Record<string, unknown>;
+  } = {},
+) {
   const r = over.classRules ?? rules();
-  const input = parseInput(over.nozzle ?? { instrumentId: CALIPER.id, temperatureC: 30, material: 'aluminium' }, over.inputOver);
+  const input = parseInput(
+    over.nozzle ?? { instrumentId: CALIPER.id, temperatureC: 30, material: 'aluminium' },
+    over.inputOver,
+  );
   const nozzleInstrument = input.nozzle.instrumentId ? CALIPER : null;
   const decision = decideInspection({ input, rules: r, nozzleInstrument, weightInstrument: SCALE });
-  return buildInspectionRecord({ input, decision, rules: r, ruleVersion: 3, nozzleInstrument, weightInstrument: SCALE, boat: { declaredKw: 250, powerEvidence: 'dyno_sheet' }, ...over });
+  return buildInspectionRecord({
+    input,
+    decision,
+    rules: r,
+    ruleVersion: 3,
+    nozzleInstrument,
+    weightInstrument: SCALE,
+    boat: { declaredKw: 250, powerEvidence: 'dyno_sheet' },
+    ...over,
+  });
 }
 
 test('the built record parses with the stored shape and carries the rule version, scope and decision rule', () => {
@@ -54,15 +106,28 @@ test('the built record parses with the stored shape and carries the rule version
   assert.equal(record.results.ruleVersion, 3);
   assert.equal(record.results.scope, null);
   assert.equal(record.results.decisionRule, 'iso14253');
-  assert.deepEqual(record.results.rules.map((r) => r.rule), ['nozzle_max', 'weight_min', 'power_band', 'safety:helmet']);
-  assert.deepEqual(record.measurements.power, { declaredKw: 250, evidenceSeen: true, note: '', boatDeclaredKw: 250, boatPowerEvidence: 'dyno_sheet' });
+  assert.deepEqual(
+    record.results.rules.map((r) => r.rule),
+    ['nozzle_max', 'weight_min', 'power_band', 'safety:helmet'],
+  );
+  assert.deepEqual(record.measurements.power, {
+    declaredKw: 250,
+    evidenceSeen: true,
+    note: '',
+    boatDeclaredKw: 250,
+    boatPowerEvidence: 'dyno_sheet',
+  });
   assert.deepEqual(record.measurements.seals, [{ number: 'S-1', location: 'pump housing' }]);
 });
 
 test('the record stores the readings corrected to 20 °C (ISO 1:2022; aluminium 23e-6 /K [memory])', () => {
   const { nozzle } = build().measurements;
   assert.equal(nozzle.temperatureCorrected, true);
-  assert.deepEqual(nozzle.readings.map((r) => r.diameterMm), [100, 100.02, 99.98], 'the readings as read are kept beside the corrected ones');
+  assert.deepEqual(
+    nozzle.readings.map((r) => r.diameterMm),
+    [100, 100.02, 99.98],
+    'the readings as read are kept beside the corrected ones',
+  );
   assert.ok(Math.abs(nozzle.correctedReadingsMm[0] - 99.977005) < 1e-5, `${nozzle.correctedReadingsMm[0]}`);
   assert.equal(nozzle.temperatureC, 30);
   assert.equal(nozzle.material, 'aluminium');
@@ -78,7 +143,11 @@ test('the record stores the applied U from the instrument budget (JCGM 100:2008 
   assert.equal(typed.appliedExpandedUncertaintyMm, 0.08);
   assert.equal(typed.instrumentName, null);
   assert.equal(typed.temperatureCorrected, false);
-  assert.deepEqual(typed.correctedReadingsMm, [100, 100.02, 99.98], 'without a temperature the readings are used as read');
+  assert.deepEqual(
+    typed.correctedReadingsMm,
+    [100, 100.02, 99.98],
+    'without a temperature the readings are used as read',
+  );
 });
 
 test('the weighings are stored with their mean and U (JCGM 100:2008, 4.2.1–4.2.3)', () => {
@@ -88,12 +157,22 @@ test('the weighings are stored with their mean and U (JCGM 100:2008, 4.2.1–4.2
   assert.ok(Math.abs(w.expandedUncertaintyKg! - 1.41421) < 1e-5, `${w.expandedUncertaintyKg}`);
   // A class without a minimum weight decides nothing on it: the weighings are kept, the figures are null.
   const none = build({ classRules: rules({ weight: { minKg: null, includesDriver: true, defaultUncertaintyKg: 1 } }) });
-  assert.deepEqual(none.measurements.weight, { readingsKg: [405, 406], instrumentId: SCALE.id, instrumentName: 'Test scale', meanKg: null, expandedUncertaintyKg: null, uncertaintyBasis: null });
+  assert.deepEqual(none.measurements.weight, {
+    readingsKg: [405, 406],
+    instrumentId: SCALE.id,
+    instrumentName: 'Test scale',
+    meanKg: null,
+    expandedUncertaintyKg: null,
+    uncertaintyBasis: null,
+  });
   assert.ok(StoredInspectionRecord.safeParse(none).success);
 });
 
 test('a record that does not fit the shape is a programming error, not bad input', () => {
-  assert.throws(() => build({ ruleVersion: 0 }), (e: Error) => e.constructor === Error && /stored shape/.test(e.message));
+  assert.throws(
+    () => build({ ruleVersion: 0 }),
+    (e: Error) => e.constructor === Error && /stored shape/.test(e.message),
+  );
 });
 
 test('the report reads the corrected readings the record stores, not a recomputation', () => {
@@ -103,14 +182,36 @@ test('the report reads the corrected readings the record stores, not a recomputa
   assert.ok(Math.abs(read.nozzleExpandedUncertaintyMm! - 0.035119) < 1e-6);
   assert.equal(read.evidenceSeen, true);
   // What is stored is what counts: a stored list is read as it stands.
-  const stored = { ...record.measurements, nozzle: { ...record.measurements.nozzle, correctedReadingsMm: [99.5, 99.6, 99.7] } };
+  const stored = {
+    ...record.measurements,
+    nozzle: { ...record.measurements.nozzle, correctedReadingsMm: [99.5, 99.6, 99.7] },
+  };
   assert.deepEqual(readRecordForReport(stored, record.results).correctedReadingsMm, [99.5, 99.6, 99.7]);
 });
 
 test('the report reader on rows written by hand: readings as read without a temperature, nothing it cannot know', () => {
-  const bare = { nozzle: { readings: [{ diameterMm: 101.2, angleDeg: 0 }, { diameterMm: 101.35, angleDeg: 60 }] } };
-  assert.deepEqual(readRecordForReport(bare, { rules: [] }), { correctedReadingsMm: [101.2, 101.35], nozzleExpandedUncertaintyMm: null, evidenceSeen: false });
+  const bare = {
+    nozzle: {
+      readings: [
+        { diameterMm: 101.2, angleDeg: 0 },
+        { diameterMm: 101.35, angleDeg: 60 },
+      ],
+    },
+  };
+  assert.deepEqual(readRecordForReport(bare, { rules: [] }), {
+    correctedReadingsMm: [101.2, 101.35],
+    nozzleExpandedUncertaintyMm: null,
+    evidenceSeen: false,
+  });
   const warm = { nozzle: { ...bare.nozzle, temperatureC: 30, material: 'aluminium' } };
-  assert.equal(readRecordForReport(warm, { rules: [] }).correctedReadingsMm, null, 'a corrected reading that is not stored is not guessed');
-  assert.deepEqual(readRecordForReport(null, null), { correctedReadingsMm: [], nozzleExpandedUncertaintyMm: null, evidenceSeen: false });
+  assert.equal(
+    readRecordForReport(warm, { rules: [] }).correctedReadingsMm,
+    null,
+    'a corrected reading that is not stored is not guessed',
+  );
+  assert.deepEqual(readRecordForReport(null, null), {
+    correctedReadingsMm: [],
+    nozzleExpandedUncertaintyMm: null,
+    evidenceSeen: false,
+  });
 });

@@ -7,7 +7,14 @@
 // The 30-minute window is common practice (FIA International Sporting Code), no single source.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { describeWindow, formatInZone, instantFromWallClock, isWithinWindow, protestDeadline, relevantVersionForEntry } from '../../../../lib/core/protests/protest-window';
+import {
+  describeWindow,
+  formatInZone,
+  instantFromWallClock,
+  isWithinWindow,
+  protestDeadline,
+  relevantVersionForEntry,
+} from '../../../../lib/core/protests/protest-window';
 import { diffResultsRows } from '../../../../lib/core/results/diff-results-rows';
 import { parseResultsCsv, readCsvRecords } from '../../../../lib/core/results/parse-results-csv';
 
@@ -17,12 +24,17 @@ const minutes = (n: number) => n * 60_000;
 
 /** The zone's UTC offset at an instant, straight from Intl ("GMT+13:00" -> "+13:00"). */
 function intlOffset(instant: Date, timeZone: string): string {
-  const part = new Intl.DateTimeFormat('en-GB', { timeZone, timeZoneName: 'longOffset' }).formatToParts(instant).find((p) => p.type === 'timeZoneName')!.value;
+  const part = new Intl.DateTimeFormat('en-GB', { timeZone, timeZoneName: 'longOffset' })
+    .formatToParts(instant)
+    .find((p) => p.type === 'timeZoneName')!.value;
   return part === 'GMT' ? '+00:00' : part.replace('GMT', '');
 }
 
 test('reference check: the first Sunday of April 2027 is 4 April, and the last Sunday of September is 26 September', () => {
-  const sundays = (month: number) => Array.from({ length: 30 }, (_, i) => new Date(Date.UTC(2027, month, i + 1))).filter((d) => d.getUTCMonth() === month && d.getUTCDay() === 0).map((d) => d.getUTCDate());
+  const sundays = (month: number) =>
+    Array.from({ length: 30 }, (_, i) => new Date(Date.UTC(2027, month, i + 1)))
+      .filter((d) => d.getUTCMonth() === month && d.getUTCDay() === 0)
+      .map((d) => d.getUTCDate());
   assert.equal(sundays(3)[0], 4);
   assert.equal(sundays(8).at(-1), 26);
 });
@@ -43,7 +55,11 @@ test('results at 01:45 NZDT on the night NZDT ends, window 30 min: deadline 02:1
   assert.equal(intlOffset(deadline, NZ), '+13:00');
   // 02:15 happens twice that night; the offset says which one.
   assert.equal(formatInZone(deadline, NZ), 'Sun 4 Apr 2027, 02:15 UTC+13:00 (Pacific/Auckland)');
-  assert.equal(isWithinWindow(deadline, new Date(deadline.getTime() - minutes(1))), true, 'one minute before the deadline is in time');
+  assert.equal(
+    isWithinWindow(deadline, new Date(deadline.getTime() - minutes(1))),
+    true,
+    'one minute before the deadline is in time',
+  );
   assert.equal(isWithinWindow(deadline, deadline), true, 'the deadline instant itself is in time');
   assert.equal(isWithinWindow(deadline, new Date(deadline.getTime() + minutes(1))), false, 'one minute after is late');
 });
@@ -69,11 +85,21 @@ test('the night NZDT starts: results at 01:45 NZST, the deadline is 03:15 NZDT (
   assert.equal(intlOffset(published, NZ), '+12:00');
   const deadline = protestDeadline(published, 30);
   assert.equal(formatInZone(deadline, NZ), 'Sun 26 Sep 2027, 03:15 UTC+13:00 (Pacific/Auckland)');
-  const w = describeWindow({ publishedAt: published, windowMinutes: 30, timeZone: NZ, now: new Date(deadline.getTime() - minutes(1)) });
+  const w = describeWindow({
+    publishedAt: published,
+    windowMinutes: 30,
+    timeZone: NZ,
+    now: new Date(deadline.getTime() - minutes(1)),
+  });
   assert.equal(w.isOpen, true);
   assert.equal(w.secondsLeft, 60);
   assert.equal(w.deadlineLabel, 'Sun 26 Sep 2027, 03:15 UTC+13:00 (Pacific/Auckland)');
-  const late = describeWindow({ publishedAt: published, windowMinutes: 30, timeZone: NZ, now: new Date(deadline.getTime() + minutes(1)) });
+  const late = describeWindow({
+    publishedAt: published,
+    windowMinutes: 30,
+    timeZone: NZ,
+    now: new Date(deadline.getTime() + minutes(1)),
+  });
   assert.equal(late.isOpen, false);
   assert.equal(late.secondsLeft, 0);
 });
@@ -86,8 +112,16 @@ test('a hearing time typed in the meeting zone becomes the right instant (March 
 });
 
 test('a later results version restarts the window only for the entries it changed', () => {
-  const v1 = [{ position: 1, raceNumber: 10, entryId: 'a' }, { position: 2, raceNumber: 13, entryId: 'b' }, { position: 3, raceNumber: 16, entryId: 'c' }];
-  const v2 = [{ position: 1, raceNumber: 10, entryId: 'a' }, { position: 2, raceNumber: 16, entryId: 'c' }, { position: 3, raceNumber: 19, entryId: 'd' }];
+  const v1 = [
+    { position: 1, raceNumber: 10, entryId: 'a' },
+    { position: 2, raceNumber: 13, entryId: 'b' },
+    { position: 3, raceNumber: 16, entryId: 'c' },
+  ];
+  const v2 = [
+    { position: 1, raceNumber: 10, entryId: 'a' },
+    { position: 2, raceNumber: 16, entryId: 'c' },
+    { position: 3, raceNumber: 19, entryId: 'd' },
+  ];
   assert.deepEqual(diffResultsRows(null, v1), ['a', 'b', 'c']);
   assert.deepEqual(diffResultsRows(v1, v2), ['b', 'c', 'd'], 'b went away, c moved, d appeared; a kept its place');
   const versions = [
@@ -102,8 +136,14 @@ test('a later results version restarts the window only for the entries it change
 });
 
 test('results CSV (RFC 4180): quoted fields, doubled quotes, CRLF and a BOM; a bad line is named', () => {
-  assert.deepEqual(readCsvRecords('\uFEFFa,"b ""q"", c"\r\n1,2\n'), [['a', 'b "q", c'], ['1', '2']]);
-  assert.deepEqual(parseResultsCsv('position,race_number\r\n1,13\r\n2,"10"\r\n'), [{ position: 1, raceNumber: 13 }, { position: 2, raceNumber: 10 }]);
+  assert.deepEqual(readCsvRecords('\uFEFFa,"b ""q"", c"\r\n1,2\n'), [
+    ['a', 'b "q", c'],
+    ['1', '2'],
+  ]);
+  assert.deepEqual(parseResultsCsv('position,race_number\r\n1,13\r\n2,"10"\r\n'), [
+    { position: 1, raceNumber: 13 },
+    { position: 2, raceNumber: 10 },
+  ]);
   assert.throws(() => parseResultsCsv('position,race_number\n1,13\nsecond,10\n'), /Line 3: the position "second"/);
   assert.throws(() => parseResultsCsv('place,boat\n1,13\n'), /must name the columns/);
   assert.throws(() => readCsvRecords('a,"b\n'), /not closed/);

@@ -6,17 +6,41 @@
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { diffReports } from '../../../../lib/core/reports/report-diff';
-import { computeReportResults, type ReportBoatInput, type ReportInputs } from '../../../../lib/core/reports/parity-figures';
+import {
+  computeReportResults,
+  type ReportBoatInput,
+  type ReportInputs,
+} from '../../../../lib/core/reports/parity-figures';
 
 const boat = (entryId: string, raceNumber: number, powerKw: number, nozzleDiameterMm: number): ReportBoatInput => ({
-  entryId, raceNumber, boatName: `Boat ${raceNumber}`, powerKw, uPowerKw: 0, powerSource: 'declared', nozzleDiameterMm, uNozzleDiameterMm: 0,
-  inspectionId: null, inspectedAt: null,
+  entryId,
+  raceNumber,
+  boatName: `Boat ${raceNumber}`,
+  powerKw,
+  uPowerKw: 0,
+  powerSource: 'declared',
+  nozzleDiameterMm,
+  uNozzleDiameterMm: 0,
+  inspectionId: null,
+  inspectedAt: null,
 });
 const inputsWith = (boats: ReportBoatInput[], ruleVersion = 1): ReportInputs => ({
-  eventName: 'Test meeting', classCode: 'TC', className: 'Test class', ruleVersion: { id: `rv-${ruleVersion}`, version: ruleVersion },
+  eventName: 'Test meeting',
+  classCode: 'TC',
+  className: 'Test class',
+  ruleVersion: { id: `rv-${ruleVersion}`, version: ruleVersion },
   // Fresh water at 15 °C, 999.1026 kg/m³ (ITTC Recommended Procedure 7.5-02-01-03).
-  assumptions: { pumpEfficiency: 0.9, nozzleLossCoefficient: 0.02, inletLossCoefficient: 0.2, wakeFraction: 0, referenceSpeedsMs: [10, 20, 30] },
-  density: { densityKgM3: 999.1026, description: 'fresh water, 15 °C' }, boats, excluded: [], computedAt: '2026-01-01T00:00:00.000Z',
+  assumptions: {
+    pumpEfficiency: 0.9,
+    nozzleLossCoefficient: 0.02,
+    inletLossCoefficient: 0.2,
+    wakeFraction: 0,
+    referenceSpeedsMs: [10, 20, 30],
+  },
+  density: { densityKgM3: 999.1026, description: 'fresh water, 15 °C' },
+  boats,
+  excluded: [],
+  computedAt: '2026-01-01T00:00:00.000Z',
 });
 const version = (boats: ReportBoatInput[], ruleVersion = 1) => {
   const inputs = inputsWith(boats, ruleVersion);
@@ -47,7 +71,10 @@ test('added, removed and re-measured boats are listed with before and after; unc
   assert.equal(byId.a.change, 'changed');
   assert.equal(byId.a.nozzleBeforeMm, 100);
   assert.equal(byId.a.nozzleAfterMm, 99.5);
-  assert.ok(byId.a.staticThrustAfterN! < byId.a.staticThrustBeforeN!, 'a smaller nozzle at the same power: less static thrust');
+  assert.ok(
+    byId.a.staticThrustAfterN! < byId.a.staticThrustBeforeN!,
+    'a smaller nozzle at the same power: less static thrust',
+  );
   const aBefore = before.results.parity!.boats.find((x) => x.id === 'a')!;
   const aAfter = after.results.parity!.boats.find((x) => x.id === 'a')!;
   assert.equal(byId.a.staticThrustBeforeN, aBefore.staticThrustN);
@@ -70,7 +97,10 @@ test('added, removed and re-measured boats are listed with before and after; unc
 
 test('a new power alone counts as a change (its static thrust moves)', () => {
   const d = diffReports(version([A, B, C]), version([A, { ...B, powerKw: 300 }, C]));
-  assert.deepEqual(d.boats.map((x) => [x.entryId, x.change]), [['b', 'changed']]);
+  assert.deepEqual(
+    d.boats.map((x) => [x.entryId, x.change]),
+    [['b', 'changed']],
+  );
   assert.equal(d.boats[0].nozzleBeforeMm, d.boats[0].nozzleAfterMm);
   assert.ok(d.boats[0].staticThrustAfterN! < d.boats[0].staticThrustBeforeN!, 'less power, less thrust (T0 ∝ P^(2/3))');
 });
@@ -84,8 +114,14 @@ test('a new rule version is reported; an empty version has no spread and lists e
   assert.equal(diffReports(version([A, B]), version([A, B], 2)).ruleVersionChanged, true);
   const fromEmpty = diffReports(version([]), version([A, B], 2));
   assert.equal(fromEmpty.spreadBeforePercent, null);
-  assert.deepEqual(fromEmpty.boats.map((x) => x.change), ['added', 'added']);
+  assert.deepEqual(
+    fromEmpty.boats.map((x) => x.change),
+    ['added', 'added'],
+  );
   const toEmpty = diffReports(version([A, B]), version([]));
   assert.equal(toEmpty.spreadAfterPercent, null);
-  assert.deepEqual(toEmpty.boats.map((x) => x.change), ['removed', 'removed']);
+  assert.deepEqual(
+    toEmpty.boats.map((x) => x.change),
+    ['removed', 'removed'],
+  );
 });

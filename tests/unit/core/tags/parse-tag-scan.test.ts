@@ -30,7 +30,8 @@ test('a tag URL gives its token, with or without a trailing slash, query or frag
     `https://boreline.example/base/path/t/${TOKEN}`,
     `/t/${TOKEN}`,
     `  https://boreline.example/t/${TOKEN}  `,
-  ]) assert.equal(parseTagScan(text), TOKEN, text);
+  ])
+    assert.equal(parseTagScan(text), TOKEN, text);
 });
 
 test('the host is not checked: a URL from another host that ends in /t/TOKEN gives the token (the server decides whether it is a tag)', () => {
@@ -49,7 +50,8 @@ test('URLs without the tag path, or with more after the token, are not tokens', 
     `https://boreline.example/T/${TOKEN}`, // the path is case-sensitive (RFC 3986 section 6.2.2.1)
     `https://boreline.example/t/${TOKEN}//`,
     'https://boreline.example/',
-  ]) assert.equal(parseTagScan(text), null, text);
+  ])
+    assert.equal(parseTagScan(text), null, text);
 });
 
 test('too short, too long or outside the alphabet: null', () => {
@@ -61,10 +63,21 @@ test('too short, too long or outside the alphabet: null', () => {
   assert.equal(parseTagScan('a'.repeat(65)), null, '65 characters');
   assert.equal(parseTagScan(`/t/${'a'.repeat(65)}`), null, '65 characters in a URL');
   for (const text of [
-    'abc def gh', 'abcd.efgh', 'abcd+efgh', 'abcd/efgh', 'abcd=efgh', // '+', '/', '=' are base64, not base64url (RFC 4648 sections 4 and 5)
-    'abcd%41efgh', 'äbcdefgh', 'ａｂｃｄｅｆｇｈ', 'abcdefgh\u0000', "abcd'efgh", '<script>x</script>',
-    `${TOKEN} ${TOKEN}`, `${TOKEN}\n${TOKEN}`,
-  ]) assert.equal(parseTagScan(text), null, JSON.stringify(text));
+    'abc def gh',
+    'abcd.efgh',
+    'abcd+efgh',
+    'abcd/efgh',
+    'abcd=efgh', // '+', '/', '=' are base64, not base64url (RFC 4648 sections 4 and 5)
+    'abcd%41efgh',
+    'äbcdefgh',
+    'ａｂｃｄｅｆｇｈ',
+    'abcdefgh\u0000',
+    "abcd'efgh",
+    '<script>x</script>',
+    `${TOKEN} ${TOKEN}`,
+    `${TOKEN}\n${TOKEN}`,
+  ])
+    assert.equal(parseTagScan(text), null, JSON.stringify(text));
 });
 
 test('garbage and very long input: null, quickly', () => {
@@ -79,6 +92,9 @@ test('garbage and very long input: null, quickly', () => {
     const started = performance.now();
     assert.equal(parseTagScan(text), null);
     // Linear-time matching: a megabyte takes milliseconds; a second is far beyond that (common practice, no source).
-    assert.ok(performance.now() - started < 1000, `${text.length} characters took ${Math.round(performance.now() - started)} ms`);
+    assert.ok(
+      performance.now() - started < 1000,
+      `${text.length} characters took ${Math.round(performance.now() - started)} ms`,
+    );
   }
 });

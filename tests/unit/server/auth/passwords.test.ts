@@ -13,7 +13,11 @@ test('verifies against the scrypt test vectors of RFC 7914, section 12 (first 32
   const v2 = `scrypt$1024$8$16$${Buffer.from('NaCl').toString('base64url')}$${b64url('fdbabe1c9d3472007856e7190d01e9fe7c6ad7cbc8237830e77376634b373162')}`;
   const v3 = `scrypt$16384$8$1$${Buffer.from('SodiumChloride').toString('base64url')}$${b64url('7023bdcb3afd7348461c06cd81fd38ebfda8fbba904f8e3ea9b543f6545da1f2')}`;
   assert.deepEqual(await verifyPassword('password', v2), { isMatch: true, needsRehash: true });
-  assert.deepEqual(await verifyPassword('pleaseletmein', v3), { isMatch: true, needsRehash: true }, 'other parameters than ours: rehash');
+  assert.deepEqual(
+    await verifyPassword('pleaseletmein', v3),
+    { isMatch: true, needsRehash: true },
+    'other parameters than ours: rehash',
+  );
   assert.equal((await verifyPassword('Password', v2)).isMatch, false);
 });
 
@@ -33,7 +37,15 @@ test('a bcrypt hash made by bcryptjs (the reference implementation on the regist
 });
 
 test('anything unreadable never matches', async () => {
-  for (const stored of [null, '', 'plain', 'scrypt$1$2$3', 'scrypt$x$8$1$AAAA$AAAA', 'scrypt$16384$8$1$$', `scrypt$${2 ** 24}$8$1$AAAA$AAAA`]) {
+  for (const stored of [
+    null,
+    '',
+    'plain',
+    'scrypt$1$2$3',
+    'scrypt$x$8$1$AAAA$AAAA',
+    'scrypt$16384$8$1$$',
+    `scrypt$${2 ** 24}$8$1$AAAA$AAAA`,
+  ]) {
     assert.equal((await verifyPassword('x', stored)).isMatch, false, String(stored));
   }
 });

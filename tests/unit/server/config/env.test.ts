@@ -38,8 +38,14 @@ test('an empty value in .env counts as unset', () => {
 
 test('values that are set are read as their types', () => {
   const env = parseServerEnv({
-    DATABASE_URL: DB, NEXTAUTH_URL: 'https://meet.example.org', SIGN_UP_LIMIT_PER_HOUR: '1000', TRUSTED_PROXY_HOPS: '2',
-    BORELINE_MODE: 'serve', BORELINE_DEV_TOOLS: '1', NODE_ENV: 'production', MAIL_FAKE_HTTP_PORT: '2634',
+    DATABASE_URL: DB,
+    NEXTAUTH_URL: 'https://meet.example.org',
+    SIGN_UP_LIMIT_PER_HOUR: '1000',
+    TRUSTED_PROXY_HOPS: '2',
+    BORELINE_MODE: 'serve',
+    BORELINE_DEV_TOOLS: '1',
+    NODE_ENV: 'production',
+    MAIL_FAKE_HTTP_PORT: '2634',
   });
   assert.equal(env.NEXTAUTH_URL, 'https://meet.example.org');
   assert.equal(env.SIGN_UP_LIMIT_PER_HOUR, 1000);
@@ -55,7 +61,13 @@ test('bad configuration is refused, naming every bad variable', () => {
   assert.throws(() => parseServerEnv({ DATABASE_URL: 'not an address' }), /DATABASE_URL is not an address/);
   let message = '';
   try {
-    parseServerEnv({ DATABASE_URL: DB, SIGN_UP_LIMIT_PER_HOUR: 'many', PUBLIC_API_RATE_LIMIT_PER_MINUTE: '-5', NEXTAUTH_URL: 'meet.example.org', SMTP_URL: '::' });
+    parseServerEnv({
+      DATABASE_URL: DB,
+      SIGN_UP_LIMIT_PER_HOUR: 'many',
+      PUBLIC_API_RATE_LIMIT_PER_MINUTE: '-5',
+      NEXTAUTH_URL: 'meet.example.org',
+      SMTP_URL: '::',
+    });
   } catch (err) {
     message = (err as Error).message;
   }
@@ -63,8 +75,14 @@ test('bad configuration is refused, naming every bad variable', () => {
     assert.match(message, new RegExp(`^  - ${name} `, 'm'), name);
   }
   assert.throws(() => parseServerEnv({ DATABASE_URL: DB, DB_POOL_MAX: '1.5' }), /DB_POOL_MAX must be a whole number/);
-  assert.throws(() => parseServerEnv({ DATABASE_URL: DB, SIGN_UP_LIMIT_PER_HOUR: 'many' }), /SIGN_UP_LIMIT_PER_HOUR must be a whole number/);
-  assert.throws(() => parseServerEnv({ DATABASE_URL: DB, MAIL_FAKE_HTTP_PORT: '70000' }), /MAIL_FAKE_HTTP_PORT must be a port number/);
+  assert.throws(
+    () => parseServerEnv({ DATABASE_URL: DB, SIGN_UP_LIMIT_PER_HOUR: 'many' }),
+    /SIGN_UP_LIMIT_PER_HOUR must be a whole number/,
+  );
+  assert.throws(
+    () => parseServerEnv({ DATABASE_URL: DB, MAIL_FAKE_HTTP_PORT: '70000' }),
+    /MAIL_FAKE_HTTP_PORT must be a port number/,
+  );
   assert.throws(() => parseServerEnv({ DATABASE_URL: DB, NODE_ENV: 'staging' }), /NODE_ENV /);
 });
 

@@ -8,7 +8,13 @@
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { getClientAddress, readTrustedProxyHops } from '../../../../lib/server/http/client-address';
-import { forwardHeaders, isLoopbackHost, parseProxyHops, readListenHost, socketAddress } from '../../../../scripts/forwarding.mjs';
+import {
+  forwardHeaders,
+  isLoopbackHost,
+  parseProxyHops,
+  readListenHost,
+  socketAddress,
+} from '../../../../scripts/forwarding.mjs';
 
 const h = (init: Record<string, string>) => new Headers(init);
 
@@ -21,22 +27,37 @@ function seenByApp(sent: Record<string, string>, socket: string, hops: number) {
 
 test('no proxy declared (hops 0): the socket is the client, whatever X-Forwarded-For or X-Real-IP say', () => {
   assert.equal(seenByApp({}, '203.0.113.9', 0), '203.0.113.9');
-  assert.equal(seenByApp({ 'x-forwarded-for': '198.51.100.1' }, '203.0.113.9', 0), '203.0.113.9', 'a forged header buys nothing');
+  assert.equal(
+    seenByApp({ 'x-forwarded-for': '198.51.100.1' }, '203.0.113.9', 0),
+    '203.0.113.9',
+    'a forged header buys nothing',
+  );
   assert.equal(seenByApp({ 'x-forwarded-for': '1.1.1.1, 2.2.2.2, 3.3.3.3' }, '203.0.113.9', 0), '203.0.113.9');
   assert.equal(seenByApp({ 'x-real-ip': '198.51.100.1' }, '203.0.113.9', 0), '203.0.113.9', 'X-Real-IP is never read');
   assert.equal(seenByApp({}, '::ffff:127.0.0.1', 0), '127.0.0.1', 'an IPv4-mapped socket address is the IPv4 address');
 });
 
-test('one proxy declared: the entry the proxy appended (left of the app\'s own) is the client', () => {
+test("one proxy declared: the entry the proxy appended (left of the app's own) is the client", () => {
   // The proxy at 10.0.0.7 appended the client 203.0.113.9 after whatever the client forged.
   assert.equal(seenByApp({ 'x-forwarded-for': '203.0.113.9' }, '10.0.0.7', 1), '203.0.113.9');
-  assert.equal(seenByApp({ 'x-forwarded-for': '1.2.3.4, 203.0.113.9' }, '10.0.0.7', 1), '203.0.113.9', 'a forged first entry is ignored');
-  assert.equal(getClientAddress(h({ 'x-forwarded-for': ' 6.6.6.6 ,7.7.7.7,  203.0.113.9 , 10.0.0.7' }), 1), '203.0.113.9');
+  assert.equal(
+    seenByApp({ 'x-forwarded-for': '1.2.3.4, 203.0.113.9' }, '10.0.0.7', 1),
+    '203.0.113.9',
+    'a forged first entry is ignored',
+  );
+  assert.equal(
+    getClientAddress(h({ 'x-forwarded-for': ' 6.6.6.6 ,7.7.7.7,  203.0.113.9 , 10.0.0.7' }), 1),
+    '203.0.113.9',
+  );
 });
 
-test('two proxies (a CDN, then a load balancer): two places left of the app\'s own entry', () => {
+test("two proxies (a CDN, then a load balancer): two places left of the app's own entry", () => {
   assert.equal(seenByApp({ 'x-forwarded-for': '1.2.3.4, 198.51.100.20, 10.0.0.7' }, '10.0.0.8', 2), '198.51.100.20');
-  assert.equal(getClientAddress(h({ 'x-forwarded-for': '198.51.100.20' }), 2), '198.51.100.20', 'a shorter chain falls back to its first entry');
+  assert.equal(
+    getClientAddress(h({ 'x-forwarded-for': '198.51.100.20' }), 2),
+    '198.51.100.20',
+    'a shorter chain falls back to its first entry',
+  );
 });
 
 test('without any entry: local; IPv6 is lower-cased; a huge header is capped', () => {
@@ -47,8 +68,14 @@ test('without any entry: local; IPv6 is lower-cased; a huge header is capped', (
   assert.equal(getClientAddress(h({ 'x-forwarded-for': 'x'.repeat(500) }), 0).length, 64);
 });
 
-test('without a declared proxy the client\'s own forwarding headers are dropped; behind one they are kept', () => {
-  const sent = { host: 'app', 'x-forwarded-host': 'evil.example', 'x-forwarded-proto': 'https', forwarded: 'for=1.2.3.4', 'x-real-ip': '1.2.3.4' };
+test("without a declared proxy the client's own forwarding headers are dropped; behind one they are kept", () => {
+  const sent = {
+    host: 'app',
+    'x-forwarded-host': 'evil.example',
+    'x-forwarded-proto': 'https',
+    forwarded: 'for=1.2.3.4',
+    'x-real-ip': '1.2.3.4',
+  };
   const direct = forwardHeaders({ ...sent }, '203.0.113.9', 0);
   assert.deepEqual(Object.keys(direct).sort(), ['host', 'x-forwarded-for']);
   const proxied = forwardHeaders({ ...sent }, '10.0.0.7', 1);

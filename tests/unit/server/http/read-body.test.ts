@@ -6,7 +6,13 @@
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { AppError } from '../../../../lib/core/errors';
-import { readCappedBytes, readJsonBody, readRawText, readFormBody, type FormRefusals } from '../../../../lib/server/http/read-body';
+import {
+  readCappedBytes,
+  readJsonBody,
+  readRawText,
+  readFormBody,
+  type FormRefusals,
+} from '../../../../lib/server/http/read-body';
 
 const KB = 1024;
 
@@ -20,18 +26,21 @@ function countingStream(count: number, size: number, fill = 0x61, stallAfter = I
   let bytes = 0;
   let onCancel: () => void = () => undefined;
   const cancelled = new Promise<void>((resolve) => (onCancel = resolve));
-  const stream = new ReadableStream<Uint8Array>({
-    pull(controller) {
-      if (made === count) return controller.close();
-      if (bytes >= stallAfter) return new Promise<void>(() => undefined);
-      made++;
-      bytes += size;
-      controller.enqueue(new Uint8Array(size).fill(fill));
+  const stream = new ReadableStream<Uint8Array>(
+    {
+      pull(controller) {
+        if (made === count) return controller.close();
+        if (bytes >= stallAfter) return new Promise<void>(() => undefined);
+        made++;
+        bytes += size;
+        controller.enqueue(new Uint8Array(size).fill(fill));
+      },
+      cancel() {
+        onCancel();
+      },
     },
-    cancel() {
-      onCancel();
-    },
-  }, { highWaterMark: 0 });
+    { highWaterMark: 0 },
+  );
   return { stream, pulled: () => bytes, cancelled };
 }
 
@@ -58,11 +67,20 @@ test('a body under the cap is read whole, byte for byte', async () => {
 test('a stream with no length is refused with 413 as soon as it passes the cap; at most the linger budget more is read, then it is cancelled', async () => {
   const { stream, pulled, cancelled } = countingStream(1000, 64 * KB); // 64 MB on offer
   let pulledAtRefusal = -1;
-  const refuse = () => ((pulledAtRefusal = pulled()), new AppError('too_large', 413, 'The body is larger than 8192 bytes.'));
+  const refuse = () => (
+    (pulledAtRefusal = pulled()),
+    new AppError('too_large', 413, 'The body is larger than 8192 bytes.')
+  );
   const t = Date.now();
-  await assert.rejects(readCappedBytes(post(stream), 8 * KB, refuse, { bytes: 256 * KB, ms: 150 }), isAppError(413, 'too_large', /8192 bytes/));
+  await assert.rejects(
+    readCappedBytes(post(stream), 8 * KB, refuse, { bytes: 256 * KB, ms: 150 }),
+    isAppError(413, 'too_large', /8192 bytes/),
+  );
   // Refused on the chunk that crossed the cap (plus at most one the Request pulled ahead).
-  assert.ok(pulledAtRefusal > 8 * KB && pulledAtRefusal <= 2 * 64 * KB, `refused after ${pulledAtRefusal} bytes for an 8 KB cap`);
+  assert.ok(
+    pulledAtRefusal > 8 * KB && pulledAtRefusal <= 2 * 64 * KB,
+    `refused after ${pulledAtRefusal} bytes for an 8 KB cap`,
+  );
   // Then at most the linger budget is read and thrown away, nothing more is pulled, and the stream is
   // cancelled when the linger time is up; the rest is never pulled.
   await cancelled;
@@ -73,52 +91,102 @@ test('a stream with no length is refused with 413 as soon as it passes the cap; 
 test('a client that goes quiet after the cap is cut off when the linger time runs out', async () => {
   const { stream, cancelled } = countingStream(1000, KB, 0x61, 16 * KB);
   const t = Date.now();
-  await assert.rejects(readCappedBytes(post(stream), 8 * KB, undefined, { bytes: 1024 * KB, ms: 150 }), isAppError(413, 'too_large'));
+  await assert.rejects(
+    readCappedBytes(post(stream), 8 * KB, undefined, { bytes: 1024 * KB, ms: 150 }),
+    isAppError(413, 'too_large'),
+  );
   await cancelled;
   assert.ok(Date.now() - t >= 140 && Date.now() - t < 2000, `cancelled after ${Date.now() - t} ms`);
 });
 
 test('a declared Content-Length over the cap is refused before a byte is pulled', async () => {
   const { stream, pulled } = countingStream(100, KB);
-  await assert.rejects(readCappedBytes(post(stream, { 'content-length': String(100 * KB) }), 8 * KB), isAppError(413, 'too_large'));
+  await assert.rejects(
+    readCappedBytes(post(stream, { 'content-length': String(100 * KB) }), 8 * KB),
+    isAppError(413, 'too_large'),
+  );
   await new Promise((r) => setTimeout(r, 20));
   assert.equal(pulled(), 0);
 });
 
 test('the caller chooses the 413 it throws; a body exactly at the cap is accepted', async () => {
   const custom = () => new AppError('too_large', 413, 'The webhook body is too large.');
-  await assert.rejects(readCappedBytes(post(countingStream(3, KB).stream), 2 * KB, custom), isAppError(413, 'too_large', /webhook/));
+  await assert.rejects(
+    readCappedBytes(post(countingStream(3, KB).stream), 2 * KB, custom),
+    isAppError(413, 'too_large', /webhook/),
+  );
   assert.equal((await readCappedBytes(post(countingStream(2, KB).stream), 2 * KB)).byteLength, 2 * KB);
-  assert.equal((await readCappedBytes(new Request('http://test.invalid/x', { method: 'POST' }), KB)).byteLength, 0, 'no body reads as no bytes');
+  assert.equal(
+    (await readCappedBytes(new Request('http://test.invalid/x', { method: 'POST' }), KB)).byteLength,
+    0,
+    'no body reads as no bytes',
+  );
 });
 
 test('raw text keeps the exact characters, even when a UTF-8 sequence is split across chunks', async () => {
   const parts = [new Uint8Array([0x7b, 0x22, 0x6e, 0x22, 0x3a, 0x22, 0xc3]), new Uint8Array([0xa9, 0x22, 0x7d])]; // {"n":"é"} split inside é
-  const stream = new ReadableStream<Uint8Array>({ start(c) { for (const p of parts) c.enqueue(p); c.close(); } });
+  const stream = new ReadableStream<Uint8Array>({
+    start(c) {
+      for (const p of parts) c.enqueue(p);
+      c.close();
+    },
+  });
   assert.equal(await readRawText(post(stream), KB), '{"n":"é"}');
 });
 
 test('JSON: 415 for another type, 400-worthy SyntaxError when it does not parse, 413 past the cap, the value otherwise', async () => {
-  await assert.rejects(readJsonBody(post('{}', { 'content-type': 'text/plain' })), isAppError(415, 'unsupported_media_type'));
+  await assert.rejects(
+    readJsonBody(post('{}', { 'content-type': 'text/plain' })),
+    isAppError(415, 'unsupported_media_type'),
+  );
   await assert.rejects(readJsonBody(post('{"a": ', { 'content-type': 'application/json' })), SyntaxError);
-  await assert.rejects(readJsonBody(post(countingStream(100, KB, 0x20).stream, { 'content-type': 'application/json' }), 64 * KB), isAppError(413, 'too_large'));
-  assert.deepEqual(await readJsonBody(post('{"powerKw": 200}', { 'content-type': 'application/json; charset=utf-8' })), { powerKw: 200 });
+  await assert.rejects(
+    readJsonBody(post(countingStream(100, KB, 0x20).stream, { 'content-type': 'application/json' }), 64 * KB),
+    isAppError(413, 'too_large'),
+  );
+  assert.deepEqual(
+    await readJsonBody(post('{"powerKw": 200}', { 'content-type': 'application/json; charset=utf-8' })),
+    { powerKw: 200 },
+  );
 });
 
 test('forms: 415 and 413 name the field; an unreadable form is 400; a good one parses', async () => {
-  const say: FormRefusals = { field: 'file', wrongType: 'Send a form.', tooLarge: 'Too large.', tooLargeField: 'The file is too large.', unreadable: 'Unreadable.' };
-  await assert.rejects(readFormBody(post('{}', { 'content-type': 'application/json' }), KB, say), (e) => isAppError(415, 'unsupported_media_type')(e) && (e as AppError).details !== undefined);
-  await assert.rejects(readFormBody(post(countingStream(100, KB).stream, { 'content-type': 'multipart/form-data; boundary=b' }), 4 * KB, say), (e: unknown) => {
-    isAppError(413, 'too_large', /Too large/)(e);
-    assert.deepEqual((e as AppError).details, [{ field: 'file', message: 'The file is too large.' }]);
-    return true;
-  });
-  await assert.rejects(readFormBody(post('not a form at all', { 'content-type': 'multipart/form-data; boundary=b' }), KB, say), isAppError(400, 'invalid_input', /Unreadable/));
+  const say: FormRefusals = {
+    field: 'file',
+    wrongType: 'Send a form.',
+    tooLarge: 'Too large.',
+    tooLargeField: 'The file is too large.',
+    unreadable: 'Unreadable.',
+  };
+  await assert.rejects(
+    readFormBody(post('{}', { 'content-type': 'application/json' }), KB, say),
+    (e) => isAppError(415, 'unsupported_media_type')(e) && (e as AppError).details !== undefined,
+  );
+  await assert.rejects(
+    readFormBody(
+      post(countingStream(100, KB).stream, { 'content-type': 'multipart/form-data; boundary=b' }),
+      4 * KB,
+      say,
+    ),
+    (e: unknown) => {
+      isAppError(413, 'too_large', /Too large/)(e);
+      assert.deepEqual((e as AppError).details, [{ field: 'file', message: 'The file is too large.' }]);
+      return true;
+    },
+  );
+  await assert.rejects(
+    readFormBody(post('not a form at all', { 'content-type': 'multipart/form-data; boundary=b' }), KB, say),
+    isAppError(400, 'invalid_input', /Unreadable/),
+  );
   const form = new FormData();
   form.set('kind', 'dyno');
   form.set('file', new Blob([new Uint8Array([1, 2, 3])]), 'x.bin');
   const encoded = new Response(form);
-  const parsed = await readFormBody(post(new Uint8Array(await encoded.arrayBuffer()), { 'content-type': encoded.headers.get('content-type')! }), KB, say);
+  const parsed = await readFormBody(
+    post(new Uint8Array(await encoded.arrayBuffer()), { 'content-type': encoded.headers.get('content-type')! }),
+    KB,
+    say,
+  );
   assert.equal(parsed.get('kind'), 'dyno');
   assert.deepEqual(new Uint8Array(await (parsed.get('file') as File).arrayBuffer()), new Uint8Array([1, 2, 3]));
 });

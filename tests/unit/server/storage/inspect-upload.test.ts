@@ -7,7 +7,13 @@ import crypto from 'node:crypto';
 import { PNG } from 'pngjs';
 import { PDFDocument } from 'pdf-lib';
 import { AppError } from '../../../../lib/core/errors';
-import { inspectUpload, safeFileName, DOCUMENT_TYPES, PHOTO_TYPES, EVIDENCE_TYPES } from '../../../../lib/server/storage/inspect-upload';
+import {
+  inspectUpload,
+  safeFileName,
+  DOCUMENT_TYPES,
+  PHOTO_TYPES,
+  EVIDENCE_TYPES,
+} from '../../../../lib/server/storage/inspect-upload';
 
 const MB = 1024 * 1024;
 
@@ -17,11 +23,19 @@ function pngBytes() {
   return PNG.sync.write(png); // pngjs writes the real signature, IHDR, IDAT and IEND
 }
 // ITU-T T.81 B.1.1.3 SOI (FF D8) then an APP0 "JFIF" segment (JFIF 1.02) as cameras and editors write.
-const JPEG = Buffer.from([0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10, 0x4a, 0x46, 0x49, 0x46, 0x00, 0x01, 0x02, 0x00, 0x00, 0x01, 0x00, 0x01, 0x00, 0x00, 0xff, 0xd9]);
+const JPEG = Buffer.from([
+  0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10, 0x4a, 0x46, 0x49, 0x46, 0x00, 0x01, 0x02, 0x00, 0x00, 0x01, 0x00, 0x01, 0x00,
+  0x00, 0xff, 0xd9,
+]);
 // ISO 32000-1 §7.5.2 header line; a minimal body follows.
 const PDF_TEXT = Buffer.from('%PDF-1.7\n%\xe2\xe3\xcf\xd3\n1 0 obj <<>> endobj\ntrailer <<>>\n%%EOF\n', 'latin1');
 // RFC 9649: "RIFF", little-endian size, "WEBP", then a chunk header.
-const WEBP = Buffer.concat([Buffer.from('RIFF'), Buffer.from([0x1a, 0, 0, 0]), Buffer.from('WEBPVP8 '), Buffer.alloc(18)]);
+const WEBP = Buffer.concat([
+  Buffer.from('RIFF'),
+  Buffer.from([0x1a, 0, 0, 0]),
+  Buffer.from('WEBPVP8 '),
+  Buffer.alloc(18),
+]);
 /** ISO/IEC 14496-12 §4.3 File Type Box: size, 'ftyp', major brand, minor version, compatible brands. */
 function ftyp(major: string, compatible: string[]) {
   const box = Buffer.alloc(16 + 4 * compatible.length);
@@ -32,7 +46,8 @@ function ftyp(major: string, compatible: string[]) {
   return Buffer.concat([box, Buffer.alloc(32)]);
 }
 
-const inspect = (bytes: Uint8Array, declaredName: string, allowed = EVIDENCE_TYPES, maxBytes = 10 * MB) => inspectUpload({ bytes, declaredName, allowed, maxBytes });
+const inspect = (bytes: Uint8Array, declaredName: string, allowed = EVIDENCE_TYPES, maxBytes = 10 * MB) =>
+  inspectUpload({ bytes, declaredName, allowed, maxBytes });
 const isAppError = (status: number, code: string, message?: RegExp) => (err: unknown) =>
   err instanceof AppError && err.status === status && err.code === code && (!message || message.test(err.message));
 
@@ -63,10 +78,22 @@ test('the declared name never decides: a PNG named .pdf is a PNG and gets a .png
 
 test('a text file renamed .png is refused with 415, saying what it is and what is allowed', () => {
   const text = Buffer.from('this is not a picture\nreally\n');
-  assert.throws(() => inspect(text, 'boat.png', PHOTO_TYPES), isAppError(415, 'unsupported_type', /plain text.*Allowed: PNG, JPEG, WebP, HEIC, HEIF/));
-  assert.throws(() => inspect(ftyp('avif', ['avif', 'mif1']), 'x.heic', PHOTO_TYPES), isAppError(415, 'unsupported_type', /AVIF/));
-  assert.throws(() => inspect(Buffer.from('GIF89a\x01\x00', 'latin1'), 'x.png', PHOTO_TYPES), isAppError(415, 'unsupported_type', /GIF/));
-  assert.throws(() => inspect(ftyp('isom', ['isom']), 'clip.mp4', DOCUMENT_TYPES), isAppError(415, 'unsupported_type', /MP4 video.*Allowed: PDF, PNG, JPEG, WebP/));
+  assert.throws(
+    () => inspect(text, 'boat.png', PHOTO_TYPES),
+    isAppError(415, 'unsupported_type', /plain text.*Allowed: PNG, JPEG, WebP, HEIC, HEIF/),
+  );
+  assert.throws(
+    () => inspect(ftyp('avif', ['avif', 'mif1']), 'x.heic', PHOTO_TYPES),
+    isAppError(415, 'unsupported_type', /AVIF/),
+  );
+  assert.throws(
+    () => inspect(Buffer.from('GIF89a\x01\x00', 'latin1'), 'x.png', PHOTO_TYPES),
+    isAppError(415, 'unsupported_type', /GIF/),
+  );
+  assert.throws(
+    () => inspect(ftyp('isom', ['isom']), 'clip.mp4', DOCUMENT_TYPES),
+    isAppError(415, 'unsupported_type', /MP4 video.*Allowed: PDF, PNG, JPEG, WebP/),
+  );
   assert.throws(() => inspect(Buffer.alloc(0), 'empty.pdf'), isAppError(415, 'unsupported_type', /empty/));
 });
 
@@ -93,7 +120,7 @@ test('hostile names are made safe', () => {
   assert.equal(safeFileName('a\u0000b.pdf', pdf), 'ab.pdf');
   assert.equal(safeFileName('CON', pdf), '_CON.pdf');
   assert.equal(safeFileName('lpt1.pdf', pdf), '_lpt1.pdf');
-  assert.equal(safeFileName('quote"s and \'ticks\' <b>|?*.pdf', pdf), 'quote_s and _ticks_ _b____.pdf');
+  assert.equal(safeFileName("quote\"s and 'ticks' <b>|?*.pdf", pdf), 'quote_s and _ticks_ _b____.pdf');
   assert.equal(safeFileName('folder/sub/"report".pdf', pdf), '_report_.pdf');
   assert.equal(safeFileName('invoice\u202Efdp.exe', pdf), 'invoicefdp.pdf'); // a right-to-left override removed
   assert.equal(safeFileName('...', pdf), 'upload.pdf');
@@ -113,5 +140,8 @@ test('hostile names are made safe', () => {
 test('the type groups are as documented', () => {
   assert.deepEqual([...DOCUMENT_TYPES], ['application/pdf', 'image/png', 'image/jpeg', 'image/webp']);
   assert.deepEqual([...PHOTO_TYPES], ['image/png', 'image/jpeg', 'image/webp', 'image/heic', 'image/heif']);
-  assert.deepEqual(new Set(EVIDENCE_TYPES), new Set([...PHOTO_TYPES, 'application/pdf', 'video/mp4', 'video/quicktime']));
+  assert.deepEqual(
+    new Set(EVIDENCE_TYPES),
+    new Set([...PHOTO_TYPES, 'application/pdf', 'video/mp4', 'video/quicktime']),
+  );
 });

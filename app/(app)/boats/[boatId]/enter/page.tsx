@@ -24,10 +24,14 @@ export default async function EnterBoatPage({ params }: { params: Promise<{ boat
   const enteredAt = mine.entries.map((e) => e.eventId);
   return (
     <div className="max-w-2xl space-y-5">
-      <p><Link href={`/boats/${mine.boat.id}`}>← {mine.boat.name}</Link></p>
+      <p>
+        <Link href={`/boats/${mine.boat.id}`}>← {mine.boat.name}</Link>
+      </p>
       <h1>Enter {mine.boat.name}</h1>
       {events.length === 0 ? (
-        <p className="card text-ink-soft">No meeting is taking entries just now. Organisers open entries once their class rules are published.</p>
+        <p className="card text-ink-soft">
+          No meeting is taking entries just now. Organisers open entries once their class rules are published.
+        </p>
       ) : (
         <EnterForm boat={mine.boat} events={events} enteredEventIds={enteredAt} />
       )}

@@ -8,15 +8,23 @@ import { useFormAction } from '@/components/forms/use-form-action';
 
 export function NewClassForm({ eventId, copyable }: { eventId: string; copyable: { id: string; label: string }[] }) {
   const router = useRouter();
-  const { state, isPending, form } = useFormAction(async (_prev: FormState, f: FormData): Promise<FormState> => {
-    const copy = String(f.get('copyFromClassId') ?? '');
-    const answer = await requestJson<{ id: string }>(`/api/events/${eventId}/classes`, {
-      body: { name: f.get('name'), code: f.get('code'), description: f.get('description') ?? '', copyFromClassId: copy || null },
-    });
-    if (!answer.ok) return refusalState(answer);
-    router.push(`/organise/events/${eventId}/classes/${answer.data.id}`);
-    return { ok: true };
-  }, { ok: false });
+  const { state, isPending, form } = useFormAction(
+    async (_prev: FormState, f: FormData): Promise<FormState> => {
+      const copy = String(f.get('copyFromClassId') ?? '');
+      const answer = await requestJson<{ id: string }>(`/api/events/${eventId}/classes`, {
+        body: {
+          name: f.get('name'),
+          code: f.get('code'),
+          description: f.get('description') ?? '',
+          copyFromClassId: copy || null,
+        },
+      });
+      if (!answer.ok) return refusalState(answer);
+      router.push(`/organise/events/${eventId}/classes/${answer.data.id}`);
+      return { ok: true };
+    },
+    { ok: false },
+  );
   const fieldErrors = state.fieldErrors ?? {};
 
   return (
@@ -28,17 +36,25 @@ export function NewClassForm({ eventId, copyable }: { eventId: string; copyable:
         <TextField name="description" label="Description" className="sm:col-span-2" error={fieldErrors.description} />
         {copyable.length > 0 && (
           <div className="sm:col-span-2">
-            <label htmlFor="copyFromClassId" className="field-label">Start from the rules of an earlier class (optional)</label>
+            <label htmlFor="copyFromClassId" className="field-label">
+              Start from the rules of an earlier class (optional)
+            </label>
             <select id="copyFromClassId" name="copyFromClassId" className="field-input" defaultValue="">
               <option value="">No: start from the defaults</option>
-              {copyable.map((c) => <option key={c.id} value={c.id}>{c.label}</option>)}
+              {copyable.map((c) => (
+                <option key={c.id} value={c.id}>
+                  {c.label}
+                </option>
+              ))}
             </select>
             <FieldError name="copyFromClassId" error={fieldErrors.copyFromClassId} />
           </div>
         )}
         <div className="sm:col-span-2 space-y-2">
           <FormMessage state={state} />
-          <button type="submit" className="btn-primary">{isPending ? 'Adding…' : 'Add class'}</button>
+          <button type="submit" className="btn-primary">
+            {isPending ? 'Adding…' : 'Add class'}
+          </button>
         </div>
       </fieldset>
     </form>

@@ -14,7 +14,9 @@ export default async function NewEventPage() {
   return (
     <div className="max-w-3xl space-y-4">
       <h1>New meeting</h1>
-      <div className="card"><EventForm organisations={clubs} /></div>
+      <div className="card">
+        <EventForm organisations={clubs} />
+      </div>
     </div>
   );
 }

@@ -23,7 +23,9 @@ export const POST = actorHandler<{ boatId: string }>(async (req, { actor, params
   });
   const file = form.get('file');
   if (!(file instanceof File) || file.size === 0) {
-    throw new AppError('invalid_input', 400, 'file: choose a file to upload.', [{ field: 'file', message: 'Choose a file to upload.' }]);
+    throw new AppError('invalid_input', 400, 'file: choose a file to upload.', [
+      { field: 'file', message: 'Choose a file to upload.' },
+    ]);
   }
   const doc = await uploadBoatDocument(actor, params.boatId, {
     bytes: new Uint8Array(await file.arrayBuffer()),

@@ -10,5 +10,8 @@ export const GET = actorHandler<{ eventId: string }>(async (req, { actor, params
 
 // The trail is written only as a side effect of the changes it records, never through a route.
 const readOnly = async () =>
-  Response.json({ error: { code: 'method_not_allowed', message: 'The audit trail is read-only.' } }, { status: 405, headers: { allow: 'GET, HEAD' } });
+  Response.json(
+    { error: { code: 'method_not_allowed', message: 'The audit trail is read-only.' } },
+    { status: 405, headers: { allow: 'GET, HEAD' } },
+  );
 export { readOnly as POST, readOnly as PUT, readOnly as PATCH, readOnly as DELETE };

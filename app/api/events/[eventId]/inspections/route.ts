@@ -14,7 +14,10 @@ export const POST = actorHandler<P>(async (req, { actor, params }) => {
 
 export const GET = actorHandler<P>(async (req, { actor, params }) => {
   const q = req.nextUrl.searchParams;
-  const board = await listInspectionBoard(actor, parseId(params.eventId, 'event'), { classFilter: q.get('class'), result: q.get('result') });
+  const board = await listInspectionBoard(actor, parseId(params.eventId, 'event'), {
+    classFilter: q.get('class'),
+    result: q.get('result'),
+  });
   return Response.json({ data: board }, { headers: { 'Cache-Control': 'private, no-cache' } });
 });
 

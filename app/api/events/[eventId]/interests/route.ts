@@ -10,10 +10,16 @@ export const GET = withPermission<{ eventId: string }>('interest.declare', async
 
 export const POST = withPermission<{ eventId: string }>('interest.declare', async (req, { actor, params }) => {
   const eventId = parseId(params.eventId, 'meeting');
-  return Response.json({ data: await declareInterest(actor, eventId, await readJson(req, 16 * 1024)) }, { status: 201 });
+  return Response.json(
+    { data: await declareInterest(actor, eventId, await readJson(req, 16 * 1024)) },
+    { status: 201 },
+  );
 });
 
 // A declaration is never edited or removed: it is withdrawn with a second record (…/withdraw).
 const appendOnly = async () =>
-  Response.json({ error: { code: 'method_not_allowed', message: 'Declarations are append-only: withdraw one instead.' } }, { status: 405, headers: { allow: 'GET, HEAD, POST' } });
+  Response.json(
+    { error: { code: 'method_not_allowed', message: 'Declarations are append-only: withdraw one instead.' } },
+    { status: 405, headers: { allow: 'GET, HEAD, POST' } },
+  );
 export { appendOnly as PUT, appendOnly as PATCH, appendOnly as DELETE };

@@ -11,5 +11,8 @@ export const GET = actorHandler<P>(async (_req, { actor, params }) => {
 });
 
 export const POST = actorHandler<P>(async (req, { actor, params }) => {
-  return Response.json({ data: await lodgeProtest(actor, parseId(params.eventId, 'event'), await readJson(req)) }, { status: 201 });
+  return Response.json(
+    { data: await lodgeProtest(actor, parseId(params.eventId, 'event'), await readJson(req)) },
+    { status: 201 },
+  );
 });

@@ -7,7 +7,10 @@ import { listReinspections } from '@/lib/server/inspections/list-reinspections';
 type P = { eventId: string };
 
 export const POST = actorHandler<P>(async (req, { actor, params }) => {
-  return Response.json({ data: await requestReinspection(actor, parseId(params.eventId, 'event'), await readJson(req)) }, { status: 201 });
+  return Response.json(
+    { data: await requestReinspection(actor, parseId(params.eventId, 'event'), await readJson(req)) },
+    { status: 201 },
+  );
 });
 
 export const GET = actorHandler<P>(async (req, { actor, params }) => {

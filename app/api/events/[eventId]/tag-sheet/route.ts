@@ -8,13 +8,20 @@ const SHEETS: SheetFormat[] = ['a4-2x7', 'letter-2x5'];
 
 export const GET = actorHandler<{ eventId: string }>(async (req, { actor, params }) => {
   const sheet = (req.nextUrl.searchParams.get('sheet') ?? 'a4-2x7') as SheetFormat;
-  if (!SHEETS.includes(sheet)) throw new AppError('invalid_input', 400, `sheet: choose ${SHEETS.join(' or ')}.`, [{ field: 'sheet', message: `Choose ${SHEETS.join(' or ')}.` }]);
+  if (!SHEETS.includes(sheet))
+    throw new AppError('invalid_input', 400, `sheet: choose ${SHEETS.join(' or ')}.`, [
+      { field: 'sheet', message: `Choose ${SHEETS.join(' or ')}.` },
+    ]);
   const classParam = req.nextUrl.searchParams.get('classId');
   const { pdf, fileName } = await printTagSheet(actor, parseId(params.eventId, 'event'), {
     sheet,
     classId: classParam ? parseId(classParam, 'class') : undefined,
   });
   return new Response(Buffer.from(pdf), {
-    headers: { 'content-type': 'application/pdf', 'content-disposition': `attachment; filename="${fileName}"`, 'x-content-type-options': 'nosniff' },
+    headers: {
+      'content-type': 'application/pdf',
+      'content-disposition': `attachment; filename="${fileName}"`,
+      'x-content-type-options': 'nosniff',
+    },
   });
 });

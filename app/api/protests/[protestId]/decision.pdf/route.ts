@@ -5,6 +5,10 @@ import { buildDecisionPdf } from '@/lib/server/protests/build-decision-pdf';
 export const GET = actorHandler<{ protestId: string }>(async (_req, { actor, params }) => {
   const pdf = await buildDecisionPdf(actor, params.protestId);
   return new Response(Buffer.from(pdf.bytes), {
-    headers: { 'content-type': 'application/pdf', 'content-disposition': `inline; filename="${pdf.fileName}"`, 'cache-control': 'private, no-store' },
+    headers: {
+      'content-type': 'application/pdf',
+      'content-disposition': `inline; filename="${pdf.fileName}"`,
+      'cache-control': 'private, no-store',
+    },
   });
 });

@@ -17,8 +17,15 @@ export const POST = actorHandler<P>(async (req, { actor, params }) => {
   // Room for the multipart boundaries around a file at the limit.
   const form = await readMultipartUpload(req, EVIDENCE_MAX_BYTES + 64 * 1024, '40 MB');
   const file = form.get('file');
-  if (!(file instanceof File) || file.size === 0) throw new AppError('invalid_input', 400, 'file: choose a file to upload.', [{ field: 'file', message: 'Choose a file to upload.' }]);
-  const data = await addEvidence(actor, params.protestId, { kind: 'file', bytes: new Uint8Array(await file.arrayBuffer()), declaredName: file.name });
+  if (!(file instanceof File) || file.size === 0)
+    throw new AppError('invalid_input', 400, 'file: choose a file to upload.', [
+      { field: 'file', message: 'Choose a file to upload.' },
+    ]);
+  const data = await addEvidence(actor, params.protestId, {
+    kind: 'file',
+    bytes: new Uint8Array(await file.arrayBuffer()),
+    declaredName: file.name,
+  });
   return Response.json({ data }, { status: 201 });
 });
 

@@ -3,5 +3,8 @@ import { actorHandler, readJson } from '@/lib/server/http/handler';
 import { orderReinspection } from '@/lib/server/protests/order-reinspection';
 
 export const POST = actorHandler<{ protestId: string }>(async (req, { actor, params }) => {
-  return Response.json({ data: await orderReinspection(actor, params.protestId, await readJson(req)) }, { status: 201 });
+  return Response.json(
+    { data: await orderReinspection(actor, params.protestId, await readJson(req)) },
+    { status: 201 },
+  );
 });

@@ -3,8 +3,14 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { usePathname, useRouter, useSearchParams } from 'next/navigation';
 import {
-  createColumnHelper, flexRender, getCoreRowModel, getFilteredRowModel, getPaginationRowModel, getSortedRowModel,
-  useReactTable, type SortingState,
+  createColumnHelper,
+  flexRender,
+  getCoreRowModel,
+  getFilteredRowModel,
+  getPaginationRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type SortingState,
 } from '@tanstack/react-table';
 import type { EventEntryRow } from '@/lib/server/entries/list-event-entries';
 import { figureValue } from '@/lib/core/format/figures';
@@ -17,7 +23,17 @@ const PAGE_SIZE = 20;
 const SEARCH_DEBOUNCE_MS = 300;
 
 /** Entries with search, class and status filters, sorting and paging, all kept in the URL. */
-export function EntriesTable({ rows, classes, canCancel, eventId }: { rows: EventEntryRow[]; classes: { id: string; label: string }[]; canCancel: boolean; eventId: string }) {
+export function EntriesTable({
+  rows,
+  classes,
+  canCancel,
+  eventId,
+}: {
+  rows: EventEntryRow[];
+  classes: { id: string; label: string }[];
+  canCancel: boolean;
+  eventId: string;
+}) {
   const router = useRouter();
   const pathname = usePathname();
   const params = useSearchParams();
@@ -47,11 +63,22 @@ export function EntriesTable({ rows, classes, canCancel, eventId }: { rows: Even
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
   const sentQ = useRef(q);
   useEffect(() => {
-    if (q !== sentQ.current) { sentQ.current = q; if (!timer.current) setText(q); }
+    if (q !== sentQ.current) {
+      sentQ.current = q;
+      if (!timer.current) setText(q);
+    }
   }, [q]);
-  useEffect(() => () => { if (timer.current) clearTimeout(timer.current); }, []);
+  useEffect(
+    () => () => {
+      if (timer.current) clearTimeout(timer.current);
+    },
+    [],
+  );
   const applySearch = (value: string) => {
-    if (timer.current) { clearTimeout(timer.current); timer.current = null; }
+    if (timer.current) {
+      clearTimeout(timer.current);
+      timer.current = null;
+    }
     const v = value.trim();
     if (v === (sentQ.current ?? '')) return;
     sentQ.current = v;
@@ -60,24 +87,50 @@ export function EntriesTable({ rows, classes, canCancel, eventId }: { rows: Even
   const onSearchInput = (value: string) => {
     setText(value);
     if (timer.current) clearTimeout(timer.current);
-    timer.current = setTimeout(() => { timer.current = null; applySearch(value); }, SEARCH_DEBOUNCE_MS);
+    timer.current = setTimeout(() => {
+      timer.current = null;
+      applySearch(value);
+    }, SEARCH_DEBOUNCE_MS);
   };
 
   const filtered = useMemo(
-    () => rows.filter((r) => (!classId || r.classId === classId) && (!status || r.status === status || r.inspectionResult === status)),
+    () =>
+      rows.filter(
+        (r) => (!classId || r.classId === classId) && (!status || r.status === status || r.inspectionResult === status),
+      ),
     [rows, classId, status],
   );
 
   const columns = useMemo(
     () => [
-      col.accessor('raceNumber', { header: 'No.', cell: (c) => <span className="figure font-bold">{c.getValue()}</span> }),
+      col.accessor('raceNumber', {
+        header: 'No.',
+        cell: (c) => <span className="figure font-bold">{c.getValue()}</span>,
+      }),
       col.accessor('boatName', { header: 'Boat' }),
       col.accessor((r) => `${r.classCode}`, { id: 'classCode', header: 'Class' }),
       col.accessor((r) => r.entrantName ?? r.entrantEmail, { id: 'entrant', header: 'Entrant' }),
-      col.accessor('status', { header: 'Status', cell: (c) => <StatusBadge status={c.getValue()} inspection={c.row.original.inspectionResult} /> }),
-      col.accessor('declaredNozzleMm', { header: 'Nozzle (mm)', cell: (c) => <span className="figure">{figureValue(c.getValue(), 'nozzleMm')}</span> }),
-      col.accessor('declaredPowerKw', { header: 'Power (kW)', cell: (c) => <span className="figure">{figureValue(c.getValue(), 'powerKw')}</span> }),
-      ...(canCancel ? [col.display({ id: 'actions', header: '', cell: (c) => <CancelEntryButton eventId={eventId} entry={c.row.original} /> })] : []),
+      col.accessor('status', {
+        header: 'Status',
+        cell: (c) => <StatusBadge status={c.getValue()} inspection={c.row.original.inspectionResult} />,
+      }),
+      col.accessor('declaredNozzleMm', {
+        header: 'Nozzle (mm)',
+        cell: (c) => <span className="figure">{figureValue(c.getValue(), 'nozzleMm')}</span>,
+      }),
+      col.accessor('declaredPowerKw', {
+        header: 'Power (kW)',
+        cell: (c) => <span className="figure">{figureValue(c.getValue(), 'powerKw')}</span>,
+      }),
+      ...(canCancel
+        ? [
+            col.display({
+              id: 'actions',
+              header: '',
+              cell: (c) => <CancelEntryButton eventId={eventId} entry={c.row.original} />,
+            }),
+          ]
+        : []),
     ],
     [canCancel, eventId],
   );
@@ -100,7 +153,9 @@ export function EntriesTable({ rows, classes, canCancel, eventId }: { rows: Even
     globalFilterFn: (row, _id, value: string) => {
       const v = value.toLowerCase();
       const r = row.original;
-      return [r.boatName, r.hullNumber, r.entrantName ?? '', r.entrantEmail, String(r.raceNumber)].some((s) => s.toLowerCase().includes(v));
+      return [r.boatName, r.hullNumber, r.entrantName ?? '', r.entrantEmail, String(r.raceNumber)].some((s) =>
+        s.toLowerCase().includes(v),
+      );
     },
     getCoreRowModel: getCoreRowModel(),
     getFilteredRowModel: getFilteredRowModel(),
@@ -113,23 +168,54 @@ export function EntriesTable({ rows, classes, canCancel, eventId }: { rows: Even
     <div className="space-y-3">
       <div className="grid gap-3 sm:grid-cols-3">
         <div>
-          <label htmlFor="q" className="field-label">Search</label>
+          <label htmlFor="q" className="field-label">
+            Search
+          </label>
           <input
-            id="q" type="search" className="field-input" value={text} placeholder="Boat, number, entrant" enterKeyHint="search" autoComplete="off"
+            id="q"
+            type="search"
+            className="field-input"
+            value={text}
+            placeholder="Boat, number, entrant"
+            enterKeyHint="search"
+            autoComplete="off"
             onChange={(e) => onSearchInput(e.target.value)}
-            onKeyDown={(e) => { if (e.key === 'Enter') { e.preventDefault(); applySearch(e.currentTarget.value); } }}
+            onKeyDown={(e) => {
+              if (e.key === 'Enter') {
+                e.preventDefault();
+                applySearch(e.currentTarget.value);
+              }
+            }}
           />
         </div>
         <div>
-          <label htmlFor="class-filter" className="field-label">Class</label>
-          <select id="class-filter" className="field-input" value={classId} onChange={(e) => setParam({ class: e.target.value || null })}>
+          <label htmlFor="class-filter" className="field-label">
+            Class
+          </label>
+          <select
+            id="class-filter"
+            className="field-input"
+            value={classId}
+            onChange={(e) => setParam({ class: e.target.value || null })}
+          >
             <option value="">All classes</option>
-            {classes.map((c) => <option key={c.id} value={c.id}>{c.label}</option>)}
+            {classes.map((c) => (
+              <option key={c.id} value={c.id}>
+                {c.label}
+              </option>
+            ))}
           </select>
         </div>
         <div>
-          <label htmlFor="status-filter" className="field-label">Status</label>
-          <select id="status-filter" className="field-input" value={status} onChange={(e) => setParam({ status: e.target.value || null })}>
+          <label htmlFor="status-filter" className="field-label">
+            Status
+          </label>
+          <select
+            id="status-filter"
+            className="field-input"
+            value={status}
+            onChange={(e) => setParam({ status: e.target.value || null })}
+          >
             <option value="">Any status</option>
             <option value="awaiting_payment">Awaiting payment</option>
             <option value="entered">Entered (paid)</option>
@@ -141,20 +227,38 @@ export function EntriesTable({ rows, classes, canCancel, eventId }: { rows: Even
           </select>
         </div>
       </div>
-      <p className="text-sm text-ink-mute" aria-live="polite" data-testid="entries-count">{table.getFilteredRowModel().rows.length} of {rows.length} entries</p>
+      <p className="text-sm text-ink-mute" aria-live="polite" data-testid="entries-count">
+        {table.getFilteredRowModel().rows.length} of {rows.length} entries
+      </p>
       <div className="card overflow-x-auto p-0">
         <table className="w-full min-w-[40rem] text-left" data-testid="entries-table">
           <thead className="bg-paper-deep">
             {table.getHeaderGroups().map((hg) => (
               <tr key={hg.id}>
                 {hg.headers.map((h) => (
-                  <th key={h.id} className="p-3" aria-sort={h.column.getIsSorted() ? (h.column.getIsSorted() === 'desc' ? 'descending' : 'ascending') : undefined}>
+                  <th
+                    key={h.id}
+                    className="p-3"
+                    aria-sort={
+                      h.column.getIsSorted()
+                        ? h.column.getIsSorted() === 'desc'
+                          ? 'descending'
+                          : 'ascending'
+                        : undefined
+                    }
+                  >
                     {h.column.getCanSort() ? (
-                      <button type="button" className="inline-flex min-h-[44px] min-w-[44px] items-center font-bold" onClick={h.column.getToggleSortingHandler()}>
+                      <button
+                        type="button"
+                        className="inline-flex min-h-[44px] min-w-[44px] items-center font-bold"
+                        onClick={h.column.getToggleSortingHandler()}
+                      >
                         {flexRender(h.column.columnDef.header, h.getContext())}
                         {{ asc: ' ▲', desc: ' ▼' }[h.column.getIsSorted() as string] ?? ''}
                       </button>
-                    ) : flexRender(h.column.columnDef.header, h.getContext())}
+                    ) : (
+                      flexRender(h.column.columnDef.header, h.getContext())
+                    )}
                   </th>
                 ))}
               </tr>
@@ -163,17 +267,43 @@ export function EntriesTable({ rows, classes, canCancel, eventId }: { rows: Even
           <tbody>
             {table.getRowModel().rows.map((r) => (
               <tr key={r.id} className="border-t border-paper-line">
-                {r.getVisibleCells().map((c) => <td key={c.id} className="p-3">{flexRender(c.column.columnDef.cell, c.getContext())}</td>)}
+                {r.getVisibleCells().map((c) => (
+                  <td key={c.id} className="p-3">
+                    {flexRender(c.column.columnDef.cell, c.getContext())}
+                  </td>
+                ))}
               </tr>
             ))}
-            {table.getRowModel().rows.length === 0 && <tr><td colSpan={columns.length} className="p-4">No entries match.</td></tr>}
+            {table.getRowModel().rows.length === 0 && (
+              <tr>
+                <td colSpan={columns.length} className="p-4">
+                  No entries match.
+                </td>
+              </tr>
+            )}
           </tbody>
         </table>
       </div>
       <div className="flex items-center gap-3">
-        <button type="button" className="btn-secondary" disabled={page === 0} onClick={() => setParam({ page: String(page) })}>Previous</button>
-        <span>Page {page + 1} of {pageCount}</span>
-        <button type="button" className="btn-secondary" disabled={page + 1 >= pageCount} onClick={() => setParam({ page: String(page + 2) })}>Next</button>
+        <button
+          type="button"
+          className="btn-secondary"
+          disabled={page === 0}
+          onClick={() => setParam({ page: String(page) })}
+        >
+          Previous
+        </button>
+        <span>
+          Page {page + 1} of {pageCount}
+        </span>
+        <button
+          type="button"
+          className="btn-secondary"
+          disabled={page + 1 >= pageCount}
+          onClick={() => setParam({ page: String(page + 2) })}
+        >
+          Next
+        </button>
       </div>
     </div>
   );

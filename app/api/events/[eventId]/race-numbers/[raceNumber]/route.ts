@@ -4,5 +4,7 @@ import { parseId } from '@/lib/server/http/ids';
 import { findEntryByRaceNumber } from '@/lib/server/inspections/find-entry-by-race-number';
 
 export const GET = actorHandler<{ eventId: string; raceNumber: string }>(async (_req, { actor, params }) => {
-  return Response.json({ data: await findEntryByRaceNumber(actor, parseId(params.eventId, 'event'), params.raceNumber) });
+  return Response.json({
+    data: await findEntryByRaceNumber(actor, parseId(params.eventId, 'event'), params.raceNumber),
+  });
 });

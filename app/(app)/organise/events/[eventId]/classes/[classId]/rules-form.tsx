@@ -14,7 +14,8 @@ import { convertPower, type PowerUnit } from '@/lib/core/engine/units';
 const RULE_TEXT = {
   simple: 'Simple acceptance: the reading itself is compared with the limit (no guard band).',
   guarded: 'Guarded acceptance: the limit is tightened by the expanded uncertainty U; a reading must sit inside it.',
-  iso14253: 'ISO 14253-1 three-way: conformity only when proven inside the limit less U, non-conformity only beyond the limit plus U; in between the verdict is inconclusive (measure again).',
+  iso14253:
+    'ISO 14253-1 three-way: conformity only when proven inside the limit less U, non-conformity only beyond the limit plus U; in between the verdict is inconclusive (measure again).',
 } as const;
 
 type Props = { eventId: string; classId: string; rules: ClassRules; editingVersion: number; isDraft: boolean };
@@ -24,30 +25,54 @@ export function RulesForm({ eventId, classId, rules, editingVersion, isDraft }: 
   const [powerUnit, setPowerUnit] = useState<PowerUnit>('kW');
   const shown = (kw: number | null) => (kw == null ? '' : +convertPower(kw, 'kW', powerUnit).toFixed(2));
 
-  const { state, isPending, form } = useFormAction(async (_prev: FormState, f: FormData): Promise<FormState> => {
-    const n = (k: string) => numberOrNull(f.get(k));
-    const body = {
-      powerUnit,
-      rules: {
-        nozzle: { maxMm: n('nozzle.maxMm'), minMm: n('nozzle.minMm'), minReadings: n('nozzle.minReadings'), defaultUncertaintyMm: n('nozzle.defaultUncertaintyMm') },
-        power: { minKw: n('power.minKw'), maxKw: n('power.maxKw'), defaultUncertaintyKw: n('power.defaultUncertaintyKw') },
-        weight: { minKg: n('weight.minKg'), includesDriver: f.get('weight.includesDriver') === 'on', defaultUncertaintyKg: n('weight.defaultUncertaintyKg') },
-        decisionRule: f.get('decisionRule'),
-        safetyItems: f.getAll('safetyItems'),
-        parity: {
-          pumpEfficiency: n('parity.pumpEfficiency'),
-          nozzleLossCoefficient: n('parity.nozzleLossCoefficient'),
-          inletLossCoefficient: n('parity.inletLossCoefficient'),
-          wakeFraction: n('parity.wakeFraction'),
-          referenceSpeedsMs: String(f.get('parity.referenceSpeedsMs') ?? '').split(/[;, ]+/).filter(Boolean).map(Number),
+  const { state, isPending, form } = useFormAction(
+    async (_prev: FormState, f: FormData): Promise<FormState> => {
+      const n = (k: string) => numberOrNull(f.get(k));
+      const body = {
+        powerUnit,
+        rules: {
+          nozzle: {
+            maxMm: n('nozzle.maxMm'),
+            minMm: n('nozzle.minMm'),
+            minReadings: n('nozzle.minReadings'),
+            defaultUncertaintyMm: n('nozzle.defaultUncertaintyMm'),
+          },
+          power: {
+            minKw: n('power.minKw'),
+            maxKw: n('power.maxKw'),
+            defaultUncertaintyKw: n('power.defaultUncertaintyKw'),
+          },
+          weight: {
+            minKg: n('weight.minKg'),
+            includesDriver: f.get('weight.includesDriver') === 'on',
+            defaultUncertaintyKg: n('weight.defaultUncertaintyKg'),
+          },
+          decisionRule: f.get('decisionRule'),
+          safetyItems: f.getAll('safetyItems'),
+          parity: {
+            pumpEfficiency: n('parity.pumpEfficiency'),
+            nozzleLossCoefficient: n('parity.nozzleLossCoefficient'),
+            inletLossCoefficient: n('parity.inletLossCoefficient'),
+            wakeFraction: n('parity.wakeFraction'),
+            referenceSpeedsMs: String(f.get('parity.referenceSpeedsMs') ?? '')
+              .split(/[;, ]+/)
+              .filter(Boolean)
+              .map(Number),
+          },
         },
-      },
-    };
-    const answer = await requestJson(`/api/events/${eventId}/classes/${classId}/rules`, { method: 'PUT', body });
-    if (!answer.ok) return refusalState(answer);
-    router.refresh();
-    return { ok: true, message: isDraft ? `Draft v${editingVersion} saved.` : `Saved as draft v${editingVersion + 1}; the published version is unchanged.` };
-  }, { ok: false });
+      };
+      const answer = await requestJson(`/api/events/${eventId}/classes/${classId}/rules`, { method: 'PUT', body });
+      if (!answer.ok) return refusalState(answer);
+      router.refresh();
+      return {
+        ok: true,
+        message: isDraft
+          ? `Draft v${editingVersion} saved.`
+          : `Saved as draft v${editingVersion + 1}; the published version is unchanged.`,
+      };
+    },
+    { ok: false },
+  );
   const fieldErrors = state.fieldErrors ?? {};
 
   const err = (path: string) => fieldErrors[`rules.${path}`];
@@ -56,29 +81,109 @@ export function RulesForm({ eventId, classId, rules, editingVersion, isDraft }: 
       <fieldset disabled={isPending} className="space-y-6">
         <fieldset className="grid gap-3 sm:grid-cols-2">
           <legend className="mb-2 text-lg font-bold">Nozzle exit diameter</legend>
-          <TextField name="nozzle.maxMm" label="Maximum" unit="mm" inputMode="decimal" defaultValue={rules.nozzle.maxMm ?? ''} error={err('nozzle.maxMm')} />
-          <TextField name="nozzle.minMm" label="Minimum" unit="mm" inputMode="decimal" defaultValue={rules.nozzle.minMm ?? ''} error={err('nozzle.minMm')} />
-          <TextField name="nozzle.minReadings" label="Two-point readings required" unit="count" inputMode="numeric" defaultValue={rules.nozzle.minReadings} error={err('nozzle.minReadings')} />
-          <TextField name="nozzle.defaultUncertaintyMm" label="Default expanded uncertainty U (k = 2)" unit="mm" inputMode="decimal" defaultValue={rules.nozzle.defaultUncertaintyMm} error={err('nozzle.defaultUncertaintyMm')} />
+          <TextField
+            name="nozzle.maxMm"
+            label="Maximum"
+            unit="mm"
+            inputMode="decimal"
+            defaultValue={rules.nozzle.maxMm ?? ''}
+            error={err('nozzle.maxMm')}
+          />
+          <TextField
+            name="nozzle.minMm"
+            label="Minimum"
+            unit="mm"
+            inputMode="decimal"
+            defaultValue={rules.nozzle.minMm ?? ''}
+            error={err('nozzle.minMm')}
+          />
+          <TextField
+            name="nozzle.minReadings"
+            label="Two-point readings required"
+            unit="count"
+            inputMode="numeric"
+            defaultValue={rules.nozzle.minReadings}
+            error={err('nozzle.minReadings')}
+          />
+          <TextField
+            name="nozzle.defaultUncertaintyMm"
+            label="Default expanded uncertainty U (k = 2)"
+            unit="mm"
+            inputMode="decimal"
+            defaultValue={rules.nozzle.defaultUncertaintyMm}
+            error={err('nozzle.defaultUncertaintyMm')}
+          />
         </fieldset>
         <fieldset className="grid gap-3 sm:grid-cols-2">
           <legend className="mb-2 text-lg font-bold">Engine power band</legend>
           <div className="sm:col-span-2">
-            <label htmlFor="powerUnit" className="field-label">Enter power in</label>
-            <select id="powerUnit" className="field-input" value={powerUnit} onChange={(e) => setPowerUnit(e.target.value as PowerUnit)}>
-              <option value="kW">kW</option><option value="hp">hp (550 ft·lbf/s)</option><option value="PS">PS (metric hp)</option>
+            <label htmlFor="powerUnit" className="field-label">
+              Enter power in
+            </label>
+            <select
+              id="powerUnit"
+              className="field-input"
+              value={powerUnit}
+              onChange={(e) => setPowerUnit(e.target.value as PowerUnit)}
+            >
+              <option value="kW">kW</option>
+              <option value="hp">hp (550 ft·lbf/s)</option>
+              <option value="PS">PS (metric hp)</option>
             </select>
           </div>
-          <TextField key={`min-${powerUnit}`} name="power.minKw" label="Minimum" unit={powerUnit} inputMode="decimal" defaultValue={shown(rules.power.minKw)} error={err('power.minKw')} />
-          <TextField key={`max-${powerUnit}`} name="power.maxKw" label="Maximum" unit={powerUnit} inputMode="decimal" defaultValue={shown(rules.power.maxKw)} error={err('power.maxKw')} />
-          <TextField key={`u-${powerUnit}`} name="power.defaultUncertaintyKw" label="Power uncertainty" unit={powerUnit} inputMode="decimal" defaultValue={shown(rules.power.defaultUncertaintyKw)} error={err('power.defaultUncertaintyKw')} />
+          <TextField
+            key={`min-${powerUnit}`}
+            name="power.minKw"
+            label="Minimum"
+            unit={powerUnit}
+            inputMode="decimal"
+            defaultValue={shown(rules.power.minKw)}
+            error={err('power.minKw')}
+          />
+          <TextField
+            key={`max-${powerUnit}`}
+            name="power.maxKw"
+            label="Maximum"
+            unit={powerUnit}
+            inputMode="decimal"
+            defaultValue={shown(rules.power.maxKw)}
+            error={err('power.maxKw')}
+          />
+          <TextField
+            key={`u-${powerUnit}`}
+            name="power.defaultUncertaintyKw"
+            label="Power uncertainty"
+            unit={powerUnit}
+            inputMode="decimal"
+            defaultValue={shown(rules.power.defaultUncertaintyKw)}
+            error={err('power.defaultUncertaintyKw')}
+          />
         </fieldset>
         <fieldset className="grid gap-3 sm:grid-cols-2">
           <legend className="mb-2 text-lg font-bold">Minimum weight</legend>
-          <TextField name="weight.minKg" label="Minimum all-up weight" unit="kg" inputMode="decimal" defaultValue={rules.weight.minKg ?? ''} error={err('weight.minKg')} />
-          <TextField name="weight.defaultUncertaintyKg" label="Weighing uncertainty" unit="kg" inputMode="decimal" defaultValue={rules.weight.defaultUncertaintyKg} error={err('weight.defaultUncertaintyKg')} />
+          <TextField
+            name="weight.minKg"
+            label="Minimum all-up weight"
+            unit="kg"
+            inputMode="decimal"
+            defaultValue={rules.weight.minKg ?? ''}
+            error={err('weight.minKg')}
+          />
+          <TextField
+            name="weight.defaultUncertaintyKg"
+            label="Weighing uncertainty"
+            unit="kg"
+            inputMode="decimal"
+            defaultValue={rules.weight.defaultUncertaintyKg}
+            error={err('weight.defaultUncertaintyKg')}
+          />
           <label className="flex min-h-touch items-center gap-3 sm:col-span-2">
-            <input type="checkbox" name="weight.includesDriver" defaultChecked={rules.weight.includesDriver} className="h-6 w-6" />
+            <input
+              type="checkbox"
+              name="weight.includesDriver"
+              defaultChecked={rules.weight.includesDriver}
+              className="h-6 w-6"
+            />
             The minimum includes the driver
           </label>
         </fieldset>
@@ -86,7 +191,13 @@ export function RulesForm({ eventId, classId, rules, editingVersion, isDraft }: 
           <legend className="mb-2 text-lg font-bold">Decision rule (fixed before anyone measures)</legend>
           {(Object.keys(RULE_TEXT) as (keyof typeof RULE_TEXT)[]).map((r) => (
             <label key={r} className="flex min-h-touch items-start gap-3 rounded-lg border border-paper-line p-3">
-              <input type="radio" name="decisionRule" value={r} defaultChecked={rules.decisionRule === r} className="mt-1 h-6 w-6" />
+              <input
+                type="radio"
+                name="decisionRule"
+                value={r}
+                defaultChecked={rules.decisionRule === r}
+                className="mt-1 h-6 w-6"
+              />
               <span>{RULE_TEXT[r]}</span>
             </label>
           ))}
@@ -96,21 +207,71 @@ export function RulesForm({ eventId, classId, rules, editingVersion, isDraft }: 
           <legend className="mb-2 text-lg font-bold">Required safety items</legend>
           {SAFETY_ITEM_KEYS.map((k) => (
             <label key={k} className="flex min-h-touch items-center gap-3">
-              <input type="checkbox" name="safetyItems" value={k} defaultChecked={rules.safetyItems.includes(k)} className="h-6 w-6" />
+              <input
+                type="checkbox"
+                name="safetyItems"
+                value={k}
+                defaultChecked={rules.safetyItems.includes(k)}
+                className="h-6 w-6"
+              />
               {SAFETY_ITEMS[k]}
             </label>
           ))}
         </fieldset>
         <fieldset className="grid gap-3 sm:grid-cols-2">
           <legend className="mb-2 text-lg font-bold">Parity model assumptions</legend>
-          <TextField name="parity.pumpEfficiency" label="Pump efficiency η" unit="0–1" inputMode="decimal" defaultValue={rules.parity.pumpEfficiency} error={err('parity.pumpEfficiency')} />
-          <TextField name="parity.nozzleLossCoefficient" label="Nozzle loss coefficient Kn" unit="–" inputMode="decimal" defaultValue={rules.parity.nozzleLossCoefficient} error={err('parity.nozzleLossCoefficient')} />
-          <TextField name="parity.inletLossCoefficient" label="Inlet loss coefficient Ki" unit="–" inputMode="decimal" defaultValue={rules.parity.inletLossCoefficient} error={err('parity.inletLossCoefficient')} />
-          <TextField name="parity.wakeFraction" label="Wake fraction w" unit="–" inputMode="decimal" defaultValue={rules.parity.wakeFraction} error={err('parity.wakeFraction')} />
-          <TextField name="parity.referenceSpeedsMs" label="Reference speeds" unit="m/s, comma-separated" defaultValue={rules.parity.referenceSpeedsMs.join(', ')} error={err('parity.referenceSpeedsMs') ?? Object.entries(fieldErrors).find(([k]) => k.startsWith('rules.parity.referenceSpeedsMs.'))?.[1]} className="sm:col-span-2" />
+          <TextField
+            name="parity.pumpEfficiency"
+            label="Pump efficiency η"
+            unit="0–1"
+            inputMode="decimal"
+            defaultValue={rules.parity.pumpEfficiency}
+            error={err('parity.pumpEfficiency')}
+          />
+          <TextField
+            name="parity.nozzleLossCoefficient"
+            label="Nozzle loss coefficient Kn"
+            unit="–"
+            inputMode="decimal"
+            defaultValue={rules.parity.nozzleLossCoefficient}
+            error={err('parity.nozzleLossCoefficient')}
+          />
+          <TextField
+            name="parity.inletLossCoefficient"
+            label="Inlet loss coefficient Ki"
+            unit="–"
+            inputMode="decimal"
+            defaultValue={rules.parity.inletLossCoefficient}
+            error={err('parity.inletLossCoefficient')}
+          />
+          <TextField
+            name="parity.wakeFraction"
+            label="Wake fraction w"
+            unit="–"
+            inputMode="decimal"
+            defaultValue={rules.parity.wakeFraction}
+            error={err('parity.wakeFraction')}
+          />
+          <TextField
+            name="parity.referenceSpeedsMs"
+            label="Reference speeds"
+            unit="m/s, comma-separated"
+            defaultValue={rules.parity.referenceSpeedsMs.join(', ')}
+            error={
+              err('parity.referenceSpeedsMs') ??
+              Object.entries(fieldErrors).find(([k]) => k.startsWith('rules.parity.referenceSpeedsMs.'))?.[1]
+            }
+            className="sm:col-span-2"
+          />
         </fieldset>
         <FormMessage state={state} />
-        <button type="submit" className="btn-primary">{isPending ? 'Saving…' : isDraft ? `Save draft v${editingVersion}` : `Save as new draft v${editingVersion + 1}`}</button>
+        <button type="submit" className="btn-primary">
+          {isPending
+            ? 'Saving…'
+            : isDraft
+              ? `Save draft v${editingVersion}`
+              : `Save as new draft v${editingVersion + 1}`}
+        </button>
       </fieldset>
     </form>
   );

@@ -8,6 +8,9 @@ type P = { eventId: string; classId: string };
 export const GET = actorHandler<P>(async (_req, { actor, params }) => {
   const eventId = parseId(params.eventId, 'event');
   const classId = parseId(params.classId, 'class');
-  const [draft, versions] = await Promise.all([computeDraftReport(actor, eventId, classId), listReportVersions(actor, eventId, classId)]);
+  const [draft, versions] = await Promise.all([
+    computeDraftReport(actor, eventId, classId),
+    listReportVersions(actor, eventId, classId),
+  ]);
   return Response.json({ data: { draft, versions } });
 });

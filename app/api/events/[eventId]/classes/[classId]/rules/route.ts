@@ -14,13 +14,21 @@ export const GET = actorHandler<P>(async (req, { actor, params }) => {
   const at = req.nextUrl.searchParams.get('at');
   if (at === null) return Response.json({ data: { raceClass, versions } });
   const when = new Date(at);
-  if (Number.isNaN(when.getTime())) throw new AppError('invalid_input', 400, 'at: give an ISO 8601 date and time.', [{ field: 'at', message: 'Give an ISO 8601 date and time.' }]);
+  if (Number.isNaN(when.getTime()))
+    throw new AppError('invalid_input', 400, 'at: give an ISO 8601 date and time.', [
+      { field: 'at', message: 'Give an ISO 8601 date and time.' },
+    ]);
   const inForce = await findRulesInForce(classId, when);
   if (!inForce) throw new AppError('not_found', 404, 'No published rules were in force for this class at that time.');
   return Response.json({ data: { raceClass, inForce } });
 });
 
 export const PUT = actorHandler<P>(async (req, { actor, params }) => {
-  const draft = await saveDraftRules(actor, parseId(params.eventId, 'event'), parseId(params.classId, 'class'), await readJson(req));
+  const draft = await saveDraftRules(
+    actor,
+    parseId(params.eventId, 'event'),
+    parseId(params.classId, 'class'),
+    await readJson(req),
+  );
   return Response.json({ data: draft });
 });

@@ -6,5 +6,7 @@ import { releaseFromCustody } from '@/lib/server/custody/manage-custody';
 type P = { eventId: string; itemId: string };
 
 export const POST = actorHandler<P>(async (req, { actor, params }) => {
-  return Response.json({ data: await releaseFromCustody(actor, parseId(params.eventId, 'event'), params.itemId, await readJson(req)) });
+  return Response.json({
+    data: await releaseFromCustody(actor, parseId(params.eventId, 'event'), params.itemId, await readJson(req)),
+  });
 });

@@ -4,6 +4,11 @@ import { parseId } from '@/lib/server/http/ids';
 import { cancelEntry } from '@/lib/server/entries/cancel-entry';
 
 export const POST = actorHandler<{ eventId: string; entryId: string }>(async (req, { actor, params }) => {
-  const result = await cancelEntry(actor, parseId(params.eventId, 'event'), parseId(params.entryId, 'entry'), await readJson(req));
+  const result = await cancelEntry(
+    actor,
+    parseId(params.eventId, 'event'),
+    parseId(params.entryId, 'entry'),
+    await readJson(req),
+  );
   return Response.json({ data: result });
 });

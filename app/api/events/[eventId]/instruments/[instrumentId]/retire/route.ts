@@ -6,5 +6,7 @@ import { retireInstrument } from '@/lib/server/inspections/retire-instrument';
 type P = { eventId: string; instrumentId: string };
 
 export const POST = actorHandler<P>(async (_req, { actor, params }) => {
-  return Response.json({ data: await retireInstrument(actor, parseId(params.eventId, 'event'), parseId(params.instrumentId, 'instrument')) });
+  return Response.json({
+    data: await retireInstrument(actor, parseId(params.eventId, 'event'), parseId(params.instrumentId, 'instrument')),
+  });
 });

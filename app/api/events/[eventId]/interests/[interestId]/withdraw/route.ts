@@ -3,7 +3,13 @@ import { withPermission, readJson } from '@/lib/server/http/handler';
 import { parseId } from '@/lib/server/http/ids';
 import { withdrawInterest } from '@/lib/server/interests/withdraw-interest';
 
-export const POST = withPermission<{ eventId: string; interestId: string }>('interest.declare', async (req, { actor, params }) => {
-  const eventId = parseId(params.eventId, 'meeting');
-  return Response.json({ data: await withdrawInterest(actor, eventId, params.interestId, () => readJson(req, 16 * 1024)) }, { status: 201 });
-});
+export const POST = withPermission<{ eventId: string; interestId: string }>(
+  'interest.declare',
+  async (req, { actor, params }) => {
+    const eventId = parseId(params.eventId, 'meeting');
+    return Response.json(
+      { data: await withdrawInterest(actor, eventId, params.interestId, () => readJson(req, 16 * 1024)) },
+      { status: 201 },
+    );
+  },
+);

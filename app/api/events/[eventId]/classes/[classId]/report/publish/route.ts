@@ -11,6 +11,10 @@ export const POST = actorHandler<P>(async (req, { actor, params }) => {
   const body = await readOptionalJson(req);
   const report = await publishReport(actor, parseId(params.eventId, 'event'), parseId(params.classId, 'class'), body);
   // Render and store the version's PDF once, after the answer; the first download then reads storage.
-  after(() => ensureReportPdf(report.publicId, report.id).catch((err) => console.error('[boreline] report PDF not stored after publishing', err)));
+  after(() =>
+    ensureReportPdf(report.publicId, report.id).catch((err) =>
+      console.error('[boreline] report PDF not stored after publishing', err),
+    ),
+  );
   return Response.json({ data: { id: report.id, publicId: report.publicId, number: report.number } }, { status: 201 });
 });
