@@ -187,14 +187,12 @@ test('a real PDF uploads with its SHA-256 and detected type; its owner downloads
   const a = await newEntrant('Eli Orrin');
   const { body } = await a.json('/api/boats', goodBoat());
   const pdf = await PDFDocument.create();
-  pdf
-    .addPage([300, 200])
-    .drawText('Dyno sheet: 230 kW at 6400 rpm', {
-      x: 20,
-      y: 100,
-      size: 12,
-      font: await pdf.embedFont(StandardFonts.Helvetica),
-    });
+  pdf.addPage([300, 200]).drawText('Dyno sheet: 230 kW at 6400 rpm', {
+    x: 20,
+    y: 100,
+    size: 12,
+    font: await pdf.embedFont(StandardFonts.Helvetica),
+  });
   const bytes = await pdf.save();
   const up = await upload(a, body.data.id, bytes, 'dyno "sheet".pdf');
   assert.equal(up.res.status, 201, JSON.stringify(up.body));
