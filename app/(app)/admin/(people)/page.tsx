@@ -4,7 +4,7 @@ import { format } from 'date-fns';
 import { getActor, can } from '@/lib/server/auth/actor';
 import { listPeople } from '@/lib/server/admin/list-people';
 import { formatInZone } from '@/lib/core/protests/protest-window';
-import { PeopleList } from './people-list';
+import { PeopleList } from '../people-list';
 
 export const metadata: Metadata = { title: 'Administration' };
 

@@ -5,7 +5,7 @@ import { getActor, allRolesOf } from '@/lib/server/auth/actor';
 import { rolesCan } from '@/lib/core/auth/permissions';
 import { listOrganisedMeetings } from '@/lib/server/events/list-organised-meetings';
 import Link from 'next/link';
-import { InviteStaffForm } from './invite-staff-form';
+import { InviteStaffForm } from '../invite-staff-form';
 
 export const metadata: Metadata = { title: 'Organise' };
 

@@ -3,7 +3,7 @@ import Link from 'next/link';
 import { can } from '@/lib/server/auth/actor';
 import { openEventPageWithHeading } from '@/lib/server/auth/page-access';
 import { listInstruments } from '@/lib/server/inspections/list-instruments';
-import { DockScreen } from './dock-screen';
+import { DockScreen } from '../dock-screen';
 
 export const metadata: Metadata = { title: 'Dock inspection' };
 export const dynamic = 'force-dynamic';

@@ -3,7 +3,7 @@ import Link from 'next/link';
 import { openEventPage } from '@/lib/server/auth/page-access';
 import { listStewardQueue } from '@/lib/server/protests/list-steward-queue';
 import { formatMoney } from '@/lib/core/inputs/entries';
-import { DecisionCaution, ProtestStatusBadge } from '../../protests/protest-badges';
+import { DecisionCaution, ProtestStatusBadge } from '../../../protests/protest-badges';
 
 export const metadata: Metadata = { title: 'Protest queue' };
 export const dynamic = 'force-dynamic';

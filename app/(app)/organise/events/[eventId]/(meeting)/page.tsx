@@ -3,9 +3,9 @@ import Link from 'next/link';
 import { openEventPage } from '@/lib/server/auth/page-access';
 import { getEventForOrganiser } from '@/lib/server/events/save-event';
 import { listEventClasses, listCopyableClasses } from '@/lib/server/classes/manage-classes';
-import { EventForm } from '../event-form';
-import { NewClassForm } from './new-class-form';
-import { InviteStaffForm } from '../../invite-staff-form';
+import { EventForm } from '../../event-form';
+import { NewClassForm } from '../new-class-form';
+import { InviteStaffForm } from '../../../invite-staff-form';
 
 export const metadata: Metadata = { title: 'Meeting' };
 

@@ -7,8 +7,8 @@ import { getClassWithVersions } from '@/lib/server/classes/manage-classes';
 import { diffRules, ruleLabel } from '@/lib/core/classes/diff-rules';
 import { AppError } from '@/lib/core/errors';
 import { SafetyNote } from '@/components/safety-note';
-import { RulesForm } from './rules-form';
-import { PublishForm } from './publish-form';
+import { RulesForm } from '../rules-form';
+import { PublishForm } from '../publish-form';
 
 export const metadata: Metadata = { title: 'Class rules' };
 
