@@ -17,4 +17,5 @@ const openProtestById = cache(async (protestId: string) => {
   });
 });
 
-export const openMyProtest = async (params: Promise<{ protestId: string }>) => openProtestById((await params).protestId);
+export const openMyProtest = async (params: Promise<{ protestId: string }>) =>
+  openProtestById((await params).protestId);

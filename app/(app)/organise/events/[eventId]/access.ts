@@ -28,7 +28,11 @@ const readClass = cache(async (actor: Actor, eventId: string, classId: string) =
 
 async function openClass(params: ClassParams, permission: 'class.edit' | 'report.publish') {
   const access = await openEventPage(params, permission, { ids: ['classId'] });
-  return { ...access, classId: access.ids.classId, cls: await readClass(access.actor, access.eventId, access.ids.classId) };
+  return {
+    ...access,
+    classId: access.ids.classId,
+    cls: await readClass(access.actor, access.eventId, access.ids.classId),
+  };
 }
 
 export const openClassRules = (params: ClassParams) => openClass(params, 'class.edit');
