@@ -37,7 +37,8 @@ const PAGES = (eventId: string, classId: string) => [
   { path: `/inspect/${eventId}/instruments`, allowed: DEMO.chief },
 ];
 
-const isRedirectTo = (res: Response, target: RegExp) => [303, 307].includes(res.status) && target.test(new URL(res.headers.get('location') ?? '', 'http://x').pathname);
+const isRedirectTo = (res: Response, target: RegExp) =>
+  [303, 307].includes(res.status) && target.test(new URL(res.headers.get('location') ?? '', 'http://x').pathname);
 
 test.after(closeDb);
 
@@ -48,15 +49,18 @@ test('anonymous visitors are sent to sign in from every meeting page', async () 
   }
 });
 
-test('a malformed meeting or class id is a 404, even for the meeting\'s staff', async () => {
+test("a malformed meeting or class id is a 404, even for the meeting's staff", async () => {
   const [cls] = await query<{ id: string }>('select id from race_classes where event_id = $1 limit 1', [M]);
-  for (const { path, allowed } of [...PAGES('not-a-meeting', cls.id), ...PAGES(M, 'not-a-class').filter((p) => p.path.includes('not-a-class'))]) {
+  for (const { path, allowed } of [
+    ...PAGES('not-a-meeting', cls.id),
+    ...PAGES(M, 'not-a-class').filter((p) => p.path.includes('not-a-class')),
+  ]) {
     const res = await (await as(allowed)).fetch(path);
     assert.equal(res.status, 404, path);
   }
 });
 
-test('without the permission at that meeting: /not-allowed (an entrant; staff of the meeting at another meeting\'s id)', async () => {
+test("without the permission at that meeting: /not-allowed (an entrant; staff of the meeting at another meeting's id)", async () => {
   const [cls] = await query<{ id: string }>('select id from race_classes where event_id = $1 limit 1', [M]);
   for (const { path } of PAGES(M, cls.id)) {
     const res = await (await as(DEMO.entrant)).fetch(path);
@@ -70,19 +74,25 @@ test('without the permission at that meeting: /not-allowed (an entrant; staff of
 
 test('the dock sends a board-only official to the board and anyone else without it to /not-allowed', async () => {
   const organiser = await (await as(DEMO.organiser)).fetch(`/inspect/${M}`);
-  assert.ok(isRedirectTo(organiser, new RegExp(`^/inspect/${M}/board$`)), `organiser: ${organiser.status} ${organiser.headers.get('location')}`);
+  assert.ok(
+    isRedirectTo(organiser, new RegExp(`^/inspect/${M}/board$`)),
+    `organiser: ${organiser.status} ${organiser.headers.get('location')}`,
+  );
   const steward = await (await as(DEMO.steward)).fetch(`/inspect/${M}`);
   assert.ok(isRedirectTo(steward, /^\/not-allowed$/), `steward: ${steward.status}`);
 });
 
-test('the meeting\'s staff open each page and see the meeting\'s name where the page shows it', async () => {
+test("the meeting's staff open each page and see the meeting's name where the page shows it", async () => {
   const [event] = await query<{ name: string }>('select name from events where id = $1', [M]);
-  const [cls] = await query<{ id: string }>('select id from race_classes where event_id = $1 order by code limit 1', [M]);
+  const [cls] = await query<{ id: string }>('select id from race_classes where event_id = $1 order by code limit 1', [
+    M,
+  ]);
   for (const { path, allowed } of PAGES(M, cls.id)) {
     const res = await (await as(allowed)).fetch(path);
     const html = await res.text();
     assert.ok(res.status === 200, `${allowed} ${path}: ${res.status}`);
-    if (/\/(entries|audit|board|custody|instruments)$|\/inspect\/[^/]+$/.test(path)) assert.ok(html.includes(event.name.replace(/&/g, '&amp;')), `${path} names the meeting`);
+    if (/\/(entries|audit|board|custody|instruments)$|\/inspect\/[^/]+$/.test(path))
+      assert.ok(html.includes(event.name.replace(/&/g, '&amp;')), `${path} names the meeting`);
   }
 });
 
@@ -108,7 +118,8 @@ test('the area index pages keep their statuses: sign in first, /not-allowed with
   for (const [email, path, want] of expected) {
     const res = await (await as(email)).fetch(path);
     if (want === 200) assert.equal(res.status, 200, `${email} ${path}`);
-    else assert.ok(isRedirectTo(res, /^\/not-allowed$/), `${email} ${path}: ${res.status} ${res.headers.get('location')}`);
+    else
+      assert.ok(isRedirectTo(res, /^\/not-allowed$/), `${email} ${path}: ${res.status} ${res.headers.get('location')}`);
   }
 });
 

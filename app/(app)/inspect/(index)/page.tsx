@@ -12,7 +12,9 @@ export const dynamic = 'force-dynamic';
 export default async function InspectPage() {
   const actor = await getActor();
   if (!actor) redirect('/sign-in');
-  const meetings = (await listMyMeetings(actor)).filter((m) => can(actor, 'inspection.record', { eventId: m.id }) || can(actor, 'inspection.board', { eventId: m.id }));
+  const meetings = (await listMyMeetings(actor)).filter(
+    (m) => can(actor, 'inspection.record', { eventId: m.id }) || can(actor, 'inspection.board', { eventId: m.id }),
+  );
   return (
     <div className="space-y-6 text-lg">
       <h1>Inspect</h1>
@@ -23,10 +25,20 @@ export default async function InspectPage() {
           {meetings.map((m) => (
             <li key={m.id} className="card space-y-3" data-event-id={m.id}>
               <h2 className="text-xl">{m.name}</h2>
-              <p className="text-ink-soft">{m.venue} · {format(parseISO(m.startsOn), 'd MMM yyyy')}–{format(parseISO(m.endsOn), 'd MMM yyyy')}</p>
+              <p className="text-ink-soft">
+                {m.venue} · {format(parseISO(m.startsOn), 'd MMM yyyy')}–{format(parseISO(m.endsOn), 'd MMM yyyy')}
+              </p>
               <div className="flex flex-wrap gap-3">
-                {can(actor, 'inspection.record', { eventId: m.id }) && <Link href={`/inspect/${m.id}`} className="btn-primary text-lg">Dock screen</Link>}
-                {can(actor, 'inspection.board', { eventId: m.id }) && <Link href={`/inspect/${m.id}/board`} className="btn-secondary text-lg">Inspection board</Link>}
+                {can(actor, 'inspection.record', { eventId: m.id }) && (
+                  <Link href={`/inspect/${m.id}`} className="btn-primary text-lg">
+                    Dock screen
+                  </Link>
+                )}
+                {can(actor, 'inspection.board', { eventId: m.id }) && (
+                  <Link href={`/inspect/${m.id}/board`} className="btn-secondary text-lg">
+                    Inspection board
+                  </Link>
+                )}
               </div>
             </li>
           ))}

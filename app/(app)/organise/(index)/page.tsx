@@ -21,14 +21,22 @@ export default async function OrganisePage() {
     <div className="space-y-6">
       <div className="flex flex-wrap items-center justify-between gap-3">
         <h1 data-testid="organise-heading">Organise</h1>
-        {actor.organiserOf.length > 0 && <Link href="/organise/events/new" className="btn-primary">New meeting</Link>}
+        {actor.organiserOf.length > 0 && (
+          <Link href="/organise/events/new" className="btn-primary">
+            New meeting
+          </Link>
+        )}
       </div>
       {meetings.length === 0 && <p>You organise no meetings yet.</p>}
       {meetings.map((m) => (
         <section key={m.id} className="card space-y-4" aria-labelledby={`m-${m.id}`}>
           <div>
-            <h2 id={`m-${m.id}`}><Link href={`/organise/events/${m.id}`}>{m.name}</Link></h2>
-            <p className="text-ink-soft">{m.venue} · from {format(parseISO(m.startsOn), 'd MMM yyyy')} · {m.status.replace('_', ' ')}</p>
+            <h2 id={`m-${m.id}`}>
+              <Link href={`/organise/events/${m.id}`}>{m.name}</Link>
+            </h2>
+            <p className="text-ink-soft">
+              {m.venue} · from {format(parseISO(m.startsOn), 'd MMM yyyy')} · {m.status.replace('_', ' ')}
+            </p>
           </div>
           <div>
             <h3>Staff</h3>
@@ -37,7 +45,10 @@ export default async function OrganisePage() {
                 <li key={`${s.userId}-${s.role}`} className="flex flex-wrap justify-between gap-2 py-2">
                   <span>
                     {s.name ?? s.email} <span className="text-ink-mute">{s.email}</span>{' '}
-                    <span data-testid="staff-address-state" className={s.isAddressProven ? 'text-sm text-pass-800' : 'text-sm font-bold text-doubt-800'}>
+                    <span
+                      data-testid="staff-address-state"
+                      className={s.isAddressProven ? 'text-sm text-pass-800' : 'text-sm font-bold text-doubt-800'}
+                    >
                       {s.isAddressProven ? '· address confirmed' : '· address not confirmed'}
                     </span>
                   </span>
@@ -51,8 +62,13 @@ export default async function OrganisePage() {
                 <ul className="mt-2 divide-y divide-paper-line">
                   {m.pendingInvitations.map((i) => (
                     <li key={`${i.email}-${i.role}`} className="flex flex-wrap justify-between gap-2 py-2">
-                      <span>{i.email} <span className="text-sm text-ink-mute">· the role waits for whoever holds this mailbox</span></span>
-                      <span>{ROLE_LABEL[i.role]} · until {format(parseISO(i.expiresAt), 'd MMM')}</span>
+                      <span>
+                        {i.email}{' '}
+                        <span className="text-sm text-ink-mute">· the role waits for whoever holds this mailbox</span>
+                      </span>
+                      <span>
+                        {ROLE_LABEL[i.role]} · until {format(parseISO(i.expiresAt), 'd MMM')}
+                      </span>
                     </li>
                   ))}
                 </ul>
@@ -60,8 +76,12 @@ export default async function OrganisePage() {
             )}
           </div>
           <div className="flex flex-wrap gap-2">
-            <Link href={`/organise/events/${m.id}`} className="btn-primary">Meeting, classes and rules</Link>
-            <Link href={`/organise/events/${m.id}/entries`} className="btn-secondary">Entries</Link>
+            <Link href={`/organise/events/${m.id}`} className="btn-primary">
+              Meeting, classes and rules
+            </Link>
+            <Link href={`/organise/events/${m.id}/entries`} className="btn-secondary">
+              Entries
+            </Link>
           </div>
           <InviteStaffForm eventId={m.id} />
         </section>

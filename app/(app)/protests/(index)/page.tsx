@@ -19,21 +19,32 @@ export default async function MyProtestsPage() {
     <div className="space-y-6">
       <h1>My protests</h1>
       <DecisionCaution />
-      {protests.length === 0 ? <p className="card text-ink-soft">You have no protests, and none has been lodged against your boats.</p> : (
+      {protests.length === 0 ? (
+        <p className="card text-ink-soft">You have no protests, and none has been lodged against your boats.</p>
+      ) : (
         <ul className="space-y-3" data-testid="my-protests">
           {protests.map((p) => (
             <li key={p.id} className="card flex flex-wrap items-start justify-between gap-2" data-protest-id={p.id}>
               <div>
-                <Link href={`/protests/${p.id}`} className="text-lg font-bold">{p.lodgedById === actor.id ? `Against ${p.targetLabel}` : `Against your boat ${p.targetLabel}`}</Link>
-                <p className="text-ink-soft">{p.eventName} · {p.ruleReference}</p>
+                <Link href={`/protests/${p.id}`} className="text-lg font-bold">
+                  {p.lodgedById === actor.id ? `Against ${p.targetLabel}` : `Against your boat ${p.targetLabel}`}
+                </Link>
+                <p className="text-ink-soft">
+                  {p.eventName} · {p.ruleReference}
+                </p>
               </div>
               <ProtestStatusBadge status={p.status} />
             </li>
           ))}
         </ul>
       )}
-      {events.length > 0 ? <LodgeProtestForm events={events} /> : (
-        <p className="card text-ink-soft">You can lodge a protest at a meeting where you have a confirmed entry, once provisional results are published there.</p>
+      {events.length > 0 ? (
+        <LodgeProtestForm events={events} />
+      ) : (
+        <p className="card text-ink-soft">
+          You can lodge a protest at a meeting where you have a confirmed entry, once provisional results are published
+          there.
+        </p>
       )}
     </div>
   );

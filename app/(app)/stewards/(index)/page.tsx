@@ -17,16 +17,33 @@ export default async function StewardsPage() {
   return (
     <div className="space-y-6">
       <h1>Stewards</h1>
-      {events.length === 0 ? <p className="card">You are not a steward or organiser at any meeting.</p> : (
+      {events.length === 0 ? (
+        <p className="card">You are not a steward or organiser at any meeting.</p>
+      ) : (
         <ul className="space-y-3">
           {events.map((e) => (
             <li key={e.id} className="card flex flex-wrap items-center justify-between gap-3" data-event-id={e.id}>
-              <div><h2 className="text-xl">{e.name}</h2><p className="text-ink-soft">{e.venue} · {formatCalendarDate(e.startsOn)}</p></div>
+              <div>
+                <h2 className="text-xl">{e.name}</h2>
+                <p className="text-ink-soft">
+                  {e.venue} · {formatCalendarDate(e.startsOn)}
+                </p>
+              </div>
               <div className="flex flex-wrap gap-2">
-                <Link href={`/stewards/${e.id}`} className="btn-primary">Protests</Link>
-                <Link href={`/stewards/${e.id}/audit`} className="btn-secondary">Audit trail</Link>
-                <Link href={`/stewards/${e.id}/interests`} className="btn-secondary">Declared interests</Link>
-                {e.canPublishResults && <Link href={`/organise/events/${e.id}/results`} className="btn-secondary">Provisional results</Link>}
+                <Link href={`/stewards/${e.id}`} className="btn-primary">
+                  Protests
+                </Link>
+                <Link href={`/stewards/${e.id}/audit`} className="btn-secondary">
+                  Audit trail
+                </Link>
+                <Link href={`/stewards/${e.id}/interests`} className="btn-secondary">
+                  Declared interests
+                </Link>
+                {e.canPublishResults && (
+                  <Link href={`/organise/events/${e.id}/results`} className="btn-secondary">
+                    Provisional results
+                  </Link>
+                )}
               </div>
             </li>
           ))}
@@ -39,8 +56,15 @@ export default async function StewardsPage() {
           <ul className="space-y-3">
             {officiating.map((e) => (
               <li key={e.id} className="card flex flex-wrap items-center justify-between gap-3" data-event-id={e.id}>
-                <div><h3 className="text-xl">{e.name}</h3><p className="text-ink-soft">{e.venue} · {formatCalendarDate(e.startsOn)}</p></div>
-                <Link href={`/stewards/${e.id}/interests`} className="btn-secondary">Declared interests</Link>
+                <div>
+                  <h3 className="text-xl">{e.name}</h3>
+                  <p className="text-ink-soft">
+                    {e.venue} · {formatCalendarDate(e.startsOn)}
+                  </p>
+                </div>
+                <Link href={`/stewards/${e.id}/interests`} className="btn-secondary">
+                  Declared interests
+                </Link>
               </li>
             ))}
           </ul>

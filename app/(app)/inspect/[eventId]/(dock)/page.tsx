@@ -19,9 +19,15 @@ export default async function DockPage({ params }: { params: Promise<{ eventId: 
       <div className="flex flex-wrap items-center justify-between gap-3">
         <h1>Dock inspection</h1>
         <div className="flex flex-wrap gap-2">
-          <Link href={`/inspect/${eventId}/board`} className="btn-secondary text-lg">Inspection board</Link>
-          <Link href={`/inspect/${eventId}/custody`} className="btn-secondary text-lg">Parts in custody</Link>
-          <Link href={`/inspect/${eventId}/instruments`} className="btn-secondary text-lg">Instruments</Link>
+          <Link href={`/inspect/${eventId}/board`} className="btn-secondary text-lg">
+            Inspection board
+          </Link>
+          <Link href={`/inspect/${eventId}/custody`} className="btn-secondary text-lg">
+            Parts in custody
+          </Link>
+          <Link href={`/inspect/${eventId}/instruments`} className="btn-secondary text-lg">
+            Instruments
+          </Link>
         </div>
       </div>
       <DockScreen eventId={eventId} actorId={actor.id} instruments={instruments} />

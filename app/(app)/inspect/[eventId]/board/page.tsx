@@ -20,13 +20,27 @@ export default async function BoardPage({ params }: { params: Promise<{ eventId:
       <div className="flex flex-wrap items-center justify-between gap-3">
         <h1>Inspection board</h1>
         <div className="flex flex-wrap gap-2">
-          {canRecord && <Link href={`/inspect/${eventId}`} className="btn-secondary text-lg">Dock screen</Link>}
-          {can(actor, 'custody.view', { eventId }) && <Link href={`/inspect/${eventId}/custody`} className="btn-secondary text-lg">Parts in custody</Link>}
-          <Link href={`/inspect/${eventId}/instruments`} className="btn-secondary text-lg">Instruments</Link>
+          {canRecord && (
+            <Link href={`/inspect/${eventId}`} className="btn-secondary text-lg">
+              Dock screen
+            </Link>
+          )}
+          {can(actor, 'custody.view', { eventId }) && (
+            <Link href={`/inspect/${eventId}/custody`} className="btn-secondary text-lg">
+              Parts in custody
+            </Link>
+          )}
+          <Link href={`/inspect/${eventId}/instruments`} className="btn-secondary text-lg">
+            Instruments
+          </Link>
         </div>
       </div>
       <Suspense fallback={<p>Loading the board…</p>}>
-        <BoardView eventId={eventId} canAssign={can(actor, 'inspection.assign_reinspection', { eventId })} canRecord={canRecord} />
+        <BoardView
+          eventId={eventId}
+          canAssign={can(actor, 'inspection.assign_reinspection', { eventId })}
+          canRecord={canRecord}
+        />
       </Suspense>
     </div>
   );

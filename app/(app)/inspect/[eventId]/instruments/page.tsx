@@ -21,21 +21,37 @@ export default async function InstrumentsPage({ params }: { params: Promise<{ ev
   return (
     <div className="space-y-5 text-lg">
       <nav aria-label="Breadcrumb" className="text-lg">
-        <Link href="/inspect">Inspect</Link> / <Link href={`/inspect/${eventId}/board`}>{event.name}</Link> / Instruments
+        <Link href="/inspect">Inspect</Link> / <Link href={`/inspect/${eventId}/board`}>{event.name}</Link> /
+        Instruments
       </nav>
       <h1>Measuring instruments</h1>
-      <p className="text-ink-soft">The instruments the scrutineers may choose at the dock. Each brings its expanded uncertainty U (k = 2) to the verdicts: from its certificate, or from its error limit a and resolution δ as U = 2·√(a²/3 + δ²/12) (JCGM 100:2008).</p>
-      {canManage ? <AddInstrumentForm eventId={eventId} /> : <p>Only the chief scrutineer or the organiser adds and retires instruments.</p>}
+      <p className="text-ink-soft">
+        The instruments the scrutineers may choose at the dock. Each brings its expanded uncertainty U (k = 2) to the
+        verdicts: from its certificate, or from its error limit a and resolution δ as U = 2·√(a²/3 + δ²/12) (JCGM
+        100:2008).
+      </p>
+      {canManage ? (
+        <AddInstrumentForm eventId={eventId} />
+      ) : (
+        <p>Only the chief scrutineer or the organiser adds and retires instruments.</p>
+      )}
       <section aria-labelledby="in-service-heading" className="space-y-3">
-        <h2 id="in-service-heading" className="text-xl">In service ({inService.length})</h2>
-        {inService.length === 0 ? <p>None yet: the dock falls back on a typed U or the class default.</p> : (
+        <h2 id="in-service-heading" className="text-xl">
+          In service ({inService.length})
+        </h2>
+        {inService.length === 0 ? (
+          <p>None yet: the dock falls back on a typed U or the class default.</p>
+        ) : (
           <ul className="space-y-3" data-testid="instruments-in-service">
             {inService.map((i) => (
               <li key={i.id} className="card space-y-2" data-instrument-id={i.id}>
                 <div className="flex flex-wrap items-start justify-between gap-2">
                   <div>
                     <p className="font-bold">{i.name}</p>
-                    <p className="text-ink-soft">{i.quantity === 'length' ? 'Length (mm)' : 'Mass (kg)'} · U <span className="figure">{formatFigure(i.appliedExpandedUncertainty, U_KIND[i.quantity])}</span></p>
+                    <p className="text-ink-soft">
+                      {i.quantity === 'length' ? 'Length (mm)' : 'Mass (kg)'} · U{' '}
+                      <span className="figure">{formatFigure(i.appliedExpandedUncertainty, U_KIND[i.quantity])}</span>
+                    </p>
                     <p className="text-base text-ink-soft">{i.basis}</p>
                   </div>
                   {canManage && <RetireInstrumentButton eventId={eventId} instrumentId={i.id} name={i.name} />}
@@ -47,11 +63,19 @@ export default async function InstrumentsPage({ params }: { params: Promise<{ ev
       </section>
       {retired.length > 0 && (
         <section aria-labelledby="retired-heading" className="space-y-2">
-          <h2 id="retired-heading" className="text-xl">Retired ({retired.length})</h2>
+          <h2 id="retired-heading" className="text-xl">
+            Retired ({retired.length})
+          </h2>
           <ul className="divide-y divide-paper-line" data-testid="instruments-retired">
             {retired.map((i) => (
               <li key={i.id} className="py-2" data-instrument-id={i.id}>
-                <span className="font-bold">{i.name}</span> · retired {new Date(i.retiredAt!).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: event.timeZone })} ({event.timeZone}); records made with it keep it.
+                <span className="font-bold">{i.name}</span> · retired{' '}
+                {new Date(i.retiredAt!).toLocaleString('en-GB', {
+                  dateStyle: 'medium',
+                  timeStyle: 'short',
+                  timeZone: event.timeZone,
+                })}{' '}
+                ({event.timeZone}); records made with it keep it.
               </li>
             ))}
           </ul>

@@ -18,23 +18,41 @@ export default async function EventPage({ params }: { params: Promise<{ eventId:
   ]);
   return (
     <div className="space-y-6">
-      <nav aria-label="Breadcrumb" className="text-sm"><Link href="/organise">Organise</Link> / {event.name}</nav>
+      <nav aria-label="Breadcrumb" className="text-sm">
+        <Link href="/organise">Organise</Link> / {event.name}
+      </nav>
       <div className="flex flex-wrap items-center justify-between gap-3">
         <h1>{event.name}</h1>
         <div className="flex flex-wrap gap-2">
-          <Link href={`/organise/events/${event.id}/entries`} className="btn-primary">Entries</Link>
-          <Link href={`/inspect/${event.id}/board`} className="btn-secondary">Inspection board</Link>
-          <Link href={`/organise/events/${event.id}/results`} className="btn-secondary">Provisional results</Link>
-          <Link href={`/stewards/${event.id}/audit`} className="btn-secondary">Audit trail</Link>
-          <Link href={`/inspect/${event.id}/custody`} className="btn-secondary">Parts in custody</Link>
-          <a href={`/api/events/${event.id}/tag-sheet?sheet=a4-2x7`} className="btn-secondary">Tag sheet (A4)</a>
-          <a href={`/api/events/${event.id}/tag-sheet?sheet=letter-2x5`} className="btn-secondary">Tag sheet (Letter)</a>
+          <Link href={`/organise/events/${event.id}/entries`} className="btn-primary">
+            Entries
+          </Link>
+          <Link href={`/inspect/${event.id}/board`} className="btn-secondary">
+            Inspection board
+          </Link>
+          <Link href={`/organise/events/${event.id}/results`} className="btn-secondary">
+            Provisional results
+          </Link>
+          <Link href={`/stewards/${event.id}/audit`} className="btn-secondary">
+            Audit trail
+          </Link>
+          <Link href={`/inspect/${event.id}/custody`} className="btn-secondary">
+            Parts in custody
+          </Link>
+          <a href={`/api/events/${event.id}/tag-sheet?sheet=a4-2x7`} className="btn-secondary">
+            Tag sheet (A4)
+          </a>
+          <a href={`/api/events/${event.id}/tag-sheet?sheet=letter-2x5`} className="btn-secondary">
+            Tag sheet (Letter)
+          </a>
         </div>
       </div>
 
       <section aria-labelledby="classes" className="card space-y-4">
         <h2 id="classes">Classes and rules</h2>
-        {classes.length === 0 ? <p>No classes yet.</p> : (
+        {classes.length === 0 ? (
+          <p>No classes yet.</p>
+        ) : (
           <ul className="divide-y divide-paper-line">
             {classes.map((c) => (
               <li key={c.id} className="flex flex-wrap items-center justify-between gap-2 py-3">
@@ -42,7 +60,11 @@ export default async function EventPage({ params }: { params: Promise<{ eventId:
                   {c.code} · {c.name}
                 </Link>
                 <span className="text-sm">
-                  {c.publishedVersion && <Link href={`/organise/events/${event.id}/classes/${c.id}/report`} className="mr-2 font-bold">Parity report</Link>}
+                  {c.publishedVersion && (
+                    <Link href={`/organise/events/${event.id}/classes/${c.id}/report`} className="mr-2 font-bold">
+                      Parity report
+                    </Link>
+                  )}
                   {c.publishedVersion ? `rules v${c.publishedVersion} published` : 'rules not published'}
                   {c.latestStatus === 'draft' && ` · draft v${c.latestVersion} open`}
                 </span>
@@ -60,7 +82,9 @@ export default async function EventPage({ params }: { params: Promise<{ eventId:
 
       <section aria-labelledby="staff" className="card space-y-3">
         <h2 id="staff">Staff</h2>
-        <p>The staff list is on the <Link href="/organise">Organise</Link> page.</p>
+        <p>
+          The staff list is on the <Link href="/organise">Organise</Link> page.
+        </p>
         <InviteStaffForm eventId={event.id} />
       </section>
     </div>

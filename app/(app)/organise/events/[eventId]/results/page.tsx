@@ -13,27 +13,70 @@ export default async function ResultsPage({ params }: { params: Promise<{ eventI
   const classes = await listProvisionalResults(actor, eventId);
   return (
     <div className="space-y-6">
-      <nav aria-label="Breadcrumb" className="text-sm"><Link href="/organise">Organise</Link> / <Link href={`/organise/events/${eventId}`}>Meeting</Link> / Provisional results</nav>
+      <nav aria-label="Breadcrumb" className="text-sm">
+        <Link href="/organise">Organise</Link> / <Link href={`/organise/events/${eventId}`}>Meeting</Link> / Provisional
+        results
+      </nav>
       <h1>Provisional results</h1>
-      <p>Each publication is a numbered version that is never changed. It opens the protest window for every boat whose place it changed; the others keep their deadline.</p>
-      <ResultsForm eventId={eventId} classes={classes.map((c) => ({ classId: c.classId, label: `${c.classCode} · ${c.className}` }))} />
+      <p>
+        Each publication is a numbered version that is never changed. It opens the protest window for every boat whose
+        place it changed; the others keep their deadline.
+      </p>
+      <ResultsForm
+        eventId={eventId}
+        classes={classes.map((c) => ({ classId: c.classId, label: `${c.classCode} · ${c.className}` }))}
+      />
       {classes.map((c) => (
-        <section key={c.classId} aria-labelledby={`class-${c.classId}`} className="card space-y-3" data-class={c.classCode}>
-          <h2 id={`class-${c.classId}`}>{c.classCode} · {c.className}</h2>
-          {!c.latest ? <p className="text-ink-soft">No results published.</p> : (
+        <section
+          key={c.classId}
+          aria-labelledby={`class-${c.classId}`}
+          className="card space-y-3"
+          data-class={c.classCode}
+        >
+          <h2 id={`class-${c.classId}`}>
+            {c.classCode} · {c.className}
+          </h2>
+          {!c.latest ? (
+            <p className="text-ink-soft">No results published.</p>
+          ) : (
             <>
-              <p>Version {c.latest.version} of {c.versionCount}, published {c.latest.publishedAtLabel} ({c.latest.source === 'csv' ? 'CSV upload' : 'form'}){c.latest.note && ` — ${c.latest.note}`}.</p>
-              <p className={`font-bold ${c.latest.window.isOpen ? 'text-doubt-800' : 'text-ink-soft'}`} data-testid="results-window">
-                {c.latest.window.isOpen ? `Protest window open until ${c.latest.window.deadlineLabel}` : `Protest window closed at ${c.latest.window.deadlineLabel}`} for the boats this version changed.
+              <p>
+                Version {c.latest.version} of {c.versionCount}, published {c.latest.publishedAtLabel} (
+                {c.latest.source === 'csv' ? 'CSV upload' : 'form'}){c.latest.note && ` — ${c.latest.note}`}.
+              </p>
+              <p
+                className={`font-bold ${c.latest.window.isOpen ? 'text-doubt-800' : 'text-ink-soft'}`}
+                data-testid="results-window"
+              >
+                {c.latest.window.isOpen
+                  ? `Protest window open until ${c.latest.window.deadlineLabel}`
+                  : `Protest window closed at ${c.latest.window.deadlineLabel}`}{' '}
+                for the boats this version changed.
               </p>
               <table className="w-full text-left text-sm" data-testid="results-table">
-                <thead className="bg-paper-deep"><tr><th className="p-2">Pos.</th><th className="p-2">No.</th><th className="p-2">Boat</th><th className="p-2">Protests until</th></tr></thead>
+                <thead className="bg-paper-deep">
+                  <tr>
+                    <th className="p-2">Pos.</th>
+                    <th className="p-2">No.</th>
+                    <th className="p-2">Boat</th>
+                    <th className="p-2">Protests until</th>
+                  </tr>
+                </thead>
                 <tbody>
                   {c.latest.rows.map((r) => (
                     <tr key={r.entryId} className="border-t border-paper-line">
-                      <td className="figure p-2 font-bold">{r.position}</td><td className="figure p-2">{r.raceNumber}</td>
-                      <td className="p-2">{r.boatName}{r.isChanged && c.latest!.version > 1 && <span className="ml-1 text-xs font-bold">(changed)</span>}</td>
-                      <td className="p-2">{r.window.deadlineLabel}{!r.window.isOpen && ' (closed)'}</td>
+                      <td className="figure p-2 font-bold">{r.position}</td>
+                      <td className="figure p-2">{r.raceNumber}</td>
+                      <td className="p-2">
+                        {r.boatName}
+                        {r.isChanged && c.latest!.version > 1 && (
+                          <span className="ml-1 text-xs font-bold">(changed)</span>
+                        )}
+                      </td>
+                      <td className="p-2">
+                        {r.window.deadlineLabel}
+                        {!r.window.isOpen && ' (closed)'}
+                      </td>
                     </tr>
                   ))}
                 </tbody>

@@ -14,17 +14,28 @@ import { formatInZone } from '@/lib/core/protests/protest-window';
 export const metadata: Metadata = { title: 'Protest (stewards)' };
 export const dynamic = 'force-dynamic';
 
-export default async function StewardProtestPage({ params }: { params: Promise<{ eventId: string; protestId: string }> }) {
+export default async function StewardProtestPage({
+  params,
+}: {
+  params: Promise<{ eventId: string; protestId: string }>;
+}) {
   const { actor, eventId, protest: p } = await openStewardProtest(params);
   const parts = can(actor, 'custody.view', { eventId }) ? await listCustodyForProtest(actor, eventId, p.id) : [];
   return (
     <div className="space-y-6">
-      <nav aria-label="Breadcrumb" className="text-sm"><Link href="/stewards">Stewards</Link> / <Link href={`/stewards/${eventId}`}>{p.eventName}</Link> / {p.targetLabel}</nav>
+      <nav aria-label="Breadcrumb" className="text-sm">
+        <Link href="/stewards">Stewards</Link> / <Link href={`/stewards/${eventId}`}>{p.eventName}</Link> /{' '}
+        {p.targetLabel}
+      </nav>
       <div className="flex flex-wrap items-center justify-between gap-3">
         <h1>Protest against {p.targetLabel}</h1>
         <ProtestStatusBadge status={p.status} />
       </div>
-      {p.paidAt && p.paidAt > p.windowDeadline && <p role="note" className="rounded-lg bg-doubt-100 p-3 text-doubt-800">The fee was paid after the window closed ({p.windowDeadlineLabel}).</p>}
+      {p.paidAt && p.paidAt > p.windowDeadline && (
+        <p role="note" className="rounded-lg bg-doubt-100 p-3 text-doubt-800">
+          The fee was paid after the window closed ({p.windowDeadlineLabel}).
+        </p>
+      )}
       <ConflictNotice p={p} />
       <StewardActions p={p} />
       <ProtestFacts p={p} />
@@ -35,26 +46,40 @@ export default async function StewardProtestPage({ params }: { params: Promise<{
       </section>
       <section aria-labelledby="reinspections" className="card space-y-2">
         <h2 id="reinspections">Re-inspections ordered</h2>
-        {p.reinspections.length === 0 ? <p>None.</p> : (
+        {p.reinspections.length === 0 ? (
+          <p>None.</p>
+        ) : (
           <ul data-testid="reinspections">
             {p.reinspections.map((t) => (
-              <li key={t.id} data-reinspection-id={t.id}>{t.reason} — {t.inspectionId ? (
-                    <>
-                      recorded: <strong>{t.verdict?.replace(/_/g, ' ') ?? 'no verdict'}</strong>{t.doneAt ? ` (${formatInZone(new Date(t.doneAt), p.timeZone)})` : ''} —{' '}
-                      <Link href={`/stewards/${p.eventId}/audit?kind=inspection`}>see it in the audit trail</Link>
-                    </>
-                  ) : 'waiting for the scrutineers'}</li>
+              <li key={t.id} data-reinspection-id={t.id}>
+                {t.reason} —{' '}
+                {t.inspectionId ? (
+                  <>
+                    recorded: <strong>{t.verdict?.replace(/_/g, ' ') ?? 'no verdict'}</strong>
+                    {t.doneAt ? ` (${formatInZone(new Date(t.doneAt), p.timeZone)})` : ''} —{' '}
+                    <Link href={`/stewards/${p.eventId}/audit?kind=inspection`}>see it in the audit trail</Link>
+                  </>
+                ) : (
+                  'waiting for the scrutineers'
+                )}
+              </li>
             ))}
           </ul>
         )}
       </section>
       <section aria-labelledby="custody" className="card space-y-2">
         <h2 id="custody">Parts kept for this protest</h2>
-        {parts.length === 0 ? <p>None. Parts are taken into custody on the <Link href={`/inspect/${eventId}/custody`}>custody page</Link>.</p> : (
+        {parts.length === 0 ? (
+          <p>
+            None. Parts are taken into custody on the <Link href={`/inspect/${eventId}/custody`}>custody page</Link>.
+          </p>
+        ) : (
           <ul className="space-y-1" data-testid="protest-custody">
             {parts.map((i) => (
               <li key={i.id}>
-                {i.description}{i.sealNumber && ` (seal/bag ${i.sealNumber})`}, no. {i.raceNumber}, taken by {i.takenBy} {formatInZone(i.takenAt, p.timeZone)}
+                {i.description}
+                {i.sealNumber && ` (seal/bag ${i.sealNumber})`}, no. {i.raceNumber}, taken by {i.takenBy}{' '}
+                {formatInZone(i.takenAt, p.timeZone)}
                 {i.release ? ` — released to ${i.release.releasedTo}` : ' — held'}
               </li>
             ))}

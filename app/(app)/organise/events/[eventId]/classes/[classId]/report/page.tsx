@@ -21,7 +21,13 @@ export default async function DraftReportPage({ params }: { params: Promise<{ ev
   } catch (err) {
     if (err instanceof AppError && err.status === 404) notFound();
     if (err instanceof AppError && err.status === 409) {
-      return <div className="card space-y-2"><h1>Parity report</h1><p>{err.message}</p><Link href={`/organise/events/${eventId}/classes/${classId}`}>Publish the class rules first</Link></div>;
+      return (
+        <div className="card space-y-2">
+          <h1>Parity report</h1>
+          <p>{err.message}</p>
+          <Link href={`/organise/events/${eventId}/classes/${classId}`}>Publish the class rules first</Link>
+        </div>
+      );
     }
     throw err;
   }
@@ -33,20 +39,34 @@ export default async function DraftReportPage({ params }: { params: Promise<{ ev
         <Link href="/organise">Organise</Link> / <Link href={`/organise/events/${eventId}`}>Meeting</Link> /{' '}
         <Link href={`/organise/events/${eventId}/classes/${classId}`}>{draft.inputs.classCode}</Link> / Parity report
       </nav>
-      <h1 data-testid="draft-heading">Parity report draft · {draft.inputs.classCode} {draft.inputs.className}</h1>
-      <p className="rounded-lg bg-doubt-100 p-3">This draft is computed from the latest inspections each time the page loads. Nothing is public until you publish a version.</p>
+      <h1 data-testid="draft-heading">
+        Parity report draft · {draft.inputs.classCode} {draft.inputs.className}
+      </h1>
+      <p className="rounded-lg bg-doubt-100 p-3">
+        This draft is computed from the latest inspections each time the page loads. Nothing is public until you publish
+        a version.
+      </p>
       <SafetyNote />
       <ParityReport inputs={draft.inputs} results={draft.results} />
       <ModelAssumptions inputs={draft.inputs} />
       <WhatIfSandbox eventId={eventId} classId={classId} inputs={draft.inputs} rules={inForce.rules} />
       <section className="card space-y-3" aria-labelledby="publish">
-        <h2 id="publish" className="text-xl">Publish</h2>
-        <PublishReportForm eventId={eventId} classId={classId} nextNumber={(versions[0]?.number ?? 0) + 1} canPublish={draft.inputs.boats.length > 0} />
+        <h2 id="publish" className="text-xl">
+          Publish
+        </h2>
+        <PublishReportForm
+          eventId={eventId}
+          classId={classId}
+          nextNumber={(versions[0]?.number ?? 0) + 1}
+          canPublish={draft.inputs.boats.length > 0}
+        />
         {versions.length > 0 && (
           <ul className="space-y-1" data-testid="published-versions">
             {versions.map((v) => (
               <li key={v.id}>
-                <Link href={`/reports/${v.publicId}`}>Version {v.number}</Link> · {formatTime(v.publishedAt, cls.timeZone)}{v.note && ` · ${v.note}`}
+                <Link href={`/reports/${v.publicId}`}>Version {v.number}</Link> ·{' '}
+                {formatTime(v.publishedAt, cls.timeZone)}
+                {v.note && ` · ${v.note}`}
               </li>
             ))}
           </ul>
