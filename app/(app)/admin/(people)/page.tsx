@@ -12,22 +12,13 @@ export default async function AdminPage() {
   const people = await listPeople(actor);
   const suspended = people.filter((p) => p.suspendedAt).length;
   // Dates are worded on the server, so the page reads the same wherever it is opened.
-  const labels = Object.fromEntries(
-    people.map((p) => [
-      p.id,
-      {
-        joined: format(new Date(p.createdAt), 'd MMM yyyy'),
-        suspended: p.suspendedAt ? formatInZone(p.suspendedAt, 'UTC') : null,
-      },
-    ]),
-  );
+  const labels = Object.fromEntries(people.map((p) => [p.id, {
+    joined: format(new Date(p.createdAt), 'd MMM yyyy'), suspended: p.suspendedAt ? formatInZone(p.suspendedAt, 'UTC') : null,
+  }]));
   return (
     <div className="space-y-4">
       <h1>Administration</h1>
-      <h2 className="text-xl">
-        People ({people.length}
-        {suspended ? `, ${suspended} suspended` : ''})
-      </h2>
+      <h2 className="text-xl">People ({people.length}{suspended ? `, ${suspended} suspended` : ''})</h2>
       <PeopleList people={people} actorId={actor.id} labels={labels} />
     </div>
   );

@@ -19,39 +19,20 @@ export default async function ClassPage({ params }: { params: Promise<{ eventId:
   return (
     <div className="space-y-6">
       <nav aria-label="Breadcrumb" className="text-sm">
-        <Link href="/organise">Organise</Link> / <Link href={`/organise/events/${eventId}`}>Meeting</Link> /{' '}
-        {raceClass.code}
+        <Link href="/organise">Organise</Link> / <Link href={`/organise/events/${eventId}`}>Meeting</Link> / {raceClass.code}
       </nav>
       <div className="flex flex-wrap items-center justify-between gap-3">
-        <h1>
-          {raceClass.code} · {raceClass.name}
-        </h1>
+        <h1>{raceClass.code} · {raceClass.name}</h1>
         {versions.some((v) => v.status === 'published') && (
-          <Link href={`/organise/events/${eventId}/classes/${classId}/report`} className="btn-primary">
-            Parity report
-          </Link>
+          <Link href={`/organise/events/${eventId}/classes/${classId}/report`} className="btn-primary">Parity report</Link>
         )}
       </div>
       {raceClass.description && <p className="text-ink-soft">{raceClass.description}</p>}
       <SafetyNote />
       <section className="card space-y-4" aria-labelledby="edit">
-        <h2 id="edit">
-          {isDraft
-            ? `Draft rules, version ${latest.version}`
-            : `Rules (version ${latest.version} is published and frozen)`}
-        </h2>
-        {!isDraft && (
-          <p>
-            Saving opens draft version {latest.version + 1}; version {latest.version} stays exactly as published.
-          </p>
-        )}
-        <RulesForm
-          eventId={eventId}
-          classId={classId}
-          rules={latest.rules}
-          editingVersion={latest.version}
-          isDraft={isDraft}
-        />
+        <h2 id="edit">{isDraft ? `Draft rules, version ${latest.version}` : `Rules (version ${latest.version} is published and frozen)`}</h2>
+        {!isDraft && <p>Saving opens draft version {latest.version + 1}; version {latest.version} stays exactly as published.</p>}
+        <RulesForm eventId={eventId} classId={classId} rules={latest.rules} editingVersion={latest.version} isDraft={isDraft} />
         {isDraft && <PublishForm eventId={eventId} classId={classId} version={latest.version} timeZone={timeZone} />}
       </section>
       <section className="card space-y-4" aria-labelledby="history">
@@ -63,35 +44,23 @@ export default async function ClassPage({ params }: { params: Promise<{ eventId:
             return (
               <li key={v.id} className="rounded-lg border border-paper-line p-4">
                 <p className="font-bold">
-                  Version {v.version} ·{' '}
-                  {v.status === 'published'
-                    ? `published ${formatTime(v.publishedAt!, timeZone)}, in force from ${formatTime(v.effectiveFrom!, timeZone)}`
-                    : 'draft'}
+                  Version {v.version} · {v.status === 'published' ? `published ${formatTime(v.publishedAt!, timeZone)}, in force from ${formatTime(v.effectiveFrom!, timeZone)}` : 'draft'}
                 </p>
                 {v.changeNote && <p className="text-ink-soft">{v.changeNote}</p>}
-                {previous &&
-                  (changes.length === 0 ? (
-                    <p className="text-sm">No change from version {previous.version}.</p>
-                  ) : (
-                    <table className="mt-2 w-full text-left text-sm">
-                      <thead>
-                        <tr>
-                          <th className="py-1 pr-2">Rule</th>
-                          <th className="py-1 pr-2">v{previous.version}</th>
-                          <th className="py-1">v{v.version}</th>
+                {previous && (changes.length === 0 ? <p className="text-sm">No change from version {previous.version}.</p> : (
+                  <table className="mt-2 w-full text-left text-sm">
+                    <thead><tr><th className="py-1 pr-2">Rule</th><th className="py-1 pr-2">v{previous.version}</th><th className="py-1">v{v.version}</th></tr></thead>
+                    <tbody>
+                      {changes.map((c) => (
+                        <tr key={c.path} className="border-t border-paper-line">
+                          <td className="py-1 pr-2">{ruleLabel(c.path)}</td>
+                          <td className="figure py-1 pr-2 text-fail-600 line-through">{show(c.before)}</td>
+                          <td className="figure py-1 font-bold text-pass-600">{show(c.after)}</td>
                         </tr>
-                      </thead>
-                      <tbody>
-                        {changes.map((c) => (
-                          <tr key={c.path} className="border-t border-paper-line">
-                            <td className="py-1 pr-2">{ruleLabel(c.path)}</td>
-                            <td className="figure py-1 pr-2 text-fail-600 line-through">{show(c.before)}</td>
-                            <td className="figure py-1 font-bold text-pass-600">{show(c.after)}</td>
-                          </tr>
-                        ))}
-                      </tbody>
-                    </table>
-                  ))}
+                      ))}
+                    </tbody>
+                  </table>
+                ))}
               </li>
             );
           })}
