@@ -28,7 +28,10 @@ async function signedIn(email: string): Promise<Page> {
 
 /** The section's not-found card: its heading, and the link back to the section's first page. */
 async function expectSectionNotFound(page: Page, path: string, heading: string, back: { name: string; href: string }) {
-  await page.goto(path);
+  const res = await page.goto(path);
+  // RFC 9110 §15.5.5: 404 Not Found. The page's check runs in a layout above its loading.tsx, so the
+  // answer is not streamed and keeps its status.
+  assert.equal(res?.status(), 404, path);
   const card = page.getByTestId('section-not-found');
   await card.waitFor();
   assert.equal(await card.getByRole('heading', { level: 1 }).innerText(), heading, path);
@@ -36,8 +39,7 @@ async function expectSectionNotFound(page: Page, path: string, heading: string, 
   // Inside the signed-in shell (its header and sign-out stay), not the root's whole-page card.
   await page.getByRole('button', { name: 'Sign out' }).waitFor();
   assert.equal(await page.getByTestId('not-found').count(), 0, `${path}: not the root page`);
-  // The framework marks a not-found answer noindex, whichever status it could still send
-  // (Next.js 16 docs, loading.js "Status codes").
+  // The framework marks a not-found answer noindex as well (Next.js 16 docs, loading.js "Status codes").
   assert.equal((await page.locator('meta[name="robots"][content*="noindex"]').count()) > 0, true, `${path}: noindex`);
 }
 

@@ -95,3 +95,48 @@ test("the meeting's staff open each page and see the meeting's name where the pa
       assert.ok(html.includes(event.name.replace(/&/g, '&amp;')), `${path} names the meeting`);
   }
 });
+
+// Each area's first page (issue 14, item 5: a loading.tsx must not cost a page its status). Statuses
+// per RFC 9110: §15.4.8 307 Temporary Redirect, §15.3.1 200 OK.
+test('the area index pages keep their statuses: sign in first, /not-allowed without the role for organise and administration', async () => {
+  const INDEXES = ['/inspect', '/organise', '/stewards', '/protests', '/admin'];
+  for (const path of INDEXES) {
+    const res = await new HttpSession().fetch(path);
+    assert.ok(isRedirectTo(res, /^\/sign-in$/), `anonymous ${path}: ${res.status} ${res.headers.get('location')}`);
+  }
+  const expected: [string, string, 200 | '/not-allowed'][] = [
+    [DEMO.entrant, '/inspect', 200],
+    [DEMO.entrant, '/stewards', 200],
+    [DEMO.entrant, '/protests', 200],
+    [DEMO.entrant, '/organise', '/not-allowed'],
+    [DEMO.steward, '/organise', '/not-allowed'],
+    [DEMO.organiser, '/organise', 200],
+    [DEMO.entrant, '/admin', '/not-allowed'],
+    [DEMO.organiser, '/admin', '/not-allowed'],
+    [DEMO.admin, '/admin', 200],
+  ];
+  for (const [email, path, want] of expected) {
+    const res = await (await as(email)).fetch(path);
+    if (want === 200) assert.equal(res.status, 200, `${email} ${path}`);
+    else
+      assert.ok(isRedirectTo(res, /^\/not-allowed$/), `${email} ${path}: ${res.status} ${res.headers.get('location')}`);
+  }
+});
+
+// RFC 9110 §15.5.5: 404 Not Found, for ids that are well formed but name nothing the caller may see.
+test('a well-formed id that names no class or protest there is a 404', async () => {
+  const paths: [string, string][] = [
+    [DEMO.organiser, `/organise/events/${M}/classes/${randomUUID()}`],
+    [DEMO.organiser, `/organise/events/${M}/classes/${randomUUID()}/report`],
+    [DEMO.steward, `/stewards/${M}/protests/${randomUUID()}`],
+    [DEMO.steward, `/stewards/${M}/protests/not-a-protest`],
+    [DEMO.entrant, `/protests/${randomUUID()}`],
+    [DEMO.entrant, '/protests/not-a-protest'],
+  ];
+  for (const [email, path] of paths) {
+    const res = await (await as(email)).fetch(path);
+    assert.equal(res.status, 404, `${email} ${path}`);
+  }
+  const anonymous = await new HttpSession().fetch(`/protests/${randomUUID()}`);
+  assert.ok(isRedirectTo(anonymous, /^\/sign-in$/), `anonymous protest: ${anonymous.status}`);
+});

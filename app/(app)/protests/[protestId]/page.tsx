@@ -1,15 +1,12 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound, redirect } from 'next/navigation';
-import { getActor } from '@/lib/server/auth/actor';
-import { AppError } from '@/lib/core/errors';
-import { getProtest } from '@/lib/server/protests/get-protest';
 import { formatMoney } from '@/lib/core/inputs/entries';
 
 import { PaymentWaiter } from '../../entries/payment-waiter';
 import { DecisionCaution, ProtestStatusBadge } from '../protest-badges';
 import { EvidenceList } from '../evidence-list';
 import { ProtestFacts } from '../protest-facts';
+import { openMyProtest } from './access';
 import { EvidenceForm } from './evidence-form';
 import { PayFeeButton } from './pay-fee-button';
 
@@ -23,13 +20,7 @@ export default async function ProtestPage({
   params: Promise<{ protestId: string }>;
   searchParams: Promise<Record<string, string | undefined>>;
 }) {
-  const actor = await getActor();
-  if (!actor) redirect('/sign-in');
-  const [{ protestId }, sp] = await Promise.all([params, searchParams]);
-  const p = await getProtest(actor, protestId).catch((err) => {
-    if (err instanceof AppError && err.status === 404) notFound();
-    throw err;
-  });
+  const [p, sp] = await Promise.all([openMyProtest(params), searchParams]);
   return (
     <div className="space-y-6">
       <nav aria-label="Breadcrumb" className="text-sm">

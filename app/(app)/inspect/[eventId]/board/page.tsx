@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { Suspense } from 'react';
 import { can } from '@/lib/server/auth/actor';
-import { openEventPageWithHeading } from '@/lib/server/auth/page-access';
+import { openBoard } from '../access';
 import { BoardView } from './board-view';
 
 export const metadata: Metadata = { title: 'Inspection board' };
@@ -10,7 +10,7 @@ export const dynamic = 'force-dynamic';
 
 // The chief scrutineer's and organiser's view of the whole meeting's inspections, refreshing itself.
 export default async function BoardPage({ params }: { params: Promise<{ eventId: string }> }) {
-  const { actor, eventId, event } = await openEventPageWithHeading(params, 'inspection.board');
+  const { actor, eventId, event } = await openBoard(params);
   const canRecord = can(actor, 'inspection.record', { eventId });
   return (
     <div className="space-y-4 text-lg">

@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { can } from '@/lib/server/auth/actor';
-import { openEventPageWithHeading } from '@/lib/server/auth/page-access';
+import { openCustody } from '../access';
 import { listCustody, listProtestsToKeepPartsFor } from '@/lib/server/custody/manage-custody';
 import { formatInZone } from '@/lib/core/protests/protest-window';
 import { PROTEST_STATUS_LABELS, OPEN_STATUSES, type ProtestStatus } from '@/lib/core/protests/protest-states';
@@ -13,7 +13,7 @@ export const dynamic = 'force-dynamic';
 
 // Parts the officials hold at the meeting: taken at the dock, released once nothing is pending.
 export default async function CustodyPage({ params }: { params: Promise<{ eventId: string }> }) {
-  const { actor, eventId, event } = await openEventPageWithHeading(params, 'custody.view');
+  const { actor, eventId, event } = await openCustody(params);
   const [items, protests] = await Promise.all([
     listCustody(actor, eventId),
     listProtestsToKeepPartsFor(actor, eventId),

@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { openEventPageWithHeading } from '@/lib/server/auth/page-access';
+import { openInstruments } from '../access';
 import { listAllInstruments } from '@/lib/server/inspections/list-instruments';
 import { canManageInstruments } from '@/lib/server/inspections/manage-instruments-access';
 import { formatFigure } from '@/lib/core/format/figures';
@@ -13,7 +13,7 @@ const U_KIND = { length: 'uncertaintyMm', mass: 'massKg' } as const;
 
 // The meeting's measuring instruments: the chief scrutineer (or organiser) adds and retires them; scrutineers see the list.
 export default async function InstrumentsPage({ params }: { params: Promise<{ eventId: string }> }) {
-  const { actor, eventId, event } = await openEventPageWithHeading(params, 'inspection.board');
+  const { actor, eventId, event } = await openInstruments(params);
   const instruments = await listAllInstruments(actor, eventId);
   const canManage = canManageInstruments(actor, eventId);
   const inService = instruments.filter((i) => !i.retiredAt);

@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { openEventPageWithHeading } from '@/lib/server/auth/page-access';
+import { openAudit } from '../access';
 import { AuditQuery, listAuditEvents } from '@/lib/server/audit/list-audit-events';
 import { AUDIT_KINDS, AUDIT_KIND_LABELS, type AuditKind } from '@/lib/core/audit/describe-audit-event';
 import { formatTime } from '@/lib/core/format/time';
@@ -17,7 +17,7 @@ export default async function AuditPage({
   params: Promise<{ eventId: string }>;
   searchParams: Promise<Record<string, string | string[] | undefined>>;
 }) {
-  const { actor, eventId, event } = await openEventPageWithHeading(params, 'audit.read');
+  const { actor, eventId, event } = await openAudit(params);
   const sp = await searchParams;
   const one = (v: string | string[] | undefined) => (Array.isArray(v) ? v[0] : v);
   // A hand-edited or stale "?before=" or "?kind=" shows the newest page of everything with a note, never an error page.

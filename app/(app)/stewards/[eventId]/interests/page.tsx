@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { can } from '@/lib/server/auth/actor';
-import { openEventPage } from '@/lib/server/auth/page-access';
+import { openInterests } from '../access';
 import { listInterestRegister } from '@/lib/server/interests/list-interest-register';
 import { INTEREST_KIND_SHORT } from '@/lib/core/inputs/interests';
 import { DeclareInterestForm } from './declare-interest-form';
@@ -12,7 +12,7 @@ export const dynamic = 'force-dynamic';
 
 // The meeting's register: every official declares their own interests; stewards and the organiser read all of it.
 export default async function InterestRegisterPage({ params }: { params: Promise<{ eventId: string }> }) {
-  const { actor, eventId } = await openEventPage(params, 'interest.declare');
+  const { actor, eventId } = await openInterests(params);
   const r = await listInterestRegister(actor, eventId);
   const isSteward = can(actor, 'protest.view_all', { eventId });
   return (

@@ -2,14 +2,14 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { Suspense } from 'react';
 import { can } from '@/lib/server/auth/actor';
-import { openEventPageWithHeading } from '@/lib/server/auth/page-access';
 import { listEventEntries } from '@/lib/server/entries/list-event-entries';
+import { openEntries } from '../access';
 import { EntriesTable } from './entries-table';
 
 export const metadata: Metadata = { title: 'Entries' };
 
 export default async function EntriesPage({ params }: { params: Promise<{ eventId: string }> }) {
-  const { actor, eventId, event } = await openEventPageWithHeading(params, 'entry.view_all');
+  const { actor, eventId, event } = await openEntries(params);
   const rows = await listEventEntries(actor, eventId);
   const classes = [
     ...new Map(rows.map((r) => [r.classId, { id: r.classId, label: `${r.classCode} ${r.className}` }])).values(),

@@ -1,15 +1,15 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { openEventPage } from '@/lib/server/auth/page-access';
 import { listProvisionalResults } from '@/lib/server/results/list-provisional-results';
 import { SafetyNote } from '@/components/safety-note';
+import { openResults } from '../access';
 import { ResultsForm } from './results-form';
 
 export const metadata: Metadata = { title: 'Provisional results' };
 export const dynamic = 'force-dynamic';
 
 export default async function ResultsPage({ params }: { params: Promise<{ eventId: string }> }) {
-  const { actor, eventId } = await openEventPage(params, 'results.publish');
+  const { actor, eventId } = await openResults(params);
   const classes = await listProvisionalResults(actor, eventId);
   return (
     <div className="space-y-6">

@@ -1,14 +1,11 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound } from 'next/navigation';
 import { can } from '@/lib/server/auth/actor';
-import { openEventPage } from '@/lib/server/auth/page-access';
-import { AppError } from '@/lib/core/errors';
-import { getProtest } from '@/lib/server/protests/get-protest';
 import { DecisionCaution, ProtestStatusBadge } from '../../../../protests/protest-badges';
 import { EvidenceList } from '../../../../protests/evidence-list';
 import { ProtestFacts } from '../../../../protests/protest-facts';
 import { EvidenceForm } from '../../../../protests/[protestId]/evidence-form';
+import { openStewardProtest } from '../../access';
 import { StewardActions } from './steward-actions';
 import { ConflictNotice } from './conflict-notice';
 import { listCustodyForProtest } from '@/lib/server/custody/manage-custody';
@@ -22,12 +19,7 @@ export default async function StewardProtestPage({
 }: {
   params: Promise<{ eventId: string; protestId: string }>;
 }) {
-  const { actor, eventId } = await openEventPage(params, 'protest.view_all');
-  const p = await getProtest(actor, (await params).protestId).catch((err) => {
-    if (err instanceof AppError && err.status === 404) notFound();
-    throw err;
-  });
-  if (p.eventId !== eventId) notFound();
+  const { actor, eventId, protest: p } = await openStewardProtest(params);
   const parts = can(actor, 'custody.view', { eventId }) ? await listCustodyForProtest(actor, eventId, p.id) : [];
   return (
     <div className="space-y-6">

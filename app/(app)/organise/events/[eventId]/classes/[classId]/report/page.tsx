@@ -2,24 +2,19 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { formatTime } from '@/lib/core/format/time';
-import { openEventPage } from '@/lib/server/auth/page-access';
 import { AppError } from '@/lib/core/errors';
 import { computeDraftReport, listReportVersions } from '@/lib/server/reports/manage-reports';
-import { getClassWithVersions } from '@/lib/server/classes/manage-classes';
 import { ParityReport } from '@/components/parity-report';
 import { ModelAssumptions } from '@/components/parity-tables';
 import { SafetyNote } from '@/components/safety-note';
+import { openClassReport } from '../../../access';
 import { PublishReportForm } from './publish-report-form';
 import { WhatIfSandbox } from './what-if-sandbox';
 
 export const metadata: Metadata = { title: 'Parity report (draft)' };
 
 export default async function DraftReportPage({ params }: { params: Promise<{ eventId: string; classId: string }> }) {
-  const {
-    actor,
-    eventId,
-    ids: { classId },
-  } = await openEventPage(params, 'report.publish', { ids: ['classId'] });
+  const { actor, eventId, classId, cls } = await openClassReport(params);
   let draft;
   try {
     draft = await computeDraftReport(actor, eventId, classId);
@@ -36,10 +31,7 @@ export default async function DraftReportPage({ params }: { params: Promise<{ ev
     }
     throw err;
   }
-  const [versions, cls] = await Promise.all([
-    listReportVersions(actor, eventId, classId),
-    getClassWithVersions(actor, eventId, classId),
-  ]);
+  const versions = await listReportVersions(actor, eventId, classId);
   const inForce = cls.versions.find((v) => v.id === draft.inputs.ruleVersion.id)!;
   return (
     <div className="space-y-6">

@@ -1,16 +1,16 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { openEventPage } from '@/lib/server/auth/page-access';
 import { getEventForOrganiser } from '@/lib/server/events/save-event';
 import { listEventClasses, listCopyableClasses } from '@/lib/server/classes/manage-classes';
-import { EventForm } from '../event-form';
-import { NewClassForm } from './new-class-form';
-import { InviteStaffForm } from '../../invite-staff-form';
+import { openMeeting } from '../access';
+import { EventForm } from '../../event-form';
+import { NewClassForm } from '../new-class-form';
+import { InviteStaffForm } from '../../../invite-staff-form';
 
 export const metadata: Metadata = { title: 'Meeting' };
 
 export default async function EventPage({ params }: { params: Promise<{ eventId: string }> }) {
-  const { actor, eventId } = await openEventPage(params, 'event.edit');
+  const { actor, eventId } = await openMeeting(params);
   const [event, classes, copyable] = await Promise.all([
     getEventForOrganiser(actor, eventId),
     listEventClasses(actor, eventId),

@@ -1,19 +1,15 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { can } from '@/lib/server/auth/actor';
-import { openEventPageWithHeading } from '@/lib/server/auth/page-access';
 import { listInstruments } from '@/lib/server/inspections/list-instruments';
-import { DockScreen } from './dock-screen';
+import { openDock } from '../access';
+import { DockScreen } from '../dock-screen';
 
 export const metadata: Metadata = { title: 'Dock inspection' };
 export const dynamic = 'force-dynamic';
 
 // The dock screen for scrutineers of this meeting; it keeps working offline once visited.
 export default async function DockPage({ params }: { params: Promise<{ eventId: string }> }) {
-  // A board-only official who opens the dock lands on the board instead.
-  const { actor, eventId, event } = await openEventPageWithHeading(params, 'inspection.record', {
-    deniedTo: (a, id) => (can(a, 'inspection.board', { eventId: id }) ? `/inspect/${id}/board` : '/not-allowed'),
-  });
+  const { actor, eventId, event } = await openDock(params);
   const instruments = await listInstruments(actor, eventId);
   return (
     <div className="space-y-4 text-lg">

@@ -1,33 +1,19 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound } from 'next/navigation';
 import { formatTime } from '@/lib/core/format/time';
-import { openEventPage } from '@/lib/server/auth/page-access';
-import { getClassWithVersions } from '@/lib/server/classes/manage-classes';
 import { diffRules, ruleLabel } from '@/lib/core/classes/diff-rules';
-import { AppError } from '@/lib/core/errors';
 import { SafetyNote } from '@/components/safety-note';
-import { RulesForm } from './rules-form';
-import { PublishForm } from './publish-form';
+import { openClassRules } from '../../../access';
+import { RulesForm } from '../rules-form';
+import { PublishForm } from '../publish-form';
 
 export const metadata: Metadata = { title: 'Class rules' };
 
 const show = (v: unknown) => (v === null || v === undefined ? '—' : Array.isArray(v) ? v.join(', ') : String(v));
 
 export default async function ClassPage({ params }: { params: Promise<{ eventId: string; classId: string }> }) {
-  const {
-    actor,
-    eventId,
-    ids: { classId },
-  } = await openEventPage(params, 'class.edit', { ids: ['classId'] });
-  let data;
-  try {
-    data = await getClassWithVersions(actor, eventId, classId);
-  } catch (err) {
-    if (err instanceof AppError && err.status === 404) notFound();
-    throw err;
-  }
-  const { raceClass, versions, timeZone } = data;
+  const { eventId, classId, cls } = await openClassRules(params);
+  const { raceClass, versions, timeZone } = cls;
   const latest = versions[0];
   const isDraft = latest.status === 'draft';
   return (

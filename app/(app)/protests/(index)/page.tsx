@@ -5,8 +5,8 @@ import { getActor } from '@/lib/server/auth/actor';
 import { listMyProtests } from '@/lib/server/protests/list-my-protests';
 import { listProtestableEntries } from '@/lib/server/protests/list-protestable-entries';
 
-import { DecisionCaution, ProtestStatusBadge } from './protest-badges';
-import { LodgeProtestForm } from './lodge-protest-form';
+import { DecisionCaution, ProtestStatusBadge } from '../protest-badges';
+import { LodgeProtestForm } from '../lodge-protest-form';
 
 export const metadata: Metadata = { title: 'My protests' };
 export const dynamic = 'force-dynamic';

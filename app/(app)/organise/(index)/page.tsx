@@ -1,11 +1,9 @@
 import type { Metadata } from 'next';
-import { redirect } from 'next/navigation';
 import { format, parseISO } from 'date-fns';
-import { getActor, allRolesOf } from '@/lib/server/auth/actor';
-import { rolesCan } from '@/lib/core/auth/permissions';
 import { listOrganisedMeetings } from '@/lib/server/events/list-organised-meetings';
 import Link from 'next/link';
-import { InviteStaffForm } from './invite-staff-form';
+import { InviteStaffForm } from '../invite-staff-form';
+import { openOrganise } from './access';
 
 export const metadata: Metadata = { title: 'Organise' };
 
@@ -17,10 +15,7 @@ const ROLE_LABEL: Record<string, string> = {
 };
 
 export default async function OrganisePage() {
-  const actor = await getActor();
-  if (!actor) redirect('/sign-in');
-  // The area the navigation shows for the same permission (lib/core/navigation.ts).
-  if (!rolesCan(allRolesOf(actor), 'event.create')) redirect('/not-allowed');
+  const actor = await openOrganise();
   const meetings = await listOrganisedMeetings(actor);
   return (
     <div className="space-y-6">

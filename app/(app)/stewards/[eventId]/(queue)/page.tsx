@@ -1,15 +1,15 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { openEventPage } from '@/lib/server/auth/page-access';
+import { openQueue } from '../access';
 import { listStewardQueue } from '@/lib/server/protests/list-steward-queue';
 import { formatMoney } from '@/lib/core/inputs/entries';
-import { DecisionCaution, ProtestStatusBadge } from '../../protests/protest-badges';
+import { DecisionCaution, ProtestStatusBadge } from '../../../protests/protest-badges';
 
 export const metadata: Metadata = { title: 'Protest queue' };
 export const dynamic = 'force-dynamic';
 
 export default async function StewardQueuePage({ params }: { params: Promise<{ eventId: string }> }) {
-  const { actor, eventId } = await openEventPage(params, 'protest.view_all');
+  const { actor, eventId } = await openQueue(params);
   const q = await listStewardQueue(actor, eventId);
   return (
     <div className="space-y-6">

@@ -1,16 +1,14 @@
 import type { Metadata } from 'next';
-import { redirect } from 'next/navigation';
 import { format } from 'date-fns';
-import { getActor, can } from '@/lib/server/auth/actor';
 import { listPeople } from '@/lib/server/admin/list-people';
 import { formatInZone } from '@/lib/core/protests/protest-window';
-import { PeopleList } from './people-list';
+import { PeopleList } from '../people-list';
+import { openAdministration } from './access';
 
 export const metadata: Metadata = { title: 'Administration' };
 
 export default async function AdminPage() {
-  const actor = await getActor();
-  if (!can(actor, 'admin.manage_users')) redirect('/not-allowed');
+  const actor = await openAdministration();
   const people = await listPeople(actor);
   const suspended = people.filter((p) => p.suspendedAt).length;
   // Dates are worded on the server, so the page reads the same wherever it is opened.
@@ -30,7 +28,7 @@ export default async function AdminPage() {
         People ({people.length}
         {suspended ? `, ${suspended} suspended` : ''})
       </h2>
-      <PeopleList people={people} actorId={actor!.id} labels={labels} />
+      <PeopleList people={people} actorId={actor.id} labels={labels} />
     </div>
   );
 }

@@ -1,0 +1,5 @@
+import { SectionLoading } from '@/components/section-states';
+
+export default function CustodyLoading() {
+  return <SectionLoading label="Loading the parts in custody…" />;
+}
