@@ -51,6 +51,8 @@ test('chief scrutineer on a phone lists, adds and retires instruments; the dock 
   const dock = await dockCtx.newPage();
   await signInWithPassword(dock, DEMO.scrutineer, DEMO_PASSWORD);
   await dock.goto(`/inspect/${meeting.eventId}`);
+  // The page streams behind its loading boundary: wait for its heading before looking for the link.
+  await dock.getByRole('heading', { level: 1 }).waitFor();
   assert.ok(await dock.getByRole('link', { name: 'Instruments' }).isVisible(), 'linked from the dock');
   await dock.getByLabel('Race number or tag code').fill(String(entry.raceNumber));
   await dock.getByRole('button', { name: 'Find', exact: true }).click();

@@ -218,6 +218,8 @@ test('touch targets: protest checkboxes and breadcrumbs are at least 44 px; butt
   const small: string[] = [];
   for (const url of screens) {
     await org.goto(url);
+    // The page streams behind its loading boundary: count the links once the breadcrumb is there.
+    await org.getByRole('navigation', { name: 'Breadcrumb' }).waitFor();
     const crumbs = org.getByRole('navigation', { name: 'Breadcrumb' }).getByRole('link');
     for (let i = 0; i < (await crumbs.count()); i++) {
       const b = await box(crumbs.nth(i));
