@@ -32,6 +32,8 @@ type EntryRow = {
   boatName: string;
   boatDeclaredKw: number;
   boatPowerEvidence: string;
+  /** The boat's latest declaration version when its figures were read (the record pins it). */
+  declarationVersionId: string;
   className: string;
   eventName: string;
   entrantEmail: string;
@@ -76,6 +78,7 @@ async function loadEntry(eventId: string, entryId: string, key: string | null) {
   const [row] = await getDb().sequelize.query<EntryRow & { keyEventId: string | null }>(
     `select e.id, e.entrant_id as "entrantId", e.race_number as "raceNumber", e.status, e.class_id as "classId", e.boat_id as "boatId",
             b.owner_id as "ownerId", b.name as "boatName", b.declared_power_kw as "boatDeclaredKw", b.power_evidence as "boatPowerEvidence",
+            (select d.id from boat_declaration_versions d where d.boat_id = b.id order by d.version desc limit 1) as "declarationVersionId",
             c.name as "className", ev.name as "eventName", u.email as "entrantEmail",
             (select i.event_id from inspections i where i.idempotency_key = :key) as "keyEventId",
             (select json_agg(json_build_object('id', v.id, 'version', v.version, 'rules', v.rules,
@@ -203,9 +206,11 @@ export async function recordInspection(
     const rows = await sequelize.query<{ id: string; receivedAt: Date }>(
       `with locked as (select id from entries where id = :entryId for update)
        insert into inspections (event_id, entry_id, boat_id, class_id, rule_version_id, kind, recorded_by_id, device, idempotency_key,
-                                captured_at, supersedes_id, correction_reason, reinspection_id, measurements, results, overall_result, notes)
+                                captured_at, supersedes_id, correction_reason, reinspection_id, measurements, results, overall_result, notes,
+                                declaration_version_id)
        select :eventId, locked.id, :boatId, :classId, :ruleVersionId, :kind, :recordedById, :device, :idempotencyKey,
-              :capturedAt, :supersedesId, :correctionReason, :reinspectionId, :measurements::jsonb, :results::jsonb, :overall, :notes
+              :capturedAt, :supersedesId, :correctionReason, :reinspectionId, :measurements::jsonb, :results::jsonb, :overall, :notes,
+              :declarationVersionId
          from locked
        on conflict (idempotency_key) do nothing
        returning id, received_at as "receivedAt"`,
@@ -228,6 +233,8 @@ export async function recordInspection(
           results: JSON.stringify(results),
           overall: decision.overall,
           notes: input.notes,
+          // The version whose figures were read above: an edit since then makes this record stale at once.
+          declarationVersionId: entry.declarationVersionId,
         },
         type: QueryTypes.SELECT,
         transaction,

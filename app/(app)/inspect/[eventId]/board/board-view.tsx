@@ -223,6 +223,14 @@ export function BoardView({
                   {r.openReinspectionCount > 0 ? ' · re-inspection asked' : ''}
                   {r.isPaid ? '' : ' · not paid'}
                 </p>
+                {r.declarationChange && (
+                  <p
+                    className="mt-1 rounded-lg border-2 border-flare-500 bg-flare-100 p-2 font-bold"
+                    data-testid="declaration-change"
+                  >
+                    {r.declarationChange}
+                  </p>
+                )}
               </div>
             </div>
             <VerdictBadge verdict={r.state} />
