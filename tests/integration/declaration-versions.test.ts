@@ -151,6 +151,9 @@ test('the attack: 250 kW inspected and conforming, then declared 9000 kW: re-ins
   assert.equal(again.res.status, 201, JSON.stringify(again.body));
   row = (await board()).rows.find((r) => r.entryId === entry.id)!;
   assert.equal(row.state, again.body.data.overallResult);
+  assert.equal(row.declarationChange, null, 'the new inspection settles the declaration-change task');
+  const back = (await draft()).inputs.boats.find((b) => b.entryId === entry.id);
+  assert.equal(back?.powerKw, again.body.data.overallResult === 'conforms' ? 250 : undefined);
 });
 
 test('the report reads the inspected figures, not the live boat row', async () => {

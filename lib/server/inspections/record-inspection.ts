@@ -249,6 +249,14 @@ export async function recordInspection(
         where id = :entryId`,
       { replacements: { entryId: entry.id }, transaction },
     );
+    // A record of the version a declaration-change task asked about (or later) settles that task.
+    await sequelize.query(
+      `update reinspections r set done_at = now(), inspection_id = :id, updated_at = now()
+         from boat_declaration_versions asked, boat_declaration_versions seen
+        where r.entry_id = :entryId and r.done_at is null and asked.id = r.declaration_version_id
+          and seen.id = :declarationVersionId and asked.boat_id = seen.boat_id and asked.version <= seen.version`,
+      { replacements: { id, entryId: entry.id, declarationVersionId: entry.declarationVersionId }, transaction },
+    );
     if (input.reinspectionId) {
       await models.Reinspection.update(
         { inspectionId: id, doneAt: new Date() },
