@@ -105,8 +105,29 @@ test('the attack: 250 kW inspected and conforming, then declared 9000 kW: re-ins
       [2, 9000],
     ],
   );
-  const [me] = await query<{ id: string }>('select id from users where email = $1', [DEMO.entrant]);
+  const [me] = await query<{ id: string; name: string }>('select id, name from users where email = $1', [DEMO.entrant]);
   assert.equal(all[1].created_by_id, me.id, 'the version names who made it');
+  // The owner reads the versions: who, when, what changed (newest first).
+  const mineBoat = await owner.fetch(`/api/boats/${entry.boatId}`);
+  assert.equal(mineBoat.status, 200);
+  const listedVersions = (await mineBoat.json()).data.declarationVersions as {
+    version: number;
+    createdBy: string;
+    createdAt: string;
+    changes: string;
+  }[];
+  assert.deepEqual(
+    listedVersions.map((v) => [v.version, v.changes]),
+    [
+      [2, 'power 250 → 9000 kW'],
+      [1, 'first declaration'],
+    ],
+  );
+  assert.equal(listedVersions[0].createdBy, me.name);
+  assert.ok(Date.now() - Date.parse(listedVersions[0].createdAt) < 60_000);
+  const boatPage = await (await owner.fetch(`/boats/${entry.boatId}`)).text();
+  assert.match(boatPage, /Version 2/);
+  assert.match(boatPage, /power 250 → 9000 kW/);
 
   // The earlier verdict stops being current: the board no longer shows the boat conforming, and says why.
   row = (await board()).rows.find((r) => r.entryId === entry.id)!;
