@@ -190,6 +190,34 @@ test('the report reads the inspected figures, not the live boat row', async () =
   assert.equal(boat.powerKw, 240);
 });
 
+test('a record captured before a change but sent after it pins the version it checked, and flags re-inspection', async () => {
+  const e = await meeting.addEntry(classId, { declaredPowerKw: 240 });
+  const capturedAt = new Date(Date.now() - 60_000).toISOString(); // measured a minute ago, held offline
+  const p = await owner.json(`/api/boats/${e.boatId}`, { power: 295, powerUnit: 'kW' }, 'PATCH');
+  assert.equal(p.res.status, 200, JSON.stringify(p.body));
+  const r = await scrutineer.json(
+    `/api/events/${meeting.eventId}/inspections`,
+    inspectionBody(e.id, 101.9, {
+      capturedAt,
+      power: { declaredKw: 240, evidenceSeen: true },
+      weight: { readingsKg: [402, 404] },
+    }),
+  );
+  assert.equal(r.res.status, 201, JSON.stringify(r.body));
+  assert.equal(r.body.data.overallResult, 'conforms');
+  const [pinned] = await query<{ version: number }>(
+    `select d.version from inspections i join boat_declaration_versions d on d.id = i.declaration_version_id where i.id = $1`,
+    [r.body.data.id],
+  );
+  assert.equal(pinned.version, 1);
+  const row = (await board()).rows.find((x) => x.entryId === e.id)!;
+  assert.notEqual(row.state, 'conforms');
+  assert.match(row.declarationChange ?? '', /power 240 → 295 kW/);
+  assert.ok(!(await draft()).inputs.boats.some((b) => b.entryId === e.id));
+  const mail = await waitForMail(DEMO.chief, { subject: new RegExp(`no\\. ${e.raceNumber}\\b.*re-inspection`) });
+  assert.match(mail.text, /power 240 → 295 kW/);
+});
+
 test('a change of name only is no new version and flags nothing', async () => {
   const e = await meeting.addEntry(classId);
   const r = await scrutineer.json(

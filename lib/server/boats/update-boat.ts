@@ -1,16 +1,10 @@
 import 'server-only';
 import { after } from 'next/server';
-import { QueryTypes, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { UpdateBoatInput } from '@/lib/core/inputs/boats';
-import {
-  describeDeclarationChanges,
-  listDeclarationChanges,
-  pickDeclaration,
-  type DeclarationFields,
-} from '@/lib/core/boats/declaration-changes';
-import { currentInspectionCte } from '@/lib/server/inspections/inspection-view';
+import { listDeclarationChanges, pickDeclaration, type DeclarationFields } from '@/lib/core/boats/declaration-changes';
+import { flagInspectedEntries } from './flag-declaration-change';
 import { mailChiefScrutineers, type FlaggedEntry } from './mail-declaration-change';
 import { findOwnBoat, toBoatView, type BoatView } from './boat-view';
 
@@ -57,72 +51,13 @@ export async function updateBoat(
     );
     return {
       boat,
-      flagged: await flagInspectedEntries(actor.id, boat.id, version.id, version.version, latest, transaction),
+      flagged: await flagInspectedEntries(
+        actor.id,
+        { ...latest, id: version.id, version: version.version },
+        transaction,
+      ),
     };
   });
   if (flagged.length) after(() => mailChiefScrutineers(boat.name, flagged));
   return toBoatView(boat);
-}
-
-type InspectedRow = Omit<FlaggedEntry, 'changes'> & {
-  checkedVersion: number;
-  checked: DeclarationFields;
-  openTaskId: string | null;
-};
-
-/** Live entries of the boat inspected against an earlier version: one open task each, with what changed. */
-async function flagInspectedEntries(
-  ownerId: string,
-  boatId: string,
-  versionId: string,
-  versionNumber: number,
-  latest: DeclarationFields,
-  transaction: Transaction,
-): Promise<FlaggedEntry[]> {
-  const { models, sequelize } = getDb();
-  // The newest version any inspection of the entry checked: what changed is told against it.
-  const rows = await sequelize.query<InspectedRow>(
-    `select e.id as "entryId", e.event_id as "eventId", e.race_number as "raceNumber", ev.name as "eventName",
-            dv.version as "checkedVersion",
-            json_build_object('hullDescription', dv.hull_description, 'pumpDescription', dv.pump_description,
-              'impellerDescription', dv.impeller_description, 'declaredNozzleMm', dv.declared_nozzle_mm,
-              'declaredNozzleToleranceMm', dv.declared_nozzle_tolerance_mm, 'engineDescription', dv.engine_description,
-              'declaredPowerKw', dv.declared_power_kw, 'powerEvidence', dv.power_evidence, 'displacementL', dv.displacement_l,
-              'declaredWeightKg', dv.declared_weight_kg) as checked,
-            (select r.id from reinspections r where r.entry_id = e.id and r.done_at is null and r.declaration_version_id is not null
-              order by r.created_at desc limit 1) as "openTaskId"
-       from entries e
-       join events ev on ev.id = e.event_id
-       join lateral (select d.* from inspections i join boat_declaration_versions d on d.id = i.declaration_version_id
-                      where i.entry_id = e.id order by d.version desc limit 1) dv on true
-      where e.boat_id = :boatId and e.status in ('awaiting_payment', 'entered') and dv.version < :versionNumber
-        for update of e`,
-    { replacements: { boatId, versionNumber }, type: QueryTypes.SELECT, transaction },
-  );
-  const flagged: FlaggedEntry[] = [];
-  for (const r of rows) {
-    const changes = describeDeclarationChanges(listDeclarationChanges(r.checked, latest));
-    if (!changes) continue; // changed back to what was inspected: the verdict still stops being current, nothing to tell
-    const reason = `Re-inspection required: the declaration changed after inspection (version ${r.checkedVersion} → ${versionNumber}): ${changes}`;
-    if (r.openTaskId)
-      await models.Reinspection.update(
-        { reason, declarationVersionId: versionId },
-        { where: { id: r.openTaskId }, transaction },
-      );
-    else
-      await models.Reinspection.create(
-        { eventId: r.eventId, entryId: r.entryId, reason, requestedById: ownerId, declarationVersionId: versionId },
-        { transaction },
-      );
-    flagged.push({ entryId: r.entryId, eventId: r.eventId, raceNumber: r.raceNumber, eventName: r.eventName, changes });
-  }
-  // The entry's quick-read result follows the current record, which the new version just made stale.
-  for (const r of rows)
-    await sequelize.query(
-      `with ${currentInspectionCte('entry')}
-       update entries set inspection_result = (select i.overall_result from inspections i join current_inspection c on c.id = i.id), updated_at = now()
-        where id = :entryId`,
-      { replacements: { entryId: r.entryId }, transaction },
-    );
-  return flagged;
 }
