@@ -7,8 +7,28 @@
 // Each existing boat gets version 1 from its current row; existing entries and inspections pin it.
 // Inspections are append-only: this migration disables that trigger inside its own transaction to
 // fill the new column (as 20261203003000 does), and enables it again before committing.
+/**
+ * Version 1, from the boat's row as it stands (by its owner, at its last change), for every boat
+ * that has no version yet: all of them when the migration runs. Exported so a test can run it.
+ */
+async function addFirstVersions(sequelize, { transaction, boatIds } = {}) {
+  const [rows] = await sequelize.query(
+    `insert into boat_declaration_versions (boat_id, version, hull_description, pump_description, impeller_description,
+       declared_nozzle_mm, declared_nozzle_tolerance_mm, engine_description, declared_power_kw, power_evidence,
+       displacement_l, declared_weight_kg, created_by_id, created_at)
+     select b.id, 1, b.hull_description, b.pump_description, b.impeller_description, b.declared_nozzle_mm, b.declared_nozzle_tolerance_mm,
+            b.engine_description, b.declared_power_kw, b.power_evidence, b.displacement_l, b.declared_weight_kg, b.owner_id, b.updated_at
+       from boats b
+      where not exists (select 1 from boat_declaration_versions d where d.boat_id = b.id)
+        ${boatIds ? 'and b.id in (:boatIds)' : ''}
+     returning boat_id`,
+    { transaction, replacements: { boatIds: boatIds ?? [] } },
+  );
+  return rows.length;
+}
+
 /** @type {import('sequelize-cli').Migration} */
-module.exports = {
+const migration = {
   async up(queryInterface) {
     await queryInterface.sequelize.transaction(async (transaction) => {
       const q = (sql) => queryInterface.sequelize.query(sql, { transaction });
@@ -34,12 +54,7 @@ module.exports = {
       await q(`create trigger boat_declaration_versions_append_only before update or delete on boat_declaration_versions
                  for each row execute function boreline_append_only()`);
       // Version 1 of every boat from its row as it stands, by its owner, at its last change.
-      await q(`insert into boat_declaration_versions (boat_id, version, hull_description, pump_description, impeller_description,
-                 declared_nozzle_mm, declared_nozzle_tolerance_mm, engine_description, declared_power_kw, power_evidence,
-                 displacement_l, declared_weight_kg, created_by_id, created_at)
-               select id, 1, hull_description, pump_description, impeller_description, declared_nozzle_mm, declared_nozzle_tolerance_mm,
-                      engine_description, declared_power_kw, power_evidence, displacement_l, declared_weight_kg, owner_id, updated_at
-                 from boats`);
+      await addFirstVersions(queryInterface.sequelize, { transaction });
       // A boat inserted by any path gets its version 1 at once (the app's create and the seeds alike).
       await q(`create function boreline_boat_first_version() returns trigger language plpgsql as $$
                begin
@@ -92,3 +107,6 @@ module.exports = {
     });
   },
 };
+
+// The backfill is exported as well, so a test can run it on boats of its own through the real database.
+module.exports = { ...migration, addFirstVersions };
