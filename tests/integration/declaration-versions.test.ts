@@ -5,7 +5,7 @@
 import { test, before } from 'node:test';
 import assert from 'node:assert/strict';
 import { HttpSession } from '../support/http-session';
-import { DEMO, DEMO_PASSWORD } from '../support/env';
+import { DEMO, DEMO_PASSWORD, MAIL_INBOX } from '../support/env';
 import { query } from '../support/db';
 import { waitForMail } from '../support/mail';
 import { InspectionMeeting, inspectionBody, rulesWith, type TestEntry } from '../support/inspection-meeting';
@@ -155,13 +155,38 @@ test('the attack: 250 kW inspected and conforming, then declared 9000 kW: re-ins
   assert.match(mail.text, /power 250 → 9000 kW/);
   assert.match(mail.text, /officials decide/i);
 
+  // Editing again before the re-inspection updates the task (what changed since the inspected version)
+  // without a second e-mail: shown once a later flag's e-mail, sent after this edit, has arrived.
+  const again2 = await owner.json(`/api/boats/${entry.boatId}`, { power: 8000, powerUnit: 'kW' }, 'PATCH');
+  assert.equal(again2.res.status, 200, JSON.stringify(again2.body));
+  row = (await board()).rows.find((r) => r.entryId === entry.id)!;
+  assert.match(row.declarationChange ?? '', /version 1 → 3\): power 250 → 8000 kW/);
+  const later = await meeting.addEntry(classId, { declaredPowerKw: 210 });
+  const laterRecord = await scrutineer.json(
+    `/api/events/${meeting.eventId}/inspections`,
+    inspectionBody(later.id, 101.9, {
+      power: { declaredKw: 210, evidenceSeen: true },
+      weight: { readingsKg: [402, 404] },
+    }),
+  );
+  assert.equal(laterRecord.res.status, 201, JSON.stringify(laterRecord.body));
+  await owner.json(`/api/boats/${later.boatId}`, { power: 215, powerUnit: 'kW' }, 'PATCH');
+  await waitForMail(DEMO.chief, { subject: new RegExp(`no\\. ${later.raceNumber}\\b.*re-inspection`) });
+  const inbox = (await (await fetch(`${MAIL_INBOX}?to=${encodeURIComponent(DEMO.chief)}`)).json()).data as {
+    subject: string;
+  }[];
+  assert.equal(
+    inbox.filter((m) => new RegExp(`no\\. ${entry.raceNumber}\\b.*re-inspection`).test(m.subject)).length,
+    1,
+  );
+
   // My entries shows the flag to the owner too.
   const mine = await owner.fetch('/api/entries');
   assert.equal(mine.status, 200);
   const listed = ((await mine.json()).data as { id: string; declarationChange: string | null }[]).find(
     (x) => x.id === entry.id,
   );
-  assert.match(listed?.declarationChange ?? '', /power 250 → 9000 kW/);
+  assert.match(listed?.declarationChange ?? '', /power 250 → 8000 kW/);
 
   // Inspected again at the new version (the scrutineer confirms 250 kW on the dyno sheet): current again,
   // and the report takes the confirmed figure, not the 9000 kW the owner typed.

@@ -15,7 +15,7 @@ import type { FlaggedEntry } from './mail-declaration-change';
 // version made stale. Called by the owner's edit, and by recording when a record arrives for a
 // version already replaced (it waited offline, or crossed an edit). Runs inside the caller's transaction.
 
-type InspectedRow = Omit<FlaggedEntry, 'changes'> & {
+type InspectedRow = Omit<FlaggedEntry, 'changes' | 'opened'> & {
   checkedVersion: number;
   checked: DeclarationFields;
   openTaskId: string | null;
@@ -65,7 +65,14 @@ export async function flagInspectedEntries(
         { eventId: r.eventId, entryId: r.entryId, reason, requestedById, declarationVersionId: versionId },
         { transaction },
       );
-    flagged.push({ entryId: r.entryId, eventId: r.eventId, raceNumber: r.raceNumber, eventName: r.eventName, changes });
+    flagged.push({
+      entryId: r.entryId,
+      eventId: r.eventId,
+      raceNumber: r.raceNumber,
+      eventName: r.eventName,
+      changes,
+      opened: !r.openTaskId,
+    });
   }
   // The entry's quick-read result follows the current record, which the new version just made stale.
   for (const r of rows)

@@ -3,11 +3,23 @@ import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { sendMail } from '@/lib/server/mail/send';
 
-export type FlaggedEntry = { entryId: string; eventId: string; raceNumber: number; eventName: string; changes: string };
+export type FlaggedEntry = {
+  entryId: string;
+  eventId: string;
+  raceNumber: number;
+  eventName: string;
+  changes: string;
+  /** True when this change opened the task; later edits before the re-inspection update it without another e-mail. */
+  opened: boolean;
+};
 
-/** Tells each meeting's chief scrutineers that an inspected boat's declaration changed (sent after the answer). */
+/**
+ * Tells each meeting's chief scrutineers that an inspected boat's declaration changed (sent after the
+ * answer). Once per task: an owner editing again and again before the re-inspection does not flood
+ * their inbox (the board shows the latest change).
+ */
 export async function mailChiefScrutineers(boatName: string, flagged: FlaggedEntry[]) {
-  for (const f of flagged) {
+  for (const f of flagged.filter((x) => x.opened)) {
     try {
       const chiefs = await getDb().sequelize.query<{ email: string }>(
         `select distinct u.email from event_staff s join users u on u.id = s.user_id
