@@ -32,6 +32,8 @@ const draft = async () => {
     };
   };
 };
+// The boat's name is unique per test run (race numbers repeat across meetings and test files).
+const subjectFor = (e: TestEntry) => new RegExp(`^${e.boatName} \\(no\\. ${e.raceNumber}\\): .*re-inspection`);
 const versions = (boatId: string) =>
   query<{ version: number; declared_power_kw: number; created_by_id: string }>(
     'select version, declared_power_kw, created_by_id from boat_declaration_versions where boat_id = $1 order by version',
@@ -151,7 +153,7 @@ test('the attack: 250 kW inspected and conforming, then declared 9000 kW: re-ins
   assert.match(out.reason, /Re-inspection required/);
 
   // The meeting's chief scrutineer is told, with what changed.
-  const mail = await waitForMail(DEMO.chief, { subject: new RegExp(`no\\. ${entry.raceNumber}\\b.*re-inspection`) });
+  const mail = await waitForMail(DEMO.chief, { subject: subjectFor(entry) });
   assert.match(mail.text, /power 250 → 9000 kW/);
   assert.match(mail.text, /officials decide/i);
 
@@ -171,14 +173,11 @@ test('the attack: 250 kW inspected and conforming, then declared 9000 kW: re-ins
   );
   assert.equal(laterRecord.res.status, 201, JSON.stringify(laterRecord.body));
   await owner.json(`/api/boats/${later.boatId}`, { power: 215, powerUnit: 'kW' }, 'PATCH');
-  await waitForMail(DEMO.chief, { subject: new RegExp(`no\\. ${later.raceNumber}\\b.*re-inspection`) });
+  await waitForMail(DEMO.chief, { subject: subjectFor(later) });
   const inbox = (await (await fetch(`${MAIL_INBOX}?to=${encodeURIComponent(DEMO.chief)}`)).json()).data as {
     subject: string;
   }[];
-  assert.equal(
-    inbox.filter((m) => new RegExp(`no\\. ${entry.raceNumber}\\b.*re-inspection`).test(m.subject)).length,
-    1,
-  );
+  assert.equal(inbox.filter((m) => subjectFor(entry).test(m.subject)).length, 1);
 
   // My entries shows the flag to the owner too.
   const mine = await owner.fetch('/api/entries');
@@ -239,7 +238,7 @@ test('a record captured before a change but sent after it pins the version it ch
   assert.notEqual(row.state, 'conforms');
   assert.match(row.declarationChange ?? '', /power 240 → 295 kW/);
   assert.ok(!(await draft()).inputs.boats.some((b) => b.entryId === e.id));
-  const mail = await waitForMail(DEMO.chief, { subject: new RegExp(`no\\. ${e.raceNumber}\\b.*re-inspection`) });
+  const mail = await waitForMail(DEMO.chief, { subject: subjectFor(e) });
   assert.match(mail.text, /power 240 → 295 kW/);
 });
 
