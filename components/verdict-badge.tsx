@@ -5,6 +5,12 @@ const STYLE: Record<string, { icon: string; words: string; className: string }> 
   inconclusive: { icon: '?', words: 'Inconclusive', className: 'border-doubt-600 bg-doubt-100 text-doubt-800' },
   waiting: { icon: '…', words: 'Not inspected yet', className: 'border-ink-mute bg-paper-deep text-ink' },
   pending: { icon: '…', words: 'Not decided yet', className: 'border-ink-mute bg-paper-deep text-ink' },
+  // An earlier verdict that no longer counts: the owner changed the declaration after it.
+  reinspection_required: {
+    icon: '↻',
+    words: 'Re-inspection required',
+    className: 'border-flare-600 bg-flare-100 text-ink',
+  },
 };
 
 export function VerdictBadge({ verdict, large = false }: { verdict: string; large?: boolean }) {

@@ -29,6 +29,28 @@ export class Boat extends Model<InferAttributes<Boat>, InferCreationAttributes<B
   declare updatedAt: CreationOptional<Date>;
 }
 
+// One version of a boat's declaration (append-only: an edit is the next version, with who and when).
+export class BoatDeclarationVersion extends Model<
+  InferAttributes<BoatDeclarationVersion>,
+  InferCreationAttributes<BoatDeclarationVersion>
+> {
+  declare id: CreationOptional<string>;
+  declare boatId: string;
+  declare version: number;
+  declare hullDescription: string;
+  declare pumpDescription: string;
+  declare impellerDescription: string;
+  declare declaredNozzleMm: number;
+  declare declaredNozzleToleranceMm: number;
+  declare engineDescription: string;
+  declare declaredPowerKw: number;
+  declare powerEvidence: PowerEvidence;
+  declare displacementL: number | null;
+  declare declaredWeightKg: number | null;
+  declare createdById: string;
+  declare createdAt: CreationOptional<Date>;
+}
+
 // A file attached to a boat's declaration; the bytes live in object storage under objectKey.
 export class BoatDocument extends Model<InferAttributes<BoatDocument>, InferCreationAttributes<BoatDocument>> {
   declare id: CreationOptional<string>;
@@ -73,6 +95,32 @@ export function initBoats(sequelize: Sequelize) {
       updatedAt: DataTypes.DATE,
     },
     { sequelize, tableName: 'boats', modelName: 'boat', underscored: true },
+  );
+  BoatDeclarationVersion.init(
+    {
+      id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+      boatId: { type: DataTypes.UUID, allowNull: false },
+      version: { type: DataTypes.INTEGER, allowNull: false },
+      hullDescription: { type: DataTypes.TEXT, allowNull: false },
+      pumpDescription: { type: DataTypes.TEXT, allowNull: false },
+      impellerDescription: { type: DataTypes.TEXT, allowNull: false },
+      declaredNozzleMm: { type: DataTypes.DOUBLE, allowNull: false },
+      declaredNozzleToleranceMm: { type: DataTypes.DOUBLE, allowNull: false },
+      engineDescription: { type: DataTypes.TEXT, allowNull: false },
+      declaredPowerKw: { type: DataTypes.DOUBLE, allowNull: false },
+      powerEvidence: { type: DataTypes.STRING, allowNull: false },
+      displacementL: { type: DataTypes.DOUBLE },
+      declaredWeightKg: { type: DataTypes.DOUBLE },
+      createdById: { type: DataTypes.UUID, allowNull: false },
+      createdAt: DataTypes.DATE,
+    },
+    {
+      sequelize,
+      tableName: 'boat_declaration_versions',
+      modelName: 'boatDeclarationVersion',
+      underscored: true,
+      updatedAt: false,
+    },
   );
   BoatDocument.init(
     {

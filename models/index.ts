@@ -4,7 +4,7 @@ import { Account, Session, VerificationToken, initAuthRecords } from './auth-rec
 import { Organisation, OrganisationMember, initOrganisations } from './organisation';
 import { Event, EventStaff, StaffInvitation, initEvents } from './event';
 import { RaceClass, ClassRuleVersion, initRaceClasses } from './race-class';
-import { Boat, BoatDocument, BoatTag, initBoats } from './boat';
+import { Boat, BoatDeclarationVersion, BoatDocument, BoatTag, initBoats } from './boat';
 import { Entry, PaymentEvent, initEntries } from './entry';
 import { Instrument, Inspection, InspectionPhoto, Reinspection, initInspections } from './inspection';
 import { ParityReport, initParityReports } from './parity-report';
@@ -49,6 +49,7 @@ export function initModels(sequelize: Sequelize) {
   Boat.hasMany(BoatDocument, { foreignKey: 'boatId', as: 'documents' });
   Boat.hasMany(BoatTag, { foreignKey: 'boatId', as: 'tags' });
   BoatTag.belongsTo(Boat, { foreignKey: 'boatId' });
+  Boat.hasMany(BoatDeclarationVersion, { foreignKey: 'boatId', as: 'declarationVersions' });
   Entry.belongsTo(Event, { foreignKey: 'eventId' });
   Entry.belongsTo(RaceClass, { foreignKey: 'classId' });
   Entry.belongsTo(Boat, { foreignKey: 'boatId' });
@@ -90,6 +91,7 @@ export function initModels(sequelize: Sequelize) {
     Boat,
     BoatDocument,
     BoatTag,
+    BoatDeclarationVersion,
     Entry,
     PaymentEvent,
     Instrument,
@@ -124,6 +126,7 @@ export {
   Boat,
   BoatDocument,
   BoatTag,
+  BoatDeclarationVersion,
   Entry,
   PaymentEvent,
   Instrument,

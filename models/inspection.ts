@@ -68,6 +68,8 @@ export class Reinspection extends Model<InferAttributes<Reinspection>, InferCrea
   declare requestedById: string;
   declare protestId: CreationOptional<string | null>;
   declare inspectionId: CreationOptional<string | null>;
+  /** The declaration version whose change after an inspection asked for this task, if any. */
+  declare declarationVersionId: CreationOptional<string | null>;
   declare doneAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -140,6 +142,7 @@ export function initInspections(sequelize: Sequelize) {
       requestedById: { type: DataTypes.UUID, allowNull: false },
       protestId: { type: DataTypes.UUID },
       inspectionId: { type: DataTypes.UUID },
+      declarationVersionId: { type: DataTypes.UUID },
       doneAt: { type: DataTypes.DATE },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,

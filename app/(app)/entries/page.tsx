@@ -116,6 +116,14 @@ export default async function MyEntriesPage({
                   {e.statusLabel}
                 </span>
               </div>
+              {e.declarationChange && (
+                <p
+                  className="rounded-lg border-2 border-flare-500 bg-flare-100 p-3 font-bold"
+                  data-testid="entry-declaration-change"
+                >
+                  {e.declarationChange}
+                </p>
+              )}
               <dl className="grid grid-cols-[8rem_1fr] gap-y-1">
                 <dt className="text-ink-soft">Boat</dt>
                 <dd>

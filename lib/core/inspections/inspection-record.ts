@@ -10,6 +10,7 @@ import {
   StoredPowerMeasurement,
   StoredResults,
   StoredRuleResult,
+  StoredWeightMeasurement,
 } from '../../../models/shapes/inspection-record';
 import type { ClassRules } from '../inputs/class-rules';
 import type { RecordInspectionInput } from '../inputs/inspections';
@@ -79,7 +80,8 @@ const ReportMeasurements = z.object({
     .extend({ readings: z.array(StoredNozzleMeasurement.shape.readings.element.pick({ diameterMm: true })) })
     .partial()
     .nullish(),
-  power: StoredPowerMeasurement.pick({ evidenceSeen: true }).partial().nullish(),
+  power: StoredPowerMeasurement.pick({ evidenceSeen: true, declaredKw: true }).partial().nullish(),
+  weight: StoredWeightMeasurement.pick({ readingsKg: true, meanKg: true }).partial().nullish(),
 });
 const ReportResults = z.object({ rules: z.array(StoredRuleResult.pick({ rule: true, expandedUncertainty: true })) });
 
@@ -89,6 +91,10 @@ export type RecordForReport = {
   /** The nozzle U the verdict decided with, or null when the record has no nozzle verdict. */
   nozzleExpandedUncertaintyMm: number | null;
   evidenceSeen: boolean;
+  /** The power the scrutineer confirmed at this inspection (kW), or null when the record lacks it. */
+  confirmedPowerKw: number | null;
+  /** The boat's weight measured at this inspection (mean of the weighings, kg), or null when not weighed. */
+  measuredWeightKg: number | null;
 };
 
 /** Reads a stored record for the parity report: the stored corrected readings, never a recomputation. */
@@ -107,5 +113,15 @@ export function readRecordForReport(measurements: unknown, results: unknown): Re
     correctedReadingsMm: corrected ? corrected.filter((x) => x > 0) : null,
     nozzleExpandedUncertaintyMm: nozzleRule?.expandedUncertainty ?? null,
     evidenceSeen: (m.success && m.data.power?.evidenceSeen) === true,
+    confirmedPowerKw: m.success && typeof m.data.power?.declaredKw === 'number' ? m.data.power.declaredKw : null,
+    measuredWeightKg: m.success ? weighedMeanKg(m.data.weight) : null,
   };
+}
+
+/** The stored mean of the weighings, or their arithmetic mean when the class had no minimum to decide. */
+function weighedMeanKg(w: { meanKg?: number | null; readingsKg?: number[] } | null | undefined): number | null {
+  if (!w) return null;
+  if (typeof w.meanKg === 'number') return w.meanKg;
+  const kg = (w.readingsKg ?? []).filter((x) => x > 0);
+  return kg.length ? kg.reduce((a, b) => a + b, 0) / kg.length : null;
 }

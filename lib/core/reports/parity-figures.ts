@@ -26,6 +26,8 @@ export type ReportBoatInput = {
   powerKw: number;
   uPowerKw: number;
   powerSource: 'declared' | 'verified';
+  /** The weight measured at the inspection the figures come from (kg), when the boat was weighed. */
+  measuredWeightKg?: number | null;
   nozzleDiameterMm: number;
   uNozzleDiameterMm: number;
   inspectionId: string | null;

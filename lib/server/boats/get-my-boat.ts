@@ -2,6 +2,7 @@ import 'server-only';
 import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { ensureCurrentTag, tagUrl } from '@/lib/server/tags/tokens';
+import { listDeclarationVersions, type DeclarationVersionView } from './list-declaration-versions';
 import { findOwnBoat, toBoatView, toDocumentView, type BoatDocumentView, type BoatView } from './boat-view';
 
 export type BoatEntrySummary = {
@@ -21,6 +22,8 @@ export type MyBoat = {
   tag: { token: string; url: string; issuedAt: string };
   /** Live entries (awaiting payment or entered) at meetings not yet over, soonest first. */
   entries: BoatEntrySummary[];
+  /** The declaration's versions, newest first: who, when, what changed. */
+  declarationVersions: DeclarationVersionView[];
 };
 
 /** The actor's own boat with its documents, current tag (issued on first view) and live entries. */
@@ -28,9 +31,10 @@ export async function getMyBoat(actor: Actor | null, boatId: string): Promise<My
   assertCan(actor, 'boat.manage_own');
   const boat = await findOwnBoat(actor, boatId);
   const { models, sequelize } = getDb();
-  const [documents, token] = await Promise.all([
+  const [documents, token, declarationVersions] = await Promise.all([
     models.BoatDocument.findAll({ where: { boatId: boat.id }, order: [['createdAt', 'DESC']] }),
     ensureCurrentTag(boat.id),
+    listDeclarationVersions(boat.id),
   ]);
   const tag = await models.BoatTag.findOne({ where: { token } });
   const [entries] = await sequelize.query(
@@ -50,5 +54,6 @@ export async function getMyBoat(actor: Actor | null, boatId: string): Promise<My
       ...e,
       startsOn: typeof e.startsOn === 'string' ? e.startsOn : e.startsOn.toISOString().slice(0, 10),
     })),
+    declarationVersions,
   };
 }

@@ -31,6 +31,8 @@ export type MyEntry = {
   createdAt: string;
   /** Parts of this boat the officials hold now (taken into custody, not yet released). */
   partsHeld: HeldPart[];
+  /** Set when the declaration changed after inspection: the open re-inspection's reason, with what changed. */
+  declarationChange: string | null;
 };
 
 type Row = Omit<MyEntry, 'statusLabel' | 'startsOn' | 'paidAt' | 'refundedAt' | 'createdAt' | 'partsHeld'> & {
@@ -55,7 +57,9 @@ export async function listMyEntries(actor: Actor | null, opts: { entryId?: strin
             e.race_number as "raceNumber", e.status, e.inspection_result as "inspectionResult",
             e.fee_minor as "feeMinor", e.currency, e.paid_at as "paidAt", e.refunded_at as "refundedAt",
             e.cancelled_reason as "cancelledReason", e.created_at as "createdAt",
-            ${heldPartsJsonSql('e.id')} as "partsHeld"
+            ${heldPartsJsonSql('e.id')} as "partsHeld",
+            (select r.reason from reinspections r where r.entry_id = e.id and r.done_at is null and r.declaration_version_id is not null
+              order by r.created_at desc limit 1) as "declarationChange"
        from entries e
        join events ev on ev.id = e.event_id
        join race_classes c on c.id = e.class_id

@@ -83,7 +83,8 @@ export async function loadInspectionViews(
  * The current record of each entry in scope, as a CTE named `current_inspection(id, entry_id)`.
  * A correction takes the place of the record it supersedes, at that record's capture time, and a
  * superseded record no longer counts; among what is left the latest capture wins (device clocks,
- * so a record that waited offline does not overtake one made after it).
+ * so a record that waited offline does not overtake one made after it). A record of a declaration
+ * version the owner has since replaced no longer counts either: the boat must be inspected again.
  */
 export function currentInspectionCte(scope: 'entry' | 'event'): string {
   const where = scope === 'entry' ? 'entry_id = :entryId' : 'event_id = :eventId';
@@ -95,6 +96,9 @@ export function currentInspectionCte(scope: 'entry' | 'event'): string {
       select distinct on (i.entry_id) i.id, i.entry_id
         from inspections i join chain c on c.id = i.id
        where not exists (select 1 from inspections s where s.entry_id = i.entry_id and s.supersedes_id = i.id)
+         and not exists (select 1 from boat_declaration_versions dv
+                           join boat_declaration_versions dn on dn.boat_id = dv.boat_id and dn.version > dv.version
+                          where dv.id = i.declaration_version_id)
        order by i.entry_id, c.root_at desc, i.captured_at desc, i.received_at desc
     )`;
 }

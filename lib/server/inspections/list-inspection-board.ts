@@ -39,6 +39,8 @@ export type BoardRow = {
   } | null;
   inspectionCount: number;
   openReinspectionCount: number;
+  /** Set when the owner changed the declaration after an inspection: the open task's reason, with what changed. */
+  declarationChange: string | null;
 };
 
 export type InspectionBoard = {
@@ -115,7 +117,9 @@ export async function listInspectionBoard(
             i.id as "latestId", i.overall_result as "latestResult", i.kind as "latestKind", i.captured_at as "latestCapturedAt",
             coalesce(u.name, u.email) as "latestBy", i.device as "latestDevice",
             (select count(*) from inspections x where x.entry_id = e.id) as "inspectionCount",
-            (select count(*) from reinspections r where r.entry_id = e.id and r.done_at is null) as "openReinspectionCount"
+            (select count(*) from reinspections r where r.entry_id = e.id and r.done_at is null) as "openReinspectionCount",
+            (select r.reason from reinspections r where r.entry_id = e.id and r.done_at is null and r.declaration_version_id is not null
+              order by r.created_at desc limit 1) as "declarationChange"
        from entries e
        join boats b on b.id = e.boat_id
        join race_classes c on c.id = e.class_id
@@ -157,6 +161,7 @@ export async function listInspectionBoard(
       : null,
     inspectionCount: Number(r.inspectionCount),
     openReinspectionCount: Number(r.openReinspectionCount),
+    declarationChange: r.declarationChange,
   }));
   const count = (s: BoardState) => all.filter((r) => r.state === s).length;
   const reinspections = (await listReinspectionViews({ eventId, openOnly: true })).filter(

@@ -7,6 +7,9 @@ import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError, fieldError } from '@/lib/core/errors';
 import type { ClassRules } from '@/lib/core/inputs/class-rules';
 import { sendMail } from '@/lib/server/mail/send';
+import { pickDeclaration, type DeclarationFields } from '@/lib/core/boats/declaration-changes';
+import { flagInspectedEntries } from '@/lib/server/boats/flag-declaration-change';
+import { mailChiefScrutineers, type FlaggedEntry } from '@/lib/server/boats/mail-declaration-change';
 import { RecordInspectionInput } from '@/lib/core/inputs/inspections';
 import {
   decideInspection,
@@ -196,19 +199,26 @@ export async function recordInspection(
     boat: { declaredKw: entry.boatDeclaredKw, powerEvidence: entry.boatPowerEvidence },
   });
 
+  const flagged: FlaggedEntry[] = [];
   const inserted = await sequelize.transaction(async (transaction) => {
     // One writer per entry at a time, so the entry's result always reflects every committed record:
     // the insert first takes the entry's row lock (in the same statement, one round trip fewer), and
     // the update below starts after it, so it sees every record committed before the lock was granted.
-    const rows = await sequelize.query<{ id: string; receivedAt: Date }>(
+    const rows = await sequelize.query<{ id: string; receivedAt: Date; declarationVersionId: string }>(
       `with locked as (select id from entries where id = :entryId for update)
        insert into inspections (event_id, entry_id, boat_id, class_id, rule_version_id, kind, recorded_by_id, device, idempotency_key,
-                                captured_at, supersedes_id, correction_reason, reinspection_id, measurements, results, overall_result, notes)
+                                captured_at, supersedes_id, correction_reason, reinspection_id, measurements, results, overall_result, notes,
+                                declaration_version_id)
        select :eventId, locked.id, :boatId, :classId, :ruleVersionId, :kind, :recordedById, :device, :idempotencyKey,
-              :capturedAt, :supersedesId, :correctionReason, :reinspectionId, :measurements::jsonb, :results::jsonb, :overall, :notes
+              :capturedAt, :supersedesId, :correctionReason, :reinspectionId, :measurements::jsonb, :results::jsonb, :overall, :notes,
+              -- The version in force when the boat was measured (a record that waited offline checked that one),
+              -- else the first: a record never pins a version made after its capture.
+              (select d.id from boat_declaration_versions d where d.boat_id = :boatId
+                order by d.created_at <= :measuredAt desc, case when d.created_at <= :measuredAt then d.version end desc nulls last, d.version
+                limit 1)
          from locked
        on conflict (idempotency_key) do nothing
-       returning id, received_at as "receivedAt"`,
+       returning id, received_at as "receivedAt", declaration_version_id as "declarationVersionId"`,
       {
         replacements: {
           eventId,
@@ -228,6 +238,7 @@ export async function recordInspection(
           results: JSON.stringify(results),
           overall: decision.overall,
           notes: input.notes,
+          measuredAt,
         },
         type: QueryTypes.SELECT,
         transaction,
@@ -241,6 +252,29 @@ export async function recordInspection(
        update entries set inspection_result = (select i.overall_result from inspections i join current_inspection c on c.id = i.id), updated_at = now()
         where id = :entryId`,
       { replacements: { entryId: entry.id }, transaction },
+    );
+    // A record of a version already replaced (it waited offline, or crossed an edit) does not count:
+    // the entry is marked for re-inspection with what changed since, as the owner's edit would have.
+    const newer = await models.BoatDeclarationVersion.findOne({
+      where: { boatId: entry.boatId },
+      order: [['version', 'DESC']],
+      transaction,
+    });
+    if (newer && newer.id !== rows[0].declarationVersionId) {
+      const latest = {
+        ...pickDeclaration(newer as unknown as DeclarationFields),
+        id: newer.id,
+        version: newer.version,
+      };
+      flagged.push(...(await flagInspectedEntries(actor.id, latest, transaction)));
+    }
+    // A record of the version a declaration-change task asked about (or later) settles that task.
+    await sequelize.query(
+      `update reinspections r set done_at = now(), inspection_id = :id, updated_at = now()
+         from boat_declaration_versions asked, boat_declaration_versions seen
+        where r.entry_id = :entryId and r.done_at is null and asked.id = r.declaration_version_id
+          and seen.id = :declarationVersionId and asked.boat_id = seen.boat_id and asked.version <= seen.version`,
+      { replacements: { id, entryId: entry.id, declarationVersionId: rows[0].declarationVersionId }, transaction },
     );
     if (input.reinspectionId) {
       await models.Reinspection.update(
@@ -258,6 +292,7 @@ export async function recordInspection(
   }
   // The entrant's e-mail goes out after the answer: the scrutineer at the dock never waits for SMTP.
   after(() => mailEntrant(entry, decision));
+  if (flagged.length) after(() => mailChiefScrutineers(entry.boatName, flagged));
   // The new record as loadInspectionViews would read it, from what was just written (one query fewer per record).
   const view: InspectionView = {
     id: inserted.id,

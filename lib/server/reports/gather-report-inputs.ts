@@ -12,8 +12,10 @@ type Row = {
   entryId: string;
   raceNumber: number;
   boatName: string;
-  declaredPowerKw: number;
-  declaredNozzleMm: number;
+  /** The power of the declaration version the inspection checked (never the live boat row). */
+  checkedPowerKw: number | null;
+  /** An open re-inspection because the owner changed the declaration after the inspection. */
+  declarationChanged: boolean;
   inspectionId: string | null;
   receivedAt: Date | null;
   overallResult: string | null;
@@ -47,13 +49,15 @@ export async function gatherReportInputs(eventId: string, classId: string, at = 
     // The current record of each entry: corrections replace what they supersede, and a record that
     // waited offline does not overtake a newer capture (the same rule the dock and the board use).
     `with ${currentInspectionCte('event')}
-     select e.id as "entryId", e.race_number as "raceNumber", b.name as "boatName", b.declared_power_kw as "declaredPowerKw",
-            b.declared_nozzle_mm as "declaredNozzleMm", i.id as "inspectionId", i.received_at as "receivedAt",
-            i.overall_result as "overallResult", i.measurements, i.results
+     select e.id as "entryId", e.race_number as "raceNumber", b.name as "boatName", dv.declared_power_kw as "checkedPowerKw",
+            i.id as "inspectionId", i.received_at as "receivedAt", i.overall_result as "overallResult", i.measurements, i.results,
+            exists (select 1 from reinspections r where r.entry_id = e.id and r.done_at is null and r.declaration_version_id is not null)
+              as "declarationChanged"
        from entries e
        join boats b on b.id = e.boat_id
        left join current_inspection ci on ci.entry_id = e.id
        left join inspections i on i.id = ci.id
+       left join boat_declaration_versions dv on dv.id = i.declaration_version_id
       where e.event_id = :eventId and e.class_id = :classId and e.status = 'entered'
       order by e.race_number`,
     { replacements: { eventId, classId } },
@@ -66,7 +70,12 @@ export async function gatherReportInputs(eventId: string, classId: string, at = 
   for (const row of rows as Row[]) {
     const base = { entryId: row.entryId, raceNumber: row.raceNumber, boatName: row.boatName };
     if (!row.inspectionId) {
-      excluded.push({ ...base, reason: 'Not inspected yet' });
+      excluded.push({
+        ...base,
+        reason: row.declarationChanged
+          ? 'Re-inspection required: the declaration changed after inspection'
+          : 'Not inspected yet',
+      });
       continue;
     }
     if (row.overallResult !== 'conforms') {
@@ -90,9 +99,11 @@ export async function gatherReportInputs(eventId: string, classId: string, at = 
     const U = record.nozzleExpandedUncertaintyMm ?? r.nozzle.defaultUncertaintyMm;
     boats.push({
       ...base,
-      powerKw: row.declaredPowerKw,
+      // What the scrutineer confirmed, else the declaration version the inspection checked: never the live boat row.
+      powerKw: record.confirmedPowerKw ?? row.checkedPowerKw!,
       uPowerKw,
       powerSource: record.evidenceSeen ? 'verified' : 'declared',
+      measuredWeightKg: record.measuredWeightKg,
       nozzleDiameterMm: computeAreaEquivalentDiameterFromReadingsMm(corrected),
       uNozzleDiameterMm: U / 2,
       inspectionId: row.inspectionId,

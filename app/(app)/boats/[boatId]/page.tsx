@@ -29,7 +29,7 @@ export default async function BoatPage({ params }: { params: Promise<{ boatId: s
     if (err instanceof AppError && err.status === 404) notFound();
     throw err;
   });
-  const { boat, documents, tag, entries } = mine;
+  const { boat, documents, tag, entries, declarationVersions } = mine;
   // Error correction M survives a scuffed sticker; margin 2 modules keeps the quiet zone (ISO/IEC 18004).
   const qr = await QRCode.toDataURL(tag.url, { errorCorrectionLevel: 'M', margin: 2, width: 320 });
   const row = (label: string, value: React.ReactNode) => (
@@ -110,6 +110,24 @@ export default async function BoatPage({ params }: { params: Promise<{ boatId: s
             ),
           )}
         </dl>
+        <details className="rounded-lg bg-paper-deep p-4">
+          <summary className="min-h-touch cursor-pointer py-2 font-bold text-tide-700">
+            Versions of the declaration ({declarationVersions.length})
+          </summary>
+          <p className="mt-2 text-sm text-ink-soft">
+            Every change is kept as a new version. A change after an inspection asks the scrutineers to inspect the boat
+            again before its earlier verdict counts.
+          </p>
+          <ol className="mt-2 divide-y divide-paper-line" data-testid="declaration-versions">
+            {declarationVersions.map((v) => (
+              <li key={v.version} className="py-2">
+                <span className="figure font-bold">{`Version ${v.version}`}</span> ·{' '}
+                {format(parseISO(v.createdAt), 'd MMM yyyy, HH:mm')} · {v.createdBy}
+                <span className="block">{v.changes}</span>
+              </li>
+            ))}
+          </ol>
+        </details>
         <details className="rounded-lg bg-paper-deep p-4">
           <summary className="min-h-touch cursor-pointer py-2 font-bold text-tide-700">Edit the declaration</summary>
           <div className="mt-3">

@@ -202,6 +202,8 @@ test('the report reader on rows written by hand: readings as read without a temp
     correctedReadingsMm: [101.2, 101.35],
     nozzleExpandedUncertaintyMm: null,
     evidenceSeen: false,
+    confirmedPowerKw: null,
+    measuredWeightKg: null,
   });
   const warm = { nozzle: { ...bare.nozzle, temperatureC: 30, material: 'aluminium' } };
   assert.equal(
@@ -213,5 +215,28 @@ test('the report reader on rows written by hand: readings as read without a temp
     correctedReadingsMm: [],
     nozzleExpandedUncertaintyMm: null,
     evidenceSeen: false,
+    confirmedPowerKw: null,
+    measuredWeightKg: null,
   });
+});
+
+test('the report takes the power the scrutineer confirmed and the weight measured, from the record only', () => {
+  // The boat declares 9000 kW now; the record confirmed 250 kW: the record's figure is the one read.
+  const record = build({ boat: { declaredKw: 9000, powerEvidence: 'none' } });
+  const read = readRecordForReport(record.measurements, record.results);
+  assert.equal(read.confirmedPowerKw, 250);
+  // Arithmetic mean of the weighings 405 and 406 kg (JCGM 100:2008, 4.2.1) when the class has no minimum.
+  assert.equal(read.measuredWeightKg, 405.5);
+  // A stored mean is taken as stored.
+  const withMean = { ...record.measurements, weight: { ...record.measurements.weight!, meanKg: 410 } };
+  assert.equal(readRecordForReport(withMean, record.results).measuredWeightKg, 410);
+  // Not weighed, no power figure: nothing invented.
+  const bare = { nozzle: record.measurements.nozzle, weight: null, power: { evidenceSeen: false } };
+  assert.deepEqual(
+    [
+      readRecordForReport(bare, record.results).confirmedPowerKw,
+      readRecordForReport(bare, record.results).measuredWeightKg,
+    ],
+    [null, null],
+  );
 });

@@ -219,13 +219,23 @@ export function BoardView({
                 <p className="text-ink-soft">
                   {r.latest
                     ? `by ${r.latest.recordedBy} at ${new Date(r.latest.capturedAt).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })}`
-                    : 'not inspected yet'}
+                    : r.declarationChange
+                      ? 'inspected at an earlier declaration'
+                      : 'not inspected yet'}
                   {r.openReinspectionCount > 0 ? ' · re-inspection asked' : ''}
                   {r.isPaid ? '' : ' · not paid'}
                 </p>
+                {r.declarationChange && (
+                  <p
+                    className="mt-1 rounded-lg border-2 border-flare-500 bg-flare-100 p-2 font-bold"
+                    data-testid="declaration-change"
+                  >
+                    {r.declarationChange}
+                  </p>
+                )}
               </div>
             </div>
-            <VerdictBadge verdict={r.state} />
+            <VerdictBadge verdict={r.declarationChange ? 'reinspection_required' : r.state} />
           </li>
         ))}
         {board && board.rows.length === 0 && <li className="card">No boats match.</li>}
