@@ -13,6 +13,12 @@ const BASE = `http://127.0.0.1:${PORT}`;
 let app: ChildProcess;
 
 before(async () => {
+  // Another server already answering on this port would be read instead of ours: refuse to start.
+  const isTaken = await fetch(`${BASE}/api/health`).then(
+    () => true,
+    () => false,
+  );
+  if (isTaken) throw new Error(`port ${PORT} is already in use: stop what listens there (or set TEST_PORT)`);
   app = spawn('node_modules/.bin/next', ['start', '-p', String(PORT)], {
     env: { ...process.env, PORT: String(PORT), NEXTAUTH_URL: `https://boreline.test:${PORT}` },
     stdio: 'ignore',
