@@ -13,6 +13,16 @@ import { Protest, ProtestEvidence, initProtests } from './protest';
 import { AuditEvent, initAuditEvents } from './audit-event';
 import { CustodyItem, CustodyRelease, initCustody } from './custody';
 import { OfficialInterest, OfficialInterestWithdrawal, initOfficialInterests } from './official-interest';
+import {
+  BoatComponent,
+  BoatLogNote,
+  ComponentEvent,
+  DeclarationVersionComponent,
+  Seal,
+  SealBatch,
+  SealEvent,
+  initBoatRecord,
+} from './boat-record';
 
 // Defines every model and association on one Sequelize instance. Tables come from migrations/.
 export function initModels(sequelize: Sequelize) {
@@ -30,6 +40,7 @@ export function initModels(sequelize: Sequelize) {
   initAuditEvents(sequelize);
   initCustody(sequelize);
   initOfficialInterests(sequelize);
+  initBoatRecord(sequelize);
 
   Account.belongsTo(User, { foreignKey: 'userId' });
   Session.belongsTo(User, { foreignKey: 'userId' });
@@ -75,6 +86,15 @@ export function initModels(sequelize: Sequelize) {
   CustodyItem.belongsTo(Entry, { foreignKey: 'entryId' });
   CustodyItem.hasOne(CustodyRelease, { foreignKey: 'itemId', as: 'release' });
   OfficialInterest.hasOne(OfficialInterestWithdrawal, { foreignKey: 'interestId', as: 'withdrawal' });
+  BoatComponent.belongsTo(Boat, { foreignKey: 'boatId' });
+  Boat.hasMany(BoatComponent, { foreignKey: 'boatId', as: 'components' });
+  BoatComponent.hasMany(ComponentEvent, { foreignKey: 'componentId', as: 'events' });
+  SealBatch.belongsTo(Event, { foreignKey: 'eventId' });
+  Seal.belongsTo(SealBatch, { foreignKey: 'batchId', as: 'batch' });
+  Seal.hasMany(SealEvent, { foreignKey: 'sealId', as: 'events' });
+  SealEvent.belongsTo(Seal, { foreignKey: 'sealId' });
+  SealEvent.belongsTo(BoatComponent, { foreignKey: 'componentId', as: 'component' });
+  BoatLogNote.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
 
   return {
     User,
@@ -107,6 +127,13 @@ export function initModels(sequelize: Sequelize) {
     CustodyRelease,
     OfficialInterest,
     OfficialInterestWithdrawal,
+    BoatComponent,
+    ComponentEvent,
+    DeclarationVersionComponent,
+    SealBatch,
+    Seal,
+    SealEvent,
+    BoatLogNote,
   };
 }
 
@@ -142,4 +169,11 @@ export {
   CustodyRelease,
   OfficialInterest,
   OfficialInterestWithdrawal,
+  BoatComponent,
+  ComponentEvent,
+  DeclarationVersionComponent,
+  SealBatch,
+  Seal,
+  SealEvent,
+  BoatLogNote,
 };
