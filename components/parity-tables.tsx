@@ -126,6 +126,11 @@ export function ParityTables({
                     <td className="p-2">
                       {i.boatName}
                       {b.isReferenceBoat && <span className="ml-1 text-xs font-bold">(median)</span>}
+                      {i.awaitingReinspection && (
+                        <span className="ml-1 text-xs font-bold text-flare-600" data-testid="awaiting-reinspection">
+                          (re-inspection required)
+                        </span>
+                      )}
                     </td>
                     <td className="figure p-2">
                       {f(b.powerKw, 0)} <span className="text-ink-mute">{i.powerSource === 'verified' ? '✓' : ''}</span>
@@ -157,6 +162,26 @@ export function ParityTables({
               })}
             </tbody>
           </table>
+        </section>
+      )}
+      {inputs.boats.some((b) => b.awaitingReinspection) && (
+        <section aria-labelledby="awaiting" className="card">
+          <h2 id="awaiting" className="text-xl">
+            Declarations changed since inspection
+          </h2>
+          <p className="mt-1 text-sm">
+            These boats&apos; figures are those confirmed at their inspection, not what the owner declared since; each
+            must be inspected again.
+          </p>
+          <ul className="mt-2 space-y-1" data-testid="awaiting-reinspection-list">
+            {inputs.boats
+              .filter((b) => b.awaitingReinspection)
+              .map((b) => (
+                <li key={b.entryId}>
+                  #{b.raceNumber} {b.boatName}: {b.awaitingReinspection}
+                </li>
+              ))}
+          </ul>
         </section>
       )}
       {inputs.excluded.length > 0 && (

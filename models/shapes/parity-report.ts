@@ -14,6 +14,8 @@ export type StoredReportBoatInput = {
   uNozzleDiameterMm: number;
   inspectionId: string | null;
   inspectedAt: string | null;
+  /** Set when the declaration changed after the inspection these figures come from: what changed. */
+  awaitingReinspection?: string | null;
 };
 
 export type StoredReportInputs = {

@@ -1,6 +1,6 @@
 // Issue 15, item 2: an owner changes the boat's declared power after a conforming inspection; the
 // chief scrutineer's board then shows "Re-inspection required" with what changed (not "Conforms"),
-// and so does the boat card at the dock. The class limits are chosen by this test.
+// and so does the boat card at the dock; the draft parity report keeps the inspected figures, flagged. The class limits are chosen by this test.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import type { Browser } from 'playwright-core';
@@ -70,4 +70,19 @@ test('the board and the boat card show re-inspection required after the declarat
   await card.waitFor();
   assert.match(await card.innerText(), /power 250 → 9000 kW/);
   await context.close();
+
+  // The organiser's draft parity report keeps the inspected 250 kW, marked as awaiting re-inspection.
+  const organiserContext = await newContext(browser, PHONE);
+  const report = await organiserContext.newPage();
+  await signInWithPassword(report, DEMO.organiser, DEMO_PASSWORD);
+  await report.goto(`/organise/events/${meeting.eventId}/classes/${classId}/report`);
+  const boatRow = report.locator(`[data-entry="${entry.id}"]`);
+  await boatRow.waitFor();
+  const boatText = await boatRow.innerText();
+  assert.match(boatText, /re-inspection required/);
+  assert.match(boatText, /\b250\b/);
+  assert.doesNotMatch(boatText, /9000|9 000|9,000/);
+  assert.match(await report.getByTestId('awaiting-reinspection-list').innerText(), /power 250 → 9000 kW/);
+  await screenshot(report, 'declaration-change-report');
+  await organiserContext.close();
 });

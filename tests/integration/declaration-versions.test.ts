@@ -27,7 +27,13 @@ const draft = async () => {
   assert.equal(res.status, 200);
   return (await res.json()).data.draft as {
     inputs: {
-      boats: { entryId: string; powerKw: number; powerSource: string; measuredWeightKg?: number | null }[];
+      boats: {
+        entryId: string;
+        powerKw: number;
+        powerSource: string;
+        measuredWeightKg?: number | null;
+        awaitingReinspection?: string | null;
+      }[];
       excluded: { entryId: string; reason: string }[];
     };
   };
@@ -142,15 +148,15 @@ test('the attack: 250 kW inspected and conforming, then declared 9000 kW: re-ins
   );
   assert.equal(cached.inspection_result, null, 'My entries no longer reads the earlier verdict');
 
-  // The draft report never shows 9000 kW: the boat is left out with the reason until it is inspected again.
+  // The draft report never shows 9000 kW: it keeps the figures confirmed at the inspection (250 kW,
+  // 403 kg measured), marked as awaiting re-inspection with what changed.
   report = await draft();
-  assert.equal(
-    report.inputs.boats.find((b) => b.entryId === entry.id),
-    undefined,
-  );
   assert.ok(!report.inputs.boats.some((b) => b.powerKw === 9000));
-  const out = report.inputs.excluded.find((e) => e.entryId === entry.id)!;
-  assert.match(out.reason, /Re-inspection required/);
+  const kept = report.inputs.boats.find((b) => b.entryId === entry.id)!;
+  assert.equal(kept.powerKw, 250);
+  assert.equal(kept.measuredWeightKg, 403);
+  assert.match(kept.awaitingReinspection ?? '', /Re-inspection required.*power 250 → 9000 kW/);
+  assert.ok(!report.inputs.excluded.some((e) => e.entryId === entry.id));
 
   // The meeting's chief scrutineer is told, with what changed.
   const mail = await waitForMail(DEMO.chief, { subject: subjectFor(entry) });
@@ -237,7 +243,9 @@ test('a record captured before a change but sent after it pins the version it ch
   const row = (await board()).rows.find((x) => x.entryId === e.id)!;
   assert.notEqual(row.state, 'conforms');
   assert.match(row.declarationChange ?? '', /power 240 → 295 kW/);
-  assert.ok(!(await draft()).inputs.boats.some((b) => b.entryId === e.id));
+  const kept = (await draft()).inputs.boats.find((b) => b.entryId === e.id)!;
+  assert.equal(kept.powerKw, 240, 'the report keeps the confirmed figure, not the 295 kW declared since');
+  assert.match(kept.awaitingReinspection ?? '', /power 240 → 295 kW/);
   const mail = await waitForMail(DEMO.chief, { subject: subjectFor(e) });
   assert.match(mail.text, /power 240 → 295 kW/);
 });

@@ -32,6 +32,8 @@ export type ReportBoatInput = {
   uNozzleDiameterMm: number;
   inspectionId: string | null;
   inspectedAt: string | null;
+  /** Set when the declaration changed after the inspection these figures come from: what changed. */
+  awaitingReinspection?: string | null;
 };
 
 export type ReportExcluded = { entryId: string; raceNumber: number; boatName: string; reason: string };

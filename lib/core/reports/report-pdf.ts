@@ -258,6 +258,11 @@ export async function buildReportPdf(r: PublishedReportDto, timeZone = 'UTC'): P
   drawCurves(ctx, r);
   drawDeviationBars(ctx, r);
   drawTable(ctx, r);
+  const awaiting = r.inputs.boats.filter((b) => b.awaitingReinspection);
+  if (awaiting.length) {
+    text(ctx, 'Declarations changed since inspection (figures as inspected)', { bold: true, size: 11 });
+    for (const b of awaiting) wrap(ctx, `#${b.raceNumber} ${b.boatName}: ${b.awaitingReinspection}`, 8);
+  }
   if (r.inputs.excluded.length) {
     text(ctx, 'Boats not in the figures', { bold: true, size: 11 });
     for (const e of r.inputs.excluded) text(ctx, `#${e.raceNumber} ${e.boatName}: ${e.reason}`, { size: 8 });

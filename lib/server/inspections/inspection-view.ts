@@ -86,8 +86,16 @@ export async function loadInspectionViews(
  * so a record that waited offline does not overtake one made after it). A record of a declaration
  * version the owner has since replaced no longer counts either: the boat must be inspected again.
  */
-export function currentInspectionCte(scope: 'entry' | 'event'): string {
+export function currentInspectionCte(scope: 'entry' | 'event', { acrossVersions = false } = {}): string {
   const where = scope === 'entry' ? 'entry_id = :entryId' : 'event_id = :eventId';
+  // acrossVersions: the latest record whatever declaration version it checked (the parity report keeps
+  // the inspected figures, flagged, while the entry waits for its re-inspection); the verdict stops
+  // being current for everything else.
+  const replaced = acrossVersions
+    ? ''
+    : `and not exists (select 1 from boat_declaration_versions dv
+                           join boat_declaration_versions dn on dn.boat_id = dv.boat_id and dn.version > dv.version
+                          where dv.id = i.declaration_version_id)`;
   return `recursive chain as (
       select id, entry_id, captured_at as root_at from inspections where ${where} and supersedes_id is null
       union all
@@ -96,9 +104,7 @@ export function currentInspectionCte(scope: 'entry' | 'event'): string {
       select distinct on (i.entry_id) i.id, i.entry_id
         from inspections i join chain c on c.id = i.id
        where not exists (select 1 from inspections s where s.entry_id = i.entry_id and s.supersedes_id = i.id)
-         and not exists (select 1 from boat_declaration_versions dv
-                           join boat_declaration_versions dn on dn.boat_id = dv.boat_id and dn.version > dv.version
-                          where dv.id = i.declaration_version_id)
+         ${replaced}
        order by i.entry_id, c.root_at desc, i.captured_at desc, i.received_at desc
     )`;
 }

@@ -14,8 +14,8 @@ type Row = {
   boatName: string;
   /** The power of the declaration version the inspection checked (never the live boat row). */
   checkedPowerKw: number | null;
-  /** An open re-inspection because the owner changed the declaration after the inspection. */
-  declarationChanged: boolean;
+  /** The open re-inspection task's reason when the owner changed the declaration after the inspection. */
+  declarationChange: string | null;
   inspectionId: string | null;
   receivedAt: Date | null;
   overallResult: string | null;
@@ -28,8 +28,9 @@ const RESULT_WORDS: Record<string, string> = { does_not_conform: 'does not confo
 
 /**
  * Inputs of a class's parity report: every entered boat with its current inspection record. A boat is used
- * only when its latest record conforms; the others are listed with the reason. Four queries,
- * whatever the number of boats.
+ * only when its latest record conforms; the others are listed with the reason. When the owner changed the
+ * declaration after that record, the report keeps the inspected figures (never what the owner typed since)
+ * and marks the boat as awaiting re-inspection. Four queries, whatever the number of boats.
  */
 export async function gatherReportInputs(eventId: string, classId: string, at = new Date()): Promise<ReportInputs> {
   const { sequelize, models } = getDb();
@@ -48,11 +49,11 @@ export async function gatherReportInputs(eventId: string, classId: string, at = 
   const [rows] = await sequelize.query(
     // The current record of each entry: corrections replace what they supersede, and a record that
     // waited offline does not overtake a newer capture (the same rule the dock and the board use).
-    `with ${currentInspectionCte('event')}
+    `with ${currentInspectionCte('event', { acrossVersions: true })}
      select e.id as "entryId", e.race_number as "raceNumber", b.name as "boatName", dv.declared_power_kw as "checkedPowerKw",
             i.id as "inspectionId", i.received_at as "receivedAt", i.overall_result as "overallResult", i.measurements, i.results,
-            exists (select 1 from reinspections r where r.entry_id = e.id and r.done_at is null and r.declaration_version_id is not null)
-              as "declarationChanged"
+            (select r.reason from reinspections r where r.entry_id = e.id and r.done_at is null and r.declaration_version_id is not null
+              order by r.created_at desc limit 1) as "declarationChange"
        from entries e
        join boats b on b.id = e.boat_id
        left join current_inspection ci on ci.entry_id = e.id
@@ -70,12 +71,7 @@ export async function gatherReportInputs(eventId: string, classId: string, at = 
   for (const row of rows as Row[]) {
     const base = { entryId: row.entryId, raceNumber: row.raceNumber, boatName: row.boatName };
     if (!row.inspectionId) {
-      excluded.push({
-        ...base,
-        reason: row.declarationChanged
-          ? 'Re-inspection required: the declaration changed after inspection'
-          : 'Not inspected yet',
-      });
+      excluded.push({ ...base, reason: 'Not inspected yet' });
       continue;
     }
     if (row.overallResult !== 'conforms') {
@@ -108,6 +104,8 @@ export async function gatherReportInputs(eventId: string, classId: string, at = 
       uNozzleDiameterMm: U / 2,
       inspectionId: row.inspectionId,
       inspectedAt: row.receivedAt ? new Date(row.receivedAt).toISOString() : null,
+      // The figures stay those inspected; the reader is told the declaration changed since.
+      ...(row.declarationChange ? { awaitingReinspection: row.declarationChange } : {}),
     });
   }
   const density = resolveEventDensity(event);
