@@ -2,12 +2,24 @@
 # Ensure a project-local PostgreSQL cluster on 127.0.0.1 is installed, initialised, running,
 # and has the role of DATABASE_URL (default boreline) and the databases named in $@ (default:
 # boreline boreline_test). Idempotent: safe to run repeatedly and after a killed run.
-# PG_DURABLE=1 (npm run serve): its own cluster (.data/pg-serve) with fsync on and passwords
-# required over TCP; otherwise (demo, tests) fsync is off and loopback connections are trusted.
+#
+# PG_PROFILE chooses the cluster (each has its own data folder):
+#   demo  (npm start, the default)   .data/pg        PostgreSQL's durability settings on; loopback trusted
+#   serve (npm run serve; PG_DURABLE=1 says the same) .data/pg-serve  durable; passwords over TCP
+#   test  (npm test and the benches) .data/pg-test   durability traded for speed (see below)
+# PGPORT is the port (scripts/start.sh and scripts/test.sh set it from BORELINE_PGPORT); PG_DATA_DIR
+# overrides the data folder (a test starts a throwaway cluster with it).
 set -euo pipefail
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 PGPORT="${PGPORT:-54329}"
 DBS=("$@"); [ ${#DBS[@]} -gt 0 ] || DBS=(boreline boreline_test)
+PROFILE="${PG_PROFILE:-demo}"; [ "${PG_DURABLE:-0}" = 1 ] && PROFILE=serve
+case "$PROFILE" in
+  demo) NAME=pg ;;
+  serve) NAME=pg-serve ;;
+  test) NAME=pg-test ;;
+  *) echo "[pg] PG_PROFILE must be demo, serve or test (got '$PROFILE')" >&2; exit 1 ;;
+esac
 
 find_bin() { ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V | tail -n 1; }
 PGBIN="$(find_bin || true)"
@@ -27,10 +39,8 @@ fi
 as_pg() { if [ "$(id -u)" = 0 ]; then runuser -u postgres -- "$@"; else "$@"; fi; }
 
 # The data folder must be reachable by the postgres user; a clone under /root is not.
-DURABLE="${PG_DURABLE:-0}"
-NAME=pg; [ "$DURABLE" = 1 ] && NAME=pg-serve
-DATA="$ROOT/.data/$NAME"
-if [ "$(id -u)" = 0 ] && ! runuser -u postgres -- test -x "$ROOT" 2>/dev/null; then
+DATA="${PG_DATA_DIR:-$ROOT/.data/$NAME}"
+if [ -z "${PG_DATA_DIR:-}" ] && [ "$(id -u)" = 0 ] && ! runuser -u postgres -- test -x "$ROOT" 2>/dev/null; then
   key="$(printf '%s' "$ROOT" | sha1sum | cut -c1-12)"
   DATA="/var/tmp/boreline-$NAME-$key"
 fi
@@ -41,7 +51,7 @@ if [ ! -s "$DATA/PG_VERSION" ]; then
   rm -rf "$DATA"; mkdir -p "$DATA"
   [ "$(id -u)" = 0 ] && chown postgres:postgres "$DATA"
   chmod 700 "$DATA"
-  if [ "$DURABLE" = 1 ]; then
+  if [ "$PROFILE" = serve ]; then
     # The unix socket lives in the data folder (mode 700), so only its owner reaches it; TCP needs a password.
     as_pg "$PGBIN/initdb" -D "$DATA" --locale=C.UTF-8 -E UTF8 --auth-local=trust --auth-host=scram-sha-256 -U postgres >/dev/null
   else
@@ -54,19 +64,48 @@ if [ "${PG_ACTION:-start}" = stop ]; then
   echo "[pg] stopped"; exit 0
 fi
 
-# The demo's and the tests' data can be rebuilt, so they skip fsync; a real install's cannot.
-DURABILITY="-c fsync=off"; [ "$DURABLE" = 1 ] && DURABILITY="-c fsync=on -c synchronous_commit=on -c full_page_writes=on"
-if ! as_pg "$PGBIN/pg_ctl" -D "$DATA" status >/dev/null 2>&1; then
+# Durability. The demo and a real install keep PostgreSQL's own settings (fsync, synchronous_commit and
+# full_page_writes on): a record a scrutineer was told is saved survives a power cut. Only the test
+# cluster trades some for speed, because every run drops and rebuilds its database from migrations and
+# seeds, so a machine crash there loses nothing anybody needs. It keeps synchronous_commit on: without
+# fsync a commit still reaches the operating system before it is acknowledged, so the crash tests that
+# SIGKILL PostgreSQL (the process, not the machine) still find every acknowledged record.
+if [ "$PROFILE" = test ]; then
+  DURABILITY="-c fsync=off -c synchronous_commit=on -c full_page_writes=off"
+else
+  DURABILITY="-c fsync=on -c synchronous_commit=on -c full_page_writes=on"
+fi
+psql_pg() { psql -h "$DATA" -p "$PGPORT" -U postgres -v ON_ERROR_STOP=1 -qtA "$@"; }
+# Who answers on the port when our cluster is not running: another checkout's cluster, or another program.
+port_taken() { node -e 'const s=require("net").connect(+process.argv[1],"127.0.0.1");s.on("connect",()=>{s.destroy();process.exit(0)});s.on("error",()=>process.exit(1))' "$PGPORT"; }
+start_cluster() {
   rm -f "$DATA/postmaster.pid"
-  as_pg "$PGBIN/pg_ctl" -D "$DATA" -w -t 30 -l "$DATA/server.log" \
-    -o "-c listen_addresses=127.0.0.1 -p $PGPORT -k $DATA $DURABILITY -c max_connections=200" start >/dev/null 9>&-
+  if port_taken; then
+    cat >&2 <<MSG
+[pg] port $PGPORT on 127.0.0.1 is already taken by another program (another Boreline checkout's
+[pg] PostgreSQL, or a system PostgreSQL), so this checkout's cluster ($DATA) cannot start there.
+[pg] Choose another port for this checkout, for example:
+[pg]   BORELINE_PGPORT=$((PGPORT + 100)) npm start     (the demo; tests and benches use BORELINE_PGPORT + 10,
+[pg]   or TEST_PGPORT to name their port)
+MSG
+    exit 1
+  fi
+  as_pg "$PGBIN/pg_ctl" -D "$DATA" -w -t 60 -l "$DATA/server.log" \
+    -o "-c listen_addresses=127.0.0.1 -p $PGPORT -k $DATA $DURABILITY -c max_connections=200" start >/dev/null 9>&- || {
+    echo "[pg] PostgreSQL did not start; the end of its log ($DATA/server.log):" >&2
+    tail -n 15 "$DATA/server.log" >&2 || true
+    exit 1
+  }
+}
+if ! as_pg "$PGBIN/pg_ctl" -D "$DATA" status >/dev/null 2>&1; then
+  start_cluster
+elif [ "$PROFILE" != test ] && [ "$(psql_pg -d postgres -c 'show fsync')" != on ]; then
+  # Started by an older checkout with fsync off: restart it with the durable settings.
+  echo "[pg] the cluster in $DATA runs with fsync off; restarting it with PostgreSQL's durability settings"
+  as_pg "$PGBIN/pg_ctl" -D "$DATA" -w -m fast stop >/dev/null
+  start_cluster
 fi
 
-psql_pg() { psql -h "$DATA" -p "$PGPORT" -U postgres -v ON_ERROR_STOP=1 -qtA "$@"; }
-if [ "$DURABLE" = 1 ] && [ "$(psql_pg -d postgres -c 'show fsync')" != on ]; then
-  echo "[pg] the cluster in $DATA runs with fsync off: stop it (PG_ACTION=stop PG_DURABLE=1 bash scripts/pg.sh) and start again" >&2
-  exit 1
-fi
 # The role and its password come from DATABASE_URL (a real install's password is generated per install).
 read -r ROLE PASS < <(node -e 'const u = new URL(process.env.DATABASE_URL || "postgres://boreline:boreline@x/boreline"); console.log(decodeURIComponent(u.username) || "boreline", decodeURIComponent(u.password) || "boreline")')
 [[ "$ROLE" =~ ^[a-z_][a-z0-9_]*$ ]] || { echo "[pg] the user name in DATABASE_URL must be lower-case letters, digits and _" >&2; exit 1; }

@@ -12,9 +12,14 @@ node_modules/.bin/tsx scripts/env-secrets.ts
 asked_host="${BORELINE_HOST:-}"
 set -a; source .env; set +a
 export BORELINE_HOST="${asked_host:-${BORELINE_HOST:-}}"
+# BORELINE_PGPORT chooses this checkout's PostgreSQL port (another checkout may hold 54329); the
+# database address follows the port, whatever .env says.
+export PGPORT="${BORELINE_PGPORT:-${PGPORT:-54329}}"
+DATABASE_URL="$(node -e 'const u = new URL(process.env.DATABASE_URL); u.port = process.env.PGPORT; console.log(u.toString())')"
+export DATABASE_URL
 export NEXT_TELEMETRY_DISABLED=1 BORELINE_DEV_TOOLS=1 BORELINE_MODE=demo
 
-bash scripts/pg.sh boreline
+PG_PROFILE=demo bash scripts/pg.sh boreline
 log "migrating and seeding the demo"
 npx sequelize-cli db:migrate >/dev/null
 npx sequelize-cli db:seed:all >/dev/null
