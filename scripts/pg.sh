@@ -59,6 +59,16 @@ if [ ! -s "$DATA/PG_VERSION" ]; then
   fi
 fi
 
+# PG_ACTION=kill: a crash, not a stop (the crash tests): SIGKILL the postmaster and every backend at once.
+if [ "${PG_ACTION:-start}" = kill ]; then
+  pid="$(head -n 1 "$DATA/postmaster.pid" 2>/dev/null || true)"
+  if [ -n "$pid" ] && kill -0 "$pid" 2>/dev/null; then
+    # shellcheck disable=SC2046
+    kill -9 "$pid" $(pgrep -P "$pid" || true) 2>/dev/null || true
+    for _ in $(seq 1 50); do kill -0 "$pid" 2>/dev/null || break; sleep 0.1; done
+  fi
+  echo "[pg] killed"; exit 0
+fi
 if [ "${PG_ACTION:-start}" = stop ]; then
   as_pg "$PGBIN/pg_ctl" -D "$DATA" -w -m fast stop >/dev/null 2>&1 || true
   echo "[pg] stopped"; exit 0

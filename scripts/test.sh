@@ -98,6 +98,8 @@ if [ $needs_app = 1 ]; then
   stop_pidfile "$RUN/app.pid"; free_port "$PORT"
   setsid node scripts/server.mjs >"$RUN/app.log" 2>&1 9>&- &
   echo $! >"$RUN/app.pid"
+  # The crash tests SIGKILL the app and start it again: where its pid and log live.
+  export BORELINE_APP_PIDFILE="$RUN/app.pid" BORELINE_APP_LOG="$RUN/app.log"
   wait_for_http "http://127.0.0.1:$PORT/api/health" || { log "the app did not start"; cat "$RUN/app.log"; exit 1; }
 fi
 
