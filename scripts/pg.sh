@@ -45,6 +45,10 @@ if [ -z "${PG_DATA_DIR:-}" ] && [ "$(id -u)" = 0 ] && ! runuser -u postgres -- t
   DATA="/var/tmp/boreline-$NAME-$key"
 fi
 export PGDATA="$DATA"
+# Point-in-time recovery (demo and serve): completed WAL segments are copied here by PostgreSQL's own
+# archive_command, and base backups (npm run db:basebackup) are kept beside them.
+ARCHIVE="$DATA-wal-archive"
+BASES="$DATA-base-backups"
 mkdir -p "$(dirname "$DATA")"
 if [ ! -s "$DATA/PG_VERSION" ]; then
   echo "[pg] initialising cluster in $DATA"
@@ -84,7 +88,12 @@ if [ "$PROFILE" = test ]; then
   DURABILITY="-c fsync=off -c synchronous_commit=on -c full_page_writes=off"
 else
   DURABILITY="-c fsync=on -c synchronous_commit=on -c full_page_writes=on"
+  # WAL archiving for point-in-time recovery (scripts/pg-pitr.sh); archive_timeout bounds how much
+  # committed work waits in an unfinished segment (5 minutes).
+  for d in "$ARCHIVE" "$BASES"; do mkdir -p "$d"; [ "$(id -u)" = 0 ] && chown postgres:postgres "$d"; chmod 700 "$d"; done
+  DURABILITY="$DURABILITY -c wal_level=replica -c archive_mode=on -c archive_timeout=300 -c 'archive_command=test ! -f $ARCHIVE/%f && cp %p $ARCHIVE/%f'"
 fi
+RECOVERY_OPTS="${PG_RECOVERY_OPTS:-}"
 psql_pg() { psql -h "$DATA" -p "$PGPORT" -U postgres -v ON_ERROR_STOP=1 -qtA "$@"; }
 # Who answers on the port when our cluster is not running: another checkout's cluster, or another program.
 port_taken() { node -e 'const s=require("net").connect(+process.argv[1],"127.0.0.1");s.on("connect",()=>{s.destroy();process.exit(0)});s.on("error",()=>process.exit(1))' "$PGPORT"; }
@@ -101,17 +110,59 @@ MSG
     exit 1
   fi
   as_pg "$PGBIN/pg_ctl" -D "$DATA" -w -t 60 -l "$DATA/server.log" \
-    -o "-c listen_addresses=127.0.0.1 -p $PGPORT -k $DATA $DURABILITY -c max_connections=200" start >/dev/null 9>&- || {
+    -o "-c listen_addresses=127.0.0.1 -p $PGPORT -k $DATA $DURABILITY -c max_connections=200 $RECOVERY_OPTS" start >/dev/null 9>&- || {
     echo "[pg] PostgreSQL did not start; the end of its log ($DATA/server.log):" >&2
     tail -n 15 "$DATA/server.log" >&2 || true
     exit 1
   }
 }
+# PG_ACTION=recover with PG_RECOVER_TO=<time>: point-in-time recovery from the newest base backup taken
+# before that time, replaying the archived WAL up to it (scripts/pg-pitr.sh explains; demo and serve only).
+if [ "${PG_ACTION:-start}" = recover ]; then
+  TO="${PG_RECOVER_TO:-}"
+  [ "$PROFILE" != test ] || { echo "[pg] the test cluster keeps no WAL archive: nothing to recover from" >&2; exit 1; }
+  if ! [[ "$TO" =~ ^[0-9T:+.\ Z-]+$ ]] || ! to_epoch="$(date -d "$TO" +%s 2>/dev/null)"; then
+    echo "[pg] --to needs a time such as \"2026-12-03 11:45:00+00\" (got '$TO')" >&2; exit 1
+  fi
+  [ "$to_epoch" -le "$(date +%s)" ] || { echo "[pg] --to $TO is in the future" >&2; exit 1; }
+  base=""
+  for b in $(ls -1 "$BASES" 2>/dev/null | sort); do
+    [[ "$b" =~ ^([0-9]{4})([0-9]{2})([0-9]{2})T([0-9]{2})([0-9]{2})([0-9]{2})Z$ ]] || continue
+    t="$(date -u -d "${BASH_REMATCH[1]}-${BASH_REMATCH[2]}-${BASH_REMATCH[3]} ${BASH_REMATCH[4]}:${BASH_REMATCH[5]}:${BASH_REMATCH[6]}" +%s)"
+    [ "$t" -lt "$to_epoch" ] && base="$b"
+  done
+  [ -n "$base" ] || { echo "[pg] no base backup from before $TO in $BASES (npm run db:basebackup takes one)" >&2; exit 1; }
+  if as_pg "$PGBIN/pg_ctl" -D "$DATA" status >/dev/null 2>&1; then
+    # Close the WAL segment in use so the archive holds everything committed until now, and wait for it.
+    seg="$(psql_pg -d postgres -c 'select pg_walfile_name(pg_switch_wal())')"
+    for _ in $(seq 1 100); do
+      [ -f "$ARCHIVE/$seg" ] && break
+      sleep 0.1
+    done
+  fi
+  as_pg "$PGBIN/pg_ctl" -D "$DATA" -w -m fast stop >/dev/null 2>&1 || true
+  kept="$DATA-before-recovery-$(date -u +%Y%m%dT%H%M%SZ)"
+  mv "$DATA" "$kept"
+  cp -a "$BASES/$base" "$DATA"
+  # The backup holds the socket's lock file (the socket lives in the data folder): not ours to keep.
+  rm -f "$DATA"/.s.PGSQL.* "$DATA/postmaster.pid"
+  as_pg touch "$DATA/recovery.signal"
+  RECOVERY_OPTS="-c 'restore_command=cp $ARCHIVE/%f %p' -c 'recovery_target_time=$TO' -c recovery_target_action=promote"
+  start_cluster
+  for _ in $(seq 1 240); do
+    [ "$(psql_pg -d postgres -c 'select pg_is_in_recovery()' 2>/dev/null)" = f ] && break
+    sleep 0.5
+  done
+  [ "$(psql_pg -d postgres -c 'select pg_is_in_recovery()')" = f ] || { echo "[pg] recovery did not finish; see $DATA/server.log" >&2; exit 1; }
+  echo "[pg] recovered to $TO from base backup $base and the archived WAL; the cluster as it was is kept in $kept"
+  exit 0
+fi
+
 if ! as_pg "$PGBIN/pg_ctl" -D "$DATA" status >/dev/null 2>&1; then
   start_cluster
-elif [ "$PROFILE" != test ] && [ "$(psql_pg -d postgres -c 'show fsync')" != on ]; then
-  # Started by an older checkout with fsync off: restart it with the durable settings.
-  echo "[pg] the cluster in $DATA runs with fsync off; restarting it with PostgreSQL's durability settings"
+elif [ "$PROFILE" != test ] && [ "$(psql_pg -d postgres -c 'show fsync' -c 'show archive_mode' | tr '\n' ' ')" != "on on " ]; then
+  # Started by an older checkout with fsync off (or without WAL archiving): restart it with the durable settings.
+  echo "[pg] the cluster in $DATA runs with fsync off or without WAL archiving; restarting it with PostgreSQL's durability settings"
   as_pg "$PGBIN/pg_ctl" -D "$DATA" -w -m fast stop >/dev/null
   start_cluster
 fi
@@ -129,4 +180,11 @@ for db in "${DBS[@]}"; do
     psql_pg -d postgres -c "create database $db owner $ROLE"
   fi
 done
+if [ "${PG_ACTION:-start}" = basebackup ]; then
+  [ "$PROFILE" != test ] || { echo "[pg] the test cluster keeps no WAL archive: a base backup of it recovers nothing" >&2; exit 1; }
+  name="$(date -u +%Y%m%dT%H%M%SZ)"
+  as_pg "$PGBIN/pg_basebackup" -h "$DATA" -p "$PGPORT" -U postgres -D "$BASES/$name" -Fp -X stream -c fast
+  echo "[pg] base backup in $BASES/$name"
+  exit 0
+fi
 echo "[pg] ready on 127.0.0.1:$PGPORT (data $DATA)"
