@@ -7,14 +7,17 @@
 import { createServer } from 'node:http';
 import next from 'next';
 import { forwardHeaders, isLoopbackHost, parseProxyHops, readListenHost } from './forwarding.mjs';
+import { logger, metrics, requestIdFor, routeLabel } from './observability.mjs';
 
-const say = (msg) => console.log(`[boreline] ${msg}`);
+// Every line this process writes is one JSON object (pino): operators filter and ship them as they are.
+const log = logger();
+const say = (msg, fields = {}) => log.info(fields, msg);
 
 let hops;
 try {
   hops = parseProxyHops(process.env.TRUSTED_PROXY_HOPS);
 } catch (err) {
-  console.error(`[boreline] ${err.message}`);
+  log.fatal(err.message);
   process.exit(1);
 }
 // next.config.mjs reads the same value when the app is prepared (compression on without a proxy).
@@ -27,15 +30,15 @@ const port = Number(process.env.PORT || 3000);
 const host = readListenHost(process.env.BORELINE_HOST, mode === 'serve' && hops === 0 ? '0.0.0.0' : '127.0.0.1');
 
 if (mode === 'demo' && !isLoopbackHost(host)) {
-  console.warn(`
-[boreline] WARNING: the demo is listening on ${host}, reachable from the network.
-[boreline] Its accounts (including the site administrator) share the public password in README.md,
-[boreline] and its outbox shows every sign-in link. Anyone who can reach this port can sign in.
-`);
+  log.warn(
+    { host },
+    `WARNING: the demo is listening on ${host}, reachable from the network. Its accounts (including the site administrator) share the public password in README.md, and its outbox shows every sign-in link. Anyone who can reach this port can sign in.`,
+  );
 }
 if (hops > 0 && !isLoopbackHost(host)) {
-  console.warn(
-    `[boreline] TRUSTED_PROXY_HOPS=${hops} but listening on ${host}: clients that reach the app directly can forge their address. Listen on 127.0.0.1 behind the proxy.`,
+  log.warn(
+    { host, hops },
+    `TRUSTED_PROXY_HOPS=${hops} but listening on ${host}: clients that reach the app directly can forge their address. Listen on 127.0.0.1 behind the proxy.`,
   );
 }
 
@@ -45,16 +48,54 @@ await app.prepare();
 
 const server = createServer((req, res) => {
   forwardHeaders(req.headers, req.socket.remoteAddress, hops);
+  // One id per request, on the request (route handlers put it in error answers and their log lines),
+  // on the answer, and on this access line. A client's own X-Request-Id is only kept from a declared proxy.
+  const requestId = requestIdFor(req.headers['x-request-id'], hops > 0);
+  req.headers['x-request-id'] = requestId;
+  res.setHeader('X-Request-Id', requestId);
+  const started = process.hrtime.bigint();
+  res.on('finish', () => {
+    const seconds = Number(process.hrtime.bigint() - started) / 1e9;
+    const path = (req.url ?? '/').split('?')[0];
+    const route = routeLabel(path);
+    metrics().httpDuration.observe(
+      { method: req.method, route, status: `${Math.floor(res.statusCode / 100)}xx` },
+      seconds,
+    );
+    if (route !== '/_next/*')
+      log.info(
+        { requestId, method: req.method, path, status: res.statusCode, ms: Math.round(seconds * 10000) / 10 },
+        'request',
+      );
+  });
   handle(req, res).catch((err) => {
-    console.error('[boreline] unhandled request error', err);
+    log.error({ requestId, err }, 'unhandled request error');
     if (!res.headersSent) res.statusCode = 500;
     res.end();
   });
 });
 server.on('error', (err) => {
-  console.error(`[boreline] could not listen on ${host}:${port}: ${err.message}`);
+  log.fatal({ host, port }, `could not listen on ${host}:${port}: ${err.message}`);
   process.exit(1);
 });
+
+// METRICS_PORT: the metrics for a scraper on this machine, on loopback only, without a session.
+const metricsPort = Number(process.env.METRICS_PORT || 0);
+if (metricsPort) {
+  createServer(async (req, res) => {
+    if (req.method !== 'GET' || (req.url ?? '').split('?')[0] !== '/metrics') {
+      res.writeHead(404).end();
+      return;
+    }
+    const { registry } = metrics();
+    res.writeHead(200, { 'Content-Type': registry.contentType }).end(await registry.metrics());
+  })
+    .on('error', (err) => {
+      log.fatal(`could not listen for metrics on 127.0.0.1:${metricsPort}: ${err.message}`);
+      process.exit(1);
+    })
+    .listen(metricsPort, '127.0.0.1', () => say(`metrics on http://127.0.0.1:${metricsPort}/metrics`));
+}
 server.listen(port, host, () =>
   say(
     `listening on http://${host.includes(':') ? `[${host}]` : host}:${port} (${mode}; ${hops ? `${hops} trusted proxy hop(s), compression left to the proxy` : 'no proxy declared: client address from the socket, compression on'})`,

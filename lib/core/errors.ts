@@ -14,7 +14,7 @@ export class AppError extends Error {
   }
 }
 
-export type ErrorBody = { error: { code: string; message: string; details?: unknown } };
+export type ErrorBody = { error: { code: string; message: string; details?: unknown; requestId?: string } };
 
 export type FieldIssue = { field: string; message: string };
 
@@ -50,8 +50,15 @@ function isDatabaseDown(err: unknown): boolean {
   );
 }
 
+export type ErrorAnswerOptions = {
+  /** The request's id (scripts/server.mjs): carried in the answer, so a report can be matched to the log. */
+  requestId?: string | null;
+  /** Told about an unexpected error (the server's structured log); console.error when left out. */
+  onUnexpected?: (err: unknown) => void;
+};
+
 /** Maps any thrown value to the one JSON error shape with an honest status. */
-export function toErrorResponse(err: unknown): Response {
+export function toErrorResponse(err: unknown, options: ErrorAnswerOptions = {}): Response {
   let status = 500;
   let body: ErrorBody;
   const headers: Record<string, string> = {};
@@ -95,8 +102,10 @@ export function toErrorResponse(err: unknown): Response {
     headers['Retry-After'] = '5';
     body = { error: { code: 'unavailable', message: 'The database is not answering; try again shortly.' } };
   } else {
-    console.error('[boreline] unexpected error', err);
+    if (options.onUnexpected) options.onUnexpected(err);
+    else console.error('[boreline] unexpected error', err);
     body = { error: { code: 'internal', message: 'Something went wrong on our side.' } };
   }
+  if (options.requestId) body.error.requestId = options.requestId;
   return Response.json(body, { status, headers });
 }

@@ -45,6 +45,14 @@ export const ROUTES: Row[] = [
   { method: 'GET', file: 'app/api/auth/[...nextauth]/route.ts', path: () => '/api/auth/session', access: 'skip' },
   { method: 'POST', file: 'app/api/auth/[...nextauth]/route.ts', path: () => '/api/auth/signout', access: 'skip' },
   { method: 'GET', file: 'app/api/health/route.ts', path: () => '/api/health', access: 'public' },
+  { method: 'GET', file: 'app/api/health/live/route.ts', path: () => '/api/health/live', access: 'public' },
+  { method: 'GET', file: 'app/api/health/ready/route.ts', path: () => '/api/health/ready', access: 'public' },
+  {
+    method: 'GET',
+    file: 'app/api/metrics/route.ts',
+    path: () => '/api/metrics',
+    access: { anyOf: ['admin.view_metrics'] },
+  },
   { method: 'POST', file: 'app/api/accounts/route.ts', path: () => '/api/accounts', access: 'public' },
   { method: 'POST', file: 'app/api/payments/webhook/route.ts', path: () => '/api/payments/webhook', access: 'webhook' },
   // Public calculation API and published reports

@@ -40,6 +40,7 @@ export const PERMISSIONS = {
   // Site
   'admin.manage_users': ['admin'],
   'dev.outbox': ['admin'], // the demo's outbox holds everyone's sign-in links
+  'admin.view_metrics': ['admin'], // request timings by route, pool use, recording outcomes
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Permission = keyof typeof PERMISSIONS;

@@ -4,6 +4,7 @@ import { getActor, assertCan, type Actor } from '@/lib/server/auth/actor';
 import type { Permission } from '@/lib/core/auth/permissions';
 import { AppError, toErrorResponse } from '../../core/errors';
 import { readJsonBody, readOptionalJsonBody } from './read-body';
+import { logger } from '@/lib/server/observability';
 
 type Params = Record<string, string | string[]>;
 type Ctx<P> = { params: Promise<P> };
@@ -25,7 +26,7 @@ export function checkOrigin(req: Request) {
   if (originHost !== host) throw new AppError('bad_origin', 403, 'This request came from another site.');
 }
 
-/** Wraps a public route handler: origin check and the one error shape. */
+/** Wraps a public route handler: origin check and the one error shape (with the request's id). */
 export function publicHandler<P extends Params = Params>(
   fn: (req: NextRequest, ctx: { params: P }) => Promise<Response>,
 ) {
@@ -34,7 +35,11 @@ export function publicHandler<P extends Params = Params>(
       checkOrigin(req);
       return await fn(req, { params: await ctx.params });
     } catch (err) {
-      return toErrorResponse(err);
+      const requestId = req.headers.get('x-request-id');
+      return toErrorResponse(err, {
+        requestId,
+        onUnexpected: (e) => logger().error({ requestId, err: e, path: req.nextUrl.pathname }, 'unexpected error'),
+      });
     }
   };
 }

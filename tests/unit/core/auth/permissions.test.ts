@@ -70,7 +70,7 @@ const EXPECTED: Record<Role, Permission[]> = {
     'interest.declare',
     'interest.view_register',
   ],
-  admin: ['account.view', 'event.create', 'admin.manage_users', 'dev.outbox'],
+  admin: ['account.view', 'event.create', 'admin.manage_users', 'dev.outbox', 'admin.view_metrics'],
 };
 
 for (const role of ROLES) {

@@ -4,12 +4,29 @@ import { parseId } from '@/lib/server/http/ids';
 import { recordInspection } from '@/lib/server/inspections/record-inspection';
 import { listInspectionBoard } from '@/lib/server/inspections/list-inspection-board';
 import { refuseChange } from '@/lib/server/inspections/refuse-change';
+import { metrics } from '@/lib/server/observability';
+import { AppError } from '@/lib/core/errors';
+import { ZodError } from 'zod';
 
 type P = { eventId: string };
 
 export const POST = actorHandler<P>(async (req, { actor, params }) => {
-  const { inspection, created } = await recordInspection(actor, parseId(params.eventId, 'event'), await readJson(req));
-  return Response.json({ data: inspection, created }, { status: created ? 201 : 200 });
+  const { inspectionRecords } = metrics();
+  try {
+    const { inspection, created } = await recordInspection(
+      actor,
+      parseId(params.eventId, 'event'),
+      await readJson(req),
+    );
+    // "replayed": the same idempotency key again (a phone resending from its queue after a lost answer).
+    inspectionRecords.inc({ outcome: created ? 'created' : 'replayed' });
+    return Response.json({ data: inspection, created }, { status: created ? 201 : 200 });
+  } catch (err) {
+    inspectionRecords.inc({
+      outcome: err instanceof AppError || err instanceof ZodError || err instanceof SyntaxError ? 'refused' : 'failed',
+    });
+    throw err;
+  }
 });
 
 export const GET = actorHandler<P>(async (req, { actor, params }) => {

@@ -1,0 +1,94 @@
+// Structured logs and metrics, shared by the HTTP server (scripts/server.mjs) and the app's own code
+// (lib/server/observability.ts). Plain JavaScript so node runs it without a build step. Both sides
+// reach one logger and one metrics registry through globalThis, so a bundled copy of this module
+// inside the Next.js build and the copy server.mjs loads count into the same figures.
+//
+// Logs: one JSON object per line on stdout (pino), each with the request's id when there is one.
+// Metrics: Prometheus text format (prom-client), read at /api/metrics (site administrator) or on
+// METRICS_PORT (loopback only).
+import { randomUUID } from 'node:crypto';
+import pino from 'pino';
+import client from 'prom-client';
+
+const KEY = Symbol.for('boreline.observability');
+
+function create() {
+  const logger = pino({
+    level: process.env.LOG_LEVEL || 'info',
+    base: { service: 'boreline', pid: process.pid },
+    timestamp: pino.stdTimeFunctions.isoTime,
+    // Never write a credential into a log line, whatever a caller passes.
+    redact: {
+      paths: [
+        'req.headers.cookie',
+        'req.headers.authorization',
+        'headers.cookie',
+        'headers.authorization',
+        '*.password',
+      ],
+      censor: '[redacted]',
+    },
+  });
+  const registry = new client.Registry();
+  client.collectDefaultMetrics({ register: registry, prefix: 'boreline_process_' });
+  const metrics = {
+    registry,
+    httpDuration: new client.Histogram({
+      name: 'boreline_http_request_duration_seconds',
+      help: 'Time to answer an HTTP request, by method, route (ids replaced by :id) and status class',
+      labelNames: ['method', 'route', 'status'],
+      buckets: [0.005, 0.01, 0.025, 0.05, 0.1, 0.25, 0.5, 1, 2.5, 5, 10],
+      registers: [registry],
+    }),
+    inspectionRecords: new client.Counter({
+      name: 'boreline_inspection_records_total',
+      help: 'Inspection records sent to the server, by outcome (created, replayed: the same idempotency key again, refused, failed)',
+      labelNames: ['outcome'],
+      registers: [registry],
+    }),
+    dbPool: new client.Gauge({
+      name: 'boreline_db_pool_connections',
+      help: 'Database pool connections by state (in use, idle, requests waiting for one)',
+      labelNames: ['state'],
+      registers: [registry],
+      collect() {
+        // The app's pool (lib/server/db), once it has been made.
+        const pool = globalThis.__borelineDb?.sequelize?.connectionManager?.pool;
+        const write = pool?.write ?? pool;
+        if (!write || typeof write.size !== 'number') return;
+        this.set({ state: 'in_use' }, write.using ?? 0);
+        this.set({ state: 'idle' }, write.available ?? 0);
+        this.set({ state: 'waiting' }, write.waiting ?? 0);
+      },
+    }),
+  };
+  return { logger, metrics };
+}
+
+function shared() {
+  globalThis[KEY] ??= create();
+  return globalThis[KEY];
+}
+
+export const logger = () => shared().logger;
+export const metrics = () => shared().metrics;
+
+const UUID = /[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}/gi;
+
+/** A path as a metric label: ids and numbers become :id, static files one label, so labels stay few. */
+export function routeLabel(path) {
+  if (path.startsWith('/_next/')) return '/_next/*';
+  const clean = path
+    .split('?')[0]
+    .replace(UUID, ':id')
+    .split('/')
+    .map((seg) => (/^\d+$/.test(seg) || /^[A-Za-z0-9_-]{20,}$/.test(seg) ? ':id' : seg))
+    .join('/');
+  return clean.length > 120 ? clean.slice(0, 120) : clean;
+}
+
+/** A request id: the trusted proxy's when one is declared and sent a sane one, else a new one. */
+export function requestIdFor(incoming, trustProxy) {
+  if (trustProxy && typeof incoming === 'string' && /^[A-Za-z0-9._-]{8,80}$/.test(incoming)) return incoming;
+  return randomUUID();
+}
