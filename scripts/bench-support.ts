@@ -8,6 +8,8 @@ const PASSWORD = 'tarnwater-demo';
 
 export class Client {
   private cookies = new Map<string, string>();
+  /** timeoutMs: how long one request may take (setting up a meeting after a burst waits behind the mail queue). */
+  constructor(private readonly timeoutMs = 15_000) {}
   async fetch(path: string, init: RequestInit = {}) {
     const headers = new Headers(init.headers);
     if (this.cookies.size) headers.set('cookie', [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; '));
@@ -15,7 +17,7 @@ export class Client {
       ...init,
       headers,
       redirect: 'manual',
-      signal: init.signal ?? AbortSignal.timeout(15_000),
+      signal: init.signal ?? AbortSignal.timeout(this.timeoutMs),
     });
     for (const line of res.headers.getSetCookie()) {
       const [pair] = line.split(';');
@@ -49,7 +51,9 @@ export class Client {
 }
 
 export async function setUpScratchMeeting(boats: number) {
-  const organiser = await new Client().signIn('organiser@tarnwater.example');
+  // A long timeout: after an earlier burst, thousands of result e-mails may still be draining through the
+  // app's 3-connection SMTP pool, and adding staff sends an e-mail that waits its turn.
+  const organiser = await new Client(180_000).signIn('organiser@tarnwater.example');
   const event = await organiser.json('/api/events', {
     organisationId: '0b0e0000-0000-4000-8000-000000000001',
     name: `Load meeting ${new Date().toISOString()}`,
