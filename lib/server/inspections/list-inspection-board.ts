@@ -1,6 +1,6 @@
 import 'server-only';
 import { QueryTypes } from 'sequelize';
-import { getDb } from '@/lib/server/db';
+import { FROM_REPLICA, getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
 import { findRulesInForce } from '@/lib/server/classes/rule-versions';
@@ -130,7 +130,7 @@ export async function listInspectionBoard(
       where e.event_id = :eventId and e.status in ('awaiting_payment', 'entered')
         and (cast(:classId as uuid) is null or e.class_id = cast(:classId as uuid))
       order by e.race_number`,
-    { replacements: { eventId, classId: chosen?.id ?? null }, type: QueryTypes.SELECT },
+    { replacements: { eventId, classId: chosen?.id ?? null }, type: QueryTypes.SELECT, ...FROM_REPLICA },
   );
   const all: BoardRow[] = rows.map((r) => ({
     entryId: r.entryId,

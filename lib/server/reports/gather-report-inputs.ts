@@ -1,5 +1,6 @@
 import 'server-only';
-import { getDb } from '@/lib/server/db';
+import { QueryTypes } from 'sequelize';
+import { FROM_REPLICA, getDb } from '@/lib/server/db';
 import { AppError } from '@/lib/core/errors';
 import { findRulesInForce } from '@/lib/server/classes/rule-versions';
 import { computeAreaEquivalentDiameterFromReadingsMm } from '@/lib/core/engine/measurement';
@@ -46,7 +47,8 @@ export async function gatherReportInputs(eventId: string, classId: string, at = 
       409,
       'This class has no published rules in force, so there is nothing to report against.',
     );
-  const [rows] = await sequelize.query(
+  // From a replica when there is one: a report may lag the last record by a moment (lib/server/db).
+  const rows = await sequelize.query(
     // The current record of each entry: corrections replace what they supersede, and a record that
     // waited offline does not overtake a newer capture (the same rule the dock and the board use).
     `with ${currentInspectionCte('event', { acrossVersions: true })}
@@ -61,14 +63,14 @@ export async function gatherReportInputs(eventId: string, classId: string, at = 
        left join boat_declaration_versions dv on dv.id = i.declaration_version_id
       where e.event_id = :eventId and e.class_id = :classId and e.status = 'entered'
       order by e.race_number`,
-    { replacements: { eventId, classId } },
+    { replacements: { eventId, classId }, type: QueryTypes.SELECT, ...FROM_REPLICA },
   );
   const r = rules.rules;
   // Class defaults are expanded uncertainties (k = 2); the engine takes standard ones (U / 2).
   const uPowerKw = r.power.defaultUncertaintyKw / 2;
   const boats: ReportBoatInput[] = [];
   const excluded: ReportExcluded[] = [];
-  for (const row of rows as Row[]) {
+  for (const row of rows as unknown as Row[]) {
     const base = { entryId: row.entryId, raceNumber: row.raceNumber, boatName: row.boatName };
     if (!row.inspectionId) {
       excluded.push({ ...base, reason: 'Not inspected yet' });

@@ -1,6 +1,6 @@
 import 'server-only';
 import { randomBytes } from 'node:crypto';
-import { getDb } from '@/lib/server/db';
+import { FROM_REPLICA, getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
 import { PublishReportInput } from '@/lib/core/inputs/reports';
@@ -93,12 +93,20 @@ export async function findPublishedReport(
 ): Promise<(PublishedReportDto & { versions: { number: number; publicId: string }[] }) | null> {
   if (!/^[A-Za-z0-9_-]{8,40}$/.test(publicId)) return null;
   const { models } = getDb();
-  const report = await models.ParityReport.findOne({ where: { publicId } });
+  // A public page reads from a replica when there is one; a report published a moment ago and not
+  // there yet is read from the primary (the organiser opens it right after publishing).
+  let from = FROM_REPLICA as { useMaster: boolean };
+  let report = await models.ParityReport.findOne({ where: { publicId }, ...from });
+  if (!report) {
+    from = { useMaster: true };
+    report = await models.ParityReport.findOne({ where: { publicId }, ...from });
+  }
   if (!report) return null;
   const versions = await models.ParityReport.findAll({
     where: { classId: report.classId },
     attributes: ['number', 'publicId'],
     order: [['number', 'ASC']],
+    ...from,
   });
   return {
     ...toPublishedReportDto(report),
