@@ -351,6 +351,12 @@ test('a component moved from one boat to another keeps its seals and history', a
     ['registered', 'edited', 'edited', 'removed', 'fitted', 'removed', 'fitted'],
   );
   assert.equal(onA.trimCode, 'T4');
+  // The boat page shows it with its seal and history.
+  const page = await (await owner.fetch(`/boats/${boatA.boatId}`)).text();
+  assert.match(page, new RegExp(`data-serial="IMP-${run}"`));
+  assert.match(page, new RegExp(`CS-${run}-1`));
+  assert.ok(!page.includes(`CS-${run}-2`), 'the broken seal is not shown as on the part');
+  assert.match(page, /Taken off/);
   const onB = (await (await owner.fetch(`/api/boats/${boatB.boatId}/components`)).json()).data
     .fitted as ComponentView[];
   assert.ok(!onB.some((x) => x.id === impeller.id));
