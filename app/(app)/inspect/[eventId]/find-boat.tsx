@@ -84,8 +84,8 @@ function FindBySerial({ onFind, isBusy }: Props) {
         void look();
       }}
     >
-      <div className="flex flex-wrap items-end gap-3">
-        <div className="min-w-0 flex-1">
+      <div className="grid gap-3 sm:grid-cols-[1fr_auto] sm:items-end">
+        <div className="min-w-0">
           <label htmlFor="find-serial" className="field-label text-lg">
             Engine, pump or impeller serial
           </label>
