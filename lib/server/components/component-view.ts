@@ -65,7 +65,10 @@ export async function findControlledComponentId(
   return row;
 }
 
-/** Components with their history and seals: by id, on a boat, or the actor's components on no boat. */
+/**
+ * Components with their history and seals: by id, on a boat, or a person's components on no boat.
+ * Callers check who may see them first (the owner here; the logbook for a meeting's officials).
+ */
 export async function loadComponentViews(
   where: { ids: string[] } | { boatId: string } | { looseOf: string },
 ): Promise<ComponentView[]> {
