@@ -45,13 +45,21 @@ export class ComponentEvent extends Model<InferAttributes<ComponentEvent>, Infer
   declare createdAt: CreationOptional<Date>;
 }
 
-/** A component a declaration version names (append-only, like the version). */
+/**
+ * A component a declaration version names (append-only, like the version), with its identity as it
+ * was then (migrations/20261203005100-snapshot-declared-components.js).
+ */
 export class DeclarationVersionComponent extends Model<
   InferAttributes<DeclarationVersionComponent>,
   InferCreationAttributes<DeclarationVersionComponent>
 > {
   declare declarationVersionId: string;
   declare componentId: string;
+  declare kind: ComponentKind;
+  declare maker: string;
+  declare model: string;
+  declare serialNumber: string;
+  declare trimCode: string;
 }
 
 /** Numbered seals issued to a meeting's scrutineers: prefix + first..last (append-only). */
@@ -138,6 +146,11 @@ export function initBoatRecord(sequelize: Sequelize) {
     {
       declarationVersionId: { type: DataTypes.UUID, allowNull: false, primaryKey: true },
       componentId: { type: DataTypes.UUID, allowNull: false, primaryKey: true },
+      kind: { type: DataTypes.STRING, allowNull: false },
+      maker: { type: DataTypes.TEXT, allowNull: false },
+      model: { type: DataTypes.TEXT, allowNull: false },
+      serialNumber: { type: DataTypes.TEXT, allowNull: false },
+      trimCode: { type: DataTypes.TEXT, allowNull: false },
     },
     { sequelize, tableName: 'declaration_version_components', modelName: 'declarationVersionComponent', ...append },
   );

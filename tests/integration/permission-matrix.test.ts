@@ -154,6 +154,11 @@ before(async () => {
     .fetch(`/api/protests/${protestId}/evidence`, { method: 'POST', body: evidenceForm });
   const evBody = await ev.json();
   assert.equal(ev.status, 201, JSON.stringify(evBody));
+  // An impeller on the spare boat, for the component routes (its serial is unique per run).
+  const [{ id: componentId }] = await query<{ id: string }>(
+    `insert into boat_components (kind, maker, serial_number, boat_id, created_by_id) values ('impeller', 'Matrix Works', $1, $2, $3) returning id`,
+    [`MX-${randomUUID().slice(0, 8)}`, spareBoat, entrantId],
+  );
   ids = {
     eventId: DEMO.meetingId,
     classId,
@@ -166,6 +171,7 @@ before(async () => {
     missingId: randomUUID(),
     protestId,
     evidenceId: evBody.data.id,
+    componentId,
   };
 });
 

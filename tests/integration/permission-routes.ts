@@ -15,6 +15,7 @@ export type Ids = {
   missingId: string;
   protestId: string;
   evidenceId: string; // lodged by the demo entrant against the other entrant's entry
+  componentId: string; // an impeller on the demo entrant's spare boat
 };
 export type Access =
   | 'public' // anyone, signed in or not
@@ -109,6 +110,36 @@ export const ROUTES: Row[] = [
     method: 'POST',
     file: 'app/api/boats/[boatId]/tag/route.ts',
     path: (i) => `/api/boats/${i.boatId}/tag`,
+    access: 'owner',
+  },
+  {
+    method: 'GET',
+    file: 'app/api/boats/[boatId]/components/route.ts',
+    path: (i) => `/api/boats/${i.boatId}/components`,
+    access: 'owner',
+  },
+  {
+    method: 'POST',
+    file: 'app/api/boats/[boatId]/components/route.ts',
+    path: (i) => `/api/boats/${i.boatId}/components`,
+    access: 'owner',
+  },
+  {
+    method: 'GET',
+    file: 'app/api/components/[componentId]/route.ts',
+    path: (i) => `/api/components/${i.componentId}`,
+    access: 'owner',
+  },
+  {
+    method: 'PATCH',
+    file: 'app/api/components/[componentId]/route.ts',
+    path: (i) => `/api/components/${i.componentId}`,
+    access: 'owner',
+  },
+  {
+    method: 'POST',
+    file: 'app/api/components/[componentId]/move/route.ts',
+    path: (i) => `/api/components/${i.componentId}/move`,
     access: 'owner',
   },
   {
@@ -286,6 +317,12 @@ export const ROUTES: Row[] = [
     method: 'GET',
     file: `${E}/tags/[token]/route.ts`,
     path: (i) => `${ev(i)}/tags/${i.tagToken}`,
+    access: { anyOf: ['inspection.record'] },
+  },
+  {
+    method: 'GET',
+    file: `${E}/component-serials/[serial]/route.ts`,
+    path: (i) => `${ev(i)}/component-serials/MATRIX-NO-SUCH-SERIAL`,
     access: { anyOf: ['inspection.record'] },
   },
   {

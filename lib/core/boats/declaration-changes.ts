@@ -41,7 +41,30 @@ const LABELS: Record<keyof DeclarationFields, { label: string; unit?: string }> 
   declaredWeightKg: { label: 'weight', unit: 'kg' },
 };
 
-export type DeclarationChange = { field: keyof DeclarationFields; label: string; from: string; to: string };
+export type DeclarationChange = {
+  field: keyof DeclarationFields | 'components';
+  label: string;
+  from: string;
+  to: string;
+};
+
+/** A component as a declaration version names it (its identity then; lib/server/components). */
+export type DeclaredComponent = {
+  componentId: string;
+  kind: 'engine' | 'pump' | 'impeller';
+  maker: string;
+  model: string;
+  serialNumber: string;
+  trimCode: string;
+};
+
+const COMPONENT_FIELDS = [
+  ['serialNumber', 'serial'],
+  ['maker', 'maker'],
+  ['model', 'model'],
+  ['trimCode', 'trim code'],
+] as const;
+const KIND_ORDER = ['engine', 'pump', 'impeller'] as const;
 
 const shown = (v: string | number | null, unit?: string): string => {
   if (v === null || v === '') return '(none)';
@@ -80,4 +103,44 @@ export function listDeclarationChanges(before: DeclarationFields, after: Declara
 /** One line: "power 250 → 9000 kW; engine “A” → “B”". */
 export function describeDeclarationChanges(changes: DeclarationChange[]): string {
   return changes.map((c) => `${c.label} ${c.from} → ${c.to}`).join('; ');
+}
+
+/**
+ * What changed in the components a declaration names, in words: "impeller serial “A-1” → “B-2”" when
+ * one impeller replaced another, "impeller trim code “T3” → “T4”" for an edit, "pump serial (none) → “P-9”"
+ * when one was fitted and "engine serial “E-1” → (none)" when one was taken off. The same component
+ * pairs with itself; the rest pair by kind (a swap), in serial order; what is left was fitted or taken off.
+ */
+export function listComponentChanges(before: DeclaredComponent[], after: DeclaredComponent[]): DeclarationChange[] {
+  const bySerial = (a: DeclaredComponent, b: DeclaredComponent) =>
+    a.serialNumber.localeCompare(b.serialNumber) || a.componentId.localeCompare(b.componentId);
+  const out: DeclarationChange[] = [];
+  for (const kind of KIND_ORDER) {
+    const was = before.filter((c) => c.kind === kind).sort(bySerial);
+    const now = after.filter((c) => c.kind === kind).sort(bySerial);
+    const pairs: [DeclaredComponent | null, DeclaredComponent | null][] = [];
+    const left = now.filter((n) => !was.some((w) => w.componentId === n.componentId));
+    for (const w of was) {
+      const same = now.find((n) => n.componentId === w.componentId);
+      pairs.push([w, same ?? null]);
+    }
+    // A component that left pairs with a newcomer of its kind: that is a swap.
+    for (const p of pairs) if (!p[1] && left.length) p[1] = left.shift()!;
+    for (const n of left) pairs.push([null, n]);
+    for (const [a, b] of pairs) {
+      if (!a || !b) {
+        out.push({
+          field: 'components',
+          label: `${kind} serial`,
+          from: a ? shown(a.serialNumber) : '(none)',
+          to: b ? shown(b.serialNumber) : '(none)',
+        });
+        continue;
+      }
+      for (const [f, label] of COMPONENT_FIELDS)
+        if (a[f] !== b[f])
+          out.push({ field: 'components', label: `${kind} ${label}`, from: shown(a[f]), to: shown(b[f]) });
+    }
+  }
+  return out;
 }

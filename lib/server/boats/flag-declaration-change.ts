@@ -3,10 +3,12 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import {
   describeDeclarationChanges,
+  listComponentChanges,
   listDeclarationChanges,
   type DeclarationFields,
 } from '@/lib/core/boats/declaration-changes';
 import { currentInspectionCte } from '@/lib/server/inspections/inspection-view';
+import { listDeclaredComponents } from '@/lib/server/components/list-declared-components';
 import type { FlaggedEntry } from './mail-declaration-change';
 
 // Marks "re-inspection required" on every live entry of a boat whose newest inspected declaration
@@ -17,6 +19,7 @@ import type { FlaggedEntry } from './mail-declaration-change';
 
 type InspectedRow = Omit<FlaggedEntry, 'changes' | 'opened'> & {
   checkedVersion: number;
+  checkedVersionId: string;
   checked: DeclarationFields;
   openTaskId: string | null;
 };
@@ -34,7 +37,7 @@ export async function flagInspectedEntries(
   // The newest version any inspection of the entry checked: what changed is told against it.
   const rows = await sequelize.query<InspectedRow>(
     `select e.id as "entryId", e.event_id as "eventId", e.race_number as "raceNumber", ev.name as "eventName",
-            dv.version as "checkedVersion",
+            dv.version as "checkedVersion", dv.id as "checkedVersionId",
             json_build_object('hullDescription', dv.hull_description, 'pumpDescription', dv.pump_description,
               'impellerDescription', dv.impeller_description, 'declaredNozzleMm', dv.declared_nozzle_mm,
               'declaredNozzleToleranceMm', dv.declared_nozzle_tolerance_mm, 'engineDescription', dv.engine_description,
@@ -50,9 +53,17 @@ export async function flagInspectedEntries(
         for update of e`,
     { replacements: { boatId, versionNumber }, type: QueryTypes.SELECT, transaction },
   );
+  // The components each version named (with their identity then), so "impeller serial A → B" is told too.
+  const declared = await listDeclaredComponents(
+    [versionId, ...new Set(rows.map((r) => r.checkedVersionId))],
+    transaction,
+  );
   const flagged: FlaggedEntry[] = [];
   for (const r of rows) {
-    const changes = describeDeclarationChanges(listDeclarationChanges(r.checked, latest));
+    const changes = describeDeclarationChanges([
+      ...listDeclarationChanges(r.checked, latest),
+      ...listComponentChanges(declared.get(r.checkedVersionId) ?? [], declared.get(versionId) ?? []),
+    ]);
     if (!changes) continue; // changed back to what was inspected: the verdict still stops being current, nothing to tell
     const reason = `Re-inspection required: the declaration changed after inspection (version ${r.checkedVersion} → ${versionNumber}): ${changes}`;
     if (r.openTaskId)

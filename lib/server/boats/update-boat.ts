@@ -7,6 +7,7 @@ import { listDeclarationChanges, pickDeclaration, type DeclarationFields } from 
 import { flagInspectedEntries } from './flag-declaration-change';
 import { mailChiefScrutineers, type FlaggedEntry } from './mail-declaration-change';
 import { findOwnBoat, toBoatView, type BoatView } from './boat-view';
+import { declareBoatComponents } from '@/lib/server/components/declare-components';
 
 /**
  * Changes the actor's own boat; only the fields sent change. A change to the declaration is a new
@@ -49,6 +50,8 @@ export async function updateBoat(
       },
       { transaction },
     );
+    // The new version names the components on the boat now (a component change writes its own version).
+    await declareBoatComponents(version.id, boat.id, transaction);
     return {
       boat,
       flagged: await flagInspectedEntries(

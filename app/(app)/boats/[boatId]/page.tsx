@@ -6,6 +6,7 @@ import QRCode from 'qrcode';
 import { getActor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
 import { getMyBoat } from '@/lib/server/boats/get-my-boat';
+import { listBoatComponents } from '@/lib/server/components/list-my-components';
 import { convertPower } from '@/lib/core/engine/units';
 import { formatFigure } from '@/lib/core/entries/check-declaration';
 import { formatFigure as formatPowerFigure } from '@/lib/core/format/figures';
@@ -14,6 +15,7 @@ import { DOCUMENT_KINDS } from '@/lib/core/inputs/boats';
 import { BoatForm } from '../boat-form';
 import { DocumentUploadForm } from './document-upload-form';
 import { ReissueTagButton } from './reissue-tag-button';
+import { ComponentsSection } from './components-section';
 
 export const metadata: Metadata = { title: 'Boat' };
 export const dynamic = 'force-dynamic';
@@ -30,6 +32,7 @@ export default async function BoatPage({ params }: { params: Promise<{ boatId: s
     throw err;
   });
   const { boat, documents, tag, entries, declarationVersions } = mine;
+  const components = await listBoatComponents(actor, boat.id);
   // Error correction M survives a scuffed sticker; margin 2 modules keeps the quiet zone (ISO/IEC 18004).
   const qr = await QRCode.toDataURL(tag.url, { errorCorrectionLevel: 'M', margin: 2, width: 320 });
   const row = (label: string, value: React.ReactNode) => (
@@ -135,6 +138,8 @@ export default async function BoatPage({ params }: { params: Promise<{ boatId: s
           </div>
         </details>
       </section>
+
+      <ComponentsSection boat={{ id: boat.id, name: boat.name }} components={components} />
 
       <section className="card space-y-3" aria-labelledby="documents">
         <h2 id="documents" className="text-xl">

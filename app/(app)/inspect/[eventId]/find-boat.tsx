@@ -1,6 +1,11 @@
 'use client';
 
 import { useEffect, useEffectEvent, useState } from 'react';
+import { useParams } from 'next/navigation';
+import { requestJson } from '@/components/forms/request-json';
+import { FieldError } from '@/components/forms/form-message';
+import { COMPONENT_KIND_LABELS } from '@/lib/core/inputs/components';
+import type { SerialMatch } from '@/lib/server/components/find-boat-by-serial';
 
 /** html5-qrcode's own file scan (its bundled ZXing decoder). */
 async function decodeWithHtml5Qrcode(file: File): Promise<string | null> {
@@ -39,6 +44,92 @@ async function decodeWithJsQr(file: File): Promise<string | null> {
 
 export type FindQuery = { kind: 'scan'; text: string } | { kind: 'typed'; text: string };
 type Props = { onFind: (q: FindQuery) => void; isBusy: boolean };
+
+/**
+ * The fourth way: a serial number read off an engine, pump or impeller (a boat whose tag is gone and
+ * whose number is not painted yet). Needs a signal: the server looks among the boats entered here and
+ * says which component matched; the boat card then opens by its race number.
+ */
+function FindBySerial({ onFind, isBusy }: Props) {
+  const { eventId } = useParams<{ eventId: string }>();
+  const [serial, setSerial] = useState('');
+  const [error, setError] = useState<string | null>(null);
+  const [matches, setMatches] = useState<SerialMatch[]>([]);
+  const [isLooking, setLooking] = useState(false);
+  const describe = (m: SerialMatch) =>
+    `${COMPONENT_KIND_LABELS[m.kind]}${m.maker || m.model ? ` (${[m.maker, m.model].filter(Boolean).join(' ')})` : ''} serial ${m.serialNumber} is on no. ${m.raceNumber} ${m.boatName}${m.entryStatus === 'withdrawn' ? ' (withdrawn)' : ''}`;
+
+  async function look() {
+    setError(null);
+    setMatches([]);
+    if (!serial.trim()) return setError('Type the serial number as stamped on the part.');
+    setLooking(true);
+    const answer = await requestJson<{ matches: SerialMatch[] }>(
+      `/api/events/${eventId}/component-serials/${encodeURIComponent(serial.trim())}`,
+      { method: 'GET', cache: 'no-store' },
+    );
+    setLooking(false);
+    if (!answer.ok) return setError(answer.fieldErrors.serial ?? answer.message);
+    setMatches(answer.data.matches);
+    if (answer.data.matches.length === 1) onFind({ kind: 'typed', text: String(answer.data.matches[0].raceNumber) });
+  }
+
+  return (
+    <form
+      className="space-y-2"
+      noValidate
+      aria-label="Find by component serial"
+      onSubmit={(e) => {
+        e.preventDefault();
+        void look();
+      }}
+    >
+      <div className="grid gap-3 sm:grid-cols-[1fr_auto] sm:items-end">
+        <div className="min-w-0">
+          <label htmlFor="find-serial" className="field-label text-lg">
+            Engine, pump or impeller serial
+          </label>
+          <input
+            id="find-serial"
+            className="field-input min-h-touch text-xl"
+            autoComplete="off"
+            autoCapitalize="characters"
+            value={serial}
+            aria-invalid={error ? true : undefined}
+            aria-describedby={error ? 'find-serial-error' : undefined}
+            onChange={(e) => setSerial(e.target.value)}
+          />
+        </div>
+        <button type="submit" className="btn-secondary min-h-touch text-xl" disabled={isBusy || isLooking}>
+          {isLooking ? 'Looking…' : 'Find by serial'}
+        </button>
+      </div>
+      <FieldError id="find-serial-error" name="serial" error={error ?? undefined} className="text-lg" />
+      {matches.length > 0 && (
+        <ul role="status" aria-live="polite" className="space-y-2" data-testid="serial-matches">
+          {matches.map((m) => (
+            <li
+              key={m.componentId}
+              className="flex flex-wrap items-center justify-between gap-2 rounded-lg bg-tide-50 p-3"
+            >
+              <span className="font-bold text-tide-700">{describe(m)}</span>
+              {matches.length > 1 && (
+                <button
+                  type="button"
+                  className="btn-secondary min-h-touch"
+                  disabled={isBusy}
+                  onClick={() => onFind({ kind: 'typed', text: String(m.raceNumber) })}
+                >
+                  Open no. {m.raceNumber}
+                </button>
+              )}
+            </li>
+          ))}
+        </ul>
+      )}
+    </form>
+  );
+}
 
 /**
  * Three ways to find the boat: the camera, a photo of the tag (for a phone whose camera will not
@@ -186,6 +277,7 @@ export function FindBoat({ onFind, isBusy }: Props) {
           {isTypingCode ? 'Type a race number instead' : 'Type a tag code instead'}
         </button>
       </form>
+      <FindBySerial onFind={onFind} isBusy={isBusy} />
     </section>
   );
 }

@@ -1,0 +1,72 @@
+import { z } from 'zod';
+import type { ComponentKind } from '@/models/boat-record';
+
+// A component with identity (an engine, jet pump or impeller), shared by the boat page's forms and
+// the components API. Kind and serial number are its identity and never change once registered.
+
+export const COMPONENT_KIND_VALUES = ['engine', 'pump', 'impeller'] as const satisfies readonly ComponentKind[];
+export const COMPONENT_KIND_LABELS: Record<ComponentKind, string> = {
+  engine: 'Engine',
+  pump: 'Jet pump',
+  impeller: 'Impeller',
+};
+
+const text = (what: string, max: number) =>
+  z
+    .string({ error: `Enter ${what} as text.` })
+    .trim()
+    .max(max, `Keep ${what} under ${max} characters.`);
+
+const maker = text('the maker', 80);
+const model = text('the model', 80);
+const trimCode = text('the trim code', 40);
+const notes = text('the notes', 1000);
+
+/** POST /api/boats/:boatId/components: register a component fitted to this boat. */
+export const RegisterComponentInput = z.strictObject({
+  kind: z.enum(COMPONENT_KIND_VALUES, { error: 'Choose engine, jet pump or impeller.' }),
+  maker: maker.default(''),
+  model: model.default(''),
+  // As stamped on the part: letters and digits with the separators makers use; no spaces at the ends.
+  serialNumber: z
+    .string({ error: 'Enter the serial number.' })
+    .trim()
+    .min(1, { error: 'Enter the serial number as stamped on the part.', abort: true })
+    .max(80, 'Keep the serial number under 80 characters.')
+    .refine(
+      (v) => /^[\p{L}\p{N}](?:[\p{L}\p{N} ./_-]*[\p{L}\p{N}])?$/u.test(v),
+      'Type the serial number as stamped: letters and digits, with spaces, dots, slashes, hyphens or underscores between them.',
+    ),
+  trimCode: trimCode.default(''),
+  notes: notes.default(''),
+});
+export type RegisterComponentInput = z.input<typeof RegisterComponentInput>;
+
+/** PATCH /api/components/:componentId: maker, model, trim code and notes (never kind or serial). */
+export const EditComponentInput = z
+  .strictObject(
+    {
+      maker: maker.optional(),
+      model: model.optional(),
+      trimCode: trimCode.optional(),
+      notes: notes.optional(),
+    },
+    {
+      error: (iss) =>
+        iss.code === 'unrecognized_keys'
+          ? `Only maker, model, trim code and notes can change (not ${iss.keys.join(', ')}): a component’s kind and serial number are its identity; register a different part as a new component.`
+          : undefined,
+    },
+  )
+  .refine((v) => Object.values(v).some((x) => x !== undefined), {
+    message: 'Send at least one of maker, model, trim code or notes to change.',
+  });
+export type EditComponentInput = z.input<typeof EditComponentInput>;
+
+/** POST /api/components/:componentId/move: onto one of the actor's boats, or off any boat (null). */
+export const MoveComponentInput = z.strictObject({
+  boatId: z.uuid({ error: 'Choose one of your boats, or “on no boat”.' }).nullable(),
+  /** Where the mover saw it (null: on no boat); a component that has moved since is refused. */
+  fromBoatId: z.uuid({ error: 'Send where the component was seen as a boat id, or null.' }).nullable().optional(),
+});
+export type MoveComponentInput = z.input<typeof MoveComponentInput>;
