@@ -9,11 +9,19 @@ const PASSWORD = 'tarnwater-demo';
 export class Client {
   private cookies = new Map<string, string>();
   /** timeoutMs: how long one request may take (setting up a meeting after a burst waits behind the mail queue). */
-  constructor(private readonly timeoutMs = 15_000) {}
+  constructor(
+    private readonly timeoutMs = 15_000,
+    /** Where to send requests (another app server, or nginx in front of several). */
+    public base = BASE,
+  ) {}
+  /** The session cookies, to carry to another base address. */
+  cookieHeader() {
+    return [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
+  }
   async fetch(path: string, init: RequestInit = {}) {
     const headers = new Headers(init.headers);
     if (this.cookies.size) headers.set('cookie', [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; '));
-    const res = await fetch(`${BASE}${path}`, {
+    const res = await fetch(`${this.base}${path}`, {
       ...init,
       headers,
       redirect: 'manual',
