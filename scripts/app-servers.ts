@@ -32,6 +32,12 @@ export type AppServer = { port: number; base: string; child: ChildProcess; kill(
 /** Another app server from the same build, with extra environment (a proxy hop, a replica). */
 export async function startAppServer(port: number, env: Record<string, string> = {}): Promise<AppServer> {
   mkdirSync(RUN, { recursive: true });
+  // Something else answering there would be mistaken for the new server: refuse instead.
+  const taken = await fetch(`http://127.0.0.1:${port}/`, { signal: AbortSignal.timeout(1000) }).then(
+    () => true,
+    () => false,
+  );
+  if (taken) throw new Error(`port ${port} is already taken: choose another PORT for this run`);
   const log = openSync(path.join(RUN, `app-${port}.log`), 'a');
   const child = spawn('node', ['scripts/server.mjs'], {
     cwd: ROOT,
@@ -41,7 +47,10 @@ export async function startAppServer(port: number, env: Record<string, string> =
   });
   children.push(child);
   const base = `http://127.0.0.1:${port}`;
+  let exited: number | null = null;
+  child.on('exit', (code) => (exited = code ?? -1));
   await waitReady(base);
+  if (exited !== null) throw new Error(`the app server on ${port} stopped (exit ${exited}); see app-${port}.log`);
   return {
     port,
     base,

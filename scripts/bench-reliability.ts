@@ -76,9 +76,13 @@ export async function runFaultLoad(opts: {
   faultAfter: number;
   downS: number;
   fault?: Fault;
+  /** Another fault than the three above (bench:multi kills one of several app servers), with its name. */
+  strike?: { name: string; run: (downS: number) => Promise<void> };
+  /** Where the clients send their records (default: the app server scripts/test.sh started). */
+  base?: string;
   log?: boolean;
 }) {
-  const fault = opts.fault ?? 'pg-stop';
+  const fault = opts.strike?.name ?? opts.fault ?? 'pg-stop';
   const { eventId, entryIds } = await setUpScratchMeeting(Math.min(opts.clients, 25));
   // Sign in a few at a time: a burst of simultaneous sign-ins for one address is exactly what the
   // sign-in throttle refuses, and the load is about recording inspections, not signing in.
@@ -86,7 +90,9 @@ export async function runFaultLoad(opts: {
   for (let i = 0; i < opts.clients; i += 5) {
     const batch = Math.min(5, opts.clients - i);
     clients.push(
-      ...(await Promise.all(Array.from({ length: batch }, () => new Client().signIn('scrutineer@tarnwater.example')))),
+      ...(await Promise.all(
+        Array.from({ length: batch }, () => new Client(15_000, opts.base).signIn('scrutineer@tarnwater.example')),
+      )),
     );
   }
   if (opts.log) console.log(`  ${clients.length} clients signed in`);
@@ -96,14 +102,16 @@ export async function runFaultLoad(opts: {
   let faultStarted = 0;
   let dbBackAt = 0;
   let firstAckAfterBack = 0;
+  let ackedWhileDown = 0;
 
   const struck = (async () => {
     while (acked.size < opts.faultAfter) await sleep(20);
     faultStarted = Date.now();
     if (opts.log) console.log(`  ${fault} after ${acked.size} acknowledged records`);
-    await strike(fault, opts.downS);
+    if (opts.strike) await opts.strike.run(opts.downS);
+    else await strike(fault as Fault, opts.downS);
     dbBackAt = Date.now();
-    if (opts.log) console.log(`  ${fault.startsWith('pg') ? 'PostgreSQL' : 'the app'} started again`);
+    if (opts.log) console.log(`  ${fault.startsWith('pg') ? 'PostgreSQL' : 'the app server'} started again`);
   })();
 
   // Progress every 5 s; the timer also keeps Node alive if every request were ever stalled at once.
@@ -129,6 +137,7 @@ export async function runFaultLoad(opts: {
               latencies.push(performance.now() - t);
               if (res.ok) {
                 acked.add(key);
+                if (faultStarted && !dbBackAt) ackedWhileDown++;
                 if (dbBackAt && !firstAckAfterBack) firstAckAfterBack = Date.now();
                 break;
               }
@@ -168,6 +177,7 @@ export async function runFaultLoad(opts: {
     lost,
     duplicated,
     storedRows: rows.length,
+    ackedWhileDown,
     p50Ms: percentile(latencies, 50),
     p95Ms: percentile(latencies, 95),
     secondsToRecover: firstAckAfterBack && dbBackAt ? (firstAckAfterBack - dbBackAt) / 1000 : null,
