@@ -127,7 +127,6 @@ export const inspectionBody = (entryId: string, key: string = randomUUID()) => (
   },
   weight: { readingsKg: [690, 691] },
   power: { declaredKw: 220, evidenceSeen: true },
-  seals: [],
   safety: { kill_switch: true, helmet: true },
 });
 

@@ -28,6 +28,7 @@ import { InspectionForm, type FormSubmission } from './inspection-form';
 import { QueuePanel } from './queue-panel';
 import { registerInspectServiceWorker, useDockQueue } from './use-dock-queue';
 import { VerdictPanel, type ShownVerdict } from './verdict-panel';
+import { describePowerEvidence } from '@/lib/core/inspections/power-evidence';
 
 /** A record key made on the phone (crypto.randomUUID needs a secure context; fall back to random bytes). */
 function newKey(): string {
@@ -219,6 +220,11 @@ export function DockScreen({
       provisional: !after.serverRules,
       inspectionId: after.inspectionId,
       scopeWords: describeScope(target.card?.openReinspections.find((t) => t.id === draft.reinspectionId)?.checks),
+      powerEvidence: describePowerEvidence({
+        evidenceSeen: draft.power.evidenceSeen,
+        evidenceKind: draft.power.evidenceKind ?? null,
+        dynoDocument: target.card?.documents.find((d) => d.id === draft.power.dynoDocumentId) ?? null,
+      }),
     });
     setNotice(
       after.state === 'sent'

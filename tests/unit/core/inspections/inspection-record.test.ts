@@ -69,10 +69,19 @@ const parseInput = (nozzle: Record<string, unknown>, over: Record<string, unknow
     },
     weight: { readingsKg: [405, 406], instrumentId: SCALE.id },
     power: { declaredKw: 250, evidenceSeen: true },
-    seals: [{ number: 'S-1', location: 'pump housing' }],
     safety: { helmet: true },
     ...over,
   });
+
+// A seal action as the server hands it to the builder (invented numbers and component).
+const SEAL_ACTION = {
+  number: 'S-1',
+  action: 'applied' as const,
+  componentId: '00000000-0000-4000-8000-0000000000c1',
+  component: 'engine Test Maker, serial 1',
+  position: 'pump housing',
+  reason: '',
+};
 
 function build(
   over: Partial<BuildInspectionRecordInput> & {
@@ -96,6 +105,7 @@ function build(
     nozzleInstrument,
     weightInstrument: SCALE,
     boat: { declaredKw: 250, powerEvidence: 'dyno_sheet' },
+    sealActions: [SEAL_ACTION],
     ...over,
   });
 }
@@ -116,8 +126,11 @@ test('the built record parses with the stored shape and carries the rule version
     note: '',
     boatDeclaredKw: 250,
     boatPowerEvidence: 'dyno_sheet',
+    evidenceKind: null,
+    dynoDocument: null,
   });
-  assert.deepEqual(record.measurements.seals, [{ number: 'S-1', location: 'pump housing' }]);
+  assert.deepEqual(record.measurements.seals, [], 'free-text seals belong to records from before the register');
+  assert.deepEqual(record.measurements.sealActions, [SEAL_ACTION]);
 });
 
 test('the record stores the readings corrected to 20 °C (ISO 1:2022; aluminium 23e-6 /K [memory])', () => {
