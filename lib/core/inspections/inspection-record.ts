@@ -70,11 +70,13 @@ export function buildInspectionRecord(b: BuildInspectionRecordInput): StoredInsp
         note: input.power.note,
         boatDeclaredKw: b.boat.declaredKw,
         boatPowerEvidence: b.boat.powerEvidence,
-        evidenceKind: input.power.evidenceKind ?? null,
-        dynoDocument: b.dynoDocument ?? null,
+        // Written only when there is something to say, so a record without them keeps the shape
+        // migration 20261203003000 brought every older row to (its backfill leaves such rows alone).
+        ...(input.power.evidenceKind ? { evidenceKind: input.power.evidenceKind } : {}),
+        ...(b.dynoDocument ? { dynoDocument: b.dynoDocument } : {}),
       },
       seals: [],
-      sealActions: b.sealActions ?? [],
+      ...(b.sealActions?.length ? { sealActions: b.sealActions } : {}),
       safety: input.safety as Record<string, boolean>,
     },
     results: {

@@ -126,11 +126,19 @@ test('the built record parses with the stored shape and carries the rule version
     note: '',
     boatDeclaredKw: 250,
     boatPowerEvidence: 'dyno_sheet',
-    evidenceKind: null,
-    dynoDocument: null,
   });
   assert.deepEqual(record.measurements.seals, [], 'free-text seals belong to records from before the register');
   assert.deepEqual(record.measurements.sealActions, [SEAL_ACTION]);
+  const plain = build({ sealActions: [] });
+  assert.equal('sealActions' in plain.measurements, false, 'no seal actions: the key is left out');
+  const withEvidence = build({
+    inputOver: { power: { declaredKw: 250, evidenceSeen: true, evidenceKind: 'dyno_sheet' } },
+    dynoDocument: { id: '00000000-0000-4000-8000-0000000000d1', fileName: 'dyno.pdf' },
+  });
+  assert.deepEqual(
+    [withEvidence.measurements.power.evidenceKind, withEvidence.measurements.power.dynoDocument],
+    ['dyno_sheet', { id: '00000000-0000-4000-8000-0000000000d1', fileName: 'dyno.pdf' }],
+  );
 });
 
 test('the record stores the readings corrected to 20 °C (ISO 1:2022; aluminium 23e-6 /K [memory])', () => {
