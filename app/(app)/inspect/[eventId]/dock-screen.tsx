@@ -180,7 +180,7 @@ export function DockScreen({
     });
   }
 
-  async function record({ draft, photos, provisional }: FormSubmission) {
+  async function record({ draft, photos, sealPhotos, provisional }: FormSubmission) {
     if (!target) return;
     const label = `No. ${target.raceNumber} ${target.boatName}`;
     const queued: QueuedRecord = {
@@ -189,7 +189,15 @@ export function DockScreen({
       recordedById: actorId,
       label,
       payload: draft,
-      photos: photos.map((p) => ({ name: p.name, type: p.type, blob: p })),
+      photos: [
+        ...photos.map((p) => ({ name: p.name, type: p.type, blob: p })),
+        ...(sealPhotos ?? []).map((p) => ({
+          name: p.file.name,
+          type: p.file.type,
+          blob: p.file,
+          sealNumber: p.number,
+        })),
+      ],
       state: 'waiting',
       attempts: 0,
       createdAt: new Date().toISOString(),

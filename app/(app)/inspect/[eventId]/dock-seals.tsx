@@ -17,11 +17,16 @@ export function DockSeals({
   seals,
   onChange,
   err,
+  photos,
+  onPhoto,
 }: {
   target: DockTarget;
   seals: FormSeals;
   onChange: (s: FormSeals) => void;
   err: (path: string) => string | undefined;
+  /** Photos of the applied seals, by row. */
+  photos: Record<number, File>;
+  onPhoto: (row: number, file: File | null) => void;
 }) {
   const onBoat = target.card?.seals ?? [];
   const components = target.card?.components ?? [];
@@ -137,10 +142,28 @@ export function DockSeals({
               error={err(`seals.applied.${i}.position`)}
               onChange={(e) => setRow({ position: e.target.value })}
             />
+            <div>
+              <label htmlFor={id(`seals.applied.${i}.photo`)} className="field-label text-lg">
+                New seal {i + 1} photo (optional)
+              </label>
+              <input
+                id={id(`seals.applied.${i}.photo`)}
+                type="file"
+                accept="image/*"
+                capture="environment"
+                className="block min-h-touch w-full text-lg"
+                onChange={(e) => onPhoto(i, e.target.files?.[0] ?? null)}
+              />
+              {photos[i] && <p className="text-ink-soft">Photo chosen: {photos[i].name}</p>}
+            </div>
             <button
               type="button"
               className="btn-secondary text-lg"
-              onClick={() => onChange({ ...seals, applied: seals.applied.filter((_, j) => j !== i) })}
+              onClick={() => {
+                // The rows after this one move up, and their photos with them.
+                for (let j = i; j < seals.applied.length; j++) onPhoto(j, photos[j + 1] ?? null);
+                onChange({ ...seals, applied: seals.applied.filter((_, j) => j !== i) });
+              }}
             >
               Do not apply this seal
             </button>

@@ -27,7 +27,13 @@ import { DockField } from './dock-field';
 import { DockSeals } from './dock-seals';
 import { draftFromForm, resizeReadings, sealFindingsFromForm, type DockTarget, type FormState } from './form-model';
 
-export type FormSubmission = { draft: RecordInspectionDraft; photos: File[]; provisional: InspectionDecision | null };
+export type FormSubmission = {
+  draft: RecordInspectionDraft;
+  photos: File[];
+  /** Photos of seals applied here, each with its seal's number. */
+  sealPhotos?: { number: string; file: File }[];
+  provisional: InspectionDecision | null;
+};
 type Props = {
   target: DockTarget;
   instruments: InstrumentView[];
@@ -54,6 +60,8 @@ export function InspectionForm({
 }: Props) {
   const [f, setF] = useState<FormState>(initial);
   const [photos, setPhotos] = useState<File[]>([]);
+  // By the applied seal's row; kept beside the form state (files do not go into a queued draft).
+  const [sealPhotos, setSealPhotos] = useState<Record<number, File>>({});
   const set = <K extends keyof FormState>(k: K, v: FormState[K]) => setF((s) => ({ ...s, [k]: v }));
   const lengthInstruments = instruments.filter((i) => i.quantity === 'length');
   const scales = instruments.filter((i) => i.quantity === 'mass');
@@ -90,7 +98,10 @@ export function InspectionForm({
           throw x;
         }
       }
-      await onSubmit({ draft, photos, provisional });
+      const withSeal = Object.entries(sealPhotos)
+        .map(([i, file]) => ({ number: (f.seals.applied[Number(i)]?.number ?? '').trim().toUpperCase(), file }))
+        .filter((p) => p.number !== '');
+      await onSubmit({ draft, photos, sealPhotos: withSeal, provisional });
       return { ok: true };
     },
     { ok: false },
@@ -484,7 +495,21 @@ export function InspectionForm({
           </fieldset>
         )}
 
-        <DockSeals target={target} seals={f.seals} onChange={(v) => set('seals', v)} err={err} />
+        <DockSeals
+          target={target}
+          seals={f.seals}
+          onChange={(v) => set('seals', v)}
+          err={err}
+          photos={sealPhotos}
+          onPhoto={(i, file) =>
+            setSealPhotos((p) => {
+              const next = { ...p };
+              if (file) next[i] = file;
+              else delete next[i];
+              return next;
+            })
+          }
+        />
 
         <div id="dock-notes" className="scroll-mt-4 space-y-6">
           {target.card && target.card.openReinspections.length > 0 && (
