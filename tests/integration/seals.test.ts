@@ -6,6 +6,7 @@
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { randomBytes, randomUUID } from 'node:crypto';
+import QRCode from 'qrcode';
 import { Sequelize } from 'sequelize';
 import { HttpSession } from '../support/http-session';
 import { DEMO, DEMO_PASSWORD } from '../support/env';
@@ -206,6 +207,16 @@ test('a seal applied at one meeting is found intact at a second, then broken at 
     [[number, 'broken']],
   );
   assert.match(l.data.seals[0].state, /^Broken \(engine Test Motor Works TM-6/);
+  // The register screen shows the same history (server-rendered; streamed after its access check).
+  const page = await scrutineer.fetch(`/inspect/${meetings[2].eventId}/seals?seal=${sealId}`);
+  assert.equal(page.status, 200);
+  const html = await page.text();
+  assert.match(html, /data-testid="seal-history"/);
+  for (const action of ['applied', 'intact', 'broken']) assert.match(html, new RegExp(`data-action="${action}"`));
+  const entrant = new HttpSession();
+  await entrant.signInWithPassword(DEMO.entrant, DEMO_PASSWORD);
+  const refused = await entrant.fetch(`/inspect/${meetings[2].eventId}/seals`);
+  assert.notEqual(refused.status, 200, 'an entrant does not open the register');
 });
 
 test('a seal not from this meeting’s batches, an unknown number or a used seal is refused by field; nothing is stored', async () => {
@@ -316,6 +327,72 @@ test('removing a seal needs a reason; once removed it is no longer on the boat',
   );
   const card = await (await scrutineer.fetch(`/api/events/${meetings[2].eventId}/race-numbers/201`)).json();
   assert.ok(!card.data.seals.some((s: { number: string }) => s.number === number), 'a removed seal is not listed');
+});
+
+test('a photo of a seal applied at the dock is attached to its event once; nothing else of the event can change', async () => {
+  const number = `${PREFIX}M3-3`;
+  const rec = await post(
+    meetings[2],
+    inspectionBody(entryAt[2], 101.9, {
+      seals: { applied: [{ number, componentId: engineId, position: 'timing cover' }] },
+    }),
+  );
+  assert.equal(rec.res.status, 201, JSON.stringify(rec.body));
+  const url = `/api/events/${meetings[2].eventId}/inspections/${rec.body.data.id}/photos`;
+  // Photos are real PNG files (a QR code image; the type is detected from the bytes, W3C PNG §5.2).
+  const png = (text: string) => QRCode.toBuffer(text, { type: 'png' });
+  const form = (bytes: Buffer, seal: string) => {
+    const f = new FormData();
+    f.append('photo', new Blob([new Uint8Array(bytes)], { type: 'image/png' }), 'seal.png');
+    f.append('sealNumber', seal);
+    return f;
+  };
+  const photo = await png(`seal ${number}`);
+  const unknown = await scrutineer.fetch(url, { method: 'POST', body: form(photo, `${PREFIX}03`) });
+  assert.equal(unknown.status, 400, 'a seal this inspection did not record');
+  assert.equal((await unknown.json()).error.details[0].field, 'sealNumber');
+  const first = await scrutineer.fetch(url, { method: 'POST', body: form(photo, number.toLowerCase()) });
+  const firstBody = await first.json();
+  assert.equal(first.status, 201, JSON.stringify(firstBody));
+  const retry = await scrutineer.fetch(url, { method: 'POST', body: form(photo, number) });
+  assert.equal(retry.status, 201, 'the same photo again (an offline retry) is answered as before');
+  const other = await scrutineer.fetch(url, { method: 'POST', body: form(await png('another photo'), number) });
+  assert.equal(other.status, 409, 'a second, different photo for the same seal is refused');
+  const [event] = await query<{ id: string; photo_id: string }>(
+    `select e.id, e.photo_id from seal_events e join seals s on s.id = e.seal_id where s.number = $1`,
+    [number],
+  );
+  assert.equal(event.photo_id, firstBody.data[0].id);
+  // The database allows only that one change: the photo again, or any other column, is refused.
+  const elsewhere = await post(meetings[2], inspectionBody(entryAt[2], 101.9));
+  const plain = new FormData();
+  plain.append('photo', new Blob([new Uint8Array(await png('another record'))], { type: 'image/png' }), 'p.png');
+  const up = await scrutineer.fetch(`/api/events/${meetings[2].eventId}/inspections/${elsewhere.body.data.id}/photos`, {
+    method: 'POST',
+    body: plain,
+  });
+  const otherPhotoId = (await up.json()).data[0].id;
+  await assert.rejects(
+    query('update seal_events set photo_id = $2 where id = $1', [event.id, otherPhotoId]),
+    /append-only/,
+    'a photo already set is never replaced',
+  );
+  const [bare] = await query<{ id: string }>(
+    `select e.id from seal_events e join seals s on s.id = e.seal_id where s.number = $1 and e.action = 'applied'`,
+    [`${PREFIX}03`],
+  );
+  await assert.rejects(
+    query('update seal_events set photo_id = $2 where id = $1', [bare.id, otherPhotoId]),
+    /append-only/,
+    'a photo of another inspection is refused',
+  );
+  await assert.rejects(query(`update seal_events set reason = 'x' where id = $1`, [event.id]), /append-only/);
+  const history = await (
+    await scrutineer.fetch(
+      `/api/events/${meetings[2].eventId}/seals/${(await query<{ id: string }>('select id from seals where number = $1', [number]))[0].id}`,
+    )
+  ).json();
+  assert.equal(history.data.events[0].photoId, firstBody.data[0].id);
 });
 
 test('seal batches, seals and seal events refuse UPDATE and DELETE (append-only triggers)', async () => {
