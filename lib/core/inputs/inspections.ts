@@ -129,7 +129,11 @@ export const RecordInspectionInput = z
       dynoDocumentId: optionalUuid('the dyno sheet document'),
     }),
     // The seal register: seals checked, applied and removed at this inspection (lib/core/inputs/seals.ts).
-    seals: InspectionSealsInput.default({ checks: [], applied: [], removed: [] }),
+    // An empty list is what a record queued on a phone before the register carries: no seal actions.
+    seals: z.preprocess(
+      (v) => (Array.isArray(v) && v.length === 0 ? undefined : v),
+      InspectionSealsInput.default({ checks: [], applied: [], removed: [] }),
+    ),
     safety: z
       .partialRecord(
         z.enum(SAFETY_ITEM_KEYS as [SafetyItem, ...SafetyItem[]]),

@@ -136,3 +136,5 @@ export const InspectionSealsInput = z
     });
   });
 export type InspectionSealsInput = z.infer<typeof InspectionSealsInput>;
+/** The seal actions as a form builds them (before parsing). */
+export type InspectionSealsDraft = z.input<typeof InspectionSealsInput>;

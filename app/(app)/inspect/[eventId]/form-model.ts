@@ -3,7 +3,7 @@
 import type { Material } from '@/lib/core/engine/measurement';
 import type { ClassRules } from '@/lib/core/inputs/class-rules';
 import type { InspectionKind, PowerEvidenceKind, RecordInspectionDraft } from '@/lib/core/inputs/inspections';
-import type { SealCheckState } from '@/lib/core/inputs/seals';
+import type { InspectionSealsDraft as SealsDraft, SealCheckState } from '@/lib/core/inputs/seals';
 import type { SealFinding } from '@/lib/core/inspections/decide-inspection';
 import type { BoardRow, InspectionBoard } from '@/lib/server/inspections/list-inspection-board';
 import type { BoatCard } from '@/lib/server/inspections/load-boat-card';
@@ -234,7 +234,7 @@ export function formFromDraft(d: RecordInspectionDraft, base: FormState): FormSt
     evidenceKind: d.power.evidenceKind ?? '',
     dynoDocumentId: d.power.dynoDocumentId ?? '',
     powerNote: d.power.note ?? '',
-    seals: sealsFromDraft(d.seals, base.seals),
+    seals: sealsFromDraft(d.seals as SealsDraft | unknown[] | undefined, base.seals),
     safety: Object.fromEntries(Object.entries(d.safety ?? {}).map(([k, v]) => [k, v === true])),
     notes: d.notes ?? '',
     supersedesId: d.supersedesId ?? null,
@@ -253,7 +253,7 @@ export function sealFindingsFromForm(
 }
 
 /** The draft's seal actions back into the form; a draft queued before the register (free text) keeps the base. */
-function sealsFromDraft(d: RecordInspectionDraft['seals'] | unknown[], base: FormSeals): FormSeals {
+function sealsFromDraft(d: SealsDraft | unknown[] | undefined, base: FormSeals): FormSeals {
   if (!d || Array.isArray(d)) return base;
   const checks = { ...base.checks };
   for (const c of d.checks ?? []) checks[c.number] = c.state;

@@ -11,6 +11,7 @@ import {
 } from '../../../../lib/core/inputs/seals';
 import { decideInspection, decideSeals } from '../../../../lib/core/inspections/decide-inspection';
 import { DEFAULT_CLASS_RULES } from '../../../../lib/core/inputs/class-rules';
+import { RecordInspectionInput } from '../../../../lib/core/inputs/inspections';
 import { describeComponent, describeSealState } from '../../../../lib/core/seals/seal-words';
 
 const uuid = '00000000-0000-4000-8000-0000000000c1';
@@ -127,4 +128,18 @@ test('a seal’s state in words, from its latest event', () => {
     'Intact at last check (engine X, serial 1 of Kestrel)',
   );
   assert.equal(describeSealState({ lastAction: 'removed', component: null, boatName: null }), 'Removed');
+});
+
+test('a record queued before the register (an empty seals list) still parses, with no seal actions', () => {
+  const body = {
+    idempotencyKey: '00000000-0000-4000-8000-0000000000a9',
+    entryId: '00000000-0000-4000-8000-0000000000e9',
+    capturedAt: new Date().toISOString(),
+    nozzle: { readings: [{ diameterMm: 101, angleDeg: 0 }] },
+    power: { declaredKw: 200, evidenceSeen: false },
+  };
+  assert.deepEqual(RecordInspectionInput.parse({ ...body, seals: [] }).seals, { checks: [], applied: [], removed: [] });
+  assert.deepEqual(RecordInspectionInput.parse(body).seals, { checks: [], applied: [], removed: [] });
+  const old = RecordInspectionInput.safeParse({ ...body, seals: [{ number: 'S-1', location: 'pump' }] });
+  assert.equal(old.error?.issues[0].path.join('.'), 'seals');
 });
