@@ -7,6 +7,7 @@ import { canManageInstruments } from '@/lib/server/inspections/manage-instrument
 import { SEAL_ACTION_WORDS } from '@/lib/core/seals/seal-words';
 import { AppError } from '@/lib/core/errors';
 import { ListSealsQuery } from '@/lib/core/inputs/seals';
+import { SafetyNote } from '@/components/safety-note';
 import { IssueBatchForm } from './issue-batch-form';
 
 export const metadata: Metadata = { title: 'Seal register' };
@@ -50,8 +51,9 @@ export default async function SealsPage({
       <p className="text-ink-soft">
         Numbered seals issued to this meeting’s scrutineers. A seal is applied to a component at the dock, checked at
         every later inspection at any meeting, and removed with a reason; nothing in its history is ever changed. Times
-        in {event.timeZone}.
+        in {event.timeZone}. A seal found broken or missing is a finding in that inspection’s verdict.
       </p>
+      <SafetyNote />
       {canManageInstruments(actor, eventId) ? (
         <IssueBatchForm eventId={eventId} />
       ) : (
