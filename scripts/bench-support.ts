@@ -139,7 +139,6 @@ export const inspectionBody = (entryId: string, key: string = randomUUID()) => (
   },
   weight: { readingsKg: [690, 691] },
   power: { declaredKw: 220, evidenceSeen: true },
-  seals: [],
   safety: { kill_switch: true, helmet: true },
 });
 

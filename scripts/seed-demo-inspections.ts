@@ -62,7 +62,6 @@ async function main() {
       },
       weight: { readingsKg: [Number(e.declared_weight_kg), Number(e.declared_weight_kg) + 1], instrumentId: SCALE },
       power: { declaredKw: Number(e.declared_power_kw), evidenceSeen: n % 3 !== 0, note: '' },
-      seals: [{ number: `KR-${1000 + n}`, location: 'pump to transom' }],
       safety: Object.fromEntries(rules.safetyItems.map((s) => [s, true])),
     });
     const nozzleInstrument = figures(CALIPER);

@@ -8,8 +8,12 @@ import type {
   STORED_CHECK_AREAS,
   STORED_DECISION_RULES,
   STORED_MATERIALS,
+  STORED_POWER_EVIDENCE_KINDS,
+  STORED_SEAL_ACTIONS,
   STORED_VERDICTS,
 } from '../../models/shapes/inspection-record';
+import type { SealAction } from '../../models/boat-record';
+import type { PowerEvidenceKind } from './inputs/inspections';
 import type { ClassRules } from './inputs/class-rules';
 import type { DecisionRule, Verdict } from './engine/conformity';
 import type { Material } from './engine/measurement';
@@ -33,4 +37,6 @@ export type StoredShapesMatch = [
   Check<Same<(typeof STORED_CHECK_AREAS)[number], CheckArea>>,
   Check<Same<(typeof STORED_MATERIALS)[number], Material>>,
   Check<Fits<RuleResult, StoredRuleResult>>,
+  Check<Same<(typeof STORED_POWER_EVIDENCE_KINDS)[number], PowerEvidenceKind>>,
+  Check<Same<(typeof STORED_SEAL_ACTIONS)[number], SealAction>>,
 ];

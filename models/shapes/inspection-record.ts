@@ -39,6 +39,9 @@ export const StoredWeightMeasurement = z.object({
   uncertaintyBasis: z.string().nullable(),
 });
 
+export const STORED_POWER_EVIDENCE_KINDS = ['dyno_sheet', 'maker_rating', 'declaration_only'] as const;
+export const STORED_SEAL_ACTIONS = ['applied', 'intact', 'broken', 'missing', 'removed'] as const;
+
 export const StoredPowerMeasurement = z.object({
   declaredKw: z.number(),
   evidenceSeen: z.boolean(),
@@ -46,13 +49,32 @@ export const StoredPowerMeasurement = z.object({
   /** The boat's declared figure and evidence when it was inspected. */
   boatDeclaredKw: z.number(),
   boatPowerEvidence: z.string(),
+  /** The kind of evidence seen (records from before the seal register have none: optional). */
+  evidenceKind: z.enum(STORED_POWER_EVIDENCE_KINDS).nullable().optional(),
+  /** The boat's document that was the dyno sheet, by id and file name as it was then. */
+  dynoDocument: z.object({ id: z.string(), fileName: z.string() }).nullable().optional(),
 });
+
+/** One thing done to a seal at this inspection, as the register wrote it (seal_events has the rows). */
+export const StoredSealAction = z.object({
+  number: z.string(),
+  action: z.enum(STORED_SEAL_ACTIONS),
+  componentId: z.string().nullable(),
+  /** The component in words as it was then ("engine, Maker Model, serial X"). */
+  component: z.string(),
+  position: z.string(),
+  reason: z.string(),
+});
+export type StoredSealAction = z.infer<typeof StoredSealAction>;
 
 export const StoredMeasurements = z.object({
   nozzle: StoredNozzleMeasurement,
   weight: StoredWeightMeasurement.nullable(),
   power: StoredPowerMeasurement,
+  /** Free-text seals of records written before the seal register (new records: empty). */
   seals: z.array(z.object({ number: z.string(), location: z.string() })),
+  /** The register's seal actions at this inspection (records from before it have none). */
+  sealActions: z.array(StoredSealAction).optional(),
   safety: z.record(z.string(), z.boolean()),
 });
 export type StoredMeasurements = z.infer<typeof StoredMeasurements>;

@@ -59,7 +59,7 @@ async function fillRecord(page: Page, largestMm: number, safety: SafetyItem[], i
   await page.getByLabel('Weighing 1').fill('690');
   await page.getByLabel('Weighing 2').fill('691');
   await page.getByLabel('Power, as declared or as the evidence shows').fill('220');
-  await page.getByLabel('I saw the evidence (dyno sheet or maker’s rating)').check();
+  await page.getByLabel('Power evidence seen').selectOption('maker_rating');
   for (const item of safety) await page.getByLabel(`${SAFETY_ITEMS[item]} — present and working`).check();
   await page.getByTestId('record-inspection').click();
 }

@@ -141,7 +141,7 @@ test('dock on a phone: Record stays on screen while the top of the form is read,
   }
   await index.getByRole('link', { name: 'Seals', exact: true }).click();
   await page.waitForFunction(() => location.hash === '#dock-seals');
-  const seals = await box(page.getByRole('group', { name: 'Seals applied' }));
+  const seals = await box(page.getByRole('group', { name: 'Seals', exact: true }));
   assert.ok(
     seals.y >= -1 && seals.y < VIEWPORT.height / 2,
     `the Seals section is at the top of the screen (y ${seals.y.toFixed(0)})`,

@@ -98,8 +98,9 @@ async function insertOldSeedRow(
   const measurements = {
     nozzle,
     weight: { ...input.weight, ...decision.weight },
-    power: input.power,
-    seals: input.seals,
+    power: { declaredKw: input.power.declaredKw, evidenceSeen: input.power.evidenceSeen, note: input.power.note },
+    // The free-text seals the old seed wrote (the register's actions came later).
+    seals: [{ number: 'S-0001', location: 'pump housing' }],
     safety: input.safety,
   };
   const results = { rules: decision.rules, decisionRule: rules.decisionRule };

@@ -258,6 +258,31 @@ export const ROUTES: Row[] = [
     path: (i) => `${ev(i)}/instruments/${i.missingId}/retire`,
     access: { anyOf: ['instrument.manage'] },
   },
+  // The seal register
+  {
+    method: 'GET',
+    file: `${E}/seal-batches/route.ts`,
+    path: (i) => `${ev(i)}/seal-batches`,
+    access: { anyOf: ['inspection.board'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/seal-batches/route.ts`,
+    path: (i) => `${ev(i)}/seal-batches`,
+    access: { anyOf: ['instrument.manage'] },
+  },
+  {
+    method: 'GET',
+    file: `${E}/seals/route.ts`,
+    path: (i) => `${ev(i)}/seals`,
+    access: { anyOf: ['inspection.board'] },
+  },
+  {
+    method: 'GET',
+    file: `${E}/seals/[sealId]/route.ts`,
+    path: (i) => `${ev(i)}/seals/${i.missingId}`,
+    access: { anyOf: ['inspection.board'] },
+  },
   // At the dock
   {
     method: 'POST',

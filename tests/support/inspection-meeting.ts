@@ -119,7 +119,6 @@ export function inspectionBody(entryId: string, largestMm: number, over: Record<
       expandedUncertaintyMm: 0.05,
     },
     power: { declaredKw: 220, evidenceSeen: true },
-    seals: [{ number: 'S-0001', location: 'pump housing' }],
     safety: { helmet: true },
     ...over,
   };

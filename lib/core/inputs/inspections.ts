@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { SAFETY_ITEM_KEYS, type SafetyItem } from '../constants';
 import { MATERIAL_OPTIONS, type Material } from '../engine/measurement';
+import { InspectionSealsInput } from './seals';
 
 // Inspection input, shared by the dock form (also offline, before queuing) and the server.
 // Figures arrive as JSON numbers in mm, degrees, °C, kg and kW; a string for a number is refused.
@@ -9,6 +10,15 @@ import { MATERIAL_OPTIONS, type Material } from '../engine/measurement';
 
 export const INSPECTION_KINDS = ['pre_race', 'post_race', 'protest', 'spot_check'] as const;
 export type InspectionKind = (typeof INSPECTION_KINDS)[number];
+/** The kind of evidence the scrutineer saw for the power figure. */
+export const POWER_EVIDENCE_KINDS = ['dyno_sheet', 'maker_rating', 'declaration_only'] as const;
+export type PowerEvidenceKind = (typeof POWER_EVIDENCE_KINDS)[number];
+export const POWER_EVIDENCE_KIND_WORDS: Record<PowerEvidenceKind, string> = {
+  dyno_sheet: 'Sealed dyno sheet',
+  maker_rating: 'Maker’s rating',
+  declaration_only: 'Declaration only (no evidence seen)',
+};
+
 export const INSPECTION_KIND_LABELS: Record<InspectionKind, string> = {
   pre_race: 'Pre-race',
   post_race: 'Post-race',
@@ -109,16 +119,21 @@ export const RecordInspectionInput = z
       declaredKw: num('the power', 'kW').gt(0, 'Power must be above 0 kW.').lt(10000, 'Power must be below 10000 kW.'),
       evidenceSeen: z.boolean({ error: 'Say whether the power evidence was seen.' }),
       note: text('the power note', 500).default(''),
+      /** What the evidence was (older clients send only evidenceSeen). */
+      evidenceKind: z
+        .enum(POWER_EVIDENCE_KINDS, { error: 'Choose the kind of evidence seen for the power.' })
+        .nullable()
+        .optional()
+        .transform((v) => v ?? null),
+      /** The boat's uploaded document that is the dyno sheet, when there is one. */
+      dynoDocumentId: optionalUuid('the dyno sheet document'),
     }),
-    seals: z
-      .array(
-        z.object({
-          number: text('the seal number', 40).min(1, 'Enter the seal number.'),
-          location: text('where the seal is', 80).min(1, 'Say where the seal is.'),
-        }),
-      )
-      .max(20, 'Record at most 20 seals.')
-      .default([]),
+    // The seal register: seals checked, applied and removed at this inspection (lib/core/inputs/seals.ts).
+    // An empty list is what a record queued on a phone before the register carries: no seal actions.
+    seals: z.preprocess(
+      (v) => (Array.isArray(v) && v.length === 0 ? undefined : v),
+      InspectionSealsInput.default({ checks: [], applied: [], removed: [] }),
+    ),
     safety: z
       .partialRecord(
         z.enum(SAFETY_ITEM_KEYS as [SafetyItem, ...SafetyItem[]]),
@@ -139,6 +154,24 @@ export const RecordInspectionInput = z
         code: 'custom',
         path: ['nozzle', 'expandedUncertaintyMm'],
         message: 'Choose an instrument or type U, not both.',
+      });
+    }
+    const kind = v.power.evidenceKind;
+    if (kind && (kind !== 'declaration_only') !== v.power.evidenceSeen) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['power', 'evidenceKind'],
+        message:
+          kind === 'declaration_only'
+            ? 'Declaration only means no evidence was seen.'
+            : 'A dyno sheet or maker’s rating means the evidence was seen.',
+      });
+    }
+    if (v.power.dynoDocumentId && kind !== 'dyno_sheet') {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['power', 'dynoDocumentId'],
+        message: 'A document is named only for a dyno sheet.',
       });
     }
     const when = checkCapturedAt(v.capturedAt);

@@ -15,6 +15,8 @@
 //   power   — the figure the scrutineer confirmed (declared, or from the evidence seen) against the
 //             band with the class's power uncertainty; without evidence seen, conformity is not shown.
 //   safety  — each item the class requires must be ticked as present; an unticked one does not conform.
+//   seals   — each register seal checked on the boat's components: intact conforms; broken or missing
+//             does not conform (decideSeals below says why).
 // The overall result is the worst: does_not_conform > inconclusive > conforms.
 // A targeted re-inspection (a protest's re-check of the nozzle, say) decides only the checks it
 // was ordered to make: the others are left out, not called inconclusive (`scope`).
@@ -28,6 +30,7 @@ import { SAFETY_ITEMS, type SafetyItem } from '../constants';
 import { formatFigure } from '../entries/check-declaration';
 import type { ClassRules } from '../inputs/class-rules';
 import type { RecordInspectionInput } from '../inputs/inspections';
+import type { SealCheckState } from '../inputs/seals';
 
 /** What a re-inspection can be ordered to check; null scope means everything. */
 export const CHECK_AREAS = ['nozzle', 'weight', 'power', 'safety'] as const;
@@ -57,7 +60,11 @@ export function scopeFromRequestedChecks(requested: readonly string[] | null | u
 
 export type ValueKind = 'measured' | 'confirmed' | 'declared';
 
-export type RuleKey = 'nozzle_max' | 'nozzle_min' | 'weight_min' | 'power_band' | `safety:${SafetyItem}`;
+export type RuleKey =
+  'nozzle_max' | 'nozzle_min' | 'weight_min' | 'power_band' | `safety:${SafetyItem}` | `seal:${string}`;
+
+/** A seal of the register checked at this inspection, with the component it is on in words. */
+export type SealFinding = { number: string; state: SealCheckState; component: string };
 
 export type RuleResult = {
   rule: RuleKey;
@@ -102,12 +109,16 @@ export type InspectionDecision = {
 };
 
 export type DecideInput = {
-  input: Pick<RecordInspectionInput, 'nozzle' | 'weight' | 'power' | 'safety'>;
+  input: Pick<RecordInspectionInput, 'nozzle' | 'weight' | 'safety'> & {
+    power: Pick<RecordInspectionInput['power'], 'declaredKw' | 'evidenceSeen'> & { note?: string };
+  };
   rules: ClassRules;
   nozzleInstrument?: InstrumentFigures | null;
   weightInstrument?: InstrumentFigures | null;
   /** A targeted re-inspection: decide only these checks (null or absent: all). */
   scope?: readonly CheckArea[] | null;
+  /** The register's seals checked on this boat (the server names the components; the dock uses the card's copy). */
+  sealFindings?: readonly SealFinding[];
 };
 
 const RANK: Record<Verdict, number> = { conforms: 0, inconclusive: 1, does_not_conform: 2 };
@@ -409,6 +420,38 @@ function decideSafety(d: DecideInput): RuleResult[] {
   });
 }
 
+/**
+ * One line per seal checked. A broken or missing scrutineering seal means the sealed component is no
+ * longer in the state that was verified when the seal went on, so the boat does not conform until it
+ * is re-verified and sealed again (common practice, no source). The governing body's rules and its
+ * officials decide what follows; the verdict shows the finding with the usual caution. A seal
+ * finding is always shown, even in a targeted re-inspection: it is something seen, not a check ordered.
+ */
+export function decideSeals(findings: readonly SealFinding[] | undefined): RuleResult[] {
+  return (findings ?? []).map((f) => {
+    const ok = f.state === 'intact';
+    const explanation = ok
+      ? `Seal ${f.number} on the ${f.component} was found intact.`
+      : f.state === 'broken'
+        ? `Seal ${f.number} on the ${f.component} was found broken: the component is no longer in the state verified when it was sealed, so it does not conform until it is checked again and re-sealed. The officials decide what follows.`
+        : `Seal ${f.number} on the ${f.component} was found missing: the component is no longer shown to be in the state verified when it was sealed, so it does not conform until it is checked again and re-sealed. The officials decide what follows.`;
+    return {
+      rule: `seal:${f.number}` as RuleKey,
+      label: `Seal ${f.number} (${f.component})`,
+      decisiveValue: null,
+      unit: null,
+      limit: null,
+      acceptanceLimit: null,
+      rejectionLimit: null,
+      expandedUncertainty: null,
+      verdict: ok ? 'conforms' : 'does_not_conform',
+      explanation,
+      measured: true,
+      valueKind: null,
+    } satisfies RuleResult;
+  });
+}
+
 /** Every rule's verdict and the overall result. Throws EngineInputError (field named) on input the class refuses. */
 export function decideInspection(d: DecideInput): InspectionDecision {
   const scope = d.scope && d.scope.length ? [...d.scope] : null;
@@ -422,6 +465,7 @@ export function decideInspection(d: DecideInput): InspectionDecision {
     ...(weightResult && decides('weight') ? [weightResult] : []),
     ...(power && decides('power') ? [power] : []),
     ...(decides('safety') ? decideSafety(d) : []),
+    ...decideSeals(d.sealFindings),
   ];
   return {
     rules,

@@ -11,6 +11,7 @@ import {
   StoredResults,
   StoredRuleResult,
   StoredWeightMeasurement,
+  type StoredSealAction,
 } from '../../../models/shapes/inspection-record';
 import type { ClassRules } from '../inputs/class-rules';
 import type { RecordInspectionInput } from '../inputs/inspections';
@@ -19,7 +20,14 @@ import type { InspectionDecision, InstrumentFigures } from './decide-inspection'
 export { StoredInspectionRecord, StoredMeasurements, StoredResults, StoredRuleResult };
 
 export type BuildInspectionRecordInput = {
-  input: Pick<RecordInspectionInput, 'nozzle' | 'weight' | 'power' | 'seals' | 'safety'>;
+  input: Pick<RecordInspectionInput, 'nozzle' | 'weight' | 'safety'> & {
+    power: Pick<RecordInspectionInput['power'], 'declaredKw' | 'evidenceSeen' | 'note'> &
+      Partial<Pick<RecordInspectionInput['power'], 'evidenceKind'>>;
+  };
+  /** The register's seal actions at this inspection, in the order written (none: an empty list). */
+  sealActions?: StoredSealAction[];
+  /** The boat's document named as the dyno sheet (checked to be this boat's by the server). */
+  dynoDocument?: { id: string; fileName: string } | null;
   decision: InspectionDecision;
   rules: Pick<ClassRules, 'decisionRule'>;
   ruleVersion: number;
@@ -56,8 +64,19 @@ export function buildInspectionRecord(b: BuildInspectionRecordInput): StoredInsp
             uncertaintyBasis: decision.weight?.uncertaintyBasis ?? null,
           }
         : null,
-      power: { ...input.power, boatDeclaredKw: b.boat.declaredKw, boatPowerEvidence: b.boat.powerEvidence },
-      seals: input.seals,
+      power: {
+        declaredKw: input.power.declaredKw,
+        evidenceSeen: input.power.evidenceSeen,
+        note: input.power.note,
+        boatDeclaredKw: b.boat.declaredKw,
+        boatPowerEvidence: b.boat.powerEvidence,
+        // Written only when there is something to say, so a record without them keeps the shape
+        // migration 20261203003000 brought every older row to (its backfill leaves such rows alone).
+        ...(input.power.evidenceKind ? { evidenceKind: input.power.evidenceKind } : {}),
+        ...(b.dynoDocument ? { dynoDocument: b.dynoDocument } : {}),
+      },
+      seals: [],
+      ...(b.sealActions?.length ? { sealActions: b.sealActions } : {}),
       safety: input.safety as Record<string, boolean>,
     },
     results: {

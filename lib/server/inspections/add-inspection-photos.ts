@@ -1,4 +1,5 @@
 import 'server-only';
+import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
@@ -25,9 +26,10 @@ export async function addInspectionPhotos(
   eventId: string,
   inspectionId: string,
   photos: { bytes: Uint8Array; declaredName: string }[],
+  opts: { sealNumber?: string | null } = {},
 ): Promise<InspectionPhotoView[]> {
   assertCan(actor, 'inspection.record', { eventId });
-  const { models } = getDb();
+  const { models, sequelize } = getDb();
   const inspection = await models.Inspection.findOne({
     where: { id: inspectionId, eventId },
     attributes: ['id', 'entryId', 'boatId'],
@@ -40,6 +42,19 @@ export async function addInspectionPhotos(
   if (entry?.entrantId === actor.id || boat?.ownerId === actor.id)
     throw new AppError('own_boat', 403, 'You cannot add evidence to the inspection of a boat you entered or own.');
 
+  // A photo of a seal names a seal this inspection recorded (applied, checked or removed): one photo per upload.
+  let sealEvent: { id: string; photoId: string | null } | null = null;
+  if (opts.sealNumber) {
+    const refuseSeal = (message: string) =>
+      new AppError('invalid_input', 400, `sealNumber: ${message}`, [{ field: 'sealNumber', message }]);
+    if (photos.length !== 1) throw refuseSeal('Send one photo of the seal at a time.');
+    [sealEvent] = await sequelize.query<{ id: string; photoId: string | null }>(
+      `select e.id, e.photo_id as "photoId" from seal_events e join seals s on s.id = e.seal_id
+        where e.inspection_id = :inspectionId and upper(s.number) = :number order by e.created_at desc, e.id desc limit 1`,
+      { replacements: { inspectionId, number: opts.sealNumber }, type: QueryTypes.SELECT },
+    );
+    if (!sealEvent) throw refuseSeal(`Seal ${opts.sealNumber} was not recorded in this inspection.`);
+  }
   const checked: { photo: (typeof photos)[number]; file: InspectedUpload }[] = photos.map((photo, i) => {
     try {
       return {
@@ -60,6 +75,12 @@ export async function addInspectionPhotos(
       throw err;
     }
   });
+  if (sealEvent?.photoId) {
+    // A retry of the same photo is answered as before; another photo for the same seal is refused.
+    const earlier = await models.InspectionPhoto.findByPk(sealEvent.photoId, { attributes: ['sha256'] });
+    if (earlier?.sha256 !== checked[0].file.sha256Hex)
+      throw new AppError('seal_photo_taken', 409, `Seal ${opts.sealNumber} already has its photo in this inspection.`);
+  }
   const out: InspectionPhotoView[] = [];
   for (const { photo, file } of checked) {
     const existing = await models.InspectionPhoto.findOne({ where: { inspectionId, sha256: file.sha256Hex } });
@@ -82,6 +103,11 @@ export async function addInspectionPhotos(
           sha256: file.sha256Hex,
         });
       })());
+    // seal_events allows exactly this one change: its photo, once, from this inspection (migration 20261203005300).
+    if (sealEvent && !sealEvent.photoId)
+      await sequelize.query('update seal_events set photo_id = :photoId where id = :id and photo_id is null', {
+        replacements: { photoId: row.id, id: sealEvent.id },
+      });
     out.push({
       id: row.id,
       inspectionId,

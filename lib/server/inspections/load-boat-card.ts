@@ -8,6 +8,7 @@ import type { ClassRules } from '@/lib/core/inputs/class-rules';
 import { currentInspectionCte, loadInspectionViews, type InspectionView } from './inspection-view';
 import { listReinspectionViews, type ReinspectionView } from './reinspection-view';
 import { heldPartsJsonSql, type HeldPart } from '@/lib/server/custody/custody-view';
+import { loadBoatComponentChoices, loadBoatSeals, type BoatSeal } from '@/lib/server/seals/boat-seals';
 
 // What a scrutineer sees at the dock before measuring: the boat, its declaration against the rules
 // in force now, its entry and payment, every earlier record at this meeting and open tasks.
@@ -43,6 +44,12 @@ export type BoatCard = {
   openReinspections: ReinspectionView[];
   /** Parts of this boat the officials hold now (taken into custody, not released). */
   partsHeld: HeldPart[];
+  /** The register's seals on the boat's components now (to be checked: intact, broken or missing). */
+  seals: BoatSeal[];
+  /** The boat's components now, for applying a seal. */
+  components: { id: string; label: string }[];
+  /** The boat's uploaded documents, for naming the dyno sheet seen. */
+  documents: { id: string; kind: string; fileName: string }[];
   /** The person asking entered or owns this boat: they may look, never record. */
   isOwnBoat: boolean;
 };
@@ -52,7 +59,19 @@ export async function loadBoatCard(actor: Actor, eventId: string, entryId: strin
   const { models, sequelize } = getDb();
   const entry = await models.Entry.findOne({ where: { id: entryId, eventId } });
   if (!entry) throw new Error(`entry ${entryId} not at event ${eventId}`);
-  const [boat, raceClass, event, ruleVersion, inspections, openReinspections, current, partsHeld] = await Promise.all([
+  const [
+    boat,
+    raceClass,
+    event,
+    ruleVersion,
+    inspections,
+    openReinspections,
+    current,
+    partsHeld,
+    seals,
+    components,
+    documents,
+  ] = await Promise.all([
     models.Boat.findByPk(entry.boatId),
     models.RaceClass.findByPk(entry.classId),
     models.Event.findByPk(eventId, { attributes: ['id', 'name'] }),
@@ -66,6 +85,13 @@ export async function loadBoatCard(actor: Actor, eventId: string, entryId: strin
     sequelize.query<{ parts: HeldPart[] | null }>(`select ${heldPartsJsonSql(':entryId')} as parts`, {
       replacements: { entryId },
       type: QueryTypes.SELECT,
+    }),
+    loadBoatSeals(entry.boatId),
+    loadBoatComponentChoices(entry.boatId),
+    models.BoatDocument.findAll({
+      where: { boatId: entry.boatId },
+      attributes: ['id', 'kind', 'fileName'],
+      order: [['createdAt', 'DESC']],
     }),
   ]);
   if (!boat || !raceClass || !event) throw new Error(`entry ${entryId} has a missing boat, class or event`);
@@ -117,6 +143,9 @@ export async function loadBoatCard(actor: Actor, eventId: string, entryId: strin
     currentInspectionId: current[0]?.id ?? null,
     openReinspections,
     partsHeld: partsHeld[0]?.parts ?? [],
+    seals,
+    components,
+    documents: documents.map((d) => ({ id: d.id, kind: d.kind, fileName: d.fileName })),
     isOwnBoat: entry.entrantId === actor.id || boat.ownerId === actor.id,
   };
 }

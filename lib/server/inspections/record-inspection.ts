@@ -23,6 +23,7 @@ import {
 import { buildInspectionRecord } from '../../core/inspections/inspection-record';
 import { toInstrumentFigures } from '../../core/inspections/instrument-figures';
 import { currentInspectionCte, loadInspectionViews, type InspectionView } from './inspection-view';
+import { planInspectionSeals, writeInspectionSealEvents } from '@/lib/server/seals/inspection-seals';
 
 type EntryRow = {
   id: string;
@@ -186,8 +187,27 @@ export async function recordInspection(
     findInstrument(eventId, input.nozzle.instrumentId, 'length', 'nozzle.instrumentId'),
     findInstrument(eventId, input.weight?.instrumentId ?? null, 'mass', 'weight.instrumentId'),
   ]);
+  // The dyno sheet must be one of this boat's own uploaded documents.
+  let dynoDocument: { id: string; fileName: string } | null = null;
+  if (input.power.dynoDocumentId) {
+    const doc = await models.BoatDocument.findOne({
+      where: { id: input.power.dynoDocumentId, boatId: entry.boatId },
+      attributes: ['id', 'fileName'],
+    });
+    if (!doc) throw fieldError('power.dynoDocumentId', 'This document is not one of this boat’s uploaded documents.');
+    dynoDocument = { id: doc.id, fileName: doc.fileName };
+  }
+  // Seals checked, applied and removed, against the register and the boat's components now (400 naming the field).
+  const sealPlan = await planInspectionSeals(eventId, entry.boatId, input.seals);
   // Throws EngineInputError naming the field (too few readings for this class): 400.
-  const decision = decideInspection({ input, rules: ruleVersion.rules, nozzleInstrument, weightInstrument, scope });
+  const decision = decideInspection({
+    input,
+    rules: ruleVersion.rules,
+    nozzleInstrument,
+    weightInstrument,
+    scope,
+    sealFindings: sealPlan.findings,
+  });
 
   const { measurements, results } = buildInspectionRecord({
     input,
@@ -197,6 +217,8 @@ export async function recordInspection(
     nozzleInstrument,
     weightInstrument,
     boat: { declaredKw: entry.boatDeclaredKw, powerEvidence: entry.boatPowerEvidence },
+    sealActions: sealPlan.actions,
+    dynoDocument,
   });
 
   const flagged: FlaggedEntry[] = [];
@@ -246,6 +268,12 @@ export async function recordInspection(
     );
     if (rows.length === 0) return null; // the same key committed a moment ago by a parallel request
     const { id } = rows[0];
+    // The seal events belong to this record: written here, so a replay (no row inserted above) writes none.
+    await writeInspectionSealEvents(
+      sealPlan,
+      { inspectionId: id, eventId, boatId: entry.boatId, recordedById: actor.id },
+      transaction,
+    );
     // inspections are never updated; the entry carries the current record's result for quick reading.
     await sequelize.query(
       `with ${currentInspectionCte('entry')}

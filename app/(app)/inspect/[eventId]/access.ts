@@ -16,3 +16,4 @@ export const openDock = (params: Params) =>
 export const openBoard = (params: Params) => openEventPageWithHeading(params, 'inspection.board');
 export const openCustody = (params: Params) => openEventPageWithHeading(params, 'custody.view');
 export const openInstruments = (params: Params) => openEventPageWithHeading(params, 'inspection.board');
+export const openSeals = (params: Params) => openEventPageWithHeading(params, 'inspection.board');

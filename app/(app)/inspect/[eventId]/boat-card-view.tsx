@@ -7,6 +7,8 @@ import { DECLARATION_STATUS_WORDS } from '@/lib/core/entries/check-declaration';
 import type { InspectionView } from '@/lib/server/inspections/inspection-view';
 import { formatFigure } from '@/lib/core/format/figures';
 import { CHECK_AREA_LABELS } from '@/lib/core/inspections/decide-inspection';
+import { describePowerEvidence } from '@/lib/core/inspections/power-evidence';
+import { SEAL_ACTION_WORDS } from '@/lib/core/seals/seal-words';
 import type { DockTarget } from './form-model';
 
 const when = (iso: string) =>
@@ -124,6 +126,22 @@ export function BoatCardView({
                 .join('; ')}
             </p>
           )}
+          <div data-testid="card-seals">
+            <h3 className="text-xl">Seals on this boat ({card.seals.length})</h3>
+            {card.seals.length === 0 ? (
+              <p>No register seals on its components.</p>
+            ) : (
+              <ul className="divide-y divide-paper-line">
+                {card.seals.map((s) => (
+                  <li key={s.sealId} className="py-1" data-seal={s.number}>
+                    <strong>Seal {s.number}</strong> on the {s.component}
+                    {s.position ? ` (${s.position})` : ''} · {SEAL_ACTION_WORDS[s.lastAction].toLowerCase()}{' '}
+                    {when(s.lastAt)}
+                  </li>
+                ))}
+              </ul>
+            )}
+          </div>
           <div>
             <h3 className="text-xl">Earlier records at this meeting ({card.inspections.length})</h3>
             {card.inspections.length === 0 ? (
@@ -142,6 +160,19 @@ export function BoatCardView({
                       by {i.recordedBy.name}
                       {i.device ? ` on ${i.device}` : ''} · rules v{i.ruleVersion}
                     </p>
+                    <p className="text-ink-soft" data-testid="history-power-evidence">
+                      Power evidence: {describePowerEvidence(i.measurements?.power)}
+                    </p>
+                    {(i.measurements?.sealActions?.length ?? 0) > 0 && (
+                      <p className="text-ink-soft" data-testid="history-seals">
+                        Seals:{' '}
+                        {i
+                          .measurements!.sealActions!.map(
+                            (a) => `${a.number} ${SEAL_ACTION_WORDS[a.action].toLowerCase()} (${a.component})`,
+                          )
+                          .join('; ')}
+                      </p>
+                    )}
                     {i.supersedesId && <p className="font-bold">Correction: {i.correctionReason}</p>}
                     {i.supersededById ? (
                       <p className="font-bold text-ink-soft">Superseded by a later correction (kept in the record).</p>

@@ -28,6 +28,7 @@ import { InspectionForm, type FormSubmission } from './inspection-form';
 import { QueuePanel } from './queue-panel';
 import { registerInspectServiceWorker, useDockQueue } from './use-dock-queue';
 import { VerdictPanel, type ShownVerdict } from './verdict-panel';
+import { describePowerEvidence } from '@/lib/core/inspections/power-evidence';
 
 /** A record key made on the phone (crypto.randomUUID needs a secure context; fall back to random bytes). */
 function newKey(): string {
@@ -179,7 +180,7 @@ export function DockScreen({
     });
   }
 
-  async function record({ draft, photos, provisional }: FormSubmission) {
+  async function record({ draft, photos, sealPhotos, provisional }: FormSubmission) {
     if (!target) return;
     const label = `No. ${target.raceNumber} ${target.boatName}`;
     const queued: QueuedRecord = {
@@ -188,7 +189,15 @@ export function DockScreen({
       recordedById: actorId,
       label,
       payload: draft,
-      photos: photos.map((p) => ({ name: p.name, type: p.type, blob: p })),
+      photos: [
+        ...photos.map((p) => ({ name: p.name, type: p.type, blob: p })),
+        ...(sealPhotos ?? []).map((p) => ({
+          name: p.file.name,
+          type: p.file.type,
+          blob: p.file,
+          sealNumber: p.number,
+        })),
+      ],
       state: 'waiting',
       attempts: 0,
       createdAt: new Date().toISOString(),
@@ -219,6 +228,11 @@ export function DockScreen({
       provisional: !after.serverRules,
       inspectionId: after.inspectionId,
       scopeWords: describeScope(target.card?.openReinspections.find((t) => t.id === draft.reinspectionId)?.checks),
+      powerEvidence: describePowerEvidence({
+        evidenceSeen: draft.power.evidenceSeen,
+        evidenceKind: draft.power.evidenceKind ?? null,
+        dynoDocument: target.card?.documents.find((d) => d.id === draft.power.dynoDocumentId) ?? null,
+      }),
     });
     setNotice(
       after.state === 'sent'

@@ -2,7 +2,9 @@
 // so a queued record that needs a fix can be loaded back into the form. Plain TypeScript.
 import type { Material } from '@/lib/core/engine/measurement';
 import type { ClassRules } from '@/lib/core/inputs/class-rules';
-import type { InspectionKind, RecordInspectionDraft } from '@/lib/core/inputs/inspections';
+import type { InspectionKind, PowerEvidenceKind, RecordInspectionDraft } from '@/lib/core/inputs/inspections';
+import type { InspectionSealsDraft as SealsDraft, SealCheckState } from '@/lib/core/inputs/seals';
+import type { SealFinding } from '@/lib/core/inspections/decide-inspection';
 import type { BoardRow, InspectionBoard } from '@/lib/server/inspections/list-inspection-board';
 import type { BoatCard } from '@/lib/server/inspections/load-boat-card';
 import { figureValue } from '@/lib/core/format/figures';
@@ -64,6 +66,13 @@ export function targetFromBoardRow(row: BoardRow, board: InspectionBoard): DockT
   };
 }
 
+export type FormSeals = {
+  checks: Record<string, '' | SealCheckState>;
+  applied: { number: string; componentId: string; position: string }[];
+  removed: Record<string, string>;
+};
+export const NO_SEALS: FormSeals = { checks: {}, applied: [], removed: {} };
+
 export type UncertaintySource = 'instrument' | 'typed' | 'class';
 
 export type FormState = {
@@ -78,8 +87,12 @@ export type FormState = {
   scaleId: string;
   powerKw: string;
   evidenceSeen: boolean;
+  /** The kind of power evidence seen ('' : not said; then evidenceSeen alone is sent). */
+  evidenceKind: '' | PowerEvidenceKind;
+  dynoDocumentId: string;
   powerNote: string;
-  seals: { number: string; location: string }[];
+  /** The register's seals: each listed seal's check by number, seals applied, seals removed (number → reason). */
+  seals: FormSeals;
   safety: Record<string, boolean>;
   notes: string;
   supersedesId: string | null;
@@ -133,8 +146,11 @@ export function initialFormState(
     // Pre-filled as shown on the card (0.1 kW); the stored declaration keeps its full precision.
     powerKw: figureValue(target.declaredPowerKw, 'powerKw'),
     evidenceSeen: false,
+    evidenceKind: '',
+    dynoDocumentId: '',
     powerNote: '',
-    seals: [],
+    // Every seal on the boat's components is listed to be checked; none is marked until the scrutineer looks.
+    seals: { ...NO_SEALS, checks: Object.fromEntries((target.card?.seals ?? []).map((s) => [s.number, ''])) },
     safety: {},
     notes: '',
     supersedesId: null,
@@ -172,8 +188,20 @@ export function draftFromForm(
     weight: weighings.length
       ? { readingsKg: weighings.map((w) => toNumber(w) as number), instrumentId: f.scaleId || null }
       : null,
-    power: { declaredKw: toNumber(f.powerKw) as number, evidenceSeen: f.evidenceSeen, note: f.powerNote },
-    seals: f.seals.filter((s) => s.number.trim() || s.location.trim()),
+    power: {
+      declaredKw: toNumber(f.powerKw) as number,
+      evidenceSeen: f.evidenceKind ? f.evidenceKind !== 'declaration_only' : f.evidenceSeen,
+      note: f.powerNote,
+      evidenceKind: f.evidenceKind || null,
+      dynoDocumentId: f.evidenceKind === 'dyno_sheet' ? f.dynoDocumentId || null : null,
+    },
+    seals: {
+      checks: Object.entries(f.seals.checks)
+        .filter((c): c is [string, SealCheckState] => c[1] !== '')
+        .map(([number, state]) => ({ number, state })),
+      applied: f.seals.applied.filter((a) => a.number.trim() || a.position.trim() || a.componentId),
+      removed: Object.entries(f.seals.removed).map(([number, reason]) => ({ number, reason })),
+    },
     safety: Object.fromEntries((target.rules?.safetyItems ?? []).map((k) => [k, f.safety[k] === true])),
     notes: f.notes,
     supersedesId: f.supersedesId,
@@ -203,12 +231,35 @@ export function formFromDraft(d: RecordInspectionDraft, base: FormState): FormSt
     scaleId: d.weight?.instrumentId ?? base.scaleId,
     powerKw: str(d.power.declaredKw),
     evidenceSeen: d.power.evidenceSeen,
+    evidenceKind: d.power.evidenceKind ?? '',
+    dynoDocumentId: d.power.dynoDocumentId ?? '',
     powerNote: d.power.note ?? '',
-    seals: d.seals ?? [],
+    seals: sealsFromDraft(d.seals as SealsDraft | unknown[] | undefined, base.seals),
     safety: Object.fromEntries(Object.entries(d.safety ?? {}).map(([k, v]) => [k, v === true])),
     notes: d.notes ?? '',
     supersedesId: d.supersedesId ?? null,
     correctionReason: d.correctionReason ?? '',
     reinspectionId: d.reinspectionId ?? '',
+  };
+}
+
+/** The seals checked on the form as findings for the phone's provisional verdict (components named from the card). */
+export function sealFindingsFromForm(
+  checks: { number: string; state: SealCheckState }[],
+  target: DockTarget,
+): SealFinding[] {
+  const byNumber = new Map((target.card?.seals ?? []).map((s) => [s.number.toUpperCase(), s.component]));
+  return checks.map((c) => ({ number: c.number, state: c.state, component: byNumber.get(c.number) ?? 'component' }));
+}
+
+/** The draft's seal actions back into the form; a draft queued before the register (free text) keeps the base. */
+function sealsFromDraft(d: SealsDraft | unknown[] | undefined, base: FormSeals): FormSeals {
+  if (!d || Array.isArray(d)) return base;
+  const checks = { ...base.checks };
+  for (const c of d.checks ?? []) checks[c.number] = c.state;
+  return {
+    checks,
+    applied: (d.applied ?? []).map((a) => ({ ...a })),
+    removed: Object.fromEntries((d.removed ?? []).map((r) => [r.number, r.reason])),
   };
 }

@@ -7,6 +7,8 @@ import { EngineInputError } from '@/lib/core/engine/engine-input-error';
 import {
   INSPECTION_KINDS,
   INSPECTION_KIND_LABELS,
+  POWER_EVIDENCE_KINDS,
+  POWER_EVIDENCE_KIND_WORDS,
   RecordInspectionInput,
   type RecordInspectionDraft,
 } from '@/lib/core/inputs/inspections';
@@ -22,9 +24,16 @@ import { formatFigure } from '@/lib/core/format/figures';
 import type { FormState as ActionState } from '@/components/forms/request-json';
 import { useFormAction } from '@/components/forms/use-form-action';
 import { DockField } from './dock-field';
-import { draftFromForm, resizeReadings, type DockTarget, type FormState } from './form-model';
+import { DockSeals } from './dock-seals';
+import { draftFromForm, resizeReadings, sealFindingsFromForm, type DockTarget, type FormState } from './form-model';
 
-export type FormSubmission = { draft: RecordInspectionDraft; photos: File[]; provisional: InspectionDecision | null };
+export type FormSubmission = {
+  draft: RecordInspectionDraft;
+  photos: File[];
+  /** Photos of seals applied here, each with its seal's number. */
+  sealPhotos?: { number: string; file: File }[];
+  provisional: InspectionDecision | null;
+};
 type Props = {
   target: DockTarget;
   instruments: InstrumentView[];
@@ -51,6 +60,8 @@ export function InspectionForm({
 }: Props) {
   const [f, setF] = useState<FormState>(initial);
   const [photos, setPhotos] = useState<File[]>([]);
+  // By the applied seal's row; kept beside the form state (files do not go into a queued draft).
+  const [sealPhotos, setSealPhotos] = useState<Record<number, File>>({});
   const set = <K extends keyof FormState>(k: K, v: FormState[K]) => setF((s) => ({ ...s, [k]: v }));
   const lengthInstruments = instruments.filter((i) => i.quantity === 'length');
   const scales = instruments.filter((i) => i.quantity === 'mass');
@@ -80,13 +91,17 @@ export function InspectionForm({
             nozzleInstrument: pick(parsed.data.nozzle.instrumentId),
             weightInstrument: pick(parsed.data.weight?.instrumentId ?? null),
             scope,
+            sealFindings: sealFindingsFromForm(parsed.data.seals.checks, target),
           });
         } catch (x) {
           if (x instanceof EngineInputError) return { ok: false, fieldErrors: { [x.field]: x.message } };
           throw x;
         }
       }
-      await onSubmit({ draft, photos, provisional });
+      const withSeal = Object.entries(sealPhotos)
+        .map(([i, file]) => ({ number: (f.seals.applied[Number(i)]?.number ?? '').trim().toUpperCase(), file }))
+        .filter((p) => p.number !== '');
+      await onSubmit({ draft, photos, sealPhotos: withSeal, provisional });
       return { ok: true };
     },
     { ok: false },
@@ -403,15 +418,53 @@ export function InspectionForm({
             onChange={(e) => set('powerKw', e.target.value)}
             hint={`Declared by the entrant: ${formatFigure(target.declaredPowerKw, 'powerKw')} (${target.powerEvidence.replace('_', ' ')}).`}
           />
-          <label className="flex min-h-touch items-center gap-3 font-bold">
-            <input
-              type="checkbox"
-              className={check}
-              checked={f.evidenceSeen}
-              onChange={(e) => set('evidenceSeen', e.target.checked)}
-            />
-            I saw the evidence (dyno sheet or maker’s rating)
-          </label>
+          <div>
+            <label htmlFor={id('power.evidenceKind')} className="field-label text-lg">
+              Power evidence seen
+            </label>
+            <select
+              id={id('power.evidenceKind')}
+              className={select}
+              value={f.evidenceKind}
+              onChange={(e) => {
+                const kind = e.target.value as FormState['evidenceKind'];
+                setF((s) => ({
+                  ...s,
+                  evidenceKind: kind,
+                  evidenceSeen: kind === 'dyno_sheet' || kind === 'maker_rating',
+                }));
+              }}
+            >
+              <option value="">Choose what you saw</option>
+              {POWER_EVIDENCE_KINDS.map((k) => (
+                <option key={k} value={k}>
+                  {POWER_EVIDENCE_KIND_WORDS[k]}
+                </option>
+              ))}
+            </select>
+            {err('power.evidenceKind') && <p className="field-error text-lg">{err('power.evidenceKind')}</p>}
+          </div>
+          {f.evidenceKind === 'dyno_sheet' && (
+            <div>
+              <label htmlFor={id('power.dynoDocumentId')} className="field-label text-lg">
+                Which of the boat’s documents is the dyno sheet
+              </label>
+              <select
+                id={id('power.dynoDocumentId')}
+                className={select}
+                value={f.dynoDocumentId}
+                onChange={(e) => set('dynoDocumentId', e.target.value)}
+              >
+                <option value="">A paper sheet (not uploaded)</option>
+                {(target.card?.documents ?? []).map((d) => (
+                  <option key={d.id} value={d.id}>
+                    {d.fileName} ({d.kind.replace('_', ' ')})
+                  </option>
+                ))}
+              </select>
+              {err('power.dynoDocumentId') && <p className="field-error text-lg">{err('power.dynoDocumentId')}</p>}
+            </div>
+          )}
           <DockField
             id={id('power.note')}
             label="Power note"
@@ -442,44 +495,21 @@ export function InspectionForm({
           </fieldset>
         )}
 
-        <fieldset id="dock-seals" className={section}>
-          <legend className="text-xl font-bold">Seals applied</legend>
-          {f.seals.map((s, i) => (
-            <div key={i} className="grid grid-cols-2 gap-3">
-              <DockField
-                id={id(`seals.${i}.number`)}
-                label={`Seal ${i + 1} number`}
-                value={s.number}
-                error={err(`seals.${i}.number`)}
-                onChange={(e) =>
-                  set(
-                    'seals',
-                    f.seals.map((x, j) => (j === i ? { ...x, number: e.target.value } : x)),
-                  )
-                }
-              />
-              <DockField
-                id={id(`seals.${i}.location`)}
-                label={`Seal ${i + 1} location`}
-                value={s.location}
-                error={err(`seals.${i}.location`)}
-                onChange={(e) =>
-                  set(
-                    'seals',
-                    f.seals.map((x, j) => (j === i ? { ...x, location: e.target.value } : x)),
-                  )
-                }
-              />
-            </div>
-          ))}
-          <button
-            type="button"
-            className="btn-secondary text-lg"
-            onClick={() => set('seals', [...f.seals, { number: '', location: '' }])}
-          >
-            Add a seal
-          </button>
-        </fieldset>
+        <DockSeals
+          target={target}
+          seals={f.seals}
+          onChange={(v) => set('seals', v)}
+          err={err}
+          photos={sealPhotos}
+          onPhoto={(i, file) =>
+            setSealPhotos((p) => {
+              const next = { ...p };
+              if (file) next[i] = file;
+              else delete next[i];
+              return next;
+            })
+          }
+        />
 
         <div id="dock-notes" className="scroll-mt-4 space-y-6">
           {target.card && target.card.openReinspections.length > 0 && (

@@ -13,7 +13,8 @@ import type { InspectionBoard } from '../../../../lib/server/inspections/list-in
 import type { InstrumentView } from '../../../../lib/server/inspections/list-instruments';
 import { requestJson, type JsonAnswer } from '../../../../components/forms/request-json';
 
-export type QueuedPhoto = { name: string; type: string; blob: Blob };
+/** A photo waiting to be sent; sealNumber: the seal it shows (sent with it, so the seal's event points at it). */
+export type QueuedPhoto = { name: string; type: string; blob: Blob; sealNumber?: string };
 export type QueueState = 'waiting' | 'needs_fix' | 'sent';
 
 export type QueuedRecord = {
@@ -133,6 +134,7 @@ export async function sendQueued(record: QueuedRecord): Promise<QueuedRecord> {
     const [p, ...rest] = r.photos;
     const form = new FormData();
     form.append('photo', new File([p.blob], p.name, { type: p.type }));
+    if (p.sealNumber) form.append('sealNumber', p.sealNumber);
     const answer = await ask(`/api/events/${r.eventId}/inspections/${r.inspectionId}/photos`, form, (status) =>
       String(status),
     );

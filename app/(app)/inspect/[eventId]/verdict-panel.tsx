@@ -12,6 +12,8 @@ export type ShownVerdict = {
   provisional: boolean;
   inspectionId: string | null;
   scopeWords?: string | null;
+  /** The power evidence the scrutineer recorded, in words. */
+  powerEvidence?: string | null;
 };
 
 /** The kind of each value: measured at the dock, confirmed against evidence, or declared only (older records: measured). */
@@ -69,6 +71,11 @@ export function VerdictPanel({ verdict, onNext }: { verdict: ShownVerdict; onNex
           data-testid="measure-again"
         >
           ? Measure again with a better instrument: the reading is too close to the limit for this one to decide.
+        </p>
+      )}
+      {verdict.powerEvidence && (
+        <p data-testid="verdict-power-evidence">
+          <span className="font-bold">Power evidence seen:</span> {verdict.powerEvidence}
         </p>
       )}
       <ul className="divide-y divide-paper-line" data-testid="rule-verdicts">

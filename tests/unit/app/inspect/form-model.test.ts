@@ -56,6 +56,7 @@ const RULES: ClassRules = {
   safetyItems: ['kill_switch', 'helmet'],
 };
 const ENTRY_ID = randomUUID();
+const COMPONENT_ID = randomUUID();
 const card = (over: Partial<BoatCard> = {}): BoatCard => ({
   event: { id: randomUUID(), name: 'Test meeting' },
   entry: {
@@ -87,6 +88,20 @@ const card = (over: Partial<BoatCard> = {}): BoatCard => ({
   currentInspectionId: null,
   openReinspections: [],
   partsHeld: [],
+  seals: [
+    {
+      sealId: randomUUID(),
+      number: 'S-1',
+      lastAction: 'applied',
+      lastEventId: randomUUID(),
+      lastAt: '2026-01-01T00:00:00.000Z',
+      position: 'pump',
+      componentId: COMPONENT_ID,
+      component: 'engine Test Maker, serial 1',
+    },
+  ],
+  components: [{ id: COMPONENT_ID, label: 'engine Test Maker, serial 1' }],
+  documents: [],
   isOwnBoat: false,
   ...over,
 });
@@ -212,10 +227,14 @@ const filled = (t: DockTarget): FormState => ({
   powerKw: '240',
   evidenceSeen: true,
   powerNote: 'dyno sheet seen',
-  seals: [
-    { number: 'S-1', location: 'pump' },
-    { number: ' ', location: '' },
-  ],
+  seals: {
+    checks: { 'S-1': 'intact' },
+    applied: [
+      { number: 'S-2', componentId: COMPONENT_ID, position: 'pump' },
+      { number: ' ', componentId: '', position: '' },
+    ],
+    removed: {},
+  },
   safety: { kill_switch: true, helmet: false, harness: true },
   notes: 'dry day',
 });
@@ -236,8 +255,18 @@ test('the form becomes the inspection input: numbers from typed text (a comma is
   assert.equal(d.nozzle.temperatureC, null, 'an empty temperature is "not given"');
   assert.equal(d.nozzle.material, 'aluminium');
   assert.deepEqual(d.weight, { readingsKg: [512.5, 513], instrumentId: null });
-  assert.deepEqual(d.power, { declaredKw: 240, evidenceSeen: true, note: 'dyno sheet seen' });
-  assert.deepEqual(d.seals, [{ number: 'S-1', location: 'pump' }]);
+  assert.deepEqual(d.power, {
+    declaredKw: 240,
+    evidenceSeen: true,
+    note: 'dyno sheet seen',
+    evidenceKind: null,
+    dynoDocumentId: null,
+  });
+  assert.deepEqual(d.seals, {
+    checks: [{ number: 'S-1', state: 'intact' }],
+    applied: [{ number: 'S-2', componentId: COMPONENT_ID, position: 'pump' }],
+    removed: [],
+  });
   assert.deepEqual(d.safety, { kill_switch: true, helmet: false }, "only the class's items, each ticked or not");
   assert.equal(d.supersedesId, null);
   assert.equal(d.correctionReason, null, 'no correction: no reason sent');
@@ -312,7 +341,11 @@ test('a correction sends its reason; a queued draft loads back into the same for
   assert.equal(back.scaleId, scaleId);
   assert.equal(back.powerKw, '240');
   assert.equal(back.evidenceSeen, true);
-  assert.deepEqual(back.seals, [{ number: 'S-1', location: 'pump' }]);
+  assert.deepEqual(back.seals, {
+    checks: { 'S-1': 'intact' },
+    applied: [{ number: 'S-2', componentId: COMPONENT_ID, position: 'pump' }],
+    removed: {},
+  });
   assert.deepEqual(back.safety, { kill_switch: true, helmet: false });
   assert.equal(back.supersedesId, supersedesId);
   assert.equal(back.correctionReason, 'wrong boat');

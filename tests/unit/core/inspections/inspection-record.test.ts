@@ -69,10 +69,19 @@ const parseInput = (nozzle: Record<string, unknown>, over: Record<string, unknow
     },
     weight: { readingsKg: [405, 406], instrumentId: SCALE.id },
     power: { declaredKw: 250, evidenceSeen: true },
-    seals: [{ number: 'S-1', location: 'pump housing' }],
     safety: { helmet: true },
     ...over,
   });
+
+// A seal action as the server hands it to the builder (invented numbers and component).
+const SEAL_ACTION = {
+  number: 'S-1',
+  action: 'applied' as const,
+  componentId: '00000000-0000-4000-8000-0000000000c1',
+  component: 'engine Test Maker, serial 1',
+  position: 'pump housing',
+  reason: '',
+};
 
 function build(
   over: Partial<BuildInspectionRecordInput> & {
@@ -96,6 +105,7 @@ function build(
     nozzleInstrument,
     weightInstrument: SCALE,
     boat: { declaredKw: 250, powerEvidence: 'dyno_sheet' },
+    sealActions: [SEAL_ACTION],
     ...over,
   });
 }
@@ -117,7 +127,18 @@ test('the built record parses with the stored shape and carries the rule version
     boatDeclaredKw: 250,
     boatPowerEvidence: 'dyno_sheet',
   });
-  assert.deepEqual(record.measurements.seals, [{ number: 'S-1', location: 'pump housing' }]);
+  assert.deepEqual(record.measurements.seals, [], 'free-text seals belong to records from before the register');
+  assert.deepEqual(record.measurements.sealActions, [SEAL_ACTION]);
+  const plain = build({ sealActions: [] });
+  assert.equal('sealActions' in plain.measurements, false, 'no seal actions: the key is left out');
+  const withEvidence = build({
+    inputOver: { power: { declaredKw: 250, evidenceSeen: true, evidenceKind: 'dyno_sheet' } },
+    dynoDocument: { id: '00000000-0000-4000-8000-0000000000d1', fileName: 'dyno.pdf' },
+  });
+  assert.deepEqual(
+    [withEvidence.measurements.power.evidenceKind, withEvidence.measurements.power.dynoDocument],
+    ['dyno_sheet', { id: '00000000-0000-4000-8000-0000000000d1', fileName: 'dyno.pdf' }],
+  );
 });
 
 test('the record stores the readings corrected to 20 °C (ISO 1:2022; aluminium 23e-6 /K [memory])', () => {

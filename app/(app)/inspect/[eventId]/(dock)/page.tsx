@@ -28,6 +28,9 @@ export default async function DockPage({ params }: { params: Promise<{ eventId: 
           <Link href={`/inspect/${eventId}/instruments`} className="btn-secondary text-lg">
             Instruments
           </Link>
+          <Link href={`/inspect/${eventId}/seals`} className="btn-secondary text-lg">
+            Seals
+          </Link>
         </div>
       </div>
       <DockScreen eventId={eventId} actorId={actor.id} instruments={instruments} />

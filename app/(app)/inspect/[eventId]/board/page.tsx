@@ -33,6 +33,9 @@ export default async function BoardPage({ params }: { params: Promise<{ eventId:
           <Link href={`/inspect/${eventId}/instruments`} className="btn-secondary text-lg">
             Instruments
           </Link>
+          <Link href={`/inspect/${eventId}/seals`} className="btn-secondary text-lg">
+            Seals
+          </Link>
         </div>
       </div>
       <Suspense fallback={<p>Loading the board…</p>}>

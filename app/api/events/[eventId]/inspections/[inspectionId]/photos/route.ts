@@ -1,4 +1,4 @@
-// POST /api/events/:eventId/inspections/:inspectionId/photos: attach photos (multipart "photo", up to 8 MB each; the dock sends one per request).
+// POST /api/events/:eventId/inspections/:inspectionId/photos: attach photos (multipart "photo", up to 8 MB each; the dock sends one per request; optional "sealNumber": the seal it shows).
 import { withPermission } from '@/lib/server/http/handler';
 import { parseId } from '@/lib/server/http/ids';
 import { readPhotoUpload } from '@/lib/server/inspections/read-photo-upload';
@@ -11,7 +11,10 @@ type P = { eventId: string; inspectionId: string };
 export const POST = withPermission<P>('inspection.record', async (req, { actor, params }) => {
   const eventId = parseId(params.eventId, 'event');
   const inspectionId = parseId(params.inspectionId, 'inspection');
-  const photos = await addInspectionPhotos(actor, eventId, inspectionId, await readPhotoUpload(req));
+  const upload = await readPhotoUpload(req);
+  const photos = await addInspectionPhotos(actor, eventId, inspectionId, upload.photos, {
+    sealNumber: upload.sealNumber,
+  });
   return Response.json({ data: photos }, { status: 201 });
 });
 

@@ -1,0 +1,82 @@
+import 'server-only';
+import { QueryTypes, UniqueConstraintError } from 'sequelize';
+import { getDb } from '@/lib/server/db';
+import { assertCan, type Actor } from '@/lib/server/auth/actor';
+import { AppError } from '@/lib/core/errors';
+import { IssueSealBatchInput, batchSealNumbers } from '@/lib/core/inputs/seals';
+import type { SealBatchView } from './list-seal-batches';
+
+const clash = (numbers: string[]) =>
+  new AppError(
+    'seal_numbers_taken',
+    409,
+    `${numbers.length === 1 ? 'Seal number' : `${numbers.length} seal numbers`} already in the register: ${numbers
+      .slice(0, 20)
+      .join(', ')}${numbers.length > 20 ? ', …' : ''}. A seal number is issued once, at any meeting.`,
+    { numbers },
+  );
+
+/**
+ * The chief scrutineer (or organiser) issues a batch of numbered seals to the meeting: the batch and
+ * every seal are written together. A number already in the register, at any meeting, refuses the
+ * whole batch and names the clashing numbers.
+ */
+export async function issueSealBatch(actor: Actor | null, eventId: string, raw: unknown): Promise<SealBatchView> {
+  assertCan(actor, 'instrument.manage', { eventId });
+  const input = IssueSealBatchInput.parse(raw);
+  const { models, sequelize } = getDb();
+  if (!(await models.Event.findByPk(eventId, { attributes: ['id'] })))
+    throw new AppError('not_found', 404, 'No such meeting.');
+  const numbers = batchSealNumbers(input.prefix, input.firstNumber, input.lastNumber);
+  if (numbers.some((n) => n.length > 40))
+    throw new AppError('invalid_input', 400, 'prefix: Prefix and number together must fit 40 characters.', [
+      { field: 'prefix', message: 'Prefix and number together must fit 40 characters.' },
+    ]);
+  try {
+    return await sequelize.transaction(async (transaction) => {
+      const taken = await sequelize.query<{ number: string }>(
+        'select upper(number) as number from seals where upper(number) in (:numbers) order by 1',
+        { replacements: { numbers }, type: QueryTypes.SELECT, transaction },
+      );
+      if (taken.length) throw clash(taken.map((t) => t.number));
+      const batch = await models.SealBatch.create(
+        {
+          eventId,
+          prefix: input.prefix,
+          firstNumber: input.firstNumber,
+          lastNumber: input.lastNumber,
+          note: input.note,
+          issuedById: actor.id,
+        },
+        { transaction },
+      );
+      await sequelize.query('insert into seals (batch_id, number) select :batchId, unnest(array[:numbers]::text[])', {
+        replacements: { batchId: batch.id, numbers },
+        transaction,
+      });
+      return {
+        id: batch.id,
+        prefix: batch.prefix,
+        firstNumber: batch.firstNumber,
+        lastNumber: batch.lastNumber,
+        firstSeal: numbers[0],
+        lastSeal: numbers[numbers.length - 1],
+        count: numbers.length,
+        used: 0,
+        note: batch.note,
+        issuedBy: actor.name ?? actor.email,
+        createdAt: batch.createdAt.toISOString(),
+      };
+    });
+  } catch (err) {
+    // Another batch took a number between the check and the insert: the unique index says so.
+    if (err instanceof UniqueConstraintError) {
+      const taken = await sequelize.query<{ number: string }>(
+        'select upper(number) as number from seals where upper(number) in (:numbers) order by 1',
+        { replacements: { numbers }, type: QueryTypes.SELECT },
+      );
+      throw clash(taken.map((t) => t.number));
+    }
+    throw err;
+  }
+}
