@@ -188,14 +188,16 @@ before(async () => {
 
   // Protests against the boat's first entry by the other entrant: one decided (the owner, a party,
   // sees it), one still awaiting its fee (nothing has been lodged against the owner yet).
+  const protestIds: string[] = [];
   for (const [status, rule, reasons] of [
     ['upheld', 'LB 4.2 seals', 'The seal on the engine was found broken; the entry is excluded from the final.'],
     ['awaiting_fee', 'LB 9.9 unpaid', null],
-  ] as const)
-    await query(
+  ] as const) {
+    const [row] = await query<{ id: string }>(
       `insert into protests (event_id, lodged_by_id, against_entry_id, matter_key, rule_reference, grounds, status, fee_minor, currency,
                              paid_at, window_deadline, decision_reasons, decided_at)
-       values ($1, $2, $3, $4, $5, 'Grounds kept on the protest page only', $6, 3000, 'NZD', $8, now() + interval '1 hour', $7, $8)`,
+       values ($1, $2, $3, $4, $5, 'Grounds kept on the protest page only', $6, 3000, 'NZD', $8, now() + interval '1 hour', $7, $8)
+       returning id`,
       [
         first.eventId,
         ids.otherEntrant,
@@ -207,6 +209,14 @@ before(async () => {
         reasons ? new Date() : null,
       ],
     );
+    protestIds.push(row.id);
+  }
+  // A re-inspection the stewards ordered for the decided protest: its reason names the protest.
+  await query(
+    `insert into reinspections (id, event_id, entry_id, reason, requested_by_id, protest_id, created_at, updated_at)
+     values (gen_random_uuid(), $1, $2, 'Protest LB 4.2: check every engine seal', $3, $4, now(), now())`,
+    [first.eventId, entry.id, await userId(DEMO.steward), protestIds[0]],
+  );
 });
 
 after(async () => {
@@ -392,9 +402,11 @@ test('the logbook lists declaration versions, inspections with verdicts, custody
   assert.doesNotMatch(body, /LB 9\.9 unpaid/);
   assert.doesNotMatch(body, /Grounds kept on the protest page only/, 'grounds stay on the protest page');
   // The chief scrutineer reads the record but not the protests (no protest.view_all, not a party); a steward does.
+  assert.match(body, /Re-inspection asked: Protest LB 4\.2: check every engine seal/);
   const chief = await textOf(await s.chief.fetch(page()));
   assert.ok(chief.includes(`Seal ${sealNumber} found BROKEN`));
-  assert.doesNotMatch(chief, /LB 4\.2 seals/);
+  assert.doesNotMatch(chief, /LB 4\.2/, 'neither the protest nor the reason of the task ordered for it');
+  assert.match(chief, /Re-inspection asked: ordered by the stewards/);
   const steward = await textOf(await s.steward.fetch(page()));
   assert.match(steward, /LB 4\.2 seals/);
   assert.match(steward, /LB 9\.9 unpaid/, "stewards see the meeting's protests, as they do today");

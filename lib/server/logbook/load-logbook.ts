@@ -173,7 +173,7 @@ async function readInspections(q: Q, boatId: string): Promise<LogbookRecord['ins
   return rows.map((r) => ({ ...r, capturedAt: iso(r.capturedAt), isCurrent: current.has(r.id) }));
 }
 
-async function readReinspections(q: Q, boatId: string): Promise<LogbookRecord['reinspections']> {
+async function readReinspections(q: Q, boatId: string) {
   const rows = await q<{
     id: string;
     eventId: string;
@@ -181,14 +181,26 @@ async function readReinspections(q: Q, boatId: string): Promise<LogbookRecord['r
     requestedBy: string;
     createdAt: Date;
     doneAt: Date | null;
+    protestId: string | null;
   }>(
     `select r.id, r.event_id as "eventId", r.reason, coalesce(u.name, u.email) as "requestedBy",
-            r.created_at as "createdAt", r.done_at as "doneAt"
+            r.created_at as "createdAt", r.done_at as "doneAt", r.protest_id as "protestId"
        from reinspections r join entries e on e.id = r.entry_id join users u on u.id = r.requested_by_id
       where e.boat_id = :boatId`,
     { boatId },
   );
   return rows.map((r) => ({ ...r, createdAt: iso(r.createdAt), doneAt: isoOrNull(r.doneAt) }));
+}
+
+/** A task ordered for a protest the viewer may not see keeps its reason to itself (the reason may name the protest). */
+function hideUnseenProtestReasons(
+  tasks: Awaited<ReturnType<typeof readReinspections>>,
+  protests: LogbookRecord['protests'],
+): LogbookRecord['reinspections'] {
+  const seen = new Set(protests.map((p) => p.id));
+  return tasks.map(({ protestId, ...t }) =>
+    protestId && !seen.has(protestId) ? { ...t, reason: 'ordered by the stewards' } : t,
+  );
 }
 
 async function readCustody(q: Q, boatId: string): Promise<LogbookRecord['custody']> {
@@ -315,7 +327,7 @@ export async function loadLogbook(actor: Actor | null, rawBoatId: string): Promi
       componentEvents,
       sealEvents,
       inspections,
-      reinspections,
+      reinspections: hideUnseenProtestReasons(reinspections, protests),
       custody,
       protests,
       notes,
