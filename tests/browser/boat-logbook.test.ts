@@ -45,7 +45,7 @@ test('logbook: the owner reads it on a phone; the chief scrutineer opens it from
   const chief = await dock.newPage();
   await signInWithPassword(chief, DEMO.chief, DEMO_PASSWORD);
   await chief.goto(`/inspect/${meeting.eventId}/board`);
-  const row = chief.locator('li', { hasText: entry.boatName }).last();
+  const row = chief.locator(`[data-race-number="${entry.raceNumber}"]`);
   await row.getByRole('link', { name: 'Logbook' }).waitFor();
   await row.getByRole('link', { name: 'Logbook' }).click();
   await chief.waitForURL(`**/boats/${entry.boatId}/logbook`);

@@ -98,8 +98,8 @@ export default async function LogbookPage({
         </a>
       </div>
       <p className="text-ink-soft">
-        Everything recorded about this boat at every meeting, newest first. Entries are never changed or removed: a
-        correction is a new entry.
+        Everything recorded about this boat at every meeting, newest first. Nothing here is changed or removed: a
+        correction is recorded as a new line.
       </p>
       <SafetyNote />
 
