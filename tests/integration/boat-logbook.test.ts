@@ -397,6 +397,10 @@ test('the logbook lists declaration versions, inspections with verdicts, custody
   assert.ok(body.includes(`Seal ${sealNumber} found BROKEN`));
   assert.ok(body.includes(`Finding: seal ${sealNumber} found BROKEN`), "in the third inspection's entry too");
   assert.match(body, /data-finding="broken"/);
+  assert.ok(
+    body.includes(`Seal ${sealNumber} (cylinder head bolt, port side): found BROKEN`),
+    'the engine on the boat now shows its seal in its latest state',
+  );
   assert.match(body, /Safety first\./, 'the caution where verdicts and safety appear');
   // Protests: the owner (the protested party) sees the decided one, not the one still awaiting its fee.
   assert.match(body, /LB 4\.2 seals/);
@@ -437,6 +441,7 @@ test('the PDF parses back: title, pages, the timeline and both signature lines',
   assert.ok(all.includes(entry.boatName));
   assert.match(all, /Printed .* by /);
   assert.ok(all.includes(`Seal ${sealNumber} found BROKEN`));
+  assert.ok(all.includes(`Seal ${sealNumber} (cylinder head bolt, port side): found BROKEN`));
   assert.match(all, /Declaration version 2 by /);
   assert.match(all, /Part taken into custody: Impeller with a chipped blade/);
   assert.match(all, /Safety first\./);

@@ -2,8 +2,14 @@
 // it now, the timeline oldest first (as a log is read), the caution, and lines for the owner's and an
 // official's signatures. Pure: the route hands it what the viewer may see.
 import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage } from 'pdf-lib';
-import { formatCalendarDate, formatTime } from '../format/time';
-import { describeComponent, groupLogbookItems, type LogbookItem, type LogbookRecord } from './timeline';
+import { formatCalendarDate, formatDay, formatTime } from '../format/time';
+import {
+  describeComponent,
+  groupLogbookItems,
+  listSealsOnComponents,
+  type LogbookItem,
+  type LogbookRecord,
+} from './timeline';
 
 const A4: [number, number] = [595.28, 841.89];
 const M = 44;
@@ -136,8 +142,18 @@ export async function buildLogbookPdf(opts: {
   gap(ctx);
   write(ctx, `Components on the boat now (${record.components.length})`, { size: 12, bold: true });
   if (record.components.length === 0) write(ctx, 'None registered.');
-  for (const c of record.components)
+  const seals = listSealsOnComponents(record);
+  for (const c of record.components) {
     write(ctx, `${describeComponent(c)}${c.trimCode ? `, trim ${c.trimCode}` : ''}${c.notes ? ` (${c.notes})` : ''}`);
+    for (const s of seals.get(c.id) ?? [])
+      write(
+        ctx,
+        `Seal ${s.sealNumber}${s.position ? ` (${s.position})` : ''}: ${s.state}, ${formatDay(s.at, timeZone)}`,
+        {
+          indent: 10,
+        },
+      );
+  }
   gap(ctx);
 
   write(ctx, `Timeline, oldest first (${items.length} entries)`, { size: 12, bold: true });

@@ -66,6 +66,7 @@ export type LogbookRecord = {
     action: string;
     createdAt: string;
     eventId: string | null;
+    componentId: string | null;
     component: LogbookComponentRef | null;
     position: string;
     reason: string;
@@ -354,6 +355,32 @@ export function buildLogbookItems(r: LogbookRecord, fallbackZone: string): Logbo
     });
   }
   return items;
+}
+
+export type ComponentSeal = { sealNumber: string; state: string; at: string; position: string };
+
+/**
+ * The seals on each component now on the boat, each with its latest event ("found broken" until
+ * someone records otherwise); a seal whose latest event is its removal is no longer on it.
+ */
+export function listSealsOnComponents(r: LogbookRecord): Map<string, ComponentSeal[]> {
+  const latest = new Map<string, LogbookRecord['sealEvents'][number]>();
+  for (const e of [...r.sealEvents].sort((a, b) => Date.parse(a.createdAt) - Date.parse(b.createdAt)))
+    latest.set(e.sealNumber.toUpperCase(), e);
+  const onBoat = new Set(r.components.map((c) => c.id));
+  const out = new Map<string, ComponentSeal[]>();
+  for (const e of latest.values()) {
+    if (!e.componentId || !onBoat.has(e.componentId) || e.action === 'removed') continue;
+    const list = out.get(e.componentId) ?? [];
+    list.push({
+      sealNumber: e.sealNumber,
+      state: SEAL_WORDS[e.action] ?? e.action,
+      at: e.createdAt,
+      position: e.position,
+    });
+    out.set(e.componentId, list);
+  }
+  return out;
 }
 
 /** Newest first on screen; oldest first on paper, as a log is read. Ties keep a stable order by id. */

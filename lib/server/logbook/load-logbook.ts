@@ -116,10 +116,12 @@ async function readSealEvents(q: Q, boatId: string): Promise<LogbookRecord['seal
     reason: string;
     recordedBy: string;
     inspectionId: string | null;
+    componentId: string | null;
     component: LogbookComponentRef | null;
   }>(
     `select se.id, s.number as "sealNumber", se.action, se.created_at as "createdAt", se.event_id as "eventId",
             se.position, se.reason, coalesce(u.name, u.email) as "recordedBy", se.inspection_id as "inspectionId",
+            se.component_id as "componentId",
             case when bc.id is null then null
                  else json_build_object('kind', bc.kind, 'maker', bc.maker, 'model', bc.model, 'serialNumber', bc.serial_number) end as component
        from seal_events se join seals s on s.id = se.seal_id join users u on u.id = se.recorded_by_id

@@ -9,6 +9,7 @@ import { extractPdfText } from '../../../support/pdf-text';
 import { buildLogbookPdf } from '../../../../lib/core/logbook/logbook-pdf';
 import {
   buildLogbookItems,
+  listSealsOnComponents,
   groupLogbookItems,
   parseLogbookKinds,
   sortLogbookItems,
@@ -66,6 +67,7 @@ function sampleRecord(): LogbookRecord {
         action: 'applied',
         createdAt: '2026-03-14T01:00:00.000Z',
         eventId: M1,
+        componentId: 'c1',
         component: engine,
         position: 'head bolt',
         reason: '',
@@ -78,6 +80,7 @@ function sampleRecord(): LogbookRecord {
         action: 'broken',
         createdAt: '2026-07-04T10:00:00.000Z',
         eventId: M2,
+        componentId: 'c1',
         component: engine,
         position: 'head bolt',
         reason: '',
@@ -216,6 +219,23 @@ test('sorted newest or oldest first and grouped by meeting, with what belongs to
     ],
   );
   assert.equal(groups.flatMap((g) => g.items).length, items.length, 'nothing lost by grouping');
+});
+
+test('the seals on each component now on the boat, each in its latest state; a removed seal is gone', () => {
+  const record = sampleRecord();
+  assert.deepEqual(listSealsOnComponents(record).get('c1'), [
+    { sealNumber: 'LB-1', state: 'found BROKEN', at: '2026-07-04T10:00:00.000Z', position: 'head bolt' },
+  ]);
+  record.sealEvents.push({
+    ...record.sealEvents[1],
+    id: 's3',
+    action: 'removed',
+    createdAt: '2026-07-05T10:00:00.000Z',
+  });
+  assert.equal(listSealsOnComponents(record).get('c1'), undefined);
+  record.components = [];
+  record.sealEvents.pop();
+  assert.equal(listSealsOnComponents(record).size, 0, 'only components on the boat now');
 });
 
 test('kind filters take only known kinds; none or only unknown ones mean everything', () => {

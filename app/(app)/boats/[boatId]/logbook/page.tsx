@@ -9,12 +9,13 @@ import {
   buildLogbookItems,
   describeComponent,
   groupLogbookItems,
+  listSealsOnComponents,
   parseLogbookKinds,
   sortLogbookItems,
   type LogbookItem,
   type LogbookKind,
 } from '@/lib/core/logbook/timeline';
-import { formatCalendarDate, safeTimeZone } from '@/lib/core/format/time';
+import { formatCalendarDate, formatDay, safeTimeZone } from '@/lib/core/format/time';
 import { SafetyNote } from '@/components/safety-note';
 import { VerdictBadge } from '@/components/verdict-badge';
 import { LogNoteForm } from './log-note-form';
@@ -66,6 +67,7 @@ export default async function LogbookPage({
     throw err;
   });
   const { record } = book;
+  const seals = listSealsOnComponents(record);
   const kinds = parseLogbookKinds((await searchParams).kind);
   const all = sortLogbookItems(buildLogbookItems(record, book.fallbackZone), 'newest');
   const counts = new Map<LogbookKind, number>();
@@ -135,6 +137,12 @@ export default async function LogbookPage({
               <li key={c.id} className="break-words py-2">
                 {describeComponent(c)}
                 {c.trimCode && <span className="text-ink-soft"> · trim {c.trimCode}</span>}
+                {(seals.get(c.id) ?? []).map((seal) => (
+                  <span key={seal.sealNumber} className="block text-sm" data-testid="component-seal">
+                    Seal {seal.sealNumber}
+                    {seal.position && ` (${seal.position})`}: {seal.state}, {formatDay(seal.at, book.fallbackZone)}
+                  </span>
+                ))}
               </li>
             ))}
           </ul>
