@@ -3,13 +3,8 @@
 // official's signatures. Pure: the route hands it what the viewer may see.
 import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage } from 'pdf-lib';
 import { formatCalendarDate, formatDay, formatTime } from '../format/time';
-import {
-  describeComponent,
-  groupLogbookItems,
-  listSealsOnComponents,
-  type LogbookItem,
-  type LogbookRecord,
-} from './timeline';
+import { describeComponent, groupLogbookItems, listSealsOnComponents } from './timeline';
+import type { LogbookItem, LogbookRecord } from './logbook-record';
 
 const A4: [number, number] = [595.28, 841.89];
 const M = 44;

@@ -13,9 +13,8 @@ import {
   groupLogbookItems,
   parseLogbookKinds,
   sortLogbookItems,
-  LOGBOOK_KINDS,
-  type LogbookRecord,
 } from '../../../../lib/core/logbook/timeline';
+import { LOGBOOK_KINDS, type LogbookRecord } from '../../../../lib/core/logbook/logbook-record';
 
 const fields = {
   hullDescription: 'Aluminium V hull',

@@ -4,16 +4,14 @@ import { notFound, redirect } from 'next/navigation';
 import { getActor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
 import { loadLogbook } from '@/lib/server/logbook/load-logbook';
+import { LOGBOOK_KINDS, type LogbookItem, type LogbookKind } from '@/lib/core/logbook/logbook-record';
 import {
-  LOGBOOK_KINDS,
   buildLogbookItems,
   describeComponent,
   groupLogbookItems,
   listSealsOnComponents,
   parseLogbookKinds,
   sortLogbookItems,
-  type LogbookItem,
-  type LogbookKind,
 } from '@/lib/core/logbook/timeline';
 import { formatCalendarDate, formatDay, safeTimeZone } from '@/lib/core/format/time';
 import { SafetyNote } from '@/components/safety-note';
