@@ -144,6 +144,18 @@ export const ROUTES: Row[] = [
   },
   {
     method: 'GET',
+    file: 'app/api/boats/[boatId]/logbook/pdf/route.ts',
+    path: (i) => `/api/boats/${i.boatId}/logbook/pdf`,
+    access: 'owner-or-view-all',
+  },
+  {
+    method: 'POST',
+    file: 'app/api/boats/[boatId]/log-notes/route.ts',
+    path: (i) => `/api/boats/${i.boatId}/log-notes`,
+    access: { anyOf: ['boat.log_note'] },
+  },
+  {
+    method: 'GET',
     file: 'app/api/documents/[documentId]/route.ts',
     path: (i) => `/api/documents/${i.documentId}`,
     access: 'owner-or-view-all',

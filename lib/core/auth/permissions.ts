@@ -30,6 +30,8 @@ export const PERMISSIONS = {
   'custody.take': ['scrutineer', 'chief_scrutineer', 'steward'],
   'custody.release': ['chief_scrutineer', 'steward'],
   'custody.view': ['scrutineer', 'chief_scrutineer', 'steward', 'organiser'],
+  // A boat's logbook: dated notes (damage, repairs) by the technical officials who may read it (entry.view_all)
+  'boat.log_note': ['chief_scrutineer', 'steward'],
   // Protests
   'protest.decide': ['steward'],
   'protest.view_all': ['steward', 'organiser'],

@@ -52,6 +52,9 @@ export default async function BoatPage({ params }: { params: Promise<{ boatId: s
           {boat.name}
           {boat.hullNumber && <span className="figure ml-2 text-2xl text-ink-mute">#{boat.hullNumber}</span>}
         </h1>
+        <Link href={`/boats/${boat.id}/logbook`} className="btn-secondary">
+          Logbook
+        </Link>
         <Link href={`/boats/${boat.id}/enter`} className="btn-primary">
           Enter a meeting
         </Link>

@@ -1,6 +1,7 @@
 'use client';
 
 import { useCallback, useEffect, useEffectEvent, useRef, useState, useSyncExternalStore } from 'react';
+import Link from 'next/link';
 import { parseTagScan } from '@/lib/core/tags/parse-tag-scan';
 import { requestJson } from '@/components/forms/request-json';
 import {
@@ -82,10 +83,13 @@ export function DockScreen({
   eventId,
   actorId,
   instruments,
+  canOpenLogbook,
 }: {
   eventId: string;
   actorId: string;
   instruments: InstrumentView[];
+  /** Officials with entry.view_all may open the boat's logbook from its card. */
+  canOpenLogbook: boolean;
 }) {
   const queue = useDockQueue(eventId, actorId);
   const [snapshot, setSnapshot] = useState<EventSnapshot | null>(null);
@@ -338,6 +342,9 @@ export function DockScreen({
           )}
         </div>
         {target && <BoatCardView target={target} onCorrect={correct} />}
+        {canOpenLogbook && target?.card && (
+          <Link href={`/boats/${target.card.boat.id}/logbook`}>This boat&apos;s logbook</Link>
+        )}
         {target && form && !target.isOwnBoat && (
           <InspectionForm
             key={`${form.key}-${form.revision}`}

@@ -1,7 +1,8 @@
 // The one permission table: each role's allowed and denied permissions, written out here by
 // hand from the product's role descriptions (common practice at race meetings, no single source:
 // scrutineers inspect, stewards decide protests, organisers run the meeting and publish; parts taken
-// into custody at the dock are released by the chief scrutineer or the stewards).
+// into custody at the dock are released by the chief scrutineer or the stewards; notes in a boat's
+// logbook are written by the chief scrutineer or the stewards, who may read it).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import {
@@ -36,6 +37,7 @@ const EXPECTED: Record<Role, Permission[]> = {
     'custody.take',
     'custody.release',
     'custody.view',
+    'boat.log_note',
     'interest.declare',
   ],
   steward: [
@@ -48,6 +50,7 @@ const EXPECTED: Record<Role, Permission[]> = {
     'custody.take',
     'custody.release',
     'custody.view',
+    'boat.log_note',
     'interest.declare',
     'interest.view_register',
   ],

@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
+import { can } from '@/lib/server/auth/actor';
 import { listInstruments } from '@/lib/server/inspections/list-instruments';
 import { openDock } from '../access';
 import { DockScreen } from '../dock-screen';
@@ -33,7 +34,12 @@ export default async function DockPage({ params }: { params: Promise<{ eventId: 
           </Link>
         </div>
       </div>
-      <DockScreen eventId={eventId} actorId={actor.id} instruments={instruments} />
+      <DockScreen
+        eventId={eventId}
+        actorId={actor.id}
+        instruments={instruments}
+        canOpenLogbook={can(actor, 'entry.view_all', { eventId })}
+      />
     </div>
   );
 }

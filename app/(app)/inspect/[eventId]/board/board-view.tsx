@@ -26,10 +26,13 @@ export function BoardView({
   eventId,
   canAssign,
   canRecord,
+  canOpenLogbook,
 }: {
   eventId: string;
   canAssign: boolean;
   canRecord: boolean;
+  /** Officials with entry.view_all may open a boat's logbook from its row. */
+  canOpenLogbook: boolean;
 }) {
   const router = useRouter();
   const pathname = usePathname();
@@ -215,6 +218,11 @@ export function BoardView({
                 <p>
                   <span className="figure text-2xl font-bold">{r.raceNumber}</span>{' '}
                   <span className="font-bold">{r.boatName}</span> · {r.classCode}
+                  {canOpenLogbook && (
+                    <Link href={`/boats/${r.boatId}/logbook`} className="ml-2 text-base">
+                      Logbook
+                    </Link>
+                  )}
                 </p>
                 <p className="text-ink-soft">
                   {r.latest

@@ -43,6 +43,7 @@ export default async function BoardPage({ params }: { params: Promise<{ eventId:
           eventId={eventId}
           canAssign={can(actor, 'inspection.assign_reinspection', { eventId })}
           canRecord={canRecord}
+          canOpenLogbook={can(actor, 'entry.view_all', { eventId })}
         />
       </Suspense>
     </div>
