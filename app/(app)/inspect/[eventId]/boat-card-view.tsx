@@ -106,11 +106,12 @@ export function BoatCardView({
               className="rounded-lg border-2 border-flare-500 bg-flare-100 p-3 font-bold"
               data-testid="open-reinspection"
             >
-              Re-inspection asked for:{' '}
+              Re-inspection required:{' '}
               {card.openReinspections
                 .map(
                   (t) =>
-                    `${t.reason}${t.checks ? ` (checks the ${t.checks.map((c) => CHECK_AREA_LABELS[c]).join(', ')} only)` : ''}`,
+                    // A declaration change's reason already starts with these words: said once.
+                    `${t.reason.replace(/^Re-inspection required:\s*/, '')}${t.checks ? ` (checks the ${t.checks.map((c) => CHECK_AREA_LABELS[c]).join(', ')} only)` : ''}`,
                 )
                 .join('; ')}
             </p>

@@ -1,4 +1,4 @@
-// Skeleton while the boats section loads its data.
+// Skeleton while the boats list loads (in its own route group: a boat's pages decide their own status).
 export default function BoatsLoading() {
   return (
     <div className="space-y-4" aria-busy="true" aria-live="polite">
