@@ -68,6 +68,11 @@ export function startMailFake(opts: { smtpPort: number; httpPort: number; storeF
         .catch((err: Error) => callback(err));
     },
   });
+  // A client that vanishes mid-conversation (an app server killed by the crash tests) resets its
+  // connection; that is the client's problem, never a reason for the fake to stop for everyone.
+  smtp.on('error', (err: NodeJS.ErrnoException) =>
+    console.warn(`[fakes] mail: a connection failed (${err.code ?? err.message})`),
+  );
   smtp.listen(opts.smtpPort, '127.0.0.1');
 
   // GET /messages[?to=address] newest first; DELETE /messages empties the inbox.
