@@ -79,3 +79,36 @@ export function resolveOutcome(verdict: Verdict, burden: BurdenOfProof): Resolve
     explanation: EXPLANATIONS[outcome],
   };
 }
+
+/** Where a class rule's burden applies: an inspection by the scrutineers, or a protest's re-check. */
+export const BURDEN_CONTEXTS = ['inspection', 'protest'] as const;
+export type BurdenContext = (typeof BURDEN_CONTEXTS)[number];
+export type BurdenOfProofRules = Record<BurdenContext, BurdenOfProof>;
+
+/** The class default (ISO 14253-1:2017; ILAC-G8:09/2019): at inspection the entrant proves, in a protest the protester. */
+export const DEFAULT_BURDEN_OF_PROOF: Readonly<BurdenOfProofRules> = Object.freeze({
+  inspection: 'conformity',
+  protest: 'non_conformity',
+});
+
+export const BURDEN_CONTEXT_WORDS: Record<BurdenContext, string> = {
+  inspection: 'At inspection (before or after racing, spot checks)',
+  protest: 'In a protest (the re-check a protest asks for)',
+};
+
+/** The class's burden of proof per context; rules stored before it existed get the defaults. */
+export function resolveBurdenRules(rules: { burdenOfProof?: Partial<BurdenOfProofRules> | null }): BurdenOfProofRules {
+  return { ...DEFAULT_BURDEN_OF_PROOF, ...(rules.burdenOfProof ?? {}) };
+}
+
+/** A protest's inspection is decided in the protest context; every other kind of inspection in the inspection context. */
+export const burdenContextOfInspection = (kind: string | null | undefined): BurdenContext =>
+  kind === 'protest' ? 'protest' : 'inspection';
+
+/** Who must prove at an inspection of this kind, under these class rules. */
+export function burdenForInspection(
+  rules: { burdenOfProof?: Partial<BurdenOfProofRules> | null },
+  kind: string | null | undefined,
+): BurdenOfProof {
+  return resolveBurdenRules(rules)[burdenContextOfInspection(kind)];
+}
