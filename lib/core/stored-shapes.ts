@@ -1,10 +1,12 @@
 // The stored document shapes of models/shapes/ against the names lib/ uses for the same documents.
 // models/ imports nothing from lib/, so the two are written apart; these checks make typecheck fail
 // when either side changes without the other. Type-only: nothing here runs.
-import type { StoredClassRules } from '../../models/shapes/class-rules';
+import type { StoredClassRules, STORED_BURDENS_OF_PROOF } from '../../models/shapes/class-rules';
 import type { StoredParity, StoredReportInputs, StoredReportResults } from '../../models/shapes/parity-report';
 import type {
   StoredRuleResult,
+  STORED_BURDENS_OF_PROOF as STORED_RECORD_BURDENS,
+  STORED_OUTCOMES,
   STORED_CHECK_AREAS,
   STORED_DECISION_RULES,
   STORED_MATERIALS,
@@ -16,6 +18,7 @@ import type { SealAction } from '../../models/boat-record';
 import type { PowerEvidenceKind } from './inputs/inspections';
 import type { ClassRules } from './inputs/class-rules';
 import type { DecisionRule, Verdict } from './engine/conformity';
+import type { BurdenOfProof, Outcome } from './engine/conformity-burden';
 import type { Material } from './engine/measurement';
 import type { ParityReport } from './engine/parity';
 import type { CheckArea, RuleResult } from './inspections/decide-inspection';
@@ -29,6 +32,7 @@ type Fits<A, B> = [A] extends [B] ? true : false;
 
 export type StoredShapesMatch = [
   Check<Same<ClassRules, StoredClassRules>>,
+  Check<Same<(typeof STORED_BURDENS_OF_PROOF)[number], BurdenOfProof>>,
   Check<Same<ReportInputs, StoredReportInputs>>,
   Check<Same<ReportResults, StoredReportResults>>,
   Check<Same<ParityReport, StoredParity>>,
@@ -37,6 +41,8 @@ export type StoredShapesMatch = [
   Check<Same<(typeof STORED_CHECK_AREAS)[number], CheckArea>>,
   Check<Same<(typeof STORED_MATERIALS)[number], Material>>,
   Check<Fits<RuleResult, StoredRuleResult>>,
+  Check<Same<(typeof STORED_RECORD_BURDENS)[number], BurdenOfProof>>,
+  Check<Same<(typeof STORED_OUTCOMES)[number], Outcome>>,
   Check<Same<(typeof STORED_POWER_EVIDENCE_KINDS)[number], PowerEvidenceKind>>,
   Check<Same<(typeof STORED_SEAL_ACTIONS)[number], SealAction>>,
 ];

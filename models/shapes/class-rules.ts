@@ -3,6 +3,8 @@
 // check in lib/core/stored-shapes.ts fails typecheck when the two drift apart.
 // All figures in SI-based units: mm, kW, kg, m/s.
 export const STORED_RULE_DECISION_RULES = ['simple', 'guarded', 'iso14253'] as const;
+export const STORED_BURDENS_OF_PROOF = ['conformity', 'non_conformity'] as const;
+type StoredBurden = (typeof STORED_BURDENS_OF_PROOF)[number];
 
 export type StoredClassRules = {
   nozzle: { maxMm: number | null; minMm: number | null; minReadings: number; defaultUncertaintyMm: number };
@@ -18,4 +20,6 @@ export type StoredClassRules = {
     wakeFraction: number;
     referenceSpeedsMs: number[];
   };
+  /** Who must prove, per context; absent in rules stored before it (readers apply the defaults). */
+  burdenOfProof?: { inspection: StoredBurden; protest: StoredBurden };
 };

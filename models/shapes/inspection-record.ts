@@ -8,6 +8,8 @@ export const STORED_VERDICTS = ['conforms', 'does_not_conform', 'inconclusive'] 
 export const STORED_DECISION_RULES = ['simple', 'guarded', 'iso14253'] as const;
 export const STORED_CHECK_AREAS = ['nozzle', 'weight', 'power', 'safety'] as const;
 export const STORED_VALUE_KINDS = ['measured', 'confirmed', 'declared'] as const;
+export const STORED_BURDENS_OF_PROOF = ['conformity', 'non_conformity'] as const;
+export const STORED_OUTCOMES = ['conforms', 'does_not_conform', 'not_accepted', 'non_conformity_not_proven'] as const;
 /** Nozzle materials with a thermal expansion coefficient for the 20 °C correction. */
 export const STORED_MATERIALS = ['aluminium', 'stainless_steel', 'steel', 'bronze'] as const;
 
@@ -93,6 +95,9 @@ export const StoredRuleResult = z.object({
   explanation: z.string(),
   measured: z.boolean(),
   valueKind: z.enum(STORED_VALUE_KINDS).nullable().optional(),
+  /** Who had to prove and the verdict resolved for them (records from before the burden of proof have none). */
+  burdenOfProof: z.enum(STORED_BURDENS_OF_PROOF).optional(),
+  outcome: z.enum(STORED_OUTCOMES).optional(),
 });
 export type StoredRuleResult = z.infer<typeof StoredRuleResult>;
 

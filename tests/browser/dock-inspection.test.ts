@@ -165,6 +165,11 @@ test('dock: scan a tag from a photo, record, see the verdict; offline two record
   await fillRecord(page, 101.97, safety);
   await page.getByTestId('measure-again').waitFor();
   assert.match(await page.getByTestId('measure-again').innerText(), /Measure again with a better instrument/);
+  // Before racing the entrant must prove conformity (ISO 14253-1:2017, clause 5 [memory for the clause number]):
+  // an inconclusive result is not accepted.
+  assert.equal(await page.getByTestId('verdict-burden').getAttribute('data-burden'), 'conformity');
+  assert.match(await page.getByTestId('verdict-burden').innerText(), /entrant must prove conformity/);
+  assert.match(await page.getByTestId('measure-again').innerText(), /Not accepted until then/);
   assert.equal(await verdict.getAttribute('data-overall'), 'inconclusive');
   await screenshot(page, 'dock-03-inconclusive');
   await page.getByRole('button', { name: 'Next boat' }).click();

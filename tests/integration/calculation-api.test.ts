@@ -145,6 +145,58 @@ test('conformity: the four worked decisions at limit 102.00 mm, U 0.05 mm under 
   }
 });
 
+test('conformity with burdenOfProof: the worked decisions resolved for whoever must prove; without it the answer is unchanged', async () => {
+  // ISO 14253-1:2017, clause 5 (the supplier proves conformity, the customer proves non-conformity;
+  // the uncertainty counts against whoever proves) [memory for the clause number]; ILAC-G8:09/2019.
+  // Upper limit 102.00 mm, U 0.05 mm; 101.97 and 102.02 lie in the zone of doubt.
+  const table = [
+    { measuredMm: 101.93, conformity: 'conforms', non_conformity: 'conforms' },
+    { measuredMm: 101.97, conformity: 'not_accepted', non_conformity: 'non_conformity_not_proven' },
+    { measuredMm: 102.02, conformity: 'not_accepted', non_conformity: 'non_conformity_not_proven' },
+    { measuredMm: 102.06, conformity: 'does_not_conform', non_conformity: 'does_not_conform' },
+  ] as const;
+  for (const row of table) {
+    const body = { readingsMm: [101.5, row.measuredMm], maxMm: 102.0, expandedUncertaintyMm: 0.05, rule: 'iso14253' };
+    const plainRes = await fetch(`${BASE_URL}/api/v1/conformity`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', 'x-forwarded-for': clientAddress() },
+      body: JSON.stringify(body),
+    });
+    assert.equal(plainRes.status, 200);
+    const plainText = await plainRes.text();
+    const plain = JSON.parse(plainText);
+    assert.equal('outcome' in plain.data, false, 'no outcome without burdenOfProof');
+    for (const burden of ['conformity', 'non_conformity'] as const) {
+      const { res, body: answer } = await post('/api/v1/conformity', { ...body, burdenOfProof: burden });
+      assert.equal(res.status, 200, JSON.stringify(answer));
+      assert.equal(answer.data.outcome.outcome, row[burden], `${row.measuredMm} mm, ${burden}`);
+      assert.equal(answer.data.outcome.burdenOfProof, burden);
+      assert.equal(typeof answer.data.outcome.explanation, 'string');
+      // The old fields, byte for byte: the answer without outcome serialises to the answer given without the field.
+      const { outcome: _outcome, ...oldFields } = answer.data;
+      assert.equal(
+        JSON.stringify({ data: oldFields }),
+        plainText,
+        `${row.measuredMm} mm, ${burden}: old fields unchanged`,
+      );
+    }
+  }
+  const { res, body: refused } = await post('/api/v1/conformity', {
+    readingsMm: [101.97],
+    maxMm: 102,
+    expandedUncertaintyMm: 0.05,
+    rule: 'iso14253',
+    burdenOfProof: 'entrant',
+  });
+  assert.equal(res.status, 400);
+  assert.equal(refused.error.code, 'invalid_input');
+  assert.deepEqual(
+    refused.error.details.map((d: { field: string }) => d.field),
+    ['burdenOfProof'],
+  );
+  assert.match(refused.error.details[0].message, /conformity.*non_conformity/);
+});
+
 test('bad bodies get 400 with the field named in details, never a 500', async () => {
   const jet = { powerKw: 300, nozzleDiameterMm: 100, speedsMs: [0, 20] };
   const cases: { what: string; path: string; body: unknown; field: string }[] = [
@@ -305,6 +357,7 @@ test('OpenAPI document: version 3.1, the three operations, required numeric inpu
   const conformity = requestSchema('/api/v1/conformity');
   assert.deepEqual([...conformity.required].sort(), ['expandedUncertaintyMm', 'readingsMm', 'rule']);
   assert.deepEqual([...conformity.properties.rule.enum].sort(), ['guarded', 'iso14253', 'simple']);
+  assert.deepEqual([...conformity.properties.burdenOfProof.enum].sort(), ['conformity', 'non_conformity']);
 
   const error = schemas.ErrorBody;
   assert.deepEqual(error.required, ['error']);
@@ -318,6 +371,16 @@ test('OpenAPI document: version 3.1, the three operations, required numeric inpu
     {
       path: '/api/v1/conformity',
       body: { readingsMm: [101.97], maxMm: 102, expandedUncertaintyMm: 0.05, rule: 'iso14253' },
+    },
+    {
+      path: '/api/v1/conformity',
+      body: {
+        readingsMm: [101.97],
+        maxMm: 102,
+        expandedUncertaintyMm: 0.05,
+        rule: 'iso14253',
+        burdenOfProof: 'conformity',
+      },
     },
     { path: '/api/v1/conformity', body: { readingsMm: [], maxMm: 102, expandedUncertaintyMm: 0.05, rule: 'iso14253' } },
   ];

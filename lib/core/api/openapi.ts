@@ -7,6 +7,7 @@
 
 import { z } from 'zod';
 import type { ConformityData, CrossoverData, JetPerformanceData } from '../engine/calculation-api';
+import { BURDENS_OF_PROOF, OUTCOMES } from '../engine/conformity-burden';
 import { conformityInputSchema, crossoverInputSchema, jetPerformanceInputSchema } from '../inputs/calculation';
 
 /** Largest request body the public routes read (413 above it). */
@@ -40,6 +41,17 @@ export const conformityDataSchema = z.object({
   verdict: z.enum(['conforms', 'does_not_conform', 'inconclusive']),
   explanation: z.string(),
   acceptanceLimitsMm: z.object({ maxMm: z.number().nullable(), minMm: z.number().nullable() }),
+  outcome: z
+    .object({
+      burdenOfProof: z.enum(BURDENS_OF_PROOF),
+      outcome: z.enum(OUTCOMES),
+      partStands: z.boolean().describe('true when the part is accepted or stands'),
+      explanation: z.string(),
+    })
+    .optional()
+    .describe(
+      'Only when the body gave burdenOfProof: the verdict resolved for whoever must prove (ISO 14253-1:2017; ILAC-G8:09/2019)',
+    ),
 });
 
 export const errorBodySchema = z.object({
@@ -161,7 +173,10 @@ export function buildOpenApiDocument(version = '1.0.0') {
         'decideConformity',
         'Decide a measured size against a limit under a stated decision rule',
         'Rules per ILAC-G8:09/2019 and ISO 14253-1:2017: simple (no guard band), guarded (guard band U), iso14253 (inconclusive inside ±U of the limit). ' +
-          'Give maxMm, minMm or both (minMm below maxMm). The limit itself is inclusive.',
+          'Give maxMm, minMm or both (minMm below maxMm). The limit itself is inclusive. ' +
+          'Optional burdenOfProof (ISO 14253-1:2017; ILAC-G8:09/2019) says who must prove: "conformity" (the entrant, as at inspection before racing: ' +
+          'an inconclusive result is not accepted) or "non_conformity" (the protester, as in a protest: an inconclusive result is non-conformity not proven). ' +
+          'With it the answer adds outcome; without it the answer is unchanged.',
         'ConformityInput',
         'ConformityData',
       ),

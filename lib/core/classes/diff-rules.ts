@@ -19,6 +19,8 @@ const LABELS: Record<string, string> = {
   'parity.inletLossCoefficient': 'Parity model: inlet loss coefficient',
   'parity.wakeFraction': 'Parity model: wake fraction',
   'parity.referenceSpeedsMs': 'Parity model: reference speeds (m/s)',
+  'burdenOfProof.inspection': 'Burden of proof at inspection',
+  'burdenOfProof.protest': 'Burden of proof in a protest',
 };
 
 export const ruleLabel = (path: string) => LABELS[path] ?? path;

@@ -4,6 +4,8 @@
 
 import { evaluateConformity } from './conformity';
 import type { DecisionRule, Verdict } from './conformity';
+import { resolveOutcome } from './conformity-burden';
+import type { BurdenOfProof, ResolvedOutcome } from './conformity-burden';
 import { computeThrustCurve } from './jet';
 import type { JetModelAssumptions } from './jet';
 import { computeCrossoverSpeedMs } from './jet-crossover';
@@ -64,6 +66,8 @@ export interface ConformityBody {
   minMm?: number;
   expandedUncertaintyMm: number;
   rule: DecisionRule;
+  /** Who must prove: when given, the answer carries `outcome` too (without it, the answer is as before). */
+  burdenOfProof?: BurdenOfProof;
 }
 
 export interface ConformityData {
@@ -71,6 +75,8 @@ export interface ConformityData {
   verdict: Verdict;
   explanation: string;
   acceptanceLimitsMm: { maxMm: number | null; minMm: number | null };
+  /** Only when the body gave burdenOfProof. */
+  outcome?: ResolvedOutcome;
 }
 
 export interface ParityBody extends JetModelBody {
@@ -126,11 +132,15 @@ export function computeCrossover(input: CrossoverInput): CrossoverData {
 
 /** POST /api/v1/conformity */
 export function decideConformity(input: ConformityBody): ConformityData {
-  const r = evaluateConformity(input);
-  return {
+  const { burdenOfProof, ...body } = input;
+  const r = evaluateConformity(body);
+  const data: ConformityData = {
     decisiveValueMm: r.decisiveValueMm,
     verdict: r.verdict,
     explanation: r.explanation,
     acceptanceLimitsMm: r.acceptanceLimitsMm,
   };
+  // The key is absent (not undefined) without a burden, so the answer is byte for byte what it was.
+  if (burdenOfProof !== undefined) data.outcome = resolveOutcome(r.verdict, burdenOfProof);
+  return data;
 }

@@ -7,5 +7,6 @@ export * from './jet-crossover';
 export * from './jet-uncertainty';
 export * from './measurement';
 export * from './conformity';
+export * from './conformity-burden';
 export * from './parity';
 export * from './calculation-api';

@@ -6,6 +6,7 @@
 // Upper bounds on power, diameter and lengths are sanity limits, not physics.
 
 import { z } from 'zod';
+import { BURDENS_OF_PROOF } from '../engine/conformity-burden';
 import type { ConformityBody, CrossoverInput, JetPerformanceInput, ParityBody } from '../engine/calculation-api';
 
 const num = (what: string) => z.number({ error: `${what} must be a number` });
@@ -97,6 +98,10 @@ export const conformityInputSchema = z
       .min(0, { error: 'expandedUncertaintyMm must not be negative' })
       .max(100, { error: 'expandedUncertaintyMm must be at most 100 mm' }),
     rule: z.enum(['simple', 'guarded', 'iso14253'], { error: "rule must be 'simple', 'guarded' or 'iso14253'" }),
+    /** Who must prove (ISO 14253-1:2017; ILAC-G8:09/2019); when given, the answer carries `outcome`. */
+    burdenOfProof: z
+      .enum(BURDENS_OF_PROOF, { error: "burdenOfProof must be 'conformity' or 'non_conformity'" })
+      .optional(),
   })
   .refine((b) => b.maxMm !== undefined || b.minMm !== undefined, {
     path: ['maxMm'],

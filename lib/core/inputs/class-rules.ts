@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { SAFETY_ITEM_KEYS } from '@/lib/core/constants';
 import { convertPower } from '@/lib/core/engine/units';
 import { DECISION_RULES } from '@/lib/core/engine/conformity';
+import { BURDENS_OF_PROOF, DEFAULT_BURDEN_OF_PROOF } from '@/lib/core/engine/conformity-burden';
 
 // Class rules: fixed before measuring (ISO/IEC 17025:2017, 7.1.3), stored as a versioned document.
 const positive = (what: string, max: number) =>
@@ -73,6 +74,16 @@ export const ClassRules = z
     decisionRule: z.enum(DECISION_RULES as ['simple', 'guarded', 'iso14253'], { error: 'Choose a decision rule.' }),
     safetyItems: z.array(z.enum(SAFETY_ITEM_KEYS as [string, ...string[]])).max(SAFETY_ITEM_KEYS.length),
     parity: ParityAssumptions,
+    /**
+     * Who must prove, per context (ISO 14253-1:2017; ILAC-G8:09/2019). Optional so that rules stored
+     * before it stay valid: readers apply DEFAULT_BURDEN_OF_PROOF (resolveBurdenRules).
+     */
+    burdenOfProof: z
+      .object({
+        inspection: z.enum(BURDENS_OF_PROOF, { error: 'Choose who must prove at inspection.' }),
+        protest: z.enum(BURDENS_OF_PROOF, { error: 'Choose who must prove in a protest.' }),
+      })
+      .optional(),
   })
   .superRefine((r, ctx) => {
     if (r.nozzle.maxMm != null && r.nozzle.minMm != null && r.nozzle.minMm > r.nozzle.maxMm)
@@ -132,6 +143,8 @@ export const DEFAULT_CLASS_RULES: ClassRules = {
   weight: { minKg: null, includesDriver: true, defaultUncertaintyKg: 1 },
   decisionRule: 'iso14253',
   safetyItems: ['kill_switch', 'helmet', 'life_jacket', 'harness', 'fire_extinguisher', 'tow_point'],
+  // ISO 14253-1:2017: the entrant proves conformity at inspection, the protester non-conformity in a protest.
+  burdenOfProof: { ...DEFAULT_BURDEN_OF_PROOF },
   // MIT 2.611 course notes use eta_p = 0.9 and K_i = 0.2; K_n = 0.02 is a typical nozzle loss [partly memory].
   parity: {
     pumpEfficiency: 0.9,

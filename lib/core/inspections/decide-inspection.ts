@@ -26,10 +26,11 @@
 import { evaluateConformity, formatMm, type DecisionRule, type Verdict } from '../engine/conformity';
 import { computeUncertaintyBudget, correctLengthToReferenceTemperatureMm } from '../engine/measurement';
 import { EngineInputError } from '../engine/engine-input-error';
+import { burdenForInspection, resolveOutcome, type BurdenOfProof, type Outcome } from '../engine/conformity-burden';
 import { SAFETY_ITEMS, type SafetyItem } from '../constants';
 import { formatFigure } from '../entries/check-declaration';
 import type { ClassRules } from '../inputs/class-rules';
-import type { RecordInspectionInput } from '../inputs/inspections';
+import type { InspectionKind, RecordInspectionInput } from '../inputs/inspections';
 import type { SealCheckState } from '../inputs/seals';
 
 /** What a re-inspection can be ordered to check; null scope means everything. */
@@ -83,6 +84,9 @@ export type RuleResult = {
   measured: boolean;
   /** measured at the dock, confirmed against evidence seen, or declared only (null: nothing to weigh, or a safety tick). */
   valueKind?: ValueKind | null;
+  /** Who had to prove (ISO 14253-1:2017) and the verdict resolved for them; absent in records from before it. */
+  burdenOfProof?: BurdenOfProof;
+  outcome?: Outcome;
 };
 
 export type InstrumentFigures = {
@@ -97,6 +101,9 @@ export type InstrumentFigures = {
 export type InspectionDecision = {
   rules: RuleResult[];
   overall: Verdict;
+  /** Who had to prove at this inspection, and the overall verdict resolved for them. */
+  burdenOfProof: BurdenOfProof;
+  overallOutcome: Outcome;
   nozzle: {
     correctedReadingsMm: number[];
     temperatureCorrected: boolean;
@@ -109,7 +116,8 @@ export type InspectionDecision = {
 };
 
 export type DecideInput = {
-  input: Pick<RecordInspectionInput, 'nozzle' | 'weight' | 'safety'> & {
+  /** kind: a 'protest' inspection is decided with the class's protest burden of proof, any other with its inspection one. */
+  input: Pick<RecordInspectionInput, 'nozzle' | 'weight' | 'safety'> & { kind?: InspectionKind } & {
     power: Pick<RecordInspectionInput['power'], 'declaredKw' | 'evidenceSeen'> & { note?: string };
   };
   rules: ClassRules;
@@ -452,8 +460,20 @@ export function decideSeals(findings: readonly SealFinding[] | undefined): RuleR
   });
 }
 
+/**
+ * The rule line resolved for whoever must prove (the verdict is kept as decided). An inconclusive
+ * line's explanation says what it means: under the entrant's burden the usual "measure again" (or
+ * fix the part) stands; under the protester's, non-conformity is not proven and the part stands.
+ */
+function withOutcome(r: RuleResult, burden: BurdenOfProof): RuleResult {
+  const { outcome, explanation } = resolveOutcome(r.verdict, burden);
+  if (r.verdict !== 'inconclusive') return { ...r, burdenOfProof: burden, outcome };
+  return { ...r, burdenOfProof: burden, outcome, explanation: `${r.explanation} ${explanation}` };
+}
+
 /** Every rule's verdict and the overall result. Throws EngineInputError (field named) on input the class refuses. */
 export function decideInspection(d: DecideInput): InspectionDecision {
+  const burdenOfProof = burdenForInspection(d.rules, d.input.kind);
   const scope = d.scope && d.scope.length ? [...d.scope] : null;
   const decides = (area: CheckArea) => !scope || scope.includes(area);
   const { results: nozzleResults, nozzle } = decideNozzle(d, decides('nozzle'));
@@ -466,10 +486,13 @@ export function decideInspection(d: DecideInput): InspectionDecision {
     ...(power && decides('power') ? [power] : []),
     ...(decides('safety') ? decideSafety(d) : []),
     ...decideSeals(d.sealFindings),
-  ];
+  ].map((r) => withOutcome(r, burdenOfProof));
+  const overall = worstVerdict(rules.map((r) => r.verdict));
   return {
     rules,
-    overall: worstVerdict(rules.map((r) => r.verdict)),
+    overall,
+    burdenOfProof,
+    overallOutcome: resolveOutcome(overall, burdenOfProof).outcome,
     nozzle,
     weight: decides('weight') ? weight : null,
     scope,

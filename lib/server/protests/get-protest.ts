@@ -7,6 +7,8 @@ import { queryProtestSummaries, type ProtestSummary } from './protest-view';
 import { listEvidence, type EvidenceView } from './list-evidence';
 import { DECIDABLE_STATUSES, DECIDED_STATUSES, OPEN_STATUSES } from '../../core/protests/protest-states';
 import { listStewardInterests } from '@/lib/server/interests/list-steward-interests';
+import { resolveOutcome, type BurdenOfProof, type Outcome } from '@/lib/core/engine/conformity-burden';
+import type { Verdict } from '@/lib/core/engine/conformity';
 
 export type ReinspectionLink = {
   id: string;
@@ -15,6 +17,9 @@ export type ReinspectionLink = {
   doneAt: string | null;
   inspectionId: string | null;
   verdict: string | null;
+  /** Who had to prove at that inspection and its overall result resolved for them (null: recorded before the burden of proof). */
+  burdenOfProof: BurdenOfProof | null;
+  outcome: Outcome | null;
 };
 export type ProtestDetail = ProtestSummary & {
   evidence: EvidenceView[];
@@ -57,9 +62,16 @@ export async function getProtest(
   const done = tasks.map((t) => t.inspectionId).filter((x): x is string => Boolean(x));
   const verdicts = new Map(
     (done.length
-      ? await getDb().models.Inspection.findAll({ where: { id: done }, attributes: ['id', 'overallResult'] })
+      ? await getDb().models.Inspection.findAll({
+          where: { id: done },
+          attributes: ['id', 'overallResult', 'results'],
+        })
       : []
-    ).map((i) => [i.id, i.overallResult]),
+    ).map((i) => {
+      const burden = i.results?.rules?.find((r) => r.burdenOfProof)?.burdenOfProof ?? null;
+      const outcome = burden ? resolveOutcome(i.overallResult as Verdict, burden).outcome : null;
+      return [i.id, { verdict: i.overallResult, burdenOfProof: burden, outcome }] as const;
+    }),
   );
   const s = summary.status;
   const isParty = access.isLodger || access.isProtested;
@@ -78,7 +90,9 @@ export async function getProtest(
       createdAt: t.createdAt.toISOString(),
       doneAt: t.doneAt?.toISOString() ?? null,
       inspectionId: t.inspectionId ?? null,
-      verdict: t.inspectionId ? (verdicts.get(t.inspectionId) ?? null) : null,
+      verdict: t.inspectionId ? (verdicts.get(t.inspectionId)?.verdict ?? null) : null,
+      burdenOfProof: t.inspectionId ? (verdicts.get(t.inspectionId)?.burdenOfProof ?? null) : null,
+      outcome: t.inspectionId ? (verdicts.get(t.inspectionId)?.outcome ?? null) : null,
     })),
     viewerRole: access.isLodger ? 'lodger' : access.isProtested ? 'protested' : 'official',
     viewerConflict,

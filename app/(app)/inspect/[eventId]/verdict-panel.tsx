@@ -4,6 +4,7 @@ import type { RuleResult } from '@/lib/core/inspections/decide-inspection';
 import { SafetyNote } from '@/components/safety-note';
 import { VerdictBadge } from '@/components/verdict-badge';
 import { formatFigure } from '@/lib/core/format/figures';
+import { BURDEN_WORDS } from '@/lib/core/engine/conformity-burden';
 
 export type ShownVerdict = {
   label: string;
@@ -32,6 +33,8 @@ export function VerdictPanel({ verdict, onNext }: { verdict: ShownVerdict; onNex
   // conform" another reading changes nothing, and a declared figure is not re-measured with an instrument.
   const inconclusive =
     overall === 'inconclusive' && rules.some((r) => r.verdict === 'inconclusive' && kindOf(r) === 'measured');
+  // Who had to prove (records from before the burden of proof carry none: nothing is said).
+  const burden = rules.find((r) => r.burdenOfProof)?.burdenOfProof ?? null;
   return (
     <section
       aria-labelledby="verdict-heading"
@@ -65,13 +68,32 @@ export function VerdictPanel({ verdict, onNext }: { verdict: ShownVerdict; onNex
           Decided by the server against the class rules in force when you measured; stored and never changed.
         </p>
       )}
-      {inconclusive && (
+      {burden && (
+        <p data-testid="verdict-burden" data-burden={burden}>
+          <span className="font-bold">Burden of proof:</span> {BURDEN_WORDS[burden]}.{' '}
+          {burden === 'conformity'
+            ? 'An inconclusive result is not accepted: measure again with a better instrument or fix the part.'
+            : 'An inconclusive result means non-conformity is not proven: the part stands.'}
+        </p>
+      )}
+      {inconclusive && burden === 'non_conformity' ? (
         <p
           className="rounded-lg border-2 border-doubt-600 bg-doubt-100 p-3 text-xl font-bold text-doubt-800"
-          data-testid="measure-again"
+          data-testid="not-proven"
         >
-          ? Measure again with a better instrument: the reading is too close to the limit for this one to decide.
+          ? Non-conformity not proven: the reading is too close to the limit to prove the protest, so the part stands.
+          The stewards decide.
         </p>
+      ) : (
+        inconclusive && (
+          <p
+            className="rounded-lg border-2 border-doubt-600 bg-doubt-100 p-3 text-xl font-bold text-doubt-800"
+            data-testid="measure-again"
+          >
+            ? Measure again with a better instrument: the reading is too close to the limit for this one to decide.
+            {burden === 'conformity' && ' Not accepted until then (or fix the part).'}
+          </p>
+        )
       )}
       {verdict.powerEvidence && (
         <p data-testid="verdict-power-evidence">

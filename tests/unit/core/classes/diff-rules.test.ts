@@ -92,3 +92,8 @@ test('labels: every rule path has a readable label; an unknown path is shown as 
   assert.equal(ruleLabel('power.maxKw'), 'Power, maximum (kW)');
   assert.equal(ruleLabel('something.new'), 'something.new');
 });
+
+test('the burden of proof has readable labels in the version history', () => {
+  assert.equal(ruleLabel('burdenOfProof.inspection'), 'Burden of proof at inspection');
+  assert.equal(ruleLabel('burdenOfProof.protest'), 'Burden of proof in a protest');
+});

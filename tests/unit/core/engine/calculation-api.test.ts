@@ -204,3 +204,18 @@ test('parity schema and API', () => {
   assert.ok(issuePaths(dup).includes('boats'));
   assert.equal(parityInputSchema.safeParse({ boats: [] }).success, false);
 });
+
+test('conformity schema: burdenOfProof is optional and refuses anything but the two values', () => {
+  const base = { readingsMm: [101.97], maxMm: 102, expandedUncertaintyMm: 0.05, rule: 'iso14253' };
+  assert.equal(conformityInputSchema.parse(base).burdenOfProof, undefined);
+  assert.equal('burdenOfProof' in conformityInputSchema.parse(base), false, 'no key added when not given');
+  assert.equal(
+    conformityInputSchema.parse({ ...base, burdenOfProof: 'non_conformity' }).burdenOfProof,
+    'non_conformity',
+  );
+  for (const bad of ['entrant', '', null, 1]) {
+    const r = conformityInputSchema.safeParse({ ...base, burdenOfProof: bad });
+    assert.equal(r.success, false, `refuses ${JSON.stringify(bad)}`);
+    assert.deepEqual(issuePaths(r), ['burdenOfProof']);
+  }
+});

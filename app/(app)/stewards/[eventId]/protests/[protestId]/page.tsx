@@ -10,6 +10,7 @@ import { StewardActions } from './steward-actions';
 import { ConflictNotice } from './conflict-notice';
 import { listCustodyForProtest } from '@/lib/server/custody/manage-custody';
 import { formatInZone } from '@/lib/core/protests/protest-window';
+import { BURDEN_WORDS, OUTCOME_WORDS } from '@/lib/core/engine/conformity-burden';
 
 export const metadata: Metadata = { title: 'Protest (stewards)' };
 export const dynamic = 'force-dynamic';
@@ -46,6 +47,12 @@ export default async function StewardProtestPage({
       </section>
       <section aria-labelledby="reinspections" className="card space-y-2">
         <h2 id="reinspections">Re-inspections ordered</h2>
+        <p className="text-ink-soft" data-testid="protest-burden-note">
+          In a protest the protester must prove non-conformity (ISO 14253-1:2017; ILAC-G8:09/2019) unless the class
+          rules say otherwise: a re-check recorded as a protest inspection with an inconclusive result means
+          non-conformity is not proven and the part stands. Each result below says which burden applied; the stewards
+          decide.
+        </p>
         {p.reinspections.length === 0 ? (
           <p>None.</p>
         ) : (
@@ -56,6 +63,12 @@ export default async function StewardProtestPage({
                 {t.inspectionId ? (
                   <>
                     recorded: <strong>{t.verdict?.replace(/_/g, ' ') ?? 'no verdict'}</strong>
+                    {t.burdenOfProof && t.outcome && (
+                      <span data-testid="reinspection-outcome" data-outcome={t.outcome}>
+                        {' '}
+                        — <strong>{OUTCOME_WORDS[t.outcome]}</strong> ({BURDEN_WORDS[t.burdenOfProof]})
+                      </span>
+                    )}
                     {t.doneAt ? ` (${formatInZone(new Date(t.doneAt), p.timeZone)})` : ''} —{' '}
                     <Link href={`/stewards/${p.eventId}/audit?kind=inspection`}>see it in the audit trail</Link>
                   </>

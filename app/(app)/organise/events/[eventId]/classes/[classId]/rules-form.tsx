@@ -10,6 +10,18 @@ import { refusalState, requestJson, type FormState } from '@/components/forms/re
 import { useFormAction } from '@/components/forms/use-form-action';
 import { numberOrNull } from '@/lib/core/inputs/form-values';
 import { convertPower, type PowerUnit } from '@/lib/core/engine/units';
+import {
+  BURDEN_CONTEXTS,
+  BURDEN_CONTEXT_WORDS,
+  BURDEN_WORDS,
+  BURDENS_OF_PROOF,
+  resolveBurdenRules,
+} from '@/lib/core/engine/conformity-burden';
+
+const INCONCLUSIVE_MEANS = {
+  conformity: 'an inconclusive result is not accepted: measure again with a better instrument or fix the part.',
+  non_conformity: 'an inconclusive result is “non-conformity not proven”: the part stands.',
+} as const;
 
 const RULE_TEXT = {
   simple: 'Simple acceptance: the reading itself is compared with the limit (no guard band).',
@@ -48,6 +60,7 @@ export function RulesForm({ eventId, classId, rules, editingVersion, isDraft }: 
             defaultUncertaintyKg: n('weight.defaultUncertaintyKg'),
           },
           decisionRule: f.get('decisionRule'),
+          burdenOfProof: { inspection: f.get('burdenOfProof.inspection'), protest: f.get('burdenOfProof.protest') },
           safetyItems: f.getAll('safetyItems'),
           parity: {
             pumpEfficiency: n('parity.pumpEfficiency'),
@@ -202,6 +215,41 @@ export function RulesForm({ eventId, classId, rules, editingVersion, isDraft }: 
             </label>
           ))}
           <FieldError name="rules.decisionRule" id="decisionRule-error" error={err('decisionRule')} />
+        </fieldset>
+        <fieldset className="space-y-3" data-testid="burden-of-proof">
+          <legend className="mb-2 text-lg font-bold">
+            Who must prove (burden of proof, fixed before anyone measures)
+          </legend>
+          <p className="text-ink-soft">
+            Under ISO 14253-1 the uncertainty counts against whoever must prove; it only matters when a result is
+            inconclusive.
+          </p>
+          {BURDEN_CONTEXTS.map((context) => (
+            <div key={context} role="radiogroup" aria-labelledby={`burden-${context}`} className="space-y-2">
+              <p id={`burden-${context}`} className="font-bold">
+                {BURDEN_CONTEXT_WORDS[context]}
+              </p>
+              {BURDENS_OF_PROOF.map((b) => (
+                <label key={b} className="flex min-h-touch items-start gap-3 rounded-lg border border-paper-line p-3">
+                  <input
+                    type="radio"
+                    name={`burdenOfProof.${context}`}
+                    value={b}
+                    defaultChecked={resolveBurdenRules(rules)[context] === b}
+                    className="mt-1 h-6 w-6"
+                  />
+                  <span>
+                    {BURDEN_WORDS[b]}: {INCONCLUSIVE_MEANS[b]}
+                  </span>
+                </label>
+              ))}
+              <FieldError
+                name={`rules.burdenOfProof.${context}`}
+                id={`burdenOfProof-${context}-error`}
+                error={err(`burdenOfProof.${context}`)}
+              />
+            </div>
+          ))}
         </fieldset>
         <fieldset className="grid gap-2 sm:grid-cols-2">
           <legend className="mb-2 text-lg font-bold">Required safety items</legend>

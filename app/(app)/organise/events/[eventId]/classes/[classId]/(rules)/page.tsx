@@ -3,6 +3,12 @@ import Link from 'next/link';
 import { formatTime } from '@/lib/core/format/time';
 import { diffRules, ruleLabel } from '@/lib/core/classes/diff-rules';
 import { SafetyNote } from '@/components/safety-note';
+import {
+  BURDEN_CONTEXTS,
+  BURDEN_CONTEXT_WORDS,
+  BURDEN_WORDS,
+  resolveBurdenRules,
+} from '@/lib/core/engine/conformity-burden';
 import { openClassRules } from '../../../access';
 import { RulesForm } from '../rules-form';
 import { PublishForm } from '../publish-form';
@@ -59,7 +65,10 @@ export default async function ClassPage({ params }: { params: Promise<{ eventId:
         <ol className="space-y-4" data-testid="version-history">
           {versions.map((v, i) => {
             const previous = versions[i + 1];
-            const changes = previous ? diffRules(previous.rules, v.rules) : [];
+            // Rules stored before the burden of proof existed read with its defaults, so no change is shown where none was made.
+            const withBurden = (r: typeof v.rules) => ({ ...r, burdenOfProof: resolveBurdenRules(r) });
+            const changes = previous ? diffRules(withBurden(previous.rules), withBurden(v.rules)) : [];
+            const burden = resolveBurdenRules(v.rules);
             return (
               <li key={v.id} className="rounded-lg border border-paper-line p-4">
                 <p className="font-bold">
@@ -69,6 +78,13 @@ export default async function ClassPage({ params }: { params: Promise<{ eventId:
                     : 'draft'}
                 </p>
                 {v.changeNote && <p className="text-ink-soft">{v.changeNote}</p>}
+                <ul className="text-sm" data-testid="version-burden">
+                  {BURDEN_CONTEXTS.map((c) => (
+                    <li key={c}>
+                      {BURDEN_CONTEXT_WORDS[c]}: {BURDEN_WORDS[burden[c]]}.
+                    </li>
+                  ))}
+                </ul>
                 {previous &&
                   (changes.length === 0 ? (
                     <p className="text-sm">No change from version {previous.version}.</p>
