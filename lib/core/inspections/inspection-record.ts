@@ -54,15 +54,18 @@ export function buildInspectionRecord(b: BuildInspectionRecordInput): StoredInsp
         temperatureCorrected: decision.nozzle.temperatureCorrected,
         appliedExpandedUncertaintyMm: decision.nozzle.expandedUncertaintyMm,
         uncertaintyBasis: decision.nozzle.uncertaintyBasis,
+        // Written only with a temperature correction, so a record without one keeps the shape migration
+        // 20261203003000 brought every older row to (as evidenceKind and sealActions do below). The
+        // nozzle rule in results carries its budget in every new record.
         ...(decision.nozzle.thermal
           ? {
               instrumentTemperatureC: decision.nozzle.thermal.instrumentTemperatureC,
               instrumentTemperatureSource: decision.nozzle.thermal.instrumentTemperatureSource,
               instrumentMaterial: decision.nozzle.thermal.instrumentMaterial,
               instrumentMaterialSource: decision.nozzle.thermal.instrumentMaterialSource,
+              uncertaintyBudget: decision.nozzle.budget,
             }
           : {}),
-        uncertaintyBudget: decision.nozzle.budget,
       },
       weight: input.weight
         ? {

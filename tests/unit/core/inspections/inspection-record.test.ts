@@ -159,7 +159,9 @@ test('the record stores the applied U from the instrument budget (JCGM 100:2008 
   const { nozzle } = build({ nozzle: { instrumentId: CALIPER.id } }).measurements;
   assert.ok(Math.abs(nozzle.appliedExpandedUncertaintyMm - 0.035119) < 1e-6, `${nozzle.appliedExpandedUncertaintyMm}`);
   assert.equal(nozzle.instrumentName, 'Test caliper');
-  assert.equal(nozzle.uncertaintyBudget?.terms.length, 2, 'a and δ only');
+  assert.equal('uncertaintyBudget' in nozzle, false, 'no correction: the nozzle keeps the older shape');
+  const rule = build({ nozzle: { instrumentId: CALIPER.id } }).results.rules.find((r) => r.rule === 'nozzle_max')!;
+  assert.equal(rule.budget?.terms.length, 2, 'a and δ only, stored with the rule');
   // With the older temperatureC (30 °C, aluminium): the part at 30 °C, the instrument taken as at 20 °C
   // (steel assumed, 11.5e-6 /K [memory]); the temperature terms join the budget (JCGM 100:2008, 5.1.2).
   // Hand computation of L20 = L·N/D, N = 1 + α_i·0, D = 1 + α_p·10, at the largest reading L = 100.02 mm:
