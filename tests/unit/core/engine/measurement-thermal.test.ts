@@ -36,11 +36,12 @@ test('aluminium nozzle and steel caliper both at 35 °C reading 102.000 mm: 101.
   });
   close(exact, byHand, 1e-12, 'exact form');
   assert.equal(exact.toFixed(3), '101.982');
-  // The part-only correction (instrument treated as exact) gave 102 / 1.000345 = 101.964808 mm: 0.018 mm less.
+  // The part-only correction (instrument treated as exact) gave 102 / 1.000345 = 101.964808 mm.
   const partOnly = correctLengthToReferenceTemperatureMm({ lengthMm: 102, temperatureC: 35, material: 'aluminium' });
   close(partOnly, 102 / 1.000345, 1e-12, 'part only');
   assert.equal(partOnly.toFixed(3), '101.965');
-  close(exact - partOnly, 0.0176, 1e-4, 'in the entrant’s favour');
+  // 0.018 mm larger: against a maximum-diameter rule this tells against the entrant, not for them.
+  close(exact - partOnly, 0.0176, 1e-4, 'the steel caliper’s own expansion');
 });
 
 test('first-order form L·(1 + α_i Δt_i − α_p Δt_p) agrees with the exact form to second order', () => {
