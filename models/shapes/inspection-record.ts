@@ -15,6 +15,26 @@ export const STORED_MATERIALS = ['aluminium', 'stainless_steel', 'steel', 'bronz
 
 const figure = z.number().nullable();
 
+/** One row of an uncertainty budget (JCGM 100:2008, 5.1.2): u(x), c = ∂L20/∂x, contribution |c|·u in mm. */
+export const StoredBudgetTerm = z.object({
+  quantity: z.string(),
+  value: z.number(),
+  unit: z.string(),
+  standardUncertainty: z.number(),
+  basis: z.string(),
+  sensitivity: z.number(),
+  contributionMm: z.number(),
+});
+/** The nozzle's budget as decided: its terms, u_c, k and U = k·u_c. */
+export const StoredLengthBudget = z.object({
+  terms: z.array(StoredBudgetTerm),
+  combinedStandardUncertaintyMm: z.number(),
+  coverageFactor: z.number(),
+  expandedUncertaintyMm: z.number(),
+});
+export const STORED_INSTRUMENT_TEMPERATURE_SOURCES = ['measured', 'same_as_part', 'assumed_reference'] as const;
+export const STORED_INSTRUMENT_MATERIAL_SOURCES = ['instrument', 'form', 'assumed_steel'] as const;
+
 /** The nozzle as measured, with what the verdict used: readings corrected to 20 °C and the applied U. */
 export const StoredNozzleMeasurement = z.object({
   readings: z.array(z.object({ diameterMm: z.number(), angleDeg: z.number() })),
@@ -22,8 +42,16 @@ export const StoredNozzleMeasurement = z.object({
   instrumentName: z.string().nullable(),
   /** U typed on the form (only without an instrument). */
   typedExpandedUncertaintyMm: figure,
+  /** The nozzle's (part's) temperature. */
   temperatureC: figure,
   material: z.enum(STORED_MATERIALS).nullable(),
+  // What the differential-expansion correction used (records from before it have none: optional).
+  instrumentTemperatureC: figure.optional(),
+  instrumentTemperatureSource: z.enum(STORED_INSTRUMENT_TEMPERATURE_SOURCES).nullable().optional(),
+  instrumentMaterial: z.enum(STORED_MATERIALS).nullable().optional(),
+  instrumentMaterialSource: z.enum(STORED_INSTRUMENT_MATERIAL_SOURCES).nullable().optional(),
+  /** The budget of the decisive reading, term by term (records from before it have none). */
+  uncertaintyBudget: StoredLengthBudget.optional(),
   /** The readings the verdict used: corrected to the 20 °C reference temperature when temperatureCorrected. */
   correctedReadingsMm: z.array(z.number()),
   temperatureCorrected: z.boolean(),
@@ -91,6 +119,8 @@ export const StoredRuleResult = z.object({
   acceptanceLimit: figure,
   rejectionLimit: figure,
   expandedUncertainty: figure,
+  /** The nozzle rule's budget (other rules and older records: none). */
+  budget: StoredLengthBudget.optional(),
   verdict: z.enum(STORED_VERDICTS),
   explanation: z.string(),
   measured: z.boolean(),

@@ -8,6 +8,7 @@ import {
   assertNonNegative,
   assertPositive,
 } from './engine-input-error';
+import { REFERENCE_TEMPERATURE_C } from './measurement-thermal';
 
 export interface InstrumentUncertaintyInput {
   /** Rectangular error limit ±a of the instrument, mm: contributes a/sqrt(3) (JCGM 100:2008, 4.3.7). */
@@ -79,7 +80,9 @@ export function computeUncertaintyBudget(input: InstrumentUncertaintyInput): Unc
 
 /**
  * Linear thermal expansion coefficients, 1/K, near room temperature. All [memory]: typical
- * handbook values, not read from a primary source; use a measured value where it matters.
+ * handbook values (of the kind tabulated in the CRC Handbook of Chemistry and Physics, "Thermal
+ * expansion of metals and alloys"; pure aluminium 23.1e-6 /K at 25 C), not read from the table here;
+ * use a measured value where it matters. The budget counts ±10 % of each (measurement-thermal.ts).
  */
 export const THERMAL_EXPANSION_PER_K = {
   aluminium: 23e-6,
@@ -96,8 +99,8 @@ export const MATERIAL_OPTIONS: readonly { value: Material; label: string }[] = [
   { value: 'bronze', label: 'Bronze' },
 ];
 
-/** Dimensions are defined at 20 C (ISO 1:2022). */
-export const REFERENCE_TEMPERATURE_C = 20;
+/** Dimensions are defined at 20 C (ISO 1:2022); the full part-and-instrument model is in ./measurement-thermal. */
+export { REFERENCE_TEMPERATURE_C } from './measurement-thermal';
 
 export interface ThermalCorrectionInput {
   lengthMm: number;

@@ -46,6 +46,14 @@ const optionalNum = (what: string, unit: string) =>
     .nullable()
     .optional()
     .transform((v) => v ?? null);
+const temperature = (what: string) =>
+  optionalNum(what, '°C').pipe(
+    z
+      .number()
+      .min(-30, 'Temperatures run from -30 to 70 °C.')
+      .max(70, 'Temperatures run from -30 to 70 °C.')
+      .nullable(),
+  );
 const uuid = (what: string) => z.uuid({ error: `Choose ${what}.` });
 const optionalUuid = (what: string) =>
   uuid(what)
@@ -75,32 +83,68 @@ export const RecordInspectionInput = z
     kind: z.enum(INSPECTION_KINDS, { error: 'Choose the kind of inspection.' }).default('pre_race'),
     capturedAt: z.iso.datetime({ offset: true, error: 'Give the time of the inspection as an ISO date and time.' }),
     device: text('the device name', 80).default(''),
-    nozzle: z.object({
-      readings: z
-        .array(NozzleReading, { error: 'List the nozzle readings.' })
-        .min(1, 'Enter at least one reading.')
-        .max(24, 'Enter at most 24 readings.'),
-      instrumentId: optionalUuid('an instrument'),
-      expandedUncertaintyMm: optionalNum('the expanded uncertainty U', 'mm').pipe(
-        z
-          .number()
-          .min(0, 'Uncertainty cannot be negative.')
-          .max(5, 'An uncertainty above 5 mm is not credible.')
-          .nullable(),
-      ),
-      temperatureC: optionalNum('the nozzle temperature', '°C').pipe(
-        z
-          .number()
-          .min(-30, 'Temperatures run from -30 to 70 °C.')
-          .max(70, 'Temperatures run from -30 to 70 °C.')
-          .nullable(),
-      ),
-      material: z
-        .enum(MATERIALS, { error: 'Choose the nozzle material.' })
-        .nullable()
-        .optional()
-        .transform((v) => v ?? null),
-    }),
+    nozzle: z
+      .object({
+        readings: z
+          .array(NozzleReading, { error: 'List the nozzle readings.' })
+          .min(1, 'Enter at least one reading.')
+          .max(24, 'Enter at most 24 readings.'),
+        instrumentId: optionalUuid('an instrument'),
+        expandedUncertaintyMm: optionalNum('the expanded uncertainty U', 'mm').pipe(
+          z
+            .number()
+            .min(0, 'Uncertainty cannot be negative.')
+            .max(5, 'An uncertainty above 5 mm is not credible.')
+            .nullable(),
+        ),
+        /** The part's temperature under its older name (records queued before the instrument's temperature was asked). */
+        temperatureC: temperature('the nozzle temperature'),
+        /** The part's (nozzle's) temperature when measured. */
+        partTemperatureC: temperature('the nozzle temperature'),
+        /** The instrument's temperature; absent: taken as 20 °C (the record says so). */
+        instrumentTemperatureC: temperature('the instrument temperature'),
+        /** One thermometer reading for both (the form's "same as the part"). */
+        instrumentAtPartTemperature: z
+          .boolean({ error: 'Say whether the instrument is at the nozzle’s temperature.' })
+          .optional()
+          .default(false),
+        material: z
+          .enum(MATERIALS, { error: 'Choose the nozzle material.' })
+          .nullable()
+          .optional()
+          .transform((v) => v ?? null),
+        /** The instrument's material when the instrument has none on file; absent: steel, said in the record. */
+        instrumentMaterial: z
+          .enum(MATERIALS, { error: 'Choose the instrument’s material.' })
+          .nullable()
+          .optional()
+          .transform((v) => v ?? null),
+      })
+      .superRefine((n, ctx) => {
+        if (n.temperatureC != null && n.partTemperatureC != null && n.temperatureC !== n.partTemperatureC)
+          ctx.addIssue({
+            code: 'custom',
+            path: ['partTemperatureC'],
+            message: 'Give the nozzle temperature once (partTemperatureC, or the older temperatureC).',
+          });
+        if (n.instrumentAtPartTemperature && n.instrumentTemperatureC != null)
+          ctx.addIssue({
+            code: 'custom',
+            path: ['instrumentTemperatureC'],
+            message: 'Give the instrument’s temperature, or say it is the same as the nozzle’s, not both.',
+          });
+        if (n.instrumentAtPartTemperature && n.temperatureC == null && n.partTemperatureC == null)
+          ctx.addIssue({
+            code: 'custom',
+            path: ['partTemperatureC'],
+            message: 'Enter the nozzle temperature (°C): the instrument is said to be at it.',
+          });
+      })
+      // One name for the part's temperature from here on: temperatureC and partTemperatureC agree.
+      .transform((n) => {
+        const part = n.partTemperatureC ?? n.temperatureC;
+        return { ...n, temperatureC: part, partTemperatureC: part };
+      }),
     weight: z
       .object({
         readingsKg: z

@@ -4,10 +4,12 @@
 //
 // Decisive values and uncertainties:
 //   nozzle  — each two-point reading, corrected to the 20 °C reference temperature (ISO 1:2022)
-//             when the temperature and material are given; the largest counts against a maximum,
-//             the smallest against a minimum (ISO 14405-1:2016, via evaluateConformity).
+//             for the differential expansion of part and instrument when the temperature and material
+//             are given (nozzle-thermal.ts); the largest counts against a maximum, the smallest
+//             against a minimum (ISO 14405-1:2016, via evaluateConformity).
 //             U from the instrument's budget (a/√3 and δ/√12 in quadrature, k = 2; JCGM 100:2008
-//             4.3.7, F.2.2.1, 6.2.1), else the U typed on the form, else the class default.
+//             4.3.7, F.2.2.1, 6.2.1), else the U typed on the form, else the class default; when
+//             corrected, the temperature and expansion-coefficient terms join it in quadrature (5.1.2).
 //   weight  — the MEAN of the weighings. A boat's mass is one quantity, unlike the local sizes of
 //             a nozzle exit, so repeated weighings are repeat observations of it and their mean is
 //             the best estimate (JCGM 100:2008, 4.2.1). Their spread is counted: U = 2·√((U_scale/2)²
@@ -24,7 +26,15 @@
 // only declared by the entrant (`valueKind`).
 
 import { evaluateConformity, formatMm, type DecisionRule, type Verdict } from '../engine/conformity';
-import { computeUncertaintyBudget, correctLengthToReferenceTemperatureMm } from '../engine/measurement';
+import { computeUncertaintyBudget } from '../engine/measurement';
+import type { LengthBudget, ReadingUncertaintyTerm } from '../engine/measurement-thermal';
+import {
+  correctReadingMm,
+  describeThermal,
+  nozzleBudget,
+  resolveNozzleThermal,
+  type NozzleThermal,
+} from './nozzle-thermal';
 import { EngineInputError } from '../engine/engine-input-error';
 import { burdenForInspection, resolveOutcome, type BurdenOfProof, type Outcome } from '../engine/conformity-burden';
 import { SAFETY_ITEMS, type SafetyItem } from '../constants';
@@ -79,6 +89,8 @@ export type RuleResult = {
   /** ISO 14253-1 only: beyond it non-conformity is proven. */
   rejectionLimit: number | null;
   expandedUncertainty: number | null;
+  /** The nozzle's uncertainty budget, term by term (absent on other rules and on older records). */
+  budget?: LengthBudget;
   verdict: Verdict;
   explanation: string;
   measured: boolean;
@@ -96,6 +108,8 @@ export type InstrumentFigures = {
   errorLimit: number | null;
   resolution: number | null;
   expandedUncertainty: number | null;
+  /** The instrument's material on file, when it has one (else the form's, else steel is assumed). */
+  material?: string | null;
 };
 
 export type InspectionDecision = {
@@ -109,15 +123,32 @@ export type InspectionDecision = {
     temperatureCorrected: boolean;
     expandedUncertaintyMm: number;
     uncertaintyBasis: string;
+    /** What the correction used (null: not corrected). */
+    thermal: NozzleThermal | null;
+    /** The budget of the decisive reading (the maximum's when both sides are limited). */
+    budget: LengthBudget;
   };
   weight: { meanKg: number; expandedUncertaintyKg: number; uncertaintyBasis: string } | null;
   /** The checks decided (null: all of them). */
   scope: CheckArea[] | null;
 };
 
+/** The nozzle as decided; the newer temperature fields are optional (older callers and queued drafts). */
+type NozzleDecideInput = Omit<
+  RecordInspectionInput['nozzle'],
+  'partTemperatureC' | 'instrumentTemperatureC' | 'instrumentAtPartTemperature' | 'instrumentMaterial'
+> &
+  Partial<
+    Pick<
+      RecordInspectionInput['nozzle'],
+      'partTemperatureC' | 'instrumentTemperatureC' | 'instrumentAtPartTemperature' | 'instrumentMaterial'
+    >
+  >;
+
 export type DecideInput = {
   /** kind: a 'protest' inspection is decided with the class's protest burden of proof, any other with its inspection one. */
-  input: Pick<RecordInspectionInput, 'nozzle' | 'weight' | 'safety'> & { kind?: InspectionKind } & {
+  input: Pick<RecordInspectionInput, 'weight' | 'safety'> & { kind?: InspectionKind } & {
+    nozzle: NozzleDecideInput;
     power: Pick<RecordInspectionInput['power'], 'declaredKw' | 'evidenceSeen'> & { note?: string };
   };
   rules: ClassRules;
@@ -205,16 +236,12 @@ function decideNozzle(
       `The class rules ask for at least ${rules.nozzle.minReadings} readings around the exit; ${nozzle.readings.length} given.`,
     );
   }
-  const temperatureCorrected = nozzle.temperatureC != null && nozzle.material != null;
+  const thermal = resolveNozzleThermal(nozzle, d.nozzleInstrument?.material);
+  const temperatureCorrected = thermal != null;
   const correctedReadingsMm = nozzle.readings.map((r) =>
-    temperatureCorrected
-      ? correctLengthToReferenceTemperatureMm({
-          lengthMm: r.diameterMm,
-          temperatureC: nozzle.temperatureC!,
-          material: nozzle.material!,
-        })
-      : r.diameterMm,
+    thermal ? correctReadingMm(r.diameterMm, thermal) : r.diameterMm,
   );
+  const partTemperatureC = nozzle.partTemperatureC ?? nozzle.temperatureC;
   let u: { expandedUncertainty: number; basis: string };
   if (d.nozzleInstrument) {
     if (d.nozzleInstrument.quantity !== 'length')
@@ -234,19 +261,30 @@ function decideNozzle(
       basis: `the class default U ${formatMm(rules.nozzle.defaultUncertaintyMm)} mm (no instrument chosen)`,
     };
   }
-  const note = temperatureCorrected
-    ? ` Readings corrected from ${nozzle.temperatureC} °C to 20 °C (${nozzle.material?.replace('_', ' ')}, ISO 1:2022).`
-    : nozzle.temperatureC != null
+  const note = thermal
+    ? describeThermal(thermal)
+    : partTemperatureC != null
       ? ' Not corrected for temperature: the nozzle material was not given.'
       : '';
+  const readingTerms = readingTermsOf(d.nozzleInstrument ?? null, u.expandedUncertainty, u.basis);
+  const raw = nozzle.readings.map((r) => r.diameterMm);
   const results: RuleResult[] = [];
+  const budgets: LengthBudget[] = [];
   for (const side of ['max', 'min'] as const) {
     const limit = side === 'max' ? rules.nozzle.maxMm : rules.nozzle.minMm;
     if (limit == null) continue;
+    // The budget of the reading that decides this side (the correction is monotonic in the reading).
+    const budget = nozzleBudget(readingTerms, side === 'max' ? Math.max(...raw) : Math.min(...raw), thermal);
+    budgets.push(budget);
+    // Without a correction the instrument's U stands as before; with one, U = 2·u_c of the whole budget.
+    const sideU = thermal ? budget.expandedUncertaintyMm : u.expandedUncertainty;
+    const basis = thermal
+      ? `${u.basis}, with the temperature and expansion-coefficient terms (JCGM 100:2008, 5.1.2): U = 2·u_c = ${sideU.toFixed(4)} mm`
+      : u.basis;
     const r = evaluateConformity({
       readingsMm: correctedReadingsMm,
       ...(side === 'max' ? { maxMm: limit } : { minMm: limit }),
-      expandedUncertaintyMm: u.expandedUncertainty,
+      expandedUncertaintyMm: sideU,
       rule: rules.decisionRule,
     });
     const check = r.checks[0];
@@ -258,22 +296,67 @@ function decideNozzle(
       limit,
       acceptanceLimit: check.acceptanceLimitMm,
       rejectionLimit: check.rejectionLimitMm,
-      expandedUncertainty: u.expandedUncertainty,
+      expandedUncertainty: sideU,
+      budget,
       verdict: check.verdict,
-      explanation: withAsk(`${check.explanation}${note} Uncertainty: ${u.basis}.`, check.verdict),
+      explanation: withAsk(`${check.explanation}${note} Uncertainty: ${basis}.`, check.verdict),
       measured: true,
       valueKind: 'measured',
     });
   }
+  const budget = budgets[0] ?? nozzleBudget(readingTerms, Math.max(...raw), thermal);
+  const expandedUncertaintyMm = thermal ? budget.expandedUncertaintyMm : u.expandedUncertainty;
   return {
     results,
     nozzle: {
       correctedReadingsMm,
       temperatureCorrected,
-      expandedUncertaintyMm: u.expandedUncertainty,
-      uncertaintyBasis: u.basis,
+      expandedUncertaintyMm,
+      uncertaintyBasis: thermal
+        ? `${u.basis}, with the temperature and expansion-coefficient terms (JCGM 100:2008, 5.1.2): U = 2·u_c = ${expandedUncertaintyMm.toFixed(4)} mm`
+        : u.basis,
+      thermal,
+      budget,
     },
   };
+}
+
+/** The instrument's own budget rows as standard uncertainties of the reading (JCGM 100:2008, 4.3.7, F.2.2.1; U/k with k = 2). */
+function readingTermsOf(
+  i: InstrumentFigures | null,
+  expandedUncertainty: number,
+  basis: string,
+): ReadingUncertaintyTerm[] {
+  if (i && i.expandedUncertainty == null && (i.errorLimit != null || i.resolution != null)) {
+    const terms: ReadingUncertaintyTerm[] = [];
+    if (i.errorLimit != null)
+      terms.push({
+        quantity: `${i.name}: error limit a`,
+        value: i.errorLimit,
+        unit: 'mm',
+        standardUncertainty: i.errorLimit / Math.sqrt(3),
+        basis: 'rectangular: a/√3 (JCGM 100:2008, 4.3.7)',
+      });
+    if (i.resolution != null)
+      terms.push({
+        quantity: `${i.name}: resolution δ`,
+        value: i.resolution,
+        unit: 'mm',
+        standardUncertainty: i.resolution / Math.sqrt(12),
+        basis: 'rectangular: δ/√12 (JCGM 100:2008, F.2.2.1)',
+      });
+    return terms;
+  }
+  const what = i ? `${i.name}: certificate U` : basis.startsWith('U ') ? 'U as entered' : 'class default U';
+  return [
+    {
+      quantity: what,
+      value: expandedUncertainty,
+      unit: 'mm',
+      standardUncertainty: expandedUncertainty / 2,
+      basis: 'U/k, k = 2 (JCGM 100:2008, 6.2.1)',
+    },
+  ];
 }
 
 function sideCheck(value: number, side: 'max' | 'min', limit: number, u: number, rule: DecisionRule) {

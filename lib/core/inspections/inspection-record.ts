@@ -15,12 +15,13 @@ import {
 } from '../../../models/shapes/inspection-record';
 import type { ClassRules } from '../inputs/class-rules';
 import type { RecordInspectionInput } from '../inputs/inspections';
-import type { InspectionDecision, InstrumentFigures } from './decide-inspection';
+import type { DecideInput, InspectionDecision, InstrumentFigures } from './decide-inspection';
 
 export { StoredInspectionRecord, StoredMeasurements, StoredResults, StoredRuleResult };
 
 export type BuildInspectionRecordInput = {
-  input: Pick<RecordInspectionInput, 'nozzle' | 'weight' | 'safety'> & {
+  input: Pick<RecordInspectionInput, 'weight' | 'safety'> & {
+    nozzle: DecideInput['input']['nozzle'];
     power: Pick<RecordInspectionInput['power'], 'declaredKw' | 'evidenceSeen' | 'note'> &
       Partial<Pick<RecordInspectionInput['power'], 'evidenceKind'>>;
   };
@@ -53,6 +54,18 @@ export function buildInspectionRecord(b: BuildInspectionRecordInput): StoredInsp
         temperatureCorrected: decision.nozzle.temperatureCorrected,
         appliedExpandedUncertaintyMm: decision.nozzle.expandedUncertaintyMm,
         uncertaintyBasis: decision.nozzle.uncertaintyBasis,
+        // Written only with a temperature correction, so a record without one keeps the shape migration
+        // 20261203003000 brought every older row to (as evidenceKind and sealActions do below). The
+        // nozzle rule in results carries its budget in every new record.
+        ...(decision.nozzle.thermal
+          ? {
+              instrumentTemperatureC: decision.nozzle.thermal.instrumentTemperatureC,
+              instrumentTemperatureSource: decision.nozzle.thermal.instrumentTemperatureSource,
+              instrumentMaterial: decision.nozzle.thermal.instrumentMaterial,
+              instrumentMaterialSource: decision.nozzle.thermal.instrumentMaterialSource,
+              uncertaintyBudget: decision.nozzle.budget,
+            }
+          : {}),
       },
       weight: input.weight
         ? {

@@ -81,8 +81,14 @@ export type FormState = {
   uncertaintySource: UncertaintySource;
   instrumentId: string;
   typedU: string;
+  /** The nozzle's (part's) temperature. */
   temperature: string;
   material: '' | Material;
+  /** One thermometer reading for both: the instrument is at the nozzle's temperature (the default). */
+  instrumentSameAsPart: boolean;
+  instrumentTemperature: string;
+  /** '' : the instrument's own on file, else steel assumed. */
+  instrumentMaterial: '' | Material;
   weighings: string[];
   scaleId: string;
   powerKw: string;
@@ -141,6 +147,9 @@ export function initialFormState(
     typedU: '',
     temperature: '',
     material: '',
+    instrumentSameAsPart: true,
+    instrumentTemperature: '',
+    instrumentMaterial: '',
     weighings: ['', ''],
     scaleId: scaleId ?? '',
     // Pre-filled as shown on the card (0.1 kW); the stored declaration keeps its full precision.
@@ -182,8 +191,12 @@ export function draftFromForm(
       })),
       instrumentId: f.uncertaintySource === 'instrument' ? f.instrumentId || null : null,
       expandedUncertaintyMm: f.uncertaintySource === 'typed' ? (toNumber(f.typedU) as number) : null,
-      temperatureC: toOptionalNumber(f.temperature),
+      partTemperatureC: toOptionalNumber(f.temperature),
+      // "Same as the nozzle" only says something once the nozzle's temperature is given.
+      instrumentAtPartTemperature: f.instrumentSameAsPart && f.temperature.trim() !== '',
+      instrumentTemperatureC: f.instrumentSameAsPart ? null : toOptionalNumber(f.instrumentTemperature),
       material: f.material || null,
+      instrumentMaterial: f.instrumentMaterial || null,
     },
     weight: weighings.length
       ? { readingsKg: weighings.map((w) => toNumber(w) as number), instrumentId: f.scaleId || null }
@@ -225,8 +238,14 @@ export function formFromDraft(d: RecordInspectionDraft, base: FormState): FormSt
         : 'class',
     instrumentId: d.nozzle.instrumentId ?? base.instrumentId,
     typedU: str(d.nozzle.expandedUncertaintyMm),
-    temperature: str(d.nozzle.temperatureC),
+    temperature: str(d.nozzle.partTemperatureC ?? d.nozzle.temperatureC),
     material: d.nozzle.material ?? '',
+    // A draft queued before the instrument's temperature was asked said nothing of it: not "same".
+    instrumentSameAsPart:
+      d.nozzle.instrumentAtPartTemperature ??
+      (d.nozzle.instrumentTemperatureC == null && d.nozzle.temperatureC == null),
+    instrumentTemperature: str(d.nozzle.instrumentTemperatureC),
+    instrumentMaterial: d.nozzle.instrumentMaterial ?? '',
     weighings: d.weight?.readingsKg.map(str) ?? base.weighings,
     scaleId: d.weight?.instrumentId ?? base.scaleId,
     powerKw: str(d.power.declaredKw),

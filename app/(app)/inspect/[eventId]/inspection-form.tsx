@@ -327,12 +327,12 @@ export function InspectionForm({
           )}
           <div className="grid grid-cols-2 items-end gap-3">
             <DockField
-              id={id('nozzle.temperatureC')}
+              id={id('nozzle.partTemperatureC')}
               label="Nozzle temperature"
               unit="°C"
               inputMode="decimal"
               value={f.temperature}
-              error={err('nozzle.temperatureC')}
+              error={err('nozzle.partTemperatureC') ?? err('nozzle.temperatureC')}
               onChange={(e) => set('temperature', e.target.value)}
             />
             <div>
@@ -354,7 +354,55 @@ export function InspectionForm({
               </select>
             </div>
           </div>
-          <p className="text-ink-soft">With both, the readings are corrected to 20 °C (ISO 1:2022).</p>
+          <label className="flex min-h-[3rem] items-center gap-3">
+            <input
+              type="checkbox"
+              className="h-7 w-7"
+              checked={f.instrumentSameAsPart}
+              onChange={(e) => set('instrumentSameAsPart', e.target.checked)}
+              data-testid="instrument-same-temperature"
+            />
+            <span>Instrument at the same temperature as the nozzle</span>
+          </label>
+          <div className="grid grid-cols-2 items-end gap-3">
+            {!f.instrumentSameAsPart ? (
+              <DockField
+                id={id('nozzle.instrumentTemperatureC')}
+                label="Instrument temperature"
+                unit="°C"
+                inputMode="decimal"
+                value={f.instrumentTemperature}
+                error={err('nozzle.instrumentTemperatureC')}
+                onChange={(e) => set('instrumentTemperature', e.target.value)}
+              />
+            ) : (
+              <span />
+            )}
+            <div>
+              <label htmlFor={id('nozzle.instrumentMaterial')} className="field-label text-lg">
+                Instrument material
+              </label>
+              <select
+                id={id('nozzle.instrumentMaterial')}
+                className={select}
+                value={f.instrumentMaterial}
+                onChange={(e) => set('instrumentMaterial', e.target.value as FormState['instrumentMaterial'])}
+              >
+                <option value="">Steel (assumed)</option>
+                {MATERIAL_OPTIONS.map((m) => (
+                  <option key={m.value} value={m.value}>
+                    {m.label}
+                  </option>
+                ))}
+              </select>
+              {err('nozzle.instrumentMaterial') && <p className="field-error">{err('nozzle.instrumentMaterial')}</p>}
+            </div>
+          </div>
+          <p className="text-ink-soft">
+            With the nozzle’s temperature and material, the readings are corrected to 20 °C (ISO 1:2022) for the
+            expansion of both the nozzle and the instrument; left empty, the instrument is taken as at 20 °C. The
+            temperatures’ uncertainty joins U.
+          </p>
         </fieldset>
 
         {hasWeight && (

@@ -5,6 +5,7 @@ import { SafetyNote } from '@/components/safety-note';
 import { VerdictBadge } from '@/components/verdict-badge';
 import { formatFigure } from '@/lib/core/format/figures';
 import { BURDEN_WORDS } from '@/lib/core/engine/conformity-burden';
+import { BudgetTable } from './budget-table';
 
 export type ShownVerdict = {
   label: string;
@@ -124,6 +125,12 @@ export function VerdictPanel({ verdict, onNext }: { verdict: ShownVerdict; onNex
               </p>
             )}
             <p className="text-ink-soft">{r.explanation}</p>
+            {r.budget && (
+              <BudgetTable
+                budget={r.budget}
+                caption={`${r.label}: the decisive reading corrected to 20 °C; terms combined by the law of propagation (JCGM 100:2008, 5.1.2), k = 2.`}
+              />
+            )}
           </li>
         ))}
       </ul>

@@ -252,7 +252,13 @@ test('the form becomes the inspection input: numbers from typed text (a comma is
   ]);
   assert.equal(d.nozzle.expandedUncertaintyMm, 0.05);
   assert.equal(d.nozzle.instrumentId, null, 'typed U: no instrument');
-  assert.equal(d.nozzle.temperatureC, null, 'an empty temperature is "not given"');
+  assert.equal(d.nozzle.partTemperatureC, null, 'an empty temperature is "not given"');
+  assert.equal(
+    d.nozzle.instrumentAtPartTemperature,
+    false,
+    '"same as the nozzle" says nothing without its temperature',
+  );
+  assert.equal(d.nozzle.instrumentTemperatureC, null);
   assert.equal(d.nozzle.material, 'aluminium');
   assert.deepEqual(d.weight, { readingsKg: [512.5, 513], instrumentId: null });
   assert.deepEqual(d.power, {
@@ -321,7 +327,18 @@ test('a correction sends its reason; a queued draft loads back into the same for
   const d = draftFromForm(f, t, META);
   assert.equal(d.correctionReason, 'wrong boat');
   assert.equal(d.kind, 'spot_check');
-  assert.equal(d.nozzle.temperatureC, 35);
+  // The form sends the nozzle's temperature as partTemperatureC (the schema keeps temperatureC as its older name).
+  assert.equal(d.nozzle.partTemperatureC, 35);
+  assert.equal(d.nozzle.instrumentAtPartTemperature, true, 'the instrument at the nozzle’s temperature by default');
+  const apart = draftFromForm({ ...f, instrumentSameAsPart: false, instrumentTemperature: '24,5' }, t, META);
+  assert.deepEqual([apart.nozzle.instrumentAtPartTemperature, apart.nozzle.instrumentTemperatureC], [false, 24.5]);
+  assert.equal(formFromDraft(apart, initialFormState(t, null, null)).instrumentTemperature, '24.5');
+  // A draft queued before the instrument's temperature was asked: the part's temperature only, not "same".
+  const older = formFromDraft(
+    { ...d, nozzle: { readings: d.nozzle.readings, temperatureC: 30 } },
+    initialFormState(t, null, null),
+  );
+  assert.deepEqual([older.temperature, older.instrumentSameAsPart], ['30', false]);
   const back = formFromDraft(d, initialFormState(t, null, null));
   assert.deepEqual(
     back.readings,

@@ -155,9 +155,34 @@ test('the record stores the readings corrected to 20 °C (ISO 1:2022; aluminium 
 });
 
 test('the record stores the applied U from the instrument budget (JCGM 100:2008 4.3.7, F.2.2.1, 6.2.1) and names the instrument', () => {
-  const { nozzle } = build().measurements;
+  // Without a temperature the budget is the instrument's alone: U = 0.035119 mm, as before issue 16.
+  const { nozzle } = build({ nozzle: { instrumentId: CALIPER.id } }).measurements;
   assert.ok(Math.abs(nozzle.appliedExpandedUncertaintyMm - 0.035119) < 1e-6, `${nozzle.appliedExpandedUncertaintyMm}`);
   assert.equal(nozzle.instrumentName, 'Test caliper');
+  assert.equal('uncertaintyBudget' in nozzle, false, 'no correction: the nozzle keeps the older shape');
+  const rule = build({ nozzle: { instrumentId: CALIPER.id } }).results.rules.find((r) => r.rule === 'nozzle_max')!;
+  assert.equal(rule.budget?.terms.length, 2, 'a and δ only, stored with the rule');
+  // With the older temperatureC (30 °C, aluminium): the part at 30 °C, the instrument taken as at 20 °C
+  // (steel assumed, 11.5e-6 /K [memory]); the temperature terms join the budget (JCGM 100:2008, 5.1.2).
+  // Hand computation of L20 = L·N/D, N = 1 + α_i·0, D = 1 + α_p·10, at the largest reading L = 100.02 mm:
+  const L = 100.02;
+  const D = 1 + 23e-6 * 10;
+  const uT = 1 / Math.sqrt(3); // thermometer ±1 °C, rectangular (4.3.7)
+  const contributions = [
+    0.03 / Math.sqrt(3) / D, // a/√3 · ∂L20/∂L
+    0.01 / Math.sqrt(12) / D, // δ/√12 · ∂L20/∂L
+    ((L * 23e-6) / (D * D)) * uT, // |∂L20/∂t_p| u(t_p)
+    ((L * 11.5e-6) / D) * uT, // |∂L20/∂t_i| u(t_i)
+    ((L * 10) / (D * D)) * ((0.1 * 23e-6) / Math.sqrt(3)), // |∂L20/∂α_p| u(α_p), ±10 % rectangular
+    0, // ∂L20/∂α_i = L·(t_i − 20)/D = 0 with the instrument at 20 °C
+  ];
+  const handU = 2 * Math.sqrt(contributions.reduce((a, c) => a + c * c, 0));
+  const warm = build().measurements.nozzle;
+  assert.ok(Math.abs(handU - 0.035336) < 1e-6, `hand U ${handU}`);
+  assert.ok(Math.abs(warm.appliedExpandedUncertaintyMm - handU) < 1e-9, `${warm.appliedExpandedUncertaintyMm}`);
+  assert.equal(warm.instrumentTemperatureSource, 'assumed_reference');
+  assert.equal(warm.instrumentMaterialSource, 'assumed_steel');
+  assert.equal(warm.uncertaintyBudget?.terms.length, 6);
   assert.equal(nozzle.typedExpandedUncertaintyMm, null);
   const typed = build({ nozzle: { expandedUncertaintyMm: 0.08 } }).measurements.nozzle;
   assert.equal(typed.typedExpandedUncertaintyMm, 0.08);
@@ -200,7 +225,8 @@ test('the report reads the corrected readings the record stores, not a recomputa
   const record = build();
   const read = readRecordForReport(record.measurements, record.results);
   assert.deepEqual(read.correctedReadingsMm, record.measurements.nozzle.correctedReadingsMm);
-  assert.ok(Math.abs(read.nozzleExpandedUncertaintyMm! - 0.035119) < 1e-6);
+  // The U the verdict decided with: the caliper's budget with the temperature terms (hand-computed above).
+  assert.ok(Math.abs(read.nozzleExpandedUncertaintyMm! - 0.035336) < 1e-6, `${read.nozzleExpandedUncertaintyMm}`);
   assert.equal(read.evidenceSeen, true);
   // What is stored is what counts: a stored list is read as it stands.
   const stored = {
