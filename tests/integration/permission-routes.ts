@@ -270,6 +270,18 @@ export const ROUTES: Row[] = [
     path: (i) => `${ev(i)}/instruments/${i.missingId}/retire`,
     access: { anyOf: ['instrument.manage'] },
   },
+  {
+    method: 'POST',
+    file: `${E}/instruments/[instrumentId]/certificates/route.ts`,
+    path: (i) => `${ev(i)}/instruments/${i.missingId}/certificates`,
+    access: { anyOf: ['instrument.manage'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/instruments/[instrumentId]/checks/route.ts`,
+    path: (i) => `${ev(i)}/instruments/${i.missingId}/checks`,
+    access: { anyOf: ['instrument.manage'] },
+  },
   // The seal register
   {
     method: 'GET',

@@ -92,6 +92,8 @@ export type InstrumentFigures = {
   errorLimit: number | null;
   resolution: number | null;
   expandedUncertainty: number | null;
+  /** Where expandedUncertainty comes from when a calibration certificate gives it ("certificate C-1 of …, U … (k = 2)"). */
+  uncertaintySource?: string | null;
 };
 
 export type InspectionDecision = {
@@ -135,7 +137,7 @@ export function instrumentUncertainty(
   if (i.expandedUncertainty != null)
     return {
       expandedUncertainty: i.expandedUncertainty,
-      basis: `${i.name}: certificate U ${formatFigure(i.expandedUncertainty, 2)} ${unit}`,
+      basis: `${i.name}: certificate U ${formatFigure(i.expandedUncertainty, 2)} ${unit}${i.uncertaintySource ? ` (${i.uncertaintySource})` : ''}`,
     };
   const b = computeUncertaintyBudget({ errorLimitMm: i.errorLimit ?? 0, resolutionMm: i.resolution ?? 0 });
   const parts = [
