@@ -111,6 +111,21 @@ test('a valid certificate is stored with its file’s SHA-256 and its stated U i
     [added.body.data.id],
   );
   assert.ok(row.object_key, 'the file went to object storage under an app-made key');
+  const fileUrl = `/api/events/${meeting.eventId}/instruments/${id}/certificates/${added.body.data.id}/file`;
+  const download = await scrutineer.fetch(fileUrl);
+  assert.equal(download.status, 200);
+  assert.equal(download.headers.get('x-content-type-options'), 'nosniff');
+  assert.match(
+    download.headers.get('content-disposition') ?? '',
+    /^attachment; filename="certificate-TW-CAL-0042\.pdf"$/,
+  );
+  assert.equal(
+    createHash('sha256')
+      .update(new Uint8Array(await download.arrayBuffer()))
+      .digest('hex'),
+    row.sha256,
+  );
+  assert.equal((await new HttpSession().fetch(fileUrl)).status, 401);
 
   const view = await listed(id);
   assert.equal(view.calibration.status, 'valid');

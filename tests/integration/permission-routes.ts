@@ -277,6 +277,12 @@ export const ROUTES: Row[] = [
     access: { anyOf: ['instrument.manage'] },
   },
   {
+    method: 'GET',
+    file: `${E}/instruments/[instrumentId]/certificates/[certificateId]/file/route.ts`,
+    path: (i) => `${ev(i)}/instruments/${i.missingId}/certificates/${i.missingId}/file`,
+    access: { anyOf: ['inspection.board'] },
+  },
+  {
     method: 'POST',
     file: `${E}/instruments/[instrumentId]/checks/route.ts`,
     path: (i) => `${ev(i)}/instruments/${i.missingId}/checks`,

@@ -14,6 +14,8 @@ export type CertificateFacts = {
   dueOn: string;
   expandedUncertainty: number | null;
   coverageFactor: number;
+  /** Whether the certificate's file is stored (the demo's certificates have none). */
+  hasFile?: boolean;
 };
 
 export type CheckFacts = {

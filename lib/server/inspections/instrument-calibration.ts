@@ -15,6 +15,7 @@ export function toCertificateFacts(c: CalibrationCertificate): CertificateFacts 
     dueOn: String(c.dueOn),
     expandedUncertainty: c.expandedUncertainty ?? null,
     coverageFactor: Number(c.coverageFactor),
+    hasFile: c.objectKey != null,
   };
 }
 

@@ -90,6 +90,16 @@ export default async function InstrumentsPage({ params }: { params: Promise<{ ev
                       <span className="font-bold">{STATE_LABEL[i.calibration.status]}</span>: {i.calibration.reason}
                       {i.calibration.certificate && ` · ${i.calibration.certificate.laboratory}`}
                     </p>
+                    {i.calibration.certificate?.hasFile && (
+                      <p className="text-base">
+                        <a
+                          href={`/api/events/${eventId}/instruments/${i.id}/certificates/${i.calibration.certificate.id}/file`}
+                          download
+                        >
+                          Certificate {i.calibration.certificate.number} (file)
+                        </a>
+                      </p>
+                    )}
                   </div>
                   {canManage && <RetireInstrumentButton eventId={eventId} instrumentId={i.id} name={i.name} />}
                 </div>
