@@ -81,3 +81,40 @@ test('on a phone the dock lists an overdue instrument disabled, says why and nam
   await screenshot(dock, 'dock-calibration-01-overdue-disabled');
   await ctx.close();
 });
+
+test('on a phone the chief scrutineer records a failed check and the instrument shows out of use today', async () => {
+  const meeting = await new InspectionMeeting().create(`Check screen ${Date.now()}`, [
+    { email: DEMO.chief, role: 'chief_scrutineer' },
+  ]);
+  const chiefApi = new HttpSession();
+  await chiefApi.signInWithPassword(DEMO.chief, DEMO_PASSWORD);
+  const name = `Caliper to check ${Date.now().toString(36)}`;
+  const added = await chiefApi.json(`/api/events/${meeting.eventId}/instruments`, {
+    name,
+    quantity: 'length',
+    errorLimit: 0.02,
+    resolution: 0.01,
+  });
+  assert.equal(added.res.status, 201, JSON.stringify(added.body));
+
+  const ctx = await newContext(browser, PHONE);
+  const page = await ctx.newPage();
+  await signInWithPassword(page, DEMO.chief, DEMO_PASSWORD);
+  await page.goto(`/inspect/${meeting.eventId}/instruments`);
+  const item = page.getByTestId('instruments-in-service').locator('li', { hasText: name });
+  await item.waitFor();
+  await item.locator('[data-calibration-status="no_certificate"]').waitFor();
+  await item.getByRole('button', { name: 'Record today’s check…' }).click();
+  await item.getByLabel('Reference used').fill('Gauge block 100 mm, set B');
+  await item.getByLabel('Its nominal value').fill('100');
+  await item.getByLabel('Instrument reading').fill('100.09');
+  await item.getByLabel('Result').selectOption('no');
+  await item.getByRole('button', { name: 'Record the check' }).click();
+  const out = item.locator('[data-calibration-status="failed_check"]');
+  await out.waitFor();
+  assert.match(await out.innerText(), /Out of use today: failed its check/);
+  const width = await page.evaluate(() => document.documentElement.scrollWidth);
+  assert.ok(width <= 390, `the screen fits a phone (${width} px wide)`);
+  await screenshot(page, 'instruments-03-failed-check');
+  await ctx.close();
+});
