@@ -7,6 +7,7 @@ import { RaceClass, ClassRuleVersion, initRaceClasses } from './race-class';
 import { Boat, BoatDeclarationVersion, BoatDocument, BoatTag, initBoats } from './boat';
 import { Entry, PaymentEvent, initEntries } from './entry';
 import { Instrument, Inspection, InspectionPhoto, Reinspection, initInspections } from './inspection';
+import { CalibrationCertificate, InstrumentCheck, initInstrumentCalibration } from './instrument-calibration';
 import { ParityReport, initParityReports } from './parity-report';
 import { ProvisionalResults, initProvisionalResults } from './provisional-results';
 import { Protest, ProtestEvidence, initProtests } from './protest';
@@ -34,6 +35,7 @@ export function initModels(sequelize: Sequelize) {
   initBoats(sequelize);
   initEntries(sequelize);
   initInspections(sequelize);
+  initInstrumentCalibration(sequelize);
   initParityReports(sequelize);
   initProvisionalResults(sequelize);
   initProtests(sequelize);
@@ -115,6 +117,8 @@ export function initModels(sequelize: Sequelize) {
     Entry,
     PaymentEvent,
     Instrument,
+    CalibrationCertificate,
+    InstrumentCheck,
     Inspection,
     InspectionPhoto,
     Reinspection,
@@ -157,6 +161,8 @@ export {
   Entry,
   PaymentEvent,
   Instrument,
+  CalibrationCertificate,
+  InstrumentCheck,
   Inspection,
   InspectionPhoto,
   Reinspection,

@@ -20,6 +20,12 @@ export class Instrument extends Model<InferAttributes<Instrument>, InferCreation
   declare errorLimit: CreationOptional<number | null>;
   declare resolution: CreationOptional<number | null>;
   declare expandedUncertainty: CreationOptional<number | null>;
+  /** What kind of instrument (caliper, bore gauge, …), its serial, measuring range and material; null on older rows. */
+  declare instrumentType: CreationOptional<string | null>;
+  declare serial: CreationOptional<string | null>;
+  declare rangeMin: CreationOptional<number | null>;
+  declare rangeMax: CreationOptional<number | null>;
+  declare material: CreationOptional<string | null>;
   declare retiredAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -85,6 +91,11 @@ export function initInspections(sequelize: Sequelize) {
       errorLimit: { type: DataTypes.DOUBLE },
       resolution: { type: DataTypes.DOUBLE },
       expandedUncertainty: { type: DataTypes.DOUBLE },
+      instrumentType: { type: DataTypes.STRING(40) },
+      serial: { type: DataTypes.STRING(80) },
+      rangeMin: { type: DataTypes.DOUBLE },
+      rangeMax: { type: DataTypes.DOUBLE },
+      material: { type: DataTypes.STRING(40) },
       retiredAt: { type: DataTypes.DATE },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,

@@ -6,7 +6,7 @@ import { createHash } from 'node:crypto';
 import pg from 'pg';
 import { decideInspection } from '../lib/core/inspections/decide-inspection';
 import { buildInspectionRecord } from '../lib/core/inspections/inspection-record';
-import { toInstrumentFigures } from '../lib/core/inspections/instrument-figures';
+import { toInstrumentFigures, withCertificateFigures } from '../lib/core/inspections/instrument-figures';
 import { RecordInspectionInput } from '../lib/core/inputs/inspections';
 import type { ClassRules } from '../lib/core/inputs/class-rules';
 
@@ -30,7 +30,27 @@ async function main() {
       [[CALIPER, SCALE]],
     )
   ).rows;
-  const figures = (id: string) => toInstrumentFigures(instruments.find((x) => x.id === id)!);
+  // The latest certificate of each (seeders/20261203006100-demo-calibration.js): its stated U is what the verdict uses.
+  const certificates = (
+    await db.query(
+      `select distinct on (instrument_id) instrument_id as "instrumentId", number, laboratory,
+              expanded_uncertainty as "expandedUncertainty", coverage_factor as "coverageFactor"
+         from calibration_certificates where instrument_id = any($1) and due_on >= current_date
+        order by instrument_id, calibrated_on desc`,
+      [[CALIPER, SCALE]],
+    )
+  ).rows as {
+    instrumentId: string;
+    number: string;
+    laboratory: string;
+    expandedUncertainty: number | null;
+    coverageFactor: number;
+  }[];
+  const figures = (id: string) =>
+    withCertificateFigures(
+      toInstrumentFigures(instruments.find((x) => x.id === id)!),
+      certificates.find((c) => c.instrumentId === id) ?? null,
+    );
   const entries = (
     await db.query(
       `select e.id, e.boat_id, e.class_id, b.declared_nozzle_mm, b.declared_power_kw, b.declared_weight_kg, b.power_evidence,

@@ -270,6 +270,24 @@ export const ROUTES: Row[] = [
     path: (i) => `${ev(i)}/instruments/${i.missingId}/retire`,
     access: { anyOf: ['instrument.manage'] },
   },
+  {
+    method: 'POST',
+    file: `${E}/instruments/[instrumentId]/certificates/route.ts`,
+    path: (i) => `${ev(i)}/instruments/${i.missingId}/certificates`,
+    access: { anyOf: ['instrument.manage'] },
+  },
+  {
+    method: 'GET',
+    file: `${E}/instruments/[instrumentId]/certificates/[certificateId]/file/route.ts`,
+    path: (i) => `${ev(i)}/instruments/${i.missingId}/certificates/${i.missingId}/file`,
+    access: { anyOf: ['inspection.board'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/instruments/[instrumentId]/checks/route.ts`,
+    path: (i) => `${ev(i)}/instruments/${i.missingId}/checks`,
+    access: { anyOf: ['instrument.manage'] },
+  },
   // The seal register
   {
     method: 'GET',

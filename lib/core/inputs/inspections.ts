@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { SAFETY_ITEM_KEYS, type SafetyItem } from '../constants';
 import { MATERIAL_OPTIONS, type Material } from '../engine/measurement';
 import { InspectionSealsInput } from './seals';
+import { INSTRUMENT_TYPES } from './instrument-calibration';
 
 // Inspection input, shared by the dock form (also offline, before queuing) and the server.
 // Figures arrive as JSON numbers in mm, degrees, °C, kg and kW; a string for a number is refused.
@@ -275,6 +276,22 @@ export const AddInstrumentInput = z
     expandedUncertainty: optionalNum('the expanded uncertainty U', 'mm or kg').pipe(
       z.number().min(0, 'U cannot be negative.').max(100, 'Keep U at or below 100.').nullable(),
     ),
+    // What identifies it (all optional: an instrument added before calibration records had none).
+    instrumentType: z
+      .enum(INSTRUMENT_TYPES, { error: 'Choose the kind of instrument from the list.' })
+      .nullable()
+      .optional()
+      .transform((v) => v ?? null),
+    serial: text('the serial number', 80)
+      .nullable()
+      .optional()
+      .transform((v) => (v ? v : null)),
+    rangeMin: optionalNum('the start of the measuring range', 'mm or kg'),
+    rangeMax: optionalNum('the end of the measuring range', 'mm or kg'),
+    material: text('the material', 40)
+      .nullable()
+      .optional()
+      .transform((v) => (v ? v : null)),
   })
   .superRefine((v, ctx) => {
     if (v.errorLimit == null && v.resolution == null && v.expandedUncertainty == null) {
@@ -284,6 +301,8 @@ export const AddInstrumentInput = z
         message: 'Give the error limit and resolution, or the certificate’s U.',
       });
     }
+    if (v.rangeMin != null && v.rangeMax != null && v.rangeMax <= v.rangeMin)
+      ctx.addIssue({ code: 'custom', path: ['rangeMax'], message: 'The range ends above where it starts.' });
   });
 export type AddInstrumentInput = z.infer<typeof AddInstrumentInput>;
 

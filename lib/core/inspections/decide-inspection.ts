@@ -110,6 +110,8 @@ export type InstrumentFigures = {
   expandedUncertainty: number | null;
   /** The instrument's material on file, when it has one (else the form's, else steel is assumed). */
   material?: string | null;
+  /** Where expandedUncertainty comes from when a calibration certificate gives it ("certificate C-1 of …, U … (k = 2)"). */
+  uncertaintySource?: string | null;
 };
 
 export type InspectionDecision = {
@@ -174,7 +176,7 @@ export function instrumentUncertainty(
   if (i.expandedUncertainty != null)
     return {
       expandedUncertainty: i.expandedUncertainty,
-      basis: `${i.name}: certificate U ${formatFigure(i.expandedUncertainty, 2)} ${unit}`,
+      basis: `${i.name}: certificate U ${formatFigure(i.expandedUncertainty, 2)} ${unit}${i.uncertaintySource ? ` (${i.uncertaintySource})` : ''}`,
     };
   const b = computeUncertaintyBudget({ errorLimitMm: i.errorLimit ?? 0, resolutionMm: i.resolution ?? 0 });
   const parts = [

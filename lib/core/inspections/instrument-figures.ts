@@ -32,3 +32,28 @@ export function toInstrumentFigures(row: InstrumentRow): InstrumentFigures {
     expandedUncertainty: toFigure(row.expandedUncertainty),
   };
 }
+
+/**
+ * The instrument's figures with its calibration certificate's stated U when the certificate gives
+ * one: U is restated at k = 2 (u = U/k, JCGM 100:2008, 6.2.1 and 6.3.3) and its source is named, so
+ * the record's uncertainty basis says which certificate the verdict used. Without a certificate U
+ * the figures are returned unchanged.
+ */
+export function withCertificateFigures(
+  figures: InstrumentFigures,
+  certificate: {
+    number: string;
+    laboratory: string;
+    expandedUncertainty: number | null;
+    coverageFactor: number;
+  } | null,
+): InstrumentFigures {
+  if (!certificate || certificate.expandedUncertainty == null) return figures;
+  const k = certificate.coverageFactor > 0 ? certificate.coverageFactor : 2;
+  const u2 = (certificate.expandedUncertainty / k) * 2;
+  return {
+    ...figures,
+    expandedUncertainty: u2,
+    uncertaintySource: `certificate ${certificate.number}, ${certificate.laboratory}, stated U ${certificate.expandedUncertainty} with k = ${k}`,
+  };
+}

@@ -4,7 +4,9 @@ import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import type { Instrument } from '@/models';
 import { instrumentUncertainty } from '../../core/inspections/decide-inspection';
-import { toInstrumentFigures } from '../../core/inspections/instrument-figures';
+import { toInstrumentFigures, withCertificateFigures } from '../../core/inspections/instrument-figures';
+import { calibrationState, type CalibrationState } from '../../core/inspections/calibration-state';
+import { eventTimeZone, loadCalibrationFacts, type CalibrationFacts } from './instrument-calibration';
 
 export type InstrumentView = {
   id: string;
@@ -16,11 +18,25 @@ export type InstrumentView = {
   /** U the verdicts will use (k = 2), from the certificate or the budget of a and δ. */
   appliedExpandedUncertainty: number;
   basis: string;
+  /** What kind of instrument, its serial, measuring range and material (null when not given). */
+  instrumentType: string | null;
+  serial: string | null;
+  rangeMin: number | null;
+  rangeMax: number | null;
+  material: string | null;
+  /** Its calibration state now, in the meeting's time zone (certificate due date, today's check). */
+  calibration: CalibrationState;
   /** When it was taken out of service (null while in service). */
   retiredAt: string | null;
 };
 
-/** The meeting's instruments in service, with the U each brings to a decision. */
+async function withCalibration(eventId: string, rows: Instrument[]): Promise<InstrumentView[]> {
+  const [facts, timeZone] = await Promise.all([loadCalibrationFacts(rows.map((r) => r.id)), eventTimeZone(eventId)]);
+  const now = new Date();
+  return rows.map((r) => toInstrumentView(r, facts.get(r.id), timeZone ?? 'UTC', now));
+}
+
+/** The meeting's instruments in service, with the U each brings to a decision and its calibration state. */
 export async function listInstruments(actor: Actor | null, eventId: string): Promise<InstrumentView[]> {
   assertCan(actor, 'inspection.board', { eventId });
   const rows = await getDb().models.Instrument.findAll({
@@ -30,7 +46,7 @@ export async function listInstruments(actor: Actor | null, eventId: string): Pro
       ['name', 'ASC'],
     ],
   });
-  return rows.map(toInstrumentView);
+  return withCalibration(eventId, rows);
 }
 
 /** All of the meeting's instruments, retired ones too (in service first), for the screen that manages them. */
@@ -44,16 +60,34 @@ export async function listAllInstruments(actor: Actor | null, eventId: string): 
       ['name', 'ASC'],
     ],
   });
-  return rows.map(toInstrumentView);
+  return withCalibration(eventId, rows);
 }
 
-export function toInstrumentView(i: Instrument): InstrumentView {
-  const figures = toInstrumentFigures(i);
+/** One instrument's view, with its certificates and checks (none given: no certificate on file). */
+export function toInstrumentView(
+  i: Instrument,
+  facts: CalibrationFacts = { certificates: [], checks: [] },
+  timeZone = 'UTC',
+  at: Date = new Date(),
+): InstrumentView {
+  const calibration = calibrationState(facts.certificates, facts.checks, at, timeZone);
+  const figures = withCertificateFigures(toInstrumentFigures(i), calibration.certificate);
   const u = instrumentUncertainty(figures, i.quantity === 'length' ? 'mm' : 'kg');
   return {
-    ...figures,
+    id: figures.id,
+    name: figures.name,
+    quantity: figures.quantity,
+    errorLimit: figures.errorLimit,
+    resolution: figures.resolution,
+    expandedUncertainty: toInstrumentFigures(i).expandedUncertainty,
     appliedExpandedUncertainty: u.expandedUncertainty,
     basis: u.basis,
+    instrumentType: i.instrumentType ?? null,
+    serial: i.serial ?? null,
+    rangeMin: i.rangeMin ?? null,
+    rangeMax: i.rangeMax ?? null,
+    material: i.material ?? null,
+    calibration,
     retiredAt: i.retiredAt ? new Date(i.retiredAt).toISOString() : null,
   };
 }

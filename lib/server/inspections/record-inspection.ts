@@ -21,7 +21,9 @@ import {
   type InspectionDecision,
 } from '../../core/inspections/decide-inspection';
 import { buildInspectionRecord } from '../../core/inspections/inspection-record';
-import { toInstrumentFigures } from '../../core/inspections/instrument-figures';
+import { toInstrumentFigures, withCertificateFigures } from '../../core/inspections/instrument-figures';
+import { calibrationState } from '../../core/inspections/calibration-state';
+import { eventTimeZone, loadCalibrationFacts } from './instrument-calibration';
 import { currentInspectionCte, loadInspectionViews, type InspectionView } from './inspection-view';
 import { planInspectionSeals, writeInspectionSealEvents } from '@/lib/server/seals/inspection-seals';
 
@@ -48,6 +50,7 @@ async function findInstrument(
   id: string | null,
   quantity: 'length' | 'mass',
   field: string,
+  measuredAt: Date,
 ): Promise<InstrumentFigures | null> {
   if (!id) return null;
   const i = await getDb().models.Instrument.findOne({ where: { id, eventId, retiredAt: null } });
@@ -59,7 +62,14 @@ async function findInstrument(
         ? `${i.name} is a scale: choose a length instrument.`
         : `${i.name} measures length: choose a scale.`,
     );
-  return toInstrumentFigures(i);
+  // Its calibration at the moment the boat was measured (a record that waited offline is judged by
+  // its capture time, so one taken before the due date or before a failed check still counts).
+  const [facts, timeZone] = await Promise.all([loadCalibrationFacts([i.id]), eventTimeZone(eventId)]);
+  const f = facts.get(i.id) ?? { certificates: [], checks: [] };
+  const calibration = calibrationState(f.certificates, f.checks, measuredAt, timeZone ?? 'UTC');
+  if (!calibration.usable)
+    throw fieldError(field, `${i.name} cannot be used: ${calibration.reason}. Choose another instrument.`, 409);
+  return withCertificateFigures(toInstrumentFigures(i), calibration.certificate);
 }
 
 /** The stored record for a key; a key used at another meeting is a conflict, never a leak. */
@@ -184,8 +194,8 @@ export async function recordInspection(
     );
   }
   const [nozzleInstrument, weightInstrument] = await Promise.all([
-    findInstrument(eventId, input.nozzle.instrumentId, 'length', 'nozzle.instrumentId'),
-    findInstrument(eventId, input.weight?.instrumentId ?? null, 'mass', 'weight.instrumentId'),
+    findInstrument(eventId, input.nozzle.instrumentId, 'length', 'nozzle.instrumentId', measuredAt),
+    findInstrument(eventId, input.weight?.instrumentId ?? null, 'mass', 'weight.instrumentId', measuredAt),
   ]);
   // The dyno sheet must be one of this boat's own uploaded documents.
   let dynoDocument: { id: string; fileName: string } | null = null;

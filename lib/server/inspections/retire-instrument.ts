@@ -4,6 +4,7 @@ import { type Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
 import { toInstrumentView, type InstrumentView } from './list-instruments';
 import { assertCanManageInstruments } from './manage-instruments-access';
+import { eventTimeZone, loadCalibrationFacts } from './instrument-calibration';
 
 /**
  * Takes an instrument out of service at this meeting (dropped, out of calibration, gone home).
@@ -22,7 +23,10 @@ export async function retireInstrument(
     { retiredAt: new Date() },
     { where: { id: instrumentId, eventId, retiredAt: null }, returning: true },
   );
-  if (count === 1) return toInstrumentView(rows[0]);
+  if (count === 1) {
+    const [facts, timeZone] = await Promise.all([loadCalibrationFacts([instrumentId]), eventTimeZone(eventId)]);
+    return toInstrumentView(rows[0], facts.get(instrumentId), timeZone ?? 'UTC');
+  }
   const existing = await models.Instrument.findOne({ where: { id: instrumentId, eventId } });
   if (!existing) throw new AppError('not_found', 404, 'No such instrument at this meeting.');
   throw new AppError('conflict', 409, `${existing.name} was already retired.`);

@@ -102,8 +102,9 @@ export function DockScreen({
   // Read after hydration: the server has no phone name (an empty name until then).
   const device = useSyncExternalStore(subscribeToNothing, deviceName, () => '');
   const verdictRef = useRef<HTMLDivElement>(null);
-  const defaultLength = instruments.find((i) => i.quantity === 'length')?.id ?? null;
-  const defaultScale = instruments.find((i) => i.quantity === 'mass')?.id ?? null;
+  // The first usable one (an overdue instrument, or one out of use after a failed check today, is never preselected).
+  const defaultLength = instruments.find((i) => i.quantity === 'length' && i.calibration.usable)?.id ?? null;
+  const defaultScale = instruments.find((i) => i.quantity === 'mass' && i.calibration.usable)?.id ?? null;
 
   // Keep the phone's copy of the entries (and class rules) fresh whenever there is a signal.
   const refreshSnapshot = useCallback(async () => {

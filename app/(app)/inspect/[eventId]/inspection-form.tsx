@@ -19,6 +19,7 @@ import {
   type InspectionDecision,
 } from '@/lib/core/inspections/decide-inspection';
 import type { InstrumentView } from '@/lib/server/inspections/list-instruments';
+import { RefusedInstruments } from './refused-instruments';
 import { SafetyNote } from '@/components/safety-note';
 import { formatFigure } from '@/lib/core/format/figures';
 import type { FormState as ActionState } from '@/components/forms/request-json';
@@ -301,12 +302,14 @@ export function InspectionForm({
               >
                 <option value="">Choose…</option>
                 {lengthInstruments.map((i) => (
-                  <option key={i.id} value={i.id}>
+                  <option key={i.id} value={i.id} disabled={!i.calibration.usable}>
                     {i.name} (U{' '}
                     {formatFigure(i.appliedExpandedUncertainty, i.quantity === 'length' ? 'uncertaintyMm' : 'massKg')})
+                    {i.calibration.usable ? '' : ' (cannot be chosen)'}
                   </option>
                 ))}
               </select>
+              <RefusedInstruments instruments={lengthInstruments} testId="refused-length-instruments" />
               {err('nozzle.instrumentId') && (
                 <p className="field-error text-lg" data-field-error="nozzle.instrumentId">
                   {err('nozzle.instrumentId')}
@@ -444,11 +447,13 @@ export function InspectionForm({
               >
                 <option value="">Class default uncertainty</option>
                 {scales.map((i) => (
-                  <option key={i.id} value={i.id}>
+                  <option key={i.id} value={i.id} disabled={!i.calibration.usable}>
                     {i.name}
+                    {i.calibration.usable ? '' : ' (cannot be chosen)'}
                   </option>
                 ))}
               </select>
+              <RefusedInstruments instruments={scales} testId="refused-scales" />
               {err('weight.instrumentId') && <p className="field-error text-lg">{err('weight.instrumentId')}</p>}
             </div>
           </fieldset>

@@ -7,6 +7,7 @@ import { FieldError, FormMessage } from '@/components/forms/form-message';
 import { refusalState, requestJson, type FormState } from '@/components/forms/request-json';
 import { useFormAction } from '@/components/forms/use-form-action';
 import { numberOrNull } from '@/lib/core/inputs/form-values';
+import { INSTRUMENT_TYPES, INSTRUMENT_TYPE_LABELS } from '@/lib/core/inputs/instrument-calibration';
 
 /** Put an instrument on the meeting's list: what it measures, and its error limit and resolution or its certificate's U. */
 export function AddInstrumentForm({ eventId }: { eventId: string }) {
@@ -20,6 +21,11 @@ export function AddInstrumentForm({ eventId }: { eventId: string }) {
           errorLimit: numberOrNull(f.get('errorLimit')),
           resolution: numberOrNull(f.get('resolution')),
           expandedUncertainty: numberOrNull(f.get('expandedUncertainty')),
+          instrumentType: f.get('instrumentType') || null,
+          serial: f.get('serial') || null,
+          rangeMin: numberOrNull(f.get('rangeMin')),
+          rangeMax: numberOrNull(f.get('rangeMax')),
+          material: f.get('material') || null,
         },
       });
       if (!answer.ok) return refusalState(answer);
@@ -58,6 +64,32 @@ export function AddInstrumentForm({ eventId }: { eventId: string }) {
             <option value="mass">Mass: a scale (kg)</option>
           </select>
           <FieldError name="quantity" error={fieldErrors.quantity} />
+        </div>
+        <div className="grid gap-3 sm:grid-cols-2">
+          <div>
+            <label htmlFor="instrumentType" className="field-label">
+              Kind of instrument
+            </label>
+            <select id="instrumentType" name="instrumentType" className="field-input min-h-touch" defaultValue="">
+              <option value="">Not said</option>
+              {INSTRUMENT_TYPES.map((t) => (
+                <option key={t} value={t}>
+                  {INSTRUMENT_TYPE_LABELS[t]}
+                </option>
+              ))}
+            </select>
+            <FieldError name="instrumentType" error={fieldErrors.instrumentType} />
+          </div>
+          <TextField name="serial" label="Serial number" error={fieldErrors.serial} autoComplete="off" />
+          <TextField name="rangeMin" label="Range from" inputMode="decimal" error={fieldErrors.rangeMin} />
+          <TextField name="rangeMax" label="Range to" inputMode="decimal" error={fieldErrors.rangeMax} />
+          <TextField
+            name="material"
+            label="Material"
+            hint="For its thermal expansion: “steel”."
+            error={fieldErrors.material}
+            autoComplete="off"
+          />
         </div>
         <p className="text-ink-soft">
           Give the error limit and resolution from its data sheet, or the expanded uncertainty U (k = 2) from a

@@ -1,0 +1,73 @@
+// What the chief scrutineer sends about an instrument's calibration: a certificate (its fields come
+// as form fields beside the file) and a daily check against a reference.
+import { z } from 'zod';
+
+export const CERTIFICATE_MAX_BYTES = 8 * 1024 * 1024;
+
+export const INSTRUMENT_TYPES = [
+  'caliper',
+  'bore_gauge',
+  'micrometer',
+  'plug_gauge',
+  'tape',
+  'scale',
+  'thermometer',
+  'other',
+] as const;
+export type InstrumentType = (typeof INSTRUMENT_TYPES)[number];
+export const INSTRUMENT_TYPE_LABELS: Record<InstrumentType, string> = {
+  caliper: 'Caliper',
+  bore_gauge: 'Bore gauge',
+  micrometer: 'Micrometer',
+  plug_gauge: 'Plug gauge',
+  tape: 'Tape',
+  scale: 'Scale',
+  thermometer: 'Thermometer',
+  other: 'Other',
+};
+
+const text = (what: string, max: number) =>
+  z
+    .string({ error: `Enter ${what} as text.` })
+    .trim()
+    .min(1, `Enter ${what}.`)
+    .max(max, `Keep ${what} under ${max} characters.`);
+
+// Form fields arrive as strings; an empty one is "not given".
+const formNumber = (what: string) =>
+  z.preprocess(
+    (v) => (typeof v === 'string' ? (v.trim() === '' ? null : Number(v.trim().replace(',', '.'))) : v),
+    z
+      .number({ error: `Enter ${what} as a number.` })
+      .refine((n) => Number.isFinite(n), `Enter ${what} as a number.`)
+      .nullable(),
+  );
+
+export const AddCertificateInput = z
+  .object({
+    number: text('the certificate number', 80),
+    laboratory: text('the calibration laboratory', 160),
+    calibratedOn: z.iso.date({ error: 'Give the calibration date as a date.' }),
+    dueOn: z.iso.date({ error: 'Give the due date as a date.' }),
+    expandedUncertainty: formNumber('the stated expanded uncertainty U').pipe(
+      z.number().min(0, 'U cannot be negative.').max(100, 'Keep U at or below 100.').nullable(),
+    ),
+    coverageFactor: formNumber('the coverage factor k').pipe(
+      z.number().min(1, 'k is at least 1.').max(5, 'k is at most 5.').nullable(),
+    ),
+  })
+  .superRefine((v, ctx) => {
+    if (v.dueOn <= v.calibratedOn)
+      ctx.addIssue({ code: 'custom', path: ['dueOn'], message: 'The due date comes after the calibration date.' });
+    if (v.expandedUncertainty != null && v.coverageFactor == null)
+      ctx.addIssue({ code: 'custom', path: ['coverageFactor'], message: 'Give the k the certificate states with U.' });
+  });
+export type AddCertificateInput = z.infer<typeof AddCertificateInput>;
+
+export const RecordInstrumentCheckInput = z.object({
+  reference: text('the reference used (gauge block, check weight)', 160),
+  nominalValue: z.number({ error: 'Enter the reference’s nominal value as a number.' }).min(0).max(100000),
+  reading: z.number({ error: 'Enter the instrument’s reading as a number.' }).min(0).max(100000),
+  passed: z.boolean({ error: 'Say whether the check passed.' }),
+});
+export type RecordInstrumentCheckInput = z.infer<typeof RecordInstrumentCheckInput>;
