@@ -2,6 +2,7 @@
 // it now, the timeline oldest first (as a log is read), the caution, and lines for the owner's and an
 // official's signatures. Pure: the route hands it what the viewer may see.
 import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage } from 'pdf-lib';
+import { pdfSafeText as safe } from '../format/pdf-text';
 import { formatCalendarDate, formatDay, formatTime } from '../format/time';
 import { describeComponent, groupLogbookItems, listSealsOnComponents } from './timeline';
 import type { LogbookItem, LogbookRecord } from './logbook-record';
@@ -15,19 +16,6 @@ const FAIL = rgb(0.7, 0.1, 0.1);
 
 export const LOGBOOK_CAUTION =
   "Safety first. Jet boat racing can injure and kill. Boreline supports the checks; it never replaces them. The governing body's rules, local regulations and the judgement of licensed officials decide every verdict and every safety matter.";
-
-// Standard PDF fonts speak WinAnsi only: anything else becomes '?' so odd names never crash.
-const safe = (font: PDFFont, s: string) =>
-  [...s.normalize('NFKD').replace(/[\u0300-\u036f]/g, '')]
-    .map((ch) => {
-      try {
-        font.encodeText(ch);
-        return ch;
-      } catch {
-        return '?';
-      }
-    })
-    .join('');
 
 type Ctx = { doc: PDFDocument; page: PDFPage; y: number; font: PDFFont; bold: PDFFont };
 type Style = { size?: number; bold?: boolean; color?: ReturnType<typeof rgb>; indent?: number };

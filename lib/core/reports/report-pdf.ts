@@ -2,6 +2,7 @@
 // assumptions with their sources, class figures, the two charts drawn as vectors, one table row
 // per boat (paged), the boats left out with the reason, and the safety and official-decision caution.
 import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage } from 'pdf-lib';
+import { pdfSafeText as safe } from '../format/pdf-text';
 import type { PublishedReportDto } from './report-dto';
 import { formatTime } from '../format/time';
 
@@ -12,19 +13,6 @@ const MUTE = rgb(0.32, 0.38, 0.43);
 const TIDE = rgb(0.09, 0.3, 0.44);
 const FLARE = rgb(0.91, 0.42, 0.06);
 const LINE = rgb(0.84, 0.82, 0.76);
-
-// Standard PDF fonts speak WinAnsi only: replace anything else so odd names never crash.
-const safe = (font: PDFFont, text: string) =>
-  [...text.normalize('NFKD').replace(/[\u0300-\u036f]/g, '')]
-    .map((ch) => {
-      try {
-        font.encodeText(ch);
-        return ch;
-      } catch {
-        return '?';
-      }
-    })
-    .join('');
 
 const f1 = (x: number, d = 1) => (Number.isFinite(x) ? x.toFixed(d) : '—');
 

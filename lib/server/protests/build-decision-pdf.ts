@@ -1,5 +1,6 @@
 import 'server-only';
 import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage } from 'pdf-lib';
+import { pdfSafeText as safe } from '../../core/format/pdf-text';
 import type { Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
 import { formatMoney } from '@/lib/core/inputs/entries';
@@ -12,19 +13,6 @@ const M = 48;
 const INK = rgb(0.043, 0.086, 0.125);
 const MUTE = rgb(0.32, 0.38, 0.43);
 const FLARE = rgb(0.91, 0.42, 0.06);
-
-// Standard PDF fonts speak WinAnsi only: anything else becomes '?' so odd names never crash.
-const safe = (font: PDFFont, s: string) =>
-  [...s.normalize('NFKD').replace(/[\u0300-\u036f]/g, '')]
-    .map((ch) => {
-      try {
-        font.encodeText(ch);
-        return ch;
-      } catch {
-        return '?';
-      }
-    })
-    .join('');
 
 type Ctx = { doc: PDFDocument; page: PDFPage; y: number; font: PDFFont; bold: PDFFont; mono: PDFFont };
 
