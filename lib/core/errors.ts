@@ -1,5 +1,5 @@
 import { ZodError } from 'zod';
-import { EngineInputError } from '@/lib/core/engine/engine-input-error';
+import { EngineInputError, EngineOperatingPointError } from '@/lib/core/engine/engine-input-error';
 
 // One error type for expected failures, with a safe message for people.
 export class AppError extends Error {
@@ -92,6 +92,15 @@ export function toErrorResponse(err: unknown, options: ErrorAnswerOptions = {}):
         code: 'invalid_input',
         message: `${err.field}: ${err.message}`,
         details: [{ field: err.field, message: err.message }],
+      },
+    };
+  } else if (err instanceof EngineOperatingPointError) {
+    status = 422;
+    body = {
+      error: {
+        code: 'no_operating_point',
+        message: `${err.curve}: ${err.message}`,
+        details: [{ field: err.curve, message: err.message, speedMs: err.speedMs }],
       },
     };
   } else if (err instanceof SyntaxError) {

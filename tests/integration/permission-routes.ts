@@ -69,6 +69,12 @@ export const ROUTES: Row[] = [
     path: () => '/api/v1/jet-performance/crossover',
     access: 'public',
   },
+  {
+    method: 'POST',
+    file: 'app/api/v1/jet-performance/matched/route.ts',
+    path: () => '/api/v1/jet-performance/matched',
+    access: 'public',
+  },
   { method: 'POST', file: 'app/api/v1/conformity/route.ts', path: () => '/api/v1/conformity', access: 'public' },
   { method: 'GET', file: 'app/api/v1/openapi.json/route.ts', path: () => '/api/v1/openapi.json', access: 'public' },
   {

@@ -6,9 +6,19 @@
 // they are stated in the operation descriptions instead.
 
 import { z } from 'zod';
-import type { ConformityData, CrossoverData, JetPerformanceData } from '../engine/calculation-api';
+import type {
+  ConformityData,
+  CrossoverData,
+  JetPerformanceData,
+  MatchedPerformanceData,
+} from '../engine/calculation-api';
 import { BURDENS_OF_PROOF, OUTCOMES } from '../engine/conformity-burden';
-import { conformityInputSchema, crossoverInputSchema, jetPerformanceInputSchema } from '../inputs/calculation';
+import {
+  conformityInputSchema,
+  crossoverInputSchema,
+  jetPerformanceInputSchema,
+  matchedInputSchema,
+} from '../inputs/calculation';
 
 /** Largest request body the public routes read (413 above it). */
 export const PUBLIC_API_MAX_BODY_BYTES = 64 * 1024;
@@ -23,6 +33,27 @@ export const jetPerformanceDataSchema = z.object({
       massFlowKgS: z.number().describe('Mass flow through the pump, kg/s'),
       thrustN: z.number().describe('Net thrust, N (negative when the jet no longer outruns the inflow)'),
       isThrustPositive: z.boolean(),
+    }),
+  ),
+});
+
+export const matchedDataSchema = z.object({
+  densityKgM3: z.number().describe('Water density used, kg/m^3'),
+  points: z.array(
+    z.object({
+      speedMs: z.number().describe('Boat speed, m/s'),
+      rpm: z.number().describe('Operating rpm of engine and pump'),
+      shaftPowerKw: z.number().describe('Power the pump absorbs at the operating point, kW'),
+      flowM3s: z.number().describe('Volume flow, m^3/s'),
+      flowCoefficient: z.number().describe('Operating flow coefficient phi = Q / (n D^3)'),
+      pumpEfficiency: z.number().describe('Pump efficiency at the operating flow coefficient'),
+      jetVelocityMs: z.number().describe('Jet velocity at the nozzle exit, m/s'),
+      thrustN: z.number().describe('Net thrust, N'),
+      limitedBy: z
+        .enum(['engine', 'limiter'])
+        .describe(
+          "engine: the pump absorbs the engine curve's power; limiter: it never does below the top of the range (the curve's last rpm or the limiter)",
+        ),
     }),
   ),
 });
@@ -80,7 +111,8 @@ export const responsesFitEngine: [
   Fits<JetPerformanceData, z.output<typeof jetPerformanceDataSchema>>,
   Fits<CrossoverData, z.output<typeof crossoverDataSchema>>,
   Fits<ConformityData, z.output<typeof conformityDataSchema>>,
-] = [true, true, true];
+  Fits<MatchedPerformanceData, z.output<typeof matchedDataSchema>>,
+] = [true, true, true, true];
 
 type JsonSchema = Record<string, unknown>;
 
@@ -123,7 +155,14 @@ const BODY_ERRORS = {
   '429': RATE_LIMITED,
 };
 
-function postOperation(operationId: string, summary: string, description: string, input: string, output: string) {
+function postOperation(
+  operationId: string,
+  summary: string,
+  description: string,
+  input: string,
+  output: string,
+  extraResponses: Record<string, unknown> = {},
+) {
   return {
     post: {
       operationId,
@@ -131,7 +170,7 @@ function postOperation(operationId: string, summary: string, description: string
       description,
       tags: ['calculation'],
       requestBody: { required: true, content: json(ref(input)) },
-      responses: { '200': { description: 'The result.', content: dataOf(output) }, ...BODY_ERRORS },
+      responses: { '200': { description: 'The result.', content: dataOf(output) }, ...BODY_ERRORS, ...extraResponses },
     },
   };
 }
@@ -149,7 +188,7 @@ export function buildOpenApiDocument(version = '1.0.0') {
       title: 'Boreline public calculation API',
       version,
       description:
-        'Water-jet thrust, thrust-curve crossover and measurement conformity decisions. No sign-in; limited per client address per minute. ' +
+        'Water-jet thrust (at fixed power, or matched to engine and pump curves), thrust-curve crossover and measurement conformity decisions. No sign-in; limited per client address per minute. ' +
         'Every error answers { error: { code, message, details? } }. Figures come from an idealised model and support, never replace, ' +
         "the governing body's rules and the judgement of licensed officials.",
     },
@@ -168,6 +207,24 @@ export function buildOpenApiDocument(version = '1.0.0') {
         `${MODEL_NOTE} Lossless curves never cross (the larger nozzle always pushes harder): the answer is then null.`,
         'CrossoverInput',
         'CrossoverData',
+      ),
+      '/api/v1/jet-performance/matched': postOperation(
+        'computeMatchedPerformance',
+        'Operating point of a jet matched to its engine: rpm, power, flow, efficiency and thrust at given boat speeds',
+        'The pump settles where the engine curve meets the power the pump absorbs (affinity laws: Q = phi n D^3, gH = psi n^2 D^2, ' +
+          'P = rho g Q H / eta; Karassik, Pump Handbook; Brennen, Hydrodynamics of Pumps, 1994) against the system head ' +
+          'gH = 1/2 (1 + K_n)(Q/A_n)^2 - 1/2 (1 - K_i) V_in^2 with V_in = (1 - w) V, and T = rho Q (Q/A_n - V_in). ' +
+          'psi and eta are linear in phi between the pump points, engine power linear in rpm between its points. The operating rpm is the lowest ' +
+          "of the engine curve's range (capped at limiterRpm) where the pump absorbs the engine's power; where it never does, the top of that range " +
+          '(limitedBy "limiter"). Water and loss defaults as for /api/v1/jet-performance; the pump efficiency comes from the curve. ' +
+          'No operating point on the curves given (outside the pump curve, or an engine held below its curve) is a 422 naming which curve.',
+        'MatchedInput',
+        'MatchedData',
+        {
+          '422': errorResponse(
+            'No operating point on the curves given: details name the curve (engine or pump) and the speed.',
+          ),
+        },
       ),
       '/api/v1/conformity': postOperation(
         'decideConformity',
@@ -204,6 +261,16 @@ export function buildOpenApiDocument(version = '1.0.0') {
           'One point per requested speed, in the order given.',
         ),
         CrossoverData: toComponent(crossoverDataSchema, 'output', 'The crossover speed, or null.'),
+        MatchedInput: toComponent(
+          matchedInputSchema,
+          'input',
+          'Engine power curve (rpm increasing), pump characteristic (flow coefficient increasing), nozzle exit diameter, boat speeds and the loss model.',
+        ),
+        MatchedData: toComponent(
+          matchedDataSchema,
+          'output',
+          'One operating point per requested speed, in the order given.',
+        ),
         ConformityData: toComponent(
           conformityDataSchema,
           'output',

@@ -9,6 +9,8 @@ import type { BurdenOfProof, ResolvedOutcome } from './conformity-burden';
 import { computeThrustCurve } from './jet';
 import type { JetModelAssumptions } from './jet';
 import { computeCrossoverSpeedMs } from './jet-crossover';
+import { computeMatchedCurve } from './jet-matched';
+import type { EngineCurvePoint, MatchedPoint, PumpCurvePoint } from './jet-matched';
 import type { ParityBoatInput } from './parity';
 import { DEFAULT_WATER, resolveDensity } from './water';
 import type { DensityBasis, WaterKind } from './water';
@@ -48,6 +50,18 @@ export interface JetPerformancePoint {
 export interface JetPerformanceData {
   densityKgM3: number;
   points: JetPerformancePoint[];
+}
+
+export interface MatchedPerformanceInput extends Omit<JetModelBody, 'pumpEfficiency'> {
+  engine: { curve: readonly EngineCurvePoint[]; limiterRpm?: number };
+  pump: { impellerDiameterMm: number; curve: readonly PumpCurvePoint[] };
+  nozzleDiameterMm: number;
+  speedsMs: readonly number[];
+}
+
+export interface MatchedPerformanceData {
+  densityKgM3: number;
+  points: MatchedPoint[];
 }
 
 export interface CrossoverInput extends JetModelBody {
@@ -112,6 +126,24 @@ export function computeJetPerformance(input: JetPerformanceInput): JetPerformanc
     thrustN: p.thrustN,
     isThrustPositive: p.isThrustPositive,
   }));
+  return { densityKgM3: model.densityKgM3, points };
+}
+
+/** POST /api/v1/jet-performance/matched (the pump's efficiency comes from its curve). */
+export function computeMatchedPerformance(input: MatchedPerformanceInput): MatchedPerformanceData {
+  const model = resolveModel(input);
+  const points = computeMatchedCurve(
+    {
+      engine: input.engine,
+      pump: input.pump,
+      nozzleDiameterMm: input.nozzleDiameterMm,
+      densityKgM3: model.densityKgM3,
+      nozzleLossCoefficient: model.nozzleLossCoefficient,
+      inletLossCoefficient: model.inletLossCoefficient,
+      wakeFraction: model.wakeFraction,
+    },
+    input.speedsMs,
+  );
   return { densityKgM3: model.densityKgM3, points };
 }
 

@@ -11,6 +11,22 @@ export class EngineInputError extends Error {
   }
 }
 
+/**
+ * Well-formed input for which no operating point exists: the pump and engine curves do not meet
+ * inside the ranges they were given on. Route handlers map it to HTTP 422 naming which curve.
+ */
+export class EngineOperatingPointError extends Error {
+  readonly curve: 'engine' | 'pump';
+  readonly speedMs: number;
+
+  constructor(curve: 'engine' | 'pump', speedMs: number, message: string) {
+    super(message);
+    this.name = 'EngineOperatingPointError';
+    this.curve = curve;
+    this.speedMs = speedMs;
+  }
+}
+
 // Guards return the checked value so call sites stay one line.
 
 export function assertFiniteNumber(field: string, value: unknown): number {

@@ -4,6 +4,7 @@ export * from './units';
 export * from './water';
 export * from './jet';
 export * from './jet-crossover';
+export * from './jet-matched';
 export * from './jet-uncertainty';
 export * from './measurement';
 export * from './conformity';

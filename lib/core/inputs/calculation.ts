@@ -7,7 +7,14 @@
 
 import { z } from 'zod';
 import { BURDENS_OF_PROOF } from '../engine/conformity-burden';
-import type { ConformityBody, CrossoverInput, JetPerformanceInput, ParityBody } from '../engine/calculation-api';
+import type {
+  ConformityBody,
+  CrossoverInput,
+  JetPerformanceInput,
+  MatchedPerformanceInput,
+  ParityBody,
+} from '../engine/calculation-api';
+import { MATCHED_MAX_CURVE_POINTS } from '../engine/jet-matched';
 
 const num = (what: string) => z.number({ error: `${what} must be a number` });
 
@@ -69,6 +76,66 @@ export const jetPerformanceInputSchema = z.strictObject({
     .min(1, { error: 'Give at least one speed' })
     .max(1000, { error: 'Give at most 1000 speeds' }),
   ...jetModelFields,
+});
+
+/** POST /api/v1/jet-performance/matched: the engine's power curve and the pump's characteristic. */
+const rpm = (what: string) =>
+  num(`${what} (rpm)`)
+    .positive({ error: `${what} must be greater than 0 rpm` })
+    .max(100_000, { error: `${what} must be at most 100000 rpm` });
+const increasing =
+  <T>(key: keyof T & string, what: string) =>
+  (points: T[], ctx: z.RefinementCtx) => {
+    for (let i = 1; i < points.length; i++) {
+      if (!((points[i][key] as number) > (points[i - 1][key] as number)))
+        ctx.addIssue({ code: 'custom', path: [i, key], message: `${what} must increase from point to point` });
+    }
+  };
+const enginePoint = z.strictObject({
+  rpm: rpm('rpm'),
+  powerKw: num('powerKw (kW)')
+    .min(0, { error: 'powerKw must not be negative' })
+    .max(10_000, { error: 'powerKw must be at most 10000 kW' }),
+});
+const pumpPoint = z.strictObject({
+  flowCoefficient: num('flowCoefficient')
+    .positive({ error: 'flowCoefficient must be greater than 0' })
+    .max(10, { error: 'flowCoefficient must be at most 10' }),
+  headCoefficient: num('headCoefficient')
+    .min(-100, { error: 'headCoefficient must be at least -100' })
+    .max(100, { error: 'headCoefficient must be at most 100' }),
+  efficiency: num('efficiency')
+    .gt(0, { error: 'efficiency must be above 0' })
+    .max(1, { error: 'efficiency must be at most 1' }),
+});
+const { pumpEfficiency: _fixedEfficiency, ...matchedModelFields } = jetModelFields;
+export const matchedInputSchema = z.strictObject({
+  engine: z.strictObject({
+    curve: z
+      .array(enginePoint, { error: 'engine.curve must be an array of { rpm, powerKw } points' })
+      .min(2, { error: 'Give at least 2 engine curve points' })
+      .max(MATCHED_MAX_CURVE_POINTS, { error: `Give at most ${MATCHED_MAX_CURVE_POINTS} engine curve points` })
+      .superRefine(increasing<z.infer<typeof enginePoint>>('rpm', 'rpm')),
+    limiterRpm: rpm('limiterRpm').optional(),
+  }),
+  pump: z.strictObject({
+    impellerDiameterMm: num('impellerDiameterMm (mm)')
+      .positive({ error: 'impellerDiameterMm must be greater than 0 mm' })
+      .max(2000, { error: 'impellerDiameterMm must be at most 2000 mm' }),
+    curve: z
+      .array(pumpPoint, {
+        error: 'pump.curve must be an array of { flowCoefficient, headCoefficient, efficiency } points',
+      })
+      .min(2, { error: 'Give at least 2 pump curve points' })
+      .max(MATCHED_MAX_CURVE_POINTS, { error: `Give at most ${MATCHED_MAX_CURVE_POINTS} pump curve points` })
+      .superRefine(increasing<z.infer<typeof pumpPoint>>('flowCoefficient', 'flowCoefficient')),
+  }),
+  nozzleDiameterMm,
+  speedsMs: z
+    .array(speedMs, { error: 'speedsMs must be an array of speeds in m/s' })
+    .min(1, { error: 'Give at least one speed' })
+    .max(1000, { error: 'Give at most 1000 speeds' }),
+  ...matchedModelFields,
 });
 
 /** POST /api/v1/jet-performance/crossover */
@@ -142,6 +209,7 @@ export type JetPerformanceRequest = z.output<typeof jetPerformanceInputSchema>;
 export type CrossoverRequest = z.output<typeof crossoverInputSchema>;
 export type ConformityRequest = z.output<typeof conformityInputSchema>;
 export type ParityRequest = z.output<typeof parityInputSchema>;
+export type MatchedRequest = z.output<typeof matchedInputSchema>;
 
 // Compile-time proof that parsed bodies fit the engine functions' inputs.
 type Fits<T, U> = T extends U ? true : false;
@@ -150,4 +218,5 @@ export const schemaFitsEngine: [
   Fits<CrossoverRequest, CrossoverInput>,
   Fits<ConformityRequest, ConformityBody>,
   Fits<ParityRequest, ParityBody>,
-] = [true, true, true, true];
+  Fits<MatchedRequest, MatchedPerformanceInput>,
+] = [true, true, true, true, true];
