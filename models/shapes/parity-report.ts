@@ -55,6 +55,19 @@ export type StoredParityBoatResult = {
   uCrossoverWithMedianMs: number | null;
   equalisingNozzleDiameterMm: number;
   uEqualisingNozzleDiameterMm: number;
+  /** Absent in reports published before it. */
+  rangeEqualising?: {
+    nozzleDiameterMm: number;
+    rmsDeviationPercent: number;
+    worstDeviationPercent: number;
+    staticWorstDeviationPercent: number;
+    deviations: {
+      speedMs: number;
+      medianThrustN: number;
+      staticEqualisedPercent: number;
+      rangeEqualisedPercent: number;
+    }[];
+  } | null;
 };
 
 export type StoredParity = {

@@ -5,6 +5,7 @@ export * from './water';
 export * from './jet';
 export * from './jet-crossover';
 export * from './jet-matched';
+export * from './jet-equalising';
 export * from './jet-uncertainty';
 export * from './measurement';
 export * from './conformity';

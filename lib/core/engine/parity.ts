@@ -8,7 +8,9 @@
 //   class median T0 at that power. Its curve therefore starts at the median static thrust.
 // - Spread % = (max - min) / median x 100.
 // - Coefficient of variation % = sample standard deviation (n - 1) / mean x 100; null for one boat.
-// - Equalising nozzle: D_eq = D (T_median/T0)^(3/2) (T0 ∝ D^(2/3) at fixed power).
+// - Equalising nozzle: D_eq = D (T_median/T0)^(3/2) (T0 ∝ D^(2/3) at fixed power); it equalises
+//   static thrust only. The range equalising nozzle (jet-equalising.ts) minimises the least-squares
+//   relative deviation from the class median thrust over the reference speeds instead; both are given.
 // - Uncertainties are standard (k = 1) and come from each boat's own u(P) and u(D) (JCGM 100:2008,
 //   5.1.2, see jet-uncertainty.ts); the class median and the reference set-up are held exact.
 
@@ -22,6 +24,8 @@ import {
 } from './jet';
 import type { JetModelAssumptions, PreparedJetSetup } from './jet';
 import { createCrossoverFinder } from './jet-crossover';
+import { computeRangeEqualising } from './jet-equalising';
+import type { RangeEqualising } from './jet-equalising';
 import {
   computeCrossoverUncertaintyMs,
   computeEqualisingDiameterUncertaintyMm,
@@ -75,6 +79,12 @@ export interface ParityBoatResult {
   /** Nozzle that would give the class median T0 at this boat's power. */
   equalisingNozzleDiameterMm: number;
   uEqualisingNozzleDiameterMm: number;
+  /**
+   * The nozzle that best equalises thrust over the reference speeds (least squares), with the
+   * deviation at each speed for it and for the static equalising nozzle; null when the class median
+   * thrust is not positive at some reference speed. Absent in reports computed before it.
+   */
+  rangeEqualising?: RangeEqualising | null;
 }
 
 export interface ParityReferenceSetup {
@@ -259,6 +269,17 @@ export function computeParity(boats: readonly ParityBoatInput[], assumptions: Pa
       equalisingNozzleDiameterMm: equalising,
       uEqualisingNozzleDiameterMm: computeEqualisingDiameterUncertaintyMm(equalising, b.powerKw, u.uPowerKw),
     };
+  });
+
+  // The class median thrust at each reference speed, then each boat's range equalising nozzle.
+  const medianAtSpeed = Float64Array.from(speeds, (_, j) =>
+    computeMedian(results.map((r) => r.thrustAtReferenceSpeeds[j].thrustN)),
+  );
+  const medianPositive = speeds.length > 0 && medianAtSpeed.every((m) => m > 0);
+  results.forEach((r, i) => {
+    r.rangeEqualising = medianPositive
+      ? computeRangeEqualising(prepared[i], speeds, medianAtSpeed, r.equalisingNozzleDiameterMm)
+      : null;
   });
 
   return { summary: summarise(t0, medianN), referenceSetup: reference, boats: results };
