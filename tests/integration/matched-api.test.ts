@@ -209,3 +209,42 @@ test('matched: listed in the OpenAPI document with its 422', async () => {
   assert.equal(input.additionalProperties, false);
   assert.ok(!('pumpEfficiency' in input.properties), 'the efficiency comes from the pump curve');
 });
+
+test('matched: with cavitation each point carries NPSH available and required and the flag', async () => {
+  const { res, body } = await post('/api/v1/jet-performance/matched', {
+    engine: ENGINE,
+    pump: PUMP,
+    nozzleDiameterMm: 100,
+    speedsMs: [0, 25],
+    ...LOSSES,
+    cavitation: { inletDepthM: 0.2, suctionSpecificSpeed: 6 },
+  });
+  assert.equal(res.status, 200, JSON.stringify(body));
+  const [rest, fast] = body.data.points;
+  assert.equal(rest.cavitating, true);
+  assert.equal(fast.cavitating, false);
+  // NPSH_a = (p_atm - p_v)/(rho g) + z + (1 - K_i) V_in^2/(2 g); p_v(15 °C) = 1705.7 Pa (IAPWS-IF97).
+  const g = 9.80665;
+  assert.ok(Math.abs(rest.availableNpshM - ((101325 - 1705.74) / (999.1026 * g) + 0.2)) < 1e-3);
+  const both = await post('/api/v1/jet-performance/matched', {
+    engine: ENGINE,
+    pump: PUMP,
+    nozzleDiameterMm: 100,
+    speedsMs: [0],
+    cavitation: {
+      inletDepthM: 0.2,
+      suctionSpecificSpeed: 6,
+      requiredNpshAtRated: { npshM: 10, rpm: 5000, flowM3s: 0.3 },
+    },
+  });
+  assert.equal(both.res.status, 400);
+  assert.match(both.body.error.message, /either suctionSpecificSpeed or requiredNpshAtRated/);
+  // Without cavitation the answer has none of these keys (the contract's exact shape).
+  const plain = await post('/api/v1/jet-performance/matched', {
+    engine: ENGINE,
+    pump: PUMP,
+    nozzleDiameterMm: 100,
+    speedsMs: [0],
+  });
+  assert.ok(!('cavitating' in plain.body.data.points[0]));
+});

@@ -49,6 +49,12 @@ export const matchedDataSchema = z.object({
       pumpEfficiency: z.number().describe('Pump efficiency at the operating flow coefficient'),
       jetVelocityMs: z.number().describe('Jet velocity at the nozzle exit, m/s'),
       thrustN: z.number().describe('Net thrust, N'),
+      availableNpshM: z.number().optional().describe('Only with cavitation: NPSH available at the inlet, m'),
+      requiredNpshM: z.number().optional().describe('Only with cavitation: NPSH the pump requires, m'),
+      cavitating: z
+        .boolean()
+        .optional()
+        .describe('Only with cavitation: true when NPSH available < required; the thrust is then an upper bound'),
       limitedBy: z
         .enum(['engine', 'limiter'])
         .describe(
@@ -217,7 +223,10 @@ export function buildOpenApiDocument(version = '1.0.0') {
           'psi and eta are linear in phi between the pump points, engine power linear in rpm between its points. The operating rpm is the lowest ' +
           "of the engine curve's range (capped at limiterRpm) where the pump absorbs the engine's power; where it never does, the top of that range " +
           '(limitedBy "limiter"). Water and loss defaults as for /api/v1/jet-performance; the pump efficiency comes from the curve. ' +
-          'No operating point on the curves given (outside the pump curve, or an engine held below its curve) is a 422 naming which curve.',
+          'No operating point on the curves given (outside the pump curve, or an engine held below its curve) is a 422 naming which curve. ' +
+          'Optional cavitation { inletDepthM, suctionSpecificSpeed | requiredNpshAtRated, waterTemperatureC?, ambientPressurePa? } adds to each point ' +
+          'NPSH available = (p_atm - p_v)/(rho g) + z + (1 - K_i) V_in^2/(2g) (vapour pressure by IAPWS-IF97) and required = (omega Q^1/2 / S)^(4/3) / g ' +
+          '(dimensionless suction specific speed, Brennen 1994); a cavitating point’s thrust is an upper bound.',
         'MatchedInput',
         'MatchedData',
         {

@@ -10,6 +10,8 @@ import { computeThrustCurve } from './jet';
 import type { JetModelAssumptions } from './jet';
 import { computeCrossoverSpeedMs } from './jet-crossover';
 import { computeMatchedCurve } from './jet-matched';
+import { checkSuction, prepareSuction } from './cavitation';
+import type { SuctionInput } from './cavitation';
 import type { EngineCurvePoint, MatchedPoint, PumpCurvePoint } from './jet-matched';
 import type { ParityBoatInput } from './parity';
 import { DEFAULT_WATER, resolveDensity } from './water';
@@ -57,11 +59,20 @@ export interface MatchedPerformanceInput extends Omit<JetModelBody, 'pumpEfficie
   pump: { impellerDiameterMm: number; curve: readonly PumpCurvePoint[] };
   nozzleDiameterMm: number;
   speedsMs: readonly number[];
+  /** When given, each point says whether the pump inlet cavitates (waterTemperatureC defaults to the water's). */
+  cavitation?: Omit<SuctionInput, 'waterTemperatureC'> & { waterTemperatureC?: number };
 }
+
+export type MatchedPerformancePoint = MatchedPoint & {
+  /** Only when the body gave cavitation: NPSH available and required, m, and whether it cavitates. */
+  availableNpshM?: number;
+  requiredNpshM?: number;
+  cavitating?: boolean;
+};
 
 export interface MatchedPerformanceData {
   densityKgM3: number;
-  points: MatchedPoint[];
+  points: MatchedPerformancePoint[];
 }
 
 export interface CrossoverInput extends JetModelBody {
@@ -144,7 +155,25 @@ export function computeMatchedPerformance(input: MatchedPerformanceInput): Match
     },
     input.speedsMs,
   );
-  return { densityKgM3: model.densityKgM3, points };
+  if (input.cavitation === undefined) return { densityKgM3: model.densityKgM3, points };
+  const suction = prepareSuction({
+    ...input.cavitation,
+    waterTemperatureC: input.cavitation.waterTemperatureC ?? (input.water ?? DEFAULT_WATER).temperatureC,
+  });
+  return {
+    densityKgM3: model.densityKgM3,
+    points: points.map((p) => {
+      const c = checkSuction(
+        suction,
+        model.densityKgM3,
+        model.inletLossCoefficient ?? 0,
+        p.rpm,
+        p.flowM3s,
+        (1 - (model.wakeFraction ?? 0)) * p.speedMs,
+      );
+      return { ...p, availableNpshM: c.availableNpshM, requiredNpshM: c.requiredNpshM, cavitating: c.cavitating };
+    }),
+  };
 }
 
 /** POST /api/v1/jet-performance/crossover */

@@ -7,6 +7,7 @@ export * from './jet-crossover';
 export * from './jet-matched';
 export * from './jet-equalising';
 export * from './parity-monte-carlo';
+export * from './cavitation';
 export * from './jet-uncertainty';
 export * from './measurement';
 export * from './conformity';

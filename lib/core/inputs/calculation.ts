@@ -136,6 +136,36 @@ export const matchedInputSchema = z.strictObject({
     .min(1, { error: 'Give at least one speed' })
     .max(1000, { error: 'Give at most 1000 speeds' }),
   ...matchedModelFields,
+  /** Optional: flag points where the pump inlet cavitates (NPSH available below required). */
+  cavitation: z
+    .strictObject({
+      inletDepthM: num('cavitation.inletDepthM (m)')
+        .min(0, { error: 'inletDepthM must not be negative' })
+        .max(5, { error: 'inletDepthM must be at most 5 m' }),
+      waterTemperatureC: num('cavitation.waterTemperatureC (C)')
+        .min(0, { error: 'waterTemperatureC must be at least 0 C' })
+        .max(100, { error: 'waterTemperatureC must be at most 100 C' })
+        .optional(),
+      ambientPressurePa: num('cavitation.ambientPressurePa (Pa)')
+        .min(50_000, { error: 'ambientPressurePa must be at least 50000 Pa' })
+        .max(120_000, { error: 'ambientPressurePa must be at most 120000 Pa' })
+        .optional(),
+      suctionSpecificSpeed: num('cavitation.suctionSpecificSpeed')
+        .min(0.5, { error: 'suctionSpecificSpeed (dimensionless) must be at least 0.5' })
+        .max(20, { error: 'suctionSpecificSpeed (dimensionless) must be at most 20' })
+        .optional(),
+      requiredNpshAtRated: z
+        .strictObject({
+          npshM: num('npshM (m)').positive({ error: 'npshM must be greater than 0' }).max(500),
+          rpm: rpm('rpm'),
+          flowM3s: num('flowM3s (m^3/s)').positive({ error: 'flowM3s must be greater than 0' }).max(100),
+        })
+        .optional(),
+    })
+    .refine((c) => (c.suctionSpecificSpeed === undefined) !== (c.requiredNpshAtRated === undefined), {
+      error: 'Give either suctionSpecificSpeed or requiredNpshAtRated (one of them)',
+    })
+    .optional(),
 });
 
 /** POST /api/v1/jet-performance/crossover */
