@@ -2,7 +2,7 @@
 // it now, the timeline oldest first (as a log is read), the caution, and lines for the owner's and an
 // official's signatures. Pure: the route hands it what the viewer may see.
 import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage } from 'pdf-lib';
-import { pdfSafeText as safe } from '../format/pdf-text';
+import { pdfSafeText as safe, wrapPdfText } from '../format/pdf-text';
 import { formatCalendarDate, formatDay, formatTime } from '../format/time';
 import { describeComponent, groupLogbookItems, listSealsOnComponents } from './timeline';
 import type { LogbookItem, LogbookRecord } from './logbook-record';
@@ -31,25 +31,7 @@ function write(ctx: Ctx, s: string, o: Style = {}) {
   const font = o.bold ? ctx.bold : ctx.font;
   const indent = o.indent ?? 0;
   const width = A4[0] - 2 * M - indent;
-  const out: string[] = [];
-  for (const para of safe(font, s).split('\n')) {
-    let cur = '';
-    for (const w of para.split(/(\s+)/)) {
-      if (font.widthOfTextAtSize(cur + w, size) <= width) {
-        cur += w;
-        continue;
-      }
-      if (cur.trim()) out.push(cur.trimEnd());
-      cur = w.trimStart();
-      while (font.widthOfTextAtSize(cur, size) > width) {
-        let n = cur.length;
-        while (n > 1 && font.widthOfTextAtSize(cur.slice(0, n), size) > width) n--;
-        out.push(cur.slice(0, n));
-        cur = cur.slice(n);
-      }
-    }
-    out.push(cur.trimEnd());
-  }
+  const out = wrapPdfText(font, safe(font, s), size, width);
   for (const l of out) {
     if (ctx.y - size - 3 < M) newPage(ctx);
     ctx.page.drawText(l, { x: M + indent, y: ctx.y - size, size, font, color: o.color ?? INK });

@@ -1,6 +1,6 @@
 import 'server-only';
 import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage } from 'pdf-lib';
-import { pdfSafeText as safe } from '../../core/format/pdf-text';
+import { pdfSafeText as safe, wrapPdfText } from '../../core/format/pdf-text';
 import type { Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
 import { formatMoney } from '@/lib/core/inputs/entries';
@@ -25,24 +25,7 @@ function line(
   const font = o.font ?? ctx.font;
   const width = A4[0] - 2 * M - (o.indent ?? 0);
   // Wrap by words; a hash (no spaces) is cut by characters.
-  const words = safe(font, s).split(/(\s+)/);
-  const out: string[] = [];
-  let cur = '';
-  for (const w of words) {
-    if (font.widthOfTextAtSize(cur + w, size) <= width) {
-      cur += w;
-      continue;
-    }
-    if (cur.trim()) out.push(cur.trimEnd());
-    cur = w.trimStart();
-    while (font.widthOfTextAtSize(cur, size) > width) {
-      let n = cur.length;
-      while (n > 1 && font.widthOfTextAtSize(cur.slice(0, n), size) > width) n--;
-      out.push(cur.slice(0, n));
-      cur = cur.slice(n);
-    }
-  }
-  if (cur.trim()) out.push(cur.trimEnd());
+  const out = wrapPdfText(font, safe(font, s), size, width, false);
   for (const l of out.length ? out : ['']) {
     if (ctx.y - size - 4 < M) {
       ctx.page = ctx.doc.addPage(A4);
