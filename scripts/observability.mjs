@@ -7,6 +7,8 @@
 // Metrics: Prometheus text format (prom-client), read at /api/metrics (site administrator) or on
 // METRICS_PORT (loopback only).
 import { randomUUID } from 'node:crypto';
+import { readFileSync, readdirSync } from 'node:fs';
+import { join } from 'node:path';
 import pino from 'pino';
 import client from 'prom-client';
 
@@ -75,16 +77,67 @@ export const metrics = () => shared().metrics;
 
 const UUID = /[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}/gi;
 
-/** A path as a metric label: ids and numbers become :id, static files one label, so labels stay few. */
+// Route labels must stay few (a label per distinct value is a series kept for ever; Prometheus,
+// "Instrumentation: do not use labels with unbounded values"). A path is labelled by the route of the
+// build that serves it (the build's routes-manifest.json: its page patterns, params as :id), a file of
+// public/ by its name, and anything else as "unmatched": a 404 or a typed serial never becomes a label.
+let routes;
+
+function toLabel(page) {
+  return page.replace(/\[\[?\.\.\.[^\]]+\]\]?/g, '*').replace(/\[[^\]]+\]/g, ':id');
+}
+
+function listPublic(dir, prefix = '') {
+  const out = [];
+  try {
+    for (const e of readdirSync(dir, { withFileTypes: true })) {
+      if (e.isDirectory()) out.push(...listPublic(join(dir, e.name), `${prefix}/${e.name}`));
+      else out.push(`${prefix}/${e.name}`);
+    }
+  } catch {
+    // No public folder: nothing to add.
+  }
+  return out;
+}
+
+function loadRoutes() {
+  try {
+    const dist = process.env.NEXT_DIST_DIR || '.next';
+    const manifest = JSON.parse(readFileSync(join(dist, 'routes-manifest.json'), 'utf8'));
+    return {
+      statics: new Set([...manifest.staticRoutes.map((r) => r.page), ...listPublic('public')]),
+      dynamics: manifest.dynamicRoutes.map((r) => ({ re: new RegExp(r.regex), label: toLabel(r.page) })),
+    };
+  } catch {
+    return null;
+  }
+}
+
+const MAX_FALLBACK_LABELS = 200;
+const fallbackLabels = new Set();
+
+/** A path as a metric label: the route pattern that serves it (ids as :id), or "unmatched". */
 export function routeLabel(path) {
   if (path.startsWith('/_next/')) return '/_next/*';
-  const clean = path
-    .split('?')[0]
+  const clean = path.split('?')[0];
+  if (routes === undefined) routes = loadRoutes();
+  if (routes) {
+    const trimmed = clean.length > 1 && clean.endsWith('/') ? clean.slice(0, -1) : clean;
+    if (routes.statics.has(trimmed)) return trimmed;
+    for (const d of routes.dynamics) if (d.re.test(trimmed)) return d.label;
+    return 'unmatched';
+  }
+  // No build manifest (a unit test, say): ids and numbers as :id, and never more than a few hundred labels.
+  const label = clean
     .replace(UUID, ':id')
     .split('/')
     .map((seg) => (/^\d+$/.test(seg) || /^[A-Za-z0-9_-]{20,}$/.test(seg) ? ':id' : seg))
-    .join('/');
-  return clean.length > 120 ? clean.slice(0, 120) : clean;
+    .join('/')
+    .slice(0, 120);
+  if (fallbackLabels.has(label)) return label;
+  if (fallbackLabels.size >= MAX_FALLBACK_LABELS) return 'other';
+  fallbackLabels.add(label);
+  return label;
 }
 
 /** A request id: the trusted proxy's when one is declared and sent a sane one, else a new one. */

@@ -137,3 +137,16 @@ test('metrics: request latency by route, pool use and recording outcomes, for th
   assert.match(after, /boreline_db_pool_connections\{state="in_use"\} \d+/);
   assert.match(after, /boreline_db_pool_connections\{state="waiting"\} \d+/);
 });
+
+test('metrics labels stay few: unknown paths and typed serials are "unmatched" or their route, never the raw path', async () => {
+  // Prometheus, "Instrumentation": do not use labels with unbounded values. Found by an outside test:
+  // every distinct 404 path used to become a series kept for ever.
+  const junk = `/zz${Date.now()}x${Math.floor(Math.random() * 1e6)}`;
+  assert.equal((await fetch(`${BASE_URL}${junk}`)).status, 404);
+  await fetch(`${BASE_URL}/api/events/not-a-meeting/component-serials/TM-${Date.now()}`);
+  const after = await scrape();
+  assert.ok(!after.includes(junk), 'the junk path is not a label');
+  assert.doesNotMatch(after, /component-serials\/TM-/, 'no serial becomes a label');
+  assert.match(after, /route="unmatched"/);
+  assert.match(after, /route="\/api\/events\/:id\/component-serials\/:id"/);
+});
