@@ -323,6 +323,36 @@ test('an official adds a dated note; it shows with its author and day; the owner
   );
 });
 
+test('an official cannot note a boat they own or entered, nor one they declared an interest in (found by an outside test)', async () => {
+  const official = new HttpSession();
+  const officialId = await signUpAndIn(official, 'lbofficial');
+  const [{ email }] = await query<{ email: string }>('select email from users where id = $1', [officialId]);
+  const meeting = new InspectionMeeting();
+  await meeting.create(`Logbook Ties ${Date.now()}`, []);
+  await query(`insert into event_staff (event_id, user_id, role) values ($1, $2, 'steward')`, [
+    meeting.eventId,
+    officialId,
+  ]);
+  const classId = await meeting.addClass('LT', rulesWith());
+  const own = await meeting.addEntry(classId, { ownerEmail: email });
+  const body = { eventId: meeting.eventId, category: 'repair', notedOn: yesterday, body: 'Checked by the stewards.' };
+  const mine = await official.json(`/api/boats/${own.boatId}/log-notes`, body);
+  assert.equal(mine.res.status, 403, JSON.stringify(mine.body));
+  assert.equal(mine.body.error.code, 'own_boat');
+
+  // Another boat at the same meeting: allowed until the official declares an interest in it.
+  const other = await meeting.addEntry(classId);
+  const fine = await official.json(`/api/boats/${other.boatId}/log-notes`, body);
+  assert.equal(fine.res.status, 201, JSON.stringify(fine.body));
+  await query(
+    `insert into official_interests (event_id, official_id, subject_kind, boat_id, statement) values ($1, $2, 'boat', $3, 'Crews for this boat')`,
+    [meeting.eventId, officialId, other.boatId],
+  );
+  const tied = await official.json(`/api/boats/${other.boatId}/log-notes`, body);
+  assert.equal(tied.res.status, 403, JSON.stringify(tied.body));
+  assert.equal(tied.body.error.code, 'conflict_of_interest');
+});
+
 test('bad note input is refused beside each field and nothing is kept', async () => {
   const before = await noteCount();
   const bad = await s.chief.json(notes(), {

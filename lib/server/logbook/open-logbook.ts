@@ -68,12 +68,39 @@ export async function openLogbookForNote(
   if (!actor) throw new AppError('unauthenticated', 401, 'Sign in to do this.');
   const boatId = parseId(rawBoatId, 'boat');
   const row = await findBoatWithMeetings(boatId);
-  const noteEventIds = (row?.eventIds ?? []).filter((eventId) => can(actor, 'boat.log_note', { eventId }));
-  if (!row || noteEventIds.length === 0)
+  const allowed = (row?.eventIds ?? []).filter((eventId) => can(actor, 'boat.log_note', { eventId }));
+  if (!row || allowed.length === 0)
     throw new AppError(
       'forbidden',
       403,
       'Only the chief scrutineer or a steward of a meeting this boat is entered in can add a note to its logbook.',
+    );
+  // An official's note is a record others rely on: not written by the boat's owner or an entrant of
+  // it (as an inspection of one's own boat is refused), nor at a meeting where the official declared
+  // an interest in the boat or in its owner or entrants that still stands.
+  const [ties] = await getDb().sequelize.query<{ party: boolean; conflicted: string[] }>(
+    `select (b.owner_id = :actorId or exists (select 1 from entries e where e.boat_id = b.id and e.entrant_id = :actorId)) as party,
+            coalesce((select array_agg(distinct i.event_id::text) from official_interests i
+                       left join official_interest_withdrawals w on w.interest_id = i.id
+                      where i.official_id = :actorId and w.id is null
+                        and ((i.subject_kind = 'boat' and i.boat_id = b.id)
+                          or (i.subject_kind = 'entrant' and (i.entrant_id = b.owner_id
+                              or i.entrant_id in (select e.entrant_id from entries e where e.boat_id = b.id))))), '{}') as conflicted
+       from boats b where b.id = :boatId`,
+    { replacements: { actorId: actor.id, boatId: row.id }, type: QueryTypes.SELECT },
+  );
+  if (ties?.party)
+    throw new AppError(
+      'own_boat',
+      403,
+      'You cannot write an official note on a boat you own or entered: ask another official.',
+    );
+  const noteEventIds = allowed.filter((eventId) => !(ties?.conflicted ?? []).includes(eventId));
+  if (noteEventIds.length === 0)
+    throw new AppError(
+      'conflict_of_interest',
+      403,
+      'You declared an interest in this boat or its people at this meeting: ask another official to write the note.',
     );
   return { actor, boatId: row.id, noteEventIds };
 }
