@@ -152,6 +152,11 @@ test('wrong content types, broken JSON and oversized bodies are refused cleanly'
       { headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: 'a=1&b=2' },
       { headers: { 'content-type': 'application/json' }, body: '{"unterminated": ' },
       { headers: { 'content-type': 'application/json' }, body: JSON.stringify({ pad: 'x'.repeat(300 * 1024) }) },
+      // NUL and a right-to-left override (Unicode Standard Annex #9; CVE-2021-42574) in a string.
+      {
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ name: 'Tussock\u0000', notes: 'a\u202Eb' }),
+      },
     ]) {
       const res = await s.fetch(r.path(ids), { method: r.method, ...init });
       const text = await res.text();

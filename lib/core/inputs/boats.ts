@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { convertLength, convertPower } from '@/lib/core/engine/units';
+import { isSingleLine } from '@/lib/core/inputs/text-safety';
 
 // A boat's declaration, shared by the boat form and the boats API. Figures arrive as JSON
 // numbers with their unit and are stored in mm and kW. Strings are refused: the form converts
@@ -45,7 +46,8 @@ const BoatFields = z.strictObject({
     .string({ error: 'Enter the boat’s name.' })
     .trim()
     .min(1, 'Enter the boat’s name.')
-    .max(80, 'Keep the boat’s name under 80 characters.'),
+    .max(80, 'Keep the boat’s name under 80 characters.')
+    .refine(isSingleLine, 'Type the boat’s name on one line.'),
   // As painted on the hull: letters and digits, with spaces, hyphens, dots or slashes between them.
   // It is an identifier, not a quantity: "-7" or "−7" is refused rather than read as a number.
   hullNumber: text('the hull or sail number', 20).refine(

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { isSingleLine } from '@/lib/core/inputs/text-safety';
 import type { ComponentKind } from '@/models/boat-record';
 
 // A component with identity (an engine, jet pump or impeller), shared by the boat page's forms and
@@ -17,8 +18,13 @@ const text = (what: string, max: number) =>
     .trim()
     .max(max, `Keep ${what} under ${max} characters.`);
 
-const maker = text('the maker', 80);
-const model = text('the model', 80);
+// One line, inner runs of white space as one space: "Tarnmoor  Engines" is "Tarnmoor Engines".
+const oneLine = (what: string, max: number) =>
+  text(what, max)
+    .refine(isSingleLine, `Type ${what} on one line.`)
+    .transform((v) => v.replace(/\s+/g, ' '));
+const maker = oneLine('the maker', 80);
+const model = oneLine('the model', 80);
 const trimCode = text('the trim code', 40);
 const notes = text('the notes', 1000);
 

@@ -3,7 +3,8 @@
 // declared Content-Length before a byte is read, then counted while it streams and refused the
 // moment the count passes the cap, so a chunked body with no length never costs the server more
 // than the cap in memory. Framework-free: runs in route handlers and unit tests.
-import { AppError } from '../../core/errors';
+import { AppError, fieldError } from '../../core/errors';
+import { findUnsafeText } from '../../core/inputs/text-safety';
 
 export const DEFAULT_JSON_MAX_BYTES = 256 * 1024;
 
@@ -79,7 +80,14 @@ export async function readJsonBody(req: Request, maxBytes = DEFAULT_JSON_MAX_BYT
     throw new AppError('unsupported_media_type', 415, 'Send the body as application/json.');
   }
   // A SyntaxError from JSON.parse is answered 400 invalid_json by toErrorResponse.
-  return JSON.parse(await readRawText(req, maxBytes));
+  const value: unknown = JSON.parse(await readRawText(req, maxBytes));
+  const unsafe = findUnsafeText(value);
+  if (unsafe)
+    throw fieldError(
+      unsafe.field,
+      `This text holds a control or text-direction character (${unsafe.codePoint}) that Boreline does not store: type it again without it.`,
+    );
+  return value;
 }
 
 /** A JSON body that may be left out: a request that declares Content-Length 0 reads as {}. */
