@@ -26,11 +26,22 @@ stop_pidfile() {
   fi
 }
 
-# Free a TCP port held by a leftover process from a killed run.
+# Frees a port held by a leftover of THIS checkout (a killed earlier run); a port held by anything
+# else (another checkout, another program) is never killed: the run stops and says which port.
 free_port() {
-  local port="$1" pids
+  local port="$1" pids pid cwd here mine=() others=()
+  here="$(pwd -P)"
   pids="$(ss -ltnpH "sport = :$port" 2>/dev/null | grep -o 'pid=[0-9]*' | cut -d= -f2 | sort -u || true)"
-  if [ -n "$pids" ]; then kill $pids 2>/dev/null || true; sleep 0.3; fi
+  for pid in $pids; do
+    cwd="$(readlink "/proc/$pid/cwd" 2>/dev/null || true)"
+    if [ "$cwd" = "$here" ] || [[ "$cwd" == "$here"/* ]]; then mine+=("$pid"); else others+=("$pid"); fi
+  done
+  if [ "${#others[@]}" -gt 0 ]; then
+    log "port $port is taken by another program (pid ${others[*]}: $(tr '\0' ' ' <"/proc/${others[0]}/cmdline" 2>/dev/null | cut -c1-80)); choose another port (PORT=…, BORELINE_PGPORT=…, TEST_PORT=…) or stop that program"
+    return 1
+  fi
+  if [ "${#mine[@]}" -gt 0 ]; then kill "${mine[@]}" 2>/dev/null || true; sleep 0.3; fi
+  return 0
 }
 
 # Start the fakes of hosted services in their own process group; pid kept in $1.

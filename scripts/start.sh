@@ -9,9 +9,18 @@ source "$(dirname "$0")/lib.sh"
 ensure_node_modules
 # Every secret is made here, per install, into the ignored .env (none is read from a committed file).
 node_modules/.bin/tsx scripts/env-secrets.ts
-asked_host="${BORELINE_HOST:-}"
+# What the environment asks for wins over .env (PORT=3321 npm start serves on 3321).
+declare -A asked=()
+for v in PORT NEXTAUTH_URL BORELINE_HOST SMTP_URL MAIL_FAKE_HTTP_PORT STRIPE_API_URL S3_ENDPOINT; do
+  if [ -n "${!v:-}" ]; then asked[$v]="${!v}"; fi
+done
 set -a; source .env; set +a
-export BORELINE_HOST="${asked_host:-${BORELINE_HOST:-}}"
+for v in "${!asked[@]}"; do export "$v=${asked[$v]}"; done
+# The sign-in address follows a port asked for, unless the address was asked for too.
+if [ -n "${asked[PORT]:-}" ]; then
+  if [ -z "${asked[NEXTAUTH_URL]:-}" ]; then export NEXTAUTH_URL="http://localhost:$PORT"; fi
+  export PAYMENTS_WEBHOOK_URL="http://127.0.0.1:$PORT/api/payments/webhook"
+fi
 # BORELINE_PGPORT chooses this checkout's PostgreSQL port (another checkout may hold 54329); the
 # database address follows the port, whatever .env says.
 export PGPORT="${BORELINE_PGPORT:-${PGPORT:-54329}}"
