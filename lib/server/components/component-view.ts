@@ -96,7 +96,9 @@ export async function loadComponentViews(
               coalesce(u.name, u.email) as "recordedBy", e.created_at as "createdAt"
          from component_events e join users u on u.id = e.recorded_by_id left join boats b on b.id = e.boat_id
         where e.component_id in (:ids)
-        order by e.created_at, e.id`,
+        -- A move writes 'removed' and 'fitted' in one transaction, often at the same instant: the
+        -- removal reads first.
+        order by e.created_at, array_position(array['registered', 'removed', 'fitted', 'edited']::varchar[], e.action), e.id`,
       { replacements: { ids }, type: QueryTypes.SELECT },
     ),
     listComponentSeals(ids),
