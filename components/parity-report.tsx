@@ -5,6 +5,7 @@ import type { ForceUnit, SpeedUnit } from '@/lib/core/engine/units';
 import type { ReportInputs, ReportResults } from '@/lib/core/reports/parity-figures';
 import { FORCE_UNITS, ParityCharts, SPEED_UNITS } from './parity-charts';
 import { ParityTables } from './parity-tables';
+import { ParityOdds } from './parity-odds';
 
 /** The report's charts and tables under one unit switch, so a figure reads the same in both. */
 export function ParityReport({ inputs, results }: { inputs: ReportInputs; results: ReportResults }) {
@@ -42,6 +43,7 @@ export function ParityReport({ inputs, results }: { inputs: ReportInputs; result
       </div>
       <ParityCharts inputs={inputs} results={results} forceUnit={forceUnit} speedUnit={speedUnit} />
       <ParityTables inputs={inputs} results={results} forceUnit={forceUnit} speedUnit={speedUnit} />
+      <ParityOdds inputs={inputs} results={results} forceUnit={forceUnit} speedUnit={speedUnit} />
     </div>
   );
 }

@@ -317,6 +317,16 @@ test('a component swapped after inspection flags re-inspection with what changed
     [c.id],
   );
   assert.equal(cached.inspection_result, null);
+
+  // The class's report (public once published) says the declaration changed, never the serials.
+  const report = await meeting.organiser.fetch(`/api/events/${meeting.eventId}/classes/${classId}/report`);
+  assert.equal(report.status, 200);
+  const text = await report.text();
+  const kept = (JSON.parse(text).data.draft.inputs.boats as { entryId: string; awaitingReinspection?: string }[]).find(
+    (b) => b.entryId === c.id,
+  );
+  assert.match(kept?.awaitingReinspection ?? '', /the declaration changed after inspection/);
+  assert.ok(!text.includes(`OLD-${run}`) && !text.includes(`NEW-${run}`), 'no component serial in the report');
 });
 
 test('a component moved from one boat to another keeps its seals and history', async () => {

@@ -149,13 +149,18 @@ test('the attack: 250 kW inspected and conforming, then declared 9000 kW: re-ins
   assert.equal(cached.inspection_result, null, 'My entries no longer reads the earlier verdict');
 
   // The draft report never shows 9000 kW: it keeps the figures confirmed at the inspection (250 kW,
-  // 403 kg measured), marked as awaiting re-inspection with what changed.
+  // 403 kg measured), marked as awaiting re-inspection, without the details of the change.
   report = await draft();
   assert.ok(!report.inputs.boats.some((b) => b.powerKw === 9000));
   const kept = report.inputs.boats.find((b) => b.entryId === entry.id)!;
   assert.equal(kept.powerKw, 250);
   assert.equal(kept.measuredWeightKg, 403);
-  assert.match(kept.awaitingReinspection ?? '', /Re-inspection required.*power 250 → 9000 kW/);
+  assert.match(
+    kept.awaitingReinspection ?? '',
+    /Re-inspection required.*\(version 1 → 2\); the figures are those inspected/,
+  );
+  // What changed stays with the officials and the owner: a report is public once published (and frozen).
+  assert.doesNotMatch(kept.awaitingReinspection ?? '', /9000/);
   assert.ok(!report.inputs.excluded.some((e) => e.entryId === entry.id));
 
   // The meeting's chief scrutineer is told, with what changed.
@@ -245,7 +250,9 @@ test('a record captured before a change but sent after it pins the version it ch
   assert.match(row.declarationChange ?? '', /power 240 → 295 kW/);
   const kept = (await draft()).inputs.boats.find((b) => b.entryId === e.id)!;
   assert.equal(kept.powerKw, 240, 'the report keeps the confirmed figure, not the 295 kW declared since');
-  assert.match(kept.awaitingReinspection ?? '', /power 240 → 295 kW/);
+  // The board says what changed; the report (public once published) only that it changed.
+  assert.match(kept.awaitingReinspection ?? '', /declaration changed after inspection \(version 1 → 2\)/);
+  assert.doesNotMatch(kept.awaitingReinspection ?? '', /295/);
   const mail = await waitForMail(DEMO.chief, { subject: subjectFor(e) });
   assert.match(mail.text, /power 240 → 295 kW/);
 });

@@ -66,6 +66,9 @@ export interface ParityBoatResult {
   isReferenceBoat: boolean;
   staticThrustN: number;
   uStaticThrustN: number;
+  /** The parts of uStaticThrustN from power and from nozzle diameter (T0 ∝ (P D)^(2/3)); absent in older reports. */
+  uStaticThrustFromPowerN?: number;
+  uStaticThrustFromDiameterN?: number;
   staticJetVelocityMs: number;
   uStaticJetVelocityMs: number;
   thrustAtReferenceSpeeds: ParityThrustAtSpeed[];
@@ -257,6 +260,8 @@ export function computeParity(boats: readonly ParityBoatInput[], assumptions: Pa
       isReferenceBoat: i === referenceIndex,
       staticThrustN: t0[i],
       uStaticThrustN: staticU.uStaticThrustN,
+      uStaticThrustFromPowerN: (2 / 3) * (u.uPowerKw / b.powerKw) * t0[i],
+      uStaticThrustFromDiameterN: (2 / 3) * (u.uNozzleDiameterMm / b.nozzleDiameterMm) * t0[i],
       staticJetVelocityMs: v0[i],
       uStaticJetVelocityMs: staticU.uStaticJetVelocityMs,
       thrustAtReferenceSpeeds,

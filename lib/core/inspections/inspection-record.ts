@@ -112,7 +112,7 @@ const ReportMeasurements = z.object({
     .extend({ readings: z.array(StoredNozzleMeasurement.shape.readings.element.pick({ diameterMm: true })) })
     .partial()
     .nullish(),
-  power: StoredPowerMeasurement.pick({ evidenceSeen: true, declaredKw: true }).partial().nullish(),
+  power: StoredPowerMeasurement.pick({ evidenceSeen: true, declaredKw: true, evidenceKind: true }).partial().nullish(),
   weight: StoredWeightMeasurement.pick({ readingsKg: true, meanKg: true }).partial().nullish(),
 });
 const ReportResults = z.object({ rules: z.array(StoredRuleResult.pick({ rule: true, expandedUncertainty: true })) });
@@ -123,6 +123,8 @@ export type RecordForReport = {
   /** The nozzle U the verdict decided with, or null when the record has no nozzle verdict. */
   nozzleExpandedUncertaintyMm: number | null;
   evidenceSeen: boolean;
+  /** The kind of power evidence seen; older records say only whether evidence was seen (null then). */
+  evidenceKind: 'dyno_sheet' | 'maker_rating' | 'declaration_only' | null;
   /** The power the scrutineer confirmed at this inspection (kW), or null when the record lacks it. */
   confirmedPowerKw: number | null;
   /** The boat's weight measured at this inspection (mean of the weighings, kg), or null when not weighed. */
@@ -145,6 +147,7 @@ export function readRecordForReport(measurements: unknown, results: unknown): Re
     correctedReadingsMm: corrected ? corrected.filter((x) => x > 0) : null,
     nozzleExpandedUncertaintyMm: nozzleRule?.expandedUncertainty ?? null,
     evidenceSeen: (m.success && m.data.power?.evidenceSeen) === true,
+    evidenceKind: (m.success && m.data.power?.evidenceKind) || null,
     confirmedPowerKw: m.success && typeof m.data.power?.declaredKw === 'number' ? m.data.power.declaredKw : null,
     measuredWeightKg: m.success ? weighedMeanKg(m.data.weight) : null,
   };

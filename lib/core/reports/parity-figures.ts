@@ -9,6 +9,7 @@
 // u(max) and u(min) with the median held exact: 100·sqrt(u_max² + u_min²)/median.
 
 import { computeParity, computeMedian, type ParityReport } from '../engine/parity';
+import { computeParityMonteCarlo, type MonteCarloParity } from '../engine/parity-monte-carlo';
 import { prepareJetSetup, withPowerAndDiameter, evaluateThrustN } from '../engine/jet';
 
 export type ReportAssumptions = {
@@ -26,6 +27,8 @@ export type ReportBoatInput = {
   powerKw: number;
   uPowerKw: number;
   powerSource: 'declared' | 'verified';
+  /** The kind of power evidence the inspection saw, which sets uPowerKw (absent in older reports). */
+  powerEvidence?: 'dyno_sheet' | 'maker_rating' | 'declaration_only';
   /** The weight measured at the inspection the figures come from (kg), when the boat was weighed. */
   measuredWeightKg?: number | null;
   nozzleDiameterMm: number;
@@ -65,12 +68,21 @@ export type ReportResults = {
     jetVelocitySpreadPercent: number;
   } | null;
   curves: { speedsMs: number[]; reference: number[]; byEntry: Record<string, number[]> } | null;
+  /**
+   * Monte Carlo over every boat's uncertainties (JCGM 101:2008): each boat's coverage interval, the
+   * chance that one out-thrusts another at each speed, and the spread's distribution. Absent in
+   * reports published before it.
+   */
+  odds?: MonteCarloParity | null;
 };
+
+/** Trials and seed of the report's Monte Carlo: a fixed seed, so a report's figures reproduce exactly. */
+export const REPORT_MONTE_CARLO = { trials: 10_000, seed: 20_261_203 } as const;
 
 export const CHART_SPEED_STEP_MS = 1;
 
 export function computeReportResults(inputs: ReportInputs): ReportResults {
-  if (inputs.boats.length === 0) return { parity: null, classFigures: null, curves: null };
+  if (inputs.boats.length === 0) return { parity: null, classFigures: null, curves: null, odds: null };
   const a = inputs.assumptions;
   const model = {
     densityKgM3: inputs.density.densityKgM3,
@@ -134,6 +146,21 @@ export function computeReportResults(inputs: ReportInputs): ReportResults {
       jetVelocitySpreadPercent: ((Math.max(...jets) - Math.min(...jets)) / jetMedian) * 100,
     },
     curves: { speedsMs, reference: speedsMs.map((v) => evaluateThrustN(ref, v)), byEntry },
+    odds:
+      n >= 2
+        ? computeParityMonteCarlo(
+            inputs.boats.map((b) => ({
+              id: b.entryId,
+              label: `#${b.raceNumber} ${b.boatName}`,
+              powerKw: b.powerKw,
+              nozzleDiameterMm: b.nozzleDiameterMm,
+              uPowerKw: b.uPowerKw,
+              uNozzleDiameterMm: b.uNozzleDiameterMm,
+            })),
+            model,
+            { referenceSpeedsMs: a.referenceSpeedsMs, ...REPORT_MONTE_CARLO },
+          )
+        : null,
   };
 }
 

@@ -1,6 +1,7 @@
 import 'server-only';
 import { QueryTypes } from 'sequelize';
 import { FROM_REPLICA, getDb } from '@/lib/server/db';
+import { evidenceOf, powerExpandedUncertaintyKw } from '@/lib/core/reports/power-uncertainty';
 import { AppError } from '@/lib/core/errors';
 import { findRulesInForce } from '@/lib/server/classes/rule-versions';
 import { computeAreaEquivalentDiameterFromReadingsMm } from '@/lib/core/engine/measurement';
@@ -24,6 +25,12 @@ type Row = {
   measurements: unknown;
   results: unknown;
 };
+
+/** The task's reason cut to what a public report may say: that the declaration changed, and between which versions. */
+function publicChangeNotice(reason: string): string {
+  const versions = /\(version \d+ → \d+\)/.exec(reason)?.[0];
+  return `Re-inspection required: the declaration changed after inspection${versions ? ` ${versions}` : ''}; the figures are those inspected`;
+}
 
 const RESULT_WORDS: Record<string, string> = { does_not_conform: 'does not conform', inconclusive: 'inconclusive' };
 
@@ -66,8 +73,8 @@ export async function gatherReportInputs(eventId: string, classId: string, at = 
     { replacements: { eventId, classId }, type: QueryTypes.SELECT, ...FROM_REPLICA },
   );
   const r = rules.rules;
-  // Class defaults are expanded uncertainties (k = 2); the engine takes standard ones (U / 2).
-  const uPowerKw = r.power.defaultUncertaintyKw / 2;
+  // Class defaults are expanded uncertainties (k = 2); the engine takes standard ones (U / 2). The
+  // power's follows the evidence seen at the inspection (lib/core/reports/power-uncertainty.ts).
   const boats: ReportBoatInput[] = [];
   const excluded: ReportExcluded[] = [];
   for (const row of rows as unknown as Row[]) {
@@ -95,19 +102,24 @@ export async function gatherReportInputs(eventId: string, classId: string, at = 
     // The readings the verdict used, as the record stores them (corrected to 20 °C when a temperature was given).
     const corrected = record.correctedReadingsMm;
     const U = record.nozzleExpandedUncertaintyMm ?? r.nozzle.defaultUncertaintyMm;
+    // What the scrutineer confirmed, else the declaration version the inspection checked: never the live boat row.
+    const powerKw = record.confirmedPowerKw ?? row.checkedPowerKw!;
+    const powerEvidence = evidenceOf(record.evidenceKind, record.evidenceSeen);
     boats.push({
       ...base,
-      // What the scrutineer confirmed, else the declaration version the inspection checked: never the live boat row.
-      powerKw: record.confirmedPowerKw ?? row.checkedPowerKw!,
-      uPowerKw,
+      powerKw,
+      uPowerKw: powerExpandedUncertaintyKw(powerKw, powerEvidence, r.power.defaultUncertaintyKw) / 2,
+      powerEvidence,
       powerSource: record.evidenceSeen ? 'verified' : 'declared',
       measuredWeightKg: record.measuredWeightKg,
       nozzleDiameterMm: computeAreaEquivalentDiameterFromReadingsMm(corrected),
       uNozzleDiameterMm: U / 2,
       inspectionId: row.inspectionId,
       inspectedAt: row.receivedAt ? new Date(row.receivedAt).toISOString() : null,
-      // The figures stay those inspected; the reader is told the declaration changed since.
-      ...(row.declarationChange ? { awaitingReinspection: row.declarationChange } : {}),
+      // The figures stay those inspected; the reader is told the declaration changed since, but not what
+      // changed: a report is published to anyone and frozen, and the details (component serials, makers,
+      // declared figures) are for the officials and the owner only.
+      ...(row.declarationChange ? { awaitingReinspection: publicChangeNotice(row.declarationChange) } : {}),
     });
   }
   const density = resolveEventDensity(event);
