@@ -90,6 +90,11 @@ test('organiser publishes the RR parity report; the public page, PDF and CSV wor
   assert.match(await pub.getByTestId('report-title').innerText(), /River Runner/);
   await pub.getByTestId('chart-thrust-curves').locator('path.recharts-line-curve').first().waitFor();
   await screenshot(pub, 'report-02-public-phone');
+  // The uncertainty sections: power evidence per boat, the range nozzle, and who out-thrusts whom.
+  await pub.getByTestId('power-evidence-table').waitFor();
+  assert.equal(await pub.getByTestId('power-evidence-table').locator('tbody tr').count(), Number(n));
+  await pub.getByTestId('odds-matrix').waitFor();
+  assert.match(await pub.getByTestId('spread-odds').innerText(), /95 % coverage interval/);
 
   const pdfDownload = pub.waitForEvent('download');
   await pub.getByTestId('report-pdf').click();

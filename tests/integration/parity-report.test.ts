@@ -137,7 +137,9 @@ test('draft figures equal the engine on the same numbers; class statistics equal
       label: '',
       powerKw: b.powerKw,
       nozzleDiameterMm: computeAreaEquivalentDiameterFromReadingsMm(b.readings),
-      uPowerKw: 3,
+      // Evidence seen without its kind counts as a maker's rating: U = 8 % of the power (k = 2), above
+      // the class's 6 kW here; standard u = U/2 (common practice, no source: Boreline's default).
+      uPowerKw: (0.08 * b.powerKw) / 2,
       uNozzleDiameterMm: 0.025,
     })),
     {
@@ -159,6 +161,19 @@ test('draft figures equal the engine on the same numbers; class statistics equal
       e.thrustAtReferenceSpeeds.map((t) => +t.thrustN.toFixed(6)),
     );
   }
+  for (const b of draft.inputs.boats) assert.equal(b.powerEvidence, 'maker_rating');
+  // The Monte Carlo's pair chances agree in direction with the nominal figures when the gap is wide.
+  const odds = draft.results.odds;
+  assert.equal(odds.pairs.length, (5 * 4) / 2);
+  for (const pair of odds.pairs) {
+    const [a, b] = [pair.aId, pair.bId].map((id: string) => expected.boats.find((x) => x.id === id)!);
+    const chance = pair.probabilityAAhead[0].probability;
+    assert.ok(chance >= 0 && chance <= 1);
+    const gap = (a.staticThrustN - b.staticThrustN) / Math.hypot(a.uStaticThrustN, b.uStaticThrustN);
+    if (gap > 3) assert.ok(chance > 0.99, `${gap} standard uncertainties apart: ${chance}`);
+    if (gap < -3) assert.ok(chance < 0.01, `${gap} standard uncertainties apart: ${chance}`);
+  }
+  assert.ok(draft.results.parity.boats.every((b: { rangeEqualising: unknown }) => b.rangeEqualising));
   const t0 = expected.boats.map((b) => b.staticThrustN);
   const s = draft.results.parity.summary;
   assert.ok(Math.abs(s.medianStaticThrustN - ss.median(t0)) < 1e-6);

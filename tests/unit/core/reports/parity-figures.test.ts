@@ -125,8 +125,13 @@ test('the bisection agrees with the closed static form T0 = (2 eta P / (1 + K_n)
   );
 });
 
-test('no boats: no figures, no curves', () => {
-  assert.deepEqual(computeReportResults(inputsWith([])), { parity: null, classFigures: null, curves: null });
+test('no boats: no figures, no curves, no odds', () => {
+  assert.deepEqual(computeReportResults(inputsWith([])), {
+    parity: null,
+    classFigures: null,
+    curves: null,
+    odds: null,
+  });
 });
 
 test('odd count: min, max and median static thrust with their uncertainties (momentum theory; GUM 5.1.2)', () => {
