@@ -4,7 +4,7 @@
 
 import { evaluateConformity } from './conformity';
 import type { DecisionRule, Verdict } from './conformity';
-import { resolveOutcome } from './conformity-burden';
+import { resolveOutcomeForMeasurement } from './conformity-burden';
 import type { BurdenOfProof, ResolvedOutcome } from './conformity-burden';
 import { computeThrustCurve } from './jet';
 import type { JetModelAssumptions } from './jet';
@@ -202,6 +202,6 @@ export function decideConformity(input: ConformityBody): ConformityData {
     acceptanceLimitsMm: r.acceptanceLimitsMm,
   };
   // The key is absent (not undefined) without a burden, so the answer is byte for byte what it was.
-  if (burdenOfProof !== undefined) data.outcome = resolveOutcome(r.verdict, burdenOfProof);
+  if (burdenOfProof !== undefined) data.outcome = resolveOutcomeForMeasurement(body, r.verdict, burdenOfProof);
   return data;
 }

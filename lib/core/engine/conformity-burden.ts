@@ -13,7 +13,8 @@
 // is never changed: the outcome is an extra statement beside it.
 
 import { EngineInputError } from './engine-input-error';
-import type { Verdict } from './conformity';
+import { evaluateConformity } from './conformity';
+import type { ConformityInput, Verdict } from './conformity';
 
 export const BURDENS_OF_PROOF = ['conformity', 'non_conformity'] as const;
 export type BurdenOfProof = (typeof BURDENS_OF_PROOF)[number];
@@ -77,6 +78,31 @@ export function resolveOutcome(verdict: Verdict, burden: BurdenOfProof): Resolve
     outcome,
     partStands: outcome === 'conforms' || outcome === 'non_conformity_not_proven',
     explanation: EXPLANATIONS[outcome],
+  };
+}
+
+/**
+ * The outcome of a measurement under a burden of proof, whatever acceptance rule the class uses. The
+ * one who must prove carries the uncertainty (ISO 14253-1:2017): a protester proves non-conformity
+ * only beyond the limit by more than U (the rejection zone), so under that burden the outcome is
+ * resolved from the ISO 14253-1 verdict even when the class accepts by a 'simple' or 'guarded' rule
+ * (both would otherwise call a part inside the limit band non-conforming against the entrant). Under
+ * the entrant's burden the class's own verdict stands (a 'simple' rule is the class's choice to share
+ * the risk, ILAC-G8:09/2019). The verdict itself is never changed.
+ */
+export function resolveOutcomeForMeasurement(
+  input: ConformityInput,
+  classVerdict: Verdict,
+  burden: BurdenOfProof,
+): ResolvedOutcome {
+  const burdenOfProof = assertBurdenOfProof(burden);
+  if (burdenOfProof === 'conformity' || input.rule === 'iso14253') return resolveOutcome(classVerdict, burdenOfProof);
+  const proven = evaluateConformity({ ...input, rule: 'iso14253' }).verdict;
+  const resolved = resolveOutcome(proven, burdenOfProof);
+  if (proven === classVerdict) return resolved;
+  return {
+    ...resolved,
+    explanation: `${resolved.explanation} The protester must show the value beyond the limit by more than the expanded uncertainty (ISO 14253-1:2017), whatever the class's acceptance rule.`,
   };
 }
 

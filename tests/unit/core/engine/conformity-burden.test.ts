@@ -20,30 +20,33 @@ import {
 type Row = { measuredMm: number; expected: Record<DecisionRule, Record<BurdenOfProof, Outcome>> };
 const same = (o: Outcome) => ({ conformity: o, non_conformity: o });
 
-// Outcomes worked by hand: a proven verdict (or a binary rule's) is the same under either burden; the
-// ISO 14253-1 zone of doubt is "not accepted" when the entrant proves conformity and "non-conformity
-// not proven" when the protester proves non-conformity.
+// Outcomes worked by hand: a proven verdict is the same under either burden; the ISO 14253-1 zone of
+// doubt is "not accepted" when the entrant proves conformity and "non-conformity not proven" when the
+// protester proves non-conformity. The protester carries the uncertainty whatever acceptance rule the
+// class uses (ISO 14253-1:2017, clause 5 [memory for the clause number]), so under that burden a value
+// within U of the limit is "not proven" under the simple and guarded rules too.
 const WORKED: Row[] = [
   // 101.93: inside 102.00 - 0.05 = 101.95, conformity proven (ISO 14253-1:2017, clause 5 [memory]).
   {
     measuredMm: 101.93,
     expected: { simple: same('conforms'), guarded: same('conforms'), iso14253: same('conforms') },
   },
-  // 101.97: within U of the limit: undecided under ISO 14253-1; guarded acceptance (ILAC-G8:09/2019, w = U) rejects.
+  // 101.97: within U of the limit: undecided under ISO 14253-1; guarded acceptance (ILAC-G8:09/2019, w = U)
+  // rejects for the entrant, but a protester has not proven non-conformity.
   {
     measuredMm: 101.97,
     expected: {
-      simple: same('conforms'),
-      guarded: same('does_not_conform'),
+      simple: { conformity: 'conforms', non_conformity: 'non_conformity_not_proven' },
+      guarded: { conformity: 'does_not_conform', non_conformity: 'non_conformity_not_proven' },
       iso14253: { conformity: 'not_accepted', non_conformity: 'non_conformity_not_proven' },
     },
   },
-  // 102.02: beyond the limit but within U: still undecided under ISO 14253-1.
+  // 102.02: beyond the limit but within U: still undecided under ISO 14253-1, so not proven by a protester.
   {
     measuredMm: 102.02,
     expected: {
-      simple: same('does_not_conform'),
-      guarded: same('does_not_conform'),
+      simple: { conformity: 'does_not_conform', non_conformity: 'non_conformity_not_proven' },
+      guarded: { conformity: 'does_not_conform', non_conformity: 'non_conformity_not_proven' },
       iso14253: { conformity: 'not_accepted', non_conformity: 'non_conformity_not_proven' },
     },
   },
