@@ -20,7 +20,8 @@ import type { DecideInput, InspectionDecision, InstrumentFigures } from './decid
 export { StoredInspectionRecord, StoredMeasurements, StoredResults, StoredRuleResult };
 
 export type BuildInspectionRecordInput = {
-  input: Pick<RecordInspectionInput, 'weight' | 'safety'> & {
+  input: Pick<RecordInspectionInput, 'weight' | 'safety'> &
+    Partial<Pick<RecordInspectionInput, 'measuredItems' | 'gaugeChecks'>> & {
     nozzle: DecideInput['input']['nozzle'];
     power: Pick<RecordInspectionInput['power'], 'declaredKw' | 'evidenceSeen' | 'note'> &
       Partial<Pick<RecordInspectionInput['power'], 'evidenceKind'>>;
@@ -34,6 +35,9 @@ export type BuildInspectionRecordInput = {
   ruleVersion: number;
   nozzleInstrument: InstrumentFigures | null;
   weightInstrument: InstrumentFigures | null;
+  /** The instruments named for measured items (by item key) and the nozzle's gauge, when on the list. */
+  itemInstruments?: Readonly<Record<string, InstrumentFigures | null>>;
+  gaugeInstrument?: InstrumentFigures | null;
   /** The boat's declared power and its evidence at the time of the inspection. */
   boat: { declaredKw: number; powerEvidence: string };
 };
@@ -91,6 +95,37 @@ export function buildInspectionRecord(b: BuildInspectionRecordInput): StoredInsp
       seals: [],
       ...(b.sealActions?.length ? { sealActions: b.sealActions } : {}),
       safety: input.safety as Record<string, boolean>,
+      // Written only when there is something, so records without items keep their shape.
+      ...(decision.items.length
+        ? {
+            measuredItems: decision.items.map((d) => {
+              const m = input.measuredItems?.find((x) => x.key === d.key);
+              const instrument = b.itemInstruments?.[d.key] ?? null;
+              return {
+                key: d.key,
+                label: d.label,
+                unit: d.unit,
+                readings: (m?.readings ?? []).map((r) => ({ ...r }) as Record<string, number>),
+                instrumentId: m?.instrumentId ?? null,
+                instrumentName: instrument?.name ?? null,
+                value: d.value,
+                expandedUncertainty: d.expandedUncertainty,
+                uncertaintyBasis: d.uncertaintyBasis,
+              };
+            }),
+          }
+        : {}),
+      ...(input.gaugeChecks?.length
+        ? {
+            gaugeChecks: input.gaugeChecks.map((g) => ({
+              rule: g.rule,
+              gauge: g.gauge,
+              instrumentId: g.instrumentId,
+              instrumentName: b.gaugeInstrument?.name ?? null,
+              passed: g.passed,
+            })),
+          }
+        : {}),
     },
     results: {
       rules: decision.rules,
