@@ -271,7 +271,11 @@ export const RecordInspectionInput = z
     const keys = new Set<string>();
     v.measuredItems.forEach((m, i) => {
       if (keys.has(m.key))
-        ctx.addIssue({ code: 'custom', path: ['measuredItems', i, 'key'], message: `The item ${m.key} is given twice.` });
+        ctx.addIssue({
+          code: 'custom',
+          path: ['measuredItems', i, 'key'],
+          message: `The item ${m.key} is given twice.`,
+        });
       keys.add(m.key);
     });
     const gauged = new Set<string>();

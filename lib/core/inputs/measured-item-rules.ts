@@ -35,7 +35,9 @@ export const MeasuredItemRule = z
       .trim()
       .min(2, 'Name the item (at least 2 characters).')
       .max(80, 'Keep the item’s name under 80 characters.'),
-    unit: z.enum(ITEM_UNITS as unknown as [ItemUnit, ...ItemUnit[]], { error: 'Choose the item’s unit from the list.' }),
+    unit: z.enum(ITEM_UNITS as unknown as [ItemUnit, ...ItemUnit[]], {
+      error: 'Choose the item’s unit from the list.',
+    }),
     minimum: limit('minimum'),
     maximum: limit('maximum'),
     readings: z

@@ -170,9 +170,9 @@ export type DecideInput = {
   /** kind: a 'protest' inspection is decided with the class's protest burden of proof, any other with its inspection one. */
   input: Pick<RecordInspectionInput, 'weight' | 'safety'> &
     Partial<Pick<RecordInspectionInput, 'measuredItems' | 'gaugeChecks'>> & { kind?: InspectionKind } & {
-    nozzle: NozzleDecideInput;
-    power: Pick<RecordInspectionInput['power'], 'declaredKw' | 'evidenceSeen'> & { note?: string };
-  };
+      nozzle: NozzleDecideInput;
+      power: Pick<RecordInspectionInput['power'], 'declaredKw' | 'evidenceSeen'> & { note?: string };
+    };
   rules: ClassRules;
   nozzleInstrument?: InstrumentFigures | null;
   weightInstrument?: InstrumentFigures | null;
@@ -595,9 +595,7 @@ export function decideInspection(d: DecideInput): InspectionDecision {
   const power = decidePower(d);
   const itemInstruments: Record<string, ItemInstrument | null> = {};
   for (const [key, i] of Object.entries(d.itemInstruments ?? {}))
-    itemInstruments[key] = i
-      ? { id: i.id, name: i.name, quantity: i.quantity, ...toItemU(i) }
-      : null;
+    itemInstruments[key] = i ? { id: i.id, name: i.name, quantity: i.quantity, ...toItemU(i) } : null;
   const { lines: itemLines, items } = decideMeasuredItems(d.rules, d.input.measuredItems, itemInstruments);
   const gaugeLines = decideGaugeChecks(
     d.rules,

@@ -84,7 +84,8 @@ function explainItem(o: {
     const acc = f(o.side === 'max' ? o.limit - o.u : o.limit + o.u);
     return `${value} ${o.verdict === 'conforms' ? notBeyond : beyond} the acceptance limit ${acc} (${limit} ${o.side === 'max' ? 'less' : 'plus'} U ${u}, guarded acceptance): ${o.verdict === 'conforms' ? 'conforms' : 'does not conform'}.`;
   }
-  if (o.verdict === 'conforms') return `${value} is inside ${limit} by at least U ${u}: conformity proven (ISO 14253-1).`;
+  if (o.verdict === 'conforms')
+    return `${value} is inside ${limit} by at least U ${u}: conformity proven (ISO 14253-1).`;
   if (o.verdict === 'does_not_conform')
     return `${value} ${beyond} ${limit} by more than U ${u}: non-conformity proven (ISO 14253-1).`;
   return `${value} is within U ${u} of ${limit}: neither conformity nor non-conformity proven (ISO 14253-1). Measure again with a better instrument (a smaller U) to decide.`;
@@ -100,8 +101,10 @@ function estimate(rule: MeasuredItemRule, m: MeasuredItemInput, index: number, i
   if (rule.formula.kind === 'engine_capacity') {
     m.readings.forEach((r, i) => {
       for (const name of ['boreMm', 'strokeMm'] as const)
-        if (r[name] == null) throw new EngineInputError(field(i, name), `Enter the ${name === 'boreMm' ? 'bore' : 'stroke'} (mm).`);
-      if (r.value != null) throw new EngineInputError(field(i, 'value'), `${rule.label} is worked out from bore and stroke.`);
+        if (r[name] == null)
+          throw new EngineInputError(field(i, name), `Enter the ${name === 'boreMm' ? 'bore' : 'stroke'} (mm).`);
+      if (r.value != null)
+        throw new EngineInputError(field(i, 'value'), `${rule.label} is worked out from bore and stroke.`);
     });
     const lengthU = inst && inst.quantity === 'length' ? inst.expandedUncertainty / 2 : null;
     return estimateEngineCapacity({
@@ -124,7 +127,8 @@ function estimate(rule: MeasuredItemRule, m: MeasuredItemInput, index: number, i
       throw new EngineInputError(field(i, 'value'), `${rule.label} is read directly: give value only.`);
   });
   // The instrument's own U applies only where its quantity is the item's (a length instrument for mm, a scale for kg).
-  const applies = inst && ((inst.quantity === 'length' && rule.unit === 'mm') || (inst.quantity === 'mass' && rule.unit === 'kg'));
+  const applies =
+    inst && ((inst.quantity === 'length' && rule.unit === 'mm') || (inst.quantity === 'mass' && rule.unit === 'kg'));
   return estimateDirectItem({
     unit: rule.unit,
     values: m.readings.map((r) => r.value!),

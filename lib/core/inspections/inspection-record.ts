@@ -22,10 +22,10 @@ export { StoredInspectionRecord, StoredMeasurements, StoredResults, StoredRuleRe
 export type BuildInspectionRecordInput = {
   input: Pick<RecordInspectionInput, 'weight' | 'safety'> &
     Partial<Pick<RecordInspectionInput, 'measuredItems' | 'gaugeChecks'>> & {
-    nozzle: DecideInput['input']['nozzle'];
-    power: Pick<RecordInspectionInput['power'], 'declaredKw' | 'evidenceSeen' | 'note'> &
-      Partial<Pick<RecordInspectionInput['power'], 'evidenceKind'>>;
-  };
+      nozzle: DecideInput['input']['nozzle'];
+      power: Pick<RecordInspectionInput['power'], 'declaredKw' | 'evidenceSeen' | 'note'> &
+        Partial<Pick<RecordInspectionInput['power'], 'evidenceKind'>>;
+    };
   /** The register's seal actions at this inspection, in the order written (none: an empty list). */
   sealActions?: StoredSealAction[];
   /** The boat's document named as the dyno sheet (checked to be this boat's by the server). */
