@@ -13,6 +13,14 @@ export type CheckMethod = (typeof CHECK_METHODS)[number];
 
 export const ITEM_KEY_PATTERN = /^[a-z][a-z0-9_]{1,39}$/;
 
+/**
+ * A value stored under an item's key, own properties only: a key such as "constructor" or "toString"
+ * fits the pattern, and a plain lookup would find Object.prototype's function instead of nothing.
+ */
+export function ownValue<T>(byKey: Readonly<Record<string, T>> | null | undefined, key: string): T | undefined {
+  return byKey && Object.hasOwn(byKey, key) ? byKey[key] : undefined;
+}
+
 const limit = (what: string) =>
   z
     .number({ error: `Enter the ${what} as a number, or leave it empty.` })

@@ -23,7 +23,7 @@ import {
 import type { ClassRules } from '../inputs/class-rules';
 import type { GaugeCheckInput, MeasuredItemInput } from '../inputs/inspections';
 import type { MeasuredItemRule } from '../inputs/measured-item-rules';
-import { CHECK_METHOD_WORDS } from '../inputs/measured-item-rules';
+import { CHECK_METHOD_WORDS, ownValue } from '../inputs/measured-item-rules';
 
 /** An instrument named for an item, with its U already worked out (decide-inspection's instrumentUncertainty). */
 export type ItemInstrument = {
@@ -192,7 +192,7 @@ export function decideMeasuredItems(
       continue;
     }
     const m = given[index];
-    const est: ItemEstimate = estimate(rule, m, index, instruments[rule.key] ?? null);
+    const est: ItemEstimate = estimate(rule, m, index, ownValue(instruments, rule.key) ?? null);
     const result = evaluateConformity({
       readingsMm: est.decisiveValues,
       ...(rule.maximum != null ? { maxMm: rule.maximum } : {}),

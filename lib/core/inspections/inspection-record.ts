@@ -14,6 +14,7 @@ import {
   type StoredSealAction,
 } from '../../../models/shapes/inspection-record';
 import type { ClassRules } from '../inputs/class-rules';
+import { ownValue } from '../inputs/measured-item-rules';
 import type { RecordInspectionInput } from '../inputs/inspections';
 import type { DecideInput, InspectionDecision, InstrumentFigures } from './decide-inspection';
 
@@ -100,7 +101,7 @@ export function buildInspectionRecord(b: BuildInspectionRecordInput): StoredInsp
         ? {
             measuredItems: decision.items.map((d) => {
               const m = input.measuredItems?.find((x) => x.key === d.key);
-              const instrument = b.itemInstruments?.[d.key] ?? null;
+              const instrument = ownValue(b.itemInstruments, d.key) ?? null;
               return {
                 key: d.key,
                 label: d.label,

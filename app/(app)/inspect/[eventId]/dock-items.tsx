@@ -1,7 +1,7 @@
 'use client';
 
 import type { ClassRules } from '@/lib/core/inputs/class-rules';
-import { CHECK_METHOD_WORDS } from '@/lib/core/inputs/measured-item-rules';
+import { CHECK_METHOD_WORDS, ownValue } from '@/lib/core/inputs/measured-item-rules';
 import { FORMULA_INPUTS } from '@/lib/core/engine/measured-item';
 import { INSTRUMENT_TYPE_LABELS, type InstrumentType } from '@/lib/core/inputs/instrument-calibration';
 import type { InstrumentView } from '@/lib/server/inspections/list-instruments';
@@ -30,8 +30,8 @@ export function DockItems({ rules, items, sentIndex, instruments, onChange, err 
     <fieldset id="dock-items" className="scroll-mt-4 space-y-4" data-testid="dock-items">
       <legend className="text-xl font-bold">The class’s own measured items</legend>
       {defined.map((m) => {
-        const item = items[m.key] ?? blankItems(rules)[m.key];
-        const at = sentIndex[m.key];
+        const item = ownValue(items, m.key) ?? ownValue(blankItems(rules), m.key)!;
+        const at = ownValue(sentIndex, m.key);
         const e = (path: string) => (at == null ? undefined : err(`measuredItems.${at}.${path}`));
         const allowed = instruments.filter((i) =>
           m.instrumentTypes.includes((i.instrumentType ?? '') as InstrumentType),

@@ -9,6 +9,7 @@ import type { BoardRow, InspectionBoard } from '@/lib/server/inspections/list-in
 import type { BoatCard } from '@/lib/server/inspections/load-boat-card';
 import { figureValue } from '@/lib/core/format/figures';
 import { FORMULA_INPUTS } from '@/lib/core/engine/measured-item';
+import { ownValue } from '@/lib/core/inputs/measured-item-rules';
 
 /** The boat being inspected, from the server's card or, offline, from the phone's copy of the board. */
 export type DockTarget = {
@@ -200,7 +201,7 @@ const isTyped = (r: Record<string, string>) => Object.values(r).some((v) => v.tr
 /** The measured items the form will send, in the rules' order: an item with nothing typed is left out (not measured). */
 export function itemsToSend(f: FormState, rules: ClassRules | null): { key: string; item: FormItem }[] {
   return (rules?.measuredItems ?? [])
-    .map((m) => ({ key: m.key, item: f.items?.[m.key] }))
+    .map((m) => ({ key: m.key, item: ownValue(f.items, m.key) }))
     .filter((x): x is { key: string; item: FormItem } => !!x.item && x.item.readings.some(isTyped));
 }
 
@@ -330,12 +331,12 @@ function itemsFromDraft(
 ): Record<string, FormItem> {
   const out = { ...base };
   for (const m of items ?? []) {
-    const blank = base[m.key]?.readings[0] ?? {};
+    const blank = ownValue(base, m.key)?.readings[0] ?? {};
     const rows = m.readings.map((r) => ({
       ...Object.fromEntries(Object.keys(blank).map((k) => [k, ''])),
       ...Object.fromEntries(Object.entries(r).map(([k, v]) => [k, str(v)])),
     }));
-    const want = base[m.key]?.readings.length ?? rows.length;
+    const want = ownValue(base, m.key)?.readings.length ?? rows.length;
     while (rows.length < want) rows.push({ ...Object.fromEntries(Object.keys(blank).map((k) => [k, ''])) });
     out[m.key] = { instrumentId: m.instrumentId ?? '', readings: rows };
   }

@@ -315,3 +315,15 @@ test('the inspection input refuses duplicate items, unknown reading fields and f
   assert.match(msg({ gaugeChecks: [{ rule: 'nozzle', passed: true }] }), /which gauge/);
   assert.match(msg({ gaugeChecks: [{ rule: 'weight', gauge: 'G', passed: true }] }), /nozzle exit/);
 });
+
+test('an item keyed “constructor” finds no instrument on Object.prototype', () => {
+  const odd = { ...BALLAST, key: 'constructor', readings: 1 };
+  const d = decideInspection({
+    input: base({ measuredItems: [{ key: 'constructor', instrumentId: null, readings: [{ value: 25 }] }] }),
+    rules: rules({ measuredItems: [odd] }),
+    itemInstruments: {},
+  });
+  const line = d.rules.find((r) => r.rule === 'item:constructor')!;
+  assert.match(line.explanation, /the class default U 1 kg/);
+  assert.doesNotMatch(line.explanation, /Object/);
+});
