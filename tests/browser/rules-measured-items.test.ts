@@ -47,7 +47,7 @@ test('rules editor on a phone: gauge method explained, an engine capacity item a
   // No maximum or minimum: refused, the message beside the item's field, nothing saved.
   await item.getByText('Set a maximum or a minimum (or both).').waitFor();
 
-  await item.getByLabel('Maximum', { exact: true }).fill('2000');
+  await item.getByLabel(/^Maximum/).fill('2000');
   await save.click();
   await page.getByText('Draft v1 saved.').waitFor();
   const { body } = await meeting.organiser
