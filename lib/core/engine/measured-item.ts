@@ -163,7 +163,11 @@ export function estimateEngineCapacity(o: {
     strokeMm: s,
     uBoreMm: uB,
     uStrokeMm: uS,
-    basis: `V = ${o.cylinders}·(π/4)·b²·s with bore ${fmt(b)} mm and stroke ${fmt(s)} mm (geometric cylinder volume, common practice); ${source}; u(V)/V = √((2u(b)/b)² + (u(s)/s)²) with u(b) ${fmt(uB)} mm, u(s) ${fmt(uS)} mm (JCGM 100:2008, 5.1.2): U = 2·u(V) = ${fmt(U)} cm³`,
+    basis: `V = ${o.cylinders}·(π/4)·b²·s with bore ${fmt(b)} mm and stroke ${fmt(s)} mm (geometric cylinder volume, common practice); ${source}${
+      uB === 0 && uS === 0
+        ? ''
+        : `; u(V)/V = √((2u(b)/b)² + (u(s)/s)²) with u(b) ${fmt(uB)} mm, u(s) ${fmt(uS)} mm (JCGM 100:2008, 5.1.2): U = 2·u(V) = ${fmt(U)} cm³`
+    }`,
   };
 }
 
