@@ -6,7 +6,9 @@ import { z } from 'zod';
 
 export const STORED_VERDICTS = ['conforms', 'does_not_conform', 'inconclusive'] as const;
 export const STORED_DECISION_RULES = ['simple', 'guarded', 'iso14253'] as const;
-export const STORED_CHECK_AREAS = ['nozzle', 'weight', 'power', 'safety'] as const;
+export const STORED_CHECK_AREAS = ['nozzle', 'weight', 'power', 'safety', 'items'] as const;
+/** Units of a rule line: the nozzle's, weight's and power's, and a class's measured items' own. */
+export const STORED_RULE_UNITS = ['mm', 'kg', 'kW', 'cm³', 'L', 'kg/m³', 'dB(A)'] as const;
 export const STORED_VALUE_KINDS = ['measured', 'confirmed', 'declared'] as const;
 export const STORED_BURDENS_OF_PROOF = ['conformity', 'non_conformity'] as const;
 export const STORED_OUTCOMES = ['conforms', 'does_not_conform', 'not_accepted', 'non_conformity_not_proven'] as const;
@@ -97,6 +99,26 @@ export const StoredSealAction = z.object({
 });
 export type StoredSealAction = z.infer<typeof StoredSealAction>;
 
+/** One measured item of the class: its readings as entered, the instrument, and the value and U decided on. */
+export const StoredMeasuredItem = z.object({
+  key: z.string(),
+  label: z.string(),
+  unit: z.enum(STORED_RULE_UNITS),
+  readings: z.array(z.record(z.string(), z.number())),
+  instrumentId: z.string().nullable(),
+  instrumentName: z.string().nullable(),
+  value: z.number(),
+  expandedUncertainty: z.number(),
+  uncertaintyBasis: z.string(),
+});
+export const StoredGaugeCheck = z.object({
+  rule: z.string(),
+  gauge: z.string(),
+  instrumentId: z.string().nullable(),
+  instrumentName: z.string().nullable(),
+  passed: z.boolean(),
+});
+
 export const StoredMeasurements = z.object({
   nozzle: StoredNozzleMeasurement,
   weight: StoredWeightMeasurement.nullable(),
@@ -106,6 +128,10 @@ export const StoredMeasurements = z.object({
   /** The register's seal actions at this inspection (records from before it have none). */
   sealActions: z.array(StoredSealAction).optional(),
   safety: z.record(z.string(), z.boolean()),
+  /** A class's own measured items as read and decided (records without any have none). */
+  measuredItems: z.array(StoredMeasuredItem).optional(),
+  /** Go/no-go gauge checks (records without any have none). */
+  gaugeChecks: z.array(StoredGaugeCheck).optional(),
 });
 export type StoredMeasurements = z.infer<typeof StoredMeasurements>;
 
@@ -114,7 +140,7 @@ export const StoredRuleResult = z.object({
   rule: z.string(),
   label: z.string(),
   decisiveValue: figure,
-  unit: z.enum(['mm', 'kg', 'kW']).nullable(),
+  unit: z.enum(STORED_RULE_UNITS).nullable(),
   limit: figure,
   acceptanceLimit: figure,
   rejectionLimit: figure,

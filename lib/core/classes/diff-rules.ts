@@ -21,12 +21,27 @@ const LABELS: Record<string, string> = {
   'parity.referenceSpeedsMs': 'Parity model: reference speeds (m/s)',
   'burdenOfProof.inspection': 'Burden of proof at inspection',
   'burdenOfProof.protest': 'Burden of proof in a protest',
+  'nozzle.checkMethod': 'Nozzle limits checked by',
+  'nozzle.gaugeNoGoMm': 'No-go plug gauge (mm)',
+  'nozzle.gaugeGoMm': 'Go plug gauge (mm)',
 };
 
-export const ruleLabel = (path: string) => LABELS[path] ?? path;
+/** "measuredItems.ballast.minimum" → "Measured item ballast: minimum". */
+export const ruleLabel = (path: string) => {
+  const item = /^measuredItems\.([a-z0-9_]+)\.(.+)$/.exec(path);
+  return item ? `Measured item ${item[1]}: ${item[2]}` : (LABELS[path] ?? path);
+};
+
+/** A list of keyed objects (measured items): compared item by item and field by field, by key. */
+const isKeyedList = (v: unknown): v is { key: string }[] =>
+  Array.isArray(v) && v.length > 0 && v.every((x) => x && typeof x === 'object' && typeof x.key === 'string');
 
 function flatten(value: unknown, prefix = '', out: Record<string, unknown> = {}) {
-  if (value && typeof value === 'object' && !Array.isArray(value)) {
+  if (isKeyedList(value)) {
+    for (const { key, ...rest } of value) flatten(rest, `${prefix}.${key}`, out);
+  } else if (prefix === 'measuredItems' && Array.isArray(value)) {
+    // No items: nothing to compare (rules stored before items have none either).
+  } else if (value && typeof value === 'object' && !Array.isArray(value)) {
     for (const [k, v] of Object.entries(value)) flatten(v, prefix ? `${prefix}.${k}` : k, out);
   } else {
     out[prefix] = value;

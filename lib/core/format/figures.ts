@@ -34,9 +34,27 @@ export const FIGURES = {
   temperatureC: { unit: '°C', digits: 1 },
   // Reading angles around a nozzle exit are set by eye: whole degrees.
   angleDeg: { unit: '°', digits: 0 },
+  // A class's own measured items (lib/core/engine/measured-item.ts): engine capacity from bore and
+  // stroke to 0.1 cm³, tank volume to 0.01 L, fuel density to 0.1 kg/m³ (a hydrometer's scale), and a
+  // sound level meter's 0.1 dB display (common practice, no source).
+  volumeCm3: { unit: 'cm³', digits: 1 },
+  volumeL: { unit: 'L', digits: 2 },
+  densityKgM3: { unit: 'kg/m³', digits: 1 },
+  soundDbA: { unit: 'dB(A)', digits: 1 },
 } as const satisfies Record<string, { unit: string; digits: number }>;
 
 export type FigureKind = keyof typeof FIGURES;
+
+/** The figure kind of a verdict line's unit (nozzle, weight, power and a class's measured items). */
+export const RULE_UNIT_KINDS = {
+  mm: 'nozzleMm',
+  kg: 'massKg',
+  kW: 'powerKw',
+  'cm³': 'volumeCm3',
+  L: 'volumeL',
+  'kg/m³': 'densityKgM3',
+  'dB(A)': 'soundDbA',
+} as const satisfies Record<string, FigureKind>;
 
 /** The value alone, rounded for its kind (for a pre-filled form field or a CSV cell): '395.2'. */
 export function figureValue(value: number, kind: FigureKind): string {

@@ -3,6 +3,7 @@ import { SAFETY_ITEM_KEYS } from '@/lib/core/constants';
 import { convertPower } from '@/lib/core/engine/units';
 import { DECISION_RULES } from '@/lib/core/engine/conformity';
 import { BURDENS_OF_PROOF, DEFAULT_BURDEN_OF_PROOF } from '@/lib/core/engine/conformity-burden';
+import { CHECK_METHODS, MeasuredItemRules } from './measured-item-rules';
 
 // Class rules: fixed before measuring (ISO/IEC 17025:2017, 7.1.3), stored as a versioned document.
 const positive = (what: string, max: number) =>
@@ -60,6 +61,10 @@ export const ClassRules = z
         .number({ error: 'Enter the nozzle measurement uncertainty.' })
         .min(0, 'Uncertainty cannot be negative.')
         .max(5, 'An uncertainty above 5 mm is not credible.'),
+      /** Which check governs the diameter limits (absent: two-point readings, as before gauges). */
+      checkMethod: z.enum(CHECK_METHODS, { error: 'Choose how the nozzle limits are checked.' }).optional(),
+      gaugeNoGoMm: positive('The no-go gauge size', 1000).nullable().optional(),
+      gaugeGoMm: positive('The go gauge size', 1000).nullable().optional(),
     }),
     power: z.object({
       minKw: optionalPositive('The minimum power', 10000),
@@ -84,8 +89,37 @@ export const ClassRules = z
         protest: z.enum(BURDENS_OF_PROOF, { error: 'Choose who must prove in a protest.' }),
       })
       .optional(),
+    /** The class's own measured items (optional: rules stored before them have none). */
+    measuredItems: MeasuredItemRules,
   })
   .superRefine((r, ctx) => {
+    const n = r.nozzle;
+    if (n.checkMethod === 'gauge' || n.checkMethod === 'both') {
+      if (n.maxMm != null && n.gaugeNoGoMm == null)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['nozzle', 'gaugeNoGoMm'],
+          message: 'Give the no-go plug gauge’s size for the maximum.',
+        });
+      if (n.maxMm != null && n.gaugeNoGoMm != null && n.gaugeNoGoMm > n.maxMm)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['nozzle', 'gaugeNoGoMm'],
+          message: 'The no-go gauge may not be larger than the maximum: an exit above the maximum could still stop it.',
+        });
+      if (n.minMm != null && n.gaugeGoMm == null)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['nozzle', 'gaugeGoMm'],
+          message: 'Give the go plug gauge’s size for the minimum.',
+        });
+      if (n.minMm != null && n.gaugeGoMm != null && n.gaugeGoMm < n.minMm)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['nozzle', 'gaugeGoMm'],
+          message: 'The go gauge may not be smaller than the minimum: an exit below the minimum could still admit it.',
+        });
+    }
     if (r.nozzle.maxMm != null && r.nozzle.minMm != null && r.nozzle.minMm > r.nozzle.maxMm)
       ctx.addIssue({
         code: 'custom',

@@ -3,6 +3,8 @@ import { SAFETY_ITEM_KEYS, type SafetyItem } from '../constants';
 import { MATERIAL_OPTIONS, type Material } from '../engine/measurement';
 import { InspectionSealsInput } from './seals';
 import { INSTRUMENT_TYPES } from './instrument-calibration';
+import { ITEM_KEY_PATTERN, MAX_ITEM_READINGS, MAX_MEASURED_ITEMS } from './measured-item-rules';
+import { READING_FIELDS, type ReadingField } from '../engine/measured-item';
 
 // Inspection input, shared by the dock form (also offline, before queuing) and the server.
 // Figures arrive as JSON numbers in mm, degrees, °C, kg and kW; a string for a number is refused.
@@ -76,6 +78,44 @@ export const NozzleReading = z.object({
     .lt(1000, 'A diameter must be below 1000 mm.'),
   angleDeg: num('the angle', '°').min(0, 'Angles run from 0 to 359°.').max(359, 'Angles run from 0 to 359°.'),
 });
+
+/** One reading of a class's measured item: { value } read directly, or { boreMm, strokeMm } for engine capacity. */
+export const ItemReadingInput = z
+  .partialRecord(
+    z.enum(READING_FIELDS as unknown as [ReadingField, ...ReadingField[]], {
+      error: 'A reading has only the fields value, boreMm or strokeMm.',
+    }),
+    num('the reading', 'the item’s unit')
+      .gt(0, 'A reading must be above 0.')
+      .lt(1_000_000, 'A reading must be below 1000000.'),
+  )
+  .refine((r) => Object.keys(r).length > 0, 'Enter the reading.');
+
+/** The readings of one measured item of the class (which items and how many readings: the class rules). */
+export const MeasuredItemInput = z.object({
+  key: z.string({ error: 'Name the item by its key.' }).regex(ITEM_KEY_PATTERN, 'This is not an item key.'),
+  instrumentId: optionalUuid('an instrument'),
+  readings: z
+    .array(ItemReadingInput, { error: 'List the item’s readings.' })
+    .min(1, 'Enter at least one reading.')
+    .max(MAX_ITEM_READINGS * 2, `Enter at most ${MAX_ITEM_READINGS * 2} readings.`),
+});
+export type MeasuredItemInput = z.infer<typeof MeasuredItemInput>;
+
+/** A go/no-go gauge check of a size limit (the nozzle exit): which gauge, and whether the part passed. */
+export const GaugeCheckInput = z
+  .object({
+    rule: z.enum(['nozzle'], { error: 'Gauge checks are made on the nozzle exit.' }),
+    /** The gauge's identity as marked on it (size, serial), when it is not on the instruments list. */
+    gauge: text('the gauge’s identity', 120).default(''),
+    instrumentId: optionalUuid('the gauge'),
+    passed: z.boolean({ error: 'Say whether the gauge check passed.' }),
+  })
+  .superRefine((g, ctx) => {
+    if (!g.instrumentId && !g.gauge)
+      ctx.addIssue({ code: 'custom', path: ['gauge'], message: 'Say which gauge was used (its marking or serial).' });
+  });
+export type GaugeCheckInput = z.infer<typeof GaugeCheckInput>;
 
 export const RecordInspectionInput = z
   .object({
@@ -185,6 +225,15 @@ export const RecordInspectionInput = z
         z.boolean({ error: 'Tick or untick each safety item.' }),
       )
       .default({}),
+    /** The class's own measured items (older clients send none). */
+    measuredItems: z
+      .array(MeasuredItemInput, { error: 'List the measured items.' })
+      .max(MAX_MEASURED_ITEMS, `Enter at most ${MAX_MEASURED_ITEMS} measured items.`)
+      .default([]),
+    gaugeChecks: z
+      .array(GaugeCheckInput, { error: 'List the gauge checks.' })
+      .max(4, 'Enter at most 4 gauge checks.')
+      .default([]),
     notes: text('the notes', 2000).default(''),
     supersedesId: optionalUuid('the record to correct'),
     correctionReason: text('the reason for the correction', 1000)
@@ -219,6 +268,22 @@ export const RecordInspectionInput = z
         message: 'A document is named only for a dyno sheet.',
       });
     }
+    const keys = new Set<string>();
+    v.measuredItems.forEach((m, i) => {
+      if (keys.has(m.key))
+        ctx.addIssue({
+          code: 'custom',
+          path: ['measuredItems', i, 'key'],
+          message: `The item ${m.key} is given twice.`,
+        });
+      keys.add(m.key);
+    });
+    const gauged = new Set<string>();
+    v.gaugeChecks.forEach((g, i) => {
+      if (gauged.has(g.rule))
+        ctx.addIssue({ code: 'custom', path: ['gaugeChecks', i, 'rule'], message: 'Give one gauge check per limit.' });
+      gauged.add(g.rule);
+    });
     const when = checkCapturedAt(v.capturedAt);
     if (when) ctx.addIssue({ code: 'custom', path: ['capturedAt'], message: when });
     if (v.supersedesId && !v.correctionReason) {

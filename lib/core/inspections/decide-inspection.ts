@@ -42,15 +42,24 @@ import { formatFigure } from '../entries/check-declaration';
 import type { ClassRules } from '../inputs/class-rules';
 import type { InspectionKind, RecordInspectionInput } from '../inputs/inspections';
 import type { SealCheckState } from '../inputs/seals';
+import type { ItemUnit } from '../engine/measured-item';
+import {
+  decideGaugeChecks,
+  decideMeasuredItems,
+  twoPointGoverns,
+  type ItemDecision,
+  type ItemInstrument,
+} from './decide-measured-items';
 
 /** What a re-inspection can be ordered to check; null scope means everything. */
-export const CHECK_AREAS = ['nozzle', 'weight', 'power', 'safety'] as const;
+export const CHECK_AREAS = ['nozzle', 'weight', 'power', 'safety', 'items'] as const;
 export type CheckArea = (typeof CHECK_AREAS)[number];
 export const CHECK_AREA_LABELS: Record<CheckArea, string> = {
   nozzle: 'nozzle exit diameter',
   weight: 'minimum weight',
   power: 'engine power',
   safety: 'safety equipment',
+  items: 'class’s own measured items',
 };
 
 /**
@@ -72,7 +81,14 @@ export function scopeFromRequestedChecks(requested: readonly string[] | null | u
 export type ValueKind = 'measured' | 'confirmed' | 'declared';
 
 export type RuleKey =
-  'nozzle_max' | 'nozzle_min' | 'weight_min' | 'power_band' | `safety:${SafetyItem}` | `seal:${string}`;
+  | 'nozzle_max'
+  | 'nozzle_min'
+  | 'weight_min'
+  | 'power_band'
+  | `safety:${SafetyItem}`
+  | `seal:${string}`
+  | `item:${string}`
+  | 'gauge:nozzle';
 
 /** A seal of the register checked at this inspection, with the component it is on in words. */
 export type SealFinding = { number: string; state: SealCheckState; component: string };
@@ -82,7 +98,8 @@ export type RuleResult = {
   label: string;
   /** The value the verdict was decided on (null for safety items and for what was not measured). */
   decisiveValue: number | null;
-  unit: 'mm' | 'kg' | 'kW' | null;
+  /** mm, kg, kW for the nozzle, weight and power; a class's measured item in its own unit (cm³, dB(A)…). */
+  unit: ItemUnit | null;
   /** The specification limit that governs (for the power band, the side that decided). */
   limit: number | null;
   acceptanceLimit: number | null;
@@ -131,6 +148,8 @@ export type InspectionDecision = {
     budget: LengthBudget;
   };
   weight: { meanKg: number; expandedUncertaintyKg: number; uncertaintyBasis: string } | null;
+  /** The class's own measured items as decided (value, U and its basis), in the rules' order. */
+  items: ItemDecision[];
   /** The checks decided (null: all of them). */
   scope: CheckArea[] | null;
 };
@@ -149,13 +168,18 @@ type NozzleDecideInput = Omit<
 
 export type DecideInput = {
   /** kind: a 'protest' inspection is decided with the class's protest burden of proof, any other with its inspection one. */
-  input: Pick<RecordInspectionInput, 'weight' | 'safety'> & { kind?: InspectionKind } & {
-    nozzle: NozzleDecideInput;
-    power: Pick<RecordInspectionInput['power'], 'declaredKw' | 'evidenceSeen'> & { note?: string };
-  };
+  input: Pick<RecordInspectionInput, 'weight' | 'safety'> &
+    Partial<Pick<RecordInspectionInput, 'measuredItems' | 'gaugeChecks'>> & { kind?: InspectionKind } & {
+      nozzle: NozzleDecideInput;
+      power: Pick<RecordInspectionInput['power'], 'declaredKw' | 'evidenceSeen'> & { note?: string };
+    };
   rules: ClassRules;
   nozzleInstrument?: InstrumentFigures | null;
   weightInstrument?: InstrumentFigures | null;
+  /** The instrument named for each measured item, by the item's key (checked by the server: type allowed, in calibration). */
+  itemInstruments?: Readonly<Record<string, InstrumentFigures | null>>;
+  /** The gauge of the nozzle's gauge check when it is on the instruments list. */
+  gaugeInstrument?: InstrumentFigures | null;
   /** A targeted re-inspection: decide only these checks (null or absent: all). */
   scope?: readonly CheckArea[] | null;
   /** The register's seals checked on this boat (the server names the components; the dock uses the card's copy). */
@@ -189,6 +213,11 @@ export function instrumentUncertainty(
     expandedUncertainty: b.expandedUncertaintyMm,
     basis: `${i.name} (${parts} ${unit}): U = 2·√(a²/3 + δ²/12) = ${b.expandedUncertaintyMm.toFixed(4)} ${unit}`,
   };
+}
+
+/** An item instrument's U in its own unit (mm for a length instrument, kg for a scale). */
+function toItemU(i: InstrumentFigures): { expandedUncertainty: number; basis: string } {
+  return instrumentUncertainty(i, i.quantity === 'length' ? 'mm' : 'kg');
 }
 
 function withAsk(explanation: string, verdict: Verdict): string {
@@ -564,12 +593,25 @@ export function decideInspection(d: DecideInput): InspectionDecision {
   const { results: nozzleResults, nozzle } = decideNozzle(d, decides('nozzle'));
   const { result: weightResult, weight } = decideWeight(d);
   const power = decidePower(d);
+  const itemInstruments: Record<string, ItemInstrument | null> = {};
+  for (const [key, i] of Object.entries(d.itemInstruments ?? {}))
+    itemInstruments[key] = i ? { id: i.id, name: i.name, quantity: i.quantity, ...toItemU(i) } : null;
+  const { lines: itemLines, items } = decideMeasuredItems(d.rules, d.input.measuredItems, itemInstruments);
+  const gaugeLines = decideGaugeChecks(
+    d.rules,
+    d.input.gaugeChecks,
+    d.gaugeInstrument?.name ?? null,
+    nozzle.correctedReadingsMm,
+  );
   // The same maths for every check; a targeted re-inspection keeps only the checks it was ordered to make.
+  // Under a class whose nozzle rule says the gauge governs, the two-point lines are recorded but do not decide.
   const rules = [
-    ...(decides('nozzle') ? nozzleResults : []),
+    ...(decides('nozzle') && twoPointGoverns(d.rules) ? nozzleResults : []),
+    ...(decides('nozzle') ? (gaugeLines as RuleResult[]) : []),
     ...(weightResult && decides('weight') ? [weightResult] : []),
     ...(power && decides('power') ? [power] : []),
     ...(decides('safety') ? decideSafety(d) : []),
+    ...(decides('items') ? (itemLines as RuleResult[]) : []),
     ...decideSeals(d.sealFindings),
   ].map((r) => withOutcome(r, burdenOfProof));
   const overall = worstVerdict(rules.map((r) => r.verdict));
@@ -580,6 +622,7 @@ export function decideInspection(d: DecideInput): InspectionDecision {
     overallOutcome: resolveOutcome(overall, burdenOfProof).outcome,
     nozzle,
     weight: decides('weight') ? weight : null,
+    items: decides('items') ? items : [],
     scope,
   };
 }

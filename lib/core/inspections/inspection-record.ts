@@ -14,17 +14,19 @@ import {
   type StoredSealAction,
 } from '../../../models/shapes/inspection-record';
 import type { ClassRules } from '../inputs/class-rules';
+import { ownValue } from '../inputs/measured-item-rules';
 import type { RecordInspectionInput } from '../inputs/inspections';
 import type { DecideInput, InspectionDecision, InstrumentFigures } from './decide-inspection';
 
 export { StoredInspectionRecord, StoredMeasurements, StoredResults, StoredRuleResult };
 
 export type BuildInspectionRecordInput = {
-  input: Pick<RecordInspectionInput, 'weight' | 'safety'> & {
-    nozzle: DecideInput['input']['nozzle'];
-    power: Pick<RecordInspectionInput['power'], 'declaredKw' | 'evidenceSeen' | 'note'> &
-      Partial<Pick<RecordInspectionInput['power'], 'evidenceKind'>>;
-  };
+  input: Pick<RecordInspectionInput, 'weight' | 'safety'> &
+    Partial<Pick<RecordInspectionInput, 'measuredItems' | 'gaugeChecks'>> & {
+      nozzle: DecideInput['input']['nozzle'];
+      power: Pick<RecordInspectionInput['power'], 'declaredKw' | 'evidenceSeen' | 'note'> &
+        Partial<Pick<RecordInspectionInput['power'], 'evidenceKind'>>;
+    };
   /** The register's seal actions at this inspection, in the order written (none: an empty list). */
   sealActions?: StoredSealAction[];
   /** The boat's document named as the dyno sheet (checked to be this boat's by the server). */
@@ -34,6 +36,9 @@ export type BuildInspectionRecordInput = {
   ruleVersion: number;
   nozzleInstrument: InstrumentFigures | null;
   weightInstrument: InstrumentFigures | null;
+  /** The instruments named for measured items (by item key) and the nozzle's gauge, when on the list. */
+  itemInstruments?: Readonly<Record<string, InstrumentFigures | null>>;
+  gaugeInstrument?: InstrumentFigures | null;
   /** The boat's declared power and its evidence at the time of the inspection. */
   boat: { declaredKw: number; powerEvidence: string };
 };
@@ -91,6 +96,37 @@ export function buildInspectionRecord(b: BuildInspectionRecordInput): StoredInsp
       seals: [],
       ...(b.sealActions?.length ? { sealActions: b.sealActions } : {}),
       safety: input.safety as Record<string, boolean>,
+      // Written only when there is something, so records without items keep their shape.
+      ...(decision.items.length
+        ? {
+            measuredItems: decision.items.map((d) => {
+              const m = input.measuredItems?.find((x) => x.key === d.key);
+              const instrument = ownValue(b.itemInstruments, d.key) ?? null;
+              return {
+                key: d.key,
+                label: d.label,
+                unit: d.unit,
+                readings: (m?.readings ?? []).map((r) => ({ ...r }) as Record<string, number>),
+                instrumentId: m?.instrumentId ?? null,
+                instrumentName: instrument?.name ?? null,
+                value: d.value,
+                expandedUncertainty: d.expandedUncertainty,
+                uncertaintyBasis: d.uncertaintyBasis,
+              };
+            }),
+          }
+        : {}),
+      ...(input.gaugeChecks?.length
+        ? {
+            gaugeChecks: input.gaugeChecks.map((g) => ({
+              rule: g.rule,
+              gauge: g.gauge,
+              instrumentId: g.instrumentId,
+              instrumentName: b.gaugeInstrument?.name ?? null,
+              passed: g.passed,
+            })),
+          }
+        : {}),
     },
     results: {
       rules: decision.rules,

@@ -5,7 +5,7 @@
 import { StoredResults, type StoredRuleResult } from '../inspections/inspection-record';
 import { describeDeclarationChanges, listDeclarationChanges } from '../boats/declaration-changes';
 import { formatCalendarDate, formatTime } from '../format/time';
-import { formatFigure, type FigureKind } from '../format/figures';
+import { formatFigure, RULE_UNIT_KINDS, type FigureKind } from '../format/figures';
 import { LOG_NOTE_CATEGORY_LABELS } from '../inputs/logbook';
 import { INSPECTION_KIND_LABELS, type InspectionKind } from '../inputs/inspections';
 import { POWER_EVIDENCE } from '../constants';
@@ -37,7 +37,7 @@ const COMPONENT_WORDS: Record<string, string> = {
   removed: 'taken off',
   edited: 'details edited',
 };
-const UNIT_KIND: Record<string, FigureKind> = { mm: 'nozzleMm', kg: 'massKg', kW: 'powerKw' };
+const UNIT_KIND: Record<string, FigureKind> = RULE_UNIT_KINDS;
 
 export const describeComponent = (c: LogbookComponentRef) =>
   `${c.kind} ${[c.maker, c.model].filter(Boolean).join(' ')} serial ${c.serialNumber}`.replace(/\s+/g, ' ').trim();

@@ -24,6 +24,7 @@ import { buildInspectionRecord } from '../../core/inspections/inspection-record'
 import { toInstrumentFigures, withCertificateFigures } from '../../core/inspections/instrument-figures';
 import { calibrationState } from '../../core/inspections/calibration-state';
 import { eventTimeZone, loadCalibrationFacts } from './instrument-calibration';
+import { resolveItemInstruments } from './item-instruments';
 import { currentInspectionCte, loadInspectionViews, type InspectionView } from './inspection-view';
 import { planInspectionSeals, writeInspectionSealEvents } from '@/lib/server/seals/inspection-seals';
 
@@ -193,9 +194,11 @@ export async function recordInspection(
       `No published rules of ${entry.className} were in force at ${measuredAt.toISOString()}: the organiser must publish the class rules before boats are inspected.`,
     );
   }
-  const [nozzleInstrument, weightInstrument] = await Promise.all([
+  const [nozzleInstrument, weightInstrument, { itemInstruments, gaugeInstrument }] = await Promise.all([
     findInstrument(eventId, input.nozzle.instrumentId, 'length', 'nozzle.instrumentId', measuredAt),
     findInstrument(eventId, input.weight?.instrumentId ?? null, 'mass', 'weight.instrumentId', measuredAt),
+    // The class's measured items and the gauge check: items the rules lack, instrument types they do not allow, calibration.
+    resolveItemInstruments(eventId, input, ruleVersion.rules, measuredAt),
   ]);
   // The dyno sheet must be one of this boat's own uploaded documents.
   let dynoDocument: { id: string; fileName: string } | null = null;
@@ -215,6 +218,8 @@ export async function recordInspection(
     rules: ruleVersion.rules,
     nozzleInstrument,
     weightInstrument,
+    itemInstruments,
+    gaugeInstrument,
     scope,
     sealFindings: sealPlan.findings,
   });
@@ -226,6 +231,8 @@ export async function recordInspection(
     ruleVersion: ruleVersion.version,
     nozzleInstrument,
     weightInstrument,
+    itemInstruments,
+    gaugeInstrument,
     boat: { declaredKw: entry.boatDeclaredKw, powerEvidence: entry.boatPowerEvidence },
     sealActions: sealPlan.actions,
     dynoDocument,

@@ -8,6 +8,8 @@ import type { SealFinding } from '@/lib/core/inspections/decide-inspection';
 import type { BoardRow, InspectionBoard } from '@/lib/server/inspections/list-inspection-board';
 import type { BoatCard } from '@/lib/server/inspections/load-boat-card';
 import { figureValue } from '@/lib/core/format/figures';
+import { FORMULA_INPUTS } from '@/lib/core/engine/measured-item';
+import { ownValue } from '@/lib/core/inputs/measured-item-rules';
 
 /** The boat being inspected, from the server's card or, offline, from the phone's copy of the board. */
 export type DockTarget = {
@@ -75,6 +77,12 @@ export const NO_SEALS: FormSeals = { checks: {}, applied: [], removed: {} };
 
 export type UncertaintySource = 'instrument' | 'typed' | 'class';
 
+/** A class's measured item as typed: the instrument and each reading's fields (value, or bore and stroke). */
+export type FormItem = { instrumentId: string; readings: Record<string, string>[] };
+/** The nozzle's go/no-go gauge check ('' : not checked). */
+export type FormGauge = { identity: string; instrumentId: string; result: '' | 'passed' | 'failed' };
+export const NO_GAUGE: FormGauge = { identity: '', instrumentId: '', result: '' };
+
 export type FormState = {
   kind: InspectionKind;
   readings: { diameter: string; angle: string }[];
@@ -100,6 +108,9 @@ export type FormState = {
   /** The register's seals: each listed seal's check by number, seals applied, seals removed (number → reason). */
   seals: FormSeals;
   safety: Record<string, boolean>;
+  /** The class's measured items by key (absent in a form state from before them: none). */
+  items?: Record<string, FormItem>;
+  gauge?: FormGauge;
   notes: string;
   supersedesId: string | null;
   correctionReason: string;
@@ -161,11 +172,37 @@ export function initialFormState(
     // Every seal on the boat's components is listed to be checked; none is marked until the scrutineer looks.
     seals: { ...NO_SEALS, checks: Object.fromEntries((target.card?.seals ?? []).map((s) => [s.number, ''])) },
     safety: {},
+    items: blankItems(target.rules),
+    gauge: NO_GAUGE,
     notes: '',
     supersedesId: null,
     correctionReason: '',
     reinspectionId: target.card?.openReinspections[0]?.id ?? '',
   };
+}
+
+/** One empty reading row per reading the class asks for, with the formula's fields. */
+export function blankItems(rules: ClassRules | null): Record<string, FormItem> {
+  return Object.fromEntries(
+    (rules?.measuredItems ?? []).map((m) => [
+      m.key,
+      {
+        instrumentId: '',
+        readings: Array.from({ length: m.readings }, () =>
+          Object.fromEntries(FORMULA_INPUTS[m.formula.kind].map((x) => [x.name, ''])),
+        ),
+      },
+    ]),
+  );
+}
+
+const isTyped = (r: Record<string, string>) => Object.values(r).some((v) => v.trim() !== '');
+
+/** The measured items the form will send, in the rules' order: an item with nothing typed is left out (not measured). */
+export function itemsToSend(f: FormState, rules: ClassRules | null): { key: string; item: FormItem }[] {
+  return (rules?.measuredItems ?? [])
+    .map((m) => ({ key: m.key, item: ownValue(f.items, m.key) }))
+    .filter((x): x is { key: string; item: FormItem } => !!x.item && x.item.readings.some(isTyped));
 }
 
 /** A typed number: empty is "not given" (the schema says so), a comma is a decimal point, text stays NaN. */
@@ -216,6 +253,29 @@ export function draftFromForm(
       removed: Object.entries(f.seals.removed).map(([number, reason]) => ({ number, reason })),
     },
     safety: Object.fromEntries((target.rules?.safetyItems ?? []).map((k) => [k, f.safety[k] === true])),
+    measuredItems: itemsToSend(f, target.rules).map(({ key, item }) => ({
+      key,
+      instrumentId: item.instrumentId || null,
+      // A row left empty is not a reading; a typed field that is not a number stays NaN so the schema names it.
+      readings: item.readings.filter(isTyped).map((r) =>
+        Object.fromEntries(
+          Object.entries(r)
+            .filter(([, v]) => v.trim() !== '')
+            .map(([k, v]) => [k, toNumber(v) as number]),
+        ),
+      ),
+    })),
+    gaugeChecks:
+      f.gauge && f.gauge.result
+        ? [
+            {
+              rule: 'nozzle' as const,
+              gauge: f.gauge.identity,
+              instrumentId: f.gauge.instrumentId || null,
+              passed: f.gauge.result === 'passed',
+            },
+          ]
+        : [],
     notes: f.notes,
     supersedesId: f.supersedesId,
     correctionReason: f.supersedesId ? f.correctionReason : null,
@@ -255,11 +315,39 @@ export function formFromDraft(d: RecordInspectionDraft, base: FormState): FormSt
     powerNote: d.power.note ?? '',
     seals: sealsFromDraft(d.seals as SealsDraft | unknown[] | undefined, base.seals),
     safety: Object.fromEntries(Object.entries(d.safety ?? {}).map(([k, v]) => [k, v === true])),
+    items: itemsFromDraft(d.measuredItems, base.items ?? {}),
+    gauge: gaugeFromDraft(d.gaugeChecks) ?? base.gauge ?? NO_GAUGE,
     notes: d.notes ?? '',
     supersedesId: d.supersedesId ?? null,
     correctionReason: d.correctionReason ?? '',
     reinspectionId: d.reinspectionId ?? '',
   };
+}
+
+/** A queued draft's items back into the form (a draft queued before items had none: the blank rows stay). */
+function itemsFromDraft(
+  items: RecordInspectionDraft['measuredItems'],
+  base: Record<string, FormItem>,
+): Record<string, FormItem> {
+  const out = { ...base };
+  for (const m of items ?? []) {
+    const blank = ownValue(base, m.key)?.readings[0] ?? {};
+    const rows = m.readings.map((r) => ({
+      ...Object.fromEntries(Object.keys(blank).map((k) => [k, ''])),
+      ...Object.fromEntries(Object.entries(r).map(([k, v]) => [k, str(v)])),
+    }));
+    const want = ownValue(base, m.key)?.readings.length ?? rows.length;
+    while (rows.length < want) rows.push({ ...Object.fromEntries(Object.keys(blank).map((k) => [k, ''])) });
+    out[m.key] = { instrumentId: m.instrumentId ?? '', readings: rows };
+  }
+  return out;
+}
+
+function gaugeFromDraft(checks: RecordInspectionDraft['gaugeChecks']): FormGauge | null {
+  const g = checks?.find((c) => c.rule === 'nozzle');
+  return g
+    ? { identity: g.gauge ?? '', instrumentId: g.instrumentId ?? '', result: g.passed ? 'passed' : 'failed' }
+    : null;
 }
 
 /** The seals checked on the form as findings for the phone's provisional verdict (components named from the card). */

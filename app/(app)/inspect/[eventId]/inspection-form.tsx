@@ -26,7 +26,15 @@ import type { FormState as ActionState } from '@/components/forms/request-json';
 import { useFormAction } from '@/components/forms/use-form-action';
 import { DockField } from './dock-field';
 import { DockSeals } from './dock-seals';
-import { draftFromForm, resizeReadings, sealFindingsFromForm, type DockTarget, type FormState } from './form-model';
+import {
+  draftFromForm,
+  itemsToSend,
+  resizeReadings,
+  sealFindingsFromForm,
+  type DockTarget,
+  type FormState,
+} from './form-model';
+import { DockGauge, DockItems } from './dock-items';
 
 export type FormSubmission = {
   draft: RecordInspectionDraft;
@@ -91,6 +99,8 @@ export function InspectionForm({
             rules,
             nozzleInstrument: pick(parsed.data.nozzle.instrumentId),
             weightInstrument: pick(parsed.data.weight?.instrumentId ?? null),
+            itemInstruments: Object.fromEntries(parsed.data.measuredItems.map((m) => [m.key, pick(m.instrumentId)])),
+            gaugeInstrument: pick(parsed.data.gaugeChecks[0]?.instrumentId ?? null),
             scope,
             sealFindings: sealFindingsFromForm(parsed.data.seals.checks, target),
           });
@@ -113,11 +123,17 @@ export function InspectionForm({
   const readingsError = err('nozzle.readings');
   const hasWeight = !rules || rules.weight.minKg != null;
   const hasSafety = !!rules && rules.safetyItems.length > 0;
+  const hasItems = !!rules && (rules.measuredItems?.length ?? 0) > 0;
+  const hasGauge = !!rules && (rules.nozzle.checkMethod ?? 'two_point') !== 'two_point';
+  // Errors on items come back by their place in the record sent (items with nothing typed are not sent).
+  const sentIndex = Object.fromEntries(itemsToSend(f, rules).map((x, i) => [x.key, i]));
   // The in-page index: the form is long on a phone, so each section is one tap away.
   const sections = [
     { id: 'dock-nozzle', label: 'Nozzle' },
+    ...(hasGauge ? [{ id: 'dock-gauge', label: 'Gauge' }] : []),
     ...(hasWeight ? [{ id: 'dock-weight', label: 'Weight' }] : []),
     { id: 'dock-power', label: 'Power' },
+    ...(hasItems ? [{ id: 'dock-items', label: 'Class items' }] : []),
     ...(hasSafety ? [{ id: 'dock-safety', label: 'Safety items' }] : []),
     { id: 'dock-seals', label: 'Seals' },
     { id: 'dock-notes', label: 'Photos and notes' },
@@ -408,6 +424,16 @@ export function InspectionForm({
           </p>
         </fieldset>
 
+        {rules && (
+          <DockGauge
+            rules={rules}
+            gauge={f.gauge}
+            instruments={instruments}
+            onChange={(g) => set('gauge', g)}
+            err={err}
+          />
+        )}
+
         {hasWeight && (
           <fieldset id="dock-weight" className={section}>
             <legend className="text-xl font-bold">
@@ -526,6 +552,17 @@ export function InspectionForm({
             onChange={(e) => set('powerNote', e.target.value)}
           />
         </fieldset>
+
+        {rules && (
+          <DockItems
+            rules={rules}
+            items={f.items ?? {}}
+            sentIndex={sentIndex}
+            instruments={instruments}
+            onChange={(items) => set('items', items)}
+            err={err}
+          />
+        )}
 
         {rules && hasSafety && (
           <fieldset id="dock-safety" className="scroll-mt-4 space-y-2">

@@ -3,7 +3,7 @@
 import type { RuleResult } from '@/lib/core/inspections/decide-inspection';
 import { SafetyNote } from '@/components/safety-note';
 import { VerdictBadge } from '@/components/verdict-badge';
-import { formatFigure } from '@/lib/core/format/figures';
+import { formatFigure, RULE_UNIT_KINDS, type FigureKind } from '@/lib/core/format/figures';
 import { BURDEN_WORDS } from '@/lib/core/engine/conformity-burden';
 import { BudgetTable } from './budget-table';
 
@@ -21,7 +21,7 @@ export type ShownVerdict = {
 /** The kind of each value: measured at the dock, confirmed against evidence, or declared only (older records: measured). */
 const kindOf = (r: RuleResult) => (r.valueKind !== undefined ? r.valueKind : r.measured ? 'measured' : null);
 
-const KIND_OF_UNIT = { mm: 'nozzleMm', kg: 'massKg', kW: 'powerKw' } as const;
+const KIND_OF_UNIT: Record<NonNullable<RuleResult['unit']>, FigureKind> = RULE_UNIT_KINDS;
 const fmt = (v: number | null, unit: RuleResult['unit']) => (unit ? formatFigure(v, KIND_OF_UNIT[unit]) : '—');
 // U is a small figure: one more digit than the readings in mm (lib/core/format/figures.ts).
 const fmtU = (v: number | null, unit: RuleResult['unit']) =>

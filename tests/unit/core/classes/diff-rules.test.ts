@@ -97,3 +97,27 @@ test('the burden of proof has readable labels in the version history', () => {
   assert.equal(ruleLabel('burdenOfProof.inspection'), 'Burden of proof at inspection');
   assert.equal(ruleLabel('burdenOfProof.protest'), 'Burden of proof in a protest');
 });
+
+test('measured items are compared by key, field by field; the gauge method reads as a setting', () => {
+  const item = {
+    key: 'ballast',
+    label: 'Ballast',
+    unit: 'kg' as const,
+    minimum: 20,
+    maximum: null,
+    readings: 2,
+    instrumentTypes: ['scale' as const],
+    decisionRule: null,
+    defaultUncertainty: 0.5,
+    note: '',
+    formula: { kind: 'direct' as const },
+  };
+  const withItem = { ...RULES, measuredItems: [item] };
+  assert.deepEqual(diffRules(RULES, { ...RULES, measuredItems: [] }), [], 'no items either way: no rows');
+  const changed = diffRules(withItem, { ...RULES, measuredItems: [{ ...item, minimum: 21 }] });
+  assert.deepEqual(changed, [{ path: 'measuredItems.ballast.minimum', before: 20, after: 21 }]);
+  assert.equal(ruleLabel(changed[0].path), 'Measured item ballast: minimum');
+  const added = diffRules(RULES, withItem).map((c) => c.path);
+  assert.ok(added.includes('measuredItems.ballast.label') && added.includes('measuredItems.ballast.formula.kind'));
+  assert.equal(ruleLabel('nozzle.checkMethod'), 'Nozzle limits checked by');
+});

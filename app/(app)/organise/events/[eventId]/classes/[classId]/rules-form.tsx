@@ -17,6 +17,7 @@ import {
   BURDENS_OF_PROOF,
   resolveBurdenRules,
 } from '@/lib/core/engine/conformity-burden';
+import { MeasuredItemsEditor, NozzleMethodFields } from './measured-items-editor';
 
 const INCONCLUSIVE_MEANS = {
   conformity: 'an inconclusive result is not accepted: measure again with a better instrument or fix the part.',
@@ -48,6 +49,9 @@ export function RulesForm({ eventId, classId, rules, editingVersion, isDraft }: 
             minMm: n('nozzle.minMm'),
             minReadings: n('nozzle.minReadings'),
             defaultUncertaintyMm: n('nozzle.defaultUncertaintyMm'),
+            checkMethod: f.get('nozzle.checkMethod') ?? 'two_point',
+            gaugeNoGoMm: f.has('nozzle.gaugeNoGoMm') ? n('nozzle.gaugeNoGoMm') : (rules.nozzle.gaugeNoGoMm ?? null),
+            gaugeGoMm: f.has('nozzle.gaugeGoMm') ? n('nozzle.gaugeGoMm') : (rules.nozzle.gaugeGoMm ?? null),
           },
           power: {
             minKw: n('power.minKw'),
@@ -62,6 +66,8 @@ export function RulesForm({ eventId, classId, rules, editingVersion, isDraft }: 
           decisionRule: f.get('decisionRule'),
           burdenOfProof: { inspection: f.get('burdenOfProof.inspection'), protest: f.get('burdenOfProof.protest') },
           safetyItems: f.getAll('safetyItems'),
+          // Every item the editor holds, always sent: saving the form never drops one.
+          measuredItems: JSON.parse(String(f.get('measuredItemsJson') ?? '[]')),
           parity: {
             pumpEfficiency: n('parity.pumpEfficiency'),
             nozzleLossCoefficient: n('parity.nozzleLossCoefficient'),
@@ -126,6 +132,7 @@ export function RulesForm({ eventId, classId, rules, editingVersion, isDraft }: 
             defaultValue={rules.nozzle.defaultUncertaintyMm}
             error={err('nozzle.defaultUncertaintyMm')}
           />
+          <NozzleMethodFields rules={rules} err={err} />
         </fieldset>
         <fieldset className="grid gap-3 sm:grid-cols-2">
           <legend className="mb-2 text-lg font-bold">Engine power band</legend>
@@ -266,6 +273,7 @@ export function RulesForm({ eventId, classId, rules, editingVersion, isDraft }: 
             </label>
           ))}
         </fieldset>
+        <MeasuredItemsEditor items={rules.measuredItems ?? []} err={err} />
         <fieldset className="grid gap-3 sm:grid-cols-2">
           <legend className="mb-2 text-lg font-bold">Parity model assumptions</legend>
           <TextField

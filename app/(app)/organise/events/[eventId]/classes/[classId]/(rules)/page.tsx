@@ -66,7 +66,12 @@ export default async function ClassPage({ params }: { params: Promise<{ eventId:
           {versions.map((v, i) => {
             const previous = versions[i + 1];
             // Rules stored before the burden of proof existed read with its defaults, so no change is shown where none was made.
-            const withBurden = (r: typeof v.rules) => ({ ...r, burdenOfProof: resolveBurdenRules(r) });
+            // Likewise the nozzle's check method: absent means two-point readings.
+            const withBurden = (r: typeof v.rules) => ({
+              ...r,
+              nozzle: { ...r.nozzle, checkMethod: r.nozzle.checkMethod ?? 'two_point' },
+              burdenOfProof: resolveBurdenRules(r),
+            });
             const changes = previous ? diffRules(withBurden(previous.rules), withBurden(v.rules)) : [];
             const burden = resolveBurdenRules(v.rules);
             return (
