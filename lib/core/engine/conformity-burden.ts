@@ -106,6 +106,43 @@ export function resolveOutcomeForMeasurement(
   };
 }
 
+const OUTCOME_ORDER: Outcome[] = ['does_not_conform', 'not_accepted', 'non_conformity_not_proven', 'conforms'];
+
+/** The overall outcome of several lines: the worst for the part (does not conform > not accepted > not proven > conforms). */
+export function worstOutcome(outcomes: readonly Outcome[]): Outcome {
+  for (const o of OUTCOME_ORDER) if (outcomes.includes(o)) return o;
+  return 'conforms';
+}
+
+/**
+ * The verdict a protester has proven on one decided line: non-conformity only beyond the limit by
+ * more than U, conformity shown inside it by more than U, else inconclusive (ISO 14253-1:2017). The
+ * side of the limit is read from the acceptance limit (guarded rules) or from where the value lies
+ * against the limit for the verdict given. A line without a value, limit or U keeps its verdict.
+ */
+export function verdictProvenByProtester(line: {
+  verdict: Verdict;
+  decisiveValue: number | null;
+  limit: number | null;
+  acceptanceLimit: number | null;
+  rejectionLimit: number | null;
+  expandedUncertainty: number | null;
+}): Verdict {
+  const { verdict, decisiveValue: x, limit, acceptanceLimit, rejectionLimit, expandedUncertainty: u } = line;
+  // ISO 14253-1 lines already carry the zone of doubt; non-numeric lines (ticks, seals, gauges) have no U.
+  if (verdict === 'inconclusive' || rejectionLimit !== null || x === null || limit === null || u === null || u <= 0)
+    return verdict;
+  let side: 'max' | 'min';
+  if (acceptanceLimit !== null && acceptanceLimit < limit) side = 'max';
+  else if (acceptanceLimit !== null && acceptanceLimit > limit) side = 'min';
+  else if (verdict === 'conforms') side = x <= limit ? 'max' : 'min';
+  else side = x >= limit ? 'max' : 'min';
+  const beyond = side === 'max' ? x - limit : limit - x;
+  if (beyond > u) return 'does_not_conform';
+  if (beyond < -u) return 'conforms';
+  return 'inconclusive';
+}
+
 /** Where a class rule's burden applies: an inspection by the scrutineers, or a protest's re-check. */
 export const BURDEN_CONTEXTS = ['inspection', 'protest'] as const;
 export type BurdenContext = (typeof BURDEN_CONTEXTS)[number];

@@ -36,7 +36,14 @@ import {
   type NozzleThermal,
 } from './nozzle-thermal';
 import { EngineInputError } from '../engine/engine-input-error';
-import { burdenForInspection, resolveOutcome, type BurdenOfProof, type Outcome } from '../engine/conformity-burden';
+import {
+  burdenForInspection,
+  resolveOutcome,
+  verdictProvenByProtester,
+  worstOutcome,
+  type BurdenOfProof,
+  type Outcome,
+} from '../engine/conformity-burden';
 import { SAFETY_ITEMS, type SafetyItem } from '../constants';
 import { formatFigure } from '../entries/check-declaration';
 import type { ClassRules } from '../inputs/class-rules';
@@ -577,12 +584,19 @@ export function decideSeals(findings: readonly SealFinding[] | undefined): RuleR
 /**
  * The rule line resolved for whoever must prove (the verdict is kept as decided). An inconclusive
  * line's explanation says what it means: under the entrant's burden the usual "measure again" (or
- * fix the part) stands; under the protester's, non-conformity is not proven and the part stands.
+ * fix the part) stands; under the protester's, non-conformity is not proven and the part stands. A
+ * protester carries the uncertainty whatever acceptance rule the class uses (ISO 14253-1:2017): under
+ * that burden a guarded or simple line is resolved on the zone beyond the limit by more than U.
  */
 function withOutcome(r: RuleResult, burden: BurdenOfProof): RuleResult {
-  const { outcome, explanation } = resolveOutcome(r.verdict, burden);
-  if (r.verdict !== 'inconclusive') return { ...r, burdenOfProof: burden, outcome };
-  return { ...r, burdenOfProof: burden, outcome, explanation: `${r.explanation} ${explanation}` };
+  const proven = burden === 'non_conformity' ? verdictProvenByProtester(r) : r.verdict;
+  const { outcome, explanation } = resolveOutcome(proven, burden);
+  if (proven === r.verdict && r.verdict !== 'inconclusive') return { ...r, burdenOfProof: burden, outcome };
+  const why =
+    proven === r.verdict
+      ? explanation
+      : `${explanation} The protester must show the value beyond the limit by more than the expanded uncertainty (ISO 14253-1:2017), whatever the class's acceptance rule.`;
+  return { ...r, burdenOfProof: burden, outcome, explanation: `${r.explanation} ${why}` };
 }
 
 /** Every rule's verdict and the overall result. Throws EngineInputError (field named) on input the class refuses. */
@@ -619,7 +633,9 @@ export function decideInspection(d: DecideInput): InspectionDecision {
     rules,
     overall,
     burdenOfProof,
-    overallOutcome: resolveOutcome(overall, burdenOfProof).outcome,
+    overallOutcome: rules.length
+      ? worstOutcome(rules.map((r) => r.outcome ?? resolveOutcome(r.verdict, burdenOfProof).outcome))
+      : resolveOutcome(overall, burdenOfProof).outcome,
     nozzle,
     weight: decides('weight') ? weight : null,
     items: decides('items') ? items : [],

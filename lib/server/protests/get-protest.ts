@@ -7,7 +7,7 @@ import { queryProtestSummaries, type ProtestSummary } from './protest-view';
 import { listEvidence, type EvidenceView } from './list-evidence';
 import { DECIDABLE_STATUSES, DECIDED_STATUSES, OPEN_STATUSES } from '../../core/protests/protest-states';
 import { listStewardInterests } from '@/lib/server/interests/list-steward-interests';
-import { resolveOutcome, type BurdenOfProof, type Outcome } from '@/lib/core/engine/conformity-burden';
+import { resolveOutcome, worstOutcome, type BurdenOfProof, type Outcome } from '@/lib/core/engine/conformity-burden';
 import type { Verdict } from '@/lib/core/engine/conformity';
 
 export type ReinspectionLink = {
@@ -69,7 +69,13 @@ export async function getProtest(
       : []
     ).map((i) => {
       const burden = i.results?.rules?.find((r) => r.burdenOfProof)?.burdenOfProof ?? null;
-      const outcome = burden ? resolveOutcome(i.overallResult as Verdict, burden).outcome : null;
+      // The lines' own outcomes (a protester's burden can differ from the verdict), else from the verdict.
+      const lineOutcomes = (i.results?.rules ?? []).map((r) => r.outcome).filter((o): o is Outcome => Boolean(o));
+      const outcome = burden
+        ? lineOutcomes.length
+          ? worstOutcome(lineOutcomes)
+          : resolveOutcome(i.overallResult as Verdict, burden).outcome
+        : null;
       return [i.id, { verdict: i.overallResult, burdenOfProof: burden, outcome }] as const;
     }),
   );

@@ -118,3 +118,27 @@ test('the stored rule line carries the burden and outcome; a line from before th
   assert.equal(olderStored.burdenOfProof, undefined);
   assert.equal(olderStored.outcome, undefined);
 });
+
+test('a protest under a guarded or simple class rule: the protester still carries the uncertainty', () => {
+  // ISO 14253-1:2017, clause 5 [memory for the clause number]: whoever proves carries U. Under guarded
+  // acceptance (ILAC-G8:09/2019, w = U) 101.97 mm does not conform for the entrant, but a protester has
+  // not shown it beyond 102.00 + 0.05 mm; 102.06 mm is beyond, so proven. Found by an outside test.
+  const cases: ['guarded' | 'simple', number, Verdict, Outcome][] = [
+    ['guarded', 101.97, 'does_not_conform', 'non_conformity_not_proven'],
+    ['guarded', 102.02, 'does_not_conform', 'non_conformity_not_proven'],
+    ['guarded', 102.06, 'does_not_conform', 'does_not_conform'],
+    ['guarded', 101.93, 'conforms', 'conforms'],
+    ['simple', 102.02, 'does_not_conform', 'non_conformity_not_proven'],
+    ['simple', 101.97, 'conforms', 'non_conformity_not_proven'],
+  ];
+  for (const [decisionRule, largest, verdict, outcome] of cases) {
+    const d = decideInspection({ input: input(largest, 'protest'), rules: rules({ decisionRule }) });
+    const line = d.rules.find((r) => r.rule === 'nozzle_max')!;
+    assert.equal(line.verdict, verdict, `${decisionRule} ${largest}: the class's verdict is kept`);
+    assert.equal(line.outcome, outcome, `${decisionRule} ${largest}: outcome for the protester's burden`);
+    assert.equal(d.overallOutcome, outcome);
+    // At a pre-race inspection the entrant carries it: the class's verdict decides.
+    const pre = decideInspection({ input: input(largest, 'pre_race'), rules: rules({ decisionRule }) });
+    assert.equal(pre.rules.find((r) => r.rule === 'nozzle_max')!.outcome, verdict);
+  }
+});

@@ -249,6 +249,7 @@ test('the report reader on rows written by hand: readings as read without a temp
     correctedReadingsMm: [101.2, 101.35],
     nozzleExpandedUncertaintyMm: null,
     evidenceSeen: false,
+    evidenceKind: null,
     confirmedPowerKw: null,
     measuredWeightKg: null,
   });
@@ -262,6 +263,7 @@ test('the report reader on rows written by hand: readings as read without a temp
     correctedReadingsMm: [],
     nozzleExpandedUncertaintyMm: null,
     evidenceSeen: false,
+    evidenceKind: null,
     confirmedPowerKw: null,
     measuredWeightKg: null,
   });
