@@ -10,9 +10,6 @@ import { MatchedMode } from './matched-mode';
 
 export type CalculatorMode = 'fixed' | 'matched';
 
-export const parseMode = (value: string | string[] | undefined): CalculatorMode =>
-  value === 'matched' ? 'matched' : 'fixed';
-
 const MODES: { value: CalculatorMode; label: string; hint: string }[] = [
   { value: 'fixed', label: 'Fixed shaft power', hint: 'Compare up to four set-ups at a power you give.' },
   {

@@ -1,7 +1,7 @@
 // /calculator: public thrust calculator for organisers and entrants, signed in or not.
 import type { Metadata } from 'next';
 import { Calculator } from './calculator';
-import { CalculatorModes, parseMode } from './mode-switch';
+import { CalculatorModes } from './mode-switch';
 
 export const metadata: Metadata = {
   title: 'Thrust calculator',
@@ -26,7 +26,7 @@ export default async function CalculatorPage({
         </p>
       </header>
 
-      <CalculatorModes initialMode={parseMode(mode)} fixed={<Calculator />} />
+      <CalculatorModes initialMode={mode === 'matched' ? 'matched' : 'fixed'} fixed={<Calculator />} />
 
       <section aria-labelledby="meaning" className="max-w-3xl space-y-3">
         <h2 id="meaning">What the numbers mean</h2>
