@@ -1,7 +1,7 @@
 'use client';
 
 // The matched mode's chart: thrust against boat speed at the operating point, the fixed-power
-// figure at the same shaft power for comparison, and the speeds where the inlet cavitates shaded
+// figure for comparison (the power and efficiency of the first operating point held at every speed), and the speeds where the inlet cavitates shaded
 // (the thrust there is an upper bound). Loaded lazily by matched-mode.tsx. The same facts are in
 // the table and the sentences beside the chart.
 
@@ -21,12 +21,30 @@ import { CAVITATION_WORDS, MATCHED_SPEEDS_MS } from './matched-model';
 
 interface Props {
   points: readonly MatchedPerformancePoint[];
-  /** Fixed-power thrust per point (same index). */
+  /** Fixed-power thrust per point (same index), at the power and efficiency of the first operating point. */
   fixed: readonly (number | undefined)[];
   cavitating: readonly { fromMs: number; toMs: number }[];
 }
 
 const round = (x: number, digits: number) => Number(x.toFixed(digits));
+
+/** The shaded region's words on two lines at its lower left, clear of the legend and the curve. */
+function CavitationLabel({ viewBox }: { viewBox?: { x?: number; y?: number; width?: number; height?: number } }) {
+  if (viewBox?.x === undefined || viewBox.y === undefined || viewBox.height === undefined) return null;
+  const x = viewBox.x + 6;
+  const y = viewBox.y + viewBox.height - 28;
+  const [head, rest] = CAVITATION_WORDS.split(': ');
+  return (
+    <text x={x} y={y} fill="#7a3606" fontSize={12} data-testid="matched-cavitation-label">
+      <tspan x={x} dy={0}>
+        {head}:
+      </tspan>{' '}
+      <tspan x={x} dy={15}>
+        {rest}
+      </tspan>
+    </text>
+  );
+}
 
 export function MatchedChart({ points, fixed, cavitating }: Props) {
   const bySpeed = new Map(points.map((p, i) => [p.speedMs, { p, f: fixed[i] }]));
@@ -72,7 +90,7 @@ export function MatchedChart({ points, fixed, cavitating }: Props) {
               stroke="#c2560a"
               strokeDasharray="3 3"
               className="matched-cavitation"
-              label={{ value: CAVITATION_WORDS, position: 'insideTop', fill: '#7a3606', fontSize: 12 }}
+              label={<CavitationLabel />}
             />
           ))}
           <Tooltip
@@ -92,7 +110,7 @@ export function MatchedChart({ points, fixed, cavitating }: Props) {
           />
           <Line
             dataKey="fixed"
-            name="Fixed power, same shaft power"
+            name="Fixed power of the first point"
             type="monotone"
             stroke="#c2560a"
             strokeDasharray="9 4"

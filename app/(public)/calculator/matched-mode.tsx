@@ -95,8 +95,11 @@ export function MatchedMode() {
               <figure className={isUpdating ? 'opacity-70 transition-opacity' : 'transition-opacity'}>
                 <MatchedChart points={outcome.points} fixed={outcome.fixed} cavitating={cavitating} />
                 <figcaption className="text-sm text-ink-soft">
-                  Solid: thrust with the engine and pump matched. Dashed: the fixed-power model at the same nozzle with
-                  the shaft power and pump efficiency of the operating point, for comparison.
+                  Solid: thrust with the engine and pump matched. Dashed: the fixed-power model at the same nozzle, with
+                  the shaft power and pump efficiency of the operating point {describeSpeed(outcome.points[0].speedMs)}{' '}
+                  ({outcome.points[0].shaftPowerKw.toFixed(1)} kW, η {outcome.points[0].pumpEfficiency.toFixed(3)}) held
+                  at every speed, as the fixed-power mode assumes. With each point&apos;s own power and efficiency the
+                  two models give the same thrust.
                   {cavitating.length > 0 && ` Shaded: ${CAVITATION_WORDS}.`}
                 </figcaption>
               </figure>
@@ -158,7 +161,10 @@ function PointsTable({
 }) {
   return (
     <div className="max-w-full overflow-x-auto" data-testid="matched-table-wrap">
-      <table className="w-full min-w-[44rem] text-sm" data-testid="matched-table">
+      <table
+        className="w-full text-sm [&_td]:whitespace-nowrap [&_td]:px-2 [&_td]:py-1 [&_th]:whitespace-nowrap [&_th]:px-2 [&_th]:py-1"
+        data-testid="matched-table"
+      >
         <caption className="text-left font-bold">Operating point at the reference speeds</caption>
         <thead>
           <tr className="text-left">
@@ -169,7 +175,7 @@ function PointsTable({
             <th scope="col">Pump η</th>
             <th scope="col">Jet velocity</th>
             <th scope="col">Thrust</th>
-            <th scope="col">Fixed-power thrust</th>
+            <th scope="col">Fixed power</th>
             <th scope="col">Held by</th>
             {withCavitation && <th scope="col">Inlet (NPSH available / required)</th>}
           </tr>
@@ -201,7 +207,7 @@ function PointsTable({
                 <td>{p.pumpEfficiency.toFixed(3)}</td>
                 <td>{p.jetVelocityMs.toFixed(1)} m/s</td>
                 <td data-testid="thrust">{p.thrustN.toFixed(0)} N</td>
-                <td>{f === undefined ? '—' : `${f.toFixed(0)} N`}</td>
+                <td data-testid="fixed-thrust">{f === undefined ? '—' : `${f.toFixed(0)} N`}</td>
                 <td>{p.limitedBy === 'limiter' ? 'limiter' : 'engine curve'}</td>
                 {withCavitation && (
                   <td data-testid="cavitation">

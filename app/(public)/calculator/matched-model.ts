@@ -165,7 +165,7 @@ export type MatchedOutcome =
       ok: true;
       densityKgM3: number;
       points: MatchedPerformancePoint[];
-      /** Fixed-power figure per point (same index), for comparison. */
+      /** Fixed-power figure per point (same index), at the first point's power and efficiency, for comparison. */
       fixed: (number | undefined)[];
       /** Speed ranges with no operating point (the points there are left out). */
       gaps: NoOperatingPoint[];
@@ -173,7 +173,16 @@ export type MatchedOutcome =
     }
   | { ok: false; fieldErrors: MatchedFieldErrors; gaps: NoOperatingPoint[]; message: string };
 
-function fixedPowerThrust(input: MatchedPerformanceInput, p: MatchedPerformancePoint): number | undefined {
+/**
+ * The fixed-power model's thrust at `speedMs` with the shaft power and pump efficiency of `at` held
+ * constant. (With each point's own power and efficiency the two models agree exactly, so the useful
+ * comparison holds the first point's.)
+ */
+function fixedPowerThrust(
+  input: MatchedPerformanceInput,
+  at: MatchedPerformancePoint,
+  speedMs: number,
+): number | undefined {
   try {
     const [f] = computeJetPerformance({
       water: input.water,
@@ -181,10 +190,10 @@ function fixedPowerThrust(input: MatchedPerformanceInput, p: MatchedPerformanceP
       nozzleLossCoefficient: input.nozzleLossCoefficient,
       inletLossCoefficient: input.inletLossCoefficient,
       wakeFraction: input.wakeFraction,
-      pumpEfficiency: p.pumpEfficiency,
-      powerKw: p.shaftPowerKw,
+      pumpEfficiency: at.pumpEfficiency,
+      powerKw: at.shaftPowerKw,
       nozzleDiameterMm: input.nozzleDiameterMm,
-      speedsMs: [p.speedMs],
+      speedsMs: [speedMs],
     }).points;
     return f?.thrustN;
   } catch {
@@ -259,7 +268,7 @@ export function computeMatchedOutcome(
     ok: true,
     densityKgM3,
     points,
-    fixed: points.map((p) => fixedPowerThrust(input, p)),
+    fixed: points.map((p) => fixedPowerThrust(input, points[0], p.speedMs)),
     gaps,
     withCavitation: input.cavitation !== undefined,
   };
