@@ -38,7 +38,7 @@ function Field({ id, label, value, onChange, unit, hint, error, hideLabel }: Fie
           onChange={(e) => onChange(e.target.value)}
           aria-invalid={error ? true : undefined}
           aria-describedby={describedBy}
-          className={`field-input figure min-w-0 flex-1 ${error ? 'border-fail-600' : ''}`}
+          className={`field-input figure min-w-0 flex-1 ${hideLabel ? 'px-2' : ''} ${error ? 'border-fail-600' : ''}`}
         />
         {unit && (
           <span className="inline-flex min-h-touch w-16 shrink-0 items-center justify-center rounded-lg bg-paper-deep px-2 text-base text-ink-soft">
@@ -112,7 +112,7 @@ export function MatchedFields({ draft, errors, onChange, newKey }: Props) {
       <fieldset aria-label="Engine power curve" className="card min-w-0 space-y-3" data-testid="matched-engine">
         <h3>Engine power curve</h3>
         <p className="field-hint">Shaft power at each engine speed, rpm increasing; at least two points.</p>
-        <div className="grid grid-cols-[2.5rem_1fr_1fr_auto] items-start gap-2">
+        <div className="grid grid-cols-[1rem_1fr_1fr_auto] items-start gap-2">
           <span aria-hidden="true" />
           <span className="text-sm font-bold text-ink-soft">Speed (rpm)</span>
           <span className="text-sm font-bold text-ink-soft">Power (kW)</span>
@@ -148,7 +148,7 @@ export function MatchedFields({ draft, errors, onChange, newKey }: Props) {
           The pump&apos;s characteristic in dimensionless form: flow coefficient φ = Q/(nD³), head coefficient ψ =
           gH/(n²D²), n in revolutions per second; φ increasing, at least two points.
         </p>
-        <div className="grid grid-cols-[2rem_1fr_1fr_1fr_auto] items-start gap-2">
+        <div className="grid grid-cols-[1rem_1fr_1fr_1fr_auto] items-start gap-1.5">
           <span aria-hidden="true" />
           <span className="text-sm font-bold text-ink-soft">Flow φ</span>
           <span className="text-sm font-bold text-ink-soft">Head ψ</span>
@@ -270,7 +270,7 @@ function RemoveButton({ label, onClick, disabled }: { label: string; onClick: ()
   return (
     <button
       type="button"
-      className="btn-secondary min-h-touch px-3"
+      className="btn-secondary min-h-touch min-w-touch px-2"
       aria-label={label}
       onClick={onClick}
       disabled={disabled}
