@@ -1,6 +1,7 @@
 // /calculator: public thrust calculator for organisers and entrants, signed in or not.
 import type { Metadata } from 'next';
 import { Calculator } from './calculator';
+import { CalculatorModes } from './mode-switch';
 
 export const metadata: Metadata = {
   title: 'Thrust calculator',
@@ -8,7 +9,12 @@ export const metadata: Metadata = {
     'Compare water-jet set-ups: static thrust, jet velocity and thrust against boat speed from momentum theory.',
 };
 
-export default function CalculatorPage() {
+export default async function CalculatorPage({
+  searchParams,
+}: {
+  searchParams: Promise<{ mode?: string | string[] }>;
+}) {
+  const { mode } = await searchParams;
   return (
     <div className="space-y-8">
       <header className="space-y-3">
@@ -20,7 +26,7 @@ export default function CalculatorPage() {
         </p>
       </header>
 
-      <Calculator />
+      <CalculatorModes initialMode={mode === 'matched' ? 'matched' : 'fixed'} fixed={<Calculator />} />
 
       <section aria-labelledby="meaning" className="max-w-3xl space-y-3">
         <h2 id="meaning">What the numbers mean</h2>
