@@ -1,6 +1,8 @@
 import type { Metadata, Viewport } from 'next';
 import localFont from 'next/font/local';
 import { connection } from 'next/server';
+import { cookies } from 'next/headers';
+import { isSunlightTheme, SUNLIGHT_CLASS, THEME_COOKIE } from '@/lib/core/theme';
 import './globals.css';
 
 // Atkinson Hyperlegible for reading in glare; IBM Plex Mono for figures that must line up.
@@ -34,8 +36,10 @@ export const viewport: Viewport = { width: 'device-width', initialScale: 1, them
 // which a page prerendered at build time could not.
 export default async function RootLayout({ children }: { children: React.ReactNode }) {
   await connection();
+  // The "sunlight" theme's class is set here, in the HTML itself, so the first paint is already in it.
+  const theme = isSunlightTheme((await cookies()).get(THEME_COOKIE)?.value) ? ` ${SUNLIGHT_CLASS}` : '';
   return (
-    <html lang="en" className={`${body.variable} ${figures.variable}`}>
+    <html lang="en" className={`${body.variable} ${figures.variable}${theme}`}>
       <body>{children}</body>
     </html>
   );

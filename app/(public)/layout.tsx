@@ -1,5 +1,6 @@
 import Link from 'next/link';
 import { BrandMark, BrandName } from '@/components/brand-mark';
+import { ThemeSwitch } from '@/components/theme-switch';
 
 export default function PublicLayout({ children }: { children: React.ReactNode }) {
   return (
@@ -11,6 +12,7 @@ export default function PublicLayout({ children }: { children: React.ReactNode }
             <BrandName />
           </Link>
           <nav className="flex items-center gap-2" aria-label="Site">
+            <ThemeSwitch tone="light" />
             <Link href="/calculator" className="hidden font-bold sm:inline">
               Jet calculator
             </Link>
