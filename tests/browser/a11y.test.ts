@@ -5,7 +5,7 @@
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { launchBrowser, newContext, PHONE, signInWithPassword } from '../support/browser';
+import { launchBrowser, newContext, PHONE, screenshot, signInWithPassword } from '../support/browser';
 import { BASE_URL, DEMO, DEMO_PASSWORD } from '../support/env';
 import { expectNoSeriousA11yViolations } from '../support/a11y';
 import { HttpSession } from '../support/http-session';
@@ -85,6 +85,18 @@ test('public pages: no serious or critical axe-core violation in either theme', 
     { path: `/t/${entry.token}` },
     { path: `/no-such-page-${Date.now()}` },
   ]);
+  // The header (mark, theme switch, two buttons) fits a 390 px phone: nothing scrolls sideways
+  // (WCAG 2.2 SC 1.4.10 Reflow asks for 320 px).
+  await page.goto('/');
+  const header = page.locator('header').first();
+  await header.waitFor();
+  const fits = await header.evaluate((h) => ({
+    scroll: h.scrollWidth,
+    client: h.clientWidth,
+    page: document.documentElement.scrollWidth,
+  }));
+  assert.ok(fits.scroll <= fits.client && fits.page <= 390, JSON.stringify(fits));
+  await screenshot(page, 'a11y-landing-phone');
   await context.close();
 });
 
