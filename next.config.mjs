@@ -17,6 +17,9 @@ const securityHeaders = [
   { key: 'Strict-Transport-Security', value: 'max-age=31536000; includeSubDomains' },
 ];
 
+/** What every file under /_next/static/ carries; scripts/server.mjs sends the same when it answers with Brotli. */
+export const staticFileHeaders = [...securityHeaders, { key: 'Content-Security-Policy', value: staticCsp }];
+
 const nextConfig = {
   // Sequelize loads its dialect with a dynamic require; keep it out of the bundle.
   serverExternalPackages: ['sequelize', 'pg', 'pg-hstore', 'pino', 'prom-client'],
@@ -25,7 +28,8 @@ const nextConfig = {
   poweredByHeader: false,
   // Read when the server starts (scripts/server.mjs). Behind a declared reverse proxy
   // (TRUSTED_PROXY_HOPS >= 1) compression is the proxy's job and gzip in Node would cost the app CPU
-  // on every answer; on one machine with no proxy (0 or unset) nobody else compresses, so the app does.
+  // on every answer; on one machine with no proxy (0 or unset) nobody else compresses, so the app does
+  // (gzip here; scripts/static-compression.mjs adds Brotli for the build's static files).
   compress: !(Number(process.env.TRUSTED_PROXY_HOPS) >= 1),
   reactStrictMode: true,
   async headers() {

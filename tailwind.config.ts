@@ -1,5 +1,8 @@
 import type { Config } from 'tailwindcss';
 
+/** A theme colour from its CSS variable ("r g b"), so Tailwind's opacity modifiers keep working. */
+const v = (name: string) => `rgb(var(--c-${name}) / <alpha-value>)`;
+
 // Boreline's own theme: dark ink on warm paper, a deep "tide" blue for actions and a
 // high-visibility "flare" orange for attention. Verdict colours are chosen to stay
 // distinguishable in sunlight and for common colour-vision deficiencies (always paired
@@ -8,14 +11,22 @@ const config: Config = {
   content: ['./app/**/*.{ts,tsx}', './components/**/*.{ts,tsx}', './lib/**/*.{ts,tsx}'],
   theme: {
     extend: {
+      // Every colour is a CSS variable (app/globals.css): the "sunlight" theme swaps the values.
       colors: {
-        ink: { DEFAULT: '#0b1620', soft: '#2a3a48', mute: '#51606d' },
-        paper: { DEFAULT: '#fbfaf6', deep: '#f1eee4', line: '#d5d0c2' },
-        tide: { 50: '#e8f1f8', 100: '#c9dfef', 500: '#1f5f8b', 600: '#174c70', 700: '#103a57', 900: '#071c2b' },
-        flare: { 100: '#ffe6cc', 500: '#e86a10', 600: '#c2560a' },
-        pass: { 100: '#d8f0dd', 600: '#1d7a36', 800: '#0f4d20' },
-        fail: { 100: '#fbdcd9', 600: '#b3261e', 800: '#7a140f' },
-        doubt: { 100: '#fff1c2', 600: '#8a6100', 800: '#5c4000' },
+        ink: { DEFAULT: v('ink'), soft: v('ink-soft'), mute: v('ink-mute') },
+        paper: { DEFAULT: v('paper'), deep: v('paper-deep'), line: v('paper-line') },
+        tide: {
+          50: v('tide-50'),
+          100: v('tide-100'),
+          500: v('tide-500'),
+          600: v('tide-600'),
+          700: v('tide-700'),
+          900: v('tide-900'),
+        },
+        flare: { 100: v('flare-100'), 500: v('flare-500'), 600: v('flare-600') },
+        pass: { 100: v('pass-100'), 600: v('pass-600'), 800: v('pass-800') },
+        fail: { 100: v('fail-100'), 600: v('fail-600'), 800: v('fail-800') },
+        doubt: { 100: v('doubt-100'), 600: v('doubt-600'), 800: v('doubt-800') },
       },
       fontFamily: {
         sans: ['var(--font-body)', 'system-ui', 'sans-serif'],

@@ -1,6 +1,8 @@
 import type { Metadata, Viewport } from 'next';
 import localFont from 'next/font/local';
 import { connection } from 'next/server';
+import { cookies } from 'next/headers';
+import { isSunlightTheme, SUNLIGHT_CLASS, THEME_COOKIE } from '@/lib/core/theme';
 import './globals.css';
 
 // Atkinson Hyperlegible for reading in glare; IBM Plex Mono for figures that must line up.
@@ -21,6 +23,9 @@ const figures = localFont({
   ],
   variable: '--font-figures',
   display: 'swap',
+  // Not preloaded: on a slow link the body font (and the page's scripts) come first; figures show in the
+  // fallback monospace for a moment and swap in. Both families are already cut to the Latin subset.
+  preload: false,
 });
 
 export const metadata: Metadata = {
@@ -34,8 +39,10 @@ export const viewport: Viewport = { width: 'device-width', initialScale: 1, them
 // which a page prerendered at build time could not.
 export default async function RootLayout({ children }: { children: React.ReactNode }) {
   await connection();
+  // The "sunlight" theme's class is set here, in the HTML itself, so the first paint is already in it.
+  const theme = isSunlightTheme((await cookies()).get(THEME_COOKIE)?.value) ? ` ${SUNLIGHT_CLASS}` : '';
   return (
-    <html lang="en" className={`${body.variable} ${figures.variable}`}>
+    <html lang="en" className={`${body.variable} ${figures.variable}${theme}`}>
       <body>{children}</body>
     </html>
   );

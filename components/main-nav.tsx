@@ -19,8 +19,11 @@ export function MainNav({ items }: { items: MainNavItem[] }) {
           const current = isCurrent(item.href);
           return (
             <li key={item.href} className="min-w-0">
+              {/* No prefetch on load: on one bar of signal a dozen background page fetches compete with the
+                  page being used (Next still prefetches a link when it is hovered or touched). */}
               <Link
                 href={item.href}
+                prefetch={false}
                 aria-current={current ? 'page' : undefined}
                 className={`flex min-h-[44px] items-center rounded-lg px-3 font-bold sm:min-h-touch no-underline sm:whitespace-nowrap sm:rounded-b-none sm:rounded-t-lg sm:px-4 ${
                   current

@@ -1,25 +1,17 @@
 'use client';
 
 import { useMemo } from 'react';
-import {
-  Bar,
-  BarChart,
-  CartesianGrid,
-  ErrorBar,
-  Line,
-  LineChart,
-  ReferenceDot,
-  ReferenceLine,
-  ResponsiveContainer,
-  Tooltip,
-  XAxis,
-  YAxis,
-} from 'recharts';
+import dynamic from 'next/dynamic';
+import { WhenVisible } from './when-visible';
 import { convertForce, convertSpeed, type ForceUnit, type SpeedUnit } from '@/lib/core/engine/units';
 import type { ReportInputs, ReportResults } from '@/lib/core/reports/parity-figures';
 
-export const FORCE_UNITS: ForceUnit[] = ['N', 'kgf', 'lbf'];
-export const SPEED_UNITS: SpeedUnit[] = ['km/h', 'm/s', 'kn', 'mph'];
+// recharts arrives when a chart is drawn, not with the page, and a chart is drawn when it comes near the
+// screen (each chart's box is sized here, so nothing moves).
+const drawings = () => import('./parity-chart-drawings');
+const ThrustCurvesDrawing = dynamic(() => drawings().then((m) => m.ThrustCurvesDrawing), { ssr: false });
+const DeviationDrawing = dynamic(() => drawings().then((m) => m.DeviationDrawing), { ssr: false });
+const JetVelocityDrawing = dynamic(() => drawings().then((m) => m.JetVelocityDrawing), { ssr: false });
 const BOAT_COLOURS = ['#1f5f8b', '#2a3a48', '#51606d', '#103a57', '#3d7aa8', '#5b6b78'];
 // Colour and dash together tell 24 boats apart; the legend below the chart names each line.
 const BOAT_DASHES = ['', '6 3', '2 3', '10 3 2 3'];
@@ -83,56 +75,33 @@ export function ParityCharts({
     err: +(2 * s(b.uStaticJetVelocityMs)).toFixed(2),
   }));
 
+  const drawnBoats = inputs.boats.map((b, i) => ({
+    entryId: b.entryId,
+    label: labels.get(b.entryId) ?? b.entryId,
+    ...boatStyle(i),
+  }));
+  const crossoverDots = crossovers.map((b) => ({
+    key: b.id,
+    x: +s(b.crossoverWithMedianMs!).toFixed(2),
+    y: +refAt(b.crossoverWithMedianMs!).toFixed(1),
+  }));
+
   return (
     <div className="space-y-6">
       <figure className="card" data-testid="chart-thrust-curves">
         <figcaption className="mb-2 font-bold">
           Thrust against boat speed ({forceUnit} vs {speedUnit}); the median boat in orange, crossovers marked
         </figcaption>
-        <div className="h-72 sm:h-96">
-          <ResponsiveContainer width="100%" height="100%">
-            <LineChart data={lineData} margin={{ top: 8, right: 12, bottom: 20, left: 8 }}>
-              <CartesianGrid stroke="#d5d0c2" strokeDasharray="3 3" />
-              <XAxis
-                dataKey="speed"
-                type="number"
-                domain={[0, 'dataMax']}
-                label={{ value: speedUnit, position: 'insideBottom', offset: -10 }}
-              />
-              <YAxis width={60} />
-              <Tooltip
-                formatter={(v, name) => [
-                  `${v} ${forceUnit}`,
-                  name === 'median' ? 'Median boat' : (labels.get(String(name)) ?? String(name)),
-                ]}
-                labelFormatter={(v) => `${v} ${speedUnit}`}
-              />
-              {inputs.boats.map((b, i) => (
-                <Line
-                  key={b.entryId}
-                  dataKey={b.entryId}
-                  name={labels.get(b.entryId)}
-                  dot={false}
-                  stroke={boatStyle(i).stroke}
-                  strokeDasharray={boatStyle(i).dash || undefined}
-                  strokeWidth={1.5}
-                  isAnimationActive={false}
-                />
-              ))}
-              <Line dataKey="median" dot={false} stroke="#e86a10" strokeWidth={3} isAnimationActive={false} />
-              {crossovers.map((b) => (
-                <ReferenceDot
-                  key={b.id}
-                  x={+s(b.crossoverWithMedianMs!).toFixed(2)}
-                  y={+refAt(b.crossoverWithMedianMs!).toFixed(1)}
-                  r={5}
-                  fill="#fbfaf6"
-                  stroke="#0b1620"
-                />
-              ))}
-            </LineChart>
-          </ResponsiveContainer>
-        </div>
+        <WhenVisible className="h-72 sm:h-96">
+          <ThrustCurvesDrawing
+            lineData={lineData}
+            boats={drawnBoats}
+            crossovers={crossoverDots}
+            forceUnit={forceUnit}
+            speedUnit={speedUnit}
+            labels={labels}
+          />
+        </WhenVisible>
         <ul
           className="mt-3 grid gap-x-4 gap-y-1 text-sm sm:grid-cols-2 lg:grid-cols-3"
           aria-label="Lines on the chart"
@@ -162,7 +131,7 @@ export function ParityCharts({
 
       {devData.length < 2 ? (
         <section className="card" data-testid="deviation-single">
-          <h3 className="font-bold">Static thrust deviation from the class median</h3>
+          <h2 className="text-lg font-bold">Static thrust deviation from the class median</h2>
           <p className="mt-1">
             Only one boat is in the figures, so it is the median itself: there is no deviation to chart until a second
             boat has a conforming inspection.
@@ -173,42 +142,17 @@ export function ParityCharts({
           <figcaption className="mb-2 font-bold">
             Static thrust deviation from the class median (%), whiskers ±2u (about 95 %)
           </figcaption>
-          <div style={{ height: Math.max(180, devData.length * 26) }}>
-            <ResponsiveContainer width="100%" height="100%">
-              <BarChart data={devData} layout="vertical" margin={{ left: 8, right: 16 }}>
-                <CartesianGrid stroke="#d5d0c2" strokeDasharray="3 3" />
-                <XAxis type="number" unit=" %" />
-                <YAxis type="category" dataKey="name" width={130} tick={{ fontSize: 12 }} />
-                <ReferenceLine x={0} stroke="#0b1620" />
-                <Tooltip formatter={(v) => [`${v} %`, 'Deviation']} />
-                <Bar dataKey="dev" fill="#1f5f8b" isAnimationActive={false}>
-                  <ErrorBar dataKey="err" width={6} stroke="#0b1620" direction="x" />
-                </Bar>
-              </BarChart>
-            </ResponsiveContainer>
-          </div>
+          <WhenVisible style={{ height: Math.max(180, devData.length * 26) }}>
+            <DeviationDrawing data={devData} />
+          </WhenVisible>
         </figure>
       )}
 
       <figure className="card" data-testid="chart-jet-velocity">
         <figcaption className="mb-2 font-bold">Static jet velocity per boat ({speedUnit}), whiskers ±2u</figcaption>
-        <div style={{ height: Math.max(180, jetData.length * 26) }}>
-          <ResponsiveContainer width="100%" height="100%">
-            <BarChart data={jetData} layout="vertical" margin={{ left: 8, right: 16 }}>
-              <CartesianGrid stroke="#d5d0c2" strokeDasharray="3 3" />
-              <XAxis
-                type="number"
-                domain={['dataMin - 2', 'dataMax + 2']}
-                tickFormatter={(v: number) => v.toFixed(0)}
-              />
-              <YAxis type="category" dataKey="name" width={130} tick={{ fontSize: 12 }} />
-              <Tooltip formatter={(v) => [`${v} ${speedUnit}`, 'Jet velocity']} />
-              <Bar dataKey="vj" fill="#2a3a48" isAnimationActive={false}>
-                <ErrorBar dataKey="err" width={6} stroke="#e86a10" direction="x" />
-              </Bar>
-            </BarChart>
-          </ResponsiveContainer>
-        </div>
+        <WhenVisible style={{ height: Math.max(180, jetData.length * 26) }}>
+          <JetVelocityDrawing data={jetData} speedUnit={speedUnit} />
+        </WhenVisible>
       </figure>
     </div>
   );

@@ -3,9 +3,12 @@
 import { useState } from 'react';
 import type { ForceUnit, SpeedUnit } from '@/lib/core/engine/units';
 import type { ReportInputs, ReportResults } from '@/lib/core/reports/parity-figures';
-import { FORCE_UNITS, ParityCharts, SPEED_UNITS } from './parity-charts';
+import { ParityCharts } from './parity-charts';
 import { ParityTables } from './parity-tables';
 import { ParityOdds } from './parity-odds';
+
+const FORCE_UNITS: ForceUnit[] = ['N', 'kgf', 'lbf'];
+const SPEED_UNITS: SpeedUnit[] = ['km/h', 'm/s', 'kn', 'mph'];
 
 /** The report's charts and tables under one unit switch, so a figure reads the same in both. */
 export function ParityReport({ inputs, results }: { inputs: ReportInputs; results: ReportResults }) {

@@ -88,7 +88,7 @@ export function ParityTables({
         </section>
       )}
       {p && (
-        <section aria-labelledby="per-boat" className="card overflow-x-auto p-0">
+        <section aria-labelledby="per-boat" className="card overflow-x-auto p-0" tabIndex={0}>
           <h2 id="per-boat" className="p-4 text-xl">
             Per boat
           </h2>

@@ -1,6 +1,6 @@
 'use client';
 
-import { signOut } from 'next-auth/react';
+import { signOutTo } from './sign-out';
 
 // A phone at the dock may be shared: signing out also empties the dock screen's offline caches
 // (pages and board answers, which carry tag tokens). Records still waiting stay in IndexedDB and
@@ -17,7 +17,7 @@ export function SignOutButton() {
       type="button"
       onClick={async () => {
         await clearOfflineCaches().catch(() => undefined);
-        await signOut({ callbackUrl: '/' });
+        await signOutTo('/');
       }}
       className="btn min-h-touch border-2 border-white/60 bg-transparent px-3 text-white hover:bg-tide-700"
     >

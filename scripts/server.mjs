@@ -6,6 +6,7 @@
 // TRUSTED_PROXY_HOPS (0 = no proxy: compression on, forwarded headers from clients dropped).
 import { createServer } from 'node:http';
 import next from 'next';
+import { createStaticCompression } from './static-compression.mjs';
 import { forwardHeaders, isLoopbackHost, parseProxyHops, readListenHost } from './forwarding.mjs';
 import { logger, metrics, requestIdFor, routeLabel } from './observability.mjs';
 
@@ -45,6 +46,16 @@ if (hops > 0 && !isLoopbackHost(host)) {
 const app = next({ dev: false, hostname: host, port });
 const handle = app.getRequestHandler();
 await app.prepare();
+// No proxy declared: nobody else compresses, so the build's static files also go out as Brotli, with the
+// headers next.config.mjs gives them (imported here, after TRUSTED_PROXY_HOPS is normalised above).
+const config = await import('../next.config.mjs');
+const staticBrotli =
+  hops === 0
+    ? createStaticCompression({
+        distDir: config.default.distDir,
+        headers: config.staticFileHeaders.map(({ key, value }) => [key, value]),
+      })
+    : null;
 
 const server = createServer((req, res) => {
   forwardHeaders(req.headers, req.socket.remoteAddress, hops);
@@ -68,6 +79,7 @@ const server = createServer((req, res) => {
         'request',
       );
   });
+  if (staticBrotli?.handle(req, res)) return;
   handle(req, res).catch((err) => {
     log.error({ requestId, err }, 'unhandled request error');
     if (!res.headersSent) res.statusCode = 500;
@@ -96,10 +108,12 @@ if (metricsPort) {
     })
     .listen(metricsPort, '127.0.0.1', () => say(`metrics on http://127.0.0.1:${metricsPort}/metrics`));
 }
-server.listen(port, host, () =>
+server.listen(port, host, () => {
+  if (staticBrotli)
+    void staticBrotli.warm().then(() => say(`static files compressed with Brotli: ${staticBrotli.size}`));
   say(
     `listening on http://${host.includes(':') ? `[${host}]` : host}:${port} (${mode}; ${hops ? `${hops} trusted proxy hop(s), compression left to the proxy` : 'no proxy declared: client address from the socket, compression on'})`,
-  ),
-);
+  );
+});
 
 for (const sig of ['SIGTERM', 'SIGINT']) process.on(sig, () => process.exit(0));

@@ -5,6 +5,7 @@ import { navFor } from '@/lib/core/navigation';
 import { BrandMark } from '@/components/brand-mark';
 import { SignOutButton } from '@/components/sign-out-button';
 import { MainNav } from '@/components/main-nav';
+import { ThemeSwitch } from '@/components/theme-switch';
 
 export const dynamic = 'force-dynamic';
 
@@ -25,6 +26,7 @@ export default async function AppLayout({ children }: { children: React.ReactNod
             <span className="hidden sm:inline" data-testid="signed-in-as">
               {actor.name ?? actor.email}
             </span>
+            <ThemeSwitch tone="dark" />
             <SignOutButton />
           </div>
         </div>

@@ -1,23 +1,26 @@
 import Link from 'next/link';
 import { BrandMark, BrandName } from '@/components/brand-mark';
+import { ThemeSwitch } from '@/components/theme-switch';
 
 export default function PublicLayout({ children }: { children: React.ReactNode }) {
   return (
     <div className="flex min-h-screen flex-col">
       <header className="border-b border-paper-line bg-white">
-        <div className="mx-auto flex max-w-5xl items-center justify-between gap-4 px-4 py-3">
+        <div className="mx-auto flex max-w-5xl flex-wrap items-center justify-between gap-x-4 gap-y-2 px-4 py-3">
           <Link href="/" className="flex items-center gap-2 no-underline">
             <BrandMark />
             <BrandName />
           </Link>
           <nav className="flex items-center gap-2" aria-label="Site">
+            <ThemeSwitch tone="light" />
             <Link href="/calculator" className="hidden font-bold sm:inline">
               Jet calculator
             </Link>
-            <Link href="/sign-in" className="btn-secondary">
+            {/* On a narrow phone the buttons move under the mark as a row rather than breaking their words. */}
+            <Link href="/sign-in" className="btn-secondary whitespace-nowrap px-3 sm:px-5">
               Sign in
             </Link>
-            <Link href="/sign-up" className="btn-primary">
+            <Link href="/sign-up" className="btn-primary whitespace-nowrap px-3 sm:px-5">
               Sign up
             </Link>
           </nav>

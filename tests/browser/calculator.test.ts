@@ -87,6 +87,9 @@ test('calculator: two nozzles at 300 kW, static figures, curves crossing near 33
   assert.equal(await a.getByTestId('shaft-power').innerText(), '300.0 kW');
 
   const chart = page.getByTestId('thrust-chart');
+  // The chart is drawn when it comes near the screen (components/when-visible.tsx), its library loaded then.
+  await chart.scrollIntoViewIfNeeded();
+  await chart.locator('.recharts-wrapper > svg.recharts-surface').waitFor();
   assert.equal(
     await chart.locator('.recharts-wrapper > svg.recharts-surface').count(),
     1,

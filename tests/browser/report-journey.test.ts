@@ -64,6 +64,8 @@ test('organiser publishes the RR parity report; the public page, PDF and CSV wor
   await page.goto(`/organise/events/${DEMO.meetingId}/classes/${classId}/report`);
   await page.getByTestId('draft-heading').waitFor();
   // The thrust chart draws one line per boat plus the median boat.
+  // Charts are drawn when they come near the screen (components/when-visible.tsx).
+  await page.getByTestId('chart-thrust-curves').scrollIntoViewIfNeeded();
   const lines = page.getByTestId('chart-thrust-curves').locator('path.recharts-line-curve');
   await lines.first().waitFor();
   const [{ n }] = await query<{ n: string }>(
@@ -71,6 +73,8 @@ test('organiser publishes the RR parity report; the public page, PDF and CSV wor
     [classId],
   );
   assert.equal(await lines.count(), Number(n) + 1);
+  await page.getByTestId('chart-deviation').scrollIntoViewIfNeeded();
+  await page.getByTestId('chart-deviation').locator('.recharts-bar-rectangle').first().waitFor();
   assert.ok((await page.getByTestId('chart-deviation').locator('.recharts-bar-rectangle').count()) >= Number(n) - 1);
   await screenshot(page, 'report-01-draft');
 

@@ -1,7 +1,7 @@
 'use client';
 
 import { useEffect } from 'react';
-import { signOut } from 'next-auth/react';
+import { signOutTo } from '@/components/sign-out';
 import { resendAddressProofAction, signOutEverywhereAction } from './actions';
 import { FormMessage } from '@/components/forms/form-message';
 import { useFormAction } from '@/components/forms/use-form-action';
@@ -9,7 +9,7 @@ import { useFormAction } from '@/components/forms/use-form-action';
 export function SignOutEverywhereForm() {
   const { state, isPending, form } = useFormAction(signOutEverywhereAction, null);
   useEffect(() => {
-    if (state?.ok) void signOut({ callbackUrl: '/sign-in' });
+    if (state?.ok) void signOutTo('/sign-in');
   }, [state]);
   return (
     <form {...form} className="space-y-2">

@@ -68,6 +68,8 @@ export function Calculator() {
         />
       </section>
 
+      {/* Each set-up's card has an h3: this keeps the heading levels in order (h1, h2, h3) for screen readers. */}
+      <h2 className="sr-only">Set-ups</h2>
       <div className="grid gap-4 lg:grid-cols-2">
         {setups.map((s, i) => {
           const curve = results?.curves[s.id];

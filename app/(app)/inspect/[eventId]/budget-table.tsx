@@ -24,7 +24,7 @@ export function BudgetTable({ budget, caption }: { budget: LengthBudget; caption
       <summary className="min-h-[3rem] cursor-pointer py-2 font-bold">
         Uncertainty budget: U = {mm(budget.expandedUncertaintyMm)} mm
       </summary>
-      <div className="overflow-x-auto">
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Uncertainty budget">
         <table className="figure w-full min-w-[32rem] text-left text-base">
           <caption className="py-1 text-left text-ink-soft">{caption}</caption>
           <thead>

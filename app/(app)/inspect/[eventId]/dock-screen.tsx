@@ -320,7 +320,14 @@ export function DockScreen({
             Looking up…
           </p>
         )}
-        <div ref={verdictRef} tabIndex={-1} id="dock-verdict" className="scroll-mt-4 space-y-4 outline-none">
+        {/* A live region: a recorded verdict is announced as well as focused (WCAG 2.2 SC 4.1.3). */}
+        <div
+          ref={verdictRef}
+          tabIndex={-1}
+          id="dock-verdict"
+          aria-live="polite"
+          className="scroll-mt-4 space-y-4 outline-none"
+        >
           {notice && (
             <p
               role="status"

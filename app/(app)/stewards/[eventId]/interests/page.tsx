@@ -35,7 +35,7 @@ export default async function InterestRegisterPage({ params }: { params: Promise
         {r.items.length === 0 ? (
           <p data-testid="register-empty">No interests declared yet.</p>
         ) : (
-          <div className="overflow-x-auto">
+          <div className="overflow-x-auto" tabIndex={0} role="region" aria-labelledby="register">
             <table className="w-full min-w-[40rem] text-left text-sm" data-testid="interest-register">
               <thead className="bg-paper-deep">
                 <tr>

@@ -230,7 +230,7 @@ export function EntriesTable({
       <p className="text-sm text-ink-mute" aria-live="polite" data-testid="entries-count">
         {table.getFilteredRowModel().rows.length} of {rows.length} entries
       </p>
-      <div className="card overflow-x-auto p-0">
+      <div className="card overflow-x-auto p-0" tabIndex={0} role="region" aria-label="Entries">
         <table className="w-full min-w-[40rem] text-left" data-testid="entries-table">
           <thead className="bg-paper-deep">
             {table.getHeaderGroups().map((hg) => (

@@ -137,7 +137,7 @@ export function WhatIfSandbox({
           <p className="text-lg" data-testid="what-if-spread">
             Spread {spread(projected.before)?.toFixed(2)} % → <strong>{spread(projected.after)?.toFixed(2)} %</strong>
           </p>
-          <div className="overflow-x-auto">
+          <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="What-if figures per boat">
             <table className="w-full min-w-[32rem] text-left text-sm">
               <thead>
                 <tr>
