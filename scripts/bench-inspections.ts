@@ -13,6 +13,9 @@
 // Prints figures, their ratio to the baseline and the goals of issue 18 (p95 under 100 ms, at least
 // 0.5x the baseline's throughput) with PASS or MISS; asserts nothing (exit 0 unless setup fails).
 import { randomUUID } from 'node:crypto';
+import { execFileSync } from 'node:child_process';
+import { readdirSync, readFileSync } from 'node:fs';
+import path from 'node:path';
 import pg from 'pg';
 
 import { BASE, Client, inspectionBody, percentile, setUpScratchMeeting } from './bench-support';
@@ -22,6 +25,72 @@ const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 3);
 // Issue 18, item 4: the goals this bench reports against.
 const P95_GOAL_MS = 100;
 const THROUGHPUT_GOAL = 0.5;
+
+// CPU time per request of each process on the machine under test (Linux /proc: user + system time of
+// the process and its children, in clock ticks of 10 ms). On a shared machine throughput swings with
+// the neighbours' load; the CPU a request costs each process swings far less, so it shows what changed.
+// The app server's pid: BENCH_APP_PID, else the one scripts/test.sh started (BORELINE_APP_PIDFILE).
+const TICK_MS = 10;
+function processTree(): Map<number, { ppid: number; ticks: number }> {
+  const all = new Map<number, { ppid: number; ticks: number }>();
+  for (const name of readdirSync('/proc')) {
+    if (!/^\d+$/.test(name)) continue;
+    try {
+      // Fields after the command name (which may hold spaces): state ppid ... utime(14) stime(15) cutime(16) cstime(17).
+      const stat = readFileSync(`/proc/${name}/stat`, 'utf8');
+      const f = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+      all.set(Number(name), {
+        ppid: Number(f[1]),
+        ticks: Number(f[11]) + Number(f[12]) + Number(f[13]) + Number(f[14]),
+      });
+    } catch {
+      // gone while reading
+    }
+  }
+  return all;
+}
+function treeTicks(all: Map<number, { ppid: number; ticks: number }>, root: number | null): number {
+  if (!root || !all.has(root)) return NaN;
+  let sum = 0;
+  const todo = [root];
+  while (todo.length) {
+    const pid = todo.pop()!;
+    sum += all.get(pid)?.ticks ?? 0;
+    for (const [child, p] of all) if (p.ppid === pid) todo.push(child);
+  }
+  return sum;
+}
+const readPid = (file: string | undefined) => {
+  try {
+    return file ? Number(readFileSync(file, 'utf8').trim()) : null;
+  } catch {
+    return null;
+  }
+};
+const ROOTS = {
+  app: process.env.BENCH_APP_PID ? Number(process.env.BENCH_APP_PID) : readPid(process.env.BORELINE_APP_PIDFILE),
+  postgres: (() => {
+    try {
+      return Number(
+        execFileSync('pgrep', ['-o', '-f', `bin/postgres .*-p ${process.env.PGPORT}( |$)`])
+          .toString()
+          .split('\n')[0],
+      );
+    } catch {
+      return null;
+    }
+  })(),
+  fakes: readPid(path.join(__dirname, '..', '.data', 'test-run', 'fakes.pid')),
+};
+type Cpu = Record<keyof typeof ROOTS, number>;
+function cpuNow(): Cpu {
+  const all = processTree();
+  return {
+    app: treeTicks(all, ROOTS.app) * TICK_MS,
+    postgres: treeTicks(all, ROOTS.postgres) * TICK_MS,
+    fakes: treeTicks(all, ROOTS.fakes) * TICK_MS,
+  };
+}
 
 /** Waits until the mail outbox has nothing left to send (the app's worker drains it); returns the seconds waited. */
 async function waitForOutbox(db: pg.Client): Promise<number> {
@@ -44,7 +113,8 @@ async function setUp() {
 
 const body = inspectionBody;
 
-type Result = { name: string; seconds: number; latenciesMs: number[]; errors: number };
+/** cpu: ms per request; for new records it also covers sending their mails after the round (the outbox draining). */
+type Result = { name: string; seconds: number; latenciesMs: number[]; errors: number; cpu?: Cpu };
 
 /** CLIENTS loops share REQUESTS requests; each request's latency is kept. */
 async function run(name: string, send: (worker: number, i: number) => Promise<Response>): Promise<Result> {
@@ -52,6 +122,7 @@ async function run(name: string, send: (worker: number, i: number) => Promise<Re
   let next = 0;
   let errors = 0;
   const started = performance.now();
+  const cpuBefore = cpuNow();
   await Promise.all(
     Array.from({ length: CLIENTS }, async (_, worker) => {
       for (let i = next++; i < REQUESTS; i = next++) {
@@ -63,7 +134,12 @@ async function run(name: string, send: (worker: number, i: number) => Promise<Re
       }
     }),
   );
-  return { name, seconds: (performance.now() - started) / 1000, latenciesMs, errors };
+  const seconds = (performance.now() - started) / 1000;
+  const cpuAfter = cpuNow();
+  const cpu = Object.fromEntries(
+    Object.keys(cpuAfter).map((k) => [k, (cpuAfter[k as keyof Cpu] - cpuBefore[k as keyof Cpu]) / REQUESTS]),
+  ) as Cpu;
+  return { name, seconds, latenciesMs, errors, cpu };
 }
 
 const pct = percentile;
@@ -94,7 +170,12 @@ async function main() {
       keys.push([entryIds[w], key]);
       return post(body(entryIds[w], key));
     });
-    rounds.push({ health, record, drainS: await waitForOutbox(db) });
+    // The mails this round queued are sent now: their CPU is counted with the round's records.
+    const cpuBefore = cpuNow();
+    const drainS = await waitForOutbox(db);
+    const cpuAfter = cpuNow();
+    for (const k of Object.keys(cpuAfter) as (keyof Cpu)[]) record.cpu![k] += (cpuAfter[k] - cpuBefore[k]) / REQUESTS;
+    rounds.push({ health, record, drainS });
   }
   const replay = await run('POST inspections (repeated key)', (_w, i) =>
     post(body(keys[i % keys.length][0], keys[i % keys.length][1])),
@@ -129,6 +210,15 @@ async function main() {
     `\nmedian over rounds: new records ${median(rounds.map((r) => rps(r.record))).toFixed(0)} req/s, ` +
       `baseline ${median(rounds.map((r) => rps(r.health))).toFixed(0)} req/s; baseline p95 ${pct(all('health'), 95).toFixed(1)} ms`,
   );
+  const cpuLine = (label: string, k: 'health' | 'record') => {
+    const per = (p: keyof Cpu) => median(rounds.map((r) => r[k].cpu![p]));
+    console.log(
+      `  ${label.padEnd(28)} app ${per('app').toFixed(2).padStart(6)}   postgres ${per('postgres').toFixed(2).padStart(6)}   fakes ${per('fakes').toFixed(2).padStart(6)}`,
+    );
+  };
+  console.log('CPU ms per request, median over rounds (new records include sending their mails after the round):');
+  cpuLine('GET /api/health (baseline)', 'health');
+  cpuLine('POST inspections (new)', 'record');
   console.log(`goals (issue 18, item 4; ${CLIENTS} clients, same run):`);
   console.log(
     `  ${verdict(p95 < P95_GOAL_MS)}  new records p95 ${p95.toFixed(1)} ms over all rounds (target under ${P95_GOAL_MS} ms)`,

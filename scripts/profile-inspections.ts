@@ -27,7 +27,12 @@ async function main() {
     execFileSync('node_modules/.bin/tsx', ['--conditions=react-server', 'scripts/bench-inspections.ts'], {
       cwd: ROOT,
       stdio: 'inherit',
-      env: { ...process.env, BASE_URL: `http://localhost:${port}`, BENCH_ROUNDS: process.env.BENCH_ROUNDS ?? '1' },
+      env: {
+        ...process.env,
+        BASE_URL: `http://localhost:${port}`,
+        BENCH_ROUNDS: process.env.BENCH_ROUNDS ?? '1',
+        BENCH_APP_PID: String(child.pid),
+      },
     });
   } finally {
     child.kill('SIGTERM'); // scripts/server.mjs exits on SIGTERM, and V8 writes the profile on exit
