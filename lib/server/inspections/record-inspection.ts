@@ -294,7 +294,9 @@ export async function recordInspection(
       `with ${currentInspectionCte('entry')},
        latest as (select d.id from boat_declaration_versions d where d.boat_id = :boatId order by d.version desc limit 1),
        entry_result as (
-         update entries set inspection_result = (select i.overall_result from inspections i join current_inspection c on c.id = i.id), updated_at = now()
+         -- By primary key: a join let the planner scan every meeting's inspections for this one row.
+         update entries set inspection_result = (select i.overall_result from inspections i where i.id = (select id from current_inspection)),
+                updated_at = now()
           where id = :entryId),
        settled as (${settleAskedSql} and exists (select 1 from latest where latest.id = :declarationVersionId) returning r.id),
        task as (
