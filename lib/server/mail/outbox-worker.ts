@@ -42,9 +42,9 @@ export async function sendOutboxBatch(limit = BATCH): Promise<{ claimed: number;
     const sent = rows.filter((_, i) => results[i].status === 'fulfilled').map((r) => r.id);
     const failed = rows.flatMap((r, i) => {
       const res = results[i];
-      // The relay's answer, cut short; never the message itself.
+      // The relay's answer, cut short, kept on the row; never the message itself.
       return res.status === 'rejected'
-        ? [{ id: r.id, error: String(res.reason?.message ?? res.reason).slice(0, 500) }]
+        ? [{ id: r.id, error: String(res.reason?.message ?? res.reason).slice(0, 500), code: res.reason?.responseCode }]
         : [];
     });
     await sequelize.query(
@@ -59,15 +59,19 @@ export async function sendOutboxBatch(limit = BATCH): Promise<{ claimed: number;
       {
         replacements: {
           sent: sent.length ? sent : [null],
-          failed: JSON.stringify(failed),
+          failed: JSON.stringify(failed.map(({ id, error }) => ({ id, error }))),
           retryBaseMs,
           maxAttempts: MAX_ATTEMPTS,
         },
         transaction,
       },
     );
+    // The log gets the count and the relay's reply code only: a relay's text may name the recipient.
     if (failed.length)
-      logger().warn({ failed: failed.length, error: failed[0].error }, 'mail outbox: sends failed, retrying later');
+      logger().warn(
+        { failed: failed.length, responseCode: failed[0].code ?? null },
+        'mail outbox: sends failed, retrying later',
+      );
     return { claimed: rows.length, sent: sent.length, failed: failed.length };
   });
 }
