@@ -10,4 +10,7 @@ export async function register() {
     console.error(`[boreline] not starting: ${(err as Error).message}`);
     process.exit(1);
   }
+  // The mail outbox's worker: sends what requests queued, after their answers (lib/server/mail/outbox-worker.ts).
+  const { startOutboxWorker } = await import('./lib/server/mail/outbox-worker');
+  startOutboxWorker();
 }

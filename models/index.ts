@@ -12,6 +12,7 @@ import { ParityReport, initParityReports } from './parity-report';
 import { ProvisionalResults, initProvisionalResults } from './provisional-results';
 import { Protest, ProtestEvidence, initProtests } from './protest';
 import { AuditEvent, initAuditEvents } from './audit-event';
+import { MailOutbox, initMailOutbox } from './mail-outbox';
 import { CustodyItem, CustodyRelease, initCustody } from './custody';
 import { OfficialInterest, OfficialInterestWithdrawal, initOfficialInterests } from './official-interest';
 import {
@@ -43,6 +44,7 @@ export function initModels(sequelize: Sequelize) {
   initCustody(sequelize);
   initOfficialInterests(sequelize);
   initBoatRecord(sequelize);
+  initMailOutbox(sequelize);
 
   Account.belongsTo(User, { foreignKey: 'userId' });
   Session.belongsTo(User, { foreignKey: 'userId' });
@@ -138,6 +140,7 @@ export function initModels(sequelize: Sequelize) {
     Seal,
     SealEvent,
     BoatLogNote,
+    MailOutbox,
   };
 }
 
@@ -182,4 +185,5 @@ export {
   Seal,
   SealEvent,
   BoatLogNote,
+  MailOutbox,
 };

@@ -26,6 +26,9 @@ export NEXTAUTH_SECRET="test-$(rand)"
 export SMTP_URL="smtp://127.0.0.1:${TEST_SMTP_PORT:-2625}"
 export MAIL_FAKE_HTTP_PORT="${TEST_MAIL_HTTP_PORT:-2626}"
 export MAIL_FROM="Boreline <no-reply@boreline.invalid>"
+# The mail outbox's worker looks every 200 ms (2 s in production) and retries a refused send after 0.5 s,
+# so tests that read mail wait a moment, not seconds.
+export MAIL_OUTBOX_INTERVAL_MS=200 MAIL_RETRY_BASE_MS=500
 export FAKES_DIR="$ROOT/.data/test-fakes"
 export NEXT_DIST_DIR=".next-test"
 export TEST_ARTIFACTS="$ROOT/test-results"

@@ -43,11 +43,29 @@ export function startMailFake(opts: { smtpPort: number; httpPort: number; storeF
   };
   process.on('exit', flush);
 
+  // Addresses the fake refuses for their next N deliveries (POST /refuse): a relay that is briefly
+  // unable to take mail for one recipient, so a test can watch the sender retry without stopping the
+  // fake for everyone else. 451 is a transient failure (RFC 5321, section 4.2.3).
+  const refusals = new Map<string, number>();
   const smtp = new SMTPServer({
     authOptional: true,
     disabledCommands: ['STARTTLS'],
     logger: false,
     banner: 'boreline mail fake',
+    onRcptTo(address, _session, callback) {
+      const to = address.address.toLowerCase();
+      const left = refusals.get(to) ?? 0;
+      if (left > 0) {
+        if (left === 1) refusals.delete(to);
+        else refusals.set(to, left - 1);
+        const err = new Error('Requested action aborted: local error in processing (fake)') as Error & {
+          responseCode: number;
+        };
+        err.responseCode = 451;
+        return callback(err);
+      }
+      callback();
+    },
     onData(stream, session, callback) {
       simpleParser(stream)
         .then((mail) => {
@@ -75,7 +93,8 @@ export function startMailFake(opts: { smtpPort: number; httpPort: number; storeF
   );
   smtp.listen(opts.smtpPort, '127.0.0.1');
 
-  // GET /messages[?to=address] newest first; DELETE /messages empties the inbox.
+  // GET /messages[?to=address] newest first; DELETE /messages empties the inbox; POST
+  // /refuse?to=address&times=N refuses that address's next N deliveries.
   const inbox = http.createServer((req, res) => {
     const url = new URL(req.url ?? '/', 'http://127.0.0.1');
     res.setHeader('content-type', 'application/json');
@@ -90,6 +109,16 @@ export function startMailFake(opts: { smtpPort: number; httpPort: number; storeF
       messages.length = 0;
       persist();
       res.end(JSON.stringify({ data: { deleted: true } }));
+    } else if (url.pathname === '/refuse' && req.method === 'POST') {
+      const to = url.searchParams.get('to')?.toLowerCase() ?? '';
+      const times = Number(url.searchParams.get('times') ?? 1);
+      if (!to || !Number.isInteger(times) || times < 1 || times > 100) {
+        res.statusCode = 400;
+        res.end(JSON.stringify({ error: { code: 'invalid_input', message: 'Give to= and times= (1 to 100)' } }));
+        return;
+      }
+      refusals.set(to, times);
+      res.end(JSON.stringify({ data: { to, times } }));
     } else if (url.pathname === '/health') {
       res.end(JSON.stringify({ data: { ok: true } }));
     } else {

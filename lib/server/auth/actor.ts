@@ -1,6 +1,6 @@
 import 'server-only';
 import { cookies } from 'next/headers';
-import { getToken } from 'next-auth/jwt';
+import { decode, getToken, type JWT, type JWTDecodeParams } from 'next-auth/jwt';
 import { serverEnv } from '@/lib/server/config/env';
 import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/server/db';
@@ -52,6 +52,32 @@ export async function loadActor(userId: string, sessionVersion: number): Promise
   };
 }
 
+// Session tokens this process has already decrypted, by their exact text: next-auth derives the key
+// (HKDF) and decrypts the token (JWE) on every request, the largest piece of a signed-in request's own
+// work in the recording benchmark's profile. Only a token that decrypted with the secret is kept, and
+// only until its own expiry; the person, roles and session version are still read from the database
+// on every request (loadActor), so ending sessions or removing a role works at once as before.
+// Bounded: the oldest entry goes first.
+const DECODED_TOKENS_MAX = 2000;
+const globalForTokens = globalThis as unknown as { __borelineDecodedTokens?: Map<string, JWT> };
+
+async function decodeOnce(params: JWTDecodeParams): Promise<JWT | null> {
+  const cache = (globalForTokens.__borelineDecodedTokens ??= new Map());
+  const text = params.token;
+  if (!text) return null;
+  const known = cache.get(text);
+  if (known) {
+    if (typeof known.exp === 'number' && known.exp * 1000 > Date.now()) return known;
+    cache.delete(text);
+  }
+  const token = await decode(params); // throws for a token that is not ours; getToken answers null
+  if (token && typeof token.exp === 'number') {
+    if (cache.size >= DECODED_TOKENS_MAX) cache.delete(cache.keys().next().value!);
+    cache.set(text, Object.freeze(token));
+  }
+  return token;
+}
+
 /**
  * The person behind this request's session cookie. Only the cookie is read (next-auth's getToken
  * decrypts and checks its expiry): getServerSession would also re-sign a fresh token on every call,
@@ -63,6 +89,7 @@ export async function getActor(): Promise<Actor | null> {
   const token = await getToken({
     req: { cookies: Object.fromEntries(jar.getAll().map((c) => [c.name, c.value])), headers: {} } as never,
     secret: serverEnv().NEXTAUTH_SECRET, // the secret next-auth signs with (lib/server/auth/options.ts)
+    decode: decodeOnce,
   });
   const id = typeof token?.uid === 'string' ? token.uid : null;
   // A token from before session versions counts as version 0.

@@ -88,6 +88,10 @@ export const EnvSchema = z.object({
       .default(DEFAULT_SMTP_URL),
   ),
   MAIL_FROM: z.preprocess(unsetIfEmpty, z.string().trim().default(DEFAULT_MAIL_FROM)),
+  // The outbox worker (lib/server/mail/outbox-worker.ts): how often it looks for mail to send, and the
+  // first retry's wait after a failed send (doubled each time, at most an hour).
+  MAIL_OUTBOX_INTERVAL_MS: positiveInt(2000),
+  MAIL_RETRY_BASE_MS: positiveInt(30_000),
   // Throttles and limits (lib/server/auth, lib/server/accounts, lib/server/http)
   THROTTLE_PURGE_INTERVAL_S: positiveInt(60),
   SIGN_IN_LIMIT_PER_15_MIN: positiveInt(10),

@@ -95,16 +95,20 @@ export function currentInspectionCte(scope: 'entry' | 'event', { acrossVersions 
     ? ''
     : `and not exists (select 1 from boat_declaration_versions dv
                            join boat_declaration_versions dn on dn.boat_id = dv.boat_id and dn.version > dv.version
-                          where dv.id = i.declaration_version_id)`;
+                          where dv.id = c.declaration_version_id)`;
+  // The chain carries the columns the choice needs, so the choice never joins inspections again (that
+  // join read the whole table once the entry had a long history: it ran for every record sent).
   return `recursive chain as (
-      select id, entry_id, captured_at as root_at from inspections where ${where} and supersedes_id is null
+      select id, entry_id, captured_at as root_at, captured_at, received_at, declaration_version_id
+        from inspections where ${where} and supersedes_id is null
       union all
-      select i.id, i.entry_id, c.root_at from inspections i join chain c on i.entry_id = c.entry_id and i.supersedes_id = c.id
+      select i.id, i.entry_id, c.root_at, i.captured_at, i.received_at, i.declaration_version_id
+        from inspections i join chain c on i.entry_id = c.entry_id and i.supersedes_id = c.id
     ), current_inspection as (
-      select distinct on (i.entry_id) i.id, i.entry_id
-        from inspections i join chain c on c.id = i.id
-       where not exists (select 1 from inspections s where s.entry_id = i.entry_id and s.supersedes_id = i.id)
+      select distinct on (c.entry_id) c.id, c.entry_id
+        from chain c
+       where not exists (select 1 from inspections s where s.entry_id = c.entry_id and s.supersedes_id = c.id)
          ${replaced}
-       order by i.entry_id, c.root_at desc, i.captured_at desc, i.received_at desc
+       order by c.entry_id, c.root_at desc, c.captured_at desc, c.received_at desc
     )`;
 }

@@ -1,15 +1,14 @@
 import 'server-only';
 import { z } from 'zod';
 import { QueryTypes } from 'sequelize';
-import { after } from 'next/server';
 import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError, fieldError } from '@/lib/core/errors';
 import type { ClassRules } from '@/lib/core/inputs/class-rules';
-import { sendMail } from '@/lib/server/mail/send';
+import { outboxInsertSql, outboxRows, type QueuedMail } from '@/lib/server/mail/outbox';
 import { pickDeclaration, type DeclarationFields } from '@/lib/core/boats/declaration-changes';
 import { flagInspectedEntries } from '@/lib/server/boats/flag-declaration-change';
-import { mailChiefScrutineers, type FlaggedEntry } from '@/lib/server/boats/mail-declaration-change';
+import { mailChiefScrutineers } from '@/lib/server/boats/mail-declaration-change';
 import { RecordInspectionInput } from '@/lib/core/inputs/inspections';
 import {
   decideInspection,
@@ -105,26 +104,23 @@ async function loadEntry(eventId: string, entryId: string, key: string | null) {
   return row as (EntryRow & { keyEventId: string | null }) | undefined;
 }
 
-async function mailEntrant(entry: EntryRow, decision: InspectionDecision) {
+/** The entrant's result mail, queued with the record (sent by the outbox worker, never on the request path). */
+function entrantMail(entry: EntryRow, decision: InspectionDecision): QueuedMail {
   const { entrantEmail, boatName, raceNumber, eventName } = entry;
   const lines = decision.rules.map((r) => `- ${r.label}: ${VERDICT_WORDS[r.verdict].toLowerCase()}. ${r.explanation}`);
-  try {
-    await sendMail({
-      to: entrantEmail,
-      subject: `${boatName} (no. ${raceNumber}): inspection result ${VERDICT_WORDS[decision.overall].toLowerCase()}`,
-      text: [
-        `${boatName} was inspected at ${eventName}. Overall: ${VERDICT_WORDS[decision.overall].toLowerCase()}.`,
-        ...(describeScope(decision.scope) ? [describeScope(decision.scope)!] : []),
-        '',
-        ...lines,
-        '',
-        'Safety first: Boreline supports the checks; it never replaces them. The governing body’s rules, local regulations and the judgement of licensed officials decide every verdict and every safety matter. Ask the chief scrutineer about this result.',
-      ].join('\n'),
-    });
-  } catch (err) {
-    // The record is stored whatever the mail relay does; the entrant also sees the result on their entries page.
-    console.error('[boreline] inspection result mail failed', err);
-  }
+  return {
+    kind: 'inspection_result',
+    to: entrantEmail,
+    subject: `${boatName} (no. ${raceNumber}): inspection result ${VERDICT_WORDS[decision.overall].toLowerCase()}`,
+    text: [
+      `${boatName} was inspected at ${eventName}. Overall: ${VERDICT_WORDS[decision.overall].toLowerCase()}.`,
+      ...(describeScope(decision.scope) ? [describeScope(decision.scope)!] : []),
+      '',
+      ...lines,
+      '',
+      'Safety first: Boreline supports the checks; it never replaces them. The governing body’s rules, local regulations and the judgement of licensed officials decide every verdict and every safety matter. Ask the chief scrutineer about this result.',
+    ].join('\n'),
+  };
 }
 
 /**
@@ -238,7 +234,6 @@ export async function recordInspection(
     dynoDocument,
   });
 
-  const flagged: FlaggedEntry[] = [];
   const inserted = await sequelize.transaction(async (transaction) => {
     // One writer per entry at a time, so the entry's result always reflects every committed record:
     // the insert first takes the entry's row lock (in the same statement, one round trip fewer), and
@@ -291,41 +286,62 @@ export async function recordInspection(
       { inspectionId: id, eventId, boatId: entry.boatId, recordedById: actor.id },
       transaction,
     );
-    // inspections are never updated; the entry carries the current record's result for quick reading.
-    await sequelize.query(
-      `with ${currentInspectionCte('entry')}
-       update entries set inspection_result = (select i.overall_result from inspections i join current_inspection c on c.id = i.id), updated_at = now()
-        where id = :entryId`,
-      { replacements: { entryId: entry.id }, transaction },
-    );
-    // A record of a version already replaced (it waited offline, or crossed an edit) does not count:
-    // the entry is marked for re-inspection with what changed since, as the owner's edit would have.
-    const newer = await models.BoatDeclarationVersion.findOne({
-      where: { boatId: entry.boatId },
-      order: [['version', 'DESC']],
-      transaction,
-    });
-    if (newer && newer.id !== rows[0].declarationVersionId) {
-      const latest = {
-        ...pickDeclaration(newer as unknown as DeclarationFields),
-        id: newer.id,
-        version: newer.version,
-      };
-      flagged.push(...(await flagInspectedEntries(actor.id, latest, transaction)));
-    }
+    const replacements = { id, entryId: entry.id, declarationVersionId: rows[0].declarationVersionId };
     // A record of the version a declaration-change task asked about (or later) settles that task.
-    await sequelize.query(
-      `update reinspections r set done_at = now(), inspection_id = :id, updated_at = now()
+    const settleAskedSql = `update reinspections r set done_at = now(), inspection_id = :id, updated_at = now()
          from boat_declaration_versions asked, boat_declaration_versions seen
         where r.entry_id = :entryId and r.done_at is null and asked.id = r.declaration_version_id
-          and seen.id = :declarationVersionId and asked.boat_id = seen.boat_id and asked.version <= seen.version`,
-      { replacements: { id, entryId: entry.id, declarationVersionId: rows[0].declarationVersionId }, transaction },
+          and seen.id = :declarationVersionId and asked.boat_id = seen.boat_id and asked.version <= seen.version`;
+    // What follows the insert, in one statement (one round trip per record, not four), on one snapshot
+    // that includes the insert above: inspections are never updated, so the entry carries the current
+    // record's result for quick reading; the entrant's result mail is queued (sent by the outbox worker,
+    // so a rolled-back record sends nothing); and when the record checked the boat's latest declaration
+    // (nearly always), the tasks it answers are settled here too.
+    const [latestVersion] = await sequelize.query<{ id: string }>(
+      `with ${currentInspectionCte('entry')},
+       latest as (select d.id from boat_declaration_versions d where d.boat_id = :boatId order by d.version desc limit 1),
+       entry_result as (
+         -- By primary key: a join let the planner scan every meeting's inspections for this one row.
+         update entries set inspection_result = (select i.overall_result from inspections i where i.id = (select id from current_inspection)),
+                updated_at = now()
+          where id = :entryId),
+       settled as (${settleAskedSql} and exists (select 1 from latest where latest.id = :declarationVersionId) returning r.id),
+       task as (
+         update reinspections set inspection_id = :id, done_at = now(), updated_at = now()
+          where id = :reinspectionId and done_at is null and exists (select 1 from latest where latest.id = :declarationVersionId)
+            and id not in (select id from settled)),
+       mail as (${outboxInsertSql('outboxMail')})
+       select id from latest`,
+      {
+        replacements: {
+          ...replacements,
+          boatId: entry.boatId,
+          reinspectionId: input.reinspectionId,
+          outboxMail: outboxRows([entrantMail(entry, decision)]),
+        },
+        type: QueryTypes.SELECT,
+        transaction,
+      },
     );
-    if (input.reinspectionId) {
-      await models.Reinspection.update(
-        { inspectionId: id, doneAt: new Date() },
-        { where: { id: input.reinspectionId, doneAt: null }, transaction },
-      );
+    // A record of a version already replaced (it waited offline, or crossed an edit) does not count:
+    // the entry is marked for re-inspection with what changed since, as the owner's edit would have
+    // (the chief scrutineers' mail queued with it), and only then are tasks settled, in that order.
+    if (latestVersion && latestVersion.id !== rows[0].declarationVersionId) {
+      const newer = await models.BoatDeclarationVersion.findByPk(latestVersion.id, { transaction });
+      const latest = {
+        ...pickDeclaration(newer as unknown as DeclarationFields),
+        id: newer!.id,
+        version: newer!.version,
+      };
+      const flagged = await flagInspectedEntries(actor.id, latest, transaction);
+      await mailChiefScrutineers(entry.boatName, flagged, transaction);
+      await sequelize.query(settleAskedSql, { replacements, transaction });
+      if (input.reinspectionId) {
+        await models.Reinspection.update(
+          { inspectionId: id, doneAt: new Date() },
+          { where: { id: input.reinspectionId, doneAt: null }, transaction },
+        );
+      }
     }
     return rows[0];
   });
@@ -335,9 +351,7 @@ export async function recordInspection(
     if (!existing) throw new AppError('conflict', 409, 'The record could not be stored; send it again.');
     return { inspection: existing, created: false };
   }
-  // The entrant's e-mail goes out after the answer: the scrutineer at the dock never waits for SMTP.
-  after(() => mailEntrant(entry, decision));
-  if (flagged.length) after(() => mailChiefScrutineers(entry.boatName, flagged));
+  // The mails were queued with the record: the scrutineer at the dock never waits for SMTP.
   // The new record as loadInspectionViews would read it, from what was just written (one query fewer per record).
   const view: InspectionView = {
     id: inserted.id,

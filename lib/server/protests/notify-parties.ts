@@ -1,13 +1,14 @@
 import 'server-only';
 import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/server/db';
-import { sendMail } from '@/lib/server/mail/send';
+import { enqueueMail, type QueuedMail } from '@/lib/server/mail/outbox';
 import { appUrl } from '@/lib/server/config/env';
 
 /**
  * E-mails both parties of a protest (the protester and, once lodged, the protested entrant) with a
- * link to the protest page; stewards too when asked. Sent after the change is committed; a mail
- * failure is logged and never undoes the change.
+ * link to the protest page; stewards too when asked. Queued in the mail outbox after the change is
+ * committed (the outbox worker sends it; the steward's request never waits for SMTP); a failure is
+ * logged and never undoes the change.
  */
 export async function notifyParties(
   protestId: string,
@@ -44,17 +45,20 @@ export async function notifyParties(
         '',
         "The governing body's rules, local regulations and licensed officials decide; every decision has a route to appeal.",
       ].join('\n');
+    const mails: QueuedMail[] = [];
     const sent = new Set<string>();
     if (opts.includeProtested !== false && p.protestedEmail && boat) {
       sent.add(p.protestedEmail);
-      await sendMail({
+      mails.push({
+        kind: 'protest',
         to: p.protestedEmail,
         subject: `${subject}: your boat ${boat} — ${p.eventName}`,
         text: text([`This protest is against your boat ${boat} at ${p.eventName}.`, '']),
       });
     }
     if (!sent.has(p.lodgerEmail)) {
-      await sendMail({
+      mails.push({
+        kind: 'protest',
         to: p.lodgerEmail,
         subject: `${subject}${boat ? `: ${boat}` : ''} — ${p.eventName}`,
         text: text(boat ? [`The protested boat: ${boat}.`, ''] : []),
@@ -72,12 +76,14 @@ export async function notifyParties(
         `The stewards' page: ${appUrl()}/stewards/${p.eventId}/protests/${protestId}`,
       ].join('\n');
       for (const s of stewards)
-        await sendMail({
+        mails.push({
+          kind: 'protest',
           to: s.email,
           subject: `Stewards: ${subject}${boat ? `: ${boat}` : ''} — ${p.eventName}`,
           text: stewardText,
         });
     }
+    await enqueueMail(mails);
   } catch (err) {
     console.error('[boreline] protest e-mail not sent', protestId, subject, err);
   }
