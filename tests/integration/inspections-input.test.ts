@@ -82,6 +82,8 @@ test('bad input is refused with 400 naming the field, and nothing is stored', as
       { nozzle: { ...base.nozzle, expandedUncertaintyMm: null, instrumentId: demoCaliper } },
       'nozzle.instrumentId',
     ],
+    // U = 0 is never credible (JCGM 100:2008, F.2.2.1: the resolution alone contributes); found by an outside test.
+    ['a typed U of zero', { nozzle: { ...base.nozzle, expandedUncertaintyMm: 0 } }, 'nozzle.expandedUncertaintyMm'],
     ['a capture time an hour ahead', { capturedAt: new Date(Date.now() + 3600_000).toISOString() }, 'capturedAt'],
     ['a capture time 15 days ago', { capturedAt: new Date(Date.now() - 15 * 86_400_000).toISOString() }, 'capturedAt'],
     ['an entry of another meeting', { entryId: '0b0e0000-0000-4000-8401-000000000001' }, 'entryId'],

@@ -134,7 +134,8 @@ export const RecordInspectionInput = z
         expandedUncertaintyMm: optionalNum('the expanded uncertainty U', 'mm').pipe(
           z
             .number()
-            .min(0, 'Uncertainty cannot be negative.')
+            // No measurement has U = 0: the instrument's resolution alone contributes (JCGM 100:2008, F.2.2.1).
+            .gt(0, 'U must be above zero: every reading carries at least its resolution.')
             .max(5, 'An uncertainty above 5 mm is not credible.')
             .nullable(),
         ),
