@@ -43,7 +43,7 @@ export function ParityOdds({
   const speedAt = (i: number) => (odds ? odds.speedsMs[i] : 0);
   return (
     <div className="space-y-6">
-      <section aria-labelledby="power-evidence" className="card overflow-x-auto">
+      <section aria-labelledby="power-evidence" className="card overflow-x-auto" tabIndex={0}>
         <h2 id="power-evidence" className="text-xl">
           Uncertainty of static thrust: power and nozzle
         </h2>
@@ -54,7 +54,10 @@ export function ParityOdds({
           figure; common practice, no published source). Standard uncertainties (k = 1) below, first order (JCGM
           100:2008, 5.1.2).
         </p>
-        <table className="mt-3 w-full text-left text-sm" data-testid="power-evidence-table">
+        <table
+          className="mt-3 w-full min-w-[32rem] whitespace-nowrap text-left text-sm [&_td]:pr-3 [&_th]:pr-3"
+          data-testid="power-evidence-table"
+        >
           <thead className="bg-paper-deep">
             <tr className="text-left">
               <th scope="col">Boat</th>
@@ -88,7 +91,7 @@ export function ParityOdds({
       </section>
 
       {p.boats.some((b) => b.rangeEqualising) && (
-        <section aria-labelledby="range-nozzle" className="card overflow-x-auto">
+        <section aria-labelledby="range-nozzle" className="card overflow-x-auto" tabIndex={0}>
           <h2 id="range-nozzle" className="text-xl">
             Equalising nozzle: at rest and over the speed range
           </h2>
@@ -97,7 +100,10 @@ export function ParityOdds({
             squared relative deviations from the class median thrust at the reference speeds as small as it can be
             (least squares). Deviations in per cent of the class median at each speed.
           </p>
-          <table className="mt-3 w-full text-left text-sm" data-testid="range-nozzle-table">
+          <table
+            className="mt-3 w-full min-w-[40rem] whitespace-nowrap text-left text-sm [&_td]:pr-3 [&_th]:pr-3"
+            data-testid="range-nozzle-table"
+          >
             <thead className="bg-paper-deep">
               <tr className="text-left">
                 <th scope="col">Boat</th>
@@ -131,7 +137,7 @@ export function ParityOdds({
       )}
 
       {odds && (
-        <section aria-labelledby="odds" className="card overflow-x-auto">
+        <section aria-labelledby="odds" className="card overflow-x-auto" tabIndex={0}>
           <h2 id="odds" className="text-xl">
             Who really out-thrusts whom
           </h2>
@@ -162,7 +168,7 @@ export function ParityOdds({
             interval above before reading it as a real difference.
           </p>
           {p.boats.length <= 24 ? (
-            <table className="mt-3 text-sm" data-testid="odds-matrix">
+            <table className="mt-3 whitespace-nowrap text-sm" data-testid="odds-matrix">
               <caption className="text-left text-sm text-ink-mute">
                 At rest ({f(V(speedAt(0)), 0)} {speedUnit})
               </caption>
