@@ -3,6 +3,9 @@
 import { z } from 'zod';
 
 export const CERTIFICATE_MAX_BYTES = 8 * 1024 * 1024;
+/** Bounds on a certificate's dates: calibrated from this day on, due at most this many years later. */
+export const EARLIEST_CALIBRATION = '2000-01-01';
+export const MAX_INTERVAL_YEARS = 10;
 
 export const INSTRUMENT_TYPES = [
   'caliper',
@@ -50,13 +53,37 @@ export const AddCertificateInput = z
     calibratedOn: z.iso.date({ error: 'Give the calibration date as a date.' }),
     dueOn: z.iso.date({ error: 'Give the due date as a date.' }),
     expandedUncertainty: formNumber('the stated expanded uncertainty U').pipe(
-      z.number().min(0, 'U cannot be negative.').max(100, 'Keep U at or below 100.').nullable(),
+      // A certificate never states U = 0: the reference and the resolution contribute (JCGM 100:2008, F.2.2.1).
+      z.number().gt(0, 'U must be above zero.').max(100, 'Keep U at or below 100.').nullable(),
     ),
     coverageFactor: formNumber('the coverage factor k').pipe(
       z.number().min(1, 'k is at least 1.').max(5, 'k is at most 5.').nullable(),
     ),
   })
   .superRefine((v, ctx) => {
+    // Plausible dates only (found by an outside test: year 0 was a 500, 1900–9999 an instrument usable
+    // for ever). A calibration cannot lie ahead of today (a day's grace for the time zones), and a due
+    // date more than ten years on is not a calibration interval (common practice, no source).
+    const tomorrow = new Date(Date.now() + 86_400_000).toISOString().slice(0, 10);
+    if (v.calibratedOn < EARLIEST_CALIBRATION)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['calibratedOn'],
+        message: `Give a calibration date from ${EARLIEST_CALIBRATION} on.`,
+      });
+    else if (v.calibratedOn > tomorrow)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['calibratedOn'],
+        message: 'The calibration date cannot be in the future.',
+      });
+    const latestDue = `${String(Number(v.calibratedOn.slice(0, 4)) + MAX_INTERVAL_YEARS).padStart(4, '0')}${v.calibratedOn.slice(4)}`;
+    if (v.dueOn > latestDue)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['dueOn'],
+        message: `A due date more than ${MAX_INTERVAL_YEARS} years after the calibration is not credible.`,
+      });
     if (v.dueOn <= v.calibratedOn)
       ctx.addIssue({ code: 'custom', path: ['dueOn'], message: 'The due date comes after the calibration date.' });
     if (v.expandedUncertainty != null && v.coverageFactor == null)
@@ -66,8 +93,14 @@ export type AddCertificateInput = z.infer<typeof AddCertificateInput>;
 
 export const RecordInstrumentCheckInput = z.object({
   reference: text('the reference used (gauge block, check weight)', 160),
-  nominalValue: z.number({ error: 'Enter the reference’s nominal value as a number.' }).min(0).max(100000),
-  reading: z.number({ error: 'Enter the instrument’s reading as a number.' }).min(0).max(100000),
+  nominalValue: z
+    .number({ error: 'Enter the reference’s nominal value as a number.' })
+    .min(0, 'The nominal value cannot be negative.')
+    .max(100000, 'Keep the nominal value at or below 100000.'),
+  reading: z
+    .number({ error: 'Enter the instrument’s reading as a number.' })
+    .min(0, 'The reading cannot be negative.')
+    .max(100000, 'Keep the reading at or below 100000.'),
   passed: z.boolean({ error: 'Say whether the check passed.' }),
 });
 export type RecordInstrumentCheckInput = z.infer<typeof RecordInstrumentCheckInput>;
