@@ -15,9 +15,25 @@ function describe(v: { id: string; impact?: string | null; nodes: { target: unkn
   );
 }
 
-/** Runs axe on the page as it stands; fails listing every serious or critical violation. */
-export async function expectNoSeriousA11yViolations(page: Page, where = page.url()) {
-  const results = await new AxeBuilder({ page }).withTags(WCAG_22_AA_TAGS).analyze();
+/**
+ * The WCAG 2.2 A/AA rules whose outcome depends on colours alone (SC 1.4.3 contrast, SC 1.4.1 links told
+ * apart from text by colour): all a change of colour theme on the same page can alter.
+ */
+export const COLOUR_RULES = ['color-contrast', 'link-in-text-block'];
+
+/**
+ * Runs axe on the page as it stands; fails listing every serious or critical violation. `only: 'colour'`
+ * runs just the colour rules (for a page already checked in full and then switched to another theme).
+ */
+export async function expectNoSeriousA11yViolations(
+  page: Page,
+  where = page.url(),
+  { only }: { only?: 'colour' } = {},
+) {
+  const builder = new AxeBuilder({ page });
+  const results = await (
+    only === 'colour' ? builder.withRules(COLOUR_RULES) : builder.withTags(WCAG_22_AA_TAGS)
+  ).analyze();
   const serious = results.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
   assert.deepEqual(serious.flatMap(describe), [], `axe-core (WCAG 2.2 A/AA) on ${where}`);
   // The run really checked something: a page with no passes means axe never saw it.
