@@ -158,6 +158,24 @@ if [ "${PG_ACTION:-start}" = recover ]; then
   exit 0
 fi
 
+# A cluster of this checkout already running on another port than the one asked (TEST_PGPORT or
+# BORELINE_PGPORT changed since it started): the test profile's is restarted on the asked port; a demo's
+# or server's is left alone, with the way out named, rather than failing later on a missing socket.
+running_port="$(sed -n 4p "$DATA/postmaster.pid" 2>/dev/null || true)"
+if [ -n "$running_port" ] && [ "$running_port" != "$PGPORT" ] && as_pg "$PGBIN/pg_ctl" -D "$DATA" status >/dev/null 2>&1; then
+  if [ "$PROFILE" = test ]; then
+    echo "[pg] this checkout's test cluster ($DATA) runs on port $running_port; restarting it on $PGPORT"
+    as_pg "$PGBIN/pg_ctl" -D "$DATA" -w -m fast stop >/dev/null
+  else
+    cat >&2 <<MSG
+[pg] this checkout's $PROFILE cluster ($DATA) is already running on port $running_port, not $PGPORT.
+[pg] Use that port (BORELINE_PGPORT=$running_port) or stop it first:
+[pg]   PG_PROFILE=$PROFILE PGPORT=$running_port PG_ACTION=stop bash scripts/pg.sh
+MSG
+    exit 1
+  fi
+fi
+
 if ! as_pg "$PGBIN/pg_ctl" -D "$DATA" status >/dev/null 2>&1; then
   start_cluster
 elif [ "$PROFILE" != test ] && [ "$(psql_pg -d postgres -c 'show fsync' -c 'show archive_mode' | tr '\n' ' ')" != "on on " ]; then
