@@ -1,5 +1,5 @@
 // Components on a phone: an owner registers an impeller on the boat page (bad input keeps what was
-// typed and says what is wrong beside the field; a serial already registered is refused beside the
+// typed and says what is wrong beside the field; a serial already among the owner's components is refused beside the
 // serial), moves it to another boat; a scrutineer at the dock finds the boat by that serial.
 // Makers and serials are invented for this test.
 import { test, before, after } from 'node:test';
@@ -63,7 +63,7 @@ test('register, refuse, move on the boat page; find by serial at the dock', asyn
   await again.getByRole('button', { name: 'Register the component' }).click();
   await again
     .locator('[data-field-error="serialNumber"]')
-    .getByText(/already registered/)
+    .getByText(/already among your components/)
     .waitFor();
   assert.equal(await again.getByLabel('Serial number').inputValue(), `br-${run}`);
 

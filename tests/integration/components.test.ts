@@ -147,7 +147,10 @@ test('a serial number already registered for that kind and maker is a 409 naming
   });
   assert.equal(clash.res.status, 409, JSON.stringify(clash.body));
   assert.equal(clash.body.error.code, 'serial_taken');
-  assert.match(clash.body.error.message, /impeller by kestrel foundry with serial number imp-.* is already registered/);
+  assert.match(
+    clash.body.error.message,
+    /impeller by kestrel foundry with serial number imp-.* is already among your components/,
+  );
   assert.equal(clash.body.error.details[0].field, 'serialNumber');
   assert.equal((await versions(boatB.boatId)).length, before, 'nothing stored');
 
@@ -400,6 +403,47 @@ test('the dock finds a boat by a component serial only at a meeting it is entere
   assert.equal((await owner.fetch(url(meeting.eventId, `IMP-${run}`))).status, 403);
   assert.equal((await organiser.fetch(url(meeting.eventId, `IMP-${run}`))).status, 403);
   assert.equal((await new HttpSession().fetch(url(meeting.eventId, `IMP-${run}`))).status, 401);
+});
+
+test('a serial someone else registered tells nothing and locks nobody out: both are kept, and the dock shows the part as disputed', async () => {
+  // Attack finding F5: with one identity across every owner, a rival could register a serial read off
+  // an engine plate first (the real owner then refused) and probe whether other people's parts exist.
+  const rivalBoat = await meeting.addEntry(classId, { ownerEmail: otherEmail });
+  const serial = `TM-${run}`;
+  const squat = await register(other, rivalBoat.boatId, {
+    kind: 'engine',
+    maker: 'Tarnmoor Engines',
+    serialNumber: serial,
+  });
+  assert.equal(squat.res.status, 201, JSON.stringify(squat.body));
+  // The real owner registers the part on their own boat: accepted, no word about the rival's record.
+  const mine = await register(owner, boatB.boatId, { kind: 'engine', maker: 'Tarnmoor Engines', serialNumber: serial });
+  assert.equal(mine.res.status, 201, JSON.stringify(mine.body));
+  // The same maker with two spaces, a zero-width space or full-width letters is the same maker (NFKC,
+  // Unicode category Cf removed, white space collapsed): one owner's second record of the part is refused.
+  for (const maker of ['Tarnmoor  Engines', 'Tarn\u200Bmoor Engines', '\uFF34arnmoor Engines']) {
+    const again = await register(owner, boatA.boatId, { kind: 'engine', maker, serialNumber: serial.toLowerCase() });
+    assert.equal(again.res.status, 409, `${JSON.stringify(maker)}: ${JSON.stringify(again.body)}`);
+    assert.equal(again.body.error.code, 'serial_taken');
+  }
+  const [{ n }] = await query<{ n: number }>(
+    'select count(*)::int as n from boat_components where lower(serial_number) = lower($1)',
+    [serial],
+  );
+  assert.equal(n, 2, 'one record per owner');
+  // At the dock both boats come back, each marked disputed, for an official to decide.
+  const found = await scrutineer.fetch(`/api/events/${meeting.eventId}/component-serials/${serial}`);
+  const body = await found.json();
+  assert.equal(found.status, 200, JSON.stringify(body));
+  const matches = body.data.matches as { boatId: string; isDisputed: boolean; maker: string }[];
+  assert.deepEqual(matches.map((m) => m.boatId).sort(), [boatB.boatId, rivalBoat.boatId].sort());
+  assert.ok(matches.every((m) => m.isDisputed && m.maker === 'Tarnmoor Engines'));
+  // A part only one boat declares is not disputed.
+  const single = await (await scrutineer.fetch(`/api/events/${meeting.eventId}/component-serials/IMP-${run}`)).json();
+  assert.deepEqual(
+    (single.data.matches as { isDisputed: boolean }[]).map((m) => m.isDisputed),
+    [false],
+  );
 });
 
 test('two moves made from the same view: only one succeeds', async () => {

@@ -18,11 +18,19 @@ const text = (what: string, max: number) =>
     .trim()
     .max(max, `Keep ${what} under ${max} characters.`);
 
-// One line, inner runs of white space as one space: "Tarnmoor  Engines" is "Tarnmoor Engines".
+// One line, in Unicode's compatibility form (NFKC: a full-width "Ｔ" is "T"), without invisible format
+// characters (zero-width spaces and joiners, Unicode category Cf) and with inner runs of white space as
+// one space: "Tarnmoor  Engines" and "Tarn\u200Bmoor Engines" are "Tarnmoor Engines", one maker.
 const oneLine = (what: string, max: number) =>
   text(what, max)
     .refine(isSingleLine, `Type ${what} on one line.`)
-    .transform((v) => v.replace(/\s+/g, ' '));
+    .transform((v) =>
+      v
+        .normalize('NFKC')
+        .replace(/\p{Cf}/gu, '')
+        .replace(/\s+/g, ' ')
+        .trim(),
+    );
 const maker = oneLine('the maker', 80);
 const model = oneLine('the model', 80);
 const trimCode = text('the trim code', 40);

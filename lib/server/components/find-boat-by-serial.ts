@@ -17,6 +17,11 @@ export type SerialMatch = {
   entryId: string;
   raceNumber: number;
   entryStatus: string;
+  /**
+   * The same part (kind, maker, serial) is declared on another boat here too: two owners claim it, and
+   * an official, not whoever typed it first, decides who holds it.
+   */
+  isDisputed: boolean;
 };
 
 const refuse = (message: string, status = 400, code = 'invalid_input') =>
@@ -26,7 +31,8 @@ const refuse = (message: string, status = 400, code = 'invalid_input') =>
  * The dock's lookup by a component's serial number (as stamped on an engine, pump or impeller): the
  * boats entered at this meeting that carry a component with that serial now, each saying which
  * component matched. Only for those who record inspections here; a boat not entered at this
- * meeting is never found, so the lookup tells nothing about other meetings' boats.
+ * meeting is never found, so the lookup tells nothing about other meetings' boats. One part declared
+ * by two owners (the identity is unique per owner only) comes back as two matches marked disputed.
  */
 export async function findBoatsBySerial(
   actor: Actor | null,
@@ -38,7 +44,7 @@ export async function findBoatsBySerial(
   if (serial.length === 0 || serial.length > 80)
     throw refuse('Type the serial number as stamped (1 to 80 characters).');
   // A boat's live entry here if it has one, else its latest (a withdrawn boat still shows, marked so).
-  const matches = await getDb().sequelize.query<SerialMatch>(
+  const matches = await getDb().sequelize.query<Omit<SerialMatch, 'isDisputed'>>(
     `select distinct on (c.id) c.id as "componentId", c.kind, c.maker, c.model, c.serial_number as "serialNumber",
             c.trim_code as "trimCode", b.id as "boatId", b.name as "boatName", e.id as "entryId",
             e.race_number as "raceNumber", e.status as "entryStatus"
@@ -51,5 +57,14 @@ export async function findBoatsBySerial(
   );
   if (matches.length === 0)
     throw refuse(`No boat entered at this meeting carries a component with serial ${serial}.`, 404, 'unknown_serial');
-  return { matches: matches.sort((a, b) => a.raceNumber - b.raceNumber) };
+  const identity = (m: Omit<SerialMatch, 'isDisputed'>) =>
+    `${m.kind}\u0000${m.maker.toLowerCase()}\u0000${m.serialNumber.toLowerCase()}`;
+  const boatsPerIdentity = new Map<string, Set<string>>();
+  for (const m of matches)
+    boatsPerIdentity.set(identity(m), (boatsPerIdentity.get(identity(m)) ?? new Set()).add(m.boatId));
+  return {
+    matches: matches
+      .map((m) => ({ ...m, isDisputed: boatsPerIdentity.get(identity(m))!.size > 1 }))
+      .sort((a, b) => a.raceNumber - b.raceNumber),
+  };
 }

@@ -11,7 +11,11 @@ import { loadComponentViews, type ComponentView } from './component-view';
 import { writeComponentDeclarationVersion } from './declare-components';
 import { lockOwnBoats } from './lock-boats';
 
-/** A serial number already registered for this kind and maker: one part has one record. */
+/**
+ * A serial number the actor already registered for this kind and maker: one part has one record among
+ * a person's components. Only the actor's own components can clash (the unique index is per owner), so
+ * the refusal never tells anything about another person's parts.
+ */
 export function serialClash(
   kind: keyof typeof COMPONENT_KIND_LABELS,
   maker: string,
@@ -20,7 +24,7 @@ export function serialClash(
 ) {
   const label = COMPONENT_KIND_LABELS[kind].toLowerCase();
   const what = `${/^[aeiou]/.test(label) ? 'An' : 'A'} ${label}${maker ? ` by ${maker}` : ''}`;
-  const message = `${what} with serial number ${serialNumber} is already registered. One part has one record: if it is yours, fit it from your components on no boat; if the serial or maker is mistyped, correct it.`;
+  const message = `${what} with serial number ${serialNumber} is already among your components. One part has one record: fit it from your components on no boat (or move it from the boat it is on); if the serial or maker is mistyped, correct it.`;
   return new AppError('serial_taken', 409, message, [{ field, message }]);
 }
 

@@ -71,7 +71,8 @@ function FindBySerial({ onFind, isBusy }: Props) {
     setLooking(false);
     if (!answer.ok) return setError(answer.fieldErrors.serial ?? answer.message);
     setMatches(answer.data.matches);
-    if (answer.data.matches.length === 1) onFind({ kind: 'typed', text: String(answer.data.matches[0].raceNumber) });
+    if (answer.data.matches.length === 1 && !answer.data.matches[0].isDisputed)
+      onFind({ kind: 'typed', text: String(answer.data.matches[0].raceNumber) });
   }
 
   return (
@@ -112,8 +113,16 @@ function FindBySerial({ onFind, isBusy }: Props) {
               key={m.componentId}
               className="flex flex-wrap items-center justify-between gap-2 rounded-lg bg-tide-50 p-3"
             >
-              <span className="font-bold text-tide-700">{describe(m)}</span>
-              {matches.length > 1 && (
+              <span className="font-bold text-tide-700">
+                {describe(m)}
+                {m.isDisputed && (
+                  <span className="mt-1 block font-normal text-doubt-800" data-testid="serial-disputed">
+                    The same part is declared on another boat here: two owners claim it. The chief scrutineer decides
+                    who holds it; check the plate and the seals.
+                  </span>
+                )}
+              </span>
+              {(matches.length > 1 || m.isDisputed) && (
                 <button
                   type="button"
                   className="btn-secondary min-h-touch"
