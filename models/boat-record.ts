@@ -78,6 +78,8 @@ export class SealBatch extends Model<InferAttributes<SealBatch>, InferCreationAt
 export class Seal extends Model<InferAttributes<Seal>, InferCreationAttributes<Seal>> {
   declare id: CreationOptional<string>;
   declare batchId: CreationOptional<string | null>;
+  /** The organisation whose register holds it (set by a trigger from the batch's meeting). */
+  declare organisationId: CreationOptional<string | null>;
   declare number: string;
   declare createdAt: CreationOptional<Date>;
 }
@@ -171,6 +173,7 @@ export function initBoatRecord(sequelize: Sequelize) {
     {
       id,
       batchId: { type: DataTypes.UUID },
+      organisationId: { type: DataTypes.UUID },
       number: { type: DataTypes.STRING, allowNull: false },
       createdAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
     },

@@ -9,7 +9,7 @@ import { randomBytes, randomUUID } from 'node:crypto';
 import QRCode from 'qrcode';
 import { Sequelize } from 'sequelize';
 import { HttpSession } from '../support/http-session';
-import { DEMO, DEMO_PASSWORD } from '../support/env';
+import { DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
 import { query } from '../support/db';
 import { InspectionMeeting, inspectionBody, rulesWith, type TestEntry } from '../support/inspection-meeting';
 import { initModels, BoatComponent } from '../../models';
@@ -103,6 +103,55 @@ test('a batch is issued to a meeting with every seal at once; a number already i
     lastNumber: 2,
   });
   assert.equal(refused.res.status, 403);
+  // Attack finding F6: another organisation's register is its own. Its organiser issues the same numbers
+  // to a meeting of theirs (accepted: no word about this club's register), and their clash names only
+  // their own numbers.
+  const [{ id: otherOrg }] = await query<{ id: string }>(
+    `insert into organisations (id, name, slug, created_at, updated_at)
+     values (gen_random_uuid(), $1, $2, now(), now()) returning id`,
+    [`Seal Test Club ${PREFIX}`, `seal-test-club-${PREFIX.toLowerCase()}${Date.now()}`],
+  );
+  const rival = new HttpSession();
+  const rivalEmail = uniqueEmail('seal-rival');
+  await rival.json('/api/accounts', { name: 'Seal Rival', email: rivalEmail, password: 'seal-rival-password-1' });
+  await query(
+    `insert into organisation_members (id, organisation_id, user_id, role, created_at, updated_at)
+     select gen_random_uuid(), $1, id, 'organiser', now(), now() from users where email = $2`,
+    [otherOrg, rivalEmail],
+  );
+  assert.equal((await rival.signInWithPassword(rivalEmail, 'seal-rival-password-1')).status, 200);
+  const rivalEvent = await rival.json('/api/events', {
+    organisationId: otherOrg,
+    name: `Seal Rival Meeting ${PREFIX}`,
+    venue: 'Other Reach',
+    startsOn: '2027-06-01',
+    endsOn: '2027-06-02',
+    timeZone: 'Pacific/Auckland',
+    status: 'entries_open',
+    waterKind: 'fresh',
+    waterTemperatureC: 15,
+    waterDensityKgM3: null,
+    protestWindowMinutes: 30,
+    currency: 'NZD',
+    entryFeeMinor: 10000,
+    protestFeeMinor: 3000,
+  });
+  assert.equal(rivalEvent.res.status, 201, JSON.stringify(rivalEvent.body));
+  const rivalIssue = (body: unknown) => rival.json(`/api/events/${rivalEvent.body.data.id}/seal-batches`, body);
+  const same = await rivalIssue({ prefix: PREFIX, firstNumber: 1, lastNumber: 30 });
+  assert.equal(same.res.status, 201, JSON.stringify(same.body));
+  const theirClash = await rivalIssue({ prefix: PREFIX, firstNumber: 29, lastNumber: 31 });
+  assert.equal(theirClash.res.status, 409, JSON.stringify(theirClash.body));
+  assert.deepEqual(theirClash.body.error.details.numbers, [`${PREFIX}29`, `${PREFIX}30`]);
+  // And this club's 21..30 are still free for this club: the rival's 21..30 do not count here.
+  const ours = await issue(meetings[0], { prefix: PREFIX, firstNumber: 21, lastNumber: 22 });
+  assert.equal(ours.res.status, 201, JSON.stringify(ours.body));
+  const issuers = await query<{ organisation_id: string }>(
+    'select distinct organisation_id from seals where upper(number) = upper($1) order by 1',
+    [`${PREFIX}21`],
+  );
+  assert.equal(issuers.length, 2, 'one seal KR-21 per register');
+
   // Batches for the next meetings, so each has seals of its own.
   for (const [i, m] of meetings.slice(1).entries()) {
     const r = await issue(m, { prefix: `${PREFIX}M${i + 2}-`, firstNumber: 1, lastNumber: 5 });

@@ -77,9 +77,9 @@ export async function planInspectionSeals(
     }>(
       `select s.id, upper(s.number) as number, b.event_id as "batchEventId",
               (select e.action from seal_events e where e.seal_id = s.id order by e.created_at desc, e.id desc limit 1) as "lastAction"
-         from seals s left join seal_batches b on b.id = s.batch_id
-        where upper(s.number) in (:numbers)`,
-      { replacements: { numbers: applied.map((a) => a.number) }, type: QueryTypes.SELECT },
+         from seals s join seal_batches b on b.id = s.batch_id
+        where upper(s.number) in (:numbers) and b.event_id = :eventId`,
+      { replacements: { numbers: applied.map((a) => a.number), eventId }, type: QueryTypes.SELECT },
     );
     const byNumber = new Map(found.map((f) => [f.number, f]));
     const components = await models.BoatComponent.findAll({

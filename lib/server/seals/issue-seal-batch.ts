@@ -1,5 +1,5 @@
 import 'server-only';
-import { QueryTypes, UniqueConstraintError } from 'sequelize';
+import { QueryTypes, UniqueConstraintError, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
@@ -12,21 +12,30 @@ const clash = (numbers: string[]) =>
     409,
     `${numbers.length === 1 ? 'Seal number' : `${numbers.length} seal numbers`} already in the register: ${numbers
       .slice(0, 20)
-      .join(', ')}${numbers.length > 20 ? ', …' : ''}. A seal number is issued once, at any meeting.`,
+      .join(
+        ', ',
+      )}${numbers.length > 20 ? ', …' : ''}. A seal number is issued once in your organisation’s register, at any of its meetings.`,
     { numbers },
   );
 
 /**
  * The chief scrutineer (or organiser) issues a batch of numbered seals to the meeting: the batch and
- * every seal are written together. A number already in the register, at any meeting, refuses the
- * whole batch and names the clashing numbers.
+ * every seal are written together. A number already in the register of the organisation running the
+ * meeting, at any of its meetings, refuses the whole batch and names the clashing numbers. Another
+ * organisation's register is neither consulted nor told about (each seal carries its issuer, set by
+ * a trigger from its batch's meeting; the unique index is per issuer).
  */
 export async function issueSealBatch(actor: Actor | null, eventId: string, raw: unknown): Promise<SealBatchView> {
   assertCan(actor, 'instrument.manage', { eventId });
   const input = IssueSealBatchInput.parse(raw);
   const { models, sequelize } = getDb();
-  if (!(await models.Event.findByPk(eventId, { attributes: ['id'] })))
-    throw new AppError('not_found', 404, 'No such meeting.');
+  const event = await models.Event.findByPk(eventId, { attributes: ['id', 'organisationId'] });
+  if (!event) throw new AppError('not_found', 404, 'No such meeting.');
+  const takenInRegister = (transaction?: Transaction) =>
+    sequelize.query<{ number: string }>(
+      'select upper(number) as number from seals where organisation_id = :organisationId and upper(number) in (:numbers) order by 1',
+      { replacements: { numbers, organisationId: event.organisationId }, type: QueryTypes.SELECT, transaction },
+    );
   const numbers = batchSealNumbers(input.prefix, input.firstNumber, input.lastNumber);
   if (numbers.some((n) => n.length > 40))
     throw new AppError('invalid_input', 400, 'prefix: Prefix and number together must fit 40 characters.', [
@@ -34,10 +43,7 @@ export async function issueSealBatch(actor: Actor | null, eventId: string, raw: 
     ]);
   try {
     return await sequelize.transaction(async (transaction) => {
-      const taken = await sequelize.query<{ number: string }>(
-        'select upper(number) as number from seals where upper(number) in (:numbers) order by 1',
-        { replacements: { numbers }, type: QueryTypes.SELECT, transaction },
-      );
+      const taken = await takenInRegister(transaction);
       if (taken.length) throw clash(taken.map((t) => t.number));
       const batch = await models.SealBatch.create(
         {
@@ -71,10 +77,7 @@ export async function issueSealBatch(actor: Actor | null, eventId: string, raw: 
   } catch (err) {
     // Another batch took a number between the check and the insert: the unique index says so.
     if (err instanceof UniqueConstraintError) {
-      const taken = await sequelize.query<{ number: string }>(
-        'select upper(number) as number from seals where upper(number) in (:numbers) order by 1',
-        { replacements: { numbers }, type: QueryTypes.SELECT },
-      );
+      const taken = await takenInRegister();
       throw clash(taken.map((t) => t.number));
     }
     throw err;
