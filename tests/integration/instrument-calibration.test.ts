@@ -220,12 +220,29 @@ test('a failed daily check takes the instrument out of use for that meeting day;
       f,
     );
 
+  // The server decides from the caliper's error limit (±0.02 mm; JCGM 200:2012 VIM 4.26): a "passed"
+  // the figures contradict is refused on the field and nothing is stored (attack finding F11).
+  const contradicted = await check(chief, {
+    reference: 'Gauge block 100 mm, set B',
+    nominalValue: 100,
+    reading: 57.3,
+    passed: true,
+  });
+  assert.equal(contradicted.res.status, 400, JSON.stringify(contradicted.body));
+  assert.equal(contradicted.body.error.details[0].field, 'passed');
+  assert.match(contradicted.body.error.details[0].message, /42\.7 mm off the reference, beyond .* ±0\.02 mm/);
+  const stored = await query<{ n: number }>(
+    'select count(*)::int as n from instrument_checks where instrument_id = $1',
+    [id],
+  );
+  assert.equal(stored[0].n, 0, 'nothing stored');
+
   const passed = await check(chief, {
     reference: 'Gauge block 100 mm, set B',
     nominalValue: 100,
     reading: 100.01,
-    passed: true,
   });
+  assert.equal(passed.body.data?.passed, true, 'decided from the figures: 0.01 mm is within ±0.02 mm');
   assert.equal(passed.res.status, 201, JSON.stringify(passed.body));
   assert.equal(passed.body.data.meetingDay, dayInZone(), 'dated in the meeting’s time zone');
   assert.equal((await recordWith(id)).res.status, 201, 'usable after a passed check');

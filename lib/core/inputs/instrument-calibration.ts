@@ -101,6 +101,7 @@ export const RecordInstrumentCheckInput = z.object({
     .number({ error: 'Enter the instrument’s reading as a number.' })
     .min(0, 'The reading cannot be negative.')
     .max(100000, 'Keep the reading at or below 100000.'),
-  passed: z.boolean({ error: 'Say whether the check passed.' }),
+  /** Optional where the instrument has an error limit: the server then decides, and refuses a contradiction. */
+  passed: z.boolean({ error: 'Say whether the check passed.' }).optional(),
 });
 export type RecordInstrumentCheckInput = z.infer<typeof RecordInstrumentCheckInput>;

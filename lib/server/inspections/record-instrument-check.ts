@@ -4,6 +4,7 @@ import { type Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
 import { RecordInstrumentCheckInput } from '@/lib/core/inputs/instrument-calibration';
 import { meetingDayOf } from '../../core/inspections/calibration-state';
+import { decideInstrumentCheck } from '../../core/inspections/decide-instrument-check';
 import { eventTimeZone } from './instrument-calibration';
 import { assertCanManageInstruments } from './manage-instruments-access';
 
@@ -34,10 +35,11 @@ export async function recordInstrumentCheck(
   const { models } = getDb();
   const instrument = await models.Instrument.findOne({
     where: { id: instrumentId, eventId },
-    attributes: ['id', 'name', 'retiredAt'],
+    attributes: ['id', 'name', 'retiredAt', 'errorLimit', 'quantity'],
   });
   if (!instrument) throw new AppError('not_found', 404, 'No such instrument at this meeting.');
   if (instrument.retiredAt) throw new AppError('conflict', 409, `${instrument.name} is retired: it is not checked.`);
+  const passed = decideInstrumentCheck(input, instrument);
   const checkedAt = new Date();
   const meetingDay = meetingDayOf(checkedAt, (await eventTimeZone(eventId)) ?? 'UTC');
   const row = await models.InstrumentCheck.create({
@@ -46,7 +48,7 @@ export async function recordInstrumentCheck(
     reference: input.reference,
     nominalValue: input.nominalValue,
     reading: input.reading,
-    passed: input.passed,
+    passed,
     checkedById: actor.id,
     checkedAt,
   });

@@ -94,26 +94,38 @@ export function RecordCheckForm({
   eventId,
   instrumentId,
   name,
+  errorLimit,
+  unit,
 }: {
   eventId: string;
   instrumentId: string;
   name: string;
+  /** The instrument's error limit: with one, the server decides the result from the figures. */
+  errorLimit: number | null;
+  unit: string;
 }) {
   const router = useRouter();
   const [isOpen, setOpen] = useState(false);
   const { state, isPending, form } = useFormAction(
     async (_prev: FormState, f: FormData): Promise<FormState> => {
-      const answer = await requestJson(`/api/events/${eventId}/instruments/${instrumentId}/checks`, {
-        body: {
-          reference: f.get('reference'),
-          nominalValue: numberOrNull(f.get('nominalValue')),
-          reading: numberOrNull(f.get('reading')),
-          passed: f.get('passed') === 'yes',
+      const result = f.get('passed');
+      const answer = await requestJson<{ passed: boolean }>(
+        `/api/events/${eventId}/instruments/${instrumentId}/checks`,
+        {
+          body: {
+            reference: f.get('reference'),
+            nominalValue: numberOrNull(f.get('nominalValue')),
+            reading: numberOrNull(f.get('reading')),
+            passed: result === 'yes' ? true : result === 'no' ? false : undefined,
+          },
         },
-      });
+      );
       if (!answer.ok) return refusalState(answer);
       router.refresh();
-      return { ok: true, message: 'Check recorded.' };
+      return {
+        ok: true,
+        message: answer.data.passed ? 'Check recorded: passed.' : 'Check recorded: failed, out of use today.',
+      };
     },
     { ok: false },
     { resetOnSuccess: true },
@@ -163,10 +175,27 @@ export function RecordCheckForm({
           <label htmlFor={`${p}-passed`} className="field-label">
             Result
           </label>
-          <select id={`${p}-passed`} name="passed" className="field-input min-h-touch" defaultValue="yes">
+          <select
+            id={`${p}-passed`}
+            name="passed"
+            className="field-input min-h-touch"
+            defaultValue={errorLimit == null ? 'yes' : 'decide'}
+            aria-describedby={errorLimit == null ? undefined : `${p}-passed-hint`}
+          >
+            {errorLimit != null && (
+              <option value="decide">
+                From the figures (error limit ±{errorLimit} {unit})
+              </option>
+            )}
             <option value="yes">Passed: within its limits</option>
             <option value="no">Failed: take it out of use today</option>
           </select>
+          {errorLimit != null && (
+            <p id={`${p}-passed-hint`} className="field-hint">
+              Boreline decides from the reading and the nominal value: within ±{errorLimit} {unit} passes. A result
+              chosen here that the figures contradict is refused.
+            </p>
+          )}
           <FieldError name="passed" error={fe.passed} />
         </div>
         <FormMessage state={state} />

@@ -106,7 +106,13 @@ export default async function InstrumentsPage({ params }: { params: Promise<{ ev
                 {canManage && (
                   <div className="flex flex-wrap gap-2">
                     <AddCertificateForm eventId={eventId} instrumentId={i.id} name={i.name} />
-                    <RecordCheckForm eventId={eventId} instrumentId={i.id} name={i.name} />
+                    <RecordCheckForm
+                      eventId={eventId}
+                      instrumentId={i.id}
+                      name={i.name}
+                      errorLimit={i.errorLimit}
+                      unit={i.quantity === 'mass' ? 'kg' : 'mm'}
+                    />
                   </div>
                 )}
               </li>
