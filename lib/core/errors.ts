@@ -34,7 +34,8 @@ export function fieldErrors(err: ZodError): Record<string, string> {
   return out;
 }
 
-function isDatabaseDown(err: unknown): boolean {
+/** A connection-level failure: the database is down or restarting (not a bad query). */
+export function isDatabaseDown(err: unknown): boolean {
   const name = (err as { name?: string })?.name ?? '';
   const code = (err as { parent?: { code?: string }; original?: { code?: string } })?.parent?.code;
   const message = String((err as { message?: string })?.message ?? '');

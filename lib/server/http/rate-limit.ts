@@ -1,7 +1,9 @@
 import 'server-only';
 import { recordAttempt } from '@/lib/server/auth/throttle';
-import { AppError } from '../../core/errors';
+import { AppError, isDatabaseDown } from '../../core/errors';
+import { logger } from '@/lib/server/observability';
 import { getClientAddress } from './client-address';
+import { createFixedWindowCounter } from '../../core/api/fixed-window-counter';
 import { serverEnv } from '@/lib/server/config/env';
 
 // Per-client request limit for the public routes, counted in PostgreSQL (lib/server/auth/throttle.ts) so
@@ -12,8 +14,10 @@ import { serverEnv } from '@/lib/server/config/env';
 // count to the configured limit, so the 429 is tested against the real limit and the real store,
 // with no test-only switch in this file.
 //
-// A database outage is not swallowed: the request answers 503 like every other route (honest
-// status, and no unlimited traffic while the counter cannot be kept).
+// While the database is down (a connection failure, not a bad query), the public routes are pure
+// calculations that need no database, so they go on answering: the count falls back to this app
+// server's own memory, with the same limit per client and window (per server, not across servers,
+// for as long as the outage lasts), and a warning in the log. Never unlimited.
 
 const WINDOW_S = 60;
 
@@ -29,11 +33,33 @@ export function readLimitPerMinute(bucket: RateLimitBucket): number {
   return BUCKETS[bucket]();
 }
 
+/** This server's own count while the database cannot keep it (same windows, bounded memory). */
+const recordAttemptInMemory = createFixedWindowCounter({ windowS: WINDOW_S, maxKeys: 10_000 });
+let isWarned = false;
+
+async function countAttempt(key: string, limit: number) {
+  try {
+    const counted = await recordAttempt(key, { limit, windowS: WINDOW_S });
+    isWarned = false;
+    return counted;
+  } catch (err) {
+    if (!isDatabaseDown(err)) throw err;
+    if (!isWarned) {
+      logger().warn(
+        { err: String(err) },
+        'rate limit: the database cannot count; counting in this server until it is back',
+      );
+      isWarned = true;
+    }
+    return recordAttemptInMemory(key, limit);
+  }
+}
+
 /** Counts this request against the client's bucket; over the limit throws a 429 AppError. */
 export async function enforceRateLimit(req: Request, bucket: RateLimitBucket = 'public-api'): Promise<void> {
   const limit = readLimitPerMinute(bucket);
   const key = `rate:${bucket}:${getClientAddress(req.headers)}`;
-  const { allowed, retryAfterS } = await recordAttempt(key, { limit, windowS: WINDOW_S });
+  const { allowed, retryAfterS } = await countAttempt(key, limit);
   if (!allowed) {
     // toErrorResponse turns details.retryAfterS into the Retry-After header.
     throw new AppError(
