@@ -4,7 +4,7 @@
 // create one) could issue another club's next bag of seal numbers first, and the refusal listed which
 // numbers other registers held. Each seal now carries the organisation that issued it (from its batch's
 // meeting, set by a trigger on insert); seals carried over from free text before the register have no
-// batch and no issuer, as before.
+// batch and no issuer, as before. Numbers are compared without the leading zeros of their number part.
 /** @type {import('sequelize-cli').Migration} */
 module.exports = {
   async up(queryInterface) {
@@ -27,6 +27,9 @@ module.exports = {
                end $$`);
       await q(`create trigger seals_issuer before insert on seals for each row execute function boreline_seal_issuer()`);
       await q(`drop index seals_number`);
+      // Exact duplicates are the database's to refuse. Numbers that differ only by leading zeros ("ZZ-01",
+      // "ZZ-1") are refused by the batch check, which runs under a per-organisation lock; an index on that
+      // key could not be built over registers that already hold such pairs, which older batches allowed.
       await q(`create unique index seals_number on seals (organisation_id, upper(number))`);
     });
   },

@@ -578,3 +578,30 @@ test('the migration carries free-text seals into the register where they can be 
     notes: 0,
   });
 });
+
+test('leading zeros do not make another seal: "Z-01" and "Z-1" are one number in the register and at the dock', async () => {
+  // Attack finding F13: a batch of 1–2 printed Z-1, Z-2 and a batch of 1–10 printed Z-01 … Z-10 without a
+  // clash, and a scrutineer typing "Z-1" for the seal printed "Z-01" named another seal.
+  const prefix = `${PREFIX}Z-`;
+  const small = await issue(meetings[0], { prefix, firstNumber: 1, lastNumber: 2 });
+  assert.equal(small.res.status, 201, JSON.stringify(small.body));
+  const padded = await issue(meetings[0], { prefix, firstNumber: 1, lastNumber: 10 });
+  assert.equal(padded.res.status, 409, JSON.stringify(padded.body));
+  assert.deepEqual(padded.body.error.details.numbers, [`${prefix}1`, `${prefix}2`]);
+  // The batch body is strict: an unknown field is refused, not ignored.
+  const extra = await issue(meetings[0], { prefix, firstNumber: 3, lastNumber: 4, extra: 1 });
+  assert.equal(extra.res.status, 400, JSON.stringify(extra.body));
+  // Typed with zeros at the dock, the seal printed Z-2 is found and recorded under its printed number.
+  const r = await post(
+    meetings[0],
+    inspectionBody(entry.id, 101.9, {
+      seals: { applied: [{ number: `${prefix}002`, componentId: engineId, position: 'intake grille' }] },
+    }),
+  );
+  assert.equal(r.res.status, 201, JSON.stringify(r.body));
+  const events = await sealEventsOf(`${prefix}2`);
+  assert.deepEqual(
+    events.map((e) => [e.action, e.event_id]),
+    [['applied', meetings[0].eventId]],
+  );
+});

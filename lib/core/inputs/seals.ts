@@ -22,6 +22,13 @@ const text = (what: string, max: number) =>
     .trim()
     .max(max, `Keep ${what} under ${max} characters.`);
 
+/**
+ * How seal numbers are compared: in capitals, the number at the end without its leading zeros, so
+ * "zz-01", "ZZ-1" and "ZZ-001" are one seal (a scrutineer reading "ZZ-01" off the seal and typing
+ * "ZZ-1" means that seal). Its SQL twin is `sealKeySql` in lib/server/seals/seal-key.ts.
+ */
+export const sealNumberKey = (number: string) => number.toUpperCase().replace(/0*([0-9]+)$/, '$1');
+
 export const sealNumber = z
   .string({ error: 'Enter the seal number.' })
   .trim()
@@ -38,7 +45,7 @@ export function batchSealNumbers(prefix: string, firstNumber: number, lastNumber
 }
 
 export const IssueSealBatchInput = z
-  .object({
+  .strictObject({
     prefix: z
       .string({ error: 'Enter the prefix as text.' })
       .trim()

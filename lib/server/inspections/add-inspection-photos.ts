@@ -1,4 +1,6 @@
 import 'server-only';
+import { sealKeySql } from '@/lib/server/seals/seal-key';
+import { sealNumberKey } from '@/lib/core/inputs/seals';
 import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
@@ -50,8 +52,8 @@ export async function addInspectionPhotos(
     if (photos.length !== 1) throw refuseSeal('Send one photo of the seal at a time.');
     [sealEvent] = await sequelize.query<{ id: string; photoId: string | null }>(
       `select e.id, e.photo_id as "photoId" from seal_events e join seals s on s.id = e.seal_id
-        where e.inspection_id = :inspectionId and upper(s.number) = :number order by e.created_at desc, e.id desc limit 1`,
-      { replacements: { inspectionId, number: opts.sealNumber }, type: QueryTypes.SELECT },
+        where e.inspection_id = :inspectionId and ${sealKeySql('s.number')} = :key order by e.created_at desc, e.id desc limit 1`,
+      { replacements: { inspectionId, key: sealNumberKey(opts.sealNumber) }, type: QueryTypes.SELECT },
     );
     if (!sealEvent) throw refuseSeal(`Seal ${opts.sealNumber} was not recorded in this inspection.`);
   }

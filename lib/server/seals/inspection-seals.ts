@@ -8,6 +8,8 @@ import type { StoredSealAction } from '@/models/shapes/inspection-record';
 import type { SealAction } from '@/models/boat-record';
 import { describeComponent } from '@/lib/core/seals/seal-words';
 import { loadBoatSeals } from './boat-seals';
+import { sealKeySql } from './seal-key';
+import { sealNumberKey } from '@/lib/core/inputs/seals';
 
 // The seals part of recording an inspection: checked before anything is written (every refusal names
 // its field), then written in the inspection's own transaction, so a record and its seal events are
@@ -44,11 +46,11 @@ export async function planInspectionSeals(
   const empty = { events: [], findings: [], actions: [] };
   if (!checks.length && !applied.length && !removed.length) return empty;
   const issues: { field: string; message: string }[] = [];
-  const onBoat = new Map((await loadBoatSeals(boatId)).map((s) => [s.number.toUpperCase(), s]));
+  const onBoat = new Map((await loadBoatSeals(boatId)).map((s) => [sealNumberKey(s.number), s]));
   const events: PlannedEvent[] = [];
 
   checks.forEach((c, i) => {
-    const s = onBoat.get(c.number);
+    const s = onBoat.get(sealNumberKey(c.number));
     if (!s) {
       issues.push({ field: `seals.checks.${i}.number`, message: `Seal ${c.number} is not on this boat’s components.` });
       return;
@@ -56,7 +58,7 @@ export async function planInspectionSeals(
     events.push({ ...current(s), action: c.state, reason: '' });
   });
   removed.forEach((r, i) => {
-    const s = onBoat.get(r.number);
+    const s = onBoat.get(sealNumberKey(r.number));
     if (!s) {
       issues.push({
         field: `seals.removed.${i}.number`,
@@ -78,16 +80,16 @@ export async function planInspectionSeals(
       `select s.id, upper(s.number) as number, b.event_id as "batchEventId",
               (select e.action from seal_events e where e.seal_id = s.id order by e.created_at desc, e.id desc limit 1) as "lastAction"
          from seals s join seal_batches b on b.id = s.batch_id
-        where upper(s.number) in (:numbers) and b.event_id = :eventId`,
-      { replacements: { numbers: applied.map((a) => a.number), eventId }, type: QueryTypes.SELECT },
+        where ${sealKeySql('s.number')} in (:keys) and b.event_id = :eventId`,
+      { replacements: { keys: applied.map((a) => sealNumberKey(a.number)), eventId }, type: QueryTypes.SELECT },
     );
-    const byNumber = new Map(found.map((f) => [f.number, f]));
+    const byNumber = new Map(found.map((f) => [sealNumberKey(f.number), f]));
     const components = await models.BoatComponent.findAll({
       where: { id: applied.map((a) => a.componentId), boatId },
     });
     const byId = new Map(components.map((c) => [c.id, c]));
     applied.forEach((a, i) => {
-      const s = byNumber.get(a.number);
+      const s = byNumber.get(sealNumberKey(a.number));
       const field = `seals.applied.${i}.number`;
       if (!s || s.batchEventId !== eventId) {
         issues.push({
@@ -103,7 +105,7 @@ export async function planInspectionSeals(
       if (s && c)
         events.push({
           sealId: s.id,
-          number: a.number,
+          number: s.number, // as printed on the seal, whatever zeros were typed
           action: 'applied',
           componentId: c.id,
           component: describeComponent(c),

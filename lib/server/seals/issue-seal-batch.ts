@@ -3,7 +3,8 @@ import { QueryTypes, UniqueConstraintError, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
-import { IssueSealBatchInput, batchSealNumbers } from '@/lib/core/inputs/seals';
+import { IssueSealBatchInput, batchSealNumbers, sealNumberKey } from '@/lib/core/inputs/seals';
+import { sealKeySql } from './seal-key';
 import type { SealBatchView } from './list-seal-batches';
 
 const clash = (numbers: string[]) =>
@@ -21,7 +22,8 @@ const clash = (numbers: string[]) =>
 /**
  * The chief scrutineer (or organiser) issues a batch of numbered seals to the meeting: the batch and
  * every seal are written together. A number already in the register of the organisation running the
- * meeting, at any of its meetings, refuses the whole batch and names the clashing numbers. Another
+ * meeting, at any of its meetings (compared without leading zeros: "ZZ-01" is "ZZ-1"), refuses the
+ * whole batch and names the clashing numbers. Another
  * organisation's register is neither consulted nor told about (each seal carries its issuer, set by
  * a trigger from its batch's meeting; the unique index is per issuer).
  */
@@ -33,8 +35,13 @@ export async function issueSealBatch(actor: Actor | null, eventId: string, raw: 
   if (!event) throw new AppError('not_found', 404, 'No such meeting.');
   const takenInRegister = (transaction?: Transaction) =>
     sequelize.query<{ number: string }>(
-      'select upper(number) as number from seals where organisation_id = :organisationId and upper(number) in (:numbers) order by 1',
-      { replacements: { numbers, organisationId: event.organisationId }, type: QueryTypes.SELECT, transaction },
+      `select upper(number) as number from seals
+        where organisation_id = :organisationId and ${sealKeySql('number')} in (:keys) order by 1`,
+      {
+        replacements: { keys: numbers.map(sealNumberKey), organisationId: event.organisationId },
+        type: QueryTypes.SELECT,
+        transaction,
+      },
     );
   const numbers = batchSealNumbers(input.prefix, input.firstNumber, input.lastNumber);
   if (numbers.some((n) => n.length > 40))
@@ -43,6 +50,11 @@ export async function issueSealBatch(actor: Actor | null, eventId: string, raw: 
     ]);
   try {
     return await sequelize.transaction(async (transaction) => {
+      // One batch at a time per register: the leading-zero comparison is this check's, not an index's.
+      await sequelize.query('select pg_advisory_xact_lock(hashtext(:lock))', {
+        replacements: { lock: `seal-register:${event.organisationId}` },
+        transaction,
+      });
       const taken = await takenInRegister(transaction);
       if (taken.length) throw clash(taken.map((t) => t.number));
       const batch = await models.SealBatch.create(

@@ -8,6 +8,7 @@ import {
   InspectionSealsInput,
   IssueSealBatchInput,
   sealNumber,
+  sealNumberKey,
 } from '../../../../lib/core/inputs/seals';
 import { decideInspection, decideSeals } from '../../../../lib/core/inspections/decide-inspection';
 import { DEFAULT_CLASS_RULES } from '../../../../lib/core/inputs/class-rules';
@@ -142,4 +143,14 @@ test('a record queued before the register (an empty seals list) still parses, wi
   assert.deepEqual(RecordInspectionInput.parse(body).seals, { checks: [], applied: [], removed: [] });
   const old = RecordInspectionInput.safeParse({ ...body, seals: [{ number: 'S-1', location: 'pump' }] });
   assert.equal(old.error?.issues[0].path.join('.'), 'seals');
+});
+
+test('seal numbers compare in capitals without the leading zeros of their number (common practice, no source)', () => {
+  assert.equal(sealNumberKey('zz-01'), 'ZZ-1');
+  assert.equal(sealNumberKey('ZZ-001'), sealNumberKey('ZZ-1'));
+  assert.equal(sealNumberKey('KR-000'), 'KR-0', 'a number of zeros keeps one');
+  assert.equal(sealNumberKey('KR-100'), 'KR-100', 'inner and trailing zeros stay');
+  assert.equal(sealNumberKey('K9-05'), 'K9-5', 'only the final number is trimmed');
+  assert.equal(sealNumberKey('ABC'), 'ABC', 'no number at the end: unchanged');
+  assert.notEqual(sealNumberKey('ZZ-10'), sealNumberKey('ZZ-1'));
 });
