@@ -9,7 +9,7 @@ import type { BoardRow, InspectionBoard } from '@/lib/server/inspections/list-in
 import type { BoatCard } from '@/lib/server/inspections/load-boat-card';
 import { figureValue } from '@/lib/core/format/figures';
 import { FORMULA_INPUTS } from '@/lib/core/engine/measured-item';
-import { ownValue } from '@/lib/core/inputs/measured-item-rules';
+import { ownValue } from '@/lib/core/inputs/measured-item-terms';
 
 /** The boat being inspected, from the server's card or, offline, from the phone's copy of the board. */
 export type DockTarget = {
