@@ -41,6 +41,9 @@ export function BoatCardView({
           <p>
             {target.classCode} · {target.className}
             {target.ruleVersion != null ? ` · rules v${target.ruleVersion}` : ' · no rules in force'}
+            {target.declarationVersion != null && (
+              <span data-testid="declaration-version"> · declaration v{target.declarationVersion}</span>
+            )}
           </p>
         </div>
         <div className="flex flex-col items-end gap-2">

@@ -99,6 +99,7 @@ export function DockScreen({
   const [notice, setNotice] = useState<Notice | null>(null);
   const [verdict, setVerdict] = useState<ShownVerdict | null>(null);
   const [isLooking, setLooking] = useState(false);
+  const [stale, setStale] = useState<QueuedRecord | null>(null);
   // Read after hydration: the server has no phone name (an empty name until then).
   const device = useSyncExternalStore(subscribeToNothing, deviceName, () => '');
   const verdictRef = useRef<HTMLDivElement>(null);
@@ -131,6 +132,7 @@ export function DockScreen({
   }, [refreshSnapshot, queue.isOnline]);
 
   function open(t: DockTarget, initial?: FormState, key?: string) {
+    setStale(null);
     setTarget(t);
     setVerdict(null);
     setServerErrors({});
@@ -222,8 +224,11 @@ export function DockScreen({
       setServerErrors(after.fieldErrors);
       setNotice({
         tone: 'error',
-        text: `Not recorded: ${after.message ?? 'the server refused it'}. It is kept on this phone under “Needs a fix”.`,
+        code: after.code,
+        text: `Not recorded: ${after.message ?? 'the server refused it'} It is kept on this phone under “Needs a fix”.`,
       });
+      // The declaration changed since the card was opened: offer the card again, keeping what was typed.
+      setStale(after.code === 'declaration_changed' ? after : null);
       return;
     }
     setVerdict({
@@ -338,6 +343,16 @@ export function DockScreen({
             >
               {notice.text}
             </p>
+          )}
+          {stale && (
+            <button
+              type="button"
+              className="btn-primary text-lg"
+              data-testid="reload-card"
+              onClick={() => void fix(stale)}
+            >
+              Reload the boat card
+            </button>
           )}
           {verdict && (
             <VerdictPanel
