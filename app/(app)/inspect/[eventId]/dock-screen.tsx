@@ -225,7 +225,7 @@ export function DockScreen({
       setNotice({
         tone: 'error',
         code: after.code,
-        text: `Not recorded: ${after.message ?? 'the server refused it'} It is kept on this phone under “Needs a fix”.`,
+        text: `Not recorded: ${(after.message ?? 'the server refused it').replace(/\.?$/, '.')} It is kept on this phone under “Needs a fix”.`,
       });
       // The declaration changed since the card was opened: offer the card again, keeping what was typed.
       setStale(after.code === 'declaration_changed' ? after : null);
