@@ -84,12 +84,15 @@ export function DockScreen({
   actorId,
   instruments,
   canOpenLogbook,
+  opensFromLink = false,
 }: {
   eventId: string;
   actorId: string;
   instruments: InstrumentView[];
   /** Officials with entry.view_all may open the boat's logbook from its card. */
   canOpenLogbook: boolean;
+  /** Opened with ?race= or ?tag=: a boat's card and form will appear above the phone's outbox. */
+  opensFromLink?: boolean;
 }) {
   const queue = useDockQueue(eventId, actorId);
   const [snapshot, setSnapshot] = useState<EventSnapshot | null>(null);
@@ -318,7 +321,9 @@ export function DockScreen({
 
   return (
     <div className="grid gap-4 lg:grid-cols-[2fr_1fr]">
-      <div className="space-y-4">
+      {/* Opened from a link, the card and form arrive after the first paint: the column holds a screen's height
+          from the start, so on a phone the outbox below is not seen jumping down (a layout shift). */}
+      <div className={`space-y-4 ${opensFromLink ? 'max-lg:min-h-screen' : ''}`}>
         <FindBoat onFind={(q) => void find(q)} isBusy={isLooking} />
         {isLooking && (
           <p role="status" className="text-lg">
