@@ -15,6 +15,7 @@
 import { randomUUID } from 'node:crypto';
 import { execFileSync } from 'node:child_process';
 import { readdirSync, readFileSync } from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import pg from 'pg';
 
@@ -111,7 +112,8 @@ async function setUp() {
   return { eventId, entryIds, scrutineer: await new Client().signIn('scrutineer@tarnwater.example') };
 }
 
-const body = inspectionBody;
+// As the dock sends it: with the declaration version its card showed (each scratch boat is at version 1).
+const body = (entryId: string, key?: string) => ({ ...inspectionBody(entryId, key), declarationVersion: 1 });
 
 /** cpu: ms per request; for new records it also covers sending their mails after the round (the outbox draining). */
 type Result = { name: string; seconds: number; latenciesMs: number[]; errors: number; cpu?: Cpu };
@@ -144,7 +146,15 @@ async function run(name: string, send: (worker: number, i: number) => Promise<Re
 
 const pct = percentile;
 
+/** The machine's load (1, 5 and 15 minutes): 2 cores shared with other people's work move every figure. */
+const load = () =>
+  `${os
+    .loadavg()
+    .map((x) => x.toFixed(1))
+    .join(' / ')} (1 / 5 / 15 min) on ${os.cpus().length} cores`;
+
 async function main() {
+  const loadAtStart = load();
   const { eventId, entryIds, scrutineer } = await setUp();
   const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
   await db.connect();
@@ -226,6 +236,7 @@ async function main() {
   console.log(
     `  ${verdict(ratio >= THROUGHPUT_GOAL)}  new records ${ratio.toFixed(2)}x the baseline's throughput, median of the rounds' ratios (target at least ${THROUGHPUT_GOAL}x)`,
   );
+  console.log(`load average: ${loadAtStart} at the start, ${load()} at the end`);
   await db.end();
 }
 

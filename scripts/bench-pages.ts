@@ -156,6 +156,7 @@ async function waitForBrotli() {
 }
 
 async function main() {
+  const loadAtStart = os.loadavg()[0];
   let pages = await setUp();
   await waitForBrotli();
   if (ONLY) pages = pages.filter((p) => ONLY.includes(p.name.replace(/ /g, '-')) || ONLY.includes(p.name));
@@ -193,7 +194,7 @@ async function main() {
   for (const { page, f } of rows) {
     const js =
       page.name === 'dock'
-        ? `${f.scriptKB.toFixed(0)} KB (<= 170 KB) ${mark(f.scriptKB <= 170)}`
+        ? `${f.scriptKB.toFixed(1)} KB (<= 170 KB) ${mark(f.scriptKB <= 170)}`
         : `${f.scriptKB.toFixed(0)} KB`;
     console.log(
       `| ${page.name} | ${f.performance} ${mark(f.performance >= 90)} | ${f.accessibility} ${mark(f.accessibility >= 100)} | ${(f.lcpMs / 1000).toFixed(1)} s ${mark(f.lcpMs < 2500)} | ${Math.round(f.tbtMs)} ms ${mark(f.tbtMs < 200)} | ${f.cls.toFixed(3)} ${mark(f.cls < 0.1)} | ${f.transferredKB.toFixed(0)} KB | ${js} | ${f.requests} |`,
@@ -201,7 +202,9 @@ async function main() {
   }
   // Lighthouse simulates the phone's network and CPU from a trace of this machine: on a busy machine TBT
   // and the performance score swing from run to run; bytes and requests do not.
-  console.log(`\nLoad average (1 min) at the end: ${os.loadavg()[0].toFixed(1)} on ${os.cpus().length} cores`);
+  console.log(
+    `\nLoad average (1 min): ${loadAtStart.toFixed(1)} at the start, ${os.loadavg()[0].toFixed(1)} at the end, on ${os.cpus().length} cores`,
+  );
   console.log(`Reports (JSON, one per run): ${OUT}`);
 }
 

@@ -64,3 +64,22 @@ test('static scripts: br when accepted (same bytes once decoded), gzip otherwise
   const again = await rawGet(script, { 'accept-encoding': 'br', 'if-none-match': String(br.headers.etag) });
   assert.equal(again.status, 304);
 });
+
+test('every hashed static file keeps a year-long immutable copy, whichever encoding: scripts, styles and fonts', async () => {
+  const IMMUTABLE = 'public, max-age=31536000, immutable'; // RFC 8246 (immutable), RFC 9111 section 5.2.2.1 (max-age)
+  const html = await (await fetch(`${BASE_URL}/`)).text();
+  const script = html.match(/\/_next\/static\/chunks\/[\w.-]+\.js/)?.[0];
+  const style = html.match(/\/_next\/static\/chunks\/[\w.-]+\.css/)?.[0];
+  assert.ok(script && style, 'the page names a script and a style sheet');
+  const css = await (await fetch(`${BASE_URL}${style}`)).text();
+  // The sheet names its fonts relative to itself (url(../media/….woff2)).
+  const fontRef = css.match(/url\(([^)]+\.woff2)\)/)?.[1];
+  const font = fontRef && new URL(fontRef, `${BASE_URL}${style}`).pathname;
+  assert.ok(font, 'the style sheet names a font shipped with the build');
+  for (const file of [script, style, font])
+    for (const encoding of ['br', 'gzip', 'identity']) {
+      const res = await rawGet(file, { 'accept-encoding': encoding });
+      assert.equal(res.status, 200, `${file} (${encoding})`);
+      assert.equal(res.headers['cache-control'], IMMUTABLE, `${file} (${encoding})`);
+    }
+});

@@ -1,16 +1,11 @@
 import { z } from 'zod';
 import { isSingleLine } from '@/lib/core/inputs/text-safety';
-import type { ComponentKind } from '@/models/boat-record';
+import { COMPONENT_KIND_VALUES } from './component-kinds';
 
 // A component with identity (an engine, jet pump or impeller), shared by the boat page's forms and
 // the components API. Kind and serial number are its identity and never change once registered.
 
-export const COMPONENT_KIND_VALUES = ['engine', 'pump', 'impeller'] as const satisfies readonly ComponentKind[];
-export const COMPONENT_KIND_LABELS: Record<ComponentKind, string> = {
-  engine: 'Engine',
-  pump: 'Jet pump',
-  impeller: 'Impeller',
-};
+export { COMPONENT_KIND_VALUES, COMPONENT_KIND_LABELS } from './component-kinds';
 
 const text = (what: string, max: number) =>
   z

@@ -2,8 +2,9 @@ import { z } from 'zod';
 import { SAFETY_ITEM_KEYS, type SafetyItem } from '../constants';
 import { MATERIAL_OPTIONS, type Material } from '../engine/measurement';
 import { InspectionSealsInput } from './seals';
-import { INSTRUMENT_TYPES } from './instrument-calibration';
-import { ITEM_KEY_PATTERN, MAX_ITEM_READINGS, MAX_MEASURED_ITEMS } from './measured-item-rules';
+import { INSTRUMENT_TYPES } from './instrument-types';
+import { ITEM_KEY_PATTERN, MAX_ITEM_READINGS, MAX_MEASURED_ITEMS } from './measured-item-terms';
+import { INSPECTION_KINDS, POWER_EVIDENCE_KINDS, checkCapturedAt } from './inspection-terms';
 import { READING_FIELDS, type ReadingField } from '../engine/measured-item';
 
 // Inspection input, shared by the dock form (also offline, before queuing) and the server.
@@ -11,30 +12,19 @@ import { READING_FIELDS, type ReadingField } from '../engine/measured-item';
 // What depends on the class (how many readings, which safety items) is checked against the rule
 // version in force by lib/core/inspections/decide-inspection.ts, which names the same fields.
 
-export const INSPECTION_KINDS = ['pre_race', 'post_race', 'protest', 'spot_check'] as const;
-export type InspectionKind = (typeof INSPECTION_KINDS)[number];
-/** The kind of evidence the scrutineer saw for the power figure. */
-export const POWER_EVIDENCE_KINDS = ['dyno_sheet', 'maker_rating', 'declaration_only'] as const;
-export type PowerEvidenceKind = (typeof POWER_EVIDENCE_KINDS)[number];
-export const POWER_EVIDENCE_KIND_WORDS: Record<PowerEvidenceKind, string> = {
-  dyno_sheet: 'Sealed dyno sheet',
-  maker_rating: 'Maker’s rating',
-  declaration_only: 'Declaration only (no evidence seen)',
-};
-
-export const INSPECTION_KIND_LABELS: Record<InspectionKind, string> = {
-  pre_race: 'Pre-race',
-  post_race: 'Post-race',
-  protest: 'Protest',
-  spot_check: 'Spot check',
-};
-
-/** A record may be captured offline and sent later, but not from the future or from long ago. */
-export const MAX_FUTURE_MS = 5 * 60 * 1000;
-export const MAX_AGE_MS = 14 * 24 * 60 * 60 * 1000;
-/** One photo of an inspection (bytes); how many one upload may carry (small ones; the dock sends one each). */
-export const INSPECTION_PHOTO_MAX_BYTES = 8 * 1024 * 1024;
-export const INSPECTION_PHOTOS_PER_UPLOAD = 4;
+export {
+  INSPECTION_KINDS,
+  INSPECTION_KIND_LABELS,
+  INSPECTION_PHOTO_MAX_BYTES,
+  INSPECTION_PHOTOS_PER_UPLOAD,
+  MAX_AGE_MS,
+  MAX_FUTURE_MS,
+  POWER_EVIDENCE_KINDS,
+  POWER_EVIDENCE_KIND_WORDS,
+  checkCapturedAt,
+  type InspectionKind,
+  type PowerEvidenceKind,
+} from './inspection-terms';
 
 const num = (what: string, unit: string) =>
   z.number({
@@ -121,6 +111,14 @@ export const RecordInspectionInput = z
   .object({
     idempotencyKey: z.uuid({ error: 'The record key must be a UUID made on the device.' }),
     entryId: uuid('the boat’s entry'),
+    /** The boat's declaration version the dock showed: the record checks that one (older clients send none). */
+    declarationVersion: z
+      .number({ error: 'Give the declaration version as a whole number.' })
+      .int('Give the declaration version as a whole number.')
+      .min(1, 'Give the declaration version as a whole number.')
+      .nullable()
+      .optional()
+      .transform((v) => v ?? null),
     kind: z.enum(INSPECTION_KINDS, { error: 'Choose the kind of inspection.' }).default('pre_race'),
     capturedAt: z.iso.datetime({ offset: true, error: 'Give the time of the inspection as an ISO date and time.' }),
     device: text('the device name', 80).default(''),
@@ -298,19 +296,6 @@ export const RecordInspectionInput = z
 export type RecordInspectionInput = z.infer<typeof RecordInspectionInput>;
 /** What the form builds before parsing (defaults not yet applied). */
 export type RecordInspectionDraft = z.input<typeof RecordInspectionInput>;
-
-/**
- * The capture time must lie between 14 days ago and 5 minutes ahead of the checking clock (a
- * record may wait offline, but not for weeks). A retry of a stored record is answered from its
- * key before this check runs, so it is never refused for its age.
- */
-export function checkCapturedAt(capturedAtIso: string, now = Date.now()): string | null {
-  const t = Date.parse(capturedAtIso);
-  if (Number.isNaN(t)) return 'Give the time of the inspection as an ISO date and time.';
-  if (t > now + MAX_FUTURE_MS) return 'The time is more than 5 minutes in the future: check the phone’s clock.';
-  if (t < now - MAX_AGE_MS) return 'The time is more than 14 days ago: such a record cannot be sent now.';
-  return null;
-}
 
 export const RequestReinspectionInput = z.object({
   entryIds: z

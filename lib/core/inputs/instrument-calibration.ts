@@ -7,27 +7,7 @@ export const CERTIFICATE_MAX_BYTES = 8 * 1024 * 1024;
 export const EARLIEST_CALIBRATION = '2000-01-01';
 export const MAX_INTERVAL_YEARS = 10;
 
-export const INSTRUMENT_TYPES = [
-  'caliper',
-  'bore_gauge',
-  'micrometer',
-  'plug_gauge',
-  'tape',
-  'scale',
-  'thermometer',
-  'other',
-] as const;
-export type InstrumentType = (typeof INSTRUMENT_TYPES)[number];
-export const INSTRUMENT_TYPE_LABELS: Record<InstrumentType, string> = {
-  caliper: 'Caliper',
-  bore_gauge: 'Bore gauge',
-  micrometer: 'Micrometer',
-  plug_gauge: 'Plug gauge',
-  tape: 'Tape',
-  scale: 'Scale',
-  thermometer: 'Thermometer',
-  other: 'Other',
-};
+export { INSTRUMENT_TYPES, INSTRUMENT_TYPE_LABELS, type InstrumentType } from './instrument-types';
 
 const text = (what: string, max: number) =>
   z

@@ -3,23 +3,18 @@
 import { z } from 'zod';
 import { DECISION_RULES, type DecisionRule } from '../engine/conformity';
 import { ITEM_UNITS, type ItemUnit } from '../engine/measured-item';
-import { INSTRUMENT_TYPES, type InstrumentType } from './instrument-calibration';
+import { INSTRUMENT_TYPES, type InstrumentType } from './instrument-types';
+import { ITEM_KEY_PATTERN, MAX_ITEM_READINGS, MAX_MEASURED_ITEMS } from './measured-item-terms';
 
-/** At most this many items per class: a rules document stays readable and a dock form stays short. */
-export const MAX_MEASURED_ITEMS = 20;
-export const MAX_ITEM_READINGS = 12;
-export const CHECK_METHODS = ['two_point', 'gauge', 'both'] as const;
-export type CheckMethod = (typeof CHECK_METHODS)[number];
-
-export const ITEM_KEY_PATTERN = /^[a-z][a-z0-9_]{1,39}$/;
-
-/**
- * A value stored under an item's key, own properties only: a key such as "constructor" or "toString"
- * fits the pattern, and a plain lookup would find Object.prototype's function instead of nothing.
- */
-export function ownValue<T>(byKey: Readonly<Record<string, T>> | null | undefined, key: string): T | undefined {
-  return byKey && Object.hasOwn(byKey, key) ? byKey[key] : undefined;
-}
+export {
+  CHECK_METHODS,
+  CHECK_METHOD_WORDS,
+  ITEM_KEY_PATTERN,
+  MAX_ITEM_READINGS,
+  MAX_MEASURED_ITEMS,
+  ownValue,
+  type CheckMethod,
+} from './measured-item-terms';
 
 const limit = (what: string) =>
   z
@@ -117,19 +112,6 @@ export const MeasuredItemRules = z
     });
   })
   .optional();
-
-/**
- * The difference between a two-point size and a gauge check, for the rules editor and the verdict.
- * ISO 14405-1:2016 distinguishes the two-point size (a local size between two opposite points)
- * from sizes taken over the whole feature, such as the maximum inscribed size a plug gauge tests.
- */
-export const CHECK_METHOD_WORDS: Record<CheckMethod, string> = {
-  two_point:
-    'Two-point readings govern: every reading across the exit (a two-point size, ISO 14405-1:2016) must be within the limits.',
-  gauge:
-    'The go/no-go plug gauge governs: the largest round plug that fits the exit (its maximum inscribed size) is what is tested. Two-point readings are still recorded, but do not decide.',
-  both: 'Both must pass: the plug gauge check and every two-point reading.',
-};
 
 export const CHECK_METHOD_EXPLANATION =
   'Why the two can disagree: a round plug gauge only tests the largest circle that fits inside the exit. Take a maximum diameter of 102 mm and a no-go plug gauge of 102 mm. An oval exit 101.8 mm across its narrow axis and 102.3 mm across its wide axis stops the plug (the narrow axis is under 102 mm), so it passes the gauge check; yet a two-point reading across the wide axis is 102.3 mm, above the maximum, so it fails the two-point rule. For a minimum the two usually agree, but a go plug gauge tests the whole exit at once, while two-point readings test only the directions measured and can miss a narrow one. Say in the rule which one governs. (ISO 14405-1:2016 distinguishes the two-point size from the maximum inscribed size.)';

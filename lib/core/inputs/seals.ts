@@ -1,20 +1,17 @@
 import { z } from 'zod';
+import { SEAL_BATCH_MAX, SEAL_CHECK_STATES, SEAL_NUMBER_PATTERN } from './seal-terms';
 
 // The seal register's inputs, shared by the forms and the server: a batch of numbered seals issued
 // to a meeting, and what a scrutineer does with seals while recording an inspection (check the seals
 // already on the boat, apply new ones, remove one with a reason).
 
-/** Most seals one batch may carry (the register's own limit, also a check in the database). */
-export const SEAL_BATCH_MAX = 1000;
-/** A seal number: letters, digits and dashes, 1 to 40 characters (stored in capitals, compared without case). */
-export const SEAL_NUMBER_PATTERN = /^[A-Za-z0-9-]{1,40}$/;
-export const SEAL_CHECK_STATES = ['intact', 'broken', 'missing'] as const;
-export type SealCheckState = (typeof SEAL_CHECK_STATES)[number];
-export const SEAL_CHECK_WORDS: Record<SealCheckState, string> = {
-  intact: 'Intact',
-  broken: 'Broken',
-  missing: 'Missing',
-};
+export {
+  SEAL_BATCH_MAX,
+  SEAL_CHECK_STATES,
+  SEAL_CHECK_WORDS,
+  SEAL_NUMBER_PATTERN,
+  type SealCheckState,
+} from './seal-terms';
 
 const text = (what: string, max: number) =>
   z

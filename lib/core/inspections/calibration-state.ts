@@ -102,9 +102,5 @@ export function calibrationState(
   };
 }
 
-/** The usable instruments among others of the same quantity: what the dock names instead of one it refuses. */
-export function usableAlternatives<
-  T extends { id: string; name: string; quantity: string; calibration: CalibrationState },
->(instruments: readonly T[], refused: T): T[] {
-  return instruments.filter((i) => i.id !== refused.id && i.quantity === refused.quantity && i.calibration.usable);
-}
+// Kept apart (no date library): the dock's client code imports it.
+export { usableAlternatives } from './usable-alternatives';

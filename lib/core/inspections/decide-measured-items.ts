@@ -23,7 +23,7 @@ import {
 import type { ClassRules } from '../inputs/class-rules';
 import type { GaugeCheckInput, MeasuredItemInput } from '../inputs/inspections';
 import type { MeasuredItemRule } from '../inputs/measured-item-rules';
-import { CHECK_METHOD_WORDS, ownValue } from '../inputs/measured-item-rules';
+import { CHECK_METHOD_WORDS, ownValue } from '../inputs/measured-item-terms';
 
 /** An instrument named for an item, with its U already worked out (decide-inspection's instrumentUncertainty). */
 export type ItemInstrument = {

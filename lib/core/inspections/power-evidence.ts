@@ -1,5 +1,5 @@
 // The power evidence an inspection recorded, in words for the verdict and the boat card.
-import { POWER_EVIDENCE_KIND_WORDS, type PowerEvidenceKind } from '../inputs/inspections';
+import { POWER_EVIDENCE_KIND_WORDS, type PowerEvidenceKind } from '../inputs/inspection-terms';
 
 export type RecordedPowerEvidence = {
   evidenceSeen?: boolean;

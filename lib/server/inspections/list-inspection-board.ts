@@ -28,6 +28,8 @@ export type BoardRow = {
   declaredPowerKw: number;
   powerEvidence: string;
   declaredWeightKg: number | null;
+  /** The boat's newest declaration version: a record made from this row says it checked that one. */
+  declarationVersion: number;
   state: BoardState;
   latest: {
     id: string;
@@ -114,6 +116,7 @@ export async function listInspectionBoard(
             c.id as "classId", c.code as "classCode", c.name as "className",
             b.declared_nozzle_mm as "declaredNozzleMm", b.declared_power_kw as "declaredPowerKw", b.power_evidence as "powerEvidence",
             b.declared_weight_kg as "declaredWeightKg",
+            (select max(d.version) from boat_declaration_versions d where d.boat_id = b.id) as "declarationVersion",
             i.id as "latestId", i.overall_result as "latestResult", i.kind as "latestKind", i.captured_at as "latestCapturedAt",
             coalesce(u.name, u.email) as "latestBy", i.device as "latestDevice",
             (select count(*) from inspections x where x.entry_id = e.id) as "inspectionCount",
@@ -148,6 +151,7 @@ export async function listInspectionBoard(
     declaredPowerKw: r.declaredPowerKw,
     powerEvidence: r.powerEvidence,
     declaredWeightKg: r.declaredWeightKg,
+    declarationVersion: Number(r.declarationVersion),
     state: (r.latestResult ?? 'waiting') as BoardState,
     latest: r.latestId
       ? {

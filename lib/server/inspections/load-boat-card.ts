@@ -35,6 +35,8 @@ export type BoatCard = {
     declaredPowerKw: number;
     powerEvidence: string;
     declaredWeightKg: number | null;
+    /** The declaration version shown (the newest); a record made from this card says it checked that one. */
+    declarationVersion: number;
   };
   raceClass: { id: string; code: string; name: string };
   ruleVersion: { id: string; version: number; effectiveFrom: string | null; rules: ClassRules } | null;
@@ -71,6 +73,7 @@ export async function loadBoatCard(actor: Actor, eventId: string, entryId: strin
     seals,
     components,
     documents,
+    declarationVersion,
   ] = await Promise.all([
     models.Boat.findByPk(entry.boatId),
     models.RaceClass.findByPk(entry.classId),
@@ -93,6 +96,7 @@ export async function loadBoatCard(actor: Actor, eventId: string, entryId: strin
       attributes: ['id', 'kind', 'fileName'],
       order: [['createdAt', 'DESC']],
     }),
+    models.BoatDeclarationVersion.max('version', { where: { boatId: entry.boatId } }),
   ]);
   if (!boat || !raceClass || !event) throw new Error(`entry ${entryId} has a missing boat, class or event`);
   return {
@@ -118,6 +122,7 @@ export async function loadBoatCard(actor: Actor, eventId: string, entryId: strin
       declaredPowerKw: boat.declaredPowerKw,
       powerEvidence: boat.powerEvidence,
       declaredWeightKg: boat.declaredWeightKg ?? null,
+      declarationVersion: Number(declarationVersion),
     },
     raceClass: { id: raceClass.id, code: raceClass.code, name: raceClass.name },
     ruleVersion: ruleVersion

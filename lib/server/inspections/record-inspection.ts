@@ -27,6 +27,9 @@ import { resolveItemInstruments } from './item-instruments';
 import { currentInspectionCte, loadInspectionViews, type InspectionView } from './inspection-view';
 import { planInspectionSeals, writeInspectionSealEvents } from '@/lib/server/seals/inspection-seals';
 
+// Built once, not per record (a zod schema costs its construction on every call otherwise).
+const UUID = z.uuid();
+
 type EntryRow = {
   id: string;
   entrantId: string;
@@ -41,6 +44,8 @@ type EntryRow = {
   className: string;
   eventName: string;
   entrantEmail: string;
+  /** The boat's newest declaration version (what a dock showing the boat now shows). */
+  latestDeclarationVersion: number;
   /** The class's published rule versions, newest first; effectiveFromMs rounded up to the millisecond. */
   publishedVersions: { id: string; version: number; effectiveFromMs: number; rules: ClassRules }[] | null;
 };
@@ -92,6 +97,7 @@ async function loadEntry(eventId: string, entryId: string, key: string | null) {
             b.owner_id as "ownerId", b.name as "boatName", b.declared_power_kw as "boatDeclaredKw", b.power_evidence as "boatPowerEvidence",
             c.name as "className", ev.name as "eventName", u.email as "entrantEmail",
             (select i.event_id from inspections i where i.idempotency_key = :key) as "keyEventId",
+            (select max(d.version) from boat_declaration_versions d where d.boat_id = e.boat_id) as "latestDeclarationVersion",
             (select json_agg(json_build_object('id', v.id, 'version', v.version, 'rules', v.rules,
                                                'effectiveFromMs', ceil(extract(epoch from v.effective_from) * 1000))
                              order by v.effective_from desc, v.version desc)
@@ -137,8 +143,8 @@ export async function recordInspection(
   const { models, sequelize } = getDb();
   // A retry (the answer was lost, or the phone sent twice) gets the stored record back at once,
   // before the input is checked again (an offline record may be older than a new one may be).
-  const key = z.uuid().safeParse((raw as { idempotencyKey?: unknown } | null)?.idempotencyKey);
-  const entryGuess = z.uuid().safeParse((raw as { entryId?: unknown } | null)?.entryId);
+  const key = UUID.safeParse((raw as { idempotencyKey?: unknown } | null)?.idempotencyKey);
+  const entryGuess = UUID.safeParse((raw as { entryId?: unknown } | null)?.entryId);
   let entry = entryGuess.success
     ? await loadEntry(eventId, entryGuess.data.toLowerCase(), key.success ? key.data.toLowerCase() : null)
     : undefined;
@@ -160,6 +166,17 @@ export async function recordInspection(
       'entry_not_live',
       409,
       `Race number ${entry.raceNumber} is ${entry.status}: it is not inspected.`,
+    );
+  }
+
+  // The declaration the scrutineer saw must still be the boat's: a record of a version edited away since the
+  // card was opened would otherwise be filed as an inspection of the new one (attack finding F7). Nothing is stored.
+  const shownVersion = input.declarationVersion;
+  if (shownVersion != null && shownVersion !== entry.latestDeclarationVersion) {
+    throw new AppError(
+      'declaration_changed',
+      409,
+      `The boat’s declaration changed after its card was opened: the card showed version ${shownVersion}, the boat is now at version ${entry.latestDeclarationVersion}. Nothing was recorded: reload the boat card, check the new declaration and record again.`,
     );
   }
 
@@ -245,10 +262,11 @@ export async function recordInspection(
                                 declaration_version_id)
        select :eventId, locked.id, :boatId, :classId, :ruleVersionId, :kind, :recordedById, :device, :idempotencyKey,
               :capturedAt, :supersedesId, :correctionReason, :reinspectionId, :measurements::jsonb, :results::jsonb, :overall, :notes,
-              -- The version in force when the boat was measured (a record that waited offline checked that one),
-              -- else the first: a record never pins a version made after its capture.
+              -- The version the dock showed (checked above to be the latest), else (an older client) the version in
+              -- force when the boat was measured, else the first: a record never pins a version made after its capture.
               (select d.id from boat_declaration_versions d where d.boat_id = :boatId
-                order by d.created_at <= :measuredAt desc, case when d.created_at <= :measuredAt then d.version end desc nulls last, d.version
+                order by d.version = :shownVersion desc nulls last,
+                         d.created_at <= :measuredAt desc, case when d.created_at <= :measuredAt then d.version end desc nulls last, d.version
                 limit 1)
          from locked
        on conflict (idempotency_key) do nothing
@@ -273,6 +291,8 @@ export async function recordInspection(
           overall: decision.overall,
           notes: input.notes,
           measuredAt,
+          // A correction restates an earlier inspection: it pins the version in force then, as before.
+          shownVersion: input.supersedesId ? null : shownVersion,
         },
         type: QueryTypes.SELECT,
         transaction,

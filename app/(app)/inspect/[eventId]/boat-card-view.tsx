@@ -2,7 +2,7 @@
 
 import { StatusBadge } from '@/components/status-badge';
 import { VerdictBadge } from '@/components/verdict-badge';
-import { INSPECTION_KIND_LABELS, type InspectionKind } from '@/lib/core/inputs/inspections';
+import { INSPECTION_KIND_LABELS, type InspectionKind } from '@/lib/core/inputs/inspection-terms';
 import { DECLARATION_STATUS_WORDS } from '@/lib/core/entries/check-declaration';
 import type { InspectionView } from '@/lib/server/inspections/inspection-view';
 import { formatFigure } from '@/lib/core/format/figures';
@@ -41,6 +41,9 @@ export function BoatCardView({
           <p>
             {target.classCode} · {target.className}
             {target.ruleVersion != null ? ` · rules v${target.ruleVersion}` : ' · no rules in force'}
+            {target.declarationVersion != null && (
+              <span data-testid="declaration-version"> · declaration v{target.declarationVersion}</span>
+            )}
           </p>
         </div>
         <div className="flex flex-col items-end gap-2">

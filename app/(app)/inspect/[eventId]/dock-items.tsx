@@ -1,9 +1,9 @@
 'use client';
 
 import type { ClassRules } from '@/lib/core/inputs/class-rules';
-import { CHECK_METHOD_WORDS, ownValue } from '@/lib/core/inputs/measured-item-rules';
+import { CHECK_METHOD_WORDS, ownValue } from '@/lib/core/inputs/measured-item-terms';
 import { FORMULA_INPUTS } from '@/lib/core/engine/measured-item';
-import { INSTRUMENT_TYPE_LABELS, type InstrumentType } from '@/lib/core/inputs/instrument-calibration';
+import { INSTRUMENT_TYPE_LABELS, type InstrumentType } from '@/lib/core/inputs/instrument-types';
 import type { InstrumentView } from '@/lib/server/inspections/list-instruments';
 import { DockField } from './dock-field';
 import { RefusedInstruments } from './refused-instruments';

@@ -84,12 +84,15 @@ export function DockScreen({
   actorId,
   instruments,
   canOpenLogbook,
+  opensFromLink = false,
 }: {
   eventId: string;
   actorId: string;
   instruments: InstrumentView[];
   /** Officials with entry.view_all may open the boat's logbook from its card. */
   canOpenLogbook: boolean;
+  /** Opened with ?race= or ?tag=: a boat's card and form will appear above the phone's outbox. */
+  opensFromLink?: boolean;
 }) {
   const queue = useDockQueue(eventId, actorId);
   const [snapshot, setSnapshot] = useState<EventSnapshot | null>(null);
@@ -99,6 +102,7 @@ export function DockScreen({
   const [notice, setNotice] = useState<Notice | null>(null);
   const [verdict, setVerdict] = useState<ShownVerdict | null>(null);
   const [isLooking, setLooking] = useState(false);
+  const [stale, setStale] = useState<QueuedRecord | null>(null);
   // Read after hydration: the server has no phone name (an empty name until then).
   const device = useSyncExternalStore(subscribeToNothing, deviceName, () => '');
   const verdictRef = useRef<HTMLDivElement>(null);
@@ -131,6 +135,7 @@ export function DockScreen({
   }, [refreshSnapshot, queue.isOnline]);
 
   function open(t: DockTarget, initial?: FormState, key?: string) {
+    setStale(null);
     setTarget(t);
     setVerdict(null);
     setServerErrors({});
@@ -222,8 +227,11 @@ export function DockScreen({
       setServerErrors(after.fieldErrors);
       setNotice({
         tone: 'error',
-        text: `Not recorded: ${after.message ?? 'the server refused it'}. It is kept on this phone under “Needs a fix”.`,
+        code: after.code,
+        text: `Not recorded: ${(after.message ?? 'the server refused it').replace(/\.?$/, '.')} It is kept on this phone under “Needs a fix”.`,
       });
+      // The declaration changed since the card was opened: offer the card again, keeping what was typed.
+      setStale(after.code === 'declaration_changed' ? after : null);
       return;
     }
     setVerdict({
@@ -313,7 +321,9 @@ export function DockScreen({
 
   return (
     <div className="grid gap-4 lg:grid-cols-[2fr_1fr]">
-      <div className="space-y-4">
+      {/* Opened from a link, the card and form arrive after the first paint: the column holds a screen's height
+          from the start, so on a phone the outbox below is not seen jumping down (a layout shift). */}
+      <div className={`space-y-4 ${opensFromLink ? 'max-lg:min-h-screen' : ''}`}>
         <FindBoat onFind={(q) => void find(q)} isBusy={isLooking} />
         {isLooking && (
           <p role="status" className="text-lg">
@@ -338,6 +348,16 @@ export function DockScreen({
             >
               {notice.text}
             </p>
+          )}
+          {stale && (
+            <button
+              type="button"
+              className="btn-primary text-lg"
+              data-testid="reload-card"
+              onClick={() => void fix(stale)}
+            >
+              Reload the boat card
+            </button>
           )}
           {verdict && (
             <VerdictPanel

@@ -1,6 +1,6 @@
 'use client';
 
-import { SEAL_CHECK_STATES, SEAL_CHECK_WORDS } from '@/lib/core/inputs/seals';
+import { SEAL_CHECK_STATES, SEAL_CHECK_WORDS } from '@/lib/core/inputs/seal-terms';
 import { DockField } from './dock-field';
 import type { DockTarget, FormSeals } from './form-model';
 

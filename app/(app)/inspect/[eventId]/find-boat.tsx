@@ -4,7 +4,7 @@ import { useEffect, useEffectEvent, useState } from 'react';
 import { useParams } from 'next/navigation';
 import { requestJson } from '@/components/forms/request-json';
 import { FieldError } from '@/components/forms/form-message';
-import { COMPONENT_KIND_LABELS } from '@/lib/core/inputs/components';
+import { COMPONENT_KIND_LABELS } from '@/lib/core/inputs/component-kinds';
 import type { SerialMatch } from '@/lib/server/components/find-boat-by-serial';
 
 /** html5-qrcode's own file scan (its bundled ZXing decoder). */

@@ -9,7 +9,7 @@ import type { BoardRow, InspectionBoard } from '@/lib/server/inspections/list-in
 import type { BoatCard } from '@/lib/server/inspections/load-boat-card';
 import { figureValue } from '@/lib/core/format/figures';
 import { FORMULA_INPUTS } from '@/lib/core/engine/measured-item';
-import { ownValue } from '@/lib/core/inputs/measured-item-rules';
+import { ownValue } from '@/lib/core/inputs/measured-item-terms';
 
 /** The boat being inspected, from the server's card or, offline, from the phone's copy of the board. */
 export type DockTarget = {
@@ -23,6 +23,8 @@ export type DockTarget = {
   isPaid: boolean;
   declaredPowerKw: number;
   powerEvidence: string;
+  /** The boat's declaration version shown on the card (or the phone's copy); the record carries it. */
+  declarationVersion: number | null;
   rules: ClassRules | null;
   ruleVersion: number | null;
   card: BoatCard | null;
@@ -41,6 +43,7 @@ export function targetFromCard(card: BoatCard, fromCache: boolean): DockTarget {
     isPaid: card.entry.isPaid,
     declaredPowerKw: card.boat.declaredPowerKw,
     powerEvidence: card.boat.powerEvidence,
+    declarationVersion: card.boat.declarationVersion ?? null,
     rules: card.ruleVersion?.rules ?? null,
     ruleVersion: card.ruleVersion?.version ?? null,
     card,
@@ -61,6 +64,8 @@ export function targetFromBoardRow(row: BoardRow, board: InspectionBoard): DockT
     isPaid: row.isPaid,
     declaredPowerKw: row.declaredPowerKw,
     powerEvidence: row.powerEvidence,
+    // A phone copy saved before the rows carried it has none: the server then pins as it always did.
+    declarationVersion: row.declarationVersion ?? null,
     rules: cls?.ruleVersion?.rules ?? null,
     ruleVersion: cls?.ruleVersion?.version ?? null,
     card: null,
@@ -218,6 +223,7 @@ export function draftFromForm(
   return {
     idempotencyKey: meta.idempotencyKey,
     entryId: target.entryId,
+    declarationVersion: target.declarationVersion,
     kind: f.kind,
     capturedAt: meta.capturedAt,
     device: meta.device,

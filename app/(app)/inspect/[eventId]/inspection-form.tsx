@@ -9,9 +9,9 @@ import {
   INSPECTION_KIND_LABELS,
   POWER_EVIDENCE_KINDS,
   POWER_EVIDENCE_KIND_WORDS,
-  RecordInspectionInput,
-  type RecordInspectionDraft,
-} from '@/lib/core/inputs/inspections';
+} from '@/lib/core/inputs/inspection-terms';
+import type { RecordInspectionDraft } from '@/lib/core/inputs/inspections';
+import { checkInspectionDraft } from '@/lib/core/inputs/check-inspection-draft';
 import {
   CHECK_AREA_LABELS,
   decideInspection,
@@ -57,7 +57,7 @@ const id = (path: string) => `f-${path.replace(/\./g, '-')}`;
 const select = 'field-input min-h-touch text-xl';
 const check = 'h-7 w-7 shrink-0 accent-tide-600';
 
-/** The record form for one boat. Checks the input with the shared schema before anything is queued. */
+/** The record form for one boat. Checks the input as the server's schema does before anything is queued. */
 export function InspectionForm({
   target,
   instruments,
@@ -80,16 +80,13 @@ export function InspectionForm({
   const scope = task?.checks ?? null;
   const scopeWords = describeScope(scope);
 
-  // The record is checked with the shared schema here, then handed to the dock (saved on the phone first, then sent).
+  // The record is checked here as the server will check it, then handed to the dock (saved on the phone first, then sent).
   const { state, isPending, form } = useFormAction(
     async (): Promise<ActionState> => {
       const draft = draftFromForm(f, target, { idempotencyKey, capturedAt: new Date().toISOString(), device });
-      const parsed = RecordInspectionInput.safeParse(draft);
-      if (!parsed.success) {
-        const out: Record<string, string> = {};
-        for (const i of parsed.error.issues) out[i.path.map(String).join('.')] ??= i.message;
-        return { ok: false, fieldErrors: out };
-      }
+      // The server's schema without zod on the phone (the same fields and messages: see check-inspection-draft.ts).
+      const parsed = checkInspectionDraft(draft);
+      if (!parsed.success) return { ok: false, fieldErrors: parsed.fieldErrors };
       let provisional: InspectionDecision | null = null;
       if (rules) {
         try {

@@ -32,6 +32,8 @@ export type QueuedRecord = {
   lastTriedAt: string | null;
   /** The server's refusal, or why it is still waiting. */
   message: string | null;
+  /** The refusal's code (declaration_changed: the card is out of date). */
+  code?: string;
   fieldErrors: Record<string, string>;
   /** Set once the server has stored the record (photos may still be on their way). */
   inspectionId: string | null;
@@ -114,7 +116,7 @@ export async function sendQueued(record: QueuedRecord): Promise<QueuedRecord> {
       const fieldErrors = answer.ok ? {} : answer.fieldErrors;
       const message =
         Object.values(fieldErrors).join(' ') || (answer.ok ? `Refused (${answer.status}).` : answer.message);
-      r = { ...r, state: 'needs_fix', message, fieldErrors };
+      r = { ...r, state: 'needs_fix', message, fieldErrors, code: answer.ok ? undefined : answer.code };
       await putQueued(r);
       return r;
     }

@@ -1,7 +1,7 @@
 // Under an instrument choice at the dock: each instrument of that quantity that cannot be chosen now
 // (calibration overdue, or out of use after a failed check today), why, and which usable one to take.
 import type { InstrumentView } from '@/lib/server/inspections/list-instruments';
-import { usableAlternatives } from '@/lib/core/inspections/calibration-state';
+import { usableAlternatives } from '@/lib/core/inspections/usable-alternatives';
 
 export function RefusedInstruments({ instruments, testId }: { instruments: InstrumentView[]; testId: string }) {
   const refused = instruments.filter((i) => !i.calibration.usable);

@@ -80,6 +80,7 @@ const card = (over: Partial<BoatCard> = {}): BoatCard => ({
     declaredPowerKw: 239.96,
     powerEvidence: 'dyno sheet',
     declaredWeightKg: null,
+    declarationVersion: 3,
   },
   raceClass: { id: randomUUID(), code: 'TC', name: 'Test class' },
   ruleVersion: { id: randomUUID(), version: 3, effectiveFrom: null, rules: RULES },
@@ -127,6 +128,7 @@ test("a target from the server's card carries the entry, boat, class and rules i
     [ENTRY_ID, 42, 'Test Boat', 'TC', 'Test class', 'confirmed', true, 239.96, 'dyno sheet', 3, false],
   );
   assert.equal(t.rules, RULES);
+  assert.equal(t.declarationVersion, 3, 'the declaration version the card shows');
   assert.ok(t.card);
   const noRules = targetFromCard(card({ ruleVersion: null, isOwnBoat: true }), false);
   assert.equal(noRules.rules, null);
@@ -152,6 +154,7 @@ test("a target from the phone's copy of the board takes the rules of the row's c
     declaredPowerKw: 250,
     powerEvidence: 'invoice',
     declaredWeightKg: null,
+    declarationVersion: 2,
     state: 'waiting',
     latest: null,
     inspectionCount: 0,
@@ -177,6 +180,13 @@ test("a target from the phone's copy of the board takes the rules of the row's c
   assert.equal(t.rules, RULES);
   assert.equal(t.card, null);
   assert.equal(t.isOwnBoat, false);
+  assert.equal(t.declarationVersion, 2, "the row's declaration version");
+  const { declarationVersion: _, ...savedBefore } = row;
+  assert.equal(
+    targetFromBoardRow(savedBefore as BoardRow, board).declarationVersion,
+    null,
+    'a copy saved before rows carried the version: none sent',
+  );
   const orphan = targetFromBoardRow({ ...row, classId: randomUUID() }, board);
   assert.equal(orphan.rules, null, 'a class missing from the copy: no rules');
   assert.equal(orphan.ruleVersion, null);
@@ -243,6 +253,7 @@ test('the form becomes the inspection input: numbers from typed text (a comma is
   const t = targetFromCard(card(), false);
   const d = draftFromForm(filled(t), t, META);
   assert.equal(d.entryId, ENTRY_ID);
+  assert.equal(d.declarationVersion, 3, 'the record says which declaration the card showed');
   assert.equal(d.idempotencyKey, META.idempotencyKey);
   assert.deepEqual(d.nozzle.readings, [
     { diameterMm: 101.93, angleDeg: 0 },

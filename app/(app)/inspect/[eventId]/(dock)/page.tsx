@@ -9,8 +9,15 @@ export const metadata: Metadata = { title: 'Dock inspection' };
 export const dynamic = 'force-dynamic';
 
 // The dock screen for scrutineers of this meeting; it keeps working offline once visited.
-export default async function DockPage({ params }: { params: Promise<{ eventId: string }> }) {
+export default async function DockPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ eventId: string }>;
+  searchParams: Promise<{ race?: string; tag?: string }>;
+}) {
   const { actor, eventId, event } = await openDock(params);
+  const { race, tag } = await searchParams;
   const instruments = await listInstruments(actor, eventId);
   return (
     <div className="space-y-4 text-lg">
@@ -39,6 +46,7 @@ export default async function DockPage({ params }: { params: Promise<{ eventId: 
         actorId={actor.id}
         instruments={instruments}
         canOpenLogbook={can(actor, 'entry.view_all', { eventId })}
+        opensFromLink={Boolean(race || tag)}
       />
     </div>
   );
