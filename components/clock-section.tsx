@@ -1,9 +1,9 @@
 import type { ClockSection as ClockSectionFigures } from '@/lib/core/timing/clock-section';
-import { formatFigure } from '@/lib/core/format/figures';
+import { figureValue } from '@/lib/core/format/figures';
 import { ClockScatter } from './clock-scatter';
 
 const s = (v: number | null, digits = 2) => (v === null ? '—' : v.toFixed(digits));
-const kmh = (ms: number | null) => (ms === null ? '—' : formatFigure(ms * 3.6, 'speedKmh'));
+const kmh = (ms: number | null) => (ms === null ? '—' : figureValue(ms * 3.6, 'speedKmh'));
 const DRAG_WORDS = {
   trap_speed: 'trap speed',
   gps_top_speed: 'GPS top speed',
@@ -72,7 +72,7 @@ export function ClockSection({ section }: { section: ClockSectionFigures & { cla
                   {b.note && <span className="block text-xs">{b.note}</span>}
                 </td>
                 <td className="figure p-2" title={b.massBasis}>
-                  {b.massKg === null ? '—' : formatFigure(b.massKg, 'massKg')}
+                  {b.massKg === null ? '—' : figureValue(b.massKg, 'massKg')}
                   <span className="block text-xs text-ink-soft">{b.massBasis}</span>
                 </td>
                 {b.referenceTimesS.map((t, i) => (
@@ -107,7 +107,7 @@ export function ClockSection({ section }: { section: ClockSectionFigures & { cla
             ))}
           </ul>
         )}
-        <dl className="grid grid-cols-2 gap-x-4 gap-y-1 text-sm sm:grid-cols-3" data-testid="clock-figures">
+        <dl className="grid grid-cols-[1fr_auto] gap-x-4 gap-y-1 text-sm sm:max-w-xl" data-testid="clock-figures">
           <dt>Boats compared</dt>
           <dd className="figure">{c.points.length}</dd>
           <dt>Pearson r</dt>

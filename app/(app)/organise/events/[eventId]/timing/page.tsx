@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { listRunTimes } from '@/lib/server/timing/list-run-times';
 import { SafetyNote } from '@/components/safety-note';
-import { formatFigure } from '@/lib/core/format/figures';
+import { figureValue } from '@/lib/core/format/figures';
 import { openResults } from '../access';
 import { RunTimesImport } from './run-times-import';
 import { RunTimesEntryForm } from './run-times-entry-form';
@@ -10,7 +10,7 @@ import { RunTimesEntryForm } from './run-times-entry-form';
 export const metadata: Metadata = { title: 'Run times' };
 export const dynamic = 'force-dynamic';
 
-const kmh = (ms: number | null) => (ms === null ? '—' : formatFigure(ms * 3.6, 'speedKmh'));
+const kmh = (ms: number | null) => (ms === null ? '—' : figureValue(ms * 3.6, 'speedKmh'));
 
 export default async function TimingPage({ params }: { params: Promise<{ eventId: string }> }) {
   const { actor, eventId } = await openResults(params);

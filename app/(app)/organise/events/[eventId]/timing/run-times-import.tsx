@@ -155,7 +155,7 @@ export function RunTimesImport({ eventId, classes }: { eventId: string; classes:
                     </td>
                     <td className="p-2">{l.run}</td>
                     <td className="figure p-2">{l.elapsed}</td>
-                    <td className={`p-2 ${l.status === 'error' ? 'field-error' : ''}`}>
+                    <td className={`min-w-48 p-2 ${l.status === 'error' ? 'field-error' : ''}`}>
                       <strong>{STATUS_WORDS[l.status]}.</strong> {l.message}
                     </td>
                   </tr>
