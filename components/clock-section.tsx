@@ -1,6 +1,7 @@
 import type { ClockSection as ClockSectionFigures } from '@/lib/core/timing/clock-section';
 import { figureValue } from '@/lib/core/format/figures';
 import { ClockScatter } from './clock-scatter';
+import { ClockLevers } from './clock-levers';
 
 const s = (v: number | null, digits = 2) => (v === null ? '—' : v.toFixed(digits));
 const kmh = (ms: number | null) => (ms === null ? '—' : figureValue(ms * 3.6, 'speedKmh'));
@@ -93,6 +94,7 @@ export function ClockSection({ section }: { section: ClockSectionFigures & { cla
           </tbody>
         </table>
       </div>
+      <ClockLevers section={section} />
       <div className="card space-y-3">
         <h3>Predicted against observed{section.courseLengthM !== null && ` over ${section.courseLengthM} m`}</h3>
         {section.otherCourseRuns > 0 && (

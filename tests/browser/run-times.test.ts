@@ -133,6 +133,12 @@ for (const [name, options] of [
       'nothing makes the page scroll sideways',
     );
     assert.match(await page.getByTestId('clock-figures').innerText(), /Pearson r/);
+    // A power cap below every boat's power: each boat's predicted time changes, the spread line says so.
+    const spread = page.getByTestId('lever-spread');
+    const today = await spread.innerText();
+    await page.getByLabel('Power cap (kW, as a rev limit)').fill('200');
+    await page.waitForFunction((t) => document.querySelector('[data-testid="lever-spread"]')?.textContent !== t, today);
+    assert.match(await spread.innerText(), /s today, [\d.]+ s with these levers/);
     await screenshot(page, `run-times-${name}-02-clock`);
     await expectNoSeriousA11yViolations(page);
     await context.close();

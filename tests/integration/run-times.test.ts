@@ -327,3 +327,16 @@ test('the model against the clock: each boat predicted from its inspection, its 
   assert.ok(data.comparison.pooledRunSpreadS > 0);
   assert.ok(data.worstRelativeAccuracy < 1e-6);
 });
+
+test('the demo seed (an invented scenario) gives the Sprint Sport class two runs per entered boat, once', async () => {
+  const [row] = await query<{ runs: string; boats: string; entered: string }>(
+    `select (select count(*) from run_times r where r.class_id = c.id) as runs,
+            (select count(distinct r.entry_id) from run_times r where r.class_id = c.id) as boats,
+            (select count(*) from entries e where e.class_id = c.id and e.status = 'entered') as entered
+       from race_classes c where c.event_id = $1 and c.code = 'SS'`,
+    [DEMO.meetingId],
+  );
+  assert.ok(Number(row.entered) >= 3);
+  assert.equal(Number(row.boats), Number(row.entered));
+  assert.equal(Number(row.runs), 2 * Number(row.entered));
+});

@@ -40,6 +40,8 @@ export type ClockBoatView = {
   entryId: string;
   raceNumber: number;
   boatName: string;
+  powerKw: number;
+  nozzleDiameterMm: number;
   massKg: number | null;
   massBasis: string;
   dragK: number | null;
@@ -64,6 +66,8 @@ export type ClockSection = {
   boats: ClockBoatView[];
   comparison: ClockComparison;
   thrustModel: 'fixed_power';
+  /** The water and loss model the thrust came from (the class's parity assumptions), for what-if levers. */
+  model: ClockSectionInput['model'];
   assumptions: typeof CLOCK_ASSUMPTIONS;
   /** Largest relative accuracy the integrator reached over the boats (step-halving check). */
   worstRelativeAccuracy: number | null;
@@ -138,7 +142,14 @@ export function computeClockSection(input: ClockSectionInput): ClockSection {
   const boats: ClockBoatView[] = input.boats.map((b) => {
     const thrust = thrusts.get(b.entryId)!;
     const observedS = onCourse.filter((r) => r.entryId === b.entryId).map((r) => r.elapsedS);
-    const base = { entryId: b.entryId, raceNumber: b.raceNumber, boatName: b.boatName, observedS };
+    const base = {
+      entryId: b.entryId,
+      raceNumber: b.raceNumber,
+      boatName: b.boatName,
+      powerKw: b.powerKw,
+      nozzleDiameterMm: b.nozzleDiameterMm,
+      observedS,
+    };
     const weighed = b.measuredWeightKg;
     const hull = weighed ?? input.minimumWeightKg;
     const massKg = hull === null ? null : hull + A.crewKg + A.fuelKg;
@@ -222,6 +233,7 @@ export function computeClockSection(input: ClockSectionInput): ClockSection {
     boats,
     comparison,
     thrustModel: 'fixed_power',
+    model: input.model,
     assumptions: A,
     worstRelativeAccuracy: worst,
   };

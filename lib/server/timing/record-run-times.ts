@@ -65,7 +65,11 @@ async function storeRuns(
   const { sequelize, models } = getDb();
   try {
     return await sequelize.transaction(async (transaction) => {
-      await models.RaceClass.findOne({ where: { id: classId, eventId }, lock: transaction.LOCK.UPDATE, transaction });
+      const cls = await models.RaceClass.findOne({
+        where: { id: classId, eventId },
+        lock: transaction.LOCK.UPDATE,
+        transaction,
+      });
       const { views, plan } = await checkRunLines(eventId, classId, courseLengthM, lines, transaction);
       if (views.some((v) => v.status === 'error')) throw refusal(source, views);
       if (plan.length)
@@ -105,6 +109,7 @@ async function storeRuns(
             action: 'results.run_times_recorded',
             details: {
               classId,
+              classCode: cls?.code ?? '',
               source,
               stored: outcome.stored,
               corrected,
