@@ -35,7 +35,8 @@ export function ClockLevers({ section }: { section: ClockSection }) {
       <p className="text-sm">
         Try a rule change and see each boat&apos;s predicted time move. Each boat keeps its own drag; the thrust is the
         fixed-power model&apos;s, so an impeller change (which needs the engine-and-pump model) is not offered yet. A
-        suggestion for the rule makers, not a ruling.
+        suggestion for the rule makers, not a ruling: a boat&apos;s gap to the median is only worth equalising when it
+        is larger than its uncertainty (from its power, nozzle and weighing; the assumed crew and fuel are not in it).
       </p>
       <div className="grid gap-2 sm:grid-cols-3">
         {fields.map((f) => (
@@ -68,7 +69,7 @@ export function ClockLevers({ section }: { section: ClockSection }) {
                 <th className="p-2">With levers (s)</th>
                 <th className="p-2">Change (s)</th>
                 <th className="p-2">Ballast (kg)</th>
-                <th className="p-2">From the median (s)</th>
+                <th className="p-2">From the median (s, ± U at k = 2)</th>
               </tr>
             </thead>
             <tbody>
@@ -80,7 +81,12 @@ export function ClockLevers({ section }: { section: ClockSection }) {
                   <td className="figure p-2">{b.afterS.toFixed(2)}</td>
                   <td className="figure p-2">{signed(b.deltaS)}</td>
                   <td className="figure p-2">{b.ballastKg.toFixed(0)}</td>
-                  <td className="figure p-2">{signed(b.fromMedianS)}</td>
+                  <td className="figure p-2">
+                    {signed(b.fromMedianS)}
+                    {b.expandedUncertaintyS !== null && b.expandedUncertaintyS > 0 && (
+                      <span className="block text-xs text-ink-soft">± {b.expandedUncertaintyS.toFixed(2)}</span>
+                    )}
+                  </td>
                 </tr>
               ))}
             </tbody>

@@ -81,7 +81,12 @@ export function ClockSection({ section }: { section: ClockSectionFigures & { cla
                     {s(t)}
                   </td>
                 ))}
-                <td className="figure p-2">{s(b.courseTimeS)}</td>
+                <td className="figure p-2">
+                  {s(b.courseTimeS)}
+                  {b.uTimeS !== null && b.uTimeS > 0 && (
+                    <span className="block text-xs text-ink-soft">± {(2 * b.uTimeS).toFixed(2)} (U, k = 2)</span>
+                  )}
+                </td>
                 <td className="figure p-2">{kmh(b.topSpeedMs)}</td>
                 <td className="figure p-2">{s(b.thrustToWeight)}</td>
                 <td className="figure p-2">{s(b.powerToWeightKwPerT, 0)}</td>

@@ -26,6 +26,8 @@ export type LeverBoat = {
   ballastKg: number;
   /** Seconds from the class median predicted time after the levers (positive: slower than the median). */
   fromMedianS: number;
+  /** Expanded uncertainty (k = 2) of today's predicted time, from the boat's power, nozzle and mass; null: unknown. */
+  expandedUncertaintyS: number | null;
 };
 
 export type LeverOutcome = {
@@ -70,6 +72,7 @@ export function applyBalanceLevers(section: ClockSection, levers: BalanceLevers)
       afterS: after,
       deltaS: after - before,
       ballastKg,
+      expandedUncertaintyS: b.uTimeS === null ? null : 2 * b.uTimeS,
     });
   }
   const mid = boats.length ? median(boats.map((b) => b.afterS)) : 0;

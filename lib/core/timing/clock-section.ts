@@ -25,6 +25,9 @@ export type ClockBoat = {
   nozzleDiameterMm: number;
   /** Weighed at the inspection the figures come from; null when not weighed. */
   measuredWeightKg: number | null;
+  /** Standard uncertainties (k = 1) of power and nozzle diameter, as the parity report carries them; absent: 0. */
+  uPowerKw?: number;
+  uNozzleDiameterMm?: number;
 };
 
 export type ClockRun = {
@@ -51,6 +54,12 @@ export type ClockBoatView = {
   /** Times to the reference distances, then to the course (s). */
   referenceTimesS: (number | null)[];
   courseTimeS: number | null;
+  /**
+   * Standard uncertainty (k = 1) of the course time (or the last reference distance's without a course) from the
+   * boat's power, nozzle and mass uncertainties, first order with central differences through the whole
+   * procedure, drag refitted (JCGM 100:2008, 5.1.2 and 5.1.3). The crew and fuel assumptions are not in it.
+   */
+  uTimeS: number | null;
   topSpeedMs: number | null;
   thrustToWeight: number | null;
   powerToWeightKwPerT: number | null;
@@ -79,6 +88,8 @@ export type ClockSectionInput = {
   excluded: { entryId: string; raceNumber: number; boatName: string; reason: string }[];
   runs: ClockRun[];
   minimumWeightKg: number | null;
+  /** Standard uncertainty of a weighing (kg, k = 1): the class's default U / 2. */
+  uWeightKg: number;
   model: {
     densityKgM3: number;
     pumpEfficiency: number;
@@ -188,6 +199,7 @@ export function computeClockSection(input: ClockSectionInput): ClockSection {
       observedTopSpeedMs: own?.speed ?? null,
       referenceTimesS: A.referenceDistancesM.map(() => null),
       courseTimeS: null,
+      uTimeS: null,
       topSpeedMs: null,
       thrustToWeight: null,
       powerToWeightKwPerT: null,
@@ -197,8 +209,30 @@ export function computeClockSection(input: ClockSectionInput): ClockSection {
     if (dragK === null) return { ...empty, note: 'No drag could be set: no prediction' };
     const p = predictRun({ thrustN: thrust, powerKw: b.powerKw, massKg, dragK, distancesM: distances });
     worst = Math.max(worst ?? 0, p.relativeAccuracy);
+    // The time to the last distance as a function of power, nozzle and mass, the drag refitted as above.
+    const last = distances[distances.length - 1];
+    const timeWith = (powerKw: number, nozzleDiameterMm: number, mass: number) => {
+      const t = fixedPowerThrust({ ...input.model, powerKw, nozzleDiameterMm });
+      const k = own && own.k !== null ? fitQuadraticDragK(t, own.speed) : dragK;
+      if (k === null) return null;
+      return predictRun({ thrustN: t, powerKw, massKg: mass, dragK: k, distancesM: [last] }).timesS[0];
+    };
+    const sensitivity = (u: number, f: (h: number) => number | null) => {
+      if (!(u > 0)) return 0;
+      const up = f(u);
+      const down = f(-u);
+      return up === null || down === null ? NaN : (up - down) / 2;
+    };
+    const uMass = b.measuredWeightKg !== null ? input.uWeightKg : 0;
+    const parts = [
+      sensitivity(b.uPowerKw ?? 0, (h) => timeWith(b.powerKw + h, b.nozzleDiameterMm, massKg)),
+      sensitivity(b.uNozzleDiameterMm ?? 0, (h) => timeWith(b.powerKw, b.nozzleDiameterMm + h, massKg)),
+      sensitivity(uMass, (h) => timeWith(b.powerKw, b.nozzleDiameterMm, massKg + h)),
+    ];
+    const uTimeS = parts.some(Number.isNaN) ? null : Math.sqrt(parts.reduce((a, x) => a + x * x, 0));
     return {
       ...empty,
+      uTimeS,
       referenceTimesS: p.timesS.slice(0, A.referenceDistancesM.length),
       courseTimeS: courseLengthM !== null ? p.timesS[A.referenceDistancesM.length] : null,
       topSpeedMs: p.topSpeedMs,

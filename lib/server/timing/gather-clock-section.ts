@@ -39,10 +39,13 @@ export async function gatherClockSection(
       powerKw: b.powerKw,
       nozzleDiameterMm: b.nozzleDiameterMm,
       measuredWeightKg: b.measuredWeightKg ?? null,
+      uPowerKw: b.uPowerKw,
+      uNozzleDiameterMm: b.uNozzleDiameterMm,
     })),
     excluded: inputs.excluded,
     runs,
     minimumWeightKg: rules.rules.weight.minKg,
+    uWeightKg: rules.rules.weight.defaultUncertaintyKg / 2, // the class default is an expanded U (k = 2)
     model: {
       densityKgM3: inputs.density.densityKgM3,
       pumpEfficiency: inputs.assumptions.pumpEfficiency,

@@ -27,6 +27,7 @@ const section = computeClockSection({
     gpsTopSpeedMs: 31,
   })),
   minimumWeightKg: null,
+  uWeightKg: 0.5,
   model,
 });
 

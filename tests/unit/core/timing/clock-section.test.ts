@@ -35,6 +35,7 @@ test('drag basis per boat: own GPS speed, own trap speed, else the class median 
     excluded: [],
     runs: [run('a', 40, { gps: 30, trap: 28 }), run('b', 41, { trap: 29 }), run('c', 42), run('c', 20, {}, 200)],
     minimumWeightKg: 680,
+    uWeightKg: 0.5,
     model,
   });
   const [a, b, c] = s.boats;
@@ -59,6 +60,7 @@ test('no speed anywhere in the class: an assumed top speed, said so; no weight a
     excluded: [{ entryId: 'x', raceNumber: 9, boatName: 'Boat 9', reason: 'Not inspected yet' }],
     runs: [run('a', 40), run('x', 39)],
     minimumWeightKg: null,
+    uWeightKg: 0.5,
     model,
   });
   assert.match(s.boats[0].dragNote, /assumed 108 km\/h top speed/);
@@ -70,4 +72,22 @@ test('no speed anywhere in the class: an assumed top speed, said so; no weight a
     ['No run time', 'Not inspected yet'],
   );
   assert.match(s.comparison.notes.join(' '), /Only 1 boat has both a prediction and a run time/);
+});
+
+test("a boat's time uncertainty: zero without input uncertainties, else the first-order propagation (JCGM 100:2008, 5.1.2)", () => {
+  const input = (uPowerKw: number) => ({
+    boats: [{ ...boat('a', 1, 700), uPowerKw, uNozzleDiameterMm: 0 }],
+    excluded: [],
+    runs: [run('a', 40, { gps: 30 })],
+    minimumWeightKg: null,
+    uWeightKg: 0,
+    model,
+  });
+  assert.equal(computeClockSection(input(0)).boats[0].uTimeS, 0);
+  const u = computeClockSection(input(5)).boats[0].uTimeS!;
+  // The same sensitivity by a much smaller central difference through the same procedure (drag refitted at 30 m/s).
+  const time = (powerKw: number) =>
+    computeClockSection({ ...input(0), boats: [{ ...boat('a', 1, 700), powerKw }] }).boats[0].courseTimeS!;
+  const slope = (time(250.05) - time(249.95)) / 0.1;
+  assert.ok(u > 0 && Math.abs(u - Math.abs(slope) * 5) / u < 0.01, `${u} vs ${Math.abs(slope) * 5}`);
 });
