@@ -10,6 +10,7 @@ import { Instrument, Inspection, InspectionPhoto, Reinspection, initInspections 
 import { CalibrationCertificate, InstrumentCheck, initInstrumentCalibration } from './instrument-calibration';
 import { ParityReport, initParityReports } from './parity-report';
 import { ProvisionalResults, initProvisionalResults } from './provisional-results';
+import { RunTime, initRunTimes } from './run-time';
 import { Protest, ProtestEvidence, initProtests } from './protest';
 import { AuditEvent, initAuditEvents } from './audit-event';
 import { MailOutbox, initMailOutbox } from './mail-outbox';
@@ -39,6 +40,7 @@ export function initModels(sequelize: Sequelize) {
   initInstrumentCalibration(sequelize);
   initParityReports(sequelize);
   initProvisionalResults(sequelize);
+  initRunTimes(sequelize);
   initProtests(sequelize);
   initAuditEvents(sequelize);
   initCustody(sequelize);
@@ -126,6 +128,7 @@ export function initModels(sequelize: Sequelize) {
     Reinspection,
     ParityReport,
     ProvisionalResults,
+    RunTime,
     Protest,
     ProtestEvidence,
     AuditEvent,
@@ -171,6 +174,7 @@ export {
   Reinspection,
   ParityReport,
   ProvisionalResults,
+  RunTime,
   Protest,
   ProtestEvidence,
   AuditEvent,

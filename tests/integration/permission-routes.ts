@@ -458,6 +458,31 @@ export const ROUTES: Row[] = [
     path: (i) => `${ev(i)}/results`,
     access: { anyOf: ['results.publish'] },
   },
+  // Run times from the timing sheet and the model against the clock (organisers, as results)
+  {
+    method: 'GET',
+    file: `${E}/run-times/route.ts`,
+    path: (i) => `${ev(i)}/run-times`,
+    access: { anyOf: ['results.publish'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/run-times/route.ts`,
+    path: (i) => `${ev(i)}/run-times`,
+    access: { anyOf: ['results.publish'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/run-times/preview/route.ts`,
+    path: (i) => `${ev(i)}/run-times/preview`,
+    access: { anyOf: ['results.publish'] },
+  },
+  {
+    method: 'GET',
+    file: `${E}/classes/[classId]/clock/route.ts`,
+    path: (i) => `${ev(i)}/classes/${i.classId}/clock`,
+    access: { anyOf: ['results.publish'] },
+  },
   { method: 'GET', file: `${E}/protests/route.ts`, path: (i) => `${ev(i)}/protests`, access: 'signed-in' },
   {
     method: 'POST',

@@ -209,6 +209,14 @@ export function describeAuditEvent(line: AuditLine, ctx: AuditContext): Segment[
       );
       break;
     }
+    case 'results.run_times_recorded': {
+      t(`${actor} stored run times of `);
+      classLink(r.class ?? (d.classId ? { id: str(d.classId), code: str(d.classCode) } : null));
+      t(
+        ` (${str(d.stored)} new, ${str(d.corrected)} corrected, ${str(d.unchanged)} already stored; ${d.source === 'csv' ? 'from a CSV file' : 'typed in'}).`,
+      );
+      break;
+    }
     case 'inspection.recorded':
     case 'inspection.corrected':
     case 'inspection.reinspected': {

@@ -33,6 +33,12 @@ export default async function EventPage({ params }: { params: Promise<{ eventId:
           <Link href={`/organise/events/${event.id}/results`} className="btn-secondary">
             Provisional results
           </Link>
+          <Link href={`/organise/events/${event.id}/timing`} className="btn-secondary">
+            Run times
+          </Link>
+          <Link href={`/organise/events/${event.id}/clock`} className="btn-secondary">
+            Model against the clock
+          </Link>
           <Link href={`/stewards/${event.id}/audit`} className="btn-secondary">
             Audit trail
           </Link>

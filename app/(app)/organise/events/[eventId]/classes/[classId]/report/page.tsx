@@ -10,6 +10,7 @@ import { SafetyNote } from '@/components/safety-note';
 import { openClassReport } from '../../../access';
 import { PublishReportForm } from './publish-report-form';
 import { WhatIfSandbox } from './what-if-sandbox';
+import { ClockLink } from '@/components/clock-link';
 
 export const metadata: Metadata = { title: 'Parity report (draft)' };
 
@@ -50,6 +51,7 @@ export default async function DraftReportPage({ params }: { params: Promise<{ ev
       <ParityReport inputs={draft.inputs} results={draft.results} />
       <ModelAssumptions inputs={draft.inputs} />
       <WhatIfSandbox eventId={eventId} classId={classId} inputs={draft.inputs} rules={inForce.rules} />
+      <ClockLink eventId={eventId} classId={classId} />
       <section className="card space-y-3" aria-labelledby="publish">
         <h2 id="publish" className="text-xl">
           Publish

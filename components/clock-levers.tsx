@@ -1,0 +1,98 @@
+'use client';
+
+import { useMemo, useState } from 'react';
+import { applyBalanceLevers, type BalanceLevers } from '@/lib/core/timing/balance-levers';
+import type { ClockSection } from '@/lib/core/timing/clock-section';
+import { numberOrNull } from '@/lib/core/inputs/form-values';
+
+const toLever = (text: string) => {
+  const v = text.trim() === '' ? null : numberOrNull(text);
+  return v !== null && v > 0 && Number.isFinite(v) ? v : null;
+};
+const s2 = (v: number | null) => (v === null ? '—' : v.toFixed(2));
+const signed = (v: number) => `${v >= 0 ? '+' : '−'}${Math.abs(v).toFixed(2)}`;
+
+/** What-if levers in seconds over the course, worked out in the browser from the section's own figures. */
+export function ClockLevers({ section }: { section: ClockSection }) {
+  const [text, setText] = useState({ nozzleCapMm: '', minimumMassKg: '', powerCapKw: '' });
+  const levers: BalanceLevers = {
+    nozzleCapMm: toLever(text.nozzleCapMm),
+    minimumMassKg: toLever(text.minimumMassKg),
+    powerCapKw: toLever(text.powerCapKw),
+  };
+  const key = JSON.stringify(levers);
+  // eslint-disable-next-line react-hooks/exhaustive-deps
+  const outcome = useMemo(() => applyBalanceLevers(section, levers), [section, key]);
+  const fields: { name: keyof typeof text; label: string }[] = [
+    { name: 'nozzleCapMm', label: 'Nozzle restrictor (mm, largest allowed)' },
+    { name: 'minimumMassKg', label: 'Minimum all-up mass (kg, ballast up to it)' },
+    { name: 'powerCapKw', label: 'Power cap (kW, as a rev limit)' },
+  ];
+  const distance = section.courseLengthM ?? section.assumptions.referenceDistancesM.at(-1);
+  return (
+    <section className="card space-y-3" aria-labelledby="levers-heading" data-testid="clock-levers">
+      <h3 id="levers-heading">Balance levers in seconds ({distance} m)</h3>
+      <p className="text-sm">
+        Try a rule change and see each boat&apos;s predicted time move. Each boat keeps its own drag; the thrust is the
+        fixed-power model&apos;s, so an impeller change (which needs the engine-and-pump model) is not offered yet. A
+        suggestion for the rule makers, not a ruling: a boat&apos;s gap to the median is only worth equalising when it
+        is larger than its uncertainty (from its power, nozzle and weighing; the assumed crew and fuel are not in it).
+      </p>
+      <div className="grid gap-2 sm:grid-cols-3">
+        {fields.map((f) => (
+          <div key={f.name}>
+            <label htmlFor={`lever-${f.name}`} className="field-label">
+              {f.label}
+            </label>
+            <input
+              id={`lever-${f.name}`}
+              inputMode="decimal"
+              className="field-input"
+              value={text[f.name]}
+              onChange={(e) => setText((t) => ({ ...t, [f.name]: e.target.value }))}
+            />
+          </div>
+        ))}
+      </div>
+      <p className="font-bold" data-testid="lever-spread" aria-live="polite">
+        Class spread of predicted times: {s2(outcome.spreadBeforeS)} s today, {s2(outcome.spreadAfterS)} s with these
+        levers.
+      </p>
+      {outcome.boats.length > 0 && (
+        <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Each boat with the levers">
+          <table className="w-full text-left text-sm">
+            <thead className="bg-paper-deep">
+              <tr>
+                <th className="p-2">No.</th>
+                <th className="p-2">Boat</th>
+                <th className="p-2">Today (s)</th>
+                <th className="p-2">With levers (s)</th>
+                <th className="p-2">Change (s)</th>
+                <th className="p-2">Ballast (kg)</th>
+                <th className="p-2">From the median (s, ± U at k = 2)</th>
+              </tr>
+            </thead>
+            <tbody>
+              {outcome.boats.map((b) => (
+                <tr key={b.entryId} className="border-t border-paper-line">
+                  <td className="figure p-2">{b.raceNumber}</td>
+                  <td className="p-2">{b.boatName}</td>
+                  <td className="figure p-2">{b.beforeS.toFixed(2)}</td>
+                  <td className="figure p-2">{b.afterS.toFixed(2)}</td>
+                  <td className="figure p-2">{signed(b.deltaS)}</td>
+                  <td className="figure p-2">{b.ballastKg.toFixed(0)}</td>
+                  <td className="figure p-2">
+                    {signed(b.fromMedianS)}
+                    {b.expandedUncertaintyS !== null && b.expandedUncertaintyS > 0 && (
+                      <span className="block text-xs text-ink-soft">± {b.expandedUncertaintyS.toFixed(2)}</span>
+                    )}
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+    </section>
+  );
+}

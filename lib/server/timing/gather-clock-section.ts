@@ -1,0 +1,58 @@
+import 'server-only';
+import { QueryTypes } from 'sequelize';
+import { getDb } from '@/lib/server/db';
+import { assertCan, type Actor } from '@/lib/server/auth/actor';
+import { AppError } from '@/lib/core/errors';
+import { findRulesInForce } from '@/lib/server/classes/rule-versions';
+import { gatherReportInputs } from '@/lib/server/reports/gather-report-inputs';
+import { computeClockSection, type ClockRun, type ClockSection } from '@/lib/core/timing/clock-section';
+
+export type ClockSectionView = ClockSection & { classId: string; classCode: string; className: string };
+
+/**
+ * A class's model against the clock, for the meeting's organisers: each boat's figures exactly as the parity
+ * report reads them (the current conforming inspection: power confirmed, nozzle measured, weight weighed),
+ * its current runs, and the comparison. A class without rules in force has no model: 409, as the report.
+ */
+export async function gatherClockSection(
+  actor: Actor | null,
+  eventId: string,
+  classId: string,
+): Promise<ClockSectionView> {
+  assertCan(actor, 'results.publish', { eventId });
+  const inputs = await gatherReportInputs(eventId, classId);
+  const rules = await findRulesInForce(classId);
+  if (!rules) throw new AppError('conflict', 409, 'This class has no published rules in force.');
+  const runs = await getDb().sequelize.query<ClockRun>(
+    `select r.entry_id as "entryId", r.run_label as "runLabel", r.course_length_m as "courseLengthM", r.elapsed_s as "elapsedS",
+            r.trap_speed_ms as "trapSpeedMs", r.gps_top_speed_ms as "gpsTopSpeedMs"
+       from run_times r
+      where r.event_id = :eventId and r.class_id = :classId
+        and not exists (select 1 from run_times c where c.supersedes_id = r.id)`,
+    { replacements: { eventId, classId }, type: QueryTypes.SELECT },
+  );
+  const section = computeClockSection({
+    boats: inputs.boats.map((b) => ({
+      entryId: b.entryId,
+      raceNumber: b.raceNumber,
+      boatName: b.boatName,
+      powerKw: b.powerKw,
+      nozzleDiameterMm: b.nozzleDiameterMm,
+      measuredWeightKg: b.measuredWeightKg ?? null,
+      uPowerKw: b.uPowerKw,
+      uNozzleDiameterMm: b.uNozzleDiameterMm,
+    })),
+    excluded: inputs.excluded,
+    runs,
+    minimumWeightKg: rules.rules.weight.minKg,
+    uWeightKg: rules.rules.weight.defaultUncertaintyKg / 2, // the class default is an expanded U (k = 2)
+    model: {
+      densityKgM3: inputs.density.densityKgM3,
+      pumpEfficiency: inputs.assumptions.pumpEfficiency,
+      nozzleLossCoefficient: inputs.assumptions.nozzleLossCoefficient,
+      inletLossCoefficient: inputs.assumptions.inletLossCoefficient,
+      wakeFraction: inputs.assumptions.wakeFraction,
+    },
+  });
+  return { ...section, classId, classCode: inputs.classCode, className: inputs.className };
+}
