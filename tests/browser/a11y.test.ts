@@ -153,6 +153,8 @@ test('organiser, steward and administrator pages: no serious or critical axe-cor
         { path: `/organise/events/${e}` },
         { path: `/organise/events/${e}/entries` },
         { path: `/organise/events/${e}/results` },
+        { path: `/organise/events/${e}/timing` },
+        { path: `/organise/events/${e}/clock` },
         { path: `/organise/events/${e}/classes/${classId}` },
         { path: `/organise/events/${e}/classes/${classId}/report`, chart: 'chart-thrust-curves' },
       ],
