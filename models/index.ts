@@ -13,6 +13,7 @@ import { ProvisionalResults, initProvisionalResults } from './provisional-result
 import { Protest, ProtestEvidence, initProtests } from './protest';
 import { AuditEvent, initAuditEvents } from './audit-event';
 import { MailOutbox, initMailOutbox } from './mail-outbox';
+import { PumpCatalogueEntry, initPumpCatalogue } from './pump-catalogue';
 import { CustodyItem, CustodyRelease, initCustody } from './custody';
 import { OfficialInterest, OfficialInterestWithdrawal, initOfficialInterests } from './official-interest';
 import {
@@ -45,6 +46,7 @@ export function initModels(sequelize: Sequelize) {
   initOfficialInterests(sequelize);
   initBoatRecord(sequelize);
   initMailOutbox(sequelize);
+  initPumpCatalogue(sequelize);
 
   Account.belongsTo(User, { foreignKey: 'userId' });
   Session.belongsTo(User, { foreignKey: 'userId' });
@@ -141,6 +143,7 @@ export function initModels(sequelize: Sequelize) {
     SealEvent,
     BoatLogNote,
     MailOutbox,
+    PumpCatalogueEntry,
   };
 }
 
@@ -186,4 +189,5 @@ export {
   SealEvent,
   BoatLogNote,
   MailOutbox,
+  PumpCatalogueEntry,
 };

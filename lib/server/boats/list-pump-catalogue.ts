@@ -1,0 +1,48 @@
+import 'server-only';
+import { QueryTypes } from 'sequelize';
+import { FROM_REPLICA, getDb } from '@/lib/server/db';
+import { assertCan, type Actor } from '@/lib/server/auth/actor';
+import type { PumpCatalogueEntry } from '@/models';
+import type { StoredPumpCurvePoint } from '@/models/shapes/boat-performance';
+
+export type PumpCatalogueView = {
+  id: string;
+  eventId: string;
+  eventName: string;
+  maker: string;
+  model: string;
+  trimCode: string;
+  impellerDiameterMm: number;
+  curve: StoredPumpCurvePoint[];
+  createdAt: string;
+};
+
+export const toCatalogueView = (e: PumpCatalogueEntry, eventName: string): PumpCatalogueView => ({
+  id: e.id,
+  eventId: e.eventId,
+  eventName,
+  maker: e.maker,
+  model: e.model,
+  trimCode: e.trimCode,
+  impellerDiameterMm: e.impellerDiameterMm,
+  curve: e.curve,
+  createdAt: new Date(e.createdAt).toISOString(),
+});
+
+/**
+ * Impeller models and trims the meetings' organisers entered (a maker's published curves, open to
+ * anyone signed in so an entrant can choose one), newest first; one meeting's when eventId is given.
+ */
+export async function listPumpCatalogue(actor: Actor | null, eventId?: string): Promise<PumpCatalogueView[]> {
+  assertCan(actor, 'boat.manage_own');
+  const rows = await getDb().sequelize.query<Omit<PumpCatalogueView, 'createdAt'> & { createdAt: Date }>(
+    `select p.id, p.event_id as "eventId", ev.name as "eventName", p.maker, p.model, p.trim_code as "trimCode",
+            p.impeller_diameter_mm as "impellerDiameterMm", p.curve, p.created_at as "createdAt"
+       from pump_catalogue_entries p join events ev on ev.id = p.event_id
+      where (cast(:eventId as uuid) is null or p.event_id = cast(:eventId as uuid))
+      order by p.created_at desc
+      limit 500`,
+    { replacements: { eventId: eventId ?? null }, type: QueryTypes.SELECT, ...FROM_REPLICA },
+  );
+  return rows.map((r) => ({ ...r, createdAt: new Date(r.createdAt).toISOString() }));
+}
