@@ -1,8 +1,8 @@
-// The boat page's engine and pump form as plain data: curve points typed one a line become the
-// request body of PUT /api/boats/:boatId/performance, and the server's field errors ("engine.curve.1.rpm")
-// are shown beside the box they came from. Pure (tested in tests/unit/app/boats/).
+// Curve points typed one a line (the boat page's engine and pump form, the organiser's pump catalogue)
+// become numbers for the request body, and the server's field errors ("engine.curve.1.rpm") are shown
+// beside the box they came from. Pure: runs in the browser and in tests.
 
-import type { FieldErrors } from '@/components/forms/request-json';
+type FieldErrors = Record<string, string>;
 
 export type CurveText = { ok: true; points: number[][] } | { ok: false; message: string };
 

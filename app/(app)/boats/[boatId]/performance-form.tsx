@@ -8,7 +8,7 @@ import { CHECK_FIELDS_MESSAGE, refusalState, requestJson, type FormState } from 
 import { useFormAction } from '@/components/forms/use-form-action';
 import { ENGINE_CURVE_SHAPES, ENGINE_CURVE_SHAPE_LABELS } from '@/lib/core/engine/engine-curve-shapes';
 import type { StoredBoatPerformance } from '@/lib/core/boats/declared-performance';
-import { curveToText, fieldErrorsByBox, parseCurveText } from './performance-model';
+import { curveToText, fieldErrorsByBox, parseCurveText } from '@/lib/core/boats/curve-text';
 
 // The owner's engine curve, pump characteristic and inlet data (PUT /api/boats/:boatId/performance).
 // Curve points are typed one a line; the server checks them with the matched calculator's own rules

@@ -1,6 +1,6 @@
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { curveToText, fieldErrorsByBox, parseCurveText } from '../../../../app/(app)/boats/[boatId]/performance-model';
+import { curveToText, fieldErrorsByBox, parseCurveText } from '../../../../lib/core/boats/curve-text';
 
 // Wording and parsing only: no reference values.
 
