@@ -222,6 +222,8 @@ export function ModelAssumptions({ inputs }: { inputs: ReportInputs }) {
         Water: {inputs.density.description} ({inputs.density.densityKgM3.toFixed(4)} kg/m³). Each boat&apos;s nozzle is
         the area-equivalent diameter of its latest conforming inspection&apos;s two-point readings at 20 °C; power is
         the declared figure (✓ where the scrutineer saw the evidence). Class rules version {inputs.ruleVersion.version}.
+        {a.reportModel === 'matched' &&
+          ' This class chose the matched model: a boat with both curves declared is figured where its engine and pump settle instead (see “Model per boat”).'}
       </p>
     </section>
   );

@@ -6,7 +6,8 @@ import assert from 'node:assert/strict';
 import { randomBytes } from 'node:crypto';
 import type { Browser } from 'playwright-core';
 import { launchBrowser, newContext, screenshot, signInWithPassword, PHONE } from '../support/browser';
-import { uniqueEmail } from '../support/env';
+import { DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
+import { expectNoSeriousA11yViolations } from '../support/a11y';
 import { HttpSession } from '../support/http-session';
 import { InspectionMeeting, rulesWith, type TestEntry } from '../support/inspection-meeting';
 
@@ -61,6 +62,8 @@ test('an owner declares the engine curve and a catalogue impeller on a phone', a
     .getByText(/^Point 2: rpm must increase/)
     .waitFor();
   assert.equal(await form.getByLabel('Engine curve').inputValue(), '6000 280\n5000 220\n7000 300');
+  // axe-core (WCAG 2.2 AA tags) on the open form with its error showing.
+  await expectNoSeriousA11yViolations(page, 'boat page, curves form with an error');
 
   await form.getByLabel('Engine curve').fill('5000 220\n6000 280\n7000 300');
   await form.getByRole('button', { name: 'Save the curves' }).click();
@@ -76,5 +79,27 @@ test('an owner declares the engine curve and a catalogue impeller on a phone', a
   // No sideways scrolling on a phone.
   assert.ok(await page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth + 1));
   await screenshot(page, 'declared-curves-phone');
+  await ctx.close();
+});
+
+test('the organiser adds an impeller to the meeting’s catalogue on a phone; a bad curve line is named', async () => {
+  const ctx = await newContext(browser, PHONE);
+  const page = await ctx.newPage();
+  await signInWithPassword(page, DEMO.organiser, DEMO_PASSWORD);
+  await page.goto(`/organise/events/${meeting.eventId}`);
+  const form = page.getByRole('form', { name: 'Add an impeller to the catalogue' });
+  await form.getByLabel('Maker').fill(`Phone Jets ${run}`);
+  await form.getByLabel('Impeller model').fill('Axial 180');
+  await form.getByLabel('Impeller diameter').fill('180');
+  await form.getByLabel('Pump curve').fill('0.1 5 0.8\n0.2 four 0.9');
+  await form.getByRole('button', { name: 'Add to the catalogue' }).click();
+  await form.locator('[data-field-error="curve"]').getByText('Line 2:', { exact: false }).waitFor();
+  assert.equal(await form.getByLabel('Maker').inputValue(), `Phone Jets ${run}`);
+  await form.getByLabel('Pump curve').fill('0.1 5 0.8\n0.2 4 0.9');
+  await form.getByRole('button', { name: 'Add to the catalogue' }).click();
+  await page.getByTestId('catalogue-message').getByText('Added to the catalogue').waitFor();
+  await page.getByTestId('pump-catalogue').getByText(`Phone Jets ${run} Axial 180`).waitFor();
+  assert.ok(await page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth + 1));
+  await expectNoSeriousA11yViolations(page, 'organiser meeting page with the pump catalogue');
   await ctx.close();
 });

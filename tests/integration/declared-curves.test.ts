@@ -208,3 +208,17 @@ test('a curve changed after a conforming inspection flags re-inspection with wha
   assert.ok(task, 'a re-inspection task is open');
   assert.match(task.reason, /engine and pump curves .* → engine 320 kW at 7000 rpm \(spark ignition\)/);
 });
+
+test('a meeting still in draft keeps its catalogue (and its name) from entrants; its organiser still sees it', async () => {
+  await query(`update events set status = 'draft' where id = $1`, [meeting.eventId]);
+  try {
+    const path = `/api/events/${meeting.eventId}/pump-catalogue`;
+    const byEntrant = await owner.fetch(path);
+    assert.equal(byEntrant.status, 200);
+    assert.deepEqual((await byEntrant.json()).data, []);
+    const byOrganiser = await meeting.organiser.fetch(path);
+    assert.equal(((await byOrganiser.json()).data as unknown[]).length, 1);
+  } finally {
+    await query(`update events set status = 'entries_open' where id = $1`, [meeting.eventId]);
+  }
+});

@@ -233,7 +233,7 @@ export async function buildReportPdf(r: PublishedReportDto, timeZone = 'UTC'): P
   ctx.y -= 4;
   wrap(
     ctx,
-    `Model: momentum theory of a water jet at fixed shaft power with pump efficiency ${a.pumpEfficiency}, nozzle loss ${a.nozzleLossCoefficient}, inlet loss ${a.inletLossCoefficient}, wake fraction ${a.wakeFraction} (Allison, Marine Waterjet Propulsion, SNAME Trans. 101, 1993; Faltinsen, Hydrodynamics of High-Speed Marine Vehicles, 2005, s. 2.11; MIT 2.611 course notes, 2006). Water: ${r.inputs.density.description}, ${f1(r.inputs.density.densityKgM3, 4)} kg/m3. Nozzle: area-equivalent diameter of the two-point readings at 20 C (ISO 1:2022); uncertainties are standard (k = 1) by first-order propagation (JCGM 100:2008).`,
+    `Model: momentum theory of a water jet at fixed shaft power with pump efficiency ${a.pumpEfficiency}, nozzle loss ${a.nozzleLossCoefficient}, inlet loss ${a.inletLossCoefficient}, wake fraction ${a.wakeFraction} (Allison, Marine Waterjet Propulsion, SNAME Trans. 101, 1993; Faltinsen, Hydrodynamics of High-Speed Marine Vehicles, 2005, s. 2.11; MIT 2.611 course notes, 2006). Water: ${r.inputs.density.description}, ${f1(r.inputs.density.densityKgM3, 4)} kg/m3. Nozzle: area-equivalent diameter of the two-point readings at 20 C (ISO 1:2022); uncertainties are standard (k = 1) by first-order propagation (JCGM 100:2008).${a.reportModel === 'matched' ? ' This class chose the matched model: a boat with both curves declared is figured where its engine and pump settle instead (see Model per boat).' : ''}`,
   );
   const c = r.results.classFigures;
   if (c) {

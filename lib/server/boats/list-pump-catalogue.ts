@@ -1,7 +1,7 @@
 import 'server-only';
 import { QueryTypes } from 'sequelize';
 import { FROM_REPLICA, getDb } from '@/lib/server/db';
-import { assertCan, type Actor } from '@/lib/server/auth/actor';
+import { assertCan, can, type Actor } from '@/lib/server/auth/actor';
 import type { PumpCatalogueEntry } from '@/models';
 import type { StoredPumpCurvePoint } from '@/models/shapes/boat-performance';
 
@@ -32,17 +32,25 @@ export const toCatalogueView = (e: PumpCatalogueEntry, eventName: string): PumpC
 /**
  * Impeller models and trims the meetings' organisers entered (a maker's published curves, open to
  * anyone signed in so an entrant can choose one), newest first; one meeting's when eventId is given.
+ * A meeting still in draft is not public yet: its entries (and its name) show only to those who may
+ * edit its classes.
  */
 export async function listPumpCatalogue(actor: Actor | null, eventId?: string): Promise<PumpCatalogueView[]> {
   assertCan(actor, 'boat.manage_own');
+  const organised = Object.keys(actor.eventRoles).filter((id) => can(actor, 'class.edit', { eventId: id }));
   const rows = await getDb().sequelize.query<Omit<PumpCatalogueView, 'createdAt'> & { createdAt: Date }>(
     `select p.id, p.event_id as "eventId", ev.name as "eventName", p.maker, p.model, p.trim_code as "trimCode",
             p.impeller_diameter_mm as "impellerDiameterMm", p.curve, p.created_at as "createdAt"
        from pump_catalogue_entries p join events ev on ev.id = p.event_id
       where (cast(:eventId as uuid) is null or p.event_id = cast(:eventId as uuid))
+        and (ev.status <> 'draft' or p.event_id = any(cast(:organised as uuid[])))
       order by p.created_at desc
       limit 500`,
-    { replacements: { eventId: eventId ?? null }, type: QueryTypes.SELECT, ...FROM_REPLICA },
+    {
+      replacements: { eventId: eventId ?? null, organised: `{${organised.join(',')}}` },
+      type: QueryTypes.SELECT,
+      ...FROM_REPLICA,
+    },
   );
   return rows.map((r) => ({ ...r, createdAt: new Date(r.createdAt).toISOString() }));
 }
