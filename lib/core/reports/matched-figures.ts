@@ -39,8 +39,11 @@ export type MatchedReportPoint = {
   pumpEfficiency: number;
   jetVelocityMs: number;
   thrustN: number;
-  /** Standard uncertainty (k = 1), first order by finite differences. */
+  /** Standard uncertainty (k = 1), first order by finite differences: the root sum of squares of the two parts below. */
   uThrustN: number;
+  /** The part from the power (the engine curve scaled) and the part from the nozzle diameter. */
+  uThrustFromPowerN: number;
+  uThrustFromDiameterN: number;
   limitedBy: 'engine' | 'limiter';
   /** null: no suction data declared, so not checked. */
   cavitating: boolean | null;
@@ -124,6 +127,8 @@ export function computeMatchedBoat(
         jetVelocityMs: p.jetVelocityMs,
         thrustN: p.thrustN,
         uThrustN: Math.hypot(perScale * uRelPower, perMm * boat.uNozzleDiameterMm),
+        uThrustFromPowerN: Math.abs(perScale * uRelPower),
+        uThrustFromDiameterN: Math.abs(perMm * boat.uNozzleDiameterMm),
         limitedBy: p.limitedBy,
         cavitating: check ? check.cavitating : null,
         ...(check && { availableNpshM: check.availableNpshM, requiredNpshM: check.requiredNpshM }),
@@ -151,9 +156,8 @@ export function applyMatchedFigures(parity: ParityReport, used: Record<string, B
       ...b,
       staticThrustN: rest.thrustN,
       uStaticThrustN: rest.uThrustN,
-      // Power and diameter parts of a matched figure are not split: the finite differences give one combined figure.
-      uStaticThrustFromPowerN: undefined,
-      uStaticThrustFromDiameterN: undefined,
+      uStaticThrustFromPowerN: rest.uThrustFromPowerN,
+      uStaticThrustFromDiameterN: rest.uThrustFromDiameterN,
       thrustAtReferenceSpeeds: b.thrustAtReferenceSpeeds.map((t, j) => ({
         speedMs: t.speedMs,
         thrustN: atSpeeds[j].thrustN,

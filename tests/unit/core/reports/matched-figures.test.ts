@@ -99,9 +99,58 @@ test('a matched class: the boat with working curves uses them; the median and de
     [expected[1].thrustN, expected[2].thrustN],
   );
   assert.ok(a.uStaticThrustN > 0, 'a first-order uncertainty is given');
+  // Its power and diameter parts combine as a root sum of squares (JCGM 100:2008, 5.1.2, uncorrelated inputs).
+  assert.ok(
+    Math.abs(Math.hypot(a.uStaticThrustFromPowerN!, a.uStaticThrustFromDiameterN!) - a.uStaticThrustN) <
+      1e-9 * a.uStaticThrustN,
+  );
+  // At rest, against the engine alone: a larger nozzle with the same pump lets the engine settle at a
+  // different point, so the diameter part is not zero; the power part is not zero either.
+  assert.ok(a.uStaticThrustFromPowerN! > 0 && a.uStaticThrustFromDiameterN! > 0);
   const t0 = r.parity!.boats.map((b) => b.staticThrustN).sort((x, y) => x - y);
   assert.equal(r.parity!.summary.medianStaticThrustN, t0[1]);
   for (const b of r.parity!.boats) assert.ok(Math.abs(b.deviationFromMedianN - (b.staticThrustN - t0[1])) < 1e-9);
   // The chart curve of a matched boat is its matched thrust.
   assert.equal(r.curves!.byEntry.a[0], expected[0].thrustN);
+});
+
+test('finite-difference uncertainty agrees with the closed form where matched equals fixed power', () => {
+  // A flat engine curve and a constant pump efficiency: the matched model is the fixed-power one, whose
+  // static thrust with the nozzle loss K_n, T0 = (2 η P / (1 + K_n))^(2/3) (ρ A)^(1/3) (the momentum balance at
+  // rest: Allison, SNAME Transactions 101, 1993; MIT 2.611 course notes, 2006) gives the
+  // first-order parts u_P(T0) = (2/3) T0 u(P)/P and u_D(T0) = (2/3) T0 u(D)/D (JCGM 100:2008, 5.1.2).
+  const eta = 0.9;
+  const flatPump = {
+    impellerDiameterMm: 212,
+    curve: [
+      { flowCoefficient: 0.05, headCoefficient: 8, efficiency: eta },
+      { flowCoefficient: 0.5, headCoefficient: 0.5, efficiency: eta },
+    ],
+  };
+  const flat = {
+    curve: [
+      { rpm: 2800, powerKw: 300 },
+      { rpm: 7700, powerKw: 300 },
+    ],
+  };
+  const base = inputs('matched');
+  const r = computeReportResults({
+    ...base,
+    boats: [{ ...boat('f', 1, 300), uPowerKw: 12, uNozzleDiameterMm: 0.05, curves: { engine: flat, pump: flatPump } }],
+  });
+  assert.equal(r.modelUsed!.f.model, 'matched');
+  const b = r.parity!.boats[0];
+  const rhoA = 999.1026 * ((Math.PI * 0.1 ** 2) / 4);
+  const t0 = ((2 * eta * 300_000) / 1.02) ** (2 / 3) * rhoA ** (1 / 3);
+  assert.ok(Math.abs(b.staticThrustN / t0 - 1) < 1e-9, `${b.staticThrustN} vs ${t0}`);
+  const fromPower = (2 / 3) * t0 * (12 / 300);
+  const fromDiameter = (2 / 3) * t0 * (0.05 / 100);
+  assert.ok(
+    Math.abs(b.uStaticThrustFromPowerN! / fromPower - 1) < 1e-5,
+    `${b.uStaticThrustFromPowerN} vs ${fromPower}`,
+  );
+  assert.ok(
+    Math.abs(b.uStaticThrustFromDiameterN! / fromDiameter - 1) < 1e-5,
+    `${b.uStaticThrustFromDiameterN} vs ${fromDiameter}`,
+  );
 });
