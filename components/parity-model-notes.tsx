@@ -61,10 +61,10 @@ export function ReportModelNotes({ inputs, results }: { inputs: ReportInputs; re
           <p>
             Uncertainty of a matched figure: first order, by finite differences, from the boat&apos;s power uncertainty
             (applied to its whole engine curve) and its nozzle diameter; the uncertainty of the declared curves
-            themselves is not computed. For matched boats the crossover speed, the equalising nozzles, the odds below
-            and the what-if sandbox&apos;s power changes still use the fixed-power model at the confirmed power.
-            Cavitation is checked only for matched boats that declared their inlet (a boat without a pump curve has no
-            known rpm).
+            themselves is not computed. For matched boats the crossover speed, the equalising nozzles, the chart&apos;s
+            median line, the odds below and the what-if sandbox&apos;s power changes still use the fixed-power model at
+            the confirmed power. Cavitation is checked only for matched boats that declared their inlet (a boat without
+            a pump curve has no known rpm).
           </p>
         </>
       ) : (

@@ -12,7 +12,8 @@
 // (lib/core/engine/cavitation.ts); a flagged point's thrust is an upper bound.
 //
 // What still uses the fixed-power model for a matched boat: the crossover with the median boat, the
-// equalising nozzles and the Monte Carlo odds (at the boat's confirmed power); the report says so.
+// equalising nozzles and the Monte Carlo odds (at the boat's confirmed power), and the chart's median
+// curve (the fixed-power median set-up); the report says so.
 
 import { computeMedian, type ParityReport } from '../engine/parity';
 import { computeMatchedCurve, type MatchedSetupInput } from '../engine/jet-matched';
@@ -168,6 +169,7 @@ export function applyMatchedFigures(parity: ParityReport, used: Record<string, B
   });
   const t0 = boats.map((b) => b.staticThrustN);
   const median = computeMedian(t0);
+  const medianIndex = t0.indexOf(median);
   const n = t0.length;
   const min = Math.min(...t0);
   const max = Math.max(...t0);
@@ -186,8 +188,10 @@ export function applyMatchedFigures(parity: ParityReport, used: Record<string, B
       spreadPercent: ((max - min) / median) * 100,
       coefficientOfVariationPercent: sd === null ? null : (sd / mean) * 100,
     },
-    boats: boats.map((b) => ({
+    boats: boats.map((b, i) => ({
       ...b,
+      // The median boat is the one at the middle of the new order (odd count); an even count has none.
+      isReferenceBoat: n % 2 === 1 && i === medianIndex,
       deviationFromMedianN: b.staticThrustN - median,
       deviationFromMedianPercent: ((b.staticThrustN - median) / median) * 100,
       // The median held exact, as the fixed-power report does (lib/core/engine/parity.ts).

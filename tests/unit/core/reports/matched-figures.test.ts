@@ -109,7 +109,10 @@ test('a matched class: the boat with working curves uses them; the median and de
   assert.ok(a.uStaticThrustFromPowerN! > 0 && a.uStaticThrustFromDiameterN! > 0);
   const t0 = r.parity!.boats.map((b) => b.staticThrustN).sort((x, y) => x - y);
   assert.equal(r.parity!.summary.medianStaticThrustN, t0[1]);
-  for (const b of r.parity!.boats) assert.ok(Math.abs(b.deviationFromMedianN - (b.staticThrustN - t0[1])) < 1e-9);
+  for (const b of r.parity!.boats) {
+    assert.ok(Math.abs(b.deviationFromMedianN - (b.staticThrustN - t0[1])) < 1e-9);
+    assert.equal(b.isReferenceBoat, b.staticThrustN === t0[1], 'the median boat is the middle one');
+  }
   // The chart curve of a matched boat is its matched thrust.
   assert.equal(r.curves!.byEntry.a[0], expected[0].thrustN);
 });
