@@ -26,6 +26,7 @@ export function ThrustCurvesDrawing({
   lineData,
   boats,
   crossovers,
+  cavitation = [],
   forceUnit,
   speedUnit,
   labels,
@@ -33,6 +34,8 @@ export function ThrustCurvesDrawing({
   lineData: Record<string, number>[];
   boats: DrawnBoat[];
   crossovers: CrossoverDot[];
+  /** Points where a boat's pump cavitates (its thrust there an upper bound): hollow red rings. */
+  cavitation?: CrossoverDot[];
   forceUnit: ForceUnit;
   speedUnit: SpeedUnit;
   labels: Map<string, string>;
@@ -70,6 +73,9 @@ export function ThrustCurvesDrawing({
         <Line dataKey="median" dot={false} stroke="#e86a10" strokeWidth={3} isAnimationActive={false} />
         {crossovers.map((c) => (
           <ReferenceDot key={c.key} x={c.x} y={c.y} r={5} fill="#fbfaf6" stroke="#0b1620" />
+        ))}
+        {cavitation.map((c) => (
+          <ReferenceDot key={c.key} x={c.x} y={c.y} r={7} fill="none" stroke="#b3261e" strokeWidth={2} />
         ))}
       </LineChart>
     </ResponsiveContainer>

@@ -80,6 +80,15 @@ export function ParityCharts({
     label: labels.get(b.entryId) ?? b.entryId,
     ...boatStyle(i),
   }));
+  // Matched points where the pump cavitates: ringed on the chart and listed below it.
+  const cavitating = Object.entries(results.modelUsed ?? {}).flatMap(([id, m]) =>
+    (m.points ?? []).filter((p) => p.cavitating).map((p) => ({ id, speedMs: p.speedMs, thrustN: p.thrustN })),
+  );
+  const cavitationDots = cavitating.map((c) => ({
+    key: `${c.id}-${c.speedMs}`,
+    x: +s(c.speedMs).toFixed(2),
+    y: +f(c.thrustN).toFixed(1),
+  }));
   const crossoverDots = crossovers.map((b) => ({
     key: b.id,
     x: +s(b.crossoverWithMedianMs!).toFixed(2),
@@ -97,6 +106,7 @@ export function ParityCharts({
             lineData={lineData}
             boats={drawnBoats}
             crossovers={crossoverDots}
+            cavitation={cavitationDots}
             forceUnit={forceUnit}
             speedUnit={speedUnit}
             labels={labels}
@@ -118,6 +128,17 @@ export function ParityCharts({
             </li>
           ))}
         </ul>
+        {cavitating.length > 0 && (
+          <p className="mt-2 text-sm font-bold text-flare-600" data-testid="chart-cavitation">
+            Red rings: the pump cavitates there, so the thrust is an upper bound (
+            {cavitating
+              .map(
+                (c) => `${labels.get(c.id)} at ${c.speedMs === 0 ? 'rest' : `${s(c.speedMs).toFixed(1)} ${speedUnit}`}`,
+              )
+              .join('; ')}
+            ).
+          </p>
+        )}
         {crossovers.length > 0 && (
           <ul className="mt-2 text-sm">
             {crossovers.slice(0, 12).map((b) => (

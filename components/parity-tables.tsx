@@ -1,5 +1,6 @@
 import type { ReportInputs, ReportResults } from '@/lib/core/reports/parity-figures';
 import { convertForce, convertSpeed, type ForceUnit, type SpeedUnit } from '@/lib/core/engine/units';
+import { ModelCell, ReportModelNotes, UpperBoundMark, isCavitatingAt } from './parity-model-notes';
 
 const f = (x: number | null | undefined, d = 1) =>
   x === null || x === undefined || !Number.isFinite(x) ? '—' : x.toFixed(d);
@@ -97,6 +98,7 @@ export function ParityTables({
               <tr>
                 <th className="p-2">No.</th>
                 <th className="p-2">Boat</th>
+                <th className="p-2">Model</th>
                 <th className="p-2">Power kW</th>
                 <th className="p-2">Nozzle mm</th>
                 <th className="p-2" data-testid="static-thrust-heading">
@@ -132,6 +134,7 @@ export function ParityTables({
                         </span>
                       )}
                     </td>
+                    <ModelCell results={results} entryId={b.id} />
                     <td className="figure p-2">
                       {f(b.powerKw, 0)} <span className="text-ink-mute">{i.powerSource === 'verified' ? '✓' : ''}</span>
                     </td>
@@ -139,6 +142,7 @@ export function ParityTables({
                       {f(b.nozzleDiameterMm, 2)} ± {f(i.uNozzleDiameterMm, 3)}
                     </td>
                     <td className="figure p-2" data-col="static-thrust">
+                      <UpperBoundMark flagged={isCavitatingAt(results, b.id, 0)} />
                       {f(N(b.staticThrustN), fd)} ± {f(N(b.uStaticThrustN), fd)}
                     </td>
                     <td className="figure p-2">{f(V(b.staticJetVelocityMs), sd)}</td>
@@ -150,6 +154,7 @@ export function ParityTables({
                     </td>
                     {b.thrustAtReferenceSpeeds.map((t) => (
                       <td key={t.speedMs} className="figure p-2">
+                        <UpperBoundMark flagged={isCavitatingAt(results, b.id, t.speedMs)} />
                         {f(N(t.thrustN), fd)}
                       </td>
                     ))}
@@ -164,6 +169,7 @@ export function ParityTables({
           </table>
         </section>
       )}
+      {p && <ReportModelNotes inputs={inputs} results={results} />}
       {inputs.boats.some((b) => b.awaitingReinspection) && (
         <section aria-labelledby="awaiting" className="card">
           <h2 id="awaiting" className="text-xl">
@@ -216,6 +222,8 @@ export function ModelAssumptions({ inputs }: { inputs: ReportInputs }) {
         Water: {inputs.density.description} ({inputs.density.densityKgM3.toFixed(4)} kg/m³). Each boat&apos;s nozzle is
         the area-equivalent diameter of its latest conforming inspection&apos;s two-point readings at 20 °C; power is
         the declared figure (✓ where the scrutineer saw the evidence). Class rules version {inputs.ruleVersion.version}.
+        {a.reportModel === 'matched' &&
+          ' This class chose the matched model: a boat with both curves declared is figured where its engine and pump settle instead (see “Model per boat”).'}
       </p>
     </section>
   );

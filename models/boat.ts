@@ -6,6 +6,7 @@ import {
   type InferCreationAttributes,
   type Sequelize,
 } from 'sequelize';
+import type { StoredBoatPerformance } from './shapes/boat-performance';
 
 export type PowerEvidence = 'dyno_sheet' | 'maker_rating' | 'none';
 
@@ -25,6 +26,8 @@ export class Boat extends Model<InferAttributes<Boat>, InferCreationAttributes<B
   declare powerEvidence: CreationOptional<PowerEvidence>;
   declare displacementL: CreationOptional<number | null>;
   declare declaredWeightKg: CreationOptional<number | null>;
+  /** Declared engine curve, pump characteristic and suction data (null: none declared). */
+  declare declaredPerformance: CreationOptional<StoredBoatPerformance | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -47,6 +50,7 @@ export class BoatDeclarationVersion extends Model<
   declare powerEvidence: PowerEvidence;
   declare displacementL: number | null;
   declare declaredWeightKg: number | null;
+  declare declaredPerformance: CreationOptional<StoredBoatPerformance | null>;
   declare createdById: string;
   declare createdAt: CreationOptional<Date>;
 }
@@ -91,6 +95,7 @@ export function initBoats(sequelize: Sequelize) {
       powerEvidence: { type: DataTypes.STRING, allowNull: false, defaultValue: 'none' },
       displacementL: { type: DataTypes.DOUBLE },
       declaredWeightKg: { type: DataTypes.DOUBLE },
+      declaredPerformance: { type: DataTypes.JSONB },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
@@ -111,6 +116,7 @@ export function initBoats(sequelize: Sequelize) {
       powerEvidence: { type: DataTypes.STRING, allowNull: false },
       displacementL: { type: DataTypes.DOUBLE },
       declaredWeightKg: { type: DataTypes.DOUBLE },
+      declaredPerformance: { type: DataTypes.JSONB },
       createdById: { type: DataTypes.UUID, allowNull: false },
       createdAt: DataTypes.DATE,
     },

@@ -14,6 +14,7 @@ import { RunTime, initRunTimes } from './run-time';
 import { Protest, ProtestEvidence, initProtests } from './protest';
 import { AuditEvent, initAuditEvents } from './audit-event';
 import { MailOutbox, initMailOutbox } from './mail-outbox';
+import { PumpCatalogueEntry, initPumpCatalogue } from './pump-catalogue';
 import { CustodyItem, CustodyRelease, initCustody } from './custody';
 import { OfficialInterest, OfficialInterestWithdrawal, initOfficialInterests } from './official-interest';
 import {
@@ -47,6 +48,7 @@ export function initModels(sequelize: Sequelize) {
   initOfficialInterests(sequelize);
   initBoatRecord(sequelize);
   initMailOutbox(sequelize);
+  initPumpCatalogue(sequelize);
 
   Account.belongsTo(User, { foreignKey: 'userId' });
   Session.belongsTo(User, { foreignKey: 'userId' });
@@ -144,6 +146,7 @@ export function initModels(sequelize: Sequelize) {
     SealEvent,
     BoatLogNote,
     MailOutbox,
+    PumpCatalogueEntry,
   };
 }
 
@@ -190,4 +193,5 @@ export {
   SealEvent,
   BoatLogNote,
   MailOutbox,
+  PumpCatalogueEntry,
 };

@@ -23,6 +23,15 @@ import type { Material } from './engine/measurement';
 import type { ParityReport } from './engine/parity';
 import type { CheckArea, RuleResult } from './inspections/decide-inspection';
 import type { ReportInputs, ReportResults } from './reports/parity-figures';
+import type {
+  StoredDeclaredEngine,
+  StoredDeclaredPump,
+  StoredDeclaredSuction,
+  STORED_ENGINE_CURVE_SHAPES,
+} from '../../models/shapes/boat-performance';
+import type { DeclaredEngineInput, DeclaredPumpInput, DeclaredSuctionInput } from './inputs/boat-performance';
+import type { EngineCurveShape } from './engine/engine-curve-shapes';
+import type { z } from 'zod';
 
 /** true only when A and B are mutually assignable (the same shape for stored data). */
 type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
@@ -45,4 +54,8 @@ export type StoredShapesMatch = [
   Check<Same<(typeof STORED_OUTCOMES)[number], Outcome>>,
   Check<Same<(typeof STORED_POWER_EVIDENCE_KINDS)[number], PowerEvidenceKind>>,
   Check<Same<(typeof STORED_SEAL_ACTIONS)[number], SealAction>>,
+  Check<Same<z.output<typeof DeclaredEngineInput>, StoredDeclaredEngine>>,
+  Check<Same<z.output<typeof DeclaredSuctionInput>, StoredDeclaredSuction>>,
+  Check<Fits<Extract<z.output<typeof DeclaredPumpInput>, { kind: 'points' }>, StoredDeclaredPump>>,
+  Check<Same<(typeof STORED_ENGINE_CURVE_SHAPES)[number], EngineCurveShape>>,
 ];

@@ -48,7 +48,13 @@ export type StoredClassRules = {
     gaugeNoGoMm?: number | null;
     gaugeGoMm?: number | null;
   };
-  power: { minKw: number | null; maxKw: number | null; defaultUncertaintyKw: number };
+  power: {
+    minKw: number | null;
+    maxKw: number | null;
+    defaultUncertaintyKw: number;
+    /** Expanded power uncertainty (k = 2) per kind of evidence, as a share of the power; absent: common practice. */
+    evidenceShares?: { dyno_sheet: number; maker_rating: number; declaration_only: number };
+  };
   weight: { minKg: number | null; includesDriver: boolean; defaultUncertaintyKg: number };
   decisionRule: StoredDecisionRule;
   /** Safety item keys the class requires (lib/core/constants.ts SAFETY_ITEMS). */
@@ -59,6 +65,8 @@ export type StoredClassRules = {
     inletLossCoefficient: number;
     wakeFraction: number;
     referenceSpeedsMs: number[];
+    /** Absent in rules stored before it: fixed power. */
+    reportModel?: 'fixed_power' | 'matched';
   };
   /** Who must prove, per context; absent in rules stored before it (readers apply the defaults). */
   burdenOfProof?: { inspection: StoredBurden; protest: StoredBurden };

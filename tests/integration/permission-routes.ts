@@ -101,6 +101,12 @@ export const ROUTES: Row[] = [
   { method: 'GET', file: 'app/api/boats/[boatId]/route.ts', path: (i) => `/api/boats/${i.boatId}`, access: 'owner' },
   { method: 'PATCH', file: 'app/api/boats/[boatId]/route.ts', path: (i) => `/api/boats/${i.boatId}`, access: 'owner' },
   {
+    method: 'PUT',
+    file: 'app/api/boats/[boatId]/performance/route.ts',
+    path: (i) => `/api/boats/${i.boatId}/performance`,
+    access: 'owner',
+  },
+  {
     method: 'POST',
     file: 'app/api/boats/[boatId]/documents/route.ts',
     path: (i) => `/api/boats/${i.boatId}/documents`,
@@ -257,6 +263,18 @@ export const ROUTES: Row[] = [
     file: `${E}/tag-sheet/route.ts`,
     path: (i) => `${ev(i)}/tag-sheet`,
     access: { anyOf: ['tags.print'] },
+  },
+  {
+    method: 'GET',
+    file: `${E}/pump-catalogue/route.ts`,
+    path: (i) => `${ev(i)}/pump-catalogue`,
+    access: 'signed-in',
+  },
+  {
+    method: 'POST',
+    file: `${E}/pump-catalogue/route.ts`,
+    path: (i) => `${ev(i)}/pump-catalogue`,
+    access: { anyOf: ['class.edit'] },
   },
   {
     method: 'GET',

@@ -1,6 +1,8 @@
 // What changed between two versions of a boat's declaration, in words a scrutineer reads on the
 // board and in the e-mail ("power 250 → 9000 kW"). Pure: runs on the server, in tests and the browser.
 
+import { canonicalPerformance, describePerformance, type StoredBoatPerformance } from './declared-performance';
+
 /** The fields a declaration version holds (the boat's name and hull number are identity, not declaration). */
 export type DeclarationFields = {
   hullDescription: string;
@@ -13,6 +15,8 @@ export type DeclarationFields = {
   powerEvidence: string;
   displacementL: number | null;
   declaredWeightKg: number | null;
+  /** Declared engine curve, pump characteristic and suction data (absent where a reader does not select it: none). */
+  declaredPerformance?: StoredBoatPerformance | null;
 };
 
 export const DECLARATION_FIELDS = [
@@ -28,7 +32,7 @@ export const DECLARATION_FIELDS = [
   'declaredWeightKg',
 ] as const satisfies readonly (keyof DeclarationFields)[];
 
-const LABELS: Record<keyof DeclarationFields, { label: string; unit?: string }> = {
+const LABELS: Record<(typeof DECLARATION_FIELDS)[number], { label: string; unit?: string }> = {
   hullDescription: { label: 'hull' },
   pumpDescription: { label: 'pump' },
   impellerDescription: { label: 'impeller' },
@@ -85,6 +89,7 @@ export function pickDeclaration(b: DeclarationFields): DeclarationFields {
     powerEvidence: b.powerEvidence,
     displacementL: b.displacementL == null ? null : Number(b.displacementL),
     declaredWeightKg: b.declaredWeightKg == null ? null : Number(b.declaredWeightKg),
+    declaredPerformance: b.declaredPerformance ?? null,
   };
 }
 
@@ -92,12 +97,21 @@ export function pickDeclaration(b: DeclarationFields): DeclarationFields {
 export function listDeclarationChanges(before: DeclarationFields, after: DeclarationFields): DeclarationChange[] {
   const a = pickDeclaration(before);
   const b = pickDeclaration(after);
-  return DECLARATION_FIELDS.filter((f) => a[f] !== b[f]).map((f) => {
+  const changes: DeclarationChange[] = DECLARATION_FIELDS.filter((f) => a[f] !== b[f]).map((f) => {
     const { label, unit } = LABELS[f];
     // A figure with a unit reads "power 250 → 9000 kW"; text reads "engine “A” → “B”".
     const from = unit && typeof a[f] === 'number' ? String(a[f]) : shown(a[f]);
     return { field: f, label, from, to: shown(b[f], unit) };
   });
+  // The engine and pump curves compare as documents and read as a summary of each side.
+  if (canonicalPerformance(a.declaredPerformance) !== canonicalPerformance(b.declaredPerformance))
+    changes.push({
+      field: 'declaredPerformance',
+      label: 'engine and pump curves',
+      from: describePerformance(a.declaredPerformance),
+      to: describePerformance(b.declaredPerformance),
+    });
+  return changes;
 }
 
 /** One line: "power 250 → 9000 kW; engine “A” → “B”". */

@@ -4,6 +4,7 @@ import { convertPower } from '@/lib/core/engine/units';
 import { DECISION_RULES } from '@/lib/core/engine/conformity';
 import { BURDENS_OF_PROOF, DEFAULT_BURDEN_OF_PROOF } from '@/lib/core/engine/conformity-burden';
 import { CHECK_METHODS, MeasuredItemRules } from './measured-item-rules';
+import { REPORT_MODELS } from '../reports/matched-figures';
 
 // Class rules: fixed before measuring (ISO/IEC 17025:2017, 7.1.3), stored as a versioned document.
 const positive = (what: string, max: number) =>
@@ -44,7 +45,18 @@ const ParityAssumptions = z.object({
     )
     .min(1, 'Give at least one reference speed.')
     .max(8, 'Give at most 8 reference speeds.'),
+  /**
+   * The report's model: fixed power for every boat, or the matched model (engine curve × pump curve) for
+   * each boat that declared both (lib/core/reports/matched-figures.ts). Absent in older rules: fixed power.
+   */
+  reportModel: z.enum(REPORT_MODELS, { error: 'Choose the report’s model.' }).optional(),
 });
+
+const share = (what: string) =>
+  z
+    .number({ error: `Enter the ${what} share as a number.` })
+    .gt(0, `The ${what} share must be above 0.`)
+    .max(1, `The ${what} share must be at most 1 (100 %).`);
 
 /** The stored rules document (all figures in SI-based units: mm, kW, kg). */
 export const ClassRules = z
@@ -70,6 +82,17 @@ export const ClassRules = z
       minKw: optionalPositive('The minimum power', 10000),
       maxKw: optionalPositive('The maximum power', 10000),
       defaultUncertaintyKw: z.number().min(0, 'Uncertainty cannot be negative.').max(500),
+      /**
+       * The class's own expanded power uncertainty (k = 2) per kind of evidence, as a share of the power;
+       * absent: the common-practice shares (lib/core/reports/power-uncertainty.ts).
+       */
+      evidenceShares: z
+        .strictObject({
+          dyno_sheet: share('dyno sheet'),
+          maker_rating: share('maker’s rating'),
+          declaration_only: share('declaration only'),
+        })
+        .optional(),
     }),
     weight: z.object({
       minKg: optionalPositive('The minimum weight', 20000),

@@ -11,6 +11,15 @@
 import { computeParity, computeMedian, type ParityReport } from '../engine/parity';
 import { computeParityMonteCarlo, type MonteCarloParity } from '../engine/parity-monte-carlo';
 import { prepareJetSetup, withPowerAndDiameter, evaluateThrustN } from '../engine/jet';
+import { computeMatchedCurve } from '../engine/jet-matched';
+import type { SuctionInput } from '../engine/cavitation';
+import {
+  applyMatchedFigures,
+  computeMatchedBoat,
+  type BoatModelUsed,
+  type ReportBoatCurves,
+  type ReportModel,
+} from './matched-figures';
 
 export type ReportAssumptions = {
   pumpEfficiency: number;
@@ -18,6 +27,15 @@ export type ReportAssumptions = {
   inletLossCoefficient: number;
   wakeFraction: number;
   referenceSpeedsMs: number[];
+  /** The class's report model (absent in reports before it: fixed power for every boat). */
+  reportModel?: ReportModel;
+  /** The power uncertainty shares by evidence the report used, and whose they are (absent in older reports). */
+  powerEvidenceShares?: {
+    dyno_sheet: number;
+    maker_rating: number;
+    declaration_only: number;
+    source: 'class' | 'common_practice';
+  };
 };
 
 export type ReportBoatInput = {
@@ -37,6 +55,10 @@ export type ReportBoatInput = {
   inspectedAt: string | null;
   /** Set when the declaration changed after the inspection these figures come from: what changed. */
   awaitingReinspection?: string | null;
+  /** The engine curve and pump characteristic of the declaration version inspected, when both were declared. */
+  curves?: ReportBoatCurves | null;
+  /** Its declared inlet depth and suction data (water temperature filled from the meeting's when not declared). */
+  suction?: SuctionInput | null;
 };
 
 export type ReportExcluded = { entryId: string; raceNumber: number; boatName: string; reason: string };
@@ -74,6 +96,11 @@ export type ReportResults = {
    * reports published before it.
    */
   odds?: MonteCarloParity | null;
+  /**
+   * Per boat (entry id), the model its figures come from: present when the class chose the matched
+   * model (lib/core/reports/matched-figures.ts); absent, every boat is on fixed power.
+   */
+  modelUsed?: Record<string, BoatModelUsed> | null;
 };
 
 /** Trials and seed of the report's Monte Carlo: a fixed seed, so a report's figures reproduce exactly. */
@@ -91,7 +118,7 @@ export function computeReportResults(inputs: ReportInputs): ReportResults {
     inletLossCoefficient: a.inletLossCoefficient,
     wakeFraction: a.wakeFraction,
   };
-  const parity = computeParity(
+  const fixedParity = computeParity(
     inputs.boats.map((b) => ({
       id: b.entryId,
       label: `#${b.raceNumber} ${b.boatName}`,
@@ -102,6 +129,16 @@ export function computeReportResults(inputs: ReportInputs): ReportResults {
     })),
     { ...model, referenceSpeedsMs: a.referenceSpeedsMs },
   );
+  // The matched model for a boat only when the class chose it and the boat declared both curves.
+  let modelUsed: Record<string, BoatModelUsed> | null = null;
+  if (a.reportModel === 'matched') {
+    modelUsed = {};
+    for (const b of inputs.boats)
+      modelUsed[b.entryId] = b.curves
+        ? computeMatchedBoat({ ...b, curves: b.curves, suction: b.suction }, model, a.referenceSpeedsMs)
+        : { model: 'fixed_power', reason: 'No engine curve and pump curve both declared' };
+  }
+  const parity = modelUsed ? applyMatchedFigures(fixedParity, modelUsed) : fixedParity;
 
   const byThrust = [...parity.boats].sort((x, y) => x.staticThrustN - y.staticThrustN);
   const n = byThrust.length;
@@ -126,6 +163,13 @@ export function computeReportResults(inputs: ReportInputs): ReportResults {
   const ref = withPowerAndDiameter(base, parity.referenceSetup.powerKw, parity.referenceSetup.nozzleDiameterMm);
   const byEntry: Record<string, number[]> = {};
   for (const b of inputs.boats) {
+    if (modelUsed?.[b.entryId]?.model === 'matched' && b.curves) {
+      const matched = computeMatchedChart(b.curves, b.nozzleDiameterMm, model, speedsMs);
+      if (matched) {
+        byEntry[b.entryId] = matched;
+        continue;
+      }
+    }
     const s = withPowerAndDiameter(base, b.powerKw, b.nozzleDiameterMm);
     byEntry[b.entryId] = speedsMs.map((v) => evaluateThrustN(s, v));
   }
@@ -161,7 +205,22 @@ export function computeReportResults(inputs: ReportInputs): ReportResults {
             { referenceSpeedsMs: a.referenceSpeedsMs, ...REPORT_MONTE_CARLO },
           )
         : null,
+    ...(modelUsed && { modelUsed }),
   };
+}
+
+/** A matched boat's chart curve, point by point; null when some chart speed has no operating point. */
+function computeMatchedChart(
+  curves: ReportBoatCurves,
+  nozzleDiameterMm: number,
+  model: { densityKgM3: number; nozzleLossCoefficient: number; inletLossCoefficient: number; wakeFraction: number },
+  speedsMs: number[],
+): number[] | null {
+  try {
+    return computeMatchedCurve({ ...model, ...curves, nozzleDiameterMm }, speedsMs).map((p) => p.thrustN);
+  } catch {
+    return null;
+  }
 }
 
 /** What-if: the same inputs with some boats' nozzles or powers replaced (nothing is saved). */

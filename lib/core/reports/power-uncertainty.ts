@@ -26,7 +26,17 @@ export function evidenceOf(kind: PowerEvidence | null | undefined, evidenceSeen:
   return kind ?? (evidenceSeen ? 'maker_rating' : 'declaration_only');
 }
 
-/** Expanded uncertainty of the power (kW, k = 2): the larger of the class's figure and the evidence's share. */
-export function powerExpandedUncertaintyKw(powerKw: number, evidence: PowerEvidence, classDefaultKw: number): number {
-  return Math.max(classDefaultKw, POWER_EVIDENCE_SHARE[evidence] * powerKw);
+export type PowerEvidenceShares = Record<PowerEvidence, number>;
+
+/**
+ * Expanded uncertainty of the power (kW, k = 2): the larger of the class's figure and the evidence's
+ * share, the class's own shares where its rules set them, else the common-practice ones above.
+ */
+export function powerExpandedUncertaintyKw(
+  powerKw: number,
+  evidence: PowerEvidence,
+  classDefaultKw: number,
+  classShares?: PowerEvidenceShares | null,
+): number {
+  return Math.max(classDefaultKw, (classShares ?? POWER_EVIDENCE_SHARE)[evidence] * powerKw);
 }

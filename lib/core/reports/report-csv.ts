@@ -23,7 +23,15 @@ export function reportToCsv(report: PublishedReportDto): string {
   const boats = report.results.parity?.boats ?? [];
   const inputs = new Map(report.inputs.boats.map((b) => [b.entryId, b]));
   const speeds = report.inputs.assumptions.referenceSpeedsMs;
-  const header = [...REPORT_CSV_COLUMNS, ...speeds.flatMap((v) => [`thrust_at_${v}_ms_n`, `u_thrust_at_${v}_ms_n`])];
+  const used = report.results.modelUsed;
+  // The model each boat used and the speeds where its pump cavitates (its thrust there an upper bound) come last,
+  // so the columns before them keep their places.
+  const header = [
+    ...REPORT_CSV_COLUMNS,
+    ...speeds.flatMap((v) => [`thrust_at_${v}_ms_n`, `u_thrust_at_${v}_ms_n`]),
+    'model',
+    'cavitating_at_ms',
+  ];
   const lines = [header.join(',')];
   for (const b of boats) {
     const i = inputs.get(b.id)!;
@@ -43,6 +51,11 @@ export function reportToCsv(report: PublishedReportDto): string {
       b.crossoverWithMedianMs ?? '',
       b.equalisingNozzleDiameterMm,
       ...b.thrustAtReferenceSpeeds.flatMap((t) => [t.thrustN, t.uThrustN]),
+      used?.[b.id]?.model ?? 'fixed_power',
+      (used?.[b.id]?.points ?? [])
+        .filter((p) => p.cavitating)
+        .map((p) => p.speedMs)
+        .join(' '),
     ];
     lines.push(cells.map(csvCell).join(','));
   }

@@ -139,7 +139,8 @@ function drawDeviationBars(ctx: Ctx, r: PublishedReportDto) {
 
 const COLS: [string, number][] = [
   ['No.', 28],
-  ['Boat', 110],
+  ['Boat', 86],
+  ['Model', 24],
   ['kW', 36],
   ['Nozzle mm', 52],
   ['T0 N ± u', 72],
@@ -178,9 +179,11 @@ function drawTable(ctx: Ctx, r: PublishedReportDto) {
     const cells = [
       String(i.raceNumber),
       i.boatName,
+      r.results.modelUsed?.[b.id]?.model === 'matched' ? 'match' : 'fixed',
       f1(b.powerKw, 0),
       f1(b.nozzleDiameterMm, 2),
-      `${f1(b.staticThrustN, 0)} ± ${f1(b.uStaticThrustN, 0)}`,
+      // A static figure where the pump cavitates is an upper bound.
+      `${r.results.modelUsed?.[b.id]?.points?.[0]?.cavitating ? '<= ' : ''}${f1(b.staticThrustN, 0)} ± ${f1(b.uStaticThrustN, 0)}`,
       f1(b.staticJetVelocityMs, 2),
       `${b.deviationFromMedianPercent >= 0 ? '+' : ''}${f1(b.deviationFromMedianPercent, 2)}`,
       b.crossoverWithMedianMs === null ? (b.isReferenceBoat ? 'median' : '—') : f1(b.crossoverWithMedianMs, 1),
@@ -188,7 +191,7 @@ function drawTable(ctx: Ctx, r: PublishedReportDto) {
     ];
     let x = M;
     cells.forEach((c, k) => {
-      ctx.page.drawText(safe(ctx.font, c).slice(0, k === 1 ? 22 : 20), {
+      ctx.page.drawText(safe(ctx.font, c).slice(0, k === 1 ? 18 : 20), {
         x,
         y: ctx.y - 8,
         size: 7.5,
@@ -230,7 +233,7 @@ export async function buildReportPdf(r: PublishedReportDto, timeZone = 'UTC'): P
   ctx.y -= 4;
   wrap(
     ctx,
-    `Model: momentum theory of a water jet at fixed shaft power with pump efficiency ${a.pumpEfficiency}, nozzle loss ${a.nozzleLossCoefficient}, inlet loss ${a.inletLossCoefficient}, wake fraction ${a.wakeFraction} (Allison, Marine Waterjet Propulsion, SNAME Trans. 101, 1993; Faltinsen, Hydrodynamics of High-Speed Marine Vehicles, 2005, s. 2.11; MIT 2.611 course notes, 2006). Water: ${r.inputs.density.description}, ${f1(r.inputs.density.densityKgM3, 4)} kg/m3. Nozzle: area-equivalent diameter of the two-point readings at 20 C (ISO 1:2022); uncertainties are standard (k = 1) by first-order propagation (JCGM 100:2008).`,
+    `Model: momentum theory of a water jet at fixed shaft power with pump efficiency ${a.pumpEfficiency}, nozzle loss ${a.nozzleLossCoefficient}, inlet loss ${a.inletLossCoefficient}, wake fraction ${a.wakeFraction} (Allison, Marine Waterjet Propulsion, SNAME Trans. 101, 1993; Faltinsen, Hydrodynamics of High-Speed Marine Vehicles, 2005, s. 2.11; MIT 2.611 course notes, 2006). Water: ${r.inputs.density.description}, ${f1(r.inputs.density.densityKgM3, 4)} kg/m3. Nozzle: area-equivalent diameter of the two-point readings at 20 C (ISO 1:2022); uncertainties are standard (k = 1) by first-order propagation (JCGM 100:2008).${a.reportModel === 'matched' ? ' This class chose the matched model: a boat with both curves declared is figured where its engine and pump settle instead (see Model per boat).' : ''}`,
   );
   const c = r.results.classFigures;
   if (c) {
@@ -246,6 +249,7 @@ export async function buildReportPdf(r: PublishedReportDto, timeZone = 'UTC'): P
   drawCurves(ctx, r);
   drawDeviationBars(ctx, r);
   drawTable(ctx, r);
+  drawModelNotes(ctx, r);
   const awaiting = r.inputs.boats.filter((b) => b.awaitingReinspection);
   if (awaiting.length) {
     text(ctx, 'Declarations changed since inspection (figures as inspected)', { bold: true, size: 11 });
@@ -262,4 +266,39 @@ export async function buildReportPdf(r: PublishedReportDto, timeZone = 'UTC'): P
     8.5,
   );
   return doc.save();
+}
+
+/** Which model each boat used, the cavitation flags (upper bounds) and the power uncertainty shares. */
+function drawModelNotes(ctx: Ctx, r: PublishedReportDto) {
+  const a = r.inputs.assumptions;
+  const used = r.results.modelUsed;
+  const name = (id: string) => {
+    const b = r.inputs.boats.find((x) => x.entryId === id);
+    return b ? `#${b.raceNumber} ${b.boatName}` : id;
+  };
+  if (a.reportModel === 'matched' && used) {
+    text(ctx, 'Model per boat', { bold: true, size: 11 });
+    const matched = Object.entries(used).filter(([, m]) => m.model === 'matched');
+    wrap(
+      ctx,
+      `Matched model (engine curve x pump curve, pump affinity laws: Karassik, Pump Handbook; Brennen, Hydrodynamics of Pumps, 1994) for ${matched.length} of ${Object.keys(used).length} boats, "match" in the table; the others at fixed power. A matched figure's uncertainty is first order by finite differences from the power uncertainty (applied to the whole engine curve) and the nozzle diameter; the declared curves' own uncertainty is not computed. Crossover, equalising nozzles and odds use the fixed-power model.`,
+      8,
+    );
+    for (const [id, m] of Object.entries(used)) if (m.reason) wrap(ctx, `${name(id)}: fixed power. ${m.reason}`, 8);
+    for (const [id, m] of matched) {
+      const at = (m.points ?? [])
+        .filter((p) => p.cavitating)
+        .map((p) => (p.speedMs === 0 ? 'rest' : `${p.speedMs} m/s`));
+      if (at.length)
+        wrap(ctx, `${name(id)}: the pump cavitates at ${at.join(', ')}; the thrust there is an upper bound.`, 8);
+    }
+  }
+  const s = a.powerEvidenceShares;
+  if (s)
+    wrap(
+      ctx,
+      `Power uncertainty by evidence (expanded, k = 2): dyno sheet ${+(s.dyno_sheet * 100).toFixed(2)} %, maker's rating ${+(s.maker_rating * 100).toFixed(2)} %, declaration only ${+(s.declaration_only * 100).toFixed(2)} % of the power (${s.source === 'class' ? 'set by the class rules' : 'common practice, no published source'}).`,
+      8,
+    );
+  ctx.y -= 4;
 }

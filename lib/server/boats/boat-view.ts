@@ -1,6 +1,7 @@
 import 'server-only';
 import type { Boat, BoatDocument } from '@/models';
 import type { BoatDeclaration } from '@/lib/core/inputs/boats';
+import type { StoredBoatPerformance } from '@/lib/core/boats/declared-performance';
 import { getDb } from '@/lib/server/db';
 import { AppError } from '@/lib/core/errors';
 import { parseId } from '@/lib/server/http/ids';
@@ -8,7 +9,13 @@ import type { Actor } from '@/lib/server/auth/actor';
 
 // Plain objects for screens and handlers (never Sequelize instances), and the one owner lookup.
 
-export type BoatView = BoatDeclaration & { id: string; createdAt: string; updatedAt: string };
+export type BoatView = BoatDeclaration & {
+  id: string;
+  /** Declared engine curve, pump characteristic and suction data (null: none). */
+  declaredPerformance: StoredBoatPerformance | null;
+  createdAt: string;
+  updatedAt: string;
+};
 
 export type BoatDocumentView = {
   id: string;
@@ -34,6 +41,7 @@ export const toBoatView = (b: Boat): BoatView => ({
   powerEvidence: b.powerEvidence,
   displacementL: b.displacementL ?? null,
   declaredWeightKg: b.declaredWeightKg ?? null,
+  declaredPerformance: b.declaredPerformance ?? null,
   createdAt: b.createdAt.toISOString(),
   updatedAt: b.updatedAt.toISOString(),
 });

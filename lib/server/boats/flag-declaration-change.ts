@@ -42,7 +42,7 @@ export async function flagInspectedEntries(
               'impellerDescription', dv.impeller_description, 'declaredNozzleMm', dv.declared_nozzle_mm,
               'declaredNozzleToleranceMm', dv.declared_nozzle_tolerance_mm, 'engineDescription', dv.engine_description,
               'declaredPowerKw', dv.declared_power_kw, 'powerEvidence', dv.power_evidence, 'displacementL', dv.displacement_l,
-              'declaredWeightKg', dv.declared_weight_kg) as checked,
+              'declaredWeightKg', dv.declared_weight_kg, 'declaredPerformance', dv.declared_performance) as checked,
             (select r.id from reinspections r where r.entry_id = e.id and r.done_at is null and r.declaration_version_id is not null
               order by r.created_at desc limit 1) as "openTaskId"
        from entries e

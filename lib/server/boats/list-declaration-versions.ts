@@ -27,7 +27,7 @@ export async function listDeclarationVersions(boatId: string): Promise<Declarati
             d.impeller_description as "impellerDescription", d.declared_nozzle_mm as "declaredNozzleMm",
             d.declared_nozzle_tolerance_mm as "declaredNozzleToleranceMm", d.engine_description as "engineDescription",
             d.declared_power_kw as "declaredPowerKw", d.power_evidence as "powerEvidence", d.displacement_l as "displacementL",
-            d.declared_weight_kg as "declaredWeightKg"
+            d.declared_weight_kg as "declaredWeightKg", d.declared_performance as "declaredPerformance"
        from boat_declaration_versions d join users u on u.id = d.created_by_id
       where d.boat_id = :boatId
       order by d.version`,

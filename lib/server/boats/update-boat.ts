@@ -8,6 +8,10 @@ import { flagInspectedEntries } from './flag-declaration-change';
 import { mailChiefScrutineers, type FlaggedEntry } from './mail-declaration-change';
 import { findOwnBoat, toBoatView, type BoatView } from './boat-view';
 import { declareBoatComponents } from '@/lib/server/components/declare-components';
+import type { BoatDeclaration } from '@/lib/core/inputs/boats';
+import type { StoredBoatPerformance } from '@/lib/core/boats/declared-performance';
+
+export type BoatChanges = Partial<BoatDeclaration> & { declaredPerformance?: StoredBoatPerformance | null };
 
 /**
  * Changes the actor's own boat; only the fields sent change. A change to the declaration is a new
@@ -20,10 +24,12 @@ export async function updateBoat(
   actor: Actor | null,
   boatId: string,
   readInput: () => Promise<unknown>,
+  /** What the body changes (the declared engine and pump data have their own: declare-performance.ts). */
+  parseChanges: (raw: unknown) => Promise<BoatChanges> = async (raw) => UpdateBoatInput.parse(raw),
 ): Promise<BoatView> {
   assertCan(actor, 'boat.manage_own');
   const owned = await findOwnBoat(actor, boatId);
-  const changes = UpdateBoatInput.parse(await readInput());
+  const changes = await parseChanges(await readInput());
   const { models, sequelize } = getDb();
   const { boat, flagged } = await sequelize.transaction(async (transaction) => {
     // The boat's row lock orders edits of one boat, so version numbers never collide.

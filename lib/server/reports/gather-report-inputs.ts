@@ -1,7 +1,8 @@
 import 'server-only';
 import { QueryTypes } from 'sequelize';
 import { FROM_REPLICA, getDb } from '@/lib/server/db';
-import { evidenceOf, powerExpandedUncertaintyKw } from '@/lib/core/reports/power-uncertainty';
+import { POWER_EVIDENCE_SHARE, evidenceOf, powerExpandedUncertaintyKw } from '@/lib/core/reports/power-uncertainty';
+import { matchedCurvesOf, type StoredBoatPerformance } from '@/lib/core/boats/declared-performance';
 import { AppError } from '@/lib/core/errors';
 import { findRulesInForce } from '@/lib/server/classes/rule-versions';
 import { computeAreaEquivalentDiameterFromReadingsMm } from '@/lib/core/engine/measurement';
@@ -16,6 +17,8 @@ type Row = {
   boatName: string;
   /** The power of the declaration version the inspection checked (never the live boat row). */
   checkedPowerKw: number | null;
+  /** The engine and pump curves of the declaration version the inspection checked. */
+  checkedPerformance: StoredBoatPerformance | null;
   /** The open re-inspection task's reason when the owner changed the declaration after the inspection. */
   declarationChange: string | null;
   inspectionId: string | null;
@@ -60,6 +63,7 @@ export async function gatherReportInputs(eventId: string, classId: string, at = 
     // waited offline does not overtake a newer capture (the same rule the dock and the board use).
     `with ${currentInspectionCte('event', { acrossVersions: true })}
      select e.id as "entryId", e.race_number as "raceNumber", b.name as "boatName", dv.declared_power_kw as "checkedPowerKw",
+            dv.declared_performance as "checkedPerformance",
             i.id as "inspectionId", i.received_at as "receivedAt", i.overall_result as "overallResult", i.measurements, i.results,
             (select r.reason from reinspections r where r.entry_id = e.id and r.done_at is null and r.declaration_version_id is not null
               order by r.created_at desc limit 1) as "declarationChange"
@@ -108,7 +112,8 @@ export async function gatherReportInputs(eventId: string, classId: string, at = 
     boats.push({
       ...base,
       powerKw,
-      uPowerKw: powerExpandedUncertaintyKw(powerKw, powerEvidence, r.power.defaultUncertaintyKw) / 2,
+      uPowerKw:
+        powerExpandedUncertaintyKw(powerKw, powerEvidence, r.power.defaultUncertaintyKw, r.power.evidenceShares) / 2,
       powerEvidence,
       powerSource: record.evidenceSeen ? 'verified' : 'declared',
       measuredWeightKg: record.measuredWeightKg,
@@ -120,6 +125,8 @@ export async function gatherReportInputs(eventId: string, classId: string, at = 
       // changed: a report is published to anyone and frozen, and the details (component serials, makers,
       // declared figures) are for the officials and the owner only.
       ...(row.declarationChange ? { awaitingReinspection: publicChangeNotice(row.declarationChange) } : {}),
+      // The curves of the version inspected (never what the owner typed since), for a class on the matched model.
+      ...curvesFor(row.checkedPerformance, event.waterTemperatureC, r.parity.reportModel),
     });
   }
   const density = resolveEventDensity(event);
@@ -134,10 +141,33 @@ export async function gatherReportInputs(eventId: string, classId: string, at = 
       inletLossCoefficient: r.parity.inletLossCoefficient,
       wakeFraction: r.parity.wakeFraction,
       referenceSpeedsMs: r.parity.referenceSpeedsMs,
+      reportModel: r.parity.reportModel ?? 'fixed_power',
+      powerEvidenceShares: r.power.evidenceShares
+        ? { ...r.power.evidenceShares, source: 'class' }
+        : { ...POWER_EVIDENCE_SHARE, source: 'common_practice' },
     },
     density: { densityKgM3: density.densityKgM3, description: density.description },
     boats,
     excluded,
     computedAt: at.toISOString(),
+  };
+}
+
+/** A boat's curves and suction data for the report, only where the class reports on the matched model. */
+function curvesFor(
+  declared: StoredBoatPerformance | null,
+  meetingWaterC: number,
+  reportModel: 'fixed_power' | 'matched' | undefined,
+): Pick<ReportBoatInput, 'curves' | 'suction'> {
+  if (reportModel !== 'matched') return {};
+  const curves = matchedCurvesOf(declared);
+  if (!curves) return {};
+  const s = declared?.suction;
+  return {
+    curves: {
+      engine: { ...curves.engine, curve: [...curves.engine.curve] },
+      pump: { ...curves.pump, curve: [...curves.pump.curve] },
+    },
+    ...(s && { suction: { ...s, waterTemperatureC: s.waterTemperatureC ?? meetingWaterC } }),
   };
 }

@@ -16,6 +16,9 @@ import { BoatForm } from '../boat-form';
 import { DocumentUploadForm } from './document-upload-form';
 import { ReissueTagButton } from './reissue-tag-button';
 import { ComponentsSection } from './components-section';
+import { PerformanceForm } from './performance-form';
+import { listPumpCatalogue } from '@/lib/server/boats/list-pump-catalogue';
+import { describePerformance } from '@/lib/core/boats/declared-performance';
 
 export const metadata: Metadata = { title: 'Boat' };
 export const dynamic = 'force-dynamic';
@@ -32,7 +35,7 @@ export default async function BoatPage({ params }: { params: Promise<{ boatId: s
     throw err;
   });
   const { boat, documents, tag, entries, declarationVersions } = mine;
-  const components = await listBoatComponents(actor, boat.id);
+  const [components, catalogue] = await Promise.all([listBoatComponents(actor, boat.id), listPumpCatalogue(actor)]);
   // Error correction M survives a scuffed sticker; margin 2 modules keeps the quiet zone (ISO/IEC 18004).
   const qr = await QRCode.toDataURL(tag.url, { errorCorrectionLevel: 'M', margin: 2, width: 320 });
   const row = (label: string, value: React.ReactNode) => (
@@ -138,6 +141,32 @@ export default async function BoatPage({ params }: { params: Promise<{ boatId: s
           <summary className="min-h-touch cursor-pointer py-2 font-bold text-tide-700">Edit the declaration</summary>
           <div className="mt-3">
             <BoatForm boat={boat} />
+          </div>
+        </details>
+      </section>
+
+      <section className="card space-y-3" aria-labelledby="curves">
+        <h2 id="curves" className="text-xl">
+          Engine and pump curves
+        </h2>
+        <p className="text-ink-soft">
+          With both an engine curve and a pump curve, a class that chose the matched model reports this boat where its
+          engine and pump settle, not at one fixed power.
+        </p>
+        <p data-testid="declared-performance">
+          <span className="font-bold">Declared:</span> {describePerformance(boat.declaredPerformance)}
+        </p>
+        <details className="rounded-lg bg-paper-deep p-4">
+          <summary className="min-h-touch cursor-pointer py-2 font-bold text-tide-700">Declare the curves</summary>
+          <div className="mt-3">
+            <PerformanceForm
+              boatId={boat.id}
+              declared={boat.declaredPerformance}
+              catalogue={catalogue.map((c) => ({
+                id: c.id,
+                label: `${c.maker} ${c.model}${c.trimCode ? ` trim ${c.trimCode}` : ''}, ${c.impellerDiameterMm} mm (${c.eventName})`,
+              }))}
+            />
           </div>
         </details>
       </section>

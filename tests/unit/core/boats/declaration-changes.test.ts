@@ -47,3 +47,21 @@ test('a long description is cut in the summary, never in the stored version', ()
   const [c] = listDeclarationChanges(v1, { ...v1, pumpDescription: long });
   assert.ok(c.to.length < 70);
 });
+
+test('declared curves compare as documents (key order ignored) and read as a summary', () => {
+  const engine = { kind: 'rated' as const, ratedPowerKw: 300, ratedRpm: 7000, shape: 'flat' as const };
+  const withCurves: DeclarationFields = { ...v1, declaredPerformance: { engine, pump: null, suction: null } };
+  const reordered: DeclarationFields = {
+    ...v1,
+    declaredPerformance: {
+      suction: null,
+      pump: null,
+      engine: { shape: 'flat', ratedRpm: 7000, ratedPowerKw: 300, kind: 'rated' },
+    },
+  };
+  assert.deepEqual(listDeclarationChanges(withCurves, reordered), []);
+  assert.equal(
+    describeDeclarationChanges(listDeclarationChanges(v1, withCurves)),
+    'engine and pump curves (none) → engine 300 kW at 7000 rpm (flat)',
+  );
+});

@@ -6,15 +6,18 @@ import { openMeeting } from '../access';
 import { EventForm } from '../../event-form';
 import { NewClassForm } from '../new-class-form';
 import { InviteStaffForm } from '../../../invite-staff-form';
+import { PumpCatalogueForm } from '../pump-catalogue-form';
+import { listPumpCatalogue } from '@/lib/server/boats/list-pump-catalogue';
 
 export const metadata: Metadata = { title: 'Meeting' };
 
 export default async function EventPage({ params }: { params: Promise<{ eventId: string }> }) {
   const { actor, eventId } = await openMeeting(params);
-  const [event, classes, copyable] = await Promise.all([
+  const [event, classes, copyable, catalogue] = await Promise.all([
     getEventForOrganiser(actor, eventId),
     listEventClasses(actor, eventId),
     listCopyableClasses(actor, eventId),
+    listPumpCatalogue(actor, eventId),
   ]);
   return (
     <div className="space-y-6">
@@ -79,6 +82,28 @@ export default async function EventPage({ params }: { params: Promise<{ eventId:
           </ul>
         )}
         <NewClassForm eventId={event.id} copyable={copyable} />
+      </section>
+
+      <section aria-labelledby="pump-catalogue" className="card space-y-4">
+        <h2 id="pump-catalogue">Pump catalogue</h2>
+        <p className="text-ink-soft">
+          Impeller models and trims with the maker&apos;s curve, entered once for every entrant: a boat that chooses one
+          can be reported on the matched model where its class chose it.
+        </p>
+        {catalogue.length === 0 ? (
+          <p>No impellers yet.</p>
+        ) : (
+          <ul className="divide-y divide-paper-line" data-testid="pump-catalogue">
+            {catalogue.map((c) => (
+              <li key={c.id} className="py-2">
+                {c.maker} {c.model}
+                {c.trimCode && ` trim ${c.trimCode}`} · <span className="figure">{c.impellerDiameterMm} mm</span> ·{' '}
+                {c.curve.length} points
+              </li>
+            ))}
+          </ul>
+        )}
+        <PumpCatalogueForm eventId={event.id} />
       </section>
 
       <section aria-labelledby="details" className="card space-y-4">

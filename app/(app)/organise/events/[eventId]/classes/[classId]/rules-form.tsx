@@ -10,6 +10,7 @@ import { refusalState, requestJson, type FormState } from '@/components/forms/re
 import { useFormAction } from '@/components/forms/use-form-action';
 import { numberOrNull } from '@/lib/core/inputs/form-values';
 import { convertPower, type PowerUnit } from '@/lib/core/engine/units';
+import { POWER_EVIDENCE_LABELS, POWER_EVIDENCE_SHARE } from '@/lib/core/reports/power-uncertainty';
 import {
   BURDEN_CONTEXTS,
   BURDEN_CONTEXT_WORDS,
@@ -32,6 +33,12 @@ const RULE_TEXT = {
 } as const;
 
 type Props = { eventId: string; classId: string; rules: ClassRules; editingVersion: number; isDraft: boolean };
+
+/** "5" (per cent) → 0.05; empty → NaN, which the rules refuse beside the field. */
+const percentShare = (v: FormDataEntryValue | null) => {
+  const t = String(v ?? '').trim();
+  return t === '' ? Number.NaN : Number(t) / 100;
+};
 
 export function RulesForm({ eventId, classId, rules, editingVersion, isDraft }: Props) {
   const router = useRouter();
@@ -57,6 +64,14 @@ export function RulesForm({ eventId, classId, rules, editingVersion, isDraft }: 
             minKw: n('power.minKw'),
             maxKw: n('power.maxKw'),
             defaultUncertaintyKw: n('power.defaultUncertaintyKw'),
+            // Percent on the form, a share in the rules; all three empty: the common-practice shares.
+            ...(['dyno_sheet', 'maker_rating', 'declaration_only'].some((k) => f.get(`power.share.${k}`) !== '') && {
+              evidenceShares: {
+                dyno_sheet: percentShare(f.get('power.share.dyno_sheet')),
+                maker_rating: percentShare(f.get('power.share.maker_rating')),
+                declaration_only: percentShare(f.get('power.share.declaration_only')),
+              },
+            }),
           },
           weight: {
             minKg: n('weight.minKg'),
@@ -77,6 +92,7 @@ export function RulesForm({ eventId, classId, rules, editingVersion, isDraft }: 
               .split(/[;, ]+/)
               .filter(Boolean)
               .map(Number),
+            reportModel: f.get('parity.reportModel') ?? 'fixed_power',
           },
         },
       };
@@ -178,6 +194,23 @@ export function RulesForm({ eventId, classId, rules, editingVersion, isDraft }: 
             defaultValue={shown(rules.power.defaultUncertaintyKw)}
             error={err('power.defaultUncertaintyKw')}
           />
+          <p className="text-sm text-ink-soft sm:col-span-2">
+            Power uncertainty by the evidence the scrutineer sees (expanded, k = 2, per cent of the power). Leave all
+            three empty for the common-practice figures: dyno sheet {POWER_EVIDENCE_SHARE.dyno_sheet * 100} %, maker’s
+            rating {POWER_EVIDENCE_SHARE.maker_rating * 100} %, declaration only{' '}
+            {POWER_EVIDENCE_SHARE.declaration_only * 100} %.
+          </p>
+          {(['dyno_sheet', 'maker_rating', 'declaration_only'] as const).map((k) => (
+            <TextField
+              key={k}
+              name={`power.share.${k}`}
+              label={`Share: ${POWER_EVIDENCE_LABELS[k]}`}
+              unit="%"
+              inputMode="decimal"
+              defaultValue={rules.power.evidenceShares ? +(rules.power.evidenceShares[k] * 100).toFixed(4) : ''}
+              error={err(`power.evidenceShares.${k}`) ?? err('power.evidenceShares')}
+            />
+          ))}
         </fieldset>
         <fieldset className="grid gap-3 sm:grid-cols-2">
           <legend className="mb-2 text-lg font-bold">Minimum weight</legend>
@@ -319,6 +352,25 @@ export function RulesForm({ eventId, classId, rules, editingVersion, isDraft }: 
             }
             className="sm:col-span-2"
           />
+          <div className="sm:col-span-2">
+            <label htmlFor="parity.reportModel" className="field-label">
+              Report model
+            </label>
+            <select
+              id="parity.reportModel"
+              name="parity.reportModel"
+              defaultValue={rules.parity.reportModel ?? 'fixed_power'}
+              className="field-input"
+              aria-describedby="parity.reportModel-hint"
+            >
+              <option value="fixed_power">Fixed power for every boat</option>
+              <option value="matched">Matched: engine curve × pump curve where a boat declared both</option>
+            </select>
+            <p id="parity.reportModel-hint" className="field-hint">
+              With the matched model, a boat with both curves is reported where its engine and pump settle; the report
+              says which model each boat used.
+            </p>
+          </div>
         </fieldset>
         <FormMessage state={state} />
         <button type="submit" className="btn-primary">

@@ -1,0 +1,202 @@
+// The matched model in a class's parity report (issue 19, items 1–3): where the class chose it and a boat
+// declared both an engine curve and a pump characteristic, its static thrust and thrust at the reference
+// speeds are where its engine and pump settle (lib/core/engine/jet-matched.ts: affinity laws, Karassik's
+// Pump Handbook; Brennen, Hydrodynamics of Pumps, 1994), at the nozzle diameter the scrutineer measured.
+//
+// Uncertainty of those figures: first order (JCGM 100:2008, 5.1.2), sensitivities by central finite
+// differences: to the power, the whole engine curve scaled by 1 ± h (the boat's relative power
+// uncertainty from its evidence applies to the curve as a whole); to the nozzle diameter, D ± h·D.
+// The curves' own shape uncertainty (the pump maker's points) is not computed.
+//
+// Cavitation: where the boat declared its inlet depth and suction data, each point is checked
+// (lib/core/engine/cavitation.ts); a flagged point's thrust is an upper bound.
+//
+// What still uses the fixed-power model for a matched boat: the crossover with the median boat, the
+// equalising nozzles and the Monte Carlo odds (at the boat's confirmed power), and the chart's median
+// curve (the fixed-power median set-up); the report says so.
+
+import { computeMedian, type ParityReport } from '../engine/parity';
+import { computeMatchedCurve, type MatchedSetupInput } from '../engine/jet-matched';
+import { checkSuction, prepareSuction, type SuctionInput } from '../engine/cavitation';
+import { EngineInputError, EngineOperatingPointError } from '../engine/engine-input-error';
+
+export const REPORT_MODELS = ['fixed_power', 'matched'] as const;
+export type ReportModel = (typeof REPORT_MODELS)[number];
+
+export type ReportBoatCurves = {
+  engine: { curve: { rpm: number; powerKw: number }[]; limiterRpm?: number };
+  pump: {
+    impellerDiameterMm: number;
+    curve: { flowCoefficient: number; headCoefficient: number; efficiency: number }[];
+  };
+};
+
+export type MatchedReportPoint = {
+  speedMs: number;
+  rpm: number;
+  shaftPowerKw: number;
+  flowM3s: number;
+  flowCoefficient: number;
+  pumpEfficiency: number;
+  jetVelocityMs: number;
+  thrustN: number;
+  /** Standard uncertainty (k = 1), first order by finite differences: the root sum of squares of the two parts below. */
+  uThrustN: number;
+  /** The part from the power (the engine curve scaled) and the part from the nozzle diameter. */
+  uThrustFromPowerN: number;
+  uThrustFromDiameterN: number;
+  limitedBy: 'engine' | 'limiter';
+  /** null: no suction data declared, so not checked. */
+  cavitating: boolean | null;
+  availableNpshM?: number;
+  requiredNpshM?: number;
+};
+
+/** Which model gave a boat's figures, and why. */
+export type BoatModelUsed = {
+  model: ReportModel;
+  /** Why a boat of a matched class stayed on fixed power (no curves, or no operating point). */
+  reason?: string;
+  /** Static (0 m/s) first, then each reference speed: only for matched boats. */
+  points?: MatchedReportPoint[];
+};
+
+type Model = {
+  densityKgM3: number;
+  nozzleLossCoefficient: number;
+  inletLossCoefficient: number;
+  wakeFraction: number;
+};
+
+const RELATIVE_STEP = 1e-4;
+
+function scaledEngine(curves: ReportBoatCurves, factor: number): MatchedSetupInput['engine'] {
+  return {
+    curve: curves.engine.curve.map((p) => ({ rpm: p.rpm, powerKw: p.powerKw * factor })),
+    ...(curves.engine.limiterRpm !== undefined && { limiterRpm: curves.engine.limiterRpm }),
+  };
+}
+
+/**
+ * A boat's matched figures at 0 m/s and the reference speeds; an operating point that does not exist
+ * on the declared curves leaves the boat on fixed power, with the reason.
+ */
+export function computeMatchedBoat(
+  boat: {
+    nozzleDiameterMm: number;
+    uNozzleDiameterMm: number;
+    powerKw: number;
+    uPowerKw: number;
+    curves: ReportBoatCurves;
+    suction?: SuctionInput | null;
+  },
+  model: Model,
+  referenceSpeedsMs: readonly number[],
+): BoatModelUsed {
+  const speeds = [0, ...referenceSpeedsMs];
+  const setup = (engineFactor: number, nozzleMm: number): MatchedSetupInput => ({
+    ...model,
+    engine: scaledEngine(boat.curves, engineFactor),
+    pump: boat.curves.pump,
+    nozzleDiameterMm: nozzleMm,
+  });
+  try {
+    const base = computeMatchedCurve(setup(1, boat.nozzleDiameterMm), speeds);
+    const hP = RELATIVE_STEP;
+    const hD = RELATIVE_STEP * boat.nozzleDiameterMm;
+    const pUp = computeMatchedCurve(setup(1 + hP, boat.nozzleDiameterMm), speeds);
+    const pDown = computeMatchedCurve(setup(1 - hP, boat.nozzleDiameterMm), speeds);
+    const dUp = computeMatchedCurve(setup(1, boat.nozzleDiameterMm + hD), speeds);
+    const dDown = computeMatchedCurve(setup(1, boat.nozzleDiameterMm - hD), speeds);
+    const uRelPower = boat.powerKw > 0 ? boat.uPowerKw / boat.powerKw : 0;
+    const suction = boat.suction ? prepareSuction(boat.suction) : null;
+    const points = base.map((p, i): MatchedReportPoint => {
+      // dT/d(scale) times the relative power uncertainty; dT/dD times u(D).
+      const perScale = (pUp[i].thrustN - pDown[i].thrustN) / (2 * hP);
+      const perMm = (dUp[i].thrustN - dDown[i].thrustN) / (2 * hD);
+      const inflowMs = (1 - model.wakeFraction) * p.speedMs;
+      const check = suction
+        ? checkSuction(suction, model.densityKgM3, model.inletLossCoefficient, p.rpm, p.flowM3s, inflowMs)
+        : null;
+      return {
+        speedMs: p.speedMs,
+        rpm: p.rpm,
+        shaftPowerKw: p.shaftPowerKw,
+        flowM3s: p.flowM3s,
+        flowCoefficient: p.flowCoefficient,
+        pumpEfficiency: p.pumpEfficiency,
+        jetVelocityMs: p.jetVelocityMs,
+        thrustN: p.thrustN,
+        uThrustN: Math.hypot(perScale * uRelPower, perMm * boat.uNozzleDiameterMm),
+        uThrustFromPowerN: Math.abs(perScale * uRelPower),
+        uThrustFromDiameterN: Math.abs(perMm * boat.uNozzleDiameterMm),
+        limitedBy: p.limitedBy,
+        cavitating: check ? check.cavitating : null,
+        ...(check && { availableNpshM: check.availableNpshM, requiredNpshM: check.requiredNpshM }),
+      };
+    });
+    return { model: 'matched', points };
+  } catch (err) {
+    if (err instanceof EngineOperatingPointError || err instanceof EngineInputError)
+      return { model: 'fixed_power', reason: `No matched operating point on the declared curves: ${err.message}` };
+    throw err;
+  }
+}
+
+/**
+ * The parity figures with each matched boat's static thrust and thrust at the reference speeds taken
+ * from the matched model, and the class summary and every boat's deviation from the median recomputed
+ * from them (the median is the class's, whatever model each boat used).
+ */
+export function applyMatchedFigures(parity: ParityReport, used: Record<string, BoatModelUsed>): ParityReport {
+  const boats = parity.boats.map((b) => {
+    const points = used[b.id]?.model === 'matched' ? used[b.id].points : undefined;
+    if (!points) return b;
+    const [rest, ...atSpeeds] = points;
+    return {
+      ...b,
+      staticThrustN: rest.thrustN,
+      uStaticThrustN: rest.uThrustN,
+      uStaticThrustFromPowerN: rest.uThrustFromPowerN,
+      uStaticThrustFromDiameterN: rest.uThrustFromDiameterN,
+      thrustAtReferenceSpeeds: b.thrustAtReferenceSpeeds.map((t, j) => ({
+        speedMs: t.speedMs,
+        thrustN: atSpeeds[j].thrustN,
+        uThrustN: atSpeeds[j].uThrustN,
+        isThrustPositive: atSpeeds[j].thrustN > 0,
+      })),
+    };
+  });
+  const t0 = boats.map((b) => b.staticThrustN);
+  const median = computeMedian(t0);
+  const medianIndex = t0.indexOf(median);
+  const n = t0.length;
+  const min = Math.min(...t0);
+  const max = Math.max(...t0);
+  const mean = t0.reduce((s, t) => s + t, 0) / n;
+  const sd = n > 1 ? Math.sqrt(t0.reduce((s, t) => s + (t - mean) ** 2, 0) / (n - 1)) : null;
+  return {
+    ...parity,
+    summary: {
+      boatCount: n,
+      medianStaticThrustN: median,
+      minStaticThrustN: min,
+      maxStaticThrustN: max,
+      meanStaticThrustN: mean,
+      sampleStandardDeviationN: sd,
+      maxMinRatio: max / min,
+      spreadPercent: ((max - min) / median) * 100,
+      coefficientOfVariationPercent: sd === null ? null : (sd / mean) * 100,
+    },
+    boats: boats.map((b, i) => ({
+      ...b,
+      // The median boat is the one at the middle of the new order (odd count); an even count has none.
+      isReferenceBoat: n % 2 === 1 && i === medianIndex,
+      deviationFromMedianN: b.staticThrustN - median,
+      deviationFromMedianPercent: ((b.staticThrustN - median) / median) * 100,
+      // The median held exact, as the fixed-power report does (lib/core/engine/parity.ts).
+      uDeviationFromMedianN: b.uStaticThrustN,
+      uDeviationFromMedianPercent: (b.uStaticThrustN / median) * 100,
+    })),
+  };
+}
