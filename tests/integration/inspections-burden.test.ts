@@ -51,7 +51,8 @@ test('a pre-race inspection with an inconclusive reading is "not accepted"; a pr
   ] as const;
   for (const c of cases) {
     const e = await meeting.addEntry(defaultClass);
-    const { res, body } = await post(inspectionBody(e.id, 102.02, { kind: c.kind }));
+    const task = c.kind === 'protest' ? { reinspectionId: await meeting.addProtestTask(e.id) } : {};
+    const { res, body } = await post(inspectionBody(e.id, 102.02, { kind: c.kind, ...task }));
     assert.equal(res.status, 201, JSON.stringify(body));
     // The verdict is unchanged: inconclusive under ISO 14253-1 either way.
     assert.equal(body.data.overallResult, 'inconclusive', c.kind);
@@ -74,7 +75,8 @@ test('a pre-race inspection with an inconclusive reading is "not accepted"; a pr
 test('a proven result is the same under either burden', async () => {
   for (const kind of ['pre_race', 'protest'] as const) {
     const e = await meeting.addEntry(defaultClass);
-    const { res, body } = await post(inspectionBody(e.id, 102.06, { kind }));
+    const task = kind === 'protest' ? { reinspectionId: await meeting.addProtestTask(e.id) } : {};
+    const { res, body } = await post(inspectionBody(e.id, 102.06, { kind, ...task }));
     assert.equal(res.status, 201, JSON.stringify(body));
     const nozzle = (await storedLines(body.data.id)).results.rules.find((r) => r.rule === 'nozzle_max')!;
     assert.equal(nozzle.verdict, 'does_not_conform', `${kind}: 102.06 mm is beyond 102.00 + 0.05`);
@@ -84,11 +86,39 @@ test('a proven result is the same under either burden', async () => {
 
 test('the class rule decides: a class that puts the burden on the entrant in a protest too', async () => {
   const e = await meeting.addEntry(strictClass);
-  const { res, body } = await post(inspectionBody(e.id, 102.02, { kind: 'protest' }));
+  const reinspectionId = await meeting.addProtestTask(e.id);
+  const { res, body } = await post(inspectionBody(e.id, 102.02, { kind: 'protest', reinspectionId }));
   assert.equal(res.status, 201, JSON.stringify(body));
   const nozzle = (await storedLines(body.data.id)).results.rules.find((r) => r.rule === 'nozzle_max')!;
   assert.equal(nozzle.burdenOfProof, 'conformity');
   assert.equal(nozzle.outcome, 'not_accepted');
+});
+
+test('"protest" is the kind of a protest\'s re-inspection only: without one, or with a task no protest ordered, it is refused on the field', async () => {
+  // Attack finding F17: the kind was free to choose, and flipped each inconclusive line to "part stands".
+  const e = await meeting.addEntry(defaultClass);
+  const [organiser] = await query<{ id: string }>('select id from users where email = $1', [DEMO.organiser]);
+  const [plainTask] = await query<{ id: string }>(
+    `insert into reinspections (event_id, entry_id, reason, requested_by_id, created_at, updated_at)
+     values ($1, $2, 'Declaration changed.', $3, now(), now()) returning id`,
+    [meeting.eventId, e.id, organiser.id],
+  );
+  for (const extra of [{}, { reinspectionId: plainTask.id }]) {
+    const { res, body } = await post(inspectionBody(e.id, 102.02, { kind: 'protest', ...extra }));
+    assert.equal(res.status, 400, JSON.stringify(body));
+    assert.equal(body.error.details[0].field, 'kind');
+    assert.match(body.error.details[0].message, /re-inspection a steward ordered for a protest/);
+  }
+  const stored = await query('select id from inspections where entry_id = $1', [e.id]);
+  assert.equal(stored.length, 0, 'nothing stored');
+  // A correction of a protest record keeps its kind without naming the task again.
+  const reinspectionId = await meeting.addProtestTask(e.id);
+  const first = await post(inspectionBody(e.id, 102.02, { kind: 'protest', reinspectionId }));
+  assert.equal(first.res.status, 201, JSON.stringify(first.body));
+  const fix = await post(
+    inspectionBody(e.id, 102.01, { kind: 'protest', supersedesId: first.body.data.id, correctionReason: 'Misread.' }),
+  );
+  assert.equal(fix.res.status, 201, JSON.stringify(fix.body));
 });
 
 test('class rules: the burden of proof is stored as sent, older rules have none, a bad value is refused by field', async () => {

@@ -100,6 +100,28 @@ export class InspectionMeeting {
     await query('insert into boat_tags (boat_id, token) values ($1, $2)', [boat.id, token]);
     return { id: entry.id, boatId: boat.id, raceNumber, boatName, token };
   }
+
+  /**
+   * An accepted protest against the entry with the re-inspection a steward ordered for it (SQL: lodging,
+   * paying and ordering are tested in the protest tests). Returns the task's id, which a record of kind
+   * "protest" must name.
+   */
+  async addProtestTask(entryId: string, requestedChecks: string[] | null = null): Promise<string> {
+    const [lodger] = await query<{ id: string }>('select id from users where email = $1', [DEMO.organiser]);
+    const [protest] = await query<{ id: string }>(
+      `insert into protests (event_id, lodged_by_id, against_entry_id, matter_key, rule_reference, grounds, requested_checks,
+                             status, fee_minor, currency, window_deadline, paid_at)
+       values ($1, $2, $3, $4, 'RC 2.1', 'Measure the boat again.', $5::jsonb, 'accepted', 3000, 'NZD', now() + interval '1 hour', now())
+       returning id`,
+      [this.eventId, lodger.id, entryId, `entry:${entryId}:${randomUUID()}`, JSON.stringify(requestedChecks)],
+    );
+    const [task] = await query<{ id: string }>(
+      `insert into reinspections (event_id, entry_id, reason, requested_by_id, protest_id, created_at, updated_at)
+       values ($1, $2, 'Ordered by the protest committee.', $3, $4, now(), now()) returning id`,
+      [this.eventId, entryId, lodger.id, protest.id],
+    );
+    return task.id;
+  }
 }
 
 /** A valid record body: three readings (the largest given), typed U 0.05 mm, helmet ticked. */

@@ -181,22 +181,33 @@ export async function recordInspection(
   }
 
   let measuredAt = new Date(input.capturedAt);
+  let isProtestCorrection = false;
   if (input.supersedesId) {
     const original = await models.Inspection.findOne({ where: { id: input.supersedesId, entryId: entry.id } });
     if (!original) throw fieldError('supersedesId', 'Only an earlier record of the same entry can be corrected.');
     // A correction restates that inspection, so it is decided under the rules in force then.
     measuredAt = original.capturedAt;
+    isProtestCorrection = original.kind === 'protest';
   }
   let scope: CheckArea[] | null = null;
+  let isProtestTask = false;
   if (input.reinspectionId) {
     const task = await models.Reinspection.findOne({ where: { id: input.reinspectionId, eventId, entryId: entry.id } });
     if (!task) throw fieldError('reinspectionId', 'This re-inspection task is not for this entry.');
     // A protest's re-inspection decides only the checks the protest asked for.
     if (task.protestId) {
+      isProtestTask = true;
       const protest = await models.Protest.findByPk(task.protestId, { attributes: ['id', 'requestedChecks'] });
       scope = scopeFromRequestedChecks(protest?.requestedChecks);
     }
   }
+  // The kind sets the burden of proof (a protest puts it on the protester): a "protest" inspection is
+  // the re-inspection a steward ordered for a protest against this entry, or a correction of one.
+  if (input.kind === 'protest' && !isProtestTask && !isProtestCorrection)
+    throw fieldError(
+      'kind',
+      'A protest inspection is the re-inspection a steward ordered for a protest against this boat: record it from that task, or choose another kind.',
+    );
   // The version in force when the boat was measured (as findRulesInForce picks it), from the versions
   // that came with the entry: one query fewer per record. Published versions are frozen.
   const ruleVersion = (entry.publishedVersions ?? []).find((v) => v.effectiveFromMs <= measuredAt.getTime()) ?? null;

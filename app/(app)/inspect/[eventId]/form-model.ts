@@ -156,7 +156,12 @@ export function initialFormState(
 ): FormState {
   const n = Math.max(target.rules?.nozzle.minReadings ?? 3, 1);
   return {
-    kind: target.card?.openReinspections.length ? 'post_race' : 'pre_race',
+    // A protest's re-inspection is a protest inspection (the protester's burden); another task, post-race.
+    kind: target.card?.openReinspections[0]?.protestId
+      ? 'protest'
+      : target.card?.openReinspections.length
+        ? 'post_race'
+        : 'pre_race',
     readings: Array.from({ length: n }, (_, i) => ({ diameter: '', angle: angleFor(i, n) })),
     uncertaintySource: lengthInstrumentId ? 'instrument' : 'class',
     instrumentId: lengthInstrumentId ?? '',

@@ -189,7 +189,11 @@ export function InspectionForm({
             value={f.kind}
             onChange={(e) => set('kind', e.target.value as FormState['kind'])}
           >
-            {INSPECTION_KINDS.map((k) => (
+            {INSPECTION_KINDS.filter(
+              // "Protest" puts the burden of proof on the protester: only for a protest's re-inspection (or
+              // a correction of a protest record, or a form already on it); the server refuses it otherwise.
+              (k) => k !== 'protest' || task?.protestId || f.supersedesId || f.kind === 'protest',
+            ).map((k) => (
               <option key={k} value={k}>
                 {INSPECTION_KIND_LABELS[k]}
               </option>

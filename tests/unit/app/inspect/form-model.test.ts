@@ -218,6 +218,16 @@ test("the form starts with the class's number of readings at the even spread, th
   );
   assert.equal(ordered.kind, 'post_race', 'an open re-inspection makes it a post-race record');
   assert.equal(ordered.reinspectionId, reinspectionId);
+  // A protest's re-inspection is a protest record: the protester's burden of proof (common practice, no source).
+  const protested = initialFormState(
+    targetFromCard(
+      card({ openReinspections: [{ id: reinspectionId, protestId: randomUUID() }] as BoatCard['openReinspections'] }),
+      false,
+    ),
+    null,
+    null,
+  );
+  assert.equal(protested.kind, 'protest');
 });
 
 const META = { idempotencyKey: randomUUID(), capturedAt: new Date().toISOString(), device: 'test phone' };
