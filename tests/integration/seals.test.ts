@@ -605,3 +605,34 @@ test('leading zeros do not make another seal: "Z-01" and "Z-1" are one number in
     [['applied', meetings[0].eventId]],
   );
 });
+
+test('photos of one seal sent at once: the first becomes its photo, the others are refused and not stored', async () => {
+  // Attack finding F12: parallel uploads of different photos were all answered 201 as the seal's photo.
+  const number = `${PREFIX}M3-4`;
+  const rec = await post(
+    meetings[2],
+    inspectionBody(entryAt[2], 101.9, {
+      seals: { applied: [{ number, componentId: engineId, position: 'pump bowl' }] },
+    }),
+  );
+  assert.equal(rec.res.status, 201, JSON.stringify(rec.body));
+  const url = `/api/events/${meetings[2].eventId}/inspections/${rec.body.data.id}/photos`;
+  const upload = async (i: number) => {
+    const f = new FormData();
+    const bytes = await QRCode.toBuffer(`parallel photo ${i} ${number}`, { type: 'png' });
+    f.append('photo', new Blob([new Uint8Array(bytes)], { type: 'image/png' }), `seal-${i}.png`);
+    f.append('sealNumber', number);
+    return scrutineer.fetch(url, { method: 'POST', body: f });
+  };
+  const answers = await Promise.all([0, 1, 2, 3, 4].map(upload));
+  const statuses = answers.map((a) => a.status).sort();
+  assert.deepEqual(statuses, [201, 409, 409, 409, 409]);
+  const winner = await answers.find((a) => a.status === 201)!.json();
+  const [event] = await query<{ photo_id: string }>(
+    `select e.photo_id from seal_events e join seals s on s.id = e.seal_id where s.number = $1`,
+    [number],
+  );
+  assert.equal(event.photo_id, winner.data[0].id);
+  const photos = await query('select id from inspection_photos where inspection_id = $1', [rec.body.data.id]);
+  assert.equal(photos.length, 1, 'the refused photos are not stored');
+});

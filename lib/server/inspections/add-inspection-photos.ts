@@ -1,7 +1,7 @@
 import 'server-only';
 import { sealKeySql } from '@/lib/server/seals/seal-key';
 import { sealNumberKey } from '@/lib/core/inputs/seals';
-import { QueryTypes } from 'sequelize';
+import { QueryTypes, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
@@ -83,41 +83,70 @@ export async function addInspectionPhotos(
     if (earlier?.sha256 !== checked[0].file.sha256Hex)
       throw new AppError('seal_photo_taken', 409, `Seal ${opts.sealNumber} already has its photo in this inspection.`);
   }
-  const out: InspectionPhotoView[] = [];
-  for (const { photo, file } of checked) {
-    const existing = await models.InspectionPhoto.findOne({ where: { inspectionId, sha256: file.sha256Hex } });
-    const row =
-      existing ??
-      (await (async () => {
-        const objectKey = newObjectKey('inspection-photos');
-        await putObject({
-          key: objectKey,
-          bytes: photo.bytes,
-          contentType: file.detectedType,
-          metadata: { inspectionId, uploadedById: actor.id },
-          sha256Hex: file.sha256Hex,
-        });
-        return models.InspectionPhoto.create({
-          inspectionId,
-          objectKey,
-          contentType: file.detectedType,
-          sizeBytes: file.sizeBytes,
-          sha256: file.sha256Hex,
-        });
-      })());
-    // seal_events allows exactly this one change: its photo, once, from this inspection (migration 20261203005300).
-    if (sealEvent && !sealEvent.photoId)
-      await sequelize.query('update seal_events set photo_id = :photoId where id = :id and photo_id is null', {
-        replacements: { photoId: row.id, id: sealEvent.id },
-      });
-    out.push({
-      id: row.id,
-      inspectionId,
-      contentType: row.contentType,
-      sizeBytes: row.sizeBytes,
-      sha256: row.sha256,
-      createdAt: row.createdAt.toISOString(),
+  const store = async ({ photo, file }: (typeof checked)[number], transaction?: Transaction) => {
+    const existing = await models.InspectionPhoto.findOne({
+      where: { inspectionId, sha256: file.sha256Hex },
+      transaction,
     });
+    if (existing) return existing;
+    const objectKey = newObjectKey('inspection-photos');
+    await putObject({
+      key: objectKey,
+      bytes: photo.bytes,
+      contentType: file.detectedType,
+      metadata: { inspectionId, uploadedById: actor.id },
+      sha256Hex: file.sha256Hex,
+    });
+    return models.InspectionPhoto.create(
+      {
+        inspectionId,
+        objectKey,
+        contentType: file.detectedType,
+        sizeBytes: file.sizeBytes,
+        sha256: file.sha256Hex,
+      },
+      { transaction },
+    );
+  };
+  const view = (row: Awaited<ReturnType<typeof store>>): InspectionPhotoView => ({
+    id: row.id,
+    inspectionId,
+    contentType: row.contentType,
+    sizeBytes: row.sizeBytes,
+    sha256: row.sha256,
+    createdAt: row.createdAt.toISOString(),
+  });
+  if (sealEvent) {
+    // The seal's photo, under the seal event's row lock: of photos sent at once for one seal, the first
+    // becomes its photo and the others are refused as a second photo would be, one after another
+    // (attack finding F12); a retry of the same photo is answered as before.
+    const eventId = sealEvent.id;
+    const row = await sequelize.transaction(async (transaction) => {
+      const [locked] = await sequelize.query<{ photoId: string | null }>(
+        'select photo_id as "photoId" from seal_events where id = :id for update',
+        { replacements: { id: eventId }, type: QueryTypes.SELECT, transaction },
+      );
+      if (locked?.photoId) {
+        const earlier = await models.InspectionPhoto.findByPk(locked.photoId, { attributes: ['sha256'], transaction });
+        if (earlier?.sha256 !== checked[0].file.sha256Hex)
+          throw new AppError(
+            'seal_photo_taken',
+            409,
+            `Seal ${opts.sealNumber} already has its photo in this inspection.`,
+          );
+      }
+      const stored = await store(checked[0], transaction);
+      // seal_events allows exactly this one change: its photo, once, from this inspection (migration 20261203005300).
+      if (!locked?.photoId)
+        await sequelize.query('update seal_events set photo_id = :photoId where id = :id and photo_id is null', {
+          replacements: { photoId: stored.id, id: eventId },
+          transaction,
+        });
+      return stored;
+    });
+    return [view(row)];
   }
+  const out: InspectionPhotoView[] = [];
+  for (const c of checked) out.push(view(await store(c)));
   return out;
 }
