@@ -56,7 +56,9 @@ export function ReportModelNotes({ inputs, results }: { inputs: ReportInputs; re
             This class reports on the <strong>matched model</strong>: a boat that declared both an engine curve and a
             pump curve is figured where its engine and pump settle (pump affinity laws: Karassik, <em>Pump Handbook</em>
             ; Brennen, <em>Hydrodynamics of Pumps</em>, 1994) at its measured nozzle; the others at fixed power. The
-            “Model” column says which ({matched.length} of {used.length} boats matched).
+            “Model” column says which ({matched.length} of {used.length} boats matched). A declared engine curve gives
+            the shape of power against rpm only: it is scaled so that its peak is the power the inspection confirmed
+            (the power the fixed-power figures use).
           </p>
           <p>
             Uncertainty of a matched figure: first order, by finite differences, from the boat&apos;s power uncertainty

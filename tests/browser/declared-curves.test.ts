@@ -10,6 +10,7 @@ import { DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
 import { expectNoSeriousA11yViolations } from '../support/a11y';
 import { HttpSession } from '../support/http-session';
 import { InspectionMeeting, rulesWith, type TestEntry } from '../support/inspection-meeting';
+import { query } from '../support/db';
 
 let browser: Browser;
 const meeting = new InspectionMeeting();
@@ -40,6 +41,14 @@ after(async () => {
   await browser?.close();
 });
 
+const clubOf = async (eventId: string) =>
+  (
+    await query<{ name: string }>(
+      'select o.name from events e join organisations o on o.id = e.organisation_id where e.id = $1',
+      [eventId],
+    )
+  )[0].name;
+
 test('an owner declares the engine curve and a catalogue impeller on a phone', async () => {
   const ctx = await newContext(browser, PHONE);
   const page = await ctx.newPage();
@@ -53,9 +62,10 @@ test('an owner declares the engine curve and a catalogue impeller on a phone', a
   // rpm must increase: the second point goes back down.
   await form.getByLabel('Engine curve').fill('6000 280\n5000 220\n7000 300');
   await form.getByLabel('Jet pump').selectOption('catalogue');
-  await form
-    .getByLabel('Impeller')
-    .selectOption({ label: `Invented Jets ${run} Mixed 212 trim T3, 212 mm (Curves Browser ${run})` });
+  await form.getByLabel('Impeller').selectOption({
+    // Each impeller names its meeting and the club running it (two meetings may share a name).
+    label: `Invented Jets ${run} Mixed 212 trim T3, 212 mm (Curves Browser ${run}, ${await clubOf(meeting.eventId)})`,
+  });
   await form.getByRole('button', { name: 'Save the curves' }).click();
   await form
     .locator('[data-field-error="engine.curve"]')

@@ -426,6 +426,21 @@ test('a serial someone else registered tells nothing and locks nobody out: both 
     assert.equal(again.res.status, 409, `${JSON.stringify(maker)}: ${JSON.stringify(again.body)}`);
     assert.equal(again.body.error.code, 'serial_taken');
   }
+  // The serial in full-width digits is the same serial (NFKC); a Cyrillic look-alike is refused (attack s7, F3).
+  const wide = await register(owner, boatA.boatId, {
+    kind: 'engine',
+    maker: 'Tarnmoor Engines',
+    serialNumber: serial.replace(/[0-9A-F]/g, (c) => String.fromCharCode(c.charCodeAt(0) + 0xfee0)),
+  });
+  assert.equal(wide.res.status, 409, JSON.stringify(wide.body));
+  const cyrillic = await register(owner, boatA.boatId, {
+    kind: 'engine',
+    maker: 'Tarnmoor Engines',
+    serialNumber: `\u0422M-${run}`,
+  });
+  assert.equal(cyrillic.res.status, 400, JSON.stringify(cyrillic.body));
+  assert.equal(cyrillic.body.error.details[0].field, 'serialNumber');
+  assert.match(cyrillic.body.error.details[0].message, /Latin letters A–Z and digits 0–9/);
   const [{ n }] = await query<{ n: number }>(
     'select count(*)::int as n from boat_components where lower(serial_number) = lower($1)',
     [serial],

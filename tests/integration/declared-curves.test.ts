@@ -217,7 +217,17 @@ test('a meeting still in draft keeps its catalogue (and its name) from entrants;
     assert.equal(byEntrant.status, 200);
     assert.deepEqual((await byEntrant.json()).data, []);
     const byOrganiser = await meeting.organiser.fetch(path);
-    assert.equal(((await byOrganiser.json()).data as unknown[]).length, 1);
+    const listed = (await byOrganiser.json()).data as { id: string; organisationName: string }[];
+    assert.equal(listed.length, 1);
+    assert.ok(listed[0].organisationName, 'each impeller names the club running its meeting');
+    // Chosen by its id, a draft meeting's impeller is as unknown as in the list (attack s7, F5).
+    const chosen = await owner.json(
+      `/api/boats/${entry.boatId}/performance`,
+      { pump: { kind: 'catalogue', catalogueEntryId: listed[0].id } },
+      'PUT',
+    );
+    assert.equal(chosen.res.status, 400, JSON.stringify(chosen.body));
+    assert.equal(chosen.body.error.details[0].field, 'pump.catalogueEntryId');
   } finally {
     await query(`update events set status = 'entries_open' where id = $1`, [meeting.eventId]);
   }

@@ -64,6 +64,8 @@ type Draft = {
       {
         model: string;
         reason?: string;
+        declaredPeakKw?: number;
+        scaledToKw?: number;
         points?: (MatchedPoint & {
           uThrustN: number;
           cavitating: boolean | null;
@@ -117,8 +119,12 @@ test('the matched boat’s figures are the matched model’s; the other boat sta
 
   const input = draft.inputs.boats.find((b) => b.entryId === matchedBoat.id)!;
   const rho = draft.inputs.density.densityKgM3;
+  // The declared curve's shape at the power the inspection confirmed: its 300 kW peak scaled to the boat's.
+  assert.equal(used[matchedBoat.id].declaredPeakKw, 300);
+  assert.equal(used[matchedBoat.id].scaledToKw, input.powerKw);
+  const levelled = { curve: engine.curve.map((c) => ({ rpm: c.rpm, powerKw: (c.powerKw * input.powerKw) / 300 })) };
   const setup = prepareMatchedSetup({
-    engine,
+    engine: levelled,
     pump,
     nozzleDiameterMm: input.nozzleDiameterMm,
     densityKgM3: rho,
@@ -172,8 +178,8 @@ test('the matched boat’s figures are the matched model’s; the other boat sta
   const engineW =
     interpolate(
       p0.rpm,
-      engine.curve.map((c) => c.rpm),
-      engine.curve.map((c) => c.powerKw),
+      levelled.curve.map((c) => c.rpm),
+      levelled.curve.map((c) => c.powerKw),
     ) * 1000;
   assert.ok(Math.abs(absorbedW / engineW - 1) < 1e-9, `power ${absorbedW} vs ${engineW}`);
   // Momentum: T = rho Q v_j at rest.

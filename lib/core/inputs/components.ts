@@ -37,14 +37,17 @@ export const RegisterComponentInput = z.strictObject({
   maker: maker.default(''),
   model: model.default(''),
   // As stamped on the part: letters and digits with the separators makers use; no spaces at the ends.
+  // Makers stamp serials in Latin letters and Arabic digits (common practice, no source). In NFKC first,
+  // so a full-width "１" is "1"; a look-alike from another script (Cyrillic "А" for "A") is refused, so
+  // one stamped serial cannot be registered twice in letters that read the same.
   serialNumber: z
     .string({ error: 'Enter the serial number.' })
-    .trim()
+    .overwrite((v) => v.normalize('NFKC').trim())
     .min(1, { error: 'Enter the serial number as stamped on the part.', abort: true })
     .max(80, 'Keep the serial number under 80 characters.')
     .refine(
-      (v) => /^[\p{L}\p{N}](?:[\p{L}\p{N} ./_-]*[\p{L}\p{N}])?$/u.test(v),
-      'Type the serial number as stamped: letters and digits, with spaces, dots, slashes, hyphens or underscores between them.',
+      (v) => /^[A-Za-z0-9](?:[A-Za-z0-9 ./_-]*[A-Za-z0-9])?$/.test(v),
+      'Type the serial number as stamped: Latin letters A–Z and digits 0–9, with spaces, dots, slashes, hyphens or underscores between them.',
     ),
   trimCode: trimCode.default(''),
   notes: notes.default(''),

@@ -6,6 +6,8 @@
 // Uncertainty of those figures: first order (JCGM 100:2008, 5.1.2), sensitivities by central finite
 // differences: to the power, the whole engine curve scaled by 1 ± h (the boat's relative power
 // uncertainty from its evidence applies to the curve as a whole); to the nozzle diameter, D ± h·D.
+// The declared curve is first scaled so that its peak is the power the inspection confirmed: the
+// curve says how power varies with rpm, the evidence says how much there is.
 // The curves' own shape uncertainty (the pump maker's points) is not computed.
 //
 // Cavitation: where the boat declared its inlet depth and suction data, each point is checked
@@ -59,6 +61,12 @@ export type BoatModelUsed = {
   reason?: string;
   /** Static (0 m/s) first, then each reference speed: only for matched boats. */
   points?: MatchedReportPoint[];
+  /**
+   * Matched boats: the declared engine curve's peak, and the power it was scaled to (the power the
+   * inspection confirmed, as the fixed-power figures use). The curve gives the shape only.
+   */
+  declaredPeakKw?: number;
+  scaledToKw?: number;
 };
 
 type Model = {
@@ -75,6 +83,22 @@ function scaledEngine(curves: ReportBoatCurves, factor: number): MatchedSetupInp
     curve: curves.engine.curve.map((p) => ({ rpm: p.rpm, powerKw: p.powerKw * factor })),
     ...(curves.engine.limiterRpm !== undefined && { limiterRpm: curves.engine.limiterRpm }),
   };
+}
+
+const curvePeakKw = (curves: ReportBoatCurves) => Math.max(...curves.engine.curve.map((p) => p.powerKw));
+
+/** The factor that takes the declared curve's peak to the confirmed power; null when either is not above zero. */
+function curveLevel(curves: ReportBoatCurves, powerKw: number): number | null {
+  const peak = curvePeakKw(curves);
+  return peak > 0 && powerKw > 0 ? powerKw / peak : null;
+}
+
+/** The declared curves with the engine curve's peak at the confirmed power (null: nothing to scale). */
+export function levelledCurves(curves: ReportBoatCurves, powerKw: number): ReportBoatCurves | null {
+  const level = curveLevel(curves, powerKw);
+  if (level == null) return null;
+  const { curve, limiterRpm } = scaledEngine(curves, level);
+  return { ...curves, engine: { curve: [...curve], ...(limiterRpm !== undefined && { limiterRpm }) } };
 }
 
 /**
@@ -94,9 +118,16 @@ export function computeMatchedBoat(
   referenceSpeedsMs: readonly number[],
 ): BoatModelUsed {
   const speeds = [0, ...referenceSpeedsMs];
+  // The declared curve gives the engine's shape; its level is the power the inspection confirmed (dyno
+  // sheet, maker's rating or declaration, as for the fixed-power figures). Taken as typed, an owner's
+  // curve would set the boat's figures, and through the median every other boat's (attack finding, s7).
+  const declaredPeakKw = curvePeakKw(boat.curves);
+  const level = curveLevel(boat.curves, boat.powerKw);
+  if (level == null)
+    return { model: 'fixed_power', reason: 'The declared engine curve has no power above zero to scale.' };
   const setup = (engineFactor: number, nozzleMm: number): MatchedSetupInput => ({
     ...model,
-    engine: scaledEngine(boat.curves, engineFactor),
+    engine: scaledEngine(boat.curves, level * engineFactor),
     pump: boat.curves.pump,
     nozzleDiameterMm: nozzleMm,
   });
@@ -135,7 +166,7 @@ export function computeMatchedBoat(
         ...(check && { availableNpshM: check.availableNpshM, requiredNpshM: check.requiredNpshM }),
       };
     });
-    return { model: 'matched', points };
+    return { model: 'matched', points, declaredPeakKw, scaledToKw: boat.powerKw };
   } catch (err) {
     if (err instanceof EngineOperatingPointError || err instanceof EngineInputError)
       return { model: 'fixed_power', reason: `No matched operating point on the declared curves: ${err.message}` };

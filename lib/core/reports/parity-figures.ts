@@ -16,6 +16,7 @@ import type { SuctionInput } from '../engine/cavitation';
 import {
   applyMatchedFigures,
   computeMatchedBoat,
+  levelledCurves,
   type BoatModelUsed,
   type ReportBoatCurves,
   type ReportModel,
@@ -164,7 +165,8 @@ export function computeReportResults(inputs: ReportInputs): ReportResults {
   const byEntry: Record<string, number[]> = {};
   for (const b of inputs.boats) {
     if (modelUsed?.[b.entryId]?.model === 'matched' && b.curves) {
-      const matched = computeMatchedChart(b.curves, b.nozzleDiameterMm, model, speedsMs);
+      const levelled = levelledCurves(b.curves, b.powerKw);
+      const matched = levelled && computeMatchedChart(levelled, b.nozzleDiameterMm, model, speedsMs);
       if (matched) {
         byEntry[b.entryId] = matched;
         continue;

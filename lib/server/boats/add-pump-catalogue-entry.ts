@@ -29,6 +29,7 @@ export async function addPumpCatalogueEntry(
     curve: input.curve,
     createdById: actor.id,
   });
-  const event = (await models.Event.findByPk(eventId, { attributes: ['name'] }))!;
-  return toCatalogueView(entry, event.name);
+  const event = (await models.Event.findByPk(eventId, { attributes: ['name', 'organisationId'] }))!;
+  const organisation = await models.Organisation.findByPk(event.organisationId, { attributes: ['name'] });
+  return toCatalogueView(entry, event.name, organisation?.name ?? '');
 }

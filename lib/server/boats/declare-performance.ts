@@ -1,7 +1,7 @@
 import 'server-only';
 import { getDb } from '@/lib/server/db';
 import { fieldError } from '@/lib/core/errors';
-import type { Actor } from '@/lib/server/auth/actor';
+import { can, type Actor } from '@/lib/server/auth/actor';
 import { DeclarePerformanceInput } from '@/lib/core/inputs/boat-performance';
 import type { StoredBoatPerformance } from '@/lib/core/boats/declared-performance';
 import type { StoredDeclaredPump } from '@/models/shapes/boat-performance';
@@ -24,8 +24,12 @@ export async function declarePerformance(
     const input = DeclarePerformanceInput.parse(raw);
     let pump: StoredDeclaredPump | null = null;
     if (input.pump?.kind === 'catalogue') {
-      const entry = await getDb().models.PumpCatalogueEntry.findByPk(input.pump.catalogueEntryId);
-      if (!entry)
+      const { models } = getDb();
+      const entry = await models.PumpCatalogueEntry.findByPk(input.pump.catalogueEntryId);
+      // A draft meeting's catalogue is not public yet: chosen by id it is as unknown as in the list.
+      const event = entry && (await models.Event.findByPk(entry.eventId, { attributes: ['id', 'status'] }));
+      const isVisible = !!event && (event.status !== 'draft' || can(actor!, 'class.edit', { eventId: event.id }));
+      if (!entry || !isVisible)
         throw fieldError('pump.catalogueEntryId', 'No such impeller in the catalogue: choose one from the list.');
       pump = {
         kind: 'catalogue',

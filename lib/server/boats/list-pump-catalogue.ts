@@ -9,6 +9,8 @@ export type PumpCatalogueView = {
   id: string;
   eventId: string;
   eventName: string;
+  /** The club running the meeting: two meetings of one name are told apart by it. */
+  organisationName: string;
   maker: string;
   model: string;
   trimCode: string;
@@ -17,10 +19,15 @@ export type PumpCatalogueView = {
   createdAt: string;
 };
 
-export const toCatalogueView = (e: PumpCatalogueEntry, eventName: string): PumpCatalogueView => ({
+export const toCatalogueView = (
+  e: PumpCatalogueEntry,
+  eventName: string,
+  organisationName: string,
+): PumpCatalogueView => ({
   id: e.id,
   eventId: e.eventId,
   eventName,
+  organisationName,
   maker: e.maker,
   model: e.model,
   trimCode: e.trimCode,
@@ -39,9 +46,9 @@ export async function listPumpCatalogue(actor: Actor | null, eventId?: string): 
   assertCan(actor, 'boat.manage_own');
   const organised = Object.keys(actor.eventRoles).filter((id) => can(actor, 'class.edit', { eventId: id }));
   const rows = await getDb().sequelize.query<Omit<PumpCatalogueView, 'createdAt'> & { createdAt: Date }>(
-    `select p.id, p.event_id as "eventId", ev.name as "eventName", p.maker, p.model, p.trim_code as "trimCode",
-            p.impeller_diameter_mm as "impellerDiameterMm", p.curve, p.created_at as "createdAt"
-       from pump_catalogue_entries p join events ev on ev.id = p.event_id
+    `select p.id, p.event_id as "eventId", ev.name as "eventName", o.name as "organisationName", p.maker, p.model,
+            p.trim_code as "trimCode", p.impeller_diameter_mm as "impellerDiameterMm", p.curve, p.created_at as "createdAt"
+       from pump_catalogue_entries p join events ev on ev.id = p.event_id join organisations o on o.id = ev.organisation_id
       where (cast(:eventId as uuid) is null or p.event_id = cast(:eventId as uuid))
         and (ev.status <> 'draft' or p.event_id = any(cast(:organised as uuid[])))
       order by p.created_at desc

@@ -40,7 +40,8 @@ export async function findBoatsBySerial(
   serialText: string,
 ): Promise<{ matches: SerialMatch[] }> {
   assertCan(actor, 'inspection.record', { eventId });
-  const serial = serialText.trim();
+  // As the register holds serials: in NFKC (a full-width "１" typed on a phone is "1").
+  const serial = serialText.normalize('NFKC').trim();
   if (serial.length === 0 || serial.length > 80)
     throw refuse('Type the serial number as stamped (1 to 80 characters).');
   // A boat's live entry here if it has one, else its latest (a withdrawn boat still shows, marked so).

@@ -164,7 +164,7 @@ export default async function BoatPage({ params }: { params: Promise<{ boatId: s
               declared={boat.declaredPerformance}
               catalogue={catalogue.map((c) => ({
                 id: c.id,
-                label: `${c.maker} ${c.model}${c.trimCode ? ` trim ${c.trimCode}` : ''}, ${c.impellerDiameterMm} mm (${c.eventName})`,
+                label: `${c.maker} ${c.model}${c.trimCode ? ` trim ${c.trimCode}` : ''}, ${c.impellerDiameterMm} mm (${c.eventName}, ${c.organisationName})`,
               }))}
             />
           </div>

@@ -81,9 +81,13 @@ test('a matched class: the boat with working curves uses them; the median and de
   // (a 422 in the matched API), so it stays on fixed power and the report says why.
   assert.equal(used.c.model, 'fixed_power');
   assert.match(used.c.reason!, /^No matched operating point on the declared curves: .*held below its curve/);
+  // The declared curve is scaled so that its peak (300 kW) is the confirmed power (250 kW): the curve
+  // gives the shape, the inspection's evidence the level.
+  assert.equal(used.a.declaredPeakKw, 300);
+  assert.equal(used.a.scaledToKw, 250);
   const expected = computeMatchedCurve(
     {
-      engine,
+      engine: { curve: engine.curve.map((p) => ({ rpm: p.rpm, powerKw: (p.powerKw * 250) / 300 })) },
       pump,
       nozzleDiameterMm: 100,
       densityKgM3: 999.1026,
@@ -155,5 +159,23 @@ test('finite-difference uncertainty agrees with the closed form where matched eq
   assert.ok(
     Math.abs(b.uStaticThrustFromDiameterN! / fromDiameter - 1) < 1e-5,
     `${b.uStaticThrustFromDiameterN} vs ${fromDiameter}`,
+  );
+});
+
+test('an owner cannot set the level with the curve: a curve of the same shape at a twentieth of the power gives the same figures', () => {
+  // Attack finding (session 7): a boat confirmed at 250 kW declared a curve peaking at 16 kW and
+  // reported a sixth of its thrust, moving the class median and every other boat's deviation.
+  const low = inputs('matched');
+  low.boats[0] = {
+    ...low.boats[0],
+    curves: { engine: { curve: engine.curve.map((p) => ({ rpm: p.rpm, powerKw: p.powerKw / 20 })) }, pump },
+  } as (typeof low.boats)[number];
+  const honest = computeReportResults(inputs('matched')).parity!.boats.find((b) => b.id === 'a')!;
+  const lowered = computeReportResults(low).parity!.boats.find((b) => b.id === 'a')!;
+  assert.ok(Math.abs(lowered.staticThrustN / honest.staticThrustN - 1) < 1e-12);
+  assert.ok(
+    lowered.thrustAtReferenceSpeeds.every(
+      (t, i) => Math.abs(t.thrustN / honest.thrustAtReferenceSpeeds[i].thrustN - 1) < 1e-12,
+    ),
   );
 });
