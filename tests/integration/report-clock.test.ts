@@ -212,3 +212,11 @@ test('published results carry each boat’s best current run time beside its pos
   const page = await (await meeting.organiser.fetch(`/organise/events/${meeting.eventId}/results`)).text();
   assert.match(page, /42\.30 s/);
 });
+
+test('the clock page shows the equalisation suggestion per boat, in seconds with its U', async () => {
+  const res = await meeting.organiser.fetch(`/organise/events/${meeting.eventId}/clock?class=${classId}`);
+  assert.equal(res.status, 200);
+  const page = await res.text();
+  assert.match(page, /data-testid="clock-equalisation"/);
+  assert.match(page, /Class median predicted time \d+\.\d\d s/);
+});
