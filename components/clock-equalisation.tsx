@@ -19,8 +19,8 @@ export function ClockEqualisation({ section }: { section: ClockSection }) {
       ) : (
         <>
           <p className="text-sm">
-            Class median predicted time {eq.medianS.toFixed(2)} s. For a boat faster than the median: the ballast, or
-            instead the nozzle restrictor, that brings its predicted time to the median, the same model as the levers
+            {`Class median predicted time ${eq.medianS.toFixed(2)} s.`} For a boat faster than the median: the ballast,
+            or instead the nozzle restrictor, that brings its predicted time to the median, the same model as the levers
             (fixed-power thrust, the boat&apos;s own drag). U is expanded (k = 2) from the boat&apos;s power, nozzle and
             weighing uncertainties, the median taken as exact (JCGM 100:2008, first order). A suggestion for the rules
             committee: the governing body&apos;s rules and its officials decide.

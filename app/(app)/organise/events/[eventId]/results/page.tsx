@@ -77,9 +77,9 @@ export default async function ResultsPage({ params }: { params: Promise<{ eventI
                       <td className="figure p-2" data-testid="best-time">
                         {r.bestRun ? (
                           <>
-                            {r.bestRun.elapsedS.toFixed(2)} s
+                            {`${r.bestRun.elapsedS.toFixed(2)} s`}
                             <span className="block text-xs text-ink-soft">
-                              {r.bestRun.courseLengthM} m, run {r.bestRun.runLabel} of {r.bestRun.runs}
+                              {`${r.bestRun.courseLengthM} m, run ${r.bestRun.runLabel} of ${r.bestRun.runs}`}
                             </span>
                           </>
                         ) : (
