@@ -11,8 +11,17 @@ const DRAG_WORDS = {
   class_default: 'class default',
 } as const;
 
-/** A class's predicted runs (fixed-power thrust) against its run times: tables, the comparison, the chart. */
-export function ClockSection({ section }: { section: ClockSectionFigures & { classCode: string; className: string } }) {
+/**
+ * A class's predicted runs (fixed-power thrust) against its run times: tables, the comparison, the chart. The
+ * parity report shows it without the levers (`withLevers={false}`): a published version is a record, not a sandbox.
+ */
+export function ClockSection({
+  section,
+  withLevers = true,
+}: {
+  section: ClockSectionFigures & { classCode: string; className: string };
+  withLevers?: boolean;
+}) {
   const c = section.comparison;
   const A = section.assumptions;
   return (
@@ -44,6 +53,10 @@ export function ClockSection({ section }: { section: ClockSectionFigures & { cla
             {(A.assumedTopSpeedMs * 3.6).toFixed(0)} km/h. Each row says which.
           </li>
         </ul>
+        <p data-testid="clock-caution">
+          A prediction from a model, not a result or a verdict: the governing body&apos;s rules and its officials
+          decide.
+        </p>
       </div>
       <div className="card overflow-x-auto" tabIndex={0} role="region" aria-label="Predicted runs">
         <table className="w-full text-left text-sm" data-testid="clock-predictions">
@@ -99,7 +112,7 @@ export function ClockSection({ section }: { section: ClockSectionFigures & { cla
           </tbody>
         </table>
       </div>
-      <ClockLevers section={section} />
+      {withLevers && <ClockLevers section={section} />}
       <div className="card space-y-3">
         <h3>Predicted against observed{section.courseLengthM !== null && ` over ${section.courseLengthM} m`}</h3>
         {section.otherCourseRuns > 0 && (

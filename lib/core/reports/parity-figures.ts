@@ -21,6 +21,7 @@ import {
   type ReportBoatCurves,
   type ReportModel,
 } from './matched-figures';
+import type { ClockSection } from '../timing/clock-section';
 
 export type ReportAssumptions = {
   pumpEfficiency: number;
@@ -102,6 +103,11 @@ export type ReportResults = {
    * model (lib/core/reports/matched-figures.ts); absent, every boat is on fixed power.
    */
   modelUsed?: Record<string, BoatModelUsed> | null;
+  /**
+   * The predicted time over a course and the model against the clock (lib/core/timing/clock-section.ts), with
+   * the run times stored when the report was computed: frozen with a published report. Absent in reports before it.
+   */
+  clock?: ClockSection | null;
 };
 
 /** Trials and seed of the report's Monte Carlo: a fixed seed, so a report's figures reproduce exactly. */

@@ -1,6 +1,7 @@
 // Per-boat figures of a published report as CSV (RFC 4180, formula cells neutralised).
 import { csvCell } from '../entries/entries-csv';
 import type { PublishedReportDto } from './report-dto';
+import { CLOCK_CSV_COLUMNS, clockCsvCells } from './clock-report-lines';
 
 export const REPORT_CSV_COLUMNS = [
   'race_number',
@@ -31,6 +32,7 @@ export function reportToCsv(report: PublishedReportDto): string {
     ...speeds.flatMap((v) => [`thrust_at_${v}_ms_n`, `u_thrust_at_${v}_ms_n`]),
     'model',
     'cavitating_at_ms',
+    ...CLOCK_CSV_COLUMNS,
   ];
   const lines = [header.join(',')];
   for (const b of boats) {
@@ -56,6 +58,7 @@ export function reportToCsv(report: PublishedReportDto): string {
         .filter((p) => p.cavitating)
         .map((p) => p.speedMs)
         .join(' '),
+      ...clockCsvCells(report.results.clock, b.id),
     ];
     lines.push(cells.map(csvCell).join(','));
   }

@@ -5,6 +5,7 @@ import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage } from 'pdf
 import { pdfSafeText as safe } from '../format/pdf-text';
 import type { PublishedReportDto } from './report-dto';
 import { formatTime } from '../format/time';
+import { clockReportLines } from './clock-report-lines';
 
 const A4: [number, number] = [595.28, 841.89];
 const M = 40;
@@ -250,6 +251,9 @@ export async function buildReportPdf(r: PublishedReportDto, timeZone = 'UTC'): P
   drawDeviationBars(ctx, r);
   drawTable(ctx, r);
   drawModelNotes(ctx, r);
+  for (const l of clockReportLines(r.results.clock))
+    if (l.heading) text(ctx, l.text, { bold: true, size: 11 });
+    else wrap(ctx, l.text, 8);
   const awaiting = r.inputs.boats.filter((b) => b.awaitingReinspection);
   if (awaiting.length) {
     text(ctx, 'Declarations changed since inspection (figures as inspected)', { bold: true, size: 11 });

@@ -8,13 +8,15 @@ import { sendMail } from '@/lib/server/mail/send';
 import { gatherReportInputs } from './gather-report-inputs';
 import { computeReportResults } from '../../core/reports/parity-figures';
 import { toPublishedReportDto, type PublishedReportDto } from '../../core/reports/report-dto';
+import { computeClockFromReportInputs } from '@/lib/server/timing/gather-clock-section';
 import { appUrl } from '@/lib/server/config/env';
 
 /** The live draft of a class's report: current inspections, not stored. */
 export async function computeDraftReport(actor: Actor | null, eventId: string, classId: string) {
   assertCan(actor, 'report.publish', { eventId });
   const inputs = await gatherReportInputs(eventId, classId);
-  return { inputs, results: computeReportResults(inputs) };
+  const clock = await computeClockFromReportInputs(eventId, classId, inputs);
+  return { inputs, results: { ...computeReportResults(inputs), clock } };
 }
 
 /** Publishes the draft as the next numbered, immutable version and e-mails the class's entrants a link. */
@@ -29,7 +31,11 @@ export async function publishReport(
   const inputs = await gatherReportInputs(eventId, classId);
   if (inputs.boats.length === 0)
     throw new AppError('conflict', 409, 'No boat has a conforming inspection yet, so there is nothing to publish.');
-  const results = computeReportResults(inputs);
+  // The clock section is computed here and stored with the figures: a later run-time import leaves this version as it is.
+  const results = {
+    ...computeReportResults(inputs),
+    clock: await computeClockFromReportInputs(eventId, classId, inputs),
+  };
   const { sequelize, models } = getDb();
   const report = await sequelize.transaction(async (transaction) => {
     // Serialise publications per class so numbers never collide.

@@ -13,6 +13,8 @@ export type ResultsRowView = {
   boatName: string;
   isChanged: boolean;
   window: WindowView;
+  /** The boat's best current run time at this meeting (run_times, corrections applied); null: no run stored. */
+  bestRun: { elapsedS: number; courseLengthM: number; runLabel: string; runs: number } | null;
 };
 export type ClassResultsView = {
   classId: string;
@@ -45,15 +47,31 @@ export async function listProvisionalResults(
   const { models, sequelize } = getDb();
   const event = await models.Event.findByPk(eventId);
   if (!event) throw new AppError('not_found', 404, 'No such meeting.');
-  const [classes, versions, boats] = await Promise.all([
+  const [classes, versions, boats, bestRuns] = await Promise.all([
     models.RaceClass.findAll({ where: { eventId }, order: [['code', 'ASC']] }),
     loadResultsVersions(eventId),
     sequelize.query<{ id: string; boatName: string }>(
       'select e.id, b.name as "boatName" from entries e join boats b on b.id = e.boat_id where e.event_id = :eventId',
       { replacements: { eventId }, type: QueryTypes.SELECT },
     ),
+    // Each entry's fastest current run (a run nothing supersedes), and how many current runs it has.
+    sequelize.query<{ entryId: string; elapsedS: number; courseLengthM: number; runLabel: string; runs: string }>(
+      `select distinct on (r.entry_id) r.entry_id as "entryId", r.elapsed_s as "elapsedS",
+              r.course_length_m as "courseLengthM", r.run_label as "runLabel",
+              count(*) over (partition by r.entry_id) as runs
+         from run_times r
+        where r.event_id = :eventId and not exists (select 1 from run_times c where c.supersedes_id = r.id)
+        order by r.entry_id, r.elapsed_s asc, r.run_label asc`,
+      { replacements: { eventId }, type: QueryTypes.SELECT },
+    ),
   ]);
   const boatName = new Map(boats.map((b) => [b.id, b.boatName]));
+  const bestRun = new Map(
+    bestRuns.map((r) => [
+      r.entryId,
+      { elapsedS: r.elapsedS, courseLengthM: r.courseLengthM, runLabel: r.runLabel, runs: Number(r.runs) },
+    ]),
+  );
   const win = (publishedAt: Date) =>
     describeWindow({ publishedAt, windowMinutes: event.protestWindowMinutes, timeZone: event.timeZone, now });
   return classes.map((c) => {
@@ -80,6 +98,7 @@ export async function listProvisionalResults(
           boatName: boatName.get(r.entryId) ?? '?',
           isChanged: latest.changedEntryIds.includes(r.entryId),
           window: win(lastChange(r.entryId).publishedAt),
+          bestRun: bestRun.get(r.entryId) ?? null,
         })),
       },
     };

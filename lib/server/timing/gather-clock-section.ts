@@ -5,6 +5,7 @@ import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
 import { findRulesInForce } from '@/lib/server/classes/rule-versions';
 import { gatherReportInputs } from '@/lib/server/reports/gather-report-inputs';
+import type { ReportInputs } from '@/lib/core/reports/parity-figures';
 import { computeClockSection, type ClockRun, type ClockSection } from '@/lib/core/timing/clock-section';
 
 export type ClockSectionView = ClockSection & { classId: string; classCode: string; className: string };
@@ -21,6 +22,19 @@ export async function gatherClockSection(
 ): Promise<ClockSectionView> {
   assertCan(actor, 'results.publish', { eventId });
   const inputs = await gatherReportInputs(eventId, classId);
+  const section = await computeClockFromReportInputs(eventId, classId, inputs);
+  return { ...section, classId, classCode: inputs.classCode, className: inputs.className };
+}
+
+/**
+ * The clock section from a report's gathered inputs and the class's current runs (no permission check: the caller
+ * has made it). The parity report stores what this returns in its results, so a published version keeps it.
+ */
+export async function computeClockFromReportInputs(
+  eventId: string,
+  classId: string,
+  inputs: ReportInputs,
+): Promise<ClockSection> {
   const rules = await findRulesInForce(classId);
   if (!rules) throw new AppError('conflict', 409, 'This class has no published rules in force.');
   const runs = await getDb().sequelize.query<ClockRun>(
@@ -31,7 +45,7 @@ export async function gatherClockSection(
         and not exists (select 1 from run_times c where c.supersedes_id = r.id)`,
     { replacements: { eventId, classId }, type: QueryTypes.SELECT },
   );
-  const section = computeClockSection({
+  return computeClockSection({
     boats: inputs.boats.map((b) => ({
       entryId: b.entryId,
       raceNumber: b.raceNumber,
@@ -54,5 +68,4 @@ export async function gatherClockSection(
       wakeFraction: inputs.assumptions.wakeFraction,
     },
   });
-  return { ...section, classId, classCode: inputs.classCode, className: inputs.className };
 }

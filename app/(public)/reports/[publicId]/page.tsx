@@ -8,6 +8,7 @@ import { diffReports } from '@/lib/core/reports/report-diff';
 import { ParityReport } from '@/components/parity-report';
 import { ModelAssumptions } from '@/components/parity-tables';
 import { SafetyNote } from '@/components/safety-note';
+import { ClockSection } from '@/components/clock-section';
 
 export const dynamic = 'force-dynamic';
 
@@ -92,6 +93,12 @@ export default async function PublicReportPage({ params }: { params: Promise<{ p
       )}
       <ParityReport inputs={report.inputs} results={report.results} />
       <ModelAssumptions inputs={report.inputs} />
+      {report.results.clock && (
+        <ClockSection
+          section={{ ...report.results.clock, classCode: report.inputs.classCode, className: report.inputs.className }}
+          withLevers={false}
+        />
+      )}
     </article>
   );
 }

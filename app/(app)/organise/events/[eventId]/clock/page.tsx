@@ -5,6 +5,7 @@ import { gatherClockSection, type ClockSectionView } from '@/lib/server/timing/g
 import { listRunTimes } from '@/lib/server/timing/list-run-times';
 import { ClockSection } from '@/components/clock-section';
 import { SafetyNote } from '@/components/safety-note';
+import { ClockEqualisation } from '@/components/clock-equalisation';
 import { openResults } from '../access';
 
 export const metadata: Metadata = { title: 'Model against the clock' };
@@ -60,6 +61,7 @@ export default async function ClockPage({
       {!chosen && <p>This meeting has no classes yet.</p>}
       {refusal && <p className="card">{refusal}</p>}
       {section && <ClockSection section={section} />}
+      {section && <ClockEqualisation section={section} />}
       <SafetyNote />
     </div>
   );

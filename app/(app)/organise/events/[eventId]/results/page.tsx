@@ -59,6 +59,7 @@ export default async function ResultsPage({ params }: { params: Promise<{ eventI
                     <th className="p-2">Pos.</th>
                     <th className="p-2">No.</th>
                     <th className="p-2">Boat</th>
+                    <th className="p-2">Best time</th>
                     <th className="p-2">Protests until</th>
                   </tr>
                 </thead>
@@ -71,6 +72,18 @@ export default async function ResultsPage({ params }: { params: Promise<{ eventI
                         {r.boatName}
                         {r.isChanged && c.latest!.version > 1 && (
                           <span className="ml-1 text-xs font-bold">(changed)</span>
+                        )}
+                      </td>
+                      <td className="figure p-2" data-testid="best-time">
+                        {r.bestRun ? (
+                          <>
+                            {`${r.bestRun.elapsedS.toFixed(2)} s`}
+                            <span className="block text-xs text-ink-soft">
+                              {`${r.bestRun.courseLengthM} m, run ${r.bestRun.runLabel} of ${r.bestRun.runs}`}
+                            </span>
+                          </>
+                        ) : (
+                          '—'
                         )}
                       </td>
                       <td className="p-2">

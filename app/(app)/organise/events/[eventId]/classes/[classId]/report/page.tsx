@@ -7,6 +7,7 @@ import { computeDraftReport, listReportVersions } from '@/lib/server/reports/man
 import { ParityReport } from '@/components/parity-report';
 import { ModelAssumptions } from '@/components/parity-tables';
 import { SafetyNote } from '@/components/safety-note';
+import { ClockSection } from '@/components/clock-section';
 import { openClassReport } from '../../../access';
 import { PublishReportForm } from './publish-report-form';
 import { WhatIfSandbox } from './what-if-sandbox';
@@ -50,6 +51,12 @@ export default async function DraftReportPage({ params }: { params: Promise<{ ev
       <SafetyNote />
       <ParityReport inputs={draft.inputs} results={draft.results} />
       <ModelAssumptions inputs={draft.inputs} />
+      {draft.results.clock && (
+        <ClockSection
+          section={{ ...draft.results.clock, classCode: draft.inputs.classCode, className: draft.inputs.className }}
+          withLevers={false}
+        />
+      )}
       <WhatIfSandbox eventId={eventId} classId={classId} inputs={draft.inputs} rules={inForce.rules} />
       <ClockLink eventId={eventId} classId={classId} />
       <section className="card space-y-3" aria-labelledby="publish">
