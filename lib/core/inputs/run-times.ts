@@ -57,7 +57,9 @@ export type RunTimeRow = z.infer<typeof RunTimeRow>;
 export const CourseLengthM = z
   .number({ error: 'Enter the course length in metres.' })
   .min(10, 'The course is at least 10 m.')
-  .max(20000, 'The course is at most 20 km.');
+  // Sprint and drag courses are well under a kilometre (common practice, no source); the bound also
+  // keeps each view's integration short (a 20 km course held the server for most of a second per view).
+  .max(3000, 'The course is at most 3000 m.');
 
 /** What is sent for an import or a preview besides the file (multipart fields, read as text). */
 export const RunTimesImportFields = z.strictObject({

@@ -72,3 +72,16 @@ test('the hand-entry form: km/h made SI, a wrong speed named by the field typed'
   assert.deepEqual(bad.error!.issues[0].path, ['rows', 0, 'trapSpeedKmh']);
   assert.match(bad.error!.issues[0].message, /above 540 km\/h/);
 });
+
+test('the course is 10 m to 3000 m: a longer one is refused on the field (attack finding s7 F4: a 20 km course held the server)', () => {
+  const body = (courseLengthM: number) => ({
+    classId: '0b0e0000-0000-4000-8000-000000000101',
+    courseLengthM,
+    rows: [{ raceNumber: 3, runLabel: '1', elapsedS: 40 }],
+  });
+  assert.equal(RunTimesFormInput.safeParse(body(3000)).success, true);
+  const long = RunTimesFormInput.safeParse(body(3001));
+  assert.equal(long.success, false);
+  assert.deepEqual(long.error!.issues[0].path, ['courseLengthM']);
+  assert.match(long.error!.issues[0].message, /at most 3000 m/);
+});
