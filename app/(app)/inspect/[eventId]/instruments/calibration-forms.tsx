@@ -192,8 +192,8 @@ export function RecordCheckForm({
           </select>
           {errorLimit != null && (
             <p id={`${p}-passed-hint`} className="field-hint">
-              Boreline decides from the reading and the nominal value: within ±{errorLimit} {unit} passes. A result
-              chosen here that the figures contradict is refused.
+              Boreline decides from the reading and the nominal value: within ±{errorLimit} {unit} passes. “Passed”
+              chosen here when the figures fail is refused; a failure can always be recorded.
             </p>
           )}
           <FieldError name="passed" error={fe.passed} />
