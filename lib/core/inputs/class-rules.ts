@@ -92,6 +92,16 @@ export const ClassRules = z
           maker_rating: share('maker’s rating'),
           declaration_only: share('declaration only'),
         })
+        // Better evidence never carries more doubt: a dyno sheet at most a maker's rating, that at most a
+        // bare declaration (common practice, no source).
+        .refine((s) => s.dyno_sheet <= s.maker_rating, {
+          path: ['maker_rating'],
+          message: 'A maker’s rating cannot be surer than a dyno sheet: give it a share at least the dyno sheet’s.',
+        })
+        .refine((s) => s.maker_rating <= s.declaration_only, {
+          path: ['declaration_only'],
+          message: 'A bare declaration cannot be surer than a maker’s rating: give it a share at least the rating’s.',
+        })
         .optional(),
     }),
     weight: z.object({

@@ -44,7 +44,7 @@ function refusal(source: 'csv' | 'form', views: RunLineView[]): AppError {
   return new AppError(
     'invalid_input',
     400,
-    bad.map((v) => `rows.${v.line}: ${v.message}`).join('; '),
+    `${bad.map((v) => `rows.${v.line}: ${v.message.replace(/\.$/, '')}`).join('; ')}.`,
     bad.map((v) => ({ field: `rows.${v.line}.raceNumber`, message: v.message })),
   );
 }
