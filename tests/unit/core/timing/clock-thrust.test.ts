@@ -6,7 +6,8 @@ import assert from 'node:assert/strict';
 import { computeClockSection, type ClockBoat } from '../../../../lib/core/timing/clock-section';
 import { matchedThrust } from '../../../../lib/core/timing/clock-thrust';
 import { applyBalanceLevers } from '../../../../lib/core/timing/balance-levers';
-import { fitQuadraticDragK } from '../../../../lib/core/engine/run-prediction';
+import { fitQuadraticDragK, predictRun } from '../../../../lib/core/engine/run-prediction';
+import { suggestEqualisation } from '../../../../lib/core/timing/equalisation';
 import {
   evaluateMatchedPoint,
   prepareMatchedSetup,
@@ -182,4 +183,36 @@ test('no operating point during the run: that boat falls back to fixed power, wi
   assert.match(s.boats[0].thrustModelReason!, /no operating point/);
   assert.ok(s.boats[0].courseTimeS! > 0, 'still predicted, on fixed power');
   assert.equal(s.boats[1].thrustModel, 'matched');
+});
+
+test("the report's own fallback reason is kept; equalisation solves a matched boat's nozzle on its matched set-up", () => {
+  // Reason: the task's rule (the clock says why a boat stays on fixed power as the report does); the equalising
+  // nozzle must bring the boat's own predicted time to the class median (equalisation.ts, solved to 1e-4 s).
+  const s = computeClockSection({
+    reportModel: 'matched',
+    boats: [
+      boat('a', 1, 300, shapedCurves),
+      { ...boat('b', 2, 240, null), fixedPowerReason: 'No operating point at 40 m/s' },
+      boat('c', 3, 220, null),
+    ],
+    excluded: [],
+    runs: [run('a', 19, 25), run('b', 20, 25), run('c', 21, 24)],
+    minimumWeightKg: 680,
+    uWeightKg: 0.5,
+    model,
+  });
+  assert.equal(s.boats[1].thrustModelReason, 'No operating point at 40 m/s');
+  const eq = suggestEqualisation(s);
+  const a = eq.boats.find((x) => x.entryId === 'a')!;
+  assert.ok(a.fromMedianS < 0, 'the most powerful boat is faster than the median');
+  assert.ok(a.nozzleMm !== null && a.nozzleMm < 100, a.note ?? '');
+  const view = s.boats[0];
+  const t = predictRun({
+    thrustN: matchedThrust(model, shapedCurves, 300, a.nozzleMm!),
+    powerKw: 300,
+    massKg: view.massKg!,
+    dragK: view.dragK!,
+    distancesM: [400],
+  }).timesS[0]!;
+  assert.ok(Math.abs(t - eq.medianS!) < 1e-3, `${t} vs median ${eq.medianS}`);
 });
