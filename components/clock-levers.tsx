@@ -33,10 +33,11 @@ export function ClockLevers({ section }: { section: ClockSection }) {
     <section className="card space-y-3" aria-labelledby="levers-heading" data-testid="clock-levers">
       <h3 id="levers-heading">Balance levers in seconds ({distance} m)</h3>
       <p className="text-sm">
-        Try a rule change and see each boat&apos;s predicted time move. Each boat keeps its own drag; the thrust is the
-        fixed-power model&apos;s, so an impeller change (which needs the engine-and-pump model) is not offered yet. A
-        suggestion for the rule makers, not a ruling: a boat&apos;s gap to the median is only worth equalising when it
-        is larger than its uncertainty (from its power, nozzle and weighing; the assumed crew and fuel are not in it).
+        Try a rule change and see each boat&apos;s predicted time move. Each boat keeps its own drag; the thrust is its
+        own model&apos;s (on the matched model a power cap scales its engine curve and a restrictor changes its nozzle);
+        an impeller change is not offered yet. A suggestion for the rule makers, not a ruling: a boat&apos;s gap to the
+        median is only worth equalising when it is larger than its uncertainty (from its power, nozzle and weighing; the
+        assumed crew and fuel are not in it).
       </p>
       <div className="grid gap-2 sm:grid-cols-3">
         {fields.map((f) => (

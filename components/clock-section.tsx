@@ -1,5 +1,6 @@
 import type { ClockSection as ClockSectionFigures } from '@/lib/core/timing/clock-section';
 import { figureValue } from '@/lib/core/format/figures';
+import { thrustModelWord } from '@/lib/core/reports/clock-report-lines';
 import { ClockScatter } from './clock-scatter';
 import { ClockLevers } from './clock-levers';
 
@@ -12,7 +13,7 @@ const DRAG_WORDS = {
 } as const;
 
 /**
- * A class's predicted runs (fixed-power thrust) against its run times: tables, the comparison, the chart. The
+ * A class's predicted runs (each boat on its thrust model) against its run times: tables, the comparison, the chart. The
  * parity report shows it without the levers (`withLevers={false}`): a published version is a record, not a sandbox.
  */
 export function ClockSection({
@@ -33,8 +34,10 @@ export function ClockSection({
         <h3>How the prediction is made</h3>
         <ul className="list-disc space-y-1 pl-5">
           <li>
-            Thrust T(V): the class&apos;s fixed-power model (momentum theory at constant shaft power, the parity
-            report&apos;s). The matched engine-and-pump model is not used here yet.
+            Thrust T(V): the class&apos;s report model, per boat. Matched (where engine and pump settle) for a boat of a
+            class that reports on it whose inspected declaration holds both curves, its engine curve scaled to the power
+            the inspection confirmed; else fixed power (momentum theory at constant shaft power). The Thrust column says
+            which, and why a boat stayed on fixed power.
           </li>
           <li>
             Each boat starts from rest on a straight line: m·dV/dt = T(V) − k·V², integrated by the classical
@@ -75,6 +78,7 @@ export function ClockSection({
               <th className="p-2">Thrust/weight</th>
               <th className="p-2">kW/t</th>
               <th className="p-2">Drag from</th>
+              <th className="p-2">Thrust</th>
             </tr>
           </thead>
           <tbody>
@@ -106,6 +110,10 @@ export function ClockSection({
                 <td className="p-2 text-xs">
                   {b.dragBasis ? DRAG_WORDS[b.dragBasis] : '—'}
                   <span className="block text-ink-soft">{b.dragNote}</span>
+                </td>
+                <td className="p-2 text-xs" data-testid="clock-thrust-model">
+                  {thrustModelWord(b)}
+                  {b.thrustModelReason && <span className="block text-ink-soft">{b.thrustModelReason}</span>}
                 </td>
               </tr>
             ))}

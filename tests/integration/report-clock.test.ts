@@ -122,8 +122,13 @@ test('a published report keeps its section when runs are imported later; the dra
     .split(',');
   assert.equal(Number(row0[header.indexOf('predicted_course_s')]), b0.courseTimeS);
   assert.equal(row0[header.indexOf('observed_runs_s')], '41.2');
+  // The thrust model each boat's prediction used: appended after the existing columns (a fixed-power class here).
+  assert.equal(header[header.length - 1], 'predicted_time_thrust_model');
+  assert.equal(row0[header.indexOf('predicted_time_thrust_model')], 'fixed_power');
+  assert.equal(b0.thrustModel, 'fixed_power');
   assert.match(pdfBefore, /Predicted time over a course/);
   assert.match(pdfBefore, /Runge/);
+  assert.match(pdfBefore, /Thrust: fixed power/);
   assert.match(pdfBefore, /officials decide/);
   const page = await (await fetch(`${BASE_URL}/reports/${publicId}`)).text();
   assert.match(page, /data-testid="clock-section"/);

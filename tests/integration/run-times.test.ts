@@ -313,6 +313,7 @@ test('the model against the clock: each boat predicted from its inspection, its 
   const b0 = byNumber.get(m(0))!;
   // The highest GPS top speed of its runs (112 km/h) is where thrust equals the fitted drag.
   assert.equal(b0.dragBasis, 'gps_top_speed');
+  assert.equal(b0.thrustModel, 'fixed_power', 'a fixed-power class: every boat on fixed power');
   assert.ok(Math.abs(b0.topSpeedMs - 112 / 3.6) < 1e-6);
   assert.equal(b0.massKg, 700 + 160 + 25);
   assert.equal(byNumber.get(m(2))!.dragBasis, 'trap_speed');

@@ -139,9 +139,15 @@ export function integrateRunFromRest(input: RunIntegrationInput): RunIntegration
 export function findTerminalSpeedMs(thrustN: ThrustFunction, resistanceN: ResistanceFunction, upperMs = 200): number {
   const net = (v: number) => thrustN(v) - resistanceN(v);
   if (net(0) <= 0) return 0;
+  // Bracket by doubling from 1 m/s, so the thrust is asked only up to about twice the terminal speed (a matched
+  // engine and pump may have no operating point far above the speeds a boat reaches).
   let lo = 0;
-  let hi = upperMs;
-  if (net(hi) > 0) return hi;
+  let hi = Math.min(1, upperMs);
+  while (net(hi) > 0) {
+    if (hi >= upperMs) return upperMs;
+    lo = hi;
+    hi = Math.min(2 * hi, upperMs);
+  }
   for (let i = 0; i < 200 && hi - lo > 1e-13 * hi; i++) {
     const mid = (lo + hi) / 2;
     if (net(mid) > 0) lo = mid;

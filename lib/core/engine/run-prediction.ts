@@ -3,8 +3,8 @@
 // terminal speed is the observed one by construction. With no observed speed, a class default k is used
 // (the class median of the fitted values) and the result says which. Framework-free.
 //
-// Today's thrust is the fixed-power model (jet.ts: momentum theory at constant shaft power); the matched
-// engine-and-pump model (jet-matched.ts) gives another ThrustFunction and plugs into the same functions.
+// The fixed-power model's thrust is here (jet.ts: momentum theory at constant shaft power); the matched
+// engine-and-pump model's is in lib/core/timing/clock-thrust.ts and plugs into the same functions.
 
 import { EngineInputError } from './engine-input-error';
 import { evaluateThrustN, prepareJetSetup, type JetSetupInput } from './jet';

@@ -12,6 +12,11 @@ const DRAG_WORDS = {
   class_default: 'class default',
 } as const;
 
+/** The thrust model a boat's prediction used, in words (a section stored before the word: fixed power). */
+export function thrustModelWord(b: { thrustModel?: 'fixed_power' | 'matched' }): string {
+  return b.thrustModel === 'matched' ? 'matched' : 'fixed power';
+}
+
 /** The section's lines: assumptions with their sources, one line per boat, the class comparison, the caution. */
 export function clockReportLines(clock: ClockSection | null | undefined): ClockReportLine[] {
   if (!clock) return [];
@@ -24,7 +29,7 @@ export function clockReportLines(clock: ClockSection | null | undefined): ClockR
   const lines: ClockReportLine[] = [
     { text: 'Predicted time over a course, and the model against the clock', heading: true },
     {
-      text: `Each boat from rest on a straight line: m·dV/dt = T(V) − k·V², T(V) the class's fixed-power thrust model (the matched model is not used here yet), integrated by the classical fourth-order Runge–Kutta method with a step-halving check (Butcher, Numerical Methods for Ordinary Differential Equations, 2016; Press et al., Numerical Recipes, 2007); worst relative accuracy reached ${clock.worstRelativeAccuracy === null ? '—' : clock.worstRelativeAccuracy.toExponential(1)}. Mass: the weight measured at inspection (else the class minimum) plus ${A.crewKg} kg crew and ${A.fuelKg} kg fuel, assumed (common practice, no source). Drag k: fitted so that thrust equals drag at the boat's own top speed (GPS, else trap), else the class median of the fitted values, else an assumed ${(A.assumedTopSpeedMs * 3.6).toFixed(0)} km/h top speed. Turns, starts and driving are not modelled. U is expanded (k = 2) from power, nozzle and weighing uncertainties (JCGM 100:2008).`,
+      text: `Each boat from rest on a straight line: m·dV/dt = T(V) − k·V², T(V) the boat's thrust on the class's report model (matched where the class reports on it and the boat's inspected declaration holds both curves, its engine curve levelled to the confirmed power; else fixed power; each boat's line says which), integrated by the classical fourth-order Runge–Kutta method with a step-halving check (Butcher, Numerical Methods for Ordinary Differential Equations, 2016; Press et al., Numerical Recipes, 2007); worst relative accuracy reached ${clock.worstRelativeAccuracy === null ? '—' : clock.worstRelativeAccuracy.toExponential(1)}. Mass: the weight measured at inspection (else the class minimum) plus ${A.crewKg} kg crew and ${A.fuelKg} kg fuel, assumed (common practice, no source). Drag k: fitted so that thrust equals drag at the boat's own top speed (GPS, else trap), else the class median of the fitted values, else an assumed ${(A.assumedTopSpeedMs * 3.6).toFixed(0)} km/h top speed. Turns, starts and driving are not modelled. U is expanded (k = 2) from power, nozzle and weighing uncertainties (JCGM 100:2008).`,
     },
   ];
   for (const b of clock.boats) {
@@ -33,10 +38,11 @@ export function clockReportLines(clock: ClockSection | null | undefined): ClockR
       .join(', ');
     const u = b.uTimeS !== null && b.uTimeS > 0 ? ` (U ${f(2 * b.uTimeS)} s)` : '';
     const observed = b.observedS.length ? `; observed ${b.observedS.map((t) => f(t)).join(', ')} s` : '';
+    const model = `Thrust: ${thrustModelWord(b)}${b.thrustModelReason ? ` (${b.thrustModelReason})` : ''}.`;
     lines.push({
       text: b.note
-        ? `#${b.raceNumber} ${b.boatName}: ${b.note}. Mass ${b.massBasis}.`
-        : `#${b.raceNumber} ${b.boatName}: ${times}${u}; top speed ${f(b.topSpeedMs === null ? null : b.topSpeedMs * 3.6, 1)} km/h; thrust/weight ${f(b.thrustToWeight)}; ${f(b.powerToWeightKwPerT, 0)} kW/t. Mass ${b.massBasis}. Drag: ${b.dragBasis ? DRAG_WORDS[b.dragBasis] : '—'}, ${b.dragNote}${observed}.`,
+        ? `#${b.raceNumber} ${b.boatName}: ${b.note}. Mass ${b.massBasis}. ${model}`
+        : `#${b.raceNumber} ${b.boatName}: ${times}${u}; top speed ${f(b.topSpeedMs === null ? null : b.topSpeedMs * 3.6, 1)} km/h; thrust/weight ${f(b.thrustToWeight)}; ${f(b.powerToWeightKwPerT, 0)} kW/t. Mass ${b.massBasis}. Drag: ${b.dragBasis ? DRAG_WORDS[b.dragBasis] : '—'}, ${b.dragNote}${observed}. ${model}`,
     });
   }
   lines.push({ text: 'Predicted against observed', heading: true });
@@ -64,6 +70,7 @@ export const CLOCK_CSV_COLUMNS = [
   'mass_basis',
   'drag_basis',
   'observed_runs_s',
+  'predicted_time_thrust_model',
 ] as const;
 
 /** One boat's predicted-time cells, in CLOCK_CSV_COLUMNS order; empty cells when the report has no clock section. */
@@ -87,5 +94,6 @@ export function clockCsvCells(clock: ClockSection | null | undefined, entryId: s
     b.massBasis,
     b.dragBasis ?? '',
     b.observedS.join(' '),
+    b.thrustModel ?? 'fixed_power',
   ];
 }

@@ -1,10 +1,13 @@
 // Balance levers in seconds: what a nozzle restrictor, a minimum all-up mass (ballast up to it) or a power
 // cap would do to each boat's predicted time over the course, and to the class's spread of predicted times.
 // Each boat keeps its own fitted drag k (a hull's drag does not change with its nozzle or engine), so a lever
-// that cuts thrust also lowers its top speed. Fixed-power thrust (run-prediction.ts); an impeller change
-// needs the matched engine-and-pump model and is not offered here yet. Framework-free: runs in the browser.
+// that cuts thrust also lowers its top speed. Each boat's own thrust model (clock-thrust.ts): on the matched
+// model a power cap scales its levelled engine curve and a restrictor changes its matched set-up's nozzle; an
+// impeller change is not offered here yet. Framework-free: runs in the browser.
 
-import { fixedPowerThrust, predictRun } from '../engine/run-prediction';
+import { EngineOperatingPointError } from '../engine/engine-input-error';
+import { predictRun } from '../engine/run-prediction';
+import { clockBoatThrust } from './clock-thrust';
 import type { ClockSection } from './clock-section';
 
 export type BalanceLevers = {
@@ -55,14 +58,20 @@ export function applyBalanceLevers(section: ClockSection, levers: BalanceLevers)
     const nozzle = levers.nozzleCapMm !== null ? Math.min(b.nozzleDiameterMm, levers.nozzleCapMm) : b.nozzleDiameterMm;
     const power = levers.powerCapKw !== null ? Math.min(b.powerKw, levers.powerCapKw) : b.powerKw;
     const ballastKg = levers.minimumMassKg !== null ? Math.max(0, levers.minimumMassKg - b.massKg) : 0;
-    const thrust = fixedPowerThrust({ ...section.model, powerKw: power, nozzleDiameterMm: nozzle });
-    const after = predictRun({
-      thrustN: thrust,
-      powerKw: power,
-      massKg: b.massKg + ballastKg,
-      dragK: b.dragK,
-      distancesM: [distance],
-    }).timesS[0];
+    let after: number | null;
+    try {
+      after = predictRun({
+        thrustN: clockBoatThrust(section.model, b, power, nozzle),
+        powerKw: power,
+        massKg: b.massKg + ballastKg,
+        dragK: b.dragK,
+        distancesM: [distance],
+      }).timesS[0];
+    } catch (e) {
+      // A matched boat whose engine and pump do not settle under these levers has no time, as a boat with no thrust.
+      if (e instanceof EngineOperatingPointError) continue;
+      throw e;
+    }
     if (after === null) continue;
     boats.push({
       entryId: b.entryId,

@@ -1,9 +1,16 @@
-// The "model against the clock" section of a class: each boat's predicted run over the course (fixed-power
-// thrust today, see run-prediction.ts) beside its observed run times, and the comparison of the two
-// (lib/core/stats/clock-comparison.ts). Framework-free: the server gathers the inputs, this computes.
+// The "model against the clock" section of a class: each boat's predicted run over the course beside its
+// observed run times, and the comparison of the two (lib/core/stats/clock-comparison.ts). The thrust is the
+// class's report model per boat (clock-thrust.ts): matched where the class reports on it and the boat declared
+// both curves, else fixed power; a matched boat whose engine and pump do not settle at some speed of its run
+// (or of its uncertainty's perturbed runs) falls back to fixed power, with the reason.
+// Framework-free: the server gathers the inputs, this computes.
 
-import { fitQuadraticDragK, fixedPowerThrust, predictRun, type DragBasis } from '../engine/run-prediction';
+import { EngineOperatingPointError } from '../engine/engine-input-error';
+import { fitQuadraticDragK, predictRun, type DragBasis } from '../engine/run-prediction';
+import type { ThrustFunction } from '../engine/run-integrator';
+import type { ReportBoatCurves, ReportModel } from '../reports/matched-figures';
 import { compareModelToClock, type ClockComparison } from '../stats/clock-comparison';
+import { clockBoatThrust, matchedThrust, type ClockThrustModel } from './clock-thrust';
 
 /**
  * Masses added to the weight measured at inspection. Boreline has no declaration of crew or fuel yet, so
@@ -28,6 +35,13 @@ export type ClockBoat = {
   /** Standard uncertainties (k = 1) of power and nozzle diameter, as the parity report carries them; absent: 0. */
   uPowerKw?: number;
   uNozzleDiameterMm?: number;
+  /**
+   * The engine curve and pump characteristic of its inspected declaration: given only where the parity report
+   * figures the boat on the matched model (results.modelUsed[entryId].model === 'matched').
+   */
+  curves?: ReportBoatCurves | null;
+  /** Why a boat of a matched class stays on fixed power (the report's reason), when it does. */
+  fixedPowerReason?: string | null;
 };
 
 export type ClockRun = {
@@ -66,6 +80,12 @@ export type ClockBoatView = {
   relativeAccuracy: number | null;
   observedS: number[];
   note: string | null;
+  /** The thrust model its prediction used (absent in sections stored before it: fixed power). */
+  thrustModel?: ClockThrustModel;
+  /** Why a boat of a class on the matched model used fixed power; null otherwise. */
+  thrustModelReason?: string | null;
+  /** The declared curves (engine curve as declared) a matched boat's thrust came from, for what-if levers. */
+  curves?: ReportBoatCurves;
 };
 
 export type ClockSection = {
@@ -74,7 +94,8 @@ export type ClockSection = {
   otherCourseRuns: number;
   boats: ClockBoatView[];
   comparison: ClockComparison;
-  thrustModel: 'fixed_power';
+  /** The class's report model (each boat's own is in its row). */
+  thrustModel: ReportModel;
   /** The water and loss model the thrust came from (the class's parity assumptions), for what-if levers. */
   model: ClockSectionInput['model'];
   assumptions: typeof CLOCK_ASSUMPTIONS;
@@ -87,6 +108,8 @@ export type ClockSectionInput = {
   /** Entered boats left out of the figures (not inspected, not conforming), with why. */
   excluded: { entryId: string; raceNumber: number; boatName: string; reason: string }[];
   runs: ClockRun[];
+  /** The class's report model; absent: fixed power for every boat. */
+  reportModel?: ReportModel;
   minimumWeightKg: number | null;
   /** Standard uncertainty of a weighing (kg, k = 1): the class's default U / 2. */
   uWeightKg: number;
@@ -119,17 +142,70 @@ function commonCourseLengthM(runs: ClockRun[]): number | null {
   return best;
 }
 
+/** Raised inside a run when a matched boat has no operating point: the section is recomputed with it on fixed power. */
+class MatchedFallback extends Error {
+  constructor(
+    readonly entryId: string,
+    readonly reason: string,
+  ) {
+    super(reason);
+  }
+}
+
 export function computeClockSection(input: ClockSectionInput): ClockSection {
+  const reasons = new Map<string, string>();
+  const matched = new Set<string>();
+  if (input.reportModel === 'matched')
+    for (const b of input.boats) {
+      if (!b.curves) {
+        reasons.set(b.entryId, b.fixedPowerReason ?? 'No engine curve and pump curve both declared');
+        continue;
+      }
+      try {
+        matchedThrust(input.model, b.curves, b.powerKw, b.nozzleDiameterMm);
+        matched.add(b.entryId);
+      } catch (e) {
+        reasons.set(b.entryId, e instanceof Error ? e.message : String(e));
+      }
+    }
+  // Each fallback takes one boat off the matched model, so this ends after at most one pass per boat.
+  for (;;) {
+    try {
+      return computeWith(input, matched, reasons);
+    } catch (e) {
+      if (!(e instanceof MatchedFallback)) throw e;
+      matched.delete(e.entryId);
+      reasons.set(e.entryId, e.reason);
+    }
+  }
+}
+
+function computeWith(
+  input: ClockSectionInput,
+  matched: ReadonlySet<string>,
+  reasons: ReadonlyMap<string, string>,
+): ClockSection {
   const A = CLOCK_ASSUMPTIONS;
+  const thrustOf = (b: ClockBoat, powerKw: number, nozzleDiameterMm: number): ThrustFunction => {
+    if (!matched.has(b.entryId)) return clockBoatThrust(input.model, {}, powerKw, nozzleDiameterMm);
+    const t = matchedThrust(input.model, b.curves!, powerKw, nozzleDiameterMm);
+    return (v) => {
+      try {
+        return t(v);
+      } catch (e) {
+        if (e instanceof EngineOperatingPointError)
+          throw new MatchedFallback(
+            b.entryId,
+            `The matched model has no operating point at ${v.toFixed(1)} m/s of the run (${e.message}): fixed power used`,
+          );
+        throw e;
+      }
+    };
+  };
   const courseLengthM = commonCourseLengthM(input.runs);
   const onCourse = input.runs.filter((r) => r.courseLengthM === courseLengthM);
   const runsOf = (id: string) => input.runs.filter((r) => r.entryId === id);
-  const thrusts = new Map(
-    input.boats.map((b) => [
-      b.entryId,
-      fixedPowerThrust({ ...input.model, powerKw: b.powerKw, nozzleDiameterMm: b.nozzleDiameterMm }),
-    ]),
-  );
+  const thrusts = new Map(input.boats.map((b) => [b.entryId, thrustOf(b, b.powerKw, b.nozzleDiameterMm)]));
 
   // Each boat's own drag from its observed top speed: the GPS top speed, else the trap speed (highest of its runs).
   const fitted = new Map<string, { k: number | null; basis: DragBasis; speed: number }>();
@@ -160,6 +236,9 @@ export function computeClockSection(input: ClockSectionInput): ClockSection {
       powerKw: b.powerKw,
       nozzleDiameterMm: b.nozzleDiameterMm,
       observedS,
+      thrustModel: (matched.has(b.entryId) ? 'matched' : 'fixed_power') as ClockThrustModel,
+      thrustModelReason: reasons.get(b.entryId) ?? null,
+      ...(matched.has(b.entryId) && b.curves && { curves: b.curves }),
     };
     const weighed = b.measuredWeightKg;
     const hull = weighed ?? input.minimumWeightKg;
@@ -212,7 +291,7 @@ export function computeClockSection(input: ClockSectionInput): ClockSection {
     // The time to the last distance as a function of power, nozzle and mass, the drag refitted as above.
     const last = distances[distances.length - 1];
     const timeWith = (powerKw: number, nozzleDiameterMm: number, mass: number) => {
-      const t = fixedPowerThrust({ ...input.model, powerKw, nozzleDiameterMm });
+      const t = thrustOf(b, powerKw, nozzleDiameterMm);
       const k = own && own.k !== null ? fitQuadraticDragK(t, own.speed) : dragK;
       if (k === null) return null;
       return predictRun({ thrustN: t, powerKw, massKg: mass, dragK: k, distancesM: [last] }).timesS[0];
@@ -266,7 +345,7 @@ export function computeClockSection(input: ClockSectionInput): ClockSection {
     otherCourseRuns: input.runs.length - onCourse.length,
     boats,
     comparison,
-    thrustModel: 'fixed_power',
+    thrustModel: input.reportModel ?? 'fixed_power',
     model: input.model,
     assumptions: A,
     worstRelativeAccuracy: worst,

@@ -1,6 +1,6 @@
 // An equalisation suggestion per boat, in seconds: how far its predicted time over the course lies from the class
 // median, and the ballast or the nozzle restrictor that would bring a faster boat's predicted time to that median,
-// each with its uncertainty. Same model as the balance levers (balance-levers.ts): fixed-power thrust, each boat
+// each with its uncertainty. Same model as the balance levers (balance-levers.ts): each boat's own thrust model, each boat
 // keeping its own fitted drag k. A slower boat gets no lever: adding speed is not a balance measure offered here.
 //
 // The lever is solved by the Illinois variant of regula falsi (Dowell & Jarratt, BIT 11, 1971) on the integrated
@@ -9,7 +9,9 @@
 // (first order, JCGM 100:2008, 5.1.3), the sensitivity by central differences. Expanded U = 2u (k = 2).
 // Framework-free.
 
-import { fixedPowerThrust, predictRun } from '../engine/run-prediction';
+import { EngineOperatingPointError } from '../engine/engine-input-error';
+import { predictRun } from '../engine/run-prediction';
+import { clockBoatThrust } from './clock-thrust';
 import type { ClockSection } from './clock-section';
 
 /** The predicted time after a lever is solved to this (s). */
@@ -78,7 +80,7 @@ export function suggestEqualisation(section: ClockSection): Equalisation {
   const boats = timed.map(({ b, t, massKg, dragK }): EqualisationBoat => {
     const timeAt = (nozzleMm: number, mass: number) =>
       predictRun({
-        thrustN: fixedPowerThrust({ ...section.model, powerKw: b.powerKw, nozzleDiameterMm: nozzleMm }),
+        thrustN: clockBoatThrust(section.model, b, b.powerKw, nozzleMm),
         powerKw: b.powerKw,
         massKg: mass,
         dragK,
@@ -105,28 +107,35 @@ export function suggestEqualisation(section: ClockSection): Equalisation {
       return out;
     }
     const notes: string[] = [];
-    // Ballast: time rises with mass.
-    const fMass = (x: number) => (timeAt(b.nozzleDiameterMm, massKg + x) ?? Infinity) - medianS;
-    const maxBallast = MAX_BALLAST_FRACTION * massKg;
-    const fMax = fMass(maxBallast);
-    if (fMax > 0) {
-      const x = solveIllinois(fMass, 0, maxBallast, fromMedianS, fMax);
-      out.ballastKg = x;
-      const h = Math.max(0.5, x * 0.01);
-      const dtdm = (fMass(x + h) - fMass(x - h)) / (2 * h);
-      out.uBallastKg = u === null || !(dtdm > 0) ? null : (2 * u) / dtdm;
-    } else notes.push(`no ballast up to ${maxBallast.toFixed(0)} kg reaches the median`);
-    // Nozzle restrictor: a smaller exit at fixed power; the time at the smallest allowed must reach the median.
-    const fNozzle = (d: number) => (timeAt(d, massKg) ?? Infinity) - medianS;
-    const dMin = MIN_NOZZLE_FRACTION * b.nozzleDiameterMm;
-    const fMin = fNozzle(dMin);
-    if (fMin > 0) {
-      const d = solveIllinois(fNozzle, dMin, b.nozzleDiameterMm, fMin, fromMedianS);
-      out.nozzleMm = d;
-      const h = 0.01;
-      const dtdd = (fNozzle(d + h) - fNozzle(d - h)) / (2 * h);
-      out.uNozzleMm = u === null || dtdd === 0 || !Number.isFinite(dtdd) ? null : (2 * u) / Math.abs(dtdd);
-    } else notes.push(`no restrictor down to ${dMin.toFixed(1)} mm reaches the median`);
+    try {
+      // Ballast: time rises with mass.
+      const fMass = (x: number) => (timeAt(b.nozzleDiameterMm, massKg + x) ?? Infinity) - medianS;
+      const maxBallast = MAX_BALLAST_FRACTION * massKg;
+      const fMax = fMass(maxBallast);
+      if (fMax > 0) {
+        const x = solveIllinois(fMass, 0, maxBallast, fromMedianS, fMax);
+        out.ballastKg = x;
+        const h = Math.max(0.5, x * 0.01);
+        const dtdm = (fMass(x + h) - fMass(x - h)) / (2 * h);
+        out.uBallastKg = u === null || !(dtdm > 0) ? null : (2 * u) / dtdm;
+      } else notes.push(`no ballast up to ${maxBallast.toFixed(0)} kg reaches the median`);
+      // Nozzle restrictor: a smaller exit at the same power; the time at the smallest allowed must reach the median.
+      const fNozzle = (d: number) => (timeAt(d, massKg) ?? Infinity) - medianS;
+      const dMin = MIN_NOZZLE_FRACTION * b.nozzleDiameterMm;
+      const fMin = fNozzle(dMin);
+      if (fMin > 0) {
+        const d = solveIllinois(fNozzle, dMin, b.nozzleDiameterMm, fMin, fromMedianS);
+        out.nozzleMm = d;
+        const h = 0.01;
+        const dtdd = (fNozzle(d + h) - fNozzle(d - h)) / (2 * h);
+        out.uNozzleMm = u === null || dtdd === 0 || !Number.isFinite(dtdd) ? null : (2 * u) / Math.abs(dtdd);
+      } else notes.push(`no restrictor down to ${dMin.toFixed(1)} mm reaches the median`);
+    } catch (e) {
+      // A matched boat whose engine and pump do not settle at a trial lever: no lever suggested, and why.
+      if (!(e instanceof EngineOperatingPointError)) throw e;
+      out.ballastKg = out.uBallastKg = out.nozzleMm = out.uNozzleMm = null;
+      notes.splice(0, notes.length, `the matched model has no operating point at a trial lever (${e.message})`);
+    }
     out.note = notes.length ? notes.join('; ') : null;
     return out;
   });

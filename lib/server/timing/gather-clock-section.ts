@@ -6,6 +6,7 @@ import { AppError } from '@/lib/core/errors';
 import { findRulesInForce } from '@/lib/server/classes/rule-versions';
 import { gatherReportInputs } from '@/lib/server/reports/gather-report-inputs';
 import type { ReportInputs } from '@/lib/core/reports/parity-figures';
+import { computeMatchedBoat, type BoatModelUsed } from '@/lib/core/reports/matched-figures';
 import { computeClockSection, type ClockRun, type ClockSection } from '@/lib/core/timing/clock-section';
 
 export type ClockSectionView = ClockSection & { classId: string; classCode: string; className: string };
@@ -45,27 +46,46 @@ export async function computeClockFromReportInputs(
         and not exists (select 1 from run_times c where c.supersedes_id = r.id)`,
     { replacements: { eventId, classId }, type: QueryTypes.SELECT },
   );
+  const model = {
+    densityKgM3: inputs.density.densityKgM3,
+    pumpEfficiency: inputs.assumptions.pumpEfficiency,
+    nozzleLossCoefficient: inputs.assumptions.nozzleLossCoefficient,
+    inletLossCoefficient: inputs.assumptions.inletLossCoefficient,
+    wakeFraction: inputs.assumptions.wakeFraction,
+  };
+  const reportModel = inputs.assumptions.reportModel ?? 'fixed_power';
+  // The boats the parity report figures on the matched model (results.modelUsed, the same call) run on it here.
+  const used = (b: ReportInputs['boats'][number]): BoatModelUsed | null =>
+    reportModel !== 'matched'
+      ? null
+      : b.curves
+        ? computeMatchedBoat(
+            { ...b, curves: b.curves, suction: b.suction },
+            model,
+            inputs.assumptions.referenceSpeedsMs,
+          )
+        : { model: 'fixed_power', reason: 'No engine curve and pump curve both declared' };
   return computeClockSection({
-    boats: inputs.boats.map((b) => ({
-      entryId: b.entryId,
-      raceNumber: b.raceNumber,
-      boatName: b.boatName,
-      powerKw: b.powerKw,
-      nozzleDiameterMm: b.nozzleDiameterMm,
-      measuredWeightKg: b.measuredWeightKg ?? null,
-      uPowerKw: b.uPowerKw,
-      uNozzleDiameterMm: b.uNozzleDiameterMm,
-    })),
+    reportModel,
+    boats: inputs.boats.map((b) => {
+      const u = used(b);
+      return {
+        entryId: b.entryId,
+        raceNumber: b.raceNumber,
+        boatName: b.boatName,
+        powerKw: b.powerKw,
+        nozzleDiameterMm: b.nozzleDiameterMm,
+        measuredWeightKg: b.measuredWeightKg ?? null,
+        uPowerKw: b.uPowerKw,
+        uNozzleDiameterMm: b.uNozzleDiameterMm,
+        curves: u?.model === 'matched' ? b.curves : null,
+        fixedPowerReason: u?.reason ?? null,
+      };
+    }),
     excluded: inputs.excluded,
     runs,
     minimumWeightKg: rules.rules.weight.minKg,
     uWeightKg: rules.rules.weight.defaultUncertaintyKg / 2, // the class default is an expanded U (k = 2)
-    model: {
-      densityKgM3: inputs.density.densityKgM3,
-      pumpEfficiency: inputs.assumptions.pumpEfficiency,
-      nozzleLossCoefficient: inputs.assumptions.nozzleLossCoefficient,
-      inletLossCoefficient: inputs.assumptions.inletLossCoefficient,
-      wakeFraction: inputs.assumptions.wakeFraction,
-    },
+    model,
   });
 }
