@@ -11,7 +11,7 @@
 import { computeParity, computeMedian, type ParityReport } from '../engine/parity';
 import { computeParityMonteCarlo, type MonteCarloParity } from '../engine/parity-monte-carlo';
 import { prepareJetSetup, withPowerAndDiameter, evaluateThrustN } from '../engine/jet';
-import { computeMatchedCurve } from '../engine/jet-matched';
+import { computeMatchedCurve, prepareMatchedSetup, type PreparedMatchedSetup } from '../engine/jet-matched';
 import type { SuctionInput } from '../engine/cavitation';
 import {
   applyMatchedFigures,
@@ -210,11 +210,26 @@ export function computeReportResults(inputs: ReportInputs): ReportResults {
               uNozzleDiameterMm: b.uNozzleDiameterMm,
             })),
             model,
-            { referenceSpeedsMs: a.referenceSpeedsMs, ...REPORT_MONTE_CARLO },
+            {
+              referenceSpeedsMs: a.referenceSpeedsMs,
+              ...REPORT_MONTE_CARLO,
+              ...(modelUsed && { matched: inputs.boats.map((b) => matchedSetupFor(b, modelUsed, model)) }),
+            },
           )
         : null,
     ...(modelUsed && { modelUsed }),
   };
+}
+
+/** A matched boat's set-up (its curves levelled to its confirmed power) for the Monte Carlo; null on fixed power. */
+function matchedSetupFor(
+  b: ReportBoatInput,
+  modelUsed: Record<string, BoatModelUsed>,
+  model: { densityKgM3: number; nozzleLossCoefficient: number; inletLossCoefficient: number; wakeFraction: number },
+): PreparedMatchedSetup | null {
+  if (modelUsed[b.entryId]?.model !== 'matched' || !b.curves) return null;
+  const levelled = levelledCurves(b.curves, b.powerKw);
+  return levelled && prepareMatchedSetup({ ...model, ...levelled, nozzleDiameterMm: b.nozzleDiameterMm });
 }
 
 /** A matched boat's chart curve, point by point; null when some chart speed has no operating point. */
