@@ -14,6 +14,7 @@ import { prepareJetSetup, withPowerAndDiameter, evaluateThrustN } from '../engin
 import { computeMatchedCurve, prepareMatchedSetup, type PreparedMatchedSetup } from '../engine/jet-matched';
 import type { SuctionInput } from '../engine/cavitation';
 import {
+  applyMatchedEqualising,
   applyMatchedFigures,
   computeMatchedBoat,
   levelledCurves,
@@ -145,7 +146,22 @@ export function computeReportResults(inputs: ReportInputs): ReportResults {
         ? computeMatchedBoat({ ...b, curves: b.curves, suction: b.suction }, model, a.referenceSpeedsMs)
         : { model: 'fixed_power', reason: 'No engine curve and pump curve both declared' };
   }
-  const parity = modelUsed ? applyMatchedFigures(fixedParity, modelUsed) : fixedParity;
+  const matchedSetups = modelUsed ? inputs.boats.map((b) => matchedSetupFor(b, modelUsed, model)) : null;
+  const fixedBase = prepareJetSetup({
+    ...model,
+    powerKw: inputs.boats[0].powerKw,
+    nozzleDiameterMm: inputs.boats[0].nozzleDiameterMm,
+  });
+  const parity =
+    modelUsed && matchedSetups
+      ? applyMatchedEqualising(
+          applyMatchedFigures(fixedParity, modelUsed),
+          matchedSetups,
+          inputs.boats.map((b) => withPowerAndDiameter(fixedBase, b.powerKw, b.nozzleDiameterMm)),
+          inputs.boats.map((b) => b.uPowerKw),
+          modelUsed,
+        )
+      : fixedParity;
 
   const byThrust = [...parity.boats].sort((x, y) => x.staticThrustN - y.staticThrustN);
   const n = byThrust.length;
@@ -213,7 +229,7 @@ export function computeReportResults(inputs: ReportInputs): ReportResults {
             {
               referenceSpeedsMs: a.referenceSpeedsMs,
               ...REPORT_MONTE_CARLO,
-              ...(modelUsed && { matched: inputs.boats.map((b) => matchedSetupFor(b, modelUsed, model)) }),
+              ...(matchedSetups && { matched: matchedSetups }),
             },
           )
         : null,
