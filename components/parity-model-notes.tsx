@@ -45,6 +45,8 @@ export function ReportModelNotes({ inputs, results }: { inputs: ReportInputs; re
     return b ? `#${b.raceNumber} ${b.boatName}` : id;
   };
   const shares = a.powerEvidenceShares;
+  const equalisingOnFixed = matched.filter(([, m]) => m.equalisingModel === 'fixed_power');
+  const fallbackTrials = (results.odds?.boats ?? []).reduce((s, b) => s + (b.noOperatingPointTrials ?? 0), 0);
   return (
     <section aria-labelledby="report-model" className="card space-y-2 text-sm" data-testid="report-model-notes">
       <h2 id="report-model" className="text-xl">
@@ -63,10 +65,16 @@ export function ReportModelNotes({ inputs, results }: { inputs: ReportInputs; re
           <p>
             Uncertainty of a matched figure: first order, by finite differences, from the boat&apos;s power uncertainty
             (applied to its whole engine curve) and its nozzle diameter; the uncertainty of the declared curves
-            themselves is not computed. For matched boats the crossover speed, the equalising nozzles, the chart&apos;s
-            median line, the odds below and the what-if sandbox&apos;s power changes still use the fixed-power model at
-            the confirmed power. Cavitation is checked only for matched boats that declared their inlet (a boat without
-            a pump curve has no known rpm).
+            themselves is not computed. For matched boats the equalising nozzles (static, and over the speed range) are
+            searched with the matched model, and the odds below take each trial&apos;s drawn power (scaling the levelled
+            curve) and drawn nozzle through it
+            {fallbackTrials > 0 &&
+              ` (${fallbackTrials} boat-trials had no operating point on the curves and used fixed power for those draws)`}
+            {equalisingOnFixed.length > 0 &&
+              `; no nozzle brings ${equalisingOnFixed.map(([id]) => name(id)).join(', ')} to the median on the matched model, so the equalising nozzles shown for it are at fixed power`}
+            . The crossover speed, the chart&apos;s median line and the what-if sandbox&apos;s power changes still use
+            the fixed-power model at the confirmed power. Cavitation is checked only for matched boats that declared
+            their inlet (a boat without a pump curve has no known rpm).
           </p>
         </>
       ) : (

@@ -6,6 +6,7 @@ export * from './jet';
 export * from './jet-crossover';
 export * from './jet-matched';
 export * from './jet-equalising';
+export * from './jet-equalising-matched';
 export * from './parity-monte-carlo';
 export * from './cavitation';
 export * from './jet-uncertainty';

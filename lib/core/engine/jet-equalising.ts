@@ -64,6 +64,22 @@ export function computeRangeEqualising(
   medianThrustN: Float64Array,
   staticEqualisingMm: number,
 ): RangeEqualising {
+  checkRangeInputs(referenceSpeedsMs, medianThrustN);
+  const p = setup.powerKw;
+  const best = minimiseRangeObjective((d) => objective(setup, d, referenceSpeedsMs, medianThrustN), staticEqualisingMm);
+  const rangeSetup = withPowerAndDiameter(setup, p, best);
+  const staticSetup = withPowerAndDiameter(setup, p, staticEqualisingMm);
+  return describeRangeEqualising(
+    best,
+    referenceSpeedsMs,
+    medianThrustN,
+    (v) => evaluateThrustN(rangeSetup, v),
+    (v) => evaluateThrustN(staticSetup, v),
+  );
+}
+
+/** Refuses an empty speed list or a median thrust that is not positive (the objective divides by it). */
+export function checkRangeInputs(referenceSpeedsMs: readonly number[], medianThrustN: Float64Array): void {
   if (referenceSpeedsMs.length === 0) throw new EngineInputError('referenceSpeedsMs', 'Give at least one speed');
   for (let j = 0; j < medianThrustN.length; j++) {
     if (!(medianThrustN[j] > 0))
@@ -72,61 +88,75 @@ export function computeRangeEqualising(
         `The class median thrust at ${referenceSpeedsMs[j]} m/s is not positive: drop that speed`,
       );
   }
-  const p = setup.powerKw;
+}
+
+/**
+ * The diameter minimising `f` (the least-squares objective above): a grid over [0.5, 2] x the static
+ * answer, then golden-section refinement (Kiefer 1953) in the grid cell either side of the best point.
+ * `f` may answer Infinity where a diameter has no answer (a matched set-up with no operating point).
+ */
+export function minimiseRangeObjective(f: (d: number) => number, staticEqualisingMm: number): number {
   const lo = 0.5 * staticEqualisingMm;
   const hi = 2 * staticEqualisingMm;
   let best = staticEqualisingMm;
-  let bestF = objective(setup, best, referenceSpeedsMs, medianThrustN);
+  let bestF = f(best);
   const step = (hi - lo) / GRID;
   for (let i = 0; i <= GRID; i++) {
     const d = lo + i * step;
-    const f = objective(setup, d, referenceSpeedsMs, medianThrustN);
-    if (f < bestF) {
-      bestF = f;
+    const fd = f(d);
+    if (fd < bestF) {
+      bestF = fd;
       best = d;
     }
   }
-  // Golden-section refinement inside the grid cell either side of the best point.
   let a = Math.max(lo, best - step);
   let b = Math.min(hi, best + step);
   let c = b - GOLDEN * (b - a);
   let d = a + GOLDEN * (b - a);
-  let fc = objective(setup, c, referenceSpeedsMs, medianThrustN);
-  let fd = objective(setup, d, referenceSpeedsMs, medianThrustN);
+  let fc = f(c);
+  let fd = f(d);
   for (let it = 0; it < 80 && b - a > 1e-8 * b; it++) {
     if (fc < fd) {
       b = d;
       d = c;
       fd = fc;
       c = b - GOLDEN * (b - a);
-      fc = objective(setup, c, referenceSpeedsMs, medianThrustN);
+      fc = f(c);
     } else {
       a = c;
       c = d;
       fc = fd;
       d = a + GOLDEN * (b - a);
-      fd = objective(setup, d, referenceSpeedsMs, medianThrustN);
+      fd = f(d);
     }
   }
   const refined = 0.5 * (a + b);
-  if (objective(setup, refined, referenceSpeedsMs, medianThrustN) < bestF) best = refined;
+  if (f(refined) < bestF) best = refined;
+  return best;
+}
 
-  const rangeSetup = withPowerAndDiameter(setup, p, best);
-  const staticSetup = withPowerAndDiameter(setup, p, staticEqualisingMm);
+/** The deviations at each reference speed for the range and static nozzles, and their summaries. */
+export function describeRangeEqualising(
+  nozzleDiameterMm: number,
+  referenceSpeedsMs: readonly number[],
+  medianThrustN: Float64Array,
+  rangeThrustAt: (speedMs: number) => number,
+  staticThrustAt: (speedMs: number) => number,
+): RangeEqualising {
   let sumSq = 0;
   let worst = 0;
   let staticWorst = 0;
   const deviations = referenceSpeedsMs.map((speedMs, j) => {
     const m = medianThrustN[j];
-    const range = ((evaluateThrustN(rangeSetup, speedMs) - m) / m) * 100;
-    const stat = ((evaluateThrustN(staticSetup, speedMs) - m) / m) * 100;
+    const range = ((rangeThrustAt(speedMs) - m) / m) * 100;
+    const stat = ((staticThrustAt(speedMs) - m) / m) * 100;
     sumSq += range * range;
     worst = Math.max(worst, Math.abs(range));
     staticWorst = Math.max(staticWorst, Math.abs(stat));
     return { speedMs, medianThrustN: m, staticEqualisedPercent: stat, rangeEqualisedPercent: range };
   });
   return {
-    nozzleDiameterMm: best,
+    nozzleDiameterMm,
     rmsDeviationPercent: Math.sqrt(sumSq / referenceSpeedsMs.length),
     worstDeviationPercent: worst,
     staticWorstDeviationPercent: staticWorst,

@@ -103,8 +103,10 @@ export interface PreparedMatchedSetup {
 type Prepared = PreparedMatched;
 
 class PreparedMatched implements PreparedMatchedSetup {
-  readonly nozzleAreaM2: number;
-  readonly headFactor: number;
+  // Not readonly inside this module: retuneMatchedSetup rewrites a working copy in place.
+  nozzleDiameterMm: number;
+  nozzleAreaM2 = 0;
+  headFactor = 0;
   readonly inletFactor: number;
   readonly lowRpm: number;
   readonly topRpm: number;
@@ -125,7 +127,7 @@ class PreparedMatched implements PreparedMatchedSetup {
 
   constructor(
     readonly densityKgM3: number,
-    readonly nozzleDiameterMm: number,
+    nozzleDiameterMm: number,
     readonly impellerDiameterM: number,
     readonly nozzleLossCoefficient: number,
     readonly inletLossCoefficient: number,
@@ -137,18 +139,14 @@ class PreparedMatched implements PreparedMatchedSetup {
     readonly psi: Float64Array,
     readonly eta: Float64Array,
   ) {
-    const dn = nozzleDiameterMm / 1000;
-    this.nozzleAreaM2 = (Math.PI * dn * dn) / 4;
+    this.nozzleDiameterMm = nozzleDiameterMm;
     const d2 = impellerDiameterM * impellerDiameterM;
-    this.headFactor = (0.5 * (1 + nozzleLossCoefficient) * d2 * d2) / (this.nozzleAreaM2 * this.nozzleAreaM2);
     this.inletFactor = 0.5 * (1 - inletLossCoefficient);
     this.lowRpm = engineRpm[0];
     const curveTop = engineRpm[engineRpm.length - 1];
     this.topRpm = limiterRpm === null ? curveTop : Math.min(curveTop, limiterRpm);
     const m = phi.length;
-    const c = this.headFactor;
     this.h = new Float64Array(m);
-    for (let j = 0; j < m; j++) this.h[j] = c * phi[j] * phi[j] - psi[j];
     this.dip = new Float64Array(m - 1);
     this.psiSlope = new Float64Array(m - 1);
     this.psiIntercept = new Float64Array(m - 1);
@@ -161,17 +159,82 @@ class PreparedMatched implements PreparedMatchedSetup {
       const e = (eta[j + 1] - eta[j]) / (phi[j + 1] - phi[j]);
       this.etaSlope[j] = e;
       this.etaIntercept[j] = eta[j] - e * phi[j];
-      // f + s = c phi^2 - b phi - intercept is convex; its lowest point is at phi = b / (2c).
-      const v = b / (2 * c);
-      this.dip[j] = v > phi[j] && v < phi[j + 1] ? c * v * v - b * v - this.psiIntercept[j] : Infinity;
     }
+    this.setNozzle(nozzleDiameterMm);
     this.engineSlopeWPerRpm = new Float64Array(engineRpm.length - 1);
-    for (let k = 0; k < engineRpm.length - 1; k++)
-      this.engineSlopeWPerRpm[k] = (enginePowerW[k + 1] - enginePowerW[k]) / (engineRpm[k + 1] - engineRpm[k]);
+    this.setEnginePower(enginePowerW, 1);
     const d5 = impellerDiameterM ** 5;
     this.powerFactor = (densityKgM3 * d5) / 216_000;
     this.sFactor = 3600 / d2;
   }
+
+  /** The nozzle-dependent constants for diameter d (mm): area, head factor, h and dip. No allocation. */
+  setNozzle(nozzleDiameterMm: number): void {
+    this.nozzleDiameterMm = nozzleDiameterMm;
+    const dn = nozzleDiameterMm / 1000;
+    this.nozzleAreaM2 = (Math.PI * dn * dn) / 4;
+    const d2 = this.impellerDiameterM * this.impellerDiameterM;
+    this.headFactor = (0.5 * (1 + this.nozzleLossCoefficient) * d2 * d2) / (this.nozzleAreaM2 * this.nozzleAreaM2);
+    const { phi, psi } = this;
+    const c = this.headFactor;
+    for (let j = 0; j < phi.length; j++) this.h[j] = c * phi[j] * phi[j] - psi[j];
+    for (let j = 0; j < phi.length - 1; j++) {
+      const b = this.psiSlope[j];
+      // f + s = c phi^2 - b phi - intercept is convex; its lowest point is at phi = b / (2c).
+      const v = b / (2 * c);
+      this.dip[j] = v > phi[j] && v < phi[j + 1] ? c * v * v - b * v - this.psiIntercept[j] : Infinity;
+    }
+  }
+
+  /** The engine curve's power set to `powerW` × factor point by point, and its slopes. No allocation. */
+  setEnginePower(powerW: Float64Array, factor: number): void {
+    const { engineRpm, enginePowerW } = this;
+    for (let k = 0; k < engineRpm.length; k++) enginePowerW[k] = powerW[k] * factor;
+    for (let k = 0; k < engineRpm.length - 1; k++)
+      this.engineSlopeWPerRpm[k] = (enginePowerW[k + 1] - enginePowerW[k]) / (engineRpm[k + 1] - engineRpm[k]);
+  }
+}
+
+/**
+ * A working copy of a prepared set-up, for `retuneMatchedSetup` to rewrite in a loop (it allocates
+ * once, here; the source is never changed).
+ */
+export function copyMatchedSetup(setupInput: MatchedSetupInput | PreparedMatchedSetup): PreparedMatchedSetup {
+  const s = prepareMatchedSetup(setupInput) as Prepared;
+  return new PreparedMatched(
+    s.densityKgM3,
+    s.nozzleDiameterMm,
+    s.impellerDiameterM,
+    s.nozzleLossCoefficient,
+    s.inletLossCoefficient,
+    s.wakeFraction,
+    Float64Array.from(s.engineRpm),
+    Float64Array.from(s.enginePowerW),
+    s.limiterRpm,
+    Float64Array.from(s.phi),
+    Float64Array.from(s.psi),
+    Float64Array.from(s.eta),
+  );
+}
+
+/**
+ * Rewrites `work` (from `copyMatchedSetup(source)`) as `source` with its whole engine curve scaled by
+ * `powerFactor` and its nozzle at `nozzleDiameterMm`; allocation-free, for Monte Carlo trials and
+ * nozzle searches. Inputs are the caller's to check (positive, finite).
+ */
+export function retuneMatchedSetup(
+  work: PreparedMatchedSetup,
+  source: PreparedMatchedSetup,
+  powerFactor: number,
+  nozzleDiameterMm: number,
+): PreparedMatchedSetup {
+  if (!(work instanceof PreparedMatched) || !(source instanceof PreparedMatched) || work === source)
+    throw new EngineInputError('setup', 'Retune a working copy made by copyMatchedSetup, not the source');
+  if (work.engineRpm.length !== source.engineRpm.length || work.phi.length !== source.phi.length)
+    throw new EngineInputError('setup', 'The working copy is not of this set-up');
+  work.setEnginePower(source.enginePowerW, powerFactor);
+  if (work.nozzleDiameterMm !== nozzleDiameterMm) work.setNozzle(nozzleDiameterMm);
+  return work;
 }
 
 function curveArray<T>(field: string, value: unknown): readonly T[] {

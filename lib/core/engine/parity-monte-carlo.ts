@@ -14,11 +14,18 @@
 //   and each speed the probability that the first out-thrusts the second (the share of trials where
 //   it does); and the spread's distribution. The spread of the nominal values is biased upwards by
 //   noise in a small class; the Monte Carlo mean shows by how much.
+// - A boat given a matched set-up (options.matched, lib/core/engine/jet-matched.ts: engine curve ×
+//   pump characteristic, levelled to the boat's confirmed power) takes each trial's thrust from the
+//   matched model: its engine curve scaled by the trial's power over the confirmed power, its nozzle at
+//   the trial's diameter. A trial with no operating point on the curves uses the fixed-power thrust of
+//   that trial's draws instead, and is counted (`noOperatingPointTrials`).
 
-import { EngineInputError, assertNonNegative, assertPositive } from './engine-input-error';
+import { EngineInputError, EngineOperatingPointError, assertNonNegative, assertPositive } from './engine-input-error';
 import { MAX_SPEED_MS, prepareJetSetup, solveJetCubic, withPowerAndDiameter } from './jet';
 import type { JetModelAssumptions, PreparedJetSetup } from './jet';
 import type { ParityBoatInput } from './parity';
+import { copyMatchedSetup, evaluateMatchedPoint, retuneMatchedSetup } from './jet-matched';
+import type { MatchedPoint, PreparedMatchedSetup } from './jet-matched';
 
 // Enhanced Wichmann–Hill (2006) four-cycle generator: multipliers and moduli [memory; as printed in
 // the paper and in JCGM 101:2008, annex C.3]. Products stay below 2^53, so doubles are exact.
@@ -73,6 +80,11 @@ export interface MonteCarloOptions {
   seed?: number;
   /** Reference speeds besides rest (m/s). */
   referenceSpeedsMs: readonly number[];
+  /**
+   * Per boat (same order), its matched set-up at its confirmed power and nozzle, or null for fixed
+   * power. Absent: every boat on fixed power.
+   */
+  matched?: readonly (PreparedMatchedSetup | null | undefined)[];
 }
 
 export interface CoverageSummary {
@@ -86,6 +98,10 @@ export interface CoverageSummary {
 
 export interface MonteCarloBoat {
   id: string;
+  /** 'matched' when the trials used the boat's matched set-up (absent: fixed power). */
+  model?: 'matched';
+  /** Matched boats: trials with no operating point at some speed, which used fixed power for that speed. */
+  noOperatingPointTrials?: number;
   /** [rest, ...reference speeds]: thrust summaries, N. */
   thrust: (CoverageSummary & { speedMs: number })[];
 }
@@ -167,6 +183,24 @@ export function computeParityMonteCarlo(
   const uP = boats.map((b, i) => assertNonNegative(`boats[${i}].uPowerKw`, b.uPowerKw ?? 0));
   const uD = boats.map((b, i) => assertNonNegative(`boats[${i}].uNozzleDiameterMm`, b.uNozzleDiameterMm ?? 0));
 
+  if (options.matched !== undefined && options.matched.length !== n)
+    throw new EngineInputError('matched', 'Give one matched set-up or null per boat');
+  const matchedSource = boats.map((_, i) => options.matched?.[i] ?? null);
+  // One working copy per matched boat, retuned in place each trial (no allocation in the loop).
+  const matchedWork = matchedSource.map((m) => (m ? copyMatchedSetup(m) : null));
+  const fallbacks = new Float64Array(n);
+  const point: MatchedPoint = {
+    speedMs: 0,
+    rpm: 0,
+    shaftPowerKw: 0,
+    flowM3s: 0,
+    flowCoefficient: 0,
+    pumpEfficiency: 0,
+    jetVelocityMs: 0,
+    thrustN: 0,
+    limitedBy: 'engine',
+  };
+
   const normal = createNormalGenerator(createWichmannHill(seed));
   const positiveDraw = (mean: number, u: number) => {
     if (u === 0) return mean;
@@ -191,11 +225,25 @@ export function computeParityMonteCarlo(
       const area = (d / st.nozzleDiameterMm) ** 2;
       const rhoA = st.rhoAreaKgM * area;
       const q = (st.q * (p / st.powerKw)) / area;
+      const work = matchedWork[i];
+      const source = matchedSource[i];
+      if (work && source) retuneMatchedSetup(work, source, p / st.powerKw, d);
+      let fellBack = false;
       for (let j = 0; j < s; j++) {
         const v = speeds[j];
+        if (work) {
+          try {
+            samples[(i * s + j) * trials + t] = evaluateMatchedPoint(work, v, point).thrustN;
+            continue;
+          } catch (err) {
+            if (!(err instanceof EngineOperatingPointError)) throw err;
+            fellBack = true;
+          }
+        }
         const vj = solveJetCubic(st.pSpeedFactor * v * v, q);
         samples[(i * s + j) * trials + t] = rhoA * vj * (vj - st.inflowFactor * v);
       }
+      if (fellBack) fallbacks[i]++;
       staticNow[i] = samples[i * s * trials + t];
     }
     let pair = 0;
@@ -217,7 +265,17 @@ export function computeParityMonteCarlo(
   }
 
   const nominal = new Float64Array(n);
-  for (let i = 0; i < n; i++) nominal[i] = setups[i].rhoAreaKgM * Math.cbrt(setups[i].q) ** 2;
+  for (let i = 0; i < n; i++) {
+    nominal[i] = setups[i].rhoAreaKgM * Math.cbrt(setups[i].q) ** 2;
+    const m = matchedSource[i];
+    if (m) {
+      try {
+        nominal[i] = evaluateMatchedPoint(m, 0, point).thrustN;
+      } catch (err) {
+        if (!(err instanceof EngineOperatingPointError)) throw err;
+      }
+    }
+  }
   let nMin = Infinity;
   let nMax = -Infinity;
   for (const x of nominal) {
@@ -243,6 +301,7 @@ export function computeParityMonteCarlo(
     speedsMs: speeds,
     boats: boats.map((b, i) => ({
       id: b.id,
+      ...(matchedSource[i] && { model: 'matched' as const, noOperatingPointTrials: fallbacks[i] }),
       thrust: speeds.map((speedMs, j) => ({
         speedMs,
         ...summarise(samples.subarray((i * s + j) * trials, (i * s + j + 1) * trials)),

@@ -13,12 +13,21 @@
 // Cavitation: where the boat declared its inlet depth and suction data, each point is checked
 // (lib/core/engine/cavitation.ts); a flagged point's thrust is an upper bound.
 //
-// What still uses the fixed-power model for a matched boat: the crossover with the median boat, the
-// equalising nozzles and the Monte Carlo odds (at the boat's confirmed power), and the chart's median
-// curve (the fixed-power median set-up); the report says so.
+// The equalising nozzles (applyMatchedEqualising) and the Monte Carlo odds (parity-monte-carlo.ts) use
+// the matched model for a matched boat. What still uses the fixed-power model for a matched boat: the
+// crossover with the median boat, and the chart's median curve (the fixed-power median set-up); the
+// report says so.
 
 import { computeMedian, type ParityReport } from '../engine/parity';
-import { computeMatchedCurve, type MatchedSetupInput } from '../engine/jet-matched';
+import { computeMatchedCurve, type MatchedSetupInput, type PreparedMatchedSetup } from '../engine/jet-matched';
+import { computeRangeEqualising } from '../engine/jet-equalising';
+import {
+  computeMatchedRangeEqualising,
+  computeMatchedStaticEqualisingMm,
+  createMatchedThrust,
+} from '../engine/jet-equalising-matched';
+import { evaluateThrustN, type PreparedJetSetup } from '../engine/jet';
+import { computeEqualisingDiameterUncertaintyMm } from '../engine/jet-uncertainty';
 import { checkSuction, prepareSuction, type SuctionInput } from '../engine/cavitation';
 import { EngineInputError, EngineOperatingPointError } from '../engine/engine-input-error';
 
@@ -67,6 +76,11 @@ export type BoatModelUsed = {
    */
   declaredPeakKw?: number;
   scaledToKw?: number;
+  /**
+   * Matched boats: the model of its equalising nozzles ('fixed_power' when no nozzle between a quarter
+   * and four times its own brings its matched static thrust to the median). Absent in older reports.
+   */
+  equalisingModel?: ReportModel;
 };
 
 type Model = {
@@ -230,4 +244,64 @@ export function applyMatchedFigures(parity: ParityReport, used: Record<string, B
       uDeviationFromMedianPercent: (b.uStaticThrustN / median) * 100,
     })),
   };
+}
+
+/**
+ * Every boat's equalising nozzles against the class medians of the figures shown (after
+ * applyMatchedFigures): the static one brings the boat's static thrust to the class median, the range
+ * one minimises the least-squares relative deviation from the class median thrust over the reference
+ * speeds (jet-equalising.ts). A matched boat's are searched with the matched model
+ * (jet-equalising-matched.ts: Illinois regula falsi, and grid with golden section); a fixed-power
+ * boat's use the fixed-power model as in parity.ts. The static nozzle's uncertainty for a matched boat
+ * is first order (JCGM 100:2008, 5.1.2) in the power, by central differences on the curve's scale.
+ * `matched`, `fixed` and `uPowerKw` are per boat in the order of parity.boats; `used` is updated with
+ * the model each matched boat's nozzles came from.
+ */
+export function applyMatchedEqualising(
+  parity: ParityReport,
+  matched: readonly (PreparedMatchedSetup | null)[],
+  fixed: readonly PreparedJetSetup[],
+  uPowerKw: readonly number[],
+  used: Record<string, BoatModelUsed>,
+): ParityReport {
+  const median = parity.summary.medianStaticThrustN;
+  const speeds = parity.boats[0]?.thrustAtReferenceSpeeds.map((t) => t.speedMs) ?? [];
+  const medianAtSpeed = Float64Array.from(speeds, (_, j) =>
+    computeMedian(parity.boats.map((b) => b.thrustAtReferenceSpeeds[j].thrustN)),
+  );
+  const medianPositive = speeds.length > 0 && medianAtSpeed.every((m) => m > 0);
+  const boats = parity.boats.map((b, i) => {
+    const setup = matched[i];
+    if (setup) {
+      const thrustAt = createMatchedThrust(setup);
+      const eq = computeMatchedStaticEqualisingMm(setup, median, 1, thrustAt);
+      if (eq !== null) {
+        const h = RELATIVE_STEP;
+        const up = computeMatchedStaticEqualisingMm(setup, median, 1 + h, thrustAt);
+        const down = computeMatchedStaticEqualisingMm(setup, median, 1 - h, thrustAt);
+        const uEq =
+          up !== null && down !== null && b.powerKw > 0
+            ? Math.abs((up - down) / (2 * h)) * (uPowerKw[i] / b.powerKw)
+            : 0;
+        used[b.id] = { ...used[b.id], equalisingModel: 'matched' };
+        return {
+          ...b,
+          equalisingNozzleDiameterMm: eq,
+          uEqualisingNozzleDiameterMm: uEq,
+          rangeEqualising: medianPositive ? computeMatchedRangeEqualising(setup, speeds, medianAtSpeed, eq) : null,
+        };
+      }
+      used[b.id] = { ...used[b.id], equalisingModel: 'fixed_power' };
+    }
+    // Fixed power: T0 ∝ D^(2/3), so D_eq = D (T_median / T0)^(3/2) (parity.ts).
+    const t0 = setup ? evaluateThrustN(fixed[i], 0) : b.staticThrustN;
+    const eq = b.nozzleDiameterMm * (median / t0) ** 1.5;
+    return {
+      ...b,
+      equalisingNozzleDiameterMm: eq,
+      uEqualisingNozzleDiameterMm: computeEqualisingDiameterUncertaintyMm(eq, b.powerKw, uPowerKw[i]),
+      rangeEqualising: medianPositive ? computeRangeEqualising(fixed[i], speeds, medianAtSpeed, eq) : null,
+    };
+  });
+  return { ...parity, boats };
 }

@@ -11,9 +11,10 @@
 import { computeParity, computeMedian, type ParityReport } from '../engine/parity';
 import { computeParityMonteCarlo, type MonteCarloParity } from '../engine/parity-monte-carlo';
 import { prepareJetSetup, withPowerAndDiameter, evaluateThrustN } from '../engine/jet';
-import { computeMatchedCurve } from '../engine/jet-matched';
+import { computeMatchedCurve, prepareMatchedSetup, type PreparedMatchedSetup } from '../engine/jet-matched';
 import type { SuctionInput } from '../engine/cavitation';
 import {
+  applyMatchedEqualising,
   applyMatchedFigures,
   computeMatchedBoat,
   levelledCurves,
@@ -145,7 +146,22 @@ export function computeReportResults(inputs: ReportInputs): ReportResults {
         ? computeMatchedBoat({ ...b, curves: b.curves, suction: b.suction }, model, a.referenceSpeedsMs)
         : { model: 'fixed_power', reason: 'No engine curve and pump curve both declared' };
   }
-  const parity = modelUsed ? applyMatchedFigures(fixedParity, modelUsed) : fixedParity;
+  const matchedSetups = modelUsed ? inputs.boats.map((b) => matchedSetupFor(b, modelUsed, model)) : null;
+  const fixedBase = prepareJetSetup({
+    ...model,
+    powerKw: inputs.boats[0].powerKw,
+    nozzleDiameterMm: inputs.boats[0].nozzleDiameterMm,
+  });
+  const parity =
+    modelUsed && matchedSetups
+      ? applyMatchedEqualising(
+          applyMatchedFigures(fixedParity, modelUsed),
+          matchedSetups,
+          inputs.boats.map((b) => withPowerAndDiameter(fixedBase, b.powerKw, b.nozzleDiameterMm)),
+          inputs.boats.map((b) => b.uPowerKw),
+          modelUsed,
+        )
+      : fixedParity;
 
   const byThrust = [...parity.boats].sort((x, y) => x.staticThrustN - y.staticThrustN);
   const n = byThrust.length;
@@ -210,11 +226,26 @@ export function computeReportResults(inputs: ReportInputs): ReportResults {
               uNozzleDiameterMm: b.uNozzleDiameterMm,
             })),
             model,
-            { referenceSpeedsMs: a.referenceSpeedsMs, ...REPORT_MONTE_CARLO },
+            {
+              referenceSpeedsMs: a.referenceSpeedsMs,
+              ...REPORT_MONTE_CARLO,
+              ...(matchedSetups && { matched: matchedSetups }),
+            },
           )
         : null,
     ...(modelUsed && { modelUsed }),
   };
+}
+
+/** A matched boat's set-up (its curves levelled to its confirmed power) for the Monte Carlo; null on fixed power. */
+function matchedSetupFor(
+  b: ReportBoatInput,
+  modelUsed: Record<string, BoatModelUsed>,
+  model: { densityKgM3: number; nozzleLossCoefficient: number; inletLossCoefficient: number; wakeFraction: number },
+): PreparedMatchedSetup | null {
+  if (modelUsed[b.entryId]?.model !== 'matched' || !b.curves) return null;
+  const levelled = levelledCurves(b.curves, b.powerKw);
+  return levelled && prepareMatchedSetup({ ...model, ...levelled, nozzleDiameterMm: b.nozzleDiameterMm });
 }
 
 /** A matched boat's chart curve, point by point; null when some chart speed has no operating point. */
