@@ -72,9 +72,9 @@ export function ReportModelNotes({ inputs, results }: { inputs: ReportInputs; re
               ` (${fallbackTrials} boat-trials had no operating point on the curves and used fixed power for those draws)`}
             {equalisingOnFixed.length > 0 &&
               `; no nozzle brings ${equalisingOnFixed.map(([id]) => name(id)).join(', ')} to the median on the matched model, so the equalising nozzles shown for it are at fixed power`}
-            . The crossover speed, the chart&apos;s median line and the what-if sandbox&apos;s power changes still use
-            the fixed-power model at the confirmed power. Cavitation is checked only for matched boats that declared
-            their inlet (a boat without a pump curve has no known rpm).
+            . The crossover speed and the chart&apos;s median line still use the fixed-power model at the confirmed
+            power; in the what-if sandbox a power change scales a matched boat&apos;s levelled curve. Cavitation is
+            checked only for matched boats that declared their inlet (a boat without a pump curve has no known rpm).
           </p>
         </>
       ) : (
