@@ -5,9 +5,9 @@ import { useRouter } from 'next/navigation';
 import { FieldError, FormMessage } from '@/components/forms/form-message';
 import { refusalState, requestJson, type FormState } from '@/components/forms/request-json';
 import { useFormAction } from '@/components/forms/use-form-action';
+import { ClassAndCourseFields, type ClassOption } from './class-course-fields';
 import { numberOrNull } from '@/lib/core/inputs/form-values';
 
-type ClassOption = { classId: string; label: string };
 type Row = {
   key: number;
   raceNumber: string;
@@ -91,26 +91,7 @@ export function RunTimesEntryForm({ eventId, classes }: { eventId: string; class
       <h2>Type in a few runs</h2>
       <fieldset disabled={form.isPending} className="space-y-3">
         <div className="grid gap-2 sm:grid-cols-2">
-          <div>
-            <label htmlFor="entry-class" className="field-label">
-              Class
-            </label>
-            <select id="entry-class" name="classId" className="field-input">
-              {classes.map((c) => (
-                <option key={c.classId} value={c.classId}>
-                  {c.label}
-                </option>
-              ))}
-            </select>
-            <FieldError name="classId" error={errors.classId} />
-          </div>
-          <div>
-            <label htmlFor="entry-course" className="field-label">
-              Course length (m)
-            </label>
-            <input id="entry-course" name="courseLengthM" inputMode="decimal" className="field-input" />
-            <FieldError name="courseLengthM" error={errors.courseLengthM} />
-          </div>
+          <ClassAndCourseFields idPrefix="entry" classes={classes} errors={errors} />
         </div>
         <FieldError name="rows" error={errors.rows} />
         {rows.map((row, i) => (

@@ -5,8 +5,8 @@ import { useRouter } from 'next/navigation';
 import { FieldError, FormMessage } from '@/components/forms/form-message';
 import { requestJson, type FormState } from '@/components/forms/request-json';
 import { useFormAction } from '@/components/forms/use-form-action';
+import { ClassAndCourseFields, type ClassOption } from './class-course-fields';
 
-type ClassOption = { classId: string; label: string };
 type Line = {
   line: number;
   raceNumber: string;
@@ -90,26 +90,7 @@ export function RunTimesImport({ eventId, classes }: { eventId: string; classes:
           <code>conditions</code>. Times in seconds (41.25) or minutes and seconds (1:02.5). At most 256 KB.
         </p>
         <fieldset disabled={check.isPending || commit.isPending} className="space-y-3">
-          <div>
-            <label htmlFor="import-class" className="field-label">
-              Class
-            </label>
-            <select id="import-class" name="classId" className="field-input">
-              {classes.map((c) => (
-                <option key={c.classId} value={c.classId}>
-                  {c.label}
-                </option>
-              ))}
-            </select>
-            <FieldError name="classId" error={fieldErrors.classId} />
-          </div>
-          <div>
-            <label htmlFor="import-course" className="field-label">
-              Course length (m)
-            </label>
-            <input id="import-course" name="courseLengthM" inputMode="decimal" className="field-input" required />
-            <FieldError name="courseLengthM" error={fieldErrors.courseLengthM} />
-          </div>
+          <ClassAndCourseFields idPrefix="import" classes={classes} errors={fieldErrors} isCourseRequired />
           <div>
             <label htmlFor="import-file" className="field-label">
               CSV file
