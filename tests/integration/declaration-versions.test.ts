@@ -199,10 +199,14 @@ test('the attack: 250 kW inspected and conforming, then declared 9000 kW: re-ins
   assert.match(listed?.declarationChange ?? '', /power 250 → 8000 kW/);
 
   // Inspected again at the new version (the scrutineer confirms 250 kW on the dyno sheet): current again,
-  // and the report takes the confirmed figure, not the 9000 kW the owner typed.
+  // and the report takes the confirmed figure, not the 9000 kW the owner typed. Sent as the dock sends it,
+  // with the declaration version its card showed.
+  const card = await scrutineer.fetch(`/api/events/${meeting.eventId}/race-numbers/${entry.raceNumber}`);
+  const shown = (await card.json()).data.boat.declarationVersion as number;
+  assert.ok(shown > 1);
   const again = await scrutineer.json(
     `/api/events/${meeting.eventId}/inspections`,
-    inspectionBody(entry.id, 101.9, { power: { declaredKw: 250, evidenceSeen: true } }),
+    inspectionBody(entry.id, 101.9, { power: { declaredKw: 250, evidenceSeen: true }, declarationVersion: shown }),
   );
   assert.equal(again.res.status, 201, JSON.stringify(again.body));
   row = (await board()).rows.find((r) => r.entryId === entry.id)!;

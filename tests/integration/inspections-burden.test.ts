@@ -52,8 +52,18 @@ test('a pre-race inspection with an inconclusive reading is "not accepted"; a pr
   for (const c of cases) {
     const e = await meeting.addEntry(defaultClass);
     const task = c.kind === 'protest' ? { reinspectionId: await meeting.addProtestTask(e.id) } : {};
-    const { res, body } = await post(inspectionBody(e.id, 102.02, { kind: c.kind, ...task }));
+    // As the dock sends it: with the declaration version its card showed (the boat is at version 1).
+    const { res, body } = await post(inspectionBody(e.id, 102.02, { kind: c.kind, ...task, declarationVersion: 1 }));
     assert.equal(res.status, 201, JSON.stringify(body));
+    if (task.reinspectionId) {
+      // The record answers the steward's task: it is done, and names this record.
+      const [done] = await query<{ inspection_id: string | null; done_at: Date | null }>(
+        'select inspection_id, done_at from reinspections where id = $1',
+        [task.reinspectionId],
+      );
+      assert.equal(done.inspection_id, body.data.id);
+      assert.ok(done.done_at);
+    }
     // The verdict is unchanged: inconclusive under ISO 14253-1 either way.
     assert.equal(body.data.overallResult, 'inconclusive', c.kind);
     const answered = body.data.rules.find((r: StoredLine) => r.rule === 'nozzle_max');

@@ -84,58 +84,66 @@ test('the entrant is e-mailed the result, with the boat name and the result in t
   assert.match(mail.text, /officials/);
 });
 
-test('the same key sent three times makes one record (201 then 200, 200); two keys make two', async () => {
-  const body = inspectionBody(entry.id, 101.9);
-  const first = await post(scrutineer, body);
-  const second = await post(scrutineer, body);
-  const third = await post(scrutineer, { ...body, notes: 'a retry with the same key changes nothing' });
-  assert.deepEqual([first.res.status, second.res.status, third.res.status], [201, 200, 200]);
-  assert.equal(second.body.data.id, first.body.data.id);
-  assert.equal(third.body.data.id, first.body.data.id);
-  assert.equal(await countByKey(body.idempotencyKey), 1);
-  // Sent at the same moment (a double tap on two connections): still one record.
-  const parallel = inspectionBody(entry.id, 101.9);
-  const answers = await Promise.all([
-    post(scrutineer, parallel),
-    post(scrutineer, parallel),
-    post(scrutineer, parallel),
-  ]);
-  assert.deepEqual(answers.map((a) => a.res.status).sort(), [200, 200, 201]);
-  assert.equal(new Set(answers.map((a) => a.body.data.id)).size, 1);
-  assert.equal(await countByKey(parallel.idempotencyKey), 1);
-  const a = inspectionBody(entry.id, 101.9);
-  const b = inspectionBody(entry.id, 101.9);
-  assert.equal((await post(scrutineer, a)).res.status, 201);
-  assert.equal((await post(scrutineer, b)).res.status, 201);
-  assert.equal((await countByKey(a.idempotencyKey)) + (await countByKey(b.idempotencyKey)), 2);
-});
-
-test('records for one entry sent at once: the entry ends with the result of the latest capture', async () => {
-  // The entry's stored result must follow the record that counts (the latest capture time) however
-  // the requests interleave: each writer takes the entry's lock before it recomputes. Alternating
-  // conforming and non-conforming readings (the worked decisions above, ISO 14253-1:2017) make a
-  // wrong winner visible. Five rounds of eight.
-  for (let round = 0; round < 5; round++) {
-    const e = await meeting.addEntry(classes.iso14253);
-    const base = Date.now() - 60_000;
-    const bodies = Array.from({ length: 8 }, (_, i) =>
-      inspectionBody(e.id, i % 2 ? 102.06 : 101.93, {
-        capturedAt: new Date(base + ((i * 5 + round) % 8) * 1000).toISOString(),
-      }),
-    );
-    const answers = await Promise.all(bodies.map((b) => post(scrutineer, b)));
-    assert.deepEqual(
-      answers.map((a) => a.res.status),
-      Array(8).fill(201),
-    );
-    const latest = bodies.reduce((a, b) => (a.capturedAt > b.capturedAt ? a : b));
-    const expected = latest.nozzle.readings[1].diameterMm === 102.06 ? 'does_not_conform' : 'conforms';
-    const [en] = await query<{ inspection_result: string }>('select inspection_result from entries where id = $1', [
-      e.id,
+// The dock sends the declaration version its card showed (such a record is written in one round trip);
+// an older client sends none (the full transaction). Both must keep these promises.
+for (const sender of [
+  { name: 'as the dock sends it', extra: { declarationVersion: 1 } },
+  { name: 'from an older client', extra: {} },
+]) {
+  test(`${sender.name}: the same key sent three times makes one record (201 then 200, 200); two keys make two`, async () => {
+    const body = inspectionBody(entry.id, 101.9, sender.extra);
+    const first = await post(scrutineer, body);
+    const second = await post(scrutineer, body);
+    const third = await post(scrutineer, { ...body, notes: 'a retry with the same key changes nothing' });
+    assert.deepEqual([first.res.status, second.res.status, third.res.status], [201, 200, 200]);
+    assert.equal(second.body.data.id, first.body.data.id);
+    assert.equal(third.body.data.id, first.body.data.id);
+    assert.equal(await countByKey(body.idempotencyKey), 1);
+    // Sent at the same moment (a double tap on two connections): still one record.
+    const parallel = inspectionBody(entry.id, 101.9, sender.extra);
+    const answers = await Promise.all([
+      post(scrutineer, parallel),
+      post(scrutineer, parallel),
+      post(scrutineer, parallel),
     ]);
-    assert.equal(en.inspection_result, expected, `round ${round}`);
-  }
-});
+    assert.deepEqual(answers.map((a) => a.res.status).sort(), [200, 200, 201]);
+    assert.equal(new Set(answers.map((a) => a.body.data.id)).size, 1);
+    assert.equal(await countByKey(parallel.idempotencyKey), 1);
+    const a = inspectionBody(entry.id, 101.9, sender.extra);
+    const b = inspectionBody(entry.id, 101.9, sender.extra);
+    assert.equal((await post(scrutineer, a)).res.status, 201);
+    assert.equal((await post(scrutineer, b)).res.status, 201);
+    assert.equal((await countByKey(a.idempotencyKey)) + (await countByKey(b.idempotencyKey)), 2);
+  });
+
+  test(`${sender.name}: records for one entry sent at once: the entry ends with the result of the latest capture`, async () => {
+    // The entry's stored result must follow the record that counts (the latest capture time) however
+    // the requests interleave: each writer takes the entry's lock before it recomputes. Alternating
+    // conforming and non-conforming readings (the worked decisions above, ISO 14253-1:2017) make a
+    // wrong winner visible. Five rounds of eight.
+    for (let round = 0; round < 5; round++) {
+      const e = await meeting.addEntry(classes.iso14253);
+      const base = Date.now() - 60_000;
+      const bodies = Array.from({ length: 8 }, (_, i) =>
+        inspectionBody(e.id, i % 2 ? 102.06 : 101.93, {
+          ...sender.extra,
+          capturedAt: new Date(base + ((i * 5 + round) % 8) * 1000).toISOString(),
+        }),
+      );
+      const answers = await Promise.all(bodies.map((b) => post(scrutineer, b)));
+      assert.deepEqual(
+        answers.map((a) => a.res.status),
+        Array(8).fill(201),
+      );
+      const latest = bodies.reduce((a, b) => (a.capturedAt > b.capturedAt ? a : b));
+      const expected = latest.nozzle.readings[1].diameterMm === 102.06 ? 'does_not_conform' : 'conforms';
+      const [en] = await query<{ inspection_result: string }>('select inspection_result from entries where id = $1', [
+        e.id,
+      ]);
+      assert.equal(en.inspection_result, expected, `round ${round}`);
+    }
+  });
+}
 
 test('a correction supersedes and keeps the original; both are in the history; the entry takes the correction', async () => {
   const e = await meeting.addEntry(classes.iso14253);

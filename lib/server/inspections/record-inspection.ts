@@ -1,4 +1,5 @@
 import 'server-only';
+import { randomUUID } from 'node:crypto';
 import { z } from 'zod';
 import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/server/db';
@@ -44,8 +45,9 @@ type EntryRow = {
   className: string;
   eventName: string;
   entrantEmail: string;
-  /** The boat's newest declaration version (what a dock showing the boat now shows). */
+  /** The boat's newest declaration version (what a dock showing the boat now shows), and its id. */
   latestDeclarationVersion: number;
+  latestDeclarationVersionId: string | null;
   /** The class's published rule versions, newest first; effectiveFromMs rounded up to the millisecond. */
   publishedVersions: { id: string; version: number; effectiveFromMs: number; rules: ClassRules }[] | null;
 };
@@ -97,17 +99,76 @@ async function loadEntry(eventId: string, entryId: string, key: string | null) {
             b.owner_id as "ownerId", b.name as "boatName", b.declared_power_kw as "boatDeclaredKw", b.power_evidence as "boatPowerEvidence",
             c.name as "className", ev.name as "eventName", u.email as "entrantEmail",
             (select i.event_id from inspections i where i.idempotency_key = :key) as "keyEventId",
-            (select max(d.version) from boat_declaration_versions d where d.boat_id = e.boat_id) as "latestDeclarationVersion",
+            latest.version as "latestDeclarationVersion", latest.id as "latestDeclarationVersionId",
             (select json_agg(json_build_object('id', v.id, 'version', v.version, 'rules', v.rules,
                                                'effectiveFromMs', ceil(extract(epoch from v.effective_from) * 1000))
                              order by v.effective_from desc, v.version desc)
                from class_rule_versions v where v.class_id = e.class_id and v.status = 'published' and v.effective_from is not null) as "publishedVersions"
        from entries e join boats b on b.id = e.boat_id join race_classes c on c.id = e.class_id join events ev on ev.id = e.event_id
             join users u on u.id = e.entrant_id
+            left join lateral (select d.id, d.version from boat_declaration_versions d where d.boat_id = e.boat_id
+                                order by d.version desc limit 1) latest on true
       where e.id = :entryId and e.event_id = :eventId`,
     { replacements: { entryId, eventId, key }, type: QueryTypes.SELECT },
   );
   return row as (EntryRow & { keyEventId: string | null }) | undefined;
+}
+
+// The columns of a new record and their values (replacements named as in recordInspection's row), the
+// entry's row lock taken in the same statement as `locked`.
+const INSERT_COLUMNS = `event_id, entry_id, boat_id, class_id, rule_version_id, kind, recorded_by_id, device, idempotency_key,
+  captured_at, supersedes_id, correction_reason, reinspection_id, measurements, results, overall_result, notes`;
+const INSERT_VALUES = `:eventId, locked.id, :boatId, :classId, :ruleVersionId, :kind, :recordedById, :device, :idempotencyKey,
+  :capturedAt, :supersedesId, :correctionReason, :reinspectionId, :measurements::jsonb, :results::jsonb, :overall, :notes`;
+
+// A record of the version a declaration-change task asked about (or later) settles that task.
+const settleAskedSql = `update reinspections r set done_at = now(), inspection_id = :id, updated_at = now()
+     from boat_declaration_versions asked, boat_declaration_versions seen
+    where r.entry_id = :entryId and r.done_at is null and asked.id = r.declaration_version_id
+      and seen.id = :declarationVersionId and asked.boat_id = seen.boat_id and asked.version <= seen.version`;
+
+type NewRecordRow = Record<string, unknown> & { entryId: string; boatId: string; reinspectionId: string | null };
+type Inserted = { id: string; receivedAt: Date; declarationVersionId: string };
+
+/**
+ * A new record of the boat's latest declaration, with no seal events, in one round trip: two statements
+ * in one simple query, which PostgreSQL runs as one transaction (either both take effect or neither).
+ * The first takes the entry's row lock and inserts unless the declaration moved on or the key is stored;
+ * the second, on a new snapshot that holds the insert and every record committed before the lock was
+ * granted, does what follows a record (as in the full transaction of recordInspection). The record's id
+ * is made here so the second statement finds exactly this insert. Null when nothing was inserted: the
+ * caller then takes the full transaction, which tells a replay from a declaration edit.
+ */
+async function writeInOneTrip(
+  row: NewRecordRow,
+  { declarationVersionId, shownVersion, mail }: { declarationVersionId: string; shownVersion: number; mail: string },
+): Promise<Inserted | null> {
+  const id = randomUUID();
+  const rows = await getDb().sequelize.query<Inserted>(
+    `with locked as (select id from entries where id = :entryId for update)
+     insert into inspections (id, ${INSERT_COLUMNS}, declaration_version_id)
+     select :id, ${INSERT_VALUES}, :declarationVersionId
+       from locked
+      where not exists (select 1 from boat_declaration_versions d where d.boat_id = :boatId and d.version > :shownVersion)
+     on conflict (idempotency_key) do nothing;
+     with ${currentInspectionCte('entry')},
+     inserted as (select id, received_at, declaration_version_id from inspections where id = :id),
+     entry_result as (
+       update entries set inspection_result = (select i.overall_result from inspections i where i.id = (select id from current_inspection)),
+              updated_at = now()
+        where id = :entryId and exists (select 1 from inserted)),
+     settled as (${settleAskedSql} and exists (select 1 from inserted) returning r.id),
+     task as (
+       update reinspections set inspection_id = :id, done_at = now(), updated_at = now()
+        where id = :reinspectionId and done_at is null and exists (select 1 from inserted) and id not in (select id from settled)),
+     mail as (${outboxInsertSql('outboxMail')} where exists (select 1 from inserted))
+     select id, received_at as "receivedAt", declaration_version_id as "declarationVersionId" from inserted`,
+    {
+      replacements: { ...row, id, declarationVersionId, shownVersion, outboxMail: mail },
+      type: QueryTypes.SELECT,
+    },
+  );
+  return rows[0] ?? null;
 }
 
 /** The entrant's result mail, queued with the record (sent by the outbox worker, never on the request path). */
@@ -262,17 +323,45 @@ export async function recordInspection(
     dynoDocument,
   });
 
-  const inserted = await sequelize.transaction(async (transaction) => {
-    // One writer per entry at a time, so the entry's result always reflects every committed record:
-    // the insert first takes the entry's row lock (in the same statement, one round trip fewer), and
-    // the update below starts after it, so it sees every record committed before the lock was granted.
-    const rows = await sequelize.query<{ id: string; receivedAt: Date; declarationVersionId: string }>(
-      `with locked as (select id from entries where id = :entryId for update)
-       insert into inspections (event_id, entry_id, boat_id, class_id, rule_version_id, kind, recorded_by_id, device, idempotency_key,
-                                captured_at, supersedes_id, correction_reason, reinspection_id, measurements, results, overall_result, notes,
-                                declaration_version_id)
-       select :eventId, locked.id, :boatId, :classId, :ruleVersionId, :kind, :recordedById, :device, :idempotencyKey,
-              :capturedAt, :supersedesId, :correctionReason, :reinspectionId, :measurements::jsonb, :results::jsonb, :overall, :notes,
+  const row = {
+    eventId,
+    entryId: entry.id,
+    boatId: entry.boatId,
+    classId: entry.classId,
+    ruleVersionId: ruleVersion.id,
+    kind: input.kind,
+    recordedById: actor.id,
+    device: input.device,
+    idempotencyKey,
+    capturedAt: new Date(input.capturedAt),
+    supersedesId: input.supersedesId,
+    correctionReason: input.correctionReason,
+    reinspectionId: input.reinspectionId,
+    measurements: JSON.stringify(measurements),
+    results: JSON.stringify(results),
+    overall: decision.overall,
+    notes: input.notes,
+  };
+  const mail = outboxRows([entrantMail(entry, decision)]);
+  // Nearly every record is new, checks the boat's latest declaration (the dock sends the version it showed)
+  // and touches no seal: such a record is written in one round trip. Anything else, or a record that lost
+  // a race with a declaration edit or a parallel copy of itself, takes the full transaction below.
+  const oneTrip =
+    !input.supersedesId &&
+    shownVersion != null &&
+    entry.latestDeclarationVersionId != null &&
+    sealPlan.events.length === 0 &&
+    (await writeInOneTrip(row, { declarationVersionId: entry.latestDeclarationVersionId, shownVersion, mail }));
+  const inserted =
+    oneTrip ||
+    (await sequelize.transaction(async (transaction) => {
+      // One writer per entry at a time, so the entry's result always reflects every committed record:
+      // the insert first takes the entry's row lock (in the same statement, one round trip fewer), and
+      // the update below starts after it, so it sees every record committed before the lock was granted.
+      const rows = await sequelize.query<Inserted>(
+        `with locked as (select id from entries where id = :entryId for update)
+       insert into inspections (${INSERT_COLUMNS}, declaration_version_id)
+       select ${INSERT_VALUES},
               -- The version the dock showed (checked above to be the latest), else (an older client) the version in
               -- force when the boat was measured, else the first: a record never pins a version made after its capture.
               (select d.id from boat_declaration_versions d where d.boat_id = :boatId
@@ -282,54 +371,33 @@ export async function recordInspection(
          from locked
        on conflict (idempotency_key) do nothing
        returning id, received_at as "receivedAt", declaration_version_id as "declarationVersionId"`,
-      {
-        replacements: {
-          eventId,
-          entryId: entry.id,
-          boatId: entry.boatId,
-          classId: entry.classId,
-          ruleVersionId: ruleVersion.id,
-          kind: input.kind,
-          recordedById: actor.id,
-          device: input.device,
-          idempotencyKey,
-          capturedAt: new Date(input.capturedAt),
-          supersedesId: input.supersedesId,
-          correctionReason: input.correctionReason,
-          reinspectionId: input.reinspectionId,
-          measurements: JSON.stringify(measurements),
-          results: JSON.stringify(results),
-          overall: decision.overall,
-          notes: input.notes,
-          measuredAt,
-          // A correction restates an earlier inspection: it pins the version in force then, as before.
-          shownVersion: input.supersedesId ? null : shownVersion,
+        {
+          replacements: {
+            ...row,
+            measuredAt,
+            // A correction restates an earlier inspection: it pins the version in force then, as before.
+            shownVersion: input.supersedesId ? null : shownVersion,
+          },
+          type: QueryTypes.SELECT,
+          transaction,
         },
-        type: QueryTypes.SELECT,
+      );
+      if (rows.length === 0) return null; // the same key committed a moment ago by a parallel request
+      const { id } = rows[0];
+      // The seal events belong to this record: written here, so a replay (no row inserted above) writes none.
+      await writeInspectionSealEvents(
+        sealPlan,
+        { inspectionId: id, eventId, boatId: entry.boatId, recordedById: actor.id },
         transaction,
-      },
-    );
-    if (rows.length === 0) return null; // the same key committed a moment ago by a parallel request
-    const { id } = rows[0];
-    // The seal events belong to this record: written here, so a replay (no row inserted above) writes none.
-    await writeInspectionSealEvents(
-      sealPlan,
-      { inspectionId: id, eventId, boatId: entry.boatId, recordedById: actor.id },
-      transaction,
-    );
-    const replacements = { id, entryId: entry.id, declarationVersionId: rows[0].declarationVersionId };
-    // A record of the version a declaration-change task asked about (or later) settles that task.
-    const settleAskedSql = `update reinspections r set done_at = now(), inspection_id = :id, updated_at = now()
-         from boat_declaration_versions asked, boat_declaration_versions seen
-        where r.entry_id = :entryId and r.done_at is null and asked.id = r.declaration_version_id
-          and seen.id = :declarationVersionId and asked.boat_id = seen.boat_id and asked.version <= seen.version`;
-    // What follows the insert, in one statement (one round trip per record, not four), on one snapshot
-    // that includes the insert above: inspections are never updated, so the entry carries the current
-    // record's result for quick reading; the entrant's result mail is queued (sent by the outbox worker,
-    // so a rolled-back record sends nothing); and when the record checked the boat's latest declaration
-    // (nearly always), the tasks it answers are settled here too.
-    const [latestVersion] = await sequelize.query<{ id: string }>(
-      `with ${currentInspectionCte('entry')},
+      );
+      const replacements = { id, entryId: entry.id, declarationVersionId: rows[0].declarationVersionId };
+      // What follows the insert, in one statement (one round trip per record, not four), on one snapshot
+      // that includes the insert above: inspections are never updated, so the entry carries the current
+      // record's result for quick reading; the entrant's result mail is queued (sent by the outbox worker,
+      // so a rolled-back record sends nothing); and when the record checked the boat's latest declaration
+      // (nearly always), the tasks it answers are settled here too.
+      const [latestVersion] = await sequelize.query<{ id: string }>(
+        `with ${currentInspectionCte('entry')},
        latest as (select d.id from boat_declaration_versions d where d.boat_id = :boatId order by d.version desc limit 1),
        entry_result as (
          -- By primary key: a join let the planner scan every meeting's inspections for this one row.
@@ -343,39 +411,39 @@ export async function recordInspection(
             and id not in (select id from settled)),
        mail as (${outboxInsertSql('outboxMail')})
        select id from latest`,
-      {
-        replacements: {
-          ...replacements,
-          boatId: entry.boatId,
-          reinspectionId: input.reinspectionId,
-          outboxMail: outboxRows([entrantMail(entry, decision)]),
+        {
+          replacements: {
+            ...replacements,
+            boatId: entry.boatId,
+            reinspectionId: input.reinspectionId,
+            outboxMail: mail,
+          },
+          type: QueryTypes.SELECT,
+          transaction,
         },
-        type: QueryTypes.SELECT,
-        transaction,
-      },
-    );
-    // A record of a version already replaced (it waited offline, or crossed an edit) does not count:
-    // the entry is marked for re-inspection with what changed since, as the owner's edit would have
-    // (the chief scrutineers' mail queued with it), and only then are tasks settled, in that order.
-    if (latestVersion && latestVersion.id !== rows[0].declarationVersionId) {
-      const newer = await models.BoatDeclarationVersion.findByPk(latestVersion.id, { transaction });
-      const latest = {
-        ...pickDeclaration(newer as unknown as DeclarationFields),
-        id: newer!.id,
-        version: newer!.version,
-      };
-      const flagged = await flagInspectedEntries(actor.id, latest, transaction);
-      await mailChiefScrutineers(entry.boatName, flagged, transaction);
-      await sequelize.query(settleAskedSql, { replacements, transaction });
-      if (input.reinspectionId) {
-        await models.Reinspection.update(
-          { inspectionId: id, doneAt: new Date() },
-          { where: { id: input.reinspectionId, doneAt: null }, transaction },
-        );
+      );
+      // A record of a version already replaced (it waited offline, or crossed an edit) does not count:
+      // the entry is marked for re-inspection with what changed since, as the owner's edit would have
+      // (the chief scrutineers' mail queued with it), and only then are tasks settled, in that order.
+      if (latestVersion && latestVersion.id !== rows[0].declarationVersionId) {
+        const newer = await models.BoatDeclarationVersion.findByPk(latestVersion.id, { transaction });
+        const latest = {
+          ...pickDeclaration(newer as unknown as DeclarationFields),
+          id: newer!.id,
+          version: newer!.version,
+        };
+        const flagged = await flagInspectedEntries(actor.id, latest, transaction);
+        await mailChiefScrutineers(entry.boatName, flagged, transaction);
+        await sequelize.query(settleAskedSql, { replacements, transaction });
+        if (input.reinspectionId) {
+          await models.Reinspection.update(
+            { inspectionId: id, doneAt: new Date() },
+            { where: { id: input.reinspectionId, doneAt: null }, transaction },
+          );
+        }
       }
-    }
-    return rows[0];
-  });
+      return rows[0];
+    }));
 
   if (!inserted) {
     const existing = await findByKey(eventId, idempotencyKey);
