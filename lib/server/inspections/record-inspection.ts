@@ -5,7 +5,6 @@ import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError, fieldError } from '@/lib/core/errors';
-import type { ClassRules } from '@/lib/core/inputs/class-rules';
 import { outboxInsertSql, outboxRows, type QueuedMail } from '@/lib/server/mail/outbox';
 import { pickDeclaration, type DeclarationFields } from '@/lib/core/boats/declaration-changes';
 import { flagInspectedEntries } from '@/lib/server/boats/flag-declaration-change';
@@ -26,6 +25,7 @@ import { calibrationState } from '../../core/inspections/calibration-state';
 import { eventTimeZone, loadCalibrationFacts } from './instrument-calibration';
 import { resolveItemInstruments } from './item-instruments';
 import { currentInspectionCte, loadInspectionViews, type InspectionView } from './inspection-view';
+import { publishedRules } from '@/lib/server/classes/published-rules';
 import { planInspectionSeals, writeInspectionSealEvents } from '@/lib/server/seals/inspection-seals';
 
 // Built once, not per record (a zod schema costs its construction on every call otherwise).
@@ -48,8 +48,8 @@ type EntryRow = {
   /** The boat's newest declaration version (what a dock showing the boat now shows), and its id. */
   latestDeclarationVersion: number;
   latestDeclarationVersionId: string | null;
-  /** The class's published rule versions, newest first; effectiveFromMs rounded up to the millisecond. */
-  publishedVersions: { id: string; version: number; effectiveFromMs: number; rules: ClassRules }[] | null;
+  /** The class's published rule versions, newest first; effectiveFromMs rounded up to the millisecond (their rules: publishedRules). */
+  publishedVersions: { id: string; version: number; effectiveFromMs: number }[] | null;
 };
 
 async function findInstrument(
@@ -100,7 +100,7 @@ async function loadEntry(eventId: string, entryId: string, key: string | null) {
             c.name as "className", ev.name as "eventName", u.email as "entrantEmail",
             (select i.event_id from inspections i where i.idempotency_key = :key) as "keyEventId",
             latest.version as "latestDeclarationVersion", latest.id as "latestDeclarationVersionId",
-            (select json_agg(json_build_object('id', v.id, 'version', v.version, 'rules', v.rules,
+            (select json_agg(json_build_object('id', v.id, 'version', v.version,
                                                'effectiveFromMs', ceil(extract(epoch from v.effective_from) * 1000))
                              order by v.effective_from desc, v.version desc)
                from class_rule_versions v where v.class_id = e.class_id and v.status = 'published' and v.effective_from is not null) as "publishedVersions"
@@ -270,8 +270,10 @@ export async function recordInspection(
       'A protest inspection is the re-inspection a steward ordered for a protest against this boat: record it from that task, or choose another kind.',
     );
   // The version in force when the boat was measured (as findRulesInForce picks it), from the versions
-  // that came with the entry: one query fewer per record. Published versions are frozen.
-  const ruleVersion = (entry.publishedVersions ?? []).find((v) => v.effectiveFromMs <= measuredAt.getTime()) ?? null;
+  // that came with the entry (one query fewer per record); its rules from this process's copy of the frozen version.
+  const versionInForce = (entry.publishedVersions ?? []).find((v) => v.effectiveFromMs <= measuredAt.getTime());
+  const inForceRules = versionInForce ? await publishedRules(versionInForce.id) : null;
+  const ruleVersion = versionInForce && inForceRules ? { ...versionInForce, rules: inForceRules } : null;
   if (!ruleVersion) {
     throw new AppError(
       'no_rules_in_force',
