@@ -2,6 +2,7 @@
 
 import { useCallback, useEffect, useEffectEvent, useRef, useState, useSyncExternalStore } from 'react';
 import Link from 'next/link';
+import dynamic from 'next/dynamic';
 import { parseTagScan } from '@/lib/core/tags/parse-tag-scan';
 import { requestJson } from '@/components/forms/request-json';
 import {
@@ -15,7 +16,6 @@ import {
 import type { InspectionView } from '@/lib/server/inspections/inspection-view';
 import type { InstrumentView } from '@/lib/server/inspections/list-instruments';
 import { describeScope } from '@/lib/core/inspections/decide-inspection';
-import { BoatCardView } from './boat-card-view';
 import { FindBoat, type FindQuery } from './find-boat';
 import {
   formFromDraft,
@@ -25,11 +25,20 @@ import {
   type DockTarget,
   type FormState,
 } from './form-model';
-import { InspectionForm, type FormSubmission } from './inspection-form';
+import type { FormSubmission } from './inspection-form';
 import { QueuePanel } from './queue-panel';
 import { registerInspectServiceWorker, useDockQueue } from './use-dock-queue';
-import { VerdictPanel, type ShownVerdict } from './verdict-panel';
+import type { ShownVerdict } from './verdict-panel';
+import { loadDockParts } from './dock-parts';
 import { describePowerEvidence } from '@/lib/core/inspections/power-evidence';
+
+// The boat card, the record form and the verdict appear only once a boat is found: their code is not part of
+// the screen's first load (a phone on one bar of signal gets the finder sooner, with less script to run
+// before it answers). They are fetched when the phone is idle after the first paint, and kept by the
+// service worker for use with no signal (registerInspectServiceWorker), or at once when a boat is opened.
+const BoatCardView = dynamic(() => import('./boat-card-view').then((m) => m.BoatCardView));
+const InspectionForm = dynamic(() => import('./inspection-form').then((m) => m.InspectionForm));
+const VerdictPanel = dynamic(() => import('./verdict-panel').then((m) => m.VerdictPanel));
 
 /** A record key made on the phone (crypto.randomUUID needs a secure context; fall back to random bytes). */
 function newKey(): string {
@@ -311,6 +320,8 @@ export function DockScreen({
     const race = query.get('race');
     const tag = query.get('tag');
     isOpenedFromLink.current = Boolean(race || tag);
+    // The card and form are wanted at once: their code is fetched beside the lookup, not after it.
+    if (race || tag) void loadDockParts().catch(() => undefined);
     if (race) void find({ kind: 'typed', text: race });
     else if (tag) void find({ kind: 'scan', text: tag });
   });

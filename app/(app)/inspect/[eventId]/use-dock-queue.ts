@@ -2,6 +2,7 @@
 
 import { useCallback, useEffect, useState, useSyncExternalStore } from 'react';
 import { listQueued, removeQueued, sendWaiting, type QueuedRecord } from '@/app/(app)/inspect/[eventId]/offline-queue';
+import { loadDockParts } from './dock-parts';
 
 const RETRY_MS = 15_000;
 
@@ -76,6 +77,14 @@ export function registerInspectServiceWorker() {
             w.state === 'activated' ? resolve(w) : w.state === 'redundant' ? resolve(null) : undefined,
           );
         }));
+      // The parts that appear once a boat is found, fetched while the phone is idle (the screen's first
+      // load does without them), so they are among the files the worker keeps for use with no signal.
+      await new Promise<void>((resolve) =>
+        'requestIdleCallback' in window
+          ? requestIdleCallback(() => resolve(), { timeout: 5000 })
+          : setTimeout(resolve, 1000),
+      );
+      await loadDockParts().catch(() => undefined);
       const files = performance
         .getEntriesByType('resource')
         .map((e) => e.name)
