@@ -476,6 +476,19 @@ export const ROUTES: Row[] = [
     path: (i) => `${ev(i)}/results`,
     access: { anyOf: ['results.publish'] },
   },
+  // No pass, no start: the start list of a meeting day and the organiser's decisions on it
+  {
+    method: 'GET',
+    file: `${E}/start-list/route.ts`,
+    path: (i) => `${ev(i)}/start-list`,
+    access: { anyOf: ['start_list.view'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/start-list/decisions/route.ts`,
+    path: (i) => `${ev(i)}/start-list/decisions`,
+    access: { anyOf: ['start_list.decide'] },
+  },
   // Run times from the timing sheet and the model against the clock (organisers, as results)
   {
     method: 'GET',

@@ -25,6 +25,9 @@ export const PERMISSIONS = {
   'inspection.record': ['scrutineer', 'chief_scrutineer'],
   'inspection.board': ['scrutineer', 'chief_scrutineer', 'organiser'],
   'inspection.assign_reinspection': ['chief_scrutineer', 'steward'],
+  // No pass, no start: the start list of a meeting day, and the organiser's recorded decisions on it
+  'start_list.view': ['scrutineer', 'chief_scrutineer', 'steward', 'organiser'],
+  'start_list.decide': ['organiser'],
   'instrument.manage': ['chief_scrutineer', 'organiser'],
   // Parts held by the officials
   'custody.take': ['scrutineer', 'chief_scrutineer', 'steward'],

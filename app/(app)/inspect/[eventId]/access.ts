@@ -17,3 +17,4 @@ export const openBoard = (params: Params) => openEventPageWithHeading(params, 'i
 export const openCustody = (params: Params) => openEventPageWithHeading(params, 'custody.view');
 export const openInstruments = (params: Params) => openEventPageWithHeading(params, 'inspection.board');
 export const openSeals = (params: Params) => openEventPageWithHeading(params, 'inspection.board');
+export const openStartList = (params: Params) => openEventPageWithHeading(params, 'start_list.view');

@@ -30,6 +30,11 @@ export default async function BoardPage({ params }: { params: Promise<{ eventId:
               Parts in custody
             </Link>
           )}
+          {can(actor, 'start_list.view', { eventId }) && (
+            <Link href={`/inspect/${eventId}/start-list`} className="btn-secondary text-lg">
+              Start list
+            </Link>
+          )}
           <Link href={`/inspect/${eventId}/instruments`} className="btn-secondary text-lg">
             Instruments
           </Link>
