@@ -1,6 +1,6 @@
 import type { ClockSection as ClockSectionFigures } from '@/lib/core/timing/clock-section';
 import { figureValue } from '@/lib/core/format/figures';
-import { thrustModelWord } from '@/lib/core/reports/clock-report-lines';
+import { massWords, thrustModelWord } from '@/lib/core/reports/clock-report-lines';
 import { ClockScatter } from './clock-scatter';
 import { ClockLevers } from './clock-levers';
 
@@ -46,9 +46,8 @@ export function ClockSection({
             {section.worstRelativeAccuracy === null ? '—' : section.worstRelativeAccuracy.toExponential(1)}. Turns,
             starts and driving are not modelled.
           </li>
-          <li>
-            Mass: the weight measured at inspection (else the class minimum) plus {A.crewKg} kg crew and {A.fuelKg} kg
-            fuel, assumed: entrants do not declare crew or fuel yet.
+          <li data-testid="clock-mass-words">
+            Mass: the weight measured at inspection (else the class minimum) plus {massWords(section)}.
           </li>
           <li>
             Drag k: fitted so that thrust equals drag at the boat&apos;s own top speed (GPS, else trap); without one,

@@ -8,6 +8,7 @@ import { gatherReportInputs } from '@/lib/server/reports/gather-report-inputs';
 import type { ReportInputs } from '@/lib/core/reports/parity-figures';
 import { computeMatchedBoat, type BoatModelUsed } from '@/lib/core/reports/matched-figures';
 import { computeClockSection, type ClockRun, type ClockSection } from '@/lib/core/timing/clock-section';
+import { readClassDeclaredMasses } from './declared-masses';
 
 export type ClockSectionView = ClockSection & { classId: string; classCode: string; className: string };
 
@@ -46,6 +47,8 @@ export async function computeClockFromReportInputs(
         and not exists (select 1 from run_times c where c.supersedes_id = r.id)`,
     { replacements: { eventId, classId }, type: QueryTypes.SELECT },
   );
+  // The entrants' crew and fuel declarations as they are now: a published report keeps the ones it was computed with.
+  const declared = await readClassDeclaredMasses(eventId, classId);
   const model = {
     densityKgM3: inputs.density.densityKgM3,
     pumpEfficiency: inputs.assumptions.pumpEfficiency,
@@ -80,6 +83,8 @@ export async function computeClockFromReportInputs(
         uNozzleDiameterMm: b.uNozzleDiameterMm,
         curves: u?.model === 'matched' ? b.curves : null,
         fixedPowerReason: u?.reason ?? null,
+        declaredCrewKg: declared.get(b.entryId)?.crewKg ?? null,
+        declaredFuelKg: declared.get(b.entryId)?.fuelKg ?? null,
       };
     }),
     excluded: inputs.excluded,
