@@ -1,4 +1,5 @@
 import type { ClockSection as ClockSectionFigures } from '@/lib/core/timing/clock-section';
+import type { CatalogueImpeller } from '@/lib/core/timing/balance-levers';
 import { figureValue } from '@/lib/core/format/figures';
 import { massWords, thrustModelWord } from '@/lib/core/reports/clock-report-lines';
 import { ClockScatter } from './clock-scatter';
@@ -20,7 +21,7 @@ export function ClockSection({
   section,
   withLevers = true,
 }: {
-  section: ClockSectionFigures & { classCode: string; className: string };
+  section: ClockSectionFigures & { classCode: string; className: string; pumpCatalogue?: CatalogueImpeller[] };
   withLevers?: boolean;
 }) {
   const c = section.comparison;
@@ -119,7 +120,7 @@ export function ClockSection({
           </tbody>
         </table>
       </div>
-      {withLevers && <ClockLevers section={section} />}
+      {withLevers && <ClockLevers section={section} catalogue={section.pumpCatalogue} />}
       <div className="card space-y-3">
         <h3>Predicted against observed{section.courseLengthM !== null && ` over ${section.courseLengthM} m`}</h3>
         {section.otherCourseRuns > 0 && (
