@@ -2,7 +2,7 @@
 
 import { useMemo, useState } from 'react';
 import { applyBalanceLevers, type BalanceLevers, type CatalogueImpeller } from '@/lib/core/timing/balance-levers';
-import type { ImpellerChange } from '@/lib/core/timing/clock-thrust';
+import { IMPELLER_FACTOR_RANGE, type ImpellerChange } from '@/lib/core/timing/clock-thrust';
 import type { ClockSection } from '@/lib/core/timing/clock-section';
 import { numberOrNull } from '@/lib/core/inputs/form-values';
 
@@ -138,7 +138,8 @@ export function ClockLevers({ section, catalogue = [] }: { section: ClockSection
             onChange={(e) => setImpeller((i) => ({ ...i, factor: e.target.value }))}
           />
           <p id="lever-impeller-factor-hint" className="field-hint">
-            Its pump&apos;s efficiency (or the class&apos;s, on fixed power) times this: 1.05 for a 5 % better impeller.
+            Its pump&apos;s efficiency (or the class&apos;s, on fixed power) times this, from{' '}
+            {IMPELLER_FACTOR_RANGE.min} to {IMPELLER_FACTOR_RANGE.max}: 1.05 for a 5 % better impeller.
           </p>
         </div>
       </fieldset>

@@ -77,12 +77,15 @@ export type ImpellerChange = {
   efficiencyFactor?: number;
 };
 
+/** The efficiency factors the sandbox takes. */
+export const IMPELLER_FACTOR_RANGE = { min: 0.5, max: 2 } as const;
+
 /** Why an impeller change cannot be figured for a boat (the sandbox leaves the boat out and says why). */
 export class ImpellerChangeError extends Error {}
 
 /**
  * A boat's thrust at a power and nozzle with another impeller (ImpellerChange); an empty change is its own thrust.
- * Throws ImpellerChangeError for a catalogue impeller on a fixed-power boat, a factor that is not a positive number,
+ * Throws ImpellerChangeError for a catalogue impeller on a fixed-power boat, a factor outside IMPELLER_FACTOR_RANGE,
  * or an efficiency above 1 after the factor.
  */
 export function clockBoatThrustWithImpeller(
@@ -95,8 +98,12 @@ export function clockBoatThrustWithImpeller(
   if (!change || (change.pump === undefined && change.efficiencyFactor === undefined))
     return clockBoatThrust(model, boat, powerKw, nozzleDiameterMm);
   const factor = change.efficiencyFactor ?? 1;
-  if (!(factor > 0) || !Number.isFinite(factor))
-    throw new ImpellerChangeError(`The efficiency factor must be a positive number (got ${factor}).`);
+  // A what-if, not a design tool: an impeller half as good or twice as good bounds the question (and keeps a
+  // boat with almost no thrust from integrating to the run's time limit in the browser).
+  if (!(factor >= IMPELLER_FACTOR_RANGE.min && factor <= IMPELLER_FACTOR_RANGE.max))
+    throw new ImpellerChangeError(
+      `The efficiency factor is from ${IMPELLER_FACTOR_RANGE.min} to ${IMPELLER_FACTOR_RANGE.max} (got ${factor}).`,
+    );
   const matched = boat.thrustModel === 'matched' && boat.curves ? boat.curves : null;
   if (!matched) {
     if (change.pump)

@@ -168,6 +168,8 @@ test('the class spread follows the changed boat; what cannot be figured is left 
       m: { efficiencyFactor: 1.2 },
     },
   });
+  const tiny = applyBalanceLevers(section, { ...NONE, impellers: { f: { efficiencyFactor: 1e-6 } } });
+  assert.match(tiny.leftOut[0].reason, /from 0\.5 to 2 \(got 0\.000001\)/);
   assert.deepEqual(
     odd.boats.map((b) => b.entryId),
     [],
