@@ -168,6 +168,10 @@ test('only the entry’s entrant and its meeting’s organiser may declare; ever
     { crewKg: mine.body.data.crewKg, fuelKg: mine.body.data.fuelKg, entryId: mine.body.data.entryId },
     { crewKg: 150, fuelKg: 30, entryId: id },
   );
+  // The same figures again: the answer is the current declaration, and nothing is stored twice.
+  const again = await put(owner, id, body);
+  assert.equal(again.res.status, 200);
+  assert.equal(again.body.data.declaredAt, mine.body.data.declaredAt);
   const fix = await put(meeting.organiser, id, { crewKg: 152.5, fuelKg: 30 });
   assert.equal(fix.res.status, 200, JSON.stringify(fix.body));
   assert.deepEqual(await declarations(id), [
@@ -244,12 +248,25 @@ test('the database holds the bounds and the history; a withdrawn entry takes no 
   );
   const ok = await put(owner, id, { crewKg: 140, fuelKg: null });
   assert.equal(ok.res.status, 200);
-  await assert.rejects(query('update entry_mass_declarations set crew_kg = 90 where entry_id = $1', [id]));
-  await assert.rejects(query('delete from entry_mass_declarations where entry_id = $1', [id]));
+  assert.deepEqual([ok.body.data.crewKg, ok.body.data.fuelKg], [140, null]);
+  // Both null: back to the assumptions, as a new row (the first one stays).
+  const cleared = await put(owner, id, { crewKg: null, fuelKg: null });
+  assert.deepEqual([cleared.body.data.crewKg, cleared.body.data.fuelKg], [null, null]);
+  await assert.rejects(
+    query('update entry_mass_declarations set crew_kg = 90 where entry_id = $1', [id]),
+    /entry_mass_declarations records are append-only/,
+  );
+  await assert.rejects(
+    query('delete from entry_mass_declarations where entry_id = $1', [id]),
+    /entry_mass_declarations records are append-only/,
+  );
   await query(`update entries set status = 'withdrawn' where id = $1`, [id]);
   const late = await put(owner, id, { crewKg: 120, fuelKg: 20 });
   assert.equal(late.res.status, 409, JSON.stringify(late.body));
-  assert.deepEqual(await declarations(id), [{ crew_kg: 140, fuel_kg: null, declared_by: DEMO.entrant }]);
+  assert.deepEqual(await declarations(id), [
+    { crew_kg: 140, fuel_kg: null, declared_by: DEMO.entrant },
+    { crew_kg: null, fuel_kg: null, declared_by: DEMO.entrant },
+  ]);
 });
 
 test('the predicted runs use the declared masses and say so; a published report keeps what it was published with', async () => {

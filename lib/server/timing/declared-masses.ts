@@ -26,7 +26,7 @@ const CURRENT_SQL = `select d.entry_id as "entryId", d.crew_kg as "crewKg", d.fu
 /**
  * Declares the crew and fuel masses of one entry: its entrant, or an organiser of its meeting (who may correct
  * them). Whoever else asks learns nothing (404, as for a missing entry), and the body is read only after that
- * check. A withdrawn or cancelled entry takes no declaration (409). Append-only: a new row each time.
+ * check. A withdrawn or cancelled entry takes no declaration (409). Append-only: a new row for each change.
  */
 export async function declareEntryMasses(
   actor: Actor | null,
@@ -43,14 +43,25 @@ export async function declareEntryMasses(
   if (!entry || !(entry.entrantId === actor.id || can(actor, 'results.publish', { eventId: entry.eventId })))
     throw new AppError('not_found', 404, 'No such entry among yours.');
   const input = DeclareMassesInput.parse(await readInput());
-  const [row] = await sequelize.query<Row>(
-    `insert into entry_mass_declarations (entry_id, crew_kg, fuel_kg, declared_by_id)
-     select e.id, :crewKg, :fuelKg, :actorId from entries e
-      where e.id = :id and e.status in ('awaiting_payment', 'entered')
-     returning entry_id as "entryId", crew_kg as "crewKg", fuel_kg as "fuelKg", declared_at as "declaredAt"`,
+  // One statement: a withdrawn or cancelled entry stores nothing; the same figures as the current declaration store
+  // nothing either (a repeated PUT is idempotent, and a client repeating it does not grow the history); the answer is
+  // the current declaration, new or kept (the left join takes the current row only when nothing was added).
+  const [row] = await sequelize.query<Row & { isOpen: boolean }>(
+    `with entry as (select e.id, e.status in ('awaiting_payment', 'entered') as open from entries e where e.id = :id for update),
+          current as (select d.* from entry_mass_declarations d where d.entry_id = :id order by d.declared_at desc, d.id desc limit 1),
+          added as (
+            insert into entry_mass_declarations (entry_id, crew_kg, fuel_kg, declared_by_id)
+            select entry.id, :crewKg, :fuelKg, :actorId from entry
+             where entry.open and not exists (
+               select 1 from current c where c.crew_kg is not distinct from cast(:crewKg as double precision)
+                                         and c.fuel_kg is not distinct from cast(:fuelKg as double precision))
+            returning entry_id, crew_kg, fuel_kg, declared_at)
+     select entry.open as "isOpen", coalesce(a.entry_id, c.entry_id) as "entryId", coalesce(a.crew_kg, c.crew_kg) as "crewKg",
+            coalesce(a.fuel_kg, c.fuel_kg) as "fuelKg", coalesce(a.declared_at, c.declared_at) as "declaredAt"
+       from entry left join added a on true left join current c on a.entry_id is null`,
     { replacements: { id, crewKg: input.crewKg, fuelKg: input.fuelKg, actorId: actor.id }, type: QueryTypes.SELECT },
   );
-  if (!row)
+  if (!row?.isOpen)
     throw new AppError('conflict', 409, 'This entry is withdrawn or cancelled: its crew and fuel cannot be declared.');
   return toView(row);
 }
