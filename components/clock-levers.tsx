@@ -1,7 +1,8 @@
 'use client';
 
 import { useMemo, useState } from 'react';
-import { applyBalanceLevers, type BalanceLevers } from '@/lib/core/timing/balance-levers';
+import { applyBalanceLevers, type BalanceLevers, type CatalogueImpeller } from '@/lib/core/timing/balance-levers';
+import { IMPELLER_FACTOR_RANGE, type ImpellerChange } from '@/lib/core/timing/clock-thrust';
 import type { ClockSection } from '@/lib/core/timing/clock-section';
 import { numberOrNull } from '@/lib/core/inputs/form-values';
 
@@ -13,12 +14,31 @@ const s2 = (v: number | null) => (v === null ? '—' : v.toFixed(2));
 const signed = (v: number) => `${v >= 0 ? '+' : '−'}${Math.abs(v).toFixed(2)}`;
 
 /** What-if levers in seconds over the course, worked out in the browser from the section's own figures. */
-export function ClockLevers({ section }: { section: ClockSection }) {
+export function ClockLevers({ section, catalogue = [] }: { section: ClockSection; catalogue?: CatalogueImpeller[] }) {
   const [text, setText] = useState({ nozzleCapMm: '', minimumMassKg: '', powerCapKw: '' });
+  const [impeller, setImpeller] = useState({ entryId: '', catalogueId: '', factor: '' });
+  const chosenBoat = section.boats.find((b) => b.entryId === impeller.entryId);
+  const isMatched = chosenBoat?.thrustModel === 'matched' && !!chosenBoat.curves;
+  const chosenPump = isMatched ? catalogue.find((c) => c.id === impeller.catalogueId) : undefined;
+  const factor = toLever(impeller.factor);
+  const change: ImpellerChange | null =
+    chosenBoat && (chosenPump || factor !== null)
+      ? {
+          ...(chosenPump && {
+            pump: {
+              label: chosenPump.label,
+              impellerDiameterMm: chosenPump.impellerDiameterMm,
+              curve: chosenPump.curve,
+            },
+          }),
+          ...(factor !== null && { efficiencyFactor: factor }),
+        }
+      : null;
   const levers: BalanceLevers = {
     nozzleCapMm: toLever(text.nozzleCapMm),
     minimumMassKg: toLever(text.minimumMassKg),
     powerCapKw: toLever(text.powerCapKw),
+    ...(change && chosenBoat && { impellers: { [chosenBoat.entryId]: change } }),
   };
   const key = JSON.stringify(levers);
   // eslint-disable-next-line react-hooks/exhaustive-deps
@@ -34,10 +54,11 @@ export function ClockLevers({ section }: { section: ClockSection }) {
       <h3 id="levers-heading">Balance levers in seconds ({distance} m)</h3>
       <p className="text-sm">
         Try a rule change and see each boat&apos;s predicted time move. Each boat keeps its own drag; the thrust is its
-        own model&apos;s (on the matched model a power cap scales its engine curve and a restrictor changes its nozzle);
-        an impeller change is not offered yet. A suggestion for the rule makers, not a ruling: a boat&apos;s gap to the
-        median is only worth equalising when it is larger than its uncertainty (from its power, nozzle and weighing; the
-        assumed crew and fuel are not in it).
+        own model&apos;s (on the matched model a power cap scales its engine curve, a restrictor changes its nozzle and
+        another impeller moves where its engine and pump settle; on fixed power an impeller counts only through the pump
+        efficiency). A suggestion for the rule makers, not a ruling: a boat&apos;s gap to the median is only worth
+        equalising when it is larger than its uncertainty (from its power, nozzle and weighing; crew and fuel are not in
+        it).
       </p>
       <div className="grid gap-2 sm:grid-cols-3">
         {fields.map((f) => (
@@ -55,10 +76,86 @@ export function ClockLevers({ section }: { section: ClockSection }) {
           </div>
         ))}
       </div>
+      <fieldset className="grid gap-2 sm:grid-cols-3" data-testid="lever-impeller">
+        <legend className="field-label">Impeller change for one boat</legend>
+        <div>
+          <label htmlFor="lever-impeller-boat" className="field-label">
+            Boat
+          </label>
+          <select
+            id="lever-impeller-boat"
+            className="field-input"
+            value={impeller.entryId}
+            onChange={(e) => setImpeller({ entryId: e.target.value, catalogueId: '', factor: '' })}
+          >
+            <option value="">None</option>
+            {section.boats.map((b) => (
+              <option key={b.entryId} value={b.entryId}>
+                #{b.raceNumber} {b.boatName}
+              </option>
+            ))}
+          </select>
+        </div>
+        <div>
+          <label htmlFor="lever-impeller-pump" className="field-label">
+            Impeller from the meeting&apos;s catalogue
+          </label>
+          <select
+            id="lever-impeller-pump"
+            className="field-input"
+            value={impeller.catalogueId}
+            disabled={!isMatched || catalogue.length === 0}
+            aria-describedby="lever-impeller-pump-hint"
+            onChange={(e) => setImpeller((i) => ({ ...i, catalogueId: e.target.value }))}
+          >
+            <option value="">Its own</option>
+            {catalogue.map((c) => (
+              <option key={c.id} value={c.id}>
+                {c.label} (Ø {c.impellerDiameterMm} mm)
+              </option>
+            ))}
+          </select>
+          <p id="lever-impeller-pump-hint" className="field-hint">
+            {catalogue.length === 0
+              ? 'The meeting has no impellers in its catalogue.'
+              : chosenBoat && !isMatched
+                ? 'This boat runs on fixed power (no declared engine and pump curves): use the efficiency factor.'
+                : 'For a boat on the matched model: its engine curve with this impeller.'}
+          </p>
+        </div>
+        <div>
+          <label htmlFor="lever-impeller-factor" className="field-label">
+            Pump efficiency factor (×)
+          </label>
+          <input
+            id="lever-impeller-factor"
+            inputMode="decimal"
+            className="field-input"
+            value={impeller.factor}
+            disabled={!chosenBoat}
+            aria-describedby="lever-impeller-factor-hint"
+            placeholder="1"
+            onChange={(e) => setImpeller((i) => ({ ...i, factor: e.target.value }))}
+          />
+          <p id="lever-impeller-factor-hint" className="field-hint">
+            Its pump&apos;s efficiency (or the class&apos;s, on fixed power) times this, from{' '}
+            {IMPELLER_FACTOR_RANGE.min} to {IMPELLER_FACTOR_RANGE.max}: 1.05 for a 5 % better impeller.
+          </p>
+        </div>
+      </fieldset>
       <p className="font-bold" data-testid="lever-spread" aria-live="polite">
         Class spread of predicted times: {s2(outcome.spreadBeforeS)} s today, {s2(outcome.spreadAfterS)} s with these
         levers.
       </p>
+      {outcome.leftOut.length > 0 && (
+        <ul className="list-disc pl-5 text-sm" data-testid="lever-left-out">
+          {outcome.leftOut.map((l) => (
+            <li key={l.entryId}>
+              #{l.raceNumber} {l.boatName}: no time with these levers. {l.reason}
+            </li>
+          ))}
+        </ul>
+      )}
       {outcome.boats.length > 0 && (
         <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Each boat with the levers">
           <table className="w-full text-left text-sm">
@@ -70,6 +167,7 @@ export function ClockLevers({ section }: { section: ClockSection }) {
                 <th className="p-2">With levers (s)</th>
                 <th className="p-2">Change (s)</th>
                 <th className="p-2">Ballast (kg)</th>
+                <th className="p-2">Impeller</th>
                 <th className="p-2">From the median (s, ± U at k = 2)</th>
               </tr>
             </thead>
@@ -82,6 +180,7 @@ export function ClockLevers({ section }: { section: ClockSection }) {
                   <td className="figure p-2">{b.afterS.toFixed(2)}</td>
                   <td className="figure p-2">{signed(b.deltaS)}</td>
                   <td className="figure p-2">{b.ballastKg.toFixed(0)}</td>
+                  <td className="p-2 text-xs">{b.impeller ?? 'its own'}</td>
                   <td className="figure p-2">
                     {signed(b.fromMedianS)}
                     {b.expandedUncertaintyS !== null && b.expandedUncertaintyS > 0 && (

@@ -1,6 +1,7 @@
 import type { ClockSection as ClockSectionFigures } from '@/lib/core/timing/clock-section';
+import type { CatalogueImpeller } from '@/lib/core/timing/balance-levers';
 import { figureValue } from '@/lib/core/format/figures';
-import { thrustModelWord } from '@/lib/core/reports/clock-report-lines';
+import { massWords, thrustModelWord } from '@/lib/core/reports/clock-report-lines';
 import { ClockScatter } from './clock-scatter';
 import { ClockLevers } from './clock-levers';
 
@@ -20,7 +21,7 @@ export function ClockSection({
   section,
   withLevers = true,
 }: {
-  section: ClockSectionFigures & { classCode: string; className: string };
+  section: ClockSectionFigures & { classCode: string; className: string; pumpCatalogue?: CatalogueImpeller[] };
   withLevers?: boolean;
 }) {
   const c = section.comparison;
@@ -46,9 +47,8 @@ export function ClockSection({
             {section.worstRelativeAccuracy === null ? '—' : section.worstRelativeAccuracy.toExponential(1)}. Turns,
             starts and driving are not modelled.
           </li>
-          <li>
-            Mass: the weight measured at inspection (else the class minimum) plus {A.crewKg} kg crew and {A.fuelKg} kg
-            fuel, assumed: entrants do not declare crew or fuel yet.
+          <li data-testid="clock-mass-words">
+            Mass: the weight measured at inspection (else the class minimum) plus {massWords(section)}.
           </li>
           <li>
             Drag k: fitted so that thrust equals drag at the boat&apos;s own top speed (GPS, else trap); without one,
@@ -120,7 +120,7 @@ export function ClockSection({
           </tbody>
         </table>
       </div>
-      {withLevers && <ClockLevers section={section} />}
+      {withLevers && <ClockLevers section={section} catalogue={section.pumpCatalogue} />}
       <div className="card space-y-3">
         <h3>Predicted against observed{section.courseLengthM !== null && ` over ${section.courseLengthM} m`}</h3>
         {section.otherCourseRuns > 0 && (

@@ -139,6 +139,11 @@ for (const [name, options] of [
     await page.getByLabel('Power cap (kW, as a rev limit)').fill('200');
     await page.waitForFunction((t) => document.querySelector('[data-testid="lever-spread"]')?.textContent !== t, today);
     assert.match(await spread.innerText(), /s today, [\d.]+ s with these levers/);
+    // Another impeller for one boat: these boats run on fixed power, so the efficiency factor is what applies, and the
+    // boat's row names the change (its effect in seconds is checked in tests/unit/core/timing/impeller-lever.test.ts).
+    await page.getByLabel('Boat', { exact: true }).selectOption({ index: 1 });
+    await page.getByLabel('Pump efficiency factor (×)').fill('0.9');
+    await page.getByRole('region', { name: 'Each boat with the levers' }).getByText('efficiency × 0.9').waitFor();
     await screenshot(page, `run-times-${name}-02-clock`);
     await expectNoSeriousA11yViolations(page);
     await context.close();

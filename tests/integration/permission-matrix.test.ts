@@ -184,6 +184,8 @@ function expectedAllowed(access: Access, actor: ActorKey): boolean | 'hidden' | 
   if (access === 'owner-or-view-all')
     return actor === 'entrantOwn' || rolesCan(ROLES_AT_MEETING[actor], 'entry.view_all') ? true : 'hidden';
   if ('custom' in access) return (access.custom as readonly string[]).includes(actor);
+  if ('ownerOr' in access)
+    return actor === 'entrantOwn' || access.ownerOr.some((p) => rolesCan(ROLES_AT_MEETING[actor], p)) ? true : 'hidden';
   if ('protest' in access) {
     const roles = ROLES_AT_MEETING[actor];
     const party = actor === 'entrantOwn' || actor === 'entrantOther'; // the protester and the protested entrant

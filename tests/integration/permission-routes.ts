@@ -27,6 +27,7 @@ export type Access =
   | 'skip' // next-auth's own endpoints, covered by tests/integration/auth.test.ts
   | { anyOf: Permission[] } // any of these permissions at the demo meeting
   | { custom: readonly string[] } // the listed actors only
+  | { ownerOr: Permission[] } // the owner, or any of these permissions at the demo meeting; others 403/404
   // A protest: 'view' for its parties (lodger, protested entrant) and protest.view_all; 'add-evidence'
   // for the parties and protest.decide; 'decide' for protest.decide; 'pay' for the lodger. Those who
   // may see the protest but not take the step get 403; everyone else 404, as for a missing id.
@@ -185,6 +186,12 @@ export const ROUTES: Row[] = [
     file: 'app/api/entries/[entryId]/withdraw/route.ts',
     path: (i) => `/api/entries/${i.spareEntryId}/withdraw`,
     access: 'owner',
+  },
+  {
+    method: 'PUT',
+    file: 'app/api/entries/[entryId]/masses/route.ts',
+    path: (i) => `/api/entries/${i.entryId}/masses`,
+    access: { ownerOr: ['results.publish'] },
   },
   { method: 'GET', file: 'app/api/events/open/route.ts', path: () => '/api/events/open', access: 'signed-in' },
   // Organiser

@@ -84,7 +84,7 @@ test('the draft carries the predicted-time section; without runs it says so in p
     assert.ok(b.referenceTimesS.every((t: number) => t > 0));
     assert.ok(b.topSpeedMs > 0 && b.thrustToWeight > 0 && b.powerToWeightKwPerT > 0);
     assert.equal(b.dragBasis, 'class_default');
-    assert.match(b.massBasis, /^weighed \d+ kg \+ 160 kg crew \+ 25 kg fuel$/);
+    assert.match(b.massBasis, /^weighed \d+ kg \+ 160 kg crew \(assumed\) \+ 25 kg fuel \(assumed\)$/);
   }
   assert.ok(clock.comparison.notes.includes('No run times are stored for this class yet.'));
 });

@@ -10,6 +10,9 @@ import { WithdrawEntryButton } from './withdraw-entry-button';
 import { PaymentWaiter } from './payment-waiter';
 import { SafetyNote } from '@/components/safety-note';
 import { formatInZone } from '@/lib/core/protests/protest-window';
+import { listMyDeclaredMasses } from '@/lib/server/timing/declared-masses';
+import { CLOCK_ASSUMPTIONS } from '@/lib/core/timing/clock-section';
+import { ClockMassesForm } from '@/components/clock-masses-form';
 
 export const metadata: Metadata = { title: 'My entries' };
 export const dynamic = 'force-dynamic';
@@ -84,7 +87,7 @@ export default async function MyEntriesPage({
   const actor = await getActor();
   if (!actor) redirect('/sign-in');
   const sp = await searchParams;
-  const entries = await listMyEntries(actor);
+  const [entries, masses] = await Promise.all([listMyEntries(actor), listMyDeclaredMasses(actor)]);
   const paidFor = entries.find((e) => e.id === sp.paid);
   const cancelledFor = entries.find((e) => e.id === sp.cancelled);
   return (
@@ -173,6 +176,15 @@ export default async function MyEntriesPage({
                   </ul>
                   <p className="text-sm">Ask the chief scrutineer when it will be released.</p>
                 </div>
+              )}
+              {(e.status === 'entered' || e.status === 'awaiting_payment') && (
+                <ClockMassesForm
+                  entryId={e.id}
+                  crewKg={masses[e.id]?.crewKg ?? null}
+                  fuelKg={masses[e.id]?.fuelKg ?? null}
+                  assumedCrewKg={CLOCK_ASSUMPTIONS.crewKg}
+                  assumedFuelKg={CLOCK_ASSUMPTIONS.fuelKg}
+                />
               )}
               {e.status === 'awaiting_payment' && (
                 <div className="flex flex-wrap items-start gap-3 pt-1">

@@ -17,6 +17,14 @@ export function thrustModelWord(b: { thrustModel?: 'fixed_power' | 'matched' }):
   return b.thrustModel === 'matched' ? 'matched' : 'fixed power';
 }
 
+/** What the mass adds to the weight, in words: sections stored before declarations assumed crew and fuel for every boat. */
+export function massWords(clock: Pick<ClockSection, 'assumptions' | 'boats'>): string {
+  const A = clock.assumptions;
+  return clock.boats.some((b) => b.crewSource !== undefined)
+    ? `the crew and fuel the entrant declared for the entry, else ${A.crewKg} kg crew and ${A.fuelKg} kg fuel, assumed (common practice, no source); each boat's mass says which`
+    : `${A.crewKg} kg crew and ${A.fuelKg} kg fuel, assumed (common practice, no source)`;
+}
+
 /** The section's lines: assumptions with their sources, one line per boat, the class comparison, the caution. */
 export function clockReportLines(clock: ClockSection | null | undefined): ClockReportLine[] {
   if (!clock) return [];
@@ -29,7 +37,7 @@ export function clockReportLines(clock: ClockSection | null | undefined): ClockR
   const lines: ClockReportLine[] = [
     { text: 'Predicted time over a course, and the model against the clock', heading: true },
     {
-      text: `Each boat from rest on a straight line: m·dV/dt = T(V) − k·V², T(V) the boat's thrust on the class's report model (matched where the class reports on it and the boat's inspected declaration holds both curves, its engine curve levelled to the confirmed power; else fixed power; each boat's line says which), integrated by the classical fourth-order Runge–Kutta method with a step-halving check (Butcher, Numerical Methods for Ordinary Differential Equations, 2016; Press et al., Numerical Recipes, 2007); worst relative accuracy reached ${clock.worstRelativeAccuracy === null ? '—' : clock.worstRelativeAccuracy.toExponential(1)}. Mass: the weight measured at inspection (else the class minimum) plus ${A.crewKg} kg crew and ${A.fuelKg} kg fuel, assumed (common practice, no source). Drag k: fitted so that thrust equals drag at the boat's own top speed (GPS, else trap), else the class median of the fitted values, else an assumed ${(A.assumedTopSpeedMs * 3.6).toFixed(0)} km/h top speed. Turns, starts and driving are not modelled. U is expanded (k = 2) from power, nozzle and weighing uncertainties (JCGM 100:2008).`,
+      text: `Each boat from rest on a straight line: m·dV/dt = T(V) − k·V², T(V) the boat's thrust on the class's report model (matched where the class reports on it and the boat's inspected declaration holds both curves, its engine curve levelled to the confirmed power; else fixed power; each boat's line says which), integrated by the classical fourth-order Runge–Kutta method with a step-halving check (Butcher, Numerical Methods for Ordinary Differential Equations, 2016; Press et al., Numerical Recipes, 2007); worst relative accuracy reached ${clock.worstRelativeAccuracy === null ? '—' : clock.worstRelativeAccuracy.toExponential(1)}. Mass: the weight measured at inspection (else the class minimum) plus ${massWords(clock)}. Drag k: fitted so that thrust equals drag at the boat's own top speed (GPS, else trap), else the class median of the fitted values, else an assumed ${(A.assumedTopSpeedMs * 3.6).toFixed(0)} km/h top speed. Turns, starts and driving are not modelled. U is expanded (k = 2) from power, nozzle and weighing uncertainties (JCGM 100:2008).`,
     },
   ];
   for (const b of clock.boats) {

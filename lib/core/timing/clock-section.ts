@@ -13,8 +13,9 @@ import { compareModelToClock, type ClockComparison } from '../stats/clock-compar
 import { clockBoatThrust, matchedThrust, type ClockThrustModel } from './clock-thrust';
 
 /**
- * Masses added to the weight measured at inspection. Boreline has no declaration of crew or fuel yet, so
- * these are stated assumptions (common practice, no source: a driver and a navigator, part of a tank).
+ * Masses added to the weight measured at inspection when the entrant has not declared them for the entry
+ * (entry_mass_declarations): stated assumptions (common practice, no source: a driver and a navigator, part of a
+ * tank). Each boat's row says which it used.
  */
 export const CLOCK_ASSUMPTIONS = {
   crewKg: 160,
@@ -42,7 +43,12 @@ export type ClockBoat = {
   curves?: ReportBoatCurves | null;
   /** Why a boat of a matched class stays on fixed power (the report's reason), when it does. */
   fixedPowerReason?: string | null;
+  /** Crew and fuel (kg) the entrant declared for the entry; null or absent: not declared, the assumption is used. */
+  declaredCrewKg?: number | null;
+  declaredFuelKg?: number | null;
 };
+
+export type MassSource = 'declared' | 'assumed';
 
 export type ClockRun = {
   entryId: string;
@@ -61,6 +67,11 @@ export type ClockBoatView = {
   nozzleDiameterMm: number;
   massKg: number | null;
   massBasis: string;
+  /** The crew and fuel masses (kg) in massKg, and whether the entrant declared them or they are assumed (absent in sections stored before declarations). */
+  crewKg?: number;
+  crewSource?: MassSource;
+  fuelKg?: number;
+  fuelSource?: MassSource;
   dragK: number | null;
   dragBasis: DragBasis | null;
   dragNote: string;
@@ -242,12 +253,17 @@ function computeWith(
     };
     const weighed = b.measuredWeightKg;
     const hull = weighed ?? input.minimumWeightKg;
-    const massKg = hull === null ? null : hull + A.crewKg + A.fuelKg;
+    const crewSource: MassSource = b.declaredCrewKg != null ? 'declared' : 'assumed';
+    const fuelSource: MassSource = b.declaredFuelKg != null ? 'declared' : 'assumed';
+    const crewKg = b.declaredCrewKg ?? A.crewKg;
+    const fuelKg = b.declaredFuelKg ?? A.fuelKg;
+    const massKg = hull === null ? null : hull + crewKg + fuelKg;
+    const added = `${crewKg} kg crew (${crewSource}) + ${fuelKg} kg fuel (${fuelSource})`;
     const massBasis =
       weighed !== null
-        ? `weighed ${weighed} kg + ${A.crewKg} kg crew + ${A.fuelKg} kg fuel`
+        ? `weighed ${weighed} kg + ${added}`
         : hull !== null
-          ? `not weighed: class minimum ${hull} kg + ${A.crewKg} kg crew + ${A.fuelKg} kg fuel`
+          ? `not weighed: class minimum ${hull} kg + ${added}`
           : 'not weighed and the class sets no minimum weight';
     const own = fitted.get(b.entryId);
     let dragK: number | null = null;
@@ -272,6 +288,10 @@ function computeWith(
       ...base,
       massKg,
       massBasis,
+      crewKg,
+      crewSource,
+      fuelKg,
+      fuelSource,
       dragK,
       dragBasis,
       dragNote,

@@ -8,8 +8,16 @@ import { gatherReportInputs } from '@/lib/server/reports/gather-report-inputs';
 import type { ReportInputs } from '@/lib/core/reports/parity-figures';
 import { computeMatchedBoat, type BoatModelUsed } from '@/lib/core/reports/matched-figures';
 import { computeClockSection, type ClockRun, type ClockSection } from '@/lib/core/timing/clock-section';
+import type { CatalogueImpeller } from '@/lib/core/timing/balance-levers';
+import { readClassDeclaredMasses } from './declared-masses';
 
-export type ClockSectionView = ClockSection & { classId: string; classCode: string; className: string };
+export type ClockSectionView = ClockSection & {
+  classId: string;
+  classCode: string;
+  className: string;
+  /** The meeting's pump catalogue, for the sandbox's impeller change (not stored with a report). */
+  pumpCatalogue: CatalogueImpeller[];
+};
 
 /**
  * A class's model against the clock, for the meeting's organisers: each boat's figures exactly as the parity
@@ -23,8 +31,21 @@ export async function gatherClockSection(
 ): Promise<ClockSectionView> {
   assertCan(actor, 'results.publish', { eventId });
   const inputs = await gatherReportInputs(eventId, classId);
-  const section = await computeClockFromReportInputs(eventId, classId, inputs);
-  return { ...section, classId, classCode: inputs.classCode, className: inputs.className };
+  const [section, catalogue] = await Promise.all([
+    computeClockFromReportInputs(eventId, classId, inputs),
+    getDb().sequelize.query<Omit<CatalogueImpeller, 'label'> & { maker: string; model: string; trimCode: string }>(
+      `select p.id, p.maker, p.model, p.trim_code as "trimCode", p.impeller_diameter_mm as "impellerDiameterMm", p.curve
+         from pump_catalogue_entries p where p.event_id = :eventId order by p.maker, p.model, p.trim_code, p.created_at limit 200`,
+      { replacements: { eventId }, type: QueryTypes.SELECT },
+    ),
+  ]);
+  const pumpCatalogue = catalogue.map((c) => ({
+    id: c.id,
+    label: `${c.maker} ${c.model}${c.trimCode ? ` trim ${c.trimCode}` : ''}`,
+    impellerDiameterMm: c.impellerDiameterMm,
+    curve: c.curve,
+  }));
+  return { ...section, classId, classCode: inputs.classCode, className: inputs.className, pumpCatalogue };
 }
 
 /**
@@ -46,6 +67,8 @@ export async function computeClockFromReportInputs(
         and not exists (select 1 from run_times c where c.supersedes_id = r.id)`,
     { replacements: { eventId, classId }, type: QueryTypes.SELECT },
   );
+  // The entrants' crew and fuel declarations as they are now: a published report keeps the ones it was computed with.
+  const declared = await readClassDeclaredMasses(eventId, classId);
   const model = {
     densityKgM3: inputs.density.densityKgM3,
     pumpEfficiency: inputs.assumptions.pumpEfficiency,
@@ -80,6 +103,8 @@ export async function computeClockFromReportInputs(
         uNozzleDiameterMm: b.uNozzleDiameterMm,
         curves: u?.model === 'matched' ? b.curves : null,
         fixedPowerReason: u?.reason ?? null,
+        declaredCrewKg: declared.get(b.entryId)?.crewKg ?? null,
+        declaredFuelKg: declared.get(b.entryId)?.fuelKg ?? null,
       };
     }),
     excluded: inputs.excluded,

@@ -1,7 +1,12 @@
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { computeClockSection } from '../../../../lib/core/timing/clock-section';
-import { CLOCK_CSV_COLUMNS, clockCsvCells, clockReportLines } from '../../../../lib/core/reports/clock-report-lines';
+import {
+  CLOCK_CSV_COLUMNS,
+  clockCsvCells,
+  clockReportLines,
+  massWords,
+} from '../../../../lib/core/reports/clock-report-lines';
 
 // Made-up boats; fresh water at 15 °C, 999.1026 kg/m^3 (ITTC 7.5-02-01-03); losses eta 0.9, K_i 0.2, K_n 0.02 [partly memory].
 const model = {
@@ -66,4 +71,30 @@ test('CSV cells line up with the columns and are the section figures; none witho
     clockCsvCells(withRuns, 'nobody'),
     CLOCK_CSV_COLUMNS.map(() => ''),
   );
+});
+
+test('the mass line says declared-or-assumed per boat; a section stored before declarations keeps its own words', () => {
+  const declared = computeClockSection({
+    boats: [{ ...boats[0], declaredCrewKg: 150, declaredFuelKg: null }, boats[1]],
+    excluded: [],
+    runs: [],
+    minimumWeightKg: 650,
+    uWeightKg: 0.5,
+    model,
+  });
+  const text = clockReportLines(declared)
+    .map((l) => l.text)
+    .join('\n');
+  assert.match(text, /the crew and fuel the entrant declared for the entry, else 160 kg crew and 25 kg fuel, assumed/);
+  assert.match(text, /#1 A: .*Mass weighed 680 kg \+ 150 kg crew \(declared\) \+ 25 kg fuel \(assumed\)\./);
+  assert.match(text, /#2 B: .*class minimum 650 kg \+ 160 kg crew \(assumed\) \+ 25 kg fuel \(assumed\)\./);
+  // As stored before this change: no per-boat source, and the words it was published with.
+  const old = {
+    ...declared,
+    boats: declared.boats.map(({ crewKg, crewSource, fuelKg, fuelSource, ...b }) => {
+      void [crewKg, crewSource, fuelKg, fuelSource];
+      return b;
+    }),
+  };
+  assert.equal(massWords(old), '160 kg crew and 25 kg fuel, assumed (common practice, no source)');
 });

@@ -91,3 +91,42 @@ test("a boat's time uncertainty: zero without input uncertainties, else the firs
   const slope = (time(250.05) - time(249.95)) / 0.1;
   assert.ok(u > 0 && Math.abs(u - Math.abs(slope) * 5) / u < 0.01, `${u} vs ${Math.abs(slope) * 5}`);
 });
+
+test('declared crew and fuel replace the assumptions per boat and per mass, and each row says which it used', () => {
+  const s = computeClockSection({
+    boats: [
+      { ...boat('a', 1, 700), declaredCrewKg: 140, declaredFuelKg: 30 },
+      { ...boat('b', 2, 700), declaredCrewKg: 155, declaredFuelKg: null },
+      boat('c', 3, 700),
+    ],
+    excluded: [],
+    runs: [run('a', 40, { gps: 30 }), run('b', 40, { gps: 30 }), run('c', 40, { gps: 30 })],
+    minimumWeightKg: null,
+    uWeightKg: 0.5,
+    model,
+  });
+  const [a, b, c] = s.boats;
+  assert.equal(a.massKg, 700 + 140 + 30);
+  assert.equal(a.massBasis, 'weighed 700 kg + 140 kg crew (declared) + 30 kg fuel (declared)');
+  assert.deepEqual([a.crewSource, a.fuelSource], ['declared', 'declared']);
+  assert.equal(b.massKg, 700 + 155 + CLOCK_ASSUMPTIONS.fuelKg);
+  assert.equal(b.massBasis, `weighed 700 kg + 155 kg crew (declared) + ${CLOCK_ASSUMPTIONS.fuelKg} kg fuel (assumed)`);
+  assert.deepEqual([b.crewSource, b.fuelSource], ['declared', 'assumed']);
+  assert.equal(c.massKg, 700 + CLOCK_ASSUMPTIONS.crewKg + CLOCK_ASSUMPTIONS.fuelKg);
+  assert.deepEqual([c.crewSource, c.fuelSource, c.crewKg, c.fuelKg], ['assumed', 'assumed', 160, 25]);
+  // Same thrust and drag (same power, nozzle and top speed): only the mass differs, and the heavier boat is slower.
+  assert.ok(a.dragK === b.dragK && b.dragK === c.dragK);
+  assert.ok(a.massKg! < b.massKg! && b.massKg! < c.massKg!);
+  assert.ok(a.courseTimeS! < b.courseTimeS! && b.courseTimeS! < c.courseTimeS!);
+  // Declared 0 kg of fuel is a declaration, not a missing value.
+  const zero = computeClockSection({
+    boats: [{ ...boat('a', 1, 700), declaredFuelKg: 0 }],
+    excluded: [],
+    runs: [],
+    minimumWeightKg: null,
+    uWeightKg: 0.5,
+    model,
+  }).boats[0];
+  assert.equal(zero.massKg, 700 + CLOCK_ASSUMPTIONS.crewKg);
+  assert.equal(zero.fuelSource, 'declared');
+});
