@@ -26,6 +26,11 @@ export const PERMISSIONS = {
   'inspection.board': ['scrutineer', 'chief_scrutineer', 'organiser'],
   'inspection.assign_reinspection': ['chief_scrutineer', 'steward'],
   'instrument.manage': ['chief_scrutineer', 'organiser'],
+  // The day's scrutineering schedule: slots opened, and any entry given one, by the chief scrutineer
+  'schedule.manage': ['chief_scrutineer'],
+  // Incidents on the water or ashore: recorded by the organiser or the chief scrutineer, read by the officials
+  'incident.record': ['organiser', 'chief_scrutineer'],
+  'incident.view': ['scrutineer', 'chief_scrutineer', 'steward', 'organiser'],
   // Parts held by the officials
   'custody.take': ['scrutineer', 'chief_scrutineer', 'steward'],
   'custody.release': ['chief_scrutineer', 'steward'],
