@@ -22,7 +22,13 @@ export function slotInstant(value: string, timeZone: string): Date | null {
   const zone = safeTimeZone(timeZone);
   const at = instantFromWallClock(value, zone);
   if (!at) return null;
-  return wallClockOf(at, zone) === value ? at : null;
+  if (wallClockOf(at, zone) !== value) return null;
+  // A repeated hour: take the earlier pass (shifts are an hour, or half an hour on Lord Howe Island).
+  for (const backMinutes of [60, 30]) {
+    const earlier = new Date(at.getTime() - backMinutes * 60_000);
+    if (wallClockOf(earlier, zone) === value) return earlier;
+  }
+  return at;
 }
 
 /** Whether an instant falls on one of the meeting's days (first and last day inclusive) in its zone. */
