@@ -60,7 +60,7 @@ before(async () => {
   ]);
   // The meeting runs from yesterday to tomorrow in its zone, so slots can start within the hour.
   await query(
-    `update events set time_zone = $2, starts_on = (now() at time zone $2)::date - 1, ends_on = (now() at time zone $2)::date + 1 where id = $1`,
+    `update events set time_zone = $2::text, starts_on = (now() at time zone $2::text)::date - 1, ends_on = (now() at time zone $2::text)::date + 1 where id = $1`,
     [meeting.eventId, ZONE],
   );
   classId = await meeting.addClass('SL', rulesWith());

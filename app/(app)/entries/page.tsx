@@ -174,6 +174,11 @@ export default async function MyEntriesPage({
                   <p className="text-sm">Ask the chief scrutineer when it will be released.</p>
                 </div>
               )}
+              {(e.status === 'entered' || e.status === 'awaiting_payment') && (
+                <p>
+                  <Link href={`/slot/${e.eventId}/${e.id}`}>Scrutineering slot</Link>
+                </p>
+              )}
               {e.status === 'awaiting_payment' && (
                 <div className="flex flex-wrap items-start gap-3 pt-1">
                   <PayEntryButton entryId={e.id} label={e.feeMinor > 0 ? 'Pay entry fee' : 'Confirm the entry'} />

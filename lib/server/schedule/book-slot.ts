@@ -44,16 +44,22 @@ export async function openEntryBooking(
   };
 }
 
-export type EntrySlotView = { booking: EntryBookingView; slots: SlotView[] };
+export type EntrySlotView = {
+  event: { name: string; timeZone: string };
+  booking: EntryBookingView;
+  slots: SlotView[];
+};
 
 /** The entry's booking and the slots of its class it could book now (not started; not ended when assigning). */
 export async function getEntrySlot(access: EntryBookingAccess): Promise<EntrySlotView> {
-  const [booking, slots] = await Promise.all([
+  const [event, booking, slots] = await Promise.all([
+    getDb().models.Event.findByPk(access.eventId, { attributes: ['name', 'timeZone'] }),
     readEntryBooking(access.eventId, access.entry.id),
     readSlots(access.eventId, { classId: access.entry.classId, notEnded: true }),
   ]);
   const now = Date.now();
   return {
+    event: { name: event?.name ?? '', timeZone: event?.timeZone ?? 'UTC' },
     booking,
     slots: slots.filter((s) => access.isAssigning || new Date(s.startsAt).getTime() > now),
   };

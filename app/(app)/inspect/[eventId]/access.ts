@@ -17,3 +17,6 @@ export const openBoard = (params: Params) => openEventPageWithHeading(params, 'i
 export const openCustody = (params: Params) => openEventPageWithHeading(params, 'custody.view');
 export const openInstruments = (params: Params) => openEventPageWithHeading(params, 'inspection.board');
 export const openSeals = (params: Params) => openEventPageWithHeading(params, 'inspection.board');
+export const openQueue = (params: Params) => openEventPageWithHeading(params, 'inspection.board');
+export const openSlots = (params: Params) => openEventPageWithHeading(params, 'inspection.board');
+export const openIncidents = (params: Params) => openEventPageWithHeading(params, 'incident.view');
