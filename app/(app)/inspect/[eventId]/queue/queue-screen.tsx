@@ -6,6 +6,7 @@ import { format } from 'date-fns';
 import { TZDate } from '@date-fns/tz';
 import { queueStatus, QUEUE_STATUS_LABELS, type QueueStatus } from '@/lib/core/schedule/queue-status';
 import type { DockQueue, QueueRow } from '@/lib/server/schedule/dock-queue';
+import { registerInspectServiceWorker } from '../use-dock-queue';
 import { listCheckIns, loadQueue, putCheckIn, removeCheckIn, saveQueue, type PendingCheckIn } from './queue-store';
 
 // The dock's queue on a phone: who is due, who has arrived, who is late, and walk-ins. Check-ins are
@@ -64,6 +65,9 @@ export function QueueScreen({ eventId, canCheckIn }: { eventId: string; canCheck
     }
     await refresh();
   }, [eventId, refresh]);
+
+  // The dock's service worker keeps this page too, so it opens again with no signal.
+  useEffect(() => registerInspectServiceWorker(), []);
 
   useEffect(() => {
     const first = setTimeout(() => void sendPending(), 0);
