@@ -76,7 +76,8 @@ test('an incident with damage forces a re-inspection, linked to it, on the board
   const log = await chief.fetch(`/api/boats/${boatId}/logbook/pdf`);
   assert.equal(log.status, 200);
   const logText = (await extractPdfText(new Uint8Array(await log.arrayBuffer()))).join('\n');
-  assert.match(logText, /Incident with damage/);
+  assert.match(logText, /Incident with damage, /, 'the re-inspection task, with the incident as its reason');
+  assert.match(logText, /Incident with damage: Rolled/, 'the incident itself, an item of the history');
 
   // A second damage incident of the same boat joins the open task; one without damage opens none.
   const second = await chief.json(url(), incident(entry.id, { description: 'Touched the buoy at the finish.' }));
