@@ -279,6 +279,11 @@ test('the dock checks boats in once per key and booking, takes walk-ins, and ref
   }
   assert.equal((await entrant.json(arrivals, body)).res.status, 403);
   assert.equal((await entrant.fetch(queueUrl(today))).status, 403);
+  for (const day of ['9999-99-99', '2027-02-30', "2027-01-01' or 1=1--"]) {
+    const r = await scrutineer.fetch(queueUrl(encodeURIComponent(day)));
+    assert.equal(r.status, 400, day);
+    assert.equal((await r.json()).error.details[0].field, 'day');
+  }
   await assert.rejects(query('delete from slot_arrivals where id = $1', [first.body.data.id]), /append-only/);
 });
 

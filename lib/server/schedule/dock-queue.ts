@@ -2,7 +2,7 @@ import 'server-only';
 import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
-import { AppError } from '@/lib/core/errors';
+import { AppError, fieldError } from '@/lib/core/errors';
 import { meetingDayOf } from '@/lib/core/schedule/slot-times';
 import { queueStatus, type QueueStatus } from '@/lib/core/schedule/queue-status';
 import { CURRENT_BOOKING } from './slot-view';
@@ -33,13 +33,21 @@ type Row = Omit<QueueRow, 'slotStartsAt' | 'slotEndsAt' | 'arrivedAt' | 'status'
   arrivedAt: Date | null;
 };
 
+/** A real calendar day "yyyy-mm-dd" (not "2027-02-30"), so the database never sees a date it cannot read. */
+function isCalendarDay(day: string): boolean {
+  if (!/^\d{4}-\d{2}-\d{2}$/.test(day)) return false;
+  const d = new Date(`${day}T00:00:00Z`);
+  return !Number.isNaN(d.getTime()) && d.toISOString().slice(0, 10) === day;
+}
+
 export async function readDockQueue(actor: Actor | null, eventId: string, day?: string | null): Promise<DockQueue> {
   assertCan(actor, 'inspection.board', { eventId });
   const { models, sequelize } = getDb();
   const event = await models.Event.findByPk(eventId, { attributes: ['timeZone'] });
   if (!event) throw new AppError('not_found', 404, 'No such meeting.');
   const now = new Date();
-  const theDay = day && /^\d{4}-\d{2}-\d{2}$/.test(day) ? day : meetingDayOf(now, event.timeZone);
+  if (day && !isCalendarDay(day)) throw fieldError('day', 'Give the day as yyyy-mm-dd.');
+  const theDay = day || meetingDayOf(now, event.timeZone);
   const rows = await sequelize.query<Row>(
     `select e.id as "entryId", e.race_number as "raceNumber", bo.name as "boatName", c.code as "classCode",
             s.bay, s.starts_at as "slotStartsAt", s.ends_at as "slotEndsAt", s.grace_minutes as "graceMinutes",
@@ -54,7 +62,7 @@ export async function readDockQueue(actor: Actor | null, eventId: string, day?: 
        from slot_arrivals a join entries e on e.id = a.entry_id join boats bo on bo.id = e.boat_id
        join race_classes c on c.id = e.class_id
       where a.event_id = :eventId and a.booking_id is null and a.meeting_day = :day::date
-      order by 6 nulls last, 3`,
+      order by 6 nulls last, 2`,
     { replacements: { eventId, zone: event.timeZone, day: theDay }, type: QueryTypes.SELECT },
   );
   return {

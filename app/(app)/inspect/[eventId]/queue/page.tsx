@@ -17,7 +17,7 @@ export default async function QueuePage({ params }: { params: Promise<{ eventId:
         <Link href="/inspect">Inspect</Link> / <Link href={`/inspect/${eventId}/board`}>{event.name}</Link> / Dock queue
       </nav>
       <h1>Dock queue</h1>
-      <QueueScreen eventId={eventId} canCheckIn={can(actor, 'inspection.record', { eventId })} />
+      <QueueScreen eventId={eventId} actorId={actor.id} canCheckIn={can(actor, 'inspection.record', { eventId })} />
       <SafetyNote />
     </div>
   );

@@ -21,7 +21,15 @@ function hhmm(iso: string, timeZone: string) {
   return format(new TZDate(new Date(iso).getTime(), timeZone), 'HH:mm');
 }
 
-export function QueueScreen({ eventId, canCheckIn }: { eventId: string; canCheckIn: boolean }) {
+export function QueueScreen({
+  eventId,
+  actorId,
+  canCheckIn,
+}: {
+  eventId: string;
+  actorId: string;
+  canCheckIn: boolean;
+}) {
   const [queue, setQueue] = useState<DockQueue | null>(null);
   const [savedAt, setSavedAt] = useState<string | null>(null);
   const [pending, setPending] = useState<PendingCheckIn[]>([]);
@@ -53,7 +61,7 @@ export function QueueScreen({ eventId, canCheckIn }: { eventId: string; canCheck
 
   const sendPending = useCallback(async () => {
     for (const c of await listCheckIns(eventId)) {
-      if (c.state !== 'waiting') continue;
+      if (c.state !== 'waiting' || c.recordedById !== actorId) continue;
       const answer = await requestJson(`/api/events/${eventId}/slots/arrivals`, {
         body: { key: c.key, entryId: c.entryId, arrivedAt: c.arrivedAt, bay: c.bay },
       });
@@ -64,7 +72,7 @@ export function QueueScreen({ eventId, canCheckIn }: { eventId: string; canCheck
       } else await putCheckIn({ ...c, state: 'needs_fix', message: answer.message });
     }
     await refresh();
-  }, [eventId, refresh]);
+  }, [eventId, actorId, refresh]);
 
   // The dock's service worker keeps this page too, so it opens again with no signal.
   useEffect(() => registerInspectServiceWorker(), []);
@@ -87,6 +95,7 @@ export function QueueScreen({ eventId, canCheckIn }: { eventId: string; canCheck
     const c: PendingCheckIn = {
       key: crypto.randomUUID(),
       eventId,
+      recordedById: actorId,
       entryId,
       label,
       arrivedAt: new Date().toISOString(),
@@ -111,7 +120,7 @@ export function QueueScreen({ eventId, canCheckIn }: { eventId: string; canCheck
   const rows = [...queue.rows].sort((a, b) => STATUS_ORDER.indexOf(statusOf(a)) - STATUS_ORDER.indexOf(statusOf(b)));
   return (
     <div className="space-y-4">
-      <p className="text-base text-ink-soft">
+      <p className="text-base text-ink-soft" data-testid="queue-day">
         {queue.day}, times in {queue.timeZone}.{' '}
         {savedAt && (
           <span data-testid="queue-saved-copy">

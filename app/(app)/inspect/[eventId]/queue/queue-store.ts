@@ -8,6 +8,8 @@ import type { DockQueue } from '../../../../../lib/server/schedule/dock-queue';
 export type PendingCheckIn = {
   key: string;
   eventId: string;
+  /** Who checked the boat in: a phone shared by two officials sends each one's check-ins only under their own sign-in. */
+  recordedById: string;
   entryId: string;
   label: string;
   arrivedAt: string;
