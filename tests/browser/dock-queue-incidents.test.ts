@@ -65,8 +65,16 @@ test('slot booked by the entrant, checked in offline at the dock, incident forci
   assert.match(await row.innerText(), /Bay Q[\s\S]*Not yet due/);
   assert.match(await page.getByRole('note').innerText(), /licensed officials/);
 
+  // The dock's service worker has kept this page (we came by a link, so it may not control it yet).
+  await page.waitForFunction(async () => (await caches.match(location.href)) !== undefined);
   await dock.setOffline(true);
   await row.getByRole('button', { name: `Check in no. ${entry.raceNumber}` }).click();
+  await page.locator(`[data-entry="${entry.id}"][data-status="arrived"]`).waitFor();
+  await page.getByTestId('queue-message').filter({ hasText: '1 check-in(s) waiting to be sent' }).waitFor();
+  // Reload with no signal: the page comes from the phone, with the saved queue and the waiting check-in.
+  const reloaded = await page.reload();
+  assert.equal(reloaded?.headers()['x-served-from'], 'cache', 'the page came from the phone, not the network');
+  await page.getByTestId('queue-saved-copy').waitFor();
   await page.locator(`[data-entry="${entry.id}"][data-status="arrived"]`).waitFor();
   await page.getByTestId('queue-message').filter({ hasText: '1 check-in(s) waiting to be sent' }).waitFor();
   await screenshot(page, 'queue-02-offline-checked-in');

@@ -43,13 +43,14 @@ export function QueueScreen({
       method: 'GET',
       cache: 'no-store',
     });
-    if (answer.ok) {
+    // The dock's service worker answers from its saved copy when there is no signal: that is not fresh.
+    if (answer.ok && answer.headers.get('x-served-from') !== 'cache') {
       setQueue(answer.data);
       setSavedAt(null);
       setOffline(false);
       await saveQueue(eventId, answer.data);
     } else {
-      setOffline(answer.status === 0);
+      setOffline(answer.ok || answer.status === 0);
       const saved = await loadQueue(eventId);
       if (saved) {
         setQueue(saved.queue);
