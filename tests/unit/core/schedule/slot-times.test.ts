@@ -40,10 +40,7 @@ test('queue status: upcoming before the start, due within the grace period, late
   assert.equal(queueStatus(row, new Date('2027-03-13T09:10:00Z')), 'due', 'the last instant of the grace period');
   assert.equal(queueStatus(row, new Date('2027-03-13T09:10:01Z')), 'late');
   assert.equal(queueStatus({ ...row, graceMinutes: 0 }, new Date('2027-03-13T09:00:01Z')), 'late');
-  assert.equal(
-    queueStatus({ ...row, arrivedAt: '2027-03-13T09:30:00Z' }, new Date('2027-03-13T10:00:00Z')),
-    'arrived',
-  );
+  assert.equal(queueStatus({ ...row, arrivedAt: '2027-03-13T09:30:00Z' }, new Date('2027-03-13T10:00:00Z')), 'arrived');
 });
 
 test('late is decided on instants: the hour repeated when daylight time ends changes nothing', () => {
