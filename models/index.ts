@@ -15,6 +15,8 @@ import { Protest, ProtestEvidence, initProtests } from './protest';
 import { AuditEvent, initAuditEvents } from './audit-event';
 import { MailOutbox, initMailOutbox } from './mail-outbox';
 import { PumpCatalogueEntry, initPumpCatalogue } from './pump-catalogue';
+import { InspectionSlot, SlotArrival, SlotBooking, initSlots } from './slot';
+import { Incident, IncidentPhoto, initIncidents } from './incident';
 import { CustodyItem, CustodyRelease, initCustody } from './custody';
 import { OfficialInterest, OfficialInterestWithdrawal, initOfficialInterests } from './official-interest';
 import {
@@ -49,6 +51,8 @@ export function initModels(sequelize: Sequelize) {
   initBoatRecord(sequelize);
   initMailOutbox(sequelize);
   initPumpCatalogue(sequelize);
+  initSlots(sequelize);
+  initIncidents(sequelize);
 
   Account.belongsTo(User, { foreignKey: 'userId' });
   Session.belongsTo(User, { foreignKey: 'userId' });
@@ -147,6 +151,11 @@ export function initModels(sequelize: Sequelize) {
     BoatLogNote,
     MailOutbox,
     PumpCatalogueEntry,
+    InspectionSlot,
+    SlotBooking,
+    SlotArrival,
+    Incident,
+    IncidentPhoto,
   };
 }
 
@@ -194,4 +203,9 @@ export {
   BoatLogNote,
   MailOutbox,
   PumpCatalogueEntry,
+  InspectionSlot,
+  SlotBooking,
+  SlotArrival,
+  Incident,
+  IncidentPhoto,
 };

@@ -125,6 +125,9 @@ test('scrutineer pages, the dock form included: no serious or critical axe-core 
     { path: `/inspect/${e}/instruments` },
     { path: `/inspect/${e}/seals` },
     { path: `/inspect/${e}/custody` },
+    { path: `/inspect/${e}/queue`, ready: 'queue-day' },
+    { path: `/inspect/${e}/slots` },
+    { path: `/inspect/${e}/incidents` },
   ]);
   await context.close();
 });
@@ -136,6 +139,7 @@ test('entrant pages: no serious or critical axe-core violation in either theme',
     { path: '/boats' },
     { path: '/boats/new' },
     { path: `/boats/${entry.boatId}` },
+    { path: `/slot/${meeting.eventId}/${entry.id}` },
     { path: '/protests' },
     { path: '/account' },
   ]);

@@ -429,6 +429,71 @@ export const ROUTES: Row[] = [
     path: (i) => `${ev(i)}/reinspections`,
     access: { anyOf: ['inspection.board', 'inspection.assign_reinspection'] },
   },
+  // Scrutineering slots and the dock queue
+  {
+    method: 'GET',
+    file: `${E}/slots/route.ts`,
+    path: (i) => `${ev(i)}/slots`,
+    access: { anyOf: ['inspection.board', 'schedule.manage'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/slots/route.ts`,
+    path: (i) => `${ev(i)}/slots`,
+    access: { anyOf: ['schedule.manage'] },
+  },
+  // The entry's own entrant, or the chief scrutineer (not among the matrix's actors); others: 404.
+  {
+    method: 'GET',
+    file: `${E}/slots/entries/[entryId]/route.ts`,
+    path: (i) => `${ev(i)}/slots/entries/${i.entryId}`,
+    access: 'owner',
+  },
+  {
+    method: 'POST',
+    file: `${E}/slots/entries/[entryId]/route.ts`,
+    path: (i) => `${ev(i)}/slots/entries/${i.entryId}`,
+    access: 'owner',
+  },
+  {
+    method: 'GET',
+    file: `${E}/slots/queue/route.ts`,
+    path: (i) => `${ev(i)}/slots/queue`,
+    access: { anyOf: ['inspection.board'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/slots/arrivals/route.ts`,
+    path: (i) => `${ev(i)}/slots/arrivals`,
+    access: { anyOf: ['inspection.record'] },
+  },
+  // Incidents (append-only)
+  {
+    method: 'GET',
+    file: `${E}/incidents/route.ts`,
+    path: (i) => `${ev(i)}/incidents`,
+    access: { anyOf: ['incident.view'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/incidents/route.ts`,
+    path: (i) => `${ev(i)}/incidents`,
+    access: { anyOf: ['incident.record'] },
+  },
+  { method: 'PUT', file: `${E}/incidents/route.ts`, path: (i) => `${ev(i)}/incidents`, access: 'method-not-allowed' },
+  { method: 'PATCH', file: `${E}/incidents/route.ts`, path: (i) => `${ev(i)}/incidents`, access: 'method-not-allowed' },
+  {
+    method: 'DELETE',
+    file: `${E}/incidents/route.ts`,
+    path: (i) => `${ev(i)}/incidents`,
+    access: 'method-not-allowed',
+  },
+  {
+    method: 'POST',
+    file: `${E}/incidents/[incidentId]/photos/route.ts`,
+    path: (i) => `${ev(i)}/incidents/${i.missingId}/photos`,
+    access: { anyOf: ['incident.record'] },
+  },
   // Parts held by the officials
   {
     method: 'GET',

@@ -178,13 +178,18 @@ export default async function MyEntriesPage({
                 </div>
               )}
               {(e.status === 'entered' || e.status === 'awaiting_payment') && (
-                <ClockMassesForm
-                  entryId={e.id}
-                  crewKg={masses[e.id]?.crewKg ?? null}
-                  fuelKg={masses[e.id]?.fuelKg ?? null}
-                  assumedCrewKg={CLOCK_ASSUMPTIONS.crewKg}
-                  assumedFuelKg={CLOCK_ASSUMPTIONS.fuelKg}
-                />
+                <>
+                  <ClockMassesForm
+                    entryId={e.id}
+                    crewKg={masses[e.id]?.crewKg ?? null}
+                    fuelKg={masses[e.id]?.fuelKg ?? null}
+                    assumedCrewKg={CLOCK_ASSUMPTIONS.crewKg}
+                    assumedFuelKg={CLOCK_ASSUMPTIONS.fuelKg}
+                  />
+                  <p>
+                    <Link href={`/slot/${e.eventId}/${e.id}`}>Scrutineering slot</Link>
+                  </p>
+                </>
               )}
               {e.status === 'awaiting_payment' && (
                 <div className="flex flex-wrap items-start gap-3 pt-1">

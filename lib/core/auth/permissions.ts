@@ -29,6 +29,11 @@ export const PERMISSIONS = {
   'start_list.view': ['scrutineer', 'chief_scrutineer', 'steward', 'organiser'],
   'start_list.decide': ['organiser'],
   'instrument.manage': ['chief_scrutineer', 'organiser'],
+  // The day's scrutineering schedule: slots opened, and any entry given one, by the chief scrutineer
+  'schedule.manage': ['chief_scrutineer'],
+  // Incidents on the water or ashore: recorded by the organiser or the chief scrutineer, read by the officials
+  'incident.record': ['organiser', 'chief_scrutineer'],
+  'incident.view': ['scrutineer', 'chief_scrutineer', 'steward', 'organiser'],
   // Parts held by the officials
   'custody.take': ['scrutineer', 'chief_scrutineer', 'steward'],
   'custody.release': ['chief_scrutineer', 'steward'],

@@ -8,6 +8,7 @@ export const LOGBOOK_KINDS = {
   seal: 'Seals',
   inspection: 'Inspections',
   reinspection: 'Re-inspection tasks',
+  incident: 'Incidents',
   custody: 'Parts in custody',
   protest: 'Protests',
   note: "Officials' notes",
@@ -84,6 +85,19 @@ export type LogbookRecord = {
     requestedBy: string;
     createdAt: string;
     doneAt: string | null;
+  }[];
+  /** Incidents recorded by the officials (append-only; a correction supersedes); damage names its re-inspection task. */
+  incidents?: {
+    id: string;
+    eventId: string;
+    occurredAt: string;
+    description: string;
+    damage: boolean;
+    reinspectionId: string | null;
+    supersedesId: string | null;
+    correctionReason: string | null;
+    isCurrent: boolean;
+    recordedBy: string;
   }[];
   custody: {
     id: string;

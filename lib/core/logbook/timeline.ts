@@ -213,6 +213,24 @@ export function buildLogbookItems(r: LogbookRecord, fallbackZone: string): Logbo
     });
   }
 
+  for (const i of r.incidents ?? []) {
+    items.push({
+      ...base,
+      id: `incident:${i.id}`,
+      kind: 'incident',
+      at: i.occurredAt,
+      when: timeIn(i.occurredAt, i.eventId),
+      eventId: i.eventId,
+      title: `Incident${i.damage ? ' with damage' : ''}: ${i.description}`,
+      lines: [
+        `Recorded by ${i.recordedBy}`,
+        i.damage ? 'Re-inspection required before the next run (see the re-inspection task)' : 'No damage recorded',
+        i.supersedesId ? `Correction of an earlier record: ${i.correctionReason ?? 'no reason given'}` : '',
+        i.isCurrent ? '' : 'Replaced by a correction',
+      ].filter(Boolean),
+    });
+  }
+
   for (const n of r.notes) {
     items.push({
       ...base,

@@ -92,6 +92,29 @@ async function readReinspections(q: Q, boatId: string) {
   return rows.map((r) => ({ ...r, createdAt: iso(r.createdAt), doneAt: isoOrNull(r.doneAt) }));
 }
 
+async function readIncidents(q: Q, boatId: string): Promise<NonNullable<LogbookRecord['incidents']>> {
+  const rows = await q<{
+    id: string;
+    eventId: string;
+    occurredAt: Date;
+    description: string;
+    damage: boolean;
+    reinspectionId: string | null;
+    supersedesId: string | null;
+    correctionReason: string | null;
+    isCurrent: boolean;
+    recordedBy: string;
+  }>(
+    `select i.id, i.event_id as "eventId", i.occurred_at as "occurredAt", i.description, i.damage,
+            i.reinspection_id as "reinspectionId", i.supersedes_id as "supersedesId", i.correction_reason as "correctionReason",
+            not exists (select 1 from incidents x where x.supersedes_id = i.id) as "isCurrent", coalesce(u.name, u.email) as "recordedBy"
+       from incidents i join entries e on e.id = i.entry_id join users u on u.id = i.recorded_by_id
+      where e.boat_id = :boatId`,
+    { boatId },
+  );
+  return rows.map((r) => ({ ...r, occurredAt: iso(r.occurredAt) }));
+}
+
 /** A task ordered for a protest the viewer may not see keeps its reason to itself (the reason may name the protest). */
 function hideUnseenProtestReasons(
   tasks: Awaited<ReturnType<typeof readReinspections>>,
@@ -187,6 +210,7 @@ export async function loadLogbook(actor: Actor | null, rawBoatId: string): Promi
     custody,
     protests,
     notes,
+    incidents,
   ] = await Promise.all([
     readMeetings(q, boatId),
     readDeclarations(q, boatId),
@@ -197,6 +221,7 @@ export async function loadLogbook(actor: Actor | null, rawBoatId: string): Promi
     readCustody(q, boatId),
     readProtests(access.actor, boatId),
     readNotes(q, boatId),
+    readIncidents(q, boatId),
   ]);
   const latest = meetings[meetings.length - 1];
   return {
@@ -212,6 +237,7 @@ export async function loadLogbook(actor: Actor | null, rawBoatId: string): Promi
       custody,
       protests,
       notes,
+      incidents,
     },
     isOwner: access.isOwner,
     noteMeetings: meetings.filter((m) => access.noteEventIds.includes(m.id)).map((m) => ({ id: m.id, name: m.name })),

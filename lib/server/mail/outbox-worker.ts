@@ -4,6 +4,7 @@ import { getDb } from '@/lib/server/db';
 import { serverEnv } from '@/lib/server/config/env';
 import { logger } from '@/lib/server/observability';
 import { sendMail } from './send';
+import { queueSlotReminders } from '@/lib/server/schedule/queue-slot-reminders';
 
 // Sends what lib/server/mail/outbox.ts queued. Each app server runs one worker (started by
 // instrumentation.ts); no route starts or drives it. A batch is claimed with FOR UPDATE SKIP LOCKED
@@ -85,6 +86,14 @@ async function tick(state: WorkerState) {
   state.running = true;
   const started = Date.now();
   try {
+    // Reminders of scrutineering slots that are due are queued first, so they go out in this tick; a
+    // failure there never holds back the mail already queued.
+    await queueSlotReminders().catch((err) => {
+      if (Date.now() - state.lastErrorLogAt > 60_000) {
+        state.lastErrorLogAt = Date.now();
+        logger().warn({ err }, 'slot reminders: could not queue, trying again');
+      }
+    });
     for (;;) {
       const { claimed } = await sendOutboxBatch();
       if (claimed < BATCH || Date.now() - started > TICK_BUDGET_MS) break;

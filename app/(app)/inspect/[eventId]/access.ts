@@ -18,3 +18,6 @@ export const openCustody = (params: Params) => openEventPageWithHeading(params, 
 export const openInstruments = (params: Params) => openEventPageWithHeading(params, 'inspection.board');
 export const openSeals = (params: Params) => openEventPageWithHeading(params, 'inspection.board');
 export const openStartList = (params: Params) => openEventPageWithHeading(params, 'start_list.view');
+export const openQueue = (params: Params) => openEventPageWithHeading(params, 'inspection.board');
+export const openSlots = (params: Params) => openEventPageWithHeading(params, 'inspection.board');
+export const openIncidents = (params: Params) => openEventPageWithHeading(params, 'incident.view');

@@ -2,7 +2,9 @@
 // hand from the product's role descriptions (common practice at race meetings, no single source:
 // scrutineers inspect, stewards decide protests, organisers run the meeting and publish; parts taken
 // into custody at the dock are released by the chief scrutineer or the stewards; notes in a boat's
-// logbook are written by the chief scrutineer or the stewards, who may read it).
+// logbook are written by the chief scrutineer or the stewards, who may read it; the chief scrutineer
+// runs the scrutineering schedule; the organiser or the chief scrutineer records incidents, which the
+// meeting's officials read).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import {
@@ -25,6 +27,7 @@ const EXPECTED: Record<Role, Permission[]> = {
     'custody.take',
     'custody.view',
     'interest.declare',
+    'incident.view',
   ],
   chief_scrutineer: [
     'account.view',
@@ -39,6 +42,9 @@ const EXPECTED: Record<Role, Permission[]> = {
     'custody.view',
     'boat.log_note',
     'interest.declare',
+    'schedule.manage',
+    'incident.record',
+    'incident.view',
   ],
   steward: [
     'account.view',
@@ -53,6 +59,7 @@ const EXPECTED: Record<Role, Permission[]> = {
     'boat.log_note',
     'interest.declare',
     'interest.view_register',
+    'incident.view',
   ],
   organiser: [
     'account.view',
@@ -72,6 +79,8 @@ const EXPECTED: Record<Role, Permission[]> = {
     'custody.view',
     'interest.declare',
     'interest.view_register',
+    'incident.record',
+    'incident.view',
   ],
   admin: ['account.view', 'event.create', 'admin.manage_users', 'dev.outbox', 'admin.view_metrics'],
 };

@@ -286,3 +286,30 @@ test('a long logbook turns the page rather than writing past its foot', async ()
   assert.ok(pages.length > 3, `${pages.length} pages`);
   for (let i = 0; i < 120; i++) assert.ok(pages.join('').includes(`Observation ${i}:`), `note ${i} printed`);
 });
+
+test("an incident is an item of its own, at the meeting's time, saying whether damage forced a re-inspection", () => {
+  const record: LogbookRecord = {
+    ...sampleRecord(),
+    incidents: [
+      {
+        id: 'i1',
+        eventId: M1,
+        occurredAt: '2026-03-14T02:30:00.000Z',
+        description: 'Rolled at the hairpin',
+        damage: true,
+        reinspectionId: 'r9',
+        supersedesId: null,
+        correctionReason: null,
+        isCurrent: true,
+        recordedBy: 'Chief',
+      },
+    ],
+  };
+  const item = buildLogbookItems(record, 'UTC').find((i) => i.id === 'incident:i1')!;
+  assert.equal(item.kind, 'incident');
+  // 02:30 UTC on 14 March 2026 is 15:30 at UTC+13 (New Zealand daylight time until 5 April 2026 [memory]).
+  assert.equal(item.when, 'Sat 14 Mar 2026, 15:30 UTC+13:00 (Pacific/Auckland)');
+  assert.equal(item.title, 'Incident with damage: Rolled at the hairpin');
+  assert.ok(item.lines.some((l) => /Re-inspection required before the next run/.test(l)));
+  assert.equal(buildLogbookItems(sampleRecord(), 'UTC').filter((i) => i.kind === 'incident').length, 0);
+});

@@ -41,6 +41,17 @@ export default async function BoardPage({ params }: { params: Promise<{ eventId:
           <Link href={`/inspect/${eventId}/seals`} className="btn-secondary text-lg">
             Seals
           </Link>
+          <Link href={`/inspect/${eventId}/queue`} className="btn-secondary text-lg">
+            Dock queue
+          </Link>
+          <Link href={`/inspect/${eventId}/slots`} className="btn-secondary text-lg">
+            Slots
+          </Link>
+          {can(actor, 'incident.view', { eventId }) && (
+            <Link href={`/inspect/${eventId}/incidents`} className="btn-secondary text-lg">
+              Incidents
+            </Link>
+          )}
         </div>
       </div>
       <Suspense fallback={<p>Loading the board…</p>}>

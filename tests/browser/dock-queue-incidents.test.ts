@@ -1,0 +1,122 @@
+// Journey on phones: the entrant books a scrutineering slot for their entry; the chief scrutineer opens the
+// dock queue, sees the boat due, loses the signal, checks it in (saved on the phone), and when the signal
+// returns the check-in reaches the server once. The chief scrutineer then records an incident with damage,
+// and the list says the boat must be inspected again before its next run (common practice, no source).
+import { test, before, after } from 'node:test';
+import assert from 'node:assert/strict';
+import type { Browser } from 'playwright-core';
+import { launchBrowser, newContext, screenshot, signInWithPassword, PHONE } from '../support/browser';
+import { DEMO, DEMO_PASSWORD } from '../support/env';
+import { query } from '../support/db';
+import { InspectionMeeting, rulesWith } from '../support/inspection-meeting';
+
+let browser: Browser;
+before(async () => {
+  browser = await launchBrowser();
+});
+after(async () => {
+  await browser?.close();
+});
+
+test('slot booked by the entrant, checked in offline at the dock, incident forcing re-inspection', async () => {
+  const meeting = new InspectionMeeting();
+  await meeting.create(`Queue Journey ${Date.now()}`, [{ email: DEMO.chief, role: 'chief_scrutineer' }]);
+  await query(
+    `update events set time_zone = 'UTC', starts_on = current_date - 1, ends_on = current_date + 1 where id = $1`,
+    [meeting.eventId],
+  );
+  const classId = await meeting.addClass('QJ', rulesWith());
+  const entry = await meeting.addEntry(classId);
+  const [{ id: chiefId }] = await query<{ id: string }>('select id from users where email = $1', [DEMO.chief]);
+  // A slot starting in five minutes (its opening through the API and the form is tested in slots.test.ts).
+  const [{ id: slotId }] = await query<{ id: string }>(
+    `insert into inspection_slots (event_id, class_id, bay, starts_at, ends_at, capacity, grace_minutes, created_by_id)
+     values ($1, $2, 'Bay Q', now() + interval '5 minutes', now() + interval '25 minutes', 2, 10, $3) returning id`,
+    [meeting.eventId, classId, chiefId],
+  );
+
+  // The entrant books it from My entries.
+  const pits = await newContext(browser, PHONE);
+  const ep = await pits.newPage();
+  await signInWithPassword(ep, DEMO.entrant, DEMO_PASSWORD);
+  await ep.goto('/entries');
+  await ep.locator(`[data-entry-id="${entry.id}"]`).getByRole('link', { name: 'Scrutineering slot' }).click();
+  await ep.getByTestId('current-slot').filter({ hasText: 'No slot booked yet' }).waitFor();
+  await ep.getByRole('radio', { name: /Bay Q/ }).check();
+  await ep.getByRole('button', { name: 'Book' }).click();
+  await ep.getByTestId('current-slot').filter({ hasText: 'Booked: Bay Q' }).waitFor();
+  await screenshot(ep, 'queue-01-entrant-booked');
+  await pits.close();
+  const [booking] = await query<{ slot_id: string }>('select slot_id from slot_bookings where entry_id = $1', [
+    entry.id,
+  ]);
+  assert.equal(booking.slot_id, slotId);
+
+  // The chief scrutineer's phone at the dock.
+  const dock = await newContext(browser, PHONE);
+  const page = await dock.newPage();
+  await signInWithPassword(page, DEMO.chief, DEMO_PASSWORD);
+  await page.goto(`/inspect/${meeting.eventId}/board`);
+  await page.getByRole('link', { name: 'Dock queue' }).click();
+  await page.waitForURL('**/queue');
+  const row = page.locator(`[data-entry="${entry.id}"]`);
+  await row.waitFor();
+  assert.equal(await row.getAttribute('data-status'), 'upcoming');
+  assert.match(await row.innerText(), /Bay Q[\s\S]*Not yet due/);
+  assert.match(await page.getByRole('note').innerText(), /licensed officials/);
+
+  // The dock's service worker has kept this page (we came by a link, so it may not control it yet).
+  await page.waitForFunction(async () => (await caches.match(location.href)) !== undefined);
+  await dock.setOffline(true);
+  await row.getByRole('button', { name: `Check in no. ${entry.raceNumber}` }).click();
+  await page.locator(`[data-entry="${entry.id}"][data-status="arrived"]`).waitFor();
+  await page.getByTestId('queue-message').filter({ hasText: '1 check-in(s) waiting to be sent' }).waitFor();
+  // Reload with no signal: the page comes from the phone, with the saved queue and the waiting check-in.
+  const reloaded = await page.reload();
+  assert.equal(reloaded?.headers()['x-served-from'], 'cache', 'the page came from the phone, not the network');
+  await page.getByTestId('queue-saved-copy').waitFor();
+  await page.locator(`[data-entry="${entry.id}"][data-status="arrived"]`).waitFor();
+  await page.getByTestId('queue-message').filter({ hasText: '1 check-in(s) waiting to be sent' }).waitFor();
+  await screenshot(page, 'queue-02-offline-checked-in');
+  assert.equal(
+    (await query('select id from slot_arrivals where entry_id = $1', [entry.id])).length,
+    0,
+    'nothing reached the server while offline',
+  );
+  await dock.setOffline(false);
+  await page.waitForFunction(
+    () => !document.querySelector('[data-testid="queue-message"]')?.textContent?.includes('waiting to be sent'),
+    undefined,
+    { timeout: 45_000 },
+  );
+  // Sent once; a reload (which sends the phone's outbox again) stores nothing more.
+  await page.reload();
+  await page.locator(`[data-entry="${entry.id}"][data-status="arrived"]`).waitFor();
+  const arrivals = await query<{ booking_id: string | null }>(
+    'select booking_id from slot_arrivals where entry_id = $1',
+    [entry.id],
+  );
+  assert.equal(arrivals.length, 1);
+  assert.ok(arrivals[0].booking_id, 'checked in against the booking, not as a walk-in');
+
+  // An incident with damage, recorded on the same phone.
+  await page.goto(`/inspect/${meeting.eventId}/incidents`);
+  await page.getByLabel('Boat', { exact: true }).selectOption(entry.id);
+  const local = new Date(Date.now() - 10 * 60_000).toISOString().slice(0, 16); // the meeting is on UTC
+  await page.getByLabel('When (UTC)').fill(local);
+  await page.getByLabel('What happened').fill('Hit the pontoon leaving the dock; transom cracked.');
+  await page.getByLabel(/Damaged: inspect again/).check();
+  await page.getByRole('button', { name: 'Record the incident' }).click();
+  await page.getByText('Incident recorded. The boat must be inspected again before its next run.').waitFor();
+  const item = page.getByTestId('incident-list').locator('li').first();
+  await item.getByTestId('incident-reinspection').waitFor();
+  assert.match(await item.innerText(), /transom cracked[\s\S]*must be inspected again before its next run/);
+  await screenshot(page, 'queue-03-incident');
+  const tasks = await query<{ reason: string }>(
+    'select reason from reinspections where entry_id = $1 and done_at is null',
+    [entry.id],
+  );
+  assert.equal(tasks.length, 1);
+  assert.match(tasks[0].reason, /transom cracked/);
+  await dock.close();
+});
