@@ -4,7 +4,7 @@
 // into custody at the dock are released by the chief scrutineer or the stewards; notes in a boat's
 // logbook are written by the chief scrutineer or the stewards, who may read it; the chief scrutineer
 // runs the scrutineering schedule; the organiser or the chief scrutineer records incidents, which the
-// meeting's officials read).
+// meeting's officials read; the meeting's officials read the start list, and the organiser decides on it).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import {
@@ -28,6 +28,7 @@ const EXPECTED: Record<Role, Permission[]> = {
     'custody.view',
     'interest.declare',
     'incident.view',
+    'start_list.view',
   ],
   chief_scrutineer: [
     'account.view',
@@ -45,6 +46,7 @@ const EXPECTED: Record<Role, Permission[]> = {
     'schedule.manage',
     'incident.record',
     'incident.view',
+    'start_list.view',
   ],
   steward: [
     'account.view',
@@ -60,6 +62,7 @@ const EXPECTED: Record<Role, Permission[]> = {
     'interest.declare',
     'interest.view_register',
     'incident.view',
+    'start_list.view',
   ],
   organiser: [
     'account.view',
@@ -81,6 +84,8 @@ const EXPECTED: Record<Role, Permission[]> = {
     'interest.view_register',
     'incident.record',
     'incident.view',
+    'start_list.view',
+    'start_list.decide',
   ],
   admin: ['account.view', 'event.create', 'admin.manage_users', 'dev.outbox', 'admin.view_metrics'],
 };
