@@ -128,6 +128,7 @@ test('scrutineer pages, the dock form included: no serious or critical axe-core 
     { path: `/inspect/${e}/queue`, ready: 'queue-day' },
     { path: `/inspect/${e}/slots` },
     { path: `/inspect/${e}/incidents` },
+    { path: `/inspect/${e}/start-list`, ready: 'start-list' },
   ]);
   await context.close();
 });

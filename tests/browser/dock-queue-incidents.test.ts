@@ -1,7 +1,8 @@
 // Journey on phones: the entrant books a scrutineering slot for their entry; the chief scrutineer opens the
 // dock queue, sees the boat due, loses the signal, checks it in (saved on the phone), and when the signal
 // returns the check-in reaches the server once. The chief scrutineer then records an incident with damage,
-// and the list says the boat must be inspected again before its next run (common practice, no source).
+// and the list says the boat must be inspected again before its next run; the start list holds it with that
+// reason until the organiser records a decision (common practice, no source).
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import type { Browser } from 'playwright-core';
@@ -118,5 +119,30 @@ test('slot booked by the entrant, checked in offline at the dock, incident forci
   );
   assert.equal(tasks.length, 1);
   assert.match(tasks[0].reason, /transom cracked/);
+
+  // The start list (no pass, no start): the damaged boat is held today, with the incident as the reason.
+  await page.goto(`/inspect/${meeting.eventId}/board`);
+  await page.getByRole('link', { name: 'Start list' }).click();
+  const held = page.locator(`[data-race="${entry.raceNumber}"]`);
+  await held.waitFor();
+  assert.equal(await held.getAttribute('data-may-start'), 'no');
+  assert.match(await held.innerText(), /Not inspected[\s\S]*Re-inspection required: .*transom cracked/);
+  assert.match(await page.locator('main').innerText(), /licensed officials decide who starts/);
+  await screenshot(page, 'queue-04-start-list-held');
   await dock.close();
+
+  // The organiser lets it start for today with a recorded reason (the chief scrutineer has no such form).
+  const office = await newContext(browser, PHONE);
+  const op = await office.newPage();
+  await signInWithPassword(op, DEMO.organiser, DEMO_PASSWORD);
+  await op.goto(`/inspect/${meeting.eventId}/start-list`);
+  await op.getByLabel('Boat').selectOption(entry.id);
+  await op.getByLabel('May start').check();
+  await op.getByLabel('Reason').fill('Transom repaired and seen by the chief scrutineer at the crane');
+  await op.getByRole('button', { name: 'Record the decision' }).click();
+  const allowed = op.locator(`[data-race="${entry.raceNumber}"][data-may-start="yes"]`);
+  await allowed.waitFor();
+  assert.match(await allowed.innerText(), /Organiser: may start, “Transom repaired/);
+  await screenshot(op, 'queue-05-start-list-organiser');
+  await office.close();
 });
