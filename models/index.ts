@@ -15,6 +15,7 @@ import { Protest, ProtestEvidence, initProtests } from './protest';
 import { AuditEvent, initAuditEvents } from './audit-event';
 import { MailOutbox, initMailOutbox } from './mail-outbox';
 import { PumpCatalogueEntry, initPumpCatalogue } from './pump-catalogue';
+import { CrewRequirement, EntryCrewMember, EntryGearItem, GearCheck, initCrew } from './crew';
 import { CustodyItem, CustodyRelease, initCustody } from './custody';
 import { OfficialInterest, OfficialInterestWithdrawal, initOfficialInterests } from './official-interest';
 import {
@@ -49,6 +50,7 @@ export function initModels(sequelize: Sequelize) {
   initBoatRecord(sequelize);
   initMailOutbox(sequelize);
   initPumpCatalogue(sequelize);
+  initCrew(sequelize);
 
   Account.belongsTo(User, { foreignKey: 'userId' });
   Session.belongsTo(User, { foreignKey: 'userId' });
@@ -147,6 +149,10 @@ export function initModels(sequelize: Sequelize) {
     BoatLogNote,
     MailOutbox,
     PumpCatalogueEntry,
+    CrewRequirement,
+    EntryCrewMember,
+    EntryGearItem,
+    GearCheck,
   };
 }
 
