@@ -10,6 +10,8 @@ import { WithdrawEntryButton } from './withdraw-entry-button';
 import { PaymentWaiter } from './payment-waiter';
 import { SafetyNote } from '@/components/safety-note';
 import { formatInZone } from '@/lib/core/protests/protest-window';
+import { Suspense } from 'react';
+import { CrewEntryPanel } from '@/components/crew-entry-panel';
 
 export const metadata: Metadata = { title: 'My entries' };
 export const dynamic = 'force-dynamic';
@@ -174,6 +176,11 @@ export default async function MyEntriesPage({
                   <p className="text-sm">Ask the chief scrutineer when it will be released.</p>
                 </div>
               )}
+              {(e.status === 'awaiting_payment' || e.status === 'entered') && (
+                <Suspense fallback={<p>Loading the crew and gear…</p>}>
+                  <CrewEntryPanel actor={actor} entryId={e.id} />
+                </Suspense>
+              )}
               {e.status === 'awaiting_payment' && (
                 <div className="flex flex-wrap items-start gap-3 pt-1">
                   <PayEntryButton entryId={e.id} label={e.feeMinor > 0 ? 'Pay entry fee' : 'Confirm the entry'} />
@@ -184,7 +191,9 @@ export default async function MyEntriesPage({
           ))}
         </ul>
       )}
-      {entries.some((e) => e.inspectionResult) && <SafetyNote />}
+      {entries.some(
+        (e) => e.inspectionResult || e.status === 'awaiting_payment' || e.status === 'entered', // crew and safety gear
+      ) && <SafetyNote />}
     </div>
   );
 }

@@ -22,8 +22,14 @@ export async function listCrewFindings(actor: Actor | null, eventId: string, now
   const entries = await loadEventEntryContexts(id);
   const [facts, reqs] = await Promise.all([loadCrewFacts(entries.map((e) => e.id)), loadRequirements(id)]);
   const rows: CrewFindingRow[] = [];
+  // Boats with nothing declared yet are one line on the board, not a list of the same findings each.
+  const undeclared: { entryId: string; raceNumber: number }[] = [];
   for (const e of entries) {
     const f = facts.get(e.id) ?? { members: [], boatGear: [], checks: [] };
+    if (f.members.length === 0 && f.boatGear.length === 0) {
+      undeclared.push({ entryId: e.id, raceNumber: e.raceNumber });
+      continue;
+    }
     const a = assessCrew(f.members, f.boatGear, reqs.forClass(e.classId), e, now, f.checks);
     if (a.findings.length)
       rows.push({
@@ -34,5 +40,5 @@ export async function listCrewFindings(actor: Actor | null, eventId: string, now
         findings: a.findings,
       });
   }
-  return { day: entries[0] ? meetingDayFor(entries[0], now) : null, rows, entryCount: entries.length };
+  return { day: entries[0] ? meetingDayFor(entries[0], now) : null, rows, undeclared, entryCount: entries.length };
 }

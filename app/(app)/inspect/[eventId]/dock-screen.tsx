@@ -30,6 +30,12 @@ import { QueuePanel } from './queue-panel';
 import { registerInspectServiceWorker, useDockQueue } from './use-dock-queue';
 import { VerdictPanel, type ShownVerdict } from './verdict-panel';
 import { describePowerEvidence } from '@/lib/core/inspections/power-evidence';
+import dynamic from 'next/dynamic';
+
+// Crew and dated gear beside the card (issue 21), loaded when a boat is open: it keeps the dock's first load under budget.
+const GearDockPanel = dynamic(() => import('@/components/gear-dock-panel').then((m) => m.GearDockPanel), {
+  ssr: false,
+});
 
 /** A record key made on the phone (crypto.randomUUID needs a secure context; fall back to random bytes). */
 function newKey(): string {
@@ -370,6 +376,14 @@ export function DockScreen({
           )}
         </div>
         {target && <BoatCardView target={target} onCorrect={correct} />}
+        {target && (
+          <GearDockPanel
+            key={target.entryId}
+            eventId={eventId}
+            entryId={target.entryId}
+            canRecord={!target.isOwnBoat}
+          />
+        )}
         {canOpenLogbook && target?.card && (
           <Link href={`/boats/${target.card.boat.id}/logbook`}>This boat&apos;s logbook</Link>
         )}
