@@ -3,6 +3,7 @@
 import { useCallback, useEffect, useId, useState } from 'react';
 import type { EntryCrewView } from '@/lib/server/crew/crew-data';
 import {
+  CREW_ROLE_LABELS,
   GEAR_CHECK_OUTCOME_LABELS,
   GEAR_CHECK_OUTCOMES,
   GEAR_DATE_KIND_LABELS,
@@ -41,6 +42,18 @@ export function GearDockPanel({
   const [view, setView] = useState<EntryCrewView | null>(null);
   const [loadError, setLoadError] = useState<string | null>(null);
   const [picked, setPicked] = useState<Record<string, GearCheckOutcome>>({});
+  const [signOnError, setSignOnError] = useState<string | null>(null);
+  // Each person signs on once a meeting day; the server refuses one whose licence, medical or consent is not in order.
+  const signOn = async (crewMemberId: string) => {
+    const answer = await requestJson<EntryCrewView>(`/api/events/${eventId}/crew-sign-ons`, {
+      method: 'POST',
+      body: { entryId, crewMemberIds: [crewMemberId] },
+    });
+    if (answer.ok) {
+      setView(answer.data);
+      setSignOnError(null);
+    } else setSignOnError(answer.message);
+  };
   const load = useCallback(async () => {
     const answer = await requestJson<EntryCrewView>(
       `/api/events/${eventId}/gear-checks?entryId=${encodeURIComponent(entryId)}`,
@@ -84,14 +97,28 @@ export function GearDockPanel({
       </h2>
       <CrewFindings findings={assessment.findings} day={assessment.day} testId="gear-dock-findings" />
       {view.members.length > 0 && (
-        <ul>
+        <ul className="space-y-1">
           {view.members.map((m) => (
-            <li key={m.id}>
-              {m.role === 'driver' ? 'Driver' : m.role === 'navigator' ? 'Navigator' : 'Reserve'} {m.name}
-              {m.licence ? ` · ${m.licence.grade} ${m.licence.number}` : ' · no licence'}
+            <li key={m.id} data-testid="crew-sign-on" data-member-id={m.id}>
+              {CREW_ROLE_LABELS[m.role]} {m.name}
+              {m.licence ? ` · ${m.licence.grade} ${m.licence.number}` : ' · no licence'} ·{' '}
+              {assessment.signedOn.includes(m.id) ? (
+                <strong className="text-pass-800">✓ signed on today</strong>
+              ) : canRecord ? (
+                <button type="button" className="btn-secondary" onClick={() => void signOn(m.id)}>
+                  Sign {m.name} on for today
+                </button>
+              ) : (
+                'not signed on today'
+              )}
             </li>
           ))}
         </ul>
+      )}
+      {signOnError && (
+        <p role="alert" className="field-error" data-testid="sign-on-error">
+          {signOnError}
+        </p>
       )}
       {assessment.gear.length > 0 && (
         <form {...form} className="space-y-2" data-testid="gear-check-form">

@@ -74,6 +74,20 @@ export class GearCheck extends Model<InferAttributes<GearCheck>, InferCreationAt
   declare checkedAt: CreationOptional<Date>;
 }
 
+/** A person signed on with the officials on one meeting day, with the name and licence as they read then. */
+export class CrewSignOn extends Model<InferAttributes<CrewSignOn>, InferCreationAttributes<CrewSignOn>> {
+  declare id: CreationOptional<string>;
+  declare eventId: string;
+  declare entryId: string;
+  declare crewMemberId: string;
+  declare meetingDay: string;
+  declare role: string;
+  declare name: string;
+  declare licenceNumber: string | null;
+  declare signedOnById: string;
+  declare signedOnAt: CreationOptional<Date>;
+}
+
 export function initCrew(sequelize: Sequelize) {
   const id = { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true };
   CrewRequirement.init(
@@ -143,5 +157,20 @@ export function initCrew(sequelize: Sequelize) {
       checkedAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
     },
     { sequelize, tableName: 'gear_checks', modelName: 'gearCheck', underscored: true, timestamps: false },
+  );
+  CrewSignOn.init(
+    {
+      id,
+      eventId: { type: DataTypes.UUID, allowNull: false },
+      entryId: { type: DataTypes.UUID, allowNull: false },
+      crewMemberId: { type: DataTypes.UUID, allowNull: false },
+      meetingDay: { type: DataTypes.DATEONLY, allowNull: false },
+      role: { type: DataTypes.STRING(10), allowNull: false },
+      name: { type: DataTypes.STRING(120), allowNull: false },
+      licenceNumber: { type: DataTypes.STRING(40) },
+      signedOnById: { type: DataTypes.UUID, allowNull: false },
+      signedOnAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
+    },
+    { sequelize, tableName: 'crew_sign_ons', modelName: 'crewSignOn', underscored: true, timestamps: false },
   );
 }

@@ -15,7 +15,7 @@ import { Protest, ProtestEvidence, initProtests } from './protest';
 import { AuditEvent, initAuditEvents } from './audit-event';
 import { MailOutbox, initMailOutbox } from './mail-outbox';
 import { PumpCatalogueEntry, initPumpCatalogue } from './pump-catalogue';
-import { CrewRequirement, EntryCrewMember, EntryGearItem, GearCheck, initCrew } from './crew';
+import { CrewRequirement, CrewSignOn, EntryCrewMember, EntryGearItem, GearCheck, initCrew } from './crew';
 import { CustodyItem, CustodyRelease, initCustody } from './custody';
 import { OfficialInterest, OfficialInterestWithdrawal, initOfficialInterests } from './official-interest';
 import {
@@ -153,6 +153,7 @@ export function initModels(sequelize: Sequelize) {
     EntryCrewMember,
     EntryGearItem,
     GearCheck,
+    CrewSignOn,
   };
 }
 

@@ -264,9 +264,71 @@ test('the dock confirms each item for the day; a changed item is no longer confi
     after.data.assessment.gear.map((g: { serial: string; dock: string }) => [g.serial, g.dock]),
   );
   assert.deepEqual(states, { 'HM-7': 'confirmed', 'LJ-8': 'changed_since_check', 'FX-7': 'confirmed' });
+  // The driver signs on for today, once; a person whose licence has lapsed is refused, named.
+  const signOnUrl = `/api/events/${meeting.eventId}/crew-sign-ons`;
+  const driverId = after.data.members[0].id as string;
+  assert.equal((await entrant.json(signOnUrl, { entryId: entry.id, crewMemberIds: [driverId] })).res.status, 403);
+  for (let i = 0; i < 2; i++) {
+    const signed = await scrutineer.json(signOnUrl, { entryId: entry.id, crewMemberIds: [driverId] });
+    assert.equal(signed.res.status, 201, JSON.stringify(signed.body));
+    assert.deepEqual(signed.body.data.assessment.signedOn, [driverId]);
+  }
+  const signOns = await query<{ meeting_day: string }>(
+    `select to_char(meeting_day, 'YYYY-MM-DD') as meeting_day from crew_sign_ons where crew_member_id = $1`,
+    [driverId],
+  );
+  assert.deepEqual(signOns, [{ meeting_day: dayInZone(0) }], 'once a day, on the meeting’s calendar day');
+  await put(entrant, entry.id, {
+    members: [
+      person({ id: driverId, gear: [] }),
+      person({
+        role: 'navigator',
+        name: 'Lapsed Tester',
+        licence: { issuedBy: 'B', grade: 'A', number: 'IRB-1', expiresOn: dayInZone(-1) },
+        gear: [],
+      }),
+    ],
+    boatGear: [],
+  });
+  const [lapsed] = await query<{ id: string }>(
+    `select id from entry_crew_members where entry_id = $1 and name = 'Lapsed Tester'`,
+    [entry.id],
+  );
+  const refused = await scrutineer.json(signOnUrl, { entryId: entry.id, crewMemberIds: [lapsed.id] });
+  assert.equal(refused.res.status, 409);
+  assert.equal(refused.body.error.code, 'not_in_order');
+  assert.match(refused.body.error.message, /Lapsed Tester: licence IRB-1 expired on/);
   // The dock reads it; the chief scrutineer's board lists the boat before it arrives.
   const dock = await scrutineer.fetch(`${url}?entryId=${entry.id}`);
   assert.equal(dock.status, 200);
   const board = await (await chief.fetch(`/inspect/${meeting.eventId}/board`)).text();
-  assert.ok(board.includes('crew-board') && board.includes('HM-7'), 'the board names the expired helmet');
+  assert.ok(board.includes('crew-board') && board.includes('Lapsed Tester'), 'the board names the lapsed licence');
+});
+
+test('a scrutineer does not check the gear or sign on the crew of a boat they own', async () => {
+  const own = await meeting.addEntry(classId, { ownerEmail: DEMO.scrutineer });
+  const [{ id: itemId }] = await query<{ id: string }>(
+    `insert into entry_gear_items (entry_id, position, kind, standard, serial, date_kind, due_on)
+     values ($1, 1000, 'first_aid_kit', 'x', 'FA-OWN', 'expires', '2030-01-01') returning id`,
+    [own.id],
+  );
+  const [{ id: memberId }] = await query<{ id: string }>(
+    `insert into entry_crew_members (entry_id, position, role, name, born_on) values ($1, 0, 'driver', 'Own Tester', '1980-01-01') returning id`,
+    [own.id],
+  );
+  const checked = await scrutineer.json(`/api/events/${meeting.eventId}/gear-checks`, {
+    entryId: own.id,
+    items: [{ gearItemId: itemId, outcome: 'confirmed' }],
+  });
+  assert.equal(checked.res.status, 403);
+  const signed = await scrutineer.json(`/api/events/${meeting.eventId}/crew-sign-ons`, {
+    entryId: own.id,
+    crewMemberIds: [memberId],
+  });
+  assert.equal(signed.res.status, 403);
+  const [{ n }] = await query<{ n: string }>(
+    'select (select count(*) from gear_checks where entry_id = $1) + (select count(*) from crew_sign_ons where entry_id = $1) as n',
+    [own.id],
+  );
+  assert.equal(Number(n), 0);
 });

@@ -213,6 +213,12 @@ export const ROUTES: Row[] = [
     access: { anyOf: ['inspection.record'] },
   },
   {
+    method: 'POST',
+    file: `${E}/crew-sign-ons/route.ts`,
+    path: (i) => `${ev(i)}/crew-sign-ons`,
+    access: { anyOf: ['inspection.record'] },
+  },
+  {
     method: 'PUT',
     file: `${E}/crew-requirements/route.ts`,
     path: (i) => `${ev(i)}/crew-requirements`,

@@ -83,8 +83,20 @@ export type CrewFindingCode =
   | 'gear_not_as_declared'
   | 'expires_during_meeting';
 
+/** Findings about a person's own papers: they keep that person from signing on. */
+export const PERSON_FINDINGS: readonly CrewFindingCode[] = [
+  'licence_missing',
+  'licence_expired',
+  'licence_grade',
+  'medical_missing',
+  'medical_expired',
+  'consent_missing',
+];
+
 export type CrewFinding = {
   code: CrewFindingCode;
+  /** The person it is about, if any. */
+  memberId?: string;
   /** 'finding': the item is not in order on the day; 'warning': in order today, not for the whole meeting. */
   severity: 'finding' | 'warning';
   text: string;
@@ -108,7 +120,11 @@ export type CrewAssessment = {
   gear: GearState[];
   /** No finding (warnings allowed). */
   isInOrder: boolean;
+  /** The people signed on with the officials on the day (checks repeated each meeting day). */
+  signedOn: string[];
 };
+
+export type SignOnFacts = { crewMemberId: string; meetingDay: string };
 
 /** The calendar day of an instant in a time zone. */
 export function dayInZone(instant: Date | string | number, timeZone: string): string {
@@ -168,18 +184,20 @@ export function assessCrew(
   meeting: MeetingDays,
   now: Date | string | number,
   checks: readonly GearCheckFacts[] = [],
+  signOns: readonly SignOnFacts[] = [],
 ): CrewAssessment {
   const day = meetingDayFor(meeting, now);
   const findings: CrewFinding[] = [];
-  const add = (code: CrewFindingCode, text: string, severity: CrewFinding['severity'] = 'finding') =>
-    findings.push({ code, severity, text });
-  const dated = (what: string, dueOn: string, expired: CrewFindingCode) => {
-    if (!isValidOn(dueOn, day)) add(expired, `${what} expired on ${formatCalendarDate(dueOn)}.`);
+  const add = (code: CrewFindingCode, text: string, severity: CrewFinding['severity'] = 'finding', memberId?: string) =>
+    findings.push({ code, severity, text, ...(memberId && { memberId }) });
+  const dated = (what: string, dueOn: string, expired: CrewFindingCode, memberId: string) => {
+    if (!isValidOn(dueOn, day)) add(expired, `${what} expired on ${formatCalendarDate(dueOn)}.`, 'finding', memberId);
     else if (dueOn < meeting.endsOn)
       add(
         'expires_during_meeting',
         `${what} runs out on ${formatCalendarDate(dueOn)}, before the meeting's last day.`,
         'warning',
+        memberId,
       );
   };
   if (!members.some((m) => m.role === 'driver')) add('no_driver', 'No driver is named.');
@@ -188,19 +206,26 @@ export function assessCrew(
   const accepted = req.acceptedLicenceGrades.map(normGrade);
   for (const m of members) {
     const who = `${CREW_ROLE_LABELS[m.role]} ${m.name}`;
-    if (!m.licence) add('licence_missing', `${who}: no licence recorded.`);
+    if (!m.licence) add('licence_missing', `${who}: no licence recorded.`, 'finding', m.id);
     else {
-      dated(`${who}: licence ${m.licence.number}`, m.licence.expiresOn, 'licence_expired');
+      dated(`${who}: licence ${m.licence.number}`, m.licence.expiresOn, 'licence_expired', m.id);
       if (accepted.length > 0 && !accepted.includes(normGrade(m.licence.grade)))
         add(
           'licence_grade',
           `${who}: licence grade ${m.licence.grade} is not accepted here (accepted: ${req.acceptedLicenceGrades.join(', ')}).`,
+          'finding',
+          m.id,
         );
     }
-    if (!m.medicalExpiresOn) add('medical_missing', `${who}: no medical certificate recorded.`);
-    else dated(`${who}: medical certificate`, m.medicalExpiresOn, 'medical_expired');
+    if (!m.medicalExpiresOn) add('medical_missing', `${who}: no medical certificate recorded.`, 'finding', m.id);
+    else dated(`${who}: medical certificate`, m.medicalExpiresOn, 'medical_expired', m.id);
     if (isMinorOn(m.bornOn, day) && !m.guardian)
-      add('consent_missing', `${who} is under ${ADULT_AGE_YEARS}: no parent's or guardian's consent recorded.`);
+      add(
+        'consent_missing',
+        `${who} is under ${ADULT_AGE_YEARS}: no parent's or guardian's consent recorded.`,
+        'finding',
+        m.id,
+      );
   }
 
   const gear: GearState[] = [];
@@ -242,5 +267,8 @@ export function assessCrew(
     } else if ((BOAT_GEAR_KINDS as readonly string[]).includes(kind) && !boatGear.some((g) => g.kind === kind))
       add('gear_missing', `Boat: no ${label} declared (the class requires one).`);
   }
-  return { day, findings, gear, isInOrder: !findings.some((f) => f.severity === 'finding') };
+  const signedOn = members
+    .filter((m) => signOns.some((s) => s.crewMemberId === m.id && s.meetingDay === day))
+    .map((m) => m.id);
+  return { day, findings, gear, isInOrder: !findings.some((f) => f.severity === 'finding'), signedOn };
 }

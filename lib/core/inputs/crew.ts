@@ -178,3 +178,15 @@ export const RecordGearChecksInput = z.object({
   ).refine((a) => a.length >= 1, 'Confirm at least one item.'),
 });
 export type RecordGearChecksInput = z.infer<typeof RecordGearChecksInput>;
+
+/** An official signs people of one entry on for today. */
+export const SignOnCrewInput = z.object({
+  entryId: z.uuid({ error: 'Choose a boat of this meeting.' }),
+  crewMemberIds: list(
+    z.uuid({ error: 'Not a known person.' }),
+    CREW_LIMITS.members,
+    'Too many people.',
+    'the people',
+  ).refine((a) => a.length >= 1, 'Choose at least one person.'),
+});
+export type SignOnCrewInput = z.infer<typeof SignOnCrewInput>;

@@ -10,6 +10,7 @@ import {
   type CrewRequirements,
   type GearCheckFacts,
   type GearFacts,
+  type SignOnFacts,
 } from '@/lib/core/crew/assess-crew';
 
 // Reads shared by the entrant's screen, the dock and the board: an entry with its meeting's days, its
@@ -57,7 +58,12 @@ export function mayReadCrew(actor: Actor, entry: EntryContext): boolean {
   return entry.entrantId === actor.id || can(actor, 'entry.view_all', scope) || can(actor, 'inspection.board', scope);
 }
 
-export type CrewFacts = { members: CrewMemberFacts[]; boatGear: GearFacts[]; checks: GearCheckFacts[] };
+export type CrewFacts = {
+  members: CrewMemberFacts[];
+  boatGear: GearFacts[];
+  checks: GearCheckFacts[];
+  signOns: SignOnFacts[];
+};
 
 const day = (col: string) => `to_char(${col}, 'YYYY-MM-DD')`;
 
@@ -70,6 +76,7 @@ export async function loadCrewFacts(entryIds: readonly string[]): Promise<Map<st
     members: (Omit<CrewMemberFacts, 'gear'> & { licence: CrewMemberFacts['licence'] })[];
     gear: (GearFacts & { crewMemberId: string | null })[];
     checks: GearCheckFacts[];
+    signOns: SignOnFacts[];
   }>(
     `select e.id as "entryId",
        coalesce((select json_agg(json_build_object('id', m.id, 'role', m.role, 'name', m.name, 'hasAccount', m.user_id is not null,
@@ -86,7 +93,9 @@ export async function loadCrewFacts(entryIds: readonly string[]): Promise<Map<st
        coalesce((select json_agg(json_build_object('gearItemId', k.gear_item_id, 'meetingDay', ${day('k.meeting_day')},
            'outcome', k.outcome, 'kind', k.kind, 'serial', k.serial, 'standard', k.standard, 'dueOn', ${day('k.due_on')},
            'checkedAt', k.checked_at, 'note', k.note) order by k.checked_at)
-         from gear_checks k where k.entry_id = e.id), '[]') as checks
+         from gear_checks k where k.entry_id = e.id), '[]') as checks,
+       coalesce((select json_agg(json_build_object('crewMemberId', s.crew_member_id, 'meetingDay', ${day('s.meeting_day')}))
+         from crew_sign_ons s where s.entry_id = e.id), '[]') as "signOns"
      from entries e where e.id in (:entryIds)`,
     { replacements: { entryIds }, type: QueryTypes.SELECT },
   );
@@ -97,6 +106,7 @@ export async function loadCrewFacts(entryIds: readonly string[]): Promise<Map<st
       members: r.members.map((m) => ({ ...m, gear: personal(m.id) })),
       boatGear: r.gear.filter((g) => g.crewMemberId === null).map(({ crewMemberId: _m, ...g }) => g),
       checks: r.checks,
+      signOns: r.signOns,
     });
   }
   return out;
@@ -155,14 +165,14 @@ export type EntryCrewView = {
 /** One entry's people, gear and their assessment on today's meeting day (the caller checked access). */
 export async function buildEntryCrewView(entry: EntryContext, now = new Date()): Promise<EntryCrewView> {
   const [facts, reqs] = await Promise.all([loadCrewFacts([entry.id]), loadRequirements(entry.eventId)]);
-  const f = facts.get(entry.id) ?? { members: [], boatGear: [], checks: [] };
+  const f = facts.get(entry.id) ?? { members: [], boatGear: [], checks: [], signOns: [] };
   const requirements = reqs.forClass(entry.classId);
   return {
     entry,
     members: f.members,
     boatGear: f.boatGear,
     requirements,
-    assessment: assessCrew(f.members, f.boatGear, requirements, entry, now, f.checks),
+    assessment: assessCrew(f.members, f.boatGear, requirements, entry, now, f.checks, f.signOns),
   };
 }
 

@@ -25,7 +25,7 @@ export async function listCrewFindings(actor: Actor | null, eventId: string, now
   // Boats with nothing declared yet are one line on the board, not a list of the same findings each.
   const undeclared: { entryId: string; raceNumber: number }[] = [];
   for (const e of entries) {
-    const f = facts.get(e.id) ?? { members: [], boatGear: [], checks: [] };
+    const f = facts.get(e.id) ?? { members: [], boatGear: [], checks: [], signOns: [] };
     if (f.members.length === 0 && f.boatGear.length === 0) {
       undeclared.push({ entryId: e.id, raceNumber: e.raceNumber });
       continue;

@@ -161,3 +161,14 @@ test('a dock check counts on its own day while the item reads as it did; a chang
   const swapped = driver({ gear: [helmet({ serial: 'H-2' })] });
   assert.equal(assessCrew([swapped], [], req(), EAST, at, [check()]).gear[0].dock, 'changed_since_check');
 });
+
+test('sign-on counts on its own meeting day only; a person’s own findings name them', () => {
+  const signOns = [{ crewMemberId: 'm-driver', meetingDay: '2027-05-01' }];
+  assert.deepEqual(assessCrew([driver()], [], req(), EAST, '2027-05-01T00:00:00Z', [], signOns).signedOn, ['m-driver']);
+  // 10:00 UTC is already 2 May in Kiritimati: the driver signs on again that day.
+  assert.deepEqual(assessCrew([driver()], [], req(), EAST, '2027-05-01T10:00:00Z', [], signOns).signedOn, []);
+  const lapsed = driver({ medicalExpiresOn: '2027-04-30' });
+  const [f] = assessCrew([lapsed], [], req(), EAST, '2027-05-01T00:00:00Z').findings;
+  assert.equal(f.code, 'medical_expired');
+  assert.equal(f.memberId, 'm-driver');
+});
