@@ -165,7 +165,12 @@ export function GearDockPanel({
           )}
         </form>
       )}
-      <SafetyNote />
+      <p className="text-base text-ink-soft" data-testid="gear-dock-caution">
+        Expired or missing items are findings for the officials: the local rulebook and licensed officials decide
+        whether the boat goes on the water.
+      </p>
+      {/* One caution per screen: the record form (or the verdict) carries it; without the form, this panel does. */}
+      {!canRecord && <SafetyNote />}
     </section>
   );
 }
