@@ -23,6 +23,7 @@ const yearsBefore = (day: string, years: number) => `${Number(day.slice(0, 4)) -
 let browser: Browser;
 const meeting = new InspectionMeeting();
 let entry: TestEntry;
+let classId: string;
 
 before(async () => {
   browser = await launchBrowser();
@@ -36,7 +37,8 @@ before(async () => {
     dayInZone(1),
     ZONE,
   ]);
-  entry = await meeting.addEntry(await meeting.addClass('CG', rulesWith({ safetyItems: ['helmet'] })));
+  classId = await meeting.addClass('CG', rulesWith({ safetyItems: ['helmet'] }));
+  entry = await meeting.addEntry(classId);
 });
 after(async () => {
   await browser?.close();
@@ -109,6 +111,18 @@ test('entrant, dock and board: crew and dated gear on a phone', async () => {
   await screenshot(dock, 'crew-dock-phone');
   await dockContext.close();
 
+  // The organiser accepts grade B only in this class: the driver's grade A becomes a finding.
+  const orgContext = await newContext(browser, PHONE);
+  const org = await orgContext.newPage();
+  await signInWithPassword(org, DEMO.organiser, DEMO_PASSWORD);
+  await org.goto(`/organise/events/${meeting.eventId}/classes/${classId}`);
+  const reqs = org.getByTestId('crew-requirements-form');
+  await reqs.waitFor();
+  await reqs.getByLabel('Licence grades accepted').fill('B');
+  await reqs.getByRole('button', { name: 'Save the crew requirements' }).click();
+  await reqs.getByTestId('crew-requirements-message').getByText('Saved').waitFor();
+  await orgContext.close();
+
   // The chief scrutineer's board lists the boat with the expired helmet.
   const boardContext = await newContext(browser, PHONE);
   const board = await boardContext.newPage();
@@ -117,5 +131,6 @@ test('entrant, dock and board: crew and dated gear on a phone', async () => {
   const row = board.locator(`[data-testid="crew-board-row"][data-entry-id="${entry.id}"]`);
   await row.waitFor();
   assert.match((await row.textContent()) ?? '', /HM-BR-1/);
+  assert.match((await row.textContent()) ?? '', /licence grade A is not accepted here \(accepted: B\)/);
   await boardContext.close();
 });
