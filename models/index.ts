@@ -17,6 +17,7 @@ import { MailOutbox, initMailOutbox } from './mail-outbox';
 import { PumpCatalogueEntry, initPumpCatalogue } from './pump-catalogue';
 import { InspectionSlot, SlotArrival, SlotBooking, initSlots } from './slot';
 import { Incident, IncidentPhoto, initIncidents } from './incident';
+import { CrewRequirement, CrewSignOn, EntryCrewMember, EntryGearItem, GearCheck, initCrew } from './crew';
 import { CustodyItem, CustodyRelease, initCustody } from './custody';
 import { OfficialInterest, OfficialInterestWithdrawal, initOfficialInterests } from './official-interest';
 import {
@@ -53,6 +54,7 @@ export function initModels(sequelize: Sequelize) {
   initPumpCatalogue(sequelize);
   initSlots(sequelize);
   initIncidents(sequelize);
+  initCrew(sequelize);
 
   Account.belongsTo(User, { foreignKey: 'userId' });
   Session.belongsTo(User, { foreignKey: 'userId' });
@@ -156,6 +158,11 @@ export function initModels(sequelize: Sequelize) {
     SlotArrival,
     Incident,
     IncidentPhoto,
+    CrewRequirement,
+    EntryCrewMember,
+    EntryGearItem,
+    GearCheck,
+    CrewSignOn,
   };
 }
 

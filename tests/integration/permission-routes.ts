@@ -194,6 +194,43 @@ export const ROUTES: Row[] = [
     access: { ownerOr: ['results.publish'] },
   },
   { method: 'GET', file: 'app/api/events/open/route.ts', path: () => '/api/events/open', access: 'signed-in' },
+  // Crew and dated gear per entry (issue 21): the entrant edits; the meeting's board officials read.
+  {
+    method: 'GET',
+    file: 'app/api/entries/[entryId]/crew/route.ts',
+    path: (i) => `/api/entries/${i.entryId}/crew`,
+    access: { custom: ['entrantOwn', 'scrutineer', 'steward', 'organiser'] },
+  },
+  {
+    method: 'PUT',
+    file: 'app/api/entries/[entryId]/crew/route.ts',
+    path: (i) => `/api/entries/${i.entryId}/crew`,
+    access: 'owner',
+  },
+  {
+    method: 'GET',
+    file: `${E}/gear-checks/route.ts`,
+    path: (i) => `${ev(i)}/gear-checks?entryId=${i.entryId}`,
+    access: { anyOf: ['inspection.board'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/gear-checks/route.ts`,
+    path: (i) => `${ev(i)}/gear-checks`,
+    access: { anyOf: ['inspection.record'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/crew-sign-ons/route.ts`,
+    path: (i) => `${ev(i)}/crew-sign-ons`,
+    access: { anyOf: ['inspection.record'] },
+  },
+  {
+    method: 'PUT',
+    file: `${E}/crew-requirements/route.ts`,
+    path: (i) => `${ev(i)}/crew-requirements`,
+    access: { anyOf: ['class.edit'] },
+  },
   // Organiser
   {
     method: 'POST',

@@ -13,6 +13,8 @@ import { formatInZone } from '@/lib/core/protests/protest-window';
 import { listMyDeclaredMasses } from '@/lib/server/timing/declared-masses';
 import { CLOCK_ASSUMPTIONS } from '@/lib/core/timing/clock-section';
 import { ClockMassesForm } from '@/components/clock-masses-form';
+import { Suspense } from 'react';
+import { CrewEntryPanel } from '@/components/crew-entry-panel';
 
 export const metadata: Metadata = { title: 'My entries' };
 export const dynamic = 'force-dynamic';
@@ -189,6 +191,9 @@ export default async function MyEntriesPage({
                   <p>
                     <Link href={`/slot/${e.eventId}/${e.id}`}>Scrutineering slot</Link>
                   </p>
+                  <Suspense fallback={<p>Loading the crew and gear…</p>}>
+                    <CrewEntryPanel actor={actor} entryId={e.id} />
+                  </Suspense>
                 </>
               )}
               {e.status === 'awaiting_payment' && (
@@ -201,7 +206,9 @@ export default async function MyEntriesPage({
           ))}
         </ul>
       )}
-      {entries.some((e) => e.inspectionResult) && <SafetyNote />}
+      {entries.some(
+        (e) => e.inspectionResult || e.status === 'awaiting_payment' || e.status === 'entered', // crew and safety gear
+      ) && <SafetyNote />}
     </div>
   );
 }

@@ -32,6 +32,11 @@ import type { ShownVerdict } from './verdict-panel';
 import { loadDockParts } from './dock-parts';
 import { describePowerEvidence } from '@/lib/core/inspections/power-evidence';
 
+// Crew and dated gear beside the card (issue 21), loaded when a boat is open: it keeps the dock's first load under budget.
+const GearDockPanel = dynamic(() => import('@/components/gear-dock-panel').then((m) => m.GearDockPanel), {
+  ssr: false,
+});
+
 // The boat card, the record form and the verdict appear only once a boat is found: their code is not part of
 // the screen's first load (a phone on one bar of signal gets the finder sooner, with less script to run
 // before it answers). They are fetched when the phone is idle after the first paint, and kept by the
@@ -381,6 +386,14 @@ export function DockScreen({
           )}
         </div>
         {target && <BoatCardView target={target} onCorrect={correct} />}
+        {target && (
+          <GearDockPanel
+            key={target.entryId}
+            eventId={eventId}
+            entryId={target.entryId}
+            canRecord={!target.isOwnBoat}
+          />
+        )}
         {canOpenLogbook && target?.card && (
           <Link href={`/boats/${target.card.boat.id}/logbook`}>This boat&apos;s logbook</Link>
         )}

@@ -4,6 +4,7 @@ import { Suspense } from 'react';
 import { can } from '@/lib/server/auth/actor';
 import { openBoard } from '../access';
 import { BoardView } from './board-view';
+import { CrewBoardPanel } from '@/components/crew-board-panel';
 
 export const metadata: Metadata = { title: 'Inspection board' };
 export const dynamic = 'force-dynamic';
@@ -61,6 +62,9 @@ export default async function BoardPage({ params }: { params: Promise<{ eventId:
           canRecord={canRecord}
           canOpenLogbook={can(actor, 'entry.view_all', { eventId })}
         />
+      </Suspense>
+      <Suspense fallback={<p>Loading the crew and gear…</p>}>
+        <CrewBoardPanel actor={actor} eventId={eventId} />
       </Suspense>
     </div>
   );

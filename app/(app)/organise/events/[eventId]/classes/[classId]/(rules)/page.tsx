@@ -12,13 +12,14 @@ import {
 import { openClassRules } from '../../../access';
 import { RulesForm } from '../rules-form';
 import { PublishForm } from '../publish-form';
+import { CrewRequirementsPanel } from '@/components/crew-requirements-panel';
 
 export const metadata: Metadata = { title: 'Class rules' };
 
 const show = (v: unknown) => (v === null || v === undefined ? '—' : Array.isArray(v) ? v.join(', ') : String(v));
 
 export default async function ClassPage({ params }: { params: Promise<{ eventId: string; classId: string }> }) {
-  const { eventId, classId, cls } = await openClassRules(params);
+  const { actor, eventId, classId, cls } = await openClassRules(params);
   const { raceClass, versions, timeZone } = cls;
   const latest = versions[0];
   const isDraft = latest.status === 'draft';
@@ -60,6 +61,7 @@ export default async function ClassPage({ params }: { params: Promise<{ eventId:
         />
         {isDraft && <PublishForm eventId={eventId} classId={classId} version={latest.version} timeZone={timeZone} />}
       </section>
+      <CrewRequirementsPanel actor={actor} eventId={eventId} classId={classId} />
       <section className="card space-y-4" aria-labelledby="history">
         <h2 id="history">Version history</h2>
         <ol className="space-y-4" data-testid="version-history">
