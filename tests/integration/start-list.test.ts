@@ -20,21 +20,35 @@ const list = (s: HttpSession, q = '') => s.fetch(`/api/events/${meeting.eventId}
 type Row = { raceNumber: number; verdict: { mayStart: boolean; holds: string[]; basis: string; decision: unknown } };
 const rowOf = (rows: Row[], t: TestEntry) => rows.find((r) => r.raceNumber === t.raceNumber)!;
 
+const driver = {
+  role: 'driver',
+  name: 'Mere Startline',
+  bornOn: '1990-03-14',
+  licence: { issuedBy: 'Invented Racing Body', grade: 'A', number: 'IRB-5150', expiresOn: '2030-12-31' },
+  medicalExpiresOn: '2030-12-31',
+  gear: [{ kind: 'helmet', standard: 'Invented Std 7', serial: 'HM-51', dateKind: 'expires', dueOn: '2027-05-01' }],
+};
+
 before(async () => {
   await meeting.create(`Start List Meeting ${Date.now()}`, [
     { email: DEMO.scrutineer, role: 'scrutineer' },
     { email: DEMO.steward, role: 'steward' },
   ]);
-  classId = await meeting.addClass('SL', rulesWith({ decisionRule: 'iso14253' }));
+  classId = await meeting.addClass('SL', rulesWith({ decisionRule: 'iso14253', safetyItems: ['helmet'] }));
+  await entrant.signInWithPassword(DEMO.entrant, DEMO_PASSWORD);
   e.clear = await meeting.addEntry(classId);
   e.unpaid = await meeting.addEntry(classId);
   e.failed = await meeting.addEntry(classId);
   e.changed = await meeting.addEntry(classId);
   e.waiting = await meeting.addEntry(classId);
   await query(`update entries set status = 'awaiting_payment', paid_at = null where id = $1`, [e.unpaid.id]);
+  // A driver in order with dated gear on every boat but the one still waiting (invented person and body).
+  for (const t of [e.clear, e.unpaid, e.failed, e.changed]) {
+    const crew = await entrant.json(`/api/entries/${t.id}/crew`, { members: [driver], boatGear: [] }, 'PUT');
+    assert.equal(crew.res.status, 200, JSON.stringify(crew.body));
+  }
   await scrutineer.signInWithPassword(DEMO.scrutineer, DEMO_PASSWORD);
   await steward.signInWithPassword(DEMO.steward, DEMO_PASSWORD);
-  await entrant.signInWithPassword(DEMO.entrant, DEMO_PASSWORD);
   const record = async (t: TestEntry, largest: number) => {
     const r = await scrutineer.json(`/api/events/${meeting.eventId}/inspections`, {
       ...inspectionBody(t.id, largest),
@@ -68,6 +82,7 @@ test('each boat may start or is held with every reason, from its state now', asy
   assert.match(changed.holds.join(' '), /Re-inspection required: .*power/i);
   assert.deepEqual(rowOf(data.rows, e.waiting).verdict.holds, [
     'Not inspected (or its declaration changed since the inspection).',
+    'No crew or gear declared: the driver, their licence and the safety gear cannot be checked.',
   ]);
   assert.deepEqual(data.counts, { total: 5, mayStart: 1, held: 4, byOrganiser: 0 });
 });
@@ -95,7 +110,14 @@ test('the organiser lets a held boat start and holds a clear one, with reasons k
   // A decision is for its day only.
   const day2 = (await (await list(steward, '?day=2027-05-02')).json()).data as { rows: Row[] };
   assert.equal(rowOf(day2.rows, e.failed).verdict.mayStart, false);
-  assert.equal(rowOf(day2.rows, e.clear).verdict.mayStart, true);
+  // On the second day the clear boat's helmet (valid through 1 May in the meeting's zone) has expired:
+  // it is held for that, and the first day's decision does not carry over.
+  assert.deepEqual(rowOf(day2.rows, e.clear).verdict, {
+    mayStart: false,
+    holds: ['Driver Mere Startline: helmet HM-51: expires on Sat 1 May 2027, past.'],
+    basis: 'held',
+    decision: null,
+  });
 
   const csv = await list(scrutineer, '?day=2027-05-01&format=csv');
   assert.equal(csv.status, 200);

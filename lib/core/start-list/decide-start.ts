@@ -1,5 +1,4 @@
 import { csvCell } from '../entries/entries-csv';
-import { meetingDayOf } from '../inspections/calibration-state';
 
 // Whether a boat may start, from the current state of its entry ("no pass, no start"): every reason that
 // holds it back is listed, so the start line, the entrant and the timing system read the same words.
@@ -67,12 +66,6 @@ export function meetingDays(startsOn: string, endsOn: string): string[] {
     d.setUTCDate(d.getUTCDate() + 1);
   }
   return days;
-}
-
-/** The day a start list opens on: today in the meeting's zone when it is a meeting day, else the first day. */
-export function defaultStartDay(days: string[], now: Date, timeZone: string): string | null {
-  const today = meetingDayOf(now, timeZone);
-  return days.includes(today) ? today : (days.find((d) => d >= today) ?? days[days.length - 1] ?? null);
 }
 
 export type StartListCsvRow = {

@@ -4,9 +4,11 @@ import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError, fieldError } from '@/lib/core/errors';
 import { StartDecisionInput } from '@/lib/core/inputs/start-list';
+import { TZDate } from '@date-fns/tz';
+import { assessCrew, meetingDayFor } from '@/lib/core/crew/assess-crew';
+import { loadCrewFacts, loadRequirements } from '@/lib/server/crew/crew-data';
 import {
   decideStart,
-  defaultStartDay,
   meetingDays,
   type StartDecisionRecord,
   type StartFacts,
@@ -56,13 +58,14 @@ async function loadMeeting(eventId: string) {
   const { models } = getDb();
   const event = await models.Event.findByPk(eventId, { attributes: ['id', 'name', 'startsOn', 'endsOn', 'timeZone'] });
   if (!event) throw new AppError('not_found', 404, 'No such meeting.');
-  return { event, days: meetingDays(event.startsOn, event.endsOn) };
+  const meeting = { startsOn: event.startsOn, endsOn: event.endsOn, timeZone: event.timeZone };
+  return { event, meeting, days: meetingDays(event.startsOn, event.endsOn) };
 }
 
 /**
  * The start list of a meeting day (optionally one class): every live entry with whether it may start and
  * every reason that holds it back, from the state of its entry now (payment, the current inspection, open
- * re-inspections), and the organiser's latest decision for that day. One statement for the rows.
+ * re-inspections, the crew's papers and the gear on that day), and the organiser's latest decision for that day.
  */
 export async function loadStartList(
   actor: Actor | null,
@@ -71,8 +74,8 @@ export async function loadStartList(
   now = new Date(),
 ): Promise<StartList> {
   assertCan(actor, 'start_list.view', { eventId });
-  const { event, days } = await loadMeeting(eventId);
-  const day = filters.day?.trim() || defaultStartDay(days, now, event.timeZone);
+  const { event, meeting, days } = await loadMeeting(eventId);
+  const day = filters.day?.trim() || meetingDayFor(meeting, now);
   if (!day || !days.includes(day))
     throw new AppError('invalid_input', 400, `day: choose a day of the meeting (${days[0]} to ${days.at(-1)}).`, [
       { field: 'day', message: 'Choose a day of the meeting.' },
@@ -113,6 +116,21 @@ export async function loadStartList(
       order by c.code, e.race_number`,
     { replacements: { eventId, classId: chosen?.id ?? null, day }, type: QueryTypes.SELECT },
   );
+  // People and gear judged on that day (noon in the meeting's zone is inside it whatever the offset).
+  const [crew, requirements] = await Promise.all([
+    loadCrewFacts(rows.map((r) => r.entryId)),
+    loadRequirements(eventId),
+  ]);
+  const [y, m, d] = day.split('-').map(Number);
+  const onDay = new TZDate(y, m - 1, d, 12, 0, 0, event.timeZone);
+  const crewHolds = (r: Row): string[] => {
+    const f = crew.get(r.entryId);
+    if (!f || (f.members.length === 0 && f.boatGear.length === 0))
+      return ['No crew or gear declared: the driver, their licence and the safety gear cannot be checked.'];
+    return assessCrew(f.members, f.boatGear, requirements.forClass(r.classId), meeting, onDay, f.checks, f.signOns)
+      .findings.filter((x) => x.severity === 'finding')
+      .map((x) => x.text);
+  };
   const list: StartListRow[] = rows.map((r) => ({
     entryId: r.entryId,
     raceNumber: r.raceNumber,
@@ -127,7 +145,7 @@ export async function loadStartList(
         inspection: (r.latestResult ?? 'waiting') as StartFacts['inspection'],
         openReinspections: Number(r.openReinspections),
         reinspectionReason: r.reinspectionReason,
-        otherHolds: [],
+        otherHolds: crewHolds(r),
       },
       r.decision && { ...r.decision, decidedAt: new Date(r.decision.decidedAt).toISOString() },
     ),

@@ -5,14 +5,8 @@
 // practice at race meetings, no source.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import {
-  decideStart,
-  defaultStartDay,
-  holdsFor,
-  meetingDays,
-  startListCsv,
-  type StartFacts,
-} from '@/lib/core/start-list/decide-start';
+import { decideStart, holdsFor, meetingDays, startListCsv, type StartFacts } from '@/lib/core/start-list/decide-start';
+import { meetingDayFor } from '@/lib/core/crew/assess-crew';
 
 const clear: StartFacts = {
   status: 'entered',
@@ -65,14 +59,14 @@ test('the organiser’s recorded decision settles the row either way, and the ho
 test('the meeting days are inclusive and cross month ends; the list opens on today in the meeting’s zone', () => {
   assert.deepEqual(meetingDays('2027-04-30', '2027-05-02'), ['2027-04-30', '2027-05-01', '2027-05-02']);
   assert.deepEqual(meetingDays('2027-05-01', '2027-05-01'), ['2027-05-01']);
-  const days = ['2027-05-01', '2027-05-02'];
+  const m = { startsOn: '2027-05-01', endsOn: '2027-05-02', timeZone: 'Pacific/Auckland' };
   // 2027-05-01 11:30 UTC is 23:30 on 1 May in Auckland (NZST, UTC+12 in May [memory: NZ daylight time ends in April]),
   // and 12:30 UTC is 00:30 on 2 May there.
-  assert.equal(defaultStartDay(days, new Date('2027-05-01T11:30:00Z'), 'Pacific/Auckland'), '2027-05-01');
-  assert.equal(defaultStartDay(days, new Date('2027-05-01T12:30:00Z'), 'Pacific/Auckland'), '2027-05-02');
+  assert.equal(meetingDayFor(m, new Date('2027-05-01T11:30:00Z')), '2027-05-01');
+  assert.equal(meetingDayFor(m, new Date('2027-05-01T12:30:00Z')), '2027-05-02');
   // Before the meeting: its first day; after it: its last.
-  assert.equal(defaultStartDay(days, new Date('2026-12-03T12:00:00Z'), 'Pacific/Auckland'), '2027-05-01');
-  assert.equal(defaultStartDay(days, new Date('2027-06-01T12:00:00Z'), 'Pacific/Auckland'), '2027-05-02');
+  assert.equal(meetingDayFor(m, new Date('2026-12-03T12:00:00Z')), '2027-05-01');
+  assert.equal(meetingDayFor(m, new Date('2027-06-01T12:00:00Z')), '2027-05-02');
 });
 
 test('the CSV: one header, CRLF lines, quoted cells and no formula in a spreadsheet', () => {
