@@ -2,6 +2,7 @@
 // The organiser's decisions on the start list, per entry and meeting day: let a boat start although the
 // list holds it back, or hold back a boat the list lets start, always with the reason. Append-only: a
 // later decision for the same entry and day replaces the earlier one on the list, which stays in the record.
+// A "may start" covers the holds it saw (holds_seen), not holds that arise after it.
 /** @type {import('sequelize-cli').Migration} */
 module.exports = {
   async up(queryInterface, Sequelize) {
@@ -18,6 +19,9 @@ module.exports = {
           day: { type: DATEONLY, allowNull: false },
           may_start: { type: BOOLEAN, allowNull: false },
           reason: { type: TEXT, allowNull: false },
+          // What held the boat when the decision was made: a "may start" covers those holds only, so a hold
+          // that arises later (an incident's re-inspection, an expired item) holds the boat again.
+          holds_seen: { type: Sequelize.JSONB, allowNull: false, defaultValue: Sequelize.literal(`'[]'::jsonb`) },
           decided_by_id: ref('users'),
           decided_at: { type: DATE, allowNull: false, defaultValue: Sequelize.fn('now') },
         },

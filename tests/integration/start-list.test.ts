@@ -73,7 +73,13 @@ test('each boat may start or is held with every reason, from its state now', asy
   const data = (await res.json()).data as { day: string; days: string[]; rows: Row[]; counts: Record<string, number> };
   assert.equal(data.day, '2027-05-01');
   assert.deepEqual(data.days, ['2027-05-01', '2027-05-02']);
-  assert.deepEqual(rowOf(data.rows, e.clear).verdict, { mayStart: true, holds: [], basis: 'clear', decision: null });
+  assert.deepEqual(rowOf(data.rows, e.clear).verdict, {
+    mayStart: true,
+    holds: [],
+    basis: 'clear',
+    decision: null,
+    newSinceDecision: [],
+  });
   assert.deepEqual(rowOf(data.rows, e.unpaid).verdict.holds, ['Entry fee not paid.']);
   assert.deepEqual(rowOf(data.rows, e.failed).verdict.holds, ['Inspection: does not conform.']);
   const changed = rowOf(data.rows, e.changed).verdict;
@@ -117,6 +123,7 @@ test('the organiser lets a held boat start and holds a clear one, with reasons k
     holds: ['Driver Mere Startline: helmet HM-51: expires on Sat 1 May 2027, past.'],
     basis: 'held',
     decision: null,
+    newSinceDecision: [],
   });
 
   const csv = await list(scrutineer, '?day=2027-05-01&format=csv');
@@ -129,9 +136,45 @@ test('the organiser lets a held boat start and holds a clear one, with reasons k
   const failedLine = lines.find((l) => l.startsWith(`2027-05-01,${e.failed.raceNumber},`))!;
   assert.match(failedLine, /,yes,Inspection: does not conform\.,"?allowed by .*Restrictor fitted/);
 
+  // A hold that arises after the "may start" (a steward orders a re-inspection) holds the boat again.
+  const ordered = await steward.json(`/api/events/${meeting.eventId}/reinspections`, {
+    entryIds: [e.failed.id],
+    reason: 'Protest hearing: measure the nozzle again',
+  });
+  assert.equal(ordered.res.status, 201, JSON.stringify(ordered.body));
+  const after = (await (await list(steward, '?day=2027-05-01')).json()).data as { rows: Row[] };
+  const again = rowOf(after.rows, e.failed).verdict as Row['verdict'] & { newSinceDecision: string[] };
+  assert.equal(again.mayStart, false);
+  assert.equal(again.basis, 'held');
+  assert.deepEqual(again.newSinceDecision, ['Re-inspection required: Protest hearing: measure the nozzle again.']);
+
   // Decisions are append-only in the database.
   await assert.rejects(query(`update start_decisions set may_start = false where entry_id = $1`, [e.failed.id]));
   await assert.rejects(query(`delete from start_decisions where entry_id = $1`, [e.failed.id]));
+});
+
+test('a re-inspection task is answered only by a boat measured after it was opened', async () => {
+  const [task] = await query<{ id: string }>(
+    'select id from reinspections where entry_id = $1 and done_at is null order by created_at desc limit 1',
+    [e.failed.id],
+  );
+  const post = (capturedAt: string) =>
+    scrutineer.json(`/api/events/${meeting.eventId}/inspections`, {
+      ...inspectionBody(e.failed.id, 101.9, { reinspectionId: task.id, capturedAt }),
+      declarationVersion: 1,
+    });
+  // Captured half an hour before the steward ordered it (a phone's clock may be minutes off, not thirty):
+  // the record is kept, the task stays open and the boat stays held for it.
+  const early = await post(new Date(Date.now() - 30 * 60_000).toISOString());
+  assert.equal(early.res.status, 201, JSON.stringify(early.body));
+  const [open] = await query<{ done_at: Date | null }>('select done_at from reinspections where id = $1', [task.id]);
+  assert.equal(open.done_at, null);
+  const now = await post(new Date().toISOString());
+  assert.equal(now.res.status, 201, JSON.stringify(now.body));
+  const [done] = await query<{ inspection_id: string }>('select inspection_id from reinspections where id = $1', [
+    task.id,
+  ]);
+  assert.equal(done.inspection_id, now.body.data.id);
 });
 
 test('bad input is refused by field and stores nothing', async () => {
@@ -164,6 +207,19 @@ test('bad input is refused by field and stores nothing', async () => {
   assert.equal(badDay.status, 400);
   assert.equal((await list(scrutineer, '?class=NOPE')).status, 400);
   assert.equal(Number((await query<{ n: string }>('select count(*) as n from start_decisions'))[0].n), before);
+});
+
+test('an organiser who owns a boat cannot decide on its start', async () => {
+  const own = await meeting.addEntry(classId, { ownerEmail: DEMO.organiser });
+  const r = await meeting.organiser.json(`/api/events/${meeting.eventId}/start-list/decisions`, {
+    entryId: own.id,
+    day: '2027-05-01',
+    mayStart: true,
+    reason: 'my own boat, please',
+  });
+  assert.equal(r.res.status, 403, JSON.stringify(r.body));
+  assert.equal(r.body.error.code, 'own_boat');
+  assert.equal((await query('select id from start_decisions where entry_id = $1', [own.id])).length, 0);
 });
 
 test('an entrant and the scrutineer cannot decide; an entrant cannot read the list', async () => {

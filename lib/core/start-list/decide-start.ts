@@ -22,6 +22,8 @@ export type StartFacts = {
 export type StartDecisionRecord = {
   mayStart: boolean;
   reason: string;
+  /** What held the boat when the decision was made: a "may start" covers these holds only. */
+  holdsSeen: string[];
   decidedBy: string;
   decidedAt: string;
 };
@@ -33,6 +35,8 @@ export type StartVerdict = {
   /** 'clear': nothing holds it; 'held': something does; 'organiser': a recorded decision settles it. */
   basis: 'clear' | 'held' | 'organiser';
   decision: StartDecisionRecord | null;
+  /** Holds that arose after the organiser's "may start" (so it no longer covers the boat). */
+  newSinceDecision: string[];
 };
 
 export function holdsFor(f: StartFacts): string[] {
@@ -42,18 +46,31 @@ export function holdsFor(f: StartFacts): string[] {
   if (f.inspection === 'does_not_conform') holds.push('Inspection: does not conform.');
   if (f.inspection === 'inconclusive')
     holds.push('Inspection: inconclusive, so conformity is not proven (not accepted before a race).');
-  if (f.openReinspections > 0)
-    holds.push(
-      `Re-inspection required${f.reinspectionReason ? `: ${f.reinspectionReason.replace(/\.?$/, '.')}` : '.'}`,
-    );
+  if (f.openReinspections > 0) {
+    // A task's reason may already begin with the words ("Re-inspection required: …").
+    const reason = f.reinspectionReason?.replace(/^re-inspection required[:.]?\s*/i, '').trim();
+    holds.push(`Re-inspection required${reason ? `: ${reason.replace(/\.?$/, '.')}` : '.'}`);
+  }
   holds.push(...f.otherHolds);
   return holds;
 }
 
 export function decideStart(f: StartFacts, decision: StartDecisionRecord | null): StartVerdict {
   const holds = holdsFor(f);
-  if (decision) return { mayStart: decision.mayStart, holds, basis: 'organiser', decision };
-  return { mayStart: holds.length === 0, holds, basis: holds.length ? 'held' : 'clear', decision: null };
+  if (decision) {
+    // A "may start" lets the boat start over what the organiser saw; anything new holds it again until
+    // the organiser decides again. A "held" stands whatever else changes.
+    const newSinceDecision = decision.mayStart ? holds.filter((h) => !decision.holdsSeen.includes(h)) : [];
+    if (newSinceDecision.length) return { mayStart: false, holds, basis: 'held', decision, newSinceDecision };
+    return { mayStart: decision.mayStart, holds, basis: 'organiser', decision, newSinceDecision };
+  }
+  return {
+    mayStart: holds.length === 0,
+    holds,
+    basis: holds.length ? 'held' : 'clear',
+    decision: null,
+    newSinceDecision: [],
+  };
 }
 
 /** The meeting's days (YYYY-MM-DD, inclusive), at most 31. */
@@ -89,7 +106,8 @@ export function startListCsv(day: string, rows: StartListCsvRow[]): string {
       r.verdict.mayStart ? 'yes' : 'no',
       r.verdict.holds.join(' '),
       r.verdict.decision
-        ? `${r.verdict.decision.mayStart ? 'allowed' : 'held'} by ${r.verdict.decision.decidedBy}: ${r.verdict.decision.reason}`
+        ? `${r.verdict.decision.mayStart ? 'allowed' : 'held'} by ${r.verdict.decision.decidedBy}: ${r.verdict.decision.reason}` +
+          (r.verdict.newSinceDecision.length ? ` (no longer covers: ${r.verdict.newSinceDecision.join(' ')})` : '')
         : '',
     ]
       .map(csvCell)

@@ -18,7 +18,13 @@ const clear: StartFacts = {
 };
 
 test('a paid entry whose current inspection conforms, with nothing open, may start', () => {
-  assert.deepEqual(decideStart(clear, null), { mayStart: true, holds: [], basis: 'clear', decision: null });
+  assert.deepEqual(decideStart(clear, null), {
+    mayStart: true,
+    holds: [],
+    basis: 'clear',
+    decision: null,
+    newSinceDecision: [],
+  });
 });
 
 test('each hold is named, all of them at once', () => {
@@ -46,14 +52,45 @@ test('each hold is named, all of them at once', () => {
 });
 
 test('the organiser’s recorded decision settles the row either way, and the holds stay shown', () => {
-  const decision = { mayStart: true, reason: 'Helmet replaced, seen at the start', decidedBy: 'Org', decidedAt: 'x' };
+  const decision = {
+    mayStart: true,
+    reason: 'Helmet replaced, seen at the start',
+    decidedBy: 'Org',
+    decidedAt: 'x',
+    holdsSeen: ['Helmet expired.'],
+  };
   const allowed = decideStart({ ...clear, otherHolds: ['Helmet expired.'] }, decision);
   assert.equal(allowed.mayStart, true);
   assert.equal(allowed.basis, 'organiser');
   assert.deepEqual(allowed.holds, ['Helmet expired.']);
+  assert.deepEqual(allowed.newSinceDecision, []);
   const held = decideStart(clear, { ...decision, mayStart: false, reason: 'Hull seen leaking at the crane' });
   assert.equal(held.mayStart, false);
   assert.equal(held.basis, 'organiser');
+});
+
+test('a “may start” covers the holds the organiser saw, not one that arises after it; a “held” stands', () => {
+  const decision = {
+    mayStart: true,
+    reason: 'Helmet replaced, seen at the start',
+    decidedBy: 'Org',
+    decidedAt: 'x',
+    holdsSeen: ['Helmet expired.'],
+  };
+  const later = decideStart(
+    {
+      ...clear,
+      otherHolds: ['Helmet expired.'],
+      openReinspections: 1,
+      reinspectionReason: 'Re-inspection required: hull split',
+    },
+    decision,
+  );
+  assert.equal(later.mayStart, false);
+  assert.equal(later.basis, 'held');
+  assert.deepEqual(later.newSinceDecision, ['Re-inspection required: hull split.']);
+  const cleared = decideStart(clear, { ...decision, mayStart: false, reason: 'Hull seen leaking', holdsSeen: [] });
+  assert.equal(cleared.mayStart, false);
 });
 
 test('the meeting days are inclusive and cross month ends; the list opens on today in the meeting’s zone', () => {

@@ -135,6 +135,11 @@ export default async function StartListPage({
                         {r.verdict.decision.decidedBy}, {formatTime(r.verdict.decision.decidedAt, list.timeZone)})
                       </p>
                     )}
+                    {r.verdict.newSinceDecision.length > 0 && (
+                      <p className="text-sm font-bold">
+                        New since the organiser’s decision, so held again: {r.verdict.newSinceDecision.join(' ')}
+                      </p>
+                    )}
                     {r.verdict.basis === 'clear' && <span className="text-ink-soft">Nothing holds it.</span>}
                   </td>
                 </tr>
