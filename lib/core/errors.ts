@@ -51,6 +51,15 @@ export function isDatabaseDown(err: unknown): boolean {
   );
 }
 
+/**
+ * Two writers crossed and PostgreSQL gave way on one of them (deadlock_detected 40P01, serialization_failure
+ * 40001; PostgreSQL's error codes, Appendix A): nothing of that request was stored, and sending it again works.
+ */
+export function isCrossedWrite(err: unknown): boolean {
+  const e = err as { parent?: { code?: string }; original?: { code?: string }; code?: string } | null;
+  return ['40P01', '40001'].includes(e?.parent?.code ?? e?.original?.code ?? e?.code ?? '');
+}
+
 export type ErrorAnswerOptions = {
   /** The request's id (scripts/server.mjs): carried in the answer, so a report can be matched to the log. */
   requestId?: string | null;
@@ -107,6 +116,15 @@ export function toErrorResponse(err: unknown, options: ErrorAnswerOptions = {}):
   } else if (err instanceof SyntaxError) {
     status = 400;
     body = { error: { code: 'invalid_json', message: 'The request body is not valid JSON.' } };
+  } else if (isCrossedWrite(err)) {
+    status = 409;
+    headers['Retry-After'] = '1';
+    body = {
+      error: {
+        code: 'crossed_write',
+        message: 'Another change to the same record crossed this one, so nothing was stored: send it again.',
+      },
+    };
   } else if (isDatabaseDown(err)) {
     status = 503;
     headers['Retry-After'] = '5';

@@ -187,6 +187,33 @@ test('a correction supersedes and keeps the original; both are in the history; t
   assert.equal(history.length, 2);
   assert.equal(history.find((h) => h.id === original.body.data.id)?.supersededById, fix.body.data.id);
   assert.equal(history.find((h) => h.id === fix.body.data.id)?.supersedesId, original.body.data.id);
+
+  // A second correction of the same record would fork the history: refused, nothing stored; the way on is to
+  // correct the correction. Two at once: the unique index keeps one.
+  const second = await post(
+    scrutineer,
+    inspectionBody(e.id, 101.94, { supersedesId: original.body.data.id, correctionReason: 'again' }),
+  );
+  assert.equal(second.res.status, 409, JSON.stringify(second.body));
+  assert.equal(second.body.error.code, 'already_corrected');
+  const onward = await post(
+    scrutineer,
+    inspectionBody(e.id, 101.95, { supersedesId: fix.body.data.id, correctionReason: 'reading 2 again: 101.95' }),
+  );
+  assert.equal(onward.res.status, 201, JSON.stringify(onward.body));
+  const racing = await Promise.all(
+    [101.96, 101.97].map((mm) =>
+      post(
+        scrutineer,
+        inspectionBody(e.id, mm, { supersedesId: onward.body.data.id, correctionReason: 'both at once' }),
+      ),
+    ),
+  );
+  assert.deepEqual(racing.map((r) => r.res.status).sort(), [201, 409]);
+  const [{ n }] = await query<{ n: string }>('select count(*) as n from inspections where supersedes_id = $1', [
+    onward.body.data.id,
+  ]);
+  assert.equal(Number(n), 1);
 });
 
 test('no API path edits or deletes a record (405), and the database refuses an update or delete', async () => {

@@ -79,6 +79,13 @@ async function findInstrument(
   return withCertificateFigures(toInstrumentFigures(i), calibration.certificate);
 }
 
+const alreadyCorrected = () =>
+  new AppError(
+    'already_corrected',
+    409,
+    'This record was already corrected: correct the correction (the newest record in its history) instead.',
+  );
+
 /** The stored record for a key; a key used at another meeting is a conflict, never a leak. */
 async function findByKey(eventId: string, key: string): Promise<InspectionView | null> {
   const [found] = await loadInspectionViews('i.idempotency_key = :key', { key });
@@ -121,11 +128,18 @@ const INSERT_COLUMNS = `event_id, entry_id, boat_id, class_id, rule_version_id, 
 const INSERT_VALUES = `:eventId, locked.id, :boatId, :classId, :ruleVersionId, :kind, :recordedById, :device, :idempotencyKey,
   :capturedAt, :supersedesId, :correctionReason, :reinspectionId, :measurements::jsonb, :results::jsonb, :overall, :notes`;
 
+// A task is answered only by a boat measured after the task was opened: a record captured before the
+// damage or the new declaration (or a correction restating an earlier measurement) cannot settle it. Five
+// minutes allow for a phone's clock running behind the server's. :measuredAt is the record's capture time,
+// or for a correction the capture time of the record it restates.
+const MEASURED_AFTER_TASK = `created_at <= cast(:measuredAt as timestamptz) + interval '5 minutes'`;
+
 // A record of the version a declaration-change task asked about (or later) settles that task.
 const settleAskedSql = `update reinspections r set done_at = now(), inspection_id = :id, updated_at = now()
      from boat_declaration_versions asked, boat_declaration_versions seen
     where r.entry_id = :entryId and r.done_at is null and asked.id = r.declaration_version_id
-      and seen.id = :declarationVersionId and asked.boat_id = seen.boat_id and asked.version <= seen.version`;
+      and seen.id = :declarationVersionId and asked.boat_id = seen.boat_id and asked.version <= seen.version
+      and r.${MEASURED_AFTER_TASK}`;
 
 type NewRecordRow = Record<string, unknown> & { entryId: string; boatId: string; reinspectionId: string | null };
 type Inserted = { id: string; receivedAt: Date; declarationVersionId: string };
@@ -160,11 +174,13 @@ async function writeInOneTrip(
      settled as (${settleAskedSql} and exists (select 1 from inserted) returning r.id),
      task as (
        update reinspections set inspection_id = :id, done_at = now(), updated_at = now()
-        where id = :reinspectionId and done_at is null and exists (select 1 from inserted) and id not in (select id from settled)),
+        where id = :reinspectionId and done_at is null and exists (select 1 from inserted) and id not in (select id from settled)
+          and ${MEASURED_AFTER_TASK}),
      mail as (${outboxInsertSql('outboxMail')} where exists (select 1 from inserted))
      select id, received_at as "receivedAt", declaration_version_id as "declarationVersionId" from inserted`,
     {
-      replacements: { ...row, id, declarationVersionId, shownVersion, outboxMail: mail },
+      // No correction takes this path, so the boat was measured at the record's capture time.
+      replacements: { ...row, id, declarationVersionId, shownVersion, outboxMail: mail, measuredAt: row.capturedAt },
       type: QueryTypes.SELECT,
     },
   );
@@ -211,6 +227,13 @@ export async function recordInspection(
     : undefined;
   if (key.success && (!entry || entry.keyEventId)) {
     const existing = await findByKey(eventId, key.data.toLowerCase());
+    // The same key for another boat is not a resend: answering with the first boat's record would drop this one.
+    if (existing && entryGuess.success && existing.entryId !== entryGuess.data.toLowerCase())
+      throw new AppError(
+        'key_in_use',
+        409,
+        'This record key was already used for another boat’s record: nothing was recorded. Make a new record.',
+      );
     if (existing) return { inspection: existing, created: false };
   }
   const input = RecordInspectionInput.parse(raw);
@@ -246,6 +269,9 @@ export async function recordInspection(
   if (input.supersedesId) {
     const original = await models.Inspection.findOne({ where: { id: input.supersedesId, entryId: entry.id } });
     if (!original) throw fieldError('supersedesId', 'Only an earlier record of the same entry can be corrected.');
+    // One correction per record: a second would fork the history (correct the correction instead).
+    const correction = await models.Inspection.findOne({ where: { supersedesId: original.id }, attributes: ['id'] });
+    if (correction) throw alreadyCorrected();
     // A correction restates that inspection, so it is decided under the rules in force then.
     measuredAt = original.capturedAt;
     isProtestCorrection = original.kind === 'protest';
@@ -356,12 +382,13 @@ export async function recordInspection(
     (await writeInOneTrip(row, { declarationVersionId: entry.latestDeclarationVersionId, shownVersion, mail }));
   const inserted =
     oneTrip ||
-    (await sequelize.transaction(async (transaction) => {
-      // One writer per entry at a time, so the entry's result always reflects every committed record:
-      // the insert first takes the entry's row lock (in the same statement, one round trip fewer), and
-      // the update below starts after it, so it sees every record committed before the lock was granted.
-      const rows = await sequelize.query<Inserted>(
-        `with locked as (select id from entries where id = :entryId for update)
+    (await sequelize
+      .transaction(async (transaction) => {
+        // One writer per entry at a time, so the entry's result always reflects every committed record:
+        // the insert first takes the entry's row lock (in the same statement, one round trip fewer), and
+        // the update below starts after it, so it sees every record committed before the lock was granted.
+        const rows = await sequelize.query<Inserted>(
+          `with locked as (select id from entries where id = :entryId for update)
        insert into inspections (${INSERT_COLUMNS}, declaration_version_id)
        select ${INSERT_VALUES},
               -- The version the dock showed (checked above to be the latest), else (an older client) the version in
@@ -373,33 +400,33 @@ export async function recordInspection(
          from locked
        on conflict (idempotency_key) do nothing
        returning id, received_at as "receivedAt", declaration_version_id as "declarationVersionId"`,
-        {
-          replacements: {
-            ...row,
-            measuredAt,
-            // A correction restates an earlier inspection: it pins the version in force then, as before.
-            shownVersion: input.supersedesId ? null : shownVersion,
+          {
+            replacements: {
+              ...row,
+              measuredAt,
+              // A correction restates an earlier inspection: it pins the version in force then, as before.
+              shownVersion: input.supersedesId ? null : shownVersion,
+            },
+            type: QueryTypes.SELECT,
+            transaction,
           },
-          type: QueryTypes.SELECT,
+        );
+        if (rows.length === 0) return null; // the same key committed a moment ago by a parallel request
+        const { id } = rows[0];
+        // The seal events belong to this record: written here, so a replay (no row inserted above) writes none.
+        await writeInspectionSealEvents(
+          sealPlan,
+          { inspectionId: id, eventId, boatId: entry.boatId, recordedById: actor.id },
           transaction,
-        },
-      );
-      if (rows.length === 0) return null; // the same key committed a moment ago by a parallel request
-      const { id } = rows[0];
-      // The seal events belong to this record: written here, so a replay (no row inserted above) writes none.
-      await writeInspectionSealEvents(
-        sealPlan,
-        { inspectionId: id, eventId, boatId: entry.boatId, recordedById: actor.id },
-        transaction,
-      );
-      const replacements = { id, entryId: entry.id, declarationVersionId: rows[0].declarationVersionId };
-      // What follows the insert, in one statement (one round trip per record, not four), on one snapshot
-      // that includes the insert above: inspections are never updated, so the entry carries the current
-      // record's result for quick reading; the entrant's result mail is queued (sent by the outbox worker,
-      // so a rolled-back record sends nothing); and when the record checked the boat's latest declaration
-      // (nearly always), the tasks it answers are settled here too.
-      const [latestVersion] = await sequelize.query<{ id: string }>(
-        `with ${currentInspectionCte('entry')},
+        );
+        const replacements = { id, entryId: entry.id, declarationVersionId: rows[0].declarationVersionId, measuredAt };
+        // What follows the insert, in one statement (one round trip per record, not four), on one snapshot
+        // that includes the insert above: inspections are never updated, so the entry carries the current
+        // record's result for quick reading; the entrant's result mail is queued (sent by the outbox worker,
+        // so a rolled-back record sends nothing); and when the record checked the boat's latest declaration
+        // (nearly always), the tasks it answers are settled here too.
+        const [latestVersion] = await sequelize.query<{ id: string }>(
+          `with ${currentInspectionCte('entry')},
        latest as (select d.id from boat_declaration_versions d where d.boat_id = :boatId order by d.version desc limit 1),
        entry_result as (
          -- By primary key: a join let the planner scan every meeting's inspections for this one row.
@@ -410,42 +437,50 @@ export async function recordInspection(
        task as (
          update reinspections set inspection_id = :id, done_at = now(), updated_at = now()
           where id = :reinspectionId and done_at is null and exists (select 1 from latest where latest.id = :declarationVersionId)
+            and ${MEASURED_AFTER_TASK}
             and id not in (select id from settled)),
        mail as (${outboxInsertSql('outboxMail')})
        select id from latest`,
-        {
-          replacements: {
-            ...replacements,
-            boatId: entry.boatId,
-            reinspectionId: input.reinspectionId,
-            outboxMail: mail,
+          {
+            replacements: {
+              ...replacements,
+              boatId: entry.boatId,
+              reinspectionId: input.reinspectionId,
+              outboxMail: mail,
+            },
+            type: QueryTypes.SELECT,
+            transaction,
           },
-          type: QueryTypes.SELECT,
-          transaction,
-        },
-      );
-      // A record of a version already replaced (it waited offline, or crossed an edit) does not count:
-      // the entry is marked for re-inspection with what changed since, as the owner's edit would have
-      // (the chief scrutineers' mail queued with it), and only then are tasks settled, in that order.
-      if (latestVersion && latestVersion.id !== rows[0].declarationVersionId) {
-        const newer = await models.BoatDeclarationVersion.findByPk(latestVersion.id, { transaction });
-        const latest = {
-          ...pickDeclaration(newer as unknown as DeclarationFields),
-          id: newer!.id,
-          version: newer!.version,
-        };
-        const flagged = await flagInspectedEntries(actor.id, latest, transaction);
-        await mailChiefScrutineers(entry.boatName, flagged, transaction);
-        await sequelize.query(settleAskedSql, { replacements, transaction });
-        if (input.reinspectionId) {
-          await models.Reinspection.update(
-            { inspectionId: id, doneAt: new Date() },
-            { where: { id: input.reinspectionId, doneAt: null }, transaction },
-          );
+        );
+        // A record of a version already replaced (it waited offline, or crossed an edit) does not count:
+        // the entry is marked for re-inspection with what changed since, as the owner's edit would have
+        // (the chief scrutineers' mail queued with it), and only then are tasks settled, in that order.
+        if (latestVersion && latestVersion.id !== rows[0].declarationVersionId) {
+          const newer = await models.BoatDeclarationVersion.findByPk(latestVersion.id, { transaction });
+          const latest = {
+            ...pickDeclaration(newer as unknown as DeclarationFields),
+            id: newer!.id,
+            version: newer!.version,
+          };
+          const flagged = await flagInspectedEntries(actor.id, latest, transaction);
+          await mailChiefScrutineers(entry.boatName, flagged, transaction);
+          await sequelize.query(settleAskedSql, { replacements, transaction });
+          if (input.reinspectionId) {
+            await sequelize.query(
+              `update reinspections set inspection_id = :id, done_at = now(), updated_at = now()
+              where id = :reinspectionId and done_at is null and ${MEASURED_AFTER_TASK}`,
+              { replacements: { ...replacements, reinspectionId: input.reinspectionId }, transaction },
+            );
+          }
         }
-      }
-      return rows[0];
-    }));
+        return rows[0];
+      })
+      .catch((err: unknown) => {
+        // Two corrections of one record at the same moment: the unique index keeps the first.
+        const pg = (err as { parent?: { code?: string; constraint?: string } }).parent;
+        if (pg?.code === '23505' && pg.constraint === 'inspections_supersedes_id') throw alreadyCorrected();
+        throw err;
+      }));
 
   if (!inserted) {
     const existing = await findByKey(eventId, idempotencyKey);

@@ -102,7 +102,8 @@ export async function sendQueued(record: QueuedRecord): Promise<QueuedRecord> {
   let r: QueuedRecord = { ...record, attempts: record.attempts + 1, lastTriedAt: now };
   if (!r.inspectionId) {
     const answer = await ask(`/api/events/${r.eventId}/inspections`, r.payload, (status) => `Refused (${status}).`);
-    if (!answer || isTransient(answer.status)) {
+    // A write that crossed another (409 crossed_write: nothing stored) goes again with the same key.
+    if (!answer || isTransient(answer.status) || (!answer.ok && answer.code === 'crossed_write')) {
       r.message = !answer
         ? 'No connection: it will be sent when the signal returns.'
         : answer.status === 401
@@ -140,7 +141,8 @@ export async function sendQueued(record: QueuedRecord): Promise<QueuedRecord> {
     const answer = await ask(`/api/events/${r.eventId}/inspections/${r.inspectionId}/photos`, form, (status) =>
       String(status),
     );
-    if (!answer || isTransient(answer.status)) {
+    // A write that crossed another (409 crossed_write: nothing stored) goes again with the same key.
+    if (!answer || isTransient(answer.status) || (!answer.ok && answer.code === 'crossed_write')) {
       r.message = 'Record stored; photos will follow when the signal returns.';
       await putQueued(r);
       return r;

@@ -1,6 +1,7 @@
 // POST|GET /api/events/:eventId/inspections: record an inspection (201, or 200 for a repeated key); the board (?class=&result=).
 import { actorHandler, readJson } from '@/lib/server/http/handler';
 import { parseId } from '@/lib/server/http/ids';
+import { assertCan } from '@/lib/server/auth/actor';
 import { recordInspection } from '@/lib/server/inspections/record-inspection';
 import { listInspectionBoard } from '@/lib/server/inspections/list-inspection-board';
 import { refuseChange } from '@/lib/server/inspections/refuse-change';
@@ -12,12 +13,10 @@ type P = { eventId: string };
 
 export const POST = actorHandler<P>(async (req, { actor, params }) => {
   const { inspectionRecords } = metrics();
+  const eventId = parseId(params.eventId, 'event');
+  assertCan(actor, 'inspection.record', { eventId }); // before reading a body at all
   try {
-    const { inspection, created } = await recordInspection(
-      actor,
-      parseId(params.eventId, 'event'),
-      await readJson(req),
-    );
+    const { inspection, created } = await recordInspection(actor, eventId, await readJson(req));
     // "replayed": the same idempotency key again (a phone resending from its queue after a lost answer).
     inspectionRecords.inc({ outcome: created ? 'created' : 'replayed' });
     // Sent uncompressed (no-transform stops Next.js's gzip): a record's answer is about 4 KB, 1.3 KB gzipped,
