@@ -25,7 +25,9 @@ module.exports = {
         },
         { transaction },
       );
-      await q(`create unique index crew_sign_ons_once_a_day on crew_sign_ons (crew_member_id, meeting_day)`);
+      // Once a day per person as they read then: a record whose person was replaced (another name or licence)
+      // is signed on afresh, and the earlier sign-on no longer counts for it (lib/core/crew/assess-crew.ts).
+      await q(`create unique index crew_sign_ons_once_a_day on crew_sign_ons (crew_member_id, meeting_day, name, coalesce(licence_number, ''))`);
       await q(`create index crew_sign_ons_entry_day on crew_sign_ons (entry_id, meeting_day)`);
       await q(`create trigger crew_sign_ons_append_only before update or delete on crew_sign_ons
         for each row execute function boreline_append_only();`);

@@ -131,8 +131,9 @@ test('results published → entrant lodges and pays → photo evidence intact �
   ]);
   assert.equal(task.entry_id, target.id, 'the task is for the protested boat and names the protest');
   await screenshot(sp, 'protest-05-steward-accepted');
-  // A hearing set for tomorrow: deciding before it asks once for confirmation.
-  const tomorrow = new Date(Date.now() + 86_400_000).toISOString().slice(0, 10);
+  // A hearing set for the day after tomorrow (the form reads the time in the meeting's zone, up to 14 hours
+  // ahead of UTC, so "tomorrow" by UTC's date can already be past there): deciding before it asks once for confirmation.
+  const tomorrow = new Date(Date.now() + 2 * 86_400_000).toISOString().slice(0, 10);
   await sp.getByLabel(/^Date and time/).fill(`${tomorrow}T10:00`);
   await sp.getByLabel('Place').fill('Clubhouse meeting room');
   await sp.getByRole('button', { name: 'Schedule and tell the parties' }).click();

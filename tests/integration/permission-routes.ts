@@ -199,7 +199,7 @@ export const ROUTES: Row[] = [
     method: 'GET',
     file: 'app/api/entries/[entryId]/crew/route.ts',
     path: (i) => `/api/entries/${i.entryId}/crew`,
-    access: { custom: ['entrantOwn', 'scrutineer', 'steward', 'organiser'] },
+    access: { ownerOr: ['entry.view_all', 'inspection.board'] },
   },
   {
     method: 'PUT',

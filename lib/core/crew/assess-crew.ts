@@ -124,7 +124,15 @@ export type CrewAssessment = {
   signedOn: string[];
 };
 
-export type SignOnFacts = { crewMemberId: string; meetingDay: string };
+/** A day's sign-on, with the person as they read when signed on (name, licence number). */
+export type SignOnFacts = { crewMemberId: string; meetingDay: string; name?: string; licenceNumber?: string | null };
+
+/** A sign-on counts for the person signed on: the same record, still reading the same name and licence. */
+export const signOnMatches = (s: SignOnFacts, m: CrewMemberFacts, day: string) =>
+  s.crewMemberId === m.id &&
+  s.meetingDay === day &&
+  (s.name === undefined || s.name === m.name) &&
+  (s.licenceNumber === undefined || s.licenceNumber === (m.licence?.number ?? null));
 
 /** The calendar day of an instant in a time zone. */
 export function dayInZone(instant: Date | string | number, timeZone: string): string {
@@ -208,7 +216,8 @@ export function assessCrew(
     const who = `${CREW_ROLE_LABELS[m.role]} ${m.name}`;
     if (!m.licence) add('licence_missing', `${who}: no licence recorded.`, 'finding', m.id);
     else {
-      dated(`${who}: licence ${m.licence.number}`, m.licence.expiresOn, 'licence_expired', m.id);
+      // The number stays off the finding: findings reach the start list and the timing system's CSV.
+      dated(`${who}: licence`, m.licence.expiresOn, 'licence_expired', m.id);
       if (accepted.length > 0 && !accepted.includes(normGrade(m.licence.grade)))
         add(
           'licence_grade',
@@ -257,6 +266,30 @@ export function assessCrew(
   for (const m of members) for (const g of m.gear) judgeItem(g, `${CREW_ROLE_LABELS[m.role]} ${m.name}`);
   for (const g of boatGear) judgeItem(g, null);
 
+  // What the dock found wrong today stands until the dock confirms that kind of item again: an item the
+  // entrant edited, or removed and declared anew, after a "not presented" or "not as declared" check does
+  // not clear the finding by itself (the officials must see it).
+  const latestToday = new Map<string, GearCheckFacts>();
+  for (const c of checks) {
+    if (c.meetingDay !== day) continue;
+    const known = latestToday.get(c.gearItemId);
+    if (!known || known.checkedAt < c.checkedAt) latestToday.set(c.gearItemId, c);
+  }
+  for (const c of latestToday.values()) {
+    if (c.outcome === 'confirmed') continue;
+    const still = gear.find((g) => g.id === c.gearItemId);
+    if (still && still.dock === c.outcome) continue; // the item reads the same: its finding is above
+    const seenAgain = gear.some(
+      (g) => g.kind === c.kind && g.dock === 'confirmed' && g.checkedAt !== null && g.checkedAt > c.checkedAt,
+    );
+    if (seenAgain) continue;
+    const label = GEAR_KIND_LABELS[c.kind as keyof typeof GEAR_KIND_LABELS]?.toLowerCase() ?? c.kind;
+    add(
+      c.outcome === 'not_presented' ? 'gear_not_presented' : 'gear_not_as_declared',
+      `${label} ${c.serial}: ${c.outcome === 'not_presented' ? 'not presented' : 'not as declared'} at the dock today, and changed on the entry since: present it to the dock again.`,
+    );
+  }
+
   const required = GEAR_KINDS.filter((k) => req.requiredSafetyItems.includes(k));
   for (const kind of required) {
     const label = GEAR_KIND_LABELS[kind].toLowerCase();
@@ -267,8 +300,6 @@ export function assessCrew(
     } else if ((BOAT_GEAR_KINDS as readonly string[]).includes(kind) && !boatGear.some((g) => g.kind === kind))
       add('gear_missing', `Boat: no ${label} declared (the class requires one).`);
   }
-  const signedOn = members
-    .filter((m) => signOns.some((s) => s.crewMemberId === m.id && s.meetingDay === day))
-    .map((m) => m.id);
+  const signedOn = members.filter((m) => signOns.some((s) => signOnMatches(s, m, day))).map((m) => m.id);
   return { day, findings, gear, isInOrder: !findings.some((f) => f.severity === 'finding'), signedOn };
 }

@@ -3,8 +3,10 @@ import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { can, type Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
+import { formatCalendarDate } from '@/lib/core/format/time';
 import {
   assessCrew,
+  dayInZone,
   type CrewAssessment,
   type CrewMemberFacts,
   type CrewRequirements,
@@ -94,7 +96,8 @@ export async function loadCrewFacts(entryIds: readonly string[]): Promise<Map<st
            'outcome', k.outcome, 'kind', k.kind, 'serial', k.serial, 'standard', k.standard, 'dueOn', ${day('k.due_on')},
            'checkedAt', k.checked_at, 'note', k.note) order by k.checked_at)
          from gear_checks k where k.entry_id = e.id), '[]') as checks,
-       coalesce((select json_agg(json_build_object('crewMemberId', s.crew_member_id, 'meetingDay', ${day('s.meeting_day')}))
+       coalesce((select json_agg(json_build_object('crewMemberId', s.crew_member_id, 'meetingDay', ${day('s.meeting_day')},
+           'name', s.name, 'licenceNumber', s.licence_number))
          from crew_sign_ons s where s.entry_id = e.id), '[]') as "signOns"
      from entries e where e.id in (:entryIds)`,
     { replacements: { entryIds }, type: QueryTypes.SELECT },
@@ -177,3 +180,28 @@ export async function buildEntryCrewView(entry: EntryContext, now = new Date()):
 }
 
 export const notFoundEntry = () => new AppError('not_found', 404, 'No such entry.');
+
+/**
+ * The entry a dock official acts on today (gear checks, crew sign-on): it must be at this meeting, not
+ * entered or owned by the official, and today (in the meeting's zone) must be one of the meeting's days.
+ */
+export async function entryForDockToday(
+  actor: Actor,
+  eventId: string,
+  entryId: string,
+  now: Date,
+  words: { ownBoat: string; notMeetingDay: string },
+): Promise<{ entry: EntryContext; day: string }> {
+  const entry = await loadEntryContext(entryId.toLowerCase());
+  if (!entry || entry.eventId !== eventId) throw new AppError('not_found', 404, 'No such boat at this meeting.');
+  if (entry.entrantId === actor.id || entry.boatOwnerId === actor.id)
+    throw new AppError('forbidden', 403, words.ownBoat);
+  const day = dayInZone(now, entry.timeZone);
+  if (day < entry.startsOn || day > entry.endsOn)
+    throw new AppError(
+      'not_a_meeting_day',
+      409,
+      `${words.notMeetingDay}: this meeting runs ${formatCalendarDate(entry.startsOn)} to ${formatCalendarDate(entry.endsOn)} (${entry.timeZone}).`,
+    );
+  return { entry, day };
+}

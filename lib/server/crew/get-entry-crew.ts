@@ -1,6 +1,5 @@
 import 'server-only';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
-import { AppError } from '@/lib/core/errors';
 import { parseId } from '@/lib/server/http/ids';
 import { buildEntryCrewView, loadEntryContext, mayReadCrew, notFoundEntry, type EntryCrewView } from './crew-data';
 
@@ -18,6 +17,7 @@ export async function getEntryCrew(
   const id = parseId(entryId, 'entry');
   const entry = await loadEntryContext(id);
   if (!entry || (eventId && entry.eventId !== eventId)) throw notFoundEntry();
-  if (!mayReadCrew(actor, entry)) throw new AppError('forbidden', 403, 'You are not allowed to see this entry’s crew.');
+  // Anyone else gets the answer a missing entry gets: the entry's existence is not theirs to learn.
+  if (!mayReadCrew(actor, entry)) throw notFoundEntry();
   return buildEntryCrewView(entry);
 }

@@ -5,9 +5,8 @@ import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError, type FieldIssue } from '@/lib/core/errors';
 import { parseId } from '@/lib/server/http/ids';
 import { SignOnCrewInput } from '@/lib/core/inputs/crew';
-import { dayInZone, PERSON_FINDINGS } from '@/lib/core/crew/assess-crew';
-import { formatCalendarDate } from '@/lib/core/format/time';
-import { buildEntryCrewView, loadEntryContext, type EntryCrewView } from './crew-data';
+import { PERSON_FINDINGS } from '@/lib/core/crew/assess-crew';
+import { buildEntryCrewView, entryForDockToday, type EntryCrewView } from './crew-data';
 
 /**
  * An official of the meeting signs people of an entry on for today (the meeting's calendar day in its
@@ -23,17 +22,10 @@ export async function signOnCrew(
   const evId = parseId(eventId, 'meeting');
   assertCan(actor, 'inspection.record', { eventId: evId });
   const input = SignOnCrewInput.parse(await readInput());
-  const entry = await loadEntryContext(input.entryId.toLowerCase());
-  if (!entry || entry.eventId !== evId) throw new AppError('not_found', 404, 'No such boat at this meeting.');
-  if (entry.entrantId === actor.id || entry.boatOwnerId === actor.id)
-    throw new AppError('forbidden', 403, 'You entered or own this boat: another official must sign its crew on.');
-  const day = dayInZone(now, entry.timeZone);
-  if (day < entry.startsOn || day > entry.endsOn)
-    throw new AppError(
-      'not_a_meeting_day',
-      409,
-      `Crews sign on on a meeting day: this meeting runs ${formatCalendarDate(entry.startsOn)} to ${formatCalendarDate(entry.endsOn)} (${entry.timeZone}).`,
-    );
+  const { entry, day } = await entryForDockToday(actor, evId, input.entryId, now, {
+    ownBoat: 'You entered or own this boat: another official must sign its crew on.',
+    notMeetingDay: 'Crews sign on on a meeting day',
+  });
   const view = await buildEntryCrewView(entry, now);
   const ids = input.crewMemberIds.map((i) => i.toLowerCase());
   const unknown: FieldIssue[] = ids
@@ -58,7 +50,7 @@ export async function signOnCrew(
     `insert into crew_sign_ons (event_id, entry_id, crew_member_id, meeting_day, role, name, licence_number, signed_on_by_id, signed_on_at)
      select :eventId, :entryId, m.id, :day, m.role, m.name, m.licence_number, :actorId, :now
        from entry_crew_members m where m.entry_id = :entryId and m.id in (:ids)
-     on conflict (crew_member_id, meeting_day) do nothing`,
+     on conflict (crew_member_id, meeting_day, name, coalesce(licence_number, '')) do nothing`,
     { replacements: { eventId: evId, entryId: entry.id, day, actorId: actor.id, now, ids }, type: QueryTypes.INSERT },
   );
   return buildEntryCrewView(entry, now);

@@ -5,9 +5,7 @@ import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError, type FieldIssue } from '@/lib/core/errors';
 import { parseId } from '@/lib/server/http/ids';
 import { RecordGearChecksInput } from '@/lib/core/inputs/crew';
-import { dayInZone } from '@/lib/core/crew/assess-crew';
-import { formatCalendarDate } from '@/lib/core/format/time';
-import { buildEntryCrewView, loadEntryContext, type EntryCrewView } from '@/lib/server/crew/crew-data';
+import { buildEntryCrewView, entryForDockToday, type EntryCrewView } from '@/lib/server/crew/crew-data';
 
 /**
  * A scrutineer of the meeting records what they saw of an entry's gear today (the meeting's calendar
@@ -24,17 +22,10 @@ export async function recordGearChecks(
   const evId = parseId(eventId, 'meeting');
   assertCan(actor, 'inspection.record', { eventId: evId });
   const input = RecordGearChecksInput.parse(await readInput());
-  const entry = await loadEntryContext(input.entryId.toLowerCase());
-  if (!entry || entry.eventId !== evId) throw new AppError('not_found', 404, 'No such boat at this meeting.');
-  if (entry.entrantId === actor.id || entry.boatOwnerId === actor.id)
-    throw new AppError('forbidden', 403, 'You entered or own this boat: another scrutineer must check its gear.');
-  const day = dayInZone(now, entry.timeZone);
-  if (day < entry.startsOn || day > entry.endsOn)
-    throw new AppError(
-      'not_a_meeting_day',
-      409,
-      `Gear is confirmed on a meeting day: this meeting runs ${formatCalendarDate(entry.startsOn)} to ${formatCalendarDate(entry.endsOn)} (${entry.timeZone}).`,
-    );
+  const { entry, day } = await entryForDockToday(actor, evId, input.entryId, now, {
+    ownBoat: 'You entered or own this boat: another scrutineer must check its gear.',
+    notMeetingDay: 'Gear is confirmed on a meeting day',
+  });
   const { sequelize, models } = getDb();
   const items = await sequelize.query<{ id: string; kind: string; standard: string; serial: string; dueOn: string }>(
     `select id, kind, standard, serial, to_char(due_on, 'YYYY-MM-DD') as "dueOn" from entry_gear_items where entry_id = :entryId`,

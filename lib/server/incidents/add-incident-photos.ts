@@ -27,8 +27,13 @@ export async function addIncidentPhotos(
 ): Promise<IncidentPhotoView[]> {
   assertCan(actor, 'incident.record', { eventId });
   const { models } = getDb();
-  const incident = await models.Incident.findOne({ where: { id: incidentId, eventId }, attributes: ['id'] });
+  const incident = await models.Incident.findOne({ where: { id: incidentId, eventId }, attributes: ['id', 'entryId'] });
   if (!incident) throw new AppError('not_found', 404, 'No such incident at this meeting.');
+  // As for recording the incident: nobody adds evidence about a boat they entered or own.
+  const entry = await models.Entry.findByPk(incident.entryId, { attributes: ['entrantId', 'boatId'] });
+  const boat = entry && (await models.Boat.findByPk(entry.boatId, { attributes: ['ownerId'] }));
+  if (entry?.entrantId === actor.id || boat?.ownerId === actor.id)
+    throw new AppError('own_boat', 403, 'You cannot add photos to an incident of a boat you entered or own.');
   const checked: { photo: (typeof photos)[number]; file: InspectedUpload }[] = photos.map((photo, i) => {
     try {
       return {

@@ -33,14 +33,20 @@ export async function recordArrival(actor: Actor | null, eventId: string, raw: u
   if (arrivedAt.getTime() > now + FUTURE_SLACK_MS || arrivedAt.getTime() < now - PAST_LIMIT_MS)
     throw fieldError('arrivedAt', 'The arrival time is not plausible: check the phone’s clock.');
   const { models, sequelize } = getDb();
-  const event = await models.Event.findByPk(eventId, { attributes: ['timeZone'] });
+  const event = await models.Event.findByPk(eventId, { attributes: ['timeZone', 'startsOn', 'endsOn'] });
   if (!event) throw new AppError('not_found', 404, 'No such meeting.');
   const entry = await models.Entry.findOne({
     where: { id: input.entryId, eventId, status: [...LIVE_ENTRY_STATUSES] },
-    attributes: ['id'],
+    attributes: ['id', 'entrantId', 'boatId'],
   });
   if (!entry) throw fieldError('entryId', 'Choose a live entry of this meeting.');
+  // Nobody checks in a boat they entered or own (as at the dock's record).
+  const boat = await models.Boat.findByPk(entry.boatId, { attributes: ['ownerId'] });
+  if (entry.entrantId === actor.id || boat?.ownerId === actor.id)
+    throw new AppError('own_boat', 403, 'You entered or own this boat: another official must check it in.');
   const meetingDay = meetingDayOf(arrivedAt, event.timeZone);
+  if (meetingDay < event.startsOn || meetingDay > event.endsOn)
+    throw fieldError('arrivedAt', `Boats are checked in on the meeting's days (${event.startsOn} to ${event.endsOn}).`);
   // One statement: the booking of that day (if any), the insert, and on any conflict the row already there.
   const [row] = await sequelize.query<{
     id: string;

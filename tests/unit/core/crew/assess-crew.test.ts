@@ -160,6 +160,18 @@ test('a dock check counts on its own day while the item reads as it did; a chang
   // The entrant changed the serial after the check: the confirmation no longer counts.
   const swapped = driver({ gear: [helmet({ serial: 'H-2' })] });
   assert.equal(assessCrew([swapped], [], req(), EAST, at, [check()]).gear[0].dock, 'changed_since_check');
+  // But what the dock found wrong stands: editing the item, or removing it and declaring a new one, does not
+  // clear "not presented" by itself; a later confirmation of that kind of item that day does.
+  assert.deepEqual(codes(assessCrew([swapped], [], req(), EAST, at, [check(), later])), ['gear_not_presented']);
+  const replaced = driver({ gear: [helmet({ id: 'g-helmet-new', serial: 'H-3' })] });
+  const stillHeld = assessCrew([replaced], [], req(), EAST, at, [check(), later]);
+  assert.deepEqual(codes(stillHeld), ['gear_not_presented']);
+  assert.match(
+    stillHeld.findings[0].text,
+    /helmet H-1: not presented at the dock today, and changed on the entry since/,
+  );
+  const seen = check({ gearItemId: 'g-helmet-new', serial: 'H-3', checkedAt: '2027-04-30T22:00:00.000Z' });
+  assert.deepEqual(codes(assessCrew([replaced], [], req(), EAST, at, [check(), later, seen])), []);
 });
 
 test('sign-on counts on its own meeting day only; a person’s own findings name them', () => {
@@ -167,6 +179,17 @@ test('sign-on counts on its own meeting day only; a person’s own findings name
   assert.deepEqual(assessCrew([driver()], [], req(), EAST, '2027-05-01T00:00:00Z', [], signOns).signedOn, ['m-driver']);
   // 10:00 UTC is already 2 May in Kiritimati: the driver signs on again that day.
   assert.deepEqual(assessCrew([driver()], [], req(), EAST, '2027-05-01T10:00:00Z', [], signOns).signedOn, []);
+  // The sign-on is the person's, not the record's: another person typed over the same record is not signed on.
+  const asSigned = [
+    { crewMemberId: 'm-driver', meetingDay: '2027-05-01', name: 'Ana Example', licenceNumber: 'L-100' },
+  ];
+  const at = '2027-05-01T00:00:00Z';
+  assert.deepEqual(assessCrew([driver()], [], req(), EAST, at, [], asSigned).signedOn, ['m-driver']);
+  assert.deepEqual(assessCrew([driver({ name: 'Somebody Else' })], [], req(), EAST, at, [], asSigned).signedOn, []);
+  const otherLicence = driver({
+    licence: { issuedBy: 'Invented Body', grade: 'A', number: 'L-999', expiresOn: '2030-01-01' },
+  });
+  assert.deepEqual(assessCrew([otherLicence], [], req(), EAST, at, [], asSigned).signedOn, []);
   const lapsed = driver({ medicalExpiresOn: '2027-04-30' });
   const [f] = assessCrew([lapsed], [], req(), EAST, '2027-05-01T00:00:00Z').findings;
   assert.equal(f.code, 'medical_expired');
