@@ -53,7 +53,7 @@ export default async function StartListPage({
       <p className="text-base">
         <strong>{list.counts.mayStart}</strong> of {list.counts.total} may start; <strong>{list.counts.held}</strong>{' '}
         held{list.counts.byOrganiser ? `; ${list.counts.byOrganiser} settled by the organiser` : ''}. State at{' '}
-        {formatTime(list.generatedAt, list.timeZone)} ({list.timeZone}): reload before the start.
+        {formatTime(list.generatedAt, list.timeZone)}: reload before the start.
       </p>
       <p className="rounded-lg bg-tide-50 p-3 text-base text-tide-700">
         Safety first: this list carries the officials’ checks; it never replaces them. The governing body’s rules, local
