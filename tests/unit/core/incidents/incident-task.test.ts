@@ -5,7 +5,7 @@ import assert from 'node:assert/strict';
 import { incidentTaskReason } from '../../../../lib/core/incidents/incident-task';
 
 test('names the time in the zone and what happened, on one line', () => {
-  const r = incidentTaskReason('2027-03-13T01:15:00Z', 'Pacific/Auckland', 'Hit the bank\nat the hairpin');
+  const r = incidentTaskReason('2027-03-13T01:15:00Z', 'Pacific/Auckland', 'Hit the bank\nat the hairpin.');
   assert.equal(
     r,
     'Incident with damage, Sat 13 Mar 2027, 14:15 UTC+13:00 (Pacific/Auckland): Hit the bank at the hairpin. Re-inspect before the next run.',
