@@ -2,7 +2,7 @@ import 'server-only';
 import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
-import { inspectUpload, PHOTO_TYPES, type InspectedUpload } from '@/lib/server/storage/inspect-upload';
+import { inspectPhotos } from '@/lib/server/storage/inspect-upload';
 import { newObjectKey, putObject } from '@/lib/server/storage/objects';
 import { INSPECTION_PHOTO_MAX_BYTES } from '@/lib/core/inputs/inspections';
 
@@ -34,25 +34,7 @@ export async function addIncidentPhotos(
   const boat = entry && (await models.Boat.findByPk(entry.boatId, { attributes: ['ownerId'] }));
   if (entry?.entrantId === actor.id || boat?.ownerId === actor.id)
     throw new AppError('own_boat', 403, 'You cannot add photos to an incident of a boat you entered or own.');
-  const checked: { photo: (typeof photos)[number]; file: InspectedUpload }[] = photos.map((photo, i) => {
-    try {
-      return {
-        photo,
-        file: inspectUpload({
-          bytes: photo.bytes,
-          declaredName: photo.declaredName,
-          allowed: PHOTO_TYPES,
-          maxBytes: INSPECTION_PHOTO_MAX_BYTES,
-        }),
-      };
-    } catch (err) {
-      if (err instanceof AppError)
-        throw new AppError(err.code, err.status, err.message, [
-          { field: 'photo', message: photos.length > 1 ? `Photo ${i + 1}: ${err.message}` : err.message },
-        ]);
-      throw err;
-    }
-  });
+  const checked = inspectPhotos(photos, INSPECTION_PHOTO_MAX_BYTES);
   const out: IncidentPhotoView[] = [];
   for (const { photo, file } of checked) {
     let row = await models.IncidentPhoto.findOne({ where: { incidentId, sha256: file.sha256Hex } });

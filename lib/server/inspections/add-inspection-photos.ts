@@ -5,7 +5,7 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
-import { inspectUpload, PHOTO_TYPES, type InspectedUpload } from '@/lib/server/storage/inspect-upload';
+import { inspectPhotos } from '@/lib/server/storage/inspect-upload';
 import { newObjectKey, putObject } from '@/lib/server/storage/objects';
 import { INSPECTION_PHOTO_MAX_BYTES } from '@/lib/core/inputs/inspections';
 
@@ -57,26 +57,7 @@ export async function addInspectionPhotos(
     );
     if (!sealEvent) throw refuseSeal(`Seal ${opts.sealNumber} was not recorded in this inspection.`);
   }
-  const checked: { photo: (typeof photos)[number]; file: InspectedUpload }[] = photos.map((photo, i) => {
-    try {
-      return {
-        photo,
-        file: inspectUpload({
-          bytes: photo.bytes,
-          declaredName: photo.declaredName,
-          allowed: PHOTO_TYPES,
-          maxBytes: INSPECTION_PHOTO_MAX_BYTES,
-        }),
-      };
-    } catch (err) {
-      // Name the field, so the form shows the refusal beside the photo input.
-      if (err instanceof AppError)
-        throw new AppError(err.code, err.status, err.message, [
-          { field: 'photo', message: photos.length > 1 ? `Photo ${i + 1}: ${err.message}` : err.message },
-        ]);
-      throw err;
-    }
-  });
+  const checked = inspectPhotos(photos, INSPECTION_PHOTO_MAX_BYTES);
   if (sealEvent?.photoId) {
     // A retry of the same photo is answered as before; another photo for the same seal is refused.
     const earlier = await models.InspectionPhoto.findByPk(sealEvent.photoId, { attributes: ['sha256'] });

@@ -193,3 +193,28 @@ function formatBytes(n: number): string {
   if (n >= 1024) return `${(n / 1024).toFixed(1)} KB`;
   return `${n} bytes`;
 }
+
+/**
+ * Several photos sent in one upload, each checked as inspectUpload does (types from PHOTO_TYPES, at most
+ * maxBytes). A refusal names the field `photo` (and which photo, when there are several), so a form shows
+ * it beside its photo input.
+ */
+export function inspectPhotos<P extends { bytes: Uint8Array; declaredName: string }>(
+  photos: P[],
+  maxBytes: number,
+): { photo: P; file: InspectedUpload }[] {
+  return photos.map((photo, i) => {
+    try {
+      return {
+        photo,
+        file: inspectUpload({ bytes: photo.bytes, declaredName: photo.declaredName, allowed: PHOTO_TYPES, maxBytes }),
+      };
+    } catch (err) {
+      if (err instanceof AppError)
+        throw new AppError(err.code, err.status, err.message, [
+          { field: 'photo', message: photos.length > 1 ? `Photo ${i + 1}: ${err.message}` : err.message },
+        ]);
+      throw err;
+    }
+  });
+}
