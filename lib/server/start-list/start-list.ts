@@ -5,7 +5,7 @@ import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError, fieldError } from '@/lib/core/errors';
 import { StartDecisionInput } from '@/lib/core/inputs/start-list';
 import { TZDate } from '@date-fns/tz';
-import { assessCrew, meetingDayFor } from '@/lib/core/crew/assess-crew';
+import { assessCrew, meetingDayFor, type MeetingDays } from '@/lib/core/crew/assess-crew';
 import { loadCrewFacts, loadRequirements } from '@/lib/server/crew/crew-data';
 import {
   decideStart,
@@ -64,12 +64,10 @@ async function loadMeeting(eventId: string) {
   return { event, meeting, days: meetingDays(event.startsOn, event.endsOn) };
 }
 
-type Meeting = { startsOn: string; endsOn: string; timeZone: string };
-
 /** The rows of a day's start list (one class, one entry, or all), with who entered and owns each boat. */
 async function startRows(
   eventId: string,
-  meeting: Meeting,
+  meeting: MeetingDays,
   day: string,
   only: { classId?: string | null; entryId?: string | null },
 ): Promise<(StartListRow & { ownerIds: string[] })[]> {
