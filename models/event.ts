@@ -29,6 +29,8 @@ export class Event extends Model<InferAttributes<Event>, InferCreationAttributes
   declare currency: CreationOptional<string>;
   declare entryFeeMinor: CreationOptional<number>;
   declare protestFeeMinor: CreationOptional<number>;
+  /** The meeting lets one boat enter several classes (each inspected under its own class's rules). */
+  declare severalClassesPerBoat: CreationOptional<boolean>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -77,6 +79,7 @@ export function initEvents(sequelize: Sequelize) {
       currency: { type: DataTypes.STRING(3), allowNull: false, defaultValue: 'NZD' },
       entryFeeMinor: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       protestFeeMinor: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+      severalClassesPerBoat: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

@@ -62,6 +62,8 @@ export const EventInput = z
     currency: z.enum(CURRENCIES, { error: 'Choose a currency.' }),
     entryFeeMinor: money('entry fee'),
     protestFeeMinor: money('protest fee'),
+    // Omitted by older clients: then unchanged (off when a meeting is created).
+    severalClassesPerBoat: z.boolean({ error: 'Say whether a boat may enter several classes.' }).optional(),
   })
   .refine((e) => e.endsOn >= e.startsOn, { path: ['endsOn'], message: 'The last day is before the first day.' });
 export type EventInput = z.infer<typeof EventInput>;

@@ -10,6 +10,7 @@ export type BoatEntrySummary = {
   eventId: string;
   eventName: string;
   startsOn: string;
+  classId: string;
   className: string;
   classCode: string;
   raceNumber: number;
@@ -38,7 +39,7 @@ export async function getMyBoat(actor: Actor | null, boatId: string): Promise<My
   ]);
   const tag = await models.BoatTag.findOne({ where: { token } });
   const [entries] = await sequelize.query(
-    `select e.id, e.event_id as "eventId", ev.name as "eventName", ev.starts_on as "startsOn", c.name as "className",
+    `select e.id, e.event_id as "eventId", ev.name as "eventName", ev.starts_on as "startsOn", c.id as "classId", c.name as "className",
             c.code as "classCode", e.race_number as "raceNumber", e.status
        from entries e join events ev on ev.id = e.event_id join race_classes c on c.id = e.class_id
       where e.boat_id = :boatId and e.entrant_id = :uid and e.status in ('awaiting_payment', 'entered')

@@ -1,5 +1,5 @@
 import 'server-only';
-import { UniqueConstraintError } from 'sequelize';
+import { literal, UniqueConstraintError } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { assertCan, can, type Actor } from '@/lib/server/auth/actor';
 import { AppError, fieldError } from '@/lib/core/errors';
@@ -52,9 +52,14 @@ export async function takeIntoCustody(actor: Actor | null, eventId: string, raw:
   assertCan(actor, 'custody.take', { eventId });
   const input = TakeIntoCustodyInput.parse(raw);
   const { models } = getDb();
+  // A boat in several classes has one number and one set of parts: its first live entry holds them.
   const entry = await models.Entry.findOne({
     where: { eventId, raceNumber: input.raceNumber },
     attributes: ['id', 'status'],
+    order: [
+      [literal(`status in ('awaiting_payment', 'entered')`), 'DESC'],
+      ['createdAt', 'ASC'],
+    ],
   });
   if (!entry) throw fieldError('raceNumber', `No boat has race number ${input.raceNumber} at this meeting.`);
   if (input.protestId) {

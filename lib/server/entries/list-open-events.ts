@@ -20,6 +20,8 @@ export type OpenEvent = {
   endsOn: string;
   entryFeeMinor: number;
   currency: string;
+  /** A boat may enter several classes here (keeping one race number). */
+  severalClassesPerBoat: boolean;
   classes: OpenClass[];
 };
 
@@ -35,7 +37,8 @@ export async function listOpenEvents(actor: Actor | null): Promise<OpenEvent[]> 
   const events = await sequelize.query<
     Omit<OpenEvent, 'classes' | 'startsOn' | 'endsOn'> & { startsOn: string | Date; endsOn: string | Date }
   >(
-    `select id, name, venue, starts_on as "startsOn", ends_on as "endsOn", entry_fee_minor as "entryFeeMinor", currency
+    `select id, name, venue, starts_on as "startsOn", ends_on as "endsOn", entry_fee_minor as "entryFeeMinor", currency,
+            several_classes_per_boat as "severalClassesPerBoat"
        from events where status = 'entries_open' order by starts_on, name`,
     { type: QueryTypes.SELECT },
   );

@@ -43,6 +43,8 @@ export async function submitEntry(actor: Actor | null, raw: unknown): Promise<Su
     entryId: string;
     requested: number | null;
     raceNumber: number;
+    /** The class whose entry already gave this boat its number here (a second class keeps it). */
+    keptFrom: string | null;
     gotRequestedNumber: boolean;
     declarationCheck: DeclarationCheck;
   };
@@ -78,28 +80,43 @@ export async function submitEntry(actor: Actor | null, raw: unknown): Promise<Su
           409,
           `${raceClass.name} has no published rules yet, so it cannot be entered.`,
         );
-      const live = await models.Entry.findOne({
+      // The boat's live entries here: at most one per class, and one class in all unless the meeting allows more.
+      const live = await models.Entry.findAll({
         where: { eventId: event.id, boatId: boat.id, status: ['awaiting_payment', 'entered'] },
+        order: [['createdAt', 'ASC']],
         transaction,
       });
-      if (live)
+      const sameClass = live.find((e) => e.classId === raceClass.id);
+      if (sameClass)
         throw new AppError(
           'already_entered',
           409,
-          `${boat.name} is already entered at ${event.name} (race number ${live.raceNumber}).`,
+          `${boat.name} is already entered in ${raceClass.name} at ${event.name} (race number ${sameClass.raceNumber}).`,
+        );
+      if (live.length > 0 && !event.severalClassesPerBoat)
+        throw new AppError(
+          'already_entered',
+          409,
+          `${boat.name} is already entered at ${event.name} (race number ${live[0].raceNumber}), and this meeting takes one class per boat.`,
         );
 
+      // A boat keeps one race number at a meeting: a second class takes the number it already has.
+      const kept = live[0]?.raceNumber ?? null;
       const requested = input.requestedRaceNumber ?? numberFromHull(boat.hullNumber);
+      // A number is taken when another boat has it here (a withdrawn entry keeps its number from others).
       const taken = async (n: number) =>
         (
-          await sequelize.query('select 1 from entries where event_id = :eventId and race_number = :n', {
-            replacements: { eventId: event.id, n },
-            type: QueryTypes.SELECT,
-            transaction,
-          })
+          await sequelize.query(
+            'select 1 from entries where event_id = :eventId and race_number = :n and boat_id <> :boatId',
+            {
+              replacements: { eventId: event.id, n, boatId: boat.id },
+              type: QueryTypes.SELECT,
+              transaction,
+            },
+          )
         ).length > 0;
-      let raceNumber = requested != null && !(await taken(requested)) ? requested : null;
-      const gotRequestedNumber = raceNumber != null;
+      let raceNumber = kept ?? (requested != null && !(await taken(requested)) ? requested : null);
+      const gotRequestedNumber = raceNumber != null && raceNumber === requested;
       if (raceNumber == null) {
         // "The next free one": the first free number after the one asked for (wrapping round to
         // the lowest free number past 9999); with nothing asked for, the lowest free number.
@@ -128,6 +145,7 @@ export async function submitEntry(actor: Actor | null, raw: unknown): Promise<Su
         entryId: entry.id,
         requested,
         raceNumber,
+        keptFrom: kept != null ? live[0].classId : null,
         gotRequestedNumber: requested != null && gotRequestedNumber,
         declarationCheck: checkDeclaration(boat, rules.rules),
       };
@@ -141,11 +159,13 @@ export async function submitEntry(actor: Actor | null, raw: unknown): Promise<Su
   const [entry] = await listMyEntries(actor, { entryId: result.entryId });
   const { requested, raceNumber } = result;
   const raceNumberNote =
-    requested == null
-      ? `You did not ask for a number, so you have ${raceNumber}, the lowest free one.`
-      : result.gotRequestedNumber
-        ? `You have the number you asked for: ${raceNumber}.`
-        : `Race number ${requested} is already taken at this meeting, so you have ${raceNumber}, the next free number${raceNumber < requested ? ' (none was free above it)' : ''}.`;
+    result.keptFrom != null
+      ? `${entry.boatName} keeps race number ${raceNumber} in every class at this meeting.`
+      : requested == null
+        ? `You did not ask for a number, so you have ${raceNumber}, the lowest free one.`
+        : result.gotRequestedNumber
+          ? `You have the number you asked for: ${raceNumber}.`
+          : `Race number ${requested} is already taken at this meeting, so you have ${raceNumber}, the next free number${raceNumber < requested ? ' (none was free above it)' : ''}.`;
   return {
     entry,
     requestedRaceNumber: requested,

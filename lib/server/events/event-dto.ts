@@ -2,7 +2,7 @@ import 'server-only';
 import type { Event } from '@/models';
 import type { EventInput } from '@/lib/core/inputs/events';
 
-export type EventDto = EventInput & { id: string; organisationId: string; slug: string };
+export type EventDto = EventInput & { id: string; organisationId: string; slug: string; severalClassesPerBoat: boolean };
 
 export function toEventDto(e: Event): EventDto {
   return {
@@ -23,5 +23,6 @@ export function toEventDto(e: Event): EventDto {
     currency: e.currency as EventDto['currency'],
     entryFeeMinor: e.entryFeeMinor,
     protestFeeMinor: e.protestFeeMinor,
+    severalClassesPerBoat: e.severalClassesPerBoat,
   };
 }

@@ -1,5 +1,6 @@
 import 'server-only';
 import { randomBytes } from 'node:crypto';
+import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
@@ -26,7 +27,12 @@ export async function createEvent(actor: Actor | null, raw: unknown) {
   return sequelize.transaction(async (transaction) => {
     const { organisationId, ...fields } = input;
     const event = await models.Event.create(
-      { ...fields, organisationId, slug: `${slugify(input.name)}-${randomBytes(3).toString('hex')}` },
+      {
+        ...fields,
+        severalClassesPerBoat: fields.severalClassesPerBoat ?? false,
+        organisationId,
+        slug: `${slugify(input.name)}-${randomBytes(3).toString('hex')}`,
+      },
       { transaction },
     );
     await models.EventStaff.create({ eventId: event.id, userId: actor.id, role: 'organiser' }, { transaction });
@@ -37,11 +43,32 @@ export async function createEvent(actor: Actor | null, raw: unknown) {
 /** The event's organiser edits its details. */
 export async function updateEvent(actor: Actor | null, eventId: string, raw: unknown) {
   assertCan(actor, 'event.edit', { eventId });
-  const input = EventInput.parse(raw);
-  const event = await getDb().models.Event.findByPk(eventId);
-  if (!event) throw new AppError('not_found', 404, 'No such event.');
-  await event.update(input);
-  return toEventDto(event);
+  const { severalClassesPerBoat, ...input } = EventInput.parse(raw);
+  const { sequelize, models } = getDb();
+  return sequelize.transaction(async (transaction) => {
+    // The event row's lock: an entry into a second class (which locks it too) cannot slip past the check below.
+    const event = await models.Event.findByPk(eventId, { lock: transaction.LOCK.UPDATE, transaction });
+    if (!event) throw new AppError('not_found', 404, 'No such event.');
+    if (severalClassesPerBoat === false && event.severalClassesPerBoat) {
+      const [row] = await sequelize.query<{ boats: number }>(
+        `select count(*)::int as boats from (select boat_id from entries
+           where event_id = :eventId and status in ('awaiting_payment', 'entered')
+           group by boat_id having count(*) > 1) b`,
+        { replacements: { eventId }, type: QueryTypes.SELECT, transaction },
+      );
+      if (row.boats > 0)
+        throw new AppError(
+          'several_classes_in_use',
+          409,
+          `${row.boats === 1 ? 'One boat is' : `${row.boats} boats are`} entered in more than one class here: withdraw or cancel the extra entries before allowing one class per boat. Nothing was saved.`,
+          [{ field: 'severalClassesPerBoat', message: 'Boats are entered in more than one class.' }],
+        );
+    }
+    await event.update(severalClassesPerBoat === undefined ? input : { ...input, severalClassesPerBoat }, {
+      transaction,
+    });
+    return toEventDto(event);
+  });
 }
 
 /** One event for its organiser (403 for anyone else, 404 if it does not exist). */

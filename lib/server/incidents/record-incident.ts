@@ -83,6 +83,29 @@ export async function recordIncident(actor: Actor | null, eventId: string, raw: 
             )
           ).id;
       }
+      if (input.damage) {
+        // The same boat entered in other classes here (a meeting may allow several): damage is the boat's, so
+        // each class's entry must be inspected again too, under its own rules, before the boat's next run.
+        const siblings = await sequelize.query<{ id: string }>(
+          `select e.id from entries e
+            where e.event_id = :eventId and e.boat_id = :boatId and e.id <> :entryId
+              and e.status in ('awaiting_payment', 'entered')
+              and not exists (select 1 from reinspections r
+                               where r.entry_id = e.id and r.done_at is null and r.protest_id is null)
+            order by e.id for update`,
+          { replacements: { eventId, boatId: entry.boatId, entryId: entry.id }, type: QueryTypes.SELECT, transaction },
+        );
+        for (const sibling of siblings)
+          await models.Reinspection.create(
+            {
+              eventId,
+              entryId: sibling.id,
+              reason: incidentTaskReason(occurredAt, event.timeZone, input.description),
+              requestedById: actor.id,
+            },
+            { transaction },
+          );
+      }
       const row = await models.Incident.create(
         {
           eventId,

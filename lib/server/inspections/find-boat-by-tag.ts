@@ -1,17 +1,22 @@
 import 'server-only';
-import { Op } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
 import { lookUpTag } from '@/lib/server/tags/tokens';
 import { loadBoatCard, type BoatCard } from './load-boat-card';
+import { chooseDockEntry } from './choose-dock-entry';
 import { parseTagScan } from '../../core/tags/parse-tag-scan';
 
 /**
  * The boat card for a scanned tag at this meeting. A replaced (retired) tag, a token nobody issued
  * and a boat not entered here are each refused plainly, so a stale sticker never passes for a boat.
  */
-export async function findBoatByTag(actor: Actor | null, eventId: string, scanned: string): Promise<BoatCard> {
+export async function findBoatByTag(
+  actor: Actor | null,
+  eventId: string,
+  scanned: string,
+  wantedEntryId?: string,
+): Promise<BoatCard> {
   assertCan(actor, 'inspection.record', { eventId });
   const token = parseTagScan(scanned);
   const found = token ? await lookUpTag(token) : ({ state: 'unknown' } as const);
@@ -22,7 +27,7 @@ export async function findBoatByTag(actor: Actor | null, eventId: string, scanne
       'This is not a Boreline tag we know. Type the race number instead, and tell the chief scrutineer.',
     );
   }
-  const { Boat, Entry } = getDb().models;
+  const { Boat } = getDb().models;
   const boat = await Boat.findByPk(found.boatId, { attributes: ['id', 'name'] });
   if (!boat)
     throw new AppError('unknown_tag', 404, 'This is not a Boreline tag we know. Type the race number instead.');
@@ -37,12 +42,9 @@ export async function findBoatByTag(actor: Actor | null, eventId: string, scanne
       },
     );
   }
-  // A live entry if there is one, else the latest (a withdrawn boat still shows, marked so).
-  const entry =
-    (await Entry.findOne({
-      where: { eventId, boatId: boat.id, status: { [Op.in]: ['awaiting_payment', 'entered'] } },
-    })) ?? (await Entry.findOne({ where: { eventId, boatId: boat.id }, order: [['createdAt', 'DESC']] }));
-  if (!entry)
+  // The entry asked for (a class chosen at the dock), else the one to look at first; its siblings travel with it.
+  const entries = await chooseDockEntry(eventId, { boatId: boat.id }, wantedEntryId);
+  if (!entries)
     throw new AppError('not_entered', 404, `${boat.name} is not entered at this meeting.`, { boatName: boat.name });
-  return loadBoatCard(actor, eventId, entry.id);
+  return loadBoatCard(actor, eventId, entries.chosen.entryId, entries.others);
 }

@@ -1,14 +1,15 @@
 import 'server-only';
-import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
 import { loadBoatCard, type BoatCard } from './load-boat-card';
+import { chooseDockEntry } from './choose-dock-entry';
 
 /** The boat card by race number: the typed fallback when a tag is missing, dirty or will not scan. */
 export async function findEntryByRaceNumber(
   actor: Actor | null,
   eventId: string,
   raceNumberText: string,
+  wantedEntryId?: string,
 ): Promise<BoatCard> {
   assertCan(actor, 'inspection.record', { eventId });
   if (!/^\d{1,4}$/.test(raceNumberText.trim())) {
@@ -17,10 +18,11 @@ export async function findEntryByRaceNumber(
     ]);
   }
   const raceNumber = Number(raceNumberText.trim());
-  const entry = await getDb().models.Entry.findOne({ where: { eventId, raceNumber } });
-  if (!entry)
+  // One boat has a number here, in one class or several: the entry asked for, else the one to look at first.
+  const entries = await chooseDockEntry(eventId, { raceNumber }, wantedEntryId);
+  if (!entries)
     throw new AppError('unknown_race_number', 404, `No boat has race number ${raceNumber} at this meeting.`, [
       { field: 'raceNumber', message: `No boat has race number ${raceNumber} here.` },
     ]);
-  return loadBoatCard(actor, eventId, entry.id);
+  return loadBoatCard(actor, eventId, entries.chosen.entryId, entries.others);
 }

@@ -8,6 +8,7 @@ import type { ClassRules } from '@/lib/core/inputs/class-rules';
 import { currentInspectionCte, loadInspectionViews, type InspectionView } from './inspection-view';
 import { listReinspectionViews, type ReinspectionView } from './reinspection-view';
 import { heldPartsJsonSql, type HeldPart } from '@/lib/server/custody/custody-view';
+import type { DockEntryChoice } from './choose-dock-entry';
 import { loadBoatComponentChoices, loadBoatSeals, type BoatSeal } from '@/lib/server/seals/boat-seals';
 
 // What a scrutineer sees at the dock before measuring: the boat, its declaration against the rules
@@ -54,10 +55,17 @@ export type BoatCard = {
   documents: { id: string; kind: string; fileName: string }[];
   /** The person asking entered or owns this boat: they may look, never record. */
   isOwnBoat: boolean;
+  /** The boat's other live entries here (a meeting may allow several classes per boat): each is inspected apart. */
+  otherEntries: DockEntryChoice[];
 };
 
 /** The card for one entry of the event (the caller has checked permission and that the entry is there). */
-export async function loadBoatCard(actor: Actor, eventId: string, entryId: string): Promise<BoatCard> {
+export async function loadBoatCard(
+  actor: Actor,
+  eventId: string,
+  entryId: string,
+  otherEntries: DockEntryChoice[],
+): Promise<BoatCard> {
   const { models, sequelize } = getDb();
   const entry = await models.Entry.findOne({ where: { id: entryId, eventId } });
   if (!entry) throw new Error(`entry ${entryId} not at event ${eventId}`);
@@ -152,5 +160,6 @@ export async function loadBoatCard(actor: Actor, eventId: string, entryId: strin
     components,
     documents: documents.map((d) => ({ id: d.id, kind: d.kind, fileName: d.fileName })),
     isOwnBoat: entry.entrantId === actor.id || boat.ownerId === actor.id,
+    otherEntries,
   };
 }

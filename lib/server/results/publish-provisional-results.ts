@@ -35,7 +35,11 @@ export async function publishProvisionalResults(
     where: { eventId, raceNumber: { [Op.in]: input.rows.map((r) => r.raceNumber) } },
     include: [{ model: models.RaceClass, attributes: ['code'] }],
   });
-  const byNumber = new Map(entries.map((e) => [e.raceNumber, e]));
+  // A boat in several classes keeps one number: the entry in this class (a confirmed one first) is the one meant.
+  const rank = (e: (typeof entries)[number]) => (e.classId === cls.id ? 0 : 2) + (e.status === 'entered' ? 0 : 1);
+  const byNumber = new Map<number, (typeof entries)[number]>();
+  for (const e of [...entries].sort((a, b) => rank(a) - rank(b)))
+    if (!byNumber.has(e.raceNumber)) byNumber.set(e.raceNumber, e);
   const issues: { field: string; message: string }[] = [];
   const rows = input.rows.map((r, i) => {
     const e = byNumber.get(r.raceNumber);

@@ -91,7 +91,11 @@ export async function checkRunLines(
       : Promise.resolve([]),
     loadCurrentRuns(classId, transaction),
   ]);
-  const byNumber = new Map(entries.map((e) => [e.raceNumber, e]));
+  // A boat in several classes keeps one number: the entry in this class (a confirmed one first) is the one meant.
+  const rank = (e: (typeof entries)[number]) => (e.classId === classId ? 0 : 2) + (e.status === 'entered' ? 0 : 1);
+  const byNumber = new Map<number, (typeof entries)[number]>();
+  for (const e of [...entries].sort((a, b) => rank(a) - rank(b)))
+    if (!byNumber.has(e.raceNumber)) byNumber.set(e.raceNumber, e);
   const storedByKey = new Map(stored.map((s) => [keyOf(s.raceNumber, s.runLabel), s]));
   const firstLine = new Map<string, number>();
   const views: RunLineView[] = [];

@@ -18,15 +18,18 @@ import type { InstrumentView } from '@/lib/server/inspections/list-instruments';
 import { describeScope } from '@/lib/core/inspections/decide-inspection';
 import { FindBoat, type FindQuery } from './find-boat';
 import {
+  firstBoardRow,
   formFromDraft,
   initialFormState,
   targetFromBoardRow,
   targetFromCard,
   type DockTarget,
   type FormState,
+  type OtherEntry,
 } from './form-model';
 import type { FormSubmission } from './inspection-form';
 import { QueuePanel } from './queue-panel';
+import { ClassSwitcher } from './class-switcher';
 import { registerInspectServiceWorker, useDockQueue } from './use-dock-queue';
 import type { ShownVerdict } from './verdict-panel';
 import { loadDockParts } from './dock-parts';
@@ -117,6 +120,7 @@ export function DockScreen({
   const [verdict, setVerdict] = useState<ShownVerdict | null>(null);
   const [isLooking, setLooking] = useState(false);
   const [stale, setStale] = useState<QueuedRecord | null>(null);
+  const [followUp, setFollowUp] = useState<{ raceNumber: number; boatName: string; others: OtherEntry[] } | null>(null);
   // Read after hydration: the server has no phone name (an empty name until then).
   const device = useSyncExternalStore(subscribeToNothing, deviceName, () => '');
   const verdictRef = useRef<HTMLDivElement>(null);
@@ -163,6 +167,7 @@ export function DockScreen({
   async function find(q: FindQuery) {
     setNotice(null);
     setVerdict(null);
+    setFollowUp(null);
     const text = q.text.trim();
     const isRaceNumber = q.kind === 'typed' && /^\d{1,4}$/.test(text);
     const token = isRaceNumber ? null : parseTagScan(text);
@@ -192,7 +197,9 @@ export function DockScreen({
     }
     // No signal (or the server is down): the phone's copy of the entries.
     const snap = snapshot ?? (await loadSnapshot(eventId)) ?? null;
-    const row = snap?.board.rows.find((r) => (isRaceNumber ? r.raceNumber === Number(text) : r.tagToken === token));
+    const row = firstBoardRow(
+      snap?.board.rows.filter((r) => (isRaceNumber ? r.raceNumber === Number(text) : r.tagToken === token)) ?? [],
+    );
     if (snap && row) return open(targetFromBoardRow(row, snap.board));
     setTarget(null);
     setNotice({
@@ -266,6 +273,12 @@ export function DockScreen({
         ? { tone: 'info', text: `Recorded and sent: ${label}.` }
         : { tone: 'info', text: `Kept on this phone: ${label}. Waiting to send.` },
     );
+    // The same boat in another class here: offer that class's inspection next (its own record, its own rules).
+    setFollowUp(
+      target.otherEntries.length > 0
+        ? { raceNumber: target.raceNumber, boatName: target.boatName, others: target.otherEntries }
+        : null,
+    );
     setTarget(null);
     setForm(null);
     if (after.state === 'sent') void refreshSnapshot();
@@ -274,7 +287,7 @@ export function DockScreen({
   async function fix(r: QueuedRecord) {
     const snap = snapshot ?? (await loadSnapshot(eventId)) ?? null;
     const row = snap?.board.rows.find((x) => x.entryId === r.payload.entryId);
-    const answer = row ? await get(`/api/events/${eventId}/race-numbers/${row.raceNumber}`) : null;
+    const answer = row ? await get(`/api/events/${eventId}/race-numbers/${row.raceNumber}?entry=${row.entryId}`) : null;
     const t = answer?.ok
       ? targetFromCard(answer.data as never, answer.fromCache)
       : row && snap
@@ -288,6 +301,26 @@ export function DockScreen({
     open(t, formFromDraft(r.payload, initialFormState(t, defaultLength, defaultScale)), r.idempotencyKey);
     setServerErrors(r.fieldErrors);
     setNotice({ tone: 'error', text: `Fix and send again: ${r.message ?? ''}` });
+  }
+
+  /** The same boat in another class here: that class's card and a fresh form, judged under its own rules. */
+  async function switchEntry(entryId: string, raceNumber: number) {
+    setNotice(null);
+    setFollowUp(null);
+    setLooking(true);
+    const answer = await get(`/api/events/${eventId}/race-numbers/${raceNumber}?entry=${entryId}`);
+    setLooking(false);
+    if (answer?.ok) return open(targetFromCard(answer.data as never, answer.fromCache));
+    if (answer && answer.status < 500)
+      return setNotice({ tone: 'error', code: answer.code, text: answer.message ?? 'The lookup was refused.' });
+    const snap = snapshot ?? (await loadSnapshot(eventId)) ?? null;
+    const row = snap?.board.rows.find((r) => r.entryId === entryId);
+    if (snap && row) return open(targetFromBoardRow(row, snap.board));
+    setNotice({
+      tone: 'error',
+      code: 'offline_unknown',
+      text: 'No signal, and that class is not in this phone’s copy.',
+    });
   }
 
   function correct(original: InspectionView) {
@@ -381,10 +414,29 @@ export function DockScreen({
               onNext={() => {
                 setVerdict(null);
                 setNotice(null);
+                setFollowUp(null);
               }}
             />
           )}
+          {verdict && followUp && (
+            <ClassSwitcher
+              raceNumber={followUp.raceNumber}
+              boatName={followUp.boatName}
+              current={null}
+              others={followUp.others}
+              onSwitch={(id) => void switchEntry(id, followUp.raceNumber)}
+            />
+          )}
         </div>
+        {target && target.otherEntries.length > 0 && (
+          <ClassSwitcher
+            raceNumber={target.raceNumber}
+            boatName={target.boatName}
+            current={`${target.classCode} ${target.className}`}
+            others={target.otherEntries}
+            onSwitch={(id) => void switchEntry(id, target.raceNumber)}
+          />
+        )}
         {target && <BoatCardView target={target} onCorrect={correct} />}
         {target && (
           <GearDockPanel

@@ -29,7 +29,20 @@ export type DockTarget = {
   ruleVersion: number | null;
   card: BoatCard | null;
   isOwnBoat: boolean;
+  /** The boat's other live entries here (several classes per boat): the dock switches between them. */
+  otherEntries: OtherEntry[];
 };
+
+/** Another class the same boat is entered in at this meeting, with its inspection so far. */
+export type OtherEntry = { entryId: string; classCode: string; className: string; inspectionResult: string | null };
+
+const LIVE = ['awaiting_payment', 'entered'];
+
+/** Offline: of the phone copy's rows for one race number or tag (one boat, maybe several classes), the one to open first. */
+export function firstBoardRow(rows: BoardRow[]): BoardRow | undefined {
+  const rank = (r: BoardRow) => (LIVE.includes(r.status) ? 0 : 2) + (r.state === 'waiting' ? 0 : 1);
+  return [...rows].sort((a, b) => rank(a) - rank(b) || a.classCode.localeCompare(b.classCode))[0];
+}
 
 export function targetFromCard(card: BoatCard, fromCache: boolean): DockTarget {
   return {
@@ -48,6 +61,12 @@ export function targetFromCard(card: BoatCard, fromCache: boolean): DockTarget {
     ruleVersion: card.ruleVersion?.version ?? null,
     card,
     isOwnBoat: card.isOwnBoat,
+    otherEntries: (card.otherEntries ?? []).map((e) => ({
+      entryId: e.entryId,
+      classCode: e.classCode,
+      className: e.className,
+      inspectionResult: e.inspectionResult,
+    })),
   };
 }
 
@@ -70,6 +89,14 @@ export function targetFromBoardRow(row: BoardRow, board: InspectionBoard): DockT
     ruleVersion: cls?.ruleVersion?.version ?? null,
     card: null,
     isOwnBoat: false,
+    otherEntries: board.rows
+      .filter((r) => r.boatId === row.boatId && r.entryId !== row.entryId && LIVE.includes(r.status))
+      .map((r) => ({
+        entryId: r.entryId,
+        classCode: r.classCode,
+        className: r.className,
+        inspectionResult: r.state === 'waiting' ? null : r.state,
+      })),
   };
 }
 

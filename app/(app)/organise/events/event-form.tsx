@@ -47,6 +47,7 @@ export function EventForm({ event, organisations = [] }: Props) {
         currency: f.get('currency'),
         entryFeeMinor: fee('entryFee'),
         protestFeeMinor: fee('protestFee'),
+        severalClassesPerBoat: f.get('severalClassesPerBoat') === 'on',
       };
       const local = EventInput.safeParse(body);
       if (!local.success) return { ok: false, fieldErrors: toFieldErrors(local.error), message: CHECK_FIELDS_MESSAGE };
@@ -207,6 +208,24 @@ export function EventForm({ event, organisations = [] }: Props) {
           defaultValue={event ? (event.protestFeeMinor / 100).toFixed(2) : '0.00'}
           error={err('protestFeeMinor')}
         />
+        <div className="sm:col-span-2">
+          <label className="flex min-h-touch items-start gap-3">
+            <input
+              type="checkbox"
+              name="severalClassesPerBoat"
+              defaultChecked={event?.severalClassesPerBoat ?? false}
+              aria-describedby="severalClassesPerBoat-hint"
+              className="mt-1 h-6 w-6 shrink-0"
+            />
+            <span>
+              A boat may enter several classes
+              <span id="severalClassesPerBoat-hint" className="block text-sm text-ink-soft">
+                It keeps one race number here and is inspected under each class&rsquo;s rules. Off: one class per boat.
+              </span>
+            </span>
+          </label>
+          <FieldError name="severalClassesPerBoat" error={err('severalClassesPerBoat')} />
+        </div>
         <div className="sm:col-span-2 space-y-2">
           <FormMessage state={state} />
           <button type="submit" className="btn-primary">

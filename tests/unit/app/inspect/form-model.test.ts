@@ -104,6 +104,7 @@ const card = (over: Partial<BoatCard> = {}): BoatCard => ({
   components: [{ id: COMPONENT_ID, label: 'engine Test Maker, serial 1' }],
   documents: [],
   isOwnBoat: false,
+  otherEntries: [],
   ...over,
 });
 

@@ -34,11 +34,12 @@ type EnterState = FormState & { done?: Submitted };
 export function EnterForm({
   boat,
   events,
-  enteredEventIds,
+  entered,
 }: {
   boat: BoatView;
   events: OpenEvent[];
-  enteredEventIds: string[];
+  /** The boat's live entries at meetings not yet over. */
+  entered: { eventId: string; classId: string; classCode: string; raceNumber: number }[];
 }) {
   const [eventId, setEventId] = useState(events[0].id);
   const event = events.find((e) => e.id === eventId) ?? events[0];
@@ -70,7 +71,11 @@ export function EnterForm({
   const [dismissed, setDismissed] = useState<EnterState | null>(null);
   const errors = state.fieldErrors ?? {};
   const done = state.done;
-  const isAlreadyEntered = enteredEventIds.includes(event.id);
+  const enteredHere = entered.filter((e) => e.eventId === event.id);
+  // Refused before sending: the same class twice, or a second class where the meeting takes one per boat.
+  const isAlreadyEntered =
+    enteredHere.some((e) => e.classId === classId) || (enteredHere.length > 0 && !event.severalClassesPerBoat);
+  const keptNumber = enteredHere[0]?.raceNumber ?? null;
 
   function chooseEvent(id: string) {
     setEventId(id);
@@ -169,20 +174,22 @@ export function EnterForm({
             <FieldError name="classId" error={errors.classId} />
           </div>
         )}
-        <TextField
-          name="requestedRaceNumber"
-          label="Race number you would like"
-          type="number"
-          inputMode="numeric"
-          min={1}
-          max={9999}
-          step={1}
-          defaultValue={
-            /^\d{1,4}$/.test(boat.hullNumber) && Number(boat.hullNumber) > 0 ? Number(boat.hullNumber) : undefined
-          }
-          hint="Optional. If it is taken at this meeting you get the next free number after it, and we say which."
-          error={errors.requestedRaceNumber}
-        />
+        {keptNumber == null && (
+          <TextField
+            name="requestedRaceNumber"
+            label="Race number you would like"
+            type="number"
+            inputMode="numeric"
+            min={1}
+            max={9999}
+            step={1}
+            defaultValue={
+              /^\d{1,4}$/.test(boat.hullNumber) && Number(boat.hullNumber) > 0 ? Number(boat.hullNumber) : undefined
+            }
+            hint="Optional. If it is taken at this meeting you get the next free number after it, and we say which."
+            error={errors.requestedRaceNumber}
+          />
+        )}
       </fieldset>
 
       {check && (
@@ -228,9 +235,19 @@ export function EnterForm({
       )}
 
       <FormMessage state={dismissed === state ? null : state} testId="enter-message" />
+      {keptNumber != null && !isAlreadyEntered && (
+        <p data-testid="kept-number-note">
+          {boat.name} is entered here in {enteredHere.map((e) => e.classCode).join(' and ')} already: this meeting
+          allows several classes per boat, so it keeps race number <span className="figure">{keptNumber}</span> and is
+          inspected under each class&rsquo;s rules.
+        </p>
+      )}
       {isAlreadyEntered ? (
         <p className="font-bold">
-          {boat.name} is already entered at this meeting: see <a href="/entries">My entries</a>.
+          {enteredHere.some((e) => e.classId === classId)
+            ? `${boat.name} is already entered in this class here`
+            : `${boat.name} is already entered at this meeting, which takes one class per boat`}
+          : see <a href="/entries">My entries</a>.
         </p>
       ) : (
         <button type="submit" className="btn-primary w-full sm:w-auto" disabled={isPending || !raceClass}>

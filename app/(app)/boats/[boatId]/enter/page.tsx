@@ -21,7 +21,12 @@ export default async function EnterBoatPage({ params }: { params: Promise<{ boat
     }),
     listOpenEvents(actor),
   ]);
-  const enteredAt = mine.entries.map((e) => e.eventId);
+  const entered = mine.entries.map((e) => ({
+    eventId: e.eventId,
+    classId: e.classId,
+    classCode: e.classCode,
+    raceNumber: e.raceNumber,
+  }));
   return (
     <div className="max-w-2xl space-y-5">
       <p>
@@ -33,7 +38,7 @@ export default async function EnterBoatPage({ params }: { params: Promise<{ boat
           No meeting is taking entries just now. Organisers open entries once their class rules are published.
         </p>
       ) : (
-        <EnterForm boat={mine.boat} events={events} enteredEventIds={enteredAt} />
+        <EnterForm boat={mine.boat} events={events} entered={entered} />
       )}
     </div>
   );
