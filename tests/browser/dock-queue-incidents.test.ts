@@ -2,7 +2,8 @@
 // dock queue, sees the boat due, loses the signal, checks it in (saved on the phone), and when the signal
 // returns the check-in reaches the server once. The chief scrutineer then records an incident with damage,
 // and the list says the boat must be inspected again before its next run; the start list holds it with that
-// reason until the organiser records a decision (common practice, no source).
+// reason until the organiser records a decision (common practice, no source). Last, the meeting allows several
+// classes per boat: the boat, entered in a second class, is recorded at the dock under each class's rules.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import type { Browser } from 'playwright-core';
@@ -145,4 +146,57 @@ test('slot booked by the entrant, checked in offline at the dock, incident forci
   assert.match(await allowed.innerText(), /Organiser: may start, “Transom repaired/);
   await screenshot(op, 'queue-05-start-list-organiser');
   await office.close();
+
+  // The meeting allows several classes per boat: the same boat is entered in a second class (narrower nozzle
+  // limit), keeping its number. At the dock the chief scrutineer records it under each class in turn; each
+  // verdict is judged by that class's limit (ISO 14253-1:2017: 101.8 mm with U = 0.05 mm conforms to at most
+  // 102 mm and, beyond 101.6 mm + U, does not conform to at most 101.6 mm).
+  const narrow = await meeting.addClass(
+    'QK',
+    rulesWith({ nozzle: { maxMm: 101.6, minMm: null, minReadings: 3, defaultUncertaintyMm: 0.05 } }),
+  );
+  await query('update events set several_classes_per_boat = true where id = $1', [meeting.eventId]);
+  const [second] = await query<{ id: string }>(
+    `insert into entries (event_id, class_id, boat_id, entrant_id, race_number, status, fee_minor, currency, paid_at)
+     select event_id, $2, boat_id, entrant_id, race_number, 'entered', fee_minor, currency, now() from entries where id = $1
+     returning id`,
+    [entry.id, narrow],
+  );
+  const dock2 = await newContext(browser, PHONE);
+  const dp = await dock2.newPage();
+  await signInWithPassword(dp, DEMO.chief, DEMO_PASSWORD);
+  await dp.goto(`/inspect/${meeting.eventId}?race=${entry.raceNumber}`);
+  const switcher = dp.getByTestId('class-switcher');
+  await switcher.filter({ hasText: 'this card is QJ' }).waitFor();
+  const fill = async () => {
+    await dp.getByTestId('inspection-form').waitFor();
+    for (const [i, d] of [101.5, 101.8, 101.7].entries())
+      await dp.getByLabel(`Reading ${i + 1} diameter`).fill(String(d));
+    await dp.getByLabel('I know U (type it)').check();
+    await dp.getByLabel('Expanded uncertainty U (k = 2)').fill('0.05');
+    await dp.getByLabel('Power, as declared or as the evidence shows').fill('220');
+    await dp.getByLabel('Power evidence seen').selectOption('maker_rating');
+    await dp.getByLabel(/Helmet — present and working/).check();
+    await dp.getByTestId('record-inspection').click();
+  };
+  await fill();
+  await dp.locator('[data-testid="verdict"][data-provisional="false"][data-overall="conforms"]').waitFor();
+  // After the verdict, the boat's other class is offered while it is still at the dock.
+  await switcher.getByRole('button', { name: /Inspect under QK \(not inspected yet\)/ }).click();
+  await switcher.filter({ hasText: 'this card is QK' }).waitFor();
+  await fill();
+  await dp.locator('[data-testid="verdict"][data-provisional="false"][data-overall="does_not_conform"]').waitFor();
+  await screenshot(dp, 'queue-06-second-class-verdict');
+  const records = await query<{ entry_id: string; overall_result: string }>(
+    'select entry_id, overall_result from inspections where boat_id = $1 order by received_at',
+    [entry.boatId],
+  );
+  assert.deepEqual(
+    records.map((r) => [r.entry_id, r.overall_result]),
+    [
+      [entry.id, 'conforms'],
+      [second.id, 'does_not_conform'],
+    ],
+  );
+  await dock2.close();
 });

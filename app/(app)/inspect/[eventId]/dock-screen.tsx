@@ -213,7 +213,8 @@ export function DockScreen({
 
   async function record({ draft, photos, sealPhotos, provisional }: FormSubmission) {
     if (!target) return;
-    const label = `No. ${target.raceNumber} ${target.boatName}`;
+    // A boat in several classes here: the label names the class the record is for.
+    const label = `No. ${target.raceNumber} ${target.boatName}${target.otherEntries.length > 0 ? ` in ${target.classCode}` : ''}`;
     const queued: QueuedRecord = {
       idempotencyKey: draft.idempotencyKey,
       eventId,
