@@ -11,7 +11,7 @@ import assert from 'node:assert/strict';
 import { HttpSession } from '../support/http-session';
 import { DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
 import { query } from '../support/db';
-import { InspectionMeeting, rulesWith, type TestEntry } from '../support/inspection-meeting';
+import { InspectionMeeting, inspectionBody, rulesWith, type TestEntry } from '../support/inspection-meeting';
 
 const ZONE = 'Pacific/Kiritimati';
 const dayInZone = (offsetDays = 0) =>
@@ -335,4 +335,46 @@ test('a scrutineer does not check the gear or sign on the crew of a boat they ow
     [own.id],
   );
   assert.equal(Number(n), 0);
+});
+
+test('an expired helmet is a finding in the dock record’s verdict; gear all in date is one conforming line', async () => {
+  // Two boats of their own (this file's other tests keep changing the first one's gear).
+  const lapsed = await meeting.addEntry(classId);
+  const current = await meeting.addEntry(classId);
+  const crewWith = (helmetDue: string) => ({
+    members: [person({ gear: [gear('helmet', 'HM-9', helmetDue), gear('life_jacket', 'LJ-9', '2030-12-31')] })],
+    boatGear: [gear('fire_extinguisher', 'FX-9', '2030-12-31', { standard: 'EN 3-7', dateKind: 'service_due' })],
+  });
+  assert.equal((await put(entrant, lapsed.id, crewWith(dayInZone(-1)))).res.status, 200);
+  assert.equal((await put(entrant, current.id, crewWith(dayInZone(0)))).res.status, 200);
+  const record = (entryId: string) =>
+    scrutineer.json(`/api/events/${meeting.eventId}/inspections`, {
+      ...inspectionBody(entryId, 101.8),
+      safety: { helmet: true, life_jacket: true, fire_extinguisher: true },
+    });
+  // Expired yesterday in the meeting's zone: not valid today, so the record does not conform on that line alone.
+  const a = await record(lapsed.id);
+  assert.equal(a.res.status, 201, JSON.stringify(a.body));
+  const lines = a.body.data.rules as { rule: string; verdict: string; explanation: string }[];
+  const gearLines = lines.filter((l) => l.rule.startsWith('gear:'));
+  assert.equal(gearLines.length, 1, JSON.stringify(gearLines));
+  assert.equal(gearLines[0].verdict, 'does_not_conform');
+  assert.match(gearLines[0].explanation, /helmet HM-9: expires .*past\..*local rulebook and the officials decide/i);
+  assert.ok(
+    lines.filter((l) => !l.rule.startsWith('gear:')).every((l) => l.verdict === 'conforms'),
+    'every other line conforms: the helmet decides',
+  );
+  assert.equal(a.body.data.overallResult, 'does_not_conform');
+  // Valid through the end of today in the meeting's zone: in date, one conforming line for the three items.
+  const b = await record(current.id);
+  assert.equal(b.res.status, 201, JSON.stringify(b.body));
+  const inDate = (b.body.data.rules as { rule: string; verdict: string; explanation: string }[]).filter((l) =>
+    l.rule.startsWith('gear:'),
+  );
+  assert.deepEqual(
+    inDate.map((l) => [l.rule, l.verdict]),
+    [['gear:in_date', 'conforms']],
+  );
+  assert.match(inDate[0].explanation, /\(3\) is within its expiry or service date/);
+  assert.equal(b.body.data.overallResult, 'conforms');
 });

@@ -94,6 +94,7 @@ export type RuleKey =
   | 'power_band'
   | `safety:${SafetyItem}`
   | `seal:${string}`
+  | `gear:${string}`
   | `item:${string}`
   | 'gauge:nozzle';
 
@@ -191,7 +192,12 @@ export type DecideInput = {
   scope?: readonly CheckArea[] | null;
   /** The register's seals checked on this boat (the server names the components; the dock uses the card's copy). */
   sealFindings?: readonly SealFinding[];
+  /** The entry's declared dated safety gear judged on the meeting day of the record (the server's; absent: none declared). */
+  gear?: GearOnDay | null;
 };
+
+/** Dated safety gear on the day: how many items were declared, and what is not in order (expired, not presented…). */
+export type GearOnDay = { day: string; items: number; findings: readonly { code: string; text: string }[] };
 
 const RANK: Record<Verdict, number> = { conforms: 0, inconclusive: 1, does_not_conform: 2 };
 export const worstVerdict = (verdicts: Verdict[]): Verdict =>
@@ -582,6 +588,47 @@ export function decideSeals(findings: readonly SealFinding[] | undefined): RuleR
 }
 
 /**
+ * Declared safety gear with dates (helmet, harness, jacket, extinguisher, first-aid kit): an item past its expiry
+ * or service date on the meeting day, or not presented or not as declared at the dock that day, is a finding that
+ * does not conform; with none, one line says every declared item is in date. Using safety gear within its date is
+ * common practice (no source); the local rulebook and the officials decide what follows.
+ */
+export function decideGear(gear: GearOnDay | null | undefined): RuleResult[] {
+  if (!gear || gear.items === 0) return [];
+  const line = (rule: RuleKey, label: string, ok: boolean, explanation: string): RuleResult => ({
+    rule,
+    label,
+    decisiveValue: null,
+    unit: null,
+    limit: null,
+    acceptanceLimit: null,
+    rejectionLimit: null,
+    expandedUncertainty: null,
+    verdict: ok ? 'conforms' : 'does_not_conform',
+    explanation,
+    measured: false,
+    valueKind: null,
+  });
+  if (gear.findings.length === 0)
+    return [
+      line(
+        'gear:in_date',
+        'Safety gear dates',
+        true,
+        `Every declared item of safety gear (${gear.items}) is within its expiry or service date on ${gear.day}.`,
+      ),
+    ];
+  return gear.findings.map((f, i) =>
+    line(
+      `gear:${i + 1}`,
+      f.code === 'gear_expired' ? 'Safety gear out of date' : 'Safety gear at the dock',
+      false,
+      `${f.text} It does not conform until it is replaced, serviced or shown as declared. The local rulebook and the officials decide what follows.`,
+    ),
+  );
+}
+
+/**
  * The rule line resolved for whoever must prove (the verdict is kept as decided). An inconclusive
  * line's explanation says what it means: under the entrant's burden the usual "measure again" (or
  * fix the part) stands; under the protester's, non-conformity is not proven and the part stands. A
@@ -627,6 +674,7 @@ export function decideInspection(d: DecideInput): InspectionDecision {
     ...(decides('safety') ? decideSafety(d) : []),
     ...(decides('items') ? (itemLines as RuleResult[]) : []),
     ...decideSeals(d.sealFindings),
+    ...(decides('safety') ? decideGear(d.gear) : []),
   ].map((r) => withOutcome(r, burdenOfProof));
   const overall = worstVerdict(rules.map((r) => r.verdict));
   return {

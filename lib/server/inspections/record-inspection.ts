@@ -1,4 +1,5 @@
 import 'server-only';
+import { buildEntryCrewView, loadEntryContext } from '@/lib/server/crew/crew-data';
 import { randomUUID } from 'node:crypto';
 import { z } from 'zod';
 import { QueryTypes } from 'sequelize';
@@ -16,6 +17,7 @@ import {
   scopeFromRequestedChecks,
   VERDICT_WORDS,
   type CheckArea,
+  type GearOnDay,
   type InstrumentFigures,
   type InspectionDecision,
 } from '../../core/inspections/decide-inspection';
@@ -50,6 +52,8 @@ type EntryRow = {
   latestDeclarationVersionId: string | null;
   /** The class's published rule versions, newest first; effectiveFromMs rounded up to the millisecond (their rules: publishedRules). */
   publishedVersions: { id: string; version: number; effectiveFromMs: number }[] | null;
+  /** Dated safety gear declared on the entry (none: no gear line in the verdict, and no gear read). */
+  gearItems: number;
 };
 
 async function findInstrument(
@@ -100,11 +104,27 @@ async function findByKey(eventId: string, key: string): Promise<InspectionView |
 
 // The entry with its boat, class, meeting and entrant in one round trip (this runs for every record
 // sent), and whether the record's key is already stored, so a new record costs no extra query.
+const GEAR_FINDINGS = ['gear_expired', 'gear_not_presented', 'gear_not_as_declared'];
+
+async function gearOnDay(entryId: string, at: Date): Promise<GearOnDay | null> {
+  const context = await loadEntryContext(entryId);
+  if (!context) return null;
+  const view = await buildEntryCrewView(context, at);
+  return {
+    day: view.assessment.day,
+    items: view.assessment.gear.length,
+    findings: view.assessment.findings
+      .filter((f) => GEAR_FINDINGS.includes(f.code))
+      .map((f) => ({ code: f.code, text: f.text })),
+  };
+}
+
 async function loadEntry(eventId: string, entryId: string, key: string | null) {
   const [row] = await getDb().sequelize.query<EntryRow & { keyEventId: string | null }>(
     `select e.id, e.entrant_id as "entrantId", e.race_number as "raceNumber", e.status, e.class_id as "classId", e.boat_id as "boatId",
             b.owner_id as "ownerId", b.name as "boatName", b.declared_power_kw as "boatDeclaredKw", b.power_evidence as "boatPowerEvidence",
             c.name as "className", ev.name as "eventName", u.email as "entrantEmail",
+            (select count(*)::int from entry_gear_items g where g.entry_id = e.id) as "gearItems",
             (select i.event_id from inspections i where i.idempotency_key = :key) as "keyEventId",
             latest.version as "latestDeclarationVersion", latest.id as "latestDeclarationVersionId",
             (select json_agg(json_build_object('id', v.id, 'version', v.version,
@@ -325,8 +345,12 @@ export async function recordInspection(
   }
   // Seals checked, applied and removed, against the register and the boat's components now (400 naming the field).
   const sealPlan = await planInspectionSeals(eventId, entry.boatId, input.seals);
+  // Declared dated gear judged on the record's meeting day: an expired item, or one not presented or not as
+  // declared at the dock that day, is a finding in the verdict (read only when the entry declares gear).
+  const gear = entry.gearItems > 0 ? await gearOnDay(entry.id, measuredAt) : null;
   // Throws EngineInputError naming the field (too few readings for this class): 400.
   const decision = decideInspection({
+    gear,
     input,
     rules: ruleVersion.rules,
     nozzleInstrument,
