@@ -2,8 +2,7 @@ import 'server-only';
 import { cookies } from 'next/headers';
 import { decode, getToken, type JWT, type JWTDecodeParams } from 'next-auth/jwt';
 import { serverEnv } from '@/lib/server/config/env';
-import { QueryTypes } from 'sequelize';
-import { getDb } from '@/lib/server/db';
+import { preparedQuery } from '@/lib/server/db/prepared-query';
 import { rolesCan, type Permission, type Role } from '../../core/auth/permissions';
 import { AppError } from '@/lib/core/errors';
 
@@ -23,7 +22,8 @@ export async function loadActor(userId: string, sessionVersion: number): Promise
   // One round trip: this runs for every signed-in request. A suspended account has no actor, and a
   // session issued under an earlier session version is over (lib/server/auth/sessions.ts), so sign-out,
   // a password change or a suspension stop every open session at once.
-  const [row] = await getDb().sequelize.query<{
+  // Prepared: parsed and planned once per connection, not on every request.
+  const [row] = await preparedQuery<{
     id: string;
     email: string;
     name: string | null;
@@ -32,11 +32,12 @@ export async function loadActor(userId: string, sessionVersion: number): Promise
     staff: { eventId: string; role: Role }[];
     organiserOf: string[];
   }>(
+    'actor:load',
     `select u.id, u.email, u.name, u.is_admin as "isAdmin", u.email_verified is not null as "isAddressProven",
             coalesce((select json_agg(json_build_object('eventId', s.event_id, 'role', s.role)) from event_staff s where s.user_id = u.id), '[]') as staff,
             coalesce((select json_agg(m.organisation_id) from organisation_members m where m.user_id = u.id and m.role = 'organiser'), '[]') as "organiserOf"
        from users u where u.id = :userId and u.suspended_at is null and u.session_version = :sessionVersion`,
-    { replacements: { userId, sessionVersion }, type: QueryTypes.SELECT },
+    { userId, sessionVersion },
   );
   if (!row) return null;
   const eventRoles: Record<string, Role[]> = {};

@@ -4,6 +4,7 @@ import { randomUUID } from 'node:crypto';
 import { z } from 'zod';
 import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/server/db';
+import { preparedQuery, preparedTransaction } from '@/lib/server/db/prepared-query';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError, fieldError } from '@/lib/core/errors';
 import { outboxInsertSql, outboxRows, type QueuedMail } from '@/lib/server/mail/outbox';
@@ -120,7 +121,9 @@ async function gearOnDay(entryId: string, at: Date): Promise<GearOnDay | null> {
 }
 
 async function loadEntry(eventId: string, entryId: string, key: string | null) {
-  const [row] = await getDb().sequelize.query<EntryRow & { keyEventId: string | null }>(
+  // Prepared: this runs for every record, and PostgreSQL planned it for longer than it ran.
+  const [row] = await preparedQuery<EntryRow & { keyEventId: string | null }>(
+    'record-inspection:entry',
     `select e.id, e.entrant_id as "entrantId", e.race_number as "raceNumber", e.status, e.class_id as "classId", e.boat_id as "boatId",
             b.owner_id as "ownerId", b.name as "boatName", b.declared_power_kw as "boatDeclaredKw", b.power_evidence as "boatPowerEvidence",
             c.name as "className", ev.name as "eventName", u.email as "entrantEmail",
@@ -136,7 +139,7 @@ async function loadEntry(eventId: string, entryId: string, key: string | null) {
             left join lateral (select d.id, d.version from boat_declaration_versions d where d.boat_id = e.boat_id
                                 order by d.version desc limit 1) latest on true
       where e.id = :entryId and e.event_id = :eventId`,
-    { replacements: { entryId, eventId, key }, type: QueryTypes.SELECT },
+    { entryId, eventId, key },
   );
   return row as (EntryRow & { keyEventId: string | null }) | undefined;
 }
@@ -164,47 +167,58 @@ const settleAskedSql = `update reinspections r set done_at = now(), inspection_i
 type NewRecordRow = Record<string, unknown> & { entryId: string; boatId: string; reinspectionId: string | null };
 type Inserted = { id: string; receivedAt: Date; declarationVersionId: string };
 
+// A new record of the boat's latest declaration, with no seal events: the insert takes the entry's row lock
+// and inserts unless the declaration moved on or the key is stored.
+const ONE_TRIP_INSERT = `with locked as (select id from entries where id = :entryId for update)
+     insert into inspections (id, ${INSERT_COLUMNS}, declaration_version_id)
+     select :id, ${INSERT_VALUES}, :declarationVersionId
+       from locked
+      where not exists (select 1 from boat_declaration_versions d where d.boat_id = :boatId and d.version > :shownVersion)
+     on conflict (idempotency_key) do nothing
+     returning id, received_at as "receivedAt", declaration_version_id as "declarationVersionId"`;
+
+// What follows a record (as in the full transaction of recordInspection), on a new snapshot that holds the
+// insert and every record committed before the entry's lock was granted.
+const ONE_TRIP_FOLLOW_UP = `with ${currentInspectionCte('entry')},
+     entry_result as (
+       update entries set inspection_result = case
+                -- The usual case: nothing else of the entry was captured at or after this record and its declaration
+                -- is still the newest, so this new record's chain has the latest root and is the current one: its
+                -- verdict, without walking the entry's whole history (the walk stays for the rest).
+                when not exists (select 1 from inspections o
+                                  where o.entry_id = :entryId and o.id <> :id and o.captured_at >= cast(:capturedAt as timestamptz))
+                 and not exists (select 1 from boat_declaration_versions d where d.boat_id = :boatId and d.version > :shownVersion)
+                then :overall
+                else (select i.overall_result from inspections i where i.id = (select id from current_inspection)) end,
+              updated_at = now()
+        where id = :entryId),
+     settled as (${settleAskedSql} returning r.id),
+     task as (
+       update reinspections set inspection_id = :id, done_at = now(), updated_at = now()
+        where id = :reinspectionId and done_at is null and id not in (select id from settled)
+          and ${MEASURED_AFTER_TASK}),
+     mail as (${outboxInsertSql('outboxMail')})
+     select 1`;
+
 /**
- * A new record of the boat's latest declaration, with no seal events, in one round trip: two statements
- * in one simple query, which PostgreSQL runs as one transaction (either both take effect or neither).
- * The first takes the entry's row lock and inserts unless the declaration moved on or the key is stored;
- * the second, on a new snapshot that holds the insert and every record committed before the lock was
- * granted, does what follows a record (as in the full transaction of recordInspection). The record's id
- * is made here so the second statement finds exactly this insert. Null when nothing was inserted: the
- * caller then takes the full transaction, which tells a replay from a declaration edit.
+ * A new record of the boat's latest declaration, with no seal events, as two prepared statements in one
+ * transaction (PostgreSQL plans each once per connection: planning the follow-up as text cost more than
+ * running it). Null when nothing was inserted: the caller then takes the full transaction, which tells a
+ * replay from a declaration edit.
  */
 async function writeInOneTrip(
   row: NewRecordRow,
   { declarationVersionId, shownVersion, mail }: { declarationVersionId: string; shownVersion: number; mail: string },
 ): Promise<Inserted | null> {
   const id = randomUUID();
-  const rows = await getDb().sequelize.query<Inserted>(
-    `with locked as (select id from entries where id = :entryId for update)
-     insert into inspections (id, ${INSERT_COLUMNS}, declaration_version_id)
-     select :id, ${INSERT_VALUES}, :declarationVersionId
-       from locked
-      where not exists (select 1 from boat_declaration_versions d where d.boat_id = :boatId and d.version > :shownVersion)
-     on conflict (idempotency_key) do nothing;
-     with ${currentInspectionCte('entry')},
-     inserted as (select id, received_at, declaration_version_id from inspections where id = :id),
-     entry_result as (
-       update entries set inspection_result = (select i.overall_result from inspections i where i.id = (select id from current_inspection)),
-              updated_at = now()
-        where id = :entryId and exists (select 1 from inserted)),
-     settled as (${settleAskedSql} and exists (select 1 from inserted) returning r.id),
-     task as (
-       update reinspections set inspection_id = :id, done_at = now(), updated_at = now()
-        where id = :reinspectionId and done_at is null and exists (select 1 from inserted) and id not in (select id from settled)
-          and ${MEASURED_AFTER_TASK}),
-     mail as (${outboxInsertSql('outboxMail')} where exists (select 1 from inserted))
-     select id, received_at as "receivedAt", declaration_version_id as "declarationVersionId" from inserted`,
-    {
-      // No correction takes this path, so the boat was measured at the record's capture time.
-      replacements: { ...row, id, declarationVersionId, shownVersion, outboxMail: mail, measuredAt: row.capturedAt },
-      type: QueryTypes.SELECT,
-    },
-  );
-  return rows[0] ?? null;
+  // No correction takes this path, so the boat was measured at the record's capture time.
+  const values = { ...row, id, declarationVersionId, shownVersion, outboxMail: mail, measuredAt: row.capturedAt };
+  return preparedTransaction(async (q) => {
+    const [inserted] = await q<Inserted>('record-inspection:insert', ONE_TRIP_INSERT, values);
+    if (!inserted) return null;
+    await q('record-inspection:follow-up', ONE_TRIP_FOLLOW_UP, values);
+    return inserted;
+  });
 }
 
 /** The entrant's result mail, queued with the record (sent by the outbox worker, never on the request path). */
