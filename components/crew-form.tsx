@@ -2,7 +2,8 @@
 
 import { useId, useState } from 'react';
 import { useRouter } from 'next/navigation';
-import type { CrewMemberFacts, GearFacts } from '@/lib/core/crew/assess-crew';
+import type { GearFacts } from '@/lib/core/crew/assess-crew';
+import type { CrewMemberView } from '@/lib/server/crew/crew-data';
 import {
   BOAT_GEAR_KINDS,
   CREW_LIMITS,
@@ -37,12 +38,12 @@ type Member = {
   gear: Gear[];
 };
 
-const fromFacts = (m: CrewMemberFacts): Member => ({
+const fromFacts = (m: CrewMemberView): Member => ({
   id: m.id,
   role: m.role,
   name: m.name,
   isEntrant: m.hasAccount,
-  bornOn: m.bornOn,
+  bornOn: m.bornOn ?? '',
   licenceIssuedBy: m.licence?.issuedBy ?? '',
   licenceGrade: m.licence?.grade ?? '',
   licenceNumber: m.licence?.number ?? '',
@@ -260,7 +261,7 @@ export function CrewForm({
   boatGear: initialBoatGear,
 }: {
   entryId: string;
-  members: CrewMemberFacts[];
+  members: CrewMemberView[];
   boatGear: GearFacts[];
 }) {
   const uid = useId();

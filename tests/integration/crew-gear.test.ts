@@ -112,6 +112,28 @@ test('the entrant records driver and navigator with gear; dates are judged at th
     entry.id,
   ]);
   assert.equal(Number(n), 5);
+  // The entrant reads the dates of birth they gave; the meeting's chief scrutineer reads whether each person is a
+  // minor on the day, not the date (data minimisation, GDPR Art. 5(1)(c)), and the licence the dock checks.
+  const own = (await (await entrant.fetch(`/api/entries/${entry.id}/crew`)).json()).data.members;
+  assert.deepEqual(
+    own.map((m: { bornOn: string | null; isMinor: boolean }) => [m.bornOn, m.isMinor]),
+    [
+      [yearsBefore(dayInZone(-1), 20), false],
+      [yearsBefore(dayInZone(-1), 15), true],
+    ],
+  );
+  const official = (await (await chief.fetch(`/api/entries/${entry.id}/crew`)).json()).data.members;
+  assert.deepEqual(
+    official.map((m: { bornOn: string | null; isMinor: boolean; licence: { number: string } | null }) => [
+      m.bornOn,
+      m.isMinor,
+      m.licence?.number ?? null,
+    ]),
+    [
+      [null, false, 'IRB-2041'],
+      [null, true, 'IRB-2041'],
+    ],
+  );
   // The entrant's screen shows the expired helmet.
   const page = await entrant.fetch('/entries');
   const html = await page.text();

@@ -7,6 +7,7 @@ import { formatCalendarDate } from '@/lib/core/format/time';
 import {
   assessCrew,
   dayInZone,
+  isMinorOn,
   type CrewAssessment,
   type CrewMemberFacts,
   type CrewRequirements,
@@ -157,25 +158,43 @@ export async function loadRequirements(eventId: string): Promise<{
   };
 }
 
+/** A person as a reader sees them: an official reads whether they are a minor on the day, not their date of birth. */
+export type CrewMemberView = Omit<CrewMemberFacts, 'bornOn'> & { bornOn: string | null; isMinor: boolean };
+
 export type EntryCrewView = {
   entry: EntryContext;
-  members: CrewMemberFacts[];
+  members: CrewMemberView[];
   boatGear: GearFacts[];
   requirements: CrewRequirements;
   assessment: CrewAssessment;
 };
 
-/** One entry's people, gear and their assessment on today's meeting day (the caller checked access). */
-export async function buildEntryCrewView(entry: EntryContext, now = new Date()): Promise<EntryCrewView> {
+/**
+ * One entry's people, gear and their assessment on the meeting day of `now` (the caller checked access).
+ * `readerId`: the person who reads it; anyone but the entrant and the boat's owner (the meeting's officials)
+ * gets no date of birth (data minimisation: the officials need "minor on the day", not the date), while licence
+ * numbers stay for the dock's sign-on. Without it (the server's own use) the view is whole.
+ */
+export async function buildEntryCrewView(
+  entry: EntryContext,
+  now = new Date(),
+  readerId?: string,
+): Promise<EntryCrewView> {
   const [facts, reqs] = await Promise.all([loadCrewFacts([entry.id]), loadRequirements(entry.eventId)]);
   const f = facts.get(entry.id) ?? { members: [], boatGear: [], checks: [], signOns: [] };
   const requirements = reqs.forClass(entry.classId);
+  const assessment = assessCrew(f.members, f.boatGear, requirements, entry, now, f.checks, f.signOns);
+  const isOwnEntry = readerId === undefined || readerId === entry.entrantId || readerId === entry.boatOwnerId;
   return {
     entry,
-    members: f.members,
+    members: f.members.map((m) => ({
+      ...m,
+      bornOn: isOwnEntry ? m.bornOn : null,
+      isMinor: isMinorOn(m.bornOn, assessment.day),
+    })),
     boatGear: f.boatGear,
     requirements,
-    assessment: assessCrew(f.members, f.boatGear, requirements, entry, now, f.checks, f.signOns),
+    assessment,
   };
 }
 

@@ -19,5 +19,5 @@ export async function getEntryCrew(
   if (!entry || (eventId && entry.eventId !== eventId)) throw notFoundEntry();
   // Anyone else gets the answer a missing entry gets: the entry's existence is not theirs to learn.
   if (!mayReadCrew(actor, entry)) throw notFoundEntry();
-  return buildEntryCrewView(entry);
+  return buildEntryCrewView(entry, new Date(), actor.id);
 }

@@ -26,7 +26,7 @@ export async function signOnCrew(
     ownBoat: 'You entered or own this boat: another official must sign its crew on.',
     notMeetingDay: 'Crews sign on on a meeting day',
   });
-  const view = await buildEntryCrewView(entry, now);
+  const view = await buildEntryCrewView(entry, now, actor.id);
   const ids = input.crewMemberIds.map((i) => i.toLowerCase());
   const unknown: FieldIssue[] = ids
     .map((id, i) =>

@@ -59,5 +59,5 @@ export async function recordGearChecks(
       };
     }),
   );
-  return buildEntryCrewView(entry, now);
+  return buildEntryCrewView(entry, now, actor.id);
 }
