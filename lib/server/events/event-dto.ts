@@ -2,7 +2,12 @@ import 'server-only';
 import type { Event } from '@/models';
 import type { EventInput } from '@/lib/core/inputs/events';
 
-export type EventDto = EventInput & { id: string; organisationId: string; slug: string; severalClassesPerBoat: boolean };
+export type EventDto = EventInput & {
+  id: string;
+  organisationId: string;
+  slug: string;
+  severalClassesPerBoat: boolean;
+};
 
 export function toEventDto(e: Event): EventDto {
   return {
