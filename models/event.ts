@@ -29,6 +29,7 @@ export class Event extends Model<InferAttributes<Event>, InferCreationAttributes
   declare currency: CreationOptional<string>;
   declare entryFeeMinor: CreationOptional<number>;
   declare protestFeeMinor: CreationOptional<number>;
+  declare appealFeeMinor: CreationOptional<number>; // notice of appeal to the governing body's appeal body
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -77,6 +78,7 @@ export function initEvents(sequelize: Sequelize) {
       currency: { type: DataTypes.STRING(3), allowNull: false, defaultValue: 'NZD' },
       entryFeeMinor: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       protestFeeMinor: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+      appealFeeMinor: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
