@@ -142,12 +142,13 @@ test('entrant pages: no serious or critical axe-core violation in either theme',
     { path: `/boats/${entry.boatId}` },
     { path: `/slot/${meeting.eventId}/${entry.id}` },
     { path: '/protests' },
+    { path: '/appeals' },
     { path: '/account' },
   ]);
   await context.close();
 });
 
-test('organiser, steward and administrator pages: no serious or critical axe-core violation in either theme', async () => {
+test('organiser, steward, administrator and appeal body pages: no serious or critical axe-core violation in either theme', async () => {
   const e = meeting.eventId;
   for (const [email, stops] of [
     [
@@ -171,9 +172,11 @@ test('organiser, steward and administrator pages: no serious or critical axe-cor
         { path: `/stewards/${e}` },
         { path: `/stewards/${e}/audit` },
         { path: `/stewards/${e}/interests` },
+        { path: `/stewards/${e}/penalties` },
       ],
     ],
     [DEMO.admin, [{ path: '/admin' }]],
+    [DEMO.appealBody, [{ path: '/appeals' }]],
   ] as const) {
     const { context, page } = await signedInPage(email);
     await sweep(page, context, [...stops]);
