@@ -39,6 +39,13 @@ export async function decideAppeal(
         409,
         `This appeal is ${APPEAL_STATUS_LABELS[appeal.status].toLowerCase()}: it cannot be decided now.`,
       );
+    // Another appeal against the same penalty may have ended it already: that decision stands.
+    const [ended] = await sequelize.query(
+      `select 1 from appeals where penalty_id = :penaltyId and id <> :id and status in ('annulled', 'amended')`,
+      { replacements: { penaltyId: appeal.penaltyId, id: appeal.id }, type: QueryTypes.SELECT, transaction },
+    );
+    if (ended)
+      throw new AppError('conflict', 409, 'Another appeal has already ended this penalty: decide on that footing.');
     const entry = (await readPenalisedEntry(appeal.entryId, appeal.eventId, transaction))!;
     const item =
       input.outcome === 'amended'
@@ -48,38 +55,13 @@ export async function decideAppeal(
       throw new AppError('invalid_input', 400, 'runLabel: only an amended decision names a run.', [
         { field: 'runLabel', message: 'Only an amended decision names a run.' },
       ]);
-    const succeeds = input.outcome !== 'confirmed';
-    let refund: { id: string } | null = null;
-    if (succeeds && appeal.paymentIntentId && !appeal.refundId) {
-      refund = await refundPayment({
-        paymentIntentId: appeal.paymentIntentId,
-        idempotencyKey: `appeal-fee-refund-${appeal.id}`,
-        metadata: { kind: 'appeal', appealId: appeal.id },
-      }).catch((err) => {
-        if (err instanceof AppError) throw err;
-        console.error('[boreline] appeal fee refund failed; decision not recorded', appeal.id, err);
-        throw new AppError(
-          'refund_failed',
-          502,
-          'The payment provider did not confirm the refund, so the decision was not recorded. Try again.',
-        );
-      });
-    }
     const decidedAt = new Date();
     await sequelize.query(
       `update appeals set status = :status, decision_reasons = :reasons, decided_at = :decidedAt, decided_by_id = :actorId,
-              refund_id = coalesce(:refundId, refund_id), refunded_at = case when :refundId::text is null then refunded_at else :decidedAt end,
               updated_at = now()
         where id = :id`,
       {
-        replacements: {
-          status: input.outcome,
-          reasons: input.reasons,
-          decidedAt,
-          actorId: actor!.id,
-          refundId: refund?.id ?? null,
-          id: appeal.id,
-        },
+        replacements: { status: input.outcome, reasons: input.reasons, decidedAt, actorId: actor!.id, id: appeal.id },
         transaction,
       },
     );
@@ -112,6 +94,40 @@ export async function decideAppeal(
       );
       replacingId = row.id;
     }
+    const amended = await amendClassResults(
+      {
+        eventId: appeal.eventId,
+        classId: appeal.classId,
+        actorId: actor!.id,
+        source: 'appeal',
+        note: `Appeal body: penalty ${appeal.penaltyCode} on #${appeal.raceNumber} ${input.outcome}`,
+      },
+      transaction,
+    );
+    // The refund is the last step that can fail (after the results amendment, which may refuse): when the
+    // provider does not confirm it, nothing of the decision is stored.
+    const succeeds = input.outcome !== 'confirmed';
+    let refund: { id: string } | null = null;
+    if (succeeds && appeal.paymentIntentId && !appeal.refundId) {
+      refund = await refundPayment({
+        paymentIntentId: appeal.paymentIntentId,
+        idempotencyKey: `appeal-fee-refund-${appeal.id}`,
+        metadata: { kind: 'appeal', appealId: appeal.id },
+      }).catch((err) => {
+        if (err instanceof AppError) throw err;
+        console.error('[boreline] appeal fee refund failed; decision not recorded', appeal.id, err);
+        throw new AppError(
+          'refund_failed',
+          502,
+          'The payment provider did not confirm the refund, so the decision was not recorded. Try again.',
+        );
+      });
+    }
+    if (refund)
+      await sequelize.query(`update appeals set refund_id = :refundId, refunded_at = :decidedAt where id = :id`, {
+        replacements: { refundId: refund.id, decidedAt, id: appeal.id },
+        transaction,
+      });
     await recordAuditEvent(
       {
         eventId: appeal.eventId,
@@ -125,16 +141,6 @@ export async function decideAppeal(
           replacingPenaltyId: replacingId,
           refundId: refund?.id ?? null,
         },
-      },
-      transaction,
-    );
-    const amended = await amendClassResults(
-      {
-        eventId: appeal.eventId,
-        classId: appeal.classId,
-        actorId: actor!.id,
-        source: 'appeal',
-        note: `Appeal body: penalty ${appeal.penaltyCode} on #${appeal.raceNumber} ${input.outcome}`,
       },
       transaction,
     );
