@@ -74,7 +74,8 @@ export async function listProvisionalResults(
     // Entries with an appeal lodged (fee paid, or none due) and not yet decided: their rows show "under appeal".
     sequelize.query<{ entryId: string }>(
       `select distinct p.entry_id as "entryId" from appeals a join penalties p on p.id = a.penalty_id
-        where a.event_id = :eventId and a.status in ('lodged', 'hearing_scheduled')`,
+        where a.event_id = :eventId and a.status in ('lodged', 'hearing_scheduled')
+          and not exists (select 1 from appeals x where x.penalty_id = p.id and x.status in ('annulled', 'amended'))`,
       { replacements: { eventId }, type: QueryTypes.SELECT },
     ),
   ]);
