@@ -129,6 +129,7 @@ test('scrutineer pages, the dock form included: no serious or critical axe-core 
     { path: `/inspect/${e}/slots` },
     { path: `/inspect/${e}/incidents` },
     { path: `/inspect/${e}/start-list`, ready: 'start-list' },
+    { path: `/inspect/${e}/reports` },
   ]);
   await context.close();
 });
@@ -159,6 +160,7 @@ test('organiser, steward, administrator and appeal body pages: no serious or cri
         { path: `/organise/events/${e}` },
         { path: `/organise/events/${e}/entries` },
         { path: `/organise/events/${e}/results` },
+        { path: `/organise/events/${e}/penalties` },
         { path: `/organise/events/${e}/timing` },
         { path: `/organise/events/${e}/clock` },
         { path: `/organise/events/${e}/classes/${classId}` },

@@ -26,6 +26,7 @@ const PAGES = (eventId: string, classId: string) => [
   { path: `/organise/events/${eventId}`, allowed: DEMO.organiser },
   { path: `/organise/events/${eventId}/entries`, allowed: DEMO.organiser },
   { path: `/organise/events/${eventId}/results`, allowed: DEMO.organiser },
+  { path: `/organise/events/${eventId}/penalties`, allowed: DEMO.organiser },
   { path: `/organise/events/${eventId}/classes/${classId}`, allowed: DEMO.organiser },
   { path: `/organise/events/${eventId}/classes/${classId}/report`, allowed: DEMO.organiser },
   { path: `/stewards/${eventId}`, allowed: DEMO.steward },
@@ -36,6 +37,7 @@ const PAGES = (eventId: string, classId: string) => [
   { path: `/inspect/${eventId}/board`, allowed: DEMO.chief },
   { path: `/inspect/${eventId}/custody`, allowed: DEMO.steward },
   { path: `/inspect/${eventId}/instruments`, allowed: DEMO.chief },
+  { path: `/inspect/${eventId}/reports`, allowed: DEMO.scrutineer },
 ];
 
 const isRedirectTo = (res: Response, target: RegExp) =>
@@ -92,7 +94,7 @@ test("the meeting's staff open each page and see the meeting's name where the pa
     const res = await (await as(allowed)).fetch(path);
     const html = await res.text();
     assert.ok(res.status === 200, `${allowed} ${path}: ${res.status}`);
-    if (/\/(entries|audit|penalties|board|custody|instruments)$|\/inspect\/[^/]+$/.test(path))
+    if (/\/(entries|audit|penalties|reports|board|custody|instruments)$|\/inspect\/[^/]+$/.test(path))
       assert.ok(html.includes(event.name.replace(/&/g, '&amp;')), `${path} names the meeting`);
   }
 });

@@ -117,3 +117,21 @@ export async function fileTechnicalReport(
   });
   return (await listTechnicalReports(actor, eventId)).find((r) => r.id === id)!;
 }
+
+/** What the technical delegate's report screen shows: the meeting's confirmed entries and the reports so far. */
+export async function getReportDesk(
+  actor: Actor | null,
+  eventId: string,
+): Promise<{ entries: { id: string; label: string }[]; reports: TechnicalReportView[] }> {
+  assertCan(actor, 'technical_report.file', { eventId });
+  const [entries, reports] = await Promise.all([
+    getDb().sequelize.query<{ id: string; label: string }>(
+      `select e.id, '#' || e.race_number || ' ' || b.name || ' (' || c.code || ')' as label
+         from entries e join boats b on b.id = e.boat_id join race_classes c on c.id = e.class_id
+        where e.event_id = :eventId and e.status = 'entered' order by e.race_number`,
+      { replacements: { eventId }, type: QueryTypes.SELECT },
+    ),
+    listTechnicalReports(actor, eventId),
+  ]);
+  return { entries, reports };
+}
