@@ -327,6 +327,14 @@ test('a report to the stewards, a penalty amending the results with the reason b
     ['appeal.submitted', 'appeal.checkout_opened', 'appeal.lodged', 'appeal.hearing_scheduled', 'appeal.annulled'],
   );
   assert.equal(trail[2].actor_id, null, 'lodged by the verified webhook, not a person');
+  // The stewards read it in the meeting's trail, in words, with the boat named.
+  const read = await steward.fetch(`/api/events/${EVENT}/audit?kind=appeal`);
+  assert.equal(read.status, 200);
+  const sentences = ((await read.json()).data.items as { sentence: string }[]).map((l) => l.sentence);
+  assert.ok(
+    sentences.some((x) => x.includes(`boat #${A.raceNumber}`) && x.includes("the stewards' penalty is annulled")),
+    sentences.join('\n'),
+  );
   await assert.rejects(query(`update penalties set reason = 'changed' where id = $1`, [penaltyId]), /append-only/);
 });
 

@@ -37,7 +37,7 @@ export async function amendClassResults(
   transaction: Transaction,
 ): Promise<{ id: string; version: number } | null> {
   const { models, sequelize } = getDb();
-  await models.RaceClass.findByPk(opts.classId, { lock: transaction.LOCK.UPDATE, transaction });
+  const cls = await models.RaceClass.findByPk(opts.classId, { lock: transaction.LOCK.UPDATE, transaction });
   const [base, latest] = await Promise.all([
     models.ProvisionalResults.findOne({
       where: { classId: opts.classId, source: ['form', 'csv'] },
@@ -116,6 +116,7 @@ export async function amendClassResults(
       action: 'results.amended',
       details: {
         classId: opts.classId,
+        classCode: cls?.code ?? '',
         version: created.version,
         baseVersion: base.version,
         source: opts.source,
