@@ -21,6 +21,7 @@ const EVENT = '7e570000-0000-4000-8000-000000000801';
 const CLASS_A = '7e570000-0000-4000-8000-000000000802'; // annulled
 const CLASS_B = '7e570000-0000-4000-8000-000000000803'; // confirmed, amended
 const CLASS_C = '7e570000-0000-4000-8000-000000000804'; // refused input
+const CLASS_D = '7e570000-0000-4000-8000-000000000805'; // a later organiser version
 const STEWARD_ID = '0b0e0000-0000-4000-8000-000000001005';
 const ORGANISER_ID = '0b0e0000-0000-4000-8000-000000001002';
 const CHIEF_ID = '0b0e0000-0000-4000-8000-000000001003';
@@ -121,6 +122,7 @@ before(async () => {
     [CLASS_A, 'AA'],
     [CLASS_B, 'AB'],
     [CLASS_C, 'AC'],
+    [CLASS_D, 'AD'],
   ])
     await query(`insert into race_classes (id, event_id, name, code) values ($1, $2, $3, $4) on conflict do nothing`, [
       id,
@@ -521,4 +523,50 @@ test('the notice period, time penalties without run times, conflicts: refused wi
   assert.equal((await admin.fetch(`/api/admin/people/${member.id}/appeal-body`, { method: 'DELETE' })).status, 200);
   assert.equal((await member.s.fetch(`/api/appeals/${ok.body.data.id}`)).status, 404, 'no longer on the appeal body');
   assert.equal((await appealRow(ok.body.data.id)).decided_at, null);
+});
+
+test("the organiser's later version is followed at once by the stewards' amended one: penalties in force stay applied", async () => {
+  const [d1, d2, d3] = [await boat('late-d1', CLASS_D), await boat('late-d2', CLASS_D), await boat('late-d3', CLASS_D)];
+  const publish = async (boats: Boat[]) => {
+    const r = await organiser.json(`/api/events/${EVENT}/results`, {
+      classId: CLASS_D,
+      rows: boats.map((x, i) => ({ position: i + 1, raceNumber: x.raceNumber })),
+    });
+    assert.equal(r.res.status, 201, JSON.stringify(r.body));
+    return r.body.data.latest as {
+      version: number;
+      source: string;
+      rows: { raceNumber: number; status: string | null }[];
+    };
+  };
+  await publish([d1, d2, d3]);
+  const [{ id: reportId }] = await query<{ id: string }>(
+    `insert into technical_reports (event_id, entry_id, filed_by_id, rule_reference, facts) values ($1, $2, $3, 'AT 7', 'Ballast missing') returning id`,
+    [EVENT, d1.entryId, CHIEF_ID],
+  );
+  const pen = await steward.json(`/api/events/${EVENT}/penalties`, {
+    entryId: d1.entryId,
+    catalogueItemId: items.places,
+    technicalReportId: reportId,
+    reason: 'Ballast missing at the weigh-in.',
+  });
+  assert.equal(pen.res.status, 201, JSON.stringify(pen.body));
+  // The organiser corrects the order to d2, d1, d3 (version 3). Hand-worked: d1 (2nd) loses two places but not
+  // past the last classified boat, so the stewards' version 4 reads d2, d3, d1.
+  const latest = await publish([d2, d1, d3]);
+  assert.equal(latest.version, 4);
+  assert.equal(latest.source, 'stewards');
+  assert.deepEqual(
+    order(latest.rows),
+    [d2, d3, d1].map((x) => String(x.raceNumber)),
+  );
+  const [v3] = await query<{ source: string; rows: { raceNumber: number }[] }>(
+    'select source, rows from provisional_results where class_id = $1 and version = 3',
+    [CLASS_D],
+  );
+  assert.equal(v3.source, 'form', "the organiser's own version is kept as published");
+  assert.deepEqual(
+    v3.rows.map((r) => r.raceNumber),
+    [d2, d1, d3].map((x) => x.raceNumber),
+  );
 });
