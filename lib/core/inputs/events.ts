@@ -62,6 +62,8 @@ export const EventInput = z
     currency: z.enum(CURRENCIES, { error: 'Choose a currency.' }),
     entryFeeMinor: money('entry fee'),
     protestFeeMinor: money('protest fee'),
+    // Notice of appeal to the governing body's appeal body; omitted by older clients: left as it is.
+    appealFeeMinor: money('appeal fee').optional(),
   })
   .refine((e) => e.endsOn >= e.startsOn, { path: ['endsOn'], message: 'The last day is before the first day.' });
 export type EventInput = z.infer<typeof EventInput>;

@@ -23,5 +23,6 @@ export function toEventDto(e: Event): EventDto {
     currency: e.currency as EventDto['currency'],
     entryFeeMinor: e.entryFeeMinor,
     protestFeeMinor: e.protestFeeMinor,
+    appealFeeMinor: e.appealFeeMinor,
   };
 }

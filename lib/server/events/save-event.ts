@@ -24,7 +24,7 @@ export async function createEvent(actor: Actor | null, raw: unknown) {
   assertCan(actor, 'event.create', { organisationId: input.organisationId });
   const { sequelize, models } = getDb();
   return sequelize.transaction(async (transaction) => {
-    const { organisationId, ...fields } = input;
+    const { organisationId, ...fields } = withoutUndefined(input);
     const event = await models.Event.create(
       { ...fields, organisationId, slug: `${slugify(input.name)}-${randomBytes(3).toString('hex')}` },
       { transaction },
@@ -34,13 +34,18 @@ export async function createEvent(actor: Actor | null, raw: unknown) {
   });
 }
 
+/** A field an older client leaves out (the appeal fee) keeps its stored value or the column's default. */
+function withoutUndefined<T extends Record<string, unknown>>(input: T): T {
+  return Object.fromEntries(Object.entries(input).filter(([, v]) => v !== undefined)) as T;
+}
+
 /** The event's organiser edits its details. */
 export async function updateEvent(actor: Actor | null, eventId: string, raw: unknown) {
   assertCan(actor, 'event.edit', { eventId });
   const input = EventInput.parse(raw);
   const event = await getDb().models.Event.findByPk(eventId);
   if (!event) throw new AppError('not_found', 404, 'No such event.');
-  await event.update(input);
+  await event.update(withoutUndefined(input));
   return toEventDto(event);
 }
 

@@ -47,6 +47,7 @@ export function EventForm({ event, organisations = [] }: Props) {
         currency: f.get('currency'),
         entryFeeMinor: fee('entryFee'),
         protestFeeMinor: fee('protestFee'),
+        appealFeeMinor: fee('appealFee'),
       };
       const local = EventInput.safeParse(body);
       if (!local.success) return { ok: false, fieldErrors: toFieldErrors(local.error), message: CHECK_FIELDS_MESSAGE };
@@ -206,6 +207,15 @@ export function EventForm({ event, organisations = [] }: Props) {
           inputMode="decimal"
           defaultValue={event ? (event.protestFeeMinor / 100).toFixed(2) : '0.00'}
           error={err('protestFeeMinor')}
+        />
+        <TextField
+          name="appealFee"
+          label="Appeal fee"
+          unit={event?.currency ?? 'currency units'}
+          inputMode="decimal"
+          hint="Paid with a notice of appeal to the governing body's appeal body; its rules set the amount."
+          defaultValue={event ? ((event.appealFeeMinor ?? 0) / 100).toFixed(2) : '0.00'}
+          error={err('appealFeeMinor')}
         />
         <div className="sm:col-span-2 space-y-2">
           <FormMessage state={state} />

@@ -80,3 +80,28 @@ test('hearing: an instant with its offset (the appeal body sits above any one me
     ['place'],
   );
 });
+
+test("the meeting's appeal fee: whole cents, not negative, and optional for older clients", async () => {
+  const { EventInput } = await import('../../../../lib/core/inputs/events');
+  const meeting = {
+    name: 'Test meeting',
+    venue: 'Test Reach',
+    startsOn: '2027-05-01',
+    endsOn: '2027-05-02',
+    timeZone: 'Pacific/Auckland',
+    status: 'draft',
+    waterKind: 'fresh',
+    waterTemperatureC: 15,
+    waterDensityKgM3: null,
+    protestWindowMinutes: 30,
+    currency: 'NZD',
+    entryFeeMinor: 0,
+    protestFeeMinor: 0,
+  };
+  const without = EventInput.safeParse(meeting);
+  assert.ok(without.success, JSON.stringify(without.error?.issues));
+  assert.equal(without.data.appealFeeMinor, undefined);
+  assert.equal(EventInput.safeParse({ ...meeting, appealFeeMinor: 7500 }).data?.appealFeeMinor, 7500);
+  assert.deepEqual(fieldsOf(EventInput.safeParse({ ...meeting, appealFeeMinor: -1 })), ['appealFeeMinor']);
+  assert.deepEqual(fieldsOf(EventInput.safeParse({ ...meeting, appealFeeMinor: 12.5 })), ['appealFeeMinor']);
+});
