@@ -189,6 +189,28 @@ test('catalogue: the organiser adds items (a kind with an amount needs one; a co
   );
 });
 
+test("the meeting's appeal fee: the organiser sets it; a client that leaves it out leaves it as it is", async () => {
+  const dto = (await (await organiser.fetch(`/api/events/${EVENT}`)).json()).data;
+  assert.equal(dto.appealFeeMinor, FEE);
+  const { id: _id, organisationId: _o, slug: _s, appealFeeMinor: _a, ...fields } = dto;
+  const fee = async () =>
+    Number((await query<{ f: number }>('select appeal_fee_minor as f from events where id = $1', [EVENT]))[0].f);
+  try {
+    assert.equal(
+      (await organiser.json(`/api/events/${EVENT}`, { ...fields, appealFeeMinor: 9900 }, 'PATCH')).res.status,
+      200,
+    );
+    assert.equal(await fee(), 9900);
+    assert.equal((await organiser.json(`/api/events/${EVENT}`, fields, 'PATCH')).res.status, 200);
+    assert.equal(await fee(), 9900, 'left as it is');
+    const bad = await organiser.json(`/api/events/${EVENT}`, { ...fields, appealFeeMinor: -5 }, 'PATCH');
+    assert.equal(bad.res.status, 400);
+    assert.equal(await fee(), 9900, 'nothing stored');
+  } finally {
+    await query('update events set appeal_fee_minor = $1 where id = $2', [FEE, EVENT]);
+  }
+});
+
 test('a report to the stewards, a penalty amending the results with the reason beside the row, the e-mail; the appeal lodged through the fee shows "under appeal"; the appeal body annuls: results restored, fee refunded', async () => {
   const [A, B, C] = [await boat('pen-a', CLASS_A), await boat('pen-b', CLASS_A), await boat('pen-c', CLASS_A)];
   const v1 = await organiser.json(`/api/events/${EVENT}/results`, {
