@@ -8,7 +8,7 @@ import { NextResponse, type NextFetchEvent, type NextRequest } from 'next/server
 import { withAuth, type NextRequestWithAuth } from 'next-auth/middleware';
 import { newNonce, pageCsp } from '@/lib/server/http/content-security-policy';
 
-const SIGNED_IN_AREAS = /^\/(home|account|organise|admin|boats|entries|inspect|protests|stewards)(\/|$)/;
+const SIGNED_IN_AREAS = /^\/(home|account|organise|admin|boats|entries|inspect|protests|appeals|stewards)(\/|$)/;
 
 function withNonce(req: NextRequest): NextResponse {
   if (req.nextUrl.pathname.startsWith('/api/')) return NextResponse.next(); // JSON: next.config.mjs sets its policy

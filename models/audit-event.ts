@@ -7,7 +7,17 @@ import {
   type Sequelize,
 } from 'sequelize';
 
-export type AuditSubjectType = 'protest' | 'inspection' | 'rules' | 'results' | 'entry' | 'staff';
+export type AuditSubjectType =
+  | 'protest'
+  | 'inspection'
+  | 'rules'
+  | 'results'
+  | 'entry'
+  | 'staff'
+  | 'penalty'
+  | 'appeal'
+  | 'technical_report'
+  | 'penalty_catalogue';
 
 // One line of a meeting's audit trail. Append-only: the database refuses updates and deletes.
 export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreationAttributes<AuditEvent>> {

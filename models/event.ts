@@ -31,6 +31,7 @@ export class Event extends Model<InferAttributes<Event>, InferCreationAttributes
   declare protestFeeMinor: CreationOptional<number>;
   /** The meeting lets one boat enter several classes (each inspected under its own class's rules). */
   declare severalClassesPerBoat: CreationOptional<boolean>;
+  declare appealFeeMinor: CreationOptional<number>; // notice of appeal to the governing body's appeal body
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -80,6 +81,7 @@ export function initEvents(sequelize: Sequelize) {
       entryFeeMinor: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       protestFeeMinor: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       severalClassesPerBoat: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+      appealFeeMinor: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

@@ -52,6 +52,7 @@ cat <<MSG
     steward           steward@tarnwater.example
     entrant           entrant@tarnwater.example
     site admin        admin@boreline.example
+    appeal body       appeals@boreline.example
 
   E-mail goes to the local fake; the site admin reads it at ${NEXTAUTH_URL}/dev/outbox
   Stop with Ctrl-C.

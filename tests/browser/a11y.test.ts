@@ -129,6 +129,7 @@ test('scrutineer pages, the dock form included: no serious or critical axe-core 
     { path: `/inspect/${e}/slots` },
     { path: `/inspect/${e}/incidents` },
     { path: `/inspect/${e}/start-list`, ready: 'start-list' },
+    { path: `/inspect/${e}/reports` },
   ]);
   await context.close();
 });
@@ -142,12 +143,13 @@ test('entrant pages: no serious or critical axe-core violation in either theme',
     { path: `/boats/${entry.boatId}` },
     { path: `/slot/${meeting.eventId}/${entry.id}` },
     { path: '/protests' },
+    { path: '/appeals' },
     { path: '/account' },
   ]);
   await context.close();
 });
 
-test('organiser, steward and administrator pages: no serious or critical axe-core violation in either theme', async () => {
+test('organiser, steward, administrator and appeal body pages: no serious or critical axe-core violation in either theme', async () => {
   const e = meeting.eventId;
   for (const [email, stops] of [
     [
@@ -158,6 +160,7 @@ test('organiser, steward and administrator pages: no serious or critical axe-cor
         { path: `/organise/events/${e}` },
         { path: `/organise/events/${e}/entries` },
         { path: `/organise/events/${e}/results` },
+        { path: `/organise/events/${e}/penalties` },
         { path: `/organise/events/${e}/timing` },
         { path: `/organise/events/${e}/clock` },
         { path: `/organise/events/${e}/classes/${classId}` },
@@ -171,9 +174,11 @@ test('organiser, steward and administrator pages: no serious or critical axe-cor
         { path: `/stewards/${e}` },
         { path: `/stewards/${e}/audit` },
         { path: `/stewards/${e}/interests` },
+        { path: `/stewards/${e}/penalties` },
       ],
     ],
     [DEMO.admin, [{ path: '/admin' }]],
+    [DEMO.appealBody, [{ path: '/appeals' }]],
   ] as const) {
     const { context, page } = await signedInPage(email);
     await sweep(page, context, [...stops]);

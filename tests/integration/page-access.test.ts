@@ -26,15 +26,18 @@ const PAGES = (eventId: string, classId: string) => [
   { path: `/organise/events/${eventId}`, allowed: DEMO.organiser },
   { path: `/organise/events/${eventId}/entries`, allowed: DEMO.organiser },
   { path: `/organise/events/${eventId}/results`, allowed: DEMO.organiser },
+  { path: `/organise/events/${eventId}/penalties`, allowed: DEMO.organiser },
   { path: `/organise/events/${eventId}/classes/${classId}`, allowed: DEMO.organiser },
   { path: `/organise/events/${eventId}/classes/${classId}/report`, allowed: DEMO.organiser },
   { path: `/stewards/${eventId}`, allowed: DEMO.steward },
   { path: `/stewards/${eventId}/audit`, allowed: DEMO.steward },
+  { path: `/stewards/${eventId}/penalties`, allowed: DEMO.steward },
   { path: `/stewards/${eventId}/interests`, allowed: DEMO.scrutineer },
   { path: `/inspect/${eventId}`, allowed: DEMO.scrutineer },
   { path: `/inspect/${eventId}/board`, allowed: DEMO.chief },
   { path: `/inspect/${eventId}/custody`, allowed: DEMO.steward },
   { path: `/inspect/${eventId}/instruments`, allowed: DEMO.chief },
+  { path: `/inspect/${eventId}/reports`, allowed: DEMO.scrutineer },
 ];
 
 const isRedirectTo = (res: Response, target: RegExp) =>
@@ -91,7 +94,7 @@ test("the meeting's staff open each page and see the meeting's name where the pa
     const res = await (await as(allowed)).fetch(path);
     const html = await res.text();
     assert.ok(res.status === 200, `${allowed} ${path}: ${res.status}`);
-    if (/\/(entries|audit|board|custody|instruments)$|\/inspect\/[^/]+$/.test(path))
+    if (/\/(entries|audit|penalties|reports|board|custody|instruments)$|\/inspect\/[^/]+$/.test(path))
       assert.ok(html.includes(event.name.replace(/&/g, '&amp;')), `${path} names the meeting`);
   }
 });
@@ -99,7 +102,7 @@ test("the meeting's staff open each page and see the meeting's name where the pa
 // Each area's first page (issue 14, item 5: a loading.tsx must not cost a page its status). Statuses
 // per RFC 9110: §15.4.8 307 Temporary Redirect, §15.3.1 200 OK.
 test('the area index pages keep their statuses: sign in first, /not-allowed without the role for organise and administration', async () => {
-  const INDEXES = ['/inspect', '/organise', '/stewards', '/protests', '/admin'];
+  const INDEXES = ['/inspect', '/organise', '/stewards', '/protests', '/appeals', '/admin'];
   for (const path of INDEXES) {
     const res = await new HttpSession().fetch(path);
     assert.ok(isRedirectTo(res, /^\/sign-in$/), `anonymous ${path}: ${res.status} ${res.headers.get('location')}`);
@@ -108,6 +111,8 @@ test('the area index pages keep their statuses: sign in first, /not-allowed with
     [DEMO.entrant, '/inspect', 200],
     [DEMO.entrant, '/stewards', 200],
     [DEMO.entrant, '/protests', 200],
+    [DEMO.entrant, '/appeals', 200],
+    [DEMO.appealBody, '/appeals', 200],
     [DEMO.entrant, '/organise', '/not-allowed'],
     [DEMO.steward, '/organise', '/not-allowed'],
     [DEMO.organiser, '/organise', 200],
@@ -132,6 +137,9 @@ test('a well-formed id that names no class or protest there is a 404', async () 
     [DEMO.steward, `/stewards/${M}/protests/not-a-protest`],
     [DEMO.entrant, `/protests/${randomUUID()}`],
     [DEMO.entrant, '/protests/not-a-protest'],
+    [DEMO.entrant, `/appeals/${randomUUID()}`],
+    [DEMO.appealBody, `/appeals/${randomUUID()}`],
+    [DEMO.appealBody, '/appeals/not-an-appeal'],
   ];
   for (const [email, path] of paths) {
     const res = await (await as(email)).fetch(path);

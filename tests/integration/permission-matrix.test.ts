@@ -1,7 +1,7 @@
 // The permission matrix: every route handler, generated from the one permission table
 // (lib/core/auth/permissions.ts). For each actor — anonymous, entrant (own and other's data), scrutineer
 // assigned and not assigned to the meeting, steward, organiser of this and of another meeting, site
-// administrator — each endpoint must allow or deny as the table says. Allowed means the answer is
+// administrator, a member of the governing body's appeal body (above every meeting) — each endpoint must allow or deny as the table says. Allowed means the answer is
 // not 401/403 (bodies here are empty, so a 400 is an allowed request refused for its input);
 // denied means 401 for anonymous and 403 (or 404 where the resource is hidden) for the rest.
 // A route file or method that is not listed below fails the test.
@@ -26,6 +26,7 @@ const ACTORS = [
   'organiser',
   'organiserElsewhere',
   'admin',
+  'appealBody',
 ] as const;
 type ActorKey = (typeof ACTORS)[number];
 
@@ -39,6 +40,7 @@ const ROLES_AT_MEETING: Record<Exclude<ActorKey, 'anonymous'>, Role[]> = {
   organiser: ['entrant', 'organiser'],
   organiserElsewhere: ['entrant'],
   admin: ['entrant', 'admin'],
+  appealBody: ['entrant', 'appeal_body'],
 };
 
 const sessions = new Map<ActorKey, HttpSession>();
@@ -61,6 +63,7 @@ before(async () => {
     ['steward', DEMO.steward],
     ['organiser', DEMO.organiser],
     ['admin', DEMO.admin],
+    ['appealBody', DEMO.appealBody],
   ] as const) {
     const s = new HttpSession();
     assert.equal((await s.signInWithPassword(email, DEMO_PASSWORD)).status, 200, email);
@@ -159,7 +162,26 @@ before(async () => {
     `insert into boat_components (kind, maker, serial_number, boat_id, created_by_id) values ('impeller', 'Matrix Works', $1, $2, $3) returning id`,
     [`MX-${randomUUID().slice(0, 8)}`, spareBoat, entrantId],
   );
+  // A penalty on the other entrant's boat from that protest (inserted as decided), and the demo entrant's
+  // appeal against it, lodged (the fee paid), so the appeal's parties are the two entrants.
+  const [{ id: itemId }] = await query<{ id: string }>(
+    `insert into penalty_catalogue_items (event_id, code, kind, amount, label, created_by_id)
+     values ($1, $2, 'places_deducted', 2, 'Matrix: two places', $3) returning id`,
+    [DEMO.meetingId, `MX${randomUUID().slice(0, 6)}`, entrantId],
+  );
+  const [{ id: stewardId }] = await query<{ id: string }>('select id from users where email = $1', [DEMO.steward]);
+  const [{ id: penaltyId }] = await query<{ id: string }>(
+    `insert into penalties (event_id, entry_id, catalogue_item_id, code, kind, amount, label, protest_id, reason, decided_by_id)
+     values ($1, $2, $3, 'MX2', 'places_deducted', 2, 'Matrix: two places', $4, 'Matrix reason', $5) returning id`,
+    [DEMO.meetingId, otherEntryId, itemId, protestId, stewardId],
+  );
+  const [{ id: appealId }] = await query<{ id: string }>(
+    `insert into appeals (event_id, penalty_id, lodged_by_id, grounds, status, fee_minor, currency, paid_at, notice_deadline)
+     values ($1, $2, $3, 'Matrix grounds of appeal', 'lodged', 10000, 'NZD', now(), now() + interval '1 hour') returning id`,
+    [DEMO.meetingId, penaltyId, entrantId],
+  );
   ids = {
+    appealId,
     eventId: DEMO.meetingId,
     classId,
     entryId: own.entry_id,
@@ -198,6 +220,14 @@ function expectedAllowed(access: Access, actor: ActorKey): boolean | 'hidden' | 
           : access.protest === 'decide'
             ? rolesCan(roles, 'protest.decide')
             : actor === 'entrantOwn';
+    return may ? true : sees ? false : 'unseen';
+  }
+  if ('appeal' in access) {
+    const roles = ROLES_AT_MEETING[actor];
+    const party = actor === 'entrantOwn' || actor === 'entrantOther'; // the appellant and the penalised entrant
+    const hears = rolesCan(roles, 'appeal.hear');
+    const sees = party || hears || rolesCan(roles, 'protest.view_all');
+    const may = access.appeal === 'view' ? sees : access.appeal === 'pay' ? actor === 'entrantOwn' : hears;
     return may ? true : sees ? false : 'unseen';
   }
   return access.anyOf.some((p: Permission) => rolesCan(ROLES_AT_MEETING[actor], p));
@@ -267,9 +297,11 @@ test('each endpoint allows or denies each actor as the permission table says', a
   assert.deepEqual(failures, []);
 });
 
-test('a protest or evidence id that does not exist is 404 for everyone signed in, 401 for anyone else', async () => {
+test('a protest, appeal or evidence id that does not exist is 404 for everyone signed in, 401 for anyone else', async () => {
   for (const actor of ACTORS) {
     for (const p of [
+      `/api/appeals/${ids.missingId}`,
+      `/api/appeals/not-an-id`,
       `/api/protests/${ids.missingId}`,
       `/api/protests/${ids.missingId}/evidence`,
       `/api/evidence/${ids.missingId}`,

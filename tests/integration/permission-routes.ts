@@ -16,6 +16,7 @@ export type Ids = {
   protestId: string;
   evidenceId: string; // lodged by the demo entrant against the other entrant's entry
   componentId: string; // an impeller on the demo entrant's spare boat
+  appealId: string; // lodged by the demo entrant (the protester) against a penalty on the other entrant's boat
 };
 export type Access =
   | 'public' // anyone, signed in or not
@@ -31,7 +32,11 @@ export type Access =
   // A protest: 'view' for its parties (lodger, protested entrant) and protest.view_all; 'add-evidence'
   // for the parties and protest.decide; 'decide' for protest.decide; 'pay' for the lodger. Those who
   // may see the protest but not take the step get 403; everyone else 404, as for a missing id.
-  | { protest: 'view' | 'add-evidence' | 'decide' | 'pay' };
+  | { protest: 'view' | 'add-evidence' | 'decide' | 'pay' }
+  // An appeal: 'view' for its parties (appellant, penalised entrant), the meeting's protest.view_all and the
+  // appeal body; 'pay' for the appellant; 'hear' for appeal.hear. Those who see it but may not take the
+  // step get 403; everyone else 404, as for a missing id.
+  | { appeal: 'view' | 'pay' | 'hear' };
 
 type Row = {
   method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
@@ -585,6 +590,70 @@ export const ROUTES: Row[] = [
     path: (i) => `${ev(i)}/results`,
     access: { anyOf: ['results.publish'] },
   },
+  // Penalties: the catalogue, technical delegates' reports to the stewards, the stewards' penalties
+  {
+    method: 'GET',
+    file: `${E}/penalty-catalogue/route.ts`,
+    path: (i) => `${ev(i)}/penalty-catalogue`,
+    access: { anyOf: ['penalty.catalogue_manage', 'penalty.apply'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/penalty-catalogue/route.ts`,
+    path: (i) => `${ev(i)}/penalty-catalogue`,
+    access: { anyOf: ['penalty.catalogue_manage'] },
+  },
+  {
+    method: 'GET',
+    file: `${E}/technical-reports/route.ts`,
+    path: (i) => `${ev(i)}/technical-reports`,
+    access: { anyOf: ['technical_report.file', 'penalty.apply'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/technical-reports/route.ts`,
+    path: (i) => `${ev(i)}/technical-reports`,
+    access: { anyOf: ['technical_report.file'] },
+  },
+  { method: 'GET', file: `${E}/penalties/route.ts`, path: (i) => `${ev(i)}/penalties`, access: 'signed-in' },
+  {
+    method: 'POST',
+    file: `${E}/penalties/route.ts`,
+    path: (i) => `${ev(i)}/penalties`,
+    access: { anyOf: ['penalty.apply'] },
+  },
+  // Appeals to the governing body's appeal body
+  {
+    method: 'POST',
+    file: `${E}/appeals/route.ts`,
+    path: (i) => `${ev(i)}/appeals`,
+    access: { anyOf: ['appeal.lodge'] },
+  },
+  { method: 'GET', file: 'app/api/appeals/route.ts', path: () => '/api/appeals', access: 'signed-in' },
+  {
+    method: 'GET',
+    file: 'app/api/appeals/[appealId]/route.ts',
+    path: (i) => `/api/appeals/${i.appealId}`,
+    access: { appeal: 'view' },
+  },
+  {
+    method: 'POST',
+    file: 'app/api/appeals/[appealId]/checkout/route.ts',
+    path: (i) => `/api/appeals/${i.appealId}/checkout`,
+    access: { appeal: 'pay' },
+  },
+  {
+    method: 'POST',
+    file: 'app/api/appeals/[appealId]/hearing/route.ts',
+    path: (i) => `/api/appeals/${i.appealId}/hearing`,
+    access: { appeal: 'hear' },
+  },
+  {
+    method: 'POST',
+    file: 'app/api/appeals/[appealId]/decision/route.ts',
+    path: (i) => `/api/appeals/${i.appealId}/decision`,
+    access: { appeal: 'hear' },
+  },
   // No pass, no start: the start list of a meeting day and the organiser's decisions on it
   {
     method: 'GET',
@@ -706,6 +775,18 @@ export const ROUTES: Row[] = [
     method: 'DELETE',
     file: 'app/api/admin/people/[userId]/suspension/route.ts',
     path: (i) => `/api/admin/people/${i.missingId}/suspension`,
+    access: { anyOf: ['admin.manage_users'] },
+  },
+  {
+    method: 'PUT',
+    file: 'app/api/admin/people/[userId]/appeal-body/route.ts',
+    path: (i) => `/api/admin/people/${i.missingId}/appeal-body`,
+    access: { anyOf: ['admin.manage_users'] },
+  },
+  {
+    method: 'DELETE',
+    file: 'app/api/admin/people/[userId]/appeal-body/route.ts',
+    path: (i) => `/api/admin/people/${i.missingId}/appeal-body`,
     access: { anyOf: ['admin.manage_users'] },
   },
   {

@@ -10,6 +10,7 @@ export const DEMO = {
   scrutineer: 'scrutineer@tarnwater.example',
   steward: 'steward@tarnwater.example',
   entrant: 'entrant@tarnwater.example',
+  appealBody: 'appeals@boreline.example',
   meetingId: '0b0e0000-0000-4000-8000-000000000101',
 } as const;
 

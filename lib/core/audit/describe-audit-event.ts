@@ -5,7 +5,17 @@ import { formatTime } from '../format/time';
 import { formatMoney } from '../inputs/entries';
 import { PROTEST_STATUS_LABELS, REJECTION_LABELS } from '../protests/protest-states';
 
-export const AUDIT_KINDS = ['protest', 'results', 'inspection', 'rules', 'custody', 'staff'] as const;
+export const AUDIT_KINDS = [
+  'protest',
+  'results',
+  'inspection',
+  'rules',
+  'custody',
+  'staff',
+  'penalty',
+  'technical_report',
+  'appeal',
+] as const;
 export type AuditKind = (typeof AUDIT_KINDS)[number];
 export const AUDIT_KIND_LABELS: Record<AuditKind, string> = {
   protest: 'Protests',
@@ -14,6 +24,14 @@ export const AUDIT_KIND_LABELS: Record<AuditKind, string> = {
   rules: 'Class rules',
   custody: 'Parts in custody',
   staff: 'Staff',
+  penalty: 'Penalties',
+  technical_report: 'Reports to the stewards',
+  appeal: 'Appeals',
+};
+const APPEAL_OUTCOME_WORDS: Record<string, string> = {
+  confirmed: 'confirmed',
+  amended: 'amended',
+  annulled: 'annulled',
 };
 
 type EntryRef = { id: string; raceNumber: number; boatName: string; classCode?: string | null } | null;
@@ -103,7 +121,12 @@ export function describeAuditEvent(line: AuditLine, ctx: AuditContext): Segment[
       ? link(`the ${c.code} class`, ctx.can.classes ? `/organise/events/${ctx.eventId}/classes/${c.id}` : null)
       : t('a class');
   const actor =
-    line.actorName ?? (line.action === 'protest.lodged' ? 'The payment provider' : 'Someone no longer listed');
+    line.actorName ??
+    (line.action === 'protest.lodged' || line.action === 'appeal.lodged'
+      ? 'The payment provider'
+      : 'Someone no longer listed');
+  const penaltiesHref = ctx.can.protests ? `/stewards/${ctx.eventId}/penalties` : null;
+  const appealHref = ctx.can.protests ? `/appeals/${line.subjectId}` : null;
   const person = r.person
     ? r.person.name
       ? `${r.person.name} (${r.person.email})`
@@ -285,6 +308,74 @@ export function describeAuditEvent(line: AuditLine, ctx: AuditContext): Segment[
       break;
     case 'staff.removed':
       t(`${actor} removed ${person} from the meeting's staff as ${role}.`);
+      break;
+    case 'penalty_catalogue.added':
+      t(`${actor} added ${str(d.code)} ${quote(str(d.label))} to the meeting's penalty catalogue.`);
+      break;
+    case 'technical_report.filed':
+      t(`${actor} reported `);
+      boat(r.entry ?? null);
+      t(` to the stewards under ${str(d.ruleReference)} (no protest).`);
+      break;
+    case 'penalty.imposed':
+      t(`${actor} imposed `);
+      link(`penalty ${str(d.code)}`, penaltiesHref);
+      t(' on ');
+      boat(r.entry ?? null);
+      t(
+        `${d.runLabel ? ` (run ${str(d.runLabel)})` : ''}, from ${d.protestId ? 'an upheld protest' : 'a technical report'}: `,
+      );
+      t(`${quote(str(d.reason))}.`);
+      break;
+    case 'results.amended':
+      t(`${actor} wrote version ${str(d.version)} of the provisional results of `);
+      classLink(r.class ?? null);
+      t(
+        ` from the organiser's version ${str(d.baseVersion)} with the penalties in force (${d.source === 'appeal' ? "the appeal body's decision" : "the stewards' penalty"}).`,
+      );
+      break;
+    case 'appeal.submitted':
+      t(`${actor} gave `);
+      link('notice of appeal', appealHref);
+      t(' against a penalty on ');
+      boat(r.entry ?? null);
+      t(
+        Number(d.feeMinor) > 0
+          ? `; it is lodged once the fee of ${money(d.feeMinor)} is paid. Notice was due ${when(d.noticeDeadline)}.`
+          : '.',
+      );
+      break;
+    case 'appeal.checkout_opened':
+      t(`${actor} opened the card payment of the fee for `);
+      link('the appeal', appealHref);
+      t(' on ');
+      boat(r.entry ?? null);
+      t('.');
+      break;
+    case 'appeal.lodged':
+      t(`${actor} confirmed `);
+      link('the appeal', appealHref);
+      t(' on ');
+      boat(r.entry ?? null);
+      t(': it is lodged with the appeal body.');
+      break;
+    case 'appeal.hearing_scheduled':
+      t(`${actor} set the hearing of `);
+      link('the appeal', appealHref);
+      t(' on ');
+      boat(r.entry ?? null);
+      t(` for ${when(d.hearingAt)}, ${str(d.place)}.`);
+      break;
+    case 'appeal.confirmed':
+    case 'appeal.amended':
+    case 'appeal.annulled':
+      t(`${actor}, for the appeal body, decided `);
+      link('the appeal', appealHref);
+      t(' on ');
+      boat(r.entry ?? null);
+      t(
+        `: the stewards' penalty is ${APPEAL_OUTCOME_WORDS[line.action.slice(7)]}. ${quote(str(d.reasons))}${d.refundId ? ' The fee is refunded.' : ''}`,
+      );
       break;
     default:
       t(`${actor}: ${line.action.replace(/[._]/g, ' ')}.`);

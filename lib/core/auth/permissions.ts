@@ -1,16 +1,27 @@
 // The one permission table: every server action and route handler asks it.
 // Roles are per event (organiser, chief_scrutineer, scrutineer, steward), per person
-// (entrant: anyone signed in) or site-wide (admin). Framework-free so tests can read it.
+// (entrant: anyone signed in) or above any single meeting (admin, and appeal_body: the governing body's
+// appeal body, which hears appeals against stewards' decisions of every meeting). Framework-free so tests
+// can read it.
 
-export const ROLES = ['entrant', 'scrutineer', 'chief_scrutineer', 'steward', 'organiser', 'admin'] as const;
+export const ROLES = [
+  'entrant',
+  'scrutineer',
+  'chief_scrutineer',
+  'steward',
+  'organiser',
+  'admin',
+  'appeal_body',
+] as const;
 export type Role = (typeof ROLES)[number];
 
 export const PERMISSIONS = {
   // Own account and own boats
-  'account.view': ['entrant', 'scrutineer', 'chief_scrutineer', 'steward', 'organiser', 'admin'],
+  'account.view': ['entrant', 'scrutineer', 'chief_scrutineer', 'steward', 'organiser', 'admin', 'appeal_body'],
   'boat.manage_own': ['entrant'],
   'entry.submit_own': ['entrant'],
   'protest.lodge': ['entrant'],
+  'appeal.lodge': ['entrant'], // a party to a penalty gives notice of appeal (the server checks who is a party)
   // Running a meeting
   'event.create': ['organiser', 'admin'],
   'event.edit': ['organiser'],
@@ -44,6 +55,13 @@ export const PERMISSIONS = {
   'protest.decide': ['steward'],
   'protest.view_all': ['steward', 'organiser'],
   'audit.read': ['steward', 'organiser'],
+  // Penalties: the organiser keeps the meeting's catalogue (a series' later), a technical delegate reports to
+  // the stewards without a protest, and the stewards impose penalties from an upheld protest or a report
+  'penalty.catalogue_manage': ['organiser'],
+  'technical_report.file': ['scrutineer', 'chief_scrutineer'],
+  'penalty.apply': ['steward'],
+  // Appeals to the governing body: its appeal body hears and decides them, for any meeting
+  'appeal.hear': ['appeal_body'],
   // Conflicts of interest: every official declares their own; stewards and the organiser read the whole register
   'interest.declare': ['scrutineer', 'chief_scrutineer', 'steward', 'organiser'],
   'interest.view_register': ['steward', 'organiser'],

@@ -64,6 +64,8 @@ export const EventInput = z
     protestFeeMinor: money('protest fee'),
     // Omitted by older clients: then unchanged (off when a meeting is created).
     severalClassesPerBoat: z.boolean({ error: 'Say whether a boat may enter several classes.' }).optional(),
+    // Notice of appeal to the governing body's appeal body; omitted by older clients: left as it is.
+    appealFeeMinor: money('appeal fee').optional(),
   })
   .refine((e) => e.endsOn >= e.startsOn, { path: ['endsOn'], message: 'The last day is before the first day.' });
 export type EventInput = z.infer<typeof EventInput>;

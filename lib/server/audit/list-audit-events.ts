@@ -30,7 +30,8 @@ export { AuditQuery };
 
 /*
  * The trail is one ordered list read from several append-only sources:
- * - audit_events: protests, results and staff changes, written with the change they record;
+ * - audit_events: protests, results, staff changes, penalties (their catalogue and technical reports) and
+ *   appeals, written with the change they record;
  * - inspections, published class_rule_versions, custody_items and custody_releases: each is itself an
  *   append-only (or frozen once published) record, so it is read here rather than copied;
  * - staff_invitations: the invitation and its acceptance (both set once).
@@ -47,9 +48,15 @@ trail as (
            'protest', case when p.id is not null then jsonb_build_object('id', p.id, 'ruleReference', p.rule_reference, 'entry', er.ref,
              'resultClassCode', rc.code, 'resultVersion', pr.version, 'feeMinor', p.fee_minor, 'currency', p.currency) end,
            'class', case when a.subject_type = 'results' then jsonb_build_object('id', a.details->>'classId', 'code', a.details->>'classCode') end,
-           'person', case when sp.id is not null then jsonb_build_object('name', sp.name, 'email', sp.email) end)) as refs
+           'person', case when sp.id is not null then jsonb_build_object('name', sp.name, 'email', sp.email) end,
+           'entry', pe.ref)) as refs
     from audit_events a
     left join person u on u.id = a.actor_id
+    left join penalties pen on a.subject_type = 'penalty' and pen.id = a.subject_id
+    left join appeals ap on a.subject_type = 'appeal' and ap.id = a.subject_id
+    left join penalties apen on apen.id = ap.penalty_id
+    left join technical_reports tr on a.subject_type = 'technical_report' and tr.id = a.subject_id
+    left join entry_ref pe on pe.id = coalesce(pen.entry_id, apen.entry_id, tr.entry_id)
     left join protests p on a.subject_type = 'protest' and p.id = a.subject_id
     left join entry_ref er on er.id = p.against_entry_id
     left join provisional_results pr on pr.id = p.against_result_id

@@ -13,6 +13,7 @@ export type Actor = {
   email: string;
   name: string | null;
   isAdmin: boolean;
+  isAppealBody: boolean; // a member of the governing body's appeal body (above any single meeting)
   isAddressProven: boolean; // the owner followed a link sent to the address (lib/server/accounts/prove-address.ts)
   eventRoles: Record<string, Role[]>;
   organiserOf: string[]; // organisation ids where the person may create events
@@ -28,12 +29,14 @@ export async function loadActor(userId: string, sessionVersion: number): Promise
     email: string;
     name: string | null;
     isAdmin: boolean;
+    isAppealBody: boolean;
     isAddressProven: boolean;
     staff: { eventId: string; role: Role }[];
     organiserOf: string[];
   }>(
     'actor:load',
-    `select u.id, u.email, u.name, u.is_admin as "isAdmin", u.email_verified is not null as "isAddressProven",
+    `select u.id, u.email, u.name, u.is_admin as "isAdmin",
+            exists (select 1 from appeal_body_members a where a.user_id = u.id) as "isAppealBody", u.email_verified is not null as "isAddressProven",
             coalesce((select json_agg(json_build_object('eventId', s.event_id, 'role', s.role)) from event_staff s where s.user_id = u.id), '[]') as staff,
             coalesce((select json_agg(m.organisation_id) from organisation_members m where m.user_id = u.id and m.role = 'organiser'), '[]') as "organiserOf"
        from users u where u.id = :userId and u.suspended_at is null and u.session_version = :sessionVersion`,
@@ -47,6 +50,7 @@ export async function loadActor(userId: string, sessionVersion: number): Promise
     email: row.email,
     name: row.name,
     isAdmin: row.isAdmin,
+    isAppealBody: row.isAppealBody,
     isAddressProven: row.isAddressProven,
     eventRoles,
     organiserOf: row.organiserOf,
@@ -102,6 +106,7 @@ export async function getActor(): Promise<Actor | null> {
 export function rolesOf(actor: Actor, scope: { eventId?: string; organisationId?: string } = {}): Role[] {
   const roles: Role[] = ['entrant'];
   if (actor.isAdmin) roles.push('admin');
+  if (actor.isAppealBody) roles.push('appeal_body');
   if (scope.eventId) roles.push(...(actor.eventRoles[scope.eventId] ?? []));
   if (scope.organisationId && actor.organiserOf.includes(scope.organisationId)) roles.push('organiser');
   return roles;

@@ -29,5 +29,6 @@ export function toEventDto(e: Event): EventDto {
     entryFeeMinor: e.entryFeeMinor,
     protestFeeMinor: e.protestFeeMinor,
     severalClassesPerBoat: e.severalClassesPerBoat,
+    appealFeeMinor: e.appealFeeMinor,
   };
 }

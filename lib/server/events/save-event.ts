@@ -25,7 +25,7 @@ export async function createEvent(actor: Actor | null, raw: unknown) {
   assertCan(actor, 'event.create', { organisationId: input.organisationId });
   const { sequelize, models } = getDb();
   return sequelize.transaction(async (transaction) => {
-    const { organisationId, ...fields } = input;
+    const { organisationId, ...fields } = withoutUndefined(input);
     const event = await models.Event.create(
       {
         ...fields,
@@ -40,10 +40,15 @@ export async function createEvent(actor: Actor | null, raw: unknown) {
   });
 }
 
+/** A field an older client leaves out (the appeal fee) keeps its stored value or the column's default. */
+function withoutUndefined<T extends Record<string, unknown>>(input: T): T {
+  return Object.fromEntries(Object.entries(input).filter(([, v]) => v !== undefined)) as T;
+}
+
 /** The event's organiser edits its details. */
 export async function updateEvent(actor: Actor | null, eventId: string, raw: unknown) {
   assertCan(actor, 'event.edit', { eventId });
-  const { severalClassesPerBoat, ...input } = EventInput.parse(raw);
+  const { severalClassesPerBoat, ...input } = withoutUndefined(EventInput.parse(raw));
   const { sequelize, models } = getDb();
   return sequelize.transaction(async (transaction) => {
     // The event row's lock: an entry into a second class (which locks it too) cannot slip past the check below.

@@ -12,12 +12,18 @@ import {
   finishProtestPayment,
   type ProtestPaymentOutcome,
 } from '@/lib/server/payments/apply-protest-payment';
+import {
+  applyAppealPayment,
+  finishAppealPayment,
+  type AppealPaymentOutcome,
+} from '@/lib/server/payments/apply-appeal-payment';
 
 type Outcome =
   | { kind: 'replay' | 'ignored' | 'unmatched' | 'mismatch' | 'already_recorded' }
   | { kind: 'paid'; entryId: string }
   | { kind: 'refund'; entryId: string; paymentIntentId: string }
-  | ProtestPaymentOutcome;
+  | ProtestPaymentOutcome
+  | AppealPaymentOutcome;
 
 const PAID_TYPES = new Set(['checkout.session.completed', 'checkout.session.async_payment_succeeded']);
 
@@ -41,6 +47,7 @@ export async function applyPaymentEvent(event: Stripe.Event): Promise<Outcome> {
     if (session.payment_status !== 'paid') return { kind: 'ignored' };
     // Protest fees share the webhook (and its replay protection); metadata.kind says which it is.
     if (session.metadata?.kind === 'protest') return applyProtestPayment(session, transaction);
+    if (session.metadata?.kind === 'appeal') return applyAppealPayment(session, transaction);
 
     let entry = await models.Entry.findOne({
       where: { checkoutSessionId: session.id },
@@ -88,6 +95,7 @@ export async function applyPaymentEvent(event: Stripe.Event): Promise<Outcome> {
   });
 
   if (outcome.kind === 'protest_paid' || outcome.kind === 'protest_refund') await finishProtestPayment(outcome);
+  if (outcome.kind === 'appeal_refund') await finishAppealPayment(outcome);
   if (outcome.kind === 'paid')
     await sendReceipt(outcome.entryId).catch((err) =>
       console.error('[boreline] receipt not sent', outcome.entryId, err),

@@ -4,6 +4,7 @@ import { getDb } from '@/lib/server/db';
 import type { Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
 import { describeWindow, formatInZone, type WindowView } from '@/lib/core/protests/protest-window';
+import type { ResultsSource } from '@/models/provisional-results';
 import { loadResultsVersions } from './load-results-versions';
 
 export type ResultsRowView = {
@@ -12,6 +13,12 @@ export type ResultsRowView = {
   entryId: string;
   boatName: string;
   isChanged: boolean;
+  /** Set when the stewards or the appeal body disqualified or excluded the boat (listed after the classified). */
+  status: 'dsq' | 'excluded' | null;
+  /** The penalties in force on this row, each with its reason (shown beside the row). */
+  amendments: { penaltyId: string; code: string; label: string; reason: string; byAppeal: boolean }[];
+  /** A notice of appeal against a penalty on this boat is lodged and not yet decided. */
+  underAppeal: boolean;
   window: WindowView;
   /** The boat's best current run time at this meeting (run_times, corrections applied); null: no run stored. */
   bestRun: { elapsedS: number; courseLengthM: number; runLabel: string; runs: number } | null;
@@ -25,7 +32,7 @@ export type ClassResultsView = {
     version: number;
     publishedAt: string;
     publishedAtLabel: string;
-    source: 'form' | 'csv';
+    source: ResultsSource;
     note: string;
     window: WindowView; // the window this version opened (for the rows it changed)
     rows: ResultsRowView[];
@@ -47,7 +54,7 @@ export async function listProvisionalResults(
   const { models, sequelize } = getDb();
   const event = await models.Event.findByPk(eventId);
   if (!event) throw new AppError('not_found', 404, 'No such meeting.');
-  const [classes, versions, boats, bestRuns] = await Promise.all([
+  const [classes, versions, boats, bestRuns, pendingAppeals] = await Promise.all([
     models.RaceClass.findAll({ where: { eventId }, order: [['code', 'ASC']] }),
     loadResultsVersions(eventId),
     sequelize.query<{ id: string; boatName: string }>(
@@ -64,7 +71,15 @@ export async function listProvisionalResults(
         order by r.entry_id, r.elapsed_s asc, r.run_label asc`,
       { replacements: { eventId }, type: QueryTypes.SELECT },
     ),
+    // Entries with an appeal lodged (fee paid, or none due) and not yet decided: their rows show "under appeal".
+    sequelize.query<{ entryId: string }>(
+      `select distinct p.entry_id as "entryId" from appeals a join penalties p on p.id = a.penalty_id
+        where a.event_id = :eventId and a.status in ('lodged', 'hearing_scheduled')
+          and not exists (select 1 from appeals x where x.penalty_id = p.id and x.status in ('annulled', 'amended'))`,
+      { replacements: { eventId }, type: QueryTypes.SELECT },
+    ),
   ]);
+  const underAppeal = new Set(pendingAppeals.map((a) => a.entryId));
   const boatName = new Map(boats.map((b) => [b.id, b.boatName]));
   const bestRun = new Map(
     bestRuns.map((r) => [
@@ -94,7 +109,20 @@ export async function listProvisionalResults(
         note: latest.note,
         window: win(latest.publishedAt),
         rows: latest.rows.map((r) => ({
-          ...r,
+          position: r.position,
+          raceNumber: r.raceNumber,
+          entryId: r.entryId,
+          status: r.status ?? null,
+          amendments: latest.amendments
+            .filter((a) => a.entryId === r.entryId)
+            .map((a) => ({
+              penaltyId: a.penaltyId,
+              code: a.code,
+              label: a.label,
+              reason: a.reason,
+              byAppeal: a.appealId !== null,
+            })),
+          underAppeal: underAppeal.has(r.entryId),
           boatName: boatName.get(r.entryId) ?? '?',
           isChanged: latest.changedEntryIds.includes(r.entryId),
           window: win(lastChange(r.entryId).publishedAt),

@@ -1,7 +1,7 @@
 import 'server-only';
 import type { Transaction } from 'sequelize';
 import { getDb } from '@/lib/server/db';
-import type { ResultRow } from '@/models/provisional-results';
+import type { ResultAmendment, ResultRow, ResultsSource } from '@/models/provisional-results';
 
 export type ResultsVersion = {
   id: string;
@@ -11,8 +11,9 @@ export type ResultsVersion = {
   publishedById: string;
   rows: ResultRow[];
   changedEntryIds: string[];
-  source: 'form' | 'csv';
+  source: ResultsSource;
   note: string;
+  amendments: ResultAmendment[];
 };
 
 /** Every published results version of a meeting (optionally of one class), oldest first. */
@@ -38,5 +39,6 @@ export async function loadResultsVersions(
     changedEntryIds: r.changedEntryIds ?? [],
     source: r.source,
     note: r.note,
+    amendments: r.amendments ?? [],
   }));
 }

@@ -7,6 +7,7 @@ import { recordAuditEvent } from '@/lib/server/audit/record-audit-event';
 import { PublishResultsInput } from '../../core/inputs/results';
 import { diffResultsRows } from '../../core/results/diff-results-rows';
 import { listProvisionalResults, type ClassResultsView } from './list-provisional-results';
+import { amendClassResults } from '../penalties/amend-results';
 
 const rowError = (i: number, message: string) => ({ field: `rows.${i}.raceNumber`, message });
 
@@ -14,7 +15,8 @@ const rowError = (i: number, message: string) => ({ field: `rows.${i}.raceNumber
  * Publishes the next provisional results version of one class, from the form or a CSV upload.
  * Every race number must be a live entry of that class at this meeting. Versions are numbered and
  * never changed; the entries whose row differs from the previous version get a fresh protest
- * window, the others keep theirs. Nothing is stored when any row is refused.
+ * window, the others keep theirs. Nothing is stored when any row is refused. When penalties are in force
+ * on boats of the class, the stewards' amended version follows at once (the new order with them applied).
  */
 export async function publishProvisionalResults(
   actor: Actor | null,
@@ -113,6 +115,16 @@ export async function publishProvisionalResults(
           finishers: rows.length,
           changedEntryIds,
         },
+      },
+      transaction,
+    );
+    await amendClassResults(
+      {
+        eventId,
+        classId: cls.id,
+        actorId: actor.id,
+        source: 'stewards',
+        note: `Penalties in force applied to the organiser's version ${created.version}`,
       },
       transaction,
     );

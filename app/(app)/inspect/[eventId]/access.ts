@@ -21,3 +21,4 @@ export const openStartList = (params: Params) => openEventPageWithHeading(params
 export const openQueue = (params: Params) => openEventPageWithHeading(params, 'inspection.board');
 export const openSlots = (params: Params) => openEventPageWithHeading(params, 'inspection.board');
 export const openIncidents = (params: Params) => openEventPageWithHeading(params, 'incident.view');
+export const openReports = (params: Params) => openEventPageWithHeading(params, 'technical_report.file');

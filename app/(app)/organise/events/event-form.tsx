@@ -48,6 +48,7 @@ export function EventForm({ event, organisations = [] }: Props) {
         entryFeeMinor: fee('entryFee'),
         protestFeeMinor: fee('protestFee'),
         severalClassesPerBoat: f.get('severalClassesPerBoat') === 'on',
+        appealFeeMinor: fee('appealFee'),
       };
       const local = EventInput.safeParse(body);
       if (!local.success) return { ok: false, fieldErrors: toFieldErrors(local.error), message: CHECK_FIELDS_MESSAGE };
@@ -226,6 +227,15 @@ export function EventForm({ event, organisations = [] }: Props) {
           </label>
           <FieldError name="severalClassesPerBoat" error={err('severalClassesPerBoat')} />
         </div>
+        <TextField
+          name="appealFee"
+          label="Appeal fee"
+          unit={event?.currency ?? 'currency units'}
+          inputMode="decimal"
+          hint="Paid with a notice of appeal to the governing body's appeal body; its rules set the amount."
+          defaultValue={event ? ((event.appealFeeMinor ?? 0) / 100).toFixed(2) : '0.00'}
+          error={err('appealFeeMinor')}
+        />
         <div className="sm:col-span-2 space-y-2">
           <FormMessage state={state} />
           <button type="submit" className="btn-primary">

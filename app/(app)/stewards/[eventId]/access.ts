@@ -14,6 +14,7 @@ type Params = Promise<{ eventId: string }>;
 export const openQueue = (params: Params) => openEventPage(params, 'protest.view_all');
 export const openAudit = (params: Params) => openEventPageWithHeading(params, 'audit.read');
 export const openInterests = (params: Params) => openEventPage(params, 'interest.declare');
+export const openPenalties = (params: Params) => openEventPageWithHeading(params, 'penalty.apply');
 
 /** The protest, once per request (404 when it does not exist or the actor may not see it). */
 const readProtest = cache((actor: Actor, protestId: string) =>

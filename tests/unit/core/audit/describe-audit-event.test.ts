@@ -130,3 +130,43 @@ test('an inspection, a custody release and a staff change each read as one sente
   );
   assert.equal(removed, "Maren Holt removed dock@example.org from the meeting's staff as chief scrutineer.");
 });
+
+test('penalties and appeals: the boat, the penalty and its reason, the appeal body decision and the refund, no codes', () => {
+  const APPEAL = '0b0e0000-0000-4000-8000-0000000000cc';
+  const imposed = sentenceText(
+    describeAuditEvent(
+      {
+        at: '2026-12-05T02:00:00.000Z',
+        kind: 'penalty',
+        action: 'penalty.imposed',
+        actorName: 'Rufus Steward',
+        subjectId: PROTEST,
+        details: { code: 'P2', kind: 'places_deducted', amount: 2, protestId: null, reason: 'Nozzle over the maximum' },
+        refs: { entry },
+      },
+      steward,
+    ),
+  );
+  assert.equal(
+    imposed,
+    'Rufus Steward imposed penalty P2 on boat #13 Shingle Arrow (SS), from a technical report: “Nozzle over the maximum”.',
+  );
+  const decided = describeAuditEvent(
+    {
+      at: '2026-12-05T03:00:00.000Z',
+      kind: 'appeal',
+      action: 'appeal.annulled',
+      actorName: 'Ilse Appeals',
+      subjectId: APPEAL,
+      details: { reasons: 'Caliper out of calibration', refundId: 're_1' },
+      refs: { entry },
+    },
+    steward,
+  );
+  assert.equal(
+    sentenceText(decided),
+    "Ilse Appeals, for the appeal body, decided the appeal on boat #13 Shingle Arrow (SS): the stewards' penalty is annulled. “Caliper out of calibration” The fee is refunded.",
+  );
+  assert.ok(decided.some((s) => s.href === `/appeals/${APPEAL}`));
+  assert.doesNotMatch(sentenceText(decided), /re_1|appeal\.annulled/);
+});

@@ -4,7 +4,10 @@
 // into custody at the dock are released by the chief scrutineer or the stewards; notes in a boat's
 // logbook are written by the chief scrutineer or the stewards, who may read it; the chief scrutineer
 // runs the scrutineering schedule; the organiser or the chief scrutineer records incidents, which the
-// meeting's officials read; the meeting's officials read the start list, and the organiser decides on it).
+// meeting's officials read; the meeting's officials read the start list, and the organiser decides on it;
+// a technical delegate reports to the stewards without a protest, the stewards impose penalties from the
+// organiser's catalogue, and appeals against them go to the governing body's appeal body, which is no
+// official of the meeting).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import {
@@ -19,7 +22,7 @@ import {
 import { navFor } from '../../../../lib/core/navigation';
 
 const EXPECTED: Record<Role, Permission[]> = {
-  entrant: ['account.view', 'boat.manage_own', 'entry.submit_own', 'protest.lodge'],
+  entrant: ['account.view', 'boat.manage_own', 'entry.submit_own', 'protest.lodge', 'appeal.lodge'],
   scrutineer: [
     'account.view',
     'inspection.record',
@@ -29,6 +32,7 @@ const EXPECTED: Record<Role, Permission[]> = {
     'interest.declare',
     'incident.view',
     'start_list.view',
+    'technical_report.file',
   ],
   chief_scrutineer: [
     'account.view',
@@ -47,6 +51,7 @@ const EXPECTED: Record<Role, Permission[]> = {
     'incident.record',
     'incident.view',
     'start_list.view',
+    'technical_report.file',
   ],
   steward: [
     'account.view',
@@ -63,6 +68,7 @@ const EXPECTED: Record<Role, Permission[]> = {
     'interest.view_register',
     'incident.view',
     'start_list.view',
+    'penalty.apply',
   ],
   organiser: [
     'account.view',
@@ -86,8 +92,10 @@ const EXPECTED: Record<Role, Permission[]> = {
     'incident.view',
     'start_list.view',
     'start_list.decide',
+    'penalty.catalogue_manage',
   ],
   admin: ['account.view', 'event.create', 'admin.manage_users', 'dev.outbox', 'admin.view_metrics'],
+  appeal_body: ['account.view', 'appeal.hear'],
 };
 
 for (const role of ROLES) {
@@ -103,6 +111,26 @@ for (const role of ROLES) {
 
 test('separation of duties: no one decides a protest and records an inspection with one role', () => {
   for (const role of ROLES) assert.ok(!(roleCan(role, 'protest.decide') && roleCan(role, 'inspection.record')), role);
+});
+
+test('separation of duties: whoever imposes a penalty or decides a protest does not hear the appeal against it, and the appeal body runs nothing at a meeting', () => {
+  assert.deepEqual(
+    ROLES.filter((r) => roleCan(r, 'appeal.hear')),
+    ['appeal_body'],
+  );
+  for (const role of ROLES)
+    assert.ok(
+      !(roleCan(role, 'appeal.hear') && (roleCan(role, 'penalty.apply') || roleCan(role, 'protest.decide'))),
+      role,
+    );
+  for (const p of ['penalty.apply', 'protest.decide', 'results.publish', 'entry.view_all', 'protest.view_all'] as const)
+    assert.equal(roleCan('appeal_body', p), false, p);
+  // Penalties are imposed by the stewards only; a technical delegate reports but does not decide.
+  assert.deepEqual(
+    ROLES.filter((r) => roleCan(r, 'penalty.apply')),
+    ['steward'],
+  );
+  assert.equal(rolesCan(['entrant', 'chief_scrutineer'], 'penalty.apply'), false);
 });
 
 test('conflicts of interest: every official of a meeting declares; only stewards and the organiser read the whole register; an entrant neither', () => {
@@ -131,6 +159,8 @@ test('navigation shows each role only its areas', () => {
   for (const staff of ['scrutineer', 'chief_scrutineer', 'organiser'] as const)
     assert.ok(hrefs(['entrant', staff]).includes('/inspect'), staff);
   assert.ok(!hrefs(['entrant', 'steward']).includes('/inspect'));
+  assert.ok(hrefs(['entrant', 'appeal_body']).includes('/appeals'));
+  assert.ok(!hrefs(['entrant', 'steward', 'organiser', 'admin']).includes('/appeals'));
 });
 
 test("the demo outbox (everyone's sign-in links) is the site administrator's alone", () => {

@@ -53,6 +53,11 @@ export default async function BoardPage({ params }: { params: Promise<{ eventId:
               Incidents
             </Link>
           )}
+          {can(actor, 'technical_report.file', { eventId }) && (
+            <Link href={`/inspect/${eventId}/reports`} className="btn-secondary text-lg">
+              Report to the stewards
+            </Link>
+          )}
         </div>
       </div>
       <Suspense fallback={<p>Loading the board…</p>}>

@@ -15,6 +15,7 @@ type ClassParams = Promise<{ eventId: string; classId: string }>;
 export const openMeeting = (params: Params) => openEventPage(params, 'event.edit');
 export const openEntries = (params: Params) => openEventPageWithHeading(params, 'entry.view_all');
 export const openResults = (params: Params) => openEventPage(params, 'results.publish');
+export const openPenaltyCatalogue = (params: Params) => openEventPageWithHeading(params, 'penalty.catalogue_manage');
 
 /** A class of this meeting with its rule versions, once per request (404 when the meeting has no such class). */
 const readClass = cache(async (actor: Actor, eventId: string, classId: string) => {

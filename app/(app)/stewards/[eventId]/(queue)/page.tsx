@@ -22,6 +22,9 @@ export default async function StewardQueuePage({ params }: { params: Promise<{ e
           <Link href={`/inspect/${eventId}/custody`} className="btn-secondary">
             Parts in custody
           </Link>
+          <Link href={`/stewards/${eventId}/penalties`} className="btn-secondary">
+            Penalties
+          </Link>
           <Link href={`/stewards/${eventId}/audit`} className="btn-secondary">
             Audit trail
           </Link>

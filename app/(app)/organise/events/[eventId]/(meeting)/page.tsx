@@ -36,6 +36,9 @@ export default async function EventPage({ params }: { params: Promise<{ eventId:
           <Link href={`/organise/events/${event.id}/results`} className="btn-secondary">
             Provisional results
           </Link>
+          <Link href={`/organise/events/${event.id}/penalties`} className="btn-secondary">
+            Penalty catalogue
+          </Link>
           <Link href={`/organise/events/${event.id}/timing`} className="btn-secondary">
             Run times
           </Link>

@@ -2,10 +2,19 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { listProvisionalResults } from '@/lib/server/results/list-provisional-results';
 import { SafetyNote } from '@/components/safety-note';
+import { GOVERNING_BODY_CAUTION } from '@/lib/core/penalties/penalty-kinds';
 import { openResults } from '../access';
 import { ResultsForm } from './results-form';
 
 export const metadata: Metadata = { title: 'Provisional results' };
+
+const SOURCE_LABELS = {
+  form: 'form',
+  csv: 'CSV upload',
+  stewards: "stewards' penalties applied",
+  appeal: "appeal body's decision applied",
+} as const;
+const STATUS_LABELS = { dsq: 'DSQ', excluded: 'EXC' } as const;
 export const dynamic = 'force-dynamic';
 
 export default async function ResultsPage({ params }: { params: Promise<{ eventId: string }> }) {
@@ -20,8 +29,10 @@ export default async function ResultsPage({ params }: { params: Promise<{ eventI
       <h1>Provisional results</h1>
       <p>
         Each publication is a numbered version that is never changed. It opens the protest window for every boat whose
-        place it changed; the others keep their deadline.
+        place it changed; the others keep their deadline. A stewards&apos; penalty, or the appeal body&apos;s decision
+        on one, makes a new version from your latest with the penalties in force applied, the reason beside the row.
       </p>
+      <p className="text-sm text-ink-soft">{GOVERNING_BODY_CAUTION}</p>
       <ResultsForm
         eventId={eventId}
         classes={classes.map((c) => ({ classId: c.classId, label: `${c.classCode} · ${c.className}` }))}
@@ -42,7 +53,7 @@ export default async function ResultsPage({ params }: { params: Promise<{ eventI
             <>
               <p>
                 Version {c.latest.version} of {c.versionCount}, published {c.latest.publishedAtLabel} (
-                {c.latest.source === 'csv' ? 'CSV upload' : 'form'}){c.latest.note && ` — ${c.latest.note}`}.
+                {SOURCE_LABELS[c.latest.source]}){c.latest.note && ` — ${c.latest.note}`}.
               </p>
               <p
                 className={`font-bold ${c.latest.window.isOpen ? 'text-doubt-800' : 'text-ink-soft'}`}
@@ -66,13 +77,23 @@ export default async function ResultsPage({ params }: { params: Promise<{ eventI
                 <tbody>
                   {c.latest.rows.map((r) => (
                     <tr key={r.entryId} className="border-t border-paper-line">
-                      <td className="figure p-2 font-bold">{r.position}</td>
+                      <td className="figure p-2 font-bold">{r.status ? STATUS_LABELS[r.status] : r.position}</td>
                       <td className="figure p-2">{r.raceNumber}</td>
                       <td className="p-2">
                         {r.boatName}
                         {r.isChanged && c.latest!.version > 1 && (
                           <span className="ml-1 text-xs font-bold">(changed)</span>
                         )}
+                        {r.underAppeal && (
+                          <span className="ml-1 text-xs font-bold text-doubt-800" data-testid="under-appeal">
+                            Under appeal
+                          </span>
+                        )}
+                        {r.amendments.map((a) => (
+                          <span key={a.penaltyId} className="block text-xs" data-testid="amendment">
+                            {a.byAppeal ? 'Appeal body' : 'Stewards'}: {a.code} {a.label} — {a.reason}
+                          </span>
+                        ))}
                       </td>
                       <td className="figure p-2" data-testid="best-time">
                         {r.bestRun ? (
