@@ -27,7 +27,7 @@ import {
 } from './form-model';
 import type { FormSubmission } from './inspection-form';
 import { QueuePanel } from './queue-panel';
-import { registerInspectServiceWorker, useDockQueue } from './use-dock-queue';
+import { askForBackgroundSend, registerInspectServiceWorker, useDockQueue } from './use-dock-queue';
 import type { ShownVerdict } from './verdict-panel';
 import { loadDockParts } from './dock-parts';
 import { describePowerEvidence } from '@/lib/core/inspections/power-evidence';
@@ -235,6 +235,8 @@ export function DockScreen({
     };
     await putQueued(queued); // on the phone first, whatever happens next
     const after = navigator.onLine ? await sendQueued(queued) : queued;
+    // Still waiting: the service worker sends it when the signal returns, even if this page is closed by then.
+    if (after.state === 'waiting') void askForBackgroundSend();
     await queue.refresh();
     if (after.state === 'needs_fix' && !after.inspectionId) {
       // Refused: the form stays open with the server's messages beside the fields, and the same key.
