@@ -3,7 +3,8 @@
 // output instead. It
 //   1. lists the app shell to precache: the build files (scripts, styles) that the scrutineer's screens load
 //      first — the signed-in home, the inspect list, the dock and its queue and board — read from each page's
-//      client reference manifest, the build's root files, the fonts, and the installed app's icons;
+//      client reference manifest, the build's root files, the parts those screens load later (up to a size),
+//      the fonts, and the installed app's icons;
 //   2. asks @serwist/build (getManifest) for their precache entries (content-hashed build files need no revision;
 //      the icons get one from their bytes);
 //   3. bundles components/offline/boreline-sw.ts (Serwist's runtime and the dock's outbox sender) with esbuild
@@ -53,6 +54,27 @@ const shellFiles = [...shell]
   .map((f) => f.replace(/^\/?_next\//, ''))
   .filter((f) => fs.existsSync(path.join(distDir, f)));
 if (shellFiles.length < SHELL_PAGES.length) fail(`only ${shellFiles.length} shell files found`);
+
+// The parts these screens load later (next/dynamic, import()): the boat card, the record form, the verdict and
+// what they load in turn, found by the chunk names the shell's scripts hold. They are what a scrutineer needs to
+// record with no signal, so they are precached too, except a large library (over PART_LIMIT: the camera scanner
+// and the photo decoders), which is kept when first used, or when the dock warms its parts at idle.
+const PART_LIMIT = 64 * 1024;
+const chunkName = /static\/chunks\/[\w.-]+\.js/g;
+const leftOut = new Map();
+const queue = shellFiles.filter((f) => f.endsWith('.js'));
+while (queue.length) {
+  for (const [name] of fs.readFileSync(path.join(distDir, queue.pop()), 'utf8').matchAll(chunkName)) {
+    if (shellFiles.includes(name) || leftOut.has(name) || !fs.existsSync(path.join(distDir, name))) continue;
+    const size = fs.statSync(path.join(distDir, name)).size;
+    if (size > PART_LIMIT) leftOut.set(name, size);
+    else {
+      shellFiles.push(name);
+      queue.push(name);
+    }
+  }
+}
+for (const [name, size] of leftOut) console.log(`build-sw: not precached (${Math.round(size / 1024)} KiB): ${name}`);
 
 const fromBuild = await getManifest({
   globDirectory: distDir,

@@ -19,6 +19,7 @@ import {
   ExpirationPlugin,
   NetworkFirst,
   Serwist,
+  setCacheNameDetails,
   StaleWhileRevalidate,
   type PrecacheEntry,
   type SerwistPlugin,
@@ -94,10 +95,12 @@ const rememberDock: SerwistPlugin = {
   },
 };
 
+// Serwist's own caches (the precache) are named boreline-… too; set before the precache is made.
+setCacheNameDetails({ prefix: 'boreline' });
+
 const serwist = new Serwist({
   precacheEntries: BORELINE_PRECACHE,
   precacheOptions: { cleanupOutdatedCaches: true },
-  cacheId: 'boreline',
   // A new version waits until the person says so (the update prompt), so a record being typed is never cut off.
   skipWaiting: false,
   clientsClaim: true,
