@@ -97,7 +97,7 @@ if [ $needs_app = 1 ]; then
   rm -rf "$FAKES_DIR"
   start_fakes "$RUN/fakes.pid" "$RUN/fakes.log"
   log "building the app (without DATABASE_URL, proving nothing touches the database at build time)"
-  env -u DATABASE_URL npx next build >"$RUN/build.log" 2>&1 || { cat "$RUN/build.log"; exit 1; }
+  { env -u DATABASE_URL npx next build && node scripts/build-sw.mjs; } >"$RUN/build.log" 2>&1 || { cat "$RUN/build.log"; exit 1; }
   stop_pidfile "$RUN/app.pid"; free_port "$PORT"
   setsid node scripts/server.mjs >"$RUN/app.log" 2>&1 9>&- &
   echo $! >"$RUN/app.pid"; disown  # the crash tests may SIGKILL it: no "Killed" notice from this shell

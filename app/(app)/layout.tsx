@@ -6,6 +6,7 @@ import { BrandMark } from '@/components/brand-mark';
 import { SignOutButton } from '@/components/sign-out-button';
 import { MainNav } from '@/components/main-nav';
 import { ThemeSwitch } from '@/components/theme-switch';
+import { AppWorker } from '@/components/offline/app-worker';
 
 export const dynamic = 'force-dynamic';
 
@@ -32,6 +33,7 @@ export default async function AppLayout({ children }: { children: React.ReactNod
         </div>
         <MainNav items={items.map(({ href, label }) => ({ href, label }))} />
       </header>
+      <AppWorker actorId={actor.id} />
       <main className="mx-auto w-full max-w-6xl flex-1 px-4 py-6">{children}</main>
     </div>
   );

@@ -10,11 +10,18 @@ import assert from 'node:assert/strict';
 import fs from 'node:fs';
 import path from 'node:path';
 import QRCode from 'qrcode';
-import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, newContext, screenshot, signInWithPassword, PHONE } from '../support/browser';
+import type { Browser } from 'playwright-core';
+import {
+  launchBrowser,
+  newContext,
+  screenshot,
+  signInWithPassword,
+  PHONE,
+  waitForOfflineCopy,
+} from '../support/browser';
 import { ARTIFACTS, BASE_URL, DEMO, DEMO_PASSWORD } from '../support/env';
 import { query } from '../support/db';
-import { SAFETY_ITEMS, type SafetyItem } from '../../lib/core/constants';
+import { fillRecord, idbKeys, ssBoats } from '../support/dock-record';
 
 let browser: Browser;
 before(async () => {
@@ -23,60 +30,6 @@ before(async () => {
 after(async () => {
   await browser?.close();
 });
-
-type Boat = { entryId: string; raceNumber: number; name: string; boatId: string };
-
-async function ssBoats(): Promise<{ boats: Boat[]; safety: SafetyItem[] }> {
-  const boats = await query<Boat>(
-    `select e.id as "entryId", e.race_number as "raceNumber", b.name, b.id as "boatId"
-       from entries e join boats b on b.id = e.boat_id join race_classes c on c.id = e.class_id join users u on u.id = e.entrant_id
-      where e.event_id = $1 and c.code = 'SS' and e.status in ('awaiting_payment', 'entered') and u.email <> $2
-      order by e.race_number desc limit 5`,
-    [DEMO.meetingId, DEMO.scrutineer],
-  );
-  const [v] = await query<{ rules: { safetyItems: SafetyItem[]; nozzle: { maxMm: number } } }>(
-    `select v.rules from class_rule_versions v join race_classes c on c.id = v.class_id
-      where c.event_id = $1 and c.code = 'SS' and v.status = 'published' and v.effective_from <= now() order by v.effective_from desc limit 1`,
-    [DEMO.meetingId],
-  );
-  assert.equal(v.rules.nozzle.maxMm, 102, 'the check below is worked for a limit of 102.00 mm');
-  return { boats, safety: v.rules.safetyItems };
-}
-
-/** Readings with the largest given, U typed as 0.05 mm (or an instrument), weighings and power comfortably inside, every safety item ticked. */
-async function fillRecord(page: Page, largestMm: number, safety: SafetyItem[], instrumentId?: string) {
-  const form = page.getByTestId('inspection-form');
-  await form.waitFor();
-  for (const [i, d] of [101.5, largestMm, 101.8].entries())
-    await page.getByLabel(`Reading ${i + 1} diameter`).fill(String(d));
-  if (instrumentId) {
-    await page.getByLabel('From the instrument used').check();
-    await page.getByLabel('Instrument used', { exact: true }).selectOption(instrumentId);
-  } else {
-    await page.getByLabel('I know U (type it)').check();
-    await page.getByLabel('Expanded uncertainty U (k = 2)').fill('0.05');
-  }
-  await page.getByLabel('Weighing 1').fill('690');
-  await page.getByLabel('Weighing 2').fill('691');
-  await page.getByLabel('Power, as declared or as the evidence shows').fill('220');
-  await page.getByLabel('Power evidence seen').selectOption('maker_rating');
-  for (const item of safety) await page.getByLabel(`${SAFETY_ITEMS[item]} — present and working`).check();
-  await page.getByTestId('record-inspection').click();
-}
-
-const idbKeys = (page: Page, state: string) =>
-  page.evaluate(async (wanted) => {
-    const db = await new Promise<IDBDatabase>((ok, no) => {
-      const r = indexedDB.open('boreline-inspect');
-      r.onsuccess = () => ok(r.result);
-      r.onerror = () => no(r.error);
-    });
-    const all = await new Promise<{ idempotencyKey: string; state: string }[]>((ok) => {
-      const r = db.transaction('outbox').objectStore('outbox').getAll();
-      r.onsuccess = () => ok(r.result);
-    });
-    return all.filter((x) => x.state === wanted).map((x) => x.idempotencyKey);
-  }, state);
 
 test('dock: scan a tag from a photo, record, see the verdict; offline two records wait and arrive once each', async () => {
   const { boats, safety } = await ssBoats();
@@ -186,7 +139,7 @@ test('dock: scan a tag from a photo, record, see the verdict; offline two record
     });
   }, DEMO.meetingId);
   // …and its service worker has kept the dock screen itself (we came by a link, so it may not control this page yet).
-  await page.waitForFunction(async () => (await caches.match(location.href)) !== undefined);
+  await waitForOfflineCopy(page);
 
   await context.setOffline(true);
   await page.getByTestId('connection').filter({ hasText: 'Offline' }).waitFor();

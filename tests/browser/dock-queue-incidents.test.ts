@@ -7,7 +7,14 @@
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import type { Browser } from 'playwright-core';
-import { launchBrowser, newContext, screenshot, signInWithPassword, PHONE } from '../support/browser';
+import {
+  launchBrowser,
+  newContext,
+  screenshot,
+  signInWithPassword,
+  PHONE,
+  waitForOfflineCopy,
+} from '../support/browser';
 import { DEMO, DEMO_PASSWORD } from '../support/env';
 import { query } from '../support/db';
 import { InspectionMeeting, rulesWith } from '../support/inspection-meeting';
@@ -68,7 +75,7 @@ test('slot booked by the entrant, checked in offline at the dock, incident forci
   assert.match(await page.getByRole('note').innerText(), /licensed officials/);
 
   // The dock's service worker has kept this page (we came by a link, so it may not control it yet).
-  await page.waitForFunction(async () => (await caches.match(location.href)) !== undefined);
+  await waitForOfflineCopy(page);
   await dock.setOffline(true);
   await row.getByRole('button', { name: `Check in no. ${entry.raceNumber}` }).click();
   await page.locator(`[data-entry="${entry.id}"][data-status="arrived"]`).waitFor();

@@ -52,6 +52,8 @@ export const ROUTES: Row[] = [
   { method: 'GET', file: 'app/api/auth/[...nextauth]/route.ts', path: () => '/api/auth/session', access: 'skip' },
   { method: 'POST', file: 'app/api/auth/[...nextauth]/route.ts', path: () => '/api/auth/signout', access: 'skip' },
   { method: 'GET', file: 'app/api/health/route.ts', path: () => '/api/health', access: 'public' },
+  // The installed app's service worker (build file names only).
+  { method: 'GET', file: 'app/boreline-sw.js/route.ts', path: () => '/boreline-sw.js', access: 'public' },
   { method: 'GET', file: 'app/api/health/live/route.ts', path: () => '/api/health/live', access: 'public' },
   { method: 'GET', file: 'app/api/health/ready/route.ts', path: () => '/api/health/ready', access: 'public' },
   {

@@ -57,3 +57,15 @@ export async function confirmAddressInBrowser(page: Page, email: string, passwor
   await page.getByRole('button', { name: 'Confirm and sign in' }).click();
   await page.waitForURL('**/account?confirmed=1');
 }
+
+/**
+ * Waits until the service worker has kept the page now shown (its offline copy is in a cache). Polled from here:
+ * Playwright's waitForFunction does not wait for a promise its function returns (a pending promise is truthy).
+ */
+export async function waitForOfflineCopy(page: Page, timeoutMs = 20_000) {
+  const end = Date.now() + timeoutMs;
+  while (!(await page.evaluate(async () => (await caches.match(location.href)) !== undefined))) {
+    if (Date.now() > end) throw new Error(`no offline copy of ${page.url()} after ${timeoutMs} ms`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}

@@ -117,6 +117,16 @@ export const EnvSchema = z.object({
     .string()
     .optional()
     .transform((v) => (v === 'serve' ? 'serve' : 'demo') as 'serve' | 'demo'),
+  // The build folder (next.config.mjs reads it as distDir; tests build into .next-test): where
+  // scripts/build-sw.mjs left the service worker that GET /boreline-sw.js serves. A folder name, not a path.
+  NEXT_DIST_DIR: z.preprocess(
+    unsetIfEmpty,
+    z
+      .string()
+      .trim()
+      .regex(/^\.?[\w-]+$/, 'must be a folder name such as .next')
+      .default('.next'),
+  ),
   BORELINE_DEV_TOOLS: z
     .string()
     .optional()

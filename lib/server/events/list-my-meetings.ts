@@ -10,6 +10,8 @@ export type MeetingSummary = {
   venue: string;
   startsOn: string;
   endsOn: string;
+  /** IANA zone: the meeting's days are days there. */
+  timeZone: string;
   status: EventStatus;
   myRoles: EventStaffRole[];
 };
@@ -25,6 +27,7 @@ export async function listMyMeetings(actor: Actor): Promise<MeetingSummary[]> {
     venue: e.venue,
     startsOn: e.startsOn,
     endsOn: e.endsOn,
+    timeZone: e.timeZone,
     status: e.status,
     myRoles: (actor.eventRoles[e.id] ?? []) as EventStaffRole[],
   }));

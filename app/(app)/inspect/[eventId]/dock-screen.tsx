@@ -30,7 +30,7 @@ import {
 import type { FormSubmission } from './inspection-form';
 import { QueuePanel } from './queue-panel';
 import { ClassSwitcher } from './class-switcher';
-import { registerInspectServiceWorker, useDockQueue } from './use-dock-queue';
+import { askForBackgroundSend, registerInspectServiceWorker, useDockQueue } from './use-dock-queue';
 import type { ShownVerdict } from './verdict-panel';
 import { loadDockParts } from './dock-parts';
 import { describePowerEvidence } from '@/lib/core/inspections/power-evidence';
@@ -243,6 +243,8 @@ export function DockScreen({
     };
     await putQueued(queued); // on the phone first, whatever happens next
     const after = navigator.onLine ? await sendQueued(queued) : queued;
+    // Still waiting: the service worker sends it when the signal returns, even if this page is closed by then.
+    if (after.state === 'waiting') void askForBackgroundSend();
     await queue.refresh();
     if (after.state === 'needs_fix' && !after.inspectionId) {
       // Refused: the form stays open with the server's messages beside the fields, and the same key.

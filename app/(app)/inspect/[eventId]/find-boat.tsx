@@ -1,11 +1,16 @@
 'use client';
 
-import { useEffect, useEffectEvent, useState } from 'react';
+import { useCallback, useEffect, useRef, useState } from 'react';
 import { useParams } from 'next/navigation';
 import { requestJson } from '@/components/forms/request-json';
 import { FieldError } from '@/components/forms/form-message';
 import { COMPONENT_KIND_LABELS } from '@/lib/core/inputs/component-kinds';
 import type { SerialMatch } from '@/lib/server/components/find-boat-by-serial';
+
+/** How long a paused camera is kept for the next boat before it is let go. */
+const CAMERA_IDLE_MS = 2 * 60_000;
+/** Html5QrcodeScannerState.SCANNING (html5-qrcode's state-manager), without importing the library up front. */
+const SCANNING = 2;
 
 /** html5-qrcode's own file scan (its bundled ZXing decoder). */
 async function decodeWithHtml5Qrcode(file: File): Promise<string | null> {
@@ -153,48 +158,75 @@ export function FindBoat({ onFind, isBusy }: Props) {
   // Race numbers are digits: the phone's number pad by default; a tag code (letters) on request.
   const [isTypingCode, setTypingCode] = useState(false);
   // The camera's callback always calls the latest onFind without restarting the camera.
-  const onScan = useEffectEvent(onFind);
-
+  const latestOnFind = useRef(onFind);
   useEffect(() => {
-    if (!isCameraOn) return;
-    // React runs effects twice in development: every start is paired with a stop, in order.
-    let cancelled = false;
-    let scanner: import('html5-qrcode').Html5Qrcode | null = null;
-    let started: Promise<unknown> = Promise.resolve();
-    void (async () => {
-      const { Html5Qrcode } = await import('html5-qrcode');
-      if (cancelled) return;
-      scanner = new Html5Qrcode('dock-camera', { verbose: false });
-      started = scanner
-        .start(
-          { facingMode: 'environment' },
-          { fps: 10, qrbox: { width: 240, height: 240 } },
-          (text) => {
-            if (cancelled) return;
-            cancelled = true;
-            setCameraOn(false);
-            onScan({ kind: 'scan', text });
-          },
-          () => undefined,
-        )
-        .catch(() => {
-          if (!cancelled)
-            setCameraError(
-              'The camera could not start. Allow the camera, use “Scan from a photo”, or type the race number.',
-            );
-          setCameraOn(false);
-        });
-    })();
-    return () => {
-      cancelled = true;
-      const s = scanner;
-      if (s)
-        void started
-          .then(() => (s.isScanning ? s.stop() : undefined))
-          .then(() => s.clear())
-          .catch(() => undefined);
-    };
-  }, [isCameraOn]);
+    latestOnFind.current = onFind;
+  });
+  const camera = useRef<{ scanner: import('html5-qrcode').Html5Qrcode; started: Promise<unknown> } | null>(null);
+  const idleTimer = useRef<number | undefined>(undefined);
+
+  // Stopping for real lets go of the camera: the next start asks the browser for it again (a browser that
+  // grants the camera for one use only prompts again then). So between boats the scanner is paused, keeping
+  // the camera it was given, and resumes at once with no second prompt; it is let go after CAMERA_IDLE_MS
+  // unused (the stream costs battery) and when the dock screen closes.
+  const stopCamera = useCallback(() => {
+    window.clearTimeout(idleTimer.current);
+    const c = camera.current;
+    camera.current = null;
+    if (c)
+      void c.started
+        .then(() => (c.scanner.isScanning ? c.scanner.stop() : undefined))
+        .then(() => c.scanner.clear())
+        .catch(() => undefined);
+  }, []);
+  useEffect(() => stopCamera, [stopCamera]);
+
+  const pauseCamera = () => {
+    setCameraOn(false);
+    try {
+      camera.current?.scanner.pause(true);
+    } catch {
+      stopCamera(); // not scanning yet: nothing to keep
+    }
+    window.clearTimeout(idleTimer.current);
+    idleTimer.current = window.setTimeout(stopCamera, CAMERA_IDLE_MS);
+  };
+
+  async function startCamera() {
+    window.clearTimeout(idleTimer.current);
+    setCameraError(null);
+    setCameraOn(true);
+    const kept = camera.current;
+    if (kept) {
+      try {
+        kept.scanner.resume(); // the camera already granted: no prompt
+        return;
+      } catch {
+        stopCamera(); // not paused (it failed, or is still starting): start afresh
+      }
+    }
+    const { Html5Qrcode } = await import('html5-qrcode');
+    const scanner = new Html5Qrcode('dock-camera', { verbose: false });
+    const started = scanner
+      .start(
+        { facingMode: 'environment' },
+        { fps: 10, qrbox: { width: 240, height: 240 } },
+        (text) => {
+          if (camera.current?.scanner !== scanner || scanner.getState() !== SCANNING) return;
+          pauseCamera();
+          latestOnFind.current({ kind: 'scan', text });
+        },
+        () => undefined,
+      )
+      .catch(() => {
+        if (camera.current?.scanner === scanner) camera.current = null;
+        setCameraError(
+          'The camera could not start. Allow the camera, use “Scan from a photo”, or type the race number.',
+        );
+        setCameraOn(false);
+      });
+    camera.current = { scanner, started };
+  }
 
   async function scanPhoto(file: File | undefined) {
     if (!file) return;
@@ -213,10 +245,7 @@ export function FindBoat({ onFind, isBusy }: Props) {
         <button
           type="button"
           className="btn-primary min-h-[3.5rem] text-xl"
-          onClick={() => {
-            setCameraError(null);
-            setCameraOn((on) => !on);
-          }}
+          onClick={() => (isCameraOn ? pauseCamera() : void startCamera())}
           disabled={isBusy}
           aria-pressed={isCameraOn}
         >

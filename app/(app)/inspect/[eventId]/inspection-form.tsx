@@ -35,6 +35,7 @@ import {
   type FormState,
 } from './form-model';
 import { DockGauge, DockItems } from './dock-items';
+import { useScreenAwake } from './use-screen-awake';
 
 export type FormSubmission = {
   draft: RecordInspectionDraft;
@@ -67,6 +68,8 @@ export function InspectionForm({
   serverErrors,
   onSubmit,
 }: Props) {
+  // The screen stays on while this record is open (released when the form closes).
+  useScreenAwake();
   const [f, setF] = useState<FormState>(initial);
   const [photos, setPhotos] = useState<File[]>([]);
   // By the applied seal's row; kept beside the form state (files do not go into a queued draft).

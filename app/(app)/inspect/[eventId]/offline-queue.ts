@@ -183,3 +183,29 @@ export function sendWaiting(eventId: string, recordedById: string): Promise<void
   })();
   return sending;
 }
+
+/** Every record of this person still waiting on the phone, whatever the meeting, oldest first. */
+export async function listWaitingOf(recordedById: string): Promise<QueuedRecord[]> {
+  const all = await (await db()).getAll('outbox');
+  return all
+    .filter((r) => r.state === 'waiting' && r.recordedById === recordedById)
+    .sort((a, b) => a.createdAt.localeCompare(b.createdAt));
+}
+
+/**
+ * Sends this person's waiting records of every meeting, oldest first, and says how many still wait. The
+ * service worker calls it with no page open (Background Sync) and when any Boreline page opens; the server
+ * answers a repeated idempotency key with the stored record, so a page sending the same record at the same
+ * moment never makes two.
+ */
+export async function sendAllWaiting(recordedById: string): Promise<{ sent: number; waiting: number }> {
+  let sent = 0;
+  const blocked = new Set<string>(); // meetings whose sending found no connection: the rest of them waits
+  for (const r of await listWaitingOf(recordedById)) {
+    if (blocked.has(r.eventId)) continue;
+    const after = await sendQueued(r);
+    if (after.state === 'sent') sent += 1;
+    else if (after.state === 'waiting') blocked.add(after.eventId);
+  }
+  return { sent, waiting: (await listWaitingOf(recordedById)).length };
+}

@@ -3,6 +3,7 @@
 import { useCallback, useEffect, useState, useSyncExternalStore } from 'react';
 import { listQueued, removeQueued, sendWaiting, type QueuedRecord } from '@/app/(app)/inspect/[eventId]/offline-queue';
 import { loadDockParts } from './dock-parts';
+import { OUTBOX_SYNC_TAG, WORKER_SCOPE, WORKER_URL, type WorkerMessage } from '@/components/offline/worker-protocol';
 
 const RETRY_MS = 15_000;
 
@@ -38,10 +39,16 @@ export function useDockQueue(eventId: string, actorId: string) {
     const up = () => void flush();
     window.addEventListener('online', up);
     const timer = window.setInterval(() => void flush(), RETRY_MS);
+    // The service worker sent records (Background Sync, or another page opening): show them as sent.
+    const fromWorker = (e: MessageEvent) => {
+      if ((e.data as WorkerMessage | null)?.type === 'outbox-changed') void refresh();
+    };
+    navigator.serviceWorker?.addEventListener('message', fromWorker);
     return () => {
       window.clearTimeout(first);
       window.removeEventListener('online', up);
       window.clearInterval(timer);
+      navigator.serviceWorker?.removeEventListener('message', fromWorker);
     };
   }, [refresh, flush]);
 
@@ -57,7 +64,24 @@ export function useDockQueue(eventId: string, actorId: string) {
 }
 
 /**
- * Registers the dock's service worker and hands it this page's files to keep for offline use.
+ * A record waits: ask the browser to wake the service worker when the connection returns, even if this page
+ * is closed by then (Background Sync, where the browser has it; elsewhere the next Boreline page to open asks
+ * the worker to send, components/offline/app-worker.tsx).
+ */
+export async function askForBackgroundSend(): Promise<boolean> {
+  if (!('serviceWorker' in navigator)) return false;
+  const reg = (await navigator.serviceWorker.getRegistration(WORKER_SCOPE)) as
+    (ServiceWorkerRegistration & { sync?: { register(tag: string): Promise<void> } }) | undefined;
+  if (!reg?.active || !reg.sync) return false;
+  return reg.sync.register(OUTBOX_SYNC_TAG).then(
+    () => true,
+    () => false,
+  );
+}
+
+/**
+ * Registers Boreline's service worker (as every signed-in page does) and hands it this page's files to keep
+ * for offline use.
  * The page may have been reached by a client-side link from outside the scope (from /home, say):
  * then the worker does not control it and `navigator.serviceWorker.ready` would never resolve for
  * it, so the registration's own worker is used. The next load of the page (a reload with no
@@ -66,7 +90,7 @@ export function useDockQueue(eventId: string, actorId: string) {
 export function registerInspectServiceWorker() {
   if (!('serviceWorker' in navigator)) return;
   void navigator.serviceWorker
-    .register('/inspect-sw.js', { scope: '/inspect/' })
+    .register(WORKER_URL, { scope: WORKER_SCOPE, updateViaCache: 'none' })
     .then(async (reg) => {
       const worker =
         reg.active ??
@@ -89,7 +113,7 @@ export function registerInspectServiceWorker() {
         .getEntriesByType('resource')
         .map((e) => e.name)
         .filter((u) => u.includes('/_next/static/'));
-      worker?.postMessage({ type: 'warm', urls: [location.href, ...files] });
+      worker?.postMessage({ type: 'warm', urls: [location.href, ...files] } satisfies WorkerMessage);
     })
     .catch(() => undefined); // without a service worker the screen still works online, and the outbox offline
 }

@@ -6,6 +6,8 @@ import { VerdictBadge } from '@/components/verdict-badge';
 import { formatFigure, RULE_UNIT_KINDS, type FigureKind } from '@/lib/core/format/figures';
 import { BURDEN_WORDS } from '@/lib/core/engine/conformity-burden';
 import { BudgetTable } from './budget-table';
+import { useEffect, useState } from 'react';
+import { playTones, signalFor, SOUND_SETTING } from './verdict-signal';
 
 export type ShownVerdict = {
   label: string;
@@ -26,6 +28,38 @@ const fmt = (v: number | null, unit: RuleResult['unit']) => (unit ? formatFigure
 // U is a small figure: one more digit than the readings in mm (lib/core/format/figures.ts).
 const fmtU = (v: number | null, unit: RuleResult['unit']) =>
   unit === 'mm' ? formatFigure(v, 'uncertaintyMm') : fmt(v, unit);
+
+/**
+ * The verdict felt as well as read (verdict-signal.ts): a vibration when it appears, and a sound if the
+ * scrutineer switched it on (kept on the phone). The words above are always there.
+ */
+function VerdictFeel({ overall }: { overall: string }) {
+  const [isSoundOn, setSoundOn] = useState(() => localStorage.getItem(SOUND_SETTING) === 'on');
+  const [soundAtStart] = useState(isSoundOn);
+  useEffect(() => {
+    const signal = signalFor(overall);
+    if (!signal) return;
+    if ('vibrate' in navigator) navigator.vibrate(signal.vibrateMs);
+    if (soundAtStart) void playTones(signal).catch(() => undefined);
+  }, [overall, soundAtStart]);
+  return (
+    <label className="flex min-h-touch items-center gap-3">
+      <input
+        type="checkbox"
+        className="h-6 w-6"
+        checked={isSoundOn}
+        data-testid="verdict-sound"
+        onChange={(e) => {
+          setSoundOn(e.target.checked);
+          localStorage.setItem(SOUND_SETTING, e.target.checked ? 'on' : 'off');
+          const signal = signalFor(overall);
+          if (e.target.checked && signal) void playTones(signal).catch(() => undefined);
+        }}
+      />
+      Sound with each verdict (the phone also vibrates: one pulse conforms, two inconclusive, three does not conform)
+    </label>
+  );
+}
 
 /** Every rule's verdict and the overall result, at once, with the caution that officials decide. */
 export function VerdictPanel({ verdict, onNext }: { verdict: ShownVerdict; onNext: () => void }) {
@@ -135,6 +169,7 @@ export function VerdictPanel({ verdict, onNext }: { verdict: ShownVerdict; onNex
         ))}
       </ul>
       <SafetyNote className="text-lg" />
+      <VerdictFeel overall={overall} />
       <button type="button" className="btn-primary min-h-[3.5rem] w-full text-xl" onClick={onNext}>
         Next boat
       </button>
