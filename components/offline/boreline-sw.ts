@@ -204,11 +204,25 @@ function sendOutbox(): Promise<number> {
   return sending;
 }
 
+/**
+ * The browser fires "sync" as the connection comes back, sometimes a moment before requests go through (a
+ * phone between networks, a busy one): a few tries within the same event (2, 4, 6 s apart) before handing
+ * back to the browser, whose own retry comes minutes later.
+ */
+async function sendSoon(): Promise<number> {
+  let waiting = await sendOutbox();
+  for (let i = 1; i <= 3 && waiting !== 0; i++) {
+    await new Promise((resolve) => setTimeout(resolve, 2000 * i));
+    waiting = await sendOutbox();
+  }
+  return waiting;
+}
+
 sw.addEventListener('sync', (event) => {
   if (event.tag !== OUTBOX_SYNC_TAG) return;
   // Rejecting tells the browser to try again later (with back-off), until its last chance.
   event.waitUntil(
-    sendOutbox().then((waiting) => {
+    sendSoon().then((waiting) => {
       if (waiting !== 0 && !event.lastChance) throw new Error(`${waiting} record(s) still waiting`);
     }),
   );
