@@ -31,9 +31,9 @@ const figures = localFont({
 export const metadata: Metadata = {
   title: { default: 'Boreline', template: '%s · Boreline' },
   description: 'Technical inspection and class parity for water-jet boat race meetings.',
-  // The installed app (app/manifest.ts): iOS reads its own tags rather than the manifest.
+  // The installed app (app/manifest.ts): iOS reads its own tags rather than the manifest. Its icon is
+  // app/apple-icon.png (a file, like app/icon.svg: setting metadata.icons would drop the page's favicon link).
   appleWebApp: { capable: true, title: 'Boreline', statusBarStyle: 'default' },
-  icons: { apple: '/icons/apple-touch-icon.png' },
 };
 
 export const viewport: Viewport = { width: 'device-width', initialScale: 1, themeColor: '#103a57' };

@@ -37,3 +37,10 @@ for (const size of [96, 192, 512]) await plain(size, `boreline-${size}.png`);
 for (const size of [192, 512]) await filled(size, `boreline-maskable-${size}.png`, 0.8, PAPER);
 await filled(180, 'apple-touch-icon.png', 0.86, PAPER);
 console.log('icons written to public/icons/');
+// The same square as the page's apple-touch-icon link (Next.js's file convention, app/apple-icon.png).
+await import('node:fs').then(({ copyFileSync }) =>
+  copyFileSync(
+    new URL('apple-touch-icon.png', out).pathname,
+    new URL('../app/apple-icon.png', import.meta.url).pathname,
+  ),
+);
