@@ -1,4 +1,5 @@
 import 'server-only';
+import { isDatabaseDown } from '@/lib/core/errors';
 import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
 import EmailProvider from 'next-auth/providers/email';
@@ -131,14 +132,22 @@ export function getAuthOptions(): NextAuthOptions {
           token.sv = row?.v ?? 0;
         } else if (typeof token.uid === 'string') {
           // Reading the session (GET /api/auth/session): an ended or suspended session is refused;
-          // next-auth then answers an empty session and clears the cookie.
-          const [live] = await sequelize.query(
-            'select 1 from users where id = :id and session_version = :sv and suspended_at is null',
-            {
-              replacements: { id: token.uid, sv: typeof token.sv === 'number' ? token.sv : 0 },
-              type: QueryTypes.SELECT,
-            },
-          );
+          // next-auth then answers an empty session and clears the cookie. A database that does not answer
+          // ends nothing (the cookie stays; every request still checks the person when it can): the phone's
+          // service worker asks this while the connection comes back, and an outage must not sign people out.
+          let live: unknown;
+          try {
+            [live] = await sequelize.query(
+              'select 1 from users where id = :id and session_version = :sv and suspended_at is null',
+              {
+                replacements: { id: token.uid, sv: typeof token.sv === 'number' ? token.sv : 0 },
+                type: QueryTypes.SELECT,
+              },
+            );
+          } catch (err) {
+            if (isDatabaseDown(err)) return token;
+            throw err;
+          }
           if (!live) throw new Error('SessionEnded');
         }
         return token;
