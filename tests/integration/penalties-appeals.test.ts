@@ -22,6 +22,7 @@ const CLASS_A = '7e570000-0000-4000-8000-000000000802'; // annulled
 const CLASS_B = '7e570000-0000-4000-8000-000000000803'; // confirmed, amended
 const CLASS_C = '7e570000-0000-4000-8000-000000000804'; // refused input
 const CLASS_D = '7e570000-0000-4000-8000-000000000805'; // a later organiser version
+const CLASS_E = '7e570000-0000-4000-8000-000000000806'; // superseded
 const STEWARD_ID = '0b0e0000-0000-4000-8000-000000001005';
 const ORGANISER_ID = '0b0e0000-0000-4000-8000-000000001002';
 const CHIEF_ID = '0b0e0000-0000-4000-8000-000000001003';
@@ -37,6 +38,115 @@ let chief: HttpSession;
 let appealBody: HttpSession;
 let admin: HttpSession;
 const items: Record<string, string> = {};
+
+test("an appeal overtaken by another's decision on the same penalty is closed as superseded: its fee refunded, the results as the other decision left them", async () => {
+  const [S, T, U] = [await boat('sup-s', CLASS_E), await boat('sup-t', CLASS_E), await boat('sup-u', CLASS_E)];
+  const pub = await organiser.json(`/api/events/${EVENT}/results`, {
+    classId: CLASS_E,
+    rows: [S, T, U].map((x, i) => ({ position: i + 1, raceNumber: x.raceNumber })),
+  });
+  assert.equal(pub.res.status, 201, JSON.stringify(pub.body));
+  // U protested S and the stewards upheld it; S loses two places: T, U, S (hand-worked).
+  const [{ id: protestId }] = await query<{ id: string }>(
+    `insert into protests (event_id, lodged_by_id, against_entry_id, matter_key, rule_reference, grounds, status, fee_minor, currency, window_deadline, decided_at)
+     values ($1, $2, $3, $4, 'AT 3.2', 'Protest grounds for the test.', 'upheld', 0, 'NZD', now() + interval '1 hour', now()) returning id`,
+    [EVENT, U.id, S.entryId, `appeal-test:${randomUUID()}`],
+  );
+  const pen = await steward.json(`/api/events/${EVENT}/penalties`, {
+    entryId: S.entryId,
+    catalogueItemId: items.places,
+    protestId,
+    reason: 'Upheld protest: nozzle over the class limit.',
+  });
+  assert.equal(pen.res.status, 201, JSON.stringify(pen.body));
+  const penaltyId = pen.body.data.id as string;
+  // Both parties appeal: S against the penalty, U (the protester) for a heavier one; both pay.
+  const byS = await lodgedAppeal(S, penaltyId);
+  const byU = await lodgedAppeal(U, penaltyId);
+  // Closing U's as superseded before anything ended the penalty is refused, and nothing changes.
+  const early = await appealBody.json(`/api/appeals/${byU.id}/decision`, {
+    outcome: 'superseded',
+    reasons: 'Nothing has ended this penalty yet.',
+  });
+  assert.equal(early.res.status, 409, JSON.stringify(early.body));
+  assert.equal(early.body.error.code, 'not_superseded');
+  assert.equal((await appealRow(byU.id)).status, 'lodged');
+
+  // S's appeal annuls the penalty: the base order returns (S, T, U).
+  const annul = await appealBody.json(`/api/appeals/${byS.id}/decision`, {
+    outcome: 'annulled',
+    reasons: 'The nozzle gauge used was out of calibration.',
+  });
+  assert.equal(annul.res.status, 200, JSON.stringify(annul.body));
+  const restored = await results(S.s, CLASS_E);
+  assert.deepEqual(
+    order(restored.rows),
+    [S, T, U].map((x) => String(x.raceNumber)),
+  );
+  // U's appeal can no longer be confirmed, amended or annulled: it is closed as superseded, its fee refunded,
+  // and the results stay as the annulment left them (no new version).
+  for (const outcome of ['confirmed', 'annulled'] as const) {
+    const r = await appealBody.json(`/api/appeals/${byU.id}/decision`, {
+      outcome,
+      reasons: 'Trying to decide an appeal that is already overtaken.',
+    });
+    assert.equal(r.res.status, 409, JSON.stringify(r.body));
+    assert.equal(r.body.error.code, 'superseded');
+    assert.match(r.body.error.message, /superseded/);
+  }
+  const closed = await appealBody.json(`/api/appeals/${byU.id}/decision`, {
+    outcome: 'superseded',
+    reasons: "The penalty was annulled on the penalised boat's appeal; nothing is left to hear.",
+  });
+  assert.equal(closed.res.status, 200, JSON.stringify(closed.body));
+  assert.equal(closed.body.data.status, 'superseded');
+  assert.equal(closed.body.data.feeState, 'refunded');
+  const refunds = await waitFor('the refund', async () => {
+    const r = await refundEventsFor(byU.paymentIntentId);
+    return r.length ? r : null;
+  });
+  assert.equal(refunds[0].amount_refunded, FEE);
+  const after = await results(S.s, CLASS_E);
+  assert.equal(after.version, restored.version, 'no new results version');
+  assert.ok(after.rows.every((r) => !r.underAppeal));
+  // Decided once: again is 409.
+  assert.equal(
+    (
+      await appealBody.json(`/api/appeals/${byU.id}/decision`, {
+        outcome: 'superseded',
+        reasons: 'Closing it a second time.',
+      })
+    ).res.status,
+    409,
+  );
+  // A notice still waiting for its fee on the ended penalty (placed by SQL for T) cannot be paid: no fee is taken.
+  const [{ id: unpaid }] = await query<{ id: string }>(
+    `insert into appeals (event_id, penalty_id, lodged_by_id, grounds, status, fee_minor, currency, notice_deadline)
+     values ($1, $2, $3, 'Grounds placed for the test.', 'awaiting_fee', $4, 'NZD', now() + interval '1 hour') returning id`,
+    [EVENT, penaltyId, T.id, FEE],
+  );
+  const pay = await T.s.fetch(`/api/appeals/${unpaid}/checkout`, { method: 'POST' });
+  assert.equal(pay.status, 409);
+  assert.equal((await pay.json()).error.code, 'superseded');
+  assert.equal((await appealRow(unpaid)).checkout_session_id, null, 'no payment page opened');
+  // The parties were told; the trail says it in words.
+  const told = await waitForMail(U.email, { subject: /Appeal closed: the penalty was already ended/ });
+  assert.match(told.text, /another appeal's decision had already ended the penalty/);
+  assert.match(told.text, /refunded/);
+  const [{ action }] = await query<{ action: string }>(
+    `select action from audit_events where subject_type = 'appeal' and subject_id = $1 order by id desc limit 1`,
+    [byU.id],
+  );
+  assert.equal(action, 'appeal.superseded');
+  const read = await steward.fetch(`/api/events/${EVENT}/audit?kind=appeal`);
+  const sentences = ((await read.json()).data.items as { sentence: string }[]).map((l) => l.sentence);
+  assert.ok(
+    sentences.some(
+      (x) => x.includes(`boat #${S.raceNumber}`) && x.includes("another appeal's decision had already ended"),
+    ),
+    sentences.join('\n'),
+  );
+});
 
 async function person(prefix: string): Promise<Person> {
   const s = new HttpSession();
@@ -123,6 +233,7 @@ before(async () => {
     [CLASS_B, 'AB'],
     [CLASS_C, 'AC'],
     [CLASS_D, 'AD'],
+    [CLASS_E, 'AE'],
   ])
     await query(`insert into race_classes (id, event_id, name, code) values ($1, $2, $3, $4) on conflict do nothing`, [
       id,

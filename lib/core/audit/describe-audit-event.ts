@@ -377,6 +377,15 @@ export function describeAuditEvent(line: AuditLine, ctx: AuditContext): Segment[
         `: the stewards' penalty is ${APPEAL_OUTCOME_WORDS[line.action.slice(7)]}. ${quote(str(d.reasons))}${d.refundId ? ' The fee is refunded.' : ''}`,
       );
       break;
+    case 'appeal.superseded':
+      t(`${actor}, for the appeal body, closed `);
+      link('the appeal', appealHref);
+      t(' on ');
+      boat(r.entry ?? null);
+      t(
+        `: another appeal's decision had already ended the penalty. ${quote(str(d.reasons))}${d.refundId ? ' The fee is refunded.' : ''}`,
+      );
+      break;
     default:
       t(`${actor}: ${line.action.replace(/[._]/g, ' ')}.`);
   }

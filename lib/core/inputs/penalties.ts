@@ -81,7 +81,8 @@ export const ScheduleAppealHearingInput = z.strictObject({
 
 export const DecideAppealInput = z
   .strictObject({
-    outcome: z.enum(['confirmed', 'amended', 'annulled'], { error: 'Choose the decision.' }),
+    // superseded: another appeal's decision already ended the penalty; this one is closed without a hearing.
+    outcome: z.enum(['confirmed', 'amended', 'annulled', 'superseded'], { error: 'Choose the decision.' }),
     reasons: text(10, 8000, 'Write the reasons for the decision (at least 10 characters).'),
     // When amended: the penalty that replaces the stewards' one.
     catalogueItemId: z.uuid({ error: 'Choose the replacing penalty from the catalogue.' }).nullable().default(null),

@@ -2,7 +2,8 @@ import 'server-only';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 
-export type AppealStatus = 'awaiting_fee' | 'lodged' | 'hearing_scheduled' | 'confirmed' | 'amended' | 'annulled';
+export type AppealStatus =
+  'awaiting_fee' | 'lodged' | 'hearing_scheduled' | 'confirmed' | 'amended' | 'annulled' | 'superseded';
 export const APPEAL_STATUS_LABELS: Record<AppealStatus, string> = {
   awaiting_fee: 'Awaiting the fee',
   lodged: 'Lodged',
@@ -10,6 +11,7 @@ export const APPEAL_STATUS_LABELS: Record<AppealStatus, string> = {
   confirmed: "Stewards' decision confirmed",
   amended: "Stewards' decision amended",
   annulled: "Stewards' decision annulled",
+  superseded: "Closed: another appeal's decision ended the penalty",
 };
 export const PENDING_APPEAL: readonly AppealStatus[] = ['lodged', 'hearing_scheduled'];
 

@@ -18,11 +18,12 @@ import { getAppeal, type AppealDetail } from './get-appeal';
  * The appeal body's decision on a lodged appeal: it confirms the stewards' penalty, amends it (a penalty from
  * the meeting's catalogue replaces it, set by the appeal body) or annuls it. The class's results are amended as
  * a new version from the organiser's latest one with the penalties then in force, so an annulment restores
- * them. The fee is refunded when the appeal succeeds (annulled or amended) and kept when the decision is
+ * them. The fee is refunded when the appeal succeeds (annulled or amended) or is superseded unheard, and kept when it is
  * confirmed (common practice, no single source; the governing body's rules decide). As for protests, the
  * refund is asked for inside the transaction with a key made from the appeal id, so a retry after a failure
  * reaches the provider as the same request and the fee is never refunded twice; a decided appeal cannot be
- * decided again (409).
+ * decided again (409). When another appeal's decision has already ended the penalty (annulled or amended it), the
+ * only outcome left is 'superseded': the appeal is closed with its fee refunded and the results are not touched.
  */
 export async function decideAppeal(
   actor: Actor | null,
@@ -44,8 +45,14 @@ export async function decideAppeal(
       `select 1 from appeals where penalty_id = :penaltyId and id <> :id and status in ('annulled', 'amended')`,
       { replacements: { penaltyId: appeal.penaltyId, id: appeal.id }, type: QueryTypes.SELECT, transaction },
     );
-    if (ended)
-      throw new AppError('conflict', 409, 'Another appeal has already ended this penalty: decide on that footing.');
+    if (ended && input.outcome !== 'superseded')
+      throw new AppError(
+        'superseded',
+        409,
+        "Another appeal's decision has already ended this penalty: close this appeal as superseded (its fee is refunded).",
+      );
+    if (!ended && input.outcome === 'superseded')
+      throw new AppError('not_superseded', 409, 'No other appeal has ended this penalty: confirm, amend or annul it.');
     const entry = (await readPenalisedEntry(appeal.entryId, appeal.eventId, transaction))!;
     const item =
       input.outcome === 'amended'
@@ -94,16 +101,20 @@ export async function decideAppeal(
       );
       replacingId = row.id;
     }
-    const amended = await amendClassResults(
-      {
-        eventId: appeal.eventId,
-        classId: appeal.classId,
-        actorId: actor!.id,
-        source: 'appeal',
-        note: `Appeal body: penalty ${appeal.penaltyCode} on #${appeal.raceNumber} ${input.outcome}`,
-      },
-      transaction,
-    );
+    // Closing a superseded appeal leaves the results as the other decision made them.
+    const amended =
+      input.outcome === 'superseded'
+        ? null
+        : await amendClassResults(
+            {
+              eventId: appeal.eventId,
+              classId: appeal.classId,
+              actorId: actor!.id,
+              source: 'appeal',
+              note: `Appeal body: penalty ${appeal.penaltyCode} on #${appeal.raceNumber} ${input.outcome}`,
+            },
+            transaction,
+          );
     // The refund is the last step that can fail (after the results amendment, which may refuse): when the
     // provider does not confirm it, nothing of the decision is stored.
     const succeeds = input.outcome !== 'confirmed';
@@ -148,9 +159,13 @@ export async function decideAppeal(
     const fresh = (await readAppeal(appeal.id, { transaction }))!;
     await notifyAppeal(
       fresh,
-      `Appeal decided: ${input.outcome}`,
+      input.outcome === 'superseded'
+        ? 'Appeal closed: the penalty was already ended'
+        : `Appeal decided: ${input.outcome}`,
       [
-        `The appeal body has decided the appeal: ${APPEAL_STATUS_LABELS[input.outcome].toUpperCase()}.`,
+        input.outcome === 'superseded'
+          ? "The appeal body has closed the appeal: another appeal's decision had already ended the penalty it was against."
+          : `The appeal body has decided the appeal: ${APPEAL_STATUS_LABELS[input.outcome].toUpperCase()}.`,
         `Reasons: ${input.reasons}`,
         ...(item
           ? [`Penalty now in force: ${item.code} ${item.label}${input.runLabel ? ` (run ${input.runLabel})` : ''}`]

@@ -1,4 +1,5 @@
 import 'server-only';
+import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { assertAddressProven } from '@/lib/server/accounts/prove-address';
@@ -21,6 +22,17 @@ export async function startAppealPayment(actor: Actor | null, appealId: string):
   assertAddressProven(actor);
   if (appeal.paidAt) throw new AppError('already_paid', 409, 'The appeal fee is already paid.');
   if (appeal.status !== 'awaiting_fee') throw new AppError('conflict', 409, 'This appeal is not waiting for its fee.');
+  const { sequelize } = getDb();
+  const [ended] = await sequelize.query(
+    `select 1 from appeals where penalty_id = :penaltyId and status in ('annulled', 'amended')`,
+    { replacements: { penaltyId: appeal.penaltyId }, type: QueryTypes.SELECT },
+  );
+  if (ended)
+    throw new AppError(
+      'superseded',
+      409,
+      "Another appeal's decision has already ended this penalty: there is nothing left to appeal, so no fee is taken.",
+    );
   const done = `${appUrl()}/appeals/${appeal.id}?paid=1`;
   const params = (checkoutKey: string): CheckoutInput => ({
     amountMinor: appeal.feeMinor,
@@ -51,7 +63,6 @@ export async function startAppealPayment(actor: Actor | null, appealId: string):
     basis = `after-${appeal.checkoutSessionId}`;
   }
   const session = await createCheckoutSession(params(`appeal-checkout-${appeal.id}-${basis}`));
-  const { sequelize } = getDb();
   await sequelize.transaction(async (transaction) => {
     await sequelize.query(
       `update appeals set checkout_session_id = :sessionId, updated_at = now() where id = :id and status = 'awaiting_fee'`,

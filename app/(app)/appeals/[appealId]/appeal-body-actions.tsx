@@ -25,7 +25,13 @@ export function AppealBodyActions({ appealId, catalogue }: { appealId: string; c
             name: 'outcome',
             label: "The stewards' decision is",
             kind: 'select',
-            options: { '': 'Choose…', confirmed: 'Confirmed', amended: 'Amended', annulled: 'Annulled' },
+            options: {
+              '': 'Choose…',
+              confirmed: 'Confirmed',
+              amended: 'Amended',
+              annulled: 'Annulled',
+              superseded: 'Already ended by another appeal (close this one, refund the fee)',
+            },
           },
           { name: 'reasons', label: 'Reasons', kind: 'textarea' },
           {

@@ -169,4 +169,21 @@ test('penalties and appeals: the boat, the penalty and its reason, the appeal bo
   );
   assert.ok(decided.some((s) => s.href === `/appeals/${APPEAL}`));
   assert.doesNotMatch(sentenceText(decided), /re_1|appeal\.annulled/);
+  const closed = describeAuditEvent(
+    {
+      at: '2026-12-05T04:00:00.000Z',
+      kind: 'appeal',
+      action: 'appeal.superseded',
+      actorName: 'Ilse Appeals',
+      subjectId: APPEAL,
+      details: { reasons: 'Already annulled on the other appeal', refundId: 're_2' },
+      refs: { entry },
+    },
+    steward,
+  );
+  assert.equal(
+    sentenceText(closed),
+    "Ilse Appeals, for the appeal body, closed the appeal on boat #13 Shingle Arrow (SS): another appeal's decision had already ended the penalty. “Already annulled on the other appeal” The fee is refunded.",
+  );
+  assert.doesNotMatch(sentenceText(closed), /re_2|superseded/);
 });
