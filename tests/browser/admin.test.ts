@@ -1,6 +1,7 @@
 // Journey on a phone: the site administrator suspends an account from the people list (a missing
 // reason first, refused beside the field), sees it marked with the reason, and lifts the suspension;
-// the suspended person's own browser is sent to sign in and told why.
+// the suspended person's own browser is sent to sign in and told why. Then appoints a person to the appeal
+// body and ends the appointment.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import type { Browser } from 'playwright-core';
@@ -70,5 +71,26 @@ test('admin: suspend an account with a reason, the person is refused, then lift 
   await row.getByRole('button', { name: 'Lift suspension' }).click();
   await row.getByRole('button', { name: 'Suspend…' }).waitFor();
   assert.equal(await row.getByTestId('suspended').count(), 0);
+
+  // The appeal body: a person whose address is not proven is refused in their row; a proven one is appointed,
+  // marked, and the appointment ended.
+  await row.getByRole('button', { name: 'Appoint to the appeal body' }).click();
+  await row.getByText(/has not proven their address/).waitFor();
+  assert.equal(await row.getByTestId('appeal-body-badge').count(), 0);
+  const provenEmail = uniqueEmail('admin-appeal-body');
+  await new HttpSession().signUpAndConfirm({
+    name: 'Tamsin Orrell',
+    email: provenEmail,
+    password: 'tamsin-long-password',
+  });
+  await page.reload();
+  await page.getByLabel('Find a person').fill('tamsin orrell');
+  const member = page.locator(`[data-person="${provenEmail}"]`);
+  await member.getByRole('button', { name: 'Appoint to the appeal body' }).click();
+  await member.getByTestId('appeal-body-badge').waitFor();
+  await screenshot(page, 'admin-03-appeal-body');
+  await member.getByRole('button', { name: 'End appeal body appointment' }).click();
+  await member.getByRole('button', { name: 'Appoint to the appeal body' }).waitFor();
+  assert.equal(await member.getByTestId('appeal-body-badge').count(), 0);
   await context.close();
 });

@@ -3,6 +3,7 @@
 import { useMemo, useState } from 'react';
 import type { PersonView } from '@/lib/server/admin/person-view';
 import { SuspensionControl } from './suspension-control';
+import { AppealBodyControl } from './appeal-body-control';
 
 /** Everyone with an account, narrowed as the administrator types (name or e-mail) or to the suspended. */
 export function PeopleList({
@@ -56,6 +57,14 @@ export function PeopleList({
                 {p.isAdmin && (
                   <span className="ml-1 rounded-full bg-tide-100 px-2 py-0.5 text-sm text-tide-700">site admin</span>
                 )}
+                {p.isAppealBody && (
+                  <span
+                    className="ml-1 rounded-full bg-tide-100 px-2 py-0.5 text-sm text-tide-700"
+                    data-testid="appeal-body-badge"
+                  >
+                    appeal body
+                  </span>
+                )}
               </p>
               <p className="break-all text-ink-soft">{p.email}</p>
               <p className="text-sm text-ink-mute">Joined {labels[p.id].joined}</p>
@@ -68,7 +77,10 @@ export function PeopleList({
                 </p>
               )}
             </div>
-            <SuspensionControl person={p} isSelf={p.id === actorId} />
+            <div className="flex flex-wrap gap-2 sm:flex-col sm:items-end">
+              <SuspensionControl person={p} isSelf={p.id === actorId} />
+              <AppealBodyControl person={p} />
+            </div>
           </li>
         ))}
       </ul>

@@ -9,9 +9,10 @@ export type PersonView = {
   createdAt: string;
   suspendedAt: string | null;
   suspendedReason: string | null;
+  isAppealBody: boolean; // on the governing body's appeal body (appeal_body_members)
 };
 
-export function toPersonView(u: User): PersonView {
+export function toPersonView(u: User, isAppealBody: boolean): PersonView {
   return {
     id: u.id,
     name: u.name,
@@ -20,5 +21,6 @@ export function toPersonView(u: User): PersonView {
     createdAt: u.createdAt.toISOString(),
     suspendedAt: u.suspendedAt ? u.suspendedAt.toISOString() : null,
     suspendedReason: u.suspendedReason ?? null,
+    isAppealBody,
   };
 }

@@ -7,6 +7,17 @@ import { parseId } from '@/lib/server/http/ids';
 
 export type AppealBodyMembership = { userId: string; isAppealBody: boolean };
 
+/** Which of these people (or everyone, with no list) sit on the appeal body. */
+export async function appealBodyMemberIds(userIds?: string[]): Promise<Set<string>> {
+  const rows = await getDb().sequelize.query<{ user_id: string }>(
+    userIds
+      ? 'select user_id from appeal_body_members where user_id in (:ids)'
+      : 'select user_id from appeal_body_members',
+    { replacements: { ids: userIds?.length ? userIds : [null] }, type: QueryTypes.SELECT },
+  );
+  return new Set(rows.map((r) => r.user_id));
+}
+
 /**
  * The site administrator appoints a person to the governing body's appeal body (a role above any single
  * meeting), or ends the appointment. Roles are read per request, so either takes effect at once. Like any staff

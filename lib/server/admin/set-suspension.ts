@@ -6,6 +6,7 @@ import { parseId } from '@/lib/server/http/ids';
 import { SuspendPersonInput } from '@/lib/core/inputs/admin';
 import { endAllSessions } from '@/lib/server/auth/sessions';
 import { toPersonView, type PersonView } from './person-view';
+import { appealBodyMemberIds } from './set-appeal-body';
 
 async function findPerson(id: string) {
   const user = await getDb().models.User.findByPk(id);
@@ -31,7 +32,7 @@ export async function suspendPerson(actor: Actor | null, userId: string, raw: un
   await user.update({ suspendedAt: new Date(), suspendedReason: reason, suspendedById: actor.id });
   // Sessions end for good: lifting the suspension later does not bring them back.
   await endAllSessions(user.id);
-  return toPersonView(user);
+  return toPersonView(user, (await appealBodyMemberIds([user.id])).has(user.id));
 }
 
 /** Lifts a suspension: the person can sign in again (sessions ended by the suspension stay ended). */
@@ -40,5 +41,5 @@ export async function reinstatePerson(actor: Actor | null, userId: string): Prom
   const user = await findPerson(parseId(userId, 'person'));
   if (!user.suspendedAt) throw new AppError('not_suspended', 409, `${user.name ?? user.email} is not suspended.`);
   await user.update({ suspendedAt: null, suspendedReason: null, suspendedById: null });
-  return toPersonView(user);
+  return toPersonView(user, (await appealBodyMemberIds([user.id])).has(user.id));
 }

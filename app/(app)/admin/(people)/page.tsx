@@ -28,6 +28,10 @@ export default async function AdminPage() {
         People ({people.length}
         {suspended ? `, ${suspended} suspended` : ''})
       </h2>
+      <p className="text-ink-soft">
+        Members of the appeal body hear appeals against stewards&apos; decisions at every meeting, as the governing body
+        appoints them; a member who holds a role at a meeting does not hear that meeting&apos;s appeals.
+      </p>
       <PeopleList people={people} actorId={actor.id} labels={labels} />
     </div>
   );
