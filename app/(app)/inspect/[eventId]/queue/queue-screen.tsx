@@ -1,6 +1,6 @@
 'use client';
 
-import { useCallback, useEffect, useState } from 'react';
+import { useCallback, useEffect, useRef, useState } from 'react';
 import { requestJson } from '@/components/forms/request-json';
 import { format } from 'date-fns';
 import { TZDate } from '@date-fns/tz';
@@ -16,6 +16,10 @@ import { listCheckIns, loadQueue, putCheckIn, removeCheckIn, saveQueue, type Pen
 
 const STATUS_ORDER: QueueStatus[] = ['late', 'due', 'upcoming', 'arrived'];
 const REFRESH_MS = 30_000;
+// After a send that found no connection (or a busy server), the next try comes sooner than the refresh: 2 s,
+// then doubling up to the refresh's 30 s. Signal at a dock comes and goes, and the 'online' event may fire
+// before the connection really carries requests (or not at all).
+const FIRST_RETRY_MS = 2_000;
 
 function hhmm(iso: string, timeZone: string) {
   return format(new TZDate(new Date(iso).getTime(), timeZone), 'HH:mm');
@@ -60,7 +64,16 @@ export function QueueScreen({
     setPending(await listCheckIns(eventId));
   }, [eventId]);
 
+  const retry = useRef<{ timer: ReturnType<typeof setTimeout> | null; delay: number; send: () => Promise<void> }>({
+    timer: null,
+    delay: FIRST_RETRY_MS,
+    send: async () => undefined,
+  });
   const sendPending = useCallback(async () => {
+    const r = retry.current;
+    if (r.timer) clearTimeout(r.timer);
+    r.timer = null;
+    let failed = false;
     for (const c of await listCheckIns(eventId)) {
       if (c.state !== 'waiting' || c.recordedById !== actorId) continue;
       const answer = await requestJson(`/api/events/${eventId}/slots/arrivals`, {
@@ -69,11 +82,24 @@ export function QueueScreen({
       if (answer.ok) await removeCheckIn(c.key);
       else if (answer.status === 0 || answer.status >= 500 || answer.status === 429) {
         setOffline(answer.status === 0);
-        break; // waiting will cure it: try again later, in order
+        failed = true;
+        break; // waiting will cure it: try again soon, in order
       } else await putCheckIn({ ...c, state: 'needs_fix', message: answer.message });
     }
+    if (failed) {
+      r.timer = setTimeout(() => void r.send(), r.delay);
+      r.delay = Math.min(r.delay * 2, REFRESH_MS);
+    } else r.delay = FIRST_RETRY_MS;
     await refresh();
   }, [eventId, actorId, refresh]);
+  useEffect(() => {
+    const r = retry.current;
+    r.send = sendPending;
+    return () => {
+      if (r.timer) clearTimeout(r.timer);
+      r.timer = null;
+    };
+  }, [sendPending]);
 
   // The dock's service worker keeps this page too, so it opens again with no signal.
   useEffect(() => registerInspectServiceWorker(), []);
