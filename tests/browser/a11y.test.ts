@@ -151,6 +151,7 @@ test('entrant pages: no serious or critical axe-core violation in either theme',
 
 test('organiser, steward, administrator and appeal body pages: no serious or critical axe-core violation in either theme', async () => {
   const e = meeting.eventId;
+  const sweeps: Promise<void>[] = [];
   for (const [email, stops] of [
     [
       DEMO.organiser,
@@ -180,10 +181,16 @@ test('organiser, steward, administrator and appeal body pages: no serious or cri
     [DEMO.admin, [{ path: '/admin' }]],
     [DEMO.appealBody, [{ path: '/appeals' }]],
   ] as const) {
-    const { context, page } = await signedInPage(email);
-    await sweep(page, context, [...stops]);
-    await context.close();
+    sweeps.push(
+      (async () => {
+        const { context, page } = await signedInPage(email);
+        await sweep(page, context, [...stops]);
+        await context.close();
+      })(),
+    );
   }
+  // The four people's sweeps run side by side (each in its own browser context); every one must pass.
+  await Promise.all(sweeps);
 });
 
 test('the sunlight switch: pressed state, class on <html> at once, remembered across pages by the server', async () => {
