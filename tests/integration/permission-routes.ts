@@ -795,6 +795,12 @@ export const ROUTES: Row[] = [
     path: (i) => `/api/admin/people/${i.missingId}/appeal-body`,
     access: { anyOf: ['admin.manage_users'] },
   },
+  {
+    method: 'POST',
+    file: `${E}/classes/[classId]/follow-series/route.ts`,
+    path: (i) => `${ev(i)}/classes/${i.classId}/follow-series`,
+    access: { anyOf: ['class.edit'] },
+  },
   // Series: started by an organiser (of an organisation) or the administrator; run by its secretary
   {
     method: 'POST',
