@@ -473,3 +473,20 @@ test('exports: standings, penalties and appeals as CSV and PDF for the series of
   assert.equal((await new HttpSession().fetch(`${S()}/exports/standings.csv`)).status, 401);
   assert.equal((await secretary.fetch(`${S()}/exports/entrants.csv`)).status, 404);
 });
+
+test('screens: the public series page shows the standings with the tie rule and the caution; the parity history page is for the series officials', async () => {
+  const page = await new HttpSession().fetch(`/series/${seriesId}`);
+  assert.equal(page.status, 200);
+  const html = await page.text();
+  assert.match(html, new RegExp(`Test Cup ${tag}`));
+  assert.match(html, /count-back/);
+  assert.match(html, /licensed officials decide/);
+  assert.equal((await new HttpSession().fetch(`/series/${randomUUID()}`)).status, 404);
+  const parity = await seriesSteward.s.fetch(`/series/${seriesId}/classes/${classId}/parity`);
+  assert.equal(parity.status, 200);
+  const shown = (await parity.text()).replace(/<!-- -->/g, ''); // React's markers between text nodes
+  assert.match(shown, /Parity history: Series Runabout \(SR\)/);
+  assert.match(shown, /rules v2 from 2027-03-01/);
+  const refused = await outsider.s.fetch(`/series/${seriesId}/classes/${classId}/parity`);
+  assert.doesNotMatch(await refused.text(), /Coefficient of variation/);
+});
