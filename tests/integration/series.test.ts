@@ -404,7 +404,7 @@ test('parity history across three rounds with a rule change between the second a
   );
 });
 
-test('rounds: only a class of a meeting of the series organisations, once; officials of the series only', async () => {
+test('refused input stores nothing: a round from another organisation, a second series of one name, a rising points table, a class code twice', async () => {
   const [{ id: otherClub }] = await query<{ id: string }>(
     `insert into organisations (name, slug) values ('Series Other Club', $1) returning id`,
     [`series-other-${tag}`],
@@ -425,6 +425,21 @@ test('rounds: only a class of a meeting of the series organisations, once; offic
     (await organiser.json(`/api/series`, { name: 'Not mine', season: 2027, organisationIds: [otherClub] })).res.status,
     403,
   );
+  const again = await secretary.json('/api/series', { name: `test cup ${tag}`, season: 2027, organisationIds: [CLUB] });
+  assert.equal(again.res.status, 409, 'one series of a name per season (any case)');
+  const classes = async () =>
+    Number(
+      (await query<{ n: string }>('select count(*) as n from series_classes where series_id = $1', [seriesId]))[0].n,
+    );
+  const before = await classes();
+  const rising = await secretary.json(`${S()}/classes`, { code: 'BAD', name: 'Bad', pointsByPosition: [10, 12] });
+  assert.equal(rising.res.status, 400);
+  assert.equal(rising.body.error.details[0].field, 'pointsByPosition');
+  assert.equal(
+    (await secretary.json(`${S()}/classes`, { code: 'sr', name: 'Same code', pointsByPosition: [5] })).res.status,
+    409,
+  );
+  assert.equal(await classes(), before, 'nothing stored');
   const [{ sc }] = await query<{ sc: string | null }>('select series_class_id as sc from race_classes where id = $1', [
     otherClass,
   ]);

@@ -23,7 +23,7 @@ export async function createSeries(
     if (!can(actor, 'series.create', { organisationId }))
       throw fieldError('organisationIds', 'You may only start a series for organisations you organise for.', 403);
   const { sequelize } = getDb();
-  return sequelize.transaction(async (transaction) => {
+  const created = sequelize.transaction(async (transaction) => {
     const found = await sequelize.query<{ id: string }>(`select id from organisations where id in (:orgIds)`, {
       replacements: { orgIds },
       type: QueryTypes.SELECT,
@@ -48,5 +48,11 @@ export async function createSeries(
       { replacements: { ...input, orgIds, actorId: actor.id }, type: QueryTypes.SELECT, transaction },
     );
     return row;
+  });
+  // Two starters racing past the check above: the unique index decides, and the loser hears 409.
+  return created.catch((e: unknown) => {
+    if ((e as { parent?: { code?: string } })?.parent?.code === '23505')
+      throw fieldError('name', 'A series of this name already runs this season.', 409);
+    throw e;
   });
 }
