@@ -7,6 +7,7 @@ import { buildParityHistory, type ParityHistory, type ParityRoundInput } from '@
 import { findSeriesClass, listRounds } from './series-access';
 
 export type ParityHistoryView = ParityHistory & {
+  seriesId: string;
   seriesClass: { id: string; code: string; name: string };
   // what each round's figures come from: the latest published parity report of the meeting's class
   reports: { roundId: string; publicId: string; number: number }[];
@@ -77,6 +78,7 @@ export async function loadParityHistory(
   });
   return {
     ...buildParityHistory(inputs, changes),
+    seriesId,
     seriesClass: { id: cls.id, code: cls.code, name: cls.name },
     reports: reports.map((r) => ({ roundId: r.classId, publicId: r.publicId, number: r.number })),
   };

@@ -55,6 +55,11 @@ export default async function SeriesPage({ params }: { params: Promise<{ seriesI
             {standings.tieRule}
           </p>
           <StandingsTable standings={standings} />
+          <p className="text-sm">
+            <a href={`/series/${series.id}/classes/${c.id}/parity`}>
+              For the series&apos; officials: parity history, bulletins and exports
+            </a>
+          </p>
           <h3>Rounds</h3>
           <ol className="list-decimal pl-6 text-sm">
             {standings.rounds.map((r) => (

@@ -2,10 +2,11 @@ import type { Metadata } from 'next';
 import { notFound, redirect } from 'next/navigation';
 import { AppError } from '@/lib/core/errors';
 import { SERIES_CAUTION } from '@/lib/core/series/series-caution';
-import { getActor } from '@/lib/server/auth/actor';
+import { can, getActor } from '@/lib/server/auth/actor';
 import { parseId } from '@/lib/server/http/ids';
 import { loadParityHistory, type ParityHistoryView } from '@/lib/server/series/parity-history';
 import { ParityHistoryChart } from './parity-history-chart';
+import { BulletinForm } from './bulletin-form';
 
 export const metadata: Metadata = { title: 'Parity history' };
 export const dynamic = 'force-dynamic';
@@ -105,6 +106,12 @@ export default async function ParityHistoryPage({
           </div>
         </>
       )}
+      {can(actor, 'series.bulletin_publish', { seriesId: h.seriesId }) && (
+        <BulletinForm seriesId={h.seriesId} seriesClassId={h.seriesClass.id} />
+      )}
+      <p className="text-sm">
+        <a href={`/series/${h.seriesId}`}>Standings, rounds and bulletins</a>
+      </p>
       <p className="text-sm">
         Exports for the governing body:{' '}
         {(['standings', 'penalties', 'appeals'] as const).map((k) => (
