@@ -17,6 +17,9 @@ const meeting = new InspectionMeeting();
 let classId = '';
 let entry: TestEntry;
 let publicId = '';
+// The demo's invented series and its class (seeders/20261204060000-demo-series.js).
+const DEMO_SERIES = '0b0e0000-0000-4000-8161-000000000001';
+const DEMO_SERIES_CLASS = '0b0e0000-0000-4000-8161-000000000101';
 
 before(async () => {
   browser = await launchBrowser();
@@ -96,6 +99,7 @@ test('public pages: no serious or critical axe-core violation in either theme', 
     { path: '/calculator', chart: 'thrust-chart' },
     { path: `/reports/${publicId}`, chart: 'chart-thrust-curves' },
     { path: `/t/${entry.token}` },
+    { path: `/series/${DEMO_SERIES}` },
     { path: `/no-such-page-${Date.now()}` },
   ]);
   // The header (mark, theme switch, two buttons) fits a 390 px phone: nothing scrolls sideways
@@ -172,6 +176,7 @@ test('organiser, steward, administrator and appeal body pages: no serious or cri
       DEMO.steward,
       [
         { path: '/stewards' },
+        { path: `/series/${DEMO_SERIES}/classes/${DEMO_SERIES_CLASS}/parity` },
         { path: `/stewards/${e}` },
         { path: `/stewards/${e}/audit` },
         { path: `/stewards/${e}/interests` },

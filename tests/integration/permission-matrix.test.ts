@@ -1,7 +1,8 @@
 // The permission matrix: every route handler, generated from the one permission table
 // (lib/core/auth/permissions.ts). For each actor — anonymous, entrant (own and other's data), scrutineer
 // assigned and not assigned to the meeting, steward, organiser of this and of another meeting, site
-// administrator, a member of the governing body's appeal body (above every meeting) — each endpoint must allow or deny as the table says. Allowed means the answer is
+// administrator, a member of the governing body's appeal body (above every meeting), a series' secretary
+// and steward (roles scoped to one series, no role at the meeting) — each endpoint must allow or deny as the table says. Allowed means the answer is
 // not 401/403 (bodies here are empty, so a 400 is an allowed request refused for its input);
 // denied means 401 for anonymous and 403 (or 404 where the resource is hidden) for the rest.
 // A route file or method that is not listed below fails the test.
@@ -27,6 +28,8 @@ const ACTORS = [
   'organiserElsewhere',
   'admin',
   'appealBody',
+  'seriesSecretary',
+  'seriesSteward',
 ] as const;
 type ActorKey = (typeof ACTORS)[number];
 
@@ -41,6 +44,15 @@ const ROLES_AT_MEETING: Record<Exclude<ActorKey, 'anonymous'>, Role[]> = {
   organiserElsewhere: ['entrant'],
   admin: ['entrant', 'admin'],
   appealBody: ['entrant', 'appeal_body'],
+  seriesSecretary: ['entrant'],
+  seriesSteward: ['entrant'],
+};
+// Roles each actor holds in the matrix's series (series-scoped rows ask the table about these).
+const ROLES_IN_SERIES: Record<Exclude<ActorKey, 'anonymous'>, Role[]> = {
+  ...ROLES_AT_MEETING,
+  organiser: ['entrant'], // organises the demo meeting, holds no role in the series
+  seriesSecretary: ['entrant', 'series_secretary'],
+  seriesSteward: ['entrant', 'series_steward'],
 };
 
 const sessions = new Map<ActorKey, HttpSession>();
@@ -180,7 +192,26 @@ before(async () => {
      values ($1, $2, $3, 'Matrix grounds of appeal', 'lodged', 10000, 'NZD', now(), now() + interval '1 hour') returning id`,
     [DEMO.meetingId, penaltyId, entrantId],
   );
+  // A series run by its own secretary and steward (people with no role at any meeting).
+  const sec = await signUpAndIn('series-secretary');
+  const stw = await signUpAndIn('series-steward');
+  sessions.set('seriesSecretary', sec.s);
+  sessions.set('seriesSteward', stw.s);
+  const [{ id: seriesId }] = await query<{ id: string }>(
+    `insert into series (name, season, created_by_id) values ($1, 2027, $2) returning id`,
+    [`Matrix Series ${randomUUID().slice(0, 8)}`, sec.id],
+  );
+  await query(
+    `insert into series_officials (series_id, user_id, role) values ($1, $2, 'series_secretary'), ($1, $3, 'series_steward')`,
+    [seriesId, sec.id, stw.id],
+  );
+  const [{ id: seriesClassId }] = await query<{ id: string }>(
+    `insert into series_classes (series_id, code, name, points_by_position) values ($1, 'MX', 'Matrix', '[10, 5]') returning id`,
+    [seriesId],
+  );
   ids = {
+    seriesId,
+    seriesClassId,
     appealId,
     eventId: DEMO.meetingId,
     classId,
@@ -205,6 +236,7 @@ function expectedAllowed(access: Access, actor: ActorKey): boolean | 'hidden' | 
   if (access === 'owner') return actor === 'entrantOwn' ? true : 'hidden';
   if (access === 'owner-or-view-all')
     return actor === 'entrantOwn' || rolesCan(ROLES_AT_MEETING[actor], 'entry.view_all') ? true : 'hidden';
+  if ('series' in access) return access.series.some((p) => rolesCan(ROLES_IN_SERIES[actor], p));
   if ('custom' in access) return (access.custom as readonly string[]).includes(actor);
   if ('ownerOr' in access)
     return actor === 'entrantOwn' || access.ownerOr.some((p) => rolesCan(ROLES_AT_MEETING[actor], p)) ? true : 'hidden';

@@ -17,6 +17,8 @@ export type Ids = {
   evidenceId: string; // lodged by the demo entrant against the other entrant's entry
   componentId: string; // an impeller on the demo entrant's spare boat
   appealId: string; // lodged by the demo entrant (the protester) against a penalty on the other entrant's boat
+  seriesId: string; // a series with its own secretary and steward
+  seriesClassId: string;
 };
 export type Access =
   | 'public' // anyone, signed in or not
@@ -36,7 +38,9 @@ export type Access =
   // An appeal: 'view' for its parties (appellant, penalised entrant), the meeting's protest.view_all and the
   // appeal body; 'pay' for the appellant; 'hear' for appeal.hear. Those who see it but may not take the
   // step get 403; everyone else 404, as for a missing id.
-  | { appeal: 'view' | 'pay' | 'hear' };
+  | { appeal: 'view' | 'pay' | 'hear' }
+  // Any of these permissions in the matrix's series (roles scoped to the series, and those above any meeting).
+  | { series: Permission[] };
 
 type Row = {
   method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
@@ -790,6 +794,67 @@ export const ROUTES: Row[] = [
     file: 'app/api/admin/people/[userId]/appeal-body/route.ts',
     path: (i) => `/api/admin/people/${i.missingId}/appeal-body`,
     access: { anyOf: ['admin.manage_users'] },
+  },
+  {
+    method: 'POST',
+    file: `${E}/classes/[classId]/follow-series/route.ts`,
+    path: (i) => `${ev(i)}/classes/${i.classId}/follow-series`,
+    access: { anyOf: ['class.edit'] },
+  },
+  // Series: started by an organiser (of an organisation) or the administrator; run by its secretary
+  {
+    method: 'POST',
+    file: 'app/api/series/route.ts',
+    path: () => '/api/series',
+    access: { custom: ['organiser', 'organiserElsewhere', 'admin'] },
+  },
+  {
+    method: 'GET',
+    file: 'app/api/series/[seriesId]/route.ts',
+    path: (i) => `/api/series/${i.seriesId}`,
+    access: 'public',
+  },
+  ...(['officials', 'classes'] as const).map((p) => ({
+    method: 'POST' as const,
+    file: `app/api/series/[seriesId]/${p}/route.ts`,
+    path: (i: Ids) => `/api/series/${i.seriesId}/${p}`,
+    access: { series: ['series.manage'] } as Access,
+  })),
+  ...(['rules', 'rounds', 'race-numbers'] as const).map((p) => ({
+    method: 'POST' as const,
+    file: `app/api/series/[seriesId]/classes/[seriesClassId]/${p}/route.ts`,
+    path: (i: Ids) => `/api/series/${i.seriesId}/classes/${i.seriesClassId}/${p}`,
+    access: { series: ['series.manage'] } as Access,
+  })),
+  {
+    method: 'GET',
+    file: 'app/api/series/[seriesId]/classes/[seriesClassId]/bulletins/route.ts',
+    path: (i) => `/api/series/${i.seriesId}/classes/${i.seriesClassId}/bulletins`,
+    access: 'public',
+  },
+  {
+    method: 'POST',
+    file: 'app/api/series/[seriesId]/classes/[seriesClassId]/bulletins/route.ts',
+    path: (i) => `/api/series/${i.seriesId}/classes/${i.seriesClassId}/bulletins`,
+    access: { series: ['series.bulletin_publish'] },
+  },
+  {
+    method: 'GET',
+    file: 'app/api/series/[seriesId]/classes/[seriesClassId]/standings/route.ts',
+    path: (i) => `/api/series/${i.seriesId}/classes/${i.seriesClassId}/standings`,
+    access: 'public',
+  },
+  {
+    method: 'GET',
+    file: 'app/api/series/[seriesId]/classes/[seriesClassId]/parity-history/route.ts',
+    path: (i) => `/api/series/${i.seriesId}/classes/${i.seriesClassId}/parity-history`,
+    access: { series: ['series.parity_view'] },
+  },
+  {
+    method: 'GET',
+    file: 'app/api/series/[seriesId]/exports/[file]/route.ts',
+    path: (i) => `/api/series/${i.seriesId}/exports/penalties.csv`,
+    access: { series: ['series.export'] },
   },
   {
     method: 'GET',

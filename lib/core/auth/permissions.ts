@@ -1,8 +1,9 @@
 // The one permission table: every server action and route handler asks it.
 // Roles are per event (organiser, chief_scrutineer, scrutineer, steward), per person
 // (entrant: anyone signed in) or above any single meeting (admin, and appeal_body: the governing body's
-// appeal body, which hears appeals against stewards' decisions of every meeting). Framework-free so tests
-// can read it.
+// appeal body, which hears appeals against stewards' decisions of every meeting) or per series
+// (series_secretary runs a series: its classes, rules, rounds, numbers and bulletins; series_steward reads its
+// penalties and parity history). Framework-free so tests can read it.
 
 export const ROLES = [
   'entrant',
@@ -12,12 +13,24 @@ export const ROLES = [
   'organiser',
   'admin',
   'appeal_body',
+  'series_secretary',
+  'series_steward',
 ] as const;
 export type Role = (typeof ROLES)[number];
 
 export const PERMISSIONS = {
   // Own account and own boats
-  'account.view': ['entrant', 'scrutineer', 'chief_scrutineer', 'steward', 'organiser', 'admin', 'appeal_body'],
+  'account.view': [
+    'entrant',
+    'scrutineer',
+    'chief_scrutineer',
+    'steward',
+    'organiser',
+    'admin',
+    'appeal_body',
+    'series_secretary',
+    'series_steward',
+  ],
   'boat.manage_own': ['entrant'],
   'entry.submit_own': ['entrant'],
   'protest.lodge': ['entrant'],
@@ -62,6 +75,15 @@ export const PERMISSIONS = {
   'penalty.apply': ['steward'],
   // Appeals to the governing body: its appeal body hears and decides them, for any meeting
   'appeal.hear': ['appeal_body'],
+  // Series: an organiser (of the organisation that starts it) or the site administrator starts one and becomes
+  // its secretary; the secretary runs it and publishes its technical bulletins; the series' officials read its
+  // penalties and parity history; the governing body's exports (standings, penalties, appeals) go to the series'
+  // officials and the appeal body. Standings are public, as published results are.
+  'series.create': ['organiser', 'admin'],
+  'series.manage': ['series_secretary'],
+  'series.bulletin_publish': ['series_secretary'],
+  'series.parity_view': ['series_secretary', 'series_steward'],
+  'series.export': ['series_secretary', 'series_steward', 'appeal_body'],
   // Conflicts of interest: every official declares their own; stewards and the organiser read the whole register
   'interest.declare': ['scrutineer', 'chief_scrutineer', 'steward', 'organiser'],
   'interest.view_register': ['steward', 'organiser'],

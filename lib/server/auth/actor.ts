@@ -16,6 +16,7 @@ export type Actor = {
   isAppealBody: boolean; // a member of the governing body's appeal body (above any single meeting)
   isAddressProven: boolean; // the owner followed a link sent to the address (lib/server/accounts/prove-address.ts)
   eventRoles: Record<string, Role[]>;
+  seriesRoles: Record<string, Role[]>; // series_secretary / series_steward by series id
   organiserOf: string[]; // organisation ids where the person may create events
 };
 
@@ -32,12 +33,14 @@ export async function loadActor(userId: string, sessionVersion: number): Promise
     isAppealBody: boolean;
     isAddressProven: boolean;
     staff: { eventId: string; role: Role }[];
+    seriesStaff: { seriesId: string; role: Role }[];
     organiserOf: string[];
   }>(
     'actor:load',
     `select u.id, u.email, u.name, u.is_admin as "isAdmin",
             exists (select 1 from appeal_body_members a where a.user_id = u.id) as "isAppealBody", u.email_verified is not null as "isAddressProven",
             coalesce((select json_agg(json_build_object('eventId', s.event_id, 'role', s.role)) from event_staff s where s.user_id = u.id), '[]') as staff,
+            coalesce((select json_agg(json_build_object('seriesId', o.series_id, 'role', o.role)) from series_officials o where o.user_id = u.id), '[]') as "seriesStaff",
             coalesce((select json_agg(m.organisation_id) from organisation_members m where m.user_id = u.id and m.role = 'organiser'), '[]') as "organiserOf"
        from users u where u.id = :userId and u.suspended_at is null and u.session_version = :sessionVersion`,
     { userId, sessionVersion },
@@ -45,6 +48,8 @@ export async function loadActor(userId: string, sessionVersion: number): Promise
   if (!row) return null;
   const eventRoles: Record<string, Role[]> = {};
   for (const s of row.staff) (eventRoles[s.eventId] ??= []).push(s.role);
+  const seriesRoles: Record<string, Role[]> = {};
+  for (const s of row.seriesStaff) (seriesRoles[s.seriesId] ??= []).push(s.role);
   return {
     id: row.id,
     email: row.email,
@@ -53,6 +58,7 @@ export async function loadActor(userId: string, sessionVersion: number): Promise
     isAppealBody: row.isAppealBody,
     isAddressProven: row.isAddressProven,
     eventRoles,
+    seriesRoles,
     organiserOf: row.organiserOf,
   };
 }
@@ -103,11 +109,15 @@ export async function getActor(): Promise<Actor | null> {
 }
 
 /** Roles a person holds in a scope: everyone signed in is an entrant; staff roles are per event. */
-export function rolesOf(actor: Actor, scope: { eventId?: string; organisationId?: string } = {}): Role[] {
+export function rolesOf(
+  actor: Actor,
+  scope: { eventId?: string; organisationId?: string; seriesId?: string } = {},
+): Role[] {
   const roles: Role[] = ['entrant'];
   if (actor.isAdmin) roles.push('admin');
   if (actor.isAppealBody) roles.push('appeal_body');
   if (scope.eventId) roles.push(...(actor.eventRoles[scope.eventId] ?? []));
+  if (scope.seriesId) roles.push(...(actor.seriesRoles[scope.seriesId] ?? []));
   if (scope.organisationId && actor.organiserOf.includes(scope.organisationId)) roles.push('organiser');
   return roles;
 }
@@ -116,6 +126,7 @@ export function rolesOf(actor: Actor, scope: { eventId?: string; organisationId?
 export function allRolesOf(actor: Actor): Role[] {
   const set = new Set<Role>(rolesOf(actor));
   for (const roles of Object.values(actor.eventRoles)) roles.forEach((r) => set.add(r));
+  for (const roles of Object.values(actor.seriesRoles)) roles.forEach((r) => set.add(r));
   if (actor.organiserOf.length) set.add('organiser');
   return [...set];
 }
@@ -123,7 +134,7 @@ export function allRolesOf(actor: Actor): Role[] {
 export function can(
   actor: Actor | null,
   permission: Permission,
-  scope: { eventId?: string; organisationId?: string } = {},
+  scope: { eventId?: string; organisationId?: string; seriesId?: string } = {},
 ) {
   return !!actor && rolesCan(rolesOf(actor, scope), permission);
 }
@@ -131,7 +142,7 @@ export function can(
 export function assertCan(
   actor: Actor | null,
   permission: Permission,
-  scope: { eventId?: string; organisationId?: string } = {},
+  scope: { eventId?: string; organisationId?: string; seriesId?: string } = {},
 ): asserts actor is Actor {
   if (!actor) throw new AppError('unauthenticated', 401, 'Sign in to do this.');
   if (!can(actor, permission, scope)) throw new AppError('forbidden', 403, 'You are not allowed to do this.');

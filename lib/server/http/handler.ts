@@ -55,14 +55,15 @@ export function actorHandler<P extends Params = Params>(
   });
 }
 
-/** Wraps a handler that needs one permission, scoped by a path parameter (eventId) when present. */
+/** Wraps a handler that needs one permission, scoped by a path parameter (eventId, seriesId) when present. */
 export function withPermission<P extends Params = Params>(
   permission: Permission,
   fn: (req: NextRequest, ctx: { params: P; actor: Actor }) => Promise<Response>,
 ) {
   return actorHandler<P>(async (req, ctx) => {
     const eventId = typeof ctx.params.eventId === 'string' ? ctx.params.eventId : undefined;
-    assertCan(ctx.actor, permission, { eventId });
+    const seriesId = typeof ctx.params.seriesId === 'string' ? ctx.params.seriesId : undefined;
+    assertCan(ctx.actor, permission, { eventId, seriesId });
     return fn(req, ctx);
   });
 }

@@ -7,7 +7,9 @@
 // meeting's officials read; the meeting's officials read the start list, and the organiser decides on it;
 // a technical delegate reports to the stewards without a protest, the stewards impose penalties from the
 // organiser's catalogue, and appeals against them go to the governing body's appeal body, which is no
-// official of the meeting).
+// official of the meeting). A series (issue 22, item 3) is run by its secretary, who publishes its technical
+// bulletins; its stewards read its penalties and parity history; the governing body's exports go to the
+// series' officials and to the appeal body (common practice in series motorsport, no single source).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import {
@@ -93,9 +95,12 @@ const EXPECTED: Record<Role, Permission[]> = {
     'start_list.view',
     'start_list.decide',
     'penalty.catalogue_manage',
+    'series.create',
   ],
-  admin: ['account.view', 'event.create', 'admin.manage_users', 'dev.outbox', 'admin.view_metrics'],
-  appeal_body: ['account.view', 'appeal.hear'],
+  admin: ['account.view', 'event.create', 'admin.manage_users', 'dev.outbox', 'admin.view_metrics', 'series.create'],
+  appeal_body: ['account.view', 'appeal.hear', 'series.export'],
+  series_secretary: ['account.view', 'series.manage', 'series.bulletin_publish', 'series.parity_view', 'series.export'],
+  series_steward: ['account.view', 'series.parity_view', 'series.export'],
 };
 
 for (const role of ROLES) {
@@ -173,4 +178,28 @@ test("the demo outbox (everyone's sign-in links) is the site administrator's alo
     false,
     'no combination of other roles adds up to it',
   );
+});
+
+test('series: only the secretary runs a series and publishes bulletins; its officials run nothing at a meeting; the appeal body exports but runs no series', () => {
+  assert.deepEqual(
+    ROLES.filter((r) => roleCan(r, 'series.manage')),
+    ['series_secretary'],
+  );
+  assert.deepEqual(
+    ROLES.filter((r) => roleCan(r, 'series.bulletin_publish')),
+    ['series_secretary'],
+  );
+  for (const role of ['series_secretary', 'series_steward'] as const)
+    for (const p of [
+      'penalty.apply',
+      'protest.decide',
+      'results.publish',
+      'entry.view_all',
+      'appeal.hear',
+      'class.edit',
+    ] as const)
+      assert.equal(roleCan(role, p), false, `${role} must not have ${p}`);
+  assert.equal(roleCan('appeal_body', 'series.manage'), false);
+  assert.equal(roleCan('appeal_body', 'series.export'), true);
+  assert.equal(rolesCan(['entrant', 'series_steward'], 'series.bulletin_publish'), false);
 });
