@@ -23,7 +23,10 @@ import { checkpointMessage, type Checkpoint } from '../../lib/core/chain/bundle-
 
 const meeting = new InspectionMeeting();
 const scrutineer = new HttpSession();
-const keyDir = fs.mkdtempSync(path.join(os.tmpdir(), 'boreline-chain-keys-'));
+// The app's key folder (scripts/test.sh makes a fresh one per run): publications through the API sign with
+// the same meeting key as this test's checkpoints.
+const keyDir = process.env.BORELINE_KEY_DIR ?? fs.mkdtempSync(path.join(os.tmpdir(), 'boreline-chain-keys-'));
+const scratch = fs.mkdtempSync(path.join(os.tmpdir(), 'boreline-chain-test-'));
 const clients: pg.Client[] = [];
 const files = new Map<string, Buffer>();
 let bundle = '';
@@ -50,7 +53,7 @@ before(async () => {
 
 after(async () => {
   for (const c of clients) await c.end();
-  fs.rmSync(keyDir, { recursive: true, force: true });
+  fs.rmSync(scratch, { recursive: true, force: true });
 });
 
 test('concurrent records at one meeting are chained in one strict order, with no fork', async () => {
@@ -139,10 +142,15 @@ test("a meeting's bundle verifies, with its files and a checkpoint signed by the
   assert.ok(result.ok, JSON.stringify(result));
   assert.equal(result.records, checkpoint.count);
   assert.equal(result.files, 1);
-  assert.equal(result.checkpoints.length, 1);
+  // Each class's rules were published through the API (one checkpoint each), then this test's own.
+  assert.deepEqual(
+    result.checkpoints.map((c) => c.reason.replace(/ [A-Z]+ /, ' X ')),
+    ['rules of X version 1 published', 'rules of X version 1 published', 'test publication'],
+  );
+  assert.equal(result.checkpoints.at(-1)!.count, checkpoint.count);
 
   // The command-line verifier says the same, with exit code 0.
-  const file = path.join(keyDir, 'bundle.jsonl');
+  const file = path.join(scratch, 'bundle.jsonl');
   fs.writeFileSync(file, bundle);
   const out = execFileSync('node_modules/.bin/tsx', ['scripts/verify-bundle.ts', file], { encoding: 'utf8' });
   assert.match(out, /^VERIFIED/);
@@ -151,7 +159,18 @@ test("a meeting's bundle verifies, with its files and a checkpoint signed by the
   const caseFile = await buildBundle(c, meeting.eventId, { readFile: async (k) => files.get(k)!, protestId });
   const cased = await verifyBundle(caseFile);
   assert.ok(cased.ok, JSON.stringify(cased));
-  assert.equal(cased.records - cased.withheld, 1, 'only the evidence row is in the case file');
+  const present = caseFile
+    .trim()
+    .split('\n')
+    .map((l) => JSON.parse(l))
+    .filter((l) => l.type === 'record' && l.row !== undefined)
+    .map((l) => `${l.seq} ${l.table}`);
+  assert.deepEqual(
+    present.map((p: string) => p.split(' ')[1]),
+    ['protest_evidence'],
+    `only the evidence row: ${present}`,
+  );
+  assert.equal(cased.records - cased.withheld, 1);
 });
 
 type Line = Record<string, unknown> & { type: string };
@@ -224,7 +243,7 @@ test('a tampered bundle is refused, naming the record where it differs', async (
   assert.equal(p.record?.seq, head.count, p.message);
 
   // The command line exits non-zero and names the record.
-  const file = path.join(keyDir, 'forged.jsonl');
+  const file = path.join(scratch, 'forged.jsonl');
   fs.writeFileSync(file, unparse(replaced));
   let status = 0;
   let stdout = '';
@@ -260,4 +279,40 @@ test('a row changed directly in PostgreSQL, behind a disabled trigger, is found 
   assert.equal(afterCheck.problem!.kind, 'row-hash');
   assert.equal(afterCheck.problem!.record?.seq, Number(victim.seq));
   assert.equal(afterCheck.problem!.record?.rowId, victim.row_id);
+});
+
+test("the meeting's bundle over HTTP verifies; the administrator's self-check names the break, on the admin page and in the metrics", async () => {
+  const organiser = meeting.organiser;
+  const res = await organiser.fetch(`/api/events/${meeting.eventId}/chain/bundle`);
+  assert.equal(res.status, 200);
+  assert.match(res.headers.get('content-disposition') ?? '', /attachment; filename="boreline-chain-/);
+  const text = await res.text();
+  const result = await verifyBundle(text);
+  // The row changed behind the trigger's back (previous test) is what the bundle now carries: refused.
+  assert.equal(result.ok, false);
+  assert.equal((result as Extract<typeof result, { ok: false }>).problem.kind, 'row-hash');
+
+  const entrant = new HttpSession();
+  await entrant.signInWithPassword(DEMO.entrant, DEMO_PASSWORD);
+  assert.equal((await entrant.fetch(`/api/events/${meeting.eventId}/chain/bundle`)).status, 403);
+  assert.equal(
+    (await entrant.json('/api/admin/chain/check', {})).res.status,
+    403,
+    'the self-check is for the site administrator',
+  );
+
+  const admin = new HttpSession();
+  await admin.signInWithPassword(DEMO.admin, DEMO_PASSWORD);
+  const check = await admin.json('/api/admin/chain/check', {});
+  assert.equal(check.res.status, 200, JSON.stringify(check.body));
+  const broken = check.body.data.broken.find((b: { chain: string }) => b.chain === meeting.eventId);
+  assert.ok(broken, 'the meeting is named as broken');
+  assert.equal(broken.problem.kind, 'row-hash');
+  assert.equal(broken.problem.record.table, 'inspections');
+  const metrics = await (await admin.fetch('/api/metrics')).text();
+  const gauge = /^boreline_chain_broken (\d+)$/m.exec(metrics);
+  assert.ok(gauge && Number(gauge[1]) >= 1, 'the metrics raise the alert');
+  const page = await (await admin.fetch('/admin')).text();
+  assert.match(page, /A record chain is broken/);
+  assert.ok(page.includes(meeting.eventId), 'the admin page names the chain');
 });

@@ -370,7 +370,9 @@ export async function buildBundle(
     const ref = fileReference(r.row);
     if (!ref || seen.has(ref.objectKey)) continue;
     seen.add(ref.objectKey);
-    const bytes = await opts.readFile(ref.objectKey);
+    // A file that cannot be read is left out: the verifier then names the record whose file is missing.
+    const bytes = await opts.readFile(ref.objectKey).catch(() => null);
+    if (!bytes) continue;
     lines.push({
       type: 'file',
       objectKey: ref.objectKey,
@@ -380,4 +382,27 @@ export async function buildBundle(
     });
   }
   return lines.map((l) => JSON.stringify(l)).join('\n') + '\n';
+}
+
+/** The first checkpoint that covers a chained row (the one signed at its publication), or null. */
+export async function checkpointCovering(
+  client: Sql,
+  chainKey: string,
+  table: string,
+  rowId: string,
+): Promise<Checkpoint | null> {
+  const [c] = (
+    await client.query(
+      `select c.chain_key as chain, c.count::int as count, c.head, c.reason, c.signed_at as "signedAt",
+              c.key_fingerprint as "keyFingerprint", c.signature
+         from chain_links l
+         join chain_checkpoints c on c.chain_key = l.chain_key and c.count >= l.seq
+        where l.chain_key = $1 and l.table_name = $2 and l.row_id = $3
+        order by c.id limit 1`,
+      [checkChainKey(chainKey), table, rowId],
+    )
+  ).rows;
+  return c
+    ? ({ type: 'checkpoint', ...c, head: c.head as string, signedAt: (c.signedAt as Date).toISOString() } as Checkpoint)
+    : null;
 }

@@ -52,6 +52,7 @@ const EXPECTED: Record<Role, Permission[]> = {
     'incident.view',
     'start_list.view',
     'technical_report.file',
+    'chain.export',
   ],
   steward: [
     'account.view',
@@ -69,6 +70,7 @@ const EXPECTED: Record<Role, Permission[]> = {
     'incident.view',
     'start_list.view',
     'penalty.apply',
+    'chain.export',
   ],
   organiser: [
     'account.view',
@@ -93,8 +95,9 @@ const EXPECTED: Record<Role, Permission[]> = {
     'start_list.view',
     'start_list.decide',
     'penalty.catalogue_manage',
+    'chain.export',
   ],
-  admin: ['account.view', 'event.create', 'admin.manage_users', 'dev.outbox', 'admin.view_metrics'],
+  admin: ['account.view', 'event.create', 'admin.manage_users', 'dev.outbox', 'admin.view_metrics', 'chain.check'],
   appeal_body: ['account.view', 'appeal.hear'],
 };
 
