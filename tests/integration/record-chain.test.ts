@@ -17,7 +17,13 @@ import { HttpSession } from '../support/http-session';
 import { DEMO, DEMO_PASSWORD } from '../support/env';
 import { query } from '../support/db';
 import { InspectionMeeting, inspectionBody, rulesWith } from '../support/inspection-meeting';
-import { buildBundle, checkChain, linkChain, signCheckpoint } from '../../lib/server/chain/chain-db';
+import {
+  buildBundle,
+  checkChain,
+  linkChain,
+  signCheckpoint,
+  signEndOfDayCheckpoints,
+} from '../../lib/server/chain/chain-db';
 import { verifyBundle } from '../../lib/core/chain/verify-bundle';
 import { checkpointMessage, type Checkpoint } from '../../lib/core/chain/bundle-format';
 
@@ -296,6 +302,11 @@ test("the meeting's bundle over HTTP verifies; the administrator's self-check na
   await entrant.signInWithPassword(DEMO.entrant, DEMO_PASSWORD);
   assert.equal((await entrant.fetch(`/api/events/${meeting.eventId}/chain/bundle`)).status, 403);
   assert.equal(
+    (await scrutineer.fetch(`/api/events/${meeting.eventId}/chain/bundle`)).status,
+    403,
+    "the meeting's scrutineer may not read its audit trail or protest evidence, so not its bundle",
+  );
+  assert.equal(
     (await entrant.json('/api/admin/chain/check', {})).res.status,
     403,
     'the self-check is for the site administrator',
@@ -315,4 +326,35 @@ test("the meeting's bundle over HTTP verifies; the administrator's self-check na
   const page = await (await admin.fetch('/admin')).text();
   assert.match(page, /A record chain is broken/);
   assert.ok(page.includes(meeting.eventId), 'the admin page names the chain');
+});
+
+test("a meeting day's end is signed once, dated in the meeting's time zone, and not before the day ends", async () => {
+  const c = await client();
+  const entry = await meeting.addEntry(await meeting.addClass('ED', rulesWith()));
+  const rec = await scrutineer.json(`/api/events/${meeting.eventId}/inspections`, inspectionBody(entry.id, 101.4));
+  assert.equal(rec.res.status, 201, JSON.stringify(rec.body));
+  await linkChain(c, meeting.eventId);
+  const [head] = await query<{ linked_at: Date }>(
+    'select linked_at from chain_links where chain_key = $1 order by seq desc limit 1',
+    [meeting.eventId],
+  );
+  assert.ok(
+    !(await signEndOfDayCheckpoints(c, keyDir, head.linked_at)).includes(meeting.eventId),
+    'the day is not over',
+  );
+  const nextDay = new Date(head.linked_at.getTime() + 36 * 3600 * 1000);
+  await signEndOfDayCheckpoints(c, keyDir, nextDay);
+  await signEndOfDayCheckpoints(c, keyDir, nextDay);
+  // The meeting runs in Pacific/Auckland (tests/support/inspection-meeting.ts): the day is its local date.
+  // (Counted by reason, not by what each call returns: the app's own worker may sign it first at local midnight.)
+  const localDay = new Intl.DateTimeFormat('en-CA', { timeZone: 'Pacific/Auckland' }).format(head.linked_at);
+  const signed = await query<{ count: string }>(
+    'select count from chain_checkpoints where chain_key = $1 and reason = $2',
+    [meeting.eventId, `end of meeting day ${localDay}`],
+  );
+  assert.equal(signed.length, 1, 'signed once');
+  const [{ n }] = await query<{ n: string }>('select count(*) as n from chain_links where chain_key = $1', [
+    meeting.eventId,
+  ]);
+  assert.equal(Number(signed[0].count), Number(n), 'it covers the whole chain');
 });

@@ -55,8 +55,9 @@ export const PERMISSIONS = {
   'protest.decide': ['steward'],
   'protest.view_all': ['steward', 'organiser'],
   'audit.read': ['steward', 'organiser'],
-  // The record chain (issue 24): a meeting's export bundle, for the officials who answer for its records
-  'chain.export': ['chief_scrutineer', 'steward', 'organiser'],
+  // The record chain (issue 24): a meeting's export bundle. It carries every chained row (the audit trail,
+  // protest evidence), so only those who may read all of them (audit.read and protest.view_all) export it.
+  'chain.export': ['steward', 'organiser'],
   // Penalties: the organiser keeps the meeting's catalogue (a series' later), a technical delegate reports to
   // the stewards without a protest, and the stewards impose penalties from an upheld protest or a report
   'penalty.catalogue_manage': ['organiser'],

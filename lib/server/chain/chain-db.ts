@@ -406,3 +406,21 @@ export async function checkpointCovering(
     ? ({ type: 'checkpoint', ...c, head: c.head as string, signedAt: (c.signedAt as Date).toISOString() } as Checkpoint)
     : null;
 }
+
+/**
+ * End-of-day checkpoints: each meeting whose newest link was made on an earlier day than `now` (both in the
+ * meeting's time zone) and that no checkpoint covers yet gets one. Returns the meetings signed.
+ */
+export async function signEndOfDayCheckpoints(client: Sql, keyDir: string, now = new Date()): Promise<string[]> {
+  const { rows } = await client.query(
+    `select e.id::text as "eventId", to_char((h.linked_at at time zone e.time_zone)::date, 'YYYY-MM-DD') as day
+       from events e
+       join lateral (select l.seq, l.linked_at from chain_links l where l.chain_key = e.id::text
+                      order by l.seq desc limit 1) h on true
+      where (h.linked_at at time zone e.time_zone)::date < ($1::timestamptz at time zone e.time_zone)::date
+        and not exists (select 1 from chain_checkpoints c where c.chain_key = e.id::text and c.count >= h.seq)`,
+    [now.toISOString()],
+  );
+  for (const r of rows) await signCheckpoint(client, r.eventId as string, `end of meeting day ${r.day}`, keyDir);
+  return rows.map((r) => r.eventId as string);
+}

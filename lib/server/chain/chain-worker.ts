@@ -1,9 +1,8 @@
 import 'server-only';
-import { QueryTypes } from 'sequelize';
-import { getDb } from '@/lib/server/db';
 import { serverEnv } from '@/lib/server/config/env';
 import { logger } from '@/lib/server/observability';
-import { linkChainsNow, runSelfCheck, signCheckpointNow } from './chain-service';
+import { keyDir, linkChainsNow, runSelfCheck, withChainClient } from './chain-service';
+import { signEndOfDayCheckpoints } from './chain-db';
 
 // Each app server's record-chain worker (started by instrumentation.ts): links what was recorded every
 // CHAIN_LINK_INTERVAL_MS (several servers take turns per chain through its advisory lock), signs a
@@ -13,26 +12,12 @@ import { linkChainsNow, runSelfCheck, signCheckpointNow } from './chain-service'
 type State = { timer?: NodeJS.Timeout; checkTimer?: NodeJS.Timeout; running: boolean };
 const g = globalThis as unknown as { __borelineChainWorker?: State };
 
-/** Meetings whose last chained record was on an earlier local day than today, with no checkpoint since. */
-async function signEndOfDay() {
-  const due = await getDb().sequelize.query<{ eventId: string; day: string }>(
-    `select e.id as "eventId", to_char((h.linked_at at time zone e.time_zone)::date, 'YYYY-MM-DD') as day
-       from events e
-       join lateral (select l.seq, l.linked_at from chain_links l where l.chain_key = e.id::text
-                      order by l.seq desc limit 1) h on true
-      where (h.linked_at at time zone e.time_zone)::date < (now() at time zone e.time_zone)::date
-        and not exists (select 1 from chain_checkpoints c where c.chain_key = e.id::text and c.count >= h.seq)`,
-    { type: QueryTypes.SELECT },
-  );
-  for (const d of due) await signCheckpointNow(d.eventId, `end of meeting day ${d.day}`);
-}
-
 async function tick(state: State) {
   if (state.running) return;
   state.running = true;
   try {
     await linkChainsNow();
-    await signEndOfDay();
+    await withChainClient((c) => signEndOfDayCheckpoints(c, keyDir()));
   } catch (err) {
     logger().error({ err }, 'record chain: linking failed');
   } finally {

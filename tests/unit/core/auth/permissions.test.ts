@@ -52,7 +52,6 @@ const EXPECTED: Record<Role, Permission[]> = {
     'incident.view',
     'start_list.view',
     'technical_report.file',
-    'chain.export',
   ],
   steward: [
     'account.view',
