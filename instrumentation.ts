@@ -13,4 +13,7 @@ export async function register() {
   // The mail outbox's worker: sends what requests queued, after their answers (lib/server/mail/outbox-worker.ts).
   const { startOutboxWorker } = await import('./lib/server/mail/outbox-worker');
   startOutboxWorker();
+  // The record chain's worker: links what was recorded, signs end-of-day checkpoints, nightly self-check.
+  const { startChainWorker } = await import('./lib/server/chain/chain-worker');
+  startChainWorker();
 }

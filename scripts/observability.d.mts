@@ -5,6 +5,8 @@ export type BorelineMetrics = {
   registry: Registry;
   httpDuration: Histogram<'method' | 'route' | 'status'>;
   inspectionRecords: Counter<'outcome'>;
+  chainBroken: Gauge;
+  chainLastCheck: Gauge;
   dbPool: Gauge<'state'>;
 };
 export function logger(): Logger;

@@ -48,6 +48,17 @@ function create() {
       labelNames: ['outcome'],
       registers: [registry],
     }),
+    // The record chain's self-check (lib/server/chain): alert on boreline_chain_broken > 0.
+    chainBroken: new client.Gauge({
+      name: 'boreline_chain_broken',
+      help: 'Record chains (one per meeting, and the site chain) found broken by the last self-check on this server',
+      registers: [registry],
+    }),
+    chainLastCheck: new client.Gauge({
+      name: 'boreline_chain_last_check_timestamp_seconds',
+      help: 'When this server last re-verified every record chain (Unix time)',
+      registers: [registry],
+    }),
     dbPool: new client.Gauge({
       name: 'boreline_db_pool_connections',
       help: 'Database pool connections by state (in use, idle, requests waiting for one)',

@@ -30,6 +30,8 @@ export MAIL_FROM="Boreline <no-reply@boreline.invalid>"
 # so tests that read mail wait a moment, not seconds.
 export MAIL_OUTBOX_INTERVAL_MS=200 MAIL_RETRY_BASE_MS=500
 export FAKES_DIR="$ROOT/.data/test-fakes"
+# The meetings' chain signing keys: the test database is new every run, so are its keys (lib/server/chain).
+export BORELINE_KEY_DIR="$ROOT/.data/test-chain-keys"
 export NEXT_DIST_DIR=".next-test"
 export TEST_ARTIFACTS="$ROOT/test-results"
 export STRIPE_SECRET_KEY="sk_test_$(rand)"
@@ -94,7 +96,7 @@ if [ $needs_app = 1 ]; then
     -c "drop database if exists boreline_test with (force)" -c "create database boreline_test owner boreline" >/dev/null
   npx sequelize-cli db:migrate >/dev/null
   npx sequelize-cli db:seed:all >/dev/null
-  rm -rf "$FAKES_DIR"
+  rm -rf "$FAKES_DIR" "$BORELINE_KEY_DIR"
   start_fakes "$RUN/fakes.pid" "$RUN/fakes.log"
   log "building the app (without DATABASE_URL, proving nothing touches the database at build time)"
   { env -u DATABASE_URL npx next build && node scripts/build-sw.mjs; } >"$RUN/build.log" 2>&1 || { cat "$RUN/build.log"; exit 1; }

@@ -321,3 +321,67 @@ test('only published reports are public: drafts need the organiser, unknown ids 
   assert.equal((await fetch(`${BASE_URL}/api/reports/notarealreportid123`)).status, 404);
   assert.equal((await fetch(`${BASE_URL}/reports/notarealreportid123`)).status, 404);
 });
+
+test("a published report's page and PDF print the checkpoint signed at its publication, which the meeting's key verifies (RFC 8032)", async () => {
+  const pub = await organiser.json(`/api/events/${eventId}/classes/${classId}/report/publish`, { note: 'checkpoint' });
+  assert.equal(pub.res.status, 201, JSON.stringify(pub.body));
+  const [report] = await query<{ id: string }>('select id from parity_reports where public_id = $1', [
+    pub.body.data.publicId,
+  ]);
+  const [link] = await query<{ seq: string }>(
+    `select seq from chain_links where chain_key = $1 and table_name = 'parity_reports' and row_id = $2`,
+    [eventId, report.id],
+  );
+  assert.ok(link, 'the report is chained by the time its publication answers');
+  const [cp] = await query<{
+    count: string;
+    head: string;
+    signature: string;
+    key_fingerprint: string;
+    spki: Buffer;
+    signed_at: Date;
+    reason: string;
+  }>(
+    `select c.count, c.head, c.signature, c.key_fingerprint, k.public_key_spki as spki, c.signed_at, c.reason
+       from chain_checkpoints c join chain_keys k on k.fingerprint = c.key_fingerprint
+      where c.chain_key = $1 and c.count >= $2 order by c.id limit 1`,
+    [eventId, link.seq],
+  );
+  assert.match(cp.reason, /parity report PT version \d+ published/);
+  const [head] = await query<{ link_hash: string }>(
+    'select link_hash from chain_links where chain_key = $1 and seq = $2',
+    [eventId, cp.count],
+  );
+  assert.equal(cp.head, head.link_hash, 'the checkpoint signs the chain head');
+  // The signature is Ed25519 (RFC 8032) over the RFC 8785 canonical JSON of the checkpoint's fields.
+  const { createPublicKey, verify } = await import('node:crypto');
+  const message = Buffer.from(
+    JSON.stringify({
+      chain: eventId,
+      count: Number(cp.count),
+      head: cp.head,
+      keyFingerprint: cp.key_fingerprint,
+      reason: cp.reason,
+      signedAt: cp.signed_at.toISOString(),
+    }),
+  );
+  const publicKey = createPublicKey({ key: cp.spki, format: 'der', type: 'spki' });
+  assert.equal(verify(null, message, publicKey, Buffer.from(cp.signature, 'base64')), true);
+  assert.equal(
+    createHash('sha256').update(cp.spki).digest('hex'),
+    cp.key_fingerprint,
+    'fingerprint = SHA-256 of the SPKI',
+  );
+
+  const page = await (await fetch(`${BASE_URL}/reports/${pub.body.data.publicId}`)).text();
+  for (const printed of [cp.head, cp.key_fingerprint, cp.signature])
+    assert.ok(page.includes(printed), `page prints ${printed}`);
+  const pdfText = (
+    await extractPdfText(
+      new Uint8Array(await (await fetch(`${BASE_URL}/api/reports/${pub.body.data.publicId}/pdf`)).arrayBuffer()),
+    )
+  ).join('\n');
+  for (const printed of [cp.head, cp.key_fingerprint, cp.signature])
+    assert.ok(pdfText.includes(printed), `PDF prints ${printed}`);
+  assert.match(pdfText, new RegExp(`held ${cp.count} records`));
+});

@@ -706,6 +706,12 @@ export const ROUTES: Row[] = [
     access: { anyOf: ['protest.lodge'] },
   },
   { method: 'GET', file: `${E}/audit/route.ts`, path: (i) => `${ev(i)}/audit`, access: { anyOf: ['audit.read'] } },
+  {
+    method: 'GET',
+    file: `${E}/chain/bundle/route.ts`,
+    path: (i) => `${ev(i)}/chain/bundle`,
+    access: { anyOf: ['chain.export'] },
+  },
   { method: 'POST', file: `${E}/audit/route.ts`, path: (i) => `${ev(i)}/audit`, access: 'method-not-allowed' },
   { method: 'PUT', file: `${E}/audit/route.ts`, path: (i) => `${ev(i)}/audit`, access: 'method-not-allowed' },
   { method: 'PATCH', file: `${E}/audit/route.ts`, path: (i) => `${ev(i)}/audit`, access: 'method-not-allowed' },
@@ -771,6 +777,12 @@ export const ROUTES: Row[] = [
     access: { protest: 'view' },
   },
   // Site administration (a missing person: 400 or 404 for the administrator, 403 for everyone else)
+  {
+    method: 'POST',
+    file: 'app/api/admin/chain/check/route.ts',
+    path: () => '/api/admin/chain/check',
+    access: { anyOf: ['chain.check'] },
+  },
   {
     method: 'PUT',
     file: 'app/api/admin/people/[userId]/suspension/route.ts',

@@ -68,6 +68,9 @@ export const PERMISSIONS = {
   'protest.decide': ['steward'],
   'protest.view_all': ['steward', 'organiser'],
   'audit.read': ['steward', 'organiser'],
+  // The record chain (issue 24): a meeting's export bundle. It carries every chained row (the audit trail,
+  // protest evidence), so only those who may read all of them (audit.read and protest.view_all) export it.
+  'chain.export': ['steward', 'organiser'],
   // Penalties: the organiser keeps the meeting's catalogue (a series' later), a technical delegate reports to
   // the stewards without a protest, and the stewards impose penalties from an upheld protest or a report
   'penalty.catalogue_manage': ['organiser'],
@@ -90,6 +93,7 @@ export const PERMISSIONS = {
   // Site
   'admin.manage_users': ['admin'],
   'dev.outbox': ['admin'], // the demo's outbox holds everyone's sign-in links
+  'chain.check': ['admin'], // re-verify every record chain now, and see the last self-check
   'admin.view_metrics': ['admin'], // request timings by route, pool use, recording outcomes
 } as const satisfies Record<string, readonly Role[]>;
 

@@ -6,6 +6,8 @@ import { pdfSafeText as safe } from '../format/pdf-text';
 import type { PublishedReportDto } from './report-dto';
 import { formatTime } from '../format/time';
 import { clockReportLines } from './clock-report-lines';
+import type { Checkpoint } from '../chain/bundle-format';
+import { checkpointLines } from '../chain/checkpoint-lines';
 
 const A4: [number, number] = [595.28, 841.89];
 const M = 40;
@@ -207,7 +209,11 @@ function drawTable(ctx: Ctx, r: PublishedReportDto) {
 }
 
 /** `timeZone`: the meeting's zone, in which the publication time is printed (named, as on every screen). */
-export async function buildReportPdf(r: PublishedReportDto, timeZone = 'UTC'): Promise<Uint8Array> {
+export async function buildReportPdf(
+  r: PublishedReportDto,
+  timeZone = 'UTC',
+  checkpoint: Checkpoint | null = null,
+): Promise<Uint8Array> {
   const doc = await PDFDocument.create();
   const ctx: Ctx = {
     doc,
@@ -262,6 +268,11 @@ export async function buildReportPdf(r: PublishedReportDto, timeZone = 'UTC'): P
   if (r.inputs.excluded.length) {
     text(ctx, 'Boats not in the figures', { bold: true, size: 11 });
     for (const e of r.inputs.excluded) text(ctx, `#${e.raceNumber} ${e.boatName}: ${e.reason}`, { size: 8 });
+  }
+  if (checkpoint) {
+    ctx.y -= 4;
+    text(ctx, 'Record checkpoint', { bold: true, size: 11 });
+    for (const line of checkpointLines(checkpoint, timeZone)) wrap(ctx, line, 8);
   }
   ctx.y -= 6;
   wrap(

@@ -1,4 +1,5 @@
 import 'server-only';
+import { checkpointQuietly } from '@/lib/server/chain/chain-service';
 import { Op } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
@@ -82,7 +83,7 @@ export async function publishRules(
   const raceClass = await findClass(eventId, classId);
   const { sequelize, models } = getDb();
   const event = await models.Event.findByPk(raceClass.eventId, { attributes: ['timeZone'] });
-  return sequelize.transaction(async (transaction) => {
+  const published = await sequelize.transaction(async (transaction) => {
     const draft = await models.ClassRuleVersion.findOne({
       where: { classId, status: 'draft' },
       lock: transaction.LOCK.UPDATE,
@@ -117,6 +118,8 @@ export async function publishRules(
     );
     return toRuleVersionDto(draft);
   });
+  await checkpointQuietly(eventId, `rules of ${raceClass.code} version ${published.version} published`);
+  return published;
 }
 
 /** The published version in force for a class at a moment (for inspections and reports). */

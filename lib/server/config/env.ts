@@ -92,6 +92,12 @@ export const EnvSchema = z.object({
   // first retry's wait after a failed send (doubled each time, at most an hour).
   MAIL_OUTBOX_INTERVAL_MS: positiveInt(2000),
   MAIL_RETRY_BASE_MS: positiveInt(30_000),
+  // The record chain (lib/server/chain): the folder of the meetings' Ed25519 private keys (never in the
+  // database; keep it out of git and back it up apart from the database), how often each server links what
+  // was recorded, and how often it re-verifies every chain (nightly by default).
+  BORELINE_KEY_DIR: z.preprocess(unsetIfEmpty, z.string().trim().default('.data/chain-keys')),
+  CHAIN_LINK_INTERVAL_MS: positiveInt(2000),
+  CHAIN_CHECK_INTERVAL_MS: positiveInt(86_400_000),
   // Throttles and limits (lib/server/auth, lib/server/accounts, lib/server/http)
   THROTTLE_PURGE_INTERVAL_S: positiveInt(60),
   SIGN_IN_LIMIT_PER_15_MIN: positiveInt(10),

@@ -1,4 +1,5 @@
 import 'server-only';
+import { checkpointQuietly } from '@/lib/server/chain/chain-service';
 import { Op } from 'sequelize';
 import { addMinutes } from 'date-fns';
 import { getDb } from '@/lib/server/db';
@@ -113,6 +114,7 @@ export async function decideProtest(actor: Actor | null, protestId: string, raw:
     return { input, refunded: Boolean(refund), feeMinor: protest.feeMinor, currency: protest.currency };
   });
   const detail = await getProtest(actor, protestId, { verifyEvidence: false });
+  await checkpointQuietly(detail.eventId, `protest decided (${input.outcome})`);
   const fee = outcome.feeMinor > 0 ? formatMoney(outcome.feeMinor, outcome.currency) : null;
   await notifyParties(detail.id, `Protest ${input.outcome}`, [
     `The stewards have decided the protest under ${detail.ruleReference} against ${detail.targetLabel}: ${detail.statusLabel.toUpperCase()}.`,

@@ -1,4 +1,5 @@
 import 'server-only';
+import { checkpointQuietly } from '@/lib/server/chain/chain-service';
 import { randomBytes } from 'node:crypto';
 import { FROM_REPLICA, getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
@@ -59,6 +60,7 @@ export async function publishReport(
       { transaction },
     );
   });
+  await checkpointQuietly(eventId, `parity report ${inputs.classCode} version ${report.number} published`);
   const [recipients] = await sequelize.query(
     `select distinct u.email from entries e join users u on u.id = e.entrant_id where e.class_id = :classId and e.status = 'entered'`,
     { replacements: { classId } },

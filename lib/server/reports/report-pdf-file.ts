@@ -1,4 +1,5 @@
 import 'server-only';
+import { reportCheckpoint } from '@/lib/server/chain/chain-service';
 import { createHash } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/server/db';
@@ -67,7 +68,7 @@ async function renderAndStore(publicId: string, reportId: string): Promise<Store
   // Times in the PDF are printed in the meeting's own zone, named.
   const timeZone =
     (await getDb().models.Event.findByPk(report.eventId, { attributes: ['timeZone'] }))?.timeZone ?? 'UTC';
-  const bytes = await buildReportPdf(report, timeZone);
+  const bytes = await buildReportPdf(report, timeZone, await reportCheckpoint(report.eventId, report.id));
   const sha256 = createHash('sha256').update(bytes).digest('hex');
   const key = newObjectKey('reports/pdf');
   await putObject({ key, bytes, contentType: 'application/pdf', sha256Hex: sha256, metadata: { report: reportId } });

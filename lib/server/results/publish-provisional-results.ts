@@ -1,4 +1,5 @@
 import 'server-only';
+import { checkpointQuietly } from '@/lib/server/chain/chain-service';
 import { Op } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
@@ -129,6 +130,7 @@ export async function publishProvisionalResults(
       transaction,
     );
   });
+  await checkpointQuietly(eventId, `provisional results of ${cls.code} published`);
   const all = await listProvisionalResults(actor, eventId);
   return all.find((c) => c.classId === cls.id)!;
 }

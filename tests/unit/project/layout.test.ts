@@ -184,6 +184,8 @@ const SERVER_ONLY_EXEMPT: Record<string, string> = {
   'lib/server/http/client-address.ts': 'unit-tested without the react-server condition',
   'lib/server/http/read-body.ts': 'unit-tested without the react-server condition',
   'lib/server/storage/inspect-upload.ts': 'unit-tested without the react-server condition',
+  'lib/server/chain/chain-db.ts':
+    'the record chain on a plain pg client: driven by tests/integration/record-chain.test.ts with its own connections',
 };
 const OUTSIDE_REACT_SERVER = ['proxy.ts', 'instrumentation.ts', ...['scripts', 'tests'].flatMap(listSources)];
 

@@ -1,0 +1,360 @@
+// The record chain (issue 24) through the real database and HTTP API: inspections recorded concurrently
+// at one meeting while several linkers run at once are chained in one strict order with no fork; a
+// meeting's export bundle verifies, and the same bundle with one byte of one record changed, one record
+// removed, two records swapped, one file replaced or one checkpoint signed by another key is refused with
+// the right record named; a row changed directly in PostgreSQL with its append-only trigger disabled (as a
+// superuser could) is found by the self-check. Hash and signature definitions: FIPS 180-4 (SHA-256),
+// RFC 8785 (canonical JSON), RFC 8032 (Ed25519); the tamper cases are the issue's own list.
+import { test, before, after } from 'node:test';
+import assert from 'node:assert/strict';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { createHash, generateKeyPairSync, sign } from 'node:crypto';
+import { execFileSync } from 'node:child_process';
+import pg from 'pg';
+import { HttpSession } from '../support/http-session';
+import { DEMO, DEMO_PASSWORD } from '../support/env';
+import { query } from '../support/db';
+import { InspectionMeeting, inspectionBody, rulesWith } from '../support/inspection-meeting';
+import {
+  buildBundle,
+  checkChain,
+  linkChain,
+  signCheckpoint,
+  signEndOfDayCheckpoints,
+} from '../../lib/server/chain/chain-db';
+import { verifyBundle } from '../../lib/core/chain/verify-bundle';
+import { checkpointMessage, type Checkpoint } from '../../lib/core/chain/bundle-format';
+
+const meeting = new InspectionMeeting();
+const scrutineer = new HttpSession();
+// The app's key folder (scripts/test.sh makes a fresh one per run): publications through the API sign with
+// the same meeting key as this test's checkpoints.
+const keyDir = process.env.BORELINE_KEY_DIR ?? fs.mkdtempSync(path.join(os.tmpdir(), 'boreline-chain-keys-'));
+const scratch = fs.mkdtempSync(path.join(os.tmpdir(), 'boreline-chain-test-'));
+const clients: pg.Client[] = [];
+const files = new Map<string, Buffer>();
+let bundle = '';
+
+async function client(url = process.env.DATABASE_URL!): Promise<pg.Client> {
+  const c = new pg.Client({ connectionString: url });
+  await c.connect();
+  clients.push(c);
+  return c;
+}
+
+/** The superuser of the test cluster (scripts/pg.sh trusts loopback): what an insider with the database could do. */
+function superuserUrl(): string {
+  const u = new URL(process.env.DATABASE_URL!);
+  u.username = 'postgres';
+  u.password = '';
+  return u.toString();
+}
+
+before(async () => {
+  await meeting.create(`Chain Meeting ${Date.now()}`, [{ email: DEMO.scrutineer, role: 'scrutineer' }]);
+  await scrutineer.signInWithPassword(DEMO.scrutineer, DEMO_PASSWORD);
+});
+
+after(async () => {
+  for (const c of clients) await c.end();
+  fs.rmSync(scratch, { recursive: true, force: true });
+});
+
+test('concurrent records at one meeting are chained in one strict order, with no fork', async () => {
+  const classId = await meeting.addClass('CH', rulesWith());
+  const entries = await Promise.all(Array.from({ length: 12 }, () => meeting.addEntry(classId)));
+  const linkers = await Promise.all([client(), client(), client()]);
+  let recording = true;
+  // Three linkers drain the queue while 12 records arrive at once.
+  const linking = linkers.map(async (c) => {
+    while (recording) await linkChain(c, meeting.eventId);
+  });
+  const answers = await Promise.all(
+    entries.map((e) => scrutineer.json(`/api/events/${meeting.eventId}/inspections`, inspectionBody(e.id, 101.5))),
+  );
+  for (const a of answers) assert.equal(a.res.status, 201, JSON.stringify(a.body));
+  recording = false;
+  await Promise.all(linking);
+  await linkChain(linkers[0], meeting.eventId);
+
+  const links = await query<{ seq: string; table_name: string; row_id: string; prev_hash: string; link_hash: string }>(
+    'select seq, table_name, row_id, prev_hash, link_hash from chain_links where chain_key = $1 order by seq',
+    [meeting.eventId],
+  );
+  const inspectionIds = answers.map((a) => a.body.data.id as string).sort();
+  assert.deepEqual(
+    links
+      .filter((l) => l.table_name === 'inspections')
+      .map((l) => l.row_id)
+      .sort(),
+    inspectionIds,
+    'every record is linked once',
+  );
+  links.forEach((l, k) => {
+    assert.equal(Number(l.seq), k + 1, 'seq 1, 2, 3 … with no gap');
+    assert.equal(l.prev_hash, k === 0 ? '0'.repeat(64) : links[k - 1].link_hash, `link ${k + 1} builds on link ${k}`);
+  });
+  assert.equal(new Set(links.map((l) => l.prev_hash)).size, links.length, 'no two links share a predecessor');
+  // Each link hash is SHA-256(prev_hash || row_hash) over the raw 32-byte values (FIPS 180-4), recomputed here.
+  const [own] = await query<{ row_hash: string; prev_hash: string; link_hash: string }>(
+    'select row_hash, prev_hash, link_hash from chain_links where chain_key = $1 and seq = 1',
+    [meeting.eventId],
+  );
+  const recomputed = createHash('sha256')
+    .update(Buffer.concat([Buffer.from(own.prev_hash, 'hex'), Buffer.from(own.row_hash, 'hex')]))
+    .digest('hex');
+  assert.equal(own.link_hash, recomputed);
+  await assert.rejects(
+    query('update chain_links set row_hash = $2 where chain_key = $1 and seq = 1', [meeting.eventId, '0'.repeat(64)]),
+    /append-only/,
+    'links are append-only',
+  );
+  const q = await query<{ n: string }>('select count(*) as n from chain_queue where chain_key = $1', [meeting.eventId]);
+  assert.equal(Number(q[0].n), 0, 'the queue is drained');
+});
+
+test("a meeting's bundle verifies, with its files and a checkpoint signed by the meeting's key", async () => {
+  const c = await client();
+  // A protest's evidence photo: its row names the file's SHA-256 (the app stores it on upload).
+  const entry = await meeting.addEntry(await meeting.addClass('EV', rulesWith()));
+  const [{ id: lodger }] = await query<{ id: string }>('select id from users where email = $1', [DEMO.entrant]);
+  const [{ id: protestId }] = await query<{ id: string }>(
+    `insert into protests (event_id, lodged_by_id, against_entry_id, matter_key, rule_reference, grounds, status, fee_minor, currency, paid_at, window_deadline)
+     values ($1, $2, $3, 'nozzle', 'CH 3.1', 'Nozzle looks oversized', 'lodged', 0, 'NZD', now(), now() + interval '1 hour') returning id`,
+    [meeting.eventId, lodger, entry.id],
+  );
+  const photo = Buffer.from('a photo of a nozzle, stood in for by these bytes');
+  const objectKey = `evidence/chain-test-${Date.now()}.jpg`;
+  files.set(objectKey, photo);
+  await query(
+    `insert into protest_evidence (protest_id, added_by_id, kind, object_key, file_name, content_type, size_bytes, sha256)
+     values ($1, $2, 'file', $3, 'nozzle.jpg', 'image/jpeg', $4, $5)`,
+    [protestId, lodger, objectKey, photo.length, createHash('sha256').update(photo).digest('hex')],
+  );
+  const checkpoint = await signCheckpoint(c, meeting.eventId, 'test publication', keyDir);
+  assert.ok(checkpoint.count >= 13);
+  const keyFile = path.join(keyDir, `${meeting.eventId}.ed25519.pem`);
+  assert.equal(fs.statSync(keyFile).mode & 0o777, 0o600, 'the private key file is readable by its owner only');
+  const [stored] = await query<{ n: string }>(
+    'select count(*) as n from chain_keys where chain_key = $1 and public_key_spki is not null',
+    [meeting.eventId],
+  );
+  assert.equal(Number(stored.n), 1, 'the public key is in the database, the private key is not');
+
+  bundle = await buildBundle(c, meeting.eventId, { readFile: async (k) => files.get(k)! });
+  const result = await verifyBundle(bundle);
+  assert.ok(result.ok, JSON.stringify(result));
+  assert.equal(result.records, checkpoint.count);
+  assert.equal(result.files, 1);
+  // Each class's rules were published through the API (one checkpoint each), then this test's own.
+  assert.deepEqual(
+    result.checkpoints.map((c) => c.reason.replace(/ [A-Z]+ /, ' X ')),
+    ['rules of X version 1 published', 'rules of X version 1 published', 'test publication'],
+  );
+  assert.equal(result.checkpoints.at(-1)!.count, checkpoint.count);
+
+  // The command-line verifier says the same, with exit code 0.
+  const file = path.join(scratch, 'bundle.jsonl');
+  fs.writeFileSync(file, bundle);
+  const out = execFileSync('node_modules/.bin/tsx', ['scripts/verify-bundle.ts', file], { encoding: 'utf8' });
+  assert.match(out, /^VERIFIED/);
+
+  // A protest's case file: the protest's rows, every other record's link without its row; still verifies.
+  const caseFile = await buildBundle(c, meeting.eventId, { readFile: async (k) => files.get(k)!, protestId });
+  const cased = await verifyBundle(caseFile);
+  assert.ok(cased.ok, JSON.stringify(cased));
+  const present = caseFile
+    .trim()
+    .split('\n')
+    .map((l) => JSON.parse(l))
+    .filter((l) => l.type === 'record' && l.row !== undefined)
+    .map((l) => `${l.seq} ${l.table}`);
+  assert.deepEqual(
+    present.map((p: string) => p.split(' ')[1]),
+    ['protest_evidence'],
+    `only the evidence row: ${present}`,
+  );
+  assert.equal(cased.records - cased.withheld, 1);
+});
+
+type Line = Record<string, unknown> & { type: string };
+const parse = (text: string): Line[] =>
+  text
+    .trim()
+    .split('\n')
+    .map((l) => JSON.parse(l) as Line);
+const unparse = (lines: Line[]) => lines.map((l) => JSON.stringify(l)).join('\n') + '\n';
+
+async function refusal(text: string) {
+  const r = await verifyBundle(text);
+  assert.equal(r.ok, false, 'the tampered bundle must be refused');
+  return (r as Extract<typeof r, { ok: false }>).problem;
+}
+
+test('a tampered bundle is refused, naming the record where it differs', async () => {
+  const lines = parse(bundle);
+  const records = lines.filter((l) => l.type === 'record');
+  const k = 4; // the fifth record
+  const target = records[k];
+
+  // One byte of one record changed (in its row's text, as stored in the bundle).
+  const lineText = bundle.trim().split('\n');
+  const at = lines.indexOf(target);
+  const original = lineText[at];
+  const pos = original.indexOf('"results"') > 0 ? original.indexOf('"results"') + 2 : original.indexOf('"row"') + 10;
+  const changed = original.slice(0, pos) + (original[pos] === 'x' ? 'y' : 'x') + original.slice(pos + 1);
+  const oneByte = [...lineText];
+  oneByte[at] = changed;
+  let p = await refusal(oneByte.join('\n') + '\n');
+  assert.equal(p.record?.seq, target.seq, p.message);
+  assert.equal(p.record?.rowId, target.rowId);
+
+  // One record removed: the record after the gap is named.
+  p = await refusal(unparse(lines.filter((l) => l !== target)));
+  assert.equal(p.kind, 'sequence');
+  assert.equal(p.record?.seq, records[k + 1].seq, p.message);
+
+  // Two records swapped: the one that now stands too early is named.
+  const swapped = [...lines];
+  swapped[at] = records[k + 1];
+  swapped[at + 1] = target;
+  p = await refusal(unparse(swapped));
+  assert.equal(p.record?.seq, records[k + 1].seq, p.message);
+  assert.equal(p.record?.rowId, records[k + 1].rowId);
+
+  // A record altered and re-hashed with its row hash and link recomputed: every later link breaks.
+  // (Covered by the row-hash check above; the link of the next record names the break otherwise.)
+
+  // One file replaced: the record that names it is refused.
+  const evidence = records.find((r) => r.table === 'protest_evidence')!;
+  const replaced = lines.map((l) =>
+    l.type === 'file' ? { ...l, base64: Buffer.from('another photo entirely').toString('base64') } : l,
+  );
+  p = await refusal(unparse(replaced));
+  assert.equal(p.kind, 'file-hash');
+  assert.equal(p.record?.rowId, evidence.rowId, p.message);
+
+  // One checkpoint signed by another key (claiming the meeting's fingerprint).
+  const other = generateKeyPairSync('ed25519').privateKey;
+  const forged = lines.map((l) =>
+    l.type === 'checkpoint'
+      ? { ...l, signature: sign(null, checkpointMessage(l as unknown as Checkpoint), other).toString('base64') }
+      : l,
+  );
+  p = await refusal(unparse(forged));
+  assert.equal(p.kind, 'signature');
+  const head = lines.find((l) => l.type === 'checkpoint')!;
+  assert.equal(p.record?.seq, head.count, p.message);
+
+  // The command line exits non-zero and names the record.
+  const file = path.join(scratch, 'forged.jsonl');
+  fs.writeFileSync(file, unparse(replaced));
+  let status = 0;
+  let stdout = '';
+  try {
+    execFileSync('node_modules/.bin/tsx', ['scripts/verify-bundle.ts', file], { encoding: 'utf8' });
+  } catch (err) {
+    status = (err as { status: number }).status;
+    stdout = (err as { stdout: string }).stdout;
+  }
+  assert.equal(status, 1);
+  assert.match(stdout, new RegExp(`protest_evidence ${evidence.rowId}`));
+});
+
+test('a row changed directly in PostgreSQL, behind a disabled trigger, is found by the self-check', async () => {
+  const c = await client();
+  const before = await checkChain(c, meeting.eventId);
+  assert.equal(before.problem, null, JSON.stringify(before.problem));
+  const [victim] = await query<{ seq: string; row_id: string }>(
+    "select seq, row_id from chain_links where chain_key = $1 and table_name = 'inspections' order by seq offset 3 limit 1",
+    [meeting.eventId],
+  );
+  const su = await client(superuserUrl());
+  await su.query('begin');
+  await su.query('alter table inspections disable trigger inspections_append_only');
+  await su.query(`update inspections set overall_result = 'conforms', notes = 'changed quietly' where id = $1`, [
+    victim.row_id,
+  ]);
+  await su.query('alter table inspections enable trigger inspections_append_only');
+  await su.query('commit');
+
+  const afterCheck = await checkChain(c, meeting.eventId);
+  assert.ok(afterCheck.problem, 'the self-check finds the change');
+  assert.equal(afterCheck.problem!.kind, 'row-hash');
+  assert.equal(afterCheck.problem!.record?.seq, Number(victim.seq));
+  assert.equal(afterCheck.problem!.record?.rowId, victim.row_id);
+});
+
+test("the meeting's bundle over HTTP verifies; the administrator's self-check names the break, on the admin page and in the metrics", async () => {
+  const organiser = meeting.organiser;
+  const res = await organiser.fetch(`/api/events/${meeting.eventId}/chain/bundle`);
+  assert.equal(res.status, 200);
+  assert.match(res.headers.get('content-disposition') ?? '', /attachment; filename="boreline-chain-/);
+  const text = await res.text();
+  const result = await verifyBundle(text);
+  // The row changed behind the trigger's back (previous test) is what the bundle now carries: refused.
+  assert.equal(result.ok, false);
+  assert.equal((result as Extract<typeof result, { ok: false }>).problem.kind, 'row-hash');
+
+  const entrant = new HttpSession();
+  await entrant.signInWithPassword(DEMO.entrant, DEMO_PASSWORD);
+  assert.equal((await entrant.fetch(`/api/events/${meeting.eventId}/chain/bundle`)).status, 403);
+  assert.equal(
+    (await scrutineer.fetch(`/api/events/${meeting.eventId}/chain/bundle`)).status,
+    403,
+    "the meeting's scrutineer may not read its audit trail or protest evidence, so not its bundle",
+  );
+  assert.equal(
+    (await entrant.json('/api/admin/chain/check', {})).res.status,
+    403,
+    'the self-check is for the site administrator',
+  );
+
+  const admin = new HttpSession();
+  await admin.signInWithPassword(DEMO.admin, DEMO_PASSWORD);
+  const check = await admin.json('/api/admin/chain/check', {});
+  assert.equal(check.res.status, 200, JSON.stringify(check.body));
+  const broken = check.body.data.broken.find((b: { chain: string }) => b.chain === meeting.eventId);
+  assert.ok(broken, 'the meeting is named as broken');
+  assert.equal(broken.problem.kind, 'row-hash');
+  assert.equal(broken.problem.record.table, 'inspections');
+  const metrics = await (await admin.fetch('/api/metrics')).text();
+  const gauge = /^boreline_chain_broken (\d+)$/m.exec(metrics);
+  assert.ok(gauge && Number(gauge[1]) >= 1, 'the metrics raise the alert');
+  const page = await (await admin.fetch('/admin')).text();
+  assert.match(page, /A record chain is broken/);
+  assert.ok(page.includes(meeting.eventId), 'the admin page names the chain');
+});
+
+test("a meeting day's end is signed once, dated in the meeting's time zone, and not before the day ends", async () => {
+  const c = await client();
+  const entry = await meeting.addEntry(await meeting.addClass('ED', rulesWith()));
+  const rec = await scrutineer.json(`/api/events/${meeting.eventId}/inspections`, inspectionBody(entry.id, 101.4));
+  assert.equal(rec.res.status, 201, JSON.stringify(rec.body));
+  await linkChain(c, meeting.eventId);
+  const [head] = await query<{ linked_at: Date }>(
+    'select linked_at from chain_links where chain_key = $1 order by seq desc limit 1',
+    [meeting.eventId],
+  );
+  assert.ok(
+    !(await signEndOfDayCheckpoints(c, keyDir, head.linked_at)).includes(meeting.eventId),
+    'the day is not over',
+  );
+  const nextDay = new Date(head.linked_at.getTime() + 36 * 3600 * 1000);
+  await signEndOfDayCheckpoints(c, keyDir, nextDay);
+  await signEndOfDayCheckpoints(c, keyDir, nextDay);
+  // The meeting runs in Pacific/Auckland (tests/support/inspection-meeting.ts): the day is its local date.
+  // (Counted by reason, not by what each call returns: the app's own worker may sign it first at local midnight.)
+  const localDay = new Intl.DateTimeFormat('en-CA', { timeZone: 'Pacific/Auckland' }).format(head.linked_at);
+  const signed = await query<{ count: string }>(
+    'select count from chain_checkpoints where chain_key = $1 and reason = $2',
+    [meeting.eventId, `end of meeting day ${localDay}`],
+  );
+  assert.equal(signed.length, 1, 'signed once');
+  const [{ n }] = await query<{ n: string }>('select count(*) as n from chain_links where chain_key = $1', [
+    meeting.eventId,
+  ]);
+  assert.equal(Number(signed[0].count), Number(n), 'it covers the whole chain');
+});

@@ -1,0 +1,78 @@
+// The offline verifier on a bundle made here from invented rows (tests/support/chain-bundle.ts, hashed
+// with node:crypto's SHA-256 per FIPS 180-4, RFC 8785 canonical JSON, Ed25519 per RFC 8032): it verifies,
+// and each tampering the issue lists is refused with the record named, plus a record rewritten with its
+// own hashes recomputed (the next record's link then names the break) and a malformed file.
+import { test } from 'node:test';
+import assert from 'node:assert/strict';
+import { generateKeyPairSync } from 'node:crypto';
+import { createHash } from 'node:crypto';
+import { verifyBundle } from '../../../../lib/core/chain/verify-bundle';
+import { canonicalJson } from '../../../../lib/core/chain/canonical-json';
+import { bundleText, makeBundle, type Line } from '../../../support/chain-bundle';
+
+async function problem(lines: Line[] | string) {
+  const r = await verifyBundle(typeof lines === 'string' ? lines : bundleText(lines));
+  assert.equal(r.ok, false);
+  return (r as Extract<typeof r, { ok: false }>).problem;
+}
+const recordAt = (lines: Line[], seq: number) => lines.findIndex((l) => l.type === 'record' && l.seq === seq);
+
+test('an untouched bundle verifies: records, the file, the checkpoint', async () => {
+  const r = await verifyBundle(bundleText(makeBundle().lines));
+  assert.ok(r.ok, JSON.stringify(r));
+  assert.equal(r.records, 6);
+  assert.equal(r.files, 1);
+  assert.equal(r.checkpoints[0].count, 6);
+});
+
+test('one changed, one removed, two swapped, a file replaced, a foreign signature: each names its record', async () => {
+  const { lines } = makeBundle();
+  const changed = structuredClone(lines);
+  (changed[recordAt(changed, 4)].row as Record<string, unknown>).overall_result = 'conformz';
+  let p = await problem(changed);
+  assert.deepEqual([p.kind, p.record?.seq], ['row-hash', 4]);
+
+  p = await problem(lines.filter((_, k) => k !== recordAt(lines, 2)));
+  assert.deepEqual([p.kind, p.record?.seq], ['sequence', 3]);
+
+  const swapped = [...lines];
+  [swapped[recordAt(lines, 5)], swapped[recordAt(lines, 6)]] = [lines[recordAt(lines, 6)], lines[recordAt(lines, 5)]];
+  p = await problem(swapped);
+  assert.equal(p.record?.seq, 6);
+
+  const replaced = lines.map((l) =>
+    l.type === 'file' ? { ...l, base64: Buffer.from('other').toString('base64') } : l,
+  );
+  p = await problem(replaced);
+  assert.deepEqual([p.kind, p.record?.seq, p.record?.table], ['file-hash', 3, 'inspection_photos']);
+
+  const missing = lines.filter((l) => l.type !== 'file');
+  p = await problem(missing);
+  assert.deepEqual([p.kind, p.record?.seq], ['file-missing', 3]);
+
+  const foreign = makeBundle({ signWith: generateKeyPairSync('ed25519').privateKey }).lines;
+  p = await problem(foreign);
+  assert.deepEqual([p.kind, p.record?.seq], ['signature', 6]);
+});
+
+test('a record rewritten with its own hashes recomputed breaks the link of the record after it', async () => {
+  const { lines } = makeBundle();
+  const k = recordAt(lines, 2);
+  const r = structuredClone(lines[k]);
+  (r.row as Record<string, unknown>).overall_result = 'does_not_conform';
+  r.rowHash = createHash('sha256')
+    .update(canonicalJson({ row: r.row, table: r.table }))
+    .digest('hex');
+  r.linkHash = createHash('sha256')
+    .update(Buffer.concat([Buffer.from(String(r.prevHash), 'hex'), Buffer.from(String(r.rowHash), 'hex')]))
+    .digest('hex');
+  const forged = [...lines];
+  forged[k] = r;
+  const p = await problem(forged);
+  assert.deepEqual([p.kind, p.record?.seq], ['previous-link', 3]);
+});
+
+test('malformed input is a format problem, never an exception', async () => {
+  for (const bad of ['', 'not json\n', '{"type":"bundle","version":9}\n', '{"type":"record"}\n', '[1]\n'])
+    assert.equal((await problem(bad)).kind, 'format', bad);
+});
