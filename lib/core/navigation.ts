@@ -14,6 +14,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { href: '/inspect', label: 'Inspect', permission: 'inspection.board' },
   { href: '/stewards', label: 'Stewards', permission: 'protest.view_all' },
   { href: '/appeals', label: 'Appeals', permission: 'appeal.hear' },
+  { href: '/series', label: 'Series', permission: 'series.parity_view' },
   { href: '/organise', label: 'Organise', permission: 'event.create' },
   { href: '/admin', label: 'Administration', permission: 'admin.manage_users' },
   { href: '/account', label: 'My account', permission: 'account.view' },

@@ -177,6 +177,7 @@ test('organiser, steward, administrator and appeal body pages: no serious or cri
       DEMO.steward,
       [
         { path: '/stewards' },
+        { path: '/series' },
         { path: `/series/${DEMO_SERIES}/classes/${DEMO_SERIES_CLASS}/parity` },
         { path: `/stewards/${e}` },
         { path: `/stewards/${e}/audit` },

@@ -102,7 +102,7 @@ test("the meeting's staff open each page and see the meeting's name where the pa
 // Each area's first page (issue 14, item 5: a loading.tsx must not cost a page its status). Statuses
 // per RFC 9110: §15.4.8 307 Temporary Redirect, §15.3.1 200 OK.
 test('the area index pages keep their statuses: sign in first, /not-allowed without the role for organise and administration', async () => {
-  const INDEXES = ['/inspect', '/organise', '/stewards', '/protests', '/appeals', '/admin'];
+  const INDEXES = ['/inspect', '/organise', '/stewards', '/protests', '/appeals', '/series', '/admin'];
   for (const path of INDEXES) {
     const res = await new HttpSession().fetch(path);
     assert.ok(isRedirectTo(res, /^\/sign-in$/), `anonymous ${path}: ${res.status} ${res.headers.get('location')}`);
@@ -113,6 +113,8 @@ test('the area index pages keep their statuses: sign in first, /not-allowed with
     [DEMO.entrant, '/protests', 200],
     [DEMO.entrant, '/appeals', 200],
     [DEMO.appealBody, '/appeals', 200],
+    [DEMO.entrant, '/series', 200],
+    [DEMO.steward, '/series', 200],
     [DEMO.entrant, '/organise', '/not-allowed'],
     [DEMO.steward, '/organise', '/not-allowed'],
     [DEMO.organiser, '/organise', 200],
@@ -126,6 +128,13 @@ test('the area index pages keep their statuses: sign in first, /not-allowed with
     else
       assert.ok(isRedirectTo(res, /^\/not-allowed$/), `${email} ${path}: ${res.status} ${res.headers.get('location')}`);
   }
+  // The series index lists the person's own series only: the demo steward is the demo series' steward.
+  const mine = await (await (await as(DEMO.steward)).fetch('/series')).text();
+  assert.match(mine, /Fellside Sprint Series/);
+  assert.match(mine, /series steward/);
+  const none = await (await (await as(DEMO.entrant)).fetch('/series')).text();
+  assert.match(none, /not an official of any series/);
+  assert.doesNotMatch(none, /Fellside Sprint Series/);
 });
 
 // RFC 9110 §15.5.5: 404 Not Found, for ids that are well formed but name nothing the caller may see.

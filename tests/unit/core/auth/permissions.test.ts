@@ -176,6 +176,9 @@ test('navigation shows each role only its areas', () => {
   assert.ok(!hrefs(['entrant', 'steward']).includes('/inspect'));
   assert.ok(hrefs(['entrant', 'appeal_body']).includes('/appeals'));
   assert.ok(!hrefs(['entrant', 'steward', 'organiser', 'admin']).includes('/appeals'));
+  for (const official of ['series_secretary', 'series_steward'] as const)
+    assert.ok(hrefs(['entrant', official]).includes('/series'), official);
+  assert.ok(!hrefs(['entrant', 'steward', 'organiser', 'admin', 'appeal_body']).includes('/series'));
 });
 
 test("the demo outbox (everyone's sign-in links) is the site administrator's alone", () => {
