@@ -9,7 +9,7 @@
 // practice (no single source); the governing body's rules decide.
 import { test, before } from 'node:test';
 import assert from 'node:assert/strict';
-import { randomUUID } from 'node:crypto';
+import { randomUUID, createPublicKey, verify } from 'node:crypto';
 import { HttpSession } from '../support/http-session';
 import { DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
 import { query } from '../support/db';
@@ -83,6 +83,53 @@ test("an appeal overtaken by another's decision on the same penalty is closed as
     order(restored.rows),
     [S, T, U].map((x) => String(x.raceNumber)),
   );
+  // The appeal body's decision answered after the meeting's chain head was signed (issue 24): the organiser's
+  // results page prints the checkpoint covering the restored version, and the meeting's key verifies it
+  // (Ed25519, RFC 8032, over the RFC 8785 canonical JSON of the checkpoint's fields, keys in code-point order).
+  const [latestRow] = await query<{ id: string }>(
+    'select id from provisional_results where class_id = $1 order by version desc limit 1',
+    [CLASS_E],
+  );
+  const [cp] = await query<{
+    count: string;
+    head: string;
+    signature: string;
+    key_fingerprint: string;
+    spki: Buffer;
+    signed_at: Date;
+    reason: string;
+  }>(
+    `select c.count, c.head, c.signature, c.key_fingerprint, k.public_key_spki as spki, c.signed_at, c.reason
+       from chain_links l
+       join chain_checkpoints c on c.chain_key = l.chain_key and c.count >= l.seq
+       join chain_keys k on k.fingerprint = c.key_fingerprint
+      where l.chain_key = $1 and l.table_name = 'provisional_results' and l.row_id = $2
+      order by c.id limit 1`,
+    [EVENT, latestRow.id],
+  );
+  assert.ok(cp, 'a checkpoint covers the restored results');
+  assert.equal(cp.reason, 'appeal decided (annulled)');
+  const message = Buffer.from(
+    JSON.stringify({
+      chain: EVENT,
+      count: Number(cp.count),
+      head: cp.head,
+      keyFingerprint: cp.key_fingerprint,
+      reason: cp.reason,
+      signedAt: cp.signed_at.toISOString(),
+    }),
+  );
+  assert.ok(
+    verify(
+      null,
+      message,
+      createPublicKey({ key: cp.spki, format: 'der', type: 'spki' }),
+      Buffer.from(cp.signature, 'base64'),
+    ),
+  );
+  const resultsPage = await (await organiser.fetch(`/organise/events/${EVENT}/results`)).text();
+  for (const printed of [cp.head, cp.key_fingerprint, cp.signature])
+    assert.ok(resultsPage.includes(printed), `the results page prints ${printed}`);
   // U's appeal can no longer be confirmed, amended or annulled: it is closed as superseded, its fee refunded,
   // and the results stay as the annulment left them (no new version).
   for (const outcome of ['confirmed', 'annulled'] as const) {

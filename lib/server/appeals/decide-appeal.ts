@@ -4,6 +4,7 @@ import { getDb } from '@/lib/server/db';
 import type { Actor } from '@/lib/server/auth/actor';
 import { AppError } from '@/lib/core/errors';
 import { refundPayment } from '@/lib/server/payments/stripe';
+import { checkpointQuietly } from '@/lib/server/chain/chain-service';
 import { recordAuditEvent } from '@/lib/server/audit/record-audit-event';
 import { formatMoney } from '@/lib/core/inputs/entries';
 import { DecideAppealInput } from '../../core/inputs/penalties';
@@ -31,7 +32,7 @@ export async function decideAppeal(
   readInput: () => Promise<unknown>,
 ): Promise<AppealDetail> {
   const { sequelize } = getDb();
-  const id = await sequelize.transaction(async (transaction) => {
+  const decided = await sequelize.transaction(async (transaction) => {
     const { appeal } = await findAppealForAppealBody(actor, appealId, transaction);
     const input = DecideAppealInput.parse(await readInput());
     if (!PENDING_APPEAL.includes(appeal.status))
@@ -183,7 +184,9 @@ export async function decideAppeal(
       ],
       transaction,
     );
-    return appeal.id;
+    return { id: appeal.id, eventId: appeal.eventId, outcome: input.outcome };
   });
-  return getAppeal(actor, id);
+  // The appeal body's decision (and any results it amended) is covered by a signed checkpoint before it answers.
+  await checkpointQuietly(decided.eventId, `appeal decided (${decided.outcome})`);
+  return getAppeal(actor, decided.id);
 }

@@ -83,6 +83,11 @@ export async function reportCheckpoint(eventId: string, reportId: string): Promi
   return withChainClient((c) => checkpointCovering(c, eventId, 'parity_reports', reportId));
 }
 
+/** The checkpoint that covers one version of a class's provisional results, printed on the results page. */
+export async function resultsCheckpoint(eventId: string, resultsId: string): Promise<Checkpoint | null> {
+  return withChainClient((c) => checkpointCovering(c, eventId, 'provisional_results', resultsId));
+}
+
 export type SelfCheck = {
   checkedAt: string;
   chains: number;

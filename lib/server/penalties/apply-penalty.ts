@@ -12,6 +12,7 @@ import { formatInZone } from '../../core/protests/protest-window';
 import { GOVERNING_BODY_CAUTION } from '../../core/penalties/penalty-kinds';
 import { amendClassResults } from './amend-results';
 import { readPenalties, type PenaltyView } from './penalty-view';
+import { checkpointQuietly } from '@/lib/server/chain/chain-service';
 
 const field = (f: string, message: string, status = 400, code = 'invalid_input') =>
   new AppError(code, status, `${f}: ${message}`, [{ field: f, message }]);
@@ -236,5 +237,7 @@ export async function applyPenalty(
     );
     return row.id;
   });
+  // A decision that amends the results: the meeting's chain head is signed now, as at any publication.
+  await checkpointQuietly(eventId, `stewards' penalty imposed`);
   return (await readPenalties({ penaltyId: id }))[0];
 }

@@ -10,7 +10,7 @@ import { ModelAssumptions } from '@/components/parity-tables';
 import { SafetyNote } from '@/components/safety-note';
 import { ClockSection } from '@/components/clock-section';
 import { reportCheckpoint } from '@/lib/server/chain/chain-service';
-import { checkpointLines } from '@/lib/core/chain/checkpoint-lines';
+import { CheckpointCard } from '@/components/checkpoint-card';
 
 export const dynamic = 'force-dynamic';
 
@@ -103,26 +103,7 @@ export default async function PublicReportPage({ params }: { params: Promise<{ p
         />
       )}
       {checkpoint && (
-        <section className="card space-y-1" aria-labelledby="checkpoint" data-testid="report-checkpoint">
-          <h2 id="checkpoint" className="text-xl">
-            Record checkpoint
-          </h2>
-          {checkpointLines(checkpoint, timeZone).map((line, k) => (
-            <p
-              key={k}
-              className={/^[0-9a-f]{64}$|^[A-Za-z0-9+/=]{80,}$/.test(line) ? 'break-all font-mono text-sm' : 'text-sm'}
-            >
-              {line.includes('/verify page') ? (
-                <>
-                  Check a copy of the meeting&apos;s records against these lines with its export bundle:{' '}
-                  <code>npm run verify -- &lt;bundle&gt;</code>, or <Link href="/verify">verify a bundle here</Link>.
-                </>
-              ) : (
-                line
-              )}
-            </p>
-          ))}
-        </section>
+        <CheckpointCard checkpoint={checkpoint} timeZone={timeZone} testId="report-checkpoint" headingId="checkpoint" />
       )}
     </article>
   );

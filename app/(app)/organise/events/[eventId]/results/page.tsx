@@ -5,6 +5,9 @@ import { SafetyNote } from '@/components/safety-note';
 import { GOVERNING_BODY_CAUTION } from '@/lib/core/penalties/penalty-kinds';
 import { openResults } from '../access';
 import { ResultsForm } from './results-form';
+import { CheckpointCard } from '@/components/checkpoint-card';
+import { resultsCheckpoint } from '@/lib/server/chain/chain-service';
+import { getDb } from '@/lib/server/db';
 
 export const metadata: Metadata = { title: 'Provisional results' };
 
@@ -20,6 +23,12 @@ export const dynamic = 'force-dynamic';
 export default async function ResultsPage({ params }: { params: Promise<{ eventId: string }> }) {
   const { actor, eventId } = await openResults(params);
   const classes = await listProvisionalResults(actor, eventId);
+  // Each class's latest version with the signed checkpoint that covers it (signed just after publication, so a
+  // version published a moment ago may not have one yet).
+  const [event, checkpoints] = await Promise.all([
+    getDb().models.Event.findByPk(eventId, { attributes: ['timeZone'] }),
+    Promise.all(classes.map((c) => (c.latest ? resultsCheckpoint(eventId, c.latest.id) : null))),
+  ]);
   return (
     <div className="space-y-6">
       <nav aria-label="Breadcrumb" className="text-sm">
@@ -37,7 +46,7 @@ export default async function ResultsPage({ params }: { params: Promise<{ eventI
         eventId={eventId}
         classes={classes.map((c) => ({ classId: c.classId, label: `${c.classCode} · ${c.className}` }))}
       />
-      {classes.map((c) => (
+      {classes.map((c, i) => (
         <section
           key={c.classId}
           aria-labelledby={`class-${c.classId}`}
@@ -115,6 +124,14 @@ export default async function ResultsPage({ params }: { params: Promise<{ eventI
                   ))}
                 </tbody>
               </table>
+              {checkpoints[i] && (
+                <CheckpointCard
+                  checkpoint={checkpoints[i]}
+                  timeZone={event?.timeZone ?? 'UTC'}
+                  testId="results-checkpoint"
+                  headingId={`checkpoint-${c.classId}`}
+                />
+              )}
             </>
           )}
         </section>
