@@ -37,6 +37,14 @@ function wallClockIn(minutesFromNow: number): string {
   return `${p.year}-${p.month}-${p.day}T${p.hour}:${p.minute}`;
 }
 
+/** A start later today in the meeting's zone (a check-in matches the booking of its own meeting day): the given
+ * minutes from now, or 23:59 when that would fall on the next day. */
+function laterToday(minutesFromNow: number): string {
+  const t = wallClockIn(minutesFromNow);
+  const day = wallClockIn(0).slice(0, 10);
+  return t.slice(0, 10) === day ? t : `${day}T23:59`;
+}
+
 const slotsUrl = () => `/api/events/${meeting.eventId}/slots`;
 const entryUrl = (entryId: string) => `/api/events/${meeting.eventId}/slots/entries/${entryId}`;
 const queueUrl = (day: string) => `/api/events/${meeting.eventId}/slots/queue?day=${day}`;
@@ -239,7 +247,7 @@ test('two entrants taking the last place at once: one gets it, the other is told
 });
 
 test('the dock checks boats in once per key and booking, takes walk-ins, and refuses implausible times', async () => {
-  const slot = await openSlot({ startsAt: wallClockIn(90) });
+  const slot = await openSlot({ startsAt: laterToday(90) });
   const booked = await newEntrant();
   await booked.s.json(entryUrl(booked.entry.id), { slotId: slot.body.data.id });
   const arrivals = `/api/events/${meeting.eventId}/slots/arrivals`;
