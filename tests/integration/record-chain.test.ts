@@ -160,6 +160,27 @@ test("a meeting's bundle verifies, with its files and a checkpoint signed by the
   fs.writeFileSync(file, bundle);
   const out = execFileSync('node_modules/.bin/tsx', ['scripts/verify-bundle.ts', file], { encoding: 'utf8' });
   assert.match(out, /^VERIFIED/);
+  // With the key fingerprint printed on the meeting's pages: still verified; with another key's, refused (exit 1).
+  const [{ key_fingerprint: published }] = await query<{ key_fingerprint: string }>(
+    'select key_fingerprint from chain_checkpoints where chain_key = $1 limit 1',
+    [meeting.eventId],
+  );
+  const withKey = execFileSync('node_modules/.bin/tsx', ['scripts/verify-bundle.ts', file, '--key', published], {
+    encoding: 'utf8',
+  });
+  assert.match(withKey, /^VERIFIED[\s\S]*\(the published one\)/);
+  let refusedStatus = 0;
+  let refusedOut = '';
+  try {
+    execFileSync('node_modules/.bin/tsx', ['scripts/verify-bundle.ts', file, '--key', 'ab'.repeat(32)], {
+      encoding: 'utf8',
+    });
+  } catch (err) {
+    refusedStatus = (err as { status: number }).status;
+    refusedOut = (err as { stdout: string }).stdout;
+  }
+  assert.equal(refusedStatus, 1);
+  assert.match(refusedOut, /NOT VERIFIED \(key, line 1\): the bundle is signed with another key/);
 
   // A protest's case file: the protest's rows, every other record's link without its row; still verifies.
   const caseFile = await buildBundle(c, meeting.eventId, { readFile: async (k) => files.get(k)!, protestId });

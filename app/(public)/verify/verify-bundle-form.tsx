@@ -8,10 +8,22 @@ export function VerifyBundleForm() {
   const [result, setResult] = useState<VerifyResult | null>(null);
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
+  const [text, setText] = useState<string | null>(null);
+  const [fingerprint, setFingerprint] = useState('');
+
+  function check(bundle: string, expected: string) {
+    setBusy(true);
+    setError(null);
+    verifyBundle(bundle, { expectedFingerprint: expected || null })
+      .then(setResult)
+      .catch((err: Error) => setError(`The bundle could not be checked here: ${err.message}`))
+      .finally(() => setBusy(false));
+  }
 
   function onFile(file: File | undefined) {
     setResult(null);
     setError(null);
+    setText(null);
     if (!file) return;
     setBusy(true);
     const reader = new FileReader();
@@ -20,16 +32,40 @@ export function VerifyBundleForm() {
       setError('The file could not be read.');
     };
     reader.onload = () => {
-      verifyBundle(String(reader.result))
-        .then(setResult)
-        .catch((err: Error) => setError(`The bundle could not be checked here: ${err.message}`))
-        .finally(() => setBusy(false));
+      const bundle = String(reader.result);
+      setText(bundle);
+      check(bundle, fingerprint);
     };
     reader.readAsText(file);
   }
 
+  function onFingerprint(value: string) {
+    setFingerprint(value);
+    if (text !== null) check(text, value);
+  }
+
   return (
     <div className="space-y-4">
+      <div className="space-y-1">
+        <label htmlFor="fingerprint" className="field-label">
+          Key fingerprint printed on the meeting&apos;s published page (recommended)
+        </label>
+        <input
+          id="fingerprint"
+          type="text"
+          inputMode="text"
+          autoComplete="off"
+          spellCheck={false}
+          className="field-input font-mono"
+          value={fingerprint}
+          onChange={(e) => onFingerprint(e.target.value)}
+          aria-describedby="fingerprint-help"
+        />
+        <p id="fingerprint-help" className="text-sm text-ink-soft">
+          A bundle carries its own key, so without the published fingerprint it only shows that it is consistent with
+          itself: anyone who rewrote the records could sign them again with a key of their own.
+        </p>
+      </div>
       <div className="space-y-1">
         <label htmlFor="bundle" className="field-label">
           Export bundle
@@ -51,7 +87,9 @@ export function VerifyBundleForm() {
             {result.checkpoints.length} signed checkpoints.
           </p>
           <p className="text-sm">
-            Compare the key&apos;s fingerprint with the one printed on the meeting&apos;s published pages:
+            {fingerprint
+              ? 'Signed with the published key:'
+              : 'Compare the key’s fingerprint with the one printed on the meeting’s published pages:'}
           </p>
           <p className="break-all font-mono text-sm">{result.fingerprint}</p>
         </div>

@@ -51,8 +51,17 @@ function describe(r: ChainRecord): string {
   return `record ${r.seq} (${r.table} ${r.rowId})`;
 }
 
-/** Verifies the text of a bundle. Never throws for bad input: a malformed bundle is a `format` problem. */
-export async function verifyBundle(text: string): Promise<VerifyResult> {
+/**
+ * Verifies the text of a bundle. Never throws for bad input: a malformed bundle is a `format` problem.
+ * A bundle carries its own public key, so on its own it proves only that it is consistent with that key: someone
+ * who rewrites the records can sign them again with a key of their own. `expectedFingerprint` (the key
+ * fingerprint printed on the meeting's published pages and PDFs) closes that: a bundle whose key is another is
+ * refused as a `key` problem.
+ */
+export async function verifyBundle(
+  text: string,
+  opts: { expectedFingerprint?: string | null } = {},
+): Promise<VerifyResult> {
   const lines = text.split('\n').filter((l, k, all) => l.trim() !== '' || k < all.length - 1);
   let header: BundleHeader | undefined;
   let key: BundleKey | undefined;
@@ -101,6 +110,13 @@ export async function verifyBundle(text: string): Promise<VerifyResult> {
   }
   const fingerprint = await keyFingerprint(spki);
   if (fingerprint !== key.fingerprint) return fail('key', 1, 'the public key does not match its fingerprint');
+  const expected = opts.expectedFingerprint?.trim().toLowerCase().replace(/[\s:]/g, '');
+  if (expected && expected !== fingerprint)
+    return fail(
+      'key',
+      1,
+      `the bundle is signed with another key (fingerprint ${fingerprint}) than the published one (${expected})`,
+    );
 
   const chain = await verifyRecords(records, (objectKey) => files.get(objectKey));
   if (!chain.ok) return chain;

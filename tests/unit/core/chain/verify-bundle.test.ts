@@ -76,3 +76,22 @@ test('malformed input is a format problem, never an exception', async () => {
   for (const bad of ['', 'not json\n', '{"type":"bundle","version":9}\n', '{"type":"record"}\n', '[1]\n'])
     assert.equal((await problem(bad)).kind, 'format', bad);
 });
+
+test('with the published key fingerprint, a bundle re-signed whole with another key is refused; the genuine one passes', async () => {
+  const genuine = makeBundle().lines;
+  const keyLine = genuine.find((l) => l.type === 'key') as unknown as { fingerprint: string };
+  const published = keyLine.fingerprint;
+  // A forger rebuilds the whole bundle (every hash recomputed) and signs it with a key of their own: on its own
+  // the bundle is consistent, which is why the published fingerprint must be compared.
+  const forged = makeBundle().lines;
+  assert.equal((await verifyBundle(bundleText(forged))).ok, true, 'consistent with its own key');
+  const r = await verifyBundle(bundleText(forged), { expectedFingerprint: published });
+  assert.equal(r.ok, false);
+  const p = (r as Extract<typeof r, { ok: false }>).problem;
+  assert.equal(p.kind, 'key');
+  assert.match(p.message, /another key/);
+  // The genuine bundle passes, with the fingerprint typed as printed, in capitals or with colons.
+  const typed = published.toUpperCase().match(/.{2}/g)!.join(':');
+  const ok = await verifyBundle(bundleText(genuine), { expectedFingerprint: typed });
+  assert.ok(ok.ok, JSON.stringify(ok));
+});
