@@ -13,6 +13,7 @@ import { PDFDocument } from 'pdf-lib';
 import { HttpSession } from '../support/http-session';
 import { DEMO, DEMO_PASSWORD, BASE_URL } from '../support/env';
 import { query } from '../support/db';
+import { checkpointCovering, checkpointSignatureHolds } from '../support/chain-checkpoint';
 import { extractPdfText } from '../support/pdf-text';
 import { computeParity } from '../../lib/core/engine/parity';
 import { computeAreaEquivalentDiameterFromReadingsMm } from '../../lib/core/engine/measurement';
@@ -333,20 +334,8 @@ test("a published report's page and PDF print the checkpoint signed at its publi
     [eventId, report.id],
   );
   assert.ok(link, 'the report is chained by the time its publication answers');
-  const [cp] = await query<{
-    count: string;
-    head: string;
-    signature: string;
-    key_fingerprint: string;
-    spki: Buffer;
-    signed_at: Date;
-    reason: string;
-  }>(
-    `select c.count, c.head, c.signature, c.key_fingerprint, k.public_key_spki as spki, c.signed_at, c.reason
-       from chain_checkpoints c join chain_keys k on k.fingerprint = c.key_fingerprint
-      where c.chain_key = $1 and c.count >= $2 order by c.id limit 1`,
-    [eventId, link.seq],
-  );
+  const cp = await checkpointCovering(eventId, 'parity_reports', report.id);
+  assert.ok(cp, 'a checkpoint covers the report');
   assert.match(cp.reason, /parity report PT version \d+ published/);
   const [head] = await query<{ link_hash: string }>(
     'select link_hash from chain_links where chain_key = $1 and seq = $2',
@@ -354,19 +343,7 @@ test("a published report's page and PDF print the checkpoint signed at its publi
   );
   assert.equal(cp.head, head.link_hash, 'the checkpoint signs the chain head');
   // The signature is Ed25519 (RFC 8032) over the RFC 8785 canonical JSON of the checkpoint's fields.
-  const { createPublicKey, verify } = await import('node:crypto');
-  const message = Buffer.from(
-    JSON.stringify({
-      chain: eventId,
-      count: Number(cp.count),
-      head: cp.head,
-      keyFingerprint: cp.key_fingerprint,
-      reason: cp.reason,
-      signedAt: cp.signed_at.toISOString(),
-    }),
-  );
-  const publicKey = createPublicKey({ key: cp.spki, format: 'der', type: 'spki' });
-  assert.equal(verify(null, message, publicKey, Buffer.from(cp.signature, 'base64')), true);
+  assert.ok(checkpointSignatureHolds(eventId, cp));
   assert.equal(
     createHash('sha256').update(cp.spki).digest('hex'),
     cp.key_fingerprint,

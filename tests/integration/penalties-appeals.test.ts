@@ -9,10 +9,11 @@
 // practice (no single source); the governing body's rules decide.
 import { test, before } from 'node:test';
 import assert from 'node:assert/strict';
-import { randomUUID, createPublicKey, verify } from 'node:crypto';
+import { randomUUID } from 'node:crypto';
 import { HttpSession } from '../support/http-session';
 import { DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
 import { query } from '../support/db';
+import { checkpointCovering, checkpointSignatureHolds } from '../support/chain-checkpoint';
 import { waitForMail } from '../support/mail';
 import { FAKE, waitFor, refundEventsFor } from './protest-fixtures';
 
@@ -90,43 +91,10 @@ test("an appeal overtaken by another's decision on the same penalty is closed as
     'select id from provisional_results where class_id = $1 order by version desc limit 1',
     [CLASS_E],
   );
-  const [cp] = await query<{
-    count: string;
-    head: string;
-    signature: string;
-    key_fingerprint: string;
-    spki: Buffer;
-    signed_at: Date;
-    reason: string;
-  }>(
-    `select c.count, c.head, c.signature, c.key_fingerprint, k.public_key_spki as spki, c.signed_at, c.reason
-       from chain_links l
-       join chain_checkpoints c on c.chain_key = l.chain_key and c.count >= l.seq
-       join chain_keys k on k.fingerprint = c.key_fingerprint
-      where l.chain_key = $1 and l.table_name = 'provisional_results' and l.row_id = $2
-      order by c.id limit 1`,
-    [EVENT, latestRow.id],
-  );
+  const cp = await checkpointCovering(EVENT, 'provisional_results', latestRow.id);
   assert.ok(cp, 'a checkpoint covers the restored results');
   assert.equal(cp.reason, 'appeal decided (annulled)');
-  const message = Buffer.from(
-    JSON.stringify({
-      chain: EVENT,
-      count: Number(cp.count),
-      head: cp.head,
-      keyFingerprint: cp.key_fingerprint,
-      reason: cp.reason,
-      signedAt: cp.signed_at.toISOString(),
-    }),
-  );
-  assert.ok(
-    verify(
-      null,
-      message,
-      createPublicKey({ key: cp.spki, format: 'der', type: 'spki' }),
-      Buffer.from(cp.signature, 'base64'),
-    ),
-  );
+  assert.ok(checkpointSignatureHolds(EVENT, cp));
   const resultsPage = await (await organiser.fetch(`/organise/events/${EVENT}/results`)).text();
   for (const printed of [cp.head, cp.key_fingerprint, cp.signature])
     assert.ok(resultsPage.includes(printed), `the results page prints ${printed}`);
