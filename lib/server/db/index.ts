@@ -31,12 +31,12 @@ function connection(url: string) {
  * Sequelize would send every SELECT outside a transaction to a replica; here the primary stays the
  * default and only queries that pass FROM_REPLICA read from a replica.
  */
-export function createSequelize(url: string, replicaUrls: string[], poolMax: number): Sequelize {
+export function createSequelize(url: string, replicaUrls: string[], poolMax: number, poolIdleMs = 10_000): Sequelize {
   const options: Options = {
     dialect: 'postgres',
     dialectModule: pg,
     logging: false,
-    pool: { max: poolMax, min: 0, acquire: 5000, idle: 10000 },
+    pool: { max: poolMax, min: 0, acquire: 5000, idle: poolIdleMs },
     dialectOptions: { connectionTimeoutMillis: 3000, statement_timeout: 15000 },
     retry: { max: 0 },
   };
@@ -56,8 +56,8 @@ export function createSequelize(url: string, replicaUrls: string[], poolMax: num
 // Created on first use (never at build time) and cached on globalThis for dev hot reload.
 export function getDb(): DbCache {
   if (globalForDb.__borelineDb) return globalForDb.__borelineDb;
-  const { DATABASE_URL: url, DATABASE_REPLICA_URLS: replicas, DB_POOL_MAX: poolMax } = serverEnv();
-  const sequelize = createSequelize(url, replicas, poolMax);
+  const { DATABASE_URL: url, DATABASE_REPLICA_URLS: replicas, DB_POOL_MAX: poolMax, DB_POOL_IDLE_MS } = serverEnv();
+  const sequelize = createSequelize(url, replicas, poolMax, DB_POOL_IDLE_MS);
   const models = initModels(sequelize);
   globalForDb.__borelineDb = { sequelize, models };
   return globalForDb.__borelineDb;

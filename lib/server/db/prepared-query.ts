@@ -66,27 +66,47 @@ function asDriverError(err: unknown): Error {
   return Object.assign(new Error(e.message), { name: 'PreparedQueryError', parent: e, original: e, code: e.code });
 }
 
-export type PreparedRunner = <T>(name: string, sql: string, values: Record<string, unknown>) => Promise<T[]>;
+export type PipelinedStep = { name: string; sql: string; values: Record<string, unknown> };
+
+type PipelinedClient = pg.Client & { pipeline: boolean; connection: { stream: { cork(): void; uncork(): void } } };
 
 /**
- * Several prepared statements in one transaction on one pooled connection (BEGIN … COMMIT; ROLLBACK on any
- * error): each statement takes a new snapshot (READ COMMITTED), so a later one sees what an earlier one did
- * and everything committed before a lock it waited for was granted.
+ * Prepared statements in one transaction, written to PostgreSQL at once: BEGIN, each statement and COMMIT go
+ * out in one write and are answered together (one round trip, where awaiting each costs one per statement:
+ * measured on the dock's record, six round trips became three). The driver's pipeline mode (pg's `pipeline`
+ * client option) is switched on for this call alone on a pooled connection nobody else holds meanwhile.
+ *
+ * Each statement still takes its own snapshot (READ COMMITTED) and sees what the earlier ones did and
+ * everything committed before a lock it waited for was granted. Once one fails, PostgreSQL refuses the rest
+ * of the block and the COMMIT rolls it back (PostgreSQL documentation, COMMIT and "Pipelining" in the
+ * frontend/backend protocol). A later statement cannot read an earlier one's answer in the application, so
+ * it guards itself in SQL (for example: act only if the row the earlier statement inserted exists).
+ * Returns each statement's rows; throws the first failure, carried as the driver's error (asDriverError).
  */
-export async function preparedTransaction<R>(work: (q: PreparedRunner) => Promise<R>): Promise<R> {
+export async function preparedPipeline(steps: PipelinedStep[]): Promise<unknown[][]> {
   const pool = getDb().sequelize.connectionManager as unknown as Pool;
-  const client = await pool.getConnection({ type: 'write', useMaster: true });
-  const q: PreparedRunner = async <T>(name: string, sql: string, values: Record<string, unknown>) =>
-    (await client.query<T & pg.QueryResultRow>(bound(name, sql, values))).rows;
+  const client = (await pool.getConnection({ type: 'write', useMaster: true })) as PipelinedClient;
+  const stream = client.connection.stream;
+  client.pipeline = true;
   try {
-    await client.query('begin');
-    const result = await work(q);
-    await client.query('commit');
-    return result;
-  } catch (err) {
-    await client.query('rollback').catch(() => undefined);
-    throw asDriverError(err);
+    stream.cork();
+    let sent: Promise<pg.QueryResult>[];
+    try {
+      sent = [
+        client.query('begin'),
+        ...steps.map((s) => client.query(bound(s.name, s.sql, s.values))),
+        client.query('commit'),
+      ];
+    } finally {
+      stream.uncork();
+    }
+    // Every answer is awaited before the connection goes back to the pool, failed or not.
+    const answers = await Promise.allSettled(sent);
+    const failed = answers.find((a): a is PromiseRejectedResult => a.status === 'rejected');
+    if (failed) throw asDriverError(failed.reason);
+    return answers.slice(1, -1).map((a) => (a as PromiseFulfilledResult<pg.QueryResult>).value.rows);
   } finally {
+    client.pipeline = false;
     await pool.releaseConnection(client);
   }
 }

@@ -4,7 +4,7 @@ import { randomUUID } from 'node:crypto';
 import { z } from 'zod';
 import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/server/db';
-import { preparedQuery, preparedTransaction } from '@/lib/server/db/prepared-query';
+import { preparedPipeline, preparedQuery } from '@/lib/server/db/prepared-query';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
 import { AppError, fieldError } from '@/lib/core/errors';
 import { outboxInsertSql, outboxRows, type QueuedMail } from '@/lib/server/mail/outbox';
@@ -178,8 +178,10 @@ const ONE_TRIP_INSERT = `with locked as (select id from entries where id = :entr
      returning id, received_at as "receivedAt", declaration_version_id as "declarationVersionId"`;
 
 // What follows a record (as in the full transaction of recordInspection), on a new snapshot that holds the
-// insert and every record committed before the entry's lock was granted.
+// insert and every record committed before the entry's lock was granted; nothing when the insert inserted
+// nothing (a stored key, or a declaration that moved on), since it is sent before the insert is answered.
 const ONE_TRIP_FOLLOW_UP = `with ${currentInspectionCte('entry')},
+     inserted as (select 1 from inspections where id = :id),
      entry_result as (
        update entries set inspection_result = case
                 -- The usual case: nothing else of the entry was captured at or after this record and its declaration
@@ -191,20 +193,21 @@ const ONE_TRIP_FOLLOW_UP = `with ${currentInspectionCte('entry')},
                 then :overall
                 else (select i.overall_result from inspections i where i.id = (select id from current_inspection)) end,
               updated_at = now()
-        where id = :entryId),
-     settled as (${settleAskedSql} returning r.id),
+        where id = :entryId and exists (select 1 from inserted)),
+     settled as (${settleAskedSql} and exists (select 1 from inserted) returning r.id),
      task as (
        update reinspections set inspection_id = :id, done_at = now(), updated_at = now()
         where id = :reinspectionId and done_at is null and id not in (select id from settled)
-          and ${MEASURED_AFTER_TASK}),
-     mail as (${outboxInsertSql('outboxMail')})
+          and ${MEASURED_AFTER_TASK} and exists (select 1 from inserted)),
+     mail as (${outboxInsertSql('outboxMail')} where exists (select 1 from inserted))
      select 1`;
 
 /**
  * A new record of the boat's latest declaration, with no seal events, as two prepared statements in one
- * transaction (PostgreSQL plans each once per connection: planning the follow-up as text cost more than
- * running it). Null when nothing was inserted: the caller then takes the full transaction, which tells a
- * replay from a declaration edit.
+ * transaction sent in one round trip (PostgreSQL plans each once per connection: planning the follow-up as
+ * text cost more than running it). The follow-up acts only if the insert inserted (it cannot read the
+ * insert's answer). Null when nothing was inserted: the caller then takes the full transaction, which tells
+ * a replay from a declaration edit.
  */
 async function writeInOneTrip(
   row: NewRecordRow,
@@ -213,12 +216,11 @@ async function writeInOneTrip(
   const id = randomUUID();
   // No correction takes this path, so the boat was measured at the record's capture time.
   const values = { ...row, id, declarationVersionId, shownVersion, outboxMail: mail, measuredAt: row.capturedAt };
-  return preparedTransaction(async (q) => {
-    const [inserted] = await q<Inserted>('record-inspection:insert', ONE_TRIP_INSERT, values);
-    if (!inserted) return null;
-    await q('record-inspection:follow-up', ONE_TRIP_FOLLOW_UP, values);
-    return inserted;
-  });
+  const [insertedRows] = await preparedPipeline([
+    { name: 'record-inspection:insert', sql: ONE_TRIP_INSERT, values },
+    { name: 'record-inspection:follow-up', sql: ONE_TRIP_FOLLOW_UP, values },
+  ]);
+  return (insertedRows[0] as Inserted | undefined) ?? null;
 }
 
 /** The entrant's result mail, queued with the record (sent by the outbox worker, never on the request path). */
