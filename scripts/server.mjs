@@ -57,7 +57,13 @@ const staticBrotli =
       })
     : null;
 
+// Requests being answered right now, read by lib/server/http/in-flight.ts (same process): the mail outbox's
+// worker holds back while the server is busy.
+globalThis.__borelineRequestsInFlight = 0;
+
 const server = createServer((req, res) => {
+  globalThis.__borelineRequestsInFlight++;
+  res.once('close', () => globalThis.__borelineRequestsInFlight--);
   forwardHeaders(req.headers, req.socket.remoteAddress, hops);
   // One id per request, on the request (route handlers put it in error answers and their log lines),
   // on the answer, and on this access line. A client's own X-Request-Id is only kept from a declared proxy.

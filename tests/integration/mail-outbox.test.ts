@@ -3,11 +3,13 @@
 // a mail queued by a record whose transaction rolls back is never sent; a send the relay refuses
 // stays queued and is sent later; two app servers' workers never send one message twice.
 // SMTP reply 451 is a transient failure that a client retries (RFC 5321, section 4.2.3 and 4.5.4.1).
+// And the worker holds back while the server is answering requests, for MAIL_BUSY_DEFER_MS at most.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { randomBytes } from 'node:crypto';
+import http from 'node:http';
 import { HttpSession } from '../support/http-session';
-import { DEMO, DEMO_PASSWORD, MAIL_INBOX, uniqueEmail } from '../support/env';
+import { BASE_URL, DEMO, DEMO_PASSWORD, MAIL_INBOX, uniqueEmail } from '../support/env';
 import { query } from '../support/db';
 import { InspectionMeeting, inspectionBody, rulesWith, type TestEntry } from '../support/inspection-meeting';
 import { waitForMail, type Mail } from '../support/mail';
@@ -158,4 +160,36 @@ test('two app servers drain one outbox without sending any message twice', async
     `both workers took part: ${[...senders].join(', ')}`,
   );
   second.kill('SIGTERM');
+});
+
+test('while the server is answering a request, queued mail waits, at most MAIL_BUSY_DEFER_MS, then goes out', async () => {
+  const deferMs = Number(process.env.MAIL_BUSY_DEFER_MS);
+  assert.ok(deferMs > 0 && deferMs <= 5000, 'the suite sets a short MAIL_BUSY_DEFER_MS');
+  await sleep(600); // idle ticks (every 200 ms in the suite): the worker's busy clock starts afresh
+  // A sign-up whose chunked body never ends stays in flight until this test finishes it.
+  const held = http.request(new URL('/api/accounts', BASE_URL), {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', 'transfer-encoding': 'chunked' },
+  });
+  const answered = new Promise<number>((resolve, reject) => {
+    held.on('response', (r) => r.resume().on('end', () => resolve(r.statusCode ?? 0)));
+    held.on('error', reject);
+  });
+  held.write('{"name": "Held Open');
+  const heldAt = Date.now();
+  try {
+    await sleep(300);
+    const to = uniqueEmail('outbox-busy');
+    await query(
+      `insert into mail_outbox (kind, to_address, subject, text_body) values ('test', $1, 'after the rush', 'body')`,
+      [to],
+    );
+    const mail = await waitForMail(to, { timeoutMs: deferMs + 10_000 });
+    const waitedMs = Date.now() - heldAt;
+    assert.equal(mail.subject, 'after the rush');
+    assert.ok(waitedMs >= deferMs, `sent ${waitedMs} ms after the server became busy: it did not hold back`);
+  } finally {
+    held.end('"}');
+  }
+  assert.equal(await answered, 400, 'the held sign-up, finished without its fields, is refused (and loses nothing)');
 });
