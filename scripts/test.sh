@@ -72,14 +72,27 @@ fi
 # The whole suite starts with the static checks, before anything is started or built, and a
 # failing one fails the run (CI runs the whole suite). Chosen files skip them to stay quick.
 if [ -z "$run_script" ] && [ $# -eq 0 ]; then
+  # The three run side by side (each is mostly one core's work) and their outputs are printed in turn.
   failed=()
-  check() { # check SCRIPT HOW-TO-FIX: run one package.json script, remember how to fix it when it fails
-    log "npm run $1"
-    npm run --silent "$1" || failed+=("'npm run $1' failed: $2")
-  }
-  check format:check "run 'npm run format' (Prettier rewrites the files listed above) and commit the result"
-  check lint "fix each problem 'npm run lint' lists above (a warning fails too: --max-warnings=0)"
-  check typecheck "fix each error 'npm run typecheck' (tsc --noEmit) lists above"
+  checks=(format:check lint typecheck)
+  declare -A fix=(
+    [format:check]="run 'npm run format' (Prettier rewrites the files listed above) and commit the result"
+    [lint]="fix each problem 'npm run lint' lists above (a warning fails too: --max-warnings=0)"
+    [typecheck]="fix each error 'npm run typecheck' (tsc --noEmit) lists above"
+  )
+  CHECKS_OUT="$(mktemp -d)"
+  declare -A pids=()
+  for c in "${checks[@]}"; do
+    npm run --silent "$c" >"$CHECKS_OUT/$c.log" 2>&1 &
+    pids[$c]=$!
+  done
+  for c in "${checks[@]}"; do
+    status=0; wait "${pids[$c]}" || status=$?
+    log "npm run $c"
+    cat "$CHECKS_OUT/$c.log"
+    [ "$status" = 0 ] || failed+=("'npm run $c' failed: ${fix[$c]}")
+  done
+  rm -rf "$CHECKS_OUT"
   if [ ${#failed[@]} -gt 0 ]; then
     for f in "${failed[@]}"; do log "$f"; done
     exit 1
