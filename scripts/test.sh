@@ -103,8 +103,25 @@ needs_app=0
 for f in "${files[@]}"; do case "$f" in tests/unit/*) ;; *) needs_app=1 ;; esac; done
 
 RUN="$ROOT/.data/test-run"; mkdir -p "$RUN" "$TEST_ARTIFACTS"
-cleanup() { stop_pidfile "$RUN/app.pid"; stop_pidfile "$RUN/fakes.pid"; }
+unit_pid=""
+cleanup() {
+  stop_pidfile "$RUN/app.pid"; stop_pidfile "$RUN/fakes.pid"
+  if [ -n "$unit_pid" ]; then kill "$unit_pid" 2>/dev/null || true; fi
+}
 trap cleanup EXIT
+
+# The unit tests need neither the database nor the app: when the whole suite runs, they run beside the
+# database's set-up and the build, and their report is printed after the other tests'.
+if [ -z "$run_script" ] && [ $# -eq 0 ] && [ $needs_app = 1 ]; then
+  unit_files=(); others=()
+  for f in "${files[@]}"; do case "$f" in tests/unit/*) unit_files+=("$f") ;; *) others+=("$f") ;; esac; done
+  if [ ${#unit_files[@]} -gt 0 ]; then
+    log "running ${#unit_files[@]} unit test files beside the build (their report comes last)"
+    node_modules/.bin/tsx --test --test-concurrency=1 "${unit_files[@]}" >"$RUN/unit.tap" 2>&1 9>&- &
+    unit_pid=$!
+    files=("${others[@]}")
+  fi
+fi
 
 if [ $needs_app = 1 ]; then
   bash scripts/pg.sh boreline_test >/dev/null
@@ -137,4 +154,12 @@ if [ -n "$run_script" ]; then
   exit $?
 fi
 log "running ${#files[@]} test files"
-node_modules/.bin/tsx --test --test-concurrency=1 "${files[@]}"
+status=0
+node_modules/.bin/tsx --test --test-concurrency=1 "${files[@]}" || status=$?
+if [ -n "$unit_pid" ]; then
+  unit_status=0; wait "$unit_pid" || unit_status=$?; unit_pid=""
+  log "the unit tests, run beside the build:"
+  cat "$RUN/unit.tap"
+  if [ "$unit_status" != 0 ]; then log "unit tests failed (above)"; status=1; fi
+fi
+exit $status
