@@ -282,6 +282,27 @@ test('a tampered bundle is refused, naming the record where it differs', async (
   }
   assert.equal(status, 1);
   assert.match(stdout, new RegExp(`protest_evidence ${evidence.rowId}`));
+
+  // The meeting's bundle with its checkpoints left out (the one thing a forger cannot remake) is refused even
+  // though its key line is the meeting's own and matches the published fingerprint.
+  const [{ key_fingerprint: published }] = await query<{ key_fingerprint: string }>(
+    'select key_fingerprint from chain_checkpoints where chain_key = $1 limit 1',
+    [meeting.eventId],
+  );
+  const unsigned = path.join(scratch, 'unsigned.jsonl');
+  fs.writeFileSync(unsigned, unparse(lines.filter((l) => l.type !== 'checkpoint')));
+  status = 0;
+  stdout = '';
+  try {
+    execFileSync('node_modules/.bin/tsx', ['scripts/verify-bundle.ts', unsigned, '--key', published], {
+      encoding: 'utf8',
+    });
+  } catch (err) {
+    status = (err as { status: number }).status;
+    stdout = (err as { stdout: string }).stdout;
+  }
+  assert.equal(status, 1, stdout);
+  assert.match(stdout, /NOT VERIFIED \(unsigned, line 1\): the bundle carries no signed checkpoint/);
 });
 
 test('a row changed directly in PostgreSQL, behind a disabled trigger, is found by the self-check', async () => {
