@@ -247,7 +247,7 @@ test('points with a dropped round and a tie by count-back; a penalty amends the 
   assert.deepEqual(table(after.after[1].rows), table(before.after[1].rows));
 });
 
-test('season race numbers: unique per series class, one per boat; shown in the standings', async () => {
+test("season race numbers: unique per series class, one per boat, only for a boat entered at the organisations' meetings; shown in the standings", async () => {
   for (const [i, n] of [7, 8, 9, 10].entries()) {
     const r = await secretary.json(`${C()}/race-numbers`, { boatId: boats[i].id, raceNumber: n });
     assert.equal(r.res.status, 201, JSON.stringify(r.body));
@@ -268,6 +268,27 @@ test('season race numbers: unique per series class, one per boat; shown in the s
   const [{ id: spare }] = await query<{ id: string }>(
     `insert into boats (owner_id, name, declared_nozzle_mm, declared_power_kw) values ($1, 'Spare', 101, 200) returning id`,
     [owners[0].id],
+  );
+  // A boat that never entered a meeting of the series' organisations (its id is no secret: standings show
+  // boat ids): a number would put its owner on the class's bulletin mail. Refused with the same answer as a
+  // boat that does not exist.
+  const stranger = await secretary.json(`${C()}/race-numbers`, { boatId: spare, raceNumber: 70 });
+  assert.equal(stranger.res.status, 400, JSON.stringify(stranger.body));
+  assert.equal(stranger.body.error.details[0].field, 'boatId');
+  assert.equal(stranger.body.error.details[0].message, taken.body.error.details[0].message, 'nothing told apart');
+  const [{ id: spareEvent }] = await query<{ id: string }>(
+    `insert into events (organisation_id, name, slug, venue, starts_on, ends_on, time_zone, status)
+     values ($1, $2, $3, 'Test Reach', '2027-04-04', '2027-04-04', 'UTC', 'entries_open') returning id`,
+    [CLUB, `Club day ${tag}`, `series-${tag}-club-day`],
+  );
+  const [{ id: spareClass }] = await query<{ id: string }>(
+    `insert into race_classes (event_id, name, code) values ($1, 'Club', 'CL') returning id`,
+    [spareEvent],
+  );
+  await query(
+    `insert into entries (event_id, class_id, boat_id, entrant_id, race_number, status, fee_minor, currency)
+     values ($1, $2, $3, $4, 99, 'entered', 0, 'NZD')`,
+    [spareEvent, spareClass, spare, owners[0].id],
   );
   const dup = await secretary.json(`${C()}/race-numbers`, { boatId: spare, raceNumber: 7 });
   assert.equal(dup.res.status, 409);
