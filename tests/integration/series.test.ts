@@ -526,3 +526,59 @@ test('screens: the public series page shows the standings with the tie rule and 
   const refused = await outsider.s.fetch(`/series/${seriesId}/classes/${classId}/parity`);
   assert.doesNotMatch(await refused.text(), /Coefficient of variation/);
 });
+
+/** RFC 4180 cells of a CSV text (quoted cells with "" inside; CRLF between records). */
+function csvCells(text: string): string[][] {
+  const rows: string[][] = [[]];
+  let cell = '';
+  let quoted = false;
+  const end = () => {
+    rows.at(-1)!.push(cell);
+    cell = '';
+  };
+  for (let k = 0; k < text.length; k++) {
+    const ch = text[k];
+    if (quoted && ch === '"' && text[k + 1] === '"') {
+      cell += '"';
+      k++;
+    } else if (ch === '"') quoted = !quoted;
+    else if (!quoted && ch === ',') end();
+    else if (!quoted && ch === '\r' && text[k + 1] === '\n') {
+      end();
+      rows.push([]);
+      k++;
+    } else cell += ch;
+  }
+  return rows.filter((r) => r.length);
+}
+
+test("exports: a boat name an entrant typed as a formula is never a formula in the governing body's spreadsheet", async () => {
+  // An entrant controls their boat's name, and the standings export carries it to the series' officials.
+  // OWASP ASVS 5.0 requirement 1.2.10 (a cell beginning with = + - @ tab or NUL gets a leading apostrophe)
+  // and OWASP "CSV Injection" (from memory: a cell must not begin with one of these after a field separator
+  // either, such as ";" where a spreadsheet splits on it): the hostile names stay one text cell each.
+  const names = ["@SUM(1+1)*cmd|' /C calc'!A0", "Gale;=1+cmd|' /C calc'!A0"];
+  for (const [i, name] of names.entries()) {
+    const renamed = await owners[i].s.json(`/api/boats/${boats[i].id}`, { name }, 'PATCH');
+    assert.equal(renamed.res.status, 200, JSON.stringify(renamed.body));
+  }
+  const res = await secretary.fetch(`${S()}/exports/standings.csv`);
+  assert.equal(res.status, 200);
+  const text = await res.text();
+  const cells = csvCells(text);
+  const boatColumn = cells[0].indexOf('boat');
+  assert.deepEqual(
+    cells
+      .slice(1)
+      .map((r) => r[boatColumn])
+      .filter((b) => names.some((n) => b.endsWith(n)))
+      .sort(),
+    ["'@SUM(1+1)*cmd|' /C calc'!A0", "Gale;=1+cmd|' /C calc'!A0"],
+  );
+  assert.ok(text.includes(`,"Gale;=1+cmd|' /C calc'!A0",`), 'the cell with a semicolon is quoted');
+  for (const row of cells) for (const c of row) assert.doesNotMatch(c, /^[=+\-@\t\r]/, `formula cell ${c}`);
+  // Split where a spreadsheet set to ";" would split: no piece outside quotes begins a formula.
+  for (const line of text.split('\r\n'))
+    for (const piece of line.replace(/"(?:[^"]|"")*"/g, 'Q').split(';'))
+      assert.doesNotMatch(piece, /^[=+\-@]/, `a ";" spreadsheet would read a formula in ${line}`);
+});
