@@ -112,8 +112,12 @@ export async function verifyBundle(
   }
   const fingerprint = await keyFingerprint(spki);
   if (fingerprint !== key.fingerprint) return fail('key', 1, 'the public key does not match its fingerprint');
-  const expected = opts.expectedFingerprint?.trim().toLowerCase().replace(/[\s:]/g, '');
-  if (expected && expected !== fingerprint)
+  // A fingerprint given but empty once its separators are gone (" ", ":::") must not pass as "checked".
+  const given = opts.expectedFingerprint?.trim() ?? '';
+  const expected = given.toLowerCase().replace(/[\s:]/g, '');
+  if (given && !HEX64.test(expected))
+    return fail('key', 1, `the published fingerprint given (${given}) is not 64 hexadecimal digits (a SHA-256)`);
+  if (given && expected !== fingerprint)
     return fail(
       'key',
       1,

@@ -94,6 +94,12 @@ test('with the published key fingerprint, a bundle re-signed whole with another 
   const typed = published.toUpperCase().match(/.{2}/g)!.join(':');
   const ok = await verifyBundle(bundleText(genuine), { expectedFingerprint: typed });
   assert.ok(ok.ok, JSON.stringify(ok));
+  // A fingerprint of separators only, or cut short, is no fingerprint: refused rather than taken as checked.
+  for (const bad of [':'.repeat(64), published.slice(0, 63)]) {
+    const r2 = await verifyBundle(bundleText(forged), { expectedFingerprint: bad });
+    assert.equal(r2.ok, false, bad);
+    assert.equal((r2 as Extract<typeof r2, { ok: false }>).problem.kind, 'key');
+  }
 });
 
 test('records no signed checkpoint covers are refused: checkpoints stripped, or invented records added after the last', async () => {
