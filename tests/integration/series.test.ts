@@ -582,3 +582,31 @@ test("exports: a boat name an entrant typed as a formula is never a formula in t
     for (const piece of line.replace(/"(?:[^"]|"")*"/g, 'Q').split(';'))
       assert.doesNotMatch(piece, /^[=+\-@]/, `a ";" spreadsheet would read a formula in ${line}`);
 });
+
+test('a round at a meeting still in draft is not announced on the public series page or standings until the meeting opens', async () => {
+  const [{ id: draftEvent }] = await query<{ id: string }>(
+    `insert into events (organisation_id, name, slug, venue, starts_on, ends_on, time_zone, status)
+     values ($1, $2, $3, 'Test Reach', '2027-05-02', '2027-05-02', 'UTC', 'draft') returning id`,
+    [CLUB, `Unannounced round ${tag}`, `series-${tag}-draft`],
+  );
+  const [{ id: draftClass }] = await query<{ id: string }>(
+    `insert into race_classes (event_id, name, code) values ($1, 'Series class 4', 'SR4') returning id`,
+    [draftEvent],
+  );
+  const link = await secretary.json(`${C()}/rounds`, { classId: draftClass });
+  assert.equal(link.res.status, 201, JSON.stringify(link.body));
+  const anonymous = new HttpSession();
+  const shown = async () => {
+    const series = (await (await anonymous.fetch(S())).json()).data as { classes: { rounds: { eventId: string }[] }[] };
+    const inStandings = (await standings(anonymous)).rounds as unknown as { eventId: string }[];
+    const page = await (await anonymous.fetch(`/series/${seriesId}`)).text();
+    return {
+      api: series.classes.some((c) => c.rounds.some((r) => r.eventId === draftEvent)),
+      standings: inStandings.some((r) => r.eventId === draftEvent),
+      page: page.includes(`Unannounced round ${tag}`),
+    };
+  };
+  assert.deepEqual(await shown(), { api: false, standings: false, page: false }, 'the draft meeting stays unannounced');
+  await query(`update events set status = 'entries_open' where id = $1`, [draftEvent]);
+  assert.deepEqual(await shown(), { api: true, standings: true, page: true }, 'listed once the meeting is open');
+});
