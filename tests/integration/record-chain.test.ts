@@ -143,6 +143,12 @@ test("a meeting's bundle verifies, with its files and a checkpoint signed by the
   );
   assert.equal(Number(stored.n), 1, 'the public key is in the database, the private key is not');
 
+  // The meeting goes on while the bundle is built: a record queued after the checkpoint is linked by the
+  // export but no signature covers it yet, so it waits for the next export (the verifier would refuse it).
+  await query(
+    `insert into audit_events (event_id, actor_id, subject_type, subject_id, action) values ($1, $2, 'entry', $3, 'entry.noted')`,
+    [meeting.eventId, lodger, entry.id],
+  );
   bundle = await buildBundle(c, meeting.eventId, { readFile: async (k) => files.get(k)! });
   const result = await verifyBundle(bundle);
   assert.ok(result.ok, JSON.stringify(result));
@@ -282,6 +288,27 @@ test('a tampered bundle is refused, naming the record where it differs', async (
   }
   assert.equal(status, 1);
   assert.match(stdout, new RegExp(`protest_evidence ${evidence.rowId}`));
+
+  // The meeting's bundle with its checkpoints left out (the one thing a forger cannot remake) is refused even
+  // though its key line is the meeting's own and matches the published fingerprint.
+  const [{ key_fingerprint: published }] = await query<{ key_fingerprint: string }>(
+    'select key_fingerprint from chain_checkpoints where chain_key = $1 limit 1',
+    [meeting.eventId],
+  );
+  const unsigned = path.join(scratch, 'unsigned.jsonl');
+  fs.writeFileSync(unsigned, unparse(lines.filter((l) => l.type !== 'checkpoint')));
+  status = 0;
+  stdout = '';
+  try {
+    execFileSync('node_modules/.bin/tsx', ['scripts/verify-bundle.ts', unsigned, '--key', published], {
+      encoding: 'utf8',
+    });
+  } catch (err) {
+    status = (err as { status: number }).status;
+    stdout = (err as { stdout: string }).stdout;
+  }
+  assert.equal(status, 1, stdout);
+  assert.match(stdout, /NOT VERIFIED \(unsigned, line 1\): the bundle carries no signed checkpoint/);
 });
 
 test('a row changed directly in PostgreSQL, behind a disabled trigger, is found by the self-check', async () => {

@@ -247,7 +247,7 @@ test('points with a dropped round and a tie by count-back; a penalty amends the 
   assert.deepEqual(table(after.after[1].rows), table(before.after[1].rows));
 });
 
-test('season race numbers: unique per series class, one per boat; shown in the standings', async () => {
+test("season race numbers: unique per series class, one per boat, only for a boat entered at the organisations' meetings; shown in the standings", async () => {
   for (const [i, n] of [7, 8, 9, 10].entries()) {
     const r = await secretary.json(`${C()}/race-numbers`, { boatId: boats[i].id, raceNumber: n });
     assert.equal(r.res.status, 201, JSON.stringify(r.body));
@@ -268,6 +268,27 @@ test('season race numbers: unique per series class, one per boat; shown in the s
   const [{ id: spare }] = await query<{ id: string }>(
     `insert into boats (owner_id, name, declared_nozzle_mm, declared_power_kw) values ($1, 'Spare', 101, 200) returning id`,
     [owners[0].id],
+  );
+  // A boat that never entered a meeting of the series' organisations (its id is no secret: standings show
+  // boat ids): a number would put its owner on the class's bulletin mail. Refused with the same answer as a
+  // boat that does not exist.
+  const stranger = await secretary.json(`${C()}/race-numbers`, { boatId: spare, raceNumber: 70 });
+  assert.equal(stranger.res.status, 400, JSON.stringify(stranger.body));
+  assert.equal(stranger.body.error.details[0].field, 'boatId');
+  assert.equal(stranger.body.error.details[0].message, taken.body.error.details[0].message, 'nothing told apart');
+  const [{ id: spareEvent }] = await query<{ id: string }>(
+    `insert into events (organisation_id, name, slug, venue, starts_on, ends_on, time_zone, status)
+     values ($1, $2, $3, 'Test Reach', '2027-04-04', '2027-04-04', 'UTC', 'entries_open') returning id`,
+    [CLUB, `Club day ${tag}`, `series-${tag}-club-day`],
+  );
+  const [{ id: spareClass }] = await query<{ id: string }>(
+    `insert into race_classes (event_id, name, code) values ($1, 'Club', 'CL') returning id`,
+    [spareEvent],
+  );
+  await query(
+    `insert into entries (event_id, class_id, boat_id, entrant_id, race_number, status, fee_minor, currency)
+     values ($1, $2, $3, $4, 99, 'entered', 0, 'NZD')`,
+    [spareEvent, spareClass, spare, owners[0].id],
   );
   const dup = await secretary.json(`${C()}/race-numbers`, { boatId: spare, raceNumber: 7 });
   assert.equal(dup.res.status, 409);
@@ -504,4 +525,88 @@ test('screens: the public series page shows the standings with the tie rule and 
   assert.match(shown, /rules v2 from 2027-03-01/);
   const refused = await outsider.s.fetch(`/series/${seriesId}/classes/${classId}/parity`);
   assert.doesNotMatch(await refused.text(), /Coefficient of variation/);
+});
+
+/** RFC 4180 cells of a CSV text (quoted cells with "" inside; CRLF between records). */
+function csvCells(text: string): string[][] {
+  const rows: string[][] = [[]];
+  let cell = '';
+  let quoted = false;
+  const end = () => {
+    rows.at(-1)!.push(cell);
+    cell = '';
+  };
+  for (let k = 0; k < text.length; k++) {
+    const ch = text[k];
+    if (quoted && ch === '"' && text[k + 1] === '"') {
+      cell += '"';
+      k++;
+    } else if (ch === '"') quoted = !quoted;
+    else if (!quoted && ch === ',') end();
+    else if (!quoted && ch === '\r' && text[k + 1] === '\n') {
+      end();
+      rows.push([]);
+      k++;
+    } else cell += ch;
+  }
+  return rows.filter((r) => r.length);
+}
+
+test("exports: a boat name an entrant typed as a formula is never a formula in the governing body's spreadsheet", async () => {
+  // An entrant controls their boat's name, and the standings export carries it to the series' officials.
+  // OWASP ASVS 5.0 requirement 1.2.10 (a cell beginning with = + - @ tab or NUL gets a leading apostrophe)
+  // and OWASP "CSV Injection" (from memory: a cell must not begin with one of these after a field separator
+  // either, such as ";" where a spreadsheet splits on it): the hostile names stay one text cell each.
+  const names = ["@SUM(1+1)*cmd|' /C calc'!A0", "Gale;=1+cmd|' /C calc'!A0"];
+  for (const [i, name] of names.entries()) {
+    const renamed = await owners[i].s.json(`/api/boats/${boats[i].id}`, { name }, 'PATCH');
+    assert.equal(renamed.res.status, 200, JSON.stringify(renamed.body));
+  }
+  const res = await secretary.fetch(`${S()}/exports/standings.csv`);
+  assert.equal(res.status, 200);
+  const text = await res.text();
+  const cells = csvCells(text);
+  const boatColumn = cells[0].indexOf('boat');
+  assert.deepEqual(
+    cells
+      .slice(1)
+      .map((r) => r[boatColumn])
+      .filter((b) => names.some((n) => b.endsWith(n)))
+      .sort(),
+    ["'@SUM(1+1)*cmd|' /C calc'!A0", "Gale;=1+cmd|' /C calc'!A0"],
+  );
+  assert.ok(text.includes(`,"Gale;=1+cmd|' /C calc'!A0",`), 'the cell with a semicolon is quoted');
+  for (const row of cells) for (const c of row) assert.doesNotMatch(c, /^[=+\-@\t\r]/, `formula cell ${c}`);
+  // Split where a spreadsheet set to ";" would split: no piece outside quotes begins a formula.
+  for (const line of text.split('\r\n'))
+    for (const piece of line.replace(/"(?:[^"]|"")*"/g, 'Q').split(';'))
+      assert.doesNotMatch(piece, /^[=+\-@]/, `a ";" spreadsheet would read a formula in ${line}`);
+});
+
+test('a round at a meeting still in draft is not announced on the public series page or standings until the meeting opens', async () => {
+  const [{ id: draftEvent }] = await query<{ id: string }>(
+    `insert into events (organisation_id, name, slug, venue, starts_on, ends_on, time_zone, status)
+     values ($1, $2, $3, 'Test Reach', '2027-05-02', '2027-05-02', 'UTC', 'draft') returning id`,
+    [CLUB, `Unannounced round ${tag}`, `series-${tag}-draft`],
+  );
+  const [{ id: draftClass }] = await query<{ id: string }>(
+    `insert into race_classes (event_id, name, code) values ($1, 'Series class 4', 'SR4') returning id`,
+    [draftEvent],
+  );
+  const link = await secretary.json(`${C()}/rounds`, { classId: draftClass });
+  assert.equal(link.res.status, 201, JSON.stringify(link.body));
+  const anonymous = new HttpSession();
+  const shown = async () => {
+    const series = (await (await anonymous.fetch(S())).json()).data as { classes: { rounds: { eventId: string }[] }[] };
+    const inStandings = (await standings(anonymous)).rounds as unknown as { eventId: string }[];
+    const page = await (await anonymous.fetch(`/series/${seriesId}`)).text();
+    return {
+      api: series.classes.some((c) => c.rounds.some((r) => r.eventId === draftEvent)),
+      standings: inStandings.some((r) => r.eventId === draftEvent),
+      page: page.includes(`Unannounced round ${tag}`),
+    };
+  };
+  assert.deepEqual(await shown(), { api: false, standings: false, page: false }, 'the draft meeting stays unannounced');
+  await query(`update events set status = 'entries_open' where id = $1`, [draftEvent]);
+  assert.deepEqual(await shown(), { api: true, standings: true, page: true }, 'listed once the meeting is open');
 });

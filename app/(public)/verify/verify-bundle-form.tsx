@@ -14,7 +14,7 @@ export function VerifyBundleForm() {
   function check(bundle: string, expected: string) {
     setBusy(true);
     setError(null);
-    verifyBundle(bundle, { expectedFingerprint: expected || null })
+    verifyBundle(bundle, { expectedFingerprint: expected.trim() || null })
       .then(setResult)
       .catch((err: Error) => setError(`The bundle could not be checked here: ${err.message}`))
       .finally(() => setBusy(false));
@@ -87,7 +87,7 @@ export function VerifyBundleForm() {
             {result.checkpoints.length} signed checkpoints.
           </p>
           <p className="text-sm">
-            {fingerprint
+            {fingerprint.trim()
               ? 'Signed with the published key:'
               : 'Compare the key’s fingerprint with the one printed on the meeting’s published pages:'}
           </p>

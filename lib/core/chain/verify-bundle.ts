@@ -25,7 +25,8 @@ export type ChainProblem = {
     | 'file-hash'
     | 'key'
     | 'checkpoint-head'
-    | 'signature';
+    | 'signature'
+    | 'unsigned';
   /** 1-based line of the bundle. */
   line: number;
   /** The record named (for a checkpoint: the record at its head). */
@@ -56,7 +57,8 @@ function describe(r: ChainRecord): string {
  * A bundle carries its own public key, so on its own it proves only that it is consistent with that key: someone
  * who rewrites the records can sign them again with a key of their own. `expectedFingerprint` (the key
  * fingerprint printed on the meeting's published pages and PDFs) closes that: a bundle whose key is another is
- * refused as a `key` problem.
+ * refused as a `key` problem. Every record must stand under a signed checkpoint (`unsigned` otherwise): hashes
+ * and links anyone can recompute, so records no signature covers prove nothing.
  */
 export async function verifyBundle(
   text: string,
@@ -110,8 +112,12 @@ export async function verifyBundle(
   }
   const fingerprint = await keyFingerprint(spki);
   if (fingerprint !== key.fingerprint) return fail('key', 1, 'the public key does not match its fingerprint');
-  const expected = opts.expectedFingerprint?.trim().toLowerCase().replace(/[\s:]/g, '');
-  if (expected && expected !== fingerprint)
+  // A fingerprint given but empty once its separators are gone (" ", ":::") must not pass as "checked".
+  const given = opts.expectedFingerprint?.trim() ?? '';
+  const expected = given.toLowerCase().replace(/[\s:]/g, '');
+  if (given && !HEX64.test(expected))
+    return fail('key', 1, `the published fingerprint given (${given}) is not 64 hexadecimal digits (a SHA-256)`);
+  if (given && expected !== fingerprint)
     return fail(
       'key',
       1,
@@ -122,9 +128,11 @@ export async function verifyBundle(
   if (!chain.ok) return chain;
 
   for (const { line, c } of checkpoints) {
-    const head = records[c.count - 1]?.r;
+    const head = Number.isInteger(c.count) && c.count > 0 ? records[c.count - 1]?.r : undefined;
     const named = head ? { seq: head.seq, table: head.table, rowId: head.rowId } : undefined;
-    if (c.chain !== header.chain || !head || head.linkHash !== c.head)
+    // A checkpoint of an empty chain (count 0) signs the genesis hash: a meeting with nothing chained yet.
+    const matches = c.count === 0 ? c.head === GENESIS_HASH : !!head && head.linkHash === c.head;
+    if (c.chain !== header.chain || !matches)
       return fail(
         'checkpoint-head',
         line,
@@ -143,9 +151,30 @@ export async function verifyBundle(
       return fail(
         'signature',
         line,
-        `the signature of the checkpoint of ${c.signedAt} at ${describe(head)} is not the meeting key's`,
+        `the signature of the checkpoint of ${c.signedAt} at ${head ? describe(head) : 'the start of the chain'} is not the meeting key's`,
         named,
       );
+  }
+
+  // Only a signature binds the records to the meeting's key: hashes and links anyone can recompute. So every
+  // record must stand under a signed checkpoint (an export signs one at its head first). Without this, a
+  // bundle stripped of its checkpoints, or with invented records added after the last one, would verify
+  // even against the published fingerprint.
+  const signed = checkpoints.reduce((n, { c }) => Math.max(n, c.count), -1);
+  if (signed < 0)
+    return fail(
+      'unsigned',
+      1,
+      'the bundle carries no signed checkpoint, so nothing in it is signed by the meeting key',
+    );
+  if (signed < records.length) {
+    const { line, r } = records[signed];
+    return fail(
+      'unsigned',
+      line,
+      `${describe(r)} and every record after it (${records.length - signed} in all) are not covered by any signed checkpoint`,
+      { seq: r.seq, table: r.table, rowId: r.rowId },
+    );
   }
 
   return {

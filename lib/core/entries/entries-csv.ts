@@ -27,11 +27,18 @@ const COLUMNS: [keyof EventEntryRow, string][] = [
   ['paidAt', 'paid_at'],
 ];
 
+/**
+ * One CSV cell (RFC 4180 quoting). A text cell a spreadsheet would read as a formula (first character = + - @,
+ * tab, carriage return or NUL: OWASP ASVS 5.0 requirement 1.2.10) gets a leading apostrophe. A cell holding a
+ * semicolon or tab is quoted too: a spreadsheet set to split on those (Excel where the list separator is ";")
+ * would otherwise start a new cell inside the value, with the formula character first (OWASP "CSV Injection",
+ * from memory: take care of the field separator, not only of the first character).
+ */
 export function csvCell(value: unknown): string {
   if (value === null || value === undefined) return '';
   let s = String(value);
-  if (typeof value === 'string' && /^[=+\-@\t\r]/.test(s)) s = `'${s}`;
-  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+  if (typeof value === 'string' && /^[=+\-@\t\r\0]/.test(s)) s = `'${s}`;
+  return /[",;\t\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 }
 
 export function entriesToCsv(rows: EventEntryRow[]): string {

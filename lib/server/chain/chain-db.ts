@@ -319,8 +319,11 @@ function inCaseFile(r: ChainRecord, protestId: string, items: Set<string>, inspe
 
 /**
  * The export bundle of a meeting's chain (bundle-format.ts), or one protest's case file: every link of
- * the meeting, with rows only for the protest's records (the others' links still chain). Files the rows
- * name are read with `readFile` (object storage in the app).
+ * the meeting up to its newest signed checkpoint, with rows only for the protest's records (the others'
+ * links still chain). The verifier refuses records no checkpoint covers, so a record linked after that
+ * checkpoint (the meeting goes on while the bundle is built) waits for the next export, and a checkpoint
+ * signed after the records were read is left out. Files the rows name are read with `readFile` (object
+ * storage in the app).
  */
 export async function buildBundle(
   client: Sql,
@@ -329,6 +332,13 @@ export async function buildBundle(
 ): Promise<string> {
   await linkChain(client, chainKey, 100_000);
   let records = await chainRecords(client, chainKey);
+  const { rows: checkpoints } = await client.query(
+    `select chain_key as chain, count::int as count, head, reason, signed_at as "signedAt",
+            key_fingerprint as "keyFingerprint", signature
+       from chain_checkpoints where chain_key = $1 and count <= $2 order by id`,
+    [chainKey, records.length],
+  );
+  records = records.slice(0, Math.max(0, ...checkpoints.map((c) => c.count as number)));
   if (opts.protestId) {
     const protestId = opts.protestId;
     const items = new Set(
@@ -345,12 +355,6 @@ export async function buildBundle(
     await client.query('select public_key_spki as spki, fingerprint from chain_keys where chain_key = $1', [chainKey])
   ).rows as Array<{ spki: Buffer; fingerprint: string }>;
   if (!key) throw new Error(`chain ${chainKey} has no key yet: sign a checkpoint first`);
-  const { rows: checkpoints } = await client.query(
-    `select chain_key as chain, count::int as count, head, reason, signed_at as "signedAt",
-            key_fingerprint as "keyFingerprint", signature
-       from chain_checkpoints where chain_key = $1 order by id`,
-    [chainKey],
-  );
   const lines: BundleLine[] = [
     {
       type: 'bundle',

@@ -19,7 +19,10 @@ export type SeriesView = {
   }[];
 };
 
-/** A series with its classes, their rounds and rule versions (public: the season's calendar and rules). */
+/**
+ * A series with its classes, their rounds and rule versions (public: the season's calendar and rules). A round
+ * at a meeting still in draft is left out until its organiser opens the meeting: a draft is not announced.
+ */
 export async function getSeries(seriesId: string): Promise<SeriesView> {
   const [row] = await getDb().sequelize.query<SeriesView>(
     `select s.id, s.name, s.season,
@@ -32,7 +35,7 @@ export async function getSeries(seriesId: string): Promise<SeriesView> {
                         'rounds', coalesce((select json_agg(json_build_object('classId', rc.id, 'eventId', ev.id,
                                     'eventName', ev.name, 'startsOn', ev.starts_on) order by ev.starts_on, ev.name)
                                    from race_classes rc join events ev on ev.id = rc.event_id
-                                  where rc.series_class_id = c.id), '[]'),
+                                  where rc.series_class_id = c.id and ev.status <> 'draft'), '[]'),
                         'ruleVersions', coalesce((select json_agg(json_build_object('version', v.version,
                                     'effectiveFrom', v.effective_from, 'changeNote', v.change_note) order by v.version)
                                    from series_rule_versions v where v.series_class_id = c.id), '[]'))

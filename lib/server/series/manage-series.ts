@@ -135,7 +135,11 @@ export async function linkRound(
   });
 }
 
-/** A season race number for a boat, unique in the series class; one number per boat. */
+/**
+ * A season race number for a boat, unique in the series class; one number per boat. Only a boat entered at a
+ * meeting of one of the series' organisations: its owner then receives the class's bulletins, so a number
+ * must not put a stranger's boat (any boat id seen on a public page) on the series' mailing list.
+ */
 export async function assignRaceNumber(
   actor: Actor | null,
   seriesId: string,
@@ -146,11 +150,13 @@ export async function assignRaceNumber(
   const input = AssignRaceNumberInput.parse(await readInput());
   await findSeriesClass(seriesId, seriesClassId);
   const { sequelize } = getDb();
-  const [boat] = await sequelize.query(`select 1 from boats where id = :boatId`, {
-    replacements: input,
-    type: QueryTypes.SELECT,
-  });
-  if (!boat) throw fieldError('boatId', 'No such boat.');
+  const [boat] = await sequelize.query(
+    `select 1 from entries e join events ev on ev.id = e.event_id
+       join series_organisations so on so.organisation_id = ev.organisation_id and so.series_id = :seriesId
+      where e.boat_id = :boatId and e.status in ('awaiting_payment', 'entered') limit 1`,
+    { replacements: { seriesId, boatId: input.boatId }, type: QueryTypes.SELECT },
+  );
+  if (!boat) throw fieldError('boatId', "Choose a boat entered at a meeting of one of the series' organisations.");
   try {
     const [row] = await sequelize.query<{ id: string }>(
       `insert into series_race_numbers (series_class_id, boat_id, race_number, assigned_by_id)

@@ -26,7 +26,7 @@ export async function loadParityHistory(
   assertCan(actor, 'series.parity_view', { seriesId });
   const cls = await findSeriesClass(seriesId, seriesClassId);
   const { sequelize } = getDb();
-  const rounds = await listRounds(seriesClassId);
+  const rounds = await listRounds(seriesClassId, { withDrafts: true });
   const classIds = rounds.map((r) => r.classId);
   const [reports, changes] = await Promise.all([
     classIds.length

@@ -45,14 +45,17 @@ export type RoundRow = {
   classCode: string;
 };
 
-/** The rounds of a series class: the meetings' classes that follow it, in date order. */
-export async function listRounds(seriesClassId: string, transaction?: Transaction): Promise<RoundRow[]> {
+/**
+ * The rounds of a series class: the meetings' classes that follow it, in date order. A meeting still in
+ * draft is not announced yet: it is left out unless `withDrafts` (the series' officials' own views).
+ */
+export async function listRounds(seriesClassId: string, opts: { withDrafts?: boolean } = {}): Promise<RoundRow[]> {
   return getDb().sequelize.query<RoundRow>(
     `select rc.id as "classId", ev.id as "eventId", ev.name as "eventName", ev.starts_on::text as "startsOn",
             rc.code as "classCode"
        from race_classes rc join events ev on ev.id = rc.event_id
-      where rc.series_class_id = :seriesClassId
+      where rc.series_class_id = :seriesClassId and (:withDrafts or ev.status <> 'draft')
       order by ev.starts_on, ev.name, rc.id`,
-    { replacements: { seriesClassId }, type: QueryTypes.SELECT, transaction },
+    { replacements: { seriesClassId, withDrafts: !!opts.withDrafts }, type: QueryTypes.SELECT },
   );
 }

@@ -94,4 +94,65 @@ test('with the published key fingerprint, a bundle re-signed whole with another 
   const typed = published.toUpperCase().match(/.{2}/g)!.join(':');
   const ok = await verifyBundle(bundleText(genuine), { expectedFingerprint: typed });
   assert.ok(ok.ok, JSON.stringify(ok));
+  // A fingerprint of separators only, or cut short, is no fingerprint: refused rather than taken as checked.
+  for (const bad of [':'.repeat(64), published.slice(0, 63)]) {
+    const r2 = await verifyBundle(bundleText(forged), { expectedFingerprint: bad });
+    assert.equal(r2.ok, false, bad);
+    assert.equal((r2 as Extract<typeof r2, { ok: false }>).problem.kind, 'key');
+  }
+});
+
+test('records no signed checkpoint covers are refused: checkpoints stripped, or invented records added after the last', async () => {
+  const { lines } = makeBundle();
+  const published = (lines.find((l) => l.type === 'key') as unknown as { fingerprint: string }).fingerprint;
+  // A forger keeps the genuine key line (so the published fingerprint matches), rewrites record 2, recomputes
+  // every hash and link after it (anyone can: SHA-256 needs no key) and leaves out the checkpoint they cannot sign.
+  const forged = structuredClone(lines).filter((l) => l.type !== 'checkpoint');
+  let prev = '0'.repeat(64);
+  for (const r of forged.filter((l) => l.type === 'record')) {
+    if (r.seq === 2) (r.row as Record<string, unknown>).overall_result = 'does_not_conform';
+    r.prevHash = prev;
+    r.rowHash = createHash('sha256')
+      .update(canonicalJson({ row: r.row, table: r.table }))
+      .digest('hex');
+    r.linkHash = createHash('sha256')
+      .update(Buffer.concat([Buffer.from(prev, 'hex'), Buffer.from(String(r.rowHash), 'hex')]))
+      .digest('hex');
+    prev = String(r.linkHash);
+  }
+  const r = await verifyBundle(bundleText(forged), { expectedFingerprint: published });
+  assert.equal(r.ok, false, 'a bundle with no signature must not verify against the published key');
+  assert.equal((r as Extract<typeof r, { ok: false }>).problem.kind, 'unsigned');
+
+  // The genuine bundle with a record added after the checkpoint (hashed and linked correctly): the first
+  // record the signature does not cover is named.
+  const last = lines.filter((l) => l.type === 'record').at(-1)!;
+  const row = { id: 'insp-7', overall_result: 'conforms', measurements: { nozzleMm: [99.1] } };
+  const rowHash = createHash('sha256')
+    .update(canonicalJson({ row, table: 'inspections' }))
+    .digest('hex');
+  const linkHash = createHash('sha256')
+    .update(Buffer.concat([Buffer.from(String(last.linkHash), 'hex'), Buffer.from(rowHash, 'hex')]))
+    .digest('hex');
+  const added = [...lines];
+  added.splice(recordAt(lines, 6) + 1, 0, {
+    type: 'record',
+    seq: 7,
+    table: 'inspections',
+    rowId: 'insp-7',
+    prevHash: last.linkHash,
+    rowHash,
+    linkHash,
+    linkedAt: '2027-05-01T09:40:00.000Z',
+    row,
+  });
+  const p = await problem(added);
+  assert.deepEqual([p.kind, p.record?.seq], ['unsigned', 7]);
+  assert.match(p.message, /not covered by any signed checkpoint/);
+});
+
+test("a meeting with nothing chained yet: its export's checkpoint of zero records (the genesis hash) verifies", async () => {
+  const r = await verifyBundle(bundleText(makeBundle({ rows: 0 }).lines));
+  assert.ok(r.ok, JSON.stringify(r));
+  assert.equal(r.records, 0);
 });
