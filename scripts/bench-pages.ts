@@ -160,27 +160,28 @@ async function main() {
   let pages = await setUp();
   await waitForBrotli();
   if (ONLY) pages = pages.filter((p) => ONLY.includes(p.name.replace(/ /g, '-')) || ONLY.includes(p.name));
-  const chrome = await chromeLauncher.launch({
-    chromePath: process.env.CHROME_PATH ?? '/usr/bin/chromium',
-    chromeFlags: ['--headless=new', '--no-sandbox', '--disable-gpu', '--no-first-run', '--disable-sync'],
-  });
   const rows: { page: Page; f: Figures }[] = [];
-  try {
-    // One warm-up load per page: the server's first render of a route compiles and caches it; a phone
-    // that meets a running server never sees that.
-    for (const page of pages)
-      await fetch(`${BASE}${page.path}`, { headers: page.cookie ? { cookie: page.cookie } : {} });
-    for (const page of pages) {
-      const runs: Figures[] = [];
-      for (let i = 1; i <= RUNS; i++) {
+  // One warm-up load per page: the server's first render of a route compiles and caches it; a phone
+  // that meets a running server never sees that.
+  for (const page of pages) await fetch(`${BASE}${page.path}`, { headers: page.cookie ? { cookie: page.cookie } : {} });
+  for (const page of pages) {
+    const runs: Figures[] = [];
+    for (let i = 1; i <= RUNS; i++) {
+      // A new browser profile for every run: Lighthouse's reset between runs keeps cookies, and a cookie a
+      // signed-in page set in one run (the session, renewed) stood beside the given one in the next.
+      const chrome = await chromeLauncher.launch({
+        chromePath: process.env.CHROME_PATH ?? '/usr/bin/chromium',
+        chromeFlags: ['--headless=new', '--no-sandbox', '--disable-gpu', '--no-first-run', '--disable-sync'],
+      });
+      try {
         runs.push(await measureWithRetry(chrome.port, page, i));
-        console.error(`${page.name} run ${i}: ${JSON.stringify(runs.at(-1))}`);
+      } finally {
+        chrome.kill();
       }
-      const keys = Object.keys(runs[0]) as (keyof Figures)[];
-      rows.push({ page, f: Object.fromEntries(keys.map((k) => [k, median(runs.map((r) => r[k]))])) as Figures });
+      console.error(`${page.name} run ${i}: ${JSON.stringify(runs.at(-1))}`);
     }
-  } finally {
-    chrome.kill();
+    const keys = Object.keys(runs[0]) as (keyof Figures)[];
+    rows.push({ page, f: Object.fromEntries(keys.map((k) => [k, median(runs.map((r) => r[k]))])) as Figures });
   }
 
   const mark = (ok: boolean) => (ok ? 'PASS' : 'MISS');
