@@ -23,6 +23,17 @@ export default defineConfig([
     },
   },
   {
+    // Links come from components/link.tsx, which does not prefetch every linked page in view (DEVELOPERS.md).
+    files: ['app/**/*.{ts,tsx}', 'components/**/*.{ts,tsx}'],
+    ignores: ['components/link.tsx'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        { paths: [{ name: 'next/link', message: "Import Link from '@/components/link' (no background prefetch)." }] },
+      ],
+    },
+  },
+  {
     // Migrations, seeders and sequelize-cli's settings are CommonJS, as sequelize-cli loads them.
     files: ['migrations/**/*.js', 'seeders/**/*.js', '**/*.cjs'],
     languageOptions: { sourceType: 'commonjs' },

@@ -1,6 +1,6 @@
 'use client';
 
-import Link from 'next/link';
+import Link from '@/components/link';
 import { CardPage } from '@/components/card-page';
 
 // Shown when a page outside the signed-in sections fails, or the signed-in shell itself does:

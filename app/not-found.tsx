@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { CardPage } from '@/components/card-page';
 
 export const metadata: Metadata = { title: 'Page not found', robots: { index: false, follow: false } };

@@ -1,4 +1,4 @@
-import Link from 'next/link';
+import Link from '@/components/link';
 import { BrandMark, BrandName } from '@/components/brand-mark';
 
 /**

@@ -1,4 +1,4 @@
-import Link from 'next/link';
+import Link from '@/components/link';
 import { checkpointLines } from '@/lib/core/chain/checkpoint-lines';
 import type { Checkpoint } from '@/lib/core/chain/bundle-format';
 

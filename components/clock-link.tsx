@@ -1,4 +1,4 @@
-import Link from 'next/link';
+import Link from '@/components/link';
 
 /** The parity report's pointer to its time view: predicted runs, the clock, and balance levers in seconds. */
 export function ClockLink({ eventId, classId }: { eventId: string; classId: string }) {

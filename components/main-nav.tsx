@@ -1,6 +1,6 @@
 'use client';
 
-import Link from 'next/link';
+import Link from '@/components/link';
 import { usePathname } from 'next/navigation';
 
 export type MainNavItem = { href: string; label: string };
@@ -19,11 +19,10 @@ export function MainNav({ items }: { items: MainNavItem[] }) {
           const current = isCurrent(item.href);
           return (
             <li key={item.href} className="min-w-0">
-              {/* No prefetch on load: on one bar of signal a dozen background page fetches compete with the
-                  page being used (Next still prefetches a link when it is hovered or touched). */}
+              {/* No prefetch (components/link.tsx): on one bar of signal a dozen background page fetches
+                  compete with the page being used. */}
               <Link
                 href={item.href}
-                prefetch={false}
                 aria-current={current ? 'page' : undefined}
                 className={`flex min-h-[44px] items-center rounded-lg px-3 font-bold sm:min-h-touch no-underline sm:whitespace-nowrap sm:rounded-b-none sm:rounded-t-lg sm:px-4 ${
                   current

@@ -1,4 +1,4 @@
-import Link from 'next/link';
+import Link from '@/components/link';
 
 // What a section of the signed-in area shows in place of its page: while it loads, when what the
 // address names does not exist, and when it failed. Inside the area's layout (which has the <main>),

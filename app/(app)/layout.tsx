@@ -1,4 +1,4 @@
-import Link from 'next/link';
+import Link from '@/components/link';
 import { redirect } from 'next/navigation';
 import { getActor, allRolesOf } from '@/lib/server/auth/actor';
 import { navFor } from '@/lib/core/navigation';

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { BrandMark } from '@/components/brand-mark';
 
 export const metadata: Metadata = { title: 'Not allowed' };

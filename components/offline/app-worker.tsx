@@ -1,7 +1,7 @@
 'use client';
 
 import { useEffect, useState } from 'react';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { usePathname } from 'next/navigation';
 import { WORKER_SCOPE, WORKER_URL, type WorkerMessage } from './worker-protocol';
 

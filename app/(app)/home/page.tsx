@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { format, parseISO } from 'date-fns';
 import { getActor } from '@/lib/server/auth/actor';
 import { listMyBoats } from '@/lib/server/boats/list-my-boats';

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { SignInForm } from './sign-in-form';
 import { safeRedirectPath } from '@/lib/core/safe-redirect';
 import { appOrigin } from '@/lib/server/config/env';

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { SignUpForm } from './sign-up-form';
 
 export const metadata: Metadata = { title: 'Create an account' };

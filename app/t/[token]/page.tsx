@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { format, parseISO } from 'date-fns';
 import { redirect } from 'next/navigation';
 import { CardPage } from '@/components/card-page';

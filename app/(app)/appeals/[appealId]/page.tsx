@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { PENALTY_KIND_LABELS } from '@/lib/core/penalties/penalty-kinds';
 import { AppealCaution } from '../appeal-caution';
 import { openAppeal } from './access';

@@ -1,4 +1,4 @@
-import Link from 'next/link';
+import Link from '@/components/link';
 
 // Another person's boat reads exactly like a missing one.
 export default function BoatNotFound() {

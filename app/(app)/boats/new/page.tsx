@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { BoatForm } from '../boat-form';
 
 export const metadata: Metadata = { title: 'Register a boat' };

@@ -1,7 +1,7 @@
 'use client';
 
 import { useCallback, useEffect, useEffectEvent, useRef, useState, useSyncExternalStore } from 'react';
-import Link from 'next/link';
+import Link from '@/components/link';
 import dynamic from 'next/dynamic';
 import { parseTagScan } from '@/lib/core/tags/parse-tag-scan';
 import { requestJson } from '@/components/forms/request-json';

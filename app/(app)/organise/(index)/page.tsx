@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import { format, parseISO } from 'date-fns';
 import { listOrganisedMeetings } from '@/lib/server/events/list-organised-meetings';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { InviteStaffForm } from '../invite-staff-form';
 import { openOrganise } from './access';
 

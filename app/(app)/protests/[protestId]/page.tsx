@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { formatMoney } from '@/lib/core/inputs/entries';
 
 import { PaymentWaiter } from '../../entries/payment-waiter';

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { redirect } from 'next/navigation';
 import { getActor } from '@/lib/server/auth/actor';
 import { listMySeries } from '@/lib/server/series/list-my-series';

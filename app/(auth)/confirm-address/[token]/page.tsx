@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { findAddressProof } from '@/lib/server/accounts/prove-address';
 import { ConfirmAddressForm } from './confirm-address-form';
 

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { findInvitation } from '@/lib/server/auth/invitations';
 import { AcceptInvitation } from './accept-invitation';
 

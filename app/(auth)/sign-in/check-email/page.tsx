@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { serverEnv } from '@/lib/server/config/env';
 
 export const metadata: Metadata = { title: 'Check your e-mail' };

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { can } from '@/lib/server/auth/actor';
 import { listInstruments } from '@/lib/server/inspections/list-instruments';
 import { openDock } from '../access';

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { openIncidents } from '../access';
 import { loadIncidentsPage } from '@/lib/server/incidents/load-incidents-page';
 import { formatTime } from '@/lib/core/format/time';

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { openInstruments } from '../access';
 import { listAllInstruments } from '@/lib/server/inspections/list-instruments';
 import { canManageInstruments } from '@/lib/server/inspections/manage-instruments-access';

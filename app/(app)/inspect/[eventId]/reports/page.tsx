@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { getReportDesk } from '@/lib/server/penalties/technical-reports';
 import { GOVERNING_BODY_CAUTION } from '@/lib/core/penalties/penalty-kinds';
 import { formatInZone } from '@/lib/core/protests/protest-window';

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { openSeals } from '../access';
 import { listSealBatches } from '@/lib/server/seals/list-seal-batches';
 import { listSeals, loadSealHistory } from '@/lib/server/seals/seal-register';

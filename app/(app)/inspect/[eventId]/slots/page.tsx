@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { openSlots } from '../access';
 import { loadSlotPlanner } from '@/lib/server/schedule/slot-planner';
 import { formatTime } from '@/lib/core/format/time';

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { can } from '@/lib/server/auth/actor';
 import { loadStartList } from '@/lib/server/start-list/start-list';
 import { formatCalendarDate, formatTime } from '@/lib/core/format/time';

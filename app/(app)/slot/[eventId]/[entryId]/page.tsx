@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { getEntrySlot } from '@/lib/server/schedule/book-slot';
 import { formatTime } from '@/lib/core/format/time';
 import { openSlotPage } from './access';

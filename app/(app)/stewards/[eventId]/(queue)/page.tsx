@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { openQueue } from '../access';
 import { listStewardQueue } from '@/lib/server/protests/list-steward-queue';
 import { formatMoney } from '@/lib/core/inputs/entries';

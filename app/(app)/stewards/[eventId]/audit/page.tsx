@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { openAudit } from '../access';
 import { AuditQuery, listAuditEvents } from '@/lib/server/audit/list-audit-events';
 import { AUDIT_KINDS, AUDIT_KIND_LABELS, type AuditKind } from '@/lib/core/audit/describe-audit-event';

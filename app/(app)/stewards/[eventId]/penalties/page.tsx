@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { getPenaltyDesk } from '@/lib/server/penalties/penalty-desk';
 import { GOVERNING_BODY_CAUTION, PENALTY_KIND_LABELS } from '@/lib/core/penalties/penalty-kinds';
 import { formatInZone } from '@/lib/core/protests/protest-window';

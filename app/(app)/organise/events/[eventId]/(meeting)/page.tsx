@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { getEventForOrganiser } from '@/lib/server/events/save-event';
 import { listEventClasses, listCopyableClasses } from '@/lib/server/classes/manage-classes';
 import { openMeeting } from '../access';

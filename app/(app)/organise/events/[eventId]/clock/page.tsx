@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { AppError } from '@/lib/core/errors';
 import { gatherClockSection, type ClockSectionView } from '@/lib/server/timing/gather-clock-section';
 import { listRunTimes } from '@/lib/server/timing/list-run-times';

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { listPenaltyCatalogue } from '@/lib/server/penalties/penalty-catalogue';
 import { GOVERNING_BODY_CAUTION, PENALTY_AMOUNT_UNITS, PENALTY_KIND_LABELS } from '@/lib/core/penalties/penalty-kinds';
 import { SafetyNote } from '@/components/safety-note';

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { listProvisionalResults } from '@/lib/server/results/list-provisional-results';
 import { SafetyNote } from '@/components/safety-note';
 import { GOVERNING_BODY_CAUTION } from '@/lib/core/penalties/penalty-kinds';

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { listRunTimes } from '@/lib/server/timing/list-run-times';
 import { SafetyNote } from '@/components/safety-note';
 import { figureValue } from '@/lib/core/format/figures';

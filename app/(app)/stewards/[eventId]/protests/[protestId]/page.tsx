@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { can } from '@/lib/server/auth/actor';
 import { DecisionCaution, ProtestStatusBadge } from '../../../../protests/protest-badges';
 import { EvidenceList } from '../../../../protests/evidence-list';

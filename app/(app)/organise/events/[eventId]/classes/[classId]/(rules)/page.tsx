@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import Link from '@/components/link';
 import { formatTime } from '@/lib/core/format/time';
 import { diffRules, ruleLabel } from '@/lib/core/classes/diff-rules';
 import { SafetyNote } from '@/components/safety-note';
