@@ -24,6 +24,8 @@ test('a pipelined transaction commits together, rolls back together, and leaves 
   assert.deepEqual(out.afterSecondFails, [1], 'the insert of 2 before the failure was rolled back');
   assert.deepEqual(out.firstFails, { code: '23505' }, 'not 25P02, the refusal of the statement after it');
   assert.deepEqual(out.afterFirstFails, [1], 'the statement after the failure was not run');
+  assert.deepEqual(out.unbound, { code: null }, 'a missing value is refused before anything reaches PostgreSQL');
+  assert.equal(out.outside, true, 'and no transaction was left open on the connection');
   assert.deepEqual(out.again, [[{ id: 4 }], [{ n: 2 }]]);
   assert.deepEqual(out.plainQueryAfter, { one: 1 });
 });

@@ -40,10 +40,29 @@ async function main() {
     const afterSecondFails = await ids();
     const firstFails = await failure([insert(1), insert(3)]);
     const afterFirstFails = await ids();
+    // A statement without one of its values is refused before anything is sent: no BEGIN is left open on the
+    // pooled connection (inside a transaction block, now() is the block's start, not this statement's).
+    const unbound = await failure([{ ...insert(5), values: {} }]);
+    const [{ outside }] = await sequelize.query<{ outside: boolean }>(
+      'select now() = statement_timestamp() as outside',
+      {
+        type: QueryTypes.SELECT,
+      },
+    );
     const again = await preparedPipeline([insert(4), count]);
     const plainQueryAfter = (await sequelize.query('select 1 as one', { type: QueryTypes.SELECT }))[0];
     console.log(
-      JSON.stringify({ first, secondFails, afterSecondFails, firstFails, afterFirstFails, again, plainQueryAfter }),
+      JSON.stringify({
+        first,
+        secondFails,
+        afterSecondFails,
+        firstFails,
+        afterFirstFails,
+        unbound,
+        outside,
+        again,
+        plainQueryAfter,
+      }),
     );
   } finally {
     await sequelize.query(`drop table if exists ${table}`);

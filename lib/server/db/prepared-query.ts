@@ -84,6 +84,9 @@ type PipelinedClient = pg.Client & { pipeline: boolean; connection: { stream: { 
  * Returns each statement's rows; throws the first failure, carried as the driver's error (asDriverError).
  */
 export async function preparedPipeline(steps: PipelinedStep[]): Promise<unknown[][]> {
+  // Every statement is bound before anything is sent: a missing value must not leave a BEGIN on the wire
+  // with no COMMIT behind it, on a connection that goes back to the pool.
+  const queries = steps.map((s) => bound(s.name, s.sql, s.values));
   const pool = getDb().sequelize.connectionManager as unknown as Pool;
   const client = (await pool.getConnection({ type: 'write', useMaster: true })) as PipelinedClient;
   const stream = client.connection.stream;
@@ -92,11 +95,7 @@ export async function preparedPipeline(steps: PipelinedStep[]): Promise<unknown[
     stream.cork();
     let sent: Promise<pg.QueryResult>[];
     try {
-      sent = [
-        client.query('begin'),
-        ...steps.map((s) => client.query(bound(s.name, s.sql, s.values))),
-        client.query('commit'),
-      ];
+      sent = [client.query('begin'), ...queries.map((q) => client.query(q)), client.query('commit')];
     } finally {
       stream.uncork();
     }
