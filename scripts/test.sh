@@ -140,7 +140,7 @@ if [ $needs_app = 1 ]; then
     { env -u DATABASE_URL npx next build && node scripts/build-sw.mjs; } >"$RUN/build.log" 2>&1 || { cat "$RUN/build.log"; exit 1; }
   fi
   stop_pidfile "$RUN/app.pid"; free_port "$PORT"
-  setsid node ${BENCH_NODE_FLAGS:-} scripts/server.mjs >"$RUN/app.log" 2>&1 9>&- &
+  setsid node scripts/server.mjs >"$RUN/app.log" 2>&1 9>&- &
   echo $! >"$RUN/app.pid"; disown  # the crash tests may SIGKILL it: no "Killed" notice from this shell
   # The crash tests SIGKILL the app and start it again: where its pid and log live.
   export BORELINE_APP_PIDFILE="$RUN/app.pid" BORELINE_APP_LOG="$RUN/app.log"
