@@ -13,7 +13,6 @@ import { formatInZone } from '@/lib/core/protests/protest-window';
 import { listMyDeclaredMasses } from '@/lib/server/timing/declared-masses';
 import { CLOCK_ASSUMPTIONS } from '@/lib/core/timing/clock-section';
 import { ClockMassesForm } from '@/components/clock-masses-form';
-import { Suspense } from 'react';
 import { CrewEntryPanel } from '@/components/crew-entry-panel';
 
 export const metadata: Metadata = { title: 'My entries' };
@@ -191,9 +190,9 @@ export default async function MyEntriesPage({
                   <p>
                     <Link href={`/slot/${e.eventId}/${e.id}`}>Scrutineering slot</Link>
                   </p>
-                  <Suspense fallback={<p>Loading the crew and gear…</p>}>
-                    <CrewEntryPanel actor={actor} entryId={e.id} />
-                  </Suspense>
+                  {/* In the page's first HTML, not streamed behind a fallback: React reveals streamed parts only
+                      after the page's scripts have run, which on a phone is seconds after the rest. */}
+                  <CrewEntryPanel actor={actor} entryId={e.id} />
                 </>
               )}
               {e.status === 'awaiting_payment' && (

@@ -6,13 +6,14 @@ import { INSPECTION_KIND_LABELS, type InspectionKind } from '@/lib/core/inputs/i
 import { DECLARATION_STATUS_WORDS } from '@/lib/core/entries/check-declaration';
 import type { InspectionView } from '@/lib/server/inspections/inspection-view';
 import { formatFigure } from '@/lib/core/format/figures';
+import { formatOnDevice } from '@/lib/core/format/device-time';
 import { CHECK_AREA_LABELS } from '@/lib/core/inspections/decide-inspection';
 import { describePowerEvidence } from '@/lib/core/inspections/power-evidence';
 import { SEAL_ACTION_WORDS } from '@/lib/core/seals/seal-words';
 import type { DockTarget } from './form-model';
 
 const when = (iso: string) =>
-  new Date(iso).toLocaleString([], { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
+  formatOnDevice(iso, { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
 
 /** The boat at the dock: who it is, what was declared, what has been recorded here before. */
 export function BoatCardView({

@@ -1,6 +1,6 @@
 'use client';
 
-import { useCallback, useEffect, useEffectEvent, useRef, useState, useSyncExternalStore } from 'react';
+import { useCallback, useEffect, useEffectEvent, useRef, useState } from 'react';
 import Link from '@/components/link';
 import dynamic from 'next/dynamic';
 import { parseTagScan } from '@/lib/core/tags/parse-tag-scan';
@@ -17,6 +17,7 @@ import type { InspectionView } from '@/lib/server/inspections/inspection-view';
 import type { InstrumentView } from '@/lib/server/inspections/list-instruments';
 import { describeScope } from '@/lib/core/inspections/decide-inspection';
 import { FindBoat, type FindQuery } from './find-boat';
+import { newKey } from './phone-identity';
 import {
   firstBoardRow,
   formFromDraft,
@@ -47,30 +48,6 @@ const GearDockPanel = dynamic(() => import('@/components/gear-dock-panel').then(
 const BoatCardView = dynamic(() => import('./boat-card-view').then((m) => m.BoatCardView));
 const InspectionForm = dynamic(() => import('./inspection-form').then((m) => m.InspectionForm));
 const VerdictPanel = dynamic(() => import('./verdict-panel').then((m) => m.VerdictPanel));
-
-/** A record key made on the phone (crypto.randomUUID needs a secure context; fall back to random bytes). */
-function newKey(): string {
-  if (typeof crypto.randomUUID === 'function') return crypto.randomUUID();
-  const b = crypto.getRandomValues(new Uint8Array(16));
-  b[6] = (b[6] & 0x0f) | 0x40;
-  b[8] = (b[8] & 0x3f) | 0x80;
-  const h = Array.from(b, (x) => x.toString(16).padStart(2, '0')).join('');
-  return `${h.slice(0, 8)}-${h.slice(8, 12)}-${h.slice(12, 16)}-${h.slice(16, 20)}-${h.slice(20)}`;
-}
-
-function subscribeToNothing() {
-  return () => {};
-}
-
-/** A short, stable name for this phone, so the record says which device captured it. */
-function deviceName(): string {
-  const saved = localStorage.getItem('boreline-device');
-  if (saved) return saved;
-  const ua = navigator.userAgent;
-  const name = `${/iPhone|iPad/.test(ua) ? 'iPhone' : /Android/.test(ua) ? 'Android phone' : 'Browser'} ${newKey().slice(0, 4)}`;
-  localStorage.setItem('boreline-device', name);
-  return name;
-}
 
 type Notice = { tone: 'error' | 'info'; text: string; code?: string };
 type Answer = {
@@ -121,8 +98,6 @@ export function DockScreen({
   const [isLooking, setLooking] = useState(false);
   const [stale, setStale] = useState<QueuedRecord | null>(null);
   const [followUp, setFollowUp] = useState<{ raceNumber: number; boatName: string; others: OtherEntry[] } | null>(null);
-  // Read after hydration: the server has no phone name (an empty name until then).
-  const device = useSyncExternalStore(subscribeToNothing, deviceName, () => '');
   const verdictRef = useRef<HTMLDivElement>(null);
   // The first usable one (an overdue instrument, or one out of use after a failed check today, is never preselected).
   const defaultLength = instruments.find((i) => i.quantity === 'length' && i.calibration.usable)?.id ?? null;
@@ -459,7 +434,6 @@ export function DockScreen({
             instruments={instruments}
             initial={form.initial}
             idempotencyKey={form.key}
-            device={device}
             serverErrors={serverErrors}
             onSubmit={record}
           />

@@ -36,6 +36,7 @@ import {
 } from './form-model';
 import { DockGauge, DockItems } from './dock-items';
 import { useScreenAwake } from './use-screen-awake';
+import { deviceName } from './phone-identity';
 
 export type FormSubmission = {
   draft: RecordInspectionDraft;
@@ -49,7 +50,6 @@ type Props = {
   instruments: InstrumentView[];
   initial: FormState;
   idempotencyKey: string;
-  device: string;
   serverErrors: Record<string, string>;
   onSubmit: (s: FormSubmission) => Promise<void>;
 };
@@ -59,15 +59,7 @@ const select = 'field-input min-h-touch text-xl';
 const check = 'h-7 w-7 shrink-0 accent-tide-600';
 
 /** The record form for one boat. Checks the input as the server's schema does before anything is queued. */
-export function InspectionForm({
-  target,
-  instruments,
-  initial,
-  idempotencyKey,
-  device,
-  serverErrors,
-  onSubmit,
-}: Props) {
+export function InspectionForm({ target, instruments, initial, idempotencyKey, serverErrors, onSubmit }: Props) {
   // The screen stays on while this record is open (released when the form closes).
   useScreenAwake();
   const [f, setF] = useState<FormState>(initial);
@@ -86,7 +78,11 @@ export function InspectionForm({
   // The record is checked here as the server will check it, then handed to the dock (saved on the phone first, then sent).
   const { state, isPending, form } = useFormAction(
     async (): Promise<ActionState> => {
-      const draft = draftFromForm(f, target, { idempotencyKey, capturedAt: new Date().toISOString(), device });
+      const draft = draftFromForm(f, target, {
+        idempotencyKey,
+        capturedAt: new Date().toISOString(),
+        device: deviceName(),
+      });
       // The server's schema without zod on the phone (the same fields and messages: see check-inspection-draft.ts).
       const parsed = checkInspectionDraft(draft);
       if (!parsed.success) return { ok: false, fieldErrors: parsed.fieldErrors };

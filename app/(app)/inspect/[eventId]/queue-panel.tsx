@@ -2,9 +2,9 @@
 
 import type { QueuedRecord } from '@/app/(app)/inspect/[eventId]/offline-queue';
 import { VerdictBadge } from '@/components/verdict-badge';
+import { formatOnDevice } from '@/lib/core/format/device-time';
 
-const time = (iso: string | null) =>
-  iso ? new Date(iso).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' }) : '';
+const time = (iso: string | null) => (iso ? formatOnDevice(iso, { hour: '2-digit', minute: '2-digit' }) : '');
 
 type Props = {
   records: QueuedRecord[];

@@ -10,6 +10,7 @@ import { FormMessage } from '@/components/forms/form-message';
 import { requestJson, type FormState } from '@/components/forms/request-json';
 import { useFormAction } from '@/components/forms/use-form-action';
 import { TopFinishersPicker } from './top-finishers-picker';
+import { formatOnDevice } from '@/lib/core/format/device-time';
 
 const REFRESH_MS = 10_000;
 const RESULTS = [
@@ -226,7 +227,7 @@ export function BoardView({
                 </p>
                 <p className="text-ink-soft">
                   {r.latest
-                    ? `by ${r.latest.recordedBy} at ${new Date(r.latest.capturedAt).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })}`
+                    ? `by ${r.latest.recordedBy} at ${formatOnDevice(r.latest.capturedAt, { hour: '2-digit', minute: '2-digit' })}`
                     : r.declarationChange
                       ? 'inspected at an earlier declaration'
                       : 'not inspected yet'}
