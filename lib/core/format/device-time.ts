@@ -1,16 +1,18 @@
-// Times on the phone's own clock, without date-fns: this module is part of the dock's first load.
+// Times on the phone's own clock, for screens that only say "when, here and now" (the boat card's history, the
+// phone's outbox, the inspection board's latest record). Built from the Date's own fields, in the house's
+// 24-hour style ("4 Apr, 14:05"; lib/core/format/time.ts gives the meeting's zone instead): no date-fns, as
+// this module is part of the dock's first load, and no Intl.DateTimeFormat, whose first use with options on
+// a phone (the browser building its date patterns) cost longer than drawing the whole boat card.
 
-const deviceFormats = new Map<string, Intl.DateTimeFormat>();
+const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+const two = (n: number) => String(n).padStart(2, '0');
 
-/**
- * A moment on the phone's own clock and in its own language, for screens that only say "when, here and now"
- * (the boat card's history, the phone's outbox). One formatter per set of options, made once: each
- * toLocaleString(…, options) call builds a new Intl.DateTimeFormat, which on a phone cost more than
- * drawing the rest of the boat card.
- */
-export function formatOnDevice(instant: Date | string | number, options: Intl.DateTimeFormatOptions): string {
-  const key = JSON.stringify(options);
-  let f = deviceFormats.get(key);
-  if (!f) deviceFormats.set(key, (f = new Intl.DateTimeFormat(undefined, options)));
-  return f.format(new Date(instant));
+export type DeviceTimeShape = 'day-time' | 'time';
+
+/** "4 Apr, 14:05" (day-time) or "14:05" (time), on this device's clock; "" for a value that is not a date. */
+export function formatOnDevice(instant: Date | string | number, shape: DeviceTimeShape): string {
+  const d = new Date(instant);
+  if (Number.isNaN(d.getTime())) return '';
+  const time = `${two(d.getHours())}:${two(d.getMinutes())}`;
+  return shape === 'time' ? time : `${d.getDate()} ${MONTHS[d.getMonth()]}, ${time}`;
 }

@@ -4,15 +4,25 @@
 import { format } from 'date-fns';
 import { TZDate } from '@date-fns/tz';
 
+// Each zone name is tried once per process: building an Intl.DateTimeFormat is the costly part of showing a time
+// (tens of milliseconds for the first on a phone), and pages and PDFs ask about the same few zones again and again.
+const zoneChecks = new Map<string, string>();
+
 /** A valid IANA zone name, or UTC: a bad stored zone must not break a page. */
 export function safeTimeZone(timeZone: string | null | undefined): string {
   if (!timeZone) return 'UTC';
-  try {
-    new Intl.DateTimeFormat('en-GB', { timeZone }).format(0);
-    return timeZone;
-  } catch {
-    return 'UTC';
+  let zone = zoneChecks.get(timeZone);
+  if (zone === undefined) {
+    try {
+      new Intl.DateTimeFormat('en-GB', { timeZone }).format(0);
+      zone = timeZone;
+    } catch {
+      zone = 'UTC';
+    }
+    // Bounded: zone names come from stored meetings, but a page must not grow this without limit.
+    if (zoneChecks.size < 1000) zoneChecks.set(timeZone, zone);
   }
+  return zone;
 }
 
 function inZone(instant: Date | string | number, timeZone: string): TZDate {
@@ -31,12 +41,18 @@ export function formatDay(instant: Date | string | number, timeZone: string): st
   return format(inZone(instant, timeZone), 'EEE d MMM yyyy');
 }
 
+const WEEKDAYS = ['Sun', 'Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat'];
+const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+
 /** A calendar date stored without a time ("2027-04-04", e.g. a meeting's first day): no zone applies. */
 export function formatCalendarDate(isoDate: string): string {
   const m = /^(\d{4})-(\d{2})-(\d{2})/.exec(isoDate);
   if (!m) return isoDate;
-  // Built at UTC noon and read in UTC so no zone can move it to another day.
-  return format(new TZDate(Date.UTC(+m[1], +m[2] - 1, +m[3], 12), 'UTC'), 'EEE d MMM yyyy');
+  // Read from the UTC fields of UTC noon, so no zone can move it to another day ("EEE d MMM yyyy"; no Intl
+  // needed, which keeps lists of gear and licences cheap to draw on a phone).
+  const d = new Date(Date.UTC(+m[1], +m[2] - 1, +m[3], 12));
+  if (Number.isNaN(d.getTime())) return isoDate;
+  return `${WEEKDAYS[d.getUTCDay()]} ${d.getUTCDate()} ${MONTHS[d.getUTCMonth()]} ${d.getUTCFullYear()}`;
 }
 
 /** The offset of a zone at an instant, in minutes east of UTC (for checks and tests). */

@@ -12,8 +12,7 @@ import { describePowerEvidence } from '@/lib/core/inspections/power-evidence';
 import { SEAL_ACTION_WORDS } from '@/lib/core/seals/seal-words';
 import type { DockTarget } from './form-model';
 
-const when = (iso: string) =>
-  formatOnDevice(iso, { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
+const when = (iso: string) => formatOnDevice(iso, 'day-time');
 
 /** The boat at the dock: who it is, what was declared, what has been recorded here before. */
 export function BoatCardView({

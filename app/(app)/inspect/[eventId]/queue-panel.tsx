@@ -4,7 +4,7 @@ import type { QueuedRecord } from '@/app/(app)/inspect/[eventId]/offline-queue';
 import { VerdictBadge } from '@/components/verdict-badge';
 import { formatOnDevice } from '@/lib/core/format/device-time';
 
-const time = (iso: string | null) => (iso ? formatOnDevice(iso, { hour: '2-digit', minute: '2-digit' }) : '');
+const time = (iso: string | null) => (iso ? formatOnDevice(iso, 'time') : '');
 
 type Props = {
   records: QueuedRecord[];

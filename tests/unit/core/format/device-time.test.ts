@@ -1,32 +1,38 @@
-// Times on the phone's own clock (lib/core/format/device-time.ts). Reference: ECMA-402 (11th edition, 2024)
-// §20.4.1 Date.prototype.toLocaleString and §20.4.3 toLocaleTimeString: each is defined as formatting with a
-// new Intl.DateTimeFormat made from the same locales and options, so the cached formatter must give exactly
-// what those calls give, in any time zone and language the runtime is set to.
+// Times on the phone's own clock (lib/core/format/device-time.ts), checked against date-fns 4's format()
+// (a general-purpose reference library from the registry) with the patterns "d MMM, HH:mm" and "HH:mm",
+// which read the same local fields of the Date (Unicode TR35 date field symbols: d day of month, MMM
+// abbreviated month, HH hour 00-23, mm minute).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
+import { format } from 'date-fns';
 import { formatOnDevice } from '../../../../lib/core/format/device-time';
 
-const cardOptions: Intl.DateTimeFormatOptions = { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' };
-const clockOptions: Intl.DateTimeFormatOptions = { hour: '2-digit', minute: '2-digit' };
+const MOMENTS = [
+  '2027-04-04T02:15:00Z',
+  '2026-12-31T23:59:59.999Z',
+  '2027-06-21T12:00:00+12:45',
+  '2027-01-01T00:00:00Z',
+  '2027-03-28T01:30:00Z', // the hour European clocks go forward
+];
 
-test('the same text as toLocaleString / toLocaleTimeString with the same options (ECMA-402 §20.4.1, §20.4.3)', () => {
-  for (const iso of ['2027-04-04T02:15:00Z', '2026-12-31T23:59:59.999Z', '2027-06-21T12:00:00+12:45']) {
-    assert.equal(formatOnDevice(iso, cardOptions), new Date(iso).toLocaleString([], cardOptions));
-    assert.equal(formatOnDevice(iso, clockOptions), new Date(iso).toLocaleTimeString([], clockOptions));
+test('day and time, and time alone, as date-fns formats them on the same clock', () => {
+  for (const iso of MOMENTS) {
+    const d = new Date(iso);
+    assert.equal(formatOnDevice(iso, 'day-time'), format(d, 'd MMM, HH:mm'));
+    assert.equal(formatOnDevice(iso, 'time'), format(d, 'HH:mm'));
   }
 });
 
-test('the formatter kept for one set of options never leaks into another', () => {
-  const iso = '2027-04-04T02:15:00Z';
-  const first = formatOnDevice(iso, clockOptions);
-  assert.equal(formatOnDevice(iso, cardOptions), new Date(iso).toLocaleString([], cardOptions));
-  assert.equal(formatOnDevice(iso, clockOptions), first);
-  assert.notEqual(formatOnDevice(iso, cardOptions), first, 'the card shows the day as well as the time');
+test('24-hour clock, two-digit hours and minutes, the day of month without a leading zero', () => {
+  const d = new Date(2027, 3, 4, 9, 5); // 4 April 2027, 09:05 on this clock
+  assert.equal(formatOnDevice(d, 'day-time'), '4 Apr, 09:05');
+  assert.equal(formatOnDevice(new Date(2027, 11, 25, 23, 59), 'time'), '23:59');
 });
 
-test('takes a Date, an ISO string or epoch milliseconds for the same moment', () => {
+test('a Date, an ISO string or epoch milliseconds for the same moment; nothing for a value that is not a date', () => {
   const ms = Date.UTC(2027, 3, 4, 2, 15);
-  const want = formatOnDevice(ms, cardOptions);
-  assert.equal(formatOnDevice(new Date(ms), cardOptions), want);
-  assert.equal(formatOnDevice(new Date(ms).toISOString(), cardOptions), want);
+  const want = formatOnDevice(ms, 'day-time');
+  assert.equal(formatOnDevice(new Date(ms), 'day-time'), want);
+  assert.equal(formatOnDevice(new Date(ms).toISOString(), 'day-time'), want);
+  assert.equal(formatOnDevice('not a date', 'time'), '');
 });

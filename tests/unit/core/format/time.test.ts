@@ -13,6 +13,8 @@ import {
   zoneOffsetMinutes,
 } from '../../../../lib/core/format/time';
 import { windowDeadlineTerm } from '../../../../lib/core/protests/protest-window';
+import { format } from 'date-fns';
+import { TZDate } from '@date-fns/tz';
 
 test('New Zealand in December is on NZDT, UTC+13 (IANA tz database, Pacific/Auckland)', () => {
   const at = new Date('2026-12-05T01:30:00Z');
@@ -60,6 +62,26 @@ test('the calendar day follows the zone: 11:30 UTC on 5 Dec is already 6 Dec in 
 test('a stored calendar date never moves to another day, whatever the process zone', () => {
   assert.equal(formatCalendarDate('2027-03-13'), 'Sat 13 Mar 2027');
   assert.equal(formatCalendarDate('not a date'), 'not a date');
+});
+
+test('stored calendar dates read as date-fns reads them (every day of 2027 and the leap day of 2028)', () => {
+  // Reference: date-fns 4 format(…, 'EEE d MMM yyyy') on the same day at UTC noon read in UTC. Known weekdays:
+  // 1 Jan 2000 was a Saturday, 29 Feb 2028 is a Tuesday (the Gregorian calendar) [memory].
+  assert.equal(formatCalendarDate('2000-01-01'), 'Sat 1 Jan 2000');
+  assert.equal(formatCalendarDate('2028-02-29'), 'Tue 29 Feb 2028');
+  for (let day = 0; day < 365; day++) {
+    const d = new Date(Date.UTC(2027, 0, 1 + day, 12));
+    const iso = d.toISOString().slice(0, 10);
+    assert.equal(formatCalendarDate(iso), format(new TZDate(d.getTime(), 'UTC'), 'EEE d MMM yyyy'), iso);
+  }
+});
+
+test('a zone name checked once answers the same every time after', () => {
+  for (let i = 0; i < 3; i++) {
+    assert.equal(safeTimeZone('Pacific/Auckland'), 'Pacific/Auckland');
+    assert.equal(safeTimeZone('Mars/Olympus_Mons'), 'UTC');
+    assert.equal(safeTimeZone(''), 'UTC');
+  }
 });
 
 test('the protest window term is computed from now and the deadline, never assumed', () => {

@@ -227,7 +227,7 @@ export function BoardView({
                 </p>
                 <p className="text-ink-soft">
                   {r.latest
-                    ? `by ${r.latest.recordedBy} at ${formatOnDevice(r.latest.capturedAt, { hour: '2-digit', minute: '2-digit' })}`
+                    ? `by ${r.latest.recordedBy} at ${formatOnDevice(r.latest.capturedAt, 'time')}`
                     : r.declarationChange
                       ? 'inspected at an earlier declaration'
                       : 'not inspected yet'}
