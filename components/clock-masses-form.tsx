@@ -6,8 +6,7 @@ import { FormMessage } from '@/components/forms/form-message';
 import { refusalState, requestJson, type FormState } from '@/components/forms/request-json';
 import { useFormAction } from '@/components/forms/use-form-action';
 import { numberOrNull } from '@/lib/core/inputs/form-values';
-import { CREW_KG_RANGE, DeclareMassesInput, FUEL_KG_RANGE } from '@/lib/core/inputs/declared-masses';
-import { fieldErrors } from '@/lib/core/errors';
+import { CREW_KG_RANGE, FUEL_KG_RANGE, checkDeclaredMasses } from '@/lib/core/inputs/declared-masses-check';
 
 /**
  * The crew and fuel masses of one entry, declared by its entrant for the predicted runs of the meeting's parity
@@ -28,12 +27,12 @@ export function ClockMassesForm({
 }) {
   const router = useRouter();
   const { state, isPending, form } = useFormAction(async (_prev: FormState | null, data: FormData) => {
-    // Checked here by the server's own schema first: a typed word must not travel as JSON null (which clears).
-    const checked = DeclareMassesInput.safeParse({
+    // Checked here as the server's schema checks it first: a typed word must not travel as JSON null (which clears).
+    const checked = checkDeclaredMasses({
       crewKg: numberOrNull(data.get('crewKg')),
       fuelKg: numberOrNull(data.get('fuelKg')),
     });
-    if (!checked.success) return refusalState({ message: '', fieldErrors: fieldErrors(checked.error) });
+    if (!checked.ok) return refusalState({ message: '', fieldErrors: checked.fieldErrors });
     const answer = await requestJson(`/api/entries/${entryId}/masses`, {
       method: 'PUT',
       body: checked.data,

@@ -6,7 +6,18 @@
 
 import type { ReactNode } from 'react';
 import { useState } from 'react';
-import { MatchedMode } from './matched-mode';
+import dynamic from 'next/dynamic';
+
+// The matched mode's code (its engine and pump model and the checks of its input) is fetched when that mode is
+// first shown, not with the page: most visits use the fixed-power set-ups, and on a phone that code took longer
+// to start than the rest of the page. Opened at ?mode=matched, the server renders it as before.
+const MatchedMode = dynamic(() => import('./matched-mode').then((m) => m.MatchedMode), {
+  loading: () => (
+    <p role="status" className="text-lg">
+      Loading the matched calculator…
+    </p>
+  ),
+});
 
 export type CalculatorMode = 'fixed' | 'matched';
 

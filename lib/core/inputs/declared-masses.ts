@@ -3,19 +3,15 @@
 // stated assumption is used for it. The bounds are sanity limits, not class rules (common practice, no source),
 // and the database holds the same ones (migrations/20261203010000-entry-declared-masses.js).
 import { z } from 'zod';
+import { CREW_KG_RANGE, FUEL_KG_RANGE, MASS_FIELDS, massWords } from './declared-masses-check';
 
-export const CREW_KG_RANGE = { min: 30, max: 400 } as const;
-export const FUEL_KG_RANGE = { min: 0, max: 200 } as const;
+export { CREW_KG_RANGE, FUEL_KG_RANGE };
 
-const mass = (label: string, range: { min: number; max: number }, hint: string) =>
-  z
-    .number({ error: `Enter the ${label} in kilograms, or leave it empty.` })
-    .min(range.min, `The ${label} is at least ${range.min} kg${hint}.`)
-    .max(range.max, `The ${label} is at most ${range.max} kg: check the unit (kilograms).`)
-    .nullable();
+const mass = (field: keyof typeof MASS_FIELDS) => {
+  const words = massWords(field);
+  const { range } = MASS_FIELDS[field];
+  return z.number({ error: words.notNumber }).min(range.min, words.tooSmall).max(range.max, words.tooLarge).nullable();
+};
 
-export const DeclareMassesInput = z.strictObject({
-  crewKg: mass('crew mass', CREW_KG_RANGE, ' (everyone aboard, in their gear)'),
-  fuelKg: mass('fuel mass', FUEL_KG_RANGE, ''),
-});
+export const DeclareMassesInput = z.strictObject({ crewKg: mass('crewKg'), fuelKg: mass('fuelKg') });
 export type DeclareMassesInput = z.infer<typeof DeclareMassesInput>;

@@ -25,3 +25,41 @@ test('declared masses: numbers within the bounds or null; both keys always sent;
   refused([150, 20]);
   refused(null);
 });
+
+// The browser's check (declared-masses-check.ts, no zod) against the server's zod schema: the same verdict and
+// the same words for every value the form can produce (a number, null for an empty field, NaN for a typed word).
+test('the form’s zod-free check gives the server schema’s answer and words, value by value', async () => {
+  const { checkDeclaredMasses } = await import('../../../../lib/core/inputs/declared-masses-check');
+  const { fieldErrors } = await import('../../../../lib/core/errors');
+  const values = [
+    null,
+    Number.NaN,
+    Infinity,
+    -Infinity,
+    -1,
+    0,
+    0.1,
+    29.9,
+    30,
+    150.5,
+    199.99,
+    200,
+    200.01,
+    400,
+    400.1,
+    1e9,
+  ];
+  let compared = 0;
+  for (const crewKg of values) {
+    for (const fuelKg of values) {
+      const server = DeclareMassesInput.safeParse({ crewKg, fuelKg });
+      const phone = checkDeclaredMasses({ crewKg, fuelKg });
+      const label = JSON.stringify({ crewKg: String(crewKg), fuelKg: String(fuelKg) });
+      assert.equal(phone.ok, server.success, label);
+      if (server.success && phone.ok) assert.deepEqual(phone.data, server.data, label);
+      if (!server.success && !phone.ok) assert.deepEqual(phone.fieldErrors, fieldErrors(server.error), label);
+      compared++;
+    }
+  }
+  assert.equal(compared, values.length ** 2);
+});
