@@ -1,6 +1,6 @@
 'use client';
 
-import { useCallback, useEffect, useEffectEvent, useRef, useState } from 'react';
+import { startTransition, useCallback, useEffect, useEffectEvent, useRef, useState } from 'react';
 import Link from '@/components/link';
 import dynamic from 'next/dynamic';
 import { parseTagScan } from '@/lib/core/tags/parse-tag-scan';
@@ -128,15 +128,19 @@ export function DockScreen({
   }, [refreshSnapshot, queue.isOnline]);
 
   function open(t: DockTarget, initial?: FormState, key?: string) {
-    setStale(null);
-    setTarget(t);
-    setVerdict(null);
-    setServerErrors({});
-    setForm((f) => ({
-      key: key ?? newKey(),
-      initial: initial ?? initialFormState(t, defaultLength, defaultScale),
-      revision: (f?.revision ?? 0) + 1,
-    }));
+    // A transition: React renders the card and the form (the screen's largest render) in slices of a few
+    // milliseconds, so a phone stays responsive to a tap while they are drawn.
+    startTransition(() => {
+      setStale(null);
+      setTarget(t);
+      setVerdict(null);
+      setServerErrors({});
+      setForm((f) => ({
+        key: key ?? newKey(),
+        initial: initial ?? initialFormState(t, defaultLength, defaultScale),
+        revision: (f?.revision ?? 0) + 1,
+      }));
+    });
   }
 
   async function find(q: FindQuery) {
