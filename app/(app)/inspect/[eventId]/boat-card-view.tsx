@@ -7,7 +7,7 @@ import { DECLARATION_STATUS_WORDS } from '@/lib/core/entries/check-declaration';
 import type { InspectionView } from '@/lib/server/inspections/inspection-view';
 import { formatFigure } from '@/lib/core/format/figures';
 import { formatOnDevice } from '@/lib/core/format/device-time';
-import { CHECK_AREA_LABELS } from '@/lib/core/inspections/decide-inspection';
+import { CHECK_AREA_LABELS } from '@/lib/core/inspections/check-areas';
 import { describePowerEvidence } from '@/lib/core/inspections/power-evidence';
 import { SEAL_ACTION_WORDS } from '@/lib/core/seals/seal-words';
 import type { DockTarget } from './form-model';

@@ -15,7 +15,7 @@ import {
 } from '@/app/(app)/inspect/[eventId]/offline-queue';
 import type { InspectionView } from '@/lib/server/inspections/inspection-view';
 import type { InstrumentView } from '@/lib/server/inspections/list-instruments';
-import { describeScope } from '@/lib/core/inspections/decide-inspection';
+import { describeScope } from '@/lib/core/inspections/check-areas';
 import { FindBoat, type FindQuery } from './find-boat';
 import { newKey } from './phone-identity';
 import {
