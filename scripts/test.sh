@@ -153,9 +153,31 @@ if [ -n "$run_script" ]; then
   node_modules/.bin/tsx --conditions=react-server "$run_script"
   exit $?
 fi
-log "running ${#files[@]} test files"
+# Most integration and browser files build their own meeting and people through the API, so two of them run at a
+# time (TEST_CONCURRENCY, default 2; 1 runs every file in turn). A file that disturbs or counts what others share
+# (stops PostgreSQL or the app, starts second servers, counts whole tables or global metrics, writes to the demo
+# meeting, signs a demo person out) says so in a line "// Runs alone (scripts/test.sh): why" and runs after the
+# others, one at a time (DEVELOPERS.md, "Tests that run alone").
+log "ready for the test files after $SECONDS s"
+concurrency="${TEST_CONCURRENCY:-2}"
+[[ "$concurrency" =~ ^[1-9][0-9]*$ ]] || { log "TEST_CONCURRENCY must be a whole number from 1 (got '$concurrency')"; exit 1; }
+together=(); alone=()
+for f in "${files[@]}"; do
+  if grep -q '^// Runs alone (scripts/test.sh)' "$f"; then alone+=("$f"); else together+=("$f"); fi
+done
 status=0
-node_modules/.bin/tsx --test --test-concurrency=1 "${files[@]}" || status=$?
+if [ ${#together[@]} -gt 0 ]; then
+  log "running ${#together[@]} test files, $concurrency at a time"
+  started=$SECONDS
+  node_modules/.bin/tsx --test --test-concurrency="$concurrency" "${together[@]}" || status=$?
+  log "${#together[@]} test files, $concurrency at a time: $((SECONDS - started)) s"
+fi
+if [ ${#alone[@]} -gt 0 ]; then
+  log "running ${#alone[@]} test files that run alone, one at a time"
+  started=$SECONDS
+  node_modules/.bin/tsx --test --test-concurrency=1 "${alone[@]}" || status=$?
+  log "${#alone[@]} test files that run alone: $((SECONDS - started)) s"
+fi
 if [ -n "$unit_pid" ]; then
   unit_status=0; wait "$unit_pid" || unit_status=$?; unit_pid=""
   log "the unit tests, run beside the build:"

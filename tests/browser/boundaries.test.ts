@@ -3,6 +3,7 @@
 // back to the section's first page; an address Boreline does not know at all gets the root page;
 // a section whose page fails (here: PostgreSQL stopped, a real outage) shows a plain message and a
 // retry inside the shell, and the retry brings the page back once the database is up again.
+// Runs alone (scripts/test.sh): it stops PostgreSQL.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { randomUUID } from 'node:crypto';

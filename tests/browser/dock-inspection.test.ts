@@ -5,6 +5,7 @@
 // on the phone as "Needs a fix".
 // Reference decisions: the zones of ISO 14253-1:2017 applied to a 102.00 mm limit with U 0.05 mm:
 // 101.93 mm conformity proven, 101.97 mm undecided (inconclusive).
+// Runs alone (scripts/test.sh): it adds an instrument and records inspections at the demo meeting.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import fs from 'node:fs';

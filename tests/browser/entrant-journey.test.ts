@@ -2,6 +2,7 @@
 // class of the demo meeting, reads the declaration check with the safety caution, pays on the
 // payment fake's page, lands on My entries with the entry paid, and gets the receipt by e-mail;
 // once the boat is inspected, My entries says what the result means, with the safety caution.
+// Runs alone (scripts/test.sh): it enters a boat at the demo meeting.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import type { Browser } from 'playwright-core';

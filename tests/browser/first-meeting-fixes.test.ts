@@ -5,6 +5,7 @@
 // finishers publish with a blank pre-filled row; 9 times in the meeting's zone with the zone named, and
 // the protest window term computed. Offsets: IANA time zone database (Pacific/Auckland is UTC+13 in
 // December, NZDT; UTC+12 in winter, NZST).
+// Runs alone (scripts/test.sh): it counts the demo meeting's entries (a search must find some, not all).
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { randomUUID } from 'node:crypto';

@@ -8,6 +8,8 @@
 // Vibration API (navigator.vibrate(pattern)); WICG Background Synchronization (SyncManager.register(tag), the
 // "sync" event); Chrome DevTools Protocol, domain Page (getInstallabilityErrors, getAppManifest). The 101.93 mm reading against a 102.00 mm limit with U 0.05 mm: conformity
 // proven under ISO 14253-1:2017.
+// Runs alone (scripts/test.sh): it records at the demo meeting and signs the demo scrutineer out, which ends every
+// session of that person.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import type { Browser, Page } from 'playwright-core';

@@ -1,5 +1,6 @@
 // Journey: the organiser edits class rules into a new draft, sees the version history, finds the
 // entries in the table, filters by class (kept in the URL) and downloads the tag sheet PDF.
+// Runs alone (scripts/test.sh): it counts the demo meeting's entries and changes a demo class's rules.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import type { Browser } from 'playwright-core';

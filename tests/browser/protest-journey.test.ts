@@ -3,6 +3,7 @@
 // adds a photo (a PNG made with pngjs, its SHA-256 checked against node:crypto); the steward accepts
 // it, orders a re-inspection and decides it upheld; the entrant sees the decision and the refund,
 // and the decision PDF opens with pdf-lib. Refund on upheld is common practice, no single source.
+// Runs alone (scripts/test.sh): it publishes results and decides a protest at the demo meeting.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { createHash } from 'node:crypto';

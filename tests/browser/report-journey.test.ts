@@ -1,5 +1,6 @@
 // Journey: the organiser opens the parity report draft of a class, sees the charts, publishes;
 // the public page opens signed out on a phone and the PDF and CSV download.
+// Runs alone (scripts/test.sh): it records inspections in a demo class and publishes its report.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { randomUUID } from 'node:crypto';

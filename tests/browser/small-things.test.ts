@@ -3,6 +3,7 @@
 // step; a hull number of −7 is refused beside the field; a race number that is taken is answered
 // honestly (the next free number after it, both named); the dock's race-number field asks the
 // phone for its number pad (HTML Living Standard, the inputmode attribute: "numeric").
+// Runs alone (scripts/test.sh): it takes the demo meeting's next free race number.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import type { Browser } from 'playwright-core';

@@ -1,6 +1,7 @@
 // Issue 13, item 10, on a phone: a person invited to a meeting's staff gives their name on accepting,
 // the home page greets them by it, and anyone can change their name on My account (a blank name is
 // refused beside the field).
+// Runs alone (scripts/test.sh): it adds staff to the demo meeting.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import type { Browser } from 'playwright-core';

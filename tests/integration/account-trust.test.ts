@@ -3,6 +3,8 @@
 // throttles that stop an attacker but not the owner, and answers that do not reveal who has an
 // account. The attacks are those of the OWASP Authentication Cheat Sheet and the OWASP Session
 // Management Cheat Sheet (account enumeration, credential stuffing, lockout abuse, session expiry).
+// Runs alone (scripts/test.sh): it counts every account (a refused sign-up stores none) and makes a steward at the
+// demo meeting.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { HttpSession } from '../support/http-session';

@@ -2,6 +2,8 @@
 // the first, honours a session made on the first, and a sign-out on the second ends it on both. App
 // servers keep no state of their own (sessions, throttles and records live in PostgreSQL), which is
 // what lets several run behind a proxy (npm run bench:multi runs them behind nginx).
+// Runs alone (scripts/test.sh): it starts a second app server and signs the demo entrant out, which ends every
+// session of that person.
 import { test, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { HttpSession } from '../support/http-session';

@@ -1,4 +1,5 @@
 // Sign-in, sign-up and staff invitations through the real HTTP endpoints and the real database.
+// Runs alone (scripts/test.sh): it counts every account and every staff invitation (a refused request stores none).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { HttpSession } from '../support/http-session';

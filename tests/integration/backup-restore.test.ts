@@ -1,6 +1,7 @@
 // npm run db:backup and db:restore: a backup of the test database restored into an empty
 // database holds the same records (compared table by table with an md5 of every row, a
 // general-purpose PostgreSQL checksum), and the append-only triggers come back with it.
+// Runs alone (scripts/test.sh): it dumps the whole test database and compares the restore table by table.
 import { test, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { execFileSync } from 'node:child_process';

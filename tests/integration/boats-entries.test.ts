@@ -1,6 +1,8 @@
 // Boats, documents, tags and entries through the real HTTP API and the real database: an entrant
 // sees and changes only their own boats, bad input stores nothing, uploads are checked by content,
 // entries follow the meeting's state and race numbers never collide.
+// Runs alone (scripts/test.sh): it counts whole tables (nothing stored on refusal) and enters boats at the demo
+// meeting.
 import { test, before } from 'node:test';
 import assert from 'node:assert/strict';
 import { createHash } from 'node:crypto';

@@ -6,6 +6,7 @@
 // the server, or by this client once it has the answer: it asks for no keep-alive). The body is generated as it is pulled and counted, so the
 // test sees exactly how much the server took. OWASP Denial of Service cheat sheet: limit request
 // body sizes and refuse early, rather than reading the whole body first.
+// Runs alone (scripts/test.sh): it counts every account and every boat document (nothing stored on refusal).
 import { test, before } from 'node:test';
 import assert from 'node:assert/strict';
 import http from 'node:http';

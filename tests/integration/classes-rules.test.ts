@@ -1,6 +1,7 @@
 // Events, classes and versioned class rules through the real HTTP API and database.
 // Versioning behaviour follows ISO/IEC 17025:2017, 7.1.3 (decision rules fixed before measuring):
 // a published version never changes, and a lookup at a time gets the version then in force.
+// Runs alone (scripts/test.sh): it counts every meeting (a refused request stores none).
 import { test, before } from 'node:test';
 import assert from 'node:assert/strict';
 import { HttpSession } from '../support/http-session';

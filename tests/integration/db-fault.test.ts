@@ -3,6 +3,7 @@
 // replayed at start) and the app server crashed (SIGKILL, then started again). While the database is
 // down the app answers 503, never another 5xx; it recovers by itself; and clients retrying with their
 // idempotency keys end with every acknowledged record stored exactly once.
+// Runs alone (scripts/test.sh): it stops and kills PostgreSQL and kills the app server.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { runFaultLoad } from '../../scripts/bench-reliability';

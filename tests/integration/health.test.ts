@@ -1,5 +1,6 @@
 // GET /api/health: 200 with the database up, 503 while it is stopped, and 200 again after; the public
 // calculation API answers meanwhile.
+// Runs alone (scripts/test.sh): it stops PostgreSQL.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { execFileSync } from 'node:child_process';

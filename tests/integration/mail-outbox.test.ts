@@ -4,6 +4,8 @@
 // stays queued and is sent later; two app servers' workers never send one message twice.
 // SMTP reply 451 is a transient failure that a client retries (RFC 5321, section 4.2.3 and 4.5.4.1).
 // And the worker holds back while the server is answering requests, for MAIL_BUSY_DEFER_MS at most.
+// Runs alone (scripts/test.sh): it starts a second app server, puts a trigger on inspections and watches the outbox
+// workers.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { randomBytes } from 'node:crypto';

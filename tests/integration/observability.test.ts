@@ -1,6 +1,7 @@
 // Issue 17, item 6: structured JSON logs with a request id on every request line and in the error
 // answer; metrics in the Prometheus text exposition format (Prometheus documentation, "Exposition
 // formats", text format 0.0.4) for the site administrator; liveness and readiness kept apart.
+// Runs alone (scripts/test.sh): it reads the app's metrics counters, which every recorded inspection moves.
 import { test, before } from 'node:test';
 import assert from 'node:assert/strict';
 import { readFileSync } from 'node:fs';

@@ -7,6 +7,8 @@
 // the order are common practice in motorsport codes (no single source); each expected order is worked by hand
 // beside its assertion. Refunding the fee when the appeal succeeds and keeping it when it fails is common
 // practice (no single source); the governing body's rules decide.
+// Runs alone (scripts/test.sh): it counts whole tables (penalties, appeals, results versions: nothing stored on
+// refusal).
 import { test, before } from 'node:test';
 import assert from 'node:assert/strict';
 import { randomUUID } from 'node:crypto';

@@ -6,6 +6,8 @@
 // not 401/403 (bodies here are empty, so a 400 is an allowed request refused for its input);
 // denied means 401 for anonymous and 403 (or 404 where the resource is hidden) for the rest.
 // A route file or method that is not listed below fails the test.
+// Runs alone (scripts/test.sh): it adds entries (numbered after the highest), a protest, a penalty and an appeal at
+// the demo meeting.
 import { test, before } from 'node:test';
 import assert from 'node:assert/strict';
 import fs from 'node:fs';

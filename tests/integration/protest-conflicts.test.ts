@@ -5,6 +5,8 @@
 // organiser; the decision names the deciding stewards. That an official with a personal interest
 // must not hear or decide a matter is the general rule of natural justice (nemo iudex in causa
 // sua), applied to sports officials as common practice, no single source.
+// Runs alone (scripts/test.sh): it counts every declared interest (nothing stored on refusal) and adds staff at the
+// demo meeting.
 import { test, before } from 'node:test';
 import assert from 'node:assert/strict';
 import type { HttpSession } from '../support/http-session';

@@ -3,6 +3,7 @@
 // with their reasons (append-only), the CSV for the timing system, and who may read or decide.
 // Verdicts are the worked decisions of ISO 14253-1:2017 for an upper limit of 102.00 mm with U 0.05 mm
 // (101.90 mm conforms, 102.06 mm does not conform); the rest is common practice at meetings, no source.
+// Runs alone (scripts/test.sh): it counts every start decision (nothing stored on refusal).
 import { test, before } from 'node:test';
 import assert from 'node:assert/strict';
 import { HttpSession } from '../support/http-session';

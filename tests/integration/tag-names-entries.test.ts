@@ -1,6 +1,7 @@
 // Issue 13 through HTTP and the database: where a scanned tag sends each person (/t/<token>), the
 // name given on accepting a staff invitation, hull numbers with a minus sign, an honest answer when
 // the race number asked for is taken, and protest e-mails that name the protested boat.
+// Runs alone (scripts/test.sh): it counts every boat and takes the demo meeting's next free race number.
 import { test, before } from 'node:test';
 import assert from 'node:assert/strict';
 import { randomBytes } from 'node:crypto';
