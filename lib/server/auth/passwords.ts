@@ -1,5 +1,6 @@
 import { randomBytes, scrypt as scryptCb, timingSafeEqual, type ScryptOptions } from 'node:crypto';
 import bcrypt from 'bcryptjs';
+import { createSlots } from '@/lib/core/concurrency/slots';
 
 // Password hashes: scrypt from Node's own crypto, which runs on libuv's thread pool, so a burst of
 // sign-ups or sign-ins never blocks the event loop that answers everyone else.
@@ -8,13 +9,24 @@ import bcrypt from 'bcryptjs';
 // Hashes made earlier with bcrypt still verify and are replaced at the next successful sign-in.
 
 const PARAMS = { N: 2 ** 14, r: 8, p: 5 } as const;
+
+// At most half of libuv's thread pool (4 threads unless UV_THREADPOOL_SIZE says otherwise) hashes at once. The
+// pool also serves file reads, DNS lookups and compression for every other request: with all of it hashing, a
+// burst of 30 sign-ups held a health check for 3 seconds (tests/integration/account-trust.test.ts). The rest wait
+// their turn; on 2 cores that costs the burst nothing, as two hashes at once already use both.
+const hashSlots = createSlots(Math.max(1, Math.floor((Number(process.env.UV_THREADPOOL_SIZE) || 4) / 2)));
 const KEY_BYTES = 32;
 const SALT_BYTES = 16;
 
 function scrypt(password: string, salt: Buffer, params: { N: number; r: number; p: number }): Promise<Buffer> {
   const options: ScryptOptions = { ...params, maxmem: 256 * params.N * params.r + 1024 * 1024 };
-  return new Promise((resolve, reject) =>
-    scryptCb(password.normalize('NFKC'), salt, KEY_BYTES, options, (err, key) => (err ? reject(err) : resolve(key))),
+  return hashSlots.run(
+    () =>
+      new Promise<Buffer>((resolve, reject) =>
+        scryptCb(password.normalize('NFKC'), salt, KEY_BYTES, options, (err, key) =>
+          err ? reject(err) : resolve(key),
+        ),
+      ),
   );
 }
 
