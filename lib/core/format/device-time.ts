@@ -4,7 +4,7 @@
 // this module is part of the dock's first load, and no Intl.DateTimeFormat, whose first use with options on
 // a phone (the browser building its date patterns) cost longer than drawing the whole boat card.
 
-const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+export const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
 const two = (n: number) => String(n).padStart(2, '0');
 
 export type DeviceTimeShape = 'day-time' | 'time';

@@ -3,6 +3,7 @@
 // Framework-free (date-fns + @date-fns/tz): runs on the server, in the browser, in PDFs and e-mails.
 import { format } from 'date-fns';
 import { TZDate } from '@date-fns/tz';
+import { MONTHS } from './device-time';
 
 // Each zone name is tried once per process: building an Intl.DateTimeFormat is the costly part of showing a time
 // (tens of milliseconds for the first on a phone), and pages and PDFs ask about the same few zones again and again.
@@ -42,7 +43,6 @@ export function formatDay(instant: Date | string | number, timeZone: string): st
 }
 
 const WEEKDAYS = ['Sun', 'Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat'];
-const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
 
 /** A calendar date stored without a time ("2027-04-04", e.g. a meeting's first day): no zone applies. */
 export function formatCalendarDate(isoDate: string): string {
