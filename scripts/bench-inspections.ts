@@ -13,6 +13,8 @@
 // 4. The same POST replayed with keys already stored (the idempotent answer an offline phone gets).
 // Prints figures, their ratio to the baseline and the goals of issue 18 (p95 under 100 ms, at least
 // 0.5x the baseline's throughput) with PASS or MISS; asserts nothing (exit 0 unless setup fails).
+// BENCH_DUMP=<file> also writes every measured request as [run, start ms, latency ms] (JSON), to see
+// when in a round the slow answers came.
 import { randomUUID } from 'node:crypto';
 import { execFileSync } from 'node:child_process';
 import { readdirSync, readFileSync } from 'node:fs';
@@ -20,7 +22,7 @@ import os from 'node:os';
 import path from 'node:path';
 import pg from 'pg';
 
-import { BASE, Client, inspectionBody, percentile, setUpScratchMeeting } from './bench-support';
+import { BASE, Client, inspectionBody, LoadClient, percentile, setUpScratchMeeting } from './bench-support';
 const CLIENTS = Number(process.env.BENCH_CLIENTS ?? 20);
 const REQUESTS = Number(process.env.BENCH_REQUESTS ?? 400);
 const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 3);
@@ -84,13 +86,15 @@ const ROOTS = {
   })(),
   fakes: readPid(path.join(__dirname, '..', '.data', 'test-run', 'fakes.pid')),
 };
-type Cpu = Record<keyof typeof ROOTS, number>;
+type Cpu = Record<keyof typeof ROOTS | 'bench', number>;
 function cpuNow(): Cpu {
   const all = processTree();
+  const own = process.cpuUsage();
   return {
     app: treeTicks(all, ROOTS.app) * TICK_MS,
     postgres: treeTicks(all, ROOTS.postgres) * TICK_MS,
     fakes: treeTicks(all, ROOTS.fakes) * TICK_MS,
+    bench: (own.user + own.system) / 1000,
   };
 }
 
@@ -125,7 +129,10 @@ const body = (entryId: string, key?: string) => ({ ...inspectionBody(entryId, ke
 type Result = { name: string; seconds: number; latenciesMs: number[]; errors: number; cpu?: Cpu };
 
 /** CLIENTS loops share REQUESTS requests; each request's latency is kept. */
-async function run(name: string, send: (worker: number, i: number) => Promise<Response>): Promise<Result> {
+async function run(
+  name: string,
+  send: (worker: number, i: number) => Promise<{ status: number; ok: boolean }>,
+): Promise<Result> {
   const latenciesMs: number[] = [];
   let next = 0;
   let errors = 0;
@@ -136,8 +143,8 @@ async function run(name: string, send: (worker: number, i: number) => Promise<Re
       for (let i = next++; i < REQUESTS; i = next++) {
         const t = performance.now();
         const res = await send(worker, i);
-        await res.arrayBuffer();
         latenciesMs.push(performance.now() - t);
+        if (process.env.BENCH_DUMP) dump.push([name, t, performance.now() - t]);
         if (!res.ok) errors++;
       }
     }),
@@ -151,6 +158,7 @@ async function run(name: string, send: (worker: number, i: number) => Promise<Re
 }
 
 const pct = percentile;
+const dump: [string, number, number][] = [];
 
 /** The machine's load (1, 5 and 15 minutes): 2 cores shared with other people's work move every figure. */
 const load = () =>
@@ -165,22 +173,26 @@ async function main() {
   const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
   await db.connect();
   const url = `/api/events/${eventId}/inspections`;
-  const post = (b: unknown) =>
-    scrutineer.fetch(url, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(b) });
+  // Measured loops use kept-alive node:http connections (LoadClient): the scrutineer's for records, an
+  // anonymous set for the health route.
+  const asScrutineer = new LoadClient(CLIENTS, scrutineer.cookieHeader());
+  const anonymous = new LoadClient(CLIENTS);
+  const post = (b: unknown) => asScrutineer.request('POST', url, b);
+  const healthCheck = () => anonymous.request('GET', '/api/health');
   // Warm-up: compile paths, fill pools.
   // Both paths get JIT-compiled and their pools filled before anything is measured: in early runs the
   // baseline kept getting faster round after round.
   for (let i = 0; i < 3; i++) {
-    await run('warm-up', () => fetch(`${BASE}/api/health`));
+    await run('warm-up', healthCheck);
     await run('warm-up', (w) => post(body(entryIds[w])));
   }
   // Baseline and new records alternate for ROUNDS rounds, so a slow patch of the machine weighs on
   // both; each round's ratio is printed, and the median ratio is the figure to quote.
   const keys: [string, string][] = [];
-  const rounds: { health: Result; record: Result; drainS: number }[] = [];
+  const rounds: { health: Result; record: Result; drainS: number; during: Cpu }[] = [];
   await waitForBackground(db); // the warm-up's mails and chain links
   for (let i = 0; i < ROUNDS; i++) {
-    const health = await run('GET /api/health (baseline)', () => fetch(`${BASE}/api/health`));
+    const health = await run('GET /api/health (baseline)', healthCheck);
     const record = await run('POST inspections (new record)', (w) => {
       const key = randomUUID();
       keys.push([entryIds[w], key]);
@@ -191,8 +203,9 @@ async function main() {
     const cpuBefore = cpuNow();
     const drainS = await waitForBackground(db);
     const cpuAfter = cpuNow();
+    const during = { ...record.cpu! };
     for (const k of Object.keys(cpuAfter) as (keyof Cpu)[]) record.cpu![k] += (cpuAfter[k] - cpuBefore[k]) / REQUESTS;
-    rounds.push({ health, record, drainS });
+    rounds.push({ health, record, drainS, during });
   }
   const replay = await run('POST inspections (repeated key)', (_w, i) =>
     post(body(keys[i % keys.length][0], keys[i % keys.length][1])),
@@ -227,10 +240,10 @@ async function main() {
     `\nmedian over rounds: new records ${median(rounds.map((r) => rps(r.record))).toFixed(0)} req/s, ` +
       `baseline ${median(rounds.map((r) => rps(r.health))).toFixed(0)} req/s; baseline p95 ${pct(all('health'), 95).toFixed(1)} ms`,
   );
-  const cpuLine = (label: string, k: 'health' | 'record') => {
-    const per = (p: keyof Cpu) => median(rounds.map((r) => r[k].cpu![p]));
+  const cpuLine = (label: string, k: 'health' | 'record' | 'during') => {
+    const per = (p: keyof Cpu) => median(rounds.map((r) => (k === 'during' ? r.during : r[k].cpu!)[p]));
     console.log(
-      `  ${label.padEnd(28)} app ${per('app').toFixed(2).padStart(6)}   postgres ${per('postgres').toFixed(2).padStart(6)}   fakes ${per('fakes').toFixed(2).padStart(6)}`,
+      `  ${label.padEnd(28)} app ${per('app').toFixed(2).padStart(6)}   postgres ${per('postgres').toFixed(2).padStart(6)}   fakes ${per('fakes').toFixed(2).padStart(6)}   this bench ${per('bench').toFixed(2).padStart(6)}`,
     );
   };
   console.log(
@@ -238,6 +251,7 @@ async function main() {
   );
   cpuLine('GET /api/health (baseline)', 'health');
   cpuLine('POST inspections (new)', 'record');
+  cpuLine('  of which during the round', 'during');
   console.log(`goals (issue 18, item 4; ${CLIENTS} clients, same run):`);
   console.log(
     `  ${verdict(p95 < P95_GOAL_MS)}  new records p95 ${p95.toFixed(1)} ms over all rounds (target under ${P95_GOAL_MS} ms)`,
@@ -246,6 +260,9 @@ async function main() {
     `  ${verdict(ratio >= THROUGHPUT_GOAL)}  new records ${ratio.toFixed(2)}x the baseline's throughput, median of the rounds' ratios (target at least ${THROUGHPUT_GOAL}x)`,
   );
   console.log(`load average: ${loadAtStart} at the start, ${load()} at the end`);
+  if (process.env.BENCH_DUMP) (await import('node:fs')).writeFileSync(process.env.BENCH_DUMP, JSON.stringify(dump));
+  asScrutineer.close();
+  anonymous.close();
   await db.end();
 }
 

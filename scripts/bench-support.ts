@@ -2,9 +2,69 @@
 // scratch meeting (class with published rules, the demo scrutineer on its staff, entered boats),
 // and an inspection body. Records are append-only, so the scripts never touch the demo meeting.
 import { randomUUID } from 'node:crypto';
+import http from 'node:http';
 
 export const BASE = process.env.BASE_URL ?? 'http://localhost:3000';
 const PASSWORD = 'tarnwater-demo';
+
+/**
+ * The measured loops' client: node:http on kept-alive connections, one per concurrent loop. The load
+ * runs on the same two cores as the app, PostgreSQL and the fakes, so what the client itself spends
+ * per request is taken from them: fetch (undici, with a Headers object, an AbortSignal timer and
+ * cookie parsing per request) cost about 1.2–1.5 ms of CPU per request here, node:http about a third
+ * of that (bench:inspections prints the figure as "this bench"). Sends what a phone's browser sends:
+ * the session cookie, and Accept-Encoding so that answers the app compresses are compressed.
+ */
+export class LoadClient {
+  private readonly agent: http.Agent;
+  private readonly url: URL;
+  constructor(
+    connections: number,
+    private readonly cookie = '',
+    base = BASE,
+    private readonly timeoutMs = 15_000,
+  ) {
+    this.agent = new http.Agent({ keepAlive: true, maxSockets: connections });
+    this.url = new URL(base);
+  }
+  /** Sends one request and reads the whole answer; resolves with its status. */
+  request(method: 'GET' | 'POST', path: string, json?: unknown): Promise<{ status: number; ok: boolean }> {
+    const body = json === undefined ? undefined : Buffer.from(JSON.stringify(json));
+    const headers: http.OutgoingHttpHeaders = { 'accept-encoding': 'gzip, deflate, br' };
+    if (this.cookie) headers.cookie = this.cookie;
+    if (body) {
+      headers['content-type'] = 'application/json';
+      headers['content-length'] = body.length;
+    }
+    return new Promise((resolve, reject) => {
+      const req = http.request(
+        {
+          host: this.url.hostname,
+          port: this.url.port,
+          method,
+          path,
+          headers,
+          agent: this.agent,
+          timeout: this.timeoutMs,
+        },
+        (res) => {
+          res.on('data', () => {});
+          res.on('end', () => {
+            const status = res.statusCode ?? 0;
+            resolve({ status, ok: status >= 200 && status < 300 });
+          });
+          res.on('error', reject);
+        },
+      );
+      req.on('timeout', () => req.destroy(new Error(`${method} ${path}: no answer in ${this.timeoutMs} ms`)));
+      req.on('error', reject);
+      req.end(body);
+    });
+  }
+  close() {
+    this.agent.destroy();
+  }
+}
 
 export class Client {
   private cookies = new Map<string, string>();

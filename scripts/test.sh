@@ -59,9 +59,11 @@ fi
 run_script=""
 if [ "${1:-}" = "--run" ]; then run_script="${2:?--run needs a script}"; shift 2; fi
 
-# Mail waits at most 1 s behind a busy app server in tests (benchmarks keep the 10 s default), so tests that
-# read mail while a page is polling wait a moment, not seconds.
-if [ -z "$run_script" ]; then export MAIL_BUSY_DEFER_MS="${MAIL_BUSY_DEFER_MS:-1000}"; fi
+# Mail and the record chain's linking wait at most 1 s behind a busy app server in tests (benchmarks keep the
+# 10 s default), so tests that read mail or chain links while a page is polling wait a moment, not seconds.
+if [ -z "$run_script" ]; then
+  export MAIL_BUSY_DEFER_MS="${MAIL_BUSY_DEFER_MS:-1000}" CHAIN_BUSY_DEFER_MS="${CHAIN_BUSY_DEFER_MS:-1000}"
+fi
 
 files=()
 if [ -n "$run_script" ]; then files=("$run_script"); elif [ $# -gt 0 ]; then files=("$@"); else

@@ -104,6 +104,8 @@ export const EnvSchema = z.object({
   // was recorded, and how often it re-verifies every chain (nightly by default).
   BORELINE_KEY_DIR: z.preprocess(unsetIfEmpty, z.string().trim().default('.data/chain-keys')),
   CHAIN_LINK_INTERVAL_MS: positiveInt(2000),
+  // Linking waits while the server answers requests, at most this long (as MAIL_BUSY_DEFER_MS for mail).
+  CHAIN_BUSY_DEFER_MS: positiveInt(10_000),
   CHAIN_CHECK_INTERVAL_MS: positiveInt(86_400_000),
   // Throttles and limits (lib/server/auth, lib/server/accounts, lib/server/http)
   THROTTLE_PURGE_INTERVAL_S: positiveInt(60),

@@ -4,6 +4,7 @@ import { getDb } from '@/lib/server/db';
 import { serverEnv } from '@/lib/server/config/env';
 import { logger } from '@/lib/server/observability';
 import { requestsInFlight } from '@/lib/server/http/in-flight';
+import { createBusyGate, type BusyGate } from '@/lib/core/concurrency/busy-gate';
 import { sendMail } from './send';
 import { queueSlotReminders } from '@/lib/server/schedule/queue-slot-reminders';
 
@@ -78,7 +79,7 @@ export async function sendOutboxBatch(limit = BATCH): Promise<{ claimed: number;
   });
 }
 
-type WorkerState = { timer?: NodeJS.Timeout; running: boolean; lastErrorLogAt: number; busySince: number | null };
+type WorkerState = { timer?: NodeJS.Timeout; running: boolean; lastErrorLogAt: number; busy: BusyGate };
 const globalForOutbox = globalThis as unknown as { __borelineOutbox?: WorkerState };
 
 /** Sends batches until the due messages are gone or the tick's budget is spent. */
@@ -86,11 +87,7 @@ async function tick(state: WorkerState) {
   if (state.running) return; // the previous tick is still sending
   // The server is answering requests (a dock recording, say): mail waits, for MAIL_BUSY_DEFER_MS at most, so
   // a burst of records is answered before their e-mails are composed and sent on the same CPU.
-  if (requestsInFlight() > 0) {
-    state.busySince ??= Date.now();
-    if (Date.now() - state.busySince < serverEnv().MAIL_BUSY_DEFER_MS) return;
-  }
-  state.busySince = null;
+  if (state.busy.shouldWait(requestsInFlight(), Date.now())) return;
   state.running = true;
   const started = Date.now();
   try {
@@ -120,7 +117,11 @@ async function tick(state: WorkerState) {
 /** Starts this process's worker (once; later calls do nothing). It never keeps the process alive. */
 export function startOutboxWorker() {
   if (globalForOutbox.__borelineOutbox) return;
-  const state: WorkerState = { running: false, lastErrorLogAt: 0, busySince: null };
+  const state: WorkerState = {
+    running: false,
+    lastErrorLogAt: 0,
+    busy: createBusyGate(() => serverEnv().MAIL_BUSY_DEFER_MS),
+  };
   globalForOutbox.__borelineOutbox = state;
   state.timer = setInterval(() => void tick(state), serverEnv().MAIL_OUTBOX_INTERVAL_MS);
   state.timer.unref();
