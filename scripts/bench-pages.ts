@@ -10,7 +10,8 @@
 // Targets (issue #18): performance >= 90 and accessibility 100 on every page, LCP < 2.5 s on the
 // mobile profile, dock screen first-load JavaScript <= 170 KB compressed. Lighthouse's own thresholds
 // for "good": TBT < 200 ms, CLS < 0.1 (web.dev/articles/vitals, Core Web Vitals) [memory].
-// BENCH_PAGES=landing,dock narrows the pages; BENCH_RUNS=1 for a quick look.
+// BENCH_PAGES=landing,dock narrows the pages; BENCH_RUNS=1 for a quick look; BENCH_SAVE_TRACE=1 keeps each
+// run's Chromium trace (test-results/lighthouse/*-0.trace.json) for a look at its long tasks.
 import { randomUUID } from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -90,6 +91,8 @@ async function measure(port: number, page: Page, run: number): Promise<Figures> 
     `--output-path=${file}`,
     '--only-categories=performance,accessibility',
     '--quiet',
+    // BENCH_SAVE_TRACE=1: Lighthouse also writes the run's trace and DevTools log beside the report.
+    ...(process.env.BENCH_SAVE_TRACE === '1' ? ['--save-assets'] : []),
     ...(page.cookie ? [`--extra-headers=${headersFile}`] : []),
   ];
   const done = spawnSync(process.execPath, args, { stdio: ['ignore', 'ignore', 'inherit'], timeout: 180_000 });
