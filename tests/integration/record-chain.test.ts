@@ -10,7 +10,15 @@ import assert from 'node:assert/strict';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { createHash, generateKeyPairSync, sign } from 'node:crypto';
+import {
+  createHash,
+  createPrivateKey,
+  createPublicKey,
+  generateKeyPairSync,
+  randomUUID,
+  sign,
+  verify,
+} from 'node:crypto';
 import { execFileSync } from 'node:child_process';
 import pg from 'pg';
 import { HttpSession } from '../support/http-session';
@@ -405,4 +413,46 @@ test("a meeting day's end is signed once, dated in the meeting's time zone, and 
     meeting.eventId,
   ]);
   assert.equal(Number(signed[0].count), Number(n), 'it covers the whole chain');
+});
+
+test('a key file is never written over: with no public key in the database it is the chain key again; a damaged one is kept aside', async () => {
+  const c = await client();
+  // After a database restore (or a demo reset) that kept the key folder: chain_keys has no row for the chain, the
+  // folder has the meeting's key. Its checkpoints must still verify with that key, so it is taken up, not replaced.
+  const restored = randomUUID();
+  const kept = generateKeyPairSync('ed25519');
+  const keptFile = path.join(keyDir, `${restored}.ed25519.pem`);
+  const pem = kept.privateKey.export({ format: 'pem', type: 'pkcs8' }) as string;
+  fs.writeFileSync(keptFile, pem, { mode: 0o600 });
+  const checkpoint = await signCheckpoint(c, restored, 'after a restore', keyDir);
+  assert.equal(fs.readFileSync(keptFile, 'utf8'), pem, 'the key file is unchanged');
+  const [row] = await query<{ spki: Buffer }>('select public_key_spki as spki from chain_keys where chain_key = $1', [
+    restored,
+  ]);
+  assert.ok(
+    row.spki.equals(kept.publicKey.export({ format: 'der', type: 'spki' })),
+    'the stored public key is its key',
+  );
+  // Ed25519 (RFC 8032) through node:crypto: the new checkpoint verifies with the kept key.
+  assert.ok(
+    verify(null, checkpointMessage(checkpoint), kept.publicKey, Buffer.from(checkpoint.signature, 'base64')),
+    'the checkpoint is signed by the kept key',
+  );
+
+  // A file that holds no usable key (cut short, or another kind of key) is moved aside, never deleted.
+  const damaged = randomUUID();
+  const damagedFile = path.join(keyDir, `${damaged}.ed25519.pem`);
+  fs.writeFileSync(damagedFile, pem.slice(0, 40), { mode: 0o600 });
+  await signCheckpoint(c, damaged, 'after a damaged key file', keyDir);
+  const aside = fs.readdirSync(keyDir).filter((f) => f.startsWith(`${damaged}.ed25519.pem.unusable-`));
+  assert.equal(aside.length, 1, 'the damaged file is kept under another name');
+  assert.equal(fs.readFileSync(path.join(keyDir, aside[0]), 'utf8'), pem.slice(0, 40));
+  const made = createPublicKey(createPrivateKey(fs.readFileSync(damagedFile, 'utf8'))).export({
+    format: 'der',
+    type: 'spki',
+  });
+  const [made2] = await query<{ spki: Buffer }>('select public_key_spki as spki from chain_keys where chain_key = $1', [
+    damaged,
+  ]);
+  assert.ok(made2.spki.equals(made), 'a new key was made, and its public key stored');
 });

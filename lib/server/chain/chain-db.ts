@@ -17,6 +17,8 @@ import {
   type CheckpointBody,
 } from '@/lib/core/chain/bundle-format';
 import { verifyRecords, type ChainProblem } from '@/lib/core/chain/verify-bundle';
+// The process's structured log itself (lib/server/observability.ts re-exports it for server-only code).
+import { logger } from '../../../scripts/observability.mjs';
 
 export type Sql = { query(text: string, values?: unknown[]): Promise<{ rows: Record<string, unknown>[] }> };
 
@@ -224,9 +226,23 @@ function keyFile(keyDir: string, chainKey: string) {
   return path.join(keyDir, `${checkChainKey(chainKey)}.ed25519.pem`);
 }
 
+/** The Ed25519 private key in a key file, or null when the file holds no such key (damaged, another kind of key). */
+function readPrivateKey(file: string): KeyObject | null {
+  try {
+    const key = createPrivateKey(fs.readFileSync(file, 'utf8'));
+    return key.asymmetricKeyType === 'ed25519' ? key : null;
+  } catch {
+    return null;
+  }
+}
+
 /**
  * The chain's Ed25519 key: made on first use (the private key as PKCS#8 PEM in keyDir, mode 0600, never
  * in the database; the public key and its fingerprint in chain_keys). Call under the chain's lock.
+ * A key file is never written over: when the database has no public key for the chain but the folder has
+ * its key file (the database was restored, or reset, and the key folder kept), that key is the chain's
+ * again, so checkpoints it signed before still verify with it; a file that holds no usable key is kept
+ * beside under another name and a new key is made.
  */
 async function chainKeyPair(client: Sql, chainKey: string, keyDir: string): Promise<ChainKey> {
   const file = keyFile(keyDir, chainKey);
@@ -241,11 +257,23 @@ async function chainKeyPair(client: Sql, chainKey: string, keyDir: string): Prom
     if (!spki.equals(stored.spki)) throw new Error(`the key file of chain ${chainKey} is not the chain's key`);
     return { privateKey, spki, fingerprint: stored.fingerprint };
   }
-  const { privateKey, publicKey } = generateKeyPairSync('ed25519');
-  const spki = publicKey.export({ format: 'der', type: 'spki' });
+  let privateKey = fs.existsSync(file) ? readPrivateKey(file) : null;
+  if (!privateKey) {
+    if (fs.existsSync(file)) {
+      const aside = `${file}.unusable-${new Date().toISOString().replace(/[:.]/g, '-')}`;
+      fs.renameSync(file, aside);
+      logger().warn(
+        { chainKey, file: aside },
+        'record chain: a key file held no usable Ed25519 key; kept aside, new key made',
+      );
+    }
+    privateKey = generateKeyPairSync('ed25519').privateKey;
+    fs.mkdirSync(keyDir, { recursive: true, mode: 0o700 });
+    // 'wx': fails rather than replace a file that appeared meanwhile.
+    fs.writeFileSync(file, privateKey.export({ format: 'pem', type: 'pkcs8' }), { mode: 0o600, flag: 'wx' });
+  }
+  const spki = createPublicKey(privateKey).export({ format: 'der', type: 'spki' });
   const fingerprint = await keyFingerprint(new Uint8Array(spki));
-  fs.mkdirSync(keyDir, { recursive: true, mode: 0o700 });
-  fs.writeFileSync(file, privateKey.export({ format: 'pem', type: 'pkcs8' }), { mode: 0o600, flag: 'w' });
   await client.query('insert into chain_keys (chain_key, public_key_spki, fingerprint) values ($1, $2, $3)', [
     chainKey,
     spki,
