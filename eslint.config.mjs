@@ -29,7 +29,15 @@ export default defineConfig([
     rules: {
       'no-restricted-imports': [
         'error',
-        { paths: [{ name: 'next/link', message: "Import Link from '@/components/link' (no background prefetch)." }] },
+        {
+          paths: [
+            {
+              name: 'next/link',
+              importNames: ['default'],
+              message: "Import Link from '@/components/link' (no background prefetch).",
+            },
+          ],
+        },
       ],
     },
   },

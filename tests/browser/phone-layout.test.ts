@@ -110,6 +110,31 @@ test('phone navigation: the organiser and the scrutineer see every destination t
 
   const ent = await phonePage(DEMO.entrant);
   await assertNavFits(ent, ['Home', 'My boats', 'My entries', 'My protests', 'Jet calculator', 'My account']);
+  // A tap on a slow link shows at once that the page is coming (My entries has no loading skeleton): the server's
+  // answer is held back 1.5 s here, as one bar of signal would.
+  let release = () => {};
+  await ent.route(
+    (u) => u.pathname === '/entries' && u.searchParams.has('_rsc'),
+    async (route) => {
+      await new Promise<void>((r) => (release = r));
+      await route.continue();
+    },
+  );
+  await ent.getByTestId('main-nav').getByRole('link', { name: 'My entries', exact: true }).click();
+  const pending = ent.getByTestId('link-pending');
+  await pending.waitFor();
+  const bar = await box(pending);
+  assert.ok(
+    bar.y === 0 && bar.width >= VIEWPORT.width - 1,
+    `a bar along the top of the screen: ${JSON.stringify(bar)}`,
+  );
+  assert.equal(await pending.getAttribute('role'), 'status');
+  assert.equal(await pending.innerText(), 'Opening the page…', 'said to screen readers');
+  await screenshot(ent, 'phone-02b-link-pending');
+  release();
+  await ent.waitForURL((u) => u.pathname === '/entries');
+  await ent.getByRole('heading', { level: 1 }).first().waitFor();
+  await pending.waitFor({ state: 'detached' });
   await ent.context().close();
 });
 
