@@ -27,6 +27,8 @@ import { query } from '../support/db';
 import { InspectionMeeting, inspectionBody, rulesWith } from '../support/inspection-meeting';
 import {
   buildBundle,
+  bundleFileLines,
+  planBundle,
   checkChain,
   linkChain,
   signCheckpoint,
@@ -168,6 +170,30 @@ test("a meeting's bundle verifies, with its files and a checkpoint signed by the
     ['rules of X version 1 published', 'rules of X version 1 published', 'test publication'],
   );
   assert.equal(result.checkpoints.at(-1)!.count, checkpoint.count);
+
+  // The files come after the records, read one at a time as the bundle is consumed (the app streams it): the
+  // plan holds their names, not their bytes; the first file line costs one read, not all of them.
+  const plan = await planBundle(c, meeting.eventId);
+  assert.ok(plan.head.endsWith('\n') && !plan.head.includes('"type":"file"'), 'no file in the records part');
+  assert.deepEqual(
+    plan.files.map((f) => f.objectKey),
+    [objectKey],
+  );
+  const reads: string[] = [];
+  const lines = bundleFileLines(
+    [...plan.files, { ...plan.files[0], objectKey: 'evidence/never-stored.jpg' }],
+    async (k) => {
+      reads.push(k);
+      if (!files.has(k)) throw new Error('no such object');
+      return files.get(k)!;
+    },
+  );
+  const first = await lines.next();
+  assert.deepEqual(reads, [objectKey], 'one file read for the first file line');
+  assert.equal(JSON.parse(first.value as string).base64, photo.toString('base64'));
+  assert.equal((await lines.next()).done, true, 'a file that cannot be read is left out');
+  const afterHeader = (text: string) => text.slice(text.indexOf('\n') + 1); // the header line carries its time
+  assert.equal(afterHeader(plan.head + first.value), afterHeader(bundle), 'the same lines as the bundle in one piece');
 
   // The command-line verifier says the same, with exit code 0.
   const file = path.join(scratch, 'bundle.jsonl');

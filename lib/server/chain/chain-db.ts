@@ -345,19 +345,22 @@ function inCaseFile(r: ChainRecord, protestId: string, items: Set<string>, inspe
   );
 }
 
+/** A bundle read from the database: its lines up to the checkpoints (header, key, records, checkpoints), and the files its records name, read afterwards. */
+export type BundlePlan = { head: string; files: { objectKey: string; sha256: string; contentType: string }[] };
+
 /**
  * The export bundle of a meeting's chain (bundle-format.ts), or one protest's case file: every link of
  * the meeting up to its newest signed checkpoint, with rows only for the protest's records (the others'
  * links still chain). The verifier refuses records no checkpoint covers, so a record linked after that
  * checkpoint (the meeting goes on while the bundle is built) waits for the next export, and a checkpoint
- * signed after the records were read is left out. Files the rows name are read with `readFile` (object
- * storage in the app).
+ * signed after the records were read is left out. The files the rows name come after (bundleFileLines,
+ * from object storage in the app).
  */
-export async function buildBundle(
+export async function planBundle(
   client: Sql,
   chainKey: string,
-  opts: { readFile: (objectKey: string) => Promise<Buffer>; protestId?: string },
-): Promise<string> {
+  opts: { protestId?: string } = {},
+): Promise<BundlePlan> {
   await linkChain(client, chainKey, 100_000);
   let records = await chainRecords(client, chainKey);
   const { rows: checkpoints } = await client.query(
@@ -397,23 +400,43 @@ export async function buildBundle(
       (c) => ({ type: 'checkpoint', ...c, signedAt: (c.signedAt as Date).toISOString() }) as unknown as Checkpoint,
     ),
   ];
+  const files: BundlePlan['files'] = [];
   const seen = new Set<string>();
   for (const r of records) {
     const ref = fileReference(r.row);
     if (!ref || seen.has(ref.objectKey)) continue;
     seen.add(ref.objectKey);
-    // A file that cannot be read is left out: the verifier then names the record whose file is missing.
-    const bytes = await opts.readFile(ref.objectKey).catch(() => null);
-    if (!bytes) continue;
-    lines.push({
-      type: 'file',
-      objectKey: ref.objectKey,
-      sha256: ref.sha256,
-      contentType: String(r.row?.content_type ?? 'application/octet-stream'),
-      base64: bytes.toString('base64'),
-    });
+    files.push({ ...ref, contentType: String(r.row?.content_type ?? 'application/octet-stream') });
   }
-  return lines.map((l) => JSON.stringify(l)).join('\n') + '\n';
+  return { head: lines.map((l) => JSON.stringify(l) + '\n').join(''), files };
+}
+
+/**
+ * The bundle's file lines, one file read (and held) at a time, so a meeting's photos never sit in memory together.
+ * A file that cannot be read is left out: the verifier then names the record whose file is missing.
+ */
+export async function* bundleFileLines(
+  files: BundlePlan['files'],
+  readFile: (objectKey: string) => Promise<Buffer>,
+): AsyncGenerator<string> {
+  for (const f of files) {
+    const bytes = await readFile(f.objectKey).catch(() => null);
+    if (!bytes) continue;
+    const line: BundleLine = { type: 'file', ...f, base64: bytes.toString('base64') };
+    yield JSON.stringify(line) + '\n';
+  }
+}
+
+/** The whole bundle as one text (tests, and small chains): planBundle, then every file line. */
+export async function buildBundle(
+  client: Sql,
+  chainKey: string,
+  opts: { readFile: (objectKey: string) => Promise<Buffer>; protestId?: string },
+): Promise<string> {
+  const plan = await planBundle(client, chainKey, opts);
+  let text = plan.head;
+  for await (const line of bundleFileLines(plan.files, opts.readFile)) text += line;
+  return text;
 }
 
 /** The first checkpoint that covers a chained row (the one signed at its publication), or null. */

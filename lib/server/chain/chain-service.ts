@@ -12,7 +12,8 @@ import { AppError } from '@/lib/core/errors';
 import type { Checkpoint } from '@/lib/core/chain/bundle-format';
 import type { ChainProblem } from '@/lib/core/chain/verify-bundle';
 import {
-  buildBundle,
+  bundleFileLines,
+  planBundle,
   checkpointCovering,
   checkAllChains,
   latestCheckpoint,
@@ -135,7 +136,11 @@ export async function lastSelfCheck(actor: Actor): Promise<SelfCheck | null> {
  * A meeting's export bundle (or one protest's case file), for the meeting's officials who may export it.
  * The chain's key must exist: a checkpoint is signed first, so the bundle always ends with a signed head.
  */
-export async function exportMeetingBundle(actor: Actor, eventIdRaw: string, protestIdRaw?: string): Promise<string> {
+export async function exportMeetingBundle(
+  actor: Actor,
+  eventIdRaw: string,
+  protestIdRaw?: string,
+): Promise<ReadableStream<Uint8Array>> {
   const eventId = parseId(eventIdRaw, 'meeting');
   assertCan(actor, 'chain.export', { eventId });
   const protestId = protestIdRaw ? parseId(protestIdRaw, 'protest') : undefined;
@@ -146,8 +151,25 @@ export async function exportMeetingBundle(actor: Actor, eventIdRaw: string, prot
     });
     if (!p) throw new AppError('not_found', 404, 'No such protest at this meeting.');
   }
-  return withChainClient(async (c) => {
+  const plan = await withChainClient(async (c) => {
     await signCheckpoint(c, eventId, protestId ? 'case file export' : 'export', keyDir());
-    return buildBundle(c, eventId, { readFile: getObjectBytes, ...(protestId ? { protestId } : {}) });
+    return planBundle(c, eventId, protestId ? { protestId } : {});
+  });
+  // The records go out at once; the files follow one at a time as the client reads (the database connection is
+  // already back in the pool), so a meeting's photos are never all in memory.
+  const encoder = new TextEncoder();
+  const files = bundleFileLines(plan.files, getObjectBytes);
+  return new ReadableStream<Uint8Array>({
+    start(controller) {
+      controller.enqueue(encoder.encode(plan.head));
+    },
+    async pull(controller) {
+      const next = await files.next();
+      if (next.done) controller.close();
+      else controller.enqueue(encoder.encode(next.value));
+    },
+    async cancel() {
+      await files.return(undefined);
+    },
   });
 }

@@ -6,9 +6,9 @@ type P = { eventId: string };
 
 export const GET = withPermission<P>('chain.export', async (req, { actor, params }) => {
   const protest = req.nextUrl.searchParams.get('protest') ?? undefined;
-  const text = await exportMeetingBundle(actor, params.eventId, protest);
+  const stream = await exportMeetingBundle(actor, params.eventId, protest);
   const name = `boreline-chain-${params.eventId}${protest ? `-protest-${protest}` : ''}.jsonl`;
-  return new Response(text, {
+  return new Response(stream, {
     headers: {
       'Content-Type': 'application/x-ndjson; charset=utf-8',
       'Content-Disposition': `attachment; filename="${name}"`,
