@@ -1,8 +1,8 @@
 'use client';
 
 import { useEffect, useRef } from 'react';
-import { signIn } from 'next-auth/react';
 import { useRouter } from 'next/navigation';
+import { signInWith } from '@/components/sign-in';
 import { changePasswordAction, type ActionResult } from './actions';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/forms/form-message';
@@ -23,7 +23,9 @@ export function PasswordForm({ email, hasPassword }: { email: string; hasPasswor
   );
   useEffect(() => {
     if (!state?.ok) return;
-    void signIn('password', { email, password: newPassword.current, redirect: false }).then(() => router.refresh());
+    void signInWith('password', { email, password: newPassword.current })
+      .catch(() => null)
+      .then(() => router.refresh());
     newPassword.current = '';
   }, [state, email, router]);
   return (

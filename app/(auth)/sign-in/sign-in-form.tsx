@@ -1,8 +1,8 @@
 'use client';
 
 import { useState } from 'react';
-import { signIn } from 'next-auth/react';
 import { useRouter } from 'next/navigation';
+import { signInWith } from '@/components/sign-in';
 import type { FormState } from '@/components/forms/request-json';
 import { useFormAction } from '@/components/forms/use-form-action';
 
@@ -21,11 +21,11 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
   const { state, isPending, form } = useFormAction(
     async (_prev: FormState, data: FormData): Promise<FormState> => {
       const email = String(data.get('email') ?? '');
-      // A refused link request (too many from this address) makes next-auth's client throw.
+      // A refused link request (too many from this address) is not answered with next-auth's JSON: signInWith throws.
       const res = await (
         mode === 'password'
-          ? signIn('password', { email, password: String(data.get('password') ?? ''), redirect: false, callbackUrl })
-          : signIn('email', { email, redirect: false, callbackUrl })
+          ? signInWith('password', { email, password: String(data.get('password') ?? '') }, callbackUrl)
+          : signInWith('email', { email }, callbackUrl)
       ).catch(() => ({ error: mode === 'link' ? 'TooManyLinks' : 'Unavailable' }));
       if (!res || res.error)
         return { ok: false, message: MESSAGES[res?.error ?? ''] ?? 'Sign-in failed. Check the address and try again.' };

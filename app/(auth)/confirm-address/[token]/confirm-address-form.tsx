@@ -1,7 +1,7 @@
 'use client';
 
-import { signIn } from 'next-auth/react';
 import { useRouter } from 'next/navigation';
+import { signInWith } from '@/components/sign-in';
 import { TextField } from '@/components/ui/text-field';
 import type { FormState } from '@/components/forms/request-json';
 import { useFormAction } from '@/components/forms/use-form-action';
@@ -12,7 +12,7 @@ export function ConfirmAddressForm({ token }: { token: string }) {
     async (_prev: FormState, data: FormData): Promise<FormState> => {
       const password = String(data.get('password') ?? '');
       if (!password) return { ok: false, fieldErrors: { password: 'Enter the password you chose at sign-up.' } };
-      const res = await signIn('address-proof', { token, password, redirect: false }).catch(() => null);
+      const res = await signInWith('address-proof', { token, password }).catch(() => null);
       if (!res || res.error)
         return {
           ok: false,
