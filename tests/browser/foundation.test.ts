@@ -82,5 +82,16 @@ test('a wrong password shows a clear message on the sign-in page', async () => {
   const err = page.getByTestId('sign-in-error');
   await err.waitFor();
   assert.match(await err.innerText(), /do not match/);
+  // Then the right one: signing in costs the phone two requests to next-auth (its CSRF token, then the form), not
+  // the four of next-auth/react's client (which also asks for the provider list and then the session).
+  const authCalls: string[] = [];
+  page.on('request', (r) => {
+    const u = new URL(r.url());
+    if (u.pathname.startsWith('/api/auth/')) authCalls.push(`${r.method()} ${u.pathname}`);
+  });
+  await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in', exact: true }).click();
+  await page.waitForURL('**/home');
+  assert.deepEqual(authCalls, ['GET /api/auth/csrf', 'POST /api/auth/callback/password']);
   await context.close();
 });
