@@ -8,6 +8,7 @@ import {
 } from 'sequelize';
 
 import type { EventStatus, EventStaffRole } from './shapes/event';
+import type { SeriesOfficialRole } from './shapes/series';
 export type { EventStatus, EventStaffRole };
 
 // A race meeting run by an organisation.
@@ -46,12 +47,14 @@ export class EventStaff extends Model<InferAttributes<EventStaff>, InferCreation
   declare updatedAt: CreationOptional<Date>;
 }
 
-// An e-mailed invitation to join an event's staff; only the token's SHA-256 is stored.
+// An e-mailed invitation to a meeting's staff (eventId) or to a series role (seriesId), exactly one of the two;
+// only the token's SHA-256 is stored.
 export class StaffInvitation extends Model<InferAttributes<StaffInvitation>, InferCreationAttributes<StaffInvitation>> {
   declare id: CreationOptional<string>;
-  declare eventId: string;
+  declare eventId: CreationOptional<string | null>;
+  declare seriesId: CreationOptional<string | null>;
   declare email: string;
-  declare role: EventStaffRole;
+  declare role: EventStaffRole | SeriesOfficialRole;
   declare tokenHash: string;
   declare invitedById: string;
   declare expiresAt: Date;
@@ -101,7 +104,8 @@ export function initEvents(sequelize: Sequelize) {
   StaffInvitation.init(
     {
       id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
-      eventId: { type: DataTypes.UUID, allowNull: false },
+      eventId: { type: DataTypes.UUID },
+      seriesId: { type: DataTypes.UUID },
       email: { type: DataTypes.STRING, allowNull: false },
       role: { type: DataTypes.STRING, allowNull: false },
       tokenHash: { type: DataTypes.STRING, allowNull: false, unique: true },

@@ -171,6 +171,7 @@ test('organiser, steward, administrator and appeal body pages: no serious or cri
         { path: `/organise/events/${e}/clock` },
         { path: `/organise/events/${e}/classes/${classId}` },
         { path: `/organise/events/${e}/classes/${classId}/report`, chart: 'chart-thrust-curves' },
+        { path: `/series/${DEMO_SERIES}/officials` },
       ],
     ],
     [

@@ -1,13 +1,14 @@
 // Journey on a phone: the demo series' secretary (the demo organiser) opens the officials' page of the demo series
 // class, sees the caution, publishes a technical bulletin through the form (a refused date first, then a good one),
-// and every entrant of the class is e-mailed; the public series page lists it. Demo data is the scenario here, not a
+// and every entrant of the class is e-mailed; the public series page lists it. Then the secretary invites a series
+// steward from the officials screen and sees the invitation waiting, with its expiry. Demo data is the scenario here, not a
 // reference: the figures checked are only those the test itself typed.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { randomUUID } from 'node:crypto';
 import type { Browser } from 'playwright-core';
 import { launchBrowser, newContext, screenshot, signInWithPassword, PHONE } from '../support/browser';
-import { DEMO, DEMO_PASSWORD } from '../support/env';
+import { DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
 import { query } from '../support/db';
 import { waitForMail } from '../support/mail';
 
@@ -50,4 +51,20 @@ test('series secretary: publishes a technical bulletin from the officials page; 
 
   await page.goto(`/series/${SERIES}`);
   await page.getByTestId('bulletin').filter({ hasText: title }).waitFor();
+
+  // Appointing an official is an invitation: the secretary sees it waiting, with its expiry, until it is accepted.
+  const invited = uniqueEmail('series-official');
+  await page.goto(`/series/${SERIES}/officials`);
+  await page.getByLabel('E-mail').fill(invited);
+  await page.getByRole('button', { name: 'Send invitation' }).click();
+  assert.match(
+    await page.getByTestId('official-invite-message').filter({ hasText: invited }).innerText(),
+    /hold the role once they accept/,
+  );
+  assert.match(
+    await page.getByTestId('series-invitations').locator('li', { hasText: invited }).innerText(),
+    /Series steward · expires \w{3} \d{1,2} \w{3} \d{4}/,
+  );
+  await screenshot(page, 'series-bulletin-02-official-invited');
+  await waitForMail(invited, { subject: /invited to/ });
 });

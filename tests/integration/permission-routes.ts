@@ -826,6 +826,13 @@ export const ROUTES: Row[] = [
     path: (i) => `/api/series/${i.seriesId}`,
     access: 'public',
   },
+  // The officials list with its open invitations: the secretary only (appointing is by invitation, POST below).
+  {
+    method: 'GET',
+    file: 'app/api/series/[seriesId]/officials/route.ts',
+    path: (i) => `/api/series/${i.seriesId}/officials`,
+    access: { series: ['series.manage'] },
+  },
   ...(['officials', 'classes'] as const).map((p) => ({
     method: 'POST' as const,
     file: `app/api/series/[seriesId]/${p}/route.ts`,

@@ -13,7 +13,7 @@ import * as ss from 'simple-statistics';
 import { HttpSession } from '../support/http-session';
 import { BASE_URL, DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
 import { query } from '../support/db';
-import { waitForMail } from '../support/mail';
+import { firstLink, waitForMail } from '../support/mail';
 import { extractPdfText } from '../support/pdf-text';
 
 const CLUB = '0b0e0000-0000-4000-8000-000000000001'; // the demo club: the demo organiser organises for it
@@ -191,8 +191,12 @@ before(async () => {
   });
   assert.equal(made.res.status, 201, JSON.stringify(made.body));
   seriesId = made.body.data.id;
+  // Appointing is an invitation to the address; the steward holds the role once they accept it.
   const off = await secretary.json(`${S()}/officials`, { email: seriesSteward.email, role: 'series_steward' });
   assert.equal(off.res.status, 201, JSON.stringify(off.body));
+  const invitation = await waitForMail(seriesSteward.email, { subject: new RegExp(`invited to Test Cup ${tag}`) });
+  const token = new URL(firstLink(invitation)).pathname.split('/').pop()!;
+  assert.equal((await new HttpSession().acceptInvitation(token)).status, 200);
   const cls = await secretary.json(`${S()}/classes`, {
     code: 'SR',
     name: 'Series Runabout',

@@ -138,6 +138,16 @@ export class HttpSession {
     });
   }
 
+  /** Follows an invitation link's token, as its acceptance page does (signs this session in when it works). */
+  async acceptInvitation(token: string, name?: string) {
+    const csrfToken = await this.csrfToken();
+    return this.fetch('/api/auth/callback/invitation', {
+      method: 'POST',
+      headers: { 'content-type': 'application/x-www-form-urlencoded' },
+      body: new URLSearchParams({ csrfToken, token, json: 'true', ...(name !== undefined && { name }) }),
+    });
+  }
+
   async session(): Promise<{ user?: { id?: string; email?: string } } | null> {
     const res = await this.fetch('/api/auth/session');
     const body = await res.json();

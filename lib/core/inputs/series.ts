@@ -1,6 +1,11 @@
 // One zod schema per series input, shared by the forms and the route handlers.
 import { z } from 'zod';
 import { ClassRules } from './class-rules';
+import { email } from './auth';
+import { SERIES_OFFICIAL_ROLES } from '../../../models/shapes/series';
+
+export { SERIES_OFFICIAL_ROLES };
+export type { SeriesOfficialRole } from '../../../models/shapes/series';
 
 const text = (min: number, max: number, tooShort: string) =>
   z.string({ error: tooShort }).trim().min(min, tooShort).max(max, `Keep this under ${max} characters.`);
@@ -23,11 +28,12 @@ export const CreateSeriesInput = z.strictObject({
 });
 export type CreateSeriesInput = z.infer<typeof CreateSeriesInput>;
 
-export const SERIES_OFFICIAL_ROLES = ['series_secretary', 'series_steward'] as const;
+// Appointing is by invitation to the address (whether or not it has an account): the same answer either way.
 export const AppointSeriesOfficialInput = z.strictObject({
-  email: z.email({ error: 'Give the e-mail address of a person with an account.' }).trim().toLowerCase(),
+  email,
   role: z.enum(SERIES_OFFICIAL_ROLES, { error: 'Choose secretary or steward.' }),
 });
+export type AppointSeriesOfficialInput = z.infer<typeof AppointSeriesOfficialInput>;
 
 export const CreateSeriesClassInput = z.strictObject({
   code: z

@@ -2,7 +2,7 @@ import 'server-only';
 import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/server/db';
 import { assertCan, type Actor } from '@/lib/server/auth/actor';
-import { AppError, fieldError } from '@/lib/core/errors';
+import { fieldError } from '@/lib/core/errors';
 import {
   AppointSeriesOfficialInput,
   AssignRaceNumberInput,
@@ -10,27 +10,28 @@ import {
   LinkRoundInput,
   PublishSeriesRulesInput,
 } from '@/lib/core/inputs/series';
+import { inviteSeriesOfficial } from '@/lib/server/auth/invitations';
 import { assertSeriesExists, findSeriesClass } from './series-access';
 
 const uniqueViolation = (e: unknown) => (e as { parent?: { code?: string } })?.parent?.code === '23505';
 
-/** The secretary appoints a person with an account as the series' secretary or steward. */
+/**
+ * The secretary appoints a series secretary or steward by e-mail address, always by an invitation mailed to that
+ * address: nothing here asks whether the address has an account, so the answer (status, body, mail) is the same
+ * either way and tells the secretary nothing about who has one (OWASP ASVS 5.0, V6 Authentication). The person
+ * holds the role once they accept from that mailbox. Someone already among the series' officials in that role is
+ * refused (409): the secretary sees that list anyway.
+ */
 export async function appointSeriesOfficial(actor: Actor | null, seriesId: string, readInput: () => Promise<unknown>) {
   assertCan(actor, 'series.manage', { seriesId });
   const input = AppointSeriesOfficialInput.parse(await readInput());
-  const { sequelize } = getDb();
-  const [user] = await sequelize.query<{ id: string }>(`select id from users where lower(email) = :email`, {
-    replacements: { email: input.email },
-    type: QueryTypes.SELECT,
-  });
-  if (!user) throw fieldError('email', 'No account has this address: ask the person to sign up first.');
-  const [row] = await sequelize.query<{ id: string }>(
-    `insert into series_officials (series_id, user_id, role, appointed_by_id) values (:seriesId, :userId, :role, :actorId)
-     on conflict (series_id, user_id, role) do nothing returning id`,
-    { replacements: { seriesId, userId: user.id, role: input.role, actorId: actor.id }, type: QueryTypes.SELECT },
+  const [held] = await getDb().sequelize.query(
+    `select 1 from series_officials o join users u on u.id = o.user_id
+      where o.series_id = :seriesId and o.role = :role and lower(u.email) = :email`,
+    { replacements: { seriesId, role: input.role, email: input.email }, type: QueryTypes.SELECT },
   );
-  if (!row) throw new AppError('conflict', 409, 'This person already holds this role in the series.');
-  return { id: row.id, userId: user.id, role: input.role };
+  if (held) throw fieldError('email', 'This person already holds this role in the series.', 409);
+  return inviteSeriesOfficial(actor, seriesId, input);
 }
 
 /** A class of the series with its points table (points per place) and dropped rounds. */

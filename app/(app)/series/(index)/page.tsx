@@ -33,6 +33,11 @@ export default async function MySeriesPage() {
                 <Link href={`/series/${s.id}`} className="btn-secondary">
                   Standings and bulletins
                 </Link>
+                {s.roles.includes('series_secretary') && (
+                  <Link href={`/series/${s.id}/officials`} className="btn-secondary">
+                    Officials and invitations
+                  </Link>
+                )}
                 {s.classes.map((c) => (
                   <Link key={c.id} href={`/series/${s.id}/classes/${c.id}/parity`} className="btn-primary">
                     {c.code}: parity history, bulletins, exports
