@@ -139,7 +139,7 @@ test('an organiser invites a scrutineer; the e-mailed link signs them in with th
   assert.equal(second.status, 401, 'an invitation works once');
 });
 
-test('only the event organiser may invite staff: an entrant gets 403, anonymous 401, nothing stored', async () => {
+test('only the event organiser may invite or appoint staff: an entrant gets 403, anonymous 401, before the body is read; nothing stored', async () => {
   const before = await query<{ n: string }>('select count(*) as n from staff_invitations');
   const entrant = new HttpSession();
   await entrant.signInWithPassword(DEMO.entrant, DEMO_PASSWORD);
@@ -148,6 +148,24 @@ test('only the event organiser may invite staff: an entrant gets 403, anonymous 
   const anon = new HttpSession();
   const r2 = await anon.json(`/api/events/${DEMO.meetingId}/invitations`, { email: uniqueEmail(), role: 'steward' });
   assert.equal(r2.res.status, 401);
+  // The permission is asked before the body is read: a malformed, an oversized or a wrongly typed body from
+  // someone who may not appoint gets the same refusal (read first, they would be 400, 413 and 415).
+  for (const path of ['invitations', 'staff']) {
+    for (const [who, s, status] of [
+      ['an entrant', entrant, 403],
+      ['anonymous', anon, 401],
+    ] as const) {
+      const post = (body: string, type = 'application/json') =>
+        s.fetch(`/api/events/${DEMO.meetingId}/${path}`, { method: 'POST', headers: { 'content-type': type }, body });
+      assert.equal((await post('{nope')).status, status, `${path}, ${who}: malformed body`);
+      assert.equal(
+        (await post(JSON.stringify({ email: 'x'.repeat(300_000) }))).status,
+        status,
+        `${path}, ${who}: huge`,
+      );
+      assert.equal((await post('email=a', 'text/plain')).status, status, `${path}, ${who}: wrong type`);
+    }
+  }
   const after = await query<{ n: string }>('select count(*) as n from staff_invitations');
   assert.equal(after[0].n, before[0].n);
 });

@@ -1,7 +1,7 @@
 'use client';
 
-import { signIn } from 'next-auth/react';
 import { useRouter } from 'next/navigation';
+import { signInWith } from '@/components/sign-in';
 import { personName } from '@/lib/core/inputs/auth';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/forms/form-message';
@@ -21,7 +21,7 @@ export function AcceptInvitation({ token, needsName }: { token: string; needsNam
           return { ok: false, fieldErrors: { name: parsed.error.issues[0]?.message ?? 'Enter your name.' } };
         name = parsed.data;
       }
-      const res = await signIn('invitation', { token, ...(name && { name }), redirect: false });
+      const res = await signInWith('invitation', { token, ...(name && { name }) }).catch(() => null);
       if (res?.error === 'NameInvalid')
         return {
           ok: false,
