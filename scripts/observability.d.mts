@@ -12,4 +12,5 @@ export type BorelineMetrics = {
 export function logger(): Logger;
 export function metrics(): BorelineMetrics;
 export function routeLabel(path: string): string;
+export function logPath(url: string | undefined): string;
 export function requestIdFor(incoming: string | string[] | undefined, trustProxy: boolean): string;

@@ -127,6 +127,22 @@ function loadRoutes() {
 const MAX_FALLBACK_LABELS = 200;
 const fallbackLabels = new Set();
 
+// Pages and routes whose address carries a secret: an invitation's or an address proof's bearer token, a boat
+// tag's token. The access log keeps the route, never the token (anyone who reads the logs could otherwise use it).
+const TOKEN_PATHS = [
+  /^(\/invite\/)[^/]+/,
+  /^(\/confirm-address\/)[^/]+/,
+  /^(\/t\/)[^/]+/,
+  /^(\/api\/events\/[^/]+\/tags\/)[^/]+/,
+];
+
+/** A request's path as the access log writes it: the query left out, tokens in the path as :token. */
+export function logPath(url) {
+  const path = (url ?? '/').split('?')[0];
+  for (const re of TOKEN_PATHS) if (re.test(path)) return path.replace(re, '$1:token');
+  return path;
+}
+
 /** A path as a metric label: the route pattern that serves it (ids as :id), or "unmatched". */
 export function routeLabel(path) {
   if (path.startsWith('/_next/')) return '/_next/*';

@@ -8,7 +8,7 @@ import { createServer } from 'node:http';
 import next from 'next';
 import { createStaticCompression } from './static-compression.mjs';
 import { forwardHeaders, isLoopbackHost, parseProxyHops, readListenHost } from './forwarding.mjs';
-import { logger, metrics, requestIdFor, routeLabel } from './observability.mjs';
+import { logger, logPath, metrics, requestIdFor, routeLabel } from './observability.mjs';
 
 // Every line this process writes is one JSON object (pino): operators filter and ship them as they are.
 const log = logger();
@@ -73,15 +73,20 @@ const server = createServer((req, res) => {
   const started = process.hrtime.bigint();
   res.on('finish', () => {
     const seconds = Number(process.hrtime.bigint() - started) / 1e9;
-    const path = (req.url ?? '/').split('?')[0];
-    const route = routeLabel(path);
+    const route = routeLabel((req.url ?? '/').split('?')[0]);
     metrics().httpDuration.observe(
       { method: req.method, route, status: `${Math.floor(res.statusCode / 100)}xx` },
       seconds,
     );
     if (route !== '/_next/*')
       log.info(
-        { requestId, method: req.method, path, status: res.statusCode, ms: Math.round(seconds * 10000) / 10 },
+        {
+          requestId,
+          method: req.method,
+          path: logPath(req.url),
+          status: res.statusCode,
+          ms: Math.round(seconds * 10000) / 10,
+        },
         'request',
       );
   });

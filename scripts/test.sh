@@ -29,6 +29,9 @@ export MAIL_FROM="Boreline <no-reply@boreline.invalid>"
 # The mail outbox's worker looks every 200 ms (2 s in production) and retries a refused send after 0.5 s,
 # so tests that read mail wait a moment, not seconds.
 export MAIL_OUTBOX_INTERVAL_MS=200 MAIL_RETRY_BASE_MS=500
+# The demo organiser sends many invitations across the suite's files within the hour, and some addresses get several:
+# the limits are wider here (tests/integration/series-invitations.test.ts reads them and reaches the address's).
+export INVITES_PER_HOUR=1000 INVITES_PER_ADDRESS_PER_HOUR=8
 export FAKES_DIR="$ROOT/.data/test-fakes"
 # The meetings' chain signing keys: the test database is new every run, so are its keys (lib/server/chain).
 export BORELINE_KEY_DIR="$ROOT/.data/test-chain-keys"

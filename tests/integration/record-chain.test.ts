@@ -159,7 +159,7 @@ test("a meeting's bundle verifies, with its files and a checkpoint signed by the
     `insert into audit_events (event_id, actor_id, subject_type, subject_id, action) values ($1, $2, 'entry', $3, 'entry.noted')`,
     [meeting.eventId, lodger, entry.id],
   );
-  bundle = await buildBundle(c, meeting.eventId, { readFile: async (k) => files.get(k)! });
+  bundle = await buildBundle(c, meeting.eventId, { readFile: async (k) => files.get(k) ?? null });
   const result = await verifyBundle(bundle);
   assert.ok(result.ok, JSON.stringify(result));
   assert.equal(result.records, checkpoint.count);
@@ -184,14 +184,18 @@ test("a meeting's bundle verifies, with its files and a checkpoint signed by the
     [...plan.files, { ...plan.files[0], objectKey: 'evidence/never-stored.jpg' }],
     async (k) => {
       reads.push(k);
-      if (!files.has(k)) throw new Error('no such object');
-      return files.get(k)!;
+      return files.get(k) ?? null;
     },
   );
   const first = await lines.next();
   assert.deepEqual(reads, [objectKey], 'one file read for the first file line');
   assert.equal(JSON.parse(first.value as string).base64, photo.toString('base64'));
-  assert.equal((await lines.next()).done, true, 'a file that cannot be read is left out');
+  assert.equal((await lines.next()).done, true, 'a file storage does not have is left out');
+  // Storage failing (not a missing file) stops the bundle: it must not look like a file removed from the record.
+  const failing = bundleFileLines(plan.files, async () => {
+    throw new Error('storage answered 503');
+  });
+  await assert.rejects(failing.next(), /storage answered 503/);
   const afterHeader = (text: string) => text.slice(text.indexOf('\n') + 1); // the header line carries its time
   assert.equal(afterHeader(plan.head + first.value), afterHeader(bundle), 'the same lines as the bundle in one piece');
 
@@ -223,7 +227,7 @@ test("a meeting's bundle verifies, with its files and a checkpoint signed by the
   assert.match(refusedOut, /NOT VERIFIED \(key, line 1\): the bundle is signed with another key/);
 
   // A protest's case file: the protest's rows, every other record's link without its row; still verifies.
-  const caseFile = await buildBundle(c, meeting.eventId, { readFile: async (k) => files.get(k)!, protestId });
+  const caseFile = await buildBundle(c, meeting.eventId, { readFile: async (k) => files.get(k) ?? null, protestId });
   const cased = await verifyBundle(caseFile);
   assert.ok(cased.ok, JSON.stringify(cased));
   const present = caseFile

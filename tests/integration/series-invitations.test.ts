@@ -318,3 +318,38 @@ test('refused input stores nothing; a listed official in the same role is a 409,
   const steward = await invite(secretary, DEMO.organiser, 'series_steward');
   assert.equal(steward.res.status, 201, 'another role is an invitation like any other');
 });
+
+test('a second invitation to the same address and role replaces the first (its link stops working); one address gets a few an hour', async () => {
+  // Sent again (a lost or mistyped message): only the newest link works, so no spare link stays live for 14 days.
+  const again = await person('sent-twice');
+  assert.equal((await invite(secretary, again.email)).res.status, 201);
+  const first = (await invitationMail(again.email)).token;
+  assert.equal((await invite(secretary, again.email)).res.status, 201);
+  const mails = await inbox(again.email);
+  const tokens = mails
+    .filter((m) => /invited to/.test(m.subject))
+    .map((m) => new URL(firstLink(m)).pathname.split('/').pop()!);
+  assert.equal(tokens.length, 2);
+  const second = tokens.find((t) => t !== first)!;
+  assert.equal((await new HttpSession().acceptInvitation(first)).status, 401, 'the replaced link is refused');
+  assert.deepEqual(await heldRoles(again.id), [], 'and gives no role');
+  assert.equal((await new HttpSession().acceptInvitation(second)).status, 200, 'the newest link works');
+  assert.deepEqual(await heldRoles(again.id), ['series_steward']);
+
+  // Each invitation is an e-mail sent at once: one address gets at most INVITES_PER_ADDRESS_PER_HOUR an hour
+  // (whoever sends them), the same answer whether or not it has an account. Rate limiting of outgoing mail is
+  // common practice; the figure is this project's (5 by default, scripts/test.sh sets the suite's).
+  const perAddress = Number(process.env.INVITES_PER_ADDRESS_PER_HOUR);
+  assert.ok(perAddress > 0 && perAddress <= 20, 'the suite sets the limit it runs with');
+  const flooded = uniqueEmail('flooded');
+  for (let i = 0; i < perAddress; i++)
+    assert.equal((await invite(secretary, flooded)).res.status, 201, `invitation ${i + 1}`);
+  const refused = await invite(secretary, flooded);
+  assert.equal(refused.res.status, 429, JSON.stringify(refused.body));
+  assert.match(refused.body.error.message, /Too many invitations were sent to this address in the last hour/);
+  await waitForMail(flooded, { subject: /invited to/ });
+  await new Promise((r) => setTimeout(r, 300));
+  assert.equal((await inbox(flooded)).length, perAddress, 'the refused one was not mailed');
+  const waiting = (await list()).pendingInvitations.filter((p) => p.email === flooded);
+  assert.equal(waiting.length, 1, 'and only the newest link is waiting');
+});

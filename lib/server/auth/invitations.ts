@@ -9,7 +9,8 @@ import type { EventStaffRole } from '@/lib/core/constants';
 import { InviteStaffInput, personName } from '@/lib/core/inputs/auth';
 import type { AppointSeriesOfficialInput, SeriesOfficialRole } from '@/lib/core/inputs/series';
 import { wipeUnprovenPassword } from './sessions';
-import { appUrl } from '@/lib/server/config/env';
+import { recordAttempt } from './throttle';
+import { appUrl, serverEnv } from '@/lib/server/config/env';
 
 const INVITATION_DAYS = 14;
 const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
@@ -33,8 +34,33 @@ type Scope =
  * address has an account: the row, the message and the answer are the same for every address.
  */
 async function issueInvitation(actor: Actor, email: string, scope: Scope, mail: { subject: string; intro: string }) {
+  // Each invitation is an e-mail sent at once in Boreline's name: at most INVITES_PER_HOUR from one official, and
+  // INVITES_PER_ADDRESS_PER_HOUR to one address from anyone, so the app is no relay for a flood (the same for every
+  // address: it says nothing about accounts).
+  const { INVITES_PER_HOUR, INVITES_PER_ADDRESS_PER_HOUR } = serverEnv();
+  for (const [key, limit] of [
+    [`invite-by:${actor.id}`, INVITES_PER_HOUR],
+    [`invite-to:${email.toLowerCase()}`, INVITES_PER_ADDRESS_PER_HOUR],
+  ] as const) {
+    const counted = await recordAttempt(key, { limit, windowS: 3600 });
+    if (!counted.allowed)
+      throw new AppError(
+        'too_many_invitations',
+        429,
+        `Too many invitations were sent${key.startsWith('invite-to:') ? ' to this address' : ''} in the last hour: try again in ${Math.ceil(counted.retryAfterS / 60)} minutes.`,
+      );
+  }
+  const { sequelize, models } = getDb();
   const token = randomBytes(32).toString('base64url');
-  const invitation = await getDb().models.StaffInvitation.create({
+  // A new invitation to the same address for the same role and place replaces one still waiting (a lost or
+  // mistyped message is sent again): the earlier link stops working, so no spare link stays live for 14 days.
+  await sequelize.query(
+    `update staff_invitations set expires_at = now()
+      where lower(email) = lower(:email) and role = :role and accepted_at is null and expires_at > now()
+        and event_id is not distinct from :eventId and series_id is not distinct from :seriesId`,
+    { replacements: { email, role: scope.role, eventId: scope.eventId ?? null, seriesId: scope.seriesId ?? null } },
+  );
+  const invitation = await models.StaffInvitation.create({
     eventId: scope.eventId ?? null,
     seriesId: scope.seriesId ?? null,
     email,
@@ -187,6 +213,16 @@ export async function acceptInvitation(token: string, rawName?: unknown) {
       );
     }
     await inv.update({ acceptedAt: new Date() }, { transaction });
+    // Other links to the same role and place for this address (sent twice) are spent with this one.
+    await sequelize.query(
+      `update staff_invitations set expires_at = now()
+        where id <> :id and lower(email) = lower(:email) and role = :role and accepted_at is null and expires_at > now()
+          and event_id is not distinct from :eventId and series_id is not distinct from :seriesId`,
+      {
+        replacements: { id: inv.id, email: inv.email, role: inv.role, eventId: inv.eventId, seriesId: inv.seriesId },
+        transaction,
+      },
+    );
     return { id: user.id, email: user.email, name: user.name };
   });
 }

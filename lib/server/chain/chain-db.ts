@@ -226,10 +226,15 @@ function keyFile(keyDir: string, chainKey: string) {
   return path.join(keyDir, `${checkChainKey(chainKey)}.ed25519.pem`);
 }
 
-/** The Ed25519 private key in a key file, or null when the file holds no such key (damaged, another kind of key). */
+/**
+ * The Ed25519 private key in a key file, or null when the file holds no such key (damaged, another kind of key).
+ * A file that cannot be read (permissions, too many open files, a disk error) throws: that says nothing about
+ * the key, and must never get a good key file moved aside.
+ */
 function readPrivateKey(file: string): KeyObject | null {
+  const text = fs.readFileSync(file, 'utf8');
   try {
-    const key = createPrivateKey(fs.readFileSync(file, 'utf8'));
+    const key = createPrivateKey(text);
     return key.asymmetricKeyType === 'ed25519' ? key : null;
   } catch {
     return null;
@@ -413,14 +418,16 @@ export async function planBundle(
 
 /**
  * The bundle's file lines, one file read (and held) at a time, so a meeting's photos never sit in memory together.
- * A file that cannot be read is left out: the verifier then names the record whose file is missing.
+ * `readFile` answers null for a file storage does not have: it is left out, and the verifier then names the record
+ * whose file is missing. Any other failure of storage (down, refusing) is thrown: a bundle must not pass a file
+ * storage failed to send for a missing one, which in a protest's case file would read like tampering.
  */
 export async function* bundleFileLines(
   files: BundlePlan['files'],
-  readFile: (objectKey: string) => Promise<Buffer>,
+  readFile: (objectKey: string) => Promise<Buffer | null>,
 ): AsyncGenerator<string> {
   for (const f of files) {
-    const bytes = await readFile(f.objectKey).catch(() => null);
+    const bytes = await readFile(f.objectKey);
     if (!bytes) continue;
     const line: BundleLine = { type: 'file', ...f, base64: bytes.toString('base64') };
     yield JSON.stringify(line) + '\n';
@@ -431,7 +438,7 @@ export async function* bundleFileLines(
 export async function buildBundle(
   client: Sql,
   chainKey: string,
-  opts: { readFile: (objectKey: string) => Promise<Buffer>; protestId?: string },
+  opts: { readFile: (objectKey: string) => Promise<Buffer | null>; protestId?: string },
 ): Promise<string> {
   const plan = await planBundle(client, chainKey, opts);
   let text = plan.head;

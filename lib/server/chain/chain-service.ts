@@ -158,15 +158,27 @@ export async function exportMeetingBundle(
   // The records go out at once; the files follow one at a time as the client reads (the database connection is
   // already back in the pool), so a meeting's photos are never all in memory.
   const encoder = new TextEncoder();
-  const files = bundleFileLines(plan.files, getObjectBytes);
+  const stored = (key: string) =>
+    getObjectBytes(key).catch((err: unknown) => {
+      if (err instanceof AppError && err.status === 404) return null; // not stored: left out, and the verifier says so
+      throw err;
+    });
+  const files = bundleFileLines(plan.files, stored);
   return new ReadableStream<Uint8Array>({
     start(controller) {
       controller.enqueue(encoder.encode(plan.head));
     },
     async pull(controller) {
-      const next = await files.next();
-      if (next.done) controller.close();
-      else controller.enqueue(encoder.encode(next.value));
+      try {
+        const next = await files.next();
+        if (next.done) controller.close();
+        else controller.enqueue(encoder.encode(next.value));
+      } catch (err) {
+        // Storage failed mid-bundle: the download is cut short (an incomplete last line, which the verifier refuses),
+        // never finished without the file.
+        logger().error({ err, eventId, protestId }, 'record chain: a bundle file could not be read from storage');
+        controller.error(err);
+      }
     },
     async cancel() {
       await files.return(undefined);

@@ -114,6 +114,10 @@ export const EnvSchema = z.object({
   SIGN_IN_ACCOUNT_LIMIT_PER_HOUR: positiveInt(300),
   SIGN_IN_LINK_LIMIT_PER_HOUR: positiveInt(30),
   SIGN_UP_LIMIT_PER_HOUR: positiveInt(20),
+  // Staff and series invitations (lib/server/auth/invitations.ts), each an e-mail sent at once: per official who
+  // sends them, and per address they go to, in an hour.
+  INVITES_PER_HOUR: positiveInt(30),
+  INVITES_PER_ADDRESS_PER_HOUR: positiveInt(5),
   PUBLIC_API_RATE_LIMIT_PER_MINUTE: positiveInt(600),
   // scripts/server.mjs refuses a malformed value at start and writes back the number it uses.
   TRUSTED_PROXY_HOPS: z.string().optional().transform(readTrustedProxyHops),
