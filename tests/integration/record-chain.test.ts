@@ -242,6 +242,29 @@ test("a meeting's bundle verifies, with its files and a checkpoint signed by the
     `only the evidence row: ${present}`,
   );
   assert.equal(cased.records - cased.withheld, 1);
+  // Another matter's record gives only its place and hashes: no row, and no table, id or time that would show the
+  // meeting's other protests and when they were made.
+  const jsonLines = (text: string) =>
+    text
+      .trim()
+      .split('\n')
+      .map((l) => JSON.parse(l) as Record<string, unknown>);
+  const withheld = jsonLines(caseFile).filter((l) => l.type === 'record' && l.row === undefined);
+  assert.equal(withheld.length, cased.withheld);
+  for (const l of withheld)
+    assert.deepEqual(
+      Object.keys(l).sort(),
+      ['linkHash', 'prevHash', 'rowHash', 'rowId', 'seq', 'table', 'type'],
+      JSON.stringify(l),
+    );
+  assert.deepEqual([...new Set(withheld.map((l) => `${l.table}|${l.rowId}`))], ['withheld|']);
+  const withheldSeqs = new Set(withheld.map((l) => l.seq));
+  const hiddenIds = jsonLines(bundle)
+    .filter((l) => l.type === 'record' && withheldSeqs.has(l.seq))
+    .map((l) => l.rowId as string)
+    .filter((id) => /^[0-9a-f]{8}-[0-9a-f]{4}-/.test(id)); // uuids (a bigint id such as "7" is no test)
+  assert.ok(hiddenIds.length > 0);
+  for (const id of hiddenIds) assert.ok(!caseFile.includes(id), `another record's id ${id} is not in the case file`);
 });
 
 type Line = Record<string, unknown> & { type: string };

@@ -4,7 +4,8 @@
 //   {"type":"bundle","version":1,"chain":"<meeting id or 'site'>","scope":"meeting"|"protest","createdAt":"…"}
 //   {"type":"key","publicKey":"<SPKI DER, base64>","fingerprint":"<SHA-256 of the DER, hex>"}
 //   {"type":"record","seq":1,"table":"…","rowId":"…","prevHash":"…","rowHash":"…","linkHash":"…","linkedAt":"…","row":{…}}
-//       (a protest's case file leaves out `row` for the meeting's other records: their links still chain)
+//       (a protest's case file gives the meeting's other records as {"type","seq","table":"withheld","rowId":"",
+//        "prevHash","rowHash","linkHash"}: no row, table, id or time; their links still chain)
 //   {"type":"checkpoint","chain":"…","count":N,"head":"<link_hash of seq N>","reason":"…","signedAt":"…",
 //    "keyFingerprint":"…","signature":"<Ed25519 over JCS of the other fields but signature, base64>"}
 //   {"type":"file","objectKey":"…","sha256":"…","contentType":"…","base64":"…"}
@@ -28,10 +29,13 @@ export type ChainRecord = {
   prevHash: string;
   rowHash: string;
   linkHash: string;
-  linkedAt: string;
+  /** When it was linked; absent for a record withheld from a case file. */
+  linkedAt?: string;
   /** The row as hashed; null when it was gone before it was linked; absent when withheld from a case file. */
   row?: Record<string, unknown> | null;
 };
+/** The table a case file names for another matter's record: only its place in the chain and its hashes are given. */
+export const WITHHELD_TABLE = 'withheld';
 export type CheckpointBody = {
   chain: string;
   count: number;

@@ -6,6 +6,7 @@ import {
   BUNDLE_VERSION,
   checkpointMessage,
   fileReference,
+  WITHHELD_TABLE,
   type BundleFile,
   type BundleHeader,
   type BundleKey,
@@ -49,7 +50,9 @@ export type VerifyResult =
 const HEX64 = /^[0-9a-f]{64}$/;
 
 function describe(r: ChainRecord): string {
-  return `record ${r.seq} (${r.table} ${r.rowId})`;
+  return r.table === WITHHELD_TABLE && r.row === undefined
+    ? `record ${r.seq} (withheld)`
+    : `record ${r.seq} (${r.table} ${r.rowId})`;
 }
 
 /**

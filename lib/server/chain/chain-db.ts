@@ -9,6 +9,7 @@ import { parseRowJson } from '@/lib/core/chain/canonical-json';
 import { GENESIS_HASH, bytesToBase64, keyFingerprint, linkHash, rowHash } from '@/lib/core/chain/hashes';
 import {
   BUNDLE_VERSION,
+  WITHHELD_TABLE,
   checkpointMessage,
   fileReference,
   type BundleLine,
@@ -385,7 +386,21 @@ export async function planBundle(
         .filter((r) => r.table === 'protest_evidence' && r.row?.protest_id === protestId && r.row?.inspection_id)
         .map((r) => r.row!.inspection_id as string),
     );
-    records = records.map((r) => (inCaseFile(r, protestId, items, inspections) ? r : { ...r, row: undefined }));
+    // Another matter's record keeps only what the chain needs (its place and three hashes): not its row, and not
+    // its table, id or time, which would show the meeting's other protests and when they were made.
+    records = records.map((r) =>
+      inCaseFile(r, protestId, items, inspections)
+        ? r
+        : {
+            type: 'record',
+            seq: r.seq,
+            table: WITHHELD_TABLE,
+            rowId: '',
+            prevHash: r.prevHash,
+            rowHash: r.rowHash,
+            linkHash: r.linkHash,
+          },
+    );
   }
   const [key] = (
     await client.query('select public_key_spki as spki, fingerprint from chain_keys where chain_key = $1', [chainKey])
