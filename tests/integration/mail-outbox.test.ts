@@ -9,9 +9,9 @@
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { randomBytes } from 'node:crypto';
-import http from 'node:http';
 import { HttpSession } from '../support/http-session';
-import { BASE_URL, DEMO, DEMO_PASSWORD, MAIL_INBOX, uniqueEmail } from '../support/env';
+import { DEMO, DEMO_PASSWORD, MAIL_INBOX, uniqueEmail } from '../support/env';
+import { holdRequestOpen } from '../support/held-request';
 import { query } from '../support/db';
 import { InspectionMeeting, inspectionBody, rulesWith, type TestEntry } from '../support/inspection-meeting';
 import { waitForMail, type Mail } from '../support/mail';
@@ -169,16 +169,9 @@ test('while the server is answering a request, queued mail waits, at most MAIL_B
   assert.ok(deferMs > 0 && deferMs <= 5000, 'the suite sets a short MAIL_BUSY_DEFER_MS');
   await sleep(600); // idle ticks (every 200 ms in the suite): the worker's busy clock starts afresh
   // A sign-up whose chunked body never ends stays in flight until this test finishes it.
-  const held = http.request(new URL('/api/accounts', BASE_URL), {
-    method: 'POST',
-    headers: { 'content-type': 'application/json', 'transfer-encoding': 'chunked' },
-  });
-  const answered = new Promise<number>((resolve, reject) => {
-    held.on('response', (r) => r.resume().on('end', () => resolve(r.statusCode ?? 0)));
-    held.on('error', reject);
-  });
-  held.write('{"name": "Held Open');
-  const heldAt = Date.now();
+  const held = holdRequestOpen();
+  const { heldAt } = held;
+  let answered: Promise<number> | undefined;
   try {
     await sleep(300);
     const to = uniqueEmail('outbox-busy');
@@ -191,7 +184,7 @@ test('while the server is answering a request, queued mail waits, at most MAIL_B
     assert.equal(mail.subject, 'after the rush');
     assert.ok(waitedMs >= deferMs, `sent ${waitedMs} ms after the server became busy: it did not hold back`);
   } finally {
-    held.end('"}');
+    answered = held.finish();
   }
   assert.equal(await answered, 400, 'the held sign-up, finished without its fields, is refused (and loses nothing)');
 });

@@ -13,8 +13,9 @@ import { test, before } from 'node:test';
 import assert from 'node:assert/strict';
 import { randomUUID } from 'node:crypto';
 import { HttpSession } from '../support/http-session';
-import { DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
+import { DEMO, DEMO_PASSWORD } from '../support/env';
 import { query } from '../support/db';
+import { newPerson, type Person } from '../support/people';
 import { checkpointCovering, checkpointSignatureHolds } from '../support/chain-checkpoint';
 import { waitForMail } from '../support/mail';
 import { FAKE, waitFor, refundEventsFor } from './protest-fixtures';
@@ -32,7 +33,6 @@ const CHIEF_ID = '0b0e0000-0000-4000-8000-000000001003';
 const FEE = 7500; // 75.00 NZD, the test meeting's appeal fee
 const PW = 'appeal-test-password';
 
-type Person = { s: HttpSession; id: string; email: string };
 type Boat = Person & { entryId: string; raceNumber: number };
 
 let steward: HttpSession;
@@ -165,13 +165,7 @@ test("an appeal overtaken by another's decision on the same penalty is closed as
   );
 });
 
-async function person(prefix: string): Promise<Person> {
-  const s = new HttpSession();
-  const email = uniqueEmail(prefix);
-  await s.signUpAndConfirm({ name: `${prefix} Tester`, email, password: PW });
-  const [{ id }] = await query<{ id: string }>('select id from users where email = $1', [email]);
-  return { s, id, email };
-}
+const person = (prefix: string) => newPerson(prefix, PW);
 async function boat(prefix: string, classId: string): Promise<Boat> {
   const p = await person(prefix);
   const [b] = await query<{ id: string }>(

@@ -6,10 +6,10 @@
 // No published source: holding back deferrable work while a server is busy is common practice.
 import { test, before } from 'node:test';
 import assert from 'node:assert/strict';
-import http from 'node:http';
 import { setTimeout as sleep } from 'node:timers/promises';
 import { HttpSession } from '../support/http-session';
-import { BASE_URL, DEMO, DEMO_PASSWORD } from '../support/env';
+import { DEMO, DEMO_PASSWORD } from '../support/env';
+import { holdRequestOpen } from '../support/held-request';
 import { query } from '../support/db';
 import { InspectionMeeting, inspectionBody, rulesWith } from '../support/inspection-meeting';
 
@@ -36,16 +36,9 @@ test('while the server is answering a request, a new record waits to be linked, 
   const entry = await meeting.addEntry(await meeting.addClass('CB', rulesWith()));
   await sleep(tickMs + 500); // one idle tick at least: the linker's busy clock starts afresh
   // A sign-up whose chunked body never ends stays in flight until this test finishes it.
-  const held = http.request(new URL('/api/accounts', BASE_URL), {
-    method: 'POST',
-    headers: { 'content-type': 'application/json', 'transfer-encoding': 'chunked' },
-  });
-  const answered = new Promise<number>((resolve, reject) => {
-    held.on('response', (r) => r.resume().on('end', () => resolve(r.statusCode ?? 0)));
-    held.on('error', reject);
-  });
-  held.write('{"name": "Held Open');
-  const heldAt = Date.now();
+  const held = holdRequestOpen();
+  const { heldAt } = held;
+  let answered: Promise<number> | undefined;
   try {
     const { res, body } = await scrutineer.json(
       `/api/events/${meeting.eventId}/inspections`,
@@ -67,7 +60,7 @@ test('while the server is answering a request, a new record waits to be linked, 
     const links = await query(`select 1 from chain_links where table_name = 'inspections' and row_id = $1`, [id]);
     assert.equal(links.length, 1, 'then linked once');
   } finally {
-    held.end('"}');
+    answered = held.finish();
   }
   assert.equal(await answered, 400, 'the held sign-up, finished without its fields, is refused (and loses nothing)');
 });

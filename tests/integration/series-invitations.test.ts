@@ -14,6 +14,7 @@ import { randomUUID } from 'node:crypto';
 import { HttpSession } from '../support/http-session';
 import { DEMO, DEMO_PASSWORD, MAIL_INBOX, uniqueEmail } from '../support/env';
 import { closeDb, query } from '../support/db';
+import { newPerson, type Person } from '../support/people';
 import { firstLink, waitForMail, type Mail } from '../support/mail';
 
 const CLUB = '0b0e0000-0000-4000-8000-000000000001'; // the demo club: the demo organiser organises for it
@@ -22,20 +23,13 @@ const tag = randomUUID().slice(0, 6);
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/;
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 
-type Person = { s: HttpSession; id: string; email: string };
 let secretary: HttpSession; // the demo organiser, who starts the series and so is its secretary
 let seriesId: string;
 let seriesName: string;
 let seriesClassId: string;
 let otherSecretary: Person; // secretary of another series only
 
-async function person(prefix: string): Promise<Person> {
-  const s = new HttpSession();
-  const email = uniqueEmail(prefix);
-  await s.signUpAndConfirm({ name: `${prefix} Tester`, email, password: PW });
-  const [{ id }] = await query<{ id: string }>('select id from users where email = $1', [email]);
-  return { s, id, email };
-}
+const person = (prefix: string) => newPerson(prefix, PW);
 const officials = (id = seriesId) => `/api/series/${id}/officials`;
 const invite = (s: HttpSession, email: string, role = 'series_steward', id = seriesId) =>
   s.json(officials(id), { email, role });

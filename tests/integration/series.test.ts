@@ -11,8 +11,9 @@ import assert from 'node:assert/strict';
 import { randomUUID } from 'node:crypto';
 import * as ss from 'simple-statistics';
 import { HttpSession } from '../support/http-session';
-import { BASE_URL, DEMO, DEMO_PASSWORD, uniqueEmail } from '../support/env';
+import { BASE_URL, DEMO, DEMO_PASSWORD } from '../support/env';
 import { query } from '../support/db';
+import { newPerson, type Person } from '../support/people';
 import { firstLink, waitForMail } from '../support/mail';
 import { extractPdfText } from '../support/pdf-text';
 
@@ -34,7 +35,6 @@ const RULES = {
   },
 };
 
-type Person = { s: HttpSession; id: string; email: string };
 type Round = { eventId: string; classId: string; ruleVersionId: string; date: string; entries: Map<string, string> };
 let secretary: HttpSession; // the demo organiser, who starts the series
 let organiser: HttpSession;
@@ -48,13 +48,7 @@ const owners: Person[] = [];
 const boats: { id: string; name: string }[] = []; // W, X, Y, Z
 const rounds: Round[] = [];
 
-async function person(prefix: string): Promise<Person> {
-  const s = new HttpSession();
-  const email = uniqueEmail(prefix);
-  await s.signUpAndConfirm({ name: `${prefix} Tester`, email, password: PW });
-  const [{ id }] = await query<{ id: string }>('select id from users where email = $1', [email]);
-  return { s, id, email };
-}
+const person = (prefix: string) => newPerson(prefix, PW);
 const signIn = async (email: string) => {
   const s = new HttpSession();
   assert.equal((await s.signInWithPassword(email, DEMO_PASSWORD)).status, 200, email);
