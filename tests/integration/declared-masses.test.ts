@@ -78,6 +78,12 @@ function putChunked(s: HttpSession, path: string, total: number): Promise<{ stat
         pulled += 12;
         return void this.push('{"crewKg": 1');
       }
+      // After the first bytes, a pause: a server that refuses before reading answers now, before megabytes follow
+      // (a refusal while the client is still writing can be lost to the connection's reset).
+      if (pulled === 12) {
+        pulled += 1;
+        return void setTimeout(() => this.push(' '), 200);
+      }
       if (pulled >= total) return void this.push(null);
       pulled += chunk.length;
       this.push(chunk);
