@@ -25,7 +25,7 @@ node_modules/.bin/tsx scripts/create-first-admin.ts
 
 mkdir -p .data/run
 log "building the app"
-{ env -u DATABASE_URL npx next build && node scripts/build-sw.mjs; } >.data/run/build-serve.log 2>&1 || { cat .data/run/build-serve.log; exit 1; }
+{ env -u DATABASE_URL npx next build && node scripts/compile-hints.mjs && node scripts/build-sw.mjs; } >.data/run/build-serve.log 2>&1 || { cat .data/run/build-serve.log; exit 1; }
 
 log "starting on $NEXTAUTH_URL (stop with Ctrl-C)"
 exec node scripts/server.mjs

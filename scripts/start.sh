@@ -38,7 +38,7 @@ start_fakes .data/run/fakes.pid .data/run/fakes.log
 trap 'stop_pidfile .data/run/fakes.pid' EXIT
 
 log "building the app"
-{ env -u DATABASE_URL npx next build && node scripts/build-sw.mjs; } >.data/run/build.log 2>&1 || { cat .data/run/build.log; exit 1; }
+{ env -u DATABASE_URL npx next build && node scripts/compile-hints.mjs && node scripts/build-sw.mjs; } >.data/run/build.log 2>&1 || { cat .data/run/build.log; exit 1; }
 
 free_port "$PORT"
 cat <<MSG

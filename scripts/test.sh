@@ -144,7 +144,7 @@ if [ $needs_app = 1 ]; then
     log "reusing the build in .next-test (BENCH_REUSE_BUILD=1)"
   else
     log "building the app (without DATABASE_URL, proving nothing touches the database at build time)"
-    { env -u DATABASE_URL npx next build && node scripts/build-sw.mjs; } >"$RUN/build.log" 2>&1 || { cat "$RUN/build.log"; exit 1; }
+    { env -u DATABASE_URL npx next build && node scripts/compile-hints.mjs && node scripts/build-sw.mjs; } >"$RUN/build.log" 2>&1 || { cat "$RUN/build.log"; exit 1; }
   fi
   stop_pidfile "$RUN/app.pid"; free_port "$PORT"
   setsid node scripts/server.mjs >"$RUN/app.log" 2>&1 9>&- &
