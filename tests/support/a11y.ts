@@ -30,7 +30,10 @@ export async function expectNoSeriousA11yViolations(
   where = page.url(),
   { only }: { only?: 'colour' } = {},
 ) {
-  const builder = new AxeBuilder({ page });
+  // resultTypes (axe-core API, "Options parameter"): violations keep every offending element; passes, incomplete
+  // and inapplicable rules are still listed but with at most one element each, which spares axe the unique
+  // selector it would otherwise build for every passing element (most of its time on a long page).
+  const builder = new AxeBuilder({ page }).options({ resultTypes: ['violations'] });
   const results = await (
     only === 'colour' ? builder.withRules(COLOUR_RULES) : builder.withTags(WCAG_22_AA_TAGS)
   ).analyze();
