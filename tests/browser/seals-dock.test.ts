@@ -66,9 +66,6 @@ test('dock: a seal on the boat is listed, checked as broken, and the verdict sho
   // The card and the form both name the seal on the engine.
   await page.getByTestId('card-seals').locator(`[data-seal="${number}"]`).waitFor();
   const sealBox = page.getByTestId('dock-seals').locator(`[data-seal="${number}"]`);
-  // The form's lower sections are laid out when scrolled to (content-visibility: auto): read it as the
-  // scrutineer does, on screen.
-  await sealBox.scrollIntoViewIfNeeded();
   assert.match(
     await sealBox.innerText(),
     new RegExp(`Seal ${number} on the engine Test Motor Works TM-4, serial ${serial}`),

@@ -27,7 +27,7 @@ export function DockItems({ rules, items, sentIndex, instruments, onChange, err 
   const defined = rules.measuredItems ?? [];
   if (defined.length === 0) return null;
   return (
-    <fieldset id="dock-items" className="form-section-lazy scroll-mt-4 space-y-4" data-testid="dock-items">
+    <fieldset id="dock-items" className="scroll-mt-4 space-y-4" data-testid="dock-items">
       <legend className="text-xl font-bold">The class’s own measured items</legend>
       {defined.map((m) => {
         const item = ownValue(items, m.key) ?? ownValue(blankItems(rules), m.key)!;
@@ -145,7 +145,7 @@ export function DockGauge({ rules, gauge = NO_GAUGE, instruments, onChange, err 
     .join('; ');
   const error = err('gaugeChecks.0.gauge') ?? err('gaugeChecks.0.instrumentId') ?? err('gaugeChecks.0.rule');
   return (
-    <fieldset id="dock-gauge" className="form-section-lazy scroll-mt-4 space-y-3" data-testid="dock-gauge">
+    <fieldset id="dock-gauge" className="scroll-mt-4 space-y-3" data-testid="dock-gauge">
       <legend className="text-xl font-bold">Nozzle exit: go/no-go gauge</legend>
       <p className="text-ink-soft">
         {sizes}. {CHECK_METHOD_WORDS[method]}

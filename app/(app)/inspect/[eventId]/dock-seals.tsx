@@ -36,7 +36,7 @@ export function DockSeals({
       .findIndex(([k]) => k === n);
   const removeIndex = (n: string) => Object.keys(seals.removed).indexOf(n);
   return (
-    <fieldset id="dock-seals" className="form-section-lazy scroll-mt-4 space-y-3" data-testid="dock-seals">
+    <fieldset id="dock-seals" className="scroll-mt-4 space-y-3" data-testid="dock-seals">
       <legend className="text-xl font-bold">Seals</legend>
       {!target.card ? (
         <p className="text-ink-soft">Offline without the boat’s card: its seals cannot be listed here.</p>

@@ -134,7 +134,7 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, s
     { id: 'dock-seals', label: 'Seals' },
     { id: 'dock-notes', label: 'Photos and notes' },
   ];
-  const section = 'form-section-lazy scroll-mt-4 space-y-3';
+  const section = 'scroll-mt-4 space-y-3';
   return (
     <form
       {...form}
@@ -565,7 +565,7 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, s
         )}
 
         {rules && hasSafety && (
-          <fieldset id="dock-safety" className="form-section-lazy scroll-mt-4 space-y-2">
+          <fieldset id="dock-safety" className="scroll-mt-4 space-y-2">
             <legend className="text-xl font-bold">Safety items required by the class</legend>
             {rules.safetyItems.map((k) => (
               <label
@@ -601,7 +601,7 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, s
           }
         />
 
-        <div id="dock-notes" className="form-section-lazy scroll-mt-4 space-y-6">
+        <div id="dock-notes" className="scroll-mt-4 space-y-6">
           {target.card && target.card.openReinspections.length > 0 && (
             <div>
               <label htmlFor={id('reinspectionId')} className="field-label text-lg">
