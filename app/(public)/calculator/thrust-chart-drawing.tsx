@@ -3,18 +3,8 @@
 // The drawing inside the calculator's chart (recharts), loaded only once a chart is on screen
 // (thrust-chart.tsx imports it with next/dynamic), so the calculator's first load carries no charting library.
 
-import {
-  CartesianGrid,
-  Legend,
-  Line,
-  LineChart,
-  ReferenceDot,
-  ReferenceLine,
-  ResponsiveContainer,
-  Tooltip,
-  XAxis,
-  YAxis,
-} from 'recharts';
+import { CartesianGrid, Legend, Line, LineChart, ReferenceDot, ReferenceLine, Tooltip, XAxis, YAxis } from 'recharts';
+import { FittedChart } from '@/components/fitted-chart';
 import { convertForce, convertSpeed, UNIT_LABELS } from '@/lib/core/engine/units';
 import { CURVE_SPEEDS_MS } from './setup-model';
 import { SERIES_STYLES, type ThrustChartProps } from './chart-series';
@@ -44,7 +34,7 @@ export function ThrustChartDrawing({ series, crossings, speedUnit, forceUnit }: 
   const maxSpeed = rows[rows.length - 1].speed;
 
   return (
-    <ResponsiveContainer width="100%" height="100%">
+    <FittedChart>
       <LineChart data={rows} margin={{ top: 16, right: 16, bottom: 28, left: 8 }}>
         <CartesianGrid stroke="#d5d0c2" strokeDasharray="3 3" />
         <XAxis
@@ -92,6 +82,6 @@ export function ThrustChartDrawing({ series, crossings, speedUnit, forceUnit }: 
           ];
         })}
       </LineChart>
-    </ResponsiveContainer>
+    </FittedChart>
   );
 }
