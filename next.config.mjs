@@ -26,7 +26,10 @@ const nextConfig = {
   // Tests build into their own folder so they never collide with a running `npm start`.
   distDir: process.env.NEXT_DIST_DIR || '.next',
   poweredByHeader: false,
-  productionBrowserSourceMaps: process.env.BORELINE_BROWSER_SOURCEMAPS === '1',
+  // Browser source maps for profiling a page (scripts/profile-page.ts), and only in the tests' build folder: a
+  // deployment's build (.next) never publishes them, whatever an .env file says.
+  productionBrowserSourceMaps:
+    process.env.BORELINE_BROWSER_SOURCEMAPS === '1' && process.env.NEXT_DIST_DIR === '.next-test',
   // Read when the server starts (scripts/server.mjs). Behind a declared reverse proxy
   // (TRUSTED_PROXY_HOPS >= 1) compression is the proxy's job and gzip in Node would cost the app CPU
   // on every answer; on one machine with no proxy (0 or unset) nobody else compresses, so the app does

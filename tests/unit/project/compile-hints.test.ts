@@ -3,15 +3,17 @@
 // V8 blog, "Giving V8 a heads-up: faster JavaScript startup with explicit compile hints" (2025) [memory]. Source
 // maps: ECMA-426 (Source map format), "mappings" (';' separates generated lines) and index maps ("sections", each
 // with an offset); read back with source-map-js, a general-purpose source map reader from the registry.
-import { test } from 'node:test';
+import { test, after } from 'node:test';
 import assert from 'node:assert/strict';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
+import { spawnSync } from 'node:child_process';
 import { SourceMapConsumer, SourceMapGenerator } from 'source-map-js';
 import { addHint, HINT } from '../../../scripts/compile-hints.mjs';
 
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'compile-hints-'));
+after(() => fs.rmSync(dir, { recursive: true, force: true }));
 
 /** A two-line script whose identifier `answer` (line 2, column 4) maps to src/answer.ts line 7, column 2. */
 function writeScript(name: string, map: object | null) {
@@ -87,4 +89,43 @@ test('an index map (sections) moves each section down one line', () => {
     { source: moved.source, line: moved.line, name: moved.name },
     { source: 'src/answer.ts', line: 7, name: 'answer' },
   );
+});
+
+test('a map named but missing is reported, and a debugId line after the map comment is allowed for', () => {
+  const missing = path.join(dir, 'missing.js');
+  fs.writeFileSync(missing, 'var a=1;\n//# sourceMappingURL=missing.js.map');
+  const unshifted: string[] = [];
+  assert.equal(addHint(missing, unshifted), true);
+  assert.deepEqual(unshifted, [missing]);
+
+  const withId = writeScript('with-id.js', plainMap());
+  fs.appendFileSync(withId, '\n//# debugId=0d1e2f30-0000-4000-8000-000000000000');
+  const none: string[] = [];
+  addHint(withId, none);
+  assert.deepEqual(none, []);
+  const moved = consumerOf(withId).originalPositionFor({ line: 3, column: 4 });
+  assert.equal(moved.name, 'answer');
+});
+
+test('run as a script: every .js under static/chunks (subfolders too) once; no build is an error', () => {
+  const dist = path.join(dir, 'dist');
+  fs.mkdirSync(path.join(dist, 'static', 'chunks', 'sub'), { recursive: true });
+  fs.writeFileSync(path.join(dist, 'BUILD_ID'), 'x');
+  fs.writeFileSync(path.join(dist, 'static', 'chunks', 'a.js'), 'a();');
+  fs.writeFileSync(path.join(dist, 'static', 'chunks', 'sub', 'b.js'), 'b();');
+  fs.writeFileSync(path.join(dist, 'static', 'chunks', 'c.css'), 'p{}');
+  const run = (distDir: string) =>
+    spawnSync(process.execPath, ['scripts/compile-hints.mjs'], {
+      env: { ...process.env, NEXT_DIST_DIR: distDir },
+      encoding: 'utf8',
+    });
+  const first = run(dist);
+  assert.equal(first.status, 0, first.stderr);
+  assert.match(first.stdout, /2 scripts, 2 marked/);
+  assert.equal(fs.readFileSync(path.join(dist, 'static', 'chunks', 'sub', 'b.js'), 'utf8'), `${HINT}b();`);
+  assert.equal(fs.readFileSync(path.join(dist, 'static', 'chunks', 'c.css'), 'utf8'), 'p{}');
+  assert.match(run(dist).stdout, /2 scripts, 0 marked/);
+  const none = run(path.join(dir, 'no-build'));
+  assert.equal(none.status, 1);
+  assert.match(none.stderr, /no build in/);
 });
