@@ -8,6 +8,7 @@
 // and passes it down here: the chart is drawn in the transition's first render, and the container's own
 // measurement then finds the size it already has and changes nothing (recharts keeps its state when the rounded
 // size is the same). Outside a WhenVisible, or when the box has changed size meanwhile, it measures as before.
+// The box's border box is taken as the chart's size: a WhenVisible that holds a chart carries no padding or border.
 import { useContext } from 'react';
 import { ResponsiveContainer } from 'recharts';
 import { MeasuredBox } from './measured-box';

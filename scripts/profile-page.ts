@@ -136,7 +136,7 @@ async function main() {
     });
   }
   const name = frameNamer();
-  const t0 = Math.min(...onMain.filter((e) => e.ts > 0).map((e) => e.ts));
+  const t0 = onMain.reduce((min, e) => (e.ts > 0 && e.ts < min ? e.ts : min), Infinity);
   const tasks = onMain.filter((e) => e.name === 'RunTask' && (e.dur ?? 0) >= MIN_TASK_US).sort((a, b) => a.ts - b.ts);
   console.log(`${BASE}${page.path}: ${tasks.length} tasks of ${MIN_TASK_US / 1000} ms or more (unthrottled)`);
   for (const task of tasks) {
