@@ -2,14 +2,22 @@
 
 // The drawing inside the predicted-against-observed chart (recharts), loaded by clock-scatter.tsx when
 // the chart comes near the screen, so the page's first load carries no charting library.
-import { CartesianGrid, ReferenceLine, Scatter, ScatterChart, Tooltip, XAxis, YAxis } from 'recharts';
-import { FittedChart } from '@/components/fitted-chart';
+import {
+  CartesianGrid,
+  ReferenceLine,
+  ResponsiveContainer,
+  Scatter,
+  ScatterChart,
+  Tooltip,
+  XAxis,
+  YAxis,
+} from 'recharts';
 
 export type ClockScatterPoint = { label: string; predicted: number; observed: number };
 
 export function ClockScatterDrawing({ points, min, max }: { points: ClockScatterPoint[]; min: number; max: number }) {
   return (
-    <FittedChart>
+    <ResponsiveContainer width="100%" height="100%">
       <ScatterChart margin={{ top: 8, right: 12, bottom: 24, left: 8 }}>
         <CartesianGrid stroke="#d5d0c2" strokeDasharray="3 3" />
         <XAxis
@@ -42,6 +50,6 @@ export function ClockScatterDrawing({ points, min, max }: { points: ClockScatter
         />
         <Scatter data={points} fill="#1f5f8b" isAnimationActive={false} name="Boats" />
       </ScatterChart>
-    </FittedChart>
+    </ResponsiveContainer>
   );
 }

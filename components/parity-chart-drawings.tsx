@@ -12,11 +12,11 @@ import {
   LineChart,
   ReferenceDot,
   ReferenceLine,
+  ResponsiveContainer,
   Tooltip,
   XAxis,
   YAxis,
 } from 'recharts';
-import { FittedChart } from '@/components/fitted-chart';
 import type { ForceUnit, SpeedUnit } from '@/lib/core/engine/units';
 
 export type DrawnBoat = { entryId: string; label: string; stroke: string; dash: string };
@@ -41,7 +41,7 @@ export function ThrustCurvesDrawing({
   labels: Map<string, string>;
 }) {
   return (
-    <FittedChart>
+    <ResponsiveContainer width="100%" height="100%">
       <LineChart data={lineData} margin={{ top: 8, right: 12, bottom: 20, left: 8 }}>
         <CartesianGrid stroke="#d5d0c2" strokeDasharray="3 3" />
         <XAxis
@@ -78,7 +78,7 @@ export function ThrustCurvesDrawing({
           <ReferenceDot key={c.key} x={c.x} y={c.y} r={7} fill="none" stroke="#b3261e" strokeWidth={2} />
         ))}
       </LineChart>
-    </FittedChart>
+    </ResponsiveContainer>
   );
 }
 
@@ -86,7 +86,7 @@ type Bars = { name: string; err: number }[];
 
 export function DeviationDrawing({ data }: { data: (Bars[number] & { dev: number })[] }) {
   return (
-    <FittedChart>
+    <ResponsiveContainer width="100%" height="100%">
       <BarChart data={data} layout="vertical" margin={{ left: 8, right: 16 }}>
         <CartesianGrid stroke="#d5d0c2" strokeDasharray="3 3" />
         <XAxis type="number" unit=" %" />
@@ -97,7 +97,7 @@ export function DeviationDrawing({ data }: { data: (Bars[number] & { dev: number
           <ErrorBar dataKey="err" width={6} stroke="#0b1620" direction="x" />
         </Bar>
       </BarChart>
-    </FittedChart>
+    </ResponsiveContainer>
   );
 }
 
@@ -109,7 +109,7 @@ export function JetVelocityDrawing({
   speedUnit: SpeedUnit;
 }) {
   return (
-    <FittedChart>
+    <ResponsiveContainer width="100%" height="100%">
       <BarChart data={data} layout="vertical" margin={{ left: 8, right: 16 }}>
         <CartesianGrid stroke="#d5d0c2" strokeDasharray="3 3" />
         <XAxis type="number" domain={['dataMin - 2', 'dataMax + 2']} tickFormatter={(v: number) => v.toFixed(0)} />
@@ -119,6 +119,6 @@ export function JetVelocityDrawing({
           <ErrorBar dataKey="err" width={6} stroke="#e86a10" direction="x" />
         </Bar>
       </BarChart>
-    </FittedChart>
+    </ResponsiveContainer>
   );
 }

@@ -3,8 +3,18 @@
 // The drawing inside the calculator's chart (recharts), loaded only once a chart is on screen
 // (thrust-chart.tsx imports it with next/dynamic), so the calculator's first load carries no charting library.
 
-import { CartesianGrid, Legend, Line, LineChart, ReferenceDot, ReferenceLine, Tooltip, XAxis, YAxis } from 'recharts';
-import { FittedChart } from '@/components/fitted-chart';
+import {
+  CartesianGrid,
+  Legend,
+  Line,
+  LineChart,
+  ReferenceDot,
+  ReferenceLine,
+  ResponsiveContainer,
+  Tooltip,
+  XAxis,
+  YAxis,
+} from 'recharts';
 import { convertForce, convertSpeed, UNIT_LABELS } from '@/lib/core/engine/units';
 import { CURVE_SPEEDS_MS } from './setup-model';
 import { SERIES_STYLES, type ThrustChartProps } from './chart-series';
@@ -34,7 +44,7 @@ export function ThrustChartDrawing({ series, crossings, speedUnit, forceUnit }: 
   const maxSpeed = rows[rows.length - 1].speed;
 
   return (
-    <FittedChart>
+    <ResponsiveContainer width="100%" height="100%">
       <LineChart data={rows} margin={{ top: 16, right: 16, bottom: 28, left: 8 }}>
         <CartesianGrid stroke="#d5d0c2" strokeDasharray="3 3" />
         <XAxis
@@ -82,6 +92,6 @@ export function ThrustChartDrawing({ series, crossings, speedUnit, forceUnit }: 
           ];
         })}
       </LineChart>
-    </FittedChart>
+    </ResponsiveContainer>
   );
 }

@@ -1,8 +1,7 @@
 'use client';
 
 // The parity history's drawing (recharts), loaded by parity-history-chart.tsx when it comes near the screen.
-import { CartesianGrid, Line, LineChart, ReferenceLine, Tooltip, XAxis, YAxis } from 'recharts';
-import { FittedChart } from '@/components/fitted-chart';
+import { CartesianGrid, Line, LineChart, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 
 export function ParityHistoryDrawing({
   data,
@@ -12,7 +11,7 @@ export function ParityHistoryDrawing({
   marks: { round: string; label: string }[];
 }) {
   return (
-    <FittedChart>
+    <ResponsiveContainer width="100%" height="100%">
       <LineChart data={data} margin={{ top: 16, right: 16, bottom: 8, left: 8 }}>
         <CartesianGrid strokeDasharray="3 3" />
         <XAxis dataKey="round" />
@@ -24,6 +23,6 @@ export function ParityHistoryDrawing({
           <ReferenceLine key={m.label} x={m.round} stroke="#e76b10" strokeDasharray="2 3" label={m.label} />
         ))}
       </LineChart>
-    </FittedChart>
+    </ResponsiveContainer>
   );
 }
