@@ -23,10 +23,10 @@ import { fileURLToPath } from 'node:url';
 export const HINT = '//# allFunctionsCalledOnLoad\n';
 
 /**
- * Adds the hint to `file` (and shifts its source map one line); false when it was already there. The map is written
- * first, so a run stopped between the two writes leaves a file without the hint, which the next run finishes
- * (the other way round, the hinted file would be skipped and its map left a line off). A file that names a map this
- * cannot shift (inline, missing, an odd form) is hinted anyway and reported in `unshifted`.
+ * Adds the hint to `file` (and shifts its source map one line); false when it was already there. The two writes are
+ * not one step: a run stopped between them leaves the map shifted and the script without the hint, and the next run
+ * shifts that map again, so a build interrupted here is built again (maps exist only in a profiling build). A file
+ * that names a map this cannot shift (inline, missing, an odd form) is hinted anyway and reported in `unshifted`.
  */
 export function addHint(file, unshifted = []) {
   const text = fs.readFileSync(file, 'utf8');
