@@ -15,6 +15,19 @@ export type JsonAnswer<T> =
 
 export const NO_CONNECTION_MESSAGE = 'No connection to the server: nothing was saved. Try again.';
 const NO_CONNECTION_READING = 'No connection to the server: try again when the signal returns.';
+/** The server took the request but the connection dropped while its answer arrived: it may have been saved. */
+export const ANSWER_CUT_MESSAGE =
+  'The connection dropped while the server answered: it may have been saved. Look before sending it again.';
+
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- the error shape is checked field by field below
+function parseJson(text: string): any {
+  if (!text) return null;
+  try {
+    return JSON.parse(text);
+  } catch {
+    return null;
+  }
+}
 
 /** The error shape's details as one message per field (the first one wins); anything else gives none. */
 export function fieldErrorsFromDetails(details: unknown): FieldErrors {
@@ -66,7 +79,23 @@ export async function requestJson<T = unknown>(
     if (signal?.aborted) throw err;
     return { ok: false, status: 0, message: fallback(0), fieldErrors: {}, headers: null };
   }
-  const json = await res.json().catch(() => null);
+  // The body is read apart from its parsing: an abort or a dropped connection while it arrives is not an empty
+  // answer. Read as empty, an aborted 200 came back as { ok: true, data: undefined } and a caller that kept it
+  // (the calculator remembers answers) later drew from nothing and fell over.
+  let text: string;
+  try {
+    text = await res.text();
+  } catch (err) {
+    if (signal?.aborted) throw err;
+    return {
+      ok: false,
+      status: 0,
+      message: res.ok && method !== 'GET' ? ANSWER_CUT_MESSAGE : fallback(0),
+      fieldErrors: {},
+      headers: null,
+    };
+  }
+  const json = parseJson(text);
   if (res.ok) return { ok: true, status: res.status, data: json?.data as T, headers: res.headers };
   const error = json?.error;
   return {

@@ -145,6 +145,8 @@ export function useJetResults(setups: readonly SetupDraft[]) {
     const timer = setTimeout(() => {
       fetchResults(JSON.parse(requestKey) as SetupRequest[], post, controller.signal)
         .then((r) => {
+          // Superseded while it settled: the newer request's answer is the one to show.
+          if (controller.signal.aborted) return;
           setResults(r);
           setProblem(undefined);
         })
