@@ -15,14 +15,6 @@ const body = localFont({
   variable: '--font-body',
   display: 'swap',
 });
-// The italic only sets book titles (<cite>, <em>) on the calculator and the parity report: its own family, not
-// preloaded, so no other page downloads it (globals.css gives it to em, cite and i).
-const bodyItalic = localFont({
-  src: [{ path: './fonts/atkinson-hyperlegible-latin-400-italic.woff2', weight: '400', style: 'italic' }],
-  variable: '--font-body-italic',
-  display: 'swap',
-  preload: false,
-});
 const figures = localFont({
   src: [
     { path: './fonts/ibm-plex-mono-latin-400-normal.woff2', weight: '400', style: 'normal' },
@@ -52,7 +44,7 @@ export default async function RootLayout({ children }: { children: React.ReactNo
   // The "sunlight" theme's class is set here, in the HTML itself, so the first paint is already in it.
   const theme = isSunlightTheme((await cookies()).get(THEME_COOKIE)?.value) ? ` ${SUNLIGHT_CLASS}` : '';
   return (
-    <html lang="en" className={`${body.variable} ${bodyItalic.variable} ${figures.variable}${theme}`}>
+    <html lang="en" className={`${body.variable} ${figures.variable}${theme}`}>
       <body>{children}</body>
     </html>
   );
