@@ -7,15 +7,16 @@
 // for instance `BORELINE_BROWSER_SOURCEMAPS=1 npm test -- tests/integration/health.test.ts` and then this script
 // with BENCH_REUSE_BUILD=1. Without maps the chunks' own names are printed.
 // PROFILE_PATH chooses the page (default: a boat card on the dock of a scratch meeting, as bench:pages opens it);
-// PROFILE_AS=scrutineer|entrant|organiser signs in as that demo person (default: the scrutineer for the default
+// PROFILE_CPU=4 slows Chromium's CPU down as Lighthouse's phone does. PROFILE_AS=scrutineer|entrant|organiser signs in as that demo person (default: the scrutineer for the default
 // page, nobody otherwise). PROFILE_TRACE=FILE keeps the trace for Chromium's Performance panel.
+import { randomUUID } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { chromium } from 'playwright-core';
 import { SourceMapConsumer } from 'source-map-js';
 import { HttpSession } from '../tests/support/http-session';
 import { DEMO, DEMO_PASSWORD } from '../tests/support/env';
-import { InspectionMeeting, rulesWith } from '../tests/support/inspection-meeting';
+import { InspectionMeeting, inspectionBody, rulesWith } from '../tests/support/inspection-meeting';
 
 const BASE = process.env.BASE_URL ?? 'http://localhost:3000';
 const DIST = process.env.NEXT_DIST_DIR ?? '.next-test';
@@ -54,9 +55,19 @@ async function pageToProfile(): Promise<{ path: string; cookie?: string }> {
   await meeting.create(`Page profile ${new Date().toISOString()}`, [{ email: DEMO.scrutineer, role: 'scrutineer' }]);
   const classId = await meeting.addClass('PP', rulesWith());
   const entry = await meeting.addEntry(classId);
+  await meeting.addEntry(classId);
+  // As bench:pages opens it: the boat has a conforming record already, so its card lists it.
+  const scrutineerCookie = cookie ?? (await signIn(DEMO.scrutineer));
+  const scrutineer = new HttpSession();
+  await scrutineer.signInWithPassword(DEMO.scrutineer, DEMO_PASSWORD);
+  const rec = await scrutineer.json(`/api/events/${meeting.eventId}/inspections`, {
+    ...inspectionBody(entry.id, 101.9),
+    idempotencyKey: randomUUID(),
+  });
+  if (rec.res.status !== 201) throw new Error(`recording failed: ${JSON.stringify(rec.body)}`);
   return {
     path: `/inspect/${meeting.eventId}?race=${entry.raceNumber}`,
-    cookie: cookie ?? (await signIn(DEMO.scrutineer)),
+    cookie: scrutineerCookie,
   };
 }
 
@@ -96,6 +107,11 @@ async function main() {
     extraHTTPHeaders: page.cookie ? { Cookie: page.cookie } : {},
   });
   const tab = await context.newPage();
+  // PROFILE_CPU=4: Chromium's own CPU slow-down, as Lighthouse's mobile profile assumes (its runs are simulated).
+  if (process.env.PROFILE_CPU) {
+    const cdp = await context.newCDPSession(tab);
+    await cdp.send('Emulation.setCPUThrottlingRate', { rate: Number(process.env.PROFILE_CPU) });
+  }
   await browser.startTracing(tab, {
     categories: [
       '-*',
