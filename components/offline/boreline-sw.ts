@@ -95,6 +95,36 @@ const rememberDock: SerwistPlugin = {
   },
 };
 
+/** A dock page opened for one boat (?race=, ?tag=): its HTML may carry that boat's card as the server saw it. */
+const isOneBoatDock = (url: URL) =>
+  DOCK_PAGE.test(url.pathname) && (url.searchParams.has('race') || url.searchParams.has('tag'));
+
+/**
+ * Such a page is never kept: with no signal the phone shows the plain dock instead (answerOffline finds it by its
+ * path), which looks the boat up in the phone's copy of the entries and says the card is a copy, rather than an
+ * old card shown as if fresh, or another boat's. The plain dock is kept the first time a boat's page is opened,
+ * so a dock only ever opened from links still works with no signal.
+ */
+const keepPlainDockInstead: SerwistPlugin = {
+  cacheWillUpdate: async ({ request, response }) => (isOneBoatDock(new URL(request.url)) ? null : response),
+  fetchDidSucceed: async ({ request, response }) => {
+    const url = new URL(request.url);
+    if (response.ok && request.mode === 'navigate' && isOneBoatDock(url)) {
+      const cache = await caches.open(PAGES);
+      const plain = new URL(url.pathname, url.origin).href;
+      if (!(await cache.match(plain, { ignoreVary: true })))
+        void fetch(plain, { credentials: 'same-origin' })
+          .then(async (r) => {
+            if (!r.ok || r.redirected) return;
+            await cache.put(plain, r);
+            await cache.put(LAST_DOCK, new Response(url.pathname));
+          })
+          .catch(() => undefined);
+    }
+    return response;
+  },
+};
+
 // Serwist's own caches (the precache) are named boreline-… too; set before the precache is made.
 setCacheNameDetails({ prefix: 'boreline' });
 
@@ -127,7 +157,7 @@ const serwist = new Serwist({
       handler: new NetworkFirst({
         cacheName: PAGES,
         matchOptions: { ignoreVary: true },
-        plugins: [keepGoodAnswers, rememberDock, markCopies, answerOffline(true)],
+        plugins: [keepGoodAnswers, keepPlainDockInstead, rememberDock, markCopies, answerOffline(true)],
       }),
     },
     {
@@ -242,8 +272,10 @@ async function warm(urls: unknown) {
   await Promise.all(
     urls.slice(0, 300).map(async (href) => {
       if (typeof href !== 'string') return;
-      const url = new URL(href, sw.location.origin);
-      if (url.origin !== sw.location.origin) return;
+      const asked = new URL(href, sw.location.origin);
+      if (asked.origin !== sw.location.origin) return;
+      // A boat's dock page is never kept (keepPlainDockInstead): the plain dock is.
+      const url = isOneBoatDock(asked) ? new URL(asked.pathname, asked.origin) : asked;
       const isStatic = url.pathname.startsWith('/_next/static/');
       if (!isStatic && !KEPT_PAGES.test(url.pathname)) return;
       const cache = await caches.open(isStatic ? 'boreline-static' : PAGES);

@@ -1,5 +1,6 @@
 'use client';
 
+import { useSyncExternalStore } from 'react';
 import { StatusBadge } from '@/components/status-badge';
 import { VerdictBadge } from '@/components/verdict-badge';
 import { INSPECTION_KIND_LABELS, type InspectionKind } from '@/lib/core/inputs/inspection-terms';
@@ -12,7 +13,20 @@ import { describePowerEvidence } from '@/lib/core/inspections/power-evidence';
 import { SEAL_ACTION_WORDS } from '@/lib/core/seals/seal-words';
 import type { DockTarget } from './form-model';
 
-const when = (iso: string) => formatOnDevice(iso, 'day-time');
+const subscribeToNothing = () => () => {};
+
+/**
+ * A time on the phone's own clock. The server does not know the phone's zone: a card that comes in the page's first
+ * HTML (?race=) has the time filled in as the page starts (React's hydration reads the server's empty text first),
+ * and a card drawn on the phone has it at once.
+ */
+function OnDevice({ iso }: { iso: string }) {
+  return useSyncExternalStore(
+    subscribeToNothing,
+    () => formatOnDevice(iso, 'day-time'),
+    () => '',
+  );
+}
 
 /** The boat at the dock: who it is, what was declared, what has been recorded here before. */
 export function BoatCardView({
@@ -140,7 +154,7 @@ export function BoatCardView({
                   <li key={s.sealId} className="py-1" data-seal={s.number}>
                     <strong>Seal {s.number}</strong> on the {s.component}
                     {s.position ? ` (${s.position})` : ''} · {SEAL_ACTION_WORDS[s.lastAction].toLowerCase()}{' '}
-                    {when(s.lastAt)}
+                    <OnDevice iso={s.lastAt} />
                   </li>
                 ))}
               </ul>
@@ -156,7 +170,7 @@ export function BoatCardView({
                   <li key={i.id} className="space-y-1 py-2" data-superseded={i.supersededById ? 'yes' : 'no'}>
                     <div className="flex flex-wrap items-center justify-between gap-2">
                       <span>
-                        {when(i.capturedAt)} · {INSPECTION_KIND_LABELS[i.kind as InspectionKind] ?? i.kind}
+                        <OnDevice iso={i.capturedAt} /> · {INSPECTION_KIND_LABELS[i.kind as InspectionKind] ?? i.kind}
                       </span>
                       <VerdictBadge verdict={i.overallResult} />
                     </div>

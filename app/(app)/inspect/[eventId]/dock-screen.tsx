@@ -14,6 +14,7 @@ import {
   type QueuedRecord,
 } from '@/app/(app)/inspect/[eventId]/offline-queue';
 import type { InspectionView } from '@/lib/server/inspections/inspection-view';
+import type { BoatCard } from '@/lib/server/inspections/load-boat-card';
 import type { InstrumentView } from '@/lib/server/inspections/list-instruments';
 import { describeScope } from '@/lib/core/inspections/check-areas';
 import { FindBoat, type FindQuery } from './find-boat';
@@ -49,6 +50,9 @@ const BoatCardView = dynamic(() => import('./boat-card-view').then((m) => m.Boat
 const InspectionForm = dynamic(() => import('./inspection-form').then((m) => m.InspectionForm));
 const VerdictPanel = dynamic(() => import('./verdict-panel').then((m) => m.VerdictPanel));
 
+/** How long a card that came with the page counts as fresh (see openFromLink). */
+const CARD_FRESH_MS = 60_000;
+
 type Notice = { tone: 'error' | 'info'; text: string; code?: string };
 type Answer = {
   status: number;
@@ -79,6 +83,8 @@ export function DockScreen({
   instruments,
   canOpenLogbook,
   opensFromLink = false,
+  initialCard = null,
+  cardReadAt,
 }: {
   eventId: string;
   actorId: string;
@@ -87,11 +93,24 @@ export function DockScreen({
   canOpenLogbook: boolean;
   /** Opened with ?race= or ?tag=: a boat's card and form will appear above the phone's outbox. */
   opensFromLink?: boolean;
+  /** The card found by the server for ?race=: shown, with its form, from the first HTML (no lookup from here). */
+  initialCard?: BoatCard | null;
+  /** When the server read that card (ms since 1970, the server's clock). */
+  cardReadAt?: number;
 }) {
   const queue = useDockQueue(eventId, actorId);
+  // The first usable one (an overdue instrument, or one out of use after a failed check today, is never preselected).
+  const defaultLength = instruments.find((i) => i.quantity === 'length' && i.calibration.usable)?.id ?? null;
+  const defaultScale = instruments.find((i) => i.quantity === 'mass' && i.calibration.usable)?.id ?? null;
   const [snapshot, setSnapshot] = useState<EventSnapshot | null>(null);
-  const [target, setTarget] = useState<DockTarget | null>(null);
-  const [form, setForm] = useState<{ key: string; initial: FormState; revision: number } | null>(null);
+  const [target, setTarget] = useState<DockTarget | null>(() =>
+    initialCard ? targetFromCard(initialCard, false) : null,
+  );
+  const [form, setForm] = useState<{ key: string; initial: FormState; revision: number } | null>(() =>
+    // The key is made here, on the phone (it is not in the HTML): a page shown again from the browser's history
+    // would otherwise bring back a key already sent, and the server answers a repeated key with the first record.
+    target ? { key: newKey(), initial: initialFormState(target, defaultLength, defaultScale), revision: 1 } : null,
+  );
   const [serverErrors, setServerErrors] = useState<Record<string, string>>({});
   const [notice, setNotice] = useState<Notice | null>(null);
   const [verdict, setVerdict] = useState<ShownVerdict | null>(null);
@@ -99,9 +118,6 @@ export function DockScreen({
   const [stale, setStale] = useState<QueuedRecord | null>(null);
   const [followUp, setFollowUp] = useState<{ raceNumber: number; boatName: string; others: OtherEntry[] } | null>(null);
   const verdictRef = useRef<HTMLDivElement>(null);
-  // The first usable one (an overdue instrument, or one out of use after a failed check today, is never preselected).
-  const defaultLength = instruments.find((i) => i.quantity === 'length' && i.calibration.usable)?.id ?? null;
-  const defaultScale = instruments.find((i) => i.quantity === 'mass' && i.calibration.usable)?.id ?? null;
 
   // Keep the phone's copy of the entries (and class rules) fresh whenever there is a signal.
   const refreshSnapshot = useCallback(async () => {
@@ -339,6 +355,13 @@ export function DockScreen({
     const query = new URLSearchParams(window.location.search);
     const race = query.get('race');
     const tag = query.get('tag');
+    // The server found this boat already (?race=): its card and form came with the page; only bring them into view.
+    if (initialCard) {
+      document.getElementById('boat-heading')?.scrollIntoView({ block: 'start' });
+      // A page shown again from the browser's history brings the card as it was then: one more than a minute old
+      // by this phone's clock is looked up again (and drawn again if it changed). The form's key is fresh either way.
+      if (cardReadAt !== undefined && Date.now() - cardReadAt < CARD_FRESH_MS) return;
+    }
     isOpenedFromLink.current = Boolean(race || tag);
     // The card and form are wanted at once: their code is fetched beside the lookup, not after it.
     if (race || tag) void loadDockParts().catch(() => undefined);

@@ -1,6 +1,6 @@
 'use client';
 
-import { useState } from 'react';
+import { useState, useSyncExternalStore } from 'react';
 import { SAFETY_ITEMS, type SafetyItem } from '@/lib/core/constants';
 import { MATERIAL_OPTIONS } from '@/lib/core/engine/measurement';
 import { EngineInputError } from '@/lib/core/engine/engine-input-error';
@@ -58,6 +58,10 @@ const id = (path: string) => `f-${path.replace(/\./g, '-')}`;
 const select = 'field-input min-h-touch text-xl';
 const check = 'h-7 w-7 shrink-0 accent-tide-600';
 
+const subscribeToNothing = () => () => {};
+const isInBrowser = () => true;
+const isOnServer = () => false;
+
 /** The record form for one boat. Checks the input as the server's schema does before anything is queued. */
 export function InspectionForm({ target, instruments, initial, idempotencyKey, serverErrors, onSubmit }: Props) {
   // The screen stays on while this record is open (released when the form closes).
@@ -67,6 +71,7 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, s
   // By the applied seal's row; kept beside the form state (files do not go into a queued draft).
   const [sealPhotos, setSealPhotos] = useState<Record<number, File>>({});
   const set = <K extends keyof FormState>(k: K, v: FormState[K]) => setF((s) => ({ ...s, [k]: v }));
+  const isStarted = useSyncExternalStore(subscribeToNothing, isInBrowser, isOnServer);
   const lengthInstruments = instruments.filter((i) => i.quantity === 'length');
   const scales = instruments.filter((i) => i.quantity === 'mass');
   const rules = target.rules;
@@ -142,7 +147,9 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, s
       data-testid="inspection-form"
       aria-label={`Inspection of ${target.boatName}`}
     >
-      <fieldset disabled={isPending} className="space-y-6">
+      {/* Shut until the page has started: a form that came in the first HTML (?race=) takes no typing or tap that
+          its script would not see (a tap on Record would send the page itself). */}
+      <fieldset disabled={isPending || !isStarted} className="space-y-6">
         {f.supersedesId && (
           <div className="rounded-lg border-2 border-flare-500 bg-flare-100 p-4">
             <p className="font-bold">Correcting an earlier record. The original is kept; this one supersedes it.</p>

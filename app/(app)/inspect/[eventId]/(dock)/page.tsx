@@ -1,12 +1,41 @@
 import type { Metadata } from 'next';
 import Link from '@/components/link';
-import { can } from '@/lib/server/auth/actor';
+import { can, type Actor } from '@/lib/server/auth/actor';
 import { listInstruments } from '@/lib/server/inspections/list-instruments';
+import { findEntryByRaceNumber } from '@/lib/server/inspections/find-entry-by-race-number';
+import { findBoatByTag } from '@/lib/server/inspections/find-boat-by-tag';
+import { parseTagScan } from '@/lib/core/tags/parse-tag-scan';
+import type { BoatCard } from '@/lib/server/inspections/load-boat-card';
+import { AppError } from '@/lib/core/errors';
 import { openDock } from '../access';
 import { DockScreen } from '../dock-screen';
 
 export const metadata: Metadata = { title: 'Dock inspection' };
 export const dynamic = 'force-dynamic';
+
+/**
+ * Opened for one boat (?race= from the board's links, ?tag= from a tag scanned with the phone's own camera): the card
+ * and its form come in the page's first HTML, not after the scripts, a lookup and the form's code have all arrived
+ * (on a phone on one bar, seconds later). The API's own lookups, so the same permission check. A number or tag that
+ * finds no boat here, or a card this person may not open, gives null: the screen looks again and says why.
+ */
+async function lookUpCard(actor: Actor, eventId: string, race?: string, tag?: string) {
+  const token = !race && tag ? parseTagScan(tag) : null;
+  const lookup = race
+    ? findEntryByRaceNumber(actor, eventId, race)
+    : token
+      ? findBoatByTag(actor, eventId, token)
+      : null;
+  if (!lookup) return null;
+  return lookup.then(
+    // The lookup's answer as the API gives it (JSON: instants as strings), so the screen reads one shape.
+    (card) => ({ card: JSON.parse(JSON.stringify(card)) as BoatCard, readAt: Date.now() }),
+    (err: unknown) => {
+      if (err instanceof AppError && err.status < 500) return null;
+      throw err;
+    },
+  );
+}
 
 // The dock screen for scrutineers of this meeting; it keeps working offline once visited.
 export default async function DockPage({
@@ -14,11 +43,14 @@ export default async function DockPage({
   searchParams,
 }: {
   params: Promise<{ eventId: string }>;
-  searchParams: Promise<{ race?: string; tag?: string }>;
+  searchParams: Promise<{ race?: string | string[]; tag?: string | string[] }>;
 }) {
   const { actor, eventId, event } = await openDock(params);
-  const { race, tag } = await searchParams;
+  // The first of a repeated word, as the screen's own URLSearchParams.get reads it.
+  const query = await searchParams;
+  const [race, tag] = [query.race, query.tag].map((v) => (Array.isArray(v) ? v[0] : v));
   const instruments = await listInstruments(actor, eventId);
+  const found = await lookUpCard(actor, eventId, race, tag);
   return (
     <div className="space-y-4 text-lg">
       <nav aria-label="Breadcrumb" className="text-lg">
@@ -47,6 +79,8 @@ export default async function DockPage({
         instruments={instruments}
         canOpenLogbook={can(actor, 'entry.view_all', { eventId })}
         opensFromLink={Boolean(race || tag)}
+        initialCard={found?.card ?? null}
+        cardReadAt={found?.readAt}
       />
     </div>
   );
