@@ -70,8 +70,13 @@ const OFFLINE_PAGE =
 const answerOffline = (isPage: boolean): SerwistPlugin => ({
   handlerDidError: async ({ request }) => {
     if (isPage) {
-      // The same page with other search words (?race=42) is the same screen: better than nothing.
-      const near = await (await caches.open(PAGES)).match(request.url, { ignoreSearch: true, ignoreVary: true });
+      // The same page with other search words (?race=42) is the same screen: better than nothing. The page with no
+      // search words first (for a boat's link, the plain dock), then any.
+      const pages = await caches.open(PAGES);
+      const url = new URL(request.url);
+      const near =
+        (await pages.match(new URL(url.pathname, url.origin).href, { ignoreVary: true })) ??
+        (await pages.match(request.url, { ignoreSearch: true, ignoreVary: true }));
       if (near) return markedCopy(near);
       return new Response(OFFLINE_PAGE, { status: 503, headers: { 'content-type': 'text/html; charset=utf-8' } });
     }
@@ -96,8 +101,9 @@ const rememberDock: SerwistPlugin = {
 };
 
 /** A dock page opened for one boat (?race=, ?tag=): its HTML may carry that boat's card as the server saw it. */
+// Any spelling of the meeting's id (the app reads it in any case, and %-escaped), so none slips past as another page.
 const isOneBoatDock = (url: URL) =>
-  DOCK_PAGE.test(url.pathname) && (url.searchParams.has('race') || url.searchParams.has('tag'));
+  /^\/inspect\/[^/]+\/?$/i.test(url.pathname) && (url.searchParams.has('race') || url.searchParams.has('tag'));
 
 /**
  * Such a page is never kept: with no signal the phone shows the plain dock instead (answerOffline finds it by its
@@ -107,19 +113,22 @@ const isOneBoatDock = (url: URL) =>
  */
 const keepPlainDockInstead: SerwistPlugin = {
   cacheWillUpdate: async ({ request, response }) => (isOneBoatDock(new URL(request.url)) ? null : response),
-  fetchDidSucceed: async ({ request, response }) => {
+  fetchDidSucceed: async ({ request, response, event }) => {
     const url = new URL(request.url);
     if (response.ok && request.mode === 'navigate' && isOneBoatDock(url)) {
       const cache = await caches.open(PAGES);
       const plain = new URL(url.pathname, url.origin).href;
-      if (!(await cache.match(plain, { ignoreVary: true })))
-        void fetch(plain, { credentials: 'same-origin' })
+      if (!(await cache.match(plain, { ignoreVary: true }))) {
+        const kept = fetch(plain, { credentials: 'same-origin' })
           .then(async (r) => {
             if (!r.ok || r.redirected) return;
             await cache.put(plain, r);
             await cache.put(LAST_DOCK, new Response(url.pathname));
           })
           .catch(() => undefined);
+        // The worker stays up until the plain dock is kept (the page's own answer is not held back for it).
+        (event as ExtendableEvent | undefined)?.waitUntil?.(kept);
+      }
     }
     return response;
   },
@@ -293,10 +302,18 @@ async function warm(urls: unknown) {
 }
 
 sw.addEventListener('activate', (event) => {
-  // The hand-written worker before this one (scope /inspect/) kept its copies under these names.
+  // The hand-written worker before this one (scope /inspect/) kept its copies under these names; a worker before
+  // keepPlainDockInstead kept boats' dock pages, whose HTML now holds a card: both go.
   event.waitUntil(
-    caches
-      .keys()
-      .then((keys) => Promise.all(keys.filter((k) => k.startsWith('boreline-inspect-')).map((k) => caches.delete(k)))),
+    Promise.all([
+      caches
+        .keys()
+        .then((keys) =>
+          Promise.all(keys.filter((k) => k.startsWith('boreline-inspect-')).map((k) => caches.delete(k))),
+        ),
+      caches.open(PAGES).then(async (pages) => {
+        for (const request of await pages.keys()) if (isOneBoatDock(new URL(request.url))) await pages.delete(request);
+      }),
+    ]),
   );
 });

@@ -10,6 +10,7 @@ import { BASE_URL, DEMO, DEMO_PASSWORD } from '../support/env';
 import { expectNoSeriousA11yViolations } from '../support/a11y';
 import { HttpSession } from '../support/http-session';
 import { InspectionMeeting, inspectionBody, rulesWith, type TestEntry } from '../support/inspection-meeting';
+import { waitForDockForm } from '../support/dock-record';
 import { SUNLIGHT_CLASS, THEME_COOKIE } from '../../lib/core/theme';
 
 let browser: Browser;
@@ -60,6 +61,7 @@ async function sweep(page: Page, context: BrowserContext, stops: Stop[]) {
     await page.goto(stop.path);
     await page.locator('h1').first().waitFor();
     if (stop.ready) await page.getByTestId(stop.ready).waitFor();
+    if (stop.ready === 'inspection-form') await waitForDockForm(page);
     if (stop.chart) {
       await page.getByTestId(stop.chart).scrollIntoViewIfNeeded();
       await page.getByTestId(stop.chart).locator('svg.recharts-surface').first().waitFor();

@@ -9,6 +9,7 @@ import type { Browser, Page } from 'playwright-core';
 import { launchBrowser, newContext, PHONE, screenshot, signInWithPassword } from '../support/browser';
 import { DEMO, DEMO_PASSWORD } from '../support/env';
 import { InspectionMeeting, rulesWith, type TestEntry } from '../support/inspection-meeting';
+import { waitForDockForm } from '../support/dock-record';
 
 let browser: Browser;
 const meeting = new InspectionMeeting();
@@ -54,7 +55,8 @@ test('one boat from a link: card and form at once, typing kept; offline the plai
   await card.waitFor();
   assert.equal(await card.getAttribute('data-entry-id'), entry.id);
   assert.equal(await page.getByTestId('boat-name').innerText(), entry.boatName);
-  // Shut until the page has started, then open (Playwright's fill waits for an enabled field).
+  // Inert until the page has started (the HTML's form: tests/integration/dock-card-first-html.test.ts), then open.
+  await waitForDockForm(page);
   const reading = page.getByLabel('Reading 1 diameter');
   await reading.fill('101.93');
   await page.waitForTimeout(500);

@@ -18,6 +18,7 @@ import {
 import { DEMO, DEMO_PASSWORD } from '../support/env';
 import { query } from '../support/db';
 import { InspectionMeeting, rulesWith } from '../support/inspection-meeting';
+import { waitForDockForm } from '../support/dock-record';
 
 let browser: Browser;
 before(async () => {
@@ -176,7 +177,7 @@ test('slot booked by the entrant, checked in offline at the dock, incident forci
   const switcher = dp.getByTestId('class-switcher');
   await switcher.filter({ hasText: 'this card is QJ' }).waitFor();
   const fill = async () => {
-    await dp.getByTestId('inspection-form').waitFor();
+    await waitForDockForm(dp);
     for (const [i, d] of [101.5, 101.8, 101.7].entries())
       await dp.getByLabel(`Reading ${i + 1} diameter`).fill(String(d));
     await dp.getByLabel('I know U (type it)').check();

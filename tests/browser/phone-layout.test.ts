@@ -11,6 +11,7 @@ import type { Browser, Locator, Page } from 'playwright-core';
 import { launchBrowser, newContext, screenshot, signInWithPassword, PHONE } from '../support/browser';
 import { ARTIFACTS, DEMO, DEMO_PASSWORD } from '../support/env';
 import { InspectionMeeting, rulesWith, type TestEntry } from '../support/inspection-meeting';
+import { waitForDockForm } from '../support/dock-record';
 
 const WCAG_MIN_PX = 24; // WCAG 2.2 SC 2.5.8
 const TOUCH_PX = 44; // WCAG 2.2 SC 2.5.5 (AAA); common practice for touch
@@ -142,7 +143,7 @@ test('dock on a phone: Record stays on screen while the top of the form is read,
   const page = await phonePage(DEMO.scrutineer);
   await page.goto(`/inspect/${meeting.eventId}?race=${entry.raceNumber}`);
   const form = page.getByTestId('inspection-form');
-  await form.waitFor();
+  await waitForDockForm(page);
   // The top of the form at the top of the screen.
   await form.evaluate((el) => window.scrollTo(0, el.getBoundingClientRect().top + window.scrollY));
   const formHeight = (await box(form)).height;

@@ -24,10 +24,17 @@ export async function ssBoats(): Promise<{ boats: Boat[]; safety: SafetyItem[] }
   return { boats, safety: v.rules.safetyItems };
 }
 
+/**
+ * The record form open for typing: a form that came in the page's first HTML (?race=, ?tag=) is inert until the
+ * page has started, and Playwright would type into it before then without error (an inert field takes no focus).
+ */
+export async function waitForDockForm(page: Page) {
+  await page.locator('[data-testid="inspection-form"] [data-started="yes"]').waitFor();
+}
+
 /** Readings with the largest given, U typed as 0.05 mm (or an instrument), weighings and power comfortably inside, every safety item ticked. */
 export async function fillRecord(page: Page, largestMm: number, safety: SafetyItem[], instrumentId?: string) {
-  const form = page.getByTestId('inspection-form');
-  await form.waitFor();
+  await waitForDockForm(page);
   for (const [i, d] of [101.5, largestMm, 101.8].entries())
     await page.getByLabel(`Reading ${i + 1} diameter`).fill(String(d));
   if (instrumentId) {

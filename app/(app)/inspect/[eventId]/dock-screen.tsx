@@ -50,8 +50,8 @@ const BoatCardView = dynamic(() => import('./boat-card-view').then((m) => m.Boat
 const InspectionForm = dynamic(() => import('./inspection-form').then((m) => m.InspectionForm));
 const VerdictPanel = dynamic(() => import('./verdict-panel').then((m) => m.VerdictPanel));
 
-/** How long a card that came with the page counts as fresh (see openFromLink). */
-const CARD_FRESH_MS = 60_000;
+/** Cards that came with a page and have been shown (see startCard in DockScreen). */
+const shownCards = new WeakSet<BoatCard>();
 
 type Notice = { tone: 'error' | 'info'; text: string; code?: string };
 type Answer = {
@@ -84,7 +84,6 @@ export function DockScreen({
   canOpenLogbook,
   opensFromLink = false,
   initialCard = null,
-  cardReadAt,
 }: {
   eventId: string;
   actorId: string;
@@ -95,17 +94,20 @@ export function DockScreen({
   opensFromLink?: boolean;
   /** The card found by the server for ?race=: shown, with its form, from the first HTML (no lookup from here). */
   initialCard?: BoatCard | null;
-  /** When the server read that card (ms since 1970, the server's clock). */
-  cardReadAt?: number;
 }) {
   const queue = useDockQueue(eventId, actorId);
   // The first usable one (an overdue instrument, or one out of use after a failed check today, is never preselected).
   const defaultLength = instruments.find((i) => i.quantity === 'length' && i.calibration.usable)?.id ?? null;
   const defaultScale = instruments.find((i) => i.quantity === 'mass' && i.calibration.usable)?.id ?? null;
   const [snapshot, setSnapshot] = useState<EventSnapshot | null>(null);
-  const [target, setTarget] = useState<DockTarget | null>(() =>
-    initialCard ? targetFromCard(initialCard, false) : null,
-  );
+  // The card that came with the page is shown as it is the first time only: the same card again is the page restored
+  // from the browser's history (Next.js keeps it), as old as that visit, so it is looked up afresh as a link opened
+  // here is. No clocks compared.
+  const [startCard] = useState(() => (initialCard && !shownCards.has(initialCard) ? initialCard : null));
+  useEffect(() => {
+    if (initialCard) shownCards.add(initialCard);
+  }, [initialCard]);
+  const [target, setTarget] = useState<DockTarget | null>(() => (startCard ? targetFromCard(startCard, false) : null));
   const [form, setForm] = useState<{ key: string; initial: FormState; revision: number } | null>(() =>
     // The key is made here, on the phone (it is not in the HTML): a page shown again from the browser's history
     // would otherwise bring back a key already sent, and the server answers a repeated key with the first record.
@@ -356,11 +358,9 @@ export function DockScreen({
     const race = query.get('race');
     const tag = query.get('tag');
     // The server found this boat already (?race=): its card and form came with the page; only bring them into view.
-    if (initialCard) {
+    if (startCard) {
       document.getElementById('boat-heading')?.scrollIntoView({ block: 'start' });
-      // A page shown again from the browser's history brings the card as it was then: one more than a minute old
-      // by this phone's clock is looked up again (and drawn again if it changed). The form's key is fresh either way.
-      if (cardReadAt !== undefined && Date.now() - cardReadAt < CARD_FRESH_MS) return;
+      return;
     }
     isOpenedFromLink.current = Boolean(race || tag);
     // The card and form are wanted at once: their code is fetched beside the lookup, not after it.

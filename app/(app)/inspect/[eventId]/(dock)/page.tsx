@@ -7,6 +7,7 @@ import { findBoatByTag } from '@/lib/server/inspections/find-boat-by-tag';
 import { parseTagScan } from '@/lib/core/tags/parse-tag-scan';
 import type { BoatCard } from '@/lib/server/inspections/load-boat-card';
 import { AppError } from '@/lib/core/errors';
+import { logger } from '@/lib/server/observability';
 import { openDock } from '../access';
 import { DockScreen } from '../dock-screen';
 
@@ -29,10 +30,13 @@ async function lookUpCard(actor: Actor, eventId: string, race?: string, tag?: st
   if (!lookup) return null;
   return lookup.then(
     // The lookup's answer as the API gives it (JSON: instants as strings), so the screen reads one shape.
-    (card) => ({ card: JSON.parse(JSON.stringify(card)) as BoatCard, readAt: Date.now() }),
+    (card) => JSON.parse(JSON.stringify(card)) as BoatCard,
     (err: unknown) => {
-      if (err instanceof AppError && err.status < 500) return null;
-      throw err;
+      // Anything else (the database gone a moment) is logged, and the dock still opens: the screen looks up itself
+      // and falls back to the phone's copy, as it did before the card came with the page.
+      if (!(err instanceof AppError && err.status < 500))
+        logger().error({ err: String(err), eventId }, 'dock page: the boat card lookup failed; the screen will look');
+      return null;
     },
   );
 }
@@ -49,8 +53,10 @@ export default async function DockPage({
   // The first of a repeated word, as the screen's own URLSearchParams.get reads it.
   const query = await searchParams;
   const [race, tag] = [query.race, query.tag].map((v) => (Array.isArray(v) ? v[0] : v));
-  const instruments = await listInstruments(actor, eventId);
-  const found = await lookUpCard(actor, eventId, race, tag);
+  const [instruments, initialCard] = await Promise.all([
+    listInstruments(actor, eventId),
+    lookUpCard(actor, eventId, race, tag),
+  ]);
   return (
     <div className="space-y-4 text-lg">
       <nav aria-label="Breadcrumb" className="text-lg">
@@ -79,8 +85,7 @@ export default async function DockPage({
         instruments={instruments}
         canOpenLogbook={can(actor, 'entry.view_all', { eventId })}
         opensFromLink={Boolean(race || tag)}
-        initialCard={found?.card ?? null}
-        cardReadAt={found?.readAt}
+        initialCard={initialCard}
       />
     </div>
   );
