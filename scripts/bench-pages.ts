@@ -28,7 +28,7 @@ const RUNS = Number(process.env.BENCH_RUNS ?? 3);
 const ONLY = process.env.BENCH_PAGES?.split(',').filter(Boolean);
 const OUT = path.join(process.env.TEST_ARTIFACTS ?? 'test-results', 'lighthouse');
 
-type Page = { name: string; path: string; cookie?: string };
+type Page = { name: string; path: string; cookie?: string; as?: string };
 type Figures = {
   performance: number;
   accessibility: number;
@@ -69,9 +69,14 @@ async function setUp(): Promise<Page[]> {
     { name: 'landing', path: '/' },
     { name: 'sign-in', path: '/sign-in' },
     { name: 'calculator', path: '/calculator' },
-    { name: 'dock', path: `/inspect/${meeting.eventId}`, cookie: scrutineerCookie },
-    { name: 'boat card', path: `/inspect/${meeting.eventId}?race=${entry.raceNumber}`, cookie: scrutineerCookie },
-    { name: 'my entries', path: '/entries', cookie: entrantCookie },
+    { name: 'dock', path: `/inspect/${meeting.eventId}`, cookie: scrutineerCookie, as: DEMO.scrutineer },
+    {
+      name: 'boat card',
+      path: `/inspect/${meeting.eventId}?race=${entry.raceNumber}`,
+      cookie: scrutineerCookie,
+      as: DEMO.scrutineer,
+    },
+    { name: 'my entries', path: '/entries', cookie: entrantCookie, as: DEMO.entrant },
     { name: 'report', path: `/reports/${pub.body.data.publicId}` },
   ];
 }
@@ -131,6 +136,8 @@ async function measureWithRetry(port: number, page: Page, run: number): Promise<
     } catch (err) {
       if (attempt === 3) throw err;
       console.error(`${page.name} run ${run}: ${(err as Error).message}; trying again`);
+      // A run cut short can leave its session signed out (seen after NO_NAVSTART): the next attempt signs in afresh.
+      if (page.as) page.cookie = await signedIn(page.as);
     }
   }
 }
