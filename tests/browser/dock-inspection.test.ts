@@ -22,7 +22,7 @@ import {
 } from '../support/browser';
 import { ARTIFACTS, BASE_URL, DEMO, DEMO_PASSWORD } from '../support/env';
 import { query } from '../support/db';
-import { fillRecord, idbKeys, ssBoats } from '../support/dock-record';
+import { fillRecord, idbKeys, ssBoats, waitForDockSnapshot } from '../support/dock-record';
 
 let browser: Browser;
 before(async () => {
@@ -129,16 +129,7 @@ test('dock: scan a tag from a photo, record, see the verdict; offline two record
   await page.getByRole('button', { name: 'Next boat' }).click();
 
   // The phone keeps a copy of the entries for offline use.
-  await page.waitForFunction(async (eventId) => {
-    const db = await new Promise<IDBDatabase>((ok) => {
-      const r = indexedDB.open('boreline-inspect');
-      r.onsuccess = () => ok(r.result);
-    });
-    return new Promise<boolean>((ok) => {
-      const r = db.transaction('snapshots').objectStore('snapshots').get(eventId);
-      r.onsuccess = () => ok(!!r.result);
-    });
-  }, DEMO.meetingId);
+  await waitForDockSnapshot(page, DEMO.meetingId);
   // …and its service worker has kept the dock screen itself (we came by a link, so it may not control this page yet).
   await waitForOfflineCopy(page);
 

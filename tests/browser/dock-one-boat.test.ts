@@ -9,7 +9,7 @@ import type { Browser, Page } from 'playwright-core';
 import { launchBrowser, newContext, PHONE, screenshot, signInWithPassword } from '../support/browser';
 import { DEMO, DEMO_PASSWORD } from '../support/env';
 import { InspectionMeeting, rulesWith, type TestEntry } from '../support/inspection-meeting';
-import { waitForDockForm } from '../support/dock-record';
+import { waitForDockForm, waitForDockSnapshot } from '../support/dock-record';
 
 let browser: Browser;
 const meeting = new InspectionMeeting();
@@ -26,18 +26,6 @@ after(async () => {
 
 const pageKeys = (page: Page) =>
   page.evaluate(async () => (await (await caches.open('boreline-pages')).keys()).map((r) => r.url));
-
-const hasSnapshot = (page: Page, eventId: string) =>
-  page.evaluate(async (eventId) => {
-    const db = await new Promise<IDBDatabase>((ok) => {
-      const r = indexedDB.open('boreline-inspect');
-      r.onsuccess = () => ok(r.result);
-    });
-    return new Promise<boolean>((ok) => {
-      const r = db.transaction('snapshots').objectStore('snapshots').get(eventId);
-      r.onsuccess = () => ok(!!r.result);
-    });
-  }, eventId);
 
 test('one boat from a link: card and form at once, typing kept; offline the plain dock finds it in the phone copy', async () => {
   const context = await newContext(browser, PHONE);
@@ -84,11 +72,7 @@ test('one boat from a link: card and form at once, typing kept; offline the plai
     [],
     "no boat's page is kept",
   );
-  const snapshotBy = Date.now() + 20_000;
-  while (!(await hasSnapshot(page, meeting.eventId))) {
-    assert.ok(Date.now() < snapshotBy, "the phone's copy of the entries was kept");
-    await page.waitForTimeout(200);
-  }
+  await waitForDockSnapshot(page, meeting.eventId);
 
   await context.setOffline(true);
   await page.goto(link);

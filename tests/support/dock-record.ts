@@ -32,6 +32,32 @@ export async function waitForDockForm(page: Page) {
   await page.locator('[data-testid="inspection-form"] [data-started="yes"]').waitFor();
 }
 
+/**
+ * Waits until the phone holds its copy of the meeting's entries (IndexedDB, the dock's offline lookup). Polled here:
+ * page.waitForFunction does not wait for a promise its function returns.
+ */
+export async function waitForDockSnapshot(page: Page, eventId: string, timeoutMs = 20_000) {
+  const hasSnapshot = () =>
+    page.evaluate(async (eventId) => {
+      const db = await new Promise<IDBDatabase>((ok, fail) => {
+        const r = indexedDB.open('boreline-inspect');
+        r.onsuccess = () => ok(r.result);
+        r.onerror = () => fail(r.error);
+      });
+      if (!db.objectStoreNames.contains('snapshots')) return false;
+      return new Promise<boolean>((ok) => {
+        const r = db.transaction('snapshots').objectStore('snapshots').get(eventId);
+        r.onsuccess = () => ok(!!r.result);
+        r.onerror = () => ok(false);
+      });
+    }, eventId);
+  const end = Date.now() + timeoutMs;
+  while (!(await hasSnapshot())) {
+    if (Date.now() > end) throw new Error(`no copy of meeting ${eventId}'s entries on the phone after ${timeoutMs} ms`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
+
 /** Readings with the largest given, U typed as 0.05 mm (or an instrument), weighings and power comfortably inside, every safety item ticked. */
 export async function fillRecord(page: Page, largestMm: number, safety: SafetyItem[], instrumentId?: string) {
   await waitForDockForm(page);
