@@ -12,7 +12,6 @@
 // for "good": TBT < 200 ms, CLS < 0.1 (web.dev/articles/vitals, Core Web Vitals) [memory].
 // BENCH_PAGES=landing,dock narrows the pages; BENCH_RUNS=1 for a quick look; BENCH_SAVE_TRACE=1 keeps each
 // run's Chromium trace (test-results/lighthouse/*-0.trace.json) for a look at its long tasks.
-import { randomUUID } from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -21,7 +20,7 @@ import type { Result as LighthouseResult } from 'lighthouse';
 import * as chromeLauncher from 'chrome-launcher';
 import { HttpSession } from '../tests/support/http-session';
 import { DEMO, DEMO_PASSWORD } from '../tests/support/env';
-import { InspectionMeeting, inspectionBody, rulesWith } from '../tests/support/inspection-meeting';
+import { meetingWithRecordedBoat } from '../tests/support/inspection-meeting';
 
 const BASE = process.env.BASE_URL ?? 'http://localhost:3000';
 const RUNS = Number(process.env.BENCH_RUNS ?? 3);
@@ -47,18 +46,7 @@ async function signedIn(email: string) {
 }
 
 async function setUp(): Promise<Page[]> {
-  const meeting = new InspectionMeeting();
-  await meeting.create(`Page bench ${new Date().toISOString()}`, [{ email: DEMO.scrutineer, role: 'scrutineer' }]);
-  const classId = await meeting.addClass('PB', rulesWith());
-  const entry = await meeting.addEntry(classId);
-  await meeting.addEntry(classId);
-  const scrutineer = new HttpSession();
-  await scrutineer.signInWithPassword(DEMO.scrutineer, DEMO_PASSWORD);
-  const rec = await scrutineer.json(`/api/events/${meeting.eventId}/inspections`, {
-    ...inspectionBody(entry.id, 101.9),
-    idempotencyKey: randomUUID(),
-  });
-  if (rec.res.status !== 201) throw new Error(`recording failed: ${JSON.stringify(rec.body)}`);
+  const { meeting, classId, entry } = await meetingWithRecordedBoat(`Page bench ${new Date().toISOString()}`, 'PB');
   const pub = await meeting.organiser.json(`/api/events/${meeting.eventId}/classes/${classId}/report/publish`, {
     note: 'page benchmark',
   });

@@ -9,14 +9,13 @@
 // PROFILE_PATH chooses the page (default: a boat card on the dock of a scratch meeting, as bench:pages opens it);
 // PROFILE_CPU=4 slows Chromium's CPU down as Lighthouse's phone does. PROFILE_AS=scrutineer|entrant|organiser signs in as that demo person (default: the scrutineer for the default
 // page, nobody otherwise). PROFILE_TRACE=FILE keeps the trace for Chromium's Performance panel.
-import { randomUUID } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { chromium } from 'playwright-core';
 import { SourceMapConsumer } from 'source-map-js';
 import { HttpSession } from '../tests/support/http-session';
 import { DEMO, DEMO_PASSWORD } from '../tests/support/env';
-import { InspectionMeeting, inspectionBody, rulesWith } from '../tests/support/inspection-meeting';
+import { meetingWithRecordedBoat } from '../tests/support/inspection-meeting';
 
 const BASE = process.env.BASE_URL ?? 'http://localhost:3000';
 const DIST = process.env.NEXT_DIST_DIR ?? '.next-test';
@@ -51,20 +50,9 @@ async function pageToProfile(): Promise<{ path: string; cookie?: string }> {
     cookie = await signIn(email);
   }
   if (process.env.PROFILE_PATH) return { path: process.env.PROFILE_PATH, cookie };
-  const meeting = new InspectionMeeting();
-  await meeting.create(`Page profile ${new Date().toISOString()}`, [{ email: DEMO.scrutineer, role: 'scrutineer' }]);
-  const classId = await meeting.addClass('PP', rulesWith());
-  const entry = await meeting.addEntry(classId);
-  await meeting.addEntry(classId);
   // As bench:pages opens it: the boat has a conforming record already, so its card lists it.
+  const { meeting, entry } = await meetingWithRecordedBoat(`Page profile ${new Date().toISOString()}`, 'PP');
   const scrutineerCookie = cookie ?? (await signIn(DEMO.scrutineer));
-  const scrutineer = new HttpSession();
-  await scrutineer.signInWithPassword(DEMO.scrutineer, DEMO_PASSWORD);
-  const rec = await scrutineer.json(`/api/events/${meeting.eventId}/inspections`, {
-    ...inspectionBody(entry.id, 101.9),
-    idempotencyKey: randomUUID(),
-  });
-  if (rec.res.status !== 201) throw new Error(`recording failed: ${JSON.stringify(rec.body)}`);
   return {
     path: `/inspect/${meeting.eventId}?race=${entry.raceNumber}`,
     cookie: scrutineerCookie,

@@ -145,3 +145,20 @@ export function inspectionBody(entryId: string, largestMm: number, over: Record<
     ...over,
   };
 }
+
+/**
+ * A scratch meeting as the page benchmark and the page profile open it: the demo scrutineer on its staff, a class with
+ * published rules, two entries, and a conforming record (101.9 mm) of the first, so its boat card lists one.
+ */
+export async function meetingWithRecordedBoat(name: string, classCode: string) {
+  const meeting = new InspectionMeeting();
+  await meeting.create(name, [{ email: DEMO.scrutineer, role: 'scrutineer' }]);
+  const classId = await meeting.addClass(classCode, rulesWith());
+  const entry = await meeting.addEntry(classId);
+  await meeting.addEntry(classId);
+  const scrutineer = new HttpSession();
+  await scrutineer.signInWithPassword(DEMO.scrutineer, DEMO_PASSWORD);
+  const rec = await scrutineer.json(`/api/events/${meeting.eventId}/inspections`, inspectionBody(entry.id, 101.9));
+  if (rec.res.status !== 201) throw new Error(`recording failed: ${JSON.stringify(rec.body)}`);
+  return { meeting, classId, entry };
+}

@@ -1,6 +1,5 @@
 'use client';
 
-import { useSyncExternalStore } from 'react';
 import { StatusBadge } from '@/components/status-badge';
 import { VerdictBadge } from '@/components/verdict-badge';
 import { INSPECTION_KIND_LABELS, type InspectionKind } from '@/lib/core/inputs/inspection-terms';
@@ -12,20 +11,14 @@ import { CHECK_AREA_LABELS } from '@/lib/core/inspections/check-areas';
 import { describePowerEvidence } from '@/lib/core/inspections/power-evidence';
 import { SEAL_ACTION_WORDS } from '@/lib/core/seals/seal-words';
 import type { DockTarget } from './form-model';
-
-const subscribeToNothing = () => () => {};
+import { useIsStarted } from './use-is-started';
 
 /**
  * A time on the phone's own clock. The server does not know the phone's zone: a card that comes in the page's first
- * HTML (?race=) has the time filled in as the page starts (React's hydration reads the server's empty text first),
- * and a card drawn on the phone has it at once.
+ * HTML (?race=, ?tag=) has the time filled in as the page starts, and a card drawn on the phone has it at once.
  */
 function OnDevice({ iso }: { iso: string }) {
-  return useSyncExternalStore(
-    subscribeToNothing,
-    () => formatOnDevice(iso, 'day-time'),
-    () => '',
-  );
+  return useIsStarted() ? formatOnDevice(iso, 'day-time') : '';
 }
 
 /** The boat at the dock: who it is, what was declared, what has been recorded here before. */

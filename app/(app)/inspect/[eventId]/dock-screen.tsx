@@ -92,7 +92,7 @@ export function DockScreen({
   canOpenLogbook: boolean;
   /** Opened with ?race= or ?tag=: a boat's card and form will appear above the phone's outbox. */
   opensFromLink?: boolean;
-  /** The card found by the server for ?race=: shown, with its form, from the first HTML (no lookup from here). */
+  /** The card found by the server for ?race= or ?tag=: shown, with its form, from the first HTML (no lookup here). */
   initialCard?: BoatCard | null;
 }) {
   const queue = useDockQueue(eventId, actorId);
@@ -357,7 +357,7 @@ export function DockScreen({
     const query = new URLSearchParams(window.location.search);
     const race = query.get('race');
     const tag = query.get('tag');
-    // The server found this boat already (?race=): its card and form came with the page; only bring them into view.
+    // The server found this boat already: its card and form came with the page; only bring them into view.
     if (startCard) {
       document.getElementById('boat-heading')?.scrollIntoView({ block: 'start' });
       return;

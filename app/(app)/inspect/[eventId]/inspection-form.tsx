@@ -1,6 +1,6 @@
 'use client';
 
-import { useState, useSyncExternalStore } from 'react';
+import { useState } from 'react';
 import { SAFETY_ITEMS, type SafetyItem } from '@/lib/core/constants';
 import { MATERIAL_OPTIONS } from '@/lib/core/engine/measurement';
 import { EngineInputError } from '@/lib/core/engine/engine-input-error';
@@ -20,6 +20,7 @@ import {
 } from '@/lib/core/inspections/decide-inspection';
 import type { InstrumentView } from '@/lib/server/inspections/list-instruments';
 import { RefusedInstruments } from './refused-instruments';
+import { useIsStarted } from './use-is-started';
 import { SafetyNote } from '@/components/safety-note';
 import { formatFigure } from '@/lib/core/format/figures';
 import type { FormState as ActionState } from '@/components/forms/request-json';
@@ -58,19 +59,14 @@ const id = (path: string) => `f-${path.replace(/\./g, '-')}`;
 const select = 'field-input min-h-touch text-xl';
 const check = 'h-7 w-7 shrink-0 accent-tide-600';
 
-const subscribeToNothing = () => () => {};
-const isInBrowser = () => true;
-const isOnServer = () => false;
-
 /**
- * The form's fields, shut (inert: no focus, typing or tap) until the page has started: false on the server and while
- * React hydrates, true after. Before then a typed reading would be lost at the next render and a tap on Record would
+ * The form's fields, shut (inert: no focus, typing or tap) until the page has started (useIsStarted). Before then a typed reading would be lost at the next render and a tap on Record would
  * post the page itself. Inert, not disabled: opening a disabled fieldset restyled every field of the form (about
  * 450 ms of Lighthouse's blocking time on the boat card), inert changes nothing drawn. Its own component, so opening
  * it changes one attribute and React does not draw the form again. Tests wait for data-started="yes".
  */
 function ShutUntilStarted({ isPending, children }: { isPending: boolean; children: React.ReactNode }) {
-  const isStarted = useSyncExternalStore(subscribeToNothing, isInBrowser, isOnServer);
+  const isStarted = useIsStarted();
   return (
     <fieldset disabled={isPending} inert={!isStarted} data-started={isStarted ? 'yes' : 'no'} className="space-y-6">
       {children}
@@ -162,8 +158,6 @@ export function InspectionForm({ target, instruments, initial, idempotencyKey, s
       data-testid="inspection-form"
       aria-label={`Inspection of ${target.boatName}`}
     >
-      {/* Shut until the page has started: a form that came in the first HTML (?race=) takes no typing or tap that
-          its script would not see (a tap on Record would send the page itself). */}
       <ShutUntilStarted isPending={isPending}>
         {f.supersedesId && (
           <div className="rounded-lg border-2 border-flare-500 bg-flare-100 p-4">
